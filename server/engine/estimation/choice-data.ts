@@ -1,0 +1,66 @@
+/**
+ * Choice data laid out for the likelihood's inner loop. Respondent n owns tasks
+ * taskStart[n]..taskStart[n+1]−1; task t owns the rows diffStart[t]..diffStart[t+1]−1 of
+ * `diffs`, one per NON-chosen alternative, holding x_j − x_chosen (K columns). With these
+ * differences the logit probability of the observed choice is 1 / (1 + Σ_j exp(β·d_j))
+ * (Train 2009, eq. 3.6 rearranged), so the chosen alternative never needs its own row and
+ * tasks may have different numbers of alternatives.
+ */
+export interface ChoiceData {
+  /** Names of the K attribute columns, in column order. */
+  readonly columns: readonly string[];
+  /** Respondent identifiers as they appeared in the input, in first-seen order. */
+  readonly respondentIds: readonly string[];
+  /** Task identifiers (one per task, in layout order). */
+  readonly taskIds: readonly string[];
+  /** Length N+1: tasks of respondent n are taskStart[n] .. taskStart[n+1]−1. */
+  readonly taskStart: Int32Array;
+  /** Length T+1: difference rows of task t are diffStart[t] .. diffStart[t+1]−1. */
+  readonly diffStart: Int32Array;
+  /** (number of non-chosen alternatives overall) × K, row-major: x_j − x_chosen. */
+  readonly diffs: Float64Array;
+  /** Number of alternatives shown in each task (chosen one included). */
+  readonly altCount: Int32Array;
+}
+
+/** Number of respondents N. */
+export function getRespondentCount(data: ChoiceData): number {
+  return data.taskStart.length - 1;
+}
+
+/** Number of choice tasks (observations). */
+export function getTaskCount(data: ChoiceData): number {
+  return data.diffStart.length - 1;
+}
+
+/** Number of attribute columns K. */
+export function getColumnCount(data: ChoiceData): number {
+  return data.columns.length;
+}
+
+/** One input row in long format: one alternative of one task. */
+export interface LongChoiceRow {
+  respondent: string | number;
+  task: string | number;
+  alt: string | number;
+  /** 1 for the chosen alternative, 0 otherwise. */
+  chosen: number;
+  /** Tasks flagged holdout are kept apart for the holdout hit rate. */
+  holdout?: boolean;
+  /** Attribute values in the order of `columns`. */
+  values: ArrayLike<number>;
+  /** 1-based line number shown in error messages (defaults to the row's position + 1). */
+  line?: number;
+}
+
+/** Error raised for invalid choice data; names the offending line and field. */
+export class ChoiceDataError extends Error {
+  readonly line: number | undefined;
+  readonly field: string | undefined;
+  constructor(message: string, line?: number, field?: string) {
+    super(message);
+    this.name = 'ChoiceDataError';
+    this.line = line;
+    this.field = field;
+  }
+}

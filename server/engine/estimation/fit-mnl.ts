@@ -113,10 +113,6 @@ export function fitMnl(data: ChoiceData, options: MnlOptions = {}): MnlResult {
       for (let b = 0; b < K; b++) step[a] += infoInv[a * K + b] * grad[b];
       decrement += step[a] * grad[a];
     }
-    if (decrement < opts.tolerance) {
-      converged = true;
-      break;
-    }
     iterations++;
     let lambda = 1;
     let next = -Infinity;
@@ -128,6 +124,11 @@ export function fitMnl(data: ChoiceData, options: MnlOptions = {}): MnlResult {
     if (!(next >= ll - 1e-12 * Math.abs(ll))) break;
     beta.set(trial);
     ll = evaluateMnl(data, beta, grad, hess);
+    // The Newton step is always taken, so the tolerance bounds the error left after it.
+    if (decrement < opts.tolerance) {
+      converged = true;
+      break;
+    }
     if (getMaxAbsUtilityDifference(data, beta) > 35 && ll > -1e-6 * data.altCount.length) {
       throw separationError(beta, names);
     }

@@ -1,0 +1,104 @@
+/**
+ * MNL choice probabilities and Fisher information of choice tasks (McFadden 1974; Huber &
+ * Zwerina 1996, JMR 33(3):307-317, eq. for I(X, β)):
+ *   I(X, β) = Σ_s Σ_j P_js (x_js − x̄_s)(x_js − x̄_s)',  x̄_s = Σ_j P_js x_js.
+ * Task s occupies rows s·J .. s·J+J−1 of the row-major design matrix `x` (K columns).
+ */
+
+/**
+ * Writes the MNL probabilities of the J alternatives of one task (rows starting at row
+ * `xRow`) under coefficients `beta[betaOffset ..]` into `out[outOffset ..]`. Uses the
+ * max-shift for overflow safety.
+ */
+export function fillTaskProbabilities(
+  K: number,
+  J: number,
+  x: Float64Array,
+  xRow: number,
+  beta: Float64Array,
+  betaOffset: number,
+  out: Float64Array,
+  outOffset: number,
+): void {
+  let max = -Infinity;
+  for (let j = 0; j < J; j++) {
+    const row = (xRow + j) * K;
+    let v = 0;
+    for (let k = 0; k < K; k++) v += x[row + k] * beta[betaOffset + k];
+    out[outOffset + j] = v;
+    if (v > max) max = v;
+  }
+  let sum = 0;
+  for (let j = 0; j < J; j++) {
+    const e = Math.exp(out[outOffset + j] - max);
+    out[outOffset + j] = e;
+    sum += e;
+  }
+  for (let j = 0; j < J; j++) out[outOffset + j] /= sum;
+}
+
+/**
+ * Adds one task's information Σ_j P_j (x_j − x̄)(x_j − x̄)' to the LOWER triangle of the
+ * K × K matrix `out` (row-major at `outOffset`). `work` needs J·(K+1) + K entries.
+ */
+export function addTaskInformation(
+  K: number,
+  J: number,
+  x: Float64Array,
+  xRow: number,
+  beta: Float64Array,
+  betaOffset: number,
+  out: Float64Array,
+  outOffset: number,
+  work: Float64Array,
+): void {
+  const p = 0; // work[0 .. J): probabilities
+  const mean = J; // work[J .. J+K): x̄
+  const dev = J + K; // work[J+K ..): centered rows, J × K
+  fillTaskProbabilities(K, J, x, xRow, beta, betaOffset, work, p);
+  for (let k = 0; k < K; k++) work[mean + k] = 0;
+  for (let j = 0; j < J; j++) {
+    const row = (xRow + j) * K;
+    const pj = work[p + j];
+    for (let k = 0; k < K; k++) work[mean + k] += pj * x[row + k];
+  }
+  for (let j = 0; j < J; j++) {
+    const row = (xRow + j) * K;
+    const d = dev + j * K;
+    for (let k = 0; k < K; k++) work[d + k] = x[row + k] - work[mean + k];
+  }
+  for (let j = 0; j < J; j++) {
+    const pj = work[p + j];
+    const d = dev + j * K;
+    for (let i = 0; i < K; i++) {
+      const wi = pj * work[d + i];
+      if (wi === 0) continue;
+      const rowI = outOffset + i * K;
+      for (let k = 0; k <= i; k++) out[rowI + k] += wi * work[d + k];
+    }
+  }
+}
+
+/** Copies the lower triangle of a K × K row-major matrix onto its upper triangle. */
+export function symmetrizeLower(K: number, a: Float64Array, offset: number): void {
+  for (let i = 0; i < K; i++)
+    for (let k = 0; k < i; k++) a[offset + k * K + i] = a[offset + i * K + k];
+}
+
+/**
+ * Full information matrix of S tasks × J alternatives (rows of `x`) at `beta`, written
+ * symmetric into `out` (K × K). `work` needs J·(K+1) + K entries.
+ */
+export function computeInformationMatrix(
+  K: number,
+  S: number,
+  J: number,
+  x: Float64Array,
+  beta: Float64Array,
+  out: Float64Array,
+  work: Float64Array,
+): void {
+  out.fill(0, 0, K * K);
+  for (let s = 0; s < S; s++) addTaskInformation(K, J, x, s * J, beta, 0, out, 0, work);
+  symmetrizeLower(K, out, 0);
+}

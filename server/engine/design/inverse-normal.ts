@@ -4,6 +4,7 @@
  * |p − 0.5| ≤ 0.425, then in r = sqrt(−ln min(p, 1−p)) for r ≤ 5 and r > 5; about 16
  * significant digits. Returns ±Infinity at 0 and 1, NaN outside [0, 1].
  */
+/* eslint-disable no-loss-of-precision -- AS241's published coefficients are kept digit for digit */
 export function getInverseNormal(p: number): number {
   if (!(p >= 0 && p <= 1)) return Number.NaN;
   if (p === 0) return -Infinity;

@@ -1,0 +1,126 @@
+/**
+ * All diagnostics of a design in one plain object: D-errors, Street–Burgess D-efficiency
+ * where it applies, level balance, overlap, correlations of coded columns, choice
+ * probabilities under the prior means and a sample-size guide. Works on any valid design
+ * (generated or imported).
+ */
+import { buildCodingPlan } from '../../../../shared/engine/coding/coding-plan';
+import type { CodedColumn } from '../../../../shared/engine/coding/coded-columns';
+import type { Design } from '../../../../shared/schemas/design';
+import type { DesignPriors } from '../../../../shared/schemas/design-spec';
+import type { StudyDefinition } from '../../../../shared/schemas/study-definition';
+import { computeBayesianDError, computeDError } from '../d-error';
+import { buildDesignMatrix, getRowsPerTask, readDesignGrid } from '../design-grid';
+import { computeInformationMatrix, fillTaskProbabilities } from '../mnl-information';
+import { buildPriorDraws } from '../prior-draws';
+import { resolvePriors } from '../resolve-priors';
+import { invertSpd } from '../spd-inverse';
+import { getAttributeOverlap, type AttributeOverlap } from './attribute-overlap';
+import { getColumnCorrelations } from './column-correlations';
+import { getLevelBalance, type AttributeLevelBalance } from './level-balance';
+import { getSampleSizeGuide, type SampleSizeGuide } from './sample-size';
+import { computeStreetBurgessEfficiency, type StreetBurgessEfficiency } from './street-burgess';
+
+export interface DesignDiagnostics {
+  columns: Pick<CodedColumn, 'key' | 'name' | 'kind'>[];
+  parameters: number;
+  tasks: number;
+  blocks: number;
+  tasksPerBlock: number[];
+  priorsKind: DesignPriors['kind'];
+  /** The criterion of the priors kind: D₀, D_p at the means, or Bayesian D_B. */
+  dError: number;
+  dErrorZero: number;
+  /** D_p at the prior means (null for zero priors). */
+  dErrorAtMeans: number | null;
+  /** D_B over the prior draws (null unless Bayesian). */
+  dErrorBayesian: number | null;
+  /** Street–Burgess efficiency at β = 0; null when the reference does not apply. */
+  dEfficiency: StreetBurgessEfficiency | null;
+  levelBalance: AttributeLevelBalance[];
+  overlap: AttributeOverlap[];
+  /** K × K correlations over designed rows, in `columns` order (null = no variation). */
+  correlations: (number | null)[][];
+  /** Per task (design order): probabilities of the designed alternatives, then the fixed one. */
+  choiceProbabilities: { task: number; block: number; probabilities: number[] }[];
+  sampleSize: SampleSizeGuide;
+  warnings: string[];
+}
+
+/** Computes the diagnostics; `seed` fixes the Halton scrambling of Bayesian draws. */
+export function diagnoseDesign(
+  definition: StudyDefinition,
+  design: Design,
+  priors: DesignPriors = { kind: 'zero' },
+  seed = 1,
+): DesignDiagnostics {
+  const plan = buildCodingPlan(definition);
+  const K = plan.columnCount;
+  const Jt = getRowsPerTask(plan);
+  const { grid, blockOfTask } = readDesignGrid(plan, design);
+  const S = grid.S;
+  const x = buildDesignMatrix(plan, grid);
+  const { means, sds, draws } = resolvePriors(plan, priors);
+  const warnings: string[] = [];
+
+  const dErrorZero = computeDError(K, S, Jt, x, new Float64Array(K));
+  const dErrorAtMeans = priors.kind === 'zero' ? null : computeDError(K, S, Jt, x, means);
+  const dErrorBayesian =
+    priors.kind === 'bayesian'
+      ? computeBayesianDError(K, S, Jt, x, buildPriorDraws(means, sds, draws, seed), draws)
+      : null;
+  const dError = dErrorBayesian ?? dErrorAtMeans ?? dErrorZero;
+  if (!Number.isFinite(dError))
+    warnings.push('The design cannot identify every parameter (singular information matrix).');
+
+  const info = new Float64Array(K * K);
+  computeInformationMatrix(K, S, Jt, x, means, info, new Float64Array(Jt * (K + 1) + K));
+  const covariance = new Float64Array(K * K);
+  const invertible = invertSpd(K, info, covariance, new Float64Array(K * K));
+
+  const probabilities = new Float64Array(Jt);
+  const choiceProbabilities = design.tasks.map((task, s) => {
+    fillTaskProbabilities(K, Jt, x, s * Jt, means, 0, probabilities, 0);
+    return { task: task.task, block: task.block, probabilities: Array.from(probabilities) };
+  });
+
+  const tasksPerBlock = Array.from(
+    { length: design.blocks },
+    (_, b) => design.tasks.filter((t) => t.block === b + 1).length,
+  );
+  const levelBalance = getLevelBalance(definition, grid, blockOfTask, design.blocks);
+  if (levelBalance.some((a) => a.spread > 1))
+    warnings.push('Some levels appear noticeably more often than others (see level balance).');
+  if (priors.kind === 'zero')
+    warnings.push(
+      'Zero priors: dominated alternatives cannot be recognised and the S-estimate is not available.',
+    );
+
+  return {
+    columns: plan.columns.map(({ key, name, kind }) => ({ key, name, kind })),
+    parameters: K,
+    tasks: S,
+    blocks: design.blocks,
+    tasksPerBlock,
+    priorsKind: priors.kind,
+    dError,
+    dErrorZero,
+    dErrorAtMeans,
+    dErrorBayesian,
+    dEfficiency: computeStreetBurgessEfficiency(plan, grid),
+    levelBalance,
+    overlap: getAttributeOverlap(definition, grid),
+    correlations: getColumnCorrelations(K, Jt, plan.designedCount, S, x),
+    choiceProbabilities,
+    sampleSize: getSampleSizeGuide({
+      columns: plan.columns,
+      covarianceOne: invertible ? covariance : null,
+      priorMeans: means,
+      blocks: design.blocks,
+      tasksPerRespondent: Math.max(...tasksPerBlock),
+      alternatives: plan.designedCount,
+      maxLevels: Math.max(...plan.attributes.map((a) => a.levelIds.length)),
+    }),
+    warnings,
+  };
+}

@@ -1,0 +1,51 @@
+/**
+ * Level balance (Huber & Zwerina 1996): how often each level of each attribute appears
+ * among the designed alternatives, overall and per block.
+ */
+import type { StudyDefinition } from '../../../../shared/schemas/study-definition';
+import type { LevelGrid } from '../design-grid';
+
+export interface AttributeLevelBalance {
+  attributeId: string;
+  name: string;
+  levels: { levelId: string; label: string; count: number; share: number }[];
+  /** byBlock[b][l]: count of level l in block b+1. */
+  byBlock: number[][];
+  /** Max minus min count over levels (0 or 1 = balanced as far as the task count allows). */
+  spread: number;
+}
+
+export function getLevelBalance(
+  definition: StudyDefinition,
+  grid: LevelGrid,
+  blockOfTask: Int32Array,
+  blocks: number,
+): AttributeLevelBalance[] {
+  const { S, J, A } = grid;
+  return definition.attributes.map((attribute, a) => {
+    const L = attribute.levels.length;
+    const counts = new Array<number>(L).fill(0);
+    const byBlock = Array.from({ length: blocks }, () => new Array<number>(L).fill(0));
+    let shown = 0;
+    for (let s = 0; s < S; s++)
+      for (let j = 0; j < J; j++) {
+        const l = grid.levels[(s * J + j) * A + a];
+        if (l < 0) continue;
+        counts[l]++;
+        byBlock[blockOfTask[s] - 1][l]++;
+        shown++;
+      }
+    return {
+      attributeId: attribute.id,
+      name: attribute.name,
+      levels: attribute.levels.map((level, l) => ({
+        levelId: level.id,
+        label: level.label,
+        count: counts[l],
+        share: shown > 0 ? counts[l] / shown : 0,
+      })),
+      byBlock,
+      spread: Math.max(...counts) - Math.min(...counts),
+    };
+  });
+}

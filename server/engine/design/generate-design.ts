@@ -1,0 +1,121 @@
+/**
+ * Entry point of the design engine: checks the request, builds the tasks by the chosen
+ * method (full factorial with cyclic shifts, level-balanced random, or D-efficient by
+ * coordinate exchange from several random starts), assigns blocks, and returns the design
+ * with its diagnostics. Pure: no I/O; progress through `hooks.onProgress`, cancellation
+ * through `hooks.signal` (throws the signal's reason, an AbortError by default).
+ */
+import type { Design } from '../../../shared/schemas/design';
+import type { DesignSpec } from '../../../shared/schemas/design-spec';
+import { assignBlocks } from './assign-blocks';
+import { checkDesignSpec, type CheckedDesignSpec } from './check-design-spec';
+import { improveByCoordinateExchange } from './coordinate-exchange';
+import { buildDesignConstraints } from './design-constraints';
+import { writeDesign, type LevelGrid } from './design-grid';
+import { diagnoseDesign, type DesignDiagnostics } from './diagnostics/diagnose-design';
+import { buildShiftedGrid, listFullFactorial } from './full-factorial';
+import { buildPriorDraws } from './prior-draws';
+import { generateRandomGrid } from './random-design';
+import { createSeededRandom, type SeededRandom } from './seeded-random';
+
+export interface DesignProgress {
+  phase: 'building' | 'searching' | 'blocking' | 'diagnosing' | 'done';
+  /** Rough share of the work done, 0..1. */
+  fraction: number;
+  /** d_efficient: current start (1-based), its pass, and the best criterion so far. */
+  start?: number;
+  starts?: number;
+  pass?: number;
+  bestDError?: number;
+}
+
+export interface DesignHooks {
+  onProgress?: (progress: DesignProgress) => void;
+  signal?: AbortSignal;
+}
+
+export interface GeneratedDesign {
+  design: Design;
+  diagnostics: DesignDiagnostics;
+  /** The spec with defaults filled (store it with the design for reproducibility). */
+  spec: DesignSpec;
+}
+
+function searchDEfficient(
+  checked: CheckedDesignSpec,
+  random: SeededRandom,
+  hooks: DesignHooks,
+): LevelGrid {
+  const { spec, plan, priorMeans, priorSds, draws } = checked;
+  const constraints = buildDesignConstraints(
+    plan,
+    checked.definition.prohibitions,
+    priorMeans,
+    priorSds,
+  );
+  const R = draws;
+  const betas = R > 1 ? buildPriorDraws(priorMeans, priorSds, R, spec.seed) : priorMeans;
+  let best: LevelGrid | null = null;
+  let bestValue = Infinity;
+  for (let start = 1; start <= spec.starts; start++) {
+    hooks.signal?.throwIfAborted();
+    const initial = generateRandomGrid(plan, constraints, spec.tasks!, random);
+    const result = improveByCoordinateExchange(plan, constraints, initial, betas, R, {
+      maxPasses: spec.maxIterations,
+      signal: hooks.signal,
+      onPass: (pass, value) =>
+        hooks.onProgress?.({
+          phase: 'searching',
+          fraction: 0.05 + (0.85 * (start - 1 + Math.min(0.9, pass / (pass + 2)))) / spec.starts,
+          start,
+          starts: spec.starts,
+          pass,
+          bestDError: Math.min(bestValue, value),
+        }),
+    });
+    if (best === null || result.value < bestValue) {
+      best = result.grid;
+      bestValue = result.value;
+    }
+  }
+  return best!;
+}
+
+/** Generates a design; see the file comment. Throws DesignError for bad or infeasible requests. */
+export function generateDesign(
+  definition: unknown,
+  specInput: unknown,
+  hooks: DesignHooks = {},
+): GeneratedDesign {
+  const checked = checkDesignSpec(definition, specInput);
+  const { spec, plan, priorMeans, priorSds } = checked;
+  const random = createSeededRandom(spec.seed);
+  hooks.onProgress?.({ phase: 'building', fraction: 0 });
+  let grid: LevelGrid;
+  if (spec.method === 'd_efficient') {
+    grid = searchDEfficient(checked, random, hooks);
+  } else {
+    const constraints = buildDesignConstraints(
+      plan,
+      checked.definition.prohibitions,
+      priorMeans,
+      priorSds,
+    );
+    if (spec.method === 'random') {
+      grid = generateRandomGrid(plan, constraints, spec.tasks!, random);
+    } else {
+      const { profiles, count } = listFullFactorial(plan, constraints);
+      grid = buildShiftedGrid(plan, constraints, profiles, count);
+    }
+  }
+  hooks.signal?.throwIfAborted();
+  hooks.onProgress?.({ phase: 'blocking', fraction: 0.92 });
+  const levelCounts = plan.attributes.map((a) => a.levelIds.length);
+  const blocks = Math.min(spec.blocks, grid.S);
+  const blockOfTask = assignBlocks(grid, levelCounts, blocks, random);
+  const design = writeDesign(plan, grid, blockOfTask, blocks);
+  hooks.onProgress?.({ phase: 'diagnosing', fraction: 0.95 });
+  const diagnostics = diagnoseDesign(checked.definition, design, spec.priors, spec.seed);
+  hooks.onProgress?.({ phase: 'done', fraction: 1, bestDError: diagnostics.dError });
+  return { design, diagnostics, spec: { ...spec, tasks: grid.S } };
+}

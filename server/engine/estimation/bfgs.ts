@@ -1,0 +1,182 @@
+/**
+ * Quasi-Newton minimisation by BFGS on the inverse Hessian (Nocedal & Wright, Numerical
+ * Optimization, 2nd ed., Algorithm 6.1) with a weak-Wolfe line search by bisection and
+ * expansion (Lewis & Overton 2013, Math. Program. 141:135-163), the initial scaling
+ * H0 = (y's / y'y)·I of N&W eq. 6.20, and update skipping when y's ≤ 0. The objective is
+ * asynchronous so it can be evaluated on worker threads.
+ */
+import { EstimationCancelledError } from './estimation-errors';
+
+/** f(x) with its gradient written into g; may return a non-finite value to reject x. */
+export type AsyncObjective = (x: Float64Array, g: Float64Array) => Promise<number>;
+
+export interface BfgsOptions {
+  maxIterations: number;
+  /** Stop when max |∂f/∂x| falls below this. */
+  gradientTolerance: number;
+  /** Stop when |Δf| / max(|f|, 1) over an iteration falls below this. */
+  relativeTolerance: number;
+  signal?: AbortSignal;
+  onIteration?: (iteration: number, f: number, gradientNorm: number) => void;
+}
+
+export type BfgsStopReason = 'gradient' | 'relative_change' | 'max_iterations' | 'line_search';
+
+export interface BfgsResult {
+  x: Float64Array;
+  f: number;
+  grad: Float64Array;
+  iterations: number;
+  evaluations: number;
+  converged: boolean;
+  reason: BfgsStopReason;
+  /** Euclidean norm of the final gradient. */
+  gradientNorm: number;
+  /** |Δf| / max(|f|, 1) of the last iteration. */
+  relativeChange: number;
+}
+
+const C1 = 1e-4;
+const C2 = 0.9;
+
+/** Minimises f from x0; throws EstimationCancelledError when the signal fires. */
+export async function minimizeBfgs(
+  f: AsyncObjective,
+  x0: Float64Array,
+  options: BfgsOptions,
+): Promise<BfgsResult> {
+  const n = x0.length;
+  const x = Float64Array.from(x0);
+  const g = new Float64Array(n);
+  let evaluations = 1;
+  let fx = await f(x, g);
+  if (!Number.isFinite(fx))
+    throw new Error('the log-likelihood is not finite at the starting values');
+  const H = new Float64Array(n * n);
+  for (let i = 0; i < n; i++) H[i * n + i] = 1;
+  const d = new Float64Array(n);
+  const xNew = new Float64Array(n);
+  const gNew = new Float64Array(n);
+  const s = new Float64Array(n);
+  const y = new Float64Array(n);
+  const Hy = new Float64Array(n);
+  let iterations = 0;
+  let relativeChange = Infinity;
+  let reason: BfgsStopReason = 'max_iterations';
+  if (maxAbs(g) <= options.gradientTolerance) reason = 'gradient';
+  while (reason === 'max_iterations' && iterations < options.maxIterations) {
+    if (options.signal?.aborted) throw new EstimationCancelledError();
+    for (let i = 0; i < n; i++) {
+      let v = 0;
+      for (let j = 0; j < n; j++) v -= H[i * n + j] * g[j];
+      d[i] = v;
+    }
+    let slope = dot(g, d);
+    if (!(slope < 0)) {
+      // H lost positive definiteness numerically: restart from steepest descent.
+      H.fill(0);
+      for (let i = 0; i < n; i++) H[i * n + i] = 1;
+      for (let i = 0; i < n; i++) d[i] = -g[i];
+      slope = dot(g, d);
+    }
+    let alpha = iterations === 0 ? Math.min(1, 1 / Math.sqrt(dot(g, g))) : 1;
+    let lo = 0;
+    let hi = Infinity;
+    let fNew = NaN;
+    let accepted = false;
+    for (let trial = 0; trial < 40; trial++) {
+      for (let i = 0; i < n; i++) xNew[i] = x[i] + alpha * d[i];
+      fNew = await f(xNew, gNew);
+      evaluations++;
+      if (!Number.isFinite(fNew) || fNew > fx + C1 * alpha * slope) {
+        hi = alpha;
+      } else if (dot(gNew, d) < C2 * slope) {
+        lo = alpha;
+        accepted = true;
+        if (hi === Infinity) {
+          alpha *= 2;
+          continue;
+        }
+      } else {
+        accepted = true;
+        break;
+      }
+      alpha = (lo + hi) / 2;
+      if (accepted && hi - lo < 1e-12 * lo) break;
+    }
+    if (!accepted) {
+      reason = 'line_search';
+      break;
+    }
+    if (!(Number.isFinite(fNew) && fNew <= fx + C1 * alpha * slope)) {
+      // Last trial failed; fall back to the last step that met the sufficient-decrease rule.
+      alpha = lo;
+      for (let i = 0; i < n; i++) xNew[i] = x[i] + alpha * d[i];
+      fNew = await f(xNew, gNew);
+      evaluations++;
+    }
+    for (let i = 0; i < n; i++) {
+      s[i] = xNew[i] - x[i];
+      y[i] = gNew[i] - g[i];
+    }
+    updateInverseHessian(H, s, y, Hy, iterations === 0);
+    relativeChange = Math.abs(fNew - fx) / Math.max(Math.abs(fNew), 1);
+    x.set(xNew);
+    g.set(gNew);
+    fx = fNew;
+    iterations++;
+    options.onIteration?.(iterations, fx, Math.sqrt(dot(g, g)));
+    if (maxAbs(g) <= options.gradientTolerance) reason = 'gradient';
+    else if (relativeChange <= options.relativeTolerance) reason = 'relative_change';
+  }
+  return {
+    x,
+    f: fx,
+    grad: g,
+    iterations,
+    evaluations,
+    converged: reason === 'gradient' || reason === 'relative_change',
+    reason,
+    gradientNorm: Math.sqrt(dot(g, g)),
+    relativeChange,
+  };
+}
+
+function updateInverseHessian(
+  H: Float64Array,
+  s: Float64Array,
+  y: Float64Array,
+  Hy: Float64Array,
+  first: boolean,
+): void {
+  const n = s.length;
+  const ys = dot(y, s);
+  if (!(ys > 1e-12 * Math.sqrt(dot(s, s) * dot(y, y)))) return;
+  if (first) {
+    const scale = ys / dot(y, y);
+    for (let i = 0; i < n; i++) H[i * n + i] = scale;
+  }
+  const rho = 1 / ys;
+  for (let i = 0; i < n; i++) {
+    let v = 0;
+    for (let j = 0; j < n; j++) v += H[i * n + j] * y[j];
+    Hy[i] = v;
+  }
+  const yHy = dot(y, Hy);
+  const c = rho * rho * yHy + rho;
+  for (let i = 0; i < n; i++)
+    for (let j = 0; j < n; j++)
+      H[i * n + j] += c * s[i] * s[j] - rho * (Hy[i] * s[j] + s[i] * Hy[j]);
+}
+
+function dot(a: Float64Array, b: Float64Array): number {
+  let s = 0;
+  for (let i = 0; i < a.length; i++) s += a[i] * b[i];
+  return s;
+}
+
+function maxAbs(a: Float64Array): number {
+  let m = 0;
+  for (let i = 0; i < a.length; i++) m = Math.max(m, Math.abs(a[i]));
+  return m;
+}

@@ -1,0 +1,124 @@
+/**
+ * Options of fitMixedLogit with their documented defaults, checked before any numerics.
+ */
+import { getMaxDrawDimensions, type DrawsType } from '../draws/uniform-draws';
+import type { ChoiceData } from './choice-data';
+import { EstimationOptionsError } from './estimation-errors';
+import {
+  createMixedLogitLayout,
+  type CoefficientSpec,
+  type MixedLogitLayout,
+} from './mixed-logit-layout';
+
+export interface MixedLogitOptions {
+  coefficients: CoefficientSpec[];
+  /** Correlate the normal coefficients through a Cholesky factor (default false). */
+  correlated?: boolean;
+  /** Draws: type (default 'halton', scrambled), count R (default 500), seed (default 1). */
+  draws?: { type?: DrawsType; count?: number; seed?: number; scrambled?: boolean };
+  /** BFGS iterations per start (default 300). */
+  maxIterations?: number;
+  /** Stop when max |∂LL/∂θ| ≤ this (default 1e-3). */
+  gradientTolerance?: number;
+  /** Stop when |ΔLL|/|LL| over an iteration ≤ this (default 1e-12). */
+  relativeTolerance?: number;
+  /** Number of starts: the MNL-based start plus seeded perturbations of it (default 1). */
+  starts?: number;
+  /** Explicit starting θ (overrides the MNL start). */
+  start?: ArrayLike<number>;
+  /** Worker threads for the LL (default 1: in-process). */
+  threads?: number;
+  /** Holdout tasks for an out-of-sample hit rate. */
+  holdout?: ChoiceData | null;
+}
+
+export interface CheckedMixedLogitOptions {
+  layout: MixedLogitLayout;
+  draws: { type: DrawsType; count: number; seed: number; scrambled: boolean };
+  maxIterations: number;
+  gradientTolerance: number;
+  relativeTolerance: number;
+  starts: number;
+  start: Float64Array | null;
+  threads: number;
+  holdout: ChoiceData | null;
+}
+
+const DRAW_TYPES: DrawsType[] = ['halton', 'sobol', 'mlhs', 'random'];
+
+function assertPositiveInteger(value: number, field: string, max = Number.MAX_SAFE_INTEGER): void {
+  if (!Number.isInteger(value) || value < 1 || value > max) {
+    throw new EstimationOptionsError(`${field} must be an integer between 1 and ${max}`, field);
+  }
+}
+
+/** Fills defaults and validates; throws EstimationOptionsError naming the field. */
+export function checkMixedLogitOptions(
+  data: ChoiceData,
+  options: MixedLogitOptions,
+): CheckedMixedLogitOptions {
+  if (!options || !Array.isArray(options.coefficients)) {
+    throw new EstimationOptionsError('coefficients must be a list', 'coefficients');
+  }
+  const layout = createMixedLogitLayout(data, options.coefficients, options.correlated ?? false);
+  if (layout.D === 0)
+    throw new EstimationOptionsError(
+      'a mixed logit needs at least one random coefficient',
+      'coefficients',
+    );
+  const draws = {
+    type: options.draws?.type ?? 'halton',
+    count: options.draws?.count ?? 500,
+    seed: options.draws?.seed ?? 1,
+    scrambled: options.draws?.scrambled ?? true,
+  };
+  if (!DRAW_TYPES.includes(draws.type))
+    throw new EstimationOptionsError(`unknown draws type ${String(draws.type)}`, 'draws.type');
+  assertPositiveInteger(draws.count, 'draws.count', 100_000);
+  if (!Number.isInteger(draws.seed))
+    throw new EstimationOptionsError('draws.seed must be an integer', 'draws.seed');
+  if (layout.D > getMaxDrawDimensions(draws.type)) {
+    throw new EstimationOptionsError(
+      `${draws.type} draws support at most ${getMaxDrawDimensions(draws.type)} random coefficients`,
+      'draws.type',
+    );
+  }
+  const maxIterations = options.maxIterations ?? 300;
+  assertPositiveInteger(maxIterations, 'maxIterations');
+  const starts = options.starts ?? 1;
+  assertPositiveInteger(starts, 'starts', 50);
+  const threads = options.threads ?? 1;
+  assertPositiveInteger(threads, 'threads', 64);
+  const gradientTolerance = options.gradientTolerance ?? 1e-3;
+  const relativeTolerance = options.relativeTolerance ?? 1e-12;
+  if (!(gradientTolerance > 0))
+    throw new EstimationOptionsError('gradientTolerance must be positive', 'gradientTolerance');
+  if (!(relativeTolerance > 0))
+    throw new EstimationOptionsError('relativeTolerance must be positive', 'relativeTolerance');
+  let start: Float64Array | null = null;
+  if (options.start) {
+    if (options.start.length !== layout.P)
+      throw new EstimationOptionsError(`start must have ${layout.P} values`, 'start');
+    start = Float64Array.from(options.start);
+    if (!start.every(Number.isFinite))
+      throw new EstimationOptionsError('start values must be finite', 'start');
+  }
+  const holdout = options.holdout ?? null;
+  if (holdout && holdout.columns.join('\u0000') !== data.columns.join('\u0000')) {
+    throw new EstimationOptionsError(
+      'holdout data must have the same columns as the estimation data',
+      'holdout',
+    );
+  }
+  return {
+    layout,
+    draws,
+    maxIterations,
+    gradientTolerance,
+    relativeTolerance,
+    starts,
+    start,
+    threads,
+    holdout,
+  };
+}

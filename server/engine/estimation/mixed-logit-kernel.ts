@@ -1,0 +1,249 @@
+/**
+ * Simulated panel log-likelihood and its analytic gradient for the mixed logit (Train 2009,
+ * eq. 6.2 and §10.2): ln L_n = ln (1/R) Σ_r Π_t P_nt(β_r), with P_nt = 1/(1 + Σ_j e^{β_r·d_j})
+ * (d_j = x_j − x_chosen) and ∂ln L_n/∂θ = Σ_r w_r Σ_t (−Σ_j P_ntj d_j)·∂β_r/∂θ,
+ * w_r = Π_t P_nt(β_r) / Σ_r' Π_t P_nt(β_r'). Loops run over draws innermost on Float64Array
+ * workspaces allocated once per kernel, utilities and gradients use fused multi-stream axpy,
+ * exponentials are taken as one stream per alternative (Tang's table method, exp-stream.ts),
+ * and products over tasks are moved to the log scale every 8 tasks so long panels cannot
+ * underflow. One kernel covers a contiguous slice of respondents (one worker thread's share).
+ */
+import { expStream } from '../linalg/exp-stream';
+import { fusedAxpy } from '../linalg/fused-axpy';
+import type { ChoiceData } from './choice-data';
+import {
+  DIST_FIXED,
+  DIST_LOGNORMAL,
+  DIST_NEG_LOGNORMAL,
+  type MixedLogitLayout,
+} from './mixed-logit-layout';
+
+/** A log-likelihood + gradient evaluator over a fixed slice of respondents. */
+export interface LoglikKernel {
+  readonly parameterCount: number;
+  readonly respondentCount: number;
+  /**
+   * Returns Σ_n ln L_n over the slice at θ and writes its gradient into `grad` (length P).
+   * With `scores` (respondentCount × P) also writes each respondent's gradient.
+   */
+  evaluate(theta: Float64Array, grad: Float64Array, scores?: Float64Array | null): number;
+}
+
+export interface MixedLogitKernel extends LoglikKernel {
+  /**
+   * For local respondent n: fills `betas` (K × R, coefficient-major) with β_r and `weights`
+   * (R) with the normalised w_r; returns ln L_n.
+   */
+  simulateRespondent(
+    n: number,
+    theta: Float64Array,
+    betas: Float64Array,
+    weights: Float64Array,
+  ): number;
+}
+
+const LOG_CHUNK = 8;
+
+/**
+ * Creates the kernel for respondents first..first+count−1 of `data`, with standard variates
+ * `variates` laid out [local respondent][dimension][draw] (see createStandardVariates).
+ */
+export function createMixedLogitKernel(
+  data: ChoiceData,
+  layout: MixedLogitLayout,
+  variates: Float64Array,
+  R: number,
+  first: number,
+  count: number,
+): MixedLogitKernel {
+  const { K, D, P, dist, column, dimension, meanIndex, spreadIndex, block, cholIndex } = layout;
+  const Kd = data.columns.length;
+  const { diffs, diffStart, taskStart } = data;
+  // Largest number of alternative rows of one respondent: V keeps all of them so the
+  // gradient can be accumulated in one fused pass per coefficient after the last task.
+  let maxRows = 1;
+  for (let n = first; n < first + count; n++) {
+    maxRows = Math.max(maxRows, diffStart[taskStart[n + 1]] - diffStart[taskStart[n]]);
+  }
+  const B = new Float64Array(K * R);
+  const G = new Float64Array(K * R);
+  const V = new Float64Array(maxRows * R);
+  const den = new Float64Array(R);
+  const prod = new Float64Array(R);
+  const lp = new Float64Array(R);
+  const w = new Float64Array(R);
+  const gn = new Float64Array(P);
+  const coef = new Float64Array(Math.max(K, maxRows));
+  const offs = new Int32Array(Math.max(K, maxRows));
+  const blockSize = block.length;
+  const blockDims = Int32Array.from(block, (k) => dimension[k]);
+
+  function fillBetas(n: number, theta: Float64Array, out: Float64Array): void {
+    const drawBase = n * D * R;
+    for (let k = 0; k < K; k++) {
+      const base = k * R;
+      const m = theta[meanIndex[k]];
+      const code = dist[k];
+      if (code === DIST_FIXED) {
+        out.fill(m, base, base + R);
+        continue;
+      }
+      if (spreadIndex[k] < 0) continue; // correlated block, filled below
+      const s = theta[spreadIndex[k]];
+      const eta = drawBase + dimension[k] * R;
+      if (code === DIST_LOGNORMAL) {
+        for (let r = 0; r < R; r++) out[base + r] = Math.exp(m + s * variates[eta + r]);
+      } else if (code === DIST_NEG_LOGNORMAL) {
+        for (let r = 0; r < R; r++) out[base + r] = -Math.exp(m + s * variates[eta + r]);
+      } else {
+        for (let r = 0; r < R; r++) out[base + r] = m + s * variates[eta + r];
+      }
+    }
+    for (let i = 0; i < blockSize; i++) {
+      const base = block[i] * R;
+      out.fill(theta[meanIndex[block[i]]], base, base + R);
+      for (let l = 0; l <= i; l++) {
+        const c = theta[cholIndex[i * blockSize + l]];
+        const eta = drawBase + blockDims[l] * R;
+        for (let r = 0; r < R; r++) out[base + r] += c * variates[eta + r];
+      }
+    }
+  }
+
+  /** Fills lp (log Π_t P_nt per draw) and G (Σ_t ∂ln P_nt/∂β per draw) for local respondent n. */
+  function simulateTasks(n: number, withGradient: boolean): void {
+    lp.fill(0);
+    prod.fill(1);
+    const gFirst = first + n;
+    const rowBase = diffStart[taskStart[gFirst]];
+    let sinceLog = 0;
+    for (let t = taskStart[gFirst]; t < taskStart[gFirst + 1]; t++) {
+      const row0 = diffStart[t];
+      const rows = diffStart[t + 1] - row0;
+      den.fill(1);
+      for (let j = 0; j < rows; j++) {
+        const vb = (row0 - rowBase + j) * R;
+        const dRow = (row0 + j) * Kd;
+        let m = 0;
+        for (let k = 0; k < K; k++) {
+          const d = diffs[dRow + column[k]];
+          if (d === 0) continue;
+          coef[m] = d;
+          offs[m++] = k * R;
+        }
+        fusedAxpy(V, vb, B, coef, offs, m, R, true);
+        expStream(V, vb, R);
+        for (let r = 0; r < R; r++) den[r] += V[vb + r];
+      }
+      for (let r = 0; r < R; r++) {
+        const p = 1 / den[r];
+        den[r] = p;
+        prod[r] *= p;
+      }
+      if (++sinceLog === LOG_CHUNK) {
+        for (let r = 0; r < R; r++) {
+          lp[r] += Math.log(prod[r]);
+          prod[r] = 1;
+        }
+        sinceLog = 0;
+      }
+      if (!withGradient) continue;
+      for (let j = 0; j < rows; j++) {
+        const vb = (row0 - rowBase + j) * R;
+        for (let r = 0; r < R; r++) V[vb + r] *= den[r];
+      }
+    }
+    if (withGradient) {
+      // G_k = −Σ_t Σ_j d_tjk · P_tj over all the respondent's rows, fused per coefficient.
+      const rowEnd = diffStart[taskStart[gFirst + 1]];
+      for (let k = 0; k < K; k++) {
+        let m = 0;
+        for (let row = rowBase; row < rowEnd; row++) {
+          const d = diffs[row * Kd + column[k]];
+          if (d === 0) continue;
+          coef[m] = -d;
+          offs[m++] = (row - rowBase) * R;
+        }
+        fusedAxpy(G, k * R, V, coef, offs, m, R, true);
+      }
+    }
+    if (sinceLog > 0) for (let r = 0; r < R; r++) lp[r] += Math.log(prod[r]);
+  }
+
+  /** Normalised weights into `weights`; returns ln L_n (−Infinity if every draw underflows). */
+  function normaliseWeights(weights: Float64Array): number {
+    let max = -Infinity;
+    for (let r = 0; r < R; r++) if (lp[r] > max) max = lp[r];
+    if (max === -Infinity) return -Infinity;
+    let sum = 0;
+    for (let r = 0; r < R; r++) sum += weights[r] = Math.exp(lp[r] - max);
+    const inv = 1 / sum;
+    for (let r = 0; r < R; r++) weights[r] *= inv;
+    return max + Math.log(sum / R);
+  }
+
+  function accumulateGradient(n: number): void {
+    gn.fill(0);
+    const drawBase = n * D * R;
+    for (let k = 0; k < K; k++) {
+      const gb = k * R;
+      const code = dist[k];
+      let gm = 0;
+      let gs = 0;
+      if (code === DIST_FIXED) {
+        for (let r = 0; r < R; r++) gm += w[r] * G[gb + r];
+      } else if (code === DIST_LOGNORMAL || code === DIST_NEG_LOGNORMAL) {
+        const eta = drawBase + dimension[k] * R;
+        for (let r = 0; r < R; r++) {
+          const x = w[r] * G[gb + r] * B[gb + r];
+          gm += x;
+          gs += x * variates[eta + r];
+        }
+      } else {
+        const eta = drawBase + dimension[k] * R;
+        for (let r = 0; r < R; r++) {
+          const x = w[r] * G[gb + r];
+          gm += x;
+          gs += x * variates[eta + r];
+        }
+      }
+      gn[meanIndex[k]] += gm;
+      if (spreadIndex[k] >= 0) gn[spreadIndex[k]] += gs;
+    }
+    for (let i = 0; i < blockSize; i++) {
+      const gb = block[i] * R;
+      for (let l = 0; l <= i; l++) {
+        const eta = drawBase + blockDims[l] * R;
+        let s = 0;
+        for (let r = 0; r < R; r++) s += w[r] * G[gb + r] * variates[eta + r];
+        gn[cholIndex[i * blockSize + l]] += s;
+      }
+    }
+  }
+
+  return {
+    parameterCount: P,
+    respondentCount: count,
+    evaluate(theta, grad, scores = null) {
+      grad.fill(0, 0, P);
+      let ll = 0;
+      for (let n = 0; n < count; n++) {
+        fillBetas(n, theta, B);
+        simulateTasks(n, true);
+        const lnL = normaliseWeights(w);
+        ll += lnL;
+        if (lnL === -Infinity) continue;
+        accumulateGradient(n);
+        for (let p = 0; p < P; p++) grad[p] += gn[p];
+        if (scores) scores.set(gn, n * P);
+      }
+      return ll;
+    },
+    simulateRespondent(n, theta, betas, weights) {
+      fillBetas(n, theta, B);
+      simulateTasks(n, false);
+      betas.set(B);
+      return normaliseWeights(weights);
+    },
+  };
+}

@@ -1,0 +1,120 @@
+/**
+ * Log-likelihood evaluator on worker threads (piscina). Respondents are split into
+ * contiguous slices of about equal work (number of alternative rows); each slice lives on
+ * its own single-thread pool, receives the data once as SharedArrayBuffer views and makes its
+ * own draws, and per evaluation gets θ and returns its partial LL and gradient, summed here.
+ *
+ * TypeScript in workers: the worker file is .ts; workers start with `--import <tsx loader>`
+ * (resolved from this package's node_modules), which works whether the parent runs under
+ * tsx, vitest or plain node.
+ */
+import { createRequire } from 'node:module';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import { Piscina } from 'piscina';
+import type { DrawsSpec } from '../draws/uniform-draws';
+import type { ChoiceData } from '../estimation/choice-data';
+import type { LoglikEvaluator } from '../estimation/loglik-evaluator';
+import type { MixedLogitLayout } from '../estimation/mixed-logit-layout';
+import type { SliceResult } from './worker-messages';
+
+const WORKER_FILE = fileURLToPath(new URL('./mixed-logit-worker.ts', import.meta.url));
+
+let keyCounter = 0;
+
+/** Splits respondents into `parts` contiguous slices with about equal numbers of diff rows. */
+export function splitRespondents(
+  data: ChoiceData,
+  parts: number,
+): { first: number; count: number }[] {
+  const N = data.taskStart.length - 1;
+  const total = data.diffStart[data.diffStart.length - 1];
+  const slices: { first: number; count: number }[] = [];
+  let first = 0;
+  for (let p = 1; p <= parts && first < N; p++) {
+    let end = first + 1;
+    const target = (total * p) / parts;
+    while (end < N && (p === parts || data.diffStart[data.taskStart[end]] < target)) end++;
+    slices.push({ first, count: end - first });
+    first = end;
+  }
+  return slices;
+}
+
+function toShared<T extends Int32Array | Float64Array>(array: T): T {
+  const buffer = new SharedArrayBuffer(array.byteLength);
+  const copy = (
+    array instanceof Int32Array ? new Int32Array(buffer) : new Float64Array(buffer)
+  ) as T;
+  copy.set(array);
+  return copy;
+}
+
+/** Starts `threads` worker threads holding the data and draws; remember to close() it. */
+export async function createWorkerPoolEvaluator(
+  data: ChoiceData,
+  layout: MixedLogitLayout,
+  draws: Omit<DrawsSpec, 'dimensions'>,
+  threads: number,
+): Promise<LoglikEvaluator> {
+  const tsxLoader = pathToFileURL(createRequire(import.meta.url).resolve('tsx')).href;
+  const shared = {
+    taskStart: toShared(data.taskStart),
+    diffStart: toShared(data.diffStart),
+    diffs: toShared(data.diffs),
+    altCount: toShared(data.altCount),
+  };
+  const key = `slice-${process.pid}-${++keyCounter}`;
+  const slices = splitRespondents(data, threads);
+  const pools = slices.map(
+    () =>
+      new Piscina({
+        filename: WORKER_FILE,
+        execArgv: ['--import', tsxLoader],
+        minThreads: 1,
+        maxThreads: 1,
+        idleTimeout: 60_000,
+      }),
+  );
+  await Promise.all(
+    pools.map((pool, i) =>
+      pool.run({
+        kind: 'init',
+        key,
+        columns: [...data.columns],
+        ...shared,
+        coefficients: layout.coefficients.map((c) => ({ ...c })),
+        correlated: layout.correlated,
+        draws,
+        first: slices[i].first,
+        count: slices[i].count,
+      }),
+    ),
+  );
+  const P = layout.P;
+  const N = data.taskStart.length - 1;
+  const runAll = (kind: 'evaluate' | 'scores', theta: Float64Array): Promise<SliceResult[]> =>
+    Promise.all(pools.map((pool) => pool.run({ kind, key, theta }) as Promise<SliceResult>));
+  return {
+    parameterCount: P,
+    respondentCount: N,
+    async evaluate(theta, grad) {
+      const results = await runAll('evaluate', theta);
+      grad.fill(0, 0, P);
+      let ll = 0;
+      for (const r of results) {
+        ll += r.loglik;
+        for (let p = 0; p < P; p++) grad[p] += r.grad[p];
+      }
+      return ll;
+    },
+    async evaluateScores(theta) {
+      const results = await runAll('scores', theta);
+      const scores = new Float64Array(N * P);
+      results.forEach((r, i) => scores.set(r.scores!, slices[i].first * P));
+      return scores;
+    },
+    async close() {
+      await Promise.all(pools.map((pool) => pool.destroy()));
+    },
+  };
+}

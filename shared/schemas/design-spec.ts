@@ -1,0 +1,62 @@
+/**
+ * What the researcher asks the design generator for: the method, the number of tasks and
+ * blocks, the priors on the coded columns (keys from getCodedColumns), and search settings.
+ */
+import { z } from 'zod';
+
+export const designMethodSchema = z.enum(['full_factorial', 'random', 'd_efficient']);
+export type DesignMethod = z.infer<typeof designMethodSchema>;
+
+/** Key of a coded column, e.g. `attr:bill`, `attr:river:good`, `asc:fixed`. */
+const columnKeySchema = z.string().trim().min(1).max(200);
+
+export const fixedPriorColumnSchema = z.object({
+  key: columnKeySchema,
+  mean: z.number().finite(),
+});
+
+export const bayesianPriorColumnSchema = z.object({
+  key: columnKeySchema,
+  mean: z.number().finite(),
+  sd: z.number().finite().min(0, 'A prior SD cannot be negative'),
+});
+
+export const designPriorsSchema = z.discriminatedUnion('kind', [
+  /** β = 0: the D₀ criterion, no dominance can be known. */
+  z.object({ kind: z.literal('zero') }),
+  /** Point priors: one mean per coded column. */
+  z.object({ kind: z.literal('fixed'), columns: z.array(fixedPriorColumnSchema).max(300) }),
+  /** Independent normal priors averaged over quasi-random draws (Bayesian D-error). */
+  z.object({
+    kind: z.literal('bayesian'),
+    columns: z.array(bayesianPriorColumnSchema).max(300),
+    draws: z.number().int().min(10, 'Use at least 10 prior draws').max(5000).default(200),
+  }),
+]);
+export type DesignPriors = z.infer<typeof designPriorsSchema>;
+
+export const designSpecSchema = z
+  .object({
+    method: designMethodSchema,
+    /** Tasks in the whole design; for full_factorial it is implied (one per feasible profile). */
+    tasks: z.number().int().min(1).max(2000).optional(),
+    blocks: z.number().int().min(1).max(50).default(1),
+    priors: designPriorsSchema.default({ kind: 'zero' }),
+    /** Random starts of the coordinate exchange (d_efficient only). */
+    starts: z.number().int().min(1).max(100).default(5),
+    seed: z.number().int().min(0).max(2147483647).default(1),
+    /** Maximum coordinate-exchange passes per start (d_efficient only). */
+    maxIterations: z.number().int().min(1).max(1000).default(50),
+  })
+  .superRefine((spec, ctx) => {
+    if (spec.method !== 'full_factorial' && spec.tasks === undefined)
+      ctx.addIssue({ code: 'custom', path: ['tasks'], message: 'Give the number of tasks' });
+    if (spec.tasks !== undefined && spec.tasks % spec.blocks !== 0)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['blocks'],
+        message: 'The number of tasks must be a multiple of the number of blocks',
+      });
+  });
+export type DesignSpec = z.infer<typeof designSpecSchema>;
+export type DesignSpecInput = z.input<typeof designSpecSchema>;

@@ -9,9 +9,8 @@
  * information matrix becomes non-singular, then under the exact criterion.
  */
 import type { CodingPlan } from '../../../shared/engine/coding/coding-plan';
-import { codeAlternativeIndices } from '../../../shared/engine/coding/code-alternative';
 import { isAlternativeValidInTask, type DesignConstraints } from './design-constraints';
-import { createDirectEvaluator, type DirectEvaluator } from './direct-evaluator';
+import { createTaskEvaluator, type TaskEvaluator } from './task-evaluator';
 import { buildDesignMatrix, getRowsPerTask, type LevelGrid } from './design-grid';
 
 export interface ExchangeOptions {
@@ -36,25 +35,22 @@ function runPasses(
   plan: CodingPlan,
   c: DesignConstraints,
   grid: LevelGrid,
-  x: Float64Array,
-  evaluator: DirectEvaluator,
+  evaluator: TaskEvaluator,
   value: number,
   ridge: number,
   options: ExchangeOptions,
   passOffset: number,
 ): { value: number; passes: number } {
   const { S, J, A } = grid;
-  const K = plan.columnCount;
-  const Jt = getRowsPerTask(plan);
   let passes = 0;
   for (let pass = 1; passOffset + pass <= options.maxPasses; pass++) {
     let improved = false;
     value = evaluator.reset(ridge);
     for (let s = 0; s < S; s++) {
       evaluator.beginTask(s);
+      let taskChanged = false;
       for (let j = 0; j < J; j++) {
         const cell = (s * J + j) * A;
-        const row = (s * Jt + j) * K;
         for (let a = 0; a < A; a++) {
           options.signal?.throwIfAborted();
           const current = grid.levels[cell + a];
@@ -65,21 +61,22 @@ function runPasses(
             if (l === current) continue;
             grid.levels[cell + a] = l;
             if (!isAlternativeValidInTask(c, grid, s, j)) continue;
-            codeAlternativeIndices(plan, j, grid.levels, cell, x, row);
-            const candidate = evaluator.evaluateTask(s, value * (1 - MIN_RELATIVE_GAIN));
-            if (candidate < value * (1 - MIN_RELATIVE_GAIN)) {
+            const bound = value * (1 - MIN_RELATIVE_GAIN);
+            const candidate = evaluator.evaluateChange(s, j, a, current, l, bound);
+            if (candidate < bound) {
               value = candidate;
               best = l;
             }
           }
           grid.levels[cell + a] = best;
-          codeAlternativeIndices(plan, j, grid.levels, cell, x, row);
           if (best !== current) {
             improved = true;
-            evaluator.commitTask(s);
+            taskChanged = true;
+            evaluator.commitChange(s, j, a, current, best);
           }
         }
       }
+      if (taskChanged) evaluator.endTask(s);
     }
     passes = pass;
     options.onPass?.(passOffset + pass, value);
@@ -102,14 +99,7 @@ export function improveByCoordinateExchange(
 ): ExchangeResult {
   const grid: LevelGrid = { ...start, levels: start.levels.slice() };
   const x = buildDesignMatrix(plan, grid);
-  const evaluator = createDirectEvaluator({
-    K: plan.columnCount,
-    S: grid.S,
-    Jt: getRowsPerTask(plan),
-    x,
-    draws,
-    R,
-  });
+  const evaluator = createTaskEvaluator(plan, grid.S, x, draws, R);
   const startValue = evaluator.reset(0);
   let value = startValue;
   let passes = 0;
@@ -117,15 +107,24 @@ export function improveByCoordinateExchange(
     // Scale the ridge to the information's size so it only breaks ties among singular designs.
     const ridge =
       1e-6 * Math.max(1e-12, getMeanDiagonal(plan.columnCount, grid.S, x, getRowsPerTask(plan)));
-    const phase = runPasses(plan, constraints, grid, x, evaluator, Infinity, ridge, options, 0);
+    const phase = runPasses(plan, constraints, grid, evaluator, Infinity, ridge, options, 0);
     passes = phase.passes;
     value = evaluator.reset(0);
   }
   if (value < Infinity) {
-    const phase = runPasses(plan, constraints, grid, x, evaluator, value, 0, options, passes);
+    const phase = runPasses(plan, constraints, grid, evaluator, value, 0, options, passes);
     passes += phase.passes;
-    value = phase.value;
   }
+  // Recompute from scratch: the running value carries rounding of the incremental updates,
+  // and a start is returned unchanged if rounding ever made the search drift upward.
+  value = evaluator.reset(0);
+  if (!(value <= startValue))
+    return {
+      grid: { ...start, levels: start.levels.slice() },
+      value: startValue,
+      startValue,
+      passes,
+    };
   return { grid, value, startValue, passes };
 }
 

@@ -1,38 +1,39 @@
 /**
  * Inverse of a symmetric positive-definite K × K matrix through its Cholesky factor
  * (Golub & Van Loan, *Matrix Computations*, 4th ed., §4.2): A = LL', A⁻¹ = L'⁻¹L⁻¹.
- * Returns false (leaving `out` unspecified) when A is singular to working precision.
- * `work` needs K² entries.
+ * Reads the lower triangle of `a`; writes the full symmetric inverse into `out`. Returns
+ * log det A, or −Infinity (leaving `out` unspecified) when A is singular to working
+ * precision. `work` needs K² entries.
  */
 import { getCholeskyLogDet } from './cholesky-log-det';
 
 export function invertSpd(
   K: number,
   a: Float64Array,
+  aOffset: number,
   out: Float64Array,
+  outOffset: number,
   work: Float64Array,
-): boolean {
-  if (getCholeskyLogDet(K, a, 0, work) === -Infinity) return false;
-  // out := L⁻¹ (lower triangular) by forward substitution, column by column.
-  out.fill(0, 0, K * K);
-  for (let c = 0; c < K; c++) {
-    for (let i = c; i < K; i++) {
-      let s = i === c ? 1 : 0;
-      for (let k = c; k < i; k++) s -= work[i * K + k] * out[k * K + c];
-      out[i * K + c] = s / work[i * K + i];
+): number {
+  const logDet = getCholeskyLogDet(K, a, aOffset, work);
+  if (logDet === -Infinity) return logDet;
+  // work := L⁻¹ in place (lower triangular), column by column from the right.
+  for (let i = 0; i < K; i++) {
+    const rowI = i * K;
+    work[rowI + i] = 1 / work[rowI + i];
+    for (let c = 0; c < i; c++) {
+      let s = 0;
+      for (let k = c; k < i; k++) s -= work[rowI + k] * work[k * K + c];
+      work[rowI + c] = s * work[rowI + i];
     }
   }
-  // A⁻¹ = (L⁻¹)' L⁻¹; fill the lower triangle then mirror, reusing `work` as scratch.
+  // A⁻¹ = (L⁻¹)' L⁻¹.
   for (let i = 0; i < K; i++)
     for (let j = 0; j <= i; j++) {
       let s = 0;
-      for (let k = i; k < K; k++) s += out[k * K + i] * out[k * K + j];
-      work[i * K + j] = s;
+      for (let k = i; k < K; k++) s += work[k * K + i] * work[k * K + j];
+      out[outOffset + i * K + j] = s;
+      out[outOffset + j * K + i] = s;
     }
-  for (let i = 0; i < K; i++)
-    for (let j = 0; j <= i; j++) {
-      out[i * K + j] = work[i * K + j];
-      out[j * K + i] = work[i * K + j];
-    }
-  return true;
+  return logDet;
 }

@@ -45,7 +45,9 @@ describe('fillScrambledHalton', () => {
     // permutation maps cells onto cells. Indices 1..9 are used here.
     const out = new Float64Array(2 * 9);
     fillScrambledHalton(9, 2, out, { skip: 0, seed: 3 });
-    const cells = new Set(Array.from({ length: 9 }, (_, r) => Math.floor(out[r * 2 + 1] * 9 + 1e-9)));
+    const cells = new Set(
+      Array.from({ length: 9 }, (_, r) => Math.floor(out[r * 2 + 1] * 9 + 1e-9)),
+    );
     expect(cells.size).toBe(9);
   });
 

@@ -76,7 +76,7 @@ export function diagnoseDesign(
   const info = new Float64Array(K * K);
   computeInformationMatrix(K, S, Jt, x, means, info, new Float64Array(Jt * (K + 1) + K));
   const covariance = new Float64Array(K * K);
-  const invertible = invertSpd(K, info, covariance, new Float64Array(K * K));
+  const invertible = invertSpd(K, info, 0, covariance, 0, new Float64Array(K * K)) > -Infinity;
 
   const probabilities = new Float64Array(Jt);
   const choiceProbabilities = design.tasks.map((task, s) => {

@@ -2,9 +2,11 @@
  * Halton sequences (J. H. Halton, "On the efficiency of certain quasi-random sequences of
  * points in evaluating multi-dimensional integrals", Numer. Math. 2:84-90, 1960): dimension d
  * uses the radical inverse of the point index in the d-th prime base. The scrambled variant
- * permutes the digits 1..b−1 of every expansion with one seeded random permutation per
- * dimension (0 stays 0 so expansions stay finite), the digit-permutation idea Bhat (2003,
- * Transportation Research B 37:837-855) applied to break the correlation of high bases.
+ * is random digit scrambling: every digit position j of every dimension gets its own seeded
+ * random permutation of 0..b−1, applied to all digits down to double precision, including
+ * the trailing zeros (Matoušek 1998, J. Complexity 14:527-556; the digit-permutation idea
+ * Bhat 2003, Transportation Research B 37:837-855, used to break the correlation of high
+ * bases). It keeps the stratification of the sequence and makes base 2 random too.
  */
 import { createPrng } from './prng';
 
@@ -21,39 +23,64 @@ function firstPrimes(count: number): number[] {
 
 /**
  * Radical inverse φ_b(i): the base-b digits of the integer i mirrored around the radix point.
- * With `permutation`, each digit d is replaced by permutation[d] first.
  */
-export function radicalInverse(index: number, base: number, permutation?: Int32Array): number {
+export function radicalInverse(index: number, base: number): number {
   let result = 0;
   let factor = 1 / base;
   let i = index;
   while (i > 0) {
     const digit = i % base;
-    result += (permutation ? permutation[digit] : digit) * factor;
+    result += digit * factor;
     i = (i - digit) / base;
     factor /= base;
   }
   return result;
 }
 
+/** Per-dimension scrambling tables: `digits` positions × `base` entries, row-major. */
+export interface HaltonScramble {
+  base: number;
+  digits: number;
+  permutations: Int32Array;
+}
+
 /**
- * Seeded digit permutations for Halton dimensions 1..dimensions (Fisher-Yates shuffle of
- * 1..b−1 with 0 fixed).
+ * Seeded random digit permutations for Halton dimensions 1..dimensions, one permutation of
+ * 0..b−1 per digit position (Fisher-Yates), as many positions as resolve 2^−53.
  */
-export function createHaltonPermutations(dimensions: number, seed: number): Int32Array[] {
+export function createHaltonScrambles(dimensions: number, seed: number): HaltonScramble[] {
   const prng = createPrng(seed, 0x4a17);
-  const permutations: Int32Array[] = [];
+  const scrambles: HaltonScramble[] = [];
   for (let d = 0; d < dimensions; d++) {
     const base = HALTON_PRIMES[d];
-    const perm = new Int32Array(base);
-    for (let k = 0; k < base; k++) perm[k] = k;
-    for (let k = base - 1; k > 1; k--) {
-      const j = 1 + (prng.nextUint32() % k);
-      const tmp = perm[k];
-      perm[k] = perm[j];
-      perm[j] = tmp;
+    const digits = Math.ceil((53 * Math.LN2) / Math.log(base));
+    const permutations = new Int32Array(digits * base);
+    for (let j = 0; j < digits; j++) {
+      const o = j * base;
+      for (let k = 0; k < base; k++) permutations[o + k] = k;
+      for (let k = base - 1; k > 0; k--) {
+        const m = prng.nextUint32() % (k + 1);
+        const tmp = permutations[o + k];
+        permutations[o + k] = permutations[o + m];
+        permutations[o + m] = tmp;
+      }
     }
-    permutations.push(perm);
+    scrambles.push({ base, digits, permutations });
   }
-  return permutations;
+  return scrambles;
+}
+
+/** Scrambled radical inverse of `index`, strictly inside (0, 1). */
+export function scrambledRadicalInverse(index: number, scramble: HaltonScramble): number {
+  const { base, digits, permutations } = scramble;
+  let result = 0;
+  let factor = 1 / base;
+  let i = index;
+  for (let j = 0; j < digits; j++) {
+    const digit = i % base;
+    result += permutations[j * base + digit] * factor;
+    i = (i - digit) / base;
+    factor /= base;
+  }
+  return result <= 0 ? 2 ** -53 : result >= 1 ? 1 - 2 ** -53 : result;
 }

@@ -6,7 +6,12 @@
  * 2009 §9.3.3); MLHS is the modified Latin hypercube of Hess, Train & Polak (2006,
  * Transportation Research B 40:147-163); `random` is the seeded xoshiro128** generator.
  */
-import { createHaltonPermutations, HALTON_PRIMES, radicalInverse } from './halton';
+import {
+  createHaltonScrambles,
+  HALTON_PRIMES,
+  radicalInverse,
+  scrambledRadicalInverse,
+} from './halton';
 import { createPrng } from './prng';
 import { createSobolDirections, SOBOL_MAX_DIMENSIONS, sobolInteger } from './sobol';
 
@@ -53,13 +58,16 @@ export function fillUniformDraws(
   }
   const scrambled = spec.scrambled ?? true;
   if (spec.type === 'halton') {
-    const perms = scrambled ? createHaltonPermutations(D, spec.seed) : undefined;
+    const scrambles = scrambled ? createHaltonScrambles(D, spec.seed) : null;
     forEachSlot(
       firstRespondent,
       respondentCount,
       D,
       R,
-      (n, d, r) => radicalInverse(HALTON_SKIP + n * R + r + 1, HALTON_PRIMES[d], perms?.[d]),
+      (n, d, r) =>
+        scrambles
+          ? scrambledRadicalInverse(HALTON_SKIP + n * R + r + 1, scrambles[d])
+          : radicalInverse(HALTON_SKIP + n * R + r + 1, HALTON_PRIMES[d]),
       out,
     );
   } else if (spec.type === 'sobol') {

@@ -1,5 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { createHaltonPermutations, radicalInverse } from '../../../server/engine/draws/halton';
+import {
+  createHaltonScrambles,
+  radicalInverse,
+  scrambledRadicalInverse,
+} from '../../../server/engine/draws/halton';
 
 describe('radicalInverse (Halton 1960)', () => {
   // Values: REFERENCES.md §3.3 [R] (independent documents), first ten points after 0.
@@ -15,20 +19,30 @@ describe('radicalInverse (Halton 1960)', () => {
     expected.forEach((value, i) => expect(radicalInverse(i + 1, base)).toBeCloseTo(value, 15));
   });
 
-  it('with a permutation keeps every point of a full cycle distinct (a permutation of the digits)', () => {
-    const [p2, p3, p5] = createHaltonPermutations(3, 7);
-    expect(p2[0]).toBe(0);
-    const points = Array.from({ length: 125 }, (_, i) => radicalInverse(i, 5, p5));
-    expect(new Set(points.map((x) => x.toFixed(12))).size).toBe(125);
-    expect(p3[0]).toBe(0);
-    expect([...p5].sort()).toEqual([0, 1, 2, 3, 4]);
+  it('scrambling keeps the stratification: b^m consecutive points fill the b^m strata once', () => {
+    // Random digit scrambling permutes digits position by position, so the first m digits of
+    // points 0..b^m−1 stay a permutation of all m-digit strings (Matoušek 1998).
+    const [s2, s3, s5] = createHaltonScrambles(3, 7);
+    for (const [scramble, m] of [
+      [s2, 7],
+      [s3, 4],
+      [s5, 3],
+    ] as const) {
+      const cells = scramble.base ** m;
+      const strata = Array.from({ length: cells }, (_, i) =>
+        Math.floor(scrambledRadicalInverse(i, scramble) * cells),
+      );
+      expect(new Set(strata).size).toBe(cells);
+    }
   });
 
-  it('scrambling is seeded: the same seed gives the same permutations, another seed differs', () => {
-    const a = createHaltonPermutations(10, 1);
-    const b = createHaltonPermutations(10, 1);
-    const c = createHaltonPermutations(10, 2);
-    expect(a.map((p) => [...p])).toEqual(b.map((p) => [...p]));
-    expect(a.map((p) => [...p])).not.toEqual(c.map((p) => [...p]));
+  it('scrambling is seeded: the same seed gives the same points, another seed differs, base 2 included', () => {
+    const a = createHaltonScrambles(3, 1);
+    const b = createHaltonScrambles(3, 1);
+    const c = createHaltonScrambles(3, 2);
+    const points = (s: ReturnType<typeof createHaltonScrambles>) =>
+      s.map((x) => scrambledRadicalInverse(11, x));
+    expect(points(a)).toEqual(points(b));
+    points(a).forEach((u, d) => expect(u).not.toBe(points(c)[d]));
   });
 });

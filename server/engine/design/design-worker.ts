@@ -1,0 +1,41 @@
+/**
+ * Piscina worker entry for design jobs: validates the message shape, runs the pure
+ * generateDesign (which validates definition and spec itself), posts progress on the task's
+ * port, and returns a tagged result so DesignError codes survive the thread boundary.
+ * Cancellation: the caller aborts piscina's `run` (its `signal` option), which ends the
+ * thread; the engine's own AbortSignal is for in-process use.
+ */
+import { MessagePort } from 'node:worker_threads';
+import { z } from 'zod';
+import { DesignError } from './design-errors';
+import type { DesignProgressMessage, DesignWorkerResult } from './design-worker-messages';
+import { generateDesign } from './generate-design';
+
+const taskSchema = z.object({
+  definition: z.unknown(),
+  spec: z.unknown(),
+  port: z.instanceof(MessagePort).optional(),
+});
+
+export default function runDesignTask(message: unknown): DesignWorkerResult {
+  const parsed = taskSchema.safeParse(message);
+  if (!parsed.success)
+    return { ok: false, error: { code: 'invalid_spec', message: 'Malformed design job message' } };
+  const { definition, spec, port } = parsed.data;
+  try {
+    const result = generateDesign(definition, spec, {
+      onProgress: (progress) =>
+        port?.postMessage({ type: 'progress', progress } satisfies DesignProgressMessage),
+    });
+    return { ok: true, result };
+  } catch (error) {
+    if (error instanceof DesignError)
+      return {
+        ok: false,
+        error: { code: error.code, message: error.message, fields: error.fields },
+      };
+    throw error;
+  } finally {
+    port?.close();
+  }
+}

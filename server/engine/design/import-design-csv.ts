@@ -1,0 +1,207 @@
+/**
+ * Reads a design CSV written by exportDesignCsv (or by hand in the same layout) and reports
+ * every problem with its row number (1 = header), column and message instead of stopping at
+ * the first: missing or unknown columns, bad numbers, unknown levels, tasks whose
+ * alternative count differs from the study's, blocks not 1..B, prohibited combinations and
+ * duplicate alternatives. Level cells match the level label (trimmed, case-insensitive) or,
+ * for numeric attributes, the numeric value.
+ */
+import { parse } from 'csv-parse/sync';
+import type { Design } from '../../../shared/schemas/design';
+import type { StudyDefinition } from '../../../shared/schemas/study-definition';
+
+export interface CsvRowError {
+  row: number;
+  column: string | null;
+  message: string;
+}
+
+export type DesignCsvImport = { ok: true; design: Design } | { ok: false; errors: CsvRowError[] };
+
+const MAX_ERRORS = 200;
+
+function findLevelId(
+  definition: StudyDefinition,
+  attributeIndex: number,
+  cell: string,
+): string | undefined {
+  const attribute = definition.attributes[attributeIndex];
+  const text = cell.trim();
+  const byLabel = attribute.levels.find((l) => l.label.trim().toLowerCase() === text.toLowerCase());
+  if (byLabel) return byLabel.id;
+  if (attribute.kind === 'numeric' && text !== '' && Number.isFinite(Number(text)))
+    return attribute.levels.find((l) => l.value === Number(text))?.id;
+  return undefined;
+}
+
+function readTasks(definition: StudyDefinition, records: string[][], errors: CsvRowError[]) {
+  const header = records[0].map((h) => h.trim());
+  const column = (name: string) => header.findIndex((h) => h.toLowerCase() === name.toLowerCase());
+  const fixed = ['block', 'task', 'alternative'].map(column);
+  const attributeColumns = definition.attributes.map((a) => column(a.name));
+  ['block', 'task', 'alternative'].forEach((name, i) => {
+    if (fixed[i] < 0) errors.push({ row: 1, column: name, message: `Missing column "${name}"` });
+  });
+  definition.attributes.forEach((a, i) => {
+    if (attributeColumns[i] < 0)
+      errors.push({ row: 1, column: a.name, message: `Missing column "${a.name}"` });
+  });
+  const known = new Set([
+    'block',
+    'task',
+    'alternative',
+    ...definition.attributes.map((a) => a.name.toLowerCase()),
+  ]);
+  header.forEach((h) => {
+    if (!known.has(h.toLowerCase()))
+      errors.push({ row: 1, column: h, message: `Unknown column "${h}"` });
+  });
+  if (errors.length > 0) return null;
+  const tasks = new Map<
+    number,
+    {
+      block: number;
+      row: number;
+      alternatives: Map<number, { row: number; levels: Record<string, string> }>;
+    }
+  >();
+  records.slice(1).forEach((record, i) => {
+    const row = i + 2;
+    const int = (name: string, index: number) => {
+      const value = Number((record[index] ?? '').trim());
+      if (!Number.isInteger(value) || value < 1) {
+        errors.push({
+          row,
+          column: name,
+          message: `"${record[index] ?? ''}" is not a whole number ≥ 1`,
+        });
+        return null;
+      }
+      return value;
+    };
+    const [block, taskNo, alt] = [
+      int('block', fixed[0]),
+      int('task', fixed[1]),
+      int('alternative', fixed[2]),
+    ];
+    const levels: Record<string, string> = {};
+    definition.attributes.forEach((attribute, a) => {
+      const cell = record[attributeColumns[a]] ?? '';
+      const omitted =
+        definition.alternatives.labeled &&
+        alt !== null &&
+        definition.alternatives.labels[alt - 1]?.omittedAttributeIds.includes(attribute.id);
+      if (omitted) return;
+      const levelId = findLevelId(definition, a, cell);
+      if (levelId === undefined)
+        errors.push({
+          row,
+          column: attribute.name,
+          message: `"${cell}" is not a level of ${attribute.name}`,
+        });
+      else levels[attribute.id] = levelId;
+    });
+    if (block === null || taskNo === null || alt === null) return;
+    const task = tasks.get(taskNo) ?? { block, row, alternatives: new Map() };
+    if (task.block !== block)
+      errors.push({
+        row,
+        column: 'block',
+        message: `Task ${taskNo} is already in block ${task.block}`,
+      });
+    if (task.alternatives.has(alt))
+      errors.push({
+        row,
+        column: 'alternative',
+        message: `Task ${taskNo} has alternative ${alt} twice`,
+      });
+    task.alternatives.set(alt, { row, levels });
+    tasks.set(taskNo, task);
+  });
+  return tasks;
+}
+
+function checkTask(
+  definition: StudyDefinition,
+  taskNo: number,
+  task: { row: number; alternatives: Map<number, { row: number; levels: Record<string, string> }> },
+  errors: CsvRowError[],
+): void {
+  const J = definition.alternatives.count;
+  const numbers = [...task.alternatives.keys()].sort((p, q) => p - q);
+  if (numbers.length !== J || numbers.some((n, i) => n !== i + 1)) {
+    errors.push({
+      row: task.row,
+      column: 'alternative',
+      message: `Task ${taskNo} needs alternatives 1..${J}, found ${numbers.join(', ')}`,
+    });
+    return;
+  }
+  const seen = new Map<string, number>();
+  for (const n of numbers) {
+    const { row, levels } = task.alternatives.get(n)!;
+    for (const p of definition.prohibitions)
+      if (levels[p.a.attributeId] === p.a.levelId && levels[p.b.attributeId] === p.b.levelId)
+        errors.push({
+          row,
+          column: null,
+          message: `Prohibited combination in task ${taskNo}, alternative ${n}`,
+        });
+    const key = JSON.stringify(definition.attributes.map((a) => levels[a.id] ?? null));
+    if (seen.has(key))
+      errors.push({
+        row,
+        column: null,
+        message: `Task ${taskNo}: alternative ${n} repeats alternative ${seen.get(key)}`,
+      });
+    else seen.set(key, n);
+  }
+}
+
+/** Parses a design CSV against a study definition; see the file comment. */
+export function importDesignCsv(definition: StudyDefinition, text: string): DesignCsvImport {
+  let records: string[][];
+  try {
+    records = parse(text, {
+      bom: true,
+      skip_empty_lines: true,
+      relax_column_count: true,
+      trim: false,
+    }) as string[][];
+  } catch (error) {
+    const line = (error as { lines?: number }).lines ?? 1;
+    return { ok: false, errors: [{ row: line, column: null, message: (error as Error).message }] };
+  }
+  if (records.length < 2)
+    return {
+      ok: false,
+      errors: [{ row: 1, column: null, message: 'The file has no design rows' }],
+    };
+  const errors: CsvRowError[] = [];
+  const tasks = readTasks(definition, records, errors);
+  if (tasks) for (const [taskNo, task] of tasks) checkTask(definition, taskNo, task, errors);
+  const blocks = tasks ? Math.max(...[...tasks.values()].map((t) => t.block)) : 0;
+  if (tasks && blocks > 50) errors.push({ row: 1, column: 'block', message: 'At most 50 blocks' });
+  if (tasks)
+    for (let b = 1; b <= blocks; b++)
+      if (![...tasks.values()].some((t) => t.block === b))
+        errors.push({
+          row: 1,
+          column: 'block',
+          message: `Block ${b} has no tasks (blocks must run 1..${blocks})`,
+        });
+  if (errors.length > 0 || !tasks) return { ok: false, errors: errors.slice(0, MAX_ERRORS) };
+  const design: Design = {
+    blocks,
+    tasks: [...tasks.entries()]
+      .sort((p, q) => p[0] - q[0])
+      .map(([taskNo, task]) => ({
+        block: task.block,
+        task: taskNo,
+        alternatives: [...task.alternatives.entries()]
+          .sort((p, q) => p[0] - q[0])
+          .map(([, a]) => ({ levels: a.levels })),
+      })),
+  };
+  return { ok: true, design };
+}

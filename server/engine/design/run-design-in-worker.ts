@@ -1,0 +1,51 @@
+/**
+ * Runs design jobs on piscina worker threads. The worker file is TypeScript; threads start
+ * with `--import <tsx loader>` resolved from this package, so it works whether the parent
+ * runs under tsx, vitest or plain node (checked by tests/engine/design/design-worker.test.ts).
+ *
+ *   const pool = createDesignPool({ maxThreads: 1 });
+ *   const out = await runDesignInWorker(pool, { definition, spec }, { onProgress, signal });
+ *   await pool.destroy();
+ */
+import { createRequire } from 'node:module';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import { MessageChannel } from 'node:worker_threads';
+import { Piscina } from 'piscina';
+import type { DesignProgress } from './generate-design';
+import type { DesignProgressMessage, DesignWorkerResult } from './design-worker-messages';
+
+const WORKER_FILE = fileURLToPath(new URL('./design-worker.ts', import.meta.url));
+
+/** A pool of design worker threads (default 1: design jobs are CPU-bound and sequential). */
+export function createDesignPool(options: { maxThreads?: number } = {}): Piscina {
+  const tsxLoader = pathToFileURL(createRequire(import.meta.url).resolve('tsx')).href;
+  return new Piscina({
+    filename: WORKER_FILE,
+    execArgv: ['--import', tsxLoader],
+    minThreads: 0,
+    maxThreads: options.maxThreads ?? 1,
+  });
+}
+
+/**
+ * Runs one job; progress arrives through `onProgress`; aborting `signal` rejects with
+ * piscina's AbortError and ends the thread.
+ */
+export async function runDesignInWorker(
+  pool: Piscina,
+  job: { definition: unknown; spec: unknown },
+  hooks: { onProgress?: (progress: DesignProgress) => void; signal?: AbortSignal } = {},
+): Promise<DesignWorkerResult> {
+  const channel = new MessageChannel();
+  channel.port1.on('message', (message: DesignProgressMessage) => {
+    if (message?.type === 'progress') hooks.onProgress?.(message.progress);
+  });
+  try {
+    return (await pool.run(
+      { ...job, port: channel.port2 },
+      { transferList: [channel.port2], signal: hooks.signal },
+    )) as DesignWorkerResult;
+  } finally {
+    channel.port1.close();
+  }
+}

@@ -1,0 +1,88 @@
+/**
+ * Street–Burgess optimality at β = 0 (Street & Burgess 2007, *The Construction of Optimal
+ * Stated Choice Experiments*; REFERENCES §2.2, formula [M], values [C]).
+ */
+import { describe, expect, it } from 'vitest';
+import { buildCodingPlan } from '../../../shared/engine/coding/coding-plan';
+import {
+  computeStreetBurgessEfficiency,
+  getMaxDifferingPairs,
+  getStreetBurgessOptimalDet,
+} from '../../../server/engine/design/diagnostics/street-burgess';
+import { generateDesign } from '../../../server/engine/design/generate-design';
+import { makeCheckAGrid, makeFoldoverGrid, makeSymmetricDefinition } from './design-fixtures';
+
+describe('getStreetBurgessOptimalDet', () => {
+  it('gives 2^(−k²) for two-level pairs, k = 3: 1/512 (Check B)', () => {
+    expect(getStreetBurgessOptimalDet([2, 2, 2], 2)).toBeCloseTo(1 / 512, 17);
+  });
+
+  it('gives (8/72)^3 = 1/729 for three two-level attributes in triples (Check C)', () => {
+    // REFERENCES §2.2 Check C [C]: 0.0013717421124828531.
+    expect(getStreetBurgessOptimalDet([2, 2, 2], 3)).toBeCloseTo(0.0013717421124828531, 17);
+  });
+
+  it('gives 3^(−18) for 3^3 in triples (Check D)', () => {
+    // REFERENCES §2.2 Check D [C]: 2.581174791713197e−09.
+    expect(getStreetBurgessOptimalDet([3, 3, 3], 3) / 2.581174791713197e-9).toBeCloseTo(1, 13);
+  });
+
+  it('counts differing pairs S_q as in REFERENCES §2.2', () => {
+    expect(getMaxDifferingPairs(2, 2)).toBe(1); // m²/4
+    expect(getMaxDifferingPairs(2, 3)).toBe(2); // (m² − 1)/4
+    expect(getMaxDifferingPairs(4, 3)).toBe(3); // l ≥ m: m(m − 1)/2
+    expect(getMaxDifferingPairs(3, 5)).toBe(8); // 5 = 3·1 + 2: (25 − (3 + 4 + 2))/2
+  });
+});
+
+describe('computeStreetBurgessEfficiency', () => {
+  it('finds C = I/8 and 100 % for the fold-over of the 2^3 OMEP (Check B)', () => {
+    const plan = buildCodingPlan(makeSymmetricDefinition([2, 2, 2], 2));
+    const result = computeStreetBurgessEfficiency(plan, makeFoldoverGrid())!;
+    // REFERENCES §2.2 Check B [C]: det C = 1/512 = 0.001953125, efficiency 1.0.
+    expect(result.detC).toBeCloseTo(0.001953125, 15);
+    expect(result.efficiency).toBeCloseTo(1, 12);
+  });
+
+  it('finds det C = 3^(−18), 100 %, for the Check-A design (Check D)', () => {
+    const plan = buildCodingPlan(makeSymmetricDefinition([3, 3, 3], 3));
+    const result = computeStreetBurgessEfficiency(plan, makeCheckAGrid())!;
+    expect(result.detC / 2.581174791713197e-9).toBeCloseTo(1, 12);
+    expect(result.efficiency).toBeCloseTo(1, 12);
+  });
+
+  it('does not apply when the study has an opt-out', () => {
+    const plan = buildCodingPlan(
+      makeSymmetricDefinition([2, 2, 2], 2, 'effects', {
+        fixedAlternative: { kind: 'opt_out', label: 'Neither', levels: {} },
+      }),
+    );
+    expect(computeStreetBurgessEfficiency(plan, makeFoldoverGrid())).toBeNull();
+  });
+});
+
+describe('coordinate exchange reaches the Street–Burgess optimum', () => {
+  it.each([1, 2, 3])('3 two-level attributes in 4 pairs, zero priors (seed %i)', (seed) => {
+    const { diagnostics } = generateDesign(makeSymmetricDefinition([2, 2, 2], 2), {
+      method: 'd_efficient',
+      tasks: 4,
+      starts: 5,
+      seed,
+    });
+    // Optimum from Street & Burgess (Check B): efficiency 1; D₀ = det(I)^(−1/3) with
+    // I = 4·C·L/… -> at β = 0 with ±1 coding I = X'X over 4 fold-over pairs = 4·I₃, D₀ = 1/4.
+    expect(diagnostics.dEfficiency!.efficiency).toBeCloseTo(1, 10);
+    expect(diagnostics.dErrorZero).toBeCloseTo(0.25, 12);
+  });
+
+  it('reaches 100 % on 3^3 in triples with 9 tasks (Check D optimum)', () => {
+    const { diagnostics } = generateDesign(makeSymmetricDefinition([3, 3, 3], 3), {
+      method: 'd_efficient',
+      tasks: 9,
+      starts: 5,
+      seed: 4,
+    });
+    expect(diagnostics.dEfficiency!.efficiency).toBeCloseTo(1, 10);
+    expect(diagnostics.dErrorZero).toBeCloseTo(0.19245008972987526, 12);
+  });
+});

@@ -1,0 +1,139 @@
+import { describe, expect, it } from 'vitest';
+import { buildChoiceData } from '../../../server/engine/estimation/build-choice-data';
+import { EstimationCancelledError } from '../../../server/engine/estimation/estimation-errors';
+import {
+  fitMixedLogit,
+  type EstimationProgress,
+} from '../../../server/engine/estimation/fit-mixed-logit';
+import {
+  simulatePanelChoices,
+  type TrueCoefficient,
+} from '../../../server/engine/estimation/simulate-panel-choices';
+
+const truth: TrueCoefficient[] = [
+  { name: 'quality', distribution: 'normal', location: 1.0, spread: 0.8 },
+  { name: 'comfort', distribution: 'fixed', location: 0.5 },
+  {
+    name: 'price',
+    distribution: 'neg_lognormal',
+    location: -0.5,
+    spread: 0.6,
+    levels: [0, 1, 2, 3],
+  },
+];
+const coefficients = truth.map(({ name, distribution }) => ({ name, distribution }));
+
+describe('fitMixedLogit', () => {
+  const sim = simulatePanelChoices({
+    respondents: 400,
+    tasks: 10,
+    alternatives: 3,
+    coefficients: truth,
+    seed: 77,
+  });
+  const { data } = buildChoiceData(sim.columns, sim.rows);
+
+  it('recovers known parameters (normal + neg_lognormal cost) within two standard errors', async () => {
+    // "Within two SEs" is common practice, no source.
+    const progress: EstimationProgress[] = [];
+    const fit = await fitMixedLogit(
+      data,
+      { coefficients, draws: { count: 200 } },
+      { onProgress: (p) => progress.push(p) },
+    );
+    expect(fit.converged).toBe(true);
+    expect(fit.names).toEqual(['quality.mean', 'comfort', 'price.mean', 'quality.sd', 'price.sd']);
+    const trueTheta = [1.0, 0.5, -0.5, 0.8, 0.6];
+    trueTheta.forEach((value, p) => {
+      expect(Math.abs(fit.estimates[p] - value)).toBeLessThan(2 * fit.se[p]);
+      expect(fit.robustSe[p]).toBeGreaterThan(0);
+    });
+    expect(fit.loglik).toBeGreaterThan(fit.loglikMnl);
+    expect(fit.loglik).toBeGreaterThan(fit.loglikNull);
+    expect(fit.rho2).toBeCloseTo(1 - fit.loglik / fit.loglikNull, 12);
+    expect(fit.hitRate).toBeGreaterThan(1 / 3);
+    expect(progress.length).toBe(fit.iterations);
+    expect(progress.map((p) => p.iteration)).toEqual(progress.map((_, i) => i + 1));
+    // BFGS with a sufficient-decrease line search never lowers the LL between iterations.
+    for (let i = 1; i < progress.length; i++)
+      expect(progress[i].loglik).toBeGreaterThanOrEqual(progress[i - 1].loglik);
+  });
+
+  it('gives the same estimates on 2 worker threads as in-process (threads only split the sum)', async () => {
+    const small = buildChoiceData(
+      sim.columns,
+      sim.rows.filter((r) => Number(r.respondent) <= 60),
+    ).data;
+    const options = { coefficients, draws: { count: 50 } };
+    const one = await fitMixedLogit(small, options);
+    const two = await fitMixedLogit(small, { ...options, threads: 2 });
+    expect(two.loglik).toBeCloseTo(one.loglik, 6);
+    one.estimates.forEach((v, p) => expect(two.estimates[p]).toBeCloseTo(v, 4));
+    one.robustSe.forEach((v, p) => expect(two.robustSe[p]).toBeCloseTo(v, 4));
+  });
+
+  it('runs several starts and keeps the best', async () => {
+    const small = buildChoiceData(
+      sim.columns,
+      sim.rows.filter((r) => Number(r.respondent) <= 60),
+    ).data;
+    const fit = await fitMixedLogit(small, { coefficients, draws: { count: 50 }, starts: 3 });
+    expect(fit.starts).toHaveLength(3);
+    expect(fit.loglik).toBe(Math.max(...fit.starts.map((s) => s.loglik)));
+  });
+
+  it('stops with EstimationCancelledError when the signal fires', async () => {
+    const controller = new AbortController();
+    const run = fitMixedLogit(
+      data,
+      { coefficients, draws: { count: 50 } },
+      { signal: controller.signal, onProgress: () => controller.abort() },
+    );
+    await expect(run).rejects.toBeInstanceOf(EstimationCancelledError);
+  });
+
+  it('is deterministic for a given seed and changes with another seed', async () => {
+    const small = buildChoiceData(
+      sim.columns,
+      sim.rows.filter((r) => Number(r.respondent) <= 40),
+    ).data;
+    const a = await fitMixedLogit(small, { coefficients, draws: { count: 30, seed: 5 } });
+    const b = await fitMixedLogit(small, { coefficients, draws: { count: 30, seed: 5 } });
+    const c = await fitMixedLogit(small, { coefficients, draws: { count: 30, seed: 6 } });
+    expect([...b.estimates]).toEqual([...a.estimates]);
+    expect(c.loglik).not.toBe(a.loglik);
+  });
+
+  it.each(['sobol', 'mlhs', 'random'] as const)('fits with %s draws', async (type) => {
+    const small = buildChoiceData(
+      sim.columns,
+      sim.rows.filter((r) => Number(r.respondent) <= 60),
+    ).data;
+    const fit = await fitMixedLogit(small, { coefficients, draws: { type, count: 50 } });
+    expect(fit.draws.type).toBe(type);
+    expect(Number.isFinite(fit.loglik)).toBe(true);
+    expect(fit.se.every((s) => s > 0)).toBe(true);
+  });
+
+  it('fits correlated normals and names the Cholesky elements', async () => {
+    const corrTruth: TrueCoefficient[] = [
+      { name: 'a', distribution: 'normal', location: 0.8, spread: 0.5 },
+      { name: 'b', distribution: 'normal', location: -0.6, spread: 0.5 },
+      { name: 'price', distribution: 'fixed', location: -0.7 },
+    ];
+    const s = simulatePanelChoices({
+      respondents: 150,
+      tasks: 8,
+      alternatives: 3,
+      coefficients: corrTruth,
+      seed: 3,
+    });
+    const fit = await fitMixedLogit(buildChoiceData(s.columns, s.rows).data, {
+      coefficients: corrTruth.map(({ name, distribution }) => ({ name, distribution })),
+      correlated: true,
+      draws: { count: 100 },
+    });
+    expect(fit.names).toEqual(['a.mean', 'b.mean', 'price', 'chol.a.a', 'chol.b.a', 'chol.b.b']);
+    expect(fit.converged).toBe(true);
+  });
+});

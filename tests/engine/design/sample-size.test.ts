@@ -1,0 +1,74 @@
+/**
+ * Sample-size guide: REFERENCES §2.4 Check F [C] (S-estimate, Rose & Bliemer 2013 [M
+ * formula]; power version, de Bekker-Grob et al. 2015 [M formula]) and the Johnson–Orme
+ * rule of thumb (REFERENCES §2.4, from memory [M]; examples [C]).
+ */
+import { describe, expect, it } from 'vitest';
+import { diagnoseDesign } from '../../../server/engine/design/diagnostics/diagnose-design';
+import { getJohnsonOrmeSampleSize } from '../../../server/engine/design/diagnostics/sample-size';
+import { buildCodingPlan } from '../../../shared/engine/coding/coding-plan';
+import { writeDesign } from '../../../server/engine/design/design-grid';
+import { buildDesignMatrix } from '../../../server/engine/design/design-grid';
+import { computeInformationMatrix } from '../../../server/engine/design/mnl-information';
+import { makeFoldoverGrid, makeSymmetricDefinition } from './design-fixtures';
+
+describe('S-estimate (Check F)', () => {
+  const definition = makeSymmetricDefinition([2, 2, 2], 2);
+  const plan = buildCodingPlan(definition);
+  const grid = makeFoldoverGrid();
+  const design = writeDesign(plan, grid, new Int32Array(4).fill(1), 1);
+  const priors = {
+    kind: 'fixed' as const,
+    columns: plan.columns.map((c) => ({ key: c.key, mean: 0.3 })),
+  };
+
+  it('has the one-replication information of REFERENCES §2.4', () => {
+    const info = new Float64Array(9);
+    const x = buildDesignMatrix(plan, grid);
+    computeInformationMatrix(
+      3,
+      4,
+      2,
+      x,
+      Float64Array.of(0.3, 0.3, 0.3),
+      info,
+      new Float64Array(11),
+    );
+    // Check F [C]: diag(I1) = 3.232328, off-diagonal −0.428220 (6 decimals quoted).
+    expect(info[0]).toBeCloseTo(3.232328, 6);
+    expect(info[1]).toBeCloseTo(-0.42822, 6);
+  });
+
+  it('gives se₁ = 0.5678208, N = 13.762 -> 14 at t = 1.96 and 28.118 -> 29 at 80 % power', () => {
+    const { sampleSize } = diagnoseDesign(definition, design, priors);
+    const first = sampleSize.coefficients[0];
+    expect(first.standardErrorOne).toBeCloseTo(0.5678208, 7);
+    expect(first.replicationsForT).toBeCloseTo(13.762, 3);
+    expect(first.replicationsForPower).toBeCloseTo(28.118, 3);
+    expect(sampleSize.sEstimateReplications).toBe(14);
+    expect(sampleSize.sEstimateRespondents).toBe(14);
+    expect(sampleSize.powerRespondents).toBe(29);
+  });
+
+  it('multiplies replications by the number of blocks for respondents', () => {
+    const blocked = writeDesign(plan, grid, Int32Array.of(1, 2, 1, 2), 2);
+    expect(diagnoseDesign(definition, blocked, priors).sampleSize.sEstimateRespondents).toBe(28);
+  });
+
+  it('has no S-estimate under zero priors (t-ratio of a zero coefficient never grows)', () => {
+    const { sampleSize } = diagnoseDesign(definition, design);
+    expect(sampleSize.sEstimateReplications).toBeNull();
+    expect(sampleSize.coefficients.every((c) => c.replicationsForT === null)).toBe(true);
+  });
+});
+
+describe('getJohnsonOrmeSampleSize (rule of thumb, from memory)', () => {
+  it.each([
+    // REFERENCES §2.4 examples [C]: 500·c/(t·a) rounded up.
+    [4, 8, 3, 84],
+    [5, 12, 2, 105],
+    [3, 10, 3, 50],
+  ])('c = %i, t = %i, a = %i -> %i', (c, t, a, n) => {
+    expect(getJohnsonOrmeSampleSize(c, t, a)).toBe(n);
+  });
+});

@@ -30,7 +30,7 @@ export interface WtpEstimate {
   /** Delta-method interval estimate ± z·se. */
   deltaLower: number;
   deltaUpper: number;
-  /** Krinsky-Robb percentile interval. */
+  /** Krinsky-Robb percentile interval (NaN if the covariance is not positive definite). */
   lower: number;
   upper: number;
 }
@@ -94,13 +94,10 @@ function krinskyRobb(
 ): Float64Array[] {
   const { P, K } = layout;
   const L = new Float64Array(P * P);
-  if (!choleskyDecompose(covariance, P, L))
-    throw new EstimationOptionsError(
-      'the covariance matrix is not positive definite',
-      'covariance',
-    );
-  const prng = createPrng(seed, 0x6b72);
   const out = Array.from({ length: K }, () => new Float64Array(draws));
+  // Without a positive-definite covariance there is no sampling distribution: intervals NaN.
+  if (!choleskyDecompose(covariance, P, L)) return out.map((a) => a.fill(NaN));
+  const prng = createPrng(seed, 0x6b72);
   const e = new Float64Array(P);
   const x = new Float64Array(P);
   for (let d = 0; d < draws; d++) {

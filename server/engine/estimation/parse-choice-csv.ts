@@ -1,0 +1,77 @@
+/**
+ * Reads long-format choice data from CSV text: one row per alternative with the columns
+ * respondent, task, alt, chosen (0/1), optionally holdout (0/1), and numeric attribute
+ * columns. Only the attribute columns a model needs are parsed, so extra text columns are
+ * allowed. Errors name the line (the header is line 1) and the column.
+ */
+import { parse } from 'csv-parse/sync';
+import { ChoiceDataError, type LongChoiceRow } from './choice-data';
+
+const REQUIRED = ['respondent', 'task', 'alt', 'chosen'] as const;
+
+/** Parses the CSV and returns rows with `values` in the order of `columns`. */
+export function parseChoiceCsv(text: string, columns: readonly string[]): LongChoiceRow[] {
+  let records: string[][];
+  try {
+    records = parse(text, {
+      skip_empty_lines: true,
+      trim: true,
+      relax_column_count: false,
+    }) as string[][];
+  } catch (error) {
+    throw new ChoiceDataError(`the CSV cannot be read: ${(error as Error).message}`);
+  }
+  if (records.length < 2)
+    throw new ChoiceDataError('the CSV needs a header line and at least one data line');
+  const header = records[0];
+  const index = (name: string) => header.indexOf(name);
+  for (const name of REQUIRED) {
+    if (index(name) < 0)
+      throw new ChoiceDataError(`the CSV header has no column "${name}"`, 1, name);
+  }
+  for (const name of columns) {
+    if (index(name) < 0)
+      throw new ChoiceDataError(
+        `the CSV header has no column "${name}" named in the specification`,
+        1,
+        name,
+      );
+  }
+  const holdoutAt = index('holdout');
+  const at = columns.map(index);
+  const [respondentAt, taskAt, altAt, chosenAt] = REQUIRED.map(index);
+  return records.slice(1).map((record, i) => {
+    const line = i + 2;
+    const numberAt = (col: number, name: string): number => {
+      const raw = record[col];
+      const value = raw === '' ? NaN : Number(raw);
+      if (!Number.isFinite(value))
+        throw new ChoiceDataError(
+          `line ${line}: column ${name} is not a number ("${raw}")`,
+          line,
+          name,
+        );
+      return value;
+    };
+    for (const [col, name] of [
+      [respondentAt, 'respondent'],
+      [taskAt, 'task'],
+      [altAt, 'alt'],
+    ] as const) {
+      if (record[col] === '')
+        throw new ChoiceDataError(`line ${line}: column ${name} is empty`, line, name);
+    }
+    const holdout = holdoutAt >= 0 ? numberAt(holdoutAt, 'holdout') : 0;
+    if (holdout !== 0 && holdout !== 1)
+      throw new ChoiceDataError(`line ${line}: holdout must be 0 or 1`, line, 'holdout');
+    return {
+      respondent: record[respondentAt],
+      task: record[taskAt],
+      alt: record[altAt],
+      chosen: numberAt(chosenAt, 'chosen'),
+      holdout: holdout === 1,
+      values: at.map((col, k) => numberAt(col, columns[k])),
+      line,
+    };
+  });
+}

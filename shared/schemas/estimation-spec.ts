@@ -1,0 +1,180 @@
+/**
+ * What an estimation run is asked to fit (the specification of a Run) and the shape of its
+ * result. Shared by the CLI (scripts/estimate.ts), the job runner and the web app.
+ */
+import { z } from 'zod';
+
+export const coefficientDistributionSchema = z.enum([
+  'fixed',
+  'normal',
+  'lognormal',
+  'neg_lognormal',
+  'triangular',
+  'uniform',
+]);
+export type CoefficientDistributionInput = z.infer<typeof coefficientDistributionSchema>;
+
+export const drawsTypeSchema = z.enum(['halton', 'sobol', 'mlhs', 'random']);
+
+const nameSchema = z
+  .string()
+  .trim()
+  .min(1, 'A name is required')
+  .max(100)
+  .regex(/^[A-Za-z_][A-Za-z0-9_.-]*$/, 'Use letters, digits, _ . - and start with a letter or _');
+
+export const coefficientSpecSchema = z.object({
+  name: nameSchema,
+  /** Data column of the attribute; defaults to the coefficient name. */
+  column: z.string().trim().min(1).max(200).optional(),
+  distribution: coefficientDistributionSchema.default('fixed'),
+});
+
+export const estimationSpecSchema = z
+  .object({
+    model: z.enum(['mnl', 'mixed']),
+    coefficients: z.array(coefficientSpecSchema).min(1, 'List at least one coefficient').max(100),
+    correlated: z.boolean().default(false),
+    draws: z
+      .object({
+        type: drawsTypeSchema.default('halton'),
+        count: z.number().int().min(10, 'Use at least 10 draws').max(100_000).default(500),
+        seed: z
+          .number()
+          .int()
+          .min(0)
+          .max(2 ** 31 - 1)
+          .default(1),
+      })
+      .prefault({}),
+    /** Draws per respondent for the taste profiles (separate from estimation draws). */
+    profileDraws: z.number().int().min(10).max(100_000).default(2000),
+    /** Name of the cost coefficient for WTP; omit for no WTP. */
+    cost: z.string().trim().min(1).optional(),
+    /** Starting points of the mixed logit (1 = the MNL-based start only). */
+    starts: z.number().int().min(1).max(20).default(1),
+  })
+  .superRefine((spec, ctx) => {
+    const names = spec.coefficients.map((c) => c.name);
+    names.forEach((name, i) => {
+      if (names.indexOf(name) !== i)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['coefficients', i, 'name'],
+          message: `Coefficient name ${name} is used twice`,
+        });
+    });
+    const random = spec.coefficients.filter((c) => c.distribution !== 'fixed');
+    if (spec.model === 'mnl') {
+      spec.coefficients.forEach((c, i) => {
+        if (c.distribution !== 'fixed') {
+          ctx.addIssue({
+            code: 'custom',
+            path: ['coefficients', i, 'distribution'],
+            message: 'An MNL has fixed coefficients only; choose model "mixed" for random ones',
+          });
+        }
+      });
+      if (spec.correlated)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['correlated'],
+          message: 'Correlation needs model "mixed"',
+        });
+    } else if (random.length === 0) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['coefficients'],
+        message: 'A mixed logit needs at least one random coefficient',
+      });
+    }
+    if (
+      spec.correlated &&
+      spec.coefficients.filter((c) => c.distribution === 'normal').length < 2
+    ) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['correlated'],
+        message: 'Correlation needs at least two normal coefficients',
+      });
+    }
+    if (spec.cost !== undefined && !names.includes(spec.cost)) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['cost'],
+        message: `Cost ${spec.cost} is not one of the coefficients`,
+      });
+    }
+  });
+
+export type EstimationSpecInput = z.input<typeof estimationSpecSchema>;
+export type EstimationSpec = z.output<typeof estimationSpecSchema>;
+
+export const parameterEstimateSchema = z.object({
+  name: z.string(),
+  estimate: z.number(),
+  se: z.number().nullable(),
+  robustSe: z.number().nullable(),
+});
+
+export const tasteProfileSchema = z.object({
+  respondent: z.string(),
+  mean: z.record(z.string(), z.number()),
+  sd: z.record(z.string(), z.number()),
+  wtp: z.record(z.string(), z.number()).optional(),
+  effectiveDraws: z.number(),
+});
+
+export const wtpEstimateSchema = z.object({
+  name: z.string(),
+  estimate: z.number(),
+  se: z.number().nullable(),
+  deltaLower: z.number().nullable(),
+  deltaUpper: z.number().nullable(),
+  lower: z.number().nullable(),
+  upper: z.number().nullable(),
+});
+
+export const populationMomentSchema = z.object({
+  name: z.string(),
+  distribution: coefficientDistributionSchema,
+  mean: z.number(),
+  sd: z.number(),
+  location: z.number(),
+  spread: z.number(),
+});
+
+/** The JSON a run produces (numbers that cannot be computed are null). */
+export const estimationResultSchema = z.object({
+  model: z.enum(['mnl', 'mixed']),
+  loglik: z.number(),
+  loglikNull: z.number(),
+  respondents: z.number().int(),
+  observations: z.number().int(),
+  parameters: z.number().int(),
+  iterations: z.number().int(),
+  converged: z.boolean(),
+  convergence: z.object({
+    reason: z.string(),
+    gradientNorm: z.number(),
+    relativeChange: z.number().nullable(),
+  }),
+  rho2: z.number(),
+  adjRho2: z.number(),
+  aic: z.number(),
+  bic: z.number(),
+  hitRate: z.number(),
+  holdoutHitRate: z.number().nullable(),
+  estimates: z.array(parameterEstimateSchema),
+  population: z.array(populationMomentSchema),
+  wtp: z.array(wtpEstimateSchema).nullable(),
+  individuals: z.array(tasteProfileSchema).nullable(),
+  draws: z
+    .object({ type: drawsTypeSchema, count: z.number().int(), seed: z.number().int() })
+    .nullable(),
+  profileDraws: z
+    .object({ type: drawsTypeSchema, count: z.number().int(), seed: z.number().int() })
+    .nullable(),
+  elapsedSeconds: z.number(),
+});
+export type EstimationResult = z.infer<typeof estimationResultSchema>;

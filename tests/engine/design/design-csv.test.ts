@@ -1,0 +1,129 @@
+/**
+ * Design CSV export and import (layout defined in export-design-csv.ts).
+ */
+import { describe, expect, it } from 'vitest';
+import { exportDesignCsv } from '../../../server/engine/design/export-design-csv';
+import { generateDesign } from '../../../server/engine/design/generate-design';
+import { importDesignCsv } from '../../../server/engine/design/import-design-csv';
+import { makeLarkspurDefinition } from '../coding/fixtures/larkspur-definition';
+
+const definition = makeLarkspurDefinition({
+  prohibitions: [
+    {
+      id: 'p1',
+      a: { attributeId: 'bill', levelId: 'b0' },
+      b: { attributeId: 'river', levelId: 'good' },
+    },
+  ],
+});
+const HEADER =
+  'block,task,alternative,Monthly bill increase,Supply interruptions per year,Taste/odour warning days,River health,Renewable pumping energy';
+
+describe('exportDesignCsv', () => {
+  it('writes one row per alternative with values for numeric and labels for categorical', () => {
+    const csv = exportDesignCsv(definition, {
+      blocks: 1,
+      tasks: [
+        {
+          block: 1,
+          task: 1,
+          alternatives: [
+            { levels: { bill: 'b3', interrupt: 'i2', warn: 'w0', river: 'fair', renew: 'r80' } },
+            { levels: { bill: 'b10', interrupt: 'i1', warn: 'w6', river: 'poor', renew: 'r20' } },
+          ],
+        },
+      ],
+    });
+    expect(csv.trim().split('\n')).toEqual([HEADER, '1,1,1,3,2,0,fair,80', '1,1,2,10,1,6,poor,20']);
+  });
+
+  it('round-trips a generated design through import', () => {
+    const { design } = generateDesign(definition, {
+      method: 'random',
+      tasks: 8,
+      blocks: 2,
+      seed: 4,
+    });
+    const imported = importDesignCsv(definition, exportDesignCsv(definition, design));
+    expect(imported).toEqual({ ok: true, design });
+  });
+});
+
+describe('importDesignCsv', () => {
+  const rows = (...lines: string[]) => [HEADER, ...lines].join('\n');
+
+  it('reports an unknown level with its row and column', () => {
+    const result = importDesignCsv(
+      definition,
+      rows('1,1,1,3,2,0,fair,80', '1,1,2,7,1,6,splendid,20'),
+    );
+    expect(result).toEqual({
+      ok: false,
+      errors: [
+        {
+          row: 3,
+          column: 'Monthly bill increase',
+          message: '"7" is not a level of Monthly bill increase',
+        },
+        { row: 3, column: 'River health', message: '"splendid" is not a level of River health' },
+      ],
+    });
+  });
+
+  it('reports missing and unknown columns on the header row', () => {
+    const result = importDesignCsv(definition, 'block,task,alternative,Colour\n1,1,1,red');
+    expect(result.ok).toBe(false);
+    if (result.ok) return;
+    expect(result.errors.map((e) => [e.row, e.column])).toEqual([
+      [1, 'Monthly bill increase'],
+      [1, 'Supply interruptions per year'],
+      [1, 'Taste/odour warning days'],
+      [1, 'River health'],
+      [1, 'Renewable pumping energy'],
+      [1, 'Colour'],
+    ]);
+  });
+
+  it('reports a task with the wrong number of alternatives', () => {
+    const result = importDesignCsv(definition, rows('1,1,1,3,2,0,fair,80'));
+    expect(result.ok).toBe(false);
+    if (!result.ok) expect(result.errors[0]).toMatchObject({ row: 2, column: 'alternative' });
+  });
+
+  it('reports prohibited combinations and duplicate alternatives', () => {
+    const result = importDesignCsv(
+      definition,
+      rows(
+        '1,1,1,0,2,0,good,80',
+        '1,1,2,3,1,6,poor,20',
+        '1,2,1,3,1,6,poor,20',
+        '1,2,2,3,1,6,poor,20',
+      ),
+    );
+    expect(result.ok).toBe(false);
+    if (result.ok) return;
+    expect(result.errors).toEqual([
+      { row: 2, column: null, message: 'Prohibited combination in task 1, alternative 1' },
+      { row: 5, column: null, message: 'Task 2: alternative 2 repeats alternative 1' },
+    ]);
+  });
+
+  it('reports bad numbers, a task split over blocks and a missing block', () => {
+    const result = importDesignCsv(
+      definition,
+      rows('x,1,1,3,2,0,fair,80', '1,2,1,3,2,0,fair,80', '3,2,2,10,1,6,poor,20'),
+    );
+    expect(result.ok).toBe(false);
+    if (result.ok) return;
+    const messages = result.errors.map((e) => `${e.row}:${e.column}:${e.message}`);
+    expect(messages).toContain('2:block:"x" is not a whole number ≥ 1');
+    expect(messages).toContain('4:block:Task 2 is already in block 1');
+  });
+
+  it('rejects an empty file', () => {
+    expect(importDesignCsv(definition, HEADER)).toEqual({
+      ok: false,
+      errors: [{ row: 1, column: null, message: 'The file has no design rows' }],
+    });
+  });
+});

@@ -108,7 +108,7 @@ describe('importDesignCsv', () => {
     ]);
   });
 
-  it('reports bad numbers, a task split over blocks and a missing block', () => {
+  it('reports bad numbers and a task split over blocks', () => {
     const result = importDesignCsv(
       definition,
       rows('x,1,1,3,2,0,fair,80', '1,2,1,3,2,0,fair,80', '3,2,2,10,1,6,poor,20'),
@@ -118,6 +118,17 @@ describe('importDesignCsv', () => {
     const messages = result.errors.map((e) => `${e.row}:${e.column}:${e.message}`);
     expect(messages).toContain('2:block:"x" is not a whole number ≥ 1');
     expect(messages).toContain('4:block:Task 2 is already in block 1');
+  });
+
+  it('reports a gap in the block numbers', () => {
+    const result = importDesignCsv(
+      definition,
+      rows('1,1,1,3,2,0,fair,80', '1,1,2,10,1,6,poor,20', '3,2,1,3,2,0,fair,80', '3,2,2,10,1,6,poor,20'),
+    );
+    expect(result).toEqual({
+      ok: false,
+      errors: [{ row: 1, column: 'block', message: 'Block 2 has no tasks (blocks must run 1..3)' }],
+    });
   });
 
   it('rejects an empty file', () => {

@@ -116,6 +116,6 @@ export function generateDesign(
   const design = writeDesign(plan, grid, blockOfTask, blocks);
   hooks.onProgress?.({ phase: 'diagnosing', fraction: 0.95 });
   const diagnostics = diagnoseDesign(checked.definition, design, spec.priors, spec.seed);
-  hooks.onProgress?.({ phase: 'done', fraction: 1, bestDError: diagnostics.dError });
+  hooks.onProgress?.({ phase: 'done', fraction: 1, bestDError: diagnostics.dError ?? undefined });
   return { design, diagnostics, spec: { ...spec, tasks: grid.S } };
 }

@@ -1,3 +1,4 @@
+/* eslint-disable no-loss-of-precision -- AS241 coefficients are kept verbatim as published (more digits than a double holds). */
 /**
  * Inverse of the standard normal distribution function, Φ⁻¹(p), by Wichura's algorithm
  * AS241 PPND16 (M. J. Wichura, "Algorithm AS 241: The percentage points of the normal

@@ -102,6 +102,7 @@ export function fitMnl(data: ChoiceData, options: MnlOptions = {}): MnlResult {
   while (iterations < opts.maxIterations && Number.isFinite(ll)) {
     const info = negate(hess);
     const infoInv = invertMatrix(info, K);
+    if (!infoInv && getMaxAbsUtilityDifference(data, beta) > 35) throw separationError(beta, names);
     if (!infoInv)
       throw new NonIdentifiedError(
         `not identified: the information matrix is singular (collinear columns among ${names.join(', ')})`,

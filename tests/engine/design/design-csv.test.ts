@@ -123,7 +123,12 @@ describe('importDesignCsv', () => {
   it('reports a gap in the block numbers', () => {
     const result = importDesignCsv(
       definition,
-      rows('1,1,1,3,2,0,fair,80', '1,1,2,10,1,6,poor,20', '3,2,1,3,2,0,fair,80', '3,2,2,10,1,6,poor,20'),
+      rows(
+        '1,1,1,3,2,0,fair,80',
+        '1,1,2,10,1,6,poor,20',
+        '3,2,1,3,2,0,fair,80',
+        '3,2,2,10,1,6,poor,20',
+      ),
     );
     expect(result).toEqual({
       ok: false,

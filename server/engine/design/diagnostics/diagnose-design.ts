@@ -28,12 +28,17 @@ export interface DesignDiagnostics {
   blocks: number;
   tasksPerBlock: number[];
   priorsKind: DesignPriors['kind'];
-  /** The criterion of the priors kind: D₀, D_p at the means, or Bayesian D_B. */
-  dError: number;
-  dErrorZero: number;
-  /** D_p at the prior means (null for zero priors). */
+  /**
+   * The criterion of the priors kind: D₀, D_p at the means, or Bayesian D_B. All D-errors
+   * are null when the information matrix is singular (D-error +∞), so the object stays
+   * JSON-safe; `identified` says which case applies.
+   */
+  dError: number | null;
+  identified: boolean;
+  dErrorZero: number | null;
+  /** D_p at the prior means (null for zero priors or when singular). */
   dErrorAtMeans: number | null;
-  /** D_B over the prior draws (null unless Bayesian). */
+  /** D_B over the prior draws (null unless Bayesian, or when singular). */
   dErrorBayesian: number | null;
   /** Street–Burgess efficiency at β = 0; null when the reference does not apply. */
   dEfficiency: StreetBurgessEfficiency | null;
@@ -70,6 +75,7 @@ export function diagnoseDesign(
       ? computeBayesianDError(K, S, Jt, x, buildPriorDraws(means, sds, draws, seed), draws)
       : null;
   const dError = dErrorBayesian ?? dErrorAtMeans ?? dErrorZero;
+  const finite = (v: number | null) => (v !== null && Number.isFinite(v) ? v : null);
   if (!Number.isFinite(dError))
     warnings.push('The design cannot identify every parameter (singular information matrix).');
 
@@ -103,10 +109,11 @@ export function diagnoseDesign(
     blocks: design.blocks,
     tasksPerBlock,
     priorsKind: priors.kind,
-    dError,
-    dErrorZero,
-    dErrorAtMeans,
-    dErrorBayesian,
+    dError: finite(dError),
+    identified: Number.isFinite(dError),
+    dErrorZero: finite(dErrorZero),
+    dErrorAtMeans: finite(dErrorAtMeans),
+    dErrorBayesian: finite(dErrorBayesian),
     dEfficiency: computeStreetBurgessEfficiency(plan, grid),
     levelBalance,
     overlap: getAttributeOverlap(definition, grid),

@@ -15,8 +15,8 @@ export interface CoefficientSampleSize {
   key: string;
   name: string;
   prior: number;
-  /** Standard error for one replication of the design, sqrt(Σ₁,kk). */
-  standardErrorOne: number;
+  /** Standard error for one replication of the design, sqrt(Σ₁,kk); null when singular. */
+  standardErrorOne: number | null;
   /** Design replications for |t| = 1.96; null when the prior is 0. */
   replicationsForT: number | null;
   /** Design replications for 80 % power at α = 0.05; null when the prior is 0. */
@@ -72,7 +72,7 @@ export function getSampleSizeGuide(input: {
       key: column.key,
       name: column.name,
       prior: beta,
-      standardErrorOne: Math.sqrt(variance),
+      standardErrorOne: Number.isFinite(variance) ? Math.sqrt(variance) : null,
       replicationsForT: forT,
       replicationsForPower: forPower,
     };

@@ -1,0 +1,308 @@
+import { describe, expect, it } from 'vitest';
+import { fillUniformDraws } from '../../../server/engine/draws/uniform-draws';
+import { buildChoiceData } from '../../../server/engine/estimation/build-choice-data';
+import { checkMixedLogitOptions } from '../../../server/engine/estimation/check-mixed-logit-options';
+import { ChoiceDataError, type LongChoiceRow } from '../../../server/engine/estimation/choice-data';
+import { computeWtp } from '../../../server/engine/estimation/compute-wtp';
+import {
+  EstimationOptionsError,
+  NonIdentifiedError,
+} from '../../../server/engine/estimation/estimation-errors';
+import { checkMnlOptions, fitMnl } from '../../../server/engine/estimation/fit-mnl';
+import { createMixedLogitLayout } from '../../../server/engine/estimation/mixed-logit-layout';
+import { parseChoiceCsv } from '../../../server/engine/estimation/parse-choice-csv';
+import { computeTasteProfiles } from '../../../server/engine/estimation/taste-profiles';
+import { computeGaussHermite } from '../../../server/engine/linalg/gauss-hermite';
+import { estimationSpecSchema } from '../../../shared/schemas/estimation-spec';
+
+const row = (
+  respondent: number,
+  task: number,
+  alt: number,
+  chosen: number,
+  values: number[],
+  holdout = false,
+): LongChoiceRow => ({
+  respondent,
+  task,
+  alt,
+  chosen,
+  values,
+  holdout,
+});
+const pair = (respondent: number, task: number, a: number[], b: number[]): LongChoiceRow[] => [
+  row(respondent, task, 1, 1, a),
+  row(respondent, task, 2, 0, b),
+];
+const good = buildChoiceData(
+  ['x', 'z'],
+  [...pair(1, 1, [1, 0], [0, 1]), ...pair(1, 2, [0, 1], [2, 0]), ...pair(2, 1, [1, 1], [0, 0])],
+).data;
+
+describe('buildChoiceData rejects invalid data', () => {
+  it.each<[string, LongChoiceRow[], RegExp]>([
+    ['no rows', [], /no rows/],
+    [
+      'a task with no chosen alternative',
+      [row(1, 1, 1, 0, [1]), row(1, 1, 2, 0, [0])],
+      /task 1 of respondent 1 \(line 1\) has no chosen alternative/,
+    ],
+    [
+      'a task with two chosen alternatives',
+      [row(1, 1, 1, 1, [1]), row(1, 1, 2, 1, [0])],
+      /has 2 chosen alternatives/,
+    ],
+    ['a task with one alternative', [row(1, 1, 1, 1, [1])], /only one alternative/],
+    [
+      'an alternative listed twice',
+      [row(1, 1, 1, 1, [1]), row(1, 1, 1, 0, [0])],
+      /line 2: alternative 1 appears twice/,
+    ],
+    [
+      'a non-finite value',
+      [row(1, 1, 1, 1, [Number.NaN]), row(1, 1, 2, 0, [0])],
+      /line 1: column x is not a finite number/,
+    ],
+    ['chosen not 0/1', [row(1, 1, 1, 2, [1]), row(1, 1, 2, 0, [0])], /chosen must be 0 or 1/],
+    [
+      'a task mixing holdout and estimation rows',
+      [row(1, 1, 1, 1, [1], true), row(1, 1, 2, 0, [0])],
+      /mixes holdout/,
+    ],
+    [
+      'only holdout tasks',
+      [row(1, 1, 1, 1, [1], true), row(1, 1, 2, 0, [0], true)],
+      /every task is flagged holdout/,
+    ],
+    [
+      'the wrong number of values',
+      [row(1, 1, 1, 1, [1, 2]), row(1, 1, 2, 0, [0])],
+      /expected 1 attribute values, got 2/,
+    ],
+  ])('%s', (_label, rows, message) => {
+    expect(() => buildChoiceData(['x'], rows)).toThrow(ChoiceDataError);
+    expect(() => buildChoiceData(['x'], rows)).toThrow(message);
+  });
+
+  it('no attribute columns', () => {
+    expect(() => buildChoiceData([], [row(1, 1, 1, 1, []), row(1, 1, 2, 0, [])])).toThrow(
+      /at least one attribute column/,
+    );
+  });
+});
+
+describe('parseChoiceCsv rejects invalid files', () => {
+  it.each<[string, string, RegExp]>([
+    ['a missing required column', 'respondent,task,alt,x\n1,1,1,0', /no column "chosen"/],
+    [
+      'a missing attribute column',
+      'respondent,task,alt,chosen\n1,1,1,0',
+      /no column "x" named in the specification/,
+    ],
+    [
+      'an empty respondent',
+      'respondent,task,alt,chosen,x\n,1,1,0,1',
+      /line 2: column respondent is empty/,
+    ],
+    [
+      'a holdout flag other than 0/1',
+      'respondent,task,alt,chosen,x,holdout\n1,1,1,0,1,2',
+      /line 2: holdout must be 0 or 1/,
+    ],
+    ['a header only', 'respondent,task,alt,chosen,x', /at least one data line/],
+    ['ragged lines', 'respondent,task,alt,chosen,x\n1,1,1', /cannot be read/],
+  ])('%s', (_label, text, message) => {
+    expect(() => parseChoiceCsv(text, ['x'])).toThrow(message);
+  });
+});
+
+describe('fitMnl guards', () => {
+  it.each<[string, object, string]>([
+    ['maxIterations 0', { maxIterations: 0 }, 'maxIterations'],
+    ['a negative tolerance', { tolerance: -1 }, 'tolerance'],
+    ['a start of the wrong length', { start: [1] }, 'start'],
+    ['a non-finite start', { start: [1, Number.NaN] }, 'start'],
+  ])('checkMnlOptions rejects %s naming the field', (_label, options, field) => {
+    expect(() => checkMnlOptions(good, options)).toThrow(EstimationOptionsError);
+    try {
+      checkMnlOptions(good, options);
+    } catch (error) {
+      expect((error as EstimationOptionsError).field).toBe(field);
+    }
+  });
+
+  it('rejects holdout data with other columns', () => {
+    const other = buildChoiceData(['y', 'z'], pair(1, 1, [1, 0], [0, 1])).data;
+    expect(() => checkMnlOptions(good, { holdout: other })).toThrow(/same columns/);
+  });
+
+  it('names a column that never varies within any task', () => {
+    const data = buildChoiceData(
+      ['x', 'flat'],
+      [...pair(1, 1, [1, 3], [0, 3]), ...pair(2, 1, [0, 3], [1, 3])],
+    ).data;
+    expect(() => fitMnl(data)).toThrow(NonIdentifiedError);
+    expect(() => fitMnl(data)).toThrow(/flat never varies/);
+  });
+
+  it('detects collinear columns', () => {
+    const data = buildChoiceData(
+      ['x', 'twice_x'],
+      [...pair(1, 1, [1, 2], [0, 0]), ...pair(2, 1, [0, 0], [1, 2]), ...pair(3, 1, [2, 4], [0, 0])],
+    ).data;
+    expect(() => fitMnl(data)).toThrow(/singular/);
+  });
+
+  it('detects perfect prediction (separation): the chosen alternative always has the larger x', () => {
+    const rows = [1, 2, 3, 4].flatMap((n) => pair(n, 1, [n], [0]));
+    expect(() => fitMnl(buildChoiceData(['x'], rows).data)).toThrow(/perfect prediction/);
+  });
+});
+
+describe('checkMixedLogitOptions rejects invalid options before any numerics', () => {
+  const base = {
+    coefficients: [
+      { name: 'x', distribution: 'normal' as const },
+      { name: 'z', distribution: 'fixed' as const },
+    ],
+  };
+  it.each<[string, object, RegExp]>([
+    [
+      'no random coefficient',
+      { coefficients: [{ name: 'x', distribution: 'fixed' }] },
+      /at least one random coefficient/,
+    ],
+    [
+      'an unknown column',
+      { coefficients: [{ name: 'time', distribution: 'normal' }] },
+      /column time is not in the data/,
+    ],
+    [
+      'a duplicate name',
+      {
+        coefficients: [
+          { name: 'x', distribution: 'normal' },
+          { name: 'x', column: 'z', distribution: 'fixed' },
+        ],
+      },
+      /used twice/,
+    ],
+    [
+      'an unknown distribution',
+      { coefficients: [{ name: 'x', distribution: 'gamma' }] },
+      /unknown distribution gamma/,
+    ],
+    [
+      'correlation with one normal',
+      { ...base, correlated: true },
+      /at least two normal coefficients/,
+    ],
+    ['zero draws', { ...base, draws: { count: 0 } }, /draws.count/],
+    ['a non-integer seed', { ...base, draws: { seed: 1.5 } }, /draws.seed/],
+    ['an unknown draws type', { ...base, draws: { type: 'lattice' } }, /unknown draws type/],
+    ['zero threads', { ...base, threads: 0 }, /threads/],
+    ['zero starts', { ...base, starts: 0 }, /starts/],
+    ['a start of the wrong length', { ...base, start: [1, 2] }, /start must have 3 values/],
+    ['a negative gradient tolerance', { ...base, gradientTolerance: -1 }, /gradientTolerance/],
+    ['no coefficient list', { coefficients: 'x' }, /coefficients must be a list/],
+  ])('%s', (_label, options, message) => {
+    expect(() => checkMixedLogitOptions(good, options as never)).toThrow(EstimationOptionsError);
+    expect(() => checkMixedLogitOptions(good, options as never)).toThrow(message);
+  });
+});
+
+describe('post-estimation guards', () => {
+  const layout = createMixedLogitLayout(
+    good,
+    [
+      { name: 'x', distribution: 'normal' },
+      { name: 'z', distribution: 'fixed' },
+    ],
+    false,
+  );
+  const cov = Float64Array.from([0.1, 0, 0, 0, 0.1, 0, 0, 0, 0.1]);
+  it.each<[string, object, RegExp]>([
+    ['an unknown cost', { cost: 'price' }, /cost coefficient price/],
+    ['a coverage level of 1', { cost: 'z', level: 1 }, /level/],
+    ['too few Krinsky-Robb draws', { cost: 'z', draws: 10 }, /draws/],
+  ])('computeWtp rejects %s', (_label, options, message) => {
+    expect(() => computeWtp(layout, [1, -1, 0.5], cov, options as never)).toThrow(message);
+  });
+
+  it('computeTasteProfiles rejects zero draws, an unknown cost and a θ of the wrong length', () => {
+    expect(() => computeTasteProfiles(good, layout, [1, -1, 0.5], { count: 0 })).toThrow(
+      /profile draws/,
+    );
+    expect(() => computeTasteProfiles(good, layout, [1, -1, 0.5], { cost: 'price' })).toThrow(
+      /cost coefficient price/,
+    );
+    expect(() => computeTasteProfiles(good, layout, [1, -1], {})).toThrow(
+      /theta must have 3 values/,
+    );
+  });
+
+  it('fillUniformDraws rejects a short buffer and computeGaussHermite a zero order', () => {
+    expect(() =>
+      fillUniformDraws(
+        { type: 'halton', count: 10, dimensions: 2, seed: 1 },
+        0,
+        1,
+        new Float64Array(5),
+      ),
+    ).toThrow(/too small/);
+    expect(() => computeGaussHermite(0)).toThrow(RangeError);
+  });
+});
+
+describe('estimationSpecSchema', () => {
+  const issuePaths = (input: unknown) => {
+    const parsed = estimationSpecSchema.safeParse(input);
+    return parsed.success ? [] : parsed.error.issues.map((i) => i.path.join('.'));
+  };
+  it('fills the documented defaults', () => {
+    const spec = estimationSpecSchema.parse({
+      model: 'mixed',
+      coefficients: [{ name: 'time', distribution: 'normal' }],
+    });
+    expect(spec).toMatchObject({
+      correlated: false,
+      draws: { type: 'halton', count: 500, seed: 1 },
+      profileDraws: 2000,
+      starts: 1,
+    });
+  });
+  it.each<[string, unknown, string]>([
+    [
+      'an MNL with a random coefficient',
+      { model: 'mnl', coefficients: [{ name: 'time', distribution: 'normal' }] },
+      'coefficients.0.distribution',
+    ],
+    [
+      'a mixed logit without random coefficients',
+      { model: 'mixed', coefficients: [{ name: 'time' }] },
+      'coefficients',
+    ],
+    [
+      'a duplicate name',
+      { model: 'mnl', coefficients: [{ name: 'a' }, { name: 'a' }] },
+      'coefficients.1.name',
+    ],
+    [
+      'correlation without two normals',
+      { model: 'mixed', correlated: true, coefficients: [{ name: 'a', distribution: 'normal' }] },
+      'correlated',
+    ],
+    [
+      'too few draws',
+      {
+        model: 'mixed',
+        coefficients: [{ name: 'a', distribution: 'normal' }],
+        draws: { count: 2 },
+      },
+      'draws.count',
+    ],
+    ['an unknown model', { model: 'probit', coefficients: [{ name: 'a' }] }, 'model'],
+  ])('rejects %s at the field', (_label, input, path) => {
+    expect(issuePaths(input)).toContain(path);
+  });
+});

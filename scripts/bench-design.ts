@@ -114,6 +114,6 @@ if (process.argv.includes('--json')) {
     `  time            ${seconds.toFixed(2)} s  (target < 10 s; ${figures.cpus} cores shared, load ${figures.loadAverage1m})`,
   );
   console.log(
-    `  Bayesian D-error ${figures.dError.toFixed(6)}   (D0 ${figures.dErrorZero.toFixed(6)})`,
+    `  Bayesian D-error ${(figures.dError ?? Infinity).toFixed(6)}   (D0 ${(figures.dErrorZero ?? Infinity).toFixed(6)})`,
   );
 }

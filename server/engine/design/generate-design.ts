@@ -8,6 +8,7 @@
 import type { Design } from '../../../shared/schemas/design';
 import type { DesignSpec } from '../../../shared/schemas/design-spec';
 import { assignBlocks } from './assign-blocks';
+import { DesignError } from './design-errors';
 import { checkDesignSpec, type CheckedDesignSpec } from './check-design-spec';
 import { improveByCoordinateExchange } from './coordinate-exchange';
 import { buildDesignConstraints } from './design-constraints';
@@ -17,6 +18,9 @@ import { buildShiftedGrid, listFullFactorial } from './full-factorial';
 import { buildPriorDraws } from './prior-draws';
 import { generateRandomGrid } from './random-design';
 import { createSeededRandom, type SeededRandom } from './seeded-random';
+
+/** Largest number of tasks a design may hold (shared/schemas/design.ts). */
+const MAX_DESIGN_TASKS = 2000;
 
 export interface DesignProgress {
   phase: 'building' | 'searching' | 'blocking' | 'diagnosing' | 'done';
@@ -81,6 +85,24 @@ function searchDEfficient(
   return best!;
 }
 
+/** A full factorial has one task per feasible profile; a given task count must agree. */
+function assertFullFactorialTasks(count: number, spec: DesignSpec): void {
+  if (count > MAX_DESIGN_TASKS)
+    throw new DesignError(
+      'too_large',
+      `The full factorial has ${count} feasible profiles; a design holds at most ${MAX_DESIGN_TASKS} tasks.`,
+      { method: 'Too many profiles for a full factorial' },
+    );
+  if (spec.tasks !== undefined && spec.tasks !== count)
+    throw new DesignError(
+      'invalid_spec',
+      `The full factorial has ${count} tasks, not ${spec.tasks}`,
+      {
+        tasks: `The full factorial has ${count} tasks`,
+      },
+    );
+}
+
 /** Generates a design; see the file comment. Throws DesignError for bad or infeasible requests. */
 export function generateDesign(
   definition: unknown,
@@ -105,6 +127,7 @@ export function generateDesign(
       grid = generateRandomGrid(plan, constraints, spec.tasks!, random);
     } else {
       const { profiles, count } = listFullFactorial(plan, constraints);
+      assertFullFactorialTasks(count, spec);
       grid = buildShiftedGrid(plan, constraints, profiles, count);
     }
   }

@@ -99,6 +99,26 @@ describe('checkDesignSpec', () => {
   });
 });
 
+describe('generateDesign full-factorial size', () => {
+  it('refuses a task count that differs from the number of feasible profiles', () => {
+    const error = catchDesignError(() =>
+      generateDesign(makeSymmetricDefinition([3, 3], 2), {
+        method: 'full_factorial',
+        tasks: 6,
+        blocks: 2,
+      }),
+    );
+    expect(error.fields!.tasks).toBe('The full factorial has 9 tasks');
+  });
+
+  it('refuses a full factorial with more profiles than a design may hold', () => {
+    const def = makeSymmetricDefinition([12, 12, 12, 2], 2); // 3456 profiles
+    expect(catchDesignError(() => generateDesign(def, { method: 'full_factorial' })).code).toBe(
+      'too_large',
+    );
+  });
+});
+
 describe('generateDesign infeasible requests', () => {
   it('says so when prohibitions leave no valid alternatives', () => {
     const def = makeSymmetricDefinition([2, 2], 2, 'effects', {

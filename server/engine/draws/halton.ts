@@ -42,6 +42,8 @@ export interface HaltonScramble {
   base: number;
   digits: number;
   permutations: Int32Array;
+  /** tail[j] = Σ_{m ≥ j} π_m(0)·b^−(m+1): the value of all-zero digits from position j on. */
+  tail: Float64Array;
 }
 
 /**
@@ -65,22 +67,28 @@ export function createHaltonScrambles(dimensions: number, seed: number): HaltonS
         permutations[o + m] = tmp;
       }
     }
-    scrambles.push({ base, digits, permutations });
+    const tail = new Float64Array(digits + 1);
+    for (let j = digits - 1; j >= 0; j--)
+      tail[j] = tail[j + 1] + permutations[j * base] * base ** -(j + 1);
+    scrambles.push({ base, digits, permutations, tail });
   }
   return scrambles;
 }
 
 /** Scrambled radical inverse of `index`, strictly inside (0, 1). */
 export function scrambledRadicalInverse(index: number, scramble: HaltonScramble): number {
-  const { base, digits, permutations } = scramble;
+  const { base, digits, permutations, tail } = scramble;
   let result = 0;
   let factor = 1 / base;
   let i = index;
-  for (let j = 0; j < digits; j++) {
+  let j = 0;
+  for (; i > 0 && j < digits; j++) {
     const digit = i % base;
     result += permutations[j * base + digit] * factor;
     i = (i - digit) / base;
     factor /= base;
   }
+  // The remaining digits of the index are zeros; their permuted values are precomputed.
+  result += tail[j];
   return result <= 0 ? 2 ** -53 : result >= 1 ? 1 - 2 ** -53 : result;
 }

@@ -1,7 +1,7 @@
 /**
  * Fused multiply-accumulate of several strided streams into one:
  *   out[o + r] (=|+=) Σ_i coef[i] · src[offs[i] + r],  r = 0..length−1.
- * Summing up to four sources per pass loads and stores `out` once per four terms instead of
+ * Summing up to eight sources per pass loads and stores `out` once per pass instead of
  * once per term (the loop fusion of BLAS-style kernels; cf. stdlib-js daxpy), which halves
  * the memory traffic of the utility and gradient loops of the mixed-logit kernel.
  */
@@ -22,8 +22,50 @@ export function fusedAxpy(
   let i = 0;
   let first = assign;
   while (i < count) {
-    const m = Math.min(4, count - i);
-    if (m === 4) {
+    const m = count - i >= 8 ? 8 : Math.min(4, count - i);
+    if (m === 8) {
+      const c0 = coef[i],
+        c1 = coef[i + 1],
+        c2 = coef[i + 2],
+        c3 = coef[i + 3];
+      const c4 = coef[i + 4],
+        c5 = coef[i + 5],
+        c6 = coef[i + 6],
+        c7 = coef[i + 7];
+      const s0 = offs[i],
+        s1 = offs[i + 1],
+        s2 = offs[i + 2],
+        s3 = offs[i + 3];
+      const s4 = offs[i + 4],
+        s5 = offs[i + 5],
+        s6 = offs[i + 6],
+        s7 = offs[i + 7];
+      if (first) {
+        for (let r = 0; r < length; r++) {
+          out[o + r] =
+            c0 * src[s0 + r] +
+            c1 * src[s1 + r] +
+            c2 * src[s2 + r] +
+            c3 * src[s3 + r] +
+            c4 * src[s4 + r] +
+            c5 * src[s5 + r] +
+            c6 * src[s6 + r] +
+            c7 * src[s7 + r];
+        }
+      } else {
+        for (let r = 0; r < length; r++) {
+          out[o + r] +=
+            c0 * src[s0 + r] +
+            c1 * src[s1 + r] +
+            c2 * src[s2 + r] +
+            c3 * src[s3 + r] +
+            c4 * src[s4 + r] +
+            c5 * src[s5 + r] +
+            c6 * src[s6 + r] +
+            c7 * src[s7 + r];
+        }
+      }
+    } else if (m === 4) {
       const c0 = coef[i],
         c1 = coef[i + 1],
         c2 = coef[i + 2],

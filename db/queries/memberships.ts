@@ -1,0 +1,101 @@
+import { and, asc, count, eq } from 'drizzle-orm';
+import type { DbOrTx } from '../client';
+import { memberships, teams, users } from '../schema/accounts';
+import type { Role } from '../../shared/permissions';
+
+export async function getMembership(db: DbOrTx, params: { teamId: string; userId: string }) {
+  const [row] = await db
+    .select({ teamId: memberships.teamId, userId: memberships.userId, role: memberships.role })
+    .from(memberships)
+    .where(and(eq(memberships.teamId, params.teamId), eq(memberships.userId, params.userId)));
+  return row ?? null;
+}
+
+export async function listTeamsOfUser(db: DbOrTx, params: { userId: string }) {
+  return db
+    .select({ id: teams.id, name: teams.name, role: memberships.role, createdAt: teams.createdAt })
+    .from(memberships)
+    .innerJoin(teams, eq(teams.id, memberships.teamId))
+    .where(eq(memberships.userId, params.userId))
+    .orderBy(asc(teams.createdAt));
+}
+
+export async function listMembers(db: DbOrTx, params: { teamId: string }) {
+  return db
+    .select({
+      userId: users.id,
+      email: users.email,
+      name: users.name,
+      role: memberships.role,
+      joinedAt: memberships.createdAt,
+    })
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(eq(memberships.teamId, params.teamId))
+    .orderBy(asc(memberships.createdAt));
+}
+
+export async function insertTeam(db: DbOrTx, params: { name: string }) {
+  const [row] = await db
+    .insert(teams)
+    .values({ name: params.name })
+    .returning({ id: teams.id, name: teams.name });
+  return row;
+}
+
+export async function getTeamById(db: DbOrTx, params: { id: string }) {
+  const [row] = await db
+    .select({ id: teams.id, name: teams.name })
+    .from(teams)
+    .where(eq(teams.id, params.id));
+  return row ?? null;
+}
+
+export async function updateTeam(db: DbOrTx, params: { id: string; name: string }) {
+  const [row] = await db
+    .update(teams)
+    .set({ name: params.name })
+    .where(eq(teams.id, params.id))
+    .returning({ id: teams.id, name: teams.name });
+  return row ?? null;
+}
+
+export async function insertMembership(
+  db: DbOrTx,
+  params: { teamId: string; userId: string; role: Role },
+) {
+  const [row] = await db
+    .insert(memberships)
+    .values(params)
+    .onConflictDoNothing()
+    .returning({ teamId: memberships.teamId, userId: memberships.userId, role: memberships.role });
+  return row ?? null;
+}
+
+export async function updateMembershipRole(
+  db: DbOrTx,
+  params: { teamId: string; userId: string; role: Role },
+) {
+  const [row] = await db
+    .update(memberships)
+    .set({ role: params.role })
+    .where(and(eq(memberships.teamId, params.teamId), eq(memberships.userId, params.userId)))
+    .returning({ teamId: memberships.teamId, userId: memberships.userId, role: memberships.role });
+  return row ?? null;
+}
+
+export async function deleteMembership(db: DbOrTx, params: { teamId: string; userId: string }) {
+  const rows = await db
+    .delete(memberships)
+    .where(and(eq(memberships.teamId, params.teamId), eq(memberships.userId, params.userId)))
+    .returning({ userId: memberships.userId });
+  return rows.length > 0;
+}
+
+export async function countOwners(db: DbOrTx, params: { teamId: string }) {
+  const [row] = await db
+    .select({ n: count() })
+    .from(memberships)
+    .where(and(eq(memberships.teamId, params.teamId), eq(memberships.role, 'owner')));
+  return Number(row?.n ?? 0);
+}

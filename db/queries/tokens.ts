@@ -1,0 +1,113 @@
+/** Team invitations and password resets: one-time tokens stored as hashes. */
+import { and, eq, gt, isNull } from 'drizzle-orm';
+import type { DbOrTx } from '../client';
+import { passwordResets, teamInvitations, teams, users } from '../schema/accounts';
+import type { Role } from '../../shared/permissions';
+
+const invitationColumns = {
+  id: teamInvitations.id,
+  teamId: teamInvitations.teamId,
+  email: teamInvitations.email,
+  role: teamInvitations.role,
+  expiresAt: teamInvitations.expiresAt,
+  acceptedAt: teamInvitations.acceptedAt,
+  revokedAt: teamInvitations.revokedAt,
+  createdAt: teamInvitations.createdAt,
+};
+
+export async function insertInvitation(
+  db: DbOrTx,
+  params: {
+    teamId: string;
+    email: string;
+    role: Role;
+    tokenHash: string;
+    invitedBy: string;
+    expiresAt: Date;
+  },
+) {
+  const [row] = await db.insert(teamInvitations).values(params).returning(invitationColumns);
+  return row;
+}
+
+export async function listOpenInvitations(db: DbOrTx, params: { teamId: string; now: Date }) {
+  return db
+    .select(invitationColumns)
+    .from(teamInvitations)
+    .where(
+      and(
+        eq(teamInvitations.teamId, params.teamId),
+        isNull(teamInvitations.acceptedAt),
+        isNull(teamInvitations.revokedAt),
+        gt(teamInvitations.expiresAt, params.now),
+      ),
+    );
+}
+
+export async function getInvitationByTokenHash(db: DbOrTx, params: { tokenHash: string }) {
+  const [row] = await db
+    .select({ ...invitationColumns, teamName: teams.name, invitedBy: users.name })
+    .from(teamInvitations)
+    .innerJoin(teams, eq(teams.id, teamInvitations.teamId))
+    .leftJoin(users, eq(users.id, teamInvitations.invitedBy))
+    .where(eq(teamInvitations.tokenHash, params.tokenHash));
+  return row ?? null;
+}
+
+/** Marks an invitation accepted only if it still is open: the one-time guarantee. */
+export async function markInvitationAccepted(db: DbOrTx, params: { id: string; now: Date }) {
+  const rows = await db
+    .update(teamInvitations)
+    .set({ acceptedAt: params.now })
+    .where(
+      and(
+        eq(teamInvitations.id, params.id),
+        isNull(teamInvitations.acceptedAt),
+        isNull(teamInvitations.revokedAt),
+        gt(teamInvitations.expiresAt, params.now),
+      ),
+    )
+    .returning({ id: teamInvitations.id });
+  return rows.length > 0;
+}
+
+export async function revokeInvitation(
+  db: DbOrTx,
+  params: { id: string; teamId: string; now: Date },
+) {
+  const rows = await db
+    .update(teamInvitations)
+    .set({ revokedAt: params.now })
+    .where(
+      and(
+        eq(teamInvitations.id, params.id),
+        eq(teamInvitations.teamId, params.teamId),
+        isNull(teamInvitations.acceptedAt),
+      ),
+    )
+    .returning({ id: teamInvitations.id });
+  return rows.length > 0;
+}
+
+export async function insertPasswordReset(
+  db: DbOrTx,
+  params: { userId: string; tokenHash: string; expiresAt: Date },
+) {
+  await db.insert(passwordResets).values(params);
+}
+
+/** Consumes a reset token atomically; returns the user id, or null when unknown, used or expired. */
+export async function consumePasswordReset(db: DbOrTx, params: { tokenHash: string; now: Date }) {
+  const [row] = await db
+    .update(passwordResets)
+    .set({ usedAt: params.now })
+    .where(
+      and(
+        eq(passwordResets.tokenHash, params.tokenHash),
+        isNull(passwordResets.usedAt),
+        gt(passwordResets.expiresAt, params.now),
+      ),
+    )
+    .returning({ userId: passwordResets.userId });
+  return row?.userId ?? null;
+}

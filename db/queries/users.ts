@@ -1,0 +1,55 @@
+import { eq } from 'drizzle-orm';
+import type { DbOrTx } from '../client';
+import { users } from '../schema/accounts';
+
+const userColumns = {
+  id: users.id,
+  email: users.email,
+  name: users.name,
+  passwordHash: users.passwordHash,
+  createdAt: users.createdAt,
+};
+
+export async function getUserById(db: DbOrTx, params: { id: string }) {
+  const [row] = await db.select(userColumns).from(users).where(eq(users.id, params.id));
+  return row ?? null;
+}
+
+export async function getUserByEmail(db: DbOrTx, params: { email: string }) {
+  const [row] = await db
+    .select(userColumns)
+    .from(users)
+    .where(eq(users.email, params.email.toLowerCase()));
+  return row ?? null;
+}
+
+export async function insertUser(
+  db: DbOrTx,
+  params: { email: string; name: string; passwordHash: string },
+) {
+  const [row] = await db
+    .insert(users)
+    .values({
+      email: params.email.toLowerCase(),
+      name: params.name,
+      passwordHash: params.passwordHash,
+    })
+    .returning(userColumns);
+  return row;
+}
+
+export async function updateUser(
+  db: DbOrTx,
+  params: { id: string; name?: string; passwordHash?: string },
+) {
+  const [row] = await db
+    .update(users)
+    .set({
+      ...(params.name !== undefined ? { name: params.name } : {}),
+      ...(params.passwordHash !== undefined ? { passwordHash: params.passwordHash } : {}),
+      updatedAt: new Date(),
+    })
+    .where(eq(users.id, params.id))
+    .returning(userColumns);
+  return row ?? null;
+}

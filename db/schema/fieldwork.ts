@@ -1,0 +1,108 @@
+/**
+ * Fieldwork: invitees with personal links, respondents (one per answering session) and their
+ * answers. An answer is keyed by (respondent, screen) and carries the client-made id, so a retry
+ * or a duplicate submission never creates a second row.
+ */
+import {
+  boolean,
+  index,
+  integer,
+  jsonb,
+  pgTable,
+  text,
+  timestamp,
+  uniqueIndex,
+  uuid,
+} from 'drizzle-orm/pg-core';
+import { respondentStatusEnum } from './enums';
+import { studies, studyVersions } from './studies';
+
+export const invitees = pgTable(
+  'invitees',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    studyId: uuid('study_id')
+      .notNull()
+      .references(() => studies.id, { onDelete: 'cascade' }),
+    email: text('email').notNull(),
+    name: text('name').notNull().default(''),
+    externalId: text('external_id'),
+    /** Unguessable token in the personal link. */
+    token: text('token').notNull(),
+    invitedAt: timestamp('invited_at', { withTimezone: true }),
+    lastRemindedAt: timestamp('last_reminded_at', { withTimezone: true }),
+    reminderCount: integer('reminder_count').notNull().default(0),
+    unsubscribedAt: timestamp('unsubscribed_at', { withTimezone: true }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    uniqueIndex('invitees_token_uq').on(t.token),
+    uniqueIndex('invitees_study_email_uq').on(t.studyId, t.email),
+  ],
+);
+
+export const respondents = pgTable(
+  'respondents',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    studyId: uuid('study_id')
+      .notNull()
+      .references(() => studies.id, { onDelete: 'cascade' }),
+    versionId: uuid('version_id')
+      .notNull()
+      .references(() => studyVersions.id, { onDelete: 'restrict' }),
+    /** Secret session token held by the respondent's browser; it reaches only this row. */
+    sessionToken: text('session_token').notNull(),
+    inviteeId: uuid('invitee_id').references(() => invitees.id, { onDelete: 'set null' }),
+    externalId: text('external_id'),
+    block: integer('block').notNull(),
+    /** Per-respondent randomisation: task order and alternative positions, stored. */
+    plan: jsonb('plan').notNull(),
+    status: respondentStatusEnum('status').notNull().default('in_progress'),
+    startedAt: timestamp('started_at', { withTimezone: true }).notNull().defaultNow(),
+    finishedAt: timestamp('finished_at', { withTimezone: true }),
+    durationMs: integer('duration_ms'),
+    device: text('device').notNull().default(''),
+    /** Automatic quality flags (speeder, same position, dominance failure, inconsistency). */
+    flags: jsonb('flags').notNull().default({}),
+    included: boolean('included').notNull().default(true),
+    exclusionReason: text('exclusion_reason'),
+    /** Set for synthetic demo respondents: their true simulated coefficients. */
+    simulatedTruth: jsonb('simulated_truth'),
+  },
+  (t) => [
+    uniqueIndex('respondents_session_token_uq').on(t.sessionToken),
+    index('respondents_study_idx').on(t.studyId, t.status),
+    index('respondents_invitee_idx').on(t.inviteeId),
+  ],
+);
+
+export const answers = pgTable(
+  'answers',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    respondentId: uuid('respondent_id')
+      .notNull()
+      .references(() => respondents.id, { onDelete: 'cascade' }),
+    studyId: uuid('study_id')
+      .notNull()
+      .references(() => studies.id, { onDelete: 'cascade' }),
+    /** Client-made id (idempotency key). */
+    clientId: text('client_id').notNull(),
+    /** Screen key from the questionnaire, e.g. "task:3", "q:household_size", "consent". */
+    screenKey: text('screen_key').notNull(),
+    /** Choice tasks: design task number and the chosen alternative (design index; -1 = fixed alternative). */
+    taskNumber: integer('task_number'),
+    chosenAlternative: integer('chosen_alternative'),
+    /** Position on screen the chosen card had (0-based), for position-bias checks. */
+    chosenPosition: integer('chosen_position'),
+    value: jsonb('value'),
+    responseMs: integer('response_ms'),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    uniqueIndex('answers_respondent_screen_uq').on(t.respondentId, t.screenKey),
+    uniqueIndex('answers_respondent_client_uq').on(t.respondentId, t.clientId),
+    index('answers_study_idx').on(t.studyId),
+  ],
+);

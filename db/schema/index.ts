@@ -1,0 +1,5 @@
+export * from './enums';
+export * from './accounts';
+export * from './studies';
+export * from './fieldwork';
+export * from './models';

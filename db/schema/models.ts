@@ -1,0 +1,77 @@
+/** Estimation runs, each respondent's taste profile from a run, and saved respondent filters. */
+import {
+  doublePrecision,
+  index,
+  jsonb,
+  pgTable,
+  primaryKey,
+  text,
+  timestamp,
+  uuid,
+} from 'drizzle-orm/pg-core';
+import { jobStatusEnum } from './enums';
+import { teams, users } from './accounts';
+import { studies } from './studies';
+import { respondents } from './fieldwork';
+
+export const runs = pgTable(
+  'runs',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    studyId: uuid('study_id')
+      .notNull()
+      .references(() => studies.id, { onDelete: 'cascade' }),
+    teamId: uuid('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    name: text('name').notNull().default(''),
+    /** mnl | mixed */
+    model: text('model').notNull(),
+    spec: jsonb('spec').notNull(),
+    /** SHA-256 of the choice data the run used. */
+    dataHash: text('data_hash'),
+    seed: doublePrecision('seed'),
+    status: jobStatusEnum('status').notNull().default('queued'),
+    progress: jsonb('progress').notNull().default({}),
+    results: jsonb('results'),
+    error: text('error'),
+    attempts: doublePrecision('attempts').notNull().default(0),
+    cancelRequested: timestamp('cancel_requested', { withTimezone: true }),
+    createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    startedAt: timestamp('started_at', { withTimezone: true }),
+    finishedAt: timestamp('finished_at', { withTimezone: true }),
+  },
+  (t) => [index('runs_study_idx').on(t.studyId)],
+);
+
+export const tasteProfiles = pgTable(
+  'taste_profiles',
+  {
+    runId: uuid('run_id')
+      .notNull()
+      .references(() => runs.id, { onDelete: 'cascade' }),
+    respondentId: uuid('respondent_id')
+      .notNull()
+      .references(() => respondents.id, { onDelete: 'cascade' }),
+    mean: jsonb('mean').notNull(),
+    sd: jsonb('sd').notNull(),
+    wtp: jsonb('wtp'),
+    effectiveDraws: doublePrecision('effective_draws').notNull(),
+  },
+  (t) => [primaryKey({ name: 'taste_profiles_pk', columns: [t.runId, t.respondentId] })],
+);
+
+export const respondentFilters = pgTable(
+  'respondent_filters',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    studyId: uuid('study_id')
+      .notNull()
+      .references(() => studies.id, { onDelete: 'cascade' }),
+    name: text('name').notNull(),
+    definition: jsonb('definition').notNull(),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('respondent_filters_study_idx').on(t.studyId)],
+);

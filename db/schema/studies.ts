@@ -1,0 +1,130 @@
+/**
+ * Studies and what belongs to their definition: the attribute/level document, designs,
+ * design-generation jobs, the questionnaire, and the frozen versions taken at go-live.
+ * Documents (definition, design, questionnaire, settings) are JSON validated by the zod
+ * schemas in shared/schemas before they are written.
+ */
+import {
+  index,
+  integer,
+  jsonb,
+  pgTable,
+  text,
+  timestamp,
+  uniqueIndex,
+  uuid,
+} from 'drizzle-orm/pg-core';
+import { jobStatusEnum, studyStatusEnum } from './enums';
+import { teams, users } from './accounts';
+
+export const studies = pgTable(
+  'studies',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    teamId: uuid('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    /** Unguessable id used in the public respondent link. */
+    publicId: text('public_id').notNull(),
+    name: text('name').notNull(),
+    description: text('description').notNull().default(''),
+    status: studyStatusEnum('status').notNull().default('draft'),
+    definition: jsonb('definition').notNull(),
+    questionnaire: jsonb('questionnaire').notNull().default({}),
+    /** Fieldwork settings: close date, quota, redirects, quality thresholds. */
+    settings: jsonb('settings').notNull().default({}),
+    /** The design currently attached to the study (designs.id). */
+    currentDesignId: uuid('current_design_id'),
+    /** Latest frozen version number (0 = never live). */
+    currentVersion: integer('current_version').notNull().default(0),
+    archivedAt: timestamp('archived_at', { withTimezone: true }),
+    createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    uniqueIndex('studies_public_id_uq').on(t.publicId),
+    index('studies_team_idx').on(t.teamId),
+  ],
+);
+
+export const designs = pgTable(
+  'designs',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    studyId: uuid('study_id')
+      .notNull()
+      .references(() => studies.id, { onDelete: 'cascade' }),
+    teamId: uuid('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    /** full_factorial | random | d_efficient | imported */
+    method: text('method').notNull(),
+    spec: jsonb('spec').notNull().default({}),
+    design: jsonb('design').notNull(),
+    diagnostics: jsonb('diagnostics').notNull().default({}),
+    createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('designs_study_idx').on(t.studyId)],
+);
+
+/** A design-generation job run off the request path (worker), with progress and cancel. */
+export const designJobs = pgTable(
+  'design_jobs',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    studyId: uuid('study_id')
+      .notNull()
+      .references(() => studies.id, { onDelete: 'cascade' }),
+    teamId: uuid('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    spec: jsonb('spec').notNull(),
+    status: jobStatusEnum('status').notNull().default('queued'),
+    progress: jsonb('progress').notNull().default({}),
+    designId: uuid('design_id').references(() => designs.id, { onDelete: 'set null' }),
+    error: text('error'),
+    cancelRequested: timestamp('cancel_requested', { withTimezone: true }),
+    createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    startedAt: timestamp('started_at', { withTimezone: true }),
+    finishedAt: timestamp('finished_at', { withTimezone: true }),
+  },
+  (t) => [index('design_jobs_study_idx').on(t.studyId)],
+);
+
+/** Frozen copy of definition, design and questionnaire taken each time a study goes live. */
+export const studyVersions = pgTable(
+  'study_versions',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    studyId: uuid('study_id')
+      .notNull()
+      .references(() => studies.id, { onDelete: 'cascade' }),
+    version: integer('version').notNull(),
+    definition: jsonb('definition').notNull(),
+    design: jsonb('design').notNull(),
+    questionnaire: jsonb('questionnaire').notNull(),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex('study_versions_study_version_uq').on(t.studyId, t.version)],
+);
+
+/** Uploaded files (level images); the bytes live in the storage module, not here. */
+export const storedFiles = pgTable(
+  'stored_files',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    teamId: uuid('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    studyId: uuid('study_id').references(() => studies.id, { onDelete: 'cascade' }),
+    storageKey: text('storage_key').notNull(),
+    contentType: text('content_type').notNull(),
+    sizeBytes: integer('size_bytes').notNull(),
+    originalName: text('original_name').notNull().default(''),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex('stored_files_key_uq').on(t.storageKey)],
+);

@@ -1,0 +1,10 @@
+import { defineConfig } from 'drizzle-kit';
+
+export default defineConfig({
+  dialect: 'postgresql',
+  schema: './db/schema/index.ts',
+  out: './db/migrations',
+  dbCredentials: {
+    url: process.env.DATABASE_URL ?? 'postgres://postgres@127.0.0.1:54329/choicewright',
+  },
+});

@@ -1,0 +1,11 @@
+/** One-time tokens for e-mailed links: the raw token goes in the mail, only its hash is stored. */
+import { createHash, randomBytes } from 'node:crypto';
+
+export function createOneTimeToken(): { token: string; hash: string } {
+  const token = randomBytes(32).toString('base64url');
+  return { token, hash: hashToken(token) };
+}
+
+export function hashToken(token: string): string {
+  return createHash('sha256').update(token).digest('hex');
+}

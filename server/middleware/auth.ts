@@ -1,0 +1,56 @@
+/**
+ * The one authorisation layer: requireUser checks the session cookie, requireTeam(permission)
+ * checks the caller's role in the team named by :teamId against shared/permissions.ts.
+ * Every team-scoped router is mounted behind both.
+ */
+import type { RequestHandler } from 'express';
+import { z } from 'zod';
+import type { AppDeps } from '../deps';
+import { ForbiddenError, NotFoundError, UnauthenticatedError } from '../lib/errors';
+import { passwordStamp, SESSION_COOKIE, verifySession } from '../lib/session';
+import { getUserById } from '../../db/queries/users';
+import { getMembership } from '../../db/queries/memberships';
+import { roleCan, type Permission } from '../../shared/permissions';
+
+export function requireUser(deps: AppDeps): RequestHandler {
+  return async (req, _res, next) => {
+    const token = req.cookies?.[SESSION_COOKIE];
+    const claims = typeof token === 'string' ? verifySession(deps.env.JWT_SECRET, token) : null;
+    if (!claims) return next(new UnauthenticatedError());
+    const user = await getUserById(deps.db, { id: claims.sub });
+    if (!user || passwordStamp(user.passwordHash) !== claims.pwd)
+      return next(new UnauthenticatedError());
+    req.auth = { userId: user.id, email: user.email, name: user.name };
+    next();
+  };
+}
+
+const teamParams = z.object({ teamId: z.uuid('Unknown team') });
+
+/** Loads the membership for :teamId (404 when the caller is not a member) and checks the permission. */
+export function requireTeam(deps: AppDeps, permission: Permission): RequestHandler {
+  return async (req, _res, next) => {
+    if (!req.auth) return next(new UnauthenticatedError());
+    const parsed = teamParams.safeParse(req.params);
+    if (!parsed.success) return next(new NotFoundError('Team'));
+    const m = await getMembership(deps.db, { teamId: parsed.data.teamId, userId: req.auth.userId });
+    if (!m) return next(new NotFoundError('Team'));
+    req.member = { teamId: m.teamId, role: m.role };
+    if (!roleCan(m.role, permission)) return next(new ForbiddenError());
+    next();
+  };
+}
+
+/** For handlers that need a finer check after requireTeam (e.g. personal data columns). */
+export function assertCan(req: Express.Request, permission: Permission): void {
+  if (!req.member || !roleCan(req.member.role, permission)) throw new ForbiddenError();
+}
+
+export function memberOf(req: Express.Request): {
+  teamId: string;
+  role: import('../../shared/permissions').Role;
+  userId: string;
+} {
+  if (!req.member || !req.auth) throw new UnauthenticatedError();
+  return { ...req.member, userId: req.auth.userId };
+}

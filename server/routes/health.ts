@@ -1,0 +1,16 @@
+import { Router } from 'express';
+import { sql } from 'drizzle-orm';
+import type { AppDeps } from '../deps';
+
+export function createHealthRouter(deps: AppDeps): Router {
+  const router = Router();
+  router.get('/', async (_req, res) => {
+    try {
+      await deps.db.execute(sql`select 1`);
+      res.json({ status: 'ok', database: 'ok' });
+    } catch {
+      res.status(503).json({ status: 'degraded', database: 'unreachable' });
+    }
+  });
+  return router;
+}

@@ -1,0 +1,19 @@
+/**
+ * Where every API router is mounted. Team-scoped routers sit under /teams/:teamId and each of
+ * their handlers declares its permission through requireTeam (server/middleware/auth.ts).
+ */
+import type { Router } from 'express';
+import type { AppDeps } from '../deps';
+import { createHealthRouter } from './health';
+import { createAuthRouter } from './auth';
+import { createAccountRouter } from './account';
+import { createTeamsRouter } from './teams';
+import { createInvitationsRouter } from './invitations';
+
+export function mountApiRoutes(api: Router, deps: AppDeps): void {
+  api.use('/health', createHealthRouter(deps));
+  api.use('/auth', createAuthRouter(deps));
+  api.use('/account', createAccountRouter(deps));
+  api.use('/invitations', createInvitationsRouter(deps));
+  api.use('/teams', createTeamsRouter(deps));
+}

@@ -1,0 +1,72 @@
+/** Teams, their members and roles. The last owner of a team can never be removed or demoted. */
+import type { AppDeps } from '../deps';
+import { ConflictError, NotFoundError } from '../lib/errors';
+import {
+  countOwners,
+  deleteMembership,
+  getMembership,
+  getTeamById,
+  insertMembership,
+  insertTeam,
+  listMembers,
+  listTeamsOfUser,
+  updateMembershipRole,
+  updateTeam,
+} from '../../db/queries/memberships';
+import type { Role } from '../../shared/permissions';
+import type { Member } from '../../shared/schemas/team';
+
+export async function listMyTeams(deps: AppDeps, userId: string) {
+  const rows = await listTeamsOfUser(deps.db, { userId });
+  return rows.map(({ id, name, role }) => ({ id, name, role }));
+}
+
+export async function createTeam(deps: AppDeps, userId: string, name: string) {
+  return deps.db.transaction(async (tx) => {
+    const team = await insertTeam(tx, { name });
+    await insertMembership(tx, { teamId: team.id, userId, role: 'owner' });
+    return { ...team, role: 'owner' as Role };
+  });
+}
+
+export async function getTeam(deps: AppDeps, teamId: string, role: Role) {
+  const team = await getTeamById(deps.db, { id: teamId });
+  if (!team) throw new NotFoundError('Team');
+  return { ...team, role };
+}
+
+export async function renameTeam(deps: AppDeps, teamId: string, name: string) {
+  const team = await updateTeam(deps.db, { id: teamId, name });
+  if (!team) throw new NotFoundError('Team');
+  return team;
+}
+
+export async function getMembers(deps: AppDeps, teamId: string): Promise<Member[]> {
+  const rows = await listMembers(deps.db, { teamId });
+  return rows.map((r) => ({ ...r, joinedAt: r.joinedAt.toISOString() }));
+}
+
+const lastOwner = () =>
+  new ConflictError(
+    'last_owner',
+    'A team needs at least one owner. Make someone else owner first.',
+  );
+
+export async function changeMemberRole(deps: AppDeps, teamId: string, userId: string, role: Role) {
+  return deps.db.transaction(async (tx) => {
+    const m = await getMembership(tx, { teamId, userId });
+    if (!m) throw new NotFoundError('Member');
+    if (m.role === 'owner' && role !== 'owner' && (await countOwners(tx, { teamId })) <= 1)
+      throw lastOwner();
+    return updateMembershipRole(tx, { teamId, userId, role });
+  });
+}
+
+export async function removeMember(deps: AppDeps, teamId: string, userId: string) {
+  await deps.db.transaction(async (tx) => {
+    const m = await getMembership(tx, { teamId, userId });
+    if (!m) throw new NotFoundError('Member');
+    if (m.role === 'owner' && (await countOwners(tx, { teamId })) <= 1) throw lastOwner();
+    await deleteMembership(tx, { teamId, userId });
+  });
+}

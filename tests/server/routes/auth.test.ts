@@ -1,0 +1,218 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import jwt from 'jsonwebtoken';
+import { createTestApp, type TestApp } from '../../support/test-app';
+import { signUpOwner, TEST_PASSWORD, uniqueEmail } from '../../support/factories';
+import { firstLink, waitForMailTo } from '../../support/mailbox';
+import { getUserByEmail } from '../../../db/queries/users';
+import { SESSION_COOKIE } from '../../../server/lib/session';
+
+let t: TestApp;
+beforeAll(async () => {
+  t = await createTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
+
+describe('POST /api/auth/sign-up', () => {
+  it('creates the user, an owned team, and a session cookie that is httpOnly and SameSite', async () => {
+    const email = uniqueEmail();
+    const res = await t
+      .request()
+      .post('/api/auth/sign-up')
+      .send({
+        name: 'Ada',
+        email: email.toUpperCase(),
+        password: TEST_PASSWORD,
+        teamName: 'Water team',
+      })
+      .expect(201);
+    expect(res.body.email).toBe(email);
+    expect(res.body.teams).toEqual([
+      expect.objectContaining({ name: 'Water team', role: 'owner' }),
+    ]);
+    const cookie = String(res.headers['set-cookie']);
+    expect(cookie).toContain(`${SESSION_COOKIE}=`);
+    expect(cookie).toMatch(/HttpOnly/i);
+    expect(cookie).toMatch(/SameSite=Lax/i);
+    const stored = await getUserByEmail(t.deps.db, { email });
+    expect(stored?.passwordHash).toMatch(/^\$2[aby]\$/);
+  });
+
+  it('when the e-mail is taken, returns 409 with the field and creates nothing', async () => {
+    const { user } = await signUpOwner(t);
+    const res = await t
+      .request()
+      .post('/api/auth/sign-up')
+      .send({ name: 'Other', email: user.email, password: TEST_PASSWORD, teamName: 'x' })
+      .expect(409);
+    expect(res.body.error).toMatchObject({ code: 'email_taken', fields: [{ path: 'email' }] });
+  });
+
+  it('when the body is invalid, returns 400 with field issues and creates nothing', async () => {
+    const email = uniqueEmail();
+    const res = await t
+      .request()
+      .post('/api/auth/sign-up')
+      .send({ name: '', email, password: 'short', teamName: 'x' })
+      .expect(400);
+    expect(res.body.error.code).toBe('invalid_input');
+    const paths = res.body.error.fields.map((f: { path: string }) => f.path);
+    expect(paths).toEqual(expect.arrayContaining(['name', 'password']));
+    expect(await getUserByEmail(t.deps.db, { email })).toBeNull();
+  });
+
+  it('when the body is not JSON, returns 400 malformed_json', async () => {
+    const res = await t
+      .request()
+      .post('/api/auth/sign-up')
+      .set('content-type', 'application/json')
+      .send('{"name":')
+      .expect(400);
+    expect(res.body.error.code).toBe('malformed_json');
+  });
+});
+
+describe('POST /api/auth/sign-in and GET /api/auth/me', () => {
+  it('signs in with the right password and reports the current user', async () => {
+    const { user } = await signUpOwner(t);
+    const agent = t.request();
+    await agent
+      .post('/api/auth/sign-in')
+      .send({ email: user.email, password: TEST_PASSWORD })
+      .expect(200);
+    const me = await agent.get('/api/auth/me').expect(200);
+    expect(me.body.email).toBe(user.email);
+  });
+
+  it('when the password is wrong, returns 401 without saying which part was wrong', async () => {
+    const { user } = await signUpOwner(t);
+    const res = await t
+      .request()
+      .post('/api/auth/sign-in')
+      .send({ email: user.email, password: 'wrong password!' })
+      .expect(401);
+    expect(res.body.error.message).toBe('E-mail or password is wrong.');
+    const res2 = await t
+      .request()
+      .post('/api/auth/sign-in')
+      .send({ email: uniqueEmail(), password: 'whatever123' })
+      .expect(401);
+    expect(res2.body.error.message).toBe(res.body.error.message);
+  });
+
+  it('without a cookie, /me returns 401', async () => {
+    await t.request().get('/api/auth/me').expect(401);
+  });
+
+  it('with an expired session token, returns 401', async () => {
+    const { user } = await signUpOwner(t);
+    const stored = await getUserByEmail(t.deps.db, { email: user.email });
+    const expired = jwt.sign(
+      {
+        sub: user.id,
+        pwd: stored!.passwordHash.slice(-10),
+        exp: Math.floor(Date.now() / 1000) - 10,
+      },
+      t.deps.env.JWT_SECRET,
+    );
+    await t.request().get('/api/auth/me').set('Cookie', `${SESSION_COOKIE}=${expired}`).expect(401);
+  });
+
+  it('with a token signed by another secret, returns 401', async () => {
+    const { user } = await signUpOwner(t);
+    const forged = jwt.sign(
+      { sub: user.id, pwd: 'x' },
+      'another-secret-another-secret-another-secret',
+    );
+    await t.request().get('/api/auth/me').set('Cookie', `${SESSION_COOKIE}=${forged}`).expect(401);
+  });
+
+  it('sign-out clears the cookie', async () => {
+    const { agent } = await signUpOwner(t);
+    await agent.post('/api/auth/sign-out').expect(204);
+    await agent.get('/api/auth/me').expect(401);
+  });
+});
+
+describe('password reset', () => {
+  it('mails a one-time link that sets a new password once and signs out older sessions', async () => {
+    const { user, agent: oldSession } = await signUpOwner(t);
+    await t.request().post('/api/auth/forgot-password').send({ email: user.email }).expect(202);
+    const mail = await waitForMailTo(user.email);
+    const token = new URL(firstLink(mail.text)).searchParams.get('token')!;
+    const newPassword = 'a brand new passphrase';
+    await t
+      .request()
+      .post('/api/auth/reset-password')
+      .send({ token, password: newPassword })
+      .expect(200);
+    await t
+      .request()
+      .post('/api/auth/sign-in')
+      .send({ email: user.email, password: newPassword })
+      .expect(200);
+    await t
+      .request()
+      .post('/api/auth/sign-in')
+      .send({ email: user.email, password: TEST_PASSWORD })
+      .expect(401);
+    await oldSession.get('/api/auth/me').expect(401);
+    const again = await t
+      .request()
+      .post('/api/auth/reset-password')
+      .send({ token, password: 'yet another passphrase' })
+      .expect(400);
+    expect(again.body.error.code).toBe('invalid_token');
+  });
+
+  it('answers 202 for an unknown address too (no account discovery)', async () => {
+    await t
+      .request()
+      .post('/api/auth/forgot-password')
+      .send({ email: uniqueEmail('nobody') })
+      .expect(202);
+  });
+
+  it('when the token has expired, refuses it', async () => {
+    const { user } = await signUpOwner(t);
+    await t.request().post('/api/auth/forgot-password').send({ email: user.email }).expect(202);
+    const token = new URL(firstLink((await waitForMailTo(user.email)).text)).searchParams.get(
+      'token',
+    )!;
+    await t.deps.db.execute(
+      `update password_resets set expires_at = now() - interval '1 minute'` as never,
+    );
+    const res = await t
+      .request()
+      .post('/api/auth/reset-password')
+      .send({ token, password: 'a brand new passphrase' })
+      .expect(400);
+    expect(res.body.error.code).toBe('invalid_token');
+  });
+});
+
+describe('PATCH /api/account', () => {
+  it('renames the user and changes the password only with the current one', async () => {
+    const { agent } = await signUpOwner(t);
+    await agent.patch('/api/account').send({ name: 'Renamed' }).expect(200);
+    const bad = await agent
+      .patch('/api/account')
+      .send({ currentPassword: 'wrong one!!', newPassword: 'another passphrase' })
+      .expect(400);
+    expect(bad.body.error.fields[0].path).toBe('currentPassword');
+    const ok = await agent
+      .patch('/api/account')
+      .send({ currentPassword: TEST_PASSWORD, newPassword: 'another passphrase' })
+      .expect(200);
+    expect(ok.body.name).toBe('Renamed');
+    await agent.get('/api/auth/me').expect(200);
+  });
+});
+
+describe('GET /api/health', () => {
+  it('reports the database as reachable', async () => {
+    const res = await t.request().get('/api/health').expect(200);
+    expect(res.body).toEqual({ status: 'ok', database: 'ok' });
+  });
+});

@@ -1,0 +1,78 @@
+/** Factories with overrides: people with a role in a team, signed in through the real API. */
+import { randomBytes } from 'node:crypto';
+import type supertest from 'supertest';
+import type { Role } from '../../shared/permissions';
+import type { TestApp } from './test-app';
+import { hashPassword } from '../../server/services/auth';
+import { insertUser } from '../../db/queries/users';
+import { insertMembership, insertTeam } from '../../db/queries/memberships';
+
+export const TEST_PASSWORD = 'correct horse battery';
+
+export function uniqueEmail(prefix = 'user'): string {
+  return `${prefix}-${randomBytes(4).toString('hex')}@example.test`;
+}
+
+/** Signs up through the API (the user becomes owner of a new team) and returns a signed-in agent. */
+export async function signUpOwner(
+  t: TestApp,
+  overrides: Partial<{ name: string; email: string; teamName: string }> = {},
+) {
+  const agent = t.request();
+  const body = {
+    name: overrides.name ?? 'Olive Owner',
+    email: overrides.email ?? uniqueEmail('owner'),
+    password: TEST_PASSWORD,
+    teamName: overrides.teamName ?? 'Larkspur Valley Water research',
+  };
+  const res = await agent.post('/api/auth/sign-up').send(body).expect(201);
+  return {
+    agent,
+    user: res.body as { id: string; email: string; teams: { id: string }[] },
+    teamId: res.body.teams[0].id as string,
+  };
+}
+
+/** Adds a user with the given role directly (faster than the invitation flow) and signs them in. */
+export async function addMember(t: TestApp, teamId: string, role: Role, email = uniqueEmail(role)) {
+  const user = await insertUser(t.deps.db, {
+    email,
+    name: `${role} person`,
+    passwordHash: await hashPassword(TEST_PASSWORD),
+  });
+  await insertMembership(t.deps.db, { teamId, userId: user.id, role });
+  const agent = t.request();
+  await agent.post('/api/auth/sign-in').send({ email, password: TEST_PASSWORD }).expect(200);
+  return { agent, user };
+}
+
+/** A team with one signed-in member of every role. */
+export async function createTeamWithAllRoles(t: TestApp) {
+  const owner = await signUpOwner(t);
+  const editor = await addMember(t, owner.teamId, 'editor');
+  const analyst = await addMember(t, owner.teamId, 'analyst');
+  const viewer = await addMember(t, owner.teamId, 'viewer');
+  const outsider = await signUpOwner(t, { teamName: 'Another utility' });
+  return {
+    teamId: owner.teamId,
+    agents: {
+      owner: owner.agent,
+      editor: editor.agent,
+      analyst: analyst.agent,
+      viewer: viewer.agent,
+    } as Record<Role, supertest.Agent>,
+    users: {
+      owner: owner.user.id,
+      editor: editor.user.id,
+      analyst: analyst.user.id,
+      viewer: viewer.user.id,
+    } as Record<Role, string>,
+    outsider: outsider.agent,
+  };
+}
+
+export async function createBareTeam(t: TestApp, name = 'Bare team') {
+  return insertTeam(t.deps.db, { name });
+}
+
+export const randomHex = (n = 4) => randomBytes(n).toString('hex');

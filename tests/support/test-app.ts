@@ -1,0 +1,49 @@
+/**
+ * The API in-process against a real PostgreSQL database of its own, with mail going to the
+ * fake SMTP server the global setup started (read back through tests/support/mailbox.ts).
+ */
+import supertest from 'supertest';
+import type { Express } from 'express';
+import { createApp } from '../../server/app';
+import { loadEnv } from '../../server/env';
+import { createLogger } from '../../server/lib/logger';
+import { createMailer } from '../../server/mail/mailer';
+import type { AppDeps } from '../../server/deps';
+import { createTestDb, type TestDb } from './test-db';
+
+export type TestApp = {
+  app: Express;
+  deps: AppDeps;
+  testDb: TestDb;
+  request: () => supertest.Agent;
+  close(): Promise<void>;
+};
+
+export async function createTestApp(overrides: Record<string, string> = {}): Promise<TestApp> {
+  const testDb = await createTestDb();
+  const env = loadEnv({
+    NODE_ENV: 'test',
+    DATABASE_URL: testDb.url,
+    JWT_SECRET: 'test-secret-test-secret-test-secret-0123456789',
+    APP_URL: 'http://127.0.0.1:5999',
+    SMTP_HOST: '127.0.0.1',
+    SMTP_PORT: process.env.CW_TEST_SMTP_PORT ?? '1025',
+    LOG_LEVEL: 'silent',
+    AUTH_RATE_LIMIT: '10000',
+    EMBEDDED_WORKER: 'false',
+    ...overrides,
+  });
+  const mailer = createMailer(env);
+  const deps: AppDeps = { env, db: testDb.db, logger: createLogger('silent'), mailer };
+  const app = createApp(deps);
+  return {
+    app,
+    deps,
+    testDb,
+    request: () => supertest.agent(app),
+    async close() {
+      mailer.close();
+      await testDb.close();
+    },
+  };
+}

@@ -1,0 +1,27 @@
+/**
+ * Gives an API test file its own database, cloned from the run's migrated template
+ * (tests/global-setup.ts), and drops it afterwards.
+ */
+import { randomBytes } from 'node:crypto';
+import { createDb, type Db } from '../../db/client';
+import { cloneDatabase, databaseUrl, dropDatabase } from './template-db';
+
+export type TestDb = { db: Db; url: string; close(): Promise<void> };
+
+export async function createTestDb(): Promise<TestDb> {
+  const adminUrl = process.env.CW_TEST_ADMIN_URL;
+  const template = process.env.CW_TEST_TEMPLATE_DB;
+  if (!adminUrl || !template) throw new Error('tests/global-setup.ts did not run');
+  const name = `cw_t_${randomBytes(5).toString('hex')}`;
+  await cloneDatabase(adminUrl, template, name);
+  const url = databaseUrl(adminUrl, name);
+  const { db, pool } = createDb(url, 5);
+  return {
+    db,
+    url,
+    async close() {
+      await pool.end();
+      await dropDatabase(adminUrl, name);
+    },
+  };
+}

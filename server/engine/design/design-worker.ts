@@ -17,7 +17,7 @@ const taskSchema = z.object({
   port: z.instanceof(MessagePort).optional(),
 });
 
-export default function runDesignTask(message: unknown): DesignWorkerResult {
+export function runDesignTask(message: unknown): DesignWorkerResult {
   const parsed = taskSchema.safeParse(message);
   if (!parsed.success)
     return { ok: false, error: { code: 'invalid_spec', message: 'Malformed design job message' } };

@@ -2,15 +2,10 @@ import { describe, expect, it } from 'vitest';
 import { fillUniformDraws } from '../../../server/engine/draws/uniform-draws';
 import { buildChoiceData } from '../../../server/engine/estimation/build-choice-data';
 import { checkMixedLogitOptions } from '../../../server/engine/estimation/check-mixed-logit-options';
-import { ChoiceDataError, type LongChoiceRow } from '../../../server/engine/estimation/choice-data';
+import { type LongChoiceRow } from '../../../server/engine/estimation/choice-data';
 import { computeWtp } from '../../../server/engine/estimation/compute-wtp';
-import {
-  EstimationOptionsError,
-  NonIdentifiedError,
-} from '../../../server/engine/estimation/estimation-errors';
-import { checkMnlOptions, fitMnl } from '../../../server/engine/estimation/fit-mnl';
+import { EstimationOptionsError } from '../../../server/engine/estimation/estimation-errors';
 import { createMixedLogitLayout } from '../../../server/engine/estimation/mixed-logit-layout';
-import { parseChoiceCsv } from '../../../server/engine/estimation/parse-choice-csv';
 import { computeTasteProfiles } from '../../../server/engine/estimation/taste-profiles';
 import { computeGaussHermite } from '../../../server/engine/linalg/gauss-hermite';
 import { estimationSpecSchema } from '../../../shared/schemas/estimation-spec';
@@ -38,126 +33,6 @@ const good = buildChoiceData(
   ['x', 'z'],
   [...pair(1, 1, [1, 0], [0, 1]), ...pair(1, 2, [0, 1], [2, 0]), ...pair(2, 1, [1, 1], [0, 0])],
 ).data;
-
-describe('buildChoiceData rejects invalid data', () => {
-  it.each<[string, LongChoiceRow[], RegExp]>([
-    ['no rows', [], /no rows/],
-    [
-      'a task with no chosen alternative',
-      [row(1, 1, 1, 0, [1]), row(1, 1, 2, 0, [0])],
-      /task 1 of respondent 1 \(line 1\) has no chosen alternative/,
-    ],
-    [
-      'a task with two chosen alternatives',
-      [row(1, 1, 1, 1, [1]), row(1, 1, 2, 1, [0])],
-      /has 2 chosen alternatives/,
-    ],
-    ['a task with one alternative', [row(1, 1, 1, 1, [1])], /only one alternative/],
-    [
-      'an alternative listed twice',
-      [row(1, 1, 1, 1, [1]), row(1, 1, 1, 0, [0])],
-      /line 2: alternative 1 appears twice/,
-    ],
-    [
-      'a non-finite value',
-      [row(1, 1, 1, 1, [Number.NaN]), row(1, 1, 2, 0, [0])],
-      /line 1: column x is not a finite number/,
-    ],
-    ['chosen not 0/1', [row(1, 1, 1, 2, [1]), row(1, 1, 2, 0, [0])], /chosen must be 0 or 1/],
-    [
-      'a task mixing holdout and estimation rows',
-      [row(1, 1, 1, 1, [1], true), row(1, 1, 2, 0, [0])],
-      /mixes holdout/,
-    ],
-    [
-      'only holdout tasks',
-      [row(1, 1, 1, 1, [1], true), row(1, 1, 2, 0, [0], true)],
-      /every task is flagged holdout/,
-    ],
-    [
-      'the wrong number of values',
-      [row(1, 1, 1, 1, [1, 2]), row(1, 1, 2, 0, [0])],
-      /expected 1 attribute values, got 2/,
-    ],
-  ])('%s', (_label, rows, message) => {
-    expect(() => buildChoiceData(['x'], rows)).toThrow(ChoiceDataError);
-    expect(() => buildChoiceData(['x'], rows)).toThrow(message);
-  });
-
-  it('no attribute columns', () => {
-    expect(() => buildChoiceData([], [row(1, 1, 1, 1, []), row(1, 1, 2, 0, [])])).toThrow(
-      /at least one attribute column/,
-    );
-  });
-});
-
-describe('parseChoiceCsv rejects invalid files', () => {
-  it.each<[string, string, RegExp]>([
-    ['a missing required column', 'respondent,task,alt,x\n1,1,1,0', /no column "chosen"/],
-    [
-      'a missing attribute column',
-      'respondent,task,alt,chosen\n1,1,1,0',
-      /no column "x" named in the specification/,
-    ],
-    [
-      'an empty respondent',
-      'respondent,task,alt,chosen,x\n,1,1,0,1',
-      /line 2: column respondent is empty/,
-    ],
-    [
-      'a holdout flag other than 0/1',
-      'respondent,task,alt,chosen,x,holdout\n1,1,1,0,1,2',
-      /line 2: holdout must be 0 or 1/,
-    ],
-    ['a header only', 'respondent,task,alt,chosen,x', /at least one data line/],
-    ['ragged lines', 'respondent,task,alt,chosen,x\n1,1,1', /cannot be read/],
-  ])('%s', (_label, text, message) => {
-    expect(() => parseChoiceCsv(text, ['x'])).toThrow(message);
-  });
-});
-
-describe('fitMnl guards', () => {
-  it.each<[string, object, string]>([
-    ['maxIterations 0', { maxIterations: 0 }, 'maxIterations'],
-    ['a negative tolerance', { tolerance: -1 }, 'tolerance'],
-    ['a start of the wrong length', { start: [1] }, 'start'],
-    ['a non-finite start', { start: [1, Number.NaN] }, 'start'],
-  ])('checkMnlOptions rejects %s naming the field', (_label, options, field) => {
-    expect(() => checkMnlOptions(good, options)).toThrow(EstimationOptionsError);
-    try {
-      checkMnlOptions(good, options);
-    } catch (error) {
-      expect((error as EstimationOptionsError).field).toBe(field);
-    }
-  });
-
-  it('rejects holdout data with other columns', () => {
-    const other = buildChoiceData(['y', 'z'], pair(1, 1, [1, 0], [0, 1])).data;
-    expect(() => checkMnlOptions(good, { holdout: other })).toThrow(/same columns/);
-  });
-
-  it('names a column that never varies within any task', () => {
-    const data = buildChoiceData(
-      ['x', 'flat'],
-      [...pair(1, 1, [1, 3], [0, 3]), ...pair(2, 1, [0, 3], [1, 3])],
-    ).data;
-    expect(() => fitMnl(data)).toThrow(NonIdentifiedError);
-    expect(() => fitMnl(data)).toThrow(/flat never varies/);
-  });
-
-  it('detects collinear columns', () => {
-    const data = buildChoiceData(
-      ['x', 'twice_x'],
-      [...pair(1, 1, [1, 2], [0, 0]), ...pair(2, 1, [0, 0], [1, 2]), ...pair(3, 1, [2, 4], [0, 0])],
-    ).data;
-    expect(() => fitMnl(data)).toThrow(/singular/);
-  });
-
-  it('detects perfect prediction (separation): the chosen alternative always has the larger x', () => {
-    const rows = [1, 2, 3, 4].flatMap((n) => pair(n, 1, [n], [0]));
-    expect(() => fitMnl(buildChoiceData(['x'], rows).data)).toThrow(/perfect prediction/);
-  });
-});
 
 describe('checkMixedLogitOptions rejects invalid options before any numerics', () => {
   const base = {

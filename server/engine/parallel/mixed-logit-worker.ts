@@ -27,7 +27,7 @@ function initSlice(msg: InitSliceMessage): MixedLogitKernel {
 }
 
 /** Handles one message; returns the slice's LL and gradient (and scores when asked). */
-export default function handleSliceMessage(msg: SliceMessage): SliceResult | null {
+export function handleSliceMessage(msg: SliceMessage): SliceResult | null {
   if (!msg || typeof msg !== 'object' || typeof msg.key !== 'string')
     throw new TypeError('invalid worker message');
   if (msg.kind === 'init') {

@@ -69,6 +69,7 @@ export async function createWorkerPoolEvaluator(
     () =>
       new Piscina({
         filename: WORKER_FILE,
+        name: 'handleSliceMessage',
         execArgv: ['--import', tsxLoader],
         minThreads: 1,
         maxThreads: 1,

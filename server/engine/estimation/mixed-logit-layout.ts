@@ -9,6 +9,8 @@
  * With `correlated`, the normal coefficients share β = b + L·η with L lower-triangular
  * (Cholesky factor of their covariance, Train 2009 §6.3); its elements are parameters.
  * θ = [locations of all K coefficients, spreads of the uncorrelated random ones, L row-wise].
+ * The sign of a spread is not identified (the distribution depends on |s|); estimates are
+ * reported as found and population SDs use |s|.
  */
 import type { ChoiceData } from './choice-data';
 import { EstimationOptionsError } from './estimation-errors';

@@ -1,0 +1,29 @@
+/**
+ * All client routes. Route modules are lazy-loaded; each exports `Component` (and may export a
+ * `loader` that prefetches with the same query-options builders the page uses).
+ */
+import { createBrowserRouter } from 'react-router';
+import type { QueryClient } from '@tanstack/react-query';
+import { paths } from '@/config/paths';
+import { AppShell } from '@/components/layout/app-shell';
+import { HomeRedirect, RequireAuth } from './routes/require-auth';
+import { NotFound } from './routes/not-found';
+
+export function createRouter(_queryClient: QueryClient) {
+  return createBrowserRouter([
+    { path: paths.home.path, element: <HomeRedirect /> },
+    { path: paths.signIn.path, lazy: () => import('./routes/auth/sign-in') },
+    {
+      element: <RequireAuth />,
+      children: [
+        {
+          element: <AppShell />,
+          children: [
+            { path: paths.studies.path, lazy: () => import('./routes/studies/study-list') },
+          ],
+        },
+      ],
+    },
+    { path: '*', element: <NotFound /> },
+  ]);
+}

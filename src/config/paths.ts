@@ -1,0 +1,58 @@
+/** Every client route in one place. Build links with these, never with string literals. */
+export const studySections = [
+  'attributes',
+  'tasks',
+  'questionnaire',
+  'preview',
+  'fieldwork',
+  'responses',
+  'models',
+  'tastes',
+  'shares',
+  'exports',
+] as const;
+export type StudySection = (typeof studySections)[number];
+
+export const paths = {
+  home: { path: '/', getHref: () => '/' },
+  signIn: {
+    path: '/sign-in',
+    getHref: (redirectTo?: string) =>
+      `/sign-in${redirectTo ? `?redirectTo=${encodeURIComponent(redirectTo)}` : ''}`,
+  },
+  signUp: { path: '/sign-up', getHref: () => '/sign-up' },
+  forgotPassword: { path: '/forgot-password', getHref: () => '/forgot-password' },
+  resetPassword: {
+    path: '/reset-password',
+    getHref: (token: string) => `/reset-password?token=${encodeURIComponent(token)}`,
+  },
+  acceptInvitation: {
+    path: '/invitations/:token',
+    getHref: (token: string) => `/invitations/${encodeURIComponent(token)}`,
+  },
+  account: { path: '/account', getHref: () => '/account' },
+  studies: {
+    path: '/teams/:teamId/studies',
+    getHref: (teamId: string) => `/teams/${teamId}/studies`,
+  },
+  members: {
+    path: '/teams/:teamId/members',
+    getHref: (teamId: string) => `/teams/${teamId}/members`,
+  },
+  study: {
+    path: '/teams/:teamId/studies/:studyId',
+    getHref: (teamId: string, studyId: string) => `/teams/${teamId}/studies/${studyId}`,
+  },
+  studySection: {
+    path: '/teams/:teamId/studies/:studyId/:section',
+    getHref: (teamId: string, studyId: string, section: StudySection) =>
+      `/teams/${teamId}/studies/${studyId}/${section}`,
+  },
+  respondentProfile: {
+    path: '/teams/:teamId/studies/:studyId/tastes/:runId/respondents/:respondentId',
+    getHref: (teamId: string, studyId: string, runId: string, respondentId: string) =>
+      `/teams/${teamId}/studies/${studyId}/tastes/${runId}/respondents/${respondentId}`,
+  },
+  /** The respondent app (public link); personal links add ?inv=<token>. */
+  respond: { path: '/s/:publicId', getHref: (publicId: string) => `/s/${publicId}` },
+} as const;

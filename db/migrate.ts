@@ -1,0 +1,8 @@
+/** Applies the committed migrations (also done automatically when the server starts). */
+import { createDb, migrateDb } from './client';
+import { loadEnv } from '../server/env';
+
+const { db, pool } = createDb(loadEnv().DATABASE_URL, 1);
+await migrateDb(db);
+await pool.end();
+console.log('migrations applied');

@@ -1,8 +1,8 @@
 /**
  * Benchmark of the mixed-logit estimation engine on seeded synthetic data:
  * N = 1000 respondents, T = 12 tasks, J = 3 alternatives, K = 6 normal coefficients,
- * R = 500 scrambled Halton draws. Prints ms per LL+gradient evaluation on 1 and 2 worker
- * threads, and the BFGS iterations, evaluations and wall time of a full estimation.
+ * R = 500 scrambled Halton draws. Prints ms per LL+gradient evaluation on the main thread and
+ * on 1 and 2 worker threads, and the BFGS iterations, evaluations and wall time of a full estimation.
  * Usage: npm run bench:estimation [-- --json] [-- --threads 2]
  */
 import { buildChoiceData } from '../server/engine/estimation/build-choice-data';
@@ -13,6 +13,7 @@ import {
 } from '../server/engine/estimation/mixed-logit-layout';
 import { simulatePanelChoices } from '../server/engine/estimation/simulate-panel-choices';
 import { createLoglikEvaluator } from '../server/engine/parallel/create-loglik-evaluator';
+import { createWorkerPoolEvaluator } from '../server/engine/parallel/worker-pool-evaluator';
 
 const json = process.argv.includes('--json');
 const threadsArg = process.argv.indexOf('--threads');
@@ -35,12 +36,16 @@ const coefficients: CoefficientSpec[] = truth.map((c) => ({
 }));
 const draws = { type: 'halton' as const, count: R, seed: 1, scrambled: true };
 
+/** threads = 0: in-process kernel on the main thread; otherwise that many worker threads. */
 async function timeEvaluations(
   threads: number,
   repeats: number,
 ): Promise<{ ms: number; setupMs: number }> {
   const setupStart = performance.now();
-  const evaluator = await createLoglikEvaluator(data, layout, draws, threads);
+  const evaluator =
+    threads === 0
+      ? await createLoglikEvaluator(data, layout, draws, 1)
+      : await createWorkerPoolEvaluator(data, layout, draws, threads);
   const setupMs = performance.now() - setupStart;
   const theta = new Float64Array(layout.P);
   truth.forEach((c, k) => {
@@ -67,6 +72,7 @@ const sim = simulatePanelChoices({
 const { data } = buildChoiceData(sim.columns, sim.rows);
 const layout = createMixedLogitLayout(data, coefficients, false);
 
+const inProcess = await timeEvaluations(0, 10);
 const one = await timeEvaluations(1, 10);
 const two = await timeEvaluations(2, 10);
 const fitStart = performance.now();
@@ -79,6 +85,7 @@ const figures = {
   alternatives: J,
   coefficients: K,
   draws: R,
+  evalMsInProcess: Number(inProcess.ms.toFixed(1)),
   evalMs1: Number(one.ms.toFixed(1)),
   evalMs2: Number(two.ms.toFixed(1)),
   setupMs2: Number(two.setupMs.toFixed(0)),
@@ -96,9 +103,10 @@ if (json) {
   console.log(
     `Mixed logit benchmark: N=${N}, T=${T}, J=${J}, K=${K} normal, R=${R} scrambled Halton`,
   );
-  console.log(`  LL+gradient evaluation, 1 thread : ${figures.evalMs1} ms`);
+  console.log(`  LL+gradient evaluation, main thread (no workers): ${figures.evalMsInProcess} ms`);
+  console.log(`  LL+gradient evaluation, 1 worker thread: ${figures.evalMs1} ms`);
   console.log(
-    `  LL+gradient evaluation, 2 threads: ${figures.evalMs2} ms (pool start ${figures.setupMs2} ms)`,
+    `  LL+gradient evaluation, 2 worker threads: ${figures.evalMs2} ms (pool start ${figures.setupMs2} ms)`,
   );
   console.log(
     `  full estimation on ${fitThreads} thread(s): ${figures.iterations} BFGS iterations, ${figures.evaluations} evaluations (incl. Hessian), ${figures.totalSeconds} s`,

@@ -8,7 +8,7 @@
  * and products over tasks are moved to the log scale every 8 tasks so long panels cannot
  * underflow. One kernel covers a contiguous slice of respondents (one worker thread's share).
  */
-import { expStream } from '../linalg/exp-stream';
+import { expStreamAccumulate } from '../linalg/exp-stream';
 import { fusedAxpy } from '../linalg/fused-axpy';
 import type { ChoiceData } from './choice-data';
 import {
@@ -132,8 +132,7 @@ export function createMixedLogitKernel(
           offs[m++] = k * R;
         }
         fusedAxpy(V, vb, B, coef, offs, m, R, true);
-        expStream(V, vb, R);
-        for (let r = 0; r < R; r++) den[r] += V[vb + r];
+        expStreamAccumulate(V, vb, R, den, 0);
       }
       for (let r = 0; r < R; r++) {
         const p = 1 / den[r];

@@ -25,3 +25,26 @@ export function expStream(x: Float64Array, offset: number, length: number): void
     x[i] = p * TABLE[k & 63] * POW2[(k >> 6) + POW2_OFFSET];
   }
 }
+
+/**
+ * Same as expStream, and also adds each exponential into acc[accOffset + i] (the logit
+ * denominator), saving a second pass over the stream.
+ */
+export function expStreamAccumulate(
+  x: Float64Array,
+  offset: number,
+  length: number,
+  acc: Float64Array,
+  accOffset: number,
+): void {
+  for (let i = 0; i < length; i++) {
+    let v = x[offset + i];
+    v = v < 700 ? (v > -700 ? v : -700) : 700;
+    const k = ((v * INV_STEP + 65536.5) | 0) - 65536;
+    const r = v - k * STEP_HI - k * STEP_LO;
+    const p = 1 + r * (1 + r * (0.5 + r * (1 / 6 + r * (1 / 24 + r * (1 / 120 + r * (1 / 720))))));
+    const e = p * TABLE[k & 63] * POW2[(k >> 6) + POW2_OFFSET];
+    x[offset + i] = e;
+    acc[accOffset + i] += e;
+  }
+}

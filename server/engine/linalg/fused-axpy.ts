@@ -22,24 +22,26 @@ export function fusedAxpy(
   let i = 0;
   let first = assign;
   while (i < count) {
-    const m = count - i >= 8 ? 8 : Math.min(4, count - i);
-    if (m === 8) {
+    // 5..8 remaining sources go in one eight-wide pass; missing ones get coefficient 0.
+    const left = count - i;
+    const m = left >= 5 ? Math.min(8, left) : left;
+    if (m >= 5) {
       const c0 = coef[i],
         c1 = coef[i + 1],
         c2 = coef[i + 2],
         c3 = coef[i + 3];
       const c4 = coef[i + 4],
-        c5 = coef[i + 5],
-        c6 = coef[i + 6],
-        c7 = coef[i + 7];
+        c5 = m > 5 ? coef[i + 5] : 0,
+        c6 = m > 6 ? coef[i + 6] : 0,
+        c7 = m > 7 ? coef[i + 7] : 0;
       const s0 = offs[i],
         s1 = offs[i + 1],
         s2 = offs[i + 2],
         s3 = offs[i + 3];
       const s4 = offs[i + 4],
-        s5 = offs[i + 5],
-        s6 = offs[i + 6],
-        s7 = offs[i + 7];
+        s5 = m > 5 ? offs[i + 5] : s4,
+        s6 = m > 6 ? offs[i + 6] : s4,
+        s7 = m > 7 ? offs[i + 7] : s4;
       if (first) {
         for (let r = 0; r < length; r++) {
           out[o + r] =

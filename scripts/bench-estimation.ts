@@ -12,6 +12,7 @@ import {
   type CoefficientSpec,
 } from '../server/engine/estimation/mixed-logit-layout';
 import { simulatePanelChoices } from '../server/engine/estimation/simulate-panel-choices';
+import { computeTasteProfiles } from '../server/engine/estimation/taste-profiles';
 import { createLoglikEvaluator } from '../server/engine/parallel/create-loglik-evaluator';
 import { createWorkerPoolEvaluator } from '../server/engine/parallel/worker-pool-evaluator';
 
@@ -78,6 +79,9 @@ const two = await timeEvaluations(2, 10);
 const fitStart = performance.now();
 const fit = await fitMixedLogit(data, { coefficients, draws, threads: fitThreads });
 const totalSeconds = (performance.now() - fitStart) / 1000;
+const profilesStart = performance.now();
+computeTasteProfiles(data, fit.layout, fit.estimates, { count: 2000 });
+const profilesSeconds = (performance.now() - profilesStart) / 1000;
 
 const figures = {
   respondents: N,
@@ -96,6 +100,7 @@ const figures = {
   loglik: Number(fit.loglik.toFixed(4)),
   fitThreads,
   totalSeconds: Number(totalSeconds.toFixed(2)),
+  profilesSeconds: Number(profilesSeconds.toFixed(2)),
 };
 if (json) {
   console.log(JSON.stringify(figures));
@@ -112,4 +117,7 @@ if (json) {
     `  full estimation on ${fitThreads} thread(s): ${figures.iterations} BFGS iterations, ${figures.evaluations} evaluations (incl. Hessian), ${figures.totalSeconds} s`,
   );
   console.log(`  converged: ${figures.converged} (${figures.stopReason}), LL = ${figures.loglik}`);
+  console.log(
+    `  taste profiles (2000 draws per respondent, main thread): ${figures.profilesSeconds} s`,
+  );
 }

@@ -3,6 +3,7 @@
  * (data views over SharedArrayBuffers, draws generated here for the slice only) and answers
  * θ → (partial LL, gradient). Thin by design: validate the message, call the pure kernel.
  */
+import { move } from 'piscina';
 import type { ChoiceData } from '../estimation/choice-data';
 import { createMixedLogitKernel, type MixedLogitKernel } from '../estimation/mixed-logit-kernel';
 import { createMixedLogitLayout } from '../estimation/mixed-logit-layout';
@@ -43,9 +44,14 @@ export function handleSliceMessage(msg: SliceMessage): SliceResult | null {
   if (!(msg.theta instanceof Float64Array) || msg.theta.length !== kernel.parameterCount) {
     throw new TypeError('theta must be a Float64Array of the model parameter count');
   }
-  const grad = new Float64Array(kernel.parameterCount);
-  const scores =
-    msg.kind === 'scores' ? new Float64Array(kernel.respondentCount * kernel.parameterCount) : null;
-  const loglik = kernel.evaluate(msg.theta, grad, scores);
-  return scores ? { loglik, grad, scores } : { loglik, grad };
+  const P = kernel.parameterCount;
+  const withScores = msg.kind === 'scores';
+  // One packed buffer [LL, gradient, scores?] moved (not copied) back to the caller.
+  const packed = new Float64Array(1 + P + (withScores ? kernel.respondentCount * P : 0));
+  packed[0] = kernel.evaluate(
+    msg.theta,
+    packed.subarray(1, 1 + P),
+    withScores ? packed.subarray(1 + P) : null,
+  );
+  return move(packed) as SliceResult;
 }

@@ -31,9 +31,8 @@ export interface ReleaseSliceMessage {
 
 export type SliceMessage = InitSliceMessage | EvaluateSliceMessage | ReleaseSliceMessage;
 
-export interface SliceResult {
-  loglik: number;
-  grad: Float64Array;
-  /** count × P, only for kind 'scores'. */
-  scores?: Float64Array;
-}
+/**
+ * A slice's answer, packed in one moved buffer: [LL, ∂LL/∂θ (P values), scores (count × P,
+ * only for kind 'scores')].
+ */
+export type SliceResult = Float64Array;

@@ -103,15 +103,15 @@ export async function createWorkerPoolEvaluator(
       grad.fill(0, 0, P);
       let ll = 0;
       for (const r of results) {
-        ll += r.loglik;
-        for (let p = 0; p < P; p++) grad[p] += r.grad[p];
+        ll += r[0];
+        for (let p = 0; p < P; p++) grad[p] += r[1 + p];
       }
       return ll;
     },
     async evaluateScores(theta) {
       const results = await runAll('scores', theta);
       const scores = new Float64Array(N * P);
-      results.forEach((r, i) => scores.set(r.scores!, slices[i].first * P));
+      results.forEach((r, i) => scores.set(r.subarray(1 + P), slices[i].first * P));
       return scores;
     },
     async close() {

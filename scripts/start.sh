@@ -1,0 +1,49 @@
+#!/usr/bin/env bash
+# Installs what is missing, starts PostgreSQL and the fake mail server, builds the client,
+# migrates and seeds the demo data, then serves Choicewright on 127.0.0.1 until Ctrl-C
+# (or `npm run stop`), which also stops the mail server and PostgreSQL.
+set -euo pipefail
+ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
+cd "$ROOT"
+. scripts/lib-install.sh
+. scripts/lib-daemon.sh
+
+PORT="${PORT:-5180}"
+export NODE_ENV=production HOST="${HOST:-127.0.0.1}" PORT
+export APP_URL="${APP_URL:-http://$HOST:$PORT}"
+export SMTP_HOST="${SMTP_HOST:-127.0.0.1}" SMTP_PORT="${SMTP_PORT:-1025}"
+
+ensure_node_modules
+echo "== database"
+scripts/pg.sh start
+if [ -z "${DATABASE_URL:-}" ]; then export DATABASE_URL="$(scripts/pg.sh url)"; fi
+echo "== fake mail server"
+scripts/mail.sh start 1025 1080
+echo "== building the client"
+npx vite build --logLevel warn
+echo "== migrating and seeding the demo data"
+npx tsx db/seed.ts
+
+stop_all() {
+  trap - INT TERM EXIT
+  echo
+  echo "== stopping"
+  [ -n "${SERVER_PID:-}" ] && kill "$SERVER_PID" 2>/dev/null && wait "$SERVER_PID" 2>/dev/null || true
+  rm -f "$ROOT/.data/server.pid"
+  scripts/mail.sh stop 1025 || true
+  scripts/pg.sh stop || true
+}
+trap stop_all INT TERM EXIT
+
+npx tsx server/main.ts &
+SERVER_PID=$!
+echo "$SERVER_PID" > "$ROOT/.data/server.pid"
+for _ in $(seq 1 100); do curl -fsS -m 2 "http://$HOST:$PORT/api/health" >/dev/null 2>&1 && break; sleep 0.3; done
+cat <<MSG
+
+  Choicewright is running at $APP_URL
+  Sent e-mail (fake mail server): http://127.0.0.1:1080
+  Demo sign-ins are listed above (DEMO CREDENTIALS). Press Ctrl-C to stop everything.
+
+MSG
+wait "$SERVER_PID"

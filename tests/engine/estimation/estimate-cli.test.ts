@@ -85,6 +85,26 @@ describe('npm run estimate (scripts/estimate.ts)', () => {
     expect(result.loglik).toBeGreaterThan(result.loglikNull);
   });
 
+  it('keeps tasks flagged in a holdout column apart and reports the holdout hit rate', () => {
+    const withHoldout = [
+      'respondent,task,alt,chosen,river,bill,holdout',
+      ...sim.rows.map(
+        (r) =>
+          `${r.respondent},${r.task},${r.alt},${r.chosen},${r.values[0]},${r.values[1]},${Number(r.task) === 6 ? 1 : 0}`,
+      ),
+    ].join('\n');
+    const specFile = writeFile(
+      'mnl-holdout.json',
+      JSON.stringify({ model: 'mnl', coefficients: [{ name: 'river' }, { name: 'bill' }] }),
+    );
+    const run = runCli(['--data', writeFile('holdout.csv', withHoldout), '--spec', specFile]);
+    expect(run.status).toBe(0);
+    const result = estimationResultSchema.parse(JSON.parse(run.stdout));
+    expect(result.observations).toBe(300);
+    expect(result.holdoutHitRate).not.toBeNull();
+    expect(result.holdoutHitRate! * 60).toBeCloseTo(Math.round(result.holdoutHitRate! * 60), 9);
+  });
+
   it('fits an MNL and prints to stdout without --out', () => {
     const specFile = writeFile(
       'mnl.json',

@@ -22,12 +22,18 @@ export default defineConfig({
     screenshot: 'only-on-failure',
     launchOptions: {
       executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
-      args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+      args: [
+        '--no-sandbox',
+        '--disable-gpu',
+        '--disable-quic',
+        '--no-first-run',
+        '--disable-background-networking',
+        '--disable-component-update',
+        '--disable-sync',
+      ],
     },
   },
-  projects: [
-    { name: 'desktop', use: { ...devices['Desktop Chrome'], channel: undefined } },
-  ],
+  projects: [{ name: 'desktop', use: { ...devices['Desktop Chrome'], channel: undefined } }],
   webServer: {
     command: `bash scripts/e2e-server.sh ${port}`,
     url: `${e2eBaseUrl}/api/health`,

@@ -58,7 +58,7 @@ export interface MixedLogitResult extends FitStatistics {
     relativeChange: number;
     iterations: number;
   };
-  /** Final LL and convergence flag of every start, best first is not implied (in start order). */
+  /** Final LL, convergence flag and iterations of every start, in start order. */
   starts: { loglik: number; converged: boolean; iterations: number }[];
   draws: { type: string; count: number; seed: number; scrambled: boolean };
   respondents: number;

@@ -1,4 +1,4 @@
-import { and, eq } from 'drizzle-orm';
+import { and, desc, eq, isNotNull, isNull, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { studies } from '../schema/studies';
 
@@ -25,5 +25,120 @@ export async function getStudyById(db: DbOrTx, params: { id: string; teamId: str
     .select(studyColumns)
     .from(studies)
     .where(and(eq(studies.id, params.id), eq(studies.teamId, params.teamId)));
+  return row ?? null;
+}
+
+/** Counts shown in the studies list, computed in SQL so the list stays one query. */
+const designTasks = sql<number>`coalesce((select jsonb_array_length(d.design->'tasks') from designs d where d.id = ${studies.currentDesignId}), 0)`;
+const designBlocks = sql<number>`coalesce((select (d.design->>'blocks')::int from designs d where d.id = ${studies.currentDesignId}), 0)`;
+const attributeCount = sql<number>`coalesce(jsonb_array_length(${studies.definition}->'attributes'), 0)`;
+const completedRespondents = sql<number>`(select count(*)::int from respondents r where r.study_id = ${studies.id} and r.status = 'completed')`;
+
+export const studyCountColumns = {
+  attributeCount: attributeCount.mapWith(Number),
+  taskCount: designTasks.mapWith(Number),
+  blockCount: designBlocks.mapWith(Number),
+  respondentCount: completedRespondents.mapWith(Number),
+};
+
+export async function listStudies(db: DbOrTx, params: { teamId: string; archived: boolean }) {
+  return db
+    .select({ ...studyColumns, ...studyCountColumns })
+    .from(studies)
+    .where(
+      and(
+        eq(studies.teamId, params.teamId),
+        params.archived ? isNotNull(studies.archivedAt) : isNull(studies.archivedAt),
+      ),
+    )
+    .orderBy(desc(studies.updatedAt));
+}
+
+export async function getStudyWithCounts(db: DbOrTx, params: { id: string; teamId: string }) {
+  const [row] = await db
+    .select({ ...studyColumns, ...studyCountColumns })
+    .from(studies)
+    .where(and(eq(studies.id, params.id), eq(studies.teamId, params.teamId)));
+  return row ?? null;
+}
+
+export async function insertStudy(
+  db: DbOrTx,
+  params: {
+    teamId: string;
+    publicId: string;
+    name: string;
+    description: string;
+    definition: unknown;
+    questionnaire?: unknown;
+    createdBy: string | null;
+  },
+) {
+  const [row] = await db
+    .insert(studies)
+    .values({
+      teamId: params.teamId,
+      publicId: params.publicId,
+      name: params.name,
+      description: params.description,
+      definition: params.definition,
+      questionnaire: params.questionnaire ?? {},
+      createdBy: params.createdBy,
+    })
+    .returning(studyColumns);
+  return row;
+}
+
+export async function updateStudy(
+  db: DbOrTx,
+  params: {
+    id: string;
+    teamId: string;
+    set: Partial<{
+      name: string;
+      description: string;
+      definition: unknown;
+      currentDesignId: string | null;
+      archivedAt: Date | null;
+    }>;
+  },
+) {
+  const [row] = await db
+    .update(studies)
+    .set({ ...params.set, updatedAt: new Date() })
+    .where(and(eq(studies.id, params.id), eq(studies.teamId, params.teamId)))
+    .returning(studyColumns);
+  return row ?? null;
+}
+
+/** Only a draft's definition changes: the status check is part of the write itself. */
+export async function updateDraftDefinition(
+  db: DbOrTx,
+  params: { id: string; teamId: string; definition: unknown; clearDesign: boolean },
+) {
+  const [row] = await db
+    .update(studies)
+    .set({
+      definition: params.definition,
+      ...(params.clearDesign ? { currentDesignId: null } : {}),
+      updatedAt: new Date(),
+    })
+    .where(
+      and(
+        eq(studies.id, params.id),
+        eq(studies.teamId, params.teamId),
+        eq(studies.status, 'draft'),
+      ),
+    )
+    .returning(studyColumns);
+  return row ?? null;
+}
+
+export async function getStudyByName(db: DbOrTx, params: { teamId: string; name: string }) {
+  const [row] = await db
+    .select(studyColumns)
+    .from(studies)
+    .where(and(eq(studies.teamId, params.teamId), eq(studies.name, params.name)))
+    .limit(1);
   return row ?? null;
 }

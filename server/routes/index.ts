@@ -9,11 +9,13 @@ import { createAuthRouter } from './auth';
 import { createAccountRouter } from './account';
 import { createTeamsRouter } from './teams';
 import { createInvitationsRouter } from './invitations';
+import { createStudiesRouter } from './studies';
 
 export function mountApiRoutes(api: Router, deps: AppDeps): void {
   api.use('/health', createHealthRouter(deps));
   api.use('/auth', createAuthRouter(deps));
   api.use('/account', createAccountRouter(deps));
   api.use('/invitations', createInvitationsRouter(deps));
+  api.use('/teams/:teamId/studies', createStudiesRouter(deps));
   api.use('/teams', createTeamsRouter(deps));
 }

@@ -8,8 +8,9 @@ import { paths } from '@/config/paths';
 import { AppShell } from '@/components/layout/app-shell';
 import { HomeRedirect, RequireAuth } from './routes/require-auth';
 import { NotFound } from './routes/not-found';
+import { getSectionRoutes } from './routes/studies/section-modules';
 
-export function createRouter(_queryClient: QueryClient) {
+export function createRouter(queryClient: QueryClient) {
   return createBrowserRouter([
     { path: paths.home.path, element: <HomeRedirect /> },
     { path: paths.signIn.path, lazy: () => import('./routes/auth/sign-in') },
@@ -20,6 +21,23 @@ export function createRouter(_queryClient: QueryClient) {
           element: <AppShell />,
           children: [
             { path: paths.studies.path, lazy: () => import('./routes/studies/study-list') },
+            {
+              // Section screens register themselves: see routes/studies/section-modules.ts.
+              path: paths.study.path,
+              lazy: async () => {
+                const m = await import('./routes/studies/study-layout');
+                return { Component: m.StudyLayout, loader: m.createStudyLoader(queryClient) };
+              },
+              children: [
+                {
+                  index: true,
+                  lazy: async () => ({
+                    Component: (await import('./routes/studies/study-layout')).StudyIndexRedirect,
+                  }),
+                },
+                ...getSectionRoutes(),
+              ],
+            },
           ],
         },
       ],

@@ -1,0 +1,39 @@
+/** Designs attached to studies (generated, imported or copied). */
+import { and, eq } from 'drizzle-orm';
+import type { DbOrTx } from '../client';
+import { designs } from '../schema/studies';
+
+export const designColumns = {
+  id: designs.id,
+  studyId: designs.studyId,
+  teamId: designs.teamId,
+  method: designs.method,
+  spec: designs.spec,
+  design: designs.design,
+  diagnostics: designs.diagnostics,
+  createdAt: designs.createdAt,
+};
+
+export async function getDesignById(db: DbOrTx, params: { id: string; teamId: string }) {
+  const [row] = await db
+    .select(designColumns)
+    .from(designs)
+    .where(and(eq(designs.id, params.id), eq(designs.teamId, params.teamId)));
+  return row ?? null;
+}
+
+export async function insertDesign(
+  db: DbOrTx,
+  params: {
+    studyId: string;
+    teamId: string;
+    method: string;
+    spec: unknown;
+    design: unknown;
+    diagnostics: unknown;
+    createdBy: string | null;
+  },
+) {
+  const [row] = await db.insert(designs).values(params).returning(designColumns);
+  return row;
+}

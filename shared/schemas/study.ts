@@ -1,0 +1,60 @@
+/**
+ * Studies as the API shows them: the list entry with its counts, the full study with its
+ * definition, and the inputs to create, rename, archive and edit the definition.
+ */
+import { z } from 'zod';
+import { studyDefinitionSchema, type StudyDefinition } from './study-definition';
+
+export const studyStatusSchema = z.enum(['draft', 'live', 'closed']);
+export type StudyStatus = z.infer<typeof studyStatusSchema>;
+
+export const createStudySchema = z.object({
+  name: z.string().trim().min(1, 'Give the study a name').max(160),
+  description: z.string().trim().max(2000).default(''),
+});
+export type CreateStudyInput = z.input<typeof createStudySchema>;
+
+export const updateStudySchema = z
+  .object({
+    name: z.string().trim().min(1, 'Give the study a name').max(160).optional(),
+    description: z.string().trim().max(2000).optional(),
+  })
+  .refine((v) => v.name !== undefined || v.description !== undefined, {
+    message: 'Nothing to change',
+  });
+export type UpdateStudyInput = z.input<typeof updateStudySchema>;
+
+export const archiveStudySchema = z.object({ archived: z.boolean() });
+
+export const listStudiesQuerySchema = z.object({
+  archived: z.enum(['true', 'false']).default('false'),
+});
+
+export const updateDefinitionSchema = z.object({ definition: studyDefinitionSchema });
+export type UpdateDefinitionInput = z.input<typeof updateDefinitionSchema>;
+
+export type StudyCounts = {
+  attributes: number;
+  tasks: number;
+  blocks: number;
+  respondents: number;
+};
+
+export type StudySummary = {
+  id: string;
+  publicId: string;
+  name: string;
+  description: string;
+  status: StudyStatus;
+  archivedAt: string | null;
+  createdAt: string;
+  updatedAt: string;
+  counts: StudyCounts;
+};
+
+export type Study = StudySummary & {
+  definition: StudyDefinition;
+  questionnaire: unknown;
+  currentDesignId: string | null;
+  currentVersion: number;
+};

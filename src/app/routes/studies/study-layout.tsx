@@ -1,0 +1,65 @@
+/**
+ * The study page: name, state and the pipeline of sections, with the current section below.
+ * Section screens are child routes (see section-modules.ts).
+ */
+import { Link, Navigate, Outlet, useParams } from 'react-router';
+import type { QueryClient } from '@tanstack/react-query';
+import type { LoaderFunctionArgs } from 'react-router';
+import { paths, type StudySection } from '@/config/paths';
+import { Spinner } from '@/components/ui/feedback';
+import { ErrorText, PanelErrorBoundary } from '@/components/ui/error-boundary';
+import { getStudyQueryOptions, useStudy } from '@/features/studies/api/get-study';
+import { StudyPipeline } from '@/features/studies/components/study-pipeline';
+import { StudyStatusBadge } from '@/features/studies/components/study-status-badge';
+import { builtSections } from './section-modules';
+
+export const createStudyLoader =
+  (queryClient: QueryClient) =>
+  ({ params }: LoaderFunctionArgs) => {
+    if (params.teamId && params.studyId)
+      void queryClient.prefetchQuery(getStudyQueryOptions(params.teamId, params.studyId));
+    return null;
+  };
+
+export function StudyLayout() {
+  const { teamId = '', studyId = '' } = useParams();
+  const { data: study, error, isPending } = useStudy(teamId, studyId);
+  if (isPending) return <Spinner label="Loading the study…" />;
+  if (error || !study) return <ErrorText error={error} />;
+
+  const done = new Set<StudySection>();
+  if (study.counts.attributes > 0) done.add('attributes');
+  if (study.counts.tasks > 0) done.add('tasks');
+
+  return (
+    <div>
+      <div className="mb-4 flex flex-col gap-1">
+        <Link
+          to={paths.studies.getHref(teamId)}
+          className="text-sm text-ink-muted hover:text-primary"
+        >
+          ← Studies
+        </Link>
+        <div className="flex flex-wrap items-center gap-3">
+          <h1 className="text-2xl font-semibold tracking-tight text-ink">{study.name}</h1>
+          <StudyStatusBadge status={study.status} archived={study.archivedAt !== null} />
+        </div>
+        {study.description && <p className="text-sm text-ink-soft">{study.description}</p>}
+      </div>
+      <div className="mb-6 border-b border-line pb-3">
+        <StudyPipeline teamId={teamId} studyId={studyId} available={builtSections} done={done} />
+      </div>
+      <PanelErrorBoundary title="This section could not be shown">
+        <Outlet />
+      </PanelErrorBoundary>
+    </div>
+  );
+}
+
+/** /teams/:teamId/studies/:studyId opens the first section that has a screen. */
+export function StudyIndexRedirect() {
+  const { teamId = '', studyId = '' } = useParams();
+  const [first] = builtSections;
+  if (!first) return null;
+  return <Navigate to={paths.studySection.getHref(teamId, studyId, first)} replace />;
+}

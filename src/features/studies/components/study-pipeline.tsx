@@ -1,0 +1,77 @@
+import { NavLink } from 'react-router';
+import { paths, studySections, type StudySection } from '@/config/paths';
+import { cn } from '@/lib/cn';
+
+export const sectionLabels: Record<StudySection, string> = {
+  attributes: 'Attributes',
+  tasks: 'Tasks',
+  questionnaire: 'Questionnaire',
+  preview: 'Preview',
+  fieldwork: 'Fieldwork',
+  responses: 'Responses',
+  models: 'Models',
+  tastes: 'Tastes',
+  shares: 'Shares',
+  exports: 'Exports',
+};
+
+type Props = {
+  teamId: string;
+  studyId: string;
+  /** Sections that have a screen; the others are shown disabled. */
+  available: ReadonlySet<StudySection>;
+  /** Sections whose work is done (a tick beside the name). */
+  done?: ReadonlySet<StudySection>;
+};
+
+/** The study's sections left to right, in the order the work flows; scrolls sideways on phones. */
+export function StudyPipeline({ teamId, studyId, available, done }: Props) {
+  return (
+    <nav aria-label="Study sections" className="-mx-4 overflow-x-auto px-4 sm:mx-0 sm:px-0">
+      <ol className="flex min-w-max items-center gap-1 pb-1">
+        {studySections.map((section, i) => {
+          const label = sectionLabels[section];
+          const step = (
+            <>
+              <span
+                aria-hidden
+                className="num inline-flex size-5 items-center justify-center rounded-full border border-current text-[11px]"
+              >
+                {done?.has(section) ? '✓' : i + 1}
+              </span>
+              {label}
+            </>
+          );
+          return (
+            <li key={section} className="flex items-center gap-1">
+              {i > 0 && <span aria-hidden className="h-px w-3 bg-line sm:w-5" />}
+              {available.has(section) ? (
+                <NavLink
+                  to={paths.studySection.getHref(teamId, studyId, section)}
+                  className={({ isActive }) =>
+                    cn(
+                      'inline-flex min-h-10 items-center gap-2 rounded-full px-3 text-sm font-medium transition-colors',
+                      isActive
+                        ? 'bg-primary text-white'
+                        : 'text-ink-soft hover:bg-primary-soft hover:text-primary',
+                    )
+                  }
+                >
+                  {step}
+                </NavLink>
+              ) : (
+                <span
+                  aria-disabled="true"
+                  title="Available once this section ships"
+                  className="inline-flex min-h-10 cursor-not-allowed items-center gap-2 rounded-full px-3 text-sm text-ink-muted/70"
+                >
+                  {step}
+                </span>
+              )}
+            </li>
+          );
+        })}
+      </ol>
+    </nav>
+  );
+}

@@ -99,3 +99,16 @@ export async function countOwners(db: DbOrTx, params: { teamId: string }) {
     .where(and(eq(memberships.teamId, params.teamId), eq(memberships.role, 'owner')));
   return Number(row?.n ?? 0);
 }
+
+/**
+ * Locks the team row until the transaction ends, so membership changes of one team run one at
+ * a time (the last-owner check would otherwise race: two demotions could each see two owners).
+ */
+export async function lockTeam(db: DbOrTx, params: { teamId: string }) {
+  const [row] = await db
+    .select({ id: teams.id })
+    .from(teams)
+    .where(eq(teams.id, params.teamId))
+    .for('update');
+  return row ?? null;
+}

@@ -1,5 +1,5 @@
 /** Team invitations and password resets: one-time tokens stored as hashes. */
-import { and, eq, gt, isNull } from 'drizzle-orm';
+import { and, asc, eq, gt, isNull } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { passwordResets, teamInvitations, teams, users } from '../schema/accounts';
 import type { Role } from '../../shared/permissions';
@@ -41,7 +41,8 @@ export async function listOpenInvitations(db: DbOrTx, params: { teamId: string; 
         isNull(teamInvitations.revokedAt),
         gt(teamInvitations.expiresAt, params.now),
       ),
-    );
+    )
+    .orderBy(asc(teamInvitations.createdAt));
 }
 
 export async function getInvitationByTokenHash(db: DbOrTx, params: { tokenHash: string }) {
@@ -83,6 +84,8 @@ export async function revokeInvitation(
         eq(teamInvitations.id, params.id),
         eq(teamInvitations.teamId, params.teamId),
         isNull(teamInvitations.acceptedAt),
+        // Cancelling twice is a 404 rather than a silent rewrite of the first cancellation time.
+        isNull(teamInvitations.revokedAt),
       ),
     )
     .returning({ id: teamInvitations.id });

@@ -10,6 +10,7 @@ import {
   insertTeam,
   listMembers,
   listTeamsOfUser,
+  lockTeam,
   updateMembershipRole,
   updateTeam,
 } from '../../db/queries/memberships';
@@ -54,6 +55,7 @@ const lastOwner = () =>
 
 export async function changeMemberRole(deps: AppDeps, teamId: string, userId: string, role: Role) {
   return deps.db.transaction(async (tx) => {
+    await lockTeam(tx, { teamId });
     const m = await getMembership(tx, { teamId, userId });
     if (!m) throw new NotFoundError('Member');
     if (m.role === 'owner' && role !== 'owner' && (await countOwners(tx, { teamId })) <= 1)
@@ -64,6 +66,7 @@ export async function changeMemberRole(deps: AppDeps, teamId: string, userId: st
 
 export async function removeMember(deps: AppDeps, teamId: string, userId: string) {
   await deps.db.transaction(async (tx) => {
+    await lockTeam(tx, { teamId });
     const m = await getMembership(tx, { teamId, userId });
     if (!m) throw new NotFoundError('Member');
     if (m.role === 'owner' && (await countOwners(tx, { teamId })) <= 1) throw lastOwner();

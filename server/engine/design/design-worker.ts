@@ -39,3 +39,7 @@ export function runDesignTask(message: unknown): DesignWorkerResult {
     port?.close();
   }
 }
+
+// Piscina loads TypeScript workers through tsx only via the default export: its `name`
+// option fails with ERR_UNKNOWN_FILE_EXTENSION under `--import tsx` (checked with piscina 5.3).
+export default runDesignTask;

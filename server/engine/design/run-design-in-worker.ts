@@ -43,7 +43,7 @@ export async function runDesignInWorker(
   try {
     return (await pool.run(
       { ...job, port: channel.port2 },
-      { name: 'runDesignTask', transferList: [channel.port2], signal: hooks.signal },
+      { transferList: [channel.port2], signal: hooks.signal },
     )) as DesignWorkerResult;
   } finally {
     channel.port1.close();

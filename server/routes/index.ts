@@ -10,12 +10,18 @@ import { createAccountRouter } from './account';
 import { createTeamsRouter } from './teams';
 import { createInvitationsRouter } from './invitations';
 import { createStudiesRouter } from './studies';
+import { createDesignsRouter } from './designs';
+import { createInviteesRouter } from './invitees';
+import { createUnsubscribeRouter } from './unsubscribe';
 
 export function mountApiRoutes(api: Router, deps: AppDeps): void {
   api.use('/health', createHealthRouter(deps));
   api.use('/auth', createAuthRouter(deps));
   api.use('/account', createAccountRouter(deps));
   api.use('/invitations', createInvitationsRouter(deps));
+  api.use('/teams/:teamId/studies/:studyId/invitees', createInviteesRouter(deps));
+  api.use('/unsubscribe', createUnsubscribeRouter(deps));
+  api.use('/teams/:teamId/studies/:studyId/design', createDesignsRouter(deps));
   api.use('/teams/:teamId/studies', createStudiesRouter(deps));
   api.use('/teams', createTeamsRouter(deps));
 }

@@ -1,0 +1,95 @@
+/**
+ * Invitees of a study (mounted at /teams/:teamId/studies/:studyId/invitees): CSV preview and
+ * import, list, remove, send invitations and reminders. The list shows e-mail addresses, so it
+ * needs personal:read; everything that changes or mails needs fieldwork:manage.
+ */
+import { Router, type RequestHandler } from 'express';
+import multer from 'multer';
+import type { AppDeps } from '../deps';
+import { AppError, ValidationError } from '../lib/errors';
+import { parseBody, parseParams, parseQuery } from '../middleware/validate';
+import { memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { studyParamsSchema } from '../services/study-access';
+import {
+  importInviteesFieldsSchema,
+  INVITEE_CSV_MAX_BYTES,
+  inviteeParamsSchema,
+  listInviteesQuerySchema,
+  sendInvitationsSchema,
+  sendRemindersSchema,
+} from '../../shared/schemas/invitees';
+import * as invitees from '../services/invitees';
+
+const upload = multer({
+  storage: multer.memoryStorage(),
+  limits: { fileSize: INVITEE_CSV_MAX_BYTES, files: 1, fields: 5, parts: 6 },
+}).single('file');
+
+/** Runs multer and turns its errors into the API's error model; requires the file. */
+const receiveCsv: RequestHandler = (req, res, next) => {
+  upload(req, res, (err: unknown) => {
+    if (err instanceof multer.MulterError) {
+      return next(
+        err.code === 'LIMIT_FILE_SIZE'
+          ? new AppError(413, 'file_too_large', 'The file is larger than 5 MB.')
+          : new ValidationError(`Upload rejected: ${err.message}.`, undefined, 'bad_upload'),
+      );
+    }
+    if (err) return next(err);
+    if (!req.file)
+      return next(
+        new ValidationError('Choose a CSV file to upload.', [
+          { path: 'file', message: 'Required' },
+        ]),
+      );
+    next();
+  });
+};
+
+export function createInviteesRouter(deps: AppDeps): Router {
+  const router = Router({ mergeParams: true });
+  router.use(requireUser(deps));
+
+  router.post('/preview', requireTeam(deps, 'fieldwork:manage'), receiveCsv, async (req, res) => {
+    const { studyId } = parseParams(studyParamsSchema, req);
+    res.json(
+      await invitees.previewInviteeCsv(deps, memberOf(req).teamId, studyId, req.file!.buffer),
+    );
+  });
+
+  router.post('/import', requireTeam(deps, 'fieldwork:manage'), receiveCsv, async (req, res) => {
+    const { studyId } = parseParams(studyParamsSchema, req);
+    const { onlyValid } = parseBody(importInviteesFieldsSchema, req);
+    res.status(201).json(
+      await invitees.importInviteeCsv(deps, memberOf(req).teamId, studyId, req.file!.buffer, {
+        onlyValid,
+      }),
+    );
+  });
+
+  router.get('/', requireTeam(deps, 'personal:read'), async (req, res) => {
+    const { studyId } = parseParams(studyParamsSchema, req);
+    const q = parseQuery(listInviteesQuerySchema, req);
+    res.json(await invitees.getInvitees(deps, memberOf(req).teamId, studyId, q));
+  });
+
+  router.delete('/:inviteeId', requireTeam(deps, 'fieldwork:manage'), async (req, res) => {
+    const { studyId, inviteeId } = parseParams(inviteeParamsSchema, req);
+    await invitees.removeInvitee(deps, memberOf(req).teamId, studyId, inviteeId);
+    res.status(204).end();
+  });
+
+  router.post('/send', requireTeam(deps, 'fieldwork:manage'), async (req, res) => {
+    const { studyId } = parseParams(studyParamsSchema, req);
+    const input = parseBody(sendInvitationsSchema, req);
+    res.json(await invitees.sendInvitations(deps, memberOf(req).teamId, studyId, input));
+  });
+
+  router.post('/remind', requireTeam(deps, 'fieldwork:manage'), async (req, res) => {
+    const { studyId } = parseParams(studyParamsSchema, req);
+    const input = parseBody(sendRemindersSchema, req);
+    res.json(await invitees.sendReminders(deps, memberOf(req).teamId, studyId, input));
+  });
+
+  return router;
+}

@@ -1,0 +1,25 @@
+/**
+ * Public unsubscribe API (no sign-in): the token of the personal link identifies the invitee.
+ * GET only reads, so mail scanners that open links unsubscribe nobody; POST unsubscribes and is
+ * also the one-click target of the List-Unsubscribe-Post header (RFC 8058).
+ */
+import { Router } from 'express';
+import type { AppDeps } from '../deps';
+import { parseParams } from '../middleware/validate';
+import { authRateLimit } from '../middleware/rate-limits';
+import { unsubscribeParamsSchema } from '../../shared/schemas/invitees';
+import * as invitees from '../services/invitees';
+
+export function createUnsubscribeRouter(deps: AppDeps): Router {
+  const router = Router();
+  const limited = authRateLimit(deps.env.AUTH_RATE_LIMIT);
+  router.get('/:token', limited, async (req, res) => {
+    const { token } = parseParams(unsubscribeParamsSchema, req);
+    res.json(await invitees.getUnsubscribeStatus(deps, token));
+  });
+  router.post('/:token', limited, async (req, res) => {
+    const { token } = parseParams(unsubscribeParamsSchema, req);
+    res.json(await invitees.unsubscribeInvitee(deps, token));
+  });
+  return router;
+}

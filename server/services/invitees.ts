@@ -1,0 +1,286 @@
+/**
+ * Invitations by e-mail: upload a list (preview first, nothing saved while it has errors unless
+ * the user imports only the valid rows), send personal links, remind those who have not
+ * finished, and honour unsubscribes in every later send.
+ */
+import { nanoid } from 'nanoid';
+import type { AppDeps } from '../deps';
+import { ConflictError, NotFoundError, ValidationError } from '../lib/errors';
+import { loadStudy } from './study-access';
+import { readInviteeCsv } from './invitee-csv';
+import {
+  claimForInvitation,
+  claimForReminder,
+  deleteInvitee,
+  getInviteeByToken,
+  insertInvitees,
+  listInviteeEmails,
+  listInvitees,
+  markUnsubscribed,
+  releaseInvitationClaim,
+  releaseReminderClaim,
+  type InviteeRecord,
+} from '../../db/queries/invitees';
+import { studyInvitationMail, studyReminderMail } from '../mail/fieldwork-templates';
+import type { OutgoingMail } from '../mail/mailer';
+import type {
+  ImportInviteesResult,
+  Invitee,
+  InviteeCsvPreview,
+  InviteeList,
+  ListInviteesQuery,
+  SendInvitationsInput,
+  SendResult,
+  UnsubscribeStatus,
+} from '../../shared/schemas/invitees';
+
+const PREVIEW_SAMPLE_ROWS = 20;
+const PREVIEW_MAX_ERRORS = 200;
+/** A second reminder within this window is skipped: protects against double clicks. */
+export const REMINDER_MIN_INTERVAL_MS = 60 * 60 * 1000;
+const MAIL_CONCURRENCY = 4;
+
+async function readUpload(deps: AppDeps, studyId: string, file: Buffer) {
+  const existing = await listInviteeEmails(deps.db, { studyId });
+  const result = readInviteeCsv(file, existing);
+  const errorRows = new Set(result.errors.map((e) => e.row)).size;
+  return { ...result, errorRows };
+}
+
+export async function previewInviteeCsv(
+  deps: AppDeps,
+  teamId: string,
+  studyId: string,
+  file: Buffer,
+): Promise<InviteeCsvPreview> {
+  await loadStudy(deps, teamId, studyId);
+  const r = await readUpload(deps, studyId, file);
+  return {
+    totalRows: r.totalRows,
+    validCount: r.valid.length,
+    errorCount: r.errorRows,
+    columns: r.columns,
+    sample: r.valid.slice(0, PREVIEW_SAMPLE_ROWS),
+    errors: r.errors.slice(0, PREVIEW_MAX_ERRORS),
+  };
+}
+
+export async function importInviteeCsv(
+  deps: AppDeps,
+  teamId: string,
+  studyId: string,
+  file: Buffer,
+  opts: { onlyValid: boolean },
+): Promise<ImportInviteesResult> {
+  await loadStudy(deps, teamId, studyId);
+  const r = await readUpload(deps, studyId, file);
+  const fileLevel = r.totalRows === 0;
+  if (r.errors.length > 0 && (fileLevel || !opts.onlyValid)) {
+    throw new ValidationError(
+      fileLevel
+        ? r.errors[0].message
+        : `${r.errorRows} row(s) have errors. Fix the file, or import only the valid rows.`,
+      r.errors.slice(0, PREVIEW_MAX_ERRORS).map((e) => ({
+        path: `rows.${e.row}${e.column ? `.${e.column}` : ''}`,
+        message: e.message,
+      })),
+      'csv_has_errors',
+    );
+  }
+  const rows = r.valid.map((v) => ({
+    email: v.email,
+    name: v.name,
+    externalId: v.externalId,
+    token: nanoid(),
+  }));
+  const imported = await insertInvitees(deps.db, { studyId, rows });
+  return { imported, skipped: r.totalRows - imported };
+}
+
+function stateOf(r: {
+  invitedAt: Date | null;
+  unsubscribedAt: Date | null;
+  started: boolean;
+  completed: boolean;
+}): Invitee['state'] {
+  if (r.unsubscribedAt) return 'unsubscribed';
+  if (r.completed) return 'completed';
+  if (r.started) return 'started';
+  return r.invitedAt ? 'invited' : 'not_sent';
+}
+
+export async function getInvitees(
+  deps: AppDeps,
+  teamId: string,
+  studyId: string,
+  q: ListInviteesQuery,
+): Promise<InviteeList> {
+  await loadStudy(deps, teamId, studyId);
+  const { rows, total } = await listInvitees(deps.db, {
+    studyId,
+    state: q.state,
+    search: q.search || undefined,
+    limit: q.pageSize,
+    offset: (q.page - 1) * q.pageSize,
+  });
+  return {
+    items: rows.map((r) => ({
+      id: r.id,
+      email: r.email,
+      name: r.name,
+      externalId: r.externalId,
+      state: stateOf(r),
+      invitedAt: r.invitedAt?.toISOString() ?? null,
+      lastRemindedAt: r.lastRemindedAt?.toISOString() ?? null,
+      reminderCount: r.reminderCount,
+      unsubscribedAt: r.unsubscribedAt?.toISOString() ?? null,
+    })),
+    total,
+    page: q.page,
+    pageSize: q.pageSize,
+  };
+}
+
+export async function removeInvitee(
+  deps: AppDeps,
+  teamId: string,
+  studyId: string,
+  inviteeId: string,
+) {
+  await loadStudy(deps, teamId, studyId);
+  if (!(await deleteInvitee(deps.db, { id: inviteeId, studyId })))
+    throw new NotFoundError('Invitee');
+}
+
+async function loadLiveStudy(deps: AppDeps, teamId: string, studyId: string) {
+  const study = await loadStudy(deps, teamId, studyId);
+  if (study.status !== 'live')
+    throw new ConflictError(
+      'study_not_live',
+      'Invitations and reminders can only be sent while the study is live.',
+    );
+  return study;
+}
+
+function linksFor(deps: AppDeps, publicId: string, token: string) {
+  const base = deps.env.APP_URL;
+  const t = encodeURIComponent(token);
+  return {
+    surveyLink: `${base}/s/${encodeURIComponent(publicId)}?inv=${t}`,
+    unsubscribeLink: `${base}/unsubscribe/${t}`,
+    unsubscribeApi: `${base}/api/unsubscribe/${t}`,
+  };
+}
+
+/** Mails claimed invitees a few at a time; a failed mail gives its claim back. */
+async function mailClaimed(
+  deps: AppDeps,
+  claimed: InviteeRecord[],
+  build: (r: InviteeRecord) => OutgoingMail,
+  release: (r: InviteeRecord) => Promise<void>,
+): Promise<{ sent: number; failed: number }> {
+  let sent = 0;
+  let failed = 0;
+  let next = 0;
+  const worker = async () => {
+    while (next < claimed.length) {
+      const r = claimed[next++];
+      try {
+        await deps.mailer.send(build(r));
+        sent++;
+      } catch (err) {
+        failed++;
+        deps.logger.warn({ err, inviteeId: r.id }, 'invitation mail failed');
+        await release(r);
+      }
+    }
+  };
+  await Promise.all(Array.from({ length: MAIL_CONCURRENCY }, worker));
+  return { sent, failed };
+}
+
+export async function sendInvitations(
+  deps: AppDeps,
+  teamId: string,
+  studyId: string,
+  input: SendInvitationsInput,
+): Promise<SendResult> {
+  const study = await loadLiveStudy(deps, teamId, studyId);
+  const now = new Date();
+  const claimed = await claimForInvitation(deps.db, { studyId, ids: input.inviteeIds, now });
+  const { sent, failed } = await mailClaimed(
+    deps,
+    claimed,
+    (r) =>
+      studyInvitationMail({
+        to: r.email,
+        name: r.name,
+        studyName: study.name,
+        ...linksFor(deps, study.publicId, r.token),
+        subject: input.subject,
+        message: input.message,
+      }),
+    (r) => releaseInvitationClaim(deps.db, { id: r.id, claimedAt: now }),
+  );
+  const asked = input.inviteeIds?.length ?? claimed.length;
+  return { sent, failed, skipped: Math.max(0, asked - claimed.length) };
+}
+
+export async function sendReminders(
+  deps: AppDeps,
+  teamId: string,
+  studyId: string,
+  input: SendInvitationsInput,
+): Promise<SendResult> {
+  const study = await loadLiveStudy(deps, teamId, studyId);
+  const now = new Date();
+  const claimed = await claimForReminder(deps.db, {
+    studyId,
+    ids: input.inviteeIds,
+    now,
+    notSince: new Date(now.getTime() - REMINDER_MIN_INTERVAL_MS),
+  });
+  const { sent, failed } = await mailClaimed(
+    deps,
+    claimed,
+    (r) =>
+      studyReminderMail({
+        to: r.email,
+        name: r.name,
+        studyName: study.name,
+        ...linksFor(deps, study.publicId, r.token),
+        subject: input.subject,
+        message: input.message,
+      }),
+    (r) => releaseReminderClaim(deps.db, { id: r.id, claimedAt: now, previous: r.lastRemindedAt }),
+  );
+  const asked = input.inviteeIds?.length ?? claimed.length;
+  return { sent, failed, skipped: Math.max(0, asked - claimed.length) };
+}
+
+export function maskEmail(email: string): string {
+  const at = email.lastIndexOf('@');
+  if (at < 1) return '***';
+  return `${email[0]}***${email.slice(at)}`;
+}
+
+export async function getUnsubscribeStatus(
+  deps: AppDeps,
+  token: string,
+): Promise<UnsubscribeStatus> {
+  const inv = await getInviteeByToken(deps.db, { token });
+  if (!inv) throw new NotFoundError('Link');
+  return {
+    studyName: inv.studyName,
+    maskedEmail: maskEmail(inv.email),
+    unsubscribed: inv.unsubscribedAt !== null,
+  };
+}
+
+/** Idempotent: a second click keeps the first date. */
+export async function unsubscribeInvitee(deps: AppDeps, token: string): Promise<UnsubscribeStatus> {
+  const inv = await getInviteeByToken(deps.db, { token });
+  if (!inv) throw new NotFoundError('Link');
+  await markUnsubscribed(deps.db, { id: inv.id, now: new Date() });
+  return { studyName: inv.studyName, maskedEmail: maskEmail(inv.email), unsubscribed: true };
+}

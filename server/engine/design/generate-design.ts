@@ -93,6 +93,14 @@ function assertFullFactorialTasks(count: number, spec: DesignSpec): void {
       `The full factorial has ${count} feasible profiles; a design holds at most ${MAX_DESIGN_TASKS} tasks.`,
       { method: 'Too many profiles for a full factorial' },
     );
+  if (spec.blocks > count)
+    throw new DesignError(
+      'invalid_spec',
+      `More blocks than the ${count} tasks of the full factorial`,
+      {
+        blocks: 'More blocks than tasks',
+      },
+    );
   if (spec.tasks !== undefined && spec.tasks !== count)
     throw new DesignError(
       'invalid_spec',
@@ -134,9 +142,8 @@ export function generateDesign(
   hooks.signal?.throwIfAborted();
   hooks.onProgress?.({ phase: 'blocking', fraction: 0.92 });
   const levelCounts = plan.attributes.map((a) => a.levelIds.length);
-  const blocks = Math.min(spec.blocks, grid.S);
-  const blockOfTask = assignBlocks(grid, levelCounts, blocks, random);
-  const design = writeDesign(plan, grid, blockOfTask, blocks);
+  const blockOfTask = assignBlocks(grid, levelCounts, spec.blocks, random);
+  const design = writeDesign(plan, grid, blockOfTask, spec.blocks);
   hooks.onProgress?.({ phase: 'diagnosing', fraction: 0.95 });
   const diagnostics = diagnoseDesign(checked.definition, design, spec.priors, spec.seed);
   hooks.onProgress?.({ phase: 'done', fraction: 1, bestDError: diagnostics.dError ?? undefined });

@@ -3,10 +3,16 @@ import type { Db } from '../db/client';
 import type { Env } from './env';
 import type { Logger } from './lib/logger';
 import type { Mailer } from './mail/mailer';
+import type { JobSender } from './jobs/queue';
+import type { FileStore } from './services/storage/file-store';
 
 export type AppDeps = {
   env: Env;
   db: Db;
   logger: Logger;
   mailer: Mailer;
+  /** Enqueues background jobs; set by startBackgroundServices (tests inject their own). */
+  jobs?: JobSender;
+  /** Where uploaded files live; defaults to the local folder DATA_DIR/files. */
+  storage?: FileStore;
 };

@@ -11,6 +11,7 @@ import { createTeamsRouter } from './teams';
 import { createInvitationsRouter } from './invitations';
 import { createStudiesRouter } from './studies';
 import { createDesignsRouter } from './designs';
+import { createPublicFilesRouter, createStudyFilesRouter } from './files';
 import { createInviteesRouter } from './invitees';
 import { createUnsubscribeRouter } from './unsubscribe';
 
@@ -21,6 +22,8 @@ export function mountApiRoutes(api: Router, deps: AppDeps): void {
   api.use('/invitations', createInvitationsRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/invitees', createInviteesRouter(deps));
   api.use('/unsubscribe', createUnsubscribeRouter(deps));
+  api.use('/files', createPublicFilesRouter(deps));
+  api.use('/teams/:teamId/studies/:studyId/files', createStudyFilesRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/design', createDesignsRouter(deps));
   api.use('/teams/:teamId/studies', createStudiesRouter(deps));
   api.use('/teams', createTeamsRouter(deps));

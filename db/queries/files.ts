@@ -1,0 +1,33 @@
+/** Metadata of uploaded files; the bytes are in the storage module. */
+import { eq } from 'drizzle-orm';
+import type { DbOrTx } from '../client';
+import { storedFiles } from '../schema/studies';
+
+export async function insertStoredFile(
+  db: DbOrTx,
+  params: {
+    teamId: string;
+    studyId: string | null;
+    storageKey: string;
+    contentType: string;
+    sizeBytes: number;
+    originalName: string;
+  },
+) {
+  const [row] = await db.insert(storedFiles).values(params).returning({
+    id: storedFiles.id,
+    storageKey: storedFiles.storageKey,
+    contentType: storedFiles.contentType,
+    sizeBytes: storedFiles.sizeBytes,
+  });
+  return row;
+}
+
+/** Public look-up by the unguessable key (level images are shown to respondents). */
+export async function getStoredFileByKey(db: DbOrTx, params: { storageKey: string }) {
+  const [row] = await db
+    .select({ storageKey: storedFiles.storageKey, contentType: storedFiles.contentType })
+    .from(storedFiles)
+    .where(eq(storedFiles.storageKey, params.storageKey));
+  return row ?? null;
+}

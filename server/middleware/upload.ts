@@ -1,0 +1,45 @@
+/**
+ * One-file multipart uploads kept in memory (small files only), with multer's own errors
+ * turned into the API's error model: too large → 413, anything else → 400.
+ */
+import type { RequestHandler } from 'express';
+import multer from 'multer';
+import { AppError, ValidationError } from '../lib/errors';
+
+export function acceptOneFile(field: string, maxBytes: number): RequestHandler {
+  const upload = multer({
+    storage: multer.memoryStorage(),
+    limits: { fileSize: maxBytes, files: 1, fields: 10 },
+  }).single(field);
+  return (req, res, next) => {
+    upload(req, res, (err: unknown) => {
+      if (!err) return next();
+      if (err instanceof multer.MulterError) {
+        if (err.code === 'LIMIT_FILE_SIZE')
+          return next(
+            new AppError(
+              413,
+              'file_too_large',
+              `The file is larger than ${formatBytes(maxBytes)}.`,
+              [{ path: field, message: `At most ${formatBytes(maxBytes)}` }],
+            ),
+          );
+        return next(new ValidationError(err.message, [{ path: field, message: err.message }]));
+      }
+      next(err);
+    });
+  };
+}
+
+/** The uploaded file, or a 400 naming the field when none was sent. */
+export function requireFile(req: Express.Request, field: string): Express.Multer.File {
+  if (!req.file)
+    throw new ValidationError('Choose a file to upload.', [
+      { path: field, message: 'Choose a file' },
+    ]);
+  return req.file;
+}
+
+function formatBytes(n: number): string {
+  return n >= 1024 * 1024 ? `${(n / 1024 / 1024).toFixed(0)} MB` : `${Math.round(n / 1024)} kB`;
+}

@@ -1,0 +1,50 @@
+/** /api/teams/:teamId/studies/:studyId/design — the Tasks section (design, jobs, CSV). */
+import { Router } from 'express';
+import type { AppDeps } from '../deps';
+import { parseBody, parseParams } from '../middleware/validate';
+import { memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { acceptOneFile, requireFile } from '../middleware/upload';
+import { studyParamsSchema } from '../services/study-access';
+import { designJobParamsSchema } from '../../shared/schemas/design-job';
+import { designSpecSchema } from '../../shared/schemas/design-spec';
+import * as designs from '../services/designs';
+
+const MAX_CSV_BYTES = 1024 * 1024;
+
+export function createDesignsRouter(deps: AppDeps): Router {
+  const router = Router({ mergeParams: true });
+  router.use(requireUser(deps));
+  const read = requireTeam(deps, 'study:read');
+  const write = requireTeam(deps, 'study:write');
+
+  router.get('/', read, async (req, res) => {
+    const { studyId } = parseParams(studyParamsSchema, req);
+    res.json(await designs.getDesignState(deps, memberOf(req).teamId, studyId));
+  });
+  router.post('/jobs', write, async (req, res) => {
+    const { studyId } = parseParams(studyParamsSchema, req);
+    const spec = parseBody(designSpecSchema, req);
+    res.status(202).json(await designs.startDesignJob(deps, memberOf(req), studyId, spec));
+  });
+  router.get('/jobs/:jobId', read, async (req, res) => {
+    const { studyId, jobId } = parseParams(designJobParamsSchema, req);
+    res.json(await designs.getDesignJobView(deps, memberOf(req).teamId, studyId, jobId));
+  });
+  router.post('/jobs/:jobId/cancel', write, async (req, res) => {
+    const { studyId, jobId } = parseParams(designJobParamsSchema, req);
+    res.json(await designs.cancelDesignJob(deps, memberOf(req).teamId, studyId, jobId));
+  });
+  router.post('/import', write, acceptOneFile('file', MAX_CSV_BYTES), async (req, res) => {
+    const { studyId } = parseParams(studyParamsSchema, req);
+    const file = requireFile(req, 'file');
+    const text = file.buffer.toString('utf8');
+    res.status(201).json(await designs.importDesign(deps, memberOf(req), studyId, text));
+  });
+  router.get('/export.csv', read, async (req, res) => {
+    const { studyId } = parseParams(studyParamsSchema, req);
+    const { filename, csv } = await designs.exportDesign(deps, memberOf(req).teamId, studyId);
+    res.type('text/csv; charset=utf-8').attachment(filename).send(csv);
+  });
+
+  return router;
+}

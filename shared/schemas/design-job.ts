@@ -1,0 +1,54 @@
+/**
+ * The Tasks section's API shapes: a design-generation job with its progress, and the design
+ * currently attached to a study. Diagnostics are typed by the engine's DesignDiagnostics
+ * (server/engine/design/diagnostics); here they stay opaque so shared/ imports no server code.
+ */
+import { z } from 'zod';
+import type { Design } from './design';
+import type { DesignSpec } from './design-spec';
+
+export const designJobParamsSchema = z.object({
+  teamId: z.uuid(),
+  studyId: z.uuid('Unknown study'),
+  jobId: z.uuid('Unknown job'),
+});
+
+export type DesignJobStatus = 'queued' | 'running' | 'done' | 'failed' | 'cancelled';
+
+export type DesignJobProgress = {
+  phase?: 'building' | 'searching' | 'blocking' | 'diagnosing' | 'done';
+  fraction?: number;
+  start?: number;
+  starts?: number;
+  pass?: number;
+  bestDError?: number;
+  /** Last heartbeat of the worker (ISO time). */
+  at?: string;
+};
+
+export type DesignJobView = {
+  id: string;
+  status: DesignJobStatus;
+  spec: DesignSpec;
+  progress: DesignJobProgress;
+  designId: string | null;
+  error: string | null;
+  cancelRequested: boolean;
+  createdAt: string;
+  startedAt: string | null;
+  finishedAt: string | null;
+};
+
+export type DesignView<Diagnostics = unknown> = {
+  id: string;
+  method: 'full_factorial' | 'random' | 'd_efficient' | 'imported';
+  spec: Partial<DesignSpec> & { method: string };
+  design: Design;
+  diagnostics: Diagnostics;
+  createdAt: string;
+};
+
+export type DesignState<Diagnostics = unknown> = {
+  design: DesignView<Diagnostics> | null;
+  job: DesignJobView | null;
+};

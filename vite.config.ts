@@ -9,7 +9,12 @@ const apiPort = Number(process.env.API_PORT ?? 5180);
 export default defineConfig({
   plugins: [react(), tailwindcss()],
   resolve: {
-    alias: { '@': r('./src'), '@shared': r('./shared'), '@server': r('./server'), '@db': r('./db') },
+    alias: {
+      '@': r('./src'),
+      '@shared': r('./shared'),
+      '@server': r('./server'),
+      '@db': r('./db'),
+    },
   },
   server: {
     host: '127.0.0.1',

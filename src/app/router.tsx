@@ -14,6 +14,10 @@ export function createRouter(queryClient: QueryClient) {
   return createBrowserRouter([
     { path: paths.home.path, element: <HomeRedirect /> },
     { path: paths.signIn.path, lazy: () => import('./routes/auth/sign-in') },
+    { path: paths.signUp.path, lazy: () => import('./routes/auth/sign-up') },
+    { path: paths.forgotPassword.path, lazy: () => import('./routes/auth/forgot-password') },
+    { path: paths.resetPassword.path, lazy: () => import('./routes/auth/reset-password') },
+    { path: paths.acceptInvitation.path, lazy: () => import('./routes/auth/accept-invitation') },
     {
       element: <RequireAuth />,
       children: [
@@ -21,6 +25,14 @@ export function createRouter(queryClient: QueryClient) {
           element: <AppShell />,
           children: [
             { path: paths.studies.path, lazy: () => import('./routes/studies/study-list') },
+            {
+              path: paths.members.path,
+              lazy: async () => {
+                const m = await import('./routes/team/members');
+                return { Component: m.Component, loader: m.createMembersLoader(queryClient) };
+              },
+            },
+            { path: paths.account.path, lazy: () => import('./routes/account') },
             {
               // Section screens register themselves: see routes/studies/section-modules.ts.
               path: paths.study.path,

@@ -9,6 +9,7 @@ import { Button } from '@/components/ui/button';
 import { ErrorText } from '@/components/ui/error-boundary';
 import { applyFieldErrors } from '@/lib/api-client';
 import { useSignIn } from '@/features/auth/api/sign-in';
+import { safeRedirect, withAuthParams } from './safe-redirect';
 
 export function Component() {
   const navigate = useNavigate();
@@ -16,17 +17,14 @@ export function Component() {
   const signIn = useSignIn();
   const form = useForm<SignInInput>({
     resolver: zodResolver(signInSchema),
-    defaultValues: { email: '', password: '' },
+    defaultValues: { email: params.get('email') ?? '', password: '' },
   });
   const { errors, isSubmitting } = form.formState;
 
   const onSubmit = form.handleSubmit(async (values) => {
     try {
       await signIn.mutateAsync(values);
-      const to = params.get('redirectTo');
-      navigate(to && to.startsWith('/') && !to.startsWith('//') ? to : paths.home.getHref(), {
-        replace: true,
-      });
+      navigate(safeRedirect(params.get('redirectTo'), paths.home.getHref()), { replace: true });
     } catch (err) {
       applyFieldErrors(err, form.setError);
     }
@@ -38,7 +36,10 @@ export function Component() {
       footer={
         <>
           New here?{' '}
-          <Link className="font-medium text-primary underline" to={paths.signUp.getHref()}>
+          <Link
+            className="font-medium text-primary underline"
+            to={withAuthParams(paths.signUp.getHref(), params)}
+          >
             Create an account
           </Link>
         </>

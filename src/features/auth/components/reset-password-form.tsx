@@ -1,0 +1,68 @@
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { z } from 'zod';
+import { passwordSchema, resetPasswordSchema, type CurrentUser } from '@shared/schemas/auth';
+import { TextField } from '@/components/ui/field';
+import { Button } from '@/components/ui/button';
+import { useResetPassword } from '../api/reset-password';
+import { applyServerError, FormError } from './form-error';
+
+// The shared schema plus a repeat of the password, checked only here in the browser.
+const resetFormSchema = z
+  .object({
+    token: resetPasswordSchema.shape.token,
+    password: passwordSchema,
+    confirmPassword: z.string(),
+  })
+  .refine((v) => v.password === v.confirmPassword, {
+    path: ['confirmPassword'],
+    message: 'The two passwords differ',
+  });
+type ResetFormValues = z.infer<typeof resetFormSchema>;
+
+export function ResetPasswordForm({
+  token,
+  onReset,
+}: {
+  token: string;
+  onReset: (me: CurrentUser) => void;
+}) {
+  const reset = useResetPassword();
+  const form = useForm<ResetFormValues>({
+    resolver: zodResolver(resetFormSchema),
+    defaultValues: { token, password: '', confirmPassword: '' },
+  });
+  const { errors, isSubmitting } = form.formState;
+
+  const onSubmit = form.handleSubmit(async ({ password }) => {
+    try {
+      onReset(await reset.mutateAsync({ token, password }));
+    } catch (err) {
+      applyServerError(err, form.setError);
+    }
+  });
+
+  return (
+    <form onSubmit={onSubmit} className="space-y-4" noValidate>
+      <TextField
+        label="New password"
+        type="password"
+        autoComplete="new-password"
+        hint="At least 10 characters."
+        error={errors.password?.message}
+        {...form.register('password')}
+      />
+      <TextField
+        label="Repeat the new password"
+        type="password"
+        autoComplete="new-password"
+        error={errors.confirmPassword?.message}
+        {...form.register('confirmPassword')}
+      />
+      <FormError message={errors.token?.message ?? errors.root?.server?.message} />
+      <Button type="submit" className="w-full" busy={isSubmitting}>
+        Set new password
+      </Button>
+    </form>
+  );
+}

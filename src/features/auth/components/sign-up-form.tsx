@@ -1,0 +1,69 @@
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { signUpSchema, type CurrentUser, type SignUpInput } from '@shared/schemas/auth';
+import { TextField } from '@/components/ui/field';
+import { Button } from '@/components/ui/button';
+import { useSignUp } from '../api/sign-up';
+import { applyServerError, FormError } from './form-error';
+
+export function SignUpForm({
+  defaultValues,
+  teamHint = 'Your studies live in a team. You can invite colleagues and rename it later.',
+  onSignedUp,
+}: {
+  defaultValues?: Partial<SignUpInput>;
+  teamHint?: string;
+  onSignedUp: (me: CurrentUser) => void;
+}) {
+  const signUp = useSignUp();
+  const form = useForm<SignUpInput>({
+    resolver: zodResolver(signUpSchema),
+    defaultValues: { name: '', email: '', password: '', teamName: '', ...defaultValues },
+  });
+  const { errors, isSubmitting } = form.formState;
+
+  const onSubmit = form.handleSubmit(async (values) => {
+    try {
+      onSignedUp(await signUp.mutateAsync(values));
+    } catch (err) {
+      applyServerError(err, form.setError);
+    }
+  });
+
+  return (
+    <form onSubmit={onSubmit} className="space-y-4" noValidate>
+      <TextField
+        label="Your name"
+        autoComplete="name"
+        error={errors.name?.message}
+        {...form.register('name')}
+      />
+      <TextField
+        label="E-mail"
+        type="email"
+        autoComplete="email"
+        error={errors.email?.message}
+        {...form.register('email')}
+      />
+      <TextField
+        label="Password"
+        type="password"
+        autoComplete="new-password"
+        hint="At least 10 characters. A few unrelated words work well."
+        error={errors.password?.message}
+        {...form.register('password')}
+      />
+      <TextField
+        label="Team name"
+        autoComplete="organization"
+        hint={teamHint}
+        error={errors.teamName?.message}
+        {...form.register('teamName')}
+      />
+      <FormError message={errors.root?.server?.message} />
+      <Button type="submit" className="w-full" busy={isSubmitting}>
+        Create account
+      </Button>
+    </form>
+  );
+}

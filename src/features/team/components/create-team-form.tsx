@@ -1,0 +1,47 @@
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import type { TeamSummary } from '@shared/schemas/auth';
+import { createTeamSchema, type CreateTeamInput } from '@shared/schemas/team';
+import { TextField } from '@/components/ui/field';
+import { Button } from '@/components/ui/button';
+import { Alert } from '@/components/ui/feedback';
+import { applyFieldErrors } from '@/lib/api-client';
+import { useCreateTeam } from '../api/create-team';
+
+export function CreateTeamForm({ onCreated }: { onCreated: (team: TeamSummary) => void }) {
+  const [created, setCreated] = useState('');
+  const create = useCreateTeam({ onSuccess: onCreated });
+  const form = useForm<CreateTeamInput>({
+    resolver: zodResolver(createTeamSchema),
+    defaultValues: { name: '' },
+  });
+  const { errors, isSubmitting } = form.formState;
+
+  const onSubmit = form.handleSubmit(async (values) => {
+    setCreated('');
+    try {
+      const team = await create.mutateAsync(values);
+      setCreated(team.name);
+      form.reset({ name: '' });
+    } catch (err) {
+      applyFieldErrors(err, form.setError);
+    }
+  });
+
+  return (
+    <form onSubmit={onSubmit} className="space-y-4" noValidate aria-label="Create a team">
+      <TextField
+        label="New team name"
+        hint="You will be its owner. Studies belong to one team."
+        error={errors.name?.message}
+        {...form.register('name')}
+      />
+      {create.isError && !errors.name && <Alert tone="danger">{create.error.message}</Alert>}
+      {created && <Alert tone="success">Team “{created}” created.</Alert>}
+      <Button type="submit" variant="secondary" busy={isSubmitting}>
+        Create team
+      </Button>
+    </form>
+  );
+}

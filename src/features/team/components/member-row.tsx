@@ -1,0 +1,114 @@
+import { useRef, useState } from 'react';
+import { roles, type Role } from '@shared/permissions';
+import type { Member } from '@shared/schemas/team';
+import { Badge } from '@/components/ui/badge';
+import { Button } from '@/components/ui/button';
+import { formatDate, roleLabels } from './role-label';
+
+const selectClass =
+  'h-9 rounded-md border border-line bg-white px-2 text-sm text-ink focus:border-primary disabled:opacity-60';
+
+/** One member: name and address, role (a select for owners), and removal with a confirmation. */
+export function MemberRow({
+  member,
+  isSelf,
+  canManage,
+  busy,
+  onChangeRole,
+  onRemove,
+}: {
+  member: Member;
+  isSelf: boolean;
+  canManage: boolean;
+  busy: boolean;
+  onChangeRole: (role: Role) => void;
+  onRemove: () => void;
+}) {
+  const [confirming, setConfirming] = useState(false);
+  const removeButton = useRef<HTMLButtonElement>(null);
+  const selectId = `role-${member.userId}`;
+
+  const keep = () => {
+    setConfirming(false);
+    // Back to where the person was, for keyboard users.
+    requestAnimationFrame(() => removeButton.current?.focus());
+  };
+
+  return (
+    <li className="py-3">
+      <div className="flex flex-wrap items-center gap-x-4 gap-y-2">
+        <div className="min-w-0 flex-1 basis-48">
+          <p className="font-medium text-ink">
+            {member.name}
+            {isSelf && <span className="ml-2 text-xs font-normal text-ink-muted">(you)</span>}
+          </p>
+          <p className="break-all text-sm text-ink-soft">{member.email}</p>
+          <p className="text-xs text-ink-muted">Joined {formatDate(member.joinedAt)}</p>
+        </div>
+        {canManage ? (
+          <div className="flex items-center gap-2">
+            <label htmlFor={selectId} className="sr-only">
+              Role of {member.name}
+            </label>
+            <select
+              id={selectId}
+              className={selectClass}
+              value={member.role}
+              disabled={busy}
+              onChange={(e) => onChangeRole(e.target.value as Role)}
+            >
+              {roles.map((r) => (
+                <option key={r} value={r}>
+                  {roleLabels[r]}
+                </option>
+              ))}
+            </select>
+            <Button
+              ref={removeButton}
+              variant="ghost"
+              size="sm"
+              disabled={busy || confirming}
+              aria-label={`Remove ${member.name}`}
+              onClick={() => setConfirming(true)}
+            >
+              Remove
+            </Button>
+          </div>
+        ) : (
+          <Badge tone={member.role === 'owner' ? 'accent' : 'primary'}>
+            {roleLabels[member.role]}
+          </Badge>
+        )}
+      </div>
+      {confirming && (
+        <div
+          role="group"
+          aria-label={`Confirm removing ${member.name}`}
+          className="mt-3 rounded-md border border-danger/30 bg-danger-soft p-3 text-sm"
+        >
+          <p className="text-ink">
+            Remove <strong>{member.name}</strong> from the team? They lose access to its studies at
+            once{isSelf ? ', and so do you' : ''}.
+          </p>
+          <div className="mt-3 flex flex-wrap gap-2">
+            <Button
+              variant="danger"
+              size="sm"
+              autoFocus
+              busy={busy}
+              onClick={() => {
+                setConfirming(false);
+                onRemove();
+              }}
+            >
+              Remove {member.name}
+            </Button>
+            <Button variant="secondary" size="sm" onClick={keep}>
+              Keep
+            </Button>
+          </div>
+        </div>
+      )}
+    </li>
+  );
+}

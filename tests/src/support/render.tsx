@@ -1,0 +1,36 @@
+/** Renders a component with a fresh query client, and answers fetch calls with canned responses. */
+import type { ReactElement } from 'react';
+import { render } from '@testing-library/react';
+import { QueryClientProvider } from '@tanstack/react-query';
+import { vi } from 'vitest';
+import { createQueryClient } from '@/lib/query-client';
+
+export function renderWithQuery(ui: ReactElement) {
+  const queryClient = createQueryClient();
+  return {
+    queryClient,
+    ...render(<QueryClientProvider client={queryClient}>{ui}</QueryClientProvider>),
+  };
+}
+
+export type FakeAnswer = { status: number; body?: unknown };
+
+/** Replaces fetch: each call takes the next answer; the requests are kept for assertions. */
+export function fakeFetch(...answers: FakeAnswer[]) {
+  const requests: { url: string; method: string; body: unknown }[] = [];
+  const fn = vi.fn(async (url: string, init?: RequestInit) => {
+    requests.push({
+      url,
+      method: init?.method ?? 'GET',
+      body: init?.body ? JSON.parse(String(init.body)) : undefined,
+    });
+    const a = answers.shift();
+    if (!a) throw new Error(`unexpected request to ${url}`);
+    return new Response(a.body === undefined ? null : JSON.stringify(a.body), {
+      status: a.status,
+      headers: { 'Content-Type': 'application/json' },
+    });
+  });
+  vi.stubGlobal('fetch', fn);
+  return { fn, requests };
+}

@@ -1,0 +1,33 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api } from '@/lib/api-client';
+import type { Study } from '@shared/schemas/study';
+import type { StudyDefinition } from '@shared/schemas/study-definition';
+import { studyKeys } from './study-keys';
+
+export type SavedDefinition = Study & { designDetached: boolean };
+
+export function saveDefinition(teamId: string, studyId: string, definition: StudyDefinition) {
+  return api.put<SavedDefinition>(`/teams/${teamId}/studies/${studyId}/definition`, {
+    definition,
+  });
+}
+
+/**
+ * Saving may detach a design that no longer fits: the route passes `onSaved` to refresh
+ * the design feature's queries (features do not import each other).
+ */
+export function useSaveDefinition(
+  teamId: string,
+  studyId: string,
+  onSaved?: (study: SavedDefinition) => void,
+) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (definition: StudyDefinition) => saveDefinition(teamId, studyId, definition),
+    onSuccess: (study) => {
+      qc.setQueryData(studyKeys.detail(teamId, studyId), study);
+      void qc.invalidateQueries({ queryKey: studyKeys.lists(teamId) });
+      onSaved?.(study);
+    },
+  });
+}

@@ -1,0 +1,19 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api } from '@/lib/api-client';
+import type { Study, UpdateStudyInput } from '@shared/schemas/study';
+import { studyKeys } from './study-keys';
+
+export function updateStudy(teamId: string, studyId: string, input: UpdateStudyInput) {
+  return api.patch<Study>(`/teams/${teamId}/studies/${studyId}`, input);
+}
+
+export function useUpdateStudy(teamId: string, studyId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: UpdateStudyInput) => updateStudy(teamId, studyId, input),
+    onSuccess: (study) => {
+      qc.setQueryData(studyKeys.detail(teamId, studyId), study);
+      void qc.invalidateQueries({ queryKey: studyKeys.lists(teamId) });
+    },
+  });
+}

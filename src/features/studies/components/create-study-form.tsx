@@ -1,0 +1,60 @@
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { z } from 'zod';
+import { createStudySchema, type Study } from '@shared/schemas/study';
+import { TextAreaField, TextField } from '@/components/ui/field';
+import { Button } from '@/components/ui/button';
+import { ErrorText } from '@/components/ui/error-boundary';
+import { applyFieldErrors } from '@/lib/api-client';
+import { useCreateStudy } from '../api/create-study';
+
+type Values = z.input<typeof createStudySchema>;
+
+export function CreateStudyForm({
+  teamId,
+  onCreated,
+  onCancel,
+}: {
+  teamId: string;
+  onCreated: (study: Study) => void;
+  onCancel: () => void;
+}) {
+  const create = useCreateStudy(teamId);
+  const form = useForm<Values>({
+    resolver: zodResolver(createStudySchema),
+    defaultValues: { name: '', description: '' },
+  });
+  const { errors, isSubmitting } = form.formState;
+  const onSubmit = form.handleSubmit(async (values) => {
+    try {
+      onCreated(await create.mutateAsync(values));
+    } catch (err) {
+      applyFieldErrors(err, form.setError);
+    }
+  });
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="New study">
+      <TextField
+        label="Study name"
+        autoFocus
+        error={errors.name?.message}
+        {...form.register('name')}
+      />
+      <TextAreaField
+        label="Description (optional)"
+        hint="For your team; respondents do not see it."
+        error={errors.description?.message}
+        {...form.register('description')}
+      />
+      {create.error && !create.error.message.includes('name') && <ErrorText error={create.error} />}
+      <div className="flex gap-2">
+        <Button type="submit" busy={isSubmitting}>
+          Create study
+        </Button>
+        <Button variant="ghost" onClick={onCancel}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}

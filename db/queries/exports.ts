@@ -1,0 +1,22 @@
+/** Reads for downloads that are not tied to a run: the study's respondents. */
+import { and, asc, eq } from 'drizzle-orm';
+import type { DbOrTx } from '../client';
+import { respondents } from '../schema/fieldwork';
+
+/** Every respondent of a study in order of starting (their number is the 1-based position). */
+export async function listStudyRespondents(db: DbOrTx, params: { studyId: string }) {
+  return db
+    .select({
+      id: respondents.id,
+      externalId: respondents.externalId,
+      block: respondents.block,
+      status: respondents.status,
+      included: respondents.included,
+      flags: respondents.flags,
+      startedAt: respondents.startedAt,
+      finishedAt: respondents.finishedAt,
+    })
+    .from(respondents)
+    .where(and(eq(respondents.studyId, params.studyId)))
+    .orderBy(asc(respondents.startedAt), asc(respondents.id));
+}

@@ -1,0 +1,205 @@
+/**
+ * Export use cases ('exports:read', checked by the route): per-respondent estimates as CSV and
+ * XLSX, the long-format choice data (the format `npm run estimate` reads), the design, the
+ * background answers and a printable run report. Personal columns (external ids, free-text
+ * answers) only for roles with 'personal:read'; everything else is the same for every role.
+ */
+import type { AppDeps } from '../deps';
+import { NotFoundError } from '../lib/errors';
+import { loadStudy } from './study-access';
+import {
+  getLatestStudyVersion,
+  getRunOfStudy,
+  listQuestionAnswers,
+  listRunProfiles,
+} from '../../db/queries/tastes';
+import { listStudyRespondents } from '../../db/queries/exports';
+import { roleCan } from '../../shared/permissions';
+import type { ExportManifest } from '../../shared/schemas/exports';
+import type { StudyDefinition } from '../../shared/schemas/study-definition';
+import type { Design } from '../../shared/schemas/design';
+import { loadStudyChoiceData, toLongCsvRows } from './choice-data-from-study';
+import { exportDesignCsv } from '../engine/design/export-design-csv';
+import { loadRunContext, type Member } from './tastes/run-context';
+import { getBackgroundQuestions, indexAnswers, formatAnswer } from './tastes/background-answers';
+import { getFlagNames } from './tastes/taste-rows';
+import { buildProfileTable } from './exports/profile-table';
+import { writeProfilesXlsx } from './exports/profiles-xlsx';
+import { renderRunReport } from './exports/run-report';
+import { writeCsv, escapeCsvText } from './exports/csv-cells';
+import { parse } from 'csv-parse/sync';
+import { stringify } from 'csv-stringify/sync';
+
+export type Download = { filename: string; contentType: string; body: string | Buffer };
+
+const CSV = 'text/csv; charset=utf-8';
+
+/** A cell that is a plain number (as the design writer prints numeric levels). */
+const isNumeric = (c: string) => c.trim() !== '' && Number.isFinite(Number(c));
+
+function fileName(studyName: string, kind: string, ext: string, at: Date): string {
+  const slug = studyName
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-|-$/g, '')
+    .slice(0, 60);
+  return `${slug || 'study'}-${kind}-${at.toISOString().slice(0, 10)}.${ext}`;
+}
+
+export async function getExportManifest(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+): Promise<ExportManifest> {
+  const study = await loadStudy(deps, member.teamId, studyId);
+  const version = await getLatestStudyVersion(deps.db, { studyId });
+  return {
+    personalColumns: roleCan(member.role, 'personal:read'),
+    designAvailable: version !== null || study.currentDesignId !== null,
+    choicesAvailable: version !== null,
+  };
+}
+
+async function loadProfileTable(deps: AppDeps, member: Member, studyId: string, runId: string) {
+  const ctx = await loadRunContext(deps, member, studyId, runId);
+  const profiles = await listRunProfiles(deps.db, { runId, studyId });
+  const answers = indexAnswers(await listQuestionAnswers(deps.db, { studyId }));
+  return { ctx, profiles, table: buildProfileTable(ctx.header, profiles, answers) };
+}
+
+export async function exportProfilesCsv(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  runId: string,
+  at = new Date(),
+): Promise<Download> {
+  const { ctx, table } = await loadProfileTable(deps, member, studyId, runId);
+  return {
+    filename: fileName(ctx.study.name, 'taste-profiles', 'csv', at),
+    contentType: CSV,
+    body: writeCsv(table.header, table.rows),
+  };
+}
+
+export async function exportProfilesXlsx(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  runId: string,
+  at = new Date(),
+): Promise<Download> {
+  const { ctx, table } = await loadProfileTable(deps, member, studyId, runId);
+  return {
+    filename: fileName(ctx.study.name, 'taste-profiles', 'xlsx', at),
+    contentType: 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
+    body: await writeProfilesXlsx(ctx, table, at),
+  };
+}
+
+export async function exportRunReport(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  runId: string,
+  at = new Date(),
+): Promise<Download> {
+  const { ctx, profiles } = await loadProfileTable(deps, member, studyId, runId);
+  const lowDraws = profiles.filter((p) => p.effectiveDraws < ctx.header.lowDrawsThreshold).length;
+  return {
+    filename: fileName(ctx.study.name, 'run-report', 'html', at),
+    contentType: 'text/html; charset=utf-8',
+    body: renderRunReport(ctx, { count: profiles.length, lowDraws }, at),
+  };
+}
+
+/** Long-format choice data of every included respondent; with a run, only its columns. */
+export async function exportChoicesCsv(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  runId?: string,
+  at = new Date(),
+): Promise<Download> {
+  const study = await loadStudy(deps, member.teamId, studyId);
+  let keys: string[] | undefined;
+  if (runId) {
+    const run = await getRunOfStudy(deps.db, { id: runId, teamId: member.teamId, studyId });
+    if (!run) throw new NotFoundError('Run');
+    keys = (run.spec as { coefficients: { name: string; column?: string }[] }).coefficients.map(
+      (c) => c.column ?? c.name,
+    );
+  }
+  const prepared = await loadStudyChoiceData(deps.db, { studyId });
+  const table = toLongCsvRows(prepared, keys);
+  return {
+    filename: fileName(study.name, 'choices-long', 'csv', at),
+    contentType: CSV,
+    body: writeCsv(table.header, table.rows),
+  };
+}
+
+/** The design of the newest live version (else the study's current draft design). */
+export async function exportDesign(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  at = new Date(),
+): Promise<Download> {
+  const study = await loadStudy(deps, member.teamId, studyId);
+  const version = await getLatestStudyVersion(deps.db, { studyId });
+  if (!version) throw new NotFoundError('Frozen design');
+  const csv = exportDesignCsv(version.definition as StudyDefinition, version.design as Design);
+  // Level labels are free text: re-escape the cells the design writer leaves as they are.
+  const records = parse(csv) as string[][];
+  const safe = records.map((r, i) =>
+    i === 0 ? r : r.map((c) => (isNumeric(c) ? c : escapeCsvText(c))),
+  );
+  return {
+    filename: fileName(study.name, 'design', 'csv', at),
+    contentType: CSV,
+    body: stringify(safe),
+  };
+}
+
+/** Every respondent with their status and background answers. */
+export async function exportAnswersCsv(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  at = new Date(),
+): Promise<Download> {
+  const study = await loadStudy(deps, member.teamId, studyId);
+  const personal = roleCan(member.role, 'personal:read');
+  const version = await getLatestStudyVersion(deps.db, { studyId });
+  const questions = getBackgroundQuestions(version?.questionnaire ?? study.questionnaire).filter(
+    (q) => personal || !q.personal,
+  );
+  const respondents = await listStudyRespondents(deps.db, { studyId });
+  const answers = indexAnswers(await listQuestionAnswers(deps.db, { studyId }));
+  const header = [
+    'respondent',
+    'number',
+    ...(personal ? ['external_id'] : []),
+    'block',
+    'status',
+    'included',
+    'quality_flags',
+    ...questions.map((q) => q.key),
+  ];
+  const rows = respondents.map((r, i) => [
+    r.id,
+    i + 1,
+    ...(personal ? [r.externalId] : []),
+    r.block,
+    r.status,
+    r.included,
+    getFlagNames(r.flags).join('; '),
+    ...questions.map((q) => formatAnswer(q, answers.get(r.id)?.get(q.key))),
+  ]);
+  return {
+    filename: fileName(study.name, 'background-answers', 'csv', at),
+    contentType: CSV,
+    body: writeCsv(header, rows),
+  };
+}

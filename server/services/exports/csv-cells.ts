@@ -1,0 +1,34 @@
+/**
+ * CSV cells safe to open in a spreadsheet. A text cell starting with =, +, −, @, tab or
+ * carriage return can be run as a formula by spreadsheet programs ("CSV injection"; OWASP,
+ * "CSV Injection" page [M]); such cells get a leading single quote. Numbers are written as
+ * numbers and never escaped, so −1.23 stays a number: a finite JavaScript number serialises
+ * to digits, sign, point and exponent only, which no spreadsheet reads as a formula.
+ * Decision: the type of the value decides — text is escaped even when it looks numeric.
+ */
+import { stringify } from 'csv-stringify/sync';
+
+export type CellValue = string | number | boolean | null | undefined;
+
+const FORMULA_START = /^[=+\-@\t\r]/;
+
+/** Escapes one text cell (see the file comment). */
+export function escapeCsvText(text: string): string {
+  return FORMULA_START.test(text) ? `'${text}` : text;
+}
+
+/** The CSV text of one value: numbers as numbers (non-finite as empty), text escaped. */
+export function toCsvCell(value: CellValue): string {
+  if (value === null || value === undefined) return '';
+  if (typeof value === 'number') return Number.isFinite(value) ? String(value) : '';
+  if (typeof value === 'boolean') return value ? 'true' : 'false';
+  return escapeCsvText(value);
+}
+
+/** A whole CSV document (RFC 4180 quoting by csv-stringify) with escaped text cells. */
+export function writeCsv(
+  header: readonly string[],
+  rows: readonly (readonly CellValue[])[],
+): string {
+  return stringify([header.map(toCsvCell), ...rows.map((row) => row.map(toCsvCell))]);
+}

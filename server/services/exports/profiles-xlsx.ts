@@ -1,0 +1,60 @@
+/**
+ * The per-respondent XLSX (exceljs): sheet 1 "About" states the model, the data (study,
+ * version, respondents, data hash), the date and the cautions; sheet 2 "Profiles" holds the
+ * table; sheet 3 "Population" the estimated population moments. Text goes in as text cells,
+ * which spreadsheet programs never evaluate as formulas, so no quote prefix is needed here.
+ */
+import ExcelJS from 'exceljs';
+import type { RunContext } from '../tastes/run-context';
+import type { Table } from './profile-table';
+import { getRunSummary } from './run-summary';
+
+export const ABOUT_SHEET = 'About';
+export const PROFILES_SHEET = 'Profiles';
+
+export async function writeProfilesXlsx(
+  ctx: RunContext,
+  table: Table,
+  exportedAt: Date,
+): Promise<Buffer> {
+  const workbook = new ExcelJS.Workbook();
+  workbook.creator = 'Choicewright';
+  workbook.created = exportedAt;
+
+  const about = workbook.addWorksheet(ABOUT_SHEET);
+  about.columns = [
+    { header: 'About this file', key: 'item', width: 48 },
+    { header: '', key: 'value', width: 110 },
+  ];
+  about.getRow(1).font = { bold: true };
+  for (const [item, value] of getRunSummary(ctx, exportedAt)) about.addRow({ item, value });
+  about.getColumn('value').alignment = { wrapText: true, vertical: 'top' };
+
+  const profiles = workbook.addWorksheet(PROFILES_SHEET, {
+    views: [{ state: 'frozen', ySplit: 1 }],
+  });
+  profiles.addRow(table.header).font = { bold: true };
+  for (const row of table.rows) profiles.addRow(row.map((v) => (v === undefined ? null : v)));
+
+  const population = workbook.addWorksheet('Population');
+  population.addRow([
+    'coefficient',
+    'label',
+    'distribution',
+    'population_mean',
+    'population_sd',
+    'location',
+    'spread',
+  ]).font = { bold: true };
+  for (const c of ctx.header.coefficients)
+    population.addRow([
+      c.name,
+      c.label,
+      c.distribution,
+      c.populationMean,
+      c.populationSd,
+      c.location,
+      c.spread,
+    ]);
+  return Buffer.from(await workbook.xlsx.writeBuffer());
+}

@@ -1,0 +1,114 @@
+/**
+ * Share simulation use case ('runs:read'): codes the analyst's hypothetical alternatives with
+ * the study's coding, takes each respondent's conditional means from a finished mixed-logit
+ * run and averages the respondents' logit probabilities (shared/engine/shares). We use the
+ * conditional means because the run stores each respondent's mean and SD, not their weighted
+ * draws; this ignores the uncertainty within a respondent, which is documented in the UI. An
+ * MNL run has one set of coefficients for everybody, so its shares are the MNL formula.
+ */
+import type { AppDeps } from '../deps';
+import { ValidationError } from '../lib/errors';
+import { listRunProfiles } from '../../db/queries/tastes';
+import { buildCodingPlan } from '../../shared/engine/coding/coding-plan';
+import { codeAlternative } from '../../shared/engine/coding/code-alternative';
+import { simulateShares } from '../../shared/engine/shares/simulate-shares';
+import type { ShareResult, SimulateShares } from '../../shared/schemas/shares';
+import { loadRunContext, type Member, type RunContext } from './tastes/run-context';
+import { resolveGrouping } from './tastes/get-segments';
+
+/** J × K coded rows of the scenario in the run's coefficient order. */
+function codeScenario(
+  ctx: RunContext,
+  input: SimulateShares,
+): { rows: Float64Array; names: string[] } {
+  const plan = buildCodingPlan(ctx.definition);
+  const keys = ctx.spec.coefficients.map((c) => c.column ?? c.name);
+  const at = keys.map((key) => plan.columns.findIndex((c) => c.key === key));
+  const K = keys.length;
+  const coded: Float64Array[] = [];
+  const names: string[] = [];
+  input.alternatives.forEach((alt, i) => {
+    if (alt.alternative >= plan.designedCount)
+      throw new ValidationError('The study has fewer alternatives.', [
+        { path: `alternatives.${i}.alternative`, message: 'Unknown alternative' },
+      ]);
+    const omitted = ctx.definition.alternatives.labels[alt.alternative]?.omittedAttributeIds ?? [];
+    for (const a of ctx.definition.attributes) {
+      if (!omitted.includes(a.id) && !a.levels.some((l) => l.id === alt.levels[a.id]))
+        throw new ValidationError(`Choose a level of ${a.name}.`, [
+          { path: `alternatives.${i}.levels.${a.id}`, message: `Choose a level of ${a.name}` },
+        ]);
+    }
+    coded.push(codeAlternative(plan, alt.alternative, alt.levels));
+    names.push(alt.name);
+  });
+  if (input.includeFixed && plan.fixed) {
+    coded.push(codeAlternative(plan, 'fixed', {}));
+    names.push(ctx.definition.fixedAlternative!.label);
+  }
+  const rows = new Float64Array(coded.length * K);
+  coded.forEach((row, j) => at.forEach((c, k) => (rows[j * K + k] = c >= 0 ? row[c] : 0)));
+  return { rows, names };
+}
+
+export async function simulateStudyShares(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  input: SimulateShares,
+): Promise<ShareResult> {
+  const ctx = await loadRunContext(deps, member, studyId, input.runId);
+  const { rows, names } = codeScenario(ctx, input);
+  const coefficientNames = ctx.spec.coefficients.map((c) => c.name);
+  const K = coefficientNames.length;
+  const profiles = await listRunProfiles(deps.db, { runId: ctx.run.id, studyId });
+  const usesProfiles = ctx.run.model === 'mixed' && profiles.length > 0;
+  const N = usesProfiles ? profiles.length : 1;
+  const betas = new Float64Array(N * K);
+  if (usesProfiles) {
+    profiles.forEach((p, n) => {
+      const mean = p.mean as Record<string, number>;
+      coefficientNames.forEach((name, k) => (betas[n * K + k] = mean[name] ?? 0));
+    });
+  } else {
+    coefficientNames.forEach((name, k) => {
+      betas[k] = ctx.results.estimates.find((e) => e.name === name)?.estimate ?? 0;
+    });
+  }
+  const grouping =
+    input.segmentBy && usesProfiles ? await resolveGrouping(deps, ctx, input.segmentBy) : null;
+  const groups = grouping
+    ? Int32Array.from(profiles, (p) => {
+        const key = grouping.groupOf.get(p.respondentId);
+        return key === undefined ? -1 : grouping.order.indexOf(key);
+      })
+    : undefined;
+  const result = simulateShares({
+    respondents: N,
+    coefficients: K,
+    betas,
+    alternativeCount: names.length,
+    alternatives: rows,
+    ...(grouping ? { groups, groupCount: Math.max(1, grouping.order.length) } : {}),
+  });
+  const J = names.length;
+  return {
+    runId: ctx.run.id,
+    method: usesProfiles ? 'conditional_means' : 'point_estimates',
+    respondents: usesProfiles ? N : ctx.results.respondents,
+    alternatives: names.map((name, j) => ({ name, share: result.shares[j] })),
+    segments: grouping
+      ? {
+          label: grouping.label,
+          groups: grouping.order
+            .map((key, g) => ({
+              key,
+              label: grouping.labelOf(key),
+              count: result.groupCounts[g],
+              shares: Array.from(result.groupShares.subarray(g * J, (g + 1) * J)),
+            }))
+            .filter((g) => g.count > 0),
+        }
+      : null,
+  };
+}

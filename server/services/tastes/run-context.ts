@@ -1,0 +1,77 @@
+/**
+ * What every Tastes, Shares and Exports use case starts from: the study, one of its finished
+ * runs, the frozen definition, design and questionnaire, and the table header (coefficients
+ * with their labels and population moments, WTP columns, background questions the caller may
+ * see, design tasks).
+ */
+import type { AppDeps } from '../../deps';
+import { ConflictError, NotFoundError } from '../../lib/errors';
+import { loadStudy } from '../study-access';
+import { countRunProfiles, getLatestStudyVersion, getRunOfStudy } from '../../../db/queries/tastes';
+import { roleCan, type Role } from '../../../shared/permissions';
+import type { RunResult } from '../../../shared/schemas/run';
+import type { EstimationSpec } from '../../../shared/schemas/estimation-spec';
+import type { StudyDefinition } from '../../../shared/schemas/study-definition';
+import type { Design } from '../../../shared/schemas/design';
+import { LOW_EFFECTIVE_DRAWS, type TasteHeader } from '../../../shared/schemas/tastes';
+import { getBackgroundQuestions } from './background-answers';
+
+export type Member = { teamId: string; role: Role };
+
+export type RunContext = Awaited<ReturnType<typeof loadRunContext>>;
+
+/** Loads the run (404 outside the team or study; 409 until it is done) and its header. */
+export async function loadRunContext(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  runId: string,
+) {
+  const study = await loadStudy(deps, member.teamId, studyId);
+  const run = await getRunOfStudy(deps.db, { id: runId, teamId: member.teamId, studyId });
+  if (!run) throw new NotFoundError('Run');
+  if (run.status !== 'done' || !run.results)
+    throw new ConflictError(
+      'run_not_finished',
+      `This run is ${run.status}; choose a finished run.`,
+    );
+  const version = await getLatestStudyVersion(deps.db, { studyId });
+  const definition = (version?.definition ?? study.definition) as StudyDefinition;
+  const design = (version?.design ?? null) as Design | null;
+  const results = run.results as RunResult;
+  const spec = run.spec as EstimationSpec;
+  const personal = roleCan(member.role, 'personal:read');
+  const profiles = await countRunProfiles(deps.db, { runId });
+  const labelOf = (name: string) =>
+    results.columns?.find((c) => c.coefficient === name)?.label ?? name;
+  const costAttribute = definition.attributes.find((a) => a.isCost);
+  const header: TasteHeader = {
+    run: {
+      id: run.id,
+      name: run.name,
+      model: run.model as 'mnl' | 'mixed',
+      finishedAt: run.finishedAt?.toISOString() ?? null,
+      profiles,
+      profileDraws: results.profileDraws?.count ?? null,
+    },
+    coefficients: results.population.map((p) => ({
+      name: p.name,
+      label: labelOf(p.name),
+      distribution: p.distribution,
+      populationMean: p.mean,
+      populationSd: p.sd,
+      location: p.location,
+      spread: p.spread,
+    })),
+    wtp: spec.cost ? spec.coefficients.map((c) => c.name).filter((n) => n !== spec.cost) : [],
+    cost: spec.cost ?? null,
+    costUnit: costAttribute?.unit ?? '',
+    questions: getBackgroundQuestions(version?.questionnaire ?? study.questionnaire).filter(
+      (q) => personal || !q.personal,
+    ),
+    tasks: (design?.tasks ?? []).map((t) => ({ task: t.task, block: t.block })),
+    personalColumns: personal,
+    lowDrawsThreshold: LOW_EFFECTIVE_DRAWS,
+  };
+  return { study, run, results, spec, definition, design, version, header, personal };
+}

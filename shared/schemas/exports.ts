@@ -1,0 +1,30 @@
+/**
+ * Downloads of the Exports section ('exports:read'; personal columns only with
+ * 'personal:read') and the cautions every results file and screen repeats.
+ */
+import { z } from 'zod';
+
+export const exportRunQuerySchema = z.object({ runId: z.uuid('Choose a finished run') });
+export const optionalRunQuerySchema = z.object({
+  runId: z.uuid('Choose a finished run').optional(),
+});
+
+/** Shown where taste profiles appear and written into every results file. */
+export const tasteCautions = [
+  'These estimates summarise stated, hypothetical choices; real behaviour can differ.',
+  'Individual taste profiles are conditional means: they are shrunk toward the population ' +
+    'and uncertain when a respondent answered few tasks. Read each mean with its conditional SD.',
+  'Profiles with a low effective number of draws rest on few simulation draws; treat them with ' +
+    'extra care or re-run with more profile draws.',
+  'Policy or health decisions should not rest on one study alone. Follow your ethics board ' +
+    'and data-protection law when sharing respondent-level results.',
+] as const;
+
+export type ExportKind = 'profiles' | 'choices' | 'design' | 'answers' | 'report';
+
+export type ExportManifest = {
+  /** True when the caller's downloads include personal columns (external ids, free text). */
+  personalColumns: boolean;
+  designAvailable: boolean;
+  choicesAvailable: boolean;
+};

@@ -1,0 +1,70 @@
+/**
+ * The Shares section (what-if share simulator): 2–5 hypothetical alternatives defined by their
+ * levels, optionally the study's opt-out / status quo, simulated over respondents' individual
+ * taste profiles of a finished run (shared/engine/shares), overall and per segment.
+ */
+import { z } from 'zod';
+import { elementIdSchema } from './study-definition';
+
+export const scenarioAlternativeSchema = z.object({
+  name: z.string().trim().min(1, 'Name the alternative').max(60),
+  /** Labeled studies: which labeled alternative this is (0-based); its constant applies. */
+  alternative: z.number().int().min(0).max(4).default(0),
+  /** attribute id -> level id; every attribute needs a level. */
+  levels: z.record(z.string(), elementIdSchema),
+});
+export type ScenarioAlternative = z.infer<typeof scenarioAlternativeSchema>;
+
+export const simulateSharesSchema = z
+  .object({
+    runId: z.uuid('Choose a finished run'),
+    alternatives: z
+      .array(scenarioAlternativeSchema)
+      .min(2, 'Define at least 2 alternatives')
+      .max(5, 'At most 5 alternatives'),
+    /** Add the study's opt-out / status quo to the scenario. */
+    includeFixed: z.boolean().default(true),
+    /** Shares per segment as well: by the answer to a single-choice question. */
+    segmentBy: z
+      .object({
+        groupBy: z.enum(['task', 'question']),
+        task: z.number().int().min(1).optional(),
+        question: z
+          .string()
+          .regex(/^[a-z][a-z0-9_]{0,39}$/)
+          .optional(),
+      })
+      .nullable()
+      .default(null),
+  })
+  .superRefine((v, ctx) => {
+    const s = v.segmentBy;
+    if (s?.groupBy === 'task' && s.task === undefined)
+      ctx.addIssue({ code: 'custom', path: ['segmentBy', 'task'], message: 'Choose a task' });
+    if (s?.groupBy === 'question' && s.question === undefined)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['segmentBy', 'question'],
+        message: 'Choose a question',
+      });
+  });
+export type SimulateSharesInput = z.input<typeof simulateSharesSchema>;
+export type SimulateShares = z.output<typeof simulateSharesSchema>;
+
+/** How the shares were computed, shown beside the result. */
+export type ShareMethod =
+  /** Mixed logit: each respondent's conditional means (Revelt & Train 2000). */
+  | 'conditional_means'
+  /** MNL: one set of coefficients for everybody (no taste variation). */
+  | 'point_estimates';
+
+export type ShareResult = {
+  runId: string;
+  method: ShareMethod;
+  respondents: number;
+  alternatives: { name: string; share: number }[];
+  segments: {
+    label: string;
+    groups: { key: string; label: string; count: number; shares: number[] }[];
+  } | null;
+};

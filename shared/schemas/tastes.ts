@@ -1,0 +1,177 @@
+/**
+ * The Tastes section's contract: the per-respondent profile table (server-side paging, sorting,
+ * filtering), segments of one coefficient's conditional means, and one respondent's page.
+ * Personal columns (external id, free-text answers) appear only for roles with
+ * 'personal:read'; the server leaves them out otherwise.
+ */
+import { z } from 'zod';
+
+/**
+ * A profile whose effective number of draws (Kish, 1/Σw²) is below this is flagged: its
+ * conditional mean rests on few draws and is noisy. 30 is a rule of thumb for a stable mean
+ * (common practice, no source); raise the profile draws when many respondents fall below it.
+ */
+export const LOW_EFFECTIVE_DRAWS = 30;
+
+const coefficientName = z.string().regex(/^[A-Za-z_][A-Za-z0-9_.-]{0,99}$/, 'Unknown coefficient');
+const boolString = z.enum(['true', 'false']).transform((v) => v === 'true');
+
+export const tasteSortSchema = z
+  .string()
+  .regex(
+    /^(number|effectiveDraws|(mean|sd|wtp):[A-Za-z_][A-Za-z0-9_.-]{0,99})$/,
+    'Sort by number, effectiveDraws, or mean:, sd:, wtp: and a coefficient',
+  );
+
+export const listTastesQuerySchema = z.object({
+  runId: z.uuid('Choose a finished run'),
+  page: z.coerce.number().int().min(1, 'Pages start at 1').max(100_000).default(1),
+  pageSize: z.coerce.number().int().min(1).max(200, 'At most 200 rows a page').default(25),
+  sort: tasteSortSchema.default('number'),
+  dir: z.enum(['asc', 'desc']).default('asc'),
+  /** Only profiles with few effective draws (true) or only the others (false). */
+  lowDraws: boolString.optional(),
+  /** Only respondents with at least one quality flag (true) or none (false). */
+  flagged: boolString.optional(),
+  /** Background question key and the option id (or number) to keep. */
+  question: z
+    .string()
+    .regex(/^[a-z][a-z0-9_]{0,39}$/, 'Unknown question')
+    .optional(),
+  answer: z.string().min(1).max(40).optional(),
+});
+export type ListTastesQuery = z.output<typeof listTastesQuerySchema>;
+
+export const tastesRunQuerySchema = z.object({ runId: z.uuid('Choose a finished run') });
+
+export const segmentsQuerySchema = z
+  .object({
+    runId: z.uuid('Choose a finished run'),
+    coefficient: coefficientName,
+    groupBy: z.enum(['task', 'question']),
+    task: z.coerce.number().int().min(1).max(2000).optional(),
+    question: z
+      .string()
+      .regex(/^[a-z][a-z0-9_]{0,39}$/, 'Unknown question')
+      .optional(),
+    bins: z.coerce.number().int().min(3).max(60).optional(),
+  })
+  .superRefine((q, ctx) => {
+    if (q.groupBy === 'task' && q.task === undefined)
+      ctx.addIssue({ code: 'custom', path: ['task'], message: 'Choose a task' });
+    if (q.groupBy === 'question' && q.question === undefined)
+      ctx.addIssue({ code: 'custom', path: ['question'], message: 'Choose a question' });
+  });
+export type SegmentsQuery = z.output<typeof segmentsQuerySchema>;
+
+export const respondentProfileParamsSchema = z.object({
+  teamId: z.uuid(),
+  studyId: z.uuid('Unknown study'),
+  runId: z.uuid('Unknown run'),
+  respondentId: z.uuid('Unknown respondent'),
+});
+
+/** A finished run that has taste profiles. */
+export type TastesRun = {
+  id: string;
+  name: string;
+  model: 'mnl' | 'mixed';
+  finishedAt: string | null;
+  profiles: number;
+  profileDraws: number | null;
+};
+
+export type TasteCoefficient = {
+  name: string;
+  label: string;
+  distribution: string;
+  populationMean: number;
+  populationSd: number;
+  /** Estimated location and spread (for lognormals: of ln |β|), to draw the density. */
+  location: number;
+  spread: number;
+};
+
+export type TasteQuestion = {
+  key: string;
+  text: string;
+  type: 'single' | 'multiple' | 'number' | 'text';
+  options: { id: string; label: string }[];
+  /** Free text may identify a person: shown only with 'personal:read'. */
+  personal: boolean;
+};
+
+export type TasteRow = {
+  respondentId: string;
+  /** Stable number of the respondent in the study (order of starting). */
+  number: number;
+  /** Present only for roles with 'personal:read'. */
+  externalId?: string | null;
+  block: number;
+  flags: string[];
+  mean: Record<string, number>;
+  sd: Record<string, number>;
+  wtp: Record<string, number> | null;
+  effectiveDraws: number;
+  lowDraws: boolean;
+  /** Question key -> readable answer (option labels, number) or null. */
+  answers: Record<string, string | null>;
+};
+
+export type TasteHeader = {
+  run: TastesRun;
+  coefficients: TasteCoefficient[];
+  /** Coefficients with a WTP value (all but the cost). */
+  wtp: string[];
+  cost: string | null;
+  costUnit: string;
+  questions: TasteQuestion[];
+  tasks: { task: number; block: number }[];
+  personalColumns: boolean;
+  lowDrawsThreshold: number;
+};
+
+export type TasteList = TasteHeader & {
+  page: number;
+  pageSize: number;
+  total: number;
+  rows: TasteRow[];
+};
+
+export type SegmentGroup = {
+  key: string;
+  label: string;
+  count: number;
+  mean: number;
+  sd: number | null;
+  min: number;
+  q1: number;
+  median: number;
+  q3: number;
+  max: number;
+  histogram: number[];
+};
+
+export type Segments = {
+  coefficient: TasteCoefficient;
+  groupLabel: string;
+  edges: number[];
+  groups: SegmentGroup[];
+  /** Respondents with a profile but no answer in the grouping. */
+  ungrouped: number;
+};
+
+export type RespondentChoice = {
+  task: number;
+  /** Screen order in which the respondent saw it (1-based), or null. */
+  position: number | null;
+  alternatives: { index: number; label: string; levels: Record<string, string>; fixed: boolean }[];
+  chosen: number | null;
+  responseMs: number | null;
+};
+
+export type RespondentProfile = {
+  header: TasteHeader;
+  row: TasteRow;
+  choices: RespondentChoice[];
+};

@@ -14,6 +14,9 @@ import { createDesignsRouter } from './designs';
 import { createPublicFilesRouter, createStudyFilesRouter } from './files';
 import { createInviteesRouter } from './invitees';
 import { createUnsubscribeRouter } from './unsubscribe';
+import { createTastesRouter } from './tastes';
+import { createSharesRouter } from './shares';
+import { createExportsRouter } from './exports';
 
 export function mountApiRoutes(api: Router, deps: AppDeps): void {
   api.use('/health', createHealthRouter(deps));
@@ -25,6 +28,9 @@ export function mountApiRoutes(api: Router, deps: AppDeps): void {
   api.use('/files', createPublicFilesRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/files', createStudyFilesRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/design', createDesignsRouter(deps));
+  api.use('/teams/:teamId/studies/:studyId/tastes', createTastesRouter(deps));
+  api.use('/teams/:teamId/studies/:studyId/shares', createSharesRouter(deps));
+  api.use('/teams/:teamId/studies/:studyId/exports', createExportsRouter(deps));
   api.use('/teams/:teamId/studies', createStudiesRouter(deps));
   api.use('/teams', createTeamsRouter(deps));
 }

@@ -10,6 +10,7 @@ import { createAccountRouter } from './account';
 import { createTeamsRouter } from './teams';
 import { createInvitationsRouter } from './invitations';
 import { createStudiesRouter } from './studies';
+import { createRunsRouter } from './runs';
 import { createDesignsRouter } from './designs';
 import { createPublicFilesRouter, createStudyFilesRouter } from './files';
 import { createInviteesRouter } from './invitees';
@@ -31,6 +32,7 @@ export function mountApiRoutes(api: Router, deps: AppDeps): void {
   api.use('/teams/:teamId/studies/:studyId/tastes', createTastesRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/shares', createSharesRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/exports', createExportsRouter(deps));
+  api.use('/teams/:teamId/studies/:studyId/runs', createRunsRouter(deps));
   api.use('/teams/:teamId/studies', createStudiesRouter(deps));
   api.use('/teams', createTeamsRouter(deps));
 }

@@ -1,0 +1,190 @@
+/** Estimation runs: the tenant (team) and the study are in every where-clause. */
+import { and, desc, eq, inArray, isNull, lt, sql } from 'drizzle-orm';
+import type { DbOrTx } from '../client';
+import { runs } from '../schema/models';
+
+export const runColumns = {
+  id: runs.id,
+  studyId: runs.studyId,
+  teamId: runs.teamId,
+  name: runs.name,
+  model: runs.model,
+  spec: runs.spec,
+  dataHash: runs.dataHash,
+  seed: runs.seed,
+  status: runs.status,
+  progress: runs.progress,
+  results: runs.results,
+  error: runs.error,
+  attempts: runs.attempts,
+  cancelRequested: runs.cancelRequested,
+  createdBy: runs.createdBy,
+  createdAt: runs.createdAt,
+  startedAt: runs.startedAt,
+  finishedAt: runs.finishedAt,
+};
+export type RunRow = Awaited<ReturnType<typeof getRunById>> & {};
+
+export async function insertRun(
+  db: DbOrTx,
+  params: {
+    studyId: string;
+    teamId: string;
+    name: string;
+    model: string;
+    spec: unknown;
+    seed: number | null;
+    createdBy: string | null;
+  },
+) {
+  const [row] = await db.insert(runs).values(params).returning(runColumns);
+  return row;
+}
+
+export async function getRunById(
+  db: DbOrTx,
+  params: { id: string; teamId: string; studyId: string },
+) {
+  const [row] = await db
+    .select(runColumns)
+    .from(runs)
+    .where(
+      and(eq(runs.id, params.id), eq(runs.teamId, params.teamId), eq(runs.studyId, params.studyId)),
+    );
+  return row ?? null;
+}
+
+export async function listRuns(db: DbOrTx, params: { teamId: string; studyId: string }) {
+  return db
+    .select(runColumns)
+    .from(runs)
+    .where(and(eq(runs.teamId, params.teamId), eq(runs.studyId, params.studyId)))
+    .orderBy(desc(runs.createdAt));
+}
+
+export async function countRuns(db: DbOrTx, params: { teamId: string; studyId: string }) {
+  const [row] = await db
+    .select({ n: sql<number>`count(*)::int` })
+    .from(runs)
+    .where(and(eq(runs.teamId, params.teamId), eq(runs.studyId, params.studyId)));
+  return Number(row?.n ?? 0);
+}
+
+/** For the worker, which knows only the run id from the job. */
+export async function getRunForJob(db: DbOrTx, params: { id: string }) {
+  const [row] = await db.select(runColumns).from(runs).where(eq(runs.id, params.id));
+  return row ?? null;
+}
+
+/** Claims a queued (or, after a crash, running) run for a worker; null if it is not claimable. */
+export async function claimRun(db: DbOrTx, params: { id: string }) {
+  const [row] = await db
+    .update(runs)
+    .set({
+      status: 'running',
+      attempts: sql`${runs.attempts} + 1`,
+      startedAt: new Date(),
+      error: null,
+      progress: { stage: 'preparing', heartbeatAt: new Date().toISOString() },
+    })
+    .where(
+      and(
+        eq(runs.id, params.id),
+        inArray(runs.status, ['queued', 'running']),
+        isNull(runs.cancelRequested),
+      ),
+    )
+    .returning(runColumns);
+  return row ?? null;
+}
+
+export async function updateRunProgress(db: DbOrTx, params: { id: string; progress: unknown }) {
+  await db
+    .update(runs)
+    .set({ progress: params.progress })
+    .where(and(eq(runs.id, params.id), eq(runs.status, 'running')));
+}
+
+export async function setRunDataHash(
+  db: DbOrTx,
+  params: { id: string; dataHash: string; seed: number | null },
+) {
+  await db
+    .update(runs)
+    .set({ dataHash: params.dataHash, seed: params.seed })
+    .where(eq(runs.id, params.id));
+}
+
+/** Ends a run that is still queued or running; returns null when it had already ended. */
+export async function finishRun(
+  db: DbOrTx,
+  params: {
+    id: string;
+    status: 'done' | 'failed' | 'cancelled' | 'queued';
+    results?: unknown;
+    error?: string | null;
+    progress?: unknown;
+  },
+) {
+  const [row] = await db
+    .update(runs)
+    .set({
+      status: params.status,
+      ...(params.results !== undefined ? { results: params.results } : {}),
+      ...(params.progress !== undefined ? { progress: params.progress } : {}),
+      error: params.error ?? null,
+      finishedAt: params.status === 'queued' ? null : new Date(),
+    })
+    .where(and(eq(runs.id, params.id), inArray(runs.status, ['queued', 'running'])))
+    .returning(runColumns);
+  return row ?? null;
+}
+
+/** Marks a cancel request; a queued run is cancelled at once, a running one by its worker. */
+export async function requestRunCancel(
+  db: DbOrTx,
+  params: { id: string; teamId: string; studyId: string },
+) {
+  const scope = and(
+    eq(runs.id, params.id),
+    eq(runs.teamId, params.teamId),
+    eq(runs.studyId, params.studyId),
+  );
+  const [queued] = await db
+    .update(runs)
+    .set({ status: 'cancelled', cancelRequested: new Date(), finishedAt: new Date() })
+    .where(and(scope, eq(runs.status, 'queued')))
+    .returning(runColumns);
+  if (queued) return queued;
+  const [running] = await db
+    .update(runs)
+    .set({ cancelRequested: new Date() })
+    .where(and(scope, eq(runs.status, 'running')))
+    .returning(runColumns);
+  return running ?? null;
+}
+
+export async function isRunCancelRequested(db: DbOrTx, params: { id: string }) {
+  const [row] = await db
+    .select({ at: runs.cancelRequested, status: runs.status })
+    .from(runs)
+    .where(eq(runs.id, params.id));
+  return !row || row.at !== null || row.status === 'cancelled';
+}
+
+/** Fails running runs whose worker has been silent since `silentSince` (crash, restart). */
+export async function failStaleRuns(db: DbOrTx, params: { silentSince: Date; error: string }) {
+  return db
+    .update(runs)
+    .set({ status: 'failed', error: params.error, finishedAt: new Date() })
+    .where(
+      and(
+        eq(runs.status, 'running'),
+        lt(
+          sql`coalesce((${runs.progress}->>'heartbeatAt')::timestamptz, ${runs.startedAt}, ${runs.createdAt})`,
+          params.silentSince,
+        ),
+      ),
+    )
+    .returning({ id: runs.id });
+}

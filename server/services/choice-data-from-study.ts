@@ -1,0 +1,116 @@
+/**
+ * Data preparation for estimation runs and exports: a study's frozen versions, its included
+ * and completed respondents (optionally narrowed by a saved filter) and their choice answers,
+ * turned into coded long rows (estimation/code-answers.ts). From those rows:
+ * - toBuiltChoiceData(prepared, keys): the engine's typed-array data (estimation + holdout),
+ * - toLongCsvRows / toLongCsvText(prepared, keys?): the long-format CSV that
+ *   `npm run estimate -- --data` reads (respondent,task,alt,chosen,holdout + coded columns),
+ * - hashChoiceData(prepared, keys?): SHA-256 of that CSV, stored with each run.
+ */
+import type { Db, DbOrTx } from '../../db/client';
+import {
+  getRespondentFilter,
+  listChoiceAnswers,
+  listIncludedRespondents,
+  listQuestionAnswers,
+  listStudyVersions,
+} from '../../db/queries/run-data';
+import { designSchema } from '../../shared/schemas/design';
+import { z } from 'zod';
+import { studyDefinitionSchema } from '../../shared/schemas/study-definition';
+import {
+  codeStudyAnswers,
+  type HoldoutTask,
+  type PreparedChoiceData,
+  type RespondentInput,
+  type VersionInput,
+} from './estimation/code-answers';
+import { applyRespondentFilter } from './estimation/respondent-filter';
+import { StudyDataError } from './estimation/study-data-error';
+
+export { getPreparedColumns, codeStudyAnswers } from './estimation/code-answers';
+export type { PreparedChoiceData, PreparedColumn } from './estimation/code-answers';
+export {
+  hashChoiceData,
+  toBuiltChoiceData,
+  toLongCsvRows,
+  toLongCsvText,
+  type LongCsvTable,
+} from './estimation/long-format';
+
+/**
+ * Only what estimation needs from a frozen questionnaire (shared/schemas/questionnaire.ts):
+ * the warm-up and holdout pages, answered under the screen keys `warmup:<pageId>` and
+ * `holdout:<pageId>` (its screenKeys.special), with the holdouts' fixed alternatives.
+ */
+const choicePagesSchema = z.object({
+  pages: z.array(
+    z.looseObject({
+      id: z.string(),
+      kind: z.string(),
+      alternatives: z.array(z.object({ levels: z.record(z.string(), z.string()) })).optional(),
+    }),
+  ),
+});
+
+/** Holdout tasks and warm-up screen keys of a frozen questionnaire (none if it has no pages). */
+export function readChoiceScreens(questionnaire: unknown): {
+  holdouts: HoldoutTask[];
+  warmupKeys: string[];
+} {
+  const parsed = choicePagesSchema.safeParse(questionnaire);
+  if (!parsed.success) return { holdouts: [], warmupKeys: [] };
+  const holdouts: HoldoutTask[] = [];
+  const warmupKeys: string[] = [];
+  for (const page of parsed.data.pages) {
+    if (page.kind === 'holdout' && page.alternatives)
+      holdouts.push({ screenKey: `holdout:${page.id}`, alternatives: page.alternatives });
+    if (page.kind === 'warmup') warmupKeys.push(`warmup:${page.id}`);
+  }
+  return { holdouts, warmupKeys };
+}
+
+/** Reads and codes a study's data; `filterId` narrows the respondents to a saved filter. */
+export async function loadStudyChoiceData(
+  db: Db | DbOrTx,
+  params: { studyId: string; filterId?: string | null },
+): Promise<PreparedChoiceData> {
+  const versionRows = await listStudyVersions(db, { studyId: params.studyId });
+  if (versionRows.length === 0)
+    throw new StudyDataError('no_data', 'The study has not been live yet, so it has no answers.');
+  const versions: VersionInput[] = versionRows.map((v) => ({
+    id: v.id,
+    version: v.version,
+    definition: studyDefinitionSchema.parse(v.definition),
+    design: designSchema.parse(v.design),
+    ...readChoiceScreens(v.questionnaire),
+  }));
+  let included = await listIncludedRespondents(db, { studyId: params.studyId });
+  if (params.filterId) {
+    const filter = await getRespondentFilter(db, {
+      id: params.filterId,
+      studyId: params.studyId,
+    });
+    if (!filter) throw new StudyDataError('no_data', 'The saved filter no longer exists.');
+    const keep = applyRespondentFilter(
+      filter.definition,
+      included.map((r) => r.id),
+      await listQuestionAnswers(db, { studyId: params.studyId }),
+    );
+    included = included.filter((r) => keep.has(r.id));
+  }
+  const answers = await listChoiceAnswers(db, { studyId: params.studyId });
+  const byRespondent = new Map<string, RespondentInput>(
+    included.map((r) => [r.id, { id: r.id, versionId: r.versionId, answers: [] }]),
+  );
+  for (const a of answers) {
+    const r = byRespondent.get(a.respondentId);
+    if (r)
+      (r.answers as RespondentInput['answers'][number][]).push({
+        screenKey: a.screenKey,
+        taskNumber: a.taskNumber,
+        chosenAlternative: a.chosenAlternative,
+      });
+  }
+  return codeStudyAnswers(versions, [...byRespondent.values()]);
+}

@@ -1,0 +1,82 @@
+/**
+ * The long format shared by the command-line estimator (scripts/estimate.ts), the exports and
+ * the data hash of a run: `respondent,task,alt,chosen,holdout` then one column per coded
+ * column, headed by its code. A run's data hash is the SHA-256 of exactly this CSV restricted
+ * to the columns the run used, so an analyst can check an export against a run.
+ */
+import { createHash } from 'node:crypto';
+import { stringify } from 'csv-stringify/sync';
+import { buildChoiceData, type BuiltChoiceData } from '../../engine/estimation/build-choice-data';
+import type { LongChoiceRow } from '../../engine/estimation/choice-data';
+import type { PreparedChoiceData } from './code-answers';
+import { StudyDataError } from './study-data-error';
+
+export interface LongCsvTable {
+  header: string[];
+  rows: (string | number)[][];
+}
+
+/** Indexes of the given column keys (all columns when omitted); throws on an unknown key. */
+function columnIndexes(prepared: PreparedChoiceData, keys?: readonly string[]): number[] {
+  if (!keys) return prepared.columns.map((_, i) => i);
+  return keys.map((key) => {
+    const i = prepared.columns.findIndex((c) => c.key === key);
+    if (i < 0) throw new StudyDataError('no_data', `The study has no coded column ${key}.`);
+    return i;
+  });
+}
+
+/** Header and rows of the long-format CSV (numbers kept as numbers). */
+export function toLongCsvRows(
+  prepared: PreparedChoiceData,
+  keys?: readonly string[],
+): LongCsvTable {
+  const at = columnIndexes(prepared, keys);
+  return {
+    header: [
+      'respondent',
+      'task',
+      'alt',
+      'chosen',
+      'holdout',
+      ...at.map((i) => prepared.columns[i].code),
+    ],
+    rows: prepared.rows.map((r) => [
+      String(r.respondent),
+      r.task,
+      r.alt,
+      r.chosen,
+      r.holdout ? 1 : 0,
+      ...at.map((i) => r.values[i]),
+    ]),
+  };
+}
+
+/** The long-format CSV text (what `npm run estimate -- --data` reads). */
+export function toLongCsvText(prepared: PreparedChoiceData, keys?: readonly string[]): string {
+  const table = toLongCsvRows(prepared, keys);
+  return stringify([table.header, ...table.rows]);
+}
+
+/** SHA-256 (hex) of the long CSV of the given columns. */
+export function hashChoiceData(prepared: PreparedChoiceData, keys?: readonly string[]): string {
+  return createHash('sha256').update(toLongCsvText(prepared, keys)).digest('hex');
+}
+
+/** The engine's typed-array data for the given column keys (estimation and holdout parts). */
+export function toBuiltChoiceData(
+  prepared: PreparedChoiceData,
+  keys: readonly string[],
+): BuiltChoiceData {
+  const at = columnIndexes(prepared, keys);
+  if (prepared.summary.tasks === 0)
+    throw new StudyDataError(
+      'no_estimation_tasks',
+      'No included respondent has answered a choice task that counts for estimation.',
+    );
+  const rows: LongChoiceRow[] = prepared.rows.map((r) => ({
+    ...r,
+    values: at.map((i) => r.values[i]),
+  }));
+  return buildChoiceData(keys, rows);
+}

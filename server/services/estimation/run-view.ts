@@ -1,0 +1,47 @@
+/** Turns a stored run row into the API's Run, and splits the stored spec. */
+import type { RunRow } from '../../../db/queries/runs';
+import { estimationSpecSchema, type EstimationSpec } from '../../../shared/schemas/estimation-spec';
+import {
+  respondentSelectionSchema,
+  runProgressSchema,
+  type Run,
+  type RunResult,
+} from '../../../shared/schemas/run';
+
+/** The runs.spec column holds the estimation spec plus `respondents` (the selection). */
+export function splitStoredSpec(stored: unknown): {
+  spec: EstimationSpec;
+  respondents: { filterId: string | null };
+} {
+  const raw = (stored ?? {}) as { respondents?: unknown };
+  return {
+    spec: estimationSpecSchema.parse(stored),
+    respondents: respondentSelectionSchema.parse(raw.respondents ?? {}),
+  };
+}
+
+const iso = (d: Date | null) => (d ? d.toISOString() : null);
+
+export function toRunView(row: RunRow): Run {
+  const { spec, respondents } = splitStoredSpec(row.spec);
+  const progress = runProgressSchema.safeParse(row.progress);
+  return {
+    id: row.id,
+    studyId: row.studyId,
+    name: row.name,
+    model: row.model === 'mixed' ? 'mixed' : 'mnl',
+    status: row.status,
+    spec,
+    respondents,
+    dataHash: row.dataHash,
+    seed: row.seed,
+    progress: progress.success ? progress.data : {},
+    results: (row.results as RunResult | null) ?? null,
+    error: row.error,
+    attempts: row.attempts,
+    cancelRequested: row.cancelRequested !== null,
+    createdAt: row.createdAt.toISOString(),
+    startedAt: iso(row.startedAt),
+    finishedAt: iso(row.finishedAt),
+  };
+}

@@ -1,0 +1,177 @@
+/**
+ * Estimation runs of a study: what the Models form can use, starting a run (validated here,
+ * executed by a worker through the job queue), reading runs and their conditional means, and
+ * cancelling. The web process never estimates; it only enqueues and reads.
+ */
+import type { AppDeps } from '../deps';
+import { AppError, ConflictError, NotFoundError, ValidationError } from '../lib/errors';
+import { loadStudy } from './study-access';
+import { getPreparedColumns } from './estimation/code-answers';
+import { toRunView } from './estimation/run-view';
+import {
+  countRuns,
+  finishRun,
+  getRunById,
+  insertRun,
+  listRuns as listRunRows,
+  requestRunCancel,
+} from '../../db/queries/runs';
+import {
+  getRespondentFilter,
+  listIncludedRespondents,
+  listRespondentFilters,
+  listStudyVersions,
+} from '../../db/queries/run-data';
+import { listTasteProfiles } from '../../db/queries/taste-profiles';
+import { studyDefinitionSchema } from '../../shared/schemas/study-definition';
+import type { CreateRun, ConditionalMeans, Run, RunOptions } from '../../shared/schemas/run';
+import type { EstimationSpec } from '../../shared/schemas/estimation-spec';
+
+export const ESTIMATION_JOB = 'estimation-run';
+
+type Member = { teamId: string; userId: string };
+
+/** The definition runs are coded with: the latest live version's, else the draft's. */
+async function getModelColumns(deps: AppDeps, study: { id: string; definition: unknown }) {
+  const versions = await listStudyVersions(deps.db, { studyId: study.id });
+  const latest = versions[versions.length - 1];
+  const definition = studyDefinitionSchema.parse(latest ? latest.definition : study.definition);
+  return getPreparedColumns(definition);
+}
+
+export async function getRunOptions(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+): Promise<RunOptions> {
+  const study = await loadStudy(deps, member.teamId, studyId);
+  const [columns, included, filters, runCount] = await Promise.all([
+    getModelColumns(deps, study),
+    listIncludedRespondents(deps.db, { studyId }),
+    listRespondentFilters(deps.db, { studyId }),
+    countRuns(deps.db, { teamId: member.teamId, studyId }),
+  ]);
+  return {
+    columns: columns.map((c) => ({
+      key: c.key,
+      code: c.code,
+      label: c.name,
+      kind: c.kind,
+      attributeId: c.attributeId ?? null,
+      isCost: c.isCost,
+    })),
+    includedRespondents: included.length,
+    filters,
+    hasRuns: runCount > 0,
+  };
+}
+
+/** Ties every coefficient to a coded-column key (given as key or code); 400 names the field. */
+function resolveSpecColumns(
+  spec: EstimationSpec,
+  columns: { key: string; code: string }[],
+): EstimationSpec {
+  const fields: { path: string; message: string }[] = [];
+  const coefficients = spec.coefficients.map((c, i) => {
+    const wanted = c.column ?? c.name;
+    const column = columns.find((x) => x.key === wanted || x.code === wanted);
+    if (!column)
+      fields.push({
+        path: `spec.coefficients.${i}.column`,
+        message: `The study has no coded column ${wanted}`,
+      });
+    return { ...c, column: column?.key ?? wanted };
+  });
+  const keys = coefficients.map((c) => c.column);
+  keys.forEach((key, i) => {
+    if (keys.indexOf(key) !== i)
+      fields.push({
+        path: `spec.coefficients.${i}.column`,
+        message: 'Each coded column can have one coefficient only',
+      });
+  });
+  if (fields.length > 0) throw new ValidationError(fields[0].message, fields);
+  return { ...spec, coefficients };
+}
+
+export async function createRun(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  input: CreateRun,
+): Promise<Run> {
+  const study = await loadStudy(deps, member.teamId, studyId);
+  const spec = resolveSpecColumns(input.spec, await getModelColumns(deps, study));
+  const filterId = input.respondents.filterId;
+  if (filterId && !(await getRespondentFilter(deps.db, { id: filterId, studyId })))
+    throw new ValidationError('There is no such saved filter', [
+      { path: 'respondents.filterId', message: 'There is no such saved filter' },
+    ]);
+  if (!deps.jobs)
+    throw new AppError(503, 'queue_unavailable', 'The job queue is not running; try again soon.');
+  const row = await insertRun(deps.db, {
+    studyId,
+    teamId: member.teamId,
+    name: input.name || (spec.model === 'mnl' ? 'Multinomial logit' : 'Mixed logit'),
+    model: spec.model,
+    spec: { ...spec, respondents: { filterId } },
+    seed: spec.model === 'mixed' ? spec.draws.seed : null,
+    createdBy: member.userId,
+  });
+  try {
+    await deps.jobs.send(ESTIMATION_JOB, { runId: row.id });
+  } catch (err) {
+    deps.logger.error({ err, runId: row.id }, 'could not enqueue the run');
+    await finishRun(deps.db, {
+      id: row.id,
+      status: 'failed',
+      error: 'The run could not be queued. Start it again.',
+    });
+    throw new AppError(503, 'queue_unavailable', 'The run could not be queued; try again soon.');
+  }
+  return toRunView(row);
+}
+
+export async function listRuns(deps: AppDeps, member: Member, studyId: string): Promise<Run[]> {
+  await loadStudy(deps, member.teamId, studyId);
+  const rows = await listRunRows(deps.db, { teamId: member.teamId, studyId });
+  return rows.map(toRunView);
+}
+
+async function loadRun(deps: AppDeps, member: Member, studyId: string, runId: string) {
+  await loadStudy(deps, member.teamId, studyId);
+  const row = await getRunById(deps.db, { id: runId, teamId: member.teamId, studyId });
+  if (!row) throw new NotFoundError('Run');
+  return row;
+}
+
+export async function getRun(deps: AppDeps, member: Member, studyId: string, runId: string) {
+  return toRunView(await loadRun(deps, member, studyId, runId));
+}
+
+/** Queued runs end at once; running ones stop at their next iteration (the worker checks). */
+export async function cancelRun(deps: AppDeps, member: Member, studyId: string, runId: string) {
+  await loadRun(deps, member, studyId, runId);
+  const row = await requestRunCancel(deps.db, { id: runId, teamId: member.teamId, studyId });
+  if (!row) throw new ConflictError('run_finished', 'The run has already finished.');
+  return toRunView(row);
+}
+
+/** Respondents' conditional means per coefficient (for density charts); no respondent ids. */
+export async function getConditionalMeans(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  runId: string,
+): Promise<ConditionalMeans> {
+  const row = await loadRun(deps, member, studyId, runId);
+  const coefficients = toRunView(row).spec.coefficients.map((c) => c.name);
+  const profiles = await listTasteProfiles(deps.db, { runId: row.id });
+  return {
+    coefficients,
+    values: coefficients.map((name) =>
+      profiles.map((p) => (p.mean as Record<string, number>)[name] ?? NaN),
+    ),
+    effectiveDraws: profiles.map((p) => p.effectiveDraws),
+  };
+}

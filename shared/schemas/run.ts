@@ -1,0 +1,120 @@
+/**
+ * Runs (estimation jobs) as the API shows them: the input that starts one, its progress while
+ * it runs, and the stored result. The model specification itself is the shared estimation spec
+ * (estimation-spec.ts): in a study, each coefficient's `column` is a coded-column key such as
+ * `attr:<attributeId>:<levelId>`, `attr:<attributeId>` or `asc:fixed`.
+ */
+import { z } from 'zod';
+import { estimationResultSchema, estimationSpecSchema } from './estimation-spec';
+
+export const runStatusSchema = z.enum(['queued', 'running', 'done', 'failed', 'cancelled']);
+export type RunStatus = z.infer<typeof runStatusSchema>;
+
+/** Which respondents a run uses: every included, completed one, or a saved filter's subset. */
+export const respondentSelectionSchema = z.object({
+  filterId: z.uuid('Choose a saved filter').nullable().default(null),
+});
+
+export const createRunSchema = z.object({
+  name: z.string().trim().max(120, 'Keep the name under 120 characters').default(''),
+  spec: estimationSpecSchema,
+  respondents: respondentSelectionSchema.prefault({}),
+});
+export type CreateRunInput = z.input<typeof createRunSchema>;
+export type CreateRun = z.output<typeof createRunSchema>;
+
+export const runParamsSchema = z.object({
+  teamId: z.uuid(),
+  studyId: z.uuid('Unknown study'),
+  runId: z.uuid('Unknown run'),
+});
+
+export const runStageSchema = z.enum(['preparing', 'estimating', 'profiles', 'saving']);
+export type RunStage = z.infer<typeof runStageSchema>;
+
+/** Written by the worker every iteration; `heartbeatAt` also every few seconds. */
+export const runProgressSchema = z.object({
+  stage: runStageSchema.optional(),
+  iteration: z.number().int().optional(),
+  loglik: z.number().optional(),
+  gradientNorm: z.number().optional(),
+  elapsedMs: z.number().optional(),
+  /** Upper bound of iterations, so the bar can show a share. */
+  maxIterations: z.number().int().optional(),
+  start: z.number().int().optional(),
+  heartbeatAt: z.string().optional(),
+});
+export type RunProgress = z.infer<typeof runProgressSchema>;
+
+/** One coded column the run used: key, the coefficient name and a readable label. */
+export const runColumnSchema = z.object({
+  key: z.string(),
+  coefficient: z.string(),
+  label: z.string(),
+});
+
+export const runDataSummarySchema = z.object({
+  respondents: z.number().int(),
+  tasks: z.number().int(),
+  holdoutTasks: z.number().int(),
+  warmupTasksLeftOut: z.number().int(),
+  /** Included, completed respondents without a usable task (left out). */
+  respondentsWithoutTasks: z.number().int(),
+  versions: z.array(z.number().int()),
+});
+export type RunDataSummary = z.infer<typeof runDataSummarySchema>;
+
+/** What a finished run stores: the engine's result without the individuals (they go to
+ * taste_profiles, one row per respondent), plus the columns and the data it used. */
+export const runResultSchema = estimationResultSchema.extend({
+  individuals: z.null(),
+  columns: z.array(runColumnSchema),
+  data: runDataSummarySchema,
+});
+export type RunResult = z.infer<typeof runResultSchema>;
+
+export type Run = {
+  id: string;
+  studyId: string;
+  name: string;
+  model: 'mnl' | 'mixed';
+  status: RunStatus;
+  spec: z.output<typeof estimationSpecSchema>;
+  respondents: { filterId: string | null };
+  dataHash: string | null;
+  seed: number | null;
+  progress: RunProgress;
+  results: RunResult | null;
+  error: string | null;
+  attempts: number;
+  cancelRequested: boolean;
+  createdAt: string;
+  startedAt: string | null;
+  finishedAt: string | null;
+};
+
+/** A coded column a run can use, with the name the form proposes for its coefficient. */
+export type ModelColumn = {
+  key: string;
+  code: string;
+  label: string;
+  kind: 'level' | 'linear' | 'constant';
+  attributeId: string | null;
+  isCost: boolean;
+};
+
+/** What the Models form needs: the coded columns, how many respondents, saved filters. */
+export type RunOptions = {
+  columns: ModelColumn[];
+  includedRespondents: number;
+  filters: { id: string; name: string }[];
+  hasRuns: boolean;
+};
+
+/** Conditional means of every respondent in a run, per coefficient (no respondent ids). */
+export type ConditionalMeans = {
+  coefficients: string[];
+  /** values[k][i]: conditional mean of coefficient k for respondent i. */
+  values: number[][];
+  effectiveDraws: number[];
+};

@@ -1,0 +1,234 @@
+/**
+ * A run end to end in-process: the API enqueues, the job handler (what the worker runs) claims
+ * the run, estimates, stores results and one taste profile per respondent; cancel stops a
+ * running run; a run left running by a dead worker is failed by the sweep.
+ */
+import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { eq } from 'drizzle-orm';
+import { createTestApp, type TestApp } from '../../support/test-app';
+import { createTeamWithAllRoles } from '../../support/factories';
+import { runs } from '../../../db/schema/models';
+import { listTasteProfiles } from '../../../db/queries/taste-profiles';
+import { getRunForJob } from '../../../db/queries/runs';
+import {
+  runEstimationJob,
+  STALE_RUN_MS,
+  sweepStaleRuns,
+  WORKER_LOST_ERROR,
+} from '../../../server/jobs/estimation-job';
+import { seedRunStudy, TRUE_MNL, type SeededStudy } from './run-fixtures';
+
+let t: TestApp;
+let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
+let study: SeededStudy;
+let base: string;
+let sent: string[];
+
+const allColumns = Object.keys(TRUE_MNL).map((key, k) => ({ name: `b${k}`, column: key }));
+
+beforeAll(async () => {
+  t = await createTestApp();
+  team = await createTeamWithAllRoles(t);
+  study = await seedRunStudy(t.deps.db, { teamId: team.teamId, respondents: 80 });
+  base = `/api/teams/${team.teamId}/studies/${study.studyId}/runs`;
+});
+afterAll(async () => {
+  await t.close();
+});
+beforeEach(() => {
+  sent = [];
+  t.deps.jobs = {
+    send: async (_name, data) => {
+      sent.push((data as { runId: string }).runId);
+    },
+  };
+});
+
+describe('estimation job', () => {
+  it('runs an MNL to done with results, fit statistics, WTP and the data hash', async () => {
+    const res = await team.agents.analyst
+      .post(base)
+      .send({ spec: { model: 'mnl', coefficients: allColumns, cost: 'b0' } })
+      .expect(201);
+    await runEstimationJob(t.deps, sent[0], { threads: 1 });
+    const run = (await team.agents.viewer.get(`${base}/${res.body.id}`).expect(200)).body;
+    expect(run.status).toBe('done');
+    expect(run.error).toBeNull();
+    expect(run.dataHash).toMatch(/^[0-9a-f]{64}$/);
+    expect(run.results).toMatchObject({
+      model: 'mnl',
+      respondents: 80,
+      observations: 640,
+      parameters: 9,
+      converged: true,
+      individuals: null,
+      data: { respondents: 80, tasks: 640, holdoutTasks: 80, warmupTasksLeftOut: 80 },
+    });
+    expect(run.results.holdoutHitRate).toBeGreaterThan(0);
+    expect(run.results.columns[0]).toEqual({
+      key: 'attr:bill',
+      coefficient: 'b0',
+      label: 'Monthly bill increase (€)',
+    });
+    expect(run.results.wtp).toHaveLength(8);
+    // Recovery within two standard errors (common practice, no source).
+    Object.values(TRUE_MNL).forEach((truth, k) => {
+      const e = run.results.estimates[k];
+      expect(Math.abs(e.estimate - truth)).toBeLessThan(2 * e.se + 1e-9);
+    });
+    expect(run.progress.elapsedMs).toBeGreaterThanOrEqual(0);
+  });
+
+  it('runs a mixed logit with a negative lognormal cost and stores a profile per respondent', async () => {
+    const res = await team.agents.owner
+      .post(base)
+      .send({
+        spec: {
+          model: 'mixed',
+          coefficients: [
+            { name: 'bill', column: 'attr:bill', distribution: 'neg_lognormal' },
+            { name: 'river_good', column: 'attr:river:good', distribution: 'normal' },
+            { name: 'interrupt', column: 'attr:interrupt' },
+            { name: 'sq', column: 'asc:fixed' },
+          ],
+          draws: { count: 50, seed: 4 },
+          profileDraws: 200,
+          cost: 'bill',
+        },
+      })
+      .expect(201);
+    await runEstimationJob(t.deps, res.body.id, { threads: 1 });
+    const run = (await team.agents.viewer.get(`${base}/${res.body.id}`).expect(200)).body;
+    expect(run.error).toBeNull();
+    expect(run.status).toBe('done');
+    expect(run.seed).toBe(4);
+    expect(run.progress.iteration).toBeGreaterThan(0);
+    expect(run.results.estimates.map((e: { name: string }) => e.name)).toEqual([
+      'bill.mean',
+      'river_good.mean',
+      'interrupt',
+      'sq',
+      'bill.sd',
+      'river_good.sd',
+    ]);
+    const profiles = await listTasteProfiles(t.deps.db, { runId: res.body.id });
+    expect(profiles.map((p) => p.respondentId)).toEqual(study.respondentIds);
+    expect(Object.keys(profiles[0].mean as object).sort()).toEqual([
+      'bill',
+      'interrupt',
+      'river_good',
+      'sq',
+    ]);
+    expect(profiles[0].wtp).toHaveProperty('river_good');
+    const means = await team.agents.viewer
+      .get(`${base}/${res.body.id}/conditional-means`)
+      .expect(200);
+    expect(means.body.coefficients).toEqual(['bill', 'river_good', 'interrupt', 'sq']);
+    expect(means.body.values[0]).toHaveLength(80);
+    expect(means.body.values[0].every((v: number) => v < 0)).toBe(true);
+  });
+
+  it('fails with a readable reason when the data cannot be used', async () => {
+    const res = await team.agents.analyst
+      .post(base)
+      .send({ spec: { model: 'mnl', coefficients: allColumns } })
+      .expect(201);
+    // The study's only version disappears before a worker picks the run up.
+    await t.deps.db
+      .update(runs)
+      .set({ studyId: (await seedEmptyStudy()).id })
+      .where(eq(runs.id, res.body.id));
+    await runEstimationJob(t.deps, res.body.id, { threads: 1 });
+    const row = await getRunForJob(t.deps.db, { id: res.body.id });
+    expect(row?.status).toBe('failed');
+    expect(row?.error).toBe('The study has not been live yet, so it has no answers.');
+  });
+
+  it('stops a running run when it is cancelled, and leaves it cancelled', async () => {
+    const res = await team.agents.analyst
+      .post(base)
+      .send({
+        spec: {
+          model: 'mixed',
+          coefficients: allColumns.map((c) => ({ ...c, distribution: 'normal' })),
+          draws: { count: 1000, seed: 2 },
+        },
+      })
+      .expect(201);
+    // Two threads: the log-likelihood runs off this thread, so the API answers meanwhile.
+    const job = runEstimationJob(t.deps, res.body.id, { threads: 2 });
+    // Wait until the worker has claimed the run, then cancel through the API.
+    for (let i = 0; i < 200; i++) {
+      const row = await getRunForJob(t.deps.db, { id: res.body.id });
+      if (row?.status === 'running') break;
+      await new Promise((r) => setTimeout(r, 20));
+    }
+    const cancel = await team.agents.analyst.post(`${base}/${res.body.id}/cancel`).expect(200);
+    expect(cancel.body).toMatchObject({ status: 'running', cancelRequested: true });
+    await job;
+    const row = await getRunForJob(t.deps.db, { id: res.body.id });
+    expect(row?.status).toBe('cancelled');
+    expect(await listTasteProfiles(t.deps.db, { runId: res.body.id })).toEqual([]);
+  });
+
+  it('does not start a run cancelled while queued', async () => {
+    const res = await team.agents.analyst
+      .post(base)
+      .send({ spec: { model: 'mnl', coefficients: allColumns } })
+      .expect(201);
+    await team.agents.analyst.post(`${base}/${res.body.id}/cancel`).expect(200);
+    await runEstimationJob(t.deps, res.body.id, { threads: 1 });
+    const row = await getRunForJob(t.deps.db, { id: res.body.id });
+    expect(row?.status).toBe('cancelled');
+    expect(row?.startedAt).toBeNull();
+  });
+});
+
+describe('stale-run sweep (worker crash)', () => {
+  it('fails runs left running by a dead worker and leaves live ones alone', async () => {
+    const make = async () =>
+      (
+        await team.agents.analyst
+          .post(base)
+          .send({ spec: { model: 'mnl', coefficients: allColumns } })
+          .expect(201)
+      ).body.id as string;
+    const dead = await make();
+    const alive = await make();
+    const silent = new Date(Date.now() - STALE_RUN_MS - 60_000);
+    // A worker claimed `dead`, then crashed: its heartbeat stopped long ago.
+    await t.deps.db
+      .update(runs)
+      .set({
+        status: 'running',
+        startedAt: silent,
+        progress: { heartbeatAt: silent.toISOString() },
+      })
+      .where(eq(runs.id, dead));
+    await t.deps.db
+      .update(runs)
+      .set({
+        status: 'running',
+        startedAt: new Date(),
+        progress: { heartbeatAt: new Date().toISOString() },
+      })
+      .where(eq(runs.id, alive));
+    const failed = await sweepStaleRuns(t.deps);
+    expect(failed).toContain(dead);
+    expect(failed).not.toContain(alive);
+    const deadRow = await getRunForJob(t.deps.db, { id: dead });
+    expect(deadRow).toMatchObject({ status: 'failed', error: WORKER_LOST_ERROR });
+    expect((await getRunForJob(t.deps.db, { id: alive }))?.status).toBe('running');
+    const view = (await team.agents.viewer.get(`${base}/${dead}`).expect(200)).body;
+    expect(view.status).toBe('failed');
+  });
+});
+
+async function seedEmptyStudy() {
+  const { studies } = await import('../../../db/schema/studies');
+  const [row] = await t.deps.db
+    .insert(studies)
+    .values({ teamId: team.teamId, publicId: `e${Date.now()}`, name: 'Empty', definition: {} })
+    .returning({ id: studies.id });
+  return row;
+}

@@ -1,0 +1,212 @@
+/**
+ * A hand-built, live Larkspur Valley Water study with simulated respondents for run tests:
+ * one frozen version (definition, a seeded random design of 16 tasks in 2 blocks, a
+ * questionnaire with one warm-up and one holdout task), completed respondents whose design
+ * choices follow a known MNL (Gumbel errors from a seeded generator), plus an excluded and an
+ * unfinished respondent. Rows are written directly: the fieldwork code is not under test here.
+ */
+import { randomBytes } from 'node:crypto';
+import type { Db } from '../../../db/client';
+import { answers, respondents } from '../../../db/schema/fieldwork';
+import { studies, studyVersions } from '../../../db/schema/studies';
+import { respondentFilters } from '../../../db/schema/models';
+import { createPrng } from '../../../server/engine/draws/prng';
+import { buildCodingPlan } from '../../../shared/engine/coding/coding-plan';
+import { codeAlternative } from '../../../shared/engine/coding/code-alternative';
+import type { Design } from '../../../shared/schemas/design';
+import type { StudyDefinition } from '../../../shared/schemas/study-definition';
+import { makeLarkspurDefinition } from '../../engine/coding/fixtures/larkspur-definition';
+
+/** True MNL coefficients by coded-column key (bill, interruptions, warning effects, river, renew, SQ). */
+export const TRUE_MNL: Record<string, number> = {
+  'attr:bill': -0.15,
+  'attr:interrupt': -0.3,
+  'attr:warn:w6': -0.4,
+  'attr:warn:w2': 0.1,
+  'attr:river:fair': 0.5,
+  'attr:river:good': 0.9,
+  'attr:renew:r20': -0.3,
+  'attr:renew:r80': 0.3,
+  'asc:fixed': 0.2,
+};
+
+export const WARMUP_PAGE = 'wu1';
+export const HOLDOUT_PAGE = 'ho1';
+
+/** 16 tasks of two random packages each (no package equal to the other), blocks of 8. */
+export function makeRandomDesign(definition: StudyDefinition, seed = 11): Design {
+  const prng = createPrng(seed);
+  const pick = <T>(xs: T[]) => xs[Math.floor(prng.nextDouble() * xs.length)];
+  const tasks = Array.from({ length: 16 }, (_, i) => {
+    const alternatives = [0, 1].map(() => ({
+      levels: Object.fromEntries(
+        definition.attributes.map((a) => [a.id, pick(a.levels.map((l) => l.id))]),
+      ),
+    }));
+    return { block: i < 8 ? 1 : 2, task: i + 1, alternatives };
+  });
+  return { blocks: 2, tasks };
+}
+
+export function makeQuestionnaire() {
+  const alternatives = [
+    { levels: { bill: 'b3', interrupt: 'i2', warn: 'w2', river: 'fair', renew: 'r50' } },
+    { levels: { bill: 'b10', interrupt: 'i1', warn: 'w0', river: 'good', renew: 'r80' } },
+  ];
+  return {
+    pages: [
+      {
+        id: 'c1',
+        kind: 'consent',
+        title: 'Welcome',
+        body: 'We ask about water services.',
+        agreeLabel: 'I agree',
+      },
+      { id: WARMUP_PAGE, kind: 'warmup', title: 'A first example', alternatives },
+      { id: 't1', kind: 'tasks', title: 'Choices' },
+      { id: HOLDOUT_PAGE, kind: 'holdout', title: 'One more choice', alternatives },
+      { id: 'e1', kind: 'end', title: 'Thank you', body: 'Done.' },
+    ],
+  };
+}
+
+export type SeededStudy = {
+  studyId: string;
+  versionId: string;
+  definition: StudyDefinition;
+  design: Design;
+  /** Completed, included respondents in id order. */
+  respondentIds: string[];
+  excludedId: string;
+  unfinishedId: string;
+};
+
+/** Picks an alternative with logit probabilities by adding Gumbel errors. */
+function choose(utilities: number[], prng: ReturnType<typeof createPrng>): number {
+  let best = 0;
+  let bestU = -Infinity;
+  utilities.forEach((u, j) => {
+    const e = -Math.log(-Math.log(prng.nextDouble()));
+    if (u + e > bestU) {
+      bestU = u + e;
+      best = j;
+    }
+  });
+  return best;
+}
+
+export async function seedRunStudy(
+  db: Db,
+  params: { teamId: string; respondents?: number; seed?: number; beta?: Record<string, number> },
+): Promise<SeededStudy> {
+  const definition = makeLarkspurDefinition();
+  const design = makeRandomDesign(definition);
+  const plan = buildCodingPlan(definition);
+  const beta = plan.columns.map((c) => (params.beta ?? TRUE_MNL)[c.key] ?? 0);
+  const utility = (x: Float64Array) => x.reduce((s, v, k) => s + v * beta[k], 0);
+  const prng = createPrng(params.seed ?? 5);
+  const [study] = await db
+    .insert(studies)
+    .values({
+      teamId: params.teamId,
+      publicId: randomBytes(6).toString('hex'),
+      name: 'Larkspur packages (test)',
+      status: 'closed',
+      definition,
+      questionnaire: makeQuestionnaire(),
+      currentVersion: 1,
+    })
+    .returning({ id: studies.id });
+  const [version] = await db
+    .insert(studyVersions)
+    .values({
+      studyId: study.id,
+      version: 1,
+      definition,
+      design,
+      questionnaire: makeQuestionnaire(),
+    })
+    .returning({ id: studyVersions.id });
+  const total = (params.respondents ?? 60) + 2;
+  const ids: string[] = [];
+  let excludedId = '';
+  let unfinishedId = '';
+  const holdoutAlts = makeQuestionnaire().pages[3].alternatives as {
+    levels: Record<string, string>;
+  }[];
+  for (let n = 0; n < total; n++) {
+    const block = (n % 2) + 1;
+    const excluded = n === total - 2;
+    const unfinished = n === total - 1;
+    const [r] = await db
+      .insert(respondents)
+      .values({
+        studyId: study.id,
+        versionId: version.id,
+        sessionToken: randomBytes(12).toString('hex'),
+        block,
+        plan: {},
+        status: unfinished ? 'in_progress' : 'completed',
+        included: !excluded,
+        exclusionReason: excluded ? 'speeder' : null,
+      })
+      .returning({ id: respondents.id });
+    if (excluded) excludedId = r.id;
+    else if (unfinished) unfinishedId = r.id;
+    else ids.push(r.id);
+    const rows: (typeof answers.$inferInsert)[] = [];
+    const screens = [
+      { key: `warmup:${WARMUP_PAGE}`, taskNumber: null, alts: holdoutAlts },
+      ...design.tasks
+        .filter((t) => t.block === block)
+        .map((t) => ({ key: `task:${t.task}`, taskNumber: t.task, alts: t.alternatives })),
+      { key: `holdout:${HOLDOUT_PAGE}`, taskNumber: null, alts: holdoutAlts },
+    ];
+    for (const s of screens) {
+      const u = s.alts.map((a, j) => utility(codeAlternative(plan, j, a.levels)));
+      u.push(utility(codeAlternative(plan, 'fixed', {})));
+      const j = choose(u, prng);
+      rows.push({
+        respondentId: r.id,
+        studyId: study.id,
+        clientId: `${s.key}-${n}`,
+        screenKey: s.key,
+        taskNumber: s.taskNumber,
+        chosenAlternative: j === s.alts.length ? -1 : j,
+        chosenPosition: j,
+        value: null,
+      });
+    }
+    rows.push({
+      respondentId: r.id,
+      studyId: study.id,
+      clientId: `q-${n}`,
+      screenKey: 'q:filter_tap',
+      value: n % 3 === 0 ? 'yes' : 'no',
+    });
+    await db.insert(answers).values(rows);
+  }
+  ids.sort();
+  return {
+    studyId: study.id,
+    versionId: version.id,
+    definition,
+    design,
+    respondentIds: ids,
+    excludedId,
+    unfinishedId,
+  };
+}
+
+/** A saved filter keeping respondents who filter their tap water. */
+export async function seedTapFilter(db: Db, studyId: string) {
+  const [row] = await db
+    .insert(respondentFilters)
+    .values({
+      studyId,
+      name: 'Filters tap water',
+      definition: { conditions: [{ question: 'filter_tap', values: ['yes'] }] },
+    })
+    .returning({ id: respondentFilters.id });
+  return row.id;
+}

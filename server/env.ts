@@ -36,6 +36,8 @@ const envSchema = z.object({
   WORKER_THREADS: z.coerce.number().int().min(1).max(64).default(2),
   /** Requests per 15 minutes per IP on sign-in, sign-up and reset routes. */
   AUTH_RATE_LIMIT: z.coerce.number().int().min(1).default(50),
+  /** New respondent sessions per 15 minutes per IP (a panel behind one address needs headroom). */
+  RESPONDENT_START_RATE_LIMIT: z.coerce.number().int().min(1).default(300),
 });
 
 export type Env = z.infer<typeof envSchema> & { JWT_SECRET: string; APP_URL: string };

@@ -10,6 +10,9 @@ import { createAccountRouter } from './account';
 import { createTeamsRouter } from './teams';
 import { createInvitationsRouter } from './invitations';
 import { createStudiesRouter } from './studies';
+import { createQuestionnaireRouter } from './questionnaire';
+import { createLifecycleRouter } from './lifecycle';
+import { createRespondRouter } from './respond';
 import { createRunsRouter } from './runs';
 import { createDesignsRouter } from './designs';
 import { createPublicFilesRouter, createStudyFilesRouter } from './files';
@@ -33,6 +36,9 @@ export function mountApiRoutes(api: Router, deps: AppDeps): void {
   api.use('/teams/:teamId/studies/:studyId/shares', createSharesRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/exports', createExportsRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/runs', createRunsRouter(deps));
+  api.use('/r/:publicId', createRespondRouter(deps));
+  api.use('/teams/:teamId/studies/:studyId/questionnaire', createQuestionnaireRouter(deps));
+  api.use('/teams/:teamId/studies/:studyId/lifecycle', createLifecycleRouter(deps));
   api.use('/teams/:teamId/studies', createStudiesRouter(deps));
   api.use('/teams', createTeamsRouter(deps));
 }

@@ -1,0 +1,81 @@
+/**
+ * /api/r/:publicId — the respondent API. No sign-in: the public id names the survey and the
+ * session token (header X-Respondent-Token) names the respondent's own session; a token from
+ * another session or survey finds nothing (404). Starting sessions is rate-limited per IP.
+ */
+import { Router, type Request } from 'express';
+import { rateLimit } from 'express-rate-limit';
+import type { AppDeps } from '../deps';
+import { parseBody } from '../middleware/validate';
+import { AppError, NotFoundError } from '../lib/errors';
+import {
+  publicIdParamsSchema,
+  RESPONDENT_TOKEN_HEADER,
+  sessionTokenSchema,
+  startSessionSchema,
+  submitAnswerSchema,
+} from '../../shared/schemas/respondent';
+import * as sessions from '../services/respondent-session';
+import { submitAnswer } from '../services/answers';
+import { z } from 'zod';
+
+const linkQuerySchema = z.record(z.string().max(40), z.string().max(200));
+
+function publicIdOf(req: Request): string {
+  const parsed = publicIdParamsSchema.safeParse(req.params);
+  if (!parsed.success)
+    throw new AppError(404, 'survey_not_found', 'This survey link does not exist.');
+  return parsed.data.publicId;
+}
+
+function tokenOf(req: Request): string {
+  const parsed = sessionTokenSchema.safeParse(req.get(RESPONDENT_TOKEN_HEADER));
+  if (!parsed.success) throw new NotFoundError('Session');
+  return parsed.data;
+}
+
+export function createRespondRouter(deps: AppDeps): Router {
+  const router = Router({ mergeParams: true });
+  const startLimit = rateLimit({
+    windowMs: 15 * 60 * 1000,
+    limit: deps.env.RESPONDENT_START_RATE_LIMIT,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    handler: (_req, res) => {
+      res.status(429).json({
+        error: {
+          code: 'rate_limited',
+          message: 'Too many new sessions from this network. Try again later.',
+        },
+      });
+    },
+  });
+  router.use((_req, res, next) => {
+    // Answers and sessions are personal: never cached by the browser or a proxy.
+    res.set('Cache-Control', 'no-store');
+    next();
+  });
+
+  router.get('/', async (req, res) => {
+    const publicId = publicIdOf(req);
+    const query = linkQuerySchema.safeParse(req.query);
+    res.json(await sessions.getLinkInfo(deps, publicId, query.success ? query.data : {}));
+  });
+  router.post('/sessions', startLimit, async (req, res) => {
+    const publicId = publicIdOf(req);
+    const input = parseBody(startSessionSchema, req);
+    res.status(201).json(await sessions.startSession(deps, publicId, input));
+  });
+  router.get('/session', async (req, res) => {
+    const publicId = publicIdOf(req);
+    res.json(await sessions.getSession(deps, publicId, tokenOf(req)));
+  });
+  router.post('/answers', async (req, res) => {
+    const publicId = publicIdOf(req);
+    const token = tokenOf(req);
+    const input = parseBody(submitAnswerSchema, req);
+    const receipt = await submitAnswer(deps, publicId, token, input);
+    res.status(receipt.replay ? 200 : 201).json(receipt);
+  });
+  return router;
+}

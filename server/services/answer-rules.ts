@@ -1,0 +1,70 @@
+/** Whether an answer fits its screen, and whether a screening answer screens the respondent out. */
+import { ValidationError } from '../lib/errors';
+import type { AnswerValue, RespondentScreen } from '../../shared/schemas/respondent';
+import type { QuestionnairePage } from '../../shared/schemas/questionnaire';
+
+const invalid = (message: string) =>
+  new ValidationError(message, [{ path: 'value', message }], 'invalid_answer');
+
+export function checkAnswerValue(screen: RespondentScreen, value: AnswerValue): void {
+  switch (screen.kind) {
+    case 'consent':
+      if (value.kind !== 'consent') throw invalid('Agree to take part to continue.');
+      return;
+    case 'instructions':
+      if (value.kind !== 'ack') throw invalid('This screen takes no answer.');
+      return;
+    case 'task':
+      if (value.kind !== 'choice') throw invalid('Choose one of the options.');
+      if (value.position >= screen.alternatives.length)
+        throw invalid('There is no option at that position.');
+      return;
+    case 'question': {
+      const q = screen.question;
+      if (value.kind !== q.type) throw invalid(`This question takes a ${q.type} answer.`);
+      if (value.kind === 'single' && q.type === 'single') {
+        if (value.optionId === null) {
+          if (q.required) throw invalid('Choose an answer.');
+        } else if (!q.options.some((o) => o.id === value.optionId))
+          throw invalid('Unknown option.');
+      }
+      if (value.kind === 'multiple' && q.type === 'multiple') {
+        if (q.required && value.optionIds.length === 0)
+          throw invalid('Choose at least one answer.');
+        if (new Set(value.optionIds).size !== value.optionIds.length)
+          throw invalid('An option is listed twice.');
+        if (value.optionIds.some((id) => !q.options.some((o) => o.id === id)))
+          throw invalid('Unknown option.');
+      }
+      if (value.kind === 'number' && q.type === 'number') {
+        if (value.number === null) {
+          if (q.required) throw invalid('Enter a number.');
+        } else {
+          if (value.number < q.min || value.number > q.max)
+            throw invalid(`Enter a number from ${q.min} to ${q.max}.`);
+          if (q.integer && !Number.isInteger(value.number)) throw invalid('Enter a whole number.');
+        }
+      }
+      if (value.kind === 'text' && q.type === 'text') {
+        if (q.required && value.text.trim() === '') throw invalid('Write an answer.');
+        if (value.text.length > q.maxLength)
+          throw invalid(`Keep the answer under ${q.maxLength} characters.`);
+      }
+      return;
+    }
+  }
+}
+
+export function screensOut(page: QuestionnairePage, value: AnswerValue): boolean {
+  if (page.kind !== 'screening') return false;
+  if (value.kind === 'single')
+    return value.optionId !== null && page.screenOutOptionIds.includes(value.optionId);
+  if (value.kind === 'multiple')
+    return value.optionIds.some((id) => page.screenOutOptionIds.includes(id));
+  if (value.kind === 'number' && value.number !== null)
+    return (
+      (page.acceptMin !== null && value.number < page.acceptMin) ||
+      (page.acceptMax !== null && value.number > page.acceptMax)
+    );
+  return false;
+}

@@ -1,0 +1,80 @@
+/**
+ * Per-respondent randomisation: the block (the least-filled one), the order of the block's
+ * tasks, and the on-screen position of every alternative. Everything comes from one stored
+ * seed, so a plan can be rebuilt and checked; the plan itself is stored in respondents.plan.
+ */
+import { createSeededRandom, type SeededRandom } from '../engine/design/seeded-random';
+import type { Design } from '../../shared/schemas/design';
+import type { Questionnaire } from '../../shared/schemas/questionnaire';
+import { screenKeys } from '../../shared/schemas/questionnaire';
+import type { RespondentPlan } from '../../shared/schemas/respondent';
+import type { StudyDefinition } from '../../shared/schemas/study-definition';
+
+/** The block with the fewest respondents so far; ties go to the lowest block number. */
+export function chooseLeastFilledBlock(
+  blocks: number,
+  filled: ReadonlyMap<number, number>,
+): number {
+  let best = 1;
+  for (let b = 2; b <= blocks; b++) if ((filled.get(b) ?? 0) < (filled.get(best) ?? 0)) best = b;
+  return best;
+}
+
+function shuffled(random: SeededRandom, values: number[]): number[] {
+  const out = [...values];
+  for (let i = out.length - 1; i > 0; i--) {
+    const k = random.nextInt(i + 1);
+    [out[i], out[k]] = [out[k], out[i]];
+  }
+  return out;
+}
+
+const range = (n: number) => Array.from({ length: n }, (_, i) => i);
+
+export type PlanInput = {
+  definition: StudyDefinition;
+  design: Design;
+  questionnaire: Questionnaire;
+  block: number;
+  seed: number;
+};
+
+/**
+ * Builds the plan. Unlabeled alternatives are shuffled per task; labeled ones keep their order
+ * (their label is part of what is chosen), and the opt-out / status quo always stays last —
+ * common practice, no source. The repeated task shows the original task's designed
+ * alternatives in reverse order; the dominance test puts its dominant alternative (index 0)
+ * at a random position.
+ */
+export function createRespondentPlan(input: PlanInput): RespondentPlan {
+  const { definition, design, questionnaire, block, seed } = input;
+  const random = createSeededRandom(seed);
+  const tasks = design.tasks.filter((t) => t.block === block).map((t) => t.task);
+  if (tasks.length === 0) throw new RangeError(`Block ${block} has no tasks`);
+  const taskOrder = shuffled(random, tasks);
+  const J = definition.alternatives.count;
+  const fixed = definition.fixedAlternative ? [-1] : [];
+  const order = () => (definition.alternatives.labeled ? range(J) : shuffled(random, range(J)));
+  const positions: Record<string, number[]> = {};
+  for (const task of taskOrder) positions[screenKeys.task(task)] = [...order(), ...fixed];
+  for (const page of questionnaire.pages) {
+    if (page.kind === 'warmup' || page.kind === 'holdout')
+      positions[screenKeys.special(page.kind, page.id)] = [
+        ...range(page.alternatives.length),
+        ...fixed,
+      ];
+    if (page.kind === 'repeat') {
+      const original = taskOrder[Math.min(page.repeatOf, taskOrder.length) - 1];
+      const shown = positions[screenKeys.task(original)].filter((j) => j >= 0);
+      positions[screenKeys.special('repeat', page.id)] = [...shown.reverse(), ...fixed];
+    }
+    if (page.kind === 'dominance')
+      positions[screenKeys.special('dominance', page.id)] = shuffled(random, range(J));
+  }
+  return { seed, block, taskOrder, positions };
+}
+
+/** The design task a repeat page repeats for this respondent. */
+export function repeatedTaskNumber(plan: RespondentPlan, repeatOf: number): number {
+  return plan.taskOrder[Math.min(repeatOf, plan.taskOrder.length) - 1];
+}

@@ -1,0 +1,202 @@
+/**
+ * The screens one respondent walks through, built from the frozen version and their plan:
+ * questionnaire pages in order, the block's design tasks where the task block stands, and the
+ * special tasks (warm-up, holdout, repeat, dominance) with their alternatives in display order.
+ */
+import type { DbOrTx } from '../../db/client';
+import { getVersionById } from '../../db/queries/versions';
+import { NotFoundError } from '../lib/errors';
+import { designSchema, type Design } from '../../shared/schemas/design';
+import {
+  questionnaireSchema,
+  screenKeys,
+  type Questionnaire,
+} from '../../shared/schemas/questionnaire';
+import type {
+  DisplayAlternative,
+  RespondentPlan,
+  RespondentScreen,
+  TaskKind,
+} from '../../shared/schemas/respondent';
+import { studyDefinitionSchema, type StudyDefinition } from '../../shared/schemas/study-definition';
+import { repeatedTaskNumber } from './respondent-plan';
+
+export type FrozenVersion = {
+  id: string;
+  studyId: string;
+  version: number;
+  definition: StudyDefinition;
+  design: Design;
+  questionnaire: Questionnaire;
+};
+
+/** Versions never change once written, so parsed copies are kept (bounded) per process. */
+const cache = new Map<string, FrozenVersion>();
+const CACHE_LIMIT = 200;
+
+export async function loadFrozenVersion(
+  db: DbOrTx,
+  params: { id: string; studyId: string },
+): Promise<FrozenVersion> {
+  const hit = cache.get(params.id);
+  if (hit && hit.studyId === params.studyId) return hit;
+  const row = await getVersionById(db, params);
+  if (!row) throw new NotFoundError('Study version');
+  const version: FrozenVersion = {
+    id: row.id,
+    studyId: row.studyId,
+    version: row.version,
+    definition: studyDefinitionSchema.parse(row.definition),
+    design: designSchema.parse(row.design),
+    questionnaire: questionnaireSchema.parse(row.questionnaire),
+  };
+  if (cache.size >= CACHE_LIMIT) cache.delete(cache.keys().next().value!);
+  cache.set(row.id, version);
+  return version;
+}
+
+/** Level choices that make alternative 0 better than the others on every attribute. */
+export function buildDominanceAlternatives(
+  definition: StudyDefinition,
+  bestLevels: Record<string, string>,
+): Array<Record<string, string>> {
+  return Array.from({ length: definition.alternatives.count }, (_, k) =>
+    Object.fromEntries(
+      definition.attributes.map((a) => {
+        const best = bestLevels[a.id] ?? a.levels[a.levels.length - 1].id;
+        if (k === 0) return [a.id, best];
+        const worse = a.levels.filter((l) => l.id !== best);
+        return [a.id, worse[(k - 1) % worse.length].id];
+      }),
+    ),
+  );
+}
+
+function fixedDisplay(definition: StudyDefinition): DisplayAlternative {
+  const fx = definition.fixedAlternative!;
+  return {
+    index: -1,
+    label: fx.label,
+    levels: fx.kind === 'status_quo' ? { ...fx.levels } : {},
+    fixed: true,
+  };
+}
+
+function displayAlternatives(
+  definition: StudyDefinition,
+  order: number[],
+  levelsOf: (index: number) => Record<string, string>,
+): DisplayAlternative[] {
+  const { labeled, labels } = definition.alternatives;
+  let unlabeled = 0;
+  return order.map((index) => {
+    if (index < 0) return fixedDisplay(definition);
+    const label = labeled
+      ? (labels[index]?.name ?? `Option ${index + 1}`)
+      : `Option ${String.fromCharCode(65 + unlabeled++)}`;
+    return { index, label, levels: { ...levelsOf(index) }, fixed: false };
+  });
+}
+
+export function buildScreens(version: FrozenVersion, plan: RespondentPlan): RespondentScreen[] {
+  const { definition, design, questionnaire } = version;
+  const taskByNumber = new Map(design.tasks.map((t) => [t.task, t]));
+  const tasks: Array<Omit<Extract<RespondentScreen, { kind: 'task' }>, 'taskIndex' | 'taskCount'>> =
+    [];
+  const screens: Array<RespondentScreen | { pendingTask: number }> = [];
+  const pushTask = (
+    key: string,
+    taskKind: TaskKind,
+    title: string,
+    levelsOf: (i: number) => Record<string, string>,
+  ) => {
+    const order = plan.positions[key];
+    if (!order) throw new RangeError(`The plan has no positions for ${key}`);
+    screens.push({ pendingTask: tasks.length });
+    tasks.push({
+      key,
+      kind: 'task',
+      taskKind,
+      title,
+      alternatives: displayAlternatives(definition, order, levelsOf),
+    });
+  };
+  for (const page of questionnaire.pages) {
+    switch (page.kind) {
+      case 'consent':
+        screens.push({
+          key: screenKeys.consent(),
+          kind: 'consent',
+          ...pick(page, 'title', 'body', 'agreeLabel'),
+        });
+        break;
+      case 'instructions':
+        screens.push({
+          key: screenKeys.instructions(page.id),
+          kind: 'instructions',
+          ...pick(page, 'title', 'body'),
+        });
+        break;
+      case 'question':
+      case 'screening':
+        screens.push({
+          key: screenKeys.question(page.question.key),
+          kind: 'question',
+          question: page.question,
+          screening: page.kind === 'screening',
+        });
+        break;
+      case 'tasks':
+        for (const n of plan.taskOrder)
+          pushTask(
+            screenKeys.task(n),
+            'design',
+            page.title,
+            (i) => taskByNumber.get(n)!.alternatives[i].levels,
+          );
+        break;
+      case 'warmup':
+      case 'holdout':
+        pushTask(
+          screenKeys.special(page.kind, page.id),
+          page.kind,
+          page.title,
+          (i) => page.alternatives[i].levels,
+        );
+        break;
+      case 'repeat': {
+        const n = repeatedTaskNumber(plan, page.repeatOf);
+        pushTask(
+          screenKeys.special('repeat', page.id),
+          'repeat',
+          page.title,
+          (i) => taskByNumber.get(n)!.alternatives[i].levels,
+        );
+        break;
+      }
+      case 'dominance': {
+        const alts = buildDominanceAlternatives(definition, page.bestLevels);
+        pushTask(screenKeys.special('dominance', page.id), 'dominance', page.title, (i) => alts[i]);
+        break;
+      }
+      case 'end':
+        break;
+    }
+  }
+  return screens.map((s) =>
+    'pendingTask' in s
+      ? { ...tasks[s.pendingTask], taskIndex: s.pendingTask + 1, taskCount: tasks.length }
+      : s,
+  );
+}
+
+export function endPageOf(questionnaire: Questionnaire): { title: string; body: string } {
+  const end = questionnaire.pages.find((p) => p.kind === 'end');
+  return end && end.kind === 'end'
+    ? { title: end.title, body: end.body }
+    : { title: 'Thank you', body: 'Your answers have been saved.' };
+}
+
+function pick<T extends object, K extends keyof T>(o: T, ...keys: K[]): Pick<T, K> {
+  return Object.fromEntries(keys.map((k) => [k, o[k]])) as Pick<T, K>;
+}

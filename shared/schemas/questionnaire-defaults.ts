@@ -1,0 +1,243 @@
+/**
+ * Starting questionnaires and page templates built from a study definition. Used by the
+ * editor (new pages), the studies service (a new study's questionnaire) and the seed.
+ */
+import { nanoid } from 'nanoid';
+import type { StudyDefinition } from './study-definition';
+import type { Questionnaire, QuestionnairePage } from './questionnaire';
+
+const id = () => nanoid(10);
+
+export const defaultConsentBody = [
+  'Thank you for taking part. This survey asks you to choose between options described by a few features, and a few questions about you. It takes about 10 minutes.',
+  'We record your answers, the time you spend on each screen and the kind of device you use. We do not ask for your name. Your answers are stored securely, used only for this research and reported only in summaries.',
+  'Taking part is voluntary. You may stop at any time by closing this page, without giving a reason.',
+  'Note for the research team (replace this paragraph): state who runs the study, the ethics approval reference, how long the data are kept, the legal basis under your data-protection law and how to contact you. Follow your ethics board and local law.',
+].join('\n\n');
+
+/** Attributes shown in designed alternative j (labeled alternatives can omit some). */
+function shownAttributes(definition: StudyDefinition, j: number) {
+  const omitted = new Set(
+    definition.alternatives.labeled
+      ? (definition.alternatives.labels[j]?.omittedAttributeIds ?? [])
+      : [],
+  );
+  return definition.attributes.filter((a) => !omitted.has(a.id));
+}
+
+/** Alternatives that differ on every attribute: alternative j takes level (j + a) mod L. */
+export function buildFixedTaskAlternatives(definition: StudyDefinition) {
+  return Array.from({ length: definition.alternatives.count }, (_, j) => ({
+    levels: Object.fromEntries(
+      shownAttributes(definition, j).map((a) => {
+        const index = definition.attributes.indexOf(a);
+        return [a.id, a.levels[(j + index) % a.levels.length].id];
+      }),
+    ),
+  }));
+}
+
+/**
+ * Best level of each attribute, assuming levels are listed from least to most preferred,
+ * except the cost attribute, where the lowest value is best. Researchers adjust it in the editor.
+ */
+export function buildBestLevels(definition: StudyDefinition): Record<string, string> {
+  return Object.fromEntries(
+    definition.attributes.map((a) => {
+      if (a.isCost) {
+        const cheapest = [...a.levels].sort((x, y) => (x.value ?? 0) - (y.value ?? 0))[0];
+        return [a.id, cheapest.id];
+      }
+      return [a.id, a.levels[a.levels.length - 1].id];
+    }),
+  );
+}
+
+export function createPage(
+  kind: QuestionnairePage['kind'],
+  definition: StudyDefinition,
+): QuestionnairePage {
+  switch (kind) {
+    case 'consent':
+      return {
+        id: id(),
+        kind,
+        title: 'Welcome',
+        body: defaultConsentBody,
+        agreeLabel: 'I have read this and agree to take part',
+      };
+    case 'screening':
+      return {
+        id: id(),
+        kind,
+        question: {
+          type: 'single',
+          key: `screen_${id()
+            .toLowerCase()
+            .replace(/[^a-z0-9]/g, '')}`.slice(0, 40),
+          text: 'Are you 18 or older?',
+          help: '',
+          required: true,
+          options: [
+            { id: 'yes', label: 'Yes' },
+            { id: 'no', label: 'No' },
+          ],
+        },
+        screenOutOptionIds: ['no'],
+        acceptMin: null,
+        acceptMax: null,
+      };
+    case 'question':
+      return {
+        id: id(),
+        kind,
+        question: {
+          type: 'single',
+          key: `q_${id()
+            .toLowerCase()
+            .replace(/[^a-z0-9]/g, '')}`.slice(0, 40),
+          text: 'New question',
+          help: '',
+          required: true,
+          options: [
+            { id: 'a', label: 'First option' },
+            { id: 'b', label: 'Second option' },
+          ],
+        },
+      };
+    case 'instructions':
+      return {
+        id: id(),
+        kind,
+        title: 'How the choices work',
+        body: 'On the next screens you will see a few options side by side. Each is described by the same features. Pick the one you would choose if these were the only options. There are no right or wrong answers.',
+      };
+    case 'tasks':
+      return { id: id(), kind, title: 'Which option would you choose?' };
+    case 'warmup':
+      return {
+        id: id(),
+        kind,
+        title: 'A first practice choice',
+        alternatives: buildFixedTaskAlternatives(definition),
+      };
+    case 'holdout':
+      return {
+        id: id(),
+        kind,
+        title: 'Which option would you choose?',
+        alternatives: buildFixedTaskAlternatives(definition),
+      };
+    case 'repeat':
+      return { id: id(), kind, title: 'Which option would you choose?', repeatOf: 1 };
+    case 'dominance':
+      return {
+        id: id(),
+        kind,
+        title: 'Which option would you choose?',
+        bestLevels: buildBestLevels(definition),
+      };
+    case 'end':
+      return {
+        id: id(),
+        kind,
+        title: 'Thank you',
+        body: 'Your answers have been saved. You can close this page now.',
+      };
+  }
+}
+
+/** Consent, instructions, the choice tasks and the end page. */
+export function defaultQuestionnaire(definition: StudyDefinition): Questionnaire {
+  return {
+    pages: [
+      createPage('consent', definition),
+      createPage('instructions', definition),
+      createPage('tasks', definition),
+      createPage('end', definition),
+    ],
+  };
+}
+
+/** The Larkspur Valley Water demo: the default pages plus the three background questions. */
+export function demoQuestionnaire(definition: StudyDefinition): Questionnaire {
+  const consent = createPage('consent', definition);
+  const instructions = createPage('instructions', definition);
+  const background: QuestionnairePage[] = [
+    {
+      id: 'household',
+      kind: 'question',
+      question: {
+        type: 'number',
+        key: 'household_size',
+        text: 'How many people live in your household, including you?',
+        help: '',
+        required: true,
+        min: 1,
+        max: 12,
+        integer: true,
+        unit: 'people',
+      },
+    },
+    {
+      id: 'ageband',
+      kind: 'question',
+      question: {
+        type: 'single',
+        key: 'age_band',
+        text: 'What is your age?',
+        help: '',
+        required: true,
+        options: [
+          { id: 'a18_34', label: '18–34' },
+          { id: 'a35_54', label: '35–54' },
+          { id: 'a55_74', label: '55–74' },
+          { id: 'a75', label: '75 or older' },
+        ],
+      },
+    },
+    {
+      id: 'filter',
+      kind: 'question',
+      question: {
+        type: 'single',
+        key: 'filters_water',
+        text: 'Do you filter your tap water before drinking it?',
+        help: '',
+        required: true,
+        options: [
+          { id: 'yes', label: 'Yes' },
+          { id: 'no', label: 'No' },
+        ],
+      },
+    },
+  ];
+  return {
+    pages: [
+      {
+        id: 'consent',
+        kind: 'consent',
+        title: 'Your water services for the next five years',
+        body: `Larkspur Valley Water is planning its services for the next five years and would like to know what matters to your household.\n\n${defaultConsentBody}`,
+        agreeLabel: consent.kind === 'consent' ? consent.agreeLabel : 'I agree to take part',
+      },
+      {
+        id: 'instructions',
+        kind: 'instructions',
+        title: 'How the choices work',
+        body:
+          instructions.kind === 'instructions'
+            ? `${instructions.body}\n\nEach package would apply to your household for the next five years. The current service is always one of the options.`
+            : '',
+      },
+      { id: 'tasks', kind: 'tasks', title: 'Which package would you choose for your household?' },
+      ...background,
+      {
+        id: 'end',
+        kind: 'end',
+        title: 'Thank you',
+        body: 'Your answers have been saved. They will help Larkspur Valley Water plan its services. You can close this page now.',
+      },
+    ],
+  };
+}

@@ -1,0 +1,136 @@
+/**
+ * The respondent API (/api/r/:publicId/...): starting or resuming a session, the screens a
+ * respondent walks through, and the answers they send. Respondents have no account; a secret
+ * session token (header X-Respondent-Token) reaches only their own session.
+ */
+import { z } from 'zod';
+import type { Question } from './questionnaire';
+import type { StudyDefinition } from './study-definition';
+
+export const RESPONDENT_TOKEN_HEADER = 'x-respondent-token';
+
+export const publicIdParamsSchema = z.object({
+  publicId: z.string().regex(/^[A-Za-z0-9_-]{6,40}$/, 'Unknown survey'),
+});
+
+export const sessionTokenSchema = z.string().regex(/^[A-Za-z0-9_-]{20,80}$/, 'Unknown session');
+
+export const startSessionSchema = z.object({
+  /** A token this browser holds from an earlier visit: resumes that session when it is valid. */
+  sessionToken: sessionTokenSchema.optional(),
+  /** The link's query parameters (personal link token, panel id). */
+  params: z
+    .record(z.string().max(40), z.string().max(200))
+    .refine((p) => Object.keys(p).length <= 20, 'Too many link parameters')
+    .default({}),
+  device: z.string().max(200).default(''),
+});
+export type StartSessionInput = z.input<typeof startSessionSchema>;
+
+/** Per-respondent randomisation, stored in respondents.plan so every screen is reproducible. */
+export const respondentPlanSchema = z.object({
+  seed: z.number().int(),
+  block: z.number().int().min(1),
+  /** Design task numbers in the order this respondent sees them. */
+  taskOrder: z.array(z.number().int().min(1)),
+  /**
+   * Screen key -> alternatives in display order: positions[key][p] is the alternative shown at
+   * position p (designed alternatives 0..J-1; -1 is the opt-out / status quo).
+   */
+  positions: z.record(z.string(), z.array(z.number().int().min(-1))),
+});
+export type RespondentPlan = z.infer<typeof respondentPlanSchema>;
+
+export const answerValueSchema = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('consent'), agreed: z.literal(true) }),
+  /** Instructions pages: the respondent read them and went on. */
+  z.object({ kind: z.literal('ack') }),
+  z.object({ kind: z.literal('single'), optionId: z.string().max(40).nullable() }),
+  z.object({ kind: z.literal('multiple'), optionIds: z.array(z.string().max(40)).max(30) }),
+  z.object({ kind: z.literal('number'), number: z.number().finite().nullable() }),
+  z.object({ kind: z.literal('text'), text: z.string().max(2000) }),
+  /** Choice tasks: the on-screen position (0-based) of the chosen card. */
+  z.object({ kind: z.literal('choice'), position: z.number().int().min(0).max(5) }),
+]);
+export type AnswerValue = z.infer<typeof answerValueSchema>;
+
+export const submitAnswerSchema = z.object({
+  /** Made by the client (crypto.randomUUID); a retry with the same id never creates a second row. */
+  clientId: z
+    .string()
+    .regex(/^[A-Za-z0-9_-]{8,64}$/, 'A client id of 8-64 letters, digits, _ or -'),
+  screenKey: z.string().min(1).max(80),
+  value: answerValueSchema,
+  /** Time from the screen being shown to the answer. */
+  responseMs: z
+    .number()
+    .int()
+    .min(0)
+    .max(24 * 3600 * 1000),
+});
+export type SubmitAnswerInput = z.input<typeof submitAnswerSchema>;
+
+/** One alternative as shown: designed (index in the design task) or the fixed opt-out / status quo. */
+export type DisplayAlternative = {
+  /** Design index 0..J-1, or -1 for the opt-out / status quo. */
+  index: number;
+  label: string;
+  /** attribute id -> level id; empty for an opt-out. */
+  levels: Record<string, string>;
+  fixed: boolean;
+};
+
+export type TaskKind = 'design' | 'warmup' | 'holdout' | 'repeat' | 'dominance';
+
+export type RespondentScreen =
+  | { key: string; kind: 'consent'; title: string; body: string; agreeLabel: string }
+  | { key: string; kind: 'instructions'; title: string; body: string }
+  | { key: string; kind: 'question'; question: Question; screening: boolean }
+  | {
+      key: string;
+      kind: 'task';
+      taskKind: TaskKind;
+      title: string;
+      /** 1-based count among the task screens, and how many there are. */
+      taskIndex: number;
+      taskCount: number;
+      alternatives: DisplayAlternative[];
+    };
+
+export type RespondentStatus = 'in_progress' | 'completed' | 'screened_out' | 'over_quota';
+
+/** What the respondent app needs to walk through the whole questionnaire, even offline. */
+export type RespondentSession = {
+  sessionToken: string;
+  studyName: string;
+  status: RespondentStatus;
+  definition: Pick<StudyDefinition, 'attributes' | 'alternatives' | 'fixedAlternative'>;
+  screens: RespondentScreen[];
+  /** Keys of the screens already answered, in order. */
+  answered: string[];
+  end: { title: string; body: string };
+  /** Where to send the respondent when they finish (panel redirects), or null. */
+  redirectUrl: string | null;
+  /** False once the survey has closed: the app shows a closed page instead of the next screen. */
+  surveyOpen: boolean;
+};
+
+export type AnswerReceipt = {
+  screenKey: string;
+  /** The screen to show next, or null when the questionnaire is over. */
+  nextScreenKey: string | null;
+  status: RespondentStatus;
+  redirectUrl: string | null;
+  /** True when this answer was already stored (a retry); nothing new was written. */
+  replay: boolean;
+};
+
+/** What a link shows before any session: whether the survey is open. */
+export type SurveyLinkState = 'live' | 'closed' | 'over_quota' | 'not_open';
+export type SurveyLinkInfo = {
+  state: SurveyLinkState;
+  /** Hidden unless the survey is or was live. */
+  studyName: string | null;
+  /** Over-quota panel redirect, with the panel id filled in. */
+  redirectUrl: string | null;
+};

@@ -1,0 +1,87 @@
+/**
+ * Fieldwork settings (studies.settings) and the study lifecycle: go-live readiness, versions,
+ * close and reopen. Settings are shared with other features (quality thresholds), so the
+ * schema keeps keys it does not know.
+ */
+import { z } from 'zod';
+
+const redirectUrl = z
+  .string()
+  .trim()
+  .max(1000)
+  .refine((s) => /^https?:\/\//i.test(s), 'Use an http:// or https:// address')
+  .nullable();
+
+export const closedReasonSchema = z.enum(['manual', 'date', 'quota']);
+export type ClosedReason = z.infer<typeof closedReasonSchema>;
+
+export const fieldworkSettingsSchema = z.looseObject({
+  /** Close automatically at this time (ISO 8601). */
+  closeAt: z.iso.datetime({ offset: true }).nullable().default(null),
+  /** Close automatically when this many respondents have completed. */
+  quotaCompletes: z.number().int().min(1).max(1_000_000).nullable().default(null),
+  /** Name of the panel pass-through parameter in the link, stored as the respondent's external id. */
+  panelParam: z
+    .string()
+    .regex(/^[A-Za-z][A-Za-z0-9_]{0,29}$/, 'Letters, digits and _, starting with a letter')
+    .default('pid'),
+  /** Where respondents go when they finish; {pid} is replaced by their external id. */
+  redirects: z
+    .object({
+      complete: redirectUrl.default(null),
+      screenedOut: redirectUrl.default(null),
+      overQuota: redirectUrl.default(null),
+    })
+    .default({ complete: null, screenedOut: null, overQuota: null }),
+  closedReason: closedReasonSchema.nullable().default(null),
+  closedAt: z.string().nullable().default(null),
+});
+export type FieldworkSettings = z.infer<typeof fieldworkSettingsSchema>;
+
+export const updateFieldworkSettingsSchema = z
+  .object({
+    closeAt: z.iso.datetime({ offset: true }).nullable(),
+    quotaCompletes: z.number().int().min(1).max(1_000_000).nullable(),
+    panelParam: z
+      .string()
+      .regex(/^[A-Za-z][A-Za-z0-9_]{0,29}$/, 'Letters, digits and _, starting with a letter'),
+    redirects: z.object({
+      complete: redirectUrl,
+      screenedOut: redirectUrl,
+      overQuota: redirectUrl,
+    }),
+  })
+  .partial()
+  .refine((v) => v.panelParam !== 'inv', {
+    message: '"inv" is taken by personal links',
+    path: ['panelParam'],
+  });
+export type UpdateFieldworkSettingsInput = z.input<typeof updateFieldworkSettingsSchema>;
+
+export const readinessProblemSchema = z.object({
+  code: z.string(),
+  /** Which part of the study the problem is in, e.g. "design", "questionnaire.pages.2". */
+  path: z.string(),
+  message: z.string(),
+});
+export type ReadinessProblem = z.infer<typeof readinessProblemSchema>;
+
+export type Readiness = { ready: boolean; problems: ReadinessProblem[] };
+
+export type StudyVersionSummary = {
+  version: number;
+  createdAt: string;
+  respondents: number;
+  completes: number;
+};
+
+/** What the lifecycle endpoints answer with. */
+export type StudyLifecycle = {
+  status: 'draft' | 'live' | 'closed';
+  publicId: string;
+  currentVersion: number;
+  settings: FieldworkSettings;
+  completes: number;
+};
+
+export type LifecycleAction = 'go-live' | 'close' | 'reopen' | 'return-to-draft';

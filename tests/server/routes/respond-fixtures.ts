@@ -1,0 +1,141 @@
+/**
+ * A small Larkspur Valley Water study for fieldwork tests: two unlabeled packages plus the
+ * status quo, a 2-block design of 2 tasks each, and a questionnaire with every page kind.
+ */
+import { nanoid } from 'nanoid';
+import { studies, designs } from '../../../db/schema/studies';
+import { invitees } from '../../../db/schema/fieldwork';
+import type { TestApp } from '../../support/test-app';
+import { makeLarkspurDefinition } from '../../engine/coding/fixtures/larkspur-definition';
+import type { Design } from '../../../shared/schemas/design';
+import type { Questionnaire } from '../../../shared/schemas/questionnaire';
+import { demoQuestionnaire } from '../../../shared/schemas/questionnaire-defaults';
+import type { AnswerValue, SubmitAnswerInput } from '../../../shared/schemas/respondent';
+
+export const definition = makeLarkspurDefinition();
+
+const alt = (bill: string, interrupt: string, warn: string, river: string, renew: string) => ({
+  levels: { bill, interrupt, warn, river, renew },
+});
+
+export const design: Design = {
+  blocks: 2,
+  tasks: [
+    {
+      block: 1,
+      task: 1,
+      alternatives: [alt('b3', 'i2', 'w2', 'fair', 'r50'), alt('b10', 'i1', 'w0', 'good', 'r80')],
+    },
+    {
+      block: 1,
+      task: 2,
+      alternatives: [alt('b6', 'i1', 'w6', 'good', 'r20'), alt('b15', 'i2', 'w0', 'fair', 'r50')],
+    },
+    {
+      block: 2,
+      task: 3,
+      alternatives: [alt('b0', 'i2', 'w0', 'poor', 'r80'), alt('b6', 'i4', 'w2', 'good', 'r50')],
+    },
+    {
+      block: 2,
+      task: 4,
+      alternatives: [alt('b10', 'i4', 'w0', 'fair', 'r20'), alt('b3', 'i1', 'w6', 'poor', 'r80')],
+    },
+  ],
+};
+
+/** Demo questionnaire with a screening question (age ≥ 18) first after consent. */
+export function fullQuestionnaire(): Questionnaire {
+  const q = demoQuestionnaire(definition);
+  const [consent, ...rest] = q.pages;
+  return {
+    pages: [
+      consent,
+      {
+        id: 'adult',
+        kind: 'screening',
+        question: {
+          type: 'single',
+          key: 'adult',
+          text: 'Are you 18 or older?',
+          help: '',
+          required: true,
+          options: [
+            { id: 'yes', label: 'Yes' },
+            { id: 'no', label: 'No' },
+          ],
+        },
+        screenOutOptionIds: ['no'],
+        acceptMin: null,
+        acceptMax: null,
+      },
+      ...rest,
+    ],
+  };
+}
+
+export async function insertStudy(
+  t: TestApp,
+  teamId: string,
+  opts: { questionnaire?: Questionnaire | null; withDesign?: boolean; settings?: unknown } = {},
+) {
+  const [study] = await t.deps.db
+    .insert(studies)
+    .values({
+      teamId,
+      publicId: nanoid(16),
+      name: 'Water services 2026',
+      definition,
+      questionnaire: opts.questionnaire === null ? {} : (opts.questionnaire ?? fullQuestionnaire()),
+      settings: opts.settings ?? {},
+    })
+    .returning({ id: studies.id, publicId: studies.publicId });
+  if (opts.withDesign !== false) {
+    const [d] = await t.deps.db
+      .insert(designs)
+      .values({ studyId: study.id, teamId, method: 'imported', design })
+      .returning({ id: designs.id });
+    const { eq } = await import('drizzle-orm');
+    await t.deps.db.update(studies).set({ currentDesignId: d.id }).where(eq(studies.id, study.id));
+  }
+  return study;
+}
+
+export async function insertInvitee(t: TestApp, studyId: string, externalId: string | null = null) {
+  const [row] = await t.deps.db
+    .insert(invitees)
+    .values({ studyId, email: `${nanoid(6)}@example.test`, token: nanoid(32), externalId })
+    .returning({ id: invitees.id, token: invitees.token });
+  return row;
+}
+
+type Screen = {
+  key: string;
+  kind: string;
+  question?: { type: string; key: string; options?: { id: string }[]; min?: number };
+  alternatives?: unknown[];
+};
+
+/** A plausible answer for any screen (first option, the minimum, the first card). */
+export function answerFor(
+  screen: Screen,
+  overrides: Partial<SubmitAnswerInput> = {},
+): SubmitAnswerInput {
+  const value = ((): AnswerValue => {
+    if (screen.kind === 'consent') return { kind: 'consent', agreed: true };
+    if (screen.kind === 'instructions') return { kind: 'ack' };
+    if (screen.kind === 'task') return { kind: 'choice', position: 0 };
+    const q = screen.question!;
+    if (q.type === 'single') return { kind: 'single', optionId: q.options![0].id };
+    if (q.type === 'multiple') return { kind: 'multiple', optionIds: [q.options![0].id] };
+    if (q.type === 'number') return { kind: 'number', number: q.min! };
+    return { kind: 'text', text: 'fine' };
+  })();
+  return {
+    clientId: crypto.randomUUID(),
+    screenKey: screen.key,
+    value,
+    responseMs: 1500,
+    ...overrides,
+  };
+}

@@ -11,7 +11,7 @@ import { minimizeBfgs, type BfgsResult, type BfgsStopReason } from './bfgs';
 import { assertColumnsVary } from './check-identification';
 import { checkMixedLogitOptions, type MixedLogitOptions } from './check-mixed-logit-options';
 import type { ChoiceData } from './choice-data';
-import { NonIdentifiedError } from './estimation-errors';
+import { EstimationCancelledError, NonIdentifiedError } from './estimation-errors';
 import { fitMnl, outerProductSum } from './fit-mnl';
 import { computeFitStatistics, computeNullLoglik, type FitStatistics } from './fit-statistics';
 import type { MixedLogitLayout } from './mixed-logit-layout';
@@ -100,6 +100,7 @@ export async function fitMixedLogit(
         }),
       );
     }
+    if (hooks.signal?.aborted) throw new EstimationCancelledError();
     const best = runs.reduce((a, b) => (b.f < a.f ? b : a));
     const theta = best.x;
     const hessian = await computeNumericalHessian((x, g) => evaluator.evaluate(x, g), theta);
@@ -113,6 +114,7 @@ export async function fitMixedLogit(
         layout.names,
       );
     }
+    if (hooks.signal?.aborted) throw new EstimationCancelledError();
     const scores = await evaluator.evaluateScores(theta);
     const robustCovariance = sandwich(
       covariance,

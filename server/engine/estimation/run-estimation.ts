@@ -108,6 +108,7 @@ export async function runEstimation(
   const profiles = computeTasteProfiles(data, fit.layout, fit.estimates, {
     ...profileDraws,
     cost: spec.cost,
+    signal: options.signal,
   });
   return {
     model: 'mixed',

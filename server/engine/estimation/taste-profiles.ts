@@ -9,7 +9,7 @@
  */
 import type { DrawsType } from '../draws/uniform-draws';
 import type { ChoiceData } from './choice-data';
-import { EstimationOptionsError } from './estimation-errors';
+import { EstimationCancelledError, EstimationOptionsError } from './estimation-errors';
 import { createMixedLogitKernel } from './mixed-logit-kernel';
 import type { MixedLogitLayout } from './mixed-logit-layout';
 import { getPopulationMoments, type PopulationMoment } from './population-moments';
@@ -26,6 +26,8 @@ export interface TasteProfileOptions {
   scrambled?: boolean;
   /** Cost coefficient name: adds conditional WTP means. */
   cost?: string;
+  /** Checked before each chunk of respondents; a fired signal throws EstimationCancelledError. */
+  signal?: AbortSignal;
 }
 
 export interface TasteProfile {
@@ -76,6 +78,7 @@ export function computeTasteProfiles(
   const w = new Float64Array(R);
   const profiles: TasteProfile[] = [];
   for (let first = 0; first < N; first += CHUNK) {
+    if (options.signal?.aborted) throw new EstimationCancelledError();
     const count = Math.min(CHUNK, N - first);
     const variates = createStandardVariates(layout, draws, first, count);
     const kernel = createMixedLogitKernel(data, layout, variates, R, first, count);

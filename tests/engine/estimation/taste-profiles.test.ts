@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { buildChoiceData } from '../../../server/engine/estimation/build-choice-data';
+import { EstimationCancelledError } from '../../../server/engine/estimation/estimation-errors';
 import { createMixedLogitLayout } from '../../../server/engine/estimation/mixed-logit-layout';
 import { getPopulationMoments } from '../../../server/engine/estimation/population-moments';
 import {
@@ -99,6 +100,23 @@ describe('computeTasteProfiles (Revelt & Train 2000; Train 2009 ch. 11)', () => 
       expect(p.effectiveDraws).toBeLessThanOrEqual(500);
     }
     expect(many.result.draws).toEqual({ type: 'halton', count: 500, seed: 7, scrambled: true });
+  });
+
+  it('stops with EstimationCancelledError when the signal has fired', () => {
+    const sim = simulatePanelChoices({
+      respondents: 10,
+      tasks: 2,
+      alternatives: 2,
+      coefficients: truth,
+      seed: 1,
+    });
+    const { data } = buildChoiceData(sim.columns, sim.rows);
+    const layout = createMixedLogitLayout(data, coefficients, false);
+    const controller = new AbortController();
+    controller.abort();
+    expect(() =>
+      computeTasteProfiles(data, layout, trueTheta, { signal: controller.signal }),
+    ).toThrow(EstimationCancelledError);
   });
 
   it('population moments follow the closed forms (lognormal: e^{b+s²/2}, SD √(e^{s²}−1)·mean)', () => {

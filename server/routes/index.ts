@@ -18,6 +18,8 @@ import { createDesignsRouter } from './designs';
 import { createPublicFilesRouter, createStudyFilesRouter } from './files';
 import { createInviteesRouter } from './invitees';
 import { createUnsubscribeRouter } from './unsubscribe';
+import { createFieldworkRouter } from './fieldwork';
+import { createResponsesRouter } from './responses';
 import { createTastesRouter } from './tastes';
 import { createSharesRouter } from './shares';
 import { createExportsRouter } from './exports';
@@ -29,6 +31,8 @@ export function mountApiRoutes(api: Router, deps: AppDeps): void {
   api.use('/invitations', createInvitationsRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/invitees', createInviteesRouter(deps));
   api.use('/unsubscribe', createUnsubscribeRouter(deps));
+  api.use('/teams/:teamId/studies/:studyId/fieldwork', createFieldworkRouter(deps));
+  api.use('/teams/:teamId/studies/:studyId/responses', createResponsesRouter(deps));
   api.use('/files', createPublicFilesRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/files', createStudyFilesRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/design', createDesignsRouter(deps));

@@ -10,9 +10,54 @@ import type { Db } from '../../../db/client';
 import { studies, studyVersions } from '../../../db/schema/studies';
 import { answers, invitees, respondents } from '../../../db/schema/fieldwork';
 
+/** A questionnaire with every screen kind the fieldwork figures know about. */
+export const fixtureQuestionnaire = {
+  pages: [
+    {
+      id: 'consent1',
+      kind: 'consent',
+      title: 'Welcome',
+      body: 'Consent text',
+      agreeLabel: 'I agree',
+    },
+    {
+      id: 'hh1',
+      kind: 'question',
+      question: {
+        key: 'household_size',
+        text: 'How many people live in your household?',
+        type: 'number',
+        min: 1,
+        max: 12,
+      },
+    },
+    { id: 'intro1', kind: 'instructions', title: 'How the choices work', body: 'Pick one.' },
+    { id: 'tasks1', kind: 'tasks', title: 'Choices' },
+    { id: 'dom1', kind: 'dominance', title: 'One more', bestLevels: {} },
+    { id: 'rep1', kind: 'repeat', title: 'Once more', repeatOf: 2 },
+    { id: 'end1', kind: 'end', title: 'Thank you', body: '' },
+  ],
+};
+
+/** Two blocks of eight tasks (only the block structure matters to the figures). */
+export const fixtureDesign = {
+  blocks: 2,
+  tasks: Array.from({ length: 16 }, (_, i) => ({
+    block: i < 8 ? 1 : 2,
+    task: i + 1,
+    alternatives: [{ levels: {} }, { levels: {} }],
+  })),
+};
+
 export async function insertStudy(
   db: Db,
-  p: { teamId: string; status?: 'draft' | 'live' | 'closed'; name?: string; settings?: object },
+  p: {
+    teamId: string;
+    status?: 'draft' | 'live' | 'closed';
+    name?: string;
+    settings?: object;
+    definition?: object;
+  },
 ) {
   const [study] = await db
     .insert(studies)
@@ -21,14 +66,20 @@ export async function insertStudy(
       publicId: nanoid(12),
       name: p.name ?? 'Larkspur service packages',
       status: p.status ?? 'live',
-      definition: {},
+      definition: p.definition ?? {},
       settings: p.settings ?? {},
       currentVersion: 1,
     })
     .returning({ id: studies.id, publicId: studies.publicId });
   const [version] = await db
     .insert(studyVersions)
-    .values({ studyId: study.id, version: 1, definition: {}, design: {}, questionnaire: {} })
+    .values({
+      studyId: study.id,
+      version: 1,
+      definition: p.definition ?? {},
+      design: fixtureDesign,
+      questionnaire: fixtureQuestionnaire,
+    })
     .returning({ id: studyVersions.id });
   return { studyId: study.id, publicId: study.publicId, versionId: version.id };
 }
@@ -36,7 +87,13 @@ export async function insertStudy(
 export async function addVersion(db: Db, studyId: string, version: number) {
   const [v] = await db
     .insert(studyVersions)
-    .values({ studyId, version, definition: {}, design: {}, questionnaire: {} })
+    .values({
+      studyId,
+      version,
+      definition: {},
+      design: fixtureDesign,
+      questionnaire: fixtureQuestionnaire,
+    })
     .returning({ id: studyVersions.id });
   await db.update(studies).set({ currentVersion: version }).where(eq(studies.id, studyId));
   return v.id;
@@ -61,6 +118,7 @@ export async function insertRespondent(
     externalId?: string | null;
     choices?: ChoiceFixture[];
     other?: Array<{ screenKey: string; value: unknown }>;
+    special?: Array<{ screenKey: string; chosenAlternative: number; value: object }>;
   },
 ) {
   const status = p.status ?? 'completed';
@@ -92,7 +150,13 @@ export async function insertRespondent(
       taskNumber: c.taskNumber,
       chosenAlternative: c.chosenAlternative,
       chosenPosition: c.chosenPosition,
-      value: { kind: 'choice', position: c.chosenPosition },
+      value: { kind: 'choice', position: c.chosenPosition, taskKind: 'design' },
+    })),
+    ...(p.special ?? []).map((c) => ({
+      screenKey: c.screenKey,
+      chosenAlternative: c.chosenAlternative,
+      chosenPosition: 0,
+      value: { kind: 'choice', position: 0, ...c.value },
     })),
   ].map((a, i) => ({
     ...a,

@@ -1,0 +1,17 @@
+/** /teams/:teamId/studies/:studyId/fieldwork — aggregate fieldwork figures (every role). */
+import { Router } from 'express';
+import type { AppDeps } from '../deps';
+import { parseParams } from '../middleware/validate';
+import { memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { studyParamsSchema } from '../services/study-access';
+import { getFieldworkStats } from '../services/fieldwork-stats';
+
+export function createFieldworkRouter(deps: AppDeps): Router {
+  const router = Router({ mergeParams: true });
+  router.use(requireUser(deps));
+  router.get('/', requireTeam(deps, 'responses:read'), async (req, res) => {
+    const { studyId } = parseParams(studyParamsSchema, req);
+    res.json(await getFieldworkStats(deps, memberOf(req).teamId, studyId));
+  });
+  return router;
+}

@@ -1,0 +1,158 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createTestApp, type TestApp } from '../../support/test-app';
+import { createTeamWithAllRoles } from '../../support/factories';
+import { billMean, N, riverGood, seedTastesStudy } from './tastes-fixture';
+
+let t: TestApp;
+let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
+let seeded: Awaited<ReturnType<typeof seedTastesStudy>>;
+let url: string;
+
+beforeAll(async () => {
+  t = await createTestApp();
+  team = await createTeamWithAllRoles(t);
+  seeded = await seedTastesStudy(t.deps.db, team.teamId);
+  url = `/api/teams/${team.teamId}/studies/${seeded.studyId}/shares/simulate`;
+});
+afterAll(async () => {
+  await t.close();
+});
+
+const levels = (river: string, bill = 'b3') => ({
+  bill,
+  interrupt: 'i2',
+  warn: 'w2',
+  river,
+  renew: 'r50',
+});
+
+describe('POST /shares/simulate', () => {
+  it('gives two identical packages equal shares (every role may simulate)', async () => {
+    for (const role of ['owner', 'editor', 'analyst', 'viewer'] as const) {
+      const res = await team.agents[role]
+        .post(url)
+        .send({
+          runId: seeded.runId,
+          includeFixed: false,
+          alternatives: [
+            { name: 'A', levels: levels('good') },
+            { name: 'B', levels: levels('good') },
+          ],
+        })
+        .expect(200);
+      expect(res.body.method).toBe('conditional_means');
+      expect(res.body.respondents).toBe(N);
+      expect(res.body.alternatives.map((a: { share: number }) => a.share)).toEqual([
+        expect.closeTo(0.5, 12),
+        expect.closeTo(0.5, 12),
+      ]);
+    }
+  });
+
+  it('averages each respondent’s logit probabilities over their own conditional means', async () => {
+    // Only river health differs (good vs fair; the run has no fair coefficient, so it codes
+    // as 0): P_n(good) = 1/(1+exp(−β_n)) with β_n = n (logit formula), averaged over n.
+    const res = await team.agents.viewer
+      .post(url)
+      .send({
+        runId: seeded.runId,
+        includeFixed: false,
+        alternatives: [
+          { name: 'Good river', levels: levels('good') },
+          { name: 'Fair river', levels: levels('fair') },
+        ],
+      })
+      .expect(200);
+    let expected = 0;
+    for (let n = 0; n < N; n++) expected += 1 / (1 + Math.exp(-riverGood(n)));
+    expected /= N;
+    expect(res.body.alternatives[0].share).toBeCloseTo(expected, 12);
+  });
+
+  it('adds the status quo with its constant and splits shares by segment', async () => {
+    const res = await team.agents.analyst
+      .post(url)
+      .send({
+        runId: seeded.runId,
+        alternatives: [
+          { name: 'A', levels: levels('good', 'b10') },
+          { name: 'B', levels: levels('poor', 'b0') },
+        ],
+        segmentBy: { groupBy: 'question', question: 'age_band' },
+      })
+      .expect(200);
+    const names = res.body.alternatives.map((a: { name: string }) => a.name);
+    expect(names).toEqual(['A', 'B', 'Current service']);
+    // Respondent n: V_A = 10·bill_n + river_n, V_B = 0, V_SQ = asc = −0.4 (status quo codes
+    // bill 0 and river poor), so P_SQ = e^−0.4 / (e^{V_A} + 1 + e^−0.4).
+    let sq = 0;
+    for (let n = 0; n < N; n++) {
+      const a = Math.exp(10 * billMean(n) + riverGood(n));
+      sq += Math.exp(-0.4) / (a + 1 + Math.exp(-0.4));
+    }
+    expect(res.body.alternatives[2].share).toBeCloseTo(sq / N, 12);
+    const total = res.body.alternatives.reduce((s: number, a: { share: number }) => s + a.share, 0);
+    expect(total).toBeCloseTo(1, 12);
+    expect(res.body.segments.label).toBe('Your age band');
+    expect(
+      res.body.segments.groups.map((g: { label: string; count: number }) => [g.label, g.count]),
+    ).toEqual([
+      ['18–34', 3],
+      ['35–64', 3],
+    ]);
+  });
+
+  it.each([
+    [{ alternatives: [{ name: 'Only', levels: levels('good') }] }, 'alternatives'],
+    [
+      {
+        alternatives: [
+          { name: 'A', levels: { ...levels('good'), river: undefined } },
+          { name: 'B', levels: levels('good') },
+        ],
+      },
+      'alternatives.0.levels.river',
+    ],
+    [
+      {
+        alternatives: [
+          { name: 'A', levels: levels('purple') },
+          { name: 'B', levels: levels('good') },
+        ],
+      },
+      'alternatives.0.levels.river',
+    ],
+    [
+      {
+        alternatives: [
+          { name: 'A', levels: levels('good') },
+          { name: 'B', levels: levels('good') },
+        ],
+        segmentBy: { groupBy: 'task' },
+      },
+      'segmentBy.task',
+    ],
+  ])('when the body is %o, returns 400 naming %s', async (body, field) => {
+    const res = await team.agents.analyst
+      .post(url)
+      .send({ runId: seeded.runId, ...body })
+      .expect(400);
+    expect(res.body.error.fields.map((f: { path: string }) => f.path)).toContain(field);
+  });
+
+  it('returns 404 to an outsider, 401 without a session and 409 for an unfinished run', async () => {
+    const body = {
+      runId: seeded.runId,
+      alternatives: [
+        { name: 'A', levels: levels('good') },
+        { name: 'B', levels: levels('fair') },
+      ],
+    };
+    await team.outsider.post(url).send(body).expect(404);
+    await t.request().post(url).send(body).expect(401);
+    await team.agents.analyst
+      .post(url)
+      .send({ ...body, runId: seeded.runningRunId })
+      .expect(409);
+  });
+});

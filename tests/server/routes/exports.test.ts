@@ -1,0 +1,215 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { parse } from 'csv-parse/sync';
+import ExcelJS from 'exceljs';
+import type supertest from 'supertest';
+import { createTestApp, type TestApp } from '../../support/test-app';
+import { createTeamWithAllRoles } from '../../support/factories';
+import type { Role } from '../../../shared/permissions';
+import { N, seedTastesStudy } from './tastes-fixture';
+
+let t: TestApp;
+let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
+let seeded: Awaited<ReturnType<typeof seedTastesStudy>>;
+let base: string;
+
+beforeAll(async () => {
+  t = await createTestApp();
+  team = await createTeamWithAllRoles(t);
+  seeded = await seedTastesStudy(t.deps.db, team.teamId);
+  base = `/api/teams/${team.teamId}/studies/${seeded.studyId}/exports`;
+});
+afterAll(async () => {
+  await t.close();
+});
+
+const as = (role: Role): supertest.Agent => team.agents[role];
+
+/** Reads a binary response body into a Buffer. */
+const binary = (res: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) => void) => {
+  const chunks: Buffer[] = [];
+  res.on('data', (c: Buffer) => chunks.push(c));
+  res.on('end', () => cb(null, Buffer.concat(chunks)));
+};
+
+async function loadXlsx(agent: supertest.Agent) {
+  const res = await agent
+    .get(`${base}/taste-profiles.xlsx`)
+    .query({ runId: seeded.runId })
+    .buffer(true)
+    .parse(binary as never)
+    .expect(200);
+  const workbook = new ExcelJS.Workbook();
+  await workbook.xlsx.load(res.body as Buffer);
+  return { res, workbook };
+}
+
+describe('GET /exports/taste-profiles.csv', () => {
+  it('gives an analyst one row per respondent with external ids, escaped text and SDs beside means', async () => {
+    const res = await as('analyst')
+      .get(`${base}/taste-profiles.csv`)
+      .query({ runId: seeded.runId })
+      .expect(200);
+    expect(res.headers['content-type']).toMatch(/text\/csv/);
+    expect(res.headers['content-disposition']).toMatch(
+      /attachment; filename=".*taste-profiles.*\.csv"/,
+    );
+    expect(res.headers['cache-control']).toBe('no-store');
+    const rows = parse(res.text, { columns: true }) as Record<string, string>[];
+    expect(rows).toHaveLength(N);
+    const header = Object.keys(rows[0]);
+    expect(header).toEqual([
+      'respondent',
+      'number',
+      'external_id',
+      'block',
+      'included',
+      'quality_flags',
+      'effective_draws',
+      'low_effective_draws',
+      'mean_bill',
+      'sd_bill',
+      'mean_river_good',
+      'sd_river_good',
+      'mean_asc_sq',
+      'sd_asc_sq',
+      'wtp_river_good',
+      'wtp_asc_sq',
+      'age_band',
+      'household_size',
+      'comments',
+    ]);
+    expect(rows[0]).toMatchObject({
+      external_id: `'=HYPERLINK("http://x")`,
+      comments: "'+call me on 555",
+      mean_bill: '-0.1',
+      sd_river_good: '0.5',
+      low_effective_draws: 'true',
+      age_band: '18–34',
+    });
+  });
+
+  it('gives a viewer the same rows without external ids or free text', async () => {
+    const res = await as('viewer')
+      .get(`${base}/taste-profiles.csv`)
+      .query({ runId: seeded.runId })
+      .expect(200);
+    const rows = parse(res.text, { columns: true }) as Record<string, string>[];
+    expect(rows).toHaveLength(N);
+    expect(Object.keys(rows[0])).not.toContain('external_id');
+    expect(Object.keys(rows[0])).not.toContain('comments');
+    expect(res.text).not.toContain('EXT-');
+    expect(res.text).not.toContain('HYPERLINK');
+  });
+
+  it('returns 404 to an outsider, 401 without a session and 400 without a run', async () => {
+    await team.outsider
+      .get(`${base}/taste-profiles.csv`)
+      .query({ runId: seeded.runId })
+      .expect(404);
+    await t.request().get(`${base}/taste-profiles.csv`).query({ runId: seeded.runId }).expect(401);
+    const res = await as('analyst').get(`${base}/taste-profiles.csv`).expect(400);
+    expect(res.body.error.fields[0].path).toBe('runId');
+  });
+});
+
+describe('GET /exports/taste-profiles.xlsx', () => {
+  it('states the model, the data, the date and the cautions on its first sheet', async () => {
+    const { res, workbook } = await loadXlsx(as('analyst'));
+    expect(res.headers['content-type']).toMatch(/spreadsheetml/);
+    const [about, profiles] = workbook.worksheets;
+    expect(about.name).toBe('About');
+    const facts = new Map<string, string>();
+    about.eachRow((row) => facts.set(String(row.getCell(1).value), String(row.getCell(2).value)));
+    expect(facts.get('Study')).toBe('Larkspur Valley Water packages');
+    expect(facts.get('Study version')).toBe('1');
+    expect(facts.get('Model')).toMatch(
+      /^Panel mixed logit: bill \(neg_lognormal\), river_good \(normal\)/,
+    );
+    expect(facts.get('Respondents')).toBe(String(N));
+    expect(facts.get('Data hash (SHA-256 of the long-format choice data)')).toBe('ab'.repeat(32));
+    expect(facts.get('Exported')).toMatch(/^\d{4}-\d\d-\d\dT/);
+    expect(facts.get('Caution 1')).toMatch(/stated, hypothetical choices/);
+    expect(facts.get('Caution 2')).toMatch(/shrunk toward the population/);
+    expect(profiles.name).toBe('Profiles');
+    expect(profiles.rowCount).toBe(N + 1);
+    const header = (profiles.getRow(1).values as unknown[]).slice(1);
+    expect(header).toContain('external_id');
+    expect(profiles.getRow(2).getCell(header.indexOf('mean_bill') + 1).value).toBe(-0.1);
+  });
+
+  it('leaves personal columns out for a viewer and says so', async () => {
+    const { workbook } = await loadXlsx(as('viewer'));
+    const [about, profiles] = workbook.worksheets;
+    const header = (profiles.getRow(1).values as unknown[]).slice(1);
+    expect(header).not.toContain('external_id');
+    expect(header).not.toContain('comments');
+    let personal = '';
+    about.eachRow((row) => {
+      if (row.getCell(1).value === 'Personal data') personal = String(row.getCell(2).value);
+    });
+    expect(personal).toMatch(/^Left out/);
+  });
+});
+
+describe('other downloads', () => {
+  it('writes the background answers of every respondent, free text only for personal roles', async () => {
+    const analyst = await as('analyst').get(`${base}/background-answers.csv`).expect(200);
+    const rows = parse(analyst.text, { columns: true }) as Record<string, string>[];
+    expect(rows).toHaveLength(N);
+    expect(rows[0]).toMatchObject({ number: '1', age_band: '18–34', household_size: '1' });
+    expect(rows[2].quality_flags).toBe('speeder');
+    const viewer = await as('viewer').get(`${base}/background-answers.csv`).expect(200);
+    const header = (parse(viewer.text) as string[][])[0];
+    expect(header).not.toContain('external_id');
+    expect(header).not.toContain('comments');
+  });
+
+  it('writes the frozen design with one row per designed alternative', async () => {
+    const res = await as('viewer').get(`${base}/design.csv`).expect(200);
+    const rows = parse(res.text) as string[][];
+    expect(rows[0].slice(0, 3)).toEqual(['block', 'task', 'alternative']);
+    expect(rows).toHaveLength(1 + 2 * 2);
+    expect(rows[1]).toContain('3');
+  });
+
+  it('prints a run report with its tables and the cautions', async () => {
+    const res = await as('viewer')
+      .get(`${base}/run-report.html`)
+      .query({ runId: seeded.runId })
+      .expect(200);
+    expect(res.headers['content-type']).toMatch(/text\/html/);
+    expect(res.text).toContain('@media print');
+    expect(res.text).toContain('Larkspur Valley Water packages');
+    expect(res.text).toContain('River health: good');
+    expect(res.text).toContain('stated, hypothetical choices');
+    expect(res.text).toMatch(/2 of them have fewer than 30 effective draws/);
+    expect(res.text).not.toContain('EXT-');
+  });
+
+  it('reports which downloads exist and whether they hold personal columns', async () => {
+    expect((await as('viewer').get(base).expect(200)).body).toEqual({
+      personalColumns: false,
+      designAvailable: true,
+      choicesAvailable: true,
+    });
+    expect((await as('owner').get(base).expect(200)).body.personalColumns).toBe(true);
+    await team.outsider.get(base).expect(404);
+    await t.request().get(base).expect(401);
+  });
+
+  it('writes the long-format choice data the estimator reads', async () => {
+    const res = await as('viewer').get(`${base}/choices.csv`).expect(200);
+    const rows = parse(res.text, { columns: true }) as Record<string, string>[];
+    // Six respondents × two tasks × (two packages + the status quo).
+    expect(rows).toHaveLength(N * 2 * 3);
+    expect(Object.keys(rows[0]).slice(0, 5)).toEqual([
+      'respondent',
+      'task',
+      'alt',
+      'chosen',
+      'holdout',
+    ]);
+    const chosen = rows.filter((r) => r.chosen === '1');
+    expect(chosen).toHaveLength(N * 2);
+  });
+});

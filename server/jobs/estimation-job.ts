@@ -136,6 +136,7 @@ export async function runEstimationJob(
           iteration: offset + p.iteration,
           loglik: p.loglik,
           gradientNorm: p.gradientNorm,
+          initialGradientNorm: latest.initialGradientNorm ?? p.gradientNorm,
           start: p.start,
         };
         report();

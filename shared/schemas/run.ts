@@ -38,6 +38,8 @@ export const runProgressSchema = z.object({
   iteration: z.number().int().optional(),
   loglik: z.number().optional(),
   gradientNorm: z.number().optional(),
+  /** Gradient norm at the first iteration: the bar shows progress toward convergence. */
+  initialGradientNorm: z.number().optional(),
   elapsedMs: z.number().optional(),
   /** Upper bound of iterations, so the bar can show a share. */
   maxIterations: z.number().int().optional(),

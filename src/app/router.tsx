@@ -48,6 +48,13 @@ export function createRouter(queryClient: QueryClient) {
                   }),
                 },
                 ...getSectionRoutes(),
+                {
+                  path: 'models/:runId',
+                  lazy: async () => {
+                    const m = await import('./routes/studies/runs/run-estimates');
+                    return { Component: m.Component, loader: m.createRunLoader(queryClient) };
+                  },
+                },
               ],
             },
           ],

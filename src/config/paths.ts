@@ -48,6 +48,11 @@ export const paths = {
     getHref: (teamId: string, studyId: string, section: StudySection) =>
       `/teams/${teamId}/studies/${studyId}/${section}`,
   },
+  runEstimates: {
+    path: '/teams/:teamId/studies/:studyId/models/:runId',
+    getHref: (teamId: string, studyId: string, runId: string) =>
+      `/teams/${teamId}/studies/${studyId}/models/${runId}`,
+  },
   respondentProfile: {
     path: '/teams/:teamId/studies/:studyId/tastes/:runId/respondents/:respondentId',
     getHref: (teamId: string, studyId: string, runId: string, respondentId: string) =>

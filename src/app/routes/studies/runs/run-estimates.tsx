@@ -1,0 +1,120 @@
+/**
+ * Estimates of one run: parameters, fit statistics, WTP, and for each random coefficient the
+ * population density with respondents' conditional means. While the run is queued or running
+ * it shows its progress; a failed run shows its reason.
+ */
+import { Link, useParams, type LoaderFunctionArgs } from 'react-router';
+import type { QueryClient } from '@tanstack/react-query';
+import { Alert, Card, Spinner } from '@/components/ui/feedback';
+import { ErrorText, PanelErrorBoundary } from '@/components/ui/error-boundary';
+import { Button } from '@/components/ui/button';
+import { paths } from '@/config/paths';
+import { useCurrentTeam } from '@/features/auth/hooks/use-current-team';
+import { getRunQueryOptions, useRun } from '@/features/runs/api/get-run';
+import { useCancelRun } from '@/features/runs/api/cancel-run';
+import { isRunActive } from '@/features/runs/api/run-keys';
+import { RunStatusBadge } from '@/features/runs/components/run-status-badge';
+import { RunProgress } from '@/features/runs/components/run-progress';
+import { RunCautions } from '@/features/runs/components/run-cautions';
+import { ParameterTable } from '@/features/runs/components/parameter-table';
+import { FitStatistics } from '@/features/runs/components/fit-statistics';
+import { WtpTable } from '@/features/runs/components/wtp-table';
+import { RandomTastes } from '@/features/runs/components/random-tastes';
+import { formatDateTime } from '@/features/runs/utils/format';
+
+export const createRunLoader =
+  (queryClient: QueryClient) =>
+  ({ params }: LoaderFunctionArgs) => {
+    if (params.teamId && params.studyId && params.runId)
+      void queryClient.prefetchQuery(
+        getRunQueryOptions(params.teamId, params.studyId, params.runId),
+      );
+    return null;
+  };
+
+export function Component() {
+  const { teamId = '', studyId = '', runId = '' } = useParams();
+  const { can } = useCurrentTeam();
+  const { data: run, error, isPending } = useRun(teamId, studyId, runId);
+  const cancel = useCancelRun(teamId, studyId);
+  if (isPending) return <Spinner label="Loading the run…" />;
+  if (error || !run) return <ErrorText error={error} />;
+  const results = run.results;
+
+  return (
+    <div className="space-y-6">
+      <div className="space-y-1">
+        <Link
+          to={paths.studySection.getHref(teamId, studyId, 'models')}
+          className="text-sm text-ink-muted hover:text-primary"
+        >
+          ← All runs
+        </Link>
+        <div className="flex flex-wrap items-center gap-3">
+          <h2 className="text-xl font-semibold text-ink">{run.name}</h2>
+          <RunStatusBadge status={run.status} />
+          {can('runs:manage') && isRunActive(run.status) && !run.cancelRequested && (
+            <Button
+              size="sm"
+              variant="secondary"
+              busy={cancel.isPending}
+              onClick={() => cancel.mutate(run.id)}
+            >
+              Cancel run
+            </Button>
+          )}
+        </div>
+        <p className="text-xs text-ink-muted">
+          {run.model === 'mnl' ? 'Multinomial logit' : 'Panel mixed logit'} · started{' '}
+          {formatDateTime(run.createdAt)}
+          {run.dataHash && (
+            <>
+              {' '}
+              · data SHA-256 <span className="font-mono">{run.dataHash.slice(0, 12)}…</span>
+            </>
+          )}
+        </p>
+      </div>
+
+      {isRunActive(run.status) && (
+        <Card title="Progress">
+          <RunProgress run={run} />
+        </Card>
+      )}
+      {run.status === 'failed' && (
+        <Alert tone="danger" title="The run failed">
+          {run.error}
+        </Alert>
+      )}
+      {run.status === 'cancelled' && <Alert tone="warning" title="The run was cancelled" />}
+
+      {results && (
+        <>
+          <RunCautions />
+          <Card title="Parameters">
+            <PanelErrorBoundary>
+              <ParameterTable results={results} />
+            </PanelErrorBoundary>
+          </Card>
+          <div className="grid gap-6 lg:grid-cols-2">
+            <Card title="Fit">
+              <FitStatistics results={results} />
+            </Card>
+            <Card title="Willingness to pay">
+              <PanelErrorBoundary>
+                <WtpTable results={results} />
+              </PanelErrorBoundary>
+            </Card>
+          </div>
+          {results.population.some((m) => m.distribution !== 'fixed') && (
+            <Card title="How tastes vary across respondents">
+              <PanelErrorBoundary>
+                <RandomTastes teamId={teamId} studyId={studyId} runId={run.id} results={results} />
+              </PanelErrorBoundary>
+            </Card>
+          )}
+        </>
+      )}
+    </div>
+  );
+}

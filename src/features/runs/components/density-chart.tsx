@@ -1,0 +1,111 @@
+/**
+ * One random coefficient: the estimated population density (line) with the histogram of
+ * respondents' conditional means laid over it (bars, scaled as a density). Conditional means
+ * are shrunk toward the population, so their spread is narrower than the population's.
+ * Colours from the Okabe–Ito palette.
+ */
+import {
+  BarController,
+  BarElement,
+  Chart as ChartJS,
+  Legend,
+  LinearScale,
+  LineController,
+  LineElement,
+  PointElement,
+  Tooltip,
+} from 'chart.js';
+import { Chart } from 'react-chartjs-2';
+import type { EstimationResult } from '@shared/schemas/estimation-spec';
+import { densityHistogram, plotRange, populationDensity } from '../utils/stats';
+
+ChartJS.register(
+  BarController,
+  BarElement,
+  LineController,
+  LineElement,
+  PointElement,
+  LinearScale,
+  Tooltip,
+  Legend,
+);
+
+const SKY = 'rgba(86, 180, 233, 0.55)';
+const BLUE = '#0072b2';
+const VERMILLION = '#d55e00';
+
+export function DensityChart({
+  moment,
+  label,
+  means,
+}: {
+  moment: EstimationResult['population'][number];
+  label: string;
+  means: number[];
+}) {
+  const [lo, hi] = plotRange(moment, means);
+  const bins = Math.max(8, Math.min(30, Math.round(Math.sqrt(means.length))));
+  const histogram = densityHistogram(means, lo, hi, bins);
+  const curve = Array.from({ length: 121 }, (_, i) => {
+    const x = lo + ((hi - lo) * i) / 120;
+    return { x, y: populationDensity(moment, x) };
+  });
+  return (
+    <figure>
+      <div className="h-56 sm:h-64">
+        <Chart
+          type="bar"
+          aria-label={`Population density and respondents' conditional means of ${label}`}
+          role="img"
+          data={{
+            datasets: [
+              {
+                type: 'line' as const,
+                label: 'Estimated population density',
+                data: curve,
+                borderColor: VERMILLION,
+                borderWidth: 2,
+                pointRadius: 0,
+                tension: 0.2,
+              },
+              {
+                type: 'bar' as const,
+                label: "Respondents' conditional means",
+                data: histogram,
+                backgroundColor: SKY,
+                borderColor: BLUE,
+                borderWidth: 1,
+                barPercentage: 1,
+                categoryPercentage: 1,
+              },
+            ],
+          }}
+          options={{
+            responsive: true,
+            maintainAspectRatio: false,
+            animation: false,
+            parsing: false,
+            scales: {
+              x: {
+                type: 'linear',
+                min: lo,
+                max: hi,
+                title: { display: true, text: 'Coefficient' },
+                ticks: { maxTicksLimit: 7 },
+              },
+              y: { type: 'linear', beginAtZero: true, title: { display: true, text: 'Density' } },
+            },
+            plugins: {
+              legend: { position: 'bottom', labels: { boxWidth: 12 } },
+              tooltip: { enabled: false },
+            },
+          }}
+        />
+      </div>
+      <figcaption className="mt-1 text-xs text-ink-muted">
+        Population mean {moment.mean.toFixed(3)}, SD {moment.sd.toFixed(3)} ({moment.distribution}
+        ); {means.length} respondents&apos; conditional means.
+      </figcaption>
+    </figure>
+  );
+}

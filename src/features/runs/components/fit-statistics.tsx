@@ -1,0 +1,40 @@
+import type { RunResult } from '@shared/schemas/run';
+import { formatNumber, formatPercent } from '../utils/format';
+
+/** Fit statistics and what the run used, as a definition list. */
+export function FitStatistics({ results }: { results: RunResult }) {
+  const items: [string, string][] = [
+    ['Log-likelihood', formatNumber(results.loglik, 3)],
+    ['Log-likelihood at zero', formatNumber(results.loglikNull, 3)],
+    ['ρ²', formatNumber(results.rho2, 4)],
+    ['Adjusted ρ²', formatNumber(results.adjRho2, 4)],
+    ['AIC', formatNumber(results.aic, 2)],
+    ['BIC', formatNumber(results.bic, 2)],
+    ['Hit rate', formatPercent(results.hitRate)],
+    ['Holdout hit rate', formatPercent(results.holdoutHitRate)],
+    ['Respondents', String(results.respondents)],
+    ['Choice tasks', String(results.observations)],
+    ['Parameters', String(results.parameters)],
+    ['Iterations', String(results.iterations)],
+    ['Converged', results.converged ? 'yes' : `no (${results.convergence.reason})`],
+    ['Final gradient norm', results.convergence.gradientNorm.toExponential(2)],
+    [
+      'Draws',
+      results.draws
+        ? `${results.draws.count} ${results.draws.type}, seed ${results.draws.seed}`
+        : '—',
+    ],
+    ['Warm-up tasks left out', String(results.data.warmupTasksLeftOut)],
+    ['Holdout tasks', String(results.data.holdoutTasks)],
+  ];
+  return (
+    <dl className="grid grid-cols-1 gap-x-6 text-sm sm:grid-cols-2">
+      {items.map(([k, v]) => (
+        <div key={k} className="flex justify-between gap-4 border-b border-line/60 py-1.5">
+          <dt className="text-ink-soft">{k}</dt>
+          <dd className="num text-ink">{v}</dd>
+        </div>
+      ))}
+    </dl>
+  );
+}

@@ -1,0 +1,237 @@
+/**
+ * The form that starts a run: model, a distribution (or "leave out") per coded column, draws,
+ * profile draws, seed, starts and which respondents. Validated with the shared create-run
+ * schema; the server's field errors come back onto the same fields.
+ */
+import { useForm, useWatch } from 'react-hook-form';
+import type { ModelColumn, Run, RunOptions } from '@shared/schemas/run';
+import { Button } from '@/components/ui/button';
+import { SelectField, TextField } from '@/components/ui/field';
+import { Alert } from '@/components/ui/feedback';
+import { ApiError } from '@/lib/api-client';
+import { useCreateRun } from '../api/create-run';
+import {
+  createRunFormResolver,
+  getColumnDefault,
+  getDefaultRunFormValues,
+  toCreateRunInput,
+  toFormField,
+  type ColumnChoice,
+  type RunFormValues,
+} from '../utils/run-form-values';
+
+const distributionLabels: Record<ColumnChoice, string> = {
+  omit: 'Leave out',
+  fixed: 'Fixed',
+  normal: 'Normal',
+  lognormal: 'Lognormal (positive)',
+  neg_lognormal: 'Lognormal, negative (cost)',
+  triangular: 'Triangular',
+  uniform: 'Uniform',
+};
+
+function ColumnRow({
+  column,
+  index,
+  model,
+  register,
+  error,
+}: {
+  column: ModelColumn;
+  index: number;
+  model: 'mnl' | 'mixed';
+  register: ReturnType<typeof useForm<RunFormValues>>['register'];
+  error?: string;
+}) {
+  const choices: ColumnChoice[] =
+    model === 'mnl'
+      ? ['fixed', 'omit']
+      : ['fixed', 'normal', 'lognormal', 'neg_lognormal', 'triangular', 'uniform', 'omit'];
+  return (
+    <div className="grid gap-1 border-b border-line py-2 last:border-b-0 sm:grid-cols-[1fr_15rem] sm:items-center sm:gap-4">
+      <div className="min-w-0">
+        <p className="text-sm text-ink">
+          {column.label}
+          {column.isCost && <span className="ml-2 text-xs text-accent">cost</span>}
+        </p>
+        <p className="truncate font-mono text-xs text-ink-muted">{column.code}</p>
+      </div>
+      <SelectField
+        label={<span className="sr-only">Distribution of {column.label}</span>}
+        error={error}
+        {...register(`columns.${index}.distribution`)}
+      >
+        {choices.map((c) => (
+          <option key={c} value={c}>
+            {distributionLabels[c]}
+          </option>
+        ))}
+      </SelectField>
+    </div>
+  );
+}
+
+export function RunForm({
+  teamId,
+  studyId,
+  options,
+  onStarted,
+}: {
+  teamId: string;
+  studyId: string;
+  options: RunOptions;
+  onStarted?: (run: Run) => void;
+}) {
+  const create = useCreateRun(teamId, studyId);
+  const {
+    register,
+    handleSubmit,
+    setValue,
+    setError,
+    control,
+    formState: { errors },
+  } = useForm<RunFormValues>({
+    defaultValues: getDefaultRunFormValues(options),
+    resolver: createRunFormResolver(options.columns),
+  });
+  const model = useWatch({ control, name: 'model' });
+  const mixed = model === 'mixed';
+
+  const switchModel = (next: 'mnl' | 'mixed') => {
+    options.columns.forEach((c, i) =>
+      setValue(`columns.${i}.distribution`, getColumnDefault(c, next)),
+    );
+  };
+
+  const onSubmit = handleSubmit(async (values) => {
+    try {
+      const run = await create.mutateAsync(toCreateRunInput(values, options.columns));
+      onStarted?.(run);
+    } catch (err) {
+      if (err instanceof ApiError && err.fields.length > 0) {
+        for (const f of err.fields)
+          setError(toFormField(f.path, values) as 'root', { type: 'server', message: f.message });
+      } else {
+        setError('root', {
+          type: 'server',
+          message: err instanceof Error ? err.message : 'The run could not be started.',
+        });
+      }
+    }
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-5">
+      <div className="grid gap-4 sm:grid-cols-2">
+        <SelectField
+          label="Model"
+          error={errors.model?.message}
+          {...register('model', { onChange: (e) => switchModel(e.target.value) })}
+        >
+          <option value="mnl">Multinomial logit (MNL)</option>
+          <option value="mixed">Panel mixed logit</option>
+        </SelectField>
+        <TextField
+          label="Name"
+          placeholder={mixed ? 'Mixed logit' : 'Multinomial logit'}
+          error={errors.name?.message}
+          {...register('name')}
+        />
+      </div>
+
+      <fieldset>
+        <legend className="mb-1 text-sm font-medium text-ink">Coefficients</legend>
+        <p className="mb-2 text-xs text-ink-muted">
+          One coefficient per coded column.{' '}
+          {mixed
+            ? 'Random tastes vary across respondents; a cost is usually negative lognormal.'
+            : 'An MNL has fixed coefficients only.'}
+        </p>
+        <div className="rounded-md border border-line bg-white px-3">
+          {options.columns.map((column, i) => (
+            <ColumnRow
+              key={column.key}
+              column={column}
+              index={i}
+              model={model}
+              register={register}
+              error={errors.columns?.[i]?.distribution?.message}
+            />
+          ))}
+        </div>
+      </fieldset>
+
+      {mixed && (
+        <fieldset className="grid gap-4 sm:grid-cols-3">
+          <legend className="mb-2 text-sm font-medium text-ink">Simulation</legend>
+          <SelectField label="Draws" error={errors.drawsType?.message} {...register('drawsType')}>
+            <option value="halton">Scrambled Halton</option>
+            <option value="sobol">Sobol</option>
+            <option value="mlhs">Modified Latin hypercube</option>
+            <option value="random">Pseudo-random</option>
+          </SelectField>
+          <TextField
+            label="Draws per respondent"
+            type="number"
+            inputMode="numeric"
+            error={errors.drawsCount?.message}
+            {...register('drawsCount', { valueAsNumber: true })}
+          />
+          <TextField
+            label="Draws for taste profiles"
+            type="number"
+            inputMode="numeric"
+            hint="More than for estimation"
+            error={errors.profileDraws?.message}
+            {...register('profileDraws', { valueAsNumber: true })}
+          />
+          <TextField
+            label="Seed"
+            type="number"
+            inputMode="numeric"
+            error={errors.seed?.message}
+            {...register('seed', { valueAsNumber: true })}
+          />
+          <TextField
+            label="Starting points"
+            type="number"
+            inputMode="numeric"
+            hint="1 = from the MNL only"
+            error={errors.starts?.message}
+            {...register('starts', { valueAsNumber: true })}
+          />
+          <label className="flex items-center gap-2 self-end pb-2 text-sm text-ink">
+            <input type="checkbox" className="size-4 accent-primary" {...register('correlated')} />
+            Correlated normal tastes
+          </label>
+          {errors.correlated?.message && (
+            <p role="alert" className="text-xs font-medium text-danger sm:col-span-3">
+              {errors.correlated.message}
+            </p>
+          )}
+        </fieldset>
+      )}
+
+      <SelectField
+        label="Respondents"
+        hint={`${options.includedRespondents} included respondents have completed the questionnaire.`}
+        error={errors.filterId?.message}
+        {...register('filterId')}
+      >
+        <option value="">All included respondents</option>
+        {options.filters.map((f) => (
+          <option key={f.id} value={f.id}>
+            Saved filter: {f.name}
+          </option>
+        ))}
+      </SelectField>
+
+      {errors.root?.message && <Alert tone="danger">{errors.root.message}</Alert>}
+      <div className="flex justify-end">
+        <Button type="submit" busy={create.isPending}>
+          Start run
+        </Button>
+      </div>
+    </form>
+  );
+}

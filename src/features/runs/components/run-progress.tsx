@@ -1,0 +1,49 @@
+/**
+ * Progress of a queued or running run: a bar of the progress toward convergence (the gradient
+ * norm falling from its first value to the tolerance, on a log scale), the iteration, the
+ * log-likelihood and the elapsed time.
+ */
+import type { Run } from '@shared/schemas/run';
+import { ProgressBar } from '@/components/ui/feedback';
+import { formatDuration, formatNumber } from '../utils/format';
+
+/** Gradient tolerance of the mixed logit (server check-mixed-logit-options.ts). */
+const TOLERANCE = 1e-3;
+
+export function getConvergenceShare(run: Run): number {
+  const { stage, gradientNorm, initialGradientNorm } = run.progress;
+  if (run.status === 'queued' || stage === 'preparing' || stage === undefined) return 0;
+  if (stage === 'saving') return 1;
+  if (!gradientNorm || !initialGradientNorm || initialGradientNorm <= TOLERANCE) return 0.05;
+  const share =
+    Math.log(initialGradientNorm / gradientNorm) / Math.log(initialGradientNorm / TOLERANCE);
+  return Math.min(0.97, Math.max(0.02, share));
+}
+
+export function RunProgress({ run }: { run: Run }) {
+  const p = run.progress;
+  const label =
+    run.status === 'queued'
+      ? 'Waiting for a worker…'
+      : p.stage === 'preparing' || !p.stage
+        ? 'Preparing the choice data…'
+        : p.iteration
+          ? `Iteration ${p.iteration}`
+          : 'Estimating…';
+  return (
+    <div className="space-y-1.5">
+      <ProgressBar value={getConvergenceShare(run)} label={`Progress of ${run.name}`} />
+      <div className="flex flex-wrap gap-x-4 gap-y-0.5 text-xs text-ink-soft">
+        <span>{label}</span>
+        {p.loglik !== undefined && (
+          <span>
+            Log-likelihood{' '}
+            <span className="font-mono tabular-nums">{formatNumber(p.loglik, 2)}</span>
+          </span>
+        )}
+        {run.status === 'running' && <span>Elapsed {formatDuration(p.elapsedMs)}</span>}
+        {run.cancelRequested && run.status === 'running' && <span>Stopping…</span>}
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,130 @@
+/**
+ * The Models form's values and their translation into the shared create-run input, with
+ * sensible defaults: a first run is an MNL with every coded column; later ones propose a mixed
+ * logit with normal attribute tastes and a negative lognormal cost (constants stay fixed).
+ */
+import type { FieldErrors } from 'react-hook-form';
+import {
+  createRunSchema,
+  type CreateRunInput,
+  type ModelColumn,
+  type RunOptions,
+} from '@shared/schemas/run';
+import type { CoefficientDistributionInput } from '@shared/schemas/estimation-spec';
+
+export type ColumnChoice = 'omit' | CoefficientDistributionInput;
+
+export interface RunFormValues {
+  name: string;
+  model: 'mnl' | 'mixed';
+  columns: { distribution: ColumnChoice }[];
+  correlated: boolean;
+  drawsType: 'halton' | 'sobol' | 'mlhs' | 'random';
+  drawsCount: number;
+  seed: number;
+  profileDraws: number;
+  starts: number;
+  /** '' = every included respondent. */
+  filterId: string;
+}
+
+export function getColumnDefault(column: ModelColumn, model: 'mnl' | 'mixed'): ColumnChoice {
+  if (model === 'mnl' || column.kind === 'constant') return 'fixed';
+  return column.isCost ? 'neg_lognormal' : 'normal';
+}
+
+export function getDefaultRunFormValues(options: RunOptions): RunFormValues {
+  const model = options.hasRuns ? 'mixed' : 'mnl';
+  return {
+    name: '',
+    model,
+    columns: options.columns.map((c) => ({ distribution: getColumnDefault(c, model) })),
+    correlated: false,
+    drawsType: 'halton',
+    drawsCount: 500,
+    seed: 1,
+    profileDraws: 2000,
+    starts: 1,
+    filterId: '',
+  };
+}
+
+export function toCreateRunInput(values: RunFormValues, columns: ModelColumn[]): CreateRunInput {
+  const used = columns
+    .map((column, i) => ({ column, choice: values.columns[i]?.distribution ?? 'omit' }))
+    .filter((x) => x.choice !== 'omit');
+  const cost = used.find((x) => x.column.isCost);
+  const mixed = values.model === 'mixed';
+  return {
+    name: values.name,
+    spec: {
+      model: values.model,
+      coefficients: used.map(({ column, choice }) => ({
+        name: column.code,
+        column: column.key,
+        distribution: choice as CoefficientDistributionInput,
+      })),
+      correlated: mixed && values.correlated,
+      draws: { type: values.drawsType, count: values.drawsCount, seed: values.seed },
+      profileDraws: values.profileDraws,
+      starts: values.starts,
+      ...(cost ? { cost: cost.column.code } : {}),
+    },
+    respondents: { filterId: values.filterId || null },
+  };
+}
+
+const fieldOfSpec: Record<string, keyof RunFormValues> = {
+  'spec.draws.type': 'drawsType',
+  'spec.draws.count': 'drawsCount',
+  'spec.draws.seed': 'seed',
+  'spec.profileDraws': 'profileDraws',
+  'spec.starts': 'starts',
+  'spec.correlated': 'correlated',
+  'spec.model': 'model',
+  name: 'name',
+  'respondents.filterId': 'filterId',
+};
+
+/** Maps an issue path of the create-run input onto a form field ('root' when none fits). */
+export function toFormField(path: string, values: RunFormValues): string {
+  const m = /^spec\.coefficients\.(\d+)\./.exec(path);
+  if (m) {
+    const used = values.columns
+      .map((c, i) => ({ c, i }))
+      .filter((x) => x.c.distribution !== 'omit');
+    const hit = used[Number(m[1])];
+    return hit ? `columns.${hit.i}.distribution` : 'root';
+  }
+  if (path === 'spec.coefficients' || path === 'spec.cost') return 'root';
+  return fieldOfSpec[path] ?? 'root';
+}
+
+/** react-hook-form resolver that validates with the shared create-run schema. */
+export function createRunFormResolver(columns: ModelColumn[]) {
+  return async (values: RunFormValues) => {
+    const parsed = createRunSchema.safeParse(toCreateRunInput(values, columns));
+    if (parsed.success) return { values, errors: {} };
+    const errors: Record<string, { type: string; message: string }> = {};
+    for (const issue of parsed.error.issues) {
+      const field = toFormField(issue.path.join('.'), values);
+      errors[field] ??= { type: 'validation', message: issue.message };
+    }
+    return { values: {}, errors: nestErrors(errors) as FieldErrors<RunFormValues> };
+  };
+}
+
+/** Turns { 'columns.2.distribution': e } into { columns: { 2: { distribution: e } } }. */
+function nestErrors(flat: Record<string, unknown>): Record<string, unknown> {
+  const out: Record<string, unknown> = {};
+  for (const [path, error] of Object.entries(flat)) {
+    const parts = path.split('.');
+    let node = out;
+    parts.slice(0, -1).forEach((p) => {
+      node[p] ??= {};
+      node = node[p] as Record<string, unknown>;
+    });
+    node[parts[parts.length - 1]] = error;
+  }
+  return out;
+}

@@ -7,6 +7,7 @@ import type { AppDeps } from '../deps';
 import { startJobQueue, type RegisteredJobKind } from './queue';
 import { createDesignJobKind } from './design-job';
 import { createEstimationJobKind } from './estimation-job';
+import { startCloseCheck } from '../services/lifecycle';
 
 export type StopFn = () => Promise<void>;
 
@@ -25,7 +26,10 @@ export async function startBackgroundServices(
 ): Promise<StopFn> {
   const queue = await startJobQueue(deps, { kinds: createJobKinds(), work: opts.embeddedWorker });
   deps.jobs = queue;
+  // Live studies close at their date or quota even when nobody is answering.
+  const stopCloseCheck = startCloseCheck(deps);
   return async () => {
+    stopCloseCheck();
     deps.jobs = undefined;
     await queue.stop();
   };

@@ -259,3 +259,12 @@ export async function closeDueStudies(deps: AppDeps, now = new Date()): Promise<
     if (await closeIfDue(deps.db, s, now)) closed++;
   return closed;
 }
+
+/** Runs the close check every `intervalMs` (a minute by default); returns a stop function. */
+export function startCloseCheck(deps: AppDeps, intervalMs = 60_000): () => void {
+  const timer = setInterval(() => {
+    closeDueStudies(deps).catch((err) => deps.logger.error({ err }, 'close check failed'));
+  }, intervalMs);
+  timer.unref();
+  return () => clearInterval(timer);
+}

@@ -1,0 +1,252 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { eq } from 'drizzle-orm';
+import { createTestApp, type TestApp } from '../../support/test-app';
+import { createTeamWithAllRoles } from '../../support/factories';
+import { respondents, answers } from '../../../db/schema/fieldwork';
+import { studies } from '../../../db/schema/studies';
+import { closeDueStudies } from '../../../server/services/lifecycle';
+import { answerFor, insertStudy } from './respond-fixtures';
+
+let t: TestApp;
+let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
+beforeAll(async () => {
+  t = await createTestApp();
+  team = await createTeamWithAllRoles(t);
+});
+afterAll(async () => {
+  await t.close();
+});
+
+const url = (studyId: string, path = '') =>
+  `/api/teams/${team.teamId}/studies/${studyId}/lifecycle${path}`;
+
+describe('GET /lifecycle/readiness', () => {
+  it('lists every problem of an unfinished study at once', async () => {
+    const s = await insertStudy(t, team.teamId, { questionnaire: null, withDesign: false });
+    await t.deps.db
+      .update(studies)
+      .set({ definition: { attributes: [], alternatives: { count: 2 } } })
+      .where(eq(studies.id, s.id));
+    const res = await team.agents.viewer.get(url(s.id, '/readiness')).expect(200);
+    expect(res.body.ready).toBe(false);
+    const codes = res.body.problems.map((p: { code: string }) => p.code);
+    expect(codes).toEqual(
+      expect.arrayContaining(['no_attributes', 'no_design', 'no_questionnaire']),
+    );
+  });
+
+  it('when the study is complete, says it is ready', async () => {
+    const s = await insertStudy(t, team.teamId);
+    const res = await team.agents.analyst.get(url(s.id, '/readiness')).expect(200);
+    expect(res.body).toEqual({ ready: true, problems: [] });
+  });
+});
+
+describe('POST /lifecycle/go-live', () => {
+  it('when the study has problems, returns 422 with each problem and stays a draft', async () => {
+    const s = await insertStudy(t, team.teamId, { questionnaire: null, withDesign: false });
+    const res = await team.agents.editor.post(url(s.id, '/go-live')).expect(422);
+    expect(res.body.error.code).toBe('not_ready');
+    expect(res.body.error.fields).toEqual(
+      expect.arrayContaining([
+        { path: 'design', message: 'Create or import a design on the Tasks section.' },
+        expect.objectContaining({ path: 'questionnaire' }),
+      ]),
+    );
+    const [row] = await t.deps.db.select().from(studies).where(eq(studies.id, s.id));
+    expect(row.status).toBe('draft');
+    expect(row.currentVersion).toBe(0);
+  });
+
+  it('when a warm-up task refers to a level that does not exist, names it', async () => {
+    const s = await insertStudy(t, team.teamId);
+    const [row] = await t.deps.db.select().from(studies).where(eq(studies.id, s.id));
+    const q = row.questionnaire as { pages: Array<Record<string, unknown>> };
+    q.pages.splice(2, 0, {
+      id: 'warm',
+      kind: 'warmup',
+      title: 'Practice',
+      alternatives: [{ levels: { bill: 'b3' } }, { levels: { bill: 'nope' } }],
+    });
+    await t.deps.db.update(studies).set({ questionnaire: q }).where(eq(studies.id, s.id));
+    const res = await team.agents.owner.post(url(s.id, '/go-live')).expect(422);
+    expect(res.body.error.fields.map((f: { message: string }) => f.message)).toContain(
+      'Choose a level of Supply interruptions per year for alternative 1 of the warm-up task.',
+    );
+  });
+
+  it('only owners and editors may go live, close and reopen', async () => {
+    const s = await insertStudy(t, team.teamId);
+    for (const role of ['analyst', 'viewer'] as const) {
+      const res = await team.agents[role].post(url(s.id, '/go-live')).expect(403);
+      expect(res.body.error.code).toBe('forbidden');
+    }
+    await team.outsider.post(url(s.id, '/go-live')).expect(404);
+    await t.request().post(url(s.id, '/go-live')).expect(401);
+    await team.agents.editor.post(url(s.id, '/go-live')).expect(200);
+    await team.agents.viewer.post(url(s.id, '/close')).expect(403);
+    await team.agents.analyst.post(url(s.id, '/close')).expect(403);
+    await team.agents.owner.post(url(s.id, '/close')).expect(200);
+    await team.agents.viewer.post(url(s.id, '/reopen')).expect(403);
+    await team.agents.editor.post(url(s.id, '/reopen')).expect(200);
+    await team.agents.analyst.patch(url(s.id, '/settings')).send({ quotaCompletes: 5 }).expect(403);
+  });
+
+  it('freezes version 1, keeps it on an unchanged reopen, and freezes version 2 after an edit', async () => {
+    const s = await insertStudy(t, team.teamId);
+    const live = await team.agents.editor.post(url(s.id, '/go-live')).expect(200);
+    expect(live.body).toMatchObject({ status: 'live', currentVersion: 1 });
+    await team.agents.editor.post(url(s.id, '/go-live')).expect(409);
+    const first = (
+      await t.request().post(`/api/r/${live.body.publicId}/sessions`).send({}).expect(201)
+    ).body;
+
+    await team.agents.editor.post(url(s.id, '/close')).expect(200);
+    const reopened = await team.agents.editor.post(url(s.id, '/reopen')).expect(200);
+    expect(reopened.body.currentVersion).toBe(1);
+
+    await team.agents.editor.post(url(s.id, '/close')).expect(200);
+    await team.agents.editor.post(url(s.id, '/return-to-draft')).expect(200);
+    const q = (
+      await team.agents.editor
+        .get(`/api/teams/${team.teamId}/studies/${s.id}/questionnaire`)
+        .expect(200)
+    ).body.questionnaire;
+    q.pages[0].title = 'Welcome back';
+    await team.agents.editor
+      .put(`/api/teams/${team.teamId}/studies/${s.id}/questionnaire`)
+      .send({ questionnaire: q })
+      .expect(200);
+    const again = await team.agents.editor.post(url(s.id, '/go-live')).expect(200);
+    expect(again.body.currentVersion).toBe(2);
+    const second = (
+      await t.request().post(`/api/r/${live.body.publicId}/sessions`).send({}).expect(201)
+    ).body;
+    expect(second.screens[0].title).toBe('Welcome back');
+    expect(first.screens[0].title).not.toBe('Welcome back');
+
+    const versions = await team.agents.viewer.get(url(s.id, '/versions')).expect(200);
+    expect(
+      versions.body.map((v: { version: number; respondents: number }) => [
+        v.version,
+        v.respondents,
+      ]),
+    ).toEqual([
+      [1, 1],
+      [2, 1],
+    ]);
+    // The earlier respondent keeps the version they saw.
+    const rows = await t.deps.db.select().from(respondents).where(eq(respondents.studyId, s.id));
+    expect(new Set(rows.map((r) => r.versionId)).size).toBe(2);
+  });
+});
+
+describe('close, return to draft and reopen', () => {
+  it('refuses transitions that do not fit the status', async () => {
+    const s = await insertStudy(t, team.teamId);
+    expect((await team.agents.editor.post(url(s.id, '/close')).expect(409)).body.error.code).toBe(
+      'not_live',
+    );
+    expect((await team.agents.editor.post(url(s.id, '/reopen')).expect(409)).body.error.code).toBe(
+      'wrong_status',
+    );
+    await team.agents.editor.post(url(s.id, '/go-live')).expect(200);
+    expect(
+      (await team.agents.editor.post(url(s.id, '/return-to-draft')).expect(409)).body.error.code,
+    ).toBe('not_closed');
+  });
+
+  it('when the quota is already reached, reopening lists it as a problem', async () => {
+    const s = await insertStudy(t, team.teamId, { settings: { quotaCompletes: 1 } });
+    const live = (await team.agents.editor.post(url(s.id, '/go-live')).expect(200)).body;
+    const session = (
+      await t.request().post(`/api/r/${live.publicId}/sessions`).send({}).expect(201)
+    ).body;
+    for (const screen of session.screens)
+      await t
+        .request()
+        .post(`/api/r/${live.publicId}/answers`)
+        .set('x-respondent-token', session.sessionToken)
+        .send(answerFor(screen))
+        .expect(201);
+    const state = (await team.agents.viewer.get(url(s.id)).expect(200)).body;
+    expect(state).toMatchObject({
+      status: 'closed',
+      completes: 1,
+      settings: { closedReason: 'quota' },
+    });
+    const res = await team.agents.editor.post(url(s.id, '/reopen')).expect(422);
+    expect(res.body.error.fields).toEqual([
+      expect.objectContaining({ path: 'settings.quotaCompletes' }),
+    ]);
+  });
+});
+
+describe('PATCH /lifecycle/settings and the periodic close check', () => {
+  it('when a redirect is not a web address, returns 400 with the field and changes nothing', async () => {
+    const s = await insertStudy(t, team.teamId);
+    const res = await team.agents.editor
+      .patch(url(s.id, '/settings'))
+      .send({ redirects: { complete: 'javascript:alert(1)', screenedOut: null, overQuota: null } })
+      .expect(400);
+    expect(res.body.error.fields[0].path).toBe('redirects.complete');
+    const [row] = await t.deps.db.select().from(studies).where(eq(studies.id, s.id));
+    expect(row.settings).toEqual({});
+  });
+
+  it('keeps settings it does not own and merges redirects', async () => {
+    const s = await insertStudy(t, team.teamId, { settings: { speederFraction: 0.4 } });
+    await team.agents.editor
+      .patch(url(s.id, '/settings'))
+      .send({
+        panelParam: 'rid',
+        redirects: { complete: 'https://p.example/c/{pid}', screenedOut: null, overQuota: null },
+      })
+      .expect(200);
+    const res = await team.agents.editor
+      .patch(url(s.id, '/settings'))
+      .send({ quotaCompletes: 300 })
+      .expect(200);
+    expect(res.body.settings).toMatchObject({
+      panelParam: 'rid',
+      quotaCompletes: 300,
+      redirects: { complete: 'https://p.example/c/{pid}' },
+    });
+    const [row] = await t.deps.db.select().from(studies).where(eq(studies.id, s.id));
+    expect((row.settings as { speederFraction: number }).speederFraction).toBe(0.4);
+  });
+
+  it('closes a live study whose close date has passed, and its link then says closed', async () => {
+    const s = await insertStudy(t, team.teamId);
+    const live = (await team.agents.editor.post(url(s.id, '/go-live')).expect(200)).body;
+    const soon = new Date(Date.now() + 60_000).toISOString();
+    await team.agents.editor.patch(url(s.id, '/settings')).send({ closeAt: soon }).expect(200);
+    expect(await closeDueStudies(t.deps, new Date())).toBe(0);
+    expect(await closeDueStudies(t.deps, new Date(Date.now() + 120_000))).toBe(1);
+    const state = (await team.agents.viewer.get(url(s.id)).expect(200)).body;
+    expect(state.settings.closedReason).toBe('date');
+    expect((await t.request().get(`/api/r/${live.publicId}`).expect(200)).body.state).toBe(
+      'closed',
+    );
+  });
+
+  it('closes at the quota in the periodic check too', async () => {
+    const s = await insertStudy(t, team.teamId);
+    const live = (await team.agents.editor.post(url(s.id, '/go-live')).expect(200)).body;
+    const session = (
+      await t.request().post(`/api/r/${live.publicId}/sessions`).send({}).expect(201)
+    ).body;
+    for (const screen of session.screens)
+      await t
+        .request()
+        .post(`/api/r/${live.publicId}/answers`)
+        .set('x-respondent-token', session.sessionToken)
+        .send(answerFor(screen))
+        .expect(201);
+    await team.agents.editor.patch(url(s.id, '/settings')).send({ quotaCompletes: 1 }).expect(200);
+    expect(await closeDueStudies(t.deps)).toBe(1);
+    expect((await team.agents.viewer.get(url(s.id)).expect(200)).body.status).toBe('closed');
+    const rows = await t.deps.db.select().from(answers).where(eq(answers.studyId, s.id));
+    expect(rows).toHaveLength(session.screens.length);
+  });
+});

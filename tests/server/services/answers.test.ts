@@ -1,0 +1,77 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { eq } from 'drizzle-orm';
+import { createTestApp, type TestApp } from '../../support/test-app';
+import { signUpOwner } from '../../support/factories';
+import { answers } from '../../../db/schema/fieldwork';
+import { saveAnswer } from '../../../server/services/answers';
+import { buildSession, createRespondent } from '../../../server/services/respondent-session';
+import { goLive } from '../../../server/services/lifecycle';
+import { answerFor, insertStudy } from '../routes/respond-fixtures';
+
+let t: TestApp;
+let studyId: string;
+beforeAll(async () => {
+  t = await createTestApp();
+  const { teamId } = await signUpOwner(t);
+  studyId = (await insertStudy(t, teamId)).id;
+  await goLive(t.deps, teamId, studyId);
+});
+afterAll(async () => {
+  await t.close();
+});
+
+async function newRespondent() {
+  const { respondent, sessionToken } = await createRespondent(t.deps.db, { studyId });
+  const study = { id: studyId, name: 'x', status: 'live', settings: {} };
+  const session = await buildSession(t.deps.db, study, respondent);
+  return { sessionToken, session, respondent };
+}
+
+describe('saveAnswer under concurrency', () => {
+  it('when the same answer arrives many times at once, stores exactly one row', async () => {
+    const { sessionToken, session, respondent } = await newRespondent();
+    const answer = answerFor(session.screens[0]) as Parameters<typeof saveAnswer>[1]['answer'];
+    const receipts = await Promise.all(
+      Array.from({ length: 8 }, () => saveAnswer(t.deps.db, { studyId, sessionToken, answer })),
+    );
+    expect(receipts.filter((r) => !r.replay)).toHaveLength(1);
+    const rows = await t.deps.db
+      .select()
+      .from(answers)
+      .where(eq(answers.respondentId, respondent.id));
+    expect(rows).toHaveLength(1);
+  });
+
+  it('when two different answers race for one screen, keeps one and refuses the other', async () => {
+    const { sessionToken, session, respondent } = await newRespondent();
+    const results = await Promise.allSettled(
+      [0, 1].map(() =>
+        saveAnswer(t.deps.db, {
+          studyId,
+          sessionToken,
+          answer: answerFor(session.screens[0]) as Parameters<typeof saveAnswer>[1]['answer'],
+        }),
+      ),
+    );
+    expect(results.filter((r) => r.status === 'fulfilled')).toHaveLength(1);
+    const refused = results.find((r) => r.status === 'rejected') as PromiseRejectedResult;
+    expect(refused.reason.code).toBe('already_answered');
+    const rows = await t.deps.db
+      .select()
+      .from(answers)
+      .where(eq(answers.respondentId, respondent.id));
+    expect(rows).toHaveLength(1);
+  });
+
+  it('a client id reused for another screen is refused', async () => {
+    const { sessionToken, session } = await newRespondent();
+    const first = answerFor(session.screens[0]) as Parameters<typeof saveAnswer>[1]['answer'];
+    await saveAnswer(t.deps.db, { studyId, sessionToken, answer: first });
+    const second = { ...(answerFor(session.screens[1]) as typeof first), clientId: first.clientId };
+    await expect(
+      saveAnswer(t.deps.db, { studyId, sessionToken, answer: second }),
+    ).rejects.toMatchObject({
+      code: 'client_id_reused',
+    });
+  });
+});

@@ -1,0 +1,148 @@
+import { useId, useState, type ReactNode } from 'react';
+import type { Attribute, Level } from '@shared/schemas/study-definition';
+import { formatNumericLevel } from '@/components/choice-task/format-level';
+import { ApiError } from '@/lib/api-client';
+import type { FieldErrors } from '../utils/field-errors';
+
+type Props = {
+  attribute: Attribute;
+  level: Level;
+  path: string;
+  errors: FieldErrors;
+  handle: ReactNode;
+  readOnly: boolean;
+  canRemove: boolean;
+  onChange: (level: Level) => void;
+  onRemove: () => void;
+  uploadImage: (file: File) => Promise<{ key: string }>;
+};
+
+const input =
+  'h-10 w-full rounded-md border border-line bg-white px-3 text-sm focus:border-primary focus:outline-none focus:ring-2 focus:ring-primary/20 aria-[invalid=true]:border-danger disabled:bg-canvas';
+
+export function LevelRow(props: Props) {
+  const { attribute, level, path, errors, handle, readOnly, canRemove, onChange, onRemove } = props;
+  const id = useId();
+  const [uploading, setUploading] = useState(false);
+  const [uploadError, setUploadError] = useState<string | null>(null);
+  const labelError = errors.get(`${path}.label`);
+  const valueError = errors.get(`${path}.value`);
+  const numeric = attribute.kind === 'numeric';
+
+  const onFile = async (file: File | undefined) => {
+    if (!file) return;
+    setUploading(true);
+    setUploadError(null);
+    try {
+      const { key } = await props.uploadImage(file);
+      onChange({ ...level, imageKey: key });
+    } catch (err) {
+      setUploadError(err instanceof ApiError ? err.message : 'The image could not be uploaded.');
+    } finally {
+      setUploading(false);
+    }
+  };
+
+  return (
+    <div className="flex flex-wrap items-start gap-2 rounded-md border border-line/70 bg-white p-2">
+      {handle}
+      {numeric && (
+        <div className="w-28">
+          <label htmlFor={`${id}-v`} className="sr-only">
+            Value
+          </label>
+          <input
+            id={`${id}-v`}
+            type="number"
+            step="any"
+            inputMode="decimal"
+            placeholder="Value"
+            className={`${input} num`}
+            value={level.value ?? ''}
+            disabled={readOnly}
+            aria-invalid={valueError ? true : undefined}
+            onChange={(e) =>
+              onChange({
+                ...level,
+                value: e.target.value === '' ? undefined : Number(e.target.value),
+              })
+            }
+          />
+        </div>
+      )}
+      <div className="min-w-40 flex-1">
+        <label htmlFor={`${id}-l`} className="sr-only">
+          {numeric ? 'Shown as' : 'Level label'}
+        </label>
+        <input
+          id={`${id}-l`}
+          className={input}
+          placeholder={
+            numeric
+              ? level.value !== undefined
+                ? `Shown as ${formatNumericLevel(level.value, attribute.unit)}`
+                : 'Shown as'
+              : 'Level label'
+          }
+          value={level.label}
+          disabled={readOnly}
+          aria-invalid={labelError ? true : undefined}
+          onChange={(e) => onChange({ ...level, label: e.target.value })}
+        />
+        {(labelError || valueError) && (
+          <p role="alert" className="mt-1 text-xs font-medium text-danger">
+            {labelError ?? valueError}
+          </p>
+        )}
+        {uploadError && (
+          <p role="alert" className="mt-1 text-xs font-medium text-danger">
+            {uploadError}
+          </p>
+        )}
+      </div>
+      <div className="flex items-center gap-1">
+        {level.imageKey ? (
+          <span className="flex items-center gap-1">
+            <img
+              src={`/api/files/${encodeURIComponent(level.imageKey)}`}
+              alt=""
+              className="size-10 rounded border border-line object-cover"
+            />
+            {!readOnly && (
+              <button
+                type="button"
+                className="h-10 rounded-md px-2 text-xs text-ink-soft hover:text-danger"
+                onClick={() => onChange({ ...level, imageKey: undefined })}
+              >
+                Remove image
+              </button>
+            )}
+          </span>
+        ) : (
+          !readOnly && (
+            <label className="flex h-10 cursor-pointer items-center rounded-md px-2 text-xs text-ink-soft hover:bg-primary-soft hover:text-primary">
+              {uploading ? 'Uploading…' : 'Add image'}
+              <input
+                type="file"
+                accept="image/png,image/jpeg,image/webp"
+                className="sr-only"
+                onChange={(e) => void onFile(e.target.files?.[0])}
+              />
+            </label>
+          )
+        )}
+        {!readOnly && (
+          <button
+            type="button"
+            aria-label={`Remove level ${level.label || (level.value ?? '')}`}
+            disabled={!canRemove}
+            className="flex size-10 items-center justify-center rounded-md text-ink-muted hover:bg-danger-soft hover:text-danger disabled:opacity-30"
+            onClick={onRemove}
+          >
+            ✕
+          </button>
+        )}
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,121 @@
+/**
+ * A vertical list reordered by drag and drop (pointer, touch or keyboard: focus a handle,
+ * Space to lift, arrows to move, Space to drop, Escape to cancel).
+ */
+import type { ReactNode } from 'react';
+import {
+  closestCenter,
+  DndContext,
+  KeyboardSensor,
+  PointerSensor,
+  useSensor,
+  useSensors,
+  type DragEndEvent,
+} from '@dnd-kit/core';
+import {
+  SortableContext,
+  sortableKeyboardCoordinates,
+  useSortable,
+  verticalListSortingStrategy,
+} from '@dnd-kit/sortable';
+import { CSS } from '@dnd-kit/utilities';
+import { cn } from '@/lib/cn';
+
+type Props<T extends { id: string }> = {
+  items: T[];
+  onMove: (from: number, to: number) => void;
+  renderItem: (item: T, index: number, handle: ReactNode) => ReactNode;
+  /** Names the item in the handle's label, e.g. "Reorder level Poor". */
+  itemName: (item: T) => string;
+  disabled?: boolean;
+  className?: string;
+};
+
+export function SortableList<T extends { id: string }>({
+  items,
+  onMove,
+  renderItem,
+  itemName,
+  disabled,
+  className,
+}: Props<T>) {
+  const sensors = useSensors(
+    useSensor(PointerSensor, { activationConstraint: { distance: 4 } }),
+    useSensor(KeyboardSensor, { coordinateGetter: sortableKeyboardCoordinates }),
+  );
+  const onDragEnd = (e: DragEndEvent) => {
+    if (!e.over || e.active.id === e.over.id) return;
+    const from = items.findIndex((i) => i.id === e.active.id);
+    const to = items.findIndex((i) => i.id === e.over!.id);
+    if (from >= 0 && to >= 0) onMove(from, to);
+  };
+  return (
+    <DndContext sensors={sensors} collisionDetection={closestCenter} onDragEnd={onDragEnd}>
+      <SortableContext items={items.map((i) => i.id)} strategy={verticalListSortingStrategy}>
+        <ul className={className}>
+          {items.map((item, index) => (
+            <SortableItem
+              key={item.id}
+              id={item.id}
+              label={`Reorder ${itemName(item)}`}
+              disabled={disabled}
+            >
+              {(handle) => renderItem(item, index, handle)}
+            </SortableItem>
+          ))}
+        </ul>
+      </SortableContext>
+    </DndContext>
+  );
+}
+
+function SortableItem({
+  id,
+  label,
+  disabled,
+  children,
+}: {
+  id: string;
+  label: string;
+  disabled?: boolean;
+  children: (handle: ReactNode) => ReactNode;
+}) {
+  const {
+    attributes,
+    listeners,
+    setNodeRef,
+    setActivatorNodeRef,
+    transform,
+    transition,
+    isDragging,
+  } = useSortable({ id, disabled });
+  const handle = (
+    <button
+      type="button"
+      ref={setActivatorNodeRef}
+      aria-label={label}
+      disabled={disabled}
+      className="flex size-10 shrink-0 cursor-grab touch-none items-center justify-center rounded-md text-ink-muted hover:bg-primary-soft hover:text-primary disabled:cursor-not-allowed disabled:opacity-40"
+      {...attributes}
+      {...listeners}
+    >
+      <svg aria-hidden viewBox="0 0 20 20" className="size-5" fill="currentColor">
+        <circle cx="7" cy="5" r="1.5" />
+        <circle cx="13" cy="5" r="1.5" />
+        <circle cx="7" cy="10" r="1.5" />
+        <circle cx="13" cy="10" r="1.5" />
+        <circle cx="7" cy="15" r="1.5" />
+        <circle cx="13" cy="15" r="1.5" />
+      </svg>
+    </button>
+  );
+  return (
+    <li
+      ref={setNodeRef}
+      style={{ transform: CSS.Transform.toString(transform), transition }}
+      className={cn('relative', isDragging && 'z-10 opacity-80 shadow-lg')}
+    >
+      {children(handle)}
+    </li>
+  );
+}

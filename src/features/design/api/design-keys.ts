@@ -1,0 +1,7 @@
+/** Query keys of the design feature (the Tasks section). */
+export const designKeys = {
+  all: ['designs'] as const,
+  state: (teamId: string, studyId: string) => [...designKeys.all, teamId, studyId] as const,
+  job: (teamId: string, studyId: string, jobId: string) =>
+    [...designKeys.state(teamId, studyId), 'job', jobId] as const,
+};

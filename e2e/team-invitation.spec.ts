@@ -50,7 +50,7 @@ test('an owner invites an analyst, who joins from the e-mailed link with read-on
   });
 
   await test.step('back on the invitation, the teammate accepts and lands in the team', async () => {
-    await page.getByRole('button', { name: `Accept and join ${teamName}` }).click();
+    await page.getByRole('button', { name: 'Accept and join the team' }).click();
     await expect(page).toHaveURL(new RegExp(`/teams/${teamId}/members$`));
     await signOut(page);
   });

@@ -82,7 +82,7 @@ export function Component() {
           <div className="space-y-3">
             <ErrorText error={accept.error} />
             <Button className="w-full" busy={accept.isPending} onClick={() => accept.mutate(token)}>
-              Accept and join {invitation.teamName}
+              Accept and join the team
             </Button>
           </div>
         )}

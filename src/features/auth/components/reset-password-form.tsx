@@ -4,6 +4,7 @@ import { z } from 'zod';
 import { passwordSchema, resetPasswordSchema, type CurrentUser } from '@shared/schemas/auth';
 import { TextField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
+import { ApiError } from '@/lib/api-client';
 import { useResetPassword } from '../api/reset-password';
 import { applyServerError, FormError } from './form-error';
 
@@ -38,7 +39,12 @@ export function ResetPasswordForm({
     try {
       onReset(await reset.mutateAsync({ token, password }));
     } catch (err) {
-      applyServerError(err, form.setError);
+      // The token is not a field the person can fix: say what to do instead.
+      if (err instanceof ApiError && err.code === 'invalid_token') {
+        form.setError('root.server', { type: 'server', message: err.message });
+      } else {
+        applyServerError(err, form.setError);
+      }
     }
   });
 
@@ -59,7 +65,7 @@ export function ResetPasswordForm({
         error={errors.confirmPassword?.message}
         {...form.register('confirmPassword')}
       />
-      <FormError message={errors.token?.message ?? errors.root?.server?.message} />
+      <FormError message={errors.root?.server?.message} />
       <Button type="submit" className="w-full" busy={isSubmitting}>
         Set new password
       </Button>

@@ -24,7 +24,7 @@ export function InvitationSummary({ invitation }: { invitation: InvitationPrevie
             <dt className="sr-only">What this role may do</dt>
             <dd>{roleDescriptions[invitation.role]}.</dd>
           </div>
-          <div className="flex flex-wrap gap-2 text-ink-muted">
+          <div className="flex flex-wrap gap-1 text-ink-muted">
             <dt>Link valid until</dt>
             <dd>{formatDate(invitation.expiresAt)}</dd>
           </div>

@@ -14,7 +14,8 @@ function ProblemAlert({ error }: { error: unknown }) {
   if (error instanceof ApiError && error.code === 'last_owner') {
     return (
       <Alert tone="danger" title="A team needs at least one owner">
-        {error.message} Give another member the owner role, then try again.
+        This is the only owner, so the role cannot change and they cannot be removed. Make another
+        member owner first, then try again.
       </Alert>
     );
   }

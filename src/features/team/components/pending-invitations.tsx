@@ -26,16 +26,18 @@ export function PendingInvitations({ teamId }: { teamId: string }) {
               <p className="break-all text-sm font-medium text-ink">{inv.email}</p>
               <p className="text-xs text-ink-muted">Link valid until {formatDate(inv.expiresAt)}</p>
             </div>
-            <Badge tone="primary">{roleLabels[inv.role]}</Badge>
-            <Button
-              variant="ghost"
-              size="sm"
-              busy={cancel.isPending && cancel.variables?.invitationId === inv.id}
-              aria-label={`Cancel the invitation to ${inv.email}`}
-              onClick={() => cancel.mutate({ teamId, invitationId: inv.id })}
-            >
-              Cancel
-            </Button>
+            <div className="flex items-center gap-2">
+              <Badge tone="primary">{roleLabels[inv.role]}</Badge>
+              <Button
+                variant="ghost"
+                size="sm"
+                busy={cancel.isPending && cancel.variables?.invitationId === inv.id}
+                aria-label={`Cancel the invitation to ${inv.email}`}
+                onClick={() => cancel.mutate({ teamId, invitationId: inv.id })}
+              >
+                Cancel
+              </Button>
+            </div>
           </li>
         ))}
       </ul>

@@ -9,8 +9,27 @@ import { twoSidedP } from '../utils/stats';
 
 const Z95 = 1.959964;
 
+/** What the location and spread parameters of each distribution are. */
+const partLabels: Record<string, [string, string]> = {
+  normal: ['mean', 'SD'],
+  lognormal: ['mean of ln β', 'SD of ln β'],
+  neg_lognormal: ['mean of ln(−β)', 'SD of ln(−β)'],
+  triangular: ['centre', 'half-width'],
+  uniform: ['centre', 'half-width'],
+};
+
+export function describeParameter(name: string, distribution: string | undefined): string | null {
+  const part = name.split('.')[1];
+  if (!part) return null;
+  const labels = partLabels[distribution ?? ''];
+  if (part === 'mean') return labels ? labels[0] : 'mean';
+  if (part === 'sd') return labels ? labels[1] : 'spread';
+  return part;
+}
+
 export function ParameterTable({ results }: { results: RunResult }) {
   const label = new Map(results.columns.map((c) => [c.coefficient, c.label]));
+  const distribution = new Map(results.population.map((m) => [m.name, m.distribution]));
   return (
     <div className="overflow-x-auto">
       <table className="w-full text-sm">
@@ -31,7 +50,8 @@ export function ParameterTable({ results }: { results: RunResult }) {
           {results.estimates.map((e) => {
             const se = e.robustSe ?? e.se;
             const t = se ? e.estimate / se : null;
-            const [coef, part] = e.name.split('.');
+            const coef = e.name.split('.')[0];
+            const part = describeParameter(e.name, distribution.get(coef));
             return (
               <tr key={e.name} className="border-b border-line/60 last:border-b-0">
                 <th scope="row" className="px-2 py-1.5 text-left font-normal">

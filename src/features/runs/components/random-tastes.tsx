@@ -32,7 +32,7 @@ export function RandomTastes({
         {random.map((m) => {
           const k = means.data.coefficients.indexOf(m.name);
           return (
-            <div key={m.name}>
+            <div key={m.name} className="min-w-0">
               <h4 className="mb-1 text-sm font-medium text-ink">{label.get(m.name) ?? m.name}</h4>
               <DensityChart
                 moment={m}

@@ -23,14 +23,16 @@ const fitRows: Row[] = [
 
 export function RunComparison({ runs }: { runs: Run[] }) {
   const done = runs.filter((r): r is Run & { results: RunResult } => r.results !== null);
-  const names = [...new Set(done.flatMap((r) => r.results.estimates.map((e) => e.name)))];
+  // An MNL's "bill" sits on the same row as a mixed logit's "bill.mean".
+  const rowOf = (name: string) => name.replace(/\.mean$/, '');
+  const names = [...new Set(done.flatMap((r) => r.results.estimates.map((e) => rowOf(e.name))))];
   return (
     <div className="overflow-x-auto rounded-lg border border-line bg-white">
       <table className="w-full text-sm">
         <caption className="sr-only">Comparison of the selected runs</caption>
         <thead>
           <tr className="border-b border-line text-left">
-            <th scope="col" className="px-3 py-2 font-medium text-ink-soft">
+            <th scope="col" className="sticky left-0 bg-white px-3 py-2 font-medium text-ink-soft">
               Statistic
             </th>
             {done.map((r) => (
@@ -43,7 +45,10 @@ export function RunComparison({ runs }: { runs: Run[] }) {
         <tbody>
           {fitRows.map((row) => (
             <tr key={row.label} className="border-b border-line/60">
-              <th scope="row" className="px-3 py-1.5 text-left font-normal text-ink-soft">
+              <th
+                scope="row"
+                className="sticky left-0 bg-white px-3 py-1.5 text-left font-normal text-ink-soft"
+              >
                 {row.label}
               </th>
               {done.map((r) => (
@@ -55,11 +60,14 @@ export function RunComparison({ runs }: { runs: Run[] }) {
           ))}
           {names.map((name) => (
             <tr key={name} className="border-b border-line/60 last:border-b-0">
-              <th scope="row" className="px-3 py-1.5 text-left font-mono text-xs font-normal">
+              <th
+                scope="row"
+                className="sticky left-0 bg-white px-3 py-1.5 text-left font-mono text-xs font-normal"
+              >
                 {name}
               </th>
               {done.map((r) => {
-                const e = r.results.estimates.find((x) => x.name === name);
+                const e = r.results.estimates.find((x) => rowOf(x.name) === name);
                 return (
                   <td key={r.id} className="num px-3 py-1.5">
                     {e ? formatNumber(e.estimate) : '—'}

@@ -5,6 +5,7 @@
  */
 import { useForm, useWatch } from 'react-hook-form';
 import type { ModelColumn, Run, RunOptions } from '@shared/schemas/run';
+import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
 import { Alert } from '@/components/ui/feedback';
@@ -52,7 +53,11 @@ function ColumnRow({
       <div className="min-w-0">
         <p className="text-sm text-ink">
           {column.label}
-          {column.isCost && <span className="ml-2 text-xs text-accent">cost</span>}
+          {column.isCost && (
+            <Badge tone="accent" className="ml-2">
+              cost
+            </Badge>
+          )}
         </p>
         <p className="truncate font-mono text-xs text-ink-muted">{column.code}</p>
       </div>

@@ -97,10 +97,10 @@ export function Component() {
             </PanelErrorBoundary>
           </Card>
           <div className="grid gap-6 lg:grid-cols-2">
-            <Card title="Fit">
+            <Card title="Fit" className="min-w-0">
               <FitStatistics results={results} />
             </Card>
-            <Card title="Willingness to pay">
+            <Card title="Willingness to pay" className="min-w-0">
               <PanelErrorBoundary>
                 <WtpTable results={results} />
               </PanelErrorBoundary>

@@ -18,6 +18,7 @@ export function createRouter(queryClient: QueryClient) {
     { path: paths.forgotPassword.path, lazy: () => import('./routes/auth/forgot-password') },
     { path: paths.resetPassword.path, lazy: () => import('./routes/auth/reset-password') },
     { path: paths.acceptInvitation.path, lazy: () => import('./routes/auth/accept-invitation') },
+    { path: paths.unsubscribe.path, lazy: () => import('./routes/unsubscribe') },
     {
       element: <RequireAuth />,
       children: [

@@ -58,6 +58,11 @@ export const paths = {
     getHref: (teamId: string, studyId: string, runId: string, respondentId: string) =>
       `/teams/${teamId}/studies/${studyId}/tastes/${runId}/respondents/${respondentId}`,
   },
+  /** Public page behind the unsubscribe link of invitation e-mails. */
+  unsubscribe: {
+    path: '/unsubscribe/:token',
+    getHref: (token: string) => `/unsubscribe/${encodeURIComponent(token)}`,
+  },
   /** The respondent app (public link); personal links add ?inv=<token>. */
   respond: { path: '/s/:publicId', getHref: (publicId: string) => `/s/${publicId}` },
 } as const;

@@ -1,0 +1,123 @@
+/**
+ * Fieldwork section: live progress (refreshing on its own while the study is live), where
+ * respondents stop, completes per block and version, and invitations by e-mail.
+ */
+import { useQueryClient } from '@tanstack/react-query';
+import { useParams, type LoaderFunctionArgs } from 'react-router';
+import { Alert, Card, Spinner } from '@/components/ui/feedback';
+import { ErrorText, PanelErrorBoundary } from '@/components/ui/error-boundary';
+import { useCurrentTeam } from '@/features/auth/hooks/use-current-team';
+import { useFieldworkStats } from '@/features/fieldwork/api/get-fieldwork-stats';
+import { fieldworkKeys, LIVE_REFRESH_MS } from '@/features/fieldwork/api/fieldwork-keys';
+import { SampleFlow } from '@/features/fieldwork/components/sample-flow';
+import { DropOffTable } from '@/features/fieldwork/components/drop-off-table';
+import { CompletesBreakdown } from '@/features/fieldwork/components/completes-breakdown';
+import { DailyChart } from '@/features/fieldwork/components/daily-chart';
+import { InvitationSummary } from '@/features/fieldwork/components/invitation-summary';
+import { InviteeUpload } from '@/features/invitees/components/invitee-upload';
+import { SendPanel } from '@/features/invitees/components/send-panel';
+import { InviteeTable } from '@/features/invitees/components/invitee-table';
+
+export function loader(_args: LoaderFunctionArgs) {
+  return null;
+}
+
+const clock = (iso: string) =>
+  new Date(iso).toLocaleTimeString('en-GB', {
+    hour: '2-digit',
+    minute: '2-digit',
+    second: '2-digit',
+  });
+
+export function Component() {
+  const { teamId = '', studyId = '' } = useParams();
+  const { can } = useCurrentTeam();
+  const qc = useQueryClient();
+  const stats = useFieldworkStats(teamId, studyId);
+  const refreshStats = () =>
+    void qc.invalidateQueries({ queryKey: fieldworkKeys.stats(teamId, studyId) });
+
+  if (stats.isPending) return <Spinner label="Loading fieldwork figures…" />;
+  if (stats.error) return <ErrorText error={stats.error} />;
+  const s = stats.data;
+  const live = s.status === 'live';
+
+  return (
+    <div className="space-y-6">
+      <div className="flex flex-wrap items-end justify-between gap-3">
+        <div>
+          <h2 className="text-xl font-semibold text-ink">Fieldwork</h2>
+          <p className="text-sm text-ink-soft">
+            {live
+              ? `Live. Figures refresh every ${LIVE_REFRESH_MS / 1000} seconds.`
+              : s.status === 'closed'
+                ? 'Closed. These are the final figures.'
+                : 'Draft. Figures appear once the study is live.'}
+          </p>
+        </div>
+        <p className="text-xs text-ink-muted" aria-live="polite">
+          Updated <span className="font-mono">{clock(s.generatedAt)}</span>
+        </p>
+      </div>
+
+      <PanelErrorBoundary title="The sample flow could not be shown">
+        <SampleFlow stats={s} />
+      </PanelErrorBoundary>
+
+      <div className="grid gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
+        <Card title="How far respondents got">
+          <PanelErrorBoundary>
+            <DropOffTable steps={s.dropOff} starts={s.counts.starts} />
+          </PanelErrorBoundary>
+        </Card>
+        <div className="space-y-6">
+          <Card title="Completes per block and version">
+            <CompletesBreakdown stats={s} />
+          </Card>
+          <Card title="Per day">
+            <PanelErrorBoundary>
+              <DailyChart daily={s.daily} />
+            </PanelErrorBoundary>
+          </Card>
+        </div>
+      </div>
+
+      <Card title="Invitations by e-mail">
+        <div className="space-y-6">
+          <InvitationSummary invitations={s.invitations} />
+          {can('fieldwork:manage') ? (
+            <>
+              <Alert tone="info">
+                Invite only people who agreed to be contacted for research, and keep the list as
+                your ethics approval and data-protection law require. Every e-mail carries a link to
+                unsubscribe, which is honoured by all later sends.
+              </Alert>
+              <div className="grid gap-6 lg:grid-cols-2">
+                <section aria-labelledby="upload-heading" className="space-y-2">
+                  <h3 id="upload-heading" className="text-sm font-semibold text-ink">
+                    Add people
+                  </h3>
+                  <InviteeUpload teamId={teamId} studyId={studyId} onImported={refreshStats} />
+                </section>
+                <section aria-labelledby="send-heading" className="space-y-2">
+                  <h3 id="send-heading" className="text-sm font-semibold text-ink">
+                    Send
+                  </h3>
+                  <SendPanel teamId={teamId} studyId={studyId} live={live} onSent={refreshStats} />
+                </section>
+              </div>
+            </>
+          ) : null}
+          {can('personal:read') && s.invitations.total > 0 && (
+            <section aria-labelledby="list-heading" className="space-y-2">
+              <h3 id="list-heading" className="text-sm font-semibold text-ink">
+                The list
+              </h3>
+              <InviteeTable teamId={teamId} studyId={studyId} canManage={can('fieldwork:manage')} />
+            </section>
+          )}
+        </div>
+      </Card>
+    </div>
+  );
+}

@@ -1,0 +1,166 @@
+/**
+ * Responses section: respondents with automatic quality flags and the include/exclude
+ * decisions that estimation uses. Every role reads it; personal columns come only to roles
+ * allowed to see them, and only analysts, editors and owners change inclusion.
+ */
+import { useState } from 'react';
+import { useParams, type LoaderFunctionArgs } from 'react-router';
+import type { ListResponsesQuery, QualityFlagKey } from '@shared/schemas/responses';
+import { Alert, Card, EmptyState, Spinner } from '@/components/ui/feedback';
+import { ErrorText, PanelErrorBoundary } from '@/components/ui/error-boundary';
+import { Button } from '@/components/ui/button';
+import { SelectField } from '@/components/ui/field';
+import { useCurrentTeam } from '@/features/auth/hooks/use-current-team';
+import { useResponses } from '@/features/responses/api/list-responses';
+import { QualitySummary } from '@/features/responses/components/quality-summary';
+import { ResponsesTable } from '@/features/responses/components/responses-table';
+import { QualitySettingsForm } from '@/features/responses/components/quality-settings-form';
+import { ExcludeFlaggedForm } from '@/features/responses/components/exclude-flagged-form';
+import { statusLabels } from '@/features/responses/utils/labels';
+
+export function loader(_args: LoaderFunctionArgs) {
+  return null;
+}
+
+const PAGE_SIZE = 50;
+type Filters = Pick<ListResponsesQuery, 'status' | 'included' | 'flag'> & {
+  sort: ListResponsesQuery['sort'];
+  order: ListResponsesQuery['order'];
+};
+
+export function Component() {
+  const { teamId = '', studyId = '' } = useParams();
+  const { can } = useCurrentTeam();
+  const canManage = can('responses:manage');
+  const [filters, setFilters] = useState<Filters>({ sort: 'started', order: 'desc' });
+  const [page, setPage] = useState(1);
+  const list = useResponses(teamId, studyId, { ...filters, page, pageSize: PAGE_SIZE });
+  const set = (patch: Partial<Filters>) => {
+    setFilters((f) => ({ ...f, ...patch }));
+    setPage(1);
+  };
+
+  if (list.isPending) return <Spinner label="Loading responses…" />;
+  if (list.error) return <ErrorText error={list.error} />;
+  const data = list.data;
+  const pages = Math.max(1, Math.ceil(data.total / PAGE_SIZE));
+
+  return (
+    <div className="space-y-6">
+      <div>
+        <h2 className="text-xl font-semibold text-ink">Responses</h2>
+        <p className="text-sm text-ink-soft">
+          Quality flags are computed from the stored answers. They point at respondents to look at;
+          whether to exclude them is your decision, recorded with a reason.
+        </p>
+      </div>
+
+      {data.summary.respondents === 0 ? (
+        <EmptyState title="No respondents yet">
+          Respondents appear here as soon as they open the survey link.
+        </EmptyState>
+      ) : (
+        <>
+          <PanelErrorBoundary>
+            <QualitySummary
+              summary={data.summary}
+              active={filters.flag}
+              onPick={(flag: QualityFlagKey | 'any' | undefined) => set({ flag })}
+            />
+          </PanelErrorBoundary>
+
+          <div className="grid grid-cols-2 gap-2 sm:grid-cols-4">
+            <SelectField
+              label="Status"
+              value={filters.status ?? ''}
+              onChange={(e) => set({ status: (e.target.value || undefined) as Filters['status'] })}
+            >
+              <option value="">All</option>
+              {Object.entries(statusLabels).map(([v, l]) => (
+                <option key={v} value={v}>
+                  {l}
+                </option>
+              ))}
+            </SelectField>
+            <SelectField
+              label="Estimation"
+              value={filters.included ?? ''}
+              onChange={(e) =>
+                set({ included: (e.target.value || undefined) as Filters['included'] })
+              }
+            >
+              <option value="">Included and excluded</option>
+              <option value="true">Included</option>
+              <option value="false">Excluded</option>
+            </SelectField>
+            <SelectField
+              label="Sort by"
+              wrapperClassName="col-span-2 sm:col-span-1"
+              value={`${filters.sort}:${filters.order}`}
+              onChange={(e) => {
+                const [sort, order] = e.target.value.split(':') as [
+                  Filters['sort'],
+                  Filters['order'],
+                ];
+                set({ sort, order });
+              }}
+            >
+              <option value="started:desc">Newest first</option>
+              <option value="started:asc">Oldest first</option>
+              <option value="duration:asc">Fastest first</option>
+              <option value="duration:desc">Slowest first</option>
+            </SelectField>
+          </div>
+
+          {data.total === 0 ? (
+            <p className="text-sm text-ink-muted">No respondent matches these filters.</p>
+          ) : (
+            <ResponsesTable teamId={teamId} studyId={studyId} list={data} canManage={canManage} />
+          )}
+          {pages > 1 && (
+            <nav
+              aria-label="Respondent pages"
+              className="flex items-center justify-end gap-2 text-sm"
+            >
+              <Button
+                size="sm"
+                variant="secondary"
+                disabled={page <= 1}
+                onClick={() => setPage(page - 1)}
+              >
+                Previous
+              </Button>
+              <span className="num text-ink-soft">
+                {page} / {pages} · {data.total} respondents
+              </span>
+              <Button
+                size="sm"
+                variant="secondary"
+                disabled={page >= pages}
+                onClick={() => setPage(page + 1)}
+              >
+                Next
+              </Button>
+            </nav>
+          )}
+
+          {canManage && (
+            <div className="grid gap-6 lg:grid-cols-2">
+              <Card title="Speeders">
+                <QualitySettingsForm teamId={teamId} studyId={studyId} settings={data.settings} />
+              </Card>
+              <Card title="Exclude flagged respondents">
+                <ExcludeFlaggedForm teamId={teamId} studyId={studyId} summary={data.summary} />
+              </Card>
+            </div>
+          )}
+          <Alert tone="info">
+            Published guidance is to flag and compare results with and without the flagged
+            respondents rather than delete them automatically. Exclusions only affect new estimation
+            runs.
+          </Alert>
+        </>
+      )}
+    </div>
+  );
+}

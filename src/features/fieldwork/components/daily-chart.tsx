@@ -1,0 +1,49 @@
+/** Starts and completes per day (Okabe–Ito sky blue and bluish green). */
+import {
+  BarController,
+  BarElement,
+  CategoryScale,
+  Chart as ChartJS,
+  Legend,
+  LinearScale,
+  Tooltip,
+} from 'chart.js';
+import { Bar } from 'react-chartjs-2';
+import type { FieldworkStats } from '@shared/schemas/fieldwork';
+
+ChartJS.register(BarController, BarElement, CategoryScale, LinearScale, Tooltip, Legend);
+
+const SKY = '#56b4e9';
+const GREEN = '#009e73';
+
+export function DailyChart({ daily }: { daily: FieldworkStats['daily'] }) {
+  if (daily.length === 0) return <p className="text-sm text-ink-muted">No respondents yet.</p>;
+  const total = daily.reduce((n, d) => n + d.completed, 0);
+  return (
+    <figure>
+      <div className="h-48 sm:h-56">
+        <Bar
+          role="img"
+          aria-label={`Starts and completes per day over ${daily.length} days, ${total} completes in all`}
+          data={{
+            labels: daily.map((d) => d.date.slice(5)),
+            datasets: [
+              { label: 'Starts', data: daily.map((d) => d.starts), backgroundColor: SKY },
+              { label: 'Completes', data: daily.map((d) => d.completed), backgroundColor: GREEN },
+            ],
+          }}
+          options={{
+            maintainAspectRatio: false,
+            animation: false,
+            plugins: { legend: { position: 'bottom', labels: { boxWidth: 12 } } },
+            scales: {
+              x: { grid: { display: false }, ticks: { maxRotation: 0, autoSkipPadding: 8 } },
+              y: { beginAtZero: true, ticks: { precision: 0 } },
+            },
+          }}
+        />
+      </div>
+      <figcaption className="mt-1 text-xs text-ink-muted">Days in UTC.</figcaption>
+    </figure>
+  );
+}

@@ -1,0 +1,21 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api } from '@/lib/api-client';
+import type { SendInvitationsInput, SendResult } from '@shared/schemas/invitees';
+import { inviteeKeys, inviteesPath } from './invitee-keys';
+
+/** First invitations to everybody on the list who has not been invited (or the given ids). */
+export function sendInvitations(
+  teamId: string,
+  studyId: string,
+  input: SendInvitationsInput,
+): Promise<SendResult> {
+  return api.post<SendResult>(`${inviteesPath(teamId, studyId)}/send`, input);
+}
+
+export function useSendInvitations(teamId: string, studyId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: SendInvitationsInput) => sendInvitations(teamId, studyId, input),
+    onSuccess: () => qc.invalidateQueries({ queryKey: inviteeKeys.lists(teamId, studyId) }),
+  });
+}

@@ -1,0 +1,109 @@
+import type { InviteeCsvPreview } from '@shared/schemas/invitees';
+import { Alert } from '@/components/ui/feedback';
+
+const fieldLabels: Record<string, string> = {
+  email: 'e-mail',
+  name: 'name',
+  externalId: 'external id',
+};
+
+/** What an import would do: the column mapping, a sample of rows and every row-level problem. */
+export function CsvPreview({ preview }: { preview: InviteeCsvPreview }) {
+  const ignored = preview.columns.filter((c) => c.field === null);
+  return (
+    <div className="space-y-4">
+      <p className="text-sm text-ink">
+        <span className="num font-medium">{preview.totalRows}</span> rows read:{' '}
+        <span className="num font-medium text-success">{preview.validCount}</span> ready to import,{' '}
+        <span
+          className={preview.errorCount > 0 ? 'num font-medium text-danger' : 'num font-medium'}
+        >
+          {preview.errorCount}
+        </span>{' '}
+        with problems.
+      </p>
+      {preview.columns.length > 0 && (
+        <p className="text-xs text-ink-soft">
+          Columns:{' '}
+          {preview.columns
+            .filter((c) => c.field)
+            .map((c) => `“${c.header}” → ${fieldLabels[c.field!]}`)
+            .join(', ')}
+          {ignored.length > 0 && `; ignored: ${ignored.map((c) => `“${c.header}”`).join(', ')}`}
+        </p>
+      )}
+      {preview.errors.length > 0 && (
+        <div>
+          <h4 className="mb-1 text-sm font-semibold text-danger">Problems</h4>
+          <div className="max-h-64 overflow-auto rounded-md border border-danger/30">
+            <table className="w-full text-sm">
+              <thead className="sticky top-0 bg-danger-soft text-xs text-ink-soft">
+                <tr>
+                  <th scope="col" className="px-2 py-1.5 text-right font-medium">
+                    Row
+                  </th>
+                  <th scope="col" className="px-2 py-1.5 text-left font-medium">
+                    Column
+                  </th>
+                  <th scope="col" className="px-2 py-1.5 text-left font-medium">
+                    Problem
+                  </th>
+                </tr>
+              </thead>
+              <tbody>
+                {preview.errors.map((e, i) => (
+                  <tr key={`${e.row}-${e.column}-${i}`} className="border-t border-line/60">
+                    <td className="num px-2 py-1">{e.row}</td>
+                    <td className="px-2 py-1">{e.column ?? '—'}</td>
+                    <td className="px-2 py-1">{e.message}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+          {preview.errorCount > preview.errors.length && (
+            <p className="mt-1 text-xs text-ink-muted">Only the first problems are listed.</p>
+          )}
+        </div>
+      )}
+      {preview.sample.length > 0 && (
+        <div>
+          <h4 className="mb-1 text-sm font-semibold text-ink">First valid rows</h4>
+          <div className="overflow-x-auto rounded-md border border-line">
+            <table className="w-full min-w-[28rem] text-sm">
+              <thead className="bg-canvas text-xs text-ink-soft">
+                <tr>
+                  <th scope="col" className="px-2 py-1.5 text-right font-medium">
+                    Row
+                  </th>
+                  <th scope="col" className="px-2 py-1.5 text-left font-medium">
+                    E-mail
+                  </th>
+                  <th scope="col" className="px-2 py-1.5 text-left font-medium">
+                    Name
+                  </th>
+                  <th scope="col" className="px-2 py-1.5 text-left font-medium">
+                    External id
+                  </th>
+                </tr>
+              </thead>
+              <tbody>
+                {preview.sample.slice(0, 5).map((r) => (
+                  <tr key={r.row} className="border-t border-line/60">
+                    <td className="num px-2 py-1">{r.row}</td>
+                    <td className="px-2 py-1">{r.email}</td>
+                    <td className="px-2 py-1">{r.name || '—'}</td>
+                    <td className="px-2 py-1 font-mono text-xs">{r.externalId ?? '—'}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+        </div>
+      )}
+      {preview.validCount === 0 && preview.errors.length === 0 && (
+        <Alert tone="warning">The file has no invitees.</Alert>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,161 @@
+/** The invitation list: state per person, filters, search and paging. Personal data. */
+import { useState } from 'react';
+import type { InviteeState } from '@shared/schemas/invitees';
+import { Button } from '@/components/ui/button';
+import { SelectField, TextField } from '@/components/ui/field';
+import { Spinner } from '@/components/ui/feedback';
+import { ErrorText } from '@/components/ui/error-boundary';
+import { useInvitees } from '../api/list-invitees';
+import { useDeleteInvitee } from '../api/delete-invitee';
+import { InviteeStateBadge, inviteeStateOptions } from './invitee-state-badge';
+
+const PAGE_SIZE = 25;
+const day = (iso: string | null) => (iso ? iso.slice(0, 10) : '—');
+
+export function InviteeTable({
+  teamId,
+  studyId,
+  canManage,
+}: {
+  teamId: string;
+  studyId: string;
+  canManage: boolean;
+}) {
+  const [state, setState] = useState<InviteeState | ''>('');
+  const [search, setSearch] = useState('');
+  const [page, setPage] = useState(1);
+  const query = {
+    state: state || undefined,
+    search: search || undefined,
+    page,
+    pageSize: PAGE_SIZE,
+  };
+  const list = useInvitees(teamId, studyId, query);
+  const remove = useDeleteInvitee(teamId, studyId);
+  const pages = list.data ? Math.max(1, Math.ceil(list.data.total / PAGE_SIZE)) : 1;
+
+  return (
+    <div className="space-y-3">
+      <div className="grid gap-2 sm:grid-cols-[12rem_1fr]">
+        <SelectField
+          label="Show"
+          value={state}
+          onChange={(e) => {
+            setState(e.target.value as InviteeState | '');
+            setPage(1);
+          }}
+        >
+          <option value="">Everybody</option>
+          {inviteeStateOptions.map((o) => (
+            <option key={o.value} value={o.value}>
+              {o.label}
+            </option>
+          ))}
+        </SelectField>
+        <TextField
+          label="Search"
+          type="search"
+          placeholder="E-mail, name or external id"
+          value={search}
+          onChange={(e) => {
+            setSearch(e.target.value);
+            setPage(1);
+          }}
+        />
+      </div>
+      {list.isPending && <Spinner />}
+      <ErrorText error={list.error ?? remove.error} />
+      {list.data && list.data.total === 0 && (
+        <p className="text-sm text-ink-muted">
+          Nobody on the list{state || search ? ' matches' : ' yet'}.
+        </p>
+      )}
+      {list.data && list.data.total > 0 && (
+        <div className="overflow-x-auto rounded-md border border-line">
+          <table className="w-full min-w-[40rem] text-sm">
+            <caption className="sr-only">Invitees</caption>
+            <thead className="bg-canvas text-xs text-ink-soft">
+              <tr>
+                <th scope="col" className="px-3 py-2 text-left font-medium">
+                  E-mail
+                </th>
+                <th scope="col" className="px-3 py-2 text-left font-medium">
+                  Name
+                </th>
+                <th scope="col" className="px-3 py-2 text-left font-medium">
+                  External id
+                </th>
+                <th scope="col" className="px-3 py-2 text-left font-medium">
+                  State
+                </th>
+                <th scope="col" className="px-3 py-2 text-right font-medium">
+                  Invited
+                </th>
+                <th scope="col" className="px-3 py-2 text-right font-medium">
+                  Reminders
+                </th>
+                {canManage && (
+                  <th scope="col" className="px-3 py-2">
+                    <span className="sr-only">Actions</span>
+                  </th>
+                )}
+              </tr>
+            </thead>
+            <tbody>
+              {list.data.items.map((i) => (
+                <tr key={i.id} className="border-t border-line/60">
+                  <td className="px-3 py-1.5">{i.email}</td>
+                  <td className="px-3 py-1.5">{i.name || '—'}</td>
+                  <td className="px-3 py-1.5 font-mono text-xs">{i.externalId ?? '—'}</td>
+                  <td className="px-3 py-1.5">
+                    <InviteeStateBadge state={i.state} />
+                  </td>
+                  <td className="num px-3 py-1.5">{day(i.invitedAt)}</td>
+                  <td className="num px-3 py-1.5">{i.reminderCount}</td>
+                  {canManage && (
+                    <td className="px-3 py-1 text-right">
+                      <Button
+                        size="sm"
+                        variant="ghost"
+                        aria-label={`Remove ${i.email} from the list`}
+                        onClick={() => {
+                          if (window.confirm(`Remove ${i.email} from the invitation list?`))
+                            remove.mutate(i.id);
+                        }}
+                      >
+                        Remove
+                      </Button>
+                    </td>
+                  )}
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
+      {list.data && pages > 1 && (
+        <nav aria-label="Invitee pages" className="flex items-center justify-end gap-2 text-sm">
+          <Button
+            size="sm"
+            variant="secondary"
+            disabled={page <= 1}
+            onClick={() => setPage(page - 1)}
+          >
+            Previous
+          </Button>
+          <span className="num text-ink-soft">
+            {page} / {pages}
+          </span>
+          <Button
+            size="sm"
+            variant="secondary"
+            disabled={page >= pages}
+            onClick={() => setPage(page + 1)}
+          >
+            Next
+          </Button>
+        </nav>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,117 @@
+/**
+ * Send personal links to everybody not yet invited, or remind those who have not finished.
+ * The wording can be changed; the personal link and the unsubscribe link are always added.
+ */
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { z } from 'zod';
+import { Button } from '@/components/ui/button';
+import { Alert } from '@/components/ui/feedback';
+import { ErrorText } from '@/components/ui/error-boundary';
+import { TextAreaField, TextField } from '@/components/ui/field';
+import type { SendResult } from '@shared/schemas/invitees';
+import { useSendInvitations } from '../api/send-invitations';
+import { useSendReminders } from '../api/send-reminders';
+
+const wordingSchema = z.object({
+  subject: z.string().trim().max(150, 'Use at most 150 characters'),
+  message: z.string().trim().max(4000, 'Use at most 4000 characters'),
+});
+type Wording = z.infer<typeof wordingSchema>;
+
+const orUndefined = (s: string) => (s.trim() === '' ? undefined : s.trim());
+
+function describe(kind: 'invitations' | 'reminders', r: SendResult): string {
+  const noun = kind === 'invitations' ? 'invitation' : 'reminder';
+  const parts = [`${r.sent} ${noun}${r.sent === 1 ? '' : 's'} sent`];
+  if (r.failed > 0) parts.push(`${r.failed} could not be delivered and will be retried next time`);
+  if (r.sent === 0 && r.failed === 0)
+    parts.push(
+      kind === 'invitations'
+        ? 'everybody on the list has been invited already'
+        : 'nobody is due a reminder (finished, unsubscribed or reminded within the hour)',
+    );
+  return `${parts.join('; ')}.`;
+}
+
+export function SendPanel({
+  teamId,
+  studyId,
+  live,
+  onSent,
+}: {
+  teamId: string;
+  studyId: string;
+  live: boolean;
+  onSent?: () => void;
+}) {
+  const invite = useSendInvitations(teamId, studyId);
+  const remind = useSendReminders(teamId, studyId);
+  const [last, setLast] = useState<string | null>(null);
+  const form = useForm<Wording>({
+    resolver: zodResolver(wordingSchema),
+    defaultValues: { subject: '', message: '' },
+  });
+  const submit = (kind: 'invitations' | 'reminders') =>
+    form.handleSubmit((w) => {
+      const input = { subject: orUndefined(w.subject), message: orUndefined(w.message) };
+      const m = kind === 'invitations' ? invite : remind;
+      setLast(null);
+      m.mutate(input, {
+        onSuccess: (r) => {
+          setLast(describe(kind, r));
+          onSent?.();
+        },
+      });
+    });
+  const { errors } = form.formState;
+
+  return (
+    <form className="space-y-4" onSubmit={(e) => e.preventDefault()} noValidate>
+      {!live && (
+        <Alert tone="info">
+          E-mails can be sent while the study is live, so that the links work when people open them.
+        </Alert>
+      )}
+      <details className="rounded-md border border-line px-3 py-2">
+        <summary className="cursor-pointer text-sm font-medium text-ink">
+          Change the wording
+        </summary>
+        <div className="mt-3 space-y-3">
+          <TextField
+            label="Subject"
+            placeholder="Invitation: <study name>"
+            error={errors.subject?.message}
+            {...form.register('subject')}
+          />
+          <TextAreaField
+            label="Message"
+            hint="The personal link and the unsubscribe link are added below your message."
+            error={errors.message?.message}
+            {...form.register('message')}
+          />
+        </div>
+      </details>
+      <div className="flex flex-wrap gap-2">
+        <Button disabled={!live} busy={invite.isPending} onClick={submit('invitations')}>
+          Send invitations
+        </Button>
+        <Button
+          variant="secondary"
+          disabled={!live}
+          busy={remind.isPending}
+          onClick={submit('reminders')}
+        >
+          Send reminders
+        </Button>
+      </div>
+      <p className="text-xs text-ink-muted">
+        Invitations go to everyone on the list not yet invited. Reminders go to those invited who
+        have not finished, at most once an hour. Unsubscribed people never get another e-mail.
+      </p>
+      <ErrorText error={invite.error ?? remind.error} />
+      {last && <Alert tone="success">{last}</Alert>}
+    </form>
+  );
+}

@@ -1,0 +1,20 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api } from '@/lib/api-client';
+import type { ExcludeFlaggedInput } from '@shared/schemas/responses';
+import { responseKeys, responsesPath } from './response-keys';
+
+export function excludeFlagged(
+  teamId: string,
+  studyId: string,
+  input: ExcludeFlaggedInput,
+): Promise<{ excluded: number }> {
+  return api.post<{ excluded: number }>(`${responsesPath(teamId, studyId)}/exclude-flagged`, input);
+}
+
+export function useExcludeFlagged(teamId: string, studyId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: ExcludeFlaggedInput) => excludeFlagged(teamId, studyId, input),
+    onSuccess: () => qc.invalidateQueries({ queryKey: responseKeys.lists(teamId, studyId) }),
+  });
+}

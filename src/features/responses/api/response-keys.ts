@@ -1,0 +1,14 @@
+import type { ListResponsesQuery } from '@shared/schemas/responses';
+
+/** Query keys of the responses feature, broad to narrow. */
+export const responseKeys = {
+  all: ['responses'] as const,
+  study: (teamId: string, studyId: string) => [...responseKeys.all, teamId, studyId] as const,
+  lists: (teamId: string, studyId: string) =>
+    [...responseKeys.study(teamId, studyId), 'list'] as const,
+  list: (teamId: string, studyId: string, query: Partial<ListResponsesQuery>) =>
+    [...responseKeys.lists(teamId, studyId), query] as const,
+};
+
+export const responsesPath = (teamId: string, studyId: string) =>
+  `/teams/${teamId}/studies/${studyId}/responses`;

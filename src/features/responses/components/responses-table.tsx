@@ -1,0 +1,92 @@
+/**
+ * Respondents with status, time, flags and the include/exclude decision. External ids and
+ * e-mail addresses appear only when the API sent them (roles with personal data access).
+ */
+import type { ResponseList } from '@shared/schemas/responses';
+import { FlagBadges } from './flag-badges';
+import { InclusionCell } from './inclusion-cell';
+import { formatDuration, statusLabels } from '../utils/labels';
+
+const when = (iso: string) => iso.slice(0, 16).replace('T', ' ');
+
+export function ResponsesTable({
+  teamId,
+  studyId,
+  list,
+  canManage,
+}: {
+  teamId: string;
+  studyId: string;
+  list: ResponseList;
+  canManage: boolean;
+}) {
+  const personal = list.personalData;
+  return (
+    <div className="overflow-x-auto rounded-md border border-line">
+      <table className="w-full min-w-[44rem] text-sm">
+        <caption className="sr-only">Respondents</caption>
+        <thead className="bg-canvas text-xs text-ink-soft">
+          <tr>
+            <th scope="col" className="px-3 py-2 text-left font-medium">
+              Respondent
+            </th>
+            <th scope="col" className="px-3 py-2 text-left font-medium">
+              Status
+            </th>
+            <th scope="col" className="px-3 py-2 text-right font-medium">
+              Version · block
+            </th>
+            <th scope="col" className="px-3 py-2 text-right font-medium">
+              Time
+            </th>
+            <th scope="col" className="px-3 py-2 text-left font-medium">
+              Flags
+            </th>
+            {personal && (
+              <th scope="col" className="px-3 py-2 text-left font-medium">
+                External id / e-mail
+              </th>
+            )}
+            <th scope="col" className="px-3 py-2 text-left font-medium">
+              Estimation
+            </th>
+          </tr>
+        </thead>
+        <tbody>
+          {list.items.map((r) => (
+            <tr
+              key={r.id}
+              className={
+                r.included
+                  ? 'border-t border-line/60 align-top'
+                  : 'border-t border-line/60 bg-canvas align-top'
+              }
+            >
+              <th scope="row" className="px-3 py-2 text-left font-normal">
+                <span className="font-mono text-xs">{r.id.slice(0, 8)}</span>
+                <span className="block text-xs text-ink-muted">{when(r.startedAt)}</span>
+              </th>
+              <td className="px-3 py-2">{statusLabels[r.status]}</td>
+              <td className="num px-3 py-2">
+                {r.version} · {r.block}
+              </td>
+              <td className="num px-3 py-2">{formatDuration(r.durationMs)}</td>
+              <td className="px-3 py-2">
+                <FlagBadges flags={r.flags} />
+              </td>
+              {personal && (
+                <td className="px-3 py-2 text-xs">
+                  <span className="block font-mono">{r.externalId ?? '—'}</span>
+                  {r.email && <span className="block text-ink-soft">{r.email}</span>}
+                </td>
+              )}
+              <td className="px-3 py-2">
+                <InclusionCell teamId={teamId} studyId={studyId} row={r} canManage={canManage} />
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}

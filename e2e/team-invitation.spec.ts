@@ -30,6 +30,7 @@ test('an owner invites an analyst, who joins from the e-mailed link with read-on
 
   await test.step('the owner cannot leave the team without an owner', async () => {
     await page.getByLabel(`Role of ${owner.name}`).selectOption('viewer');
+    await page.getByRole('button', { name: `Save role of ${owner.name}` }).click();
     await expect(page.getByRole('alert')).toContainText('A team needs at least one owner');
     await expect(page.getByLabel(`Role of ${owner.name}`)).toHaveValue('owner');
     await signOut(page);

@@ -53,13 +53,15 @@ export function MemberList({
       ? remove.variables?.userId
       : undefined;
 
-  const onChangeRole = (m: Member, role: Role) => {
+  const onChangeRole = async (m: Member, role: Role) => {
     remove.reset();
     setNotice('');
-    changeRole.mutate(
-      { teamId, userId: m.userId, role },
-      { onSuccess: () => setNotice(`${m.name} is now ${roleLabels[role].toLowerCase()}.`) },
-    );
+    try {
+      await changeRole.mutateAsync({ teamId, userId: m.userId, role });
+      setNotice(`${m.name} is now ${roleLabels[role].toLowerCase()}.`);
+    } catch {
+      // Shown by ProblemAlert from the mutation state.
+    }
   };
   const onRemove = (m: Member) => {
     changeRole.reset();

@@ -21,10 +21,13 @@ export function MemberRow({
   isSelf: boolean;
   canManage: boolean;
   busy: boolean;
-  onChangeRole: (role: Role) => void;
+  /** Resolves once the change is saved or refused. */
+  onChangeRole: (role: Role) => Promise<unknown>;
   onRemove: () => void;
 }) {
   const [confirming, setConfirming] = useState(false);
+  // The select only proposes a role; Save sends it, so arrowing through options changes nothing.
+  const [draft, setDraft] = useState<Role | null>(null);
   const removeButton = useRef<HTMLButtonElement>(null);
   const selectId = `role-${member.userId}`;
 
@@ -46,16 +49,19 @@ export function MemberRow({
           <p className="text-xs text-ink-muted">Joined {formatDate(member.joinedAt)}</p>
         </div>
         {canManage ? (
-          <div className="flex items-center gap-2">
+          <div className="flex flex-wrap items-center gap-2">
             <label htmlFor={selectId} className="sr-only">
               Role of {member.name}
             </label>
             <select
               id={selectId}
               className={selectClass}
-              value={member.role}
+              value={draft ?? member.role}
               disabled={busy}
-              onChange={(e) => onChangeRole(e.target.value as Role)}
+              onChange={(e) => {
+                const role = e.target.value as Role;
+                setDraft(role === member.role ? null : role);
+              }}
             >
               {roles.map((r) => (
                 <option key={r} value={r}>
@@ -63,6 +69,20 @@ export function MemberRow({
                 </option>
               ))}
             </select>
+            {draft && (
+              <>
+                <Button
+                  size="sm"
+                  busy={busy}
+                  onClick={() => void onChangeRole(draft).finally(() => setDraft(null))}
+                >
+                  Save role<span className="sr-only"> of {member.name}</span>
+                </Button>
+                <Button variant="ghost" size="sm" disabled={busy} onClick={() => setDraft(null)}>
+                  Undo<span className="sr-only"> role change of {member.name}</span>
+                </Button>
+              </>
+            )}
             <Button
               ref={removeButton}
               variant="ghost"

@@ -83,3 +83,14 @@ export async function getRespondentFilter(db: DbOrTx, params: { id: string; stud
     .where(and(eq(respondentFilters.id, params.id), eq(respondentFilters.studyId, params.studyId)));
   return row ?? null;
 }
+
+export async function insertRespondentFilter(
+  db: DbOrTx,
+  params: { studyId: string; name: string; definition: unknown },
+) {
+  const [row] = await db
+    .insert(respondentFilters)
+    .values(params)
+    .returning({ id: respondentFilters.id, name: respondentFilters.name });
+  return row;
+}

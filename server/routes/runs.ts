@@ -7,7 +7,11 @@ import type { AppDeps } from '../deps';
 import { parseBody, parseParams } from '../middleware/validate';
 import { memberOf, requireTeam, requireUser } from '../middleware/auth';
 import { studyParamsSchema } from '../services/study-access';
-import { createRunSchema, runParamsSchema } from '../../shared/schemas/run';
+import {
+  createRespondentFilterSchema,
+  createRunSchema,
+  runParamsSchema,
+} from '../../shared/schemas/run';
 import * as runs from '../services/runs';
 
 export function createRunsRouter(deps: AppDeps): Router {
@@ -28,6 +32,11 @@ export function createRunsRouter(deps: AppDeps): Router {
     const { studyId } = parseParams(studyParamsSchema, req);
     const input = parseBody(createRunSchema, req);
     res.status(201).json(await runs.createRun(deps, memberOf(req), studyId, input));
+  });
+  router.post('/filters', manage, async (req, res) => {
+    const { studyId } = parseParams(studyParamsSchema, req);
+    const input = parseBody(createRespondentFilterSchema, req);
+    res.status(201).json(await runs.saveRespondentFilter(deps, memberOf(req), studyId, input));
   });
   router.get('/:runId', read, async (req, res) => {
     const { studyId, runId } = parseParams(runParamsSchema, req);

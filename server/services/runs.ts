@@ -18,13 +18,20 @@ import {
 } from '../../db/queries/runs';
 import {
   getRespondentFilter,
+  insertRespondentFilter,
   listIncludedRespondents,
   listRespondentFilters,
   listStudyVersions,
 } from '../../db/queries/run-data';
 import { listTasteProfiles } from '../../db/queries/taste-profiles';
 import { studyDefinitionSchema } from '../../shared/schemas/study-definition';
-import type { CreateRun, ConditionalMeans, Run, RunOptions } from '../../shared/schemas/run';
+import type {
+  ConditionalMeans,
+  CreateRun,
+  RespondentFilterDefinition,
+  Run,
+  RunOptions,
+} from '../../shared/schemas/run';
 import type { EstimationSpec } from '../../shared/schemas/estimation-spec';
 
 export const ESTIMATION_JOB = 'estimation-run';
@@ -174,4 +181,15 @@ export async function getConditionalMeans(
     ),
     effectiveDraws: profiles.map((p) => p.effectiveDraws),
   };
+}
+
+/** Saves a named respondent filter that runs can use. */
+export async function saveRespondentFilter(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  input: { name: string; definition: RespondentFilterDefinition },
+) {
+  await loadStudy(deps, member.teamId, studyId);
+  return insertRespondentFilter(deps.db, { studyId, ...input });
 }

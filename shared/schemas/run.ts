@@ -15,6 +15,39 @@ export const respondentSelectionSchema = z.object({
   filterId: z.uuid('Choose a saved filter').nullable().default(null),
 });
 
+/**
+ * A saved respondent filter (respondent_filters.definition): respondent ids, background
+ * question conditions, or both (all must hold). A condition holds when the answer to the
+ * background question with key `question` is, or contains, one of `values` (option ids or
+ * numbers).
+ */
+export const respondentFilterDefinitionSchema = z
+  .object({
+    respondentIds: z.array(z.string().min(1).max(64)).max(100_000).optional(),
+    conditions: z
+      .array(
+        z.object({
+          question: z.string().min(1, 'Choose a question').max(40),
+          values: z
+            .array(z.union([z.string().max(200), z.number(), z.boolean()]))
+            .min(1, 'Choose at least one answer')
+            .max(50),
+        }),
+      )
+      .max(20)
+      .optional(),
+  })
+  .refine((d) => (d.respondentIds?.length ?? 0) > 0 || (d.conditions?.length ?? 0) > 0, {
+    message: 'A filter needs respondents or at least one condition',
+  });
+export type RespondentFilterDefinition = z.infer<typeof respondentFilterDefinitionSchema>;
+
+export const createRespondentFilterSchema = z.object({
+  name: z.string().trim().min(1, 'Give the filter a name').max(120),
+  definition: respondentFilterDefinitionSchema,
+});
+export type CreateRespondentFilterInput = z.input<typeof createRespondentFilterSchema>;
+
 export const createRunSchema = z.object({
   name: z.string().trim().max(120, 'Keep the name under 120 characters').default(''),
   spec: estimationSpecSchema,

@@ -1,32 +1,16 @@
 /**
- * Applies a saved respondent filter (respondent_filters.definition) to the respondents a run
- * would use. A definition lists respondent ids, background-question conditions, or both (all
- * must hold): `{ respondentIds?: string[], conditions?: [{ question, values }] }`, where a
- * condition holds when the answer to background question `question` is (or contains) one of
- * `values`.
+ * Applies a saved respondent filter (respondent_filters.definition, see
+ * respondentFilterDefinitionSchema in shared/schemas/run.ts) to the respondents a run would use.
  */
-import { z } from 'zod';
+import { respondentFilterDefinitionSchema } from '../../../shared/schemas/run';
 import { StudyDataError } from './study-data-error';
-
-export const respondentFilterDefinitionSchema = z.object({
-  respondentIds: z.array(z.string()).optional(),
-  conditions: z
-    .array(
-      z.object({
-        question: z.string().min(1),
-        values: z.array(z.union([z.string(), z.number(), z.boolean()])).min(1),
-      }),
-    )
-    .optional(),
-});
-export type RespondentFilterDefinition = z.infer<typeof respondentFilterDefinitionSchema>;
 
 /** Scalar answers a stored value stands for: itself, its option id(s), or list entries. */
 function answerTokens(value: unknown): unknown[] {
   if (Array.isArray(value)) return value.flatMap(answerTokens);
   if (value && typeof value === 'object') {
     const v = value as Record<string, unknown>;
-    return ['optionId', 'optionIds', 'value', 'values'].flatMap((k) =>
+    return ['optionId', 'optionIds', 'number', 'value', 'values'].flatMap((k) =>
       k in v ? answerTokens(v[k]) : [],
     );
   }

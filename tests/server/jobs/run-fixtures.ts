@@ -182,7 +182,7 @@ export async function seedRunStudy(
       studyId: study.id,
       clientId: `q-${n}`,
       screenKey: 'q:filter_tap',
-      value: n % 3 === 0 ? 'yes' : 'no',
+      value: { kind: 'single', optionId: n % 3 === 0 ? 'yes' : 'no' },
     });
     await db.insert(answers).values(rows);
   }

@@ -202,3 +202,36 @@ describe('POST /runs/:runId/cancel', () => {
     await team.outsider.post(`${base}/${created.body.id}/cancel`).expect(404);
   });
 });
+
+describe('POST /runs/filters', () => {
+  it.each<Role>(['owner', 'analyst'])(
+    'as %s, saves a filter the form then offers',
+    async (role) => {
+      const res = await team.agents[role]
+        .post(`${base}/filters`)
+        .send({
+          name: `Large households ${role}`,
+          definition: { conditions: [{ question: 'household_size', values: [4, 5] }] },
+        })
+        .expect(201);
+      const options = await team.agents.viewer.get(`${base}/options`).expect(200);
+      expect(options.body.filters).toContainEqual({ id: res.body.id, name: res.body.name });
+    },
+  );
+
+  it.each<Role>(['editor', 'viewer'])('as %s, returns 403', async (role) => {
+    await team.agents[role]
+      .post(`${base}/filters`)
+      .send({ name: 'x', definition: { respondentIds: ['a'] } })
+      .expect(403);
+  });
+
+  it('when the filter is empty, returns 400 with the field', async () => {
+    const res = await team.agents.analyst
+      .post(`${base}/filters`)
+      .send({ name: '', definition: {} })
+      .expect(400);
+    const paths = res.body.error.fields.map((f: { path: string }) => f.path);
+    expect(paths).toEqual(expect.arrayContaining(['name', 'definition']));
+  });
+});

@@ -5,6 +5,7 @@
  * 'personal:read'; the server leaves them out otherwise.
  */
 import { z } from 'zod';
+import type { StudyDefinition } from './study-definition';
 
 /**
  * A profile whose effective number of draws (Kish, 1/Σw²) is below this is flagged: its
@@ -165,13 +166,23 @@ export type RespondentChoice = {
   task: number;
   /** Screen order in which the respondent saw it (1-based), or null. */
   position: number | null;
-  alternatives: { index: number; label: string; levels: Record<string, string>; fixed: boolean }[];
+  alternatives: {
+    index: number;
+    label: string;
+    /** attribute name -> level label (readable). */
+    levels: Record<string, string>;
+    /** attribute id -> level id (for the task card). */
+    levelIds: Record<string, string>;
+    fixed: boolean;
+  }[];
   chosen: number | null;
   responseMs: number | null;
 };
 
 export type RespondentProfile = {
   header: TasteHeader;
+  /** The definition of the study version the respondent answered. */
+  definition: StudyDefinition;
   row: TasteRow;
   choices: RespondentChoice[];
 };

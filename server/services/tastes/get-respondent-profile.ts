@@ -43,6 +43,7 @@ export async function getRespondentProfile(
         index: j,
         label: getAlternativeLabel(definition, j),
         levels: describeLevels(definition, alt.levels),
+        levelIds: alt.levels,
         fixed: false,
       }),
     );
@@ -51,6 +52,7 @@ export async function getRespondentProfile(
         index: -1,
         label: fixed.label,
         levels: fixed.kind === 'status_quo' ? describeLevels(definition, fixed.levels) : {},
+        levelIds: fixed.kind === 'status_quo' ? fixed.levels : {},
         fixed: true,
       });
     return {
@@ -63,6 +65,7 @@ export async function getRespondentProfile(
   });
   return {
     header: ctx.header,
+    definition,
     row: toTasteRow(profile, ctx.header, answers.get(respondentId)),
     choices,
   };

@@ -1,0 +1,34 @@
+/** Query keys of the tastes feature, broad to narrow. */
+import type { ListTastesQuery } from '@shared/schemas/tastes';
+
+export type SegmentsParams = {
+  runId: string;
+  coefficient: string;
+  groupBy: 'task' | 'question';
+  task?: number;
+  question?: string;
+};
+
+export const tasteKeys = {
+  all: ['tastes'] as const,
+  study: (teamId: string, studyId: string) => [...tasteKeys.all, teamId, studyId] as const,
+  runs: (teamId: string, studyId: string) => [...tasteKeys.study(teamId, studyId), 'runs'] as const,
+  lists: (teamId: string, studyId: string) =>
+    [...tasteKeys.study(teamId, studyId), 'list'] as const,
+  list: (teamId: string, studyId: string, query: Partial<ListTastesQuery>) =>
+    [...tasteKeys.lists(teamId, studyId), query] as const,
+  segments: (teamId: string, studyId: string, params: SegmentsParams) =>
+    [...tasteKeys.study(teamId, studyId), 'segments', params] as const,
+  respondent: (teamId: string, studyId: string, runId: string, respondentId: string) =>
+    [...tasteKeys.study(teamId, studyId), 'respondent', runId, respondentId] as const,
+};
+
+export const tastesPath = (teamId: string, studyId: string) =>
+  `/teams/${teamId}/studies/${studyId}/tastes`;
+
+/** Query string of defined values only. */
+export function toSearch(params: Record<string, string | number | boolean | undefined>): string {
+  const s = new URLSearchParams();
+  for (const [k, v] of Object.entries(params)) if (v !== undefined && v !== '') s.set(k, String(v));
+  return s.toString();
+}

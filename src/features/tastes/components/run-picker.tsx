@@ -1,0 +1,39 @@
+import { SelectField } from '@/components/ui/field';
+import type { TastesRun } from '@shared/schemas/tastes';
+
+const describe = (r: TastesRun) => {
+  const when = r.finishedAt ? new Date(r.finishedAt).toLocaleString() : '';
+  const kind = r.model === 'mixed' ? 'mixed logit' : 'MNL';
+  return `${r.name || 'Unnamed run'} — ${kind}, ${when}`;
+};
+
+/** Chooses one finished run; `withProfiles` keeps only runs that stored taste profiles. */
+export function RunPicker({
+  runs,
+  value,
+  onChange,
+  withProfiles = true,
+  label = 'Run',
+}: {
+  runs: TastesRun[];
+  value: string;
+  onChange: (runId: string) => void;
+  withProfiles?: boolean;
+  label?: string;
+}) {
+  const usable = withProfiles ? runs.filter((r) => r.profiles > 0) : runs;
+  return (
+    <SelectField
+      label={label}
+      value={value}
+      onChange={(e) => onChange(e.target.value)}
+      wrapperClassName="w-full sm:max-w-md"
+    >
+      {usable.map((r) => (
+        <option key={r.id} value={r.id}>
+          {describe(r)}
+        </option>
+      ))}
+    </SelectField>
+  );
+}

@@ -1,0 +1,139 @@
+/**
+ * Segments: the analyst picks a coefficient and a grouping (the alternative chosen in a task,
+ * or the answer to a single-choice or number question) and sees the groups' distributions of
+ * conditional means with their counts and means.
+ */
+import { useState } from 'react';
+import { Card, Spinner } from '@/components/ui/feedback';
+import { ErrorText } from '@/components/ui/error-boundary';
+import { SelectField } from '@/components/ui/field';
+import type { TasteHeader } from '@shared/schemas/tastes';
+import { useSegments } from '../api/get-segments';
+import { formatNumber } from '../utils/format';
+import { SegmentsChart, type SegmentsView } from './segments-chart';
+
+export function SegmentsPanel({
+  teamId,
+  studyId,
+  header,
+}: {
+  teamId: string;
+  studyId: string;
+  header: TasteHeader;
+}) {
+  const groupable = header.questions.filter((q) => q.type === 'single' || q.type === 'number');
+  const random = header.coefficients.filter((c) => c.distribution !== 'fixed');
+  const [coefficient, setCoefficient] = useState((random[0] ?? header.coefficients[0])?.name ?? '');
+  const [groupBy, setGroupBy] = useState<'task' | 'question'>(
+    groupable.length ? 'question' : 'task',
+  );
+  const [question, setQuestion] = useState(groupable[0]?.key ?? '');
+  const [task, setTask] = useState(header.tasks[0]?.task ?? 1);
+  const [view, setView] = useState<SegmentsView>('histogram');
+  const segments = useSegments(teamId, studyId, {
+    runId: header.run.id,
+    coefficient,
+    groupBy,
+    ...(groupBy === 'task' ? { task } : { question }),
+  });
+
+  return (
+    <Card title="Segments">
+      <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
+        <SelectField
+          label="Coefficient"
+          value={coefficient}
+          onChange={(e) => setCoefficient(e.target.value)}
+        >
+          {header.coefficients.map((c) => (
+            <option key={c.name} value={c.name}>
+              {c.label}
+            </option>
+          ))}
+        </SelectField>
+        <SelectField
+          label="Split by"
+          value={groupBy}
+          onChange={(e) => setGroupBy(e.target.value as 'task' | 'question')}
+        >
+          <option value="question" disabled={groupable.length === 0}>
+            Answer to a background question
+          </option>
+          <option value="task">Alternative chosen in a task</option>
+        </SelectField>
+        {groupBy === 'question' ? (
+          <SelectField
+            label="Question"
+            value={question}
+            onChange={(e) => setQuestion(e.target.value)}
+          >
+            {groupable.map((q) => (
+              <option key={q.key} value={q.key}>
+                {q.text}
+              </option>
+            ))}
+          </SelectField>
+        ) : (
+          <SelectField label="Task" value={task} onChange={(e) => setTask(Number(e.target.value))}>
+            {header.tasks.map((t) => (
+              <option key={t.task} value={t.task}>
+                Task {t.task} (block {t.block})
+              </option>
+            ))}
+          </SelectField>
+        )}
+        <SelectField
+          label="Chart"
+          value={view}
+          onChange={(e) => setView(e.target.value as SegmentsView)}
+        >
+          <option value="histogram">Overlaid histograms</option>
+          <option value="box">Box plots</option>
+        </SelectField>
+      </div>
+      <div className="mt-4">
+        {segments.isPending && segments.fetchStatus !== 'idle' && <Spinner label="Splitting…" />}
+        <ErrorText error={segments.error} />
+        {segments.data && (
+          <>
+            <SegmentsChart data={segments.data} view={view} />
+            <div className="mt-4 overflow-x-auto">
+              <table className="min-w-full text-sm">
+                <caption className="mb-1 text-left text-xs text-ink-muted">
+                  Conditional means of {segments.data.coefficient.label} by{' '}
+                  {segments.data.groupLabel}
+                  {segments.data.ungrouped > 0 &&
+                    ` (${segments.data.ungrouped} respondents without an answer left out)`}
+                </caption>
+                <thead className="border-b border-line text-xs text-ink-soft">
+                  <tr>
+                    <th className="px-2 py-1 text-left">Group</th>
+                    {['Count', 'Mean', 'SD', 'Median', 'Quartiles'].map((h) => (
+                      <th key={h} className="px-2 py-1 text-right">
+                        {h}
+                      </th>
+                    ))}
+                  </tr>
+                </thead>
+                <tbody className="font-mono tabular-nums">
+                  {segments.data.groups.map((g) => (
+                    <tr key={g.key} className="border-b border-line/60">
+                      <td className="px-2 py-1 font-sans">{g.label}</td>
+                      <td className="px-2 py-1 text-right">{g.count}</td>
+                      <td className="px-2 py-1 text-right">{formatNumber(g.mean)}</td>
+                      <td className="px-2 py-1 text-right">{formatNumber(g.sd)}</td>
+                      <td className="px-2 py-1 text-right">{formatNumber(g.median)}</td>
+                      <td className="px-2 py-1 text-right whitespace-nowrap">
+                        {formatNumber(g.q1)} … {formatNumber(g.q3)}
+                      </td>
+                    </tr>
+                  ))}
+                </tbody>
+              </table>
+            </div>
+          </>
+        )}
+      </div>
+    </Card>
+  );
+}

@@ -18,6 +18,8 @@ export function createRouter(queryClient: QueryClient) {
     { path: paths.forgotPassword.path, lazy: () => import('./routes/auth/forgot-password') },
     { path: paths.resetPassword.path, lazy: () => import('./routes/auth/reset-password') },
     { path: paths.acceptInvitation.path, lazy: () => import('./routes/auth/accept-invitation') },
+    // The respondent app: public, no sign-in, outside the researcher shell.
+    { path: paths.respond.path, lazy: () => import('./routes/respond/respond') },
     { path: paths.unsubscribe.path, lazy: () => import('./routes/unsubscribe') },
     {
       element: <RequireAuth />,

@@ -58,6 +58,10 @@ export function createRouter(queryClient: QueryClient) {
                     return { Component: m.Component, loader: m.createRunLoader(queryClient) };
                   },
                 },
+                {
+                  path: 'tastes/:runId/respondents/:respondentId',
+                  lazy: () => import('./routes/studies/tastes/respondent-profile'),
+                },
               ],
             },
           ],

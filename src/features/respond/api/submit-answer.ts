@@ -1,0 +1,19 @@
+import { apiRequest } from '@/lib/api-client';
+import {
+  RESPONDENT_TOKEN_HEADER,
+  type AnswerReceipt,
+  type SubmitAnswerInput,
+} from '@shared/schemas/respondent';
+
+/** Sends one answer; safe to repeat with the same client id (the server stores it once). */
+export function submitAnswer(
+  publicId: string,
+  token: string,
+  answer: SubmitAnswerInput,
+): Promise<AnswerReceipt> {
+  return apiRequest<AnswerReceipt>(`/r/${encodeURIComponent(publicId)}/answers`, {
+    method: 'POST',
+    body: answer,
+    headers: { [RESPONDENT_TOKEN_HEADER]: token },
+  });
+}

@@ -1,0 +1,52 @@
+import type { ReactNode } from 'react';
+
+/**
+ * The respondent's page: a thin progress bar on top, the study name, one screen, and a quiet
+ * note about saving when answers are still on their way (never a blocking error).
+ */
+export function RespondLayout({
+  progress,
+  studyName,
+  pending = 0,
+  offline = false,
+  children,
+}: {
+  progress: number;
+  studyName?: string;
+  pending?: number;
+  offline?: boolean;
+  children: ReactNode;
+}) {
+  const pct = Math.round(Math.max(0, Math.min(1, progress)) * 100);
+  return (
+    <div className="flex min-h-dvh flex-col bg-canvas">
+      <div
+        role="progressbar"
+        aria-label="Progress through the survey"
+        aria-valuemin={0}
+        aria-valuemax={100}
+        aria-valuenow={pct}
+        className="sticky top-0 z-10 h-1.5 w-full bg-line"
+      >
+        <div
+          className="h-full bg-primary transition-[width] duration-300"
+          style={{ width: `${pct}%` }}
+        />
+      </div>
+      <header className="px-4 pt-4 sm:pt-6">
+        <p className="mx-auto max-w-5xl truncate text-sm text-ink-muted">{studyName ?? '\u00a0'}</p>
+      </header>
+      <main id="main" className="flex-1 px-4 pb-8 pt-3 sm:pt-6">
+        {children}
+      </main>
+      <div aria-live="polite" className="px-4 pb-4">
+        {pending > 0 && offline && (
+          <p className="mx-auto max-w-2xl rounded-md border border-accent/50 bg-accent-soft px-3 py-2 text-sm text-ink">
+            You seem to be offline. Your answers are kept on this device and will be sent when the
+            connection returns — you can keep going.
+          </p>
+        )}
+      </div>
+    </div>
+  );
+}

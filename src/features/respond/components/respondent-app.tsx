@@ -1,0 +1,113 @@
+import { useState } from 'react';
+import { Spinner } from '@/components/ui/feedback';
+import type { AnswerValue, RespondentScreen, RespondentSession } from '@shared/schemas/respondent';
+import { useRespondent } from '../hooks/use-respondent';
+import { ConsentScreen } from './consent-screen';
+import { InstructionsScreen } from './instructions-screen';
+import { QuestionScreen } from './question-screen';
+import { TaskScreen } from './task-screen';
+import { EndScreen, UnavailableScreen } from './finish-screens';
+import { RespondLayout } from './respond-layout';
+
+/** Renders one screen; `key` makes every screen a fresh component with its own timer. */
+function CurrentScreen({
+  screen,
+  session,
+  onAnswer,
+}: {
+  screen: RespondentScreen;
+  session: RespondentSession;
+  onAnswer: (value: AnswerValue, responseMs: number) => void;
+}) {
+  const [shownAt] = useState(() => performance.now());
+  const give = (value: AnswerValue) => onAnswer(value, performance.now() - shownAt);
+  switch (screen.kind) {
+    case 'consent':
+      return (
+        <ConsentScreen screen={screen} onAnswer={() => give({ kind: 'consent', agreed: true })} />
+      );
+    case 'instructions':
+      return <InstructionsScreen screen={screen} onContinue={() => give({ kind: 'ack' })} />;
+    case 'question':
+      return <QuestionScreen screen={screen} onAnswer={give} />;
+    case 'task':
+      return (
+        <TaskScreen
+          screen={screen}
+          definition={session.definition}
+          onAnswer={(position) => give({ kind: 'choice', position })}
+        />
+      );
+  }
+}
+
+/** The respondent app for one public link: one screen at a time, every answer kept. */
+export function RespondentApp({ publicId, search }: { publicId: string; search: string }) {
+  const r = useRespondent(publicId, search);
+  const { state } = r;
+
+  if (state.phase === 'loading')
+    return (
+      <RespondLayout progress={0}>
+        <Spinner label="Opening the survey…" />
+      </RespondLayout>
+    );
+  if (state.phase === 'error')
+    return (
+      <RespondLayout progress={0}>
+        <UnavailableScreen reason="not_found" studyName={null} redirectUrl={null} />
+        <p className="mx-auto mt-4 max-w-2xl text-sm text-ink-muted">{state.message}</p>
+      </RespondLayout>
+    );
+  if (state.phase === 'unavailable')
+    return (
+      <RespondLayout progress={0}>
+        <UnavailableScreen {...state} />
+      </RespondLayout>
+    );
+
+  const { session } = state;
+  const progress = r.totalScreens ? r.answeredCount / r.totalScreens : 0;
+  const finished = r.finalStatus !== null && r.finalStatus !== 'in_progress';
+  const closedUnderfoot = !session.surveyOpen && !finished;
+  const status = {
+    pending: r.pending,
+    offline: r.offline,
+  };
+  let body;
+  if (closedUnderfoot)
+    body = <UnavailableScreen reason="closed" studyName={session.studyName} redirectUrl={null} />;
+  else if (r.awaitingReceipt && !finished) body = <Spinner label="Checking your answer…" />;
+  else if (finished && r.finalStatus !== 'completed')
+    body = (
+      <EndScreen
+        status={r.finalStatus}
+        pending={r.pending}
+        end={session.end}
+        redirectUrl={r.redirectUrl}
+      />
+    );
+  else if (!r.currentScreen)
+    body = (
+      <EndScreen
+        status={r.finalStatus}
+        pending={r.pending}
+        end={session.end}
+        redirectUrl={r.redirectUrl}
+      />
+    );
+  else
+    body = (
+      <CurrentScreen
+        key={r.currentScreen.key}
+        screen={r.currentScreen}
+        session={session}
+        onAnswer={(value, ms) => r.answer(r.currentScreen!, value, ms)}
+      />
+    );
+  return (
+    <RespondLayout progress={finished ? 1 : progress} studyName={session.studyName} {...status}>
+      {body}
+    </RespondLayout>
+  );
+}

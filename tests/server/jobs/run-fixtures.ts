@@ -62,6 +62,19 @@ export function makeQuestionnaire() {
         body: 'We ask about water services.',
         agreeLabel: 'I agree',
       },
+      {
+        id: 'q1',
+        kind: 'question',
+        question: {
+          key: 'filter_tap',
+          type: 'single',
+          text: 'Do you filter your tap water?',
+          options: [
+            { id: 'yes', label: 'Yes' },
+            { id: 'no', label: 'No' },
+          ],
+        },
+      },
       { id: WARMUP_PAGE, kind: 'warmup', title: 'A first example', alternatives },
       { id: 't1', kind: 'tasks', title: 'Choices' },
       { id: HOLDOUT_PAGE, kind: 'holdout', title: 'One more choice', alternatives },
@@ -131,7 +144,7 @@ export async function seedRunStudy(
   const ids: string[] = [];
   let excludedId = '';
   let unfinishedId = '';
-  const holdoutAlts = makeQuestionnaire().pages[3].alternatives as {
+  const holdoutAlts = makeQuestionnaire().pages[4].alternatives as {
     levels: Record<string, string>;
   }[];
   for (let n = 0; n < total; n++) {

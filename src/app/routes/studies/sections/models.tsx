@@ -15,6 +15,21 @@ import { RunsList } from '@/features/runs/components/runs-list';
 import { RunComparison } from '@/features/runs/components/run-comparison';
 import { RunCautions } from '@/features/runs/components/run-cautions';
 import { paths } from '@/config/paths';
+import { useStudy } from '@/features/studies/api/get-study';
+import { SaveFilterForm, type FilterQuestion } from '@/features/runs/components/save-filter-form';
+import { questionnaireSchema } from '@shared/schemas/questionnaire';
+
+/** Background questions with answer options, for saved respondent filters. */
+function getFilterQuestions(questionnaire: unknown): FilterQuestion[] {
+  const parsed = questionnaireSchema.safeParse(questionnaire);
+  if (!parsed.success) return [];
+  return parsed.data.pages.flatMap((p) =>
+    (p.kind === 'question' || p.kind === 'screening') &&
+    (p.question.type === 'single' || p.question.type === 'multiple')
+      ? [{ key: p.question.key, text: p.question.text, options: p.question.options }]
+      : [],
+  );
+}
 
 export function Component() {
   const { teamId = '', studyId = '' } = useParams();
@@ -23,6 +38,7 @@ export function Component() {
   const navigate = useNavigate();
   const runs = useRuns(teamId, studyId);
   const options = useRunOptions(teamId, studyId);
+  const study = useStudy(teamId, studyId);
   const [selected, setSelected] = useState<Set<string>>(new Set());
   const [formOpen, setFormOpen] = useState(false);
 
@@ -76,6 +92,18 @@ export function Component() {
               />
             )}
           </PanelErrorBoundary>
+          <details className="mt-6 border-t border-line pt-4">
+            <summary className="cursor-pointer text-sm font-medium text-primary">
+              Save a respondent filter
+            </summary>
+            <div className="mt-4">
+              <SaveFilterForm
+                teamId={teamId}
+                studyId={studyId}
+                questions={getFilterQuestions(study.data?.questionnaire)}
+              />
+            </div>
+          </details>
         </Card>
       )}
 

@@ -5,6 +5,7 @@
 import type { z } from 'zod';
 import { designSchema, type Design } from '../../shared/schemas/design';
 import { questionnaireSchema, type Questionnaire } from '../../shared/schemas/questionnaire';
+import { CONSENT_PLACEHOLDER } from '../../shared/schemas/questionnaire-defaults';
 import type { FieldworkSettings, ReadinessProblem } from '../../shared/schemas/study-lifecycle';
 import { studyDefinitionSchema, type StudyDefinition } from '../../shared/schemas/study-definition';
 
@@ -69,6 +70,13 @@ function checkPagesAgainstStudy(
     : 0;
   q.pages.forEach((page, i) => {
     const path = `questionnaire.pages.${i}`;
+    if (page.kind === 'consent' && page.body.includes(CONSENT_PLACEHOLDER))
+      problems.push({
+        code: 'consent_placeholder',
+        path,
+        message:
+          'Replace the note for the research team on the consent page: who runs the study, the ethics approval, data keeping and a contact.',
+      });
     if (page.kind === 'warmup' || page.kind === 'holdout') {
       const name = page.kind === 'warmup' ? 'warm-up' : 'holdout';
       if (page.alternatives.length !== definition.alternatives.count)

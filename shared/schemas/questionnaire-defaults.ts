@@ -8,11 +8,18 @@ import type { Questionnaire, QuestionnairePage } from './questionnaire';
 
 const id = () => nanoid(10);
 
-export const defaultConsentBody = [
+/** Marks the paragraph researchers must replace; go-live refuses a consent page that still has it. */
+export const CONSENT_PLACEHOLDER = 'Note for the research team (replace this paragraph)';
+
+const consentIntro = [
   'Thank you for taking part. This survey asks you to choose between options described by a few features, and a few questions about you. It takes about 10 minutes.',
   'We record your answers, the time you spend on each screen and the kind of device you use. We do not ask for your name. Your answers are stored securely, used only for this research and reported only in summaries.',
   'Taking part is voluntary. You may stop at any time by closing this page, without giving a reason.',
-  'Note for the research team (replace this paragraph): state who runs the study, the ethics approval reference, how long the data are kept, the legal basis under your data-protection law and how to contact you. Follow your ethics board and local law.',
+];
+
+export const defaultConsentBody = [
+  ...consentIntro,
+  `${CONSENT_PLACEHOLDER}: state who runs the study, the ethics approval reference, how long the data are kept, the legal basis under your data-protection law and how to contact you. Follow your ethics board and local law.`,
 ].join('\n\n');
 
 /** Attributes shown in designed alternative j (labeled alternatives can omit some). */
@@ -218,7 +225,11 @@ export function demoQuestionnaire(definition: StudyDefinition): Questionnaire {
         id: 'consent',
         kind: 'consent',
         title: 'Your water services for the next five years',
-        body: `Larkspur Valley Water is planning its services for the next five years and would like to know what matters to your household.\n\n${defaultConsentBody}`,
+        body: [
+          'Larkspur Valley Water is planning its services for the next five years and would like to know what matters to your household.',
+          ...consentIntro,
+          'The survey is run by the Larkspur Valley Water customer research team (an invented utility used for demonstrations). Answers are kept for three years and then deleted. Questions: research@larkspur-water.example.',
+        ].join('\n\n'),
         agreeLabel: consent.kind === 'consent' ? consent.agreeLabel : 'I agree to take part',
       },
       {

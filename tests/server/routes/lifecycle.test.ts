@@ -5,7 +5,8 @@ import { createTeamWithAllRoles } from '../../support/factories';
 import { respondents, answers } from '../../../db/schema/fieldwork';
 import { studies } from '../../../db/schema/studies';
 import { closeDueStudies } from '../../../server/services/lifecycle';
-import { answerFor, insertStudy } from './respond-fixtures';
+import { answerFor, definition, insertStudy } from './respond-fixtures';
+import { defaultQuestionnaire } from '../../../shared/schemas/questionnaire-defaults';
 
 let t: TestApp;
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
@@ -33,6 +34,16 @@ describe('GET /lifecycle/readiness', () => {
     expect(codes).toEqual(
       expect.arrayContaining(['no_attributes', 'no_design', 'no_questionnaire']),
     );
+  });
+
+  it('when the consent page still has the placeholder note, asks for the study details', async () => {
+    const s = await insertStudy(t, team.teamId, {
+      questionnaire: defaultQuestionnaire(definition),
+    });
+    const res = await team.agents.editor.get(url(s.id, '/readiness')).expect(200);
+    expect(res.body.problems).toEqual([
+      expect.objectContaining({ code: 'consent_placeholder', path: 'questionnaire.pages.0' }),
+    ]);
   });
 
   it('when the study is complete, says it is ready', async () => {

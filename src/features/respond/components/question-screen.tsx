@@ -118,7 +118,7 @@ export function QuestionScreen({ screen, onAnswer }: Props) {
               }}
               aria-invalid={error ? true : undefined}
               aria-describedby={describedBy}
-              className="h-14 w-40 rounded-lg border-2 border-line bg-white px-4 text-lg text-ink focus:border-primary focus:outline-none"
+              className="h-14 w-40 rounded-lg border-2 border-line bg-white px-4 text-lg text-ink focus:border-primary focus:outline-none aria-[invalid=true]:border-danger"
             />
             {q.unit && <span className="text-base text-ink-soft">{q.unit}</span>}
             <span className="text-sm text-ink-muted">
@@ -141,7 +141,7 @@ export function QuestionScreen({ screen, onAnswer }: Props) {
               }}
               aria-invalid={error ? true : undefined}
               aria-describedby={describedBy}
-              className="min-h-32 w-full rounded-lg border-2 border-line bg-white p-3 text-base text-ink focus:border-primary focus:outline-none"
+              className="min-h-32 w-full rounded-lg border-2 border-line bg-white p-3 text-base text-ink focus:border-primary focus:outline-none aria-[invalid=true]:border-danger"
             />
           </>
         )}

@@ -34,7 +34,7 @@ export function RespondLayout({
         />
       </div>
       <header className="px-4 pt-4 sm:pt-6">
-        <p className="mx-auto max-w-5xl truncate text-sm text-ink-muted">{studyName ?? '\u00a0'}</p>
+        <p className="mx-auto max-w-2xl truncate text-sm text-ink-muted">{studyName ?? '\u00a0'}</p>
       </header>
       <main id="main" className="flex-1 px-4 pb-8 pt-3 sm:pt-6">
         {children}

@@ -25,7 +25,9 @@ export function ScreenFrame({
       <h1
         ref={heading}
         tabIndex={-1}
-        className="text-xl font-semibold leading-snug text-ink outline-none sm:text-2xl"
+        // Focus is moved here for screen readers; a focus ring on a heading would only confuse.
+        style={{ outline: 'none' }}
+        className="text-xl font-semibold leading-snug text-ink sm:text-2xl"
       >
         {title}
       </h1>

@@ -1,6 +1,7 @@
 /**
  * One choice task as respondents see it: the alternatives as cards, attribute rows aligned
- * across cards (CSS subgrid), stacked on phones and side by side from tablet width; the whole
+ * across cards (CSS subgrid), stacked when narrow and side by side once its container is
+ * tablet-wide (a container query, so a phone-sized preview frame stacks too); the whole
  * card is the tap target. Pure and presentational: shared by Preview and the respondent app.
  */
 import type { KeyboardEvent } from 'react';
@@ -53,7 +54,7 @@ export function ChoiceTaskCard({
   const described = attributes.filter((a) => a.description?.trim());
 
   return (
-    <div className="w-full">
+    <div className="@container w-full">
       {described.length > 0 && (
         <details className="mb-3 rounded-md border border-line bg-white px-3 py-2 text-sm">
           <summary className="cursor-pointer font-medium text-ink">What the features mean</summary>
@@ -70,7 +71,7 @@ export function ChoiceTaskCard({
       <div
         role="radiogroup"
         aria-label={label}
-        className="flex flex-col gap-3 md:grid md:gap-4"
+        className="flex flex-col gap-3 @xl:grid @xl:gap-4"
         style={{
           gridTemplateColumns: `repeat(${alternatives.length}, minmax(0, 1fr))`,
           gridTemplateRows: `auto repeat(${attributes.length}, auto) auto`,
@@ -99,7 +100,7 @@ export function ChoiceTaskCard({
               onClick={() => onChoose?.(i)}
               onKeyDown={(e) => onKey(e, i)}
               className={cn(
-                'flex flex-col rounded-xl border-2 bg-white p-4 text-left shadow-sm transition-colors md:row-span-full md:grid md:grid-rows-subgrid',
+                'flex flex-col rounded-xl border-2 bg-white p-4 text-left shadow-sm transition-colors @xl:row-span-full @xl:grid @xl:grid-rows-subgrid',
                 onChoose && 'cursor-pointer hover:border-primary/60',
                 selected ? 'border-primary ring-2 ring-primary/25' : 'border-line',
                 alt.kind === 'fixed' && !selected && 'bg-canvas',

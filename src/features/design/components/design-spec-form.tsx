@@ -1,0 +1,160 @@
+import { useState } from 'react';
+import type { CodedColumn } from '@shared/engine/coding/coded-columns';
+import type { StudyDefinition } from '@shared/schemas/study-definition';
+import type { DesignSpec } from '@shared/schemas/design-spec';
+import { SelectField, TextField } from '@/components/ui/field';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/feedback';
+import {
+  buildDesignSpec,
+  defaultDesignForm,
+  type DesignFormValues,
+} from '../utils/build-design-spec';
+import { PriorsTable } from './priors-table';
+
+type Props = {
+  definition: StudyDefinition;
+  columns: CodedColumn[];
+  disabled: boolean;
+  busy: boolean;
+  serverErrors: Map<string, string>;
+  onGenerate: (spec: DesignSpec) => void;
+};
+
+const methodHelp: Record<DesignSpec['method'], string> = {
+  full_factorial: 'Every allowed profile once; only for small studies.',
+  random: 'Levels drawn at random, kept balanced across tasks.',
+  d_efficient:
+    'Coordinate exchange minimising the MNL D-error under your priors; best of several starts.',
+};
+
+export function DesignSpecForm({
+  definition,
+  columns,
+  disabled,
+  busy,
+  serverErrors,
+  onGenerate,
+}: Props) {
+  const [v, setV] = useState<DesignFormValues>(defaultDesignForm);
+  const [errors, setErrors] = useState<Map<string, string>>(new Map());
+  const shown = errors.size > 0 ? errors : serverErrors;
+  const set = (patch: Partial<DesignFormValues>) => setV((old) => ({ ...old, ...patch }));
+  const submit = () => {
+    const built = buildDesignSpec(v, columns);
+    if (!built.ok) return setErrors(built.errors);
+    setErrors(new Map());
+    onGenerate(built.spec);
+  };
+  const efficient = v.method === 'd_efficient';
+
+  return (
+    <Card title="Generate choice tasks">
+      <form
+        noValidate
+        aria-label="Design settings"
+        onSubmit={(e) => {
+          e.preventDefault();
+          submit();
+        }}
+        className="space-y-4"
+      >
+        <fieldset disabled={disabled} className="space-y-4">
+          <SelectField
+            label="Method"
+            value={v.method}
+            hint={methodHelp[v.method]}
+            onChange={(e) => set({ method: e.target.value as DesignSpec['method'] })}
+          >
+            <option value="d_efficient">D-efficient</option>
+            <option value="random">Random (level-balanced)</option>
+            <option value="full_factorial">Full factorial</option>
+          </SelectField>
+          <div className="grid grid-cols-2 gap-3 sm:grid-cols-4">
+            <TextField
+              label="Tasks"
+              inputMode="numeric"
+              value={v.tasks}
+              hint={v.method === 'full_factorial' ? 'Leave empty for all' : undefined}
+              error={shown.get('tasks')}
+              onChange={(e) => set({ tasks: e.target.value })}
+            />
+            <TextField
+              label="Blocks"
+              inputMode="numeric"
+              value={v.blocks}
+              error={shown.get('blocks')}
+              onChange={(e) => set({ blocks: e.target.value })}
+            />
+            {efficient && (
+              <TextField
+                label="Random starts"
+                inputMode="numeric"
+                value={v.starts}
+                error={shown.get('starts')}
+                onChange={(e) => set({ starts: e.target.value })}
+              />
+            )}
+            <TextField
+              label="Seed"
+              inputMode="numeric"
+              value={v.seed}
+              hint="Same seed, same design"
+              error={shown.get('seed')}
+              onChange={(e) => set({ seed: e.target.value })}
+            />
+          </div>
+          {efficient && (
+            <div className="space-y-3">
+              <div className="grid gap-3 sm:grid-cols-2">
+                <SelectField
+                  label="Priors"
+                  value={v.priorsKind}
+                  onChange={(e) =>
+                    set({ priorsKind: e.target.value as DesignFormValues['priorsKind'] })
+                  }
+                >
+                  <option value="zero">Zero (no prior knowledge)</option>
+                  <option value="fixed">Fixed values</option>
+                  <option value="bayesian">Bayesian (normal: mean and SD)</option>
+                </SelectField>
+                {v.priorsKind === 'bayesian' && (
+                  <TextField
+                    label="Prior draws"
+                    inputMode="numeric"
+                    value={v.draws}
+                    error={shown.get('priors.draws')}
+                    onChange={(e) => set({ draws: e.target.value })}
+                  />
+                )}
+              </div>
+              {v.priorsKind !== 'zero' && (
+                <PriorsTable
+                  definition={definition}
+                  columns={columns}
+                  bayesian={v.priorsKind === 'bayesian'}
+                  values={v.priors}
+                  errors={shown}
+                  onChange={(priors) => set({ priors })}
+                />
+              )}
+              {shown.get('priors.columns') && (
+                <p role="alert" className="text-xs font-medium text-danger">
+                  {shown.get('priors.columns')}
+                </p>
+              )}
+            </div>
+          )}
+        </fieldset>
+        {shown.get('method') && (
+          <p role="alert" className="text-xs font-medium text-danger">
+            {shown.get('method')}
+          </p>
+        )}
+        <Button type="submit" disabled={disabled} busy={busy}>
+          Generate design
+        </Button>
+      </form>
+    </Card>
+  );
+}

@@ -1,0 +1,67 @@
+import type { Design } from '@shared/schemas/design';
+import type { StudyDefinition } from '@shared/schemas/study-definition';
+import { formatLevel } from '@/components/choice-task/format-level';
+
+/** The tasks of each block as a compact table: one row per alternative. */
+export function DesignTable({
+  definition,
+  design,
+}: {
+  definition: StudyDefinition;
+  design: Design;
+}) {
+  const blocks = Array.from({ length: design.blocks }, (_, b) =>
+    design.tasks.filter((t) => t.block === b + 1),
+  );
+  const levelText = (attributeId: string, levelId: string | undefined) => {
+    const a = definition.attributes.find((x) => x.id === attributeId);
+    const l = a?.levels.find((x) => x.id === levelId);
+    return a && l ? formatLevel(a, l) : '—';
+  };
+  return (
+    <div className="space-y-6">
+      {blocks.map((tasks, b) => (
+        <div key={b} className="overflow-x-auto">
+          <table className="w-full min-w-max text-sm">
+            <caption className="mb-1 text-left text-sm font-semibold text-ink">
+              Block {b + 1}{' '}
+              <span className="font-normal text-ink-muted">({tasks.length} tasks)</span>
+            </caption>
+            <thead>
+              <tr className="border-b border-line text-left text-xs text-ink-muted">
+                <th className="py-1.5 pr-3 text-right font-medium">Task</th>
+                <th className="py-1.5 pr-3 text-right font-medium">Alt.</th>
+                {definition.attributes.map((a) => (
+                  <th key={a.id} className="py-1.5 pr-3 font-medium">
+                    {a.name}
+                  </th>
+                ))}
+              </tr>
+            </thead>
+            <tbody>
+              {tasks.map((t) =>
+                t.alternatives.map((alt, j) => (
+                  <tr
+                    key={`${t.task}-${j}`}
+                    className={j === t.alternatives.length - 1 ? 'border-b border-line' : ''}
+                  >
+                    <td className="num py-1 pr-3 text-ink-muted">{j === 0 ? t.task : ''}</td>
+                    <td className="num py-1 pr-3">{j + 1}</td>
+                    {definition.attributes.map((a) => (
+                      <td
+                        key={a.id}
+                        className={a.kind === 'numeric' ? 'num py-1 pr-3' : 'py-1 pr-3'}
+                      >
+                        {levelText(a.id, alt.levels[a.id])}
+                      </td>
+                    ))}
+                  </tr>
+                )),
+              )}
+            </tbody>
+          </table>
+        </div>
+      ))}
+    </div>
+  );
+}

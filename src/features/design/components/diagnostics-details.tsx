@@ -1,0 +1,157 @@
+import type { DesignDiagnostics } from '@server/engine/design/diagnostics/diagnose-design';
+import { Alert } from '@/components/ui/feedback';
+import { cn } from '@/lib/cn';
+
+const ALT_COLOURS = [
+  'bg-oi-blue',
+  'bg-oi-orange',
+  'bg-oi-green',
+  'bg-oi-purple',
+  'bg-oi-sky',
+  'bg-oi-vermillion',
+];
+
+export function Correlations({ d }: { d: DesignDiagnostics }) {
+  return (
+    <div className="overflow-x-auto">
+      <table className="text-xs">
+        <thead>
+          <tr>
+            <th />
+            {d.columns.map((c, j) => (
+              <th key={c.key} className="num px-1 font-medium text-ink-muted" title={c.name}>
+                {j + 1}
+              </th>
+            ))}
+          </tr>
+        </thead>
+        <tbody>
+          {d.columns.map((c, i) => (
+            <tr key={c.key}>
+              <th
+                className="max-w-48 truncate pr-2 text-left font-normal text-ink-soft"
+                title={c.name}
+              >
+                <span className="num mr-1 text-ink-muted">{i + 1}</span>
+                {c.name}
+              </th>
+              {d.correlations[i].map((r, j) => (
+                <td
+                  key={j}
+                  className={cn(
+                    'num px-1 py-0.5',
+                    i === j
+                      ? 'text-ink-muted'
+                      : r !== null && Math.abs(r) >= 0.3
+                        ? 'bg-accent-soft font-semibold'
+                        : '',
+                  )}
+                >
+                  {i === j ? '·' : r === null ? '—' : r.toFixed(2)}
+                </td>
+              ))}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      <p className="mt-2 text-xs text-ink-muted">
+        Shaded: |r| ≥ 0.30 (common practice, no source).
+      </p>
+    </div>
+  );
+}
+
+export function ChoiceProbabilities({ d }: { d: DesignDiagnostics }) {
+  if (d.priorsKind === 'zero')
+    return (
+      <p className="text-sm text-ink-soft">With zero priors every alternative is equally likely.</p>
+    );
+  return (
+    <div>
+      <ul className="space-y-1">
+        {d.choiceProbabilities.map((t) => {
+          const dominant = Math.max(...t.probabilities) >= 0.9;
+          return (
+            <li key={t.task} className="grid grid-cols-[3.5rem_1fr] items-center gap-2 text-xs">
+              <span className="num text-ink-muted">
+                {t.task}
+                {dominant && (
+                  <span className="ml-1 text-danger" title="One alternative takes 90 % or more">
+                    !
+                  </span>
+                )}
+              </span>
+              <span
+                className="flex h-4 overflow-hidden rounded"
+                aria-label={`Task ${t.task}: ${t.probabilities.map((p) => `${Math.round(p * 100)} %`).join(', ')}`}
+              >
+                {t.probabilities.map((p, j) => (
+                  <span
+                    key={j}
+                    className={ALT_COLOURS[j % ALT_COLOURS.length]}
+                    style={{ width: `${p * 100}%` }}
+                  />
+                ))}
+              </span>
+            </li>
+          );
+        })}
+      </ul>
+      <p className="mt-2 text-xs text-ink-muted">
+        Each bar splits 100 % between the alternatives of a task in order (last: opt-out or status
+        quo when there is one). “!” marks a task where one alternative takes 90 % or more — it tells
+        little about trade-offs.
+      </p>
+    </div>
+  );
+}
+
+export function SampleSizeGuide({ d }: { d: DesignDiagnostics }) {
+  const s = d.sampleSize;
+  return (
+    <div className="space-y-3">
+      {d.priorsKind === 'zero' ? (
+        <p className="text-sm text-ink-soft">
+          The per-coefficient guide needs non-zero priors. Rule of thumb (Johnson–Orme):{' '}
+          <span className="num">{s.ruleOfThumb.respondents}</span> respondents.
+        </p>
+      ) : (
+        <>
+          <p className="text-sm text-ink">
+            About <strong className="num">{s.sEstimateRespondents ?? '—'}</strong> respondents for
+            every coefficient’s expected t-ratio to reach 1.96; about{' '}
+            <strong className="num">{s.powerRespondents ?? '—'}</strong> for 80 % power. Rule of
+            thumb: <span className="num">{s.ruleOfThumb.respondents}</span>.
+          </p>
+          <div className="overflow-x-auto">
+            <table className="w-full text-xs">
+              <thead>
+                <tr className="border-b border-line text-left text-ink-muted">
+                  <th className="py-1 pr-2 font-medium">Coefficient</th>
+                  <th className="py-1 pr-2 text-right font-medium">Prior</th>
+                  <th className="py-1 pr-2 text-right font-medium">Respondents (t = 1.96)</th>
+                </tr>
+              </thead>
+              <tbody>
+                {s.coefficients.map((c) => (
+                  <tr key={c.key} className="border-b border-line/50">
+                    <td className="py-1 pr-2">{c.name}</td>
+                    <td className="num py-1 pr-2">{c.prior}</td>
+                    <td className="num py-1 pr-2">
+                      {c.replicationsForT === null ? '—' : Math.ceil(c.replicationsForT) * d.blocks}
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+        </>
+      )}
+      <Alert tone="warning">
+        A guide, not a guarantee: it assumes the priors are right and the MNL model holds. Plan for
+        more respondents, and follow your ethics board and local data-protection law when surveying
+        people.
+      </Alert>
+    </div>
+  );
+}

@@ -1,0 +1,106 @@
+import type { DesignDiagnostics } from '@server/engine/design/diagnostics/diagnose-design';
+import { Alert, Card } from '@/components/ui/feedback';
+import { ChoiceProbabilities, Correlations, SampleSizeGuide } from './diagnostics-details';
+
+const fmt = (v: number | null | undefined, digits = 4) =>
+  v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toPrecision(digits);
+const pct = (v: number | null) => (v === null ? '—' : `${Math.round(v * 100)} %`);
+
+const criterion = {
+  zero: 'D₀-error (zero priors)',
+  fixed: 'Dp-error (at the priors)',
+  bayesian: 'Bayesian D-error',
+};
+
+/** How good the design is: criteria, balance, overlap, correlations, probabilities, sample size. */
+export function DiagnosticsPanel({ d }: { d: DesignDiagnostics }) {
+  return (
+    <div className="space-y-4">
+      <Card title="Design quality">
+        <dl className="grid grid-cols-2 gap-3 text-sm">
+          <div>
+            <dt className="text-xs text-ink-muted">{criterion[d.priorsKind]}</dt>
+            <dd className="num text-left text-xl font-semibold text-ink">{fmt(d.dError)}</dd>
+          </div>
+          <div>
+            <dt className="text-xs text-ink-muted">D-efficiency</dt>
+            <dd className="num text-left text-xl font-semibold text-ink">
+              {d.dEfficiency ? pct(d.dEfficiency.efficiency) : '—'}
+            </dd>
+            {!d.dEfficiency && (
+              <dd className="text-xs text-ink-muted">No known optimum for this set-up.</dd>
+            )}
+          </div>
+          {d.priorsKind !== 'zero' && (
+            <div>
+              <dt className="text-xs text-ink-muted">D₀-error</dt>
+              <dd className="num text-left">{fmt(d.dErrorZero)}</dd>
+            </div>
+          )}
+          <div>
+            <dt className="text-xs text-ink-muted">Parameters · tasks · blocks</dt>
+            <dd className="num text-left">
+              {d.parameters} · {d.tasks} · {d.blocks}
+            </dd>
+          </div>
+        </dl>
+        {d.warnings.length > 0 && (
+          <Alert tone="warning" className="mt-4">
+            <ul className="list-disc space-y-1 pl-4">
+              {d.warnings.map((w) => (
+                <li key={w}>{w}</li>
+              ))}
+            </ul>
+          </Alert>
+        )}
+      </Card>
+
+      <Card title="Level balance and overlap">
+        <div className="space-y-4">
+          {d.levelBalance.map((a) => {
+            const overlap = d.overlap.find((o) => o.attributeId === a.attributeId);
+            const max = Math.max(...a.levels.map((l) => l.count), 1);
+            return (
+              <div key={a.attributeId}>
+                <div className="mb-1 flex items-baseline justify-between gap-2 text-sm">
+                  <span className="font-medium text-ink">{a.name}</span>
+                  <span className="text-xs text-ink-muted">
+                    same level in all alternatives:{' '}
+                    <span className="num">{pct(overlap?.share ?? null)}</span> of tasks
+                  </span>
+                </div>
+                <ul className="space-y-1">
+                  {a.levels.map((l) => (
+                    <li
+                      key={l.levelId}
+                      className="grid grid-cols-[7rem_1fr_2.5rem] items-center gap-2 text-xs"
+                    >
+                      <span className="truncate text-ink-soft">{l.label}</span>
+                      <span className="h-2 rounded-full bg-line">
+                        <span
+                          className="block h-2 rounded-full bg-oi-blue"
+                          style={{ width: `${(l.count / max) * 100}%` }}
+                        />
+                      </span>
+                      <span className="num">{l.count}</span>
+                    </li>
+                  ))}
+                </ul>
+              </div>
+            );
+          })}
+        </div>
+      </Card>
+
+      <Card title="Correlations between coded columns">
+        <Correlations d={d} />
+      </Card>
+      <Card title="Choice probabilities under the priors">
+        <ChoiceProbabilities d={d} />
+      </Card>
+      <Card title="Sample-size guide">
+        <SampleSizeGuide d={d} />
+      </Card>
+    </div>
+  );
+}

@@ -1,0 +1,64 @@
+/**
+ * The Tasks form's text inputs turned into a design spec, checked with the shared schema so
+ * the form shows the same messages the server would.
+ */
+import { designSpecSchema, type DesignSpec } from '@shared/schemas/design-spec';
+import type { CodedColumn } from '@shared/engine/coding/coded-columns';
+
+export type PriorInputs = Record<string, { mean: string; sd: string }>;
+
+export type DesignFormValues = {
+  method: DesignSpec['method'];
+  tasks: string;
+  blocks: string;
+  starts: string;
+  seed: string;
+  priorsKind: 'zero' | 'fixed' | 'bayesian';
+  draws: string;
+  priors: PriorInputs;
+};
+
+export const defaultDesignForm: DesignFormValues = {
+  method: 'd_efficient',
+  tasks: '12',
+  blocks: '2',
+  starts: '5',
+  seed: '1',
+  priorsKind: 'zero',
+  draws: '200',
+  priors: {},
+};
+
+const num = (s: string) => (s.trim() === '' ? Number.NaN : Number(s));
+
+export function buildDesignSpec(
+  v: DesignFormValues,
+  columns: CodedColumn[],
+): { ok: true; spec: DesignSpec } | { ok: false; errors: Map<string, string> } {
+  const priorColumns = columns.map((c) => ({
+    key: c.key,
+    mean: num(v.priors[c.key]?.mean ?? '0'),
+    sd: num(v.priors[c.key]?.sd ?? '0'),
+  }));
+  const raw = {
+    method: v.method,
+    tasks: v.method === 'full_factorial' && v.tasks.trim() === '' ? undefined : num(v.tasks),
+    blocks: num(v.blocks),
+    starts: num(v.starts),
+    seed: num(v.seed),
+    priors:
+      v.method !== 'd_efficient' || v.priorsKind === 'zero'
+        ? { kind: 'zero' }
+        : v.priorsKind === 'fixed'
+          ? { kind: 'fixed', columns: priorColumns.map(({ key, mean }) => ({ key, mean })) }
+          : { kind: 'bayesian', columns: priorColumns, draws: num(v.draws) },
+  };
+  const parsed = designSpecSchema.safeParse(raw);
+  if (parsed.success) return { ok: true, spec: parsed.data };
+  const errors = new Map<string, string>();
+  for (const issue of parsed.error.issues) {
+    const path = issue.path.join('.');
+    if (!errors.has(path)) errors.set(path, issue.message);
+  }
+  return { ok: false, errors };
+}

@@ -39,7 +39,7 @@ async function loadXlsx(agent: supertest.Agent) {
     .parse(binary as never)
     .expect(200);
   const workbook = new ExcelJS.Workbook();
-  await workbook.xlsx.load(res.body as Buffer);
+  await workbook.xlsx.load(res.body as Parameters<typeof workbook.xlsx.load>[0]);
   return { res, workbook };
 }
 

@@ -1,0 +1,114 @@
+/**
+ * Exports section: per-respondent estimates (CSV, XLSX), the long-format choice data, the
+ * design, the background answers and a printable run report. Every role may download; the
+ * files leave personal columns out unless the role reads personal data.
+ */
+import { useParams, useSearchParams } from 'react-router';
+import { Alert, Card, Spinner } from '@/components/ui/feedback';
+import { ErrorText } from '@/components/ui/error-boundary';
+import { useTastesRuns } from '@/features/tastes/api/list-tastes-runs';
+import { RunPicker } from '@/features/tastes/components/run-picker';
+import { exportsPath, useExportManifest } from '@/features/exports/api/get-export-manifest';
+import { DownloadList, type DownloadItem } from '@/features/exports/components/download-list';
+
+export function Component() {
+  const { teamId = '', studyId = '' } = useParams();
+  const [search, setSearch] = useSearchParams();
+  const manifest = useExportManifest(teamId, studyId);
+  const runs = useTastesRuns(teamId, studyId);
+  if (manifest.isPending || runs.isPending) return <Spinner label="Loading downloads…" />;
+  if (manifest.error || runs.error) return <ErrorText error={manifest.error ?? runs.error} />;
+
+  const base = exportsPath(teamId, studyId);
+  const runId = search.get('run') ?? runs.data[0]?.id ?? '';
+  const run = runs.data.find((r) => r.id === runId);
+  const q = `?runId=${encodeURIComponent(runId)}`;
+  const noRun = run ? undefined : 'Needs a finished run (start one in Models).';
+  const noProfiles =
+    noRun ?? (run && run.profiles === 0 ? 'This run has no taste profiles (MNL).' : undefined);
+  const personal = manifest.data.personalColumns;
+
+  const runItems: DownloadItem[] = [
+    {
+      key: 'profiles',
+      title: 'Taste profiles',
+      description:
+        'One row per respondent: each conditional mean with its SD, WTP, effective draws, quality flags and background answers. The XLSX starts with a sheet on the model, the data and the cautions.',
+      links: [
+        { label: 'CSV', href: `${base}/taste-profiles.csv${q}` },
+        { label: 'XLSX', href: `${base}/taste-profiles.xlsx${q}` },
+      ],
+      disabledReason: noProfiles,
+    },
+    {
+      key: 'report',
+      title: 'Run report',
+      description: 'Parameters, fit, WTP, population distributions and cautions, ready to print.',
+      links: [{ label: 'Open report', href: `${base}/run-report.html${q}`, newTab: true }],
+      disabledReason: noRun,
+    },
+  ];
+  const studyItems: DownloadItem[] = [
+    {
+      key: 'choices',
+      title: 'Choice data (long format)',
+      description:
+        'One row per alternative shown: respondent, task, alt, chosen, holdout and the coded columns — the format the command-line estimator reads.',
+      links: [{ label: 'CSV', href: `${base}/choices.csv` }],
+      disabledReason: manifest.data.choicesAvailable
+        ? undefined
+        : 'The study has not been live yet.',
+    },
+    {
+      key: 'design',
+      title: 'Design',
+      description: 'The frozen choice tasks: one row per designed alternative with its levels.',
+      links: [{ label: 'CSV', href: `${base}/design.csv` }],
+      disabledReason: manifest.data.choicesAvailable
+        ? undefined
+        : 'The study has not been live yet.',
+    },
+    {
+      key: 'answers',
+      title: 'Background answers',
+      description: 'Every respondent with their status, inclusion, quality flags and answers.',
+      links: [{ label: 'CSV', href: `${base}/background-answers.csv` }],
+    },
+  ];
+
+  return (
+    <div className="space-y-6">
+      <div>
+        <h2 className="text-xl font-semibold text-ink">Exports</h2>
+        <p className="text-sm text-ink-soft">Take the data and the estimates away.</p>
+      </div>
+      <Alert
+        tone={personal ? 'warning' : 'info'}
+        title={personal ? 'These files hold personal data' : 'No personal data in your downloads'}
+      >
+        {personal
+          ? 'Your role reads personal data, so downloads include external ids and free-text answers. Store and share them as your ethics approval and data-protection law require.'
+          : 'Your role does not read personal data: external ids and free-text answers are left out of every file.'}{' '}
+        Text cells that a spreadsheet could run as a formula are prefixed with a single quote.
+      </Alert>
+      <Card
+        title="Results of a run"
+        actions={
+          runs.data.length > 0 ? (
+            <RunPicker
+              runs={runs.data}
+              value={runId}
+              withProfiles={false}
+              onChange={(id) => setSearch({ run: id }, { replace: true })}
+            />
+          ) : undefined
+        }
+      >
+        <DownloadList items={runItems} />
+      </Card>
+      <Card title="Study data">
+        <DownloadList items={studyItems} />
+      </Card>
+    </div>
+  );
+}

@@ -1,0 +1,132 @@
+/**
+ * Shares section (what-if share simulator): hypothetical alternatives defined by their levels,
+ * simulated over every respondent's own taste profile from a finished run, overall and by
+ * segment. Every role may simulate; nothing is stored.
+ */
+import { useState } from 'react';
+import { useParams, useSearchParams } from 'react-router';
+import { Alert, Card, EmptyState, Spinner } from '@/components/ui/feedback';
+import { ErrorText } from '@/components/ui/error-boundary';
+import { Button } from '@/components/ui/button';
+import { SelectField } from '@/components/ui/field';
+import { useStudy } from '@/features/studies/api/get-study';
+import { useTastesRuns } from '@/features/tastes/api/list-tastes-runs';
+import { useTastes } from '@/features/tastes/api/list-tastes';
+import { RunPicker } from '@/features/tastes/components/run-picker';
+import { useSimulateShares } from '@/features/shares/api/simulate-shares';
+import { makeAlternative, ScenarioEditor } from '@/features/shares/components/scenario-editor';
+import { ShareResults } from '@/features/shares/components/share-results';
+import type { ScenarioAlternative } from '@shared/schemas/shares';
+
+export function Component() {
+  const { teamId = '', studyId = '' } = useParams();
+  const [search, setSearch] = useSearchParams();
+  const study = useStudy(teamId, studyId);
+  const runs = useTastesRuns(teamId, studyId);
+  const runId = search.get('run') ?? runs.data?.[0]?.id ?? '';
+  const run = runs.data?.find((r) => r.id === runId);
+  const header = useTastes(teamId, studyId, {
+    runId: run && run.profiles > 0 ? runId : '',
+    page: 1,
+    pageSize: 1,
+    sort: 'number',
+    dir: 'asc',
+  }).data;
+  const [alternatives, setAlternatives] = useState<ScenarioAlternative[] | null>(null);
+  const [includeFixed, setIncludeFixed] = useState(true);
+  const [segment, setSegment] = useState('');
+  const simulate = useSimulateShares(teamId, studyId);
+
+  if (study.isPending || runs.isPending) return <Spinner label="Loading…" />;
+  if (study.error || runs.error) return <ErrorText error={study.error ?? runs.error} />;
+  const definition = study.data.definition;
+  if (runs.data.length === 0)
+    return (
+      <EmptyState title="No finished run yet">
+        Shares are simulated over the respondents&apos; taste profiles of a finished run. Start one
+        in Models.
+      </EmptyState>
+    );
+  const scenario = alternatives ?? [0, 1].map((i) => makeAlternative(definition, i));
+  const segmentOptions = (header?.questions ?? []).filter((q) => q.type === 'single');
+  const fixed = definition.fixedAlternative;
+  const onSimulate = () =>
+    simulate.mutate({
+      runId,
+      alternatives: scenario,
+      includeFixed,
+      segmentBy: segment ? { groupBy: 'question', question: segment } : null,
+    });
+
+  return (
+    <div className="space-y-6">
+      <div className="flex flex-wrap items-end justify-between gap-3">
+        <div>
+          <h2 className="text-xl font-semibold text-ink">Shares</h2>
+          <p className="text-sm text-ink-soft">
+            What would respondents choose between options that do not exist yet?
+          </p>
+        </div>
+        <RunPicker
+          runs={runs.data}
+          value={runId}
+          withProfiles={false}
+          onChange={(id) => {
+            setSearch({ run: id }, { replace: true });
+            simulate.reset();
+          }}
+        />
+      </div>
+      <Alert tone="info" title="How the shares are computed">
+        {run?.model === 'mixed'
+          ? 'Each respondent gets logit choice probabilities from their own conditional means (their taste profile); the share is the average over respondents, not the choice of one average person. Uncertainty within each profile is not carried into the shares.'
+          : 'This is a multinomial logit run: everybody shares one set of coefficients, so shares follow the logit formula without taste variation. Choose a mixed-logit run for shares over individual profiles.'}{' '}
+        Shares of stated, hypothetical choices usually overstate real uptake; treat them as
+        comparisons between scenarios, not forecasts.
+      </Alert>
+      <Card title="Scenario">
+        <ScenarioEditor
+          definition={definition}
+          alternatives={scenario}
+          onChange={setAlternatives}
+        />
+        <div className="mt-4 flex flex-wrap items-end gap-4">
+          {fixed && (
+            <label className="flex items-center gap-2 text-sm">
+              <input
+                type="checkbox"
+                checked={includeFixed}
+                onChange={(e) => setIncludeFixed(e.target.checked)}
+                className="size-4 accent-primary"
+              />
+              Include “{fixed.label}”
+            </label>
+          )}
+          <SelectField
+            label="Shares by segment"
+            value={segment}
+            onChange={(e) => setSegment(e.target.value)}
+            wrapperClassName="w-full sm:w-72"
+            disabled={segmentOptions.length === 0}
+          >
+            <option value="">No segments</option>
+            {segmentOptions.map((q) => (
+              <option key={q.key} value={q.key}>
+                {q.text}
+              </option>
+            ))}
+          </SelectField>
+          <Button onClick={onSimulate} busy={simulate.isPending}>
+            Simulate shares
+          </Button>
+        </div>
+      </Card>
+      <ErrorText error={simulate.error} />
+      {simulate.data && (
+        <Card title="Predicted shares">
+          <ShareResults result={simulate.data} />
+        </Card>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,45 @@
+/** Download links: plain anchors to the export endpoints (the browser keeps the session cookie). */
+import type { ReactNode } from 'react';
+
+export type DownloadItem = {
+  key: string;
+  title: string;
+  description: ReactNode;
+  links: { label: string; href: string; newTab?: boolean }[];
+  disabledReason?: string;
+};
+
+export function DownloadList({ items }: { items: DownloadItem[] }) {
+  return (
+    <ul className="divide-y divide-line rounded-lg border border-line bg-white">
+      {items.map((item) => (
+        <li
+          key={item.key}
+          className="flex flex-col gap-3 p-4 sm:flex-row sm:items-center sm:justify-between"
+        >
+          <div className="min-w-0">
+            <p className="font-medium text-ink">{item.title}</p>
+            <p className="text-sm text-ink-soft">{item.description}</p>
+            {item.disabledReason && (
+              <p className="mt-1 text-xs text-ink-muted">{item.disabledReason}</p>
+            )}
+          </div>
+          {!item.disabledReason && (
+            <div className="flex shrink-0 flex-wrap gap-2">
+              {item.links.map((l) => (
+                <a
+                  key={l.label}
+                  href={l.href}
+                  {...(l.newTab ? { target: '_blank', rel: 'noopener' } : { download: '' })}
+                  className="inline-flex h-9 items-center rounded-md border border-line bg-white px-3 text-sm font-medium text-ink hover:border-primary hover:text-primary"
+                >
+                  {l.label}
+                </a>
+              ))}
+            </div>
+          )}
+        </li>
+      ))}
+    </ul>
+  );
+}

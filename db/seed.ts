@@ -5,6 +5,7 @@
 import path from 'node:path';
 import { createDb, migrateDb } from './client';
 import { seedDemoAccounts } from './seed/demo-accounts';
+import { ensureDemoStudy } from './seed/demo-study';
 import { loadEnv } from '../server/env';
 
 async function main() {
@@ -14,7 +15,8 @@ async function main() {
     await migrateDb(db);
     const credentialsFile =
       process.env.CW_DEMO_CREDENTIALS_FILE ?? path.join(env.DATA_DIR, 'demo-credentials.json');
-    const { credentials } = await seedDemoAccounts(db, credentialsFile);
+    const { credentials, teamId, ownerId } = await seedDemoAccounts(db, credentialsFile);
+    await ensureDemoStudy(db, { teamId, ownerId });
     console.log('\n  DEMO CREDENTIALS (local demo data only; not for real studies)');
     for (const c of credentials)
       console.log(`    ${c.role.padEnd(8)} ${c.email.padEnd(34)} ${c.password}`);

@@ -17,6 +17,7 @@ test('an owner invites an analyst, who joins from the e-mailed link with read-on
     await signUp(page, { ...owner, teamName });
     await page.getByRole('link', { name: 'Team', exact: true }).click();
     await expect(page.getByRole('heading', { name: 'Team members' })).toBeVisible();
+    await expect(page.getByRole('form', { name: 'Rename the team' })).toBeVisible();
     const invite = page.getByRole('form', { name: 'Invite a teammate' });
     await invite.getByLabel('E-mail address').fill(analyst.email);
     await invite.getByLabel('Role').selectOption('analyst');
@@ -66,6 +67,7 @@ test('an owner invites an analyst, who joins from the e-mailed link with read-on
     await expect(page.getByText('your role: Analyst')).toBeVisible();
     await expect(page.getByText('Only owners can invite people')).toBeVisible();
     await expect(page.getByRole('form', { name: 'Invite a teammate' })).toHaveCount(0);
+    await expect(page.getByRole('form', { name: 'Rename the team' })).toHaveCount(0);
     await expect(page.getByRole('combobox')).toHaveCount(1); // only the team switcher
     await expect(page.getByRole('button', { name: /^Remove / })).toHaveCount(0);
     await expect(page.getByRole('heading', { name: 'Pending invitations' })).toHaveCount(0);

@@ -11,6 +11,7 @@ import { MemberList } from '@/features/team/components/member-list';
 import { InviteForm } from '@/features/team/components/invite-form';
 import { PendingInvitations } from '@/features/team/components/pending-invitations';
 import { RoleGuide } from '@/features/team/components/role-guide';
+import { RenameTeamForm } from '@/features/team/components/rename-team-form';
 import { roleLabels } from '@/features/team/components/role-label';
 
 /** Starts loading the member list with the route; a refusal is shown by the page, not here. */
@@ -92,6 +93,16 @@ export function Component() {
                 We e-mail a link that works once and expires after 7 days.
               </p>
               <InviteForm teamId={teamId} />
+            </Card>
+          )}
+          {canManage && (
+            <Card title="Team name">
+              <RenameTeamForm
+                key={teamId}
+                teamId={teamId}
+                currentName={teamName}
+                onRenamed={refreshMe}
+              />
             </Card>
           )}
           <Card title="What each role may do">

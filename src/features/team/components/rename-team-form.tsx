@@ -1,0 +1,45 @@
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { renameTeamSchema, type CreateTeamInput } from '@shared/schemas/team';
+import { TextField } from '@/components/ui/field';
+import { Button } from '@/components/ui/button';
+import { Alert } from '@/components/ui/feedback';
+import { applyFieldErrors } from '@/lib/api-client';
+import { useRenameTeam } from '../api/rename-team';
+
+export function RenameTeamForm({
+  teamId,
+  currentName,
+  onRenamed,
+}: {
+  teamId: string;
+  currentName: string;
+  onRenamed: () => void;
+}) {
+  const rename = useRenameTeam({ onSuccess: onRenamed });
+  const form = useForm<CreateTeamInput>({
+    resolver: zodResolver(renameTeamSchema),
+    defaultValues: { name: currentName },
+  });
+  const { errors, isSubmitting, isDirty } = form.formState;
+
+  const onSubmit = form.handleSubmit(async (values) => {
+    try {
+      const team = await rename.mutateAsync({ teamId, ...values });
+      form.reset({ name: team.name });
+    } catch (err) {
+      applyFieldErrors(err, form.setError);
+    }
+  });
+
+  return (
+    <form onSubmit={onSubmit} className="space-y-4" noValidate aria-label="Rename the team">
+      <TextField label="Team name" error={errors.name?.message} {...form.register('name')} />
+      {rename.isError && !errors.name && <Alert tone="danger">{rename.error.message}</Alert>}
+      {rename.isSuccess && !isDirty && <Alert tone="success">Team renamed.</Alert>}
+      <Button type="submit" variant="secondary" busy={isSubmitting} disabled={!isDirty}>
+        Rename team
+      </Button>
+    </form>
+  );
+}

@@ -1,0 +1,78 @@
+/**
+ * The real queue (pg-boss on the test database) with a worker in this process: a run started
+ * through the API is picked up and finished by the worker, and a run left running by a worker
+ * that died is failed by the sweep the worker runs when it starts.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { eq } from 'drizzle-orm';
+import { createTestApp, type TestApp } from '../../support/test-app';
+import { createTeamWithAllRoles } from '../../support/factories';
+import { runs } from '../../../db/schema/models';
+import { getRunForJob } from '../../../db/queries/runs';
+import { startJobQueue, type JobQueue } from '../../../server/jobs/queue';
+import { createJobKinds } from '../../../server/jobs/background';
+import { STALE_RUN_MS, WORKER_LOST_ERROR } from '../../../server/jobs/estimation-job';
+import { seedRunStudy, TRUE_MNL } from './run-fixtures';
+
+let t: TestApp;
+let queue: JobQueue;
+let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
+let base: string;
+let staleRunId: string;
+
+beforeAll(async () => {
+  t = await createTestApp();
+  team = await createTeamWithAllRoles(t);
+  const study = await seedRunStudy(t.deps.db, { teamId: team.teamId, respondents: 20 });
+  base = `/api/teams/${team.teamId}/studies/${study.studyId}/runs`;
+  // A run a crashed worker left behind: running, its heartbeat long silent.
+  t.deps.jobs = { send: async () => {} };
+  const res = await team.agents.analyst
+    .post(base)
+    .send({ spec: { model: 'mnl', coefficients: [{ name: 'bill', column: 'attr:bill' }] } })
+    .expect(201);
+  staleRunId = res.body.id;
+  const silent = new Date(Date.now() - STALE_RUN_MS - 60_000);
+  await t.deps.db
+    .update(runs)
+    .set({ status: 'running', startedAt: silent, progress: { heartbeatAt: silent.toISOString() } })
+    .where(eq(runs.id, staleRunId));
+  queue = await startJobQueue(t.deps, { kinds: createJobKinds(), work: true });
+  t.deps.jobs = queue;
+}, 60_000);
+
+afterAll(async () => {
+  await queue?.stop();
+  await t.close();
+});
+
+async function waitForEnd(runId: string, timeoutMs = 45_000) {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const row = await getRunForJob(t.deps.db, { id: runId });
+    if (row && !['queued', 'running'].includes(row.status)) return row;
+    if (Date.now() > deadline) throw new Error(`run still ${row?.status}`);
+    await new Promise((r) => setTimeout(r, 250));
+  }
+}
+
+describe('estimation runs on the job queue', () => {
+  it('fails, at worker start, a run whose worker died', async () => {
+    const row = await getRunForJob(t.deps.db, { id: staleRunId });
+    expect(row).toMatchObject({ status: 'failed', error: WORKER_LOST_ERROR });
+  });
+
+  it('runs a queued run on the worker to done', async () => {
+    const coefficients = Object.keys(TRUE_MNL).map((column, k) => ({ name: `b${k}`, column }));
+    const res = await team.agents.analyst
+      .post(base)
+      .send({ spec: { model: 'mnl', coefficients } })
+      .expect(201);
+    const row = await waitForEnd(res.body.id);
+    expect(row.error).toBeNull();
+    expect(row.status).toBe('done');
+    expect(row.dataHash).toMatch(/^[0-9a-f]{64}$/);
+    const view = await team.agents.viewer.get(`${base}/${res.body.id}`).expect(200);
+    expect(view.body.results).toMatchObject({ model: 'mnl', respondents: 20, parameters: 9 });
+  }, 60_000);
+});

@@ -87,9 +87,8 @@ export function DensityChart({
             parsing: false,
             scales: {
               x: {
+                // Without min/max the axis extends to round numbers around [lo, hi].
                 type: 'linear',
-                min: lo,
-                max: hi,
                 title: { display: true, text: 'Coefficient' },
                 ticks: { maxTicksLimit: 7 },
               },

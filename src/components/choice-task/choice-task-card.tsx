@@ -71,7 +71,7 @@ export function ChoiceTaskCard({
       <div
         role="radiogroup"
         aria-label={label}
-        className="flex flex-col gap-3 @xl:grid @xl:gap-4"
+        className="flex flex-col gap-3 @xl:grid @xl:gap-x-4 @xl:gap-y-0"
         style={{
           gridTemplateColumns: `repeat(${alternatives.length}, minmax(0, 1fr))`,
           gridTemplateRows: `auto repeat(${attributes.length}, auto) auto`,

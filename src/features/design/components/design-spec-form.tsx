@@ -7,7 +7,7 @@ import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/feedback';
 import {
   buildDesignSpec,
-  defaultDesignForm,
+  formValuesFromSpec,
   type DesignFormValues,
 } from '../utils/build-design-spec';
 import { PriorsTable } from './priors-table';
@@ -18,6 +18,8 @@ type Props = {
   disabled: boolean;
   busy: boolean;
   serverErrors: Map<string, string>;
+  /** Spec of the current design, used as the starting values. */
+  initial?: Partial<DesignSpec>;
   onGenerate: (spec: DesignSpec) => void;
 };
 
@@ -34,9 +36,10 @@ export function DesignSpecForm({
   disabled,
   busy,
   serverErrors,
+  initial,
   onGenerate,
 }: Props) {
-  const [v, setV] = useState<DesignFormValues>(defaultDesignForm);
+  const [v, setV] = useState<DesignFormValues>(() => formValuesFromSpec(initial));
   const [errors, setErrors] = useState<Map<string, string>>(new Map());
   const shown = errors.size > 0 ? errors : serverErrors;
   const set = (patch: Partial<DesignFormValues>) => setV((old) => ({ ...old, ...patch }));

@@ -61,13 +61,30 @@ export function Correlations({ d }: { d: DesignDiagnostics }) {
   );
 }
 
-export function ChoiceProbabilities({ d }: { d: DesignDiagnostics }) {
+export function ChoiceProbabilities({
+  d,
+  alternativeNames,
+}: {
+  d: DesignDiagnostics;
+  alternativeNames: string[];
+}) {
   if (d.priorsKind === 'zero')
     return (
       <p className="text-sm text-ink-soft">With zero priors every alternative is equally likely.</p>
     );
   return (
     <div>
+      <ul className="mb-2 flex flex-wrap gap-x-4 gap-y-1 text-xs text-ink-soft" aria-label="Legend">
+        {alternativeNames.map((name, j) => (
+          <li key={name} className="flex items-center gap-1">
+            <span
+              aria-hidden
+              className={cn('inline-block size-3 rounded-sm', ALT_COLOURS[j % ALT_COLOURS.length])}
+            />
+            {name}
+          </li>
+        ))}
+      </ul>
       <ul className="space-y-1">
         {d.choiceProbabilities.map((t) => {
           const dominant = Math.max(...t.probabilities) >= 0.9;
@@ -98,9 +115,8 @@ export function ChoiceProbabilities({ d }: { d: DesignDiagnostics }) {
         })}
       </ul>
       <p className="mt-2 text-xs text-ink-muted">
-        Each bar splits 100 % between the alternatives of a task in order (last: opt-out or status
-        quo when there is one). “!” marks a task where one alternative takes 90 % or more — it tells
-        little about trade-offs.
+        Each bar splits 100 % between the alternatives of a task. “!” marks a task where one
+        alternative takes 90 % or more — it tells little about trade-offs.
       </p>
     </div>
   );

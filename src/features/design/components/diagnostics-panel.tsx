@@ -13,18 +13,27 @@ const criterion = {
 };
 
 /** How good the design is: criteria, balance, overlap, correlations, probabilities, sample size. */
-export function DiagnosticsPanel({ d }: { d: DesignDiagnostics }) {
+export function DiagnosticsPanel({
+  d,
+  alternativeNames,
+}: {
+  d: DesignDiagnostics;
+  /** Names of the alternatives in task order (designed ones, then opt-out / status quo). */
+  alternativeNames: string[];
+}) {
   return (
     <div className="space-y-4">
       <Card title="Design quality">
         <dl className="grid grid-cols-2 gap-3 text-sm">
           <div>
             <dt className="text-xs text-ink-muted">{criterion[d.priorsKind]}</dt>
-            <dd className="num text-left text-xl font-semibold text-ink">{fmt(d.dError)}</dd>
+            <dd className="font-mono text-xl font-semibold tabular-nums text-ink">
+              {fmt(d.dError)}
+            </dd>
           </div>
           <div>
             <dt className="text-xs text-ink-muted">D-efficiency</dt>
-            <dd className="num text-left text-xl font-semibold text-ink">
+            <dd className="font-mono text-xl font-semibold tabular-nums text-ink">
               {d.dEfficiency ? pct(d.dEfficiency.efficiency) : '—'}
             </dd>
             {!d.dEfficiency && (
@@ -34,12 +43,12 @@ export function DiagnosticsPanel({ d }: { d: DesignDiagnostics }) {
           {d.priorsKind !== 'zero' && (
             <div>
               <dt className="text-xs text-ink-muted">D₀-error</dt>
-              <dd className="num text-left">{fmt(d.dErrorZero)}</dd>
+              <dd className="font-mono tabular-nums">{fmt(d.dErrorZero)}</dd>
             </div>
           )}
           <div>
             <dt className="text-xs text-ink-muted">Parameters · tasks · blocks</dt>
-            <dd className="num text-left">
+            <dd className="font-mono tabular-nums">
               {d.parameters} · {d.tasks} · {d.blocks}
             </dd>
           </div>
@@ -96,7 +105,7 @@ export function DiagnosticsPanel({ d }: { d: DesignDiagnostics }) {
         <Correlations d={d} />
       </Card>
       <Card title="Choice probabilities under the priors">
-        <ChoiceProbabilities d={d} />
+        <ChoiceProbabilities d={d} alternativeNames={alternativeNames} />
       </Card>
       <Card title="Sample-size guide">
         <SampleSizeGuide d={d} />

@@ -62,3 +62,24 @@ export function buildDesignSpec(
   }
   return { ok: false, errors };
 }
+
+/** The form filled from the spec of the current design, so a re-run starts from it. */
+export function formValuesFromSpec(spec: Partial<DesignSpec> | undefined): DesignFormValues {
+  if (!spec || !spec.method || !['d_efficient', 'random', 'full_factorial'].includes(spec.method))
+    return defaultDesignForm;
+  const priors: PriorInputs = {};
+  const p = spec.priors;
+  if (p && p.kind !== 'zero')
+    for (const c of p.columns)
+      priors[c.key] = { mean: String(c.mean), sd: 'sd' in c ? String(c.sd) : '0' };
+  return {
+    method: spec.method,
+    tasks: spec.tasks !== undefined ? String(spec.tasks) : '',
+    blocks: String(spec.blocks ?? 1),
+    starts: String(spec.starts ?? 5),
+    seed: String(spec.seed ?? 1),
+    priorsKind: p?.kind ?? 'zero',
+    draws: p?.kind === 'bayesian' ? String(p.draws) : '200',
+    priors,
+  };
+}

@@ -95,7 +95,7 @@ export function Component() {
         </SelectField>
         <SelectField
           label="Task"
-          wrapperClassName="w-40"
+          wrapperClassName="w-52"
           value={taskIndex}
           onChange={(e) => {
             setTaskIndex(Number(e.target.value));
@@ -110,7 +110,7 @@ export function Component() {
         </SelectField>
         <p className="pb-2 text-xs text-ink-muted">Tap an option to see how a choice looks.</p>
       </div>
-      <div className="flex flex-col gap-8 xl:flex-row xl:items-start">
+      <div className="flex flex-col gap-8">
         <section aria-label="Phone preview" className="shrink-0">
           <h2 className="mb-2 text-sm font-semibold text-ink-soft">Phone (360 px)</h2>
           <div className="w-[360px] max-w-full overflow-hidden rounded-[2rem] border-8 border-ink bg-canvas shadow-lg">
@@ -120,10 +120,10 @@ export function Component() {
             </div>
           </div>
         </section>
-        <section aria-label="Desktop preview" className="min-w-0 flex-1">
+        <section aria-label="Desktop preview" className="min-w-0">
           <h2 className="mb-2 text-sm font-semibold text-ink-soft">Desktop</h2>
           <div className="overflow-x-auto rounded-lg border border-line bg-canvas">
-            <div className="min-w-[900px] p-6">
+            <div className="mx-auto min-w-[720px] max-w-5xl p-6">
               {heading}
               {card}
             </div>

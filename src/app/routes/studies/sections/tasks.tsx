@@ -1,6 +1,8 @@
 import { useMemo } from 'react';
 import { Link, useParams } from 'react-router';
 import { getCodedColumns } from '@shared/engine/coding/coded-columns';
+import type { DesignSpec } from '@shared/schemas/design-spec';
+import type { StudyDefinition } from '@shared/schemas/study-definition';
 import { paths } from '@/config/paths';
 import { ApiError } from '@/lib/api-client';
 import { Alert, Card, EmptyState, Spinner } from '@/components/ui/feedback';
@@ -23,6 +25,15 @@ const methodNames = {
   d_efficient: 'D-efficient',
   imported: 'Imported from CSV',
 };
+
+function alternativeNamesOf(d: StudyDefinition): string[] {
+  const designed = Array.from({ length: d.alternatives.count }, (_, j) =>
+    d.alternatives.labeled
+      ? (d.alternatives.labels[j]?.name ?? `Alternative ${j + 1}`)
+      : `Option ${'ABCDE'[j]}`,
+  );
+  return d.fixedAlternative ? [...designed, d.fixedAlternative.label] : designed;
+}
 
 export function Component() {
   const { teamId = '', studyId = '' } = useParams();
@@ -79,6 +90,7 @@ export function Component() {
             disabled={running}
             busy={start.isPending}
             serverErrors={serverErrors}
+            initial={design?.spec as Partial<DesignSpec> | undefined}
             onGenerate={(spec) => start.mutate(spec)}
           />
         )}
@@ -118,7 +130,10 @@ export function Component() {
       <aside aria-label="Diagnostics">
         <PanelErrorBoundary title="Diagnostics could not be shown">
           {design ? (
-            <DiagnosticsPanel d={design.diagnostics} />
+            <DiagnosticsPanel
+              d={design.diagnostics}
+              alternativeNames={alternativeNamesOf(study.definition)}
+            />
           ) : (
             <p className="text-sm text-ink-muted">
               Diagnostics appear here once there is a design.

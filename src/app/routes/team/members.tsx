@@ -96,7 +96,7 @@ export function Component() {
             </Card>
           )}
           {canManage && (
-            <Card title="Team name">
+            <Card title="Rename the team">
               <RenameTeamForm
                 key={teamId}
                 teamId={teamId}

@@ -47,7 +47,7 @@ export function LevelRow(props: Props) {
     <div className="flex flex-wrap items-start gap-2 rounded-md border border-line/70 bg-white p-2">
       {handle}
       {numeric && (
-        <div className="w-28">
+        <div className="w-20 sm:w-28">
           <label htmlFor={`${id}-v`} className="sr-only">
             Value
           </label>
@@ -70,7 +70,7 @@ export function LevelRow(props: Props) {
           />
         </div>
       )}
-      <div className="min-w-40 flex-1">
+      <div className="min-w-0 flex-1 basis-28">
         <label htmlFor={`${id}-l`} className="sr-only">
           {numeric ? 'Shown as' : 'Level label'}
         </label>

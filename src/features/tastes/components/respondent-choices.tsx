@@ -1,10 +1,14 @@
-/** A respondent's design-task choices, task by task, on the shared task card (read-only). */
-import {
-  ChoiceTaskCard,
-  type ChoiceTaskAlternative,
-} from '@/components/choice-task/choice-task-card';
+/**
+ * A respondent's design-task choices, task by task, as compact read-only tables (attributes in
+ * rows, alternatives in columns, the chosen one marked). The shared task card is built for
+ * answering (it shows choose buttons), so the analyst's view uses this denser layout instead.
+ */
+import { cn } from '@/lib/cn';
 import type { RespondentChoice } from '@shared/schemas/tastes';
 import type { StudyDefinition } from '@shared/schemas/study-definition';
+
+const ordinal = (n: number) =>
+  `${n}${n % 10 === 1 && n !== 11 ? 'st' : n % 10 === 2 && n !== 12 ? 'nd' : n % 10 === 3 && n !== 13 ? 'rd' : 'th'}`;
 
 export function RespondentChoices({
   definition,
@@ -15,32 +19,65 @@ export function RespondentChoices({
 }) {
   if (choices.length === 0) return <p className="text-sm text-ink-muted">No choice answers.</p>;
   return (
-    <ol className="space-y-6">
+    <ol className="grid gap-5 lg:grid-cols-2">
       {choices.map((c) => {
-        const alternatives: ChoiceTaskAlternative[] = c.alternatives.map((a) =>
-          a.fixed
-            ? { kind: 'fixed' }
-            : { kind: 'designed', designIndex: a.index, levels: a.levelIds },
-        );
-        const selected = c.alternatives.findIndex((a) => a.index === c.chosen);
-        const chosen = c.alternatives[selected];
+        const chosen = c.alternatives.find((a) => a.index === c.chosen);
         return (
-          <li key={c.task}>
-            <h4 className="mb-2 text-sm font-semibold text-ink">
+          <li key={c.task} className="min-w-0">
+            <h4 className="mb-1 text-sm font-semibold text-ink">
               Task {c.task}
               <span className="ml-2 font-normal text-ink-muted">
-                answered {c.position}
-                {c.position === 1 ? 'st' : c.position === 2 ? 'nd' : c.position === 3 ? 'rd' : 'th'}
+                {c.position !== null && `answered ${ordinal(c.position)}`}
                 {c.responseMs !== null && ` · ${(c.responseMs / 1000).toFixed(1)} s`}
-                {chosen && ` · chose ${chosen.label}`}
               </span>
             </h4>
-            <ChoiceTaskCard
-              definition={definition}
-              alternatives={alternatives}
-              selectedIndex={selected >= 0 ? selected : null}
-              label={`Task ${c.task}: the respondent's choice`}
-            />
+            <div className="overflow-x-auto rounded-md border border-line">
+              <table className="min-w-full text-sm">
+                <caption className="sr-only">
+                  Task {c.task}: chose {chosen?.label ?? 'nothing'}
+                </caption>
+                <thead>
+                  <tr className="bg-canvas text-xs">
+                    <th className="px-2 py-1.5 text-left font-medium text-ink-soft">Attribute</th>
+                    {c.alternatives.map((a) => (
+                      <th
+                        key={a.index}
+                        className={cn(
+                          'px-2 py-1.5 text-left font-semibold',
+                          a.index === c.chosen ? 'bg-primary text-white' : 'text-ink',
+                        )}
+                      >
+                        {a.label}
+                        {a.index === c.chosen && <span className="ml-1">✓ chosen</span>}
+                      </th>
+                    ))}
+                  </tr>
+                </thead>
+                <tbody>
+                  {definition.attributes.map((attr) => (
+                    <tr key={attr.id} className="border-t border-line/70">
+                      <th
+                        scope="row"
+                        className="px-2 py-1 text-left text-xs font-normal text-ink-muted"
+                      >
+                        {attr.name}
+                      </th>
+                      {c.alternatives.map((a) => (
+                        <td
+                          key={a.index}
+                          className={cn(
+                            'px-2 py-1',
+                            a.index === c.chosen && 'bg-primary-soft font-medium',
+                          )}
+                        >
+                          {a.levels[attr.name] ?? '—'}
+                        </td>
+                      ))}
+                    </tr>
+                  ))}
+                </tbody>
+              </table>
+            </div>
           </li>
         );
       })}

@@ -97,14 +97,13 @@ export function SegmentsPanel({
         {segments.data && (
           <>
             <SegmentsChart data={segments.data} view={view} />
-            <div className="mt-4 overflow-x-auto">
+            <p className="mt-4 mb-1 text-xs text-ink-muted">
+              Conditional means of {segments.data.coefficient.label} by {segments.data.groupLabel}
+              {segments.data.ungrouped > 0 &&
+                ` (${segments.data.ungrouped} respondents without an answer left out)`}
+            </p>
+            <div className="overflow-x-auto">
               <table className="min-w-full text-sm">
-                <caption className="mb-1 text-left text-xs text-ink-muted">
-                  Conditional means of {segments.data.coefficient.label} by{' '}
-                  {segments.data.groupLabel}
-                  {segments.data.ungrouped > 0 &&
-                    ` (${segments.data.ungrouped} respondents without an answer left out)`}
-                </caption>
                 <thead className="border-b border-line text-xs text-ink-soft">
                   <tr>
                     <th className="px-2 py-1 text-left">Group</th>
@@ -118,7 +117,7 @@ export function SegmentsPanel({
                 <tbody className="font-mono tabular-nums">
                   {segments.data.groups.map((g) => (
                     <tr key={g.key} className="border-b border-line/60">
-                      <td className="px-2 py-1 font-sans">{g.label}</td>
+                      <td className="px-2 py-1 font-sans whitespace-nowrap">{g.label}</td>
                       <td className="px-2 py-1 text-right">{g.count}</td>
                       <td className="px-2 py-1 text-right">{formatNumber(g.mean)}</td>
                       <td className="px-2 py-1 text-right">{formatNumber(g.sd)}</td>

@@ -61,7 +61,9 @@ export function TastesTable({
                     className="text-right"
                   >
                     {c.label}
-                    <span className="block font-normal text-ink-muted">mean ± SD</span>
+                    <span className="block font-normal text-ink-muted">
+                      {c.distribution === 'fixed' ? 'fixed' : 'mean ± SD'}
+                    </span>
                   </button>
                 </th>
               ))}
@@ -104,10 +106,21 @@ export function TastesTable({
                 )}
                 {data.coefficients.map((c) => (
                   <td key={c.name} className={num}>
-                    {formatNumber(r.mean[c.name])}
-                    <span className="ml-1 text-xs text-ink-muted">
-                      ± {formatNumber(r.sd[c.name])}
-                    </span>
+                    {c.distribution === 'fixed' ? (
+                      <span
+                        className="text-ink-muted"
+                        title="Fixed coefficient: the same for everybody"
+                      >
+                        {formatNumber(r.mean[c.name])}
+                      </span>
+                    ) : (
+                      <>
+                        {formatNumber(r.mean[c.name])}
+                        <span className="ml-1 text-xs text-ink-muted">
+                          ± {formatNumber(r.sd[c.name])}
+                        </span>
+                      </>
+                    )}
                   </td>
                 ))}
                 {data.wtp.map((n) => (

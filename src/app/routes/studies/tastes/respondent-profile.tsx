@@ -18,6 +18,8 @@ export function Component() {
   if (profile.isPending) return <Spinner label="Loading the respondent…" />;
   if (profile.error) return <ErrorText error={profile.error} />;
   const { header, row, choices, definition } = profile.data;
+  const random = header.coefficients.filter((c) => c.distribution !== 'fixed');
+  const fixed = header.coefficients.filter((c) => c.distribution === 'fixed');
   const back = `${paths.studySection.getHref(teamId, studyId, 'tastes')}?run=${runId}`;
   return (
     <div className="space-y-6">
@@ -36,7 +38,7 @@ export function Component() {
       <TasteCautions lowDraws={row.lowDraws ? 1 : 0} />
       <Card title="Conditional distribution beside the population">
         <div className="grid gap-4 sm:grid-cols-2 xl:grid-cols-3">
-          {header.coefficients.map((c) => (
+          {random.map((c) => (
             <RespondentDistributionChart
               key={c.name}
               coefficient={c}
@@ -45,6 +47,18 @@ export function Component() {
             />
           ))}
         </div>
+        {fixed.length > 0 && (
+          <p className="mt-4 text-sm text-ink-soft">
+            Fixed coefficients, the same for everybody:{' '}
+            {fixed.map((c, i) => (
+              <span key={c.name}>
+                {i > 0 && ' · '}
+                {c.label}{' '}
+                <span className="font-mono tabular-nums">{formatNumber(c.populationMean)}</span>
+              </span>
+            ))}
+          </p>
+        )}
       </Card>
       <div className="grid gap-6 lg:grid-cols-2">
         {header.wtp.length > 0 && (

@@ -1,0 +1,14 @@
+/** Query keys of the lifecycle feature, broad to narrow. */
+export const lifecycleKeys = {
+  all: ['lifecycle'] as const,
+  study: (teamId: string, studyId: string) => [...lifecycleKeys.all, teamId, studyId] as const,
+  state: (teamId: string, studyId: string) =>
+    [...lifecycleKeys.study(teamId, studyId), 'state'] as const,
+  readiness: (teamId: string, studyId: string) =>
+    [...lifecycleKeys.study(teamId, studyId), 'readiness'] as const,
+  versions: (teamId: string, studyId: string) =>
+    [...lifecycleKeys.study(teamId, studyId), 'versions'] as const,
+};
+
+export const lifecycleBase = (teamId: string, studyId: string) =>
+  `/teams/${teamId}/studies/${studyId}/lifecycle`;

@@ -1,0 +1,170 @@
+import { useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { Alert, Card, Spinner } from '@/components/ui/feedback';
+import { ErrorText } from '@/components/ui/error-boundary';
+import { ApiError } from '@/lib/api-client';
+import { paths } from '@/config/paths';
+import type { LifecycleAction } from '@shared/schemas/study-lifecycle';
+import { useLifecycle } from '../api/get-lifecycle';
+import { useReadiness } from '../api/get-readiness';
+import { useChangeStatus } from '../api/change-status';
+import { SettingsForm } from './settings-form';
+import { VersionsList } from './versions-list';
+
+const closedReasons = {
+  manual: 'closed by hand',
+  date: 'closed at its close date',
+  quota: 'closed when the quota of completes was reached',
+} as const;
+
+function PublicLink({ publicId, panelParam }: { publicId: string; panelParam: string }) {
+  const [copied, setCopied] = useState(false);
+  const url = `${window.location.origin}${paths.respond.getHref(publicId)}`;
+  return (
+    <div className="space-y-1">
+      <p className="text-sm font-medium text-ink">Public link</p>
+      <div className="flex flex-wrap items-center gap-2">
+        <code className="min-w-0 flex-1 truncate rounded-md border border-line bg-canvas px-3 py-2 font-mono text-sm">
+          {url}
+        </code>
+        <Button
+          variant="secondary"
+          size="sm"
+          onClick={() =>
+            void navigator.clipboard?.writeText(url).then(() => {
+              setCopied(true);
+              setTimeout(() => setCopied(false), 2000);
+            })
+          }
+        >
+          {copied ? 'Copied' : 'Copy'}
+        </Button>
+      </div>
+      <p className="text-xs text-ink-muted">
+        Panels add <span className="font-mono">?{panelParam}=…</span>; personal links from
+        invitations add <span className="font-mono">?inv=…</span>.
+      </p>
+    </div>
+  );
+}
+
+/** Status, readiness and the lifecycle actions of a study, with its links and fieldwork settings. */
+export function LifecyclePanel({
+  teamId,
+  studyId,
+  canManage,
+}: {
+  teamId: string;
+  studyId: string;
+  canManage: boolean;
+}) {
+  const state = useLifecycle(teamId, studyId);
+  const isDraft = state.data?.status === 'draft';
+  const readiness = useReadiness(teamId, studyId, state.data?.status !== 'live');
+  const change = useChangeStatus(teamId, studyId);
+  if (state.isPending) return <Spinner label="Loading the study's state…" />;
+  if (state.error) return <ErrorText error={state.error} />;
+  const s = state.data;
+  const problems = readiness.data?.problems ?? [];
+  const act = (action: LifecycleAction, confirmText?: string) => {
+    if (confirmText && !window.confirm(confirmText)) return;
+    change.mutate(action);
+  };
+  const serverProblems =
+    change.error instanceof ApiError && change.error.code === 'not_ready'
+      ? change.error.fields
+      : [];
+
+  return (
+    <Card title="Go live and fieldwork">
+      <div className="space-y-5">
+        <p className="text-sm text-ink-soft">
+          {s.status === 'draft' &&
+            'Draft: respondents cannot answer yet. Going live freezes the attributes, design and questionnaire as a new version.'}
+          {s.status === 'live' &&
+            `Live since version ${s.currentVersion}: ${s.completes} complete${s.completes === 1 ? '' : 's'} so far. The study is frozen; close it to change anything.`}
+          {s.status === 'closed' &&
+            `Closed (${closedReasons[s.settings.closedReason ?? 'manual']}), ${s.completes} complete${s.completes === 1 ? '' : 's'}. Reopen to take more answers, or return it to draft to edit; edits become a new version.`}
+        </p>
+        {s.status !== 'live' && problems.length > 0 && (
+          <Alert tone="warning" title="Before going live">
+            <ul className="list-disc space-y-1 pl-5">
+              {problems.map((p, i) => (
+                <li key={i}>{p.message}</li>
+              ))}
+            </ul>
+          </Alert>
+        )}
+        {serverProblems.length > 0 && problems.length === 0 && (
+          <Alert tone="danger" title="The study could not go live">
+            <ul className="list-disc pl-5">
+              {serverProblems.map((p, i) => (
+                <li key={i}>{p.message}</li>
+              ))}
+            </ul>
+          </Alert>
+        )}
+        {change.error && serverProblems.length === 0 && <ErrorText error={change.error} />}
+        {canManage && (
+          <div className="flex flex-wrap gap-2">
+            {isDraft && (
+              <Button
+                busy={change.isPending}
+                disabled={problems.length > 0 || readiness.isPending}
+                onClick={() =>
+                  act(
+                    'go-live',
+                    'Go live? Respondents can answer from now on, and the study is frozen until you close it.',
+                  )
+                }
+              >
+                Go live
+              </Button>
+            )}
+            {s.status === 'live' && (
+              <Button
+                variant="danger"
+                busy={change.isPending}
+                onClick={() =>
+                  act('close', 'Close the study? Respondents still answering will be stopped.')
+                }
+              >
+                Close now
+              </Button>
+            )}
+            {s.status === 'closed' && (
+              <>
+                <Button
+                  busy={change.isPending}
+                  disabled={problems.length > 0}
+                  onClick={() => act('reopen')}
+                >
+                  Reopen
+                </Button>
+                <Button
+                  variant="secondary"
+                  busy={change.isPending}
+                  onClick={() => act('return-to-draft')}
+                >
+                  Return to draft to edit
+                </Button>
+              </>
+            )}
+          </div>
+        )}
+        <p className="text-xs text-ink-muted">
+          Surveys of people need informed consent and often ethics approval and data-protection
+          compliance: follow your ethics board and local law before going live.
+        </p>
+        <PublicLink publicId={s.publicId} panelParam={s.settings.panelParam} />
+        <SettingsForm
+          teamId={teamId}
+          studyId={studyId}
+          settings={s.settings}
+          canManage={canManage}
+        />
+        <VersionsList teamId={teamId} studyId={studyId} />
+      </div>
+    </Card>
+  );
+}

@@ -1,0 +1,136 @@
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { z } from 'zod';
+import { Button } from '@/components/ui/button';
+import { TextField } from '@/components/ui/field';
+import { Alert } from '@/components/ui/feedback';
+import { applyFieldErrors } from '@/lib/api-client';
+import type { FieldworkSettings } from '@shared/schemas/study-lifecycle';
+import { useUpdateSettings } from '../api/update-settings';
+
+/** The form works on text inputs; empty means "none". The server checks the parsed values again. */
+const formSchema = z.object({
+  closeAt: z.string(),
+  quotaCompletes: z.string().regex(/^\d*$/, 'A whole number of completes, or empty for no quota'),
+  panelParam: z
+    .string()
+    .regex(/^[A-Za-z][A-Za-z0-9_]{0,29}$/, 'Letters, digits and _, starting with a letter'),
+  complete: z.string(),
+  screenedOut: z.string(),
+  overQuota: z.string(),
+});
+type FormValues = z.infer<typeof formSchema>;
+
+const toLocalInput = (iso: string | null) => {
+  if (!iso) return '';
+  const d = new Date(iso);
+  const pad = (n: number) => String(n).padStart(2, '0');
+  return `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}T${pad(d.getHours())}:${pad(d.getMinutes())}`;
+};
+const orNull = (s: string) => (s.trim() === '' ? null : s.trim());
+
+export function SettingsForm({
+  teamId,
+  studyId,
+  settings,
+  canManage,
+}: {
+  teamId: string;
+  studyId: string;
+  settings: FieldworkSettings;
+  canManage: boolean;
+}) {
+  const update = useUpdateSettings(teamId, studyId);
+  const form = useForm<FormValues>({
+    resolver: zodResolver(formSchema),
+    values: {
+      closeAt: toLocalInput(settings.closeAt),
+      quotaCompletes: settings.quotaCompletes?.toString() ?? '',
+      panelParam: settings.panelParam,
+      complete: settings.redirects.complete ?? '',
+      screenedOut: settings.redirects.screenedOut ?? '',
+      overQuota: settings.redirects.overQuota ?? '',
+    },
+  });
+  const { errors } = form.formState;
+  const submit = form.handleSubmit((v) =>
+    update.mutate(
+      {
+        closeAt: v.closeAt ? new Date(v.closeAt).toISOString() : null,
+        quotaCompletes: v.quotaCompletes ? Number(v.quotaCompletes) : null,
+        panelParam: v.panelParam,
+        redirects: {
+          complete: orNull(v.complete),
+          screenedOut: orNull(v.screenedOut),
+          overQuota: orNull(v.overQuota),
+        },
+      },
+      {
+        onError: (err) =>
+          applyFieldErrors(err, (name, e) =>
+            form.setError(String(name).replace('redirects.', '') as keyof FormValues, e),
+          ),
+      },
+    ),
+  );
+  return (
+    <form onSubmit={submit} aria-label="Fieldwork settings" className="space-y-4">
+      <fieldset disabled={!canManage} className="grid gap-4">
+        <TextField
+          label="Close automatically at"
+          type="datetime-local"
+          error={errors.closeAt?.message}
+          hint="Local time. Leave empty to close by hand."
+          {...form.register('closeAt')}
+        />
+        <TextField
+          label="Close at this many completes"
+          inputMode="numeric"
+          error={errors.quotaCompletes?.message}
+          hint="Leave empty for no quota."
+          {...form.register('quotaCompletes')}
+        />
+        <TextField
+          label="Panel id parameter"
+          error={errors.panelParam?.message}
+          hint="Stored as the respondent's external id, e.g. ?pid=123."
+          {...form.register('panelParam')}
+        />
+        <TextField
+          label="Redirect when complete"
+          placeholder="https://panel.example/complete?id={pid}"
+          error={errors.complete?.message}
+          {...form.register('complete')}
+        />
+        <TextField
+          label="Redirect when screened out"
+          placeholder="https://panel.example/screened?id={pid}"
+          error={errors.screenedOut?.message}
+          {...form.register('screenedOut')}
+        />
+        <TextField
+          label="Redirect when over quota"
+          placeholder="https://panel.example/full?id={pid}"
+          error={errors.overQuota?.message}
+          hint="{pid} is replaced by the respondent's panel id."
+          {...form.register('overQuota')}
+        />
+      </fieldset>
+      {update.error && !applyFieldErrors(update.error, () => {}) && (
+        <Alert tone="danger">{update.error.message}</Alert>
+      )}
+      {canManage && (
+        <div className="flex items-center gap-3">
+          <Button type="submit" busy={update.isPending} disabled={!form.formState.isDirty}>
+            Save settings
+          </Button>
+          {update.isSuccess && !form.formState.isDirty && (
+            <span role="status" className="text-sm text-success">
+              Saved.
+            </span>
+          )}
+        </div>
+      )}
+    </form>
+  );
+}

@@ -1,0 +1,37 @@
+import { useVersions } from '../api/get-versions';
+
+/** Frozen versions with how many respondents saw each. */
+export function VersionsList({ teamId, studyId }: { teamId: string; studyId: string }) {
+  const { data } = useVersions(teamId, studyId);
+  if (!data || data.length === 0) return null;
+  return (
+    <div>
+      <p className="mb-1 text-sm font-medium text-ink">Versions</p>
+      <table className="w-full text-sm">
+        <thead>
+          <tr className="text-left text-xs text-ink-muted">
+            <th className="py-1 font-medium">Version</th>
+            <th className="py-1 font-medium">Frozen</th>
+            <th className="num py-1 font-medium">Respondents</th>
+            <th className="num py-1 font-medium">Completes</th>
+          </tr>
+        </thead>
+        <tbody>
+          {data.map((v) => (
+            <tr key={v.version} className="border-t border-line">
+              <td className="num py-1 text-left">{v.version}</td>
+              <td className="py-1">
+                {new Date(v.createdAt).toLocaleString('en-GB', {
+                  dateStyle: 'medium',
+                  timeStyle: 'short',
+                })}
+              </td>
+              <td className="num py-1">{v.respondents}</td>
+              <td className="num py-1">{v.completes}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}

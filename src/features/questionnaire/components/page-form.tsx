@@ -1,0 +1,145 @@
+import { TextAreaField, TextField } from '@/components/ui/field';
+import { pageKindLabels, type QuestionnairePage } from '@shared/schemas/questionnaire';
+import type { StudyDefinition } from '@shared/schemas/study-definition';
+import { QuestionFields } from './question-fields';
+import { DominanceFields, FixedTaskFields } from './task-page-fields';
+
+const kindHelp: Partial<Record<QuestionnairePage['kind'], string>> = {
+  consent:
+    'Respondents must agree before anything else. Say who runs the study, what is recorded, how long it is kept, that taking part is voluntary and that they may stop at any time. Follow your ethics board and data-protection law.',
+  tasks: "Each respondent sees their block's choice tasks here, one per screen, in a random order.",
+  warmup: 'A practice task shown before the design tasks. It is stored but not used in estimation.',
+  holdout: 'A fixed task every respondent sees. It is kept out of estimation to check predictions.',
+  repeat:
+    'Shows one of the respondent’s design tasks again with the alternatives in swapped positions, to check consistency.',
+  dominance: 'One alternative is better on every attribute: a check of attention.',
+  screening: 'Respondents whose answer matches a screen-out rule leave the survey here.',
+};
+
+export function PageForm({
+  page,
+  definition,
+  onChange,
+}: {
+  page: QuestionnairePage;
+  definition: StudyDefinition;
+  onChange: (p: QuestionnairePage) => void;
+}) {
+  const titled = (
+    <TextField
+      label="Title"
+      value={'title' in page ? page.title : ''}
+      onChange={(e) => onChange({ ...page, title: e.target.value } as QuestionnairePage)}
+    />
+  );
+  return (
+    <div className="space-y-4">
+      <div>
+        <h3 className="text-base font-semibold text-ink">{pageKindLabels[page.kind]}</h3>
+        {kindHelp[page.kind] && <p className="mt-1 text-sm text-ink-soft">{kindHelp[page.kind]}</p>}
+      </div>
+      {(page.kind === 'consent' || page.kind === 'instructions' || page.kind === 'end') && (
+        <>
+          {titled}
+          <TextAreaField
+            label="Text"
+            hint="A blank line starts a new paragraph."
+            className="min-h-48"
+            value={page.body}
+            onChange={(e) => onChange({ ...page, body: e.target.value })}
+          />
+        </>
+      )}
+      {page.kind === 'consent' && (
+        <TextField
+          label="Agreement checkbox"
+          value={page.agreeLabel}
+          onChange={(e) => onChange({ ...page, agreeLabel: e.target.value })}
+        />
+      )}
+      {(page.kind === 'tasks' || page.kind === 'repeat') && titled}
+      {page.kind === 'repeat' && (
+        <TextField
+          label="Repeat the respondent's task number"
+          inputMode="numeric"
+          defaultValue={page.repeatOf}
+          hint="1 repeats the first task they answered."
+          onBlur={(e) =>
+            onChange({ ...page, repeatOf: Math.max(1, Math.round(Number(e.target.value) || 1)) })
+          }
+        />
+      )}
+      {(page.kind === 'warmup' || page.kind === 'holdout') && (
+        <>
+          {titled}
+          <FixedTaskFields page={page} definition={definition} onChange={onChange} />
+        </>
+      )}
+      {page.kind === 'dominance' && (
+        <>
+          {titled}
+          <DominanceFields page={page} definition={definition} onChange={onChange} />
+        </>
+      )}
+      {(page.kind === 'question' || page.kind === 'screening') && (
+        <QuestionFields
+          question={page.question}
+          allowText={page.kind === 'question'}
+          onChange={(question) => onChange({ ...page, question } as QuestionnairePage)}
+        />
+      )}
+      {page.kind === 'screening' &&
+        (page.question.type === 'single' || page.question.type === 'multiple') && (
+          <fieldset className="space-y-2">
+            <legend className="mb-1 text-sm font-medium text-ink">
+              Screen out respondents who choose
+            </legend>
+            {page.question.options.map((o) => (
+              <label key={o.id} className="flex items-center gap-2 text-sm text-ink">
+                <input
+                  type="checkbox"
+                  className="size-4"
+                  checked={page.screenOutOptionIds.includes(o.id)}
+                  onChange={(e) =>
+                    onChange({
+                      ...page,
+                      screenOutOptionIds: e.target.checked
+                        ? [...page.screenOutOptionIds, o.id]
+                        : page.screenOutOptionIds.filter((x) => x !== o.id),
+                    })
+                  }
+                />
+                {o.label}
+              </label>
+            ))}
+          </fieldset>
+        )}
+      {page.kind === 'screening' && page.question.type === 'number' && (
+        <div className="grid gap-4 sm:grid-cols-2">
+          <TextField
+            label="Accept from (empty: no lower limit)"
+            inputMode="decimal"
+            defaultValue={page.acceptMin ?? ''}
+            onBlur={(e) =>
+              onChange({
+                ...page,
+                acceptMin: e.target.value.trim() === '' ? null : Number(e.target.value),
+              })
+            }
+          />
+          <TextField
+            label="Accept up to (empty: no upper limit)"
+            inputMode="decimal"
+            defaultValue={page.acceptMax ?? ''}
+            onBlur={(e) =>
+              onChange({
+                ...page,
+                acceptMax: e.target.value.trim() === '' ? null : Number(e.target.value),
+              })
+            }
+          />
+        </div>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,162 @@
+import {
+  closestCenter,
+  DndContext,
+  KeyboardSensor,
+  PointerSensor,
+  useSensor,
+  useSensors,
+  type DragEndEvent,
+} from '@dnd-kit/core';
+import {
+  arrayMove,
+  SortableContext,
+  sortableKeyboardCoordinates,
+  useSortable,
+  verticalListSortingStrategy,
+} from '@dnd-kit/sortable';
+import { CSS } from '@dnd-kit/utilities';
+import { cn } from '@/lib/cn';
+import { pageKindLabels, type QuestionnairePage } from '@shared/schemas/questionnaire';
+
+export function pageSummary(page: QuestionnairePage): string {
+  if (page.kind === 'question' || page.kind === 'screening') return page.question.text;
+  return page.title;
+}
+
+/** Pages that must stay in place: the consent page first and the end page last. */
+const pinned = (p: QuestionnairePage) => p.kind === 'consent' || p.kind === 'end';
+
+type RowProps = {
+  page: QuestionnairePage;
+  index: number;
+  selected: boolean;
+  onSelect: () => void;
+};
+
+function RowBody({ page, index, onSelect, selected }: RowProps) {
+  return (
+    <button
+      type="button"
+      onClick={onSelect}
+      aria-current={selected ? 'true' : undefined}
+      className="min-w-0 flex-1 px-2 py-2 text-left"
+    >
+      <span className="block text-xs font-medium text-primary">
+        <span className="num mr-1 inline-block w-5 text-left">{index + 1}</span>
+        {pageKindLabels[page.kind]}
+      </span>
+      <span className="block truncate text-sm text-ink">{pageSummary(page)}</span>
+    </button>
+  );
+}
+
+const rowClass = (selected: boolean) =>
+  cn(
+    'flex items-stretch rounded-md border bg-white',
+    selected ? 'border-primary ring-2 ring-primary/20' : 'border-line',
+  );
+
+/** Consent and end pages (and every page while the study is frozen) do not move. */
+function StaticRow(props: RowProps) {
+  return (
+    <li className={rowClass(props.selected)}>
+      <span className="w-9 shrink-0" aria-hidden />
+      <RowBody {...props} />
+    </li>
+  );
+}
+
+function SortableRow(props: RowProps) {
+  const s = useSortable({ id: props.page.id });
+  return (
+    <li
+      ref={s.setNodeRef}
+      style={{ transform: CSS.Transform.toString(s.transform), transition: s.transition }}
+      className={cn(rowClass(props.selected), s.isDragging && 'relative z-10 shadow-lg')}
+    >
+      <button
+        type="button"
+        {...s.attributes}
+        {...s.listeners}
+        aria-label={`Move page ${props.index + 1}: ${pageSummary(props.page)}`}
+        className="flex w-9 shrink-0 cursor-grab touch-none items-center justify-center rounded-l-md text-ink-muted hover:bg-primary-soft hover:text-primary"
+      >
+        <svg viewBox="0 0 16 16" className="size-4" aria-hidden>
+          <path
+            d="M5 3h2v2H5zM9 3h2v2H9zM5 7h2v2H5zM9 7h2v2H9zM5 11h2v2H5zM9 11h2v2H9z"
+            fill="currentColor"
+          />
+        </svg>
+      </button>
+      <RowBody {...props} />
+    </li>
+  );
+}
+
+/** The questionnaire's pages in order; drag by the handle, or focus it and use the arrow keys. */
+export function PageList({
+  pages,
+  selectedId,
+  onSelect,
+  onReorder,
+  disabled,
+}: {
+  pages: QuestionnairePage[];
+  selectedId: string | null;
+  onSelect: (id: string) => void;
+  onReorder: (pages: QuestionnairePage[]) => void;
+  disabled: boolean;
+}) {
+  const sensors = useSensors(
+    useSensor(PointerSensor, { activationConstraint: { distance: 4 } }),
+    useSensor(KeyboardSensor, { coordinateGetter: sortableKeyboardCoordinates }),
+  );
+  const movable = pages.filter((p) => !pinned(p));
+  const onDragEnd = (e: DragEndEvent) => {
+    if (!e.over || e.active.id === e.over.id) return;
+    const from = movable.findIndex((p) => p.id === e.active.id);
+    const to = movable.findIndex((p) => p.id === e.over!.id);
+    if (from < 0 || to < 0) return;
+    const moved = arrayMove(movable, from, to);
+    const first = pages.filter((p) => p.kind === 'consent');
+    const last = pages.filter((p) => p.kind === 'end');
+    onReorder([...first, ...moved, ...last]);
+  };
+  return (
+    <DndContext
+      sensors={sensors}
+      collisionDetection={closestCenter}
+      onDragEnd={onDragEnd}
+      accessibility={{
+        screenReaderInstructions: {
+          draggable:
+            'To move a page, press space or enter on its handle, use the up and down arrow keys, then press space or enter again. Escape cancels.',
+        },
+      }}
+    >
+      <SortableContext items={movable.map((p) => p.id)} strategy={verticalListSortingStrategy}>
+        <ol aria-label="Questionnaire pages" className="space-y-2">
+          {pages.map((p, i) =>
+            pinned(p) || disabled ? (
+              <StaticRow
+                key={p.id}
+                page={p}
+                index={i}
+                selected={p.id === selectedId}
+                onSelect={() => onSelect(p.id)}
+              />
+            ) : (
+              <SortableRow
+                key={p.id}
+                page={p}
+                index={i}
+                selected={p.id === selectedId}
+                onSelect={() => onSelect(p.id)}
+              />
+            ),
+          )}
+        </ol>
+      </SortableContext>
+    </DndContext>
+  );
+}

@@ -1,0 +1,166 @@
+import { nanoid } from 'nanoid';
+import { Button } from '@/components/ui/button';
+import { SelectField, TextAreaField, TextField } from '@/components/ui/field';
+import type { ChoiceOption, Question, QuestionType } from '@shared/schemas/questionnaire';
+
+const typeLabels: Record<QuestionType, string> = {
+  single: 'Single choice',
+  multiple: 'Multiple choice',
+  number: 'Number in a range',
+  text: 'Short text',
+};
+
+/** Switching the type keeps what still makes sense (key, wording, options). */
+function changeType(q: Question, type: QuestionType): Question {
+  const base = { key: q.key, text: q.text, help: q.help, required: q.required };
+  const options: ChoiceOption[] =
+    'options' in q
+      ? q.options
+      : [
+          { id: 'a', label: 'First option' },
+          { id: 'b', label: 'Second option' },
+        ];
+  if (type === 'single' || type === 'multiple') return { ...base, type, options };
+  if (type === 'number') return { ...base, type, min: 0, max: 10, integer: true, unit: '' };
+  return { ...base, type, maxLength: 500 };
+}
+
+export function QuestionFields({
+  question,
+  onChange,
+  allowText = true,
+}: {
+  question: Question;
+  onChange: (q: Question) => void;
+  allowText?: boolean;
+}) {
+  const q = question;
+  const num = (v: string) => (v.trim() === '' || Number.isNaN(Number(v)) ? 0 : Number(v));
+  return (
+    <div className="space-y-4">
+      <div className="grid gap-4 sm:grid-cols-2">
+        <SelectField
+          label="Answer type"
+          value={q.type}
+          onChange={(e) => onChange(changeType(q, e.target.value as QuestionType))}
+        >
+          {(Object.keys(typeLabels) as QuestionType[])
+            .filter((t) => allowText || t !== 'text')
+            .map((t) => (
+              <option key={t} value={t}>
+                {typeLabels[t]}
+              </option>
+            ))}
+        </SelectField>
+        <TextField
+          label="Key (column name in exports)"
+          value={q.key}
+          onChange={(e) => onChange({ ...q, key: e.target.value })}
+          className="font-mono"
+        />
+      </div>
+      <TextAreaField
+        label="Question"
+        value={q.text}
+        onChange={(e) => onChange({ ...q, text: e.target.value })}
+      />
+      <TextField
+        label="Help text (optional)"
+        value={q.help}
+        onChange={(e) => onChange({ ...q, help: e.target.value })}
+      />
+      <label className="flex items-center gap-2 text-sm text-ink">
+        <input
+          type="checkbox"
+          checked={q.required}
+          onChange={(e) => onChange({ ...q, required: e.target.checked })}
+          className="size-4"
+        />
+        An answer is required
+      </label>
+      {(q.type === 'single' || q.type === 'multiple') && (
+        <fieldset className="space-y-2">
+          <legend className="mb-1 text-sm font-medium text-ink">Options</legend>
+          {q.options.map((o, i) => (
+            <div key={o.id} className="flex items-end gap-2">
+              <TextField
+                label={`Option ${i + 1}`}
+                value={o.label}
+                wrapperClassName="flex-1"
+                onChange={(e) =>
+                  onChange({
+                    ...q,
+                    options: q.options.map((x) =>
+                      x.id === o.id ? { ...x, label: e.target.value } : x,
+                    ),
+                  })
+                }
+              />
+              <Button
+                variant="ghost"
+                size="sm"
+                aria-label={`Remove option ${i + 1}`}
+                disabled={q.options.length <= 2}
+                onClick={() => onChange({ ...q, options: q.options.filter((x) => x.id !== o.id) })}
+              >
+                Remove
+              </Button>
+            </div>
+          ))}
+          <Button
+            variant="secondary"
+            size="sm"
+            onClick={() =>
+              onChange({
+                ...q,
+                options: [...q.options, { id: nanoid(8), label: `Option ${q.options.length + 1}` }],
+              })
+            }
+          >
+            Add option
+          </Button>
+        </fieldset>
+      )}
+      {q.type === 'number' && (
+        <div className="grid gap-4 sm:grid-cols-4">
+          <TextField
+            label="Lowest"
+            inputMode="decimal"
+            defaultValue={q.min}
+            onBlur={(e) => onChange({ ...q, min: num(e.target.value) })}
+          />
+          <TextField
+            label="Highest"
+            inputMode="decimal"
+            defaultValue={q.max}
+            onBlur={(e) => onChange({ ...q, max: num(e.target.value) })}
+          />
+          <TextField
+            label="Unit (optional)"
+            value={q.unit}
+            onChange={(e) => onChange({ ...q, unit: e.target.value })}
+          />
+          <label className="flex items-center gap-2 self-end pb-2 text-sm text-ink">
+            <input
+              type="checkbox"
+              checked={q.integer}
+              onChange={(e) => onChange({ ...q, integer: e.target.checked })}
+              className="size-4"
+            />
+            Whole numbers only
+          </label>
+        </div>
+      )}
+      {q.type === 'text' && (
+        <TextField
+          label="Longest answer (characters)"
+          inputMode="numeric"
+          defaultValue={q.maxLength}
+          onBlur={(e) =>
+            onChange({ ...q, maxLength: Math.max(1, Math.min(2000, num(e.target.value) || 500)) })
+          }
+        />
+      )}
+    </div>
+  );
+}

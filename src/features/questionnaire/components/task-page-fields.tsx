@@ -1,0 +1,92 @@
+import { SelectField } from '@/components/ui/field';
+import type { QuestionnairePage } from '@shared/schemas/questionnaire';
+import type { StudyDefinition } from '@shared/schemas/study-definition';
+
+type FixedTaskPage = Extract<QuestionnairePage, { kind: 'warmup' | 'holdout' }>;
+type DominancePage = Extract<QuestionnairePage, { kind: 'dominance' }>;
+
+/** Levels of a warm-up or holdout task: one select per attribute and alternative. */
+export function FixedTaskFields({
+  page,
+  definition,
+  onChange,
+}: {
+  page: FixedTaskPage;
+  definition: StudyDefinition;
+  onChange: (p: FixedTaskPage) => void;
+}) {
+  const setLevel = (j: number, attributeId: string, levelId: string) =>
+    onChange({
+      ...page,
+      alternatives: page.alternatives.map((alt, k) =>
+        k === j ? { levels: { ...alt.levels, [attributeId]: levelId } } : alt,
+      ),
+    });
+  return (
+    <div className="grid gap-4 sm:grid-cols-2">
+      {page.alternatives.map((alt, j) => (
+        <fieldset key={j} className="space-y-3 rounded-md border border-line p-3">
+          <legend className="px-1 text-sm font-medium text-ink">
+            {definition.alternatives.labeled
+              ? (definition.alternatives.labels[j]?.name ?? `Alternative ${j + 1}`)
+              : `Option ${String.fromCharCode(65 + j)}`}
+          </legend>
+          {definition.attributes.map((a) => (
+            <SelectField
+              key={a.id}
+              label={a.name}
+              value={alt.levels[a.id] ?? ''}
+              onChange={(e) => setLevel(j, a.id, e.target.value)}
+            >
+              <option value="">Choose a level</option>
+              {a.levels.map((l) => (
+                <option key={l.id} value={l.id}>
+                  {l.label}
+                </option>
+              ))}
+            </SelectField>
+          ))}
+        </fieldset>
+      ))}
+    </div>
+  );
+}
+
+/** The best level of every attribute; the other alternatives are built worse on each. */
+export function DominanceFields({
+  page,
+  definition,
+  onChange,
+}: {
+  page: DominancePage;
+  definition: StudyDefinition;
+  onChange: (p: DominancePage) => void;
+}) {
+  return (
+    <fieldset className="space-y-3">
+      <legend className="mb-1 text-sm text-ink-soft">
+        The dominant option gets the best level of every attribute; the others get worse levels.
+        Respondents who do not choose it may not be paying attention.
+      </legend>
+      <div className="grid gap-3 sm:grid-cols-2">
+        {definition.attributes.map((a) => (
+          <SelectField
+            key={a.id}
+            label={`Best level of ${a.name}`}
+            value={page.bestLevels[a.id] ?? ''}
+            onChange={(e) =>
+              onChange({ ...page, bestLevels: { ...page.bestLevels, [a.id]: e.target.value } })
+            }
+          >
+            <option value="">Choose a level</option>
+            {a.levels.map((l) => (
+              <option key={l.id} value={l.id}>
+                {l.label}
+              </option>
+            ))}
+          </SelectField>
+        ))}
+      </div>
+    </fieldset>
+  );
+}

@@ -1,0 +1,93 @@
+/**
+ * An editor builds a study from scratch: creates it, adds two attributes with their levels,
+ * saves, generates a random design in the background, reads its diagnostics, and previews a
+ * task as a respondent will see it.
+ */
+import fs from 'node:fs';
+import path from 'node:path';
+import { expect, test } from '@playwright/test';
+import { signIn } from './support/auth';
+
+function demoEditor() {
+  const file = path.resolve(import.meta.dirname, '../.data/e2e-demo-credentials.json');
+  const all = JSON.parse(fs.readFileSync(file, 'utf8')) as Array<{
+    role: string;
+    email: string;
+    password: string;
+  }>;
+  const editor = all.find((c) => c.role === 'editor');
+  if (!editor) throw new Error('no demo editor in the e2e credentials');
+  return editor;
+}
+
+test('an editor creates a study, adds attributes, generates a design and previews a task', async ({
+  page,
+}) => {
+  const name = `Pipe renewal packages ${Date.now()}`;
+  await signIn(page, demoEditor());
+
+  await test.step('create the study', async () => {
+    await page.getByRole('button', { name: 'New study' }).click();
+    await page.getByLabel('Study name').fill(name);
+    await page.getByRole('button', { name: 'Create study' }).click();
+    await expect(page.getByRole('heading', { name })).toBeVisible();
+    await expect(page.getByRole('link', { name: /Attributes/ })).toHaveAttribute(
+      'aria-current',
+      'page',
+    );
+  });
+
+  await test.step('add a categorical and a numeric attribute, then save', async () => {
+    const cards = page.locator('section[aria-label^="Attribute"]');
+    await page.getByRole('button', { name: 'Add categorical attribute' }).click();
+    const river = cards.nth(0);
+    await river.getByLabel('Attribute name').fill('River health rating');
+    await river.getByLabel('Level label').nth(0).fill('Poor');
+    await river.getByLabel('Level label').nth(1).fill('Good');
+
+    await page.getByRole('button', { name: 'Add numeric attribute' }).click();
+    const bill = cards.nth(1);
+    await bill.getByLabel('Attribute name').fill('Monthly bill increase');
+    await bill.getByLabel('Unit').fill('€');
+    await bill.getByLabel('Value').nth(0).fill('0');
+    await bill.getByLabel('Value').nth(1).fill('5');
+    await bill.getByLabel('This is the cost attribute').check();
+
+    await expect(page.getByText('Unsaved changes')).toBeVisible();
+    await page.getByRole('button', { name: 'Save changes' }).click();
+    await expect(page.getByText('All changes saved')).toBeVisible();
+  });
+
+  await test.step('generate a random design and read the diagnostics', async () => {
+    await page.getByRole('link', { name: /Tasks/ }).click();
+    await page.getByLabel('Method').selectOption('random');
+    await page.getByLabel('Tasks', { exact: true }).fill('4');
+    await page.getByLabel('Blocks').fill('1');
+    await page.getByRole('button', { name: 'Generate design' }).click();
+    await expect(page.getByText('Choice tasks — Random, level-balanced')).toBeVisible({
+      timeout: 60_000,
+    });
+    const diagnostics = page.getByRole('complementary', { name: 'Diagnostics' });
+    await expect(diagnostics.getByText('Design quality')).toBeVisible();
+    await expect(diagnostics.getByText('Level balance and overlap')).toBeVisible();
+    await expect(diagnostics.getByText('Sample-size guide')).toBeVisible();
+    await expect(page.getByRole('table').first()).toContainText('€5');
+  });
+
+  await test.step('preview a task and choose an option', async () => {
+    await page.getByRole('link', { name: /Preview/ }).click();
+    const phone = page.getByRole('region', { name: 'Phone preview' });
+    await expect(phone.getByRole('radio', { name: 'Option A' })).toBeVisible();
+    await phone.getByRole('radio', { name: 'Option B' }).click();
+    await expect(phone.getByRole('radio', { name: 'Option B' })).toHaveAttribute(
+      'aria-checked',
+      'true',
+    );
+    await expect(
+      page
+        .getByRole('region', { name: 'Desktop preview' })
+        .getByText('River health rating')
+        .first(),
+    ).toBeVisible();
+  });
+});

@@ -1,0 +1,146 @@
+/**
+ * The analyst's journey on the seeded demo study: start a panel mixed logit from the browser
+ * (modest draws, so it finishes within a minute), watch its progress bar until it is done,
+ * open Tastes and split a coefficient by a background question, then download the
+ * per-respondent CSV and XLSX and check that both parse with one row per respondent and one
+ * column per expected field.
+ */
+import fs from 'node:fs';
+import path from 'node:path';
+import { parse } from 'csv-parse/sync';
+import ExcelJS from 'exceljs';
+import { expect, test, type Download } from '@playwright/test';
+import { signIn } from './support/auth';
+import type { TasteList } from '../shared/schemas/tastes';
+
+type Credential = { role: string; email: string; password: string };
+
+function demoAnalyst(): Credential {
+  const file = path.resolve(import.meta.dirname, '../.data/e2e-demo-credentials.json');
+  const all = JSON.parse(fs.readFileSync(file, 'utf8')) as Credential[];
+  const analyst = all.find((c) => c.role === 'analyst');
+  if (!analyst) throw new Error(`no analyst in ${file}`);
+  return analyst;
+}
+
+async function readDownload(download: Download): Promise<Buffer> {
+  const file = await download.path();
+  return fs.readFileSync(file);
+}
+
+test('an analyst runs a mixed logit, splits tastes by a background question and downloads the profiles', async ({
+  page,
+}) => {
+  test.setTimeout(180_000);
+  const runName = `Mixed logit e2e ${Date.now()}`;
+  await signIn(page, demoAnalyst());
+
+  await test.step('open the seeded demo study', async () => {
+    await page
+      .getByRole('link', { name: /Water service packages/ })
+      .first()
+      .click();
+    await page
+      .getByRole('link', { name: /Models/ })
+      .first()
+      .click();
+    await expect(page.getByRole('heading', { name: 'Models' })).toBeVisible();
+  });
+
+  await test.step('start a mixed logit with modest draws and watch it finish', async () => {
+    await page.getByRole('button', { name: 'New run' }).click();
+    await page.getByLabel('Model').selectOption('mixed');
+    await page.getByLabel('Name').fill(runName);
+    await page.getByLabel('Draws per respondent').fill('50');
+    await page.getByLabel('Draws for taste profiles').fill('200');
+    await page.getByRole('button', { name: 'Start run' }).click();
+    const item = page.getByRole('listitem').filter({ hasText: runName });
+    await expect(item.getByRole('progressbar', { name: `Progress of ${runName}` })).toBeVisible();
+    await expect(item.getByText('Done', { exact: true })).toBeVisible({ timeout: 90_000 });
+    await expect(item.getByRole('progressbar')).toHaveCount(0);
+  });
+
+  const [, teamId, studyId] =
+    new URL(page.url()).pathname.match(/^\/teams\/([^/]+)\/studies\/([^/]+)\//) ?? [];
+
+  await test.step('open Tastes and split a coefficient by a background question', async () => {
+    await page
+      .getByRole('link', { name: /Tastes/ })
+      .first()
+      .click();
+    await expect(page.getByRole('heading', { name: 'Tastes' })).toBeVisible();
+    await expect(page.getByLabel('Run')).toContainText(runName);
+    await expect(page.getByText('Read individual profiles with care')).toBeVisible();
+    await page.getByLabel('Split by').selectOption('question');
+    const question = page.getByLabel('Question');
+    const firstQuestion = await question.locator('option').first().textContent();
+    await question.selectOption({ index: 0 });
+    await expect(page.getByRole('img', { name: /Histograms of .* by / })).toBeVisible();
+    const groupRows = page.locator('table').filter({ hasText: 'Quartiles' }).locator('tbody tr');
+    await expect(groupRows.first()).toBeVisible();
+    expect(await groupRows.count()).toBeGreaterThanOrEqual(2);
+    expect(firstQuestion?.length).toBeGreaterThan(0);
+  });
+
+  // What the files should hold, from the same API the screens use.
+  const runs = await page.request.get(`/api/teams/${teamId}/studies/${studyId}/tastes/runs`);
+  const run = ((await runs.json()) as { id: string; name: string; profiles: number }[]).find(
+    (r) => r.name === runName,
+  )!;
+  const headerRes = await page.request.get(
+    `/api/teams/${teamId}/studies/${studyId}/tastes?runId=${run.id}&pageSize=1`,
+  );
+  const header = (await headerRes.json()) as TasteList;
+  const expectedColumns =
+    2 +
+    (header.personalColumns ? 1 : 0) +
+    5 +
+    2 * header.coefficients.length +
+    header.wtp.length +
+    header.questions.length;
+  expect(run.profiles).toBeGreaterThan(100);
+
+  await test.step('download the per-respondent CSV and XLSX; both parse', async () => {
+    await page
+      .getByRole('link', { name: /Exports/ })
+      .first()
+      .click();
+    await expect(page.getByRole('heading', { name: 'Exports' })).toBeVisible();
+    await expect(page.getByLabel('Run')).toContainText(runName);
+    const profiles = page.getByRole('listitem').filter({ hasText: 'Taste profiles' });
+
+    const [csvDownload] = await Promise.all([
+      page.waitForEvent('download'),
+      profiles.getByRole('link', { name: 'CSV' }).click(),
+    ]);
+    const rows = parse(await readDownload(csvDownload)) as string[][];
+    expect(rows).toHaveLength(run.profiles + 1);
+    for (const row of rows) expect(row).toHaveLength(expectedColumns);
+    expect(rows[0]).toContain('external_id');
+
+    const [xlsxDownload] = await Promise.all([
+      page.waitForEvent('download'),
+      profiles.getByRole('link', { name: 'XLSX' }).click(),
+    ]);
+    const workbook = new ExcelJS.Workbook();
+    await workbook.xlsx.load(
+      (await readDownload(xlsxDownload)) as unknown as Parameters<typeof workbook.xlsx.load>[0],
+    );
+    const [about, sheet] = workbook.worksheets;
+    expect(about.name).toBe('About');
+    const facts: string[] = [];
+    about.eachRow((r) => facts.push(String(r.getCell(1).value)));
+    expect(facts).toEqual(
+      expect.arrayContaining([
+        'Study',
+        'Model',
+        'Data hash (SHA-256 of the long-format choice data)',
+        'Exported',
+        'Caution 1',
+      ]),
+    );
+    expect(sheet.name).toBe('Profiles');
+    expect(sheet.rowCount).toBe(run.profiles + 1);
+    expect(sheet.getRow(1).cellCount).toBe(expectedColumns);
+  });
+});

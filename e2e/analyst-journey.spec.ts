@@ -69,7 +69,7 @@ test('an analyst runs a mixed logit, splits tastes by a background question and 
       .first()
       .click();
     await expect(page.getByRole('heading', { name: 'Tastes' })).toBeVisible();
-    await expect(page.getByLabel('Run')).toContainText(runName);
+    await expect(page.getByLabel('Run', { exact: true })).toContainText(runName);
     await expect(page.getByText('Read individual profiles with care')).toBeVisible();
     await page.getByLabel('Split by').selectOption('question');
     const question = page.getByLabel('Question');
@@ -106,7 +106,7 @@ test('an analyst runs a mixed logit, splits tastes by a background question and 
       .first()
       .click();
     await expect(page.getByRole('heading', { name: 'Exports' })).toBeVisible();
-    await expect(page.getByLabel('Run')).toContainText(runName);
+    await expect(page.getByLabel('Run', { exact: true })).toContainText(runName);
     const profiles = page.getByRole('listitem').filter({ hasText: 'Taste profiles' });
 
     const [csvDownload] = await Promise.all([

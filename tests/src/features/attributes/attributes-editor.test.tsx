@@ -1,0 +1,104 @@
+// @vitest-environment jsdom
+import '@testing-library/jest-dom/vitest';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { cleanup, render, screen, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import type { StudyDefinition } from '@shared/schemas/study-definition';
+import { ApiError } from '@/lib/api-client';
+import { AttributesEditor } from '@/features/attributes/components/attributes-editor';
+
+afterEach(cleanup);
+
+const definition: StudyDefinition = {
+  attributes: [
+    {
+      id: 'river',
+      name: 'River health rating',
+      kind: 'categorical',
+      isCost: false,
+      coding: 'dummy',
+      levels: [
+        { id: 'poor', label: 'Poor' },
+        { id: 'good', label: 'Good' },
+      ],
+    },
+  ],
+  alternatives: { count: 2, labeled: false, labels: [] },
+  fixedAlternative: null,
+  prohibitions: [],
+};
+
+function renderEditor(save = vi.fn()) {
+  render(
+    <AttributesEditor definition={definition} readOnly={false} save={save} uploadImage={vi.fn()} />,
+  );
+  return save;
+}
+
+describe('AttributesEditor', () => {
+  it('shows unsaved changes, and an empty level label at its field without saving', async () => {
+    const save = renderEditor();
+    expect(screen.getByText('All changes saved')).toBeInTheDocument();
+    const labels = screen.getAllByLabelText('Level label');
+    await userEvent.clear(labels[1]);
+    expect(screen.getByText('Unsaved changes')).toBeInTheDocument();
+    await userEvent.click(screen.getByRole('button', { name: 'Save changes' }));
+    expect(save).not.toHaveBeenCalled();
+    expect(screen.getAllByLabelText('Level label')[1]).toHaveAttribute('aria-invalid', 'true');
+    expect(screen.getByText('A level needs a label')).toBeInTheDocument();
+  });
+
+  it('saves a valid definition and shows it as saved', async () => {
+    const save = vi.fn(async (d: StudyDefinition) => ({ definition: d, designDetached: false }));
+    renderEditor(save);
+    await userEvent.type(screen.getAllByLabelText('Level label')[1], 'ish');
+    await userEvent.click(screen.getByRole('button', { name: 'Save changes' }));
+    expect(save).toHaveBeenCalledTimes(1);
+    expect(save.mock.calls[0][0].attributes[0].levels[1].label).toBe('Goodish');
+    expect(await screen.findByText('All changes saved')).toBeInTheDocument();
+  });
+
+  it('shows a server field error at the field it names', async () => {
+    const save = vi.fn(async () => {
+      throw new ApiError(400, 'invalid_input', 'Invalid', [
+        { path: 'definition.attributes.0.name', message: 'Name taken by the server' },
+      ]);
+    });
+    renderEditor(save);
+    await userEvent.type(screen.getByLabelText('Attribute name'), ' (2027)');
+    await userEvent.click(screen.getByRole('button', { name: 'Save changes' }));
+    expect(await screen.findByText('Name taken by the server')).toBeInTheDocument();
+    expect(screen.getByLabelText('Attribute name')).toHaveAttribute('aria-invalid', 'true');
+  });
+
+  it('adds a numeric attribute whose empty labels are written from value and unit on save', async () => {
+    const save = vi.fn(async (d: StudyDefinition) => ({ definition: d, designDetached: false }));
+    renderEditor(save);
+    await userEvent.click(screen.getByRole('button', { name: 'Add numeric attribute' }));
+    const card = screen.getAllByRole('region', { name: /^Attribute/ })[1];
+    await userEvent.type(within(card).getByLabelText('Attribute name'), 'Monthly bill increase');
+    await userEvent.type(within(card).getByLabelText('Unit'), '€');
+    const values = within(card).getAllByLabelText('Value');
+    await userEvent.clear(values[1]);
+    await userEvent.type(values[1], '15');
+    await userEvent.click(screen.getByRole('button', { name: 'Save changes' }));
+    const saved = save.mock.calls[0][0].attributes[1];
+    expect(saved.levels.map((l: { label: string }) => l.label)).toEqual(['€0', '€15']);
+    expect(saved.coding).toBe('linear');
+  });
+
+  it('in read-only mode shows why and offers no editing', () => {
+    render(
+      <AttributesEditor
+        definition={definition}
+        readOnly
+        readOnlyReason="Your role can read the attributes but not change them."
+        save={vi.fn()}
+        uploadImage={vi.fn()}
+      />,
+    );
+    expect(screen.getByText(/can read the attributes/)).toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'Save changes' })).toBeNull();
+    expect(screen.getByLabelText('Attribute name')).toBeDisabled();
+  });
+});

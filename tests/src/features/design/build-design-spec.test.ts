@@ -1,0 +1,83 @@
+import { describe, expect, it } from 'vitest';
+import type { CodedColumn } from '@shared/engine/coding/coded-columns';
+import {
+  buildDesignSpec,
+  defaultDesignForm,
+  formValuesFromSpec,
+} from '@/features/design/utils/build-design-spec';
+
+const columns: CodedColumn[] = [
+  { key: 'attr:bill', name: 'Monthly bill increase (€)', kind: 'linear', attributeId: 'bill' },
+  {
+    key: 'attr:river:good',
+    name: 'River: Good',
+    kind: 'level',
+    attributeId: 'river',
+    levelId: 'good',
+  },
+];
+
+describe('buildDesignSpec', () => {
+  it('when tasks are not a multiple of blocks, reports the blocks field', () => {
+    const out = buildDesignSpec({ ...defaultDesignForm, tasks: '7', blocks: '2' }, columns);
+    expect(out.ok).toBe(false);
+    if (!out.ok) expect(out.errors.get('blocks')).toMatch(/multiple/);
+  });
+
+  it('builds Bayesian priors for every coded column, zero where left empty', () => {
+    const out = buildDesignSpec(
+      {
+        ...defaultDesignForm,
+        priorsKind: 'bayesian',
+        draws: '100',
+        priors: { 'attr:bill': { mean: '-0.1', sd: '0.05' } },
+      },
+      columns,
+    );
+    expect(out).toEqual({
+      ok: true,
+      spec: expect.objectContaining({
+        method: 'd_efficient',
+        tasks: 12,
+        blocks: 2,
+        priors: {
+          kind: 'bayesian',
+          draws: 100,
+          columns: [
+            { key: 'attr:bill', mean: -0.1, sd: 0.05 },
+            { key: 'attr:river:good', mean: 0, sd: 0 },
+          ],
+        },
+      }),
+    });
+  });
+
+  it('when a prior SD is negative or a mean is not a number, names that column', () => {
+    const out = buildDesignSpec(
+      {
+        ...defaultDesignForm,
+        priorsKind: 'bayesian',
+        priors: { 'attr:river:good': { mean: 'x', sd: '-1' } },
+      },
+      columns,
+    );
+    expect(out.ok).toBe(false);
+    if (!out.ok) {
+      expect([...out.errors.keys()]).toEqual(
+        expect.arrayContaining(['priors.columns.1.mean', 'priors.columns.1.sd']),
+      );
+    }
+  });
+
+  it('random designs ignore the priors, and the form refills from a stored spec', () => {
+    const out = buildDesignSpec(
+      { ...defaultDesignForm, method: 'random', priorsKind: 'fixed', tasks: '6', blocks: '3' },
+      columns,
+    );
+    expect(out.ok && out.spec.priors).toEqual({ kind: 'zero' });
+    if (out.ok) {
+      const again = buildDesignSpec(formValuesFromSpec(out.spec), columns);
+      expect(again).toEqual(out);
+    }
+  });
+});

@@ -16,7 +16,9 @@ import type { TasteList } from '../shared/schemas/tastes';
 type Credential = { role: string; email: string; password: string };
 
 function demoAnalyst(): Credential {
-  const file = path.resolve(import.meta.dirname, '../.data/e2e-demo-credentials.json');
+  const file =
+    process.env.E2E_DEMO_CREDENTIALS ??
+    path.resolve(import.meta.dirname, '../.data/e2e-demo-credentials.json');
   const all = JSON.parse(fs.readFileSync(file, 'utf8')) as Credential[];
   const analyst = all.find((c) => c.role === 'analyst');
   if (!analyst) throw new Error(`no analyst in ${file}`);
@@ -49,8 +51,8 @@ test('an analyst runs a mixed logit, splits tastes by a background question and 
 
   await test.step('start a mixed logit with modest draws and watch it finish', async () => {
     await page.getByRole('button', { name: 'New run' }).click();
-    await page.getByLabel('Model').selectOption('mixed');
-    await page.getByLabel('Name').fill(runName);
+    await page.getByLabel('Model', { exact: true }).selectOption('mixed');
+    await page.getByLabel('Name', { exact: true }).fill(runName);
     await page.getByLabel('Draws per respondent').fill('50');
     await page.getByLabel('Draws for taste profiles').fill('200');
     await page.getByRole('button', { name: 'Start run' }).click();

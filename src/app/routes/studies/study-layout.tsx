@@ -2,6 +2,7 @@
  * The study page: name, state and the pipeline of sections, with the current section below.
  * Section screens are child routes (see section-modules.ts).
  */
+import { useState } from 'react';
 import { Link, Navigate, Outlet, useParams } from 'react-router';
 import type { QueryClient } from '@tanstack/react-query';
 import type { LoaderFunctionArgs } from 'react-router';
@@ -11,6 +12,9 @@ import { ErrorText, PanelErrorBoundary } from '@/components/ui/error-boundary';
 import { getStudyQueryOptions, useStudy } from '@/features/studies/api/get-study';
 import { StudyPipeline } from '@/features/studies/components/study-pipeline';
 import { StudyStatusBadge } from '@/features/studies/components/study-status-badge';
+import { StudyDetailsForm } from '@/features/studies/components/study-details-form';
+import { Button } from '@/components/ui/button';
+import { useCurrentTeam } from '@/features/auth/hooks/use-current-team';
 import { builtSections } from './section-modules';
 
 export const createStudyLoader =
@@ -24,6 +28,8 @@ export const createStudyLoader =
 export function StudyLayout() {
   const { teamId = '', studyId = '' } = useParams();
   const { data: study, error, isPending } = useStudy(teamId, studyId);
+  const { can } = useCurrentTeam();
+  const [editing, setEditing] = useState(false);
   if (isPending) return <Spinner label="Loading the study…" />;
   if (error || !study) return <ErrorText error={error} />;
 
@@ -40,11 +46,22 @@ export function StudyLayout() {
         >
           ← Studies
         </Link>
-        <div className="flex flex-wrap items-center gap-3">
-          <h1 className="text-2xl font-semibold tracking-tight text-ink">{study.name}</h1>
-          <StudyStatusBadge status={study.status} archived={study.archivedAt !== null} />
-        </div>
-        {study.description && <p className="text-sm text-ink-soft">{study.description}</p>}
+        {editing ? (
+          <StudyDetailsForm teamId={teamId} study={study} onDone={() => setEditing(false)} />
+        ) : (
+          <>
+            <div className="flex flex-wrap items-center gap-3">
+              <h1 className="text-2xl font-semibold tracking-tight text-ink">{study.name}</h1>
+              <StudyStatusBadge status={study.status} archived={study.archivedAt !== null} />
+              {can('study:write') && (
+                <Button size="sm" variant="ghost" onClick={() => setEditing(true)}>
+                  Rename
+                </Button>
+              )}
+            </div>
+            {study.description && <p className="text-sm text-ink-soft">{study.description}</p>}
+          </>
+        )}
       </div>
       <div className="mb-6 border-b border-line pb-3">
         <StudyPipeline teamId={teamId} studyId={studyId} available={builtSections} done={done} />

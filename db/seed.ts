@@ -6,6 +6,7 @@ import path from 'node:path';
 import { createDb, migrateDb } from './client';
 import { seedDemoAccounts } from './seed/demo-accounts';
 import { ensureDemoStudy } from './seed/demo-study';
+import { ensureDemoResponses } from './seed/demo-responses';
 import { loadEnv } from '../server/env';
 
 async function main() {
@@ -16,7 +17,10 @@ async function main() {
     const credentialsFile =
       process.env.CW_DEMO_CREDENTIALS_FILE ?? path.join(env.DATA_DIR, 'demo-credentials.json');
     const { credentials, teamId, ownerId } = await seedDemoAccounts(db, credentialsFile);
-    await ensureDemoStudy(db, { teamId, ownerId });
+    const studyId = await ensureDemoStudy(db, { teamId, ownerId });
+    const responses = await ensureDemoResponses(db, { studyId });
+    if (responses.created > 0)
+      console.log(`  Demo study: ${responses.created} synthetic respondents simulated and stored.`);
     console.log('\n  DEMO CREDENTIALS (local demo data only; not for real studies)');
     for (const c of credentials)
       console.log(`    ${c.role.padEnd(8)} ${c.email.padEnd(34)} ${c.password}`);

@@ -172,3 +172,32 @@ export async function updateQualitySettings(
     })
     .where(and(eq(studies.id, params.studyId), eq(studies.teamId, params.teamId)));
 }
+
+/** The demo seed: synthetic respondents are the ones carrying a simulated truth. */
+export async function countSimulatedRespondents(db: DbOrTx, params: { studyId: string }) {
+  const [row] = await db
+    .select({ n: count() })
+    .from(respondents)
+    .where(and(eq(respondents.studyId, params.studyId), isNotNull(respondents.simulatedTruth)));
+  return Number(row?.n ?? 0);
+}
+
+export async function deleteSimulatedRespondents(db: DbOrTx, params: { studyId: string }) {
+  await db
+    .delete(respondents)
+    .where(and(eq(respondents.studyId, params.studyId), isNotNull(respondents.simulatedTruth)));
+}
+
+export async function getStudyForSeed(db: DbOrTx, params: { studyId: string }) {
+  const [row] = await db
+    .select({
+      id: studies.id,
+      teamId: studies.teamId,
+      status: studies.status,
+      definition: studies.definition,
+      questionnaire: studies.questionnaire,
+    })
+    .from(studies)
+    .where(eq(studies.id, params.studyId));
+  return row ?? null;
+}

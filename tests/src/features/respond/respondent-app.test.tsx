@@ -1,0 +1,171 @@
+// @vitest-environment jsdom
+import '@testing-library/jest-dom/vitest';
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { cleanup, render, screen, waitFor } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import type { RespondentSession } from '@shared/schemas/respondent';
+import { RespondentApp } from '@/features/respond/components/respondent-app';
+import { readOutbox } from '@/features/respond/utils/respondent-storage';
+
+const session: RespondentSession = {
+  sessionToken: 'T'.repeat(32),
+  studyName: 'Water services',
+  status: 'in_progress',
+  definition: {
+    attributes: [
+      {
+        id: 'bill',
+        name: 'Monthly bill increase',
+        kind: 'numeric',
+        isCost: true,
+        coding: 'linear',
+        unit: '€',
+        levels: [
+          { id: 'b0', label: '€0', value: 0 },
+          { id: 'b6', label: '€6', value: 6 },
+        ],
+      },
+    ],
+    alternatives: { count: 2, labeled: false, labels: [] },
+    fixedAlternative: null,
+  },
+  screens: [
+    {
+      key: 'consent',
+      kind: 'consent',
+      title: 'Welcome',
+      body: 'You may stop at any time.',
+      agreeLabel: 'I agree',
+    },
+    {
+      key: 'task:1',
+      kind: 'task',
+      taskKind: 'design',
+      title: 'Which would you choose?',
+      taskIndex: 1,
+      taskCount: 1,
+      alternatives: [
+        { index: 1, label: 'Option A', levels: { bill: 'b6' }, fixed: false },
+        { index: 0, label: 'Option B', levels: { bill: 'b0' }, fixed: false },
+      ],
+    },
+    {
+      key: 'q:household_size',
+      kind: 'question',
+      screening: false,
+      question: {
+        type: 'number',
+        key: 'household_size',
+        text: 'How many people live with you?',
+        help: '',
+        required: true,
+        min: 1,
+        max: 12,
+        integer: true,
+        unit: '',
+      },
+    },
+  ],
+  answered: [],
+  end: { title: 'Thank you', body: 'Your answers have been saved.' },
+  redirectUrl: null,
+  surveyOpen: true,
+};
+
+type Call = { url: string; body: unknown };
+let calls: Call[];
+let failNextAnswer: number;
+
+function json(status: number, body: unknown) {
+  return new Response(JSON.stringify(body), {
+    status,
+    headers: { 'content-type': 'application/json' },
+  });
+}
+
+beforeEach(() => {
+  localStorage.clear();
+  calls = [];
+  failNextAnswer = 0;
+  vi.stubGlobal('fetch', async (url: string, init?: RequestInit) => {
+    const body = init?.body ? JSON.parse(String(init.body)) : undefined;
+    calls.push({ url, body });
+    if (url === '/api/r/abc123' || url.startsWith('/api/r/abc123?'))
+      return json(200, { state: 'live', studyName: 'Water services', redirectUrl: null });
+    if (url.endsWith('/sessions')) return json(201, session);
+    if (url.endsWith('/answers')) {
+      if (failNextAnswer > 0) {
+        failNextAnswer--;
+        throw new TypeError('Failed to fetch');
+      }
+      const last = body.screenKey === 'q:household_size';
+      return json(201, {
+        screenKey: body.screenKey,
+        nextScreenKey: null,
+        status: last ? 'completed' : 'in_progress',
+        redirectUrl: null,
+        replay: false,
+      });
+    }
+    return json(404, { error: { code: 'not_found', message: 'no' } });
+  });
+});
+
+afterEach(() => {
+  cleanup();
+  vi.unstubAllGlobals();
+});
+
+describe('RespondentApp', () => {
+  it('keeps an answer in the outbox while offline and sends it once the connection returns', async () => {
+    const user = userEvent.setup();
+    render(<RespondentApp publicId="abc123" search="" />);
+    await user.click(await screen.findByLabelText('I agree'));
+    await user.click(screen.getByRole('button', { name: 'Start' }));
+
+    failNextAnswer = 1;
+    await user.click(await screen.findByRole('radio', { name: 'Option B' }));
+    await user.click(screen.getByRole('button', { name: 'Next' }));
+    // The next screen shows at once; the failed answer waits in localStorage.
+    expect(
+      await screen.findByRole('heading', { name: 'How many people live with you?' }),
+    ).toHaveFocus();
+    await waitFor(() =>
+      expect(readOutbox('abc123').map((i) => i.answer.screenKey)).toEqual(['task:1']),
+    );
+    expect(screen.getByText(/You seem to be offline/)).toBeInTheDocument();
+
+    await waitFor(() => expect(readOutbox('abc123')).toEqual([]), { timeout: 4000 });
+    const sent = calls
+      .filter((c) => c.url.endsWith('/answers'))
+      .map((c) => c.body as { clientId: string; screenKey: string; value: unknown });
+    const taskTries = sent.filter((b) => b.screenKey === 'task:1');
+    expect(taskTries).toHaveLength(2);
+    expect(taskTries[0].clientId).toBe(taskTries[1].clientId);
+    expect(taskTries[0].value).toEqual({ kind: 'choice', position: 1 });
+  });
+
+  it('checks a number answer against its range before saving, then ends on the saved page', async () => {
+    const user = userEvent.setup();
+    localStorage.setItem('cw:respond:abc123:token', session.sessionToken);
+    render(<RespondentApp publicId="abc123" search="?pid=P1" />);
+    await user.click(await screen.findByLabelText('I agree'));
+    await user.click(screen.getByRole('button', { name: 'Start' }));
+    await user.click(await screen.findByRole('radio', { name: 'Option A' }));
+    await user.click(screen.getByRole('button', { name: 'Next' }));
+    const input = await screen.findByLabelText('How many people live with you?');
+    await user.type(input, '40');
+    await user.click(screen.getByRole('button', { name: 'Next' }));
+    expect(screen.getByRole('alert')).toHaveTextContent('Enter a number from 1 to 12.');
+    await user.clear(input);
+    await user.type(input, '3');
+    await user.click(screen.getByRole('button', { name: 'Next' }));
+    expect(await screen.findByText('Your answers have been saved.')).toBeInTheDocument();
+    const start = calls.find((c) => c.url.endsWith('/sessions'))!.body as {
+      sessionToken: string;
+      params: Record<string, string>;
+    };
+    expect(start.sessionToken).toBe(session.sessionToken);
+    expect(start.params).toEqual({ pid: 'P1' });
+  });
+});

@@ -45,41 +45,33 @@ export function ShareResults({ result }: { result: ShareResult }) {
           }}
         />
       </div>
+      <p className="mb-1 text-xs text-ink-muted">
+        Predicted shares over {result.respondents} respondents
+        {result.segments && `, and by ${result.segments.label}`}
+      </p>
       <div className="overflow-x-auto">
         <table className="min-w-full text-sm">
-          <caption className="mb-1 text-left text-xs text-ink-muted">
-            Predicted shares over {result.respondents} respondents
-          </caption>
           <thead className="border-b border-line text-xs text-ink-soft">
             <tr>
-              <th className="px-2 py-1 text-left">
-                {result.segments ? result.segments.label : 'Group'}
-              </th>
-              <th className="px-2 py-1 text-right">n</th>
-              {names.map((n) => (
-                <th key={n} className="px-2 py-1 text-right">
-                  {n}
+              <th className="px-2 py-1 text-left">Alternative</th>
+              <th className="px-2 py-1 text-right whitespace-nowrap">All ({result.respondents})</th>
+              {result.segments?.groups.map((g) => (
+                <th key={g.key} className="px-2 py-1 text-right whitespace-nowrap">
+                  {g.label} ({g.count})
                 </th>
               ))}
             </tr>
           </thead>
           <tbody className="font-mono tabular-nums">
-            <tr className="border-b border-line font-semibold">
-              <td className="px-2 py-1 font-sans">All respondents</td>
-              <td className="px-2 py-1 text-right">{result.respondents}</td>
-              {result.alternatives.map((a) => (
-                <td key={a.name} className="px-2 py-1 text-right">
+            {result.alternatives.map((a, j) => (
+              <tr key={a.name} className="border-b border-line/60">
+                <td className="px-2 py-1 font-sans">{a.name}</td>
+                <td className="px-2 py-1 text-right font-semibold whitespace-nowrap">
                   {pct(a.share)}
                 </td>
-              ))}
-            </tr>
-            {result.segments?.groups.map((g) => (
-              <tr key={g.key} className="border-b border-line/60">
-                <td className="px-2 py-1 font-sans">{g.label}</td>
-                <td className="px-2 py-1 text-right">{g.count}</td>
-                {g.shares.map((s, j) => (
-                  <td key={j} className="px-2 py-1 text-right">
-                    {pct(s)}
+                {result.segments?.groups.map((g) => (
+                  <td key={g.key} className="px-2 py-1 text-right whitespace-nowrap">
+                    {pct(g.shares[j])}
                   </td>
                 ))}
               </tr>

@@ -3,7 +3,7 @@
  * draft, fieldwork settings (links, close date, quota, redirects) and versions. Reading needs
  * study:read; every change needs fieldwork:manage (owner, editor).
  */
-import { Router } from 'express';
+import { Router, type Request } from 'express';
 import type { AppDeps } from '../deps';
 import { parseBody, parseParams } from '../middleware/validate';
 import { memberOf, requireTeam, requireUser } from '../middleware/auth';
@@ -16,9 +16,9 @@ export function createLifecycleRouter(deps: AppDeps): Router {
   router.use(requireUser(deps));
   const read = requireTeam(deps, 'study:read');
   const manage = requireTeam(deps, 'fieldwork:manage');
-  const ids = (req: Parameters<typeof memberOf>[0] & { params: unknown }) => ({
+  const ids = (req: Request) => ({
     teamId: memberOf(req).teamId,
-    studyId: parseParams(studyParamsSchema, req as never).studyId,
+    studyId: parseParams(studyParamsSchema, req).studyId,
   });
 
   router.get('/', read, async (req, res) => {

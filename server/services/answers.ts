@@ -21,7 +21,7 @@ import {
   type AnswerValue,
   type RespondentScreen,
 } from '../../shared/schemas/respondent';
-import type { QuestionnairePage } from '../../shared/schemas/questionnaire';
+import { screenKeys, type QuestionnairePage } from '../../shared/schemas/questionnaire';
 import { closeIfDue, readSettings } from './lifecycle';
 import { redirectFor } from './respondent-session';
 import { buildScreens, loadFrozenVersion, type FrozenVersion } from './respondent-screens';
@@ -57,12 +57,26 @@ function answerColumnsFor(
   };
 }
 
+/** The questionnaire page a (non-design-task) screen comes from. */
 function pageOf(version: FrozenVersion, screenKey: string): QuestionnairePage | undefined {
-  return version.questionnaire.pages.find((p) =>
-    p.kind === 'screening' || p.kind === 'question'
-      ? `q:${p.question.key}` === screenKey
-      : screenKey.endsWith(`:${p.id}`),
-  );
+  return version.questionnaire.pages.find((p) => {
+    switch (p.kind) {
+      case 'consent':
+        return screenKey === screenKeys.consent();
+      case 'question':
+      case 'screening':
+        return screenKey === screenKeys.question(p.question.key);
+      case 'instructions':
+        return screenKey === screenKeys.instructions(p.id);
+      case 'warmup':
+      case 'holdout':
+      case 'repeat':
+      case 'dominance':
+        return screenKey === screenKeys.special(p.kind, p.id);
+      default:
+        return false;
+    }
+  });
 }
 
 const closedError = (status: string) =>

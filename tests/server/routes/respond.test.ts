@@ -4,7 +4,7 @@ import type supertest from 'supertest';
 import { createTestApp, type TestApp } from '../../support/test-app';
 import { signUpOwner } from '../../support/factories';
 import { answers, respondents } from '../../../db/schema/fieldwork';
-import { answerFor, insertInvitee, insertStudy } from './respond-fixtures';
+import { answerFor, fullQuestionnaire, insertInvitee, insertStudy } from './respond-fixtures';
 
 let t: TestApp;
 let owner: supertest.Agent;
@@ -350,6 +350,20 @@ describe('POST /api/r/:publicId/answers', () => {
       redirectUrl: 'https://panel.example/out/Z9',
     });
     await answer(s.publicId, session.sessionToken, answerFor(session.screens[2])).expect(409);
+  });
+
+  it('screens out by the question key even when another page has the same id', async () => {
+    const q = fullQuestionnaire();
+    q.pages[1] = { ...q.pages[1], id: 'screen1' };
+    q.pages.splice(1, 0, { id: 'adult', kind: 'instructions', title: 'First', body: 'Read me' });
+    const s = await liveStudy({ questionnaire: q });
+    const session = (await start(s.publicId).expect(201)).body;
+    await walk(s.publicId, session, 2);
+    const res = await answer(s.publicId, session.sessionToken, {
+      ...answerFor(session.screens[2]),
+      value: { kind: 'single', optionId: 'no' },
+    }).expect(201);
+    expect(res.body.status).toBe('screened_out');
   });
 
   it('when the study is closed, refuses answers with 410 survey_closed and stores nothing', async () => {

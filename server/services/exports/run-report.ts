@@ -18,12 +18,19 @@ const num = (x: number | null | undefined, digits = 4) =>
 /** 97.5 % quantile of the standard normal (standard normal tables). */
 const Z975 = 1.959964;
 
+/** Numbers (and ranges of numbers) are right-aligned in the mono face; text stays left. */
+const isNumeric = (c: string | number) =>
+  typeof c === 'number' || /^[-−+]?[\d.,]+(e[-+]?\d+)?( … [-−+]?[\d.,]+(e[-+]?\d+)?)?$/i.test(c);
+
 function table(head: string[], rows: (string | number)[][]): string {
-  const th = head.map((h, i) => `<th${i > 0 ? ' class="n"' : ''}>${escapeHtml(h)}</th>`).join('');
+  const numeric = head.map(
+    (_, i) => i > 0 && rows.length > 0 && rows.every((r) => isNumeric(r[i]) || r[i] === '—'),
+  );
+  const cls = (i: number) => (numeric[i] ? ' class="n"' : '');
+  const th = head.map((h, i) => `<th${cls(i)}>${escapeHtml(h)}</th>`).join('');
   const tr = rows
     .map(
-      (r) =>
-        `<tr>${r.map((c, i) => `<td${i > 0 ? ' class="n"' : ''}>${escapeHtml(String(c))}</td>`).join('')}</tr>`,
+      (r) => `<tr>${r.map((c, i) => `<td${cls(i)}>${escapeHtml(String(c))}</td>`).join('')}</tr>`,
     )
     .join('');
   return `<table><thead><tr>${th}</tr></thead><tbody>${tr}</tbody></table>`;

@@ -23,9 +23,26 @@ const fitRows: Row[] = [
 
 export function RunComparison({ runs }: { runs: Run[] }) {
   const done = runs.filter((r): r is Run & { results: RunResult } => r.results !== null);
-  // An MNL's "bill" sits on the same row as a mixed logit's "bill.mean".
-  const rowOf = (name: string) => name.replace(/\.mean$/, '');
-  const names = [...new Set(done.flatMap((r) => r.results.estimates.map((e) => rowOf(e.name))))];
+  // An MNL's "bill" sits on the same row as a mixed logit's "bill.mean" when that location is
+  // the coefficient's mean (normal, triangular, uniform); a lognormal's is of ln |β|: own row.
+  const rowOf = (results: RunResult, name: string) => {
+    const [coef, part] = name.split('.');
+    const dist = results.population.find((m) => m.name === coef)?.distribution;
+    return part === 'mean' && dist !== 'lognormal' && dist !== 'neg_lognormal' ? coef : name;
+  };
+  // Lognormal coefficients also get the population mean of β itself, comparable with an MNL.
+  const lognormal = [
+    ...new Set(
+      done.flatMap((r) =>
+        r.results.population
+          .filter((m) => m.distribution === 'lognormal' || m.distribution === 'neg_lognormal')
+          .map((m) => m.name),
+      ),
+    ),
+  ];
+  const names = [
+    ...new Set(done.flatMap((r) => r.results.estimates.map((e) => rowOf(r.results, e.name)))),
+  ];
   return (
     <div className="overflow-x-auto rounded-lg border border-line bg-white">
       <table className="w-full text-sm">
@@ -67,7 +84,7 @@ export function RunComparison({ runs }: { runs: Run[] }) {
                 {name}
               </th>
               {done.map((r) => {
-                const e = r.results.estimates.find((x) => rowOf(x.name) === name);
+                const e = r.results.estimates.find((x) => rowOf(r.results, x.name) === name);
                 return (
                   <td key={r.id} className="num px-3 py-1.5">
                     {e ? formatNumber(e.estimate) : '—'}
@@ -79,8 +96,31 @@ export function RunComparison({ runs }: { runs: Run[] }) {
               })}
             </tr>
           ))}
+          {lognormal.map((coef) => (
+            <tr key={`${coef}-population`} className="border-b border-line/60 last:border-b-0">
+              <th
+                scope="row"
+                className="sticky left-0 bg-white px-3 py-1.5 text-left font-mono text-xs font-normal"
+              >
+                {coef}: mean of β
+              </th>
+              {done.map((r) => {
+                const m = r.results.population.find((x) => x.name === coef);
+                return (
+                  <td key={r.id} className="num px-3 py-1.5">
+                    {m ? formatNumber(m.mean) : '—'}
+                  </td>
+                );
+              })}
+            </tr>
+          ))}
         </tbody>
       </table>
+      <p className="px-3 py-2 text-xs text-ink-muted">
+        Standard errors in brackets. For lognormal coefficients, .mean and .sd are the mean and SD
+        of ln |β| (the “mean of β” row gives the coefficient’s own population mean); .sd rows are
+        spreads (SD for normals, half-width for triangular and uniform).
+      </p>
     </div>
   );
 }

@@ -140,6 +140,35 @@ describe('codeStudyAnswers', () => {
     expect(Array.from(task1[1].values)).toEqual([15, 1, 0, 1, 0, 0, 0, 0, 1]);
   });
 
+  it('codes an opt-out as zeros with its own constant', () => {
+    const optOut = makeLarkspurDefinition({
+      fixedAlternative: { kind: 'opt_out', label: 'Neither package', levels: {} },
+    });
+    const prepared = codeStudyAnswers(
+      [makeVersion({ definition: optOut, holdouts: [], warmupKeys: [] })],
+      [{ id: 'r1', versionId: 'v1', answers: answersOf(-1, 0) }],
+    );
+    expect(prepared.columns.at(-1)).toMatchObject({
+      key: 'asc:fixed',
+      code: 'asc_neither_package',
+    });
+    const optOutRow = prepared.rows.find((r) => r.task === 1 && r.alt === 3)!;
+    expect(Array.from(optOutRow.values)).toEqual([0, 0, 0, 0, 0, 0, 0, 0, 1]);
+    expect(optOutRow.chosen).toBe(1);
+  });
+
+  it('counts respondents without a usable task and leaves them out', () => {
+    const prepared = codeStudyAnswers(
+      [makeVersion()],
+      [
+        { id: 'r1', versionId: 'v1', answers: answersOf(0, 1) },
+        { id: 'r2', versionId: 'v1', answers: [answersOf(0, 1)[0]] },
+      ],
+    );
+    expect(prepared.summary).toMatchObject({ respondents: 1, respondentsWithoutTasks: 1 });
+    expect(prepared.rows.every((r) => r.respondent === 'r1')).toBe(true);
+  });
+
   it('orders respondents by id so the data hash does not depend on read order', () => {
     const r1 = { id: 'a', versionId: 'v1', answers: answersOf(0, 1) };
     const r2 = { id: 'b', versionId: 'v1', answers: answersOf(1, -1) };

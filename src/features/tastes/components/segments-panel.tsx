@@ -21,7 +21,11 @@ export function SegmentsPanel({
   studyId: string;
   header: TasteHeader;
 }) {
-  const groupable = header.questions.filter((q) => q.type === 'single' || q.type === 'number');
+  // Single-choice questions first: their few named groups read better than numbers.
+  const groupable = [
+    ...header.questions.filter((q) => q.type === 'single'),
+    ...header.questions.filter((q) => q.type === 'number'),
+  ];
   const random = header.coefficients.filter((c) => c.distribution !== 'fixed');
   const [coefficient, setCoefficient] = useState((random[0] ?? header.coefficients[0])?.name ?? '');
   const [groupBy, setGroupBy] = useState<'task' | 'question'>(

@@ -1,0 +1,116 @@
+// @vitest-environment jsdom
+import '@testing-library/jest-dom/vitest';
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { cleanup, render, screen, waitFor, within } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
+import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
+import { QuestionnaireEditor } from '@/features/questionnaire/components/questionnaire-editor';
+import { defaultQuestionnaire } from '@shared/schemas/questionnaire-defaults';
+import type { Questionnaire } from '@shared/schemas/questionnaire';
+import type { StudyDefinition } from '@shared/schemas/study-definition';
+
+const definition: StudyDefinition = {
+  attributes: [
+    {
+      id: 'river',
+      name: 'River health rating',
+      kind: 'categorical',
+      isCost: false,
+      coding: 'dummy',
+      levels: [
+        { id: 'poor', label: 'Poor' },
+        { id: 'good', label: 'Good' },
+      ],
+    },
+  ],
+  alternatives: { count: 2, labeled: false, labels: [] },
+  fixedAlternative: null,
+  prohibitions: [],
+};
+
+let saved: Questionnaire[];
+beforeEach(() => {
+  saved = [];
+  vi.stubGlobal('fetch', async (_url: string, init?: RequestInit) => {
+    const body = JSON.parse(String(init?.body));
+    saved.push(body.questionnaire);
+    return new Response(
+      JSON.stringify({ questionnaire: body.questionnaire, saved: true, editable: true }),
+      {
+        status: 200,
+        headers: { 'content-type': 'application/json' },
+      },
+    );
+  });
+});
+afterEach(() => {
+  cleanup();
+  vi.unstubAllGlobals();
+});
+
+function renderEditor(editable = true) {
+  const qc = new QueryClient();
+  render(
+    <QueryClientProvider client={qc}>
+      <QuestionnaireEditor
+        teamId="t1"
+        studyId="s1"
+        initial={defaultQuestionnaire(definition)}
+        saved={false}
+        editable={editable}
+        definition={definition}
+      />
+    </QueryClientProvider>,
+  );
+}
+
+describe('QuestionnaireEditor', () => {
+  it('adds a dominance test before the end page with the best levels prefilled, and saves', async () => {
+    const user = userEvent.setup();
+    renderEditor();
+    await user.selectOptions(screen.getByLabelText('Add a page'), 'dominance');
+    await user.click(screen.getByRole('button', { name: 'Add' }));
+    const pages = within(screen.getByRole('list', { name: 'Questionnaire pages' })).getAllByRole(
+      'listitem',
+    );
+    expect(pages.map((p) => p.textContent)).toEqual([
+      expect.stringContaining('Welcome and consent'),
+      expect.stringContaining('Instructions'),
+      expect.stringContaining('Choice tasks'),
+      expect.stringContaining('Dominance test'),
+      expect.stringContaining('End page'),
+    ]);
+    expect(screen.getByLabelText('Best level of River health rating')).toHaveValue('good');
+    await user.click(screen.getByRole('button', { name: 'Save questionnaire' }));
+    await waitFor(() => expect(saved).toHaveLength(1));
+    expect(saved[0].pages.map((p) => p.kind)).toEqual([
+      'consent',
+      'instructions',
+      'tasks',
+      'dominance',
+      'end',
+    ]);
+  });
+
+  it('lists what to fix and keeps Save disabled while a question key is invalid', async () => {
+    const user = userEvent.setup();
+    renderEditor();
+    await user.click(screen.getByRole('button', { name: 'Add' }));
+    const key = screen.getByLabelText('Key (column name in exports)');
+    await user.clear(key);
+    await user.type(key, 'Bad Key');
+    expect(screen.getByRole('button', { name: 'Save questionnaire' })).toBeDisabled();
+    expect(screen.getByText('1 thing to fix before saving')).toBeInTheDocument();
+    expect(
+      screen.getByText('Start with a letter; use lowercase letters, digits and _'),
+    ).toBeInTheDocument();
+  });
+
+  it('offers no remove button for the consent page and no editing when frozen', async () => {
+    renderEditor(false);
+    expect(screen.queryByRole('button', { name: 'Remove page' })).not.toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: /^Move page/ })).not.toBeInTheDocument();
+    expect(screen.getByLabelText('Title')).toBeDisabled();
+    expect(screen.getByText('The questionnaire is frozen')).toBeInTheDocument();
+  });
+});

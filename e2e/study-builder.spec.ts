@@ -44,6 +44,17 @@ test('an editor creates a study, adds attributes, generates a design and preview
     await river.getByLabel('Attribute name').fill('River health rating');
     await river.getByLabel('Level label').nth(0).fill('Poor');
     await river.getByLabel('Level label').nth(1).fill('Good');
+    // Reorder with the keyboard: lift the handle, move up one place, drop. The drag library
+    // announces each step in a live region; wait for it as a screen-reader user would.
+    const announced = (text: RegExp) => page.locator('[id^="DndLiveRegion"]', { hasText: text });
+    await river.getByRole('button', { name: 'Reorder level Good' }).focus();
+    await page.keyboard.press('Space');
+    await expect(announced(/level Good is over position 2 of 2\./)).toHaveCount(1);
+    await page.keyboard.press('ArrowUp');
+    await expect(announced(/level Good is over position 1 of 2\./)).toHaveCount(1);
+    await page.keyboard.press('Space');
+    await expect(river.getByLabel('Level label').nth(0)).toHaveValue('Good');
+    await expect(river.getByLabel('Level label').nth(1)).toHaveValue('Poor');
 
     await page.getByRole('button', { name: 'Add numeric attribute' }).click();
     const bill = cards.nth(1);

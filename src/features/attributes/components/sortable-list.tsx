@@ -10,6 +10,7 @@ import {
   PointerSensor,
   useSensor,
   useSensors,
+  type Announcements,
   type DragEndEvent,
 } from '@dnd-kit/core';
 import {
@@ -49,8 +50,38 @@ export function SortableList<T extends { id: string }>({
     const to = items.findIndex((i) => i.id === e.over!.id);
     if (from >= 0 && to >= 0) onMove(from, to);
   };
+  // Spoken by screen readers: names and positions rather than internal ids.
+  const nameOf = (id: string | number) => {
+    const item = items.find((i) => i.id === id);
+    return item ? itemName(item) : 'item';
+  };
+  const positionOf = (id: string | number) =>
+    `position ${items.findIndex((i) => i.id === id) + 1} of ${items.length}`;
+  const announcements: Announcements = {
+    onDragStart: ({ active }) => `Picked up ${nameOf(active.id)} at ${positionOf(active.id)}.`,
+    onDragOver: ({ active, over }) =>
+      over
+        ? `${nameOf(active.id)} is over ${positionOf(over.id)}.`
+        : `${nameOf(active.id)} is outside the list.`,
+    onDragEnd: ({ active, over }) =>
+      over
+        ? `${nameOf(active.id)} dropped at ${positionOf(over.id)}.`
+        : `${nameOf(active.id)} dropped where it was.`,
+    onDragCancel: ({ active }) => `Moving ${nameOf(active.id)} was cancelled.`,
+  };
   return (
-    <DndContext sensors={sensors} collisionDetection={closestCenter} onDragEnd={onDragEnd}>
+    <DndContext
+      sensors={sensors}
+      collisionDetection={closestCenter}
+      onDragEnd={onDragEnd}
+      accessibility={{
+        announcements,
+        screenReaderInstructions: {
+          draggable:
+            'To move this item, press Space or Enter, use the arrow keys to move it, then press Space or Enter to drop it, or Escape to cancel.',
+        },
+      }}
+    >
       <SortableContext items={items.map((i) => i.id)} strategy={verticalListSortingStrategy}>
         <ul className={className}>
           {items.map((item, index) => (

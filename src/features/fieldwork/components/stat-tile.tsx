@@ -21,7 +21,7 @@ export function StatTile({
       )}
     >
       <dt className="text-xs font-medium text-ink-soft">{label}</dt>
-      <dd className="mt-1 font-mono text-xl font-medium tabular-nums text-ink sm:text-2xl">
+      <dd className="mt-1 whitespace-nowrap font-mono text-xl font-medium tabular-nums text-ink sm:text-2xl xl:text-xl">
         {value}
       </dd>
       {hint && <dd className="mt-0.5 text-xs text-ink-muted">{hint}</dd>}

@@ -26,7 +26,7 @@ export function ExcludeFlaggedForm({
   const exclude = useExcludeFlagged(teamId, studyId);
   const form = useForm<ExcludeFlaggedInput>({
     resolver: zodResolver(excludeFlaggedSchema),
-    defaultValues: { flags: ['speeder', 'dominanceFailed'], reason: '' },
+    defaultValues: { flags: ['speeder', 'samePosition'], reason: '' },
   });
   const onSubmit = form.handleSubmit((v) => exclude.mutate(v));
   const { errors } = form.formState;
@@ -56,7 +56,7 @@ export function ExcludeFlaggedForm({
       </fieldset>
       <TextField
         label="Reason (kept with each exclusion)"
-        placeholder="e.g. Protocol §5: speeders and dominance failures"
+        placeholder="e.g. Analysis plan §5: speeders and same-position answers"
         error={errors.reason?.message}
         {...form.register('reason')}
       />

@@ -65,12 +65,12 @@ export function Component() {
       </PanelErrorBoundary>
 
       <div className="grid gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,1fr)]">
-        <Card title="How far respondents got">
+        <Card title="How far respondents got" className="min-w-0">
           <PanelErrorBoundary>
             <DropOffTable steps={s.dropOff} starts={s.counts.starts} />
           </PanelErrorBoundary>
         </Card>
-        <div className="space-y-6">
+        <div className="min-w-0 space-y-6">
           <Card title="Completes per block and version">
             <CompletesBreakdown stats={s} />
           </Card>
@@ -93,13 +93,13 @@ export function Component() {
                 unsubscribe, which is honoured by all later sends.
               </Alert>
               <div className="grid gap-6 lg:grid-cols-2">
-                <section aria-labelledby="upload-heading" className="space-y-2">
+                <section aria-labelledby="upload-heading" className="min-w-0 space-y-2">
                   <h3 id="upload-heading" className="text-sm font-semibold text-ink">
                     Add people
                   </h3>
                   <InviteeUpload teamId={teamId} studyId={studyId} onImported={refreshStats} />
                 </section>
-                <section aria-labelledby="send-heading" className="space-y-2">
+                <section aria-labelledby="send-heading" className="min-w-0 space-y-2">
                   <h3 id="send-heading" className="text-sm font-semibold text-ink">
                     Send
                   </h3>
@@ -109,7 +109,7 @@ export function Component() {
             </>
           ) : null}
           {can('personal:read') && s.invitations.total > 0 && (
-            <section aria-labelledby="list-heading" className="space-y-2">
+            <section aria-labelledby="list-heading" className="min-w-0 space-y-2">
               <h3 id="list-heading" className="text-sm font-semibold text-ink">
                 The list
               </h3>

@@ -6,7 +6,7 @@
 import { useState } from 'react';
 import { useParams, type LoaderFunctionArgs } from 'react-router';
 import type { ListResponsesQuery, QualityFlagKey } from '@shared/schemas/responses';
-import { Alert, Card, EmptyState, Spinner } from '@/components/ui/feedback';
+import { Alert, EmptyState, Spinner } from '@/components/ui/feedback';
 import { ErrorText, PanelErrorBoundary } from '@/components/ui/error-boundary';
 import { Button } from '@/components/ui/button';
 import { SelectField } from '@/components/ui/field';
@@ -14,6 +14,7 @@ import { useCurrentTeam } from '@/features/auth/hooks/use-current-team';
 import { useResponses } from '@/features/responses/api/list-responses';
 import { QualitySummary } from '@/features/responses/components/quality-summary';
 import { ResponsesTable } from '@/features/responses/components/responses-table';
+import { ResponseCards } from '@/features/responses/components/response-cards';
 import { QualitySettingsForm } from '@/features/responses/components/quality-settings-form';
 import { ExcludeFlaggedForm } from '@/features/responses/components/exclude-flagged-form';
 import { statusLabels } from '@/features/responses/utils/labels';
@@ -69,6 +70,34 @@ export function Component() {
             />
           </PanelErrorBoundary>
 
+          <Alert tone="info">
+            Published guidance is to flag and compare results with and without the flagged
+            respondents rather than delete them automatically. Exclusions only affect new estimation
+            runs.
+          </Alert>
+          {canManage && (
+            <details className="group rounded-lg border border-line bg-white">
+              <summary className="flex cursor-pointer flex-wrap items-center justify-between gap-2 px-4 py-3 text-sm font-medium text-ink">
+                <span className="flex items-center gap-2">
+                  <span aria-hidden className="transition-transform group-open:rotate-90">
+                    ▸
+                  </span>
+                  Quality rules and bulk exclusion
+                </span>
+                <span className="text-xs font-normal text-ink-muted">
+                  speeders under {data.settings.speederFraction} × the median time
+                </span>
+              </summary>
+              <div className="grid gap-6 border-t border-line p-4 lg:grid-cols-2">
+                <section aria-label="Speeders">
+                  <QualitySettingsForm teamId={teamId} studyId={studyId} settings={data.settings} />
+                </section>
+                <section aria-label="Exclude flagged respondents">
+                  <ExcludeFlaggedForm teamId={teamId} studyId={studyId} summary={data.summary} />
+                </section>
+              </div>
+            </details>
+          )}
           <div className="grid grid-cols-2 gap-2 sm:grid-cols-4">
             <SelectField
               label="Status"
@@ -89,7 +118,7 @@ export function Component() {
                 set({ included: (e.target.value || undefined) as Filters['included'] })
               }
             >
-              <option value="">Included and excluded</option>
+              <option value="">All</option>
               <option value="true">Included</option>
               <option value="false">Excluded</option>
             </SelectField>
@@ -115,7 +144,24 @@ export function Component() {
           {data.total === 0 ? (
             <p className="text-sm text-ink-muted">No respondent matches these filters.</p>
           ) : (
-            <ResponsesTable teamId={teamId} studyId={studyId} list={data} canManage={canManage} />
+            <>
+              <div className="sm:hidden">
+                <ResponseCards
+                  teamId={teamId}
+                  studyId={studyId}
+                  list={data}
+                  canManage={canManage}
+                />
+              </div>
+              <div className="hidden sm:block">
+                <ResponsesTable
+                  teamId={teamId}
+                  studyId={studyId}
+                  list={data}
+                  canManage={canManage}
+                />
+              </div>
+            </>
           )}
           {pages > 1 && (
             <nav
@@ -143,22 +189,6 @@ export function Component() {
               </Button>
             </nav>
           )}
-
-          {canManage && (
-            <div className="grid gap-6 lg:grid-cols-2">
-              <Card title="Speeders">
-                <QualitySettingsForm teamId={teamId} studyId={studyId} settings={data.settings} />
-              </Card>
-              <Card title="Exclude flagged respondents">
-                <ExcludeFlaggedForm teamId={teamId} studyId={studyId} summary={data.summary} />
-              </Card>
-            </div>
-          )}
-          <Alert tone="info">
-            Published guidance is to flag and compare results with and without the flagged
-            respondents rather than delete them automatically. Exclusions only affect new estimation
-            runs.
-          </Alert>
         </>
       )}
     </div>

@@ -67,7 +67,7 @@ export function Component() {
               {header.wtp.map((n) => (
                 <div key={n} className="flex justify-between gap-4 py-1.5">
                   <dt>{header.coefficients.find((c) => c.name === n)?.label ?? n}</dt>
-                  <dd className="font-mono tabular-nums">
+                  <dd className="font-mono whitespace-nowrap tabular-nums">
                     {formatNumber(row.wtp?.[n], 2)} {header.costUnit}
                   </dd>
                 </div>

@@ -16,7 +16,7 @@ import {
   sweepStaleRuns,
   WORKER_LOST_ERROR,
 } from '../../../server/jobs/estimation-job';
-import { seedRunStudy, TRUE_MNL, type SeededStudy } from './run-fixtures';
+import { ignoreTeardownErrors, seedRunStudy, TRUE_MNL, type SeededStudy } from './run-fixtures';
 
 let t: TestApp;
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
@@ -28,6 +28,7 @@ const allColumns = Object.keys(TRUE_MNL).map((key, k) => ({ name: `b${k}`, colum
 
 beforeAll(async () => {
   t = await createTestApp();
+  ignoreTeardownErrors(t.deps.db);
   team = await createTeamWithAllRoles(t);
   study = await seedRunStudy(t.deps.db, { teamId: team.teamId, respondents: 80 });
   base = `/api/teams/${team.teamId}/studies/${study.studyId}/runs`;

@@ -12,7 +12,7 @@ import { getRunForJob } from '../../../db/queries/runs';
 import { startJobQueue, type JobQueue } from '../../../server/jobs/queue';
 import { createJobKinds } from '../../../server/jobs/background';
 import { STALE_RUN_MS, WORKER_LOST_ERROR } from '../../../server/jobs/estimation-job';
-import { seedRunStudy, TRUE_MNL } from './run-fixtures';
+import { ignoreTeardownErrors, seedRunStudy, TRUE_MNL } from './run-fixtures';
 
 let t: TestApp;
 let queue: JobQueue;
@@ -22,6 +22,7 @@ let staleRunId: string;
 
 beforeAll(async () => {
   t = await createTestApp();
+  ignoreTeardownErrors(t.deps.db);
   team = await createTeamWithAllRoles(t);
   const study = await seedRunStudy(t.deps.db, { teamId: team.teamId, respondents: 20 });
   base = `/api/teams/${team.teamId}/studies/${study.studyId}/runs`;

@@ -4,7 +4,12 @@ import { createTestApp, type TestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import type { Role } from '../../../shared/permissions';
 import { listRuns } from '../../../db/queries/runs';
-import { seedRunStudy, seedTapFilter, type SeededStudy } from '../jobs/run-fixtures';
+import {
+  ignoreTeardownErrors,
+  seedRunStudy,
+  seedTapFilter,
+  type SeededStudy,
+} from '../jobs/run-fixtures';
 
 let t: TestApp;
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
@@ -24,6 +29,7 @@ const mnlSpec = {
 
 beforeAll(async () => {
   t = await createTestApp();
+  ignoreTeardownErrors(t.deps.db);
   team = await createTeamWithAllRoles(t);
   study = await seedRunStudy(t.deps.db, { teamId: team.teamId, respondents: 6 });
   base = `/api/teams/${team.teamId}/studies/${study.studyId}/runs`;

@@ -14,7 +14,12 @@ import { parseChoiceCsv } from '../../../server/engine/estimation/parse-choice-c
 import { makeLarkspurDefinition } from '../../engine/coding/fixtures/larkspur-definition';
 import { createTestApp, type TestApp } from '../../support/test-app';
 import { createBareTeam } from '../../support/factories';
-import { seedRunStudy, seedTapFilter, type SeededStudy } from '../jobs/run-fixtures';
+import {
+  ignoreTeardownErrors,
+  seedRunStudy,
+  seedTapFilter,
+  type SeededStudy,
+} from '../jobs/run-fixtures';
 
 const definition = makeLarkspurDefinition();
 const packageA = { bill: 'b6', interrupt: 'i2', warn: 'w0', river: 'good', renew: 'r80' };
@@ -218,6 +223,7 @@ describe('loadStudyChoiceData', () => {
   let seeded: SeededStudy;
   beforeAll(async () => {
     t = await createTestApp();
+    ignoreTeardownErrors(t.deps.db);
     const team = await createBareTeam(t);
     seeded = await seedRunStudy(t.deps.db, { teamId: team.id, respondents: 10 });
   });

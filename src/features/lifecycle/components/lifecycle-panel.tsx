@@ -12,9 +12,9 @@ import { SettingsForm } from './settings-form';
 import { VersionsList } from './versions-list';
 
 const closedReasons = {
-  manual: 'closed by hand',
-  date: 'closed at its close date',
-  quota: 'closed when the quota of completes was reached',
+  manual: 'by hand',
+  date: 'at its close date',
+  quota: 'when the quota of completes was reached',
 } as const;
 
 function PublicLink({ publicId, panelParam }: { publicId: string; panelParam: string }) {
@@ -84,7 +84,7 @@ export function LifecyclePanel({
           {s.status === 'live' &&
             `Live since version ${s.currentVersion}: ${s.completes} complete${s.completes === 1 ? '' : 's'} so far. The study is frozen; close it to change anything.`}
           {s.status === 'closed' &&
-            `Closed (${closedReasons[s.settings.closedReason ?? 'manual']}), ${s.completes} complete${s.completes === 1 ? '' : 's'}. Reopen to take more answers, or return it to draft to edit; edits become a new version.`}
+            `Closed ${closedReasons[s.settings.closedReason ?? 'manual']}, with ${s.completes} complete${s.completes === 1 ? '' : 's'}. Reopen to take more answers, or return it to draft to edit; edits become a new version.`}
         </p>
         {s.status !== 'live' && problems.length > 0 && (
           <Alert tone="warning" title="Before going live">

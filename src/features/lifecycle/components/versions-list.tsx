@@ -10,23 +10,23 @@ export function VersionsList({ teamId, studyId }: { teamId: string; studyId: str
       <table className="w-full text-sm">
         <thead>
           <tr className="text-left text-xs text-ink-muted">
-            <th className="py-1 font-medium">Version</th>
-            <th className="py-1 font-medium">Frozen</th>
-            <th className="num py-1 font-medium">Respondents</th>
-            <th className="num py-1 font-medium">Completes</th>
+            <th className="py-1 pr-3 font-medium">Version</th>
+            <th className="py-1 pr-3 font-medium">Frozen</th>
+            <th className="py-1 pr-3 text-right font-medium">Respondents</th>
+            <th className="py-1 text-right font-medium">Completes</th>
           </tr>
         </thead>
         <tbody>
           {data.map((v) => (
             <tr key={v.version} className="border-t border-line">
-              <td className="num py-1 text-left">{v.version}</td>
-              <td className="py-1">
+              <td className="py-1 pr-3 font-mono tabular-nums">{v.version}</td>
+              <td className="py-1 pr-3">
                 {new Date(v.createdAt).toLocaleString('en-GB', {
                   dateStyle: 'medium',
                   timeStyle: 'short',
                 })}
               </td>
-              <td className="num py-1">{v.respondents}</td>
+              <td className="num py-1 pr-3">{v.respondents}</td>
               <td className="num py-1">{v.completes}</td>
             </tr>
           ))}

@@ -42,6 +42,11 @@ export function AttributesEditor({
   const change = (next: StudyDefinition) => {
     setDraft(next);
     setNotice(null);
+    // Once problems are shown, they clear as soon as the fields are fixed.
+    if (errors.size > 0) {
+      const checked = studyDefinitionSchema.safeParse(normalizeDefinition(next));
+      setErrors(checked.success ? new Map() : fromZod(checked.error));
+    }
   };
   const onSave = async () => {
     const candidate = normalizeDefinition(draft);

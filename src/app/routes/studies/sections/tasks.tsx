@@ -75,14 +75,6 @@ export function Component() {
         {study.status !== 'draft' && (
           <Alert tone="info">This study is {study.status}: its choice tasks are frozen.</Alert>
         )}
-        {job && (
-          <JobProgress
-            job={job}
-            canCancel={canWrite}
-            cancelling={cancel.isPending}
-            onCancel={() => cancel.mutate(job.id)}
-          />
-        )}
         {canWrite && (
           <DesignSpecForm
             definition={study.definition}
@@ -95,6 +87,14 @@ export function Component() {
           />
         )}
         {startError && serverErrors.size === 0 && <ErrorText error={startError} />}
+        {job && (
+          <JobProgress
+            job={job}
+            canCancel={canWrite}
+            cancelling={cancel.isPending}
+            onCancel={() => cancel.mutate(job.id)}
+          />
+        )}
         {design ? (
           <Card
             title={`Choice tasks — ${methodNames[design.method]}`}

@@ -1,7 +1,9 @@
 /**
- * Fieldwork section: live progress (refreshing on its own while the study is live), where
- * respondents stop, completes per block and version, and invitations by e-mail.
+ * Fieldwork section: the study's status, link and closing rules (the lifecycle panel), live
+ * progress (refreshing on its own while the study is live), where respondents stop, completes
+ * per block and version, and invitations by e-mail.
  */
+import { useEffect } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import { useParams, type LoaderFunctionArgs } from 'react-router';
 import { Alert, Card, Spinner } from '@/components/ui/feedback';
@@ -17,6 +19,8 @@ import { InvitationSummary } from '@/features/fieldwork/components/invitation-su
 import { InviteeUpload } from '@/features/invitees/components/invitee-upload';
 import { SendPanel } from '@/features/invitees/components/send-panel';
 import { InviteeTable } from '@/features/invitees/components/invitee-table';
+import { LifecyclePanel } from '@/features/lifecycle/components/lifecycle-panel';
+import { useLifecycle } from '@/features/lifecycle/api/get-lifecycle';
 
 export function loader(_args: LoaderFunctionArgs) {
   return null;
@@ -36,11 +40,24 @@ export function Component() {
   const stats = useFieldworkStats(teamId, studyId);
   const refreshStats = () =>
     void qc.invalidateQueries({ queryKey: fieldworkKeys.stats(teamId, studyId) });
+  // Going live or closing in the panel below changes whether the figures keep refreshing.
+  const lifecycleStatus = useLifecycle(teamId, studyId).data?.status;
+  const statsStatus = stats.data?.status;
+  useEffect(() => {
+    if (lifecycleStatus && statsStatus && lifecycleStatus !== statsStatus)
+      void qc.invalidateQueries({ queryKey: fieldworkKeys.stats(teamId, studyId) });
+  }, [lifecycleStatus, statsStatus, qc, teamId, studyId]);
 
   if (stats.isPending) return <Spinner label="Loading fieldwork figures…" />;
   if (stats.error) return <ErrorText error={stats.error} />;
   const s = stats.data;
   const live = s.status === 'live';
+  // Going live comes first while a draft; afterwards the figures do, with the panel below them.
+  const lifecyclePanel = (
+    <PanelErrorBoundary title="The study status could not be shown">
+      <LifecyclePanel teamId={teamId} studyId={studyId} canManage={can('fieldwork:manage')} />
+    </PanelErrorBoundary>
+  );
 
   return (
     <div className="space-y-6">
@@ -59,6 +76,8 @@ export function Component() {
           Updated <span className="font-mono">{clock(s.generatedAt)}</span>
         </p>
       </div>
+
+      {s.status === 'draft' && lifecyclePanel}
 
       <PanelErrorBoundary title="The sample flow could not be shown">
         <SampleFlow stats={s} />
@@ -81,6 +100,8 @@ export function Component() {
           </Card>
         </div>
       </div>
+
+      {s.status !== 'draft' && lifecyclePanel}
 
       <Card title="Invitations by e-mail">
         <div className="space-y-6">

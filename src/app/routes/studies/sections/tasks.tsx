@@ -70,7 +70,7 @@ export function Component() {
   const serverErrors = new Map((startError?.fields ?? []).map((f) => [f.path, f.message]));
 
   return (
-    <div className="grid gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+    <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
       <div className="space-y-6">
         {study.status !== 'draft' && (
           <Alert tone="info">This study is {study.status}: its choice tasks are frozen.</Alert>

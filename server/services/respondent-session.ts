@@ -27,7 +27,7 @@ import {
   type StartSessionInput,
   type SurveyLinkInfo,
 } from '../../shared/schemas/respondent';
-import { closeIfDue, readSettings } from './lifecycle';
+import { closeIfDue, dueCloseReason, readSettings } from './lifecycle';
 import { chooseLeastFilledBlock, createRespondentPlan } from './respondent-plan';
 import { buildScreens, endPageOf, loadFrozenVersion } from './respondent-screens';
 
@@ -59,8 +59,10 @@ export async function findPublicStudy(deps: AppDeps, publicId: string, now = new
   const study = await getStudyByPublicId(deps.db, { publicId });
   if (!study || study.archivedAt)
     throw new AppError(404, 'survey_not_found', 'This survey link does not exist.');
-  if (study.status === 'live' && (await closeIfDue(deps.db, study, now)))
-    return (await getStudyByPublicId(deps.db, { publicId }))!;
+  // Check without locking first: most links are opened while nothing is due.
+  if (study.status === 'live' && (await dueCloseReason(deps.db, study, now)))
+    if (await closeIfDue(deps.db, study, now))
+      return (await getStudyByPublicId(deps.db, { publicId }))!;
   return study;
 }
 

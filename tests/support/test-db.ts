@@ -16,6 +16,8 @@ export async function createTestDb(): Promise<TestDb> {
   await cloneDatabase(adminUrl, template, name);
   const url = databaseUrl(adminUrl, name);
   const { db, pool } = createDb(url, 5);
+  // Dropping the database with (force) ends idle connections; that is expected here.
+  pool.on('error', () => {});
   return {
     db,
     url,

@@ -33,15 +33,16 @@ function table(head: string[], rows: (string | number)[][]): string {
       (r) => `<tr>${r.map((c, i) => `<td${cls(i)}>${escapeHtml(String(c))}</td>`).join('')}</tr>`,
     )
     .join('');
-  return `<table><thead><tr>${th}</tr></thead><tbody>${tr}</tbody></table>`;
+  return `<div class="t"><table><thead><tr>${th}</tr></thead><tbody>${tr}</tbody></table></div>`;
 }
 
 const STYLE = `body{font-family:'IBM Plex Sans',system-ui,sans-serif;color:#14213d;margin:2rem auto;max-width:60rem;padding:0 1rem;line-height:1.45}
 h1{font-size:1.5rem;margin:0 0 .25rem}h2{font-size:1.1rem;margin:1.75rem 0 .5rem;color:#0f5e63}
 table{border-collapse:collapse;width:100%;font-size:.85rem}th,td{border-bottom:1px solid #dde3ec;padding:.3rem .5rem;text-align:left;vertical-align:top}
 .n{text-align:right;font-family:'IBM Plex Mono',ui-monospace,monospace;font-variant-numeric:tabular-nums}
+.t{overflow-x:auto;margin:0 -.25rem;padding:0 .25rem}td:first-child{overflow-wrap:anywhere;min-width:7rem}
 .caution{border:1px solid #f0a830;background:#fdf3df;padding:.75rem 1rem;border-radius:.4rem}
-@media print{body{margin:0;max-width:none}h2{break-after:avoid}table{break-inside:auto}tr{break-inside:avoid}.caution{break-inside:avoid}}`;
+@media print{body{margin:0;max-width:none}.t{overflow:visible}h2{break-after:avoid}table{break-inside:auto}tr{break-inside:avoid}.caution{break-inside:avoid}}`;
 
 export function renderRunReport(
   ctx: RunContext,

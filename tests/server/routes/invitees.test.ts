@@ -7,6 +7,7 @@ import { firstLink, listMailTo, waitForMailTo } from '../../support/mailbox';
 import { getInviteeRow, insertRespondent, insertStudy } from './fieldwork-fixtures';
 import { invitees } from '../../../db/schema/fieldwork';
 import type { Role } from '../../../shared/permissions';
+import { answerFor, insertStudy as insertLiveStudy } from './respond-fixtures';
 
 let t: TestApp;
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
@@ -464,5 +465,60 @@ describe('POST /invitees/remind', () => {
       .expect(200);
     expect(again.body).toEqual({ sent: 0, failed: 0, skipped: 1 });
     expect(await reminders(pending)).toHaveLength(1);
+  });
+});
+
+describe('the personal link end to end', () => {
+  it('an invitee who completes through the link is shown as completed and gets no reminder', async () => {
+    const study = await insertLiveStudy(t, team.teamId);
+    await team.agents.editor
+      .post(`/api/teams/${team.teamId}/studies/${study.id}/lifecycle/go-live`)
+      .send({})
+      .expect(200);
+    const [done, pending] = [uniqueEmail('journey'), uniqueEmail('waiting')];
+    await importList(study.id, [done, pending]);
+    await team.agents.editor
+      .post(`${base(study.id)}/send`)
+      .send({})
+      .expect(200);
+
+    const link = new URL(firstLink((await waitForMailTo(done)).text));
+    expect(link.pathname).toBe(`/s/${study.publicId}`);
+    const respondent = t.request();
+    const session = await respondent
+      .post(`/api/r/${study.publicId}/sessions`)
+      .send({ params: { inv: link.searchParams.get('inv') }, device: 'test phone' })
+      .expect(201);
+    for (const screen of session.body.screens)
+      await respondent
+        .post(`/api/r/${study.publicId}/answers`)
+        .set('x-respondent-token', session.body.sessionToken)
+        .send(answerFor(screen))
+        .expect(201);
+
+    const list = await team.agents.editor.get(base(study.id)).expect(200);
+    const state = (e: string) =>
+      list.body.items.find((i: { email: string }) => i.email === e).state;
+    expect(state(done)).toBe('completed');
+    expect(state(pending)).toBe('invited');
+    const reminded = await team.agents.editor
+      .post(`${base(study.id)}/remind`)
+      .send({})
+      .expect(200);
+    expect(reminded.body.sent).toBe(1);
+    await waitForMailTo(pending);
+    expect((await listMailTo(done)).filter((m) => m.subject.startsWith('Reminder'))).toHaveLength(
+      0,
+    );
+    const stats = await team.agents.viewer
+      .get(`/api/teams/${team.teamId}/studies/${study.id}/fieldwork`)
+      .expect(200);
+    expect(stats.body.invitations).toMatchObject({
+      sent: 2,
+      reminded: 1,
+      started: 1,
+      completed: 1,
+    });
+    expect(stats.body.counts.completed).toBe(1);
   });
 });

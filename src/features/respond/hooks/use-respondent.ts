@@ -66,6 +66,25 @@ function linkParams(search: string): Record<string, string> {
   return out;
 }
 
+/**
+ * One start request per link at a time: React's development double effects (and quick
+ * remounts) must not create a second respondent before the first token is stored.
+ */
+const startsInFlight = new Map<string, Promise<RespondentSession>>();
+function startOnce(publicId: string, search: string): Promise<RespondentSession> {
+  const key = `${publicId}${search}`;
+  let pending = startsInFlight.get(key);
+  if (!pending) {
+    pending = startSession(publicId, {
+      sessionToken: readToken(publicId) ?? undefined,
+      params: linkParams(search),
+      device: navigator.userAgent.slice(0, 200),
+    }).finally(() => startsInFlight.delete(key));
+    startsInFlight.set(key, pending);
+  }
+  return pending;
+}
+
 export function useRespondent(publicId: string, search: string) {
   const [state, setState] = useState<RespondentState>({ phase: 'loading' });
   const [answeredLocally, setAnsweredLocally] = useState<string[]>([]);
@@ -172,11 +191,7 @@ export function useRespondent(publicId: string, search: string) {
           });
           return;
         }
-        const session = await startSession(publicId, {
-          sessionToken: readToken(publicId) ?? undefined,
-          params: linkParams(search),
-          device: navigator.userAgent.slice(0, 200),
-        });
+        const session = await startOnce(publicId, search);
         if (cancelled) return;
         adopt(session);
         void sendOutbox();

@@ -13,6 +13,7 @@ export const designJobColumns = {
   designId: designJobs.designId,
   error: designJobs.error,
   cancelRequested: designJobs.cancelRequested,
+  createdBy: designJobs.createdBy,
   createdAt: designJobs.createdAt,
   startedAt: designJobs.startedAt,
   finishedAt: designJobs.finishedAt,

@@ -108,7 +108,7 @@ export async function runDesignJob(deps: AppDeps, pool: Piscina, designJobId: st
         spec: out.result.spec,
         design: out.result.design,
         diagnostics: out.result.diagnostics,
-        createdBy: null,
+        createdBy: job.createdBy,
       });
       await updateStudy(tx, {
         id: job.studyId,

@@ -223,7 +223,7 @@ describe('the design job', () => {
   it('when the worker reports an engine error, ends failed with the message', async () => {
     const { id } = await draftWithAttributes();
     const job = (await team.agents.owner.post(`${designUrl(id)}/jobs`).send(randomSpec)).body;
-    // The attributes change under the queued job so the engine refuses the stored spec.
+    // A stored spec the engine refuses (a full factorial of 9 profiles cannot have 5 tasks).
     await t.deps.db
       .update(designJobs)
       .set({ spec: { method: 'full_factorial', tasks: 5, blocks: 1 } })

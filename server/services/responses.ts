@@ -94,7 +94,7 @@ export async function refreshQualityFlags(
     const f = result.flags.get(p.id)!;
     const keys = qualityFlagKeys.filter((k) => f[k] === true);
     keys.forEach((k) => flagged[k]++);
-    if (keys.length > 0 && p.status === 'completed') anyFlag++;
+    if (keys.length > 0) anyFlag++;
   }
   const included = people.filter((p) => p.included).length;
   return {

@@ -108,7 +108,7 @@ export const responsesSummarySchema = z.object({
   included: z.number().int(),
   excluded: z.number().int(),
   flagged: z.record(qualityFlagKeySchema, z.number().int()),
-  /** Completed respondents with at least one flag. */
+  /** Respondents with at least one flag (the table's "any flag" filter shows the same ones). */
   anyFlag: z.number().int(),
   medianDurationMs: z.number().nullable(),
   /** Below this total time a completed respondent is flagged as a speeder. */

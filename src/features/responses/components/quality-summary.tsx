@@ -42,7 +42,7 @@ export function QualitySummary({
   return (
     <div className="space-y-2">
       <ul className="grid grid-cols-2 gap-2 sm:grid-cols-3 lg:grid-cols-6">
-        {tile('any', 'Any flag (completes)', summary.anyFlag, 'Completed respondents with a flag')}
+        {tile('any', 'Any flag', summary.anyFlag, 'Respondents with at least one flag')}
         {qualityFlagKeys.map((k) =>
           tile(k, qualityFlagLabels[k].label, summary.flagged[k], qualityFlagLabels[k].help),
         )}

@@ -28,11 +28,16 @@ export async function getStudyById(db: DbOrTx, params: { id: string; teamId: str
   return row ?? null;
 }
 
-/** Counts shown in the studies list, computed in SQL so the list stays one query. */
-const designTasks = sql<number>`coalesce((select jsonb_array_length(d.design->'tasks') from designs d where d.id = ${studies.currentDesignId}), 0)`;
-const designBlocks = sql<number>`coalesce((select (d.design->>'blocks')::int from designs d where d.id = ${studies.currentDesignId}), 0)`;
-const attributeCount = sql<number>`coalesce(jsonb_array_length(${studies.definition}->'attributes'), 0)`;
-const completedRespondents = sql<number>`(select count(*)::int from respondents r where r.study_id = ${studies.id} and r.status = 'completed')`;
+/**
+ * Counts shown in the studies list, computed in SQL so the list stays one query. Outer
+ * columns are written fully qualified: unqualified names inside the subqueries would bind
+ * to the inner tables (respondents also has an "id").
+ */
+const outer = (column: string) => sql.raw(`"studies"."${column}"`);
+const designTasks = sql<number>`coalesce((select jsonb_array_length(d.design->'tasks') from designs d where d.id = ${outer('current_design_id')}), 0)`;
+const designBlocks = sql<number>`coalesce((select (d.design->>'blocks')::int from designs d where d.id = ${outer('current_design_id')}), 0)`;
+const attributeCount = sql<number>`coalesce(jsonb_array_length(${outer('definition')}->'attributes'), 0)`;
+const completedRespondents = sql<number>`(select count(*)::int from respondents r where r.study_id = ${outer('id')} and r.status = 'completed')`;
 
 export const studyCountColumns = {
   attributeCount: attributeCount.mapWith(Number),

@@ -4,7 +4,8 @@ import { createTestApp, type TestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { createStudyVia, makeSmallDefinition } from './study-fixtures';
 import { getStudyById } from '../../../db/queries/studies';
-import { studies } from '../../../db/schema/studies';
+import { studies, studyVersions } from '../../../db/schema/studies';
+import { respondents } from '../../../db/schema/fieldwork';
 import { insertDesign } from '../../../db/queries/designs';
 import type { Role } from '../../../shared/permissions';
 
@@ -69,6 +70,53 @@ describe('GET /api/teams/:teamId/studies and /:studyId', () => {
     });
     const one = await team.agents[role].get(`${base()}/${id}`).expect(200);
     expect(one.body.definition.attributes).toHaveLength(2);
+  });
+
+  it('counts tasks, blocks and completed respondents of each study separately', async () => {
+    const { id } = await createStudyVia(team.agents.owner, team.teamId, {
+      name: 'Counted',
+      definition: makeSmallDefinition(),
+    });
+    const other = await createStudyVia(team.agents.owner, team.teamId, { name: 'Other' });
+    const design = await insertDesign(t.deps.db, {
+      studyId: id,
+      teamId: team.teamId,
+      method: 'random',
+      spec: {},
+      design: {
+        blocks: 2,
+        tasks: [1, 2].map((n) => ({
+          block: n,
+          task: n,
+          alternatives: [
+            { levels: { bill: 'b0', river: 'poor' } },
+            { levels: { bill: 'b10', river: 'good' } },
+          ],
+        })),
+      },
+      diagnostics: {},
+      createdBy: null,
+    });
+    await t.deps.db.update(studies).set({ currentDesignId: design.id }).where(eq(studies.id, id));
+    const [version] = await t.deps.db
+      .insert(studyVersions)
+      .values({ studyId: id, version: 1, definition: {}, design: {}, questionnaire: {} })
+      .returning({ id: studyVersions.id });
+    await t.deps.db.insert(respondents).values(
+      (['completed', 'completed', 'in_progress'] as const).map((status, i) => ({
+        studyId: id,
+        versionId: version.id,
+        sessionToken: `count-test-${id}-${i}`,
+        block: 1,
+        plan: {},
+        status,
+      })),
+    );
+    const list = await team.agents.viewer.get(base()).expect(200);
+    const counted = list.body.find((s: { id: string }) => s.id === id);
+    expect(counted.counts).toEqual({ attributes: 2, tasks: 2, blocks: 2, respondents: 2 });
+    const untouched = list.body.find((s: { id: string }) => s.id === other.id);
+    expect(untouched.counts).toEqual({ attributes: 0, tasks: 0, blocks: 0, respondents: 0 });
   });
 
   it('for someone outside the team, returns 404 on list and on the study', async () => {

@@ -58,10 +58,13 @@ export async function runDesignJob(deps: AppDeps, pool: Piscina, designJobId: st
   const report = () => {
     latest = { ...latest, at: new Date().toISOString() };
     const snapshot = latest;
-    writing = writing.then(async () => {
-      const row = await setDesignJobProgress(deps.db, { id: job.id, progress: snapshot });
-      if (row?.cancelRequested) abort.abort();
-    });
+    // Progress is best effort: a failed write is logged and the next heartbeat tries again.
+    writing = writing
+      .then(async () => {
+        const row = await setDesignJobProgress(deps.db, { id: job.id, progress: snapshot });
+        if (row?.cancelRequested) abort.abort();
+      })
+      .catch((err) => deps.logger.warn({ err, designJobId }, 'design progress not saved'));
   };
   const heartbeat = setInterval(report, HEARTBEAT_MS);
   try {

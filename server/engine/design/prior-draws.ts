@@ -5,7 +5,7 @@
  * to the uncertain coefficients; columns with sd = 0 repeat their mean.
  */
 import { fillScrambledHalton } from './halton-draws';
-import { getInverseNormal } from './inverse-normal';
+import { inverseNormal as getInverseNormal } from '../draws/inverse-normal';
 
 /** Returns R × K row-major draws. R = 1 with all sd = 0 gives the point prior. */
 export function buildPriorDraws(

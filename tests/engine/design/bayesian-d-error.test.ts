@@ -16,7 +16,7 @@ import { buildCodingPlan } from '../../../shared/engine/coding/coding-plan';
 import { buildDesignMatrix } from '../../../server/engine/design/design-grid';
 import { computeBayesianDError } from '../../../server/engine/design/d-error';
 import { fillScrambledHalton } from '../../../server/engine/design/halton-draws';
-import { getInverseNormal } from '../../../server/engine/design/inverse-normal';
+import { inverseNormal as getInverseNormal } from '../../../server/engine/draws/inverse-normal';
 import { buildPriorDraws } from '../../../server/engine/design/prior-draws';
 import { makeGrid, makeSymmetricDefinition } from './design-fixtures';
 

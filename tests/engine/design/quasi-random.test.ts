@@ -3,7 +3,7 @@
  */
 /* eslint-disable no-loss-of-precision -- reference values are quoted as published */
 import { describe, expect, it } from 'vitest';
-import { getInverseNormal } from '../../../server/engine/design/inverse-normal';
+import { inverseNormal as getInverseNormal } from '../../../server/engine/draws/inverse-normal';
 import { fillScrambledHalton } from '../../../server/engine/design/halton-draws';
 import { createSeededRandom } from '../../../server/engine/design/seeded-random';
 

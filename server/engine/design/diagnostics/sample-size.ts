@@ -9,7 +9,7 @@
  * - Rule of thumb N ≥ 500·c/(t·a) (Johnson & Orme 1996; Orme 2010 ch. 7 [M]).
  * With B blocks each respondent answers one block, so a replication needs B respondents.
  */
-import { getInverseNormal } from '../inverse-normal';
+import { inverseNormal as getInverseNormal } from '../../draws/inverse-normal';
 
 export interface CoefficientSampleSize {
   key: string;

@@ -35,7 +35,7 @@ stop_all() {
 }
 trap stop_all INT TERM EXIT
 
-npx tsx server/main.ts &
+node --import tsx server/main.ts &
 SERVER_PID=$!
 echo "$SERVER_PID" > "$ROOT/.data/server.pid"
 for _ in $(seq 1 100); do curl -fsS -m 2 "http://$HOST:$PORT/api/health" >/dev/null 2>&1 && break; sleep 0.3; done

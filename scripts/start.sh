@@ -39,6 +39,7 @@ node --import tsx server/main.ts &
 SERVER_PID=$!
 echo "$SERVER_PID" > "$ROOT/.data/server.pid"
 for _ in $(seq 1 100); do curl -fsS -m 2 "http://$HOST:$PORT/api/health" >/dev/null 2>&1 && break; sleep 0.3; done
+npx tsx scripts/demo-runs.ts || true
 cat <<MSG
 
   Choicewright is running at $APP_URL

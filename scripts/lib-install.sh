@@ -3,7 +3,7 @@ ensure_node_modules() {
   if [ "${CI:-}" = "true" ] || [ ! -d node_modules ] || [ ! -f node_modules/.package-lock.json ] \
     || [ package-lock.json -nt node_modules/.package-lock.json ]; then
     echo "== installing npm packages (npm ci)"
-    npm ci --no-audit --no-fund
+    npm ci --no-audit --no-fund --include=dev
   fi
 }
 

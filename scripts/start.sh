@@ -14,6 +14,9 @@ export APP_URL="${APP_URL:-http://$HOST:$PORT}"
 export SMTP_HOST="${SMTP_HOST:-127.0.0.1}" SMTP_PORT="${SMTP_PORT:-1025}"
 
 ensure_node_modules
+# Remember whether the database is someone else's: then it is neither started nor stopped here.
+OWN_DATABASE=yes
+[ -n "${DATABASE_URL:-}" ] && OWN_DATABASE=no
 echo "== database"
 scripts/pg.sh start
 if [ -z "${DATABASE_URL:-}" ]; then export DATABASE_URL="$(scripts/pg.sh url)"; fi
@@ -31,7 +34,7 @@ stop_all() {
   [ -n "${SERVER_PID:-}" ] && kill "$SERVER_PID" 2>/dev/null && wait "$SERVER_PID" 2>/dev/null || true
   rm -f "$ROOT/.data/server.pid"
   scripts/mail.sh stop 1025 || true
-  scripts/pg.sh stop || true
+  if [ "$OWN_DATABASE" = yes ]; then env -u DATABASE_URL scripts/pg.sh stop || true; fi
 }
 trap stop_all INT TERM EXIT
 

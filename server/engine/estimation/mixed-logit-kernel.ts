@@ -134,10 +134,12 @@ export function createMixedLogitKernel(
         fusedAxpy(V, vb, B, coef, offs, m, R, true);
         expStreamAccumulate(V, vb, R, den, 0);
       }
+      // P_chosen = 1/den; with the gradient, the rows' e^v become P_j = e^v/den in the same pass.
+      const taskBase = (row0 - rowBase) * R;
       for (let r = 0; r < R; r++) {
         const p = 1 / den[r];
-        den[r] = p;
         prod[r] *= p;
+        if (withGradient) for (let j = 0; j < rows; j++) V[taskBase + j * R + r] *= p;
       }
       if (++sinceLog === LOG_CHUNK) {
         for (let r = 0; r < R; r++) {
@@ -145,11 +147,6 @@ export function createMixedLogitKernel(
           prod[r] = 1;
         }
         sinceLog = 0;
-      }
-      if (!withGradient) continue;
-      for (let j = 0; j < rows; j++) {
-        const vb = (row0 - rowBase + j) * R;
-        for (let r = 0; r < R; r++) V[vb + r] *= den[r];
       }
     }
     if (withGradient) {

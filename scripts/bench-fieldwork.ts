@@ -155,6 +155,8 @@ async function main() {
   await c.end();
   const url = databaseUrl(admin, dbName);
   const { db, pool } = createDb(url, 20);
+  // Idle connections are cut when the scratch database is dropped at the end; not an error.
+  pool.on('error', () => {});
   const noMail: Mailer = { send: async () => {}, close: () => {} };
   try {
     await migrateDb(db);
@@ -179,7 +181,7 @@ async function main() {
     const t0 = performance.now();
     await Promise.all(Array.from({ length: RESPONDENTS }, (_, i) => load.runRespondent(i)));
     const seconds = (performance.now() - t0) / 1000;
-    server.close();
+    await new Promise<void>((r) => server.close(() => r()));
 
     const stored = await countStored(db, studyId);
     const s = summarise(load.metrics, seconds);

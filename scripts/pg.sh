@@ -15,6 +15,20 @@ PORT="${CW_PG_PORT:-54329}"
 DB_NAME="${CW_DB_NAME:-choicewright}"
 LOCK="$DATA_ROOT/pg.lock"
 
+# As root the server runs as the postgres OS user, who must be able to reach the cluster
+# folder. When the project sits below a folder closed to other users (e.g. /root), the
+# cluster goes to a per-project folder under the postgres user's home instead.
+resolve_cluster_dirs() {
+  if [ "$(id -u)" -eq 0 ] && id postgres >/dev/null 2>&1 \
+    && ! runuser -u postgres -- test -x "$ROOT" 2>/dev/null; then
+    PG_HOME_DIR="$(getent passwd postgres | cut -d: -f6)"
+    PROJECT_KEY="$(printf '%s' "$ROOT" | sha1sum | cut -c1-12)"
+    PGDATA_DIR="${PG_HOME_DIR:-/var/lib/postgresql}/choicewright-$PROJECT_KEY/pg"
+    RUN_DIR="${PG_HOME_DIR:-/var/lib/postgresql}/choicewright-$PROJECT_KEY/run"
+  fi
+}
+resolve_cluster_dirs
+
 log() { echo "[postgres] $*" >&2; }
 
 find_bin() {
@@ -39,7 +53,8 @@ ensure_installed() {
 # PostgreSQL refuses to run as root: as root, every server command runs as the postgres OS user.
 as_owner() {
   if [ "$(id -u)" -eq 0 ]; then
-    runuser -u postgres -- "$@"
+    # From /, so the server tools never depend on reaching the caller's working folder.
+    (cd / && runuser -u postgres -- "$@")
   else
     "$@"
   fi
@@ -55,6 +70,7 @@ is_running() { [ -f "$PGDATA_DIR/PG_VERSION" ] && as_owner "$BIN/pg_ctl" -D "$PG
 
 cmd_start() {
   ensure_installed
+  resolve_cluster_dirs # the postgres user may only exist now
   BIN="$(find_bin)"
   mkdir -p "$DATA_ROOT"
   exec 9>"$LOCK"
@@ -64,6 +80,7 @@ cmd_start() {
     mkdir -p "$PGDATA_DIR" "$RUN_DIR"
     if [ "$(id -u)" -eq 0 ]; then
       chown postgres:postgres "$PGDATA_DIR" "$RUN_DIR"
+      if [ -n "${PG_HOME_DIR+x}" ]; then chown postgres:postgres "$(dirname "$PGDATA_DIR")"; fi
       # The postgres user must be able to reach the folder.
       chmod o+x "$DATA_ROOT"
     fi

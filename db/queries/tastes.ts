@@ -7,7 +7,6 @@ import { and, asc, count, desc, eq, like, sql, type SQL } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { runs, tasteProfiles } from '../schema/models';
 import { answers, respondents } from '../schema/fieldwork';
-import { studyVersions } from '../schema/studies';
 
 export const runColumns = {
   id: runs.id,
@@ -253,33 +252,6 @@ export async function listRespondentTaskAnswers(
       ),
     )
     .orderBy(asc(answers.createdAt));
-}
-
-const versionColumns = {
-  id: studyVersions.id,
-  version: studyVersions.version,
-  definition: studyVersions.definition,
-  design: studyVersions.design,
-  questionnaire: studyVersions.questionnaire,
-};
-
-/** The newest frozen version of a study (its definition, design and questionnaire), or null. */
-export async function getLatestStudyVersion(db: DbOrTx, params: { studyId: string }) {
-  const [row] = await db
-    .select(versionColumns)
-    .from(studyVersions)
-    .where(eq(studyVersions.studyId, params.studyId))
-    .orderBy(desc(studyVersions.version))
-    .limit(1);
-  return row ?? null;
-}
-
-export async function getStudyVersionById(db: DbOrTx, params: { id: string; studyId: string }) {
-  const [row] = await db
-    .select(versionColumns)
-    .from(studyVersions)
-    .where(and(eq(studyVersions.id, params.id), eq(studyVersions.studyId, params.studyId)));
-  return row ?? null;
 }
 
 export async function countRunProfiles(db: DbOrTx, params: { runId: string }) {

@@ -4,15 +4,11 @@
  * background answers and a printable run report. Personal columns (external ids, free-text
  * answers) only for roles with 'personal:read'; everything else is the same for every role.
  */
+import { getLatestVersion } from '../../db/queries/versions';
 import type { AppDeps } from '../deps';
 import { NotFoundError } from '../lib/errors';
 import { loadStudy } from './study-access';
-import {
-  getLatestStudyVersion,
-  getRunOfStudy,
-  listQuestionAnswers,
-  listRunProfiles,
-} from '../../db/queries/tastes';
+import { getRunOfStudy, listQuestionAnswers, listRunProfiles } from '../../db/queries/tastes';
 import { listStudyRespondents } from '../../db/queries/exports';
 import { roleCan } from '../../shared/permissions';
 import type { ExportManifest } from '../../shared/schemas/exports';
@@ -52,7 +48,7 @@ export async function getExportManifest(
   studyId: string,
 ): Promise<ExportManifest> {
   const study = await loadStudy(deps, member.teamId, studyId);
-  const version = await getLatestStudyVersion(deps.db, { studyId });
+  const version = await getLatestVersion(deps.db, { studyId });
   return {
     personalColumns: roleCan(member.role, 'personal:read'),
     designAvailable: version !== null || study.currentDesignId !== null,
@@ -147,7 +143,7 @@ export async function exportDesign(
   at = new Date(),
 ): Promise<Download> {
   const study = await loadStudy(deps, member.teamId, studyId);
-  const version = await getLatestStudyVersion(deps.db, { studyId });
+  const version = await getLatestVersion(deps.db, { studyId });
   if (!version) throw new NotFoundError('Frozen design');
   const csv = exportDesignCsv(version.definition as StudyDefinition, version.design as Design);
   // Level labels are free text: re-escape the cells the design writer leaves as they are.
@@ -171,7 +167,7 @@ export async function exportAnswersCsv(
 ): Promise<Download> {
   const study = await loadStudy(deps, member.teamId, studyId);
   const personal = roleCan(member.role, 'personal:read');
-  const version = await getLatestStudyVersion(deps.db, { studyId });
+  const version = await getLatestVersion(deps.db, { studyId });
   const questions = getBackgroundQuestions(version?.questionnaire ?? study.questionnaire).filter(
     (q) => personal || !q.personal,
   );

@@ -2,11 +2,11 @@
  * One respondent's page: their taste profile row and their design-task choices task by task,
  * with the alternatives described by the version of the study they answered.
  */
+import { getVersionById } from '../../../db/queries/versions';
 import type { AppDeps } from '../../deps';
 import { NotFoundError } from '../../lib/errors';
 import {
   getRunProfile,
-  getStudyVersionById,
   listQuestionAnswers,
   listRespondentTaskAnswers,
 } from '../../../db/queries/tastes';
@@ -31,7 +31,7 @@ export async function getRespondentProfile(
   const answers = indexAnswers(
     await listQuestionAnswers(deps.db, { studyId, respondentIds: [respondentId] }),
   );
-  const version = await getStudyVersionById(deps.db, { id: profile.versionId, studyId });
+  const version = await getVersionById(deps.db, { id: profile.versionId, studyId });
   const definition = (version?.definition ?? ctx.definition) as StudyDefinition;
   const design = (version?.design ?? ctx.design) as Design | null;
   const taskAnswers = await listRespondentTaskAnswers(deps.db, { studyId, respondentId });

@@ -7,7 +7,8 @@
 import type { AppDeps } from '../../deps';
 import { ConflictError, NotFoundError } from '../../lib/errors';
 import { loadStudy } from '../study-access';
-import { countRunProfiles, getLatestStudyVersion, getRunOfStudy } from '../../../db/queries/tastes';
+import { countRunProfiles, getRunOfStudy } from '../../../db/queries/tastes';
+import { getLatestVersion } from '../../../db/queries/versions';
 import { roleCan, type Role } from '../../../shared/permissions';
 import type { RunResult } from '../../../shared/schemas/run';
 import type { EstimationSpec } from '../../../shared/schemas/estimation-spec';
@@ -35,7 +36,7 @@ export async function loadRunContext(
       'run_not_finished',
       `This run is ${run.status}; choose a finished run.`,
     );
-  const version = await getLatestStudyVersion(deps.db, { studyId });
+  const version = await getLatestVersion(deps.db, { studyId });
   const definition = (version?.definition ?? study.definition) as StudyDefinition;
   const design = (version?.design ?? null) as Design | null;
   const results = run.results as RunResult;

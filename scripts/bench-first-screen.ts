@@ -8,7 +8,8 @@
  * first respondent screen (the consent page), read from the app's own performance mark
  * `cw:first-screen`. Prints the median of the runs, the bytes transferred and the load average;
  * `--json` prints one JSON line.
- * Usage: npm run bench:first-screen [-- --runs 3] [-- --profile fast-3g|slow-3g] [-- --json]
+ * Usage: npm run bench:first-screen [-- --runs 3] [-- --profile fast-3g|slow-3g]
+ *        [-- --waterfall] [-- --json]
  */
 import { execFileSync, spawn } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
@@ -65,6 +66,8 @@ const PROFILE_NAMES: ProfileName[] =
 for (const p of PROFILE_NAMES)
   if (!(p in PROFILES)) throw new Error(`Unknown profile ${p}; use fast-3g or slow-3g`);
 const CPU_SLOWDOWN = 4;
+/** --waterfall prints when each request of the first run started and finished. */
+const WATERFALL = args.includes('--waterfall');
 
 function adminUrl(): string {
   if (process.env.DATABASE_URL) return process.env.DATABASE_URL;
@@ -123,21 +126,44 @@ async function measureOnce(
   await cdp.send('Emulation.setCPUThrottlingRate', { rate: CPU_SLOWDOWN });
   let bytes = 0;
   let requests = 0;
-  cdp.on('Network.loadingFinished', (e: { encodedDataLength: number }) => {
-    bytes += e.encodedDataLength;
-    requests++;
-  });
+  const started = new Map<string, { url: string; at: number }>();
+  const waterfall: string[] = [];
+  let t0 = 0;
+  cdp.on(
+    'Network.requestWillBeSent',
+    (e: { requestId: string; request: { url: string }; timestamp: number }) => {
+      if (!t0) t0 = e.timestamp;
+      started.set(e.requestId, { url: e.request.url, at: e.timestamp });
+    },
+  );
+  cdp.on(
+    'Network.loadingFinished',
+    (e: { requestId: string; encodedDataLength: number; timestamp: number }) => {
+      bytes += e.encodedDataLength;
+      requests++;
+      const s = started.get(e.requestId);
+      if (WATERFALL && s)
+        waterfall.push(
+          `      ${Math.round((s.at - t0) * 1000)}–${Math.round((e.timestamp - t0) * 1000)} ms ${Math.round(e.encodedDataLength / 1024)} KiB ${new URL(s.url).pathname}`,
+        );
+    },
+  );
   await page.goto(url, { waitUntil: 'commit', timeout: 120_000 });
-  await page.waitForFunction(() => performance.getEntriesByName('cw:first-screen').length > 0, null, {
-    timeout: 120_000,
-    polling: 100,
-  });
+  await page.waitForFunction(
+    () => performance.getEntriesByName('cw:first-screen').length > 0,
+    null,
+    {
+      timeout: 120_000,
+      polling: 100,
+    },
+  );
   const timing = await page.evaluate(() => {
     const mark = performance.getEntriesByName('cw:first-screen')[0];
     const fcp = performance.getEntriesByName('first-contentful-paint')[0];
     return { firstScreenMs: mark.startTime, fcpMs: fcp ? fcp.startTime : null };
   });
   await context.close();
+  if (WATERFALL) log(waterfall.join('\n'));
   return { ...timing, bytes, requests };
 }
 

@@ -53,15 +53,16 @@ describe('GET /lifecycle/readiness', () => {
   });
 
   it('when personal links make answers traceable, asks the consent page to say so', async () => {
-    const s = await insertStudy(t, team.teamId);
+    const q = fullQuestionnaire();
+    const consent = q.pages[0];
+    if (consent.kind !== 'consent') throw new Error('consent first');
+    consent.body = 'Taking part is voluntary. We do not ask for your name.';
+    const s = await insertStudy(t, team.teamId, { questionnaire: q });
     await insertInvitee(t, s.id);
     const res = await team.agents.editor.get(url(s.id, '/readiness')).expect(200);
     expect(res.body.problems).toEqual([
       expect.objectContaining({ code: 'consent_identifiable', path: 'questionnaire.pages.0' }),
     ]);
-    const q = fullQuestionnaire();
-    const consent = q.pages[0];
-    if (consent.kind !== 'consent') throw new Error('consent first');
     consent.body += '\n\nYour answers are linked to the personal link we e-mailed to you.';
     await t.deps.db.update(studies).set({ questionnaire: q }).where(eq(studies.id, s.id));
     const after = await team.agents.editor.get(url(s.id, '/readiness')).expect(200);

@@ -90,10 +90,7 @@ test('an editor creates a study, adds attributes, generates a design and preview
     const phone = page.getByRole('region', { name: 'Phone preview' });
     await expect(phone.getByRole('radio', { name: 'Option A' })).toBeVisible();
     await phone.getByRole('radio', { name: 'Option B' }).click();
-    await expect(phone.getByRole('radio', { name: 'Option B' })).toHaveAttribute(
-      'aria-checked',
-      'true',
-    );
+    await expect(phone.getByRole('radio', { name: 'Option B' })).toBeChecked();
     await expect(
       page
         .getByRole('region', { name: 'Desktop preview' })

@@ -92,15 +92,17 @@ export async function signInEditor(api: APIRequestContext): Promise<string> {
 }
 
 /** A new live study: definition, a random 2-block design of 8 tasks, the demo questionnaire. */
-export async function createLiveStudy(api: APIRequestContext, name: string) {
+export async function createLiveStudy(
+  api: APIRequestContext,
+  name: string,
+  definition: StudyDefinition = larkspurDefinition,
+) {
   const teamId = await signInEditor(api);
   const created = await api.post(`/api/teams/${teamId}/studies`, { data: { name } });
   expect(created.status()).toBe(201);
   const study = await created.json();
   const base = `/api/teams/${teamId}/studies/${study.id}`;
-  expect(
-    (await api.put(`${base}/definition`, { data: { definition: larkspurDefinition } })).status(),
-  ).toBe(200);
+  expect((await api.put(`${base}/definition`, { data: { definition } })).status()).toBe(200);
   const job = await api.post(`${base}/design/jobs`, {
     data: { method: 'random', tasks: 8, blocks: 2, seed: 11 },
   });
@@ -111,7 +113,7 @@ export async function createLiveStudy(api: APIRequestContext, name: string) {
     })
     .toBe(true);
   const saved = await api.put(`${base}/questionnaire`, {
-    data: { questionnaire: demoQuestionnaire(larkspurDefinition) },
+    data: { questionnaire: demoQuestionnaire(definition) },
   });
   expect(saved.status()).toBe(200);
   const live = await api.post(`${base}/lifecycle/go-live`);

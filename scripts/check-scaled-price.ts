@@ -50,8 +50,9 @@ async function main(): Promise<void> {
   const out = {
     check: 'scaled-price',
     converged: scaled.converged,
-    reason: (scaled as { convergence: { reason: string } }).convergence.reason,
-    gradientNorm: scaled.convergence.gradientNorm,
+    status: scaled.status,
+    gradientNorm: scaled.gradientNorm,
+    maxRelativeGradient: scaled.measures.maxRelativeGradient,
     loglik: scaled.loglik,
     loglikOptimum: reference.loglik,
     priceMean: priceMean(scaled),

@@ -122,7 +122,11 @@ export const estimationSpecSchema = z
     if (spec.space === 'wtp') {
       const cost = spec.coefficients.find((c) => c.name === spec.cost);
       if (!cost)
-        ctx.addIssue({ code: 'custom', path: ['space'], message: 'WTP space needs a cost coefficient' });
+        ctx.addIssue({
+          code: 'custom',
+          path: ['space'],
+          message: 'WTP space needs a cost coefficient',
+        });
       else if (!['fixed', 'lognormal', 'neg_lognormal'].includes(cost.distribution))
         ctx.addIssue({
           code: 'custom',

@@ -192,5 +192,3 @@ function dot(a: Float64Array, b: Float64Array): number {
   for (let i = 0; i < a.length; i++) s += a[i] * b[i];
   return s;
 }
-
-

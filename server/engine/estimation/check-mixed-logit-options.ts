@@ -105,8 +105,7 @@ export function checkMixedLogitOptions(
   const gradientTolerance = options.gradientTolerance ?? DEFAULT_GRADIENT_TOLERANCE;
   if (!(gradientTolerance > 0))
     throw new EstimationOptionsError('gradientTolerance must be positive', 'gradientTolerance');
-  if (!(tolerance > 0))
-    throw new EstimationOptionsError('tolerance must be positive', 'tolerance');
+  if (!(tolerance > 0)) throw new EstimationOptionsError('tolerance must be positive', 'tolerance');
   const covariance = options.covariance ?? 'robust';
   if (!['robust', 'classical', 'bhhh'].includes(covariance))
     throw new EstimationOptionsError('covariance must be robust, classical or bhhh', 'covariance');

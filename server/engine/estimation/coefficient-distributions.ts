@@ -44,7 +44,9 @@ function erfc(x: number): number {
                       (-0.18628806 +
                         t *
                           (0.27886807 +
-                            t * (-1.13520398 + t * (1.48851587 + t * (-0.82215223 + t * 0.17087277)))))))),
+                            t *
+                              (-1.13520398 +
+                                t * (1.48851587 + t * (-0.82215223 + t * 0.17087277)))))))),
     );
   return x >= 0 ? r : 2 - r;
 }
@@ -77,9 +79,21 @@ export function cdf(d: CoefficientDistributionAt, x: number): number {
     case DIST_NORMAL:
       return d.s > 0 ? normalCdf((x - d.b) / d.s) : x >= d.b ? 1 : 0;
     case DIST_LOGNORMAL:
-      return x <= 0 ? 0 : d.s > 0 ? normalCdf((Math.log(x) - d.b) / d.s) : x >= Math.exp(d.b) ? 1 : 0;
+      return x <= 0
+        ? 0
+        : d.s > 0
+          ? normalCdf((Math.log(x) - d.b) / d.s)
+          : x >= Math.exp(d.b)
+            ? 1
+            : 0;
     case DIST_NEG_LOGNORMAL:
-      return x >= 0 ? 1 : d.s > 0 ? 1 - normalCdf((Math.log(-x) - d.b) / d.s) : x >= -Math.exp(d.b) ? 1 : 0;
+      return x >= 0
+        ? 1
+        : d.s > 0
+          ? 1 - normalCdf((Math.log(-x) - d.b) / d.s)
+          : x >= -Math.exp(d.b)
+            ? 1
+            : 0;
     case DIST_UNIFORM:
       return d.s > 0 ? Math.min(1, Math.max(0, (x - d.b + d.s) / (2 * d.s))) : x >= d.b ? 1 : 0;
     case DIST_TRIANGULAR: {

@@ -46,12 +46,32 @@ function definitions(layout: MixedLogitLayout): Definition[] {
     if (code === DIST_FIXED) return;
     const d = of(k);
     if (code === DIST_LOGNORMAL || code === DIST_NEG_LOGNORMAL) {
-      defs.push({ name: c.name, quantity: 'mean', label: `population mean of ${c.name}`, value: (t) => mean(d(t)) });
-      defs.push({ name: c.name, quantity: 'median', label: `population median of ${c.name}`, value: (t) => median(d(t)) });
-      defs.push({ name: c.name, quantity: 'sd', label: `population SD of ${c.name}`, value: (t) => sd(d(t)) });
+      defs.push({
+        name: c.name,
+        quantity: 'mean',
+        label: `population mean of ${c.name}`,
+        value: (t) => mean(d(t)),
+      });
+      defs.push({
+        name: c.name,
+        quantity: 'median',
+        label: `population median of ${c.name}`,
+        value: (t) => median(d(t)),
+      });
+      defs.push({
+        name: c.name,
+        quantity: 'sd',
+        label: `population SD of ${c.name}`,
+        value: (t) => sd(d(t)),
+      });
       return;
     }
-    defs.push({ name: c.name, quantity: 'sd', label: `population SD of ${c.name}`, value: (t) => sd(d(t)) });
+    defs.push({
+      name: c.name,
+      quantity: 'sd',
+      label: `population SD of ${c.name}`,
+      value: (t) => sd(d(t)),
+    });
     defs.push({
       name: c.name,
       quantity: 'wrong_sign_share',
@@ -100,5 +120,10 @@ export function computeDerivedQuantities(
     covariance,
     { seed: options.seed, draws: options.draws ?? 2000 },
   );
-  return defs.map((d, i) => ({ name: d.name, quantity: d.quantity, label: d.label, ...estimates[i] }));
+  return defs.map((d, i) => ({
+    name: d.name,
+    quantity: d.quantity,
+    label: d.label,
+    ...estimates[i],
+  }));
 }

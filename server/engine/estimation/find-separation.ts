@@ -29,8 +29,8 @@ type HighsSolution = {
 let solverPromise: Promise<HighsSolver> | null = null;
 
 async function getSolver(): Promise<HighsSolver> {
-  solverPromise ??= import('highs').then(
-    (m) => (m.default as unknown as () => Promise<HighsSolver>)(),
+  solverPromise ??= import('highs').then((m) =>
+    (m.default as unknown as () => Promise<HighsSolver>)(),
   );
   return solverPromise;
 }
@@ -45,6 +45,14 @@ function term(value: number, k: number): string {
 /** Returns a separating direction, or null when the maximum-likelihood estimate exists. */
 export async function findSeparation(data: ChoiceData): Promise<Separation | null> {
   const K = data.columns.length;
+  // A single column that separates on its own is the clearest report; check those first.
+  for (let k = 0; k < K; k++)
+    for (const sign of [1, -1]) {
+      const direction = new Float64Array(K);
+      direction[k] = sign;
+      const found = checkDirection(data, direction);
+      if (found) return found;
+    }
   const rows = data.diffs.length / K;
   const total = new Float64Array(K);
   const constraints: string[] = [];
@@ -72,7 +80,16 @@ export async function findSeparation(data: ChoiceData): Promise<Separation | nul
   ].join('\n');
   const solution = (await getSolver()).solve(lp);
   if (solution.Status !== 'Optimal') return null;
-  const direction = Float64Array.from({ length: K }, (_, k) => solution.Columns[`b${k}`]?.Primal ?? 0);
+  const direction = Float64Array.from(
+    { length: K },
+    (_, k) => solution.Columns[`b${k}`]?.Primal ?? 0,
+  );
+  return checkDirection(data, direction);
+}
+
+/** The tasks `direction` predicts with certainty, or null when it is not separating. */
+function checkDirection(data: ChoiceData, direction: Float64Array): Separation | null {
+  const K = data.columns.length;
   const tasks: number[] = [];
   let worst = -Infinity;
   for (let t = 0; t + 1 < data.diffStart.length; t++) {

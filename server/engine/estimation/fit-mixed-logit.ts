@@ -158,11 +158,16 @@ export async function fitMixedLogit(
     const startLoglik = runs.map((r) => -r.f);
     startLoglik[runs.indexOf(best)] = loglik;
     const startsAtBest = startLoglik.filter((ll) => loglik - ll < SAME_OPTIMUM).length;
-    const warnings: EstimationWarning[] = [...mnl.warnings.filter((w) => w.code === 'extreme_tasks')];
+    const warnings: EstimationWarning[] = [
+      ...mnl.warnings.filter((w) => w.code === 'extreme_tasks'),
+    ];
     if (startsAtBest < runs.length)
       warnings.push({
         code: 'starts_disagree',
-        message: `Only ${startsAtBest} of ${runs.length} starting points reached the best log-likelihood (within ${SAME_OPTIMUM}); the others ended at ${startLoglik.filter((ll) => loglik - ll >= SAME_OPTIMUM).map((ll) => ll.toFixed(3)).join(', ')}. The likelihood has several local optima: try more starting points.`,
+        message: `Only ${startsAtBest} of ${runs.length} starting points reached the best log-likelihood (within ${SAME_OPTIMUM}); the others ended at ${startLoglik
+          .filter((ll) => loglik - ll >= SAME_OPTIMUM)
+          .map((ll) => ll.toFixed(3))
+          .join(', ')}. The likelihood has several local optima: try more starting points.`,
       });
     if (refined.gradientCheck !== null && refined.gradientCheck > 1e-3)
       warnings.push({

@@ -236,7 +236,7 @@ function separationError(
   const tasks = describeTasks(data, separation.tasks, 5);
   const more = separation.tasks.length > 5 ? ` and ${separation.tasks.length - 5} more` : '';
   return new NonIdentifiedError(
-    `not identified: perfect prediction (separation) — ${involved.join(', ')} ${involved.length > 1 ? 'together predict' : 'predicts'} the choice in ${separation.tasks.length} task${separation.tasks.length > 1 ? 's' : ''} (${tasks.join('; ')}${more}) and is never contradicted, so the likelihood keeps rising as the coefficient${involved.length > 1 ? 's grow' : ' grows'} without bound`,
+    `not identified: perfect prediction (separation) — ${involved.join(', ')} ${involved.length > 1 ? 'together predict' : 'predicts'} the choice in ${separation.tasks.length} task${separation.tasks.length > 1 ? 's' : ''} (${tasks.join('; ')}${more}) without being contradicted in any task, so the likelihood keeps rising as the coefficient${involved.length > 1 ? 's grow' : ' grows'} without bound`,
     involved,
   );
 }

@@ -36,7 +36,13 @@ export function computeConstantsLoglik(constants: ChoiceData): number {
   const hess = new Float64Array(K * K);
   let ll = evaluateMnl(constants, beta, grad, hess);
   for (let iteration = 0; iteration < 100; iteration++) {
-    const step = multiply(analyseInformation(hess.map((v) => -v), K).inverse, grad);
+    const step = multiply(
+      analyseInformation(
+        hess.map((v) => -v),
+        K,
+      ).inverse,
+      grad,
+    );
     let moved = false;
     for (let lambda = 1, h = 0; h < 30; h++, lambda /= 2) {
       const trial = beta.map((b, k) => b + lambda * step[k]);

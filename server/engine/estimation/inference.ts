@@ -84,7 +84,9 @@ export function computeInference(input: InferenceInput): Inference {
   if (!analysis.positiveDefinite) {
     const what = bhhh ? 'The BHHH matrix is singular' : 'The Hessian is not negative definite';
     const directions = analysis.weak.map((w) => describeDirection(w, names));
-    const involved = [...new Set(analysis.weak.flatMap((w) => w.loadings.map((l) => names[l.index])))];
+    const involved = [
+      ...new Set(analysis.weak.flatMap((w) => w.loadings.map((l) => names[l.index]))),
+    ];
     warnings.push({
       code: 'hessian_not_negative_definite',
       message: `${what} at the estimate (eigen-direction${directions.length > 1 ? 's' : ''} ${directions.join('; ')}): the log-likelihood is flat or curves upward along it, so the estimate may be a saddle point or a parameter is not identified. The point estimates are kept; standard errors are not given for ${involved.join(', ')}.`,

@@ -20,7 +20,12 @@ export function getMixedLogitStart(
   const c = layout.wtpCost;
   if (c >= 0) {
     // The cost's sign is fixed by its distribution; its magnitude at least 0.01.
-    const sign = layout.dist[c] === DIST_LOGNORMAL ? 1 : layout.dist[c] === DIST_NEG_LOGNORMAL ? -1 : Math.sign(mnl[c]) || -1;
+    const sign =
+      layout.dist[c] === DIST_LOGNORMAL
+        ? 1
+        : layout.dist[c] === DIST_NEG_LOGNORMAL
+          ? -1
+          : Math.sign(mnl[c]) || -1;
     const cost = sign * Math.max(Math.abs(mnl[c]), 1e-2);
     for (let k = 0; k < layout.K; k++) if (k !== c) mnl[k] = -mnl[k] / cost;
     mnl[c] = cost;

@@ -14,11 +14,7 @@
  * In WTP space a WTP coefficient k is multiplied by c_k / c_cost instead of c_k.
  */
 import type { ChoiceData } from './choice-data';
-import {
-  DIST_LOGNORMAL,
-  DIST_NEG_LOGNORMAL,
-  type MixedLogitLayout,
-} from './mixed-logit-layout';
+import { DIST_LOGNORMAL, DIST_NEG_LOGNORMAL, type MixedLogitLayout } from './mixed-logit-layout';
 
 export interface ThetaScaling {
   factor: Float64Array;

@@ -26,7 +26,12 @@ import {
   median,
   type CoefficientDistributionAt,
 } from './coefficient-distributions';
-import { DIST_FIXED, DIST_LOGNORMAL, DIST_NEG_LOGNORMAL, type MixedLogitLayout } from './mixed-logit-layout';
+import {
+  DIST_FIXED,
+  DIST_LOGNORMAL,
+  DIST_NEG_LOGNORMAL,
+  type MixedLogitLayout,
+} from './mixed-logit-layout';
 import { propagateUncertainty, type PropagatedEstimate } from './propagate-uncertainty';
 
 export interface PopulationWtp {

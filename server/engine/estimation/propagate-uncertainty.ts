@@ -55,7 +55,8 @@ export function propagateUncertainty(
     const x = Float64Array.from(base);
     for (let p = 0; p < P; p++) {
       const v = covariance[p * P + p];
-      const h = 1e-4 * (v > 0 && Number.isFinite(v) ? Math.sqrt(v) : Math.max(Math.abs(base[p]), 1) * 1e-2);
+      const h =
+        1e-4 * (v > 0 && Number.isFinite(v) ? Math.sqrt(v) : Math.max(Math.abs(base[p]), 1) * 1e-2);
       x[p] = base[p] + h;
       const up = fn(x);
       x[p] = base[p] - h;

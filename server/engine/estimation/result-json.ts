@@ -102,8 +102,7 @@ export function toResultJson(input: {
     bic: f.bic,
     fit: {
       loglikConstants: input.loglikConstants,
-      rho2Constants:
-        input.loglikConstants === null ? null : 1 - f.loglik / input.loglikConstants,
+      rho2Constants: input.loglikConstants === null ? null : 1 - f.loglik / input.loglikConstants,
       caic: input.caic,
       bicN: f.observations,
       bicBasis: 'choice tasks',

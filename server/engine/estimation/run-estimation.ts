@@ -61,7 +61,10 @@ export async function runEstimation(
       holdout: holdout ? selectColumns(holdout, columns) : null,
     });
     const layout = createMixedLogitLayout(sub, coefficients, false, wtpCost);
-    const inWtp = layout.wtpCost >= 0 ? toWtpSpace(fit.estimates, fit.gradient, fit.inference, layout.wtpCost) : null;
+    const inWtp =
+      layout.wtpCost >= 0
+        ? toWtpSpace(fit.estimates, fit.gradient, fit.inference, layout.wtpCost)
+        : null;
     fitted = {
       ...fit,
       layout,
@@ -100,18 +103,28 @@ export async function runEstimation(
   const cost = spec.cost ? layout.coefficients.findIndex((c) => c.name === spec.cost) : -1;
   const withheld = cost >= 0 ? getWtpWithheldReason(layout, theta, cost) : null;
   if (withheld)
-    fitted.warnings = [...fitted.warnings, { code: 'wtp_withheld', message: withheld, parameters: [spec.cost!] }];
+    fitted.warnings = [
+      ...fitted.warnings,
+      { code: 'wtp_withheld', message: withheld, parameters: [spec.cost!] },
+    ];
   const wtp =
     cost >= 0 && !withheld
       ? computePopulationWtp(layout, theta, chosen, cost, { seed: spec.draws.seed })
       : null;
-  const derived = spec.model === 'mixed' ? computeDerivedQuantities(layout, theta, chosen, { seed: spec.draws.seed }) : [];
+  const derived =
+    spec.model === 'mixed'
+      ? computeDerivedQuantities(layout, theta, chosen, { seed: spec.draws.seed })
+      : [];
   const loglikConstants = built.constants ? computeConstantsLoglik(built.constants) : null;
   let individuals: EstimationResult['individuals'] = null;
   let profileDraws: EstimationResult['profileDraws'] = null;
   let population = getPopulationMoments(layout, theta);
   if (mixed) {
-    profileDraws = { type: spec.draws.type, count: spec.profileDraws, seed: spec.draws.seed + 1000 };
+    profileDraws = {
+      type: spec.draws.type,
+      count: spec.profileDraws,
+      seed: spec.draws.seed + 1000,
+    };
     const profiles = computeTasteProfiles(data, layout, theta, {
       ...profileDraws,
       cost: withheld ? undefined : spec.cost,

@@ -19,7 +19,10 @@ export async function checkSimulationError(
   options: MixedLogitOptions & { draws: { seed: number } },
   fit: MixedLogitResult,
   signal?: AbortSignal,
-): Promise<{ result: NonNullable<EstimationResult['simulationError']>; warnings: EstimationWarning[] }> {
+): Promise<{
+  result: NonNullable<EstimationResult['simulationError']>;
+  warnings: EstimationWarning[];
+}> {
   const seeds = Array.from({ length: EXTRA_SEEDS }, (_, i) => options.draws.seed + 1 + i);
   const runs: Float64Array[] = [fit.estimates];
   for (const seed of seeds) {

@@ -23,7 +23,9 @@ function transform(cov: Float64Array | null, J: Float64Array, P: number): Float6
 }
 
 const diagonalSqrt = (cov: Float64Array | null, P: number) =>
-  Float64Array.from({ length: P }, (_, p) => (cov && cov[p * P + p] >= 0 ? Math.sqrt(cov[p * P + p]) : NaN));
+  Float64Array.from({ length: P }, (_, p) =>
+    cov && cov[p * P + p] >= 0 ? Math.sqrt(cov[p * P + p]) : NaN,
+  );
 
 export function toWtpSpace(
   beta: Float64Array,

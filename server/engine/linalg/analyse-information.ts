@@ -37,8 +37,7 @@ export function analyseInformation(a: Float64Array, n: number): InformationAnaly
     d[i] = v > 0 && Number.isFinite(v) ? 1 / Math.sqrt(v) : 1;
   }
   const c = new Float64Array(n * n);
-  for (let i = 0; i < n; i++)
-    for (let j = 0; j < n; j++) c[i * n + j] = a[i * n + j] * d[i] * d[j];
+  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) c[i * n + j] = a[i * n + j] * d[i] * d[j];
   const finite = c.every(Number.isFinite);
   const { values, vectors } = finite
     ? decomposeSymmetric(c, n)

@@ -66,7 +66,11 @@ describe('analytic gradients match central finite differences', () => {
   });
 
   const wtpCases: [string, CoefficientDistribution[], boolean][] = [
-    ['WTP space, lognormal cost, normal and fixed WTPs', ['normal', 'fixed', 'neg_lognormal'], false],
+    [
+      'WTP space, lognormal cost, normal and fixed WTPs',
+      ['normal', 'fixed', 'neg_lognormal'],
+      false,
+    ],
     ['WTP space, fixed cost, lognormal and uniform WTPs', ['lognormal', 'uniform', 'fixed'], false],
     ['WTP space, correlated normal WTPs', ['normal', 'normal', 'neg_lognormal'], true],
   ];

@@ -43,7 +43,7 @@ export function EstimationSettingsFields({
           inputMode="numeric"
           hint={mixed ? 'Empty: 300' : 'Empty: 100'}
           error={errors.maxIterations?.message}
-          {...register('maxIterations', { valueAsNumber: true })}
+          {...register('maxIterations')}
         />
         <TextField
           label="Newton decrement tolerance"

@@ -30,8 +30,8 @@ export interface RunFormValues {
   covariance: 'robust' | 'classical' | 'bhhh';
   tolerance: number;
   gradientTolerance: number;
-  /** NaN (empty field) = the model's default. */
-  maxIterations: number;
+  /** '' = the model's default. */
+  maxIterations: string;
   simulationCheck: boolean;
 }
 
@@ -57,7 +57,7 @@ export function getDefaultRunFormValues(options: RunOptions): RunFormValues {
     covariance: 'robust',
     tolerance: 1e-7,
     gradientTolerance: 6.055454452393343e-6,
-    maxIterations: Number.NaN,
+    maxIterations: '',
     simulationCheck: false,
   };
 }
@@ -87,7 +87,9 @@ export function toCreateRunInput(values: RunFormValues, columns: ModelColumn[]):
         covariance: values.covariance,
         tolerance: values.tolerance,
         gradientTolerance: values.gradientTolerance,
-        ...(Number.isFinite(values.maxIterations) ? { maxIterations: values.maxIterations } : {}),
+        ...(values.maxIterations.trim() !== ''
+          ? { maxIterations: Number(values.maxIterations) }
+          : {}),
         simulationCheck: mixed && values.simulationCheck,
       },
     },

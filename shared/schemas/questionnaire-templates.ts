@@ -28,10 +28,6 @@ export const templateHelp: Record<TemplateKind, string> = {
     'Reminds respondents before the tasks that money spent here is not available for other things. Source: Loomis, Gonzalez-Caban & Gregory (1994), Land Economics 70(4); Johnston et al. (2017), JAERE 4(2).',
 };
 
-/** Help for the certainty scale, which is a setting of the choice-task page. */
-export const certaintyHelp =
-  'After each choice, respondents say how sure they are of it (1 = not at all sure, 5 = completely sure). Analysts use it to recode or weight uncertain choices. Source: Lundhede, Olsen, Jacobsen & Thorsen (2009), Journal of Choice Modelling 2(2); Champ et al. (1997), JEEM 33(2).';
-
 const id = () => nanoid(10);
 
 /** Which templates make sense for this study (the budget reminder needs a cost attribute). */

@@ -50,7 +50,10 @@ export function computeEss(chains: readonly Float64Array[]): number {
   let min = Infinity;
   let max = -Infinity;
   for (const c of split)
-    for (let i = 0; i < n; i++) ((min = Math.min(min, c[i])), (max = Math.max(max, c[i])));
+    for (let i = 0; i < n; i++) {
+      min = Math.min(min, c[i]);
+      max = Math.max(max, c[i]);
+    }
   if (max - min < 1e-15) return m * n;
   const means = split.map(mean);
   const centred = split.map((c, j) => c.map((x) => x - means[j]));

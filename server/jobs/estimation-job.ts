@@ -117,7 +117,9 @@ export async function runEstimationJob(
     });
     latest = {
       stage: 'estimating',
-      ...(spec.model === 'mixed' ? { maxIterations: MIXED_MAX_ITERATIONS * spec.starts } : {}),
+      ...(spec.model === 'mixed'
+        ? { maxIterations: MIXED_MAX_ITERATIONS * (spec.starts ?? 1) }
+        : {}),
     };
     report();
     let offset = 0;

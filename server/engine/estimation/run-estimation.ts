@@ -1,8 +1,9 @@
 /**
  * One estimation run from a validated specification (shared/schemas/estimation-spec.ts):
  * MNL or panel mixed logit, population moments, WTP (delta method and Krinsky-Robb on the
- * classical covariance) and, for the mixed logit, every respondent's taste profile. Returns
- * the plain result object the CLI writes and the job runner stores.
+ * classical covariance) and, for the mixed logit, every respondent's taste profile; hierarchical
+ * Bayes and latent class runs go to their own files. Returns the plain result object the CLI
+ * writes and the job runner stores.
  */
 import type { EstimationResult, EstimationSpec } from '../../../shared/schemas/estimation-spec';
 import type { BuiltChoiceData } from './build-choice-data';
@@ -13,9 +14,14 @@ import { createMixedLogitLayout } from './mixed-logit-layout';
 import { getPopulationMoments } from './population-moments';
 import { selectColumns } from './select-columns';
 import { computeTasteProfiles } from './taste-profiles';
+import { runHbEstimation, type RunHbOptions } from './run-hb-estimation';
+import {
+  runLatentClassEstimation,
+  type RunLatentClassOptions,
+} from './run-latent-class-estimation';
 
-export interface RunEstimationOptions extends MixedLogitHooks {
-  /** Worker threads for the mixed logit (default 1). */
+export interface RunEstimationOptions extends MixedLogitHooks, RunHbOptions, RunLatentClassOptions {
+  /** Worker threads for the mixed logit, the HB chains and the latent class fit (default 1). */
   threads?: number;
 }
 
@@ -39,6 +45,13 @@ export async function runEstimation(
     distribution: c.distribution,
   }));
   const { data, holdout } = built;
+  if (spec.model === 'hb' || spec.model === 'latent_class') {
+    const result =
+      spec.model === 'hb'
+        ? await runHbEstimation(spec, built, options)
+        : await runLatentClassEstimation(spec, built, options);
+    return { ...result, elapsedSeconds: (performance.now() - started) / 1000 };
+  }
   if (spec.model === 'mnl') {
     const columns = coefficients.map((c) => data.columns.indexOf(c.column));
     const fit = fitMnl(selectColumns(data, columns), {
@@ -94,7 +107,7 @@ export async function runEstimation(
       coefficients,
       correlated: spec.correlated,
       draws: spec.draws,
-      starts: spec.starts,
+      starts: spec.starts ?? 1,
       threads: options.threads,
       holdout,
     },

@@ -17,7 +17,10 @@ export function FitStatistics({ results }: { results: RunResult }) {
     ['Parameters', String(results.parameters)],
     ['Iterations', String(results.iterations)],
     ['Converged', results.converged ? 'yes' : `no (${results.convergence.reason})`],
-    ['Final gradient norm', results.convergence.gradientNorm.toExponential(2)],
+    [
+      'Final gradient norm',
+      results.convergence.gradientNorm === null ? '—' : results.convergence.gradientNorm.toExponential(2),
+    ],
     [
       'Draws',
       results.draws

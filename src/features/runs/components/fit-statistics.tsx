@@ -19,7 +19,9 @@ export function FitStatistics({ results }: { results: RunResult }) {
     ['Converged', results.converged ? 'yes' : `no (${results.convergence.reason})`],
     [
       'Final gradient norm',
-      results.convergence.gradientNorm === null ? '—' : results.convergence.gradientNorm.toExponential(2),
+      results.convergence.gradientNorm === null
+        ? '—'
+        : results.convergence.gradientNorm.toExponential(2),
     ],
     [
       'Draws',

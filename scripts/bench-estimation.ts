@@ -96,7 +96,7 @@ const figures = {
   iterations: fit.iterations,
   evaluations: fit.evaluations,
   converged: fit.converged,
-  stopReason: fit.convergence.reason,
+  stopReason: fit.status,
   loglik: Number(fit.loglik.toFixed(4)),
   fitThreads,
   totalSeconds: Number(totalSeconds.toFixed(2)),

@@ -4,8 +4,10 @@
  * columns, and for a latent class model with `membership` the named respondent-level columns)
  * and a specification validated by shared/schemas/estimation-spec.ts, runs the MNL, the panel
  * mixed logit, hierarchical Bayes (model "hb") or the latent class logit (model "latent_class")
- * with individual estimates and WTP, and writes the result JSON (to stdout without --out).
- * Progress goes to stderr.
+ * with individual estimates and WTP, and writes the result JSON (to stdout without --out). The
+ * result holds the convergence verdict with the gradient (HB: the sampler's diagnostics), the
+ * warnings, and for MNL and mixed logit the full classical and robust covariance matrices.
+ * Progress, the verdict and the warnings also go to stderr.
  * Exit codes: 0 done; 2 bad arguments, files, data or specification (the message names the
  * line or field); 3 the model cannot be estimated from the data (not identified, a diverging
  * chain, an empty class); 1 other.
@@ -106,10 +108,22 @@ async function main(): Promise<void> {
   const text = `${JSON.stringify(result, null, 2)}\n`;
   if (args.out) writeFileSync(args.out, text);
   else process.stdout.write(text);
-  if (!args.quiet)
+  if (!args.quiet) {
+    const d = result.convergenceDetail;
     process.stderr.write(
-      `done: LL ${result.loglik.toFixed(4)}, converged ${result.converged}, ${result.elapsedSeconds.toFixed(2)} s\n`,
+      `done: LL ${result.loglik.toFixed(4)}, ${d?.status ?? (result.converged ? 'converged' : 'not converged')}` +
+        (d
+          ? ` (Newton decrement ${d.decrement?.toExponential(2) ?? '—'}, largest relative gradient ${d.maxRelativeGradient.toExponential(2)}, ${d.startsAtBest} of ${d.starts} starts at the best LL)`
+          : '') +
+        `, ${result.elapsedSeconds.toFixed(2)} s\n`,
     );
+    if (!result.converged && d)
+      for (const g of d.gradient)
+        process.stderr.write(
+          `  gradient ${g.name}: ${g.value.toExponential(3)} (relative ${g.relative.toExponential(2)})\n`,
+        );
+    for (const w of result.warnings ?? []) process.stderr.write(`warning: ${w.message}\n`);
+  }
 }
 
 function describeZodError(error: ZodError): string {

@@ -118,7 +118,10 @@ export async function runEstimationJob(
     latest = {
       stage: 'estimating',
       ...(spec.model === 'mixed'
-        ? { maxIterations: MIXED_MAX_ITERATIONS * (spec.starts ?? 1) }
+        ? {
+            maxIterations:
+              (spec.settings.maxIterations ?? MIXED_MAX_ITERATIONS) * (spec.starts ?? 3),
+          }
         : {}),
     };
     report();

@@ -83,6 +83,7 @@ export const familySpecFields = {
 
 type FamilySpec = {
   model: string;
+  space?: string;
   coefficients: { distribution: string }[];
   correlated: boolean;
   membership?: string[];
@@ -91,6 +92,12 @@ type FamilySpec = {
 
 /** Rules of the HB and latent class families, for the spec's superRefine. */
 export function refineFamilySpec(spec: FamilySpec, ctx: z.RefinementCtx): void {
+  if ((spec.model === 'hb' || spec.model === 'latent_class') && spec.space === 'wtp')
+    ctx.addIssue({
+      code: 'custom',
+      path: ['space'],
+      message: 'WTP space is available for the MNL and the mixed logit; HB and latent class give WTP per respondent',
+    });
   if (spec.model === 'hb') {
     spec.coefficients.forEach((c, i) => {
       if (!(HB_DISTRIBUTIONS as readonly string[]).includes(c.distribution))

@@ -67,21 +67,21 @@ export async function fitHb(
           opts,
           hooks,
         )
-      : runInProcess(selected, holdout, opts, hooks);
+      : await runInProcess(selected, holdout, opts, hooks);
   const { holdout: _unused, ...rest } = opts;
   return { ...summary, options: rest };
 }
 
-function runInProcess(
+async function runInProcess(
   data: ChoiceData,
   holdout: ChoiceData | null,
   opts: CheckedHbOptions,
   hooks: HbHooks,
-): HbSummary {
+): Promise<HbSummary> {
   const done = new Array<number>(opts.chains).fill(0);
   const chains: HbChainResult[] = [];
   for (let c = 0; c < opts.chains; c++) {
-    const start = getHbStart(data, opts.layout, c, opts.seed);
+    const start = await getHbStart(data, opts.layout, c, opts.seed);
     chains.push(
       runHbChain(data, opts, c, start, {
         onProgress: (iteration) => {

@@ -22,13 +22,14 @@ export interface HbStart {
 }
 
 /** MNL-based start on data whose columns are the coefficients in order. */
-export function getHbStart(
+export async function getHbStart(
   data: ChoiceData,
   layout: HbLayout,
   chain: number,
   seed: number,
-): HbStart {
-  const fit = fitMnl(data);
+): Promise<HbStart> {
+  const fit = await fitMnl(data);
+  const covariance = fit.inference.classical;
   const { K, transform, fixed } = layout;
   const alpha = new Float64Array(K);
   const se = new Float64Array(K);
@@ -53,7 +54,8 @@ export function getHbStart(
   const Kf = fixed.length;
   const block = new Float64Array(Kf * Kf);
   for (let i = 0; i < Kf; i++)
-    for (let j = 0; j < Kf; j++) block[i * Kf + j] = fit.covariance[fixed[i] * K + fixed[j]];
+    for (let j = 0; j < Kf; j++)
+      block[i * Kf + j] = covariance ? covariance[fixed[i] * K + fixed[j]] : 0;
   const fixedChol = new Float64Array(Kf * Kf);
   if (Kf > 0 && !choleskyDecompose(block, Kf, fixedChol))
     for (let i = 0; i < Kf; i++) fixedChol[i * Kf + i] = 0.1;

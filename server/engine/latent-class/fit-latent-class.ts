@@ -74,17 +74,17 @@ export interface LatentClassResult extends LatentClassSummary, FitStatistics {
   options: Omit<CheckedLatentClassOptions, 'holdout' | 'membership'> & { membership: string[] };
 }
 
-export function fitLatentClass(
+export async function fitLatentClass(
   data: ChoiceData,
   options: LatentClassOptions,
   hooks: LatentClassHooks = {},
-): LatentClassResult {
+): Promise<LatentClassResult> {
   const opts = checkLatentClassOptions(data, options);
   const { names } = opts;
   const columns = [...opts.column];
   assertColumnsVary(data, columns, names);
   const selected = selectColumns(data, columns);
-  const mnl = fitMnl(selected);
+  const mnl = await fitMnl(selected);
   const N = selected.taskStart.length - 1;
   const z = createMembershipDesign(N, opts.membership);
   const Mp = 1 + opts.membership.names.length;

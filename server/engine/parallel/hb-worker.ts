@@ -23,15 +23,15 @@ export type HbWorkerMessage =
       chains: HbChainResult[];
     };
 
-export function handleHbMessage(msg: HbWorkerMessage): unknown {
+export async function handleHbMessage(msg: HbWorkerMessage): Promise<unknown> {
   try {
-    return handle(msg);
+    return await handle(msg);
   } catch (err) {
     return toTransportedError(err);
   }
 }
 
-function handle(msg: HbWorkerMessage): unknown {
+async function handle(msg: HbWorkerMessage): Promise<unknown> {
   if (!msg || typeof msg !== 'object' || !(msg.data?.diffs instanceof Float64Array))
     throw new TypeError('invalid HB worker message');
   const opts = checkHbOptions(msg.data, { ...msg.options, threads: 1, holdout: null });
@@ -44,7 +44,7 @@ function handle(msg: HbWorkerMessage): unknown {
       chain + 1 >= control.length
     )
       throw new TypeError('invalid HB chain message');
-    const start = getHbStart(msg.data, opts.layout, chain, opts.seed);
+    const start = await getHbStart(msg.data, opts.layout, chain, opts.seed);
     const result = runHbChain(msg.data, opts, chain, start, {
       onProgress: (iteration) => {
         Atomics.store(control, chain + 1, iteration);

@@ -14,12 +14,12 @@ export interface LatentClassWorkerMessage {
   control: Int32Array;
 }
 
-export function handleLatentClassMessage(msg: LatentClassWorkerMessage): unknown {
+export async function handleLatentClassMessage(msg: LatentClassWorkerMessage): Promise<unknown> {
   if (!msg || !(msg.data?.diffs instanceof Float64Array) || !(msg.control instanceof Int32Array))
     throw new TypeError('invalid latent class worker message');
   const { control } = msg;
   try {
-    return fitLatentClass(msg.data, msg.options, {
+    return await fitLatentClass(msg.data, msg.options, {
       onProgress: ({ classes, start }) => {
         Atomics.store(control, 1, classes);
         Atomics.store(control, 2, start);

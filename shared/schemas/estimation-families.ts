@@ -96,7 +96,8 @@ export function refineFamilySpec(spec: FamilySpec, ctx: z.RefinementCtx): void {
     ctx.addIssue({
       code: 'custom',
       path: ['space'],
-      message: 'WTP space is available for the MNL and the mixed logit; HB and latent class give WTP per respondent',
+      message:
+        'WTP space is available for the MNL and the mixed logit; HB and latent class give WTP per respondent',
     });
   if (spec.model === 'hb') {
     spec.coefficients.forEach((c, i) => {

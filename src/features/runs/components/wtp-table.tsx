@@ -51,7 +51,10 @@ export function WtpTable({ results }: { results: RunResult }) {
   if (!results.wtp || results.wtp.length === 0)
     return <p className="text-sm text-ink-soft">This run has no cost coefficient, so no WTP.</p>;
   const label = new Map(results.columns.map((c) => [c.coefficient, c.label]));
-  const hasMedian = results.wtp.some((w) => w.median);
+  // With fixed coefficients the median equals the mean: one set of columns is enough.
+  const hasMedian = results.wtp.some(
+    (w) => w.median && Math.abs(w.median.estimate - w.estimate) > 1e-9 * Math.abs(w.estimate),
+  );
   const used = results.covariance?.used ?? 'classical';
   return (
     <div className="overflow-x-auto">
@@ -89,7 +92,9 @@ export function WtpTable({ results }: { results: RunResult }) {
       <p className="mt-2 text-xs text-ink-muted">
         In the cost attribute&apos;s unit per unit of each column
         {results.space === 'wtp' ? ', estimated directly in WTP space' : ''}. Mean and median are
-        over the population of respondents; intervals from the {used} covariance.
+        over the population of respondents
+        {hasMedian ? '' : ' (equal here: no random taste or cost)'}; intervals from the {used}{' '}
+        covariance.
       </p>
     </div>
   );

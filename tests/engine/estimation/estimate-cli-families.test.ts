@@ -93,7 +93,7 @@ describe('npm run estimate with model "hb"', () => {
     });
     expect(result.logMarginalDensity).toBeLessThan(0);
     expect(result.estimates.map((e) => e.name)).toContain('corr.outages.river');
-  });
+  }, 120_000);
 });
 
 describe('npm run estimate with model "latent_class"', () => {
@@ -117,7 +117,7 @@ describe('npm run estimate with model "latent_class"', () => {
     expect(p.classProbabilities!.length).toBe(result.classes!.length);
     expect(p.likeliestClass).toBeGreaterThanOrEqual(1);
     expect(Object.keys(p.mean)).toEqual(['river', 'outages', 'bill']);
-  });
+  }, 120_000);
 
   const bad: [string, () => string[], number, RegExp][] = [
     [

@@ -67,7 +67,7 @@ beforeAll(async () => {
   mixedMeans = computeTasteProfiles(data, mixed.layout, mixed.estimates, {
     count: 1000,
   }).profiles.map((p) => p.mean);
-}, 120_000);
+}, 300_000);
 
 describe('HB recovery on simulated data', () => {
   it('population locations lie within 2 posterior SD of the truth', () => {

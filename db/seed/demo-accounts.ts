@@ -5,7 +5,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { randomBytes } from 'node:crypto';
-import bcrypt from 'bcryptjs';
+import { hashPassword } from '../../server/lib/passwords';
 import { eq } from 'drizzle-orm';
 import type { Db } from '../client';
 import { memberships, teams, users } from '../schema/accounts';
@@ -54,7 +54,7 @@ export async function seedDemoAccounts(
       [team] = await tx.insert(teams).values({ name: DEMO_TEAM_NAME }).returning({ id: teams.id });
     let ownerId = '';
     for (const c of credentials) {
-      const passwordHash = await bcrypt.hash(c.password, 10);
+      const passwordHash = await hashPassword(c.password);
       const [u] = await tx
         .insert(users)
         .values({ email: c.email, name: c.name, passwordHash })

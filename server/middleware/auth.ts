@@ -11,34 +11,44 @@ import { passwordStamp, SESSION_COOKIE, verifySession } from '../lib/session';
 import { getUserById } from '../../db/queries/users';
 import { getMembership } from '../../db/queries/memberships';
 import { roleCan, type Permission } from '../../shared/permissions';
+import { declareAccess } from './access';
 
 export function requireUser(deps: AppDeps): RequestHandler {
-  return async (req, _res, next) => {
-    const token = req.cookies?.[SESSION_COOKIE];
-    const claims = typeof token === 'string' ? verifySession(deps.env.JWT_SECRET, token) : null;
-    if (!claims) return next(new UnauthenticatedError());
-    const user = await getUserById(deps.db, { id: claims.sub });
-    if (!user || passwordStamp(user.passwordHash) !== claims.pwd)
-      return next(new UnauthenticatedError());
-    req.auth = { userId: user.id, email: user.email, name: user.name };
-    next();
-  };
+  return declareAccess(
+    async (req, _res, next) => {
+      const token = req.cookies?.[SESSION_COOKIE];
+      const claims = typeof token === 'string' ? verifySession(deps.env.JWT_SECRET, token) : null;
+      if (!claims) return next(new UnauthenticatedError());
+      const user = await getUserById(deps.db, { id: claims.sub });
+      if (!user || passwordStamp(user.passwordHash) !== claims.pwd)
+        return next(new UnauthenticatedError());
+      req.auth = { userId: user.id, email: user.email, name: user.name };
+      next();
+    },
+    { kind: 'user' },
+  );
 }
 
 const teamParams = z.object({ teamId: z.uuid('Unknown team') });
 
 /** Loads the membership for :teamId (404 when the caller is not a member) and checks the permission. */
 export function requireTeam(deps: AppDeps, permission: Permission): RequestHandler {
-  return async (req, _res, next) => {
-    if (!req.auth) return next(new UnauthenticatedError());
-    const parsed = teamParams.safeParse(req.params);
-    if (!parsed.success) return next(new NotFoundError('Team'));
-    const m = await getMembership(deps.db, { teamId: parsed.data.teamId, userId: req.auth.userId });
-    if (!m) return next(new NotFoundError('Team'));
-    req.member = { teamId: m.teamId, role: m.role };
-    if (!roleCan(m.role, permission)) return next(new ForbiddenError());
-    next();
-  };
+  return declareAccess(
+    async (req, _res, next) => {
+      if (!req.auth) return next(new UnauthenticatedError());
+      const parsed = teamParams.safeParse(req.params);
+      if (!parsed.success) return next(new NotFoundError('Team'));
+      const m = await getMembership(deps.db, {
+        teamId: parsed.data.teamId,
+        userId: req.auth.userId,
+      });
+      if (!m) return next(new NotFoundError('Team'));
+      req.member = { teamId: m.teamId, role: m.role };
+      if (!roleCan(m.role, permission)) return next(new ForbiddenError());
+      next();
+    },
+    { kind: 'team', permission },
+  );
 }
 
 /** For handlers that need a finer check after requireTeam (e.g. personal data columns). */

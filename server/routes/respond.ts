@@ -7,6 +7,7 @@ import { Router, type Request } from 'express';
 import { rateLimit } from 'express-rate-limit';
 import type { AppDeps } from '../deps';
 import { parseBody } from '../middleware/validate';
+import { publicRoute } from '../middleware/access';
 import { AppError, NotFoundError } from '../lib/errors';
 import {
   publicIdParamsSchema,
@@ -50,6 +51,7 @@ export function createRespondRouter(deps: AppDeps): Router {
       });
     },
   });
+  router.use(publicRoute('respondents have no account: link id and session token'));
   router.use((_req, res, next) => {
     // Answers and sessions are personal: never cached by the browser or a proxy.
     res.set('Cache-Control', 'no-store');

@@ -1,9 +1,9 @@
 /** Sign up, sign in, password reset and the account of the signed-in user. */
-import bcrypt from 'bcryptjs';
 import type { AppDeps } from '../deps';
 import { ConflictError, UnauthenticatedError, ValidationError } from '../lib/errors';
 import { createOneTimeToken, hashToken } from '../lib/tokens';
 import { passwordStamp, signSession } from '../lib/session';
+import { dummyHash, hashPassword, verifyPassword } from '../lib/passwords';
 import { getUserByEmail, getUserById, insertUser, updateUser } from '../../db/queries/users';
 import { insertMembership, insertTeam, listTeamsOfUser } from '../../db/queries/memberships';
 import { consumePasswordReset, insertPasswordReset } from '../../db/queries/tokens';
@@ -17,14 +17,7 @@ import type {
   UpdateAccountInput,
 } from '../../shared/schemas/auth';
 
-const BCRYPT_ROUNDS = 10;
 export const RESET_TTL_MINUTES = 30;
-// Compared against when the e-mail is unknown, so sign-in takes as long either way.
-const DUMMY_HASH = bcrypt.hashSync('not-a-real-password', BCRYPT_ROUNDS);
-
-export async function hashPassword(password: string): Promise<string> {
-  return bcrypt.hash(password, BCRYPT_ROUNDS);
-}
 
 export function issueSession(deps: AppDeps, user: { id: string; passwordHash: string }): string {
   return signSession(deps.env.JWT_SECRET, { sub: user.id, pwd: passwordStamp(user.passwordHash) });
@@ -61,9 +54,18 @@ export async function signUp(deps: AppDeps, input: SignUpInput) {
 
 export async function signIn(deps: AppDeps, input: SignInInput) {
   const user = await getUserByEmail(deps.db, { email: input.email });
-  const ok = await bcrypt.compare(input.password, user?.passwordHash ?? DUMMY_HASH);
+  const { ok, rehash } = await verifyPassword(
+    user?.passwordHash ?? (await dummyHash()),
+    input.password,
+  );
   if (!user || !ok) throw new UnauthenticatedError('E-mail or password is wrong.');
-  return { user, token: issueSession(deps, user) };
+  const current = rehash
+    ? ((await updateUser(deps.db, {
+        id: user.id,
+        passwordHash: await hashPassword(input.password),
+      })) ?? user)
+    : user;
+  return { user: current, token: issueSession(deps, current) };
 }
 
 /** Always answers the same way, so the form cannot be used to find out who has an account. */
@@ -108,7 +110,7 @@ export async function updateAccount(deps: AppDeps, userId: string, input: Update
   if (!user) throw new UnauthenticatedError();
   let passwordHash: string | undefined;
   if (input.newPassword) {
-    const ok = await bcrypt.compare(input.currentPassword ?? '', user.passwordHash);
+    const { ok } = await verifyPassword(user.passwordHash, input.currentPassword ?? '');
     if (!ok) {
       throw new ValidationError('Your current password is wrong.', [
         { path: 'currentPassword', message: 'Current password is wrong' },

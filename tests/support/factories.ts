@@ -3,7 +3,7 @@ import { randomBytes } from 'node:crypto';
 import type supertest from 'supertest';
 import type { Role } from '../../shared/permissions';
 import type { TestApp } from './test-app';
-import { hashPassword } from '../../server/services/auth';
+import { hashPassword } from '../../server/lib/passwords';
 import { insertUser } from '../../db/queries/users';
 import { insertMembership, insertTeam } from '../../db/queries/memberships';
 

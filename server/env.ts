@@ -56,6 +56,20 @@ const envSchema = z.object({
         .map((o) => o.trim())
         .filter(Boolean),
     ),
+  /** A researcher's session ends after this many minutes without a request… */
+  SESSION_IDLE_MINUTES: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .max(24 * 60)
+    .default(30),
+  /** …and this many hours after signing in, whatever happens. */
+  SESSION_ABSOLUTE_HOURS: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .max(24 * 30)
+    .default(12),
   /** Requests per 15 minutes per IP on sign-in, sign-up and reset routes. */
   AUTH_RATE_LIMIT: z.coerce.number().int().min(1).default(50),
   /** New respondent sessions per 15 minutes per IP (a panel behind one address needs headroom). */

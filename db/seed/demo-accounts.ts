@@ -6,7 +6,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { randomBytes } from 'node:crypto';
 import { hashPassword } from '../../server/lib/passwords';
-import { eq } from 'drizzle-orm';
+import { eq, sql } from 'drizzle-orm';
 import type { Db } from '../client';
 import { memberships, teams, users } from '../schema/accounts';
 import type { Role } from '../../shared/permissions';
@@ -57,8 +57,16 @@ export async function seedDemoAccounts(
       const passwordHash = await hashPassword(c.password);
       const [u] = await tx
         .insert(users)
-        .values({ email: c.email, name: c.name, passwordHash })
-        .onConflictDoUpdate({ target: users.email, set: { passwordHash, name: c.name } })
+        // Demo accounts are confirmed, so the printed sign-ins work at once.
+        .values({ email: c.email, name: c.name, passwordHash, emailVerifiedAt: new Date() })
+        .onConflictDoUpdate({
+          target: users.email,
+          set: {
+            passwordHash,
+            name: c.name,
+            emailVerifiedAt: sql`coalesce(${users.emailVerifiedAt}, now())`,
+          },
+        })
         .returning({ id: users.id });
       await tx
         .insert(memberships)

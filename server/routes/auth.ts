@@ -1,4 +1,4 @@
-import { Router, type Response } from 'express';
+import { Router, type Request, type Response } from 'express';
 import type { AppDeps } from '../deps';
 import { parseBody } from '../middleware/validate';
 import { authRateLimit } from '../middleware/rate-limits';
@@ -6,15 +6,37 @@ import { requireUser } from '../middleware/auth';
 import { publicRoute } from '../middleware/access';
 import { SESSION_COOKIE, sessionCookieOptions } from '../lib/session';
 import {
+  confirmEmailSchema,
   forgotPasswordSchema,
   resetPasswordSchema,
   signInSchema,
   signUpSchema,
 } from '../../shared/schemas/auth';
 import * as auth from '../services/auth';
+import { resumeSession, signOutSession, type OpenedSession } from '../services/sessions';
 
-export function setSessionCookie(deps: AppDeps, res: Response, token: string): void {
-  res.cookie(SESSION_COOKIE, token, sessionCookieOptions(deps.env.APP_URL.startsWith('https:')));
+export function setSessionCookie(deps: AppDeps, res: Response, session: OpenedSession): void {
+  res.cookie(
+    SESSION_COOKIE,
+    session.token,
+    sessionCookieOptions(deps.env.APP_URL.startsWith('https:'), session.ttlSeconds),
+  );
+}
+
+export function clearSessionCookie(res: Response): void {
+  res.clearCookie(SESSION_COOKIE, { path: '/' });
+}
+
+const clientOf = (req: Request) => ({ userAgent: req.get('user-agent') });
+
+/** Sets the cookie of a freshly opened session and answers with the signed-in user. */
+async function answerSignedIn(
+  deps: AppDeps,
+  res: Response,
+  done: { user: { id: string }; session: OpenedSession },
+) {
+  setSessionCookie(deps, res, done.session);
+  res.json(await auth.getCurrentUser(deps, done.user.id));
 }
 
 export function createAuthRouter(deps: AppDeps): Router {
@@ -23,19 +45,24 @@ export function createAuthRouter(deps: AppDeps): Router {
   const open = publicRoute('signing in and account recovery happen before a session exists');
 
   router.post('/sign-up', open, limited, async (req, res) => {
-    const { user, token } = await auth.signUp(deps, parseBody(signUpSchema, req));
-    setSessionCookie(deps, res, token);
-    res.status(201).json(await auth.getCurrentUser(deps, user.id));
+    res.status(202).json(auth.signUp(deps, parseBody(signUpSchema, req)));
+  });
+
+  router.post('/confirm-email', open, limited, async (req, res) => {
+    const body = parseBody(confirmEmailSchema, req);
+    await answerSignedIn(deps, res, await auth.confirmEmail(deps, body, clientOf(req)));
   });
 
   router.post('/sign-in', open, limited, async (req, res) => {
-    const { user, token } = await auth.signIn(deps, parseBody(signInSchema, req));
-    setSessionCookie(deps, res, token);
-    res.json(await auth.getCurrentUser(deps, user.id));
+    const body = parseBody(signInSchema, req);
+    await answerSignedIn(deps, res, await auth.signIn(deps, body, clientOf(req)));
   });
 
-  router.post('/sign-out', publicRoute('signing out needs no valid session'), (_req, res) => {
-    res.clearCookie(SESSION_COOKIE, { path: '/' });
+  router.post('/sign-out', publicRoute('signing out needs no valid session'), async (req, res) => {
+    const token = req.cookies?.[SESSION_COOKIE];
+    const current = typeof token === 'string' ? await resumeSession(deps, token) : null;
+    if (current) await signOutSession(deps, current.user.id, current.sessionId);
+    clearSessionCookie(res);
     res.status(204).end();
   });
 
@@ -44,16 +71,12 @@ export function createAuthRouter(deps: AppDeps): Router {
   });
 
   router.post('/forgot-password', open, limited, async (req, res) => {
-    await auth.requestPasswordReset(deps, parseBody(forgotPasswordSchema, req));
-    res
-      .status(202)
-      .json({ message: 'If an account exists for this address, a reset link is on its way.' });
+    res.status(202).json(auth.requestPasswordReset(deps, parseBody(forgotPasswordSchema, req)));
   });
 
   router.post('/reset-password', open, limited, async (req, res) => {
-    const { user, token } = await auth.resetPassword(deps, parseBody(resetPasswordSchema, req));
-    setSessionCookie(deps, res, token);
-    res.json(await auth.getCurrentUser(deps, user.id));
+    const body = parseBody(resetPasswordSchema, req);
+    await answerSignedIn(deps, res, await auth.resetPassword(deps, body, clientOf(req)));
   });
 
   return router;

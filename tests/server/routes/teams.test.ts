@@ -127,10 +127,11 @@ describe('PATCH /api/teams/:teamId/members/:userId', () => {
   it('when two owners are demoted at the same moment, one owner always remains', async () => {
     const owner = await signUpOwner(t);
     const second = await addMember(t, owner.teamId, 'owner');
+    const actor = { userId: owner.user.id, email: owner.user.email };
     // Straight to the use case: over HTTP the permission check would serialise the two calls.
     const results = await Promise.allSettled([
-      changeMemberRole(t.deps, owner.teamId, owner.user.id, 'viewer'),
-      changeMemberRole(t.deps, owner.teamId, second.user.id, 'viewer'),
+      changeMemberRole(t.deps, actor, owner.teamId, owner.user.id, 'viewer'),
+      changeMemberRole(t.deps, actor, owner.teamId, second.user.id, 'viewer'),
     ]);
     expect(results.map((r) => r.status).sort()).toEqual(['fulfilled', 'rejected']);
     expect(await countOwners(t.deps.db, { teamId: owner.teamId })).toBe(1);

@@ -72,6 +72,10 @@ const envSchema = z.object({
     .default(12),
   /** Requests per 15 minutes per IP on sign-in, sign-up and reset routes. */
   AUTH_RATE_LIMIT: z.coerce.number().int().min(1).default(50),
+  /** Failed sign-ins per 15 minutes per account, from any address. */
+  ACCOUNT_SIGN_IN_LIMIT: z.coerce.number().int().min(1).default(10),
+  /** Requests per 15 minutes per respondent session (a survey needs a few dozen). */
+  RESPONDENT_SESSION_RATE_LIMIT: z.coerce.number().int().min(1).default(600),
   /** New respondent sessions per 15 minutes per IP (a panel behind one address needs headroom). */
   RESPONDENT_START_RATE_LIMIT: z.coerce.number().int().min(1).default(300),
 });

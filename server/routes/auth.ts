@@ -1,7 +1,11 @@
 import { Router, type Request, type Response } from 'express';
 import type { AppDeps } from '../deps';
 import { parseBody } from '../middleware/validate';
-import { authRateLimit } from '../middleware/rate-limits';
+import {
+  accountSignInLimit,
+  authRateLimit,
+  mailPerRecipientLimit,
+} from '../middleware/rate-limits';
 import { requireUser } from '../middleware/auth';
 import { publicRoute } from '../middleware/access';
 import { SESSION_COOKIE, sessionCookieOptions } from '../lib/session';
@@ -41,10 +45,12 @@ async function answerSignedIn(
 
 export function createAuthRouter(deps: AppDeps): Router {
   const router = Router();
-  const limited = authRateLimit(deps.env.AUTH_RATE_LIMIT);
+  const limited = authRateLimit(deps);
+  const perAccount = accountSignInLimit(deps);
+  const perRecipient = mailPerRecipientLimit(deps);
   const open = publicRoute('signing in and account recovery happen before a session exists');
 
-  router.post('/sign-up', open, limited, async (req, res) => {
+  router.post('/sign-up', open, limited, perRecipient, async (req, res) => {
     res.status(202).json(auth.signUp(deps, parseBody(signUpSchema, req)));
   });
 
@@ -53,7 +59,7 @@ export function createAuthRouter(deps: AppDeps): Router {
     await answerSignedIn(deps, res, await auth.confirmEmail(deps, body, clientOf(req)));
   });
 
-  router.post('/sign-in', open, limited, async (req, res) => {
+  router.post('/sign-in', open, limited, perAccount, async (req, res) => {
     const body = parseBody(signInSchema, req);
     await answerSignedIn(deps, res, await auth.signIn(deps, body, clientOf(req)));
   });
@@ -70,7 +76,7 @@ export function createAuthRouter(deps: AppDeps): Router {
     res.json(await auth.getCurrentUser(deps, req.auth!.userId));
   });
 
-  router.post('/forgot-password', open, limited, async (req, res) => {
+  router.post('/forgot-password', open, limited, perRecipient, async (req, res) => {
     res.status(202).json(auth.requestPasswordReset(deps, parseBody(forgotPasswordSchema, req)));
   });
 

@@ -10,7 +10,7 @@ import * as invitations from '../services/invitations';
 
 export function createInvitationsRouter(deps: AppDeps): Router {
   const router = Router();
-  const limited = authRateLimit(deps.env.AUTH_RATE_LIMIT);
+  const limited = authRateLimit(deps, 'invitations');
   router.get(
     '/:token',
     publicRoute('the invitation token is the credential'),

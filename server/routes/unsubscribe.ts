@@ -14,7 +14,7 @@ import * as invitees from '../services/invitees';
 export function createUnsubscribeRouter(deps: AppDeps): Router {
   const router = Router();
   router.use(publicRoute('the personal-link token is the credential (RFC 8058 one-click)'));
-  const limited = authRateLimit(deps.env.AUTH_RATE_LIMIT);
+  const limited = authRateLimit(deps, 'unsubscribe');
   router.get('/:token', limited, async (req, res) => {
     const { token } = parseParams(unsubscribeParamsSchema, req);
     res.json(await invitees.getUnsubscribeStatus(deps, token));

@@ -1,10 +1,11 @@
 /**
  * createApp builds the Express application without listening, so tests run it in-process.
- * In production it also serves the built client (dist/client) with a history fallback.
+ * In production it also serves the built client (server/static-client.ts), compressed.
  */
 import express from 'express';
 import helmet from 'helmet';
 import cookieParser from 'cookie-parser';
+import compression from 'compression';
 import path from 'node:path';
 import fs from 'node:fs';
 import type { AppDeps } from './deps';
@@ -14,6 +15,7 @@ import { mountApiRoutes } from './routes/index';
 import { createRequestLog } from './lib/request-log';
 import { createPatternLookup, listApiRoutes } from './lib/route-table';
 import { refuseCrossSiteWrites } from './middleware/same-origin';
+import { serveClient } from './static-client';
 
 export function createApp(deps: AppDeps): express.Express {
   const app = express();
@@ -44,6 +46,8 @@ export function createApp(deps: AppDeps): express.Express {
       createPatternLookup(() => listApiRoutes(app)),
     ),
   );
+  // gzip or brotli, whichever the browser prefers, for pages, scripts, styles and JSON.
+  app.use(compression());
   app.use(cookieParser());
   app.use('/api', refuseCrossSiteWrites([deps.env.APP_URL, ...deps.env.TRUSTED_ORIGINS]));
   app.use(express.json({ limit: '2mb' }));
@@ -54,12 +58,7 @@ export function createApp(deps: AppDeps): express.Express {
   app.use('/api', api);
 
   const clientDir = path.join(projectRoot, 'dist/client');
-  if (deps.env.NODE_ENV === 'production' && fs.existsSync(clientDir)) {
-    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
-    app.get(/^\/(?!api\/).*/, (_req, res) => {
-      res.sendFile(path.join(clientDir, 'index.html'));
-    });
-  }
+  if (deps.env.NODE_ENV === 'production' && fs.existsSync(clientDir)) serveClient(app, clientDir);
   app.use(errorHandler);
   return app;
 }

@@ -1,6 +1,6 @@
 /**
  * The audit trail: who did what and when. Append-only — a trigger (migration
- * 0001_audit_append_only) refuses UPDATE, DELETE and TRUNCATE, and no query in db/queries
+ * 0003_append_only_audit_and_counters) refuses UPDATE, DELETE and TRUNCATE, and no query in db/queries
  * writes anything but INSERT. No foreign keys on purpose: a row outlives the user, study or
  * respondent it names (and a cascading delete would be an UPDATE/DELETE the trigger refuses).
  * Rows name people by id and e-mail of the acting team member only; respondents by number.

@@ -5,7 +5,7 @@
  * per hit, a named prepared statement) on our own pool; this file only adapts it to
  * express-rate-limit's Store interface.
  *
- * Cost on the hot respondent path: the table (migration 0002) is UNLOGGED — no write-ahead log
+ * Cost on the hot respondent path: the table (migration 0003) is UNLOGGED — no write-ahead log
  * — so a hit is one short upsert; keys are hashed, spreading rows (no hot row per study); and a
  * key over its limit is then refused from memory until its window ends, so a flood costs the
  * database nothing more. `npm run bench:rate-limit` measures it beside the in-memory store.

@@ -32,7 +32,10 @@ test('every respondent screen fits phones from 320 px and passes an axe scan', a
   browser,
 }) => {
   test.setTimeout(360_000);
-  const api = await playwrightRequest.newContext({ baseURL: e2eBaseUrl });
+  const api = await playwrightRequest.newContext({
+    baseURL: e2eBaseUrl,
+    extraHTTPHeaders: { Origin: e2eBaseUrl },
+  });
   const study = await createLiveStudy(api, `Screens e2e ${Date.now()}`);
   for (const width of WIDTHS) {
     await test.step(`${width} px`, async () => {
@@ -98,7 +101,10 @@ test('labels too long for a narrow phone fall back to stacked cards; the offline
     ...l,
     label: `${l.label}-rated-by-the-independent-catchment-inspectorate`,
   }));
-  const api = await playwrightRequest.newContext({ baseURL: e2eBaseUrl });
+  const api = await playwrightRequest.newContext({
+    baseURL: e2eBaseUrl,
+    extraHTTPHeaders: { Origin: e2eBaseUrl },
+  });
   const study = await createLiveStudy(api, `Long labels e2e ${Date.now()}`, long);
   const context = await browser.newContext({
     viewport: { width: 320, height: 700 },

@@ -1,40 +1,47 @@
 /**
  * Piscina worker entry: holds the kernels of the respondent slices assigned to this thread
- * (data views over SharedArrayBuffers, draws generated here for the slice only) and answers
- * θ → (partial LL, gradient). Thin by design: validate the message, call the pure kernel.
+ * (over the kernel arena's shared memory; the slice's draws are generated here, into the
+ * arena) and answers θ → (partial LL, gradient). Thin by design: validate the message, call
+ * the pure kernel.
  */
 import { move } from 'piscina';
-import type { ChoiceData } from '../estimation/choice-data';
-import { createMixedLogitKernel, type MixedLogitKernel } from '../estimation/mixed-logit-kernel';
+import type { MixedLogitKernel } from '../estimation/mixed-logit-kernel';
 import { createMixedLogitLayout } from '../estimation/mixed-logit-layout';
-import { createStandardVariates } from '../estimation/standard-variates';
-import type { InitSliceMessage, SliceMessage, SliceResult } from './worker-messages';
+import { createArenaKernel } from '../simd/arena-kernel';
+import type {
+  InitSliceMessage,
+  InitSliceResult,
+  SliceMessage,
+  SliceResult,
+} from './worker-messages';
 
 const kernels = new Map<string, MixedLogitKernel>();
 
-function initSlice(msg: InitSliceMessage): MixedLogitKernel {
-  const data: ChoiceData = {
+function initSlice(msg: InitSliceMessage): InitSliceResult {
+  if (!(msg.memory instanceof WebAssembly.Memory || msg.memory instanceof SharedArrayBuffer))
+    throw new TypeError('init needs the arena memory');
+  const slice = msg.plan?.slices?.[msg.sliceIndex];
+  if (!slice) throw new TypeError('init names no slice of the arena');
+  const layout = createMixedLogitLayout({ columns: msg.columns }, msg.coefficients, msg.correlated);
+  const made = createArenaKernel({
+    memory: msg.memory,
+    plan: msg.plan,
+    sliceIndex: msg.sliceIndex,
     columns: msg.columns,
-    respondentIds: [],
-    taskIds: [],
-    taskStart: msg.taskStart,
-    diffStart: msg.diffStart,
-    diffs: msg.diffs,
-    altCount: msg.altCount,
-  };
-  const layout = createMixedLogitLayout(data, msg.coefficients, msg.correlated);
-  const variates = createStandardVariates(layout, msg.draws, msg.first, msg.count);
-  return createMixedLogitKernel(data, layout, variates, msg.draws.count, msg.first, msg.count);
+    layout,
+    draws: msg.draws,
+    kind: msg.kernel,
+    fillDraws: true,
+  });
+  kernels.set(msg.key, made.kernel);
+  return { kernel: made.kind, note: made.note };
 }
 
 /** Handles one message; returns the slice's LL and gradient (and scores when asked). */
-export function handleSliceMessage(msg: SliceMessage): SliceResult | null {
+export function handleSliceMessage(msg: SliceMessage): SliceResult | InitSliceResult | null {
   if (!msg || typeof msg !== 'object' || typeof msg.key !== 'string')
     throw new TypeError('invalid worker message');
-  if (msg.kind === 'init') {
-    kernels.set(msg.key, initSlice(msg));
-    return null;
-  }
+  if (msg.kind === 'init') return initSlice(msg);
   if (msg.kind === 'release') {
     kernels.delete(msg.key);
     return null;

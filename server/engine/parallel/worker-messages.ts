@@ -1,21 +1,28 @@
 /** Messages between the estimator and the mixed-logit worker threads (validated in the worker). */
 import type { DrawsSpec } from '../draws/uniform-draws';
 import type { CoefficientSpec } from '../estimation/mixed-logit-layout';
+import type { ArenaMemory } from '../simd/arena-kernel';
+import type { ArenaPlan } from '../simd/arena-plan';
+import type { KernelKind } from '../simd/kernel-choice';
 
 export interface InitSliceMessage {
   kind: 'init';
   key: string;
+  /** The arena's shared memory: data and variates are read in place, never copied. */
+  memory: ArenaMemory;
+  plan: ArenaPlan;
+  sliceIndex: number;
   columns: string[];
-  /** Views over SharedArrayBuffers: shared with the worker, never copied. */
-  taskStart: Int32Array;
-  diffStart: Int32Array;
-  diffs: Float64Array;
-  altCount: Int32Array;
   coefficients: CoefficientSpec[];
   correlated: boolean;
   draws: Omit<DrawsSpec, 'dimensions'>;
-  first: number;
-  count: number;
+  kernel: KernelKind;
+}
+
+/** The worker's answer to init: the kernel it runs, and why if it had to fall back. */
+export interface InitSliceResult {
+  kernel: KernelKind;
+  note: string | null;
 }
 
 export interface EvaluateSliceMessage {

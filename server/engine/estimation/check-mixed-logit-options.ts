@@ -2,6 +2,7 @@
  * Options of fitMixedLogit with their documented defaults, checked before any numerics.
  */
 import { getMaxDrawDimensions, type DrawsType } from '../draws/uniform-draws';
+import { KERNEL_PREFERENCES, type KernelPreference } from '../simd/kernel-choice';
 import type { ChoiceData } from './choice-data';
 import { EstimationOptionsError } from './estimation-errors';
 import {
@@ -30,6 +31,8 @@ export interface MixedLogitOptions {
   threads?: number;
   /** Holdout tasks for an out-of-sample hit rate. */
   holdout?: ChoiceData | null;
+  /** Kernel of the LL: 'auto' (default: WebAssembly SIMD when it can run), 'simd', 'typescript'. */
+  kernel?: KernelPreference;
 }
 
 export interface CheckedMixedLogitOptions {
@@ -42,6 +45,7 @@ export interface CheckedMixedLogitOptions {
   start: Float64Array | null;
   threads: number;
   holdout: ChoiceData | null;
+  kernel: KernelPreference;
 }
 
 const DRAW_TYPES: DrawsType[] = ['halton', 'sobol', 'mlhs', 'random'];
@@ -110,7 +114,11 @@ export function checkMixedLogitOptions(
       'holdout',
     );
   }
+  const kernel = options.kernel ?? 'auto';
+  if (!KERNEL_PREFERENCES.includes(kernel))
+    throw new EstimationOptionsError(`unknown kernel ${String(kernel)}`, 'kernel');
   return {
+    kernel,
     layout,
     draws,
     maxIterations,

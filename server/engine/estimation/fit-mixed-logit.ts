@@ -7,6 +7,7 @@
  */
 import { getDiagonalSqrt, invertMatrix, sandwich } from '../linalg/invert-matrix';
 import { createLoglikEvaluator } from '../parallel/create-loglik-evaluator';
+import type { KernelKind } from '../simd/kernel-choice';
 import { minimizeBfgs, type BfgsResult, type BfgsStopReason } from './bfgs';
 import { assertColumnsVary } from './check-identification';
 import { checkMixedLogitOptions, type MixedLogitOptions } from './check-mixed-logit-options';
@@ -34,6 +35,8 @@ export interface MixedLogitHooks {
   onProgress?: (progress: EstimationProgress) => void;
   /** Checked every iteration; a fired signal rejects with EstimationCancelledError. */
   signal?: AbortSignal;
+  /** Engine notes worth logging (e.g. why the WebAssembly SIMD kernel was not used). */
+  onNote?: (note: string) => void;
 }
 
 export interface MixedLogitResult extends FitStatistics {
@@ -61,6 +64,8 @@ export interface MixedLogitResult extends FitStatistics {
   /** Final LL, convergence flag and iterations of every start, in start order. */
   starts: { loglik: number; converged: boolean; iterations: number }[];
   draws: { type: string; count: number; seed: number; scrambled: boolean };
+  /** Kernel that evaluated the LL: 'simd' (WebAssembly) or 'typescript'. */
+  kernel: KernelKind;
   respondents: number;
   observations: number;
   hitRate: number;
@@ -79,7 +84,14 @@ export async function fitMixedLogit(
   assertColumnsVary(data, [...layout.column], names);
   const mnl = fitMnl(selectColumns(data, [...layout.column]));
   const theta0 = opts.start ?? getMixedLogitStart(layout, mnl.estimates);
-  const evaluator = await createLoglikEvaluator(data, layout, opts.draws, opts.threads);
+  const evaluator = await createLoglikEvaluator(
+    data,
+    layout,
+    opts.draws,
+    opts.threads,
+    opts.kernel,
+  );
+  for (const note of evaluator.notes) hooks.onNote?.(note);
   try {
     const objective = async (x: Float64Array, g: Float64Array) => {
       const ll = await evaluator.evaluate(x, g);
@@ -147,6 +159,7 @@ export async function fitMixedLogit(
       },
       starts: runs.map((r) => ({ loglik: -r.f, converged: r.converged, iterations: r.iterations })),
       draws: { ...opts.draws },
+      kernel: evaluator.kernel,
       respondents: data.taskStart.length - 1,
       observations: T,
       ...computeFitStatistics(loglik, loglikNull, layout.P, T),

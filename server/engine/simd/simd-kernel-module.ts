@@ -35,14 +35,14 @@ let cached: SimdKernelModule | null = null;
 
 /** The compiled kernel module, or null with the reason it cannot be used. */
 export function loadSimdKernelModule(): SimdKernelModule {
-  if (cached) return cached;
-  cached = compile();
+  // The probe is cheap and asked every time; the compiled file is kept for the thread's life.
+  if (!detectWasmSimd())
+    return { module: null, reason: 'this runtime’s WebAssembly has no SIMD support' };
+  cached ??= compile();
   return cached;
 }
 
 function compile(): SimdKernelModule {
-  if (!detectWasmSimd())
-    return { module: null, reason: 'this runtime’s WebAssembly has no SIMD support' };
   let bytes: Buffer;
   try {
     bytes = fs.readFileSync(SIMD_KERNEL_FILE);

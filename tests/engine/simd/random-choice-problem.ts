@@ -45,7 +45,7 @@ export function createRandomChoiceProblem(seed: number, size: RandomProblemSize)
     { length: K },
     () => DISTRIBUTIONS[int(0, DISTRIBUTIONS.length - 1)],
   );
-  if (distributions.every((d) => d === 'fixed')) distributions[0] = 'normal';
+  if (!distributions.some((d) => d !== 'fixed')) distributions[0] = 'normal';
   const normals = distributions.filter((d) => d === 'normal').length;
   const correlated = normals >= 2 && u() < 0.6;
   const layout = createMixedLogitLayout(

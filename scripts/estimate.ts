@@ -68,6 +68,7 @@ async function main(): Promise<void> {
   );
   const result = await runEstimation(spec, built, {
     threads,
+    onNote: (note) => process.stderr.write(`note: ${note}\n`),
     onProgress: args.quiet
       ? undefined
       : (p) =>

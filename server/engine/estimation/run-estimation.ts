@@ -13,10 +13,13 @@ import { createMixedLogitLayout } from './mixed-logit-layout';
 import { getPopulationMoments } from './population-moments';
 import { selectColumns } from './select-columns';
 import { computeTasteProfiles } from './taste-profiles';
+import type { KernelPreference } from '../simd/kernel-choice';
 
 export interface RunEstimationOptions extends MixedLogitHooks {
   /** Worker threads for the mixed logit (default 1). */
   threads?: number;
+  /** Kernel of the mixed logit's LL (default 'auto': WebAssembly SIMD when it can run). */
+  kernel?: KernelPreference;
 }
 
 /** Data columns a specification reads, in coefficient order. */
@@ -96,6 +99,7 @@ export async function runEstimation(
       draws: spec.draws,
       starts: spec.starts,
       threads: options.threads,
+      kernel: options.kernel,
       holdout,
     },
     options,

@@ -14,6 +14,7 @@ import { getPopulationMoments } from './population-moments';
 import { selectColumns } from './select-columns';
 import { computeTasteProfiles } from './taste-profiles';
 import type { KernelPreference } from '../simd/kernel-choice';
+import { computeTasteProfilesInWorkers } from '../parallel/parallel-taste-profiles';
 
 export interface RunEstimationOptions extends MixedLogitHooks {
   /** Worker threads for the mixed logit (default 1). */
@@ -109,11 +110,22 @@ export async function runEstimation(
     count: spec.profileDraws,
     seed: spec.draws.seed + 1000,
   };
-  const profiles = computeTasteProfiles(data, fit.layout, fit.estimates, {
+  const profileOptions = {
     ...profileDraws,
     cost: spec.cost,
     signal: options.signal,
-  });
+    kernel: options.kernel,
+    onNote: options.onNote,
+  };
+  const threads = options.threads ?? 1;
+  // Several threads: profiles on worker threads too, so the calling thread stays responsive.
+  const profiles =
+    threads > 1
+      ? await computeTasteProfilesInWorkers(data, fit.layout, fit.estimates, {
+          ...profileOptions,
+          threads,
+        })
+      : computeTasteProfiles(data, fit.layout, fit.estimates, profileOptions);
   return {
     model: 'mixed',
     loglik: fit.loglik,

@@ -36,6 +36,8 @@ const envSchema = z.object({
   WORKER_THREADS: z.coerce.number().int().min(1).max(64).default(2),
   /** Mixed-logit kernel: auto (WebAssembly SIMD when it can run), simd, or typescript. */
   ESTIMATION_KERNEL: z.enum(['auto', 'simd', 'typescript']).default('auto'),
+  /** Engine memory one estimation run may need; larger specifications are refused before queuing. */
+  ESTIMATION_MEMORY_LIMIT_MB: z.coerce.number().int().min(64).default(2048),
   /** Requests per 15 minutes per IP on sign-in, sign-up and reset routes. */
   AUTH_RATE_LIMIT: z.coerce.number().int().min(1).default(50),
   /** New respondent sessions per 15 minutes per IP (a panel behind one address needs headroom). */

@@ -138,6 +138,7 @@ export async function runEstimationJob(
           iteration: offset + p.iteration,
           loglik: p.loglik,
           gradientNorm: p.gradientNorm,
+          secondsLeft: Number.isFinite(p.secondsLeft) ? Math.round(p.secondsLeft) : undefined,
           initialGradientNorm: latest.initialGradientNorm ?? p.gradientNorm,
           start: p.start,
         };

@@ -33,6 +33,13 @@ export interface MixedLogitOptions {
   holdout?: ChoiceData | null;
   /** Kernel of the LL: 'auto' (default: WebAssembly SIMD when it can run), 'simd', 'typescript'. */
   kernel?: KernelPreference;
+  /**
+   * Standard errors from the numerical Hessian with robust sandwich ('robust', default) or
+   * from BHHH, the outer product of the scores ('bhhh': no numerical Hessian, for big models).
+   */
+  covariance?: 'robust' | 'bhhh';
+  /** Profile draws that will follow (default 2000), for the time-left estimate only. */
+  profileDraws?: number;
 }
 
 export interface CheckedMixedLogitOptions {
@@ -46,6 +53,8 @@ export interface CheckedMixedLogitOptions {
   threads: number;
   holdout: ChoiceData | null;
   kernel: KernelPreference;
+  covariance: 'robust' | 'bhhh';
+  profileDraws: number;
 }
 
 const DRAW_TYPES: DrawsType[] = ['halton', 'sobol', 'mlhs', 'random'];
@@ -117,8 +126,13 @@ export function checkMixedLogitOptions(
   const kernel = options.kernel ?? 'auto';
   if (!KERNEL_PREFERENCES.includes(kernel))
     throw new EstimationOptionsError(`unknown kernel ${String(kernel)}`, 'kernel');
+  const covariance = options.covariance ?? 'robust';
+  if (covariance !== 'robust' && covariance !== 'bhhh')
+    throw new EstimationOptionsError('covariance must be robust or bhhh', 'covariance');
   return {
     kernel,
+    covariance,
+    profileDraws: options.profileDraws ?? 2000,
     layout,
     draws,
     maxIterations,

@@ -19,6 +19,7 @@ import type { MixedLogitLayout } from './mixed-logit-layout';
 import { computeMixedHitRate } from './mixed-logit-hit-rate';
 import { getMixedLogitStart, perturbStart } from './mixed-logit-start';
 import { computeNumericalHessian } from './numerical-hessian';
+import { estimateSecondsLeft } from './time-left';
 import { selectColumns } from './select-columns';
 
 export type { MixedLogitOptions } from './check-mixed-logit-options';
@@ -29,11 +30,13 @@ export interface EstimationProgress {
   gradientNorm: number;
   /** 1-based start number when several starts run. */
   start: number;
+  /** Estimated seconds until the run's results are ready (time-left.ts). */
+  secondsLeft: number;
 }
 
 export interface MixedLogitHooks {
   onProgress?: (progress: EstimationProgress) => void;
-  /** Checked every iteration; a fired signal rejects with EstimationCancelledError. */
+  /** Checked before every evaluation; a fired signal rejects with EstimationCancelledError. */
   signal?: AbortSignal;
   /** Engine notes worth logging (e.g. why the WebAssembly SIMD kernel was not used). */
   onNote?: (note: string) => void;
@@ -92,34 +95,68 @@ export async function fitMixedLogit(
     opts.kernel,
   );
   for (const note of evaluator.notes) hooks.onNote?.(note);
+  // Every evaluation goes through here: a cancel is seen within one evaluation, and the
+  // evaluation time feeds the time-left estimate.
+  let evaluations = 0;
+  let evaluationSeconds = 0;
+  const evaluate = async (x: Float64Array, g: Float64Array) => {
+    if (hooks.signal?.aborted) throw new EstimationCancelledError();
+    const started = performance.now();
+    const ll = await evaluator.evaluate(x, g);
+    evaluationSeconds += (performance.now() - started) / 1000;
+    evaluations++;
+    return ll;
+  };
+  const evaluationsAfter =
+    (opts.covariance === 'bhhh' ? 1 : 2 * layout.P + 1) + opts.profileDraws / opts.draws.count;
   try {
     const objective = async (x: Float64Array, g: Float64Array) => {
-      const ll = await evaluator.evaluate(x, g);
+      const ll = await evaluate(x, g);
       for (let p = 0; p < g.length; p++) g[p] = -g[p];
       return Number.isFinite(ll) ? -ll : Infinity;
     };
     const runs: BfgsResult[] = [];
     for (let s = 0; s < opts.starts; s++) {
       const x0 = s === 0 ? theta0 : perturbStart(theta0, s, opts.draws.seed);
+      const startedAt = performance.now();
+      let initialGradientNorm = NaN;
       runs.push(
         await minimizeBfgs(objective, x0, {
           maxIterations: opts.maxIterations,
           gradientTolerance: opts.gradientTolerance,
           relativeTolerance: opts.relativeTolerance,
           signal: hooks.signal,
-          onIteration: (iteration, f, gradientNorm) =>
-            hooks.onProgress?.({ iteration, loglik: -f, gradientNorm, start: s + 1 }),
+          onIteration: (iteration, f, gradientNorm) => {
+            if (iteration === 1) initialGradientNorm = gradientNorm;
+            const secondsLeft = estimateSecondsLeft({
+              iteration,
+              maxIterations: opts.maxIterations,
+              gradientNorm,
+              initialGradientNorm,
+              tolerance: opts.gradientTolerance,
+              secondsPerIteration: (performance.now() - startedAt) / 1000 / iteration,
+              secondsPerEvaluation: evaluationSeconds / Math.max(1, evaluations),
+              evaluationsAfter,
+              startsLeft: opts.starts - s - 1,
+            });
+            hooks.onProgress?.({ iteration, loglik: -f, gradientNorm, start: s + 1, secondsLeft });
+          },
         }),
       );
     }
     if (hooks.signal?.aborted) throw new EstimationCancelledError();
     const best = runs.reduce((a, b) => (b.f < a.f ? b : a));
     const theta = best.x;
-    const hessian = await computeNumericalHessian((x, g) => evaluator.evaluate(x, g), theta);
-    const covariance = invertMatrix(
-      hessian.map((v) => -v),
-      layout.P,
-    );
+    // BHHH: the information estimated by the outer product of the per-respondent scores
+    // (Berndt, Hall, Hall & Hausman 1974; Train 2009 §8.7), valid at the maximum of a correctly
+    // specified likelihood; one evaluation instead of the 2P of the numerical Hessian.
+    const scores = await evaluator.evaluateScores(theta);
+    const opg = outerProductSum(scores, evaluator.respondentCount, layout.P);
+    const information =
+      opts.covariance === 'bhhh'
+        ? opg
+        : (await computeNumericalHessian(evaluate, theta)).map((v) => -v);
+    const covariance = invertMatrix(information, layout.P);
     if (!covariance || !covariance.every(Number.isFinite)) {
       throw new NonIdentifiedError(
         'not identified: the Hessian is singular at the estimate (a spread may be zero or parameters collinear)',
@@ -127,12 +164,9 @@ export async function fitMixedLogit(
       );
     }
     if (hooks.signal?.aborted) throw new EstimationCancelledError();
-    const scores = await evaluator.evaluateScores(theta);
-    const robustCovariance = sandwich(
-      covariance,
-      outerProductSum(scores, evaluator.respondentCount, layout.P),
-      layout.P,
-    );
+    // With BHHH the sandwich B⁻¹·B·B⁻¹ is B⁻¹ itself.
+    const robustCovariance =
+      opts.covariance === 'bhhh' ? covariance : sandwich(covariance, opg, layout.P);
     const loglik = -best.f;
     const loglikNull = computeNullLoglik(data);
     const T = data.altCount.length;
@@ -149,7 +183,7 @@ export async function fitMixedLogit(
       loglikNull,
       loglikMnl: mnl.loglik,
       iterations: runs.reduce((a, r) => a + r.iterations, 0),
-      evaluations: runs.reduce((a, r) => a + r.evaluations, 0) + 2 * layout.P + 1,
+      evaluations: evaluations + 1,
       converged: best.converged,
       convergence: {
         reason: best.reason,

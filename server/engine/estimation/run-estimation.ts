@@ -101,6 +101,7 @@ export async function runEstimation(
       starts: spec.starts,
       threads: options.threads,
       kernel: options.kernel,
+      profileDraws: spec.profileDraws,
       holdout,
     },
     options,

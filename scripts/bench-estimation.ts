@@ -6,7 +6,8 @@
  * threads (rounds interleaved, median of the rounds, so a change in the machine's load hits
  * both kernels alike), then a full estimation with each kernel, the taste profiles, the peak
  * resident memory and the load average (os.loadavg) at start and end.
- * Usage: npm run bench:estimation [-- --json] [-- --threads 2]
+ * With --large: the large-model benchmark instead (bench-estimation-large.ts).
+ * Usage: npm run bench:estimation [-- --json] [-- --threads 2] [-- --large]
  */
 import os from 'node:os';
 import { buildChoiceData } from '../server/engine/estimation/build-choice-data';
@@ -24,6 +25,10 @@ import { chooseKernel, type KernelKind } from '../server/engine/simd/kernel-choi
 import { ensureSimdKernelBuilt } from './build-wasm';
 
 const json = process.argv.includes('--json');
+if (process.argv.includes('--large')) {
+  await import('./bench-estimation-large');
+  process.exit(0);
+}
 const threadsArg = process.argv.indexOf('--threads');
 const fitThreads = threadsArg > 0 ? Number(process.argv[threadsArg + 1]) : 2;
 const loadStart = os.loadavg();

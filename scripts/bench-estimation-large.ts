@@ -103,7 +103,7 @@ const figures = {
   evaluations: fit.evaluations,
   secondsPerEvaluation: round2(fitSeconds / fit.evaluations),
   converged: fit.converged,
-  stopReason: fit.convergence.reason,
+  stopReason: fit.status,
   loglik: round2(fit.loglik),
   standardErrors: 'bhhh',
   totalSeconds: round2(fitSeconds),

@@ -129,7 +129,7 @@ export function computeTasteProfiles(
   const arena = createKernelArena(data, layout, opts.draws.count, [
     { first: 0, count: N, variateRespondents: chunk },
   ]);
-  const choice = chooseKernel(opts.kernel);
+  const choice = chooseKernel(opts.kernel, layout);
   const runner = createProfileRunner({
     memory: arena.memory ?? arena.buffer,
     plan: arena.plan,

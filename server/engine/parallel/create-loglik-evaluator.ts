@@ -21,7 +21,7 @@ export async function createLoglikEvaluator(
   kernel: KernelPreference = 'auto',
 ): Promise<MixedLogitEvaluator> {
   const N = data.taskStart.length - 1;
-  const choice = chooseKernel(kernel);
+  const choice = chooseKernel(kernel, layout);
   if (threads > 1 && N >= threads)
     return createWorkerPoolEvaluator(data, layout, draws, threads, choice);
   const arena = createKernelArena(data, layout, draws.count, [

@@ -26,7 +26,12 @@ function initSlice(msg: InitSliceMessage | InitProfilesMessage): InitSliceResult
   if (!(msg.memory instanceof WebAssembly.Memory || msg.memory instanceof SharedArrayBuffer))
     throw new TypeError('init needs the arena memory');
   if (!msg.plan?.slices?.[msg.sliceIndex]) throw new TypeError('init names no slice of the arena');
-  const layout = createMixedLogitLayout({ columns: msg.columns }, msg.coefficients, msg.correlated);
+  const layout = createMixedLogitLayout(
+    { columns: msg.columns },
+    msg.coefficients,
+    msg.correlated,
+    msg.wtpCost ?? null,
+  );
   const params = {
     memory: msg.memory,
     plan: msg.plan,

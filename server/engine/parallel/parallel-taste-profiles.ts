@@ -41,7 +41,7 @@ export async function computeTasteProfilesInWorkers(
     opts.draws.count,
     slices.map((s) => ({ ...s, variateRespondents: Math.min(PROFILE_CHUNK, s.count) })),
   );
-  const choice = chooseKernel(opts.kernel);
+  const choice = chooseKernel(opts.kernel, layout);
   const key = `profiles-${process.pid}-${++keyCounter}`;
   const pools = slices.map(() => createSlicePool());
   const width = getProfileWidth(layout.K);
@@ -58,6 +58,7 @@ export async function computeTasteProfilesInWorkers(
           columns: [...data.columns],
           coefficients: layout.coefficients.map((c) => ({ ...c })),
           correlated: layout.correlated,
+          wtpCost: layout.wtpCost >= 0 ? layout.coefficients[layout.wtpCost].name : null,
           draws: opts.draws,
           kernel: choice.kind,
         }),

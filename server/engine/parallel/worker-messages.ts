@@ -15,6 +15,8 @@ interface SliceSetup {
   columns: string[];
   coefficients: CoefficientSpec[];
   correlated: boolean;
+  /** WTP space: name of the cost coefficient (null or absent in preference space). */
+  wtpCost?: string | null;
   draws: Omit<DrawsSpec, 'dimensions'>;
   kernel: KernelKind;
 }

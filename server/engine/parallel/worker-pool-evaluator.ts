@@ -88,6 +88,7 @@ export async function createWorkerPoolEvaluator(
             columns: [...data.columns],
             coefficients: layout.coefficients.map((c) => ({ ...c })),
             correlated: layout.correlated,
+            wtpCost: layout.wtpCost >= 0 ? layout.coefficients[layout.wtpCost].name : null,
             draws,
             kernel: choice.kind,
           }) as Promise<InitSliceResult>,

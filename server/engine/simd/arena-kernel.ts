@@ -9,7 +9,7 @@ import type { MixedLogitLayout } from '../estimation/mixed-logit-layout';
 import { fillStandardVariates } from '../estimation/standard-variates';
 import type { ArenaPlan } from './arena-plan';
 import { getArenaChoiceData } from './kernel-arena';
-import { describeFallback, type KernelKind } from './kernel-choice';
+import { describeFallback, WTP_SPACE_REASON, type KernelKind } from './kernel-choice';
 import { createSimdMixedLogitKernel } from './simd-mixed-logit-kernel';
 import { loadSimdKernelModule } from './simd-kernel-module';
 
@@ -55,7 +55,9 @@ export function createArenaKernel(params: {
   );
   if (params.fillDraws) fillStandardVariates(layout, draws, slice.first, slice.count, variates);
   let note: string | null = null;
-  if (params.kind === 'simd') {
+  if (params.kind === 'simd' && layout.wtpCost >= 0) {
+    note = describeFallback(WTP_SPACE_REASON);
+  } else if (params.kind === 'simd') {
     const loaded = loadSimdKernelModule();
     if (loaded.module && memory instanceof WebAssembly.Memory) {
       return {

@@ -19,8 +19,16 @@ export function describeFallback(reason: string): string {
   return `WebAssembly SIMD kernel not used: ${reason}; the TypeScript kernel evaluates the model instead`;
 }
 
-export function chooseKernel(preference: KernelPreference = 'auto'): KernelChoice {
+/** Models the WebAssembly kernel does not cover. */
+export const WTP_SPACE_REASON = 'models in WTP space run on the TypeScript kernel only';
+
+/** The kernel for a model (`wtpCost` ≥ 0: WTP space, which only the TypeScript kernel has). */
+export function chooseKernel(
+  preference: KernelPreference = 'auto',
+  model: { wtpCost: number } = { wtpCost: -1 },
+): KernelChoice {
   if (preference === 'typescript') return { kind: 'typescript', note: null };
+  if (model.wtpCost >= 0) return { kind: 'typescript', note: describeFallback(WTP_SPACE_REASON) };
   const loaded = loadSimdKernelModule();
   if (loaded.module) return { kind: 'simd', note: null };
   return { kind: 'typescript', note: describeFallback(loaded.reason) };

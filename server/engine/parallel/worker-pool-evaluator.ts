@@ -4,21 +4,16 @@
  * its own single-thread pool. The data sit once in a kernel arena (shared memory) that every
  * thread reads in place; each thread generates its slice's draws into the arena and runs the
  * chosen kernel (WebAssembly SIMD or TypeScript) on it. Per evaluation a thread gets θ and
- * returns its partial LL and gradient, summed here.
- *
- * TypeScript in workers: the worker file is .ts; workers start with `--import <tsx loader>`
- * (resolved from this package's node_modules), which works whether the parent runs under
- * tsx, vitest or plain node.
+ * returns its partial LL and gradient, summed here. Worker files are TypeScript (see ts-worker-pool.ts).
  */
-import { createRequire } from 'node:module';
-import { fileURLToPath, pathToFileURL } from 'node:url';
-import { Piscina } from 'piscina';
+import { fileURLToPath } from 'node:url';
 import type { DrawsSpec } from '../draws/uniform-draws';
 import type { ChoiceData } from '../estimation/choice-data';
 import type { MixedLogitLayout } from '../estimation/mixed-logit-layout';
 import { createKernelArena } from '../simd/kernel-arena';
 import type { KernelChoice } from '../simd/kernel-choice';
 import type { MixedLogitEvaluator } from './mixed-logit-evaluator';
+import { createTsWorkerPool } from './ts-worker-pool';
 import type { InitSliceResult, SliceResult } from './worker-messages';
 
 const WORKER_FILE = fileURLToPath(new URL('./mixed-logit-worker.ts', import.meta.url));
@@ -44,17 +39,9 @@ export function splitRespondents(
   return slices;
 }
 
-/** One single-thread piscina pool running the mixed-logit worker (TypeScript via tsx). */
-export function createSlicePool(): Piscina {
-  const tsxLoader = pathToFileURL(createRequire(import.meta.url).resolve('tsx')).href;
-  return new Piscina({
-    filename: WORKER_FILE,
-    name: 'handleSliceMessage',
-    execArgv: ['--import', tsxLoader],
-    minThreads: 1,
-    maxThreads: 1,
-    idleTimeout: 60_000,
-  });
+/** One single-thread pool running the mixed-logit worker. */
+export function createSlicePool() {
+  return createTsWorkerPool(WORKER_FILE, 'handleSliceMessage', 1);
 }
 
 /** Starts `threads` worker threads holding the data and draws; remember to close() it. */

@@ -27,9 +27,11 @@ start_services() {
 }
 stage "database and fake mail" start_services
 
-# Four single-threaded or short jobs share the two cores; each one's output is shown when it
-# ends, and the stage fails if any of them fails.
-stage "typecheck, lint, format, build" parallel \
+# Single-threaded or short jobs share the two cores; each one's output is shown when it ends,
+# and the stage fails if any of them fails. The audit: production packages may have no high or
+# critical advisory (scripts/audit.sh).
+stage "audit, typecheck, lint, format, build" parallel \
+  "dependency audit" "bash scripts/audit.sh" \
   "typecheck" "npx tsc --noEmit -p ." \
   "lint" "npx eslint . --max-warnings=0" \
   "format" "npx prettier --check . --log-level warn" \

@@ -6,13 +6,10 @@
 import { execFileSync } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
 import path from 'node:path';
-import { ensureSimdKernelBuilt } from '../scripts/build-wasm';
 import { createTemplateDatabase, dropDatabase } from './support/template-db';
 
 export default async function setup() {
   const root = path.resolve(import.meta.dirname, '..');
-  // The WebAssembly kernel is built by `npm run build`, which CI runs after the tests.
-  await ensureSimdKernelBuilt();
   let adminUrl = process.env.DATABASE_URL;
   if (!adminUrl) {
     execFileSync(path.join(root, 'scripts/pg.sh'), ['start'], { stdio: 'inherit' });

@@ -18,12 +18,9 @@ import type { DesignSpecInput } from '../../shared/schemas/design-spec';
 
 export const DEMO_STUDY_NAME = 'Water service packages 2027–2031';
 
-const numericLevels = (prefix: string, values: number[], unit: string) =>
-  values.map((v) => ({
-    id: `${prefix}-${v}`,
-    label: unit === '€' ? `€${v}` : unit === '%' ? `${v} %` : String(v),
-    value: v,
-  }));
+/** Numeric levels show the label derived from value and unit (no overrides). */
+const numericLevels = (prefix: string, values: number[]) =>
+  values.map((v) => ({ id: `${prefix}-${v}`, value: v }));
 
 export const demoDefinition: StudyDefinition = studyDefinitionSchema.parse({
   attributes: [
@@ -35,7 +32,7 @@ export const demoDefinition: StudyDefinition = studyDefinitionSchema.parse({
       unit: '€',
       isCost: true,
       coding: 'linear',
-      levels: numericLevels('bill', [0, 3, 6, 10, 15], '€'),
+      levels: numericLevels('bill', [0, 3, 6, 10, 15]),
     },
     {
       id: 'interruptions',
@@ -44,7 +41,7 @@ export const demoDefinition: StudyDefinition = studyDefinitionSchema.parse({
       kind: 'numeric',
       unit: 'per year',
       coding: 'linear',
-      levels: numericLevels('interruptions', [4, 2, 1], ''),
+      levels: numericLevels('interruptions', [4, 2, 1]),
     },
     {
       id: 'warnings',
@@ -53,7 +50,7 @@ export const demoDefinition: StudyDefinition = studyDefinitionSchema.parse({
       kind: 'numeric',
       unit: 'days',
       coding: 'linear',
-      levels: numericLevels('warnings', [6, 2, 0], ''),
+      levels: numericLevels('warnings', [6, 2, 0]),
     },
     {
       id: 'river',
@@ -74,7 +71,7 @@ export const demoDefinition: StudyDefinition = studyDefinitionSchema.parse({
       kind: 'numeric',
       unit: '%',
       coding: 'linear',
-      levels: numericLevels('renewable', [20, 50, 80], '%'),
+      levels: numericLevels('renewable', [20, 50, 80]),
     },
   ],
   alternatives: { count: 2, labeled: false, labels: [] },

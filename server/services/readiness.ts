@@ -8,6 +8,7 @@ import { questionnaireSchema, type Questionnaire } from '../../shared/schemas/qu
 import { CONSENT_PLACEHOLDER } from '../../shared/schemas/questionnaire-defaults';
 import type { FieldworkSettings, ReadinessProblem } from '../../shared/schemas/study-lifecycle';
 import { studyDefinitionSchema, type StudyDefinition } from '../../shared/schemas/study-definition';
+import { checkLevelLabel, formatNumber } from '../../shared/study/level-labels';
 
 type Input = {
   definition: unknown;
@@ -51,6 +52,26 @@ function checkDesign(definition: StudyDefinition, design: Design): ReadinessProb
     if (!design.tasks.some((t) => t.block === b))
       problems.push({ code: 'empty_block', path: 'design', message: `Block ${b} has no tasks.` });
   return problems;
+}
+
+/**
+ * Numeric levels whose own label does not write the coded value (and that the researcher did
+ * not confirm for that value): respondents would read one number while the model codes another.
+ */
+function checkLevelLabels(definition: StudyDefinition): ReadinessProblem[] {
+  return definition.attributes.flatMap((a, i) =>
+    a.levels.flatMap((l, k) =>
+      checkLevelLabel(a, l) === 'drifted'
+        ? [
+            {
+              code: 'level_label_mismatch',
+              path: `definition.attributes.${i}.levels.${k}.label`,
+              message: `${a.name}: the level shown as “${l.label.trim()}” is coded as ${formatNumber(l.value!)}. Correct or clear the label on Attributes, or confirm it is meant for this value.`,
+            },
+          ]
+        : [],
+    ),
+  );
 }
 
 function checkPagesAgainstStudy(
@@ -130,6 +151,7 @@ export function checkReadiness(input: Input): ReadinessProblem[] {
       path: 'definition.attributes',
       message: 'Add at least one attribute.',
     });
+  if (definition) problems.push(...checkLevelLabels(definition));
   definition?.attributes.forEach((a, i) => {
     if (a.levels.length < 2)
       problems.push({

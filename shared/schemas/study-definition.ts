@@ -17,10 +17,20 @@ export type Coding = z.infer<typeof codingSchema>;
 
 export const levelSchema = z.object({
   id: elementIdSchema,
-  /** Shown to respondents; for numeric attributes the formatted number is used when empty. */
-  label: z.string().trim().min(1, 'A level needs a label').max(120),
+  /**
+   * Shown to respondents. Categorical levels need one. Numeric levels: an override of the
+   * label derived from value and unit (shared/study/level-labels.ts); empty = derived.
+   */
+  label: z.string().trim().max(120).default(''),
   /** Numeric attributes only: the value used for linear coding and formatting. */
   value: z.number().finite().optional(),
+  /**
+   * Numeric levels whose override does not write the value: the value and label the
+   * researcher confirmed as meant. Stale once either changes.
+   */
+  labelConfirmed: z
+    .object({ value: z.number().finite(), label: z.string().trim().max(120) })
+    .optional(),
   /** Key of an uploaded image in the storage module. */
   imageKey: z.string().max(200).optional(),
 });
@@ -40,16 +50,20 @@ export const attributeSchema = z
     levels: z.array(levelSchema).min(2, 'An attribute needs at least 2 levels').max(12),
   })
   .superRefine((a, ctx) => {
-    if (a.kind === 'numeric') {
-      a.levels.forEach((l, i) => {
-        if (l.value === undefined)
-          ctx.addIssue({
-            code: 'custom',
-            path: ['levels', i, 'value'],
-            message: 'Numeric levels need a value',
-          });
-      });
-    }
+    a.levels.forEach((l, i) => {
+      if (a.kind === 'numeric' && l.value === undefined)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['levels', i, 'value'],
+          message: 'Numeric levels need a value',
+        });
+      if (a.kind === 'categorical' && l.label === '')
+        ctx.addIssue({
+          code: 'custom',
+          path: ['levels', i, 'label'],
+          message: 'A level needs a label',
+        });
+    });
     if (a.coding === 'linear' && a.kind !== 'numeric')
       ctx.addIssue({
         code: 'custom',

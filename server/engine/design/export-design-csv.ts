@@ -7,6 +7,7 @@
 import { stringify } from 'csv-stringify/sync';
 import type { Design } from '../../../shared/schemas/design';
 import type { Attribute, StudyDefinition } from '../../../shared/schemas/study-definition';
+import { getLevelLabel } from '../../../shared/study/level-labels';
 
 /** The cell text of a level: its numeric value for numeric attributes, else its label. */
 export function getLevelCell(attribute: Attribute, levelId: string | undefined): string {
@@ -15,7 +16,7 @@ export function getLevelCell(attribute: Attribute, levelId: string | undefined):
   if (!level) return '';
   return attribute.kind === 'numeric' && level.value !== undefined
     ? String(level.value)
-    : level.label;
+    : getLevelLabel(attribute, level);
 }
 
 export function exportDesignCsv(definition: StudyDefinition, design: Design): string {

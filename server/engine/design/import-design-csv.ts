@@ -9,6 +9,7 @@
 import { parse } from 'csv-parse/sync';
 import type { Design } from '../../../shared/schemas/design';
 import type { StudyDefinition } from '../../../shared/schemas/study-definition';
+import { getLevelLabel } from '../../../shared/study/level-labels';
 
 export interface CsvRowError {
   row: number;
@@ -27,7 +28,9 @@ function findLevelId(
 ): string | undefined {
   const attribute = definition.attributes[attributeIndex];
   const text = cell.trim();
-  const byLabel = attribute.levels.find((l) => l.label.trim().toLowerCase() === text.toLowerCase());
+  const byLabel = attribute.levels.find(
+    (l) => getLevelLabel(attribute, l).toLowerCase() === text.toLowerCase(),
+  );
   if (byLabel) return byLabel.id;
   if (attribute.kind === 'numeric' && text !== '' && Number.isFinite(Number(text)))
     return attribute.levels.find((l) => l.value === Number(text))?.id;

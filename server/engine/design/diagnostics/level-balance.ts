@@ -4,6 +4,7 @@
  */
 import type { StudyDefinition } from '../../../../shared/schemas/study-definition';
 import type { LevelGrid } from '../design-grid';
+import { getLevelLabel } from '../../../../shared/study/level-labels';
 
 export interface AttributeLevelBalance {
   attributeId: string;
@@ -40,7 +41,7 @@ export function getLevelBalance(
       name: attribute.name,
       levels: attribute.levels.map((level, l) => ({
         levelId: level.id,
-        label: level.label,
+        label: getLevelLabel(attribute, level),
         count: counts[l],
         share: shown > 0 ? counts[l] / shown : 0,
       })),

@@ -5,6 +5,7 @@ import { SelectField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import type { FieldErrors } from '../utils/field-errors';
 import { newId } from '../utils/definition-drafts';
+import { getLevelLabel } from '@shared/study/level-labels';
 
 type Props = {
   definition: StudyDefinition;
@@ -18,7 +19,7 @@ function levelOptions(d: StudyDefinition) {
   return d.attributes.flatMap((a) =>
     a.levels.map((l, i) => ({
       value: `${a.id}|${l.id}`,
-      text: `${a.name || 'Unnamed'}: ${l.label || (l.value ?? `Level ${i + 1}`)}`,
+      text: `${a.name || 'Unnamed'}: ${getLevelLabel(a, l) || `Level ${i + 1}`}`,
     })),
   );
 }

@@ -4,7 +4,7 @@
  */
 import { nanoid } from 'nanoid';
 import type { Attribute, Level, StudyDefinition } from '@shared/schemas/study-definition';
-import { formatNumericLevel } from '@/components/choice-task/format-level';
+import { checkLevelLabel, formatNumericLevel } from '@shared/study/level-labels';
 
 export const newId = () => nanoid(10);
 
@@ -50,9 +50,43 @@ export function changeKind(a: Attribute, kind: Attribute['kind']): Attribute {
 }
 
 /**
- * What is sent on save: empty labels of numeric levels become the formatted value, and
- * references to removed attributes or levels are dropped from the status quo, prohibitions
- * and labeled alternatives.
+ * Numeric labels that merely repeat the value and unit become derived again (empty), so
+ * they follow later changes of value or unit; a confirmation that no longer matches its
+ * level's value and label is dropped. Used on load and on save.
+ */
+export function normalizeLevel(a: Pick<Attribute, 'kind' | 'unit'>, l: Level): Level {
+  if (a.kind !== 'numeric')
+    return { id: l.id, label: l.label, ...(l.imageKey ? { imageKey: l.imageKey } : {}) };
+  const label = l.label.trim();
+  const derived = l.value !== undefined ? formatNumericLevel(l.value, a.unit) : null;
+  const next: Level = { ...l, label: label === derived ? '' : label };
+  if (checkLevelLabel(a, next) !== 'confirmed') delete next.labelConfirmed;
+  return next;
+}
+
+/** The saved definition as the editor starts from it (see normalizeLevel). */
+export function toDraftDefinition(d: StudyDefinition): StudyDefinition {
+  return {
+    ...d,
+    attributes: d.attributes.map((a) => ({
+      ...a,
+      levels: a.levels.map((l) => normalizeLevel(a, l)),
+    })),
+  };
+}
+
+/** Confirms (or withdraws) that a numeric level's own label is meant for its current value. */
+export function confirmLevelLabel(l: Level, confirmed: boolean): Level {
+  const next = { ...l };
+  if (confirmed && l.value !== undefined)
+    next.labelConfirmed = { value: l.value, label: l.label.trim() };
+  else delete next.labelConfirmed;
+  return next;
+}
+
+/**
+ * What is sent on save: numeric labels as in normalizeLevel, and references to removed
+ * attributes or levels dropped from the status quo, prohibitions and labeled alternatives.
  */
 export function normalizeDefinition(d: StudyDefinition): StudyDefinition {
   const attributes = d.attributes.map((a) => ({
@@ -62,15 +96,7 @@ export function normalizeDefinition(d: StudyDefinition): StudyDefinition {
       a.coding === 'dummy' && a.levels.some((l) => l.id === a.referenceLevelId)
         ? a.referenceLevelId
         : undefined,
-    levels: a.levels.map((l) =>
-      a.kind === 'numeric'
-        ? {
-            ...l,
-            label:
-              l.label.trim() || (l.value !== undefined ? formatNumericLevel(l.value, a.unit) : ''),
-          }
-        : { id: l.id, label: l.label, ...(l.imageKey ? { imageKey: l.imageKey } : {}) },
-    ),
+    levels: a.levels.map((l) => normalizeLevel(a, l)),
   }));
   const levelExists = (attributeId: string, levelId: string) =>
     attributes.find((a) => a.id === attributeId)?.levels.some((l) => l.id === levelId) ?? false;

@@ -1,6 +1,7 @@
 import { SelectField } from '@/components/ui/field';
 import type { QuestionnairePage } from '@shared/schemas/questionnaire';
 import type { StudyDefinition } from '@shared/schemas/study-definition';
+import { getLevelLabel } from '@shared/study/level-labels';
 
 type FixedTaskPage = Extract<QuestionnairePage, { kind: 'warmup' | 'holdout' }>;
 type DominancePage = Extract<QuestionnairePage, { kind: 'dominance' }>;
@@ -41,7 +42,7 @@ export function FixedTaskFields({
               <option value="">Choose a level</option>
               {a.levels.map((l) => (
                 <option key={l.id} value={l.id}>
-                  {l.label}
+                  {getLevelLabel(a, l)}
                 </option>
               ))}
             </SelectField>
@@ -81,7 +82,7 @@ export function DominanceFields({
             <option value="">Choose a level</option>
             {a.levels.map((l) => (
               <option key={l.id} value={l.id}>
-                {l.label}
+                {getLevelLabel(a, l)}
               </option>
             ))}
           </SelectField>

@@ -102,7 +102,7 @@ function checkPagesAgainstStudy(
       const name = page.kind === 'warmup' ? 'warm-up' : 'holdout';
       if (page.alternatives.length !== definition.alternatives.count)
         problems.push({
-          code: 'fixed_task_mismatch',
+          code: 'hand_set_task_mismatch',
           path,
           message: `The ${name} task needs ${definition.alternatives.count} alternatives.`,
         });
@@ -115,7 +115,7 @@ function checkPagesAgainstStudy(
         for (const a of definition.attributes)
           if (!omitted.has(a.id) && !a.levels.some((l) => l.id === alt.levels[a.id]))
             problems.push({
-              code: 'fixed_task_mismatch',
+              code: 'hand_set_task_mismatch',
               path,
               message: `Choose a level of ${a.name} for alternative ${j + 1} of the ${name} task.`,
             });

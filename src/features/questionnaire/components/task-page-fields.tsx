@@ -3,18 +3,18 @@ import type { QuestionnairePage } from '@shared/schemas/questionnaire';
 import type { StudyDefinition } from '@shared/schemas/study-definition';
 import { getLevelLabel } from '@shared/study/level-labels';
 
-type FixedTaskPage = Extract<QuestionnairePage, { kind: 'warmup' | 'holdout' }>;
+type HandSetTaskPage = Extract<QuestionnairePage, { kind: 'warmup' | 'holdout' }>;
 type DominancePage = Extract<QuestionnairePage, { kind: 'dominance' }>;
 
 /** Levels of a warm-up or holdout task: one select per attribute and alternative. */
-export function FixedTaskFields({
+export function HandSetTaskFields({
   page,
   definition,
   onChange,
 }: {
-  page: FixedTaskPage;
+  page: HandSetTaskPage;
   definition: StudyDefinition;
-  onChange: (p: FixedTaskPage) => void;
+  onChange: (p: HandSetTaskPage) => void;
 }) {
   const setLevel = (j: number, attributeId: string, levelId: string) =>
     onChange({

@@ -4,25 +4,16 @@
  * at every screen the rendered main region (React's generated ids aside), the progress and
  * the study name are the same.
  */
-import { execFileSync } from 'node:child_process';
-import path from 'node:path';
 import pg from 'pg';
 import { expect, request as playwrightRequest, test, type Page } from '@playwright/test';
 import { e2eBaseUrl } from '../playwright.config';
+import { e2eDatabaseUrl } from './support/database';
 import { createPage, demoQuestionnaire } from '../shared/schemas/questionnaire-defaults';
 import type { Questionnaire } from '../shared/schemas/questionnaire';
 import { createLiveStudy, demoEditor, larkspurDefinition } from './support/live-study';
 import { signIn } from './support/auth';
 
 test.use({ viewport: { width: 360, height: 740 }, hasTouch: true });
-
-function e2eDatabaseUrl(): string {
-  if (process.env.E2E_DATABASE_URL) return process.env.E2E_DATABASE_URL;
-  const root = path.resolve(import.meta.dirname, '..');
-  return execFileSync(path.join(root, 'scripts/pg.sh'), ['url', 'choicewright_e2e'])
-    .toString()
-    .trim();
-}
 
 /** The demo questionnaire plus every other page kind, and a title of our own on the tasks. */
 function everyPageKind(): Questionnaire {

@@ -100,7 +100,10 @@ test('an editor creates a study, adds attributes, generates a design and preview
     );
     await phone.getByRole('button', { name: 'Next' }).click();
     await expect(page.getByLabel('Screen', { exact: true })).toHaveValue('3');
-    await page.locator('label').filter({ hasText: /^Desktop/ }).click();
+    await page
+      .locator('label')
+      .filter({ hasText: /^Desktop/ })
+      .click();
     await expect(
       page
         .frameLocator('iframe[title="Respondent screen preview, desktop width"]')

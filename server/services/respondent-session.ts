@@ -82,7 +82,7 @@ export async function getLinkInfo(
   const settings = readSettings(study.settings);
   return {
     state,
-    studyName: state === 'not_open' ? null : study.name,
+    studyName: state === 'not_open' ? null : study.publicTitle,
     redirectUrl:
       state === 'over_quota'
         ? redirectFor(settings, 'over_quota', params[settings.panelParam] ?? null)
@@ -159,12 +159,12 @@ export async function createRespondent(
 
 export async function buildSession(
   db: DbOrTx,
-  study: { id: string; name: string; status: string; settings: unknown },
+  study: { id: string; publicTitle: string; status: string; settings: unknown },
   respondent: RespondentRow,
 ): Promise<RespondentSession> {
   const version = await loadFrozenVersion(db, { id: respondent.versionId, studyId: study.id });
   const plan = respondentPlanSchema.parse(respondent.plan);
-  const survey = buildSurveyView(version, plan, study.name);
+  const survey = buildSurveyView(version, plan, study.publicTitle);
   const answeredKeys = await listAnsweredKeys(db, { respondentId: respondent.id });
   return {
     sessionToken: respondent.sessionToken,

@@ -49,6 +49,6 @@ export async function getStudyPreview(
     blocks: design.data.blocks,
     seed: query.seed,
     questionnaireSaved: stored.success,
-    survey: buildSurveyView(version, plan, study.name),
+    survey: buildSurveyView(version, plan, study.publicTitle),
   };
 }

@@ -22,10 +22,13 @@ export function PageForm({
   page,
   definition,
   onChange,
+  otherKeys = [],
 }: {
   page: QuestionnairePage;
   definition: StudyDefinition;
   onChange: (p: QuestionnairePage) => void;
+  /** Question keys used by the other pages. */
+  otherKeys?: string[];
 }) {
   const titled = (
     <TextField
@@ -87,6 +90,7 @@ export function PageForm({
         <QuestionFields
           question={page.question}
           allowText={page.kind === 'question'}
+          otherKeys={otherKeys}
           onChange={(question) => onChange({ ...page, question } as QuestionnairePage)}
         />
       )}

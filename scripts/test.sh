@@ -24,6 +24,8 @@ scripts/pg.sh start
 echo "== fake mail server for the tests"
 scripts/mail.sh start 1125 1180
 
+echo "== dependency audit (production packages: no high or critical advisories)"
+bash scripts/audit.sh
 echo "== typecheck"
 npx tsc --noEmit -p .
 echo "== lint"

@@ -7,6 +7,7 @@
  * for numeric attributes, the numeric value.
  */
 import { parse } from 'csv-parse/sync';
+import { unescapeCsvText } from '../../lib/safe-csv';
 import type { Design } from '../../../shared/schemas/design';
 import type { StudyDefinition } from '../../../shared/schemas/study-definition';
 import { getLevelLabel } from '../../../shared/study/level-labels';
@@ -27,7 +28,7 @@ function findLevelId(
   cell: string,
 ): string | undefined {
   const attribute = definition.attributes[attributeIndex];
-  const text = cell.trim();
+  const text = unescapeCsvText(cell.trim());
   const byLabel = attribute.levels.find(
     (l) => getLevelLabel(attribute, l).toLowerCase() === text.toLowerCase(),
   );
@@ -38,7 +39,7 @@ function findLevelId(
 }
 
 function readTasks(definition: StudyDefinition, records: string[][], errors: CsvRowError[]) {
-  const header = records[0].map((h) => h.trim());
+  const header = records[0].map((h) => unescapeCsvText(h.trim()));
   const column = (name: string) => header.findIndex((h) => h.toLowerCase() === name.toLowerCase());
   const fixed = ['block', 'task', 'alternative'].map(column);
   const attributeColumns = definition.attributes.map((a) => column(a.name));

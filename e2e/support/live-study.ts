@@ -71,7 +71,7 @@ export const larkspurDefinition: StudyDefinition = {
     label: 'Current service',
     levels: { bill: 'b0', interrupt: 'i4', warn: 'w6', river: 'poor', renew: 'r20' },
   },
-  prohibitions: [],
+  excludedCombinations: [],
 };
 
 export function demoEditor(): { email: string; password: string } {

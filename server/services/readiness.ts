@@ -8,7 +8,8 @@ import { questionnaireSchema, type Questionnaire } from '../../shared/schemas/qu
 import { CONSENT_PLACEHOLDER } from '../../shared/schemas/questionnaire-defaults';
 import type { FieldworkSettings, ReadinessProblem } from '../../shared/schemas/study-lifecycle';
 import { studyDefinitionSchema, type StudyDefinition } from '../../shared/schemas/study-definition';
-import { checkLevelLabel, formatNumber } from '../../shared/study/level-labels';
+import { checkLevelLabel, formatNumber, getLevelLabel } from '../../shared/study/level-labels';
+import { listUnshownLevels } from '../engine/design/diagnostics/level-balance';
 
 type Input = {
   definition: unknown;
@@ -47,6 +48,12 @@ function checkDesign(definition: StudyDefinition, design: Design): ReadinessProb
       code: 'design_mismatch',
       path: 'design',
       message: `Task ${bad.task} of the design does not match the attributes and alternatives. Generate the design again.`,
+    });
+  for (const { attribute, level } of listUnshownLevels(definition, design))
+    problems.push({
+      code: 'level_never_shown',
+      path: 'design',
+      message: `${attribute.name}: the level “${getLevelLabel(attribute, level)}” never appears in the choice tasks. Generate the design again, or remove the level.`,
     });
   for (let b = 1; b <= design.blocks; b++)
     if (!design.tasks.some((t) => t.block === b))

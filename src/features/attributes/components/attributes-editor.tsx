@@ -1,6 +1,6 @@
 /**
  * The Attributes section's editor: attributes and levels (drag to reorder), alternatives,
- * opt-out / status quo and prohibited combinations, saved as one definition. Errors from the
+ * opt-out / status quo and excluded combinations, saved as one definition. Errors from the
  * shared zod schema (before sending) or from the server are shown at their fields.
  */
 import { useMemo, useState } from 'react';
@@ -20,7 +20,7 @@ import { AttributeCard } from './attribute-card';
 import { SortableList } from './sortable-list';
 import { AlternativesSettings } from './alternatives-settings';
 import { FixedAlternativeSettings } from './fixed-alternative-settings';
-import { ProhibitionsEditor } from './prohibitions-editor';
+import { ExcludedCombinationsEditor } from './excluded-combinations-editor';
 import { SaveBar } from './save-bar';
 
 type Props = {
@@ -180,7 +180,7 @@ export function AttributesEditor({
         readOnly={readOnly}
         onChange={change}
       />
-      <ProhibitionsEditor
+      <ExcludedCombinationsEditor
         definition={draft}
         errors={errors}
         readOnly={readOnly}

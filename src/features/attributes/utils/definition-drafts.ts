@@ -3,7 +3,12 @@
  * random strings (elementIdSchema) so renaming never breaks references.
  */
 import { nanoid } from 'nanoid';
-import type { Attribute, Level, StudyDefinition } from '@shared/schemas/study-definition';
+import type {
+  Attribute,
+  ExcludedCombination,
+  Level,
+  StudyDefinition,
+} from '@shared/schemas/study-definition';
 import { checkLevelLabel, formatNumericLevel } from '@shared/study/level-labels';
 
 export const newId = () => nanoid(10);
@@ -86,7 +91,8 @@ export function confirmLevelLabel(l: Level, confirmed: boolean): Level {
 
 /**
  * What is sent on save: numeric labels as in normalizeLevel, and references to removed
- * attributes or levels dropped from the status quo, prohibitions and labeled alternatives.
+ * attributes or levels dropped from the status quo, excluded combinations and labeled
+ * alternatives.
  */
 export function normalizeDefinition(d: StudyDefinition): StudyDefinition {
   const attributes = d.attributes.map((a) => ({
@@ -124,9 +130,7 @@ export function normalizeDefinition(d: StudyDefinition): StudyDefinition {
               : {},
         }
       : null,
-    prohibitions: d.prohibitions.filter(
-      (p) => levelExists(p.a.attributeId, p.a.levelId) && levelExists(p.b.attributeId, p.b.levelId),
-    ),
+    excludedCombinations: keepExcludedCombinations(d, attributes),
   };
 }
 
@@ -136,4 +140,46 @@ export function resizeLabels(d: StudyDefinition, count: number): StudyDefinition
   while (labels.length < count)
     labels.push({ id: newId(), name: `Alternative ${labels.length + 1}`, omittedAttributeIds: [] });
   return { ...d.alternatives, count, labels };
+}
+
+/** Excluded combinations that still refer to existing attributes, levels and alternatives. */
+function keepExcludedCombinations(
+  d: StudyDefinition,
+  attributes: Attribute[],
+): StudyDefinition['excludedCombinations'] {
+  const levelIds = (attributeId: string) =>
+    new Set(attributes.find((a) => a.id === attributeId)?.levels.map((l) => l.id) ?? []);
+  const hasLevel = (attributeId: string, levelId: string) => levelIds(attributeId).has(levelId);
+  const hasAttribute = (id: string) => attributes.some((a) => a.id === id);
+  return d.excludedCombinations.flatMap((rule): ExcludedCombination[] => {
+    switch (rule.kind) {
+      case 'pair':
+        return hasLevel(rule.a.attributeId, rule.a.levelId) &&
+          hasLevel(rule.b.attributeId, rule.b.levelId)
+          ? [rule]
+          : [];
+      case 'when_then': {
+        const when = rule.when.levelIds.filter((l) => hasLevel(rule.when.attributeId, l));
+        const then = rule.then.levelIds.filter((l) => hasLevel(rule.then.attributeId, l));
+        return when.length > 0 && then.length > 0
+          ? [
+              {
+                ...rule,
+                when: { ...rule.when, levelIds: when },
+                then: { ...rule.then, levelIds: then },
+              },
+            ]
+          : [];
+      }
+      case 'versus_status_quo':
+        return hasAttribute(rule.attributeId) && d.fixedAlternative?.kind === 'status_quo'
+          ? [rule]
+          : [];
+      case 'between_alternatives':
+        return hasAttribute(rule.attributeId) &&
+          Math.max(rule.first, rule.second) < d.alternatives.count
+          ? [rule]
+          : [];
+    }
+  });
 }

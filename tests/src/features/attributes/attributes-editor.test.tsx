@@ -26,7 +26,7 @@ const definition: StudyDefinition = {
   ],
   alternatives: { count: 2, labeled: false, labels: [] },
   fixedAlternative: null,
-  prohibitions: [],
+  excludedCombinations: [],
 };
 
 function renderEditor(save = vi.fn()) {

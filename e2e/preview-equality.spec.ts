@@ -61,7 +61,11 @@ test('the preview of a block and seed equals a live respondent of that block and
   page,
   browser,
 }) => {
-  const api = await playwrightRequest.newContext({ baseURL: e2eBaseUrl });
+  // As the app's own pages do: the server refuses writes with a session but without an Origin.
+  const api = await playwrightRequest.newContext({
+    baseURL: e2eBaseUrl,
+    extraHTTPHeaders: { Origin: e2eBaseUrl },
+  });
   const study = await createLiveStudy(api, `Preview equality ${Date.now()}`, everyPageKind());
 
   await page.goto(`/s/${study.publicId}`);

@@ -105,7 +105,9 @@ test('labels too long for a narrow phone fall back to stacked cards; the offline
     baseURL: e2eBaseUrl,
     extraHTTPHeaders: { Origin: e2eBaseUrl },
   });
-  const study = await createLiveStudy(api, `Long labels e2e ${Date.now()}`, long);
+  const study = await createLiveStudy(api, `Long labels e2e ${Date.now()}`, {
+    definition: long,
+  });
   const context = await browser.newContext({
     viewport: { width: 320, height: 700 },
     hasTouch: true,

@@ -6,6 +6,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { expect, type APIRequestContext } from '@playwright/test';
 import { demoQuestionnaire } from '../../shared/schemas/questionnaire-defaults';
+import type { Questionnaire } from '../../shared/schemas/questionnaire';
 import type { StudyDefinition } from '../../shared/schemas/study-definition';
 
 const levels = (prefix: string, values: number[], unit = '') =>
@@ -70,7 +71,7 @@ export const larkspurDefinition: StudyDefinition = {
     label: 'Current service',
     levels: { bill: 'b0', interrupt: 'i4', warn: 'w6', river: 'poor', renew: 'r20' },
   },
-  prohibitions: [],
+  excludedCombinations: [],
 };
 
 export function demoEditor(): { email: string; password: string } {
@@ -91,12 +92,17 @@ export async function signInEditor(api: APIRequestContext): Promise<string> {
   return me.teams[0].id as string;
 }
 
-/** A new live study: definition, a random 2-block design of 8 tasks, the demo questionnaire. */
+/**
+ * A new live study: definition (Larkspur by default), a random 2-block design of 8 tasks, and
+ * the demo questionnaire unless another one is given.
+ */
 export async function createLiveStudy(
   api: APIRequestContext,
   name: string,
-  definition: StudyDefinition = larkspurDefinition,
+  options: { definition?: StudyDefinition; questionnaire?: Questionnaire } = {},
 ) {
+  const definition = options.definition ?? larkspurDefinition;
+  const questionnaire = options.questionnaire ?? demoQuestionnaire(definition);
   const teamId = await signInEditor(api);
   const created = await api.post(`/api/teams/${teamId}/studies`, { data: { name } });
   expect(created.status()).toBe(201);
@@ -113,7 +119,7 @@ export async function createLiveStudy(
     })
     .toBe(true);
   const saved = await api.put(`${base}/questionnaire`, {
-    data: { questionnaire: demoQuestionnaire(definition) },
+    data: { questionnaire },
   });
   expect(saved.status()).toBe(200);
   const live = await api.post(`${base}/lifecycle/go-live`);

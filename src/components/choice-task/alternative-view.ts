@@ -23,7 +23,7 @@ export type AlternativeView = {
 const LETTERS = 'ABCDE';
 
 export function viewAlternatives(
-  definition: StudyDefinition,
+  definition: Pick<StudyDefinition, 'attributes' | 'alternatives' | 'fixedAlternative'>,
   alternatives: ChoiceTaskAlternative[],
   imageUrl: (key: string) => string,
 ): AlternativeView[] {

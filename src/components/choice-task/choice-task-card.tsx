@@ -18,8 +18,14 @@ import { TaskTable } from './task-table';
 
 export type { ChoiceTaskAlternative } from './alternative-view';
 
+/** What a task shows of the study: attributes, alternatives and the opt-out / status quo. */
+export type ShownDefinition = Pick<
+  StudyDefinition,
+  'attributes' | 'alternatives' | 'fixedAlternative'
+>;
+
 export type ChoiceTaskCardProps = {
-  definition: StudyDefinition;
+  definition: ShownDefinition;
   alternatives: ChoiceTaskAlternative[];
   selectedIndex?: number | null;
   onChoose?: (index: number) => void;
@@ -63,7 +69,7 @@ function useSideBySide(ref: RefObject<HTMLDivElement | null>, columns: number, i
   return state.side;
 }
 
-function summary(definition: StudyDefinition, view: AlternativeView): string {
+function summary(definition: ShownDefinition, view: AlternativeView): string {
   return definition.attributes
     .map((a, i) => `${a.name}: ${view.cells[i].text ?? 'does not apply'}`)
     .join('; ');

@@ -4,6 +4,7 @@
  * cancelling. The web process never estimates; it only enqueues and reads.
  */
 import type { AppDeps } from '../deps';
+import { recordAudit, type Actor } from './audit';
 import { AppError, ConflictError, NotFoundError, ValidationError } from '../lib/errors';
 import { loadStudy } from './study-access';
 import { getPreparedColumns } from './estimation/code-answers';
@@ -106,6 +107,7 @@ export async function createRun(
   member: Member,
   studyId: string,
   input: CreateRun,
+  actor: Actor | null = null,
 ): Promise<Run> {
   const study = await loadStudy(deps, member.teamId, studyId);
   const spec = resolveSpecColumns(input.spec, await getModelColumns(deps, study));
@@ -136,6 +138,15 @@ export async function createRun(
     });
     throw new AppError(503, 'queue_unavailable', 'The run could not be queued; try again soon.');
   }
+  await recordAudit(deps.db, {
+    teamId: member.teamId,
+    studyId,
+    actor,
+    action: 'run.started',
+    targetType: 'run',
+    targetId: row.id,
+    details: { name: row.name, model: row.model },
+  });
   return toRunView(row);
 }
 
@@ -157,10 +168,25 @@ export async function getRun(deps: AppDeps, member: Member, studyId: string, run
 }
 
 /** Queued runs end at once; running ones stop at their next iteration (the worker checks). */
-export async function cancelRun(deps: AppDeps, member: Member, studyId: string, runId: string) {
+export async function cancelRun(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  runId: string,
+  actor: Actor | null = null,
+) {
   await loadRun(deps, member, studyId, runId);
   const row = await requestRunCancel(deps.db, { id: runId, teamId: member.teamId, studyId });
   if (!row) throw new ConflictError('run_finished', 'The run has already finished.');
+  await recordAudit(deps.db, {
+    teamId: member.teamId,
+    studyId,
+    actor,
+    action: 'run.cancelled',
+    targetType: 'run',
+    targetId: runId,
+    details: { name: row.name },
+  });
   return toRunView(row);
 }
 

@@ -117,35 +117,48 @@ export function AuditLog({
       ) : events.length === 0 ? (
         <EmptyState title="No events match these filters" />
       ) : (
-        <div className="overflow-x-auto rounded-md border border-line bg-white">
-          <table className="w-full min-w-[40rem] text-left text-sm">
-            <caption className="sr-only">Audit trail, newest first</caption>
-            <thead className="border-b border-line bg-surface text-xs uppercase text-ink-muted">
-              <tr>
-                <th scope="col" className="px-3 py-2">
-                  When
-                </th>
-                <th scope="col" className="px-3 py-2">
-                  Who
-                </th>
-                <th scope="col" className="px-3 py-2">
-                  What
-                </th>
-              </tr>
-            </thead>
-            <tbody className="divide-y divide-line">
-              {events.map((e) => (
-                <tr key={e.id}>
-                  <td className="whitespace-nowrap px-3 py-2 font-mono tabular-nums text-ink-soft">
-                    {when(e.at)}
-                  </td>
-                  <td className="px-3 py-2">{e.actorEmail ?? 'System or unknown'}</td>
-                  <td className="px-3 py-2">{describeAuditEvent(e)}</td>
+        <>
+          {/* Phones: one block per event, so nothing hides behind a sideways scroll. */}
+          <ul className="divide-y divide-line rounded-md border border-line bg-white sm:hidden">
+            {events.map((e) => (
+              <li key={e.id} className="px-3 py-2 text-sm">
+                <p className="text-ink">{describeAuditEvent(e)}</p>
+                <p className="text-xs text-ink-muted">
+                  {e.actorEmail ?? 'System or unknown'} · {when(e.at)}
+                </p>
+              </li>
+            ))}
+          </ul>
+          <div className="hidden overflow-x-auto rounded-md border border-line bg-white sm:block">
+            <table className="w-full text-left text-sm">
+              <caption className="sr-only">Audit trail, newest first</caption>
+              <thead className="border-b border-line bg-surface text-xs uppercase text-ink-muted">
+                <tr>
+                  <th scope="col" className="px-3 py-2">
+                    When
+                  </th>
+                  <th scope="col" className="px-3 py-2">
+                    Who
+                  </th>
+                  <th scope="col" className="px-3 py-2">
+                    What
+                  </th>
                 </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+              </thead>
+              <tbody className="divide-y divide-line">
+                {events.map((e) => (
+                  <tr key={e.id}>
+                    <td className="whitespace-nowrap px-3 py-2 font-mono tabular-nums text-ink-soft">
+                      {when(e.at)}
+                    </td>
+                    <td className="px-3 py-2">{e.actorEmail ?? 'System or unknown'}</td>
+                    <td className="px-3 py-2">{describeAuditEvent(e)}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+        </>
       )}
       {audit.hasNextPage && (
         <Button

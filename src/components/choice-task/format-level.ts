@@ -1,20 +1,12 @@
 /**
  * How a level reads to respondents. Numeric levels are written from their value and unit
- * (currency symbols before the number, other units after it) unless a label is given.
+ * (money in the currency's own style, other units after the number) unless a label is given.
  */
 import type { Attribute, Level } from '@shared/schemas/study-definition';
-
-const PREFIX_UNITS = new Set(['€', '$', '£', '¥', 'CHF', 'kr']);
-
-export function formatNumber(value: number): string {
-  return new Intl.NumberFormat('en-GB', { maximumFractionDigits: 2 }).format(value);
-}
+import { formatAmount } from '@/utils/format';
 
 export function formatNumericLevel(value: number, unit?: string): string {
-  const u = unit?.trim() ?? '';
-  if (!u) return formatNumber(value);
-  if (PREFIX_UNITS.has(u)) return `${value < 0 ? '−' : ''}${u}${formatNumber(Math.abs(value))}`;
-  return `${formatNumber(value)} ${u}`;
+  return formatAmount(value, unit, 2, true);
 }
 
 export function formatLevel(attribute: Attribute, level: Level): string {

@@ -4,7 +4,7 @@
  * intervals from the covariance the run chose.
  */
 import type { RunResult } from '@shared/schemas/run';
-import { formatNumber } from '../utils/format';
+import { formatNumber } from '@/utils/format';
 
 export function DerivedTable({ results }: { results: RunResult }) {
   const derived = results.derived ?? [];

@@ -4,7 +4,7 @@
  * the location and spread parameters are listed (for lognormals, of ln |β|).
  */
 import type { RunResult } from '@shared/schemas/run';
-import { formatNumber, formatPValue } from '../utils/format';
+import { formatNumber, formatPValue } from '@/utils/format';
 import { twoSidedP } from '../utils/stats';
 
 const Z95 = 1.959964;

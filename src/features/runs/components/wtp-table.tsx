@@ -5,7 +5,7 @@
  */
 import type { RunResult } from '@shared/schemas/run';
 import { Alert } from '@/components/ui/feedback';
-import { formatNumber } from '../utils/format';
+import { formatNumber } from '@/utils/format';
 
 type Interval = {
   estimate: number;

@@ -20,7 +20,7 @@ import { ParameterTable } from '@/features/runs/components/parameter-table';
 import { FitStatistics } from '@/features/runs/components/fit-statistics';
 import { WtpTable } from '@/features/runs/components/wtp-table';
 import { RandomTastes } from '@/features/runs/components/random-tastes';
-import { formatDateTime } from '@/features/runs/utils/format';
+import { formatDateTime } from '@/utils/format';
 import { ConvergencePanel } from '@/features/runs/components/convergence-panel';
 import { RunWarnings } from '@/features/runs/components/run-warnings';
 import { DerivedTable } from '@/features/runs/components/derived-table';

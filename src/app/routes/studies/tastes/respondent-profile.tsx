@@ -10,7 +10,7 @@ import { useRespondentProfile } from '@/features/tastes/api/get-respondent-profi
 import { RespondentDistributionChart } from '@/features/tastes/components/respondent-distribution-chart';
 import { RespondentChoices } from '@/features/tastes/components/respondent-choices';
 import { TasteCautions } from '@/features/tastes/components/taste-cautions';
-import { formatNumber } from '@/features/tastes/utils/format';
+import { formatNumber } from '@/utils/format';
 
 export function Component() {
   const { teamId = '', studyId = '', runId = '', respondentId = '' } = useParams();

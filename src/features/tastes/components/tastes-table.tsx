@@ -70,7 +70,7 @@ export function TastesTable({
               {data.wtp.map((n) => (
                 <th key={n} className={`${th} text-right`} aria-sort={ariaSort(`wtp:${n}`)}>
                   <button type="button" onClick={() => sortBy(`wtp:${n}`)} className="text-right">
-                    WTP: {wtpLabel(n)}
+                    Conditional-mean WTP: {wtpLabel(n)}
                     {data.costUnit && (
                       <span className="block font-normal text-ink-muted">{data.costUnit}</span>
                     )}

@@ -25,6 +25,8 @@ export function createRouter(queryClient: QueryClient) {
     {
       element: <RequireAuth />,
       children: [
+        // The respondent app on the draft, framed by the Preview section (no researcher shell).
+        { path: paths.previewFrame.path, lazy: () => import('./routes/preview-frame') },
         {
           element: <AppShell />,
           children: [

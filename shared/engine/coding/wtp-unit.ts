@@ -29,7 +29,8 @@ export function getWtpUnit(definition: StudyDefinition, key: string): string | n
     return `${money} for ${name}, all else equal`;
   }
   const attribute = definition.attributes.find((a) => a.id === column.attributeId);
-  if (!attribute) return null;
+  // The cost coefficient is the denominator of every WTP: it has no WTP of its own.
+  if (!attribute || attribute.isCost) return null;
   if (column.kind === 'linear')
     return `${money} per +1 in ${nameWithUnit(attribute.name, attribute.unit)}`;
   const level = attribute.levels.find((l) => l.id === column.levelId);

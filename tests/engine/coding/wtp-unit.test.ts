@@ -37,6 +37,10 @@ describe('getWtpUnit', () => {
     expect(getWtpUnit(def, 'attr:nothing')).toBeNull();
   });
 
+  it('gives the cost column no WTP unit: it is the denominator of every WTP', () => {
+    expect(getWtpUnit(def, 'attr:bill')).toBeNull();
+  });
+
   it('falls back to cost units when the study has no cost attribute', () => {
     const noCost = makeLarkspurDefinition();
     noCost.attributes = noCost.attributes.filter((a) => !a.isCost);

@@ -10,6 +10,8 @@ import { createLogger } from '../../server/lib/logger';
 import { createMailer } from '../../server/mail/mailer';
 import type { AppDeps } from '../../server/deps';
 import { createTestDb, type TestDb } from './test-db';
+import { createDb } from '../../db/client';
+import { throughProxy, type TcpProxy } from './tcp-proxy';
 
 export type TestApp = {
   app: Express;
@@ -19,7 +21,14 @@ export type TestApp = {
   close(): Promise<void>;
 };
 
-export async function createTestApp(overrides: Record<string, string> = {}): Promise<TestApp> {
+/**
+ * `viaProxy`: the app reaches its database through a TCP proxy the test controls (fault
+ * tests); the test's own `testDb.db` stays direct.
+ */
+export async function createTestApp(
+  overrides: Record<string, string> = {},
+  opts: { viaProxy?: TcpProxy } = {},
+): Promise<TestApp> {
   const testDb = await createTestDb();
   const env = loadEnv({
     NODE_ENV: 'test',
@@ -34,7 +43,11 @@ export async function createTestApp(overrides: Record<string, string> = {}): Pro
     ...overrides,
   });
   const mailer = createMailer(env);
-  const deps: AppDeps = { env, db: testDb.db, logger: createLogger('silent'), mailer };
+  const proxied = opts.viaProxy
+    ? createDb(throughProxy(testDb.url, opts.viaProxy), { max: 5, connectTimeoutMs: 1000 })
+    : null;
+  const db = proxied?.db ?? testDb.db;
+  const deps: AppDeps = { env, db, logger: createLogger('silent'), mailer };
   const app = createApp(deps);
   return {
     app,
@@ -43,6 +56,7 @@ export async function createTestApp(overrides: Record<string, string> = {}): Pro
     request: () => supertest.agent(app),
     async close() {
       mailer.close();
+      await proxied?.pool.end();
       await testDb.close();
     },
   };

@@ -8,28 +8,27 @@ import type { AppDeps } from '../deps';
 import type { DbOrTx } from '../../db/client';
 import { AppError, NotFoundError } from '../lib/errors';
 import {
-  countFillingByBlock,
   getInviteeByToken,
   getRespondentByInvitee,
   getRespondentByToken,
   getStudyByPublicId,
   insertRespondent,
-  lockStudyAssignment,
   type RespondentRow,
 } from '../../db/queries/respondents';
-import { getLatestVersion } from '../../db/queries/versions';
+import { getLatestVersionId } from '../../db/queries/versions';
+import { assignBlock, releaseBlock } from '../../db/queries/respondent-blocks';
 import { listAnsweredKeys } from '../../db/queries/answers';
 import type { FieldworkSettings } from '../../shared/schemas/study-lifecycle';
 import {
-  respondentPlanSchema,
   type RespondentSession,
   type RespondentStatus,
   type StartSessionInput,
   type SurveyLinkInfo,
 } from '../../shared/schemas/respondent';
 import { closeIfDue, dueCloseReason, readSettings } from './lifecycle';
-import { chooseLeastFilledBlock, createRespondentPlan } from './respondent-plan';
-import { buildScreens, endPageOf, loadFrozenVersion } from './respondent-screens';
+import { createRespondentPlan } from './respondent-plan';
+import { endPageOf, loadFrozenVersion } from './respondent-screens';
+import { screensOfRespondent } from './respondent-screen-index';
 
 type PublicStudy = NonNullable<Awaited<ReturnType<typeof getStudyByPublicId>>>;
 
@@ -109,8 +108,8 @@ function assertOpen(study: PublicStudy): void {
 }
 
 /**
- * Makes a respondent of the study's current version: the least-filled block (assignment is
- * serialised per study), a plan from a fresh seed, and a secret session token.
+ * Makes a respondent of the study's current version: a place in the least-filled block (an
+ * atomic counter, no study-wide lock), a plan from a fresh seed, and a secret session token.
  */
 export async function createRespondent(
   db: DbOrTx,
@@ -124,23 +123,18 @@ export async function createRespondent(
     simulatedTruth?: unknown;
   },
 ): Promise<{ respondent: RespondentRow; sessionToken: string }> {
-  const run = async (tx: DbOrTx) => {
-    await lockStudyAssignment(tx, { studyId: params.studyId });
-    const latest = await getLatestVersion(tx, { studyId: params.studyId });
-    if (!latest) throw new AppError(409, 'survey_not_open', 'This survey is not open yet.');
-    const version = await loadFrozenVersion(tx, { id: latest.id, studyId: params.studyId });
-    const filled = await countFillingByBlock(tx, {
-      studyId: params.studyId,
-      versionId: version.id,
-    });
-    const block = chooseLeastFilledBlock(version.design.blocks, filled);
+  const latest = await getLatestVersionId(db, { studyId: params.studyId });
+  if (!latest) throw new AppError(409, 'survey_not_open', 'This survey is not open yet.');
+  const version = await loadFrozenVersion(db, { id: latest.id, studyId: params.studyId });
+  const block = await assignBlock(db, { versionId: version.id, blocks: version.design.blocks });
+  try {
     const plan = createRespondentPlan({
       ...version,
       block,
       seed: params.seed ?? randomInt(2 ** 31),
     });
     const sessionToken = createSessionToken();
-    const respondent = await insertRespondent(tx, {
+    const respondent = await insertRespondent(db, {
       studyId: params.studyId,
       versionId: version.id,
       sessionToken,
@@ -153,19 +147,24 @@ export async function createRespondent(
       ...(params.simulatedTruth !== undefined ? { simulatedTruth: params.simulatedTruth } : {}),
     });
     return { respondent, sessionToken };
-  };
-  return db.transaction(run);
+  } catch (err) {
+    // The place was taken for a respondent that does not exist: give it back.
+    await releaseBlock(db, { versionId: version.id, block }).catch(() => {});
+    throw err;
+  }
 }
 
 export async function buildSession(
   db: DbOrTx,
   study: { id: string; name: string; status: string; settings: unknown },
   respondent: RespondentRow,
+  opts: { isNew?: boolean } = {},
 ): Promise<RespondentSession> {
   const version = await loadFrozenVersion(db, { id: respondent.versionId, studyId: study.id });
-  const plan = respondentPlanSchema.parse(respondent.plan);
-  const screens = buildScreens(version, plan);
-  const answeredKeys = await listAnsweredKeys(db, { respondentId: respondent.id });
+  const { screens } = screensOfRespondent(version, respondent);
+  const answeredKeys = opts.isNew
+    ? new Set<string>()
+    : await listAnsweredKeys(db, { respondentId: respondent.id });
   const { attributes, alternatives, fixedAlternative } = version.definition;
   return {
     sessionToken: respondent.sessionToken,
@@ -225,7 +224,7 @@ export async function startSession(
     externalId: input.params[settings.panelParam] ?? invitee?.externalId ?? null,
     device: input.device,
   });
-  return buildSession(deps.db, study, respondent);
+  return buildSession(deps.db, study, respondent, { isNew: true });
 }
 
 export async function getSession(deps: AppDeps, publicId: string, sessionToken: string) {

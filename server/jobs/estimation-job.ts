@@ -140,7 +140,7 @@ export async function runEstimationJob(
     report();
     let offset = 0;
     let lastStart = 1;
-    const pool = options.pool ?? createEstimationPool();
+    const pool = options.pool ?? createEstimationPool({ nice: deps.env.ENGINE_THREAD_NICE });
     const result = await runEstimationInWorker(
       pool,
       { spec, built, threads: options.threads ?? deps.env.WORKER_THREADS },
@@ -249,7 +249,9 @@ export function createEstimationJobKind() {
     schema: estimationJobDataSchema,
     expireInMinutes: 180,
     handle: async (data, { deps }) =>
-      runEstimationJob(deps, data.runId, { pool: (pool ??= createEstimationPool()) }),
+      runEstimationJob(deps, data.runId, {
+        pool: (pool ??= createEstimationPool({ nice: deps.env.ENGINE_THREAD_NICE })),
+      }),
     sweep: async (deps) => {
       await sweepStaleRuns(deps);
     },

@@ -40,6 +40,8 @@ export async function createTestApp(
     LOG_LEVEL: 'silent',
     AUTH_RATE_LIMIT: '10000',
     EMBEDDED_WORKER: 'false',
+    // Engine threads at normal priority: test files run side by side and should share fairly.
+    ENGINE_THREAD_NICE: '0',
     ...overrides,
   });
   const mailer = createMailer(env);

@@ -25,17 +25,21 @@ import type {
   EstimationWorkerResult,
   EstimationWorkerTask,
 } from './estimation-worker-messages';
+import type { EngineThreadData } from './thread-priority';
 
 const WORKER_FILE = fileURLToPath(new URL('./estimation-worker.ts', import.meta.url));
 
 /** A pool of estimation threads; maxThreads bounds how many runs estimate at once. */
-export function createEstimationPool(options: { maxThreads?: number } = {}): Piscina {
+export function createEstimationPool(
+  options: { maxThreads?: number; nice?: number } = {},
+): Piscina {
   const tsxLoader = pathToFileURL(createRequire(import.meta.url).resolve('tsx')).href;
   return new Piscina({
     filename: WORKER_FILE,
     execArgv: ['--import', tsxLoader],
     minThreads: 0,
     maxThreads: options.maxThreads ?? 1,
+    workerData: { nice: options.nice } satisfies EngineThreadData,
     // A finished thread is kept a while for the next run, then gives its memory back.
     idleTimeout: 60_000,
   });

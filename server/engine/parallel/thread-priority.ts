@@ -10,18 +10,23 @@
  */
 import fs from 'node:fs';
 import os from 'node:os';
-import { isMainThread } from 'node:worker_threads';
+import { isMainThread, workerData } from 'node:worker_threads';
 
-/** Nice value of engine threads: well below interactive work, above idle-only. */
+/** Nice value of engine threads by default: well below interactive work, above idle-only. */
 export const ENGINE_THREAD_NICE = 10;
 
-export function lowerThreadPriority(nice = ENGINE_THREAD_NICE): boolean {
+/** What a pool passes to its threads (piscina's workerData). */
+export type EngineThreadData = { nice?: number };
+
+export function lowerThreadPriority(
+  nice = (workerData as EngineThreadData | undefined)?.nice ?? ENGINE_THREAD_NICE,
+): boolean {
   // Never on a main thread: that would slow the whole process's request handling.
   if (isMainThread || process.platform !== 'linux') return false;
   try {
     const tid = Number(fs.readlinkSync('/proc/thread-self').split('/').pop());
     if (!Number.isInteger(tid) || tid <= 0) return false;
-    if (os.getPriority(tid) < nice) os.setPriority(tid, nice);
+    if (nice > 0 && os.getPriority(tid) < nice) os.setPriority(tid, nice);
     return true;
   } catch {
     return false;

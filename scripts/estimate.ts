@@ -3,7 +3,9 @@
  * Reads long-format choice data (respondent,task,alt,chosen[,holdout] + numeric attribute
  * columns) and a specification validated by shared/schemas/estimation-spec.ts, runs the MNL
  * or the panel mixed logit with taste profiles and WTP, and writes the result JSON (to
- * stdout without --out). Progress goes to stderr.
+ * stdout without --out). The result holds the convergence verdict with the gradient, the
+ * warnings, and the full classical and robust covariance matrices of the estimates. Progress,
+ * the verdict and the warnings also go to stderr.
  * Exit codes: 0 done; 2 bad arguments, files, data or specification (the message names the
  * line or field); 3 the model cannot be estimated from the data (not identified); 1 other.
  */
@@ -78,10 +80,22 @@ async function main(): Promise<void> {
   const text = `${JSON.stringify(result, null, 2)}\n`;
   if (args.out) writeFileSync(args.out, text);
   else process.stdout.write(text);
-  if (!args.quiet)
+  if (!args.quiet) {
+    const d = result.convergenceDetail;
     process.stderr.write(
-      `done: LL ${result.loglik.toFixed(4)}, converged ${result.converged}, ${result.elapsedSeconds.toFixed(2)} s\n`,
+      `done: LL ${result.loglik.toFixed(4)}, ${d?.status ?? (result.converged ? 'converged' : 'not converged')}` +
+        (d
+          ? ` (Newton decrement ${d.decrement?.toExponential(2) ?? '—'}, largest relative gradient ${d.maxRelativeGradient.toExponential(2)}, ${d.startsAtBest} of ${d.starts} starts at the best LL)`
+          : '') +
+        `, ${result.elapsedSeconds.toFixed(2)} s\n`,
     );
+    if (!result.converged && d)
+      for (const g of d.gradient)
+        process.stderr.write(
+          `  gradient ${g.name}: ${g.value.toExponential(3)} (relative ${g.relative.toExponential(2)})\n`,
+        );
+    for (const w of result.warnings ?? []) process.stderr.write(`warning: ${w.message}\n`);
+  }
 }
 
 function describeZodError(error: ZodError): string {

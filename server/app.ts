@@ -1,10 +1,11 @@
 /**
  * createApp builds the Express application without listening, so tests run it in-process.
- * In production it also serves the built client (dist/client) with a history fallback.
+ * In production it also serves the built client (server/static-client.ts), compressed.
  */
 import express from 'express';
 import helmet from 'helmet';
 import cookieParser from 'cookie-parser';
+import compression from 'compression';
 import { pinoHttp } from 'pino-http';
 import path from 'node:path';
 import fs from 'node:fs';
@@ -12,6 +13,7 @@ import type { AppDeps } from './deps';
 import { projectRoot } from './env';
 import { errorHandler, notFoundHandler } from './middleware/error-handler';
 import { mountApiRoutes } from './routes/index';
+import { serveClient } from './static-client';
 
 export function createApp(deps: AppDeps): express.Express {
   const app = express();
@@ -44,6 +46,8 @@ export function createApp(deps: AppDeps): express.Express {
         err || res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'warn' : 'info',
     }),
   );
+  // gzip or brotli, whichever the browser prefers, for pages, scripts, styles and JSON.
+  app.use(compression());
   app.use(cookieParser());
   app.use(express.json({ limit: '2mb' }));
 
@@ -53,12 +57,7 @@ export function createApp(deps: AppDeps): express.Express {
   app.use('/api', api);
 
   const clientDir = path.join(projectRoot, 'dist/client');
-  if (deps.env.NODE_ENV === 'production' && fs.existsSync(clientDir)) {
-    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
-    app.get(/^\/(?!api\/).*/, (_req, res) => {
-      res.sendFile(path.join(clientDir, 'index.html'));
-    });
-  }
+  if (deps.env.NODE_ENV === 'production' && fs.existsSync(clientDir)) serveClient(app, clientDir);
   app.use(errorHandler);
   return app;
 }

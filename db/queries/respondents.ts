@@ -29,6 +29,7 @@ export async function getStudyByPublicId(db: DbOrTx, params: { publicId: string 
       id: studies.id,
       teamId: studies.teamId,
       name: studies.name,
+      publicTitle: studies.publicTitle,
       status: studies.status,
       settings: studies.settings,
       currentVersion: studies.currentVersion,

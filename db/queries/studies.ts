@@ -7,6 +7,7 @@ export const studyColumns = {
   teamId: studies.teamId,
   publicId: studies.publicId,
   name: studies.name,
+  publicTitle: studies.publicTitle,
   description: studies.description,
   status: studies.status,
   definition: studies.definition,
@@ -73,6 +74,7 @@ export async function insertStudy(
     teamId: string;
     publicId: string;
     name: string;
+    publicTitle: string;
     description: string;
     definition: unknown;
     questionnaire?: unknown;
@@ -85,6 +87,7 @@ export async function insertStudy(
       teamId: params.teamId,
       publicId: params.publicId,
       name: params.name,
+      publicTitle: params.publicTitle,
       description: params.description,
       definition: params.definition,
       questionnaire: params.questionnaire ?? {},
@@ -101,6 +104,7 @@ export async function updateStudy(
     teamId: string;
     set: Partial<{
       name: string;
+      publicTitle: string;
       description: string;
       definition: unknown;
       currentDesignId: string | null;

@@ -27,6 +27,8 @@ export const studies = pgTable(
     /** Unguessable id used in the public respondent link. */
     publicId: text('public_id').notNull(),
     name: text('name').notNull(),
+    /** What respondents see (survey pages, invitation e-mails); the name stays internal. */
+    publicTitle: text('public_title').notNull().default(''),
     description: text('description').notNull().default(''),
     status: studyStatusEnum('status').notNull().default('draft'),
     definition: jsonb('definition').notNull(),

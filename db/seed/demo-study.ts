@@ -140,6 +140,7 @@ export async function ensureDemoStudy(
       teamId: params.teamId,
       publicId: nanoid(16),
       name: DEMO_STUDY_NAME,
+      publicTitle: 'Your water services for the next five years',
       description:
         'Households choose between service packages for the next five years (invented demo data).',
       definition: demoDefinition,

@@ -135,7 +135,12 @@ export async function runEstimationJob(
     );
     latest = {
       stage: 'estimating',
-      ...(spec.model === 'mixed' ? { maxIterations: MIXED_MAX_ITERATIONS * spec.starts } : {}),
+      ...(spec.model === 'mixed'
+        ? {
+            maxIterations:
+              (spec.settings.maxIterations ?? MIXED_MAX_ITERATIONS) * (spec.starts ?? 3),
+          }
+        : {}),
     };
     report();
     let offset = 0;

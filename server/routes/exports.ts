@@ -8,7 +8,11 @@ import type { AppDeps } from '../deps';
 import { parseParams, parseQuery } from '../middleware/validate';
 import { memberOf, requireTeam, requireUser } from '../middleware/auth';
 import { studyParamsSchema } from '../services/study-access';
-import { exportRunQuerySchema, optionalRunQuerySchema } from '../../shared/schemas/exports';
+import {
+  covarianceQuerySchema,
+  exportRunQuerySchema,
+  optionalRunQuerySchema,
+} from '../../shared/schemas/exports';
 import * as exportsService from '../services/exports';
 
 function send(res: Response, file: exportsService.Download, inline = false): void {
@@ -40,6 +44,11 @@ export function createExportsRouter(deps: AppDeps): Router {
     const { studyId } = parseParams(studyParamsSchema, req);
     const { runId } = parseQuery(exportRunQuerySchema, req);
     send(res, await exportsService.exportProfilesXlsx(deps, memberOf(req), studyId, runId));
+  });
+  router.get('/covariance.csv', read, async (req, res) => {
+    const { studyId } = parseParams(studyParamsSchema, req);
+    const { runId, kind } = parseQuery(covarianceQuerySchema, req);
+    send(res, await exportsService.exportCovarianceCsv(deps, memberOf(req), studyId, runId, kind));
   });
   router.get('/run-report.html', read, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);

@@ -6,7 +6,7 @@
  */
 import { getLatestVersion } from '../../db/queries/versions';
 import type { AppDeps } from '../deps';
-import { NotFoundError } from '../lib/errors';
+import { ConflictError, NotFoundError } from '../lib/errors';
 import { loadStudy } from './study-access';
 import { getRunOfStudy, listQuestionAnswers, listRunProfiles } from '../../db/queries/tastes';
 import { listStudyRespondents } from '../../db/queries/exports';
@@ -22,6 +22,7 @@ import { getFlagNames } from './tastes/taste-rows';
 import { buildProfileTable } from './exports/profile-table';
 import { writeProfilesXlsx } from './exports/profiles-xlsx';
 import { renderRunReport } from './exports/run-report';
+import { buildCovarianceTable, type CovarianceKind } from './exports/covariance-table';
 import { writeCsv, escapeCsvText } from './exports/csv-cells';
 import { parse } from 'csv-parse/sync';
 import { stringify } from 'csv-stringify/sync';
@@ -90,6 +91,31 @@ export async function exportProfilesXlsx(
     filename: fileName(ctx.study.name, 'taste-profiles', 'xlsx', at),
     contentType: 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
     body: await writeProfilesXlsx(ctx, table, at),
+  };
+}
+
+/** The run's classical or robust covariance matrix of the estimates (user units). */
+export async function exportCovarianceCsv(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  runId: string,
+  kind: CovarianceKind,
+  at = new Date(),
+): Promise<Download> {
+  const ctx = await loadRunContext(deps, member, studyId, runId);
+  const table = buildCovarianceTable(ctx.results, kind);
+  if (!table)
+    throw new ConflictError(
+      'covariance_unavailable',
+      kind === 'robust' && ctx.results.covariance?.method === 'bhhh'
+        ? 'This run used the BHHH covariance, which has no robust (sandwich) form.'
+        : 'This run has no stored covariance matrix of this kind; run it again to get one.',
+    );
+  return {
+    filename: fileName(ctx.study.name, `covariance-${kind}`, 'csv', at),
+    contentType: CSV,
+    body: writeCsv(table.header, table.rows),
   };
 }
 

@@ -81,7 +81,7 @@ export async function getLinkInfo(
   const settings = readSettings(study.settings);
   return {
     state,
-    studyName: state === 'not_open' ? null : study.name,
+    studyName: state === 'not_open' ? null : study.publicTitle,
     redirectUrl:
       state === 'over_quota'
         ? redirectFor(settings, 'over_quota', params[settings.panelParam] ?? null)
@@ -156,7 +156,7 @@ export async function createRespondent(
 
 export async function buildSession(
   db: DbOrTx,
-  study: { id: string; name: string; status: string; settings: unknown },
+  study: { id: string; publicTitle: string; status: string; settings: unknown },
   respondent: RespondentRow,
   opts: { isNew?: boolean } = {},
 ): Promise<RespondentSession> {
@@ -168,7 +168,7 @@ export async function buildSession(
   const { attributes, alternatives, fixedAlternative } = version.definition;
   return {
     sessionToken: respondent.sessionToken,
-    studyName: study.name,
+    studyName: study.publicTitle,
     status: respondent.status,
     definition: { attributes, alternatives, fixedAlternative },
     screens,

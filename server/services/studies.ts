@@ -27,6 +27,7 @@ function toSummary(row: StudyRow): StudySummary {
     id: row.id,
     publicId: row.publicId,
     name: row.name,
+    publicTitle: row.publicTitle,
     description: row.description,
     status: row.status,
     archivedAt: row.archivedAt?.toISOString() ?? null,
@@ -74,12 +75,13 @@ export async function getStudy(deps: AppDeps, teamId: string, studyId: string): 
 export async function createStudy(
   deps: AppDeps,
   actor: Actor,
-  input: { name: string; description: string },
+  input: { name: string; publicTitle?: string; description: string },
 ): Promise<Study> {
   const row = await insertStudy(deps.db, {
     teamId: actor.teamId,
     publicId: nanoid(16),
     name: input.name,
+    publicTitle: input.publicTitle ?? input.name,
     description: input.description,
     definition: emptyStudyDefinition,
     createdBy: actor.userId,
@@ -91,7 +93,7 @@ export async function describeStudy(
   deps: AppDeps,
   teamId: string,
   studyId: string,
-  input: { name?: string; description?: string },
+  input: { name?: string; publicTitle?: string; description?: string },
 ): Promise<Study> {
   const row = await updateStudy(deps.db, { id: studyId, teamId, set: input });
   if (!row) throw new NotFoundError('Study');
@@ -123,6 +125,7 @@ export async function duplicateStudy(deps: AppDeps, actor: Actor, studyId: strin
       teamId: actor.teamId,
       publicId: nanoid(16),
       name: `${source.name} (copy)`.slice(0, 160),
+      publicTitle: source.publicTitle,
       description: source.description,
       definition: source.definition,
       questionnaire: source.questionnaire,

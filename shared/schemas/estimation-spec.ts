@@ -3,6 +3,16 @@
  * result. Shared by the CLI (scripts/estimate.ts), the job runner and the web app.
  */
 import { z } from 'zod';
+import {
+  convergenceDetailSchema,
+  covarianceResultSchema,
+  derivedQuantitySchema,
+  estimationSettingsSchema,
+  estimationWarningSchema,
+  fitDetailSchema,
+  intervalEstimateSchema,
+  simulationErrorSchema,
+} from './estimation-inference';
 
 export const coefficientDistributionSchema = z.enum([
   'fixed',
@@ -51,8 +61,12 @@ export const estimationSpecSchema = z
     profileDraws: z.number().int().min(10).max(100_000).default(2000),
     /** Name of the cost coefficient for WTP; omit for no WTP. */
     cost: z.string().trim().min(1).optional(),
-    /** Starting points of the mixed logit (1 = the MNL-based start only). */
-    starts: z.number().int().min(1).max(20).default(1),
+    /** Starting points of the mixed logit (1 = the MNL-based start only; default 3). */
+    starts: z.number().int().min(1).max(20).optional(),
+    /** Preference space, or WTP space (Train & Weeks 2005; needs `cost`). */
+    space: z.enum(['preference', 'wtp']).default('preference'),
+    /** Optimiser tolerances, iteration limit, covariance choice, simulation-noise check. */
+    settings: estimationSettingsSchema.prefault({}),
   })
   .superRefine((spec, ctx) => {
     const names = spec.coefficients.map((c) => c.name);
@@ -105,6 +119,21 @@ export const estimationSpecSchema = z
         message: `Cost ${spec.cost} is not one of the coefficients`,
       });
     }
+    if (spec.space === 'wtp') {
+      const cost = spec.coefficients.find((c) => c.name === spec.cost);
+      if (!cost)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['space'],
+          message: 'WTP space needs a cost coefficient',
+        });
+      else if (!['fixed', 'lognormal', 'neg_lognormal'].includes(cost.distribution))
+        ctx.addIssue({
+          code: 'custom',
+          path: ['space'],
+          message: 'In WTP space the cost must be fixed or lognormal, so its sign never changes',
+        });
+    }
   });
 
 export type EstimationSpecInput = z.input<typeof estimationSpecSchema>;
@@ -125,6 +154,7 @@ export const tasteProfileSchema = z.object({
   effectiveDraws: z.number(),
 });
 
+/** Population WTP of one attribute: `estimate`… are the MEAN WTP; `median` its median. */
 export const wtpEstimateSchema = z.object({
   name: z.string(),
   estimate: z.number(),
@@ -133,6 +163,7 @@ export const wtpEstimateSchema = z.object({
   deltaUpper: z.number().nullable(),
   lower: z.number().nullable(),
   upper: z.number().nullable(),
+  median: intervalEstimateSchema.nullable().optional(),
 });
 
 export const populationMomentSchema = z.object({
@@ -176,5 +207,15 @@ export const estimationResultSchema = z.object({
     .object({ type: drawsTypeSchema, count: z.number().int(), seed: z.number().int() })
     .nullable(),
   elapsedSeconds: z.number(),
+  // Added with the trust work; optional so results stored before it still parse.
+  space: z.enum(['preference', 'wtp']).optional(),
+  convergenceDetail: convergenceDetailSchema.optional(),
+  warnings: z.array(estimationWarningSchema).optional(),
+  covariance: covarianceResultSchema.nullable().optional(),
+  fit: fitDetailSchema.optional(),
+  derived: z.array(derivedQuantitySchema).optional(),
+  /** Why WTP (population mean/median and per respondent) is not given, when it is not. */
+  wtpWithheld: z.string().nullable().optional(),
+  simulationError: simulationErrorSchema.nullable().optional(),
 });
 export type EstimationResult = z.infer<typeof estimationResultSchema>;

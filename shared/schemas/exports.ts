@@ -5,6 +5,9 @@
 import { z } from 'zod';
 
 export const exportRunQuerySchema = z.object({ runId: z.uuid('Choose a finished run') });
+export const covarianceQuerySchema = exportRunQuerySchema.extend({
+  kind: z.enum(['classical', 'robust']).default('robust'),
+});
 export const optionalRunQuerySchema = z.object({
   runId: z.uuid('Choose a finished run').optional(),
 });

@@ -5,6 +5,7 @@
 import { nanoid } from 'nanoid';
 import type { StudyDefinition } from './study-definition';
 import type { Questionnaire, QuestionnairePage } from './questionnaire';
+import { questionKeyFromText } from './question-keys';
 
 const id = () => nanoid(10);
 
@@ -60,9 +61,11 @@ export function buildBestLevels(definition: StudyDefinition): Record<string, str
   );
 }
 
+/** A new page of `kind`; question keys are slugs of the text, unique among `takenKeys`. */
 export function createPage(
   kind: QuestionnairePage['kind'],
   definition: StudyDefinition,
+  takenKeys: Iterable<string> = [],
 ): QuestionnairePage {
   switch (kind) {
     case 'consent':
@@ -79,9 +82,7 @@ export function createPage(
         kind,
         question: {
           type: 'single',
-          key: `screen_${id()
-            .toLowerCase()
-            .replace(/[^a-z0-9]/g, '')}`.slice(0, 40),
+          key: questionKeyFromText('Are you 18 or older?', takenKeys),
           text: 'Are you 18 or older?',
           help: '',
           required: true,
@@ -100,9 +101,7 @@ export function createPage(
         kind,
         question: {
           type: 'single',
-          key: `q_${id()
-            .toLowerCase()
-            .replace(/[^a-z0-9]/g, '')}`.slice(0, 40),
+          key: questionKeyFromText('New question', takenKeys),
           text: 'New question',
           help: '',
           required: true,

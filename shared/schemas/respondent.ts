@@ -7,7 +7,7 @@ import { z } from 'zod';
 import type { Question } from './questionnaire';
 import type { StudyDefinition } from './study-definition';
 
-export const RESPONDENT_TOKEN_HEADER = 'x-respondent-token';
+export { RESPONDENT_TOKEN_HEADER } from '../respondent-token-header';
 
 export const publicIdParamsSchema = z.object({
   publicId: z.string().regex(/^[A-Za-z0-9_-]{6,40}$/, 'Unknown survey'),
@@ -102,6 +102,7 @@ export type RespondentStatus = 'in_progress' | 'completed' | 'screened_out' | 'o
 /** What the respondent app needs to walk through the whole questionnaire, even offline. */
 export type RespondentSession = {
   sessionToken: string;
+  /** The study's public title (never its internal name). */
   studyName: string;
   status: RespondentStatus;
   definition: Pick<StudyDefinition, 'attributes' | 'alternatives' | 'fixedAlternative'>;

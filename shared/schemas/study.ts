@@ -8,20 +8,31 @@ import { studyDefinitionSchema, type StudyDefinition } from './study-definition'
 export const studyStatusSchema = z.enum(['draft', 'live', 'closed']);
 export type StudyStatus = z.infer<typeof studyStatusSchema>;
 
+const studyName = z.string().trim().min(1, 'Give the study a name').max(160);
+/** The title respondents see on the survey and in invitation e-mails. */
+export const publicTitleSchema = z
+  .string()
+  .trim()
+  .min(1, 'Give the study a title for respondents')
+  .max(160);
+
 export const createStudySchema = z.object({
-  name: z.string().trim().min(1, 'Give the study a name').max(160),
+  name: studyName,
+  /** Defaults to the name; change it when the name is for the team only. */
+  publicTitle: publicTitleSchema.optional(),
   description: z.string().trim().max(2000).default(''),
 });
 export type CreateStudyInput = z.input<typeof createStudySchema>;
 
-export const updateStudySchema = z
-  .object({
-    name: z.string().trim().min(1, 'Give the study a name').max(160).optional(),
-    description: z.string().trim().max(2000).optional(),
-  })
-  .refine((v) => v.name !== undefined || v.description !== undefined, {
-    message: 'Nothing to change',
-  });
+export const studyDetailsSchema = z.object({
+  name: studyName,
+  publicTitle: publicTitleSchema,
+  description: z.string().trim().max(2000),
+});
+
+export const updateStudySchema = studyDetailsSchema
+  .partial()
+  .refine((v) => Object.values(v).some((x) => x !== undefined), { message: 'Nothing to change' });
 export type UpdateStudyInput = z.input<typeof updateStudySchema>;
 
 export const archiveStudySchema = z.object({ archived: z.boolean() });
@@ -44,6 +55,8 @@ export type StudySummary = {
   id: string;
   publicId: string;
   name: string;
+  /** What respondents see; `name` is internal to the team. */
+  publicTitle: string;
   description: string;
   status: StudyStatus;
   archivedAt: string | null;

@@ -113,6 +113,13 @@ beforeAll(async () => {
     profileDraws: 1000,
     starts: 1,
     cost: 'cost',
+    space: 'preference' as const,
+    settings: {
+      tolerance: 1e-7,
+      gradientTolerance: 6.055454452393343e-6,
+      covariance: 'robust' as const,
+      simulationCheck: false,
+    },
   };
   t.deps.jobs = { send: async () => {} };
   const run = await createRun(t.deps, { teamId, userId }, studyId, {

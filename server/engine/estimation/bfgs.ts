@@ -4,23 +4,30 @@
  * expansion (Lewis & Overton 2013, Math. Program. 141:135-163), the initial scaling
  * H0 = (y's / y'y)·I of N&W eq. 6.20, and update skipping when y's ≤ 0. The objective is
  * asynchronous so it can be evaluated on worker threads.
+ *
+ * It stops as "converged" only when the convergence test of convergence.ts passes with the
+ * current inverse-Hessian approximation (Newton decrement g′Hg and the relative gradient); as
+ * "stalled" when the line search finds no better point; as "iteration_limit" otherwise. A
+ * small change in f never ends it. Callers confirm the verdict with a real Hessian.
  */
+import {
+  measureConvergence,
+  multiply,
+  passesConvergence,
+  type ConvergenceStatus,
+  type ConvergenceTolerances,
+} from './convergence';
 import { EstimationCancelledError } from './estimation-errors';
 
 /** f(x) with its gradient written into g; may return a non-finite value to reject x. */
 export type AsyncObjective = (x: Float64Array, g: Float64Array) => Promise<number>;
 
-export interface BfgsOptions {
-  maxIterations: number;
-  /** Stop when max |∂f/∂x| falls below this. */
-  gradientTolerance: number;
-  /** Stop when |Δf| / max(|f|, 1) over an iteration falls below this. */
-  relativeTolerance: number;
+export interface BfgsOptions extends ConvergenceTolerances {
   signal?: AbortSignal;
   onIteration?: (iteration: number, f: number, gradientNorm: number) => void;
 }
 
-export type BfgsStopReason = 'gradient' | 'relative_change' | 'max_iterations' | 'line_search';
+export type BfgsStopReason = ConvergenceStatus;
 
 export interface BfgsResult {
   x: Float64Array;
@@ -32,6 +39,8 @@ export interface BfgsResult {
   reason: BfgsStopReason;
   /** Euclidean norm of the final gradient. */
   gradientNorm: number;
+  /** g′Hg with the final inverse-Hessian approximation. */
+  decrement: number;
   /** |Δf| / max(|f|, 1) of the last iteration. */
   relativeChange: number;
 }
@@ -62,9 +71,10 @@ export async function minimizeBfgs(
   const Hy = new Float64Array(n);
   let iterations = 0;
   let relativeChange = Infinity;
-  let reason: BfgsStopReason = 'max_iterations';
-  if (maxAbs(g) <= options.gradientTolerance) reason = 'gradient';
-  while (reason === 'max_iterations' && iterations < options.maxIterations) {
+  let reason: BfgsStopReason = 'iteration_limit';
+  // Judged only after an update: the first H is the identity, no estimate of the curvature.
+  const converged = () => passesConvergence(measureConvergence(g, multiply(H, g), x, fx), options);
+  while (iterations < options.maxIterations) {
     if (options.signal?.aborted) throw new EstimationCancelledError();
     for (let i = 0; i < n; i++) {
       let v = 0;
@@ -105,7 +115,7 @@ export async function minimizeBfgs(
       if (accepted && hi - lo < 1e-12 * lo) break;
     }
     if (!accepted) {
-      reason = 'line_search';
+      reason = 'stalled';
       break;
     }
     if (!(Number.isFinite(fNew) && fNew <= fx + C1 * alpha * slope)) {
@@ -126,8 +136,15 @@ export async function minimizeBfgs(
     fx = fNew;
     iterations++;
     options.onIteration?.(iterations, fx, Math.sqrt(dot(g, g)));
-    if (maxAbs(g) <= options.gradientTolerance) reason = 'gradient';
-    else if (relativeChange <= options.relativeTolerance) reason = 'relative_change';
+    if (converged()) {
+      reason = 'converged';
+      break;
+    }
+    // The line search fell back to a zero step: the point did not move.
+    if (alpha === 0) {
+      reason = 'stalled';
+      break;
+    }
   }
   return {
     x,
@@ -135,9 +152,10 @@ export async function minimizeBfgs(
     grad: g,
     iterations,
     evaluations,
-    converged: reason === 'gradient' || reason === 'relative_change',
+    converged: reason === 'converged',
     reason,
     gradientNorm: Math.sqrt(dot(g, g)),
+    decrement: Math.abs(dot(g, multiply(H, g))),
     relativeChange,
   };
 }
@@ -173,10 +191,4 @@ function dot(a: Float64Array, b: Float64Array): number {
   let s = 0;
   for (let i = 0; i < a.length; i++) s += a[i] * b[i];
   return s;
-}
-
-function maxAbs(a: Float64Array): number {
-  let m = 0;
-  for (let i = 0; i < a.length; i++) m = Math.max(m, Math.abs(a[i]));
-  return m;
 }

@@ -9,7 +9,15 @@ export interface BuiltChoiceData {
   data: ChoiceData;
   /** Holdout tasks (same columns); null when no row is flagged holdout. */
   holdout: ChoiceData | null;
+  /**
+   * The estimation tasks with one dummy column per alternative identifier (the first one seen
+   * is the reference): the constants-only model of LL(C). Null when there are more than
+   * MAX_CONSTANTS identifiers (alternatives without a stable identity across tasks).
+   */
+  constants?: ChoiceData | null;
 }
+
+const MAX_CONSTANTS = 20;
 
 interface TaskGroup {
   id: string;
@@ -62,7 +70,35 @@ export function buildChoiceData(
   const estimation = layOut(columns, respondents, false);
   if (!estimation)
     throw new ChoiceDataError('every task is flagged holdout; no tasks are left for estimation');
-  return { data: estimation, holdout: layOut(columns, respondents, true) };
+  return {
+    data: estimation,
+    holdout: layOut(columns, respondents, true),
+    constants: layOutConstants(respondents),
+  };
+}
+
+function layOutConstants(respondents: Map<string, Map<string, TaskGroup>>): ChoiceData | null {
+  const ids: string[] = [];
+  for (const tasks of respondents.values())
+    for (const group of tasks.values())
+      if (!group.holdout)
+        for (const row of group.rows) if (!ids.includes(String(row.alt))) ids.push(String(row.alt));
+  if (ids.length < 2 || ids.length > MAX_CONSTANTS + 1) return null;
+  const columns = ids.slice(1).map((id) => `asc_${id}`);
+  const rebuilt = new Map<string, Map<string, TaskGroup>>();
+  for (const [rid, tasks] of respondents) {
+    const copy = new Map<string, TaskGroup>();
+    for (const [tid, group] of tasks)
+      copy.set(tid, {
+        ...group,
+        rows: group.rows.map((row) => ({
+          ...row,
+          values: columns.map((_, c) => (String(row.alt) === ids[c + 1] ? 1 : 0)),
+        })),
+      });
+    rebuilt.set(rid, copy);
+  }
+  return layOut(columns, rebuilt, false);
 }
 
 function assertRowValid(row: LongChoiceRow, line: number, columns: readonly string[]): void {

@@ -3,7 +3,9 @@
  */
 import { getMaxDrawDimensions, type DrawsType } from '../draws/uniform-draws';
 import type { ChoiceData } from './choice-data';
+import { DEFAULT_GRADIENT_TOLERANCE, DEFAULT_TOLERANCE } from './convergence';
 import { EstimationOptionsError } from './estimation-errors';
+import type { CovarianceChoice } from './inference';
 import {
   createMixedLogitLayout,
   type CoefficientSpec,
@@ -14,16 +16,20 @@ export interface MixedLogitOptions {
   coefficients: CoefficientSpec[];
   /** Correlate the normal coefficients through a Cholesky factor (default false). */
   correlated?: boolean;
+  /** WTP space (Train & Weeks 2005): the name of the cost coefficient; null for preference space. */
+  wtpCost?: string | null;
   /** Draws: type (default 'halton', scrambled), count R (default 500), seed (default 1). */
   draws?: { type?: DrawsType; count?: number; seed?: number; scrambled?: boolean };
   /** BFGS iterations per start (default 300). */
   maxIterations?: number;
-  /** Stop when max |∂LL/∂θ| ≤ this (default 1e-3). */
+  /** Newton decrement g′A⁻¹g at convergence (default 1e-7, see convergence.ts). */
+  tolerance?: number;
+  /** Largest relative gradient at convergence (default ε^{1/3}). */
   gradientTolerance?: number;
-  /** Stop when |ΔLL|/|LL| over an iteration ≤ this (default 1e-12). */
-  relativeTolerance?: number;
-  /** Number of starts: the MNL-based start plus seeded perturbations of it (default 1). */
+  /** Number of starts: the MNL-based start plus seeded perturbations of it (default 3). */
   starts?: number;
+  /** Covariance used for inference (default 'robust'); 'bhhh' skips the numerical Hessian. */
+  covariance?: CovarianceChoice;
   /** Explicit starting θ (overrides the MNL start). */
   start?: ArrayLike<number>;
   /** Worker threads for the LL (default 1: in-process). */
@@ -36,9 +42,10 @@ export interface CheckedMixedLogitOptions {
   layout: MixedLogitLayout;
   draws: { type: DrawsType; count: number; seed: number; scrambled: boolean };
   maxIterations: number;
+  tolerance: number;
   gradientTolerance: number;
-  relativeTolerance: number;
   starts: number;
+  covariance: CovarianceChoice;
   start: Float64Array | null;
   threads: number;
   holdout: ChoiceData | null;
@@ -60,7 +67,12 @@ export function checkMixedLogitOptions(
   if (!options || !Array.isArray(options.coefficients)) {
     throw new EstimationOptionsError('coefficients must be a list', 'coefficients');
   }
-  const layout = createMixedLogitLayout(data, options.coefficients, options.correlated ?? false);
+  const layout = createMixedLogitLayout(
+    data,
+    options.coefficients,
+    options.correlated ?? false,
+    options.wtpCost ?? null,
+  );
   if (layout.D === 0)
     throw new EstimationOptionsError(
       'a mixed logit needs at least one random coefficient',
@@ -85,16 +97,18 @@ export function checkMixedLogitOptions(
   }
   const maxIterations = options.maxIterations ?? 300;
   assertPositiveInteger(maxIterations, 'maxIterations');
-  const starts = options.starts ?? 1;
+  const starts = options.starts ?? 3;
   assertPositiveInteger(starts, 'starts', 50);
   const threads = options.threads ?? 1;
   assertPositiveInteger(threads, 'threads', 64);
-  const gradientTolerance = options.gradientTolerance ?? 1e-3;
-  const relativeTolerance = options.relativeTolerance ?? 1e-12;
+  const tolerance = options.tolerance ?? DEFAULT_TOLERANCE;
+  const gradientTolerance = options.gradientTolerance ?? DEFAULT_GRADIENT_TOLERANCE;
   if (!(gradientTolerance > 0))
     throw new EstimationOptionsError('gradientTolerance must be positive', 'gradientTolerance');
-  if (!(relativeTolerance > 0))
-    throw new EstimationOptionsError('relativeTolerance must be positive', 'relativeTolerance');
+  if (!(tolerance > 0)) throw new EstimationOptionsError('tolerance must be positive', 'tolerance');
+  const covariance = options.covariance ?? 'robust';
+  if (!['robust', 'classical', 'bhhh'].includes(covariance))
+    throw new EstimationOptionsError('covariance must be robust, classical or bhhh', 'covariance');
   let start: Float64Array | null = null;
   if (options.start) {
     if (options.start.length !== layout.P)
@@ -114,9 +128,10 @@ export function checkMixedLogitOptions(
     layout,
     draws,
     maxIterations,
+    tolerance,
     gradientTolerance,
-    relativeTolerance,
     starts,
+    covariance,
     start,
     threads,
     holdout,

@@ -1,23 +1,34 @@
 /**
  * Panel mixed logit by simulated maximum likelihood (Train 2009, Discrete Choice Methods with
- * Simulation, ch. 6, 9 and 10): BFGS with the analytic simulated gradient from MNL starting
- * values, optional extra starts, standard errors from the inverse of a central-difference
- * Hessian of the analytic gradient and robust sandwich standard errors from the outer product
- * of per-respondent scores (Train 2009 §8.7, §10.2).
+ * Simulation, ch. 6, 9 and 10), in preference or WTP space (Train & Weeks 2005): on internally
+ * scaled columns and parameters (parameter-scaling.ts; the kernel never sees the user's units),
+ * BFGS with the analytic simulated gradient from the MNL start plus seeded perturbed starts,
+ * then the verdict and a few Newton steps with the real information (refine-estimate.ts), and
+ * covariances by inference.ts. Everything is reported in the user's units.
  */
-import { getDiagonalSqrt, invertMatrix, sandwich } from '../linalg/invert-matrix';
 import { createLoglikEvaluator } from '../parallel/create-loglik-evaluator';
-import { minimizeBfgs, type BfgsResult, type BfgsStopReason } from './bfgs';
+import { minimizeBfgs, type BfgsResult } from './bfgs';
 import { assertColumnsVary } from './check-identification';
 import { checkMixedLogitOptions, type MixedLogitOptions } from './check-mixed-logit-options';
 import type { ChoiceData } from './choice-data';
-import { EstimationCancelledError, NonIdentifiedError } from './estimation-errors';
-import { fitMnl, outerProductSum } from './fit-mnl';
+import type { ConvergenceMeasures, ConvergenceStatus } from './convergence';
+import { EstimationCancelledError } from './estimation-errors';
+import type { EstimationWarning } from './estimation-warnings';
+import { fitMnl } from './fit-mnl';
 import { computeFitStatistics, computeNullLoglik, type FitStatistics } from './fit-statistics';
+import { computeInference, type Inference } from './inference';
 import type { MixedLogitLayout } from './mixed-logit-layout';
 import { computeMixedHitRate } from './mixed-logit-hit-rate';
 import { getMixedLogitStart, perturbStart } from './mixed-logit-start';
-import { computeNumericalHessian } from './numerical-hessian';
+import {
+  createThetaScaling,
+  getColumnScales,
+  gradientToUser,
+  scaleChoiceData,
+  toInternal,
+  toUser,
+} from './parameter-scaling';
+import { refineEstimate } from './refine-estimate';
 import { selectColumns } from './select-columns';
 
 export type { MixedLogitOptions } from './check-mixed-logit-options';
@@ -43,8 +54,7 @@ export interface MixedLogitResult extends FitStatistics {
   estimates: Float64Array;
   se: Float64Array;
   robustSe: Float64Array;
-  covariance: Float64Array;
-  robustCovariance: Float64Array;
+  inference: Inference;
   loglik: number;
   loglikNull: number;
   /** LL of the MNL used for the starting values. */
@@ -52,20 +62,28 @@ export interface MixedLogitResult extends FitStatistics {
   iterations: number;
   evaluations: number;
   converged: boolean;
-  convergence: {
-    reason: BfgsStopReason;
-    gradientNorm: number;
-    relativeChange: number;
-    iterations: number;
-  };
-  /** Final LL, convergence flag and iterations of every start, in start order. */
-  starts: { loglik: number; converged: boolean; iterations: number }[];
+  status: ConvergenceStatus;
+  measures: ConvergenceMeasures;
+  /** Gradient in the user's units at the estimate. */
+  gradient: Float64Array;
+  gradientNorm: number;
+  newtonSteps: number;
+  /** Largest relative disagreement of analytic and finite-difference slopes (null with BHHH). */
+  gradientCheck: number | null;
+  /** Final LL, status and iterations of every start, in start order. */
+  starts: { loglik: number; status: ConvergenceStatus; iterations: number }[];
+  /** Number of starts whose LL is within 0.001 of the best. */
+  startsAtBest: number;
   draws: { type: string; count: number; seed: number; scrambled: boolean };
   respondents: number;
   observations: number;
   hitRate: number;
   holdoutHitRate: number | null;
+  warnings: EstimationWarning[];
 }
+
+/** Two starts "reach the same optimum" when their LLs differ by less than this. */
+export const SAME_OPTIMUM = 1e-3;
 
 /** Fits the panel mixed logit; respects hooks.signal and reports progress per iteration. */
 export async function fitMixedLogit(
@@ -77,9 +95,25 @@ export async function fitMixedLogit(
   const { layout } = opts;
   const names = layout.coefficients.map((c) => c.name);
   assertColumnsVary(data, [...layout.column], names);
-  const mnl = fitMnl(selectColumns(data, [...layout.column]));
-  const theta0 = opts.start ?? getMixedLogitStart(layout, mnl.estimates);
-  const evaluator = await createLoglikEvaluator(data, layout, opts.draws, opts.threads);
+  const mnl = await fitMnl(selectColumns(data, [...layout.column]), { covariance: 'classical' });
+  const scales = getColumnScales(data);
+  const scaled = scaleChoiceData(data, scales);
+  const scaling = createThetaScaling(layout, scales);
+  const theta0 = opts.start
+    ? toInternal(scaling, opts.start)
+    : getMixedLogitStart(
+        layout,
+        Array.from(mnl.estimates, (b, k) => b * scales[layout.column[k]]),
+      );
+  const tolerances = {
+    maxIterations: opts.maxIterations,
+    tolerance: opts.tolerance,
+    gradientTolerance: opts.gradientTolerance,
+  };
+  const assertNotCancelled = () => {
+    if (hooks.signal?.aborted) throw new EstimationCancelledError();
+  };
+  const evaluator = await createLoglikEvaluator(scaled, layout, opts.draws, opts.threads);
   try {
     const objective = async (x: Float64Array, g: Float64Array) => {
       const ll = await evaluator.evaluate(x, g);
@@ -91,69 +125,99 @@ export async function fitMixedLogit(
       const x0 = s === 0 ? theta0 : perturbStart(theta0, s, opts.draws.seed);
       runs.push(
         await minimizeBfgs(objective, x0, {
-          maxIterations: opts.maxIterations,
-          gradientTolerance: opts.gradientTolerance,
-          relativeTolerance: opts.relativeTolerance,
+          ...tolerances,
           signal: hooks.signal,
           onIteration: (iteration, f, gradientNorm) =>
             hooks.onProgress?.({ iteration, loglik: -f, gradientNorm, start: s + 1 }),
         }),
       );
     }
-    if (hooks.signal?.aborted) throw new EstimationCancelledError();
+    assertNotCancelled();
     const best = runs.reduce((a, b) => (b.f < a.f ? b : a));
-    const theta = best.x;
-    const hessian = await computeNumericalHessian((x, g) => evaluator.evaluate(x, g), theta);
-    const covariance = invertMatrix(
-      hessian.map((v) => -v),
-      layout.P,
+    const refined = await refineEstimate(
+      evaluator,
+      best.x,
+      tolerances,
+      opts.covariance === 'bhhh',
+      assertNotCancelled,
     );
-    if (!covariance || !covariance.every(Number.isFinite)) {
-      throw new NonIdentifiedError(
-        'not identified: the Hessian is singular at the estimate (a spread may be zero or parameters collinear)',
-        layout.names,
-      );
-    }
-    if (hooks.signal?.aborted) throw new EstimationCancelledError();
-    const scores = await evaluator.evaluateScores(theta);
-    const robustCovariance = sandwich(
-      covariance,
-      outerProductSum(scores, evaluator.respondentCount, layout.P),
-      layout.P,
-    );
-    const loglik = -best.f;
+    const status: ConvergenceStatus = refined.converged
+      ? 'converged'
+      : best.reason === 'converged'
+        ? 'stalled'
+        : best.reason;
+    const inference = computeInference({
+      names: layout.names,
+      information: refined.information,
+      scores: refined.scores,
+      respondents: evaluator.respondentCount,
+      choice: opts.covariance,
+      scaling,
+    });
+    const loglik = refined.loglik;
+    const startLoglik = runs.map((r) => -r.f);
+    startLoglik[runs.indexOf(best)] = loglik;
+    const startsAtBest = startLoglik.filter((ll) => loglik - ll < SAME_OPTIMUM).length;
+    const warnings: EstimationWarning[] = [
+      ...mnl.warnings.filter((w) => w.code === 'extreme_tasks'),
+    ];
+    if (startsAtBest < runs.length)
+      warnings.push({
+        code: 'starts_disagree',
+        message: `Only ${startsAtBest} of ${runs.length} starting points reached the best log-likelihood (within ${SAME_OPTIMUM}); the others ended at ${startLoglik
+          .filter((ll) => loglik - ll >= SAME_OPTIMUM)
+          .map((ll) => ll.toFixed(3))
+          .join(', ')}. The likelihood has several local optima: try more starting points.`,
+      });
+    if (refined.gradientCheck !== null && refined.gradientCheck > 1e-3)
+      warnings.push({
+        code: 'gradient_check',
+        message: `The analytic gradient disagrees with finite differences of the log-likelihood by up to ${(100 * refined.gradientCheck).toFixed(2)} % at the estimate; treat the results with care and report the problem.`,
+      });
+    const estimates = toUser(scaling, refined.theta);
+    const gradient = gradientToUser(scaling, refined.gradient);
     const loglikNull = computeNullLoglik(data);
     const T = data.altCount.length;
     return {
       model: 'mixed',
       layout,
       names: [...layout.names],
-      estimates: theta,
-      se: getDiagonalSqrt(covariance, layout.P),
-      robustSe: getDiagonalSqrt(robustCovariance, layout.P),
-      covariance,
-      robustCovariance,
+      estimates,
+      se: inference.se,
+      robustSe: inference.robustSe,
+      inference,
       loglik,
       loglikNull,
       loglikMnl: mnl.loglik,
       iterations: runs.reduce((a, r) => a + r.iterations, 0),
-      evaluations: runs.reduce((a, r) => a + r.evaluations, 0) + 2 * layout.P + 1,
-      converged: best.converged,
-      convergence: {
-        reason: best.reason,
-        gradientNorm: best.gradientNorm,
-        relativeChange: best.relativeChange,
-        iterations: best.iterations,
-      },
-      starts: runs.map((r) => ({ loglik: -r.f, converged: r.converged, iterations: r.iterations })),
+      evaluations: runs.reduce((a, r) => a + r.evaluations, 0) + refined.evaluations,
+      converged: status === 'converged',
+      status,
+      measures: refined.measures,
+      gradient,
+      gradientNorm: Math.hypot(...gradient),
+      newtonSteps: refined.newtonSteps,
+      gradientCheck: refined.gradientCheck,
+      starts: runs.map((r, i) => ({
+        loglik: startLoglik[i],
+        status: r === best ? status : r.reason,
+        iterations: r.iterations,
+      })),
+      startsAtBest,
       draws: { ...opts.draws },
       respondents: data.taskStart.length - 1,
       observations: T,
       ...computeFitStatistics(loglik, loglikNull, layout.P, T),
-      hitRate: computeMixedHitRate(data, layout, theta, opts.draws),
+      hitRate: computeMixedHitRate(scaled, layout, refined.theta, opts.draws),
       holdoutHitRate: opts.holdout
-        ? computeMixedHitRate(opts.holdout, layout, theta, opts.draws)
+        ? computeMixedHitRate(
+            scaleChoiceData(opts.holdout, scales),
+            layout,
+            refined.theta,
+            opts.draws,
+          )
         : null,
+      warnings: [...warnings, ...inference.warnings],
     };
   } finally {
     await evaluator.close();

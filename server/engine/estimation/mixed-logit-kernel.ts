@@ -7,6 +7,12 @@
  * exponentials are taken as one stream per alternative (Tang's table method, exp-stream.ts),
  * and products over tasks are moved to the log scale every 8 tasks so long panels cannot
  * underflow. One kernel covers a contiguous slice of respondents (one worker thread's share).
+ *
+ * WTP space (layout.wtpCost ≥ 0; Train & Weeks 2005): the draws of the model's own coefficients
+ * ("raw": the cost and the WTPs w_k) are kept apart from the utility coefficients
+ * β_k = −β_cost·w_k, and the gradient with respect to β is mapped back to the raw draws
+ * (∂/∂w_k = −β_cost·∂/∂β_k, ∂/∂β_cost gains −Σ_k w_k·∂/∂β_k) before the chain rule through
+ * each distribution.
  */
 import { expStreamAccumulate } from '../linalg/exp-stream';
 import { fusedAxpy } from '../linalg/fused-axpy';
@@ -31,8 +37,9 @@ export interface LoglikKernel {
 
 export interface MixedLogitKernel extends LoglikKernel {
   /**
-   * For local respondent n: fills `betas` (K × R, coefficient-major) with β_r and `weights`
-   * (R) with the normalised w_r; returns ln L_n.
+   * For local respondent n: fills `betas` (K × R, coefficient-major) with the utility
+   * coefficients β_r (in WTP space β_k = −β_cost·w_k) and `weights` (R) with the normalised
+   * w_r; returns ln L_n.
    */
   simulateRespondent(
     n: number,
@@ -66,6 +73,9 @@ export function createMixedLogitKernel(
     maxRows = Math.max(maxRows, diffStart[taskStart[n + 1]] - diffStart[taskStart[n]]);
   }
   const B = new Float64Array(K * R);
+  const wtpCost = layout.wtpCost;
+  // Raw draws of the model's coefficients; the same array as B in preference space.
+  const raw = wtpCost >= 0 ? new Float64Array(K * R) : B;
   const G = new Float64Array(K * R);
   const V = new Float64Array(maxRows * R);
   const den = new Float64Array(R);
@@ -78,7 +88,34 @@ export function createMixedLogitKernel(
   const blockSize = block.length;
   const blockDims = Int32Array.from(block, (k) => dimension[k]);
 
-  function fillBetas(n: number, theta: Float64Array, out: Float64Array): void {
+  /** Utility coefficients of local respondent n into B (raw draws into `raw` first). */
+  function fillBetas(n: number, theta: Float64Array): void {
+    fillRawDraws(n, theta, raw);
+    if (wtpCost < 0) return;
+    const cb = wtpCost * R;
+    for (let k = 0; k < K; k++) {
+      const base = k * R;
+      if (k === wtpCost) for (let r = 0; r < R; r++) B[base + r] = raw[base + r];
+      else for (let r = 0; r < R; r++) B[base + r] = -raw[cb + r] * raw[base + r];
+    }
+  }
+
+  /** WTP space: turns G = ∂ln L/∂β (per draw) into the gradient with respect to the raw draws. */
+  function mapGradientToRaw(): void {
+    const cb = wtpCost * R;
+    for (let r = 0; r < R; r++) {
+      let gc = G[cb + r];
+      const cost = raw[cb + r];
+      for (let k = 0; k < K; k++) {
+        if (k === wtpCost) continue;
+        gc -= G[k * R + r] * raw[k * R + r];
+        G[k * R + r] *= -cost;
+      }
+      G[cb + r] = gc;
+    }
+  }
+
+  function fillRawDraws(n: number, theta: Float64Array, out: Float64Array): void {
     const drawBase = n * D * R;
     for (let k = 0; k < K; k++) {
       const base = k * R;
@@ -191,7 +228,7 @@ export function createMixedLogitKernel(
       } else if (code === DIST_LOGNORMAL || code === DIST_NEG_LOGNORMAL) {
         const eta = drawBase + dimension[k] * R;
         for (let r = 0; r < R; r++) {
-          const x = w[r] * G[gb + r] * B[gb + r];
+          const x = w[r] * G[gb + r] * raw[gb + r];
           gm += x;
           gs += x * variates[eta + r];
         }
@@ -224,11 +261,12 @@ export function createMixedLogitKernel(
       grad.fill(0, 0, P);
       let ll = 0;
       for (let n = 0; n < count; n++) {
-        fillBetas(n, theta, B);
+        fillBetas(n, theta);
         simulateTasks(n, true);
         const lnL = normaliseWeights(w);
         ll += lnL;
         if (lnL === -Infinity) continue;
+        if (wtpCost >= 0) mapGradientToRaw();
         accumulateGradient(n);
         for (let p = 0; p < P; p++) grad[p] += gn[p];
         if (scores) scores.set(gn, n * P);
@@ -236,7 +274,7 @@ export function createMixedLogitKernel(
       return ll;
     },
     simulateRespondent(n, theta, betas, weights) {
-      fillBetas(n, theta, B);
+      fillBetas(n, theta);
       simulateTasks(n, false);
       betas.set(B);
       return normaliseWeights(weights);

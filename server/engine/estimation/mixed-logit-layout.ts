@@ -11,6 +11,12 @@
  * θ = [locations of all K coefficients, spreads of the uncorrelated random ones, L row-wise].
  * The sign of a spread is not identified (the distribution depends on |s|); estimates are
  * reported as found and population SDs use |s|.
+ *
+ * WTP space (Train & Weeks 2005, "Discrete choice models in preference space and
+ * willingness-to-pay space", in Scarpa & Alberini (eds.), Applications of Simulation Methods in
+ * Environmental and Resource Economics, ch. 1): with `wtpCost` set, every non-cost coefficient's
+ * draw is a willingness to pay w_k and enters utility as β_k = −β_cost·w_k; the cost keeps its
+ * own distribution (fixed or lognormal, so its sign never changes).
  */
 import type { ChoiceData } from './choice-data';
 import { EstimationOptionsError } from './estimation-errors';
@@ -64,6 +70,8 @@ export interface MixedLogitLayout {
   P: number;
   /** Parameter names: "x" (fixed), "x.mean"/"x.sd" (normal, lognormal), "x.mean"/"x.spread" (triangular, uniform), "chol.a.b". */
   names: string[];
+  /** WTP space: coefficient index of the cost; −1 in preference space. */
+  wtpCost: number;
 }
 
 /** Builds the layout; throws EstimationOptionsError for unknown columns, names or distributions. */
@@ -71,6 +79,7 @@ export function createMixedLogitLayout(
   data: ChoiceData,
   coefficients: readonly CoefficientSpec[],
   correlated: boolean,
+  wtpCost: string | null = null,
 ): MixedLogitLayout {
   const K = coefficients.length;
   if (K === 0)
@@ -127,6 +136,22 @@ export function createMixedLogitLayout(
       `${coefficients[k].name}.${dist[k] === DIST_TRIANGULAR || dist[k] === DIST_UNIFORM ? 'spread' : 'sd'}`,
     );
   }
+  const cost = wtpCost === null ? -1 : coefficients.findIndex((c) => c.name === wtpCost);
+  if (wtpCost !== null) {
+    if (cost < 0)
+      throw new EstimationOptionsError(`cost coefficient ${wtpCost} is not in the model`, 'cost');
+    if (
+      dist[cost] !== DIST_FIXED &&
+      dist[cost] !== DIST_LOGNORMAL &&
+      dist[cost] !== DIST_NEG_LOGNORMAL
+    )
+      throw new EstimationOptionsError(
+        'in WTP space the cost coefficient must be fixed or lognormal, so its sign never changes',
+        'cost',
+      );
+    if (K < 2)
+      throw new EstimationOptionsError('WTP space needs a coefficient besides the cost', 'space');
+  }
   const B = block.length;
   const cholIndex = new Int32Array(B * B).fill(-1);
   for (let i = 0; i < B; i++) {
@@ -149,5 +174,6 @@ export function createMixedLogitLayout(
     cholIndex,
     P: names.length,
     names,
+    wtpCost: cost,
   };
 }

@@ -2,15 +2,34 @@
  * Starting values for the mixed logit from the MNL (Train 2009 §10.2 practice): locations
  * at the MNL coefficients (log of the magnitude for (negative) lognormals), spreads at
  * half the magnitude (at least 0.1), Cholesky off-diagonals at zero. Extra starts perturb
- * these with seeded normal noise.
+ * these with seeded normal noise. Called on internally scaled data (parameter-scaling.ts), so
+ * the 0.01 floor of a lognormal's magnitude is relative to the column's spread, not its units.
+ * In WTP space the MNL gives the cost and the ratios w_k = −β_k/β_cost (Train & Weeks 2005).
  */
 import { inverseNormal } from '../draws/inverse-normal';
 import { createPrng } from '../draws/prng';
 import { DIST_LOGNORMAL, DIST_NEG_LOGNORMAL, type MixedLogitLayout } from './mixed-logit-layout';
 
 /** θ0 from MNL coefficients `mnl` (one per layout coefficient). */
-export function getMixedLogitStart(layout: MixedLogitLayout, mnl: ArrayLike<number>): Float64Array {
+export function getMixedLogitStart(
+  layout: MixedLogitLayout,
+  mnlCoefficients: ArrayLike<number>,
+): Float64Array {
   const theta = new Float64Array(layout.P);
+  const mnl = Float64Array.from(mnlCoefficients);
+  const c = layout.wtpCost;
+  if (c >= 0) {
+    // The cost's sign is fixed by its distribution; its magnitude at least 0.01.
+    const sign =
+      layout.dist[c] === DIST_LOGNORMAL
+        ? 1
+        : layout.dist[c] === DIST_NEG_LOGNORMAL
+          ? -1
+          : Math.sign(mnl[c]) || -1;
+    const cost = sign * Math.max(Math.abs(mnl[c]), 1e-2);
+    for (let k = 0; k < layout.K; k++) if (k !== c) mnl[k] = -mnl[k] / cost;
+    mnl[c] = cost;
+  }
   for (let k = 0; k < layout.K; k++) {
     const b = mnl[k];
     const code = layout.dist[k];

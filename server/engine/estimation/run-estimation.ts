@@ -1,18 +1,24 @@
 /**
  * One estimation run from a validated specification (shared/schemas/estimation-spec.ts):
- * MNL or panel mixed logit, population moments, WTP (delta method and Krinsky-Robb on the
- * classical covariance) and, for the mixed logit, every respondent's taste profile. Returns
- * the plain result object the CLI writes and the job runner stores.
+ * MNL or panel mixed logit, in preference or WTP space; then, from the covariance the run
+ * chose, population mean and median WTP (or the reason it is withheld), derived quantities,
+ * LL(C), the optional simulation-noise check and, for the mixed logit, every respondent's taste
+ * profile. Returns the plain result object the CLI writes and the job runner stores.
  */
 import type { EstimationResult, EstimationSpec } from '../../../shared/schemas/estimation-spec';
 import type { BuiltChoiceData } from './build-choice-data';
-import { computeWtp } from './compute-wtp';
-import { fitMixedLogit, type MixedLogitHooks } from './fit-mixed-logit';
+import { computeDerivedQuantities } from './derived-quantities';
+import { fitMixedLogit, type MixedLogitHooks, type MixedLogitResult } from './fit-mixed-logit';
 import { fitMnl } from './fit-mnl';
-import { createMixedLogitLayout } from './mixed-logit-layout';
+import { computeCaic, computeConstantsLoglik } from './fit-statistics';
+import { createMixedLogitLayout, type MixedLogitLayout } from './mixed-logit-layout';
 import { getPopulationMoments } from './population-moments';
+import { computePopulationWtp, getWtpWithheldReason } from './population-wtp';
+import { toResultJson, type FittedModel } from './result-json';
 import { selectColumns } from './select-columns';
+import { checkSimulationError } from './simulation-error';
 import { computeTasteProfiles } from './taste-profiles';
+import { toWtpSpace } from './wtp-space-mnl';
 
 export interface RunEstimationOptions extends MixedLogitHooks {
   /** Worker threads for the mixed logit (default 1). */
@@ -23,8 +29,6 @@ export interface RunEstimationOptions extends MixedLogitHooks {
 export function getSpecColumns(spec: EstimationSpec): string[] {
   return spec.coefficients.map((c) => c.column ?? c.name);
 }
-
-const finiteOrNull = (x: number): number | null => (Number.isFinite(x) ? x : null);
 
 /** Runs the model of `spec` on data built with the columns of getSpecColumns(spec). */
 export async function runEstimation(
@@ -39,113 +43,107 @@ export async function runEstimation(
     distribution: c.distribution,
   }));
   const { data, holdout } = built;
+  const settings = spec.settings;
+  const wtpCost = spec.space === 'wtp' ? (spec.cost ?? null) : null;
+  const tolerances = {
+    tolerance: settings.tolerance,
+    gradientTolerance: settings.gradientTolerance,
+    covariance: settings.covariance,
+  };
+  let fitted: FittedModel;
+  let mixed: MixedLogitResult | null = null;
   if (spec.model === 'mnl') {
     const columns = coefficients.map((c) => data.columns.indexOf(c.column));
-    const fit = fitMnl(selectColumns(data, columns), {
+    const sub = selectColumns(data, columns);
+    const fit = await fitMnl(sub, {
+      ...tolerances,
+      maxIterations: settings.maxIterations,
       holdout: holdout ? selectColumns(holdout, columns) : null,
     });
-    const layout = createMixedLogitLayout(
-      selectColumns(data, columns),
-      coefficients.map((c) => ({ ...c, column: c.column })),
-      false,
-    );
-    return {
-      model: 'mnl',
-      loglik: fit.loglik,
-      loglikNull: fit.loglikNull,
-      respondents: fit.respondents,
-      observations: fit.observations,
-      parameters: fit.names.length,
-      iterations: fit.iterations,
-      converged: fit.converged,
-      convergence: {
-        reason: fit.converged ? 'newton_decrement' : 'max_iterations',
-        gradientNorm: fit.gradientNorm,
-        relativeChange: null,
-      },
-      rho2: fit.rho2,
-      adjRho2: fit.adjRho2,
-      aic: fit.aic,
-      bic: fit.bic,
-      hitRate: fit.hitRate,
-      holdoutHitRate: fit.holdoutHitRate,
-      estimates: coefficients.map((c, k) => ({
-        name: c.name,
-        estimate: fit.estimates[k],
-        se: finiteOrNull(fit.se[k]),
-        robustSe: finiteOrNull(fit.robustSe[k]),
-      })),
-      population: getPopulationMoments(layout, fit.estimates),
-      wtp: spec.cost
-        ? computeWtp(layout, fit.estimates, fit.covariance, {
-            cost: spec.cost,
-            seed: spec.draws.seed,
-          })
-        : null,
-      individuals: null,
-      draws: null,
-      profileDraws: null,
-      elapsedSeconds: (performance.now() - started) / 1000,
+    const layout = createMixedLogitLayout(sub, coefficients, false, wtpCost);
+    const inWtp =
+      layout.wtpCost >= 0
+        ? toWtpSpace(fit.estimates, fit.gradient, fit.inference, layout.wtpCost)
+        : null;
+    fitted = {
+      ...fit,
+      layout,
+      estimates: inWtp?.theta ?? fit.estimates,
+      gradient: inWtp?.gradient ?? fit.gradient,
+      inference: inWtp?.inference ?? fit.inference,
+      maxIterations: settings.maxIterations ?? 100,
+      starts: [{ loglik: fit.loglik, status: fit.status, iterations: fit.iterations }],
+      startsAtBest: 1,
+      newtonSteps: 0,
+      gradientCheck: null,
     };
-  }
-  const fit = await fitMixedLogit(
-    data,
-    {
+  } else {
+    const fitOptions = {
       coefficients,
       correlated: spec.correlated,
+      wtpCost,
       draws: spec.draws,
-      starts: spec.starts,
+      starts: spec.starts ?? 3,
       threads: options.threads,
       holdout,
-    },
-    options,
-  );
-  const profileDraws = {
-    type: spec.draws.type,
-    count: spec.profileDraws,
-    seed: spec.draws.seed + 1000,
-  };
-  const profiles = computeTasteProfiles(data, fit.layout, fit.estimates, {
-    ...profileDraws,
-    cost: spec.cost,
-    signal: options.signal,
-  });
-  return {
-    model: 'mixed',
-    loglik: fit.loglik,
-    loglikNull: fit.loglikNull,
-    respondents: fit.respondents,
-    observations: fit.observations,
-    parameters: fit.names.length,
-    iterations: fit.iterations,
-    converged: fit.converged,
-    convergence: {
-      reason: fit.convergence.reason,
-      gradientNorm: fit.convergence.gradientNorm,
-      relativeChange: finiteOrNull(fit.convergence.relativeChange),
-    },
-    rho2: fit.rho2,
-    adjRho2: fit.adjRho2,
-    aic: fit.aic,
-    bic: fit.bic,
-    hitRate: fit.hitRate,
-    holdoutHitRate: fit.holdoutHitRate,
-    estimates: fit.names.map((name, p) => ({
-      name,
-      estimate: fit.estimates[p],
-      se: finiteOrNull(fit.se[p]),
-      robustSe: finiteOrNull(fit.robustSe[p]),
-    })),
-    population: profiles.population,
-    wtp: spec.cost
-      ? computeWtp(fit.layout, fit.estimates, fit.covariance, {
-          cost: spec.cost,
-          seed: spec.draws.seed,
-        })
-      : null,
-    individuals: profiles.profiles,
-    draws: { type: spec.draws.type, count: spec.draws.count, seed: spec.draws.seed },
+      maxIterations: settings.maxIterations,
+      ...tolerances,
+    };
+    mixed = await fitMixedLogit(data, fitOptions, options);
+    fitted = { ...mixed, maxIterations: settings.maxIterations ?? 300 };
+    if (settings.simulationCheck) {
+      const check = await checkSimulationError(data, fitOptions, mixed, options.signal);
+      fitted.simulationError = check.result;
+      fitted.warnings = [...fitted.warnings, ...check.warnings];
+    }
+  }
+  const layout: MixedLogitLayout = fitted.layout;
+  const theta = fitted.estimates;
+  const chosen = fitted.inference.chosen;
+  const cost = spec.cost ? layout.coefficients.findIndex((c) => c.name === spec.cost) : -1;
+  const withheld = cost >= 0 ? getWtpWithheldReason(layout, theta, cost) : null;
+  if (withheld)
+    fitted.warnings = [
+      ...fitted.warnings,
+      { code: 'wtp_withheld', message: withheld, parameters: [spec.cost!] },
+    ];
+  const wtp =
+    cost >= 0 && !withheld
+      ? computePopulationWtp(layout, theta, chosen, cost, { seed: spec.draws.seed })
+      : null;
+  const derived =
+    spec.model === 'mixed'
+      ? computeDerivedQuantities(layout, theta, chosen, { seed: spec.draws.seed })
+      : [];
+  const loglikConstants = built.constants ? computeConstantsLoglik(built.constants) : null;
+  let individuals: EstimationResult['individuals'] = null;
+  let profileDraws: EstimationResult['profileDraws'] = null;
+  let population = getPopulationMoments(layout, theta);
+  if (mixed) {
+    profileDraws = {
+      type: spec.draws.type,
+      count: spec.profileDraws,
+      seed: spec.draws.seed + 1000,
+    };
+    const profiles = computeTasteProfiles(data, layout, theta, {
+      ...profileDraws,
+      cost: withheld ? undefined : spec.cost,
+      signal: options.signal,
+    });
+    individuals = profiles.profiles;
+    population = profiles.population;
+  }
+  return toResultJson({
+    spec,
+    fitted,
+    population,
+    wtp,
+    withheld,
+    derived,
+    loglikConstants,
+    caic: computeCaic(fitted.loglik, layout.P, fitted.observations),
+    individuals,
     profileDraws,
     elapsedSeconds: (performance.now() - started) / 1000,
-  };
+  });
 }

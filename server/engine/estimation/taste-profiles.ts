@@ -91,17 +91,21 @@ export function computeTasteProfiles(
       for (let r = 0; r < R; r++) sumW2 += w[r] * w[r];
       for (let k = 0; k < K; k++) {
         let m1 = 0;
-        let m2 = 0;
         let ratio = 0;
+        let constant = true;
         for (let r = 0; r < R; r++) {
           const b = betas[k * R + r];
           m1 += w[r] * b;
-          m2 += w[r] * b * b;
+          if (b !== betas[k * R]) constant = false;
           if (cost >= 0) ratio -= (w[r] * b) / betas[cost * R + r];
         }
+        // Two passes (Σ w (b − m)², not Σ w b² − m²): no cancellation, and exactly 0 for a
+        // coefficient that is the same in every draw (a fixed one).
+        let m2 = 0;
+        if (!constant) for (let r = 0; r < R; r++) m2 += w[r] * (betas[k * R + r] - m1) ** 2;
         const name = layout.coefficients[k].name;
-        mean[name] = m1;
-        sd[name] = Math.sqrt(Math.max(0, m2 - m1 * m1));
+        mean[name] = constant ? betas[k * R] : m1;
+        sd[name] = Math.sqrt(m2);
         if (cost >= 0 && k !== cost) wtp[name] = ratio;
       }
       profiles.push({

@@ -22,7 +22,12 @@ function initSlice(msg: InitSliceMessage): MixedLogitKernel {
     diffs: msg.diffs,
     altCount: msg.altCount,
   };
-  const layout = createMixedLogitLayout(data, msg.coefficients, msg.correlated);
+  const layout = createMixedLogitLayout(
+    data,
+    msg.coefficients,
+    msg.correlated,
+    msg.wtpCost ?? null,
+  );
   const variates = createStandardVariates(layout, msg.draws, msg.first, msg.count);
   return createMixedLogitKernel(data, layout, variates, msg.draws.count, msg.first, msg.count);
 }

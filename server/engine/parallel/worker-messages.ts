@@ -13,6 +13,8 @@ export interface InitSliceMessage {
   altCount: Int32Array;
   coefficients: CoefficientSpec[];
   correlated: boolean;
+  /** WTP space: name of the cost coefficient (null or absent in preference space). */
+  wtpCost?: string | null;
   draws: Omit<DrawsSpec, 'dimensions'>;
   first: number;
   count: number;

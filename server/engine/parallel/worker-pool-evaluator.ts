@@ -85,6 +85,7 @@ export async function createWorkerPoolEvaluator(
         ...shared,
         coefficients: layout.coefficients.map((c) => ({ ...c })),
         correlated: layout.correlated,
+        wtpCost: layout.wtpCost >= 0 ? layout.coefficients[layout.wtpCost].name : null,
         draws,
         first: slices[i].first,
         count: slices[i].count,

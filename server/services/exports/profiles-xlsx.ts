@@ -1,12 +1,14 @@
 /**
  * The per-respondent XLSX (exceljs): sheet 1 "About" states the model, the data (study,
  * version, respondents, data hash), the date and the cautions; sheet 2 "Profiles" holds the
- * table; sheet 3 "Population" the estimated population moments. Text goes in as text cells,
+ * table; sheet 3 "Population" the estimated population moments; then "Estimates" and the
+ * full covariance matrices of the estimates, classical and robust. Text goes in as text cells,
  * which spreadsheet programs never evaluate as formulas, so no quote prefix is needed here.
  */
 import ExcelJS from 'exceljs';
 import type { RunContext } from '../tastes/run-context';
 import type { Table } from './profile-table';
+import { buildCovarianceTable, describeCovariance } from './covariance-table';
 import { getRunSummary } from './run-summary';
 
 export const ABOUT_SHEET = 'About';
@@ -56,5 +58,19 @@ export async function writeProfilesXlsx(
       c.location,
       c.spread,
     ]);
+  const estimates = workbook.addWorksheet('Estimates');
+  estimates.addRow(['parameter', 'estimate', 'se', 'robust_se']).font = { bold: true };
+  for (const e of ctx.results.estimates) estimates.addRow([e.name, e.estimate, e.se, e.robustSe]);
+  for (const kind of ['classical', 'robust'] as const) {
+    const table = buildCovarianceTable(ctx.results, kind);
+    const sheet = workbook.addWorksheet(`Covariance ${kind}`);
+    sheet.addRow([`Covariance of the estimates: ${describeCovariance(ctx.results, kind)}`]);
+    if (!table) {
+      sheet.addRow(['Not available for this run.']);
+      continue;
+    }
+    sheet.addRow(table.header).font = { bold: true };
+    for (const row of table.rows) sheet.addRow(row);
+  }
   return Buffer.from(await workbook.xlsx.writeBuffer());
 }

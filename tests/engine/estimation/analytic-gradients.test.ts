@@ -65,6 +65,29 @@ describe('analytic gradients match central finite differences', () => {
     expectGradientsClose(grad, numeric);
   });
 
+  const wtpCases: [string, CoefficientDistribution[], boolean][] = [
+    [
+      'WTP space, lognormal cost, normal and fixed WTPs',
+      ['normal', 'fixed', 'neg_lognormal'],
+      false,
+    ],
+    ['WTP space, fixed cost, lognormal and uniform WTPs', ['lognormal', 'uniform', 'fixed'], false],
+    ['WTP space, correlated normal WTPs', ['normal', 'normal', 'neg_lognormal'], true],
+  ];
+
+  it.each(wtpCases)('mixed logit: %s', (_label, distributions, correlated) => {
+    const cost = `x${distributions.length}`;
+    const { kernel, layout } = createKernelFixture(distributions, correlated, 40, cost);
+    const theta = Float64Array.from({ length: layout.P }, (_, p) => 0.3 + 0.1 * Math.sin(p + 1));
+    const grad = new Float64Array(layout.P);
+    kernel.evaluate(theta, grad);
+    const numeric = getCentralDifferenceGradient(
+      (x) => kernel.evaluate(x, new Float64Array(layout.P)),
+      theta,
+    );
+    expectGradientsClose(grad, numeric);
+  });
+
   it('per-respondent scores sum to the gradient', () => {
     const { kernel, layout } = createKernelFixture(['normal', 'neg_lognormal']);
     const theta = Float64Array.from({ length: layout.P }, () => 0.2);

@@ -16,7 +16,7 @@ describe('buildChoiceData', () => {
     ],
   );
 
-  it('groups rows by respondent and task and stores x_j − x_chosen for non-chosen alternatives', () => {
+  it('groups rows by respondent and task and stores x_j − x_chosen for non-chosen alternatives', async () => {
     const { data } = built;
     expect(data.respondentIds).toEqual(['a', 'b']);
     expect([...data.taskStart]).toEqual([0, 1, 2]);
@@ -25,14 +25,14 @@ describe('buildChoiceData', () => {
     expect([...data.diffs]).toEqual([-3, -1, 10, 2, 15, 1]);
   });
 
-  it('keeps holdout tasks apart', () => {
+  it('keeps holdout tasks apart', async () => {
     expect(built.holdout).not.toBeNull();
     expect(built.holdout!.respondentIds).toEqual(['a']);
     expect([...built.holdout!.diffs]).toEqual([-3, 1]);
   });
 
-  it('handles tasks with different numbers of alternatives in the MNL: LL(0) = Σ ln(1/J_t) (REFERENCES §3.2)', () => {
-    const fit = fitMnl(
+  it('handles tasks with different numbers of alternatives in the MNL: LL(0) = Σ ln(1/J_t) (REFERENCES §3.2)', async () => {
+    const fit = await fitMnl(
       buildChoiceData(
         ['x'],
         [

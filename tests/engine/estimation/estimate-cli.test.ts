@@ -60,6 +60,7 @@ const mixedSpec = {
   draws: { type: 'halton', count: 50, seed: 1 },
   profileDraws: 200,
   cost: 'bill',
+  starts: 1,
 };
 
 describe('npm run estimate (scripts/estimate.ts)', () => {

@@ -38,7 +38,7 @@ describe('fitMixedLogit', () => {
     const progress: EstimationProgress[] = [];
     const fit = await fitMixedLogit(
       data,
-      { coefficients, draws: { count: 200 } },
+      { coefficients, draws: { count: 200 }, starts: 1 },
       { onProgress: (p) => progress.push(p) },
     );
     expect(fit.converged).toBe(true);
@@ -80,6 +80,7 @@ describe('fitMixedLogit', () => {
     const fit = await fitMixedLogit(small, { coefficients, draws: { count: 50 }, starts: 3 });
     expect(fit.starts).toHaveLength(3);
     expect(fit.loglik).toBe(Math.max(...fit.starts.map((s) => s.loglik)));
+    expect(fit.startsAtBest).toBe(fit.starts.filter((s) => fit.loglik - s.loglik < 1e-3).length);
   });
 
   it('stops with EstimationCancelledError when the signal fires', async () => {

@@ -42,7 +42,7 @@ function akivaRows(): LongChoiceRow[] {
 }
 
 describe('fitMnl', () => {
-  it('binary logit with one dummy equals the closed form ln(k/(n−k)), SE sqrt(n/(k(n−k)))', () => {
+  it('binary logit with one dummy equals the closed form ln(k/(n−k)), SE sqrt(n/(k(n−k)))', async () => {
     // Closed form: REFERENCES §3.2 [C/standard]; n = 20 paired tasks, first alternative chosen k = 14 times.
     const n = 20;
     const k = 14;
@@ -51,7 +51,7 @@ describe('fitMnl', () => {
       rows.push({ respondent: t % 5, task: t, alt: 1, chosen: t < k ? 1 : 0, values: [1] });
       rows.push({ respondent: t % 5, task: t, alt: 2, chosen: t < k ? 0 : 1, values: [0] });
     }
-    const fit = fitMnl(buildChoiceData(['x'], rows).data);
+    const fit = await fitMnl(buildChoiceData(['x'], rows).data);
     expect(fit.converged).toBe(true);
     expect(fit.estimates[0]).toBeCloseTo(Math.log(k / (n - k)), 10);
     expect(fit.se[0]).toBeCloseTo(Math.sqrt(n / (k * (n - k))), 10);
@@ -59,8 +59,8 @@ describe('fitMnl', () => {
     expect(fit.loglikNull).toBeCloseTo(n * Math.log(0.5), 12);
   });
 
-  it('reproduces Ben-Akiva & Lerman 21-traveller binary logit (REFERENCES §3.1)', () => {
-    const fit = fitMnl(buildChoiceData(['asc_auto', 'time'], akivaRows()).data);
+  it('reproduces Ben-Akiva & Lerman 21-traveller binary logit (REFERENCES §3.1)', async () => {
+    const fit = await fitMnl(buildChoiceData(['asc_auto', 'time'], akivaRows()).data);
     // [C] values from REFERENCES §3.1; Newton converges to machine precision, the 7 printed
     // digits bound the comparison.
     expect(fit.estimates[0]).toBeCloseTo(-0.2375755, 6);
@@ -79,7 +79,7 @@ describe('fitMnl', () => {
     expect(fit.observations).toBe(21);
   });
 
-  it('ASC-only model reproduces the observed shares ln(s_j/s_ref) (REFERENCES §3.2)', () => {
+  it('ASC-only model reproduces the observed shares ln(s_j/s_ref) (REFERENCES §3.2)', async () => {
     // 3 alternatives, chosen 5, 3, 2 times; constants for alternatives 2 and 3.
     const counts = [5, 3, 2];
     const rows: LongChoiceRow[] = [];
@@ -97,15 +97,15 @@ describe('fitMnl', () => {
         }
       }
     });
-    const fit = fitMnl(buildChoiceData(['asc2', 'asc3'], rows).data);
+    const fit = await fitMnl(buildChoiceData(['asc2', 'asc3'], rows).data);
     expect(fit.estimates[0]).toBeCloseTo(Math.log(3 / 5), 10);
     expect(fit.estimates[1]).toBeCloseTo(Math.log(2 / 5), 10);
   });
 
-  it('reports in-sample and holdout hit rates', () => {
+  it('reports in-sample and holdout hit rates', async () => {
     const rows = akivaRows().map((r) => ({ ...r, holdout: Number(r.respondent) >= 16 }));
     const built = buildChoiceData(['asc_auto', 'time'], rows);
-    const fit = fitMnl(built.data, { holdout: built.holdout });
+    const fit = await fitMnl(built.data, { holdout: built.holdout });
     expect(fit.observations).toBe(16);
     expect(fit.hitRate).toBeGreaterThan(0.5);
     expect(fit.holdoutHitRate).not.toBeNull();

@@ -143,7 +143,8 @@ describe('estimationSpecSchema', () => {
       correlated: false,
       draws: { type: 'halton', count: 500, seed: 1 },
       profileDraws: 2000,
-      starts: 1,
+      space: 'preference',
+      settings: { tolerance: 1e-7, covariance: 'robust', simulationCheck: false },
     });
   });
   it.each<[string, unknown, string]>([

@@ -12,6 +12,7 @@ export function createKernelFixture(
   distributions: CoefficientDistribution[],
   correlated = false,
   R = 40,
+  wtpCost: string | null = null,
 ) {
   const coefficients = distributions.map((distribution, k) => ({
     name: `x${k + 1}`,
@@ -28,7 +29,7 @@ export function createKernelFixture(
     seed: 11,
   });
   const { data } = buildChoiceData(sim.columns, sim.rows);
-  const layout = createMixedLogitLayout(data, coefficients, correlated);
+  const layout = createMixedLogitLayout(data, coefficients, correlated, wtpCost);
   const variates = createStandardVariates(layout, { type: 'halton', count: R, seed: 3 }, 0, 25);
   const kernel = createMixedLogitKernel(data, layout, variates, R, 0, 25);
   return { data, layout, kernel, sim };

@@ -84,7 +84,9 @@ export async function insertStudy(
     .values({
       teamId,
       publicId: nanoid(16),
-      name: 'Water services 2026',
+      // Respondents see the public title, never the internal name.
+      name: 'Water pilot W-26 (internal)',
+      publicTitle: 'Water services 2026',
       definition,
       questionnaire: opts.questionnaire === null ? {} : (opts.questionnaire ?? fullQuestionnaire()),
       settings: opts.settings ?? {},

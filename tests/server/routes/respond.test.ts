@@ -59,7 +59,7 @@ async function walk(
 }
 
 describe('GET /api/r/:publicId', () => {
-  it('when the study is live, names it and says it is open', async () => {
+  it('when the study is live, gives its public title (not the internal name) and says it is open', async () => {
     const s = await liveStudy();
     const res = await t.request().get(`/api/r/${s.publicId}`).expect(200);
     expect(res.body).toEqual({

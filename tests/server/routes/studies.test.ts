@@ -142,6 +142,37 @@ describe('PATCH /api/teams/:teamId/studies/:studyId', () => {
   });
 });
 
+describe('the public title', () => {
+  it('starts as the name, changes apart from it, and is what the respondent link shows', async () => {
+    const { id } = await createStudyVia(team.agents.owner, team.teamId, { name: 'Pilot W-3' });
+    const created = await team.agents.owner.get(`${base()}/${id}`).expect(200);
+    expect(created.body).toMatchObject({ name: 'Pilot W-3', publicTitle: 'Pilot W-3' });
+    const res = await team.agents.editor
+      .patch(`${base()}/${id}`)
+      .send({ publicTitle: 'Your water services' })
+      .expect(200);
+    expect(res.body).toMatchObject({ name: 'Pilot W-3', publicTitle: 'Your water services' });
+  });
+
+  it('when the public title is empty, returns 400 with the field and changes nothing', async () => {
+    const { id } = await createStudyVia(team.agents.owner, team.teamId, { name: 'Pilot W-4' });
+    const res = await team.agents.editor
+      .patch(`${base()}/${id}`)
+      .send({ publicTitle: ' ' })
+      .expect(400);
+    expect(res.body.error.fields).toEqual([expect.objectContaining({ path: 'publicTitle' })]);
+    const after = await team.agents.owner.get(`${base()}/${id}`).expect(200);
+    expect(after.body.publicTitle).toBe('Pilot W-4');
+  });
+
+  it('is copied when a study is duplicated', async () => {
+    const { id } = await createStudyVia(team.agents.owner, team.teamId, { name: 'Pilot W-5' });
+    await team.agents.owner.patch(`${base()}/${id}`).send({ publicTitle: 'Water at home' });
+    const copy = await team.agents.owner.post(`${base()}/${id}/duplicate`).expect(201);
+    expect(copy.body).toMatchObject({ name: 'Pilot W-5 (copy)', publicTitle: 'Water at home' });
+  });
+});
+
 describe('PUT /api/teams/:teamId/studies/:studyId/definition', () => {
   it('saves a valid definition for an editor', async () => {
     const { id } = await createStudyVia(team.agents.owner, team.teamId);

@@ -22,7 +22,7 @@ afterAll(async () => {
 
 async function newRespondent() {
   const { respondent, sessionToken } = await createRespondent(t.deps.db, { studyId });
-  const study = { id: studyId, name: 'x', status: 'live', settings: {} };
+  const study = { id: studyId, publicTitle: 'x', status: 'live', settings: {} };
   const session = await buildSession(t.deps.db, study, respondent);
   return { sessionToken, session, respondent };
 }

@@ -55,10 +55,15 @@ export function StudyLayout() {
               <StudyStatusBadge status={study.status} archived={study.archivedAt !== null} />
               {can('study:write') && (
                 <Button size="sm" variant="ghost" onClick={() => setEditing(true)}>
-                  Rename
+                  Edit details
                 </Button>
               )}
             </div>
+            {study.publicTitle !== study.name && (
+              <p className="text-sm text-ink-soft">
+                Respondents see: <span className="font-medium text-ink">{study.publicTitle}</span>
+              </p>
+            )}
             {study.description && <p className="text-sm text-ink-soft">{study.description}</p>}
           </>
         )}

@@ -20,10 +20,13 @@ export function PageForm({
   page,
   definition,
   onChange,
+  otherKeys = [],
 }: {
   page: QuestionnairePage;
   definition: StudyDefinition;
   onChange: (p: QuestionnairePage) => void;
+  /** Question keys used by the other pages. */
+  otherKeys?: string[];
 }) {
   const titled = (
     <TextField
@@ -85,6 +88,7 @@ export function PageForm({
         <QuestionFields
           question={page.question}
           allowText={page.kind === 'question'}
+          otherKeys={otherKeys}
           onChange={(question) => onChange({ ...page, question } as QuestionnairePage)}
         />
       )}

@@ -2,6 +2,7 @@ import { nanoid } from 'nanoid';
 import { Button } from '@/components/ui/button';
 import { SelectField, TextAreaField, TextField } from '@/components/ui/field';
 import type { ChoiceOption, Question, QuestionType } from '@shared/schemas/questionnaire';
+import { isGeneratedKey, questionKeyFromText } from '@shared/schemas/question-keys';
 
 const typeLabels: Record<QuestionType, string> = {
   single: 'Single choice',
@@ -29,12 +30,22 @@ export function QuestionFields({
   question,
   onChange,
   allowText = true,
+  otherKeys = [],
 }: {
   question: Question;
   onChange: (q: Question) => void;
   allowText?: boolean;
+  /** Keys of the questionnaire's other questions: a generated key stays unique among them. */
+  otherKeys?: string[];
 }) {
   const q = question;
+  // A key still generated from the text follows the text; a key the researcher typed stays.
+  const changeText = (text: string) =>
+    onChange({
+      ...q,
+      text,
+      key: isGeneratedKey(q.key, q.text, otherKeys) ? questionKeyFromText(text, otherKeys) : q.key,
+    });
   const num = (v: string) => (v.trim() === '' || Number.isNaN(Number(v)) ? 0 : Number(v));
   return (
     <div className="space-y-4">
@@ -54,16 +65,13 @@ export function QuestionFields({
         </SelectField>
         <TextField
           label="Key (column name in exports)"
+          hint="Made from the question; type your own to keep it fixed."
           value={q.key}
           onChange={(e) => onChange({ ...q, key: e.target.value })}
           className="font-mono"
         />
       </div>
-      <TextAreaField
-        label="Question"
-        value={q.text}
-        onChange={(e) => onChange({ ...q, text: e.target.value })}
-      />
+      <TextAreaField label="Question" value={q.text} onChange={(e) => changeText(e.target.value)} />
       <TextField
         label="Help text (optional)"
         value={q.help}

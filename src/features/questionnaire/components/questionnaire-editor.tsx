@@ -27,6 +27,9 @@ const addable: PageKind[] = [
 ];
 const required = new Set<PageKind>(['consent', 'tasks', 'end']);
 
+const questionKeys = (pages: QuestionnairePage[]) =>
+  pages.flatMap((p) => (p.kind === 'question' || p.kind === 'screening' ? [p.question.key] : []));
+
 /** Where a new page goes: warm-ups before the tasks, checks after them, the rest before the end. */
 function insertPage(pages: QuestionnairePage[], page: QuestionnairePage): QuestionnairePage[] {
   const tasksAt = pages.findIndex((p) => p.kind === 'tasks');
@@ -112,7 +115,7 @@ export function QuestionnaireEditor({
               <Button
                 variant="secondary"
                 onClick={() => {
-                  const page = createPage(addKind, definition);
+                  const page = createPage(addKind, definition, questionKeys(draft.pages));
                   change(insertPage(draft.pages, page));
                   setSelectedId(page.id);
                 }}
@@ -145,6 +148,7 @@ export function QuestionnaireEditor({
                 key={selected.id}
                 page={selected}
                 definition={definition}
+                otherKeys={questionKeys(draft.pages.filter((p) => p.id !== selected.id))}
                 onChange={(p) => change(draft.pages.map((x) => (x.id === p.id ? p : x)))}
               />
             </fieldset>

@@ -1,9 +1,6 @@
 import { apiRequest } from '@/lib/api-client';
-import {
-  RESPONDENT_TOKEN_HEADER,
-  type AnswerReceipt,
-  type SubmitAnswerInput,
-} from '@shared/schemas/respondent';
+import { RESPONDENT_TOKEN_HEADER } from '@shared/respondent-token-header';
+import type { AnswerReceipt, SubmitAnswerInput } from '@shared/schemas/respondent';
 
 /** Sends one answer; safe to repeat with the same client id (the server stores it once). */
 export function submitAnswer(

@@ -1,8 +1,8 @@
 import type { ReactNode } from 'react';
 
 /**
- * The respondent's page: a thin progress bar on top, the study name, one screen, and a quiet
- * note about saving when answers are still on their way (never a blocking error).
+ * The respondent's page: a thin progress bar on top with, below it, a quiet note when answers
+ * wait for the connection (never a blocking error), the study's public title, one screen.
  */
 export function RespondLayout({
   progress,
@@ -20,18 +20,31 @@ export function RespondLayout({
   const pct = Math.round(Math.max(0, Math.min(1, progress)) * 100);
   return (
     <div className="flex min-h-dvh flex-col bg-canvas">
-      <div
-        role="progressbar"
-        aria-label="Progress through the survey"
-        aria-valuemin={0}
-        aria-valuemax={100}
-        aria-valuenow={pct}
-        className="sticky top-0 z-10 h-1.5 w-full bg-line"
-      >
+      {/* Progress and the offline notice stay at the top of the screen, clear of the Next bar. */}
+      <div className="sticky top-0 z-20">
         <div
-          className="h-full bg-primary transition-[width] duration-300"
-          style={{ width: `${pct}%` }}
-        />
+          role="progressbar"
+          aria-label="Progress through the survey"
+          aria-valuemin={0}
+          aria-valuemax={100}
+          aria-valuenow={pct}
+          className="h-1.5 w-full bg-line"
+        >
+          <div
+            className="h-full bg-primary transition-[width] duration-300"
+            style={{ width: `${pct}%` }}
+          />
+        </div>
+        <div aria-live="polite">
+          {pending > 0 && offline && (
+            <p className="border-b border-accent/50 bg-accent-soft px-4 py-2 text-sm text-ink">
+              <span className="mx-auto block max-w-2xl">
+                You seem to be offline. Your answers are kept on this device and will be sent when
+                the connection returns — you can keep going.
+              </span>
+            </p>
+          )}
+        </div>
       </div>
       <header className="px-4 pt-4 sm:pt-6">
         <p className="mx-auto max-w-2xl truncate text-sm text-ink-muted">{studyName ?? '\u00a0'}</p>
@@ -39,14 +52,6 @@ export function RespondLayout({
       <main id="main" className="flex-1 px-4 pb-8 pt-3 sm:pt-6">
         {children}
       </main>
-      <div aria-live="polite" className="px-4 pb-4">
-        {pending > 0 && offline && (
-          <p className="mx-auto max-w-2xl rounded-md border border-accent/50 bg-accent-soft px-3 py-2 text-sm text-ink">
-            You seem to be offline. Your answers are kept on this device and will be sent when the
-            connection returns — you can keep going.
-          </p>
-        )}
-      </div>
     </div>
   );
 }

@@ -1,4 +1,5 @@
 import { useEffect, useRef, type ReactNode } from 'react';
+import { markFirstScreen } from '../utils/first-screen-mark';
 
 /**
  * One screen of the questionnaire. The heading takes focus when the screen appears, so screen
@@ -18,6 +19,7 @@ export function ScreenFrame({
   const heading = useRef<HTMLHeadingElement>(null);
   useEffect(() => {
     heading.current?.focus();
+    markFirstScreen();
   }, []);
   return (
     <section className={wide ? 'mx-auto w-full max-w-5xl' : 'mx-auto w-full max-w-2xl'}>

@@ -15,7 +15,7 @@ import type {
   SurveyLinkState,
 } from '@shared/schemas/respondent';
 import { getSurveyLink } from '../api/get-survey-link';
-import { startSession } from '../api/start-session';
+import { startSessionOnce } from '../api/start-session';
 import { getSession } from '../api/get-session';
 import { submitAnswer } from '../api/submit-answer';
 import {
@@ -23,7 +23,6 @@ import {
   keepOutboxOf,
   newClientId,
   readOutbox,
-  readToken,
   removeAnswer,
   retryDelayMs,
   saveToken,
@@ -58,31 +57,11 @@ function isTransient(err: unknown): boolean {
   return err.status === 0 || err.status >= 500 || err.status === 429 || err.status === 408;
 }
 
-function linkParams(search: string): Record<string, string> {
-  const out: Record<string, string> = {};
-  new URLSearchParams(search).forEach((v, k) => {
-    if (Object.keys(out).length < 20) out[k.slice(0, 40)] = v.slice(0, 200);
-  });
-  return out;
-}
-
-/**
- * One start request per link at a time: React's development double effects (and quick
- * remounts) must not create a second respondent before the first token is stored.
- */
-const startsInFlight = new Map<string, Promise<RespondentSession>>();
-function startOnce(publicId: string, search: string): Promise<RespondentSession> {
-  const key = `${publicId}${search}`;
-  let pending = startsInFlight.get(key);
-  if (!pending) {
-    pending = startSession(publicId, {
-      sessionToken: readToken(publicId) ?? undefined,
-      params: linkParams(search),
-      device: navigator.userAgent.slice(0, 200),
-    }).finally(() => startsInFlight.delete(key));
-    startsInFlight.set(key, pending);
-  }
-  return pending;
+function unavailableReason(code: string): Unavailable {
+  if (code === 'survey_closed') return 'closed';
+  if (code === 'over_quota') return 'over_quota';
+  if (code === 'survey_not_open') return 'not_open';
+  return 'not_found';
 }
 
 export function useRespondent(publicId: string, search: string) {
@@ -180,33 +159,26 @@ export function useRespondent(publicId: string, search: string) {
     let cancelled = false;
     (async () => {
       try {
-        const link = await getSurveyLink(publicId, search);
-        if (cancelled) return;
-        if (link.state !== 'live') {
-          setState({
-            phase: 'unavailable',
-            reason: link.state,
-            studyName: link.studyName,
-            redirectUrl: link.redirectUrl,
-          });
-          return;
-        }
-        const session = await startOnce(publicId, search);
+        // Straight to the session: on a slow connection every round trip counts, and a survey
+        // that is not open answers this request with its reason anyway.
+        const session = await startSessionOnce(publicId, search);
         if (cancelled) return;
         adopt(session);
         void sendOutbox();
       } catch (err) {
         if (cancelled) return;
         if (err instanceof ApiError && err.status >= 400 && err.status < 500) {
-          const reason: Unavailable =
-            err.code === 'survey_closed'
-              ? 'closed'
-              : err.code === 'over_quota'
-                ? 'over_quota'
-                : err.code === 'survey_not_open'
-                  ? 'not_open'
-                  : 'not_found';
-          setState({ phase: 'unavailable', reason, studyName: null, redirectUrl: null });
+          const reason = unavailableReason(err.code);
+          // Closed or full surveys may send panel respondents back: the link info has the address.
+          const link =
+            reason === 'not_found' ? null : await getSurveyLink(publicId, search).catch(() => null);
+          if (cancelled) return;
+          setState({
+            phase: 'unavailable',
+            reason: link && link.state !== 'live' ? link.state : reason,
+            studyName: link?.studyName ?? null,
+            redirectUrl: link?.redirectUrl ?? null,
+          });
         } else
           setState({
             phase: 'error',

@@ -1,22 +1,29 @@
 import type { RunResult } from '@shared/schemas/run';
+import { describeConvergence } from '../utils/convergence';
 import { formatNumber, formatPercent } from '../utils/format';
 
 /** Fit statistics and what the run used, as a definition list. */
 export function FitStatistics({ results }: { results: RunResult }) {
   const items: [string, string][] = [
     ['Log-likelihood', formatNumber(results.loglik, 3)],
-    ['Log-likelihood at zero', formatNumber(results.loglikNull, 3)],
-    ['ρ²', formatNumber(results.rho2, 4)],
-    ['Adjusted ρ²', formatNumber(results.adjRho2, 4)],
+    ['Log-likelihood at zero, LL(0)', formatNumber(results.loglikNull, 3)],
+    ['LL with constants only, LL(C)', formatNumber(results.fit?.loglikConstants, 3)],
+    ['ρ² against LL(0)', formatNumber(results.rho2, 4)],
+    ['Adjusted ρ² against LL(0)', formatNumber(results.adjRho2, 4)],
+    ['ρ² against LL(C)', formatNumber(results.fit?.rho2Constants, 4)],
     ['AIC', formatNumber(results.aic, 2)],
-    ['BIC', formatNumber(results.bic, 2)],
+    [
+      `BIC (n = ${results.fit?.bicN ?? results.observations} ${results.fit?.bicBasis ?? 'choice tasks'})`,
+      formatNumber(results.bic, 2),
+    ],
+    ['CAIC (same n)', formatNumber(results.fit?.caic, 2)],
     ['Hit rate', formatPercent(results.hitRate)],
     ['Holdout hit rate', formatPercent(results.holdoutHitRate)],
     ['Respondents', String(results.respondents)],
     ['Choice tasks', String(results.observations)],
     ['Parameters', String(results.parameters)],
     ['Iterations', String(results.iterations)],
-    ['Converged', results.converged ? 'yes' : `no (${results.convergence.reason})`],
+    ['Convergence', describeConvergence(results)],
     ['Final gradient norm', results.convergence.gradientNorm.toExponential(2)],
     [
       'Draws',

@@ -4,6 +4,7 @@
  */
 import type { Run, RunResult } from '@shared/schemas/run';
 import { formatNumber, formatPercent } from '../utils/format';
+import { LikelihoodRatioTests } from './likelihood-ratio-tests';
 
 type Row = { label: string; value: (r: RunResult) => string };
 
@@ -13,10 +14,13 @@ const fitRows: Row[] = [
   { label: 'Parameters', value: (r) => String(r.parameters) },
   { label: 'Log-likelihood', value: (r) => formatNumber(r.loglik, 2) },
   { label: 'LL at zero', value: (r) => formatNumber(r.loglikNull, 2) },
+  { label: 'LL constants only', value: (r) => formatNumber(r.fit?.loglikConstants, 2) },
+  { label: 'Converged', value: (r) => (r.converged ? 'yes' : 'no') },
   { label: 'ρ²', value: (r) => formatNumber(r.rho2, 4) },
   { label: 'Adjusted ρ²', value: (r) => formatNumber(r.adjRho2, 4) },
   { label: 'AIC', value: (r) => formatNumber(r.aic, 1) },
   { label: 'BIC', value: (r) => formatNumber(r.bic, 1) },
+  { label: 'CAIC', value: (r) => formatNumber(r.fit?.caic, 1) },
   { label: 'Hit rate', value: (r) => formatPercent(r.hitRate) },
   { label: 'Holdout hit rate', value: (r) => formatPercent(r.holdoutHitRate) },
 ];
@@ -28,7 +32,10 @@ export function RunComparison({ runs }: { runs: Run[] }) {
   const rowOf = (results: RunResult, name: string) => {
     const [coef, part] = name.split('.');
     const dist = results.population.find((m) => m.name === coef)?.distribution;
-    return part === 'mean' && dist !== 'lognormal' && dist !== 'neg_lognormal' ? coef : name;
+    const row = part === 'mean' && dist !== 'lognormal' && dist !== 'neg_lognormal' ? coef : name;
+    // In WTP space the non-cost parameters are WTPs, not utility coefficients: own rows.
+    const cost = runs.find((r) => r.results === results)?.spec.cost;
+    return results.space === 'wtp' && coef !== cost ? `${row} (WTP space)` : row;
   };
   // Lognormal coefficients also get the population mean of β itself, comparable with an MNL.
   const lognormal = [
@@ -44,83 +51,89 @@ export function RunComparison({ runs }: { runs: Run[] }) {
     ...new Set(done.flatMap((r) => r.results.estimates.map((e) => rowOf(r.results, e.name)))),
   ];
   return (
-    <div className="overflow-x-auto rounded-lg border border-line bg-white">
-      <table className="w-full text-sm">
-        <caption className="sr-only">Comparison of the selected runs</caption>
-        <thead>
-          <tr className="border-b border-line text-left">
-            <th scope="col" className="sticky left-0 bg-white px-3 py-2 font-medium text-ink-soft">
-              Statistic
-            </th>
-            {done.map((r) => (
-              <th key={r.id} scope="col" className="px-3 py-2 text-right font-medium text-ink">
-                {r.name}
-              </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          {fitRows.map((row) => (
-            <tr key={row.label} className="border-b border-line/60">
+    <div className="space-y-4">
+      <div className="overflow-x-auto rounded-lg border border-line bg-white">
+        <table className="w-full text-sm">
+          <caption className="sr-only">Comparison of the selected runs</caption>
+          <thead>
+            <tr className="border-b border-line text-left">
               <th
-                scope="row"
-                className="sticky left-0 bg-white px-3 py-1.5 text-left font-normal text-ink-soft"
+                scope="col"
+                className="sticky left-0 bg-white px-3 py-2 font-medium text-ink-soft"
               >
-                {row.label}
+                Statistic
               </th>
               {done.map((r) => (
-                <td key={r.id} className="num px-3 py-1.5">
-                  {row.value(r.results)}
-                </td>
+                <th key={r.id} scope="col" className="px-3 py-2 text-right font-medium text-ink">
+                  {r.name}
+                </th>
               ))}
             </tr>
-          ))}
-          {names.map((name) => (
-            <tr key={name} className="border-b border-line/60 last:border-b-0">
-              <th
-                scope="row"
-                className="sticky left-0 bg-white px-3 py-1.5 text-left font-mono text-xs font-normal"
-              >
-                {name}
-              </th>
-              {done.map((r) => {
-                const e = r.results.estimates.find((x) => rowOf(r.results, x.name) === name);
-                return (
+          </thead>
+          <tbody>
+            {fitRows.map((row) => (
+              <tr key={row.label} className="border-b border-line/60">
+                <th
+                  scope="row"
+                  className="sticky left-0 bg-white px-3 py-1.5 text-left font-normal text-ink-soft"
+                >
+                  {row.label}
+                </th>
+                {done.map((r) => (
                   <td key={r.id} className="num px-3 py-1.5">
-                    {e ? formatNumber(e.estimate) : '—'}
-                    {e && (
-                      <span className="block text-xs text-ink-muted">({formatNumber(e.se)})</span>
-                    )}
+                    {row.value(r.results)}
                   </td>
-                );
-              })}
-            </tr>
-          ))}
-          {lognormal.map((coef) => (
-            <tr key={`${coef}-population`} className="border-b border-line/60 last:border-b-0">
-              <th
-                scope="row"
-                className="sticky left-0 bg-white px-3 py-1.5 text-left font-mono text-xs font-normal"
-              >
-                {coef}: mean of β
-              </th>
-              {done.map((r) => {
-                const m = r.results.population.find((x) => x.name === coef);
-                return (
-                  <td key={r.id} className="num px-3 py-1.5">
-                    {m ? formatNumber(m.mean) : '—'}
-                  </td>
-                );
-              })}
-            </tr>
-          ))}
-        </tbody>
-      </table>
-      <p className="px-3 py-2 text-xs text-ink-muted">
-        Standard errors in brackets. For lognormal coefficients, .mean and .sd are the mean and SD
-        of ln |β| (the “mean of β” row gives the coefficient’s own population mean); .sd rows are
-        spreads (SD for normals, half-width for triangular and uniform).
-      </p>
+                ))}
+              </tr>
+            ))}
+            {names.map((name) => (
+              <tr key={name} className="border-b border-line/60 last:border-b-0">
+                <th
+                  scope="row"
+                  className="sticky left-0 bg-white px-3 py-1.5 text-left font-mono text-xs font-normal"
+                >
+                  {name}
+                </th>
+                {done.map((r) => {
+                  const e = r.results.estimates.find((x) => rowOf(r.results, x.name) === name);
+                  return (
+                    <td key={r.id} className="num px-3 py-1.5">
+                      {e ? formatNumber(e.estimate) : '—'}
+                      {e && (
+                        <span className="block text-xs text-ink-muted">({formatNumber(e.se)})</span>
+                      )}
+                    </td>
+                  );
+                })}
+              </tr>
+            ))}
+            {lognormal.map((coef) => (
+              <tr key={`${coef}-population`} className="border-b border-line/60 last:border-b-0">
+                <th
+                  scope="row"
+                  className="sticky left-0 bg-white px-3 py-1.5 text-left font-mono text-xs font-normal"
+                >
+                  {coef}: mean of β
+                </th>
+                {done.map((r) => {
+                  const m = r.results.population.find((x) => x.name === coef);
+                  return (
+                    <td key={r.id} className="num px-3 py-1.5">
+                      {m ? formatNumber(m.mean) : '—'}
+                    </td>
+                  );
+                })}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+        <p className="px-3 py-2 text-xs text-ink-muted">
+          Standard errors in brackets. For lognormal coefficients, .mean and .sd are the mean and SD
+          of ln |β| (the “mean of β” row gives the coefficient’s own population mean); .sd rows are
+          spreads (SD for normals, half-width for triangular and uniform).
+        </p>
+      </div>
+      <LikelihoodRatioTests runs={done} />
     </div>
   );
 }

@@ -11,6 +11,7 @@ import { SelectField, TextField } from '@/components/ui/field';
 import { Alert } from '@/components/ui/feedback';
 import { ApiError } from '@/lib/api-client';
 import { useCreateRun } from '../api/create-run';
+import { EstimationSettingsFields } from './estimation-settings-fields';
 import {
   createRunFormResolver,
   getColumnDefault,
@@ -201,7 +202,7 @@ export function RunForm({
             label="Starting points"
             type="number"
             inputMode="numeric"
-            hint="1 = from the MNL only"
+            hint="The MNL start plus perturbed ones"
             error={errors.starts?.message}
             {...register('starts', { valueAsNumber: true })}
           />
@@ -216,6 +217,8 @@ export function RunForm({
           )}
         </fieldset>
       )}
+
+      <EstimationSettingsFields register={register} errors={errors} mixed={mixed} />
 
       <SelectField
         label="Respondents"

@@ -26,6 +26,13 @@ export interface RunFormValues {
   starts: number;
   /** '' = every included respondent. */
   filterId: string;
+  space: 'preference' | 'wtp';
+  covariance: 'robust' | 'classical' | 'bhhh';
+  tolerance: number;
+  gradientTolerance: number;
+  /** '' = the model's default. */
+  maxIterations: string;
+  simulationCheck: boolean;
 }
 
 export function getColumnDefault(column: ModelColumn, model: 'mnl' | 'mixed'): ColumnChoice {
@@ -44,8 +51,14 @@ export function getDefaultRunFormValues(options: RunOptions): RunFormValues {
     drawsCount: 500,
     seed: 1,
     profileDraws: 2000,
-    starts: 1,
+    starts: 3,
     filterId: '',
+    space: 'preference',
+    covariance: 'robust',
+    tolerance: 1e-7,
+    gradientTolerance: 6.055454452393343e-6,
+    maxIterations: '',
+    simulationCheck: false,
   };
 }
 
@@ -69,6 +82,16 @@ export function toCreateRunInput(values: RunFormValues, columns: ModelColumn[]):
       profileDraws: values.profileDraws,
       starts: values.starts,
       ...(cost ? { cost: cost.column.code } : {}),
+      space: values.space,
+      settings: {
+        covariance: values.covariance,
+        tolerance: values.tolerance,
+        gradientTolerance: values.gradientTolerance,
+        ...(values.maxIterations.trim() !== ''
+          ? { maxIterations: Number(values.maxIterations) }
+          : {}),
+        simulationCheck: mixed && values.simulationCheck,
+      },
     },
     respondents: { filterId: values.filterId || null },
   };
@@ -81,6 +104,11 @@ const fieldOfSpec: Record<string, keyof RunFormValues> = {
   'spec.profileDraws': 'profileDraws',
   'spec.starts': 'starts',
   'spec.correlated': 'correlated',
+  'spec.space': 'space',
+  'spec.settings.covariance': 'covariance',
+  'spec.settings.tolerance': 'tolerance',
+  'spec.settings.gradientTolerance': 'gradientTolerance',
+  'spec.settings.maxIterations': 'maxIterations',
   'spec.model': 'model',
   name: 'name',
   'respondents.filterId': 'filterId',

@@ -1,20 +1,16 @@
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { z } from 'zod';
-import type { Study } from '@shared/schemas/study';
+import type { z } from 'zod';
+import { studyDetailsSchema, type Study } from '@shared/schemas/study';
 import { TextAreaField, TextField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { ErrorText } from '@/components/ui/error-boundary';
 import { applyFieldErrors } from '@/lib/api-client';
 import { useUpdateStudy } from '../api/update-study';
 
-const detailsSchema = z.object({
-  name: z.string().trim().min(1, 'Give the study a name').max(160),
-  description: z.string().trim().max(2000),
-});
-type Values = z.infer<typeof detailsSchema>;
+type Values = z.infer<typeof studyDetailsSchema>;
 
-/** Rename a study and edit its internal description. */
+/** Rename a study, set the title respondents see, and edit the internal description. */
 export function StudyDetailsForm({
   teamId,
   study,
@@ -26,8 +22,12 @@ export function StudyDetailsForm({
 }) {
   const update = useUpdateStudy(teamId, study.id);
   const form = useForm<Values>({
-    resolver: zodResolver(detailsSchema),
-    defaultValues: { name: study.name, description: study.description },
+    resolver: zodResolver(studyDetailsSchema),
+    defaultValues: {
+      name: study.name,
+      publicTitle: study.publicTitle,
+      description: study.description,
+    },
   });
   const { errors, isSubmitting } = form.formState;
   const onSubmit = form.handleSubmit(async (values) => {
@@ -40,7 +40,18 @@ export function StudyDetailsForm({
   });
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Study details" className="max-w-xl space-y-3">
-      <TextField label="Study name" error={errors.name?.message} {...form.register('name')} />
+      <TextField
+        label="Study name"
+        hint="For your team; respondents never see it."
+        error={errors.name?.message}
+        {...form.register('name')}
+      />
+      <TextField
+        label="Public title"
+        hint="Respondents see this on the survey and in invitation e-mails."
+        error={errors.publicTitle?.message}
+        {...form.register('publicTitle')}
+      />
       <TextAreaField
         label="Description"
         hint="For your team; respondents do not see it."

@@ -91,6 +91,25 @@ describe('RunForm', () => {
     });
   });
 
+  it('sends the estimation settings: WTP space, the covariance choice and an iteration limit', async () => {
+    const { requests } = fakeFetch({ status: 201, body: run });
+    renderWithQuery(<RunForm teamId="t" studyId="s" options={options(true)} />);
+    const user = userEvent.setup();
+    await user.click(screen.getByText('Estimation settings'));
+    await user.selectOptions(screen.getByLabelText('Space'), 'wtp');
+    await user.selectOptions(screen.getByLabelText('Covariance for intervals'), 'classical');
+    await user.type(screen.getByLabelText('Iteration limit per start'), '500');
+    await user.click(screen.getByRole('button', { name: 'Start run' }));
+    await waitFor(() => expect(requests).toHaveLength(1));
+    expect(requests[0].body).toMatchObject({
+      spec: {
+        space: 'wtp',
+        starts: 3,
+        settings: { covariance: 'classical', maxIterations: 500, tolerance: 1e-7 },
+      },
+    });
+  });
+
   it('when the draws are too few, shows the field error and sends nothing', async () => {
     const { requests } = fakeFetch();
     renderWithQuery(<RunForm teamId="t" studyId="s" options={options(true)} />);

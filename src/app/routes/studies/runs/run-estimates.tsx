@@ -21,6 +21,11 @@ import { FitStatistics } from '@/features/runs/components/fit-statistics';
 import { WtpTable } from '@/features/runs/components/wtp-table';
 import { RandomTastes } from '@/features/runs/components/random-tastes';
 import { formatDateTime } from '@/features/runs/utils/format';
+import { ConvergencePanel } from '@/features/runs/components/convergence-panel';
+import { RunWarnings } from '@/features/runs/components/run-warnings';
+import { DerivedTable } from '@/features/runs/components/derived-table';
+import { CovarianceDownloads } from '@/features/runs/components/covariance-downloads';
+import { exportsPath } from '@/features/exports/api/get-export-manifest';
 
 export const createRunLoader =
   (queryClient: QueryClient) =>
@@ -91,6 +96,10 @@ export function Component() {
       {results && (
         <>
           <RunCautions />
+          <RunWarnings results={results} />
+          <Card title="Convergence">
+            <ConvergencePanel results={results} />
+          </Card>
           <Card title="Parameters">
             <PanelErrorBoundary>
               <ParameterTable results={results} />
@@ -106,6 +115,21 @@ export function Component() {
               </PanelErrorBoundary>
             </Card>
           </div>
+          {(results.derived ?? []).length > 0 && (
+            <Card title="Derived quantities">
+              <PanelErrorBoundary>
+                <DerivedTable results={results} />
+              </PanelErrorBoundary>
+            </Card>
+          )}
+          <Card title="Covariance of the estimates">
+            <CovarianceDownloads
+              results={results}
+              hrefOf={(kind) =>
+                `${exportsPath(teamId, studyId)}/covariance.csv?runId=${encodeURIComponent(run.id)}&kind=${kind}`
+              }
+            />
+          </Card>
           {results.population.some((m) => m.distribution !== 'fixed') && (
             <Card title="How tastes vary across respondents">
               <PanelErrorBoundary>

@@ -41,6 +41,17 @@ export function Component() {
       disabledReason: noProfiles,
     },
     {
+      key: 'covariance',
+      title: 'Covariance of the estimates',
+      description:
+        'The full covariance matrix of the parameter estimates, robust (clustered by respondent) or classical, for your own tests and simulations.',
+      links: [
+        { label: 'Robust CSV', href: `${base}/covariance.csv${q}&kind=robust` },
+        { label: 'Classical CSV', href: `${base}/covariance.csv${q}&kind=classical` },
+      ],
+      disabledReason: noRun,
+    },
+    {
       key: 'report',
       title: 'Run report',
       description: 'Parameters, fit, WTP, population distributions and cautions, ready to print.',

@@ -1,0 +1,92 @@
+/**
+ * The convergence verdict of a run: status, Newton decrement and largest relative gradient
+ * against their tolerances, how many starting points reached the best log-likelihood, and the
+ * gradient per parameter at the estimate (in the user's units and relative).
+ */
+import type { RunResult } from '@shared/schemas/run';
+import { Badge } from '@/components/ui/badge';
+import { describeConvergence } from '../utils/convergence';
+import { formatNumber } from '../utils/format';
+
+const exp = (x: number | null | undefined) =>
+  x === null || x === undefined || !Number.isFinite(x) ? '—' : x.toExponential(2);
+
+export function ConvergencePanel({ results }: { results: RunResult }) {
+  const d = results.convergenceDetail;
+  const ok = results.converged;
+  return (
+    <div className="space-y-3 text-sm">
+      <p className="flex flex-wrap items-center gap-2">
+        <Badge tone={ok ? 'primary' : 'accent'}>{describeConvergence(results)}</Badge>
+        <span className="text-ink-soft">
+          {ok
+            ? 'The gradient test passed: the estimate is a maximum of the log-likelihood.'
+            : 'The gradient test did not pass: the estimates are not at a maximum. Do not report them.'}
+        </span>
+      </p>
+      {d && (
+        <dl className="grid grid-cols-1 gap-x-6 sm:grid-cols-2">
+          {(
+            [
+              ['Newton decrement g′A⁻¹g', `${exp(d.decrement)} (tolerance ${exp(d.tolerance)})`],
+              [
+                'Largest relative gradient',
+                `${exp(d.maxRelativeGradient)} (tolerance ${exp(d.gradientTolerance)})`,
+              ],
+              ['Starting points at the best LL', `${d.startsAtBest} of ${d.starts}`],
+              ['Iterations (limit per start)', `${results.iterations} (${d.maxIterations})`],
+              ['Newton steps after the optimiser', String(d.newtonSteps)],
+              ['Gradient check (analytic vs numeric)', exp(d.gradientCheck)],
+            ] as const
+          ).map(([k, v]) => (
+            <div key={k} className="flex justify-between gap-4 border-b border-line/60 py-1.5">
+              <dt className="text-ink-soft">{k}</dt>
+              <dd className="num text-ink">{v}</dd>
+            </div>
+          ))}
+        </dl>
+      )}
+      {d && (
+        <details open={!ok}>
+          <summary className="cursor-pointer font-medium text-primary">
+            Gradient at the estimate
+          </summary>
+          <div className="mt-2 overflow-x-auto">
+            <table className="w-full text-sm">
+              <caption className="sr-only">Gradient of the log-likelihood at the estimate</caption>
+              <thead>
+                <tr className="border-b border-line text-xs text-ink-soft">
+                  <th scope="col" className="px-2 py-1 text-left font-medium">
+                    Parameter
+                  </th>
+                  <th scope="col" className="px-2 py-1 text-right font-medium">
+                    ∂LL/∂θ
+                  </th>
+                  <th scope="col" className="px-2 py-1 text-right font-medium">
+                    Relative
+                  </th>
+                </tr>
+              </thead>
+              <tbody>
+                {d.gradient.map((g) => (
+                  <tr key={g.name} className="border-b border-line/60 last:border-b-0">
+                    <th scope="row" className="px-2 py-1 text-left font-mono text-xs font-normal">
+                      {g.name}
+                    </th>
+                    <td className="num px-2 py-1">{exp(g.value)}</td>
+                    <td className="num px-2 py-1">{exp(g.relative)}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+            <p className="mt-1 text-xs text-ink-muted">
+              Relative gradient: |∂LL/∂θ|·max(|θ|, 1)/max(|LL|, 1) on internally rescaled
+              parameters, so it does not depend on the units of the data. Final log-likelihood{' '}
+              {formatNumber(results.loglik, 4)}.
+            </p>
+          </div>
+        </details>
+      )}
+    </div>
+  );
+}

@@ -32,7 +32,7 @@ async function liveStudy(settings: object = {}) {
 
 async function newRespondent(studyId: string) {
   const { respondent, sessionToken } = await createRespondent(t.deps.db, { studyId });
-  const study = { id: studyId, name: 'x', status: 'live', settings: {} };
+  const study = { id: studyId, publicTitle: 'x', status: 'live', settings: {} };
   const session = await buildSession(t.deps.db, study, respondent, { isNew: true });
   return { sessionToken, session, respondent };
 }

@@ -1,13 +1,16 @@
 /**
  * Command-line estimation: npm run estimate -- --data choices.csv --spec spec.json [--out result.json] [--threads 2]
  * Reads long-format choice data (respondent,task,alt,chosen[,holdout] + numeric attribute
- * columns) and a specification validated by shared/schemas/estimation-spec.ts, runs the MNL
- * or the panel mixed logit with taste profiles and WTP, and writes the result JSON (to
- * stdout without --out). The result holds the convergence verdict with the gradient, the
- * warnings, and the full classical and robust covariance matrices of the estimates. Progress,
- * the verdict and the warnings also go to stderr.
+ * columns, and for a latent class model with `membership` the named respondent-level columns)
+ * and a specification validated by shared/schemas/estimation-spec.ts, runs the MNL, the panel
+ * mixed logit, hierarchical Bayes (model "hb") or the latent class logit (model "latent_class")
+ * with individual estimates and WTP, and writes the result JSON (to stdout without --out). The
+ * result holds the convergence verdict with the gradient (HB: the sampler's diagnostics), the
+ * warnings, and for MNL and mixed logit the full classical and robust covariance matrices.
+ * Progress, the verdict and the warnings also go to stderr.
  * Exit codes: 0 done; 2 bad arguments, files, data or specification (the message names the
- * line or field); 3 the model cannot be estimated from the data (not identified); 1 other.
+ * line or field); 3 the model cannot be estimated from the data (not identified, a diverging
+ * chain, an empty class); 1 other.
  */
 import { readFileSync, writeFileSync } from 'node:fs';
 import { parseArgs } from 'node:util';
@@ -16,11 +19,13 @@ import { estimationSpecSchema } from '../shared/schemas/estimation-spec';
 import { buildChoiceData } from '../server/engine/estimation/build-choice-data';
 import { ChoiceDataError } from '../server/engine/estimation/choice-data';
 import {
+  EstimationFailedError,
   EstimationOptionsError,
   NonIdentifiedError,
 } from '../server/engine/estimation/estimation-errors';
 import { parseChoiceCsv } from '../server/engine/estimation/parse-choice-csv';
 import { getSpecColumns, runEstimation } from '../server/engine/estimation/run-estimation';
+import { extractRespondentCovariates } from '../server/engine/latent-class/respondent-covariates';
 
 class UsageError extends Error {}
 
@@ -64,18 +69,41 @@ async function main(): Promise<void> {
     throw new UsageError(`the specification is not valid JSON: ${(error as Error).message}`);
   }
   const spec = estimationSpecSchema.parse(specJson);
+  const columns = getSpecColumns(spec);
+  const membershipColumns = spec.model === 'latent_class' ? (spec.membership ?? []) : [];
+  const rows = parseChoiceCsv(readText(args.data, 'data'), [...columns, ...membershipColumns]);
   const built = buildChoiceData(
-    getSpecColumns(spec),
-    parseChoiceCsv(readText(args.data, 'data'), getSpecColumns(spec)),
+    columns,
+    rows.map((r) => ({ ...r, values: Array.prototype.slice.call(r.values, 0, columns.length) })),
   );
+  const say = (text: string) => {
+    if (!args.quiet) process.stderr.write(`${text}\n`);
+  };
+  let lastReport = 0;
   const result = await runEstimation(spec, built, {
     threads,
-    onProgress: args.quiet
-      ? undefined
-      : (p) =>
-          process.stderr.write(
-            `iteration ${p.iteration}: LL ${p.loglik.toFixed(4)}, |gradient| ${p.gradientNorm.toExponential(2)}\n`,
-          ),
+    membership:
+      membershipColumns.length > 0
+        ? extractRespondentCovariates(
+            rows,
+            membershipColumns,
+            columns.length,
+            built.data.respondentIds,
+          )
+        : null,
+    onProgress: (p) =>
+      say(
+        `iteration ${p.iteration}: LL ${p.loglik.toFixed(4)}, |gradient| ${p.gradientNorm.toExponential(2)}`,
+      ),
+    onSamplerProgress: (p) => {
+      if (Date.now() - lastReport < 2000) return;
+      lastReport = Date.now();
+      say(
+        `sampling: iteration ${p.iteration} of ${p.iterations} (chains at ${p.chains.join(', ')})`,
+      );
+    },
+    onClassProgress: (p) =>
+      say(`latent class: ${p.classes} classes, start ${p.start} of ${p.starts}`),
   });
   const text = `${JSON.stringify(result, null, 2)}\n`;
   if (args.out) writeFileSync(args.out, text);
@@ -115,7 +143,7 @@ main().catch((error: unknown) => {
   ) {
     process.stderr.write(`error: ${error.message}\n`);
     process.exitCode = 2;
-  } else if (error instanceof NonIdentifiedError) {
+  } else if (error instanceof NonIdentifiedError || error instanceof EstimationFailedError) {
     process.stderr.write(`error: ${error.message}\n`);
     process.exitCode = 3;
   } else {

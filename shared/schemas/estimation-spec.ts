@@ -13,6 +13,12 @@ import {
   intervalEstimateSchema,
   simulationErrorSchema,
 } from './estimation-inference';
+import {
+  familyProfileFields,
+  familyResultFields,
+  familySpecFields,
+  refineFamilySpec,
+} from './estimation-families';
 
 export const coefficientDistributionSchema = z.enum([
   'fixed',
@@ -42,7 +48,7 @@ export const coefficientSpecSchema = z.object({
 
 export const estimationSpecSchema = z
   .object({
-    model: z.enum(['mnl', 'mixed']),
+    model: z.enum(['mnl', 'mixed', 'hb', 'latent_class']),
     coefficients: z.array(coefficientSpecSchema).min(1, 'List at least one coefficient').max(100),
     correlated: z.boolean().default(false),
     draws: z
@@ -61,12 +67,13 @@ export const estimationSpecSchema = z
     profileDraws: z.number().int().min(10).max(100_000).default(2000),
     /** Name of the cost coefficient for WTP; omit for no WTP. */
     cost: z.string().trim().min(1).optional(),
-    /** Starting points of the mixed logit (1 = the MNL-based start only; default 3). */
+    /** Starting points: mixed logit (1 = the MNL-based start only; default 3), latent class EM (default 10). */
     starts: z.number().int().min(1).max(20).optional(),
     /** Preference space, or WTP space (Train & Weeks 2005; needs `cost`). */
     space: z.enum(['preference', 'wtp']).default('preference'),
     /** Optimiser tolerances, iteration limit, covariance choice, simulation-noise check. */
     settings: estimationSettingsSchema.prefault({}),
+    ...familySpecFields,
   })
   .superRefine((spec, ctx) => {
     const names = spec.coefficients.map((c) => c.name);
@@ -95,7 +102,7 @@ export const estimationSpecSchema = z
           path: ['correlated'],
           message: 'Correlation needs model "mixed"',
         });
-    } else if (random.length === 0) {
+    } else if (spec.model === 'mixed' && random.length === 0) {
       ctx.addIssue({
         code: 'custom',
         path: ['coefficients'],
@@ -103,6 +110,7 @@ export const estimationSpecSchema = z
       });
     }
     if (
+      spec.model === 'mixed' &&
       spec.correlated &&
       spec.coefficients.filter((c) => c.distribution === 'normal').length < 2
     ) {
@@ -112,6 +120,7 @@ export const estimationSpecSchema = z
         message: 'Correlation needs at least two normal coefficients',
       });
     }
+    refineFamilySpec(spec, ctx);
     if (spec.cost !== undefined && !names.includes(spec.cost)) {
       ctx.addIssue({
         code: 'custom',
@@ -151,7 +160,10 @@ export const tasteProfileSchema = z.object({
   mean: z.record(z.string(), z.number()),
   sd: z.record(z.string(), z.number()),
   wtp: z.record(z.string(), z.number()).optional(),
+  /** Mixed logit: Kish's effective number of draws; HB: the smallest ESS of the respondent's
+   * coefficients; latent class: the effective number of classes 1/Σ h². */
   effectiveDraws: z.number(),
+  ...familyProfileFields,
 });
 
 /** Population WTP of one attribute: `estimate`… are the MEAN WTP; `median` its median. */
@@ -168,7 +180,8 @@ export const wtpEstimateSchema = z.object({
 
 export const populationMomentSchema = z.object({
   name: z.string(),
-  distribution: coefficientDistributionSchema,
+  /** "discrete": the latent class model's mass points (shares × class coefficients). */
+  distribution: z.union([coefficientDistributionSchema, z.literal('discrete')]),
   mean: z.number(),
   sd: z.number(),
   location: z.number(),
@@ -177,7 +190,7 @@ export const populationMomentSchema = z.object({
 
 /** The JSON a run produces (numbers that cannot be computed are null). */
 export const estimationResultSchema = z.object({
-  model: z.enum(['mnl', 'mixed']),
+  model: z.enum(['mnl', 'mixed', 'hb', 'latent_class']),
   loglik: z.number(),
   loglikNull: z.number(),
   respondents: z.number().int(),
@@ -187,7 +200,8 @@ export const estimationResultSchema = z.object({
   converged: z.boolean(),
   convergence: z.object({
     reason: z.string(),
-    gradientNorm: z.number(),
+    /** Null for the HB sampler, which has no gradient to drive to zero. */
+    gradientNorm: z.number().nullable(),
     relativeChange: z.number().nullable(),
   }),
   rho2: z.number(),
@@ -217,5 +231,6 @@ export const estimationResultSchema = z.object({
   /** Why WTP (population mean/median and per respondent) is not given, when it is not. */
   wtpWithheld: z.string().nullable().optional(),
   simulationError: simulationErrorSchema.nullable().optional(),
+  ...familyResultFields,
 });
 export type EstimationResult = z.infer<typeof estimationResultSchema>;

@@ -12,6 +12,7 @@ import { choleskyDecompose } from '../linalg/cholesky';
 import { EstimationOptionsError } from './estimation-errors';
 import type { MixedLogitLayout } from './mixed-logit-layout';
 import { getPopulationMeanJacobian } from './population-moments';
+import { quantile } from './sample-quantile';
 
 export interface WtpOptions {
   /** Name of the cost coefficient. */
@@ -111,12 +112,4 @@ function krinskyRobb(
     for (let k = 0; k < K; k++) out[k][d] = -means[k] / means[c];
   }
   return out;
-}
-
-/** Sample quantile, linear interpolation between order statistics (Hyndman & Fan 1996, type 7). */
-function quantile(sorted: Float64Array, q: number): number {
-  const h = (sorted.length - 1) * q;
-  const lo = Math.floor(h);
-  const hi = Math.min(lo + 1, sorted.length - 1);
-  return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
 }

@@ -30,3 +30,12 @@ export class EstimationCancelledError extends Error {
     this.name = 'EstimationCancelledError';
   }
 }
+
+/** A sampler or EM run reached a state with no valid estimate (a diverging chain, an empty class). */
+export class EstimationFailedError extends Error {
+  readonly code = 'estimation_failed' as const;
+  constructor(message: string) {
+    super(message);
+    this.name = 'EstimationFailedError';
+  }
+}

@@ -3,7 +3,9 @@
  * MNL or panel mixed logit, in preference or WTP space; then, from the covariance the run
  * chose, population mean and median WTP (or the reason it is withheld), derived quantities,
  * LL(C), the optional simulation-noise check and, for the mixed logit, every respondent's taste
- * profile. Returns the plain result object the CLI writes and the job runner stores.
+ * profile. Hierarchical Bayes and latent class runs go to their own files (run-hb-estimation.ts,
+ * run-latent-class-estimation.ts). Returns the plain result object the CLI writes and the job
+ * runner stores.
  */
 import type { EstimationResult, EstimationSpec } from '../../../shared/schemas/estimation-spec';
 import type { BuiltChoiceData } from './build-choice-data';
@@ -19,9 +21,14 @@ import { selectColumns } from './select-columns';
 import { checkSimulationError } from './simulation-error';
 import { computeTasteProfiles } from './taste-profiles';
 import { toWtpSpace } from './wtp-space-mnl';
+import { runHbEstimation, type RunHbOptions } from './run-hb-estimation';
+import {
+  runLatentClassEstimation,
+  type RunLatentClassOptions,
+} from './run-latent-class-estimation';
 
-export interface RunEstimationOptions extends MixedLogitHooks {
-  /** Worker threads for the mixed logit (default 1). */
+export interface RunEstimationOptions extends MixedLogitHooks, RunHbOptions, RunLatentClassOptions {
+  /** Worker threads for the mixed logit, the HB chains and the latent class fit (default 1). */
   threads?: number;
 }
 
@@ -43,6 +50,13 @@ export async function runEstimation(
     distribution: c.distribution,
   }));
   const { data, holdout } = built;
+  if (spec.model === 'hb' || spec.model === 'latent_class') {
+    const result =
+      spec.model === 'hb'
+        ? await runHbEstimation(spec, built, options)
+        : await runLatentClassEstimation(spec, built, options);
+    return { ...result, elapsedSeconds: (performance.now() - started) / 1000 };
+  }
   const settings = spec.settings;
   const wtpCost = spec.space === 'wtp' ? (spec.cost ?? null) : null;
   const tolerances = {

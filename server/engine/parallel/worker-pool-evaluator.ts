@@ -3,18 +3,14 @@
  * contiguous slices of about equal work (number of alternative rows); each slice lives on
  * its own single-thread pool, receives the data once as SharedArrayBuffer views and makes its
  * own draws, and per evaluation gets θ and returns its partial LL and gradient, summed here.
- *
- * TypeScript in workers: the worker file is .ts; workers start with `--import <tsx loader>`
- * (resolved from this package's node_modules), which works whether the parent runs under
- * tsx, vitest or plain node.
+ * Worker files are TypeScript (see ts-worker-pool.ts).
  */
-import { createRequire } from 'node:module';
-import { fileURLToPath, pathToFileURL } from 'node:url';
-import { Piscina } from 'piscina';
+import { fileURLToPath } from 'node:url';
 import type { DrawsSpec } from '../draws/uniform-draws';
 import type { ChoiceData } from '../estimation/choice-data';
 import type { LoglikEvaluator } from '../estimation/loglik-evaluator';
 import type { MixedLogitLayout } from '../estimation/mixed-logit-layout';
+import { createTsWorkerPool, toShared } from './ts-worker-pool';
 import type { SliceResult } from './worker-messages';
 
 const WORKER_FILE = fileURLToPath(new URL('./mixed-logit-worker.ts', import.meta.url));
@@ -40,15 +36,6 @@ export function splitRespondents(
   return slices;
 }
 
-function toShared<T extends Int32Array | Float64Array>(array: T): T {
-  const buffer = new SharedArrayBuffer(array.byteLength);
-  const copy = (
-    array instanceof Int32Array ? new Int32Array(buffer) : new Float64Array(buffer)
-  ) as T;
-  copy.set(array);
-  return copy;
-}
-
 /** Starts `threads` worker threads holding the data and draws; remember to close() it. */
 export async function createWorkerPoolEvaluator(
   data: ChoiceData,
@@ -56,7 +43,6 @@ export async function createWorkerPoolEvaluator(
   draws: Omit<DrawsSpec, 'dimensions'>,
   threads: number,
 ): Promise<LoglikEvaluator> {
-  const tsxLoader = pathToFileURL(createRequire(import.meta.url).resolve('tsx')).href;
   const shared = {
     taskStart: toShared(data.taskStart),
     diffStart: toShared(data.diffStart),
@@ -65,17 +51,7 @@ export async function createWorkerPoolEvaluator(
   };
   const key = `slice-${process.pid}-${++keyCounter}`;
   const slices = splitRespondents(data, threads);
-  const pools = slices.map(
-    () =>
-      new Piscina({
-        filename: WORKER_FILE,
-        name: 'handleSliceMessage',
-        execArgv: ['--import', tsxLoader],
-        minThreads: 1,
-        maxThreads: 1,
-        idleTimeout: 60_000,
-      }),
-  );
+  const pools = slices.map(() => createTsWorkerPool(WORKER_FILE, 'handleSliceMessage', 1));
   await Promise.all(
     pools.map((pool, i) =>
       pool.run({

@@ -4,14 +4,13 @@
  */
 import type { RunContext } from '../tastes/run-context';
 import { tasteCautions } from '../../../shared/schemas/exports';
+import { MODEL_LABELS } from '../../../shared/schemas/estimation-families';
 
 export type SummaryLine = [label: string, value: string | number];
 
-const modelNames = { mnl: 'Multinomial logit (MNL)', mixed: 'Panel mixed logit' } as const;
-
 export function describeModel(ctx: RunContext): string {
   const coefficients = ctx.spec.coefficients.map((c) => `${c.name} (${c.distribution})`).join(', ');
-  return `${modelNames[ctx.spec.model]}: ${coefficients}`;
+  return `${MODEL_LABELS[ctx.spec.model]}: ${coefficients}`;
 }
 
 export function getRunSummary(ctx: RunContext, exportedAt: Date): SummaryLine[] {

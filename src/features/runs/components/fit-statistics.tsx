@@ -24,7 +24,12 @@ export function FitStatistics({ results }: { results: RunResult }) {
     ['Parameters', String(results.parameters)],
     ['Iterations', String(results.iterations)],
     ['Convergence', describeConvergence(results)],
-    ['Final gradient norm', results.convergence.gradientNorm.toExponential(2)],
+    [
+      'Final gradient norm',
+      results.convergence.gradientNorm === null
+        ? '—'
+        : results.convergence.gradientNorm.toExponential(2),
+    ],
     [
       'Draws',
       results.draws

@@ -1,0 +1,140 @@
+/**
+ * Fit of an HB run in the terms of the other models, so the comparison view can set them side by
+ * side: the simulated panel log-likelihood at the posterior means (μ̄, Σ̄, fixed) — the mixed
+ * logit's objective (Train 2009, eq. 6.2) at the Bayes estimates, which by Bernstein-von Mises is
+ * close to the mixed logit's maximum in large samples (Train 2009, §12.2) — with population-level
+ * hit rates from the same simulated probabilities, and individual-level hit rates from each
+ * respondent's posterior mean coefficients (holdout tasks matched by respondent).
+ */
+import { inverseNormal } from '../draws/inverse-normal';
+import { fillUniformDraws, getMaxDrawDimensions } from '../draws/uniform-draws';
+import { choleskyDecompose } from '../linalg/cholesky';
+import type { ChoiceData } from '../estimation/choice-data';
+import { computeTaskProbabilities, scoreTaskHit } from '../estimation/score-task-hit';
+import type { HbLayout } from './check-hb-options';
+import { toBeta } from './individual-step';
+import { computeRespondentLoglik, getMaxRespondentRows } from './respondent-logit-loglik';
+
+export interface HbPopulationFit {
+  loglik: number;
+  hitRate: number;
+  holdoutHitRate: number | null;
+}
+
+const DRAWS = 500;
+
+/** Simulated LL and hit rates at (μ̄, Σ̄, fixed) with DRAWS scrambled Halton draws per respondent. */
+export function computeHbPopulationFit(
+  data: ChoiceData,
+  holdout: ChoiceData | null,
+  layout: HbLayout,
+  population: { mu: Float64Array; sigma: Float64Array; fixed: Float64Array },
+  seed: number,
+): HbPopulationFit {
+  const fit = simulate(data, layout, population, seed);
+  return {
+    loglik: fit.loglik,
+    hitRate: fit.hitRate,
+    holdoutHitRate: holdout ? simulate(holdout, layout, population, seed).hitRate : null,
+  };
+}
+
+function simulate(
+  data: ChoiceData,
+  layout: HbLayout,
+  population: { mu: Float64Array; sigma: Float64Array; fixed: Float64Array },
+  seed: number,
+): { loglik: number; hitRate: number } {
+  const { K, random, fixed, transform } = layout;
+  const Kr = random.length;
+  const N = data.taskStart.length - 1;
+  const L = new Float64Array(Kr * Kr);
+  if (!choleskyDecompose(population.sigma, Kr, L)) return { loglik: NaN, hitRate: NaN };
+  const type = Kr <= getMaxDrawDimensions('halton') ? 'halton' : 'mlhs';
+  const u = new Float64Array(Kr * DRAWS);
+  const betas = new Float64Array(DRAWS * K);
+  const z = new Float64Array(Kr);
+  const ll = new Float64Array(DRAWS);
+  const work = new Float64Array(getMaxRespondentRows(data));
+  let maxRows = 1;
+  for (let t = 0; t + 1 < data.diffStart.length; t++)
+    maxRows = Math.max(maxRows, data.diffStart[t + 1] - data.diffStart[t]);
+  const others = new Float64Array(maxRows);
+  const mean = new Float64Array(maxRows + 1);
+  let total = 0;
+  let hits = 0;
+  for (let n = 0; n < N; n++) {
+    fillUniformDraws({ type, count: DRAWS, dimensions: Kr, seed }, n, 1, u);
+    for (let r = 0; r < DRAWS; r++) {
+      const o = r * K;
+      for (let f = 0; f < fixed.length; f++) betas[o + fixed[f]] = population.fixed[f];
+      for (let j = 0; j < Kr; j++) z[j] = inverseNormal(u[j * DRAWS + r]);
+      for (let i = 0; i < Kr; i++) {
+        let a = population.mu[i];
+        for (let j = 0; j <= i; j++) a += L[i * Kr + j] * z[j];
+        betas[o + random[i]] = toBeta(transform[random[i]], a);
+      }
+      ll[r] = computeRespondentLoglik(
+        data.diffs,
+        data.diffStart,
+        data.taskStart,
+        n,
+        K,
+        betas,
+        o,
+        work,
+      );
+    }
+    let max = -Infinity;
+    for (let r = 0; r < DRAWS; r++) max = Math.max(max, ll[r]);
+    let sum = 0;
+    for (let r = 0; r < DRAWS; r++) sum += Math.exp(ll[r] - max);
+    total += max + Math.log(sum / DRAWS);
+    for (let t = data.taskStart[n]; t < data.taskStart[n + 1]; t++) {
+      const rows = data.diffStart[t + 1] - data.diffStart[t];
+      mean.fill(0);
+      for (let r = 0; r < DRAWS; r++) {
+        mean[maxRows] += computeTaskProbabilities(
+          data.diffs,
+          data.diffStart[t],
+          rows,
+          K,
+          betas.subarray(r * K, (r + 1) * K),
+          others,
+        );
+        for (let j = 0; j < rows; j++) mean[j] += others[j];
+      }
+      hits += scoreTaskHit(mean, rows, mean[maxRows]);
+    }
+  }
+  const T = data.diffStart.length - 1;
+  return { loglik: total, hitRate: T > 0 ? hits / T : NaN };
+}
+
+/** Hit rates of each respondent's own coefficients (N × K means, rows in `respondentIds` order). */
+export function computeIndividualHitRate(
+  data: ChoiceData,
+  respondentIds: readonly string[],
+  means: Float64Array,
+  K: number,
+): number {
+  const row = new Map(respondentIds.map((id, n) => [id, n]));
+  let maxRows = 1;
+  for (let t = 0; t + 1 < data.diffStart.length; t++)
+    maxRows = Math.max(maxRows, data.diffStart[t + 1] - data.diffStart[t]);
+  const others = new Float64Array(maxRows);
+  let hits = 0;
+  let tasks = 0;
+  data.respondentIds.forEach((id, n) => {
+    const m = row.get(id);
+    if (m === undefined) return;
+    const beta = means.subarray(m * K, (m + 1) * K);
+    for (let t = data.taskStart[n]; t < data.taskStart[n + 1]; t++) {
+      const rows = data.diffStart[t + 1] - data.diffStart[t];
+      const chosen = computeTaskProbabilities(data.diffs, data.diffStart[t], rows, K, beta, others);
+      hits += scoreTaskHit(others, rows, chosen);
+      tasks++;
+    }
+  });
+  return tasks > 0 ? hits / tasks : NaN;
+}

@@ -1,0 +1,46 @@
+/**
+ * Piscina pools whose worker files are TypeScript: workers start with `--import <tsx loader>`
+ * (resolved from this package's node_modules), which works whether the parent runs under tsx,
+ * vitest or plain node; plus the SharedArrayBuffer copies through which workers read choice
+ * data without copying it per task.
+ */
+import { createRequire } from 'node:module';
+import { pathToFileURL } from 'node:url';
+import { Piscina } from 'piscina';
+import type { ChoiceData } from '../estimation/choice-data';
+
+/** A pool of `threads` worker threads running the export `name` of `filename`. */
+export function createTsWorkerPool(filename: string, name: string, threads: number): Piscina {
+  const tsxLoader = pathToFileURL(createRequire(import.meta.url).resolve('tsx')).href;
+  return new Piscina({
+    filename,
+    name,
+    execArgv: ['--import', tsxLoader],
+    minThreads: threads,
+    maxThreads: threads,
+    idleTimeout: 60_000,
+  });
+}
+
+/** A copy of a typed array in a SharedArrayBuffer. */
+export function toShared<T extends Int32Array | Float64Array>(array: T): T {
+  const buffer = new SharedArrayBuffer(array.byteLength);
+  const copy = (
+    array instanceof Int32Array ? new Int32Array(buffer) : new Float64Array(buffer)
+  ) as T;
+  copy.set(array);
+  return copy;
+}
+
+/** Choice data whose typed arrays live in SharedArrayBuffers (ids and names are copied). */
+export function shareChoiceData(data: ChoiceData): ChoiceData {
+  return {
+    columns: [...data.columns],
+    respondentIds: [...data.respondentIds],
+    taskIds: [...data.taskIds],
+    taskStart: toShared(data.taskStart),
+    diffStart: toShared(data.diffStart),
+    diffs: toShared(data.diffs),
+    altCount: toShared(data.altCount),
+  };
+}

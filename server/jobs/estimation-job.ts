@@ -36,6 +36,7 @@ import {
 import { ChoiceDataError } from '../engine/estimation/choice-data';
 import {
   EstimationCancelledError,
+  EstimationFailedError,
   EstimationOptionsError,
   NonIdentifiedError,
 } from '../engine/estimation/estimation-errors';
@@ -61,6 +62,7 @@ export function describeRunError(err: unknown): string | null {
     return `The model specification cannot be used: ${err.message}.`;
   if (err instanceof NonIdentifiedError)
     return `The model cannot be estimated from these data: ${err.message}.`;
+  if (err instanceof EstimationFailedError) return `The estimation failed: ${err.message}`;
   if (err instanceof Error && /not finite at the starting values/.test(err.message))
     return 'The log-likelihood is not finite at the starting values; check the coding and scale of the attributes.';
   return null;

@@ -1,17 +1,11 @@
 /**
  * Piscina worker entry for estimation runs: lowers its own CPU priority, runs the pure
  * runEstimation (MNL, mixed logit, WTP, taste profiles) off the caller's thread, posts progress
- * on the task's port, and returns a tagged result so the engine's error kinds survive the
- * thread boundary. Cancellation: the caller aborts piscina's `run`, which ends this thread and
+ * on the task's port, and returns known engine errors in the transport form
+ * (engine-error-transport.ts) so their classes survive the thread boundary. Cancellation: the caller aborts piscina's `run`, which ends this thread and
  * the mixed logit's slice threads it started.
  */
 import { MessagePort } from 'node:worker_threads';
-import { ChoiceDataError } from '../estimation/choice-data';
-import {
-  EstimationCancelledError,
-  EstimationOptionsError,
-  NonIdentifiedError,
-} from '../estimation/estimation-errors';
 import { runEstimation } from '../estimation/run-estimation';
 import type {
   EstimationProgressMessage,
@@ -19,6 +13,7 @@ import type {
   EstimationWorkerTask,
 } from './estimation-worker-messages';
 import { lowerThreadPriority } from './thread-priority';
+import { toTransportedError } from './engine-error-transport';
 
 lowerThreadPriority();
 
@@ -46,21 +41,7 @@ export async function runEstimationTask(message: unknown): Promise<EstimationWor
     });
     return { ok: true, result };
   } catch (e) {
-    if (e instanceof ChoiceDataError)
-      return {
-        ok: false,
-        error: { kind: 'choice_data', message: e.message, field: e.field, line: e.line },
-      };
-    if (e instanceof EstimationOptionsError)
-      return { ok: false, error: { kind: 'options', message: e.message, field: e.field } };
-    if (e instanceof NonIdentifiedError)
-      return {
-        ok: false,
-        error: { kind: 'not_identified', message: e.message, parameters: [...e.parameters] },
-      };
-    if (e instanceof EstimationCancelledError)
-      return { ok: false, error: { kind: 'cancelled', message: e.message } };
-    throw e;
+    return toTransportedError(e);
   } finally {
     port?.close();
   }

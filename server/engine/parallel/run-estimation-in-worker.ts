@@ -13,12 +13,7 @@ import { fileURLToPath, pathToFileURL } from 'node:url';
 import { MessageChannel } from 'node:worker_threads';
 import { Piscina } from 'piscina';
 import type { EstimationResult } from '../../../shared/schemas/estimation-spec';
-import { ChoiceDataError } from '../estimation/choice-data';
-import {
-  EstimationCancelledError,
-  EstimationOptionsError,
-  NonIdentifiedError,
-} from '../estimation/estimation-errors';
+import { EstimationCancelledError } from '../estimation/estimation-errors';
 import type { EstimationProgress } from '../estimation/fit-mixed-logit';
 import type {
   EstimationProgressMessage,
@@ -26,6 +21,7 @@ import type {
   EstimationWorkerTask,
 } from './estimation-worker-messages';
 import type { EngineThreadData } from './thread-priority';
+import { unwrapWorkerResult } from './engine-error-transport';
 
 const WORKER_FILE = fileURLToPath(new URL('./estimation-worker.ts', import.meta.url));
 
@@ -45,23 +41,10 @@ export function createEstimationPool(
   });
 }
 
-function toError(error: Extract<EstimationWorkerResult, { ok: false }>['error']): Error {
-  switch (error.kind) {
-    case 'choice_data':
-      return new ChoiceDataError(error.message, error.line, error.field);
-    case 'options':
-      return new EstimationOptionsError(error.message, error.field);
-    case 'not_identified':
-      return new NonIdentifiedError(error.message, error.parameters);
-    case 'cancelled':
-      return new EstimationCancelledError();
-  }
-}
-
 /**
  * Runs one estimation; progress arrives through `onProgress`; aborting `signal` ends the
  * thread and rejects with EstimationCancelledError. Engine errors are rethrown as their own
- * classes (ChoiceDataError, EstimationOptionsError, NonIdentifiedError).
+ * classes (ChoiceDataError, EstimationOptionsError, NonIdentifiedError, EstimationFailedError).
  */
 export async function runEstimationInWorker(
   pool: Piscina,
@@ -77,8 +60,7 @@ export async function runEstimationInWorker(
       { ...task, port: channel.port2 },
       { transferList: [channel.port2], signal: hooks.signal },
     )) as EstimationWorkerResult;
-    if (!out.ok) throw toError(out.error);
-    return out.result;
+    return unwrapWorkerResult(out).result;
   } catch (err) {
     if (hooks.signal?.aborted) throw new EstimationCancelledError();
     throw err;

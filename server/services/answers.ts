@@ -29,12 +29,15 @@ import { repeatedTaskNumber } from './respondent-plan';
 import { checkAnswerValue, screensOut } from './answer-rules';
 import { resolveRefusedAnswer } from './answer-conflicts';
 import { completeUnderQuota } from './answer-quota';
+import { judgeLateAnswer, type LateAnswerVerdict } from './late-answers';
 
 export type AnswerInput = {
   clientId: string;
   screenKey: string;
   value: AnswerValue;
   responseMs: number;
+  /** How long ago the phone says the answer was given (late-answers.ts). */
+  ageMs?: number;
 };
 
 export type AnswerContext = NonNullable<Awaited<ReturnType<typeof getAnswerContext>>>;
@@ -62,10 +65,19 @@ function answerColumnsFor(
   };
 }
 
-const closedError = (status: string) =>
+const closedMessages: Record<LateAnswerVerdict, string> = {
+  accept: '',
+  not_closed: 'This survey has closed; answers are no longer accepted.',
+  given_after_close:
+    'This survey closed before this answer was given, so it cannot be added. Thank you for your time.',
+  grace_over:
+    'This survey closed too long ago: answers given before the close could be sent for a limited time only.',
+};
+
+const closedError = (status: string, verdict: LateAnswerVerdict) =>
   status === 'draft'
     ? new AppError(409, 'survey_not_open', 'This survey is not open; answers are not accepted.')
-    : new AppError(410, 'survey_closed', 'This survey has closed; answers are no longer accepted.');
+    : new AppError(410, 'survey_closed', closedMessages[verdict]);
 
 const overQuotaError = () =>
   new AppError(
@@ -80,6 +92,7 @@ async function refuseClosed(
   ctx: AnswerContext,
   respondent: Respondent,
   now: Date,
+  verdict: LateAnswerVerdict,
 ): Promise<never> {
   const settings = readSettings(ctx.study.settings);
   if (ctx.study.status === 'closed' && settings.closedReason === 'quota') {
@@ -93,7 +106,7 @@ async function refuseClosed(
     if (ended) await releaseBlock(db, { versionId: respondent.versionId, block: respondent.block });
     throw overQuotaError();
   }
-  throw closedError(ctx.study.status);
+  throw closedError(ctx.study.status, verdict);
 }
 
 /**
@@ -133,10 +146,21 @@ export async function saveAnswer(
 
   // A passed closing date closes the study now, even if the periodic check has not run yet.
   if (ctx.study.status === 'live' && settings.closeAt && new Date(settings.closeAt) <= now) {
-    await closeIfDue(db, ctx.study, now);
-    ctx = { ...ctx, study: { ...ctx.study, status: 'closed' } };
+    const reason = await closeIfDue(db, ctx.study, now);
+    const closed = { ...settings, closedReason: reason ?? 'date', closedAt: now.toISOString() };
+    ctx = { ...ctx, study: { ...ctx.study, status: 'closed', settings: closed } };
   }
-  if (ctx.study.status !== 'live') return refuseClosed(db, ctx, respondent, now);
+  // A closed study still takes answers given before its close, for a grace period.
+  if (ctx.study.status !== 'live') {
+    const verdict = judgeLateAnswer({
+      status: ctx.study.status,
+      settings: readSettings(ctx.study.settings),
+      startedAt: respondent.startedAt,
+      ageMs: answer.ageMs,
+      now,
+    });
+    if (verdict !== 'accept') return refuseClosed(db, ctx, respondent, now, verdict);
+  }
 
   const index = screens.findIndex((s) => s.key === answer.screenKey);
   if (index < 0)

@@ -193,14 +193,16 @@ export async function startSession(
   input: Required<Pick<StartSessionInput, 'params' | 'device'>> & { sessionToken?: string },
 ): Promise<RespondentSession> {
   const study = await findPublicStudy(deps, publicId);
-  assertOpen(study);
   if (input.sessionToken) {
     const mine = await getRespondentByToken(deps.db, {
       studyId: study.id,
       sessionToken: input.sessionToken,
     });
-    if (mine) return buildSession(deps.db, study, mine);
+    // A closed study still resumes this phone's own session: its outbox may hold answers
+    // given before the close, which the grace period accepts (late-answers.ts).
+    if (mine && linkState(study) !== 'not_open') return buildSession(deps.db, study, mine);
   }
+  assertOpen(study);
   const settings = readSettings(study.settings);
   let invitee: { id: string; externalId: string | null } | null = null;
   const inviteToken = input.params.inv;

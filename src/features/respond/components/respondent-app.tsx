@@ -8,6 +8,7 @@ import { QuestionScreen } from './question-screen';
 import { TaskScreen } from './task-screen';
 import { EndScreen, UnavailableScreen } from './finish-screens';
 import { RespondLayout } from './respond-layout';
+import { UnsentNotice } from './unsent-notice';
 
 /** Renders one screen; `key` makes every screen a fresh component with its own timer. */
 function CurrentScreen({
@@ -75,7 +76,9 @@ export function RespondentApp({ publicId, search }: { publicId: string; search: 
     offline: r.offline,
   };
   let body;
-  if (closedUnderfoot)
+  if (closedUnderfoot && r.pending > 0)
+    body = <Spinner label="Sending the answers you gave before the survey closed…" />;
+  else if (closedUnderfoot)
     body = <UnavailableScreen reason="closed" studyName={session.studyName} redirectUrl={null} />;
   else if (r.awaitingReceipt && !finished) body = <Spinner label="Checking your answer…" />;
   else if (finished && r.finalStatus !== 'completed')
@@ -107,6 +110,7 @@ export function RespondentApp({ publicId, search }: { publicId: string; search: 
     );
   return (
     <RespondLayout progress={finished ? 1 : progress} studyName={session.studyName} {...status}>
+      <UnsentNotice unsent={r.unsent} />
       {body}
     </RespondLayout>
   );

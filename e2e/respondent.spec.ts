@@ -32,7 +32,11 @@ const choiceHeading = (page: Page, n: number, of: number) =>
 test('a respondent answers every screen on a phone, survives a reload and a dropped connection', async ({
   page,
 }) => {
-  const api = await playwrightRequest.newContext({ baseURL: e2eBaseUrl });
+  // As the app's own pages do: the server refuses writes with a session but without an Origin.
+  const api = await playwrightRequest.newContext({
+    baseURL: e2eBaseUrl,
+    extraHTTPHeaders: { Origin: e2eBaseUrl },
+  });
   const study = await createLiveStudy(api, `Water services e2e ${Date.now()}`);
   const pid = `E2E-${Date.now()}`;
   const attempts: string[] = [];

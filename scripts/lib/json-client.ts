@@ -11,6 +11,8 @@ export function createJsonClient(baseUrl: string) {
       method,
       headers: {
         Accept: 'application/json',
+        // The server refuses state-changing requests that carry a session without an Origin.
+        Origin: base,
         ...(body === undefined ? {} : { 'Content-Type': 'application/json' }),
         ...(cookie ? { Cookie: cookie } : {}),
       },

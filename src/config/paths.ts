@@ -26,6 +26,7 @@ export const paths = {
     path: '/reset-password',
     getHref: (token: string) => `/reset-password?token=${encodeURIComponent(token)}`,
   },
+  confirmEmail: { path: '/confirm-email', getHref: () => '/confirm-email' },
   acceptInvitation: {
     path: '/invitations/:token',
     getHref: (token: string) => `/invitations/${encodeURIComponent(token)}`,

@@ -7,6 +7,7 @@ import type { Express } from 'express';
 import { createApp } from '../../server/app';
 import { loadEnv } from '../../server/env';
 import { createLogger } from '../../server/lib/logger';
+import type { DestinationStream } from 'pino';
 import { createMailer } from '../../server/mail/mailer';
 import type { AppDeps } from '../../server/deps';
 import { createTestDb, type TestDb } from './test-db';
@@ -23,11 +24,11 @@ export type TestApp = {
 
 /**
  * `viaProxy`: the app reaches its database through a TCP proxy the test controls (fault
- * tests); the test's own `testDb.db` stays direct.
+ * tests); the test's own `testDb.db` stays direct. `logDestination`: the app logs at info there.
  */
 export async function createTestApp(
   overrides: Record<string, string> = {},
-  opts: { viaProxy?: TcpProxy } = {},
+  options: { viaProxy?: TcpProxy; logDestination?: DestinationStream } = {},
 ): Promise<TestApp> {
   const testDb = await createTestDb();
   const env = loadEnv({
@@ -45,17 +46,21 @@ export async function createTestApp(
     ...overrides,
   });
   const mailer = createMailer(env);
-  const proxied = opts.viaProxy
-    ? createDb(throughProxy(testDb.url, opts.viaProxy), { max: 5, connectTimeoutMs: 1000 })
+  const proxied = options.viaProxy
+    ? createDb(throughProxy(testDb.url, options.viaProxy), { max: 5, connectTimeoutMs: 1000 })
     : null;
   const db = proxied?.db ?? testDb.db;
-  const deps: AppDeps = { env, db, logger: createLogger('silent'), mailer };
+  const logger = options.logDestination
+    ? createLogger('info', options.logDestination)
+    : createLogger('silent');
+  const deps: AppDeps = { env, db, logger, mailer };
   const app = createApp(deps);
   return {
     app,
     deps,
     testDb,
-    request: () => supertest.agent(app),
+    // As the app's own pages do: browsers send Origin on every state-changing request.
+    request: () => supertest.agent(app).set('Origin', env.APP_URL),
     async close() {
       mailer.close();
       await proxied?.pool.end();

@@ -7,6 +7,7 @@
  * for numeric attributes, the numeric value.
  */
 import { parse } from 'csv-parse/sync';
+import { unescapeCsvText } from '../../lib/safe-csv';
 import type { Design } from '../../../shared/schemas/design';
 import type { StudyDefinition } from '../../../shared/schemas/study-definition';
 
@@ -26,7 +27,7 @@ function findLevelId(
   cell: string,
 ): string | undefined {
   const attribute = definition.attributes[attributeIndex];
-  const text = cell.trim();
+  const text = unescapeCsvText(cell.trim());
   const byLabel = attribute.levels.find((l) => l.label.trim().toLowerCase() === text.toLowerCase());
   if (byLabel) return byLabel.id;
   if (attribute.kind === 'numeric' && text !== '' && Number.isFinite(Number(text)))
@@ -35,7 +36,7 @@ function findLevelId(
 }
 
 function readTasks(definition: StudyDefinition, records: string[][], errors: CsvRowError[]) {
-  const header = records[0].map((h) => h.trim());
+  const header = records[0].map((h) => unescapeCsvText(h.trim()));
   const column = (name: string) => header.findIndex((h) => h.toLowerCase() === name.toLowerCase());
   const fixed = ['block', 'task', 'alternative'].map(column);
   const attributeColumns = definition.attributes.map((a) => column(a.name));

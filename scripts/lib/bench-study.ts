@@ -48,7 +48,7 @@ const definition = {
   ],
   alternatives: { count: 2, labeled: false, labels: [] },
   fixedAlternative: null,
-  prohibitions: [],
+  excludedCombinations: [],
 };
 
 const design = {

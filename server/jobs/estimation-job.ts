@@ -150,9 +150,15 @@ export async function runEstimationJob(
     const pool = options.pool ?? createEstimationPool({ nice: deps.env.ENGINE_THREAD_NICE });
     const result = await runEstimationInWorker(
       pool,
-      { spec, built, threads: options.threads ?? deps.env.WORKER_THREADS },
+      {
+        spec,
+        built,
+        threads: options.threads ?? deps.env.WORKER_THREADS,
+        kernel: deps.env.ESTIMATION_KERNEL,
+      },
       {
         signal: abort.signal,
+        onNote: (note) => deps.logger.warn({ runId }, note),
         onProgress: (p) => {
           if (p.start !== lastStart) {
             offset = latest.iteration ?? offset;
@@ -164,6 +170,7 @@ export async function runEstimationJob(
             iteration: offset + p.iteration,
             loglik: p.loglik,
             gradientNorm: p.gradientNorm,
+            secondsLeft: Number.isFinite(p.secondsLeft) ? Math.round(p.secondsLeft) : undefined,
             initialGradientNorm: latest.initialGradientNorm ?? p.gradientNorm,
             start: p.start,
           };

@@ -7,6 +7,7 @@ import { randomBytes, randomInt } from 'node:crypto';
 import type { AppDeps } from '../deps';
 import type { DbOrTx } from '../../db/client';
 import { AppError, NotFoundError } from '../lib/errors';
+import { toDeviceClass } from '../lib/device-class';
 import {
   getInviteeByToken,
   getRespondentByInvitee,
@@ -27,7 +28,7 @@ import {
 } from '../../shared/schemas/respondent';
 import { closeIfDue, dueCloseReason, readSettings } from './lifecycle';
 import { createRespondentPlan } from './respondent-plan';
-import { endPageOf, loadFrozenVersion } from './respondent-screens';
+import { buildSurveyView, loadFrozenVersion } from './respondent-screens';
 import { screensOfRespondent } from './respondent-screen-index';
 
 type PublicStudy = NonNullable<Awaited<ReturnType<typeof getStudyByPublicId>>>;
@@ -142,7 +143,8 @@ export async function createRespondent(
       externalId: params.externalId ?? null,
       block,
       plan,
-      device: (params.device ?? '').slice(0, 200),
+      // A coarse class only: the raw user agent can single a person out.
+      device: toDeviceClass(params.device),
       ...(params.startedAt ? { startedAt: params.startedAt } : {}),
       ...(params.simulatedTruth !== undefined ? { simulatedTruth: params.simulatedTruth } : {}),
     });
@@ -161,19 +163,16 @@ export async function buildSession(
   opts: { isNew?: boolean } = {},
 ): Promise<RespondentSession> {
   const version = await loadFrozenVersion(db, { id: respondent.versionId, studyId: study.id });
-  const { screens } = screensOfRespondent(version, respondent);
+  const { screens, plan } = screensOfRespondent(version, respondent);
+  const survey = buildSurveyView(version, plan, study.publicTitle, screens);
   const answeredKeys = opts.isNew
     ? new Set<string>()
     : await listAnsweredKeys(db, { respondentId: respondent.id });
-  const { attributes, alternatives, fixedAlternative } = version.definition;
   return {
     sessionToken: respondent.sessionToken,
-    studyName: study.publicTitle,
+    ...survey,
     status: respondent.status,
-    definition: { attributes, alternatives, fixedAlternative },
-    screens,
-    answered: screens.filter((s) => answeredKeys.has(s.key)).map((s) => s.key),
-    end: endPageOf(version.questionnaire),
+    answered: survey.screens.filter((s) => answeredKeys.has(s.key)).map((s) => s.key),
     redirectUrl: redirectFor(
       readSettings(study.settings),
       respondent.status,

@@ -25,6 +25,8 @@ export function createRouter(queryClient: QueryClient) {
     {
       element: <RequireAuth />,
       children: [
+        // The respondent app on the draft, framed by the Preview section (no researcher shell).
+        { path: paths.previewFrame.path, lazy: () => import('./routes/preview-frame') },
         {
           element: <AppShell />,
           children: [
@@ -37,6 +39,7 @@ export function createRouter(queryClient: QueryClient) {
               },
             },
             { path: paths.account.path, lazy: () => import('./routes/account') },
+            { path: paths.audit.path, lazy: () => import('./routes/team/audit') },
             {
               // Section screens register themselves: see routes/studies/section-modules.ts.
               path: paths.study.path,

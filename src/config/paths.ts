@@ -40,6 +40,10 @@ export const paths = {
     path: '/teams/:teamId/members',
     getHref: (teamId: string) => `/teams/${teamId}/members`,
   },
+  audit: {
+    path: '/teams/:teamId/audit',
+    getHref: (teamId: string) => `/teams/${teamId}/audit`,
+  },
   study: {
     path: '/teams/:teamId/studies/:studyId',
     getHref: (teamId: string, studyId: string) => `/teams/${teamId}/studies/${studyId}`,
@@ -66,4 +70,14 @@ export const paths = {
   },
   /** The respondent app (public link); personal links add ?inv=<token>. */
   respond: { path: '/s/:publicId', getHref: (publicId: string) => `/s/${publicId}` },
+  /** The respondent app on a study's current draft, shown inside the Preview section. */
+  previewFrame: {
+    path: '/preview/:teamId/:studyId',
+    getHref: (
+      teamId: string,
+      studyId: string,
+      respondent: { block: number; seed: number; screen: number },
+    ) =>
+      `/preview/${teamId}/${studyId}?block=${respondent.block}&seed=${respondent.seed}&screen=${respondent.screen}`,
+  },
 } as const;

@@ -8,6 +8,7 @@
  */
 import type { Design } from '../../../shared/schemas/design';
 import type { Attribute, StudyDefinition } from '../../../shared/schemas/study-definition';
+import { getLevelLabel } from '../../../shared/study/level-labels';
 import { writeCsv, type CellValue } from '../../lib/safe-csv';
 
 /** The cell of a level: its numeric value for numeric attributes, else its label. */
@@ -15,7 +16,9 @@ export function getLevelCell(attribute: Attribute, levelId: string | undefined):
   if (levelId === undefined) return '';
   const level = attribute.levels.find((l) => l.id === levelId);
   if (!level) return '';
-  return attribute.kind === 'numeric' && level.value !== undefined ? level.value : level.label;
+  return attribute.kind === 'numeric' && level.value !== undefined
+    ? level.value
+    : getLevelLabel(attribute, level);
 }
 
 export function exportDesignCsv(definition: StudyDefinition, design: Design): string {

@@ -9,18 +9,21 @@ import type { EstimationResult, EstimationSpec } from '../../../shared/schemas/e
 import type { BuiltChoiceData } from '../estimation/build-choice-data';
 import type { EstimationProgress } from '../estimation/fit-mixed-logit';
 import type { TransportedError } from './engine-error-transport';
+import type { KernelPreference } from '../simd/kernel-choice';
 
 export interface EstimationWorkerTask {
   spec: EstimationSpec;
   built: BuiltChoiceData;
   /** Threads of the mixed logit's log-likelihood, started from the engine thread. */
   threads: number;
+  /** Kernel of the mixed logit's LL (default 'auto'). */
+  kernel?: KernelPreference;
   port?: MessagePort;
 }
 
 export type EstimationWorkerResult = { ok: true; result: EstimationResult } | TransportedError;
 
-export interface EstimationProgressMessage {
-  type: 'progress';
-  progress: EstimationProgress;
-}
+export type EstimationProgressMessage =
+  | { type: 'progress'; progress: EstimationProgress }
+  /** A remark for the run's log (for example, a kernel that fell back to TypeScript). */
+  | { type: 'note'; note: string };

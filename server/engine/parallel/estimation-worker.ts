@@ -32,10 +32,13 @@ function assertTask(message: unknown): asserts message is EstimationWorkerTask {
 
 export async function runEstimationTask(message: unknown): Promise<EstimationWorkerResult> {
   assertTask(message);
-  const { spec, built, threads, port } = message;
+  const { spec, built, threads, kernel, port } = message;
   try {
     const result = await runEstimation(spec, built, {
       threads,
+      kernel,
+      onNote: (note) =>
+        port?.postMessage({ type: 'note', note } satisfies EstimationProgressMessage),
       onProgress: (progress) =>
         port?.postMessage({ type: 'progress', progress } satisfies EstimationProgressMessage),
     });

@@ -49,11 +49,16 @@ export function createEstimationPool(
 export async function runEstimationInWorker(
   pool: Piscina,
   task: Omit<EstimationWorkerTask, 'port'>,
-  hooks: { onProgress?: (progress: EstimationProgress) => void; signal?: AbortSignal } = {},
+  hooks: {
+    onProgress?: (progress: EstimationProgress) => void;
+    onNote?: (note: string) => void;
+    signal?: AbortSignal;
+  } = {},
 ): Promise<EstimationResult> {
   const channel = new MessageChannel();
   channel.port1.on('message', (message: EstimationProgressMessage) => {
     if (message?.type === 'progress') hooks.onProgress?.(message.progress);
+    else if (message?.type === 'note') hooks.onNote?.(message.note);
   });
   try {
     const out = (await pool.run(

@@ -101,6 +101,7 @@ export default defineConfig({
           // Pure modules: one module cache per worker instead of one per file (import time).
           isolate: false,
           include: ['tests/{engine,shared,src}/**/*.test.{ts,tsx}'],
+          globalSetup: ['tests/wasm-setup.ts'],
         },
       },
       {
@@ -108,7 +109,7 @@ export default defineConfig({
         test: {
           name: 'api',
           include: ['tests/{server,db}/**/*.test.{ts,tsx}'],
-          globalSetup: ['tests/global-setup.ts'],
+          globalSetup: ['tests/wasm-setup.ts', 'tests/global-setup.ts'],
         },
       },
     ],

@@ -15,6 +15,7 @@ if [ -z "${DATABASE_URL:-}" ]; then
 fi
 scripts/mail.sh start 1125 1180 >&2
 [ -f dist/client/index.html ] || npx vite build >&2
+npx tsx scripts/build-wasm.ts --if-stale >&2
 export NODE_ENV=production HOST=127.0.0.1 PORT="$PORT" APP_URL="http://127.0.0.1:$PORT" \
   SMTP_HOST=127.0.0.1 SMTP_PORT=1125 LOG_LEVEL=warn AUTH_RATE_LIMIT=10000 \
   JWT_SECRET="$(node -e "process.stdout.write(require('node:crypto').randomBytes(48).toString('base64url'))")" \

@@ -31,7 +31,8 @@ scripts/pg.sh start
 if [ -z "${DATABASE_URL:-}" ]; then export DATABASE_URL="$(scripts/pg.sh url)"; fi
 echo "== fake mail server"
 scripts/mail.sh start 1025 1080
-echo "== building the client"
+echo "== building the WebAssembly kernel (when its sources changed) and the client"
+npx tsx scripts/build-wasm.ts --if-stale
 npx vite build --logLevel warn
 echo "== migrating and seeding the demo data"
 npx tsx db/seed.ts

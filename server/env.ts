@@ -34,6 +34,10 @@ const envSchema = z.object({
     .default('true')
     .transform((v) => v === 'true'),
   WORKER_THREADS: z.coerce.number().int().min(1).max(64).default(2),
+  /** Mixed-logit kernel: auto (WebAssembly SIMD when it can run), simd, or typescript. */
+  ESTIMATION_KERNEL: z.enum(['auto', 'simd', 'typescript']).default('auto'),
+  /** Engine memory one estimation run may need; larger specifications are refused before queuing. */
+  ESTIMATION_MEMORY_LIMIT_MB: z.coerce.number().int().min(64).default(2048),
   /**
    * Which proxies' X-Forwarded-For / -Proto to believe, as Express's "trust proxy" setting:
    * `loopback` (default), `false`, a hop count such as `1`, or addresses/subnets separated by

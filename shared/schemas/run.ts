@@ -74,6 +74,8 @@ export const runProgressSchema = z.object({
   /** Gradient norm at the first iteration: the bar shows progress toward convergence. */
   initialGradientNorm: z.number().optional(),
   elapsedMs: z.number().optional(),
+  /** Estimated seconds until results are ready, from iterations and evaluation time. */
+  secondsLeft: z.number().nonnegative().optional(),
   /** Upper bound of iterations, so the bar can show a share. */
   maxIterations: z.number().int().optional(),
   start: z.number().int().optional(),
@@ -86,6 +88,8 @@ export const runColumnSchema = z.object({
   key: z.string(),
   coefficient: z.string(),
   label: z.string(),
+  /** Unit and basis of this column's WTP ("€ of monthly bill increase per +1 in …"); set when read. */
+  wtpUnit: z.string().nullable().optional(),
 });
 
 export const runDataSummarySchema = z.object({
@@ -105,6 +109,8 @@ export const runResultSchema = estimationResultSchema.extend({
   individuals: z.null(),
   columns: z.array(runColumnSchema),
   data: runDataSummarySchema,
+  /** The cost attribute's unit ("€"), so WTP is shown as money; set when read. */
+  costUnit: z.string().nullable().optional(),
 });
 export type RunResult = z.infer<typeof runResultSchema>;
 

@@ -1,8 +1,9 @@
 import { SelectField } from '@/components/ui/field';
 import type { TastesRun } from '@shared/schemas/tastes';
+import { formatDateTime } from '@/utils/format';
 
 const describe = (r: TastesRun) => {
-  const when = r.finishedAt ? new Date(r.finishedAt).toLocaleString() : '';
+  const when = r.finishedAt ? formatDateTime(r.finishedAt) : '';
   const kind = r.model === 'mixed' ? 'mixed logit' : 'MNL';
   return `${r.name || 'Unnamed run'} — ${kind}, ${when}`;
 };

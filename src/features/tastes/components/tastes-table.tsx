@@ -7,7 +7,7 @@ import { Link } from 'react-router';
 import { Button } from '@/components/ui/button';
 import type { TasteList } from '@shared/schemas/tastes';
 import type { TastesQuery } from '../api/list-tastes';
-import { formatNumber } from '../utils/format';
+import { formatNumber } from '@/utils/format';
 
 const th = 'whitespace-nowrap px-3 py-2 text-left text-xs font-semibold text-ink-soft';
 const num = 'px-3 py-2 text-right font-mono tabular-nums whitespace-nowrap';
@@ -70,7 +70,7 @@ export function TastesTable({
               {data.wtp.map((n) => (
                 <th key={n} className={`${th} text-right`} aria-sort={ariaSort(`wtp:${n}`)}>
                   <button type="button" onClick={() => sortBy(`wtp:${n}`)} className="text-right">
-                    WTP: {wtpLabel(n)}
+                    Conditional-mean WTP: {wtpLabel(n)}
                     {data.costUnit && (
                       <span className="block font-normal text-ink-muted">{data.costUnit}</span>
                     )}

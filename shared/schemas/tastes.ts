@@ -6,6 +6,7 @@
  */
 import { z } from 'zod';
 import type { StudyDefinition } from './study-definition';
+import type { ModelFamily } from './estimation-families';
 
 /**
  * A profile whose effective number of draws (Kish, 1/Σw²) is below this is flagged: its
@@ -76,7 +77,7 @@ export const respondentProfileParamsSchema = z.object({
 export type TastesRun = {
   id: string;
   name: string;
-  model: 'mnl' | 'mixed';
+  model: ModelFamily;
   finishedAt: string | null;
   profiles: number;
   profileDraws: number | null;

@@ -26,6 +26,9 @@ import { RunWarnings } from '@/features/runs/components/run-warnings';
 import { DerivedTable } from '@/features/runs/components/derived-table';
 import { CovarianceDownloads } from '@/features/runs/components/covariance-downloads';
 import { exportsPath } from '@/features/exports/api/get-export-manifest';
+import { HbDiagnostics } from '@/features/runs/components/hb-diagnostics';
+import { LatentClassPanel } from '@/features/runs/components/latent-class-panel';
+import { MODEL_LABELS } from '@shared/schemas/estimation-families';
 
 export const createRunLoader =
   (queryClient: QueryClient) =>
@@ -70,8 +73,7 @@ export function Component() {
           )}
         </div>
         <p className="text-xs text-ink-muted">
-          {run.model === 'mnl' ? 'Multinomial logit' : 'Panel mixed logit'} · started{' '}
-          {formatDateTime(run.createdAt)}
+          {MODEL_LABELS[run.model]} · started {formatDateTime(run.createdAt)}
           {run.dataHash && (
             <>
               {' '}
@@ -100,6 +102,20 @@ export function Component() {
           <Card title="Convergence">
             <ConvergencePanel results={results} />
           </Card>
+          {results.diagnostics && (
+            <Card title="Sampler diagnostics">
+              <PanelErrorBoundary>
+                <HbDiagnostics results={results} />
+              </PanelErrorBoundary>
+            </Card>
+          )}
+          {(results.classes?.length ?? 0) > 0 && (
+            <Card title="Classes">
+              <PanelErrorBoundary>
+                <LatentClassPanel results={results} />
+              </PanelErrorBoundary>
+            </Card>
+          )}
           <Card title="Parameters">
             <PanelErrorBoundary>
               <ParameterTable results={results} />

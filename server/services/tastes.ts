@@ -27,6 +27,7 @@ import { toTasteRow } from './tastes/taste-rows';
 
 export { getSegments } from './tastes/get-segments';
 export { getRespondentProfile } from './tastes/get-respondent-profile';
+export { compareRuns } from './tastes/compare-runs';
 
 export async function listTastesRuns(
   deps: AppDeps,

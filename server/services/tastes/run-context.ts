@@ -73,7 +73,8 @@ export async function loadRunContext(
     ),
     tasks: (design?.tasks ?? []).map((t) => ({ task: t.task, block: t.block })),
     personalColumns: personal,
-    lowDrawsThreshold: LOW_EFFECTIVE_DRAWS,
+    // A latent class profile's "effective draws" is its effective number of classes: no flag.
+    lowDrawsThreshold: run.model === 'latent_class' ? 0 : LOW_EFFECTIVE_DRAWS,
   };
   return { study, run, results, spec, definition, design, version, header, personal };
 }

@@ -14,6 +14,7 @@ let t: TestApp;
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
 let study: SeededStudy;
 let base: string;
+const done: Record<string, string> = {};
 
 const coefficients = [
   { name: 'bill', column: 'attr:bill' },
@@ -28,7 +29,7 @@ beforeAll(async () => {
   team = await createTeamWithAllRoles(t);
   study = await seedRunStudy(t.deps.db, { teamId: team.teamId, respondents: 80 });
   base = `/api/teams/${team.teamId}/studies/${study.studyId}/runs`;
-});
+}, 180_000);
 afterAll(async () => {
   await t.close();
 });
@@ -58,6 +59,7 @@ describe('HB run through the job', () => {
     expect(res.body.model).toBe('hb');
     expect(res.body.seed).toBe(7);
     await runEstimationJob(t.deps, res.body.id, { threads: 2 });
+    done.hb = res.body.id;
     const run = (await team.agents.viewer.get(`${base}/${res.body.id}`).expect(200)).body;
     expect(run.error).toBeNull();
     expect(run.status).toBe('done');
@@ -97,6 +99,7 @@ describe('latent class run through the job', () => {
       })
       .expect(201);
     await runEstimationJob(t.deps, res.body.id, { threads: 1 });
+    done.lc = res.body.id;
     const run = (await team.agents.viewer.get(`${base}/${res.body.id}`).expect(200)).body;
     expect(run.error).toBeNull();
     expect(run.status).toBe('done');
@@ -111,4 +114,34 @@ describe('latent class run through the job', () => {
     expect(extra.classProbabilities.reduce((a, b) => a + b, 0)).toBeCloseTo(1, 10);
     expect(extra.likeliestClass).toBeGreaterThanOrEqual(1);
   }, 180_000);
+});
+
+describe('GET /tastes/compare', () => {
+  it('pairs the two runs respondent by respondent, with a correlation per shared coefficient', async () => {
+    const tastes = `/api/teams/${team.teamId}/studies/${study.studyId}/tastes/compare`;
+    const res = await team.agents.viewer
+      .get(tastes)
+      .query({ runId: done.hb, otherRunId: done.lc })
+      .expect(200);
+    expect(res.body.run.model).toBe('hb');
+    expect(res.body.other.model).toBe('latent_class');
+    expect(res.body.respondents).toBe(80);
+    const river = res.body.coefficients.find((c: { name: string }) => c.name === 'river_good');
+    expect(river.pairs).toHaveLength(80);
+    // On single-MNL data BIC may choose one class: every respondent then has the same mean, and
+    // a correlation with no spread on one side is not defined (null).
+    const spread = new Set(river.pairs.map((p: [number, number]) => p[1].toFixed(12))).size > 1;
+    if (spread) expect(Math.abs(river.correlation)).toBeLessThanOrEqual(1);
+    else expect(river.correlation).toBeNull();
+    expect(JSON.stringify(res.body)).not.toContain(study.respondentIds[0]);
+  });
+
+  it('when both runs are the same, returns 400 on otherRunId', async () => {
+    const tastes = `/api/teams/${team.teamId}/studies/${study.studyId}/tastes/compare`;
+    const res = await team.agents.viewer
+      .get(tastes)
+      .query({ runId: done.hb, otherRunId: done.hb })
+      .expect(400);
+    expect(res.body.error.fields[0].path).toBe('otherRunId');
+  });
 });

@@ -42,7 +42,7 @@ export function HbDiagnostics({ results }: { results: RunResult }) {
 function RhatTable({ d, label }: { d: Diagnostics; label: Map<string, string> }) {
   return (
     <div className="overflow-x-auto">
-      <table className="w-full min-w-[22rem] text-sm">
+      <table className="w-full min-w-[18rem] text-sm">
         <caption className="sr-only">Split R-hat and effective sample size per parameter</caption>
         <thead>
           <tr className="border-b border-line text-left text-xs text-ink-muted">
@@ -83,7 +83,7 @@ function ChainTable({ d }: { d: Diagnostics }) {
   const hasFixed = d.chains.some((c) => c.acceptanceFixed !== null);
   return (
     <div className="overflow-x-auto">
-      <table className="w-full min-w-[22rem] text-sm">
+      <table className="w-full min-w-[18rem] text-sm">
         <caption className="sr-only">Acceptance rate per chain</caption>
         <thead>
           <tr className="border-b border-line text-left text-xs text-ink-muted">

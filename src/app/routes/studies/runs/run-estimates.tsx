@@ -48,6 +48,8 @@ export function Component() {
   if (isPending) return <Spinner label="Loading the run…" />;
   if (error || !run) return <ErrorText error={error} />;
   const results = run.results;
+  // HB reports posterior draws, latent class its own SEs: no covariance files to download.
+  const classicalFit = run.model === 'mnl' || run.model === 'mixed';
 
   return (
     <div className="space-y-6">
@@ -138,14 +140,16 @@ export function Component() {
               </PanelErrorBoundary>
             </Card>
           )}
-          <Card title="Covariance of the estimates">
-            <CovarianceDownloads
-              results={results}
-              hrefOf={(kind) =>
-                `${exportsPath(teamId, studyId)}/covariance.csv?runId=${encodeURIComponent(run.id)}&kind=${kind}`
-              }
-            />
-          </Card>
+          {classicalFit && (
+            <Card title="Covariance of the estimates">
+              <CovarianceDownloads
+                results={results}
+                hrefOf={(kind) =>
+                  `${exportsPath(teamId, studyId)}/covariance.csv?runId=${encodeURIComponent(run.id)}&kind=${kind}`
+                }
+              />
+            </Card>
+          )}
           {results.population.some((m) => m.distribution !== 'fixed') && (
             <Card title="How tastes vary across respondents">
               <PanelErrorBoundary>

@@ -86,12 +86,32 @@ export default defineConfig({
     },
   },
   test: {
-    // Unit and API tests; Playwright journeys live in e2e/ and run separately.
-    include: ['tests/**/*.test.{ts,tsx}'],
-    globalSetup: ['tests/global-setup.ts'],
+    // Playwright journeys live in e2e/ and run separately. Two projects: `unit` needs no
+    // database (engine, shared code, client components); `api` runs against a real PostgreSQL
+    // (a migrated template database per run, cloned per test file by tests/support/test-db.ts).
     testTimeout: 30_000,
     hookTimeout: 60_000,
     pool: 'forks',
     maxWorkers: 2,
+    projects: [
+      {
+        extends: true,
+        test: {
+          name: 'unit',
+          // Pure modules: one module cache per worker instead of one per file (import time).
+          isolate: false,
+          include: ['tests/{engine,shared,src}/**/*.test.{ts,tsx}'],
+          globalSetup: ['tests/wasm-setup.ts'],
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: 'api',
+          include: ['tests/{server,db}/**/*.test.{ts,tsx}'],
+          globalSetup: ['tests/wasm-setup.ts', 'tests/global-setup.ts'],
+        },
+      },
+    ],
   },
 });

@@ -3,22 +3,13 @@
  * every choice task, the background questions, the end page. A reload in the middle resumes
  * at the same task; one answer sent while the network is cut arrives exactly once later.
  */
-import { execFileSync } from 'node:child_process';
-import path from 'node:path';
 import pg from 'pg';
 import { expect, request as playwrightRequest, test, type Page } from '@playwright/test';
 import { e2eBaseUrl } from '../playwright.config';
+import { e2eDatabaseUrl } from './support/database';
 import { createLiveStudy } from './support/live-study';
 
 test.use({ viewport: { width: 360, height: 740 }, hasTouch: true });
-
-function e2eDatabaseUrl(): string {
-  if (process.env.E2E_DATABASE_URL) return process.env.E2E_DATABASE_URL;
-  const root = path.resolve(import.meta.dirname, '..');
-  return execFileSync(path.join(root, 'scripts/pg.sh'), ['url', 'choicewright_e2e'])
-    .toString()
-    .trim();
-}
 
 async function chooseAndGoOn(page: Page, option: string) {
   await page.getByRole('radio', { name: option }).click();
@@ -32,7 +23,11 @@ const choiceHeading = (page: Page, n: number, of: number) =>
 test('a respondent answers every screen on a phone, survives a reload and a dropped connection', async ({
   page,
 }) => {
-  const api = await playwrightRequest.newContext({ baseURL: e2eBaseUrl });
+  // As the app's own pages do: the server refuses writes with a session but without an Origin.
+  const api = await playwrightRequest.newContext({
+    baseURL: e2eBaseUrl,
+    extraHTTPHeaders: { Origin: e2eBaseUrl },
+  });
   const study = await createLiveStudy(api, `Water services e2e ${Date.now()}`);
   const pid = `E2E-${Date.now()}`;
   const attempts: string[] = [];

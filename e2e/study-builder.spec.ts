@@ -1,7 +1,7 @@
 /**
  * An editor builds a study from scratch: creates it, adds two attributes with their levels,
  * saves, generates a random design in the background, reads its diagnostics, and previews a
- * task as a respondent will see it.
+ * task in the respondent app at phone and desktop width.
  */
 import fs from 'node:fs';
 import path from 'node:path';
@@ -87,16 +87,26 @@ test('an editor creates a study, adds attributes, generates a design and preview
 
   await test.step('preview a task and choose an option', async () => {
     await page.getByRole('link', { name: /Preview/ }).click();
-    const phone = page.getByRole('region', { name: 'Phone preview' });
+    // The respondent app itself, in a frame of phone width, starting at the chosen screen.
+    await page
+      .getByLabel('Screen', { exact: true })
+      .selectOption({ label: '3. Choice task (choice 1 of 4)' });
+    const phone = page.frameLocator('iframe[title^="Respondent screen preview"]');
     await expect(phone.getByRole('radio', { name: 'Option A' })).toBeVisible();
     await phone.getByRole('radio', { name: 'Option B' }).click();
     await expect(phone.getByRole('radio', { name: 'Option B' })).toHaveAttribute(
       'aria-checked',
       'true',
     );
+    await phone.getByRole('button', { name: 'Next' }).click();
+    await expect(page.getByLabel('Screen', { exact: true })).toHaveValue('3');
+    await page
+      .locator('label')
+      .filter({ hasText: /^Desktop/ })
+      .click();
     await expect(
       page
-        .getByRole('region', { name: 'Desktop preview' })
+        .frameLocator('iframe[title="Respondent screen preview, desktop width"]')
         .getByText('River health rating')
         .first(),
     ).toBeVisible();

@@ -3,7 +3,15 @@
  * from the link, joins, and sees the team with an analyst's permissions.
  */
 import { expect, test } from '@playwright/test';
-import { E2E_PASSWORD, fillSignUp, signIn, signOut, signUp, teamIdFromUrl } from './support/auth';
+import {
+  confirmFromMail,
+  E2E_PASSWORD,
+  fillSignUp,
+  signIn,
+  signOut,
+  signUp,
+  teamIdFromUrl,
+} from './support/auth';
 import { firstLink, uniqueAddress, waitForMail } from './support/mail';
 
 test('an owner invites an analyst, who joins from the e-mailed link with read-only team rights', async ({
@@ -49,6 +57,7 @@ test('an owner invites an analyst, who joins from the e-mailed link with read-on
     await page.getByRole('link', { name: 'Create an account' }).click();
     await expect(page.getByLabel('E-mail')).toHaveValue(analyst.email);
     await fillSignUp(page, analyst);
+    await confirmFromMail(page, analyst.email);
   });
 
   await test.step('back on the invitation, the teammate accepts and lands in the team', async () => {

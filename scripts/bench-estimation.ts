@@ -1,10 +1,15 @@
 /**
- * Benchmark of the mixed-logit estimation engine on seeded synthetic data:
- * N = 1000 respondents, T = 12 tasks, J = 3 alternatives, K = 6 normal coefficients,
- * R = 500 scrambled Halton draws. Prints ms per LL+gradient evaluation on the main thread and
- * on 1 and 2 worker threads, and the BFGS iterations, evaluations and wall time of a full estimation.
- * Usage: npm run bench:estimation [-- --json] [-- --threads 2]
+ * Benchmark of the mixed-logit estimation engine on seeded synthetic data, both kernels side
+ * by side in the same run: N = 1000 respondents, T = 12 tasks, J = 3 alternatives, K = 6
+ * normal coefficients, R = 500 scrambled Halton draws. Prints ms per LL+gradient evaluation
+ * of the TypeScript and the WebAssembly SIMD kernel on the main thread and on 1 and 2 worker
+ * threads (rounds interleaved, median of the rounds, so a change in the machine's load hits
+ * both kernels alike), then a full estimation with each kernel, the taste profiles, the peak
+ * resident memory and the load average (os.loadavg) at start and end.
+ * With --large: the large-model benchmark instead (bench-estimation-large.ts).
+ * Usage: npm run bench:estimation [-- --json] [-- --threads 2] [-- --large]
  */
+import os from 'node:os';
 import { buildChoiceData } from '../server/engine/estimation/build-choice-data';
 import { fitMixedLogit } from '../server/engine/estimation/fit-mixed-logit';
 import {
@@ -14,17 +19,28 @@ import {
 import { simulatePanelChoices } from '../server/engine/estimation/simulate-panel-choices';
 import { computeTasteProfiles } from '../server/engine/estimation/taste-profiles';
 import { createLoglikEvaluator } from '../server/engine/parallel/create-loglik-evaluator';
+import type { MixedLogitEvaluator } from '../server/engine/parallel/mixed-logit-evaluator';
 import { createWorkerPoolEvaluator } from '../server/engine/parallel/worker-pool-evaluator';
+import { chooseKernel, type KernelKind } from '../server/engine/simd/kernel-choice';
+import { ensureSimdKernelBuilt } from './build-wasm';
 
 const json = process.argv.includes('--json');
+if (process.argv.includes('--large')) {
+  await import('./bench-estimation-large');
+  process.exit(0);
+}
 const threadsArg = process.argv.indexOf('--threads');
 const fitThreads = threadsArg > 0 ? Number(process.argv[threadsArg + 1]) : 2;
+const loadStart = os.loadavg();
+await ensureSimdKernelBuilt();
 
 const N = 1000;
 const T = 12;
 const J = 3;
 const K = 6;
 const R = 500;
+const ROUNDS = 3;
+const REPEATS = 5;
 const truth = Array.from({ length: K }, (_, k) => ({
   name: `x${k + 1}`,
   distribution: 'normal' as const,
@@ -36,33 +52,6 @@ const coefficients: CoefficientSpec[] = truth.map((c) => ({
   distribution: c.distribution,
 }));
 const draws = { type: 'halton' as const, count: R, seed: 1, scrambled: true };
-
-/** threads = 0: in-process kernel on the main thread; otherwise that many worker threads. */
-async function timeEvaluations(
-  threads: number,
-  repeats: number,
-): Promise<{ ms: number; setupMs: number }> {
-  const setupStart = performance.now();
-  const evaluator =
-    threads === 0
-      ? await createLoglikEvaluator(data, layout, draws, 1)
-      : await createWorkerPoolEvaluator(data, layout, draws, threads);
-  const setupMs = performance.now() - setupStart;
-  const theta = new Float64Array(layout.P);
-  truth.forEach((c, k) => {
-    theta[k] = c.location;
-    theta[K + k] = c.spread;
-  });
-  const grad = new Float64Array(layout.P);
-  await evaluator.evaluate(theta, grad); // warm-up (JIT)
-  await evaluator.evaluate(theta, grad);
-  const start = performance.now();
-  for (let i = 0; i < repeats; i++) await evaluator.evaluate(theta, grad);
-  const ms = (performance.now() - start) / repeats;
-  await evaluator.close();
-  return { ms, setupMs };
-}
-
 const sim = simulatePanelChoices({
   respondents: N,
   tasks: T,
@@ -72,17 +61,69 @@ const sim = simulatePanelChoices({
 });
 const { data } = buildChoiceData(sim.columns, sim.rows);
 const layout = createMixedLogitLayout(data, coefficients, false);
+const theta = new Float64Array(layout.P);
+truth.forEach((c, k) => {
+  theta[k] = c.location;
+  theta[K + k] = c.spread;
+});
 
-const inProcess = await timeEvaluations(0, 10);
-const one = await timeEvaluations(1, 10);
-const two = await timeEvaluations(2, 10);
-const fitStart = performance.now();
-// One start, so the figures stay comparable with those measured before starts defaulted to 3.
-const fit = await fitMixedLogit(data, { coefficients, draws, threads: fitThreads, starts: 1 });
-const totalSeconds = (performance.now() - fitStart) / 1000;
+/** threads = 0: in-process kernel on the main thread; otherwise that many worker threads. */
+async function createEvaluator(kind: KernelKind, threads: number): Promise<MixedLogitEvaluator> {
+  const evaluator =
+    threads === 0
+      ? await createLoglikEvaluator(data, layout, draws, 1, kind)
+      : await createWorkerPoolEvaluator(data, layout, draws, threads, chooseKernel(kind));
+  if (evaluator.kernel !== kind) throw new Error(`${kind} kernel unavailable: ${evaluator.notes}`);
+  const grad = new Float64Array(layout.P);
+  await evaluator.evaluate(theta, grad); // warm-up (JIT, tier-up of the WebAssembly code)
+  await evaluator.evaluate(theta, grad);
+  return evaluator;
+}
+
+async function timeEvaluations(evaluator: MixedLogitEvaluator): Promise<number> {
+  const grad = new Float64Array(layout.P);
+  const start = performance.now();
+  for (let i = 0; i < REPEATS; i++) await evaluator.evaluate(theta, grad);
+  return (performance.now() - start) / REPEATS;
+}
+
+const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+const configs = (['typescript', 'simd'] as const).flatMap((kind) =>
+  [0, 1, 2].map((threads) => ({ kind, threads })),
+);
+const evaluators = [];
+for (const c of configs) evaluators.push(await createEvaluator(c.kind, c.threads));
+const times = configs.map(() => [] as number[]);
+for (let round = 0; round < ROUNDS; round++)
+  for (let i = 0; i < configs.length; i++) times[i].push(await timeEvaluations(evaluators[i]));
+for (const e of evaluators) await e.close();
+const ms = (kind: KernelKind, threads: number) =>
+  Number(
+    median(times[configs.findIndex((c) => c.kind === kind && c.threads === threads)]).toFixed(1),
+  );
+
+async function timeFit(kernel: KernelKind) {
+  const start = performance.now();
+  // One start, so the figures stay comparable with those measured before starts defaulted to 3.
+  const fit = await fitMixedLogit(data, {
+    coefficients,
+    draws,
+    threads: fitThreads,
+    kernel,
+    starts: 1,
+  });
+  return { fit, seconds: (performance.now() - start) / 1000 };
+}
+const simdFit = await timeFit('simd');
+const tsFit = await timeFit('typescript');
+let maxEstimateDifference = 0;
+simdFit.fit.estimates.forEach((v, p) => {
+  maxEstimateDifference = Math.max(maxEstimateDifference, Math.abs(v - tsFit.fit.estimates[p]));
+});
 const profilesStart = performance.now();
-computeTasteProfiles(data, fit.layout, fit.estimates, { count: 2000 });
+computeTasteProfiles(data, simdFit.fit.layout, simdFit.fit.estimates, { count: 2000 });
 const profilesSeconds = (performance.now() - profilesStart) / 1000;
+const round2 = (x: number) => Number(x.toFixed(2));
 
 const figures = {
   respondents: N,
@@ -90,35 +131,49 @@ const figures = {
   alternatives: J,
   coefficients: K,
   draws: R,
-  evalMsInProcess: Number(inProcess.ms.toFixed(1)),
-  evalMs1: Number(one.ms.toFixed(1)),
-  evalMs2: Number(two.ms.toFixed(1)),
-  setupMs2: Number(two.setupMs.toFixed(0)),
-  iterations: fit.iterations,
-  evaluations: fit.evaluations,
-  converged: fit.converged,
-  stopReason: fit.status,
-  loglik: Number(fit.loglik.toFixed(4)),
+  evalMsInProcess: ms('typescript', 0),
+  evalMs1: ms('typescript', 1),
+  evalMs2: ms('typescript', 2),
+  evalMsInProcessSimd: ms('simd', 0),
+  evalMs1Simd: ms('simd', 1),
+  evalMs2Simd: ms('simd', 2),
+  speedup: round2(ms('typescript', 2) / ms('simd', 2)),
+  iterations: simdFit.fit.iterations,
+  evaluations: simdFit.fit.evaluations,
+  converged: simdFit.fit.converged,
+  stopReason: simdFit.fit.status,
+  loglik: Number(simdFit.fit.loglik.toFixed(4)),
   fitThreads,
-  totalSeconds: Number(totalSeconds.toFixed(2)),
-  profilesSeconds: Number(profilesSeconds.toFixed(2)),
+  totalSeconds: round2(simdFit.seconds),
+  totalSecondsTypescript: round2(tsFit.seconds),
+  iterationsTypescript: tsFit.fit.iterations,
+  maxEstimateDifference: Number(maxEstimateDifference.toExponential(2)),
+  profilesSeconds: round2(profilesSeconds),
+  peakRssMb: Math.round(process.resourceUsage().maxRSS / 1024),
+  loadAverageStart: loadStart.map(round2),
+  loadAverageEnd: os.loadavg().map(round2),
 };
 if (json) {
   console.log(JSON.stringify(figures));
 } else {
+  const f = figures;
   console.log(
     `Mixed logit benchmark: N=${N}, T=${T}, J=${J}, K=${K} normal, R=${R} scrambled Halton`,
   );
-  console.log(`  LL+gradient evaluation, main thread (no workers): ${figures.evalMsInProcess} ms`);
-  console.log(`  LL+gradient evaluation, 1 worker thread: ${figures.evalMs1} ms`);
+  console.log(`  ms per LL+gradient     TypeScript   WebAssembly SIMD`);
+  console.log(`  main thread            ${f.evalMsInProcess}   ${f.evalMsInProcessSimd}`);
+  console.log(`  1 worker thread        ${f.evalMs1}   ${f.evalMs1Simd}`);
   console.log(
-    `  LL+gradient evaluation, 2 worker threads: ${figures.evalMs2} ms (pool start ${figures.setupMs2} ms)`,
+    `  2 worker threads       ${f.evalMs2}   ${f.evalMs2Simd}   (speed-up ${f.speedup}×)`,
   );
   console.log(
-    `  full estimation on ${fitThreads} thread(s): ${figures.iterations} BFGS iterations, ${figures.evaluations} evaluations (incl. Hessian), ${figures.totalSeconds} s`,
+    `  full estimation on ${fitThreads} thread(s), SIMD: ${f.iterations} BFGS iterations, ${f.evaluations} evaluations (incl. Hessian), ${f.totalSeconds} s; TypeScript: ${f.iterationsTypescript} iterations, ${f.totalSecondsTypescript} s`,
   );
-  console.log(`  converged: ${figures.converged} (${figures.stopReason}), LL = ${figures.loglik}`);
   console.log(
-    `  taste profiles (2000 draws per respondent, main thread): ${figures.profilesSeconds} s`,
+    `  converged: ${f.converged} (${f.stopReason}), LL = ${f.loglik}; largest estimate difference between kernels ${f.maxEstimateDifference}`,
+  );
+  console.log(`  taste profiles (2000 draws per respondent): ${f.profilesSeconds} s`);
+  console.log(
+    `  peak RSS ${f.peakRssMb} MB; load average ${f.loadAverageStart} → ${f.loadAverageEnd}`,
   );
 }

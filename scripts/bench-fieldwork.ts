@@ -83,7 +83,7 @@ const definition = {
   ],
   alternatives: { count: 2, labeled: false, labels: [] },
   fixedAlternative: null,
-  prohibitions: [],
+  excludedCombinations: [],
 };
 const design = {
   blocks: 1,

@@ -42,6 +42,8 @@ function createClient() {
       method,
       headers: {
         Accept: 'application/json',
+        // The server refuses state-changing requests that carry a session without an Origin.
+        Origin: baseUrl,
         ...(body === undefined ? {} : { 'Content-Type': 'application/json' }),
         ...(cookie ? { Cookie: cookie } : {}),
       },

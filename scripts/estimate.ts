@@ -82,6 +82,7 @@ async function main(): Promise<void> {
   let lastReport = 0;
   const result = await runEstimation(spec, built, {
     threads,
+    onNote: (note) => process.stderr.write(`note: ${note}\n`),
     membership:
       membershipColumns.length > 0
         ? extractRespondentCovariates(

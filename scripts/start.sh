@@ -14,6 +14,15 @@ export APP_URL="${APP_URL:-http://$HOST:$PORT}"
 export SMTP_HOST="${SMTP_HOST:-127.0.0.1}" SMTP_PORT="${SMTP_PORT:-1025}"
 
 ensure_node_modules
+# Production mode refuses to start without JWT_SECRET; locally we keep a random one in .data/.
+if [ -z "${JWT_SECRET:-}" ]; then
+  SECRET_FILE="${DATA_DIR:-$ROOT/.data}/jwt-secret"
+  mkdir -p "$(dirname "$SECRET_FILE")"
+  if [ ! -s "$SECRET_FILE" ]; then
+    (umask 077 && node -e "process.stdout.write(require('node:crypto').randomBytes(48).toString('base64url'))" >"$SECRET_FILE")
+  fi
+  export JWT_SECRET="$(cat "$SECRET_FILE")"
+fi
 # Remember whether the database is someone else's: then it is neither started nor stopped here.
 OWN_DATABASE=yes
 [ -n "${DATABASE_URL:-}" ] && OWN_DATABASE=no
@@ -22,7 +31,8 @@ scripts/pg.sh start
 if [ -z "${DATABASE_URL:-}" ]; then export DATABASE_URL="$(scripts/pg.sh url)"; fi
 echo "== fake mail server"
 scripts/mail.sh start 1025 1080
-echo "== building the client"
+echo "== building the WebAssembly kernel (when its sources changed) and the client"
+npx tsx scripts/build-wasm.ts --if-stale
 npx vite build --logLevel warn
 echo "== migrating and seeding the demo data"
 npx tsx db/seed.ts

@@ -1,15 +1,16 @@
 #!/usr/bin/env bash
 # Every test, from a fresh machine: installs what is missing (npm ci, PostgreSQL and Chromium
-# from Debian's packages), then typecheck, lint, unit + API tests against a real PostgreSQL,
-# a production build, and the Playwright journeys in Debian's Chromium.
+# from Debian's packages), then typecheck, lint, format check and the production build side by
+# side, the unit project (no database) and the API project (real PostgreSQL) of vitest, and the
+# Playwright journeys in Debian's Chromium. Prints the time of every stage at the end.
 set -euo pipefail
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 cd "$ROOT"
 . scripts/lib-install.sh
-started=$(date +%s)
+. scripts/lib-stages.sh
 
-ensure_node_modules
-ensure_chromium
+stage "install" ensure_node_modules
+stage "chromium" ensure_chromium
 
 PG_WAS_RUNNING=no
 if [ -z "${DATABASE_URL:-}" ] && [ "$(scripts/pg.sh status 2>/dev/null || true)" = "running" ]; then PG_WAS_RUNNING=yes; fi
@@ -18,21 +19,23 @@ cleanup() {
   if [ "$PG_WAS_RUNNING" = no ] && [ -z "${DATABASE_URL:-}" ]; then scripts/pg.sh stop >/dev/null 2>&1 || true; fi
   if [ "${CI:-}" = "true" ]; then scripts/mail.sh stop 1125 >/dev/null 2>&1 || true; fi
 }
-trap cleanup EXIT
-echo "== database"
-scripts/pg.sh start
-echo "== fake mail server for the tests"
-scripts/mail.sh start 1125 1180
+trap 'cleanup; print_stage_times' EXIT
 
-echo "== typecheck"
-npx tsc --noEmit -p .
-echo "== lint"
-npx eslint . --max-warnings=0
-npx prettier --check . --log-level warn
-echo "== unit, numerical and API tests (vitest)"
-npx vitest run
-echo "== production build"
-npx vite build --logLevel warn
-echo "== end-to-end journeys (Playwright, Debian chromium)"
-npx playwright test
-echo "== all tests passed in $(( $(date +%s) - started )) s"
+start_services() {
+  scripts/pg.sh start
+  scripts/mail.sh start 1125 1180
+}
+stage "database and fake mail" start_services
+
+# Single-threaded or short jobs share the two cores; each one's output is shown when it ends,
+# and the stage fails if any of them fails. The audit: production packages may have no high or
+# critical advisory (scripts/audit.sh).
+stage "audit, typecheck, lint, format, build" parallel \
+  "dependency audit" "bash scripts/audit.sh" \
+  "typecheck" "npx tsc --noEmit -p ." \
+  "lint" "npx eslint . --max-warnings=0" \
+  "format" "npx prettier --check . --log-level warn" \
+  "build" "npx vite build --logLevel warn"
+stage "vitest (unit and API projects)" npx vitest run
+stage "end-to-end journeys (Playwright, Debian chromium)" npx playwright test
+echo "== all tests passed"

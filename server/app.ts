@@ -6,19 +6,21 @@ import express from 'express';
 import helmet from 'helmet';
 import cookieParser from 'cookie-parser';
 import compression from 'compression';
-import { pinoHttp } from 'pino-http';
 import path from 'node:path';
 import fs from 'node:fs';
 import type { AppDeps } from './deps';
 import { projectRoot } from './env';
 import { errorHandler, notFoundHandler } from './middleware/error-handler';
 import { mountApiRoutes } from './routes/index';
+import { createRequestLog } from './lib/request-log';
+import { createPatternLookup, listApiRoutes } from './lib/route-table';
+import { refuseCrossSiteWrites } from './middleware/same-origin';
 import { serveClient } from './static-client';
 
 export function createApp(deps: AppDeps): express.Express {
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  app.set('trust proxy', deps.env.TRUST_PROXY);
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -39,16 +41,15 @@ export function createApp(deps: AppDeps): express.Express {
     }),
   );
   app.use(
-    pinoHttp({
-      logger: deps.logger,
-      autoLogging: { ignore: (req) => req.url === '/api/health' },
-      customLogLevel: (_req, res, err) =>
-        err || res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'warn' : 'info',
-    }),
+    createRequestLog(
+      deps.logger,
+      createPatternLookup(() => listApiRoutes(app)),
+    ),
   );
   // gzip or brotli, whichever the browser prefers, for pages, scripts, styles and JSON.
   app.use(compression());
   app.use(cookieParser());
+  app.use('/api', refuseCrossSiteWrites([deps.env.APP_URL, ...deps.env.TRUSTED_ORIGINS]));
   app.use(express.json({ limit: '2mb' }));
 
   const api = express.Router();

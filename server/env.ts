@@ -34,8 +34,52 @@ const envSchema = z.object({
     .default('true')
     .transform((v) => v === 'true'),
   WORKER_THREADS: z.coerce.number().int().min(1).max(64).default(2),
+  /** Mixed-logit kernel: auto (WebAssembly SIMD when it can run), simd, or typescript. */
+  ESTIMATION_KERNEL: z.enum(['auto', 'simd', 'typescript']).default('auto'),
+  /** Engine memory one estimation run may need; larger specifications are refused before queuing. */
+  ESTIMATION_MEMORY_LIMIT_MB: z.coerce.number().int().min(64).default(2048),
+  /**
+   * Which proxies' X-Forwarded-For / -Proto to believe, as Express's "trust proxy" setting:
+   * `loopback` (default), `false`, a hop count such as `1`, or addresses/subnets separated by
+   * commas (`10.0.0.0/8, fc00::/7`). Set it to the load balancer's address so that per-address
+   * rate limits count clients, not the balancer.
+   */
+  TRUST_PROXY: z
+    .string()
+    .default('loopback')
+    .transform((v): boolean | number | string =>
+      v === 'true' ? true : v === 'false' ? false : /^\d+$/.test(v) ? Number(v) : v,
+    ),
+  /** Origins besides APP_URL allowed to send state-changing requests (comma-separated). */
+  TRUSTED_ORIGINS: z
+    .string()
+    .default('')
+    .transform((v) =>
+      v
+        .split(',')
+        .map((o) => o.trim())
+        .filter(Boolean),
+    ),
+  /** A researcher's session ends after this many minutes without a request… */
+  SESSION_IDLE_MINUTES: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .max(24 * 60)
+    .default(30),
+  /** …and this many hours after signing in, whatever happens. */
+  SESSION_ABSOLUTE_HOURS: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .max(24 * 30)
+    .default(12),
   /** Requests per 15 minutes per IP on sign-in, sign-up and reset routes. */
   AUTH_RATE_LIMIT: z.coerce.number().int().min(1).default(50),
+  /** Failed sign-ins per 15 minutes per account, from any address. */
+  ACCOUNT_SIGN_IN_LIMIT: z.coerce.number().int().min(1).default(10),
+  /** Requests per 15 minutes per respondent session (a survey needs a few dozen). */
+  RESPONDENT_SESSION_RATE_LIMIT: z.coerce.number().int().min(1).default(600),
   /** New respondent sessions per 15 minutes per IP (a panel behind one address needs headroom). */
   RESPONDENT_START_RATE_LIMIT: z.coerce.number().int().min(1).default(300),
 });
@@ -64,6 +108,12 @@ export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
     throw new Error(`Invalid configuration:\n${lines}`);
   }
   const e = parsed.data;
+  // Several API instances must share one key, and a key made up on the spot would sign everyone
+  // out at each restart: production names it (the local start command keeps one in DATA_DIR).
+  if (e.NODE_ENV === 'production' && !e.JWT_SECRET)
+    throw new Error(
+      'Invalid configuration:\n  JWT_SECRET: required in production (at least 32 characters, the same on every API instance)',
+    );
   return {
     ...e,
     JWT_SECRET: e.JWT_SECRET ?? loadOrCreateSecret(e.DATA_DIR),

@@ -31,6 +31,10 @@ export const permissions = {
   'runs:manage': ['owner', 'analyst'],
   /** Downloads; personal columns still need personal:read. */
   'exports:read': all,
+  /** Read and download the team's audit trail. */
+  'audit:read': ['owner'],
+  /** Erase one respondent's data on request (data-protection right to erasure). */
+  'respondents:erase': ['owner'],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Permission = keyof typeof permissions;

@@ -7,6 +7,7 @@ const userColumns = {
   email: users.email,
   name: users.name,
   passwordHash: users.passwordHash,
+  emailVerifiedAt: users.emailVerifiedAt,
   createdAt: users.createdAt,
 };
 
@@ -25,7 +26,7 @@ export async function getUserByEmail(db: DbOrTx, params: { email: string }) {
 
 export async function insertUser(
   db: DbOrTx,
-  params: { email: string; name: string; passwordHash: string },
+  params: { email: string; name: string; passwordHash: string; emailVerifiedAt?: Date | null },
 ) {
   const [row] = await db
     .insert(users)
@@ -33,6 +34,7 @@ export async function insertUser(
       email: params.email.toLowerCase(),
       name: params.name,
       passwordHash: params.passwordHash,
+      emailVerifiedAt: params.emailVerifiedAt ?? null,
     })
     .returning(userColumns);
   return row;

@@ -17,6 +17,8 @@ export const users = pgTable(
     email: text('email').notNull(),
     name: text('name').notNull(),
     passwordHash: text('password_hash').notNull(),
+    /** Set when the owner of the address opened the confirmation link; sign-in needs it. */
+    emailVerifiedAt: timestamp('email_verified_at', { withTimezone: true }),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
   },
@@ -84,4 +86,46 @@ export const passwordResets = pgTable(
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [uniqueIndex('password_resets_token_uq').on(t.tokenHash)],
+);
+
+/**
+ * A sign-in session. The session cookie names the row; signing out, "sign out everywhere", a
+ * password change or removal from a team revoke rows, and idle / absolute timeouts end them.
+ */
+export const userSessions = pgTable(
+  'user_sessions',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    userId: uuid('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    lastSeenAt: timestamp('last_seen_at', { withTimezone: true }).notNull().defaultNow(),
+    /** The absolute end, fixed at sign-in. */
+    expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+    revokedAt: timestamp('revoked_at', { withTimezone: true }),
+    revokedReason: text('revoked_reason'),
+    /** Coarse description for the account page ("Firefox on Linux, desktop"); no raw user agent. */
+    device: text('device').notNull().default(''),
+  },
+  (t) => [index('user_sessions_user_idx').on(t.userId)],
+);
+
+/** A one-time, expiring e-mail confirmation token (hash only). */
+export const emailConfirmations = pgTable(
+  'email_confirmations',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    userId: uuid('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    tokenHash: text('token_hash').notNull(),
+    expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+    usedAt: timestamp('used_at', { withTimezone: true }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    uniqueIndex('email_confirmations_token_uq').on(t.tokenHash),
+    index('email_confirmations_user_idx').on(t.userId),
+  ],
 );

@@ -3,3 +3,4 @@ export * from './accounts';
 export * from './studies';
 export * from './fieldwork';
 export * from './models';
+export * from './audit';

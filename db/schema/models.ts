@@ -2,6 +2,7 @@
 import {
   doublePrecision,
   index,
+  integer,
   jsonb,
   pgTable,
   primaryKey,
@@ -37,6 +38,8 @@ export const runs = pgTable(
     error: text('error'),
     attempts: doublePrecision('attempts').notNull().default(0),
     cancelRequested: timestamp('cancel_requested', { withTimezone: true }),
+    /** Respondents whose data this run used and who have since been erased on request. */
+    erasedRespondents: integer('erased_respondents').notNull().default(0),
     createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     startedAt: timestamp('started_at', { withTimezone: true }),

@@ -5,8 +5,8 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { randomBytes } from 'node:crypto';
-import bcrypt from 'bcryptjs';
-import { eq } from 'drizzle-orm';
+import { hashPassword } from '../../server/lib/passwords';
+import { eq, sql } from 'drizzle-orm';
 import type { Db } from '../client';
 import { memberships, teams, users } from '../schema/accounts';
 import type { Role } from '../../shared/permissions';
@@ -54,11 +54,19 @@ export async function seedDemoAccounts(
       [team] = await tx.insert(teams).values({ name: DEMO_TEAM_NAME }).returning({ id: teams.id });
     let ownerId = '';
     for (const c of credentials) {
-      const passwordHash = await bcrypt.hash(c.password, 10);
+      const passwordHash = await hashPassword(c.password);
       const [u] = await tx
         .insert(users)
-        .values({ email: c.email, name: c.name, passwordHash })
-        .onConflictDoUpdate({ target: users.email, set: { passwordHash, name: c.name } })
+        // Demo accounts are confirmed, so the printed sign-ins work at once.
+        .values({ email: c.email, name: c.name, passwordHash, emailVerifiedAt: new Date() })
+        .onConflictDoUpdate({
+          target: users.email,
+          set: {
+            passwordHash,
+            name: c.name,
+            emailVerifiedAt: sql`coalesce(${users.emailVerifiedAt}, now())`,
+          },
+        })
         .returning({ id: users.id });
       await tx
         .insert(memberships)

@@ -1,5 +1,6 @@
 /** Signing up, in and out through the real screens. */
 import { expect, type Page } from '@playwright/test';
+import { firstLink, waitForMail } from './mail';
 
 export const E2E_PASSWORD = 'taste and odour warnings';
 
@@ -13,9 +14,18 @@ export async function fillSignUp(page: Page, p: Person & { teamName?: string }):
   await page.getByRole('button', { name: 'Create account' }).click();
 }
 
+/** After the form: the inbox notice, then the link from the confirmation mail signs in. */
+export async function confirmFromMail(page: Page, email: string): Promise<void> {
+  await expect(page.getByRole('heading', { name: 'Check your inbox' })).toBeVisible();
+  const mail = await waitForMail(email, 15_000, /^Confirm your e-mail address/);
+  await page.goto(firstLink(mail.text));
+  await page.getByRole('button', { name: 'Confirm and sign in' }).click();
+}
+
 export async function signUp(page: Page, p: Person & { teamName: string }): Promise<void> {
   await page.goto('/sign-up');
   await fillSignUp(page, p);
+  await confirmFromMail(page, p.email);
   await expect(page.getByRole('heading', { name: 'Studies' })).toBeVisible();
 }
 

@@ -6,6 +6,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { expect, type APIRequestContext } from '@playwright/test';
 import { demoQuestionnaire } from '../../shared/schemas/questionnaire-defaults';
+import type { Questionnaire } from '../../shared/schemas/questionnaire';
 import type { StudyDefinition } from '../../shared/schemas/study-definition';
 
 const levels = (prefix: string, values: number[], unit = '') =>
@@ -70,7 +71,7 @@ export const larkspurDefinition: StudyDefinition = {
     label: 'Current service',
     levels: { bill: 'b0', interrupt: 'i4', warn: 'w6', river: 'poor', renew: 'r20' },
   },
-  prohibitions: [],
+  excludedCombinations: [],
 };
 
 export function demoEditor(): { email: string; password: string } {
@@ -91,8 +92,15 @@ export async function signInEditor(api: APIRequestContext): Promise<string> {
   return me.teams[0].id as string;
 }
 
-/** A new live study: definition, a random 2-block design of 8 tasks, the demo questionnaire. */
-export async function createLiveStudy(api: APIRequestContext, name: string) {
+/**
+ * A new live study: definition, a random 2-block design of 8 tasks, and the demo
+ * questionnaire unless another one is given.
+ */
+export async function createLiveStudy(
+  api: APIRequestContext,
+  name: string,
+  questionnaire: Questionnaire = demoQuestionnaire(larkspurDefinition),
+) {
   const teamId = await signInEditor(api);
   const created = await api.post(`/api/teams/${teamId}/studies`, { data: { name } });
   expect(created.status()).toBe(201);
@@ -111,7 +119,7 @@ export async function createLiveStudy(api: APIRequestContext, name: string) {
     })
     .toBe(true);
   const saved = await api.put(`${base}/questionnaire`, {
-    data: { questionnaire: demoQuestionnaire(larkspurDefinition) },
+    data: { questionnaire },
   });
   expect(saved.status()).toBe(200);
   const live = await api.post(`${base}/lifecycle/go-live`);

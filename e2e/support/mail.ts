@@ -13,13 +13,16 @@ export function uniqueAddress(prefix: string): string {
   return `${prefix}-${randomBytes(4).toString('hex')}@example.test`;
 }
 
-export async function waitForMail(to: string, timeoutMs = 15_000): Promise<Mail> {
+/** The newest mail to an address (whose subject matches, when given). */
+export async function waitForMail(to: string, timeoutMs = 15_000, subject?: RegExp): Promise<Mail> {
   const deadline = Date.now() + timeoutMs;
   for (;;) {
     const res = await fetch(MAIL_API);
     if (!res.ok) throw new Error(`mail server answered ${res.status}`);
-    const mails = ((await res.json()) as Mail[]).filter((m) =>
-      m.to.some((t) => t.address.toLowerCase() === to.toLowerCase()),
+    const mails = ((await res.json()) as Mail[]).filter(
+      (m) =>
+        m.to.some((t) => t.address.toLowerCase() === to.toLowerCase()) &&
+        (!subject || subject.test(m.subject)),
     );
     if (mails.length > 0) return mails[mails.length - 1];
     if (Date.now() > deadline) throw new Error(`no mail to ${to} within ${timeoutMs} ms`);

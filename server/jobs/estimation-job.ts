@@ -135,6 +135,7 @@ export async function runEstimationJob(
     let lastStart = 1;
     const result = await runEstimation(spec, built, {
       threads: options.threads ?? Math.max(2, deps.env.WORKER_THREADS),
+      kernel: deps.env.ESTIMATION_KERNEL,
       signal: abort.signal,
       // HB: iterations of the slowest chain; latent class: starts done over all class counts.
       onSamplerProgress: (p) => {
@@ -150,6 +151,7 @@ export async function runEstimationJob(
         };
         report();
       },
+      onNote: (note) => deps.logger.warn({ runId }, note),
       onProgress: (p) => {
         if (p.start !== lastStart) {
           offset = latest.iteration ?? offset;
@@ -161,6 +163,7 @@ export async function runEstimationJob(
           iteration: offset + p.iteration,
           loglik: p.loglik,
           gradientNorm: p.gradientNorm,
+          secondsLeft: Number.isFinite(p.secondsLeft) ? Math.round(p.secondsLeft) : undefined,
           initialGradientNorm: latest.initialGradientNorm ?? p.gradientNorm,
           start: p.start,
         };

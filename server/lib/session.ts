@@ -1,24 +1,24 @@
 /**
- * Sign-in sessions: a JWT in an httpOnly, SameSite=Lax cookie. The token carries only the user
- * id and a version stamp so a password change signs out older sessions.
+ * Sign-in sessions: a JWT in an httpOnly, SameSite=Lax cookie naming a server-side session row
+ * (db/schema/accounts.ts, user_sessions). The token alone proves nothing: the row must still be
+ * open — not revoked, not idle past the idle timeout, not past its absolute end.
  */
 import jwt from 'jsonwebtoken';
 import type { CookieOptions } from 'express';
 
 export const SESSION_COOKIE = 'cw_session';
-export const SESSION_TTL_SECONDS = 60 * 60 * 24 * 7;
 
-export type SessionClaims = { sub: string; pwd: string };
+export type SessionClaims = { sub: string; sid: string };
 
-export function signSession(secret: string, claims: SessionClaims): string {
-  return jwt.sign(claims, secret, { expiresIn: SESSION_TTL_SECONDS, algorithm: 'HS256' });
+export function signSession(secret: string, claims: SessionClaims, ttlSeconds: number): string {
+  return jwt.sign(claims, secret, { expiresIn: ttlSeconds, algorithm: 'HS256' });
 }
 
 export function verifySession(secret: string, token: string): SessionClaims | null {
   try {
     const p = jwt.verify(token, secret, { algorithms: ['HS256'] });
-    if (typeof p === 'object' && typeof p.sub === 'string' && typeof p.pwd === 'string') {
-      return { sub: p.sub, pwd: p.pwd };
+    if (typeof p === 'object' && typeof p.sub === 'string' && typeof p.sid === 'string') {
+      return { sub: p.sub, sid: p.sid };
     }
     return null;
   } catch {
@@ -26,11 +26,6 @@ export function verifySession(secret: string, token: string): SessionClaims | nu
   }
 }
 
-export function sessionCookieOptions(secure: boolean): CookieOptions {
-  return { httpOnly: true, sameSite: 'lax', secure, path: '/', maxAge: SESSION_TTL_SECONDS * 1000 };
-}
-
-/** A short stamp of the password hash: changes whenever the password does. */
-export function passwordStamp(passwordHash: string): string {
-  return passwordHash.slice(-10);
+export function sessionCookieOptions(secure: boolean, ttlSeconds: number): CookieOptions {
+  return { httpOnly: true, sameSite: 'lax', secure, path: '/', maxAge: ttlSeconds * 1000 };
 }

@@ -7,38 +7,52 @@ import type { RequestHandler } from 'express';
 import { z } from 'zod';
 import type { AppDeps } from '../deps';
 import { ForbiddenError, NotFoundError, UnauthenticatedError } from '../lib/errors';
-import { passwordStamp, SESSION_COOKIE, verifySession } from '../lib/session';
-import { getUserById } from '../../db/queries/users';
+import { SESSION_COOKIE } from '../lib/session';
+import { resumeSession } from '../services/sessions';
 import { getMembership } from '../../db/queries/memberships';
 import { roleCan, type Permission } from '../../shared/permissions';
+import { declareAccess } from './access';
 
 export function requireUser(deps: AppDeps): RequestHandler {
-  return async (req, _res, next) => {
-    const token = req.cookies?.[SESSION_COOKIE];
-    const claims = typeof token === 'string' ? verifySession(deps.env.JWT_SECRET, token) : null;
-    if (!claims) return next(new UnauthenticatedError());
-    const user = await getUserById(deps.db, { id: claims.sub });
-    if (!user || passwordStamp(user.passwordHash) !== claims.pwd)
-      return next(new UnauthenticatedError());
-    req.auth = { userId: user.id, email: user.email, name: user.name };
-    next();
-  };
+  return declareAccess(
+    async (req, _res, next) => {
+      const token = req.cookies?.[SESSION_COOKIE];
+      const open = typeof token === 'string' ? await resumeSession(deps, token) : null;
+      if (!open) return next(new UnauthenticatedError());
+      const { user, sessionId } = open;
+      req.auth = { userId: user.id, email: user.email, name: user.name, sessionId };
+      next();
+    },
+    { kind: 'user' },
+  );
+}
+
+/** The signed-in user as the audit trail names them. */
+export function actorOf(req: Express.Request): { userId: string; email: string } {
+  if (!req.auth) throw new UnauthenticatedError();
+  return { userId: req.auth.userId, email: req.auth.email };
 }
 
 const teamParams = z.object({ teamId: z.uuid('Unknown team') });
 
 /** Loads the membership for :teamId (404 when the caller is not a member) and checks the permission. */
 export function requireTeam(deps: AppDeps, permission: Permission): RequestHandler {
-  return async (req, _res, next) => {
-    if (!req.auth) return next(new UnauthenticatedError());
-    const parsed = teamParams.safeParse(req.params);
-    if (!parsed.success) return next(new NotFoundError('Team'));
-    const m = await getMembership(deps.db, { teamId: parsed.data.teamId, userId: req.auth.userId });
-    if (!m) return next(new NotFoundError('Team'));
-    req.member = { teamId: m.teamId, role: m.role };
-    if (!roleCan(m.role, permission)) return next(new ForbiddenError());
-    next();
-  };
+  return declareAccess(
+    async (req, _res, next) => {
+      if (!req.auth) return next(new UnauthenticatedError());
+      const parsed = teamParams.safeParse(req.params);
+      if (!parsed.success) return next(new NotFoundError('Team'));
+      const m = await getMembership(deps.db, {
+        teamId: parsed.data.teamId,
+        userId: req.auth.userId,
+      });
+      if (!m) return next(new NotFoundError('Team'));
+      req.member = { teamId: m.teamId, role: m.role };
+      if (!roleCan(m.role, permission)) return next(new ForbiddenError());
+      next();
+    },
+    { kind: 'team', permission },
+  );
 }
 
 /** For handlers that need a finer check after requireTeam (e.g. personal data columns). */

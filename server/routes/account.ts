@@ -1,22 +1,47 @@
+/**
+ * /api/account — the signed-in user's own account: name and password, and the open sign-in
+ * sessions (list, sign one out, sign out everywhere).
+ */
 import { Router } from 'express';
 import type { AppDeps } from '../deps';
-import { parseBody } from '../middleware/validate';
+import { parseBody, parseParams } from '../middleware/validate';
 import { requireUser } from '../middleware/auth';
-import { updateAccountSchema } from '../../shared/schemas/auth';
+import { sessionParamsSchema, updateAccountSchema } from '../../shared/schemas/auth';
 import * as auth from '../services/auth';
-import { setSessionCookie } from './auth';
+import { endUserSessions, listSessions, signOutSession } from '../services/sessions';
+import { recordAudit } from '../services/audit';
+import { clearSessionCookie } from './auth';
 
 export function createAccountRouter(deps: AppDeps): Router {
   const router = Router();
   router.use(requireUser(deps));
   router.patch('/', async (req, res) => {
-    const { token } = await auth.updateAccount(
-      deps,
-      req.auth!.userId,
-      parseBody(updateAccountSchema, req),
-    );
-    if (token) setSessionCookie(deps, res, token);
-    res.json(await auth.getCurrentUser(deps, req.auth!.userId));
+    const { userId, sessionId } = req.auth!;
+    await auth.updateAccount(deps, { userId, sessionId }, parseBody(updateAccountSchema, req));
+    res.json(await auth.getCurrentUser(deps, userId));
+  });
+
+  router.get('/sessions', async (req, res) => {
+    res.json(await listSessions(deps, req.auth!.userId, req.auth!.sessionId));
+  });
+  router.delete('/sessions/:sessionId', async (req, res) => {
+    const { sessionId } = parseParams(sessionParamsSchema, req);
+    await signOutSession(deps, req.auth!.userId, sessionId);
+    if (sessionId === req.auth!.sessionId) clearSessionCookie(res);
+    res.status(204).end();
+  });
+  router.post('/sessions/sign-out-everywhere', async (req, res) => {
+    const { userId, email } = req.auth!;
+    await deps.db.transaction(async (tx) => {
+      const ended = await endUserSessions(tx, userId, 'signed_out_everywhere');
+      await recordAudit(tx, {
+        action: 'auth.sessions_revoked',
+        actor: { userId, email },
+        details: { sessionsEnded: ended },
+      });
+    });
+    clearSessionCookie(res);
+    res.status(204).end();
   });
   return router;
 }

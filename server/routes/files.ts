@@ -8,6 +8,7 @@ import type { AppDeps } from '../deps';
 import { parseParams } from '../middleware/validate';
 import { memberOf, requireTeam, requireUser } from '../middleware/auth';
 import { acceptOneFile, requireFile } from '../middleware/upload';
+import { publicRoute } from '../middleware/access';
 import { studyParamsSchema } from '../services/study-access';
 import { NotFoundError } from '../lib/errors';
 import {
@@ -36,15 +37,19 @@ const keySchema = z.object({ key: z.string().regex(/^[A-Za-z0-9_-]{16,64}\.[a-z0
 
 export function createPublicFilesRouter(deps: AppDeps): Router {
   const router = Router();
-  router.get('/:key', async (req, res) => {
-    const parsed = keySchema.safeParse(req.params);
-    if (!parsed.success) throw new NotFoundError('File');
-    const file = await readPublicFile(deps, parsed.data.key);
-    res
-      .set('Cache-Control', 'public, max-age=31536000, immutable')
-      .set('Content-Security-Policy', "default-src 'none'")
-      .type(file.contentType)
-      .send(file.bytes);
-  });
+  router.get(
+    '/:key',
+    publicRoute('respondents see level images; keys are unguessable'),
+    async (req, res) => {
+      const parsed = keySchema.safeParse(req.params);
+      if (!parsed.success) throw new NotFoundError('File');
+      const file = await readPublicFile(deps, parsed.data.key);
+      res
+        .set('Cache-Control', 'public, max-age=31536000, immutable')
+        .set('Content-Security-Policy', "default-src 'none'")
+        .type(file.contentType)
+        .send(file.bytes);
+    },
+  );
   return router;
 }

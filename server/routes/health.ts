@@ -1,10 +1,11 @@
 import { Router } from 'express';
 import { sql } from 'drizzle-orm';
 import type { AppDeps } from '../deps';
+import { publicRoute } from '../middleware/access';
 
 export function createHealthRouter(deps: AppDeps): Router {
   const router = Router();
-  router.get('/', async (_req, res) => {
+  router.get('/', publicRoute('load balancer health check'), async (_req, res) => {
     try {
       await deps.db.execute(sql`select 1`);
       res.json({ status: 'ok', database: 'ok' });

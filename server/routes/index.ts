@@ -23,6 +23,7 @@ import { createResponsesRouter } from './responses';
 import { createTastesRouter } from './tastes';
 import { createSharesRouter } from './shares';
 import { createExportsRouter } from './exports';
+import { createPreviewRouter } from './preview';
 
 export function mountApiRoutes(api: Router, deps: AppDeps): void {
   api.use('/health', createHealthRouter(deps));
@@ -40,6 +41,7 @@ export function mountApiRoutes(api: Router, deps: AppDeps): void {
   api.use('/teams/:teamId/studies/:studyId/shares', createSharesRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/exports', createExportsRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/runs', createRunsRouter(deps));
+  api.use('/teams/:teamId/studies/:studyId/preview', createPreviewRouter(deps));
   api.use('/r/:publicId', createRespondRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/questionnaire', createQuestionnaireRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/lifecycle', createLifecycleRouter(deps));

@@ -1,12 +1,18 @@
 /**
  * /api/r/:publicId — the respondent API. No sign-in: the public id names the survey and the
  * session token (header X-Respondent-Token) names the respondent's own session; a token from
- * another session or survey finds nothing (404). Starting sessions is rate-limited per IP.
+ * another session or survey finds nothing (404). Starting sessions is rate-limited per address
+ * and per personal link; every session-bound request per session token.
  */
 import { Router, type Request } from 'express';
-import { rateLimit } from 'express-rate-limit';
 import type { AppDeps } from '../deps';
 import { parseBody } from '../middleware/validate';
+import {
+  personalLinkStartLimit,
+  respondentSessionLimit,
+  respondentStartLimit,
+} from '../middleware/rate-limits';
+import { publicRoute } from '../middleware/access';
 import { AppError, NotFoundError } from '../lib/errors';
 import {
   publicIdParamsSchema,
@@ -36,20 +42,9 @@ function tokenOf(req: Request): string {
 
 export function createRespondRouter(deps: AppDeps): Router {
   const router = Router({ mergeParams: true });
-  const startLimit = rateLimit({
-    windowMs: 15 * 60 * 1000,
-    limit: deps.env.RESPONDENT_START_RATE_LIMIT,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: (_req, res) => {
-      res.status(429).json({
-        error: {
-          code: 'rate_limited',
-          message: 'Too many new sessions from this network. Try again later.',
-        },
-      });
-    },
-  });
+  const startLimits = [respondentStartLimit(deps), personalLinkStartLimit(deps)];
+  const perSession = respondentSessionLimit(deps);
+  router.use(publicRoute('respondents have no account: link id and session token'));
   router.use((_req, res, next) => {
     // Answers and sessions are personal: never cached by the browser or a proxy.
     res.set('Cache-Control', 'no-store');
@@ -61,16 +56,16 @@ export function createRespondRouter(deps: AppDeps): Router {
     const query = linkQuerySchema.safeParse(req.query);
     res.json(await sessions.getLinkInfo(deps, publicId, query.success ? query.data : {}));
   });
-  router.post('/sessions', startLimit, async (req, res) => {
+  router.post('/sessions', ...startLimits, async (req, res) => {
     const publicId = publicIdOf(req);
     const input = parseBody(startSessionSchema, req);
     res.status(201).json(await sessions.startSession(deps, publicId, input));
   });
-  router.get('/session', async (req, res) => {
+  router.get('/session', perSession, async (req, res) => {
     const publicId = publicIdOf(req);
     res.json(await sessions.getSession(deps, publicId, tokenOf(req)));
   });
-  router.post('/answers', async (req, res) => {
+  router.post('/answers', perSession, async (req, res) => {
     const publicId = publicIdOf(req);
     const token = tokenOf(req);
     const input = parseBody(submitAnswerSchema, req);

@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import type { AppDeps } from '../deps';
 import { parseBody, parseParams } from '../middleware/validate';
-import { memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { actorOf, memberOf, requireTeam, requireUser } from '../middleware/auth';
 import {
   changeRoleSchema,
   createInvitationSchema,
@@ -42,11 +42,11 @@ export function createTeamsRouter(deps: AppDeps): Router {
   router.patch('/:teamId/members/:userId', requireTeam(deps, 'team:manage'), async (req, res) => {
     const { userId } = parseParams(memberParamsSchema, req);
     const { role } = parseBody(changeRoleSchema, req);
-    res.json(await teams.changeMemberRole(deps, memberOf(req).teamId, userId, role));
+    res.json(await teams.changeMemberRole(deps, actorOf(req), memberOf(req).teamId, userId, role));
   });
   router.delete('/:teamId/members/:userId', requireTeam(deps, 'team:manage'), async (req, res) => {
     const { userId } = parseParams(memberParamsSchema, req);
-    await teams.removeMember(deps, memberOf(req).teamId, userId);
+    await teams.removeMember(deps, actorOf(req), memberOf(req).teamId, userId);
     res.status(204).end();
   });
 
@@ -58,14 +58,20 @@ export function createTeamsRouter(deps: AppDeps): Router {
     const input = parseBody(createInvitationSchema, req);
     res
       .status(201)
-      .json(await invitations.inviteTeammate(deps, { ...m, name: req.auth!.name }, input));
+      .json(
+        await invitations.inviteTeammate(
+          deps,
+          { ...m, name: req.auth!.name, email: req.auth!.email },
+          input,
+        ),
+      );
   });
   router.delete(
     '/:teamId/invitations/:invitationId',
     requireTeam(deps, 'team:manage'),
     async (req, res) => {
       const { invitationId } = parseParams(invitationParamsSchema, req);
-      await invitations.cancelInvitation(deps, memberOf(req).teamId, invitationId);
+      await invitations.cancelInvitation(deps, actorOf(req), memberOf(req).teamId, invitationId);
       res.status(204).end();
     },
   );

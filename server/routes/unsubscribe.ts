@@ -7,12 +7,14 @@ import { Router } from 'express';
 import type { AppDeps } from '../deps';
 import { parseParams } from '../middleware/validate';
 import { authRateLimit } from '../middleware/rate-limits';
+import { publicRoute } from '../middleware/access';
 import { unsubscribeParamsSchema } from '../../shared/schemas/invitees';
 import * as invitees from '../services/invitees';
 
 export function createUnsubscribeRouter(deps: AppDeps): Router {
   const router = Router();
-  const limited = authRateLimit(deps.env.AUTH_RATE_LIMIT);
+  router.use(publicRoute('the personal-link token is the credential (RFC 8058 one-click)'));
+  const limited = authRateLimit(deps, 'unsubscribe');
   router.get('/:token', limited, async (req, res) => {
     const { token } = parseParams(unsubscribeParamsSchema, req);
     res.json(await invitees.getUnsubscribeStatus(deps, token));

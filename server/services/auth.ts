@@ -1,14 +1,28 @@
-/** Sign up, sign in, password reset and the account of the signed-in user. */
-import bcrypt from 'bcryptjs';
+/**
+ * Sign up (with e-mail confirmation), sign in, password reset and the signed-in user's account.
+ * Sign-up and forgot-password answer the same way whether or not the address has an account,
+ * and do their work after the answer has gone out, so neither the answer nor its timing tells.
+ */
 import type { AppDeps } from '../deps';
-import { ConflictError, UnauthenticatedError, ValidationError } from '../lib/errors';
+import { AppError, UnauthenticatedError, ValidationError } from '../lib/errors';
 import { createOneTimeToken, hashToken } from '../lib/tokens';
-import { passwordStamp, signSession } from '../lib/session';
+import { dummyHash, hashPassword, verifyPassword } from '../lib/passwords';
+import { runAfterResponse } from '../lib/after-response';
 import { getUserByEmail, getUserById, insertUser, updateUser } from '../../db/queries/users';
 import { insertMembership, insertTeam, listTeamsOfUser } from '../../db/queries/memberships';
 import { consumePasswordReset, insertPasswordReset } from '../../db/queries/tokens';
+import {
+  consumeEmailConfirmation,
+  insertEmailConfirmation,
+  markEmailVerified,
+} from '../../db/queries/email-confirmations';
 import { passwordResetMail } from '../mail/templates';
+import { accountExistsMail, confirmEmailMail } from '../mail/account-templates';
+import { endUserSessions, openSession } from './sessions';
+import { recordAudit } from './audit';
 import type {
+  AcceptedMessage,
+  ConfirmEmailInput,
   CurrentUser,
   ForgotPasswordInput,
   ResetPasswordInput,
@@ -17,18 +31,17 @@ import type {
   UpdateAccountInput,
 } from '../../shared/schemas/auth';
 
-const BCRYPT_ROUNDS = 10;
 export const RESET_TTL_MINUTES = 30;
-// Compared against when the e-mail is unknown, so sign-in takes as long either way.
-const DUMMY_HASH = bcrypt.hashSync('not-a-real-password', BCRYPT_ROUNDS);
+export const CONFIRM_TTL_HOURS = 48;
 
-export async function hashPassword(password: string): Promise<string> {
-  return bcrypt.hash(password, BCRYPT_ROUNDS);
-}
+type Client = { userAgent?: string };
 
-export function issueSession(deps: AppDeps, user: { id: string; passwordHash: string }): string {
-  return signSession(deps.env.JWT_SECRET, { sub: user.id, pwd: passwordStamp(user.passwordHash) });
-}
+const invalidLink = (kind: string, then: string) =>
+  new ValidationError(
+    `This ${kind} link is invalid, used or expired. ${then}`,
+    [{ path: 'token', message: 'Invalid, used or expired link' }],
+    'invalid_token',
+  );
 
 export async function getCurrentUser(deps: AppDeps, userId: string): Promise<CurrentUser> {
   const user = await getUserById(deps.db, { id: userId });
@@ -42,73 +55,152 @@ export async function getCurrentUser(deps: AppDeps, userId: string): Promise<Cur
   };
 }
 
-/** A new account always gets its own team, owned by the new user. */
-export async function signUp(deps: AppDeps, input: SignUpInput) {
-  if (await getUserByEmail(deps.db, { email: input.email })) {
-    throw new ConflictError('email_taken', 'An account with this e-mail already exists.', [
-      { path: 'email', message: 'An account with this e-mail already exists' },
-    ]);
-  }
-  const passwordHash = await hashPassword(input.password);
-  const user = await deps.db.transaction(async (tx) => {
-    const u = await insertUser(tx, { email: input.email, name: input.name, passwordHash });
-    const team = await insertTeam(tx, { name: input.teamName });
-    await insertMembership(tx, { teamId: team.id, userId: u.id, role: 'owner' });
-    return u;
+async function sendConfirmation(
+  deps: AppDeps,
+  user: { id: string; email: string },
+  redirectTo?: string,
+) {
+  const { token, hash } = createOneTimeToken();
+  await insertEmailConfirmation(deps.db, {
+    userId: user.id,
+    tokenHash: hash,
+    expiresAt: new Date(Date.now() + CONFIRM_TTL_HOURS * 3_600_000),
   });
-  return { user, token: issueSession(deps, user) };
+  const next = redirectTo ? `&redirectTo=${encodeURIComponent(redirectTo)}` : '';
+  const link = `${deps.env.APP_URL}/confirm-email?token=${encodeURIComponent(token)}${next}`;
+  await deps.mailer.send(confirmEmailMail({ to: user.email, link, hours: CONFIRM_TTL_HOURS }));
 }
 
-export async function signIn(deps: AppDeps, input: SignInInput) {
+/**
+ * A new address gets an unconfirmed account with its own team and a confirmation link; an
+ * address that already has an account gets a notice instead (or, if still unconfirmed, a new
+ * link). The caller always hears the same thing.
+ */
+export function signUp(deps: AppDeps, input: SignUpInput): AcceptedMessage {
+  runAfterResponse(deps.logger, 'sign-up', async () => {
+    const passwordHash = await hashPassword(input.password);
+    const existing = await getUserByEmail(deps.db, { email: input.email });
+    if (existing) {
+      if (!existing.emailVerifiedAt) return sendConfirmation(deps, existing, input.redirectTo);
+      return deps.mailer.send(
+        accountExistsMail({
+          to: existing.email,
+          signInLink: `${deps.env.APP_URL}/sign-in`,
+          resetLink: `${deps.env.APP_URL}/forgot-password`,
+        }),
+      );
+    }
+    const user = await deps.db.transaction(async (tx) => {
+      const u = await insertUser(tx, { email: input.email, name: input.name, passwordHash });
+      const team = await insertTeam(tx, { name: input.teamName });
+      await insertMembership(tx, { teamId: team.id, userId: u.id, role: 'owner' });
+      return u;
+    });
+    await sendConfirmation(deps, user, input.redirectTo);
+  });
+  return {
+    message: `Check your inbox: we sent a message to ${input.email} to confirm the address.`,
+  };
+}
+
+/** Opens the confirmation link: marks the address confirmed and signs the user in. */
+export async function confirmEmail(deps: AppDeps, input: ConfirmEmailInput, client: Client) {
+  return deps.db.transaction(async (tx) => {
+    const now = new Date();
+    const userId = await consumeEmailConfirmation(tx, { tokenHash: hashToken(input.token), now });
+    if (!userId) throw invalidLink('confirmation', 'Sign in to get a new one.');
+    await markEmailVerified(tx, { userId, now });
+    const user = (await getUserById(tx, { id: userId }))!;
+    await recordAudit(tx, {
+      action: 'auth.email_confirmed',
+      actor: { userId, email: user.email },
+    });
+    return { user, session: await openSession(deps, userId, client.userAgent, tx) };
+  });
+}
+
+export async function signIn(deps: AppDeps, input: SignInInput, client: Client) {
   const user = await getUserByEmail(deps.db, { email: input.email });
-  const ok = await bcrypt.compare(input.password, user?.passwordHash ?? DUMMY_HASH);
-  if (!user || !ok) throw new UnauthenticatedError('E-mail or password is wrong.');
-  return { user, token: issueSession(deps, user) };
+  const { ok, rehash } = await verifyPassword(
+    user?.passwordHash ?? (await dummyHash()),
+    input.password,
+  );
+  if (!user || !ok) {
+    await recordAudit(deps.db, {
+      action: 'auth.sign_in_failed',
+      actor: user ? { userId: user.id, email: user.email } : null,
+      details: { reason: user ? 'wrong_password' : 'unknown_account' },
+    });
+    throw new UnauthenticatedError('E-mail or password is wrong.');
+  }
+  if (!user.emailVerifiedAt) {
+    runAfterResponse(deps.logger, 'confirmation mail', () => sendConfirmation(deps, user));
+    throw new AppError(
+      403,
+      'email_unconfirmed',
+      'Confirm your e-mail address first: we have sent you a new link.',
+    );
+  }
+  if (rehash)
+    await updateUser(deps.db, { id: user.id, passwordHash: await hashPassword(input.password) });
+  const session = await openSession(deps, user.id, client.userAgent);
+  await recordAudit(deps.db, {
+    action: 'auth.sign_in',
+    actor: { userId: user.id, email: user.email },
+    targetType: 'session',
+    targetId: session.sessionId,
+  });
+  return { user, session };
 }
 
 /** Always answers the same way, so the form cannot be used to find out who has an account. */
-export async function requestPasswordReset(
-  deps: AppDeps,
-  input: ForgotPasswordInput,
-): Promise<void> {
-  const user = await getUserByEmail(deps.db, { email: input.email });
-  if (!user) return;
-  const { token, hash } = createOneTimeToken();
-  await insertPasswordReset(deps.db, {
-    userId: user.id,
-    tokenHash: hash,
-    expiresAt: new Date(Date.now() + RESET_TTL_MINUTES * 60_000),
-  });
-  const link = `${deps.env.APP_URL}/reset-password?token=${encodeURIComponent(token)}`;
-  await deps.mailer.send(passwordResetMail({ to: user.email, link, minutes: RESET_TTL_MINUTES }));
-}
-
-export async function resetPassword(deps: AppDeps, input: ResetPasswordInput) {
-  const passwordHash = await hashPassword(input.password);
-  const user = await deps.db.transaction(async (tx) => {
-    const userId = await consumePasswordReset(tx, {
-      tokenHash: hashToken(input.token),
-      now: new Date(),
+export function requestPasswordReset(deps: AppDeps, input: ForgotPasswordInput): AcceptedMessage {
+  runAfterResponse(deps.logger, 'password reset mail', async () => {
+    const user = await getUserByEmail(deps.db, { email: input.email });
+    if (!user) return;
+    const { token, hash } = createOneTimeToken();
+    await insertPasswordReset(deps.db, {
+      userId: user.id,
+      tokenHash: hash,
+      expiresAt: new Date(Date.now() + RESET_TTL_MINUTES * 60_000),
     });
-    if (!userId) return null;
-    return updateUser(tx, { id: userId, passwordHash });
+    const link = `${deps.env.APP_URL}/reset-password?token=${encodeURIComponent(token)}`;
+    await deps.mailer.send(passwordResetMail({ to: user.email, link, minutes: RESET_TTL_MINUTES }));
   });
-  if (!user) {
-    throw new ValidationError(
-      'This reset link is invalid, used or expired. Ask for a new one.',
-      [{ path: 'token', message: 'Invalid, used or expired link' }],
-      'invalid_token',
-    );
-  }
-  return { user, token: issueSession(deps, user) };
+  return { message: 'If an account exists for this address, a reset link is on its way.' };
 }
 
-export async function updateAccount(deps: AppDeps, userId: string, input: UpdateAccountInput) {
-  const user = await getUserById(deps.db, { id: userId });
+/** Sets a new password from a reset link: every other session ends, this browser signs in. */
+export async function resetPassword(deps: AppDeps, input: ResetPasswordInput, client: Client) {
+  const passwordHash = await hashPassword(input.password);
+  return deps.db.transaction(async (tx) => {
+    const now = new Date();
+    const userId = await consumePasswordReset(tx, { tokenHash: hashToken(input.token), now });
+    if (!userId) throw invalidLink('reset', 'Ask for a new one.');
+    const user = (await updateUser(tx, { id: userId, passwordHash }))!;
+    // The link came by e-mail, so the address is proven too.
+    await markEmailVerified(tx, { userId, now });
+    const ended = await endUserSessions(tx, userId, 'password_reset');
+    await recordAudit(tx, {
+      action: 'auth.password_reset',
+      actor: { userId, email: user.email },
+      details: { sessionsEnded: ended },
+    });
+    return { user, session: await openSession(deps, userId, client.userAgent, tx) };
+  });
+}
+
+/** Renames the user and, with the current password, changes it: other sessions then end. */
+export async function updateAccount(
+  deps: AppDeps,
+  current: { userId: string; sessionId: string },
+  input: UpdateAccountInput,
+) {
+  const user = await getUserById(deps.db, { id: current.userId });
   if (!user) throw new UnauthenticatedError();
   let passwordHash: string | undefined;
   if (input.newPassword) {
-    const ok = await bcrypt.compare(input.currentPassword ?? '', user.passwordHash);
+    const { ok } = await verifyPassword(user.passwordHash, input.currentPassword ?? '');
     if (!ok) {
       throw new ValidationError('Your current password is wrong.', [
         { path: 'currentPassword', message: 'Current password is wrong' },
@@ -116,7 +208,14 @@ export async function updateAccount(deps: AppDeps, userId: string, input: Update
     }
     passwordHash = await hashPassword(input.newPassword);
   }
-  const updated = await updateUser(deps.db, { id: userId, name: input.name, passwordHash });
-  // A password change signs out other sessions; this one gets a fresh cookie.
-  return { user: updated!, token: passwordHash ? issueSession(deps, updated!) : null };
+  await deps.db.transaction(async (tx) => {
+    await updateUser(tx, { id: current.userId, name: input.name, passwordHash });
+    if (!passwordHash) return;
+    const ended = await endUserSessions(tx, current.userId, 'password_changed', current.sessionId);
+    await recordAudit(tx, {
+      action: 'auth.password_changed',
+      actor: { userId: user.id, email: user.email },
+      details: { otherSessionsEnded: ended },
+    });
+  });
 }

@@ -23,16 +23,11 @@ import { buildProfileTable } from './exports/profile-table';
 import { writeProfilesXlsx } from './exports/profiles-xlsx';
 import { renderRunReport } from './exports/run-report';
 import { buildCovarianceTable, type CovarianceKind } from './exports/covariance-table';
-import { writeCsv, escapeCsvText } from './exports/csv-cells';
-import { parse } from 'csv-parse/sync';
-import { stringify } from 'csv-stringify/sync';
+import { writeCsv } from '../lib/safe-csv';
 
 export type Download = { filename: string; contentType: string; body: string | Buffer };
 
 const CSV = 'text/csv; charset=utf-8';
-
-/** A cell that is a plain number (as the design writer prints numeric levels). */
-const isNumeric = (c: string) => c.trim() !== '' && Number.isFinite(Number(c));
 
 function fileName(studyName: string, kind: string, ext: string, at: Date): string {
   const slug = studyName
@@ -171,16 +166,10 @@ export async function exportDesign(
   const study = await loadStudy(deps, member.teamId, studyId);
   const version = await getLatestVersion(deps.db, { studyId });
   if (!version) throw new NotFoundError('Frozen design');
-  const csv = exportDesignCsv(version.definition as StudyDefinition, version.design as Design);
-  // Level labels are free text: re-escape the cells the design writer leaves as they are.
-  const records = parse(csv) as string[][];
-  const safe = records.map((r, i) =>
-    i === 0 ? r : r.map((c) => (isNumeric(c) ? c : escapeCsvText(c))),
-  );
   return {
     filename: fileName(study.name, 'design', 'csv', at),
     contentType: CSV,
-    body: stringify(safe),
+    body: exportDesignCsv(version.definition as StudyDefinition, version.design as Design),
   };
 }
 

@@ -1,4 +1,5 @@
 /** Inviting teammates by e-mail with a one-time, expiring link. */
+import { recordAudit, type Actor } from './audit';
 import type { AppDeps } from '../deps';
 import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../lib/errors';
 import { createOneTimeToken, hashToken } from '../lib/tokens';
@@ -36,7 +37,7 @@ const toInvitation = (r: {
 
 export async function inviteTeammate(
   deps: AppDeps,
-  actor: { teamId: string; userId: string; name: string },
+  actor: { teamId: string; userId: string; name: string; email: string },
   input: CreateInvitationInput,
 ): Promise<Invitation> {
   const existing = await getUserByEmail(deps.db, { email: input.email });
@@ -55,6 +56,14 @@ export async function inviteTeammate(
     tokenHash: hash,
     invitedBy: actor.userId,
     expiresAt: new Date(Date.now() + INVITATION_TTL_DAYS * 86_400_000),
+  });
+  await recordAudit(deps.db, {
+    teamId: actor.teamId,
+    actor,
+    action: 'invitation.created',
+    targetType: 'invitation',
+    targetId: row.id,
+    details: { role: input.role },
   });
   const link = `${deps.env.APP_URL}/invitations/${encodeURIComponent(token)}`;
   await deps.mailer.send(
@@ -75,9 +84,21 @@ export async function listInvitations(deps: AppDeps, teamId: string): Promise<In
   return rows.map(toInvitation);
 }
 
-export async function cancelInvitation(deps: AppDeps, teamId: string, invitationId: string) {
+export async function cancelInvitation(
+  deps: AppDeps,
+  actor: Actor,
+  teamId: string,
+  invitationId: string,
+) {
   if (!(await revokeInvitation(deps.db, { id: invitationId, teamId, now: new Date() })))
     throw new NotFoundError('Invitation');
+  await recordAudit(deps.db, {
+    teamId,
+    actor,
+    action: 'invitation.cancelled',
+    targetType: 'invitation',
+    targetId: invitationId,
+  });
 }
 
 async function openInvitation(deps: AppDeps, token: string) {
@@ -121,6 +142,14 @@ export async function acceptInvitation(
       throw new ValidationError('This invitation was already used.', undefined, 'invalid_token');
     }
     await insertMembership(tx, { teamId: inv.teamId, userId: user.userId, role: inv.role });
+    await recordAudit(tx, {
+      teamId: inv.teamId,
+      actor: user,
+      action: 'member.joined',
+      targetType: 'user',
+      targetId: user.userId,
+      details: { role: inv.role, invitationId: inv.id },
+    });
   });
   return { teamId: inv.teamId };
 }

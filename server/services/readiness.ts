@@ -8,6 +8,8 @@ import { questionnaireSchema, type Questionnaire } from '../../shared/schemas/qu
 import { CONSENT_PLACEHOLDER } from '../../shared/schemas/questionnaire-defaults';
 import type { FieldworkSettings, ReadinessProblem } from '../../shared/schemas/study-lifecycle';
 import { studyDefinitionSchema, type StudyDefinition } from '../../shared/schemas/study-definition';
+import { checkLevelLabel, formatNumber, getLevelLabel } from '../../shared/study/level-labels';
+import { listUnshownLevels } from '../engine/design/diagnostics/level-balance';
 
 type Input = {
   definition: unknown;
@@ -47,10 +49,36 @@ function checkDesign(definition: StudyDefinition, design: Design): ReadinessProb
       path: 'design',
       message: `Task ${bad.task} of the design does not match the attributes and alternatives. Generate the design again.`,
     });
+  for (const { attribute, level } of listUnshownLevels(definition, design))
+    problems.push({
+      code: 'level_never_shown',
+      path: 'design',
+      message: `${attribute.name}: the level “${getLevelLabel(attribute, level)}” never appears in the choice tasks. Generate the design again, or remove the level.`,
+    });
   for (let b = 1; b <= design.blocks; b++)
     if (!design.tasks.some((t) => t.block === b))
       problems.push({ code: 'empty_block', path: 'design', message: `Block ${b} has no tasks.` });
   return problems;
+}
+
+/**
+ * Numeric levels whose own label does not write the coded value (and that the researcher did
+ * not confirm for that value): respondents would read one number while the model codes another.
+ */
+function checkLevelLabels(definition: StudyDefinition): ReadinessProblem[] {
+  return definition.attributes.flatMap((a, i) =>
+    a.levels.flatMap((l, k) =>
+      checkLevelLabel(a, l) === 'drifted'
+        ? [
+            {
+              code: 'level_label_mismatch',
+              path: `definition.attributes.${i}.levels.${k}.label`,
+              message: `${a.name}: the level shown as “${l.label.trim()}” is coded as ${formatNumber(l.value!)}. Correct or clear the label on Attributes, or confirm it is meant for this value.`,
+            },
+          ]
+        : [],
+    ),
+  );
 }
 
 function checkPagesAgainstStudy(
@@ -81,7 +109,7 @@ function checkPagesAgainstStudy(
       const name = page.kind === 'warmup' ? 'warm-up' : 'holdout';
       if (page.alternatives.length !== definition.alternatives.count)
         problems.push({
-          code: 'fixed_task_mismatch',
+          code: 'hand_set_task_mismatch',
           path,
           message: `The ${name} task needs ${definition.alternatives.count} alternatives.`,
         });
@@ -94,7 +122,7 @@ function checkPagesAgainstStudy(
         for (const a of definition.attributes)
           if (!omitted.has(a.id) && !a.levels.some((l) => l.id === alt.levels[a.id]))
             problems.push({
-              code: 'fixed_task_mismatch',
+              code: 'hand_set_task_mismatch',
               path,
               message: `Choose a level of ${a.name} for alternative ${j + 1} of the ${name} task.`,
             });
@@ -130,6 +158,7 @@ export function checkReadiness(input: Input): ReadinessProblem[] {
       path: 'definition.attributes',
       message: 'Add at least one attribute.',
     });
+  if (definition) problems.push(...checkLevelLabels(definition));
   definition?.attributes.forEach((a, i) => {
     if (a.levels.length < 2)
       problems.push({

@@ -16,6 +16,7 @@ import type {
   DisplayAlternative,
   RespondentPlan,
   RespondentScreen,
+  SurveyView,
   TaskKind,
 } from '../../shared/schemas/respondent';
 import { studyDefinitionSchema, type StudyDefinition } from '../../shared/schemas/study-definition';
@@ -188,6 +189,24 @@ export function buildScreens(version: FrozenVersion, plan: RespondentPlan): Resp
       ? { ...tasks[s.pendingTask], taskIndex: s.pendingTask + 1, taskCount: tasks.length }
       : s,
   );
+}
+
+/**
+ * Everything a respondent's screens are built from: the one path for live sessions and the
+ * Preview section, so the preview cannot differ from what respondents see.
+ */
+export function buildSurveyView(
+  version: FrozenVersion,
+  plan: RespondentPlan,
+  studyName: string,
+): SurveyView {
+  const { attributes, alternatives, fixedAlternative } = version.definition;
+  return {
+    studyName,
+    definition: { attributes, alternatives, fixedAlternative },
+    screens: buildScreens(version, plan),
+    end: endPageOf(version.questionnaire),
+  };
 }
 
 export function endPageOf(questionnaire: Questionnaire): { title: string; body: string } {

@@ -29,7 +29,7 @@ import {
 } from '../../shared/schemas/respondent';
 import { closeIfDue, dueCloseReason, readSettings } from './lifecycle';
 import { chooseLeastFilledBlock, createRespondentPlan } from './respondent-plan';
-import { buildScreens, endPageOf, loadFrozenVersion } from './respondent-screens';
+import { buildSurveyView, loadFrozenVersion } from './respondent-screens';
 
 type PublicStudy = NonNullable<Awaited<ReturnType<typeof getStudyByPublicId>>>;
 
@@ -164,17 +164,13 @@ export async function buildSession(
 ): Promise<RespondentSession> {
   const version = await loadFrozenVersion(db, { id: respondent.versionId, studyId: study.id });
   const plan = respondentPlanSchema.parse(respondent.plan);
-  const screens = buildScreens(version, plan);
+  const survey = buildSurveyView(version, plan, study.publicTitle);
   const answeredKeys = await listAnsweredKeys(db, { respondentId: respondent.id });
-  const { attributes, alternatives, fixedAlternative } = version.definition;
   return {
     sessionToken: respondent.sessionToken,
-    studyName: study.publicTitle,
+    ...survey,
     status: respondent.status,
-    definition: { attributes, alternatives, fixedAlternative },
-    screens,
-    answered: screens.filter((s) => answeredKeys.has(s.key)).map((s) => s.key),
-    end: endPageOf(version.questionnaire),
+    answered: survey.screens.filter((s) => answeredKeys.has(s.key)).map((s) => s.key),
     redirectUrl: redirectFor(
       readSettings(study.settings),
       respondent.status,

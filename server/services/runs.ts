@@ -7,6 +7,7 @@ import type { AppDeps } from '../deps';
 import { AppError, ConflictError, NotFoundError, ValidationError } from '../lib/errors';
 import { loadStudy } from './study-access';
 import { getPreparedColumns } from './estimation/code-answers';
+import { assertRunFitsMemory } from './estimation/run-memory';
 import { getRunSeed, toRunView } from './estimation/run-view';
 import type { ModelFamily } from '../../shared/schemas/estimation-families';
 import {
@@ -123,6 +124,7 @@ export async function createRun(
     throw new ValidationError('There is no such saved filter', [
       { path: 'respondents.filterId', message: 'There is no such saved filter' },
     ]);
+  await assertRunFitsMemory(deps, studyId, spec);
   if (!deps.jobs)
     throw new AppError(503, 'queue_unavailable', 'The job queue is not running; try again soon.');
   const row = await insertRun(deps.db, {

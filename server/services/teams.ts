@@ -15,6 +15,8 @@ import {
   updateTeam,
 } from '../../db/queries/memberships';
 import type { Role } from '../../shared/permissions';
+import { recordAudit, type Actor } from './audit';
+import { endUserSessions } from './sessions';
 import type { Member } from '../../shared/schemas/team';
 
 export async function listMyTeams(deps: AppDeps, userId: string) {
@@ -53,23 +55,53 @@ const lastOwner = () =>
     'A team needs at least one owner. Make someone else owner first.',
   );
 
-export async function changeMemberRole(deps: AppDeps, teamId: string, userId: string, role: Role) {
+/** Changes a member's role and records who did it, in one transaction. */
+export async function changeMemberRole(
+  deps: AppDeps,
+  actor: Actor,
+  teamId: string,
+  userId: string,
+  role: Role,
+) {
   return deps.db.transaction(async (tx) => {
     await lockTeam(tx, { teamId });
     const m = await getMembership(tx, { teamId, userId });
     if (!m) throw new NotFoundError('Member');
     if (m.role === 'owner' && role !== 'owner' && (await countOwners(tx, { teamId })) <= 1)
       throw lastOwner();
-    return updateMembershipRole(tx, { teamId, userId, role });
+    const updated = await updateMembershipRole(tx, { teamId, userId, role });
+    if (m.role !== role)
+      await recordAudit(tx, {
+        teamId,
+        actor,
+        action: 'member.role_changed',
+        targetType: 'user',
+        targetId: userId,
+        details: { from: m.role, to: role },
+      });
+    return updated;
   });
 }
 
-export async function removeMember(deps: AppDeps, teamId: string, userId: string) {
+/**
+ * Removes a member. Their sign-in sessions end too, so a copied session cannot outlive the
+ * removal; the removal and its audit record are one transaction.
+ */
+export async function removeMember(deps: AppDeps, actor: Actor, teamId: string, userId: string) {
   await deps.db.transaction(async (tx) => {
     await lockTeam(tx, { teamId });
     const m = await getMembership(tx, { teamId, userId });
     if (!m) throw new NotFoundError('Member');
     if (m.role === 'owner' && (await countOwners(tx, { teamId })) <= 1) throw lastOwner();
     await deleteMembership(tx, { teamId, userId });
+    const ended = await endUserSessions(tx, userId, 'removed_from_team');
+    await recordAudit(tx, {
+      teamId,
+      actor,
+      action: 'member.removed',
+      targetType: 'user',
+      targetId: userId,
+      details: { role: m.role, sessionsEnded: ended },
+    });
   });
 }

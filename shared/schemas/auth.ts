@@ -7,11 +7,19 @@ export const passwordSchema = z
   .min(10, 'Use at least 10 characters')
   .max(200, 'Use at most 200 characters');
 
+/** A path inside the app to return to after a link (never another site). */
+export const localPathSchema = z
+  .string()
+  .max(500)
+  .regex(/^\/(?![/\\])[^\s]*$/, 'Use a path inside the app');
+
 export const signUpSchema = z.object({
   name: z.string().trim().min(1, 'Enter your name').max(120),
   email: emailSchema,
   password: passwordSchema,
   teamName: z.string().trim().min(1, 'Name your team').max(120),
+  /** Where the confirmation link leads after signing in (e.g. back to an invitation). */
+  redirectTo: localPathSchema.optional(),
 });
 export type SignUpInput = z.infer<typeof signUpSchema>;
 
@@ -22,6 +30,15 @@ export const signInSchema = z.object({
 export type SignInInput = z.infer<typeof signInSchema>;
 
 export const forgotPasswordSchema = z.object({ email: emailSchema });
+
+/** The same answer whether or not the address has an account. */
+export const acceptedMessageSchema = z.object({ message: z.string() });
+export type AcceptedMessage = z.infer<typeof acceptedMessageSchema>;
+
+export const confirmEmailSchema = z.object({
+  token: z.string().min(20, 'This confirmation link is incomplete').max(200),
+});
+export type ConfirmEmailInput = z.infer<typeof confirmEmailSchema>;
 export type ForgotPasswordInput = z.infer<typeof forgotPasswordSchema>;
 
 export const resetPasswordSchema = z.object({
@@ -52,3 +69,16 @@ export const currentUserSchema = z.object({
   teams: z.array(teamSummarySchema),
 });
 export type CurrentUser = z.infer<typeof currentUserSchema>;
+
+/** One open sign-in session of the current user (account page). */
+export const accountSessionSchema = z.object({
+  id: z.uuid(),
+  device: z.string(),
+  createdAt: z.string(),
+  lastSeenAt: z.string(),
+  expiresAt: z.string(),
+  current: z.boolean(),
+});
+export type AccountSession = z.infer<typeof accountSessionSchema>;
+
+export const sessionParamsSchema = z.object({ sessionId: z.uuid('Unknown session') });

@@ -35,6 +35,31 @@ export const designPriorsSchema = z.discriminatedUnion('kind', [
 ]);
 export type DesignPriors = z.infer<typeof designPriorsSchema>;
 
+/**
+ * Dominance screening under the priors' signs (server/engine/design/dominance-tables.ts for
+ * the definition); each rule can be switched off and is reported in the diagnostics.
+ */
+export const dominanceRulesSchema = z.object({
+  /** No designed alternative dominates another one of its task. */
+  betweenDesigned: z.boolean().default(true),
+  /** No designed alternative dominates the opt-out / status quo. */
+  overFixed: z.boolean().default(true),
+  /** The opt-out / status quo dominates no designed alternative. */
+  byFixed: z.boolean().default(true),
+});
+export type DominanceRules = z.infer<typeof dominanceRulesSchema>;
+
+/** How often levels appear, and how much alternatives of a task may share. */
+export const balanceRulesSchema = z.object({
+  /** Every level a designed alternative may show appears at least this often in the design. */
+  minAppearances: z.number().int().min(0).max(1000).default(1),
+  /** Each level of an attribute appears ⌊n/L⌋ or ⌈n/L⌉ times over the designed alternatives. */
+  levelBalance: z.boolean().default(false),
+  /** At most this many attributes show one level in all designed alternatives of a task. */
+  maxOverlap: z.number().int().min(0).max(20).nullable().default(null),
+});
+export type BalanceRules = z.infer<typeof balanceRulesSchema>;
+
 export const designSpecSchema = z
   .object({
     method: designMethodSchema,
@@ -47,6 +72,8 @@ export const designSpecSchema = z
     seed: z.number().int().min(0).max(2147483647).default(1),
     /** Maximum coordinate-exchange passes per start (d_efficient only). */
     maxIterations: z.number().int().min(1).max(1000).default(50),
+    dominance: dominanceRulesSchema.prefault({}),
+    balance: balanceRulesSchema.prefault({}),
   })
   .superRefine((spec, ctx) => {
     if (spec.method !== 'full_factorial' && spec.tasks === undefined)

@@ -34,7 +34,7 @@ function shownAttributes(definition: StudyDefinition, j: number) {
 }
 
 /** Alternatives that differ on every attribute: alternative j takes level (j + a) mod L. */
-export function buildFixedTaskAlternatives(definition: StudyDefinition) {
+export function buildHandSetTaskAlternatives(definition: StudyDefinition) {
   return Array.from({ length: definition.alternatives.count }, (_, j) => ({
     levels: Object.fromEntries(
       shownAttributes(definition, j).map((a) => {
@@ -125,14 +125,14 @@ export function createPage(
         id: id(),
         kind,
         title: 'A first practice choice',
-        alternatives: buildFixedTaskAlternatives(definition),
+        alternatives: buildHandSetTaskAlternatives(definition),
       };
     case 'holdout':
       return {
         id: id(),
         kind,
         title: 'Which option would you choose?',
-        alternatives: buildFixedTaskAlternatives(definition),
+        alternatives: buildHandSetTaskAlternatives(definition),
       };
     case 'repeat':
       return { id: id(), kind, title: 'Which option would you choose?', repeatOf: 1 };

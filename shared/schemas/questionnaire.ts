@@ -59,8 +59,11 @@ export const questionSchema = z.discriminatedUnion('type', [
 export type Question = z.infer<typeof questionSchema>;
 export type QuestionType = Question['type'];
 
-/** A task fixed in the questionnaire (warm-up, holdout): one level id per attribute per alternative. */
-export const fixedTaskAlternativeSchema = z.object({
+/**
+ * A hand-set task: one the researcher composes in the questionnaire (warm-up, holdout), with one
+ * level id per attribute per alternative, instead of taking it from the design.
+ */
+export const handSetTaskAlternativeSchema = z.object({
   levels: z.record(z.string(), elementIdSchema),
 });
 
@@ -100,13 +103,13 @@ export const warmupPageSchema = z.object({
   ...page,
   kind: z.literal('warmup'),
   title,
-  alternatives: z.array(fixedTaskAlternativeSchema).min(2).max(5),
+  alternatives: z.array(handSetTaskAlternativeSchema).min(2).max(5),
 });
 export const holdoutPageSchema = z.object({
   ...page,
   kind: z.literal('holdout'),
   title,
-  alternatives: z.array(fixedTaskAlternativeSchema).min(2).max(5),
+  alternatives: z.array(handSetTaskAlternativeSchema).min(2).max(5),
 });
 export const repeatPageSchema = z.object({
   ...page,

@@ -116,6 +116,24 @@ export type RespondentSession = {
   surveyOpen: boolean;
 };
 
+/** What a respondent's screens are built from: the same for a live session and the Preview. */
+export type SurveyView = Pick<RespondentSession, 'studyName' | 'definition' | 'screens' | 'end'>;
+
+/** The Preview section: the study as one respondent of a block (seed) would walk through it. */
+export type StudyPreview = {
+  block: number;
+  blocks: number;
+  seed: number;
+  /** False while the questionnaire is the default one (never saved). */
+  questionnaireSaved: boolean;
+  survey: SurveyView;
+};
+
+export const studyPreviewQuerySchema = z.object({
+  block: z.coerce.number().int().min(1).max(50).default(1),
+  seed: z.coerce.number().int().min(0).max(2147483647).default(1),
+});
+
 export type AnswerReceipt = {
   screenKey: string;
   /** The screen to show next, or null when the questionnaire is over. */

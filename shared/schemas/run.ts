@@ -75,6 +75,8 @@ export const runProgressSchema = z.object({
   /** Gradient norm at the first iteration: the bar shows progress toward convergence. */
   initialGradientNorm: z.number().optional(),
   elapsedMs: z.number().optional(),
+  /** Estimated seconds until results are ready, from iterations and evaluation time. */
+  secondsLeft: z.number().nonnegative().optional(),
   /** Upper bound of iterations, so the bar can show a share. */
   maxIterations: z.number().int().optional(),
   start: z.number().int().optional(),

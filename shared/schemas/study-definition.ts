@@ -1,6 +1,6 @@
 /**
  * What respondents choose between: attributes and their levels, the alternatives shown per
- * task, an optional opt-out or status-quo alternative, and prohibited level combinations.
+ * task, an optional opt-out or status-quo alternative, and excluded combinations of levels.
  * Stored as one JSON document per study (and frozen into each live version).
  */
 import { z } from 'zod';
@@ -17,10 +17,20 @@ export type Coding = z.infer<typeof codingSchema>;
 
 export const levelSchema = z.object({
   id: elementIdSchema,
-  /** Shown to respondents; for numeric attributes the formatted number is used when empty. */
-  label: z.string().trim().min(1, 'A level needs a label').max(120),
+  /**
+   * Shown to respondents. Categorical levels need one. Numeric levels: an override of the
+   * label derived from value and unit (shared/study/level-labels.ts); empty = derived.
+   */
+  label: z.string().trim().max(120).default(''),
   /** Numeric attributes only: the value used for linear coding and formatting. */
   value: z.number().finite().optional(),
+  /**
+   * Numeric levels whose override does not write the value: the value and label the
+   * researcher confirmed as meant. Stale once either changes.
+   */
+  labelConfirmed: z
+    .object({ value: z.number().finite(), label: z.string().trim().max(120) })
+    .optional(),
   /** Key of an uploaded image in the storage module. */
   imageKey: z.string().max(200).optional(),
 });
@@ -40,16 +50,20 @@ export const attributeSchema = z
     levels: z.array(levelSchema).min(2, 'An attribute needs at least 2 levels').max(12),
   })
   .superRefine((a, ctx) => {
-    if (a.kind === 'numeric') {
-      a.levels.forEach((l, i) => {
-        if (l.value === undefined)
-          ctx.addIssue({
-            code: 'custom',
-            path: ['levels', i, 'value'],
-            message: 'Numeric levels need a value',
-          });
-      });
-    }
+    a.levels.forEach((l, i) => {
+      if (a.kind === 'numeric' && l.value === undefined)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['levels', i, 'value'],
+          message: 'Numeric levels need a value',
+        });
+      if (a.kind === 'categorical' && l.label === '')
+        ctx.addIssue({
+          code: 'custom',
+          path: ['levels', i, 'label'],
+          message: 'A level needs a label',
+        });
+    });
     if (a.coding === 'linear' && a.kind !== 'numeric')
       ctx.addIssue({
         code: 'custom',
@@ -90,12 +104,55 @@ export const fixedAlternativeSchema = z.object({
 });
 export type FixedAlternative = z.infer<typeof fixedAlternativeSchema>;
 
-export const prohibitionSchema = z.object({
-  id: elementIdSchema,
-  a: z.object({ attributeId: elementIdSchema, levelId: elementIdSchema }),
-  b: z.object({ attributeId: elementIdSchema, levelId: elementIdSchema }),
+const levelRefSchema = z.object({ attributeId: elementIdSchema, levelId: elementIdSchema });
+const levelSetSchema = z.object({
+  attributeId: elementIdSchema,
+  levelIds: z.array(elementIdSchema).min(1, 'Choose at least one level').max(12),
 });
-export type Prohibition = z.infer<typeof prohibitionSchema>;
+
+/** How two levels of one attribute compare: by value (numeric attributes) or by identity. */
+export const relationSchema = z.enum([
+  'greater',
+  'at_least',
+  'less',
+  'at_most',
+  'different',
+  'same',
+]);
+export type Relation = z.infer<typeof relationSchema>;
+
+/**
+ * Combinations the design must never show (wording in shared/study/excluded-combinations.ts):
+ * - `pair`: two levels of different attributes never together in one alternative;
+ * - `when_then`: when an attribute shows one of some levels, another shows one of others;
+ * - `versus_status_quo`: an attribute of every designed alternative compared with the status quo;
+ * - `between_alternatives`: an attribute of one designed alternative compared with another's.
+ */
+export const excludedCombinationSchema = z.discriminatedUnion('kind', [
+  z.object({ id: elementIdSchema, kind: z.literal('pair'), a: levelRefSchema, b: levelRefSchema }),
+  z.object({
+    id: elementIdSchema,
+    kind: z.literal('when_then'),
+    when: levelSetSchema,
+    then: levelSetSchema,
+  }),
+  z.object({
+    id: elementIdSchema,
+    kind: z.literal('versus_status_quo'),
+    attributeId: elementIdSchema,
+    relation: relationSchema,
+  }),
+  z.object({
+    id: elementIdSchema,
+    kind: z.literal('between_alternatives'),
+    attributeId: elementIdSchema,
+    /** Designed alternatives (0-based) compared: `first` relation `second`. */
+    first: z.number().int().min(0).max(4),
+    relation: relationSchema,
+    second: z.number().int().min(0).max(4),
+  }),
+]);
+export type ExcludedCombination = z.infer<typeof excludedCombinationSchema>;
 
 export const studyDefinitionSchema = z
   .object({
@@ -112,7 +169,7 @@ export const studyDefinitionSchema = z
       labels: z.array(labeledAlternativeSchema).default([]),
     }),
     fixedAlternative: fixedAlternativeSchema.nullable().default(null),
-    prohibitions: z.array(prohibitionSchema).default([]),
+    excludedCombinations: z.array(excludedCombinationSchema).max(200).default([]),
   })
   .superRefine((d, ctx) => {
     const attrIds = new Set(d.attributes.map((a) => a.id));
@@ -134,21 +191,9 @@ export const studyDefinitionSchema = z
         path: ['alternatives', 'labels'],
         message: 'Name every labeled alternative',
       });
-    const levelOf = (attributeId: string, levelId: string) =>
-      d.attributes.find((a) => a.id === attributeId)?.levels.some((l) => l.id === levelId) ?? false;
-    d.prohibitions.forEach((p, i) => {
-      if (!levelOf(p.a.attributeId, p.a.levelId) || !levelOf(p.b.attributeId, p.b.levelId))
-        ctx.addIssue({
-          code: 'custom',
-          path: ['prohibitions', i],
-          message: 'Prohibition refers to an unknown level',
-        });
-      if (p.a.attributeId === p.b.attributeId)
-        ctx.addIssue({
-          code: 'custom',
-          path: ['prohibitions', i],
-          message: 'A prohibition links two different attributes',
-        });
+    d.excludedCombinations.forEach((rule, i) => {
+      for (const message of checkExcludedCombination(d, rule))
+        ctx.addIssue({ code: 'custom', path: ['excludedCombinations', i], message });
     });
     const fx = d.fixedAlternative;
     if (fx?.kind === 'status_quo') {
@@ -169,5 +214,58 @@ export const emptyStudyDefinition: StudyDefinition = {
   attributes: [],
   alternatives: { count: 2, labeled: false, labels: [] },
   fixedAlternative: null,
-  prohibitions: [],
+  excludedCombinations: [],
 };
+
+type DefinitionShape = Pick<StudyDefinition, 'attributes' | 'alternatives' | 'fixedAlternative'>;
+
+/** What is wrong with one excluded combination in this definition (empty when nothing). */
+function checkExcludedCombination(d: DefinitionShape, rule: ExcludedCombination): string[] {
+  const attribute = (id: string) => d.attributes.find((a) => a.id === id);
+  const hasLevel = (attributeId: string, levelId: string) =>
+    attribute(attributeId)?.levels.some((l) => l.id === levelId) ?? false;
+  const ordering = (relation: Relation) => !['different', 'same'].includes(relation);
+  const problems: string[] = [];
+  switch (rule.kind) {
+    case 'pair':
+      if (
+        !hasLevel(rule.a.attributeId, rule.a.levelId) ||
+        !hasLevel(rule.b.attributeId, rule.b.levelId)
+      )
+        problems.push('The excluded pair refers to an unknown level');
+      if (rule.a.attributeId === rule.b.attributeId)
+        problems.push('An excluded pair links two different attributes');
+      break;
+    case 'when_then':
+      for (const set of [rule.when, rule.then])
+        if (!set.levelIds.every((l) => hasLevel(set.attributeId, l)))
+          problems.push('The rule refers to an unknown level');
+      if (rule.when.attributeId === rule.then.attributeId)
+        problems.push('A “when … then …” rule links two different attributes');
+      break;
+    case 'versus_status_quo':
+    case 'between_alternatives': {
+      const a = attribute(rule.attributeId);
+      if (!a) problems.push('The rule refers to an unknown attribute');
+      else if (ordering(rule.relation) && a.kind !== 'numeric')
+        problems.push(`${a.name} is not numeric: compare it as “different” or “the same”`);
+      if (rule.kind === 'versus_status_quo' && d.fixedAlternative?.kind !== 'status_quo')
+        problems.push('A rule against the status quo needs a status-quo alternative');
+      if (rule.kind === 'between_alternatives') {
+        const { count, labeled, labels } = d.alternatives;
+        if (rule.first === rule.second) problems.push('Compare two different alternatives');
+        if (rule.first >= count || rule.second >= count)
+          problems.push(`There are only ${count} designed alternatives`);
+        else if (
+          labeled &&
+          [rule.first, rule.second].some((j) =>
+            labels[j]?.omittedAttributeIds.includes(rule.attributeId),
+          )
+        )
+          problems.push('One of the two alternatives does not show this attribute');
+      }
+      break;
+    }
+  }
+  return problems;
+}

@@ -17,6 +17,7 @@ export function createRouter(queryClient: QueryClient) {
     { path: paths.signUp.path, lazy: () => import('./routes/auth/sign-up') },
     { path: paths.forgotPassword.path, lazy: () => import('./routes/auth/forgot-password') },
     { path: paths.resetPassword.path, lazy: () => import('./routes/auth/reset-password') },
+    { path: paths.confirmEmail.path, lazy: () => import('./routes/auth/confirm-email') },
     { path: paths.acceptInvitation.path, lazy: () => import('./routes/auth/accept-invitation') },
     // The respondent app: public, no sign-in, outside the researcher shell.
     { path: paths.respond.path, lazy: () => import('./routes/respond/respond') },
@@ -24,6 +25,8 @@ export function createRouter(queryClient: QueryClient) {
     {
       element: <RequireAuth />,
       children: [
+        // The respondent app on the draft, framed by the Preview section (no researcher shell).
+        { path: paths.previewFrame.path, lazy: () => import('./routes/preview-frame') },
         {
           element: <AppShell />,
           children: [

@@ -26,6 +26,7 @@ export const paths = {
     path: '/reset-password',
     getHref: (token: string) => `/reset-password?token=${encodeURIComponent(token)}`,
   },
+  confirmEmail: { path: '/confirm-email', getHref: () => '/confirm-email' },
   acceptInvitation: {
     path: '/invitations/:token',
     getHref: (token: string) => `/invitations/${encodeURIComponent(token)}`,
@@ -65,4 +66,14 @@ export const paths = {
   },
   /** The respondent app (public link); personal links add ?inv=<token>. */
   respond: { path: '/s/:publicId', getHref: (publicId: string) => `/s/${publicId}` },
+  /** The respondent app on a study's current draft, shown inside the Preview section. */
+  previewFrame: {
+    path: '/preview/:teamId/:studyId',
+    getHref: (
+      teamId: string,
+      studyId: string,
+      respondent: { block: number; seed: number; screen: number },
+    ) =>
+      `/preview/${teamId}/${studyId}?block=${respondent.block}&seed=${respondent.seed}&screen=${respondent.screen}`,
+  },
 } as const;

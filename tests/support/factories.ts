@@ -3,7 +3,8 @@ import { randomBytes } from 'node:crypto';
 import type supertest from 'supertest';
 import type { Role } from '../../shared/permissions';
 import type { TestApp } from './test-app';
-import { hashPassword } from '../../server/services/auth';
+import { firstLink, waitForMailWithSubject } from './mailbox';
+import { hashPassword } from '../../server/lib/passwords';
 import { insertUser } from '../../db/queries/users';
 import { insertMembership, insertTeam } from '../../db/queries/memberships';
 
@@ -13,23 +14,34 @@ export function uniqueEmail(prefix = 'user'): string {
   return `${prefix}-${randomBytes(4).toString('hex')}@example.test`;
 }
 
-/** Signs up through the API (the user becomes owner of a new team) and returns a signed-in agent. */
+/**
+ * A confirmed user who owns a new team (as sign-up plus the confirmation link would leave them),
+ * signed in through the real sign-in route. Sign-up itself is tested in tests/server/routes/auth.
+ */
 export async function signUpOwner(
   t: TestApp,
   overrides: Partial<{ name: string; email: string; teamName: string }> = {},
 ) {
-  const agent = t.request();
-  const body = {
+  const email = overrides.email ?? uniqueEmail('owner');
+  const user = await insertUser(t.deps.db, {
+    email,
     name: overrides.name ?? 'Olive Owner',
-    email: overrides.email ?? uniqueEmail('owner'),
-    password: TEST_PASSWORD,
-    teamName: overrides.teamName ?? 'Larkspur Valley Water research',
-  };
-  const res = await agent.post('/api/auth/sign-up').send(body).expect(201);
+    passwordHash: await hashPassword(TEST_PASSWORD),
+    emailVerifiedAt: new Date(),
+  });
+  const team = await insertTeam(t.deps.db, {
+    name: overrides.teamName ?? 'Larkspur Valley Water research',
+  });
+  await insertMembership(t.deps.db, { teamId: team.id, userId: user.id, role: 'owner' });
+  const agent = t.request();
+  const res = await agent
+    .post('/api/auth/sign-in')
+    .send({ email, password: TEST_PASSWORD })
+    .expect(200);
   return {
     agent,
     user: res.body as { id: string; email: string; teams: { id: string }[] },
-    teamId: res.body.teams[0].id as string,
+    teamId: team.id,
   };
 }
 
@@ -39,6 +51,7 @@ export async function addMember(t: TestApp, teamId: string, role: Role, email = 
     email,
     name: `${role} person`,
     passwordHash: await hashPassword(TEST_PASSWORD),
+    emailVerifiedAt: new Date(),
   });
   await insertMembership(t.deps.db, { teamId, userId: user.id, role });
   const agent = t.request();
@@ -76,3 +89,25 @@ export async function createBareTeam(t: TestApp, name = 'Bare team') {
 }
 
 export const randomHex = (n = 4) => randomBytes(n).toString('hex');
+
+/** Signs up through the API and opens the confirmation link from the mail: a signed-in agent. */
+export async function signUpAndConfirm(
+  t: TestApp,
+  p: { name?: string; email?: string; teamName?: string } = {},
+) {
+  const email = p.email ?? uniqueEmail('signup');
+  const agent = t.request();
+  await agent
+    .post('/api/auth/sign-up')
+    .send({
+      name: p.name ?? 'Ines Invitee',
+      email,
+      password: TEST_PASSWORD,
+      teamName: p.teamName ?? 'Own team',
+    })
+    .expect(202);
+  const mail = await waitForMailWithSubject(email, /^Confirm your e-mail address/);
+  const token = new URL(firstLink(mail.text)).searchParams.get('token')!;
+  const res = await agent.post('/api/auth/confirm-email').send({ token }).expect(200);
+  return { agent, user: res.body as { id: string; email: string; teams: { id: string }[] } };
+}

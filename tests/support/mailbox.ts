@@ -28,3 +28,19 @@ export function firstLink(text: string): string {
   if (!m) throw new Error('no link in mail');
   return m[0];
 }
+
+/** Waits for the newest mail to an address whose subject matches. */
+export async function waitForMailWithSubject(
+  address: string,
+  subject: RegExp,
+  timeoutMs = 15_000,
+): Promise<ReceivedMail> {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const mails = (await listMailTo(address)).filter((m) => subject.test(m.subject));
+    if (mails.length > 0) return mails[mails.length - 1];
+    if (Date.now() > deadline)
+      throw new Error(`no mail "${subject}" to ${address} in ${timeoutMs} ms`);
+    await new Promise((r) => setTimeout(r, 100));
+  }
+}

@@ -7,6 +7,7 @@ import type { Express } from 'express';
 import { createApp } from '../../server/app';
 import { loadEnv } from '../../server/env';
 import { createLogger } from '../../server/lib/logger';
+import type { DestinationStream } from 'pino';
 import { createMailer } from '../../server/mail/mailer';
 import type { AppDeps } from '../../server/deps';
 import { createTestDb, type TestDb } from './test-db';
@@ -19,7 +20,10 @@ export type TestApp = {
   close(): Promise<void>;
 };
 
-export async function createTestApp(overrides: Record<string, string> = {}): Promise<TestApp> {
+export async function createTestApp(
+  overrides: Record<string, string> = {},
+  options: { logDestination?: DestinationStream } = {},
+): Promise<TestApp> {
   const testDb = await createTestDb();
   const env = loadEnv({
     NODE_ENV: 'test',
@@ -34,13 +38,17 @@ export async function createTestApp(overrides: Record<string, string> = {}): Pro
     ...overrides,
   });
   const mailer = createMailer(env);
-  const deps: AppDeps = { env, db: testDb.db, logger: createLogger('silent'), mailer };
+  const logger = options.logDestination
+    ? createLogger('info', options.logDestination)
+    : createLogger('silent');
+  const deps: AppDeps = { env, db: testDb.db, logger, mailer };
   const app = createApp(deps);
   return {
     app,
     deps,
     testDb,
-    request: () => supertest.agent(app),
+    // As the app's own pages do: browsers send Origin on every state-changing request.
+    request: () => supertest.agent(app).set('Origin', env.APP_URL),
     async close() {
       mailer.close();
       await testDb.close();

@@ -7,14 +7,23 @@
  * improvements are accepted, so the result is never worse than the start.
  * A singular start is first improved under a small ridge (det(I + ρ·Id)) until the
  * information matrix becomes non-singular, then under the exact criterion.
+ * Level bounds (level-bounds.ts) are kept: a cell changes only when both levels stay within
+ * their counts. With level balance the counts leave little room, so each cell also tries
+ * swapping its level with a cell of the same attribute in another alternative of its task and,
+ * for each other level, with one cell in another task (evaluate-swap.ts); swaps keep counts.
  */
 import type { CodingPlan } from '../../../shared/engine/coding/coding-plan';
 import { isAlternativeValidInTask, type DesignConstraints } from './design-constraints';
 import { createTaskEvaluator, type TaskEvaluator } from './task-evaluator';
 import { buildDesignMatrix, getRowsPerTask, type LevelGrid } from './design-grid';
+import { canMoveLevel, countLevels, moveLevel, type LevelBounds } from './level-bounds';
+import { trySwaps } from './evaluate-swap';
 
 export interface ExchangeOptions {
   maxPasses: number;
+  /** Appearance bounds per level; swaps are tried too when `swaps` is set (level balance). */
+  bounds?: LevelBounds;
+  swaps?: boolean;
   signal?: AbortSignal;
   /** Called after each pass with the pass number (1-based) and the criterion. */
   onPass?: (pass: number, value: number) => void;
@@ -42,6 +51,8 @@ function runPasses(
   passOffset: number,
 ): { value: number; passes: number } {
   const { S, J, A } = grid;
+  const counts = countLevels(c, grid);
+  const bounds = options.bounds;
   let passes = 0;
   for (let pass = 1; passOffset + pass <= options.maxPasses; pass++) {
     let improved = false;
@@ -59,6 +70,7 @@ function runPasses(
           const L = plan.attributes[a].levelIds.length;
           for (let l = 0; l < L; l++) {
             if (l === current) continue;
+            if (bounds && !canMoveLevel(c, bounds, counts, a, current, l)) continue;
             grid.levels[cell + a] = l;
             if (!isAlternativeValidInTask(c, grid, s, j)) continue;
             const bound = value * (1 - MIN_RELATIVE_GAIN);
@@ -73,6 +85,21 @@ function runPasses(
             improved = true;
             taskChanged = true;
             evaluator.commitChange(s, j, a, current, best);
+            moveLevel(c, counts, a, current, best);
+          }
+          if (options.swaps) {
+            const swapped = trySwaps(
+              { plan, c, grid, evaluator, pass },
+              s,
+              j,
+              a,
+              value * (1 - MIN_RELATIVE_GAIN),
+            );
+            if (swapped.touchedTask) taskChanged = true;
+            if (swapped.value < Infinity) {
+              value = swapped.value;
+              improved = true;
+            }
           }
         }
       }

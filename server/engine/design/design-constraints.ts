@@ -1,24 +1,30 @@
 /**
- * Constraints every generated design satisfies, checked per alternative and per task:
- * 1. no prohibited pair of levels inside one alternative;
- * 2. no two identical designed alternatives in a task, and none identical to the status quo;
- * 3. no designed alternative dominated by another designed alternative of the same task.
- *
- * Dominance (definition used here). For attribute a and levels l, l′ the utility difference
- * is d = (c_l − c_l′)·β over a's coded columns; under independent normal priors it has mean
- * μ = (c_l − c_l′)·m and sd σ = sqrt(Σ_k (c_l − c_l′)_k² s_k²). Its sign is *known* when
- * μ ≠ 0 and |μ| ≥ 1.96 σ (at most 2.5 % prior mass on the other sign; fixed priors: σ = 0,
- * zero priors: never known). Alternative A dominates B when, on every attribute, the two
- * show the same level (or both omit it) or A's level is known to be better, and A is better
- * on at least one attribute. A differing attribute of unknown sign (including one shown in
- * only one of the two) rules dominance out. Constants are ignored, and the opt-out /
- * status quo is not compared (choosing it is never "irrational" in itself). This is the
- * attribute-wise non-satiation test of the trade (Reed Johnson et al. 2013 [M]; common
- * practice, no source for the 1.96 threshold).
+ * The rules every generated design keeps, checked per alternative and per task on the level
+ * grid (tables compiled by compile-design-rules.ts):
+ * 1. excluded combinations inside one alternative: levels a designed alternative may not
+ *    show (rules against the status quo) and excluded pairs (pairs and "when … then …");
+ * 2. no two identical designed alternatives in a task, none identical to the status quo;
+ * 3. dominance screening, each rule switchable: designed alternatives do not dominate each
+ *    other, nor the opt-out / status quo, nor are they dominated by it (dominance-tables.ts);
+ * 4. rules between designed alternatives of a task;
+ * 5. at most `maxOverlap` attributes showing one level in every designed alternative.
+ * A task is valid when all its alternatives are; changing one alternative of a valid task
+ * keeps it valid exactly when that alternative is valid (each check involving two
+ * alternatives is symmetric or is checked from both sides, and overlap is rechecked whole).
  */
-import type { CodingPlan } from '../../../shared/engine/coding/coding-plan';
-import type { Prohibition } from '../../../shared/schemas/study-definition';
+import type { Relation } from '../../../shared/schemas/study-definition';
+import { holdsRelation } from '../../../shared/study/excluded-combinations';
 import type { LevelGrid } from './design-grid';
+import { compareLevelRows, compareWithFixed, type DominanceTables } from './dominance-tables';
+
+export interface BetweenRule {
+  /** Index of the excluded combination in the study definition. */
+  rule: number;
+  a: number;
+  first: number;
+  second: number;
+  relation: Relation;
+}
 
 export interface DesignConstraints {
   A: number;
@@ -26,150 +32,138 @@ export interface DesignConstraints {
   /** First flat level index of attribute a; levels of a are base[a] .. base[a+1]−1. */
   levelBase: Int32Array;
   levelTotal: number;
-  /** levelTotal × levelTotal, 1 where the two levels may not appear together. */
-  prohibited: Uint8Array;
-  /** Per attribute, L×L: +1 when level l is known better than l′, −1 known worse, 0 unknown. */
-  preference: Int8Array[];
-  /** True when some attribute has a known ordering (otherwise dominance checks are skipped). */
-  checksDominance: boolean;
+  /** Per flat level: −1 when designed alternatives may show it, else the excluding rule. */
+  levelRule: Int32Array;
+  /** levelTotal²: −1 when two levels may stand together, else the excluding rule. */
+  pairRule: Int32Array;
+  /** Per attribute, the value of each level (numeric) or its index (categorical). */
+  levelValues: Float64Array[];
+  between: BetweenRule[];
+  dominance: DominanceTables;
+  /** Dominance rules in force (switched on and with some known ordering). */
+  checks: { betweenDesigned: boolean; overFixed: boolean; byFixed: boolean };
   /** Status-quo level indices, or null when there is no status quo. */
   statusQuo: Int32Array | null;
+  /** Most attributes with one level in all designed alternatives of a task; −1 = no limit. */
+  maxOverlap: number;
 }
 
-const KNOWN_SIGN_Z = 1.96;
+/** What breaks a rule (0 = nothing). */
+export const Violation = {
+  none: 0,
+  excludedLevel: 1,
+  excludedPair: 2,
+  identical: 3,
+  sameAsStatusQuo: 4,
+  dominatesOther: 5,
+  dominatesFixed: 6,
+  dominatedByFixed: 7,
+  betweenAlternatives: 8,
+  overlap: 9,
+} as const;
+export type ViolationCode = (typeof Violation)[keyof typeof Violation];
 
-/** Precomputes the constraint tables for a coding plan, prohibitions and prior means/sds. */
-export function buildDesignConstraints(
-  plan: CodingPlan,
-  prohibitions: Prohibition[],
-  priorMeans: Float64Array,
-  priorSds: Float64Array,
-): DesignConstraints {
-  const A = plan.attributes.length;
-  const levelBase = new Int32Array(A + 1);
-  plan.attributes.forEach((attribute, a) => {
-    levelBase[a + 1] = levelBase[a] + attribute.levelIds.length;
-  });
-  const levelTotal = levelBase[A];
-  const prohibited = new Uint8Array(levelTotal * levelTotal);
-  for (const p of prohibitions) {
-    const a = plan.attributes.findIndex((x) => x.id === p.a.attributeId);
-    const b = plan.attributes.findIndex((x) => x.id === p.b.attributeId);
-    if (a < 0 || b < 0) continue;
-    const la = plan.attributes[a].levelIds.indexOf(p.a.levelId);
-    const lb = plan.attributes[b].levelIds.indexOf(p.b.levelId);
-    if (la < 0 || lb < 0) continue;
-    prohibited[(levelBase[a] + la) * levelTotal + levelBase[b] + lb] = 1;
-    prohibited[(levelBase[b] + lb) * levelTotal + levelBase[a] + la] = 1;
+/** Excluded levels and pairs inside alternative (s, j). */
+export function checkAlternativeLevels(
+  c: DesignConstraints,
+  grid: LevelGrid,
+  s: number,
+  j: number,
+): ViolationCode {
+  const row = (s * grid.J + j) * grid.A;
+  for (let a = 0; a < c.A; a++) {
+    const la = grid.levels[row + a];
+    if (la < 0) continue;
+    const ia = c.levelBase[a] + la;
+    if (c.levelRule[ia] >= 0) return Violation.excludedLevel;
+    const offset = ia * c.levelTotal;
+    for (let b = a + 1; b < c.A; b++) {
+      const lb = grid.levels[row + b];
+      if (lb >= 0 && c.pairRule[offset + c.levelBase[b] + lb] >= 0) return Violation.excludedPair;
+    }
   }
-  let checksDominance = false;
-  const preference = plan.attributes.map((attribute) => {
-    const L = attribute.levelIds.length;
-    const w = attribute.width;
-    const table = new Int8Array(L * L);
-    for (let l = 0; l < L; l++)
-      for (let m = 0; m < L; m++) {
-        if (l === m) continue;
-        let mean = 0;
-        let variance = 0;
-        for (let c = 0; c < w; c++) {
-          const diff = attribute.codes[l * w + c] - attribute.codes[m * w + c];
-          mean += diff * priorMeans[attribute.offset + c];
-          variance += diff * diff * priorSds[attribute.offset + c] ** 2;
-        }
-        if (mean !== 0 && Math.abs(mean) >= KNOWN_SIGN_Z * Math.sqrt(variance)) {
-          table[l * L + m] = mean > 0 ? 1 : -1;
-          checksDominance = true;
-        }
-      }
-    return table;
-  });
-  const statusQuo = plan.fixed?.kind === 'status_quo' ? plan.fixed.levelIndices : null;
-  return {
-    A,
-    J: plan.designedCount,
-    levelBase,
-    levelTotal,
-    prohibited,
-    preference,
-    checksDominance,
-    statusQuo,
-  };
+  return Violation.none;
 }
 
-/** True when alternative (s, j) contains no prohibited pair of levels. */
+/** True when alternative (s, j) shows no excluded level or pair. */
 export function isAlternativeAllowed(
   c: DesignConstraints,
   grid: LevelGrid,
   s: number,
   j: number,
 ): boolean {
-  const row = (s * grid.J + j) * grid.A;
-  for (let a = 0; a < c.A; a++) {
-    const la = grid.levels[row + a];
-    if (la < 0) continue;
-    const ia = (c.levelBase[a] + la) * c.levelTotal;
-    for (let b = a + 1; b < c.A; b++) {
-      const lb = grid.levels[row + b];
-      if (lb >= 0 && c.prohibited[ia + c.levelBase[b] + lb] === 1) return false;
-    }
-  }
-  return true;
+  return checkAlternativeLevels(c, grid, s, j) === Violation.none;
 }
 
-/**
- * Compares alternatives p and q (offsets of their level rows): 0 = identical, 1 = p
- * dominates q, −1 = q dominates p, 2 = neither.
- */
-export function compareAlternatives(
+/** Attributes shown at one level by every designed alternative of task s (shown by ≥ 2). */
+export function countOverlap(grid: LevelGrid, s: number): number {
+  const { J, A } = grid;
+  let overlapping = 0;
+  for (let a = 0; a < A; a++) {
+    let first = -1;
+    let shown = 0;
+    let same = true;
+    for (let j = 0; j < J && same; j++) {
+      const l = grid.levels[(s * J + j) * A + a];
+      if (l < 0) continue;
+      if (shown === 0) first = l;
+      else if (l !== first) same = false;
+      shown++;
+    }
+    if (same && shown >= 2) overlapping++;
+  }
+  return overlapping;
+}
+
+/** The first rule alternative (s, j) breaks within its task, or Violation.none. */
+export function checkAlternativeInTask(
   c: DesignConstraints,
-  levels: Int32Array,
-  p: number,
-  q: number,
-  other: Int32Array = levels,
-): number {
-  let better = false;
-  let worse = false;
-  let unknown = false;
-  for (let a = 0; a < c.A; a++) {
-    const lp = levels[p + a];
-    const lq = other[q + a];
-    if (lp === lq) continue;
-    if (lp < 0 || lq < 0) {
-      unknown = true;
-      continue;
-    }
-    const L = c.levelBase[a + 1] - c.levelBase[a];
-    const sign = c.preference[a][lp * L + lq];
-    if (sign > 0) better = true;
-    else if (sign < 0) worse = true;
-    else unknown = true;
+  grid: LevelGrid,
+  s: number,
+  j: number,
+): ViolationCode {
+  const levelsCheck = checkAlternativeLevels(c, grid, s, j);
+  if (levelsCheck !== Violation.none) return levelsCheck;
+  const p = (s * grid.J + j) * grid.A;
+  for (let k = 0; k < grid.J; k++) {
+    if (k === j) continue;
+    const result = compareLevelRows(
+      c.dominance,
+      grid.levels,
+      p,
+      grid.levels,
+      (s * grid.J + k) * grid.A,
+    );
+    if (result === 0) return Violation.identical;
+    if (c.checks.betweenDesigned && result !== 2) return Violation.dominatesOther;
   }
-  if (!better && !worse && !unknown) return 0;
-  if (unknown || (better && worse)) return 2;
-  return better ? 1 : -1;
+  if (c.statusQuo && compareLevelRows(c.dominance, grid.levels, p, c.statusQuo, 0) === 0)
+    return Violation.sameAsStatusQuo;
+  if ((c.checks.overFixed || c.checks.byFixed) && c.dominance.versusFixed) {
+    const result = compareWithFixed(c.dominance.versusFixed, grid.levels, p);
+    if (c.checks.overFixed && result === 1) return Violation.dominatesFixed;
+    if (c.checks.byFixed && result === -1) return Violation.dominatedByFixed;
+  }
+  for (const rule of c.between) {
+    if (rule.first !== j && rule.second !== j) continue;
+    const x = grid.levels[(s * grid.J + rule.first) * grid.A + rule.a];
+    const y = grid.levels[(s * grid.J + rule.second) * grid.A + rule.a];
+    if (x < 0 || y < 0) continue;
+    const values = c.levelValues[rule.a];
+    if (!holdsRelation(rule.relation, values[x], values[y])) return Violation.betweenAlternatives;
+  }
+  if (c.maxOverlap >= 0 && countOverlap(grid, s) > c.maxOverlap) return Violation.overlap;
+  return Violation.none;
 }
 
-/**
- * True when alternative (s, j) is allowed and neither identical to, dominated by, nor
- * dominating another designed alternative of task s, nor identical to the status quo.
- */
+/** True when alternative (s, j) keeps every rule within task s. */
 export function isAlternativeValidInTask(
   c: DesignConstraints,
   grid: LevelGrid,
   s: number,
   j: number,
 ): boolean {
-  if (!isAlternativeAllowed(c, grid, s, j)) return false;
-  const p = (s * grid.J + j) * grid.A;
-  for (let k = 0; k < grid.J; k++) {
-    if (k === j) continue;
-    const result = compareAlternatives(c, grid.levels, p, (s * grid.J + k) * grid.A);
-    if (result === 0) return false;
-    if (c.checksDominance && result !== 2) return false;
-  }
-  if (c.statusQuo && compareAlternatives(c, grid.levels, p, 0, c.statusQuo) === 0) return false;
-  return true;
+  return checkAlternativeInTask(c, grid, s, j) === Violation.none;
 }
 
 /** True when every alternative of task s is valid. */

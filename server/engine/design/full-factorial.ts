@@ -1,6 +1,6 @@
 /**
- * Full-factorial candidate set (every combination of levels, minus profiles with a
- * prohibited pair) and a choice design built from it with cyclic level shifts: each
+ * Full-factorial candidate set (every combination of levels, minus profiles an excluded
+ * combination or a dominance rule against the opt-out / status quo rules out) and a choice design built from it with cyclic level shifts: each
  * feasible profile is the first alternative of one task and alternative j adds j to every
  * attribute's level index modulo its number of levels (shifted designs; Bunch, Louviere &
  * Anderson 1996 working paper [M]; Street & Burgess 2007 ch. 5 generators [M]). When a
@@ -14,7 +14,7 @@ import type { LevelGrid } from './design-grid';
 /** Refuse candidate sets larger than this (the enumeration is cheap, the design is not). */
 export const MAX_FULL_FACTORIAL = 20000;
 
-/** Number of level combinations before prohibitions. */
+/** Number of level combinations before excluded combinations. */
 export function countFullFactorial(plan: CodingPlan): number {
   return plan.attributes.reduce((n, a) => n * a.levelIds.length, 1);
 }
@@ -37,7 +37,8 @@ export function listFullFactorial(
     );
   const profiles = new Int32Array(total * A);
   const probe: LevelGrid = { S: 1, J: 1, A, levels: new Int32Array(A) };
-  const oneAlt = { ...constraints, J: 1, statusQuo: null };
+  // One alternative alone: rules between alternatives and overlap do not apply yet.
+  const oneAlt = { ...constraints, J: 1, statusQuo: null, between: [], maxOverlap: -1 };
   let count = 0;
   for (let i = 0; i < total; i++) {
     let rest = i;
@@ -89,7 +90,10 @@ export function buildShiftedGrid(
   return grid;
 }
 
-/** Checks alternative j of task s against the alternatives already placed (0..j−1). */
+/**
+ * Checks alternative j of task s against the alternatives already placed (0..j−1): rules
+ * between alternatives only among placed ones, overlap once the task is complete.
+ */
 function isPlacedValid(c: DesignConstraints, grid: LevelGrid, s: number, j: number): boolean {
   const partial: LevelGrid = {
     S: 1,
@@ -97,5 +101,11 @@ function isPlacedValid(c: DesignConstraints, grid: LevelGrid, s: number, j: numb
     A: grid.A,
     levels: grid.levels.subarray(s * grid.J * grid.A, (s * grid.J + j + 1) * grid.A),
   };
-  return isAlternativeValidInTask({ ...c, J: j + 1 }, partial, 0, j);
+  const placed: DesignConstraints = {
+    ...c,
+    J: j + 1,
+    between: c.between.filter((r) => r.first <= j && r.second <= j),
+    maxOverlap: j === grid.J - 1 ? c.maxOverlap : -1,
+  };
+  return isAlternativeValidInTask(placed, partial, 0, j);
 }

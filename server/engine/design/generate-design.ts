@@ -11,10 +11,13 @@ import { assignBlocks } from './assign-blocks';
 import { DesignError } from './design-errors';
 import { checkDesignSpec, type CheckedDesignSpec } from './check-design-spec';
 import { improveByCoordinateExchange } from './coordinate-exchange';
-import { buildDesignConstraints } from './design-constraints';
+import { buildDesignConstraints } from './compile-design-rules';
+import type { DesignConstraints } from './design-constraints';
+import { explainInfeasibleDesign } from './explain-infeasible';
+import { buildLevelBounds, countLevels, findOutOfBounds } from './level-bounds';
 import { writeDesign, type LevelGrid } from './design-grid';
 import { diagnoseDesign, type DesignDiagnostics } from './diagnostics/diagnose-design';
-import { buildShiftedGrid, listFullFactorial } from './full-factorial';
+import { buildShiftedGrid, countFullFactorial, listFullFactorial } from './full-factorial';
 import { buildPriorDraws } from './prior-draws';
 import { generateRandomGrid } from './random-design';
 import { createSeededRandom, type SeededRandom } from './seeded-random';
@@ -47,25 +50,23 @@ export interface GeneratedDesign {
 
 function searchDEfficient(
   checked: CheckedDesignSpec,
+  constraints: DesignConstraints,
   random: SeededRandom,
   hooks: DesignHooks,
 ): LevelGrid {
   const { spec, plan, priorMeans, priorSds, draws } = checked;
-  const constraints = buildDesignConstraints(
-    plan,
-    checked.definition.prohibitions,
-    priorMeans,
-    priorSds,
-  );
+  const bounds = buildLevelBounds(plan, constraints, spec.tasks!, spec.balance);
   const R = draws;
   const betas = R > 1 ? buildPriorDraws(priorMeans, priorSds, R, spec.seed) : priorMeans;
   let best: LevelGrid | null = null;
   let bestValue = Infinity;
   for (let start = 1; start <= spec.starts; start++) {
     hooks.signal?.throwIfAborted();
-    const initial = generateRandomGrid(plan, constraints, spec.tasks!, random);
+    const initial = generateRandomGrid(plan, constraints, spec.tasks!, random, bounds);
     const result = improveByCoordinateExchange(plan, constraints, initial, betas, R, {
       maxPasses: spec.maxIterations,
+      bounds,
+      swaps: spec.balance.levelBalance,
       signal: hooks.signal,
       onPass: (pass, value) =>
         hooks.onProgress?.({
@@ -83,6 +84,33 @@ function searchDEfficient(
     }
   }
   return best!;
+}
+
+/** Builds the tasks by the spec's method; throws DesignError('infeasible') as it comes. */
+function buildGrid(
+  checked: CheckedDesignSpec,
+  constraints: DesignConstraints,
+  random: SeededRandom,
+  hooks: DesignHooks,
+): LevelGrid {
+  const { spec, plan } = checked;
+  if (spec.method === 'd_efficient') return searchDEfficient(checked, constraints, random, hooks);
+  if (spec.method === 'random')
+    return generateRandomGrid(
+      plan,
+      constraints,
+      spec.tasks!,
+      random,
+      buildLevelBounds(plan, constraints, spec.tasks!, spec.balance),
+    );
+  const { profiles, count } = listFullFactorial(plan, constraints);
+  assertFullFactorialTasks(count, spec);
+  const grid = buildShiftedGrid(plan, constraints, profiles, count);
+  // Every allowed profile is in the design once; its counts are what the rules leave.
+  const bounds = buildLevelBounds(plan, constraints, count, spec.balance);
+  if (findOutOfBounds(bounds, countLevels(constraints, grid)) >= 0)
+    throw new DesignError('infeasible', 'Some level is shown too rarely in the full factorial.');
+  return grid;
 }
 
 /** A full factorial has one task per feasible profile; a given task count must agree. */
@@ -121,23 +149,25 @@ export function generateDesign(
   const { spec, plan, priorMeans, priorSds } = checked;
   const random = createSeededRandom(spec.seed);
   hooks.onProgress?.({ phase: 'building', fraction: 0 });
+  const constraints = buildDesignConstraints(plan, checked.definition, priorMeans, priorSds, spec);
   let grid: LevelGrid;
-  if (spec.method === 'd_efficient') {
-    grid = searchDEfficient(checked, random, hooks);
-  } else {
-    const constraints = buildDesignConstraints(
-      plan,
-      checked.definition.prohibitions,
-      priorMeans,
-      priorSds,
+  try {
+    grid = buildGrid(checked, constraints, random, hooks);
+  } catch (error) {
+    if (!(error instanceof DesignError) || error.code !== 'infeasible') throw error;
+    const tasks = spec.tasks ?? countFullFactorial(plan);
+    throw new DesignError(
+      'infeasible',
+      explainInfeasibleDesign({
+        plan,
+        definition: checked.definition,
+        spec: { ...spec, tasks },
+        priorMeans,
+        priorSds,
+        constraints,
+        bounds: buildLevelBounds(plan, constraints, tasks, spec.balance),
+      }),
     );
-    if (spec.method === 'random') {
-      grid = generateRandomGrid(plan, constraints, spec.tasks!, random);
-    } else {
-      const { profiles, count } = listFullFactorial(plan, constraints);
-      assertFullFactorialTasks(count, spec);
-      grid = buildShiftedGrid(plan, constraints, profiles, count);
-    }
   }
   hooks.signal?.throwIfAborted();
   hooks.onProgress?.({ phase: 'blocking', fraction: 0.92 });
@@ -145,7 +175,7 @@ export function generateDesign(
   const blockOfTask = assignBlocks(grid, levelCounts, spec.blocks, random);
   const design = writeDesign(plan, grid, blockOfTask, spec.blocks);
   hooks.onProgress?.({ phase: 'diagnosing', fraction: 0.95 });
-  const diagnostics = diagnoseDesign(checked.definition, design, spec.priors, spec.seed);
+  const diagnostics = diagnoseDesign(checked.definition, design, spec.priors, spec.seed, spec);
   hooks.onProgress?.({ phase: 'done', fraction: 1, bestDError: diagnostics.dError ?? undefined });
   return { design, diagnostics, spec: { ...spec, tasks: grid.S } };
 }

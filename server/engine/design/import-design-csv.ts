@@ -2,13 +2,18 @@
  * Reads a design CSV written by exportDesignCsv (or by hand in the same layout) and reports
  * every problem with its row number (1 = header), column and message instead of stopping at
  * the first: missing or unknown columns, bad numbers, unknown levels, tasks whose
- * alternative count differs from the study's, blocks not 1..B, prohibited combinations and
+ * alternative count differs from the study's, blocks not 1..B, excluded combinations and
  * duplicate alternatives. Level cells match the level label (trimmed, case-insensitive) or,
  * for numeric attributes, the numeric value.
  */
 import { parse } from 'csv-parse/sync';
+import { unescapeCsvText } from '../../lib/safe-csv';
 import type { Design } from '../../../shared/schemas/design';
 import type { StudyDefinition } from '../../../shared/schemas/study-definition';
+import { getLevelLabel } from '../../../shared/study/level-labels';
+import { describeExcludedCombination } from '../../../shared/study/excluded-combinations';
+import { listUnshownLevels } from './diagnostics/level-balance';
+import { listRuleBreaches } from './rule-breaches';
 
 export interface CsvRowError {
   row: number;
@@ -26,8 +31,10 @@ function findLevelId(
   cell: string,
 ): string | undefined {
   const attribute = definition.attributes[attributeIndex];
-  const text = cell.trim();
-  const byLabel = attribute.levels.find((l) => l.label.trim().toLowerCase() === text.toLowerCase());
+  const text = unescapeCsvText(cell.trim());
+  const byLabel = attribute.levels.find(
+    (l) => getLevelLabel(attribute, l).toLowerCase() === text.toLowerCase(),
+  );
   if (byLabel) return byLabel.id;
   if (attribute.kind === 'numeric' && text !== '' && Number.isFinite(Number(text)))
     return attribute.levels.find((l) => l.value === Number(text))?.id;
@@ -35,7 +42,7 @@ function findLevelId(
 }
 
 function readTasks(definition: StudyDefinition, records: string[][], errors: CsvRowError[]) {
-  const header = records[0].map((h) => h.trim());
+  const header = records[0].map((h) => unescapeCsvText(h.trim()));
   const column = (name: string) => header.findIndex((h) => h.toLowerCase() === name.toLowerCase());
   const fixed = ['block', 'task', 'alternative'].map(column);
   const attributeColumns = definition.attributes.map((a) => column(a.name));
@@ -140,13 +147,6 @@ function checkTask(
   const seen = new Map<string, number>();
   for (const n of numbers) {
     const { row, levels } = task.alternatives.get(n)!;
-    for (const p of definition.prohibitions)
-      if (levels[p.a.attributeId] === p.a.levelId && levels[p.b.attributeId] === p.b.levelId)
-        errors.push({
-          row,
-          column: null,
-          message: `Prohibited combination in task ${taskNo}, alternative ${n}`,
-        });
     const key = JSON.stringify(definition.attributes.map((a) => levels[a.id] ?? null));
     if (seen.has(key))
       errors.push({
@@ -190,7 +190,7 @@ export function importDesignCsv(definition: StudyDefinition, text: string): Desi
           column: 'block',
           message: `Block ${b} has no tasks (blocks must run 1..${blocks})`,
         });
-  if (errors.length > 0 || !tasks) return { ok: false, errors: errors.slice(0, MAX_ERRORS) };
+  if (!tasks) return { ok: false, errors: errors.slice(0, MAX_ERRORS) };
   const design: Design = {
     blocks,
     tasks: [...tasks.entries()]
@@ -203,5 +203,43 @@ export function importDesignCsv(definition: StudyDefinition, text: string): Desi
           .map(([, a]) => ({ levels: a.levels })),
       })),
   };
+  errors.push(...checkRules(definition, design, tasks));
+  // A level never shown is a fault of the whole design: named once the rows are right.
+  if (errors.length === 0)
+    for (const missing of listUnshownLevels(definition, design))
+      errors.push({
+        row: 1,
+        column: missing.attribute.name,
+        message: `The level “${getLevelLabel(missing.attribute, missing.level)}” of ${missing.attribute.name} never appears`,
+      });
+  if (errors.length > 0)
+    return { ok: false, errors: errors.sort((p, q) => p.row - q.row).slice(0, MAX_ERRORS) };
   return { ok: true, design };
+}
+
+/** Excluded combinations the design breaks, at their rows (none when tasks are malformed). */
+function checkRules(
+  definition: StudyDefinition,
+  design: Design,
+  tasks: NonNullable<ReturnType<typeof readTasks>>,
+): CsvRowError[] {
+  let breaches;
+  try {
+    breaches = listRuleBreaches(definition, design);
+  } catch {
+    return []; // tasks of the wrong shape are reported already
+  }
+  return breaches.map((breach) => {
+    const taskNo = design.tasks[breach.taskIndex].task;
+    const task = tasks.get(taskNo)!;
+    const rule = describeExcludedCombination(
+      definition,
+      definition.excludedCombinations[breach.rule],
+    );
+    return {
+      row: breach.alternative < 0 ? task.row : task.alternatives.get(breach.alternative + 1)!.row,
+      column: null,
+      message: `Task ${taskNo}${breach.alternative >= 0 ? `, alternative ${breach.alternative + 1}` : ''} breaks the excluded combination “${rule}”`,
+    };
+  });
 }

@@ -2,6 +2,7 @@
  * Options of fitMixedLogit with their documented defaults, checked before any numerics.
  */
 import { getMaxDrawDimensions, type DrawsType } from '../draws/uniform-draws';
+import { KERNEL_PREFERENCES, type KernelPreference } from '../simd/kernel-choice';
 import type { ChoiceData } from './choice-data';
 import { DEFAULT_GRADIENT_TOLERANCE, DEFAULT_TOLERANCE } from './convergence';
 import { EstimationOptionsError } from './estimation-errors';
@@ -36,6 +37,10 @@ export interface MixedLogitOptions {
   threads?: number;
   /** Holdout tasks for an out-of-sample hit rate. */
   holdout?: ChoiceData | null;
+  /** Kernel of the LL: 'auto' (default: WebAssembly SIMD when it can run), 'simd', 'typescript'. */
+  kernel?: KernelPreference;
+  /** Profile draws that will follow (default 2000), for the time-left estimate only. */
+  profileDraws?: number;
 }
 
 export interface CheckedMixedLogitOptions {
@@ -49,6 +54,8 @@ export interface CheckedMixedLogitOptions {
   start: Float64Array | null;
   threads: number;
   holdout: ChoiceData | null;
+  kernel: KernelPreference;
+  profileDraws: number;
 }
 
 const DRAW_TYPES: DrawsType[] = ['halton', 'sobol', 'mlhs', 'random'];
@@ -124,7 +131,12 @@ export function checkMixedLogitOptions(
       'holdout',
     );
   }
+  const kernel = options.kernel ?? 'auto';
+  if (!KERNEL_PREFERENCES.includes(kernel))
+    throw new EstimationOptionsError(`unknown kernel ${String(kernel)}`, 'kernel');
   return {
+    kernel,
+    profileDraws: options.profileDraws ?? 2000,
     layout,
     draws,
     maxIterations,

@@ -7,6 +7,7 @@
  * covariances by inference.ts. Everything is reported in the user's units.
  */
 import { createLoglikEvaluator } from '../parallel/create-loglik-evaluator';
+import type { KernelKind } from '../simd/kernel-choice';
 import { minimizeBfgs, type BfgsResult } from './bfgs';
 import { assertColumnsVary } from './check-identification';
 import { checkMixedLogitOptions, type MixedLogitOptions } from './check-mixed-logit-options';
@@ -30,6 +31,7 @@ import {
 } from './parameter-scaling';
 import { refineEstimate } from './refine-estimate';
 import { selectColumns } from './select-columns';
+import { estimateSecondsLeft } from './time-left';
 
 export type { MixedLogitOptions } from './check-mixed-logit-options';
 
@@ -39,12 +41,16 @@ export interface EstimationProgress {
   gradientNorm: number;
   /** 1-based start number when several starts run. */
   start: number;
+  /** Estimated seconds until the run's results are ready (time-left.ts). */
+  secondsLeft: number;
 }
 
 export interface MixedLogitHooks {
   onProgress?: (progress: EstimationProgress) => void;
-  /** Checked every iteration; a fired signal rejects with EstimationCancelledError. */
+  /** Checked before every evaluation; a fired signal rejects with EstimationCancelledError. */
   signal?: AbortSignal;
+  /** Engine notes worth logging (e.g. why the WebAssembly SIMD kernel was not used). */
+  onNote?: (note: string) => void;
 }
 
 export interface MixedLogitResult extends FitStatistics {
@@ -75,6 +81,8 @@ export interface MixedLogitResult extends FitStatistics {
   /** Number of starts whose LL is within 0.001 of the best. */
   startsAtBest: number;
   draws: { type: string; count: number; seed: number; scrambled: boolean };
+  /** Kernel that evaluated the LL: 'simd' (WebAssembly) or 'typescript'. */
+  kernel: KernelKind;
   respondents: number;
   observations: number;
   hitRate: number;
@@ -113,7 +121,31 @@ export async function fitMixedLogit(
   const assertNotCancelled = () => {
     if (hooks.signal?.aborted) throw new EstimationCancelledError();
   };
-  const evaluator = await createLoglikEvaluator(scaled, layout, opts.draws, opts.threads);
+  const pool = await createLoglikEvaluator(scaled, layout, opts.draws, opts.threads, opts.kernel);
+  for (const note of pool.notes) hooks.onNote?.(note);
+  // Every evaluation goes through here: a cancel is seen within one evaluation (the
+  // standard errors' too), and the evaluation time feeds the time-left estimate.
+  let evaluations = 0;
+  let evaluationSeconds = 0;
+  const evaluator = {
+    ...pool,
+    async evaluate(x: Float64Array, g: Float64Array) {
+      assertNotCancelled();
+      const started = performance.now();
+      const ll = await pool.evaluate(x, g);
+      evaluationSeconds += (performance.now() - started) / 1000;
+      evaluations++;
+      return ll;
+    },
+    async evaluateScores(x: Float64Array) {
+      assertNotCancelled();
+      return pool.evaluateScores(x);
+    },
+  };
+  // After BFGS: the standard errors (2P + 1 evaluations for the Hessian, 1 for BHHH) and the
+  // taste profiles (about profileDraws/draws evaluations' worth).
+  const evaluationsAfter =
+    (opts.covariance === 'bhhh' ? 1 : 2 * layout.P + 1) + opts.profileDraws / opts.draws.count;
   try {
     const objective = async (x: Float64Array, g: Float64Array) => {
       const ll = await evaluator.evaluate(x, g);
@@ -123,12 +155,27 @@ export async function fitMixedLogit(
     const runs: BfgsResult[] = [];
     for (let s = 0; s < opts.starts; s++) {
       const x0 = s === 0 ? theta0 : perturbStart(theta0, s, opts.draws.seed);
+      const startedAt = performance.now();
+      let initialGradientNorm = NaN;
       runs.push(
         await minimizeBfgs(objective, x0, {
           ...tolerances,
           signal: hooks.signal,
-          onIteration: (iteration, f, gradientNorm) =>
-            hooks.onProgress?.({ iteration, loglik: -f, gradientNorm, start: s + 1 }),
+          onIteration: (iteration, f, gradientNorm) => {
+            if (iteration === 1) initialGradientNorm = gradientNorm;
+            const secondsLeft = estimateSecondsLeft({
+              iteration,
+              maxIterations: opts.maxIterations,
+              gradientNorm,
+              initialGradientNorm,
+              tolerance: opts.gradientTolerance,
+              secondsPerIteration: (performance.now() - startedAt) / 1000 / iteration,
+              secondsPerEvaluation: evaluationSeconds / Math.max(1, evaluations),
+              evaluationsAfter,
+              startsLeft: opts.starts - s - 1,
+            });
+            hooks.onProgress?.({ iteration, loglik: -f, gradientNorm, start: s + 1, secondsLeft });
+          },
         }),
       );
     }
@@ -205,6 +252,7 @@ export async function fitMixedLogit(
       })),
       startsAtBest,
       draws: { ...opts.draws },
+      kernel: pool.kernel,
       respondents: data.taskStart.length - 1,
       observations: T,
       ...computeFitStatistics(loglik, loglikNull, layout.P, T),
@@ -220,6 +268,6 @@ export async function fitMixedLogit(
       warnings: [...warnings, ...inference.warnings],
     };
   } finally {
-    await evaluator.close();
+    await pool.close();
   }
 }

@@ -17,6 +17,7 @@
 import { expStreamAccumulate } from '../linalg/exp-stream';
 import { fusedAxpy } from '../linalg/fused-axpy';
 import type { ChoiceData } from './choice-data';
+import { getDrawStride } from './standard-variates';
 import {
   DIST_FIXED,
   DIST_LOGNORMAL,
@@ -53,18 +54,20 @@ const LOG_CHUNK = 8;
 
 /**
  * Creates the kernel for respondents first..first+count−1 of `data`, with standard variates
- * `variates` laid out [local respondent][dimension][draw] (see createStandardVariates).
+ * `variates` laid out [local respondent][dimension][getDrawStride(R)] (see
+ * createStandardVariates).
  */
 export function createMixedLogitKernel(
   data: ChoiceData,
   layout: MixedLogitLayout,
-  variates: Float64Array,
+  variates: Float32Array,
   R: number,
   first: number,
   count: number,
 ): MixedLogitKernel {
   const { K, D, P, dist, column, dimension, meanIndex, spreadIndex, block, cholIndex } = layout;
   const Kd = data.columns.length;
+  const stride = getDrawStride(R);
   const { diffs, diffStart, taskStart } = data;
   // Largest number of alternative rows of one respondent: V keeps all of them so the
   // gradient can be accumulated in one fused pass per coefficient after the last task.
@@ -116,7 +119,7 @@ export function createMixedLogitKernel(
   }
 
   function fillRawDraws(n: number, theta: Float64Array, out: Float64Array): void {
-    const drawBase = n * D * R;
+    const drawBase = n * D * stride;
     for (let k = 0; k < K; k++) {
       const base = k * R;
       const m = theta[meanIndex[k]];
@@ -127,7 +130,7 @@ export function createMixedLogitKernel(
       }
       if (spreadIndex[k] < 0) continue; // correlated block, filled below
       const s = theta[spreadIndex[k]];
-      const eta = drawBase + dimension[k] * R;
+      const eta = drawBase + dimension[k] * stride;
       if (code === DIST_LOGNORMAL) {
         for (let r = 0; r < R; r++) out[base + r] = Math.exp(m + s * variates[eta + r]);
       } else if (code === DIST_NEG_LOGNORMAL) {
@@ -141,7 +144,7 @@ export function createMixedLogitKernel(
       out.fill(theta[meanIndex[block[i]]], base, base + R);
       for (let l = 0; l <= i; l++) {
         const c = theta[cholIndex[i * blockSize + l]];
-        const eta = drawBase + blockDims[l] * R;
+        const eta = drawBase + blockDims[l] * stride;
         for (let r = 0; r < R; r++) out[base + r] += c * variates[eta + r];
       }
     }
@@ -217,7 +220,7 @@ export function createMixedLogitKernel(
 
   function accumulateGradient(n: number): void {
     gn.fill(0);
-    const drawBase = n * D * R;
+    const drawBase = n * D * stride;
     for (let k = 0; k < K; k++) {
       const gb = k * R;
       const code = dist[k];
@@ -226,14 +229,14 @@ export function createMixedLogitKernel(
       if (code === DIST_FIXED) {
         for (let r = 0; r < R; r++) gm += w[r] * G[gb + r];
       } else if (code === DIST_LOGNORMAL || code === DIST_NEG_LOGNORMAL) {
-        const eta = drawBase + dimension[k] * R;
+        const eta = drawBase + dimension[k] * stride;
         for (let r = 0; r < R; r++) {
           const x = w[r] * G[gb + r] * raw[gb + r];
           gm += x;
           gs += x * variates[eta + r];
         }
       } else {
-        const eta = drawBase + dimension[k] * R;
+        const eta = drawBase + dimension[k] * stride;
         for (let r = 0; r < R; r++) {
           const x = w[r] * G[gb + r];
           gm += x;
@@ -246,7 +249,7 @@ export function createMixedLogitKernel(
     for (let i = 0; i < blockSize; i++) {
       const gb = block[i] * R;
       for (let l = 0; l <= i; l++) {
-        const eta = drawBase + blockDims[l] * R;
+        const eta = drawBase + blockDims[l] * stride;
         let s = 0;
         for (let r = 0; r < R; r++) s += w[r] * G[gb + r] * variates[eta + r];
         gn[cholIndex[i * blockSize + l]] += s;

@@ -19,6 +19,14 @@
  * own distribution (fixed or lognormal, so its sign never changes).
  */
 import type { ChoiceData } from './choice-data';
+import {
+  DIST_FIXED,
+  DIST_LOGNORMAL,
+  DIST_NEG_LOGNORMAL,
+  DIST_NORMAL,
+  DIST_TRIANGULAR,
+  DIST_UNIFORM,
+} from './distribution-codes';
 import { EstimationOptionsError } from './estimation-errors';
 
 export const DISTRIBUTIONS = [
@@ -31,12 +39,14 @@ export const DISTRIBUTIONS = [
 ] as const;
 export type CoefficientDistribution = (typeof DISTRIBUTIONS)[number];
 
-export const DIST_FIXED = 0;
-export const DIST_NORMAL = 1;
-export const DIST_LOGNORMAL = 2;
-export const DIST_NEG_LOGNORMAL = 3;
-export const DIST_TRIANGULAR = 4;
-export const DIST_UNIFORM = 5;
+export {
+  DIST_FIXED,
+  DIST_LOGNORMAL,
+  DIST_NEG_LOGNORMAL,
+  DIST_NORMAL,
+  DIST_TRIANGULAR,
+  DIST_UNIFORM,
+} from './distribution-codes';
 
 export interface CoefficientSpec {
   /** Name used in results (e.g. "bill"). */
@@ -76,7 +86,7 @@ export interface MixedLogitLayout {
 
 /** Builds the layout; throws EstimationOptionsError for unknown columns, names or distributions. */
 export function createMixedLogitLayout(
-  data: ChoiceData,
+  data: Pick<ChoiceData, 'columns'>,
   coefficients: readonly CoefficientSpec[],
   correlated: boolean,
   wtpCost: string | null = null,

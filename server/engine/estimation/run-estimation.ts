@@ -26,10 +26,14 @@ import {
   runLatentClassEstimation,
   type RunLatentClassOptions,
 } from './run-latent-class-estimation';
+import type { KernelPreference } from '../simd/kernel-choice';
+import { computeTasteProfilesInWorkers } from '../parallel/parallel-taste-profiles';
 
 export interface RunEstimationOptions extends MixedLogitHooks, RunHbOptions, RunLatentClassOptions {
   /** Worker threads for the mixed logit, the HB chains and the latent class fit (default 1). */
   threads?: number;
+  /** Kernel of the mixed logit's LL (default 'auto': WebAssembly SIMD when it can run). */
+  kernel?: KernelPreference;
 }
 
 /** Data columns a specification reads, in coefficient order. */
@@ -99,6 +103,8 @@ export async function runEstimation(
       draws: spec.draws,
       starts: spec.starts ?? 3,
       threads: options.threads,
+      kernel: options.kernel,
+      profileDraws: spec.profileDraws,
       holdout,
       maxIterations: settings.maxIterations,
       ...tolerances,
@@ -139,11 +145,19 @@ export async function runEstimation(
       count: spec.profileDraws,
       seed: spec.draws.seed + 1000,
     };
-    const profiles = computeTasteProfiles(data, layout, theta, {
+    const profileOptions = {
       ...profileDraws,
       cost: withheld ? undefined : spec.cost,
       signal: options.signal,
-    });
+      kernel: options.kernel,
+      onNote: options.onNote,
+    };
+    const threads = options.threads ?? 1;
+    // Several threads: profiles on worker threads too, so the calling thread stays responsive.
+    const profiles =
+      threads > 1
+        ? await computeTasteProfilesInWorkers(data, layout, theta, { ...profileOptions, threads })
+        : computeTasteProfiles(data, layout, theta, profileOptions);
     individuals = profiles.profiles;
     population = profiles.population;
   }

@@ -3,17 +3,22 @@
  * E[β | y_n] ≈ Σ_r w_r β_r and Var[β | y_n] ≈ Σ_r w_r β_r² − E², with β_r drawn from the
  * estimated population distribution and w_r ∝ Π_t P(y_nt | β_r); the conditional mean of each
  * WTP ratio −β_k/β_cost (ratio per draw, then weighted); and the effective number of draws
- * 1/Σ_r w_r² (Kish's effective sample size) as a diagnostic. Profile draws are separate from
- * estimation draws (own count and seed). Profiles are shrunk toward the population and
- * uncertain with few tasks: always show the conditional SD beside the mean.
+ * 1/Σ_r w_r² (Kish's effective sample size) as a diagnostic (profile-moments.ts). Profile
+ * draws are separate from estimation draws (own count and seed) and are generated a chunk of
+ * respondents at a time, so memory does not grow with the number of respondents. Profiles
+ * are shrunk toward the population and uncertain with few tasks: always show the conditional
+ * SD beside the mean. computeTasteProfiles runs on the calling thread;
+ * server/engine/parallel/parallel-taste-profiles.ts spreads the same work over worker threads.
  */
 import type { DrawsType } from '../draws/uniform-draws';
+import { createKernelArena } from '../simd/kernel-arena';
+import { chooseKernel, type KernelPreference } from '../simd/kernel-choice';
+import { createProfileRunner } from '../simd/profile-runner';
 import type { ChoiceData } from './choice-data';
 import { EstimationCancelledError, EstimationOptionsError } from './estimation-errors';
-import { createMixedLogitKernel } from './mixed-logit-kernel';
 import type { MixedLogitLayout } from './mixed-logit-layout';
 import { getPopulationMoments, type PopulationMoment } from './population-moments';
-import { createStandardVariates } from './standard-variates';
+import { getProfileWidth } from './profile-moments';
 
 export interface TasteProfileOptions {
   /** Draws per respondent (default 2000). */
@@ -28,6 +33,10 @@ export interface TasteProfileOptions {
   cost?: string;
   /** Checked before each chunk of respondents; a fired signal throws EstimationCancelledError. */
   signal?: AbortSignal;
+  /** Kernel (default 'auto': WebAssembly SIMD when it can run). */
+  kernel?: KernelPreference;
+  /** Engine notes worth logging (why SIMD was not used). */
+  onNote?: (note: string) => void;
 }
 
 export interface TasteProfile {
@@ -44,15 +53,15 @@ export interface TasteProfilesResult {
   draws: { type: DrawsType; count: number; seed: number; scrambled: boolean };
 }
 
-const CHUNK = 64;
+/** Respondents whose profile draws are held at once. */
+export const PROFILE_CHUNK = 64;
 
-/** Conditional means, SDs and WTP of every respondent in `data` at the estimates θ. */
-export function computeTasteProfiles(
-  data: ChoiceData,
+/** Fills defaults and validates; throws EstimationOptionsError naming the field. */
+export function checkTasteProfileOptions(
   layout: MixedLogitLayout,
   theta: ArrayLike<number>,
-  options: TasteProfileOptions = {},
-): TasteProfilesResult {
+  options: TasteProfileOptions,
+) {
   const R = options.count ?? 2000;
   if (!Number.isInteger(R) || R < 1)
     throw new EstimationOptionsError('profile draws must be a positive integer', 'profileDraws');
@@ -71,51 +80,75 @@ export function computeTasteProfiles(
     );
   if (theta.length !== layout.P)
     throw new EstimationOptionsError(`theta must have ${layout.P} values`, 'theta');
-  const thetaArray = Float64Array.from(theta);
+  return { draws, cost, theta: Float64Array.from(theta), kernel: options.kernel ?? 'auto' };
+}
+
+/** Profile objects of respondents first.. from packed rows (profile-moments.ts layout). */
+export function unpackProfiles(
+  layout: MixedLogitLayout,
+  packed: Float64Array,
+  respondentIds: readonly string[],
+  first: number,
+  withWtp: boolean,
+): TasteProfile[] {
   const { K } = layout;
-  const N = data.taskStart.length - 1;
-  const betas = new Float64Array(K * R);
-  const w = new Float64Array(R);
+  const width = getProfileWidth(K);
+  const names = layout.coefficients.map((c) => c.name);
   const profiles: TasteProfile[] = [];
-  for (let first = 0; first < N; first += CHUNK) {
-    if (options.signal?.aborted) throw new EstimationCancelledError();
-    const count = Math.min(CHUNK, N - first);
-    const variates = createStandardVariates(layout, draws, first, count);
-    const kernel = createMixedLogitKernel(data, layout, variates, R, first, count);
-    for (let n = 0; n < count; n++) {
-      kernel.simulateRespondent(n, thetaArray, betas, w);
-      const mean: Record<string, number> = {};
-      const sd: Record<string, number> = {};
-      const wtp: Record<string, number> = {};
-      let sumW2 = 0;
-      for (let r = 0; r < R; r++) sumW2 += w[r] * w[r];
-      for (let k = 0; k < K; k++) {
-        let m1 = 0;
-        let ratio = 0;
-        let constant = true;
-        for (let r = 0; r < R; r++) {
-          const b = betas[k * R + r];
-          m1 += w[r] * b;
-          if (b !== betas[k * R]) constant = false;
-          if (cost >= 0) ratio -= (w[r] * b) / betas[cost * R + r];
-        }
-        // Two passes (Σ w (b − m)², not Σ w b² − m²): no cancellation, and exactly 0 for a
-        // coefficient that is the same in every draw (a fixed one).
-        let m2 = 0;
-        if (!constant) for (let r = 0; r < R; r++) m2 += w[r] * (betas[k * R + r] - m1) ** 2;
-        const name = layout.coefficients[k].name;
-        mean[name] = constant ? betas[k * R] : m1;
-        sd[name] = Math.sqrt(m2);
-        if (cost >= 0 && k !== cost) wtp[name] = ratio;
-      }
-      profiles.push({
-        respondent: data.respondentIds[first + n],
-        mean,
-        sd,
-        ...(cost >= 0 ? { wtp } : {}),
-        effectiveDraws: 1 / sumW2,
-      });
-    }
+  for (let i = 0; i * width < packed.length; i++) {
+    const at = i * width;
+    const mean: Record<string, number> = {};
+    const sd: Record<string, number> = {};
+    const wtp: Record<string, number> = {};
+    names.forEach((name, k) => {
+      mean[name] = packed[at + k];
+      sd[name] = packed[at + K + k];
+      if (!Number.isNaN(packed[at + 2 * K + k])) wtp[name] = packed[at + 2 * K + k];
+    });
+    profiles.push({
+      respondent: respondentIds[first + i],
+      mean,
+      sd,
+      ...(withWtp ? { wtp } : {}),
+      effectiveDraws: packed[at + 3 * K],
+    });
   }
-  return { profiles, population: getPopulationMoments(layout, thetaArray), draws };
+  return profiles;
+}
+
+/** Conditional means, SDs and WTP of every respondent in `data` at the estimates θ. */
+export function computeTasteProfiles(
+  data: ChoiceData,
+  layout: MixedLogitLayout,
+  theta: ArrayLike<number>,
+  options: TasteProfileOptions = {},
+): TasteProfilesResult {
+  const opts = checkTasteProfileOptions(layout, theta, options);
+  const N = data.taskStart.length - 1;
+  const chunk = Math.max(1, Math.min(PROFILE_CHUNK, N));
+  const arena = createKernelArena(data, layout, opts.draws.count, [
+    { first: 0, count: N, variateRespondents: chunk },
+  ]);
+  const choice = chooseKernel(opts.kernel, layout);
+  const runner = createProfileRunner({
+    memory: arena.memory ?? arena.buffer,
+    plan: arena.plan,
+    sliceIndex: 0,
+    columns: data.columns,
+    layout,
+    draws: opts.draws,
+    kind: choice.kind,
+  });
+  for (const note of new Set([choice.note, runner.note])) if (note) options.onNote?.(note);
+  const width = getProfileWidth(layout.K);
+  const packed = new Float64Array(N * width);
+  for (let first = 0; first < N; first += chunk) {
+    if (options.signal?.aborted) throw new EstimationCancelledError();
+    runner.run(opts.theta, first, Math.min(chunk, N - first), opts.cost, packed, first * width);
+  }
+  return {
+    profiles: unpackProfiles(layout, packed, data.respondentIds, 0, opts.cost >= 0),
+    population: getPopulationMoments(layout, opts.theta),
+    draws: opts.draws,
+  };
 }

@@ -9,7 +9,7 @@
  */
 const POW2_OFFSET = 1050;
 const POW2 = Float64Array.from({ length: 2 * POW2_OFFSET }, (_, i) => 2 ** (i - POW2_OFFSET));
-const TABLE = Float64Array.from({ length: 256 }, (_, j) => 2 ** (j / 256));
+export const EXP_TABLE = Float64Array.from({ length: 256 }, (_, j) => 2 ** (j / 256));
 const INV_STEP = 256 / Math.LN2;
 // ln2/256 split in a high part with trailing zero bits and a low correction (Cody & Waite 1980).
 const STEP_HI = 0.6931471803691238 / 256;
@@ -25,7 +25,7 @@ export function expStream(x: Float64Array, offset: number, length: number): void
     const k = ((v * INV_STEP + (SHIFT + 0.5)) | 0) - SHIFT;
     const r = v - k * STEP_HI - k * STEP_LO;
     const p = 1 + r * (1 + r * (0.5 + r * (1 / 6 + r * (1 / 24))));
-    x[i] = p * TABLE[k & 255] * POW2[(k >> 8) + POW2_OFFSET];
+    x[i] = p * EXP_TABLE[k & 255] * POW2[(k >> 8) + POW2_OFFSET];
   }
 }
 
@@ -46,7 +46,7 @@ export function expStreamAccumulate(
     const k = ((v * INV_STEP + (SHIFT + 0.5)) | 0) - SHIFT;
     const r = v - k * STEP_HI - k * STEP_LO;
     const p = 1 + r * (1 + r * (0.5 + r * (1 / 6 + r * (1 / 24))));
-    const e = p * TABLE[k & 255] * POW2[(k >> 8) + POW2_OFFSET];
+    const e = p * EXP_TABLE[k & 255] * POW2[(k >> 8) + POW2_OFFSET];
     x[offset + i] = e;
     acc[accOffset + i] += e;
   }

@@ -1,49 +1,76 @@
 /**
  * Piscina worker entry: holds the kernels of the respondent slices assigned to this thread
- * (data views over SharedArrayBuffers, draws generated here for the slice only) and answers
- * θ → (partial LL, gradient). Thin by design: validate the message, call the pure kernel.
+ * (over the kernel arena's shared memory; the slice's draws are generated here, into the
+ * arena) and answers θ → (partial LL, gradient), or θ → packed taste profiles of a range of
+ * respondents. Thin by design: validate the message, call the pure kernel.
  */
 import { move } from 'piscina';
-import type { ChoiceData } from '../estimation/choice-data';
-import { createMixedLogitKernel, type MixedLogitKernel } from '../estimation/mixed-logit-kernel';
+import type { MixedLogitKernel } from '../estimation/mixed-logit-kernel';
 import { createMixedLogitLayout } from '../estimation/mixed-logit-layout';
-import { createStandardVariates } from '../estimation/standard-variates';
-import type { InitSliceMessage, SliceMessage, SliceResult } from './worker-messages';
+import { getProfileWidth } from '../estimation/profile-moments';
+import { createArenaKernel } from '../simd/arena-kernel';
+import { createProfileRunner, type ProfileRunner } from '../simd/profile-runner';
+import type {
+  InitProfilesMessage,
+  InitSliceMessage,
+  InitSliceResult,
+  ProfilesSliceMessage,
+  SliceMessage,
+  SliceResult,
+} from './worker-messages';
 
 const kernels = new Map<string, MixedLogitKernel>();
+const profileRunners = new Map<string, { runner: ProfileRunner; K: number }>();
 
-function initSlice(msg: InitSliceMessage): MixedLogitKernel {
-  const data: ChoiceData = {
-    columns: msg.columns,
-    respondentIds: [],
-    taskIds: [],
-    taskStart: msg.taskStart,
-    diffStart: msg.diffStart,
-    diffs: msg.diffs,
-    altCount: msg.altCount,
-  };
+function initSlice(msg: InitSliceMessage | InitProfilesMessage): InitSliceResult {
+  if (!(msg.memory instanceof WebAssembly.Memory || msg.memory instanceof SharedArrayBuffer))
+    throw new TypeError('init needs the arena memory');
+  if (!msg.plan?.slices?.[msg.sliceIndex]) throw new TypeError('init names no slice of the arena');
   const layout = createMixedLogitLayout(
-    data,
+    { columns: msg.columns },
     msg.coefficients,
     msg.correlated,
     msg.wtpCost ?? null,
   );
-  const variates = createStandardVariates(layout, msg.draws, msg.first, msg.count);
-  return createMixedLogitKernel(data, layout, variates, msg.draws.count, msg.first, msg.count);
+  const params = {
+    memory: msg.memory,
+    plan: msg.plan,
+    sliceIndex: msg.sliceIndex,
+    columns: msg.columns,
+    layout,
+    draws: msg.draws,
+    kind: msg.kernel,
+  };
+  if (msg.kind === 'profiles-init') {
+    const runner = createProfileRunner(params);
+    profileRunners.set(msg.key, { runner, K: layout.K });
+    return { kernel: runner.kind, note: runner.note };
+  }
+  const made = createArenaKernel({ ...params, fillDraws: true });
+  kernels.set(msg.key, made.kernel);
+  return { kernel: made.kind, note: made.note };
+}
+
+function runProfiles(msg: ProfilesSliceMessage): Float64Array {
+  const entry = profileRunners.get(msg.key);
+  if (!entry) throw new Error(`worker slice ${msg.key} was not initialised`);
+  if (!(msg.theta instanceof Float64Array)) throw new TypeError('theta must be a Float64Array');
+  const out = new Float64Array(msg.count * getProfileWidth(entry.K));
+  entry.runner.run(msg.theta, msg.first, msg.count, msg.cost, out, 0);
+  return move(out) as Float64Array;
 }
 
 /** Handles one message; returns the slice's LL and gradient (and scores when asked). */
-export function handleSliceMessage(msg: SliceMessage): SliceResult | null {
+export function handleSliceMessage(msg: SliceMessage): SliceResult | InitSliceResult | null {
   if (!msg || typeof msg !== 'object' || typeof msg.key !== 'string')
     throw new TypeError('invalid worker message');
-  if (msg.kind === 'init') {
-    kernels.set(msg.key, initSlice(msg));
-    return null;
-  }
+  if (msg.kind === 'init' || msg.kind === 'profiles-init') return initSlice(msg);
   if (msg.kind === 'release') {
     kernels.delete(msg.key);
+    profileRunners.delete(msg.key);
     return null;
   }
+  if (msg.kind === 'profiles') return runProfiles(msg);
   const kernel = kernels.get(msg.key);
   if (!kernel) throw new Error(`worker slice ${msg.key} was not initialised`);
   if (!(msg.theta instanceof Float64Array) || msg.theta.length !== kernel.parameterCount) {

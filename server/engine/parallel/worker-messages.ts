@@ -1,23 +1,40 @@
 /** Messages between the estimator and the mixed-logit worker threads (validated in the worker). */
 import type { DrawsSpec } from '../draws/uniform-draws';
 import type { CoefficientSpec } from '../estimation/mixed-logit-layout';
+import type { ArenaMemory } from '../simd/arena-kernel';
+import type { ArenaPlan } from '../simd/arena-plan';
+import type { KernelKind } from '../simd/kernel-choice';
 
-export interface InitSliceMessage {
-  kind: 'init';
+/** What a worker needs to set up one slice of the arena. */
+interface SliceSetup {
   key: string;
+  /** The arena's shared memory: data and variates are read in place, never copied. */
+  memory: ArenaMemory;
+  plan: ArenaPlan;
+  sliceIndex: number;
   columns: string[];
-  /** Views over SharedArrayBuffers: shared with the worker, never copied. */
-  taskStart: Int32Array;
-  diffStart: Int32Array;
-  diffs: Float64Array;
-  altCount: Int32Array;
   coefficients: CoefficientSpec[];
   correlated: boolean;
   /** WTP space: name of the cost coefficient (null or absent in preference space). */
   wtpCost?: string | null;
   draws: Omit<DrawsSpec, 'dimensions'>;
-  first: number;
-  count: number;
+  kernel: KernelKind;
+}
+
+/** Sets up a kernel for evaluations over one slice of the arena. */
+export interface InitSliceMessage extends SliceSetup {
+  kind: 'init';
+}
+
+/** Sets up a streaming taste-profile runner over one slice of the arena. */
+export interface InitProfilesMessage extends SliceSetup {
+  kind: 'profiles-init';
+}
+
+/** The worker's answer to init: the kernel it runs, and why if it had to fall back. */
+export interface InitSliceResult {
+  kernel: KernelKind;
+  note: string | null;
 }
 
 export interface EvaluateSliceMessage {
@@ -31,7 +48,23 @@ export interface ReleaseSliceMessage {
   key: string;
 }
 
-export type SliceMessage = InitSliceMessage | EvaluateSliceMessage | ReleaseSliceMessage;
+/** Packed taste profiles of respondents first..first+count−1 (profile-moments.ts layout). */
+export interface ProfilesSliceMessage {
+  kind: 'profiles';
+  key: string;
+  theta: Float64Array;
+  first: number;
+  count: number;
+  /** Cost coefficient index, −1 for none. */
+  cost: number;
+}
+
+export type SliceMessage =
+  | InitSliceMessage
+  | InitProfilesMessage
+  | EvaluateSliceMessage
+  | ReleaseSliceMessage
+  | ProfilesSliceMessage;
 
 /**
  * A slice's answer, packed in one moved buffer: [LL, ∂LL/∂θ (P values), scores (count × P,

@@ -1,17 +1,20 @@
 /**
  * Log-likelihood evaluator on worker threads (piscina). Respondents are split into
  * contiguous slices of about equal work (number of alternative rows); each slice lives on
- * its own single-thread pool, receives the data once as SharedArrayBuffer views and makes its
- * own draws, and per evaluation gets θ and returns its partial LL and gradient, summed here.
- * Worker files are TypeScript (see ts-worker-pool.ts).
+ * its own single-thread pool. The data sit once in a kernel arena (shared memory) that every
+ * thread reads in place; each thread generates its slice's draws into the arena and runs the
+ * chosen kernel (WebAssembly SIMD or TypeScript) on it. Per evaluation a thread gets θ and
+ * returns its partial LL and gradient, summed here. Worker files are TypeScript (see ts-worker-pool.ts).
  */
 import { fileURLToPath } from 'node:url';
 import type { DrawsSpec } from '../draws/uniform-draws';
 import type { ChoiceData } from '../estimation/choice-data';
-import type { LoglikEvaluator } from '../estimation/loglik-evaluator';
 import type { MixedLogitLayout } from '../estimation/mixed-logit-layout';
-import { createTsWorkerPool, toShared } from './ts-worker-pool';
-import type { SliceResult } from './worker-messages';
+import { createKernelArena } from '../simd/kernel-arena';
+import type { KernelChoice } from '../simd/kernel-choice';
+import type { MixedLogitEvaluator } from './mixed-logit-evaluator';
+import { createTsWorkerPool } from './ts-worker-pool';
+import type { InitSliceResult, SliceResult } from './worker-messages';
 
 const WORKER_FILE = fileURLToPath(new URL('./mixed-logit-worker.ts', import.meta.url));
 
@@ -36,38 +39,53 @@ export function splitRespondents(
   return slices;
 }
 
+/** One single-thread pool running the mixed-logit worker. */
+export function createSlicePool() {
+  return createTsWorkerPool(WORKER_FILE, 'handleSliceMessage', 1);
+}
+
 /** Starts `threads` worker threads holding the data and draws; remember to close() it. */
 export async function createWorkerPoolEvaluator(
   data: ChoiceData,
   layout: MixedLogitLayout,
   draws: Omit<DrawsSpec, 'dimensions'>,
   threads: number,
-): Promise<LoglikEvaluator> {
-  const shared = {
-    taskStart: toShared(data.taskStart),
-    diffStart: toShared(data.diffStart),
-    diffs: toShared(data.diffs),
-    altCount: toShared(data.altCount),
-  };
-  const key = `slice-${process.pid}-${++keyCounter}`;
+  choice: KernelChoice,
+): Promise<MixedLogitEvaluator> {
   const slices = splitRespondents(data, threads);
-  const pools = slices.map(() => createTsWorkerPool(WORKER_FILE, 'handleSliceMessage', 1));
-  await Promise.all(
-    pools.map((pool, i) =>
-      pool.run({
-        kind: 'init',
-        key,
-        columns: [...data.columns],
-        ...shared,
-        coefficients: layout.coefficients.map((c) => ({ ...c })),
-        correlated: layout.correlated,
-        wtpCost: layout.wtpCost >= 0 ? layout.coefficients[layout.wtpCost].name : null,
-        draws,
-        first: slices[i].first,
-        count: slices[i].count,
-      }),
-    ),
+  const arena = createKernelArena(
+    data,
+    layout,
+    draws.count,
+    slices.map((s) => ({ ...s, variateRespondents: s.count })),
   );
+  const key = `slice-${process.pid}-${++keyCounter}`;
+  const pools = slices.map(() => createSlicePool());
+  let inits: InitSliceResult[];
+  try {
+    inits = await Promise.all(
+      pools.map(
+        (pool, i) =>
+          pool.run({
+            kind: 'init',
+            key,
+            memory: arena.memory ?? arena.buffer,
+            plan: arena.plan,
+            sliceIndex: i,
+            columns: [...data.columns],
+            coefficients: layout.coefficients.map((c) => ({ ...c })),
+            correlated: layout.correlated,
+            wtpCost: layout.wtpCost >= 0 ? layout.coefficients[layout.wtpCost].name : null,
+            draws,
+            kernel: choice.kind,
+          }) as Promise<InitSliceResult>,
+      ),
+    );
+  } catch (err) {
+    await Promise.all(pools.map((pool) => pool.destroy()));
+    throw err;
+  }
+  const notes = [choice.note, ...inits.map((r) => r.note)].filter((n): n is string => !!n);
   const P = layout.P;
   const N = data.taskStart.length - 1;
   const runAll = (kind: 'evaluate' | 'scores', theta: Float64Array): Promise<SliceResult[]> =>
@@ -75,6 +93,9 @@ export async function createWorkerPoolEvaluator(
   return {
     parameterCount: P,
     respondentCount: N,
+    kernel: inits.every((r) => r.kernel === 'simd') ? 'simd' : 'typescript',
+    notes: [...new Set(notes)],
+    memoryBytes: arena.plan.bytes,
     async evaluate(theta, grad) {
       const results = await runAll('evaluate', theta);
       grad.fill(0, 0, P);

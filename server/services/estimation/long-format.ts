@@ -5,7 +5,7 @@
  * to the columns the run used, so an analyst can check an export against a run.
  */
 import { createHash } from 'node:crypto';
-import { stringify } from 'csv-stringify/sync';
+import { writeCsv } from '../../lib/safe-csv';
 import { buildChoiceData, type BuiltChoiceData } from '../../engine/estimation/build-choice-data';
 import type { LongChoiceRow } from '../../engine/estimation/choice-data';
 import type { PreparedChoiceData } from './code-answers';
@@ -55,7 +55,7 @@ export function toLongCsvRows(
 /** The long-format CSV text (what `npm run estimate -- --data` reads). */
 export function toLongCsvText(prepared: PreparedChoiceData, keys?: readonly string[]): string {
   const table = toLongCsvRows(prepared, keys);
-  return stringify([table.header, ...table.rows]);
+  return writeCsv(table.header, table.rows);
 }
 
 /** SHA-256 (hex) of the long CSV of the given columns. */

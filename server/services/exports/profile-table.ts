@@ -7,7 +7,7 @@
 import type { ProfileRow } from '../../../db/queries/tastes';
 import type { TasteHeader } from '../../../shared/schemas/tastes';
 import { toTasteRow } from '../tastes/taste-rows';
-import type { CellValue } from './csv-cells';
+import type { CellValue } from '../../lib/safe-csv';
 
 export interface Table {
   header: string[];

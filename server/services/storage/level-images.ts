@@ -1,6 +1,6 @@
 /**
- * Level images: an editor uploads a PNG, JPEG or WebP of at most 2 MB for a study; anyone
- * with the unguessable key can read it (respondents see it in their tasks).
+ * Level images: an editor uploads a PNG, JPEG or WebP of at most 2 MB for a study; its metadata
+ * (EXIF, XMP) is removed; anyone with the unguessable key can read it (respondents see it).
  */
 import path from 'node:path';
 import { nanoid } from 'nanoid';
@@ -12,6 +12,7 @@ import { getStoredFileByKey, insertStoredFile } from '../../../db/queries/files'
 import type { FileStore, StoredObject } from './file-store';
 import { createLocalFileStore } from './local-file-store';
 import { detectImageType } from './image-type';
+import { stripImageMetadata } from './strip-metadata';
 
 export const MAX_IMAGE_BYTES = 2 * 1024 * 1024;
 
@@ -42,13 +43,15 @@ export async function uploadLevelImage(
       'unsupported_type',
     );
   const key = `${nanoid(24)}.${type.ext}`;
-  await getFileStore(deps).put(key, file.buffer, type.contentType);
+  // Photos carry camera, place and time: none of it reaches respondents.
+  const bytes = await stripImageMetadata(file.buffer);
+  await getFileStore(deps).put(key, bytes, type.contentType);
   const row = await insertStoredFile(deps.db, {
     teamId,
     studyId,
     storageKey: key,
     contentType: type.contentType,
-    sizeBytes: file.buffer.length,
+    sizeBytes: bytes.length,
     originalName: file.originalname.slice(0, 200),
   });
   return {

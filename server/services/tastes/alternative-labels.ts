@@ -1,5 +1,6 @@
 /** Readable names of a task's alternatives and of levels, from the study definition. */
 import type { StudyDefinition } from '../../../shared/schemas/study-definition';
+import { getLevelLabel } from '../../../shared/study/level-labels';
 
 /** Designed alternative `index` (0-based) or −1 for the opt-out / status quo. */
 export function getAlternativeLabel(definition: StudyDefinition, index: number): string {
@@ -23,7 +24,7 @@ export function describeLevels(
   const out: Record<string, string> = {};
   for (const a of definition.attributes) {
     const level = a.levels.find((l) => l.id === levels[a.id]);
-    if (level) out[a.name] = level.label;
+    if (level) out[a.name] = getLevelLabel(a, level);
   }
   return out;
 }

@@ -6,6 +6,7 @@
  */
 import type { StudyDefinition } from '../../schemas/study-definition';
 import { getAttributeCodes } from './level-codes';
+import { getLevelLabel } from '../../study/level-labels';
 
 export type CodedColumnKind = 'level' | 'linear' | 'constant';
 
@@ -43,7 +44,7 @@ export function getCodedColumns(definition: StudyDefinition): CodedColumn[] {
       const level = attribute.levels.find((l) => l.id === levelId);
       columns.push({
         key: `attr:${attribute.id}:${levelId}`,
-        name: `${attribute.name}: ${level?.label ?? levelId}`,
+        name: `${attribute.name}: ${level ? getLevelLabel(attribute, level) : levelId}`,
         kind: 'level',
         attributeId: attribute.id,
         levelId,

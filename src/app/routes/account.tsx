@@ -3,12 +3,16 @@ import { useMe } from '@/features/auth/api/get-me';
 import { useRefreshMe } from '@/features/auth/hooks/use-refresh-me';
 import { ProfileForm } from '@/features/account/components/profile-form';
 import { PasswordForm } from '@/features/account/components/password-form';
+import { SessionsList } from '@/features/account/components/sessions-list';
+import { useNavigate } from 'react-router';
+import { paths } from '@/config/paths';
 import { MyTeams } from '@/features/team/components/my-teams';
 import { CreateTeamForm } from '@/features/team/components/create-team-form';
 
 export function Component() {
   const { data: me } = useMe();
   const refreshMe = useRefreshMe();
+  const navigate = useNavigate();
   if (!me) return <Spinner />;
 
   return (
@@ -20,6 +24,11 @@ export function Component() {
         </Card>
         <Card title="Password">
           <PasswordForm onChanged={refreshMe} />
+        </Card>
+        <Card title="Where you are signed in">
+          <SessionsList
+            onSignedOutEverywhere={() => navigate(paths.signIn.getHref(), { replace: true })}
+          />
         </Card>
         <Card title="Your teams">
           <MyTeams />

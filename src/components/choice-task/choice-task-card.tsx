@@ -13,8 +13,14 @@ import { formatLevel } from './format-level';
 export type ChoiceTaskAlternative =
   { kind: 'designed'; designIndex: number; levels: Record<string, string> } | { kind: 'fixed' };
 
+/** What a task shows of the study: attributes, alternatives and the opt-out / status quo. */
+export type ShownDefinition = Pick<
+  StudyDefinition,
+  'attributes' | 'alternatives' | 'fixedAlternative'
+>;
+
 export type ChoiceTaskCardProps = {
-  definition: StudyDefinition;
+  definition: ShownDefinition;
   alternatives: ChoiceTaskAlternative[];
   selectedIndex?: number | null;
   onChoose?: (index: number) => void;
@@ -26,7 +32,7 @@ export type ChoiceTaskCardProps = {
 
 const LETTERS = 'ABCDE';
 
-function alternativeTitle(definition: StudyDefinition, alt: ChoiceTaskAlternative, shown: number) {
+function alternativeTitle(definition: ShownDefinition, alt: ChoiceTaskAlternative, shown: number) {
   if (alt.kind === 'fixed') return definition.fixedAlternative?.label ?? 'None of these';
   const named = definition.alternatives.labeled
     ? definition.alternatives.labels[alt.designIndex]?.name

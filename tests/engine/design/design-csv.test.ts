@@ -8,9 +8,10 @@ import { importDesignCsv } from '../../../server/engine/design/import-design-csv
 import { makeLarkspurDefinition } from '../coding/fixtures/larkspur-definition';
 
 const definition = makeLarkspurDefinition({
-  prohibitions: [
+  excludedCombinations: [
     {
       id: 'p1',
+      kind: 'pair',
       a: { attributeId: 'bill', levelId: 'b0' },
       b: { attributeId: 'river', levelId: 'good' },
     },
@@ -90,7 +91,7 @@ describe('importDesignCsv', () => {
     if (!result.ok) expect(result.errors[0]).toMatchObject({ row: 2, column: 'alternative' });
   });
 
-  it('reports prohibited combinations and duplicate alternatives', () => {
+  it('reports excluded combinations and duplicate alternatives', () => {
     const result = importDesignCsv(
       definition,
       rows(
@@ -103,7 +104,12 @@ describe('importDesignCsv', () => {
     expect(result.ok).toBe(false);
     if (result.ok) return;
     expect(result.errors).toEqual([
-      { row: 2, column: null, message: 'Prohibited combination in task 1, alternative 1' },
+      {
+        row: 2,
+        column: null,
+        message:
+          'Task 1, alternative 1 breaks the excluded combination “Never Monthly bill increase “€0” together with River health “good””',
+      },
       { row: 5, column: null, message: 'Task 2: alternative 2 repeats alternative 1' },
     ]);
   });

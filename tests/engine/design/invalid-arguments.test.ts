@@ -120,21 +120,24 @@ describe('generateDesign full-factorial size', () => {
 });
 
 describe('generateDesign infeasible requests', () => {
-  it('says so when prohibitions leave no valid alternatives', () => {
+  it('says so when excluded pairs leave no valid alternatives', () => {
     const def = makeSymmetricDefinition([2, 2], 2, 'effects', {
-      prohibitions: [
+      excludedCombinations: [
         {
           id: 'p1',
+          kind: 'pair',
           a: { attributeId: 'a0', levelId: 'a0l0' },
           b: { attributeId: 'a1', levelId: 'a1l0' },
         },
         {
           id: 'p2',
+          kind: 'pair',
           a: { attributeId: 'a0', levelId: 'a0l0' },
           b: { attributeId: 'a1', levelId: 'a1l1' },
         },
         {
           id: 'p3',
+          kind: 'pair',
           a: { attributeId: 'a0', levelId: 'a0l1' },
           b: { attributeId: 'a1', levelId: 'a1l0' },
         },

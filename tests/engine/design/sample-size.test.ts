@@ -1,11 +1,12 @@
 /**
- * Sample-size guide: REFERENCES §2.4 Check F [C] (S-estimate, Rose & Bliemer 2013 [M
- * formula]; power version, de Bekker-Grob et al. 2015 [M formula]) and the Johnson–Orme
- * rule of thumb (REFERENCES §2.4, from memory [M]; examples [C]).
+ * Sample-size guide: S-estimate (Rose & Bliemer 2013, formula from memory) and its power
+ * version (de Bekker-Grob et al. 2015, formula from memory) on a design whose values were
+ * computed by hand (docs/methods.md, "Sample-size guide"), and the level-count floor
+ * N ≥ 500·c/(t·a) as summarised by de Bekker-Grob et al. 2015 (examples computed by hand).
  */
 import { describe, expect, it } from 'vitest';
 import { diagnoseDesign } from '../../../server/engine/design/diagnostics/diagnose-design';
-import { getJohnsonOrmeSampleSize } from '../../../server/engine/design/diagnostics/sample-size';
+import { getLevelCountSampleSize } from '../../../server/engine/design/diagnostics/sample-size';
 import { buildCodingPlan } from '../../../shared/engine/coding/coding-plan';
 import { writeDesign } from '../../../server/engine/design/design-grid';
 import { buildDesignMatrix } from '../../../server/engine/design/design-grid';
@@ -62,13 +63,13 @@ describe('S-estimate (Check F)', () => {
   });
 });
 
-describe('getJohnsonOrmeSampleSize (rule of thumb, from memory)', () => {
+describe('getLevelCountSampleSize (N ≥ 500·c/(t·a), de Bekker-Grob et al. 2015)', () => {
   it.each([
-    // REFERENCES §2.4 examples [C]: 500·c/(t·a) rounded up.
+    // By hand: 500·4/(8·3) = 83.3 → 84; 500·5/(12·2) = 104.2 → 105; 500·3/(10·3) = 50.
     [4, 8, 3, 84],
     [5, 12, 2, 105],
     [3, 10, 3, 50],
   ])('c = %i, t = %i, a = %i -> %i', (c, t, a, n) => {
-    expect(getJohnsonOrmeSampleSize(c, t, a)).toBe(n);
+    expect(getLevelCountSampleSize(c, t, a)).toBe(n);
   });
 });

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sql } from 'drizzle-orm';
 import { createTestApp, type TestApp } from '../../support/test-app';
-import { addMember, signUpOwner, TEST_PASSWORD, uniqueEmail } from '../../support/factories';
+import { addMember, signUpAndConfirm, signUpOwner, uniqueEmail } from '../../support/factories';
 import { firstLink, listMailTo, waitForMailTo } from '../../support/mailbox';
 import { getMembership } from '../../../db/queries/memberships';
 import type { Role } from '../../../shared/permissions';
@@ -36,12 +36,8 @@ async function inviteAndReadToken(
 
 /** A new account for the invited address (sign-up gives it a team of its own). */
 async function signUpAs(email: string) {
-  const agent = t.request();
-  const res = await agent
-    .post('/api/auth/sign-up')
-    .send({ name: 'Ines Invitee', email, password: TEST_PASSWORD, teamName: 'Own team' })
-    .expect(201);
-  return { agent, userId: res.body.id as string };
+  const { agent, user } = await signUpAndConfirm(t, { email });
+  return { agent, userId: user.id };
 }
 
 async function countInvitations(teamId: string): Promise<number> {

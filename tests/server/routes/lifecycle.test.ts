@@ -86,6 +86,34 @@ describe('POST /lifecycle/go-live', () => {
     );
   });
 
+  it('when a numeric label no longer writes its coded value, refuses until that level is confirmed', async () => {
+    const s = await insertStudy(t, team.teamId);
+    const [row] = await t.deps.db.select().from(studies).where(eq(studies.id, s.id));
+    const drifted = structuredClone(row.definition) as typeof definition;
+    const bill = drifted.attributes.find((a) => a.id === 'bill')!;
+    const level = bill.levels.find((l) => l.id === 'b6')!;
+    // The researcher typed "€6" and later changed the value to 8.
+    level.label = '€6';
+    level.value = 8;
+    await t.deps.db.update(studies).set({ definition: drifted }).where(eq(studies.id, s.id));
+    const res = await team.agents.editor.post(url(s.id, '/go-live')).expect(422);
+    const index = bill.levels.indexOf(level);
+    expect(res.body.error.fields).toEqual([
+      {
+        path: `definition.attributes.0.levels.${index}.label`,
+        message:
+          'Monthly bill increase: the level shown as “€6” is coded as 8. Correct or clear the label on Attributes, or confirm it is meant for this value.',
+      },
+    ]);
+    // A confirmation for another value or label does not count; one for this pair does.
+    level.labelConfirmed = { value: 6, label: '€6' };
+    await t.deps.db.update(studies).set({ definition: drifted }).where(eq(studies.id, s.id));
+    await team.agents.editor.post(url(s.id, '/go-live')).expect(422);
+    level.labelConfirmed = { value: 8, label: '€6' };
+    await t.deps.db.update(studies).set({ definition: drifted }).where(eq(studies.id, s.id));
+    await team.agents.editor.post(url(s.id, '/go-live')).expect(200);
+  });
+
   it('only owners and editors may go live, close and reopen', async () => {
     const s = await insertStudy(t, team.teamId);
     for (const role of ['analyst', 'viewer'] as const) {

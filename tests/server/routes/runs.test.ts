@@ -133,6 +133,33 @@ describe('POST /runs', () => {
     expect(res.body).toMatchObject({ seed: 3, respondents: { filterId }, name: 'Tap filterers' });
   });
 
+  it('when the mixed logit would not fit the memory limit, returns 400 with the estimate and the limit, and queues nothing', async () => {
+    const spec = {
+      model: 'mixed',
+      coefficients: [
+        { name: 'bill', column: 'attr:bill', distribution: 'neg_lognormal' },
+        { name: 'interruptions', column: 'attr:interrupt', distribution: 'normal' },
+      ],
+      draws: { count: 20_000 },
+    };
+    const limit = t.deps.env.ESTIMATION_MEMORY_LIMIT_MB;
+    // The setting's own floor is 64 MB; a tiny study needs a tinier limit to be refused.
+    t.deps.env.ESTIMATION_MEMORY_LIMIT_MB = 2;
+    try {
+      const before = await listRuns(t.deps.db, { teamId: team.teamId, studyId: study.studyId });
+      const res = await start(team.agents.analyst, { spec }).expect(400);
+      expect(res.body.error.code).toBe('model_too_large');
+      expect(res.body.error.message).toMatch(/needs about \d+ MB .* limit of 2 MB/);
+      expect(res.body.error.fields[0].path).toBe('spec.draws.count');
+      const after = await listRuns(t.deps.db, { teamId: team.teamId, studyId: study.studyId });
+      expect(after).toHaveLength(before.length);
+      expect(sent).toEqual([]);
+    } finally {
+      t.deps.env.ESTIMATION_MEMORY_LIMIT_MB = limit;
+    }
+    await start(team.agents.analyst, { spec }).expect(201);
+  });
+
   it('when the saved filter does not exist, returns 400 with the field', async () => {
     const res = await start(team.agents.analyst, {
       spec: mnlSpec,

@@ -31,7 +31,7 @@ export function makeSmallDefinition(overrides: Partial<StudyDefinition> = {}): S
     ],
     alternatives: { count: 2, labeled: false, labels: [] },
     fixedAlternative: null,
-    prohibitions: [],
+    excludedCombinations: [],
     ...overrides,
   };
 }

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, type TestApp } from '../../support/test-app';
-import { addMember, signUpOwner } from '../../support/factories';
+import { addMember, signUpOwner, TEST_PASSWORD } from '../../support/factories';
 import { countOwners, getMembership, getTeamById } from '../../../db/queries/memberships';
 import { changeMemberRole } from '../../../server/services/teams';
 
@@ -127,10 +127,11 @@ describe('PATCH /api/teams/:teamId/members/:userId', () => {
   it('when two owners are demoted at the same moment, one owner always remains', async () => {
     const owner = await signUpOwner(t);
     const second = await addMember(t, owner.teamId, 'owner');
+    const actor = { userId: owner.user.id, email: owner.user.email };
     // Straight to the use case: over HTTP the permission check would serialise the two calls.
     const results = await Promise.allSettled([
-      changeMemberRole(t.deps, owner.teamId, owner.user.id, 'viewer'),
-      changeMemberRole(t.deps, owner.teamId, second.user.id, 'viewer'),
+      changeMemberRole(t.deps, actor, owner.teamId, owner.user.id, 'viewer'),
+      changeMemberRole(t.deps, actor, owner.teamId, second.user.id, 'viewer'),
     ]);
     expect(results.map((r) => r.status).sort()).toEqual(['fulfilled', 'rejected']);
     expect(await countOwners(t.deps.db, { teamId: owner.teamId })).toBe(1);
@@ -169,13 +170,18 @@ describe('PATCH /api/teams/:teamId/members/:userId', () => {
 });
 
 describe('DELETE /api/teams/:teamId/members/:userId', () => {
-  it('removes a member, who then loses access to the team', async () => {
+  it('removes a member, whose sessions end and who then has no access to the team', async () => {
     const owner = await signUpOwner(t);
     const editor = await addMember(t, owner.teamId, 'editor');
     await owner.agent.delete(`/api/teams/${owner.teamId}/members/${editor.user.id}`).expect(204);
     expect(
       await getMembership(t.deps.db, { teamId: owner.teamId, userId: editor.user.id }),
     ).toBeNull();
+    await editor.agent.get(`/api/teams/${owner.teamId}`).expect(401);
+    await editor.agent
+      .post('/api/auth/sign-in')
+      .send({ email: editor.user.email, password: TEST_PASSWORD })
+      .expect(200);
     await editor.agent.get(`/api/teams/${owner.teamId}`).expect(404);
   });
 

@@ -41,7 +41,7 @@ const definition: StudyDefinition = {
     label: 'Keep the current service',
     levels: { bill: 'b0', river: 'poor' },
   },
-  prohibitions: [],
+  excludedCombinations: [],
 };
 
 const alternatives = [

@@ -7,7 +7,7 @@
 import { buildCodingPlan } from '../../../../shared/engine/coding/coding-plan';
 import type { CodedColumn } from '../../../../shared/engine/coding/coded-columns';
 import type { Design } from '../../../../shared/schemas/design';
-import type { DesignPriors } from '../../../../shared/schemas/design-spec';
+import type { DesignPriors, DesignSpec } from '../../../../shared/schemas/design-spec';
 import type { StudyDefinition } from '../../../../shared/schemas/study-definition';
 import { computeBayesianDError, computeDError } from '../d-error';
 import { buildDesignMatrix, getRowsPerTask, readDesignGrid } from '../design-grid';
@@ -17,7 +17,9 @@ import { resolvePriors } from '../resolve-priors';
 import { invertSpd } from '../spd-inverse';
 import { getAttributeOverlap, type AttributeOverlap } from './attribute-overlap';
 import { getColumnCorrelations } from './column-correlations';
-import { getLevelBalance, type AttributeLevelBalance } from './level-balance';
+import { getLevelBalance, listUnshownLevels, type AttributeLevelBalance } from './level-balance';
+import { getRuleReport, type RuleReport } from './rule-report';
+import { getLevelLabel } from '../../../../shared/study/level-labels';
 import { getSampleSizeGuide, type SampleSizeGuide } from './sample-size';
 import { computeStreetBurgessEfficiency, type StreetBurgessEfficiency } from './street-burgess';
 
@@ -49,15 +51,23 @@ export interface DesignDiagnostics {
   /** Per task (design order): probabilities of the designed alternatives, then the fixed one. */
   choiceProbabilities: { task: number; block: number; probabilities: number[] }[];
   sampleSize: SampleSizeGuide;
+  /** Dominance, excluded combinations, balance rules and block balance. */
+  rules: RuleReport;
+  /** What makes the design unusable (a level respondents never see). */
+  errors: string[];
   warnings: string[];
 }
 
-/** Computes the diagnostics; `seed` fixes the Halton scrambling of Bayesian draws. */
+/**
+ * Computes the diagnostics; `seed` fixes the Halton scrambling of Bayesian draws; `rules` are
+ * the spec's rules the design was made under (null for imported designs).
+ */
 export function diagnoseDesign(
   definition: StudyDefinition,
   design: Design,
   priors: DesignPriors = { kind: 'zero' },
   seed = 1,
+  rules: Pick<DesignSpec, 'dominance' | 'balance'> | null = null,
 ): DesignDiagnostics {
   const plan = buildCodingPlan(definition);
   const K = plan.columnCount;
@@ -101,6 +111,24 @@ export function diagnoseDesign(
     warnings.push(
       'Zero priors: dominated alternatives cannot be recognised and the S-estimate is not available.',
     );
+  const ruleReport = getRuleReport({
+    definition,
+    plan,
+    grid,
+    blockOfTask,
+    blocks: design.blocks,
+    means,
+    sds,
+    rules,
+  });
+  if (!ruleReport.blocks.balanced)
+    warnings.push(
+      'The blocks are not balanced: some level appears in a block more than one time off its fair share (see block balance).',
+    );
+  const errors = listUnshownLevels(definition, design).map(
+    ({ attribute, level }) =>
+      `${attribute.name}: the level “${getLevelLabel(attribute, level)}” never appears, so its effect cannot be estimated.`,
+  );
 
   return {
     columns: plan.columns.map(({ key, name, kind }) => ({ key, name, kind })),
@@ -128,6 +156,8 @@ export function diagnoseDesign(
       alternatives: plan.designedCount,
       maxLevels: Math.max(...plan.attributes.map((a) => a.levelIds.length)),
     }),
+    rules: ruleReport,
+    errors,
     warnings,
   };
 }

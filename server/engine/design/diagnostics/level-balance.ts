@@ -2,13 +2,20 @@
  * Level balance (Huber & Zwerina 1996): how often each level of each attribute appears
  * among the designed alternatives, overall and per block.
  */
-import type { StudyDefinition } from '../../../../shared/schemas/study-definition';
+import type { Design } from '../../../../shared/schemas/design';
+import type {
+  Attribute,
+  Level,
+  StudyDefinition,
+} from '../../../../shared/schemas/study-definition';
 import type { LevelGrid } from '../design-grid';
+import { getLevelLabel } from '../../../../shared/study/level-labels';
 
 export interface AttributeLevelBalance {
   attributeId: string;
   name: string;
-  levels: { levelId: string; label: string; count: number; share: number }[];
+  /** Counts over the designed alternatives; `inStatusQuo`: the status quo shows the level. */
+  levels: { levelId: string; label: string; count: number; share: number; inStatusQuo: boolean }[];
   /** byBlock[b][l]: count of level l in block b+1. */
   byBlock: number[][];
   /** Max minus min count over levels (0 or 1 = balanced as far as the task count allows). */
@@ -40,12 +47,37 @@ export function getLevelBalance(
       name: attribute.name,
       levels: attribute.levels.map((level, l) => ({
         levelId: level.id,
-        label: level.label,
+        label: getLevelLabel(attribute, level),
         count: counts[l],
         share: shown > 0 ? counts[l] / shown : 0,
+        inStatusQuo:
+          definition.fixedAlternative?.kind === 'status_quo' &&
+          definition.fixedAlternative.levels[attribute.id] === level.id,
       })),
       byBlock,
       spread: Math.max(...counts) - Math.min(...counts),
     };
   });
+}
+
+/**
+ * Levels respondents never see in a design: in no designed alternative and not the status
+ * quo's level. A design with such a level cannot estimate it — an error, not a note.
+ */
+export function listUnshownLevels(
+  definition: StudyDefinition,
+  design: Design,
+): { attribute: Attribute; level: Level }[] {
+  const shown = new Set<string>();
+  for (const task of design.tasks)
+    for (const alternative of task.alternatives)
+      for (const [a, l] of Object.entries(alternative.levels)) shown.add(`${a}\u0000${l}`);
+  const fx = definition.fixedAlternative;
+  if (fx?.kind === 'status_quo')
+    for (const [a, l] of Object.entries(fx.levels)) shown.add(`${a}\u0000${l}`);
+  return definition.attributes.flatMap((attribute) =>
+    attribute.levels
+      .filter((level) => !shown.has(`${attribute.id}\u0000${level.id}`))
+      .map((level) => ({ attribute, level })),
+  );
 }

@@ -6,7 +6,9 @@
  *   design replications at which coefficient k's expected t-ratio reaches t = 1.96.
  * - Power version (de Bekker-Grob et al. 2015 [M formula]):
  *   N_k = (z_(1−β) + z_(1−α/2))² Σ₁,kk / β_k², here 80 % power at α = 0.05.
- * - Rule of thumb N ≥ 500·c/(t·a) (Johnson & Orme 1996; Orme 2010 ch. 7 [M]).
+ * - Level-count floor N ≥ 500·c/(t·a): every level seen about 500 times in aggregate (as
+ *   summarised in the good-practice guide of de Bekker-Grob et al. 2015, The Patient 8(5) [M];
+ *   docs/methods.md, "Sample-size guide").
  * With B blocks each respondent answers one block, so a replication needs B respondents.
  */
 import { inverseNormal as getInverseNormal } from '../../draws/inverse-normal';
@@ -37,8 +39,8 @@ export interface SampleSizeGuide {
 const Z_T = getInverseNormal(0.975);
 const Z_POWER = getInverseNormal(0.8);
 
-/** Johnson–Orme rule of thumb ⌈500·c/(t·a)⌉ (main effects; c = most levels of any attribute). */
-export function getJohnsonOrmeSampleSize(c: number, t: number, a: number): number {
+/** Level-count floor ⌈500·c/(t·a)⌉ (main effects; c = most levels of any attribute). */
+export function getLevelCountSampleSize(c: number, t: number, a: number): number {
   // Round before ceil so 500·4/(8·3)·… rounding noise does not add a respondent.
   return Math.ceil(Number(((500 * c) / (t * a)).toFixed(9)));
 }
@@ -84,7 +86,7 @@ export function getSampleSizeGuide(input: {
     sEstimateRespondents: replications === null ? null : replications * input.blocks,
     powerRespondents: any ? Math.ceil(maxPower) * input.blocks : null,
     ruleOfThumb: {
-      respondents: getJohnsonOrmeSampleSize(
+      respondents: getLevelCountSampleSize(
         input.maxLevels,
         input.tasksPerRespondent,
         input.alternatives,
@@ -92,7 +94,7 @@ export function getSampleSizeGuide(input: {
       c: input.maxLevels,
       t: input.tasksPerRespondent,
       a: input.alternatives,
-      note: 'Rule of thumb N ≥ 500·c/(t·a) (Johnson & Orme 1996, from memory); a floor, not a power calculation.',
+      note: 'N ≥ 500·c/(t·a) (de Bekker-Grob et al. 2015): a floor, not a power calculation.',
     },
   };
 }

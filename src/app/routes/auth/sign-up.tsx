@@ -1,20 +1,23 @@
-import { Link, useNavigate, useSearchParams } from 'react-router';
+import { useState } from 'react';
+import { Link, useSearchParams } from 'react-router';
 import { paths } from '@/config/paths';
 import { AuthLayout } from '@/components/layout/auth-layout';
+import { Alert } from '@/components/ui/feedback';
 import { SignUpForm } from '@/features/auth/components/sign-up-form';
 import { safeRedirect, withAuthParams } from './safe-redirect';
 
 export function Component() {
-  const navigate = useNavigate();
   const [params] = useSearchParams();
+  const [sent, setSent] = useState<{ email: string; message: string } | null>(null);
   const email = params.get('email') ?? '';
   const redirectTo = params.get('redirectTo');
   // Coming from an invitation: the person joins that team next, so their own team is secondary.
   const invited = !!redirectTo?.startsWith('/invitations/');
+  const next = redirectTo ? safeRedirect(redirectTo, '') : '';
 
   return (
     <AuthLayout
-      title="Create your Choicewright account"
+      title={sent ? 'Check your inbox' : 'Create your Choicewright account'}
       footer={
         <>
           Already have an account?{' '}
@@ -27,20 +30,26 @@ export function Component() {
         </>
       }
     >
-      <SignUpForm
-        defaultValues={{ email, teamName: invited ? 'My workspace' : '' }}
-        teamHint={
-          invited
-            ? 'Every account gets a team of its own. You join the team that invited you next.'
-            : undefined
-        }
-        onSignedUp={(me) =>
-          navigate(
-            safeRedirect(redirectTo, me.teams[0] ? paths.studies.getHref(me.teams[0].id) : '/'),
-            { replace: true },
-          )
-        }
-      />
+      {sent ? (
+        <Alert tone="info" title="Confirm your e-mail address">
+          <p>{sent.message}</p>
+          <p className="mt-2">
+            Open the link in that message to finish creating your account. It works once and expires
+            in 48 hours. Nothing arrived? Check your spam folder, or sign up again.
+          </p>
+        </Alert>
+      ) : (
+        <SignUpForm
+          defaultValues={{ email, teamName: invited ? 'My workspace' : '' }}
+          teamHint={
+            invited
+              ? 'Every account gets a team of its own. You join the team that invited you next.'
+              : undefined
+          }
+          redirectTo={next || undefined}
+          onSubmitted={setSent}
+        />
+      )}
     </AuthLayout>
   );
 }

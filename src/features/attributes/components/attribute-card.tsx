@@ -6,6 +6,7 @@ import type { FieldErrors } from '../utils/field-errors';
 import { changeKind, makeLevel, moveItem } from '../utils/definition-drafts';
 import { LevelRow } from './level-row';
 import { SortableList } from './sortable-list';
+import { getLevelLabel } from '@shared/study/level-labels';
 
 type Props = {
   attribute: Attribute;
@@ -90,7 +91,7 @@ export function AttributeCard(props: Props) {
           >
             {a.levels.map((l, i) => (
               <option key={l.id} value={l.id}>
-                {l.label || (l.value !== undefined ? String(l.value) : `Level ${i + 1}`)}
+                {getLevelLabel(a, l) || `Level ${i + 1}`}
               </option>
             ))}
           </SelectField>
@@ -124,7 +125,7 @@ export function AttributeCard(props: Props) {
         items={a.levels}
         disabled={readOnly}
         className="space-y-2"
-        itemName={(l) => `level ${l.label || l.value || ''}`.trim()}
+        itemName={(l) => `level ${getLevelLabel(a, l)}`.trim()}
         onMove={(from, to) => set({ levels: moveItem(a.levels, from, to) })}
         renderItem={(level, li, levelHandle) => (
           <LevelRow

@@ -1,21 +1,26 @@
 /**
  * The Attributes section's editor: attributes and levels (drag to reorder), alternatives,
- * opt-out / status quo and prohibited combinations, saved as one definition. Errors from the
+ * opt-out / status quo and excluded combinations, saved as one definition. Errors from the
  * shared zod schema (before sending) or from the server are shown at their fields.
  */
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import { studyDefinitionSchema, type StudyDefinition } from '@shared/schemas/study-definition';
 import { ApiError } from '@/lib/api-client';
 import { Alert, EmptyState } from '@/components/ui/feedback';
 import { Button } from '@/components/ui/button';
 import { fromServer, fromZod, type FieldErrors } from '../utils/field-errors';
-import { makeAttribute, moveItem, normalizeDefinition } from '../utils/definition-drafts';
+import {
+  makeAttribute,
+  moveItem,
+  normalizeDefinition,
+  toDraftDefinition,
+} from '../utils/definition-drafts';
 import { useDefinitionDraft } from '../hooks/use-definition-draft';
 import { AttributeCard } from './attribute-card';
 import { SortableList } from './sortable-list';
 import { AlternativesSettings } from './alternatives-settings';
 import { FixedAlternativeSettings } from './fixed-alternative-settings';
-import { ProhibitionsEditor } from './prohibitions-editor';
+import { ExcludedCombinationsEditor } from './excluded-combinations-editor';
 import { SaveBar } from './save-bar';
 
 type Props = {
@@ -33,7 +38,9 @@ export function AttributesEditor({
   save,
   uploadImage,
 }: Props) {
-  const { draft, setDraft, dirty, markSaved, discard } = useDefinitionDraft(definition);
+  const { draft, setDraft, dirty, markSaved, discard } = useDefinitionDraft(
+    useMemo(() => toDraftDefinition(definition), [definition]),
+  );
   const [errors, setErrors] = useState<FieldErrors>(new Map());
   const [saving, setSaving] = useState(false);
   const [notice, setNotice] = useState<string | null>(null);
@@ -59,7 +66,7 @@ export function AttributesEditor({
     setFormError(null);
     try {
       const saved = await save(checked.data);
-      markSaved(saved.definition);
+      markSaved(toDraftDefinition(saved.definition));
       setErrors(new Map());
       setNotice(
         saved.designDetached
@@ -173,7 +180,7 @@ export function AttributesEditor({
         readOnly={readOnly}
         onChange={change}
       />
-      <ProhibitionsEditor
+      <ExcludedCombinationsEditor
         definition={draft}
         errors={errors}
         readOnly={readOnly}

@@ -2,6 +2,7 @@ import type { StudyDefinition } from '@shared/schemas/study-definition';
 import { Card } from '@/components/ui/feedback';
 import { SelectField, TextField } from '@/components/ui/field';
 import type { FieldErrors } from '../utils/field-errors';
+import { getLevelLabel } from '@shared/study/level-labels';
 
 type Props = {
   definition: StudyDefinition;
@@ -66,7 +67,7 @@ export function FixedAlternativeSettings({ definition: d, errors, readOnly, onCh
               <option value="">Choose…</option>
               {a.levels.map((l, i) => (
                 <option key={l.id} value={l.id}>
-                  {l.label || (l.value !== undefined ? String(l.value) : `Level ${i + 1}`)}
+                  {getLevelLabel(a, l) || `Level ${i + 1}`}
                 </option>
               ))}
             </SelectField>

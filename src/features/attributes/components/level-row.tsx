@@ -1,8 +1,9 @@
 import { useId, useState, type ReactNode } from 'react';
 import type { Attribute, Level } from '@shared/schemas/study-definition';
-import { formatNumericLevel } from '@/components/choice-task/format-level';
+import { checkLevelLabel, formatNumber, formatNumericLevel } from '@shared/study/level-labels';
 import { ApiError } from '@/lib/api-client';
 import type { FieldErrors } from '../utils/field-errors';
+import { confirmLevelLabel } from '../utils/definition-drafts';
 
 type Props = {
   attribute: Attribute;
@@ -28,6 +29,8 @@ export function LevelRow(props: Props) {
   const labelError = errors.get(`${path}.label`);
   const valueError = errors.get(`${path}.value`);
   const numeric = attribute.kind === 'numeric';
+  const labelCheck = checkLevelLabel(attribute, level);
+  const drift = labelCheck === 'drifted' || labelCheck === 'confirmed';
 
   const onFile = async (file: File | undefined) => {
     if (!file) return;
@@ -87,8 +90,20 @@ export function LevelRow(props: Props) {
           value={level.label}
           disabled={readOnly}
           aria-invalid={labelError ? true : undefined}
+          aria-describedby={drift ? `${id}-drift` : undefined}
           onChange={(e) => onChange({ ...level, label: e.target.value })}
         />
+        {drift && level.value !== undefined && (
+          <LabelDrift
+            id={`${id}-drift`}
+            label={level.label.trim()}
+            value={level.value}
+            derived={formatNumericLevel(level.value, attribute.unit)}
+            confirmed={labelCheck === 'confirmed'}
+            readOnly={readOnly}
+            onConfirm={(confirmed) => onChange(confirmLevelLabel(level, confirmed))}
+          />
+        )}
         {(labelError || valueError) && (
           <p role="alert" className="mt-1 text-xs font-medium text-danger">
             {labelError ?? valueError}
@@ -143,6 +158,48 @@ export function LevelRow(props: Props) {
           </button>
         )}
       </div>
+    </div>
+  );
+}
+
+/**
+ * A numeric level whose own label does not write its value: respondents would read one
+ * number while the model codes another. The researcher either fixes the label (or clears it
+ * to show the derived one) or confirms that this label is meant for this value.
+ */
+function LabelDrift(props: {
+  id: string;
+  label: string;
+  value: number;
+  derived: string;
+  confirmed: boolean;
+  readOnly: boolean;
+  onConfirm: (confirmed: boolean) => void;
+}) {
+  const { id, label, value, derived, confirmed, readOnly, onConfirm } = props;
+  return (
+    <div
+      id={id}
+      className={
+        confirmed
+          ? 'mt-1 rounded-md bg-canvas px-2 py-1 text-xs text-ink-soft'
+          : 'mt-1 rounded-md border border-accent/60 bg-accent-soft px-2 py-1 text-xs text-ink'
+      }
+    >
+      <p>
+        {confirmed ? 'Confirmed: ' : 'Check this label: '}respondents see “{label}” while the model
+        codes {formatNumber(value)}. Clear it to show “{derived}”.
+      </p>
+      <label className="mt-1 flex items-center gap-2 font-medium">
+        <input
+          type="checkbox"
+          className="size-4 accent-primary"
+          checked={confirmed}
+          disabled={readOnly}
+          onChange={(e) => onConfirm(e.target.checked)}
+        />
+        “{label}” is meant for the value {formatNumber(value)}
+      </label>
     </div>
   );
 }

@@ -1,18 +1,13 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useMutation } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-import type { CurrentUser, SignUpInput } from '@shared/schemas/auth';
-import { authKeys } from './auth-keys';
+import type { AcceptedMessage, SignUpInput } from '@shared/schemas/auth';
 
-export const signUp = (input: SignUpInput) => api.post<CurrentUser>('/auth/sign-up', input);
+export const signUp = (input: SignUpInput) => api.post<AcceptedMessage>('/auth/sign-up', input);
 
-/** Creates the account and its own team; the server signs the new user in. */
+/**
+ * Asks for an account. The server answers the same way whether or not the address is taken and
+ * mails a confirmation link; nobody is signed in until that link is opened.
+ */
 export function useSignUp() {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: signUp,
-    onSuccess: (me) => {
-      qc.clear();
-      qc.setQueryData(authKeys.me(), me);
-    },
-  });
+  return useMutation({ mutationFn: signUp });
 }

@@ -1,6 +1,6 @@
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { signUpSchema, type CurrentUser, type SignUpInput } from '@shared/schemas/auth';
+import { signUpSchema, type AcceptedMessage, type SignUpInput } from '@shared/schemas/auth';
 import { TextField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { useSignUp } from '../api/sign-up';
@@ -9,11 +9,14 @@ import { applyServerError, FormError } from './form-error';
 export function SignUpForm({
   defaultValues,
   teamHint = 'Your studies live in a team. You can invite colleagues and rename it later.',
-  onSignedUp,
+  redirectTo,
+  onSubmitted,
 }: {
   defaultValues?: Partial<SignUpInput>;
   teamHint?: string;
-  onSignedUp: (me: CurrentUser) => void;
+  /** Where the confirmation link should lead once the address is confirmed. */
+  redirectTo?: string;
+  onSubmitted: (result: AcceptedMessage & { email: string }) => void;
 }) {
   const signUp = useSignUp();
   const form = useForm<SignUpInput>({
@@ -24,7 +27,8 @@ export function SignUpForm({
 
   const onSubmit = form.handleSubmit(async (values) => {
     try {
-      onSignedUp(await signUp.mutateAsync(values));
+      const result = await signUp.mutateAsync(redirectTo ? { ...values, redirectTo } : values);
+      onSubmitted({ ...result, email: values.email });
     } catch (err) {
       applyServerError(err, form.setError);
     }

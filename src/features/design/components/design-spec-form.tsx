@@ -11,6 +11,7 @@ import {
   type DesignFormValues,
 } from '../utils/build-design-spec';
 import { PriorsTable } from './priors-table';
+import { DesignRulesFields } from './design-rules-fields';
 
 type Props = {
   definition: StudyDefinition;
@@ -27,7 +28,7 @@ const methodHelp: Record<DesignSpec['method'], string> = {
   full_factorial: 'Every allowed profile once; only for small studies.',
   random: 'Levels drawn at random, kept balanced across tasks.',
   d_efficient:
-    'Coordinate exchange minimising the MNL D-error under your priors; best of several starts.',
+    'Coordinate exchange minimising the MNL D-error under your priors (D₀, Dp or Db); best of several starts.',
 };
 
 export function DesignSpecForm({
@@ -148,6 +149,7 @@ export function DesignSpecForm({
               )}
             </div>
           )}
+          <DesignRulesFields definition={definition} values={v} errors={shown} onChange={set} />
         </fieldset>
         {shown.get('method') && (
           <p role="alert" className="text-xs font-medium text-danger">

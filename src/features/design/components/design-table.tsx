@@ -1,6 +1,6 @@
 import type { Design } from '@shared/schemas/design';
 import type { StudyDefinition } from '@shared/schemas/study-definition';
-import { formatLevel } from '@/components/choice-task/format-level';
+import { getLevelLabel } from '@shared/study/level-labels';
 
 /** The tasks of each block as a compact table: one row per alternative. */
 export function DesignTable({
@@ -16,7 +16,7 @@ export function DesignTable({
   const levelText = (attributeId: string, levelId: string | undefined) => {
     const a = definition.attributes.find((x) => x.id === attributeId);
     const l = a?.levels.find((x) => x.id === levelId);
-    return a && l ? formatLevel(a, l) : '—';
+    return a && l ? getLevelLabel(a, l) : '—';
   };
   return (
     <div className="space-y-6">

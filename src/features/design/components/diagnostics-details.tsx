@@ -122,23 +122,39 @@ export function ChoiceProbabilities({
   );
 }
 
+/** N ≥ 500·c/(t·a) with this design's numbers (de Bekker-Grob et al. 2015). */
+function LevelCountFloor({ d }: { d: DesignDiagnostics }) {
+  const { respondents, c, t, a } = d.sampleSize.ruleOfThumb;
+  return (
+    <p className="text-sm text-ink-soft">
+      Floor for every level to be seen about 500 times: N ≥ 500·c/(t·a) ={' '}
+      <span className="num">
+        500·{c}/({t}·{a})
+      </span>{' '}
+      → <strong className="num">{respondents}</strong> respondents (c: most levels of an attribute,
+      t: tasks per respondent, a: options per task; de Bekker-Grob et al. 2015, The Patient). A
+      floor, not a power calculation.
+    </p>
+  );
+}
+
 export function SampleSizeGuide({ d }: { d: DesignDiagnostics }) {
   const s = d.sampleSize;
   return (
     <div className="space-y-3">
       {d.priorsKind === 'zero' ? (
-        <p className="text-sm text-ink-soft">
-          The per-coefficient guide needs non-zero priors. Rule of thumb (Johnson–Orme):{' '}
-          <span className="num">{s.ruleOfThumb.respondents}</span> respondents.
-        </p>
+        <>
+          <p className="text-sm text-ink-soft">The per-coefficient guide needs non-zero priors.</p>
+          <LevelCountFloor d={d} />
+        </>
       ) : (
         <>
           <p className="text-sm text-ink">
             About <strong className="num">{s.sEstimateRespondents ?? '—'}</strong> respondents for
             every coefficient’s expected t-ratio to reach 1.96; about{' '}
-            <strong className="num">{s.powerRespondents ?? '—'}</strong> for 80 % power. Rule of
-            thumb: <span className="num">{s.ruleOfThumb.respondents}</span>.
+            <strong className="num">{s.powerRespondents ?? '—'}</strong> for 80 % power.
           </p>
+          <LevelCountFloor d={d} />
           <div className="overflow-x-auto">
             <table className="w-full text-xs">
               <thead>

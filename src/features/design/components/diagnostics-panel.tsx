@@ -1,32 +1,31 @@
 import type { DesignDiagnostics } from '@server/engine/design/diagnostics/diagnose-design';
 import { Alert, Card } from '@/components/ui/feedback';
 import { ChoiceProbabilities, Correlations, SampleSizeGuide } from './diagnostics-details';
+import { RuleReportCard } from './rule-report-card';
+import { criterionNames } from '../utils/criterion-names';
 
 const fmt = (v: number | null | undefined, digits = 4) =>
   v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toPrecision(digits);
 const pct = (v: number | null) => (v === null ? '—' : `${Math.round(v * 100)} %`);
 
-const criterion = {
-  zero: 'D₀-error (zero priors)',
-  fixed: 'Dp-error (at the priors)',
-  bayesian: 'Bayesian D-error',
-};
-
 /** How good the design is: criteria, balance, overlap, correlations, probabilities, sample size. */
 export function DiagnosticsPanel({
   d,
   alternativeNames,
+  fixedLabel,
 }: {
   d: DesignDiagnostics;
   /** Names of the alternatives in task order (designed ones, then opt-out / status quo). */
   alternativeNames: string[];
+  /** Name of the opt-out / status quo, or null when there is none. */
+  fixedLabel: string | null;
 }) {
   return (
     <div className="space-y-4">
       <Card title="Design quality">
         <dl className="grid grid-cols-2 gap-3 text-sm">
           <div>
-            <dt className="text-xs text-ink-muted">{criterion[d.priorsKind]}</dt>
+            <dt className="text-xs text-ink-muted">{criterionNames[d.priorsKind]}</dt>
             <dd className="font-mono text-xl font-semibold tabular-nums text-ink">
               {fmt(d.dError)}
             </dd>
@@ -42,7 +41,7 @@ export function DiagnosticsPanel({
           </div>
           {d.priorsKind !== 'zero' && (
             <div>
-              <dt className="text-xs text-ink-muted">D₀-error</dt>
+              <dt className="text-xs text-ink-muted">{criterionNames.zero}</dt>
               <dd className="font-mono tabular-nums">{fmt(d.dErrorZero)}</dd>
             </div>
           )}
@@ -63,6 +62,8 @@ export function DiagnosticsPanel({
           </Alert>
         )}
       </Card>
+
+      <RuleReportCard d={d} fixedLabel={fixedLabel} />
 
       <Card title="Level balance and overlap">
         <div className="space-y-4">

@@ -1,4 +1,5 @@
 import type { DesignJobView } from '@shared/schemas/design-job';
+import { criterionNames } from '../utils/criterion-names';
 import { Alert, ProgressBar } from '@/components/ui/feedback';
 import { Button } from '@/components/ui/button';
 
@@ -74,7 +75,7 @@ export function JobProgress({
         )}
         {p.bestDError !== undefined && (
           <div className="flex gap-1">
-            <dt>Best D-error so far</dt>
+            <dt>Best {criterionNames[job.spec.priors.kind]} so far</dt>
             <dd className="num">{p.bestDError.toPrecision(4)}</dd>
           </div>
         )}

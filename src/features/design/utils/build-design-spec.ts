@@ -16,6 +16,12 @@ export type DesignFormValues = {
   priorsKind: 'zero' | 'fixed' | 'bayesian';
   draws: string;
   priors: PriorInputs;
+  /** Dominance screening switches (see shared/schemas/design-spec.ts). */
+  dominance: DesignSpec['dominance'];
+  minAppearances: string;
+  levelBalance: boolean;
+  /** Empty: no limit. */
+  maxOverlap: string;
 };
 
 export const defaultDesignForm: DesignFormValues = {
@@ -27,6 +33,10 @@ export const defaultDesignForm: DesignFormValues = {
   priorsKind: 'zero',
   draws: '200',
   priors: {},
+  dominance: { betweenDesigned: true, overFixed: true, byFixed: true },
+  minAppearances: '1',
+  levelBalance: false,
+  maxOverlap: '',
 };
 
 const num = (s: string) => (s.trim() === '' ? Number.NaN : Number(s));
@@ -52,6 +62,12 @@ export function buildDesignSpec(
         : v.priorsKind === 'fixed'
           ? { kind: 'fixed', columns: priorColumns.map(({ key, mean }) => ({ key, mean })) }
           : { kind: 'bayesian', columns: priorColumns, draws: num(v.draws) },
+    dominance: v.dominance,
+    balance: {
+      minAppearances: num(v.minAppearances),
+      levelBalance: v.levelBalance,
+      maxOverlap: v.maxOverlap.trim() === '' ? null : num(v.maxOverlap),
+    },
   };
   const parsed = designSpecSchema.safeParse(raw);
   if (parsed.success) return { ok: true, spec: parsed.data };
@@ -81,5 +97,12 @@ export function formValuesFromSpec(spec: Partial<DesignSpec> | undefined): Desig
     priorsKind: p?.kind ?? 'zero',
     draws: p?.kind === 'bayesian' ? String(p.draws) : '200',
     priors,
+    dominance: { ...defaultDesignForm.dominance, ...spec.dominance },
+    minAppearances: String(spec.balance?.minAppearances ?? 1),
+    levelBalance: spec.balance?.levelBalance ?? false,
+    maxOverlap:
+      spec.balance?.maxOverlap === null || spec.balance?.maxOverlap === undefined
+        ? ''
+        : String(spec.balance.maxOverlap),
   };
 }

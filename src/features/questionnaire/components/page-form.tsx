@@ -2,14 +2,16 @@ import { TextAreaField, TextField } from '@/components/ui/field';
 import { pageKindLabels, type QuestionnairePage } from '@shared/schemas/questionnaire';
 import type { StudyDefinition } from '@shared/schemas/study-definition';
 import { QuestionFields } from './question-fields';
-import { DominanceFields, FixedTaskFields } from './task-page-fields';
+import { DominanceFields, HandSetTaskFields } from './task-page-fields';
 
 const kindHelp: Partial<Record<QuestionnairePage['kind'], string>> = {
   consent:
     'Respondents must agree before anything else. Say who runs the study, what is recorded, how long it is kept, that taking part is voluntary and that they may stop at any time. Follow your ethics board and data-protection law.',
   tasks: "Each respondent sees their block's choice tasks here, one per screen, in a random order.",
-  warmup: 'A practice task shown before the design tasks. It is stored but not used in estimation.',
-  holdout: 'A fixed task every respondent sees. It is kept out of estimation to check predictions.',
+  warmup:
+    'A hand-set practice task shown before the design tasks. It is stored but not used in estimation.',
+  holdout:
+    'A hand-set task every respondent sees. It is kept out of estimation to check predictions.',
   repeat:
     'Shows one of the respondent’s design tasks again with the alternatives in swapped positions, to check consistency.',
   dominance: 'One alternative is better on every attribute: a check of attention.',
@@ -75,7 +77,7 @@ export function PageForm({
       {(page.kind === 'warmup' || page.kind === 'holdout') && (
         <>
           {titled}
-          <FixedTaskFields page={page} definition={definition} onChange={onChange} />
+          <HandSetTaskFields page={page} definition={definition} onChange={onChange} />
         </>
       )}
       {page.kind === 'dominance' && (

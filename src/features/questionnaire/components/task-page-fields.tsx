@@ -1,19 +1,20 @@
 import { SelectField } from '@/components/ui/field';
 import type { QuestionnairePage } from '@shared/schemas/questionnaire';
 import type { StudyDefinition } from '@shared/schemas/study-definition';
+import { getLevelLabel } from '@shared/study/level-labels';
 
-type FixedTaskPage = Extract<QuestionnairePage, { kind: 'warmup' | 'holdout' }>;
+type HandSetTaskPage = Extract<QuestionnairePage, { kind: 'warmup' | 'holdout' }>;
 type DominancePage = Extract<QuestionnairePage, { kind: 'dominance' }>;
 
 /** Levels of a warm-up or holdout task: one select per attribute and alternative. */
-export function FixedTaskFields({
+export function HandSetTaskFields({
   page,
   definition,
   onChange,
 }: {
-  page: FixedTaskPage;
+  page: HandSetTaskPage;
   definition: StudyDefinition;
-  onChange: (p: FixedTaskPage) => void;
+  onChange: (p: HandSetTaskPage) => void;
 }) {
   const setLevel = (j: number, attributeId: string, levelId: string) =>
     onChange({
@@ -41,7 +42,7 @@ export function FixedTaskFields({
               <option value="">Choose a level</option>
               {a.levels.map((l) => (
                 <option key={l.id} value={l.id}>
-                  {l.label}
+                  {getLevelLabel(a, l)}
                 </option>
               ))}
             </SelectField>
@@ -81,7 +82,7 @@ export function DominanceFields({
             <option value="">Choose a level</option>
             {a.levels.map((l) => (
               <option key={l.id} value={l.id}>
-                {l.label}
+                {getLevelLabel(a, l)}
               </option>
             ))}
           </SelectField>

@@ -1,45 +1,8 @@
-import { useState } from 'react';
 import { Spinner } from '@/components/ui/feedback';
-import type { AnswerValue, RespondentScreen, RespondentSession } from '@shared/schemas/respondent';
 import { useRespondent } from '../hooks/use-respondent';
-import { ConsentScreen } from './consent-screen';
-import { InstructionsScreen } from './instructions-screen';
-import { QuestionScreen } from './question-screen';
-import { TaskScreen } from './task-screen';
+import { RespondentScreenView } from './screen-view';
 import { EndScreen, UnavailableScreen } from './finish-screens';
 import { RespondLayout } from './respond-layout';
-
-/** Renders one screen; `key` makes every screen a fresh component with its own timer. */
-function CurrentScreen({
-  screen,
-  session,
-  onAnswer,
-}: {
-  screen: RespondentScreen;
-  session: RespondentSession;
-  onAnswer: (value: AnswerValue, responseMs: number) => void;
-}) {
-  const [shownAt] = useState(() => performance.now());
-  const give = (value: AnswerValue) => onAnswer(value, performance.now() - shownAt);
-  switch (screen.kind) {
-    case 'consent':
-      return (
-        <ConsentScreen screen={screen} onAnswer={() => give({ kind: 'consent', agreed: true })} />
-      );
-    case 'instructions':
-      return <InstructionsScreen screen={screen} onContinue={() => give({ kind: 'ack' })} />;
-    case 'question':
-      return <QuestionScreen screen={screen} onAnswer={give} />;
-    case 'task':
-      return (
-        <TaskScreen
-          screen={screen}
-          definition={session.definition}
-          onAnswer={(position) => give({ kind: 'choice', position })}
-        />
-      );
-  }
-}
 
 /** The respondent app for one public link: one screen at a time, every answer kept. */
 export function RespondentApp({ publicId, search }: { publicId: string; search: string }) {
@@ -98,10 +61,10 @@ export function RespondentApp({ publicId, search }: { publicId: string; search: 
     );
   else
     body = (
-      <CurrentScreen
+      <RespondentScreenView
         key={r.currentScreen.key}
         screen={r.currentScreen}
-        session={session}
+        definition={session.definition}
         onAnswer={(value, ms) => r.answer(r.currentScreen!, value, ms)}
       />
     );

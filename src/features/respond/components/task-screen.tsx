@@ -5,7 +5,6 @@ import {
   type ChoiceTaskAlternative,
 } from '@/components/choice-task/choice-task-card';
 import type { RespondentScreen, RespondentSession } from '@shared/schemas/respondent';
-import type { StudyDefinition } from '@shared/schemas/study-definition';
 import { NextBar, ScreenFrame } from './screen-frame';
 
 type Props = {
@@ -17,7 +16,6 @@ type Props = {
 /** One choice task: tap a card to choose it, then Next. The choice can change until Next. */
 export function TaskScreen({ screen, definition, onAnswer }: Props) {
   const [chosen, setChosen] = useState<number | null>(null);
-  const full: StudyDefinition = { ...definition, prohibitions: [] };
   const alternatives: ChoiceTaskAlternative[] = screen.alternatives.map((a) =>
     a.fixed ? { kind: 'fixed' } : { kind: 'designed', designIndex: a.index, levels: a.levels },
   );
@@ -25,7 +23,7 @@ export function TaskScreen({ screen, definition, onAnswer }: Props) {
   return (
     <ScreenFrame title={screen.title} eyebrow={label} wide>
       <ChoiceTaskCard
-        definition={full}
+        definition={definition}
         alternatives={alternatives}
         selectedIndex={chosen}
         onChoose={setChosen}

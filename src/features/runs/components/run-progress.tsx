@@ -1,7 +1,7 @@
 /**
  * Progress of a queued or running run: a bar of the progress toward convergence (the gradient
  * norm falling from its first value to the tolerance, on a log scale), the iteration, the
- * log-likelihood and the elapsed time.
+ * log-likelihood, the elapsed time and, for runs over a minute, about how long is left.
  */
 import type { Run } from '@shared/schemas/run';
 import { ProgressBar } from '@/components/ui/feedback';
@@ -24,6 +24,12 @@ export function getConvergenceShare(run: Run): number {
   const share =
     Math.log(initialGradientNorm / gradientNorm) / Math.log(initialGradientNorm / TOLERANCE);
   return Math.min(0.97, Math.max(0.02, share));
+}
+
+/** Runs that take over a minute show the estimate of the time left (a short run needs none). */
+export function showsTimeLeft(p: Run['progress']): boolean {
+  if (p.secondsLeft === undefined || p.stage !== 'estimating') return false;
+  return (p.elapsedMs ?? 0) + p.secondsLeft * 1000 > 60_000;
 }
 
 export function RunProgress({ run }: { run: Run }) {
@@ -52,6 +58,9 @@ export function RunProgress({ run }: { run: Run }) {
           </span>
         )}
         {run.status === 'running' && <span>Elapsed {formatDuration(p.elapsedMs)}</span>}
+        {run.status === 'running' && showsTimeLeft(p) && (
+          <span>About {formatDuration(p.secondsLeft! * 1000)} left</span>
+        )}
         {run.cancelRequested && run.status === 'running' && <span>Stopping…</span>}
       </div>
     </div>

@@ -6,6 +6,7 @@ import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
 import type { ScenarioAlternative } from '@shared/schemas/shares';
 import type { StudyDefinition } from '@shared/schemas/study-definition';
+import { getLevelLabel } from '@shared/study/level-labels';
 
 export const MAX_ALTERNATIVES = 5;
 
@@ -72,7 +73,7 @@ export function ScenarioEditor({
                 >
                   {a.levels.map((l) => (
                     <option key={l.id} value={l.id}>
-                      {l.label}
+                      {getLevelLabel(a, l)}
                     </option>
                   ))}
                 </select>

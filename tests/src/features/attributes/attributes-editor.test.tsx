@@ -3,7 +3,8 @@ import '@testing-library/jest-dom/vitest';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { cleanup, render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
-import type { StudyDefinition } from '@shared/schemas/study-definition';
+import type { Attribute, StudyDefinition } from '@shared/schemas/study-definition';
+import { getLevelLabel } from '@shared/study/level-labels';
 import { ApiError } from '@/lib/api-client';
 import { AttributesEditor } from '@/features/attributes/components/attributes-editor';
 
@@ -25,7 +26,7 @@ const definition: StudyDefinition = {
   ],
   alternatives: { count: 2, labeled: false, labels: [] },
   fixedAlternative: null,
-  prohibitions: [],
+  excludedCombinations: [],
 };
 
 function renderEditor(save = vi.fn()) {
@@ -71,7 +72,7 @@ describe('AttributesEditor', () => {
     expect(screen.getByLabelText('Attribute name')).toHaveAttribute('aria-invalid', 'true');
   });
 
-  it('adds a numeric attribute whose empty labels are written from value and unit on save', async () => {
+  it('adds a numeric attribute whose labels stay derived from value and unit after saving', async () => {
     const save = vi.fn(async (d: StudyDefinition) => ({ definition: d, designDetached: false }));
     renderEditor(save);
     await userEvent.click(screen.getByRole('button', { name: 'Add numeric attribute' }));
@@ -80,11 +81,56 @@ describe('AttributesEditor', () => {
     await userEvent.type(within(card).getByLabelText('Unit'), '€');
     const values = within(card).getAllByLabelText('Value');
     await userEvent.clear(values[1]);
+    await userEvent.type(values[1], '8');
+    expect(within(card).getAllByLabelText('Shown as')[1]).toHaveAttribute(
+      'placeholder',
+      'Shown as €8',
+    );
+    await userEvent.clear(values[1]);
     await userEvent.type(values[1], '15');
     await userEvent.click(screen.getByRole('button', { name: 'Save changes' }));
-    const saved = save.mock.calls[0][0].attributes[1];
-    expect(saved.levels.map((l: { label: string }) => l.label)).toEqual(['€0', '€15']);
+    const saved: Attribute = save.mock.calls[0][0].attributes[1];
+    // Stored empty: the label is derived, so a later change of value or unit shows through.
+    expect(saved.levels.map((l) => l.label)).toEqual(['', '']);
+    expect(saved.levels.map((l) => getLevelLabel(saved, l))).toEqual(['€0', '€15']);
     expect(saved.coding).toBe('linear');
+  });
+
+  it('flags an own label that no longer writes its value, until it is fixed or confirmed', async () => {
+    const bill: Attribute = {
+      id: 'bill',
+      name: 'Monthly bill increase',
+      kind: 'numeric',
+      unit: '€',
+      isCost: true,
+      coding: 'linear',
+      levels: [
+        { id: 'b0', label: 'No increase', value: 0 },
+        { id: 'b6', label: '€6 a month', value: 6 },
+      ],
+    };
+    const save = vi.fn(async (d: StudyDefinition) => ({ definition: d, designDetached: false }));
+    render(
+      <AttributesEditor
+        definition={{ ...definition, attributes: [bill] }}
+        readOnly={false}
+        save={save}
+        uploadImage={vi.fn()}
+      />,
+    );
+    // "No increase" does not write 0: flagged. "€6 a month" writes 6: not flagged.
+    expect(screen.getAllByText(/Check this label/)).toHaveLength(1);
+    const value = screen.getAllByLabelText('Value')[1];
+    await userEvent.clear(value);
+    await userEvent.type(value, '8');
+    expect(screen.getAllByText(/Check this label/)).toHaveLength(2);
+    expect(screen.getByText(/respondents see “€6 a month” while the model codes 8/)).toBeVisible();
+    await userEvent.click(screen.getByLabelText('“No increase” is meant for the value 0'));
+    expect(screen.getAllByText(/Check this label/)).toHaveLength(1);
+    await userEvent.click(screen.getByRole('button', { name: 'Save changes' }));
+    const levels = save.mock.calls[0][0].attributes[0].levels;
+    expect(levels[0].labelConfirmed).toEqual({ value: 0, label: 'No increase' });
+    expect(levels[1].labelConfirmed).toBeUndefined();
   });
 
   it('in read-only mode shows why and offers no editing', () => {

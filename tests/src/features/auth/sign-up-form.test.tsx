@@ -11,11 +11,8 @@ afterEach(() => {
   vi.unstubAllGlobals();
 });
 
-const me = {
-  id: '6f1c1a52-57a5-4a55-9f58-3f8c3d1f4a10',
-  email: 'ines@example.test',
-  name: 'Ines',
-  teams: [{ id: '0b8f9d4e-3a53-4b0e-8c4e-1d2a3b4c5d6e', name: 'Water team', role: 'owner' }],
+const accepted = {
+  message: 'Check your inbox: we sent a message to ines@example.test to confirm the address.',
 };
 
 async function fillIn(values: { name?: string; email?: string; password?: string; team?: string }) {
@@ -30,7 +27,7 @@ async function fillIn(values: { name?: string; email?: string; password?: string
 describe('SignUpForm', () => {
   it('when fields are empty or too short, shows the zod messages on the fields and sends nothing', async () => {
     const { fn } = fakeFetch();
-    renderWithQuery(<SignUpForm onSignedUp={vi.fn()} />);
+    renderWithQuery(<SignUpForm onSubmitted={vi.fn()} />);
     await fillIn({ email: 'not-an-address', password: 'short' });
 
     expect(await screen.findByText('Enter your name')).toBeInTheDocument();
@@ -44,8 +41,8 @@ describe('SignUpForm', () => {
     expect(fn).not.toHaveBeenCalled();
   });
 
-  it('when the server says the e-mail is taken, shows that on the e-mail field', async () => {
-    const onSignedUp = vi.fn();
+  it('when the server names a field, shows its message on that field', async () => {
+    const onSubmitted = vi.fn();
     const { requests } = fakeFetch({
       status: 409,
       body: {
@@ -56,7 +53,7 @@ describe('SignUpForm', () => {
         },
       },
     });
-    renderWithQuery(<SignUpForm onSignedUp={onSignedUp} />);
+    renderWithQuery(<SignUpForm onSubmitted={onSubmitted} />);
     await fillIn({
       name: 'Ines',
       email: 'Ines@Example.test',
@@ -79,7 +76,7 @@ describe('SignUpForm', () => {
         },
       },
     ]);
-    expect(onSignedUp).not.toHaveBeenCalled();
+    expect(onSubmitted).not.toHaveBeenCalled();
   });
 
   it('when the server refuses without naming a field, shows its message above the button', async () => {
@@ -87,7 +84,7 @@ describe('SignUpForm', () => {
       status: 429,
       body: { error: { code: 'rate_limited', message: 'Too many attempts. Try again later.' } },
     });
-    renderWithQuery(<SignUpForm onSignedUp={vi.fn()} />);
+    renderWithQuery(<SignUpForm onSubmitted={vi.fn()} />);
     await fillIn({
       name: 'Ines',
       email: 'ines@example.test',
@@ -99,14 +96,21 @@ describe('SignUpForm', () => {
     );
   });
 
-  it('on success, hands the new user to the page and prefills given values', async () => {
-    const onSignedUp = vi.fn();
-    fakeFetch({ status: 201, body: me });
+  it('on success, hands the "check your inbox" answer to the page, with the return path', async () => {
+    const onSubmitted = vi.fn();
+    const { requests } = fakeFetch({ status: 202, body: accepted });
     renderWithQuery(
-      <SignUpForm onSignedUp={onSignedUp} defaultValues={{ email: 'ines@example.test' }} />,
+      <SignUpForm
+        onSubmitted={onSubmitted}
+        redirectTo="/invitations/abc"
+        defaultValues={{ email: 'ines@example.test' }}
+      />,
     );
     expect(screen.getByLabelText('E-mail')).toHaveValue('ines@example.test');
     await fillIn({ name: 'Ines', password: 'a long enough passphrase', team: 'Water team' });
-    await waitFor(() => expect(onSignedUp).toHaveBeenCalledWith(me));
+    await waitFor(() =>
+      expect(onSubmitted).toHaveBeenCalledWith({ ...accepted, email: 'ines@example.test' }),
+    );
+    expect(requests[0]?.body).toMatchObject({ redirectTo: '/invitations/abc' });
   });
 });

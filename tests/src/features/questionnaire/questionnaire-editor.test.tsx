@@ -25,7 +25,7 @@ const definition: StudyDefinition = {
   ],
   alternatives: { count: 2, labeled: false, labels: [] },
   fixedAlternative: null,
-  prohibitions: [],
+  excludedCombinations: [],
 };
 
 let saved: Questionnaire[];

@@ -1,81 +1,94 @@
-import { useState } from 'react';
+/**
+ * The Preview section: the respondent app itself, in a frame of a phone, tablet or desktop
+ * width, walking through the study's current draft as one respondent of a block would (the
+ * seed fixes their task order and card positions). Built by the same code as live sessions.
+ */
+import { useEffect, useState } from 'react';
 import { Link, useParams } from 'react-router';
+import type { RespondentScreen } from '@shared/schemas/respondent';
+import { pageKindLabels } from '@shared/schemas/questionnaire';
 import { paths } from '@/config/paths';
-import { EmptyState, Spinner } from '@/components/ui/feedback';
+import { ApiError } from '@/lib/api-client';
+import { Alert, EmptyState, Spinner } from '@/components/ui/feedback';
 import { SelectField } from '@/components/ui/field';
+import { Button } from '@/components/ui/button';
 import { ErrorText } from '@/components/ui/error-boundary';
-import {
-  ChoiceTaskCard,
-  type ChoiceTaskAlternative,
-} from '@/components/choice-task/choice-task-card';
-import { useStudy } from '@/features/studies/api/get-study';
-import { useDesignState } from '@/features/design/api/get-design-state';
+import { cn } from '@/lib/cn';
+import { useStudyPreview } from '@/features/preview/api/get-study-preview';
+import { listenToPreviewScreens } from '@/features/preview/utils/preview-messages';
 
-/** Any task as a respondent will see it, on a phone-sized frame and at desktop width. */
+const widths = [
+  { id: 'phone', label: 'Phone', px: 360, height: 740 },
+  { id: 'tablet', label: 'Tablet', px: 768, height: 900 },
+  { id: 'desktop', label: 'Desktop', px: 1280, height: 820 },
+] as const;
+
+const taskNames = {
+  design: 'Choice task',
+  warmup: pageKindLabels.warmup,
+  holdout: pageKindLabels.holdout,
+  repeat: pageKindLabels.repeat,
+  dominance: pageKindLabels.dominance,
+};
+
+function screenName(screen: RespondentScreen, i: number): string {
+  const n = `${i + 1}.`;
+  switch (screen.kind) {
+    case 'consent':
+    case 'instructions':
+      return `${n} ${screen.title}`;
+    case 'question':
+      return `${n} ${screen.screening ? 'Screening: ' : ''}${screen.question.text}`;
+    case 'task':
+      return `${n} ${taskNames[screen.taskKind]} (choice ${screen.taskIndex} of ${screen.taskCount})`;
+  }
+}
+
 export function Component() {
   const { teamId = '', studyId = '' } = useParams();
-  const { data: study } = useStudy(teamId, studyId);
-  const state = useDesignState(teamId, studyId);
   const [block, setBlock] = useState(1);
-  const [taskIndex, setTaskIndex] = useState(0);
-  const [chosen, setChosen] = useState<number | null>(null);
-  if (!study || state.isPending) return <Spinner />;
-  if (state.error) return <ErrorText error={state.error} />;
-  const design = state.data.design?.design;
-  if (!design)
-    return (
-      <EmptyState
-        title="Nothing to preview yet"
-        action={
-          <Link
-            className="font-medium text-primary underline"
-            to={paths.studySection.getHref(teamId, studyId, 'tasks')}
-          >
-            Create the choice tasks
-          </Link>
-        }
-      >
-        The preview shows the choice tasks once a design exists.
-      </EmptyState>
-    );
+  const [seed, setSeed] = useState(1);
+  const [width, setWidth] = useState<(typeof widths)[number]>(widths[0]);
+  // The frame starts at `start`; `shown` follows it as the researcher answers inside it.
+  const [start, setStart] = useState(0);
+  const [shown, setShown] = useState(0);
+  const preview = useStudyPreview(teamId, studyId, block, seed);
+  useEffect(() => listenToPreviewScreens(setShown), []);
 
-  const tasks = design.tasks.filter((t) => t.block === block);
-  const task = tasks[Math.min(taskIndex, tasks.length - 1)];
-  const alternatives: ChoiceTaskAlternative[] = [
-    ...task.alternatives.map((a, j) => ({
-      kind: 'designed' as const,
-      designIndex: j,
-      levels: a.levels,
-    })),
-    ...(study.definition.fixedAlternative ? [{ kind: 'fixed' as const }] : []),
-  ];
-  const position = tasks.indexOf(task) + 1;
-  const card = (
-    <ChoiceTaskCard
-      definition={study.definition}
-      alternatives={alternatives}
-      selectedIndex={chosen}
-      onChoose={setChosen}
-      label={`Task ${position} of ${tasks.length}`}
-    />
-  );
-  const heading = (
-    <div className="mb-3">
-      <div className="mb-2 h-1 w-full rounded-full bg-line" aria-hidden>
-        <div
-          className="h-1 rounded-full bg-primary"
-          style={{ width: `${(position / tasks.length) * 100}%` }}
-        />
-      </div>
-      <p className="text-xs text-ink-muted">
-        Task {position} of {tasks.length}
-      </p>
-      <p className="text-base font-semibold text-ink">Which option would you choose?</p>
-    </div>
-  );
+  if (preview.isPending) return <Spinner />;
+  if (preview.error) {
+    if (preview.error instanceof ApiError && preview.error.code === 'nothing_to_preview')
+      return (
+        <EmptyState
+          title="Nothing to preview yet"
+          action={
+            <Link
+              className="font-medium text-primary underline"
+              to={paths.studySection.getHref(teamId, studyId, 'tasks')}
+            >
+              Go to Tasks
+            </Link>
+          }
+        >
+          {preview.error.message}
+        </EmptyState>
+      );
+    return <ErrorText error={preview.error} />;
+  }
+  const { survey, blocks, questionnaireSaved } = preview.data;
+  const jump = (index: number) => {
+    setStart(index);
+    setShown(index);
+  };
+  const src = paths.previewFrame.getHref(teamId, studyId, { block, seed, screen: start });
 
   return (
-    <div className="space-y-6">
+    <div className="space-y-4">
+      <Alert tone="info">
+        This is the respondent app on the study as saved now, as one respondent of the chosen block
+        sees it. Answers given here only move on to the next screen; nothing is stored.
+        {!questionnaireSaved && ' The questionnaire has not been saved yet: this is the default.'}
+      </Alert>
       <div className="flex flex-wrap items-end gap-3">
         <SelectField
           label="Block"
@@ -83,52 +96,86 @@ export function Component() {
           value={block}
           onChange={(e) => {
             setBlock(Number(e.target.value));
-            setTaskIndex(0);
-            setChosen(null);
+            jump(0);
           }}
         >
-          {Array.from({ length: design.blocks }, (_, b) => (
+          {Array.from({ length: blocks }, (_, b) => (
             <option key={b} value={b + 1}>
               Block {b + 1}
             </option>
           ))}
         </SelectField>
         <SelectField
-          label="Task"
-          wrapperClassName="w-52"
-          value={taskIndex}
-          onChange={(e) => {
-            setTaskIndex(Number(e.target.value));
-            setChosen(null);
-          }}
+          label="Screen"
+          wrapperClassName="min-w-0 w-full sm:w-96"
+          value={Math.min(shown, survey.screens.length)}
+          onChange={(e) => jump(Number(e.target.value))}
         >
-          {tasks.map((t, i) => (
-            <option key={t.task} value={i}>
-              Task {i + 1} (design #{t.task})
+          {survey.screens.map((s, i) => (
+            <option key={s.key} value={i}>
+              {screenName(s, i)}
             </option>
           ))}
+          <option value={survey.screens.length}>
+            {survey.screens.length + 1}. {survey.end.title}
+          </option>
         </SelectField>
-        <p className="pb-2 text-xs text-ink-muted">Tap an option to see how a choice looks.</p>
+        <Button
+          variant="secondary"
+          onClick={() => {
+            setSeed(1 + Math.floor(Math.random() * 2_000_000_000));
+            jump(0);
+          }}
+        >
+          Another respondent
+        </Button>
+        <p className="pb-2 text-xs text-ink-muted">
+          Respondent seed <span className="num">{seed}</span>: task order and card positions.
+        </p>
       </div>
-      <div className="flex flex-col gap-8">
-        <section aria-label="Phone preview" className="shrink-0">
-          <h2 className="mb-2 text-sm font-semibold text-ink-soft">Phone (360 px)</h2>
-          <div className="w-[360px] max-w-full overflow-hidden rounded-[2rem] border-8 border-ink bg-canvas shadow-lg">
-            <div className="max-h-[640px] overflow-y-auto p-3">
-              {heading}
-              {card}
-            </div>
-          </div>
-        </section>
-        <section aria-label="Desktop preview" className="min-w-0">
-          <h2 className="mb-2 text-sm font-semibold text-ink-soft">Desktop</h2>
-          <div className="overflow-x-auto rounded-lg border border-line bg-canvas">
-            <div className="mx-auto min-w-[720px] max-w-5xl p-6">
-              {heading}
-              {card}
-            </div>
-          </div>
-        </section>
+      <fieldset className="flex flex-wrap gap-2">
+        <legend className="sr-only">Screen width</legend>
+        {widths.map((w) => (
+          <label
+            key={w.id}
+            className={cn(
+              'flex h-10 cursor-pointer items-center gap-2 rounded-md border px-3 text-sm has-[:focus-visible]:ring-2 has-[:focus-visible]:ring-primary/40',
+              width.id === w.id
+                ? 'border-primary bg-primary-soft text-primary'
+                : 'border-line bg-white text-ink',
+            )}
+          >
+            <input
+              type="radio"
+              name="preview-width"
+              className="sr-only"
+              checked={width.id === w.id}
+              onChange={() => setWidth(w)}
+            />
+            {w.label} <span className="num text-xs text-ink-muted">{w.px} px</span>
+          </label>
+        ))}
+      </fieldset>
+      <div
+        className="overflow-x-auto rounded-lg bg-line/40 p-3"
+        tabIndex={0}
+        role="region"
+        aria-label={`Respondent screen at ${width.px} px`}
+      >
+        <div
+          className={cn(
+            'mx-auto w-fit overflow-hidden bg-canvas shadow-lg',
+            width.id === 'phone' ? 'rounded-[2rem] border-8 border-ink' : 'rounded-md',
+          )}
+        >
+          <iframe
+            key={src}
+            title={`Respondent screen preview, ${width.label.toLowerCase()} width`}
+            src={src}
+            style={{ width: width.px, height: width.height }}
+            className="block max-w-none border-0"
+          />
+        </div>
       </div>
     </div>
   );

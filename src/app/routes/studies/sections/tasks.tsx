@@ -133,6 +133,7 @@ export function Component() {
             <DiagnosticsPanel
               d={design.diagnostics}
               alternativeNames={alternativeNamesOf(study.definition)}
+              fixedLabel={study.definition.fixedAlternative?.label ?? null}
             />
           ) : (
             <p className="text-sm text-ink-muted">

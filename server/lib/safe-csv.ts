@@ -1,4 +1,5 @@
 /**
+ * The one CSV writer of the product: every CSV download goes through writeCsv, header included.
  * CSV cells safe to open in a spreadsheet. A text cell starting with =, +, −, @, tab or
  * carriage return can be run as a formula by spreadsheet programs ("CSV injection"; OWASP,
  * "CSV Injection" page [M]); such cells get a leading single quote. Numbers are written as
@@ -15,6 +16,11 @@ const FORMULA_START = /^[=+\-@\t\r]/;
 /** Escapes one text cell (see the file comment). */
 export function escapeCsvText(text: string): string {
   return FORMULA_START.test(text) ? `'${text}` : text;
+}
+
+/** Reads back a cell written by escapeCsvText (our own exports re-imported). */
+export function unescapeCsvText(text: string): string {
+  return text.startsWith("'") && FORMULA_START.test(text.slice(1)) ? text.slice(1) : text;
 }
 
 /** The CSV text of one value: numbers as numbers (non-finite as empty), text escaped. */

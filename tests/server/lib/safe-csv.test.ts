@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
 import { parse } from 'csv-parse/sync';
-import { escapeCsvText, toCsvCell, writeCsv } from '../../../server/services/exports/csv-cells';
+import { escapeCsvText, toCsvCell, unescapeCsvText, writeCsv } from '../../../server/lib/safe-csv';
+import { hostileText, isSafeCell } from '../../support/hostile-text';
 
 describe('CSV cell escaping', () => {
   it.each([
@@ -43,5 +45,23 @@ describe('CSV cell escaping', () => {
       ['r1', 'said "yes", then\nleft', '-0.5'],
       ['r2', '\'=HYPERLINK("http://x")', '2'],
     ]);
+  });
+});
+
+describe('writeCsv with generated hostile text', () => {
+  it('never starts a cell with a formula character and reads back every label', () => {
+    fc.assert(
+      fc.property(fc.array(hostileText(), { minLength: 1, maxLength: 6 }), (labels) => {
+        const text = writeCsv(labels, [labels, labels.map((_, i) => -i - 0.5)]);
+        const cells = (parse(text) as string[][]).flat();
+        expect(cells.filter((c) => !isSafeCell(c))).toEqual([]);
+        // …and the comma reading gives back every label once the escape is removed.
+        const [header, row, numbers] = parse(text) as string[][];
+        expect(header.map(unescapeCsvText)).toEqual(labels);
+        expect(row.map(unescapeCsvText)).toEqual(labels);
+        expect(numbers.map(Number)).toEqual(labels.map((_, i) => -i - 0.5));
+      }),
+      { numRuns: 300, seed: 13 },
+    );
   });
 });

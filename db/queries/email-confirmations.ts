@@ -1,0 +1,37 @@
+/** E-mail confirmation: one-time tokens (hash only) and the verified stamp on the user. */
+import { and, eq, gt, isNull } from 'drizzle-orm';
+import type { DbOrTx } from '../client';
+import { emailConfirmations, users } from '../schema/accounts';
+
+export async function insertEmailConfirmation(
+  db: DbOrTx,
+  params: { userId: string; tokenHash: string; expiresAt: Date },
+) {
+  await db.insert(emailConfirmations).values(params);
+}
+
+/** Consumes a token atomically; returns the user id, or null when unknown, used or expired. */
+export async function consumeEmailConfirmation(
+  db: DbOrTx,
+  params: { tokenHash: string; now: Date },
+) {
+  const [row] = await db
+    .update(emailConfirmations)
+    .set({ usedAt: params.now })
+    .where(
+      and(
+        eq(emailConfirmations.tokenHash, params.tokenHash),
+        isNull(emailConfirmations.usedAt),
+        gt(emailConfirmations.expiresAt, params.now),
+      ),
+    )
+    .returning({ userId: emailConfirmations.userId });
+  return row?.userId ?? null;
+}
+
+export async function markEmailVerified(db: DbOrTx, params: { userId: string; now: Date }) {
+  await db
+    .update(users)
+    .set({ emailVerifiedAt: params.now })
+    .where(and(eq(users.id, params.userId), isNull(users.emailVerifiedAt)));
+}

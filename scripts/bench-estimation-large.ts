@@ -1,0 +1,119 @@
+/**
+ * Large-model benchmark (npm run bench:estimation -- --large [--json]): N = 5000 respondents,
+ * T = 16 tasks, J = 3 alternatives, K = 12 correlated normal coefficients (12 means and the
+ * 78 elements of the Cholesky factor: 90 parameters), R = 1000 scrambled Halton draws, on 2
+ * worker threads with the default kernel (WebAssembly SIMD when it can run). Times the full
+ * estimation with BHHH standard errors, then the taste profiles (2000 draws each), and prints
+ * the peak resident memory (whole process, worker threads included), the engine's own memory
+ * estimate and the load average (os.loadavg) at start and end. Targets: < 10 min, < 2 GB.
+ */
+import os from 'node:os';
+import { buildChoiceData } from '../server/engine/estimation/build-choice-data';
+import { fitMixedLogit } from '../server/engine/estimation/fit-mixed-logit';
+import { simulatePanelChoices } from '../server/engine/estimation/simulate-panel-choices';
+import { computeTasteProfilesInWorkers } from '../server/engine/parallel/parallel-taste-profiles';
+import { getMaxRows } from '../server/engine/simd/kernel-arena';
+import { estimateModelMemory } from '../server/engine/simd/estimate-model-memory';
+import { ensureSimdKernelBuilt } from './build-wasm';
+
+const json = process.argv.includes('--json');
+const loadStart = os.loadavg();
+await ensureSimdKernelBuilt();
+const N = 5000;
+const T = 16;
+const J = 3;
+const K = 12;
+const R = 1000;
+const PROFILE_DRAWS = 2000;
+const THREADS = 2;
+const truth = Array.from({ length: K }, (_, k) => ({
+  name: `x${k + 1}`,
+  distribution: 'normal' as const,
+  location: k % 2 === 0 ? 0.5 + 0.05 * k : -0.4 - 0.05 * k,
+  spread: 0.3 + 0.03 * k,
+}));
+const coefficients = truth.map((c) => ({ name: c.name, distribution: c.distribution }));
+const sim = simulatePanelChoices({
+  respondents: N,
+  tasks: T,
+  alternatives: J,
+  coefficients: truth,
+  seed: 5,
+});
+const { data } = buildChoiceData(sim.columns, sim.rows);
+const log = (line: string) => {
+  if (!json) console.log(line);
+};
+const started = performance.now();
+let lastIteration = 0;
+const fit = await fitMixedLogit(
+  data,
+  {
+    coefficients,
+    correlated: true,
+    draws: { count: R },
+    threads: THREADS,
+    covariance: 'bhhh',
+    profileDraws: PROFILE_DRAWS,
+  },
+  {
+    onProgress: (p) => {
+      lastIteration = p.iteration;
+      if (p.iteration % 10 === 0)
+        log(
+          `  iteration ${p.iteration}: LL ${p.loglik.toFixed(2)}, |g| ${p.gradientNorm.toExponential(2)}, about ${Math.round(p.secondsLeft)} s left (load ${os.loadavg()[0].toFixed(1)})`,
+        );
+    },
+    onNote: (note) => log(`  note: ${note}`),
+  },
+);
+const fitSeconds = (performance.now() - started) / 1000;
+const profilesStart = performance.now();
+await computeTasteProfilesInWorkers(data, fit.layout, fit.estimates, {
+  count: PROFILE_DRAWS,
+  threads: THREADS,
+});
+const profilesSeconds = (performance.now() - profilesStart) / 1000;
+const layout = fit.layout;
+const memoryEstimate = estimateModelMemory({
+  respondents: N,
+  tasks: N * T,
+  rows: data.diffStart[data.diffStart.length - 1],
+  columns: data.columns.length,
+  K,
+  D: layout.D,
+  P: layout.P,
+  blockSize: layout.block.length,
+  draws: R,
+  profileDraws: PROFILE_DRAWS,
+  maxRows: getMaxRows(data, 0, N),
+  threads: THREADS,
+});
+const round2 = (x: number) => Number(x.toFixed(2));
+const figures = {
+  respondents: N,
+  tasks: T,
+  alternatives: J,
+  coefficients: K,
+  parameters: layout.P,
+  draws: R,
+  threads: THREADS,
+  kernel: fit.kernel,
+  iterations: fit.iterations || lastIteration,
+  evaluations: fit.evaluations,
+  secondsPerEvaluation: round2(fitSeconds / fit.evaluations),
+  converged: fit.converged,
+  stopReason: fit.status,
+  loglik: round2(fit.loglik),
+  standardErrors: 'bhhh',
+  totalSeconds: round2(fitSeconds),
+  profilesSeconds: round2(profilesSeconds),
+  allSeconds: round2(fitSeconds + profilesSeconds),
+  peakRssMb: Math.round(process.resourceUsage().maxRSS / 1024),
+  memoryEstimateMb: Math.round(memoryEstimate / 2 ** 20),
+  targets: { totalSeconds: 600, peakRssMb: 2048 },
+  loadAverageStart: loadStart.map(round2),
+  loadAverageEnd: os.loadavg().map(round2),
+};
+if (json) console.log(JSON.stringify(figures));
+else console.log(figures);

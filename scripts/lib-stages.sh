@@ -1,0 +1,54 @@
+# Stage timing and parallel jobs for scripts/test.sh.
+STAGE_NAMES=()
+STAGE_SECONDS=()
+RUN_STARTED=$(date +%s)
+
+# stage NAME CMD...: run CMD under a heading and record its wall time.
+stage() {
+  local name="$1" t0
+  shift
+  echo "== $name"
+  t0=$(date +%s)
+  "$@"
+  STAGE_NAMES+=("$name")
+  STAGE_SECONDS+=($(($(date +%s) - t0)))
+}
+
+# parallel LABEL CMD [LABEL CMD]...: run the commands at once, print each one's output as a
+# block when it ends, fail if any failed.
+parallel() {
+  local dir labels=() pids=() failed=0 i
+  dir="$(mktemp -d)"
+  while [ $# -gt 0 ]; do
+    labels+=("$1")
+    (
+      t0=$(date +%s)
+      set +e
+      bash -c "$2" >"$dir/${#labels[@]}.log" 2>&1
+      rc=$?
+      echo "$rc $(($(date +%s) - t0))" >"$dir/${#labels[@]}.rc"
+      exit $rc
+    ) &
+    pids+=($!)
+    shift 2
+  done
+  for i in "${!pids[@]}"; do
+    wait "${pids[$i]}" || failed=1
+    read -r rc secs <"$dir/$((i + 1)).rc"
+    echo "-- ${labels[$i]}: exit $rc in ${secs} s"
+    cat "$dir/$((i + 1)).log"
+  done
+  rm -rf "$dir"
+  return $failed
+}
+
+print_stage_times() {
+  local rc=$? i
+  echo
+  echo "== time per stage (load average $(cut -d' ' -f1-3 /proc/loadavg))"
+  for i in "${!STAGE_NAMES[@]}"; do
+    printf '  %-52s %5d s\n' "${STAGE_NAMES[$i]}" "${STAGE_SECONDS[$i]}"
+  done
+  printf '  %-52s %5d s\n' "total" $(($(date +%s) - RUN_STARTED))
+  return $rc
+}

@@ -1,0 +1,38 @@
+/**
+ * What the product keeps of a user agent: a coarse device class for respondents, and a short
+ * browser-and-system description for a researcher's own sessions list. The raw string, which
+ * can single a person out, is never stored. Parsing by bowser (a maintained UA parser).
+ */
+import Bowser from 'bowser';
+
+export const deviceClasses = ['phone', 'tablet', 'desktop', 'unknown'] as const;
+export type DeviceClass = (typeof deviceClasses)[number];
+
+function parse(userAgent: string | undefined) {
+  const ua = (userAgent ?? '').slice(0, 500);
+  return ua.trim() === '' ? null : Bowser.getParser(ua);
+}
+
+export function getDeviceClass(userAgent: string | undefined): DeviceClass {
+  const p = parse(userAgent);
+  switch (p?.getPlatformType(true)) {
+    case 'mobile':
+      return 'phone';
+    case 'tablet':
+      return 'tablet';
+    case 'desktop':
+      return 'desktop';
+    default:
+      return 'unknown';
+  }
+}
+
+/** e.g. "Firefox on Linux (desktop)"; "Unknown device" when nothing is recognised. */
+export function describeDevice(userAgent: string | undefined): string {
+  const p = parse(userAgent);
+  if (!p) return 'Unknown device';
+  const browser = p.getBrowserName() || 'Unknown browser';
+  const os = p.getOSName() || 'unknown system';
+  const cls = getDeviceClass(userAgent);
+  return `${browser} on ${os}${cls === 'unknown' ? '' : ` (${cls})`}`.slice(0, 100);
+}

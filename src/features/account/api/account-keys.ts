@@ -1,0 +1,4 @@
+export const accountKeys = {
+  all: ['account'] as const,
+  sessions: () => [...accountKeys.all, 'sessions'] as const,
+};

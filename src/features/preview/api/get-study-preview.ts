@@ -1,0 +1,35 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { api } from '@/lib/api-client';
+import type { StudyPreview } from '@shared/schemas/respondent';
+import { previewKeys } from './preview-keys';
+
+export function getStudyPreview(
+  teamId: string,
+  studyId: string,
+  block: number,
+  seed: number,
+  signal?: AbortSignal,
+) {
+  return api.get<StudyPreview>(
+    `/teams/${teamId}/studies/${studyId}/preview?block=${block}&seed=${seed}`,
+    signal,
+  );
+}
+
+/** Always read fresh: the preview must show the study as saved right now. */
+export const getStudyPreviewQueryOptions = (
+  teamId: string,
+  studyId: string,
+  block: number,
+  seed: number,
+) =>
+  queryOptions({
+    queryKey: previewKeys.respondent(teamId, studyId, block, seed),
+    queryFn: ({ signal }) => getStudyPreview(teamId, studyId, block, seed, signal),
+    staleTime: 0,
+    retry: false,
+  });
+
+export function useStudyPreview(teamId: string, studyId: string, block: number, seed: number) {
+  return useQuery(getStudyPreviewQueryOptions(teamId, studyId, block, seed));
+}

@@ -1,0 +1,7 @@
+/** Query keys of the preview feature. */
+export const previewKeys = {
+  all: ['preview'] as const,
+  study: (teamId: string, studyId: string) => [...previewKeys.all, teamId, studyId] as const,
+  respondent: (teamId: string, studyId: string, block: number, seed: number) =>
+    [...previewKeys.study(teamId, studyId), block, seed] as const,
+};

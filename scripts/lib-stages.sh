@@ -3,15 +3,18 @@ STAGE_NAMES=()
 STAGE_SECONDS=()
 RUN_STARTED=$(date +%s)
 
-# stage NAME CMD...: run CMD under a heading and record its wall time.
+# stage NAME CMD...: run CMD under a heading and record its wall time (a failed stage too, so
+# the summary shows where the time went before the failure). CMD runs in a `||` context, where
+# errexit is off: commands given here must return their own failure.
 stage() {
-  local name="$1" t0
+  local name="$1" t0 rc=0
   shift
   echo "== $name"
   t0=$(date +%s)
-  "$@"
-  STAGE_NAMES+=("$name")
+  "$@" || rc=$?
+  STAGE_NAMES+=("$name$([ $rc -eq 0 ] || echo " (FAILED)")")
   STAGE_SECONDS+=($(($(date +%s) - t0)))
+  return $rc
 }
 
 # parallel LABEL CMD [LABEL CMD]...: run the commands at once, print each one's output as a

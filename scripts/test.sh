@@ -22,8 +22,7 @@ cleanup() {
 trap 'cleanup; print_stage_times' EXIT
 
 start_services() {
-  scripts/pg.sh start
-  scripts/mail.sh start 1125 1180
+  scripts/pg.sh start && scripts/mail.sh start 1125 1180
 }
 stage "database and fake mail" start_services
 

@@ -1,5 +1,5 @@
 /**
- * Who may do what (PRODUCT.md, "Who uses it"). The server enforces this table on every route;
+ * Who may do what (the roles described in README.md). The server enforces this table on every route;
  * the client reads the same table only to hide controls a role cannot use.
  */
 import { z } from 'zod';

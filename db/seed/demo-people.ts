@@ -84,8 +84,8 @@ export function planDemoPeople(fieldStart: Date, screensPerRespondent: number): 
 
 /**
  * Time on one screen in ms. Choice tasks get quicker as respondents learn the format (common
- * practice, no source; REFERENCES.md §4 "Time per DCE task" [CP]); phones take about 20 % longer
- * (Andreadis 2015 [R], REFERENCES.md §4).
+ * practice, no source; docs/methods.md, "Fieldwork, quality flags"); phones take about 20 % longer
+ * (Andreadis 2015, Survey Research Methods 9(2); docs/methods.md).
  */
 export function screenTimeMs(
   person: DemoPerson,

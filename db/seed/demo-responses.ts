@@ -136,7 +136,7 @@ export async function ensureDemoResponses(
       seed: person.truth.seed,
       startedAt: person.startedAt,
       externalId: person.externalId,
-      device: `Demo respondent (${person.device})`,
+      device: person.device,
       simulatedTruth: person.truth,
     });
     sessions.push({ person, sessionToken, plan: respondentPlanSchema.parse(respondent.plan) });

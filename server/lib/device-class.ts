@@ -27,6 +27,17 @@ export function getDeviceClass(userAgent: string | undefined): DeviceClass {
   }
 }
 
+/**
+ * The device class kept for a respondent: a class passes through, anything else is read as a
+ * user agent. Also applied when reading, so rows stored before classes were kept show a class.
+ */
+export function toDeviceClass(value: string | undefined | null): DeviceClass {
+  const v = (value ?? '').trim();
+  return (deviceClasses as readonly string[]).includes(v)
+    ? (v as DeviceClass)
+    : getDeviceClass(v || undefined);
+}
+
 /** e.g. "Firefox on Linux (desktop)"; "Unknown device" when nothing is recognised. */
 export function describeDevice(userAgent: string | undefined): string {
   const p = parse(userAgent);

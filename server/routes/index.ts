@@ -23,6 +23,7 @@ import { createResponsesRouter } from './responses';
 import { createTastesRouter } from './tastes';
 import { createSharesRouter } from './shares';
 import { createExportsRouter } from './exports';
+import { createAuditRouter } from './audit';
 import { createPreviewRouter } from './preview';
 
 export function mountApiRoutes(api: Router, deps: AppDeps): void {
@@ -45,6 +46,7 @@ export function mountApiRoutes(api: Router, deps: AppDeps): void {
   api.use('/r/:publicId', createRespondRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/questionnaire', createQuestionnaireRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/lifecycle', createLifecycleRouter(deps));
+  api.use('/teams/:teamId/audit', createAuditRouter(deps));
   api.use('/teams/:teamId/studies', createStudiesRouter(deps));
   api.use('/teams', createTeamsRouter(deps));
 }

@@ -6,7 +6,7 @@
 import { Router, type Request } from 'express';
 import type { AppDeps } from '../deps';
 import { parseBody, parseParams } from '../middleware/validate';
-import { memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { actorOf, memberOf, requireTeam, requireUser } from '../middleware/auth';
 import { studyParamsSchema } from '../services/study-access';
 import { updateFieldworkSettingsSchema } from '../../shared/schemas/study-lifecycle';
 import * as lifecycle from '../services/lifecycle';
@@ -35,19 +35,21 @@ export function createLifecycleRouter(deps: AppDeps): Router {
   });
   router.post('/go-live', manage, async (req, res) => {
     const { teamId, studyId } = ids(req);
-    res.json(await lifecycle.goLive(deps, teamId, studyId, { from: 'draft' }));
+    res.json(await lifecycle.goLive(deps, teamId, studyId, { from: 'draft', actor: actorOf(req) }));
   });
   router.post('/close', manage, async (req, res) => {
     const { teamId, studyId } = ids(req);
-    res.json(await lifecycle.closeStudy(deps, teamId, studyId));
+    res.json(await lifecycle.closeStudy(deps, teamId, studyId, new Date(), actorOf(req)));
   });
   router.post('/reopen', manage, async (req, res) => {
     const { teamId, studyId } = ids(req);
-    res.json(await lifecycle.goLive(deps, teamId, studyId, { from: 'closed' }));
+    res.json(
+      await lifecycle.goLive(deps, teamId, studyId, { from: 'closed', actor: actorOf(req) }),
+    );
   });
   router.post('/return-to-draft', manage, async (req, res) => {
     const { teamId, studyId } = ids(req);
-    res.json(await lifecycle.returnToDraft(deps, teamId, studyId));
+    res.json(await lifecycle.returnToDraft(deps, teamId, studyId, actorOf(req)));
   });
   router.patch('/settings', manage, async (req, res) => {
     const { teamId, studyId } = ids(req);

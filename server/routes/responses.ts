@@ -6,7 +6,7 @@
 import { Router } from 'express';
 import type { AppDeps } from '../deps';
 import { parseBody, parseParams, parseQuery } from '../middleware/validate';
-import { memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { actorOf, memberOf, requireTeam, requireUser } from '../middleware/auth';
 import { studyParamsSchema } from '../services/study-access';
 import {
   excludeFlaggedSchema,
@@ -38,14 +38,23 @@ export function createResponsesRouter(deps: AppDeps): Router {
   router.post('/exclude-flagged', manage, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const input = parseBody(excludeFlaggedSchema, req);
-    res.json(await responses.excludeFlagged(deps, memberOf(req).teamId, studyId, input));
+    res.json(
+      await responses.excludeFlagged(deps, memberOf(req).teamId, studyId, input, actorOf(req)),
+    );
   });
 
   router.put('/:respondentId/inclusion', manage, async (req, res) => {
     const { studyId, respondentId } = parseParams(respondentParamsSchema, req);
     const input = parseBody(setInclusionSchema, req);
     res.json(
-      await responses.setInclusion(deps, memberOf(req).teamId, studyId, respondentId, input),
+      await responses.setInclusion(
+        deps,
+        memberOf(req).teamId,
+        studyId,
+        respondentId,
+        input,
+        actorOf(req),
+      ),
     );
   });
 

@@ -5,7 +5,7 @@
 import { Router } from 'express';
 import type { AppDeps } from '../deps';
 import { parseBody, parseParams } from '../middleware/validate';
-import { memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { actorOf, memberOf, requireTeam, requireUser } from '../middleware/auth';
 import { studyParamsSchema } from '../services/study-access';
 import {
   createRespondentFilterSchema,
@@ -31,7 +31,7 @@ export function createRunsRouter(deps: AppDeps): Router {
   router.post('/', manage, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const input = parseBody(createRunSchema, req);
-    res.status(201).json(await runs.createRun(deps, memberOf(req), studyId, input));
+    res.status(201).json(await runs.createRun(deps, memberOf(req), studyId, input, actorOf(req)));
   });
   router.post('/filters', manage, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
@@ -48,7 +48,7 @@ export function createRunsRouter(deps: AppDeps): Router {
   });
   router.post('/:runId/cancel', manage, async (req, res) => {
     const { studyId, runId } = parseParams(runParamsSchema, req);
-    res.json(await runs.cancelRun(deps, memberOf(req), studyId, runId));
+    res.json(await runs.cancelRun(deps, memberOf(req), studyId, runId, actorOf(req)));
   });
 
   return router;

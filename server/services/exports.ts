@@ -24,8 +24,15 @@ import { writeProfilesXlsx } from './exports/profiles-xlsx';
 import { renderRunReport } from './exports/run-report';
 import { buildCovarianceTable, type CovarianceKind } from './exports/covariance-table';
 import { writeCsv } from '../lib/safe-csv';
+import { recordAudit, type Actor } from './audit';
 
-export type Download = { filename: string; contentType: string; body: string | Buffer };
+export type Download = {
+  filename: string;
+  contentType: string;
+  body: string | Buffer;
+  /** Holds personal columns (external ids, personal answers): the download is audited. */
+  personal?: boolean;
+};
 
 const CSV = 'text/csv; charset=utf-8';
 
@@ -71,6 +78,7 @@ export async function exportProfilesCsv(
     filename: fileName(ctx.study.name, 'taste-profiles', 'csv', at),
     contentType: CSV,
     body: writeCsv(table.header, table.rows),
+    personal: ctx.personal,
   };
 }
 
@@ -86,6 +94,7 @@ export async function exportProfilesXlsx(
     filename: fileName(ctx.study.name, 'taste-profiles', 'xlsx', at),
     contentType: 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
     body: await writeProfilesXlsx(ctx, table, at),
+    personal: ctx.personal,
   };
 }
 
@@ -212,5 +221,24 @@ export async function exportAnswersCsv(
     filename: fileName(study.name, 'background-answers', 'csv', at),
     contentType: CSV,
     body: writeCsv(header, rows),
+    personal,
   };
+}
+
+/** Records a download that holds personal data in the audit trail (file name, never contents). */
+export async function auditPersonalDownload(
+  deps: AppDeps,
+  member: Member,
+  actor: Actor,
+  studyId: string,
+  file: Download,
+): Promise<void> {
+  if (!file.personal) return;
+  await recordAudit(deps.db, {
+    teamId: member.teamId,
+    studyId,
+    actor,
+    action: 'export.personal_data',
+    details: { file: file.filename },
+  });
 }

@@ -1,6 +1,6 @@
 /**
  * The Fieldwork section: sample flow, timing, completes per block and version, where
- * unfinished respondents stopped (REFERENCES.md §2 F6: invited / started / completed, dropout
+ * unfinished respondents stopped (Bridges et al. 2011, item 7.1; docs/methods.md: invited / started / completed, dropout
  * by task, quotas) and the invitations summary.
  */
 import type { AppDeps } from '../deps';

@@ -29,6 +29,7 @@ import {
   type UpdateFieldworkSettingsInput,
 } from '../../shared/schemas/study-lifecycle';
 import { checkReadiness } from './readiness';
+import { recordAudit, type Actor } from './audit';
 
 type StudyRow = NonNullable<Awaited<ReturnType<typeof lockStudy>>>;
 
@@ -110,7 +111,7 @@ export async function goLive(
   deps: AppDeps,
   teamId: string,
   studyId: string,
-  opts: { from?: 'draft' | 'closed'; now?: Date } = {},
+  opts: { from?: 'draft' | 'closed'; now?: Date; actor?: Actor | null } = {},
 ): Promise<StudyLifecycle> {
   const now = opts.now ?? new Date();
   return deps.db.transaction(async (tx) => {
@@ -150,6 +151,13 @@ export async function goLive(
       settings,
       currentVersion: version,
     });
+    await recordAudit(tx, {
+      teamId,
+      studyId,
+      actor: opts.actor,
+      action: study.status === 'closed' ? 'study.reopened' : 'study.went_live',
+      details: { study: study.name, version, newVersion: !unchanged },
+    });
     return toLifecycle(tx, updated!);
   });
 }
@@ -160,12 +168,20 @@ export async function closeLockedStudy(
   study: StudyRow,
   reason: ClosedReason,
   now: Date,
+  actor: Actor | null = null,
 ) {
   const settings = {
     ...readSettings(study.settings),
     closedReason: reason,
     closedAt: now.toISOString(),
   };
+  await recordAudit(tx, {
+    teamId: study.teamId,
+    studyId: study.id,
+    actor,
+    action: 'study.closed',
+    details: { study: study.name, reason },
+  });
   return updateStudyLifecycle(tx, {
     id: study.id,
     teamId: study.teamId,
@@ -174,18 +190,29 @@ export async function closeLockedStudy(
   });
 }
 
-export async function closeStudy(deps: AppDeps, teamId: string, studyId: string, now = new Date()) {
+export async function closeStudy(
+  deps: AppDeps,
+  teamId: string,
+  studyId: string,
+  now = new Date(),
+  actor: Actor | null = null,
+) {
   return deps.db.transaction(async (tx) => {
     const study = await lockStudy(tx, { id: studyId, teamId });
     if (!study) throw new NotFoundError('Study');
     if (study.status !== 'live')
       throw new ConflictError('not_live', 'Only a live study can be closed.');
-    return toLifecycle(tx, (await closeLockedStudy(tx, study, 'manual', now))!);
+    return toLifecycle(tx, (await closeLockedStudy(tx, study, 'manual', now, actor))!);
   });
 }
 
 /** Closed → draft, so the definition, design and questionnaire can change (a new version at go-live). */
-export async function returnToDraft(deps: AppDeps, teamId: string, studyId: string) {
+export async function returnToDraft(
+  deps: AppDeps,
+  teamId: string,
+  studyId: string,
+  actor: Actor | null = null,
+) {
   return deps.db.transaction(async (tx) => {
     const study = await lockStudy(tx, { id: studyId, teamId });
     if (!study) throw new NotFoundError('Study');
@@ -196,6 +223,13 @@ export async function returnToDraft(deps: AppDeps, teamId: string, studyId: stri
       teamId,
       status: 'draft',
       settings: readSettings(study.settings),
+    });
+    await recordAudit(tx, {
+      teamId,
+      studyId,
+      actor,
+      action: 'study.returned_to_draft',
+      details: { study: study.name },
     });
     return toLifecycle(tx, updated!);
   });

@@ -1,10 +1,10 @@
 /**
  * Automatic data-quality flags for choice data. Pure functions of the stored answers; they flag,
  * they never exclude — the researcher decides (flag and run a sensitivity analysis rather than
- * delete automatically: REFERENCES.md §2 Q1, Tervonen et al. 2018 [R]).
+ * delete automatically: Tervonen et al. 2018, Value in Health 21(10); docs/methods.md).
  *
  * - speeder: total time below a fraction of the median time of completed respondents
- *   (default ½ — common practice, no source; REFERENCES.md §4 "Speeding rule");
+ *   (default ½ — common practice, no source; docs/methods.md, "Fieldwork, quality flags");
  * - samePosition: the same on-screen position in every design task ("always left"; Q2, [CP]);
  * - alwaysFixed: the status quo / opt-out in every design task (serial opt-out; Q3);
  * - dominanceFailed: a dominated alternative chosen in the dominance test (Q1);

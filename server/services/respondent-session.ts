@@ -7,6 +7,7 @@ import { randomBytes, randomInt } from 'node:crypto';
 import type { AppDeps } from '../deps';
 import type { DbOrTx } from '../../db/client';
 import { AppError, NotFoundError } from '../lib/errors';
+import { toDeviceClass } from '../lib/device-class';
 import {
   countFillingByBlock,
   getInviteeByToken,
@@ -148,7 +149,8 @@ export async function createRespondent(
       externalId: params.externalId ?? null,
       block,
       plan,
-      device: (params.device ?? '').slice(0, 200),
+      // A coarse class only: the raw user agent can single a person out.
+      device: toDeviceClass(params.device),
       ...(params.startedAt ? { startedAt: params.startedAt } : {}),
       ...(params.simulatedTruth !== undefined ? { simulatedTruth: params.simulatedTruth } : {}),
     });

@@ -6,7 +6,9 @@
  */
 import type { AppDeps } from '../deps';
 import { NotFoundError } from '../lib/errors';
+import { toDeviceClass } from '../lib/device-class';
 import { loadStudy } from './study-access';
+import { recordAudit, type Actor } from './audit';
 import { computeQualityFlags, type ChoiceAnswer } from './quality-flags';
 import {
   excludeRespondentsWithFlags,
@@ -134,6 +136,7 @@ export async function listResponses(
       startedAt: r.startedAt.toISOString(),
       finishedAt: r.finishedAt?.toISOString() ?? null,
       flags: readFlags(r.flags),
+      device: toDeviceClass(r.device),
       // Personal columns are left out entirely (not nulled) for roles without personal:read.
       ...(personalData ? { externalId, email } : {}),
     })),
@@ -152,20 +155,30 @@ export async function setInclusion(
   studyId: string,
   respondentId: string,
   input: SetInclusionInput,
+  actor: Actor | null = null,
 ) {
   await loadStudy(deps, teamId, studyId);
-  const row = await setRespondentInclusion(deps.db, {
-    id: respondentId,
-    studyId,
-    included: input.included,
-    reason: input.included ? null : input.reason,
+  const reason = input.included ? null : input.reason;
+  await deps.db.transaction(async (tx) => {
+    const row = await setRespondentInclusion(tx, {
+      id: respondentId,
+      studyId,
+      included: input.included,
+      reason,
+    });
+    if (!row) throw new NotFoundError('Respondent');
+    // Respondents are named by the start of their random id: no personal data in the trail.
+    await recordAudit(tx, {
+      teamId,
+      studyId,
+      actor,
+      action: input.included ? 'respondent.included' : 'respondent.excluded',
+      targetType: 'respondent',
+      targetId: respondentId,
+      details: { respondent: respondentId.slice(0, 8), ...(reason ? { reason } : {}) },
+    });
   });
-  if (!row) throw new NotFoundError('Respondent');
-  return {
-    id: respondentId,
-    included: input.included,
-    exclusionReason: input.included ? null : input.reason,
-  };
+  return { id: respondentId, included: input.included, exclusionReason: reason };
 }
 
 /** Bulk exclusion: flags are refreshed first, so the decision uses the current threshold. */
@@ -174,13 +187,24 @@ export async function excludeFlagged(
   teamId: string,
   studyId: string,
   input: ExcludeFlaggedInput,
+  actor: Actor | null = null,
 ) {
   const study = await loadStudy(deps, teamId, studyId);
   await refreshQualityFlags(deps, study);
-  const excluded = await excludeRespondentsWithFlags(deps.db, {
-    studyId,
-    flags: input.flags,
-    reason: input.reason,
+  const excluded = await deps.db.transaction(async (tx) => {
+    const count = await excludeRespondentsWithFlags(tx, {
+      studyId,
+      flags: input.flags,
+      reason: input.reason,
+    });
+    await recordAudit(tx, {
+      teamId,
+      studyId,
+      actor,
+      action: 'respondent.flagged_excluded',
+      details: { count, flags: input.flags, reason: input.reason },
+    });
+    return count;
   });
   return { excluded };
 }

@@ -4,6 +4,7 @@
  * cancelling. The web process never estimates; it only enqueues and reads.
  */
 import type { AppDeps } from '../deps';
+import { recordAudit, type Actor } from './audit';
 import { AppError, ConflictError, NotFoundError, ValidationError } from '../lib/errors';
 import { loadStudy } from './study-access';
 import { getPreparedColumns } from './estimation/code-answers';
@@ -27,6 +28,7 @@ import {
 } from '../../db/queries/run-data';
 import { listTasteProfiles } from '../../db/queries/taste-profiles';
 import { studyDefinitionSchema } from '../../shared/schemas/study-definition';
+import { getWtpUnit } from '../../shared/engine/coding/wtp-unit';
 import type {
   ConditionalMeans,
   CreateRun,
@@ -49,11 +51,14 @@ const DEFAULT_RUN_NAMES: Record<ModelFamily, string> = {
 };
 
 /** The definition runs are coded with: the latest live version's, else the draft's. */
-async function getModelColumns(deps: AppDeps, study: { id: string; definition: unknown }) {
+async function getCodingDefinition(deps: AppDeps, study: { id: string; definition: unknown }) {
   const versions = await listStudyVersions(deps.db, { studyId: study.id });
   const latest = versions[versions.length - 1];
-  const definition = studyDefinitionSchema.parse(latest ? latest.definition : study.definition);
-  return getPreparedColumns(definition);
+  return studyDefinitionSchema.parse(latest ? latest.definition : study.definition);
+}
+
+async function getModelColumns(deps: AppDeps, study: { id: string; definition: unknown }) {
+  return getPreparedColumns(await getCodingDefinition(deps, study));
 }
 
 export async function getRunOptions(
@@ -116,6 +121,7 @@ export async function createRun(
   member: Member,
   studyId: string,
   input: CreateRun,
+  actor: Actor | null = null,
 ): Promise<Run> {
   const study = await loadStudy(deps, member.teamId, studyId);
   const spec = resolveSpecColumns(input.spec, await getModelColumns(deps, study));
@@ -147,6 +153,15 @@ export async function createRun(
     });
     throw new AppError(503, 'queue_unavailable', 'The run could not be queued; try again soon.');
   }
+  await recordAudit(deps.db, {
+    teamId: member.teamId,
+    studyId,
+    actor,
+    action: 'run.started',
+    targetType: 'run',
+    targetId: row.id,
+    details: { name: row.name, model: row.model },
+  });
   return toRunView(row);
 }
 
@@ -157,21 +172,46 @@ export async function listRuns(deps: AppDeps, member: Member, studyId: string): 
 }
 
 async function loadRun(deps: AppDeps, member: Member, studyId: string, runId: string) {
-  await loadStudy(deps, member.teamId, studyId);
+  const study = await loadStudy(deps, member.teamId, studyId);
   const row = await getRunById(deps.db, { id: runId, teamId: member.teamId, studyId });
   if (!row) throw new NotFoundError('Run');
-  return row;
+  return { row, study };
 }
 
+/** One run, its columns with the unit and basis of their WTP (from the coding definition). */
 export async function getRun(deps: AppDeps, member: Member, studyId: string, runId: string) {
-  return toRunView(await loadRun(deps, member, studyId, runId));
+  const { row, study } = await loadRun(deps, member, studyId, runId);
+  const run = toRunView(row);
+  if (!run.results) return run;
+  const definition = await getCodingDefinition(deps, study);
+  const columns = run.results.columns.map((c) => ({
+    ...c,
+    wtpUnit: getWtpUnit(definition, c.key),
+  }));
+  const costUnit = definition.attributes.find((a) => a.isCost)?.unit?.trim() || null;
+  return { ...run, results: { ...run.results, columns, costUnit } };
 }
 
 /** Queued runs end at once; running ones stop at their next iteration (the worker checks). */
-export async function cancelRun(deps: AppDeps, member: Member, studyId: string, runId: string) {
+export async function cancelRun(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  runId: string,
+  actor: Actor | null = null,
+) {
   await loadRun(deps, member, studyId, runId);
   const row = await requestRunCancel(deps.db, { id: runId, teamId: member.teamId, studyId });
   if (!row) throw new ConflictError('run_finished', 'The run has already finished.');
+  await recordAudit(deps.db, {
+    teamId: member.teamId,
+    studyId,
+    actor,
+    action: 'run.cancelled',
+    targetType: 'run',
+    targetId: runId,
+    details: { name: row.name },
+  });
   return toRunView(row);
 }
 
@@ -182,7 +222,7 @@ export async function getConditionalMeans(
   studyId: string,
   runId: string,
 ): Promise<ConditionalMeans> {
-  const row = await loadRun(deps, member, studyId, runId);
+  const { row } = await loadRun(deps, member, studyId, runId);
   const coefficients = toRunView(row).spec.coefficients.map((c) => c.name);
   const profiles = await listTasteProfiles(deps.db, { runId: row.id });
   return {

@@ -22,7 +22,7 @@ export const auditActions = [
   'study.returned_to_draft',
   'respondent.excluded',
   'respondent.included',
-  'respondents.flagged_excluded',
+  'respondent.flagged_excluded',
   'respondent.erased',
   'run.started',
   'run.cancelled',

@@ -76,9 +76,9 @@ export const intervalEstimateSchema = z.object({
 export type IntervalEstimate = z.infer<typeof intervalEstimateSchema>;
 
 export const derivedQuantitySchema = intervalEstimateSchema.extend({
-  /** Coefficient (or "a~b" for a correlation). */
+  /** Coefficient (or "a~b" for a covariance or correlation; "a~a" for a variance). */
   name: z.string(),
-  quantity: z.enum(['mean', 'median', 'sd', 'correlation', 'wrong_sign_share']),
+  quantity: z.enum(['mean', 'median', 'sd', 'correlation', 'covariance', 'wrong_sign_share']),
   label: z.string(),
 });
 export type DerivedQuantity = z.infer<typeof derivedQuantitySchema>;

@@ -50,7 +50,7 @@ export const qualityFlagLabels: Record<QualityFlagKey, { label: string; help: st
 
 /**
  * Speeders: total time below this fraction of the median. 0.5 is common practice, no source
- * (REFERENCES.md §4, "Speeding rule").
+ * (docs/methods.md, "Fieldwork, quality flags").
  */
 export const DEFAULT_SPEEDER_FRACTION = 0.5;
 

@@ -89,6 +89,8 @@ export const runColumnSchema = z.object({
   key: z.string(),
   coefficient: z.string(),
   label: z.string(),
+  /** Unit and basis of this column's WTP ("€ of monthly bill increase per +1 in …"); set when read. */
+  wtpUnit: z.string().nullable().optional(),
 });
 
 export const runDataSummarySchema = z.object({
@@ -108,6 +110,8 @@ export const runResultSchema = estimationResultSchema.extend({
   individuals: z.null(),
   columns: z.array(runColumnSchema),
   data: runDataSummarySchema,
+  /** The cost attribute's unit ("€"), so WTP is shown as money; set when read. */
+  costUnit: z.string().nullable().optional(),
 });
 export type RunResult = z.infer<typeof runResultSchema>;
 

@@ -39,6 +39,7 @@ export function createRouter(queryClient: QueryClient) {
               },
             },
             { path: paths.account.path, lazy: () => import('./routes/account') },
+            { path: paths.audit.path, lazy: () => import('./routes/team/audit') },
             {
               // Section screens register themselves: see routes/studies/section-modules.ts.
               path: paths.study.path,

@@ -40,6 +40,10 @@ export const paths = {
     path: '/teams/:teamId/members',
     getHref: (teamId: string) => `/teams/${teamId}/members`,
   },
+  audit: {
+    path: '/teams/:teamId/audit',
+    getHref: (teamId: string) => `/teams/${teamId}/audit`,
+  },
   study: {
     path: '/teams/:teamId/studies/:studyId',
     getHref: (teamId: string, studyId: string) => `/teams/${teamId}/studies/${studyId}`,

@@ -3,7 +3,7 @@
  * the delta method and by simulation (propagate-uncertainty.ts): for a lognormal coefficient
  * its population mean, median and SD; for normal, triangular and uniform ones the SD and the
  * share of the population with the sign opposite to the mean (Φ(−|b|/σ) for a normal); for
- * correlated normals the SDs and correlations implied by the Cholesky factor L (Σ = LL′, Train
+ * correlated normals the SDs, covariances and correlations implied by the Cholesky factor L (Σ = LL′, Train
  * 2009 §6.3). Distribution formulas in coefficient-distributions.ts. In WTP space they describe
  * the WTP distributions.
  */
@@ -22,7 +22,8 @@ import {
 } from './mixed-logit-layout';
 import { propagateUncertainty, type PropagatedEstimate } from './propagate-uncertainty';
 
-export type DerivedKind = 'mean' | 'median' | 'sd' | 'correlation' | 'wrong_sign_share';
+export type DerivedKind =
+  'mean' | 'median' | 'sd' | 'correlation' | 'covariance' | 'wrong_sign_share';
 
 export interface DerivedQuantityEstimate extends PropagatedEstimate {
   name: string;
@@ -80,6 +81,24 @@ function definitions(layout: MixedLogitLayout): Definition[] {
     });
   });
   const B = layout.block.length;
+  // Σ = LL′: Σ_ij = Σ_l L_il L_jl over l ≤ min(i, j).
+  const covarianceAt = (t: ArrayLike<number>, i: number, j: number) => {
+    let cov = 0;
+    for (let l = 0; l <= Math.min(i, j); l++)
+      cov += t[layout.cholIndex[i * B + l]] * t[layout.cholIndex[j * B + l]];
+    return cov;
+  };
+  for (let i = 0; i < B; i++)
+    for (let j = 0; j <= i; j++) {
+      const a = layout.coefficients[layout.block[i]].name;
+      const b = layout.coefficients[layout.block[j]].name;
+      defs.push({
+        name: `${a}~${b}`,
+        quantity: 'covariance',
+        label: i === j ? `variance of ${a}` : `covariance of ${a} and ${b}`,
+        value: (t) => covarianceAt(t, i, j),
+      });
+    }
   for (let i = 0; i < B; i++)
     for (let j = 0; j < i; j++) {
       const a = layout.coefficients[layout.block[i]].name;

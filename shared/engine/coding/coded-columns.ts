@@ -25,16 +25,25 @@ export interface CodedColumn {
   alternative?: number | 'fixed';
 }
 
+/**
+ * "Share of renewable energy (%)", but never a unit twice: a name that already says its unit
+ * ("Supply interruptions per year" with unit "per year") is left as it is.
+ */
+export function nameWithUnit(name: string, unit: string | undefined): string {
+  const u = unit?.trim();
+  if (!u || name.toLowerCase().includes(u.toLowerCase())) return name;
+  return `${name} (${u})`;
+}
+
 /** Lists the coded columns of a study definition (see the file comment for the order). */
 export function getCodedColumns(definition: StudyDefinition): CodedColumn[] {
   const columns: CodedColumn[] = [];
   for (const attribute of definition.attributes) {
     const codes = getAttributeCodes(attribute);
     if (attribute.coding === 'linear') {
-      const unit = attribute.unit?.trim();
       columns.push({
         key: `attr:${attribute.id}`,
-        name: unit ? `${attribute.name} (${unit})` : attribute.name,
+        name: nameWithUnit(attribute.name, attribute.unit),
         kind: 'linear',
         attributeId: attribute.id,
       });

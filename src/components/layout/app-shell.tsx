@@ -55,6 +55,11 @@ export function AppShell() {
                 <NavLink to={paths.members.getHref(currentTeam.id)} className={navClass}>
                   Team
                 </NavLink>
+                {currentTeam.role === 'owner' && (
+                  <NavLink to={paths.audit.getHref(currentTeam.id)} className={navClass}>
+                    Audit
+                  </NavLink>
+                )}
               </>
             )}
           </nav>

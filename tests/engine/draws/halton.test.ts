@@ -6,7 +6,7 @@ import {
 } from '../../../server/engine/draws/halton';
 
 describe('radicalInverse (Halton 1960)', () => {
-  // Values: REFERENCES.md §3.3 [R] (independent documents), first ten points after 0.
+  // Values: closed form of the radical inverse (Train 2009 §9.3.3; docs/methods.md, "Draws"), first ten points after 0.
   const base2 = [1 / 2, 1 / 4, 3 / 4, 1 / 8, 5 / 8, 3 / 8, 7 / 8, 1 / 16, 9 / 16, 5 / 16];
   const base3 = [1 / 3, 2 / 3, 1 / 9, 4 / 9, 7 / 9, 2 / 9, 5 / 9, 8 / 9, 1 / 27, 10 / 27];
   const base5 = [0.2, 0.4, 0.6, 0.8, 0.04, 0.24, 0.44, 0.64, 0.84, 0.08];

@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { inverseNormal } from '../../../server/engine/draws/inverse-normal';
 
 describe('inverseNormal (Wichura 1988, AS241 PPND16)', () => {
-  // Reference values: REFERENCES.md §3.4 [C] (mpmath at 40-60 digits). PPND16 is accurate to
+  // Reference values: docs/methods.md, "Draws" (Wichura 1988 AS 241; mpmath at 40-60 digits). PPND16 is accurate to
   // about 1 part in 1e16 (Wichura 1988), so a relative tolerance of 1e-15 is the method's error.
   it.each([
     ['central branch', 0.25, -0.67448975019608174],

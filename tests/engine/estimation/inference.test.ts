@@ -4,7 +4,7 @@
  * a Hessian that is not negative definite keeps the estimates, names the eigen-direction in
  * correlation form and gives no SE for the parameters on it; derived quantities of a lognormal
  * (mean e^{b+s²/2}, median e^b; Johnson, Kotz & Balakrishnan 1994 ch. 14), the wrong-sign share
- * of a normal Φ(−|b|/s), and the correlation implied by a Cholesky factor (Train 2009 §6.3).
+ * of a normal Φ(−|b|/s), and the covariance and correlation implied by a Cholesky factor (Train 2009 §6.3).
  */
 import { describe, expect, it } from 'vitest';
 import { buildChoiceData } from '../../../server/engine/estimation/build-choice-data';
@@ -111,6 +111,13 @@ describe('derived quantities', () => {
     expect(get('a', 'wrong_sign_share').estimate).toBeCloseTo(normalCdf(-0.5 / 0.8), 12);
     expect(get('b', 'sd').estimate).toBeCloseTo(0.5, 12);
     expect(get('b~a', 'correlation').estimate).toBeCloseTo((0.8 * 0.3) / (0.8 * 0.5), 12);
+    // Implied covariance Σ = LL′ (Train 2009 §6.3) and its delta SEs in closed form:
+    // Σ_aa = L_aa², SE 2·L_aa·0.1; Σ_ba = L_ba·L_aa, SE 0.1·√(L_aa² + L_ba²).
+    expect(get('a~a', 'covariance').estimate).toBeCloseTo(0.64, 12);
+    expect(get('b~a', 'covariance').estimate).toBeCloseTo(0.24, 12);
+    expect(get('b~b', 'covariance').estimate).toBeCloseTo(0.09 + 0.16, 12);
+    expect(get('a~a', 'covariance').se!).toBeCloseTo(2 * 0.8 * 0.1, 8);
+    expect(get('b~a', 'covariance').se!).toBeCloseTo(0.1 * Math.sqrt(0.64 + 0.09), 8);
     // Delta SE of the median e^b is e^b·SE(b) = e^{−0.2}·0.1; the simulation agrees within its error.
     expect(get('c', 'median').se!).toBeCloseTo(Math.exp(-0.2) * 0.1, 8);
     expect(Math.abs(get('c', 'median').simulatedSe! / get('c', 'median').se! - 1)).toBeLessThan(

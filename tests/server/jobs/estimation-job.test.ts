@@ -70,7 +70,10 @@ describe('estimation job', () => {
       key: 'attr:bill',
       coefficient: 'b0',
       label: 'Monthly bill increase (€)',
+      // The cost coefficient is the denominator of every WTP: no WTP unit of its own.
+      wtpUnit: null,
     });
+    expect(run.results.columns[1].wtpUnit).toMatch(/^€ of monthly bill increase /);
     expect(run.results.wtp).toHaveLength(8);
     // Recovery within two standard errors (common practice, no source).
     Object.values(TRUE_MNL).forEach((truth, k) => {

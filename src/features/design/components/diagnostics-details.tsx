@@ -1,6 +1,7 @@
 import type { DesignDiagnostics } from '@server/engine/design/diagnostics/diagnose-design';
 import { Alert } from '@/components/ui/feedback';
 import { cn } from '@/lib/cn';
+import { formatNumber } from '@/utils/format';
 
 const ALT_COLOURS = [
   'bg-oi-blue',
@@ -47,7 +48,7 @@ export function Correlations({ d }: { d: DesignDiagnostics }) {
                         : '',
                   )}
                 >
-                  {i === j ? '·' : r === null ? '—' : r.toFixed(2)}
+                  {i === j ? '·' : r === null ? '—' : formatNumber(r, 2)}
                 </td>
               ))}
             </tr>

@@ -1,5 +1,5 @@
 import type { FieldworkStats } from '@shared/schemas/fieldwork';
-import { formatCount } from '../utils/format';
+import { formatCount } from '@/utils/format';
 
 function CountTable({
   caption,

@@ -1,5 +1,5 @@
 import type { DropOffStep } from '@shared/schemas/fieldwork';
-import { formatCount } from '../utils/format';
+import { formatCount } from '@/utils/format';
 
 /**
  * How far respondents got: one row per screen with a bar of those who answered it, and how many

@@ -1,5 +1,5 @@
 import type { FieldworkStats } from '@shared/schemas/fieldwork';
-import { formatCount } from '../utils/format';
+import { formatCount } from '@/utils/format';
 import { StatTile } from './stat-tile';
 
 export function InvitationSummary({ invitations }: { invitations: FieldworkStats['invitations'] }) {

@@ -1,5 +1,5 @@
 import type { FieldworkStats } from '@shared/schemas/fieldwork';
-import { formatCount, formatDuration, formatPercent } from '../utils/format';
+import { formatCount, formatDuration, formatPercent } from '@/utils/format';
 import { StatTile } from './stat-tile';
 
 /** Starts, completes, screen-outs, over-quota, completion rate and median time. */
@@ -14,7 +14,7 @@ export function SampleFlow({ stats }: { stats: FieldworkStats }) {
       <StatTile label="Over quota" value={formatCount(c.overQuota)} />
       <StatTile
         label="Completion rate"
-        value={formatPercent(stats.completionRate)}
+        value={formatPercent(stats.completionRate, 0)}
         hint="of starts not screened out"
       />
       <StatTile

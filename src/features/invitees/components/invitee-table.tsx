@@ -4,6 +4,7 @@ import type { InviteeState } from '@shared/schemas/invitees';
 import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
 import { Spinner } from '@/components/ui/feedback';
+import { useConfirm } from '@/components/ui/confirm-dialog';
 import { ErrorText } from '@/components/ui/error-boundary';
 import { useInvitees } from '../api/list-invitees';
 import { useDeleteInvitee } from '../api/delete-invitee';
@@ -32,10 +33,12 @@ export function InviteeTable({
   };
   const list = useInvitees(teamId, studyId, query);
   const remove = useDeleteInvitee(teamId, studyId);
+  const { confirm, dialog } = useConfirm();
   const pages = list.data ? Math.max(1, Math.ceil(list.data.total / PAGE_SIZE)) : 1;
 
   return (
     <div className="space-y-3">
+      {dialog}
       <div className="grid gap-2 sm:grid-cols-[12rem_1fr]">
         <SelectField
           label="Show"
@@ -118,10 +121,14 @@ export function InviteeTable({
                         size="sm"
                         variant="ghost"
                         aria-label={`Remove ${i.email} from the list`}
-                        onClick={() => {
-                          if (window.confirm(`Remove ${i.email} from the invitation list?`))
-                            remove.mutate(i.id);
-                        }}
+                        onClick={() =>
+                          void confirm({
+                            title: `Remove ${i.email}?`,
+                            body: 'They leave the invitation list and get no further invitations or reminders.',
+                            confirmLabel: 'Remove',
+                            danger: true,
+                          }).then((ok) => ok && remove.mutate(i.id))
+                        }
                       >
                         Remove
                       </Button>

@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Alert, Card, Spinner } from '@/components/ui/feedback';
+import { useConfirm, type ConfirmRequest } from '@/components/ui/confirm-dialog';
 import { ErrorText } from '@/components/ui/error-boundary';
 import { ApiError } from '@/lib/api-client';
 import { paths } from '@/config/paths';
@@ -62,12 +63,13 @@ export function LifecyclePanel({
   const isDraft = state.data?.status === 'draft';
   const readiness = useReadiness(teamId, studyId, state.data?.status !== 'live');
   const change = useChangeStatus(teamId, studyId);
+  const { confirm, dialog } = useConfirm();
   if (state.isPending) return <Spinner label="Loading the study's state…" />;
   if (state.error) return <ErrorText error={state.error} />;
   const s = state.data;
   const problems = readiness.data?.problems ?? [];
-  const act = (action: LifecycleAction, confirmText?: string) => {
-    if (confirmText && !window.confirm(confirmText)) return;
+  const act = async (action: LifecycleAction, ask?: ConfirmRequest) => {
+    if (ask && !(await confirm(ask))) return;
     change.mutate(action);
   };
   const serverProblems =
@@ -112,10 +114,11 @@ export function LifecyclePanel({
                 busy={change.isPending}
                 disabled={problems.length > 0 || readiness.isPending}
                 onClick={() =>
-                  act(
-                    'go-live',
-                    'Go live? Respondents can answer from now on, and the study is frozen until you close it.',
-                  )
+                  void act('go-live', {
+                    title: 'Go live?',
+                    body: 'Respondents can answer from now on, and the attributes, design and questionnaire are frozen until you close the study.',
+                    confirmLabel: 'Go live',
+                  })
                 }
               >
                 Go live
@@ -126,7 +129,12 @@ export function LifecyclePanel({
                 variant="danger"
                 busy={change.isPending}
                 onClick={() =>
-                  act('close', 'Close the study? Respondents still answering will be stopped.')
+                  void act('close', {
+                    title: 'Close the study?',
+                    body: 'Respondents still answering will be stopped. You can reopen it later.',
+                    confirmLabel: 'Close now',
+                    danger: true,
+                  })
                 }
               >
                 Close now
@@ -137,14 +145,14 @@ export function LifecyclePanel({
                 <Button
                   busy={change.isPending}
                   disabled={problems.length > 0}
-                  onClick={() => act('reopen')}
+                  onClick={() => void act('reopen')}
                 >
                   Reopen
                 </Button>
                 <Button
                   variant="secondary"
                   busy={change.isPending}
-                  onClick={() => act('return-to-draft')}
+                  onClick={() => void act('return-to-draft')}
                 >
                   Return to draft to edit
                 </Button>
@@ -165,6 +173,7 @@ export function LifecyclePanel({
         />
         <VersionsList teamId={teamId} studyId={studyId} />
       </div>
+      {dialog}
     </Card>
   );
 }

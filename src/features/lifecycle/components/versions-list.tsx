@@ -1,4 +1,5 @@
 import { useVersions } from '../api/get-versions';
+import { formatCount, formatDateTime } from '@/utils/format';
 
 /** Frozen versions with how many respondents saw each. */
 export function VersionsList({ teamId, studyId }: { teamId: string; studyId: string }) {
@@ -20,14 +21,9 @@ export function VersionsList({ teamId, studyId }: { teamId: string; studyId: str
           {data.map((v) => (
             <tr key={v.version} className="border-t border-line">
               <td className="py-1 pr-3 font-mono tabular-nums">{v.version}</td>
-              <td className="py-1 pr-3">
-                {new Date(v.createdAt).toLocaleString('en-GB', {
-                  dateStyle: 'medium',
-                  timeStyle: 'short',
-                })}
-              </td>
-              <td className="num py-1 pr-3">{v.respondents}</td>
-              <td className="num py-1">{v.completes}</td>
+              <td className="py-1 pr-3">{formatDateTime(v.createdAt)}</td>
+              <td className="num py-1 pr-3">{formatCount(v.respondents)}</td>
+              <td className="num py-1">{formatCount(v.completes)}</td>
             </tr>
           ))}
         </tbody>

@@ -6,7 +6,7 @@
 import type { RunResult } from '@shared/schemas/run';
 import { Badge } from '@/components/ui/badge';
 import { describeConvergence } from '../utils/convergence';
-import { formatNumber } from '../utils/format';
+import { formatNumber } from '@/utils/format';
 
 const exp = (x: number | null | undefined) =>
   x === null || x === undefined || !Number.isFinite(x) ? '—' : x.toExponential(2);

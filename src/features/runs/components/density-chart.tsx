@@ -18,6 +18,7 @@ import {
 import { Chart } from 'react-chartjs-2';
 import type { EstimationResult } from '@shared/schemas/estimation-spec';
 import { densityHistogram, plotRange, populationDensity } from '../utils/stats';
+import { formatNumber } from '@/utils/format';
 
 ChartJS.register(
   BarController,
@@ -102,7 +103,8 @@ export function DensityChart({
         />
       </div>
       <figcaption className="mt-1 text-xs text-ink-muted">
-        Population mean {moment.mean.toFixed(3)}, SD {moment.sd.toFixed(3)} ({moment.distribution}
+        Population mean {formatNumber(moment.mean)}, spread (SD) {formatNumber(moment.sd)} (
+        {moment.distribution}
         ); {means.length} respondents&apos; conditional means.
       </figcaption>
     </figure>

@@ -4,11 +4,16 @@
  * intervals from the covariance the run chose.
  */
 import type { RunResult } from '@shared/schemas/run';
-import { formatNumber } from '../utils/format';
+import { formatInterval, formatNumber } from '@/utils/format';
+import { describeDerived, getLabelOf } from '../utils/parameter-labels';
+
+/** Covariances and correlations are shown as matrices (implied-covariance.tsx). */
+const inMatrix = (q: string) => q === 'covariance' || q === 'correlation';
 
 export function DerivedTable({ results }: { results: RunResult }) {
-  const derived = results.derived ?? [];
+  const derived = (results.derived ?? []).filter((d) => !inMatrix(d.quantity));
   if (derived.length === 0) return null;
+  const labelOf = getLabelOf(results);
   const used = results.covariance?.used === 'classical' ? 'classical' : 'robust';
   return (
     <div className="overflow-x-auto">
@@ -32,17 +37,13 @@ export function DerivedTable({ results }: { results: RunResult }) {
           {derived.map((d) => (
             <tr key={`${d.name}-${d.quantity}`} className="border-b border-line/60 last:border-b-0">
               <th scope="row" className="px-2 py-1.5 text-left font-normal text-ink">
-                {d.label}
+                {describeDerived(d, labelOf)}
               </th>
               <td className="num px-2 py-1.5">{formatNumber(d.estimate)}</td>
               <td className="num px-2 py-1.5">{formatNumber(d.se)}</td>
-              <td className="num px-2 py-1.5">
-                {formatNumber(d.deltaLower)} to {formatNumber(d.deltaUpper)}
-              </td>
+              <td className="num px-2 py-1.5">{formatInterval(d.deltaLower, d.deltaUpper)}</td>
               <td className="num px-2 py-1.5">{formatNumber(d.simulatedSe)}</td>
-              <td className="num px-2 py-1.5">
-                {formatNumber(d.lower)} to {formatNumber(d.upper)}
-              </td>
+              <td className="num px-2 py-1.5">{formatInterval(d.lower, d.upper)}</td>
             </tr>
           ))}
         </tbody>

@@ -1,6 +1,6 @@
 import type { RunResult } from '@shared/schemas/run';
 import { describeConvergence } from '../utils/convergence';
-import { formatNumber, formatPercent } from '../utils/format';
+import { formatNumber, formatPercent } from '@/utils/format';
 
 /** Fit statistics and what the run used, as a definition list. */
 export function FitStatistics({ results }: { results: RunResult }) {

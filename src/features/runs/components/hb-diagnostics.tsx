@@ -7,7 +7,7 @@ import { useState } from 'react';
 import type { RunResult } from '@shared/schemas/run';
 import { Alert } from '@/components/ui/feedback';
 import { SelectField } from '@/components/ui/field';
-import { formatNumber, formatPercent } from '../utils/format';
+import { formatNumber, formatPercent } from '@/utils/format';
 import { TraceChart } from './trace-chart';
 
 /** ESS below this is too few draws to trust a posterior mean (common practice, no source). */

@@ -4,7 +4,7 @@
  * membership model when background answers were used, and the class-count table to choose from.
  */
 import type { RunResult } from '@shared/schemas/run';
-import { formatNumber, formatPercent } from '../utils/format';
+import { formatNumber, formatPercent } from '@/utils/format';
 
 type LcClass = NonNullable<RunResult['classes']>[number];
 

@@ -1,7 +1,7 @@
 /** Likelihood-ratio tests between the compared runs (utils/likelihood-ratio.ts). */
 import type { Run, RunResult } from '@shared/schemas/run';
 import { compareAllPairs } from '../utils/likelihood-ratio';
-import { formatNumber, formatPValue } from '../utils/format';
+import { formatNumber, formatPValue } from '@/utils/format';
 
 export function LikelihoodRatioTests({ runs }: { runs: (Run & { results: RunResult })[] }) {
   if (runs.length < 2) return null;

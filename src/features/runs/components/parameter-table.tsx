@@ -1,37 +1,22 @@
 /**
  * Parameters of a run: estimate, classical and robust standard errors, t (robust), p and the
  * 95 % interval (estimate ± 1.96 robust SE, normal approximation). For a random coefficient
- * the location and spread parameters are listed (for lognormals, of ln |β|).
+ * the location and spread parameters are listed (for lognormals, of ln |β|); spreads as |s|.
  */
 import type { RunResult } from '@shared/schemas/run';
-import { formatNumber, formatPValue } from '../utils/format';
+import { formatInterval, formatNumber, formatPValue } from '@/utils/format';
 import { twoSidedP } from '../utils/stats';
+import { describeParameter, getLabelOf } from '../utils/parameter-labels';
+import { isSpreadParameter, showSpread, SPREAD_NOTE } from '../utils/spread';
 
 const Z95 = 1.959964;
-
-/** What the location and spread parameters of each distribution are. */
-const partLabels: Record<string, [string, string]> = {
-  normal: ['mean', 'SD'],
-  lognormal: ['mean of ln β', 'SD of ln β'],
-  neg_lognormal: ['mean of ln(−β)', 'SD of ln(−β)'],
-  triangular: ['centre', 'half-width'],
-  uniform: ['centre', 'half-width'],
-};
-
-export function describeParameter(name: string, distribution: string | undefined): string | null {
-  const part = name.split('.')[1];
-  if (!part) return null;
-  const labels = partLabels[distribution ?? ''];
-  if (part === 'mean') return labels ? labels[0] : 'mean';
-  if (part === 'sd') return labels ? labels[1] : 'spread';
-  return part;
-}
 
 export function ParameterTable({ results }: { results: RunResult }) {
   // HB: posterior mean and SD over the kept draws; t and p belong to the classical fits.
   const bayes = results.model === 'hb';
-  const label = new Map(results.columns.map((c) => [c.coefficient, c.label]));
+  const labelOf = getLabelOf(results);
   const distribution = new Map(results.population.map((m) => [m.name, m.distribution]));
+  const hasSpreads = results.estimates.some((e) => isSpreadParameter(e.name));
   return (
     <div className="overflow-x-auto">
       <table className="w-full text-sm">
@@ -54,21 +39,26 @@ export function ParameterTable({ results }: { results: RunResult }) {
         <tbody>
           {results.estimates.map((e) => {
             const se = e.robustSe ?? e.se;
-            const t = se ? e.estimate / se : null;
-            const coef = e.name.split('.')[0];
-            const part = describeParameter(e.name, distribution.get(coef));
+            const spread = isSpreadParameter(e.name);
+            const lower = se ? e.estimate - Z95 * se : null;
+            const upper = se ? e.estimate + Z95 * se : null;
+            const shown = spread
+              ? showSpread(e.estimate, lower, upper)
+              : { value: e.estimate, lower, upper };
+            const t = se ? shown.value / se : null;
+            const { label, part } = describeParameter(e.name, labelOf, (c) => distribution.get(c));
             return (
               <tr key={e.name} className="border-b border-line/60 last:border-b-0">
                 <th scope="row" className="px-2 py-1.5 text-left font-normal">
                   <span className="block text-ink">
-                    {label.get(coef) ?? coef}
-                    {part && (
-                      <span className="text-ink-muted"> — {part === 'sd' ? 'spread' : part}</span>
-                    )}
+                    {label}
+                    {part && <span className="text-ink-muted"> — {part}</span>}
                   </span>
                   <span className="block font-mono text-xs text-ink-muted">{e.name}</span>
                 </th>
-                <td className="num px-2 py-1.5">{formatNumber(e.estimate)}</td>
+                <td className="num px-2 py-1.5">
+                  {spread ? `|s| ${formatNumber(shown.value)}` : formatNumber(shown.value)}
+                </td>
                 <td className="num px-2 py-1.5">{formatNumber(e.se)}</td>
                 {!bayes && (
                   <>
@@ -79,11 +69,7 @@ export function ParameterTable({ results }: { results: RunResult }) {
                     </td>
                   </>
                 )}
-                <td className="num px-2 py-1.5">
-                  {se
-                    ? `${formatNumber(e.estimate - Z95 * se)} to ${formatNumber(e.estimate + Z95 * se)}`
-                    : '—'}
-                </td>
+                <td className="num px-2 py-1.5">{formatInterval(shown.lower, shown.upper)}</td>
               </tr>
             );
           })}
@@ -93,6 +79,7 @@ export function ParameterTable({ results }: { results: RunResult }) {
         {bayes
           ? 'Posterior means and SDs over the kept draws of all chains; intervals are mean ± 1.96 posterior SD. Read them only when the sampler diagnostics show converged chains.'
           : 't, p and intervals use the robust (respondent-clustered) standard errors and the normal approximation.'}
+        {hasSpreads && ` ${SPREAD_NOTE}`}
       </p>
     </div>
   );

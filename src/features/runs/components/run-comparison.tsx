@@ -3,7 +3,7 @@
  * every parameter's estimate with its standard error below.
  */
 import type { Run, RunResult } from '@shared/schemas/run';
-import { formatNumber, formatPercent } from '../utils/format';
+import { formatNumber, formatPercent } from '@/utils/format';
 import { LikelihoodRatioTests } from './likelihood-ratio-tests';
 
 type Row = { label: string; value: (r: RunResult) => string };

@@ -5,7 +5,7 @@
  */
 import type { Run } from '@shared/schemas/run';
 import { ProgressBar } from '@/components/ui/feedback';
-import { formatDuration, formatNumber } from '../utils/format';
+import { formatDuration, formatNumber } from '@/utils/format';
 
 /** Gradient tolerance of the mixed logit (server check-mixed-logit-options.ts). */
 const TOLERANCE = 1e-3;

@@ -8,7 +8,7 @@ import { Button } from '@/components/ui/button';
 import { paths } from '@/config/paths';
 import { useCancelRun } from '../api/cancel-run';
 import { isRunActive } from '../api/run-keys';
-import { formatDateTime, formatDuration, formatNumber } from '../utils/format';
+import { formatDateTime, formatDuration, formatNumber } from '@/utils/format';
 import { RunProgress } from './run-progress';
 import { RunStatusBadge } from './run-status-badge';
 

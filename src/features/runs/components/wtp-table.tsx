@@ -2,10 +2,12 @@
  * Population willingness to pay, −β_k / β_cost over the population: the MEAN and the MEDIAN
  * WTP (they differ when tastes or the cost are random), each with delta-method and
  * Krinsky–Robb 95 % intervals from the covariance the run chose; or why WTP is withheld.
+ * Every row says its unit and basis (what money, for what change); amounts go through Intl.
  */
 import type { RunResult } from '@shared/schemas/run';
 import { Alert } from '@/components/ui/feedback';
-import { formatNumber } from '../utils/format';
+import { formatAmount, formatInterval } from '@/utils/format';
+import { getLabelOf } from '../utils/parameter-labels';
 
 type Interval = {
   estimate: number;
@@ -16,7 +18,7 @@ type Interval = {
   upper: number | null;
 };
 
-function Cells({ w }: { w: Interval | null | undefined }) {
+function Cells({ w, unit }: { w: Interval | null | undefined; unit: string | null }) {
   if (!w)
     return (
       <>
@@ -25,20 +27,36 @@ function Cells({ w }: { w: Interval | null | undefined }) {
         <td className="num px-2 py-1.5">—</td>
       </>
     );
+  const money = (x: number | null | undefined) => formatAmount(x, unit);
   return (
     <>
-      <td className="num px-2 py-1.5">
-        {formatNumber(w.estimate, 2)}
-        <span className="block text-xs text-ink-muted">SE {formatNumber(w.se, 2)}</span>
+      <td className="num px-2 py-1.5 whitespace-nowrap">
+        {money(w.estimate)}
+        <span className="block text-xs text-ink-muted">SE {money(w.se)}</span>
       </td>
-      <td className="num px-2 py-1.5">
-        {formatNumber(w.deltaLower, 2)} to {formatNumber(w.deltaUpper, 2)}
+      <td className="num px-2 py-1.5 whitespace-nowrap">
+        {formatInterval(w.deltaLower, w.deltaUpper, money)}
       </td>
-      <td className="num px-2 py-1.5">
-        {formatNumber(w.lower, 2)} to {formatNumber(w.upper, 2)}
+      <td className="num px-2 py-1.5 whitespace-nowrap">
+        {formatInterval(w.lower, w.upper, money)}
       </td>
     </>
   );
+}
+
+/** "WTP at population means" (no taste varies) or the population mean and median WTP. */
+export function getWtpHeadings(results: RunResult): { mean: string; median: string | null } {
+  const wtp = results.wtp ?? [];
+  const varies = results.population.some((m) => m.distribution !== 'fixed');
+  // With fixed coefficients the median equals the mean: one set of columns is enough.
+  const hasMedian = wtp.some(
+    (w) => w.median && Math.abs(w.median.estimate - w.estimate) > 1e-9 * Math.abs(w.estimate),
+  );
+  if (!varies) return { mean: 'WTP at population means', median: null };
+  return {
+    mean: 'Population mean WTP',
+    median: hasMedian ? 'Population median WTP' : null,
+  };
 }
 
 export function WtpTable({ results }: { results: RunResult }) {
@@ -50,11 +68,10 @@ export function WtpTable({ results }: { results: RunResult }) {
     );
   if (!results.wtp || results.wtp.length === 0)
     return <p className="text-sm text-ink-soft">This run has no cost coefficient, so no WTP.</p>;
-  const label = new Map(results.columns.map((c) => [c.coefficient, c.label]));
-  // With fixed coefficients the median equals the mean: one set of columns is enough.
-  const hasMedian = results.wtp.some(
-    (w) => w.median && Math.abs(w.median.estimate - w.estimate) > 1e-9 * Math.abs(w.estimate),
-  );
+  const labelOf = getLabelOf(results);
+  const unitOf = new Map(results.columns.map((c) => [c.coefficient, c.wtpUnit ?? null]));
+  const headings = getWtpHeadings(results);
+  const unit = results.costUnit ?? null;
   const used = results.covariance?.used ?? 'classical';
   return (
     <div className="overflow-x-auto">
@@ -63,14 +80,14 @@ export function WtpTable({ results }: { results: RunResult }) {
         <thead>
           <tr className="border-b border-line text-xs text-ink-soft">
             <th scope="col" className="px-2 py-2 text-left font-medium">
-              Attribute column
+              Attribute column · unit and basis
             </th>
             {[
-              'Mean WTP',
+              headings.mean,
               'Delta 95 %',
               // HB: the interval of the population mean WTP over the posterior draws.
               results.model === 'hb' ? 'Posterior 95 %' : 'Krinsky–Robb 95 %',
-              ...(hasMedian ? ['Median WTP', 'Delta 95 %', 'Krinsky–Robb 95 %'] : []),
+              ...(headings.median ? [headings.median, 'Delta 95 %', 'Krinsky–Robb 95 %'] : []),
             ].map((h, i) => (
               <th key={`${h}-${i}`} scope="col" className="px-2 py-2 text-right font-medium">
                 {h}
@@ -81,20 +98,28 @@ export function WtpTable({ results }: { results: RunResult }) {
         <tbody>
           {results.wtp.map((w) => (
             <tr key={w.name} className="border-b border-line/60 last:border-b-0">
-              <th scope="row" className="px-2 py-1.5 text-left font-normal text-ink">
-                {label.get(w.name) ?? w.name}
+              <th scope="row" className="min-w-48 px-2 py-1.5 text-left font-normal text-ink">
+                {labelOf(w.name)}
+                {unitOf.get(w.name) && (
+                  <span className="block text-xs text-ink-muted">{unitOf.get(w.name)}</span>
+                )}
               </th>
-              <Cells w={w} />
-              {hasMedian && <Cells w={w.median} />}
+              <Cells w={w} unit={unit} />
+              {headings.median && <Cells w={w.median} unit={unit} />}
             </tr>
           ))}
         </tbody>
       </table>
       <p className="mt-2 text-xs text-ink-muted">
-        In the cost attribute&apos;s unit per unit of each column
-        {results.space === 'wtp' ? ', estimated directly in WTP space' : ''}. Mean and median are
-        over the population of respondents
-        {hasMedian ? '' : ' (equal here: no random taste or cost)'}; intervals from the {used}{' '}
+        WTP = −β/β<sub>cost</sub>
+        {results.space === 'wtp' ? ', estimated directly in WTP space' : ''}: money per change of
+        each column, as its line says; a negative amount is money needed to accept the change.{' '}
+        {headings.median
+          ? 'Population mean and median are over the estimated distribution of tastes; they differ from the WTP at population means when the cost coefficient is random.'
+          : headings.mean === 'Population mean WTP'
+            ? 'With a fixed cost coefficient the population mean WTP equals the WTP at population means.'
+            : ''}{' '}
+        Each respondent&apos;s conditional-mean WTP is in Tastes. Intervals from the {used}{' '}
         covariance.
       </p>
     </div>

@@ -9,12 +9,12 @@ import {
 } from 'chart.js';
 import { Bar } from 'react-chartjs-2';
 import type { ShareResult } from '@shared/schemas/shares';
+import { formatPercent } from '@/utils/format';
+import { okabeIto } from '@/components/charts/palette';
 
 ChartJS.register(BarController, BarElement, CategoryScale, LinearScale, Tooltip);
 
-/** Okabe–Ito colours (Okabe & Ito 2008), one per alternative. */
-const OKABE_ITO = ['#0072b2', '#e69f00', '#009e73', '#cc79a7', '#56b4e9', '#d55e00'];
-const pct = (x: number) => `${(x * 100).toFixed(1)} %`;
+const pct = (x: number) => formatPercent(x, 1);
 
 export function ShareResults({ result }: { result: ShareResult }) {
   const names = result.alternatives.map((a) => a.name);
@@ -30,7 +30,7 @@ export function ShareResults({ result }: { result: ShareResult }) {
               {
                 label: 'Predicted share',
                 data: result.alternatives.map((a) => a.share * 100),
-                backgroundColor: names.map((_, i) => OKABE_ITO[i % OKABE_ITO.length]),
+                backgroundColor: names.map((_, i) => okabeIto[i % okabeIto.length]),
                 barPercentage: 0.7,
               },
             ],

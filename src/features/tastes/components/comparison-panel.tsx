@@ -9,7 +9,7 @@ import { MODEL_LABELS } from '@shared/schemas/estimation-families';
 import { SelectField } from '@/components/ui/field';
 import { ErrorText } from '@/components/ui/error-boundary';
 import { Spinner } from '@/components/ui/feedback';
-import { formatNumber } from '@/features/runs/utils/format';
+import { formatNumber } from '@/utils/format';
 import { useTasteComparison } from '../api/compare-tastes';
 import { ComparisonScatter } from './comparison-scatter';
 import { RunPicker } from './run-picker';

@@ -6,6 +6,7 @@
 import { cn } from '@/lib/cn';
 import type { RespondentChoice } from '@shared/schemas/tastes';
 import type { StudyDefinition } from '@shared/schemas/study-definition';
+import { formatNumber } from '@/utils/format';
 
 const ordinal = (n: number) =>
   `${n}${n % 10 === 1 && n !== 11 ? 'st' : n % 10 === 2 && n !== 12 ? 'nd' : n % 10 === 3 && n !== 13 ? 'rd' : 'th'}`;
@@ -28,7 +29,7 @@ export function RespondentChoices({
               Task {c.task}
               <span className="ml-2 font-normal text-ink-muted">
                 {c.position !== null && `answered ${ordinal(c.position)}`}
-                {c.responseMs !== null && ` · ${(c.responseMs / 1000).toFixed(1)} s`}
+                {c.responseMs !== null && ` · ${formatNumber(c.responseMs / 1000, 1)} s`}
               </span>
             </h4>
             <div className="overflow-x-auto rounded-md border border-line">

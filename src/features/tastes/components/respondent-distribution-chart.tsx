@@ -16,7 +16,8 @@ import {
 import { Line } from 'react-chartjs-2';
 import type { TasteCoefficient } from '@shared/schemas/tastes';
 import { getPlotRange, normalDensity, populationDensity } from '../utils/densities';
-import { formatNumber, okabeIto, withAlpha } from '../utils/format';
+import { formatNumber } from '@/utils/format';
+import { okabeIto, withAlpha } from '@/components/charts/palette';
 
 ChartJS.register(
   LineController,

@@ -14,7 +14,8 @@ import {
 } from 'chart.js';
 import { Bar } from 'react-chartjs-2';
 import type { Segments } from '@shared/schemas/tastes';
-import { formatNumber, okabeIto, withAlpha } from '../utils/format';
+import { formatNumber } from '@/utils/format';
+import { okabeIto, withAlpha } from '@/components/charts/palette';
 
 ChartJS.register(BarController, BarElement, CategoryScale, LinearScale, Tooltip, Legend);
 

@@ -9,7 +9,7 @@ import { ErrorText } from '@/components/ui/error-boundary';
 import { SelectField } from '@/components/ui/field';
 import type { TasteHeader } from '@shared/schemas/tastes';
 import { useSegments } from '../api/get-segments';
-import { formatNumber } from '../utils/format';
+import { formatNumber } from '@/utils/format';
 import { SegmentsChart, type SegmentsView } from './segments-chart';
 
 export function SegmentsPanel({

@@ -2,7 +2,7 @@ import { Alert } from '@/components/ui/feedback';
 import { tasteCautions } from '@shared/schemas/exports';
 import { LOW_EFFECTIVE_DRAWS } from '@shared/schemas/tastes';
 
-/** The cautions shown wherever taste profiles appear (PRODUCT.md, "Cautions the product shows"). */
+/** The cautions shown wherever taste profiles appear (common practice for individual-level estimates; see docs/methods.md). */
 export function TasteCautions({ lowDraws }: { lowDraws?: number }) {
   return (
     <Alert tone="warning" title="Read individual profiles with care">

@@ -8,7 +8,7 @@ import { Link } from 'react-router';
 import { Button } from '@/components/ui/button';
 import type { TasteList } from '@shared/schemas/tastes';
 import type { TastesQuery } from '../api/list-tastes';
-import { formatNumber } from '../utils/format';
+import { formatNumber } from '@/utils/format';
 
 /** What the profile's `effectiveDraws` measures in each family (shared tasteProfileSchema). */
 const drawsLabel: Record<TasteList['run']['model'], string> = {
@@ -81,7 +81,7 @@ export function TastesTable({
               {data.wtp.map((n) => (
                 <th key={n} className={`${th} text-right`} aria-sort={ariaSort(`wtp:${n}`)}>
                   <button type="button" onClick={() => sortBy(`wtp:${n}`)} className="text-right">
-                    WTP: {wtpLabel(n)}
+                    Conditional-mean WTP: {wtpLabel(n)}
                     {data.costUnit && (
                       <span className="block font-normal text-ink-muted">{data.costUnit}</span>
                     )}

@@ -1,7 +1,8 @@
 import { roleDescriptions } from '@shared/permissions';
 import type { InvitationPreview } from '@shared/schemas/team';
 import { Badge } from '@/components/ui/badge';
-import { formatDate, roleLabels } from './role-label';
+import { roleLabels } from './role-label';
+import { formatDate } from '@/utils/format';
 
 /** Who invites whom to which team, in which role, until when. */
 export function InvitationSummary({ invitation }: { invitation: InvitationPreview }) {

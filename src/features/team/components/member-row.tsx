@@ -3,7 +3,8 @@ import { roles, type Role } from '@shared/permissions';
 import type { Member } from '@shared/schemas/team';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
-import { formatDate, roleLabels } from './role-label';
+import { roleLabels } from './role-label';
+import { formatDate } from '@/utils/format';
 
 const selectClass =
   'h-9 rounded-md border border-line bg-white px-2 text-sm text-ink focus:border-primary disabled:opacity-60';

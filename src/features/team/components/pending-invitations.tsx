@@ -4,7 +4,8 @@ import { Spinner } from '@/components/ui/feedback';
 import { ErrorText } from '@/components/ui/error-boundary';
 import { useInvitations } from '../api/get-invitations';
 import { useCancelInvitation } from '../api/cancel-invitation';
-import { formatDate, roleLabels } from './role-label';
+import { roleLabels } from './role-label';
+import { formatDate } from '@/utils/format';
 
 /** Invitations sent but not yet accepted; an owner can take one back. */
 export function PendingInvitations({ teamId }: { teamId: string }) {

@@ -6,11 +6,3 @@ export const roleLabels: Record<Role, string> = {
   analyst: 'Analyst',
   viewer: 'Viewer',
 };
-
-export function formatDate(iso: string): string {
-  return new Date(iso).toLocaleDateString(undefined, {
-    year: 'numeric',
-    month: 'short',
-    day: 'numeric',
-  });
-}

@@ -20,10 +20,11 @@ import { ParameterTable } from '@/features/runs/components/parameter-table';
 import { FitStatistics } from '@/features/runs/components/fit-statistics';
 import { WtpTable } from '@/features/runs/components/wtp-table';
 import { RandomTastes } from '@/features/runs/components/random-tastes';
-import { formatDateTime } from '@/features/runs/utils/format';
+import { formatDateTime } from '@/utils/format';
 import { ConvergencePanel } from '@/features/runs/components/convergence-panel';
 import { RunWarnings } from '@/features/runs/components/run-warnings';
 import { DerivedTable } from '@/features/runs/components/derived-table';
+import { ImpliedCovariance } from '@/features/runs/components/implied-covariance';
 import { CovarianceDownloads } from '@/features/runs/components/covariance-downloads';
 import { exportsPath } from '@/features/exports/api/get-export-manifest';
 import { HbDiagnostics } from '@/features/runs/components/hb-diagnostics';
@@ -137,6 +138,13 @@ export function Component() {
             <Card title="Derived quantities">
               <PanelErrorBoundary>
                 <DerivedTable results={results} />
+              </PanelErrorBoundary>
+            </Card>
+          )}
+          {(results.derived ?? []).some((d) => d.quantity === 'correlation') && (
+            <Card title="Correlated tastes">
+              <PanelErrorBoundary>
+                <ImpliedCovariance results={results} />
               </PanelErrorBoundary>
             </Card>
           )}

@@ -21,17 +21,11 @@ import { SendPanel } from '@/features/invitees/components/send-panel';
 import { InviteeTable } from '@/features/invitees/components/invitee-table';
 import { LifecyclePanel } from '@/features/lifecycle/components/lifecycle-panel';
 import { useLifecycle } from '@/features/lifecycle/api/get-lifecycle';
+import { formatTime } from '@/utils/format';
 
 export function loader(_args: LoaderFunctionArgs) {
   return null;
 }
-
-const clock = (iso: string) =>
-  new Date(iso).toLocaleTimeString('en-GB', {
-    hour: '2-digit',
-    minute: '2-digit',
-    second: '2-digit',
-  });
 
 export function Component() {
   const { teamId = '', studyId = '' } = useParams();
@@ -73,7 +67,7 @@ export function Component() {
           </p>
         </div>
         <p className="text-xs text-ink-muted" aria-live="polite">
-          Updated <span className="font-mono">{clock(s.generatedAt)}</span>
+          Updated <span className="font-mono">{formatTime(s.generatedAt)}</span>
         </p>
       </div>
 

@@ -10,7 +10,7 @@ import { useRespondentProfile } from '@/features/tastes/api/get-respondent-profi
 import { RespondentDistributionChart } from '@/features/tastes/components/respondent-distribution-chart';
 import { RespondentChoices } from '@/features/tastes/components/respondent-choices';
 import { TasteCautions } from '@/features/tastes/components/taste-cautions';
-import { formatNumber } from '@/features/tastes/utils/format';
+import { formatAmount, formatNumber } from '@/utils/format';
 
 export function Component() {
   const { teamId = '', studyId = '', runId = '', respondentId = '' } = useParams();
@@ -62,13 +62,13 @@ export function Component() {
       </Card>
       <div className="grid gap-6 lg:grid-cols-2">
         {header.wtp.length > 0 && (
-          <Card title="Willingness to pay (conditional means)">
+          <Card title="Conditional-mean WTP (given this respondent's choices)">
             <dl className="divide-y divide-line text-sm">
               {header.wtp.map((n) => (
                 <div key={n} className="flex justify-between gap-4 py-1.5">
                   <dt>{header.coefficients.find((c) => c.name === n)?.label ?? n}</dt>
                   <dd className="font-mono whitespace-nowrap tabular-nums">
-                    {formatNumber(row.wtp?.[n], 2)} {header.costUnit}
+                    {formatAmount(row.wtp?.[n], header.costUnit)}
                   </dd>
                 </div>
               ))}

@@ -1,9 +1,3 @@
-/** Numbers as the tables show them: fixed decimals, a true minus sign, a dash when missing. */
-export function formatNumber(x: number | null | undefined, digits = 3): string {
-  if (x === null || x === undefined || !Number.isFinite(x)) return '—';
-  return x.toFixed(digits).replace(/^-/, '−');
-}
-
 /** Okabe–Ito colour-blind-safe palette (Okabe & Ito 2008), black left out for chart series. */
 export const okabeIto = [
   '#0072b2',

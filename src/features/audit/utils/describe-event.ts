@@ -1,0 +1,60 @@
+/** One audit event in plain words for the owner's table. */
+import type { AuditEvent } from '@shared/schemas/audit';
+
+const d = (e: AuditEvent, key: string) => {
+  const v = e.details[key];
+  return v === undefined || v === null ? '' : String(v);
+};
+
+export function describeAuditEvent(e: AuditEvent): string {
+  switch (e.action) {
+    case 'auth.sign_in':
+      return 'Signed in';
+    case 'auth.sign_in_failed':
+      return 'Failed sign-in (wrong password)';
+    case 'auth.email_confirmed':
+      return 'Confirmed their e-mail address';
+    case 'auth.password_changed':
+      return `Changed their password (${d(e, 'otherSessionsEnded')} other sessions ended)`;
+    case 'auth.password_reset':
+      return 'Reset their password by e-mail link';
+    case 'auth.sessions_revoked':
+      return `Signed out everywhere (${d(e, 'sessionsEnded')} sessions)`;
+    case 'member.joined':
+      return `Joined the team as ${d(e, 'role')}`;
+    case 'member.role_changed':
+      return `Changed a member's role from ${d(e, 'from')} to ${d(e, 'to')}`;
+    case 'member.removed':
+      return `Removed a member (${d(e, 'role')}); their sessions ended`;
+    case 'invitation.created':
+      return `Invited someone as ${d(e, 'role')}`;
+    case 'invitation.cancelled':
+      return 'Cancelled an invitation';
+    case 'study.went_live':
+      return `Put study "${d(e, 'study')}" live (version ${d(e, 'version')})`;
+    case 'study.reopened':
+      return `Reopened study "${d(e, 'study')}" (version ${d(e, 'version')})`;
+    case 'study.closed':
+      return `Closed study "${d(e, 'study')}"${d(e, 'reason') && d(e, 'reason') !== 'manual' ? ` (${d(e, 'reason')})` : ''}`;
+    case 'study.returned_to_draft':
+      return `Returned study "${d(e, 'study')}" to draft`;
+    case 'respondent.excluded':
+      return `Excluded respondent ${d(e, 'respondent')}${d(e, 'reason') ? `: ${d(e, 'reason')}` : ''}`;
+    case 'respondent.included':
+      return `Included respondent ${d(e, 'respondent')} again`;
+    case 'respondent.flagged_excluded':
+      return `Excluded ${d(e, 'count')} flagged respondents`;
+    case 'respondent.erased':
+      return `Erased respondent #${d(e, 'number')} on request (${d(e, 'answers')} answers deleted)`;
+    case 'run.started':
+      return `Started run "${d(e, 'name')}" (${d(e, 'model')})`;
+    case 'run.cancelled':
+      return 'Cancelled a run';
+    case 'export.personal_data':
+      return `Downloaded ${d(e, 'file')} with personal data`;
+    case 'audit.downloaded':
+      return `Downloaded the audit trail (${d(e, 'rows')} events)`;
+    default:
+      return e.action;
+  }
+}

@@ -85,7 +85,15 @@ export function DiagnosticsPanel({
                       key={l.levelId}
                       className="grid grid-cols-[7rem_1fr_2.5rem] items-center gap-2 text-xs"
                     >
-                      <span className="truncate text-ink-soft">{l.label}</span>
+                      <span className="truncate text-ink-soft">
+                        {l.label}
+                        {/* Stored designs from before this flag lack it. */}
+                        {l.inStatusQuo === true && (
+                          <span className="ml-1 text-ink-muted" title="The status quo's level">
+                            (status quo)
+                          </span>
+                        )}
+                      </span>
                       <span className="h-2 rounded-full bg-line">
                         <span
                           className="block h-2 rounded-full bg-oi-blue"

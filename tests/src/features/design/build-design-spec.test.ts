@@ -80,4 +80,34 @@ describe('buildDesignSpec', () => {
       expect(again).toEqual(out);
     }
   });
+
+  it('carries the dominance and level rules, and refills them from a stored spec', () => {
+    const out = buildDesignSpec(
+      {
+        ...defaultDesignForm,
+        dominance: { betweenDesigned: true, overFixed: false, byFixed: true },
+        minAppearances: '2',
+        levelBalance: true,
+        maxOverlap: '1',
+      },
+      columns,
+    );
+    expect(out.ok && out.spec.dominance).toEqual({
+      betweenDesigned: true,
+      overFixed: false,
+      byFixed: true,
+    });
+    expect(out.ok && out.spec.balance).toEqual({
+      minAppearances: 2,
+      levelBalance: true,
+      maxOverlap: 1,
+    });
+    if (out.ok) expect(buildDesignSpec(formValuesFromSpec(out.spec), columns)).toEqual(out);
+  });
+
+  it('when the minimum appearances is not a whole number, names that field', () => {
+    const out = buildDesignSpec({ ...defaultDesignForm, minAppearances: '1.5' }, columns);
+    expect(out.ok).toBe(false);
+    if (!out.ok) expect(out.errors.has('balance.minAppearances')).toBe(true);
+  });
 });

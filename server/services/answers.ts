@@ -36,7 +36,7 @@ export type AnswerInput = {
 };
 
 /** Row columns of an answer: choice tasks map the on-screen position back to the design. */
-function answerColumnsFor(
+export function answerColumnsFor(
   screen: RespondentScreen,
   value: AnswerValue,
   repeatOfTask: number | null,

@@ -181,6 +181,10 @@ export async function buildSession(
       respondent.externalId,
     ),
     surveyOpen: study.status === 'live',
+    back: {
+      allowBack: version.questionnaire.options.allowBack,
+      backOnTasks: version.questionnaire.options.backOnTasks,
+    },
   };
 }
 

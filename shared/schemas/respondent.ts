@@ -6,6 +6,7 @@
 import { z } from 'zod';
 import type { Question } from './questionnaire';
 import type { StudyDefinition } from './study-definition';
+import type { BackOptions } from '../survey/going-back';
 
 export { RESPONDENT_TOKEN_HEADER } from '../respondent-token-header';
 
@@ -114,6 +115,8 @@ export type RespondentSession = {
   redirectUrl: string | null;
   /** False once the survey has closed: the app shows a closed page instead of the next screen. */
   surveyOpen: boolean;
+  /** Where Back may lead (shared/survey/going-back.ts). */
+  back: BackOptions;
 };
 
 export type AnswerReceipt = {

@@ -51,6 +51,7 @@ export function fullQuestionnaire(): Questionnaire {
   // Some tests send respondents back to a panel with their id: the consent says so.
   const body = `${consent.kind === 'consent' ? consent.body : ''}\n\nIf you came from a survey panel, your answers are linked to your panel id.`;
   return {
+    ...q,
     pages: [
       { ...consent, body } as typeof consent,
       {

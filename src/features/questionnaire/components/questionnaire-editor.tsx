@@ -80,7 +80,7 @@ export function QuestionnaireEditor({
   const selected = draft.pages.find((p) => p.id === selectedId) ?? null;
 
   const change = (pages: QuestionnairePage[]) => {
-    setDraft({ pages });
+    setDraft((d) => ({ ...d, pages }));
     setDirty(true);
   };
   const problems = check.success ? [] : check.error.issues.map((i) => i.message);

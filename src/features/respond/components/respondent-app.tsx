@@ -8,16 +8,19 @@ import { QuestionScreen } from './question-screen';
 import { TaskScreen } from './task-screen';
 import { EndScreen, UnavailableScreen } from './finish-screens';
 import { RespondLayout } from './respond-layout';
+import { GoBackContext } from './screen-frame';
 
 /** Renders one screen; `key` makes every screen a fresh component with its own timer. */
 function CurrentScreen({
   screen,
   session,
   onAnswer,
+  initial,
 }: {
   screen: RespondentScreen;
   session: RespondentSession;
   onAnswer: (value: AnswerValue, responseMs: number) => void;
+  initial?: AnswerValue;
 }) {
   const [shownAt] = useState(() => performance.now());
   const give = (value: AnswerValue) => onAnswer(value, performance.now() - shownAt);
@@ -29,13 +32,14 @@ function CurrentScreen({
     case 'instructions':
       return <InstructionsScreen screen={screen} onContinue={() => give({ kind: 'ack' })} />;
     case 'question':
-      return <QuestionScreen screen={screen} onAnswer={give} />;
+      return <QuestionScreen screen={screen} onAnswer={give} initial={initial} />;
     case 'task':
       return (
         <TaskScreen
           screen={screen}
           definition={session.definition}
           onAnswer={(position) => give({ kind: 'choice', position })}
+          initial={initial}
         />
       );
   }
@@ -98,12 +102,15 @@ export function RespondentApp({ publicId, search }: { publicId: string; search: 
     );
   else
     body = (
-      <CurrentScreen
-        key={r.currentScreen.key}
-        screen={r.currentScreen}
-        session={session}
-        onAnswer={(value, ms) => r.answer(r.currentScreen!, value, ms)}
-      />
+      <GoBackContext.Provider value={r.goBack}>
+        <CurrentScreen
+          key={r.currentScreen.key}
+          screen={r.currentScreen}
+          session={session}
+          onAnswer={(value, ms) => r.answer(r.currentScreen!, value, ms)}
+          initial={r.givenOnCurrent}
+        />
+      </GoBackContext.Provider>
     );
   return (
     <RespondLayout progress={finished ? 1 : progress} studyName={session.studyName} {...status}>

@@ -4,7 +4,7 @@ import {
   ChoiceTaskCard,
   type ChoiceTaskAlternative,
 } from '@/components/choice-task/choice-task-card';
-import type { RespondentScreen, RespondentSession } from '@shared/schemas/respondent';
+import type { AnswerValue, RespondentScreen, RespondentSession } from '@shared/schemas/respondent';
 import type { StudyDefinition } from '@shared/schemas/study-definition';
 import { NextBar, ScreenFrame } from './screen-frame';
 
@@ -12,11 +12,15 @@ type Props = {
   screen: Extract<RespondentScreen, { kind: 'task' }>;
   definition: RespondentSession['definition'];
   onAnswer: (position: number) => void;
+  /** The choice made earlier, when the respondent came back to this task. */
+  initial?: AnswerValue;
 };
 
 /** One choice task: tap a card to choose it, then Next. The choice can change until Next. */
-export function TaskScreen({ screen, definition, onAnswer }: Props) {
-  const [chosen, setChosen] = useState<number | null>(null);
+export function TaskScreen({ screen, definition, onAnswer, initial }: Props) {
+  const [chosen, setChosen] = useState<number | null>(
+    initial?.kind === 'choice' ? initial.position : null,
+  );
   const full: StudyDefinition = { ...definition, prohibitions: [] };
   const alternatives: ChoiceTaskAlternative[] = screen.alternatives.map((a) =>
     a.fixed ? { kind: 'fixed' } : { kind: 'designed', designIndex: a.index, levels: a.levels },

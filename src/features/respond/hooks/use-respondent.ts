@@ -20,13 +20,17 @@ import { getSession } from '../api/get-session';
 import { submitAnswer } from '../api/submit-answer';
 import {
   enqueueAnswer,
+  enqueueRevision,
   keepOutboxOf,
   newClientId,
+  readGiven,
   readOutbox,
   removeAnswer,
   retryDelayMs,
+  saveGiven,
   saveToken,
 } from '../utils/respondent-storage';
+import { previousRevisable } from '@shared/survey/going-back';
 
 export type Unavailable = SurveyLinkState | 'not_found' | 'session_lost';
 
@@ -72,6 +76,9 @@ export function useRespondent(publicId: string, search: string) {
   const [finalStatus, setFinalStatus] = useState<RespondentStatus | null>(null);
   const [redirectUrl, setRedirectUrl] = useState<string | null>(null);
   const [awaiting, setAwaiting] = useState<string | null>(null);
+  /** An answered screen the respondent went back to, or null at the first unanswered one. */
+  const [reviewing, setReviewing] = useState<string | null>(null);
+  const [given, setGiven] = useState<Record<string, AnswerValue>>({});
   const token = useRef<string | null>(null);
   const pump = useRef({
     running: false,
@@ -85,6 +92,7 @@ export function useRespondent(publicId: string, search: string) {
       saveToken(publicId, session.sessionToken);
       const queued = keepOutboxOf(publicId, session.sessionToken).map((i) => i.answer.screenKey);
       setAnsweredLocally([...new Set([...session.answered, ...queued])]);
+      setGiven(readGiven(publicId, session.sessionToken));
       setPending(queued.length);
       if (session.status !== 'in_progress') {
         setFinalStatus(session.status);
@@ -129,7 +137,7 @@ export function useRespondent(publicId: string, search: string) {
         const item = readOutbox(publicId)[0];
         if (!item) break;
         try {
-          const receipt = await submitAnswer(publicId, item.token, item.answer);
+          const receipt = await submitAnswer(publicId, item.token, item.answer, item.revise);
           removeAnswer(publicId, item.answer.clientId);
           p.attempt = 0;
           setOffline(false);
@@ -201,15 +209,63 @@ export function useRespondent(publicId: string, search: string) {
   }, [sendOutbox]);
 
   const session = state.phase === 'active' ? state.session : null;
+  const done = useMemo(() => new Set(answeredLocally), [answeredLocally]);
   const currentScreen: RespondentScreen | null = useMemo(() => {
     if (!session) return null;
-    const done = new Set(answeredLocally);
-    return session.screens.find((s) => !done.has(s.key)) ?? null;
-  }, [session, answeredLocally]);
+    const back = reviewing && session.screens.find((s) => s.key === reviewing);
+    return back || (session.screens.find((s) => !done.has(s.key)) ?? null);
+  }, [session, done, reviewing]);
+  const backTarget =
+    session && currentScreen && finalStatus === null
+      ? previousRevisable(session.screens, done, currentScreen.key, session.back)
+      : null;
+  const goBack = useCallback(() => {
+    if (backTarget) setReviewing(backTarget.key);
+  }, [backTarget]);
+
+  const remember = useCallback(
+    (key: string, value: AnswerValue) =>
+      setGiven((g) => {
+        const next = { ...g, [key]: value };
+        if (token.current) saveGiven(publicId, token.current, next);
+        return next;
+      }),
+    [publicId],
+  );
+
+  /** After a screen seen again: the next answered screen, or back to the first unanswered. */
+  const moveOnFrom = useCallback(
+    (key: string) => {
+      const screens = session?.screens ?? [];
+      const next = screens[screens.findIndex((s) => s.key === key) + 1];
+      setReviewing(next && done.has(next.key) ? next.key : null);
+    },
+    [session, done],
+  );
 
   const answer = useCallback(
     (screen: RespondentScreen, value: AnswerValue, responseMs: number) => {
       if (!token.current) return;
+      if (done.has(screen.key)) {
+        // A screen seen again through Back: only a changed answer is sent, as a revision.
+        if (JSON.stringify(given[screen.key]) !== JSON.stringify(value)) {
+          enqueueRevision(publicId, {
+            token: token.current,
+            answer: {
+              clientId: newClientId(),
+              screenKey: screen.key,
+              value,
+              responseMs: Math.round(responseMs),
+            },
+          });
+          remember(screen.key, value);
+          setPending(readOutbox(publicId).length);
+          void sendOutbox();
+        }
+        moveOnFrom(screen.key);
+        return;
+      }
+      remember(screen.key, value);
       enqueueAnswer(publicId, {
         token: token.current,
         answer: {
@@ -225,7 +281,7 @@ export function useRespondent(publicId: string, search: string) {
       setPending((n) => n + 1);
       void sendOutbox();
     },
-    [publicId, sendOutbox],
+    [publicId, sendOutbox, done, given, remember, moveOnFrom],
   );
 
   return {
@@ -239,5 +295,8 @@ export function useRespondent(publicId: string, search: string) {
     redirectUrl,
     awaitingReceipt: awaiting !== null,
     answer,
+    /** The answer given earlier on the current screen (seen again through Back), if known. */
+    givenOnCurrent: currentScreen ? given[currentScreen.key] : undefined,
+    goBack: backTarget ? goBack : null,
   };
 }

@@ -3,9 +3,10 @@
  * outbox of answers not yet acknowledged by the server. localStorage survives reloads, closed
  * tabs and a dropped connection; if it is unavailable (private mode quirks) memory is used.
  */
-import type { SubmitAnswerInput } from '@shared/schemas/respondent';
+import type { AnswerValue, SubmitAnswerInput } from '@shared/schemas/respondent';
 
-export type OutboxItem = { token: string; answer: SubmitAnswerInput };
+/** An answer to send; `revise` marks a changed earlier answer (sent to the revisions route). */
+export type OutboxItem = { token: string; answer: SubmitAnswerInput; revise?: boolean };
 
 const memory = new Map<string, string>();
 
@@ -29,6 +30,7 @@ function write(key: string, value: string | null): void {
 
 const tokenKey = (publicId: string) => `cw:respond:${publicId}:token`;
 const outboxKey = (publicId: string) => `cw:respond:${publicId}:outbox`;
+const givenKey = (publicId: string) => `cw:respond:${publicId}:given`;
 
 export function readToken(publicId: string): string | null {
   return read(tokenKey(publicId));
@@ -51,12 +53,47 @@ function writeOutbox(publicId: string, items: OutboxItem[]): void {
   write(outboxKey(publicId), items.length ? JSON.stringify(items) : null);
 }
 
+const sameScreen = (a: OutboxItem, b: OutboxItem) =>
+  a.token === b.token && a.answer.screenKey === b.answer.screenKey;
+
 /** Adds an answer; a second answer for the same screen is ignored (the first one stands). */
 export function enqueueAnswer(publicId: string, item: OutboxItem): void {
   const items = readOutbox(publicId);
-  if (items.some((i) => i.token === item.token && i.answer.screenKey === item.answer.screenKey))
-    return;
+  if (items.some((i) => sameScreen(i, item))) return;
   writeOutbox(publicId, [...items, item]);
+}
+
+/**
+ * Queues a changed answer. If the first answer for that screen has not been sent yet, it is
+ * changed in place (the server never needs to see it); an unsent earlier change is dropped.
+ */
+export function enqueueRevision(publicId: string, item: OutboxItem): void {
+  const items = readOutbox(publicId);
+  const unsent = items.findIndex((i) => sameScreen(i, item) && !i.revise);
+  if (unsent >= 0) {
+    items[unsent] = { token: item.token, answer: item.answer };
+    writeOutbox(publicId, items);
+    return;
+  }
+  const rest = items.filter((i) => !(sameScreen(i, item) && i.revise));
+  writeOutbox(publicId, [...rest, { ...item, revise: true }]);
+}
+
+/** The answers this browser gave in a session, by screen: Back shows them again. */
+export function readGiven(publicId: string, token: string): Record<string, AnswerValue> {
+  try {
+    const parsed = JSON.parse(read(givenKey(publicId)) ?? 'null') as {
+      token: string;
+      values: Record<string, AnswerValue>;
+    } | null;
+    return parsed?.token === token ? parsed.values : {};
+  } catch {
+    return {};
+  }
+}
+
+export function saveGiven(publicId: string, token: string, values: Record<string, AnswerValue>) {
+  write(givenKey(publicId), JSON.stringify({ token, values }));
 }
 
 export function removeAnswer(publicId: string, clientId: string): void {

@@ -70,6 +70,7 @@ const session: RespondentSession = {
   end: { title: 'Thank you', body: 'Your answers have been saved.' },
   redirectUrl: null,
   surveyOpen: true,
+  back: { allowBack: true, backOnTasks: true },
 };
 
 type Call = { url: string; body: unknown };

@@ -12,6 +12,7 @@ import { createTeamWithAllRoles } from '../../support/factories';
 import { listTasteProfiles } from '../../../db/queries/taste-profiles';
 import { runEstimationJob } from '../../../server/jobs/estimation-job';
 import { ignoreTeardownErrors, seedRunStudy, type SeededStudy } from './run-fixtures';
+import { scenarioLevels } from '../routes/tastes-fixture';
 
 let t: TestApp;
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
@@ -253,5 +254,55 @@ describe('exports of HB and latent class runs', () => {
     expect(rows[head + 1][0]).toBe(1);
     expect(rows[head + 2][0]).toBe(2);
     expect(rows.some((r) => typeof r[0] === 'string' && /^Class 1: share/.test(r[0]))).toBe(true);
+  });
+});
+
+describe('shares and segments of HB and latent class runs', () => {
+  const levels = scenarioLevels;
+  const simulate = (runId: string, segmentBy: unknown = null) =>
+    team.agents.viewer
+      .post(`/api/teams/${team.teamId}/studies/${study.studyId}/shares/simulate`)
+      .send({
+        runId,
+        alternatives: [
+          { name: 'Good river', levels: levels('good') },
+          { name: 'Poor river', levels: levels('poor') },
+        ],
+        includeFixed: true,
+        segmentBy,
+      });
+
+  it('HB shares average every respondent’s posterior means', async () => {
+    const res = await simulate(done.hb).expect(200);
+    expect(res.body.method).toBe('posterior_means');
+    expect(res.body.respondents).toBe(80);
+    const shares = res.body.alternatives.map((a: { share: number }) => a.share);
+    expect(shares.reduce((a: number, b: number) => a + b, 0)).toBeCloseTo(1, 12);
+    // Simulated with a positive river effect (run-fixtures TRUE_MNL).
+    expect(shares[0]).toBeGreaterThan(shares[1]);
+  });
+
+  it('latent class shares are class-weighted, and split by the likeliest class', async () => {
+    const res = await simulate(done.lc, { groupBy: 'class' }).expect(200);
+    expect(res.body.method).toBe('class_weighted');
+    expect(res.body.segments.label).toBe('Likeliest latent class');
+    const counts = res.body.segments.groups.map((g: { count: number }) => g.count);
+    expect(counts.reduce((a: number, b: number) => a + b, 0)).toBe(80);
+    expect(res.body.segments.groups[0].label).toMatch(/^Class 1 \(\d+\s?%\)$/);
+  });
+
+  it('Tastes segments by likeliest class for a latent class run; 400 on groupBy for HB', async () => {
+    const url = `/api/teams/${team.teamId}/studies/${study.studyId}/tastes/segments`;
+    const lc = await team.agents.viewer
+      .get(url)
+      .query({ runId: done.lc, coefficient: 'river_good', groupBy: 'class' })
+      .expect(200);
+    expect(lc.body.groupLabel).toBe('Likeliest latent class');
+    expect(lc.body.ungrouped).toBe(0);
+    const hb = await team.agents.viewer
+      .get(url)
+      .query({ runId: done.hb, coefficient: 'river_good', groupBy: 'class' })
+      .expect(400);
+    expect(hb.body.error.fields[0].path).toBe('groupBy');
   });
 });

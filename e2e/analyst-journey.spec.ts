@@ -72,7 +72,8 @@ test('an analyst runs a mixed logit, splits tastes by a background question and 
       .click();
     await expect(page.getByRole('heading', { name: 'Tastes' })).toBeVisible();
     await expect(page.getByLabel('Run', { exact: true })).toContainText(runName);
-    await expect(page.getByText('Read individual profiles with care')).toBeVisible();
+    // One caution per screen, dismissible; the whole text behind Details.
+    await expect(page.getByText(/Profiles are conditional on each respondent/)).toBeVisible();
     await page.getByLabel('Split by').selectOption('question');
     const question = page.getByLabel('Question');
     const firstQuestion = await question.locator('option').first().textContent();

@@ -6,6 +6,7 @@ import type { RunResult } from '@shared/schemas/run';
 import { ParameterTable } from '@/features/runs/components/parameter-table';
 import { ImpliedCovariance } from '@/features/runs/components/implied-covariance';
 import { WtpTable } from '@/features/runs/components/wtp-table';
+import { FitStatistics } from '@/features/runs/components/fit-statistics';
 
 afterEach(cleanup);
 
@@ -90,5 +91,27 @@ describe('WtpTable', () => {
     expect(screen.getByRole('columnheader', { name: 'Population mean WTP' })).toBeInTheDocument();
     expect(screen.getByText('−€2.50')).toBeInTheDocument();
     expect(screen.getByText(/conditional-mean WTP is in Tastes/)).toBeInTheDocument();
+  });
+});
+
+describe('FitStatistics', () => {
+  it('names the draws as the run form does and counts choice observations, not tasks', () => {
+    const fitted = {
+      ...results,
+      loglik: -100,
+      loglikNull: -120,
+      respondents: 10,
+      observations: 80,
+      parameters: 3,
+      iterations: 12,
+      convergence: { converged: true, gradientNorm: 1e-6 },
+      converged: true,
+      draws: { type: 'halton', count: 500, seed: 7 },
+      data: { warmupTasksLeftOut: 0, holdoutTasks: 0 },
+    } as unknown as RunResult;
+    render(<FitStatistics results={fitted} />);
+    expect(screen.getByText('500 scrambled Halton, seed 7')).toBeInTheDocument();
+    expect(screen.getByText('Choice observations (respondent × task)')).toBeInTheDocument();
+    expect(screen.queryByText('Choice tasks')).toBeNull();
   });
 });

@@ -149,7 +149,13 @@ export async function runEstimationJob(
         };
         report();
       },
+      onStage: (stage) => {
+        latest = { ...latest, stage, secondsLeft: undefined };
+        report();
+      },
     });
+    latest = { ...latest, stage: 'saving' };
+    report();
     clearInterval(heartbeat);
     await writing;
     if (abort.signal.aborted || (await getRunForJob(deps.db, { id: runId }))?.cancelRequested)

@@ -2,11 +2,12 @@
 import '@testing-library/jest-dom/vitest';
 import { afterEach, describe, expect, it } from 'vitest';
 import { cleanup, render, screen, within } from '@testing-library/react';
-import type { RunResult } from '@shared/schemas/run';
+import type { Run, RunResult } from '@shared/schemas/run';
 import { ParameterTable } from '@/features/runs/components/parameter-table';
 import { ImpliedCovariance } from '@/features/runs/components/implied-covariance';
 import { WtpTable } from '@/features/runs/components/wtp-table';
 import { FitStatistics } from '@/features/runs/components/fit-statistics';
+import { describeRunStage, getConvergenceShare } from '@/features/runs/components/run-progress';
 
 afterEach(cleanup);
 
@@ -113,5 +114,28 @@ describe('FitStatistics', () => {
     expect(screen.getByText('500 scrambled Halton, seed 7')).toBeInTheDocument();
     expect(screen.getByText('Choice observations (respondent × task)')).toBeInTheDocument();
     expect(screen.queryByText('Choice tasks')).toBeNull();
+  });
+});
+
+describe('describeRunStage and getConvergenceShare', () => {
+  const run = (status: string, progress: object) => ({ status, progress }) as unknown as Run;
+  it('names every stage, with the iteration while estimating', () => {
+    expect(describeRunStage(run('queued', {}))).toBe('Waiting for a worker…');
+    expect(describeRunStage(run('running', { stage: 'estimating', iteration: 12 }))).toBe(
+      'Estimating: iteration 12',
+    );
+    expect(describeRunStage(run('running', { stage: 'standard_errors', iteration: 40 }))).toBe(
+      'Computing standard errors…',
+    );
+    expect(describeRunStage(run('running', { stage: 'profiles' }))).toBe(
+      'Computing taste profiles…',
+    );
+    expect(describeRunStage(run('running', { stage: 'saving' }))).toBe('Saving the results…');
+  });
+  it('keeps the bar near full after the optimisation', () => {
+    const shares = ['standard_errors', 'wtp', 'profiles', 'saving'].map((stage) =>
+      getConvergenceShare(run('running', { stage })),
+    );
+    expect(shares).toEqual([0.97, 0.98, 0.99, 1]);
   });
 });

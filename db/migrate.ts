@@ -2,7 +2,7 @@
 import { createDb, migrateDb } from './client';
 import { loadEnv } from '../server/env';
 
-const { db, pool } = createDb(loadEnv().DATABASE_URL, 1);
+const { db, pool } = createDb(loadEnv().DATABASE_URL, 2);
 await migrateDb(db);
 await pool.end();
 console.log('migrations applied');

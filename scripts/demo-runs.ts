@@ -12,59 +12,17 @@
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import type { CurrentUser } from '../shared/schemas/auth';
+import { createJsonClient } from './lib/json-client';
 import type { StudySummary } from '../shared/schemas/study';
-import type { CreateRunInput, Run, RunOptions } from '../shared/schemas/run';
-import {
-  getColumnDefault,
-  getDefaultRunFormValues,
-  toCreateRunInput,
-} from '../src/features/runs/utils/run-form-values';
-
-const DEMO_STUDY_NAME = 'Water service packages 2027–2031';
-// Modest but sound: enough Halton draws for stable estimates of five random tastes on ~400
-// respondents, and quick enough on a two-core machine to finish a few minutes after the start.
-const DRAWS = 200;
-const PROFILE_DRAWS = 1000;
-const SEED = 1;
+import type { Run, RunOptions } from '../shared/schemas/run';
+import { buildDemoRunInput, DEMO_STUDY_NAME } from './lib/demo-run-input';
 
 const root = path.resolve(import.meta.dirname, '..');
-const baseUrl = (process.env.APP_URL ?? 'http://127.0.0.1:5180').replace(/\/+$/, '');
+const baseUrl = process.env.APP_URL ?? 'http://127.0.0.1:5180';
 const credentialsFile =
   process.env.CW_DEMO_CREDENTIALS_FILE ?? path.join(root, '.data', 'demo-credentials.json');
 
 type Credential = { role: string; email: string; password: string };
-
-/** A tiny JSON client that keeps the session cookie the sign-in sets. */
-function createClient() {
-  let cookie = '';
-  return async function request<T>(method: string, url: string, body?: unknown): Promise<T> {
-    const res = await fetch(`${baseUrl}/api${url}`, {
-      method,
-      headers: {
-        Accept: 'application/json',
-        // The server refuses state-changing requests that carry a session without an Origin.
-        Origin: baseUrl,
-        ...(body === undefined ? {} : { 'Content-Type': 'application/json' }),
-        ...(cookie ? { Cookie: cookie } : {}),
-      },
-      body: body === undefined ? undefined : JSON.stringify(body),
-      signal: AbortSignal.timeout(30_000),
-    });
-    const setCookies = res.headers.getSetCookie();
-    if (setCookies.length > 0) cookie = setCookies.map((c) => c.split(';')[0]).join('; ');
-    const text = await res.text();
-    if (!res.ok) {
-      let message = text.slice(0, 300);
-      try {
-        message = (JSON.parse(text) as { error?: { message?: string } }).error?.message ?? message;
-      } catch {
-        // not JSON: keep the raw text
-      }
-      throw new Error(`${method} ${url} answered ${res.status}: ${message}`);
-    }
-    return (text ? JSON.parse(text) : undefined) as T;
-  };
-}
 
 function readAnalyst(): Credential {
   const list = JSON.parse(readFileSync(credentialsFile, 'utf8')) as Credential[];
@@ -73,22 +31,8 @@ function readAnalyst(): Credential {
   return analyst;
 }
 
-/** The form's create-run input for `model`, with its default column choices and our draws. */
-function buildRunInput(options: RunOptions, model: 'mnl' | 'mixed'): CreateRunInput {
-  const values = {
-    ...getDefaultRunFormValues(options),
-    model,
-    columns: options.columns.map((c) => ({ distribution: getColumnDefault(c, model) })),
-    drawsType: 'halton' as const,
-    drawsCount: DRAWS,
-    profileDraws: PROFILE_DRAWS,
-    seed: SEED,
-  };
-  return toCreateRunInput(values, options.columns);
-}
-
 async function startDemoRuns(): Promise<void> {
-  const request = createClient();
+  const request = createJsonClient(baseUrl);
   const analyst = readAnalyst();
   const me = await request<CurrentUser>('POST', '/auth/sign-in', {
     email: analyst.email,
@@ -113,7 +57,7 @@ async function startDemoRuns(): Promise<void> {
     if (!options.columns.some((c) => c.isCost))
       throw new Error('the demo study has no cost column (monthly bill increase)');
     for (const model of ['mnl', 'mixed'] as const) {
-      const run = await request<Run>('POST', runsPath, buildRunInput(options, model));
+      const run = await request<Run>('POST', runsPath, buildDemoRunInput(options, model));
       console.log(
         `  Demo run started: ${run.name} (${run.spec.coefficients.length} coefficients, ` +
           `${options.includedRespondents} respondents); progress in the study's Models section.`,

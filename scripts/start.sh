@@ -1,7 +1,9 @@
 #!/usr/bin/env bash
 # Installs what is missing, starts PostgreSQL and the fake mail server, builds the client,
 # migrates and seeds the demo data, then serves Choicewright on 127.0.0.1 until Ctrl-C
-# (or `npm run stop`), which also stops the mail server and PostgreSQL.
+# (or `npm run stop`), which also stops the mail server and PostgreSQL. A web process that
+# dies is restarted within two seconds (logged in .data/supervisor.log); that never stops
+# PostgreSQL or the mail server.
 set -euo pipefail
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 cd "$ROOT"
@@ -37,20 +39,29 @@ npx vite build --logLevel warn
 echo "== migrating and seeding the demo data"
 npx tsx db/seed.ts
 
+STOPPING=no
 stop_all() {
   trap - INT TERM EXIT
+  STOPPING=yes
   echo
   echo "== stopping"
   [ -n "${SERVER_PID:-}" ] && kill "$SERVER_PID" 2>/dev/null && wait "$SERVER_PID" 2>/dev/null || true
-  rm -f "$ROOT/.data/server.pid"
+  rm -f "$ROOT/.data/server.pid" "$ROOT/.data/start.pid"
   scripts/mail.sh stop 1025 || true
   if [ "$OWN_DATABASE" = yes ]; then env -u DATABASE_URL scripts/pg.sh stop || true; fi
 }
-trap stop_all INT TERM EXIT
+# Ctrl-C or `npm run stop` (SIGTERM to this script) ends everything; the server dying does not.
+trap 'STOPPING=yes; exit 0' INT TERM
+trap stop_all EXIT
+echo $$ > "$ROOT/.data/start.pid"
 
-node --import tsx server/main.ts &
-SERVER_PID=$!
-echo "$SERVER_PID" > "$ROOT/.data/server.pid"
+start_server() {
+  node --import tsx server/main.ts &
+  SERVER_PID=$!
+  echo "$SERVER_PID" > "$ROOT/.data/server.pid"
+}
+
+start_server
 for _ in $(seq 1 100); do curl -fsS -m 2 "http://$HOST:$PORT/api/health" >/dev/null 2>&1 && break; sleep 0.3; done
 npx tsx scripts/demo-runs.ts || true
 cat <<MSG
@@ -60,4 +71,21 @@ cat <<MSG
   Demo sign-ins are listed above (DEMO CREDENTIALS). Press Ctrl-C to stop everything.
 
 MSG
-wait "$SERVER_PID"
+
+# Supervise the web process: if it dies (a crash, an out-of-memory kill), start it again
+# after a second, and log that. PostgreSQL and the mail server keep running meanwhile.
+while [ "$STOPPING" = no ]; do
+  set +e
+  wait "$SERVER_PID"
+  code=$?
+  set -e
+  [ "$STOPPING" = yes ] && break
+  # `wait` also returns when this script receives a signal; only a dead server is restarted.
+  if kill -0 "$SERVER_PID" 2>/dev/null; then continue; fi
+  echo "[supervisor] $(date -u +%FT%TZ) web process $SERVER_PID exited (code $code); restarting in 1 s" \
+    | tee -a "$ROOT/.data/supervisor.log" >&2
+  sleep 1
+  start_server
+  echo "[supervisor] $(date -u +%FT%TZ) web process restarted as $SERVER_PID" \
+    | tee -a "$ROOT/.data/supervisor.log" >&2
+done

@@ -82,6 +82,14 @@ const envSchema = z.object({
   RESPONDENT_SESSION_RATE_LIMIT: z.coerce.number().int().min(1).default(600),
   /** New respondent sessions per 15 minutes per IP (a panel behind one address needs headroom). */
   RESPONDENT_START_RATE_LIMIT: z.coerce.number().int().min(1).default(300),
+
+  // Database faults (db/client.ts): fail fast while PostgreSQL is unreachable, never hang.
+  DB_POOL_SIZE: z.coerce.number().int().min(1).max(500).default(20),
+  DB_CONNECT_TIMEOUT_MS: z.coerce.number().int().min(100).default(5_000),
+  DB_STATEMENT_TIMEOUT_MS: z.coerce.number().int().min(100).default(30_000),
+  DB_IDLE_IN_TRANSACTION_TIMEOUT_MS: z.coerce.number().int().min(100).default(15_000),
+  /** Nice value of design and estimation threads (0 = same priority as requests; 19 lowest). */
+  ENGINE_THREAD_NICE: z.coerce.number().int().min(0).max(19).default(10),
 });
 
 export type Env = z.infer<typeof envSchema> & { JWT_SECRET: string; APP_URL: string };

@@ -1,11 +1,14 @@
 /**
  * The web process: validates configuration, migrates the database, listens. With
- * EMBEDDED_WORKER=true (the default for a single machine) it also runs the job workers;
- * more workers can run elsewhere with `npm run worker`.
+ * EMBEDDED_WORKER=true (the default for a single machine) it also works off the job queue,
+ * with design and estimation on worker threads, never on this thread; more workers can run
+ * elsewhere with `npm run worker`.
  */
 import { loadEnv } from './env';
 import { createLogger } from './lib/logger';
-import { createDb, migrateDb } from '../db/client';
+import { createProcessDb } from './lib/database';
+import { installProcessGuards } from './lib/process-guards';
+import { migrateDb } from '../db/client';
 import { createMailer } from './mail/mailer';
 import { createApp } from './app';
 import { startBackgroundServices } from './jobs/background';
@@ -13,7 +16,8 @@ import { startBackgroundServices } from './jobs/background';
 async function main() {
   const env = loadEnv();
   const logger = createLogger(env.LOG_LEVEL);
-  const { db, pool } = createDb(env.DATABASE_URL, 20);
+  installProcessGuards(logger, 'web process');
+  const { db, pool } = createProcessDb(env, logger, { applicationName: 'choicewright-web' });
   await migrateDb(db);
   const mailer = createMailer(env);
   const deps = { env, db, logger, mailer };
@@ -22,7 +26,7 @@ async function main() {
     embeddedWorker: env.EMBEDDED_WORKER,
   });
   const server = app.listen(env.PORT, env.HOST, () => {
-    logger.info(`Choicewright listening on ${env.APP_URL}`);
+    logger.info({ pid: process.pid }, `Choicewright listening on ${env.APP_URL}`);
   });
   let stopping = false;
   const shutdown = async (signal: string) => {

@@ -1,21 +1,28 @@
 /**
- * `npm run worker`: a process that only runs background jobs (design generation, estimation
- * runs), for when the web process runs with EMBEDDED_WORKER=false or more capacity is needed.
+ * `npm run worker`: a process that only works off the job queue (design generation,
+ * estimation runs, mail), for when the web process runs with EMBEDDED_WORKER=false or more
+ * capacity is needed. Design and estimation run on worker threads here too.
  */
 import { loadEnv } from './env';
 import { createLogger } from './lib/logger';
-import { createDb, migrateDb } from '../db/client';
+import { createProcessDb } from './lib/database';
+import { installProcessGuards } from './lib/process-guards';
+import { migrateDb } from '../db/client';
 import { createMailer } from './mail/mailer';
 import { startBackgroundServices } from './jobs/background';
 
 async function main() {
   const env = loadEnv();
   const logger = createLogger(env.LOG_LEVEL);
-  const { db, pool } = createDb(env.DATABASE_URL, 6);
+  installProcessGuards(logger, 'worker');
+  const { db, pool } = createProcessDb(env, logger, {
+    max: 6,
+    applicationName: 'choicewright-worker',
+  });
   await migrateDb(db);
   const mailer = createMailer(env);
   const stop = await startBackgroundServices({ env, db, logger, mailer }, { embeddedWorker: true });
-  logger.info('Choicewright worker running');
+  logger.info({ pid: process.pid }, 'Choicewright worker running');
   let stopping = false;
   const shutdown = async (signal: string) => {
     if (stopping) return;

@@ -1,7 +1,7 @@
 /** Answers: one row per (respondent, screen); the client-made id makes retries harmless. */
-import { and, asc, eq } from 'drizzle-orm';
+import { and, asc, eq, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
-import { answers } from '../schema/fieldwork';
+import { answers, respondentBlockCounts, respondents } from '../schema/fieldwork';
 
 export const answerColumns = {
   id: answers.id,
@@ -78,4 +78,52 @@ export async function insertAnswers(db: DbOrTx, rows: Parameters<typeof insertAn
     .onConflictDoNothing()
     .returning({ id: answers.id });
   return inserted.length;
+}
+
+/**
+ * The answer, and when it ends the session the respondent's final status, in one statement
+ * (one round trip, atomic). Returns null when the unique index on (respondent, client id) or
+ * (respondent, screen) already has a row: nothing is written then. A respondent who is
+ * screened out or over quota gives their block place back in the same statement.
+ */
+export async function insertAnswerAndFinish(
+  db: DbOrTx,
+  params: Parameters<typeof insertAnswer>[1] & {
+    versionId: string;
+    block: number;
+    finish: { status: 'completed' | 'screened_out' | 'over_quota'; durationMs: number } | null;
+  },
+): Promise<{ id: string } | null> {
+  const { finish } = params;
+  const at = params.createdAt ?? new Date();
+  const r = await db.execute<{ id: string | null }>(sql`
+    with ins as (
+      insert into ${answers} (respondent_id, study_id, client_id, screen_key, task_number,
+                              chosen_alternative, chosen_position, value, response_ms, created_at)
+      values (${params.respondentId}, ${params.studyId}, ${params.clientId}, ${params.screenKey},
+              ${params.taskNumber}, ${params.chosenAlternative}, ${params.chosenPosition},
+              ${JSON.stringify(params.value)}::jsonb, ${params.responseMs}, ${at.toISOString()})
+      on conflict do nothing
+      returning id
+    )${
+      finish
+        ? sql`, fin as (
+      update ${respondents} set status = ${finish.status}, finished_at = ${at.toISOString()},
+             duration_ms = ${finish.durationMs}
+       where id = ${params.respondentId} and status = 'in_progress' and exists (select 1 from ins)
+      returning id
+    )${
+      finish.status === 'completed'
+        ? sql``
+        : sql`, freed as (
+      update ${respondentBlockCounts}
+         set filling[${params.block}::int] = greatest(filling[${params.block}::int] - 1, 0)
+       where version_id = ${params.versionId} and exists (select 1 from fin)
+    )`
+    }`
+        : sql``
+    }
+    select (select id from ins) as id`);
+  const id = r.rows[0]?.id;
+  return id ? { id } : null;
 }

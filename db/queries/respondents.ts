@@ -1,5 +1,5 @@
 /** Respondents (one per answering session) and what the respondent link needs to find. */
-import { and, count, eq, inArray, sql } from 'drizzle-orm';
+import { and, count, eq, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { studies } from '../schema/studies';
 import { invitees, respondents } from '../schema/fieldwork';
@@ -100,6 +100,7 @@ export async function getRespondentByInvitee(
   return (row as RespondentRow | undefined) ?? null;
 }
 
+/** Ends a session; with onlyInProgress, only one still answering (null if it had ended). */
 export async function finishRespondent(
   db: DbOrTx,
   params: {
@@ -107,33 +108,35 @@ export async function finishRespondent(
     status: 'completed' | 'screened_out' | 'over_quota';
     finishedAt: Date;
     durationMs: number;
+    onlyInProgress?: boolean;
   },
 ) {
   const [row] = await db
     .update(respondents)
     .set({ status: params.status, finishedAt: params.finishedAt, durationMs: params.durationMs })
-    .where(eq(respondents.id, params.id))
-    .returning(respondentColumns);
-  return row as RespondentRow;
-}
-
-/** Respondents per block of one version who still count toward filling it. */
-export async function countFillingByBlock(
-  db: DbOrTx,
-  params: { studyId: string; versionId: string },
-) {
-  const rows = await db
-    .select({ block: respondents.block, n: count() })
-    .from(respondents)
     .where(
       and(
-        eq(respondents.studyId, params.studyId),
-        eq(respondents.versionId, params.versionId),
-        inArray(respondents.status, ['in_progress', 'completed']),
+        eq(respondents.id, params.id),
+        params.onlyInProgress ? eq(respondents.status, 'in_progress') : undefined,
       ),
     )
-    .groupBy(respondents.block);
-  return new Map(rows.map((r) => [r.block, Number(r.n)]));
+    .returning(respondentColumns);
+  return (row as RespondentRow | undefined) ?? null;
+}
+
+/** A respondent's status and answers (the rare path: a write the unique indexes refused). */
+export async function getRespondentAnswerState(db: DbOrTx, params: { respondentId: string }) {
+  const [row] = await db
+    .select({
+      status: respondents.status,
+      answers: sql<Array<{ clientId: string; screenKey: string; value: unknown }>>`coalesce(
+        (select json_agg(json_build_object('clientId', a.client_id, 'screenKey', a.screen_key,
+                'value', a.value)) from answers a where a.respondent_id = respondents.id),
+        '[]'::json)`,
+    })
+    .from(respondents)
+    .where(eq(respondents.id, params.respondentId));
+  return row ?? null;
 }
 
 export async function countCompletes(db: DbOrTx, params: { studyId: string }) {
@@ -142,11 +145,6 @@ export async function countCompletes(db: DbOrTx, params: { studyId: string }) {
     .from(respondents)
     .where(and(eq(respondents.studyId, params.studyId), eq(respondents.status, 'completed')));
   return Number(row?.n ?? 0);
-}
-
-/** Serialises block assignment within one study (released at the end of the transaction). */
-export async function lockStudyAssignment(db: DbOrTx, params: { studyId: string }) {
-  await db.execute(sql`select pg_advisory_xact_lock(hashtext(${params.studyId}))`);
 }
 
 /** The respondent's own study (the id comes from their link), as answers need it. */
@@ -161,4 +159,42 @@ export async function getStudyForAnswers(db: DbOrTx, params: { id: string }) {
     .from(studies)
     .where(eq(studies.id, params.id));
   return row ?? null;
+}
+
+/**
+ * Everything saving an answer needs, in one round trip: the study behind the link, the
+ * respondent holding the session token (null when the token is not theirs), and the screens
+ * they have answered. Read without locks; the write that follows is guarded by unique indexes.
+ */
+export async function getAnswerContext(
+  db: DbOrTx,
+  params: ({ publicId: string } | { studyId: string }) & { sessionToken: string },
+) {
+  const [row] = await db
+    .select({
+      study: {
+        id: studies.id,
+        teamId: studies.teamId,
+        status: studies.status,
+        settings: studies.settings,
+        archivedAt: studies.archivedAt,
+      },
+      respondent: respondentColumns,
+      answered: sql<string[]>`coalesce((select array_agg(a.screen_key) from answers a
+        where a.respondent_id = respondents.id), '{}')`,
+    })
+    .from(studies)
+    .leftJoin(
+      respondents,
+      and(eq(respondents.studyId, studies.id), eq(respondents.sessionToken, params.sessionToken)),
+    )
+    .where(
+      'publicId' in params ? eq(studies.publicId, params.publicId) : eq(studies.id, params.studyId),
+    );
+  if (!row) return null;
+  return {
+    study: row.study,
+    respondent: row.respondent as RespondentRow | null,
+    answered: new Set(row.answered ?? []),
+  };
 }

@@ -28,6 +28,20 @@ export async function lockStudy(db: DbOrTx, params: { id: string; teamId: string
   return row ?? null;
 }
 
+/**
+ * Locks a study row for a completion under a quota. FOR NO KEY UPDATE, not FOR UPDATE: answers
+ * and respondents being inserted meanwhile hold FOR KEY SHARE on the same row through their
+ * foreign keys and must not wait for it.
+ */
+export async function lockStudyForCompletion(db: DbOrTx, params: { id: string }) {
+  const [row] = await db
+    .select(studyColumns)
+    .from(studies)
+    .where(eq(studies.id, params.id))
+    .for('no key update');
+  return row ?? null;
+}
+
 export async function getDesignDocument(db: DbOrTx, params: { id: string; studyId: string }) {
   const [row] = await db
     .select({ id: designs.id, design: designs.design })
@@ -39,6 +53,17 @@ export async function getDesignDocument(db: DbOrTx, params: { id: string; studyI
 export async function getLatestVersion(db: DbOrTx, params: { studyId: string }) {
   const [row] = await db
     .select(versionColumns)
+    .from(studyVersions)
+    .where(eq(studyVersions.studyId, params.studyId))
+    .orderBy(desc(studyVersions.version))
+    .limit(1);
+  return row ?? null;
+}
+
+/** The id of the study's latest version (without its documents). */
+export async function getLatestVersionId(db: DbOrTx, params: { studyId: string }) {
+  const [row] = await db
+    .select({ id: studyVersions.id, version: studyVersions.version })
     .from(studyVersions)
     .where(eq(studyVersions.studyId, params.studyId))
     .orderBy(desc(studyVersions.version))

@@ -106,3 +106,19 @@ export const answers = pgTable(
     index('answers_study_idx').on(t.studyId),
   ],
 );
+
+/**
+ * How many respondents of each block of a version still count toward filling it (in progress
+ * or completed): filling[b - 1] for block b. One row per version is one atomic counter:
+ * session start takes the least-filled block in a single UPDATE of this row (its lock lasts
+ * that statement), instead of counting respondents under a study-wide lock; a respondent who
+ * is screened out or over quota gives the place back.
+ */
+export const respondentBlockCounts = pgTable('respondent_block_counts', {
+  versionId: uuid('version_id')
+    .primaryKey()
+    .references(() => studyVersions.id, { onDelete: 'cascade' }),
+  filling: integer('filling').array().notNull(),
+  /** The block the latest assignment took (read back by that UPDATE's RETURNING). */
+  lastBlock: integer('last_block').notNull().default(0),
+});

@@ -10,6 +10,7 @@ import type { AppDeps } from '../../server/deps';
 import { closeStudy, goLive } from '../../server/services/lifecycle';
 import { createRespondent } from '../../server/services/respondent-session';
 import { saveAnswer } from '../../server/services/answers';
+import { resetBlockCounts } from '../queries/respondent-blocks';
 import { saveQuestionnaire } from '../../server/services/questionnaire';
 import { buildScreens, loadFrozenVersion } from '../../server/services/respondent-screens';
 import { createRespondentPlan } from '../../server/services/respondent-plan';
@@ -112,7 +113,10 @@ export async function ensureDemoResponses(
   const total = DEMO_TRUTH.completes + DEMO_TRUTH.dropouts;
   const existing = await countSimulatedRespondents(db, { studyId });
   if (existing === total && study.status === 'closed') return { created: 0, total };
-  if (existing > 0) await deleteSimulatedRespondents(db, { studyId });
+  if (existing > 0) {
+    await deleteSimulatedRespondents(db, { studyId });
+    await resetBlockCounts(db, { studyId });
+  }
 
   const deps = depsFor(db);
   const { start, end } = fieldworkWindow();

@@ -149,7 +149,7 @@ export function createDesignJobKind() {
     schema: designJobDataSchema,
     expireInMinutes: 60,
     handle: async (data, { deps }) => {
-      pool ??= createDesignPool({ maxThreads: 1 });
+      pool ??= createDesignPool({ maxThreads: 1, nice: deps.env.ENGINE_THREAD_NICE });
       await runDesignJob(deps, pool, data.designJobId);
     },
     sweep: async (deps) => {

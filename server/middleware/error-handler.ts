@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError } from 'zod';
 import { AppError } from '../lib/errors';
+import { DATABASE_RETRY_AFTER_SECONDS, isDatabaseUnavailable } from '../lib/db-errors';
 
 export const notFoundHandler: RequestHandler = (_req, res) => {
   res.status(404).json({ error: { code: 'not_found', message: 'No such API route.' } });
@@ -42,8 +43,26 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     });
     return;
   }
+  if (isDatabaseUnavailable(err)) {
+    // Nothing was stored (or the write was idempotent): the client may simply try again.
+    req.log?.warn({ code: rootCode(err) }, 'database unavailable');
+    res.set('Retry-After', String(DATABASE_RETRY_AFTER_SECONDS));
+    res.status(503).json({
+      error: {
+        code: 'service_unavailable',
+        message: 'The service is briefly unavailable. Please try again in a moment.',
+      },
+    });
+    return;
+  }
   req.log?.error({ err }, 'unhandled error');
   res
     .status(500)
     .json({ error: { code: 'internal', message: 'Something went wrong on our side.' } });
 };
+
+function rootCode(err: unknown): string | undefined {
+  let e = err as { code?: string; cause?: unknown } | undefined;
+  while (e?.cause) e = e.cause as typeof e;
+  return e?.code;
+}

@@ -1,39 +1,47 @@
 /**
- * Saving one answer. The step runs in one transaction with the respondent's row locked, and
- * the answer is committed before the reply leaves: a retry with the same client id finds the
- * stored row and gets the same receipt; nothing is ever written twice. Answers must follow the
- * screens in order; a finished respondent cannot add more.
+ * Saving one answer: the fast path of fieldwork. One read gathers the study, the respondent
+ * and the screens they have answered; the checks run on the cached frozen version and the
+ * respondent's cached screens; one statement then stores the answer (and, on the last screen
+ * or a screening-out answer, the respondent's final status). Nothing is locked and nothing is
+ * read to decide whether an answer is new: the unique indexes on (respondent, client id) and
+ * (respondent, screen) decide, and only when they refuse a write is the stored row read, to
+ * tell a retry (same receipt again) from a conflict (409). Answers follow the screens in
+ * order, so the answered screens are always the first ones and the last screen completes.
+ * Completing in a study with a quota of completes takes the quota lock (answer-quota.ts).
  */
 import type { AppDeps } from '../deps';
 import type { Db } from '../../db/client';
 import { AppError, ConflictError, NotFoundError, ValidationError } from '../lib/errors';
-import {
-  finishRespondent,
-  getRespondentByToken,
-  getStudyByPublicId,
-  getStudyForAnswers,
-  type RespondentRow,
-} from '../../db/queries/respondents';
-import { getAnswerByClientId, insertAnswer, listAnsweredKeys } from '../../db/queries/answers';
-import {
-  respondentPlanSchema,
-  type AnswerReceipt,
-  type AnswerValue,
-  type RespondentScreen,
+import { finishRespondent, getAnswerContext } from '../../db/queries/respondents';
+import { insertAnswerAndFinish } from '../../db/queries/answers';
+import { releaseBlock } from '../../db/queries/respondent-blocks';
+import type {
+  AnswerReceipt,
+  AnswerValue,
+  RespondentScreen,
+  RespondentStatus,
 } from '../../shared/schemas/respondent';
-import { screenKeys, type QuestionnairePage } from '../../shared/schemas/questionnaire';
 import { closeIfDue, readSettings } from './lifecycle';
 import { redirectFor } from './respondent-session';
-import { buildScreens, loadFrozenVersion, type FrozenVersion } from './respondent-screens';
+import { loadFrozenVersion } from './respondent-screens';
+import { pageOfScreen, screensOfRespondent } from './respondent-screen-index';
 import { repeatedTaskNumber } from './respondent-plan';
 import { checkAnswerValue, screensOut } from './answer-rules';
+import { resolveRefusedAnswer } from './answer-conflicts';
+import { completeUnderQuota } from './answer-quota';
+import { judgeLateAnswer, type LateAnswerVerdict } from './late-answers';
 
 export type AnswerInput = {
   clientId: string;
   screenKey: string;
   value: AnswerValue;
   responseMs: number;
+  /** How long ago the phone says the answer was given (late-answers.ts). */
+  ageMs?: number;
 };
+
+export type AnswerContext = NonNullable<Awaited<ReturnType<typeof getAnswerContext>>>;
+type Respondent = NonNullable<AnswerContext['respondent']>;
 
 /** Row columns of an answer: choice tasks map the on-screen position back to the design. */
 function answerColumnsFor(
@@ -57,165 +65,149 @@ function answerColumnsFor(
   };
 }
 
-/** The questionnaire page a (non-design-task) screen comes from. */
-function pageOf(version: FrozenVersion, screenKey: string): QuestionnairePage | undefined {
-  return version.questionnaire.pages.find((p) => {
-    switch (p.kind) {
-      case 'consent':
-        return screenKey === screenKeys.consent();
-      case 'question':
-      case 'screening':
-        return screenKey === screenKeys.question(p.question.key);
-      case 'instructions':
-        return screenKey === screenKeys.instructions(p.id);
-      case 'warmup':
-      case 'holdout':
-      case 'repeat':
-      case 'dominance':
-        return screenKey === screenKeys.special(p.kind, p.id);
-      default:
-        return false;
-    }
-  });
-}
+const closedMessages: Record<LateAnswerVerdict, string> = {
+  accept: '',
+  not_closed: 'This survey has closed; answers are no longer accepted.',
+  given_after_close:
+    'This survey closed before this answer was given, so it cannot be added. Thank you for your time.',
+  grace_over:
+    'This survey closed too long ago: answers given before the close could be sent for a limited time only.',
+};
 
-const closedError = (status: string) =>
+const closedError = (status: string, verdict: LateAnswerVerdict) =>
   status === 'draft'
     ? new AppError(409, 'survey_not_open', 'This survey is not open; answers are not accepted.')
-    : new AppError(410, 'survey_closed', 'This survey has closed; answers are no longer accepted.');
+    : new AppError(410, 'survey_closed', closedMessages[verdict]);
 
-type Outcome = { receipt: AnswerReceipt; completed: boolean } | { refuse: AppError };
+const overQuotaError = () =>
+  new AppError(
+    410,
+    'over_quota',
+    'This survey has all the answers it needs. Thank you for your time.',
+  );
+
+/** A session that is still answering, in a study that has stopped taking answers. */
+async function refuseClosed(
+  db: Db,
+  ctx: AnswerContext,
+  respondent: Respondent,
+  now: Date,
+  verdict: LateAnswerVerdict,
+): Promise<never> {
+  const settings = readSettings(ctx.study.settings);
+  if (ctx.study.status === 'closed' && settings.closedReason === 'quota') {
+    const ended = await finishRespondent(db, {
+      id: respondent.id,
+      status: 'over_quota',
+      finishedAt: now,
+      durationMs: now.getTime() - respondent.startedAt.getTime(),
+      onlyInProgress: true,
+    });
+    if (ended) await releaseBlock(db, { versionId: respondent.versionId, block: respondent.block });
+    throw overQuotaError();
+  }
+  throw closedError(ctx.study.status, verdict);
+}
 
 /**
- * Records one answer for the respondent holding `sessionToken` in study `studyId`. The
- * respondent API and the demo seed both come through here.
+ * Records one answer for the respondent holding `sessionToken`. The respondent API and the
+ * demo seed both come through here.
  */
 export async function saveAnswer(
   db: Db,
-  params: { studyId: string; sessionToken: string; answer: AnswerInput; now?: Date },
+  params: ({ studyId: string } | { publicId: string }) & {
+    sessionToken: string;
+    answer: AnswerInput;
+    now?: Date;
+  },
 ): Promise<AnswerReceipt> {
   const now = params.now ?? new Date();
   const { answer } = params;
-  const before = await getStudyForAnswers(db, { id: params.studyId });
-  if (!before) throw new NotFoundError('Survey');
-  const closeAt = readSettings(before.settings).closeAt;
-  if (before.status === 'live' && closeAt && new Date(closeAt) <= now)
-    await closeIfDue(db, before, now);
+  let ctx = await getAnswerContext(db, params);
+  if (!ctx || ctx.study.archivedAt)
+    throw new AppError(404, 'survey_not_found', 'This survey link does not exist.');
+  const respondent = ctx.respondent;
+  if (!respondent) throw new NotFoundError('Session');
 
-  const outcome: Outcome = await db.transaction(async (tx) => {
-    const respondent = await getRespondentByToken(tx, {
-      studyId: params.studyId,
-      sessionToken: params.sessionToken,
-      forUpdate: true,
-    });
-    if (!respondent) throw new NotFoundError('Session');
-    const study = (await getStudyForAnswers(tx, { id: params.studyId }))!;
-    const settings = readSettings(study.settings);
-    const version = await loadFrozenVersion(tx, { id: respondent.versionId, studyId: study.id });
-    const plan = respondentPlanSchema.parse(respondent.plan);
-    const screens = buildScreens(version, plan);
-    const answered = await listAnsweredKeys(tx, { respondentId: respondent.id });
-    const receipt = (status: RespondentRow['status'], replay: boolean): AnswerReceipt => ({
-      screenKey: answer.screenKey,
-      nextScreenKey:
-        status === 'in_progress' ? (screens.find((s) => !answered.has(s.key))?.key ?? null) : null,
-      status,
-      redirectUrl: redirectFor(settings, status, respondent.externalId),
-      replay,
-    });
-
-    const earlier = await getAnswerByClientId(tx, {
-      respondentId: respondent.id,
-      clientId: answer.clientId,
-    });
-    if (earlier) {
-      if (earlier.screenKey !== answer.screenKey)
-        throw new ConflictError(
-          'client_id_reused',
-          'This answer id was already used for another screen.',
-        );
-      return { receipt: receipt(respondent.status, true), completed: false };
-    }
-    if (respondent.status === 'completed')
-      throw new ConflictError(
-        'already_completed',
-        'This questionnaire is complete; no more answers can be added.',
-      );
-    if (respondent.status !== 'in_progress')
-      throw new ConflictError(
-        'already_finished',
-        'This session has ended; no more answers can be added.',
-      );
-    if (study.status !== 'live') {
-      if (study.status === 'closed' && settings.closedReason === 'quota') {
-        const durationMs = now.getTime() - respondent.startedAt.getTime();
-        await finishRespondent(tx, {
-          id: respondent.id,
-          status: 'over_quota',
-          finishedAt: now,
-          durationMs,
-        });
-        return {
-          refuse: new AppError(
-            410,
-            'over_quota',
-            'This survey has all the answers it needs. Thank you for your time.',
-          ),
-        };
-      }
-      throw closedError(study.status);
-    }
-
-    const screen = screens.find((s) => s.key === answer.screenKey);
-    if (!screen)
-      throw new ValidationError(
-        'This screen is not part of your questionnaire.',
-        [{ path: 'screenKey', message: 'Unknown screen' }],
-        'unknown_screen',
-      );
-    if (answered.has(answer.screenKey))
-      throw new ConflictError(
-        'already_answered',
-        'This screen already has an answer; it cannot be changed.',
-      );
-    const expected = screens.find((s) => !answered.has(s.key))!;
-    if (expected.key !== answer.screenKey)
-      throw new ConflictError(
-        'out_of_order',
-        `Answer the screens in order; the next one is "${expected.key}".`,
-        [{ path: 'screenKey', message: `Expected ${expected.key}` }],
-      );
-    checkAnswerValue(screen, answer.value);
-
-    const page = pageOf(version, screen.key);
-    const repeatOf = page?.kind === 'repeat' ? repeatedTaskNumber(plan, page.repeatOf) : null;
-    const inserted = await insertAnswer(tx, {
-      respondentId: respondent.id,
-      studyId: study.id,
-      clientId: answer.clientId,
-      screenKey: answer.screenKey,
-      responseMs: answer.responseMs,
-      createdAt: now,
-      ...answerColumnsFor(screen, answer.value, repeatOf),
-    });
-    if (!inserted)
-      throw new ConflictError('already_answered', 'This screen already has an answer.');
-    answered.add(answer.screenKey);
-
-    let status: RespondentRow['status'] = 'in_progress';
-    if (page && screensOut(page, answer.value)) status = 'screened_out';
-    else if (screens.every((s) => answered.has(s.key))) status = 'completed';
-    if (status !== 'in_progress') {
-      const durationMs = now.getTime() - respondent.startedAt.getTime();
-      await finishRespondent(tx, { id: respondent.id, status, finishedAt: now, durationMs });
-    }
-    return { receipt: receipt(status, false), completed: status === 'completed' };
+  const version = await loadFrozenVersion(db, { id: respondent.versionId, studyId: ctx.study.id });
+  const { screens, plan } = screensOfRespondent(version, respondent);
+  const settings = readSettings(ctx.study.settings);
+  const receipt = (status: RespondentStatus, replay: boolean, answered: number): AnswerReceipt => ({
+    screenKey: answer.screenKey,
+    nextScreenKey: status === 'in_progress' ? (screens[answered]?.key ?? null) : null,
+    status,
+    redirectUrl: redirectFor(settings, status, respondent.externalId),
+    replay,
   });
-  if ('refuse' in outcome) throw outcome.refuse;
-  // The quota counts committed completes, so it is checked after this one is committed.
-  if (outcome.completed && readSettings(before.settings).quotaCompletes !== null)
-    await closeIfDue(db, before, now);
-  return outcome.receipt;
+  const refused = () => resolveRefusedAnswer(db, { respondent, answer, screens, receipt });
+
+  // A screen already answered, or a session already over: only a retry can be right.
+  if (ctx.answered.has(answer.screenKey) || respondent.status !== 'in_progress') return refused();
+
+  // A passed closing date closes the study now, even if the periodic check has not run yet.
+  if (ctx.study.status === 'live' && settings.closeAt && new Date(settings.closeAt) <= now) {
+    const reason = await closeIfDue(db, ctx.study, now);
+    const closed = { ...settings, closedReason: reason ?? 'date', closedAt: now.toISOString() };
+    ctx = { ...ctx, study: { ...ctx.study, status: 'closed', settings: closed } };
+  }
+  // A closed study still takes answers given before its close, for a grace period.
+  if (ctx.study.status !== 'live') {
+    const verdict = judgeLateAnswer({
+      status: ctx.study.status,
+      settings: readSettings(ctx.study.settings),
+      startedAt: respondent.startedAt,
+      ageMs: answer.ageMs,
+      now,
+    });
+    if (verdict !== 'accept') return refuseClosed(db, ctx, respondent, now, verdict);
+  }
+
+  const index = screens.findIndex((s) => s.key === answer.screenKey);
+  if (index < 0)
+    throw new ValidationError(
+      'This screen is not part of your questionnaire.',
+      [{ path: 'screenKey', message: 'Unknown screen' }],
+      'unknown_screen',
+    );
+  const expected = screens.find((s) => !ctx!.answered.has(s.key))!;
+  if (expected.key !== answer.screenKey)
+    throw new ConflictError(
+      'out_of_order',
+      `Answer the screens in order; the next one is "${expected.key}".`,
+      [{ path: 'screenKey', message: `Expected ${expected.key}` }],
+    );
+  const screen = screens[index];
+  checkAnswerValue(screen, answer.value);
+
+  const page = pageOfScreen(version, screen.key);
+  const repeatOf = page?.kind === 'repeat' ? repeatedTaskNumber(plan, page.repeatOf) : null;
+  const row = {
+    respondentId: respondent.id,
+    studyId: ctx.study.id,
+    versionId: respondent.versionId,
+    block: respondent.block,
+    clientId: answer.clientId,
+    screenKey: answer.screenKey,
+    responseMs: answer.responseMs,
+    createdAt: now,
+    ...answerColumnsFor(screen, answer.value, repeatOf),
+  };
+  const durationMs = now.getTime() - respondent.startedAt.getTime();
+  let status: RespondentStatus = 'in_progress';
+  if (page && screensOut(page, answer.value)) status = 'screened_out';
+  else if (index === screens.length - 1) status = 'completed';
+
+  if (status === 'completed' && settings.quotaCompletes !== null) {
+    const outcome = await completeUnderQuota(db, { studyId: ctx.study.id, row, durationMs, now });
+    if (!outcome) return refused();
+    return receipt(outcome, false, index + 1);
+  }
+  const stored = await insertAnswerAndFinish(db, {
+    ...row,
+    finish: status === 'in_progress' ? null : { status, durationMs },
+  });
+  if (!stored) return refused();
+  return receipt(status, false, index + 1);
 }
 
 /** The respondent API's entry: the public id names the study, the token the session. */
@@ -225,8 +217,5 @@ export async function submitAnswer(
   sessionToken: string,
   answer: AnswerInput,
 ): Promise<AnswerReceipt> {
-  const study = await getStudyByPublicId(deps.db, { publicId });
-  if (!study || study.archivedAt)
-    throw new AppError(404, 'survey_not_found', 'This survey link does not exist.');
-  return saveAnswer(deps.db, { studyId: study.id, sessionToken, answer });
+  return saveAnswer(deps.db, { publicId, sessionToken, answer });
 }

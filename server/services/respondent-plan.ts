@@ -1,7 +1,8 @@
 /**
- * Per-respondent randomisation: the block (the least-filled one), the order of the block's
- * tasks, and the on-screen position of every alternative. Everything comes from one stored
- * seed, so a plan can be rebuilt and checked; the plan itself is stored in respondents.plan.
+ * Per-respondent randomisation: the order of the block's tasks and the on-screen position of
+ * every alternative (the block itself comes from db/queries/respondent-blocks.ts). Everything
+ * comes from one stored seed, so a plan can be rebuilt and checked; the plan itself is stored
+ * in respondents.plan.
  */
 import { createSeededRandom, type SeededRandom } from '../engine/design/seeded-random';
 import type { Design } from '../../shared/schemas/design';
@@ -9,16 +10,6 @@ import type { Questionnaire } from '../../shared/schemas/questionnaire';
 import { screenKeys } from '../../shared/schemas/questionnaire';
 import type { RespondentPlan } from '../../shared/schemas/respondent';
 import type { StudyDefinition } from '../../shared/schemas/study-definition';
-
-/** The block with the fewest respondents so far; ties go to the lowest block number. */
-export function chooseLeastFilledBlock(
-  blocks: number,
-  filled: ReadonlyMap<number, number>,
-): number {
-  let best = 1;
-  for (let b = 2; b <= blocks; b++) if ((filled.get(b) ?? 0) < (filled.get(best) ?? 0)) best = b;
-  return best;
-}
 
 function shuffled(random: SeededRandom, values: number[]): number[] {
   const out = [...values];

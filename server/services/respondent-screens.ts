@@ -199,12 +199,14 @@ export function buildSurveyView(
   version: FrozenVersion,
   plan: RespondentPlan,
   studyName: string,
+  /** The plan's screens when the caller already holds them (the per-respondent cache). */
+  screens: RespondentScreen[] = buildScreens(version, plan),
 ): SurveyView {
   const { attributes, alternatives, fixedAlternative } = version.definition;
   return {
     studyName,
     definition: { attributes, alternatives, fixedAlternative },
-    screens: buildScreens(version, plan),
+    screens,
     end: endPageOf(version.questionnaire),
   };
 }

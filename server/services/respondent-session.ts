@@ -9,28 +9,27 @@ import type { DbOrTx } from '../../db/client';
 import { AppError, NotFoundError } from '../lib/errors';
 import { toDeviceClass } from '../lib/device-class';
 import {
-  countFillingByBlock,
   getInviteeByToken,
   getRespondentByInvitee,
   getRespondentByToken,
   getStudyByPublicId,
   insertRespondent,
-  lockStudyAssignment,
   type RespondentRow,
 } from '../../db/queries/respondents';
-import { getLatestVersion } from '../../db/queries/versions';
+import { getLatestVersionId } from '../../db/queries/versions';
+import { assignBlock, releaseBlock } from '../../db/queries/respondent-blocks';
 import { listAnsweredKeys } from '../../db/queries/answers';
 import type { FieldworkSettings } from '../../shared/schemas/study-lifecycle';
 import {
-  respondentPlanSchema,
   type RespondentSession,
   type RespondentStatus,
   type StartSessionInput,
   type SurveyLinkInfo,
 } from '../../shared/schemas/respondent';
 import { closeIfDue, dueCloseReason, readSettings } from './lifecycle';
-import { chooseLeastFilledBlock, createRespondentPlan } from './respondent-plan';
+import { createRespondentPlan } from './respondent-plan';
 import { buildSurveyView, loadFrozenVersion } from './respondent-screens';
+import { screensOfRespondent } from './respondent-screen-index';
 
 type PublicStudy = NonNullable<Awaited<ReturnType<typeof getStudyByPublicId>>>;
 
@@ -110,8 +109,8 @@ function assertOpen(study: PublicStudy): void {
 }
 
 /**
- * Makes a respondent of the study's current version: the least-filled block (assignment is
- * serialised per study), a plan from a fresh seed, and a secret session token.
+ * Makes a respondent of the study's current version: a place in the least-filled block (an
+ * atomic counter, no study-wide lock), a plan from a fresh seed, and a secret session token.
  */
 export async function createRespondent(
   db: DbOrTx,
@@ -125,23 +124,18 @@ export async function createRespondent(
     simulatedTruth?: unknown;
   },
 ): Promise<{ respondent: RespondentRow; sessionToken: string }> {
-  const run = async (tx: DbOrTx) => {
-    await lockStudyAssignment(tx, { studyId: params.studyId });
-    const latest = await getLatestVersion(tx, { studyId: params.studyId });
-    if (!latest) throw new AppError(409, 'survey_not_open', 'This survey is not open yet.');
-    const version = await loadFrozenVersion(tx, { id: latest.id, studyId: params.studyId });
-    const filled = await countFillingByBlock(tx, {
-      studyId: params.studyId,
-      versionId: version.id,
-    });
-    const block = chooseLeastFilledBlock(version.design.blocks, filled);
+  const latest = await getLatestVersionId(db, { studyId: params.studyId });
+  if (!latest) throw new AppError(409, 'survey_not_open', 'This survey is not open yet.');
+  const version = await loadFrozenVersion(db, { id: latest.id, studyId: params.studyId });
+  const block = await assignBlock(db, { versionId: version.id, blocks: version.design.blocks });
+  try {
     const plan = createRespondentPlan({
       ...version,
       block,
       seed: params.seed ?? randomInt(2 ** 31),
     });
     const sessionToken = createSessionToken();
-    const respondent = await insertRespondent(tx, {
+    const respondent = await insertRespondent(db, {
       studyId: params.studyId,
       versionId: version.id,
       sessionToken,
@@ -155,19 +149,25 @@ export async function createRespondent(
       ...(params.simulatedTruth !== undefined ? { simulatedTruth: params.simulatedTruth } : {}),
     });
     return { respondent, sessionToken };
-  };
-  return db.transaction(run);
+  } catch (err) {
+    // The place was taken for a respondent that does not exist: give it back.
+    await releaseBlock(db, { versionId: version.id, block }).catch(() => {});
+    throw err;
+  }
 }
 
 export async function buildSession(
   db: DbOrTx,
   study: { id: string; publicTitle: string; status: string; settings: unknown },
   respondent: RespondentRow,
+  opts: { isNew?: boolean } = {},
 ): Promise<RespondentSession> {
   const version = await loadFrozenVersion(db, { id: respondent.versionId, studyId: study.id });
-  const plan = respondentPlanSchema.parse(respondent.plan);
-  const survey = buildSurveyView(version, plan, study.publicTitle);
-  const answeredKeys = await listAnsweredKeys(db, { respondentId: respondent.id });
+  const { screens, plan } = screensOfRespondent(version, respondent);
+  const survey = buildSurveyView(version, plan, study.publicTitle, screens);
+  const answeredKeys = opts.isNew
+    ? new Set<string>()
+    : await listAnsweredKeys(db, { respondentId: respondent.id });
   return {
     sessionToken: respondent.sessionToken,
     ...survey,
@@ -192,14 +192,16 @@ export async function startSession(
   input: Required<Pick<StartSessionInput, 'params' | 'device'>> & { sessionToken?: string },
 ): Promise<RespondentSession> {
   const study = await findPublicStudy(deps, publicId);
-  assertOpen(study);
   if (input.sessionToken) {
     const mine = await getRespondentByToken(deps.db, {
       studyId: study.id,
       sessionToken: input.sessionToken,
     });
-    if (mine) return buildSession(deps.db, study, mine);
+    // A closed study still resumes this phone's own session: its outbox may hold answers
+    // given before the close, which the grace period accepts (late-answers.ts).
+    if (mine && linkState(study) !== 'not_open') return buildSession(deps.db, study, mine);
   }
+  assertOpen(study);
   const settings = readSettings(study.settings);
   let invitee: { id: string; externalId: string | null } | null = null;
   const inviteToken = input.params.inv;
@@ -223,7 +225,7 @@ export async function startSession(
     externalId: input.params[settings.panelParam] ?? invitee?.externalId ?? null,
     device: input.device,
   });
-  return buildSession(deps.db, study, respondent);
+  return buildSession(deps.db, study, respondent, { isNew: true });
 }
 
 export async function getSession(deps: AppDeps, publicId: string, sessionToken: string) {

@@ -67,6 +67,18 @@ export const submitAnswerSchema = z.object({
     .int()
     .min(0)
     .max(24 * 3600 * 1000),
+  /**
+   * How long ago, by the phone's own clock, the answer was given (it may have waited in the
+   * phone's outbox). A difference of two readings of one clock, so a wrong phone clock does
+   * not matter; the server subtracts it from the arrival time to tell answers given before a
+   * close from answers given after it.
+   */
+  ageMs: z
+    .number()
+    .int()
+    .min(0)
+    .max(60 * 24 * 3600 * 1000)
+    .optional(),
 });
 export type SubmitAnswerInput = z.input<typeof submitAnswerSchema>;
 

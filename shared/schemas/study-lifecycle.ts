@@ -5,6 +5,9 @@
  */
 import { z } from 'zod';
 
+/** Hours after a close during which answers given before it are still accepted (up to 30 days). */
+const lateAnswerGraceHours = z.number().int().min(0).max(720);
+
 const redirectUrl = z
   .string()
   .trim()
@@ -33,6 +36,13 @@ export const fieldworkSettingsSchema = z.looseObject({
       overQuota: redirectUrl.default(null),
     })
     .default({ complete: null, screenedOut: null, overQuota: null }),
+  /**
+   * Answers given before the close (offline, or stuck in a phone's outbox) are still accepted
+   * this many hours after it, from sessions that started while the study was live.
+   */
+  lateAnswerGraceHours: lateAnswerGraceHours.default(24),
+  /** A returning panel id resumes its own session instead of starting a second respondent. */
+  dedupePanelIds: z.boolean().default(true),
   closedReason: closedReasonSchema.nullable().default(null),
   closedAt: z.string().nullable().default(null),
 });
@@ -50,6 +60,8 @@ export const updateFieldworkSettingsSchema = z
       screenedOut: redirectUrl,
       overQuota: redirectUrl,
     }),
+    lateAnswerGraceHours,
+    dedupePanelIds: z.boolean(),
   })
   .partial()
   .refine((v) => v.panelParam !== 'inv', {

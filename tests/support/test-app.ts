@@ -11,6 +11,8 @@ import type { DestinationStream } from 'pino';
 import { createMailer } from '../../server/mail/mailer';
 import type { AppDeps } from '../../server/deps';
 import { createTestDb, type TestDb } from './test-db';
+import { createDb } from '../../db/client';
+import { throughProxy, type TcpProxy } from './tcp-proxy';
 
 export type TestApp = {
   app: Express;
@@ -20,9 +22,13 @@ export type TestApp = {
   close(): Promise<void>;
 };
 
+/**
+ * `viaProxy`: the app reaches its database through a TCP proxy the test controls (fault
+ * tests); the test's own `testDb.db` stays direct. `logDestination`: the app logs at info there.
+ */
 export async function createTestApp(
   overrides: Record<string, string> = {},
-  options: { logDestination?: DestinationStream } = {},
+  options: { viaProxy?: TcpProxy; logDestination?: DestinationStream } = {},
 ): Promise<TestApp> {
   const testDb = await createTestDb();
   const env = loadEnv({
@@ -35,13 +41,19 @@ export async function createTestApp(
     LOG_LEVEL: 'silent',
     AUTH_RATE_LIMIT: '10000',
     EMBEDDED_WORKER: 'false',
+    // Engine threads at normal priority: test files run side by side and should share fairly.
+    ENGINE_THREAD_NICE: '0',
     ...overrides,
   });
   const mailer = createMailer(env);
+  const proxied = options.viaProxy
+    ? createDb(throughProxy(testDb.url, options.viaProxy), { max: 5, connectTimeoutMs: 1000 })
+    : null;
+  const db = proxied?.db ?? testDb.db;
   const logger = options.logDestination
     ? createLogger('info', options.logDestination)
     : createLogger('silent');
-  const deps: AppDeps = { env, db: testDb.db, logger, mailer };
+  const deps: AppDeps = { env, db, logger, mailer };
   const app = createApp(deps);
   return {
     app,
@@ -51,6 +63,7 @@ export async function createTestApp(
     request: () => supertest.agent(app).set('Origin', env.APP_URL),
     async close() {
       mailer.close();
+      await proxied?.pool.end();
       await testDb.close();
     },
   };

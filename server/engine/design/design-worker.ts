@@ -10,6 +10,9 @@ import { z } from 'zod';
 import { DesignError } from './design-errors';
 import type { DesignProgressMessage, DesignWorkerResult } from './design-worker-messages';
 import { generateDesign } from './generate-design';
+import { lowerThreadPriority } from '../parallel/thread-priority';
+
+lowerThreadPriority();
 
 const taskSchema = z.object({
   definition: z.unknown(),

@@ -17,13 +17,15 @@ import type { DesignProgressMessage, DesignWorkerResult } from './design-worker-
 const WORKER_FILE = fileURLToPath(new URL('./design-worker.ts', import.meta.url));
 
 /** A pool of design worker threads (default 1: design jobs are CPU-bound and sequential). */
-export function createDesignPool(options: { maxThreads?: number } = {}): Piscina {
+export function createDesignPool(options: { maxThreads?: number; nice?: number } = {}): Piscina {
   const tsxLoader = pathToFileURL(createRequire(import.meta.url).resolve('tsx')).href;
   return new Piscina({
     filename: WORKER_FILE,
     execArgv: ['--import', tsxLoader],
     minThreads: 0,
     maxThreads: options.maxThreads ?? 1,
+    // Thread priority (server/engine/parallel/thread-priority.ts).
+    workerData: { nice: options.nice },
   });
 }
 

@@ -3,6 +3,7 @@
  * class, and the job runner chooses its message by class. A worker returns a known engine error
  * as a plain `{ engineError }` value; the caller throws the same class again.
  */
+import { ChoiceDataError } from '../estimation/choice-data';
 import {
   EstimationCancelledError,
   EstimationFailedError,
@@ -11,11 +12,21 @@ import {
 } from '../estimation/estimation-errors';
 
 export interface TransportedError {
-  engineError: { name: string; message: string; field?: string; parameters?: string[] };
+  engineError: {
+    name: string;
+    message: string;
+    field?: string;
+    line?: number;
+    parameters?: string[];
+  };
 }
 
 /** The transport form of a known engine error; rethrows anything else. */
 export function toTransportedError(err: unknown): TransportedError {
+  if (err instanceof ChoiceDataError)
+    return {
+      engineError: { name: err.name, message: err.message, field: err.field, line: err.line },
+    };
   if (err instanceof EstimationOptionsError)
     return { engineError: { name: err.name, message: err.message, field: err.field } };
   if (err instanceof NonIdentifiedError)
@@ -31,6 +42,7 @@ export function toTransportedError(err: unknown): TransportedError {
 export function unwrapWorkerResult<T>(value: T | TransportedError): T {
   if (!value || typeof value !== 'object' || !('engineError' in value)) return value as T;
   const e = value.engineError;
+  if (e.name === 'ChoiceDataError') throw new ChoiceDataError(e.message, e.line, e.field);
   if (e.name === 'EstimationOptionsError') throw new EstimationOptionsError(e.message, e.field);
   if (e.name === 'NonIdentifiedError') throw new NonIdentifiedError(e.message, e.parameters);
   if (e.name === 'EstimationCancelledError') throw new EstimationCancelledError();

@@ -1,9 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import {
-  chooseLeastFilledBlock,
-  createRespondentPlan,
-  repeatedTaskNumber,
-} from '../../../server/services/respondent-plan';
+import { createRespondentPlan, repeatedTaskNumber } from '../../../server/services/respondent-plan';
 import {
   buildScreens,
   buildDominanceAlternatives,
@@ -32,54 +28,6 @@ const withSpecials = (): Questionnaire => {
   q.pages.splice(tasksAt, 0, warmup);
   return { pages: [...q.pages, repeat, dominance, end] };
 };
-
-describe('chooseLeastFilledBlock', () => {
-  it('picks the block with the fewest respondents', () => {
-    expect(
-      chooseLeastFilledBlock(
-        3,
-        new Map([
-          [1, 5],
-          [2, 3],
-          [3, 4],
-        ]),
-      ),
-    ).toBe(2);
-  });
-  it('counts a block nobody has started as empty', () => {
-    expect(
-      chooseLeastFilledBlock(
-        3,
-        new Map([
-          [1, 1],
-          [2, 1],
-        ]),
-      ),
-    ).toBe(3);
-  });
-  it('breaks ties toward the lowest block number', () => {
-    expect(
-      chooseLeastFilledBlock(
-        4,
-        new Map([
-          [1, 2],
-          [2, 1],
-          [3, 1],
-          [4, 2],
-        ]),
-      ),
-    ).toBe(2);
-    expect(chooseLeastFilledBlock(2, new Map())).toBe(1);
-  });
-  it('fills blocks evenly when respondents arrive one by one', () => {
-    const filled = new Map<number, number>();
-    for (let i = 0; i < 30; i++) {
-      const b = chooseLeastFilledBlock(3, filled);
-      filled.set(b, (filled.get(b) ?? 0) + 1);
-    }
-    expect([...filled.values()]).toEqual([10, 10, 10]);
-  });
-});
 
 describe('createRespondentPlan', () => {
   const base = { definition, design, questionnaire: withSpecials(), block: 1 };

@@ -3,6 +3,7 @@ import { useRespondent } from '../hooks/use-respondent';
 import { RespondentScreenView } from './screen-view';
 import { EndScreen, UnavailableScreen } from './finish-screens';
 import { RespondLayout } from './respond-layout';
+import { UnsentNotice } from './unsent-notice';
 
 /** The respondent app for one public link: one screen at a time, every answer kept. */
 export function RespondentApp({ publicId, search }: { publicId: string; search: string }) {
@@ -38,7 +39,9 @@ export function RespondentApp({ publicId, search }: { publicId: string; search: 
     offline: r.offline,
   };
   let body;
-  if (closedUnderfoot)
+  if (closedUnderfoot && r.pending > 0)
+    body = <Spinner label="Sending the answers you gave before the survey closed…" />;
+  else if (closedUnderfoot)
     body = <UnavailableScreen reason="closed" studyName={session.studyName} redirectUrl={null} />;
   else if (r.awaitingReceipt && !finished) body = <Spinner label="Checking your answer…" />;
   else if (finished && r.finalStatus !== 'completed')
@@ -70,6 +73,7 @@ export function RespondentApp({ publicId, search }: { publicId: string; search: 
     );
   return (
     <RespondLayout progress={finished ? 1 : progress} studyName={session.studyName} {...status}>
+      <UnsentNotice unsent={r.unsent} />
       {body}
     </RespondLayout>
   );

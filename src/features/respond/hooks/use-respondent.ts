@@ -19,13 +19,17 @@ import { startSessionOnce } from '../api/start-session';
 import { getSession } from '../api/get-session';
 import { submitAnswer } from '../api/submit-answer';
 import {
+  answerToSend,
   enqueueAnswer,
   keepOutboxOf,
+  markUnsent,
   newClientId,
   readOutbox,
+  readUnsent,
   removeAnswer,
   retryDelayMs,
   saveToken,
+  type UnsentAnswer,
 } from '../utils/respondent-storage';
 
 export type Unavailable = SurveyLinkState | 'not_found' | 'session_lost';
@@ -41,16 +45,8 @@ export type RespondentState =
   | { phase: 'error'; message: string }
   | { phase: 'active'; session: RespondentSession };
 
-/** Errors that a retry cannot fix: the answer is dropped and the session re-read. */
-const FINAL_CODES = new Set([
-  'already_completed',
-  'already_finished',
-  'survey_closed',
-  'survey_not_open',
-  'over_quota',
-  'not_found',
-  'survey_not_found',
-]);
+const EARLIER_SESSION =
+  'These answers belonged to an earlier visit on this device that the survey no longer knows.';
 
 function isTransient(err: unknown): boolean {
   if (!(err instanceof ApiError)) return true;
@@ -72,6 +68,7 @@ export function useRespondent(publicId: string, search: string) {
   const [finalStatus, setFinalStatus] = useState<RespondentStatus | null>(null);
   const [redirectUrl, setRedirectUrl] = useState<string | null>(null);
   const [awaiting, setAwaiting] = useState<string | null>(null);
+  const [unsent, setUnsent] = useState<UnsentAnswer[]>(() => readUnsent(publicId));
   const token = useRef<string | null>(null);
   const pump = useRef({
     running: false,
@@ -83,7 +80,10 @@ export function useRespondent(publicId: string, search: string) {
     (session: RespondentSession) => {
       token.current = session.sessionToken;
       saveToken(publicId, session.sessionToken);
-      const queued = keepOutboxOf(publicId, session.sessionToken).map((i) => i.answer.screenKey);
+      const queued = keepOutboxOf(publicId, session.sessionToken, EARLIER_SESSION).map(
+        (i) => i.answer.screenKey,
+      );
+      setUnsent(readUnsent(publicId));
       setAnsweredLocally([...new Set([...session.answered, ...queued])]);
       setPending(queued.length);
       if (session.status !== 'in_progress') {
@@ -124,12 +124,13 @@ export function useRespondent(publicId: string, search: string) {
     p.running = true;
     if (p.timer) clearTimeout(p.timer);
     p.timer = 0;
+    let refused = false;
     try {
       for (;;) {
         const item = readOutbox(publicId)[0];
         if (!item) break;
         try {
-          const receipt = await submitAnswer(publicId, item.token, item.answer);
+          const receipt = await submitAnswer(publicId, item.token, answerToSend(item));
           removeAnswer(publicId, item.answer.clientId);
           p.attempt = 0;
           setOffline(false);
@@ -140,15 +141,17 @@ export function useRespondent(publicId: string, search: string) {
             p.timer = setTimeout(() => void sendOutbox(), retryDelayMs(p.attempt++));
             break;
           }
-          // The server already holds an answer for this screen, or the session ended:
-          // drop what cannot be stored and take the server's word for where we are.
-          const code = err instanceof ApiError ? err.code : '';
-          if (FINAL_CODES.has(code)) keepOutboxOf(publicId, null);
-          else removeAnswer(publicId, item.answer.clientId);
+          // The server refused this answer for good (the survey closed before it was given,
+          // the session ended, the screen already has an answer …): keep it in the unsent
+          // list with the server's reason, go on with the next one, and re-read the session.
+          const reason =
+            err instanceof ApiError ? err.message : 'The survey could not store this answer.';
+          setUnsent(markUnsent(publicId, item, reason));
           setAwaiting(null);
-          await resync();
+          refused = true;
         }
       }
+      if (refused) await resync();
     } finally {
       p.running = false;
       setPending(readOutbox(publicId).filter((i) => i.token === token.current).length);
@@ -212,6 +215,7 @@ export function useRespondent(publicId: string, search: string) {
       if (!token.current) return;
       enqueueAnswer(publicId, {
         token: token.current,
+        givenAt: Date.now(),
         answer: {
           clientId: newClientId(),
           screenKey: screen.key,
@@ -238,6 +242,7 @@ export function useRespondent(publicId: string, search: string) {
     finalStatus,
     redirectUrl,
     awaitingReceipt: awaiting !== null,
+    unsent,
     answer,
   };
 }

@@ -1,11 +1,15 @@
 /**
- * What the respondent's browser keeps between visits, per survey: the session token and the
- * outbox of answers not yet acknowledged by the server. localStorage survives reloads, closed
- * tabs and a dropped connection; if it is unavailable (private mode quirks) memory is used.
+ * What the respondent's browser keeps between visits, per survey: the session token, the
+ * outbox of answers not yet acknowledged by the server, and the answers the server refused
+ * (with its reason, so the app can say what was not saved and why). localStorage survives
+ * reloads, closed tabs and a dropped connection; if it is unavailable (private mode quirks)
+ * memory is used.
  */
 import type { SubmitAnswerInput } from '@shared/schemas/respondent';
 
-export type OutboxItem = { token: string; answer: SubmitAnswerInput };
+/** `givenAt`: this device's clock when the answer was given (its age goes with each send). */
+export type OutboxItem = { token: string; answer: SubmitAnswerInput; givenAt?: number };
+export type UnsentAnswer = { screenKey: string; reason: string };
 
 const memory = new Map<string, string>();
 
@@ -29,6 +33,7 @@ function write(key: string, value: string | null): void {
 
 const tokenKey = (publicId: string) => `cw:respond:${publicId}:token`;
 const outboxKey = (publicId: string) => `cw:respond:${publicId}:outbox`;
+const unsentKey = (publicId: string) => `cw:respond:${publicId}:unsent`;
 
 export function readToken(publicId: string): string | null {
   return read(tokenKey(publicId));
@@ -66,11 +71,37 @@ export function removeAnswer(publicId: string, clientId: string): void {
   );
 }
 
-/** Keeps only the answers of `token` (a new session drops another session's leftovers). */
-export function keepOutboxOf(publicId: string, token: string | null): OutboxItem[] {
-  const items = readOutbox(publicId).filter((i) => i.token === token);
-  writeOutbox(publicId, items);
-  return items;
+/** The answer as sent now: with how long ago it was given, by this device's clock. */
+export function answerToSend(item: OutboxItem): SubmitAnswerInput {
+  if (item.givenAt === undefined) return item.answer;
+  return { ...item.answer, ageMs: Math.max(0, Math.round(Date.now() - item.givenAt)) };
+}
+
+export function readUnsent(publicId: string): UnsentAnswer[] {
+  try {
+    const parsed = JSON.parse(read(unsentKey(publicId)) ?? '[]');
+    return Array.isArray(parsed) ? (parsed as UnsentAnswer[]) : [];
+  } catch {
+    return [];
+  }
+}
+
+/** Moves a refused answer out of the outbox into the list the app shows, with the reason. */
+export function markUnsent(publicId: string, item: OutboxItem, reason: string): UnsentAnswer[] {
+  const unsent = [...readUnsent(publicId), { screenKey: item.answer.screenKey, reason }];
+  write(unsentKey(publicId), JSON.stringify(unsent));
+  removeAnswer(publicId, item.answer.clientId);
+  return unsent;
+}
+
+/**
+ * Keeps only the answers of `token`. Another session's leftovers cannot be stored any more
+ * (that session is gone); they move to the unsent list with `reason` rather than vanish.
+ */
+export function keepOutboxOf(publicId: string, token: string, reason: string): OutboxItem[] {
+  const all = readOutbox(publicId);
+  for (const other of all.filter((i) => i.token !== token)) markUnsent(publicId, other, reason);
+  return all.filter((i) => i.token === token);
 }
 
 /** Delay before retry n (0-based): 1 s doubling to 30 s, with jitter so phones do not align. */

@@ -27,7 +27,13 @@ export function describeRunStage(run: Run): string {
   const p = run.progress;
   if (run.status === 'queued') return 'Waiting for a worker…';
   const stage = p.stage ?? 'preparing';
-  if (stage === 'estimating' && p.iteration) return `Estimating: iteration ${p.iteration}`;
+  if (stage === 'estimating' && p.iteration) {
+    if (run.model === 'latent_class')
+      return `Estimating: EM start ${p.iteration} of ${p.maxIterations ?? '?'}`;
+    if (run.model === 'hb')
+      return `Sampling: iteration ${p.iteration} of ${p.maxIterations ?? '?'} (slowest chain)`;
+    return `Estimating: iteration ${p.iteration}`;
+  }
   return STAGE_LABELS[stage];
 }
 
@@ -37,6 +43,12 @@ export function getConvergenceShare(run: Run): number {
   if (stage === 'saving') return 1;
   // After the optimisation the bar stays near full while the stage is named beside it.
   if (stage in AFTER_ESTIMATION) return AFTER_ESTIMATION[stage as keyof typeof AFTER_ESTIMATION];
+  // HB and latent class have no gradient: the share of sampler iterations or EM starts done.
+  if (run.model === 'hb' || run.model === 'latent_class') {
+    const { iteration, maxIterations } = run.progress;
+    if (!iteration || !maxIterations) return 0.02;
+    return Math.min(0.97, Math.max(0.02, iteration / maxIterations));
+  }
   if (!gradientNorm || !initialGradientNorm || initialGradientNorm <= TOLERANCE) return 0.05;
   const share =
     Math.log(initialGradientNorm / gradientNorm) / Math.log(initialGradientNorm / TOLERANCE);

@@ -1,0 +1,195 @@
+/**
+ * Simulated respondents for the fieldwork benchmarks. Each one arrives at its time in a ramp
+ * (a panel launch), starts a session, and answers every screen in order after a short think
+ * time, the way the respondent app does: an answer keeps its client id until the server has
+ * acknowledged it, and is sent again after a network error, a 5xx (honouring Retry-After) or a
+ * 429. Some answers are sent twice on purpose, as a phone that lost the reply would. Each
+ * respondent comes from its own address (X-Forwarded-For, as a load balancer sets it) and
+ * prefers one API instance, switching to the next when its instance does not answer.
+ */
+import { randomUUID } from 'node:crypto';
+import { createSeededRandom } from '../../server/engine/design/seeded-random';
+import type { RespondentScreen, RespondentSession } from '../../shared/schemas/respondent';
+
+export type LoadOptions = {
+  bases: string[];
+  publicId: string;
+  respondents: number;
+  /** Offsets respondent numbers (addresses, seeds) so that several loads do not overlap. */
+  firstRespondent: number;
+  /** Arrivals spread evenly over this time. */
+  rampMs: number;
+  /** Mean pause before each answer (uniform between half and one and a half times it). */
+  thinkMs: number;
+  /** Share of acknowledged answers sent once more with the same client id. */
+  retryShare: number;
+  seed: number;
+  /** One answer is given up (counted unsent) after trying this long. */
+  giveUpMs: number;
+};
+
+export type LoadResult = {
+  answerMs: number[];
+  sessionMs: number[];
+  /** Client ids the server acknowledged (2xx), with the respondent's session token. */
+  acknowledged: Array<{ token: string; clientId: string; screenKey: string }>;
+  unsent: number;
+  replaysAsked: number;
+  replaysConfirmed: number;
+  errors5xx: number;
+  errors429: number;
+  networkErrors: number;
+  /** Unexpected 4xx answers (none should happen). */
+  errorsOther: Array<{ status: number; code: string }>;
+  respondentsStarted: number;
+  respondentsFinished: number;
+  /** Longest time from a failed request to the next success anywhere in the load. */
+  longestOutageMs: number;
+  startedAt: number;
+  endedAt: number;
+};
+
+const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
+
+function valueFor(screen: RespondentScreen, random: ReturnType<typeof createSeededRandom>) {
+  if (screen.kind === 'consent') return { kind: 'consent', agreed: true };
+  if (screen.kind === 'instructions') return { kind: 'ack' };
+  if (screen.kind === 'task')
+    return { kind: 'choice', position: random.nextInt(screen.alternatives.length) };
+  const q = screen.question;
+  if (q.type === 'single') return { kind: 'single', optionId: q.options[0]?.id ?? null };
+  if (q.type === 'multiple') return { kind: 'multiple', optionIds: [q.options[0].id] };
+  if (q.type === 'number') return { kind: 'number', number: q.min };
+  return { kind: 'text', text: 'fine' };
+}
+
+export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> {
+  const r: LoadResult = {
+    answerMs: [],
+    sessionMs: [],
+    acknowledged: [],
+    unsent: 0,
+    replaysAsked: 0,
+    replaysConfirmed: 0,
+    errors5xx: 0,
+    errors429: 0,
+    networkErrors: 0,
+    errorsOther: [],
+    respondentsStarted: 0,
+    respondentsFinished: 0,
+    longestOutageMs: 0,
+    startedAt: Date.now(),
+    endedAt: 0,
+  };
+  let failingSince: number | null = null;
+  const noteSuccess = () => {
+    if (failingSince !== null)
+      r.longestOutageMs = Math.max(r.longestOutageMs, Date.now() - failingSince);
+    failingSince = null;
+  };
+  const noteFailure = () => {
+    failingSince ??= Date.now();
+  };
+
+  /** One request, sent again until it gets a final answer; null when given up. */
+  async function send(
+    n: number,
+    path: string,
+    body: unknown,
+    token: string | null,
+    timings: number[],
+  ): Promise<{ status: number; json: Record<string, unknown> } | null> {
+    const deadline = Date.now() + opts.giveUpMs;
+    let instance = n % opts.bases.length;
+    let attempt = 0;
+    for (;;) {
+      const t0 = performance.now();
+      let wait = Math.min(8_000, 250 * 2 ** attempt++) * (0.5 + Math.random());
+      try {
+        const res = await fetch(`${opts.bases[instance]}/api/r/${opts.publicId}${path}`, {
+          method: 'POST',
+          headers: {
+            'content-type': 'application/json',
+            'x-forwarded-for': `10.${(n >> 16) & 255}.${(n >> 8) & 255}.${n & 255}`,
+            ...(token ? { 'x-respondent-token': token } : {}),
+          },
+          body: JSON.stringify(body),
+          signal: AbortSignal.timeout(15_000),
+        });
+        const json = (await res.json().catch(() => ({}))) as Record<string, unknown>;
+        timings.push(performance.now() - t0);
+        if (res.status < 500 && res.status !== 429) {
+          noteSuccess();
+          return { status: res.status, json };
+        }
+        noteFailure();
+        if (res.status === 429) r.errors429++;
+        else r.errors5xx++;
+        const retryAfter = Number(res.headers.get('retry-after'));
+        if (retryAfter > 0) wait = retryAfter * 1000 * (0.8 + 0.4 * Math.random());
+      } catch {
+        // Refused, reset or timed out: try the next instance, as a load balancer would.
+        noteFailure();
+        r.networkErrors++;
+        instance = (instance + 1) % opts.bases.length;
+      }
+      if (Date.now() + wait > deadline) return null;
+      await sleep(wait);
+    }
+  }
+
+  async function respondent(i: number) {
+    const n = opts.firstRespondent + i;
+    const random = createSeededRandom(opts.seed * 100_003 + n);
+    await sleep((opts.rampMs * i) / Math.max(1, opts.respondents));
+    const started = await send(n, '/sessions', { params: {}, device: 'bench' }, null, r.sessionMs);
+    if (!started) return;
+    if (started.status !== 201) {
+      r.errorsOther.push({
+        status: started.status,
+        code: String((started.json.error as { code?: string })?.code),
+      });
+      return;
+    }
+    r.respondentsStarted++;
+    const session = started.json as unknown as RespondentSession;
+    for (const screen of session.screens) {
+      await sleep(opts.thinkMs * (0.5 + random.next()));
+      const body = {
+        clientId: randomUUID(),
+        screenKey: screen.key,
+        value: valueFor(screen, random),
+        responseMs: 2000 + random.nextInt(20_000),
+      };
+      const res = await send(n, '/answers', body, session.sessionToken, r.answerMs);
+      if (!res) {
+        r.unsent++;
+        return;
+      }
+      if (res.status !== 201 && !(res.status === 200 && res.json.replay === true)) {
+        r.errorsOther.push({
+          status: res.status,
+          code: String((res.json.error as { code?: string })?.code),
+        });
+        return;
+      }
+      r.acknowledged.push({
+        token: session.sessionToken,
+        clientId: body.clientId,
+        screenKey: screen.key,
+      });
+      if (res.json.status !== 'in_progress') break;
+      if (random.next() < opts.retryShare) {
+        r.replaysAsked++;
+        const again = await send(n, '/answers', body, session.sessionToken, r.answerMs);
+        if (again?.status === 200 && again.json.replay === true) r.replaysConfirmed++;
+        else if (again) r.errorsOther.push({ status: again.status, code: 'replay_not_recognised' });
+      }
+    }
+    r.respondentsFinished++;
+  }
+
+  await Promise.all(Array.from({ length: opts.respondents }, (_, i) => respondent(i)));
+  r.endedAt = Date.now();
+  return r;
+}

@@ -1,0 +1,73 @@
+/**
+ * Starts Choicewright's processes the way they are deployed (`node --import tsx
+ * server/main.ts` or `server/worker.ts`, configured only by environment variables), in their
+ * own process groups, with their output in a log file, for benchmarks that measure them from
+ * the outside and kill them on purpose.
+ */
+import { spawn, type ChildProcess } from 'node:child_process';
+import fs from 'node:fs';
+import path from 'node:path';
+
+const root = path.resolve(import.meta.dirname, '../..');
+
+export type ServerProcess = {
+  readonly pid: number;
+  readonly child: ChildProcess;
+  /** Resolves when the process has exited. */
+  exited: Promise<number | null>;
+  /** SIGTERM (graceful), then SIGKILL after `graceMs`. */
+  stop(graceMs?: number): Promise<void>;
+  /** SIGKILL at once, as a crash or an out-of-memory kill would. */
+  kill(): Promise<void>;
+};
+
+export function startProcess(opts: {
+  entry: 'server/main.ts' | 'server/worker.ts';
+  env: Record<string, string>;
+  logFile: string;
+}): ServerProcess {
+  fs.mkdirSync(path.dirname(opts.logFile), { recursive: true });
+  const log = fs.openSync(opts.logFile, 'a');
+  const child = spawn(process.execPath, ['--import', 'tsx', opts.entry], {
+    cwd: root,
+    env: { PATH: process.env.PATH ?? '', HOME: process.env.HOME ?? '', ...opts.env },
+    stdio: ['ignore', log, log],
+  });
+  fs.closeSync(log);
+  const exited = new Promise<number | null>((resolve) =>
+    child.once('exit', (code) => resolve(code)),
+  );
+  return {
+    pid: child.pid!,
+    child,
+    exited,
+    async stop(graceMs = 15_000) {
+      if (child.exitCode !== null || child.signalCode !== null) return;
+      child.kill('SIGTERM');
+      const timer = setTimeout(() => child.kill('SIGKILL'), graceMs);
+      await exited;
+      clearTimeout(timer);
+    },
+    async kill() {
+      if (child.exitCode !== null || child.signalCode !== null) return;
+      child.kill('SIGKILL');
+      await exited;
+    },
+  };
+}
+
+/** Waits until GET /api/health answers 200 (the database is reachable too). */
+export async function waitForHealth(base: string, timeoutMs = 180_000): Promise<number> {
+  const started = performance.now();
+  for (;;) {
+    try {
+      const res = await fetch(`${base}/api/health`, { signal: AbortSignal.timeout(2_000) });
+      if (res.ok) return (performance.now() - started) / 1000;
+    } catch {
+      // not listening yet
+    }
+    if (performance.now() - started > timeoutMs)
+      throw new Error(`${base} did not become healthy within ${timeoutMs / 1000} s`);
+    await new Promise((r) => setTimeout(r, 200));
+  }
+}

@@ -1,0 +1,37 @@
+/**
+ * Messages between an estimation job and the thread that runs the engine. Progress goes over
+ * a MessagePort passed in the task (transferred); the result is a plain object. Errors the
+ * analyst can act on come back in the engine's error transport (engine-error-transport.ts),
+ * because classes do not survive a thread boundary.
+ */
+import type { MessagePort } from 'node:worker_threads';
+import type { EstimationResult, EstimationSpec } from '../../../shared/schemas/estimation-spec';
+import type { BuiltChoiceData } from '../estimation/build-choice-data';
+import type { EstimationProgress, EstimationStage } from '../estimation/fit-mixed-logit';
+import type { TransportedError } from './engine-error-transport';
+import type { KernelPreference } from '../simd/kernel-choice';
+import type { HbProgress } from '../hb/fit-hb';
+import type { LatentClassProgress } from '../latent-class/fit-latent-class';
+
+export interface EstimationWorkerTask {
+  spec: EstimationSpec;
+  built: BuiltChoiceData;
+  /** Threads of the mixed logit's log-likelihood, started from the engine thread. */
+  threads: number;
+  /** Kernel of the mixed logit's LL (default 'auto'). */
+  kernel?: KernelPreference;
+  port?: MessagePort;
+}
+
+export type EstimationWorkerResult = { ok: true; result: EstimationResult } | TransportedError;
+
+export type EstimationProgressMessage =
+  | { type: 'progress'; progress: EstimationProgress }
+  /** HB: sampler iterations of the slowest chain. */
+  | { type: 'sampler'; progress: HbProgress }
+  /** Latent class: EM starts done per number of classes. */
+  | { type: 'classes'; progress: LatentClassProgress }
+  /** A stage after the optimisation began (standard errors, WTP, taste profiles). */
+  | { type: 'stage'; stage: EstimationStage }
+  /** A remark for the run's log (for example, a kernel that fell back to TypeScript). */
+  | { type: 'note'; note: string };

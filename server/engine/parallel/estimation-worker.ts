@@ -1,0 +1,61 @@
+/**
+ * Piscina worker entry for estimation runs: lowers its own CPU priority, runs the pure
+ * runEstimation (MNL, mixed logit, HB, latent class, WTP, taste profiles) off the caller's thread, posts progress
+ * on the task's port, and returns known engine errors in the transport form
+ * (engine-error-transport.ts) so their classes survive the thread boundary. Cancellation: the caller aborts piscina's `run`, which ends this thread and
+ * the mixed logit's slice threads it started.
+ */
+import { MessagePort } from 'node:worker_threads';
+import { runEstimation } from '../estimation/run-estimation';
+import type {
+  EstimationProgressMessage,
+  EstimationWorkerResult,
+  EstimationWorkerTask,
+} from './estimation-worker-messages';
+import { lowerThreadPriority } from './thread-priority';
+import { toTransportedError } from './engine-error-transport';
+
+lowerThreadPriority();
+
+function assertTask(message: unknown): asserts message is EstimationWorkerTask {
+  const m = message as Partial<EstimationWorkerTask> | null;
+  if (
+    !m ||
+    typeof m !== 'object' ||
+    !m.spec ||
+    !m.built?.data ||
+    !Number.isInteger(m.threads) ||
+    (m.port !== undefined && !(m.port instanceof MessagePort))
+  )
+    throw new TypeError('Malformed estimation task');
+}
+
+export async function runEstimationTask(message: unknown): Promise<EstimationWorkerResult> {
+  assertTask(message);
+  const { spec, built, threads, kernel, port } = message;
+  try {
+    const result = await runEstimation(spec, built, {
+      threads,
+      kernel,
+      onNote: (note) =>
+        port?.postMessage({ type: 'note', note } satisfies EstimationProgressMessage),
+      onProgress: (progress) =>
+        port?.postMessage({ type: 'progress', progress } satisfies EstimationProgressMessage),
+      onSamplerProgress: (progress) =>
+        port?.postMessage({ type: 'sampler', progress } satisfies EstimationProgressMessage),
+      onClassProgress: (progress) =>
+        port?.postMessage({ type: 'classes', progress } satisfies EstimationProgressMessage),
+      onStage: (stage) =>
+        port?.postMessage({ type: 'stage', stage } satisfies EstimationProgressMessage),
+    });
+    return { ok: true, result };
+  } catch (e) {
+    return toTransportedError(e);
+  } finally {
+    port?.close();
+  }
+}
+
+// Piscina loads TypeScript workers through tsx only via the default export (see
+// server/engine/design/design-worker.ts).
+export default runEstimationTask;

@@ -1,0 +1,69 @@
+/**
+ * What an answer the unique indexes refused means. The same client id with the same screen
+ * and value is a retry (a phone that lost the reply): it gets its receipt again and nothing
+ * changes. The same client id with another screen or another value is a client bug or a
+ * tampered request: 409 naming the screen the id belongs to. Another answer for an answered
+ * screen, or an answer after the session ended, is a conflict too.
+ */
+import { isDeepStrictEqual } from 'node:util';
+import type { DbOrTx } from '../../db/client';
+import { ConflictError } from '../lib/errors';
+import { getRespondentAnswerState } from '../../db/queries/respondents';
+import type {
+  AnswerReceipt,
+  RespondentScreen,
+  RespondentStatus,
+} from '../../shared/schemas/respondent';
+import type { AnswerInput } from './answers';
+
+/** The stored value holds what the client sent plus fields the server derived (task kind …). */
+function sameValue(stored: unknown, sent: AnswerInput['value']): boolean {
+  if (!stored || typeof stored !== 'object') return false;
+  return Object.entries(sent).every(([k, v]) =>
+    isDeepStrictEqual((stored as Record<string, unknown>)[k], v),
+  );
+}
+
+export async function resolveRefusedAnswer(
+  db: DbOrTx,
+  params: {
+    respondent: { id: string; status: RespondentStatus };
+    answer: AnswerInput;
+    screens: RespondentScreen[];
+    receipt: (status: RespondentStatus, replay: boolean, answered: number) => AnswerReceipt;
+  },
+): Promise<AnswerReceipt> {
+  const { answer } = params;
+  const state = await getRespondentAnswerState(db, { respondentId: params.respondent.id });
+  const status = state?.status ?? params.respondent.status;
+  const stored = state?.answers ?? [];
+  const mine = stored.find((a) => a.clientId === answer.clientId);
+  if (mine) {
+    if (mine.screenKey !== answer.screenKey || !sameValue(mine.value, answer.value))
+      throw new ConflictError(
+        'client_id_reused',
+        `This answer id was already used for the screen "${mine.screenKey}" with ${
+          mine.screenKey === answer.screenKey ? 'another answer' : 'its own answer'
+        }; nothing was changed.`,
+        [{ path: 'clientId', message: `Already used for ${mine.screenKey}` }],
+      );
+    const answered = new Set(stored.map((a) => a.screenKey));
+    const next = params.screens.findIndex((s) => !answered.has(s.key));
+    return params.receipt(status, true, next < 0 ? params.screens.length : next);
+  }
+  if (status === 'completed')
+    throw new ConflictError(
+      'already_completed',
+      'This questionnaire is complete; no more answers can be added.',
+    );
+  if (status !== 'in_progress')
+    throw new ConflictError(
+      'already_finished',
+      'This session has ended; no more answers can be added.',
+    );
+  throw new ConflictError(
+    'already_answered',
+    `The screen "${answer.screenKey}" already has an answer; it cannot be changed.`,
+    [{ path: 'screenKey', message: 'Already answered' }],
+  );
+}

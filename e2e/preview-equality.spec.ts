@@ -66,7 +66,9 @@ test('the preview of a block and seed equals a live respondent of that block and
     baseURL: e2eBaseUrl,
     extraHTTPHeaders: { Origin: e2eBaseUrl },
   });
-  const study = await createLiveStudy(api, `Preview equality ${Date.now()}`, everyPageKind());
+  const study = await createLiveStudy(api, `Preview equality ${Date.now()}`, {
+    questionnaire: everyPageKind(),
+  });
 
   await page.goto(`/s/${study.publicId}`);
   await expect(page.locator('main h1')).toBeVisible();

@@ -13,7 +13,7 @@ test.use({ viewport: { width: 360, height: 740 }, hasTouch: true });
 
 async function chooseAndGoOn(page: Page, option: string) {
   await page.getByRole('radio', { name: option }).click();
-  await expect(page.getByRole('radio', { name: option })).toHaveAttribute('aria-checked', 'true');
+  await expect(page.getByRole('radio', { name: option })).toBeChecked();
   await page.getByRole('button', { name: 'Next' }).click();
 }
 
@@ -57,10 +57,7 @@ test('a respondent answers every screen on a phone, survives a reload and a drop
     await expect(choiceHeading(page, 3, 4)).toBeVisible();
     await page.reload();
     await expect(choiceHeading(page, 3, 4)).toBeVisible();
-    await expect(page.getByRole('radio', { name: 'Option B' })).toHaveAttribute(
-      'aria-checked',
-      'false',
-    );
+    await expect(page.getByRole('radio', { name: 'Option B' })).not.toBeChecked();
   });
 
   await test.step('the third answer is sent while the network is cut, and arrives once', async () => {

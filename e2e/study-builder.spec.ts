@@ -87,19 +87,17 @@ test('an editor creates a study, adds attributes, generates a design and preview
 
   await test.step('preview a task and choose an option', async () => {
     await page.getByRole('link', { name: /Preview/ }).click();
-    // The respondent app itself, in a frame of phone width, starting at the chosen screen.
+    // The respondent app itself, in a frame of phone width, starting at the chosen screen. With a
+    // cost attribute the default questionnaire adds the cheap-talk and budget-reminder pages first.
     await page
       .getByLabel('Screen', { exact: true })
-      .selectOption({ label: '3. Choice task (choice 1 of 4)' });
+      .selectOption({ label: '5. Choice task (choice 1 of 4)' });
     const phone = page.frameLocator('iframe[title^="Respondent screen preview"]');
     await expect(phone.getByRole('radio', { name: 'Option A' })).toBeVisible();
     await phone.getByRole('radio', { name: 'Option B' }).click();
-    await expect(phone.getByRole('radio', { name: 'Option B' })).toHaveAttribute(
-      'aria-checked',
-      'true',
-    );
+    await expect(phone.getByRole('radio', { name: 'Option B' })).toBeChecked();
     await phone.getByRole('button', { name: 'Next' }).click();
-    await expect(page.getByLabel('Screen', { exact: true })).toHaveValue('3');
+    await expect(page.getByLabel('Screen', { exact: true })).toHaveValue('5');
     await page
       .locator('label')
       .filter({ hasText: /^Desktop/ })

@@ -9,6 +9,18 @@ export type TasteProfileInsert = {
   sd: Record<string, number>;
   wtp: Record<string, number> | null;
   effectiveDraws: number;
+  /** Family fields: HB intervals, latent class probabilities (null for MNL and mixed logit). */
+  extra?: TasteProfileExtra | null;
+};
+
+export type TasteProfileExtra = {
+  lower?: Record<string, number>;
+  upper?: Record<string, number>;
+  wtpSd?: Record<string, number>;
+  wtpLower?: Record<string, number>;
+  wtpUpper?: Record<string, number>;
+  classProbabilities?: number[];
+  likeliestClass?: number;
 };
 
 const BATCH = 500;
@@ -35,6 +47,7 @@ export async function listTasteProfiles(db: DbOrTx, params: { runId: string }) {
       sd: tasteProfiles.sd,
       wtp: tasteProfiles.wtp,
       effectiveDraws: tasteProfiles.effectiveDraws,
+      extra: tasteProfiles.extra,
     })
     .from(tasteProfiles)
     .where(eq(tasteProfiles.runId, params.runId))

@@ -65,6 +65,7 @@ const profileColumns = {
   sd: tasteProfiles.sd,
   wtp: tasteProfiles.wtp,
   effectiveDraws: tasteProfiles.effectiveDraws,
+  extra: tasteProfiles.extra,
 };
 export type ProfileRow = {
   respondentId: string;
@@ -78,6 +79,8 @@ export type ProfileRow = {
   sd: unknown;
   wtp: unknown;
   effectiveDraws: number;
+  /** HB intervals, latent class probabilities (db/queries/taste-profiles.ts TasteProfileExtra). */
+  extra: unknown;
 };
 
 /** True when the respondent's flags (an object of flag → value, or a list) hold any flag. */

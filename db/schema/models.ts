@@ -60,6 +60,8 @@ export const tasteProfiles = pgTable(
     mean: jsonb('mean').notNull(),
     sd: jsonb('sd').notNull(),
     wtp: jsonb('wtp'),
+    /** HB intervals and WTP spread, latent class probabilities (shared tasteProfileSchema). */
+    extra: jsonb('extra'),
     effectiveDraws: doublePrecision('effective_draws').notNull(),
   },
   (t) => [primaryKey({ name: 'taste_profiles_pk', columns: [t.runId, t.respondentId] })],

@@ -93,22 +93,22 @@ export async function signInEditor(api: APIRequestContext): Promise<string> {
 }
 
 /**
- * A new live study: definition, a random 2-block design of 8 tasks, and the demo
- * questionnaire unless another one is given.
+ * A new live study: definition (Larkspur by default), a random 2-block design of 8 tasks, and
+ * the demo questionnaire unless another one is given.
  */
 export async function createLiveStudy(
   api: APIRequestContext,
   name: string,
-  questionnaire: Questionnaire = demoQuestionnaire(larkspurDefinition),
+  options: { definition?: StudyDefinition; questionnaire?: Questionnaire } = {},
 ) {
+  const definition = options.definition ?? larkspurDefinition;
+  const questionnaire = options.questionnaire ?? demoQuestionnaire(definition);
   const teamId = await signInEditor(api);
   const created = await api.post(`/api/teams/${teamId}/studies`, { data: { name } });
   expect(created.status()).toBe(201);
   const study = await created.json();
   const base = `/api/teams/${teamId}/studies/${study.id}`;
-  expect(
-    (await api.put(`${base}/definition`, { data: { definition: larkspurDefinition } })).status(),
-  ).toBe(200);
+  expect((await api.put(`${base}/definition`, { data: { definition } })).status()).toBe(200);
   const job = await api.post(`${base}/design/jobs`, {
     data: { method: 'random', tasks: 8, blocks: 2, seed: 11 },
   });

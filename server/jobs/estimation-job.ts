@@ -27,7 +27,7 @@ import {
   toBuiltChoiceData,
 } from '../services/choice-data-from-study';
 import { ESTIMATION_JOB } from '../services/runs';
-import { splitStoredSpec } from '../services/estimation/run-view';
+import { getRunSeed, splitStoredSpec } from '../services/estimation/run-view';
 import { getSpecColumns } from '../engine/estimation/run-estimation';
 import {
   createEstimationPool,
@@ -53,6 +53,12 @@ const MIXED_MAX_ITERATIONS = 300;
 
 export const WORKER_LOST_ERROR =
   'The worker running this model stopped unexpectedly (a crash or a restart). Start the run again.';
+
+/** The latent class counts a spec asks for, as [fewest, most] (default 2). */
+function classRange(classes: number | [number, number] | undefined): [number, number] {
+  if (Array.isArray(classes)) return classes;
+  return [classes ?? 2, classes ?? 2];
+}
 
 /** A message an analyst can act on, for errors the data or the model explain. */
 export function describeRunError(err: unknown): string | null {
@@ -132,7 +138,7 @@ export async function runEstimationJob(
       setRunDataHash(deps.db, {
         id: runId,
         dataHash: hashChoiceData(prepared, keys),
-        seed: spec.model === 'mixed' ? spec.draws.seed : null,
+        seed: getRunSeed(spec),
       }),
     );
     latest = {
@@ -158,6 +164,20 @@ export async function runEstimationJob(
       },
       {
         signal: abort.signal,
+        // HB: iterations of the slowest chain; latent class: starts done over all class counts.
+        onSamplerProgress: (p) => {
+          latest = { ...latest, iteration: p.iteration, maxIterations: p.iterations };
+          report();
+        },
+        onClassProgress: (p) => {
+          const [fewest, most] = classRange(spec.classes);
+          latest = {
+            ...latest,
+            iteration: (p.classes - fewest) * p.starts + p.start,
+            maxIterations: (most - fewest + 1) * p.starts,
+          };
+          report();
+        },
         onNote: (note) => deps.logger.warn({ runId }, note),
         onProgress: (p) => {
           if (p.start !== lastStart) {
@@ -200,13 +220,17 @@ export async function runEstimationJob(
       deps.db.transaction(async (tx) => {
         await replaceTasteProfiles(tx, {
           runId,
-          profiles: (individuals ?? []).map((p) => ({
-            respondentId: p.respondent,
-            mean: p.mean,
-            sd: p.sd,
-            wtp: p.wtp ?? null,
-            effectiveDraws: p.effectiveDraws,
-          })),
+          // HB intervals and latent class probabilities go to `extra`.
+          profiles: (individuals ?? []).map(
+            ({ respondent, mean, sd, wtp, effectiveDraws, ...extra }) => ({
+              respondentId: respondent,
+              mean,
+              sd,
+              wtp: wtp ?? null,
+              effectiveDraws,
+              extra: Object.keys(extra).length > 0 ? extra : null,
+            }),
+          ),
         });
         await finishRun(tx, {
           id: runId,
@@ -217,7 +241,8 @@ export async function runEstimationJob(
             stage: 'saving',
             iteration: result.iterations,
             loglik: result.loglik,
-            gradientNorm: result.convergence.gradientNorm,
+            // The HB sampler has no gradient (null), and the progress schema wants a number.
+            gradientNorm: result.convergence.gradientNorm ?? undefined,
             elapsedMs: Date.now() - started,
             heartbeatAt: new Date().toISOString(),
           },

@@ -8,6 +8,7 @@ import { parseParams, parseQuery } from '../middleware/validate';
 import { memberOf, requireTeam, requireUser } from '../middleware/auth';
 import { studyParamsSchema } from '../services/study-access';
 import {
+  compareTastesQuerySchema,
   listTastesQuerySchema,
   respondentProfileParamsSchema,
   segmentsQuerySchema,
@@ -32,6 +33,11 @@ export function createTastesRouter(deps: AppDeps): Router {
     const { studyId } = parseParams(studyParamsSchema, req);
     const query = parseQuery(segmentsQuerySchema, req);
     res.json(await tastes.getSegments(deps, memberOf(req), studyId, query));
+  });
+  router.get('/compare', read, async (req, res) => {
+    const { studyId } = parseParams(studyParamsSchema, req);
+    const query = parseQuery(compareTastesQuerySchema, req);
+    res.json(await tastes.compareRuns(deps, memberOf(req), studyId, query));
   });
   router.get('/runs/:runId/respondents/:respondentId', read, async (req, res) => {
     const p = parseParams(respondentProfileParamsSchema, req);

@@ -18,6 +18,7 @@ import {
   updateStudySettings,
 } from '../../db/queries/versions';
 import { countCompletes } from '../../db/queries/respondents';
+import { countInvitees } from '../../db/queries/invitees';
 import { getStudyById } from '../../db/queries/studies';
 import {
   fieldworkSettingsSchema,
@@ -63,11 +64,16 @@ async function readinessOf(db: DbOrTx, study: StudyRow, now: Date) {
   const design = study.currentDesignId
     ? await getDesignDocument(db, { id: study.currentDesignId, studyId: study.id })
     : null;
+  const settings = readSettings(study.settings);
   const problems = checkReadiness({
+    identifiability: {
+      personalLinks: (await countInvitees(db, { studyId: study.id })).total > 0,
+      panelIds: Object.values(settings.redirects).some((url) => url?.includes('{pid}') ?? false),
+    },
     definition: study.definition,
     design: design?.design ?? null,
     questionnaire: study.questionnaire,
-    settings: readSettings(study.settings),
+    settings,
     completes: await countCompletes(db, { studyId: study.id }),
     now,
   });

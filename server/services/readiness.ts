@@ -8,10 +8,13 @@ import { questionnaireSchema, type Questionnaire } from '../../shared/schemas/qu
 import { CONSENT_PLACEHOLDER } from '../../shared/schemas/questionnaire-defaults';
 import type { FieldworkSettings, ReadinessProblem } from '../../shared/schemas/study-lifecycle';
 import { studyDefinitionSchema, type StudyDefinition } from '../../shared/schemas/study-definition';
+import { checkConsentIdentifiability, type Identifiability } from './consent-checks';
 import { checkLevelLabel, formatNumber, getLevelLabel } from '../../shared/study/level-labels';
 import { listUnshownLevels } from '../engine/design/diagnostics/level-balance';
 
 type Input = {
+  /** Whether answers can be traced to a person (personal links, panel ids sent back). */
+  identifiability?: Identifiability;
   definition: unknown;
   design: unknown | null;
   questionnaire: unknown;
@@ -194,7 +197,11 @@ export function checkReadiness(input: Input): ReadinessProblem[] {
   else {
     const q = questionnaireSchema.safeParse(stored);
     if (!q.success) problems.push(...fromZod('questionnaire', 'invalid_questionnaire', q.error));
-    else if (definition) problems.push(...checkPagesAgainstStudy(q.data, definition, design));
+    else {
+      if (definition) problems.push(...checkPagesAgainstStudy(q.data, definition, design));
+      if (input.identifiability)
+        problems.push(...checkConsentIdentifiability(q.data, input.identifiability));
+    }
   }
 
   const { closeAt, quotaCompletes } = input.settings;

@@ -9,7 +9,8 @@ import { AppError, ConflictError, NotFoundError, ValidationError } from '../lib/
 import { loadStudy } from './study-access';
 import { getPreparedColumns } from './estimation/code-answers';
 import { assertRunFitsMemory } from './estimation/run-memory';
-import { toRunView } from './estimation/run-view';
+import { getRunSeed, toRunView } from './estimation/run-view';
+import type { ModelFamily } from '../../shared/schemas/estimation-families';
 import {
   countRuns,
   finishRun,
@@ -40,6 +41,14 @@ import type { EstimationSpec } from '../../shared/schemas/estimation-spec';
 export const ESTIMATION_JOB = 'estimation-run';
 
 type Member = { teamId: string; userId: string };
+
+/** The name of a run started without one. */
+const DEFAULT_RUN_NAMES: Record<ModelFamily, string> = {
+  mnl: 'Multinomial logit',
+  mixed: 'Mixed logit',
+  hb: 'Hierarchical Bayes logit',
+  latent_class: 'Latent class logit',
+};
 
 /** The definition runs are coded with: the latest live version's, else the draft's. */
 async function getCodingDefinition(deps: AppDeps, study: { id: string; definition: unknown }) {
@@ -127,10 +136,10 @@ export async function createRun(
   const row = await insertRun(deps.db, {
     studyId,
     teamId: member.teamId,
-    name: input.name || (spec.model === 'mnl' ? 'Multinomial logit' : 'Mixed logit'),
+    name: input.name || DEFAULT_RUN_NAMES[spec.model],
     model: spec.model,
     spec: { ...spec, respondents: { filterId } },
-    seed: spec.model === 'mixed' ? spec.draws.seed : null,
+    seed: getRunSeed(spec),
     createdBy: member.userId,
   });
   try {

@@ -20,12 +20,14 @@ import type {
   TastesRun,
 } from '../../shared/schemas/tastes';
 import type { RunResult } from '../../shared/schemas/run';
+import type { ModelFamily } from '../../shared/schemas/estimation-families';
 import { loadRunContext, type Member } from './tastes/run-context';
 import { indexAnswers } from './tastes/background-answers';
 import { toTasteRow } from './tastes/taste-rows';
 
 export { getSegments } from './tastes/get-segments';
 export { getRespondentProfile } from './tastes/get-respondent-profile';
+export { compareRuns } from './tastes/compare-runs';
 
 export async function listTastesRuns(
   deps: AppDeps,
@@ -37,7 +39,7 @@ export async function listTastesRuns(
   return rows.map((r) => ({
     id: r.id,
     name: r.name,
-    model: r.model as 'mnl' | 'mixed',
+    model: r.model as ModelFamily,
     finishedAt: r.finishedAt?.toISOString() ?? null,
     profiles: r.profiles,
     profileDraws: (r.results as RunResult | null)?.profileDraws?.count ?? null,

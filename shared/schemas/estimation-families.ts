@@ -271,3 +271,4 @@ export const MODEL_LABELS = {
   hb: 'Hierarchical Bayes logit',
   latent_class: 'Latent class logit',
 } as const;
+export type ModelFamily = keyof typeof MODEL_LABELS;

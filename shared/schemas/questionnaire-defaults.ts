@@ -6,6 +6,7 @@ import { nanoid } from 'nanoid';
 import type { StudyDefinition } from './study-definition';
 import type { Questionnaire, QuestionnairePage } from './questionnaire';
 import { questionKeyFromText } from './question-keys';
+import { createTemplatePage } from './questionnaire-templates';
 
 const id = () => nanoid(10);
 
@@ -153,12 +154,22 @@ export function createPage(
   }
 }
 
-/** Consent, instructions, the choice tasks and the end page. */
+/**
+ * Consent, instructions, the choice tasks and the end page; with a cost attribute, the
+ * instructions are followed by a cheap-talk text and a budget reminder (each removable).
+ */
 export function defaultQuestionnaire(definition: StudyDefinition): Questionnaire {
+  const hasCost = definition.attributes.some((a) => a.isCost);
   return {
     pages: [
       createPage('consent', definition),
       createPage('instructions', definition),
+      ...(hasCost
+        ? [
+            createTemplatePage('cheap_talk', definition),
+            createTemplatePage('budget_reminder', definition),
+          ]
+        : []),
       createPage('tasks', definition),
       createPage('end', definition),
     ],

@@ -69,6 +69,15 @@ export const handSetTaskAlternativeSchema = z.object({
 
 const page = { id: elementIdSchema };
 
+/** Follow-up templates a page was made from (shared/schemas/questionnaire-templates.ts). */
+export const templateKindSchema = z.enum([
+  'consequentiality',
+  'attendance',
+  'cheap_talk',
+  'budget_reminder',
+]);
+export type TemplateKind = z.infer<typeof templateKindSchema>;
+
 export const consentPageSchema = z.object({
   ...page,
   kind: z.literal('consent'),
@@ -90,12 +99,14 @@ export const questionPageSchema = z.object({
   ...page,
   kind: z.literal('question'),
   question: questionSchema,
+  template: templateKindSchema.optional(),
 });
 export const instructionsPageSchema = z.object({
   ...page,
   kind: z.literal('instructions'),
   title,
   body,
+  template: templateKindSchema.optional(),
 });
 /** Where the respondent's block of design tasks goes, one task per screen. */
 export const tasksPageSchema = z.object({ ...page, kind: z.literal('tasks'), title });

@@ -6,6 +6,7 @@
  */
 import { z } from 'zod';
 import { estimationResultSchema, estimationSpecSchema } from './estimation-spec';
+import type { ModelFamily } from './estimation-families';
 
 export const runStatusSchema = z.enum(['queued', 'running', 'done', 'failed', 'cancelled']);
 export type RunStatus = z.infer<typeof runStatusSchema>;
@@ -118,7 +119,7 @@ export type Run = {
   id: string;
   studyId: string;
   name: string;
-  model: 'mnl' | 'mixed';
+  model: ModelFamily;
   status: RunStatus;
   spec: z.output<typeof estimationSpecSchema>;
   respondents: { filterId: string | null };

@@ -6,6 +6,7 @@
  */
 import { z } from 'zod';
 import type { StudyDefinition } from './study-definition';
+import type { ModelFamily } from './estimation-families';
 
 /**
  * A profile whose effective number of draws (Kish, 1/Σw²) is below this is flagged: its
@@ -43,6 +44,34 @@ export const listTastesQuerySchema = z.object({
 });
 export type ListTastesQuery = z.output<typeof listTastesQuerySchema>;
 
+/** Two runs whose individual estimates are compared, respondent by respondent. */
+export const compareTastesQuerySchema = z
+  .object({
+    runId: z.uuid('Choose a finished run'),
+    otherRunId: z.uuid('Choose a second finished run'),
+  })
+  .refine((q) => q.runId !== q.otherRunId, {
+    path: ['otherRunId'],
+    message: 'Choose a different run to compare with',
+  });
+
+/** Per coefficient both runs share: the respondents' pairs of individual means and their correlation. */
+export type TasteComparison = {
+  run: TastesRun;
+  other: TastesRun;
+  /** Respondents with a profile in both runs. */
+  respondents: number;
+  coefficients: {
+    name: string;
+    label: string;
+    correlation: number | null;
+    /** Mean over respondents of (other − run). */
+    meanDifference: number;
+    /** [value in run, value in other run] per respondent (no ids). */
+    pairs: [number, number][];
+  }[];
+};
+
 export const tastesRunQuerySchema = z.object({ runId: z.uuid('Choose a finished run') });
 
 export const segmentsQuerySchema = z
@@ -76,7 +105,7 @@ export const respondentProfileParamsSchema = z.object({
 export type TastesRun = {
   id: string;
   name: string;
-  model: 'mnl' | 'mixed';
+  model: ModelFamily;
   finishedAt: string | null;
   profiles: number;
   profileDraws: number | null;
@@ -115,6 +144,12 @@ export type TasteRow = {
   wtp: Record<string, number> | null;
   effectiveDraws: number;
   lowDraws: boolean;
+  /** HB: 95 % posterior interval of each coefficient. */
+  lower?: Record<string, number>;
+  upper?: Record<string, number>;
+  /** Latent class: the likeliest class and its posterior probability. */
+  likeliestClass?: number;
+  classProbability?: number;
   /** Question key -> readable answer (option labels, number) or null. */
   answers: Record<string, string | null>;
 };

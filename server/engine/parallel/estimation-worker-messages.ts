@@ -10,6 +10,8 @@ import type { BuiltChoiceData } from '../estimation/build-choice-data';
 import type { EstimationProgress } from '../estimation/fit-mixed-logit';
 import type { TransportedError } from './engine-error-transport';
 import type { KernelPreference } from '../simd/kernel-choice';
+import type { HbProgress } from '../hb/fit-hb';
+import type { LatentClassProgress } from '../latent-class/fit-latent-class';
 
 export interface EstimationWorkerTask {
   spec: EstimationSpec;
@@ -25,5 +27,9 @@ export type EstimationWorkerResult = { ok: true; result: EstimationResult } | Tr
 
 export type EstimationProgressMessage =
   | { type: 'progress'; progress: EstimationProgress }
+  /** HB: sampler iterations of the slowest chain. */
+  | { type: 'sampler'; progress: HbProgress }
+  /** Latent class: EM starts done per number of classes. */
+  | { type: 'classes'; progress: LatentClassProgress }
   /** A remark for the run's log (for example, a kernel that fell back to TypeScript). */
   | { type: 'note'; note: string };

@@ -1,6 +1,6 @@
 /**
  * Piscina worker entry for estimation runs: lowers its own CPU priority, runs the pure
- * runEstimation (MNL, mixed logit, WTP, taste profiles) off the caller's thread, posts progress
+ * runEstimation (MNL, mixed logit, HB, latent class, WTP, taste profiles) off the caller's thread, posts progress
  * on the task's port, and returns known engine errors in the transport form
  * (engine-error-transport.ts) so their classes survive the thread boundary. Cancellation: the caller aborts piscina's `run`, which ends this thread and
  * the mixed logit's slice threads it started.
@@ -41,6 +41,10 @@ export async function runEstimationTask(message: unknown): Promise<EstimationWor
         port?.postMessage({ type: 'note', note } satisfies EstimationProgressMessage),
       onProgress: (progress) =>
         port?.postMessage({ type: 'progress', progress } satisfies EstimationProgressMessage),
+      onSamplerProgress: (progress) =>
+        port?.postMessage({ type: 'sampler', progress } satisfies EstimationProgressMessage),
+      onClassProgress: (progress) =>
+        port?.postMessage({ type: 'classes', progress } satisfies EstimationProgressMessage),
     });
     return { ok: true, result };
   } catch (e) {

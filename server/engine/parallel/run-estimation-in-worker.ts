@@ -15,6 +15,8 @@ import { Piscina } from 'piscina';
 import type { EstimationResult } from '../../../shared/schemas/estimation-spec';
 import { EstimationCancelledError } from '../estimation/estimation-errors';
 import type { EstimationProgress } from '../estimation/fit-mixed-logit';
+import type { HbProgress } from '../hb/fit-hb';
+import type { LatentClassProgress } from '../latent-class/fit-latent-class';
 import type {
   EstimationProgressMessage,
   EstimationWorkerResult,
@@ -51,6 +53,8 @@ export async function runEstimationInWorker(
   task: Omit<EstimationWorkerTask, 'port'>,
   hooks: {
     onProgress?: (progress: EstimationProgress) => void;
+    onSamplerProgress?: (progress: HbProgress) => void;
+    onClassProgress?: (progress: LatentClassProgress) => void;
     onNote?: (note: string) => void;
     signal?: AbortSignal;
   } = {},
@@ -58,6 +62,8 @@ export async function runEstimationInWorker(
   const channel = new MessageChannel();
   channel.port1.on('message', (message: EstimationProgressMessage) => {
     if (message?.type === 'progress') hooks.onProgress?.(message.progress);
+    else if (message?.type === 'sampler') hooks.onSamplerProgress?.(message.progress);
+    else if (message?.type === 'classes') hooks.onClassProgress?.(message.progress);
     else if (message?.type === 'note') hooks.onNote?.(message.note);
   });
   try {

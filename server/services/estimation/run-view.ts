@@ -20,6 +20,13 @@ export function splitStoredSpec(stored: unknown): {
   };
 }
 
+/** The seed that makes a run reproducible: the draws' (mixed logit, latent class starts) or the sampler's. */
+export function getRunSeed(spec: EstimationSpec): number | null {
+  if (spec.model === 'mixed' || spec.model === 'latent_class') return spec.draws.seed;
+  if (spec.model === 'hb') return spec.mcmc?.seed ?? 1;
+  return null;
+}
+
 const iso = (d: Date | null) => (d ? d.toISOString() : null);
 
 export function toRunView(row: RunRow): Run {
@@ -29,7 +36,7 @@ export function toRunView(row: RunRow): Run {
     id: row.id,
     studyId: row.studyId,
     name: row.name,
-    model: row.model === 'mixed' ? 'mixed' : 'mnl',
+    model: spec.model,
     status: row.status,
     spec,
     respondents,

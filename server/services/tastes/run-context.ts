@@ -12,6 +12,7 @@ import { getLatestVersion } from '../../../db/queries/versions';
 import { roleCan, type Role } from '../../../shared/permissions';
 import type { RunResult } from '../../../shared/schemas/run';
 import type { EstimationSpec } from '../../../shared/schemas/estimation-spec';
+import type { ModelFamily } from '../../../shared/schemas/estimation-families';
 import type { StudyDefinition } from '../../../shared/schemas/study-definition';
 import type { Design } from '../../../shared/schemas/design';
 import { LOW_EFFECTIVE_DRAWS, type TasteHeader } from '../../../shared/schemas/tastes';
@@ -50,7 +51,7 @@ export async function loadRunContext(
     run: {
       id: run.id,
       name: run.name,
-      model: run.model as 'mnl' | 'mixed',
+      model: run.model as ModelFamily,
       finishedAt: run.finishedAt?.toISOString() ?? null,
       profiles,
       profileDraws: results.profileDraws?.count ?? null,
@@ -72,7 +73,8 @@ export async function loadRunContext(
     ),
     tasks: (design?.tasks ?? []).map((t) => ({ task: t.task, block: t.block })),
     personalColumns: personal,
-    lowDrawsThreshold: LOW_EFFECTIVE_DRAWS,
+    // A latent class profile's "effective draws" is its effective number of classes: no flag.
+    lowDrawsThreshold: run.model === 'latent_class' ? 0 : LOW_EFFECTIVE_DRAWS,
   };
   return { study, run, results, spec, definition, design, version, header, personal };
 }

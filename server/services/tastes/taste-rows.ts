@@ -15,6 +15,26 @@ export function getFlagNames(flags: unknown): string[] {
 const asNumbers = (x: unknown): Record<string, number> =>
   x && typeof x === 'object' ? (x as Record<string, number>) : {};
 
+/** HB intervals and the likeliest latent class, when the run stored them. */
+function familyColumns(extra: unknown): Partial<TasteRow> {
+  if (!extra || typeof extra !== 'object') return {};
+  const e = extra as {
+    lower?: unknown;
+    upper?: unknown;
+    likeliestClass?: number;
+    classProbabilities?: number[];
+  };
+  return {
+    ...(e.lower ? { lower: asNumbers(e.lower), upper: asNumbers(e.upper) } : {}),
+    ...(e.likeliestClass !== undefined
+      ? {
+          likeliestClass: e.likeliestClass,
+          classProbability: e.classProbabilities?.[e.likeliestClass - 1],
+        }
+      : {}),
+  };
+}
+
 export function toTasteRow(
   row: ProfileRow,
   header: TasteHeader,
@@ -33,6 +53,7 @@ export function toTasteRow(
     wtp: row.wtp ? asNumbers(row.wtp) : null,
     effectiveDraws: row.effectiveDraws,
     lowDraws: row.effectiveDraws < header.lowDrawsThreshold,
+    ...familyColumns(row.extra),
     answers,
   };
 }

@@ -1,17 +1,22 @@
 /**
- * One choice task as respondents see it: the alternatives as cards, attribute rows aligned
- * across cards (CSS subgrid), stacked when narrow and side by side once its container is
- * tablet-wide (a container query, so a phone-sized preview frame stacks too); the whole
- * card is the tap target. Pure and presentational: shared by Preview and the respondent app.
+ * One choice task as respondents see it, shared by Preview and the respondent app. Up to three
+ * alternatives (more on wider screens) sit side by side in a compact table with attributes as
+ * rows; an opt-out is one compact choice below it. Only when labels or images cannot fit the
+ * width does the task fall back to one card per alternative. Choices are native radio buttons:
+ * arrow keys move between them, and each one's description reads out its levels.
  */
-import type { KeyboardEvent } from 'react';
+import { useId, useLayoutEffect, useRef, useState, type RefObject } from 'react';
 import type { StudyDefinition } from '@shared/schemas/study-definition';
 import { cn } from '@/lib/cn';
-import { formatLevel } from './format-level';
+import {
+  viewAlternatives,
+  type AlternativeView,
+  type ChoiceTaskAlternative,
+} from './alternative-view';
+import { TaskStack } from './task-stack';
+import { TaskTable } from './task-table';
 
-/** One alternative in display order: a designed one (its design index and levels) or the fixed one. */
-export type ChoiceTaskAlternative =
-  { kind: 'designed'; designIndex: number; levels: Record<string, string> } | { kind: 'fixed' };
+export type { ChoiceTaskAlternative } from './alternative-view';
 
 /** What a task shows of the study: attributes, alternatives and the opt-out / status quo. */
 export type ShownDefinition = Pick<
@@ -26,18 +31,48 @@ export type ChoiceTaskCardProps = {
   onChoose?: (index: number) => void;
   /** URL of a level image from its storage key. */
   imageUrl?: (key: string) => string;
-  /** Accessible name of the group, e.g. "Task 3 of 8". */
+  /** Accessible name of the group, e.g. "Choice 3 of 8". */
   label?: string;
 };
 
-const LETTERS = 'ABCDE';
+/** Narrowest column that still reads well (text; with level images). */
+const MIN_COLUMN_PX = 84;
+const MIN_IMAGE_COLUMN_PX = 112;
 
-function alternativeTitle(definition: ShownDefinition, alt: ChoiceTaskAlternative, shown: number) {
-  if (alt.kind === 'fixed') return definition.fixedAlternative?.label ?? 'None of these';
-  const named = definition.alternatives.labeled
-    ? definition.alternatives.labels[alt.designIndex]?.name
-    : undefined;
-  return named ?? `Option ${LETTERS[shown] ?? shown + 1}`;
+/**
+ * Side by side while the table fits its container; stacked otherwise, until the container
+ * grows back to the width the table needed. Without layout (no width) it stays side by side.
+ */
+function useSideBySide(ref: RefObject<HTMLDivElement | null>, columns: number, images: boolean) {
+  const [state, setState] = useState({ side: true, needed: 0 });
+  const side = useRef(state.side);
+  side.current = state.side;
+  useLayoutEffect(() => {
+    const el = ref.current;
+    if (!el) return;
+    const check = () => {
+      const width = el.clientWidth;
+      if (width === 0) return;
+      if (side.current) {
+        const table = el.querySelector('table');
+        const minimum = columns * (images ? MIN_IMAGE_COLUMN_PX : MIN_COLUMN_PX);
+        const needed = Math.max(minimum, table?.offsetWidth ?? 0);
+        if (needed > width + 1) setState({ side: false, needed });
+      } else if (width >= state.needed) setState({ side: true, needed: 0 });
+    };
+    check();
+    if (typeof ResizeObserver === 'undefined') return;
+    const observer = new ResizeObserver(check);
+    observer.observe(el);
+    return () => observer.disconnect();
+  }, [ref, columns, images, state.needed]);
+  return state.side;
+}
+
+function summary(definition: ShownDefinition, view: AlternativeView): string {
+  return definition.attributes
+    .map((a, i) => `${a.name}: ${view.cells[i].text ?? 'does not apply'}`)
+    .join('; ');
 }
 
 export function ChoiceTaskCard({
@@ -48,20 +83,27 @@ export function ChoiceTaskCard({
   imageUrl = (key) => `/api/files/${encodeURIComponent(key)}`,
   label = 'Choose one option',
 }: ChoiceTaskCardProps) {
-  const attributes = definition.attributes;
-  const fixed = definition.fixedAlternative;
-  const onKey = (e: KeyboardEvent, i: number) => {
-    if (e.key === 'Enter' || e.key === ' ') {
-      e.preventDefault();
-      onChoose?.(i);
-    }
+  const views = viewAlternatives(definition, alternatives, imageUrl);
+  const columns = views.filter((v) => !v.optOut);
+  const optOut = views.find((v) => v.optOut);
+  const images = columns.some((c) => c.cells.some((cell) => cell.image));
+  const box = useRef<HTMLDivElement>(null);
+  const sideBySide = useSideBySide(box, columns.length, images);
+  const name = useId();
+  const summaryId = (position: number) => `${name}-summary-${position}`;
+  const described = definition.attributes.filter((a) => a.description?.trim());
+  const layout = {
+    attributes: definition.attributes,
+    selected: selectedIndex,
+    onChoose,
+    name,
+    summaryId,
   };
-  let designedShown = 0;
-  const described = attributes.filter((a) => a.description?.trim());
 
   return (
-    <div className="@container w-full">
-      {described.length > 0 && (
+    <fieldset className="w-full min-w-0">
+      <legend className="sr-only">{label}</legend>
+      {!sideBySide && described.length > 0 && (
         <details className="mb-3 rounded-md border border-line bg-white px-3 py-2 text-sm">
           <summary className="cursor-pointer font-medium text-ink">What the features mean</summary>
           <dl className="mt-2 space-y-2">
@@ -74,103 +116,40 @@ export function ChoiceTaskCard({
           </dl>
         </details>
       )}
-      <div
-        role="radiogroup"
-        aria-label={label}
-        className="flex flex-col gap-3 @xl:grid @xl:gap-x-4 @xl:gap-y-0"
-        style={{
-          gridTemplateColumns: `repeat(${alternatives.length}, minmax(0, 1fr))`,
-          gridTemplateRows: `auto repeat(${attributes.length}, auto) auto`,
-        }}
-      >
-        {alternatives.map((alt, i) => {
-          const title = alternativeTitle(
-            definition,
-            alt,
-            alt.kind === 'designed' ? designedShown++ : 0,
-          );
-          const selected = selectedIndex === i;
-          const omitted = new Set(
-            alt.kind === 'designed' && definition.alternatives.labeled
-              ? (definition.alternatives.labels[alt.designIndex]?.omittedAttributeIds ?? [])
-              : [],
-          );
-          const isOptOut = alt.kind === 'fixed' && fixed?.kind === 'opt_out';
-          return (
-            <div
-              key={i}
-              role="radio"
-              aria-checked={selected}
-              aria-label={title}
-              tabIndex={onChoose ? 0 : -1}
-              onClick={() => onChoose?.(i)}
-              onKeyDown={(e) => onKey(e, i)}
-              className={cn(
-                'flex flex-col rounded-xl border-2 bg-white p-4 text-left shadow-sm transition-colors @xl:row-span-full @xl:grid @xl:grid-rows-subgrid',
-                onChoose && 'cursor-pointer hover:border-primary/60',
-                selected ? 'border-primary ring-2 ring-primary/25' : 'border-line',
-                alt.kind === 'fixed' && !selected && 'bg-canvas',
-              )}
-            >
-              <div className="mb-2 flex items-center justify-between gap-2">
-                <span className="text-base font-semibold text-ink">{title}</span>
-                <span
-                  aria-hidden
-                  className={cn(
-                    'flex size-6 shrink-0 items-center justify-center rounded-full border-2 text-sm',
-                    selected ? 'border-primary bg-primary text-white' : 'border-line',
-                  )}
-                >
-                  {selected ? '✓' : ''}
-                </span>
-              </div>
-              {attributes.map((a) => {
-                const levelId =
-                  alt.kind === 'designed'
-                    ? alt.levels[a.id]
-                    : isOptOut
-                      ? undefined
-                      : fixed?.levels[a.id];
-                const level = a.levels.find((l) => l.id === levelId);
-                const text = omitted.has(a.id) || !level ? '—' : formatLevel(a, level);
-                return (
-                  <div key={a.id} className="border-t border-line/70 py-2">
-                    <div className="text-xs text-ink-muted">{a.name}</div>
-                    <div className="text-base font-medium text-ink">
-                      {level?.imageKey && !omitted.has(a.id) && (
-                        <img
-                          src={imageUrl(level.imageKey)}
-                          alt=""
-                          className="mb-1 max-h-20 w-auto rounded"
-                          loading="lazy"
-                        />
-                      )}
-                      {text === '—' ? (
-                        <span>
-                          <span aria-hidden>—</span>
-                          <span className="sr-only">does not apply</span>
-                        </span>
-                      ) : (
-                        text
-                      )}
-                    </div>
-                  </div>
-                );
-              })}
-              <div className="mt-auto pt-3">
-                <span
-                  className={cn(
-                    'flex min-h-12 w-full items-center justify-center rounded-lg text-base font-semibold',
-                    selected ? 'bg-primary text-white' : 'bg-primary-soft text-primary',
-                  )}
-                >
-                  {selected ? 'Chosen' : 'Choose this'}
-                </span>
-              </div>
-            </div>
-          );
-        })}
+      <div ref={box} className="w-full">
+        {sideBySide ? (
+          <TaskTable {...layout} columns={columns} />
+        ) : (
+          <TaskStack {...layout} cards={columns} />
+        )}
       </div>
-    </div>
+      {optOut && (
+        <label
+          className={cn(
+            'mt-3 flex min-h-12 items-center gap-3 rounded-lg border-2 bg-white px-4 py-2 text-base font-medium text-ink has-[:focus-visible]:outline has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-accent',
+            selectedIndex === optOut.position ? 'border-primary bg-primary-soft' : 'border-line',
+            onChoose && 'cursor-pointer',
+          )}
+        >
+          <input
+            type="radio"
+            name={name}
+            value={optOut.position}
+            checked={selectedIndex === optOut.position}
+            disabled={!onChoose}
+            onChange={() => onChoose?.(optOut.position)}
+            className="size-5 shrink-0 accent-[var(--color-primary)]"
+          />
+          {optOut.title}
+        </label>
+      )}
+      <div hidden>
+        {columns.map((c) => (
+          <span key={c.position} id={summaryId(c.position)}>
+            {summary(definition, c)}
+          </span>
+        ))}
+      </div>
+    </fieldset>
   );
 }

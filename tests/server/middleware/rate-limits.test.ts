@@ -24,7 +24,13 @@ afterAll(async () => {
   await t.close();
 });
 
-const address = () => `203.0.113.${1 + Math.floor(Math.random() * 250)}`;
+// A fresh client address per call, from the IPv6 documentation prefix (RFC 3849). The limiter
+// counts IPv6 clients per /56, so the random bits sit inside the first 56; with only 250 IPv4
+// test addresses a call now and then hit one that an earlier test had used up.
+const address = () =>
+  `2001:db8:${randomBytes(3)
+    .toString('hex')
+    .replace(/^(.{4})/, '$1:')}00::1`;
 const wrongSignIn = (app: TestApp['app'], email: string, from: string) =>
   supertest(app)
     .post('/api/auth/sign-in')

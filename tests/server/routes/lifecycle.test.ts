@@ -5,7 +5,13 @@ import { createTeamWithAllRoles } from '../../support/factories';
 import { respondents, answers } from '../../../db/schema/fieldwork';
 import { studies } from '../../../db/schema/studies';
 import { closeDueStudies } from '../../../server/services/lifecycle';
-import { answerFor, definition, insertStudy } from './respond-fixtures';
+import {
+  answerFor,
+  definition,
+  fullQuestionnaire,
+  insertInvitee,
+  insertStudy,
+} from './respond-fixtures';
 import { defaultQuestionnaire } from '../../../shared/schemas/questionnaire-defaults';
 
 let t: TestApp;
@@ -44,6 +50,23 @@ describe('GET /lifecycle/readiness', () => {
     expect(res.body.problems).toEqual([
       expect.objectContaining({ code: 'consent_placeholder', path: 'questionnaire.pages.0' }),
     ]);
+  });
+
+  it('when personal links make answers traceable, asks the consent page to say so', async () => {
+    const q = fullQuestionnaire();
+    const consent = q.pages[0];
+    if (consent.kind !== 'consent') throw new Error('consent first');
+    consent.body = 'Taking part is voluntary. We do not ask for your name.';
+    const s = await insertStudy(t, team.teamId, { questionnaire: q });
+    await insertInvitee(t, s.id);
+    const res = await team.agents.editor.get(url(s.id, '/readiness')).expect(200);
+    expect(res.body.problems).toEqual([
+      expect.objectContaining({ code: 'consent_identifiable', path: 'questionnaire.pages.0' }),
+    ]);
+    consent.body += '\n\nYour answers are linked to the personal link we e-mailed to you.';
+    await t.deps.db.update(studies).set({ questionnaire: q }).where(eq(studies.id, s.id));
+    const after = await team.agents.editor.get(url(s.id, '/readiness')).expect(200);
+    expect(after.body).toEqual({ ready: true, problems: [] });
   });
 
   it('when the study is complete, says it is ready', async () => {

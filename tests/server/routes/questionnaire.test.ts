@@ -18,7 +18,7 @@ afterAll(async () => {
 const url = (studyId: string) => `/api/teams/${team.teamId}/studies/${studyId}/questionnaire`;
 
 describe('GET /questionnaire', () => {
-  it('before the first save, shows the default questionnaire with consent, tasks and end', async () => {
+  it('before the first save, shows the default questionnaire with consent, tasks and end; with a cost, a cheap-talk text and a budget reminder before the tasks', async () => {
     const s = await insertStudy(t, team.teamId, { questionnaire: null });
     const res = await team.agents.viewer.get(url(s.id)).expect(200);
     expect(res.body.saved).toBe(false);
@@ -26,9 +26,14 @@ describe('GET /questionnaire', () => {
     expect(res.body.questionnaire.pages.map((p: { kind: string }) => p.kind)).toEqual([
       'consent',
       'instructions',
+      'instructions',
+      'instructions',
       'tasks',
       'end',
     ]);
+    expect(
+      res.body.questionnaire.pages.map((p: { template?: string }) => p.template ?? null),
+    ).toEqual([null, null, 'cheap_talk', 'budget_reminder', null, null]);
     expect(res.body.questionnaire.pages[0].body).toMatch(/ethics approval/);
     expect(res.body.questionnaire.pages[0].body).toMatch(/stop at any time/);
   });

@@ -48,9 +48,11 @@ export const design: Design = {
 export function fullQuestionnaire(): Questionnaire {
   const q = demoQuestionnaire(definition);
   const [consent, ...rest] = q.pages;
+  // Some tests send respondents back to a panel with their id: the consent says so.
+  const body = `${consent.kind === 'consent' ? consent.body : ''}\n\nIf you came from a survey panel, your answers are linked to your panel id.`;
   return {
     pages: [
-      consent,
+      { ...consent, body } as typeof consent,
       {
         id: 'adult',
         kind: 'screening',

@@ -50,30 +50,52 @@ const alternatives = [
   { kind: 'fixed' as const },
 ];
 
+/** The alternatives' titles: the column headers of the table's head. */
+const columnTitles = () =>
+  within(screen.getAllByRole('rowgroup')[0])
+    .getAllByRole('columnheader')
+    .map((h) => h.textContent);
+
 describe('ChoiceTaskCard', () => {
-  it('shows every alternative with formatted levels, the status quo last', () => {
+  it('puts the alternatives side by side as columns with attributes as rows, status quo last', () => {
     render(<ChoiceTaskCard definition={definition} alternatives={alternatives} />);
-    const radios = screen.getAllByRole('radio');
-    expect(radios.map((r) => r.getAttribute('aria-label'))).toEqual([
-      'Option A',
-      'Option B',
-      'Keep the current service',
+    expect(columnTitles()).toEqual(['Option A', 'Option B', 'Keep the current service']);
+    const rows = screen.getAllByRole('row');
+    const values = rows.map((r) =>
+      within(r)
+        .queryAllByRole('cell')
+        .map((c) => c.textContent),
+    );
+    expect(values).toContainEqual(['€6', '€0', '€0']);
+    expect(values).toContainEqual(['Good', 'Poor', 'Poor']);
+    expect(screen.getAllByRole('radio').map((r) => r.getAttribute('value'))).toEqual([
+      '0',
+      '1',
+      '2',
     ]);
-    expect(within(radios[0]).getByText('€6')).toBeInTheDocument();
-    expect(within(radios[0]).getByText('Good')).toBeInTheDocument();
-    expect(within(radios[2]).getByText('€0')).toBeInTheDocument();
-    expect(screen.getByText('The state of the river downstream.')).toBeInTheDocument();
+    expect(screen.getByRole('radio', { name: 'Option A' })).toHaveAccessibleDescription(
+      'Monthly bill increase: €6; River health rating: Good',
+    );
   });
 
-  it('chooses by tap and by keyboard, and marks the selected card', async () => {
+  it('opens attribute help in place, under the attribute name', async () => {
+    render(<ChoiceTaskCard definition={definition} alternatives={alternatives} />);
+    const help = screen.getByText('The state of the river downstream.');
+    expect(help).not.toBeVisible();
+    await userEvent.click(
+      screen.getByRole('button', { name: /What is this.*River health rating/ }),
+    );
+    expect(help).toBeVisible();
+  });
+
+  it('chooses by tapping a column or its radio button, and by the arrow keys', async () => {
     const onChoose = vi.fn();
     const { rerender } = render(
       <ChoiceTaskCard definition={definition} alternatives={alternatives} onChoose={onChoose} />,
     );
     await userEvent.click(screen.getByRole('radio', { name: 'Option B' }));
-    screen.getByRole('radio', { name: 'Keep the current service' }).focus();
-    await userEvent.keyboard('{Enter}');
-    expect(onChoose.mock.calls).toEqual([[1], [2]]);
+    await userEvent.click(screen.getByText('€6'));
+    expect(onChoose.mock.calls).toEqual([[1], [0]]);
     rerender(
       <ChoiceTaskCard
         definition={definition}
@@ -82,14 +104,14 @@ describe('ChoiceTaskCard', () => {
         selectedIndex={1}
       />,
     );
-    expect(screen.getByRole('radio', { name: 'Option B' })).toHaveAttribute('aria-checked', 'true');
-    expect(screen.getByRole('radio', { name: 'Option A' })).toHaveAttribute(
-      'aria-checked',
-      'false',
-    );
+    expect(screen.getByRole('radio', { name: 'Option B' })).toBeChecked();
+    expect(screen.getByRole('radio', { name: 'Option A' })).not.toBeChecked();
+    screen.getByRole('radio', { name: 'Option B' }).focus();
+    await userEvent.keyboard('{ArrowRight}');
+    expect(onChoose).toHaveBeenLastCalledWith(2);
   });
 
-  it('labeled alternatives use their names and mark omitted attributes as not applying', () => {
+  it('offers an opt-out as one compact choice, and marks omitted attributes as not applying', () => {
     render(
       <ChoiceTaskCard
         definition={{
@@ -111,8 +133,11 @@ describe('ChoiceTaskCard', () => {
         ]}
       />,
     );
-    const tank = screen.getByRole('radio', { name: 'Home tank' });
-    expect(within(tank).getByText('does not apply')).toBeInTheDocument();
+    expect(columnTitles()).toEqual(['Mains upgrade', 'Home tank']);
+    expect(screen.getByRole('radio', { name: 'Home tank' })).toHaveAccessibleDescription(
+      /River health rating: does not apply/,
+    );
     expect(screen.getByRole('radio', { name: 'None of these' })).toBeInTheDocument();
+    expect(screen.queryByText('—', { selector: 'td *' })).toBeInTheDocument();
   });
 });

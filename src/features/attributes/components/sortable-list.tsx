@@ -10,7 +10,6 @@ import {
   PointerSensor,
   useSensor,
   useSensors,
-  type Announcements,
   type DragEndEvent,
 } from '@dnd-kit/core';
 import {
@@ -21,6 +20,7 @@ import {
 } from '@dnd-kit/sortable';
 import { CSS } from '@dnd-kit/utilities';
 import { cn } from '@/lib/cn';
+import { createSortableAnnouncements } from '@/lib/sortable-announcements';
 
 type Props<T extends { id: string }> = {
   items: T[];
@@ -51,24 +51,13 @@ export function SortableList<T extends { id: string }>({
     if (from >= 0 && to >= 0) onMove(from, to);
   };
   // Spoken by screen readers: names and positions rather than internal ids.
-  const nameOf = (id: string | number) => {
-    const item = items.find((i) => i.id === id);
-    return item ? itemName(item) : 'item';
-  };
-  const positionOf = (id: string | number) =>
-    `position ${items.findIndex((i) => i.id === id) + 1} of ${items.length}`;
-  const announcements: Announcements = {
-    onDragStart: ({ active }) => `Picked up ${nameOf(active.id)} at ${positionOf(active.id)}.`,
-    onDragOver: ({ active, over }) =>
-      over
-        ? `${nameOf(active.id)} is over ${positionOf(over.id)}.`
-        : `${nameOf(active.id)} is outside the list.`,
-    onDragEnd: ({ active, over }) =>
-      over
-        ? `${nameOf(active.id)} dropped at ${positionOf(over.id)}.`
-        : `${nameOf(active.id)} dropped where it was.`,
-    onDragCancel: ({ active }) => `Moving ${nameOf(active.id)} was cancelled.`,
-  };
+  const announcements = createSortableAnnouncements(
+    items.map((i) => i.id),
+    (id) => {
+      const item = items.find((i) => i.id === id);
+      return item ? itemName(item) : 'item';
+    },
+  );
   return (
     <DndContext
       sensors={sensors}

@@ -1,6 +1,7 @@
 import { TextAreaField, TextField } from '@/components/ui/field';
 import { pageKindLabels, type QuestionnairePage } from '@shared/schemas/questionnaire';
 import type { StudyDefinition } from '@shared/schemas/study-definition';
+import { templateHelp, templateLabels } from '@shared/schemas/questionnaire-templates';
 import { QuestionFields } from './question-fields';
 import { DominanceFields, HandSetTaskFields } from './task-page-fields';
 
@@ -30,6 +31,8 @@ export function PageForm({
   /** Question keys used by the other pages. */
   otherKeys?: string[];
 }) {
+  const template =
+    page.kind === 'question' || page.kind === 'instructions' ? page.template : undefined;
   const titled = (
     <TextField
       label="Title"
@@ -40,8 +43,14 @@ export function PageForm({
   return (
     <div className="space-y-4">
       <div>
-        <h3 className="text-base font-semibold text-ink">{pageKindLabels[page.kind]}</h3>
-        {kindHelp[page.kind] && <p className="mt-1 text-sm text-ink-soft">{kindHelp[page.kind]}</p>}
+        <h3 className="text-base font-semibold text-ink">
+          {template ? templateLabels[template] : pageKindLabels[page.kind]}
+        </h3>
+        {template ? (
+          <p className="mt-1 text-sm text-ink-soft">{templateHelp[template]}</p>
+        ) : (
+          kindHelp[page.kind] && <p className="mt-1 text-sm text-ink-soft">{kindHelp[page.kind]}</p>
+        )}
       </div>
       {(page.kind === 'consent' || page.kind === 'instructions' || page.kind === 'end') && (
         <>

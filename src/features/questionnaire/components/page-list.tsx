@@ -16,11 +16,34 @@ import {
 } from '@dnd-kit/sortable';
 import { CSS } from '@dnd-kit/utilities';
 import { cn } from '@/lib/cn';
+import { createSortableAnnouncements } from '@/lib/sortable-announcements';
 import { pageKindLabels, type QuestionnairePage } from '@shared/schemas/questionnaire';
+import { templateLabels } from '@shared/schemas/questionnaire-templates';
 
 export function pageSummary(page: QuestionnairePage): string {
   if (page.kind === 'question' || page.kind === 'screening') return page.question.text;
   return page.title;
+}
+
+/** What kind of page it is, as the editor names it (a template's own name where it has one). */
+export function pageKindName(page: QuestionnairePage): string {
+  const template =
+    page.kind === 'question' || page.kind === 'instructions' ? page.template : undefined;
+  return template ? templateLabels[template] : pageKindLabels[page.kind];
+}
+
+/** Screen readers hear a moved page's title and its number in the list, not its internal id. */
+export function pageAnnouncements(pages: QuestionnairePage[], movable: QuestionnairePage[]) {
+  const byId = new Map(pages.map((p, i) => [p.id, { page: p, number: i + 1 }]));
+  return createSortableAnnouncements(
+    movable.map((p) => p.id),
+    (id) => {
+      const entry = byId.get(String(id));
+      return entry ? `page “${pageSummary(entry.page)}”` : 'the page';
+    },
+    (id) => byId.get(String(id))?.number ?? 0,
+    pages.length,
+  );
 }
 
 /** Pages that must stay in place: the consent page first and the end page last. */
@@ -43,7 +66,7 @@ function RowBody({ page, index, onSelect, selected }: RowProps) {
     >
       <span className="block text-xs font-medium text-primary">
         <span className="num mr-1 inline-block w-5 text-left">{index + 1}</span>
-        {pageKindLabels[page.kind]}
+        {pageKindName(page)}
       </span>
       <span className="block truncate text-sm text-ink">{pageSummary(page)}</span>
     </button>
@@ -122,12 +145,14 @@ export function PageList({
     const last = pages.filter((p) => p.kind === 'end');
     onReorder([...first, ...moved, ...last]);
   };
+  const announcements = pageAnnouncements(pages, movable);
   return (
     <DndContext
       sensors={sensors}
       collisionDetection={closestCenter}
       onDragEnd={onDragEnd}
       accessibility={{
+        announcements,
         screenReaderInstructions: {
           draggable:
             'To move a page, press space or enter on its handle, use the up and down arrow keys, then press space or enter again. Escape cancels.',

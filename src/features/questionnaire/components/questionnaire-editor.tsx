@@ -9,8 +9,14 @@ import {
   type PageKind,
   type Questionnaire,
   type QuestionnairePage,
+  type TemplateKind,
 } from '@shared/schemas/questionnaire';
 import { createPage } from '@shared/schemas/questionnaire-defaults';
+import {
+  availableTemplates,
+  createTemplatePage,
+  templateLabels,
+} from '@shared/schemas/questionnaire-templates';
 import type { StudyDefinition } from '@shared/schemas/study-definition';
 import { useSaveQuestionnaire } from '../api/save-questionnaire';
 import { PageForm } from './page-form';
@@ -30,16 +36,22 @@ const required = new Set<PageKind>(['consent', 'tasks', 'end']);
 const questionKeys = (pages: QuestionnairePage[]) =>
   pages.flatMap((p) => (p.kind === 'question' || p.kind === 'screening' ? [p.question.key] : []));
 
-/** Where a new page goes: warm-ups before the tasks, checks after them, the rest before the end. */
+/** Page kinds and follow-up templates offered by "Add a page" (select values). */
+type AddChoice = PageKind | `template:${TemplateKind}`;
+
+/**
+ * Where a new page goes: warm-ups, screening and scripts read before the tasks go just before
+ * them; checks and debrief questions after them; everything before the end.
+ */
 function insertPage(pages: QuestionnairePage[], page: QuestionnairePage): QuestionnairePage[] {
   const tasksAt = pages.findIndex((p) => p.kind === 'tasks');
   const endAt = pages.findIndex((p) => p.kind === 'end');
-  const at =
-    page.kind === 'warmup' || page.kind === 'screening'
-      ? Math.max(1, tasksAt)
-      : endAt < 0
-        ? pages.length
-        : endAt;
+  const beforeTasks =
+    page.kind === 'warmup' ||
+    page.kind === 'screening' ||
+    (page.kind === 'instructions' &&
+      (page.template === 'cheap_talk' || page.template === 'budget_reminder'));
+  const at = beforeTasks ? Math.max(1, tasksAt) : endAt < 0 ? pages.length : endAt;
   return [...pages.slice(0, at), page, ...pages.slice(at)];
 }
 
@@ -62,7 +74,7 @@ export function QuestionnaireEditor({
   const [draft, setDraft] = useState(initial);
   const [dirty, setDirty] = useState(!saved);
   const [selectedId, setSelectedId] = useState<string | null>(initial.pages[0]?.id ?? null);
-  const [addKind, setAddKind] = useState<PageKind>('question');
+  const [addKind, setAddKind] = useState<AddChoice>('question');
   const save = useSaveQuestionnaire(teamId, studyId);
   const check = useMemo(() => questionnaireSchema.safeParse(draft), [draft]);
   const selected = draft.pages.find((p) => p.id === selectedId) ?? null;
@@ -104,18 +116,32 @@ export function QuestionnaireEditor({
                 label="Add a page"
                 wrapperClassName="flex-1"
                 value={addKind}
-                onChange={(e) => setAddKind(e.target.value as PageKind)}
+                onChange={(e) => setAddKind(e.target.value as AddChoice)}
               >
                 {addable.map((k) => (
                   <option key={k} value={k}>
                     {pageKindLabels[k]}
                   </option>
                 ))}
+                <optgroup label="Follow-up templates">
+                  {availableTemplates(definition).map((t) => (
+                    <option key={t} value={`template:${t}`}>
+                      {templateLabels[t]}
+                    </option>
+                  ))}
+                </optgroup>
               </SelectField>
               <Button
                 variant="secondary"
                 onClick={() => {
-                  const page = createPage(addKind, definition, questionKeys(draft.pages));
+                  const taken = questionKeys(draft.pages);
+                  const page = addKind.startsWith('template:')
+                    ? createTemplatePage(
+                        addKind.slice('template:'.length) as TemplateKind,
+                        definition,
+                        taken,
+                      )
+                    : createPage(addKind as PageKind, definition, taken);
                   change(insertPage(draft.pages, page));
                   setSelectedId(page.id);
                 }}

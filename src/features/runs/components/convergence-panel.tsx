@@ -11,6 +11,20 @@ import { formatNumber } from '@/utils/format';
 const exp = (x: number | null | undefined) =>
   x === null || x === undefined || !Number.isFinite(x) ? '—' : x.toExponential(2);
 
+function verdict(model: RunResult['model'], ok: boolean): string {
+  if (model === 'hb')
+    return ok
+      ? 'Every split R-hat is below the limit: the chains agree.'
+      : 'Some split R-hat is above the limit: the chains disagree. Read the sampler diagnostics before you report these estimates.';
+  if (model === 'latent_class')
+    return ok
+      ? 'EM converged from the best start; the standard errors come from the observed-data information.'
+      : 'EM stopped at its iteration limit before the log-likelihood settled. Do not report these estimates.';
+  return ok
+    ? 'The gradient test passed: the estimate is a maximum of the log-likelihood.'
+    : 'The gradient test did not pass: the estimates are not at a maximum. Do not report them.';
+}
+
 export function ConvergencePanel({ results }: { results: RunResult }) {
   const d = results.convergenceDetail;
   const ok = results.converged;
@@ -18,11 +32,7 @@ export function ConvergencePanel({ results }: { results: RunResult }) {
     <div className="space-y-3 text-sm">
       <p className="flex flex-wrap items-center gap-2">
         <Badge tone={ok ? 'primary' : 'accent'}>{describeConvergence(results)}</Badge>
-        <span className="text-ink-soft">
-          {ok
-            ? 'The gradient test passed: the estimate is a maximum of the log-likelihood.'
-            : 'The gradient test did not pass: the estimates are not at a maximum. Do not report them.'}
-        </span>
+        <span className="text-ink-soft">{verdict(results.model, ok)}</span>
       </p>
       {d && (
         <dl className="grid grid-cols-1 gap-x-6 sm:grid-cols-2">

@@ -12,6 +12,8 @@ import { isSpreadParameter, showSpread, SPREAD_NOTE } from '../utils/spread';
 const Z95 = 1.959964;
 
 export function ParameterTable({ results }: { results: RunResult }) {
+  // HB: posterior mean and SD over the kept draws; t and p belong to the classical fits.
+  const bayes = results.model === 'hb';
   const labelOf = getLabelOf(results);
   const distribution = new Map(results.population.map((m) => [m.name, m.distribution]));
   const hasSpreads = results.estimates.some((e) => isSpreadParameter(e.name));
@@ -24,7 +26,10 @@ export function ParameterTable({ results }: { results: RunResult }) {
             <th scope="col" className="px-2 py-2 text-left font-medium">
               Parameter
             </th>
-            {['Estimate', 'SE', 'Robust SE', 't', 'p', '95 % interval'].map((h) => (
+            {(bayes
+              ? ['Posterior mean', 'Posterior SD', '95 % interval']
+              : ['Estimate', 'SE', 'Robust SE', 't', 'p', '95 % interval']
+            ).map((h) => (
               <th key={h} scope="col" className="px-2 py-2 text-right font-medium">
                 {h}
               </th>
@@ -55,11 +60,15 @@ export function ParameterTable({ results }: { results: RunResult }) {
                   {spread ? `|s| ${formatNumber(shown.value)}` : formatNumber(shown.value)}
                 </td>
                 <td className="num px-2 py-1.5">{formatNumber(e.se)}</td>
-                <td className="num px-2 py-1.5">{formatNumber(e.robustSe)}</td>
-                <td className="num px-2 py-1.5">{formatNumber(t, 2)}</td>
-                <td className="num px-2 py-1.5">
-                  {formatPValue(t === null ? null : twoSidedP(t))}
-                </td>
+                {!bayes && (
+                  <>
+                    <td className="num px-2 py-1.5">{formatNumber(e.robustSe)}</td>
+                    <td className="num px-2 py-1.5">{formatNumber(t, 2)}</td>
+                    <td className="num px-2 py-1.5">
+                      {formatPValue(t === null ? null : twoSidedP(t))}
+                    </td>
+                  </>
+                )}
                 <td className="num px-2 py-1.5">{formatInterval(shown.lower, shown.upper)}</td>
               </tr>
             );
@@ -67,8 +76,9 @@ export function ParameterTable({ results }: { results: RunResult }) {
         </tbody>
       </table>
       <p className="mt-2 text-xs text-ink-muted">
-        t, p and intervals use the robust (respondent-clustered) standard errors and the normal
-        approximation.
+        {bayes
+          ? 'Posterior means and SDs over the kept draws of all chains; intervals are mean ± 1.96 posterior SD. Read them only when the sampler diagnostics show converged chains.'
+          : 't, p and intervals use the robust (respondent-clustered) standard errors and the normal approximation.'}
         {hasSpreads && ` ${SPREAD_NOTE}`}
       </p>
     </div>

@@ -1,10 +1,12 @@
 /**
- * The form that starts a run: model, a distribution (or "leave out") per coded column, draws,
- * profile draws, seed, starts and which respondents. Validated with the shared create-run
- * schema; the server's field errors come back onto the same fields.
+ * The form that starts a run: model (MNL, mixed logit, HB or latent class, with help on when
+ * to prefer which), a distribution (or "leave out") per coded column, the model's own settings
+ * and which respondents. Validated with the shared create-run schema; the server's field errors
+ * come back onto the same fields.
  */
 import { useForm, useWatch } from 'react-hook-form';
 import type { ModelColumn, Run, RunOptions } from '@shared/schemas/run';
+import { MODEL_LABELS } from '@shared/schemas/estimation-families';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
@@ -12,13 +14,18 @@ import { Alert } from '@/components/ui/feedback';
 import { ApiError } from '@/lib/api-client';
 import { useCreateRun } from '../api/create-run';
 import { EstimationSettingsFields } from './estimation-settings-fields';
+import { HbFields } from './hb-fields';
+import { LatentClassFields } from './latent-class-fields';
+import { ModelHelp } from './model-help';
 import {
   createRunFormResolver,
   getColumnDefault,
   getDefaultRunFormValues,
+  getDefaultStarts,
   toCreateRunInput,
   toFormField,
   type ColumnChoice,
+  type RunFormModel,
   type RunFormValues,
 } from '../utils/run-form-values';
 
@@ -32,6 +39,13 @@ const distributionLabels: Record<ColumnChoice, string> = {
   uniform: 'Uniform',
 };
 
+const coefficientHelp: Record<RunFormModel, string> = {
+  mnl: 'An MNL has fixed coefficients only.',
+  mixed: 'Random tastes vary across respondents; a cost is usually negative lognormal.',
+  hb: 'Random tastes vary across respondents (normal, or lognormal to fix a sign, such as a negative cost); fixed ones are shared.',
+  latent_class: 'Coefficients are fixed within each class and differ between classes.',
+};
+
 function ColumnRow({
   column,
   index,
@@ -41,14 +55,16 @@ function ColumnRow({
 }: {
   column: ModelColumn;
   index: number;
-  model: 'mnl' | 'mixed';
+  model: RunFormModel;
   register: ReturnType<typeof useForm<RunFormValues>>['register'];
   error?: string;
 }) {
   const choices: ColumnChoice[] =
-    model === 'mnl'
+    model === 'mnl' || model === 'latent_class'
       ? ['fixed', 'omit']
-      : ['fixed', 'normal', 'lognormal', 'neg_lognormal', 'triangular', 'uniform', 'omit'];
+      : model === 'hb'
+        ? ['fixed', 'normal', 'lognormal', 'neg_lognormal', 'omit']
+        : ['fixed', 'normal', 'lognormal', 'neg_lognormal', 'triangular', 'uniform', 'omit'];
   return (
     <div className="grid gap-1 border-b border-line py-2 last:border-b-0 sm:grid-cols-[1fr_15rem] sm:items-center sm:gap-4">
       <div className="min-w-0">
@@ -102,11 +118,13 @@ export function RunForm({
   });
   const model = useWatch({ control, name: 'model' });
   const mixed = model === 'mixed';
+  const classical = model === 'mnl' || mixed;
 
-  const switchModel = (next: 'mnl' | 'mixed') => {
+  const switchModel = (next: RunFormModel) => {
     options.columns.forEach((c, i) =>
       setValue(`columns.${i}.distribution`, getColumnDefault(c, next)),
     );
+    setValue('starts', getDefaultStarts(next));
   };
 
   const onSubmit = handleSubmit(async (values) => {
@@ -134,24 +152,26 @@ export function RunForm({
           error={errors.model?.message}
           {...register('model', { onChange: (e) => switchModel(e.target.value) })}
         >
-          <option value="mnl">Multinomial logit (MNL)</option>
-          <option value="mixed">Panel mixed logit</option>
+          {(Object.keys(MODEL_LABELS) as RunFormModel[]).map((m) => (
+            <option key={m} value={m}>
+              {MODEL_LABELS[m]}
+            </option>
+          ))}
         </SelectField>
         <TextField
           label="Name"
-          placeholder={mixed ? 'Mixed logit' : 'Multinomial logit'}
+          placeholder={MODEL_LABELS[model]}
           error={errors.name?.message}
           {...register('name')}
         />
       </div>
 
+      <ModelHelp model={model} />
+
       <fieldset>
         <legend className="mb-1 text-sm font-medium text-ink">Coefficients</legend>
         <p className="mb-2 text-xs text-ink-muted">
-          One coefficient per coded column.{' '}
-          {mixed
-            ? 'Random tastes vary across respondents; a cost is usually negative lognormal.'
-            : 'An MNL has fixed coefficients only.'}
+          One coefficient per coded column. {coefficientHelp[model]}
         </p>
         <div className="rounded-md border border-line bg-white px-3">
           {options.columns.map((column, i) => (
@@ -218,7 +238,10 @@ export function RunForm({
         </fieldset>
       )}
 
-      <EstimationSettingsFields register={register} errors={errors} mixed={mixed} />
+      {model === 'hb' && <HbFields register={register} errors={errors} />}
+      {model === 'latent_class' && <LatentClassFields register={register} errors={errors} />}
+
+      {classical && <EstimationSettingsFields register={register} errors={errors} mixed={mixed} />}
 
       <SelectField
         label="Respondents"

@@ -14,6 +14,12 @@ export function getConvergenceShare(run: Run): number {
   const { stage, gradientNorm, initialGradientNorm } = run.progress;
   if (run.status === 'queued' || stage === 'preparing' || stage === undefined) return 0;
   if (stage === 'saving') return 1;
+  // HB and latent class have no gradient: the share of sampler iterations or EM starts done.
+  if (run.model === 'hb' || run.model === 'latent_class') {
+    const { iteration, maxIterations } = run.progress;
+    if (!iteration || !maxIterations) return 0.02;
+    return Math.min(0.97, Math.max(0.02, iteration / maxIterations));
+  }
   if (!gradientNorm || !initialGradientNorm || initialGradientNorm <= TOLERANCE) return 0.05;
   const share =
     Math.log(initialGradientNorm / gradientNorm) / Math.log(initialGradientNorm / TOLERANCE);
@@ -34,7 +40,11 @@ export function RunProgress({ run }: { run: Run }) {
       : p.stage === 'preparing' || !p.stage
         ? 'Preparing the choice data…'
         : p.iteration
-          ? `Iteration ${p.iteration}`
+          ? run.model === 'latent_class'
+            ? `EM start ${p.iteration} of ${p.maxIterations ?? '?'}`
+            : run.model === 'hb'
+              ? `Iteration ${p.iteration} of ${p.maxIterations ?? '?'} (slowest chain)`
+              : `Iteration ${p.iteration}`
           : 'Estimating…';
   return (
     <div className="space-y-1.5">

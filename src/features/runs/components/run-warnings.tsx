@@ -10,8 +10,12 @@ export function RunWarnings({ results }: { results: RunResult }) {
       <ul className="list-disc space-y-1 pl-5">
         {!results.converged && (
           <li>
-            The estimation did not converge ({results.convergence.reason}); see the gradient under
-            Convergence.
+            The estimation did not converge ({results.convergence.reason});{' '}
+            {results.model === 'hb'
+              ? 'see the sampler diagnostics.'
+              : results.model === 'latent_class'
+                ? 'EM stopped at its iteration limit.'
+                : 'see the gradient under Convergence.'}
           </li>
         )}
         {warnings.map((w, i) => (

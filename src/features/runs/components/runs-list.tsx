@@ -12,7 +12,13 @@ import { formatDateTime, formatDuration, formatNumber } from '@/utils/format';
 import { RunProgress } from './run-progress';
 import { RunStatusBadge } from './run-status-badge';
 
-const modelLabel = (run: Run) => (run.model === 'mnl' ? 'MNL' : 'Mixed logit');
+const SHORT_LABELS: Record<Run['model'], string> = {
+  mnl: 'MNL',
+  mixed: 'Mixed logit',
+  hb: 'HB logit',
+  latent_class: 'Latent class',
+};
+const modelLabel = (run: Run) => SHORT_LABELS[run.model] ?? run.model;
 
 export function RunsList({
   teamId,

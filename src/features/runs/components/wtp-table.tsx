@@ -85,7 +85,8 @@ export function WtpTable({ results }: { results: RunResult }) {
             {[
               headings.mean,
               'Delta 95 %',
-              'Krinsky–Robb 95 %',
+              // HB: the interval of the population mean WTP over the posterior draws.
+              results.model === 'hb' ? 'Posterior 95 %' : 'Krinsky–Robb 95 %',
               ...(headings.median ? [headings.median, 'Delta 95 %', 'Krinsky–Robb 95 %'] : []),
             ].map((h, i) => (
               <th key={`${h}-${i}`} scope="col" className="px-2 py-2 text-right font-medium">

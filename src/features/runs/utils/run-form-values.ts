@@ -1,7 +1,8 @@
 /**
  * The Models form's values and their translation into the shared create-run input, with
  * sensible defaults: a first run is an MNL with every coded column; later ones propose a mixed
- * logit with normal attribute tastes and a negative lognormal cost (constants stay fixed).
+ * logit with normal attribute tastes and a negative lognormal cost (constants stay fixed). HB
+ * uses the same defaults; a latent class model has fixed coefficients within each class.
  */
 import type { FieldErrors } from 'react-hook-form';
 import {
@@ -11,12 +12,22 @@ import {
   type RunOptions,
 } from '@shared/schemas/run';
 import type { CoefficientDistributionInput } from '@shared/schemas/estimation-spec';
+import { LATENT_CLASS_DEFAULT_STARTS } from '@shared/schemas/estimation-families';
 
 export type ColumnChoice = 'omit' | CoefficientDistributionInput;
+export type RunFormModel = 'mnl' | 'mixed' | 'hb' | 'latent_class';
+
+/** Starting points the form proposes per model (the engines' defaults). */
+const DEFAULT_STARTS: Record<RunFormModel, number> = {
+  mnl: 3,
+  mixed: 3,
+  hb: 3,
+  latent_class: LATENT_CLASS_DEFAULT_STARTS,
+};
 
 export interface RunFormValues {
   name: string;
-  model: 'mnl' | 'mixed';
+  model: RunFormModel;
   columns: { distribution: ColumnChoice }[];
   correlated: boolean;
   drawsType: 'halton' | 'sobol' | 'mlhs' | 'random';
@@ -33,15 +44,25 @@ export interface RunFormValues {
   /** '' = the model's default. */
   maxIterations: string;
   simulationCheck: boolean;
+  /** HB sampler: iterations per chain, burn-in ('' = half), thinning, chains. */
+  mcmcIterations: number;
+  mcmcBurnin: string;
+  mcmcThin: number;
+  mcmcChains: number;
+  priorPreset: 'rossi' | 'train';
+  priorMuVariance: number;
+  /** Latent class: fewest and most classes (equal = one class count). */
+  classesMin: number;
+  classesMax: number;
 }
 
-export function getColumnDefault(column: ModelColumn, model: 'mnl' | 'mixed'): ColumnChoice {
-  if (model === 'mnl' || column.kind === 'constant') return 'fixed';
+export function getColumnDefault(column: ModelColumn, model: RunFormModel): ColumnChoice {
+  if (model === 'mnl' || model === 'latent_class' || column.kind === 'constant') return 'fixed';
   return column.isCost ? 'neg_lognormal' : 'normal';
 }
 
 export function getDefaultRunFormValues(options: RunOptions): RunFormValues {
-  const model = options.hasRuns ? 'mixed' : 'mnl';
+  const model: RunFormModel = options.hasRuns ? 'mixed' : 'mnl';
   return {
     name: '',
     model,
@@ -59,7 +80,19 @@ export function getDefaultRunFormValues(options: RunOptions): RunFormValues {
     gradientTolerance: 6.055454452393343e-6,
     maxIterations: '',
     simulationCheck: false,
+    mcmcIterations: 20_000,
+    mcmcBurnin: '',
+    mcmcThin: 10,
+    mcmcChains: 2,
+    priorPreset: 'rossi',
+    priorMuVariance: 100,
+    classesMin: 2,
+    classesMax: 4,
   };
+}
+
+export function getDefaultStarts(model: RunFormModel): number {
+  return DEFAULT_STARTS[model];
 }
 
 export function toCreateRunInput(values: RunFormValues, columns: ModelColumn[]): CreateRunInput {
@@ -68,6 +101,8 @@ export function toCreateRunInput(values: RunFormValues, columns: ModelColumn[]):
     .filter((x) => x.choice !== 'omit');
   const cost = used.find((x) => x.column.isCost);
   const mixed = values.model === 'mixed';
+  const hb = values.model === 'hb';
+  const lc = values.model === 'latent_class';
   return {
     name: values.name,
     spec: {
@@ -77,7 +112,7 @@ export function toCreateRunInput(values: RunFormValues, columns: ModelColumn[]):
         column: column.key,
         distribution: choice as CoefficientDistributionInput,
       })),
-      correlated: mixed && values.correlated,
+      correlated: (mixed || hb) && values.correlated,
       draws: { type: values.drawsType, count: values.drawsCount, seed: values.seed },
       profileDraws: values.profileDraws,
       starts: values.starts,
@@ -92,6 +127,26 @@ export function toCreateRunInput(values: RunFormValues, columns: ModelColumn[]):
           : {}),
         simulationCheck: mixed && values.simulationCheck,
       },
+      ...(hb
+        ? {
+            mcmc: {
+              iterations: values.mcmcIterations,
+              ...(values.mcmcBurnin.trim() !== '' ? { burnin: Number(values.mcmcBurnin) } : {}),
+              thin: values.mcmcThin,
+              chains: values.mcmcChains,
+              seed: values.seed,
+            },
+            priors: { preset: values.priorPreset, muVariance: values.priorMuVariance },
+          }
+        : {}),
+      ...(lc
+        ? {
+            classes:
+              values.classesMin === values.classesMax
+                ? values.classesMin
+                : ([values.classesMin, values.classesMax] as [number, number]),
+          }
+        : {}),
     },
     respondents: { filterId: values.filterId || null },
   };
@@ -110,6 +165,17 @@ const fieldOfSpec: Record<string, keyof RunFormValues> = {
   'spec.settings.gradientTolerance': 'gradientTolerance',
   'spec.settings.maxIterations': 'maxIterations',
   'spec.model': 'model',
+  'spec.mcmc.iterations': 'mcmcIterations',
+  'spec.mcmc.burnin': 'mcmcBurnin',
+  'spec.mcmc.thin': 'mcmcThin',
+  'spec.mcmc.chains': 'mcmcChains',
+  'spec.mcmc.seed': 'seed',
+  'spec.priors.preset': 'priorPreset',
+  'spec.priors.muVariance': 'priorMuVariance',
+  'spec.priors.nu': 'priorPreset',
+  'spec.classes': 'classesMax',
+  'spec.classes.0': 'classesMin',
+  'spec.classes.1': 'classesMax',
   name: 'name',
   'respondents.filterId': 'filterId',
 };

@@ -19,6 +19,8 @@ export const tasteKeys = {
     [...tasteKeys.lists(teamId, studyId), query] as const,
   segments: (teamId: string, studyId: string, params: SegmentsParams) =>
     [...tasteKeys.study(teamId, studyId), 'segments', params] as const,
+  comparison: (teamId: string, studyId: string, runId: string, otherRunId: string) =>
+    [...tasteKeys.study(teamId, studyId), 'comparison', runId, otherRunId] as const,
   respondent: (teamId: string, studyId: string, runId: string, respondentId: string) =>
     [...tasteKeys.study(teamId, studyId), 'respondent', runId, respondentId] as const,
 };

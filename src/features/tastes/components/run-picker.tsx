@@ -1,10 +1,11 @@
 import { SelectField } from '@/components/ui/field';
 import type { TastesRun } from '@shared/schemas/tastes';
+import { MODEL_LABELS } from '@shared/schemas/estimation-families';
 import { formatDateTime } from '@/utils/format';
 
 const describe = (r: TastesRun) => {
   const when = r.finishedAt ? formatDateTime(r.finishedAt) : '';
-  const kind = r.model === 'mixed' ? 'mixed logit' : 'MNL';
+  const kind = MODEL_LABELS[r.model] ?? r.model;
   return `${r.name || 'Unnamed run'} — ${kind}, ${when}`;
 };
 

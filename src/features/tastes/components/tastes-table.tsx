@@ -1,6 +1,7 @@
 /**
  * The profile table: one row per respondent, each conditional mean with its conditional SD
- * beside it, WTP, effective draws (flagged when few), quality flags and background answers.
+ * beside it (HB: posterior mean, SD and 95 % interval; latent class: the likeliest class),
+ * WTP, effective draws (flagged when few), quality flags and background answers.
  * Sorting and paging happen on the server; headers of means are sort buttons too.
  */
 import { Link } from 'react-router';
@@ -8,6 +9,14 @@ import { Button } from '@/components/ui/button';
 import type { TasteList } from '@shared/schemas/tastes';
 import type { TastesQuery } from '../api/list-tastes';
 import { formatNumber } from '@/utils/format';
+
+/** What the profile's `effectiveDraws` measures in each family (shared tasteProfileSchema). */
+const drawsLabel: Record<TasteList['run']['model'], string> = {
+  mnl: 'Effective draws',
+  mixed: 'Effective draws',
+  hb: 'Smallest ESS',
+  latent_class: 'Effective classes',
+};
 
 const th = 'whitespace-nowrap px-3 py-2 text-left text-xs font-semibold text-ink-soft';
 const num = 'px-3 py-2 text-right font-mono tabular-nums whitespace-nowrap';
@@ -32,6 +41,7 @@ export function TastesTable({
     });
   const ariaSort = (sort: string) =>
     query.sort === sort ? (query.dir === 'asc' ? 'ascending' : 'descending') : undefined;
+  const latentClass = data.run.model === 'latent_class';
   const wtpLabel = (n: string) => data.coefficients.find((c) => c.name === n)?.label ?? n;
 
   return (
@@ -49,6 +59,7 @@ export function TastesTable({
                 </button>
               </th>
               {data.personalColumns && <th className={th}>External id</th>}
+              {latentClass && <th className={th}>Likeliest class</th>}
               {data.coefficients.map((c) => (
                 <th
                   key={c.name}
@@ -79,7 +90,7 @@ export function TastesTable({
               ))}
               <th className={`${th} text-right`} aria-sort={ariaSort('effectiveDraws')}>
                 <button type="button" onClick={() => sortBy('effectiveDraws')}>
-                  Effective draws
+                  {drawsLabel[data.run.model]}
                 </button>
               </th>
               <th className={th}>Quality flags</th>
@@ -104,6 +115,14 @@ export function TastesTable({
                 {data.personalColumns && (
                   <td className="px-3 py-2 font-mono text-xs">{r.externalId ?? '—'}</td>
                 )}
+                {latentClass && (
+                  <td className="px-3 py-2 whitespace-nowrap">
+                    {r.likeliestClass ?? '—'}
+                    <span className="ml-1 text-xs text-ink-muted">
+                      ({formatNumber(r.classProbability, 2)})
+                    </span>
+                  </td>
+                )}
                 {data.coefficients.map((c) => (
                   <td key={c.name} className={num}>
                     {c.distribution === 'fixed' ? (
@@ -119,6 +138,12 @@ export function TastesTable({
                         <span className="ml-1 text-xs text-ink-muted">
                           ± {formatNumber(r.sd[c.name])}
                         </span>
+                        {r.lower && r.upper && (
+                          <span className="block text-xs text-ink-muted">
+                            95 % {formatNumber(r.lower[c.name], 2)} to{' '}
+                            {formatNumber(r.upper[c.name], 2)}
+                          </span>
+                        )}
                       </>
                     )}
                   </td>

@@ -27,6 +27,9 @@ import { DerivedTable } from '@/features/runs/components/derived-table';
 import { ImpliedCovariance } from '@/features/runs/components/implied-covariance';
 import { CovarianceDownloads } from '@/features/runs/components/covariance-downloads';
 import { exportsPath } from '@/features/exports/api/get-export-manifest';
+import { HbDiagnostics } from '@/features/runs/components/hb-diagnostics';
+import { LatentClassPanel } from '@/features/runs/components/latent-class-panel';
+import { MODEL_LABELS } from '@shared/schemas/estimation-families';
 
 export const createRunLoader =
   (queryClient: QueryClient) =>
@@ -46,6 +49,8 @@ export function Component() {
   if (isPending) return <Spinner label="Loading the run…" />;
   if (error || !run) return <ErrorText error={error} />;
   const results = run.results;
+  // HB reports posterior draws, latent class its own SEs: no covariance files to download.
+  const classicalFit = run.model === 'mnl' || run.model === 'mixed';
 
   return (
     <div className="space-y-6">
@@ -71,8 +76,7 @@ export function Component() {
           )}
         </div>
         <p className="text-xs text-ink-muted">
-          {run.model === 'mnl' ? 'Multinomial logit' : 'Panel mixed logit'} · started{' '}
-          {formatDateTime(run.createdAt)}
+          {MODEL_LABELS[run.model]} · started {formatDateTime(run.createdAt)}
           {run.dataHash && (
             <>
               {' '}
@@ -101,6 +105,20 @@ export function Component() {
           <Card title="Convergence">
             <ConvergencePanel results={results} />
           </Card>
+          {results.diagnostics && (
+            <Card title="Sampler diagnostics">
+              <PanelErrorBoundary>
+                <HbDiagnostics results={results} />
+              </PanelErrorBoundary>
+            </Card>
+          )}
+          {(results.classes?.length ?? 0) > 0 && (
+            <Card title="Classes">
+              <PanelErrorBoundary>
+                <LatentClassPanel results={results} />
+              </PanelErrorBoundary>
+            </Card>
+          )}
           <Card title="Parameters">
             <PanelErrorBoundary>
               <ParameterTable results={results} />
@@ -130,14 +148,16 @@ export function Component() {
               </PanelErrorBoundary>
             </Card>
           )}
-          <Card title="Covariance of the estimates">
-            <CovarianceDownloads
-              results={results}
-              hrefOf={(kind) =>
-                `${exportsPath(teamId, studyId)}/covariance.csv?runId=${encodeURIComponent(run.id)}&kind=${kind}`
-              }
-            />
-          </Card>
+          {classicalFit && (
+            <Card title="Covariance of the estimates">
+              <CovarianceDownloads
+                results={results}
+                hrefOf={(kind) =>
+                  `${exportsPath(teamId, studyId)}/covariance.csv?runId=${encodeURIComponent(run.id)}&kind=${kind}`
+                }
+              />
+            </Card>
+          )}
           {results.population.some((m) => m.distribution !== 'fixed') && (
             <Card title="How tastes vary across respondents">
               <PanelErrorBoundary>

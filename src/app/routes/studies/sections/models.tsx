@@ -58,8 +58,9 @@ export function Component() {
         <div>
           <h2 className="text-xl font-semibold text-ink">Models</h2>
           <p className="text-sm text-ink-soft">
-            Estimation runs on the included respondents: multinomial logit, then panel mixed logit
-            with each respondent&apos;s taste profile.
+            Estimation runs on the included respondents: multinomial logit first, then panel mixed
+            logit, hierarchical Bayes or latent class logit with each respondent&apos;s taste
+            profile.
           </p>
         </div>
         {canManage && !formOpen && options.data && (

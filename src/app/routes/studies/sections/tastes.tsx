@@ -15,6 +15,7 @@ import { TastesTable } from '@/features/tastes/components/tastes-table';
 import { TastesFilters } from '@/features/tastes/components/tastes-filters';
 import { SegmentsPanel } from '@/features/tastes/components/segments-panel';
 import { TasteCautions } from '@/features/tastes/components/taste-cautions';
+import { ComparisonPanel } from '@/features/tastes/components/comparison-panel';
 
 const initialQuery = { page: 1, pageSize: 25, sort: 'number', dir: 'asc' as const };
 
@@ -42,8 +43,8 @@ export function Component() {
           </Link>
         }
       >
-        Taste profiles come from a finished mixed-logit run: each respondent&apos;s conditional
-        means and SDs given the choices they made.
+        Taste profiles come from a finished mixed logit, hierarchical Bayes or latent class run:
+        each respondent&apos;s individual means and SDs given the choices they made.
       </EmptyState>
     );
 
@@ -75,6 +76,9 @@ export function Component() {
         <>
           <PanelErrorBoundary title="The segments could not be shown">
             <SegmentsPanel key={header.run.id} teamId={teamId} studyId={studyId} header={header} />
+          </PanelErrorBoundary>
+          <PanelErrorBoundary title="The comparison could not be shown">
+            <ComparisonPanel teamId={teamId} studyId={studyId} runs={runs.data} runId={runId} />
           </PanelErrorBoundary>
           <section aria-labelledby="profiles-heading" className="space-y-3">
             <h3 id="profiles-heading" className="text-base font-semibold text-ink">

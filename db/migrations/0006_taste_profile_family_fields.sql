@@ -1,0 +1,1 @@
+ALTER TABLE "taste_profiles" ADD COLUMN "extra" jsonb;

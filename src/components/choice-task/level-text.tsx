@@ -1,0 +1,20 @@
+import type { AlternativeCell } from './alternative-view';
+
+/** One level as shown in a task: its image (if any) and text, or a dash where it does not apply. */
+export function LevelText({ cell }: { cell: AlternativeCell }) {
+  if (cell.text === null)
+    return (
+      <span>
+        <span aria-hidden>—</span>
+        <span className="sr-only">does not apply</span>
+      </span>
+    );
+  return (
+    <>
+      {cell.image && (
+        <img src={cell.image} alt="" className="mb-1 max-h-20 w-auto max-w-full rounded" />
+      )}
+      <span className="break-words">{cell.text}</span>
+    </>
+  );
+}

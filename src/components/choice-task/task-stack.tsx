@@ -1,0 +1,60 @@
+import type { Attribute } from '@shared/schemas/study-definition';
+import { cn } from '@/lib/cn';
+import type { AlternativeView } from './alternative-view';
+import { LevelText } from './level-text';
+
+type Props = {
+  attributes: Attribute[];
+  cards: AlternativeView[];
+  selected: number | null;
+  onChoose?: (position: number) => void;
+  name: string;
+  summaryId: (position: number) => string;
+};
+
+/**
+ * The fallback when the alternatives cannot fit side by side (long labels, images, many
+ * alternatives on a narrow screen): one card per alternative, attributes listed in the same
+ * order in every card. The whole card is the tap target.
+ */
+export function TaskStack({ attributes, cards, selected, onChoose, name, summaryId }: Props) {
+  return (
+    <div className="space-y-3">
+      {cards.map((c) => (
+        <div
+          key={c.position}
+          onClick={() => onChoose?.(c.position)}
+          className={cn(
+            'rounded-xl border-2 bg-white p-4 shadow-sm',
+            selected === c.position ? 'border-primary ring-2 ring-primary/25' : 'border-line',
+            onChoose && 'cursor-pointer',
+          )}
+        >
+          <label className="flex min-h-10 cursor-pointer items-center justify-between gap-3 has-[:focus-visible]:outline has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-accent">
+            <span className="text-base font-semibold text-ink">{c.title}</span>
+            <input
+              type="radio"
+              name={name}
+              value={c.position}
+              checked={selected === c.position}
+              disabled={!onChoose}
+              onChange={() => onChoose?.(c.position)}
+              aria-describedby={summaryId(c.position)}
+              className="size-6 shrink-0 accent-[var(--color-primary)]"
+            />
+          </label>
+          <dl className="mt-2">
+            {attributes.map((a, row) => (
+              <div key={a.id} className="border-t border-line/70 py-2">
+                <dt className="text-xs text-ink-muted">{a.name}</dt>
+                <dd className="text-base font-medium text-ink">
+                  <LevelText cell={c.cells[row]} />
+                </dd>
+              </div>
+            ))}
+          </dl>
+        </div>
+      ))}
+    </div>
+  );
+}

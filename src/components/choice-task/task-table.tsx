@@ -1,0 +1,118 @@
+import type { Attribute } from '@shared/schemas/study-definition';
+import { cn } from '@/lib/cn';
+import type { AlternativeView } from './alternative-view';
+import { AttributeName } from './attribute-name';
+import { LevelText } from './level-text';
+
+type Props = {
+  attributes: Attribute[];
+  columns: AlternativeView[];
+  selected: number | null;
+  onChoose?: (position: number) => void;
+  /** Name of the radio group (one per task on the page). */
+  name: string;
+  /** Id prefix for each alternative's spoken summary. */
+  summaryId: (position: number) => string;
+};
+
+/**
+ * The alternatives side by side: one column each, attributes as rows (the attribute's name on
+ * its own line across the columns, so values keep the full column width on a phone), and a
+ * radio button under each column. Tapping anywhere in a column chooses it.
+ */
+export function TaskTable({ attributes, columns, selected, onChoose, name, summaryId }: Props) {
+  const width = `${100 / columns.length}%`;
+  const tint = (c: AlternativeView) => (selected === c.position ? 'bg-primary-soft' : 'bg-white');
+  const choose = (c: AlternativeView) => () => onChoose?.(c.position);
+  return (
+    <table className="w-full border-separate border-spacing-0 text-left">
+      <thead>
+        <tr>
+          {columns.map((c) => (
+            <th
+              key={c.position}
+              scope="col"
+              style={{ width }}
+              onClick={choose(c)}
+              className={cn(
+                'rounded-t-lg border-x-2 border-t-2 px-2 pb-1 pt-2 align-bottom text-sm font-semibold leading-tight',
+                selected === c.position
+                  ? 'border-primary bg-primary text-white'
+                  : 'border-transparent text-ink',
+                onChoose && 'cursor-pointer',
+              )}
+            >
+              {c.title}
+            </th>
+          ))}
+        </tr>
+      </thead>
+      {attributes.map((a, row) => (
+        <tbody key={a.id}>
+          <tr>
+            <th
+              scope="colgroup"
+              colSpan={columns.length}
+              className="border-t border-line px-2 pb-0.5 pt-2 text-left text-xs font-normal text-ink-muted"
+            >
+              <AttributeName attribute={a} />
+            </th>
+          </tr>
+          <tr>
+            {columns.map((c) => (
+              <td
+                key={c.position}
+                onClick={choose(c)}
+                className={cn(
+                  'border-x-2 px-2 pb-2 align-top text-base font-medium text-ink',
+                  selected === c.position ? 'border-primary' : 'border-transparent',
+                  tint(c),
+                  onChoose && 'cursor-pointer',
+                )}
+              >
+                <LevelText cell={c.cells[row]} />
+              </td>
+            ))}
+          </tr>
+        </tbody>
+      ))}
+      <tfoot>
+        <tr>
+          {columns.map((c) => (
+            <td
+              key={c.position}
+              className={cn(
+                'rounded-b-lg border-x-2 border-b-2 px-1 pb-2 pt-1',
+                selected === c.position ? 'border-primary' : 'border-transparent',
+                tint(c),
+              )}
+            >
+              <label
+                className={cn(
+                  'flex min-h-12 items-center justify-center gap-2 rounded-lg px-1 text-sm font-semibold has-[:focus-visible]:outline has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-accent',
+                  selected === c.position
+                    ? 'bg-primary text-white'
+                    : 'bg-primary-soft text-primary',
+                  onChoose && 'cursor-pointer',
+                )}
+              >
+                <input
+                  type="radio"
+                  name={name}
+                  value={c.position}
+                  checked={selected === c.position}
+                  disabled={!onChoose}
+                  onChange={choose(c)}
+                  aria-describedby={summaryId(c.position)}
+                  className="size-5 shrink-0 accent-[var(--color-primary)]"
+                />
+                <span aria-hidden>{selected === c.position ? 'Chosen' : 'Choose'}</span>
+                <span className="sr-only">{c.title}</span>
+              </label>
+            </td>
+          ))}
+        </tr>
+      </tfoot>
+    </table>
+  );
+}

@@ -1,0 +1,156 @@
+/**
+ * Convergence of an HB run: split R-hat and ESS of each population mean and variance (flagged
+ * above the limit, never hidden), acceptance per chain (burn-in and kept draws; the proposal
+ * adapts toward about 0.3 during burn-in), and trace plots of one parameter across the chains.
+ */
+import { useState } from 'react';
+import type { RunResult } from '@shared/schemas/run';
+import { Alert } from '@/components/ui/feedback';
+import { SelectField } from '@/components/ui/field';
+import { formatNumber, formatPercent } from '@/utils/format';
+import { TraceChart } from './trace-chart';
+
+/** ESS below this is too few draws to trust a posterior mean (common practice, no source). */
+const ESS_LOW = 400;
+
+type Diagnostics = NonNullable<RunResult['diagnostics']>;
+
+export function HbDiagnostics({ results }: { results: RunResult }) {
+  const d = results.diagnostics;
+  if (!d) return null;
+  const label = new Map(results.columns.map((c) => [c.coefficient, c.label]));
+  return (
+    <div className="space-y-5">
+      {d.flagged ? (
+        <Alert tone="warning" title="The chains may not have converged">
+          The largest split R-hat is {formatNumber(d.rhatMax, 3)}, above {d.rhatLimit}. Read the
+          traces below; run more iterations or a longer burn-in before you rely on these estimates.
+        </Alert>
+      ) : (
+        <p className="text-sm text-ink-soft">
+          Largest split R-hat {formatNumber(d.rhatMax, 3)} (limit {d.rhatLimit}), smallest effective
+          sample size {formatNumber(d.essMin, 0)}.
+        </p>
+      )}
+      <RhatTable d={d} label={label} />
+      <ChainTable d={d} />
+      <Traces d={d} label={label} />
+    </div>
+  );
+}
+
+function RhatTable({ d, label }: { d: Diagnostics; label: Map<string, string> }) {
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full min-w-[18rem] text-sm">
+        <caption className="sr-only">Split R-hat and effective sample size per parameter</caption>
+        <thead>
+          <tr className="border-b border-line text-left text-xs text-ink-muted">
+            <th className="px-2 py-1.5 font-medium">Parameter</th>
+            <th className="num px-2 py-1.5 font-medium">Split R-hat</th>
+            <th className="num px-2 py-1.5 font-medium">ESS</th>
+          </tr>
+        </thead>
+        <tbody>
+          {d.parameters.map((p) => {
+            const [coef, ...rest] = p.name.split('.');
+            const part = rest.join('.') === 'variance' ? 'variance' : 'mean';
+            const high = p.rhat !== null && p.rhat > d.rhatLimit;
+            const few = p.ess !== null && p.ess < ESS_LOW;
+            return (
+              <tr key={p.name} className="border-b border-line/60">
+                <td className="px-2 py-1.5">
+                  {label.get(coef) ?? coef} <span className="text-xs text-ink-muted">{part}</span>
+                </td>
+                <td className={`num px-2 py-1.5 ${high ? 'font-semibold text-danger' : ''}`}>
+                  {formatNumber(p.rhat, 3)}
+                  {high && <span className="ml-1 text-xs">above {d.rhatLimit}</span>}
+                </td>
+                <td className={`num px-2 py-1.5 ${few ? 'font-semibold text-danger' : ''}`}>
+                  {formatNumber(p.ess, 0)}
+                  {few && <span className="ml-1 text-xs">few</span>}
+                </td>
+              </tr>
+            );
+          })}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+function ChainTable({ d }: { d: Diagnostics }) {
+  const hasFixed = d.chains.some((c) => c.acceptanceFixed !== null);
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full min-w-[18rem] text-sm">
+        <caption className="sr-only">Acceptance rate per chain</caption>
+        <thead>
+          <tr className="border-b border-line text-left text-xs text-ink-muted">
+            <th className="px-2 py-1.5 font-medium">Chain</th>
+            <th className="num px-2 py-1.5 font-medium">Acceptance, burn-in</th>
+            <th className="num px-2 py-1.5 font-medium">Acceptance, kept</th>
+            {hasFixed && <th className="num px-2 py-1.5 font-medium">Fixed coefficients</th>}
+            <th className="num px-2 py-1.5 font-medium">Proposal scale</th>
+          </tr>
+        </thead>
+        <tbody>
+          {d.chains.map((c) => (
+            <tr key={c.chain} className="border-b border-line/60">
+              <td className="px-2 py-1.5">{c.chain}</td>
+              <td className="num px-2 py-1.5">{formatPercent(c.acceptanceBurnin)}</td>
+              <td className="num px-2 py-1.5">{formatPercent(c.acceptance)}</td>
+              {hasFixed && <td className="num px-2 py-1.5">{formatPercent(c.acceptanceFixed)}</td>}
+              <td className="num px-2 py-1.5">{formatNumber(c.scale, 3)}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      <p className="mt-1 text-xs text-ink-muted">
+        The respondent-level proposal adapts during burn-in toward an acceptance of about 30 %, then
+        stays fixed.
+      </p>
+    </div>
+  );
+}
+
+function Traces({ d, label }: { d: Diagnostics; label: Map<string, string> }) {
+  const names = Object.keys(d.chains[0]?.trace.mean ?? {});
+  const [name, setName] = useState(names[0] ?? '');
+  const [part, setPart] = useState<'mean' | 'variance' | 'acceptance'>('mean');
+  if (names.length === 0) return null;
+  const series = d.chains.map((c) => ({
+    chain: c.chain,
+    iteration: c.trace.iteration,
+    values: part === 'acceptance' ? c.trace.acceptance : (c.trace[part][name] ?? []),
+  }));
+  const title =
+    part === 'acceptance'
+      ? 'Acceptance rate'
+      : `${part === 'mean' ? 'Population mean' : 'Population variance'} of ${label.get(name) ?? name}`;
+  return (
+    <div className="space-y-2">
+      <div className="grid gap-3 sm:grid-cols-2">
+        <SelectField
+          label="Trace of"
+          value={part}
+          onChange={(e) => setPart(e.target.value as typeof part)}
+        >
+          <option value="mean">Population mean μ</option>
+          <option value="variance">Population variance Σ (diagonal)</option>
+          <option value="acceptance">Acceptance rate</option>
+        </SelectField>
+        {part !== 'acceptance' && (
+          <SelectField label="Coefficient" value={name} onChange={(e) => setName(e.target.value)}>
+            {names.map((n) => (
+              <option key={n} value={n}>
+                {label.get(n) ?? n}
+              </option>
+            ))}
+          </SelectField>
+        )}
+      </div>
+      <TraceChart title={title} series={series} />
+    </div>
+  );
+}

@@ -1,0 +1,96 @@
+/**
+ * The run form's hierarchical Bayes settings: sampler (iterations, burn-in, thinning, chains,
+ * seed), correlation of the random tastes, and the priors, with a note on how the attributes'
+ * coding and scale interact with them.
+ */
+import type { FieldErrors, UseFormRegister } from 'react-hook-form';
+import { SelectField, TextField } from '@/components/ui/field';
+import type { RunFormValues } from '../utils/run-form-values';
+
+export function HbFields({
+  register,
+  errors,
+}: {
+  register: UseFormRegister<RunFormValues>;
+  errors: FieldErrors<RunFormValues>;
+}) {
+  const number = { type: 'number', inputMode: 'numeric' } as const;
+  return (
+    <>
+      <fieldset className="grid gap-4 sm:grid-cols-3">
+        <legend className="mb-2 text-sm font-medium text-ink">Sampler</legend>
+        <TextField
+          label="Iterations per chain"
+          hint="Burn-in included"
+          error={errors.mcmcIterations?.message}
+          {...number}
+          {...register('mcmcIterations', { valueAsNumber: true })}
+        />
+        <TextField
+          label="Burn-in"
+          hint="Empty: half the iterations"
+          error={errors.mcmcBurnin?.message}
+          {...number}
+          {...register('mcmcBurnin')}
+        />
+        <TextField
+          label="Keep every n-th draw"
+          error={errors.mcmcThin?.message}
+          {...number}
+          {...register('mcmcThin', { valueAsNumber: true })}
+        />
+        <TextField
+          label="Chains"
+          hint="Run in parallel, each with its own seed stream"
+          error={errors.mcmcChains?.message}
+          {...number}
+          {...register('mcmcChains', { valueAsNumber: true })}
+        />
+        <TextField
+          label="Seed"
+          error={errors.seed?.message}
+          {...number}
+          {...register('seed', { valueAsNumber: true })}
+        />
+        <label className="flex items-center gap-2 self-end pb-2 text-sm text-ink">
+          <input type="checkbox" className="size-4 accent-primary" {...register('correlated')} />
+          Correlated random tastes
+        </label>
+        {errors.correlated?.message && (
+          <p role="alert" className="text-xs font-medium text-danger sm:col-span-3">
+            {errors.correlated.message}
+          </p>
+        )}
+      </fieldset>
+      <fieldset className="grid gap-4 sm:grid-cols-2">
+        <legend className="mb-2 text-sm font-medium text-ink">Priors</legend>
+        <SelectField
+          label="Prior on the covariance Σ"
+          error={errors.priorPreset?.message}
+          {...register('priorPreset')}
+        >
+          <option value="rossi">Inverse Wishart IW(K+3, (K+3)·I), Rossi et al. 2005</option>
+          <option value="train">Inverse Wishart IW(K, K·I), Train 2009</option>
+        </SelectField>
+        <TextField
+          label="Prior variance of the population means μ"
+          hint="μ ~ N(0, variance·I); 100 is diffuse for coefficients of order 1"
+          error={errors.priorMuVariance?.message}
+          type="number"
+          inputMode="decimal"
+          step="any"
+          {...register('priorMuVariance', { valueAsNumber: true })}
+        />
+        <p className="text-xs text-ink-muted sm:col-span-2">
+          The priors act on the coefficients as coded. Dummy- and effects-coded levels are
+          differences on the utility scale, usually of order 1, where these priors are weak. A
+          linear attribute is per unit: a cost in single currency units gets a coefficient far below
+          1, and the inverse Wishart prior, centred on variances near 1, then pulls its spread
+          upward. Rescale such attributes (for example per 10 or per 100) before you rely on HB
+          spreads, and keep the coding the same when you compare HB with the mixed logit. K is the
+          number of random coefficients.
+        </p>
+      </fieldset>
+    </>
+  );
+}

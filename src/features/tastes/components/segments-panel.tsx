@@ -95,6 +95,14 @@ export function SegmentsPanel({
           <option value="box">Box plots</option>
         </SelectField>
       </div>
+      {groupBy === 'task' && (
+        <p className="mt-3 rounded-md border border-accent/50 bg-accent-soft px-3 py-2 text-xs text-ink">
+          Read this split with care: the profiles were computed from these same choices, so
+          respondents who chose an alternative get profiles that favour it, and part of the
+          difference between the groups arises by construction. A split by a background question
+          does not share this problem.
+        </p>
+      )}
       <div className="mt-4">
         {segments.isPending && segments.fetchStatus !== 'idle' && <Spinner label="Splitting…" />}
         <ErrorText error={segments.error} />

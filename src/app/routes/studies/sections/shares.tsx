@@ -50,13 +50,16 @@ export function Component() {
   const scenario = alternatives ?? [0, 1].map((i) => makeAlternative(definition, i));
   const segmentOptions = (header?.questions ?? []).filter((q) => q.type === 'single');
   const fixed = definition.fixedAlternative;
-  const onSimulate = () =>
-    simulate.mutate({
-      runId,
-      alternatives: scenario,
-      includeFixed,
-      segmentBy: segment ? { groupBy: 'question', question: segment } : null,
-    });
+  const request = {
+    runId,
+    alternatives: scenario,
+    includeFixed,
+    segmentBy: segment ? { groupBy: 'question' as const, question: segment } : null,
+  };
+  const onSimulate = () => simulate.mutate(request);
+  // Results stay on screen while the inputs change, marked out of date from the first edit.
+  const stale =
+    simulate.data !== undefined && JSON.stringify(simulate.variables) !== JSON.stringify(request);
 
   return (
     <div className="space-y-6">
@@ -123,8 +126,15 @@ export function Component() {
       </Card>
       <ErrorText error={simulate.error} />
       {simulate.data && (
-        <Card title="Predicted shares">
-          <ShareResults result={simulate.data} />
+        <Card title={stale ? 'Predicted shares — out of date' : 'Predicted shares'}>
+          {stale && (
+            <Alert tone="warning" className="mb-4">
+              The scenario changed after these shares were simulated. Simulate again to update them.
+            </Alert>
+          )}
+          <div className={stale ? 'opacity-50' : undefined}>
+            <ShareResults result={simulate.data} />
+          </div>
         </Card>
       )}
     </div>

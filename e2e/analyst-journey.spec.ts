@@ -42,6 +42,14 @@ test('an analyst runs a mixed logit, splits tastes by a background question and 
       .getByRole('link', { name: /Water service packages/ })
       .first()
       .click();
+    // The live study's attributes are frozen: their fields look read-only, not like empty boxes.
+    await page
+      .getByRole('link', { name: /Attributes/ })
+      .first()
+      .click();
+    const frozenField = page.getByRole('textbox').first();
+    await expect(frozenField).toBeDisabled();
+    await expect(frozenField).toHaveCSS('border-top-style', 'dashed');
     await page
       .getByRole('link', { name: /Models/ })
       .first()
@@ -72,7 +80,8 @@ test('an analyst runs a mixed logit, splits tastes by a background question and 
       .click();
     await expect(page.getByRole('heading', { name: 'Tastes' })).toBeVisible();
     await expect(page.getByLabel('Run', { exact: true })).toContainText(runName);
-    await expect(page.getByText('Read individual profiles with care')).toBeVisible();
+    // One caution per screen, dismissible; the whole text behind Details.
+    await expect(page.getByText(/Profiles are conditional on each respondent/)).toBeVisible();
     await page.getByLabel('Split by').selectOption('question');
     const question = page.getByLabel('Question');
     const firstQuestion = await question.locator('option').first().textContent();
@@ -82,6 +91,20 @@ test('an analyst runs a mixed logit, splits tastes by a background question and 
     await expect(groupRows.first()).toBeVisible();
     expect(await groupRows.count()).toBeGreaterThanOrEqual(2);
     expect(firstQuestion?.length).toBeGreaterThan(0);
+  });
+
+  await test.step('simulate shares; a changed input marks them out of date at once', async () => {
+    await page
+      .getByRole('link', { name: /Shares/ })
+      .first()
+      .click();
+    await expect(page.getByRole('heading', { name: 'Shares' })).toBeVisible();
+    await page.getByRole('button', { name: 'Simulate shares' }).click();
+    await expect(page.getByText('Predicted shares', { exact: true })).toBeVisible();
+    await page.getByLabel('Shares by segment').selectOption({ index: 1 });
+    await expect(page.getByText('Predicted shares — out of date')).toBeVisible();
+    await page.getByRole('button', { name: 'Simulate shares' }).click();
+    await expect(page.getByText('Predicted shares', { exact: true })).toBeVisible();
   });
 
   // What the files should hold, from the same API the screens use.

@@ -178,6 +178,10 @@ export async function runEstimationJob(
           };
           report();
         },
+        onStage: (stage) => {
+          latest = { ...latest, stage, secondsLeft: undefined };
+          report();
+        },
         onNote: (note) => deps.logger.warn({ runId }, note),
         onProgress: (p) => {
           if (p.start !== lastStart) {
@@ -198,6 +202,8 @@ export async function runEstimationJob(
         },
       },
     ).finally(() => (options.pool ? undefined : pool.destroy()));
+    latest = { ...latest, stage: 'saving' };
+    report();
     clearInterval(heartbeat);
     await writing;
     const cancelled = await persist(

@@ -31,6 +31,13 @@ export const coefficientDistributionSchema = z.enum([
 export type CoefficientDistributionInput = z.infer<typeof coefficientDistributionSchema>;
 
 export const drawsTypeSchema = z.enum(['halton', 'sobol', 'mlhs', 'random']);
+/** One name per draws type, used by the run form, the run's fit table and the exports alike. */
+export const drawsTypeLabels: Record<z.infer<typeof drawsTypeSchema>, string> = {
+  halton: 'scrambled Halton',
+  sobol: 'Sobol',
+  mlhs: 'modified Latin hypercube',
+  random: 'pseudo-random',
+};
 
 const nameSchema = z
   .string()

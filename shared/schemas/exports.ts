@@ -12,11 +12,22 @@ export const optionalRunQuerySchema = z.object({
   runId: z.uuid('Choose a finished run').optional(),
 });
 
+/** Shown (behind "Details") where estimates are read; docs/methods.md, "Reading results: cautions". */
+export const runCautions = [
+  'These estimates summarise stated, hypothetical choices, not observed behaviour; real ' +
+    'behaviour can differ.',
+  'They carry sampling error (the standard errors and intervals) and, for simulated models, ' +
+    'simulation error from the finite number of draws.',
+  'Policy or health decisions should not rest on one study alone; follow your ethics board and ' +
+    'licensed practice where decisions affect people.',
+] as const;
+
 /** Shown where taste profiles appear and written into every results file. */
 export const tasteCautions = [
   'These estimates summarise stated, hypothetical choices; real behaviour can differ.',
-  'Individual taste profiles are conditional means: they are shrunk toward the population ' +
-    'and uncertain when a respondent answered few tasks. Read each mean with its conditional SD.',
+  "A respondent's taste profile is conditional on that respondent's choices: the mean is " +
+    'shrunk toward the population and uncertain when the respondent answered few tasks. Read ' +
+    'each mean with its conditional SD.',
   'Profiles with a low effective number of draws rest on few simulation draws; treat them with ' +
     'extra care or re-run with more profile draws.',
   'Policy or health decisions should not rest on one study alone. Follow your ethics board ' +

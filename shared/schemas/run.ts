@@ -63,7 +63,15 @@ export const runParamsSchema = z.object({
   runId: z.uuid('Unknown run'),
 });
 
-export const runStageSchema = z.enum(['preparing', 'estimating', 'profiles', 'saving']);
+/** The stages a run goes through, in order; progress names the current one. */
+export const runStageSchema = z.enum([
+  'preparing',
+  'estimating',
+  'standard_errors',
+  'wtp',
+  'profiles',
+  'saving',
+]);
 export type RunStage = z.infer<typeof runStageSchema>;
 
 /** Written by the worker every iteration; `heartbeatAt` also every few seconds. */

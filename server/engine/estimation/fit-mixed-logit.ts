@@ -45,8 +45,13 @@ export interface EstimationProgress {
   secondsLeft: number;
 }
 
+/** Stages after the optimisation, reported so a run never goes silent at the end. */
+export type EstimationStage = 'standard_errors' | 'wtp' | 'profiles';
+
 export interface MixedLogitHooks {
   onProgress?: (progress: EstimationProgress) => void;
+  /** Called as each stage after the optimisation starts. */
+  onStage?: (stage: EstimationStage) => void;
   /** Checked before every evaluation; a fired signal rejects with EstimationCancelledError. */
   signal?: AbortSignal;
   /** Engine notes worth logging (e.g. why the WebAssembly SIMD kernel was not used). */
@@ -181,6 +186,7 @@ export async function fitMixedLogit(
     }
     assertNotCancelled();
     const best = runs.reduce((a, b) => (b.f < a.f ? b : a));
+    hooks.onStage?.('standard_errors');
     const refined = await refineEstimate(
       evaluator,
       best.x,

@@ -105,7 +105,7 @@ export function toResultJson(input: {
       rho2Constants: input.loglikConstants === null ? null : 1 - f.loglik / input.loglikConstants,
       caic: input.caic,
       bicN: f.observations,
-      bicBasis: 'choice tasks',
+      bicBasis: 'choice observations',
     },
     hitRate: f.hitRate,
     holdoutHitRate: f.holdoutHitRate,

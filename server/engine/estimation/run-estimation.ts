@@ -127,6 +127,7 @@ export async function runEstimation(
       ...fitted.warnings,
       { code: 'wtp_withheld', message: withheld, parameters: [spec.cost!] },
     ];
+  options.onStage?.('wtp');
   const wtp =
     cost >= 0 && !withheld
       ? computePopulationWtp(layout, theta, chosen, cost, { seed: spec.draws.seed })
@@ -152,6 +153,7 @@ export async function runEstimation(
       kernel: options.kernel,
       onNote: options.onNote,
     };
+    options.onStage?.('profiles');
     const threads = options.threads ?? 1;
     // Several threads: profiles on worker threads too, so the calling thread stays responsive.
     const profiles =

@@ -7,7 +7,7 @@
 import type { MessagePort } from 'node:worker_threads';
 import type { EstimationResult, EstimationSpec } from '../../../shared/schemas/estimation-spec';
 import type { BuiltChoiceData } from '../estimation/build-choice-data';
-import type { EstimationProgress } from '../estimation/fit-mixed-logit';
+import type { EstimationProgress, EstimationStage } from '../estimation/fit-mixed-logit';
 import type { TransportedError } from './engine-error-transport';
 import type { KernelPreference } from '../simd/kernel-choice';
 import type { HbProgress } from '../hb/fit-hb';
@@ -31,5 +31,7 @@ export type EstimationProgressMessage =
   | { type: 'sampler'; progress: HbProgress }
   /** Latent class: EM starts done per number of classes. */
   | { type: 'classes'; progress: LatentClassProgress }
+  /** A stage after the optimisation began (standard errors, WTP, taste profiles). */
+  | { type: 'stage'; stage: EstimationStage }
   /** A remark for the run's log (for example, a kernel that fell back to TypeScript). */
   | { type: 'note'; note: string };

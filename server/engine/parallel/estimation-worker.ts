@@ -45,6 +45,8 @@ export async function runEstimationTask(message: unknown): Promise<EstimationWor
         port?.postMessage({ type: 'sampler', progress } satisfies EstimationProgressMessage),
       onClassProgress: (progress) =>
         port?.postMessage({ type: 'classes', progress } satisfies EstimationProgressMessage),
+      onStage: (stage) =>
+        port?.postMessage({ type: 'stage', stage } satisfies EstimationProgressMessage),
     });
     return { ok: true, result };
   } catch (e) {

@@ -14,7 +14,7 @@ import { MessageChannel } from 'node:worker_threads';
 import { Piscina } from 'piscina';
 import type { EstimationResult } from '../../../shared/schemas/estimation-spec';
 import { EstimationCancelledError } from '../estimation/estimation-errors';
-import type { EstimationProgress } from '../estimation/fit-mixed-logit';
+import type { EstimationProgress, EstimationStage } from '../estimation/fit-mixed-logit';
 import type { HbProgress } from '../hb/fit-hb';
 import type { LatentClassProgress } from '../latent-class/fit-latent-class';
 import type {
@@ -55,6 +55,7 @@ export async function runEstimationInWorker(
     onProgress?: (progress: EstimationProgress) => void;
     onSamplerProgress?: (progress: HbProgress) => void;
     onClassProgress?: (progress: LatentClassProgress) => void;
+    onStage?: (stage: EstimationStage) => void;
     onNote?: (note: string) => void;
     signal?: AbortSignal;
   } = {},
@@ -64,6 +65,7 @@ export async function runEstimationInWorker(
     if (message?.type === 'progress') hooks.onProgress?.(message.progress);
     else if (message?.type === 'sampler') hooks.onSamplerProgress?.(message.progress);
     else if (message?.type === 'classes') hooks.onClassProgress?.(message.progress);
+    else if (message?.type === 'stage') hooks.onStage?.(message.stage);
     else if (message?.type === 'note') hooks.onNote?.(message.note);
   });
   try {

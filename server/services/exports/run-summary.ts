@@ -5,6 +5,7 @@
 import type { RunContext } from '../tastes/run-context';
 import { tasteCautions } from '../../../shared/schemas/exports';
 import { MODEL_LABELS } from '../../../shared/schemas/estimation-families';
+import { drawsTypeLabels } from '../../../shared/schemas/estimation-spec';
 
 export type SummaryLine = [label: string, value: string | number];
 
@@ -15,9 +16,11 @@ export function describeModel(ctx: RunContext): string {
 
 export function getRunSummary(ctx: RunContext, exportedAt: Date): SummaryLine[] {
   const r = ctx.results;
-  const draws = r.draws ? `${r.draws.count} ${r.draws.type} draws, seed ${r.draws.seed}` : 'none';
+  const draws = r.draws
+    ? `${r.draws.count} ${drawsTypeLabels[r.draws.type]} draws, seed ${r.draws.seed}`
+    : 'none';
   const profileDraws = r.profileDraws
-    ? `${r.profileDraws.count} ${r.profileDraws.type} draws, seed ${r.profileDraws.seed}`
+    ? `${r.profileDraws.count} ${drawsTypeLabels[r.profileDraws.type]} draws, seed ${r.profileDraws.seed}`
     : 'none';
   return [
     ['Study', ctx.study.name],

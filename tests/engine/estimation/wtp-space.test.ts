@@ -53,7 +53,12 @@ describe('WTP space', () => {
       starts: 1,
       profileDraws: 50,
     };
-    const pref = await runEstimation(estimationSpecSchema.parse(spec), built);
+    // The run also names its stages after the optimisation, so progress never goes silent.
+    const stages: string[] = [];
+    const pref = await runEstimation(estimationSpecSchema.parse(spec), built, {
+      onStage: (stage) => stages.push(stage),
+    });
+    expect(stages).toEqual(['standard_errors', 'wtp', 'profiles']);
     const wtp = await runEstimation(estimationSpecSchema.parse({ ...spec, space: 'wtp' }), built);
     expect(pref.converged && wtp.converged).toBe(true);
     expect(Math.abs(wtp.loglik - pref.loglik)).toBeLessThan(1e-6);

@@ -6,11 +6,12 @@ import { useState } from 'react';
 import { Link, Navigate, Outlet, useParams } from 'react-router';
 import type { QueryClient } from '@tanstack/react-query';
 import type { LoaderFunctionArgs } from 'react-router';
-import { paths, type StudySection } from '@/config/paths';
+import { paths } from '@/config/paths';
 import { Spinner } from '@/components/ui/feedback';
 import { ErrorText, PanelErrorBoundary } from '@/components/ui/error-boundary';
 import { getStudyQueryOptions, useStudy } from '@/features/studies/api/get-study';
 import { StudyPipeline } from '@/features/studies/components/study-pipeline';
+import { getStepsDone } from '@/features/studies/utils/steps-done';
 import { StudyStatusBadge } from '@/features/studies/components/study-status-badge';
 import { StudyDetailsForm } from '@/features/studies/components/study-details-form';
 import { Button } from '@/components/ui/button';
@@ -33,9 +34,7 @@ export function StudyLayout() {
   if (isPending) return <Spinner label="Loading the study…" />;
   if (error || !study) return <ErrorText error={error} />;
 
-  const done = new Set<StudySection>();
-  if (study.counts.attributes > 0) done.add('attributes');
-  if (study.counts.tasks > 0) done.add('tasks');
+  const done = getStepsDone(study);
 
   return (
     <div>

@@ -109,13 +109,15 @@ function SortableItem({
     transition,
     isDragging,
   } = useSortable({ id, disabled });
-  const handle = (
+  // A read-only list shows no grip at all: a faded grip still reads as "drag me".
+  const handle = disabled ? (
+    <span aria-hidden className="size-10 shrink-0" />
+  ) : (
     <button
       type="button"
       ref={setActivatorNodeRef}
       aria-label={label}
-      disabled={disabled}
-      className="flex size-10 shrink-0 cursor-grab touch-none items-center justify-center rounded-md text-ink-muted hover:bg-primary-soft hover:text-primary disabled:cursor-not-allowed disabled:opacity-40"
+      className="flex size-10 shrink-0 cursor-grab touch-none items-center justify-center rounded-md text-ink-muted hover:bg-primary-soft hover:text-primary"
       {...attributes}
       {...listeners}
     >

@@ -56,7 +56,7 @@ export function Correlations({ d }: { d: DesignDiagnostics }) {
         </tbody>
       </table>
       <p className="mt-2 text-xs text-ink-muted">
-        Shaded: |r| ≥ 0.30 (common practice, no source).
+        Shaded: |r| ≥ 0.30 (product default; judge correlations against your analysis plan).
       </p>
     </div>
   );

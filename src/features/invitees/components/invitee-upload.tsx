@@ -13,10 +13,13 @@ import { CsvPreview } from './csv-preview';
 export function InviteeUpload({
   teamId,
   studyId,
+  notInvited,
   onImported,
 }: {
   teamId: string;
   studyId: string;
+  /** People on the list not invited yet, from the live counts (so this stays true after a send). */
+  notInvited: number;
   onImported?: () => void;
 }) {
   const inputId = useId();
@@ -94,8 +97,10 @@ export function InviteeUpload({
       {importing.data && (
         <Alert tone="success">
           Imported {importing.data.imported} invitee{importing.data.imported === 1 ? '' : 's'}
-          {importing.data.skipped > 0 && `; ${importing.data.skipped} row(s) left out`}. Nobody has
-          been e-mailed yet.
+          {importing.data.skipped > 0 && `; ${importing.data.skipped} row(s) left out`}.{' '}
+          {notInvited === 0
+            ? 'Everybody on the list has been invited.'
+            : `${notInvited} on the list not invited yet.`}
         </Alert>
       )}
     </div>

@@ -22,14 +22,15 @@ type Wording = z.infer<typeof wordingSchema>;
 
 const orUndefined = (s: string) => (s.trim() === '' ? undefined : s.trim());
 
-function describe(kind: 'invitations' | 'reminders', r: SendResult): string {
+/** What a send did, in words that stay true for an empty list. */
+export function describeSend(kind: 'invitations' | 'reminders', r: SendResult): string {
   const noun = kind === 'invitations' ? 'invitation' : 'reminder';
   const parts = [`${r.sent} ${noun}${r.sent === 1 ? '' : 's'} sent`];
   if (r.failed > 0) parts.push(`${r.failed} could not be delivered and will be retried next time`);
   if (r.sent === 0 && r.failed === 0)
     parts.push(
       kind === 'invitations'
-        ? 'everybody on the list has been invited already'
+        ? 'everybody on the list had been invited already'
         : 'nobody is due a reminder (finished, unsubscribed or reminded within the hour)',
     );
   return `${parts.join('; ')}.`;
@@ -39,11 +40,14 @@ export function SendPanel({
   teamId,
   studyId,
   live,
+  listSize,
   onSent,
 }: {
   teamId: string;
   studyId: string;
   live: boolean;
+  /** People on the list; with nobody on it there is nothing to send. */
+  listSize: number;
   onSent?: () => void;
 }) {
   const invite = useSendInvitations(teamId, studyId);
@@ -60,7 +64,7 @@ export function SendPanel({
       setLast(null);
       m.mutate(input, {
         onSuccess: (r) => {
-          setLast(describe(kind, r));
+          setLast(describeSend(kind, r));
           onSent?.();
         },
       });
@@ -69,6 +73,11 @@ export function SendPanel({
 
   return (
     <form className="space-y-4" onSubmit={(e) => e.preventDefault()} noValidate>
+      {listSize === 0 && (
+        <p className="text-sm text-ink-soft">
+          Nobody is on the list yet. Add people first; nothing is sent until you press Send.
+        </p>
+      )}
       {!live && (
         <Alert tone="info">
           E-mails can be sent while the study is live, so that the links work when people open them.
@@ -94,12 +103,16 @@ export function SendPanel({
         </div>
       </details>
       <div className="flex flex-wrap gap-2">
-        <Button disabled={!live} busy={invite.isPending} onClick={submit('invitations')}>
+        <Button
+          disabled={!live || listSize === 0}
+          busy={invite.isPending}
+          onClick={submit('invitations')}
+        >
           Send invitations
         </Button>
         <Button
           variant="secondary"
-          disabled={!live}
+          disabled={!live || listSize === 0}
           busy={remind.isPending}
           onClick={submit('reminders')}
         >

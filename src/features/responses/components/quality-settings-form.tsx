@@ -33,7 +33,7 @@ export function QualitySettingsForm({
     <form onSubmit={onSubmit} noValidate className="flex flex-wrap items-end gap-3">
       <TextField
         label="Speeder threshold (fraction of the median time)"
-        hint="½ of the median is common practice, not a published rule."
+        hint="Product default: ½ of the median. Set it in your analysis plan before fieldwork ends."
         type="number"
         inputMode="decimal"
         step="0.05"

@@ -17,7 +17,8 @@ import {
 } from 'chart.js';
 import { Chart } from 'react-chartjs-2';
 import type { EstimationResult } from '@shared/schemas/estimation-spec';
-import { densityHistogram, plotRange, populationDensity } from '../utils/stats';
+import { densityHistogram, plotRange } from '../utils/stats';
+import { populationDensity } from '@/utils/taste-density';
 import { formatNumber } from '@/utils/format';
 
 ChartJS.register(

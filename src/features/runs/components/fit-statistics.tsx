@@ -1,4 +1,5 @@
 import type { RunResult } from '@shared/schemas/run';
+import { drawsTypeLabels } from '@shared/schemas/estimation-spec';
 import { describeConvergence } from '../utils/convergence';
 import { formatNumber, formatPercent } from '@/utils/format';
 
@@ -13,14 +14,14 @@ export function FitStatistics({ results }: { results: RunResult }) {
     ['ρ² against LL(C)', formatNumber(results.fit?.rho2Constants, 4)],
     ['AIC', formatNumber(results.aic, 2)],
     [
-      `BIC (n = ${results.fit?.bicN ?? results.observations} ${results.fit?.bicBasis ?? 'choice tasks'})`,
+      `BIC (n = ${results.fit?.bicN ?? results.observations} ${results.fit?.bicBasis ?? 'choice observations'})`,
       formatNumber(results.bic, 2),
     ],
     ['CAIC (same n)', formatNumber(results.fit?.caic, 2)],
     ['Hit rate', formatPercent(results.hitRate)],
     ['Holdout hit rate', formatPercent(results.holdoutHitRate)],
     ['Respondents', String(results.respondents)],
-    ['Choice tasks', String(results.observations)],
+    ['Choice observations (respondent × task)', String(results.observations)],
     ['Parameters', String(results.parameters)],
     ['Iterations', String(results.iterations)],
     ['Convergence', describeConvergence(results)],
@@ -33,7 +34,7 @@ export function FitStatistics({ results }: { results: RunResult }) {
     [
       'Draws',
       results.draws
-        ? `${results.draws.count} ${results.draws.type}, seed ${results.draws.seed}`
+        ? `${results.draws.count} ${drawsTypeLabels[results.draws.type]}, seed ${results.draws.seed}`
         : '—',
     ],
     ['Warm-up tasks left out', String(results.data.warmupTasksLeftOut)],

@@ -1,12 +1,18 @@
-import { Alert } from '@/components/ui/feedback';
+import { ScreenCaution } from '@/components/ui/screen-caution';
+import { runCautions } from '@shared/schemas/exports';
 
-/** The reminder shown wherever estimates are read. */
-export function RunCautions() {
+/** The one caution of a screen where estimates are read. */
+export function RunCautions({ screen }: { screen: 'models' | 'run' }) {
   return (
-    <Alert tone="warning" title="Read estimates with care">
-      These estimates summarise stated, hypothetical choices, not observed behaviour. They carry
-      sampling and simulation error, and policy or health decisions should not rest on one study
-      alone.
-    </Alert>
+    <ScreenCaution
+      screen={screen}
+      summary="Estimates from stated, hypothetical choices, with sampling and simulation error."
+    >
+      <ul className="list-disc space-y-1 pl-5">
+        {runCautions.map((c) => (
+          <li key={c}>{c}</li>
+        ))}
+      </ul>
+    </ScreenCaution>
   );
 }

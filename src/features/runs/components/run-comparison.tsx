@@ -10,7 +10,7 @@ type Row = { label: string; value: (r: RunResult) => string };
 
 const fitRows: Row[] = [
   { label: 'Respondents', value: (r) => String(r.respondents) },
-  { label: 'Choice tasks', value: (r) => String(r.observations) },
+  { label: 'Choice observations', value: (r) => String(r.observations) },
   { label: 'Parameters', value: (r) => String(r.parameters) },
   { label: 'Log-likelihood', value: (r) => formatNumber(r.loglik, 2) },
   { label: 'LL at zero', value: (r) => formatNumber(r.loglikNull, 2) },

@@ -6,6 +6,7 @@
  */
 import { useForm, useWatch } from 'react-hook-form';
 import type { ModelColumn, Run, RunOptions } from '@shared/schemas/run';
+import { drawsTypeLabels, drawsTypeSchema } from '@shared/schemas/estimation-spec';
 import { MODEL_LABELS } from '@shared/schemas/estimation-families';
 import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
@@ -191,10 +192,11 @@ export function RunForm({
         <fieldset className="grid gap-4 sm:grid-cols-3">
           <legend className="mb-2 text-sm font-medium text-ink">Simulation</legend>
           <SelectField label="Draws" error={errors.drawsType?.message} {...register('drawsType')}>
-            <option value="halton">Scrambled Halton</option>
-            <option value="sobol">Sobol</option>
-            <option value="mlhs">Modified Latin hypercube</option>
-            <option value="random">Pseudo-random</option>
+            {drawsTypeSchema.options.map((t) => (
+              <option key={t} value={t}>
+                {drawsTypeLabels[t].charAt(0).toUpperCase() + drawsTypeLabels[t].slice(1)}
+              </option>
+            ))}
           </SelectField>
           <TextField
             label="Draws per respondent"

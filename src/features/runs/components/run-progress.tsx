@@ -1,19 +1,48 @@
 /**
  * Progress of a queued or running run: a bar of the progress toward convergence (the gradient
- * norm falling from its first value to the tolerance, on a log scale), the iteration, the
+ * norm falling from its first value to the tolerance, on a log scale), the stage by name
+ * (estimating, standard errors, WTP, taste profiles, saving) with the iteration, the
  * log-likelihood, the elapsed time and, for runs over a minute, about how long is left.
  */
-import type { Run } from '@shared/schemas/run';
+import type { Run, RunStage } from '@shared/schemas/run';
 import { ProgressBar } from '@/components/ui/feedback';
 import { formatDuration, formatNumber } from '@/utils/format';
 
 /** Gradient tolerance of the mixed logit (server check-mixed-logit-options.ts). */
 const TOLERANCE = 1e-3;
 
+const AFTER_ESTIMATION = { standard_errors: 0.97, wtp: 0.98, profiles: 0.99 } as const;
+
+const STAGE_LABELS: Record<RunStage, string> = {
+  preparing: 'Preparing the choice data…',
+  estimating: 'Estimating…',
+  standard_errors: 'Computing standard errors…',
+  wtp: 'Computing WTP and derived quantities…',
+  profiles: 'Computing taste profiles…',
+  saving: 'Saving the results…',
+};
+
+/** The words for where a run is: the stage, with the iteration while estimating. */
+export function describeRunStage(run: Run): string {
+  const p = run.progress;
+  if (run.status === 'queued') return 'Waiting for a worker…';
+  const stage = p.stage ?? 'preparing';
+  if (stage === 'estimating' && p.iteration) {
+    if (run.model === 'latent_class')
+      return `Estimating: EM start ${p.iteration} of ${p.maxIterations ?? '?'}`;
+    if (run.model === 'hb')
+      return `Sampling: iteration ${p.iteration} of ${p.maxIterations ?? '?'} (slowest chain)`;
+    return `Estimating: iteration ${p.iteration}`;
+  }
+  return STAGE_LABELS[stage];
+}
+
 export function getConvergenceShare(run: Run): number {
   const { stage, gradientNorm, initialGradientNorm } = run.progress;
   if (run.status === 'queued' || stage === 'preparing' || stage === undefined) return 0;
   if (stage === 'saving') return 1;
+  // After the optimisation the bar stays near full while the stage is named beside it.
+  if (stage in AFTER_ESTIMATION) return AFTER_ESTIMATION[stage as keyof typeof AFTER_ESTIMATION];
   // HB and latent class have no gradient: the share of sampler iterations or EM starts done.
   if (run.model === 'hb' || run.model === 'latent_class') {
     const { iteration, maxIterations } = run.progress;
@@ -34,18 +63,7 @@ export function showsTimeLeft(p: Run['progress']): boolean {
 
 export function RunProgress({ run }: { run: Run }) {
   const p = run.progress;
-  const label =
-    run.status === 'queued'
-      ? 'Waiting for a worker…'
-      : p.stage === 'preparing' || !p.stage
-        ? 'Preparing the choice data…'
-        : p.iteration
-          ? run.model === 'latent_class'
-            ? `EM start ${p.iteration} of ${p.maxIterations ?? '?'}`
-            : run.model === 'hb'
-              ? `Iteration ${p.iteration} of ${p.maxIterations ?? '?'} (slowest chain)`
-              : `Iteration ${p.iteration}`
-          : 'Estimating…';
+  const label = describeRunStage(run);
   return (
     <div className="space-y-1.5">
       <ProgressBar value={getConvergenceShare(run)} label={`Progress of ${run.name}`} />

@@ -1,7 +1,7 @@
 /**
- * Small statistics for the estimates view: two-sided normal p-values, the density of each
- * coefficient's population distribution, and histograms scaled as densities so both can be
- * drawn on one axis.
+ * Small statistics for the estimates view: two-sided normal p-values, plotting ranges and
+ * histograms scaled as densities, so they can be drawn on one axis with the population density
+ * (src/utils/taste-density.ts).
  */
 import type { EstimationResult } from '@shared/schemas/estimation-spec';
 
@@ -24,27 +24,6 @@ export function normalCdf(z: number): number {
 /** Two-sided p-value of a z (t) statistic under the normal approximation. */
 export function twoSidedP(z: number): number {
   return 2 * (1 - normalCdf(Math.abs(z)));
-}
-
-const phi = (z: number) => Math.exp(-0.5 * z * z) / Math.sqrt(2 * Math.PI);
-
-/** Density of the population distribution at x (see server mixed-logit-layout.ts). */
-export function populationDensity(m: Moment, x: number): number {
-  const s = Math.abs(m.spread);
-  switch (m.distribution) {
-    case 'normal':
-      return m.sd > 0 ? phi((x - m.mean) / m.sd) / m.sd : 0;
-    case 'lognormal':
-      return x > 0 && s > 0 ? phi((Math.log(x) - m.location) / s) / (x * s) : 0;
-    case 'neg_lognormal':
-      return x < 0 && s > 0 ? phi((Math.log(-x) - m.location) / s) / (-x * s) : 0;
-    case 'triangular':
-      return s > 0 ? Math.max(0, s - Math.abs(x - m.location)) / (s * s) : 0;
-    case 'uniform':
-      return s > 0 && Math.abs(x - m.location) <= s ? 1 / (2 * s) : 0;
-    default:
-      return 0;
-  }
 }
 
 /** A plotting range covering the bulk of the population distribution and the data. */

@@ -24,11 +24,15 @@ type Props = {
   done?: ReadonlySet<StudySection>;
 };
 
-/** The study's sections left to right, in the order the work flows; scrolls sideways on phones. */
+/**
+ * The study's sections left to right, in the order the work flows. From 1024 px the steps are
+ * packed tighter so all ten fit in the page width (1280 px and up) without scrolling; on phones
+ * the bar scrolls sideways.
+ */
 export function StudyPipeline({ teamId, studyId, available, done }: Props) {
   return (
     <nav aria-label="Study sections" className="-mx-4 overflow-x-auto px-4 sm:mx-0 sm:px-0">
-      <ol className="flex min-w-max items-center gap-1 pb-1">
+      <ol className="flex min-w-max items-center gap-1 pb-1 lg:gap-0.5">
         {studySections.map((section, i) => {
           const label = sectionLabels[section];
           const step = (
@@ -40,17 +44,18 @@ export function StudyPipeline({ teamId, studyId, available, done }: Props) {
                 {done?.has(section) ? '✓' : i + 1}
               </span>
               {label}
+              {done?.has(section) && <span className="sr-only">, done</span>}
             </>
           );
           return (
             <li key={section} className="flex items-center gap-1">
-              {i > 0 && <span aria-hidden className="h-px w-3 bg-line sm:w-5" />}
+              {i > 0 && <span aria-hidden className="h-px w-3 bg-line sm:w-5 lg:w-2" />}
               {available.has(section) ? (
                 <NavLink
                   to={paths.studySection.getHref(teamId, studyId, section)}
                   className={({ isActive }) =>
                     cn(
-                      'inline-flex min-h-10 items-center gap-2 rounded-full px-3 text-sm font-medium transition-colors',
+                      'inline-flex min-h-10 items-center gap-2 rounded-full px-3 text-sm font-medium whitespace-nowrap transition-colors lg:gap-1.5 lg:px-2.5',
                       isActive
                         ? 'bg-primary text-white'
                         : 'text-ink-soft hover:bg-primary-soft hover:text-primary',
@@ -63,7 +68,7 @@ export function StudyPipeline({ teamId, studyId, available, done }: Props) {
                 <span
                   aria-disabled="true"
                   title="Available once this section ships"
-                  className="inline-flex min-h-10 cursor-not-allowed items-center gap-2 rounded-full px-3 text-sm text-ink-muted/70"
+                  className="inline-flex min-h-10 cursor-not-allowed items-center gap-2 rounded-full px-3 text-sm whitespace-nowrap text-ink-muted/70 lg:gap-1.5 lg:px-2.5"
                 >
                   {step}
                 </span>

@@ -1,7 +1,7 @@
 /**
  * One coefficient for one respondent: the population density (from the run's estimates) and
- * the respondent's conditional distribution, drawn as a normal with their conditional mean
- * and SD (the run stores these two moments, not the weighted draws). Okabe–Ito colours.
+ * the respondent's conditional distribution, drawn from their conditional mean and SD on the
+ * coefficient's own scale (src/utils/taste-density.ts). Okabe–Ito colours.
  */
 import {
   CategoryScale,
@@ -15,7 +15,12 @@ import {
 } from 'chart.js';
 import { Line } from 'react-chartjs-2';
 import type { TasteCoefficient } from '@shared/schemas/tastes';
-import { getPlotRange, normalDensity, populationDensity } from '../utils/densities';
+import { getPlotRange } from '../utils/densities';
+import {
+  conditionalCurveLabel,
+  conditionalDensity,
+  populationDensity,
+} from '@/utils/taste-density';
 import { formatNumber } from '@/utils/format';
 import { okabeIto, withAlpha } from '@/components/charts/palette';
 
@@ -68,8 +73,11 @@ export function RespondentDistributionChart({
                   pointRadius: 0,
                 },
                 {
-                  label: 'This respondent (normal approx.)',
-                  data: xs.map((x) => ({ x, y: normalDensity(x, mean, sd) })),
+                  label: conditionalCurveLabel(coefficient.distribution),
+                  data: xs.map((x) => ({
+                    x,
+                    y: conditionalDensity(coefficient.distribution, mean, sd, x),
+                  })),
                   borderColor: okabeIto[0],
                   backgroundColor: withAlpha(okabeIto[0], 0.2),
                   fill: true,

@@ -146,5 +146,7 @@ describe('AttributesEditor', () => {
     expect(screen.getByText(/can read the attributes/)).toBeInTheDocument();
     expect(screen.queryByRole('button', { name: 'Save changes' })).toBeNull();
     expect(screen.getByLabelText('Attribute name')).toBeDisabled();
+    // No drag grips either: a faded grip still reads as "drag me".
+    expect(screen.queryByRole('button', { name: /^Reorder / })).toBeNull();
   });
 });

@@ -2,10 +2,12 @@
 import '@testing-library/jest-dom/vitest';
 import { afterEach, describe, expect, it } from 'vitest';
 import { cleanup, render, screen, within } from '@testing-library/react';
-import type { RunResult } from '@shared/schemas/run';
+import type { Run, RunResult } from '@shared/schemas/run';
 import { ParameterTable } from '@/features/runs/components/parameter-table';
 import { ImpliedCovariance } from '@/features/runs/components/implied-covariance';
 import { WtpTable } from '@/features/runs/components/wtp-table';
+import { FitStatistics } from '@/features/runs/components/fit-statistics';
+import { describeRunStage, getConvergenceShare } from '@/features/runs/components/run-progress';
 
 afterEach(cleanup);
 
@@ -90,5 +92,50 @@ describe('WtpTable', () => {
     expect(screen.getByRole('columnheader', { name: 'Population mean WTP' })).toBeInTheDocument();
     expect(screen.getByText('−€2.50')).toBeInTheDocument();
     expect(screen.getByText(/conditional-mean WTP is in Tastes/)).toBeInTheDocument();
+  });
+});
+
+describe('FitStatistics', () => {
+  it('names the draws as the run form does and counts choice observations, not tasks', () => {
+    const fitted = {
+      ...results,
+      loglik: -100,
+      loglikNull: -120,
+      respondents: 10,
+      observations: 80,
+      parameters: 3,
+      iterations: 12,
+      convergence: { converged: true, gradientNorm: 1e-6 },
+      converged: true,
+      draws: { type: 'halton', count: 500, seed: 7 },
+      data: { warmupTasksLeftOut: 0, holdoutTasks: 0 },
+    } as unknown as RunResult;
+    render(<FitStatistics results={fitted} />);
+    expect(screen.getByText('500 scrambled Halton, seed 7')).toBeInTheDocument();
+    expect(screen.getByText('Choice observations (respondent × task)')).toBeInTheDocument();
+    expect(screen.queryByText('Choice tasks')).toBeNull();
+  });
+});
+
+describe('describeRunStage and getConvergenceShare', () => {
+  const run = (status: string, progress: object) => ({ status, progress }) as unknown as Run;
+  it('names every stage, with the iteration while estimating', () => {
+    expect(describeRunStage(run('queued', {}))).toBe('Waiting for a worker…');
+    expect(describeRunStage(run('running', { stage: 'estimating', iteration: 12 }))).toBe(
+      'Estimating: iteration 12',
+    );
+    expect(describeRunStage(run('running', { stage: 'standard_errors', iteration: 40 }))).toBe(
+      'Computing standard errors…',
+    );
+    expect(describeRunStage(run('running', { stage: 'profiles' }))).toBe(
+      'Computing taste profiles…',
+    );
+    expect(describeRunStage(run('running', { stage: 'saving' }))).toBe('Saving the results…');
+  });
+  it('keeps the bar near full after the optimisation', () => {
+    const shares = ['standard_errors', 'wtp', 'profiles', 'saving'].map((stage) =>
+      getConvergenceShare(run('running', { stage })),
+    );
+    expect(shares).toEqual([0.97, 0.98, 0.99, 1]);
   });
 });

@@ -4,6 +4,9 @@ import { afterEach, describe, expect, it } from 'vitest';
 import { cleanup, render, screen } from '@testing-library/react';
 import { MemoryRouter } from 'react-router';
 import { StudyPipeline } from '@/features/studies/components/study-pipeline';
+import { getStepsDone } from '@/features/studies/utils/steps-done';
+import { defaultQuestionnaire } from '@shared/schemas/questionnaire-defaults';
+import { emptyStudyDefinition } from '@shared/schemas/study-definition';
 
 afterEach(cleanup);
 
@@ -31,5 +34,39 @@ describe('StudyPipeline', () => {
     const fieldwork = screen.getByText('Fieldwork').closest('[aria-disabled]');
     expect(fieldwork).toHaveAttribute('aria-disabled', 'true');
     expect(fieldwork).toHaveAttribute('title', expect.stringMatching(/^Available once/));
+  });
+});
+
+describe('getStepsDone', () => {
+  const counts = { attributes: 3, tasks: 0, blocks: 0, respondents: 0 };
+  const saved = defaultQuestionnaire(emptyStudyDefinition);
+
+  it('ticks the questionnaire once saved, and the preview once tasks and questionnaire exist', () => {
+    expect([...getStepsDone({ counts, questionnaire: {} })]).toEqual(['attributes']);
+    expect([...getStepsDone({ counts, questionnaire: saved })]).toEqual([
+      'attributes',
+      'questionnaire',
+    ]);
+    expect([...getStepsDone({ counts: { ...counts, tasks: 16 }, questionnaire: saved })]).toEqual([
+      'attributes',
+      'tasks',
+      'questionnaire',
+      'preview',
+    ]);
+  });
+
+  it('names a done step for screen readers too', () => {
+    render(
+      <MemoryRouter>
+        <StudyPipeline
+          teamId="t1"
+          studyId="s1"
+          available={new Set(['questionnaire', 'preview'])}
+          done={new Set(['questionnaire', 'preview'])}
+        />
+      </MemoryRouter>,
+    );
+    expect(screen.getByRole('link', { name: /^Questionnaire,\s?done$/ })).toBeInTheDocument();
+    expect(screen.getByRole('link', { name: /^Preview,\s?done$/ })).toBeInTheDocument();
   });
 });

@@ -100,7 +100,7 @@ export function Component() {
 
       {results && (
         <>
-          <RunCautions />
+          <RunCautions screen="run" />
           <RunWarnings results={results} />
           <Card title="Convergence">
             <ConvergencePanel results={results} />

@@ -112,13 +112,24 @@ export function Component() {
                   <h3 id="upload-heading" className="text-sm font-semibold text-ink">
                     Add people
                   </h3>
-                  <InviteeUpload teamId={teamId} studyId={studyId} onImported={refreshStats} />
+                  <InviteeUpload
+                    teamId={teamId}
+                    studyId={studyId}
+                    notInvited={s.invitations.total - s.invitations.sent}
+                    onImported={refreshStats}
+                  />
                 </section>
                 <section aria-labelledby="send-heading" className="min-w-0 space-y-2">
                   <h3 id="send-heading" className="text-sm font-semibold text-ink">
                     Send
                   </h3>
-                  <SendPanel teamId={teamId} studyId={studyId} live={live} onSent={refreshStats} />
+                  <SendPanel
+                    teamId={teamId}
+                    studyId={studyId}
+                    live={live}
+                    listSize={s.invitations.total}
+                    onSent={refreshStats}
+                  />
                 </section>
               </div>
             </>

@@ -157,7 +157,7 @@ export function Component() {
           <RunComparison runs={compared} />
         </section>
       )}
-      {(runs.data ?? []).some((r) => r.status === 'done') && <RunCautions />}
+      {(runs.data ?? []).some((r) => r.status === 'done') && <RunCautions screen="models" />}
     </div>
   );
 }

@@ -69,7 +69,7 @@ export function Component() {
           }}
         />
       </div>
-      <TasteCautions lowDraws={lowDrawsShown} />
+      <TasteCautions screen="tastes" lowDraws={lowDrawsShown} />
       <ErrorText error={tastes.error} />
       {!header && tastes.isPending && <Spinner label="Loading profiles…" />}
       {header && (

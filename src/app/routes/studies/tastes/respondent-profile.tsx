@@ -35,7 +35,7 @@ export function Component() {
           {header.personalColumns && row.externalId && ` · external id ${row.externalId}`}
         </p>
       </div>
-      <TasteCautions lowDraws={row.lowDraws ? 1 : 0} />
+      <TasteCautions screen="respondent" lowDraws={row.lowDraws ? 1 : 0} />
       <Card title="Conditional distribution beside the population">
         <div className="grid gap-4 sm:grid-cols-2 xl:grid-cols-3">
           {random.map((c) => (

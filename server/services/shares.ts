@@ -5,6 +5,8 @@
  * conditional means because the run stores each respondent's mean and SD, not their weighted
  * draws; this ignores the uncertainty within a respondent, which is documented in the UI. An
  * MNL run has one set of coefficients for everybody, so its shares are the MNL formula.
+ * Beside the shares: the scenario's compensating variation against the status quo
+ * (share-welfare.ts).
  */
 import type { AppDeps } from '../deps';
 import { ValidationError } from '../lib/errors';
@@ -15,12 +17,13 @@ import { simulateShares } from '../../shared/engine/shares/simulate-shares';
 import type { ShareResult, SimulateShares } from '../../shared/schemas/shares';
 import { loadRunContext, type Member, type RunContext } from './tastes/run-context';
 import { resolveGrouping } from './tastes/get-segments';
+import { computeShareWelfare } from './share-welfare';
 
 /** J × K coded rows of the scenario in the run's coefficient order. */
 function codeScenario(
   ctx: RunContext,
   input: SimulateShares,
-): { rows: Float64Array; names: string[] } {
+): { rows: Float64Array; names: string[]; baseline: string | null } {
   const plan = buildCodingPlan(ctx.definition);
   const keys = ctx.spec.coefficients.map((c) => c.column ?? c.name);
   const at = keys.map((key) => plan.columns.findIndex((c) => c.key === key));
@@ -42,13 +45,15 @@ function codeScenario(
     coded.push(codeAlternative(plan, alt.alternative, alt.levels));
     names.push(alt.name);
   });
+  let baseline: string | null = null;
   if (input.includeFixed && plan.fixed) {
     coded.push(codeAlternative(plan, 'fixed', {}));
-    names.push(ctx.definition.fixedAlternative!.label);
+    baseline = ctx.definition.fixedAlternative!.label;
+    names.push(baseline);
   }
   const rows = new Float64Array(coded.length * K);
   coded.forEach((row, j) => at.forEach((c, k) => (rows[j * K + k] = c >= 0 ? row[c] : 0)));
-  return { rows, names };
+  return { rows, names, baseline };
 }
 
 export async function simulateStudyShares(
@@ -58,7 +63,7 @@ export async function simulateStudyShares(
   input: SimulateShares,
 ): Promise<ShareResult> {
   const ctx = await loadRunContext(deps, member, studyId, input.runId);
-  const { rows, names } = codeScenario(ctx, input);
+  const { rows, names, baseline } = codeScenario(ctx, input);
   const coefficientNames = ctx.spec.coefficients.map((c) => c.name);
   const K = coefficientNames.length;
   const profiles = await listRunProfiles(deps.db, { runId: ctx.run.id, studyId });
@@ -92,7 +97,16 @@ export async function simulateStudyShares(
     ...(grouping ? { groups, groupCount: Math.max(1, grouping.order.length) } : {}),
   });
   const J = names.length;
+  const welfare = computeShareWelfare(ctx, {
+    rows,
+    alternativeCount: J,
+    baseline,
+    betas,
+    respondents: N,
+    usesProfiles,
+  });
   return {
+    ...welfare,
     runId: ctx.run.id,
     method: usesProfiles ? 'conditional_means' : 'point_estimates',
     respondents: usesProfiles ? N : ctx.results.respondents,

@@ -17,6 +17,9 @@ import { createPatternLookup, listApiRoutes } from './lib/route-table';
 import { refuseCrossSiteWrites } from './middleware/same-origin';
 import { serveClient } from './static-client';
 
+/** The largest answer is a 2,000-character text (under 12 kB as JSON, even fully escaped). */
+export const RESPONDENT_BODY_LIMIT = '32kb';
+
 export function createApp(deps: AppDeps): express.Express {
   const app = express();
   app.disable('x-powered-by');
@@ -50,6 +53,9 @@ export function createApp(deps: AppDeps): express.Express {
   app.use(compression());
   app.use(cookieParser());
   app.use('/api', refuseCrossSiteWrites([deps.env.APP_URL, ...deps.env.TRUSTED_ORIGINS]));
+  // Respondents send small bodies (an answer, link parameters): anything larger is refused
+  // (413) before it is parsed. Researchers' routes take larger ones (questionnaires, designs).
+  app.use('/api/r', express.json({ limit: RESPONDENT_BODY_LIMIT }));
   app.use(express.json({ limit: '2mb' }));
 
   const api = express.Router();

@@ -56,6 +56,7 @@ export async function insertRespondent(
     sessionToken: string;
     inviteeId?: string | null;
     externalId?: string | null;
+    panelKey?: string | null;
     block: number;
     plan: unknown;
     device?: string;
@@ -96,6 +97,19 @@ export async function getRespondentByInvitee(
       and(eq(respondents.studyId, params.studyId), eq(respondents.inviteeId, params.inviteeId)),
     )
     .orderBy(sql`${respondents.startedAt} desc`)
+    .limit(1);
+  return (row as RespondentRow | undefined) ?? null;
+}
+
+/** The respondent a de-duplicated panel id started in the study, if any. */
+export async function getRespondentByPanelKey(
+  db: DbOrTx,
+  params: { studyId: string; panelKey: string },
+) {
+  const [row] = await db
+    .select(respondentColumns)
+    .from(respondents)
+    .where(and(eq(respondents.studyId, params.studyId), eq(respondents.panelKey, params.panelKey)))
     .limit(1);
   return (row as RespondentRow | undefined) ?? null;
 }

@@ -55,6 +55,12 @@ export const respondents = pgTable(
     sessionToken: text('session_token').notNull(),
     inviteeId: uuid('invitee_id').references(() => invitees.id, { onDelete: 'set null' }),
     externalId: text('external_id'),
+    /**
+     * The panel id that de-duplicates this respondent within the study (set only when the
+     * study de-duplicates panel ids and the link carried one): a returning id resumes its own
+     * session instead of making a second respondent.
+     */
+    panelKey: text('panel_key'),
     block: integer('block').notNull(),
     /** Per-respondent randomisation: task order and alternative positions, stored. */
     plan: jsonb('plan').notNull(),
@@ -73,7 +79,9 @@ export const respondents = pgTable(
   (t) => [
     uniqueIndex('respondents_session_token_uq').on(t.sessionToken),
     index('respondents_study_idx').on(t.studyId, t.status),
-    index('respondents_invitee_idx').on(t.inviteeId),
+    // One personal link, one respondent, even when it is opened on two devices at once.
+    uniqueIndex('respondents_invitee_uq').on(t.inviteeId),
+    uniqueIndex('respondents_study_panel_key_uq').on(t.studyId, t.panelKey),
   ],
 );
 

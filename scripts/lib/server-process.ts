@@ -28,7 +28,9 @@ export function startProcess(opts: {
 }): ServerProcess {
   fs.mkdirSync(path.dirname(opts.logFile), { recursive: true });
   const log = fs.openSync(opts.logFile, 'a');
-  const child = spawn(process.execPath, ['--import', 'tsx', opts.entry], {
+  // Profiling a benchmarked server: BENCH_SERVER_NODE_ARGS='--cpu-prof --cpu-prof-dir=…'.
+  const nodeArgs = process.env.BENCH_SERVER_NODE_ARGS?.split(' ').filter(Boolean) ?? [];
+  const child = spawn(process.execPath, [...nodeArgs, '--import', 'tsx', opts.entry], {
     cwd: root,
     env: { PATH: process.env.PATH ?? '', HOME: process.env.HOME ?? '', ...opts.env },
     stdio: ['ignore', log, log],

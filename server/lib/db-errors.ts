@@ -67,3 +67,15 @@ export function isDatabaseUnavailable(err: unknown): boolean {
 
 /** Seconds a client should wait before trying again. */
 export const DATABASE_RETRY_AFTER_SECONDS = 2;
+
+/**
+ * The unique index that refused a write (SQLSTATE 23505, unique_violation), or null for any
+ * other error: callers that let an index decide a race read the winner back.
+ */
+export function violatedUniqueIndex(err: unknown): string | null {
+  for (const e of causes(err)) {
+    const { code, constraint } = e as { code?: unknown; constraint?: unknown };
+    if (code === '23505') return typeof constraint === 'string' ? constraint : '';
+  }
+  return null;
+}

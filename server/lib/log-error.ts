@@ -40,6 +40,12 @@ export function serializeError(err: unknown): Record<string, unknown> {
       table: db?.table,
       column: db?.column,
       routine: db?.routine,
+      // A cause that is not a PostgreSQL error comes from the driver or the pool (a connect
+      // timeout, a dropped connection): its message names no query values, and without it the
+      // log could not tell a full pool from a broken query.
+      ...(!db && err.cause instanceof Error
+        ? { cause: { type: err.cause.constructor.name, message: err.cause.message } }
+        : {}),
       stack: framesOf(err),
     };
   }

@@ -38,7 +38,9 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
         message:
           type === 'entity.parse.failed'
             ? 'The request body is not valid JSON.'
-            : String((err as Error).message),
+            : type === 'entity.too.large'
+              ? tooLargeMessage(err as { limit?: number })
+              : String((err as Error).message),
       },
     });
     return;
@@ -65,4 +67,9 @@ function rootCode(err: unknown): string | undefined {
   let e = err as { code?: string; cause?: unknown } | undefined;
   while (e?.cause) e = e.cause as typeof e;
   return e?.code;
+}
+
+function tooLargeMessage(err: { limit?: number }): string {
+  const kB = typeof err.limit === 'number' ? ` (at most ${Math.floor(err.limit / 1024)} kB)` : '';
+  return `The request body is too large${kB}.`;
 }

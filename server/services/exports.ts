@@ -63,7 +63,11 @@ async function loadProfileTable(deps: AppDeps, member: Member, studyId: string, 
   const ctx = await loadRunContext(deps, member, studyId, runId);
   const profiles = await listRunProfiles(deps.db, { runId, studyId });
   const answers = indexAnswers(await listQuestionAnswers(deps.db, { studyId }));
-  return { ctx, profiles, table: buildProfileTable(ctx.header, profiles, answers) };
+  return {
+    ctx,
+    profiles,
+    table: buildProfileTable(ctx.header, profiles, answers, ctx.results.classes?.length ?? 0),
+  };
 }
 
 export async function exportProfilesCsv(

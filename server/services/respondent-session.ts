@@ -10,7 +10,6 @@ import { AppError, NotFoundError } from '../lib/errors';
 import { toDeviceClass } from '../lib/device-class';
 import {
   getInviteeByToken,
-  getRespondentByInvitee,
   getRespondentByToken,
   getStudyByPublicId,
   insertRespondent,
@@ -30,6 +29,7 @@ import { closeIfDue, dueCloseReason, readSettings } from './lifecycle';
 import { createRespondentPlan } from './respondent-plan';
 import { buildSurveyView, loadFrozenVersion } from './respondent-screens';
 import { screensOfRespondent } from './respondent-screen-index';
+import { findEarlierRespondent, identityOf, lostIdentityRace } from './respondent-identity';
 
 type PublicStudy = NonNullable<Awaited<ReturnType<typeof getStudyByPublicId>>>;
 
@@ -118,6 +118,7 @@ export async function createRespondent(
     studyId: string;
     inviteeId?: string | null;
     externalId?: string | null;
+    panelKey?: string | null;
     device?: string;
     seed?: number;
     startedAt?: Date;
@@ -141,6 +142,7 @@ export async function createRespondent(
       sessionToken,
       inviteeId: params.inviteeId ?? null,
       externalId: params.externalId ?? null,
+      panelKey: params.panelKey ?? null,
       block,
       plan,
       // A coarse class only: the raw user agent can single a person out.
@@ -183,8 +185,9 @@ export async function buildSession(
 }
 
 /**
- * Starts a session or resumes one: this browser's earlier token, else the personal link's
- * respondent, else a new respondent (with the panel id from the link as external id).
+ * Starts a session or resumes one: this browser's earlier token, else the personal link's or
+ * the de-duplicated panel id's respondent (respondent-identity.ts), else a new respondent
+ * (with the panel id from the link as external id).
  */
 export async function startSession(
   deps: AppDeps,
@@ -213,19 +216,24 @@ export async function startSession(
         'invitation_not_found',
         'This personal link is not valid for this survey.',
       );
-    const earlier = await getRespondentByInvitee(deps.db, {
-      studyId: study.id,
-      inviteeId: invitee.id,
-    });
-    if (earlier) return buildSession(deps.db, study, earlier);
   }
-  const { respondent } = await createRespondent(deps.db, {
-    studyId: study.id,
-    inviteeId: invitee?.id ?? null,
-    externalId: input.params[settings.panelParam] ?? invitee?.externalId ?? null,
-    device: input.device,
-  });
-  return buildSession(deps.db, study, respondent, { isNew: true });
+  const identity = identityOf(settings, input.params, invitee);
+  const earlier = await findEarlierRespondent(deps.db, study.id, identity);
+  if (earlier) return buildSession(deps.db, study, earlier);
+  try {
+    const { respondent } = await createRespondent(deps.db, {
+      studyId: study.id,
+      ...identity,
+      device: input.device,
+    });
+    return buildSession(deps.db, study, respondent, { isNew: true });
+  } catch (err) {
+    // Opened on two devices at once: the unique index let the other start win; resume it.
+    if (!lostIdentityRace(err)) throw err;
+    const winner = await findEarlierRespondent(deps.db, study.id, identity);
+    if (!winner) throw err;
+    return buildSession(deps.db, study, winner);
+  }
 }
 
 export async function getSession(deps: AppDeps, publicId: string, sessionToken: string) {

@@ -9,6 +9,7 @@ import { AppError, ConflictError, NotFoundError, ValidationError } from '../lib/
 import { loadStudy } from './study-access';
 import { getPreparedColumns } from './estimation/code-answers';
 import { assertRunFitsMemory } from './estimation/run-memory';
+import { assertFamilyFitsData } from './estimation/family-data-checks';
 import { getRunSeed, toRunView } from './estimation/run-view';
 import type { ModelFamily } from '../../shared/schemas/estimation-families';
 import {
@@ -131,6 +132,7 @@ export async function createRun(
       { path: 'respondents.filterId', message: 'There is no such saved filter' },
     ]);
   await assertRunFitsMemory(deps, studyId, spec);
+  await assertFamilyFitsData(deps, studyId, spec, filterId);
   if (!deps.jobs)
     throw new AppError(503, 'queue_unavailable', 'The job queue is not running; try again soon.');
   const row = await insertRun(deps.db, {

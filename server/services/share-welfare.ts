@@ -2,15 +2,17 @@
  * Welfare of a what-if scenario for the Shares section: the compensating variation against a
  * choice set holding only the status quo (shared/engine/shares/welfare.ts, log-sum formula).
  * MNL: the formula at the estimates, with a Krinsky & Robb (1986) interval from the run's
- * covariance. Mixed logit: each respondent's value from their conditional means, averaged,
- * with an interval from resampling respondents (it shows how much the average depends on who
- * answered; it leaves out the estimation error of the population parameters, which would need
- * the profiles recomputed for every parameter draw — said on screen).
+ * covariance. Mixed logit and HB: each respondent's value from their conditional (posterior)
+ * means; latent class: each class's value weighted by the respondent's class probabilities;
+ * then averaged over respondents, with an interval from resampling respondents (it shows how
+ * much the average depends on who answered; it leaves out the estimation error of the model's
+ * parameters, which would need the profiles recomputed for every parameter draw — said on
+ * screen).
  */
 import { createPrng } from '../engine/draws/prng';
 import { propagateUncertainty, quantile } from '../engine/estimation/propagate-uncertainty';
 import { computeCompensatingVariation, meanOfFinite } from '../../shared/engine/shares/welfare';
-import type { ShareWelfare } from '../../shared/schemas/shares';
+import type { ShareMethod, ShareWelfare } from '../../shared/schemas/shares';
 import type { RunContext } from './tastes/run-context';
 
 const RESAMPLES = 1000;
@@ -22,10 +24,14 @@ export type WelfareScenario = {
   alternativeCount: number;
   /** The status quo's name when the scenario includes it, else null. */
   baseline: string | null;
-  /** N × K coefficients: respondents' conditional means, or the estimates once (N = 1). */
+  /** Where the coefficients come from (share-betas.ts). */
+  method: ShareMethod;
+  /** (N·D) × K coefficients: D vectors per respondent, or the estimates once (N = D = 1). */
   betas: Float64Array;
   respondents: number;
-  usesProfiles: boolean;
+  vectorsPerRespondent: number;
+  /** N × D weights of each respondent's vectors (latent class probabilities); default 1/D. */
+  weights?: Float64Array;
 };
 
 export type WelfareOutcome = { welfare: ShareWelfare | null; welfareNote: string | null };
@@ -57,8 +63,6 @@ export function computeShareWelfare(ctx: RunContext, s: WelfareScenario): Welfar
   if (!ctx.spec.cost) return note('The run has no cost coefficient, so there is no money measure.');
   if (ctx.spec.space === 'wtp')
     return note('Welfare is computed from preference-space runs; this run is in WTP space.');
-  if (!s.usesProfiles && ctx.run.model !== 'mnl')
-    return note('Welfare needs an MNL run or a mixed-logit run with taste profiles.');
   const names = ctx.spec.coefficients.map((c) => c.name);
   const cost = names.indexOf(ctx.spec.cost);
   const costAttribute = ctx.definition.attributes.find((a) => a.isCost);
@@ -75,12 +79,22 @@ export function computeShareWelfare(ctx: RunContext, s: WelfareScenario): Welfar
     unit: costAttribute?.unit?.trim() ?? '',
   };
   const seed = ctx.spec.model === 'mixed' ? ctx.spec.draws.seed : 1;
-  const perRespondent = computeCompensatingVariation({
+  const D = s.vectorsPerRespondent;
+  const perVector = computeCompensatingVariation({
     ...base,
-    respondents: s.respondents,
+    respondents: s.respondents * D,
     betas: s.betas,
   });
-  if (!s.usesProfiles) {
+  // A respondent's value: the weighted mean over their vectors (latent class: E_c[CV_c]);
+  // without a money metric in any of them (a cost coefficient not negative), none.
+  const perRespondent = new Float64Array(s.respondents);
+  for (let n = 0; n < s.respondents; n++) {
+    let sum = 0;
+    for (let d = 0; d < D; d++)
+      sum += (s.weights ? s.weights[n * D + d] : 1 / D) * perVector[n * D + d];
+    perRespondent[n] = sum;
+  }
+  if (s.method === 'point_estimates') {
     if (!(perRespondent[0] === perRespondent[0]))
       return note('The cost coefficient is not negative, so there is no money measure.');
     const cv = (theta: Float64Array) =>

@@ -1,12 +1,9 @@
 /**
  * Share simulation use case ('runs:read'): codes the analyst's hypothetical alternatives with
- * the study's coding, takes each respondent's conditional means from a finished mixed-logit
- * run and averages the respondents' logit probabilities (shared/engine/shares). We use the
- * conditional means because the run stores each respondent's mean and SD, not their weighted
- * draws; this ignores the uncertainty within a respondent, which is documented in the UI. An
- * MNL run has one set of coefficients for everybody, so its shares are the MNL formula.
- * Beside the shares: the scenario's compensating variation against the status quo
- * (share-welfare.ts).
+ * the study's coding, takes each respondent's coefficients from a finished run (share-betas.ts
+ * says which, per model family) and averages the respondents' logit probabilities
+ * (shared/engine/shares). Beside the shares: the scenario's compensating variation against the
+ * status quo (share-welfare.ts).
  */
 import type { AppDeps } from '../deps';
 import { ValidationError } from '../lib/errors';
@@ -18,6 +15,7 @@ import type { ShareResult, SimulateShares } from '../../shared/schemas/shares';
 import { loadRunContext, type Member, type RunContext } from './tastes/run-context';
 import { resolveGrouping } from './tastes/get-segments';
 import { computeShareWelfare } from './share-welfare';
+import { getShareBetas } from './shares/share-betas';
 
 /** J × K coded rows of the scenario in the run's coefficient order. */
 function codeScenario(
@@ -67,19 +65,8 @@ export async function simulateStudyShares(
   const coefficientNames = ctx.spec.coefficients.map((c) => c.name);
   const K = coefficientNames.length;
   const profiles = await listRunProfiles(deps.db, { runId: ctx.run.id, studyId });
-  const usesProfiles = ctx.run.model === 'mixed' && profiles.length > 0;
-  const N = usesProfiles ? profiles.length : 1;
-  const betas = new Float64Array(N * K);
-  if (usesProfiles) {
-    profiles.forEach((p, n) => {
-      const mean = p.mean as Record<string, number>;
-      coefficientNames.forEach((name, k) => (betas[n * K + k] = mean[name] ?? 0));
-    });
-  } else {
-    coefficientNames.forEach((name, k) => {
-      betas[k] = ctx.results.estimates.find((e) => e.name === name)?.estimate ?? 0;
-    });
-  }
+  const { method, N, D, betas, drawWeights } = getShareBetas(ctx, profiles, coefficientNames);
+  const usesProfiles = method !== 'point_estimates';
   const grouping =
     input.segmentBy && usesProfiles ? await resolveGrouping(deps, ctx, input.segmentBy) : null;
   const groups = grouping
@@ -92,6 +79,8 @@ export async function simulateStudyShares(
     respondents: N,
     coefficients: K,
     betas,
+    drawsPerRespondent: D,
+    ...(drawWeights ? { drawWeights } : {}),
     alternativeCount: names.length,
     alternatives: rows,
     ...(grouping ? { groups, groupCount: Math.max(1, grouping.order.length) } : {}),
@@ -101,14 +90,16 @@ export async function simulateStudyShares(
     rows,
     alternativeCount: J,
     baseline,
+    method,
     betas,
     respondents: N,
-    usesProfiles,
+    vectorsPerRespondent: D,
+    weights: drawWeights,
   });
   return {
     ...welfare,
     runId: ctx.run.id,
-    method: usesProfiles ? 'conditional_means' : 'point_estimates',
+    method,
     respondents: usesProfiles ? N : ctx.results.respondents,
     alternatives: names.map((name, j) => ({ name, share: result.shares[j] })),
     segments: grouping

@@ -24,10 +24,13 @@ export const simulateSharesSchema = z
       .max(5, 'At most 5 alternatives'),
     /** Add the study's opt-out / status quo to the scenario. */
     includeFixed: z.boolean().default(true),
-    /** Shares per segment as well: by the answer to a single-choice question. */
+    /**
+     * Shares per segment as well: by the answer to a single-choice question, a task's choice,
+     * or (latent class runs) the respondent's likeliest class.
+     */
     segmentBy: z
       .object({
-        groupBy: z.enum(['task', 'question']),
+        groupBy: z.enum(['task', 'question', 'class']),
         task: z.number().int().min(1).optional(),
         question: z
           .string()
@@ -56,7 +59,11 @@ export type ShareMethod =
   /** Mixed logit: each respondent's conditional means (Revelt & Train 2000). */
   | 'conditional_means'
   /** MNL: one set of coefficients for everybody (no taste variation). */
-  | 'point_estimates';
+  | 'point_estimates'
+  /** HB: each respondent's posterior means (not averaged over the posterior draws). */
+  | 'posterior_means'
+  /** Latent class: each respondent's class probabilities times the class logit probabilities. */
+  | 'class_weighted';
 
 /**
  * Compensating variation of the scenario against a choice set holding only the status quo

@@ -78,7 +78,8 @@ export const segmentsQuerySchema = z
   .object({
     runId: z.uuid('Choose a finished run'),
     coefficient: coefficientName,
-    groupBy: z.enum(['task', 'question']),
+    /** 'class': the likeliest latent class (latent class runs only). */
+    groupBy: z.enum(['task', 'question', 'class']),
     task: z.coerce.number().int().min(1).max(2000).optional(),
     question: z
       .string()

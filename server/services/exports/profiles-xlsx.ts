@@ -1,8 +1,10 @@
 /**
  * The per-respondent XLSX (exceljs): sheet 1 "About" states the model, the data (study,
  * version, respondents, data hash), the date and the cautions; sheet 2 "Profiles" holds the
- * table; sheet 3 "Population" the estimated population moments; then "Estimates" and the
- * full covariance matrices of the estimates, classical and robust. Text goes in as text cells,
+ * table; sheet 3 "Methods" how the numbers were made (priors, sampler and diagnostics for HB;
+ * the class-count table and class estimates for latent class); then "Population" the estimated
+ * population moments, "Estimates" and the full covariance matrices of the estimates, classical
+ * and robust. Text goes in as text cells,
  * which spreadsheet programs never evaluate as formulas, so no quote prefix is needed here.
  */
 import ExcelJS from 'exceljs';
@@ -10,9 +12,11 @@ import type { RunContext } from '../tastes/run-context';
 import type { Table } from './profile-table';
 import { buildCovarianceTable, describeCovariance } from './covariance-table';
 import { getRunSummary } from './run-summary';
+import { getMethodsSections } from './methods-sections';
 
 export const ABOUT_SHEET = 'About';
 export const PROFILES_SHEET = 'Profiles';
+export const METHODS_SHEET = 'Methods';
 
 export async function writeProfilesXlsx(
   ctx: RunContext,
@@ -38,6 +42,15 @@ export async function writeProfilesXlsx(
   profiles.addRow(table.header).font = { bold: true };
   for (const row of table.rows) profiles.addRow(row.map((v) => (v === undefined ? null : v)));
 
+  const methods = workbook.addWorksheet(METHODS_SHEET);
+  methods.getColumn(1).width = 40;
+  for (const section of getMethodsSections(ctx)) {
+    methods.addRow([section.title]).font = { bold: true, size: 12 };
+    methods.addRow(section.head).font = { bold: true };
+    for (const row of section.rows) methods.addRow(row);
+    methods.addRow([]);
+  }
+
   const population = workbook.addWorksheet('Population');
   population.addRow([
     'coefficient',
@@ -59,7 +72,12 @@ export async function writeProfilesXlsx(
       c.spread,
     ]);
   const estimates = workbook.addWorksheet('Estimates');
-  estimates.addRow(['parameter', 'estimate', 'se', 'robust_se']).font = { bold: true };
+  // HB: posterior means and SDs over the kept draws (no sandwich SE).
+  estimates.addRow(
+    ctx.spec.model === 'hb'
+      ? ['parameter', 'posterior_mean', 'posterior_sd', 'robust_se']
+      : ['parameter', 'estimate', 'se', 'robust_se'],
+  ).font = { bold: true };
   for (const e of ctx.results.estimates) estimates.addRow([e.name, e.estimate, e.se, e.robustSe]);
   for (const kind of ['classical', 'robust'] as const) {
     const table = buildCovarianceTable(ctx.results, kind);

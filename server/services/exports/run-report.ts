@@ -1,10 +1,12 @@
 /**
  * A printable run report: one self-contained HTML page (inline styles, print rules, no
  * scripts) with what the file is about, the parameter table, fit statistics, WTP, population
- * moments, a summary of the taste profiles and the cautions. Every text is HTML-escaped.
+ * moments, a summary of the taste profiles, the methods (priors, sampler and diagnostics for HB;
+ * class-count table and class estimates for latent class) and the cautions. Every text is HTML-escaped.
  */
 import type { RunContext } from '../tastes/run-context';
 import { getRunSummary } from './run-summary';
+import { getMethodsSections, type MethodsCell } from './methods-sections';
 
 const escapeHtml = (s: string) =>
   s.replace(
@@ -14,6 +16,9 @@ const escapeHtml = (s: string) =>
 
 const num = (x: number | null | undefined, digits = 4) =>
   x === null || x === undefined || !Number.isFinite(x) ? '—' : x.toFixed(digits);
+
+const cell = (c: MethodsCell) =>
+  typeof c === 'number' ? (Number.isInteger(c) ? String(c) : num(c)) : (c ?? '—');
 
 /** 97.5 % quantile of the standard normal (standard normal tables). */
 const Z975 = 1.959964;
@@ -112,6 +117,13 @@ export function renderRunReport(
       ]),
     )}`,
     `<h2>Taste profiles</h2><p>${profiles.count} respondents have a taste profile; ${profiles.lowDraws} of them have fewer than ${ctx.header.lowDrawsThreshold} effective draws.</p>`,
+    ...getMethodsSections(ctx).map(
+      (m) =>
+        `<h2>${escapeHtml(m.title)}</h2>${table(
+          m.head,
+          m.rows.map((r) => r.map(cell)),
+        )}`,
+    ),
     `<h2>Cautions</h2><div class="caution"><ul>${cautions.map((c) => `<li>${escapeHtml(String(c))}</li>`).join('')}</ul></div>`,
   ];
   return `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width,initial-scale=1"><title>${escapeHtml(`Run report — ${ctx.study.name}`)}</title><style>${STYLE}</style></head><body>${sections.join('\n')}</body></html>`;

@@ -1,6 +1,7 @@
 /**
- * Segments use case: one coefficient's conditional means grouped by the alternative chosen in
- * a design task or by the answer to a single-choice or number question, summarised by
+ * Segments use case: one coefficient's individual means grouped by the alternative chosen in
+ * a design task, by the answer to a single-choice or number question, or (latent class runs) by
+ * the likeliest class, summarised by
  * summarizeSegments (server/services/segments.ts).
  */
 import type { AppDeps } from '../../deps';
@@ -8,6 +9,7 @@ import { ValidationError } from '../../lib/errors';
 import { listQuestionAnswers, listRunProfiles, listTaskChoices } from '../../../db/queries/tastes';
 import type { Segments, SegmentsQuery, TasteQuestion } from '../../../shared/schemas/tastes';
 import { summarizeSegments } from '../segments';
+import { formatPercent } from '../../../shared/format';
 import { loadRunContext, type Member, type RunContext } from './run-context';
 import { getAnswerKey } from './background-answers';
 import { getAlternativeIndexes, getAlternativeLabel } from './alternative-labels';
@@ -91,12 +93,35 @@ async function groupByQuestion(deps: AppDeps, ctx: RunContext, key: string): Pro
   return { label: question.text, ...groupNumbers(values), labelOf: (k) => k };
 }
 
-/** The grouping a segment request names (400 when the task or question cannot group). */
+/** Latent class runs: each respondent's likeliest class (largest posterior probability). */
+async function groupByClass(deps: AppDeps, ctx: RunContext): Promise<Grouping> {
+  const classes = ctx.results.classes ?? [];
+  if (ctx.run.model !== 'latent_class' || classes.length === 0)
+    throw new ValidationError('Only a latent class run has classes to group by.', [
+      { path: 'groupBy', message: 'Choose a latent class run to group by class' },
+    ]);
+  const profiles = await listRunProfiles(deps.db, { runId: ctx.run.id, studyId: ctx.study.id });
+  const groupOf = new Map<string, string>();
+  for (const p of profiles) {
+    const c = (p.extra as { likeliestClass?: number } | null)?.likeliestClass;
+    if (c !== undefined) groupOf.set(p.respondentId, String(c));
+  }
+  const share = new Map(classes.map((c) => [String(c.class), c.share]));
+  return {
+    label: 'Likeliest latent class',
+    groupOf,
+    order: classes.map((c) => String(c.class)),
+    labelOf: (key) => `Class ${key} (${formatPercent(share.get(key), 0)})`,
+  };
+}
+
+/** The grouping a segment request names (400 when the task, question or run cannot group). */
 export function resolveGrouping(
   deps: AppDeps,
   ctx: RunContext,
-  by: { groupBy: 'task' | 'question'; task?: number; question?: string },
+  by: { groupBy: 'task' | 'question' | 'class'; task?: number; question?: string },
 ): Promise<Grouping> {
+  if (by.groupBy === 'class') return groupByClass(deps, ctx);
   return by.groupBy === 'task'
     ? groupByTask(deps, ctx, by.task!)
     : groupByQuestion(deps, ctx, by.question!);

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, type TestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
-import { billMean, N, riverGood, seedTastesStudy } from './tastes-fixture';
+import { billMean, N, riverGood, scenarioLevels, seedTastesStudy } from './tastes-fixture';
 
 let t: TestApp;
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
@@ -18,13 +18,7 @@ afterAll(async () => {
   await t.close();
 });
 
-const levels = (river: string, bill = 'b3') => ({
-  bill,
-  interrupt: 'i2',
-  warn: 'w2',
-  river,
-  renew: 'r50',
-});
+const levels = scenarioLevels;
 
 describe('POST /shares/simulate', () => {
   it('gives two identical packages equal shares (every role may simulate)', async () => {

@@ -251,3 +251,12 @@ export async function seedTastesStudy(db: Db, teamId: string) {
   );
   return { studyId: study.id, versionId: version.id, runId, runningRunId, respondentIds };
 }
+
+/** A share-scenario alternative of the Larkspur definition at middle levels but river and bill. */
+export const scenarioLevels = (river: string, bill = 'b3') => ({
+  bill,
+  interrupt: 'i2',
+  warn: 'w2',
+  river,
+  renew: 'r50',
+});

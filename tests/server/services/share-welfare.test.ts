@@ -39,9 +39,10 @@ const scenario = {
   rows: Float64Array.from([1, 0, 1, 1, 0, 0]),
   alternativeCount: 3,
   baseline: 'Keep the current service',
+  method: 'point_estimates' as const,
   betas: Float64Array.from([1, -0.5]),
   respondents: 1,
-  usesProfiles: false,
+  vectorsPerRespondent: 1,
 };
 
 describe('computeShareWelfare (MNL)', () => {
@@ -86,5 +87,28 @@ describe('computeShareWelfare (MNL)', () => {
     expect(
       computeShareWelfare(ctx(), { ...scenario, betas: Float64Array.from([1, 0.2]) }).welfareNote,
     ).toMatch(/not negative/);
+  });
+
+  it('weights a latent-class respondent’s class values by their class probabilities', () => {
+    // Class 1: β = (1, −0.5), CV = 3.360539; class 2: β = (0.5, −0.25), CV = 5.477352 (hand
+    // computations in tests/shared/engine/shares/welfare.test.ts). Respondent 1: h = (0.8,
+    // 0.2) → 3.783901; respondent 2: h = (0.1, 0.9) → 5.265671; average 4.524786.
+    const classes = [1, -0.5, 0.5, -0.25];
+    const { welfare } = computeShareWelfare(ctx({ run: { model: 'latent_class' } }), {
+      ...scenario,
+      method: 'class_weighted',
+      betas: Float64Array.from([...classes, ...classes]),
+      respondents: 2,
+      vectorsPerRespondent: 2,
+      weights: Float64Array.from([0.8, 0.2, 0.1, 0.9]),
+    });
+    expect(welfare).toMatchObject({
+      mean: expect.closeTo(
+        (0.8 * 3.360539 + 0.2 * 5.477352 + 0.1 * 3.360539 + 0.9 * 5.477352) / 2,
+        5,
+      ),
+      interval: 'respondent_resampling',
+      respondents: 2,
+    });
   });
 });

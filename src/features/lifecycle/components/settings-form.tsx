@@ -15,6 +15,11 @@ const formSchema = z.object({
   panelParam: z
     .string()
     .regex(/^[A-Za-z][A-Za-z0-9_]{0,29}$/, 'Letters, digits and _, starting with a letter'),
+  dedupePanelIds: z.boolean(),
+  lateAnswerGraceHours: z
+    .string()
+    .regex(/^\d+$/, 'A whole number of hours')
+    .refine((s) => Number(s) <= 720, 'At most 720 hours (30 days)'),
   complete: z.string(),
   screenedOut: z.string(),
   overQuota: z.string(),
@@ -47,6 +52,8 @@ export function SettingsForm({
       closeAt: toLocalInput(settings.closeAt),
       quotaCompletes: settings.quotaCompletes?.toString() ?? '',
       panelParam: settings.panelParam,
+      dedupePanelIds: settings.dedupePanelIds,
+      lateAnswerGraceHours: String(settings.lateAnswerGraceHours),
       complete: settings.redirects.complete ?? '',
       screenedOut: settings.redirects.screenedOut ?? '',
       overQuota: settings.redirects.overQuota ?? '',
@@ -59,6 +66,8 @@ export function SettingsForm({
         closeAt: v.closeAt ? new Date(v.closeAt).toISOString() : null,
         quotaCompletes: v.quotaCompletes ? Number(v.quotaCompletes) : null,
         panelParam: v.panelParam,
+        dedupePanelIds: v.dedupePanelIds,
+        lateAnswerGraceHours: Number(v.lateAnswerGraceHours),
         redirects: {
           complete: orNull(v.complete),
           screenedOut: orNull(v.screenedOut),
@@ -95,6 +104,26 @@ export function SettingsForm({
           error={errors.panelParam?.message}
           hint="Stored as the respondent's external id, e.g. ?pid=123."
           {...form.register('panelParam')}
+        />
+        <label className="flex items-start gap-2 text-sm">
+          <input
+            type="checkbox"
+            className="mt-0.5 size-4 accent-primary"
+            {...form.register('dedupePanelIds')}
+          />
+          <span>
+            One respondent per panel id
+            <span className="block text-xs text-ink-muted">
+              A panel id that comes back resumes its own session instead of answering again.
+            </span>
+          </span>
+        </label>
+        <TextField
+          label="Accept answers given before the close for (hours)"
+          inputMode="numeric"
+          error={errors.lateAnswerGraceHours?.message}
+          hint="Phones that were offline send their answers later. 0 refuses every answer after the close."
+          {...form.register('lateAnswerGraceHours')}
         />
         <TextField
           label="Redirect when complete"

@@ -17,7 +17,7 @@ export function WelfarePanel({ result }: { result: ShareResult }) {
       <p className="text-ink">
         Offering these alternatives beside “{w.baseline}” is worth{' '}
         <strong className="num">{money(w.mean)}</strong> per respondent
-        {result.method === 'conditional_means' ? ' on average' : ''}, in units of{' '}
+        {result.method !== 'point_estimates' ? ' on average' : ''}, in units of{' '}
         {w.money.toLowerCase()}
         {w.interval && (
           <>
@@ -30,8 +30,8 @@ export function WelfarePanel({ result }: { result: ShareResult }) {
       <p className="text-xs text-ink-muted">
         Compensating variation by the log-sum formula (Small &amp; Rosen 1981; Train 2009 §3.5)
         against a choice with only “{w.baseline}” available.{' '}
-        {result.method === 'conditional_means'
-          ? `Each respondent's value from their taste profile, averaged over ${formatCount(w.respondents)} respondents${w.withheld > 0 ? ` (${formatCount(w.withheld)} without a negative cost coefficient left out)` : ''}. The interval comes from resampling respondents: it shows how much the average depends on who answered, not the estimation error of the model's parameters.`
+        {result.method !== 'point_estimates'
+          ? `Each respondent's value from their taste profile (latent class: their classes' values weighted by their class probabilities), averaged over ${formatCount(w.respondents)} respondents${w.withheld > 0 ? ` (${formatCount(w.withheld)} without a negative cost coefficient left out)` : ''}. The interval comes from resampling respondents: it shows how much the average depends on who answered, not the estimation error of the model's parameters.`
           : 'The interval comes from Krinsky–Robb draws of the estimates from their covariance.'}{' '}
         A negative value means the scenario leaves people worse off than the status quo. Stated,
         hypothetical choices tend to overstate what people would pay.

@@ -3,7 +3,7 @@ import { api } from '@/lib/api-client';
 import type { Segments } from '@shared/schemas/tastes';
 import { tasteKeys, tastesPath, toSearch, type SegmentsParams } from './taste-keys';
 
-/** One coefficient's conditional means split by a task choice or a background answer. */
+/** One coefficient's individual means split by a task choice, a background answer or a class. */
 export function getSegments(
   teamId: string,
   studyId: string,
@@ -21,7 +21,8 @@ export const getSegmentsQueryOptions = (teamId: string, studyId: string, params:
     enabled:
       params.runId !== '' &&
       params.coefficient !== '' &&
-      (params.groupBy === 'task' ? params.task !== undefined : !!params.question),
+      (params.groupBy === 'class' ||
+        (params.groupBy === 'task' ? params.task !== undefined : !!params.question)),
   });
 
 export function useSegments(teamId: string, studyId: string, params: SegmentsParams) {

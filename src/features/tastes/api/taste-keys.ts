@@ -4,7 +4,7 @@ import type { ListTastesQuery } from '@shared/schemas/tastes';
 export type SegmentsParams = {
   runId: string;
   coefficient: string;
-  groupBy: 'task' | 'question';
+  groupBy: 'task' | 'question' | 'class';
   task?: number;
   question?: string;
 };

@@ -13,14 +13,7 @@ import { formatNumber } from '@/utils/format';
 import { useTasteComparison } from '../api/compare-tastes';
 import { ComparisonScatter } from './comparison-scatter';
 import { RunPicker } from './run-picker';
-
-/** What a run's individual means are called, per model family. */
-const MEAN_NAMES: Record<TastesRun['model'], string> = {
-  mnl: 'estimate',
-  mixed: 'conditional mean',
-  hb: 'posterior mean',
-  latent_class: 'posterior-weighted mean',
-};
+import { MEAN_NAMES } from '../utils/mean-names';
 
 /** The run to compare with by default: another family first (HB ↔ mixed logit), else any other. */
 export function pickComparisonRun(runs: TastesRun[], run: TastesRun | undefined): string {

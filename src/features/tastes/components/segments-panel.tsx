@@ -1,7 +1,7 @@
 /**
  * Segments: the analyst picks a coefficient and a grouping (the alternative chosen in a task,
- * or the answer to a single-choice or number question) and sees the groups' distributions of
- * conditional means with their counts and means.
+ * the answer to a single-choice or number question, or for a latent class run the likeliest
+ * class) and sees the groups' distributions of individual means with their counts and means.
  */
 import { useState } from 'react';
 import { Card, Spinner } from '@/components/ui/feedback';
@@ -11,6 +11,11 @@ import type { TasteHeader } from '@shared/schemas/tastes';
 import { useSegments } from '../api/get-segments';
 import { formatNumber } from '@/utils/format';
 import { SegmentsChart, type SegmentsView } from './segments-chart';
+import { MEAN_NAMES } from '../utils/mean-names';
+
+type GroupBy = 'task' | 'question' | 'class';
+
+const capitalise = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
 export function SegmentsPanel({
   teamId,
@@ -28,8 +33,9 @@ export function SegmentsPanel({
   ];
   const random = header.coefficients.filter((c) => c.distribution !== 'fixed');
   const [coefficient, setCoefficient] = useState((random[0] ?? header.coefficients[0])?.name ?? '');
-  const [groupBy, setGroupBy] = useState<'task' | 'question'>(
-    groupable.length ? 'question' : 'task',
+  const classes = header.run.model === 'latent_class';
+  const [groupBy, setGroupBy] = useState<GroupBy>(
+    classes ? 'class' : groupable.length ? 'question' : 'task',
   );
   const [question, setQuestion] = useState(groupable[0]?.key ?? '');
   const [task, setTask] = useState(header.tasks[0]?.task ?? 1);
@@ -38,7 +44,7 @@ export function SegmentsPanel({
     runId: header.run.id,
     coefficient,
     groupBy,
-    ...(groupBy === 'task' ? { task } : { question }),
+    ...(groupBy === 'task' ? { task } : groupBy === 'question' ? { question } : {}),
   });
 
   return (
@@ -58,14 +64,15 @@ export function SegmentsPanel({
         <SelectField
           label="Split by"
           value={groupBy}
-          onChange={(e) => setGroupBy(e.target.value as 'task' | 'question')}
+          onChange={(e) => setGroupBy(e.target.value as GroupBy)}
         >
+          {classes && <option value="class">Likeliest latent class</option>}
           <option value="question" disabled={groupable.length === 0}>
             Answer to a background question
           </option>
           <option value="task">Alternative chosen in a task</option>
         </SelectField>
-        {groupBy === 'question' ? (
+        {groupBy === 'class' ? null : groupBy === 'question' ? (
           <SelectField
             label="Question"
             value={question}
@@ -110,7 +117,8 @@ export function SegmentsPanel({
           <>
             <SegmentsChart data={segments.data} view={view} />
             <p className="mt-4 mb-1 text-xs text-ink-muted">
-              Conditional means of {segments.data.coefficient.label} by {segments.data.groupLabel}
+              {capitalise(MEAN_NAMES[header.run.model])}s of {segments.data.coefficient.label} by{' '}
+              {segments.data.groupLabel}
               {segments.data.ungrouped > 0 &&
                 ` (${segments.data.ungrouped} respondents without an answer left out)`}
             </p>

@@ -1,7 +1,8 @@
 /**
  * Shares section (what-if share simulator): hypothetical alternatives defined by their levels,
- * simulated over every respondent's own taste profile from a finished run, overall and by
- * segment. Every role may simulate; nothing is stored.
+ * simulated over every respondent's own estimates from a finished run (conditional means, HB
+ * posterior means, or latent class probabilities), overall and by segment (a background answer,
+ * or the likeliest latent class). Every role may simulate; nothing is stored.
  */
 import { useState } from 'react';
 import { useParams, useSearchParams } from 'react-router';
@@ -18,6 +19,19 @@ import { makeAlternative, ScenarioEditor } from '@/features/shares/components/sc
 import { ShareResults } from '@/features/shares/components/share-results';
 import { WelfarePanel } from '@/features/shares/components/welfare-panel';
 import type { ScenarioAlternative } from '@shared/schemas/shares';
+
+/** The segment choice that splits by the likeliest latent class (no question key has a colon). */
+const CLASS_SEGMENT = ':class';
+
+/** How the shares are computed, per model family of the run. */
+const METHOD_TEXT: Record<string, string> = {
+  mixed:
+    'Each respondent gets logit choice probabilities from their own conditional means (their taste profile); the share is the average over respondents, not the choice of one average person. Uncertainty within each profile is not carried into the shares.',
+  hb: 'Each respondent gets logit choice probabilities from their own posterior means (hierarchical Bayes); the share is the average over respondents. The posterior draws are not kept, so uncertainty within each respondent is not carried into the shares, which makes individual probabilities somewhat more extreme.',
+  latent_class:
+    'Each respondent’s probabilities are the class logit probabilities weighted by their own posterior class probabilities; the share is the average over respondents.',
+  mnl: 'This is a multinomial logit run: everybody shares one set of coefficients, so shares follow the logit formula without taste variation. Choose a run with individual estimates (mixed logit, HB or latent class) for shares over respondents.',
+};
 
 export function Component() {
   const { teamId = '', studyId = '' } = useParams();
@@ -55,7 +69,12 @@ export function Component() {
     runId,
     alternatives: scenario,
     includeFixed,
-    segmentBy: segment ? { groupBy: 'question' as const, question: segment } : null,
+    segmentBy:
+      segment === CLASS_SEGMENT
+        ? { groupBy: 'class' as const }
+        : segment
+          ? { groupBy: 'question' as const, question: segment }
+          : null,
   };
   const onSimulate = () => simulate.mutate(request);
   // Results stay on screen while the inputs change, marked out of date from the first edit.
@@ -77,16 +96,14 @@ export function Component() {
           withProfiles={false}
           onChange={(id) => {
             setSearch({ run: id }, { replace: true });
+            setSegment('');
             simulate.reset();
           }}
         />
       </div>
       <Alert tone="info" title="How the shares are computed">
-        {run?.model === 'mixed'
-          ? 'Each respondent gets logit choice probabilities from their own conditional means (their taste profile); the share is the average over respondents, not the choice of one average person. Uncertainty within each profile is not carried into the shares.'
-          : 'This is a multinomial logit run: everybody shares one set of coefficients, so shares follow the logit formula without taste variation. Choose a mixed-logit run for shares over individual profiles.'}{' '}
-        Shares of stated, hypothetical choices usually overstate real uptake; treat them as
-        comparisons between scenarios, not forecasts.
+        {METHOD_TEXT[run?.model ?? 'mnl']} Shares of stated, hypothetical choices usually overstate
+        real uptake; treat them as comparisons between scenarios, not forecasts.
       </Alert>
       <Card title="Scenario">
         <ScenarioEditor
@@ -111,9 +128,12 @@ export function Component() {
             value={segment}
             onChange={(e) => setSegment(e.target.value)}
             wrapperClassName="w-full sm:w-72"
-            disabled={segmentOptions.length === 0}
+            disabled={segmentOptions.length === 0 && run?.model !== 'latent_class'}
           >
             <option value="">No segments</option>
+            {run?.model === 'latent_class' && (
+              <option value={CLASS_SEGMENT}>Likeliest latent class</option>
+            )}
             {segmentOptions.map((q) => (
               <option key={q.key} value={q.key}>
                 {q.text}

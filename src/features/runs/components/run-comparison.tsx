@@ -1,14 +1,17 @@
 /**
- * Finished runs side by side: fit (log-likelihood, ρ², adjusted ρ², AIC, BIC, hit rates) and
- * every parameter's estimate with its standard error below.
+ * Finished runs of any family side by side: fit (log-likelihood, ρ², adjusted ρ², AIC, BIC,
+ * CAIC, HB's log marginal density, hit rates with population and individual estimates), every
+ * parameter's estimate with its standard error below, and every coefficient's population mean.
  */
 import type { Run, RunResult } from '@shared/schemas/run';
 import { formatNumber, formatPercent } from '@/utils/format';
+import { MODEL_LABELS } from '@shared/schemas/estimation-families';
 import { LikelihoodRatioTests } from './likelihood-ratio-tests';
 
 type Row = { label: string; value: (r: RunResult) => string };
 
 const fitRows: Row[] = [
+  { label: 'Model', value: (r) => MODEL_LABELS[r.model] },
   { label: 'Respondents', value: (r) => String(r.respondents) },
   { label: 'Choice observations', value: (r) => String(r.observations) },
   { label: 'Parameters', value: (r) => String(r.parameters) },
@@ -20,9 +23,17 @@ const fitRows: Row[] = [
   { label: 'Adjusted ρ²', value: (r) => formatNumber(r.adjRho2, 4) },
   { label: 'AIC', value: (r) => formatNumber(r.aic, 1) },
   { label: 'BIC', value: (r) => formatNumber(r.bic, 1) },
-  { label: 'CAIC', value: (r) => formatNumber(r.fit?.caic, 1) },
+  { label: 'CAIC', value: (r) => formatNumber(r.fit?.caic ?? r.caic, 1) },
+  // HB: the Newton–Raphson harmonic-mean estimate (a rough guide; docs/methods.md).
+  { label: 'Log marginal density (HB)', value: (r) => formatNumber(r.logMarginalDensity, 2) },
   { label: 'Hit rate', value: (r) => formatPercent(r.hitRate) },
   { label: 'Holdout hit rate', value: (r) => formatPercent(r.holdoutHitRate) },
+  // HB and latent class: each respondent's own estimates (posterior or class-weighted means).
+  { label: 'Hit rate, individual estimates', value: (r) => formatPercent(r.individualHitRate) },
+  {
+    label: 'Holdout hit rate, individual estimates',
+    value: (r) => formatPercent(r.individualHoldoutHitRate),
+  },
 ];
 
 export function RunComparison({ runs }: { runs: Run[] }) {
@@ -37,16 +48,10 @@ export function RunComparison({ runs }: { runs: Run[] }) {
     const cost = runs.find((r) => r.results === results)?.spec.cost;
     return results.space === 'wtp' && coef !== cost ? `${row} (WTP space)` : row;
   };
-  // Lognormal coefficients also get the population mean of β itself, comparable with an MNL.
-  const lognormal = [
-    ...new Set(
-      done.flatMap((r) =>
-        r.results.population
-          .filter((m) => m.distribution === 'lognormal' || m.distribution === 'neg_lognormal')
-          .map((m) => m.name),
-      ),
-    ),
-  ];
+  // Every coefficient's population mean of β itself, comparable across the families: the MNL
+  // estimate, the mixed logit's and HB's mean of the distribution (of β, also for lognormals),
+  // the latent class share-weighted mean of the class coefficients.
+  const coefficients = [...new Set(done.flatMap((r) => r.results.population.map((m) => m.name)))];
   const names = [
     ...new Set(done.flatMap((r) => r.results.estimates.map((e) => rowOf(r.results, e.name)))),
   ];
@@ -107,13 +112,13 @@ export function RunComparison({ runs }: { runs: Run[] }) {
                 })}
               </tr>
             ))}
-            {lognormal.map((coef) => (
+            {coefficients.map((coef) => (
               <tr key={`${coef}-population`} className="border-b border-line/60 last:border-b-0">
                 <th
                   scope="row"
                   className="sticky left-0 bg-white px-3 py-1.5 text-left font-mono text-xs font-normal"
                 >
-                  {coef}: mean of β
+                  {coef}: population mean of β
                 </th>
                 {done.map((r) => {
                   const m = r.results.population.find((x) => x.name === coef);
@@ -128,9 +133,10 @@ export function RunComparison({ runs }: { runs: Run[] }) {
           </tbody>
         </table>
         <p className="px-3 py-2 text-xs text-ink-muted">
-          Standard errors in brackets. For lognormal coefficients, .mean and .sd are the mean and SD
-          of ln |β| (the “mean of β” row gives the coefficient’s own population mean); .sd rows are
-          spreads (SD for normals, half-width for triangular and uniform).
+          Standard errors (HB: posterior SDs) in brackets. For lognormal coefficients, .mean and .sd
+          are the mean and SD of ln |β|; the “population mean of β” rows give each coefficient’s own
+          population mean in every model; .sd rows are spreads (SD for normals, half-width for
+          triangular and uniform).
         </p>
       </div>
       <LikelihoodRatioTests runs={done} />

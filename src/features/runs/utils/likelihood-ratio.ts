@@ -56,6 +56,17 @@ export function compareRuns(a: DoneRun, b: DoneRun): LrComparison {
   const notNested = (reason: string): LrComparison => ({ nested: false, a, b, reason });
   if (!a.dataHash || a.dataHash !== b.dataHash)
     return notNested('they were estimated on different data (respondents or columns)');
+  // HB's LL is simulated at the posterior means, not a maximum: no LR test.
+  if (a.model === 'hb' || b.model === 'hb')
+    return notNested(
+      'a hierarchical Bayes run has no maximised log-likelihood; compare the log marginal density and the hit rates instead',
+    );
+  // Fewer classes put some class shares on the boundary (0), where the LR statistic is not χ²
+  // (McLachlan & Peel 2000, Finite Mixture Models, §6.4): choose the number of classes by BIC/CAIC.
+  if (a.model === 'latent_class' || b.model === 'latent_class')
+    return notNested(
+      'the number of latent classes is not tested by a χ² likelihood-ratio test; compare BIC and CAIC instead',
+    );
   if ((a.spec.space ?? 'preference') !== (b.spec.space ?? 'preference'))
     return notNested('one is in preference space and the other in WTP space');
   const [ra, rb] = [whyNotRestriction(a, b), whyNotRestriction(b, a)];

@@ -85,4 +85,22 @@ describe('compareRuns', () => {
     const t2 = compareRuns(logn, norm);
     expect(t2.nested === false && t2.reason).toMatch(/neither distribution is a special case/);
   });
+
+  it('offers no LR test with an HB run (no maximised LL) or a latent class run (classes on the boundary)', () => {
+    const fixed = [
+      { name: 'a', distribution: 'fixed' },
+      { name: 'b', distribution: 'fixed' },
+    ];
+    const lc = { ...makeRun('LC', fixed, -90, 5), model: 'latent_class' } as typeof mnl;
+    const hb = {
+      ...makeRun('HB', [{ name: 'a', distribution: 'normal' }, fixed[1]], -95, 3),
+      model: 'hb',
+    } as typeof mnl;
+    const withLc = compareRuns(mnl, lc);
+    expect(withLc.nested).toBe(false);
+    if (!withLc.nested) expect(withLc.reason).toMatch(/BIC and CAIC/);
+    const withHb = compareRuns(mnl, hb);
+    expect(withHb.nested).toBe(false);
+    if (!withHb.nested) expect(withHb.reason).toMatch(/log marginal density/);
+  });
 });

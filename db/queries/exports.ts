@@ -15,6 +15,7 @@ export async function listStudyRespondents(db: DbOrTx, params: { studyId: string
       flags: respondents.flags,
       startedAt: respondents.startedAt,
       finishedAt: respondents.finishedAt,
+      plan: respondents.plan,
     })
     .from(respondents)
     .where(and(eq(respondents.studyId, params.studyId)))

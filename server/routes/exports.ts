@@ -14,6 +14,7 @@ import {
   optionalRunQuerySchema,
 } from '../../shared/schemas/exports';
 import * as exportsService from '../services/exports';
+import { exportRandomisationCsv } from '../services/exports/randomisation-export';
 
 async function send(
   deps: AppDeps,
@@ -101,6 +102,10 @@ export function createExportsRouter(deps: AppDeps): Router {
   router.get('/background-answers.csv', read, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     send(deps, req, res, await exportsService.exportAnswersCsv(deps, memberOf(req), studyId));
+  });
+  router.get('/randomisation.csv', read, async (req, res) => {
+    const { studyId } = parseParams(studyParamsSchema, req);
+    send(deps, req, res, await exportRandomisationCsv(deps, memberOf(req), studyId));
   });
   router.get('/answer-history.csv', read, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);

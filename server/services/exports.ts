@@ -40,9 +40,9 @@ export type Download = {
   personal?: boolean;
 };
 
-const CSV = 'text/csv; charset=utf-8';
+export const CSV = 'text/csv; charset=utf-8';
 
-function fileName(studyName: string, kind: string, ext: string, at: Date): string {
+export function fileName(studyName: string, kind: string, ext: string, at: Date): string {
   const slug = studyName
     .toLowerCase()
     .replace(/[^a-z0-9]+/g, '-')

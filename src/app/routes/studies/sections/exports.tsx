@@ -86,6 +86,16 @@ export function Component() {
       links: [{ label: 'CSV', href: `${base}/background-answers.csv` }],
     },
     {
+      key: 'randomisation',
+      title: 'Randomisation record',
+      description:
+        'For every respondent: the order the tasks were shown in and which alternative stood at each position, left to right (none = the opt-out or status quo).',
+      links: [{ label: 'CSV', href: `${base}/randomisation.csv` }],
+      disabledReason: manifest.data.choicesAvailable
+        ? undefined
+        : 'The study has not been live yet.',
+    },
+    {
       key: 'answer-history',
       title: 'Changed answers',
       description:

@@ -1,0 +1,48 @@
+/**
+ * The randomisation record: for every respondent, the order in which they saw the design tasks
+ * and, for each choice screen, which alternative stood at each position from left to right
+ * (read back from the stored plan, server/services/respondent-plan.ts). Lets a researcher
+ * check or model order and position effects.
+ */
+import { respondentPlanSchema } from '../../../shared/schemas/respondent';
+import type { CellValue } from '../../lib/safe-csv';
+
+export const randomisationHeader = [
+  'respondent',
+  'number',
+  'block',
+  'seed',
+  'screen',
+  'task',
+  'task_shown_as',
+  'alternatives_left_to_right',
+];
+
+/** Alternative names as in the design download: 1-based design numbers, "none" for the opt-out. */
+const altName = (j: number) => (j < 0 ? 'none' : String(j + 1));
+
+export function buildRandomisationRows(
+  respondents: readonly { id: string; plan: unknown }[],
+): CellValue[][] {
+  const rows: CellValue[][] = [];
+  respondents.forEach((r, i) => {
+    const parsed = respondentPlanSchema.safeParse(r.plan);
+    if (!parsed.success) return;
+    const plan = parsed.data;
+    for (const [screen, order] of Object.entries(plan.positions)) {
+      const task = screen.startsWith('task:') ? Number(screen.slice('task:'.length)) : null;
+      const shownAs = task === null ? null : plan.taskOrder.indexOf(task) + 1;
+      rows.push([
+        r.id,
+        i + 1,
+        plan.block,
+        plan.seed,
+        screen,
+        task,
+        shownAs,
+        order.map(altName).join(' '),
+      ]);
+    }
+  });
+  return rows;
+}

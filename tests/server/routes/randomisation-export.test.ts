@@ -1,0 +1,64 @@
+/**
+ * randomisation.csv says what each respondent saw: the order of the design tasks and, per choice
+ * screen, which alternative stood at each position — checked against the screens the respondent
+ * app was sent, not against the stored plan the file is read from.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type supertest from 'supertest';
+import { parse } from 'csv-parse/sync';
+import { createTestApp, type TestApp } from '../../support/test-app';
+import { signUpOwner } from '../../support/factories';
+import { startLiveSession, type LiveSession } from './respond-fixtures';
+
+let t: TestApp;
+let owner: supertest.Agent;
+let teamId: string;
+beforeAll(async () => {
+  t = await createTestApp();
+  ({ agent: owner, teamId } = await signUpOwner(t));
+});
+afterAll(async () => {
+  await t.close();
+});
+
+type TaskScreen = { key: string; kind: string; alternatives?: { index: number }[] };
+
+describe('GET …/exports/randomisation.csv', () => {
+  it('gives each respondent their task order and the alternatives left to right as shown', async () => {
+    const { study, session } = await startLiveSession(t, owner, teamId);
+    const second = (
+      await t.request().post(`/api/r/${study.publicId}/sessions`).send({}).expect(201)
+    ).body as LiveSession;
+    const res = await owner
+      .get(`/api/teams/${teamId}/studies/${study.id}/exports/randomisation.csv`)
+      .expect(200);
+    expect(res.headers['content-disposition']).toMatch(/randomisation/);
+    const rows = parse(res.text, { columns: true }) as Record<string, string>[];
+    expect(new Set(rows.map((r) => r.number))).toEqual(new Set(['1', '2']));
+
+    for (const [n, s] of [session, second].entries()) {
+      const mine = rows.filter((r) => r.number === String(n + 1));
+      const shown = (s.screens as TaskScreen[]).filter((x) => x.key.startsWith('task:'));
+      // Design tasks in the order the respondent meets them: shown as 1, 2, …
+      const byKey = new Map(mine.map((r) => [r.screen, r]));
+      shown.forEach((screen, k) => {
+        const row = byKey.get(screen.key)!;
+        expect(row.task_shown_as).toBe(String(k + 1));
+        expect(row.alternatives_left_to_right).toBe(
+          screen.alternatives!.map((a) => (a.index < 0 ? 'none' : String(a.index + 1))).join(' '),
+        );
+      });
+      // Every choice screen of the session is in the record, and nothing else.
+      const choiceScreens = (s.screens as TaskScreen[]).filter((x) => x.kind === 'task');
+      expect(new Set(mine.map((r) => r.screen))).toEqual(new Set(choiceScreens.map((x) => x.key)));
+    }
+  });
+
+  it('is refused to a non-member (404) and needs a sign-in (401)', async () => {
+    const { study } = await startLiveSession(t, owner, teamId);
+    const other = await signUpOwner(t);
+    const path = `/api/teams/${teamId}/studies/${study.id}/exports/randomisation.csv`;
+    expect((await other.agent.get(path)).status).toBe(404);
+    expect((await t.request().get(path)).status).toBe(401);
+  });
+});

@@ -171,3 +171,21 @@ export async function failStaleDesignJobs(db: DbOrTx, params: { silentSince: Dat
     )
     .returning({ id: designJobs.id });
 }
+
+/** Design jobs still queued that were created before `createdBefore` (orphan-sweep.ts). */
+export async function listQueuedDesignJobs(db: DbOrTx, createdBefore: Date) {
+  return db
+    .select({ id: designJobs.id, createdAt: designJobs.createdAt })
+    .from(designJobs)
+    .where(and(eq(designJobs.status, 'queued'), lt(designJobs.createdAt, createdBefore)));
+}
+
+/** Fails these design jobs if they are still queued; returns the ids it failed. */
+export async function failQueuedDesignJobs(db: DbOrTx, ids: string[], error: string) {
+  const rows = await db
+    .update(designJobs)
+    .set({ status: 'failed', error, finishedAt: new Date() })
+    .where(and(inArray(designJobs.id, ids), eq(designJobs.status, 'queued')))
+    .returning({ id: designJobs.id });
+  return rows.map((r) => r.id);
+}

@@ -188,3 +188,21 @@ export async function failStaleRuns(db: DbOrTx, params: { silentSince: Date; err
     )
     .returning({ id: runs.id });
 }
+
+/** Runs still queued that were created before `createdBefore` (orphan-sweep.ts). */
+export async function listQueuedRuns(db: DbOrTx, createdBefore: Date) {
+  return db
+    .select({ id: runs.id, createdAt: runs.createdAt })
+    .from(runs)
+    .where(and(eq(runs.status, 'queued'), lt(runs.createdAt, createdBefore)));
+}
+
+/** Fails these runs if they are still queued; returns the ids it failed. */
+export async function failQueuedRuns(db: DbOrTx, ids: string[], error: string) {
+  const rows = await db
+    .update(runs)
+    .set({ status: 'failed', error, finishedAt: new Date() })
+    .where(and(inArray(runs.id, ids), eq(runs.status, 'queued')))
+    .returning({ id: runs.id });
+  return rows.map((r) => r.id);
+}

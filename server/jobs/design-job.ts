@@ -11,18 +11,30 @@ import { createDesignPool, runDesignInWorker } from '../engine/design/run-design
 import type { DesignProgress } from '../engine/design/generate-design';
 import {
   claimDesignJob,
+  failQueuedDesignJobs,
   failStaleDesignJobs,
   finishDesignJob,
   getDesignJobForWorker,
   isDesignJobCancelRequested,
+  listQueuedDesignJobs,
   setDesignJobProgress,
 } from '../../db/queries/design-jobs';
+import { sweepOrphans, type OrphanSpec } from './orphan-sweep';
 import { getStudyById, updateStudy } from '../../db/queries/studies';
 import { insertDesign } from '../../db/queries/designs';
 import { studyDefinitionSchema } from '../../shared/schemas/study-definition';
 import { designFitsDefinition } from '../services/design-fit';
 
 export const DESIGN_JOB = 'design-generation';
+
+const ORPHANED_DESIGN_JOBS: OrphanSpec = {
+  jobName: DESIGN_JOB,
+  idField: 'designJobId',
+  listQueued: listQueuedDesignJobs,
+  failQueued: failQueuedDesignJobs,
+  reason:
+    'The job queue lost this design before a worker could take it. Start the generation again.',
+};
 export const designJobDataSchema = z.object({ designJobId: z.uuid() });
 
 /** How often the worker reports even when the engine is quiet, and checks for cancel. */
@@ -152,11 +164,12 @@ export function createDesignJobKind() {
       pool ??= createDesignPool({ maxThreads: 1, nice: deps.env.ENGINE_THREAD_NICE });
       await runDesignJob(deps, pool, data.designJobId);
     },
-    sweep: async (deps) => {
+    sweep: async (deps, queue) => {
       const failed = await failStaleDesignJobs(deps.db, {
         silentSince: new Date(Date.now() - STALE_MS),
       });
       if (failed.length > 0) deps.logger.warn({ ids: failed }, 'failed stale design jobs');
+      if (queue) await sweepOrphans(deps, queue, ORPHANED_DESIGN_JOBS);
     },
     close: async () => {
       await pool?.destroy();

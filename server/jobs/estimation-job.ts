@@ -12,9 +12,12 @@ import type { AppDeps } from '../deps';
 import { AppError } from '../lib/errors';
 import { retryWhileDatabaseUnavailable } from '../lib/db-retry';
 import { defineJobKind } from './queue';
+import { sweepOrphans, type OrphanSpec } from './orphan-sweep';
 import {
   claimRun,
+  failQueuedRuns,
   failStaleRuns,
+  listQueuedRuns,
   finishRun,
   getRunForJob,
   setRunDataHash,
@@ -284,6 +287,14 @@ export async function sweepStaleRuns(deps: AppDeps, now = Date.now()): Promise<s
   return failed.map((r) => r.id);
 }
 
+const ORPHANED_RUNS: OrphanSpec = {
+  jobName: ESTIMATION_JOB,
+  idField: 'runId',
+  listQueued: listQueuedRuns,
+  failQueued: failQueuedRuns,
+  reason: 'The job queue lost this run before a worker could take it. Start the run again.',
+};
+
 /** The queue registration. */
 export function createEstimationJobKind() {
   // One engine thread per worker: runs estimate one after the other, each with
@@ -297,8 +308,9 @@ export function createEstimationJobKind() {
       runEstimationJob(deps, data.runId, {
         pool: (pool ??= createEstimationPool({ nice: deps.env.ENGINE_THREAD_NICE })),
       }),
-    sweep: async (deps) => {
+    sweep: async (deps, queue) => {
       await sweepStaleRuns(deps);
+      if (queue) await sweepOrphans(deps, queue, ORPHANED_RUNS);
     },
     close: async () => {
       await pool?.destroy();

@@ -19,6 +19,9 @@
 import PgBoss from 'pg-boss';
 import type { z } from 'zod';
 import type { AppDeps } from '../deps';
+import type { DbOrTx } from '../../db/client';
+import type { SweepQueue } from './orphan-sweep';
+import { transactionExecutor } from './transaction-executor';
 
 export type JobContext = { deps: AppDeps; jobId: string };
 
@@ -28,8 +31,11 @@ export interface JobKind<T = unknown> {
   /** Upper bound of one run; pg-boss expires it afterwards. */
   expireInMinutes: number;
   handle: (data: T, ctx: JobContext) => Promise<void>;
-  /** Housekeeping run every minute by workers (e.g. fail rows left running by a crash). */
-  sweep?: (deps: AppDeps) => Promise<void>;
+  /**
+   * Housekeeping run every minute by workers: fail rows left running by a crash, queue again
+   * rows whose message was lost (orphan-sweep.ts; needs the queue).
+   */
+  sweep?: (deps: AppDeps, queue?: SweepQueue) => Promise<void>;
   /** Called once when a worker stops (e.g. destroy thread pools). */
   close?: () => Promise<void>;
 }
@@ -40,7 +46,7 @@ export interface RegisteredJobKind {
   expireInMinutes: number;
   parse(data: unknown): object;
   handle(data: unknown, ctx: JobContext): Promise<void>;
-  sweep?: (deps: AppDeps) => Promise<void>;
+  sweep?: (deps: AppDeps, queue?: SweepQueue) => Promise<void>;
   close?: () => Promise<void>;
 }
 
@@ -57,12 +63,19 @@ export function defineJobKind<T extends object>(kind: JobKind<T>): RegisteredJob
 
 /** What services use to enqueue work (tests substitute an in-process one). */
 export interface JobSender {
-  send(name: string, data: object): Promise<void>;
+  /**
+   * Enqueues a job; with `tx`, inside that transaction, so the job exists exactly when the
+   * row that records it does.
+   */
+  send(name: string, data: object, opts?: { tx?: DbOrTx }): Promise<void>;
 }
 
-export interface JobQueue extends JobSender {
+export interface JobQueue extends JobSender, SweepQueue {
   stop(): Promise<void>;
 }
+
+/** pg-boss's job states of a job that is still to run or running. */
+const PENDING_STATES = ['created', 'retry', 'active'];
 
 const SWEEP_MS = 60_000;
 
@@ -87,6 +100,23 @@ export async function startJobQueue(
       expireInSeconds: kind.expireInMinutes * 60,
     });
 
+  const send: JobSender['send'] = async (name, data, sendOpts) => {
+    const kind = byName.get(name);
+    if (!kind) throw new Error(`Unknown job kind ${name}`);
+    const db = sendOpts?.tx ? transactionExecutor(sendOpts.tx) : undefined;
+    await boss.send(name, kind.parse(data), db ? { db } : {});
+  };
+  const pendingIds: SweepQueue['pendingIds'] = async (name, idField) => {
+    const { rows } = await boss
+      .getDb()
+      .executeSql(
+        `select data->>$2 as id from pgboss.job where name = $1 and state::text = any($3::text[])`,
+        [name, idField, PENDING_STATES],
+      );
+    return new Set(rows.map((r: { id: string | null }) => r.id).filter((id) => id !== null));
+  };
+  const sweepQueue: SweepQueue = { send, pendingIds };
+
   let sweepTimer: NodeJS.Timeout | null = null;
   if (opts.work) {
     for (const kind of byName.values()) {
@@ -98,7 +128,9 @@ export async function startJobQueue(
     }
     const sweep = async () => {
       for (const kind of byName.values())
-        await kind.sweep?.(deps).catch((err) => deps.logger.error({ err }, `sweep ${kind.name}`));
+        await kind
+          .sweep?.(deps, sweepQueue)
+          .catch((err) => deps.logger.error({ err }, `sweep ${kind.name}`));
     };
     await sweep();
     sweepTimer = setInterval(() => void sweep(), SWEEP_MS);
@@ -106,11 +138,8 @@ export async function startJobQueue(
   }
 
   return {
-    async send(name, data) {
-      const kind = byName.get(name);
-      if (!kind) throw new Error(`Unknown job kind ${name}`);
-      await boss.send(name, kind.parse(data));
-    },
+    send,
+    pendingIds,
     async stop() {
       if (sweepTimer) clearInterval(sweepTimer);
       await boss.stop({ graceful: true, wait: true, timeout: 10_000 });

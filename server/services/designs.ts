@@ -92,13 +92,25 @@ export async function startDesignJob(
     throw new AppError(503, 'jobs_unavailable', 'Background jobs are not running. Try again soon.');
   if (await getActiveDesignJob(deps.db, { studyId, teamId: actor.teamId }))
     throw new ConflictError('job_running', 'A design is already being generated for this study.');
-  const job = await insertDesignJob(deps.db, {
-    studyId,
-    teamId: actor.teamId,
-    spec,
-    createdBy: actor.userId,
+  const jobs = deps.jobs;
+  // The row and its queue message are committed together (or neither is).
+  const job = await deps.db.transaction(async (tx) => {
+    const row = await insertDesignJob(tx, {
+      studyId,
+      teamId: actor.teamId,
+      spec,
+      createdBy: actor.userId,
+    });
+    await jobs.send(DESIGN_JOB, { designJobId: row.id }, { tx }).catch((err: unknown) => {
+      deps.logger.error({ err }, 'could not enqueue the design job');
+      throw new AppError(
+        503,
+        'jobs_unavailable',
+        'The design could not be queued; try again soon.',
+      );
+    });
+    return row;
   });
-  await deps.jobs.send(DESIGN_JOB, { designJobId: job.id });
   return toJobView(job);
 }
 

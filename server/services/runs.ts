@@ -14,7 +14,6 @@ import { getRunSeed, toRunView } from './estimation/run-view';
 import type { ModelFamily } from '../../shared/schemas/estimation-families';
 import {
   countRuns,
-  finishRun,
   getRunById,
   insertRun,
   listRuns as listRunRows,
@@ -135,26 +134,25 @@ export async function createRun(
   await assertFamilyFitsData(deps, studyId, spec, filterId);
   if (!deps.jobs)
     throw new AppError(503, 'queue_unavailable', 'The job queue is not running; try again soon.');
-  const row = await insertRun(deps.db, {
-    studyId,
-    teamId: member.teamId,
-    name: input.name || DEFAULT_RUN_NAMES[spec.model],
-    model: spec.model,
-    spec: { ...spec, respondents: { filterId } },
-    seed: getRunSeed(spec),
-    createdBy: member.userId,
-  });
-  try {
-    await deps.jobs.send(ESTIMATION_JOB, { runId: row.id });
-  } catch (err) {
-    deps.logger.error({ err, runId: row.id }, 'could not enqueue the run');
-    await finishRun(deps.db, {
-      id: row.id,
-      status: 'failed',
-      error: 'The run could not be queued. Start it again.',
+  const jobs = deps.jobs;
+  // The run and its queue message are committed together, or neither is: no run waits for a
+  // message that was never sent (orphan-sweep.ts catches messages lost later).
+  const row = await deps.db.transaction(async (tx) => {
+    const inserted = await insertRun(tx, {
+      studyId,
+      teamId: member.teamId,
+      name: input.name || DEFAULT_RUN_NAMES[spec.model],
+      model: spec.model,
+      spec: { ...spec, respondents: { filterId } },
+      seed: getRunSeed(spec),
+      createdBy: member.userId,
     });
-    throw new AppError(503, 'queue_unavailable', 'The run could not be queued; try again soon.');
-  }
+    await jobs.send(ESTIMATION_JOB, { runId: inserted.id }, { tx }).catch((err: unknown) => {
+      deps.logger.error({ err }, 'could not enqueue the run');
+      throw new AppError(503, 'queue_unavailable', 'The run could not be queued; try again soon.');
+    });
+    return inserted;
+  });
   await recordAudit(deps.db, {
     teamId: member.teamId,
     studyId,

@@ -105,6 +105,9 @@ test('an analyst runs a mixed logit, splits tastes by a background question and 
     await expect(page.getByText('Predicted shares — out of date')).toBeVisible();
     await page.getByRole('button', { name: 'Simulate shares' }).click();
     await expect(page.getByText('Predicted shares', { exact: true })).toBeVisible();
+    // Welfare against the status quo, in the cost attribute's money, with its interval.
+    await expect(page.getByText(/is worth .* per respondent on average/)).toBeVisible();
+    await expect(page.getByText(/95 % interval/)).toBeVisible();
   });
 
   // What the files should hold, from the same API the screens use.

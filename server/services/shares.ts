@@ -2,7 +2,8 @@
  * Share simulation use case ('runs:read'): codes the analyst's hypothetical alternatives with
  * the study's coding, takes each respondent's coefficients from a finished run (share-betas.ts
  * says which, per model family) and averages the respondents' logit probabilities
- * (shared/engine/shares).
+ * (shared/engine/shares). Beside the shares: the scenario's compensating variation against the
+ * status quo (share-welfare.ts).
  */
 import type { AppDeps } from '../deps';
 import { ValidationError } from '../lib/errors';
@@ -13,13 +14,14 @@ import { simulateShares } from '../../shared/engine/shares/simulate-shares';
 import type { ShareResult, SimulateShares } from '../../shared/schemas/shares';
 import { loadRunContext, type Member, type RunContext } from './tastes/run-context';
 import { resolveGrouping } from './tastes/get-segments';
+import { computeShareWelfare } from './share-welfare';
 import { getShareBetas } from './shares/share-betas';
 
 /** J × K coded rows of the scenario in the run's coefficient order. */
 function codeScenario(
   ctx: RunContext,
   input: SimulateShares,
-): { rows: Float64Array; names: string[] } {
+): { rows: Float64Array; names: string[]; baseline: string | null } {
   const plan = buildCodingPlan(ctx.definition);
   const keys = ctx.spec.coefficients.map((c) => c.column ?? c.name);
   const at = keys.map((key) => plan.columns.findIndex((c) => c.key === key));
@@ -41,13 +43,15 @@ function codeScenario(
     coded.push(codeAlternative(plan, alt.alternative, alt.levels));
     names.push(alt.name);
   });
+  let baseline: string | null = null;
   if (input.includeFixed && plan.fixed) {
     coded.push(codeAlternative(plan, 'fixed', {}));
-    names.push(ctx.definition.fixedAlternative!.label);
+    baseline = ctx.definition.fixedAlternative!.label;
+    names.push(baseline);
   }
   const rows = new Float64Array(coded.length * K);
   coded.forEach((row, j) => at.forEach((c, k) => (rows[j * K + k] = c >= 0 ? row[c] : 0)));
-  return { rows, names };
+  return { rows, names, baseline };
 }
 
 export async function simulateStudyShares(
@@ -57,7 +61,7 @@ export async function simulateStudyShares(
   input: SimulateShares,
 ): Promise<ShareResult> {
   const ctx = await loadRunContext(deps, member, studyId, input.runId);
-  const { rows, names } = codeScenario(ctx, input);
+  const { rows, names, baseline } = codeScenario(ctx, input);
   const coefficientNames = ctx.spec.coefficients.map((c) => c.name);
   const K = coefficientNames.length;
   const profiles = await listRunProfiles(deps.db, { runId: ctx.run.id, studyId });
@@ -82,7 +86,18 @@ export async function simulateStudyShares(
     ...(grouping ? { groups, groupCount: Math.max(1, grouping.order.length) } : {}),
   });
   const J = names.length;
+  const welfare = computeShareWelfare(ctx, {
+    rows,
+    alternativeCount: J,
+    baseline,
+    method,
+    betas,
+    respondents: N,
+    vectorsPerRespondent: D,
+    weights: drawWeights,
+  });
   return {
+    ...welfare,
     runId: ctx.run.id,
     method,
     respondents: usesProfiles ? N : ctx.results.respondents,

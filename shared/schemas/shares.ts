@@ -65,6 +65,28 @@ export type ShareMethod =
   /** Latent class: each respondent's class probabilities times the class logit probabilities. */
   | 'class_weighted';
 
+/**
+ * Compensating variation of the scenario against a choice set holding only the status quo
+ * (log-sum formula; docs/methods.md "Welfare: compensating variation"), in the cost
+ * attribute's money per respondent.
+ */
+export type ShareWelfare = {
+  /** The status quo (the study's extra alternative) the scenario is compared with. */
+  baseline: string;
+  /** Name and unit of the cost attribute, e.g. "Monthly bill increase", "€". */
+  money: string;
+  unit: string;
+  /** MNL: the formula at the estimates; mixed logit: the average of respondents' values. */
+  mean: number;
+  /** 95 % interval: Krinsky–Robb draws from the covariance (MNL), or resampling respondents. */
+  lower: number | null;
+  upper: number | null;
+  interval: 'krinsky_robb' | 'respondent_resampling' | null;
+  respondents: number;
+  /** Respondents left out because their cost coefficient is not negative. */
+  withheld: number;
+};
+
 export type ShareResult = {
   runId: string;
   method: ShareMethod;
@@ -74,4 +96,7 @@ export type ShareResult = {
     label: string;
     groups: { key: string; label: string; count: number; shares: number[] }[];
   } | null;
+  welfare: ShareWelfare | null;
+  /** Why no welfare figure is given (no status quo, no cost attribute, WTP space, …). */
+  welfareNote: string | null;
 };

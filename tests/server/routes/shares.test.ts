@@ -36,6 +36,9 @@ describe('POST /shares/simulate', () => {
         .expect(200);
       expect(res.body.method).toBe('conditional_means');
       expect(res.body.respondents).toBe(N);
+      // Without the status quo there is nothing to measure welfare against: said, not hidden.
+      expect(res.body.welfare).toBeNull();
+      expect(res.body.welfareNote).toMatch(/^Include “Current service”/);
       expect(res.body.alternatives.map((a: { share: number }) => a.share)).toEqual([
         expect.closeTo(0.5, 12),
         expect.closeTo(0.5, 12),
@@ -87,6 +90,23 @@ describe('POST /shares/simulate', () => {
     expect(res.body.alternatives[2].share).toBeCloseTo(sq / N, 12);
     const total = res.body.alternatives.reduce((s: number, a: { share: number }) => s + a.share, 0);
     expect(total).toBeCloseTo(1, 12);
+    // Welfare (log-sum, Train 2009 eq. 3.10): CV_n = [ln(e^{V_A} + e^0 + e^−0.4) + 0.4]/(−bill_n),
+    // averaged over respondents; every bill coefficient is negative, so nobody is left out.
+    let cv = 0;
+    for (let n = 0; n < N; n++) {
+      const logsum = Math.log(Math.exp(10 * billMean(n) + riverGood(n)) + 1 + Math.exp(-0.4));
+      cv += (logsum + 0.4) / -billMean(n);
+    }
+    expect(res.body.welfareNote).toBeNull();
+    expect(res.body.welfare).toMatchObject({
+      baseline: 'Current service',
+      mean: expect.closeTo(cv / N, 10),
+      interval: 'respondent_resampling',
+      respondents: N,
+      withheld: 0,
+    });
+    expect(res.body.welfare.lower).toBeLessThanOrEqual(res.body.welfare.mean);
+    expect(res.body.welfare.upper).toBeGreaterThanOrEqual(res.body.welfare.mean);
     expect(res.body.segments.label).toBe('Your age band');
     expect(
       res.body.segments.groups.map((g: { label: string; count: number }) => [g.label, g.count]),

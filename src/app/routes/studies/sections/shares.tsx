@@ -17,6 +17,7 @@ import { RunPicker } from '@/features/tastes/components/run-picker';
 import { useSimulateShares } from '@/features/shares/api/simulate-shares';
 import { makeAlternative, ScenarioEditor } from '@/features/shares/components/scenario-editor';
 import { ShareResults } from '@/features/shares/components/share-results';
+import { WelfarePanel } from '@/features/shares/components/welfare-panel';
 import type { ScenarioAlternative } from '@shared/schemas/shares';
 
 /** The segment choice that splits by the likeliest latent class (no question key has a colon). */
@@ -154,6 +155,13 @@ export function Component() {
           )}
           <div className={stale ? 'opacity-50' : undefined}>
             <ShareResults result={simulate.data} />
+          </div>
+        </Card>
+      )}
+      {simulate.data && (
+        <Card title="Welfare against the status quo">
+          <div className={stale ? 'opacity-50' : undefined}>
+            <WelfarePanel result={simulate.data} />
           </div>
         </Card>
       )}

@@ -1,0 +1,142 @@
+/**
+ * Welfare of a what-if scenario for the Shares section: the compensating variation against a
+ * choice set holding only the status quo (shared/engine/shares/welfare.ts, log-sum formula).
+ * MNL: the formula at the estimates, with a Krinsky & Robb (1986) interval from the run's
+ * covariance. Mixed logit and HB: each respondent's value from their conditional (posterior)
+ * means; latent class: each class's value weighted by the respondent's class probabilities;
+ * then averaged over respondents, with an interval from resampling respondents (it shows how
+ * much the average depends on who answered; it leaves out the estimation error of the model's
+ * parameters, which would need the profiles recomputed for every parameter draw — said on
+ * screen).
+ */
+import { createPrng } from '../engine/draws/prng';
+import { propagateUncertainty, quantile } from '../engine/estimation/propagate-uncertainty';
+import { computeCompensatingVariation, meanOfFinite } from '../../shared/engine/shares/welfare';
+import type { ShareMethod, ShareWelfare } from '../../shared/schemas/shares';
+import type { RunContext } from './tastes/run-context';
+
+const RESAMPLES = 1000;
+const KR_DRAWS = 2000;
+
+export type WelfareScenario = {
+  /** Coded scenario, J × K, the status quo last when included. */
+  rows: Float64Array;
+  alternativeCount: number;
+  /** The status quo's name when the scenario includes it, else null. */
+  baseline: string | null;
+  /** Where the coefficients come from (share-betas.ts). */
+  method: ShareMethod;
+  /** (N·D) × K coefficients: D vectors per respondent, or the estimates once (N = D = 1). */
+  betas: Float64Array;
+  respondents: number;
+  vectorsPerRespondent: number;
+  /** N × D weights of each respondent's vectors (latent class probabilities); default 1/D. */
+  weights?: Float64Array;
+};
+
+export type WelfareOutcome = { welfare: ShareWelfare | null; welfareNote: string | null };
+
+const note = (welfareNote: string): WelfareOutcome => ({ welfare: null, welfareNote });
+
+/** The estimates' covariance in coefficient order, or null when any entry is unknown. */
+function covarianceOf(ctx: RunContext, names: string[]): Float64Array | null {
+  const cov = ctx.results.covariance;
+  const matrix = cov ? cov[cov.used] : null;
+  if (!cov || !matrix) return null;
+  const at = names.map((n) => cov.names.indexOf(n));
+  if (at.some((i) => i < 0)) return null;
+  const K = names.length;
+  const out = new Float64Array(K * K);
+  for (let a = 0; a < K; a++)
+    for (let b = 0; b < K; b++) {
+      const v = matrix[at[a]][at[b]];
+      if (v === null) return null;
+      out[a * K + b] = v;
+    }
+  return out;
+}
+
+export function computeShareWelfare(ctx: RunContext, s: WelfareScenario): WelfareOutcome {
+  const fixed = ctx.definition.fixedAlternative;
+  if (!fixed) return note('The study has no status quo or opt-out to compare the scenario with.');
+  if (!s.baseline) return note(`Include “${fixed.label}” to compare the scenario with it.`);
+  if (!ctx.spec.cost) return note('The run has no cost coefficient, so there is no money measure.');
+  if (ctx.spec.space === 'wtp')
+    return note('Welfare is computed from preference-space runs; this run is in WTP space.');
+  const names = ctx.spec.coefficients.map((c) => c.name);
+  const cost = names.indexOf(ctx.spec.cost);
+  const costAttribute = ctx.definition.attributes.find((a) => a.isCost);
+  const base = {
+    coefficients: names.length,
+    alternativeCount: s.alternativeCount,
+    alternatives: s.rows,
+    baseline: s.alternativeCount - 1,
+    cost,
+  };
+  const common = {
+    baseline: s.baseline,
+    money: costAttribute?.name ?? ctx.spec.cost,
+    unit: costAttribute?.unit?.trim() ?? '',
+  };
+  const seed = ctx.spec.model === 'mixed' ? ctx.spec.draws.seed : 1;
+  const D = s.vectorsPerRespondent;
+  const perVector = computeCompensatingVariation({
+    ...base,
+    respondents: s.respondents * D,
+    betas: s.betas,
+  });
+  // A respondent's value: the weighted mean over their vectors (latent class: E_c[CV_c]);
+  // without a money metric in any of them (a cost coefficient not negative), none.
+  const perRespondent = new Float64Array(s.respondents);
+  for (let n = 0; n < s.respondents; n++) {
+    let sum = 0;
+    for (let d = 0; d < D; d++)
+      sum += (s.weights ? s.weights[n * D + d] : 1 / D) * perVector[n * D + d];
+    perRespondent[n] = sum;
+  }
+  if (s.method === 'point_estimates') {
+    if (!(perRespondent[0] === perRespondent[0]))
+      return note('The cost coefficient is not negative, so there is no money measure.');
+    const cv = (theta: Float64Array) =>
+      computeCompensatingVariation({ ...base, respondents: 1, betas: theta });
+    const [r] = propagateUncertainty(cv, s.betas, covarianceOf(ctx, names), {
+      draws: KR_DRAWS,
+      seed,
+    });
+    return {
+      welfare: {
+        ...common,
+        mean: r.estimate,
+        lower: r.lower,
+        upper: r.upper,
+        interval: r.lower === null ? null : 'krinsky_robb',
+        respondents: ctx.results.respondents,
+        withheld: 0,
+      },
+      welfareNote: null,
+    };
+  }
+  const { mean, count, left } = meanOfFinite(perRespondent);
+  if (count === 0) return note('No respondent has a negative cost coefficient.');
+  const values = perRespondent.filter(Number.isFinite);
+  const prng = createPrng(seed, 0x77656c66);
+  const means = new Float64Array(RESAMPLES);
+  for (let b = 0; b < RESAMPLES; b++) {
+    let sum = 0;
+    for (let i = 0; i < count; i++) sum += values[prng.nextUint32() % count];
+    means[b] = sum / count;
+  }
+  means.sort();
+  return {
+    welfare: {
+      ...common,
+      mean,
+      lower: quantile(means, 0.025),
+      upper: quantile(means, 0.975),
+      interval: 'respondent_resampling',
+      respondents: count,
+      withheld: left,
+    },
+    welfareNote: null,
+  };
+}

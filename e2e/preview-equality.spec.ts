@@ -9,7 +9,7 @@ import { expect, request as playwrightRequest, test, type Page } from '@playwrig
 import { e2eBaseUrl } from '../playwright.config';
 import { e2eDatabaseUrl } from './support/database';
 import { createPage, demoQuestionnaire } from '../shared/schemas/questionnaire-defaults';
-import type { Questionnaire } from '../shared/schemas/questionnaire';
+import { defaultQuestionnaireOptions, type Questionnaire } from '../shared/schemas/questionnaire';
 import { createLiveStudy, demoEditor, larkspurDefinition } from './support/live-study';
 import { signIn } from './support/auth';
 
@@ -26,7 +26,7 @@ function everyPageKind(): Questionnaire {
   pages.splice(1, 0, createPage('screening', d));
   pages.splice(tasksAt + 1, 0, createPage('warmup', d));
   pages.push(createPage('repeat', d), createPage('holdout', d), createPage('dominance', d), end);
-  return { pages };
+  return { pages, options: defaultQuestionnaireOptions() };
 }
 
 /** The main region with React's per-tree ids replaced by their order of appearance. */

@@ -45,6 +45,15 @@ export async function listAnsweredKeys(db: DbOrTx, params: { respondentId: strin
   return new Set(rows.map((r) => r.screenKey));
 }
 
+/** A respondent's current answer values by screen key (Back shows them again). */
+export async function listAnswerValues(db: DbOrTx, params: { respondentId: string }) {
+  const rows = await db
+    .select({ screenKey: answers.screenKey, value: answers.value })
+    .from(answers)
+    .where(eq(answers.respondentId, params.respondentId));
+  return new Map(rows.map((r) => [r.screenKey, r.value]));
+}
+
 /** Returns null when the screen or client id already has a row (nothing written). */
 export async function insertAnswer(
   db: DbOrTx,

@@ -107,6 +107,9 @@ export const answers = pgTable(
     value: jsonb('value'),
     responseMs: integer('response_ms'),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    /** How often the respondent went back and changed this answer; earlier ones are in answer_revisions. */
+    revisionCount: integer('revision_count').notNull().default(0),
+    revisedAt: timestamp('revised_at', { withTimezone: true }),
   },
   (t) => [
     uniqueIndex('answers_respondent_screen_uq').on(t.respondentId, t.screenKey),
@@ -130,3 +133,36 @@ export const respondentBlockCounts = pgTable('respondent_block_counts', {
   /** The block the latest assignment took (read back by that UPDATE's RETURNING). */
   lastBlock: integer('last_block').notNull().default(0),
 });
+
+/**
+ * Answers a respondent replaced by going back: the row as it was before each change, with when
+ * it was given and when it was replaced. The current answer stays in `answers`.
+ */
+export const answerRevisions = pgTable(
+  'answer_revisions',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    answerId: uuid('answer_id')
+      .notNull()
+      .references(() => answers.id, { onDelete: 'cascade' }),
+    respondentId: uuid('respondent_id')
+      .notNull()
+      .references(() => respondents.id, { onDelete: 'cascade' }),
+    studyId: uuid('study_id')
+      .notNull()
+      .references(() => studies.id, { onDelete: 'cascade' }),
+    screenKey: text('screen_key').notNull(),
+    clientId: text('client_id').notNull(),
+    taskNumber: integer('task_number'),
+    chosenAlternative: integer('chosen_alternative'),
+    chosenPosition: integer('chosen_position'),
+    value: jsonb('value'),
+    responseMs: integer('response_ms'),
+    answeredAt: timestamp('answered_at', { withTimezone: true }).notNull(),
+    replacedAt: timestamp('replaced_at', { withTimezone: true }).notNull(),
+  },
+  (t) => [
+    uniqueIndex('answer_revisions_respondent_client_uq').on(t.respondentId, t.clientId),
+    index('answer_revisions_study_idx').on(t.studyId),
+  ],
+);

@@ -102,5 +102,9 @@ export function createExportsRouter(deps: AppDeps): Router {
     const { studyId } = parseParams(studyParamsSchema, req);
     send(deps, req, res, await exportsService.exportAnswersCsv(deps, memberOf(req), studyId));
   });
+  router.get('/answer-history.csv', read, async (req, res) => {
+    const { studyId } = parseParams(studyParamsSchema, req);
+    send(deps, req, res, await exportsService.exportAnswerHistoryCsv(deps, memberOf(req), studyId));
+  });
   return router;
 }

@@ -23,6 +23,7 @@ import {
 } from '../../shared/schemas/respondent';
 import * as sessions from '../services/respondent-session';
 import { submitAnswer } from '../services/answers';
+import { reviseAnswer } from '../services/answer-revisions';
 import { z } from 'zod';
 
 const linkQuerySchema = z.record(z.string().max(40), z.string().max(200));
@@ -70,6 +71,13 @@ export function createRespondRouter(deps: AppDeps): Router {
     const token = tokenOf(req);
     const input = parseBody(submitAnswerSchema, req);
     const receipt = await submitAnswer(deps, publicId, token, input);
+    res.status(receipt.replay ? 200 : 201).json(receipt);
+  });
+  router.post('/revisions', perSession, async (req, res) => {
+    const publicId = publicIdOf(req);
+    const token = tokenOf(req);
+    const input = parseBody(submitAnswerSchema, req);
+    const receipt = await reviseAnswer(deps, publicId, token, input);
     res.status(receipt.replay ? 200 : 201).json(receipt);
   });
   return router;

@@ -44,7 +44,7 @@ export type AnswerContext = NonNullable<Awaited<ReturnType<typeof getAnswerConte
 type Respondent = NonNullable<AnswerContext['respondent']>;
 
 /** Row columns of an answer: choice tasks map the on-screen position back to the design. */
-function answerColumnsFor(
+export function answerColumnsFor(
   screen: RespondentScreen,
   value: AnswerValue,
   repeatOfTask: number | null,

@@ -25,6 +25,12 @@ import { renderRunReport } from './exports/run-report';
 import { buildCovarianceTable, type CovarianceKind } from './exports/covariance-table';
 import { writeCsv } from '../lib/safe-csv';
 import { recordAudit, type Actor } from './audit';
+import { listAnswerHistory, listRevisedAnswers } from '../../db/queries/answer-revisions';
+import {
+  answerHistoryHeader,
+  buildAnswerHistory,
+  revisedScreensOf,
+} from './exports/answer-history';
 
 export type Download = {
   filename: string;
@@ -186,13 +192,8 @@ export async function exportDesign(
   };
 }
 
-/** Every respondent with their status and background answers. */
-export async function exportAnswersCsv(
-  deps: AppDeps,
-  member: Member,
-  studyId: string,
-  at = new Date(),
-): Promise<Download> {
+/** The study's respondents and the background questions this role may read. */
+async function loadRespondentTable(deps: AppDeps, member: Member, studyId: string) {
   const study = await loadStudy(deps, member.teamId, studyId);
   const personal = roleCan(member.role, 'personal:read');
   const version = await getLatestVersion(deps.db, { studyId });
@@ -200,7 +201,25 @@ export async function exportAnswersCsv(
     (q) => personal || !q.personal,
   );
   const respondents = await listStudyRespondents(deps.db, { studyId });
+  return { study, personal, questions, respondents };
+}
+
+/** Every respondent with their status and background answers. */
+export async function exportAnswersCsv(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  at = new Date(),
+): Promise<Download> {
+  const { study, personal, questions, respondents } = await loadRespondentTable(
+    deps,
+    member,
+    studyId,
+  );
   const answers = indexAnswers(await listQuestionAnswers(deps.db, { studyId }));
+  const revised = new Map<string, { screenKey: string; revisionCount: number }[]>();
+  for (const r of await listRevisedAnswers(deps.db, { studyId }))
+    revised.set(r.respondentId, [...(revised.get(r.respondentId) ?? []), r]);
   const header = [
     'respondent',
     'number',
@@ -209,6 +228,7 @@ export async function exportAnswersCsv(
     'status',
     'included',
     'quality_flags',
+    'revised_screens',
     ...questions.map((q) => q.key),
   ];
   const rows = respondents.map((r, i) => [
@@ -219,12 +239,46 @@ export async function exportAnswersCsv(
     r.status,
     r.included,
     getFlagNames(r.flags).join('; '),
+    revisedScreensOf(revised.get(r.id) ?? []),
     ...questions.map((q) => formatAnswer(q, answers.get(r.id)?.get(q.key))),
   ]);
   return {
     filename: fileName(study.name, 'background-answers', 'csv', at),
     contentType: CSV,
     body: writeCsv(header, rows),
+    personal,
+  };
+}
+
+/**
+ * Every answer of every screen a respondent went back to and changed, oldest first, the
+ * current one marked (answers of questions the role may not read are left out).
+ */
+export async function exportAnswerHistoryCsv(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  at = new Date(),
+): Promise<Download> {
+  const { study, personal, questions, respondents } = await loadRespondentTable(
+    deps,
+    member,
+    studyId,
+  );
+  const numbers = new Map(respondents.map((r, i) => [r.id, i + 1]));
+  const [current, replaced] = await Promise.all([
+    listRevisedAnswers(deps.db, { studyId }),
+    listAnswerHistory(deps.db, { studyId }),
+  ]);
+  const rows = buildAnswerHistory(
+    [...current.map((r) => ({ ...r, replacedAt: null })), ...replaced],
+    numbers,
+    questions,
+  );
+  return {
+    filename: fileName(study.name, 'answer-history', 'csv', at),
+    contentType: CSV,
+    body: writeCsv(answerHistoryHeader, rows),
     personal,
   };
 }

@@ -208,6 +208,7 @@ export function buildSurveyView(
     definition: { attributes, alternatives, fixedAlternative },
     screens,
     end: endPageOf(version.questionnaire),
+    back: pick(version.questionnaire.options, 'allowBack', 'backOnTasks'),
   };
 }
 

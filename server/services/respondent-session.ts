@@ -17,7 +17,8 @@ import {
 } from '../../db/queries/respondents';
 import { getLatestVersionId } from '../../db/queries/versions';
 import { assignBlock, releaseBlock } from '../../db/queries/respondent-blocks';
-import { listAnsweredKeys } from '../../db/queries/answers';
+import { listAnswerValues } from '../../db/queries/answers';
+import { givenOnRevisable } from '../../shared/survey/going-back';
 import type { FieldworkSettings } from '../../shared/schemas/study-lifecycle';
 import {
   type RespondentSession,
@@ -167,20 +168,21 @@ export async function buildSession(
   const version = await loadFrozenVersion(db, { id: respondent.versionId, studyId: study.id });
   const { screens, plan } = screensOfRespondent(version, respondent);
   const survey = buildSurveyView(version, plan, study.publicTitle, screens);
-  const answeredKeys = opts.isNew
-    ? new Set<string>()
-    : await listAnsweredKeys(db, { respondentId: respondent.id });
+  const given = opts.isNew
+    ? new Map<string, unknown>()
+    : await listAnswerValues(db, { respondentId: respondent.id });
   return {
     sessionToken: respondent.sessionToken,
     ...survey,
     status: respondent.status,
-    answered: survey.screens.filter((s) => answeredKeys.has(s.key)).map((s) => s.key),
+    answered: survey.screens.filter((s) => given.has(s.key)).map((s) => s.key),
     redirectUrl: redirectFor(
       readSettings(study.settings),
       respondent.status,
       respondent.externalId,
     ),
     surveyOpen: study.status === 'live',
+    given: givenOnRevisable(survey.screens, given, survey.back),
   };
 }
 

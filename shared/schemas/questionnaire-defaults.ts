@@ -4,7 +4,11 @@
  */
 import { nanoid } from 'nanoid';
 import type { StudyDefinition } from './study-definition';
-import type { Questionnaire, QuestionnairePage } from './questionnaire';
+import {
+  defaultQuestionnaireOptions,
+  type Questionnaire,
+  type QuestionnairePage,
+} from './questionnaire';
 import { questionKeyFromText } from './question-keys';
 import { createTemplatePage } from './questionnaire-templates';
 
@@ -173,6 +177,7 @@ export function defaultQuestionnaire(definition: StudyDefinition): Questionnaire
       createPage('tasks', definition),
       createPage('end', definition),
     ],
+    options: defaultQuestionnaireOptions(),
   };
 }
 
@@ -260,5 +265,6 @@ export function demoQuestionnaire(definition: StudyDefinition): Questionnaire {
         body: 'Your answers have been saved. They will help Larkspur Valley Water plan its services. You can close this page now.',
       },
     ],
+    options: defaultQuestionnaireOptions(),
   };
 }

@@ -153,8 +153,22 @@ export const questionnairePageSchema = z.discriminatedUnion('kind', [
 export type QuestionnairePage = z.infer<typeof questionnairePageSchema>;
 export type PageKind = QuestionnairePage['kind'];
 
+/** How respondents move through the questionnaire; frozen with it into each live version. */
+export const questionnaireOptionsSchema = z.object({
+  /** A Back button on every screen that follows a revisable one (shared/survey/going-back.ts). */
+  allowBack: z.boolean().default(true),
+  /** Whether Back reaches choice tasks too; off keeps first reactions to the tasks. */
+  backOnTasks: z.boolean().default(true),
+});
+export type QuestionnaireOptions = z.infer<typeof questionnaireOptionsSchema>;
+export const defaultQuestionnaireOptions = (): QuestionnaireOptions =>
+  questionnaireOptionsSchema.parse({});
+
 export const questionnaireSchema = z
-  .object({ pages: z.array(questionnairePageSchema).min(1).max(80) })
+  .object({
+    pages: z.array(questionnairePageSchema).min(1).max(80),
+    options: questionnaireOptionsSchema.prefault({}),
+  })
   .superRefine((q, ctx) => {
     const issue = (message: string, path: (string | number)[] = ['pages']) =>
       ctx.addIssue({ code: 'custom', path, message });

@@ -6,6 +6,7 @@
 import { z } from 'zod';
 import type { Question } from './questionnaire';
 import type { StudyDefinition } from './study-definition';
+import type { BackOptions } from '../survey/going-back';
 
 export { RESPONDENT_TOKEN_HEADER } from '../respondent-token-header';
 
@@ -126,10 +127,20 @@ export type RespondentSession = {
   redirectUrl: string | null;
   /** False once the survey has closed: the app shows a closed page instead of the next screen. */
   surveyOpen: boolean;
+  /** Where Back may lead (shared/survey/going-back.ts). */
+  back: BackOptions;
+  /**
+   * The current answers of the screens Back may lead to, by screen key, so a screen seen again
+   * shows what was chosen (also after a resume on another device).
+   */
+  given: Record<string, AnswerValue>;
 };
 
 /** What a respondent's screens are built from: the same for a live session and the Preview. */
-export type SurveyView = Pick<RespondentSession, 'studyName' | 'definition' | 'screens' | 'end'>;
+export type SurveyView = Pick<
+  RespondentSession,
+  'studyName' | 'definition' | 'screens' | 'end' | 'back'
+>;
 
 /** The Preview section: the study as one respondent of a block (seed) would walk through it. */
 export type StudyPreview = {

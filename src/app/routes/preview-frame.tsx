@@ -2,9 +2,12 @@
  * /preview/:teamId/:studyId?block&seed&screen — the respondent app's own layout and screens,
  * fed by the study's preview (the same screen-building code as a live session) instead of a
  * session. Shown in an iframe by the Preview section, so phone widths are real viewports.
- * Answers only move on to the next screen; nothing is sent or stored.
+ * Answers only move on to the next screen (Back works as in a live session); nothing is sent
+ * or stored.
  */
 import { useEffect, useState } from 'react';
+import type { AnswerValue } from '@shared/schemas/respondent';
+import { previousRevisable } from '@shared/survey/going-back';
 import { useParams, useSearchParams } from 'react-router';
 import { ApiError } from '@/lib/api-client';
 import { Spinner } from '@/components/ui/feedback';
@@ -13,7 +16,7 @@ import { postPreviewScreen } from '@/features/preview/utils/preview-messages';
 import { RespondLayout } from '@/features/respond/components/respond-layout';
 import { RespondentScreenView } from '@/features/respond/components/screen-view';
 import { EndScreen } from '@/features/respond/components/finish-screens';
-import { Paragraphs, ScreenFrame } from '@/features/respond/components/screen-frame';
+import { GoBackContext, Paragraphs, ScreenFrame } from '@/features/respond/components/screen-frame';
 
 const whole = (text: string | null, fallback: number) => {
   const n = Number(text);
@@ -26,6 +29,9 @@ export function Component() {
   const block = Math.max(1, whole(search.get('block'), 1));
   const seed = whole(search.get('seed'), 1);
   const [index, setIndex] = useState(() => whole(search.get('screen'), 0));
+  // As in a live session: progress counts screens answered, Back shows the answer given.
+  const [furthest, setFurthest] = useState(index);
+  const [given, setGiven] = useState<Record<string, AnswerValue>>({});
   const preview = useStudyPreview(teamId, studyId, block, seed);
   useEffect(() => postPreviewScreen(index), [index]);
 
@@ -51,15 +57,26 @@ export function Component() {
     );
   const { survey } = preview.data;
   const screen = survey.screens[index];
+  const answered = new Set(survey.screens.slice(0, furthest).map((s) => s.key));
+  const back = screen && previousRevisable(survey.screens, answered, screen.key, survey.back);
+  const goBack = back ? () => setIndex(survey.screens.indexOf(back)) : null;
   return (
-    <RespondLayout progress={index / survey.screens.length} studyName={survey.studyName}>
+    <RespondLayout progress={furthest / survey.screens.length} studyName={survey.studyName}>
       {screen ? (
-        <RespondentScreenView
-          key={screen.key}
-          screen={screen}
-          definition={survey.definition}
-          onAnswer={() => setIndex(index + 1)}
-        />
+        <GoBackContext.Provider value={goBack}>
+          <RespondentScreenView
+            key={screen.key}
+            screen={screen}
+            definition={survey.definition}
+            initial={given[screen.key]}
+            onAnswer={(value) => {
+              setGiven((g) => ({ ...g, [screen.key]: value }));
+              // A screen seen again leads back on to the next one, as in the live app.
+              setIndex(index + 1);
+              setFurthest((f) => Math.max(f, index + 1));
+            }}
+          />
+        </GoBackContext.Provider>
       ) : (
         <EndScreen status="completed" pending={0} end={survey.end} redirectUrl={null} />
       )}

@@ -84,6 +84,7 @@ describe('GET /preview', () => {
         definition: live.definition,
         screens: live.screens,
         end: live.end,
+        back: live.back,
       });
       const kinds = new Set(
         preview.survey.screens.map((sc) => (sc.kind === 'task' ? sc.taskKind : sc.kind)),

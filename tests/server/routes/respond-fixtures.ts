@@ -51,6 +51,7 @@ export function fullQuestionnaire(): Questionnaire {
   // Some tests send respondents back to a panel with their id: the consent says so.
   const body = `${consent.kind === 'consent' ? consent.body : ''}\n\nIf you came from a survey panel, your answers are linked to your panel id.`;
   return {
+    ...q,
     pages: [
       { ...consent, body } as typeof consent,
       {
@@ -143,3 +144,32 @@ export function answerFor(
     ...overrides,
   };
 }
+
+export type LiveScreen = Screen & { screening?: boolean };
+export type LiveSession = {
+  sessionToken: string;
+  screens: LiveScreen[];
+  given: Record<string, unknown>;
+};
+
+/** A live study with this questionnaire (go-live by its owner) and one respondent's session. */
+export async function startLiveSession(
+  t: TestApp,
+  owner: { post: (url: string) => { expect: (status: number) => Promise<unknown> } },
+  teamId: string,
+  questionnaire: Questionnaire = fullQuestionnaire(),
+) {
+  const study = await insertStudy(t, teamId, { questionnaire });
+  await owner.post(`/api/teams/${teamId}/studies/${study.id}/lifecycle/go-live`).expect(200);
+  const res = await t.request().post(`/api/r/${study.publicId}/sessions`).send({}).expect(201);
+  return { study, session: res.body as LiveSession };
+}
+
+/** Sends an answer, or a changed one (`revisions`), with the respondent's session token. */
+export const sendAnswer = (
+  t: TestApp,
+  publicId: string,
+  token: string,
+  path: 'answers' | 'revisions',
+  body: object,
+) => t.request().post(`/api/r/${publicId}/${path}`).set('x-respondent-token', token).send(body);

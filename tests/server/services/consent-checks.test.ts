@@ -5,6 +5,7 @@ import { demoDefinition } from '../../../db/seed/demo-study';
 
 const q = defaultQuestionnaire(demoDefinition);
 const withConsent = (body: string) => ({
+  ...q,
   pages: q.pages.map((p) => (p.kind === 'consent' ? { ...p, body } : p)),
 });
 

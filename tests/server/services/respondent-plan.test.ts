@@ -26,7 +26,7 @@ const withSpecials = (): Questionnaire => {
   };
   const tasksAt = q.pages.findIndex((p) => p.kind === 'tasks');
   q.pages.splice(tasksAt, 0, warmup);
-  return { pages: [...q.pages, repeat, dominance, end] };
+  return { ...q, pages: [...q.pages, repeat, dominance, end] };
 };
 
 describe('createRespondentPlan', () => {

@@ -5,6 +5,7 @@
  */
 import type { StudyDefinition } from '@shared/schemas/study-definition';
 import { TextField } from '@/components/ui/field';
+import { CheckboxField as Switch } from '@/components/ui/checkbox-field';
 import type { DesignFormValues } from '../utils/build-design-spec';
 
 type Props = {
@@ -13,28 +14,6 @@ type Props = {
   errors: Map<string, string>;
   onChange: (patch: Partial<DesignFormValues>) => void;
 };
-
-function Switch({
-  label,
-  checked,
-  onChange,
-}: {
-  label: string;
-  checked: boolean;
-  onChange: (checked: boolean) => void;
-}) {
-  return (
-    <label className="flex min-h-8 items-center gap-2 text-sm">
-      <input
-        type="checkbox"
-        className="size-4 accent-primary"
-        checked={checked}
-        onChange={(e) => onChange(e.target.checked)}
-      />
-      {label}
-    </label>
-  );
-}
 
 export function DesignRulesFields({ definition, values: v, errors, onChange }: Props) {
   const fixed = definition.fixedAlternative;

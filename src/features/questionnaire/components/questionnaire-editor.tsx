@@ -19,6 +19,7 @@ import {
 } from '@shared/schemas/questionnaire-templates';
 import type { StudyDefinition } from '@shared/schemas/study-definition';
 import { useSaveQuestionnaire } from '../api/save-questionnaire';
+import { NavigationOptions } from './navigation-options';
 import { PageForm } from './page-form';
 import { PageList } from './page-list';
 
@@ -80,7 +81,7 @@ export function QuestionnaireEditor({
   const selected = draft.pages.find((p) => p.id === selectedId) ?? null;
 
   const change = (pages: QuestionnairePage[]) => {
-    setDraft({ pages });
+    setDraft((d) => ({ ...d, pages }));
     setDirty(true);
   };
   const problems = check.success ? [] : check.error.issues.map((i) => i.message);
@@ -183,6 +184,16 @@ export function QuestionnaireEditor({
           )}
         </Card>
       </div>
+      <Card title="Going back">
+        <NavigationOptions
+          options={draft.options}
+          disabled={!editable}
+          onChange={(options) => {
+            setDraft((d) => ({ ...d, options }));
+            setDirty(true);
+          }}
+        />
+      </Card>
       {editable && (
         <div className="sticky bottom-0 flex flex-wrap items-center gap-3 border-t border-line bg-canvas/95 py-3 backdrop-blur">
           <Button

@@ -8,6 +8,8 @@ import { NextBar, ScreenFrame } from './screen-frame';
 type Props = {
   screen: Extract<RespondentScreen, { kind: 'question' }>;
   onAnswer: (value: AnswerValue) => void;
+  /** The answer given earlier, when the respondent came back to this question. */
+  initial?: AnswerValue;
 };
 
 const optionClass =
@@ -42,13 +44,15 @@ function toValue(
   }
 }
 
-export function QuestionScreen({ screen, onAnswer }: Props) {
+export function QuestionScreen({ screen, onAnswer, initial }: Props) {
   const q = screen.question;
   const id = useId();
-  const [single, setSingle] = useState<string | null>(null);
-  const [multiple, setMultiple] = useState<string[]>([]);
-  const [number, setNumber] = useState('');
-  const [text, setText] = useState('');
+  const [single, setSingle] = useState(initial?.kind === 'single' ? initial.optionId : null);
+  const [multiple, setMultiple] = useState(initial?.kind === 'multiple' ? initial.optionIds : []);
+  const [number, setNumber] = useState(
+    initial?.kind === 'number' && initial.number !== null ? String(initial.number) : '',
+  );
+  const [text, setText] = useState(initial?.kind === 'text' ? initial.text : '');
   const [error, setError] = useState<string | null>(null);
   const describedBy =
     [q.help ? `${id}-help` : null, error ? `${id}-error` : null].filter(Boolean).join(' ') ||

@@ -4,6 +4,7 @@ import { RespondentScreenView } from './screen-view';
 import { EndScreen, UnavailableScreen } from './finish-screens';
 import { RespondLayout } from './respond-layout';
 import { UnsentNotice } from './unsent-notice';
+import { GoBackContext } from './screen-frame';
 
 /** The respondent app for one public link: one screen at a time, every answer kept. */
 export function RespondentApp({ publicId, search }: { publicId: string; search: string }) {
@@ -64,12 +65,15 @@ export function RespondentApp({ publicId, search }: { publicId: string; search: 
     );
   else
     body = (
-      <RespondentScreenView
-        key={r.currentScreen.key}
-        screen={r.currentScreen}
-        definition={session.definition}
-        onAnswer={(value, ms) => r.answer(r.currentScreen!, value, ms)}
-      />
+      <GoBackContext.Provider value={r.goBack}>
+        <RespondentScreenView
+          key={r.currentScreen.key}
+          screen={r.currentScreen}
+          definition={session.definition}
+          onAnswer={(value, ms) => r.answer(r.currentScreen!, value, ms)}
+          initial={r.givenOnCurrent}
+        />
+      </GoBackContext.Provider>
     );
   return (
     <RespondLayout progress={finished ? 1 : progress} studyName={session.studyName} {...status}>

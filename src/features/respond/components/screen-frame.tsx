@@ -1,5 +1,9 @@
-import { useEffect, useRef, type ReactNode } from 'react';
+import { createContext, useContext, useEffect, useRef, type ReactNode } from 'react';
+import { Button } from '@/components/ui/button';
 import { markFirstScreen } from '../utils/first-screen-mark';
+
+/** What Back does on the current screen, or null when there is no earlier screen to change. */
+export const GoBackContext = createContext<(() => void) | null>(null);
 
 /**
  * One screen of the questionnaire. The heading takes focus when the screen appears, so screen
@@ -54,11 +58,20 @@ export function Paragraphs({ text }: { text: string }) {
   );
 }
 
-/** The big primary action at the bottom of a screen; sticky on phones so it stays in reach. */
+/**
+ * The big primary action at the bottom of a screen, sticky on phones so it stays in reach, with
+ * Back before it when the respondent may change the previous answer.
+ */
 export function NextBar({ children }: { children: ReactNode }) {
+  const goBack = useContext(GoBackContext);
   return (
-    <div className="sticky bottom-0 -mx-4 mt-6 border-t border-line bg-canvas/95 px-4 py-3 backdrop-blur sm:static sm:mx-0 sm:border-0 sm:bg-transparent sm:px-0">
-      {children}
+    <div className="sticky bottom-0 -mx-4 mt-6 flex items-center gap-3 border-t border-line bg-canvas/95 px-4 py-3 backdrop-blur sm:static sm:mx-0 sm:border-0 sm:bg-transparent sm:px-0">
+      {goBack && (
+        <Button type="button" variant="secondary" size="lg" onClick={goBack}>
+          Back
+        </Button>
+      )}
+      <div className="min-w-0 flex-1">{children}</div>
     </div>
   );
 }

@@ -14,10 +14,13 @@ export function RespondentScreenView({
   screen,
   definition,
   onAnswer,
+  initial,
 }: {
   screen: RespondentScreen;
   definition: RespondentSession['definition'];
   onAnswer: (value: AnswerValue, responseMs: number) => void;
+  /** The answer given earlier, when the respondent came back to this screen through Back. */
+  initial?: AnswerValue;
 }) {
   const [shownAt] = useState(() => performance.now());
   const give = (value: AnswerValue) => onAnswer(value, performance.now() - shownAt);
@@ -29,13 +32,14 @@ export function RespondentScreenView({
     case 'instructions':
       return <InstructionsScreen screen={screen} onContinue={() => give({ kind: 'ack' })} />;
     case 'question':
-      return <QuestionScreen screen={screen} onAnswer={give} />;
+      return <QuestionScreen screen={screen} onAnswer={give} initial={initial} />;
     case 'task':
       return (
         <TaskScreen
           screen={screen}
           definition={definition}
           onAnswer={(position) => give({ kind: 'choice', position })}
+          initial={initial}
         />
       );
   }

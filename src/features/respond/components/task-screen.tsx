@@ -4,18 +4,22 @@ import {
   ChoiceTaskCard,
   type ChoiceTaskAlternative,
 } from '@/components/choice-task/choice-task-card';
-import type { RespondentScreen, RespondentSession } from '@shared/schemas/respondent';
+import type { AnswerValue, RespondentScreen, RespondentSession } from '@shared/schemas/respondent';
 import { NextBar, ScreenFrame } from './screen-frame';
 
 type Props = {
   screen: Extract<RespondentScreen, { kind: 'task' }>;
   definition: RespondentSession['definition'];
   onAnswer: (position: number) => void;
+  /** The choice made earlier, when the respondent came back to this task. */
+  initial?: AnswerValue;
 };
 
 /** One choice task: tap a card to choose it, then Next. The choice can change until Next. */
-export function TaskScreen({ screen, definition, onAnswer }: Props) {
-  const [chosen, setChosen] = useState<number | null>(null);
+export function TaskScreen({ screen, definition, onAnswer, initial }: Props) {
+  const [chosen, setChosen] = useState<number | null>(
+    initial?.kind === 'choice' ? initial.position : null,
+  );
   const alternatives: ChoiceTaskAlternative[] = screen.alternatives.map((a) =>
     a.fixed ? { kind: 'fixed' } : { kind: 'designed', designIndex: a.index, levels: a.levels },
   );

@@ -21,6 +21,7 @@ import { submitAnswer } from '../api/submit-answer';
 import {
   answerToSend,
   enqueueAnswer,
+  enqueueRevision,
   keepOutboxOf,
   markUnsent,
   newClientId,
@@ -31,6 +32,7 @@ import {
   saveToken,
   type UnsentAnswer,
 } from '../utils/respondent-storage';
+import { useGoingBack } from './use-going-back';
 
 export type Unavailable = SurveyLinkState | 'not_found' | 'session_lost';
 
@@ -70,6 +72,11 @@ export function useRespondent(publicId: string, search: string) {
   const [awaiting, setAwaiting] = useState<string | null>(null);
   const [unsent, setUnsent] = useState<UnsentAnswer[]>(() => readUnsent(publicId));
   const token = useRef<string | null>(null);
+  const session = state.phase === 'active' ? state.session : null;
+  const done = useMemo(() => new Set(answeredLocally), [answeredLocally]);
+  const back = useGoingBack(publicId, session, done, finalStatus !== null);
+  const { adoptGiven, remember, moveOnFrom, changed } = back;
+
   const pump = useRef({
     running: false,
     attempt: 0,
@@ -85,6 +92,7 @@ export function useRespondent(publicId: string, search: string) {
       );
       setUnsent(readUnsent(publicId));
       setAnsweredLocally([...new Set([...session.answered, ...queued])]);
+      adoptGiven(session);
       setPending(queued.length);
       if (session.status !== 'in_progress') {
         setFinalStatus(session.status);
@@ -92,7 +100,7 @@ export function useRespondent(publicId: string, search: string) {
       }
       setState({ phase: 'active', session });
     },
-    [publicId],
+    [publicId, adoptGiven],
   );
 
   const resync = useCallback(async () => {
@@ -130,7 +138,7 @@ export function useRespondent(publicId: string, search: string) {
         const item = readOutbox(publicId)[0];
         if (!item) break;
         try {
-          const receipt = await submitAnswer(publicId, item.token, answerToSend(item));
+          const receipt = await submitAnswer(publicId, item.token, answerToSend(item), item.revise);
           removeAnswer(publicId, item.answer.clientId);
           p.attempt = 0;
           setOffline(false);
@@ -203,17 +211,10 @@ export function useRespondent(publicId: string, search: string) {
     return () => window.removeEventListener('online', retryNow);
   }, [sendOutbox]);
 
-  const session = state.phase === 'active' ? state.session : null;
-  const currentScreen: RespondentScreen | null = useMemo(() => {
-    if (!session) return null;
-    const done = new Set(answeredLocally);
-    return session.screens.find((s) => !done.has(s.key)) ?? null;
-  }, [session, answeredLocally]);
-
   const answer = useCallback(
     (screen: RespondentScreen, value: AnswerValue, responseMs: number) => {
       if (!token.current) return;
-      enqueueAnswer(publicId, {
+      const item = {
         token: token.current,
         givenAt: Date.now(),
         answer: {
@@ -222,19 +223,32 @@ export function useRespondent(publicId: string, search: string) {
           value,
           responseMs: Math.round(responseMs),
         },
-      });
+      };
+      if (done.has(screen.key)) {
+        // A screen seen again through Back: only a changed answer is sent, as a revision.
+        if (changed(screen.key, value)) {
+          enqueueRevision(publicId, item);
+          remember(screen.key, value);
+          setPending(readOutbox(publicId).length);
+          void sendOutbox();
+        }
+        moveOnFrom(screen.key);
+        return;
+      }
+      remember(screen.key, value);
+      enqueueAnswer(publicId, item);
       // A screening answer decides whether the respondent continues: wait for its receipt.
       if (screen.kind === 'question' && screen.screening) setAwaiting(screen.key);
       setAnsweredLocally((keys) => (keys.includes(screen.key) ? keys : [...keys, screen.key]));
       setPending((n) => n + 1);
       void sendOutbox();
     },
-    [publicId, sendOutbox],
+    [publicId, sendOutbox, done, changed, remember, moveOnFrom],
   );
 
   return {
     state,
-    currentScreen,
+    currentScreen: back.currentScreen,
     answeredCount: answeredLocally.length,
     totalScreens: session?.screens.length ?? 0,
     pending,
@@ -244,5 +258,8 @@ export function useRespondent(publicId: string, search: string) {
     awaitingReceipt: awaiting !== null,
     unsent,
     answer,
+    /** The answer given earlier on the current screen (seen again through Back), if known. */
+    givenOnCurrent: back.givenOnCurrent,
+    goBack: back.goBack,
   };
 }

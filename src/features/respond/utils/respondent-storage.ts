@@ -5,10 +5,18 @@
  * reloads, closed tabs and a dropped connection; if it is unavailable (private mode quirks)
  * memory is used.
  */
-import type { SubmitAnswerInput } from '@shared/schemas/respondent';
+import type { AnswerValue, SubmitAnswerInput } from '@shared/schemas/respondent';
 
-/** `givenAt`: this device's clock when the answer was given (its age goes with each send). */
-export type OutboxItem = { token: string; answer: SubmitAnswerInput; givenAt?: number };
+/**
+ * An answer to send. `givenAt`: this device's clock when the answer was given (its age goes
+ * with each send); `revise` marks a changed earlier answer (sent to the revisions route).
+ */
+export type OutboxItem = {
+  token: string;
+  answer: SubmitAnswerInput;
+  givenAt?: number;
+  revise?: boolean;
+};
 export type UnsentAnswer = { screenKey: string; reason: string };
 
 const memory = new Map<string, string>();
@@ -34,6 +42,7 @@ function write(key: string, value: string | null): void {
 const tokenKey = (publicId: string) => `cw:respond:${publicId}:token`;
 const outboxKey = (publicId: string) => `cw:respond:${publicId}:outbox`;
 const unsentKey = (publicId: string) => `cw:respond:${publicId}:unsent`;
+const givenKey = (publicId: string) => `cw:respond:${publicId}:given`;
 
 export function readToken(publicId: string): string | null {
   return read(tokenKey(publicId));
@@ -56,12 +65,39 @@ function writeOutbox(publicId: string, items: OutboxItem[]): void {
   write(outboxKey(publicId), items.length ? JSON.stringify(items) : null);
 }
 
+const sameScreen = (a: OutboxItem, b: OutboxItem) =>
+  a.token === b.token && a.answer.screenKey === b.answer.screenKey;
+
 /** Adds an answer; a second answer for the same screen is ignored (the first one stands). */
 export function enqueueAnswer(publicId: string, item: OutboxItem): void {
   const items = readOutbox(publicId);
-  if (items.some((i) => i.token === item.token && i.answer.screenKey === item.answer.screenKey))
-    return;
+  if (items.some((i) => sameScreen(i, item))) return;
   writeOutbox(publicId, [...items, item]);
+}
+
+/**
+ * Queues a changed answer behind everything before it, so the server sees the first answer,
+ * then each change in order, and keeps each replaced one in its history with its times.
+ */
+export function enqueueRevision(publicId: string, item: OutboxItem): void {
+  writeOutbox(publicId, [...readOutbox(publicId), { ...item, revise: true }]);
+}
+
+/** The answers this browser gave in a session, by screen: Back shows them again. */
+export function readGiven(publicId: string, token: string): Record<string, AnswerValue> {
+  try {
+    const parsed = JSON.parse(read(givenKey(publicId)) ?? 'null') as {
+      token: string;
+      values: Record<string, AnswerValue>;
+    } | null;
+    return parsed?.token === token ? parsed.values : {};
+  } catch {
+    return {};
+  }
+}
+
+export function saveGiven(publicId: string, token: string, values: Record<string, AnswerValue>) {
+  write(givenKey(publicId), JSON.stringify({ token, values }));
 }
 
 export function removeAnswer(publicId: string, clientId: string): void {

@@ -62,7 +62,7 @@ export function compareRuns(a: DoneRun, b: DoneRun): LrComparison {
       'a hierarchical Bayes run has no maximised log-likelihood; compare the log marginal density and the hit rates instead',
     );
   // Fewer classes put some class shares on the boundary (0), where the LR statistic is not χ²
-  // (McLachlan & Peel 2000, Finite Mixture Models, §6.4): choose the number of classes by BIC/CAIC.
+  // (McLachlan & Peel 2000, Finite Mixture Models, ch. 6; from memory): choose classes by BIC/CAIC.
   if (a.model === 'latent_class' || b.model === 'latent_class')
     return notNested(
       'the number of latent classes is not tested by a χ² likelihood-ratio test; compare BIC and CAIC instead',

@@ -70,6 +70,8 @@ const session: RespondentSession = {
   end: { title: 'Thank you', body: 'Your answers have been saved.' },
   redirectUrl: null,
   surveyOpen: true,
+  back: { allowBack: true, backOnTasks: true },
+  given: {},
 };
 
 type Call = { url: string; body: unknown };

@@ -85,6 +85,13 @@ export function Component() {
       description: 'Every respondent with their status, inclusion, quality flags and answers.',
       links: [{ label: 'CSV', href: `${base}/background-answers.csv` }],
     },
+    {
+      key: 'answer-history',
+      title: 'Changed answers',
+      description:
+        'Every answer a respondent went back and changed, with when each was given and replaced. Estimates and the other files use the latest answer only.',
+      links: [{ label: 'CSV', href: `${base}/answer-history.csv` }],
+    },
   ];
 
   return (

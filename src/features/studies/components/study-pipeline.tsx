@@ -27,11 +27,15 @@ type Props = {
 /**
  * The study's sections left to right, in the order the work flows. From 1024 px the steps are
  * packed tighter so all ten fit in the page width (1280 px and up) without scrolling; on phones
- * the bar scrolls sideways.
+ * the bar scrolls sideways. The nav is positioned so that the screen-reader-only "done" words
+ * (absolutely positioned) stay inside its scroll area instead of widening the page.
  */
 export function StudyPipeline({ teamId, studyId, available, done }: Props) {
   return (
-    <nav aria-label="Study sections" className="-mx-4 overflow-x-auto px-4 sm:mx-0 sm:px-0">
+    <nav
+      aria-label="Study sections"
+      className="relative -mx-4 overflow-x-auto px-4 sm:mx-0 sm:px-0"
+    >
       <ol className="flex min-w-max items-center gap-1 pb-1 lg:gap-0.5">
         {studySections.map((section, i) => {
           const label = sectionLabels[section];

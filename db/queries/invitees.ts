@@ -21,6 +21,7 @@ import type { DbOrTx } from '../client';
 import { invitees, respondents } from '../schema/fieldwork';
 import { studies } from '../schema/studies';
 import type { InviteeState } from '../../shared/schemas/invitees';
+import { latestMailOfInvitee } from './mail-outbox';
 
 const inviteeColumns = {
   id: invitees.id,
@@ -138,6 +139,7 @@ export async function listInvitees(
         ...inviteeColumns,
         started: hasStarted(db).mapWith(Boolean),
         completed: hasCompleted(db).mapWith(Boolean),
+        mail: latestMailOfInvitee,
       })
       .from(invitees)
       .where(where)
@@ -180,12 +182,9 @@ export async function claimForInvitation(
     .returning(inviteeColumns);
 }
 
-/** Undoes a claim whose mail could not be delivered, so a later send retries it. */
-export async function releaseInvitationClaim(db: DbOrTx, params: { id: string; claimedAt: Date }) {
-  await db
-    .update(invitees)
-    .set({ invitedAt: null })
-    .where(and(eq(invitees.id, params.id), eq(invitees.invitedAt, params.claimedAt)));
+/** Makes an invitee "not sent" again after their invitation failed for good. */
+export async function clearInvitation(db: DbOrTx, id: string) {
+  await db.update(invitees).set({ invitedAt: null }).where(eq(invitees.id, id));
 }
 
 /**
@@ -210,16 +209,6 @@ export async function claimForReminder(
       ),
     )
     .returning(inviteeColumns);
-}
-
-export async function releaseReminderClaim(
-  db: DbOrTx,
-  params: { id: string; claimedAt: Date; previous: Date | null },
-) {
-  await db
-    .update(invitees)
-    .set({ lastRemindedAt: params.previous, reminderCount: sql`${invitees.reminderCount} - 1` })
-    .where(and(eq(invitees.id, params.id), eq(invitees.lastRemindedAt, params.claimedAt)));
 }
 
 /** Looks an invitee up by the token of the personal link, with the study's name. */

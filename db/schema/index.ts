@@ -4,3 +4,4 @@ export * from './studies';
 export * from './fieldwork';
 export * from './models';
 export * from './audit';
+export * from './mail';

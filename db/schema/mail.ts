@@ -2,7 +2,7 @@
  * The mail outbox: every invitation and reminder to a study's invitees is written here in
  * the same transaction as the invitee's state change and the queue job that will send it.
  * Workers send it, retry with backoff while the mail server is unreachable, and record the
- * outcome; a row is never sent twice (see server/jobs/mail-job.ts).
+ * outcome; a row is never sent twice (server/services/mail-delivery.ts).
  */
 import { index, integer, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { teams } from './accounts';
@@ -30,8 +30,6 @@ export const mailOutbox = pgTable(
     attempts: integer('attempts').notNull().default(0),
     /** Why the last attempt failed, in words a researcher can act on. */
     lastError: text('last_error'),
-    /** The queue job that sends this row (pg-boss id). */
-    jobId: uuid('job_id'),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     sendingAt: timestamp('sending_at', { withTimezone: true }),
     sentAt: timestamp('sent_at', { withTimezone: true }),

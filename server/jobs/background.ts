@@ -7,13 +7,14 @@ import type { AppDeps } from '../deps';
 import { startJobQueue, type RegisteredJobKind } from './queue';
 import { createDesignJobKind } from './design-job';
 import { createEstimationJobKind } from './estimation-job';
+import { createMailJobKind } from './mail-job';
 import { startCloseCheck } from '../services/lifecycle';
 
 export type StopFn = () => Promise<void>;
 
 /** Every job kind of the application. */
 export function createJobKinds(): RegisteredJobKind[] {
-  return [createDesignJobKind(), createEstimationJobKind()];
+  return [createDesignJobKind(), createEstimationJobKind(), createMailJobKind()];
 }
 
 /**

@@ -14,11 +14,18 @@ export const ORPHAN_AFTER_MS = 2 * 60_000;
 /** Orphans younger than this are queued again; older ones are failed. */
 export const REQUEUE_WITHIN_MS = 60 * 60_000;
 
+export type SendOptions = {
+  /** Enqueue inside this transaction: the job exists exactly when the caller's rows do. */
+  tx?: DbOrTx;
+  /** Not before this many seconds from now. */
+  startAfterSeconds?: number;
+};
+
 /** What a sweep needs of the queue: the ids its live jobs carry, and sending. */
 export interface SweepQueue {
   /** Values of `data[idField]` of this kind's jobs that are waiting, retrying or running. */
   pendingIds(name: string, idField: string): Promise<Set<string>>;
-  send(name: string, data: object, opts?: { tx?: DbOrTx }): Promise<void>;
+  send(name: string, data: object, opts?: SendOptions): Promise<void>;
 }
 
 export type OrphanSpec = {
@@ -30,6 +37,8 @@ export type OrphanSpec = {
   /** Fails the rows that are still queued; returns those it failed. */
   failQueued(db: DbOrTx, ids: string[], reason: string): Promise<string[]>;
   reason: string;
+  /** Orphans younger than this are queued again; older ones failed (default REQUEUE_WITHIN_MS). */
+  requeueWithinMs?: number;
 };
 
 export async function sweepOrphans(
@@ -42,7 +51,7 @@ export async function sweepOrphans(
   if (queued.length === 0) return { requeued: [], failed: [] };
   const pending = await queue.pendingIds(spec.jobName, spec.idField);
   const orphans = queued.filter((r) => !pending.has(r.id));
-  const cutoff = now.getTime() - REQUEUE_WITHIN_MS;
+  const cutoff = now.getTime() - (spec.requeueWithinMs ?? REQUEUE_WITHIN_MS);
   const requeued: string[] = [];
   for (const r of orphans.filter((o) => o.createdAt.getTime() >= cutoff)) {
     await queue.send(spec.jobName, { [spec.idField]: r.id });

@@ -19,8 +19,7 @@
 import PgBoss from 'pg-boss';
 import type { z } from 'zod';
 import type { AppDeps } from '../deps';
-import type { DbOrTx } from '../../db/client';
-import type { SweepQueue } from './orphan-sweep';
+import type { SendOptions, SweepQueue } from './orphan-sweep';
 import { transactionExecutor } from './transaction-executor';
 
 export type JobContext = { deps: AppDeps; jobId: string };
@@ -67,7 +66,7 @@ export interface JobSender {
    * Enqueues a job; with `tx`, inside that transaction, so the job exists exactly when the
    * row that records it does.
    */
-  send(name: string, data: object, opts?: { tx?: DbOrTx }): Promise<void>;
+  send(name: string, data: object, opts?: SendOptions): Promise<void>;
 }
 
 export interface JobQueue extends JobSender, SweepQueue {
@@ -103,8 +102,10 @@ export async function startJobQueue(
   const send: JobSender['send'] = async (name, data, sendOpts) => {
     const kind = byName.get(name);
     if (!kind) throw new Error(`Unknown job kind ${name}`);
-    const db = sendOpts?.tx ? transactionExecutor(sendOpts.tx) : undefined;
-    await boss.send(name, kind.parse(data), db ? { db } : {});
+    await boss.send(name, kind.parse(data), {
+      ...(sendOpts?.tx ? { db: transactionExecutor(sendOpts.tx) } : {}),
+      ...(sendOpts?.startAfterSeconds ? { startAfter: sendOpts.startAfterSeconds } : {}),
+    });
   };
   const pendingIds: SweepQueue['pendingIds'] = async (name, idField) => {
     const { rows } = await boss

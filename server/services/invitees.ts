@@ -17,12 +17,12 @@ import {
   listInviteeEmails,
   listInvitees,
   markUnsubscribed,
-  releaseInvitationClaim,
-  releaseReminderClaim,
   type InviteeRecord,
 } from '../../db/queries/invitees';
 import { studyInvitationMail, studyReminderMail } from '../mail/fieldwork-templates';
-import type { OutgoingMail } from '../mail/mailer';
+import type { DbOrTx } from '../../db/client';
+import type { MailKind } from '../../db/queries/mail-outbox';
+import { deliverNow, queueMails } from './mail-delivery';
 import type {
   ImportInviteesResult,
   Invitee,
@@ -134,6 +134,7 @@ export async function getInvitees(
       lastRemindedAt: r.lastRemindedAt?.toISOString() ?? null,
       reminderCount: r.reminderCount,
       unsubscribedAt: r.unsubscribedAt?.toISOString() ?? null,
+      mail: r.mail,
     })),
     total,
     page: q.page,
@@ -172,31 +173,49 @@ function linksFor(deps: AppDeps, publicId: string, token: string) {
   };
 }
 
-/** Mails claimed invitees a few at a time; a failed mail gives its claim back. */
-async function mailClaimed(
+/**
+ * Claims invitees and writes their mails to the outbox in one transaction (mail-delivery.ts),
+ * then tries to deliver them at once; what the mail server cannot take now is retried by the
+ * mail job, never lost.
+ */
+async function claimAndMail(
   deps: AppDeps,
-  claimed: InviteeRecord[],
-  build: (r: InviteeRecord) => OutgoingMail,
-  release: (r: InviteeRecord) => Promise<void>,
-): Promise<{ sent: number; failed: number }> {
-  let sent = 0;
-  let failed = 0;
-  let next = 0;
-  const worker = async () => {
-    while (next < claimed.length) {
-      const r = claimed[next++];
-      try {
-        await deps.mailer.send(build(r));
-        sent++;
-      } catch (err) {
-        failed++;
-        deps.logger.warn({ err, inviteeId: r.id }, 'invitation mail failed');
-        await release(r);
-      }
-    }
+  scope: { teamId: string; studyId: string; publicId: string; studyName: string },
+  kind: MailKind,
+  input: SendInvitationsInput,
+  claim: (tx: DbOrTx) => Promise<InviteeRecord[]>,
+): Promise<SendResult> {
+  const template = kind === 'invitation' ? studyInvitationMail : studyReminderMail;
+  const { claimed, ids } = await deps.db.transaction(async (tx) => {
+    const claimed = await claim(tx);
+    const ids = await queueMails(
+      tx,
+      deps.jobs,
+      scope,
+      claimed.map((r) => ({
+        inviteeId: r.id,
+        kind,
+        mail: template({
+          to: r.email,
+          name: r.name,
+          studyName: scope.studyName,
+          ...linksFor(deps, scope.publicId, r.token),
+          subject: input.subject,
+          message: input.message,
+        }),
+      })),
+    );
+    return { claimed, ids };
+  });
+  const outcome = await deliverNow(deps, ids, MAIL_CONCURRENCY);
+  const asked = input.inviteeIds?.length ?? claimed.length;
+  return {
+    sent: outcome.sent,
+    // "skipped" here means another process took the row first: it is on its way.
+    queued: outcome.retrying + outcome.skipped,
+    failed: outcome.failed,
+    skipped: Math.max(0, asked - claimed.length),
   };
-  await Promise.all(Array.from({ length: MAIL_CONCURRENCY }, worker));
-  return { sent, failed };
 }
 
 export async function sendInvitations(
@@ -206,24 +225,11 @@ export async function sendInvitations(
   input: SendInvitationsInput,
 ): Promise<SendResult> {
   const study = await loadLiveStudy(deps, teamId, studyId);
+  const scope = { teamId, studyId, publicId: study.publicId, studyName: study.name };
   const now = new Date();
-  const claimed = await claimForInvitation(deps.db, { studyId, ids: input.inviteeIds, now });
-  const { sent, failed } = await mailClaimed(
-    deps,
-    claimed,
-    (r) =>
-      studyInvitationMail({
-        to: r.email,
-        name: r.name,
-        studyName: study.name,
-        ...linksFor(deps, study.publicId, r.token),
-        subject: input.subject,
-        message: input.message,
-      }),
-    (r) => releaseInvitationClaim(deps.db, { id: r.id, claimedAt: now }),
+  return claimAndMail(deps, scope, 'invitation', input, (tx) =>
+    claimForInvitation(tx, { studyId, ids: input.inviteeIds, now }),
   );
-  const asked = input.inviteeIds?.length ?? claimed.length;
-  return { sent, failed, skipped: Math.max(0, asked - claimed.length) };
 }
 
 export async function sendReminders(
@@ -233,29 +239,16 @@ export async function sendReminders(
   input: SendInvitationsInput,
 ): Promise<SendResult> {
   const study = await loadLiveStudy(deps, teamId, studyId);
+  const scope = { teamId, studyId, publicId: study.publicId, studyName: study.name };
   const now = new Date();
-  const claimed = await claimForReminder(deps.db, {
-    studyId,
-    ids: input.inviteeIds,
-    now,
-    notSince: new Date(now.getTime() - REMINDER_MIN_INTERVAL_MS),
-  });
-  const { sent, failed } = await mailClaimed(
-    deps,
-    claimed,
-    (r) =>
-      studyReminderMail({
-        to: r.email,
-        name: r.name,
-        studyName: study.name,
-        ...linksFor(deps, study.publicId, r.token),
-        subject: input.subject,
-        message: input.message,
-      }),
-    (r) => releaseReminderClaim(deps.db, { id: r.id, claimedAt: now, previous: r.lastRemindedAt }),
+  return claimAndMail(deps, scope, 'reminder', input, (tx) =>
+    claimForReminder(tx, {
+      studyId,
+      ids: input.inviteeIds,
+      now,
+      notSince: new Date(now.getTime() - REMINDER_MIN_INTERVAL_MS),
+    }),
   );
-  const asked = input.inviteeIds?.length ?? claimed.length;
-  return { sent, failed, skipped: Math.max(0, asked - claimed.length) };
 }
 
 export function maskEmail(email: string): string {

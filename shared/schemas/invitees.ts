@@ -88,6 +88,15 @@ export const inviteeSchema = z.object({
   lastRemindedAt: z.string().nullable(),
   reminderCount: z.number().int(),
   unsubscribedAt: z.string().nullable(),
+  /** The latest invitation or reminder: queued (waiting or retrying), sending, sent or failed. */
+  mail: z
+    .object({
+      kind: z.enum(['invitation', 'reminder']),
+      status: z.enum(['queued', 'sending', 'sent', 'failed']),
+      /** Why the last attempt failed (kept while it is retried). */
+      reason: z.string().nullable(),
+    })
+    .nullable(),
 });
 export type Invitee = z.infer<typeof inviteeSchema>;
 
@@ -125,6 +134,9 @@ export type SendRemindersInput = SendInvitationsInput;
 
 export const sendResultSchema = z.object({
   sent: z.number().int(),
+  /** Not delivered yet: the mail server could not take them; they are retried automatically. */
+  queued: z.number().int(),
+  /** Refused by the mail server; the reason is on the invitee. */
   failed: z.number().int(),
   /** Asked for but not eligible (already invited, finished, unsubscribed, reminded recently). */
   skipped: z.number().int(),

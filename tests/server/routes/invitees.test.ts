@@ -296,7 +296,7 @@ describe('POST /invitees/send', () => {
       .post(`${base(studyId)}/send`)
       .send({})
       .expect(200);
-    expect(res.body).toEqual({ sent: 1, failed: 0, skipped: 0 });
+    expect(res.body).toEqual({ sent: 1, queued: 0, failed: 0, skipped: 0 });
     const mail = await waitForMailTo(email);
     const row = (await getInviteeRow(t.deps.db, email))!;
     expect(mail.subject).toBe('Invitation: Larkspur packages');
@@ -447,7 +447,7 @@ describe('POST /invitees/remind', () => {
       .post(`${base(studyId)}/remind`)
       .send({})
       .expect(200);
-    expect(res.body).toEqual({ sent: 2, failed: 0, skipped: 0 });
+    expect(res.body).toEqual({ sent: 2, queued: 0, failed: 0, skipped: 0 });
     await waitForMailTo(pending);
     const reminders = async (e: string) =>
       (await listMailTo(e)).filter((m) => m.subject.startsWith('Reminder'));
@@ -463,7 +463,7 @@ describe('POST /invitees/remind', () => {
       .post(`${base(studyId)}/remind`)
       .send({ inviteeIds: [row.id] })
       .expect(200);
-    expect(again.body).toEqual({ sent: 0, failed: 0, skipped: 1 });
+    expect(again.body).toEqual({ sent: 0, queued: 0, failed: 0, skipped: 1 });
     expect(await reminders(pending)).toHaveLength(1);
   });
 });

@@ -8,6 +8,7 @@ import { useConfirm } from '@/components/ui/confirm-dialog';
 import { ErrorText } from '@/components/ui/error-boundary';
 import { useInvitees } from '../api/list-invitees';
 import { useDeleteInvitee } from '../api/delete-invitee';
+import { MailStatus } from './mail-status';
 import { InviteeStateBadge, inviteeStateOptions } from './invitee-state-badge';
 
 const PAGE_SIZE = 25;
@@ -91,6 +92,9 @@ export function InviteeTable({
                 <th scope="col" className="px-3 py-2 text-left font-medium">
                   State
                 </th>
+                <th scope="col" className="px-3 py-2 text-left font-medium">
+                  Mail
+                </th>
                 <th scope="col" className="px-3 py-2 text-right font-medium">
                   Invited
                 </th>
@@ -112,6 +116,9 @@ export function InviteeTable({
                   <td className="px-3 py-1.5 font-mono text-xs">{i.externalId ?? '—'}</td>
                   <td className="px-3 py-1.5">
                     <InviteeStateBadge state={i.state} />
+                  </td>
+                  <td className="max-w-64 px-3 py-1.5">
+                    <MailStatus mail={i.mail} />
                   </td>
                   <td className="num px-3 py-1.5">{day(i.invitedAt)}</td>
                   <td className="num px-3 py-1.5">{i.reminderCount}</td>

@@ -26,8 +26,12 @@ const orUndefined = (s: string) => (s.trim() === '' ? undefined : s.trim());
 export function describeSend(kind: 'invitations' | 'reminders', r: SendResult): string {
   const noun = kind === 'invitations' ? 'invitation' : 'reminder';
   const parts = [`${r.sent} ${noun}${r.sent === 1 ? '' : 's'} sent`];
-  if (r.failed > 0) parts.push(`${r.failed} could not be delivered and will be retried next time`);
-  if (r.sent === 0 && r.failed === 0)
+  if (r.queued > 0)
+    parts.push(
+      `${r.queued} waiting for the mail server, which could not take them yet; they are retried automatically`,
+    );
+  if (r.failed > 0) parts.push(`${r.failed} refused by the mail server (the list shows why)`);
+  if (r.sent === 0 && r.queued === 0 && r.failed === 0)
     parts.push(
       kind === 'invitations'
         ? 'everybody on the list had been invited already'

@@ -25,10 +25,13 @@ describe('SendPanel', () => {
 
 describe('describeSend', () => {
   it('reports what a send did', () => {
-    expect(describeSend('invitations', { sent: 3, failed: 1 } as never)).toBe(
-      '3 invitations sent; 1 could not be delivered and will be retried next time.',
+    expect(describeSend('invitations', { sent: 3, queued: 1, failed: 0, skipped: 0 })).toBe(
+      '3 invitations sent; 1 waiting for the mail server, which could not take them yet; they are retried automatically.',
     );
-    expect(describeSend('invitations', { sent: 0, failed: 0 } as never)).toBe(
+    expect(describeSend('reminders', { sent: 0, queued: 0, failed: 2, skipped: 0 })).toBe(
+      '0 reminders sent; 2 refused by the mail server (the list shows why).',
+    );
+    expect(describeSend('invitations', { sent: 0, queued: 0, failed: 0, skipped: 0 })).toBe(
       '0 invitations sent; everybody on the list had been invited already.',
     );
   });

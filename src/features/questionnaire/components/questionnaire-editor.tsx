@@ -102,7 +102,7 @@ export function QuestionnaireEditor({
           data-protection details, then save.
         </Alert>
       )}
-      <div className="grid gap-4 lg:grid-cols-[minmax(0,22rem)_minmax(0,1fr)]">
+      <div className="grid grid-cols-1 gap-4 lg:grid-cols-[minmax(0,22rem)_minmax(0,1fr)]">
         <Card title="Pages">
           <PageList
             pages={draft.pages}

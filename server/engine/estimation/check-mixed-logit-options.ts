@@ -12,6 +12,7 @@ import {
   type CoefficientSpec,
   type MixedLogitLayout,
 } from './mixed-logit-layout';
+import { checkHoldout } from './shared-option-checks';
 
 export interface MixedLogitOptions {
   coefficients: CoefficientSpec[];
@@ -124,13 +125,7 @@ export function checkMixedLogitOptions(
     if (!start.every(Number.isFinite))
       throw new EstimationOptionsError('start values must be finite', 'start');
   }
-  const holdout = options.holdout ?? null;
-  if (holdout && holdout.columns.join('\u0000') !== data.columns.join('\u0000')) {
-    throw new EstimationOptionsError(
-      'holdout data must have the same columns as the estimation data',
-      'holdout',
-    );
-  }
+  const holdout = checkHoldout(data, options.holdout);
   const kernel = options.kernel ?? 'auto';
   if (!KERNEL_PREFERENCES.includes(kernel))
     throw new EstimationOptionsError(`unknown kernel ${String(kernel)}`, 'kernel');

@@ -29,6 +29,7 @@ import { analyseInformation } from '../linalg/analyse-information';
 import { evaluateMnl } from './mnl-likelihood';
 import { computeMnlHitRate } from './mnl-hit-rate';
 import { getColumnScales, gradientToUser, scaleChoiceData } from './parameter-scaling';
+import { checkHoldout } from './shared-option-checks';
 
 export interface MnlOptions {
   /** Newton iterations allowed (default 100). */
@@ -107,13 +108,7 @@ export function checkMnlOptions(data: ChoiceData, options: MnlOptions = {}): Che
       start[k] = options.start[k];
     }
   }
-  const holdout = options.holdout ?? null;
-  if (holdout && holdout.columns.join('\u0000') !== data.columns.join('\u0000')) {
-    throw new EstimationOptionsError(
-      'holdout data must have the same columns as the estimation data',
-      'holdout',
-    );
-  }
+  const holdout = checkHoldout(data, options.holdout);
   return { maxIterations, tolerance, gradientTolerance, start, holdout, covariance };
 }
 

@@ -19,6 +19,7 @@ import { EstimationCancelledError, EstimationOptionsError } from './estimation-e
 import type { MixedLogitLayout } from './mixed-logit-layout';
 import { getPopulationMoments, type PopulationMoment } from './population-moments';
 import { getProfileWidth } from './profile-moments';
+import { resolveCostIndex } from './shared-option-checks';
 
 export interface TasteProfileOptions {
   /** Draws per respondent (default 2000). */
@@ -71,13 +72,10 @@ export function checkTasteProfileOptions(
     seed: options.seed ?? 7,
     scrambled: options.scrambled ?? true,
   };
-  const cost =
-    options.cost === undefined ? -1 : layout.coefficients.findIndex((c) => c.name === options.cost);
-  if (cost < 0 && options.cost !== undefined)
-    throw new EstimationOptionsError(
-      `cost coefficient ${options.cost} is not in the model`,
-      'cost',
-    );
+  const cost = resolveCostIndex(
+    layout.coefficients.map((c) => c.name),
+    options.cost,
+  );
   if (theta.length !== layout.P)
     throw new EstimationOptionsError(`theta must have ${layout.P} values`, 'theta');
   return { draws, cost, theta: Float64Array.from(theta), kernel: options.kernel ?? 'auto' };

@@ -8,6 +8,7 @@
  */
 import type { ChoiceData } from '../estimation/choice-data';
 import { EstimationOptionsError } from '../estimation/estimation-errors';
+import { checkHoldout, resolveCostIndex } from '../estimation/shared-option-checks';
 
 export const HB_DISTRIBUTIONS = ['normal', 'lognormal', 'neg_lognormal', 'fixed'] as const;
 export type HbDistribution = (typeof HB_DISTRIBUTIONS)[number];
@@ -228,18 +229,8 @@ export function checkHbOptions(data: ChoiceData, options: HbOptions): CheckedHbO
       'mcmc.thin',
     );
   assertEnoughTasksForHb(data);
-  const cost = options.cost === undefined ? -1 : layout.names.indexOf(options.cost);
-  if (options.cost !== undefined && cost < 0)
-    throw new EstimationOptionsError(
-      `cost coefficient ${options.cost} is not in the model`,
-      'cost',
-    );
-  const holdout = options.holdout ?? null;
-  if (holdout && holdout.columns.join('\u0000') !== data.columns.join('\u0000'))
-    throw new EstimationOptionsError(
-      'holdout data must have the same columns as the estimation data',
-      'holdout',
-    );
+  const cost = resolveCostIndex(layout.names, options.cost);
+  const holdout = checkHoldout(data, options.holdout);
   return {
     layout,
     correlated,

@@ -6,6 +6,7 @@
  */
 import type { ChoiceData } from '../estimation/choice-data';
 import { EstimationOptionsError } from '../estimation/estimation-errors';
+import { checkHoldout, resolveCostIndex } from '../estimation/shared-option-checks';
 
 export const LC_MIN_TASKS = 2;
 export const LC_MAX_CLASSES = 8;
@@ -125,18 +126,8 @@ export function checkLatentClassOptions(
     );
   // The largest model decides identifiability; a range stops at what the data can carry.
   assertClassesIdentifiable(data, hi, names.length, M);
-  const cost = options.cost === undefined ? -1 : names.indexOf(options.cost);
-  if (options.cost !== undefined && cost < 0)
-    throw new EstimationOptionsError(
-      `cost coefficient ${options.cost} is not in the model`,
-      'cost',
-    );
-  const holdout = options.holdout ?? null;
-  if (holdout && holdout.columns.join('\u0000') !== data.columns.join('\u0000'))
-    throw new EstimationOptionsError(
-      'holdout data must have the same columns as the estimation data',
-      'holdout',
-    );
+  const cost = resolveCostIndex(names, options.cost);
+  const holdout = checkHoldout(data, options.holdout);
   return {
     names,
     column,

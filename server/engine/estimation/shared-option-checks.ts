@@ -1,0 +1,29 @@
+/**
+ * Option checks every estimator makes alike (MNL, mixed logit, HB, latent class, taste
+ * profiles): the cost coefficient must be one of the model's, and holdout data must have the
+ * estimation data's columns. One place, so the messages and fields stay the same everywhere.
+ */
+import type { ChoiceData } from './choice-data';
+import { EstimationOptionsError } from './estimation-errors';
+
+/** Index of the cost coefficient among `names`; −1 when no cost is given. */
+export function resolveCostIndex(names: readonly string[], cost: string | undefined): number {
+  if (cost === undefined) return -1;
+  const index = names.indexOf(cost);
+  if (index < 0)
+    throw new EstimationOptionsError(`cost coefficient ${cost} is not in the model`, 'cost');
+  return index;
+}
+
+/** The holdout data (or null) after checking it has the estimation data's columns. */
+export function checkHoldout<H extends Pick<ChoiceData, 'columns'>>(
+  data: Pick<ChoiceData, 'columns'>,
+  holdout: H | null | undefined,
+): H | null {
+  if (holdout && holdout.columns.join('\u0000') !== data.columns.join('\u0000'))
+    throw new EstimationOptionsError(
+      'holdout data must have the same columns as the estimation data',
+      'holdout',
+    );
+  return holdout ?? null;
+}

@@ -104,9 +104,12 @@ export function formatAmount(
   const currency = getCurrencyCode(unit);
   const min = trim ? 0 : decimals;
   if (currency) {
-    const f = numberFormat(`m${currency}${min}.${decimals}`, {
+    // A typed symbol stays that symbol ("$15", not "US$15"); a typed code shows Intl's symbol.
+    const narrow = SYMBOLS[unit?.trim() ?? ''] !== undefined;
+    const f = numberFormat(`m${currency}${narrow ? 'n' : ''}${min}.${decimals}`, {
       style: 'currency',
       currency,
+      currencyDisplay: narrow ? 'narrowSymbol' : 'symbol',
       minimumFractionDigits: min,
       maximumFractionDigits: decimals,
     });

@@ -9,7 +9,8 @@ import { CONSENT_PLACEHOLDER } from '../../shared/schemas/questionnaire-defaults
 import type { FieldworkSettings, ReadinessProblem } from '../../shared/schemas/study-lifecycle';
 import { studyDefinitionSchema, type StudyDefinition } from '../../shared/schemas/study-definition';
 import { checkConsentIdentifiability, type Identifiability } from './consent-checks';
-import { checkLevelLabel, formatNumber, getLevelLabel } from '../../shared/study/level-labels';
+import { checkLevelLabel, getLevelLabel } from '../../shared/study/level-labels';
+import { formatCompact } from '../../shared/format';
 import { listUnshownLevels } from '../engine/design/diagnostics/level-balance';
 
 type Input = {
@@ -76,7 +77,7 @@ function checkLevelLabels(definition: StudyDefinition): ReadinessProblem[] {
             {
               code: 'level_label_mismatch',
               path: `definition.attributes.${i}.levels.${k}.label`,
-              message: `${a.name}: the level shown as “${l.label.trim()}” is coded as ${formatNumber(l.value!)}. Correct or clear the label on Attributes, or confirm it is meant for this value.`,
+              message: `${a.name}: the level shown as “${l.label.trim()}” is coded as ${formatCompact(l.value!)}. Correct or clear the label on Attributes, or confirm it is meant for this value.`,
             },
           ]
         : [],

@@ -1,24 +1,19 @@
 /**
  * What respondents read for a level. Numeric levels are written from their value and unit
- * (currency symbols before the number, other units after it) unless the researcher typed an
+ * (shared/format.ts: money through Intl's currency style, other units after the number) unless the researcher typed an
  * override. An override that no longer shows its coded value is a data-integrity problem:
  * respondents would see one number while the model codes another. The editor flags it and
  * the go-live check refuses it unless the researcher confirmed that label for that value.
  */
 import type { Attribute, Level } from '../schemas/study-definition';
+import { formatAmount } from '../format';
 
-const PREFIX_UNITS = new Set(['€', '$', '£', '¥', 'CHF', 'kr']);
-
-export function formatNumber(value: number): string {
-  return new Intl.NumberFormat('en-GB', { maximumFractionDigits: 2 }).format(value);
-}
-
-/** The label a numeric level gets from its value and unit. */
+/**
+ * The label a numeric level gets from its value and unit: the product's one amount format
+ * (shared/format.ts), at most two decimals and no trailing zeros ("€15", "−€3", "2.5 km").
+ */
 export function formatNumericLevel(value: number, unit?: string): string {
-  const u = unit?.trim() ?? '';
-  if (!u) return formatNumber(value);
-  if (PREFIX_UNITS.has(u)) return `${value < 0 ? '−' : ''}${u}${formatNumber(Math.abs(value))}`;
-  return `${formatNumber(value)} ${u}`;
+  return formatAmount(value, unit, 2, true);
 }
 
 type LabelledAttribute = Pick<Attribute, 'kind' | 'unit'>;

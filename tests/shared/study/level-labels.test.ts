@@ -10,6 +10,7 @@ import {
   labelShowsValue,
   readNumbersInLabel,
 } from '../../../shared/study/level-labels';
+import { formatAmount } from '../../../shared/format';
 
 const bill = { kind: 'numeric' as const, unit: '€' };
 
@@ -19,6 +20,19 @@ describe('getLevelLabel', () => {
     expect(getLevelLabel(bill, { id: 'b', label: ' No increase ', value: 0 })).toBe('No increase');
     expect(formatNumericLevel(-3, '€')).toBe('−€3');
     expect(formatNumericLevel(1250.5, 'days')).toBe('1,250.5 days');
+  });
+
+  it('writes amounts with the product formatter: the typed symbol, trailing zeros dropped', () => {
+    // One formatter for levels and results (shared/format.ts formatAmount, Intl.NumberFormat).
+    expect(formatNumericLevel(15, '$')).toBe('$15');
+    expect(formatNumericLevel(2.5, '£')).toBe('£2.5');
+    expect(formatNumericLevel(12.25, 'EUR')).toBe('€12.25');
+    expect(formatNumericLevel(15, 'CHF')).toMatch(/^CHF\s15$/);
+    expect(formatNumericLevel(-2, 'km')).toBe('−2 km');
+    expect(formatNumericLevel(1000, '')).toBe('1,000');
+    expect(formatNumericLevel(1000, '€')).toBe(formatAmount(1000, '€', 2, true));
+    for (const unit of ['€', '$', 'CHF', 'km', ''])
+      expect(labelShowsValue(formatNumericLevel(-1234.5, unit), -1234.5)).toBe(true);
   });
 });
 

@@ -1,6 +1,7 @@
 import { useId, useState, type ReactNode } from 'react';
 import type { Attribute, Level } from '@shared/schemas/study-definition';
-import { checkLevelLabel, formatNumber, formatNumericLevel } from '@shared/study/level-labels';
+import { checkLevelLabel, formatNumericLevel } from '@shared/study/level-labels';
+import { formatCompact } from '@shared/format';
 import { ApiError } from '@/lib/api-client';
 import type { FieldErrors } from '../utils/field-errors';
 import { confirmLevelLabel } from '../utils/definition-drafts';
@@ -188,7 +189,7 @@ function LabelDrift(props: {
     >
       <p>
         {confirmed ? 'Confirmed: ' : 'Check this label: '}respondents see “{label}” while the model
-        codes {formatNumber(value)}. Clear it to show “{derived}”.
+        codes {formatCompact(value)}. Clear it to show “{derived}”.
       </p>
       <label className="mt-1 flex items-center gap-2 font-medium">
         <input
@@ -198,7 +199,7 @@ function LabelDrift(props: {
           disabled={readOnly}
           onChange={(e) => onConfirm(e.target.checked)}
         />
-        “{label}” is meant for the value {formatNumber(value)}
+        “{label}” is meant for the value {formatCompact(value)}
       </label>
     </div>
   );

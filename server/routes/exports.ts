@@ -10,21 +10,37 @@ import { actorOf, memberOf, requireTeam, requireUser } from '../middleware/auth'
 import { studyParamsSchema } from '../services/study-access';
 import {
   covarianceQuerySchema,
+  estimateTableQuerySchema,
   exportRunQuerySchema,
   optionalRunQuerySchema,
 } from '../../shared/schemas/exports';
-import * as exportsService from '../services/exports';
+import type { Download } from '../services/exports/download';
+import { auditPersonalDownload } from '../services/exports/audit-download';
+import { getExportManifest } from '../services/exports/manifest';
+import {
+  exportProfilesCsv,
+  exportProfilesXlsx,
+  exportRunReport,
+} from '../services/exports/profiles-export';
+import { exportCovarianceCsv } from '../services/exports/covariance-export';
+import { exportChoicesCsv } from '../services/exports/choices-export';
+import { exportDesign } from '../services/exports/design-export';
+import { exportAnswerHistoryCsv, exportAnswersCsv } from '../services/exports/respondent-exports';
 import { exportRandomisationCsv } from '../services/exports/randomisation-export';
+import {
+  exportEstimateTableCsv,
+  exportEstimateTablesXlsx,
+} from '../services/exports/estimate-tables-export';
 
 async function send(
   deps: AppDeps,
   req: Request,
   res: Response,
-  file: exportsService.Download,
+  file: Download,
   inline = false,
 ): Promise<void> {
   const { studyId } = parseParams(studyParamsSchema, req);
-  await exportsService.auditPersonalDownload(deps, memberOf(req), actorOf(req), studyId, file);
+  await auditPersonalDownload(deps, memberOf(req), actorOf(req), studyId, file);
   res.setHeader('Content-Type', file.contentType);
   res.setHeader('Cache-Control', 'no-store');
   res.setHeader('X-Content-Type-Options', 'nosniff');
@@ -35,81 +51,64 @@ async function send(
   res.send(file.body);
 }
 
+type RunDownload = (
+  deps: AppDeps,
+  member: ReturnType<typeof memberOf>,
+  studyId: string,
+  runId: string,
+) => Promise<Download>;
+
+type StudyDownload = (
+  deps: AppDeps,
+  member: ReturnType<typeof memberOf>,
+  studyId: string,
+) => Promise<Download>;
+
 export function createExportsRouter(deps: AppDeps): Router {
   const router = Router({ mergeParams: true });
   router.use(requireUser(deps));
   const read = requireTeam(deps, 'exports:read');
 
+  /** A download of one finished run (?runId=). */
+  const runFile = (path: string, make: RunDownload, inline = false) =>
+    router.get(path, read, async (req, res) => {
+      const { studyId } = parseParams(studyParamsSchema, req);
+      const { runId } = parseQuery(exportRunQuerySchema, req);
+      send(deps, req, res, await make(deps, memberOf(req), studyId, runId), inline);
+    });
+  /** A download of the study's data. */
+  const studyFile = (path: string, make: StudyDownload) =>
+    router.get(path, read, async (req, res) => {
+      const { studyId } = parseParams(studyParamsSchema, req);
+      send(deps, req, res, await make(deps, memberOf(req), studyId));
+    });
+
   router.get('/', read, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
-    res.json(await exportsService.getExportManifest(deps, memberOf(req), studyId));
+    res.json(await getExportManifest(deps, memberOf(req), studyId));
   });
-  router.get('/taste-profiles.csv', read, async (req, res) => {
+  runFile('/taste-profiles.csv', exportProfilesCsv);
+  runFile('/taste-profiles.xlsx', exportProfilesXlsx);
+  runFile('/estimates.xlsx', exportEstimateTablesXlsx);
+  runFile('/run-report.html', exportRunReport, true);
+  router.get('/estimates.csv', read, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
-    const { runId } = parseQuery(exportRunQuerySchema, req);
-    send(
-      deps,
-      req,
-      res,
-      await exportsService.exportProfilesCsv(deps, memberOf(req), studyId, runId),
-    );
-  });
-  router.get('/taste-profiles.xlsx', read, async (req, res) => {
-    const { studyId } = parseParams(studyParamsSchema, req);
-    const { runId } = parseQuery(exportRunQuerySchema, req);
-    send(
-      deps,
-      req,
-      res,
-      await exportsService.exportProfilesXlsx(deps, memberOf(req), studyId, runId),
-    );
+    const { runId, table } = parseQuery(estimateTableQuerySchema, req);
+    send(deps, req, res, await exportEstimateTableCsv(deps, memberOf(req), studyId, runId, table));
   });
   router.get('/covariance.csv', read, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const { runId, kind } = parseQuery(covarianceQuerySchema, req);
-    send(
-      deps,
-      req,
-      res,
-      await exportsService.exportCovarianceCsv(deps, memberOf(req), studyId, runId, kind),
-    );
-  });
-  router.get('/run-report.html', read, async (req, res) => {
-    const { studyId } = parseParams(studyParamsSchema, req);
-    const { runId } = parseQuery(exportRunQuerySchema, req);
-    send(
-      deps,
-      req,
-      res,
-      await exportsService.exportRunReport(deps, memberOf(req), studyId, runId),
-      true,
-    );
+    send(deps, req, res, await exportCovarianceCsv(deps, memberOf(req), studyId, runId, kind));
   });
   router.get('/choices.csv', read, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const { runId } = parseQuery(optionalRunQuerySchema, req);
-    send(
-      deps,
-      req,
-      res,
-      await exportsService.exportChoicesCsv(deps, memberOf(req), studyId, runId),
-    );
+    send(deps, req, res, await exportChoicesCsv(deps, memberOf(req), studyId, runId));
   });
-  router.get('/design.csv', read, async (req, res) => {
-    const { studyId } = parseParams(studyParamsSchema, req);
-    send(deps, req, res, await exportsService.exportDesign(deps, memberOf(req), studyId));
-  });
-  router.get('/background-answers.csv', read, async (req, res) => {
-    const { studyId } = parseParams(studyParamsSchema, req);
-    send(deps, req, res, await exportsService.exportAnswersCsv(deps, memberOf(req), studyId));
-  });
-  router.get('/randomisation.csv', read, async (req, res) => {
-    const { studyId } = parseParams(studyParamsSchema, req);
-    send(deps, req, res, await exportRandomisationCsv(deps, memberOf(req), studyId));
-  });
-  router.get('/answer-history.csv', read, async (req, res) => {
-    const { studyId } = parseParams(studyParamsSchema, req);
-    send(deps, req, res, await exportsService.exportAnswerHistoryCsv(deps, memberOf(req), studyId));
-  });
+  studyFile('/design.csv', exportDesign);
+  studyFile('/background-answers.csv', exportAnswersCsv);
+  studyFile('/randomisation.csv', exportRandomisationCsv);
+  studyFile('/answer-history.csv', exportAnswerHistoryCsv);
   return router;
 }

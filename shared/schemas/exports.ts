@@ -8,6 +8,11 @@ export const exportRunQuerySchema = z.object({ runId: z.uuid('Choose a finished 
 export const covarianceQuerySchema = exportRunQuerySchema.extend({
   kind: z.enum(['classical', 'robust']).default('robust'),
 });
+export const estimateTableNames = ['estimates', 'wtp', 'fit', 'codebook'] as const;
+export type EstimateTableName = (typeof estimateTableNames)[number];
+export const estimateTableQuerySchema = exportRunQuerySchema.extend({
+  table: z.enum(estimateTableNames, 'Choose estimates, wtp, fit or codebook'),
+});
 export const optionalRunQuerySchema = z.object({
   runId: z.uuid('Choose a finished run').optional(),
 });

@@ -13,8 +13,8 @@ import type { Table } from './profile-table';
 import { buildCovarianceTable, describeCovariance } from './covariance-table';
 import { getRunSummary } from './run-summary';
 import { getMethodsSections } from './methods-sections';
+import { addAboutSheet } from './documented-xlsx';
 
-export const ABOUT_SHEET = 'About';
 export const PROFILES_SHEET = 'Profiles';
 export const METHODS_SHEET = 'Methods';
 
@@ -27,14 +27,7 @@ export async function writeProfilesXlsx(
   workbook.creator = 'Choicewright';
   workbook.created = exportedAt;
 
-  const about = workbook.addWorksheet(ABOUT_SHEET);
-  about.columns = [
-    { header: 'About this file', key: 'item', width: 48 },
-    { header: '', key: 'value', width: 110 },
-  ];
-  about.getRow(1).font = { bold: true };
-  for (const [item, value] of getRunSummary(ctx, exportedAt)) about.addRow({ item, value });
-  about.getColumn('value').alignment = { wrapText: true, vertical: 'top' };
+  addAboutSheet(workbook, getRunSummary(ctx, exportedAt));
 
   const profiles = workbook.addWorksheet(PROFILES_SHEET, {
     views: [{ state: 'frozen', ySplit: 1 }],

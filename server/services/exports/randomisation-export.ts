@@ -4,7 +4,7 @@ import { loadStudy } from '../study-access';
 import type { Member } from '../tastes/run-context';
 import { listStudyRespondents } from '../../../db/queries/exports';
 import { writeCsv } from '../../lib/safe-csv';
-import { CSV, fileName, type Download } from '../exports';
+import { CSV, fileName, type Download } from './download';
 import { buildRandomisationRows, randomisationHeader } from './randomisation-table';
 
 export async function exportRandomisationCsv(

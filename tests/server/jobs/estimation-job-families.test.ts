@@ -6,7 +6,7 @@
  */
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { parse } from 'csv-parse/sync';
-import ExcelJS from 'exceljs';
+import { downloadXlsx } from '../../support/download-xlsx';
 import { createTestApp, type TestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { listTasteProfiles } from '../../../db/queries/taste-profiles';
@@ -150,23 +150,13 @@ describe('GET /tastes/compare', () => {
   });
 });
 
-/** Reads a binary response body into a Buffer. */
-const binary = (res: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on('data', (c: Buffer) => chunks.push(c));
-  res.on('end', () => cb(null, Buffer.concat(chunks)));
-};
-
 /** The Methods sheet as rows of cell values (empty rows dropped). */
 async function loadMethods(runId: string): Promise<unknown[][]> {
-  const res = await team.agents.viewer
-    .get(`/api/teams/${team.teamId}/studies/${study.studyId}/exports/taste-profiles.xlsx`)
-    .query({ runId })
-    .buffer(true)
-    .parse(binary as never)
-    .expect(200);
-  const workbook = new ExcelJS.Workbook();
-  await workbook.xlsx.load(res.body as Parameters<typeof workbook.xlsx.load>[0]);
+  const { workbook } = await downloadXlsx(
+    team.agents.viewer,
+    `/api/teams/${team.teamId}/studies/${study.studyId}/exports/taste-profiles.xlsx`,
+    { runId },
+  );
   expect(workbook.worksheets.map((w) => w.name).slice(0, 3)).toEqual([
     'About',
     'Profiles',

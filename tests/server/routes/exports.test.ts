@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { parse } from 'csv-parse/sync';
-import ExcelJS from 'exceljs';
 import type supertest from 'supertest';
+import { downloadXlsx } from '../../support/download-xlsx';
 import { createTestApp, type TestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import type { Role } from '../../../shared/permissions';
@@ -24,23 +24,8 @@ afterAll(async () => {
 
 const as = (role: Role): supertest.Agent => team.agents[role];
 
-/** Reads a binary response body into a Buffer. */
-const binary = (res: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on('data', (c: Buffer) => chunks.push(c));
-  res.on('end', () => cb(null, Buffer.concat(chunks)));
-};
-
 async function loadXlsx(agent: supertest.Agent) {
-  const res = await agent
-    .get(`${base}/taste-profiles.xlsx`)
-    .query({ runId: seeded.runId })
-    .buffer(true)
-    .parse(binary as never)
-    .expect(200);
-  const workbook = new ExcelJS.Workbook();
-  await workbook.xlsx.load(res.body as Parameters<typeof workbook.xlsx.load>[0]);
-  return { res, workbook };
+  return downloadXlsx(agent, `${base}/taste-profiles.xlsx`, { runId: seeded.runId });
 }
 
 describe('GET /exports/taste-profiles.csv', () => {

@@ -25,7 +25,7 @@ export function DownloadList({ items }: { items: DownloadItem[] }) {
             )}
           </div>
           {!item.disabledReason && (
-            <div className="flex shrink-0 flex-wrap gap-2">
+            <div className="flex flex-wrap gap-2 sm:max-w-[45%] sm:shrink-0 sm:justify-end">
               {item.links.map((l) => (
                 <a
                   key={l.label}

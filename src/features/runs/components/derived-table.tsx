@@ -5,7 +5,7 @@
  */
 import type { RunResult } from '@shared/schemas/run';
 import { formatInterval, formatNumber } from '@/utils/format';
-import { describeDerived, getLabelOf } from '../utils/parameter-labels';
+import { describeDerived, getLabelOf } from '@shared/results/parameter-labels';
 
 /** Covariances and correlations are shown as matrices (implied-covariance.tsx). */
 const inMatrix = (q: string) => q === 'covariance' || q === 'correlation';

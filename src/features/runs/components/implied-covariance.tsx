@@ -5,7 +5,7 @@
  */
 import type { RunResult } from '@shared/schemas/run';
 import { formatNumber } from '@/utils/format';
-import { getLabelOf } from '../utils/parameter-labels';
+import { getLabelOf } from '@shared/results/parameter-labels';
 
 type Derived = NonNullable<RunResult['derived']>[number];
 

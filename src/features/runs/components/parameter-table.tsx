@@ -5,17 +5,12 @@
  */
 import type { RunResult } from '@shared/schemas/run';
 import { formatInterval, formatNumber, formatPValue } from '@/utils/format';
-import { twoSidedP } from '../utils/stats';
-import { describeParameter, getLabelOf } from '../utils/parameter-labels';
-import { isSpreadParameter, showSpread, SPREAD_NOTE } from '../utils/spread';
-
-const Z95 = 1.959964;
+import { getParameterRows } from '@shared/results/parameter-rows';
+import { isSpreadParameter, SPREAD_NOTE } from '@shared/results/spread';
 
 export function ParameterTable({ results }: { results: RunResult }) {
   // HB: posterior mean and SD over the kept draws; t and p belong to the classical fits.
   const bayes = results.model === 'hb';
-  const labelOf = getLabelOf(results);
-  const distribution = new Map(results.population.map((m) => [m.name, m.distribution]));
   const hasSpreads = results.estimates.some((e) => isSpreadParameter(e.name));
   return (
     <div className="overflow-x-auto">
@@ -37,42 +32,29 @@ export function ParameterTable({ results }: { results: RunResult }) {
           </tr>
         </thead>
         <tbody>
-          {results.estimates.map((e) => {
-            const se = e.robustSe ?? e.se;
-            const spread = isSpreadParameter(e.name);
-            const lower = se ? e.estimate - Z95 * se : null;
-            const upper = se ? e.estimate + Z95 * se : null;
-            const shown = spread
-              ? showSpread(e.estimate, lower, upper)
-              : { value: e.estimate, lower, upper };
-            const t = se ? shown.value / se : null;
-            const { label, part } = describeParameter(e.name, labelOf, (c) => distribution.get(c));
-            return (
-              <tr key={e.name} className="border-b border-line/60 last:border-b-0">
-                <th scope="row" className="px-2 py-1.5 text-left font-normal">
-                  <span className="block text-ink">
-                    {label}
-                    {part && <span className="text-ink-muted"> — {part}</span>}
-                  </span>
-                  <span className="block font-mono text-xs text-ink-muted">{e.name}</span>
-                </th>
-                <td className="num px-2 py-1.5">
-                  {spread ? `|s| ${formatNumber(shown.value)}` : formatNumber(shown.value)}
-                </td>
-                <td className="num px-2 py-1.5">{formatNumber(e.se)}</td>
-                {!bayes && (
-                  <>
-                    <td className="num px-2 py-1.5">{formatNumber(e.robustSe)}</td>
-                    <td className="num px-2 py-1.5">{formatNumber(t, 2)}</td>
-                    <td className="num px-2 py-1.5">
-                      {formatPValue(t === null ? null : twoSidedP(t))}
-                    </td>
-                  </>
-                )}
-                <td className="num px-2 py-1.5">{formatInterval(shown.lower, shown.upper)}</td>
-              </tr>
-            );
-          })}
+          {getParameterRows(results).map((row) => (
+            <tr key={row.name} className="border-b border-line/60 last:border-b-0">
+              <th scope="row" className="px-2 py-1.5 text-left font-normal">
+                <span className="block text-ink">
+                  {row.label}
+                  {row.part && <span className="text-ink-muted"> — {row.part}</span>}
+                </span>
+                <span className="block font-mono text-xs text-ink-muted">{row.name}</span>
+              </th>
+              <td className="num px-2 py-1.5">
+                {row.spread ? `|s| ${formatNumber(row.estimate)}` : formatNumber(row.estimate)}
+              </td>
+              <td className="num px-2 py-1.5">{formatNumber(row.se)}</td>
+              {!bayes && (
+                <>
+                  <td className="num px-2 py-1.5">{formatNumber(row.robustSe)}</td>
+                  <td className="num px-2 py-1.5">{formatNumber(row.t, 2)}</td>
+                  <td className="num px-2 py-1.5">{formatPValue(row.p)}</td>
+                </>
+              )}
+              <td className="num px-2 py-1.5">{formatInterval(row.lower, row.upper)}</td>
+            </tr>
+          ))}
         </tbody>
       </table>
       <p className="mt-2 text-xs text-ink-muted">

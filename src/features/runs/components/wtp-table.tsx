@@ -7,7 +7,7 @@
 import type { RunResult } from '@shared/schemas/run';
 import { Alert } from '@/components/ui/feedback';
 import { formatAmount, formatInterval } from '@/utils/format';
-import { getLabelOf } from '../utils/parameter-labels';
+import { getLabelOf, getWtpHeadings } from '@shared/results/parameter-labels';
 
 type Interval = {
   estimate: number;
@@ -42,21 +42,6 @@ function Cells({ w, unit }: { w: Interval | null | undefined; unit: string | nul
       </td>
     </>
   );
-}
-
-/** "WTP at population means" (no taste varies) or the population mean and median WTP. */
-export function getWtpHeadings(results: RunResult): { mean: string; median: string | null } {
-  const wtp = results.wtp ?? [];
-  const varies = results.population.some((m) => m.distribution !== 'fixed');
-  // With fixed coefficients the median equals the mean: one set of columns is enough.
-  const hasMedian = wtp.some(
-    (w) => w.median && Math.abs(w.median.estimate - w.estimate) > 1e-9 * Math.abs(w.estimate),
-  );
-  if (!varies) return { mean: 'WTP at population means', median: null };
-  return {
-    mean: 'Population mean WTP',
-    median: hasMedian ? 'Population median WTP' : null,
-  };
 }
 
 export function WtpTable({ results }: { results: RunResult }) {

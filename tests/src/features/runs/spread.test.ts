@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { isSpreadParameter, showSpread } from '@/features/runs/utils/spread';
+import { isSpreadParameter, showSpread } from '@shared/results/spread';
 
 // s and −s give the same model (s·η with η symmetric about zero), so the reported spread is |s|
 // and its interval is the interval of s carried over to |s| (common practice, no source).

@@ -30,6 +30,20 @@ export function Component() {
 
   const runItems: DownloadItem[] = [
     {
+      key: 'estimates',
+      title: 'Estimates, WTP and fit',
+      description:
+        'The parameter, WTP and fit tables as on the Estimates screen, with readable names, units and 95 % intervals. The XLSX sets number formats and has a codebook sheet; each CSV is one table, and the codebook CSV explains every column.',
+      links: [
+        { label: 'XLSX', href: `${base}/estimates.xlsx${q}` },
+        { label: 'Estimates CSV', href: `${base}/estimates.csv${q}&table=estimates` },
+        { label: 'WTP CSV', href: `${base}/estimates.csv${q}&table=wtp` },
+        { label: 'Fit CSV', href: `${base}/estimates.csv${q}&table=fit` },
+        { label: 'Codebook CSV', href: `${base}/estimates.csv${q}&table=codebook` },
+      ],
+      disabledReason: noRun,
+    },
+    {
       key: 'profiles',
       title: 'Taste profiles',
       description:

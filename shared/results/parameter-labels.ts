@@ -2,7 +2,7 @@
  * Readable names for a run's parameters and derived quantities, from the study's column labels
  * ("Supply interruptions per year — spread (SD)"), never the coefficient codes.
  */
-import type { RunResult } from '@shared/schemas/run';
+import type { RunResult } from '../schemas/run';
 
 export type LabelOf = (coefficient: string) => string;
 
@@ -65,4 +65,19 @@ export function describeDerived(d: Derived, labelOf: LabelOf): string {
     default:
       return d.label;
   }
+}
+
+/** "WTP at population means" (no taste varies) or the population mean and median WTP. */
+export function getWtpHeadings(results: RunResult): { mean: string; median: string | null } {
+  const wtp = results.wtp ?? [];
+  const varies = results.population.some((m) => m.distribution !== 'fixed');
+  // With fixed coefficients the median equals the mean: one set of columns is enough.
+  const hasMedian = wtp.some(
+    (w) => w.median && Math.abs(w.median.estimate - w.estimate) > 1e-9 * Math.abs(w.estimate),
+  );
+  if (!varies) return { mean: 'WTP at population means', median: null };
+  return {
+    mean: 'Population mean WTP',
+    median: hasMedian ? 'Population median WTP' : null,
+  };
 }

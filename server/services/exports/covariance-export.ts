@@ -1,0 +1,31 @@
+/** The run's classical or robust covariance matrix of the estimates (user units) as CSV. */
+import type { AppDeps } from '../../deps';
+import { ConflictError } from '../../lib/errors';
+import { loadRunContext, type Member } from '../tastes/run-context';
+import { writeCsv } from '../../lib/safe-csv';
+import { buildCovarianceTable, type CovarianceKind } from './covariance-table';
+import { CSV, fileName, type Download } from './download';
+
+export async function exportCovarianceCsv(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  runId: string,
+  kind: CovarianceKind,
+  at = new Date(),
+): Promise<Download> {
+  const ctx = await loadRunContext(deps, member, studyId, runId);
+  const table = buildCovarianceTable(ctx.results, kind);
+  if (!table)
+    throw new ConflictError(
+      'covariance_unavailable',
+      kind === 'robust' && ctx.results.covariance?.method === 'bhhh'
+        ? 'This run used the BHHH covariance, which has no robust (sandwich) form.'
+        : 'This run has no stored covariance matrix of this kind; run it again to get one.',
+    );
+  return {
+    filename: fileName(ctx.study.name, `covariance-${kind}`, 'csv', at),
+    contentType: CSV,
+    body: writeCsv(table.header, table.rows),
+  };
+}

@@ -1,0 +1,26 @@
+/** The design of the newest live version as CSV (server/engine/design/export-design-csv.ts). */
+import { getLatestVersion } from '../../../db/queries/versions';
+import type { AppDeps } from '../../deps';
+import { NotFoundError } from '../../lib/errors';
+import { loadStudy } from '../study-access';
+import type { StudyDefinition } from '../../../shared/schemas/study-definition';
+import type { Design } from '../../../shared/schemas/design';
+import { exportDesignCsv } from '../../engine/design/export-design-csv';
+import type { Member } from '../tastes/run-context';
+import { CSV, fileName, type Download } from './download';
+
+export async function exportDesign(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  at = new Date(),
+): Promise<Download> {
+  const study = await loadStudy(deps, member.teamId, studyId);
+  const version = await getLatestVersion(deps.db, { studyId });
+  if (!version) throw new NotFoundError('Frozen design');
+  return {
+    filename: fileName(study.name, 'design', 'csv', at),
+    contentType: CSV,
+    body: exportDesignCsv(version.definition as StudyDefinition, version.design as Design),
+  };
+}

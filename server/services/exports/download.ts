@@ -1,0 +1,24 @@
+/** What every download use case returns, and the file names and content types they share. */
+export type Download = {
+  filename: string;
+  contentType: string;
+  body: string | Buffer;
+  /** Holds personal columns (external ids, personal answers): the download is audited. */
+  personal?: boolean;
+};
+
+export const CSV = 'text/csv; charset=utf-8';
+export const XLSX = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
+export const HTML = 'text/html; charset=utf-8';
+/** R scripts are plain text; the .R extension makes R and RStudio open them. */
+export const R_SCRIPT = 'text/plain; charset=utf-8';
+
+/** "<study slug>-<kind>-<yyyy-mm-dd>.<ext>", the study name cut to 60 safe characters. */
+export function fileName(studyName: string, kind: string, ext: string, at: Date): string {
+  const slug = studyName
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-|-$/g, '')
+    .slice(0, 60);
+  return `${slug || 'study'}-${kind}-${at.toISOString().slice(0, 10)}.${ext}`;
+}

@@ -1,0 +1,88 @@
+/**
+ * The estimate tables of a run as files to hand on: one XLSX (About, Estimates, WTP, Fit,
+ * Codebook) or one CSV per table, the codebook included (estimate-tables.ts).
+ */
+import ExcelJS from 'exceljs';
+import type { AppDeps } from '../../deps';
+import { ConflictError } from '../../lib/errors';
+import { writeCsv } from '../../lib/safe-csv';
+import { loadRunContext, type Member, type RunContext } from '../tastes/run-context';
+import { getRunSummary } from './run-summary';
+import { buildEstimateTables, buildWtpTable } from './estimate-tables';
+import { buildCodebookRows, codebookHeader, type DocumentedTable } from './documented-table';
+import { addAboutSheet, addCodebookSheet, addTableSheet } from './documented-xlsx';
+import { CSV, XLSX, fileName, type Download } from './download';
+import type { EstimateTableName } from '../../../shared/schemas/exports';
+
+const SHEET_TITLES: Record<string, string> = { estimates: 'Estimates', wtp: 'WTP', fit: 'Fit' };
+
+export async function writeEstimateTablesXlsx(
+  ctx: RunContext,
+  tables: readonly DocumentedTable[],
+  at: Date,
+): Promise<Buffer> {
+  const workbook = new ExcelJS.Workbook();
+  workbook.creator = 'Choicewright';
+  workbook.created = at;
+  addAboutSheet(workbook, getRunSummary(ctx, at));
+  for (const table of tables) {
+    const sheet = addTableSheet(workbook, SHEET_TITLES[table.name], table, ctx.header.costUnit);
+    if (table.name === 'wtp' && table.rows.length === 0)
+      sheet.addRow([ctx.results.wtpWithheld ?? 'This run gives no WTP.']);
+  }
+  addCodebookSheet(workbook, tables);
+  return Buffer.from(await workbook.xlsx.writeBuffer());
+}
+
+export async function exportEstimateTablesXlsx(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  runId: string,
+  at = new Date(),
+): Promise<Download> {
+  const ctx = await loadRunContext(deps, member, studyId, runId);
+  return {
+    filename: fileName(ctx.study.name, 'estimates', 'xlsx', at),
+    contentType: XLSX,
+    body: await writeEstimateTablesXlsx(ctx, buildEstimateTables(ctx), at),
+  };
+}
+
+/** One table (or the codebook of all of them) as CSV. */
+export async function exportEstimateTableCsv(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  runId: string,
+  name: EstimateTableName,
+  at = new Date(),
+): Promise<Download> {
+  const ctx = await loadRunContext(deps, member, studyId, runId);
+  const tables = buildEstimateTables(ctx);
+  const file = (body: string): Download => ({
+    filename: fileName(
+      ctx.study.name,
+      name === 'codebook' ? 'estimates-codebook' : name,
+      'csv',
+      at,
+    ),
+    contentType: CSV,
+    body,
+  });
+  if (name === 'codebook') return file(writeCsv(codebookHeader, buildCodebookRows(tables)));
+  const table = tables.find((t) => t.name === name);
+  if (name === 'wtp' && (!table || table.rows.length === 0))
+    throw new ConflictError(
+      'wtp_unavailable',
+      buildWtpTable(ctx)
+        ? (ctx.results.wtpWithheld ?? 'This run gives no WTP.')
+        : 'This run has no cost coefficient, so it gives no WTP.',
+    );
+  return file(
+    writeCsv(
+      table!.columns.map((c) => c.key),
+      table!.rows,
+    ),
+  );
+}

@@ -1,0 +1,72 @@
+/**
+ * Downloads built on a run's taste profiles: the per-respondent table as CSV and XLSX, and the
+ * printable run report (which counts the profiles with few effective draws).
+ */
+import type { AppDeps } from '../../deps';
+import { listQuestionAnswers, listRunProfiles } from '../../../db/queries/tastes';
+import { loadRunContext, type Member } from '../tastes/run-context';
+import { indexAnswers } from '../tastes/background-answers';
+import { writeCsv } from '../../lib/safe-csv';
+import { buildProfileTable } from './profile-table';
+import { writeProfilesXlsx } from './profiles-xlsx';
+import { renderRunReport } from './run-report';
+import { CSV, HTML, XLSX, fileName, type Download } from './download';
+
+async function loadProfileTable(deps: AppDeps, member: Member, studyId: string, runId: string) {
+  const ctx = await loadRunContext(deps, member, studyId, runId);
+  const profiles = await listRunProfiles(deps.db, { runId, studyId });
+  const answers = indexAnswers(await listQuestionAnswers(deps.db, { studyId }));
+  return {
+    ctx,
+    profiles,
+    table: buildProfileTable(ctx.header, profiles, answers, ctx.results.classes?.length ?? 0),
+  };
+}
+
+export async function exportProfilesCsv(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  runId: string,
+  at = new Date(),
+): Promise<Download> {
+  const { ctx, table } = await loadProfileTable(deps, member, studyId, runId);
+  return {
+    filename: fileName(ctx.study.name, 'taste-profiles', 'csv', at),
+    contentType: CSV,
+    body: writeCsv(table.header, table.rows),
+    personal: ctx.personal,
+  };
+}
+
+export async function exportProfilesXlsx(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  runId: string,
+  at = new Date(),
+): Promise<Download> {
+  const { ctx, table } = await loadProfileTable(deps, member, studyId, runId);
+  return {
+    filename: fileName(ctx.study.name, 'taste-profiles', 'xlsx', at),
+    contentType: XLSX,
+    body: await writeProfilesXlsx(ctx, table, at),
+    personal: ctx.personal,
+  };
+}
+
+export async function exportRunReport(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  runId: string,
+  at = new Date(),
+): Promise<Download> {
+  const { ctx, profiles } = await loadProfileTable(deps, member, studyId, runId);
+  const lowDraws = profiles.filter((p) => p.effectiveDraws < ctx.header.lowDrawsThreshold).length;
+  return {
+    filename: fileName(ctx.study.name, 'run-report', 'html', at),
+    contentType: HTML,
+    body: renderRunReport(ctx, { count: profiles.length, lowDraws }, at),
+  };
+}

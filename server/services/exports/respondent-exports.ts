@@ -1,0 +1,109 @@
+/**
+ * Per-respondent downloads of study data: the background answers (status, inclusion, flags,
+ * answers) and the history of changed answers. Questions marked personal, and external ids,
+ * only for roles with 'personal:read'.
+ */
+import { getLatestVersion } from '../../../db/queries/versions';
+import type { AppDeps } from '../../deps';
+import { loadStudy } from '../study-access';
+import { listQuestionAnswers } from '../../../db/queries/tastes';
+import { listStudyRespondents } from '../../../db/queries/exports';
+import { roleCan } from '../../../shared/permissions';
+import type { Member } from '../tastes/run-context';
+import { getBackgroundQuestions, indexAnswers, formatAnswer } from '../tastes/background-answers';
+import { getFlagNames } from '../tastes/taste-rows';
+import { writeCsv } from '../../lib/safe-csv';
+import { listAnswerHistory, listRevisedAnswers } from '../../../db/queries/answer-revisions';
+import { answerHistoryHeader, buildAnswerHistory, revisedScreensOf } from './answer-history';
+import { CSV, fileName, type Download } from './download';
+
+/** The study's respondents and the background questions this role may read. */
+export async function loadRespondentTable(deps: AppDeps, member: Member, studyId: string) {
+  const study = await loadStudy(deps, member.teamId, studyId);
+  const personal = roleCan(member.role, 'personal:read');
+  const version = await getLatestVersion(deps.db, { studyId });
+  const questions = getBackgroundQuestions(version?.questionnaire ?? study.questionnaire).filter(
+    (q) => personal || !q.personal,
+  );
+  const respondents = await listStudyRespondents(deps.db, { studyId });
+  return { study, personal, questions, respondents };
+}
+
+/** Every respondent with their status and background answers. */
+export async function exportAnswersCsv(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  at = new Date(),
+): Promise<Download> {
+  const { study, personal, questions, respondents } = await loadRespondentTable(
+    deps,
+    member,
+    studyId,
+  );
+  const answers = indexAnswers(await listQuestionAnswers(deps.db, { studyId }));
+  const revised = new Map<string, { screenKey: string; revisionCount: number }[]>();
+  for (const r of await listRevisedAnswers(deps.db, { studyId }))
+    revised.set(r.respondentId, [...(revised.get(r.respondentId) ?? []), r]);
+  const header = [
+    'respondent',
+    'number',
+    ...(personal ? ['external_id'] : []),
+    'block',
+    'status',
+    'included',
+    'quality_flags',
+    'revised_screens',
+    ...questions.map((q) => q.key),
+  ];
+  const rows = respondents.map((r, i) => [
+    r.id,
+    i + 1,
+    ...(personal ? [r.externalId] : []),
+    r.block,
+    r.status,
+    r.included,
+    getFlagNames(r.flags).join('; '),
+    revisedScreensOf(revised.get(r.id) ?? []),
+    ...questions.map((q) => formatAnswer(q, answers.get(r.id)?.get(q.key))),
+  ]);
+  return {
+    filename: fileName(study.name, 'background-answers', 'csv', at),
+    contentType: CSV,
+    body: writeCsv(header, rows),
+    personal,
+  };
+}
+
+/**
+ * Every answer of every screen a respondent went back to and changed, oldest first, the
+ * current one marked (answers of questions the role may not read are left out).
+ */
+export async function exportAnswerHistoryCsv(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  at = new Date(),
+): Promise<Download> {
+  const { study, personal, questions, respondents } = await loadRespondentTable(
+    deps,
+    member,
+    studyId,
+  );
+  const numbers = new Map(respondents.map((r, i) => [r.id, i + 1]));
+  const [current, replaced] = await Promise.all([
+    listRevisedAnswers(deps.db, { studyId }),
+    listAnswerHistory(deps.db, { studyId }),
+  ]);
+  const rows = buildAnswerHistory(
+    [...current.map((r) => ({ ...r, replacedAt: null })), ...replaced],
+    numbers,
+    questions,
+  );
+  return {
+    filename: fileName(study.name, 'answer-history', 'csv', at),
+    contentType: CSV,
+    body: writeCsv(answerHistoryHeader, rows),
+    personal,
+  };
+}

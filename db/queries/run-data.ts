@@ -45,6 +45,8 @@ export async function listChoiceAnswers(db: DbOrTx, params: { studyId: string })
       screenKey: answers.screenKey,
       taskNumber: answers.taskNumber,
       chosenAlternative: answers.chosenAlternative,
+      chosenPosition: answers.chosenPosition,
+      responseMs: answers.responseMs,
       value: answers.value,
     })
     .from(answers)

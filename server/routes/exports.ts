@@ -28,6 +28,11 @@ import { exportDesign } from '../services/exports/design-export';
 import { exportAnswerHistoryCsv, exportAnswersCsv } from '../services/exports/respondent-exports';
 import { exportRandomisationCsv } from '../services/exports/randomisation-export';
 import {
+  exportStudyCodebookCsv,
+  exportWideCsv,
+  exportWideRScript,
+} from '../services/exports/wide-export';
+import {
   exportEstimateTableCsv,
   exportEstimateTablesXlsx,
 } from '../services/exports/estimate-tables-export';
@@ -110,5 +115,8 @@ export function createExportsRouter(deps: AppDeps): Router {
   studyFile('/background-answers.csv', exportAnswersCsv);
   studyFile('/randomisation.csv', exportRandomisationCsv);
   studyFile('/answer-history.csv', exportAnswerHistoryCsv);
+  studyFile('/respondents-wide.csv', exportWideCsv);
+  studyFile('/respondents-wide.R', exportWideRScript);
+  studyFile('/codebook.csv', exportStudyCodebookCsv);
   return router;
 }

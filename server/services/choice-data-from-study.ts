@@ -70,21 +70,48 @@ export function readChoiceScreens(questionnaire: unknown): {
   return { holdouts, warmupKeys };
 }
 
-/** Reads and codes a study's data; `filterId` narrows the respondents to a saved filter. */
-export async function loadStudyChoiceData(
-  db: Db | DbOrTx,
-  params: { studyId: string; filterId?: string | null },
-): Promise<PreparedChoiceData> {
-  const versionRows = await listStudyVersions(db, { studyId: params.studyId });
+/** The study's frozen versions as the coder reads them; throws when it was never live. */
+export async function loadVersionInputs(db: Db | DbOrTx, studyId: string): Promise<VersionInput[]> {
+  const versionRows = await listStudyVersions(db, { studyId });
   if (versionRows.length === 0)
     throw new StudyDataError('no_data', 'The study has not been live yet, so it has no answers.');
-  const versions: VersionInput[] = versionRows.map((v) => ({
+  return versionRows.map((v) => ({
     id: v.id,
     version: v.version,
     definition: studyDefinitionSchema.parse(v.definition),
     design: designSchema.parse(v.design),
     ...readChoiceScreens(v.questionnaire),
   }));
+}
+
+type ChoiceAnswerRow = Awaited<ReturnType<typeof listChoiceAnswers>>[number];
+
+/** The given respondents with their choice answers (answers of others are left out). */
+export function groupChoiceAnswers(
+  respondents: readonly { id: string; versionId: string }[],
+  answers: readonly ChoiceAnswerRow[],
+): RespondentInput[] {
+  const byRespondent = new Map<string, RespondentInput>(
+    respondents.map((r) => [r.id, { id: r.id, versionId: r.versionId, answers: [] }]),
+  );
+  for (const a of answers) {
+    const r = byRespondent.get(a.respondentId);
+    if (r)
+      (r.answers as RespondentInput['answers'][number][]).push({
+        screenKey: a.screenKey,
+        taskNumber: a.taskNumber,
+        chosenAlternative: a.chosenAlternative,
+      });
+  }
+  return [...byRespondent.values()];
+}
+
+/** Reads and codes a study's data; `filterId` narrows the respondents to a saved filter. */
+export async function loadStudyChoiceData(
+  db: Db | DbOrTx,
+  params: { studyId: string; filterId?: string | null },
+): Promise<PreparedChoiceData> {
+  const versions = await loadVersionInputs(db, params.studyId);
   let included = await listIncludedRespondents(db, { studyId: params.studyId });
   if (params.filterId) {
     const filter = await getRespondentFilter(db, {
@@ -100,17 +127,5 @@ export async function loadStudyChoiceData(
     included = included.filter((r) => keep.has(r.id));
   }
   const answers = await listChoiceAnswers(db, { studyId: params.studyId });
-  const byRespondent = new Map<string, RespondentInput>(
-    included.map((r) => [r.id, { id: r.id, versionId: r.versionId, answers: [] }]),
-  );
-  for (const a of answers) {
-    const r = byRespondent.get(a.respondentId);
-    if (r)
-      (r.answers as RespondentInput['answers'][number][]).push({
-        screenKey: a.screenKey,
-        taskNumber: a.taskNumber,
-        chosenAlternative: a.chosenAlternative,
-      });
-  }
-  return codeStudyAnswers(versions, [...byRespondent.values()]);
+  return codeStudyAnswers(versions, groupChoiceAnswers(included, answers));
 }

@@ -2,7 +2,9 @@
  * Reads long-format choice data from CSV text: one row per alternative with the columns
  * respondent, task, alt, chosen (0/1), optionally holdout (0/1), and numeric attribute
  * columns. Only the attribute columns a model needs are parsed, so extra text columns are
- * allowed. Errors name the line (the header is line 1) and the column.
+ * allowed. An optional `included` column (true/false or 1/0, as the study's long choice file
+ * writes it) leaves the rows of respondents who do not count out. Errors name the line (the
+ * header is line 1) and the column.
  */
 import { parse } from 'csv-parse/sync';
 import { ChoiceDataError, type LongChoiceRow } from './choice-data';
@@ -38,10 +40,22 @@ export function parseChoiceCsv(text: string, columns: readonly string[]): LongCh
       );
   }
   const holdoutAt = index('holdout');
+  const includedAt = index('included');
   const at = columns.map(index);
   const [respondentAt, taskAt, altAt, chosenAt] = REQUIRED.map(index);
-  return records.slice(1).map((record, i) => {
+  const rows: LongChoiceRow[] = [];
+  records.slice(1).forEach((record, i) => {
     const line = i + 2;
+    if (includedAt >= 0) {
+      const included = record[includedAt].toLowerCase();
+      if (included === 'false' || included === '0') return;
+      if (included !== 'true' && included !== '1')
+        throw new ChoiceDataError(
+          `line ${line}: included must be true or false ("${record[includedAt]}")`,
+          line,
+          'included',
+        );
+    }
     const numberAt = (col: number, name: string): number => {
       const raw = record[col];
       const value = raw === '' ? NaN : Number(raw);
@@ -64,7 +78,7 @@ export function parseChoiceCsv(text: string, columns: readonly string[]): LongCh
     const holdout = holdoutAt >= 0 ? numberAt(holdoutAt, 'holdout') : 0;
     if (holdout !== 0 && holdout !== 1)
       throw new ChoiceDataError(`line ${line}: holdout must be 0 or 1`, line, 'holdout');
-    return {
+    rows.push({
       respondent: record[respondentAt],
       task: record[taskAt],
       alt: record[altAt],
@@ -72,6 +86,9 @@ export function parseChoiceCsv(text: string, columns: readonly string[]): LongCh
       holdout: holdout === 1,
       values: at.map((col, k) => numberAt(col, columns[k])),
       line,
-    };
+    });
   });
+  if (rows.length === 0)
+    throw new ChoiceDataError('every data line has included=false: no respondent counts');
+  return rows;
 }

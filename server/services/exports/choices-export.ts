@@ -1,12 +1,41 @@
-/** Long-format choice data of every included respondent; with a run, only its columns. */
+/**
+ * The long choice file. Without a run: every respondent who answered a choice task, with
+ * inclusion, task order, positions and times (long-choice-file.ts). With a run: exactly the
+ * data the run was estimated on (included respondents, its columns), whose SHA-256 is the
+ * run's data hash.
+ */
 import type { AppDeps } from '../../deps';
 import { NotFoundError } from '../../lib/errors';
 import { loadStudy } from '../study-access';
 import { getRunOfStudy } from '../../../db/queries/tastes';
-import { loadStudyChoiceData, toLongCsvRows } from '../choice-data-from-study';
+import { listChoiceAnswers } from '../../../db/queries/run-data';
+import { listStudyRespondents } from '../../../db/queries/exports';
+import {
+  codeStudyAnswers,
+  groupChoiceAnswers,
+  loadStudyChoiceData,
+  loadVersionInputs,
+  toLongCsvRows,
+} from '../choice-data-from-study';
 import type { Member } from '../tastes/run-context';
 import { writeCsv } from '../../lib/safe-csv';
+import { buildLongChoiceTable } from './long-choice-file';
+import type { DocumentedTable } from './documented-table';
 import { CSV, fileName, type Download } from './download';
+
+/** The long choice file of every respondent (see the file comment). */
+export async function loadLongChoiceTable(
+  deps: AppDeps,
+  studyId: string,
+): Promise<DocumentedTable> {
+  const versions = await loadVersionInputs(deps.db, studyId);
+  const [respondents, answers] = await Promise.all([
+    listStudyRespondents(deps.db, { studyId }),
+    listChoiceAnswers(deps.db, { studyId }),
+  ]);
+  const prepared = codeStudyAnswers(versions, groupChoiceAnswers(respondents, answers));
+  return buildLongChoiceTable(prepared, versions, respondents, answers);
+}
 
 export async function exportChoicesCsv(
   deps: AppDeps,
@@ -16,19 +45,26 @@ export async function exportChoicesCsv(
   at = new Date(),
 ): Promise<Download> {
   const study = await loadStudy(deps, member.teamId, studyId);
-  let keys: string[] | undefined;
-  if (runId) {
-    const run = await getRunOfStudy(deps.db, { id: runId, teamId: member.teamId, studyId });
-    if (!run) throw new NotFoundError('Run');
-    keys = (run.spec as { coefficients: { name: string; column?: string }[] }).coefficients.map(
-      (c) => c.column ?? c.name,
+  const file = (kind: string, body: string): Download => ({
+    filename: fileName(study.name, kind, 'csv', at),
+    contentType: CSV,
+    body,
+  });
+  if (!runId) {
+    const table = await loadLongChoiceTable(deps, studyId);
+    return file(
+      'choices-long',
+      writeCsv(
+        table.columns.map((c) => c.key),
+        table.rows,
+      ),
     );
   }
-  const prepared = await loadStudyChoiceData(deps.db, { studyId });
-  const table = toLongCsvRows(prepared, keys);
-  return {
-    filename: fileName(study.name, 'choices-long', 'csv', at),
-    contentType: CSV,
-    body: writeCsv(table.header, table.rows),
-  };
+  const run = await getRunOfStudy(deps.db, { id: runId, teamId: member.teamId, studyId });
+  if (!run) throw new NotFoundError('Run');
+  const keys = (run.spec as { coefficients: { name: string; column?: string }[] }).coefficients.map(
+    (c) => c.column ?? c.name,
+  );
+  const table = toLongCsvRows(await loadStudyChoiceData(deps.db, { studyId }), keys);
+  return file('choices-estimated', writeCsv(table.header, table.rows));
 }

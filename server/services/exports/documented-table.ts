@@ -15,6 +15,8 @@ export interface ColumnDoc {
   unit: string;
   coding: string;
   format: ColumnFormat;
+  /** Text columns with a fixed set of values: the levels in order (an R factor's levels). */
+  levels?: readonly string[];
 }
 
 export interface DocumentedTable {

@@ -16,6 +16,7 @@ import { writeCsv } from '../../lib/safe-csv';
 import { listAnswerHistory, listRevisedAnswers } from '../../../db/queries/answer-revisions';
 import { answerHistoryHeader, buildAnswerHistory, revisedScreensOf } from './answer-history';
 import { CSV, fileName, type Download } from './download';
+import { getInclusion } from './inclusion';
 
 /** The study's respondents and the background questions this role may read. */
 export async function loadRespondentTable(deps: AppDeps, member: Member, studyId: string) {
@@ -52,6 +53,7 @@ export async function exportAnswersCsv(
     'block',
     'status',
     'included',
+    'exclusion',
     'quality_flags',
     'revised_screens',
     ...questions.map((q) => q.key),
@@ -62,7 +64,8 @@ export async function exportAnswersCsv(
     ...(personal ? [r.externalId] : []),
     r.block,
     r.status,
-    r.included,
+    getInclusion(r).included,
+    getInclusion(r).exclusion,
     getFlagNames(r.flags).join('; '),
     revisedScreensOf(revised.get(r.id) ?? []),
     ...questions.map((q) => formatAnswer(q, answers.get(r.id)?.get(q.key))),

@@ -104,8 +104,38 @@ describe('parseChoiceCsv rejects invalid files', () => {
     ],
     ['a header only', 'respondent,task,alt,chosen,x', /at least one data line/],
     ['ragged lines', 'respondent,task,alt,chosen,x\n1,1,1', /cannot be read/],
+    [
+      'an unreadable included',
+      'respondent,task,alt,chosen,included,x\n1,1,1,0,yes,1',
+      /line 2: included must be true or false/,
+    ],
+    [
+      'nobody included',
+      'respondent,task,alt,chosen,included,x\n1,1,1,0,false,1',
+      /every data line has included=false/,
+    ],
   ])('%s', (_label, text, message) => {
     expect(() => parseChoiceCsv(text, ['x'])).toThrow(message);
+  });
+});
+
+describe('parseChoiceCsv reads the long choice file', () => {
+  it('leaves the rows of respondents with included=false (or 0) out', () => {
+    const text = [
+      'respondent,task,alt,chosen,included,exclusion,x',
+      '1,1,1,1,true,,2',
+      '1,1,2,0,true,,3',
+      '2,1,1,1,false,screened out,4',
+      '2,1,2,0,false,screened out,5',
+      '3,1,1,0,1,,6',
+      '3,1,2,1,0,,7',
+    ].join('\n');
+    const rows = parseChoiceCsv(text, ['x']);
+    expect(rows.map((r) => [r.respondent, r.line, r.values[0]])).toEqual([
+      ['1', 2, 2],
+      ['1', 3, 3],
+      ['3', 6, 6],
+    ]);
   });
 });
 

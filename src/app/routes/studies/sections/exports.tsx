@@ -27,6 +27,7 @@ export function Component() {
   const noProfiles =
     noRun ?? (run && run.profiles === 0 ? 'This run has no taste profiles (MNL).' : undefined);
   const personal = manifest.data.personalColumns;
+  const notLive = manifest.data.choicesAvailable ? undefined : 'The study has not been live yet.';
 
   const runItems: DownloadItem[] = [
     {
@@ -55,6 +56,14 @@ export function Component() {
       disabledReason: noProfiles,
     },
     {
+      key: 'estimation-data',
+      title: 'Estimation data of this run',
+      description:
+        'Exactly the rows and columns this run was fitted to (included respondents only). Its SHA-256 is the data hash in the run report.',
+      links: [{ label: 'CSV', href: `${base}/choices.csv${q}` }],
+      disabledReason: noRun,
+    },
+    {
       key: 'covariance',
       title: 'Covariance of the estimates',
       description:
@@ -78,20 +87,35 @@ export function Component() {
       key: 'choices',
       title: 'Choice data (long format)',
       description:
-        'One row per alternative shown: respondent, task, alt, chosen, holdout and the coded columns — the format the command-line estimator reads.',
+        'One row per alternative shown, for every respondent who answered a task: included (and why not), the order the task was shown in, where each alternative stood on screen, seconds per task and the coded columns. The command-line estimator reads it and skips rows with included=false.',
       links: [{ label: 'CSV', href: `${base}/choices.csv` }],
-      disabledReason: manifest.data.choicesAvailable
-        ? undefined
-        : 'The study has not been live yet.',
+      disabledReason: notLive,
+    },
+    {
+      key: 'wide',
+      title: 'Respondents (wide) for statistics packages',
+      description:
+        'One row per respondent: status, inclusion, times, each task in the order shown with the choice, its screen position and seconds, and the background answers. The R script reads it with the right types and factor levels.',
+      links: [
+        { label: 'CSV', href: `${base}/respondents-wide.csv` },
+        { label: 'R script', href: `${base}/respondents-wide.R` },
+      ],
+      disabledReason: notLive,
+    },
+    {
+      key: 'codebook',
+      title: 'Codebook of the data files',
+      description:
+        'Every column of the long and the wide file: what it is, its unit and how it is coded.',
+      links: [{ label: 'CSV', href: `${base}/codebook.csv` }],
+      disabledReason: notLive,
     },
     {
       key: 'design',
       title: 'Design',
       description: 'The frozen choice tasks: one row per designed alternative with its levels.',
       links: [{ label: 'CSV', href: `${base}/design.csv` }],
-      disabledReason: manifest.data.choicesAvailable
-        ? undefined
-        : 'The study has not been live yet.',
+      disabledReason: notLive,
     },
     {
       key: 'answers',
@@ -105,9 +129,7 @@ export function Component() {
       description:
         'For every respondent: the order the tasks were shown in and which alternative stood at each position, left to right (none = the opt-out or status quo).',
       links: [{ label: 'CSV', href: `${base}/randomisation.csv` }],
-      disabledReason: manifest.data.choicesAvailable
-        ? undefined
-        : 'The study has not been live yet.',
+      disabledReason: notLive,
     },
     {
       key: 'answer-history',

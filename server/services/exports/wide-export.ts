@@ -1,0 +1,89 @@
+/**
+ * The wide respondent file (wide-file.ts) as CSV, its R import script, and the codebook of the
+ * study's data files (long choice file and wide file).
+ */
+import type { AppDeps } from '../../deps';
+import { listQuestionAnswers } from '../../../db/queries/tastes';
+import { listChoiceAnswers } from '../../../db/queries/run-data';
+import { loadVersionInputs } from '../choice-data-from-study';
+import type { Member } from '../tastes/run-context';
+import { indexAnswers } from '../tastes/background-answers';
+import { writeCsv } from '../../lib/safe-csv';
+import { loadRespondentTable } from './respondent-exports';
+import { loadLongChoiceTable } from './choices-export';
+import { buildWideTable } from './wide-file';
+import { renderRImportScript } from './r-import-script';
+import { buildCodebookRows, codebookHeader } from './documented-table';
+import { CSV, R_SCRIPT, fileName, type Download } from './download';
+
+async function loadWideTable(deps: AppDeps, member: Member, studyId: string) {
+  const { study, personal, questions, respondents } = await loadRespondentTable(
+    deps,
+    member,
+    studyId,
+  );
+  const [versions, choices, answers] = await Promise.all([
+    loadVersionInputs(deps.db, studyId),
+    listChoiceAnswers(deps.db, { studyId }),
+    listQuestionAnswers(deps.db, { studyId }),
+  ]);
+  const table = buildWideTable({
+    versions,
+    respondents,
+    choices,
+    questions,
+    answers: indexAnswers(answers),
+    personal,
+  });
+  return { study, personal, table };
+}
+
+export async function exportWideCsv(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  at = new Date(),
+): Promise<Download> {
+  const { study, personal, table } = await loadWideTable(deps, member, studyId);
+  return {
+    filename: fileName(study.name, 'respondents-wide', 'csv', at),
+    contentType: CSV,
+    body: writeCsv(
+      table.columns.map((c) => c.key),
+      table.rows,
+    ),
+    personal,
+  };
+}
+
+/** The R script for the wide CSV this role downloads on the same day (same columns). */
+export async function exportWideRScript(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  at = new Date(),
+): Promise<Download> {
+  const { study, table } = await loadWideTable(deps, member, studyId);
+  const csvName = fileName(study.name, 'respondents-wide', 'csv', at);
+  return {
+    filename: fileName(study.name, 'respondents-wide', 'R', at),
+    contentType: R_SCRIPT,
+    body: renderRImportScript(table, csvName, { study: study.name, exportedAt: at }),
+  };
+}
+
+/** Every column of the long choice file and the wide respondent file. */
+export async function exportStudyCodebookCsv(
+  deps: AppDeps,
+  member: Member,
+  studyId: string,
+  at = new Date(),
+): Promise<Download> {
+  const { study, table } = await loadWideTable(deps, member, studyId);
+  const long = await loadLongChoiceTable(deps, studyId);
+  return {
+    filename: fileName(study.name, 'data-codebook', 'csv', at),
+    contentType: CSV,
+    body: writeCsv(codebookHeader, buildCodebookRows([long, table])),
+  };
+}

@@ -181,20 +181,4 @@ describe('other downloads', () => {
     await team.outsider.get(base).expect(404);
     await t.request().get(base).expect(401);
   });
-
-  it('writes the long-format choice data the estimator reads', async () => {
-    const res = await as('viewer').get(`${base}/choices.csv`).expect(200);
-    const rows = parse(res.text, { columns: true }) as Record<string, string>[];
-    // Six respondents × two tasks × (two packages + the status quo).
-    expect(rows).toHaveLength(N * 2 * 3);
-    expect(Object.keys(rows[0]).slice(0, 5)).toEqual([
-      'respondent',
-      'task',
-      'alt',
-      'chosen',
-      'holdout',
-    ]);
-    const chosen = rows.filter((r) => r.chosen === '1');
-    expect(chosen).toHaveLength(N * 2);
-  });
 });

@@ -51,7 +51,7 @@ export function renderRImportScript(
     ')',
     '',
     'd <- read.csv(path, colClasses = col_types, na.strings = "", check.names = FALSE,',
-    '              encoding = "UTF-8", stringsAsFactors = FALSE)',
+    '              fileEncoding = "UTF-8", stringsAsFactors = FALSE)',
     'stopifnot(identical(names(d), names(col_types)))',
     '',
     "# Text cells that began with =, +, -, @, tab or return were written with a leading ' so",

@@ -1,53 +1,121 @@
 /**
- * A printable run report: one self-contained HTML page (inline styles, print rules, no
- * scripts) with what the file is about, the parameter table, fit statistics, WTP, population
- * moments, a summary of the taste profiles, the methods (priors, sampler and diagnostics for HB;
- * class-count table and class estimates for latent class) and the cautions. Every text is HTML-escaped.
+ * A printable run report: one self-contained HTML page (the app's fonts inlined, print rules,
+ * no scripts) with what the file is about, the parameters under readable names, fit, WTP with
+ * its unit and basis and a chart, the population distributions with density charts, a summary
+ * of the taste profiles, the methods and the cautions. Numbers go through shared/format.ts;
+ * every text is HTML-escaped.
  */
 import type { RunContext } from '../tastes/run-context';
 import { getRunSummary } from './run-summary';
 import { getMethodsSections, type MethodsCell } from './methods-sections';
-
-const escapeHtml = (s: string) =>
-  s.replace(
-    /[&<>"']/g,
-    (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!,
-  );
-
-const num = (x: number | null | undefined, digits = 4) =>
-  x === null || x === undefined || !Number.isFinite(x) ? '—' : x.toFixed(digits);
+import { escapeHtml, htmlPage, htmlTable } from './report-html';
+import { renderDensityChart, renderWtpChart } from './report-charts';
+import { getParameterRows } from '../../../shared/results/parameter-rows';
+import { getLabelOf, getWtpHeadings } from '../../../shared/results/parameter-labels';
+import { SPREAD_NOTE } from '../../../shared/results/spread';
+import { getWtpUnit } from '../../../shared/engine/coding/wtp-unit';
+import {
+  formatAmount,
+  formatCount,
+  formatInterval,
+  formatNumber,
+  formatPercent,
+  formatPValue,
+} from '../../../shared/format';
 
 const cell = (c: MethodsCell) =>
-  typeof c === 'number' ? (Number.isInteger(c) ? String(c) : num(c)) : (c ?? '—');
+  typeof c === 'number' ? (Number.isInteger(c) ? formatCount(c) : formatNumber(c, 4)) : (c ?? '—');
 
-/** 97.5 % quantile of the standard normal (standard normal tables). */
-const Z975 = 1.959964;
+const named = (label: string, sub: string | null, cls: 'code' | 'unit') => ({
+  html: `${escapeHtml(label)}${sub ? `<span class="${cls}">${escapeHtml(sub)}</span>` : ''}`,
+});
 
-/** Numbers (and ranges of numbers) are right-aligned in the mono face; text stays left. */
-const isNumeric = (c: string | number) =>
-  typeof c === 'number' || /^[-−+]?[\d.,]+(e[-+]?\d+)?( … [-−+]?[\d.,]+(e[-+]?\d+)?)?$/i.test(c);
-
-function table(head: string[], rows: (string | number)[][]): string {
-  const numeric = head.map(
-    (_, i) => i > 0 && rows.length > 0 && rows.every((r) => isNumeric(r[i]) || r[i] === '—'),
-  );
-  const cls = (i: number) => (numeric[i] ? ' class="n"' : '');
-  const th = head.map((h, i) => `<th${cls(i)}>${escapeHtml(h)}</th>`).join('');
-  const tr = rows
-    .map(
-      (r) => `<tr>${r.map((c, i) => `<td${cls(i)}>${escapeHtml(String(c))}</td>`).join('')}</tr>`,
-    )
-    .join('');
-  return `<div class="t"><table><thead><tr>${th}</tr></thead><tbody>${tr}</tbody></table></div>`;
+function parametersSection(ctx: RunContext): string {
+  const bayes = ctx.results.model === 'hb';
+  const rows = getParameterRows(ctx.results);
+  const body = rows.map((r) => [
+    named(r.part ? `${r.label} — ${r.part}` : r.label, r.name, 'code'),
+    r.spread ? `|s| ${formatNumber(r.estimate, 4)}` : formatNumber(r.estimate, 4),
+    formatNumber(r.se, 4),
+    ...(bayes ? [] : [formatNumber(r.robustSe, 4), formatNumber(r.t, 2), formatPValue(r.p)]),
+    formatInterval(r.lower, r.upper, (x) => formatNumber(x, 4)),
+  ]);
+  const head = bayes
+    ? ['Parameter', 'Posterior mean', 'Posterior SD', '95 % interval']
+    : ['Parameter', 'Estimate', 'SE', 'Robust SE', 't', 'p', '95 % interval'];
+  const note = bayes
+    ? 'Posterior means and SDs over the kept draws; intervals are mean ± 1.96 posterior SD.'
+    : 't, p and intervals use the robust (respondent-clustered) standard errors and the normal approximation.';
+  const spreads = rows.some((r) => r.spread) ? ` ${SPREAD_NOTE}` : '';
+  return `<h2>Parameters</h2><p class="note">Utility (logit) scale per one-unit change of each coded column.</p>${htmlTable(head, body)}<p class="note">${escapeHtml(note + spreads)}</p>`;
 }
 
-const STYLE = `body{font-family:'IBM Plex Sans',system-ui,sans-serif;color:#14213d;margin:2rem auto;max-width:60rem;padding:0 1rem;line-height:1.45}
-h1{font-size:1.5rem;margin:0 0 .25rem}h2{font-size:1.1rem;margin:1.75rem 0 .5rem;color:#0f5e63}
-table{border-collapse:collapse;width:100%;font-size:.85rem}th,td{border-bottom:1px solid #dde3ec;padding:.3rem .5rem;text-align:left;vertical-align:top}
-.n{text-align:right;font-family:'IBM Plex Mono',ui-monospace,monospace;font-variant-numeric:tabular-nums}
-.t{overflow-x:auto;margin:0 -.25rem;padding:0 .25rem}td:first-child{overflow-wrap:anywhere;min-width:7rem}
-.caution{border:1px solid #f0a830;background:#fdf3df;padding:.75rem 1rem;border-radius:.4rem}
-@media print{body{margin:0;max-width:none}.t{overflow:visible}h2{break-after:avoid}table{break-inside:auto}tr{break-inside:avoid}.caution{break-inside:avoid}}`;
+function wtpSection(ctx: RunContext): string {
+  const r = ctx.results;
+  if (r.wtpWithheld) return `<h2>Willingness to pay</h2><p>${escapeHtml(r.wtpWithheld)}</p>`;
+  if (!r.wtp || r.wtp.length === 0) return '';
+  const unit = ctx.header.costUnit;
+  const money = (x: number | null | undefined) => formatAmount(x, unit);
+  const labelOf = getLabelOf(r);
+  const keyOf = new Map(r.columns.map((c) => [c.coefficient, c.key]));
+  const headings = getWtpHeadings(r);
+  const simulated = r.model === 'hb' ? 'posterior' : 'Krinsky–Robb';
+  const rows = r.wtp.map((w) => [
+    named(labelOf(w.name), getWtpUnit(ctx.definition, keyOf.get(w.name) ?? ''), 'unit'),
+    money(w.estimate),
+    money(w.se),
+    formatInterval(w.deltaLower, w.deltaUpper, money),
+    formatInterval(w.lower, w.upper, money),
+  ]);
+  const chart = renderWtpChart(
+    r.wtp.map((w) => ({
+      label: labelOf(w.name),
+      estimate: w.estimate,
+      lower: w.lower ?? w.deltaLower,
+      upper: w.upper ?? w.deltaUpper,
+    })),
+    unit,
+    `${headings.mean} with its 95 % ${r.wtp.some((w) => w.lower !== null) ? simulated : 'delta'} interval (${unit || 'cost units'})`,
+  );
+  return `<h2>Willingness to pay</h2>${htmlTable(
+    [
+      'Attribute column · unit and basis',
+      headings.mean,
+      'SE (delta)',
+      '95 % delta',
+      `95 % ${simulated}`,
+    ],
+    rows,
+  )}<p class="note">WTP = −β/β<sub>cost</sub>: money per change of each column, as its line says; a negative amount is money needed to accept the change.</p>${chart}`;
+}
+
+function populationSection(ctx: RunContext): string {
+  const coefficients = ctx.header.coefficients;
+  const random = coefficients.filter(
+    (c) => c.distribution !== 'fixed' && c.distribution !== 'discrete',
+  );
+  const rows = coefficients.map((c) => [
+    c.label,
+    c.distribution.replace('_', ' '),
+    formatNumber(c.populationMean, 4),
+    formatNumber(c.populationSd, 4),
+  ]);
+  const charts = random.map((c) =>
+    renderDensityChart({
+      label: c.label,
+      distribution: c.distribution,
+      location: c.location,
+      spread: c.spread,
+      mean: c.populationMean,
+      sd: c.populationSd,
+    }),
+  );
+  return `<h2>Population distributions</h2>${htmlTable(['Coefficient', 'Distribution', 'Mean', 'SD'], rows)}${
+    charts.length > 0
+      ? `<p class="note">Population densities of the random coefficients (utility scale).</p><div class="charts">${charts.join('')}</div>`
+      : ''
+  }`;
+}
 
 export function renderRunReport(
   ctx: RunContext,
@@ -58,73 +126,39 @@ export function renderRunReport(
   const summary = getRunSummary(ctx, exportedAt);
   const facts = summary.filter(([label]) => !label.startsWith('Caution'));
   const cautions = summary.filter(([label]) => label.startsWith('Caution')).map(([, v]) => v);
-  const labelOf = (name: string) =>
-    ctx.header.coefficients.find((c) => c.name === name)?.label ?? name;
-  const parameters = r.estimates.map((e) => {
-    const se = e.robustSe ?? e.se;
-    return [
-      e.name,
-      num(e.estimate),
-      num(e.se),
-      num(e.robustSe),
-      se ? num(e.estimate / se, 2) : '—',
-      se ? `${num(e.estimate - Z975 * se)} … ${num(e.estimate + Z975 * se)}` : '—',
-    ];
-  });
   const sections = [
     `<h1>Run report: ${escapeHtml(ctx.run.name || 'unnamed run')}</h1><p>${escapeHtml(ctx.study.name)}</p>`,
-    `<h2>About this report</h2>${table(['Item', 'Value'], facts)}`,
-    `<h2>Parameters</h2>${table(['Parameter', 'Estimate', 'SE', 'Robust SE', 't (robust)', '95 % interval (robust)'], parameters)}`,
-    `<h2>Fit</h2>${table(
+    `<h2>About this report</h2>${htmlTable(
+      ['Item', 'Value'],
+      facts.map(([label, value]) => [label, cell(value)]),
+    )}`,
+    parametersSection(ctx),
+    `<h2>Fit</h2>${htmlTable(
       ['Statistic', 'Value'],
       [
-        ['Log-likelihood at zero', num(r.loglikNull, 3)],
-        ['Log-likelihood', num(r.loglik, 3)],
-        ['ρ²', num(r.rho2)],
-        ['Adjusted ρ²', num(r.adjRho2)],
-        ['AIC', num(r.aic, 2)],
-        ['BIC', num(r.bic, 2)],
-        ['Hit rate', num(r.hitRate, 3)],
-        ['Parameters', r.parameters],
-        ['Iterations', r.iterations],
+        ['Log-likelihood at zero', formatNumber(r.loglikNull, 3)],
+        ['Log-likelihood', formatNumber(r.loglik, 3)],
+        ['ρ²', formatNumber(r.rho2, 4)],
+        ['Adjusted ρ²', formatNumber(r.adjRho2, 4)],
+        ['AIC', formatNumber(r.aic, 2)],
+        ['BIC', formatNumber(r.bic, 2)],
+        ['Hit rate', formatPercent(r.hitRate)],
+        ['Choice observations', formatCount(r.observations)],
+        ['Parameters', formatCount(r.parameters)],
+        ['Iterations', formatCount(r.iterations)],
       ],
     )}`,
-    r.wtp && r.wtp.length > 0
-      ? `<h2>Willingness to pay</h2>${table(
-          [
-            'Attribute',
-            'WTP',
-            'SE (delta method)',
-            '95 % interval (delta)',
-            '95 % interval (Krinsky–Robb)',
-          ],
-          r.wtp.map((w) => [
-            labelOf(w.name),
-            num(w.estimate, 3),
-            num(w.se, 3),
-            `${num(w.deltaLower, 3)} … ${num(w.deltaUpper, 3)}`,
-            `${num(w.lower, 3)} … ${num(w.upper, 3)}`,
-          ]),
-        )}`
-      : '',
-    `<h2>Population distributions</h2>${table(
-      ['Coefficient', 'Distribution', 'Mean', 'SD'],
-      ctx.header.coefficients.map((c) => [
-        c.label,
-        c.distribution,
-        num(c.populationMean),
-        num(c.populationSd),
-      ]),
-    )}`,
+    wtpSection(ctx),
+    populationSection(ctx),
     `<h2>Taste profiles</h2><p>${profiles.count} respondents have a taste profile; ${profiles.lowDraws} of them have fewer than ${ctx.header.lowDrawsThreshold} effective draws.</p>`,
     ...getMethodsSections(ctx).map(
       (m) =>
-        `<h2>${escapeHtml(m.title)}</h2>${table(
+        `<h2>${escapeHtml(m.title)}</h2>${htmlTable(
           m.head,
-          m.rows.map((r) => r.map(cell)),
+          m.rows.map((row) => row.map(cell)),
         )}`,
     ),
-    `<h2>Cautions</h2><div class="caution"><ul>${cautions.map((c) => `<li>${escapeHtml(String(c))}</li>`).join('')}</ul></div>`,
+    `<h2>Cautions</h2><div class="caution"><ul>${cautions.map((c) => `<li>${escapeHtml(String(c))}</li>`).join('')}</ul><p class="note">What-if shares and welfare depend on scenarios you set in the Shares section; print that screen for them.</p></div>`,
   ];
-  return `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width,initial-scale=1"><title>${escapeHtml(`Run report — ${ctx.study.name}`)}</title><style>${STYLE}</style></head><body>${sections.join('\n')}</body></html>`;
+  return htmlPage(`Run report — ${ctx.study.name}`, sections.join('\n'));
 }

@@ -171,6 +171,30 @@ describe('other downloads', () => {
     expect(res.text).not.toContain('EXT-');
   });
 
+  it('prints with the app fonts inlined, readable names, WTP units and charts', async () => {
+    const res = await as('viewer')
+      .get(`${base}/run-report.html`)
+      .query({ runId: seeded.runId })
+      .expect(200);
+    const html = res.text;
+    // IBM Plex Sans 400 and 600 and Plex Mono 400, inlined: the page needs nothing else.
+    expect(html.match(/@font-face\{font-family:'IBM Plex (Sans|Mono)'/g)).toHaveLength(3);
+    expect(html).toContain('src:url(data:font/woff2;base64,');
+    expect(html).not.toMatch(/(src|href)="http/);
+    expect(html).not.toContain('<script');
+    // Parameter names are the study's labels, the code in small type below.
+    expect(html).toContain('River health: good<span class="code">river_good</span>');
+    // WTP: amounts through Intl with the cost unit, and the unit and basis of each row.
+    expect(html).toContain('€7.30');
+    expect(html).toContain('€5.40 to €9.90');
+    expect(html).toContain('€ of monthly bill increase for River health: good instead of poor');
+    // One WTP chart and one density chart per random coefficient (bill, river_good).
+    expect(html.match(/<svg /g)).toHaveLength(3);
+    expect(html).toContain('aria-label="Population distribution of River health: good"');
+    expect(html).toContain('@media print');
+    expect(html).toContain('@page{size:A4');
+  });
+
   it('reports which downloads exist and whether they hold personal columns', async () => {
     expect((await as('viewer').get(base).expect(200)).body).toEqual({
       personalColumns: false,

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { conditionalDensity, populationDensity } from '@/utils/taste-density';
+import { conditionalDensity, populationDensity } from '@shared/results/taste-density';
 
 // Moments by the midpoint rule on a fine grid; with 200,000 cells the error is far below 1e-3.
 function moments(f: (x: number) => number, lo: number, hi: number) {

@@ -18,7 +18,7 @@ import {
 import { Chart } from 'react-chartjs-2';
 import type { EstimationResult } from '@shared/schemas/estimation-spec';
 import { densityHistogram, plotRange } from '../utils/stats';
-import { populationDensity } from '@/utils/taste-density';
+import { populationDensity } from '@shared/results/taste-density';
 import { formatNumber } from '@/utils/format';
 
 ChartJS.register(

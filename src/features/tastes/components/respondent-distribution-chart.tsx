@@ -20,7 +20,7 @@ import {
   conditionalCurveLabel,
   conditionalDensity,
   populationDensity,
-} from '@/utils/taste-density';
+} from '@shared/results/taste-density';
 import { formatNumber } from '@/utils/format';
 import { okabeIto, withAlpha } from '@/components/charts/palette';
 

@@ -69,3 +69,26 @@ export function conditionalCurveLabel(distribution: string): string {
     ? 'This respondent (lognormal, same mean and SD)'
     : 'This respondent (normal, same mean and SD)';
 }
+
+/** A plotting range covering the bulk of the population distribution and the data. */
+export function plotRange(
+  m: Pick<Population, 'distribution' | 'location' | 'spread'> & { mean: number; sd: number },
+  values: number[],
+): [number, number] {
+  const finite = values.filter(Number.isFinite);
+  let lo = m.mean - 3.5 * m.sd;
+  let hi = m.mean + 3.5 * m.sd;
+  if (m.distribution === 'lognormal') lo = Math.max(lo, 0);
+  if (m.distribution === 'neg_lognormal') hi = Math.min(hi, 0);
+  if (m.distribution === 'triangular' || m.distribution === 'uniform') {
+    lo = m.location - Math.abs(m.spread);
+    hi = m.location + Math.abs(m.spread);
+  }
+  for (const v of finite) {
+    lo = Math.min(lo, v);
+    hi = Math.max(hi, v);
+  }
+  if (!(hi > lo)) return [lo - 1, hi + 1];
+  const pad = (hi - lo) * 0.05;
+  return [lo - pad, hi + pad];
+}

@@ -18,7 +18,7 @@ export function CertaintyScaleField({
   const id = useId();
   const points = Array.from({ length: scale.points }, (_, i) => i + 1);
   return (
-    <fieldset className="mt-6 min-w-0" aria-describedby={`${id}-ends`}>
+    <fieldset className="mt-6 min-w-0 max-w-xl" aria-describedby={`${id}-ends`}>
       <legend className="mb-2 text-base font-medium text-ink">{scale.question}</legend>
       <p id={`${id}-ends`} className="sr-only">
         1 means {scale.lowLabel}, {scale.points} means {scale.highLabel}.

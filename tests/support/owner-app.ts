@@ -9,7 +9,7 @@ import { signUpOwner } from './factories';
 
 export type OwnerApp = { t: TestApp; owner: supertest.Agent; teamId: string };
 
-export function useOwnerApp(): OwnerApp {
+export function ownerAppForFile(): OwnerApp {
   const app = {} as OwnerApp;
   beforeAll(async () => {
     app.t = await createTestApp();

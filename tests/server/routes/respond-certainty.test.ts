@@ -4,7 +4,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { useOwnerApp } from '../../support/owner-app';
+import { ownerAppForFile } from '../../support/owner-app';
 import { answers, respondents } from '../../../db/schema/fieldwork';
 import type { Questionnaire } from '../../../shared/schemas/questionnaire';
 import {
@@ -16,7 +16,7 @@ import {
   type LiveSession,
 } from './respond-fixtures';
 
-const app = useOwnerApp();
+const app = ownerAppForFile();
 
 const scale = { question: 'How sure are you?', points: 5, lowLabel: 'Unsure', highLabel: 'Sure' };
 function withCertainty(): Questionnaire {

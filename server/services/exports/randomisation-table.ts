@@ -22,19 +22,19 @@ export const randomisationHeader = [
 const altName = (j: number) => (j < 0 ? 'none' : String(j + 1));
 
 export function buildRandomisationRows(
-  respondents: readonly { id: string; plan: unknown }[],
+  respondents: readonly { id: string; number: number; plan: unknown }[],
 ): CellValue[][] {
   const rows: CellValue[][] = [];
-  respondents.forEach((r, i) => {
+  for (const r of respondents) {
     const parsed = respondentPlanSchema.safeParse(r.plan);
-    if (!parsed.success) return;
+    if (!parsed.success) continue;
     const plan = parsed.data;
     for (const [screen, order] of Object.entries(plan.positions)) {
       const task = screen.startsWith('task:') ? Number(screen.slice('task:'.length)) : null;
       const shownAs = task === null ? null : plan.taskOrder.indexOf(task) + 1;
       rows.push([
         r.id,
-        i + 1,
+        r.number,
         plan.block,
         plan.seed,
         screen,
@@ -43,6 +43,6 @@ export function buildRandomisationRows(
         order.map(altName).join(' '),
       ]);
     }
-  });
+  }
   return rows;
 }

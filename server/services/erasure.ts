@@ -93,6 +93,7 @@ async function describe(db: DbOrTx, studyId: string, t: Target): Promise<Erasure
   const data = r ? await countRespondentData(db, { respondentId: r.id }) : null;
   return {
     number: r?.number ?? null,
+    reference: r ? r.id.slice(0, 8) : null,
     status: r?.status ?? null,
     answers: data?.answers ?? 0,
     revisions: data?.revisions ?? 0,

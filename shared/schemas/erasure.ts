@@ -52,6 +52,8 @@ export type EraseRespondentInput = z.infer<typeof eraseRespondentSchema>;
 export type ErasurePreview = {
   /** Null when only an invitation exists (the person never opened the link). */
   number: number | null;
+  /** Start of the respondent's random id, as the respondent table shows it. */
+  reference: string | null;
   status: 'in_progress' | 'completed' | 'screened_out' | 'over_quota' | null;
   answers: number;
   revisions: number;

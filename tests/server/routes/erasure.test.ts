@@ -146,6 +146,7 @@ describe('POST …/erasure/preview', () => {
     expect(res.status).toBe(200);
     expect(res.body).toEqual({
       number: 2,
+      reference: seeded.respondentIds[1]!.slice(0, 8),
       status: 'completed',
       answers: 5,
       revisions: 0,

@@ -10,9 +10,8 @@ vi.mock('@/lib/api-client', async (importOriginal) => {
   const real = await importOriginal<typeof import('@/lib/api-client')>();
   return { ...real, api: { ...real.api, post: (...args: unknown[]) => post(...args) } };
 });
-const { EraseRespondentForm } = await import(
-  '@/features/responses/components/erase-respondent-form'
-);
+const { EraseRespondentForm } =
+  await import('@/features/responses/components/erase-respondent-form');
 const { ApiError } = await import('@/lib/api-client');
 
 afterEach(() => {

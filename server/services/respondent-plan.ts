@@ -31,21 +31,27 @@ export type PlanInput = {
 };
 
 /**
- * Builds the plan. Unlabeled alternatives are shuffled per task; labeled ones keep their order
- * (their label is part of what is chosen), and the opt-out / status quo always stays last —
- * common practice, no source. The repeated task shows the original task's designed
- * alternatives in reverse order; the dominance test puts its dominant alternative (index 0)
- * at a random position.
+ * Builds the plan, as far as the questionnaire's options ask: task order shuffled per
+ * respondent; unlabeled alternatives shuffled per task (labeled ones keep their order, since
+ * their label is part of what is chosen), with the opt-out / status quo always last; and, when
+ * asked, one attribute order per respondent, kept on every task so respondents are not made to
+ * re-read each card. Randomising these orders and storing what was shown follows Bridges et
+ * al. 2011 (ISPOR checklist, items 6 and 10.2); the details are common practice, no source. The repeated task shows the original task's designed alternatives in reverse
+ * order; the dominance test always puts its dominant alternative (index 0) at a random
+ * position, or it would not test attention. Draws are taken in a fixed sequence (tasks,
+ * alternatives, dominance, attributes), so a stored seed rebuilds the same plan.
  */
 export function createRespondentPlan(input: PlanInput): RespondentPlan {
   const { definition, design, questionnaire, block, seed } = input;
   const random = createSeededRandom(seed);
   const tasks = design.tasks.filter((t) => t.block === block).map((t) => t.task);
   if (tasks.length === 0) throw new RangeError(`Block ${block} has no tasks`);
-  const taskOrder = shuffled(random, tasks);
+  const { shuffleTasks, shuffleAlternatives, shuffleAttributes } = questionnaire.options;
+  const taskOrder = shuffleTasks ? shuffled(random, tasks) : tasks;
   const J = definition.alternatives.count;
   const fixed = definition.fixedAlternative ? [-1] : [];
-  const order = () => (definition.alternatives.labeled ? range(J) : shuffled(random, range(J)));
+  const keepOrder = definition.alternatives.labeled || !shuffleAlternatives;
+  const order = () => (keepOrder ? range(J) : shuffled(random, range(J)));
   const positions: Record<string, number[]> = {};
   for (const task of taskOrder) positions[screenKeys.task(task)] = [...order(), ...fixed];
   for (const page of questionnaire.pages) {
@@ -62,7 +68,12 @@ export function createRespondentPlan(input: PlanInput): RespondentPlan {
     if (page.kind === 'dominance')
       positions[screenKeys.special('dominance', page.id)] = shuffled(random, range(J));
   }
-  return { seed, block, taskOrder, positions };
+  const plan: RespondentPlan = { seed, block, taskOrder, positions };
+  if (shuffleAttributes) {
+    const ids = definition.attributes.map((a) => a.id);
+    plan.attributeOrder = shuffled(random, range(ids.length)).map((i) => ids[i]);
+  }
+  return plan;
 }
 
 /** The design task a repeat page repeats for this respondent. */

@@ -202,14 +202,29 @@ export function buildSurveyView(
   /** The plan's screens when the caller already holds them (the per-respondent cache). */
   screens: RespondentScreen[] = buildScreens(version, plan),
 ): SurveyView {
-  const { attributes, alternatives, fixedAlternative } = version.definition;
+  const { alternatives, fixedAlternative } = version.definition;
   return {
     studyName,
-    definition: { attributes, alternatives, fixedAlternative },
+    definition: {
+      attributes: attributesInOrder(version.definition, plan),
+      alternatives,
+      fixedAlternative,
+    },
     screens,
     end: endPageOf(version.questionnaire),
     back: pick(version.questionnaire.options, 'allowBack', 'backOnTasks'),
   };
+}
+
+/** The attributes as this respondent sees them: the plan's order when it has one. */
+function attributesInOrder(definition: StudyDefinition, plan: RespondentPlan) {
+  const order = plan.attributeOrder;
+  if (!order) return definition.attributes;
+  const byId = new Map(definition.attributes.map((a) => [a.id, a]));
+  // An attribute missing from the stored order (never expected: versions are frozen) keeps
+  // its place at the end rather than vanishing from the respondent's cards.
+  const listed = order.flatMap((id) => (byId.has(id) ? [byId.get(id)!] : []));
+  return [...listed, ...definition.attributes.filter((a) => !order.includes(a.id))];
 }
 
 export function endPageOf(questionnaire: Questionnaire): { title: string; body: string } {

@@ -159,6 +159,12 @@ export const questionnaireOptionsSchema = z.object({
   allowBack: z.boolean().default(true),
   /** Whether Back reaches choice tasks too; off keeps first reactions to the tasks. */
   backOnTasks: z.boolean().default(true),
+  /** Each respondent sees the block's tasks in their own random order (off: design order). */
+  shuffleTasks: z.boolean().default(true),
+  /** Unlabeled alternatives change places per task (off: design order); labeled ones never do. */
+  shuffleAlternatives: z.boolean().default(true),
+  /** Each respondent gets their own attribute order, the same on every task (off: as defined). */
+  shuffleAttributes: z.boolean().default(false),
 });
 export type QuestionnaireOptions = z.infer<typeof questionnaireOptionsSchema>;
 export const defaultQuestionnaireOptions = (): QuestionnaireOptions =>

@@ -39,6 +39,11 @@ export const respondentPlanSchema = z.object({
    * position p (designed alternatives 0..J-1; -1 is the opt-out / status quo).
    */
   positions: z.record(z.string(), z.array(z.number().int().min(-1))),
+  /**
+   * Attribute ids in the order this respondent sees them on every task, when the questionnaire
+   * randomises attribute order; absent means the order of the study definition.
+   */
+  attributeOrder: z.array(z.string()).optional(),
 });
 export type RespondentPlan = z.infer<typeof respondentPlanSchema>;
 

@@ -3,9 +3,14 @@ import type { AppDeps } from '../../deps';
 import { loadStudy } from '../study-access';
 import type { Member } from '../tastes/run-context';
 import { listStudyRespondents } from '../../../db/queries/exports';
+import { z } from 'zod';
 import { writeCsv } from '../../lib/safe-csv';
 import { CSV, fileName, type Download } from '../exports';
 import { buildRandomisationRows, randomisationHeader } from './randomisation-table';
+
+const attributeNamesSchema = z.object({
+  attributes: z.array(z.object({ id: z.string(), name: z.string() })),
+});
 
 export async function exportRandomisationCsv(
   deps: AppDeps,
@@ -15,9 +20,15 @@ export async function exportRandomisationCsv(
 ): Promise<Download> {
   const study = await loadStudy(deps, member.teamId, studyId);
   const respondents = await listStudyRespondents(deps.db, { studyId });
+  // Attribute ids never change once made, so the study's current names label every version;
+  // only ids and names are read, so a draft that does not validate yet still names them.
+  const definition = attributeNamesSchema.safeParse(study.definition);
+  const names = new Map(
+    definition.success ? definition.data.attributes.map((a) => [a.id, a.name]) : [],
+  );
   return {
     filename: fileName(study.name, 'randomisation', 'csv', at),
     contentType: CSV,
-    body: writeCsv(randomisationHeader, buildRandomisationRows(respondents)),
+    body: writeCsv(randomisationHeader, buildRandomisationRows(respondents, names)),
   };
 }

@@ -16,19 +16,27 @@ export const randomisationHeader = [
   'task',
   'task_shown_as',
   'alternatives_left_to_right',
+  'attributes_top_to_bottom',
 ];
 
 /** Alternative names as in the design download: 1-based design numbers, "none" for the opt-out. */
 const altName = (j: number) => (j < 0 ? 'none' : String(j + 1));
 
+/**
+ * `attributeNames` (id -> name) names the attributes of a respondent whose plan randomised
+ * their order; the column is empty when the study shows attributes as defined.
+ */
 export function buildRandomisationRows(
   respondents: readonly { id: string; number: number; plan: unknown }[],
+  attributeNames: ReadonlyMap<string, string> = new Map(),
 ): CellValue[][] {
   const rows: CellValue[][] = [];
   for (const r of respondents) {
     const parsed = respondentPlanSchema.safeParse(r.plan);
     if (!parsed.success) continue;
     const plan = parsed.data;
+    const attributeOrder =
+      plan.attributeOrder?.map((id) => attributeNames.get(id) ?? id).join(' | ') ?? null;
     for (const [screen, order] of Object.entries(plan.positions)) {
       const task = screen.startsWith('task:') ? Number(screen.slice('task:'.length)) : null;
       const shownAs = task === null ? null : plan.taskOrder.indexOf(task) + 1;
@@ -41,6 +49,7 @@ export function buildRandomisationRows(
         task,
         shownAs,
         order.map(altName).join(' '),
+        attributeOrder,
       ]);
     }
   }

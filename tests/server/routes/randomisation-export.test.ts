@@ -8,7 +8,12 @@ import type supertest from 'supertest';
 import { parse } from 'csv-parse/sync';
 import { createTestApp, type TestApp } from '../../support/test-app';
 import { signUpOwner } from '../../support/factories';
-import { startLiveSession, type LiveSession } from './respond-fixtures';
+import {
+  definition,
+  fullQuestionnaire,
+  startLiveSession,
+  type LiveSession,
+} from './respond-fixtures';
 
 let t: TestApp;
 let owner: supertest.Agent;
@@ -52,6 +57,34 @@ describe('GET …/exports/randomisation.csv', () => {
       const choiceScreens = (s.screens as TaskScreen[]).filter((x) => x.kind === 'task');
       expect(new Set(mine.map((r) => r.screen))).toEqual(new Set(choiceScreens.map((x) => x.key)));
     }
+  });
+
+  it('names each respondent’s attribute order, top to bottom as their cards showed it', async () => {
+    const q = fullQuestionnaire();
+    const { study, session } = await startLiveSession(t, owner, teamId, {
+      ...q,
+      options: { ...q.options, shuffleAttributes: true },
+    });
+    const names = new Map(definition.attributes.map((a) => [a.id, a.name]));
+    const shownOrder = (
+      session as unknown as { definition: { attributes: { id: string }[] } }
+    ).definition.attributes.map((a) => names.get(a.id));
+    expect([...shownOrder].sort()).toEqual([...names.values()].sort());
+    const res = await owner
+      .get(`/api/teams/${teamId}/studies/${study.id}/exports/randomisation.csv`)
+      .expect(200);
+    const rows = parse(res.text, { columns: true }) as Record<string, string>[];
+    expect(rows.length).toBeGreaterThan(0);
+    for (const row of rows) expect(row.attributes_top_to_bottom).toBe(shownOrder.join(' | '));
+  });
+
+  it('leaves the attribute order empty when the study shows attributes as defined', async () => {
+    const { study } = await startLiveSession(t, owner, teamId);
+    const res = await owner
+      .get(`/api/teams/${teamId}/studies/${study.id}/exports/randomisation.csv`)
+      .expect(200);
+    const rows = parse(res.text, { columns: true }) as Record<string, string>[];
+    expect(rows.every((r) => r.attributes_top_to_bottom === '')).toBe(true);
   });
 
   it('is refused to a non-member (404) and needs a sign-in (401)', async () => {

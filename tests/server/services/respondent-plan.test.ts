@@ -3,6 +3,7 @@ import { createRespondentPlan, repeatedTaskNumber } from '../../../server/servic
 import {
   buildScreens,
   buildDominanceAlternatives,
+  buildSurveyView,
 } from '../../../server/services/respondent-screens';
 import { createPage } from '../../../shared/schemas/questionnaire-defaults';
 import type { Questionnaire, QuestionnairePage } from '../../../shared/schemas/questionnaire';
@@ -94,6 +95,100 @@ describe('createRespondentPlan', () => {
   it('refuses a block without tasks', () => {
     expect(() => createRespondentPlan({ ...base, block: 3, seed: 1 })).toThrow(
       /Block 3 has no tasks/,
+    );
+  });
+});
+
+describe('createRespondentPlan with the randomisation options', () => {
+  const withOptions = (options: Partial<Questionnaire['options']>): Questionnaire => {
+    const q = withSpecials();
+    return { ...q, options: { ...q.options, ...options } };
+  };
+  const seeds = Array.from({ length: 40 }, (_, i) => i + 1);
+  const version = (questionnaire: Questionnaire) => ({
+    id: 'v',
+    studyId: 's',
+    version: 1,
+    definition,
+    design,
+    questionnaire,
+  });
+
+  it('keeps plans made before the options existed: the defaults draw exactly as before', () => {
+    // Plans the previous plan builder (no options) gave for these seeds, so a stored seed still
+    // rebuilds what a respondent was shown — and no attributeOrder key appears.
+    const before = {
+      3: '{"seed":3,"block":1,"taskOrder":[2,1],"positions":{"task:2":[0,1,-1],"task:1":[0,1,-1],"warmup:warm":[0,1,-1],"repeat:rep":[1,0,-1],"dominance:dom":[1,0]}}',
+      8: '{"seed":8,"block":1,"taskOrder":[2,1],"positions":{"task:2":[1,0,-1],"task:1":[0,1,-1],"warmup:warm":[0,1,-1],"repeat:rep":[1,0,-1],"dominance:dom":[0,1]}}',
+      21: '{"seed":21,"block":1,"taskOrder":[2,1],"positions":{"task:2":[1,0,-1],"task:1":[0,1,-1],"warmup:warm":[0,1,-1],"repeat:rep":[1,0,-1],"dominance:dom":[0,1]}}',
+    };
+    for (const [seed, plan] of Object.entries(before))
+      expect(
+        JSON.stringify(
+          createRespondentPlan({ ...version(withSpecials()), block: 1, seed: Number(seed) }),
+        ),
+      ).toBe(plan);
+  });
+
+  it('shows the tasks in design order when task shuffling is off', () => {
+    const questionnaire = withOptions({ shuffleTasks: false });
+    const designOrder = design.tasks.filter((t) => t.block === 1).map((t) => t.task);
+    for (const seed of seeds)
+      expect(
+        createRespondentPlan({ definition, design, questionnaire, block: 1, seed }).taskOrder,
+      ).toEqual(designOrder);
+  });
+
+  it('keeps the alternatives in design order when alternative shuffling is off, the dominance test still shuffled', () => {
+    const questionnaire = withOptions({ shuffleAlternatives: false });
+    const J = definition.alternatives.count;
+    const inOrder = [...Array(J).keys()];
+    const dominanceOrders = new Set<string>();
+    for (const seed of seeds) {
+      const plan = createRespondentPlan({ definition, design, questionnaire, block: 1, seed });
+      for (const [key, order] of Object.entries(plan.positions)) {
+        if (key.startsWith('dominance:')) dominanceOrders.add(order.join());
+        else if (!key.startsWith('repeat:'))
+          expect(
+            order.filter((j) => j >= 0),
+            key,
+          ).toEqual(inOrder);
+      }
+    }
+    // The attention check keeps its dominant alternative moving, or it would test habit.
+    expect(dominanceOrders.size).toBeGreaterThan(1);
+  });
+
+  it('gives each respondent one attribute order, a permutation, used on every task card', () => {
+    const questionnaire = withOptions({ shuffleAttributes: true });
+    const ids = definition.attributes.map((a) => a.id);
+    const orders = new Set<string>();
+    for (const seed of seeds) {
+      const plan = createRespondentPlan({ definition, design, questionnaire, block: 1, seed });
+      expect([...plan.attributeOrder!].sort()).toEqual([...ids].sort());
+      orders.add(plan.attributeOrder!.join());
+      const view = buildSurveyView(version(questionnaire), plan, 'Study');
+      expect(view.definition.attributes.map((a) => a.id)).toEqual(plan.attributeOrder);
+      // Same respondent, same seed: the same order again (reproducible from the stored seed).
+      expect(
+        createRespondentPlan({ definition, design, questionnaire, block: 1, seed }).attributeOrder,
+      ).toEqual(plan.attributeOrder);
+    }
+    // 40 respondents over the demo's attributes: far more than one order in practice.
+    expect(orders.size).toBeGreaterThan(5);
+  });
+
+  it('leaves the attribute order as defined when attribute shuffling is off', () => {
+    const plan = createRespondentPlan({
+      definition,
+      design,
+      questionnaire: withSpecials(),
+      block: 1,
+      seed: 3,
+    });
+    const view = buildSurveyView(version(withSpecials()), plan, 'Study');
+    expect(view.definition.attributes.map((a) => a.id)).toEqual(
+      definition.attributes.map((a) => a.id),
     );
   });
 });

@@ -8,6 +8,7 @@ import {
   questionnaireSchema,
   type PageKind,
   type Questionnaire,
+  type QuestionnaireOptions,
   type QuestionnairePage,
   type TemplateKind,
 } from '@shared/schemas/questionnaire';
@@ -20,6 +21,7 @@ import {
 import type { StudyDefinition } from '@shared/schemas/study-definition';
 import { useSaveQuestionnaire } from '../api/save-questionnaire';
 import { NavigationOptions } from './navigation-options';
+import { RandomisationOptions } from './randomisation-options';
 import { PageForm } from './page-form';
 import { PageList } from './page-list';
 
@@ -82,6 +84,10 @@ export function QuestionnaireEditor({
 
   const change = (pages: QuestionnairePage[]) => {
     setDraft((d) => ({ ...d, pages }));
+    setDirty(true);
+  };
+  const changeOptions = (options: QuestionnaireOptions) => {
+    setDraft((d) => ({ ...d, options }));
     setDirty(true);
   };
   const problems = check.success ? [] : check.error.issues.map((i) => i.message);
@@ -184,16 +190,23 @@ export function QuestionnaireEditor({
           )}
         </Card>
       </div>
-      <Card title="Going back">
-        <NavigationOptions
-          options={draft.options}
-          disabled={!editable}
-          onChange={(options) => {
-            setDraft((d) => ({ ...d, options }));
-            setDirty(true);
-          }}
-        />
-      </Card>
+      <div className="grid gap-4 lg:grid-cols-2">
+        <Card title="Going back">
+          <NavigationOptions
+            options={draft.options}
+            disabled={!editable}
+            onChange={changeOptions}
+          />
+        </Card>
+        <Card title="Randomisation">
+          <RandomisationOptions
+            options={draft.options}
+            labeled={definition.alternatives.labeled}
+            disabled={!editable}
+            onChange={changeOptions}
+          />
+        </Card>
+      </div>
       {editable && (
         <div className="sticky bottom-0 flex flex-wrap items-center gap-3 border-t border-line bg-canvas/95 py-3 backdrop-blur">
           <Button

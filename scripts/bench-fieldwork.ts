@@ -9,8 +9,12 @@
  * panel mixed logit of the demo study estimates in the same server process. Every answer the
  * server acknowledged is looked up in the database afterwards (lost, duplicated).
  *
+ * With `--compare-with <another checkout>` (e.g. a worktree of main) the other checkout's server
+ * takes the same idle load first, against the same database and the same machine, so that two
+ * implementations are compared side by side in one run (the `baseline` figures).
+ *
  * Usage: npm run bench:fieldwork [-- --respondents 500] [-- --ramp 5] [-- --think 400]
- *        [-- --port 5281] [-- --json]
+ *        [-- --port 5281] [-- --pool <connections>] [-- --compare-with <dir>] [-- --json]
  */
 import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
@@ -21,7 +25,7 @@ import { adminUrl, createScratchDatabase } from './lib/scratch-db';
 import { startProcess, waitForHealth } from './lib/server-process';
 import { runLoadClient } from './lib/load-client-process';
 import type { LoadResult } from './lib/respondent-load';
-import { latencySummary, sampleLoadAverage } from './lib/load-stats';
+import { fullLoadWindow, latencySummary, sampleLoadAverage } from './lib/load-stats';
 import {
   BENCH_TASKS_PER_RESPONDENT,
   createBenchStudy,
@@ -40,7 +44,11 @@ const RESPONDENTS = arg('respondents', 500);
 const RAMP_S = arg('ramp', 5);
 const THINK_MS = arg('think', 400);
 const PORT = arg('port', 5281);
+/** Database connections of the server process; by default the server's own (DB_POOL_SIZE). */
+const POOL = arg('pool', 0);
 const RETRY_SHARE = 0.1;
+const compareAt = args.indexOf('--compare-with');
+const BASELINE_DIR = compareAt >= 0 ? path.resolve(args[compareAt + 1]) : null;
 
 const root = path.resolve(import.meta.dirname, '..');
 const log = (s: string) => {
@@ -67,12 +75,14 @@ async function measure(base: string, publicId: string, first: number) {
 }
 
 function phaseFigures(p: Phase) {
-  // Answers stored per second while every respondent is answering (after the ramp).
   return {
     respondents: RESPONDENTS,
     seconds: Number(p.seconds.toFixed(2)),
     answersAcknowledged: p.r.acknowledged.length,
+    // Over the whole load, ramp and tail included.
     answersPerSecond: Math.round(p.r.acknowledged.length / p.seconds),
+    // While all of them answer at once (see fullLoadWindow).
+    fullLoad: fullLoadWindow(p.r.spans, p.r.ackAt),
     answerLatencyMs: latencySummary(p.r.answerMs),
     sessionStartLatencyMs: latencySummary(p.r.sessionMs),
     replaysAsked: p.r.replaysAsked,
@@ -98,21 +108,39 @@ async function main() {
     log(`bench:fieldwork — scratch database ${scratch.name}; seeding the demo study…`);
     const credentials = await seedScratchDemo(scratch.url, work);
     const { publicId, studyId } = await createBenchStudy(db);
+    const serverEnv = {
+      NODE_ENV: 'production',
+      HOST: '127.0.0.1',
+      PORT: String(PORT),
+      APP_URL: base,
+      DATABASE_URL: scratch.url,
+      JWT_SECRET: randomBytes(32).toString('hex'),
+      DATA_DIR: work,
+      EMBEDDED_WORKER: 'true',
+      ...(POOL > 0 ? { DB_POOL_SIZE: String(POOL) } : {}),
+      // No mail in this benchmark: nothing listens there.
+      SMTP_PORT: '9',
+    };
+    let baseline: Phase | null = null;
+    if (BASELINE_DIR) {
+      log(`  baseline: ${BASELINE_DIR}, ${RESPONDENTS} respondents…`);
+      const other = startProcess({
+        entry: 'server/main.ts',
+        cwd: BASELINE_DIR,
+        logFile: path.join(root, '.data', 'bench', 'fieldwork-baseline-server.log'),
+        env: serverEnv,
+      });
+      try {
+        await waitForHealth(base);
+        baseline = await measure(base, publicId, 2 * RESPONDENTS);
+      } finally {
+        await other.stop();
+      }
+    }
     server = startProcess({
       entry: 'server/main.ts',
       logFile: path.join(root, '.data', 'bench', 'fieldwork-server.log'),
-      env: {
-        NODE_ENV: 'production',
-        HOST: '127.0.0.1',
-        PORT: String(PORT),
-        APP_URL: base,
-        DATABASE_URL: scratch.url,
-        JWT_SECRET: randomBytes(32).toString('hex'),
-        DATA_DIR: work,
-        EMBEDDED_WORKER: 'true',
-        // No mail in this benchmark: nothing listens there.
-        SMTP_PORT: '9',
-      },
+      env: serverEnv,
     });
     const startupSeconds = await waitForHealth(base);
     log(`  server pid ${server.pid} healthy after ${startupSeconds.toFixed(1)} s`);
@@ -129,15 +157,20 @@ async function main() {
     await run.cancel().catch(() => {});
 
     const stored = await readStoredAnswers(db, studyId);
-    const counts = reconcile([...idle.r.acknowledged, ...busy.r.acknowledged], stored);
+    const counts = reconcile(
+      [...idle.r.acknowledged, ...busy.r.acknowledged, ...(baseline?.r.acknowledged ?? [])],
+      stored,
+    );
     const idleP99 = latencySummary(idle.r.answerMs).p99;
     const busyP99 = latencySummary(busy.r.answerMs).p99;
     const result = {
       respondents: RESPONDENTS,
       screensPerRespondent: BENCH_TASKS_PER_RESPONDENT + 1,
       rampSeconds: RAMP_S,
+      dbPoolSize: POOL > 0 ? POOL : 'server default',
       thinkMs: THINK_MS,
       answersPerSecond: phaseFigures(idle).answersPerSecond,
+      answersPerSecondAtFullLoad: phaseFigures(idle).fullLoad.answersPerSecond,
       answerP99Ms: idleP99,
       sessionStartP99Ms: latencySummary(idle.r.sessionMs).p99,
       answersLost: counts.lost,
@@ -155,6 +188,7 @@ async function main() {
           iterationAtEnd: after.progress?.iteration ?? null,
         },
       },
+      baseline: baseline ? { checkout: BASELINE_DIR, ...phaseFigures(baseline) } : null,
       reconciliation: counts,
       serverStartupSeconds: Number(startupSeconds.toFixed(1)),
       node: process.version,
@@ -165,11 +199,12 @@ async function main() {
     if (asJson) console.log(JSON.stringify(result));
     else {
       for (const [name, p] of [
+        ...(result.baseline ? ([['baseline (idle)', result.baseline]] as const) : []),
         ['idle', result.idle],
         ['while estimating', result.whileEstimating],
       ] as const)
         log(
-          `  ${name.padEnd(17)} ${p.answersPerSecond} answers/s · answer p50 ${p.answerLatencyMs.p50} p99 ${p.answerLatencyMs.p99} ms · session start p99 ${p.sessionStartLatencyMs.p99} ms · load ${p.loadAverage1m.mean}`,
+          `  ${name.padEnd(17)} ${p.answersPerSecond} answers/s (all answering: ${p.fullLoad.answersPerSecond ?? '–'}, peak ${p.fullLoad.peakRespondentsAnswering} at once) · answer p50 ${p.answerLatencyMs.p50} p99 ${p.answerLatencyMs.p99} ms · session start p99 ${p.sessionStartLatencyMs.p99} ms · load ${p.loadAverage1m.mean}`,
         );
       log(
         `  reconciliation   sent ${counts.sent}, stored ${counts.stored}, lost ${counts.lost}, duplicated ${counts.duplicated}`,

@@ -36,3 +36,29 @@ export function sampleLoadAverage(loadavg: () => number[]) {
     },
   };
 }
+
+/**
+ * Throughput while every respondent is answering at once: from the moment the last one has
+ * started until the first one has finished. With a ramp longer than one respondent's
+ * session the arrivals never all overlap; then the window is empty (answersPerSecond null)
+ * and only the peak number of respondents answering at the same time is reported.
+ */
+export function fullLoadWindow(spans: Array<[number, number]>, ackAt: number[]) {
+  let peak = 0;
+  const events = spans.flatMap(([a, b]) => [
+    [a, 1],
+    [b, -1],
+  ]);
+  events.sort((x, y) => x[0] - y[0] || x[1] - y[1]);
+  let active = 0;
+  for (const [, d] of events) peak = Math.max(peak, (active += d));
+  const from = Math.max(...spans.map((s) => s[0]));
+  const to = Math.min(...spans.map((s) => s[1]));
+  const seconds = Math.max(0, (to - from) / 1000);
+  const answers = ackAt.filter((t) => t >= from && t <= to).length;
+  return {
+    peakRespondentsAnswering: peak,
+    seconds: Number(seconds.toFixed(2)),
+    answersPerSecond: seconds >= 1 ? Math.round(answers / seconds) : null,
+  };
+}

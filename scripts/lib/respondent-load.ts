@@ -31,6 +31,10 @@ export type LoadOptions = {
 export type LoadResult = {
   answerMs: number[];
   sessionMs: number[];
+  /** When each first acknowledgement of an answer arrived (ms after startedAt). */
+  ackAt: number[];
+  /** Each started respondent's session: from its start's reply to its last reply (ms after startedAt). */
+  spans: Array<[number, number]>;
   /** Client ids the server acknowledged (2xx), with the respondent's session token. */
   acknowledged: Array<{ token: string; clientId: string; screenKey: string }>;
   unsent: number;
@@ -51,6 +55,44 @@ export type LoadResult = {
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
+/** A reply not complete within this long is treated as lost (sent again). */
+const REQUEST_TIMEOUT_MS = 15_000;
+
+/**
+ * One POST and its JSON reply, settled within REQUEST_TIMEOUT_MS whatever happens: the timer
+ * aborts the request and rejects, so a reply cut off mid-body (or a read that never settles)
+ * counts as lost and is sent again. A 2xx whose body cannot be read is lost too.
+ */
+async function postJson(url: string, headers: Record<string, string>, body: unknown) {
+  const abort = new AbortController();
+  let timer: NodeJS.Timeout | undefined;
+  const expired = new Promise<never>((_, reject) => {
+    timer = setTimeout(() => {
+      abort.abort();
+      reject(new Error('timed out'));
+    }, REQUEST_TIMEOUT_MS);
+  });
+  const exchange = (async () => {
+    const res = await fetch(url, {
+      method: 'POST',
+      headers,
+      body: JSON.stringify(body),
+      signal: abort.signal,
+    });
+    const json = (await res.json().catch((err: unknown) => {
+      if (res.ok) throw err;
+      return {};
+    })) as Record<string, unknown>;
+    return { status: res.status, headers: res.headers, json };
+  })();
+  try {
+    return await Promise.race([exchange, expired]);
+  } finally {
+    clearTimeout(timer);
+    exchange.catch(() => {});
+  }
+}
+
 function valueFor(screen: RespondentScreen, random: ReturnType<typeof createSeededRandom>) {
   if (screen.kind === 'consent') return { kind: 'consent', agreed: true };
   if (screen.kind === 'instructions') return { kind: 'ack' };
@@ -67,6 +109,8 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
   const r: LoadResult = {
     answerMs: [],
     sessionMs: [],
+    ackAt: [],
+    spans: [],
     acknowledged: [],
     unsent: 0,
     replaysAsked: 0,
@@ -106,17 +150,16 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
       const t0 = performance.now();
       let wait = Math.min(8_000, 250 * 2 ** attempt++) * (0.5 + Math.random());
       try {
-        const res = await fetch(`${opts.bases[instance]}/api/r/${opts.publicId}${path}`, {
-          method: 'POST',
-          headers: {
+        const res = await postJson(
+          `${opts.bases[instance]}/api/r/${opts.publicId}${path}`,
+          {
             'content-type': 'application/json',
             'x-forwarded-for': `10.${(n >> 16) & 255}.${(n >> 8) & 255}.${n & 255}`,
             ...(token ? { 'x-respondent-token': token } : {}),
           },
-          body: JSON.stringify(body),
-          signal: AbortSignal.timeout(15_000),
-        });
-        const json = (await res.json().catch(() => ({}))) as Record<string, unknown>;
+          body,
+        );
+        const { json } = res;
         timings.push(performance.now() - t0);
         if (res.status < 500 && res.status !== 429) {
           noteSuccess();
@@ -152,6 +195,8 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
       return;
     }
     r.respondentsStarted++;
+    const span: [number, number] = [Date.now() - r.startedAt, 0];
+    r.spans.push(span);
     const session = started.json as unknown as RespondentSession;
     for (const screen of session.screens) {
       await sleep(opts.thinkMs * (0.5 + random.next()));
@@ -162,6 +207,7 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
         responseMs: 2000 + random.nextInt(20_000),
       };
       const res = await send(n, '/answers', body, session.sessionToken, r.answerMs);
+      span[1] = Date.now() - r.startedAt;
       if (!res) {
         r.unsent++;
         return;
@@ -173,6 +219,7 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
         });
         return;
       }
+      r.ackAt.push(span[1]);
       r.acknowledged.push({
         token: session.sessionToken,
         clientId: body.clientId,

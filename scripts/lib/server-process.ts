@@ -25,13 +25,15 @@ export function startProcess(opts: {
   entry: 'server/main.ts' | 'server/worker.ts';
   env: Record<string, string>;
   logFile: string;
+  /** Another checkout of the project to run (benchmarks comparing two implementations). */
+  cwd?: string;
 }): ServerProcess {
   fs.mkdirSync(path.dirname(opts.logFile), { recursive: true });
   const log = fs.openSync(opts.logFile, 'a');
   // Profiling a benchmarked server: BENCH_SERVER_NODE_ARGS='--cpu-prof --cpu-prof-dir=…'.
   const nodeArgs = process.env.BENCH_SERVER_NODE_ARGS?.split(' ').filter(Boolean) ?? [];
   const child = spawn(process.execPath, [...nodeArgs, '--import', 'tsx', opts.entry], {
-    cwd: root,
+    cwd: opts.cwd ?? root,
     env: { PATH: process.env.PATH ?? '', HOME: process.env.HOME ?? '', ...opts.env },
     stdio: ['ignore', log, log],
   });

@@ -79,3 +79,14 @@ export function violatedUniqueIndex(err: unknown): string | null {
   }
   return null;
 }
+
+/**
+ * A value PostgreSQL could not read or convert (SQLSTATE class 22, data exception: a malformed
+ * timestamp or number): a fault of stored data or input, never of the connection.
+ */
+export function isDataException(err: unknown): boolean {
+  return causes(err).some((e) => {
+    const { code } = e as { code?: unknown };
+    return typeof code === 'string' && code.startsWith('22');
+  });
+}

@@ -14,7 +14,7 @@ import type {
   RespondentScreen,
   RespondentStatus,
 } from '../../shared/schemas/respondent';
-import type { AnswerInput } from './answers';
+import type { AnswerInput } from './answer-shape';
 
 /** The stored value holds what the client sent plus fields the server derived (task kind …). */
 function sameValue(stored: unknown, sent: AnswerInput['value']): boolean {

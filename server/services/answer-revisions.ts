@@ -21,7 +21,7 @@ import { readSettings } from './lifecycle';
 import { redirectFor } from './respondent-session';
 import { buildScreens, loadFrozenVersion } from './respondent-screens';
 import { checkAnswerValue } from './answer-rules';
-import { answerColumnsFor, type AnswerInput } from './answers';
+import { answerColumnsFor, type AnswerInput } from './answer-shape';
 
 const notRevisable = () =>
   new ConflictError('revision_not_allowed', 'This answer cannot be changed.', [

@@ -1,5 +1,7 @@
 /**
- * Saving one answer: the fast path of fieldwork. One read gathers the study, the respondent
+ * Saving one answer. A plain in-order answer of a live session from a respondent this process
+ * knows takes one statement (answer-fast-path.ts); everything else comes here, to the full
+ * path, which decides every refusal and retry. One read gathers the study, the respondent
  * and the screens they have answered; the checks run on the cached frozen version and the
  * respondent's cached screens; one statement then stores the answer (and, on the last screen
  * or a screening-out answer, the respondent's final status). Nothing is locked and nothing is
@@ -15,55 +17,22 @@ import { AppError, ConflictError, NotFoundError, ValidationError } from '../lib/
 import { finishRespondent, getAnswerContext } from '../../db/queries/respondents';
 import { insertAnswerAndFinish } from '../../db/queries/answers';
 import { releaseBlock } from '../../db/queries/respondent-blocks';
-import type {
-  AnswerReceipt,
-  AnswerValue,
-  RespondentScreen,
-  RespondentStatus,
-} from '../../shared/schemas/respondent';
+import type { AnswerReceipt, RespondentStatus } from '../../shared/schemas/respondent';
 import { closeIfDue, readSettings } from './lifecycle';
 import { redirectFor } from './respondent-session';
 import { loadFrozenVersion } from './respondent-screens';
-import { pageOfScreen, screensOfRespondent } from './respondent-screen-index';
-import { repeatedTaskNumber } from './respondent-plan';
-import { checkAnswerValue, screensOut } from './answer-rules';
+import { screensOfRespondent } from './respondent-screen-index';
+import { checkAnswerValue } from './answer-rules';
+import { shapeAnswer, type AnswerInput } from './answer-shape';
+import { saveAnswerFast } from './answer-fast-path';
+import { rememberRespondent } from './known-respondents';
 import { resolveRefusedAnswer } from './answer-conflicts';
 import { completeUnderQuota } from './answer-quota';
 import { judgeLateAnswer, type LateAnswerVerdict } from './late-answers';
 
-export type AnswerInput = {
-  clientId: string;
-  screenKey: string;
-  value: AnswerValue;
-  responseMs: number;
-  /** How long ago the phone says the answer was given (late-answers.ts). */
-  ageMs?: number;
-};
-
+export type { AnswerInput };
 export type AnswerContext = NonNullable<Awaited<ReturnType<typeof getAnswerContext>>>;
 type Respondent = NonNullable<AnswerContext['respondent']>;
-
-/** Row columns of an answer: choice tasks map the on-screen position back to the design. */
-export function answerColumnsFor(
-  screen: RespondentScreen,
-  value: AnswerValue,
-  repeatOfTask: number | null,
-) {
-  if (screen.kind !== 'task' || value.kind !== 'choice')
-    return { taskNumber: null, chosenAlternative: null, chosenPosition: null, value };
-  const chosen = screen.alternatives[value.position];
-  return {
-    taskNumber: screen.taskKind === 'design' ? Number(screen.key.slice('task:'.length)) : null,
-    chosenAlternative: chosen.index,
-    chosenPosition: value.position,
-    value: {
-      ...value,
-      taskKind: screen.taskKind,
-      ...(screen.taskKind === 'dominance' ? { dominantChosen: chosen.index === 0 } : {}),
-      ...(repeatOfTask !== null ? { repeatOfTask } : {}),
-    },
-  };
-}
 
 const closedMessages: Record<LateAnswerVerdict, string> = {
   accept: '',
@@ -123,11 +92,17 @@ export async function saveAnswer(
 ): Promise<AnswerReceipt> {
   const now = params.now ?? new Date();
   const { answer } = params;
+  // Most answers are plain in-order answers of a live session: one statement stores them.
+  if ('publicId' in params) {
+    const fast = await saveAnswerFast(db, { ...params, now });
+    if (fast) return fast;
+  }
   let ctx = await getAnswerContext(db, params);
   if (!ctx || ctx.study.archivedAt)
     throw new AppError(404, 'survey_not_found', 'This survey link does not exist.');
   const respondent = ctx.respondent;
   if (!respondent) throw new NotFoundError('Session');
+  if ('publicId' in params) rememberRespondent(params.publicId, respondent);
 
   const version = await loadFrozenVersion(db, { id: respondent.versionId, studyId: ctx.study.id });
   const { screens, plan } = screensOfRespondent(version, respondent);
@@ -176,26 +151,10 @@ export async function saveAnswer(
       `Answer the screens in order; the next one is "${expected.key}".`,
       [{ path: 'screenKey', message: `Expected ${expected.key}` }],
     );
-  const screen = screens[index];
-  checkAnswerValue(screen, answer.value);
+  checkAnswerValue(screens[index], answer.value);
 
-  const page = pageOfScreen(version, screen.key);
-  const repeatOf = page?.kind === 'repeat' ? repeatedTaskNumber(plan, page.repeatOf) : null;
-  const row = {
-    respondentId: respondent.id,
-    studyId: ctx.study.id,
-    versionId: respondent.versionId,
-    block: respondent.block,
-    clientId: answer.clientId,
-    screenKey: answer.screenKey,
-    responseMs: answer.responseMs,
-    createdAt: now,
-    ...answerColumnsFor(screen, answer.value, repeatOf),
-  };
-  const durationMs = now.getTime() - respondent.startedAt.getTime();
-  let status: RespondentStatus = 'in_progress';
-  if (page && screensOut(page, answer.value)) status = 'screened_out';
-  else if (index === screens.length - 1) status = 'completed';
+  const seen = { plan, screens, index };
+  const { row, status, durationMs } = shapeAnswer(version, respondent, seen, answer, now);
 
   if (status === 'completed' && settings.quotaCompletes !== null) {
     const outcome = await completeUnderQuota(db, { studyId: ctx.study.id, row, durationMs, now });

@@ -31,6 +31,7 @@ import { createRespondentPlan } from './respondent-plan';
 import { buildSurveyView, loadFrozenVersion } from './respondent-screens';
 import { screensOfRespondent } from './respondent-screen-index';
 import { findEarlierRespondent, identityOf, lostIdentityRace } from './respondent-identity';
+import { rememberRespondent } from './known-respondents';
 
 type PublicStudy = NonNullable<Awaited<ReturnType<typeof getStudyByPublicId>>>;
 
@@ -197,6 +198,11 @@ export async function startSession(
   input: Required<Pick<StartSessionInput, 'params' | 'device'>> & { sessionToken?: string },
 ): Promise<RespondentSession> {
   const study = await findPublicStudy(deps, publicId);
+  // The answers that follow find this respondent in memory (known-respondents.ts).
+  const open = (r: RespondentRow, opts?: { isNew?: boolean }) => {
+    rememberRespondent(publicId, r);
+    return buildSession(deps.db, study, r, opts);
+  };
   if (input.sessionToken) {
     const mine = await getRespondentByToken(deps.db, {
       studyId: study.id,
@@ -204,7 +210,7 @@ export async function startSession(
     });
     // A closed study still resumes this phone's own session: its outbox may hold answers
     // given before the close, which the grace period accepts (late-answers.ts).
-    if (mine && linkState(study) !== 'not_open') return buildSession(deps.db, study, mine);
+    if (mine && linkState(study) !== 'not_open') return open(mine);
   }
   assertOpen(study);
   const settings = readSettings(study.settings);
@@ -221,20 +227,20 @@ export async function startSession(
   }
   const identity = identityOf(settings, input.params, invitee);
   const earlier = await findEarlierRespondent(deps.db, study.id, identity);
-  if (earlier) return buildSession(deps.db, study, earlier);
+  if (earlier) return open(earlier);
   try {
     const { respondent } = await createRespondent(deps.db, {
       studyId: study.id,
       ...identity,
       device: input.device,
     });
-    return buildSession(deps.db, study, respondent, { isNew: true });
+    return open(respondent, { isNew: true });
   } catch (err) {
     // Opened on two devices at once: the unique index let the other start win; resume it.
     if (!lostIdentityRace(err)) throw err;
     const winner = await findEarlierRespondent(deps.db, study.id, identity);
     if (!winner) throw err;
-    return buildSession(deps.db, study, winner);
+    return open(winner);
   }
 }
 
@@ -242,5 +248,6 @@ export async function getSession(deps: AppDeps, publicId: string, sessionToken: 
   const study = await findPublicStudy(deps, publicId);
   const respondent = await getRespondentByToken(deps.db, { studyId: study.id, sessionToken });
   if (!respondent) throw new NotFoundError('Session');
+  rememberRespondent(publicId, respondent);
   return buildSession(deps.db, study, respondent);
 }

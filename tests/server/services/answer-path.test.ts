@@ -1,7 +1,10 @@
 /**
  * The fast answer path under concurrency: blocks stay balanced when a panel's respondents
  * arrive at once, a quota of completes is never exceeded however many finish together, and a
- * client id is bound to one screen and one value.
+ * client id is bound to one screen and one value. The one-statement path (answer-fast-path.ts)
+ * stores only plain in-order answers of a live session and writes nothing in every other case,
+ * which it leaves to the full path: a retry, an answer out of order, a closed or closing
+ * study, a completion under a quota, an ended session, a respondent this process does not know.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { and, eq } from 'drizzle-orm';
@@ -9,8 +12,10 @@ import { createTestApp, type TestApp } from '../../support/test-app';
 import { signUpOwner } from '../../support/factories';
 import { answers, respondentBlockCounts, respondents } from '../../../db/schema/fieldwork';
 import { saveAnswer, type AnswerInput } from '../../../server/services/answers';
+import { saveAnswerFast } from '../../../server/services/answer-fast-path';
+import { rememberRespondent } from '../../../server/services/known-respondents';
 import { buildSession, createRespondent } from '../../../server/services/respondent-session';
-import { goLive } from '../../../server/services/lifecycle';
+import { closeStudy, goLive } from '../../../server/services/lifecycle';
 import { getStudyById } from '../../../db/queries/studies';
 import { answerFor, insertStudy } from '../routes/respond-fixtures';
 
@@ -24,11 +29,12 @@ afterAll(async () => {
   await t.close();
 });
 
-async function liveStudy(settings: object = {}) {
-  const { id } = await insertStudy(t, teamId, { settings });
-  await goLive(t.deps, teamId, id);
-  return id;
+async function liveStudyWithLink(settings: object = {}) {
+  const study = await insertStudy(t, teamId, { settings });
+  await goLive(t.deps, teamId, study.id);
+  return study;
 }
+const liveStudy = async (settings: object = {}) => (await liveStudyWithLink(settings)).id;
 
 async function newRespondent(studyId: string) {
   const { respondent, sessionToken } = await createRespondent(t.deps.db, { studyId });
@@ -157,5 +163,119 @@ describe('client ids', () => {
     });
     expect(done).toMatchObject({ status: 'completed', replay: false, nextScreenKey: null });
     expect(again).toMatchObject({ status: 'completed', replay: true, nextScreenKey: null });
+  });
+});
+
+async function liveRespondent(settings: object = {}, remember = true) {
+  const study = await liveStudyWithLink(settings);
+  const { respondent, sessionToken, session } = await newRespondent(study.id);
+  if (remember) rememberRespondent(study.publicId, respondent);
+  const fast = (answer: AnswerInput, now = new Date()) =>
+    saveAnswerFast(t.deps.db, { publicId: study.publicId, sessionToken, answer, now });
+  const full = (answer: AnswerInput) =>
+    saveAnswer(t.deps.db, { publicId: study.publicId, sessionToken, answer });
+  const stored = () =>
+    t.deps.db
+      .select({ screenKey: answers.screenKey, clientId: answers.clientId })
+      .from(answers)
+      .where(eq(answers.respondentId, respondent.id));
+  return { study, respondent, screens: session.screens, fast, full, stored };
+}
+
+describe('saveAnswerFast', () => {
+  it('stores an in-order answer once and gives the next screen', async () => {
+    const r = await liveRespondent();
+    const a = answerOf(r.screens[0]);
+    const receipt = await r.fast(a);
+    expect(receipt).toMatchObject({
+      screenKey: r.screens[0].key,
+      nextScreenKey: r.screens[1].key,
+      status: 'in_progress',
+      replay: false,
+    });
+    expect(await r.stored()).toEqual([{ screenKey: r.screens[0].key, clientId: a.clientId }]);
+  });
+
+  it('writes nothing for a retry, which the full path then recognises', async () => {
+    const r = await liveRespondent();
+    const a = answerOf(r.screens[0]);
+    await r.fast(a);
+    expect(await r.fast(a)).toBeNull();
+    expect(await r.full(a)).toMatchObject({ replay: true, nextScreenKey: r.screens[1].key });
+    expect(await r.stored()).toHaveLength(1);
+  });
+
+  it('writes nothing for a screen out of order or a second answer to a screen', async () => {
+    const r = await liveRespondent();
+    expect(await r.fast(answerOf(r.screens[1]))).toBeNull();
+    await r.fast(answerOf(r.screens[0]));
+    expect(await r.fast(answerOf(r.screens[0]))).toBeNull();
+    expect(await r.stored()).toHaveLength(1);
+  });
+
+  it('writes nothing for a respondent this process does not know', async () => {
+    const r = await liveRespondent({}, false);
+    expect(await r.fast(answerOf(r.screens[0]))).toBeNull();
+    expect(await r.stored()).toHaveLength(0);
+  });
+
+  it('writes nothing once the study is closed, or its closing date has passed', async () => {
+    const closed = await liveRespondent();
+    await closeStudy(t.deps, teamId, closed.study.id);
+    expect(await closed.fast(answerOf(closed.screens[0]))).toBeNull();
+
+    const closeAt = new Date(Date.now() + 60_000);
+    const due = await liveRespondent({ closeAt: closeAt.toISOString() });
+    expect(await due.fast(answerOf(due.screens[0]), new Date(closeAt.getTime() + 1))).toBeNull();
+    expect(await due.fast(answerOf(due.screens[0]))).not.toBeNull();
+    expect(await closed.stored()).toHaveLength(0);
+    expect(await due.stored()).toHaveLength(1);
+  });
+
+  it('completes the session on the last screen, but leaves a completion under a quota alone', async () => {
+    for (const quota of [null, 10]) {
+      const r = await liveRespondent(quota ? { quotaCompletes: quota } : {});
+      for (const screen of r.screens.slice(0, -1))
+        expect(await r.fast(answerOf(screen))).not.toBeNull();
+      const last = await r.fast(answerOf(r.screens.at(-1)!));
+      const [row] = await t.deps.db
+        .select({ status: respondents.status })
+        .from(respondents)
+        .where(eq(respondents.id, r.respondent.id));
+      if (quota === null) {
+        expect(last).toMatchObject({ status: 'completed', nextScreenKey: null });
+        expect(row.status).toBe('completed');
+        // An ended session takes nothing more on this path.
+        expect(await r.fast(answerOf(r.screens[0]))).toBeNull();
+      } else {
+        expect(last).toBeNull();
+        expect(row.status).toBe('in_progress');
+        expect(await r.full(answerOf(r.screens.at(-1)!))).toMatchObject({ status: 'completed' });
+      }
+    }
+  });
+
+  it('screens out and gives the block place back in the same statement', async () => {
+    const r = await liveRespondent();
+    await r.fast(answerOf(r.screens[0]));
+    const out = await r.fast({
+      ...answerOf(r.screens[1]),
+      value: { kind: 'single', optionId: 'no' },
+    });
+    expect(out).toMatchObject({ status: 'screened_out', nextScreenKey: null });
+    const [counts] = await t.deps.db
+      .select({ filling: respondentBlockCounts.filling })
+      .from(respondentBlockCounts)
+      .where(eq(respondentBlockCounts.versionId, r.respondent.versionId));
+    expect(counts.filling.reduce((s, n) => s + n, 0)).toBe(0);
+  });
+
+  it('stores one of twelve different answers sent for the same screen at once', async () => {
+    const r = await liveRespondent();
+    const results = await Promise.all(
+      Array.from({ length: 12 }, () => r.fast(answerOf(r.screens[0]))),
+    );
+    expect(results.filter((x) => x !== null)).toHaveLength(1);
+    expect(await r.stored()).toHaveLength(1);
   });
 });

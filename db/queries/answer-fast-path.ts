@@ -1,0 +1,106 @@
+/**
+ * The answer path's one statement: stores an answer (and, when it ends the session, the
+ * respondent's final status and, for a screened-out respondent, their block place) only if
+ * every condition of a plain in-order answer holds, and reads back what the service needs
+ * either way. Anything else — a retry, a closed or closing study, a quota, an answer out of
+ * order — writes nothing here and is decided by the full path (server/services/answers.ts).
+ *
+ * It is sent as a named prepared statement on the pool: PostgreSQL parses and plans it once
+ * per connection, and the process builds no SQL per answer (the busiest statement of a panel
+ * launch). The text is fixed; every value travels as a parameter.
+ */
+import type { Db } from '../client';
+import type { insertAnswerAndFinish } from './answers';
+
+type AnswerRow = Omit<Parameters<typeof insertAnswerAndFinish>[1], 'finish'> & {
+  createdAt: Date;
+};
+
+const STATEMENT = 'answer_fast_path_v1';
+
+/*
+ * Conditions (all must hold, or nothing is written):
+ * - the study is live and not archived, and its closing date (if any) is still ahead;
+ * - the respondent is still answering, and exactly the screens before this one are answered
+ *   (the count matches and no answered key lies outside that prefix);
+ * - an answer that completes the session does so in a study without a quota of completes
+ *   (those take the quota lock on the full path).
+ * The unique indexes on (respondent, screen) and (respondent, client id) still decide between
+ * two concurrent writers, as on the full path.
+ */
+const TEXT = `
+with ctx as (
+  select r.status, s.settings,
+         (s.status = 'live' and s.archived_at is null
+          and (s.settings->>'closeAt' is null or (s.settings->>'closeAt')::timestamptz > $10)
+          and ($12::text <> 'completed'
+               or jsonb_typeof(s.settings->'quotaCompletes') is distinct from 'number')
+          and r.status = 'in_progress'
+          and (select count(*) from answers a where a.respondent_id = r.id) = cardinality($11::text[])
+          and not exists (select 1 from answers a
+                           where a.respondent_id = r.id and a.screen_key <> all($11::text[]))
+         ) as open
+    from respondents r join studies s on s.id = r.study_id
+   where r.id = $1 and s.id = $2
+),
+ins as (
+  insert into answers (respondent_id, study_id, client_id, screen_key, task_number,
+                       chosen_alternative, chosen_position, value, response_ms, created_at)
+  select $1::uuid, $2::uuid, $3::text, $4::text, $5::int, $6::int, $7::int, $8::jsonb, $9::int,
+         $10::timestamptz
+    from ctx where ctx.open
+  on conflict do nothing
+  returning id
+),
+fin as (
+  update respondents set status = $12::respondent_status, finished_at = $10, duration_ms = $13
+   where id = $1 and $12::text <> 'in_progress' and status = 'in_progress'
+     and exists (select 1 from ins)
+  returning id
+),
+freed as (
+  update respondent_block_counts
+     set filling[$14::int] = greatest(filling[$14::int] - 1, 0)
+   where version_id = $15 and $12::text in ('screened_out', 'over_quota')
+     and exists (select 1 from fin)
+)
+select (select id from ins) as id, ctx.settings from ctx`;
+
+/**
+ * Stores the answer when it is a plain in-order answer of a live session. Returns the new id
+ * and the study's settings; `id` is null when nothing was written, and the whole result is
+ * null when the respondent or study is gone.
+ */
+export async function insertAnswerIfOpen(
+  db: Db,
+  params: AnswerRow & {
+    /** Screen keys that must be exactly the ones answered so far. */
+    answeredBefore: string[];
+    status: 'in_progress' | 'completed' | 'screened_out';
+    durationMs: number;
+  },
+): Promise<{ id: string | null; settings: unknown } | null> {
+  const r = await db.$client.query<{ id: string | null; settings: unknown }>({
+    name: STATEMENT,
+    text: TEXT,
+    values: [
+      params.respondentId,
+      params.studyId,
+      params.clientId,
+      params.screenKey,
+      params.taskNumber,
+      params.chosenAlternative,
+      params.chosenPosition,
+      JSON.stringify(params.value),
+      params.responseMs,
+      params.createdAt,
+      params.answeredBefore,
+      params.status,
+      params.durationMs,
+      params.block,
+      params.versionId,
+    ],
+  });
+  const row = r.rows[0];
+  return row ? { id: row.id, settings: row.settings } : null;
+}

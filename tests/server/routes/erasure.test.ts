@@ -10,6 +10,7 @@ import { randomBytes } from 'node:crypto';
 import { createTestApp, type TestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { seedTastesStudy } from './tastes-fixture';
+import { answerFor, sendAnswer, startLiveSession } from './respond-fixtures';
 import { answerRevisions, invitees, respondents } from '../../../db/schema/fieldwork';
 import { runs } from '../../../db/schema/models';
 import { mailOutbox } from '../../../db/schema/mail';
@@ -323,5 +324,34 @@ describe('refused requests change nothing', () => {
       .send(erase);
     expect(res.status).toBe(404);
     expect(await snapshot()).toEqual(before);
+  });
+});
+
+describe('a respondent answering while being erased', () => {
+  it('cannot store answers once erased, even with their session remembered by the server', async () => {
+    const { study, session } = await startLiveSession(t, team.agents.owner, team.teamId);
+    const first = await sendAnswer(
+      t,
+      study.publicId,
+      session.sessionToken,
+      'answers',
+      answerFor(session.screens[0]!),
+    );
+    expect(first.status).toBeLessThan(300);
+    const erased = await owner().post(base(study.id)).send({ by: 'number', value: '1', reason });
+    expect(erased.status).toBe(200);
+    const later = await sendAnswer(
+      t,
+      study.publicId,
+      session.sessionToken,
+      'answers',
+      answerFor(session.screens[1]!),
+    );
+    expect(later.status).toBeGreaterThanOrEqual(400);
+    expect(later.status).toBeLessThan(500);
+    const { rows } = await t.deps.db.execute(
+      sql`select count(*)::int as n from answers where study_id = ${study.id}`,
+    );
+    expect(rows[0]!.n).toBe(0);
   });
 });

@@ -167,7 +167,7 @@ export function EraseRespondentForm({ teamId, studyId }: { teamId: string; study
         <Alert tone="success" title={`Erased ${whoOf(done)}.`}>
           Deleted {whatGoes(done)}.
           {done.runsAffected > 0 &&
-            ` ${plural(done.runsAffected, 'model run')} now say so; estimate again to remove them.`}{' '}
+            ` ${plural(done.runsAffected, 'model run')} now ${done.runsAffected === 1 ? 'says' : 'say'} so; estimate again to remove them.`}{' '}
           The other respondents keep their numbers.
         </Alert>
       )}

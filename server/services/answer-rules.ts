@@ -18,6 +18,12 @@ export function checkAnswerValue(screen: RespondentScreen, value: AnswerValue): 
       if (value.kind !== 'choice') throw invalid('Choose one of the options.');
       if (value.position >= screen.alternatives.length)
         throw invalid('There is no option at that position.');
+      if (screen.certainty) {
+        if (value.certainty === undefined) throw invalid('Say how sure you are about this choice.');
+        if (value.certainty > screen.certainty.points)
+          throw invalid(`Choose a number from 1 to ${screen.certainty.points}.`);
+      } else if (value.certainty !== undefined)
+        throw invalid('This task does not ask how sure you are.');
       return;
     case 'question': {
       const q = screen.question;

@@ -10,6 +10,7 @@ import { designSchema, type Design } from '../../shared/schemas/design';
 import {
   questionnaireSchema,
   screenKeys,
+  type CertaintyScale,
   type Questionnaire,
 } from '../../shared/schemas/questionnaire';
 import type {
@@ -110,6 +111,7 @@ export function buildScreens(version: FrozenVersion, plan: RespondentPlan): Resp
     taskKind: TaskKind,
     title: string,
     levelsOf: (i: number) => Record<string, string>,
+    certainty?: CertaintyScale,
   ) => {
     const order = plan.positions[key];
     if (!order) throw new RangeError(`The plan has no positions for ${key}`);
@@ -120,6 +122,7 @@ export function buildScreens(version: FrozenVersion, plan: RespondentPlan): Resp
       taskKind,
       title,
       alternatives: displayAlternatives(definition, order, levelsOf),
+      ...(certainty ? { certainty } : {}),
     });
   };
   for (const page of questionnaire.pages) {
@@ -154,6 +157,7 @@ export function buildScreens(version: FrozenVersion, plan: RespondentPlan): Resp
             'design',
             page.title,
             (i) => taskByNumber.get(n)!.alternatives[i].levels,
+            page.certainty,
           );
         break;
       case 'warmup':

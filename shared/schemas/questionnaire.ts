@@ -109,7 +109,31 @@ export const instructionsPageSchema = z.object({
   template: templateKindSchema.optional(),
 });
 /** Where the respondent's block of design tasks goes, one task per screen. */
-export const tasksPageSchema = z.object({ ...page, kind: z.literal('tasks'), title });
+/**
+ * A certainty question under each design task ("How sure are you about this choice?"), answered
+ * on a numbered scale from 1 to `points` with words at both ends. Sources in docs/methods.md
+ * ("Certainty after each choice").
+ */
+export const certaintyScaleSchema = z.object({
+  question: z.string().trim().min(1, 'Write the certainty question').max(200),
+  points: z.number().int().min(3, 'Use 3 to 10 points').max(10, 'Use 3 to 10 points'),
+  lowLabel: z.string().trim().min(1, 'Name the low end of the scale').max(60),
+  highLabel: z.string().trim().min(1, 'Name the high end of the scale').max(60),
+});
+export type CertaintyScale = z.infer<typeof certaintyScaleSchema>;
+export const defaultCertaintyScale = (): CertaintyScale => ({
+  question: 'How sure are you about this choice?',
+  points: 10,
+  lowLabel: 'Not at all sure',
+  highLabel: 'Completely sure',
+});
+
+export const tasksPageSchema = z.object({
+  ...page,
+  kind: z.literal('tasks'),
+  title,
+  certainty: certaintyScaleSchema.optional(),
+});
 export const warmupPageSchema = z.object({
   ...page,
   kind: z.literal('warmup'),

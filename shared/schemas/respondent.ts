@@ -4,7 +4,7 @@
  * session token (header X-Respondent-Token) reaches only their own session.
  */
 import { z } from 'zod';
-import type { Question } from './questionnaire';
+import type { CertaintyScale, Question } from './questionnaire';
 import type { StudyDefinition } from './study-definition';
 import type { BackOptions } from '../survey/going-back';
 
@@ -55,8 +55,15 @@ export const answerValueSchema = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('multiple'), optionIds: z.array(z.string().max(40)).max(30) }),
   z.object({ kind: z.literal('number'), number: z.number().finite().nullable() }),
   z.object({ kind: z.literal('text'), text: z.string().max(2000) }),
-  /** Choice tasks: the on-screen position (0-based) of the chosen card. */
-  z.object({ kind: z.literal('choice'), position: z.number().int().min(0).max(5) }),
+  /**
+   * Choice tasks: the on-screen position (0-based) of the chosen card, and the answer to the
+   * certainty question when the task asks one (1 = least sure).
+   */
+  z.object({
+    kind: z.literal('choice'),
+    position: z.number().int().min(0).max(5),
+    certainty: z.number().int().min(1).max(10).optional(),
+  }),
 ]);
 export type AnswerValue = z.infer<typeof answerValueSchema>;
 
@@ -113,6 +120,8 @@ export type RespondentScreen =
       taskIndex: number;
       taskCount: number;
       alternatives: DisplayAlternative[];
+      /** Design tasks of a questionnaire that asks it: the certainty question under the cards. */
+      certainty?: CertaintyScale;
     };
 
 export type RespondentStatus = 'in_progress' | 'completed' | 'screened_out' | 'over_quota';

@@ -12,7 +12,11 @@ import { respondents } from '../../../db/schema/fieldwork';
 import { studies } from '../../../db/schema/studies';
 import { createPage } from '../../../shared/schemas/questionnaire-defaults';
 import type { Questionnaire, QuestionnairePage } from '../../../shared/schemas/questionnaire';
-import { pageKindLabels } from '../../../shared/schemas/questionnaire';
+import {
+  defaultCertaintyScale,
+  defaultQuestionnaireOptions,
+  pageKindLabels,
+} from '../../../shared/schemas/questionnaire';
 import type { RespondentSession, StudyPreview } from '../../../shared/schemas/respondent';
 import { definition, fullQuestionnaire, insertStudy } from './respond-fixtures';
 
@@ -29,7 +33,10 @@ afterAll(async () => {
 const url = (studyId: string, query = '') =>
   `/api/teams/${team.teamId}/studies/${studyId}/preview${query}`;
 
-/** Every page kind, with a custom title on the choice tasks. */
+/**
+ * Every page kind, with a custom title and the certainty question on the choice tasks, and a
+ * per-respondent attribute order.
+ */
 function everyPageKind(): Questionnaire {
   const q = fullQuestionnaire();
   const end = q.pages.pop()!;
@@ -37,8 +44,14 @@ function everyPageKind(): Questionnaire {
     ...createPage(kind, definition),
     id,
   });
-  const pages = q.pages.map((p) =>
-    p.kind === 'tasks' ? { ...p, title: 'Which package would your household pick?' } : p,
+  const pages = q.pages.map((p): QuestionnairePage =>
+    p.kind === 'tasks'
+      ? {
+          ...p,
+          title: 'Which package would your household pick?',
+          certainty: defaultCertaintyScale(),
+        }
+      : p,
   );
   const tasksAt = pages.findIndex((p) => p.kind === 'tasks');
   pages.splice(tasksAt, 0, page('warmup', 'warm'));
@@ -48,7 +61,10 @@ function everyPageKind(): Questionnaire {
     page('dominance', 'dom'),
     end,
   );
-  return { pages } as Questionnaire;
+  return {
+    pages,
+    options: { ...defaultQuestionnaireOptions(), shuffleAttributes: true },
+  } as Questionnaire;
 }
 
 describe('GET /preview', () => {
@@ -109,6 +125,12 @@ describe('GET /preview', () => {
         'Which package would your household pick?',
         'Which package would your household pick?',
       ]);
+      // …with the certainty question under each, and the respondent's own attribute order.
+      for (const sc of tasks)
+        expect(sc.kind === 'task' && sc.certainty).toEqual(defaultCertaintyScale());
+      expect(preview.survey.definition.attributes.map((a) => a.id)).toEqual(
+        (row.plan as { attributeOrder: string[] }).attributeOrder,
+      );
     }
   });
 

@@ -119,6 +119,7 @@ type Screen = {
   kind: string;
   question?: { type: string; key: string; options?: { id: string }[]; min?: number };
   alternatives?: unknown[];
+  certainty?: { points: number };
 };
 
 /** A plausible answer for any screen (first option, the minimum, the first card). */
@@ -129,7 +130,8 @@ export function answerFor(
   const value = ((): AnswerValue => {
     if (screen.kind === 'consent') return { kind: 'consent', agreed: true };
     if (screen.kind === 'instructions') return { kind: 'ack' };
-    if (screen.kind === 'task') return { kind: 'choice', position: 0 };
+    if (screen.kind === 'task')
+      return { kind: 'choice', position: 0, ...(screen.certainty ? { certainty: 1 } : {}) };
     const q = screen.question!;
     if (q.type === 'single') return { kind: 'single', optionId: q.options![0].id };
     if (q.type === 'multiple') return { kind: 'multiple', optionIds: [q.options![0].id] };

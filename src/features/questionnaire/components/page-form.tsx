@@ -2,13 +2,15 @@ import { TextAreaField, TextField } from '@/components/ui/field';
 import { pageKindLabels, type QuestionnairePage } from '@shared/schemas/questionnaire';
 import type { StudyDefinition } from '@shared/schemas/study-definition';
 import { templateHelp, templateLabels } from '@shared/schemas/questionnaire-templates';
+import { CertaintyFields } from './certainty-fields';
 import { QuestionFields } from './question-fields';
 import { DominanceFields, HandSetTaskFields } from './task-page-fields';
 
 const kindHelp: Partial<Record<QuestionnairePage['kind'], string>> = {
   consent:
     'Respondents must agree before anything else. Say who runs the study, what is recorded, how long it is kept, that taking part is voluntary and that they may stop at any time. Follow your ethics board and data-protection law.',
-  tasks: "Each respondent sees their block's choice tasks here, one per screen, in a random order.",
+  tasks:
+    "Each respondent sees their block's choice tasks here, one per screen, in the order set under Randomisation.",
   warmup:
     'A hand-set practice task shown before the design tasks. It is stored but not used in estimation.',
   holdout:
@@ -72,6 +74,7 @@ export function PageForm({
         />
       )}
       {(page.kind === 'tasks' || page.kind === 'repeat') && titled}
+      {page.kind === 'tasks' && <CertaintyFields page={page} onChange={onChange} />}
       {page.kind === 'repeat' && (
         <TextField
           label="Repeat the respondent's task number"

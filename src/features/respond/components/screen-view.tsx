@@ -38,7 +38,7 @@ export function RespondentScreenView({
         <TaskScreen
           screen={screen}
           definition={definition}
-          onAnswer={(position) => give({ kind: 'choice', position })}
+          onAnswer={(answer) => give({ kind: 'choice', ...answer })}
           initial={initial}
         />
       );

@@ -5,12 +5,13 @@ import {
   type ChoiceTaskAlternative,
 } from '@/components/choice-task/choice-task-card';
 import type { AnswerValue, RespondentScreen, RespondentSession } from '@shared/schemas/respondent';
+import { CertaintyScaleField } from './certainty-scale';
 import { NextBar, ScreenFrame } from './screen-frame';
 
 type Props = {
   screen: Extract<RespondentScreen, { kind: 'task' }>;
   definition: RespondentSession['definition'];
-  onAnswer: (position: number) => void;
+  onAnswer: (answer: { position: number; certainty?: number }) => void;
   /** The choice made earlier, when the respondent came back to this task. */
   initial?: AnswerValue;
 };
@@ -20,6 +21,10 @@ export function TaskScreen({ screen, definition, onAnswer, initial }: Props) {
   const [chosen, setChosen] = useState<number | null>(
     initial?.kind === 'choice' ? initial.position : null,
   );
+  const [certainty, setCertainty] = useState<number | null>(
+    initial?.kind === 'choice' ? (initial.certainty ?? null) : null,
+  );
+  const ready = chosen !== null && (!screen.certainty || certainty !== null);
   const alternatives: ChoiceTaskAlternative[] = screen.alternatives.map((a) =>
     a.fixed ? { kind: 'fixed' } : { kind: 'designed', designIndex: a.index, levels: a.levels },
   );
@@ -33,20 +38,29 @@ export function TaskScreen({ screen, definition, onAnswer, initial }: Props) {
         onChoose={setChosen}
         label={`${label}: ${screen.title}`}
       />
+      {screen.certainty && (
+        <CertaintyScaleField scale={screen.certainty} value={certainty} onChange={setCertainty} />
+      )}
       <NextBar>
         <div className="flex items-center gap-3">
           <Button
             size="lg"
             className="w-full sm:w-auto sm:min-w-40"
-            disabled={chosen === null}
-            onClick={() => chosen !== null && onAnswer(chosen)}
+            disabled={!ready}
+            onClick={() =>
+              chosen !== null &&
+              ready &&
+              onAnswer({ position: chosen, ...(certainty !== null ? { certainty } : {}) })
+            }
           >
             Next
           </Button>
           <p className="hidden text-sm text-ink-muted sm:block" aria-live="polite">
             {chosen === null
               ? 'Choose one option to continue.'
-              : 'You can still change your choice.'}
+              : !ready
+                ? 'Say how sure you are to continue.'
+                : 'You can still change your choice.'}
           </p>
         </div>
       </NextBar>

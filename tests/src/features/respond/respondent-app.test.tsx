@@ -1,7 +1,7 @@
 // @vitest-environment jsdom
 import '@testing-library/jest-dom/vitest';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import { cleanup, render, screen, waitFor } from '@testing-library/react';
+import { cleanup, render, screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import type { RespondentSession } from '@shared/schemas/respondent';
 import { RespondentApp } from '@/features/respond/components/respondent-app';
@@ -76,6 +76,8 @@ const session: RespondentSession = {
 
 type Call = { url: string; body: unknown };
 let calls: Call[];
+/** The session the fake server starts: `session` unless a test asks for another. */
+let served: RespondentSession;
 let failNextAnswer: number;
 
 function json(status: number, body: unknown) {
@@ -89,12 +91,13 @@ beforeEach(() => {
   localStorage.clear();
   calls = [];
   failNextAnswer = 0;
+  served = session;
   vi.stubGlobal('fetch', async (url: string, init?: RequestInit) => {
     const body = init?.body ? JSON.parse(String(init.body)) : undefined;
     calls.push({ url, body });
     if (url === '/api/r/abc123' || url.startsWith('/api/r/abc123?'))
       return json(200, { state: 'live', studyName: 'Water services', redirectUrl: null });
-    if (url.endsWith('/sessions')) return json(201, session);
+    if (url.endsWith('/sessions')) return json(201, served);
     if (url.endsWith('/answers')) {
       if (failNextAnswer > 0) {
         failNextAnswer--;
@@ -145,6 +148,40 @@ describe('RespondentApp', () => {
     expect(taskTries).toHaveLength(2);
     expect(taskTries[0].clientId).toBe(taskTries[1].clientId);
     expect(taskTries[0].value).toEqual({ kind: 'choice', position: 1 });
+  });
+
+  it('asks how sure the respondent is under the task, and sends the answer with the choice', async () => {
+    const scale = {
+      question: 'How sure are you?',
+      points: 5,
+      lowLabel: 'Unsure',
+      highLabel: 'Sure',
+    };
+    served = {
+      ...session,
+      screens: session.screens.map((sc) => (sc.kind === 'task' ? { ...sc, certainty: scale } : sc)),
+    };
+    const user = userEvent.setup();
+    render(<RespondentApp publicId="abc123" search="" />);
+    await user.click(await screen.findByLabelText('I agree'));
+    await user.click(screen.getByRole('button', { name: 'Start' }));
+
+    await user.click(await screen.findByRole('radio', { name: 'Option B' }));
+    const group = screen.getByRole('group', { name: 'How sure are you?' });
+    expect(group).toHaveAccessibleDescription('1 means Unsure, 5 means Sure.');
+    // A choice alone is not enough while the certainty question is open.
+    expect(screen.getByRole('button', { name: 'Next' })).toBeDisabled();
+    await user.click(within(group).getByRole('radio', { name: '4' }));
+    await user.click(screen.getByRole('button', { name: 'Next' }));
+    await screen.findByRole('heading', { name: 'How many people live with you?' });
+    await waitFor(() =>
+      expect(
+        calls.find(
+          (c) =>
+            c.url.endsWith('/answers') && (c.body as { screenKey: string }).screenKey === 'task:1',
+        )?.body,
+      ).toMatchObject({ value: { kind: 'choice', position: 1, certainty: 4 } }),
+    );
   });
 
   it('checks a number answer against its range before saving, then ends on the saved page', async () => {

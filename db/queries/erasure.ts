@@ -174,3 +174,8 @@ export async function countTombstones(db: DbOrTx, params: { studyId: string }) {
     .where(eq(respondentTombstones.studyId, params.studyId));
   return Number(row?.n ?? 0);
 }
+
+/** Forgets a study's tombstones (the demo seed, which re-simulates every respondent). */
+export async function deleteTombstones(db: DbOrTx, params: { studyId: string }) {
+  await db.delete(respondentTombstones).where(eq(respondentTombstones.studyId, params.studyId));
+}

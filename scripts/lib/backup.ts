@@ -63,10 +63,14 @@ export async function countRows(url: string): Promise<Record<string, number>> {
   });
 }
 
-async function schemaVersion(url: string): Promise<BackupManifest['schema']> {
-  const journal = JSON.parse(await fs.readFile(journalFile, 'utf8')) as {
+async function readJournal() {
+  return JSON.parse(await fs.readFile(journalFile, 'utf8')) as {
     entries: { when: number; tag: string }[];
   };
+}
+
+async function schemaVersion(url: string): Promise<BackupManifest['schema']> {
+  const journal = await readJournal();
   return withClient(url, async (c) => {
     const exists = await c.query(`select to_regclass('drizzle.__drizzle_migrations') as t`);
     if (!exists.rows[0]?.t) return { migration: null, applied: 0 };
@@ -167,6 +171,12 @@ export async function restore(opts: {
   force?: boolean;
 }): Promise<{ manifest: BackupManifest; tables: Record<string, number> }> {
   const { dir, manifest } = await readManifest(opts.file);
+  // A newer version's schema would meet code that does not know it: update the app first.
+  const known = (await readJournal()).entries.map((e) => e.tag);
+  if (manifest.schema.migration && !known.includes(manifest.schema.migration))
+    throw new RestoreRefused(
+      `The backup's schema (${manifest.schema.migration}) is newer than this version of Choicewright knows; update it before restoring.`,
+    );
   const dumpFile = path.join(dir, manifest.dump.file);
   if ((await sha256(dumpFile)) !== manifest.dump.sha256)
     throw new RestoreRefused(`${dumpFile} does not match its manifest (damaged or replaced)`);

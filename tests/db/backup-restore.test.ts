@@ -179,6 +179,20 @@ describe('backup and restore drill', () => {
     }
   });
 
+  it('refuses a backup made by a newer version (unknown schema), changing nothing', async () => {
+    const url = await emptyDatabase();
+    const manifest = JSON.parse(fs.readFileSync(manifestFile, 'utf8'));
+    const copy = path.join(outDir, 'future.manifest.json');
+    fs.writeFileSync(
+      copy,
+      JSON.stringify({ ...manifest, schema: { migration: '9999_future', applied: 99 } }),
+    );
+    await expect(restore({ file: copy, databaseUrl: url, dataDir: tmp('cw-x-') })).rejects.toThrow(
+      /newer than this version/,
+    );
+    expect(await countRows(url)).toEqual({});
+  });
+
   it('refuses a dump that does not match its manifest', async () => {
     const url = await emptyDatabase();
     const manifest = JSON.parse(fs.readFileSync(manifestFile, 'utf8'));

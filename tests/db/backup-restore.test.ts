@@ -179,31 +179,33 @@ describe('backup and restore drill', () => {
     }
   });
 
-  it('refuses a backup made by a newer version (unknown schema), changing nothing', async () => {
+  /** Restores through a copy of the manifest changed by `patch`, into an empty database. */
+  async function restoreAltered(name: string, patch: (m: Record<string, unknown>) => object) {
     const url = await emptyDatabase();
-    const manifest = JSON.parse(fs.readFileSync(manifestFile, 'utf8'));
-    const copy = path.join(outDir, 'future.manifest.json');
+    const copy = path.join(outDir, `${name}.manifest.json`);
     fs.writeFileSync(
       copy,
-      JSON.stringify({ ...manifest, schema: { migration: '9999_future', applied: 99 } }),
+      JSON.stringify(patch(JSON.parse(fs.readFileSync(manifestFile, 'utf8')))),
     );
-    await expect(restore({ file: copy, databaseUrl: url, dataDir: tmp('cw-x-') })).rejects.toThrow(
-      /newer than this version/,
-    );
+    const attempt = restore({ file: copy, databaseUrl: url, dataDir: tmp('cw-x-') });
+    return { url, attempt };
+  }
+
+  it('refuses a backup made by a newer version (unknown schema), changing nothing', async () => {
+    const { url, attempt } = await restoreAltered('future', (m) => ({
+      ...m,
+      schema: { migration: '9999_future', applied: 99 },
+    }));
+    await expect(attempt).rejects.toThrow(/newer than this version/);
     expect(await countRows(url)).toEqual({});
   });
 
-  it('refuses a dump that does not match its manifest', async () => {
-    const url = await emptyDatabase();
-    const manifest = JSON.parse(fs.readFileSync(manifestFile, 'utf8'));
-    const copy = path.join(outDir, 'tampered.manifest.json');
-    fs.writeFileSync(
-      copy,
-      JSON.stringify({ ...manifest, dump: { ...manifest.dump, sha256: '0'.repeat(64) } }),
-    );
-    await expect(restore({ file: copy, databaseUrl: url, dataDir: tmp('cw-x-') })).rejects.toThrow(
-      /does not match its manifest/,
-    );
+  it('refuses a dump that does not match its manifest, changing nothing', async () => {
+    const { url, attempt } = await restoreAltered('tampered', (m) => ({
+      ...m,
+      dump: { ...(m.dump as object), sha256: '0'.repeat(64) },
+    }));
+    await expect(attempt).rejects.toThrow(/does not match its manifest/);
     expect(await countRows(url)).toEqual({});
   });
 });

@@ -43,7 +43,7 @@ export const respondentColumns = [
   col(
     'number',
     'integer',
-    'Respondent number: position in order of starting',
+    'Respondent number: order of starting, kept when other respondents are erased',
     'none',
     'integer from 1',
   ),

@@ -21,6 +21,8 @@ import {
 
 export interface LongFileRespondent {
   id: string;
+  /** Stable respondent number (kept when others are erased). */
+  number: number;
   versionId: string;
   status: RespondentStatus;
   included: boolean;
@@ -48,7 +50,7 @@ export function buildLongChoiceTable(
   answers: readonly LongFileAnswer[],
 ): DocumentedTable {
   const latest = [...versions].sort((a, b) => b.version - a.version)[0];
-  const number = new Map(respondents.map((r, i) => [r.id, i + 1]));
+  const number = new Map(respondents.map((r) => [r.id, r.number]));
   const byId = new Map(respondents.map((r) => [r.id, r]));
   const versionOf = new Map(versions.map((v) => [v.id, v]));
   const plans = new Map(

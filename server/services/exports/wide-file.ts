@@ -27,6 +27,8 @@ export const STATUS_LEVELS: readonly RespondentStatus[] = [
 
 export interface WideRespondent {
   id: string;
+  /** Stable respondent number (kept when others are erased). */
+  number: number;
   externalId: string | null;
   versionId: string;
   block: number;
@@ -160,7 +162,7 @@ export function buildWideTable(input: WideInput): DocumentedTable {
     ...input.questions.map(questionColumn),
   ];
 
-  const rows: CellValue[][] = input.respondents.map((r, i) => {
+  const rows: CellValue[][] = input.respondents.map((r) => {
     const plan = plans.get(r.id);
     const version = versionNumber.get(r.versionId);
     const inclusion = getInclusion(r);
@@ -168,7 +170,7 @@ export function buildWideTable(input: WideInput): DocumentedTable {
     const own = input.answers.get(r.id);
     return [
       r.id,
-      i + 1,
+      r.number,
       ...(input.personal ? [r.externalId] : []),
       version?.version ?? null,
       r.block,

@@ -4,6 +4,7 @@
  * duration, read from the consent page so the e-mail never promises a different length than
  * the survey itself does.
  */
+import type { z } from 'zod';
 
 export const mailPlaceholders = {
   name: "the invitee's name (empty when the list has none)",
@@ -27,6 +28,12 @@ export function unknownPlaceholderMessage(text: string): string | null {
   const known = Object.keys(mailPlaceholders).map((k) => `{${k}}`);
   const list = unknown.map((p) => `{${p}}`).join(', ');
   return `${unknown.length === 1 ? 'There is no placeholder' : 'There are no placeholders'} ${list}: use ${known.slice(0, -1).join(', ')} or ${known[known.length - 1]}`;
+}
+
+/** A zod refinement for wording fields: refuses a placeholder that does not exist, by name. */
+export function knownPlaceholdersOnly(text: string, ctx: z.RefinementCtx): void {
+  const message = unknownPlaceholderMessage(text);
+  if (message) ctx.addIssue({ code: 'custom', message });
 }
 
 export function fillPlaceholders(text: string, values: Record<MailPlaceholder, string>): string {

@@ -4,7 +4,7 @@
  * when the user says so.
  */
 import { z } from 'zod';
-import { unknownPlaceholderMessage } from '../mail/invitation-wording';
+import { knownPlaceholdersOnly } from '../mail/invitation-wording';
 
 export const INVITEE_NAME_MAX = 120;
 export const INVITEE_EXTERNAL_ID_MAX = 100;
@@ -116,12 +116,6 @@ export const inviteeListSchema = z.object({
   pageSize: z.number().int(),
 });
 export type InviteeList = z.infer<typeof inviteeListSchema>;
-
-/** Refuses a placeholder that does not exist, by name (shared/mail/invitation-wording.ts). */
-const knownPlaceholdersOnly = (text: string, ctx: z.RefinementCtx) => {
-  const message = unknownPlaceholderMessage(text);
-  if (message) ctx.addIssue({ code: 'custom', message });
-};
 
 /**
  * Optional wording of the e-mail, with {name}, {study} and {duration} placeholders; the

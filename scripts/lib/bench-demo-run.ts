@@ -32,18 +32,24 @@ export async function seedScratchDemo(url: string, workDir: string): Promise<str
 
 export type DemoRun = { id: string; get(): Promise<Run>; cancel(): Promise<unknown> };
 
-export async function startDemoMixedRun(base: string, credentialsFile: string): Promise<DemoRun> {
+/** Signs in on `base` as the demo user with this role (from the seed's credentials file). */
+export async function signInDemo(base: string, credentialsFile: string, role: string) {
   const request = createJsonClient(base);
   const list = JSON.parse(fs.readFileSync(credentialsFile, 'utf8')) as Array<{
     role: string;
     email: string;
     password: string;
   }>;
-  const analyst = list.find((c) => c.role === 'analyst')!;
+  const person = list.find((c) => c.role === role)!;
   const me = await request<CurrentUser>('POST', '/auth/sign-in', {
-    email: analyst.email,
-    password: analyst.password,
+    email: person.email,
+    password: person.password,
   });
+  return { request, me };
+}
+
+export async function startDemoMixedRun(base: string, credentialsFile: string): Promise<DemoRun> {
+  const { request, me } = await signInDemo(base, credentialsFile, 'analyst');
   for (const team of me.teams) {
     const studies = await request<StudySummary[]>('GET', `/teams/${team.id}/studies`);
     const study = studies.find((s) => s.name === DEMO_STUDY_NAME);

@@ -80,8 +80,12 @@ const questionnaire = {
   ],
 };
 
-export async function createBenchStudy(db: Db): Promise<{ publicId: string; studyId: string }> {
-  const team = await insertTeam(db, { name: 'Bench team' });
+/** In a team of its own, or in `teamId` (so that its members can manage it through the API). */
+export async function createBenchStudy(
+  db: Db,
+  teamId?: string,
+): Promise<{ publicId: string; studyId: string }> {
+  const team = teamId ? { id: teamId } : await insertTeam(db, { name: 'Bench team' });
   const publicId = randomBytes(9).toString('base64url');
   const [study] = await db
     .insert(studies)

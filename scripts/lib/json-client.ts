@@ -13,10 +13,13 @@ export function createJsonClient(baseUrl: string) {
         Accept: 'application/json',
         // The server refuses state-changing requests that carry a session without an Origin.
         Origin: base,
-        ...(body === undefined ? {} : { 'Content-Type': 'application/json' }),
+        // A FormData body (a file upload) sets its own multipart content type.
+        ...(body === undefined || body instanceof FormData
+          ? {}
+          : { 'Content-Type': 'application/json' }),
         ...(cookie ? { Cookie: cookie } : {}),
       },
-      body: body === undefined ? undefined : JSON.stringify(body),
+      body: body === undefined ? undefined : body instanceof FormData ? body : JSON.stringify(body),
       signal: AbortSignal.timeout(30_000),
     });
     const setCookies = res.headers.getSetCookie();

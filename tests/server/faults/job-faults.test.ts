@@ -9,7 +9,7 @@ import { startTcpProxy, type TcpProxy } from '../../support/tcp-proxy';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { getRunForJob } from '../../../db/queries/runs';
 import { runEstimationJob } from '../../../server/jobs/estimation-job';
-import { ignoreTeardownErrors, seedRunStudy } from '../jobs/run-fixtures';
+import { ignoreTeardownErrors, mixedLogitSpec, seedRunStudy } from '../jobs/run-fixtures';
 
 let t: TestApp;
 let proxy: TcpProxy;
@@ -37,17 +37,7 @@ describe('estimation while PostgreSQL restarts', () => {
   it('keeps estimating through the outage and saves the run when the database is back', async () => {
     const res = await team.agents.analyst
       .post(base)
-      .send({
-        spec: {
-          model: 'mixed',
-          coefficients: [
-            { name: 'bill', column: 'attr:bill', distribution: 'normal' },
-            { name: 'river_good', column: 'attr:river:good', distribution: 'normal' },
-            { name: 'interrupt', column: 'attr:interrupt' },
-          ],
-          draws: { count: 100, seed: 3 },
-        },
-      })
+      .send({ spec: mixedLogitSpec(100, 3) })
       .expect(201);
     const job = runEstimationJob(t.deps, res.body.id, { threads: 1 });
     for (let i = 0; i < 400; i++) {

@@ -30,6 +30,23 @@ export const TRUE_MNL: Record<string, number> = {
   'asc:fixed': 0.2,
 };
 
+/** A panel mixed logit of the seeded study with normal bill and river tastes and `draws` draws. */
+export function mixedLogitSpec(draws: number, seed: number, randomInterrupt = false) {
+  return {
+    model: 'mixed',
+    coefficients: [
+      { name: 'bill', column: 'attr:bill', distribution: 'normal' },
+      { name: 'river_good', column: 'attr:river:good', distribution: 'normal' },
+      {
+        name: 'interrupt',
+        column: 'attr:interrupt',
+        ...(randomInterrupt ? { distribution: 'normal' } : {}),
+      },
+    ],
+    draws: { count: draws, seed },
+  };
+}
+
 export const WARMUP_PAGE = 'wu1';
 export const HOLDOUT_PAGE = 'ho1';
 

@@ -75,7 +75,9 @@ export function InviteeTable({
         </p>
       )}
       {list.data && list.data.total > 0 && (
-        <div className="overflow-x-auto rounded-md border border-line">
+        // relative: the header's visually hidden label is absolutely positioned, and only a
+        // positioned scroll box clips it; otherwise that label alone widens a phone's page.
+        <div className="relative overflow-x-auto rounded-md border border-line">
           <table className="w-full min-w-[40rem] text-sm">
             <caption className="sr-only">Invitees</caption>
             <thead className="bg-canvas text-xs text-ink-soft">

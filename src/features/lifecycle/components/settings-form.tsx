@@ -92,7 +92,7 @@ export function SettingsForm({
     ),
   );
   return (
-    <form onSubmit={submit} aria-label="Fieldwork settings" className="space-y-4">
+    <form onSubmit={submit} aria-label="Fieldwork settings" className="max-w-3xl space-y-4">
       <fieldset disabled={!canManage} className="grid gap-4">
         <TextField
           label="Close automatically at"

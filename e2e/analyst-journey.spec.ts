@@ -6,24 +6,12 @@
  * column per expected field.
  */
 import fs from 'node:fs';
-import path from 'node:path';
 import { parse } from 'csv-parse/sync';
 import ExcelJS from 'exceljs';
 import { expect, test, type Download } from '@playwright/test';
 import { signIn } from './support/auth';
+import { demoCredential } from './support/demo-credentials';
 import type { TasteList } from '../shared/schemas/tastes';
-
-type Credential = { role: string; email: string; password: string };
-
-function demoAnalyst(): Credential {
-  const file =
-    process.env.E2E_DEMO_CREDENTIALS ??
-    path.resolve(import.meta.dirname, '../.data/e2e-demo-credentials.json');
-  const all = JSON.parse(fs.readFileSync(file, 'utf8')) as Credential[];
-  const analyst = all.find((c) => c.role === 'analyst');
-  if (!analyst) throw new Error(`no analyst in ${file}`);
-  return analyst;
-}
 
 async function readDownload(download: Download): Promise<Buffer> {
   const file = await download.path();
@@ -35,7 +23,7 @@ test('an analyst runs a mixed logit, splits tastes by a background question and 
 }) => {
   test.setTimeout(180_000);
   const runName = `Mixed logit e2e ${Date.now()}`;
-  await signIn(page, demoAnalyst());
+  await signIn(page, demoCredential('analyst'));
 
   await test.step('open the seeded demo study', async () => {
     await page

@@ -3,28 +3,15 @@
  * saves, generates a random design in the background, reads its diagnostics, and previews a
  * task in the respondent app at phone and desktop width.
  */
-import fs from 'node:fs';
-import path from 'node:path';
 import { expect, test } from '@playwright/test';
 import { signIn } from './support/auth';
-
-function demoEditor() {
-  const file = path.resolve(import.meta.dirname, '../.data/e2e-demo-credentials.json');
-  const all = JSON.parse(fs.readFileSync(file, 'utf8')) as Array<{
-    role: string;
-    email: string;
-    password: string;
-  }>;
-  const editor = all.find((c) => c.role === 'editor');
-  if (!editor) throw new Error('no demo editor in the e2e credentials');
-  return editor;
-}
+import { demoCredential } from './support/demo-credentials';
 
 test('an editor creates a study, adds attributes, generates a design and previews a task', async ({
   page,
 }) => {
   const name = `Pipe renewal packages ${Date.now()}`;
-  await signIn(page, demoEditor());
+  await signIn(page, demoCredential('editor'));
 
   await test.step('create the study', async () => {
     await page.getByRole('button', { name: 'New study' }).click();

@@ -1,13 +1,15 @@
 /** Reads for downloads that are not tied to a run: the study's respondents. */
 import { and, asc, eq } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
+import { respondentNumber } from './respondent-number';
 import { respondents } from '../schema/fieldwork';
 
-/** Every respondent of a study in order of starting (their number is the 1-based position). */
+/** Every respondent of a study in order of starting, with their stable number. */
 export async function listStudyRespondents(db: DbOrTx, params: { studyId: string }) {
   return db
     .select({
       id: respondents.id,
+      number: respondentNumber.mapWith(Number),
       externalId: respondents.externalId,
       block: respondents.block,
       status: respondents.status,

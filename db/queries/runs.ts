@@ -18,6 +18,7 @@ export const runColumns = {
   error: runs.error,
   attempts: runs.attempts,
   cancelRequested: runs.cancelRequested,
+  erasedRespondents: runs.erasedRespondents,
   createdBy: runs.createdBy,
   createdAt: runs.createdAt,
   startedAt: runs.startedAt,

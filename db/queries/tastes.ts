@@ -4,6 +4,7 @@
  * and study are part of every where-clause.
  */
 import { and, asc, count, desc, eq, like, sql, type SQL } from 'drizzle-orm';
+import { respondentNumber } from './respondent-number';
 import type { DbOrTx } from '../client';
 import { runs, tasteProfiles } from '../schema/models';
 import { answers, respondents } from '../schema/fieldwork';
@@ -17,6 +18,7 @@ export const runColumns = {
   status: runs.status,
   results: runs.results,
   dataHash: runs.dataHash,
+  erasedRespondents: runs.erasedRespondents,
   createdAt: runs.createdAt,
   finishedAt: runs.finishedAt,
 };
@@ -49,9 +51,6 @@ export async function listFinishedRuns(db: DbOrTx, params: { teamId: string; stu
     )
     .orderBy(desc(runs.finishedAt), desc(runs.createdAt));
 }
-
-/** Stable respondent number within the study: order of starting, ties by id. */
-const respondentNumber = sql<number>`(select count(*)::int from respondents r2 where r2.study_id = ${respondents.studyId} and (r2.started_at, r2.id) <= (${respondents.startedAt}, ${respondents.id}))`;
 
 const profileColumns = {
   respondentId: tasteProfiles.respondentId,

@@ -166,3 +166,22 @@ export const answerRevisions = pgTable(
     index('answer_revisions_study_idx').on(t.studyId),
   ],
 );
+
+/**
+ * What is left of a respondent erased on request: only the id and start time their row had,
+ * so that the respondent numbers of everyone else (order of starting, ties by id) stay as they
+ * were. No answer, personal field or device survives; the respondents row itself is deleted.
+ */
+export const respondentTombstones = pgTable(
+  'respondent_tombstones',
+  {
+    /** The erased respondent's random id (not personal data; nothing refers to it any more). */
+    id: uuid('id').primaryKey(),
+    studyId: uuid('study_id')
+      .notNull()
+      .references(() => studies.id, { onDelete: 'cascade' }),
+    startedAt: timestamp('started_at', { withTimezone: true }).notNull(),
+    erasedAt: timestamp('erased_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('respondent_tombstones_study_idx').on(t.studyId, t.startedAt)],
+);

@@ -11,6 +11,7 @@ import { closeStudy, goLive } from '../../server/services/lifecycle';
 import { createRespondent } from '../../server/services/respondent-session';
 import { saveAnswer } from '../../server/services/answers';
 import { resetBlockCounts } from '../queries/respondent-blocks';
+import { deleteTombstones } from '../queries/erasure';
 import { saveQuestionnaire } from '../../server/services/questionnaire';
 import { buildScreens, loadFrozenVersion } from '../../server/services/respondent-screens';
 import { createRespondentPlan } from '../../server/services/respondent-plan';
@@ -116,6 +117,8 @@ export async function ensureDemoResponses(
   if (existing > 0) {
     await deleteSimulatedRespondents(db, { studyId });
     await resetBlockCounts(db, { studyId });
+    // Respondents erased from the demo come back simulated: their tombstones would shift numbers.
+    await deleteTombstones(db, { studyId });
   }
 
   const deps = depsFor(db);

@@ -2,8 +2,7 @@
  * Sets up a live Larkspur Valley Water study through the API as the demo editor, so the
  * respondent journey does not depend on the state of the seeded demo study.
  */
-import fs from 'node:fs';
-import path from 'node:path';
+import { demoCredential } from './demo-credentials';
 import { expect, type APIRequestContext } from '@playwright/test';
 import { demoQuestionnaire } from '../../shared/schemas/questionnaire-defaults';
 import type { Questionnaire } from '../../shared/schemas/questionnaire';
@@ -75,13 +74,7 @@ export const larkspurDefinition: StudyDefinition = {
 };
 
 export function demoEditor(): { email: string; password: string } {
-  const file = path.resolve(import.meta.dirname, '../../.data/e2e-demo-credentials.json');
-  const all = JSON.parse(fs.readFileSync(file, 'utf8')) as Array<{
-    role: string;
-    email: string;
-    password: string;
-  }>;
-  return all.find((c) => c.role === 'editor')!;
+  return demoCredential('editor');
 }
 
 /** Signs in as the demo editor on `api` and returns the team id. */

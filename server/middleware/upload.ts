@@ -1,15 +1,20 @@
 /**
  * One-file multipart uploads kept in memory (small files only), with multer's own errors
- * turned into the API's error model: too large → 413, anything else → 400.
+ * and the multipart parser's errors turned into the API's error model: too large → 413,
+ * anything else (a malformed body included) → 400.
  */
 import type { RequestHandler } from 'express';
 import multer from 'multer';
 import { AppError, ValidationError } from '../lib/errors';
 
-export function acceptOneFile(field: string, maxBytes: number): RequestHandler {
+export function acceptOneFile(
+  field: string,
+  maxBytes: number,
+  limits: { fields?: number; parts?: number } = {},
+): RequestHandler {
   const upload = multer({
     storage: multer.memoryStorage(),
-    limits: { fileSize: maxBytes, files: 1, fields: 10 },
+    limits: { fileSize: maxBytes, files: 1, fields: 10, ...limits },
   }).single(field);
   return (req, res, next) => {
     upload(req, res, (err: unknown) => {
@@ -26,7 +31,10 @@ export function acceptOneFile(field: string, maxBytes: number): RequestHandler {
           );
         return next(new ValidationError(err.message, [{ path: field, message: err.message }]));
       }
-      next(err);
+      // The multipart parser (busboy) throws plain Errors on a malformed body ("Unexpected end
+      // of form", "Malformed part header"): the client's fault, so a 400, never a 500.
+      const message = 'The upload could not be read: send the file as multipart/form-data.';
+      next(new ValidationError(message, [{ path: field, message }], 'malformed_upload'));
     });
   };
 }

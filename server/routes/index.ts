@@ -20,6 +20,7 @@ import { createInviteesRouter } from './invitees';
 import { createUnsubscribeRouter } from './unsubscribe';
 import { createFieldworkRouter } from './fieldwork';
 import { createResponsesRouter } from './responses';
+import { createErasureRouter } from './erasure';
 import { createTastesRouter } from './tastes';
 import { createSharesRouter } from './shares';
 import { createExportsRouter } from './exports';
@@ -35,6 +36,7 @@ export function mountApiRoutes(api: Router, deps: AppDeps): void {
   api.use('/unsubscribe', createUnsubscribeRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/fieldwork', createFieldworkRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/responses', createResponsesRouter(deps));
+  api.use('/teams/:teamId/studies/:studyId/erasure', createErasureRouter(deps));
   api.use('/files', createPublicFilesRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/files', createStudyFilesRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/design', createDesignsRouter(deps));

@@ -4,10 +4,9 @@
  * needs personal:read; everything that changes or mails needs fieldwork:manage.
  */
 import { Router, type RequestHandler } from 'express';
-import multer from 'multer';
 import type { AppDeps } from '../deps';
-import { AppError, ValidationError } from '../lib/errors';
 import { parseBody, parseParams, parseQuery } from '../middleware/validate';
+import { acceptOneFile, requireFile } from '../middleware/upload';
 import { memberOf, requireTeam, requireUser } from '../middleware/auth';
 import { studyParamsSchema } from '../services/study-access';
 import {
@@ -20,44 +19,32 @@ import {
 } from '../../shared/schemas/invitees';
 import * as invitees from '../services/invitees';
 
-const upload = multer({
-  storage: multer.memoryStorage(),
-  limits: { fileSize: INVITEE_CSV_MAX_BYTES, files: 1, fields: 5, parts: 6 },
-}).single('file');
-
-/** Runs multer and turns its errors into the API's error model; requires the file. */
-const receiveCsv: RequestHandler = (req, res, next) => {
-  upload(req, res, (err: unknown) => {
-    if (err instanceof multer.MulterError) {
-      return next(
-        err.code === 'LIMIT_FILE_SIZE'
-          ? new AppError(413, 'file_too_large', 'The file is larger than 5 MB.')
-          : new ValidationError(`Upload rejected: ${err.message}.`, undefined, 'bad_upload'),
-      );
-    }
-    if (err) return next(err);
-    if (!req.file)
-      return next(
-        new ValidationError('Choose a CSV file to upload.', [
-          { path: 'file', message: 'Required' },
-        ]),
-      );
+/** The CSV upload (one file, at most INVITEE_CSV_MAX_BYTES), required. */
+const receiveCsv: RequestHandler[] = [
+  acceptOneFile('file', INVITEE_CSV_MAX_BYTES, { fields: 5, parts: 6 }),
+  (req, _res, next) => {
+    requireFile(req, 'file');
     next();
-  });
-};
+  },
+];
 
 export function createInviteesRouter(deps: AppDeps): Router {
   const router = Router({ mergeParams: true });
   router.use(requireUser(deps));
 
-  router.post('/preview', requireTeam(deps, 'fieldwork:manage'), receiveCsv, async (req, res) => {
-    const { studyId } = parseParams(studyParamsSchema, req);
-    res.json(
-      await invitees.previewInviteeCsv(deps, memberOf(req).teamId, studyId, req.file!.buffer),
-    );
-  });
+  router.post(
+    '/preview',
+    requireTeam(deps, 'fieldwork:manage'),
+    ...receiveCsv,
+    async (req, res) => {
+      const { studyId } = parseParams(studyParamsSchema, req);
+      res.json(
+        await invitees.previewInviteeCsv(deps, memberOf(req).teamId, studyId, req.file!.buffer),
+      );
+    },
+  );
 
-  router.post('/import', requireTeam(deps, 'fieldwork:manage'), receiveCsv, async (req, res) => {
+  router.post('/import', requireTeam(deps, 'fieldwork:manage'), ...receiveCsv, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const { onlyValid } = parseBody(importInviteesFieldsSchema, req);
     res.status(201).json(

@@ -231,9 +231,9 @@ export async function exportAnswersCsv(
     'revised_screens',
     ...questions.map((q) => q.key),
   ];
-  const rows = respondents.map((r, i) => [
+  const rows = respondents.map((r) => [
     r.id,
-    i + 1,
+    r.number,
     ...(personal ? [r.externalId] : []),
     r.block,
     r.status,
@@ -265,7 +265,7 @@ export async function exportAnswerHistoryCsv(
     member,
     studyId,
   );
-  const numbers = new Map(respondents.map((r, i) => [r.id, i + 1]));
+  const numbers = new Map(respondents.map((r) => [r.id, r.number]));
   const [current, replaced] = await Promise.all([
     listRevisedAnswers(deps.db, { studyId }),
     listAnswerHistory(deps.db, { studyId }),

@@ -43,6 +43,7 @@ export async function listTastesRuns(
     finishedAt: r.finishedAt?.toISOString() ?? null,
     profiles: r.profiles,
     profileDraws: (r.results as RunResult | null)?.profileDraws?.count ?? null,
+    erasedRespondents: r.erasedRespondents,
   }));
 }
 

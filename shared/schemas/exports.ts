@@ -34,6 +34,15 @@ export const tasteCautions = [
     'and data-protection law when sharing respondent-level results.',
 ] as const;
 
+/** What a run's results say once respondents it may have used were erased on request. */
+export function erasureNotice(erased: number): string {
+  const who = erased === 1 ? '1 respondent was' : `${erased} respondents were`;
+  return (
+    `${who} erased on request after this run. Its estimates still reflect their answers ` +
+    '(no respondent-level rows remain); estimate the model again to remove them.'
+  );
+}
+
 export type ExportKind = 'profiles' | 'choices' | 'design' | 'answers' | 'report';
 
 export type ExportManifest = {

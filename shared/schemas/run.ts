@@ -138,6 +138,11 @@ export type Run = {
   error: string | null;
   attempts: number;
   cancelRequested: boolean;
+  /**
+   * Respondents whose data this run may have used and who were erased on request since: its
+   * results still reflect them until the model is estimated again.
+   */
+  erasedRespondents: number;
   createdAt: string;
   startedAt: string | null;
   finishedAt: string | null;

@@ -110,6 +110,8 @@ export type TastesRun = {
   finishedAt: string | null;
   profiles: number;
   profileDraws: number | null;
+  /** Respondents erased on request since the run (their profiles are gone, not their influence). */
+  erasedRespondents: number;
 };
 
 export type TasteCoefficient = {

@@ -47,6 +47,7 @@ export function toRunView(row: RunRow): Run {
     error: row.error,
     attempts: row.attempts,
     cancelRequested: row.cancelRequested !== null,
+    erasedRespondents: row.erasedRespondents,
     createdAt: row.createdAt.toISOString(),
     startedAt: iso(row.startedAt),
     finishedAt: iso(row.finishedAt),

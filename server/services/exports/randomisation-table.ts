@@ -27,13 +27,13 @@ const altName = (j: number) => (j < 0 ? 'none' : String(j + 1));
  * their order; the column is empty when the study shows attributes as defined.
  */
 export function buildRandomisationRows(
-  respondents: readonly { id: string; plan: unknown }[],
+  respondents: readonly { id: string; number: number; plan: unknown }[],
   attributeNames: ReadonlyMap<string, string> = new Map(),
 ): CellValue[][] {
   const rows: CellValue[][] = [];
-  respondents.forEach((r, i) => {
+  for (const r of respondents) {
     const parsed = respondentPlanSchema.safeParse(r.plan);
-    if (!parsed.success) return;
+    if (!parsed.success) continue;
     const plan = parsed.data;
     const attributeOrder =
       plan.attributeOrder?.map((id) => attributeNames.get(id) ?? id).join(' | ') ?? null;
@@ -42,7 +42,7 @@ export function buildRandomisationRows(
       const shownAs = task === null ? null : plan.taskOrder.indexOf(task) + 1;
       rows.push([
         r.id,
-        i + 1,
+        r.number,
         plan.block,
         plan.seed,
         screen,
@@ -52,6 +52,6 @@ export function buildRandomisationRows(
         attributeOrder,
       ]);
     }
-  });
+  }
   return rows;
 }

@@ -3,7 +3,7 @@
  * was made and the cautions. Written as the first sheet of the XLSX and atop the run report.
  */
 import type { RunContext } from '../tastes/run-context';
-import { tasteCautions } from '../../../shared/schemas/exports';
+import { erasureNotice, tasteCautions } from '../../../shared/schemas/exports';
 import { MODEL_LABELS } from '../../../shared/schemas/estimation-families';
 import { drawsTypeLabels } from '../../../shared/schemas/estimation-spec';
 
@@ -32,6 +32,9 @@ export function getRunSummary(ctx: RunContext, exportedAt: Date): SummaryLine[] 
     ['Estimation draws', draws],
     ['Taste-profile draws', profileDraws],
     ['Respondents', r.respondents],
+    ...(ctx.run.erasedRespondents > 0
+      ? [['Erased since this run', erasureNotice(ctx.run.erasedRespondents)] as SummaryLine]
+      : []),
     ['Choice observations', r.observations],
     ['Log-likelihood', r.loglik],
     ['Converged', r.converged ? 'yes' : `no (${r.convergence.reason})`],

@@ -55,6 +55,7 @@ export async function loadRunContext(
       finishedAt: run.finishedAt?.toISOString() ?? null,
       profiles,
       profileDraws: results.profileDraws?.count ?? null,
+      erasedRespondents: run.erasedRespondents,
     },
     coefficients: results.population.map((p) => ({
       name: p.name,

@@ -124,7 +124,17 @@ describe('POST /invitees/preview', () => {
       .post(`${base(studyId)}/preview`)
       .field('onlyValid', 'true')
       .expect(400);
-    expect(res.body.error.fields).toEqual([{ path: 'file', message: 'Required' }]);
+    expect(res.body.error.fields).toEqual([{ path: 'file', message: 'Choose a file' }]);
+  });
+
+  it('when the multipart body is malformed, returns 400 malformed_upload (found by fuzzing)', async () => {
+    const { studyId } = await insertStudy(t.deps.db, { teamId: team.teamId });
+    const res = await team.agents.editor
+      .post(`${base(studyId)}/preview`)
+      .set('Content-Type', 'multipart/form-data; boundary=x')
+      .send('{"name":')
+      .expect(400);
+    expect(res.body.error).toMatchObject({ code: 'malformed_upload', fields: [{ path: 'file' }] });
   });
 
   it('when the file is over 5 MB, returns 413', async () => {

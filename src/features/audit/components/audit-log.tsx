@@ -132,7 +132,7 @@ export function AuditLog({
           <div className="hidden overflow-x-auto rounded-md border border-line bg-white sm:block">
             <table className="w-full text-left text-sm">
               <caption className="sr-only">Audit trail, newest first</caption>
-              <thead className="border-b border-line bg-surface text-xs uppercase text-ink-muted">
+              <thead className="border-b border-line bg-canvas text-xs uppercase text-ink-muted">
                 <tr>
                   <th scope="col" className="px-3 py-2">
                     When

@@ -45,7 +45,7 @@ export function describeAuditEvent(e: AuditEvent): string {
     case 'respondent.flagged_excluded':
       return `Excluded ${d(e, 'count')} flagged respondents`;
     case 'respondent.erased':
-      return `Erased respondent #${d(e, 'number')} on request (${d(e, 'answers')} answers deleted)`;
+      return `${d(e, 'number') ? `Erased respondent #${d(e, 'number')}` : 'Erased an invitation'} on request (${d(e, 'answers')} answers deleted)${d(e, 'reason') ? `: ${d(e, 'reason')}` : ''}`;
     case 'run.started':
       return `Started run "${d(e, 'name')}" (${d(e, 'model')})`;
     case 'run.cancelled':

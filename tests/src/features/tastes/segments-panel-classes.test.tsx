@@ -16,7 +16,15 @@ afterEach(() => {
 });
 
 const header = (model: TasteHeader['run']['model']): TasteHeader => ({
-  run: { id: 'run1', name: 'LC', model, finishedAt: null, profiles: 80, profileDraws: null },
+  run: {
+    id: 'run1',
+    name: 'LC',
+    model,
+    finishedAt: null,
+    profiles: 80,
+    profileDraws: null,
+    erasedRespondents: 0,
+  },
   coefficients: [
     {
       name: 'river_good',

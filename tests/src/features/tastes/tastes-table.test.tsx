@@ -33,6 +33,7 @@ function makeList(personal: boolean): TasteList {
       finishedAt: null,
       profiles: 30,
       profileDraws: 500,
+      erasedRespondents: 0,
     },
     coefficients: [
       {

@@ -9,6 +9,7 @@ import { Alert, Card, Spinner } from '@/components/ui/feedback';
 import { ErrorText, PanelErrorBoundary } from '@/components/ui/error-boundary';
 import { Button } from '@/components/ui/button';
 import { paths } from '@/config/paths';
+import { erasureNotice } from '@shared/schemas/exports';
 import { useCurrentTeam } from '@/features/auth/hooks/use-current-team';
 import { getRunQueryOptions, useRun } from '@/features/runs/api/get-run';
 import { useCancelRun } from '@/features/runs/api/cancel-run';
@@ -97,6 +98,11 @@ export function Component() {
         </Alert>
       )}
       {run.status === 'cancelled' && <Alert tone="warning" title="The run was cancelled" />}
+      {run.erasedRespondents > 0 && (
+        <Alert tone="warning" title="Respondents erased since this run">
+          {erasureNotice(run.erasedRespondents)}
+        </Alert>
+      )}
 
       {results && (
         <>

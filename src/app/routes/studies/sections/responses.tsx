@@ -17,6 +17,7 @@ import { ResponsesTable } from '@/features/responses/components/responses-table'
 import { ResponseCards } from '@/features/responses/components/response-cards';
 import { QualitySettingsForm } from '@/features/responses/components/quality-settings-form';
 import { ExcludeFlaggedForm } from '@/features/responses/components/exclude-flagged-form';
+import { EraseRespondentForm } from '@/features/responses/components/erase-respondent-form';
 import { statusLabels } from '@/features/responses/utils/labels';
 
 export function loader(_args: LoaderFunctionArgs) {
@@ -33,6 +34,7 @@ export function Component() {
   const { teamId = '', studyId = '' } = useParams();
   const { can } = useCurrentTeam();
   const canManage = can('responses:manage');
+  const canErase = can('respondents:erase');
   const [filters, setFilters] = useState<Filters>({ sort: 'started', order: 'desc' });
   const [page, setPage] = useState(1);
   const list = useResponses(teamId, studyId, { ...filters, page, pageSize: PAGE_SIZE });
@@ -190,6 +192,27 @@ export function Component() {
             </nav>
           )}
         </>
+      )}
+
+      {canErase && (
+        <details className="group rounded-lg border border-line bg-white">
+          <summary className="flex cursor-pointer items-center gap-2 px-4 py-3 text-sm font-medium text-ink">
+            <span aria-hidden className="transition-transform group-open:rotate-90">
+              ▸
+            </span>
+            Erase one respondent (data-protection request)
+          </summary>
+          <div className="space-y-4 border-t border-line p-4">
+            <p className="text-sm text-ink-soft">
+              For a person who asks for their data to be erased. Their answers, invitation and taste
+              profiles are deleted; everyone else keeps their respondent number, and the audit trail
+              records the erasure by number and reason. Your data-protection officer or ethics board
+              decides whether a request must be met; backups taken earlier keep the data until they
+              expire.
+            </p>
+            <EraseRespondentForm teamId={teamId} studyId={studyId} />
+          </div>
+        </details>
       )}
     </div>
   );

@@ -5,7 +5,8 @@
  */
 import { useState } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router';
-import { EmptyState, Spinner } from '@/components/ui/feedback';
+import { Alert, EmptyState, Spinner } from '@/components/ui/feedback';
+import { erasureNotice } from '@shared/schemas/exports';
 import { ErrorText, PanelErrorBoundary } from '@/components/ui/error-boundary';
 import { paths } from '@/config/paths';
 import { useTastesRuns } from '@/features/tastes/api/list-tastes-runs';
@@ -70,6 +71,11 @@ export function Component() {
         />
       </div>
       <TasteCautions screen="tastes" lowDraws={lowDrawsShown} />
+      {header && header.run.erasedRespondents > 0 && (
+        <Alert tone="warning" title="Respondents erased since this run">
+          {erasureNotice(header.run.erasedRespondents)}
+        </Alert>
+      )}
       <ErrorText error={tastes.error} />
       {!header && tastes.isPending && <Spinner label="Loading profiles…" />}
       {header && (

@@ -4,6 +4,7 @@
  * finished, and honour unsubscribes in every later send.
  */
 import { nanoid } from 'nanoid';
+import { z } from 'zod';
 import type { AppDeps } from '../deps';
 import { ConflictError, NotFoundError, ValidationError } from '../lib/errors';
 import { loadStudy } from './study-access';
@@ -19,7 +20,9 @@ import {
   markUnsubscribed,
   type InviteeRecord,
 } from '../../db/queries/invitees';
-import { studyInvitationMail, studyReminderMail } from '../mail/fieldwork-templates';
+import { fieldworkMail } from '../mail/fieldwork-templates';
+import { statedDuration } from '../../shared/mail/invitation-wording';
+import { fieldworkSettingsSchema } from '../../shared/schemas/study-lifecycle';
 import type { DbOrTx } from '../../db/client';
 import type { MailKind } from '../../db/queries/mail-outbox';
 import { deliverNow, queueMails } from './mail-delivery';
@@ -163,6 +166,49 @@ async function loadLiveStudy(deps: AppDeps, teamId: string, studyId: string) {
   return study;
 }
 
+/** Only the consent page's text is read here, so a loose shape is enough. */
+const consentBodySchema = z.object({
+  pages: z.array(z.looseObject({ kind: z.string(), body: z.string().optional() })),
+});
+
+type MailScope = {
+  teamId: string;
+  studyId: string;
+  publicId: string;
+  studyTitle: string;
+  duration: string | null;
+  senderName: string | null;
+  replyTo: string | null;
+};
+
+/** What every e-mail of a study shares: its public title, stated duration and sender. */
+function mailScope(
+  study: Awaited<ReturnType<typeof loadLiveStudy>>,
+  teamId: string,
+  input: SendInvitationsInput,
+): MailScope {
+  const pages = consentBodySchema.safeParse(study.questionnaire);
+  const consent = pages.success ? pages.data.pages.find((p) => p.kind === 'consent') : undefined;
+  const duration = statedDuration(consent?.body ?? '');
+  if (duration === null)
+    for (const field of ['subject', 'message'] as const)
+      if (input[field]?.includes('{duration}'))
+        throw new ValidationError(
+          'The consent page does not say how long the survey takes, so {duration} would be empty. Say it there (e.g. "about 10 minutes"), or take {duration} out.',
+          [{ path: field, message: 'The consent page states no duration for {duration}' }],
+        );
+  const settings = fieldworkSettingsSchema.parse(study.settings ?? {});
+  return {
+    teamId,
+    studyId: study.id,
+    publicId: study.publicId,
+    studyTitle: study.publicTitle || study.name,
+    duration,
+    senderName: settings.mailSenderName,
+    replyTo: settings.mailReplyTo,
+  };
+}
+
 function linksFor(deps: AppDeps, publicId: string, token: string) {
   const base = deps.env.APP_URL;
   const t = encodeURIComponent(token);
@@ -180,12 +226,11 @@ function linksFor(deps: AppDeps, publicId: string, token: string) {
  */
 async function claimAndMail(
   deps: AppDeps,
-  scope: { teamId: string; studyId: string; publicId: string; studyName: string },
+  scope: MailScope,
   kind: MailKind,
   input: SendInvitationsInput,
   claim: (tx: DbOrTx) => Promise<InviteeRecord[]>,
 ): Promise<SendResult> {
-  const template = kind === 'invitation' ? studyInvitationMail : studyReminderMail;
   const { claimed, ids } = await deps.db.transaction(async (tx) => {
     const claimed = await claim(tx);
     const ids = await queueMails(
@@ -195,10 +240,14 @@ async function claimAndMail(
       claimed.map((r) => ({
         inviteeId: r.id,
         kind,
-        mail: template({
+        mail: fieldworkMail({
+          kind,
           to: r.email,
           name: r.name,
-          studyName: scope.studyName,
+          studyTitle: scope.studyTitle,
+          duration: scope.duration,
+          senderName: scope.senderName,
+          replyTo: scope.replyTo,
           ...linksFor(deps, scope.publicId, r.token),
           subject: input.subject,
           message: input.message,
@@ -225,7 +274,7 @@ export async function sendInvitations(
   input: SendInvitationsInput,
 ): Promise<SendResult> {
   const study = await loadLiveStudy(deps, teamId, studyId);
-  const scope = { teamId, studyId, publicId: study.publicId, studyName: study.name };
+  const scope = mailScope(study, teamId, input);
   const now = new Date();
   return claimAndMail(deps, scope, 'invitation', input, (tx) =>
     claimForInvitation(tx, { studyId, ids: input.inviteeIds, now }),
@@ -239,7 +288,7 @@ export async function sendReminders(
   input: SendInvitationsInput,
 ): Promise<SendResult> {
   const study = await loadLiveStudy(deps, teamId, studyId);
-  const scope = { teamId, studyId, publicId: study.publicId, studyName: study.name };
+  const scope = mailScope(study, teamId, input);
   const now = new Date();
   return claimAndMail(deps, scope, 'reminder', input, (tx) =>
     claimForReminder(tx, {

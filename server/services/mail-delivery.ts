@@ -12,7 +12,7 @@
 import type { AppDeps } from '../deps';
 import type { DbOrTx } from '../../db/client';
 import type { JobSender } from '../jobs/queue';
-import type { OutgoingMail } from '../mail/mailer';
+import { fromStoredHeaders, storedHeaders, type OutgoingMail } from '../mail/mailer';
 import {
   claimOutboxMail,
   finishOutboxSend,
@@ -70,7 +70,7 @@ export async function queueMails(
       subject: mail.subject,
       textBody: mail.text,
       htmlBody: mail.html ?? null,
-      headers: mail.headers ?? {},
+      headers: storedHeaders(mail),
     })),
   );
   // Without a queue in this process, the workers' sweep finds the rows (orphan-sweep.ts).
@@ -99,7 +99,7 @@ export async function deliverOutboxMail(
       subject: row.subject,
       text: row.textBody,
       ...(row.htmlBody ? { html: row.htmlBody } : {}),
-      headers: row.headers as Record<string, string>,
+      ...fromStoredHeaders(row.headers as Record<string, string>),
     });
   } catch (err) {
     const reason = describeMailError(err);

@@ -4,6 +4,7 @@
  * when the user says so.
  */
 import { z } from 'zod';
+import { knownPlaceholdersOnly } from '../mail/invitation-wording';
 
 export const INVITEE_NAME_MAX = 120;
 export const INVITEE_EXTERNAL_ID_MAX = 100;
@@ -116,11 +117,27 @@ export const inviteeListSchema = z.object({
 });
 export type InviteeList = z.infer<typeof inviteeListSchema>;
 
-/** Optional wording of the e-mail; the personal and unsubscribe links are always added. */
-const mailWording = {
-  subject: z.string().trim().min(1, 'Enter a subject').max(150).optional(),
-  message: z.string().trim().min(1, 'Enter a message').max(4000).optional(),
-};
+/**
+ * Optional wording of the e-mail, with {name}, {study} and {duration} placeholders; the
+ * personal and unsubscribe links are always added.
+ */
+export const mailWordingSchema = z.object({
+  subject: z
+    .string()
+    .trim()
+    .min(1, 'Enter a subject')
+    .max(150)
+    .superRefine(knownPlaceholdersOnly)
+    .optional(),
+  message: z
+    .string()
+    .trim()
+    .min(1, 'Enter a message')
+    .max(4000)
+    .superRefine(knownPlaceholdersOnly)
+    .optional(),
+});
+const mailWording = mailWordingSchema.shape;
 
 /** Without inviteeIds: everybody who qualifies (not yet invited / not finished). */
 export const sendInvitationsSchema = z.object({

@@ -15,6 +15,18 @@ const redirectUrl = z
   .refine((s) => /^https?:\/\//i.test(s), 'Use an http:// or https:// address')
   .nullable();
 
+const mailSenderName = z
+  .string()
+  .trim()
+  .min(1, 'Enter a name, or leave it empty')
+  .max(80, 'Use at most 80 characters')
+  .regex(/^[^<>"\r\n]*$/, 'No angle brackets, quotes or line breaks');
+const mailReplyTo = z
+  .string()
+  .trim()
+  .toLowerCase()
+  .pipe(z.email('Not a valid e-mail address').max(254));
+
 export const closedReasonSchema = z.enum(['manual', 'date', 'quota']);
 export type ClosedReason = z.infer<typeof closedReasonSchema>;
 
@@ -43,6 +55,9 @@ export const fieldworkSettingsSchema = z.looseObject({
   lateAnswerGraceHours: lateAnswerGraceHours.default(24),
   /** A returning panel id resumes its own session instead of starting a second respondent. */
   dedupePanelIds: z.boolean().default(true),
+  /** Invitation e-mails: the name they come from, and where replies go. */
+  mailSenderName: mailSenderName.nullable().default(null),
+  mailReplyTo: mailReplyTo.nullable().default(null),
   closedReason: closedReasonSchema.nullable().default(null),
   closedAt: z.string().nullable().default(null),
 });
@@ -62,6 +77,8 @@ export const updateFieldworkSettingsSchema = z
     }),
     lateAnswerGraceHours,
     dedupePanelIds: z.boolean(),
+    mailSenderName: mailSenderName.nullable(),
+    mailReplyTo: mailReplyTo.nullable(),
   })
   .partial()
   .refine((v) => v.panelParam !== 'inv', {

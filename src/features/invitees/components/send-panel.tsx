@@ -1,6 +1,9 @@
 /**
  * Send personal links to everybody not yet invited, or remind those who have not finished.
- * The wording can be changed; the personal link and the unsubscribe link are always added.
+ * The wording can be changed, with placeholders, and is previewed as an invitee will read it
+ * (shared/mail/invitation-wording.ts, the server's own wording code); the personal link and
+ * the unsubscribe link are always added. Each send asks first, naming how many people it
+ * reaches.
  */
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
@@ -10,13 +13,24 @@ import { Button } from '@/components/ui/button';
 import { Alert } from '@/components/ui/feedback';
 import { ErrorText } from '@/components/ui/error-boundary';
 import { TextAreaField, TextField } from '@/components/ui/field';
+import { useConfirm } from '@/components/ui/confirm-dialog';
+import { knownPlaceholdersOnly } from '@shared/mail/invitation-wording';
 import type { SendResult } from '@shared/schemas/invitees';
+import { MailPreview } from './mail-preview';
 import { useSendInvitations } from '../api/send-invitations';
 import { useSendReminders } from '../api/send-reminders';
 
 const wordingSchema = z.object({
-  subject: z.string().trim().max(150, 'Use at most 150 characters'),
-  message: z.string().trim().max(4000, 'Use at most 4000 characters'),
+  subject: z
+    .string()
+    .trim()
+    .max(150, 'Use at most 150 characters')
+    .superRefine(knownPlaceholdersOnly),
+  message: z
+    .string()
+    .trim()
+    .max(4000, 'Use at most 4000 characters')
+    .superRefine(knownPlaceholdersOnly),
 });
 type Wording = z.infer<typeof wordingSchema>;
 
@@ -40,11 +54,17 @@ export function describeSend(kind: 'invitations' | 'reminders', r: SendResult): 
   return `${parts.join('; ')}.`;
 }
 
+const people = (n: number) => `${n} ${n === 1 ? 'person' : 'people'}`;
+
 export function SendPanel({
   teamId,
   studyId,
   live,
   listSize,
+  notInvited,
+  notFinished,
+  studyTitle,
+  duration,
   onSent,
 }: {
   teamId: string;
@@ -52,19 +72,41 @@ export function SendPanel({
   live: boolean;
   /** People on the list; with nobody on it there is nothing to send. */
   listSize: number;
+  /** On the list and not yet invited: who "Send invitations" reaches. */
+  notInvited: number;
+  /** Invited, not finished and not unsubscribed: the most "Send reminders" reaches. */
+  notFinished: number;
+  /** The title respondents see, and the duration the consent page states (or null). */
+  studyTitle: string;
+  duration: string | null;
   onSent?: () => void;
 }) {
   const invite = useSendInvitations(teamId, studyId);
   const remind = useSendReminders(teamId, studyId);
   const [last, setLast] = useState<string | null>(null);
+  const { confirm, dialog } = useConfirm();
   const form = useForm<Wording>({
     resolver: zodResolver(wordingSchema),
     defaultValues: { subject: '', message: '' },
   });
   const submit = (kind: 'invitations' | 'reminders') =>
-    form.handleSubmit((w) => {
+    form.handleSubmit(async (w) => {
       const input = { subject: orUndefined(w.subject), message: orUndefined(w.message) };
       const m = kind === 'invitations' ? invite : remind;
+      const ok = await confirm(
+        kind === 'invitations'
+          ? {
+              title: `Send invitations to ${people(notInvited)}?`,
+              body: 'Everyone on the list who has not been invited yet gets an e-mail with their personal link. This cannot be undone.',
+              confirmLabel: `Send ${notInvited} invitation${notInvited === 1 ? '' : 's'}`,
+            }
+          : {
+              title: `Send reminders to up to ${people(notFinished)}?`,
+              body: 'Invited people who have not finished and have not unsubscribed get a reminder, except anyone reminded within the last hour.',
+              confirmLabel: 'Send reminders',
+            },
+      );
+      if (!ok) return;
       setLast(null);
       m.mutate(input, {
         onSuccess: (r) => {
@@ -74,6 +116,7 @@ export function SendPanel({
       });
     });
   const { errors } = form.formState;
+  const wording = form.watch();
 
   return (
     <form className="space-y-4" onSubmit={(e) => e.preventDefault()} noValidate>
@@ -100,15 +143,21 @@ export function SendPanel({
           />
           <TextAreaField
             label="Message"
-            hint="The personal link and the unsubscribe link are added below your message."
+            hint="Placeholders: {name} (the invitee's name), {study} (the title respondents see), {duration} (as the consent page states it). The personal link and the unsubscribe link are added below your message."
             error={errors.message?.message}
             {...form.register('message')}
+          />
+          <MailPreview
+            studyTitle={studyTitle}
+            duration={duration}
+            subject={orUndefined(wording.subject ?? '')}
+            message={orUndefined(wording.message ?? '')}
           />
         </div>
       </details>
       <div className="flex flex-wrap gap-2">
         <Button
-          disabled={!live || listSize === 0}
+          disabled={!live || notInvited === 0}
           busy={invite.isPending}
           onClick={submit('invitations')}
         >
@@ -116,7 +165,7 @@ export function SendPanel({
         </Button>
         <Button
           variant="secondary"
-          disabled={!live || listSize === 0}
+          disabled={!live || notFinished === 0}
           busy={remind.isPending}
           onClick={submit('reminders')}
         >
@@ -128,6 +177,7 @@ export function SendPanel({
         have not finished, at most once an hour. Unsubscribed people never get another e-mail.
       </p>
       <ErrorText error={invite.error ?? remind.error} />
+      {dialog}
       {last && <Alert tone="success">{last}</Alert>}
     </form>
   );

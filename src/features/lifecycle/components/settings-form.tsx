@@ -23,6 +23,11 @@ const formSchema = z.object({
   complete: z.string(),
   screenedOut: z.string(),
   overQuota: z.string(),
+  mailSenderName: z
+    .string()
+    .max(80, 'Use at most 80 characters')
+    .regex(/^[^<>"]*$/, 'No angle brackets or quotes'),
+  mailReplyTo: z.union([z.literal(''), z.email('Not a valid e-mail address')]),
 });
 type FormValues = z.infer<typeof formSchema>;
 
@@ -57,6 +62,8 @@ export function SettingsForm({
       complete: settings.redirects.complete ?? '',
       screenedOut: settings.redirects.screenedOut ?? '',
       overQuota: settings.redirects.overQuota ?? '',
+      mailSenderName: settings.mailSenderName ?? '',
+      mailReplyTo: settings.mailReplyTo ?? '',
     },
   });
   const { errors } = form.formState;
@@ -73,6 +80,8 @@ export function SettingsForm({
           screenedOut: orNull(v.screenedOut),
           overQuota: orNull(v.overQuota),
         },
+        mailSenderName: orNull(v.mailSenderName),
+        mailReplyTo: orNull(v.mailReplyTo),
       },
       {
         onError: (err) =>
@@ -143,6 +152,21 @@ export function SettingsForm({
           error={errors.overQuota?.message}
           hint="{pid} is replaced by the respondent's panel id."
           {...form.register('overQuota')}
+        />
+        <TextField
+          label="Invitation e-mails come from"
+          placeholder="Larkspur customer research"
+          error={errors.mailSenderName?.message}
+          hint="The sender name invitees see. Leave empty for the product's own."
+          {...form.register('mailSenderName')}
+        />
+        <TextField
+          label="Replies to invitations go to"
+          type="email"
+          placeholder="research@your-organisation.example"
+          error={errors.mailReplyTo?.message}
+          hint="Leave empty if replies should not reach the team."
+          {...form.register('mailReplyTo')}
         />
       </fieldset>
       {update.error && !applyFieldErrors(update.error, () => {}) && (

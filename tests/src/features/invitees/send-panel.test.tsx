@@ -2,14 +2,26 @@
 import '@testing-library/jest-dom/vitest';
 import { afterEach, describe, expect, it } from 'vitest';
 import { cleanup, screen } from '@testing-library/react';
+import userEvent from '@testing-library/user-event';
 import { describeSend, SendPanel } from '@/features/invitees/components/send-panel';
 import { renderWithQuery } from '../../support/render';
 
 afterEach(cleanup);
 
+const props = {
+  teamId: 't',
+  studyId: 's',
+  live: true,
+  listSize: 12,
+  notInvited: 5,
+  notFinished: 3,
+  studyTitle: 'Your water services',
+  duration: 'about 10 minutes',
+};
+
 describe('SendPanel', () => {
   it('sends nothing and claims nothing while the list is empty', () => {
-    renderWithQuery(<SendPanel teamId="t" studyId="s" live listSize={0} />);
+    renderWithQuery(<SendPanel {...props} listSize={0} notInvited={0} notFinished={0} />);
     expect(screen.getByText(/Nobody is on the list yet/)).toBeVisible();
     expect(screen.getByRole('button', { name: 'Send invitations' })).toBeDisabled();
     expect(screen.getByRole('button', { name: 'Send reminders' })).toBeDisabled();
@@ -17,9 +29,45 @@ describe('SendPanel', () => {
   });
 
   it('lets a live study with people on the list send', () => {
-    renderWithQuery(<SendPanel teamId="t" studyId="s" live listSize={12} />);
+    renderWithQuery(<SendPanel {...props} />);
     expect(screen.getByRole('button', { name: 'Send invitations' })).toBeEnabled();
     expect(screen.queryByText(/Nobody is on the list yet/)).toBeNull();
+  });
+});
+
+describe('SendPanel wording and confirmation', () => {
+  it('previews the wording with its placeholders filled, and refuses an unknown one by name', async () => {
+    const user = userEvent.setup();
+    renderWithQuery(<SendPanel {...props} />);
+    await user.click(screen.getByText('Change the wording'));
+    await user.type(screen.getByLabelText('Subject'), '{{study} for {{name}');
+    const preview = screen.getByRole('region', { name: 'Preview of the invitation' });
+    expect(preview).toHaveTextContent('Your water services for Ana Ferreira');
+    expect(preview).toHaveTextContent('It takes about 10 minutes');
+    await user.type(screen.getByLabelText(/^Message/), 'Hi {{first}');
+    await user.click(screen.getByRole('button', { name: 'Send invitations' }));
+    expect(await screen.findByText(/no placeholder \{first\}/)).toBeVisible();
+    expect(screen.queryByRole('dialog')).toBeNull();
+  });
+
+  it('asks first, naming how many people a send reaches; cancel sends nothing', async () => {
+    const user = userEvent.setup();
+    renderWithQuery(<SendPanel {...props} />);
+    await user.click(screen.getByRole('button', { name: 'Send invitations' }));
+    const dialog = await screen.findByRole('dialog', { name: 'Send invitations to 5 people?' });
+    expect(dialog).toBeVisible();
+    await user.click(screen.getByRole('button', { name: 'Cancel' }));
+    expect(screen.queryByRole('dialog')).toBeNull();
+    await user.click(screen.getByRole('button', { name: 'Send reminders' }));
+    expect(
+      await screen.findByRole('dialog', { name: 'Send reminders to up to 3 people?' }),
+    ).toBeVisible();
+  });
+
+  it('cannot send invitations when everyone on the list has been invited', () => {
+    renderWithQuery(<SendPanel {...props} notInvited={0} />);
+    expect(screen.getByRole('button', { name: 'Send invitations' })).toBeDisabled();
+    expect(screen.getByRole('button', { name: 'Send reminders' })).toBeEnabled();
   });
 });
 

@@ -18,6 +18,9 @@ import { DailyChart } from '@/features/fieldwork/components/daily-chart';
 import { InvitationSummary } from '@/features/fieldwork/components/invitation-summary';
 import { InviteeUpload } from '@/features/invitees/components/invitee-upload';
 import { SendPanel } from '@/features/invitees/components/send-panel';
+import { useStudy } from '@/features/studies/api/get-study';
+import { useQuestionnaire } from '@/features/questionnaire/api/get-questionnaire';
+import { statedDuration } from '@shared/mail/invitation-wording';
 import { InviteeTable } from '@/features/invitees/components/invitee-table';
 import { LifecyclePanel } from '@/features/lifecycle/components/lifecycle-panel';
 import { useLifecycle } from '@/features/lifecycle/api/get-lifecycle';
@@ -32,6 +35,12 @@ export function Component() {
   const { can } = useCurrentTeam();
   const qc = useQueryClient();
   const stats = useFieldworkStats(teamId, studyId);
+  // What the invitation preview names: the public title and the consent page's duration.
+  const studyTitle = useStudy(teamId, studyId).data?.publicTitle ?? '';
+  const consent = useQuestionnaire(teamId, studyId).data?.questionnaire.pages.find(
+    (p) => p.kind === 'consent',
+  );
+  const duration = statedDuration(consent?.kind === 'consent' ? consent.body : '');
   const refreshStats = () =>
     void qc.invalidateQueries({ queryKey: fieldworkKeys.stats(teamId, studyId) });
   // Going live or closing in the panel below changes whether the figures keep refreshing.
@@ -128,6 +137,13 @@ export function Component() {
                     studyId={studyId}
                     live={live}
                     listSize={s.invitations.total}
+                    notInvited={s.invitations.total - s.invitations.sent}
+                    notFinished={Math.max(
+                      0,
+                      s.invitations.sent - s.invitations.completed - s.invitations.unsubscribed,
+                    )}
+                    studyTitle={studyTitle}
+                    duration={duration}
                     onSent={refreshStats}
                   />
                 </section>

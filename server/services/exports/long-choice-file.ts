@@ -34,6 +34,14 @@ export interface LongFileAnswer {
   respondentId: string;
   screenKey: string;
   responseMs: number | null;
+  /** The stored answer; a choice carries `certainty` when its task asked how sure. */
+  value?: unknown;
+}
+
+/** The certainty answer (1 = least sure) stored with a choice, or null when none was asked. */
+export function certaintyOf(value: unknown): number | null {
+  const c = (value as { certainty?: unknown } | null)?.certainty;
+  return typeof c === 'number' ? c : null;
 }
 
 /** The screen key of a long-row task id: design task n → task:n, holdout hk → its page. */
@@ -56,7 +64,7 @@ export function buildLongChoiceTable(
   const plans = new Map(
     respondents.map((r) => [r.id, respondentPlanSchema.safeParse(r.plan).data ?? null]),
   );
-  const ms = new Map(answers.map((a) => [`${a.respondentId}|${a.screenKey}`, a.responseMs]));
+  const byScreen = new Map(answers.map((a) => [`${a.respondentId}|${a.screenKey}`, a]));
   const rows: CellValue[][] = prepared.rows.map((row) => {
     const id = String(row.respondent);
     const r = byId.get(id);
@@ -70,7 +78,8 @@ export function buildLongChoiceTable(
     const designIndex = Number(row.alt) - 1;
     const alternatives = order?.filter((j) => j >= 0).length ?? 0;
     const atPosition = order?.indexOf(designIndex >= alternatives ? -1 : designIndex) ?? -1;
-    const time = ms.get(`${id}|${screenKey}`);
+    const answer = byScreen.get(`${id}|${screenKey}`);
+    const time = answer?.responseMs;
     return [
       id,
       number.get(id) ?? null,
@@ -83,6 +92,7 @@ export function buildLongChoiceTable(
       row.chosen,
       row.holdout ? 1 : 0,
       time === null || time === undefined ? null : time / 1000,
+      certaintyOf(answer?.value),
       ...Array.from(row.values),
     ];
   });
@@ -139,6 +149,13 @@ export function buildLongChoiceTable(
         'Time the respondent spent on the task (the same on each of its rows)',
         'seconds',
         'number; empty when not recorded',
+      ),
+      col(
+        'certainty',
+        'integer',
+        'How sure the respondent said they were of this choice (the same on each of its rows)',
+        'none',
+        '1 = least sure, up to the scale set on the tasks page; empty when not asked',
       ),
       ...prepared.columns.map((c) => describeCodedColumn(latest.definition, c)),
     ],

@@ -78,7 +78,7 @@ beforeAll(async () => {
         chosenAlternative: 1,
         chosenPosition: 0,
         responseMs: 2500,
-        value: { kind: 'choice', position: 0 },
+        value: { kind: 'choice', position: 0, certainty: 7 },
       },
     ],
   );
@@ -132,7 +132,7 @@ describe('GET /exports/choices.csv (the long choice file)', () => {
   it('has one row per alternative shown of every answered task, counted against the database', async () => {
     const { res, rows } = await csvOf('viewer', 'choices.csv');
     const header = (parse(res.text) as string[][])[0];
-    expect(header.slice(0, 11)).toEqual([
+    expect(header.slice(0, 12)).toEqual([
       'respondent',
       'number',
       'included',
@@ -144,6 +144,7 @@ describe('GET /exports/choices.csv (the long choice file)', () => {
       'chosen',
       'holdout',
       'task_seconds',
+      'certainty',
     ]);
     expect(header).toContain('monthly_bill_increase');
     // Two designed packages and the status quo on every screen.
@@ -168,15 +169,28 @@ describe('GET /exports/choices.csv (the long choice file)', () => {
     const { rows } = await csvOf('viewer', 'choices.csv');
     const task2 = rows.filter((r) => r.respondent === extra.screenedWithTask && r.task === '2');
     expect(
-      task2.map((r) => [r.alt, r.alt_position, r.chosen, r.task_shown, r.task_seconds]),
+      task2.map((r) => [
+        r.alt,
+        r.alt_position,
+        r.chosen,
+        r.task_shown,
+        r.task_seconds,
+        r.certainty,
+      ]),
     ).toEqual([
-      ['1', '3', '0', '1', '2.5'],
-      ['2', '1', '1', '1', '2.5'],
-      ['3', '2', '0', '1', '2.5'],
+      ['1', '3', '0', '1', '2.5', '7'],
+      ['2', '1', '1', '1', '2.5', '7'],
+      ['3', '2', '0', '1', '2.5', '7'],
     ]);
     // A record without positions leaves the column empty rather than guessing.
     const first = rows.find((r) => r.respondent === seeded.respondentIds[0] && r.task === '1')!;
-    expect(first).toMatchObject({ task_shown: '1', alt_position: '', task_seconds: '4' });
+    // …and a task that asked no certainty question leaves that column empty.
+    expect(first).toMatchObject({
+      task_shown: '1',
+      alt_position: '',
+      task_seconds: '4',
+      certainty: '',
+    });
   });
 
   it('is read by the command-line estimator, which leaves included=false rows out', async () => {

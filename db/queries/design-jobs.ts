@@ -8,6 +8,7 @@ export const designJobColumns = {
   studyId: designJobs.studyId,
   teamId: designJobs.teamId,
   spec: designJobs.spec,
+  purpose: designJobs.purpose,
   status: designJobs.status,
   progress: designJobs.progress,
   designId: designJobs.designId,
@@ -21,7 +22,13 @@ export const designJobColumns = {
 
 export async function insertDesignJob(
   db: DbOrTx,
-  params: { studyId: string; teamId: string; spec: unknown; createdBy: string | null },
+  params: {
+    studyId: string;
+    teamId: string;
+    spec: unknown;
+    purpose?: 'attach' | 'candidate';
+    createdBy: string | null;
+  },
 ) {
   const [row] = await db.insert(designJobs).values(params).returning(designJobColumns);
   return row;
@@ -188,4 +195,24 @@ export async function failQueuedDesignJobs(db: DbOrTx, ids: string[], error: str
     .where(and(inArray(designJobs.id, ids), eq(designJobs.status, 'queued')))
     .returning({ id: designJobs.id });
   return rows.map((r) => r.id);
+}
+
+/** The study's latest candidate job (services/redesign.ts): its design, if any, waits to be adopted. */
+export async function getLatestCandidateJob(
+  db: DbOrTx,
+  params: { studyId: string; teamId: string },
+) {
+  const [row] = await db
+    .select(designJobColumns)
+    .from(designJobs)
+    .where(
+      and(
+        eq(designJobs.studyId, params.studyId),
+        eq(designJobs.teamId, params.teamId),
+        eq(designJobs.purpose, 'candidate'),
+      ),
+    )
+    .orderBy(desc(designJobs.createdAt))
+    .limit(1);
+  return row ?? null;
 }

@@ -37,3 +37,21 @@ export async function insertDesign(
   const [row] = await db.insert(designs).values(params).returning(designColumns);
   return row;
 }
+
+/** Deletes a design of the study that is not its current one (a discarded candidate). */
+export async function deleteDesign(
+  db: DbOrTx,
+  params: { id: string; teamId: string; studyId: string },
+) {
+  const [row] = await db
+    .delete(designs)
+    .where(
+      and(
+        eq(designs.id, params.id),
+        eq(designs.teamId, params.teamId),
+        eq(designs.studyId, params.studyId),
+      ),
+    )
+    .returning({ id: designs.id });
+  return row ?? null;
+}

@@ -83,6 +83,11 @@ export const designJobs = pgTable(
       .notNull()
       .references(() => teams.id, { onDelete: 'cascade' }),
     spec: jsonb('spec').notNull(),
+    /**
+     * 'attach': the design becomes the study's current one (drafts only). 'candidate': it is
+     * kept beside the current one for comparison until adopted or discarded (any status).
+     */
+    purpose: text('purpose').notNull().default('attach'),
     status: jobStatusEnum('status').notNull().default('queued'),
     progress: jsonb('progress').notNull().default({}),
     designId: uuid('design_id').references(() => designs.id, { onDelete: 'set null' }),

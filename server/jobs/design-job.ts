@@ -21,7 +21,7 @@ import {
 } from '../../db/queries/design-jobs';
 import { sweepOrphans, type OrphanSpec } from './orphan-sweep';
 import { getStudyById, updateStudy } from '../../db/queries/studies';
-import { insertDesign } from '../../db/queries/designs';
+import { getDesignById, insertDesign } from '../../db/queries/designs';
 import { studyDefinitionSchema } from '../../shared/schemas/study-definition';
 import { designFitsDefinition } from '../services/design-fit';
 
@@ -55,7 +55,9 @@ export async function runDesignJob(deps: AppDeps, pool: Piscina, designJobId: st
     return;
   }
   const study = await getStudyById(deps.db, { id: job.studyId, teamId: job.teamId });
-  if (!study || study.status !== 'draft') {
+  // A candidate is generated beside the current design, whatever the study's status.
+  const candidate = job.purpose === 'candidate';
+  if (!study || (!candidate && study.status !== 'draft')) {
     await finishDesignJob(deps.db, {
       id: job.id,
       status: 'failed',
@@ -64,6 +66,10 @@ export async function runDesignJob(deps: AppDeps, pool: Piscina, designJobId: st
     return;
   }
   const definition = studyDefinitionSchema.parse(study.definition);
+  const currentDesign =
+    candidate && study.currentDesignId
+      ? await getDesignById(deps.db, { id: study.currentDesignId, teamId: job.teamId })
+      : null;
   const abort = new AbortController();
   let latest: Progress = { phase: 'building', fraction: 0, at: new Date().toISOString() };
   let writing = Promise.resolve();
@@ -82,7 +88,7 @@ export async function runDesignJob(deps: AppDeps, pool: Piscina, designJobId: st
   try {
     const out = await runDesignInWorker(
       pool,
-      { definition, spec: job.spec },
+      { definition, spec: job.spec, compareWith: currentDesign?.design },
       {
         signal: abort.signal,
         onProgress: (p) => {
@@ -105,7 +111,7 @@ export async function runDesignJob(deps: AppDeps, pool: Piscina, designJobId: st
       const current = now ? studyDefinitionSchema.safeParse(now.definition) : null;
       if (
         !now ||
-        now.status !== 'draft' ||
+        (!candidate && now.status !== 'draft') ||
         !current?.success ||
         !designFitsDefinition(current.data, out.result.design)
       ) {
@@ -122,14 +128,22 @@ export async function runDesignJob(deps: AppDeps, pool: Piscina, designJobId: st
         method: out.result.spec.method,
         spec: out.result.spec,
         design: out.result.design,
-        diagnostics: out.result.diagnostics,
+        // A candidate keeps its side-by-side comparison with the design it was compared with.
+        diagnostics: candidate
+          ? {
+              ...out.result.diagnostics,
+              comparison: out.comparison ?? [],
+              comparedWith: currentDesign?.id,
+            }
+          : out.result.diagnostics,
         createdBy: job.createdBy,
       });
-      await updateStudy(tx, {
-        id: job.studyId,
-        teamId: job.teamId,
-        set: { currentDesignId: design.id },
-      });
+      if (!candidate)
+        await updateStudy(tx, {
+          id: job.studyId,
+          teamId: job.teamId,
+          set: { currentDesignId: design.id },
+        });
       await finishDesignJob(tx, {
         id: job.id,
         status: 'done',

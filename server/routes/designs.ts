@@ -1,13 +1,15 @@
 /** /api/teams/:teamId/studies/:studyId/design — the Tasks section (design, jobs, CSV). */
 import { Router } from 'express';
 import type { AppDeps } from '../deps';
-import { parseBody, parseParams } from '../middleware/validate';
-import { memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { parseBody, parseParams, parseQuery } from '../middleware/validate';
+import { actorOf, memberOf, requireTeam, requireUser } from '../middleware/auth';
 import { acceptOneFile, requireFile } from '../middleware/upload';
 import { studyParamsSchema } from '../services/study-access';
 import { designJobParamsSchema } from '../../shared/schemas/design-job';
 import { designSpecSchema } from '../../shared/schemas/design-spec';
 import * as designs from '../services/designs';
+import * as redesign from '../services/redesign';
+import { candidateParamsSchema, runPriorsQuerySchema } from '../../shared/schemas/redesign';
 
 const MAX_CSV_BYTES = 1024 * 1024;
 
@@ -44,6 +46,26 @@ export function createDesignsRouter(deps: AppDeps): Router {
     const { studyId } = parseParams(studyParamsSchema, req);
     const { filename, csv } = await designs.exportDesign(deps, memberOf(req).teamId, studyId);
     res.type('text/csv; charset=utf-8').attachment(filename).send(csv);
+  });
+  // Pilot → priors → redesign (services/redesign.ts).
+  router.get('/priors-from-run', requireTeam(deps, 'runs:read'), async (req, res) => {
+    const { studyId } = parseParams(studyParamsSchema, req);
+    const query = parseQuery(runPriorsQuerySchema, req);
+    res.json(await redesign.getRunPriors(deps, memberOf(req).teamId, studyId, query));
+  });
+  router.post('/candidates', write, async (req, res) => {
+    const { studyId } = parseParams(studyParamsSchema, req);
+    const spec = parseBody(designSpecSchema, req);
+    res.status(202).json(await redesign.startCandidateJob(deps, memberOf(req), studyId, spec));
+  });
+  router.post('/candidates/:designId/adopt', write, async (req, res) => {
+    const { studyId, designId } = parseParams(candidateParamsSchema, req);
+    res.json(await redesign.adoptCandidate(deps, memberOf(req), studyId, designId, actorOf(req)));
+  });
+  router.delete('/candidates/:designId', write, async (req, res) => {
+    const { studyId, designId } = parseParams(candidateParamsSchema, req);
+    await redesign.discardCandidate(deps, memberOf(req), studyId, designId);
+    res.status(204).end();
   });
 
   return router;

@@ -5,6 +5,8 @@
 import type { AppDeps } from '../deps';
 import { AppError, ConflictError, NotFoundError, ValidationError } from '../lib/errors';
 import { loadStudy } from './study-access';
+import { getCandidateView } from './redesign';
+import { toDesignView, toJobView } from './design-view';
 import { assertDraft } from './studies';
 import { DESIGN_JOB } from '../jobs/design-job';
 import { checkDesignSpec } from '../engine/design/check-design-spec';
@@ -23,25 +25,9 @@ import {
 import { updateStudy } from '../../db/queries/studies';
 import { studyDefinitionSchema, type StudyDefinition } from '../../shared/schemas/study-definition';
 import type { Design } from '../../shared/schemas/design';
-import type { DesignJobView, DesignView } from '../../shared/schemas/design-job';
+import type { DesignJobView } from '../../shared/schemas/design-job';
 
 type Actor = { teamId: string; userId: string };
-type JobRow = NonNullable<Awaited<ReturnType<typeof getDesignJob>>>;
-
-function toJobView(row: JobRow): DesignJobView {
-  return {
-    id: row.id,
-    status: row.status,
-    spec: row.spec as DesignJobView['spec'],
-    progress: row.progress as DesignJobView['progress'],
-    designId: row.designId,
-    error: row.error,
-    cancelRequested: row.cancelRequested !== null,
-    createdAt: row.createdAt.toISOString(),
-    startedAt: row.startedAt?.toISOString() ?? null,
-    finishedAt: row.finishedAt?.toISOString() ?? null,
-  };
-}
 
 /** The engine's errors in the API's error model. */
 export function toAppError(err: DesignError): AppError {
@@ -60,17 +46,11 @@ export async function getDesignState(deps: AppDeps, teamId: string, studyId: str
     ? await getDesignById(deps.db, { id: study.currentDesignId, teamId })
     : null;
   const job = await getLatestDesignJob(deps.db, { studyId, teamId });
-  const design: DesignView | null = row
-    ? {
-        id: row.id,
-        method: row.method as DesignView['method'],
-        spec: row.spec as DesignView['spec'],
-        design: row.design as Design,
-        diagnostics: row.diagnostics as DesignView['diagnostics'],
-        createdAt: row.createdAt.toISOString(),
-      }
-    : null;
-  return { design, job: job ? toJobView(job) : null };
+  return {
+    design: row ? toDesignView(row) : null,
+    candidate: await getCandidateView(deps, teamId, studyId, study.currentDesignId),
+    job: job ? toJobView(job) : null,
+  };
 }
 
 export async function startDesignJob(
@@ -81,6 +61,21 @@ export async function startDesignJob(
 ): Promise<DesignJobView> {
   const study = await loadStudy(deps, actor.teamId, studyId);
   assertDraft(study, 'its choice tasks');
+  return queueDesignJob(deps, actor, study, specInput, 'attach');
+}
+
+/**
+ * Checks the spec against the study and queues a generation job: 'attach' makes the result the
+ * current design, 'candidate' keeps it beside the current one (services/redesign.ts).
+ */
+export async function queueDesignJob(
+  deps: AppDeps,
+  actor: Actor,
+  study: { id: string; definition: unknown },
+  specInput: unknown,
+  purpose: 'attach' | 'candidate',
+): Promise<DesignJobView> {
+  const studyId = study.id;
   let spec;
   try {
     spec = checkDesignSpec(definitionOf(study), specInput).spec;
@@ -99,6 +94,7 @@ export async function startDesignJob(
       studyId,
       teamId: actor.teamId,
       spec,
+      purpose,
       createdBy: actor.userId,
     });
     await jobs.send(DESIGN_JOB, { designJobId: row.id }, { tx }).catch((err: unknown) => {

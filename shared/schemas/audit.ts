@@ -20,6 +20,7 @@ export const auditActions = [
   'study.closed',
   'study.reopened',
   'study.returned_to_draft',
+  'study.design_adopted',
   'respondent.excluded',
   'respondent.included',
   'respondent.flagged_excluded',

@@ -6,6 +6,7 @@
 import { z } from 'zod';
 import type { Design } from './design';
 import type { DesignSpec } from './design-spec';
+import type { CriterionComparison } from './redesign';
 
 export const designJobParamsSchema = z.object({
   teamId: z.uuid(),
@@ -30,6 +31,8 @@ export type DesignJobView = {
   id: string;
   status: DesignJobStatus;
   spec: DesignSpec;
+  /** 'candidate': generated beside the current design, to compare and adopt (or discard). */
+  purpose: 'attach' | 'candidate';
   progress: DesignJobProgress;
   designId: string | null;
   error: string | null;
@@ -50,5 +53,7 @@ export type DesignView<Diagnostics = unknown> = {
 
 export type DesignState<Diagnostics = unknown> = {
   design: DesignView<Diagnostics> | null;
+  /** A generated design waiting beside the current one, with the side-by-side comparison. */
+  candidate: (DesignView<Diagnostics> & { comparison: CriterionComparison[] }) | null;
   job: DesignJobView | null;
 };

@@ -83,6 +83,8 @@ export const designSpecSchema = z
     maxIterations: z.number().int().min(1).max(1000).default(50),
     /** The criterion the search minimises; D-error unless chosen otherwise. */
     criterion: designCriterionSchema.default('d_error'),
+    /** The run whose estimates gave the priors (pilot → priors → redesign), for the record. */
+    priorsSource: z.object({ runId: z.uuid(), spread: z.enum(['se', 'population']) }).optional(),
     /** Target |t|-ratio of the S-estimate (1.96: significant at 5 %, two-sided). */
     tValue: z.number().finite().min(0.5, 'Use a t-value of at least 0.5').max(10).default(1.96),
     dominance: dominanceRulesSchema.prefault({}),

@@ -53,6 +53,11 @@ export const paths = {
     getHref: (teamId: string, studyId: string, section: StudySection) =>
       `/teams/${teamId}/studies/${studyId}/${section}`,
   },
+  /** The Tasks screen with a run's estimates offered as priors for a new design. */
+  redesignFromRun: {
+    getHref: (teamId: string, studyId: string, runId: string) =>
+      `/teams/${teamId}/studies/${studyId}/tasks?priorsFromRun=${encodeURIComponent(runId)}`,
+  },
   runEstimates: {
     path: '/teams/:teamId/studies/:studyId/models/:runId',
     getHref: (teamId: string, studyId: string, runId: string) =>

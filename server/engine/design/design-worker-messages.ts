@@ -5,16 +5,19 @@
 import type { MessagePort } from 'node:worker_threads';
 import type { DesignProgress, GeneratedDesign } from './generate-design';
 import type { DesignErrorCode } from './design-errors';
+import type { CriterionComparison } from '../../../shared/schemas/redesign';
 
 export interface DesignWorkerTask {
   definition: unknown;
   spec: unknown;
+  /** The study's current design: the result then compares it with the new one. */
+  compareWith?: unknown;
   /** Optional port that receives `{ type: 'progress', progress }` messages. */
   port?: MessagePort;
 }
 
 export type DesignWorkerResult =
-  | { ok: true; result: GeneratedDesign }
+  | { ok: true; result: GeneratedDesign; comparison?: CriterionComparison[] }
   | {
       ok: false;
       error: { code: DesignErrorCode; message: string; fields?: Record<string, string> };

@@ -10,6 +10,9 @@ import { z } from 'zod';
 import { DesignError } from './design-errors';
 import type { DesignProgressMessage, DesignWorkerResult } from './design-worker-messages';
 import { generateDesign } from './generate-design';
+import { compareDesigns } from './diagnostics/compare-designs';
+import { designSchema } from '../../../shared/schemas/design';
+import { studyDefinitionSchema } from '../../../shared/schemas/study-definition';
 import { lowerThreadPriority } from '../parallel/thread-priority';
 
 lowerThreadPriority();
@@ -17,6 +20,7 @@ lowerThreadPriority();
 const taskSchema = z.object({
   definition: z.unknown(),
   spec: z.unknown(),
+  compareWith: designSchema.optional(),
   port: z.instanceof(MessagePort).optional(),
 });
 
@@ -24,13 +28,26 @@ export function runDesignTask(message: unknown): DesignWorkerResult {
   const parsed = taskSchema.safeParse(message);
   if (!parsed.success)
     return { ok: false, error: { code: 'invalid_spec', message: 'Malformed design job message' } };
-  const { definition, spec, port } = parsed.data;
+  const { definition, spec, compareWith, port } = parsed.data;
   try {
     const result = generateDesign(definition, spec, {
       onProgress: (progress) =>
         port?.postMessage({ type: 'progress', progress } satisfies DesignProgressMessage),
     });
-    return { ok: true, result };
+    if (!compareWith) return { ok: true, result };
+    // A current design that no longer fits the attributes cannot be scored: no comparison.
+    let comparison;
+    try {
+      comparison = compareDesigns(
+        studyDefinitionSchema.parse(definition),
+        compareWith,
+        result.diagnostics,
+        result.spec,
+      );
+    } catch {
+      comparison = undefined;
+    }
+    return { ok: true, result, comparison };
   } catch (error) {
     if (error instanceof DesignError)
       return {

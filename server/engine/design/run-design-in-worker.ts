@@ -35,7 +35,7 @@ export function createDesignPool(options: { maxThreads?: number; nice?: number }
  */
 export async function runDesignInWorker(
   pool: Piscina,
-  job: { definition: unknown; spec: unknown },
+  job: { definition: unknown; spec: unknown; compareWith?: unknown },
   hooks: { onProgress?: (progress: DesignProgress) => void; signal?: AbortSignal } = {},
 ): Promise<DesignWorkerResult> {
   const channel = new MessageChannel();

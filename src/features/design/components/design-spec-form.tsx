@@ -23,6 +23,9 @@ type Props = {
   /** Spec of the current design, used as the starting values. */
   initial?: Partial<DesignSpec>;
   onGenerate: (spec: DesignSpec) => void;
+  /** Card title and button text (a candidate beside the current design says so). */
+  title?: string;
+  submitLabel?: string;
 };
 
 const methodHelp: Record<DesignSpec['method'], string> = {
@@ -40,6 +43,8 @@ export function DesignSpecForm({
   serverErrors,
   initial,
   onGenerate,
+  title = 'Generate choice tasks',
+  submitLabel = 'Generate design',
 }: Props) {
   const [v, setV] = useState<DesignFormValues>(() => formValuesFromSpec(initial));
   const [errors, setErrors] = useState<Map<string, string>>(new Map());
@@ -54,7 +59,7 @@ export function DesignSpecForm({
   const efficient = v.method === 'd_efficient';
 
   return (
-    <Card title="Generate choice tasks">
+    <Card title={title}>
       <form
         noValidate
         aria-label="Design settings"
@@ -183,7 +188,7 @@ export function DesignSpecForm({
           </p>
         )}
         <Button type="submit" disabled={disabled} busy={busy}>
-          Generate design
+          {submitLabel}
         </Button>
       </form>
     </Card>

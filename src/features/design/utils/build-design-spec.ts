@@ -19,6 +19,8 @@ export type DesignFormValues = {
   /** What the search minimises (D-efficient only). */
   criterion: DesignSpec['criterion'];
   tValue: string;
+  /** The run the priors came from, kept with the spec for the record. */
+  priorsSource?: DesignSpec['priorsSource'];
   /** Dominance screening switches (see shared/schemas/design-spec.ts). */
   dominance: DesignSpec['dominance'];
   minAppearances: string;
@@ -62,6 +64,8 @@ export function buildDesignSpec(
     starts: num(v.starts),
     seed: num(v.seed),
     criterion: v.method === 'd_efficient' ? v.criterion : 'd_error',
+    priorsSource:
+      v.method === 'd_efficient' && v.priorsKind !== 'zero' ? v.priorsSource : undefined,
     tValue: num(v.tValue),
     priors:
       v.method !== 'd_efficient' || v.priorsKind === 'zero'
@@ -105,6 +109,7 @@ export function formValuesFromSpec(spec: Partial<DesignSpec> | undefined): Desig
     draws: p?.kind === 'bayesian' ? String(p.draws) : '200',
     priors,
     criterion: spec.criterion ?? 'd_error',
+    priorsSource: spec.priorsSource,
     tValue: String(spec.tValue ?? 1.96),
     dominance: { ...defaultDesignForm.dominance, ...spec.dominance },
     minAppearances: String(spec.balance?.minAppearances ?? 1),

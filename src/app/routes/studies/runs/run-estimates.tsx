@@ -75,6 +75,16 @@ export function Component() {
               Cancel run
             </Button>
           )}
+          {can('study:write') &&
+            run.status === 'done' &&
+            (run.model === 'mnl' || run.model === 'mixed') && (
+              <Link
+                to={paths.redesignFromRun.getHref(teamId, studyId, run.id)}
+                className="text-sm font-medium text-primary underline"
+              >
+                Use as priors for a new design
+              </Link>
+            )}
         </div>
         <p className="text-xs text-ink-muted">
           {MODEL_LABELS[run.model]} · started {formatDateTime(run.createdAt)}

@@ -18,6 +18,7 @@ import { JobProgress } from '@/features/design/components/job-progress';
 import { DesignTable } from '@/features/design/components/design-table';
 import { DiagnosticsPanel } from '@/features/design/components/diagnostics-panel';
 import { CsvImport } from '@/features/design/components/csv-import';
+import { RedesignPanel } from './tasks-redesign';
 
 const methodNames = {
   full_factorial: 'Full factorial',
@@ -49,6 +50,8 @@ export function Component() {
 
   const { design, job } = state.data;
   const canWrite = can('study:write') && study.status === 'draft';
+  // Redesign from a run's priors: beside the current design, in any status.
+  const redesign = design !== null && (study.status !== 'draft' || state.data.candidate !== null);
   const running = job?.status === 'queued' || job?.status === 'running';
   if (study.definition.attributes.length === 0)
     return (
@@ -73,7 +76,21 @@ export function Component() {
     <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
       <div className="space-y-6">
         {study.status !== 'draft' && (
-          <Alert tone="info">This study is {study.status}: its choice tasks are frozen.</Alert>
+          <Alert tone="info">
+            This study is {study.status}: its choice tasks are frozen.
+            {can('study:write') &&
+              ' You can still generate a new design from a run’s estimates, compare it and adopt it as a new version.'}
+          </Alert>
+        )}
+        {redesign && (
+          <RedesignPanel
+            teamId={teamId}
+            study={study}
+            columns={columns}
+            state={state.data}
+            canWrite={can('study:write')}
+            running={running}
+          />
         )}
         {canWrite && (
           <DesignSpecForm
@@ -90,7 +107,7 @@ export function Component() {
         {job && (
           <JobProgress
             job={job}
-            canCancel={canWrite}
+            canCancel={canWrite || (redesign && can('study:write'))}
             cancelling={cancel.isPending}
             onCancel={() => cancel.mutate(job.id)}
           />

@@ -1,0 +1,1 @@
+ALTER TABLE "design_jobs" ADD COLUMN "purpose" text DEFAULT 'attach' NOT NULL;

@@ -1,0 +1,16 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api } from '@/lib/api-client';
+import { designKeys } from './design-keys';
+
+/** Keeps the current design: the candidate is deleted. */
+export function discardCandidate(teamId: string, studyId: string, designId: string) {
+  return api.delete<void>(`/teams/${teamId}/studies/${studyId}/design/candidates/${designId}`);
+}
+
+export function useDiscardCandidate(teamId: string, studyId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (designId: string) => discardCandidate(teamId, studyId, designId),
+    onSuccess: () => qc.invalidateQueries({ queryKey: designKeys.state(teamId, studyId) }),
+  });
+}

@@ -1,0 +1,109 @@
+import type { PriorSpread, RunPriors } from '@shared/schemas/redesign';
+import { SelectField } from '@/components/ui/field';
+import { Button } from '@/components/ui/button';
+import { Card } from '@/components/ui/feedback';
+import { ErrorText } from '@/components/ui/error-boundary';
+import { ApiError } from '@/lib/api-client';
+
+export type PriorRunOption = { id: string; name: string; model: 'mnl' | 'mixed' };
+
+type Props = {
+  runs: PriorRunOption[];
+  runId: string;
+  spread: PriorSpread;
+  onRunChange: (runId: string) => void;
+  onSpreadChange: (spread: PriorSpread) => void;
+  priors: RunPriors | undefined;
+  error: unknown;
+  loading: boolean;
+  onUse: (priors: RunPriors) => void;
+};
+
+const fmt = (v: number) => v.toPrecision(3);
+
+/**
+ * Pilot → priors: pick a finished MNL or mixed-logit run, see its estimates as normal priors
+ * (mean = estimate, SD = standard error or population SD), and put them into the design form.
+ */
+export function RunPriorsCard(p: Props) {
+  const run = p.runs.find((r) => r.id === p.runId);
+  const fieldError =
+    p.error instanceof ApiError ? p.error.fields?.find((f) => f.path === 'runId')?.message : null;
+  const spreadError =
+    p.error instanceof ApiError ? p.error.fields?.find((f) => f.path === 'spread')?.message : null;
+  return (
+    <Card title="Priors from a run">
+      <p className="mb-3 text-sm text-ink-soft">
+        Use a pilot’s estimates as Bayesian priors: each coefficient’s estimate becomes the prior
+        mean, its uncertainty the prior SD.
+      </p>
+      <div className="grid gap-3 sm:grid-cols-2">
+        <SelectField
+          label="Run"
+          value={p.runId}
+          error={fieldError ?? undefined}
+          onChange={(e) => p.onRunChange(e.target.value)}
+        >
+          <option value="">Choose a finished run</option>
+          {p.runs.map((r) => (
+            <option key={r.id} value={r.id}>
+              {r.name} ({r.model === 'mnl' ? 'MNL' : 'mixed logit'})
+            </option>
+          ))}
+        </SelectField>
+        <SelectField
+          label="Prior SD"
+          value={p.spread}
+          error={spreadError ?? undefined}
+          hint={
+            p.spread === 'se'
+              ? 'How uncertain the estimate is.'
+              : 'How much tastes vary between people (random coefficients).'
+          }
+          onChange={(e) => p.onSpreadChange(e.target.value as PriorSpread)}
+        >
+          <option value="se">Standard error of the estimate</option>
+          <option value="population" disabled={run?.model === 'mnl'}>
+            Population SD (mixed logit)
+          </option>
+        </SelectField>
+      </div>
+      {p.error && !fieldError && !spreadError ? <ErrorText error={p.error} /> : null}
+      {p.loading && <p className="mt-3 text-sm text-ink-muted">Reading the run…</p>}
+      {p.priors && (
+        <div className="mt-4 space-y-3">
+          <div className="overflow-x-auto">
+            <table className="w-full text-sm" aria-label="Priors from the run">
+              <thead>
+                <tr className="border-b border-line text-left text-xs text-ink-muted">
+                  <th className="py-2 pr-3 font-medium">Coded column</th>
+                  <th className="py-2 pr-3 text-right font-medium">Mean</th>
+                  <th className="py-2 text-right font-medium">SD</th>
+                </tr>
+              </thead>
+              <tbody>
+                {p.priors.columns.map((c) => (
+                  <tr key={c.key} className="border-b border-line/60">
+                    <td className="py-1.5 pr-3 text-ink-soft">{c.name}</td>
+                    <td className="num py-1.5 pr-3 text-right">{fmt(c.mean)}</td>
+                    <td className="num py-1.5 text-right">
+                      {fmt(c.sd)}
+                      {p.spread === 'population' && c.spreadFrom === 'se' && (
+                        <span className="ml-1 text-xs text-ink-muted" title="Fixed coefficient">
+                          (SE)
+                        </span>
+                      )}
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+          <Button type="button" variant="secondary" onClick={() => p.onUse(p.priors!)}>
+            Use these priors in the design settings
+          </Button>
+        </div>
+      )}
+    </Card>
+  );
+}

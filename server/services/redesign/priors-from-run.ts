@@ -57,14 +57,26 @@ function assertSameCoding(run: Run, runDefinition: StudyDefinition, current: Stu
     );
 }
 
-/** Standard error of coefficient `name`'s population mean, or null when the run has none. */
-function getMeanSe(run: Run, name: string): number | null {
+/**
+ * Standard error of a coefficient's population mean, or null when the run has none. The MNL
+ * names its parameters by data column, the mixed logit by coefficient ("x", "x.mean"), so both
+ * names are tried; the SE is the one the run reports (robust when its covariance is robust).
+ */
+function getMeanSe(run: Run, coefficient: string, key: string): number | null {
   const results = run.results!;
-  const distribution = run.spec.coefficients.find((c) => c.name === name)?.distribution;
+  const names = [coefficient, key];
+  const distribution = run.spec.coefficients.find((c) => c.name === coefficient)?.distribution;
   if (distribution === 'lognormal' || distribution === 'neg_lognormal')
-    return results.derived?.find((d) => d.name === name && d.quantity === 'mean')?.se ?? null;
-  const parameter = !distribution || distribution === 'fixed' ? name : `${name}.mean`;
-  return results.estimates.find((e) => e.name === parameter)?.se ?? null;
+    return (
+      results.derived?.find((d) => names.includes(d.name) && d.quantity === 'mean')?.se ?? null
+    );
+  const parameters =
+    !distribution || distribution === 'fixed' ? names : names.map((n) => `${n}.mean`);
+  const estimate = results.estimates.find((e) => parameters.includes(e.name));
+  if (!estimate) return null;
+  return results.covariance?.used === 'robust'
+    ? (estimate.robustSe ?? estimate.se)
+    : (estimate.se ?? estimate.robustSe);
 }
 
 /** Builds the priors; throws ValidationError / ConflictError with the field to fix. */
@@ -100,7 +112,7 @@ export function buildPriorsFromRun(input: {
       moment?.mean ?? run.results!.estimates.find((e) => e.name === coefficient)?.estimate;
     const random = moment !== undefined && moment.distribution !== 'fixed';
     const spreadFrom: PriorSpread = spread === 'population' && random ? 'population' : 'se';
-    const sd = spreadFrom === 'population' ? moment!.sd : getMeanSe(run, coefficient);
+    const sd = spreadFrom === 'population' ? moment!.sd : getMeanSe(run, coefficient, column.key);
     if (mean === undefined || !Number.isFinite(mean) || sd === null || !Number.isFinite(sd))
       throw refuse(
         'runId',

@@ -45,8 +45,9 @@ function mnlResults(keys = columns.map((c) => c.key)) {
   return {
     model: 'mnl',
     columns: cols,
+    // The MNL names its estimates by data column (the engine's fit-mnl), its moments by coefficient.
     estimates: cols.map((c, k) => ({
-      name: c.coefficient,
+      name: c.key,
       estimate: mnlEstimate(k),
       se: 0.05 * (k + 1),
       robustSe: 0.06 * (k + 1),
@@ -73,9 +74,11 @@ function mixedResults() {
   return {
     ...base,
     model: 'mixed',
-    estimates: base.estimates.map((e) =>
-      random[e.name] ? { ...e, name: `${e.name}.mean`, se: 0.11 } : e,
-    ),
+    // The mixed logit names them by coefficient: "x" (fixed), "x.mean" / "x.sd" (random).
+    estimates: base.estimates.map((e) => {
+      const name = codeOf(e.name);
+      return random[name] ? { ...e, name: `${name}.mean`, se: 0.11 } : { ...e, name };
+    }),
     population: base.population.map((p) =>
       random[p.name] ? { ...p, ...random[p.name], location: 0, spread: 0 } : p,
     ),
@@ -149,6 +152,17 @@ describe('GET /design/priors-from-run', () => {
 
   it('for someone outside the team, returns 404', async () => {
     await team.outsider.get(`${base(studyId)}/priors-from-run?runId=${mnlRun}`).expect(404);
+  });
+
+  it('takes the robust SE when the run reports robust standard errors', async () => {
+    const robust = await insertRun(studyId, 'mnl', {
+      ...mnlResults(),
+      covariance: { used: 'robust' },
+    });
+    const res = await team.agents.owner
+      .get(`${base(studyId)}/priors-from-run?runId=${robust}`)
+      .expect(200);
+    expect(res.body.columns[0].sd).toBeCloseTo(0.06, 12);
   });
 
   it('mixed logit: population means, with the SE or the population SD as spread', async () => {

@@ -78,7 +78,15 @@ export function RedesignPanel({ teamId, study, columns, state, canWrite, running
               initial: {
                 ...(design?.spec as Partial<DesignSpec> | undefined),
                 method: 'd_efficient',
-                priors: p.priors,
+                // Four significant digits: priors are approximate, and the form stays readable.
+                priors: {
+                  ...p.priors,
+                  columns: p.priors.columns.map((c) => ({
+                    key: c.key,
+                    mean: Number(c.mean.toPrecision(4)),
+                    sd: Number(c.sd.toPrecision(4)),
+                  })),
+                },
                 priorsSource: { runId: p.runId, spread: p.spread },
               },
             })

@@ -109,6 +109,10 @@ export const runDataSummarySchema = z.object({
   /** Included, completed respondents without a usable task (left out). */
   respondentsWithoutTasks: z.number().int(),
   versions: z.array(z.number().int()),
+  /** Respondents estimated per study version (versions pool: tasks are stored per respondent). */
+  respondentsPerVersion: z
+    .array(z.object({ version: z.number().int(), respondents: z.number().int() }))
+    .optional(),
 });
 export type RunDataSummary = z.infer<typeof runDataSummarySchema>;
 

@@ -102,7 +102,7 @@ export function codeStudyAnswers(
     respondentsWithoutTasks: 0,
     versions: [],
   };
-  const usedVersions = new Set<number>();
+  const perVersion = new Map<number, number>();
   const sorted = [...respondents].sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
   for (const respondent of sorted) {
     const version = byId.get(respondent.versionId);
@@ -153,9 +153,13 @@ export function codeStudyAnswers(
       continue;
     }
     summary.respondents++;
-    usedVersions.add(version.version);
+    perVersion.set(version.version, (perVersion.get(version.version) ?? 0) + 1);
   }
-  summary.versions = [...usedVersions].sort((a, b) => a - b);
+  summary.versions = [...perVersion.keys()].sort((a, b) => a - b);
+  summary.respondentsPerVersion = summary.versions.map((v) => ({
+    version: v,
+    respondents: perVersion.get(v)!,
+  }));
   return { columns, rows, summary };
 }
 

@@ -85,6 +85,7 @@ export function buildLongChoiceTable(
       number.get(id) ?? null,
       inclusion.included,
       inclusion.exclusion,
+      versionOf.get(r?.versionId ?? '')?.version ?? null,
       row.task,
       taskShown,
       row.alt,
@@ -101,6 +102,13 @@ export function buildLongChoiceTable(
     columns: [
       ...respondentColumns,
       ...inclusionColumns,
+      col(
+        'version',
+        'integer',
+        'Study version the respondent answered; task numbers refer to that version’s design',
+        'none',
+        'integer from 1',
+      ),
       col(
         'task',
         'text',

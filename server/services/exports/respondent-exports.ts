@@ -3,7 +3,7 @@
  * answers) and the history of changed answers. Questions marked personal, and external ids,
  * only for roles with 'personal:read'.
  */
-import { getLatestVersion } from '../../../db/queries/versions';
+import { getLatestVersion, listStudyVersions } from '../../../db/queries/versions';
 import type { AppDeps } from '../../deps';
 import { loadStudy } from '../study-access';
 import { listQuestionAnswers } from '../../../db/queries/study-answers';
@@ -26,8 +26,12 @@ export async function loadRespondentTable(deps: AppDeps, member: Member, studyId
   const questions = getBackgroundQuestions(version?.questionnaire ?? study.questionnaire).filter(
     (q) => personal || !q.personal,
   );
-  const respondents = await listStudyRespondents(deps.db, { studyId });
-  return { study, personal, questions, respondents };
+  const [respondents, versions] = await Promise.all([
+    listStudyRespondents(deps.db, { studyId }),
+    listStudyVersions(deps.db, { studyId }),
+  ]);
+  const versionNumber = new Map(versions.map((v) => [v.id, v.version]));
+  return { study, personal, questions, respondents, versionNumber };
 }
 
 /** Every respondent with their status and background answers. */
@@ -37,7 +41,7 @@ export async function exportAnswersCsv(
   studyId: string,
   at = new Date(),
 ): Promise<Download> {
-  const { study, personal, questions, respondents } = await loadRespondentTable(
+  const { study, personal, questions, respondents, versionNumber } = await loadRespondentTable(
     deps,
     member,
     studyId,
@@ -50,6 +54,7 @@ export async function exportAnswersCsv(
     'respondent',
     'number',
     ...(personal ? ['external_id'] : []),
+    'version',
     'block',
     'status',
     'included',
@@ -62,6 +67,7 @@ export async function exportAnswersCsv(
     r.id,
     r.number,
     ...(personal ? [r.externalId] : []),
+    versionNumber.get(r.versionId) ?? null,
     r.block,
     r.status,
     getInclusion(r).included,

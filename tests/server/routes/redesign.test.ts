@@ -14,7 +14,14 @@ import { respondents } from '../../../db/schema/fieldwork';
 import { studies, studyVersions } from '../../../db/schema/studies';
 import { getCodedColumns } from '../../../shared/engine/coding/coded-columns';
 import type { Role } from '../../../shared/permissions';
-import { definition, insertStudy, type LiveSession } from './respond-fixtures';
+import { parse } from 'csv-parse/sync';
+import {
+  answerFor,
+  definition,
+  insertStudy,
+  sendAnswer,
+  type LiveSession,
+} from './respond-fixtures';
 
 let t: TestApp;
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
@@ -382,6 +389,29 @@ describe('candidate designs: compare, adopt, keep', () => {
       .from(studies)
       .where(eq(studies.id, study.id));
     expect(row.currentVersion).toBe(2);
+
+    // Both answer up to their first choice task; the exports say which version each saw.
+    for (const session of [first, second])
+      for (const screen of session.screens) {
+        await sendAnswer(
+          t,
+          study.publicId,
+          session.sessionToken,
+          'answers',
+          answerFor(screen),
+        ).expect(201);
+        if (screen.key.startsWith('task:')) break;
+      }
+    const exports = `/api/teams/${team.teamId}/studies/${study.id}/exports`;
+    const long = parse((await team.agents.viewer.get(`${exports}/choices.csv`).expect(200)).text, {
+      columns: true,
+    }) as Record<string, string>[];
+    expect([...new Set(long.map((r) => r.version))].sort()).toEqual(['1', '2']);
+    const background = parse(
+      (await team.agents.viewer.get(`${exports}/background-answers.csv`).expect(200)).text,
+      { columns: true },
+    ) as Record<string, string>[];
+    expect(background.map((r) => r.version).sort()).toEqual(['1', '2']);
   });
 
   it('keeping the current design deletes the candidate and changes nothing else', async () => {

@@ -132,11 +132,12 @@ describe('GET /exports/choices.csv (the long choice file)', () => {
   it('has one row per alternative shown of every answered task, counted against the database', async () => {
     const { res, rows } = await csvOf('viewer', 'choices.csv');
     const header = (parse(res.text) as string[][])[0];
-    expect(header.slice(0, 12)).toEqual([
+    expect(header.slice(0, 13)).toEqual([
       'respondent',
       'number',
       'included',
       'exclusion',
+      'version',
       'task',
       'task_shown',
       'alt',

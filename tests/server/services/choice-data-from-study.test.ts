@@ -185,6 +185,41 @@ describe('codeStudyAnswers', () => {
     expect(hashChoiceData(one)).toBe(createHash('sha256').update(toLongCsvText(one)).digest('hex'));
   });
 
+  it('pools versions with different designs: each respondent is coded with their version', () => {
+    // Version 2 is a redesign: same attributes, task 1 shows other packages.
+    const v2 = makeVersion({
+      id: 'v2',
+      version: 2,
+      design: {
+        blocks: 1,
+        tasks: [
+          { block: 1, task: 1, alternatives: [{ levels: packageB }, { levels: packageB }] },
+          { block: 1, task: 2, alternatives: [{ levels: packageA }, { levels: packageA }] },
+        ],
+      },
+    });
+    const prepared = codeStudyAnswers(
+      [makeVersion(), v2],
+      [
+        { id: 'r1', versionId: 'v1', answers: answersOf(0, 1) },
+        { id: 'r2', versionId: 'v2', answers: answersOf(0, 1) },
+        { id: 'r3', versionId: 'v2', answers: answersOf(1, 0) },
+      ],
+    );
+    expect(prepared.summary.versions).toEqual([1, 2]);
+    expect(prepared.summary.respondentsPerVersion).toEqual([
+      { version: 1, respondents: 1 },
+      { version: 2, respondents: 2 },
+    ]);
+    const bill = prepared.columns.findIndex((c) => c.key === 'attr:bill');
+    const billOf = (respondent: string) =>
+      prepared.rows
+        .filter((r) => r.respondent === respondent && r.task === 1 && r.alt <= 2)
+        .map((r) => r.values[bill]);
+    expect(billOf('r1')).toEqual([6, 15]);
+    expect(billOf('r2')).toEqual([15, 15]);
+  });
+
   it('refuses versions that code their attributes differently', () => {
     const v2 = makeVersion({
       id: 'v2',

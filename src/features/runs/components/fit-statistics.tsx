@@ -37,6 +37,15 @@ export function FitStatistics({ results }: { results: RunResult }) {
         ? `${results.draws.count} ${drawsTypeLabels[results.draws.type]}, seed ${results.draws.seed}`
         : '—',
     ],
+    [
+      // Versions pool: each respondent answered the design of the version they started on.
+      'Respondents per study version',
+      results.data.respondentsPerVersion
+        ? results.data.respondentsPerVersion
+            .map((v) => `v${v.version}: ${v.respondents}`)
+            .join(' · ')
+        : results.data.versions.map((v) => `v${v}`).join(', '),
+    ],
     ['Warm-up tasks left out', String(results.data.warmupTasksLeftOut)],
     ['Holdout tasks', String(results.data.holdoutTasks)],
   ];

@@ -214,7 +214,7 @@ describe('codeStudyAnswers', () => {
     const bill = prepared.columns.findIndex((c) => c.key === 'attr:bill');
     const billOf = (respondent: string) =>
       prepared.rows
-        .filter((r) => r.respondent === respondent && r.task === 1 && r.alt <= 2)
+        .filter((r) => r.respondent === respondent && r.task === 1 && Number(r.alt) <= 2)
         .map((r) => r.values[bill]);
     expect(billOf('r1')).toEqual([6, 15]);
     expect(billOf('r2')).toEqual([15, 15]);

@@ -44,7 +44,8 @@ export function FitStatistics({ results }: { results: RunResult }) {
         ? results.data.respondentsPerVersion
             .map((v) => `v${v.version}: ${v.respondents}`)
             .join(' · ')
-        : results.data.versions.map((v) => `v${v}`).join(', '),
+        : // Runs stored before the per-version count (or fixtures without it).
+          (results.data.versions ?? []).map((v) => `v${v}`).join(', ') || '—',
     ],
     ['Warm-up tasks left out', String(results.data.warmupTasksLeftOut)],
     ['Holdout tasks', String(results.data.holdoutTasks)],

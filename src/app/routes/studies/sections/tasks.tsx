@@ -1,5 +1,5 @@
 import { useMemo } from 'react';
-import { Link, useParams } from 'react-router';
+import { Link, useParams, useSearchParams } from 'react-router';
 import { getCodedColumns } from '@shared/engine/coding/coded-columns';
 import type { DesignSpec } from '@shared/schemas/design-spec';
 import type { StudyDefinition } from '@shared/schemas/study-definition';
@@ -39,6 +39,7 @@ function alternativeNamesOf(d: StudyDefinition): string[] {
 export function Component() {
   const { teamId = '', studyId = '' } = useParams();
   const { can } = useCurrentTeam();
+  const [search] = useSearchParams();
   const { data: study } = useStudy(teamId, studyId);
   const state = useDesignState(teamId, studyId);
   const start = useStartDesignJob(teamId, studyId);
@@ -50,8 +51,11 @@ export function Component() {
 
   const { design, job } = state.data;
   const canWrite = can('study:write') && study.status === 'draft';
-  // Redesign from a run's priors: beside the current design, in any status.
-  const redesign = design !== null && (study.status !== 'draft' || state.data.candidate !== null);
+  // Redesign from a run's priors: beside the current design, in any status (a draft shows it
+  // when a run's priors are asked for, or a candidate waits).
+  const redesign =
+    design !== null &&
+    (study.status !== 'draft' || state.data.candidate !== null || search.has('priorsFromRun'));
   const running = job?.status === 'queued' || job?.status === 'running';
   if (study.definition.attributes.length === 0)
     return (

@@ -1,18 +1,27 @@
 /**
  * /api/teams/:teamId/studies/:studyId/shares — the what-if share simulator. Reads: every role
- * with 'runs:read' may load a run's share model, its segments and simulate (nothing stored).
+ * with 'runs:read' may load a run's share model, its segments, simulate, and list saved
+ * scenarios; saving, renaming and deleting scenarios needs 'scenarios:write'.
  */
 import { Router } from 'express';
 import type { AppDeps } from '../deps';
 import { parseBody, parseParams, parseQuery } from '../middleware/validate';
-import { memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { actorOf, memberOf, requireTeam, requireUser } from '../middleware/auth';
 import { studyParamsSchema } from '../services/study-access';
 import {
+  scenarioBodySchema,
+  scenarioParamsSchema,
   shareGroupsQuerySchema,
   shareModelQuerySchema,
   simulateSharesSchema,
 } from '../../shared/schemas/shares';
 import { getShareGroups, getShareModel, simulateStudyShares } from '../services/shares';
+import {
+  createScenario,
+  listScenarios,
+  removeScenario,
+  updateScenario,
+} from '../services/share-scenarios';
 
 export function createSharesRouter(deps: AppDeps): Router {
   const router = Router({ mergeParams: true });
@@ -32,5 +41,30 @@ export function createSharesRouter(deps: AppDeps): Router {
     const input = parseBody(simulateSharesSchema, req);
     res.json(await simulateStudyShares(deps, memberOf(req), studyId, input));
   });
+  router.get('/scenarios', requireTeam(deps, 'runs:read'), async (req, res) => {
+    const { teamId, studyId } = parseParams(studyParamsSchema, req);
+    res.json(await listScenarios(deps, { teamId, studyId }));
+  });
+  router.post('/scenarios', requireTeam(deps, 'scenarios:write'), async (req, res) => {
+    const { teamId, studyId } = parseParams(studyParamsSchema, req);
+    const body = parseBody(scenarioBodySchema, req);
+    res
+      .status(201)
+      .json(await createScenario(deps, { teamId, studyId }, actorOf(req).userId, body));
+  });
+  router.put('/scenarios/:scenarioId', requireTeam(deps, 'scenarios:write'), async (req, res) => {
+    const { teamId, studyId, scenarioId } = parseParams(scenarioParamsSchema, req);
+    const body = parseBody(scenarioBodySchema, req);
+    res.json(await updateScenario(deps, { teamId, studyId }, scenarioId, body));
+  });
+  router.delete(
+    '/scenarios/:scenarioId',
+    requireTeam(deps, 'scenarios:write'),
+    async (req, res) => {
+      const { teamId, studyId, scenarioId } = parseParams(scenarioParamsSchema, req);
+      await removeScenario(deps, { teamId, studyId }, scenarioId);
+      res.status(204).end();
+    },
+  );
   return router;
 }

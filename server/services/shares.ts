@@ -8,7 +8,6 @@
 import type { AppDeps } from '../deps';
 import { ValidationError } from '../lib/errors';
 import { listRunProfiles } from '../../db/queries/tastes';
-import { ScenarioError } from '../../shared/engine/shares/code-scenario';
 import {
   computeScenarioShares,
   prepareShareModel,
@@ -25,13 +24,7 @@ import { loadRunContext, type Member, type RunContext } from './tastes/run-conte
 import { resolveGrouping } from './tastes/get-segments';
 import { computeShareWelfare } from './share-welfare';
 import { buildShareModel } from './shares/share-model';
-
-/** A scenario the shared coder refuses becomes a 400 naming the field. */
-export function asValidationError(e: unknown): never {
-  if (e instanceof ScenarioError)
-    throw new ValidationError(e.message, [{ path: e.path, message: e.field }]);
-  throw e;
-}
+import { rethrowScenarioError } from './shares/scenario-error';
 
 async function loadShareModel(deps: AppDeps, member: Member, studyId: string, runId: string) {
   const ctx = await loadRunContext(deps, member, studyId, runId);
@@ -117,7 +110,7 @@ export async function simulateStudyShares(
         : undefined,
     );
   } catch (e) {
-    asValidationError(e);
+    rethrowScenarioError(e);
   }
   const J = result.names.length;
   const welfare = computeShareWelfare(ctx, {

@@ -166,3 +166,29 @@ export type ShareGroups = {
   groups: { key: string; label: string }[];
   of: number[];
 };
+
+/** A saved, named scenario of a study (POST/PUT …/shares/scenarios). */
+export const scenarioBodySchema = z.object({
+  name: z.string().trim().min(1, 'Name the scenario').max(80, 'At most 80 characters'),
+  alternatives: z
+    .array(scenarioAlternativeSchema)
+    .min(2, 'Define at least 2 alternatives')
+    .max(5, 'At most 5 alternatives'),
+  includeFixed: z.boolean().default(true),
+});
+export type ScenarioBodyInput = z.input<typeof scenarioBodySchema>;
+export type ScenarioBody = z.output<typeof scenarioBodySchema>;
+
+export const scenarioParamsSchema = z.object({
+  teamId: z.uuid(),
+  studyId: z.uuid('Unknown study'),
+  scenarioId: z.uuid('Unknown scenario'),
+});
+
+export type SavedScenario = ScenarioBody & {
+  id: string;
+  createdAt: string;
+  updatedAt: string;
+  /** Who saved it first (null when that account is gone). */
+  createdBy: string | null;
+};

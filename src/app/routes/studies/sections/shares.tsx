@@ -22,6 +22,8 @@ import { makeAlternative, ScenarioEditor } from '@/features/shares/components/sc
 import { ShareResults } from '@/features/shares/components/share-results';
 import { SegmentPicker, toGroupsParams } from '@/features/shares/components/segment-picker';
 import { WelfarePanel } from '@/features/shares/components/welfare-panel';
+import { ScenarioLibrary } from '@/features/shares/components/scenario-library';
+import { useCurrentTeam } from '@/features/auth/hooks/use-current-team';
 import {
   usePreparedShareModel,
   useScenarioShares,
@@ -58,6 +60,8 @@ export function Component() {
   const [alternatives, setAlternatives] = useState<ScenarioAlternative[] | null>(null);
   const [includeFixed, setIncludeFixed] = useState(true);
   const [segment, setSegment] = useState('');
+  const [loaded, setLoaded] = useState<{ id: string; name: string } | null>(null);
+  const { can } = useCurrentTeam();
   const groups = useShareGroups(teamId, studyId, toGroupsParams(runId, segment));
   const simulate = useSimulateShares(teamId, studyId);
   const definition = model.data?.definition ?? study.data?.definition;
@@ -152,6 +156,23 @@ export function Component() {
           </p>
         </Card>
       )}
+      <Card title={loaded ? `Saved scenarios — editing “${loaded.name}”` : 'Saved scenarios'}>
+        <ScenarioLibrary
+          teamId={teamId}
+          studyId={studyId}
+          canWrite={can('scenarios:write')}
+          prepared={prepared}
+          current={{ alternatives: scenario, includeFixed }}
+          loaded={loaded}
+          onLoad={(s) => {
+            setLoaded(s ? { id: s.id, name: s.name } : null);
+            if (s) {
+              setAlternatives(s.alternatives);
+              setIncludeFixed(s.includeFixed);
+            }
+          }}
+        />
+      </Card>
       <Card title="Welfare against the status quo">
         <div className="space-y-3">
           <Button

@@ -7,7 +7,7 @@
  */
 import type { AppDeps } from '../deps';
 import { ValidationError } from '../lib/errors';
-import { listRunProfiles } from '../../db/queries/tastes';
+import { listRunProfiles } from '../../db/queries/taste-profiles';
 import {
   computeScenarioShares,
   prepareShareModel,

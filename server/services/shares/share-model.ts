@@ -7,7 +7,7 @@
  * (mixed logit and HB: conditional means and SDs; latent class: class probabilities).
  */
 import { choleskyDecompose } from '../../engine/linalg/cholesky';
-import type { ProfileRow } from '../../../db/queries/tastes';
+import type { ProfileRow } from '../../../db/queries/taste-profiles';
 import type { ShareModel } from '../../../shared/schemas/shares';
 import type { RunContext } from '../tastes/run-context';
 import { getShareBetas } from './share-betas';

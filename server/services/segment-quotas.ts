@@ -9,15 +9,19 @@
 import type { DbOrTx } from '../../db/client';
 import { listAnswerValues } from '../../db/queries/answers';
 import { countCompletesByAnswer } from '../../db/queries/quota-counts';
-import { screenKeys, type ScreeningPage } from '../../shared/schemas/questionnaire';
+import {
+  screenKeys,
+  type Questionnaire,
+  type ScreeningPage,
+} from '../../shared/schemas/questionnaire';
 import type { AnswerValue, RespondentStatus } from '../../shared/schemas/respondent';
 import { quotaCellOf } from '../../shared/survey/quota-cells';
 import type { FrozenVersion } from './respondent-screens';
 import { pageOfScreen } from './respondent-screen-index';
 
-/** The screening pages of a version that carry quota cells. */
-export function quotaPagesOf(version: FrozenVersion): ScreeningPage[] {
-  return version.questionnaire.pages.filter(
+/** The screening pages of a questionnaire that carry quota cells. */
+export function quotaPagesOf(questionnaire: Questionnaire): ScreeningPage[] {
+  return questionnaire.pages.filter(
     (p): p is ScreeningPage => p.kind === 'screening' && p.quotaCells.length > 0,
   );
 }
@@ -28,7 +32,7 @@ export function segmentQuotaApplies(
   screenKey: string,
   status: RespondentStatus,
 ): boolean {
-  if (status === 'completed') return quotaPagesOf(version).length > 0;
+  if (status === 'completed') return quotaPagesOf(version.questionnaire).length > 0;
   const page = pageOfScreen(version, screenKey);
   return status === 'in_progress' && page?.kind === 'screening' && page.quotaCells.length > 0;
 }
@@ -72,7 +76,7 @@ export async function respondentCellIsFull(
   db: DbOrTx,
   params: { studyId: string; respondentId: string; version: FrozenVersion },
 ): Promise<boolean> {
-  const pages = quotaPagesOf(params.version);
+  const pages = quotaPagesOf(params.version.questionnaire);
   if (pages.length === 0) return false;
   const given = await listAnswerValues(db, { respondentId: params.respondentId });
   for (const page of pages) {

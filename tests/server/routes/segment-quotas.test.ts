@@ -123,9 +123,22 @@ describe('segment quotas', () => {
     const third = await start(s.publicId);
     expect((await screenAs(s.publicId, third, 'older')).body.status).toBe('in_progress');
     expect((await finish(s.publicId, third)).body.status).toBe('completed');
-    // The study stays live: only one cell is full.
+    // The study stays live: only one cell is full. Fieldwork shows completes per cell.
     const info = await app.t.request().get(`/api/r/${s.publicId}`).expect(200);
     expect(info.body.state).toBe('live');
+    const stats = await app.owner
+      .get(`/api/teams/${app.teamId}/studies/${s.id}/fieldwork`)
+      .expect(200);
+    expect(stats.body.quotas).toEqual([
+      {
+        question: 'Your age group?',
+        cells: [
+          { id: 'c0', label: 'Cell 0', target: 1, completed: 1 },
+          { id: 'c1', label: 'Cell 1', target: 2, completed: 1 },
+        ],
+      },
+    ]);
+    expect(stats.body.counts).toMatchObject({ completed: 2, overQuota: 1 });
   });
 
   it('lets a cell end at its target when two in it finish at once', async () => {

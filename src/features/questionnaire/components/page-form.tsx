@@ -4,6 +4,7 @@ import type { StudyDefinition } from '@shared/schemas/study-definition';
 import { templateHelp, templateLabels } from '@shared/schemas/questionnaire-templates';
 import { CertaintyFields } from './certainty-fields';
 import { QuestionFields } from './question-fields';
+import { QuotaFields } from './quota-fields';
 import { DominanceFields, HandSetTaskFields } from './task-page-fields';
 
 const kindHelp: Partial<Record<QuestionnairePage['kind'], string>> = {
@@ -158,6 +159,7 @@ export function PageForm({
           />
         </div>
       )}
+      {page.kind === 'screening' && <QuotaFields page={page} onChange={onChange} />}
     </div>
   );
 }

@@ -5,6 +5,7 @@ import { templateHelp, templateLabels } from '@shared/schemas/questionnaire-temp
 import { CertaintyFields } from './certainty-fields';
 import { QuestionFields } from './question-fields';
 import { QuotaFields } from './quota-fields';
+import { OptionCheckboxes } from './option-checkboxes';
 import { DominanceFields, HandSetTaskFields } from './task-page-fields';
 
 const kindHelp: Partial<Record<QuestionnairePage['kind'], string>> = {
@@ -113,24 +114,11 @@ export function PageForm({
             <legend className="mb-1 text-sm font-medium text-ink">
               Screen out respondents who choose
             </legend>
-            {page.question.options.map((o) => (
-              <label key={o.id} className="flex items-center gap-2 text-sm text-ink">
-                <input
-                  type="checkbox"
-                  className="size-4"
-                  checked={page.screenOutOptionIds.includes(o.id)}
-                  onChange={(e) =>
-                    onChange({
-                      ...page,
-                      screenOutOptionIds: e.target.checked
-                        ? [...page.screenOutOptionIds, o.id]
-                        : page.screenOutOptionIds.filter((x) => x !== o.id),
-                    })
-                  }
-                />
-                {o.label}
-              </label>
-            ))}
+            <OptionCheckboxes
+              options={page.question.options}
+              selected={page.screenOutOptionIds}
+              onChange={(screenOutOptionIds) => onChange({ ...page, screenOutOptionIds })}
+            />
           </fieldset>
         )}
       {page.kind === 'screening' && page.question.type === 'number' && (

@@ -7,6 +7,7 @@ import { nanoid } from 'nanoid';
 import { Button } from '@/components/ui/button';
 import { Alert } from '@/components/ui/feedback';
 import { TextField } from '@/components/ui/field';
+import { OptionCheckboxes } from './option-checkboxes';
 import type { QuotaCell, ScreeningPage } from '@shared/schemas/questionnaire';
 import { acceptedRange, quotaProblems } from '@shared/survey/quota-cells';
 
@@ -71,25 +72,11 @@ export function QuotaFields({
           </div>
           {q.type === 'single' ? (
             <div className="space-y-1" role="group" aria-label={`Answers in ${cell.label}`}>
-              {q.options
-                .filter((o) => !page.screenOutOptionIds.includes(o.id))
-                .map((o) => (
-                  <label key={o.id} className="flex items-center gap-2 text-sm text-ink">
-                    <input
-                      type="checkbox"
-                      className="size-4"
-                      checked={cell.optionIds.includes(o.id)}
-                      onChange={(e) =>
-                        setCell(cell.id, {
-                          optionIds: e.target.checked
-                            ? [...cell.optionIds, o.id]
-                            : cell.optionIds.filter((x) => x !== o.id),
-                        })
-                      }
-                    />
-                    {o.label}
-                  </label>
-                ))}
+              <OptionCheckboxes
+                options={q.options.filter((o) => !page.screenOutOptionIds.includes(o.id))}
+                selected={cell.optionIds}
+                onChange={(optionIds) => setCell(cell.id, { optionIds })}
+              />
             </div>
           ) : (
             <div className="grid grid-cols-2 gap-3">

@@ -20,8 +20,10 @@ export function QuotaProgressList({ quotas }: { quotas: QuotaProgress[] }) {
                 <li key={c.id} className="space-y-1">
                   <div className="flex flex-wrap items-baseline justify-between gap-x-3 text-sm">
                     <span className="min-w-0 break-words text-ink">{c.label}</span>
-                    <span className="num text-ink-soft">
-                      {formatCount(c.completed)} of {formatCount(c.target)}
+                    <span className="text-ink-soft">
+                      <span className="num">
+                        {formatCount(c.completed)} of {formatCount(c.target)}
+                      </span>
                       {c.completed >= c.target && (
                         <Badge tone="accent" className="ml-2">
                           Full

@@ -20,6 +20,7 @@ import { checkAnswerValue } from './answer-rules';
 import { shapeAnswer, type AnswerInput } from './answer-shape';
 import { findKnownRespondent } from './known-respondents';
 import { segmentQuotaApplies } from './segment-quotas';
+import { ruleOfScreen } from '../../shared/survey/skip-logic';
 
 /** The receipt of a stored answer, or null when the full path must decide. */
 export async function saveAnswerFast(
@@ -35,7 +36,8 @@ export async function saveAnswerFast(
   });
   const { screens, plan } = screensOfRespondent(version, respondent);
   const index = screens.findIndex((s) => s.key === answer.screenKey);
-  if (index < 0) return null;
+  // A page with a skip rule needs the earlier answers: the full path checks it.
+  if (index < 0 || ruleOfScreen(screens[index])) return null;
   try {
     checkAnswerValue(screens[index], answer.value);
   } catch {

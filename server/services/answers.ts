@@ -29,6 +29,7 @@ import { rememberRespondent } from './known-respondents';
 import { resolveRefusedAnswer } from './answer-conflicts';
 import { completeUnderQuota } from './answer-quota';
 import { screeningCellIsFull, segmentQuotaApplies } from './segment-quotas';
+import { checkSkipRule } from './skip-rules';
 import { judgeLateAnswer, type LateAnswerVerdict } from './late-answers';
 
 export type { AnswerInput };
@@ -153,6 +154,11 @@ export async function saveAnswer(
       [{ path: 'screenKey', message: `Expected ${expected.key}` }],
     );
   checkAnswerValue(screens[index], answer.value);
+  await checkSkipRule(db, {
+    respondentId: respondent.id,
+    screen: screens[index],
+    value: answer.value,
+  });
 
   const seen = { plan, screens, index };
   const shaped = shapeAnswer(version, respondent, seen, answer, now);

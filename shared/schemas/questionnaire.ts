@@ -7,6 +7,7 @@
 import { z } from 'zod';
 import { elementIdSchema } from './study-definition';
 import { quotaProblems } from '../survey/quota-cells';
+import { skipRuleProblems } from '../survey/skip-logic';
 
 const title = z.string().trim().min(1, 'Give the page a title').max(200);
 const body = z.string().trim().max(6000);
@@ -70,6 +71,20 @@ export const handSetTaskAlternativeSchema = z.object({
 
 const page = { id: elementIdSchema };
 
+/**
+ * Skip logic: the page is shown only when the answer to an earlier question matches (one of
+ * the options, or a number within min..max); otherwise the respondent goes past it and the
+ * answer is stored as skipped (shared/survey/skip-logic.ts).
+ */
+export const showIfSchema = z.object({
+  questionKey: questionKeySchema,
+  optionIds: z.array(elementIdSchema).max(30).default([]),
+  min: z.number().finite().nullable().default(null),
+  max: z.number().finite().nullable().default(null),
+});
+export type ShowIf = z.infer<typeof showIfSchema>;
+const showIf = showIfSchema.nullable().optional();
+
 /** Follow-up templates a page was made from (shared/schemas/questionnaire-templates.ts). */
 export const templateKindSchema = z.enum([
   'consequentiality',
@@ -114,6 +129,7 @@ export const screeningPageSchema = z.object({
   /** Number questions: an answer outside [acceptMin, acceptMax] screens the respondent out. */
   acceptMin: z.number().finite().nullable().default(null),
   acceptMax: z.number().finite().nullable().default(null),
+  showIf,
   /** Completes wanted per answer group; a full cell screens its next respondents out. */
   quotaCells: z.array(quotaCellSchema).max(20).default([]),
 });
@@ -123,6 +139,7 @@ export const questionPageSchema = z.object({
   kind: z.literal('question'),
   question: questionSchema,
   template: templateKindSchema.optional(),
+  showIf,
 });
 export const instructionsPageSchema = z.object({
   ...page,
@@ -130,6 +147,7 @@ export const instructionsPageSchema = z.object({
   title,
   body,
   template: templateKindSchema.optional(),
+  showIf,
 });
 /** Where the respondent's block of design tasks goes, one task per screen. */
 /**
@@ -245,6 +263,8 @@ export const questionnaireSchema = z
         issue('The repeated task must come after the choice tasks', ['pages', i]);
       if (p.kind === 'screening' && p.question.type === 'text')
         issue('Screening questions are single, multiple choice or number', ['pages', i]);
+      for (const problem of skipRuleProblems(q.pages, i))
+        issue(problem.message, ['pages', i, 'showIf', ...problem.path]);
       if (p.kind === 'screening')
         for (const problem of quotaProblems(p))
           issue(problem.message, ['pages', i, 'quotaCells', ...problem.path]);

@@ -106,6 +106,11 @@ export function quotaProblems(page: ScreeningPage): QuotaProblem[] {
   if (q.type !== 'single' && q.type !== 'number')
     return [{ path: [], message: 'Quotas need a single-choice or number screening question' }];
   const problems: QuotaProblem[] = [];
+  if (page.showIf)
+    problems.push({
+      path: [],
+      message: 'A screening question with quotas must be asked of everyone',
+    });
   if (!q.required)
     problems.push({ path: [], message: 'A screening question with quotas must be required' });
   const ids = page.quotaCells.map((c) => c.id);

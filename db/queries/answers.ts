@@ -1,5 +1,9 @@
-/** Answers: one row per (respondent, screen); the client-made id makes retries harmless. */
-import { and, asc, eq, sql } from 'drizzle-orm';
+/**
+ * A respondent's own answers: one row per (respondent, screen); the client-made id makes retries
+ * harmless. Tenant: the respondent's session token (checked by getAnswerContext) is the scope;
+ * researchers' reads of a study's answers are in study-answers.ts.
+ */
+import { and, eq, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { answers, respondentBlockCounts, respondents } from '../schema/fieldwork';
 
@@ -27,14 +31,6 @@ export async function getAnswerByClientId(
       and(eq(answers.respondentId, params.respondentId), eq(answers.clientId, params.clientId)),
     );
   return row ?? null;
-}
-
-export async function listAnswers(db: DbOrTx, params: { respondentId: string }) {
-  return db
-    .select(answerColumns)
-    .from(answers)
-    .where(eq(answers.respondentId, params.respondentId))
-    .orderBy(asc(answers.createdAt), asc(answers.id));
 }
 
 export async function listAnsweredKeys(db: DbOrTx, params: { respondentId: string }) {
@@ -76,17 +72,6 @@ export async function insertAnswer(
     .onConflictDoNothing()
     .returning(answerColumns);
   return row ?? null;
-}
-
-/** Many answers at once (demo data); conflicts are skipped. */
-export async function insertAnswers(db: DbOrTx, rows: Parameters<typeof insertAnswer>[1][]) {
-  if (rows.length === 0) return 0;
-  const inserted = await db
-    .insert(answers)
-    .values(rows)
-    .onConflictDoNothing()
-    .returning({ id: answers.id });
-  return inserted.length;
 }
 
 /**

@@ -119,17 +119,3 @@ export async function countDaily(db: DbOrTx, params: { studyId: string }) {
     completed: Number(r.completed),
   }));
 }
-
-export async function getLatestVersionDocs(db: DbOrTx, params: { studyId: string }) {
-  const [row] = await db
-    .select({
-      version: studyVersions.version,
-      design: studyVersions.design,
-      questionnaire: studyVersions.questionnaire,
-    })
-    .from(studyVersions)
-    .where(eq(studyVersions.studyId, params.studyId))
-    .orderBy(sql`${studyVersions.version} desc`)
-    .limit(1);
-  return row ?? null;
-}

@@ -1,14 +1,15 @@
 /**
  * Respondents as the Responses section sees them: their choice answers for the quality flags,
  * the paged table, inclusion decisions, and the study's quality settings (a key of its own in
- * studies.settings, merged so other settings are never overwritten).
+ * studies.settings, merged so other settings are never overwritten). Tenant: the study is in
+ * every where-clause (and the team where a study row is written); the caller has loaded the
+ * study for the team. The demo seed's functions are called by the seed only.
  */
 import { and, asc, count, desc, eq, isNotNull, or, sql, type SQL } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
-import { answers, invitees, respondents } from '../schema/fieldwork';
+import { invitees, respondents } from '../schema/fieldwork';
 import { studies, studyVersions } from '../schema/studies';
 import type { QualityFlagKey, QualityFlags } from '../../shared/schemas/responses';
-import type { TaskKind } from '../../shared/schemas/respondent';
 
 export async function listRespondentsForFlags(db: DbOrTx, params: { studyId: string }) {
   return db
@@ -21,27 +22,6 @@ export async function listRespondentsForFlags(db: DbOrTx, params: { studyId: str
     })
     .from(respondents)
     .where(eq(respondents.studyId, params.studyId));
-}
-
-/** Every answered choice screen of the study (design and special tasks). */
-export async function listChoiceAnswers(db: DbOrTx, params: { studyId: string }) {
-  const rows = await db
-    .select({
-      respondentId: answers.respondentId,
-      taskKind: sql<string | null>`${answers.value}->>'taskKind'`,
-      taskNumber: answers.taskNumber,
-      chosenAlternative: answers.chosenAlternative,
-      chosenPosition: answers.chosenPosition,
-      repeatOfTask: sql<number | null>`(${answers.value}->>'repeatOfTask')::int`,
-      dominantChosen: sql<boolean | null>`(${answers.value}->>'dominantChosen')::boolean`,
-    })
-    .from(answers)
-    .where(and(eq(answers.studyId, params.studyId), isNotNull(answers.chosenPosition)));
-  return rows.map((r) => ({
-    ...r,
-    // Rows written before the kind was stored: a task number means a design task.
-    taskKind: (r.taskKind ?? (r.taskNumber !== null ? 'design' : 'warmup')) as TaskKind,
-  }));
 }
 
 /** Writes changed flags in one statement. */
@@ -150,14 +130,6 @@ export async function excludeRespondentsWithFlags(
     )
     .returning({ id: respondents.id });
   return rows.length;
-}
-
-export async function getStudySettings(db: DbOrTx, params: { studyId: string }) {
-  const [row] = await db
-    .select({ settings: studies.settings })
-    .from(studies)
-    .where(eq(studies.id, params.studyId));
-  return row?.settings ?? {};
 }
 
 /** Sets settings.quality, keeping every other key of the settings document. */

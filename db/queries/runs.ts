@@ -1,4 +1,8 @@
-/** Estimation runs: the tenant (team) and the study are in every where-clause. */
+/**
+ * Estimation runs. Tenant: the team and the study are in every where-clause a request reaches;
+ * the worker's functions (getRunForJob, claimRun, progress, finish, sweeps) take the run id from
+ * the job queue, which only the server writes, so they need no team.
+ */
 import { and, desc, eq, inArray, isNull, lt, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { runs } from '../schema/models';
@@ -61,6 +65,22 @@ export async function listRuns(db: DbOrTx, params: { teamId: string; studyId: st
     .from(runs)
     .where(and(eq(runs.teamId, params.teamId), eq(runs.studyId, params.studyId)))
     .orderBy(desc(runs.createdAt));
+}
+
+/** Finished runs of a study, newest first, with how many taste profiles each stored. */
+export async function listFinishedRuns(db: DbOrTx, params: { teamId: string; studyId: string }) {
+  const profiles = sql<number>`(select count(*)::int from taste_profiles tp where tp.run_id = ${runs.id})`;
+  return db
+    .select({ ...runColumns, profiles: profiles.mapWith(Number) })
+    .from(runs)
+    .where(
+      and(
+        eq(runs.teamId, params.teamId),
+        eq(runs.studyId, params.studyId),
+        eq(runs.status, 'done'),
+      ),
+    )
+    .orderBy(desc(runs.finishedAt), desc(runs.createdAt));
 }
 
 export async function countRuns(db: DbOrTx, params: { teamId: string; studyId: string }) {
@@ -163,14 +183,6 @@ export async function requestRunCancel(
     .where(and(scope, eq(runs.status, 'running')))
     .returning(runColumns);
   return running ?? null;
-}
-
-export async function isRunCancelRequested(db: DbOrTx, params: { id: string }) {
-  const [row] = await db
-    .select({ at: runs.cancelRequested, status: runs.status })
-    .from(runs)
-    .where(eq(runs.id, params.id));
-  return !row || row.at !== null || row.status === 'cancelled';
 }
 
 /** Fails running runs whose worker has been silent since `silentSince` (crash, restart). */

@@ -142,12 +142,3 @@ export async function updateDraftDefinition(
     .returning(studyColumns);
   return row ?? null;
 }
-
-export async function getStudyByName(db: DbOrTx, params: { teamId: string; name: string }) {
-  const [row] = await db
-    .select(studyColumns)
-    .from(studies)
-    .where(and(eq(studies.teamId, params.teamId), eq(studies.name, params.name)))
-    .limit(1);
-  return row ?? null;
-}

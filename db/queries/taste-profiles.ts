@@ -1,7 +1,14 @@
-/** Each respondent's taste profile from a run (one row per respondent). */
-import { asc, eq } from 'drizzle-orm';
+/**
+ * Each respondent's taste profile from a run (one row per respondent). Tenant: profiles have no
+ * team column; every read joins the respondent and filters on the study, and callers pass a run
+ * and study they have already loaded for the team (getRunById). Writes come from the
+ * estimation worker, which knows the run from the job queue.
+ */
+import { and, asc, count, eq } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { tasteProfiles } from '../schema/models';
+import { respondents } from '../schema/fieldwork';
+import { respondentNumber } from './respondent-number';
 
 export type TasteProfileInsert = {
   respondentId: string;
@@ -38,18 +45,72 @@ export async function replaceTasteProfiles(
   }
 }
 
-/** Profiles of a run; the caller has already checked that the run belongs to the team. */
-export async function listTasteProfiles(db: DbOrTx, params: { runId: string }) {
+export const profileColumns = {
+  respondentId: tasteProfiles.respondentId,
+  number: respondentNumber.mapWith(Number),
+  externalId: respondents.externalId,
+  block: respondents.block,
+  flags: respondents.flags,
+  included: respondents.included,
+  versionId: respondents.versionId,
+  mean: tasteProfiles.mean,
+  sd: tasteProfiles.sd,
+  wtp: tasteProfiles.wtp,
+  effectiveDraws: tasteProfiles.effectiveDraws,
+  extra: tasteProfiles.extra,
+};
+export type ProfileRow = {
+  respondentId: string;
+  number: number;
+  externalId: string | null;
+  block: number;
+  flags: unknown;
+  included: boolean;
+  versionId: string;
+  mean: unknown;
+  sd: unknown;
+  wtp: unknown;
+  effectiveDraws: number;
+  /** HB intervals, latent class probabilities (TasteProfileExtra). */
+  extra: unknown;
+};
+
+/** Every profile of a run in respondent order (exports, segments, shares, density charts). */
+export async function listRunProfiles(
+  db: DbOrTx,
+  params: { runId: string; studyId: string },
+): Promise<ProfileRow[]> {
   return db
-    .select({
-      respondentId: tasteProfiles.respondentId,
-      mean: tasteProfiles.mean,
-      sd: tasteProfiles.sd,
-      wtp: tasteProfiles.wtp,
-      effectiveDraws: tasteProfiles.effectiveDraws,
-      extra: tasteProfiles.extra,
-    })
+    .select(profileColumns)
     .from(tasteProfiles)
-    .where(eq(tasteProfiles.runId, params.runId))
-    .orderBy(asc(tasteProfiles.respondentId));
+    .innerJoin(respondents, eq(respondents.id, tasteProfiles.respondentId))
+    .where(and(eq(tasteProfiles.runId, params.runId), eq(respondents.studyId, params.studyId)))
+    .orderBy(asc(respondents.startedAt), asc(respondents.id));
+}
+
+export async function getRunProfile(
+  db: DbOrTx,
+  params: { runId: string; studyId: string; respondentId: string },
+): Promise<ProfileRow | null> {
+  const [row] = await db
+    .select(profileColumns)
+    .from(tasteProfiles)
+    .innerJoin(respondents, eq(respondents.id, tasteProfiles.respondentId))
+    .where(
+      and(
+        eq(tasteProfiles.runId, params.runId),
+        eq(tasteProfiles.respondentId, params.respondentId),
+        eq(respondents.studyId, params.studyId),
+      ),
+    );
+  return row ?? null;
+}
+
+/** How many profiles the run stored; the caller has loaded the run for the team. */
+export async function countRunProfiles(db: DbOrTx, params: { runId: string }) {
+  const [{ total }] = await db
+    .select({ total: count() })
+    .from(tasteProfiles)
+    .where(eq(tasteProfiles.runId, params.runId));
+  return total;
 }

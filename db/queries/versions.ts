@@ -60,6 +60,21 @@ export async function getLatestVersion(db: DbOrTx, params: { studyId: string }) 
   return row ?? null;
 }
 
+/** Every frozen version of a study, oldest first (what an estimation run codes). */
+export async function listStudyVersions(db: DbOrTx, params: { studyId: string }) {
+  return db
+    .select({
+      id: studyVersions.id,
+      version: studyVersions.version,
+      definition: studyVersions.definition,
+      design: studyVersions.design,
+      questionnaire: studyVersions.questionnaire,
+    })
+    .from(studyVersions)
+    .where(eq(studyVersions.studyId, params.studyId))
+    .orderBy(asc(studyVersions.version));
+}
+
 /** The id of the study's latest version (without its documents). */
 export async function getLatestVersionId(db: DbOrTx, params: { studyId: string }) {
   const [row] = await db

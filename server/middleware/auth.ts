@@ -55,11 +55,6 @@ export function requireTeam(deps: AppDeps, permission: Permission): RequestHandl
   );
 }
 
-/** For handlers that need a finer check after requireTeam (e.g. personal data columns). */
-export function assertCan(req: Express.Request, permission: Permission): void {
-  if (!req.member || !roleCan(req.member.role, permission)) throw new ForbiddenError();
-}
-
 export function memberOf(req: Express.Request): {
   teamId: string;
   role: import('../../shared/permissions').Role;

@@ -8,13 +8,14 @@
  * - hashChoiceData(prepared, keys?): SHA-256 of that CSV, stored with each run.
  */
 import type { Db, DbOrTx } from '../../db/client';
+import { getRespondentFilter } from '../../db/queries/respondent-filters';
 import {
-  getRespondentFilter,
   listChoiceAnswers,
-  listIncludedRespondents,
   listQuestionAnswers,
-  listStudyVersions,
-} from '../../db/queries/run-data';
+  type ChoiceAnswerRow,
+} from '../../db/queries/study-answers';
+import { listIncludedRespondents } from '../../db/queries/study-respondents';
+import { listStudyVersions } from '../../db/queries/versions';
 import { designSchema } from '../../shared/schemas/design';
 import { z } from 'zod';
 import { studyDefinitionSchema } from '../../shared/schemas/study-definition';
@@ -83,8 +84,6 @@ export async function loadVersionInputs(db: Db | DbOrTx, studyId: string): Promi
     ...readChoiceScreens(v.questionnaire),
   }));
 }
-
-type ChoiceAnswerRow = Awaited<ReturnType<typeof listChoiceAnswers>>[number];
 
 /** The given respondents with their choice answers (answers of others are left out). */
 export function groupChoiceAnswers(

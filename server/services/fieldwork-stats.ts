@@ -12,10 +12,10 @@ import {
   countDesignTasksAnswered,
   countReachedByScreen,
   countRespondentsByStatus,
-  getLatestVersionDocs,
   listUnfinishedProgress,
   medianCompletedDuration,
 } from '../../db/queries/fieldwork-stats';
+import { getLatestVersion } from '../../db/queries/versions';
 import { countInvitees } from '../../db/queries/invitees';
 import { designSchema } from '../../shared/schemas/design';
 import {
@@ -158,7 +158,7 @@ export async function getFieldworkStats(
       countDesignTasksAnswered(db, { studyId }),
       listUnfinishedProgress(db, { studyId }),
       countDaily(db, { studyId }),
-      getLatestVersionDocs(db, { studyId }),
+      getLatestVersion(db, { studyId }),
       countInvitees(db, { studyId }),
     ]);
   const counts = {

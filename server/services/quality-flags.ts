@@ -27,6 +27,32 @@ export type ChoiceAnswer = {
   dominantChosen?: boolean | null;
 };
 
+/**
+ * A stored choice answer as the flags read it. The task kind, repeated task and dominance
+ * outcome live in the answer's value (answer-shape.ts); rows written before the kind was stored
+ * count as a design task when they have a task number, else as a warm-up.
+ */
+export function readChoiceAnswer(row: {
+  taskNumber: number | null;
+  chosenAlternative: number | null;
+  chosenPosition: number | null;
+  value: unknown;
+}): ChoiceAnswer {
+  const v = (row.value ?? {}) as {
+    taskKind?: TaskKind;
+    repeatOfTask?: number;
+    dominantChosen?: boolean;
+  };
+  return {
+    taskKind: v.taskKind ?? (row.taskNumber !== null ? 'design' : 'warmup'),
+    taskNumber: row.taskNumber,
+    chosenAlternative: row.chosenAlternative,
+    chosenPosition: row.chosenPosition,
+    repeatOfTask: v.repeatOfTask ?? null,
+    dominantChosen: v.dominantChosen ?? null,
+  };
+}
+
 export type RespondentForFlags = {
   id: string;
   status: 'in_progress' | 'completed' | 'screened_out' | 'over_quota';

@@ -9,16 +9,16 @@ import { NotFoundError } from '../lib/errors';
 import { toDeviceClass } from '../lib/device-class';
 import { loadStudy } from './study-access';
 import { recordAudit, type Actor } from './audit';
-import { computeQualityFlags, type ChoiceAnswer } from './quality-flags';
+import { computeQualityFlags, readChoiceAnswer, type ChoiceAnswer } from './quality-flags';
 import {
   excludeRespondentsWithFlags,
-  listChoiceAnswers,
   listRespondentsForFlags,
   listResponses as queryResponses,
   setRespondentInclusion,
   updateQualitySettings,
   updateRespondentFlags,
 } from '../../db/queries/responses';
+import { listChoiceAnswers } from '../../db/queries/study-answers';
 import { roleCan, type Role } from '../../shared/permissions';
 import {
   qualityFlagKeys,
@@ -72,8 +72,10 @@ export async function refreshQualityFlags(
   ]);
   const byRespondent = new Map<string, ChoiceAnswer[]>();
   for (const c of choices) {
+    // The flags judge on-screen positions: answers stored without one are not theirs to judge.
+    if (c.chosenPosition === null) continue;
     const list = byRespondent.get(c.respondentId) ?? [];
-    list.push(c);
+    list.push(readChoiceAnswer(c));
     byRespondent.set(c.respondentId, list);
   }
   const hasFixedAlternative =

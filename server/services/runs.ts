@@ -22,11 +22,11 @@ import {
 import {
   getRespondentFilter,
   insertRespondentFilter,
-  listIncludedRespondents,
   listRespondentFilters,
-  listStudyVersions,
-} from '../../db/queries/run-data';
-import { listTasteProfiles } from '../../db/queries/taste-profiles';
+} from '../../db/queries/respondent-filters';
+import { listIncludedRespondents } from '../../db/queries/study-respondents';
+import { listStudyVersions } from '../../db/queries/versions';
+import { listRunProfiles } from '../../db/queries/taste-profiles';
 import { studyDefinitionSchema } from '../../shared/schemas/study-definition';
 import { getWtpUnit } from '../../shared/engine/coding/wtp-unit';
 import type {
@@ -224,7 +224,7 @@ export async function getConditionalMeans(
 ): Promise<ConditionalMeans> {
   const { row } = await loadRun(deps, member, studyId, runId);
   const coefficients = toRunView(row).spec.coefficients.map((c) => c.name);
-  const profiles = await listTasteProfiles(deps.db, { runId: row.id });
+  const profiles = await listRunProfiles(deps.db, { runId: row.id, studyId: row.studyId });
   return {
     coefficients,
     values: coefficients.map((name) =>

@@ -7,7 +7,7 @@
  */
 import type { AppDeps } from '../deps';
 import { ValidationError } from '../lib/errors';
-import { listRunProfiles } from '../../db/queries/tastes';
+import { listRunProfiles } from '../../db/queries/taste-profiles';
 import { buildCodingPlan } from '../../shared/engine/coding/coding-plan';
 import { codeAlternative } from '../../shared/engine/coding/code-alternative';
 import { simulateShares } from '../../shared/engine/shares/simulate-shares';

@@ -7,12 +7,9 @@
 import type { AppDeps } from '../deps';
 import { ValidationError } from '../lib/errors';
 import { loadStudy } from './study-access';
-import {
-  listFinishedRuns,
-  listQuestionAnswers,
-  listTasteRows,
-  type TasteSort,
-} from '../../db/queries/tastes';
+import { listFinishedRuns } from '../../db/queries/runs';
+import { listQuestionAnswers } from '../../db/queries/study-answers';
+import { listTasteRows, type TasteSort } from '../../db/queries/taste-profile-table';
 import type {
   ListTastesQuery,
   TasteHeader,

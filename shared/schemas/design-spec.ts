@@ -60,6 +60,15 @@ export const balanceRulesSchema = z.object({
 });
 export type BalanceRules = z.infer<typeof balanceRulesSchema>;
 
+/**
+ * What the D-efficient search minimises (all four are reported for every design):
+ * D-error (Huber & Zwerina 1996), A-error = tr(AVC)/K, the S-estimate max_k t²·AVC_kk/β_k²
+ * (Rose & Bliemer 2013) and the C-error Σ_k Var(−β_k/β_cost) (Scarpa & Rose 2008);
+ * docs/methods.md, "Design criteria".
+ */
+export const designCriterionSchema = z.enum(['d_error', 'a_error', 's_estimate', 'c_error']);
+export type DesignCriterion = z.infer<typeof designCriterionSchema>;
+
 export const designSpecSchema = z
   .object({
     method: designMethodSchema,
@@ -72,6 +81,10 @@ export const designSpecSchema = z
     seed: z.number().int().min(0).max(2147483647).default(1),
     /** Maximum coordinate-exchange passes per start (d_efficient only). */
     maxIterations: z.number().int().min(1).max(1000).default(50),
+    /** The criterion the search minimises; D-error unless chosen otherwise. */
+    criterion: designCriterionSchema.default('d_error'),
+    /** Target |t|-ratio of the S-estimate (1.96: significant at 5 %, two-sided). */
+    tValue: z.number().finite().min(0.5, 'Use a t-value of at least 0.5').max(10).default(1.96),
     dominance: dominanceRulesSchema.prefault({}),
     balance: balanceRulesSchema.prefault({}),
   })

@@ -26,7 +26,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { respondents } from '../../db/schema/fieldwork';
-import { listTasteProfiles } from '../../db/queries/taste-profiles';
+import { listRunProfiles } from '../../db/queries/taste-profiles';
 import { getRunForJob } from '../../db/queries/runs';
 import { createRun } from '../../server/services/runs';
 import { excludeFlagged } from '../../server/services/responses';
@@ -141,7 +141,7 @@ beforeAll(async () => {
         .where(eq(respondents.studyId, studyId))
     ).map((r) => [r.id, r.truth as SimulatedTruth]),
   );
-  const profiles = await listTasteProfiles(t.deps.db, { runId: run.id });
+  const profiles = await listRunProfiles(t.deps.db, { runId: run.id, studyId });
   correlations = {};
   for (const name of [
     'cost',

@@ -15,6 +15,7 @@ import { getRowsPerTask } from './design-grid';
 import { countFullFactorial, MAX_FULL_FACTORIAL } from './full-factorial';
 import { MAX_HALTON_DIMENSION } from './halton-draws';
 import { resolvePriors } from './resolve-priors';
+import { buildCriterionSetup, getCriterionUnavailableReason } from './design-criteria';
 
 export interface CheckedDesignSpec {
   spec: DesignSpec;
@@ -89,6 +90,9 @@ export function checkDesignSpec(definitionInput: unknown, specInput: unknown): C
     if (S < needed)
       fail('tasks', `At least ${needed} tasks are needed to estimate ${K} parameters`);
   }
+  const setup = buildCriterionSetup(plan, definition, spec.criterion, priorMeans, spec.tValue);
+  const unavailable = getCriterionUnavailableReason(setup, spec.criterion, priorMeans);
+  if (unavailable) fail('criterion', unavailable);
   if (spec.method === 'd_efficient' && draws * K * K > MAX_INFO_DOUBLES)
     fail('priors.draws', 'Too many prior draws for this many parameters; use fewer draws');
   return { spec, definition, plan, priorMeans, priorSds, draws };

@@ -15,6 +15,8 @@
 import type { CodingPlan } from '../../../shared/engine/coding/coding-plan';
 import { isAlternativeValidInTask, type DesignConstraints } from './design-constraints';
 import { createTaskEvaluator, type TaskEvaluator } from './task-evaluator';
+import { createCriterionEvaluator } from './criterion-evaluator';
+import type { CriterionScorer } from './design-criteria';
 import { buildDesignMatrix, getRowsPerTask, type LevelGrid } from './design-grid';
 import { canMoveLevel, countLevels, moveLevel, type LevelBounds } from './level-bounds';
 import { trySwaps } from './evaluate-swap';
@@ -24,6 +26,8 @@ export interface ExchangeOptions {
   /** Appearance bounds per level; swaps are tried too when `swaps` is set (level balance). */
   bounds?: LevelBounds;
   swaps?: boolean;
+  /** Another criterion than the D-error (design-criteria.ts); absent = D-error. */
+  scorer?: CriterionScorer;
   signal?: AbortSignal;
   /** Called after each pass with the pass number (1-based) and the criterion. */
   onPass?: (pass: number, value: number) => void;
@@ -31,7 +35,7 @@ export interface ExchangeOptions {
 
 export interface ExchangeResult {
   grid: LevelGrid;
-  /** Criterion of the returned design (mean D-error over the draws). */
+  /** Criterion of the returned design (mean over the draws). */
   value: number;
   startValue: number;
   passes: number;
@@ -113,8 +117,8 @@ function runPasses(
 }
 
 /**
- * Improves `start` (copied, not modified) by coordinate exchange under the mean D-error over
- * `draws` (R × K). Returns the improved grid and its criterion.
+ * Improves `start` (copied, not modified) by coordinate exchange under the mean D-error (or
+ * `options.scorer`'s criterion) over `draws` (R × K). Returns the improved grid and its criterion.
  */
 export function improveByCoordinateExchange(
   plan: CodingPlan,
@@ -126,7 +130,9 @@ export function improveByCoordinateExchange(
 ): ExchangeResult {
   const grid: LevelGrid = { ...start, levels: start.levels.slice() };
   const x = buildDesignMatrix(plan, grid);
-  const evaluator = createTaskEvaluator(plan, grid.S, x, draws, R);
+  const evaluator = options.scorer
+    ? createCriterionEvaluator(plan, grid.S, x, draws, R, options.scorer)
+    : createTaskEvaluator(plan, grid.S, x, draws, R);
   const startValue = evaluator.reset(0);
   let value = startValue;
   let passes = 0;

@@ -19,6 +19,7 @@ import { writeDesign, type LevelGrid } from './design-grid';
 import { diagnoseDesign, type DesignDiagnostics } from './diagnostics/diagnose-design';
 import { buildShiftedGrid, countFullFactorial, listFullFactorial } from './full-factorial';
 import { buildPriorDraws } from './prior-draws';
+import { buildCriterionSetup, createCriterionScorer } from './design-criteria';
 import { generateRandomGrid } from './random-design';
 import { createSeededRandom, type SeededRandom } from './seeded-random';
 
@@ -58,6 +59,13 @@ function searchDEfficient(
   const bounds = buildLevelBounds(plan, constraints, spec.tasks!, spec.balance);
   const R = draws;
   const betas = R > 1 ? buildPriorDraws(priorMeans, priorSds, R, spec.seed) : priorMeans;
+  // The D-error keeps its incremental evaluator; other criteria score through a scorer.
+  const scorer =
+    spec.criterion === 'd_error'
+      ? undefined
+      : createCriterionScorer(
+          buildCriterionSetup(plan, checked.definition, spec.criterion, priorMeans, spec.tValue),
+        );
   let best: LevelGrid | null = null;
   let bestValue = Infinity;
   for (let start = 1; start <= spec.starts; start++) {
@@ -67,6 +75,7 @@ function searchDEfficient(
       maxPasses: spec.maxIterations,
       bounds,
       swaps: spec.balance.levelBalance,
+      scorer,
       signal: hooks.signal,
       onPass: (pass, value) =>
         hooks.onProgress?.({
@@ -176,6 +185,7 @@ export function generateDesign(
   const design = writeDesign(plan, grid, blockOfTask, spec.blocks);
   hooks.onProgress?.({ phase: 'diagnosing', fraction: 0.95 });
   const diagnostics = diagnoseDesign(checked.definition, design, spec.priors, spec.seed, spec);
-  hooks.onProgress?.({ phase: 'done', fraction: 1, bestDError: diagnostics.dError ?? undefined });
+  const searched = diagnostics.criteria?.values.find((v) => v.criterion === spec.criterion);
+  hooks.onProgress?.({ phase: 'done', fraction: 1, bestDError: searched?.value ?? undefined });
   return { design, diagnostics, spec: { ...spec, tasks: grid.S } };
 }

@@ -23,21 +23,6 @@ export interface ChoiceData {
   readonly altCount: Int32Array;
 }
 
-/** Number of respondents N. */
-export function getRespondentCount(data: ChoiceData): number {
-  return data.taskStart.length - 1;
-}
-
-/** Number of choice tasks (observations). */
-export function getTaskCount(data: ChoiceData): number {
-  return data.diffStart.length - 1;
-}
-
-/** Number of attribute columns K. */
-export function getColumnCount(data: ChoiceData): number {
-  return data.columns.length;
-}
-
 /** One input row in long format: one alternative of one task. */
 export interface LongChoiceRow {
   respondent: string | number;

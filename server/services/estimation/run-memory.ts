@@ -7,7 +7,8 @@
  */
 import type { AppDeps } from '../../deps';
 import { ValidationError } from '../../lib/errors';
-import { listIncludedRespondents, listStudyVersions } from '../../../db/queries/run-data';
+import { listIncludedRespondents } from '../../../db/queries/study-respondents';
+import { listStudyVersions } from '../../../db/queries/versions';
 import { createMixedLogitLayout } from '../../engine/estimation/mixed-logit-layout';
 import { ARENA_MAX_BYTES } from '../../engine/simd/arena-plan';
 import { estimateModelMemory } from '../../engine/simd/estimate-model-memory';

@@ -7,9 +7,9 @@
 import type { AppDeps } from '../../deps';
 import { NotFoundError } from '../../lib/errors';
 import { loadStudy } from '../study-access';
-import { getRunOfStudy } from '../../../db/queries/tastes';
-import { listChoiceAnswers } from '../../../db/queries/run-data';
-import { listStudyRespondents } from '../../../db/queries/exports';
+import { getRunById } from '../../../db/queries/runs';
+import { listChoiceAnswers } from '../../../db/queries/study-answers';
+import { listStudyRespondents } from '../../../db/queries/study-respondents';
 import {
   codeStudyAnswers,
   groupChoiceAnswers,
@@ -60,7 +60,7 @@ export async function exportChoicesCsv(
       ),
     );
   }
-  const run = await getRunOfStudy(deps.db, { id: runId, teamId: member.teamId, studyId });
+  const run = await getRunById(deps.db, { id: runId, teamId: member.teamId, studyId });
   if (!run) throw new NotFoundError('Run');
   const keys = (run.spec as { coefficients: { name: string; column?: string }[] }).coefficients.map(
     (c) => c.column ?? c.name,

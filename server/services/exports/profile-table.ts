@@ -7,7 +7,7 @@
  * class-probability-weighted means with the posterior class probabilities (latent class); the
  * file's methods sheet says which.
  */
-import type { ProfileRow } from '../../../db/queries/tastes';
+import type { ProfileRow } from '../../../db/queries/taste-profiles';
 import type { TasteHeader } from '../../../shared/schemas/tastes';
 import { toTasteRow } from '../tastes/taste-rows';
 import type { CellValue } from '../../lib/safe-csv';

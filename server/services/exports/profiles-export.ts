@@ -3,7 +3,8 @@
  * printable run report (which counts the profiles with few effective draws).
  */
 import type { AppDeps } from '../../deps';
-import { listQuestionAnswers, listRunProfiles } from '../../../db/queries/tastes';
+import { listQuestionAnswers } from '../../../db/queries/study-answers';
+import { listRunProfiles } from '../../../db/queries/taste-profiles';
 import { loadRunContext, type Member } from '../tastes/run-context';
 import { indexAnswers } from '../tastes/background-answers';
 import { writeCsv } from '../../lib/safe-csv';

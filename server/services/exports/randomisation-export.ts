@@ -2,7 +2,7 @@
 import type { AppDeps } from '../../deps';
 import { loadStudy } from '../study-access';
 import type { Member } from '../tastes/run-context';
-import { listStudyRespondents } from '../../../db/queries/exports';
+import { listStudyRespondents } from '../../../db/queries/study-respondents';
 import { z } from 'zod';
 import { writeCsv } from '../../lib/safe-csv';
 import { CSV, fileName, type Download } from './download';

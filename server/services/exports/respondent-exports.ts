@@ -6,8 +6,8 @@
 import { getLatestVersion } from '../../../db/queries/versions';
 import type { AppDeps } from '../../deps';
 import { loadStudy } from '../study-access';
-import { listQuestionAnswers } from '../../../db/queries/tastes';
-import { listStudyRespondents } from '../../../db/queries/exports';
+import { listQuestionAnswers } from '../../../db/queries/study-answers';
+import { listStudyRespondents } from '../../../db/queries/study-respondents';
 import { roleCan } from '../../../shared/permissions';
 import type { Member } from '../tastes/run-context';
 import { getBackgroundQuestions, indexAnswers, formatAnswer } from '../tastes/background-answers';

@@ -3,8 +3,7 @@
  * study's data files (long choice file and wide file).
  */
 import type { AppDeps } from '../../deps';
-import { listQuestionAnswers } from '../../../db/queries/tastes';
-import { listChoiceAnswers } from '../../../db/queries/run-data';
+import { listChoiceAnswers, listQuestionAnswers } from '../../../db/queries/study-answers';
 import { loadVersionInputs } from '../choice-data-from-study';
 import type { Member } from '../tastes/run-context';
 import { indexAnswers } from '../tastes/background-answers';

@@ -12,7 +12,7 @@
  *   posterior class probabilities: P_nj = Σ_c h_nc P_j(β_c) (Greene & Hensher 2003, §4), the
  *   exact class-mixture probability, not the logit at the class-weighted mean.
  */
-import type { ProfileRow } from '../../../db/queries/tastes';
+import type { ProfileRow } from '../../../db/queries/taste-profiles';
 import type { ShareMethod } from '../../../shared/schemas/shares';
 import type { RunContext } from '../tastes/run-context';
 

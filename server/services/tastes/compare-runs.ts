@@ -5,7 +5,7 @@
  * by id; only those with a profile in both runs count. No respondent ids leave the server.
  */
 import type { AppDeps } from '../../deps';
-import { listRunProfiles } from '../../../db/queries/tastes';
+import { listRunProfiles } from '../../../db/queries/taste-profiles';
 import { pearsonCorrelation } from '../../../shared/engine/stats/pearson-correlation';
 import type { TasteComparison } from '../../../shared/schemas/tastes';
 import { loadRunContext, type Member } from './run-context';

@@ -5,11 +5,8 @@
 import { getVersionById } from '../../../db/queries/versions';
 import type { AppDeps } from '../../deps';
 import { NotFoundError } from '../../lib/errors';
-import {
-  getRunProfile,
-  listQuestionAnswers,
-  listRespondentTaskAnswers,
-} from '../../../db/queries/tastes';
+import { getRunProfile } from '../../../db/queries/taste-profiles';
+import { listQuestionAnswers, listRespondentTaskAnswers } from '../../../db/queries/study-answers';
 import type { Design } from '../../../shared/schemas/design';
 import type { StudyDefinition } from '../../../shared/schemas/study-definition';
 import type { RespondentChoice, RespondentProfile } from '../../../shared/schemas/tastes';

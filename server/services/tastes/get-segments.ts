@@ -6,7 +6,8 @@
  */
 import type { AppDeps } from '../../deps';
 import { ValidationError } from '../../lib/errors';
-import { listQuestionAnswers, listRunProfiles, listTaskChoices } from '../../../db/queries/tastes';
+import { listQuestionAnswers, listTaskChoices } from '../../../db/queries/study-answers';
+import { listRunProfiles } from '../../../db/queries/taste-profiles';
 import type { Segments, SegmentsQuery, TasteQuestion } from '../../../shared/schemas/tastes';
 import { summarizeSegments } from '../segments';
 import { formatPercent } from '../../../shared/format';

@@ -7,7 +7,8 @@
 import type { AppDeps } from '../../deps';
 import { ConflictError, NotFoundError } from '../../lib/errors';
 import { loadStudy } from '../study-access';
-import { countRunProfiles, getRunOfStudy } from '../../../db/queries/tastes';
+import { countRunProfiles } from '../../../db/queries/taste-profiles';
+import { getRunById } from '../../../db/queries/runs';
 import { getLatestVersion } from '../../../db/queries/versions';
 import { roleCan, type Role } from '../../../shared/permissions';
 import type { RunResult } from '../../../shared/schemas/run';
@@ -30,7 +31,7 @@ export async function loadRunContext(
   runId: string,
 ) {
   const study = await loadStudy(deps, member.teamId, studyId);
-  const run = await getRunOfStudy(deps.db, { id: runId, teamId: member.teamId, studyId });
+  const run = await getRunById(deps.db, { id: runId, teamId: member.teamId, studyId });
   if (!run) throw new NotFoundError('Run');
   if (run.status !== 'done' || !run.results)
     throw new ConflictError(

@@ -1,5 +1,5 @@
 /** Turns stored profile rows into the rows the API shows, leaving personal columns out. */
-import type { ProfileRow } from '../../../db/queries/tastes';
+import type { ProfileRow } from '../../../db/queries/taste-profiles';
 import type { TasteHeader, TasteRow } from '../../../shared/schemas/tastes';
 import { formatAnswer } from './background-answers';
 

@@ -51,6 +51,14 @@ describe('S-estimate (Check F)', () => {
     expect(sampleSize.powerRespondents).toBe(29);
   });
 
+  it('reports the same S-estimate, 13.762, as the design criterion at t = 1.96', () => {
+    // docs/methods.md, "Design criteria" (by hand): max_k 1.96²·Σ₁,kk/0.3² = 13.762.
+    const { criteria } = diagnoseDesign(definition, design, priors);
+    const s = criteria!.values.find((v) => v.criterion === 's_estimate')!;
+    expect(s.value).toBeCloseTo(13.762, 3);
+    expect(criteria!.values.find((v) => v.criterion === 'c_error')!.unavailable).toMatch(/cost/);
+  });
+
   it('multiplies replications by the number of blocks for respondents', () => {
     const blocked = writeDesign(plan, grid, Int32Array.of(1, 2, 1, 2), 2);
     expect(diagnoseDesign(definition, blocked, priors).sampleSize.sEstimateRespondents).toBe(28);

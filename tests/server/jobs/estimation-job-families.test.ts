@@ -9,7 +9,7 @@ import { parse } from 'csv-parse/sync';
 import { downloadXlsx } from '../../support/download-xlsx';
 import { createTestApp, type TestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
-import { listTasteProfiles } from '../../../db/queries/taste-profiles';
+import { listRunProfiles } from '../../../db/queries/taste-profiles';
 import { runEstimationJob } from '../../../server/jobs/estimation-job';
 import { ignoreTeardownErrors, seedRunStudy, type SeededStudy } from './run-fixtures';
 import { scenarioLevels } from '../routes/tastes-fixture';
@@ -74,7 +74,10 @@ describe('HB run through the job', () => {
     );
     expect(run.results.sampler).toMatchObject({ iterations: 600, chains: 2, seed: 7 });
     expect(run.results.sampler.priors.preset).toBe('train');
-    const profiles = await listTasteProfiles(t.deps.db, { runId: res.body.id });
+    const profiles = await listRunProfiles(t.deps.db, {
+      runId: res.body.id,
+      studyId: study.studyId,
+    });
     expect(profiles).toHaveLength(80);
     const p = profiles[0];
     const extra = p.extra as { lower: Record<string, number>; upper: Record<string, number> };
@@ -111,7 +114,10 @@ describe('latent class run through the job', () => {
     expect(run.results.classSelection.map((r: { classes: number }) => r.classes)).toEqual([1, 2]);
     const shares = run.results.classes.map((c: { share: number }) => c.share);
     expect(shares.reduce((a: number, b: number) => a + b, 0)).toBeCloseTo(1, 10);
-    const profiles = await listTasteProfiles(t.deps.db, { runId: res.body.id });
+    const profiles = await listRunProfiles(t.deps.db, {
+      runId: res.body.id,
+      studyId: study.studyId,
+    });
     expect(profiles).toHaveLength(80);
     const extra = profiles[0].extra as { classProbabilities: number[]; likeliestClass: number };
     expect(extra.classProbabilities).toHaveLength(run.results.classes.length);

@@ -8,7 +8,7 @@ import { eq } from 'drizzle-orm';
 import { createTestApp, type TestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { runs } from '../../../db/schema/models';
-import { listTasteProfiles } from '../../../db/queries/taste-profiles';
+import { listRunProfiles } from '../../../db/queries/taste-profiles';
 import { getRunForJob } from '../../../db/queries/runs';
 import {
   runEstimationJob,
@@ -115,8 +115,11 @@ describe('estimation job', () => {
       'bill.sd',
       'river_good.sd',
     ]);
-    const profiles = await listTasteProfiles(t.deps.db, { runId: res.body.id });
-    expect(profiles.map((p) => p.respondentId)).toEqual(study.respondentIds);
+    const profiles = await listRunProfiles(t.deps.db, {
+      runId: res.body.id,
+      studyId: study.studyId,
+    });
+    expect(profiles.map((p) => p.respondentId).sort()).toEqual(study.respondentIds);
     expect(Object.keys(profiles[0].mean as object).sort()).toEqual([
       'bill',
       'interrupt',
@@ -172,7 +175,9 @@ describe('estimation job', () => {
     await job;
     const row = await getRunForJob(t.deps.db, { id: res.body.id });
     expect(row?.status).toBe('cancelled');
-    expect(await listTasteProfiles(t.deps.db, { runId: res.body.id })).toEqual([]);
+    expect(
+      await listRunProfiles(t.deps.db, { runId: res.body.id, studyId: study.studyId }),
+    ).toEqual([]);
   });
 
   it('does not start a run cancelled while queued', async () => {

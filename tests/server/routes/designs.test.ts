@@ -91,6 +91,29 @@ describe('POST /design/jobs', () => {
     expect(sent.length).toBe(before);
   });
 
+  it('when the S-estimate is asked for with zero priors, returns 400 with the criterion field', async () => {
+    const { id } = await draftWithAttributes();
+    const before = sent.length;
+    const res = await team.agents.owner
+      .post(`${designUrl(id)}/jobs`)
+      .send({ method: 'd_efficient', tasks: 6, criterion: 's_estimate' })
+      .expect(400);
+    expect(res.body.error).toMatchObject({
+      code: 'invalid_spec',
+      fields: [{ path: 'criterion', message: expect.stringMatching(/non-zero mean/) }],
+    });
+    expect(sent.length).toBe(before);
+  });
+
+  it('when the criterion is unknown, returns 400 with the field', async () => {
+    const { id } = await draftWithAttributes();
+    const res = await team.agents.owner
+      .post(`${designUrl(id)}/jobs`)
+      .send({ method: 'd_efficient', tasks: 6, criterion: 'e_error' })
+      .expect(400);
+    expect(res.body.error.fields).toEqual([expect.objectContaining({ path: 'criterion' })]);
+  });
+
   it('when a job is already running for the study, returns 409', async () => {
     const { id } = await draftWithAttributes();
     await team.agents.owner

@@ -8,6 +8,7 @@ import { buildCodingPlan } from '../../../../shared/engine/coding/coding-plan';
 import type { CodedColumn } from '../../../../shared/engine/coding/coded-columns';
 import type { Design } from '../../../../shared/schemas/design';
 import type { DesignPriors, DesignSpec } from '../../../../shared/schemas/design-spec';
+import { getCriteriaReport, type CriteriaReport } from './criteria-report';
 import type { StudyDefinition } from '../../../../shared/schemas/study-definition';
 import { computeBayesianDError, computeDError } from '../d-error';
 import { buildDesignMatrix, getRowsPerTask, readDesignGrid } from '../design-grid';
@@ -42,6 +43,11 @@ export interface DesignDiagnostics {
   dErrorAtMeans: number | null;
   /** D_B over the prior draws (null unless Bayesian, or when singular). */
   dErrorBayesian: number | null;
+  /**
+   * All four criteria under the priors (Bayesian averages for Bayesian priors) and the one the
+   * search minimised. Absent from designs stored before the criteria existed.
+   */
+  criteria?: CriteriaReport;
   /** Street–Burgess efficiency at β = 0; null when the reference does not apply. */
   dEfficiency: StreetBurgessEfficiency | null;
   levelBalance: AttributeLevelBalance[];
@@ -67,7 +73,7 @@ export function diagnoseDesign(
   design: Design,
   priors: DesignPriors = { kind: 'zero' },
   seed = 1,
-  rules: Pick<DesignSpec, 'dominance' | 'balance'> | null = null,
+  rules: (Pick<DesignSpec, 'dominance' | 'balance'> & Partial<DesignSpec>) | null = null,
 ): DesignDiagnostics {
   const plan = buildCodingPlan(definition);
   const K = plan.columnCount;
@@ -80,10 +86,9 @@ export function diagnoseDesign(
 
   const dErrorZero = computeDError(K, S, Jt, x, new Float64Array(K));
   const dErrorAtMeans = priors.kind === 'zero' ? null : computeDError(K, S, Jt, x, means);
+  const priorDraws = priors.kind === 'bayesian' ? buildPriorDraws(means, sds, draws, seed) : means;
   const dErrorBayesian =
-    priors.kind === 'bayesian'
-      ? computeBayesianDError(K, S, Jt, x, buildPriorDraws(means, sds, draws, seed), draws)
-      : null;
+    priors.kind === 'bayesian' ? computeBayesianDError(K, S, Jt, x, priorDraws, draws) : null;
   const dError = dErrorBayesian ?? dErrorAtMeans ?? dErrorZero;
   const finite = (v: number | null) => (v !== null && Number.isFinite(v) ? v : null);
   if (!Number.isFinite(dError))
@@ -142,6 +147,17 @@ export function diagnoseDesign(
     dErrorZero: finite(dErrorZero),
     dErrorAtMeans: finite(dErrorAtMeans),
     dErrorBayesian: finite(dErrorBayesian),
+    criteria: getCriteriaReport({
+      plan,
+      definition,
+      design: { S, Jt, x },
+      draws: priorDraws,
+      R: priors.kind === 'bayesian' ? draws : 1,
+      means,
+      dError: finite(dError),
+      searched: rules?.criterion ?? 'd_error',
+      tValue: rules?.tValue ?? 1.96,
+    }),
     dEfficiency: computeStreetBurgessEfficiency(plan, grid),
     levelBalance,
     overlap: getAttributeOverlap(definition, grid),

@@ -24,8 +24,3 @@ export function fromServer(fields: FieldIssue[]): FieldErrors {
   }
   return out;
 }
-
-/** Messages under a prefix that no field shows by itself, for a summary list. */
-export function listErrors(errors: FieldErrors): Array<{ path: string; message: string }> {
-  return [...errors].map(([path, message]) => ({ path, message }));
-}

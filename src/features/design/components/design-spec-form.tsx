@@ -12,6 +12,7 @@ import {
 } from '../utils/build-design-spec';
 import { PriorsTable } from './priors-table';
 import { DesignRulesFields } from './design-rules-fields';
+import { searchCriteria } from '../utils/criterion-names';
 
 type Props = {
   definition: StudyDefinition;
@@ -28,7 +29,7 @@ const methodHelp: Record<DesignSpec['method'], string> = {
   full_factorial: 'Every allowed profile once; only for small studies.',
   random: 'Levels drawn at random, kept balanced across tasks.',
   d_efficient:
-    'Coordinate exchange minimising the MNL D-error under your priors (D₀, Dp or Db); best of several starts.',
+    'Coordinate exchange minimising the chosen criterion under your priors; best of several starts.',
 };
 
 export function DesignSpecForm({
@@ -129,6 +130,31 @@ export function DesignSpecForm({
                     value={v.draws}
                     error={shown.get('priors.draws')}
                     onChange={(e) => set({ draws: e.target.value })}
+                  />
+                )}
+              </div>
+              <div className="grid gap-3 sm:grid-cols-2">
+                <SelectField
+                  label="Criterion to minimise"
+                  value={v.criterion}
+                  hint={searchCriteria[v.criterion].explanation}
+                  error={shown.get('criterion')}
+                  onChange={(e) => set({ criterion: e.target.value as DesignSpec['criterion'] })}
+                >
+                  {Object.entries(searchCriteria).map(([key, c]) => (
+                    <option key={key} value={key}>
+                      {c.name}
+                    </option>
+                  ))}
+                </SelectField>
+                {v.criterion === 's_estimate' && (
+                  <TextField
+                    label="Target t-value"
+                    inputMode="decimal"
+                    value={v.tValue}
+                    hint="1.96: significant at 5 %"
+                    error={shown.get('tValue')}
+                    onChange={(e) => set({ tValue: e.target.value })}
                   />
                 )}
               </div>

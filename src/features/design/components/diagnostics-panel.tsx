@@ -2,6 +2,7 @@ import type { DesignDiagnostics } from '@server/engine/design/diagnostics/diagno
 import { Alert, Card } from '@/components/ui/feedback';
 import { ChoiceProbabilities, Correlations, SampleSizeGuide } from './diagnostics-details';
 import { RuleReportCard } from './rule-report-card';
+import { CriteriaList } from './criteria-card';
 import { criterionNames } from '../utils/criterion-names';
 
 const fmt = (v: number | null | undefined, digits = 4) =>
@@ -52,6 +53,9 @@ export function DiagnosticsPanel({
             </dd>
           </div>
         </dl>
+        <div className="mt-4">
+          <CriteriaList d={d} />
+        </div>
         {d.warnings.length > 0 && (
           <Alert tone="warning" className="mt-4">
             <ul className="list-disc space-y-1 pl-4">

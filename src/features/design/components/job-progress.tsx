@@ -1,5 +1,5 @@
 import type { DesignJobView } from '@shared/schemas/design-job';
-import { criterionNames } from '../utils/criterion-names';
+import { criterionNames, searchCriteria } from '../utils/criterion-names';
 import { Alert, ProgressBar } from '@/components/ui/feedback';
 import { Button } from '@/components/ui/button';
 
@@ -75,7 +75,13 @@ export function JobProgress({
         )}
         {p.bestDError !== undefined && (
           <div className="flex gap-1">
-            <dt>Best {criterionNames[job.spec.priors.kind]} so far</dt>
+            <dt>
+              Best{' '}
+              {job.spec.criterion && job.spec.criterion !== 'd_error'
+                ? searchCriteria[job.spec.criterion].name
+                : criterionNames[job.spec.priors.kind]}{' '}
+              so far
+            </dt>
             <dd className="num">{p.bestDError.toPrecision(4)}</dd>
           </div>
         )}

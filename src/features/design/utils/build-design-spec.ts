@@ -16,6 +16,9 @@ export type DesignFormValues = {
   priorsKind: 'zero' | 'fixed' | 'bayesian';
   draws: string;
   priors: PriorInputs;
+  /** What the search minimises (D-efficient only). */
+  criterion: DesignSpec['criterion'];
+  tValue: string;
   /** Dominance screening switches (see shared/schemas/design-spec.ts). */
   dominance: DesignSpec['dominance'];
   minAppearances: string;
@@ -33,6 +36,8 @@ export const defaultDesignForm: DesignFormValues = {
   priorsKind: 'zero',
   draws: '200',
   priors: {},
+  criterion: 'd_error',
+  tValue: '1.96',
   dominance: { betweenDesigned: true, overFixed: true, byFixed: true },
   minAppearances: '1',
   levelBalance: false,
@@ -56,6 +61,8 @@ export function buildDesignSpec(
     blocks: num(v.blocks),
     starts: num(v.starts),
     seed: num(v.seed),
+    criterion: v.method === 'd_efficient' ? v.criterion : 'd_error',
+    tValue: num(v.tValue),
     priors:
       v.method !== 'd_efficient' || v.priorsKind === 'zero'
         ? { kind: 'zero' }
@@ -97,6 +104,8 @@ export function formValuesFromSpec(spec: Partial<DesignSpec> | undefined): Desig
     priorsKind: p?.kind ?? 'zero',
     draws: p?.kind === 'bayesian' ? String(p.draws) : '200',
     priors,
+    criterion: spec.criterion ?? 'd_error',
+    tValue: String(spec.tValue ?? 1.96),
     dominance: { ...defaultDesignForm.dominance, ...spec.dominance },
     minAppearances: String(spec.balance?.minAppearances ?? 1),
     levelBalance: spec.balance?.levelBalance ?? false,

@@ -5,7 +5,7 @@
  */
 import { useEffect } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
-import { useParams, type LoaderFunctionArgs } from 'react-router';
+import { useParams } from 'react-router';
 import { Alert, Card, Spinner } from '@/components/ui/feedback';
 import { ErrorText, PanelErrorBoundary } from '@/components/ui/error-boundary';
 import { useCurrentTeam } from '@/features/auth/hooks/use-current-team';
@@ -26,10 +26,6 @@ import { InviteeTable } from '@/features/invitees/components/invitee-table';
 import { LifecyclePanel } from '@/features/lifecycle/components/lifecycle-panel';
 import { useLifecycle } from '@/features/lifecycle/api/get-lifecycle';
 import { formatTime } from '@/utils/format';
-
-export function loader(_args: LoaderFunctionArgs) {
-  return null;
-}
 
 export function Component() {
   const { teamId = '', studyId = '' } = useParams();

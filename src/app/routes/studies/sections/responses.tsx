@@ -4,7 +4,7 @@
  * allowed to see them, and only analysts, editors and owners change inclusion.
  */
 import { useState } from 'react';
-import { useParams, type LoaderFunctionArgs } from 'react-router';
+import { useParams } from 'react-router';
 import type { ListResponsesQuery, QualityFlagKey } from '@shared/schemas/responses';
 import { Alert, EmptyState, Spinner } from '@/components/ui/feedback';
 import { ErrorText, PanelErrorBoundary } from '@/components/ui/error-boundary';
@@ -19,10 +19,6 @@ import { QualitySettingsForm } from '@/features/responses/components/quality-set
 import { ExcludeFlaggedForm } from '@/features/responses/components/exclude-flagged-form';
 import { EraseRespondentForm } from '@/features/responses/components/erase-respondent-form';
 import { statusLabels } from '@/features/responses/utils/labels';
-
-export function loader(_args: LoaderFunctionArgs) {
-  return null;
-}
 
 const PAGE_SIZE = 50;
 type Filters = Pick<ListResponsesQuery, 'status' | 'included' | 'flag'> & {

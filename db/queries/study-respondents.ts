@@ -1,4 +1,7 @@
-/** Reads for downloads that are not tied to a run: the study's respondents. */
+/**
+ * A study's respondents as analysis and downloads read them. Tenant: respondents carry the
+ * study, not the team; the caller has loaded the study for the team (or the worker its run).
+ */
 import { and, asc, eq } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { respondentNumber } from './respondent-number';
@@ -23,6 +26,21 @@ export async function listStudyRespondents(db: DbOrTx, params: { studyId: string
       plan: respondents.plan,
     })
     .from(respondents)
-    .where(and(eq(respondents.studyId, params.studyId)))
+    .where(eq(respondents.studyId, params.studyId))
     .orderBy(asc(respondents.startedAt), asc(respondents.id));
+}
+
+/** Respondents who completed the questionnaire and are not excluded (what a run estimates on). */
+export async function listIncludedRespondents(db: DbOrTx, params: { studyId: string }) {
+  return db
+    .select({ id: respondents.id, versionId: respondents.versionId, flags: respondents.flags })
+    .from(respondents)
+    .where(
+      and(
+        eq(respondents.studyId, params.studyId),
+        eq(respondents.status, 'completed'),
+        eq(respondents.included, true),
+      ),
+    )
+    .orderBy(asc(respondents.id));
 }

@@ -81,21 +81,25 @@ test('an analyst runs a mixed logit, splits tastes by a background question and 
     expect(firstQuestion?.length).toBeGreaterThan(0);
   });
 
-  await test.step('simulate shares; a changed input marks them out of date at once', async () => {
+  await test.step('shares follow every edit in the browser; welfare is marked out of date', async () => {
     await page
       .getByRole('link', { name: /Shares/ })
       .first()
       .click();
     await expect(page.getByRole('heading', { name: 'Shares' })).toBeVisible();
-    await page.getByRole('button', { name: 'Simulate shares' }).click();
     await expect(page.getByText('Predicted shares', { exact: true })).toBeVisible();
-    await page.getByLabel('Shares by segment').selectOption({ index: 1 });
-    await expect(page.getByText('Predicted shares — out of date')).toBeVisible();
-    await page.getByRole('button', { name: 'Simulate shares' }).click();
-    await expect(page.getByText('Predicted shares', { exact: true })).toBeVisible();
+    await expect(page.getByText(/95 % intervals from 200 draws of each respondent/)).toBeVisible();
+    await page.getByRole('button', { name: 'Compute welfare' }).click();
     // Welfare against the status quo, in the cost attribute's money, with its interval.
-    await expect(page.getByText(/is worth .* per respondent on average/)).toBeVisible();
-    await expect(page.getByText(/95 % interval/)).toBeVisible();
+    await expect(page.getByText(/is worth .* per respondent on average/)).toContainText(
+      '95 % interval',
+    );
+    // A segment adds one column per group beside Alternative, Share and the interval.
+    await page.getByLabel('Shares by segment').selectOption({ index: 1 });
+    await expect(page.locator('table thead th:nth-child(4)').first()).toBeVisible();
+    await page.getByLabel('Name').first().fill('Package A renamed');
+    await expect(page.getByText(/The scenario changed after this was computed/)).toBeVisible();
+    await expect(page.getByRole('cell', { name: 'Package A renamed' })).toBeVisible();
   });
 
   // What the files should hold, from the same API the screens use.

@@ -29,6 +29,8 @@ export const permissions = {
   'runs:read': all,
   /** Start and cancel estimation runs, save respondent filters. */
   'runs:manage': ['owner', 'analyst'],
+  /** Save, rename and delete what-if share scenarios (everyone may read them). */
+  'scenarios:write': ['owner', 'editor', 'analyst'],
   /** Downloads; personal columns still need personal:read. */
   'exports:read': all,
   /** Read and download the team's audit trail. */

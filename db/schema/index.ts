@@ -5,3 +5,4 @@ export * from './fieldwork';
 export * from './models';
 export * from './audit';
 export * from './mail';
+export * from './shares';

@@ -1,22 +1,70 @@
 /**
- * /api/teams/:teamId/studies/:studyId/shares — the what-if share simulator. A read: every role
- * with 'runs:read' may simulate (nothing is stored).
+ * /api/teams/:teamId/studies/:studyId/shares — the what-if share simulator. Reads: every role
+ * with 'runs:read' may load a run's share model, its segments, simulate, and list saved
+ * scenarios; saving, renaming and deleting scenarios needs 'scenarios:write'.
  */
 import { Router } from 'express';
 import type { AppDeps } from '../deps';
-import { parseBody, parseParams } from '../middleware/validate';
-import { memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { parseBody, parseParams, parseQuery } from '../middleware/validate';
+import { actorOf, memberOf, requireTeam, requireUser } from '../middleware/auth';
 import { studyParamsSchema } from '../services/study-access';
-import { simulateSharesSchema } from '../../shared/schemas/shares';
-import { simulateStudyShares } from '../services/shares';
+import {
+  scenarioBodySchema,
+  scenarioParamsSchema,
+  shareGroupsQuerySchema,
+  shareModelQuerySchema,
+  simulateSharesSchema,
+} from '../../shared/schemas/shares';
+import { getShareGroups, getShareModel, simulateStudyShares } from '../services/shares';
+import {
+  createScenario,
+  listScenarios,
+  removeScenario,
+  updateScenario,
+} from '../services/share-scenarios';
 
 export function createSharesRouter(deps: AppDeps): Router {
   const router = Router({ mergeParams: true });
   router.use(requireUser(deps));
+  router.get('/model', requireTeam(deps, 'runs:read'), async (req, res) => {
+    const { studyId } = parseParams(studyParamsSchema, req);
+    const { runId } = parseQuery(shareModelQuerySchema, req);
+    res.json(await getShareModel(deps, memberOf(req), studyId, runId));
+  });
+  router.get('/groups', requireTeam(deps, 'runs:read'), async (req, res) => {
+    const { studyId } = parseParams(studyParamsSchema, req);
+    const query = parseQuery(shareGroupsQuerySchema, req);
+    res.json(await getShareGroups(deps, memberOf(req), studyId, query));
+  });
   router.post('/simulate', requireTeam(deps, 'runs:read'), async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const input = parseBody(simulateSharesSchema, req);
     res.json(await simulateStudyShares(deps, memberOf(req), studyId, input));
   });
+  router.get('/scenarios', requireTeam(deps, 'runs:read'), async (req, res) => {
+    const { teamId, studyId } = parseParams(studyParamsSchema, req);
+    res.json(await listScenarios(deps, { teamId, studyId }));
+  });
+  router.post('/scenarios', requireTeam(deps, 'scenarios:write'), async (req, res) => {
+    const { teamId, studyId } = parseParams(studyParamsSchema, req);
+    const body = parseBody(scenarioBodySchema, req);
+    res
+      .status(201)
+      .json(await createScenario(deps, { teamId, studyId }, actorOf(req).userId, body));
+  });
+  router.put('/scenarios/:scenarioId', requireTeam(deps, 'scenarios:write'), async (req, res) => {
+    const { teamId, studyId, scenarioId } = parseParams(scenarioParamsSchema, req);
+    const body = parseBody(scenarioBodySchema, req);
+    res.json(await updateScenario(deps, { teamId, studyId }, scenarioId, body));
+  });
+  router.delete(
+    '/scenarios/:scenarioId',
+    requireTeam(deps, 'scenarios:write'),
+    async (req, res) => {
+      const { teamId, studyId, scenarioId } = parseParams(scenarioParamsSchema, req);
+      await removeScenario(deps, { teamId, studyId }, scenarioId);
+      res.status(204).end();
+    },
+  );
   return router;
 }

@@ -14,6 +14,7 @@ import { propagateUncertainty, quantile } from '../engine/estimation/propagate-u
 import { computeCompensatingVariation, meanOfFinite } from '../../shared/engine/shares/welfare';
 import type { ShareMethod, ShareWelfare } from '../../shared/schemas/shares';
 import type { RunContext } from './tastes/run-context';
+import { covarianceOf, shareSeedOf } from './shares/share-model';
 
 const RESAMPLES = 1000;
 const KR_DRAWS = 2000;
@@ -38,24 +39,6 @@ export type WelfareOutcome = { welfare: ShareWelfare | null; welfareNote: string
 
 const note = (welfareNote: string): WelfareOutcome => ({ welfare: null, welfareNote });
 
-/** The estimates' covariance in coefficient order, or null when any entry is unknown. */
-function covarianceOf(ctx: RunContext, names: string[]): Float64Array | null {
-  const cov = ctx.results.covariance;
-  const matrix = cov ? cov[cov.used] : null;
-  if (!cov || !matrix) return null;
-  const at = names.map((n) => cov.names.indexOf(n));
-  if (at.some((i) => i < 0)) return null;
-  const K = names.length;
-  const out = new Float64Array(K * K);
-  for (let a = 0; a < K; a++)
-    for (let b = 0; b < K; b++) {
-      const v = matrix[at[a]][at[b]];
-      if (v === null) return null;
-      out[a * K + b] = v;
-    }
-  return out;
-}
-
 export function computeShareWelfare(ctx: RunContext, s: WelfareScenario): WelfareOutcome {
   const fixed = ctx.definition.fixedAlternative;
   if (!fixed) return note('The study has no status quo or opt-out to compare the scenario with.');
@@ -78,7 +61,7 @@ export function computeShareWelfare(ctx: RunContext, s: WelfareScenario): Welfar
     money: costAttribute?.name ?? ctx.spec.cost,
     unit: costAttribute?.unit?.trim() ?? '',
   };
-  const seed = ctx.spec.model === 'mixed' ? ctx.spec.draws.seed : 1;
+  const seed = shareSeedOf(ctx);
   const D = s.vectorsPerRespondent;
   const perVector = computeCompensatingVariation({
     ...base,

@@ -4,7 +4,7 @@
  * taste profiles of a finished run (shared/engine/shares), overall and per segment.
  */
 import { z } from 'zod';
-import { elementIdSchema } from './study-definition';
+import { elementIdSchema, type StudyDefinition } from './study-definition';
 
 export const scenarioAlternativeSchema = z.object({
   name: z.string().trim().min(1, 'Name the alternative').max(60),
@@ -99,4 +99,96 @@ export type ShareResult = {
   welfare: ShareWelfare | null;
   /** Why no welfare figure is given (no status quo, no cost attribute, WTP space, …). */
   welfareNote: string | null;
+};
+
+/** Which kind of interval the shares carry (shared/engine/shares/share-draws.ts). */
+export type ShareIntervalKind =
+  /** Krinsky–Robb draws of the estimates from their covariance (one set of coefficients). */
+  | 'parameter'
+  /** Draws from each respondent's conditional distribution (individual-level runs). */
+  | 'conditional';
+
+/**
+ * Everything the browser needs to recompute shares of any scenario of one run without asking
+ * the server again (GET …/shares/model?runId=): the frozen definition to code scenarios, each
+ * respondent's coefficients, and what the interval draws are made from.
+ */
+export type ShareModel = {
+  runId: string;
+  model: string;
+  method: ShareMethod;
+  definition: StudyDefinition;
+  /** Run coefficients in order: name, data column key, lognormal (of either sign). */
+  coefficients: { name: string; key: string; lognormal: boolean }[];
+  /** N (1 for point estimates) and D vectors per respondent (latent classes, else 1). */
+  respondents: number;
+  vectors: number;
+  /** N·D·K coefficient values and, for latent class, N·D posterior class probabilities. */
+  betas: number[];
+  weights: number[] | null;
+  /** Conditional SDs N·K (mixed logit, HB) for conditional draws. */
+  sds: number[] | null;
+  /** Lower Cholesky factor K·K of the estimates' covariance, for parameter draws. */
+  choleskyLower: number[] | null;
+  interval: ShareIntervalKind | null;
+  /** Why the shares carry no interval, when they do not. */
+  intervalNote: string | null;
+  /** Seed of the interval draws (the run's seed), so every recompute gives the same interval. */
+  seed: number;
+  /** Respondents in the estimation sample (for MNL, N = 1 but the sample is this size). */
+  sampleRespondents: number;
+};
+
+export const shareModelQuerySchema = z.object({ runId: z.uuid('Choose a finished run') });
+
+/** Segments of the share model's respondents (GET …/shares/groups). */
+export const shareGroupsQuerySchema = z
+  .object({
+    runId: z.uuid('Choose a finished run'),
+    groupBy: z.enum(['task', 'question', 'class']),
+    task: z.coerce.number().int().min(1).max(2000).optional(),
+    question: z
+      .string()
+      .regex(/^[a-z][a-z0-9_]{0,39}$/, 'Unknown question')
+      .optional(),
+  })
+  .superRefine((q, ctx) => {
+    if (q.groupBy === 'task' && q.task === undefined)
+      ctx.addIssue({ code: 'custom', path: ['task'], message: 'Choose a task' });
+    if (q.groupBy === 'question' && q.question === undefined)
+      ctx.addIssue({ code: 'custom', path: ['question'], message: 'Choose a question' });
+  });
+export type ShareGroupsQuery = z.output<typeof shareGroupsQuerySchema>;
+
+/** Respondents of the share model by segment: `of[n]` indexes `groups` (−1: in none). */
+export type ShareGroups = {
+  label: string;
+  groups: { key: string; label: string }[];
+  of: number[];
+};
+
+/** A saved, named scenario of a study (POST/PUT …/shares/scenarios). */
+export const scenarioBodySchema = z.object({
+  name: z.string().trim().min(1, 'Name the scenario').max(80, 'At most 80 characters'),
+  alternatives: z
+    .array(scenarioAlternativeSchema)
+    .min(2, 'Define at least 2 alternatives')
+    .max(5, 'At most 5 alternatives'),
+  includeFixed: z.boolean().default(true),
+});
+export type ScenarioBodyInput = z.input<typeof scenarioBodySchema>;
+export type ScenarioBody = z.output<typeof scenarioBodySchema>;
+
+export const scenarioParamsSchema = z.object({
+  teamId: z.uuid(),
+  studyId: z.uuid('Unknown study'),
+  scenarioId: z.uuid('Unknown scenario'),
+});
+
+export type SavedScenario = ScenarioBody & {
+  id: string;
+  createdAt: string;
+  updatedAt: string;
+  /** Who saved it first (null when that account is gone). */
+  createdBy: string | null;
 };

@@ -10,6 +10,7 @@
 import { inverseNormal } from '../draws/inverse-normal';
 import { createPrng } from '../draws/prng';
 import { choleskyDecompose } from '../linalg/cholesky';
+import { quantile } from '../../../shared/engine/stats/quantile';
 
 export interface PropagatedEstimate {
   estimate: number;
@@ -29,13 +30,7 @@ export interface PropagateOptions {
 
 const finite = (x: number) => (Number.isFinite(x) ? x : null);
 
-/** Sample quantile, linear interpolation between order statistics (Hyndman & Fan 1996, type 7). */
-export function quantile(sorted: ArrayLike<number>, q: number): number {
-  const h = (sorted.length - 1) * q;
-  const lo = Math.floor(h);
-  const hi = Math.min(lo + 1, sorted.length - 1);
-  return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
-}
+export { quantile };
 
 export function propagateUncertainty(
   fn: (theta: Float64Array) => Float64Array,

@@ -1,7 +1,14 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, type TestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
-import { billMean, N, riverGood, scenarioLevels, seedTastesStudy } from './tastes-fixture';
+import {
+  billMean,
+  N,
+  riverGood,
+  scenarioLevels,
+  seedTastesStudy,
+  taskOneChoice,
+} from './tastes-fixture';
 
 let t: TestApp;
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
@@ -168,5 +175,84 @@ describe('POST /shares/simulate', () => {
       .post(url)
       .send({ ...body, runId: seeded.runningRunId })
       .expect(409);
+  });
+});
+
+describe('GET /shares/model', () => {
+  const modelUrl = () => url.replace(/simulate$/, 'model');
+
+  it('sends every role the respondents’ conditional means and SDs, in coefficient order', async () => {
+    for (const role of ['owner', 'editor', 'analyst', 'viewer'] as const) {
+      const res = await team.agents[role]
+        .get(modelUrl())
+        .query({ runId: seeded.runId })
+        .expect(200);
+      const m = res.body;
+      expect(m.method).toBe('conditional_means');
+      expect(m.interval).toBe('conditional');
+      expect(m.respondents).toBe(N);
+      expect(m.vectors).toBe(1);
+      const K = m.coefficients.length;
+      const names = m.coefficients.map((c: { name: string }) => c.name);
+      const bill = names.indexOf('bill');
+      const river = names.indexOf('river_good');
+      expect(m.coefficients[bill].lognormal).toBe(true);
+      expect(m.coefficients[river].lognormal).toBe(false);
+      for (let n = 0; n < N; n++) {
+        expect(m.betas[n * K + bill]).toBeCloseTo(billMean(n), 14);
+        expect(m.betas[n * K + river]).toBeCloseTo(riverGood(n), 14);
+        expect(m.sds[n * K + river]).toBeCloseTo(0.5 + n / 10, 14);
+      }
+      // No respondent ids leave the server: the model is numbers in a fixed order.
+      expect(JSON.stringify(m)).not.toContain(seeded.respondentIds[0]);
+    }
+  });
+
+  it('when the run id is not a uuid, returns 400 naming runId', async () => {
+    const res = await team.agents.viewer.get(modelUrl()).query({ runId: 'nope' }).expect(400);
+    expect(res.body.error.code).toBe('invalid_input');
+    expect(res.body.error.fields.map((f: { path: string }) => f.path)).toEqual(['runId']);
+  });
+
+  it('returns 404 to an outsider, 401 without a session and 409 for an unfinished run', async () => {
+    await team.outsider.get(modelUrl()).query({ runId: seeded.runId }).expect(404);
+    await t.request().get(modelUrl()).query({ runId: seeded.runId }).expect(401);
+    const res = await team.agents.viewer
+      .get(modelUrl())
+      .query({ runId: seeded.runningRunId })
+      .expect(409);
+    expect(res.body.error.code).toBe('run_not_finished');
+  });
+});
+
+describe('GET /shares/groups', () => {
+  const groupsUrl = () => url.replace(/simulate$/, 'groups');
+
+  it('groups the model’s respondents by the alternative chosen in a task', async () => {
+    const res = await team.agents.viewer
+      .get(groupsUrl())
+      .query({ runId: seeded.runId, groupBy: 'task', task: 1 })
+      .expect(200);
+    expect(res.body.label).toBe('Choice in task 1');
+    // Same order as the model's respondents; the status quo's key is −1.
+    const keys = res.body.of.map((g: number) => res.body.groups[g].key);
+    expect(keys).toEqual(taskOneChoice.map(String));
+    expect(res.body.groups.map((g: { label: string }) => g.label)).toContain('Current service');
+  });
+
+  it.each([
+    [{ groupBy: 'task' }, 'task', 'invalid_input'],
+    [{ groupBy: 'question' }, 'question', 'invalid_input'],
+    [{ groupBy: 'colour' }, 'groupBy', 'invalid_input'],
+    [{ groupBy: 'task', task: 99 }, 'task', 'invalid_input'],
+    [{ groupBy: 'class' }, 'groupBy', 'invalid_input'],
+  ])('when the query is %o, returns 400 naming %s', async (query, field, code) => {
+    const res = await team.agents.analyst
+      .get(groupsUrl())
+      .query({ runId: seeded.runId, ...query })
+      .expect(400);
+    expect(res.body.error.code).toBe(code);
+    expect(res.body.error.message).toEqual(expect.any(String));
+    expect(res.body.error.fields.map((f: { path: string }) => f.path)).toContain(field);
   });
 });

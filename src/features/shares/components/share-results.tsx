@@ -1,4 +1,7 @@
-/** Predicted shares as horizontal bars with percentages, and a per-segment table. */
+/**
+ * Predicted shares as horizontal bars with their 95 % intervals (a thin dark bar from lower to
+ * upper over each share bar), a table with the intervals, and shares by segment.
+ */
 import {
   BarController,
   BarElement,
@@ -8,30 +11,65 @@ import {
   Tooltip,
 } from 'chart.js';
 import { Bar } from 'react-chartjs-2';
-import type { ShareResult } from '@shared/schemas/shares';
-import { formatPercent } from '@/utils/format';
+import type { ShareGroups } from '@shared/schemas/shares';
+import type { ScenarioShares } from '@shared/engine/shares/share-model';
+import { formatCount, formatInterval, formatPercent } from '@/utils/format';
 import { okabeIto } from '@/components/charts/palette';
 
 ChartJS.register(BarController, BarElement, CategoryScale, LinearScale, Tooltip);
 
-const pct = (x: number) => formatPercent(x, 1);
+const pct = (x: number | null | undefined) => formatPercent(x, 1);
 
-export function ShareResults({ result }: { result: ShareResult }) {
-  const names = result.alternatives.map((a) => a.name);
+export function ShareResults({
+  result,
+  respondents,
+  segments,
+}: {
+  result: ScenarioShares;
+  respondents: number;
+  segments: ShareGroups | null;
+}) {
+  const names = result.names;
+  const groups =
+    segments && result.groups
+      ? segments.groups
+          .map((g, i) => ({
+            ...g,
+            count: result.groups!.counts[i],
+            shares: result.groups!.shares[i],
+          }))
+          .filter((g) => g.count > 0)
+      : [];
+  const ungrouped = segments ? segments.of.filter((g) => g < 0).length : 0;
+  const label = names.map((n, j) => `${n} ${pct(result.shares[j])}`).join(', ');
   return (
     <div className="space-y-4">
       <div style={{ height: 56 + 44 * names.length }}>
         <Bar
           role="img"
-          aria-label={`Predicted shares: ${result.alternatives.map((a) => `${a.name} ${pct(a.share)}`).join(', ')}`}
+          aria-label={`Predicted shares: ${label}`}
           data={{
             labels: names,
             datasets: [
+              ...(result.lower && result.upper
+                ? [
+                    {
+                      label: '95 % interval',
+                      data: names.map((_, j) => [result.lower![j] * 100, result.upper![j] * 100]),
+                      backgroundColor: '#1f2a44',
+                      barPercentage: 0.12,
+                      grouped: false,
+                      order: 0,
+                    },
+                  ]
+                : []),
               {
                 label: 'Predicted share',
-                data: result.alternatives.map((a) => a.share * 100),
+                data: result.shares.map((s) => [0, s * 100]),
                 backgroundColor: names.map((_, i) => okabeIto[i % okabeIto.length]),
                 barPercentage: 0.7,
+                grouped: false,
+                order: 1,
               },
             ],
           }}
@@ -46,30 +84,39 @@ export function ShareResults({ result }: { result: ShareResult }) {
         />
       </div>
       <p className="mb-1 text-xs text-ink-muted">
-        Predicted shares over {result.respondents} respondents
-        {result.segments && `, and by ${result.segments.label}`}
+        Predicted shares over {formatCount(respondents)} respondents
+        {segments && `, and by ${segments.label}`}
+        {ungrouped > 0 && ` (${formatCount(ungrouped)} in no segment)`}
       </p>
       <div className="overflow-x-auto">
         <table className="min-w-full text-sm">
           <thead className="border-b border-line text-xs text-ink-soft">
             <tr>
               <th className="px-2 py-1 text-left">Alternative</th>
-              <th className="px-2 py-1 text-right whitespace-nowrap">All ({result.respondents})</th>
-              {result.segments?.groups.map((g) => (
+              <th className="px-2 py-1 text-right whitespace-nowrap">Share</th>
+              {result.lower && (
+                <th className="px-2 py-1 text-right whitespace-nowrap">95 % interval</th>
+              )}
+              {groups.map((g) => (
                 <th key={g.key} className="px-2 py-1 text-right whitespace-nowrap">
-                  {g.label} ({g.count})
+                  {g.label} ({formatCount(g.count)})
                 </th>
               ))}
             </tr>
           </thead>
           <tbody className="font-mono tabular-nums">
-            {result.alternatives.map((a, j) => (
-              <tr key={a.name} className="border-b border-line/60">
-                <td className="px-2 py-1 font-sans">{a.name}</td>
+            {names.map((name, j) => (
+              <tr key={j} className="border-b border-line/60">
+                <td className="px-2 py-1 font-sans">{name}</td>
                 <td className="px-2 py-1 text-right font-semibold whitespace-nowrap">
-                  {pct(a.share)}
+                  {pct(result.shares[j])}
                 </td>
-                {result.segments?.groups.map((g) => (
+                {result.lower && (
+                  <td className="px-2 py-1 text-right whitespace-nowrap">
+                    {formatInterval(result.lower[j], result.upper![j], pct)}
+                  </td>
+                )}
+                {groups.map((g) => (
                   <td key={g.key} className="px-2 py-1 text-right whitespace-nowrap">
                     {pct(g.shares[j])}
                   </td>

@@ -1,33 +1,41 @@
 /**
  * Shares section (what-if share simulator): hypothetical alternatives defined by their levels,
- * simulated over every respondent's own estimates from a finished run (conditional means, HB
- * posterior means, or latent class probabilities), overall and by segment (a background answer,
- * or the likeliest latent class). Every role may simulate; nothing is stored.
+ * simulated in the browser over every respondent's own estimates from a finished run (the run's
+ * share model is loaded once; shared/engine/shares computes each edit), with 95 % intervals,
+ * overall and by segment (a background answer, the alternative chosen in a task, or the
+ * likeliest latent class). Welfare is computed on the server on request. Every role may
+ * simulate.
  */
 import { useState } from 'react';
 import { useParams, useSearchParams } from 'react-router';
 import { Alert, Card, EmptyState, Spinner } from '@/components/ui/feedback';
 import { ErrorText } from '@/components/ui/error-boundary';
 import { Button } from '@/components/ui/button';
-import { SelectField } from '@/components/ui/field';
 import { useStudy } from '@/features/studies/api/get-study';
 import { useTastesRuns } from '@/features/tastes/api/list-tastes-runs';
 import { useTastes } from '@/features/tastes/api/list-tastes';
 import { RunPicker } from '@/features/tastes/components/run-picker';
 import { useSimulateShares } from '@/features/shares/api/simulate-shares';
+import { useShareModel } from '@/features/shares/api/get-share-model';
+import { useShareGroups } from '@/features/shares/api/get-share-groups';
 import { makeAlternative, ScenarioEditor } from '@/features/shares/components/scenario-editor';
 import { ShareResults } from '@/features/shares/components/share-results';
+import { SegmentPicker, toGroupsParams } from '@/features/shares/components/segment-picker';
 import { WelfarePanel } from '@/features/shares/components/welfare-panel';
+import { ScenarioLibrary } from '@/features/shares/components/scenario-library';
+import { useCurrentTeam } from '@/features/auth/hooks/use-current-team';
+import {
+  usePreparedShareModel,
+  useScenarioShares,
+} from '@/features/shares/hooks/use-scenario-shares';
+import { describeInterval } from '@/features/shares/utils/interval-text';
 import type { ScenarioAlternative } from '@shared/schemas/shares';
-
-/** The segment choice that splits by the likeliest latent class (no question key has a colon). */
-const CLASS_SEGMENT = ':class';
 
 /** How the shares are computed, per model family of the run. */
 const METHOD_TEXT: Record<string, string> = {
   mixed:
-    'Each respondent gets logit choice probabilities from their own conditional means (their taste profile); the share is the average over respondents, not the choice of one average person. Uncertainty within each profile is not carried into the shares.',
-  hb: 'Each respondent gets logit choice probabilities from their own posterior means (hierarchical Bayes); the share is the average over respondents. The posterior draws are not kept, so uncertainty within each respondent is not carried into the shares, which makes individual probabilities somewhat more extreme.',
+    'Each respondent gets logit choice probabilities from their own taste profile (conditional on their choices); the share is the average over respondents, not the choice of one average person.',
+  hb: 'Each respondent gets logit choice probabilities from their own posterior (hierarchical Bayes); the share is the average over respondents. The posterior draws are not kept, so each respondent’s posterior is approximated by its mean and SD.',
   latent_class:
     'Each respondent’s probabilities are the class logit probabilities weighted by their own posterior class probabilities; the share is the average over respondents.',
   mnl: 'This is a multinomial logit run: everybody shares one set of coefficients, so shares follow the logit formula without taste variation. Choose a run with individual estimates (mixed logit, HB or latent class) for shares over respondents.',
@@ -47,37 +55,36 @@ export function Component() {
     sort: 'number',
     dir: 'asc',
   }).data;
+  const model = useShareModel(teamId, studyId, run ? runId : '');
+  const prepared = usePreparedShareModel(model.data);
   const [alternatives, setAlternatives] = useState<ScenarioAlternative[] | null>(null);
   const [includeFixed, setIncludeFixed] = useState(true);
   const [segment, setSegment] = useState('');
+  const [loaded, setLoaded] = useState<{ id: string; name: string } | null>(null);
+  const { can } = useCurrentTeam();
+  const groups = useShareGroups(teamId, studyId, toGroupsParams(runId, segment));
   const simulate = useSimulateShares(teamId, studyId);
+  const definition = model.data?.definition ?? study.data?.definition;
+  const scenario =
+    alternatives ?? (definition ? [0, 1].map((i) => makeAlternative(definition, i)) : []);
+  const outcome = useScenarioShares(prepared, scenario, includeFixed, groups.data ?? null);
 
   if (study.isPending || runs.isPending) return <Spinner label="Loading…" />;
   if (study.error || runs.error) return <ErrorText error={study.error ?? runs.error} />;
-  const definition = study.data.definition;
-  if (runs.data.length === 0)
+  if (runs.data.length === 0 || !definition)
     return (
       <EmptyState title="No finished run yet">
         Shares are simulated over the respondents&apos; taste profiles of a finished run. Start one
         in Models.
       </EmptyState>
     );
-  const scenario = alternatives ?? [0, 1].map((i) => makeAlternative(definition, i));
-  const segmentOptions = (header?.questions ?? []).filter((q) => q.type === 'single');
   const fixed = definition.fixedAlternative;
   const request = {
     runId,
     alternatives: scenario,
     includeFixed,
-    segmentBy:
-      segment === CLASS_SEGMENT
-        ? { groupBy: 'class' as const }
-        : segment
-          ? { groupBy: 'question' as const, question: segment }
-          : null,
   };
-  const onSimulate = () => simulate.mutate(request);
-  // Results stay on screen while the inputs change, marked out of date from the first edit.
+  // Welfare stays on screen while the inputs change, marked out of date from the first edit.
   const stale =
     simulate.data !== undefined && JSON.stringify(simulate.variables) !== JSON.stringify(request);
 
@@ -123,48 +130,71 @@ export function Component() {
               Include “{fixed.label}”
             </label>
           )}
-          <SelectField
-            label="Shares by segment"
-            value={segment}
-            onChange={(e) => setSegment(e.target.value)}
-            wrapperClassName="w-full sm:w-72"
-            disabled={segmentOptions.length === 0 && run?.model !== 'latent_class'}
-          >
-            <option value="">No segments</option>
-            {run?.model === 'latent_class' && (
-              <option value={CLASS_SEGMENT}>Likeliest latent class</option>
-            )}
-            {segmentOptions.map((q) => (
-              <option key={q.key} value={q.key}>
-                {q.text}
-              </option>
-            ))}
-          </SelectField>
-          <Button onClick={onSimulate} busy={simulate.isPending}>
-            Simulate shares
-          </Button>
+          <SegmentPicker header={header} model={run?.model} value={segment} onChange={setSegment} />
         </div>
       </Card>
-      <ErrorText error={simulate.error} />
-      {simulate.data && (
-        <Card title={stale ? 'Predicted shares — out of date' : 'Predicted shares'}>
-          {stale && (
-            <Alert tone="warning" className="mb-4">
-              The scenario changed after these shares were simulated. Simulate again to update them.
+      <ErrorText error={model.error ?? groups.error} />
+      {model.isPending && run && <Spinner label="Loading the run’s taste profiles…" />}
+      {outcome.error && (
+        <Alert tone="warning" title="The scenario is not complete">
+          {outcome.error.message}
+        </Alert>
+      )}
+      {outcome.shares && model.data && (
+        <Card title="Predicted shares">
+          <ShareResults
+            result={outcome.shares}
+            respondents={model.data.sampleRespondents}
+            segments={groups.data ?? null}
+          />
+          <p className="mt-3 text-xs text-ink-muted">
+            {describeInterval(
+              outcome.shares.interval,
+              prepared?.draws?.draws ?? 0,
+              model.data.intervalNote,
+            )}
+          </p>
+        </Card>
+      )}
+      <Card title={loaded ? `Saved scenarios — editing “${loaded.name}”` : 'Saved scenarios'}>
+        <ScenarioLibrary
+          teamId={teamId}
+          studyId={studyId}
+          canWrite={can('scenarios:write')}
+          prepared={prepared}
+          current={{ alternatives: scenario, includeFixed }}
+          loaded={loaded}
+          onLoad={(s) => {
+            setLoaded(s ? { id: s.id, name: s.name } : null);
+            if (s) {
+              setAlternatives(s.alternatives);
+              setIncludeFixed(s.includeFixed);
+            }
+          }}
+        />
+      </Card>
+      <Card title="Welfare against the status quo">
+        <div className="space-y-3">
+          <Button
+            variant="secondary"
+            onClick={() => simulate.mutate(request)}
+            busy={simulate.isPending}
+          >
+            {simulate.data ? 'Compute welfare again' : 'Compute welfare'}
+          </Button>
+          <ErrorText error={simulate.error} />
+          {simulate.data && stale && (
+            <Alert tone="warning">
+              The scenario changed after this was computed. Compute it again to update it.
             </Alert>
           )}
-          <div className={stale ? 'opacity-50' : undefined}>
-            <ShareResults result={simulate.data} />
-          </div>
-        </Card>
-      )}
-      {simulate.data && (
-        <Card title="Welfare against the status quo">
-          <div className={stale ? 'opacity-50' : undefined}>
-            <WelfarePanel result={simulate.data} />
-          </div>
-        </Card>
-      )}
+          {simulate.data && (
+            <div className={stale ? 'opacity-50' : undefined}>
+              <WelfarePanel result={simulate.data} />
+            </div>
+          )}
+        </div>
+      </Card>
     </div>
   );
 }

@@ -99,7 +99,9 @@ export async function simulateStudyShares(
   const prepared = prepareShareModel({ ...model, interval: null });
   const usesProfiles = model.method !== 'point_estimates';
   const groups =
-    input.segmentBy && usesProfiles ? await loadShareGroups(deps, ctx, profiles, input.segmentBy) : null;
+    input.segmentBy && usesProfiles
+      ? await loadShareGroups(deps, ctx, profiles, input.segmentBy)
+      : null;
   let result;
   try {
     result = computeScenarioShares(

@@ -51,7 +51,7 @@ test('an analyst edits, saves, sweeps, compares and downloads what-if shares', a
   const shares = page.locator('table').filter({ hasText: '95 % interval' }).first();
 
   await test.step('open Shares; an edit changes the shares at once, with their interval', async () => {
-    await expect(page.getByRole('heading', { name: 'Shares' })).toBeVisible();
+    await expect(page.getByRole('heading', { name: 'Shares', exact: true })).toBeVisible();
     await expect(page.getByText(/Krinsky–Robb draws of the estimates/)).toBeVisible();
     const before = await shares.locator('tbody tr').first().locator('td').nth(1).textContent();
     await page.getByLabel('Monthly bill increase').first().selectOption({ label: '€15' });

@@ -3,7 +3,8 @@
  * respondent this process already knows (known-respondents.ts), is checked against the cached
  * frozen version and stored by one statement that also re-checks, in the database, everything
  * that can change (db/queries/answer-fast-path.ts). Whenever that statement writes nothing —
- * a retry, a closed or closing study, a quota, an answer out of order, a session that ended —
+ * a retry, a closed or closing study, a quota (segment quotas are known here and sent there at
+ * once), an answer out of order, a session that ended —
  * the caller takes the full path, which decides exactly as if this one did not exist. So this
  * path only ever says yes; every refusal, receipt of a retry and 409 comes from the full path.
  */
@@ -18,6 +19,8 @@ import { screensOfRespondent } from './respondent-screen-index';
 import { checkAnswerValue } from './answer-rules';
 import { shapeAnswer, type AnswerInput } from './answer-shape';
 import { findKnownRespondent } from './known-respondents';
+import { segmentQuotaApplies } from './segment-quotas';
+import { ruleOfScreen } from '../../shared/survey/skip-logic';
 
 /** The receipt of a stored answer, or null when the full path must decide. */
 export async function saveAnswerFast(
@@ -33,7 +36,8 @@ export async function saveAnswerFast(
   });
   const { screens, plan } = screensOfRespondent(version, respondent);
   const index = screens.findIndex((s) => s.key === answer.screenKey);
-  if (index < 0) return null;
+  // A page with a skip rule needs the earlier answers: the full path checks it.
+  if (index < 0 || ruleOfScreen(screens[index])) return null;
   try {
     checkAnswerValue(screens[index], answer.value);
   } catch {
@@ -41,6 +45,8 @@ export async function saveAnswerFast(
   }
   const seen = { plan, screens, index };
   const { row, status, durationMs } = shapeAnswer(version, respondent, seen, answer, now);
+  // Segment quotas count other respondents' completes: the full path decides those answers.
+  if (segmentQuotaApplies(version, answer.screenKey, status)) return null;
   let stored;
   try {
     stored = await insertAnswerIfOpen(db, {

@@ -7,6 +7,11 @@ const invalid = (message: string) =>
   new ValidationError(message, [{ path: 'value', message }], 'invalid_answer');
 
 export function checkAnswerValue(screen: RespondentScreen, value: AnswerValue): void {
+  if (value.kind === 'skipped') {
+    // Whether the rule really does not match needs the earlier answers (skip-rules.ts).
+    if ((screen.kind === 'question' || screen.kind === 'instructions') && screen.showIf) return;
+    throw invalid('This screen cannot be skipped.');
+  }
   switch (screen.kind) {
     case 'consent':
       if (value.kind !== 'consent') throw invalid('Agree to take part to continue.');

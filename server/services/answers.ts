@@ -28,6 +28,8 @@ import { saveAnswerFast } from './answer-fast-path';
 import { rememberRespondent } from './known-respondents';
 import { resolveRefusedAnswer } from './answer-conflicts';
 import { completeUnderQuota } from './answer-quota';
+import { screeningCellIsFull, segmentQuotaApplies } from './segment-quotas';
+import { checkSkipRule } from './skip-rules';
 import { judgeLateAnswer, type LateAnswerVerdict } from './late-answers';
 
 export type { AnswerInput };
@@ -152,12 +154,28 @@ export async function saveAnswer(
       [{ path: 'screenKey', message: `Expected ${expected.key}` }],
     );
   checkAnswerValue(screens[index], answer.value);
+  await checkSkipRule(db, {
+    respondentId: respondent.id,
+    screen: screens[index],
+    value: answer.value,
+  });
 
   const seen = { plan, screens, index };
-  const { row, status, durationMs } = shapeAnswer(version, respondent, seen, answer, now);
+  const shaped = shapeAnswer(version, respondent, seen, answer, now);
+  const { row, durationMs } = shaped;
+  let status: RespondentStatus = shaped.status;
+  const studyId = ctx.study.id;
+  if (status === 'in_progress' && segmentQuotaApplies(version, answer.screenKey, status)) {
+    const { screenKey, value } = answer;
+    const full = await screeningCellIsFull(db, { studyId, version, screenKey, value });
+    if (full) status = 'over_quota';
+  }
 
-  if (status === 'completed' && settings.quotaCompletes !== null) {
-    const outcome = await completeUnderQuota(db, { studyId: ctx.study.id, row, durationMs, now });
+  if (
+    status === 'completed' &&
+    (settings.quotaCompletes !== null || segmentQuotaApplies(version, answer.screenKey, status))
+  ) {
+    const outcome = await completeUnderQuota(db, { studyId, row, durationMs, now, version });
     if (!outcome) return refused();
     return receipt(outcome, false, index + 1);
   }

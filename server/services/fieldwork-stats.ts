@@ -23,7 +23,9 @@ import {
   questionnaireSchema,
   screenKeys,
 } from '../../shared/schemas/questionnaire';
-import type { DropOffStep, FieldworkStats } from '../../shared/schemas/fieldwork';
+import type { DropOffStep, FieldworkStats, QuotaProgress } from '../../shared/schemas/fieldwork';
+import type { DbOrTx } from '../../db/client';
+import { completesPerCell, quotaPagesOf } from './segment-quotas';
 
 export type ScreenSlot = { key: string; label: string };
 
@@ -115,6 +117,30 @@ export function buildDropOff(
   return steps;
 }
 
+/** Completes per quota cell of the latest version's screening questions. */
+async function quotaProgress(
+  db: DbOrTx,
+  studyId: string,
+  questionnaire: unknown,
+): Promise<QuotaProgress[]> {
+  const q = questionnaireSchema.safeParse(questionnaire);
+  if (!q.success) return [];
+  return Promise.all(
+    quotaPagesOf(q.data).map(async (page) => {
+      const counts = await completesPerCell(db, { studyId, page });
+      return {
+        question: page.question.text,
+        cells: page.quotaCells.map((c) => ({
+          id: c.id,
+          label: c.label,
+          target: c.target,
+          completed: counts.get(c.id) ?? 0,
+        })),
+      };
+    }),
+  );
+}
+
 export async function getFieldworkStats(
   deps: AppDeps,
   teamId: string,
@@ -155,6 +181,7 @@ export async function getFieldworkStats(
     byBlock,
     byVersion,
     dropOff: buildDropOff(slots, reached, tasks, unfinished),
+    quotas: latest ? await quotaProgress(db, studyId, latest.questionnaire) : [],
     daily,
     invitations: inv,
   };

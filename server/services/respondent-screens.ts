@@ -12,7 +12,9 @@ import {
   screenKeys,
   type CertaintyScale,
   type Questionnaire,
+  type QuestionnairePage,
 } from '../../shared/schemas/questionnaire';
+import { showIfOf } from '../../shared/survey/skip-logic';
 import type {
   DisplayAlternative,
   RespondentPlan,
@@ -125,6 +127,12 @@ export function buildScreens(version: FrozenVersion, plan: RespondentPlan): Resp
       ...(certainty ? { certainty } : {}),
     });
   };
+  // Questions a later page's skip rule reads: their answers stand once given.
+  const decidingKeys = new Set(questionnaire.pages.map((p) => showIfOf(p)?.questionKey));
+  const rule = (p: QuestionnairePage) => {
+    const showIf = showIfOf(p);
+    return showIf ? { showIf } : {};
+  };
   for (const page of questionnaire.pages) {
     switch (page.kind) {
       case 'consent':
@@ -139,6 +147,7 @@ export function buildScreens(version: FrozenVersion, plan: RespondentPlan): Resp
           key: screenKeys.instructions(page.id),
           kind: 'instructions',
           ...pick(page, 'title', 'body'),
+          ...rule(page),
         });
         break;
       case 'question':
@@ -148,6 +157,8 @@ export function buildScreens(version: FrozenVersion, plan: RespondentPlan): Resp
           kind: 'question',
           question: page.question,
           screening: page.kind === 'screening',
+          ...rule(page),
+          ...(decidingKeys.has(page.question.key) ? { decidesSkips: true as const } : {}),
         });
         break;
       case 'tasks':

@@ -16,6 +16,20 @@ export const dropOffStepSchema = z.object({
 });
 export type DropOffStep = z.infer<typeof dropOffStepSchema>;
 
+/** Completes per cell of one screening question's segment quotas, against the targets. */
+export const quotaProgressSchema = z.object({
+  question: z.string(),
+  cells: z.array(
+    z.object({
+      id: z.string(),
+      label: z.string(),
+      target: z.number().int(),
+      completed: z.number().int(),
+    }),
+  ),
+});
+export type QuotaProgress = z.infer<typeof quotaProgressSchema>;
+
 export const fieldworkStatsSchema = z.object({
   status: z.enum(['draft', 'live', 'closed']),
   currentVersion: z.number().int(),
@@ -38,6 +52,8 @@ export const fieldworkStatsSchema = z.object({
     z.object({ version: z.number().int(), starts: z.number().int(), completed: z.number().int() }),
   ),
   dropOff: z.array(dropOffStepSchema),
+  /** Segment quotas of the latest version's screening questions (empty when none). */
+  quotas: z.array(quotaProgressSchema),
   /** Starts and completes per calendar day (UTC). */
   daily: z.array(
     z.object({ date: z.string(), starts: z.number().int(), completed: z.number().int() }),

@@ -99,6 +99,7 @@ export function createPage(
         screenOutOptionIds: ['no'],
         acceptMin: null,
         acceptMax: null,
+        quotaCells: [],
       };
     case 'question':
       return {

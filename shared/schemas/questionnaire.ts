@@ -6,6 +6,8 @@
  */
 import { z } from 'zod';
 import { elementIdSchema } from './study-definition';
+import { quotaProblems } from '../survey/quota-cells';
+import { skipRuleProblems } from '../survey/skip-logic';
 
 const title = z.string().trim().min(1, 'Give the page a title').max(200);
 const body = z.string().trim().max(6000);
@@ -69,6 +71,20 @@ export const handSetTaskAlternativeSchema = z.object({
 
 const page = { id: elementIdSchema };
 
+/**
+ * Skip logic: the page is shown only when the answer to an earlier question matches (one of
+ * the options, or a number within min..max); otherwise the respondent goes past it and the
+ * answer is stored as skipped (shared/survey/skip-logic.ts).
+ */
+export const showIfSchema = z.object({
+  questionKey: questionKeySchema,
+  optionIds: z.array(elementIdSchema).max(30).default([]),
+  min: z.number().finite().nullable().default(null),
+  max: z.number().finite().nullable().default(null),
+});
+export type ShowIf = z.infer<typeof showIfSchema>;
+const showIf = showIfSchema.nullable().optional();
+
 /** Follow-up templates a page was made from (shared/schemas/questionnaire-templates.ts). */
 export const templateKindSchema = z.enum([
   'consequentiality',
@@ -85,6 +101,25 @@ export const consentPageSchema = z.object({
   body: body.min(1, 'Write what respondents agree to'),
   agreeLabel: z.string().trim().min(1).max(200),
 });
+/**
+ * One quota cell of a screening question: the answers it takes (options of a single-choice
+ * question, or whole numbers from..to inclusive of a number question) and how many completes
+ * it needs. Cells partition the accepted answers (shared/survey/quota-cells.ts checks it).
+ */
+export const quotaCellSchema = z.object({
+  id: elementIdSchema,
+  label: z.string().trim().min(1, 'Name the quota cell').max(100),
+  optionIds: z.array(elementIdSchema).max(30).default([]),
+  from: z.number().int('Use whole numbers').nullable().default(null),
+  to: z.number().int('Use whole numbers').nullable().default(null),
+  target: z
+    .number()
+    .int('A target is a whole number')
+    .min(1, 'A target is at least 1')
+    .max(1_000_000),
+});
+export type QuotaCell = z.infer<typeof quotaCellSchema>;
+
 export const screeningPageSchema = z.object({
   ...page,
   kind: z.literal('screening'),
@@ -94,12 +129,17 @@ export const screeningPageSchema = z.object({
   /** Number questions: an answer outside [acceptMin, acceptMax] screens the respondent out. */
   acceptMin: z.number().finite().nullable().default(null),
   acceptMax: z.number().finite().nullable().default(null),
+  showIf,
+  /** Completes wanted per answer group; a full cell screens its next respondents out. */
+  quotaCells: z.array(quotaCellSchema).max(20).default([]),
 });
+export type ScreeningPage = z.infer<typeof screeningPageSchema>;
 export const questionPageSchema = z.object({
   ...page,
   kind: z.literal('question'),
   question: questionSchema,
   template: templateKindSchema.optional(),
+  showIf,
 });
 export const instructionsPageSchema = z.object({
   ...page,
@@ -107,6 +147,7 @@ export const instructionsPageSchema = z.object({
   title,
   body,
   template: templateKindSchema.optional(),
+  showIf,
 });
 /** Where the respondent's block of design tasks goes, one task per screen. */
 /**
@@ -222,6 +263,11 @@ export const questionnaireSchema = z
         issue('The repeated task must come after the choice tasks', ['pages', i]);
       if (p.kind === 'screening' && p.question.type === 'text')
         issue('Screening questions are single, multiple choice or number', ['pages', i]);
+      for (const problem of skipRuleProblems(q.pages, i))
+        issue(problem.message, ['pages', i, 'showIf', ...problem.path]);
+      if (p.kind === 'screening')
+        for (const problem of quotaProblems(p))
+          issue(problem.message, ['pages', i, 'quotaCells', ...problem.path]);
     });
   });
 export type Questionnaire = z.infer<typeof questionnaireSchema>;

@@ -4,7 +4,7 @@
  * session token (header X-Respondent-Token) reaches only their own session.
  */
 import { z } from 'zod';
-import type { CertaintyScale, Question } from './questionnaire';
+import type { CertaintyScale, Question, ShowIf } from './questionnaire';
 import type { StudyDefinition } from './study-definition';
 import type { BackOptions } from '../survey/going-back';
 
@@ -55,6 +55,8 @@ export const answerValueSchema = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('multiple'), optionIds: z.array(z.string().max(40)).max(30) }),
   z.object({ kind: z.literal('number'), number: z.number().finite().nullable() }),
   z.object({ kind: z.literal('text'), text: z.string().max(2000) }),
+  /** A page whose skip rule did not match: gone past, not asked (shared/survey/skip-logic.ts). */
+  z.object({ kind: z.literal('skipped') }),
   /**
    * Choice tasks: the on-screen position (0-based) of the chosen card, and the answer to the
    * certainty question when the task asks one (1 = least sure).
@@ -109,8 +111,16 @@ export type TaskKind = 'design' | 'warmup' | 'holdout' | 'repeat' | 'dominance';
 
 export type RespondentScreen =
   | { key: string; kind: 'consent'; title: string; body: string; agreeLabel: string }
-  | { key: string; kind: 'instructions'; title: string; body: string }
-  | { key: string; kind: 'question'; question: Question; screening: boolean }
+  | { key: string; kind: 'instructions'; title: string; body: string; showIf?: ShowIf }
+  | {
+      key: string;
+      kind: 'question';
+      question: Question;
+      screening: boolean;
+      showIf?: ShowIf;
+      /** A later page's skip rule reads this answer, so it stands once given (no Back). */
+      decidesSkips?: true;
+    }
   | {
       key: string;
       kind: 'task';

@@ -15,11 +15,13 @@ export function canRevise(screen: RespondentScreen, options: BackOptions): boole
     case 'consent':
       return false;
     case 'question':
-      return !screen.screening;
+      // A skip rule's answer, and a page shown or skipped by one, stand once given: changing
+      // them would change which later pages apply after those were answered or skipped.
+      return !screen.screening && !screen.showIf && !screen.decidesSkips;
     case 'task':
       return options.backOnTasks;
     case 'instructions':
-      return true;
+      return !screen.showIf;
   }
 }
 
@@ -36,7 +38,8 @@ export function previousRevisable(
 }
 
 /**
- * The stored answers of the screens Back may lead to, as the respondent gave them (a choice
+ * The stored answers of the screens Back may lead to (and of questions a skip rule reads), as
+ * the respondent gave them (a choice
  * task's stored row also carries its task kind; only the on-screen position goes back).
  */
 export function givenOnRevisable(
@@ -46,7 +49,10 @@ export function givenOnRevisable(
 ): Record<string, AnswerValue> {
   const given: Record<string, AnswerValue> = {};
   for (const screen of screens) {
-    if (!stored.has(screen.key) || !canRevise(screen, options)) continue;
+    // Answers a skip rule reads come back too, so a session resumed elsewhere skips alike.
+    const needed =
+      canRevise(screen, options) || (screen.kind === 'question' && screen.decidesSkips);
+    if (!stored.has(screen.key) || !needed) continue;
     const raw = stored.get(screen.key) as { kind?: unknown; position?: unknown } | null;
     const value = answerValueSchema.safeParse(
       raw?.kind === 'choice' ? { kind: 'choice', position: raw.position } : raw,

@@ -11,6 +11,7 @@ import type { VersionInput } from '../estimation/code-answers';
 import { formatAnswer } from '../tastes/background-answers';
 import { getFlagNames } from '../tastes/taste-rows';
 import { col, type ColumnDoc, type DocumentedTable } from './documented-table';
+import { certaintyOf } from './long-choice-file';
 import {
   getInclusion,
   inclusionColumns,
@@ -48,6 +49,8 @@ export interface WideChoiceAnswer {
   chosenAlternative: number | null;
   chosenPosition: number | null;
   responseMs: number | null;
+  /** The stored answer; a choice carries `certainty` when its task asked how sure. */
+  value?: unknown;
 }
 
 export interface WideInput {
@@ -98,6 +101,8 @@ export function buildWideTable(input: WideInput): DocumentedTable {
   const choiceOf = new Map(input.choices.map((c) => [`${c.respondentId}|${c.screenKey}`, c]));
   const taskNumbers = Array.from({ length: tasks }, (_, i) => i + 1);
   const holdoutNumbers = Array.from({ length: holdouts }, (_, i) => i + 1);
+  // Certainty columns only when some version's tasks asked how sure (the long file has it too).
+  const asksCertainty = input.choices.some((c) => certaintyOf(c.value) !== null);
 
   const columns: ColumnDoc[] = [
     ...respondentColumns,
@@ -148,6 +153,17 @@ export function buildWideTable(input: WideInput): DocumentedTable {
         '1 = first (left, or top on phones)',
       ),
       col(`seconds_${k}`, 'seconds', `Time spent on task_${k}`, 'seconds'),
+      ...(asksCertainty
+        ? [
+            col(
+              `certainty_${k}`,
+              'integer',
+              `How sure the respondent said they were of the choice in task_${k}`,
+              'none',
+              '1 = least sure, up to the scale set on the tasks page; empty when not asked',
+            ),
+          ]
+        : []),
     ]),
     ...holdoutNumbers.flatMap((h) => [
       col(
@@ -191,6 +207,7 @@ export function buildWideTable(input: WideInput): DocumentedTable {
             ? null
             : a.chosenPosition + 1,
           seconds(a?.responseMs),
+          ...(asksCertainty ? [certaintyOf(a?.value)] : []),
         ];
       }),
       ...holdoutNumbers.flatMap((h) => {

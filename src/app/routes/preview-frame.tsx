@@ -15,6 +15,7 @@ import { useStudyPreview } from '@/features/preview/api/get-study-preview';
 import { postPreviewScreen } from '@/features/preview/utils/preview-messages';
 import { RespondLayout } from '@/features/respond/components/respond-layout';
 import { RespondentScreenView } from '@/features/respond/components/screen-view';
+import { nextShownIndex } from '@shared/survey/skip-logic';
 import { EndScreen } from '@/features/respond/components/finish-screens';
 import { GoBackContext, Paragraphs, ScreenFrame } from '@/features/respond/components/screen-frame';
 
@@ -70,10 +71,13 @@ export function Component() {
             definition={survey.definition}
             initial={given[screen.key]}
             onAnswer={(value) => {
-              setGiven((g) => ({ ...g, [screen.key]: value }));
-              // A screen seen again leads back on to the next one, as in the live app.
-              setIndex(index + 1);
-              setFurthest((f) => Math.max(f, index + 1));
+              const now = { ...given, [screen.key]: value };
+              setGiven(now);
+              // A screen seen again leads back on to the next one, as in the live app; pages
+              // whose skip rule does not match are gone past.
+              const next = nextShownIndex(survey.screens, index + 1, now);
+              setIndex(next);
+              setFurthest((f) => Math.max(f, next));
             }}
           />
         </GoBackContext.Provider>

@@ -71,6 +71,7 @@ export function fullQuestionnaire(): Questionnaire {
         screenOutOptionIds: ['no'],
         acceptMin: null,
         acceptMax: null,
+        quotaCells: [],
       },
       ...rest,
     ],

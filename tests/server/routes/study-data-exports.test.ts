@@ -257,9 +257,12 @@ describe('GET /exports/respondents-wide.csv and .R', () => {
       choice_1: '2',
       position_1: '1',
       seconds_1: '2.5',
+      certainty_1: '7',
     });
     const excluded = rows.find((r) => r.respondent === extra.excluded)!;
     expect(excluded).toMatchObject({ choice_1: '0', choice_2: '0', duration_seconds: '61' });
+    // A choice whose task asked no certainty question leaves its certainty cell empty.
+    expect(excluded.certainty_1).toBe('');
   });
 
   it('comes with an R script whose columns, types and factor levels fit the CSV', async () => {
@@ -285,6 +288,7 @@ describe('GET /exports/respondents-wide.csv and .R', () => {
       number: 'integer',
       included: 'logical',
       seconds_1: 'numeric',
+      certainty_1: 'integer',
       q_household_size: 'numeric',
       q_age_band: 'character',
     });

@@ -1,9 +1,16 @@
 import { TextAreaField, TextField } from '@/components/ui/field';
-import { pageKindLabels, type QuestionnairePage } from '@shared/schemas/questionnaire';
+import {
+  pageKindLabels,
+  type Question,
+  type QuestionnairePage,
+} from '@shared/schemas/questionnaire';
 import type { StudyDefinition } from '@shared/schemas/study-definition';
 import { templateHelp, templateLabels } from '@shared/schemas/questionnaire-templates';
 import { CertaintyFields } from './certainty-fields';
 import { QuestionFields } from './question-fields';
+import { QuotaFields } from './quota-fields';
+import { OptionCheckboxes } from './option-checkboxes';
+import { ShowIfFields } from './show-if-fields';
 import { DominanceFields, HandSetTaskFields } from './task-page-fields';
 
 const kindHelp: Partial<Record<QuestionnairePage['kind'], string>> = {
@@ -26,12 +33,15 @@ export function PageForm({
   definition,
   onChange,
   otherKeys = [],
+  earlier = [],
 }: {
   page: QuestionnairePage;
   definition: StudyDefinition;
   onChange: (p: QuestionnairePage) => void;
   /** Question keys used by the other pages. */
   otherKeys?: string[];
+  /** Choice and number questions on the pages before this one (skip rules read them). */
+  earlier?: Question[];
 }) {
   const template =
     page.kind === 'question' || page.kind === 'instructions' ? page.template : undefined;
@@ -112,24 +122,11 @@ export function PageForm({
             <legend className="mb-1 text-sm font-medium text-ink">
               Screen out respondents who choose
             </legend>
-            {page.question.options.map((o) => (
-              <label key={o.id} className="flex items-center gap-2 text-sm text-ink">
-                <input
-                  type="checkbox"
-                  className="size-4"
-                  checked={page.screenOutOptionIds.includes(o.id)}
-                  onChange={(e) =>
-                    onChange({
-                      ...page,
-                      screenOutOptionIds: e.target.checked
-                        ? [...page.screenOutOptionIds, o.id]
-                        : page.screenOutOptionIds.filter((x) => x !== o.id),
-                    })
-                  }
-                />
-                {o.label}
-              </label>
-            ))}
+            <OptionCheckboxes
+              options={page.question.options}
+              selected={page.screenOutOptionIds}
+              onChange={(screenOutOptionIds) => onChange({ ...page, screenOutOptionIds })}
+            />
           </fieldset>
         )}
       {page.kind === 'screening' && page.question.type === 'number' && (
@@ -157,6 +154,14 @@ export function PageForm({
             }
           />
         </div>
+      )}
+      {page.kind === 'screening' && <QuotaFields page={page} onChange={onChange} />}
+      {(page.kind === 'question' || page.kind === 'screening' || page.kind === 'instructions') && (
+        <ShowIfFields
+          showIf={page.showIf}
+          earlier={earlier}
+          onChange={(showIf) => onChange({ ...page, showIf })}
+        />
       )}
     </div>
   );

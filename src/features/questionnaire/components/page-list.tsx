@@ -18,6 +18,7 @@ import { CSS } from '@dnd-kit/utilities';
 import { cn } from '@/lib/cn';
 import { createSortableAnnouncements } from '@/lib/sortable-announcements';
 import { pageKindLabels, type QuestionnairePage } from '@shared/schemas/questionnaire';
+import { showIfOf } from '@shared/survey/skip-logic';
 import { templateLabels } from '@shared/schemas/questionnaire-templates';
 
 export function pageSummary(page: QuestionnairePage): string {
@@ -67,6 +68,14 @@ function RowBody({ page, index, onSelect, selected }: RowProps) {
       <span className="block text-xs font-medium text-primary">
         <span className="num mr-1 inline-block w-5 text-left">{index + 1}</span>
         {pageKindName(page)}
+        {showIfOf(page) && (
+          <span className="ml-1 font-normal text-ink-soft">
+            · if “{showIfOf(page)!.questionKey}” matches
+          </span>
+        )}
+        {page.kind === 'screening' && page.quotaCells.length > 0 && (
+          <span className="ml-1 font-normal text-ink-soft">· quotas</span>
+        )}
       </span>
       <span className="block truncate text-sm text-ink">{pageSummary(page)}</span>
     </button>

@@ -182,6 +182,13 @@ export function QuestionnaireEditor({
                 page={selected}
                 definition={definition}
                 otherKeys={questionKeys(draft.pages.filter((p) => p.id !== selected.id))}
+                earlier={draft.pages
+                  .slice(0, draft.pages.indexOf(selected))
+                  .flatMap((p) =>
+                    (p.kind === 'question' || p.kind === 'screening') && p.question.type !== 'text'
+                      ? [p.question]
+                      : [],
+                  )}
                 onChange={(p) => change(draft.pages.map((x) => (x.id === p.id ? p : x)))}
               />
             </fieldset>

@@ -54,6 +54,7 @@ export function RespondentApp({ publicId, search }: { publicId: string; search: 
         redirectUrl={r.redirectUrl}
       />
     );
+  else if (r.skipping) body = null;
   else if (!r.currentScreen)
     body = (
       <EndScreen

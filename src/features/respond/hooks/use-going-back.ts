@@ -69,6 +69,8 @@ export function useGoingBack(
     currentScreen,
     goBack: backTarget ? goBack : null,
     givenOnCurrent: currentScreen ? given[currentScreen.key] : undefined,
+    /** Every answer this device knows, by screen key (skip rules read them). */
+    given,
     adoptGiven,
     remember,
     moveOnFrom,

@@ -4,7 +4,7 @@
  * retrying with backoff until the server acknowledges. Screens never wait for the network,
  * except screening questions, whose outcome decides whether the respondent goes on.
  */
-import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { ApiError } from '@/lib/api-client';
 import type {
   AnswerReceipt,
@@ -33,6 +33,7 @@ import {
   type UnsentAnswer,
 } from '../utils/respondent-storage';
 import { useGoingBack } from './use-going-back';
+import { ruleOfScreen, screenApplies } from '@shared/survey/skip-logic';
 
 export type Unavailable = SurveyLinkState | 'not_found' | 'session_lost';
 
@@ -246,9 +247,25 @@ export function useRespondent(publicId: string, search: string) {
     [publicId, sendOutbox, done, changed, remember, moveOnFrom],
   );
 
+  // A page whose skip rule does not match is gone past at once, stored as skipped (before
+  // paint, so it never flashes). Not while a screening answer awaits its receipt: a respondent
+  // screened out there has no later pages.
+  const current = back.currentScreen;
+  const skipCurrent =
+    !!current &&
+    awaiting === null &&
+    finalStatus === null &&
+    !done.has(current.key) &&
+    !screenApplies(ruleOfScreen(current), back.given);
+  useLayoutEffect(() => {
+    if (skipCurrent && current) answer(current, { kind: 'skipped' }, 0);
+  }, [skipCurrent, current, answer]);
+
   return {
     state,
-    currentScreen: back.currentScreen,
+    currentScreen: skipCurrent ? null : current,
+    /** True while the app goes past a page that does not apply (nothing to show). */
+    skipping: skipCurrent,
     answeredCount: answeredLocally.length,
     totalScreens: session?.screens.length ?? 0,
     pending,

@@ -184,6 +184,66 @@ describe('RespondentApp', () => {
     );
   });
 
+  it('goes past a page whose skip rule does not match, sending it as skipped', async () => {
+    const gardenQuestion = {
+      type: 'single' as const,
+      key: 'garden',
+      text: 'Does your home have a garden?',
+      help: '',
+      required: true,
+      options: [
+        { id: 'yes', label: 'Yes' },
+        { id: 'no', label: 'No' },
+      ],
+    };
+    served = {
+      ...session,
+      screens: [
+        session.screens[0],
+        {
+          key: 'q:garden',
+          kind: 'question',
+          screening: false,
+          question: gardenQuestion,
+          decidesSkips: true,
+        },
+        {
+          key: 'page:watering',
+          kind: 'instructions',
+          title: 'About your garden',
+          body: 'The next questions are about watering.',
+          showIf: { questionKey: 'garden', optionIds: ['yes'], min: null, max: null },
+        },
+        session.screens[2],
+      ],
+    };
+    const user = userEvent.setup();
+    render(<RespondentApp publicId="abc123" search="" />);
+    await user.click(await screen.findByLabelText('I agree'));
+    await user.click(screen.getByRole('button', { name: 'Start' }));
+    await user.click(await screen.findByRole('radio', { name: 'No' }));
+    await user.click(screen.getByRole('button', { name: 'Next' }));
+    // Straight on to the next page that applies; the garden page never shows.
+    await screen.findByRole('heading', { name: 'How many people live with you?' });
+    expect(screen.queryByText('About your garden')).toBeNull();
+    await waitFor(() =>
+      expect(
+        calls
+          .filter((c) => c.url.endsWith('/answers'))
+          .map((c) => [
+            (c.body as { screenKey: string }).screenKey,
+            (c.body as { value: unknown }).value,
+          ]),
+      ).toEqual([
+        ['consent', { kind: 'consent', agreed: true }],
+        ['q:garden', { kind: 'single', optionId: 'no' }],
+        ['page:watering', { kind: 'skipped' }],
+      ]),
+    );
+    // The answer the rule read stands: no Back to it.
+    expect(screen.queryByRole('button', { name: 'Back' })).toBeNull();
+  });
+
   it('checks a number answer against its range before saving, then ends on the saved page', async () => {
     const user = userEvent.setup();
     localStorage.setItem('cw:respond:abc123:token', session.sessionToken);

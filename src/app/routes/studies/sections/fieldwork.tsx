@@ -15,6 +15,7 @@ import { SampleFlow } from '@/features/fieldwork/components/sample-flow';
 import { DropOffTable } from '@/features/fieldwork/components/drop-off-table';
 import { CompletesBreakdown } from '@/features/fieldwork/components/completes-breakdown';
 import { DailyChart } from '@/features/fieldwork/components/daily-chart';
+import { QuotaProgressList } from '@/features/fieldwork/components/quota-progress';
 import { InvitationSummary } from '@/features/fieldwork/components/invitation-summary';
 import { InviteeUpload } from '@/features/invitees/components/invitee-upload';
 import { SendPanel } from '@/features/invitees/components/send-panel';
@@ -89,6 +90,11 @@ export function Component() {
           </PanelErrorBoundary>
         </Card>
         <div className="min-w-0 space-y-6">
+          {s.quotas.length > 0 && (
+            <Card title="Quotas">
+              <QuotaProgressList quotas={s.quotas} />
+            </Card>
+          )}
           <Card title="Completes per block and version">
             <CompletesBreakdown stats={s} />
           </Card>

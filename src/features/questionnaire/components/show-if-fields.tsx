@@ -1,0 +1,91 @@
+/**
+ * Skip logic of a page: show it only when the answer to an earlier question matches. The rule
+ * is checked with the rest of the questionnaire (shared/survey/skip-logic.ts) before saving.
+ */
+import { CheckboxField } from '@/components/ui/checkbox-field';
+import { SelectField, TextField } from '@/components/ui/field';
+import type { Question, ShowIf } from '@shared/schemas/questionnaire';
+import { OptionCheckboxes } from './option-checkboxes';
+
+const numberOrNull = (v: string) =>
+  v.trim() === '' || !Number.isFinite(Number(v)) ? null : Number(v);
+
+const emptyRule = (q: Question): ShowIf => ({
+  questionKey: q.key,
+  optionIds: [],
+  min: null,
+  max: null,
+});
+
+export function ShowIfFields({
+  showIf,
+  earlier,
+  onChange,
+}: {
+  showIf: ShowIf | null | undefined;
+  /** Choice and number questions on the pages before this one. */
+  earlier: Question[];
+  onChange: (showIf: ShowIf | null) => void;
+}) {
+  const source = showIf ? earlier.find((q) => q.key === showIf.questionKey) : undefined;
+  return (
+    <div className="space-y-3">
+      <CheckboxField
+        label="Show this page only when an earlier answer matches"
+        checked={!!showIf}
+        disabled={!showIf && earlier.length === 0}
+        onChange={(on) => onChange(on && earlier[0] ? emptyRule(earlier[0]) : null)}
+        hint={
+          earlier.length === 0
+            ? 'Add a choice or number question before this page to make it depend on the answer.'
+            : 'Respondents whose answer does not match go past this page; their answer is stored as skipped. Neither that answer nor this page can be changed through Back afterwards.'
+        }
+      />
+      {showIf && (
+        <div className="space-y-3 border-l-2 border-line pl-4">
+          <SelectField
+            label="When the answer to"
+            value={showIf.questionKey}
+            onChange={(e) => {
+              const q = earlier.find((x) => x.key === e.target.value);
+              if (q) onChange(emptyRule(q));
+            }}
+          >
+            {!source && <option value={showIf.questionKey}>{showIf.questionKey} (missing)</option>}
+            {earlier.map((q) => (
+              <option key={q.key} value={q.key}>
+                {q.text}
+              </option>
+            ))}
+          </SelectField>
+          {source && (source.type === 'single' || source.type === 'multiple') && (
+            <div className="space-y-1" role="group" aria-label="is one of">
+              <p className="text-sm font-medium text-ink">is one of</p>
+              <OptionCheckboxes
+                options={source.options}
+                selected={showIf.optionIds}
+                onChange={(optionIds) => onChange({ ...showIf, optionIds })}
+              />
+            </div>
+          )}
+          {source?.type === 'number' && (
+            <div className="grid grid-cols-2 gap-3">
+              <TextField
+                label="is at least (empty: no limit)"
+                inputMode="decimal"
+                defaultValue={showIf.min ?? ''}
+                onBlur={(e) => onChange({ ...showIf, min: numberOrNull(e.target.value) })}
+              />
+              <TextField
+                label="and at most (empty: no limit)"
+                inputMode="decimal"
+                defaultValue={showIf.max ?? ''}
+                onBlur={(e) => onChange({ ...showIf, max: numberOrNull(e.target.value) })}
+              />
+            </div>
+          )}
+        </div>
+      )}
+    </div>
+  );
+}

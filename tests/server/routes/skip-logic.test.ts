@@ -1,0 +1,147 @@
+/**
+ * Skip logic through the respondent API: a page whose rule does not match is stored as
+ * skipped and may not be answered; a page whose rule matches may not be skipped; the answer a
+ * rule reads stands (no revision) and comes back with the session so a resumed phone skips alike.
+ */
+import { describe, expect, it } from 'vitest';
+import { ownerAppForFile } from '../../support/owner-app';
+import type { Questionnaire, QuestionnairePage } from '../../../shared/schemas/questionnaire';
+import { answerFor, fullQuestionnaire, insertStudy } from './respond-fixtures';
+
+const app = ownerAppForFile();
+const TOKEN = 'x-respondent-token';
+type Screen = Parameters<typeof answerFor>[0];
+type Session = { sessionToken: string; screens: Screen[]; given: Record<string, unknown> };
+
+const garden: QuestionnairePage = {
+  id: 'garden',
+  kind: 'question',
+  question: {
+    type: 'single',
+    key: 'garden',
+    text: 'Does your home have a garden?',
+    help: '',
+    required: true,
+    options: [
+      { id: 'yes', label: 'Yes' },
+      { id: 'no', label: 'No' },
+    ],
+  },
+};
+const watering: QuestionnairePage = {
+  id: 'watering',
+  kind: 'question',
+  question: {
+    type: 'number',
+    key: 'watering_days',
+    text: 'On how many days a week do you water the garden in summer?',
+    help: '',
+    required: true,
+    min: 0,
+    max: 7,
+    integer: true,
+    unit: 'days',
+  },
+  showIf: { questionKey: 'garden', optionIds: ['yes'], min: null, max: null },
+};
+
+/** The fixture's questionnaire with the garden question and its follow-up after screening. */
+function withGardenPages(pages = [garden, watering]): Questionnaire {
+  const q = fullQuestionnaire();
+  return { ...q, pages: [...q.pages.slice(0, 2), ...pages, ...q.pages.slice(2)] };
+}
+
+async function liveSession() {
+  const study = await insertStudy(app.t, app.teamId, { questionnaire: withGardenPages() });
+  await app.owner
+    .post(`/api/teams/${app.teamId}/studies/${study.id}/lifecycle/go-live`)
+    .expect(200);
+  const session: Session = (
+    await app.t.request().post(`/api/r/${study.publicId}/sessions`).send({}).expect(201)
+  ).body;
+  const send = (path: 'answers' | 'revisions', body: object) =>
+    app.t
+      .request()
+      .post(`/api/r/${study.publicId}/${path}`)
+      .set(TOKEN, session.sessionToken)
+      .send(body);
+  // Consent and the screening question first.
+  for (const screen of session.screens.slice(0, 2))
+    await send('answers', answerFor(screen)).expect(201);
+  return { study, session, send };
+}
+
+const screenOf = (s: Session, key: string) => s.screens.find((x) => x.key === key)!;
+
+describe('skip logic', () => {
+  it('sends the rule with the page and marks the question it reads', async () => {
+    const { session } = await liveSession();
+    expect(screenOf(session, 'q:watering_days')).toMatchObject({
+      showIf: { questionKey: 'garden', optionIds: ['yes'] },
+    });
+    expect(screenOf(session, 'q:garden')).toMatchObject({ decidesSkips: true });
+  });
+
+  it('without a garden: the follow-up is skipped, and an answer to it is refused', async () => {
+    const { study, session, send } = await liveSession();
+    const no = { value: { kind: 'single' as const, optionId: 'no' } };
+    await send('answers', answerFor(screenOf(session, 'q:garden'), no)).expect(201);
+    const follow = screenOf(session, 'q:watering_days');
+    const refused = await send('answers', answerFor(follow)).expect(400);
+    expect(refused.body.error).toMatchObject({
+      code: 'invalid_answer',
+      fields: [{ path: 'value', message: 'Skip this page: the earlier answer hides it' }],
+    });
+    const skipped = await send('answers', answerFor(follow, { value: { kind: 'skipped' } }));
+    expect(skipped.status).toBe(201);
+    expect(skipped.body.status).toBe('in_progress');
+    // The answer the rule read stands, and comes back with the session for another phone.
+    const revise = await send(
+      'revisions',
+      answerFor(screenOf(session, 'q:garden'), { value: { kind: 'single', optionId: 'yes' } }),
+    );
+    expect(revise.status).toBe(409);
+    const again = await app.t
+      .request()
+      .get(`/api/r/${study.publicId}/session`)
+      .set(TOKEN, session.sessionToken)
+      .expect(200);
+    expect(again.body.given['q:garden']).toEqual({ kind: 'single', optionId: 'no' });
+  });
+
+  it('with a garden: the follow-up may not be skipped, and its answer is stored', async () => {
+    const { session, send } = await liveSession();
+    const yes = { value: { kind: 'single' as const, optionId: 'yes' } };
+    await send('answers', answerFor(screenOf(session, 'q:garden'), yes)).expect(201);
+    const follow = screenOf(session, 'q:watering_days');
+    const refused = await send('answers', answerFor(follow, { value: { kind: 'skipped' } }));
+    expect(refused.status).toBe(400);
+    expect(refused.body.error.message).toBe('This question applies to you: please answer it.');
+    await send('answers', answerFor(follow, { value: { kind: 'number', number: 3 } })).expect(201);
+  });
+
+  it('refuses a skip of a page without a rule', async () => {
+    const { session, send } = await liveSession();
+    const res = await send(
+      'answers',
+      answerFor(screenOf(session, 'q:garden'), { value: { kind: 'skipped' } }),
+    );
+    expect(res.status).toBe(400);
+    expect(res.body.error.message).toBe('This screen cannot be skipped.');
+  });
+
+  it('refuses a rule that reads a later question, and saves nothing', async () => {
+    const study = await insertStudy(app.t, app.teamId);
+    const url = `/api/teams/${app.teamId}/studies/${study.id}/questionnaire`;
+    const before = (await app.owner.get(url).expect(200)).body;
+    const res = await app.owner
+      .put(url)
+      .send({ questionnaire: withGardenPages([watering, garden]) })
+      .expect(400);
+    expect(res.body.error.fields).toContainEqual({
+      path: 'questionnaire.pages.2.showIf.questionKey',
+      message: '"garden" comes after this page: a page can depend only on earlier questions',
+    });
+    expect((await app.owner.get(url).expect(200)).body).toEqual(before);
+  });
+});

@@ -2,6 +2,41 @@ import js from '@eslint/js';
 import tseslint from 'typescript-eslint';
 import reactHooks from 'eslint-plugin-react-hooks';
 import globals from 'globals';
+import { readdirSync } from 'node:fs';
+
+// Client boundaries (DEVELOPERS.md): a feature imports no other feature, and the shared layers
+// (components, lib, hooks, config, utils) import no feature; route modules in src/app compose
+// features. The one exception: a feature's query-key factory (api/<name>-keys.ts) is public,
+// because a mutation invalidates what it changed in other features' caches.
+const features = readdirSync(`${import.meta.dirname}/src/features`, { withFileTypes: true })
+  .filter((d) => d.isDirectory())
+  .map((d) => d.name);
+const featureBoundaries = features.map((feature) => ({
+  files: [`src/features/${feature}/**/*.{ts,tsx}`],
+  rules: {
+    'no-restricted-imports': [
+      'error',
+      {
+        patterns: [
+          {
+            regex: `^@/features/(?!${feature}/)(?![^/]+/api/[^/]+-keys$)`,
+            message:
+              'Features do not import other features; compose them in a route module (src/app).',
+          },
+          {
+            // Inside a feature, relative imports stay one level up (api, components, hooks, utils).
+            regex: '^(\\.\\./){2,}',
+            message: 'Import shared code through @/…; relative imports stay inside the feature.',
+          },
+          {
+            group: ['**/app/**', '@/app/**'],
+            message: 'Features do not import the app shell or route modules.',
+          },
+        ],
+      },
+    ],
+  },
+}));
 
 export default tseslint.config(
   {
@@ -32,6 +67,23 @@ export default tseslint.config(
         {
           selector: "MemberExpression[object.name='process'][property.name='env']",
           message: 'Read configuration through server/env.ts.',
+        },
+      ],
+    },
+  },
+  ...featureBoundaries,
+  {
+    files: ['src/{components,lib,hooks,config,utils}/**/*.{ts,tsx}'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              group: ['@/features/**', '**/features/**', '@/app/**', '**/app/**'],
+              message: 'Shared layers import no feature and no route module.',
+            },
+          ],
         },
       ],
     },

@@ -108,6 +108,7 @@ export default defineConfig({
         extends: true,
         test: {
           name: 'api',
+          isolate: false,
           include: ['tests/{server,db}/**/*.test.{ts,tsx}'],
           globalSetup: ['tests/wasm-setup.ts', 'tests/global-setup.ts'],
         },

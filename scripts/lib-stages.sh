@@ -1,6 +1,9 @@
 # Stage timing and parallel jobs for scripts/test.sh.
 STAGE_NAMES=()
 STAGE_SECONDS=()
+STAGE_DETAILS=()
+# Set by parallel(): each job's time, printed under its stage in the summary.
+PARALLEL_DETAIL=""
 RUN_STARTED=$(date +%s)
 
 # stage NAME CMD...: run CMD under a heading and record its wall time (a failed stage too, so
@@ -11,9 +14,11 @@ stage() {
   shift
   echo "== $name"
   t0=$(date +%s)
+  PARALLEL_DETAIL=""
   "$@" || rc=$?
   STAGE_NAMES+=("$name$([ $rc -eq 0 ] || echo " (FAILED)")")
   STAGE_SECONDS+=($(($(date +%s) - t0)))
+  STAGE_DETAILS+=("$PARALLEL_DETAIL")
   return $rc
 }
 
@@ -39,6 +44,7 @@ parallel() {
     wait "${pids[$i]}" || failed=1
     read -r rc secs <"$dir/$((i + 1)).rc"
     echo "-- ${labels[$i]}: exit $rc in ${secs} s"
+    PARALLEL_DETAIL+="$(printf '    %-50s %5d s%s' "${labels[$i]}" "$secs" "$([ "$rc" -eq 0 ] || echo " (FAILED)")")"$'\n'
     cat "$dir/$((i + 1)).log"
   done
   rm -rf "$dir"
@@ -51,6 +57,7 @@ print_stage_times() {
   echo "== time per stage (load average $(cut -d' ' -f1-3 /proc/loadavg))"
   for i in "${!STAGE_NAMES[@]}"; do
     printf '  %-52s %5d s\n' "${STAGE_NAMES[$i]}" "${STAGE_SECONDS[$i]}"
+    printf '%s' "${STAGE_DETAILS[$i]:-}"
   done
   printf '  %-52s %5d s\n' "total" $(($(date +%s) - RUN_STARTED))
   return $rc

@@ -1,8 +1,9 @@
 #!/usr/bin/env bash
 # Every test, from a fresh machine: installs what is missing (npm ci, PostgreSQL and Chromium
-# from Debian's packages), then typecheck, lint, format check and the production build side by
-# side, the unit project (no database) and the API project (real PostgreSQL) of vitest, and the
-# Playwright journeys in Debian's Chromium. Prints the time of every stage at the end.
+# from Debian's packages), then typecheck, lint, format check, the production build and vitest's
+# unit project (no database) side by side, vitest's API project (real PostgreSQL), and the
+# Playwright journeys in Debian's Chromium. Prints the time of every stage (and of each job of a
+# parallel stage) at the end.
 set -euo pipefail
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 cd "$ROOT"
@@ -26,15 +27,17 @@ start_services() {
 }
 stage "database and fake mail" start_services
 
-# Single-threaded or short jobs share the two cores; each one's output is shown when it ends,
-# and the stage fails if any of them fails. The audit: production packages may have no high or
-# critical advisory (scripts/audit.sh).
-stage "audit, typecheck, lint, format, build" parallel \
+# Jobs that need no database share the cores; each one's output is shown when it ends, and the
+# stage fails if any of them fails. The audit: production packages may have no high or critical
+# advisory (scripts/audit.sh). The unit project builds the WebAssembly kernel (its global setup)
+# before its tests, so the API project finds it built.
+stage "audit, typecheck, lint, format, build, unit tests" parallel \
   "dependency audit" "bash scripts/audit.sh" \
   "typecheck" "npx tsc --noEmit -p ." \
   "lint" "npx eslint . --max-warnings=0" \
   "format" "npx prettier --check . --log-level warn" \
-  "build" "npx vite build --logLevel warn"
-stage "vitest (unit and API projects)" npx vitest run
+  "build" "npx vite build --logLevel warn" \
+  "vitest unit project (no database)" "npx vitest run --project unit"
+stage "vitest API project (PostgreSQL)" npx vitest run --project api
 stage "end-to-end journeys (Playwright, Debian chromium)" npx playwright test
 echo "== all tests passed"

@@ -8,6 +8,7 @@ import { loadEnv } from './env';
 import { createLogger } from './lib/logger';
 import { createProcessDb } from './lib/database';
 import { installProcessGuards } from './lib/process-guards';
+import { stopOnSignals } from './lib/stop-on-signals';
 import { migrateDb } from '../db/client';
 import { createMailer } from './mail/mailer';
 import { createApp } from './app';
@@ -28,19 +29,12 @@ async function main() {
   const server = app.listen(env.PORT, env.HOST, () => {
     logger.info({ pid: process.pid }, `Choicewright listening on ${env.APP_URL}`);
   });
-  let stopping = false;
-  const shutdown = async (signal: string) => {
-    if (stopping) return;
-    stopping = true;
-    logger.info({ signal }, 'shutting down');
-    server.close();
-    await stopBackground();
-    mailer.close();
-    await pool.end();
-    process.exit(0);
-  };
-  process.on('SIGINT', () => void shutdown('SIGINT'));
-  process.on('SIGTERM', () => void shutdown('SIGTERM'));
+  stopOnSignals(logger, 'shutting down', [
+    () => void server.close(),
+    stopBackground,
+    () => mailer.close(),
+    () => pool.end(),
+  ]);
 }
 
 main().catch((err) => {

@@ -7,6 +7,7 @@ import { loadEnv } from './env';
 import { createLogger } from './lib/logger';
 import { createProcessDb } from './lib/database';
 import { installProcessGuards } from './lib/process-guards';
+import { stopOnSignals } from './lib/stop-on-signals';
 import { migrateDb } from '../db/client';
 import { createMailer } from './mail/mailer';
 import { startBackgroundServices } from './jobs/background';
@@ -23,18 +24,7 @@ async function main() {
   const mailer = createMailer(env);
   const stop = await startBackgroundServices({ env, db, logger, mailer }, { embeddedWorker: true });
   logger.info({ pid: process.pid }, 'Choicewright worker running');
-  let stopping = false;
-  const shutdown = async (signal: string) => {
-    if (stopping) return;
-    stopping = true;
-    logger.info({ signal }, 'worker shutting down');
-    await stop();
-    mailer.close();
-    await pool.end();
-    process.exit(0);
-  };
-  process.on('SIGINT', () => void shutdown('SIGINT'));
-  process.on('SIGTERM', () => void shutdown('SIGTERM'));
+  stopOnSignals(logger, 'worker shutting down', [stop, () => mailer.close(), () => pool.end()]);
 }
 
 main().catch((err) => {

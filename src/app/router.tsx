@@ -5,7 +5,7 @@
 import { createBrowserRouter } from 'react-router';
 import type { QueryClient } from '@tanstack/react-query';
 import { paths } from '@/config/paths';
-import { AppShell } from '@/components/layout/app-shell';
+import { AppShell } from './app-shell';
 import { HomeRedirect, RequireAuth } from './routes/require-auth';
 import { NotFound } from './routes/not-found';
 import { getSectionRoutes } from './routes/studies/section-modules';

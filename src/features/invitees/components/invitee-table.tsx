@@ -2,6 +2,7 @@
 import { useState } from 'react';
 import type { InviteeState } from '@shared/schemas/invitees';
 import { Button } from '@/components/ui/button';
+import { Pagination } from '@/components/ui/pagination';
 import { SelectField, TextField } from '@/components/ui/field';
 import { Spinner } from '@/components/ui/feedback';
 import { useConfirm } from '@/components/ui/confirm-dialog';
@@ -150,27 +151,11 @@ export function InviteeTable({
         </div>
       )}
       {list.data && pages > 1 && (
-        <nav aria-label="Invitee pages" className="flex items-center justify-end gap-2 text-sm">
-          <Button
-            size="sm"
-            variant="secondary"
-            disabled={page <= 1}
-            onClick={() => setPage(page - 1)}
-          >
-            Previous
-          </Button>
+        <Pagination label="Invitee pages" page={page} pages={pages} onPage={setPage}>
           <span className="num text-ink-soft">
             {page} / {pages}
           </span>
-          <Button
-            size="sm"
-            variant="secondary"
-            disabled={page >= pages}
-            onClick={() => setPage(page + 1)}
-          >
-            Next
-          </Button>
-        </nav>
+        </Pagination>
       )}
     </div>
   );

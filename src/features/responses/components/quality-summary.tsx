@@ -9,7 +9,7 @@ import {
   type ResponsesSummary,
 } from '@shared/schemas/responses';
 import { cn } from '@/lib/cn';
-import { formatDuration } from '../utils/labels';
+import { formatDuration } from '@/utils/format';
 
 export function QualitySummary({
   summary,

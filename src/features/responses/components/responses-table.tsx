@@ -5,7 +5,8 @@
 import type { ResponseList } from '@shared/schemas/responses';
 import { FlagBadges } from './flag-badges';
 import { InclusionCell } from './inclusion-cell';
-import { formatDuration, statusLabels } from '../utils/labels';
+import { formatDuration } from '@/utils/format';
+import { statusLabels } from '../utils/labels';
 
 const when = (iso: string) => iso.slice(0, 16).replace('T', ' ');
 

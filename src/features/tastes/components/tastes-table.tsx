@@ -5,7 +5,7 @@
  * Sorting and paging happen on the server; headers of means are sort buttons too.
  */
 import { Link } from 'react-router';
-import { Button } from '@/components/ui/button';
+import { PageButtons } from '@/components/ui/pagination';
 import type { TasteList } from '@shared/schemas/tastes';
 import type { TastesQuery } from '../api/list-tastes';
 import { formatNumber } from '@/utils/format';
@@ -201,22 +201,7 @@ export function TastesTable({
               ))}
             </select>
           </label>
-          <Button
-            size="sm"
-            variant="secondary"
-            disabled={data.page <= 1}
-            onClick={() => onChange({ page: data.page - 1 })}
-          >
-            Previous
-          </Button>
-          <Button
-            size="sm"
-            variant="secondary"
-            disabled={data.page >= pages}
-            onClick={() => onChange({ page: data.page + 1 })}
-          >
-            Next
-          </Button>
+          <PageButtons page={data.page} pages={pages} onPage={(p) => onChange({ page: p })} />
         </div>
       </nav>
     </div>

@@ -8,7 +8,7 @@ import { useParams } from 'react-router';
 import type { ListResponsesQuery, QualityFlagKey } from '@shared/schemas/responses';
 import { Alert, EmptyState, Spinner } from '@/components/ui/feedback';
 import { ErrorText, PanelErrorBoundary } from '@/components/ui/error-boundary';
-import { Button } from '@/components/ui/button';
+import { Pagination } from '@/components/ui/pagination';
 import { SelectField } from '@/components/ui/field';
 import { useCurrentTeam } from '@/features/auth/hooks/use-current-team';
 import { useResponses } from '@/features/responses/api/list-responses';
@@ -162,30 +162,11 @@ export function Component() {
             </>
           )}
           {pages > 1 && (
-            <nav
-              aria-label="Respondent pages"
-              className="flex items-center justify-end gap-2 text-sm"
-            >
-              <Button
-                size="sm"
-                variant="secondary"
-                disabled={page <= 1}
-                onClick={() => setPage(page - 1)}
-              >
-                Previous
-              </Button>
+            <Pagination label="Respondent pages" page={page} pages={pages} onPage={setPage}>
               <span className="num text-ink-soft">
                 {page} / {pages} · {data.total} respondents
               </span>
-              <Button
-                size="sm"
-                variant="secondary"
-                disabled={page >= pages}
-                onClick={() => setPage(page + 1)}
-              >
-                Next
-              </Button>
-            </nav>
+            </Pagination>
           )}
         </>
       )}

@@ -3,7 +3,7 @@ import { paths } from '@/config/paths';
 import { cn } from '@/lib/cn';
 import { useMe } from '@/features/auth/api/get-me';
 import { useSignOut } from '@/features/auth/api/sign-out';
-import { Brand } from './brand';
+import { Brand } from '@/components/layout/brand';
 
 const navClass = ({ isActive }: { isActive: boolean }) =>
   cn(

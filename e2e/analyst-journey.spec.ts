@@ -86,7 +86,7 @@ test('an analyst runs a mixed logit, splits tastes by a background question and 
       .getByRole('link', { name: /Shares/ })
       .first()
       .click();
-    await expect(page.getByRole('heading', { name: 'Shares' })).toBeVisible();
+    await expect(page.getByRole('heading', { name: 'Shares', exact: true })).toBeVisible();
     await expect(page.getByText('Predicted shares', { exact: true })).toBeVisible();
     await expect(page.getByText(/95 % intervals from 200 draws of each respondent/)).toBeVisible();
     await page.getByRole('button', { name: 'Compute welfare' }).click();

@@ -37,7 +37,7 @@ import {
   exportEstimateTablesXlsx,
 } from '../services/exports/estimate-tables-export';
 
-async function send(
+export async function send(
   deps: AppDeps,
   req: Request,
   res: Response,

@@ -9,6 +9,7 @@ import { parseBody, parseParams, parseQuery } from '../middleware/validate';
 import { actorOf, memberOf, requireTeam, requireUser } from '../middleware/auth';
 import { studyParamsSchema } from '../services/study-access';
 import {
+  shareExportSchema,
   scenarioBodySchema,
   scenarioParamsSchema,
   shareGroupsQuerySchema,
@@ -16,6 +17,8 @@ import {
   simulateSharesSchema,
 } from '../../shared/schemas/shares';
 import { getShareGroups, getShareModel, simulateStudyShares } from '../services/shares';
+import { exportShares } from '../services/shares/share-export';
+import { send as sendDownload } from './exports';
 import {
   createScenario,
   listScenarios,
@@ -40,6 +43,12 @@ export function createSharesRouter(deps: AppDeps): Router {
     const { studyId } = parseParams(studyParamsSchema, req);
     const input = parseBody(simulateSharesSchema, req);
     res.json(await simulateStudyShares(deps, memberOf(req), studyId, input));
+  });
+  // A download built from the scenario in the body (which need not be saved): POST, not GET.
+  router.post('/export', requireTeam(deps, 'exports:read'), async (req, res) => {
+    const { studyId } = parseParams(studyParamsSchema, req);
+    const input = parseBody(shareExportSchema, req);
+    await sendDownload(deps, req, res, await exportShares(deps, memberOf(req), studyId, input));
   });
   router.get('/scenarios', requireTeam(deps, 'runs:read'), async (req, res) => {
     const { teamId, studyId } = parseParams(studyParamsSchema, req);

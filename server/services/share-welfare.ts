@@ -14,7 +14,7 @@ import { propagateUncertainty, quantile } from '../engine/estimation/propagate-u
 import { computeCompensatingVariation, meanOfFinite } from '../../shared/engine/shares/welfare';
 import type { ShareMethod, ShareWelfare } from '../../shared/schemas/shares';
 import type { RunContext } from './tastes/run-context';
-import { covarianceOf, shareSeedOf } from './shares/share-model';
+import { covarianceOf, estimateNamesOf, shareSeedOf } from './shares/share-model';
 
 const RESAMPLES = 1000;
 const KR_DRAWS = 2000;
@@ -82,7 +82,7 @@ export function computeShareWelfare(ctx: RunContext, s: WelfareScenario): Welfar
       return note('The cost coefficient is not negative, so there is no money measure.');
     const cv = (theta: Float64Array) =>
       computeCompensatingVariation({ ...base, respondents: 1, betas: theta });
-    const [r] = propagateUncertainty(cv, s.betas, covarianceOf(ctx, names), {
+    const [r] = propagateUncertainty(cv, s.betas, covarianceOf(ctx, estimateNamesOf(ctx)), {
       draws: KR_DRAWS,
       seed,
     });

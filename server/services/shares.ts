@@ -42,7 +42,7 @@ export async function getShareModel(
 }
 
 /** Segments in the model's respondent order (profiles by start time, as listRunProfiles). */
-async function groupsOf(
+export async function loadShareGroups(
   deps: AppDeps,
   ctx: RunContext,
   profiles: readonly { respondentId: string }[],
@@ -70,7 +70,7 @@ export async function getShareGroups(
     throw new ValidationError('A run with one set of coefficients for everybody has no segments.', [
       { path: 'runId', message: 'Choose a run with individual estimates' },
     ]);
-  return groupsOf(deps, ctx, profiles, query);
+  return loadShareGroups(deps, ctx, profiles, query);
 }
 
 /** The prepared model of a run (with interval draws), for exports and server simulations. */
@@ -99,7 +99,9 @@ export async function simulateStudyShares(
   const prepared = prepareShareModel({ ...model, interval: null });
   const usesProfiles = model.method !== 'point_estimates';
   const groups =
-    input.segmentBy && usesProfiles ? await groupsOf(deps, ctx, profiles, input.segmentBy) : null;
+    input.segmentBy && usesProfiles
+      ? await loadShareGroups(deps, ctx, profiles, input.segmentBy)
+      : null;
   let result;
   try {
     result = computeScenarioShares(

@@ -15,42 +15,70 @@ export const scenarioAlternativeSchema = z.object({
 });
 export type ScenarioAlternative = z.infer<typeof scenarioAlternativeSchema>;
 
-export const simulateSharesSchema = z
-  .object({
-    runId: z.uuid('Choose a finished run'),
-    alternatives: z
-      .array(scenarioAlternativeSchema)
-      .min(2, 'Define at least 2 alternatives')
-      .max(5, 'At most 5 alternatives'),
-    /** Add the study's opt-out / status quo to the scenario. */
-    includeFixed: z.boolean().default(true),
-    /**
-     * Shares per segment as well: by the answer to a single-choice question, a task's choice,
-     * or (latent class runs) the respondent's likeliest class.
-     */
-    segmentBy: z
-      .object({
-        groupBy: z.enum(['task', 'question', 'class']),
-        task: z.number().int().min(1).optional(),
-        question: z
-          .string()
-          .regex(/^[a-z][a-z0-9_]{0,39}$/)
-          .optional(),
-      })
-      .nullable()
-      .default(null),
+const simulateSharesObject = z.object({
+  runId: z.uuid('Choose a finished run'),
+  alternatives: z
+    .array(scenarioAlternativeSchema)
+    .min(2, 'Define at least 2 alternatives')
+    .max(5, 'At most 5 alternatives'),
+  /** Add the study's opt-out / status quo to the scenario. */
+  includeFixed: z.boolean().default(true),
+  /**
+   * Shares per segment as well: by the answer to a single-choice question, a task's choice,
+   * or (latent class runs) the respondent's likeliest class.
+   */
+  segmentBy: z
+    .object({
+      groupBy: z.enum(['task', 'question', 'class']),
+      task: z.number().int().min(1).optional(),
+      question: z
+        .string()
+        .regex(/^[a-z][a-z0-9_]{0,39}$/)
+        .optional(),
+    })
+    .nullable()
+    .default(null),
+});
+
+function refineSegment(
+  v: { segmentBy: { groupBy: string; task?: number; question?: string } | null },
+  ctx: z.RefinementCtx,
+) {
+  const s = v.segmentBy;
+  if (s?.groupBy === 'task' && s.task === undefined)
+    ctx.addIssue({ code: 'custom', path: ['segmentBy', 'task'], message: 'Choose a task' });
+  if (s?.groupBy === 'question' && s.question === undefined)
+    ctx.addIssue({
+      code: 'custom',
+      path: ['segmentBy', 'question'],
+      message: 'Choose a question',
+    });
+}
+
+export const simulateSharesSchema = simulateSharesObject.superRefine(refineSegment);
+
+/** A demand curve: one alternative's share as one attribute moves across its range. */
+export const sweepSchema = z.object({
+  /** Which of the scenario's alternatives moves (0-based). */
+  alternative: z.number().int().min(0).max(4),
+  attributeId: elementIdSchema,
+  /** Points of a linear sweep (a categorical attribute is swept over its levels). */
+  points: z.number().int().min(2).max(41).default(11),
+});
+export type SweepInput = z.input<typeof sweepSchema>;
+
+/** A scenario (and optionally its demand curve) as a file (POST …/shares/export). */
+export const shareExportSchema = simulateSharesObject
+  .extend({
+    /** The scenario's name for the file (a saved scenario's name, or none). */
+    name: z.string().trim().max(80).default(''),
+    sweep: sweepSchema.nullable().default(null),
+    format: z.enum(['csv', 'xlsx']),
   })
-  .superRefine((v, ctx) => {
-    const s = v.segmentBy;
-    if (s?.groupBy === 'task' && s.task === undefined)
-      ctx.addIssue({ code: 'custom', path: ['segmentBy', 'task'], message: 'Choose a task' });
-    if (s?.groupBy === 'question' && s.question === undefined)
-      ctx.addIssue({
-        code: 'custom',
-        path: ['segmentBy', 'question'],
-        message: 'Choose a question',
-      });
-  });
+  .superRefine(refineSegment);
+export type ShareExportInput = z.input<typeof shareExportSchema>;
+export type ShareExport = z.output<typeof shareExportSchema>;
+
 export type SimulateSharesInput = z.input<typeof simulateSharesSchema>;
 export type SimulateShares = z.output<typeof simulateSharesSchema>;
 

@@ -26,7 +26,14 @@ type Options = {
   body?: unknown;
   signal?: AbortSignal;
   headers?: Record<string, string>;
+  /** 'file': a download; resolves to the body as a Blob with the server's file name. */
+  as?: 'json' | 'file';
 };
+
+export type DownloadedFile = { blob: Blob; filename: string };
+
+const fileNameOf = (res: Response) =>
+  /filename="([^"]+)"/.exec(res.headers.get('Content-Disposition') ?? '')?.[1] ?? 'download';
 
 export async function apiRequest<T>(path: string, opts: Options = {}): Promise<T> {
   const isForm = typeof FormData !== 'undefined' && opts.body instanceof FormData;
@@ -57,6 +64,8 @@ export async function apiRequest<T>(path: string, opts: Options = {}): Promise<T
     );
   }
   if (res.status === 204) return undefined as T;
+  if (res.ok && opts.as === 'file')
+    return { blob: await res.blob(), filename: fileNameOf(res) } as T;
   const data = await res.json().catch(() => null);
   if (!res.ok) {
     const e = data?.error;
@@ -82,6 +91,9 @@ export const api = {
     apiRequest<T>(path, { method: 'PATCH', body: body ?? {} }),
   delete: <T>(path: string) => apiRequest<T>(path, { method: 'DELETE' }),
   upload: <T>(path: string, form: FormData) => apiRequest<T>(path, { method: 'POST', body: form }),
+  /** POST that answers with a file (a download built from the request body). */
+  postForFile: (path: string, body: unknown) =>
+    apiRequest<DownloadedFile>(path, { method: 'POST', body, as: 'file' }),
 };
 
 /** Copies server field issues into a react-hook-form form. */

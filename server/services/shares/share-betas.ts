@@ -38,6 +38,8 @@ export function getShareBetas(
   ctx: Pick<RunContext, 'run' | 'results'>,
   profiles: readonly Pick<ProfileRow, 'mean' | 'extra'>[],
   names: readonly string[],
+  /** Names of the point estimates (MNL runs name them by data column); default `names`. */
+  estimateNames: readonly string[] = names,
 ): ShareBetas {
   const K = names.length;
   const method = METHOD_OF_MODEL[ctx.run.model];
@@ -70,7 +72,7 @@ export function getShareBetas(
     return { method, N, D: 1, betas };
   }
   const betas = Float64Array.from(
-    names,
+    estimateNames,
     (name) => ctx.results.estimates.find((e) => e.name === name)?.estimate ?? 0,
   );
   return { method: 'point_estimates', N: 1, D: 1, betas };

@@ -12,6 +12,18 @@ import type { ShareModel } from '../../../shared/schemas/shares';
 import type { RunContext } from '../tastes/run-context';
 import { getShareBetas } from './share-betas';
 
+/**
+ * The names the run's estimates and covariance carry, in coefficient order: an MNL run names
+ * them by data column ("attr:bill"), a mixed logit by coefficient name; each is looked up as
+ * the coefficient's name first, then its column.
+ */
+export function estimateNamesOf(ctx: Pick<RunContext, 'spec' | 'results'>): string[] {
+  const known = new Set((ctx.results.estimates ?? []).map((e) => e.name));
+  return ctx.spec.coefficients.map((c) =>
+    known.has(c.name) || !c.column || !known.has(c.column) ? c.name : c.column,
+  );
+}
+
 /** The estimates' covariance in coefficient order, or null when any entry is unknown. */
 export function covarianceOf(ctx: RunContext, names: readonly string[]): Float64Array | null {
   const cov = ctx.results.covariance;
@@ -41,7 +53,8 @@ export function buildShareModel(
 ): ShareModel {
   const names = ctx.spec.coefficients.map((c) => c.name);
   const K = names.length;
-  const { method, N, D, betas, drawWeights } = getShareBetas(ctx, profiles, names);
+  const estimateNames = estimateNamesOf(ctx);
+  const { method, N, D, betas, drawWeights } = getShareBetas(ctx, profiles, names, estimateNames);
   const lognormal = (name: string) =>
     /lognormal/.test(ctx.results.population.find((p) => p.name === name)?.distribution ?? '');
   const base = {
@@ -62,7 +75,7 @@ export function buildShareModel(
     sampleRespondents: method === 'point_estimates' ? ctx.results.respondents : N,
   };
   if (method === 'point_estimates') {
-    const cov = covarianceOf(ctx, names);
+    const cov = covarianceOf(ctx, estimateNames);
     const lower = new Float64Array(K * K);
     const ok = cov !== null && choleskyDecompose(cov, K, lower);
     return {

@@ -1,4 +1,10 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import ExcelJS from 'exceljs';
+import { parse } from 'csv-parse/sync';
+import {
+  computeScenarioShares,
+  prepareShareModel,
+} from '../../../shared/engine/shares/share-model';
 import { createTestApp, type TestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import {
@@ -254,5 +260,108 @@ describe('GET /shares/groups', () => {
     expect(res.body.error.code).toBe(code);
     expect(res.body.error.message).toEqual(expect.any(String));
     expect(res.body.error.fields.map((f: { path: string }) => f.path)).toContain(field);
+  });
+});
+
+describe('POST /shares/export', () => {
+  const exportUrl = () => url.replace(/simulate$/, 'export');
+  const modelUrl = () => url.replace(/simulate$/, 'model');
+  const scenario = {
+    alternatives: [
+      { name: 'A', alternative: 0, levels: levels('good', 'b10') },
+      { name: 'B', alternative: 0, levels: levels('fair', 'b3') },
+    ],
+    includeFixed: true,
+  };
+  const binary = (res: NodeJS.ReadableStream, cb: (e: Error | null, b: Buffer) => void) => {
+    const chunks: Buffer[] = [];
+    res.on('data', (c: Buffer) => chunks.push(c));
+    res.on('end', () => cb(null, Buffer.concat(chunks)));
+  };
+
+  it('writes the shares the browser computes from the share model (one implementation)', async () => {
+    const model = (
+      await team.agents.viewer.get(modelUrl()).query({ runId: seeded.runId }).expect(200)
+    ).body;
+    const expected = computeScenarioShares(prepareShareModel(model), scenario);
+    const res = await team.agents.viewer
+      .post(exportUrl())
+      .send({ runId: seeded.runId, ...scenario, format: 'csv' })
+      .expect(200);
+    expect(res.headers['content-type']).toMatch(/^text\/csv/);
+    expect(res.headers['content-disposition']).toMatch(/shares-\d{4}-\d{2}-\d{2}\.csv"$/);
+    const rows = parse(res.text, { columns: true }) as Record<string, string>[];
+    expect(rows.map((r) => r.alternative)).toEqual(['A', 'B', 'Current service']);
+    rows.forEach((r, j) => {
+      expect(Number(r.share)).toBeCloseTo(expected.shares[j], 12);
+      expect(Number(r.lower95)).toBeCloseTo(expected.lower![j], 12);
+      expect(Number(r.upper95)).toBeCloseTo(expected.upper![j], 12);
+    });
+    expect(rows.reduce((s, r) => s + Number(r.share), 0)).toBeCloseTo(1, 12);
+  });
+
+  it('writes a demand curve as CSV and the whole scenario as XLSX', async () => {
+    const sweep = { alternative: 0, attributeId: 'bill', points: 16 };
+    const csv = await team.agents.analyst
+      .post(exportUrl())
+      .send({ runId: seeded.runId, ...scenario, sweep, format: 'csv' })
+      .expect(200);
+    expect(csv.headers['content-disposition']).toMatch(/demand-curve-/);
+    const curve = parse(csv.text, { columns: true }) as Record<string, string>[];
+    expect(curve.map((r) => Number(r.value))).toEqual(Array.from({ length: 16 }, (_, i) => i));
+    // Every bill coefficient is negative: the share falls as the bill rises.
+    for (let i = 1; i < curve.length; i++)
+      expect(Number(curve[i].share)).toBeLessThan(Number(curve[i - 1].share));
+    const xlsx = await team.agents.owner
+      .post(exportUrl())
+      .send({
+        runId: seeded.runId,
+        ...scenario,
+        name: 'River first',
+        sweep,
+        segmentBy: { groupBy: 'task', task: 1 },
+        format: 'xlsx',
+      })
+      .buffer(true)
+      .parse(binary as never)
+      .expect(200);
+    const workbook = new ExcelJS.Workbook();
+    await workbook.xlsx.load(xlsx.body as Parameters<typeof workbook.xlsx.load>[0]);
+    expect(workbook.worksheets.map((w) => w.name)).toEqual([
+      'About',
+      'Shares',
+      'Segments',
+      'Demand curve',
+      'Codebook',
+    ]);
+    expect(workbook.getWorksheet('Demand curve')!.rowCount).toBe(17);
+    const about = workbook.getWorksheet('About')!.getColumn(2).values.join(' ');
+    expect(about).toContain('River first');
+    expect(about).toMatch(/conditional distribution/);
+  });
+
+  it.each([
+    [{}, 'format'],
+    [{ format: 'pdf' }, 'format'],
+    [{ format: 'csv', sweep: { alternative: 0, attributeId: 'colour' } }, 'sweep.attributeId'],
+    [{ format: 'csv', sweep: { alternative: 4, attributeId: 'bill' } }, 'sweep.alternative'],
+    [
+      { format: 'csv', sweep: { alternative: 0, attributeId: 'bill', points: 500 } },
+      'sweep.points',
+    ],
+  ])('when the body adds %o, returns 400 naming %s', async (extra, field) => {
+    const res = await team.agents.analyst
+      .post(exportUrl())
+      .send({ runId: seeded.runId, ...scenario, ...extra })
+      .expect(400);
+    expect(res.body.error.code).toBe('invalid_input');
+    expect(res.body.error.message).toEqual(expect.any(String));
+    expect(res.body.error.fields.map((f: { path: string }) => f.path)).toContain(field);
+  });
+
+  it('returns 404 to an outsider and 401 without a session', async () => {
+    const body = { runId: seeded.runId, ...scenario, format: 'csv' };
+    await team.outsider.post(exportUrl()).send(body).expect(404);
+    await t.request().post(exportUrl()).send(body).expect(401);
   });
 });

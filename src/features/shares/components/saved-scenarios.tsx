@@ -73,34 +73,36 @@ export function SavedScenarios({
                 {s.createdBy ? ` · ${s.createdBy}` : ''}
               </td>
               <td className="px-2 py-1 text-right whitespace-nowrap">
-                <Button
-                  variant="ghost"
-                  size="sm"
-                  onClick={() => onLoad(s)}
-                  aria-label={`Load ${s.name}`}
-                >
-                  Load
-                </Button>
-                {canWrite && (
+                <div className="flex flex-col items-end sm:flex-row sm:justify-end">
                   <Button
                     variant="ghost"
                     size="sm"
-                    aria-label={`Delete ${s.name}`}
-                    onClick={async () => {
-                      if (
-                        await confirm({
-                          title: `Delete “${s.name}”?`,
-                          body: 'The saved scenario is removed for the whole team.',
-                          confirmLabel: 'Delete scenario',
-                          danger: true,
-                        })
-                      )
-                        onDelete(s);
-                    }}
+                    onClick={() => onLoad(s)}
+                    aria-label={`Load ${s.name}`}
                   >
-                    Delete
+                    Load
                   </Button>
-                )}
+                  {canWrite && (
+                    <Button
+                      variant="ghost"
+                      size="sm"
+                      aria-label={`Delete ${s.name}`}
+                      onClick={async () => {
+                        if (
+                          await confirm({
+                            title: `Delete “${s.name}”?`,
+                            body: 'The saved scenario is removed for the whole team.',
+                            confirmLabel: 'Delete scenario',
+                            danger: true,
+                          })
+                        )
+                          onDelete(s);
+                      }}
+                    >
+                      Delete
+                    </Button>
+                  )}
+                </div>
               </td>
             </tr>
           ))}

@@ -10,11 +10,14 @@ import {
   LinearScale,
   Tooltip,
 } from 'chart.js';
+import type { RefObject } from 'react';
+import type { Chart } from 'chart.js';
 import { Bar } from 'react-chartjs-2';
 import type { ShareGroups } from '@shared/schemas/shares';
 import type { ScenarioShares } from '@shared/engine/shares/share-model';
 import { formatCount, formatInterval, formatPercent } from '@/utils/format';
 import { okabeIto } from '@/components/charts/palette';
+import { whiteBackground } from '@/components/charts/chart-png';
 
 ChartJS.register(BarController, BarElement, CategoryScale, LinearScale, Tooltip);
 
@@ -24,7 +27,9 @@ export function ShareResults({
   result,
   respondents,
   segments,
+  chartRef,
 }: {
+  chartRef?: RefObject<Chart | null>;
   result: ScenarioShares;
   respondents: number;
   segments: ShareGroups | null;
@@ -46,6 +51,8 @@ export function ShareResults({
     <div className="space-y-4">
       <div style={{ height: 56 + 44 * names.length }}>
         <Bar
+          ref={chartRef as never}
+          plugins={[whiteBackground]}
           role="img"
           aria-label={`Predicted shares: ${label}`}
           data={{

@@ -6,7 +6,8 @@
  * likeliest latent class). Welfare is computed on the server on request. Every role may
  * simulate.
  */
-import { useState } from 'react';
+import { useRef, useState } from 'react';
+import type { Chart } from 'chart.js';
 import { useParams, useSearchParams } from 'react-router';
 import { Alert, Card, EmptyState, Spinner } from '@/components/ui/feedback';
 import { ErrorText } from '@/components/ui/error-boundary';
@@ -23,6 +24,8 @@ import { ShareResults } from '@/features/shares/components/share-results';
 import { SegmentPicker, toGroupsParams } from '@/features/shares/components/segment-picker';
 import { WelfarePanel } from '@/features/shares/components/welfare-panel';
 import { ScenarioLibrary } from '@/features/shares/components/scenario-library';
+import { DemandCurveCard } from '@/features/shares/components/demand-curve-card';
+import { ShareDownloads } from '@/features/shares/components/share-downloads';
 import { useCurrentTeam } from '@/features/auth/hooks/use-current-team';
 import {
   usePreparedShareModel,
@@ -62,6 +65,7 @@ export function Component() {
   const [segment, setSegment] = useState('');
   const [loaded, setLoaded] = useState<{ id: string; name: string } | null>(null);
   const { can } = useCurrentTeam();
+  const sharesChart = useRef<Chart | null>(null);
   const groups = useShareGroups(teamId, studyId, toGroupsParams(runId, segment));
   const simulate = useSimulateShares(teamId, studyId);
   const definition = model.data?.definition ?? study.data?.definition;
@@ -83,6 +87,12 @@ export function Component() {
     runId,
     alternatives: scenario,
     includeFixed,
+  };
+  const segmentParams = toGroupsParams(runId, segment);
+  const exportRequest = {
+    ...request,
+    name: loaded?.name ?? '',
+    segmentBy: segmentParams ? { ...segmentParams, runId: undefined } : null,
   };
   // Welfare stays on screen while the inputs change, marked out of date from the first edit.
   const stale =
@@ -146,6 +156,7 @@ export function Component() {
             result={outcome.shares}
             respondents={model.data.sampleRespondents}
             segments={groups.data ?? null}
+            chartRef={sharesChart}
           />
           <p className="mt-3 text-xs text-ink-muted">
             {describeInterval(
@@ -154,6 +165,24 @@ export function Component() {
               model.data.intervalNote,
             )}
           </p>
+          <div className="mt-3">
+            <ShareDownloads
+              what="shares"
+              request={exportRequest}
+              chart={sharesChart}
+              pngName="predicted-shares.png"
+            />
+          </div>
+        </Card>
+      )}
+      {outcome.shares && prepared && (
+        <Card title="Demand curve">
+          <DemandCurveCard
+            prepared={prepared}
+            alternatives={scenario}
+            includeFixed={includeFixed}
+            request={exportRequest}
+          />
         </Card>
       )}
       <Card title={loaded ? `Saved scenarios — editing “${loaded.name}”` : 'Saved scenarios'}>

@@ -105,6 +105,8 @@ export async function adoptCandidate(
   const result = await deps.db.transaction(async (tx) => {
     const study = await lockStudy(tx, { id: studyId, teamId: actor.teamId });
     if (!study) throw new NotFoundError('Study');
+    // A second adopt of the same candidate, racing the first, must not freeze another version.
+    if (study.currentDesignId === candidate.id) throw new NotFoundError('Candidate design');
     const definition = studyDefinitionSchema.parse(study.definition);
     if (!designFitsDefinition(definition, candidate.design as Design))
       throw new ConflictError(

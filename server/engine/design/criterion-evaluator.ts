@@ -8,8 +8,7 @@
  */
 import type { CodingPlan } from '../../../shared/engine/coding/coding-plan';
 import type { CriterionScorer } from './design-criteria';
-import { getRowsPerTask } from './design-grid';
-import { addTaskInformation } from './mnl-information';
+import { createDrawInformation } from './draw-information';
 import type { TaskEvaluator } from './task-evaluator';
 
 /** Creates the direct evaluator over the design matrix `x` (S·Jt × K), shared with the caller. */
@@ -21,22 +20,13 @@ export function createCriterionEvaluator(
   R: number,
   scorer: CriterionScorer,
 ): TaskEvaluator {
-  const K = plan.columnCount;
-  const Jt = getRowsPerTask(plan);
-  const KK = K * K;
-  const info = new Float64Array(R * KK);
-  const base = new Float64Array(R * KK);
-  const trial = new Float64Array(KK);
-  const work = new Float64Array(Jt * (K + 1) + K);
+  const d = createDrawInformation(plan, x, draws, R);
+  const { K, Jt, trial } = d;
   let ridge = 0;
 
   const scoreTrial = (r: number) => {
     if (ridge > 0) for (let i = 0; i < K; i++) trial[i * K + i] += ridge;
     return scorer.score(trial, 0, draws, r * K);
-  };
-  const copyLower = (src: Float64Array, offset: number) => {
-    for (let i = 0; i < K; i++)
-      for (let k = 0; k <= i; k++) trial[i * K + k] = src[offset + i * K + k];
   };
   const applyChange = (s: number, j: number, a: number, from: number, to: number, sign: number) => {
     const attribute = plan.attributes[a];
@@ -49,25 +39,17 @@ export function createCriterionEvaluator(
   return {
     reset(newRidge) {
       ridge = newRidge;
-      info.fill(0);
+      d.sumTasks(S);
       let sum = 0;
       for (let r = 0; r < R; r++) {
-        for (let s = 0; s < S; s++)
-          addTaskInformation(K, Jt, x, s * Jt, draws, r * K, info, r * KK, work);
-        copyLower(info, r * KK);
+        d.copyToTrial(d.info, r);
         sum += scoreTrial(r);
       }
       return sum / R;
     },
 
     beginTask(s) {
-      for (let r = 0; r < R; r++) {
-        const o = r * KK;
-        trial.fill(0);
-        addTaskInformation(K, Jt, x, s * Jt, draws, r * K, trial, 0, work);
-        for (let i = 0; i < K; i++)
-          for (let k = 0; k <= i; k++) base[o + i * K + k] = info[o + i * K + k] - trial[i * K + k];
-      }
+      d.removeTask(s);
     },
 
     evaluateChange(s, j, a, from, to, bound) {
@@ -75,8 +57,7 @@ export function createCriterionEvaluator(
       const limit = bound * R;
       let sum = 0;
       for (let r = 0; r < R && sum <= limit; r++) {
-        copyLower(base, r * KK);
-        addTaskInformation(K, Jt, x, s * Jt, draws, r * K, trial, 0, work);
+        d.trialWithTask(s, r);
         sum += scoreTrial(r);
       }
       applyChange(s, j, a, from, to, -1);
@@ -88,12 +69,7 @@ export function createCriterionEvaluator(
     },
 
     endTask(s) {
-      for (let r = 0; r < R; r++) {
-        const o = r * KK;
-        for (let i = 0; i < K; i++)
-          for (let k = 0; k <= i; k++) info[o + i * K + k] = base[o + i * K + k];
-        addTaskInformation(K, Jt, x, s * Jt, draws, r * K, info, o, work);
-      }
+      d.restoreTask(s);
     },
   };
 }

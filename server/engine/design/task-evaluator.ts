@@ -14,9 +14,8 @@
 import type { CodingPlan } from '../../../shared/engine/coding/coding-plan';
 import { getCholeskyLogDet } from './cholesky-log-det';
 import { getDErrorFromLogDet } from './d-error';
-import { getRowsPerTask } from './design-grid';
 import { getSmallLogDet } from './small-log-det';
-import { addTaskInformation } from './mnl-information';
+import { createDrawInformation } from './draw-information';
 import { invertSpd } from './spd-inverse';
 
 export interface TaskEvaluator {
@@ -40,20 +39,15 @@ export function createTaskEvaluator(
   draws: Float64Array,
   R: number,
 ): TaskEvaluator {
-  const K = plan.columnCount;
-  const Jt = getRowsPerTask(plan);
-  const KK = K * K;
+  const d = createDrawInformation(plan, x, draws, R);
+  const { K, Jt, KK, base, trial } = d;
   const JJ = Jt * Jt;
-  const info = new Float64Array(R * KK);
-  const base = new Float64Array(R * KK);
   const binv = new Float64Array(R * KK);
   const logDetB = new Float64Array(R);
   const Y = new Float64Array(R * Jt * K);
   const Z = new Float64Array(R * JJ);
   const V = new Float64Array(R * Jt);
-  const trial = new Float64Array(KK);
   const chol = new Float64Array(KK);
-  const work = new Float64Array(Jt * (K + 1) + K);
   const delta = new Float64Array(K);
   const zc = new Float64Array(JJ);
   const g = new Float64Array(JJ);
@@ -65,10 +59,6 @@ export function createTaskEvaluator(
   const termFromLower = (m: Float64Array) => {
     if (ridge > 0) for (let i = 0; i < K; i++) m[i * K + i] += ridge;
     return getDErrorFromLogDet(K, getCholeskyLogDet(K, m, 0, chol));
-  };
-  const copyLower = (src: Float64Array, offset: number) => {
-    for (let i = 0; i < K; i++)
-      for (let k = 0; k <= i; k++) trial[i * K + k] = src[offset + i * K + k];
   };
   /** Writes code(to) − code(from) of attribute a into delta[0..w). */
   const fillDelta = (a: number, from: number, to: number) => {
@@ -86,8 +76,7 @@ export function createTaskEvaluator(
     const limit = bound * R;
     let sum = 0;
     for (let r = 0; r < R; r++) {
-      copyLower(base, r * KK);
-      addTaskInformation(K, Jt, x, s * Jt, draws, r * K, trial, 0, work);
+      d.trialWithTask(s, r);
       sum += termFromLower(trial);
       if (!(sum <= limit)) return Infinity;
     }
@@ -97,12 +86,10 @@ export function createTaskEvaluator(
   return {
     reset(newRidge) {
       ridge = newRidge;
-      info.fill(0);
+      d.sumTasks(S);
       let sum = 0;
       for (let r = 0; r < R; r++) {
-        for (let s = 0; s < S; s++)
-          addTaskInformation(K, Jt, x, s * Jt, draws, r * K, info, r * KK, work);
-        copyLower(info, r * KK);
+        d.copyToTrial(d.info, r);
         sum += termFromLower(trial);
       }
       return sum / R;
@@ -110,14 +97,10 @@ export function createTaskEvaluator(
 
     beginTask(s) {
       fast = true;
-      for (let r = 0; r < R; r++) {
+      d.removeTask(s);
+      for (let r = 0; r < R && fast; r++) {
         const o = r * KK;
-        trial.fill(0);
-        addTaskInformation(K, Jt, x, s * Jt, draws, r * K, trial, 0, work);
-        for (let i = 0; i < K; i++)
-          for (let k = 0; k <= i; k++) base[o + i * K + k] = info[o + i * K + k] - trial[i * K + k];
-        if (!fast) continue;
-        copyLower(base, o);
+        d.copyToTrial(base, r);
         if (ridge > 0) for (let i = 0; i < K; i++) trial[i * K + i] += ridge;
         logDetB[r] = invertSpd(K, trial, 0, binv, o, chol);
         if (logDetB[r] === -Infinity) fast = false;
@@ -240,12 +223,7 @@ export function createTaskEvaluator(
     },
 
     endTask(s) {
-      for (let r = 0; r < R; r++) {
-        const o = r * KK;
-        for (let i = 0; i < K; i++)
-          for (let k = 0; k <= i; k++) info[o + i * K + k] = base[o + i * K + k];
-        addTaskInformation(K, Jt, x, s * Jt, draws, r * K, info, o, work);
-      }
+      d.restoreTask(s);
     },
   };
 }

@@ -27,6 +27,7 @@ import { createExportsRouter } from './exports';
 import { createAuditRouter } from './audit';
 import { createPreviewRouter } from './preview';
 import { createStudyTextsRouter } from './study-texts';
+import { createStudyImportsRouter } from './study-imports';
 
 export function mountApiRoutes(api: Router, deps: AppDeps): void {
   api.use('/health', createHealthRouter(deps));
@@ -51,6 +52,7 @@ export function mountApiRoutes(api: Router, deps: AppDeps): void {
   api.use('/teams/:teamId/studies/:studyId/lifecycle', createLifecycleRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/texts', createStudyTextsRouter(deps));
   api.use('/teams/:teamId/audit', createAuditRouter(deps));
+  api.use('/teams/:teamId/imports', createStudyImportsRouter(deps));
   api.use('/teams/:teamId/studies', createStudiesRouter(deps));
   api.use('/teams', createTeamsRouter(deps));
 }

@@ -104,8 +104,9 @@ export async function insertVersion(
     definition: unknown;
     design: unknown;
     questionnaire: unknown;
-    languages: string[];
-    translations: Record<string, Record<string, string>>;
+    /** Absent: the column defaults (English only, no translations). */
+    languages?: string[];
+    translations?: Record<string, Record<string, string>>;
   },
 ) {
   const [row] = await db.insert(studyVersions).values(params).returning(versionColumns);

@@ -112,6 +112,8 @@ export type TastesRun = {
   profileDraws: number | null;
   /** Respondents erased on request since the run (their profiles are gone, not their influence). */
   erasedRespondents: number;
+  /** Why the run gives no WTP (no cost coefficient, or WTP withheld), or null when it does. */
+  wtpUnavailable: string | null;
 };
 
 export type TasteCoefficient = {

@@ -95,4 +95,3 @@ describe('coordinate exchange reaches the Street–Burgess optimum', () => {
     },
   );
 });
-

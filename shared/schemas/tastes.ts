@@ -134,6 +134,8 @@ export type TasteQuestion = {
   options: { id: string; label: string }[];
   /** Free text may identify a person: shown only with 'personal:read'. */
   personal: boolean;
+  /** Its page is shown only when a skip rule applies (exports then flag skipped answers). */
+  conditional?: boolean;
 };
 
 export type TasteRow = {

@@ -17,6 +17,7 @@ export const respondentColumns = {
   startedAt: respondents.startedAt,
   finishedAt: respondents.finishedAt,
   durationMs: respondents.durationMs,
+  language: respondents.language,
 };
 export type RespondentRow = {
   [K in keyof typeof respondentColumns]: (typeof respondents.$inferSelect)[K];
@@ -60,6 +61,7 @@ export async function insertRespondent(
     block: number;
     plan: unknown;
     device?: string;
+    language?: string;
     status?: 'in_progress' | 'completed' | 'screened_out' | 'over_quota';
     startedAt?: Date;
     simulatedTruth?: unknown;
@@ -211,4 +213,25 @@ export async function getAnswerContext(
     respondent: row.respondent as RespondentRow | null,
     answered: new Set(row.answered ?? []),
   };
+}
+
+/**
+ * Sets the respondent's language, only while they have no answer: the check is part of the
+ * write, so an answer arriving at the same moment cannot end up in another language.
+ */
+export async function setRespondentLanguage(
+  db: DbOrTx,
+  params: { id: string; language: string },
+): Promise<boolean> {
+  const rows = await db
+    .update(respondents)
+    .set({ language: params.language })
+    .where(
+      and(
+        eq(respondents.id, params.id),
+        sql`not exists (select 1 from answers a where a.respondent_id = ${respondents.id})`,
+      ),
+    )
+    .returning({ id: respondents.id });
+  return rows.length > 0;
 }

@@ -55,6 +55,7 @@ export async function listResponses(
     status?: 'in_progress' | 'completed' | 'screened_out' | 'over_quota';
     flags?: readonly QualityFlagKey[];
     included?: boolean;
+    language?: string;
     sort: 'started' | 'duration';
     order: 'asc' | 'desc';
     limit: number;
@@ -66,6 +67,7 @@ export async function listResponses(
     params.status ? eq(respondents.status, params.status) : undefined,
     params.flags ? anyFlagCondition(params.flags) : undefined,
     params.included !== undefined ? eq(respondents.included, params.included) : undefined,
+    params.language ? eq(respondents.language, params.language) : undefined,
   );
   const dir = params.order === 'asc' ? asc : desc;
   const orderBy =
@@ -86,6 +88,7 @@ export async function listResponses(
         included: respondents.included,
         exclusionReason: respondents.exclusionReason,
         device: respondents.device,
+        language: respondents.language,
         externalId: respondents.externalId,
         email: invitees.email,
       })

@@ -15,6 +15,7 @@ export async function listStudyRespondents(db: DbOrTx, params: { studyId: string
       number: respondentNumber.mapWith(Number),
       externalId: respondents.externalId,
       block: respondents.block,
+      language: respondents.language,
       status: respondents.status,
       included: respondents.included,
       exclusionReason: respondents.exclusionReason,

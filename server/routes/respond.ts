@@ -18,12 +18,14 @@ import {
   publicIdParamsSchema,
   RESPONDENT_TOKEN_HEADER,
   sessionTokenSchema,
+  chooseLanguageSchema,
   startSessionSchema,
   submitAnswerSchema,
 } from '../../shared/schemas/respondent';
 import * as sessions from '../services/respondent-session';
 import { submitAnswer } from '../services/answers';
 import { reviseAnswer } from '../services/answer-revisions';
+import { chooseLanguage } from '../services/choose-language';
 import { z } from 'zod';
 
 const linkQuerySchema = z.record(z.string().max(40), z.string().max(200));
@@ -72,6 +74,12 @@ export function createRespondRouter(deps: AppDeps): Router {
     const input = parseBody(submitAnswerSchema, req);
     const receipt = await submitAnswer(deps, publicId, token, input);
     res.status(receipt.replay ? 200 : 201).json(receipt);
+  });
+  router.post('/language', perSession, async (req, res) => {
+    const publicId = publicIdOf(req);
+    const token = tokenOf(req);
+    const { language } = parseBody(chooseLanguageSchema, req);
+    res.json(await chooseLanguage(deps, publicId, token, language));
   });
   router.post('/revisions', perSession, async (req, res) => {
     const publicId = publicIdOf(req);

@@ -24,6 +24,14 @@ import type {
 } from '../../shared/schemas/respondent';
 import { studyDefinitionSchema, type StudyDefinition } from '../../shared/schemas/study-definition';
 import { repeatedTaskNumber } from './respondent-plan';
+import { storedTranslationsSchema } from '../../shared/schemas/study-texts';
+import {
+  englishInterfaceTexts,
+  fillText,
+  type InterfaceTexts,
+} from '../../shared/languages/interface-texts';
+import { nativeLanguageName, textDirection } from '../../shared/languages/language-tags';
+import type { Translations } from '../../shared/languages/study-texts';
 
 export type FrozenVersion = {
   id: string;
@@ -32,6 +40,12 @@ export type FrozenVersion = {
   definition: StudyDefinition;
   design: Design;
   questionnaire: Questionnaire;
+  /** The study's languages (the first is the source) and their texts; absent: English only. */
+  languages?: string[];
+  translations?: Translations;
+  /** Set on a copy written in one language (respondent-language.ts): which, and the app's words. */
+  language?: string;
+  ui?: InterfaceTexts;
 };
 
 /** Versions never change once written, so parsed copies are kept (bounded) per process. */
@@ -53,6 +67,8 @@ export async function loadFrozenVersion(
     definition: studyDefinitionSchema.parse(row.definition),
     design: designSchema.parse(row.design),
     questionnaire: questionnaireSchema.parse(row.questionnaire),
+    languages: row.languages,
+    translations: storedTranslationsSchema.parse(row.translations),
   };
   if (cache.size >= CACHE_LIMIT) cache.delete(cache.keys().next().value!);
   cache.set(row.id, version);
@@ -90,14 +106,16 @@ function displayAlternatives(
   definition: StudyDefinition,
   order: number[],
   levelsOf: (index: number) => Record<string, string>,
+  ui: InterfaceTexts,
 ): DisplayAlternative[] {
   const { labeled, labels } = definition.alternatives;
+  const named = (letter: string) => fillText(ui['ui.unlabeled_alternative'], { letter });
   let unlabeled = 0;
   return order.map((index) => {
     if (index < 0) return fixedDisplay(definition);
     const label = labeled
-      ? (labels[index]?.name ?? `Option ${index + 1}`)
-      : `Option ${String.fromCharCode(65 + unlabeled++)}`;
+      ? (labels[index]?.name ?? named(String(index + 1)))
+      : named(String.fromCharCode(65 + unlabeled++));
     return { index, label, levels: { ...levelsOf(index) }, fixed: false };
   });
 }
@@ -123,7 +141,12 @@ export function buildScreens(version: FrozenVersion, plan: RespondentPlan): Resp
       kind: 'task',
       taskKind,
       title,
-      alternatives: displayAlternatives(definition, order, levelsOf),
+      alternatives: displayAlternatives(
+        definition,
+        order,
+        levelsOf,
+        version.ui ?? englishInterfaceTexts,
+      ),
       ...(certainty ? { certainty } : {}),
     });
   };
@@ -218,8 +241,18 @@ export function buildSurveyView(
   screens: RespondentScreen[] = buildScreens(version, plan),
 ): SurveyView {
   const { alternatives, fixedAlternative } = version.definition;
+  const languages = version.languages ?? ['en'];
+  const language = version.language ?? languages[0];
   return {
     studyName,
+    language,
+    dir: textDirection(language),
+    languages: languages.map((tag) => ({
+      tag,
+      name: nativeLanguageName(tag),
+      dir: textDirection(tag),
+    })),
+    ui: version.ui ?? englishInterfaceTexts,
     definition: {
       attributes: attributesInOrder(version.definition, plan),
       alternatives,

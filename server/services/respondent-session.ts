@@ -32,6 +32,7 @@ import { buildSurveyView, loadFrozenVersion } from './respondent-screens';
 import { screensOfRespondent } from './respondent-screen-index';
 import { findEarlierRespondent, identityOf, lostIdentityRace } from './respondent-identity';
 import { rememberRespondent } from './known-respondents';
+import { languageFromLink, localizeVersion } from './respondent-language';
 
 type PublicStudy = NonNullable<Awaited<ReturnType<typeof getStudyByPublicId>>>;
 
@@ -122,6 +123,8 @@ export async function createRespondent(
     externalId?: string | null;
     panelKey?: string | null;
     device?: string;
+    /** The link's ?lang= (checked against the version's languages); the source when absent. */
+    language?: string;
     seed?: number;
     startedAt?: Date;
     simulatedTruth?: unknown;
@@ -130,6 +133,7 @@ export async function createRespondent(
   const latest = await getLatestVersionId(db, { studyId: params.studyId });
   if (!latest) throw new AppError(409, 'survey_not_open', 'This survey is not open yet.');
   const version = await loadFrozenVersion(db, { id: latest.id, studyId: params.studyId });
+  const language = languageFromLink(version, params.language);
   const block = await assignBlock(db, { versionId: version.id, blocks: version.design.blocks });
   try {
     const plan = createRespondentPlan({
@@ -149,6 +153,7 @@ export async function createRespondent(
       plan,
       // A coarse class only: the raw user agent can single a person out.
       device: toDeviceClass(params.device),
+      language,
       ...(params.startedAt ? { startedAt: params.startedAt } : {}),
       ...(params.simulatedTruth !== undefined ? { simulatedTruth: params.simulatedTruth } : {}),
     });
@@ -166,9 +171,14 @@ export async function buildSession(
   respondent: RespondentRow,
   opts: { isNew?: boolean } = {},
 ): Promise<RespondentSession> {
-  const version = await loadFrozenVersion(db, { id: respondent.versionId, studyId: study.id });
-  const { screens, plan } = screensOfRespondent(version, respondent);
-  const survey = buildSurveyView(version, plan, study.publicTitle, screens);
+  const source = await loadFrozenVersion(db, { id: respondent.versionId, studyId: study.id });
+  const { screens, plan } = screensOfRespondent(source, respondent);
+  const local = localizeVersion(source, study.publicTitle, respondent.language);
+  // The answer path keeps the source-language screens; the phone gets its language's.
+  const survey =
+    local.version === source
+      ? buildSurveyView(source, plan, study.publicTitle, screens)
+      : buildSurveyView(local.version, plan, local.title);
   const given = opts.isNew
     ? new Map<string, unknown>()
     : await listAnswerValues(db, { respondentId: respondent.id });
@@ -233,6 +243,7 @@ export async function startSession(
       studyId: study.id,
       ...identity,
       device: input.device,
+      language: input.params.lang,
     });
     return open(respondent, { isNew: true });
   } catch (err) {

@@ -126,6 +126,7 @@ export async function listResponses(
     status: q.status,
     flags: q.flag === undefined ? undefined : q.flag === 'any' ? qualityFlagKeys : [q.flag],
     included: q.included === undefined ? undefined : q.included === 'true',
+    language: q.language,
     sort: q.sort,
     order: q.order,
     limit: q.pageSize,
@@ -148,6 +149,7 @@ export async function listResponses(
     summary,
     settings: readQualitySettings(study.settings),
     personalData,
+    languages: study.languages,
   };
 }
 

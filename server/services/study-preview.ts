@@ -16,12 +16,13 @@ import { questionnaireSchema } from '../../shared/schemas/questionnaire';
 import { defaultQuestionnaire } from '../../shared/schemas/questionnaire-defaults';
 import { studyDefinitionSchema } from '../../shared/schemas/study-definition';
 import type { StudyPreview } from '../../shared/schemas/respondent';
+import { localizeVersion } from './respondent-language';
 
 export async function getStudyPreview(
   deps: AppDeps,
   teamId: string,
   studyId: string,
-  query: { block: number; seed: number },
+  query: { block: number; seed: number; lang?: string },
 ): Promise<StudyPreview> {
   const study = await loadStudy(deps, teamId, studyId);
   const definition = studyDefinitionSchema.safeParse(study.definition);
@@ -41,6 +42,8 @@ export async function getStudyPreview(
     definition: definition.data,
     design: design.data,
     questionnaire: stored.success ? stored.data : defaultQuestionnaire(definition.data),
+    languages: study.languages,
+    translations: study.translations,
   };
   const block = Math.min(query.block, design.data.blocks);
   const plan = createRespondentPlan({ ...version, block, seed: query.seed });
@@ -49,6 +52,10 @@ export async function getStudyPreview(
     blocks: design.data.blocks,
     seed: query.seed,
     questionnaireSaved: stored.success,
-    survey: buildSurveyView(version, plan, study.publicTitle),
+    // Texts a language still lacks show in the source language (going live needs them all).
+    survey: (() => {
+      const local = localizeVersion(version, study.publicTitle, query.lang ?? study.languages[0]);
+      return buildSurveyView(local.version, plan, local.title);
+    })(),
   };
 }

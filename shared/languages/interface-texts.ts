@@ -8,11 +8,24 @@ export const interfaceTexts = {
   'ui.next': { where: 'Button: go to the next screen', en: 'Next' },
   'ui.continue': { where: 'Button: continue after reading a page', en: 'Continue' },
   'ui.back': { where: 'Button: back to the previous screen', en: 'Back' },
+  'ui.start': { where: 'Consent page: button to begin', en: 'Start' },
+  'ui.decline_note': {
+    where: 'Consent page: under the agreement',
+    en: 'If you do not want to take part, you can close this page now.',
+  },
+  'ui.progress': {
+    where: 'Progress bar (read out by screen readers)',
+    en: 'Progress through the survey',
+  },
   'ui.choose': { where: 'Choice task: button on a card', en: 'Choose' },
   'ui.chosen': { where: 'Choice task: the chosen card', en: 'Chosen' },
   'ui.choose_prompt': {
     where: 'Choice task: before a choice',
     en: 'Choose one option to continue.',
+  },
+  'ui.certainty_prompt': {
+    where: 'Choice task: before saying how sure',
+    en: 'Say how sure you are to continue.',
   },
   'ui.can_change': {
     where: 'Choice task: after a choice',
@@ -28,8 +41,26 @@ export const interfaceTexts = {
   },
   'ui.what_is_this': { where: 'Choice task: open an attribute’s help', en: 'What is this?' },
   'ui.hide': { where: 'Choice task: close an attribute’s help', en: 'Hide' },
+  'ui.features_help': {
+    where: 'Choice task: list of what the features mean (phones)',
+    en: 'What the features mean',
+  },
+  'ui.not_applicable': {
+    where: 'Choice task: a feature an alternative does not have',
+    en: 'does not apply',
+  },
+  'ui.choose_one': { where: 'Choice task: name of the group of cards', en: 'Choose one option' },
   'ui.answer_required': { where: 'Question: no answer given', en: 'Choose an answer.' },
+  'ui.answers_required': {
+    where: 'Question: no answer given (several allowed)',
+    en: 'Choose at least one answer.',
+  },
   'ui.number_required': { where: 'Question: no number given', en: 'Enter a number.' },
+  'ui.number_range': {
+    where: 'Question: number out of range ({min}, {max})',
+    en: 'Enter a number from {min} to {max}.',
+  },
+  'ui.whole_number': { where: 'Question: not a whole number', en: 'Enter a whole number.' },
   'ui.text_required': { where: 'Question: no text written', en: 'Write an answer.' },
   'ui.screened_out_title': {
     where: 'Screen-out page: title',
@@ -47,6 +78,29 @@ export const interfaceTexts = {
     long: true,
   },
   'ui.saving': { where: 'End page: while answers are sent', en: 'Saving your last answers…' },
+  'ui.saving_note': {
+    where: 'End page: while answers are sent',
+    en: 'Please keep this page open until this message goes away. If you are offline, your answers are kept on this device and sent when the connection returns.',
+    long: true,
+  },
+  'ui.checking': { where: 'After a screening answer', en: 'Checking your answer…' },
+  'ui.closed_title': { where: 'Survey closed page: title', en: 'This survey has closed' },
+  'ui.closed_body': {
+    where: 'Survey closed page: text',
+    en: 'Thank you for your interest. The survey is no longer taking answers.',
+    long: true,
+  },
+  'ui.redirect_note': {
+    where: 'Before sending a panel respondent back',
+    en: 'Taking you back in a moment…',
+  },
+  'ui.continue_now': { where: 'Link: go back to the panel now', en: 'Continue now' },
+  'ui.offline': {
+    where: 'Note while offline',
+    en: 'You seem to be offline. Your answers are kept on this device and will be sent when the connection returns — you can keep going.',
+    long: true,
+  },
+  'ui.language': { where: 'First screen: label of the language choice', en: 'Language' },
 } as const satisfies Record<string, { where: string; en: string; long?: boolean }>;
 
 export type InterfaceTextKey = keyof typeof interfaceTexts;

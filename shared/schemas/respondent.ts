@@ -7,6 +7,8 @@ import { z } from 'zod';
 import type { CertaintyScale, Question, ShowIf } from './questionnaire';
 import type { StudyDefinition } from './study-definition';
 import type { BackOptions } from '../survey/going-back';
+import type { InterfaceTexts } from '../languages/interface-texts';
+import { languageTagSchema } from './study-texts';
 
 export { RESPONDENT_TOKEN_HEADER } from '../respondent-token-header';
 
@@ -136,11 +138,22 @@ export type RespondentScreen =
 
 export type RespondentStatus = 'in_progress' | 'completed' | 'screened_out' | 'over_quota';
 
+/** A language the respondent may answer in, named in itself ("Deutsch", "العربية"). */
+export type SurveyLanguage = { tag: string; name: string; dir: 'ltr' | 'rtl' };
+
+/** The respondent's choice of language on the first screen (before any answer). */
+export const chooseLanguageSchema = z.object({ language: languageTagSchema });
+
 /** What the respondent app needs to walk through the whole questionnaire, even offline. */
 export type RespondentSession = {
   sessionToken: string;
   /** The study's public title (never its internal name). */
   studyName: string;
+  /** The language of every text below, its direction, the study's languages and the app's words. */
+  language: string;
+  dir: 'ltr' | 'rtl';
+  languages: SurveyLanguage[];
+  ui: InterfaceTexts;
   status: RespondentStatus;
   definition: Pick<StudyDefinition, 'attributes' | 'alternatives' | 'fixedAlternative'>;
   screens: RespondentScreen[];
@@ -163,7 +176,7 @@ export type RespondentSession = {
 /** What a respondent's screens are built from: the same for a live session and the Preview. */
 export type SurveyView = Pick<
   RespondentSession,
-  'studyName' | 'definition' | 'screens' | 'end' | 'back'
+  'studyName' | 'definition' | 'screens' | 'end' | 'back' | 'language' | 'dir' | 'languages' | 'ui'
 >;
 
 /** The Preview section: the study as one respondent of a block (seed) would walk through it. */
@@ -179,6 +192,8 @@ export type StudyPreview = {
 export const studyPreviewQuerySchema = z.object({
   block: z.coerce.number().int().min(1).max(50).default(1),
   seed: z.coerce.number().int().min(0).max(2147483647).default(1),
+  /** One of the study's languages; the source language when absent. */
+  lang: languageTagSchema.optional(),
 });
 
 export type AnswerReceipt = {

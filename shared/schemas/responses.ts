@@ -4,6 +4,7 @@
  * the server leaves them out of every answer to a role without personal:read.
  */
 import { z } from 'zod';
+import { languageTagSchema } from './study-texts';
 
 export const qualityFlagKeys = [
   'speeder',
@@ -84,6 +85,8 @@ export const responseRowSchema = z.object({
   included: z.boolean(),
   exclusionReason: z.string().nullable(),
   device: z.string(),
+  /** The language the respondent answered in (BCP 47). */
+  language: z.string(),
   /** Only for roles with personal:read. */
   externalId: z.string().nullable().optional(),
   email: z.string().nullable().optional(),
@@ -95,6 +98,8 @@ export const listResponsesQuerySchema = z.object({
   /** "any" = at least one flag; or one flag key. */
   flag: z.union([z.literal('any'), qualityFlagKeySchema]).optional(),
   included: z.enum(['true', 'false']).optional(),
+  /** Respondents who answered in this language. */
+  language: languageTagSchema.optional(),
   sort: z.enum(['started', 'duration']).default('started'),
   order: z.enum(['asc', 'desc']).default('desc'),
   page: z.coerce.number().int().min(1).max(100_000).default(1),
@@ -125,6 +130,8 @@ export const responseListSchema = z.object({
   settings: qualitySettingsSchema,
   /** Whether this caller receives external ids and e-mail addresses. */
   personalData: z.boolean(),
+  /** The study's languages (the filter offers them when there are several). */
+  languages: z.array(z.string()),
 });
 export type ResponseList = z.infer<typeof responseListSchema>;
 

@@ -86,8 +86,8 @@ export const paths = {
     getHref: (
       teamId: string,
       studyId: string,
-      respondent: { block: number; seed: number; screen: number },
+      respondent: { block: number; seed: number; screen: number; lang?: string },
     ) =>
-      `/preview/${teamId}/${studyId}?block=${respondent.block}&seed=${respondent.seed}&screen=${respondent.screen}`,
+      `/preview/${teamId}/${studyId}?block=${respondent.block}&seed=${respondent.seed}&screen=${respondent.screen}${respondent.lang ? `&lang=${encodeURIComponent(respondent.lang)}` : ''}`,
   },
 } as const;

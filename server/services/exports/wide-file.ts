@@ -33,6 +33,8 @@ export interface WideRespondent {
   externalId: string | null;
   versionId: string;
   block: number;
+  /** The language the respondent answered in (BCP 47). */
+  language: string;
   status: RespondentStatus;
   included: boolean;
   exclusionReason: string | null;
@@ -109,6 +111,7 @@ export function buildWideTable(input: WideInput): DocumentedTable {
     ...(input.personal ? [col('external_id', 'text', 'External or panel id (personal data)')] : []),
     col('version', 'integer', 'Study version the respondent answered', 'none', 'integer from 1'),
     col('block', 'integer', 'Design block', 'none', 'integer from 1'),
+    col('language', 'text', 'Language the respondent answered in', 'none', 'BCP 47 tag'),
     {
       ...col('status', 'text', 'Fieldwork status', 'none', STATUS_LEVELS.join(', ')),
       levels: STATUS_LEVELS,
@@ -203,6 +206,7 @@ export function buildWideTable(input: WideInput): DocumentedTable {
       ...(input.personal ? [r.externalId] : []),
       version?.version ?? null,
       r.block,
+      r.language,
       r.status,
       inclusion.included,
       inclusion.exclusion,

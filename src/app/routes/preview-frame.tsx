@@ -18,6 +18,8 @@ import { RespondentScreenView } from '@/features/respond/components/screen-view'
 import { nextShownIndex } from '@shared/survey/skip-logic';
 import { EndScreen } from '@/features/respond/components/finish-screens';
 import { GoBackContext, Paragraphs, ScreenFrame } from '@/features/respond/components/screen-frame';
+import { useDocumentLanguage } from '@/features/respond/hooks/use-document-language';
+import { InterfaceTextsContext } from '@/lib/interface-texts';
 
 const whole = (text: string | null, fallback: number) => {
   const n = Number(text);
@@ -33,7 +35,9 @@ export function Component() {
   // As in a live session: progress counts screens answered, Back shows the answer given.
   const [furthest, setFurthest] = useState(index);
   const [given, setGiven] = useState<Record<string, AnswerValue>>({});
-  const preview = useStudyPreview(teamId, studyId, block, seed);
+  const lang = search.get('lang') ?? undefined;
+  const preview = useStudyPreview(teamId, studyId, block, seed, lang);
+  useDocumentLanguage(preview.data?.survey.language ?? null, preview.data?.survey.dir ?? null);
   useEffect(() => postPreviewScreen(index), [index]);
 
   if (preview.isPending)
@@ -62,28 +66,30 @@ export function Component() {
   const back = screen && previousRevisable(survey.screens, answered, screen.key, survey.back);
   const goBack = back ? () => setIndex(survey.screens.indexOf(back)) : null;
   return (
-    <RespondLayout progress={furthest / survey.screens.length} studyName={survey.studyName}>
-      {screen ? (
-        <GoBackContext.Provider value={goBack}>
-          <RespondentScreenView
-            key={screen.key}
-            screen={screen}
-            definition={survey.definition}
-            initial={given[screen.key]}
-            onAnswer={(value) => {
-              const now = { ...given, [screen.key]: value };
-              setGiven(now);
-              // A screen seen again leads back on to the next one, as in the live app; pages
-              // whose skip rule does not match are gone past.
-              const next = nextShownIndex(survey.screens, index + 1, now);
-              setIndex(next);
-              setFurthest((f) => Math.max(f, next));
-            }}
-          />
-        </GoBackContext.Provider>
-      ) : (
-        <EndScreen status="completed" pending={0} end={survey.end} redirectUrl={null} />
-      )}
-    </RespondLayout>
+    <InterfaceTextsContext.Provider value={survey.ui}>
+      <RespondLayout progress={furthest / survey.screens.length} studyName={survey.studyName}>
+        {screen ? (
+          <GoBackContext.Provider value={goBack}>
+            <RespondentScreenView
+              key={screen.key}
+              screen={screen}
+              definition={survey.definition}
+              initial={given[screen.key]}
+              onAnswer={(value) => {
+                const now = { ...given, [screen.key]: value };
+                setGiven(now);
+                // A screen seen again leads back on to the next one, as in the live app; pages
+                // whose skip rule does not match are gone past.
+                const next = nextShownIndex(survey.screens, index + 1, now);
+                setIndex(next);
+                setFurthest((f) => Math.max(f, next));
+              }}
+            />
+          </GoBackContext.Provider>
+        ) : (
+          <EndScreen status="completed" pending={0} end={survey.end} redirectUrl={null} />
+        )}
+      </RespondLayout>
+    </InterfaceTextsContext.Provider>
   );
 }

@@ -26,6 +26,8 @@ export function viewAlternatives(
   definition: Pick<StudyDefinition, 'attributes' | 'alternatives' | 'fixedAlternative'>,
   alternatives: ChoiceTaskAlternative[],
   imageUrl: (key: string) => string,
+  /** The name of an unlabeled alternative in the respondent's language. */
+  unlabeledName: (letter: string) => string = (letter) => `Option ${letter}`,
 ): AlternativeView[] {
   const fixed = definition.fixedAlternative;
   let designedShown = 0;
@@ -54,7 +56,7 @@ export function viewAlternatives(
     );
     return {
       position,
-      title: name ?? `Option ${LETTERS[shown] ?? shown + 1}`,
+      title: name ?? unlabeledName(LETTERS[shown] ?? String(shown + 1)),
       optOut: false,
       cells: definition.attributes.map((a) => {
         const level = omitted.has(a.id)

@@ -1,5 +1,6 @@
 import { useId, useState } from 'react';
 import type { Attribute } from '@shared/schemas/study-definition';
+import { useInterfaceText } from '@/lib/interface-texts';
 
 /**
  * An attribute's name with its help in place: a small "What is this?" toggle opens the
@@ -7,6 +8,7 @@ import type { Attribute } from '@shared/schemas/study-definition';
  */
 export function AttributeName({ attribute }: { attribute: Attribute }) {
   const [open, setOpen] = useState(false);
+  const t = useInterfaceText();
   const id = useId();
   const help = attribute.description?.trim();
   return (
@@ -20,9 +22,9 @@ export function AttributeName({ attribute }: { attribute: Attribute }) {
             aria-expanded={open}
             aria-controls={id}
             onClick={() => setOpen((o) => !o)}
-            className="ml-1 inline-flex min-h-6 items-center rounded px-1 text-xs font-medium text-primary underline decoration-dotted underline-offset-2"
+            className="ms-1 inline-flex min-h-6 items-center rounded px-1 text-xs font-medium text-primary underline decoration-dotted underline-offset-2"
           >
-            {open ? 'Hide' : 'What is this?'}
+            {open ? t('ui.hide') : t('ui.what_is_this')}
             <span className="sr-only"> ({attribute.name})</span>
           </button>
           <p id={id} hidden={!open} className="mt-1 text-sm font-normal text-ink-soft">

@@ -15,6 +15,7 @@ import {
 } from './alternative-view';
 import { TaskStack } from './task-stack';
 import { TaskTable } from './task-table';
+import { useInterfaceText } from '@/lib/interface-texts';
 
 export type { ChoiceTaskAlternative } from './alternative-view';
 
@@ -69,10 +70,8 @@ function useSideBySide(ref: RefObject<HTMLDivElement | null>, columns: number, i
   return state.side;
 }
 
-function summary(definition: ShownDefinition, view: AlternativeView): string {
-  return definition.attributes
-    .map((a, i) => `${a.name}: ${view.cells[i].text ?? 'does not apply'}`)
-    .join('; ');
+function summary(definition: ShownDefinition, view: AlternativeView, none: string): string {
+  return definition.attributes.map((a, i) => `${a.name}: ${view.cells[i].text ?? none}`).join('; ');
 }
 
 export function ChoiceTaskCard({
@@ -81,9 +80,12 @@ export function ChoiceTaskCard({
   selectedIndex = null,
   onChoose,
   imageUrl = (key) => `/api/files/${encodeURIComponent(key)}`,
-  label = 'Choose one option',
+  label,
 }: ChoiceTaskCardProps) {
-  const views = viewAlternatives(definition, alternatives, imageUrl);
+  const t = useInterfaceText();
+  const views = viewAlternatives(definition, alternatives, imageUrl, (letter) =>
+    t('ui.unlabeled_alternative', { letter }),
+  );
   const columns = views.filter((v) => !v.optOut);
   const optOut = views.find((v) => v.optOut);
   const images = columns.some((c) => c.cells.some((cell) => cell.image));
@@ -102,10 +104,10 @@ export function ChoiceTaskCard({
 
   return (
     <fieldset className="w-full min-w-0">
-      <legend className="sr-only">{label}</legend>
+      <legend className="sr-only">{label ?? t('ui.choose_one')}</legend>
       {!sideBySide && described.length > 0 && (
         <details className="mb-3 rounded-md border border-line bg-white px-3 py-2 text-sm">
-          <summary className="cursor-pointer font-medium text-ink">What the features mean</summary>
+          <summary className="cursor-pointer font-medium text-ink">{t('ui.features_help')}</summary>
           <dl className="mt-2 space-y-2">
             {described.map((a) => (
               <div key={a.id}>
@@ -146,7 +148,7 @@ export function ChoiceTaskCard({
       <div hidden>
         {columns.map((c) => (
           <span key={c.position} id={summaryId(c.position)}>
-            {summary(definition, c)}
+            {summary(definition, c, t('ui.not_applicable'))}
           </span>
         ))}
       </div>

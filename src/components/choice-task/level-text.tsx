@@ -1,12 +1,14 @@
 import type { AlternativeCell } from './alternative-view';
+import { useInterfaceText } from '@/lib/interface-texts';
 
 /** One level as shown in a task: its image (if any) and text, or a dash where it does not apply. */
 export function LevelText({ cell }: { cell: AlternativeCell }) {
+  const t = useInterfaceText();
   if (cell.text === null)
     return (
       <span>
         <span aria-hidden>—</span>
-        <span className="sr-only">does not apply</span>
+        <span className="sr-only">{t('ui.not_applicable')}</span>
       </span>
     );
   return (

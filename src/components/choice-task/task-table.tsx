@@ -3,6 +3,7 @@ import { cn } from '@/lib/cn';
 import type { AlternativeView } from './alternative-view';
 import { AttributeName } from './attribute-name';
 import { LevelText } from './level-text';
+import { useInterfaceText } from '@/lib/interface-texts';
 
 type Props = {
   attributes: Attribute[];
@@ -21,11 +22,12 @@ type Props = {
  * radio button under each column. Tapping anywhere in a column chooses it.
  */
 export function TaskTable({ attributes, columns, selected, onChoose, name, summaryId }: Props) {
+  const t = useInterfaceText();
   const width = `${100 / columns.length}%`;
   const tint = (c: AlternativeView) => (selected === c.position ? 'bg-primary-soft' : 'bg-white');
   const choose = (c: AlternativeView) => () => onChoose?.(c.position);
   return (
-    <table className="w-full border-separate border-spacing-0 text-left">
+    <table className="w-full border-separate border-spacing-0 text-start">
       <thead>
         <tr>
           {columns.map((c) => (
@@ -53,7 +55,7 @@ export function TaskTable({ attributes, columns, selected, onChoose, name, summa
             <th
               scope="colgroup"
               colSpan={columns.length}
-              className="border-t border-line px-2 pb-0.5 pt-2 text-left text-xs font-normal text-ink-muted"
+              className="border-t border-line px-2 pb-0.5 pt-2 text-start text-xs font-normal text-ink-muted"
             >
               <AttributeName attribute={a} />
             </th>
@@ -106,7 +108,7 @@ export function TaskTable({ attributes, columns, selected, onChoose, name, summa
                   aria-describedby={summaryId(c.position)}
                   className="size-5 shrink-0 accent-[var(--color-primary)]"
                 />
-                <span aria-hidden>{selected === c.position ? 'Chosen' : 'Choose'}</span>
+                <span aria-hidden>{selected === c.position ? t('ui.chosen') : t('ui.choose')}</span>
                 <span className="sr-only">{c.title}</span>
               </label>
             </td>

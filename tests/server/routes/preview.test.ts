@@ -101,6 +101,10 @@ describe('GET /preview', () => {
         screens: live.screens,
         end: live.end,
         back: live.back,
+        language: live.language,
+        dir: live.dir,
+        languages: live.languages,
+        ui: live.ui,
       });
       const kinds = new Set(
         preview.survey.screens.map((sc) => (sc.kind === 'task' ? sc.taskKind : sc.kind)),

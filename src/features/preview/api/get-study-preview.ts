@@ -8,10 +8,12 @@ export function getStudyPreview(
   studyId: string,
   block: number,
   seed: number,
+  lang: string | undefined,
   signal?: AbortSignal,
 ) {
+  const language = lang ? `&lang=${encodeURIComponent(lang)}` : '';
   return api.get<StudyPreview>(
-    `/teams/${teamId}/studies/${studyId}/preview?block=${block}&seed=${seed}`,
+    `/teams/${teamId}/studies/${studyId}/preview?block=${block}&seed=${seed}${language}`,
     signal,
   );
 }
@@ -22,14 +24,21 @@ export const getStudyPreviewQueryOptions = (
   studyId: string,
   block: number,
   seed: number,
+  lang?: string,
 ) =>
   queryOptions({
-    queryKey: previewKeys.respondent(teamId, studyId, block, seed),
-    queryFn: ({ signal }) => getStudyPreview(teamId, studyId, block, seed, signal),
+    queryKey: previewKeys.respondent(teamId, studyId, block, seed, lang),
+    queryFn: ({ signal }) => getStudyPreview(teamId, studyId, block, seed, lang, signal),
     staleTime: 0,
     retry: false,
   });
 
-export function useStudyPreview(teamId: string, studyId: string, block: number, seed: number) {
-  return useQuery(getStudyPreviewQueryOptions(teamId, studyId, block, seed));
+export function useStudyPreview(
+  teamId: string,
+  studyId: string,
+  block: number,
+  seed: number,
+  lang?: string,
+) {
+  return useQuery(getStudyPreviewQueryOptions(teamId, studyId, block, seed, lang));
 }

@@ -42,7 +42,7 @@ export function CertaintyScaleField({
       </div>
       <div aria-hidden className="mt-1 flex justify-between gap-4 text-xs text-ink-muted">
         <span>{scale.lowLabel}</span>
-        <span className="text-right">{scale.highLabel}</span>
+        <span className="text-end">{scale.highLabel}</span>
       </div>
     </fieldset>
   );

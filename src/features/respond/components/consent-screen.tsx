@@ -2,6 +2,7 @@ import { useId, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import type { RespondentScreen } from '@shared/schemas/respondent';
 import { NextBar, Paragraphs, ScreenFrame } from './screen-frame';
+import { useInterfaceText } from '@/lib/interface-texts';
 
 type Props = {
   screen: Extract<RespondentScreen, { kind: 'consent' }>;
@@ -11,6 +12,7 @@ type Props = {
 /** Welcome and consent: nothing is recorded about the tasks before the respondent agrees. */
 export function ConsentScreen({ screen, onAnswer }: Props) {
   const [agreed, setAgreed] = useState(false);
+  const t = useInterfaceText();
   const id = useId();
   return (
     <ScreenFrame title={screen.title}>
@@ -28,9 +30,7 @@ export function ConsentScreen({ screen, onAnswer }: Props) {
         />
         <span className="text-base font-medium text-ink">{screen.agreeLabel}</span>
       </label>
-      <p className="mt-3 text-sm text-ink-muted">
-        If you do not want to take part, you can close this page now.
-      </p>
+      <p className="mt-3 text-sm text-ink-muted">{t('ui.decline_note')}</p>
       <NextBar>
         <Button
           size="lg"
@@ -38,7 +38,7 @@ export function ConsentScreen({ screen, onAnswer }: Props) {
           disabled={!agreed}
           onClick={() => onAnswer(true)}
         >
-          Start
+          {t('ui.start')}
         </Button>
       </NextBar>
     </ScreenFrame>

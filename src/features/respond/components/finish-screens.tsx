@@ -3,6 +3,7 @@ import { Spinner } from '@/components/ui/feedback';
 import type { RespondentStatus } from '@shared/schemas/respondent';
 import type { Unavailable } from '../hooks/use-respondent';
 import { Paragraphs, ScreenFrame } from './screen-frame';
+import { useInterfaceText } from '@/lib/interface-texts';
 
 /** Sends panel respondents back to their panel a moment after the last screen. */
 function useRedirect(url: string | null, ready: boolean) {
@@ -14,12 +15,13 @@ function useRedirect(url: string | null, ready: boolean) {
 }
 
 function RedirectNote({ url }: { url: string | null }) {
+  const t = useInterfaceText();
   if (!url) return null;
   return (
     <p className="mt-6 text-sm text-ink-soft">
-      Taking you back in a moment…{' '}
+      {t('ui.redirect_note')}{' '}
       <a href={url} className="font-medium text-primary underline">
-        Continue now
+        {t('ui.continue_now')}
       </a>
     </p>
   );
@@ -34,19 +36,20 @@ type EndProps = {
 
 /** The end page. It says "saved" only once the server has every answer. */
 export function EndScreen({ status, pending, end, redirectUrl }: EndProps) {
+  const t = useInterfaceText();
   const saved = pending === 0 && status !== null && status !== 'in_progress';
   useRedirect(redirectUrl, saved);
   if (status === 'screened_out')
     return (
-      <ScreenFrame title="Thank you for your interest">
-        <Paragraphs text="Based on your answers, this survey is not for you. Nothing more is needed from you; you can close this page." />
+      <ScreenFrame title={t('ui.screened_out_title')}>
+        <Paragraphs text={t('ui.screened_out_body')} />
         <RedirectNote url={redirectUrl} />
       </ScreenFrame>
     );
   if (status === 'over_quota')
     return (
-      <ScreenFrame title="This survey is full">
-        <Paragraphs text="The survey has all the answers it needs. Thank you for your time; you can close this page." />
+      <ScreenFrame title={t('ui.over_quota_title')}>
+        <Paragraphs text={t('ui.over_quota_body')} />
         <RedirectNote url={redirectUrl} />
       </ScreenFrame>
     );
@@ -56,11 +59,8 @@ export function EndScreen({ status, pending, end, redirectUrl }: EndProps) {
         <Paragraphs text={end.body} />
       ) : (
         <div className="space-y-3">
-          <Spinner label="Saving your last answers…" />
-          <p className="text-sm text-ink-soft">
-            Please keep this page open until this message goes away. If you are offline, your
-            answers are kept on this device and sent when the connection returns.
-          </p>
+          <Spinner label={t('ui.saving')} />
+          <p className="text-sm text-ink-soft">{t('ui.saving_note')}</p>
         </div>
       )}
       {saved && <RedirectNote url={redirectUrl} />}
@@ -102,7 +102,12 @@ export function UnavailableScreen({
   redirectUrl: string | null;
 }) {
   useRedirect(redirectUrl, true);
-  const text = unavailableText[reason];
+  const t = useInterfaceText();
+  // Inside a session (closed meanwhile) the respondent's language has these words.
+  const text =
+    reason === 'closed'
+      ? { title: t('ui.closed_title'), body: t('ui.closed_body') }
+      : unavailableText[reason];
   return (
     <ScreenFrame title={text.title} eyebrow={studyName ?? undefined}>
       <Paragraphs text={text.body} />

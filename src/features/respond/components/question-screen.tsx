@@ -4,6 +4,7 @@ import { cn } from '@/lib/cn';
 import type { AnswerValue, RespondentScreen } from '@shared/schemas/respondent';
 import type { Question } from '@shared/schemas/questionnaire';
 import { NextBar, ScreenFrame } from './screen-frame';
+import { useInterfaceText } from '@/lib/interface-texts';
 
 type Props = {
   screen: Extract<RespondentScreen, { kind: 'question' }>;
@@ -17,35 +18,37 @@ const optionClass =
 
 /** The answer a question's current input gives, or an error to show. */
 function toValue(
+  t: ReturnType<typeof useInterfaceText>,
   q: Question,
   raw: { single: string | null; multiple: string[]; number: string; text: string },
 ): { value: AnswerValue } | { error: string } {
   switch (q.type) {
     case 'single':
-      if (raw.single === null && q.required) return { error: 'Choose an answer.' };
+      if (raw.single === null && q.required) return { error: t('ui.answer_required') };
       return { value: { kind: 'single', optionId: raw.single } };
     case 'multiple':
-      if (raw.multiple.length === 0 && q.required) return { error: 'Choose at least one answer.' };
+      if (raw.multiple.length === 0 && q.required) return { error: t('ui.answers_required') };
       return { value: { kind: 'multiple', optionIds: raw.multiple } };
     case 'number': {
       if (raw.number.trim() === '')
         return q.required
-          ? { error: 'Enter a number.' }
+          ? { error: t('ui.number_required') }
           : { value: { kind: 'number', number: null } };
       const n = Number(raw.number.replace(',', '.'));
       if (!Number.isFinite(n) || n < q.min || n > q.max)
-        return { error: `Enter a number from ${q.min} to ${q.max}.` };
-      if (q.integer && !Number.isInteger(n)) return { error: 'Enter a whole number.' };
+        return { error: t('ui.number_range', { min: q.min, max: q.max }) };
+      if (q.integer && !Number.isInteger(n)) return { error: t('ui.whole_number') };
       return { value: { kind: 'number', number: n } };
     }
     case 'text':
-      if (raw.text.trim() === '' && q.required) return { error: 'Write an answer.' };
+      if (raw.text.trim() === '' && q.required) return { error: t('ui.text_required') };
       return { value: { kind: 'text', text: raw.text.slice(0, q.maxLength) } };
   }
 }
 
 export function QuestionScreen({ screen, onAnswer, initial }: Props) {
   const q = screen.question;
+  const t = useInterfaceText();
   const id = useId();
   const [single, setSingle] = useState(initial?.kind === 'single' ? initial.optionId : null);
   const [multiple, setMultiple] = useState(initial?.kind === 'multiple' ? initial.optionIds : []);
@@ -59,7 +62,7 @@ export function QuestionScreen({ screen, onAnswer, initial }: Props) {
     undefined;
 
   const submit = () => {
-    const result = toValue(q, { single, multiple, number, text });
+    const result = toValue(t, q, { single, multiple, number, text });
     if ('error' in result) setError(result.error);
     else onAnswer(result.value);
   };
@@ -156,7 +159,7 @@ export function QuestionScreen({ screen, onAnswer, initial }: Props) {
         )}
         <NextBar>
           <Button type="submit" size="lg" className={cn('w-full sm:w-auto sm:min-w-40')}>
-            Next
+            {t('ui.next')}
           </Button>
         </NextBar>
       </form>

@@ -1,4 +1,5 @@
 import type { ReactNode } from 'react';
+import { useInterfaceText } from '@/lib/interface-texts';
 
 /**
  * The respondent's page: a thin progress bar on top with, below it, a quiet note when answers
@@ -17,6 +18,7 @@ export function RespondLayout({
   offline?: boolean;
   children: ReactNode;
 }) {
+  const t = useInterfaceText();
   const pct = Math.round(Math.max(0, Math.min(1, progress)) * 100);
   return (
     <div className="flex min-h-dvh flex-col bg-canvas">
@@ -24,7 +26,7 @@ export function RespondLayout({
       <div className="sticky top-0 z-20">
         <div
           role="progressbar"
-          aria-label="Progress through the survey"
+          aria-label={t('ui.progress')}
           aria-valuemin={0}
           aria-valuemax={100}
           aria-valuenow={pct}
@@ -38,10 +40,7 @@ export function RespondLayout({
         <div aria-live="polite">
           {pending > 0 && offline && (
             <p className="border-b border-accent/50 bg-accent-soft px-4 py-2 text-sm text-ink">
-              <span className="mx-auto block max-w-2xl">
-                You seem to be offline. Your answers are kept on this device and will be sent when
-                the connection returns — you can keep going.
-              </span>
+              <span className="mx-auto block max-w-2xl">{t('ui.offline')}</span>
             </p>
           )}
         </div>

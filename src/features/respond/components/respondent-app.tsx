@@ -5,11 +5,16 @@ import { EndScreen, UnavailableScreen } from './finish-screens';
 import { RespondLayout } from './respond-layout';
 import { UnsentNotice } from './unsent-notice';
 import { GoBackContext } from './screen-frame';
+import { LanguageChoice } from './language-choice';
+import { InterfaceTextsContext } from '@/lib/interface-texts';
+import { useDocumentLanguage } from '../hooks/use-document-language';
 
 /** The respondent app for one public link: one screen at a time, every answer kept. */
 export function RespondentApp({ publicId, search }: { publicId: string; search: string }) {
   const r = useRespondent(publicId, search);
   const { state } = r;
+  const session = state.phase === 'active' ? state.session : null;
+  useDocumentLanguage(session?.language ?? null, session?.dir ?? null);
 
   if (state.phase === 'loading')
     return (
@@ -31,7 +36,7 @@ export function RespondentApp({ publicId, search }: { publicId: string; search: 
       </RespondLayout>
     );
 
-  const { session } = state;
+  if (!session) return null;
   const progress = r.totalScreens ? r.answeredCount / r.totalScreens : 0;
   const finished = r.finalStatus !== null && r.finalStatus !== 'in_progress';
   const closedUnderfoot = !session.surveyOpen && !finished;
@@ -44,7 +49,7 @@ export function RespondentApp({ publicId, search }: { publicId: string; search: 
     body = <Spinner label="Sending the answers you gave before the survey closed…" />;
   else if (closedUnderfoot)
     body = <UnavailableScreen reason="closed" studyName={session.studyName} redirectUrl={null} />;
-  else if (r.awaitingReceipt && !finished) body = <Spinner label="Checking your answer…" />;
+  else if (r.awaitingReceipt && !finished) body = <Spinner label={session.ui['ui.checking']} />;
   else if (finished && r.finalStatus !== 'completed')
     body = (
       <EndScreen
@@ -76,10 +81,26 @@ export function RespondentApp({ publicId, search }: { publicId: string; search: 
         />
       </GoBackContext.Provider>
     );
+  // A link with ?lang= has chosen already; otherwise the first screen offers the languages.
+  const choosing =
+    session.languages.length > 1 &&
+    r.answeredCount === 0 &&
+    !finished &&
+    !new URLSearchParams(search).has('lang');
   return (
-    <RespondLayout progress={finished ? 1 : progress} studyName={session.studyName} {...status}>
-      <UnsentNotice unsent={r.unsent} />
-      {body}
-    </RespondLayout>
+    <InterfaceTextsContext.Provider value={session.ui}>
+      <RespondLayout progress={finished ? 1 : progress} studyName={session.studyName} {...status}>
+        <UnsentNotice unsent={r.unsent} />
+        {choosing && (
+          <LanguageChoice
+            languages={session.languages}
+            current={session.language}
+            label={session.ui['ui.language']}
+            onChoose={r.changeLanguage}
+          />
+        )}
+        {body}
+      </RespondLayout>
+    </InterfaceTextsContext.Provider>
   );
 }

@@ -1,6 +1,7 @@
 import { createContext, useContext, useEffect, useRef, type ReactNode } from 'react';
 import { Button } from '@/components/ui/button';
 import { markFirstScreen } from '../utils/first-screen-mark';
+import { useInterfaceText } from '@/lib/interface-texts';
 
 /** What Back does on the current screen, or null when there is no earlier screen to change. */
 export const GoBackContext = createContext<(() => void) | null>(null);
@@ -64,11 +65,12 @@ export function Paragraphs({ text }: { text: string }) {
  */
 export function NextBar({ children }: { children: ReactNode }) {
   const goBack = useContext(GoBackContext);
+  const t = useInterfaceText();
   return (
     <div className="sticky bottom-0 -mx-4 mt-6 flex items-center gap-3 border-t border-line bg-canvas/95 px-4 py-3 backdrop-blur sm:static sm:mx-0 sm:border-0 sm:bg-transparent sm:px-0">
       {goBack && (
         <Button type="button" variant="secondary" size="lg" onClick={goBack}>
-          Back
+          {t('ui.back')}
         </Button>
       )}
       <div className="min-w-0 flex-1">{children}</div>

@@ -7,6 +7,7 @@ import {
 import type { AnswerValue, RespondentScreen, RespondentSession } from '@shared/schemas/respondent';
 import { CertaintyScaleField } from './certainty-scale';
 import { NextBar, ScreenFrame } from './screen-frame';
+import { useInterfaceText } from '@/lib/interface-texts';
 
 type Props = {
   screen: Extract<RespondentScreen, { kind: 'task' }>;
@@ -28,7 +29,8 @@ export function TaskScreen({ screen, definition, onAnswer, initial }: Props) {
   const alternatives: ChoiceTaskAlternative[] = screen.alternatives.map((a) =>
     a.fixed ? { kind: 'fixed' } : { kind: 'designed', designIndex: a.index, levels: a.levels },
   );
-  const label = `Choice ${screen.taskIndex} of ${screen.taskCount}`;
+  const t = useInterfaceText();
+  const label = t('ui.task_progress', { n: screen.taskIndex, total: screen.taskCount });
   return (
     <ScreenFrame title={screen.title} eyebrow={label} wide>
       <ChoiceTaskCard
@@ -53,14 +55,14 @@ export function TaskScreen({ screen, definition, onAnswer, initial }: Props) {
               onAnswer({ position: chosen, ...(certainty !== null ? { certainty } : {}) })
             }
           >
-            Next
+            {t('ui.next')}
           </Button>
           <p className="hidden text-sm text-ink-muted sm:block" aria-live="polite">
             {chosen === null
-              ? 'Choose one option to continue.'
+              ? t('ui.choose_prompt')
               : !ready
-                ? 'Say how sure you are to continue.'
-                : 'You can still change your choice.'}
+                ? t('ui.certainty_prompt')
+                : t('ui.can_change')}
           </p>
         </div>
       </NextBar>

@@ -16,7 +16,7 @@ export function UnsentNotice({ unsent }: { unsent: UnsentAnswer[] }) {
       <p className="font-medium">
         {n === 1 ? '1 answer' : `${n} answers`} from this device could not be saved.
       </p>
-      <ul className="mt-1 list-disc space-y-1 pl-5 text-ink-soft">
+      <ul className="mt-1 list-disc space-y-1 ps-5 text-ink-soft">
         {reasons.map((r) => (
           <li key={r}>{r}</li>
         ))}

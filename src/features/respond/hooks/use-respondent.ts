@@ -18,6 +18,7 @@ import { getSurveyLink } from '../api/get-survey-link';
 import { startSessionOnce } from '../api/start-session';
 import { getSession } from '../api/get-session';
 import { submitAnswer } from '../api/submit-answer';
+import { chooseLanguage } from '../api/choose-language';
 import {
   answerToSend,
   enqueueAnswer,
@@ -212,6 +213,20 @@ export function useRespondent(publicId: string, search: string) {
     return () => window.removeEventListener('online', retryNow);
   }, [sendOutbox]);
 
+  /** The first screen's language choice: the session comes back in that language. */
+  const changeLanguage = useCallback(
+    async (language: string) => {
+      if (!token.current) return;
+      try {
+        adopt(await chooseLanguage(publicId, token.current, language));
+      } catch {
+        // Refused (an answer got there first) or offline: the session as the server has it.
+        await resync();
+      }
+    },
+    [adopt, publicId, resync],
+  );
+
   const answer = useCallback(
     (screen: RespondentScreen, value: AnswerValue, responseMs: number) => {
       if (!token.current) return;
@@ -275,6 +290,7 @@ export function useRespondent(publicId: string, search: string) {
     awaitingReceipt: awaiting !== null,
     unsent,
     answer,
+    changeLanguage,
     /** The answer given earlier on the current screen (seen again through Back), if known. */
     givenOnCurrent: back.givenOnCurrent,
     goBack: back.goBack,

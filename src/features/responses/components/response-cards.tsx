@@ -40,7 +40,8 @@ export function ResponseCards({
             {statusLabels[r.status]}
             <span className="text-ink-muted">
               {' '}
-              · version {r.version} · block {r.block} · {r.startedAt.slice(0, 10)}
+              · version {r.version} · block {r.block}
+              {list.languages.length > 1 && ` · ${r.language}`} · {r.startedAt.slice(0, 10)}
             </span>
           </p>
           {list.personalData && (r.externalId || r.email) && (

@@ -7,6 +7,7 @@ import { FlagBadges } from './flag-badges';
 import { InclusionCell } from './inclusion-cell';
 import { formatDuration } from '@/utils/format';
 import { statusLabels } from '../utils/labels';
+import { languageName } from '@shared/languages/language-tags';
 
 const when = (iso: string) => iso.slice(0, 16).replace('T', ' ');
 
@@ -22,6 +23,8 @@ export function ResponsesTable({
   canManage: boolean;
 }) {
   const personal = list.personalData;
+  // The language column only when the study has several.
+  const languages = list.languages.length > 1;
   return (
     <div className="overflow-x-auto rounded-md border border-line">
       <table className="w-full min-w-[44rem] text-sm">
@@ -37,6 +40,11 @@ export function ResponsesTable({
             <th scope="col" className="px-3 py-2 text-right font-medium">
               Version · block
             </th>
+            {languages && (
+              <th scope="col" className="px-3 py-2 text-left font-medium">
+                Language
+              </th>
+            )}
             <th scope="col" className="px-3 py-2 text-right font-medium">
               Time
             </th>
@@ -71,6 +79,11 @@ export function ResponsesTable({
               <td className="num px-3 py-2">
                 {r.version} · {r.block}
               </td>
+              {languages && (
+                <td className="px-3 py-2 font-mono text-xs" title={languageName(r.language)}>
+                  {r.language}
+                </td>
+              )}
               <td className="num px-3 py-2">{formatDuration(r.durationMs)}</td>
               <td className="px-3 py-2">
                 <FlagBadges flags={r.flags} />

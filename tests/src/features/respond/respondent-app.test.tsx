@@ -6,10 +6,15 @@ import userEvent from '@testing-library/user-event';
 import type { RespondentSession } from '@shared/schemas/respondent';
 import { RespondentApp } from '@/features/respond/components/respondent-app';
 import { readOutbox } from '@/features/respond/utils/respondent-storage';
+import { englishInterfaceTexts } from '@shared/languages/interface-texts';
 
 const session: RespondentSession = {
   sessionToken: 'T'.repeat(32),
   studyName: 'Water services',
+  language: 'en',
+  dir: 'ltr',
+  languages: [{ tag: 'en', name: 'English', dir: 'ltr' }],
+  ui: englishInterfaceTexts,
   status: 'in_progress',
   definition: {
     attributes: [

@@ -48,11 +48,12 @@ export function Component() {
   const { teamId = '', studyId = '' } = useParams();
   const [block, setBlock] = useState(1);
   const [seed, setSeed] = useState(1);
+  const [lang, setLang] = useState<string | undefined>(undefined);
   const [width, setWidth] = useState<(typeof widths)[number]>(widths[0]);
   // The frame starts at `start`; `shown` follows it as the researcher answers inside it.
   const [start, setStart] = useState(0);
   const [shown, setShown] = useState(0);
-  const preview = useStudyPreview(teamId, studyId, block, seed);
+  const preview = useStudyPreview(teamId, studyId, block, seed, lang);
   useEffect(() => listenToPreviewScreens(setShown), []);
 
   if (preview.isPending) return <Spinner />;
@@ -80,7 +81,7 @@ export function Component() {
     setStart(index);
     setShown(index);
   };
-  const src = paths.previewFrame.getHref(teamId, studyId, { block, seed, screen: start });
+  const src = paths.previewFrame.getHref(teamId, studyId, { block, seed, screen: start, lang });
 
   return (
     <div className="space-y-4">
@@ -90,6 +91,20 @@ export function Component() {
         {!questionnaireSaved && ' The questionnaire has not been saved yet: this is the default.'}
       </Alert>
       <div className="flex flex-wrap items-end gap-3">
+        {survey.languages.length > 1 && (
+          <SelectField
+            label="Language"
+            wrapperClassName="w-44"
+            value={survey.language}
+            onChange={(e) => setLang(e.target.value)}
+          >
+            {survey.languages.map((l) => (
+              <option key={l.tag} value={l.tag}>
+                {l.name}
+              </option>
+            ))}
+          </SelectField>
+        )}
         <SelectField
           label="Block"
           wrapperClassName="w-32"

@@ -19,9 +19,10 @@ import { QualitySettingsForm } from '@/features/responses/components/quality-set
 import { ExcludeFlaggedForm } from '@/features/responses/components/exclude-flagged-form';
 import { EraseRespondentForm } from '@/features/responses/components/erase-respondent-form';
 import { statusLabels } from '@/features/responses/utils/labels';
+import { languageName } from '@shared/languages/language-tags';
 
 const PAGE_SIZE = 50;
-type Filters = Pick<ListResponsesQuery, 'status' | 'included' | 'flag'> & {
+type Filters = Pick<ListResponsesQuery, 'status' | 'included' | 'flag' | 'language'> & {
   sort: ListResponsesQuery['sort'];
   order: ListResponsesQuery['order'];
 };
@@ -96,7 +97,7 @@ export function Component() {
               </div>
             </details>
           )}
-          <div className="grid grid-cols-2 gap-2 sm:grid-cols-4">
+          <div className="grid grid-cols-2 gap-2 sm:grid-cols-4 lg:grid-cols-5">
             <SelectField
               label="Status"
               value={filters.status ?? ''}
@@ -120,6 +121,20 @@ export function Component() {
               <option value="true">Included</option>
               <option value="false">Excluded</option>
             </SelectField>
+            {data.languages.length > 1 && (
+              <SelectField
+                label="Language"
+                value={filters.language ?? ''}
+                onChange={(e) => set({ language: e.target.value || undefined })}
+              >
+                <option value="">All</option>
+                {data.languages.map((l) => (
+                  <option key={l} value={l}>
+                    {languageName(l)}
+                  </option>
+                ))}
+              </SelectField>
+            )}
             <SelectField
               label="Sort by"
               wrapperClassName="col-span-2 sm:col-span-1"

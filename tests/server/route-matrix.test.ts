@@ -51,7 +51,7 @@ function refusal(rule: Rule, caller: Caller): { status: number; code: string } |
 }
 
 /** Respondent routes that act on one session: another study's session token must not reach it. */
-const SESSION_ROUTES = ['GET /session', 'POST /answers', 'POST /revisions'];
+const SESSION_ROUTES = ['GET /session', 'POST /answers', 'POST /revisions', 'POST /language'];
 const OPEN_LINK_ROUTES = ['GET ', 'POST /sessions'];
 
 let t: TestApp;

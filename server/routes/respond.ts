@@ -18,7 +18,6 @@ import {
   publicIdParamsSchema,
   RESPONDENT_TOKEN_HEADER,
   sessionTokenSchema,
-  chooseLanguageSchema,
   startSessionSchema,
   submitAnswerSchema,
 } from '../../shared/schemas/respondent';
@@ -78,8 +77,8 @@ export function createRespondRouter(deps: AppDeps): Router {
   router.post('/language', perSession, async (req, res) => {
     const publicId = publicIdOf(req);
     const token = tokenOf(req);
-    const { language } = parseBody(chooseLanguageSchema, req);
-    res.json(await chooseLanguage(deps, publicId, token, language));
+    // The session is checked before the body: another session's token is a 404 whatever it sends.
+    res.json(await chooseLanguage(deps, publicId, token, req.body));
   });
   router.post('/revisions', perSession, async (req, res) => {
     const publicId = publicIdOf(req);

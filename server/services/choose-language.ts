@@ -5,13 +5,14 @@ import { getRespondentByToken, setRespondentLanguage } from '../../db/queries/re
 import { loadFrozenVersion } from './respondent-screens';
 import { buildSession, findPublicStudy } from './respondent-session';
 import { languageFromLink } from './respondent-language';
+import { chooseLanguageSchema } from '../../shared/schemas/respondent';
 
 /** The respondent's choice on the first screen: allowed until the first answer is stored. */
 export async function chooseLanguage(
   deps: AppDeps,
   publicId: string,
   sessionToken: string,
-  raw: string,
+  body: unknown,
 ) {
   const study = await findPublicStudy(deps, publicId);
   const respondent = await getRespondentByToken(deps.db, { studyId: study.id, sessionToken });
@@ -20,7 +21,7 @@ export async function chooseLanguage(
     id: respondent.versionId,
     studyId: study.id,
   });
-  const language = languageFromLink(version, raw);
+  const language = languageFromLink(version, chooseLanguageSchema.parse(body ?? {}).language);
   if (
     language !== respondent.language &&
     !(await setRespondentLanguage(deps.db, { id: respondent.id, language }))

@@ -88,6 +88,8 @@ const envSchema = z.object({
   DB_CONNECT_TIMEOUT_MS: z.coerce.number().int().min(100).default(5_000),
   DB_STATEMENT_TIMEOUT_MS: z.coerce.number().int().min(100).default(30_000),
   DB_IDLE_IN_TRANSACTION_TIMEOUT_MS: z.coerce.number().int().min(100).default(15_000),
+  /** Largest choice or background file an import accepts, in MB (larger: 413). */
+  IMPORT_MAX_MB: z.coerce.number().positive().default(256),
   /** Nice value of design and estimation threads (0 = same priority as requests; 19 lowest). */
   ENGINE_THREAD_NICE: z.coerce.number().int().min(0).max(19).default(10),
 });

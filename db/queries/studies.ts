@@ -10,6 +10,7 @@ export const studyColumns = {
   publicTitle: studies.publicTitle,
   description: studies.description,
   status: studies.status,
+  source: studies.source,
   definition: studies.definition,
   questionnaire: studies.questionnaire,
   settings: studies.settings,

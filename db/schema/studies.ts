@@ -31,6 +31,8 @@ export const studies = pgTable(
     publicTitle: text('public_title').notNull().default(''),
     description: text('description').notNull().default(''),
     status: studyStatusEnum('status').notNull().default('draft'),
+    /** 'fielded': answered through Choicewright; 'imported': created from a choice file. */
+    source: text('source').$type<'fielded' | 'imported'>().notNull().default('fielded'),
     definition: jsonb('definition').notNull(),
     questionnaire: jsonb('questionnaire').notNull().default({}),
     /** Fieldwork settings: close date, quota, redirects, quality thresholds. */

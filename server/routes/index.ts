@@ -26,6 +26,7 @@ import { createSharesRouter } from './shares';
 import { createExportsRouter } from './exports';
 import { createAuditRouter } from './audit';
 import { createPreviewRouter } from './preview';
+import { createStudyImportsRouter } from './study-imports';
 
 export function mountApiRoutes(api: Router, deps: AppDeps): void {
   api.use('/health', createHealthRouter(deps));
@@ -49,6 +50,7 @@ export function mountApiRoutes(api: Router, deps: AppDeps): void {
   api.use('/teams/:teamId/studies/:studyId/questionnaire', createQuestionnaireRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/lifecycle', createLifecycleRouter(deps));
   api.use('/teams/:teamId/audit', createAuditRouter(deps));
+  api.use('/teams/:teamId/imports', createStudyImportsRouter(deps));
   api.use('/teams/:teamId/studies', createStudiesRouter(deps));
   api.use('/teams', createTeamsRouter(deps));
 }

@@ -109,6 +109,15 @@ export async function listVersions(
   return rows.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }));
 }
 
+/** A study imported from a file has no fieldwork: it never goes live or back to draft. */
+function assertFielded(study: { source: string }): void {
+  if (study.source === 'imported')
+    throw new ConflictError(
+      'study_imported',
+      'This study was imported from a choice file: it has no fieldwork, so it cannot go live or become a draft.',
+    );
+}
+
 /**
  * Draft or closed → live. Problems come back as a 422 listing every one of them. A new version
  * is frozen only when definition, design or questionnaire differ from the latest version.
@@ -125,6 +134,7 @@ export async function goLive(
     if (!study) throw new NotFoundError('Study');
     if (study.status === 'live')
       throw new ConflictError('already_live', 'The study is already live.');
+    assertFielded(study);
     if (opts.from && study.status !== opts.from)
       throw new ConflictError(
         'wrong_status',
@@ -224,6 +234,7 @@ export async function returnToDraft(
     if (!study) throw new NotFoundError('Study');
     if (study.status !== 'closed')
       throw new ConflictError('not_closed', 'Close the study before editing it again.');
+    assertFielded(study);
     const updated = await updateStudyLifecycle(tx, {
       id: studyId,
       teamId,

@@ -30,6 +30,7 @@ function toSummary(row: StudyRow): StudySummary {
     publicTitle: row.publicTitle,
     description: row.description,
     status: row.status,
+    source: row.source,
     archivedAt: row.archivedAt?.toISOString() ?? null,
     createdAt: row.createdAt.toISOString(),
     updatedAt: row.updatedAt.toISOString(),

@@ -21,6 +21,7 @@ export const auditActions = [
   'study.reopened',
   'study.returned_to_draft',
   'study.design_adopted',
+  'study.imported',
   'respondent.excluded',
   'respondent.included',
   'respondent.flagged_excluded',

@@ -20,8 +20,11 @@ export const designTaskSchema = z.object({
 });
 export type DesignTask = z.infer<typeof designTaskSchema>;
 
+/** Most tasks a design holds (imported studies store each distinct choice set as one). */
+export const DESIGN_MAX_TASKS = 2000;
+
 export const designSchema = z.object({
   blocks: z.number().int().min(1).max(50),
-  tasks: z.array(designTaskSchema).min(1).max(2000),
+  tasks: z.array(designTaskSchema).min(1).max(DESIGN_MAX_TASKS),
 });
 export type Design = z.infer<typeof designSchema>;

@@ -59,6 +59,8 @@ export type StudySummary = {
   publicTitle: string;
   description: string;
   status: StudyStatus;
+  /** 'imported': created from a choice file (no fieldwork, never live). */
+  source: 'fielded' | 'imported';
   archivedAt: string | null;
   createdAt: string;
   updatedAt: string;

@@ -1,0 +1,1 @@
+ALTER TABLE "studies" ADD COLUMN "source" text DEFAULT 'fielded' NOT NULL;

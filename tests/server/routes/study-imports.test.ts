@@ -1,0 +1,278 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type supertest from 'supertest';
+import { eq } from 'drizzle-orm';
+import { createTestApp, type TestApp } from '../../support/test-app';
+import { createTeamWithAllRoles } from '../../support/factories';
+import { studies } from '../../../db/schema/studies';
+import { syntheticChoiceCsv } from '../../../scripts/lib/synthetic-choice-file';
+import type { ImportAttribute, ImportPreview } from '../../../shared/schemas/study-import';
+import type { Role } from '../../../shared/permissions';
+
+let t: TestApp;
+let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
+beforeAll(async () => {
+  t = await createTestApp({ IMPORT_MAX_MB: '0.05' });
+  team = await createTeamWithAllRoles(t);
+});
+afterAll(async () => {
+  await t.close();
+});
+
+const base = () => `/api/teams/${team.teamId}/imports`;
+const countStudies = async () =>
+  (await t.deps.db.select().from(studies).where(eq(studies.teamId, team.teamId))).length;
+
+function upload(
+  agent: supertest.Agent,
+  url: string,
+  files: { choices?: string; background?: string },
+  setup?: unknown,
+) {
+  let req = agent.post(url);
+  if (setup !== undefined)
+    req = req.field('setup', typeof setup === 'string' ? setup : JSON.stringify(setup));
+  for (const [field, text] of Object.entries(files))
+    req = req.attach(field, Buffer.from(text, 'utf8'), {
+      filename: `${field}.csv`,
+      contentType: 'text/csv',
+    });
+  return req;
+}
+
+const small = [
+  'respondent,task,alt,chosen,bill,river',
+  'A,1,1,1,3,poor',
+  'A,1,2,0,6,good',
+  'A,2,1,0,0,fair',
+  'A,2,2,1,10,good',
+  'B,1,1,0,3,poor',
+  'B,1,2,1,6,good',
+  'B,2,1,1,0,fair',
+  'B,2,2,0,10,good',
+].join('\n');
+
+const setupFor = (attributes: ImportAttribute[]) => ({ name: 'Imported water study', attributes });
+
+describe('POST /imports/preview', () => {
+  it('when the file is valid, infers the attributes and counts, and saves nothing', async () => {
+    const before = await countStudies();
+    const res = await upload(team.agents.editor, `${base()}/preview`, { choices: small }).expect(
+      200,
+    );
+    const body = res.body as ImportPreview;
+    expect(body).toMatchObject({
+      rows: 8,
+      respondents: 2,
+      tasks: 4,
+      alternativesPerTask: 2,
+      choiceSets: 2,
+      problemCount: 0,
+      problems: [],
+    });
+    expect(body.attributes).toEqual([
+      {
+        column: 'bill',
+        name: 'Bill',
+        kind: 'numeric',
+        coding: 'linear',
+        isCost: true,
+        levels: [0, 3, 6, 10].map((v) => ({ raw: String(v), label: '', value: v })),
+      },
+      {
+        column: 'river',
+        name: 'River',
+        kind: 'categorical',
+        coding: 'dummy',
+        isCost: false,
+        levels: ['poor', 'good', 'fair'].map((v) => ({ raw: v, label: v })),
+      },
+    ]);
+    expect(await countStudies()).toBe(before);
+  });
+
+  it('when rows are bad, lists each problem with its line and column', async () => {
+    const text = [
+      'respondent,task,alt,chosen,bill,river',
+      'A,1,1,0,3,poor', // 2: task A/1 has no chosen alternative
+      'A,1,2,0,6,good',
+      'A,2,1,1,0,fair', // 4: task A/2 has two chosen
+      'A,2,2,1,ten,good', // 5: not numeric
+      'B,1,1,1,3,poor',
+      'B,1,2,0,6,', // 7: B has no river here but has one elsewhere
+      'B,1,2,0,6,good', // 8: duplicate of line 7 (same respondent, task, alt)
+      'B,2,1,1,0,fair',
+      'B,2,2,0,10,good',
+      'B,3,1,1', // 11: field count
+    ].join('\n');
+    const body = (
+      await upload(team.agents.editor, `${base()}/preview`, { choices: text }).expect(200)
+    ).body as ImportPreview;
+    const found = body.problems.map((p) => [p.line, p.column, p.code]);
+    expect(found).toEqual(
+      expect.arrayContaining([
+        [2, 'chosen', 'chosen_count'],
+        [4, 'chosen', 'chosen_count'],
+        [5, 'bill', 'not_numeric'],
+        [7, 'river', 'inconsistent_attributes'],
+        [8, 'alt', 'duplicate_row'],
+        [11, null, 'field_count'],
+      ]),
+    );
+    expect(body.problemCount).toBe(body.problems.length);
+    expect(body.problems.find((p) => p.code === 'not_numeric')?.message).toContain('“ten”');
+  });
+
+  it('when a key column is missing, names it on line 1 and reads no further', async () => {
+    const body = (
+      await upload(team.agents.editor, `${base()}/preview`, {
+        choices: 'respondent,task,option,chosen,bill\nA,1,1,1,3\n',
+      }).expect(200)
+    ).body as ImportPreview;
+    expect(body.problems).toEqual([
+      expect.objectContaining({ line: 1, column: 'alt', code: 'missing_column' }),
+    ]);
+    expect(body.rows).toBe(0);
+  });
+
+  it('when an edited set-up makes a column numeric, reports its text values', async () => {
+    const setup = setupFor([
+      {
+        column: 'river',
+        name: 'River health',
+        kind: 'numeric',
+        coding: 'linear',
+        isCost: false,
+        levels: [
+          { raw: '1', label: '', value: 1 },
+          { raw: '2', label: '', value: 2 },
+        ],
+      },
+    ]);
+    const body = (
+      await upload(team.agents.editor, `${base()}/preview`, { choices: small }, setup).expect(200)
+    ).body as ImportPreview;
+    expect(body.problems.map((p) => [p.line, p.column, p.code])).toEqual([
+      [2, 'river', 'not_numeric'],
+      [3, 'river', 'not_numeric'],
+      [4, 'river', 'not_numeric'],
+    ]);
+  });
+
+  it('when no file is sent, returns 400 naming the field', async () => {
+    const res = await team.agents.editor.post(`${base()}/preview`).field('x', '1').expect(400);
+    expect(res.body.error).toMatchObject({ code: 'invalid_input' });
+    expect(res.body.error.fields).toEqual([{ path: 'choices', message: 'Choose a file' }]);
+  });
+
+  it('when the file is larger than the cap, returns 413 naming the field', async () => {
+    const res = await upload(team.agents.editor, `${base()}/preview`, {
+      choices: syntheticChoiceCsv(100),
+    }).expect(413);
+    expect(res.body.error).toMatchObject({ code: 'file_too_large' });
+    expect(res.body.error.fields[0].path).toBe('choices');
+  });
+});
+
+describe('POST /imports', () => {
+  const inferred = async (choices: string) =>
+    (
+      (await upload(team.agents.owner, `${base()}/preview`, { choices }).expect(200))
+        .body as ImportPreview
+    ).attributes;
+
+  it('when the file has problems, returns 422 with line and column and saves nothing', async () => {
+    const before = await countStudies();
+    const bad = small.replace('A,1,2,0,6,good', 'A,1,2,1,6,good');
+    const res = await upload(
+      team.agents.editor,
+      base(),
+      { choices: bad },
+      setupFor(await inferred(small)),
+    ).expect(422);
+    expect(res.body.error).toMatchObject({ code: 'import_problems' });
+    expect(res.body.error.message).toContain('nothing was saved');
+    expect(res.body.error.fields).toEqual([
+      {
+        path: 'choices[line 2].chosen',
+        message: expect.stringContaining('2 alternatives are chosen'),
+      },
+    ]);
+    expect(await countStudies()).toBe(before);
+  });
+
+  it('when the set-up is not valid JSON, returns 400 on the setup field', async () => {
+    const res = await upload(team.agents.editor, base(), { choices: small }, '{nope').expect(400);
+    expect(res.body.error.fields[0]).toMatchObject({ path: 'setup' });
+  });
+
+  it('when an attribute has one level, returns 400 naming that field', async () => {
+    const [bill] = await inferred(small);
+    const res = await upload(
+      team.agents.editor,
+      base(),
+      { choices: small },
+      setupFor([{ ...bill, levels: bill.levels.slice(0, 1) }]),
+    ).expect(400);
+    expect(res.body.error.fields[0]).toMatchObject({ path: 'setup.attributes.0.levels' });
+  });
+
+  it('when the background file names an unknown respondent, returns 422 with its line', async () => {
+    const res = await upload(
+      team.agents.editor,
+      base(),
+      { choices: small, background: 'respondent,household\nA,2\nZ,3\n' },
+      setupFor(await inferred(small)),
+    ).expect(422);
+    expect(res.body.error.fields).toEqual([
+      { path: 'background[line 3].respondent', message: expect.stringContaining('“Z”') },
+    ]);
+  });
+
+  it('when all is well, creates a closed study marked imported that cannot go live', async () => {
+    const res = await upload(
+      team.agents.editor,
+      base(),
+      { choices: small, background: 'respondent,household,tenure\nA,2,owner\nB,,renter\n' },
+      setupFor(await inferred(small)),
+    ).expect(201);
+    expect(res.body).toMatchObject({ respondents: 2, tasks: 4, rows: 8 });
+    const study = (
+      await team.agents.viewer
+        .get(`/api/teams/${team.teamId}/studies/${res.body.studyId}`)
+        .expect(200)
+    ).body;
+    expect(study).toMatchObject({ status: 'closed', source: 'imported', currentVersion: 1 });
+    expect(study.counts).toMatchObject({ respondents: 2 });
+    const live = await team.agents.editor
+      .post(`/api/teams/${team.teamId}/studies/${res.body.studyId}/lifecycle/go-live`)
+      .expect(409);
+    expect(live.body.error.code).toBe('study_imported');
+  });
+});
+
+describe('roles', () => {
+  const cases: [Role | 'outsider', number][] = [
+    ['owner', 200],
+    ['editor', 200],
+    ['analyst', 403],
+    ['viewer', 403],
+    // Another team's member does not learn that the team exists.
+    ['outsider', 404],
+  ];
+  it.each(cases)('preview as %s answers %i', async (role, status) => {
+    const agent = role === 'outsider' ? team.outsider : team.agents[role];
+    await upload(agent, `${base()}/preview`, { choices: small }).expect(status);
+  });
+  it.each(cases)('save as %s answers %i', async (role, status) => {
+    const agent = role === 'outsider' ? team.outsider : team.agents[role];
+    const before = await countStudies();
+    const attributes = (
+      (await upload(team.agents.owner, `${base()}/preview`, { choices: small }).expect(200))
+        .body as ImportPreview
+    ).attributes;
+    await upload(agent, base(), { choices: small }, setupFor(attributes)).expect(
+      status === 200 ? 201 : status,
+    );
+    expect(await countStudies()).toBe(before + (status === 200 ? 1 : 0));
+  });
+});

@@ -122,6 +122,24 @@ describe('POST /imports/preview', () => {
     expect(body.problems.find((p) => p.code === 'not_numeric')?.message).toContain('“ten”');
   });
 
+  it('counts lines as an editor shows them: empty lines and line breaks inside quotes included', async () => {
+    const text = [
+      'respondent,task,alt,chosen,bill,river',
+      'A,1,1,1,3,"poor',
+      'water"', // line 3 belongs to the quoted cell that starts on line 2
+      'A,1,2,0,6,good',
+      '',
+      'A,2,1,1,0,fair',
+      'A,2,2,1,10,good', // line 7: the task of line 6 has two chosen
+    ].join('\n');
+    const body = (
+      await upload(team.agents.editor, `${base()}/preview`, { choices: text }).expect(200)
+    ).body as ImportPreview;
+    expect(body.problems.map((p) => [p.line, p.column, p.code])).toEqual([
+      [6, 'chosen', 'chosen_count'],
+    ]);
+  });
+
   it('when a key column is missing, names it on line 1 and reads no further', async () => {
     const body = (
       await upload(team.agents.editor, `${base()}/preview`, {

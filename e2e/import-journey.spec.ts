@@ -8,6 +8,7 @@ import fs from 'node:fs';
 import { expect, test } from '@playwright/test';
 import { signIn } from './support/auth';
 import { demoCredential } from './support/demo-credentials';
+import { startRun } from './support/runs';
 import { syntheticChoiceCsv } from '../scripts/lib/synthetic-choice-file';
 
 const RESPONDENTS = 80;
@@ -76,21 +77,14 @@ test('an owner imports choice data, fixes the file, edits attributes, fits an MN
 
   await test.step('fit an MNL, then a mixed logit for taste profiles', async () => {
     await expect(page.getByRole('heading', { name: 'Models' })).toBeVisible();
-    await page.getByRole('button', { name: 'New run' }).click();
-    await page.getByLabel('Model', { exact: true }).selectOption('mnl');
-    await page.getByLabel('Name', { exact: true }).fill('MNL of the imported file');
-    await page.getByRole('button', { name: 'Start run' }).click();
-    const mnl = page.getByRole('listitem').filter({ hasText: 'MNL of the imported file' });
+    const mnl = await startRun(page, { model: 'mnl', name: 'MNL of the imported file' });
     await expect(mnl.getByText('Done', { exact: true })).toBeVisible({ timeout: 90_000 });
-    await page.getByRole('button', { name: 'New run' }).click();
-    await page.getByLabel('Model', { exact: true }).selectOption('mixed');
-    await page.getByLabel('Name', { exact: true }).fill('Mixed logit of the imported file');
-    await page.getByLabel('Draws per respondent').fill('50');
-    await page.getByLabel('Draws for taste profiles').fill('200');
-    await page.getByRole('button', { name: 'Start run' }).click();
-    const mixed = page
-      .getByRole('listitem')
-      .filter({ hasText: 'Mixed logit of the imported file' });
+    const mixed = await startRun(page, {
+      model: 'mixed',
+      name: 'Mixed logit of the imported file',
+      draws: 50,
+      profileDraws: 200,
+    });
     await expect(mixed.getByText('Done', { exact: true })).toBeVisible({ timeout: 120_000 });
   });
 

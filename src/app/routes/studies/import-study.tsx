@@ -6,7 +6,7 @@
  */
 import { useId, useState } from 'react';
 import { Link, useNavigate } from 'react-router';
-import type { ImportSetupInput } from '@shared/schemas/study-import';
+import type { ImportPreview, ImportSetupInput } from '@shared/schemas/study-import';
 import { Card, PageHeader } from '@/components/ui/feedback';
 import { ErrorText } from '@/components/ui/error-boundary';
 import { Button } from '@/components/ui/button';
@@ -30,6 +30,8 @@ export function Component() {
   const [choices, setChoices] = useState<File | null>(null);
   const [background, setBackground] = useState<File | null>(null);
   const [round, setRound] = useState(0);
+  // The latest preview stays on screen (and the set-up form mounted) while a new check runs.
+  const [latest, setLatest] = useState<ImportPreview | null>(null);
   const preview = usePreviewStudyImport(teamId);
   const save = useSaveStudyImport(teamId);
   const files = choices ? { choices, background } : null;
@@ -37,7 +39,15 @@ export function Component() {
   const check = (setup?: ImportSetupInput) => {
     if (!files) return;
     save.reset();
-    preview.mutate({ files, setup }, { onSuccess: () => !setup && setRound((r) => r + 1) });
+    preview.mutate(
+      { files, setup },
+      {
+        onSuccess: (data) => {
+          setLatest(data);
+          if (!setup) setRound((r) => r + 1);
+        },
+      },
+    );
   };
   const create = (setup: ImportSetupInput) => {
     if (!files) return;
@@ -77,6 +87,7 @@ export function Component() {
               className={fileInput}
               onChange={(e) => {
                 setChoices(e.target.files?.[0] ?? null);
+                setLatest(null);
                 preview.reset();
               }}
             />
@@ -92,6 +103,7 @@ export function Component() {
               className={fileInput}
               onChange={(e) => {
                 setBackground(e.target.files?.[0] ?? null);
+                setLatest(null);
                 preview.reset();
               }}
             />
@@ -102,16 +114,16 @@ export function Component() {
           </Button>
           {preview.isPending && <p className="text-sm text-ink-muted">Reading the files…</p>}
           <ErrorText error={preview.error} />
-          {preview.data && <ImportSummary preview={preview.data} />}
+          {latest && <ImportSummary preview={latest} />}
         </div>
       </Card>
-      {preview.data && preview.data.attributes.length > 0 && (
+      {latest && latest.attributes.length > 0 && (
         <Card title="2. Attributes and levels" className="max-w-5xl">
           <ImportSetupForm
             key={round}
-            attributes={preview.data.attributes}
+            attributes={latest.attributes}
             defaultName={choices?.name.replace(/\.[^.]+$/, '') ?? ''}
-            canSave={preview.data.problemCount === 0}
+            canSave={latest.problemCount === 0}
             busy={preview.isPending || save.isPending}
             onCheck={(setup) => check(setup)}
             onSave={create}

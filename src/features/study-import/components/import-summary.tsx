@@ -1,5 +1,6 @@
 import type { ImportPreview } from '@shared/schemas/study-import';
 import { Alert } from '@/components/ui/feedback';
+import { ProblemTable } from '@/components/ui/problem-table';
 import { formatCount } from '@/utils/format';
 
 const fileLabels = { choices: 'Choice file', background: 'Background file' } as const;
@@ -25,36 +26,24 @@ export function ImportSummary({ preview }: { preview: ImportPreview }) {
             {formatCount(preview.problemCount)} problem{preview.problemCount === 1 ? '' : 's'} —
             nothing can be saved until the file is fixed
           </h3>
-          <div className="max-h-72 overflow-auto rounded-md border border-danger/30">
-            <table className="w-full text-sm" aria-label="Problems in the files">
-              <thead className="sticky top-0 bg-danger-soft text-xs text-ink-soft">
-                <tr>
-                  <th scope="col" className="px-2 py-1.5 text-left font-medium">
-                    File
-                  </th>
-                  <th scope="col" className="px-2 py-1.5 text-right font-medium">
-                    Line
-                  </th>
-                  <th scope="col" className="px-2 py-1.5 text-left font-medium">
-                    Column
-                  </th>
-                  <th scope="col" className="px-2 py-1.5 text-left font-medium">
-                    Problem
-                  </th>
-                </tr>
-              </thead>
-              <tbody>
-                {preview.problems.map((p, i) => (
-                  <tr key={i} className="border-t border-line/60 align-top">
-                    <td className="px-2 py-1 whitespace-nowrap">{fileLabels[p.file]}</td>
-                    <td className="num px-2 py-1 text-right">{p.line ?? '—'}</td>
-                    <td className="px-2 py-1 font-mono text-xs">{p.column ?? '—'}</td>
-                    <td className="px-2 py-1">{p.message}</td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </div>
+          <ProblemTable
+            label="Problems in the files"
+            columns={[
+              { header: 'File' },
+              { header: 'Line', numeric: true },
+              { header: 'Column' },
+              { header: 'Problem' },
+            ]}
+            rows={preview.problems.map((p, i) => ({
+              key: String(i),
+              cells: [
+                fileLabels[p.file],
+                p.line ?? '—',
+                <span className="font-mono text-xs">{p.column ?? '—'}</span>,
+                p.message,
+              ],
+            }))}
+          />
           {preview.problemCount > preview.problems.length && (
             <p className="mt-1 text-xs text-ink-muted">
               The first {preview.problems.length} problems are listed.

@@ -14,6 +14,8 @@ export const studyColumns = {
   definition: studies.definition,
   questionnaire: studies.questionnaire,
   settings: studies.settings,
+  languages: studies.languages,
+  translations: studies.translations,
   currentDesignId: studies.currentDesignId,
   currentVersion: studies.currentVersion,
   archivedAt: studies.archivedAt,
@@ -79,6 +81,8 @@ export async function insertStudy(
     description: string;
     definition: unknown;
     questionnaire?: unknown;
+    languages?: string[];
+    translations?: Record<string, Record<string, string>>;
     createdBy: string | null;
   },
 ) {
@@ -92,6 +96,8 @@ export async function insertStudy(
       description: params.description,
       definition: params.definition,
       questionnaire: params.questionnaire ?? {},
+      ...(params.languages ? { languages: params.languages } : {}),
+      ...(params.translations ? { translations: params.translations } : {}),
       createdBy: params.createdBy,
     })
     .returning(studyColumns);
@@ -121,18 +127,24 @@ export async function updateStudy(
   return row ?? null;
 }
 
-/** Only a draft's definition changes: the status check is part of the write itself. */
-export async function updateDraftDefinition(
+/** Writes to a draft only: the status check is part of the write itself. */
+export async function updateDraftStudy(
   db: DbOrTx,
-  params: { id: string; teamId: string; definition: unknown; clearDesign: boolean },
+  params: {
+    id: string;
+    teamId: string;
+    set: Partial<{
+      definition: unknown;
+      currentDesignId: null;
+      questionnaire: unknown;
+      languages: string[];
+      translations: Record<string, Record<string, string>>;
+    }>;
+  },
 ) {
   const [row] = await db
     .update(studies)
-    .set({
-      definition: params.definition,
-      ...(params.clearDesign ? { currentDesignId: null } : {}),
-      updatedAt: new Date(),
-    })
+    .set({ ...params.set, updatedAt: new Date() })
     .where(
       and(
         eq(studies.id, params.id),
@@ -142,4 +154,19 @@ export async function updateDraftDefinition(
     )
     .returning(studyColumns);
   return row ?? null;
+}
+
+/** Only a draft's definition changes. */
+export async function updateDraftDefinition(
+  db: DbOrTx,
+  params: { id: string; teamId: string; definition: unknown; clearDesign: boolean },
+) {
+  return updateDraftStudy(db, {
+    id: params.id,
+    teamId: params.teamId,
+    set: {
+      definition: params.definition,
+      ...(params.clearDesign ? { currentDesignId: null } : {}),
+    },
+  });
 }

@@ -6,7 +6,7 @@ import { and, asc, desc, eq, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { designs, studies, studyVersions } from '../schema/studies';
 import { respondents } from '../schema/fieldwork';
-import { studyColumns } from './studies';
+import { studyColumns, updateDraftStudy } from './studies';
 
 const versionColumns = {
   id: studyVersions.id,
@@ -15,6 +15,8 @@ const versionColumns = {
   definition: studyVersions.definition,
   design: studyVersions.design,
   questionnaire: studyVersions.questionnaire,
+  languages: studyVersions.languages,
+  translations: studyVersions.translations,
   createdAt: studyVersions.createdAt,
 };
 
@@ -102,6 +104,9 @@ export async function insertVersion(
     definition: unknown;
     design: unknown;
     questionnaire: unknown;
+    /** Absent: the column defaults (English only, no translations). */
+    languages?: string[];
+    translations?: Record<string, Record<string, string>>;
   },
 ) {
   const [row] = await db.insert(studyVersions).values(params).returning(versionColumns);
@@ -161,23 +166,33 @@ export async function updateStudySettings(
   return row ?? null;
 }
 
-/** Only a draft's questionnaire changes: the status check is part of the write itself. */
+/** Only a draft's questionnaire changes. */
 export async function updateDraftQuestionnaire(
   db: DbOrTx,
   params: { id: string; teamId: string; questionnaire: unknown },
 ) {
-  const [row] = await db
-    .update(studies)
-    .set({ questionnaire: params.questionnaire, updatedAt: new Date() })
-    .where(
-      and(
-        eq(studies.id, params.id),
-        eq(studies.teamId, params.teamId),
-        eq(studies.status, 'draft'),
-      ),
-    )
-    .returning(studyColumns);
-  return row ?? null;
+  return updateDraftStudy(db, {
+    id: params.id,
+    teamId: params.teamId,
+    set: { questionnaire: params.questionnaire },
+  });
+}
+
+/** Only a draft's languages and translations change. */
+export async function updateDraftLanguages(
+  db: DbOrTx,
+  params: {
+    id: string;
+    teamId: string;
+    languages: string[];
+    translations: Record<string, Record<string, string>>;
+  },
+) {
+  return updateDraftStudy(db, {
+    id: params.id,
+    teamId: params.teamId,
+    set: { languages: params.languages, translations: params.translations },
+  });
 }
 
 /** Live studies with a close date or a quota: candidates for the periodic close check. */

@@ -69,6 +69,8 @@ export const respondents = pgTable(
     finishedAt: timestamp('finished_at', { withTimezone: true }),
     durationMs: integer('duration_ms'),
     device: text('device').notNull().default(''),
+    /** The language the respondent answers in (one of their version's languages). */
+    language: text('language').notNull().default('en'),
     /** Automatic quality flags (speeder, same position, dominance failure, inconsistency). */
     flags: jsonb('flags').notNull().default({}),
     included: boolean('included').notNull().default(true),

@@ -37,6 +37,13 @@ export const studies = pgTable(
     questionnaire: jsonb('questionnaire').notNull().default({}),
     /** Fieldwork settings: close date, quota, redirects, quality thresholds. */
     settings: jsonb('settings').notNull().default({}),
+    /** BCP 47 tags; the first is the source language the documents are written in. */
+    languages: jsonb('languages').$type<string[]>().notNull().default(['en']),
+    /** language -> text key -> text (shared/languages/study-text-keys.ts names the keys). */
+    translations: jsonb('translations')
+      .$type<Record<string, Record<string, string>>>()
+      .notNull()
+      .default({}),
     /** The design currently attached to the study (designs.id). */
     currentDesignId: uuid('current_design_id'),
     /** Latest frozen version number (0 = never live). */
@@ -115,6 +122,12 @@ export const studyVersions = pgTable(
     definition: jsonb('definition').notNull(),
     design: jsonb('design').notNull(),
     questionnaire: jsonb('questionnaire').notNull(),
+    /** The languages and translations frozen with the questionnaire. */
+    languages: jsonb('languages').$type<string[]>().notNull().default(['en']),
+    translations: jsonb('translations')
+      .$type<Record<string, Record<string, string>>>()
+      .notNull()
+      .default({}),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [uniqueIndex('study_versions_study_version_uq').on(t.studyId, t.version)],

@@ -26,6 +26,7 @@ import { createSharesRouter } from './shares';
 import { createExportsRouter } from './exports';
 import { createAuditRouter } from './audit';
 import { createPreviewRouter } from './preview';
+import { createStudyTextsRouter } from './study-texts';
 import { createStudyImportsRouter } from './study-imports';
 
 export function mountApiRoutes(api: Router, deps: AppDeps): void {
@@ -49,6 +50,7 @@ export function mountApiRoutes(api: Router, deps: AppDeps): void {
   api.use('/r/:publicId', createRespondRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/questionnaire', createQuestionnaireRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/lifecycle', createLifecycleRouter(deps));
+  api.use('/teams/:teamId/studies/:studyId/texts', createStudyTextsRouter(deps));
   api.use('/teams/:teamId/audit', createAuditRouter(deps));
   api.use('/teams/:teamId/imports', createStudyImportsRouter(deps));
   api.use('/teams/:teamId/studies', createStudiesRouter(deps));

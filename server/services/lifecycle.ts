@@ -71,6 +71,8 @@ async function readinessOf(db: DbOrTx, study: StudyRow, now: Date) {
       panelIds: Object.values(settings.redirects).some((url) => url?.includes('{pid}') ?? false),
     },
     definition: study.definition,
+    publicTitle: study.publicTitle,
+    languages: { languages: study.languages, translations: study.translations },
     design: design?.design ?? null,
     questionnaire: study.questionnaire,
     settings,
@@ -148,7 +150,13 @@ export async function goLive(
         `The study cannot go live yet: ${problems.length} problem${problems.length === 1 ? '' : 's'} to fix.`,
         problems.map((p) => ({ path: p.path, message: p.message })),
       );
-    const frozen = { definition: study.definition, design, questionnaire: study.questionnaire };
+    const frozen = {
+      definition: study.definition,
+      design,
+      questionnaire: study.questionnaire,
+      languages: study.languages,
+      translations: study.translations,
+    };
     const latest = await getLatestVersion(tx, { studyId });
     const unchanged =
       latest &&
@@ -156,6 +164,8 @@ export async function goLive(
         definition: latest.definition,
         design: latest.design,
         questionnaire: latest.questionnaire,
+        languages: latest.languages,
+        translations: latest.translations,
       }) === canonical(frozen);
     const version = unchanged ? latest.version : (latest?.version ?? 0) + 1;
     if (!unchanged) await insertVersion(tx, { studyId, version, ...frozen });

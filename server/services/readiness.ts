@@ -12,11 +12,16 @@ import { checkConsentIdentifiability, type Identifiability } from './consent-che
 import { checkLevelLabel, getLevelLabel } from '../../shared/study/level-labels';
 import { formatCompact } from '../../shared/format';
 import { listUnshownLevels } from '../engine/design/diagnostics/level-balance';
+import type { StudyLanguages } from '../../shared/languages/study-texts';
+import { checkStudyTexts } from './readiness-texts';
 
 type Input = {
   /** Whether answers can be traced to a person (personal links, panel ids sent back). */
   identifiability?: Identifiability;
   definition: unknown;
+  /** The title respondents see, and the languages every text must exist in. */
+  publicTitle?: string;
+  languages?: StudyLanguages;
   design: unknown | null;
   questionnaire: unknown;
   settings: FieldworkSettings;
@@ -202,6 +207,13 @@ export function checkReadiness(input: Input): ReadinessProblem[] {
       if (definition) problems.push(...checkPagesAgainstStudy(q.data, definition, design));
       if (input.identifiability)
         problems.push(...checkConsentIdentifiability(q.data, input.identifiability));
+      if (definition && input.languages)
+        problems.push(
+          ...checkStudyTexts(
+            { publicTitle: input.publicTitle ?? '', definition, questionnaire: q.data },
+            input.languages,
+          ),
+        );
     }
   }
 

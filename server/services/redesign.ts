@@ -6,7 +6,7 @@
  * sessions start on the latest version (respondent-session.ts).
  */
 import type { AppDeps } from '../deps';
-import { ConflictError, NotFoundError } from '../lib/errors';
+import { AppError, ConflictError, NotFoundError } from '../lib/errors';
 import { loadStudy } from './study-access';
 import { recordAudit, type Actor } from './audit';
 import { queueDesignJob } from './designs';
@@ -28,6 +28,8 @@ import type { Design } from '../../shared/schemas/design';
 import type { DesignState } from '../../shared/schemas/design-job';
 import type { CriterionComparison, RunPriors, RunPriorsQuery } from '../../shared/schemas/redesign';
 import { studyDefinitionSchema } from '../../shared/schemas/study-definition';
+import { questionnaireSchema } from '../../shared/schemas/questionnaire';
+import { checkStudyTexts } from './readiness-texts';
 
 type Member = { teamId: string; userId: string };
 
@@ -120,6 +122,18 @@ export async function adoptCandidate(
     });
     let version: number | null = null;
     if (study.status === 'live') {
+      const questionnaire = questionnaireSchema.parse(study.questionnaire);
+      const missing = checkStudyTexts(
+        { publicTitle: study.publicTitle, definition, questionnaire },
+        { languages: study.languages, translations: study.translations },
+      );
+      if (missing.length > 0)
+        throw new AppError(
+          422,
+          'not_ready',
+          'The new design cannot be frozen while a language lacks texts.',
+          missing.map((p) => ({ path: p.path, message: p.message })),
+        );
       const latest = await getLatestVersion(tx, { studyId });
       version = (latest?.version ?? 0) + 1;
       await insertVersion(tx, {
@@ -128,6 +142,8 @@ export async function adoptCandidate(
         definition: study.definition,
         design: candidate.design,
         questionnaire: study.questionnaire,
+        languages: study.languages,
+        translations: study.translations,
       });
       await updateStudyLifecycle(tx, {
         id: studyId,

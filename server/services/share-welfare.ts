@@ -5,11 +5,15 @@
  * covariance. Mixed logit and HB: each respondent's value from their conditional (posterior)
  * means; latent class: each class's value weighted by the respondent's class probabilities;
  * then averaged over respondents, with an interval from resampling respondents (it shows how
- * much the average depends on who answered; it leaves out the estimation error of the model's
- * parameters, which would need the profiles recomputed for every parameter draw — said on
- * screen).
+ * much the average depends on who answered). For a mixed logit the estimates' covariance gives
+ * a second figure: the population mean of the same formula over the model's taste
+ * distribution, with a Krinsky & Robb interval (population-welfare.ts). Recomputing every
+ * respondent's profile for each parameter draw would be the conditional counterpart; it needs
+ * the choice data and an estimation worker, so the screen says which interval is which.
  */
 import { createPrng } from '../engine/draws/prng';
+import { createMixedLogitLayout } from '../engine/estimation/mixed-logit-layout';
+import { computePopulationWelfare } from '../engine/estimation/population-welfare';
 import { propagateUncertainty, quantile } from '../engine/estimation/propagate-uncertainty';
 import { computeCompensatingVariation, meanOfFinite } from '../../shared/engine/shares/welfare';
 import type { ShareMethod, ShareWelfare } from '../../shared/schemas/shares';
@@ -18,6 +22,9 @@ import { covarianceOf, estimateNamesOf, shareSeedOf } from './shares/share-model
 
 const RESAMPLES = 1000;
 const KR_DRAWS = 2000;
+/** Population welfare: taste draws per parameter draw, and parameter draws (≈30 ms together). */
+const POPULATION_DRAWS = 1000;
+const POPULATION_KR_DRAWS = 500;
 
 export type WelfareScenario = {
   /** Coded scenario, J × K, the status quo last when included. */
@@ -36,6 +43,50 @@ export type WelfareScenario = {
 };
 
 export type WelfareOutcome = { welfare: ShareWelfare | null; welfareNote: string | null };
+
+type PopulationPart = Pick<ShareWelfare, 'population' | 'populationNote'>;
+
+/** The mixed logit's population-mean welfare with its interval from the estimates' covariance. */
+function populationWelfareOf(ctx: RunContext, rows: Float64Array, J: number): PopulationPart {
+  const spec = ctx.spec;
+  if (spec.model !== 'mixed')
+    return {
+      population: null,
+      populationNote:
+        ctx.run.model === 'hb'
+          ? 'Posterior draws are not kept, so the interval resamples respondents.'
+          : null,
+    };
+  const layout = createMixedLogitLayout(
+    { columns: spec.coefficients.map((c) => c.column ?? c.name) },
+    spec.coefficients,
+    spec.correlated,
+  );
+  const byName = new Map((ctx.results.estimates ?? []).map((e) => [e.name, e.estimate]));
+  const theta = Float64Array.from(layout.names, (n) => byName.get(n) ?? NaN);
+  if (!theta.every(Number.isFinite))
+    return { population: null, populationNote: 'The run does not list every estimate.' };
+  const out = computePopulationWelfare({
+    layout,
+    theta,
+    covariance: covarianceOf(ctx, layout.names),
+    alternativeCount: J,
+    alternatives: rows,
+    baseline: J - 1,
+    cost: spec.coefficients.findIndex((c) => c.name === spec.cost),
+    draws: { type: spec.draws.type, count: POPULATION_DRAWS, seed: spec.draws.seed },
+    parameterDraws: POPULATION_KR_DRAWS,
+  });
+  if (!out.estimate) return { population: null, populationNote: out.reason };
+  const e = out.estimate;
+  return {
+    population: { mean: e.estimate, lower: e.lower, upper: e.upper },
+    populationNote:
+      e.lower === null
+        ? 'The run has no usable covariance of its estimates, so this figure has no interval.'
+        : null,
+  };
+}
 
 const note = (welfareNote: string): WelfareOutcome => ({ welfare: null, welfareNote });
 
@@ -60,6 +111,8 @@ export function computeShareWelfare(ctx: RunContext, s: WelfareScenario): Welfar
     baseline: s.baseline,
     money: costAttribute?.name ?? ctx.spec.cost,
     unit: costAttribute?.unit?.trim() ?? '',
+    population: null,
+    populationNote: null,
   };
   const seed = shareSeedOf(ctx);
   const D = s.vectorsPerRespondent;
@@ -113,6 +166,7 @@ export function computeShareWelfare(ctx: RunContext, s: WelfareScenario): Welfar
   return {
     welfare: {
       ...common,
+      ...populationWelfareOf(ctx, s.rows, s.alternativeCount),
       mean,
       lower: quantile(means, 0.025),
       upper: quantile(means, 0.975),

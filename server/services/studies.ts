@@ -130,6 +130,8 @@ export async function duplicateStudy(deps: AppDeps, actor: Actor, studyId: strin
       description: source.description,
       definition: source.definition,
       questionnaire: source.questionnaire,
+      languages: source.languages,
+      translations: source.translations,
       createdBy: actor.userId,
     });
     if (source.currentDesignId) {

@@ -21,6 +21,8 @@ import type { ModelFamily } from '../../shared/schemas/estimation-families';
 import { loadRunContext, type Member } from './tastes/run-context';
 import { indexAnswers } from './tastes/background-answers';
 import { toTasteRow } from './tastes/taste-rows';
+import { getWtpUnavailableReason } from './exports/estimate-tables';
+import type { EstimationSpec } from '../../shared/schemas/estimation-spec';
 
 export { getSegments } from './tastes/get-segments';
 export { getRespondentProfile } from './tastes/get-respondent-profile';
@@ -41,6 +43,9 @@ export async function listTastesRuns(
     profiles: r.profiles,
     profileDraws: (r.results as RunResult | null)?.profileDraws?.count ?? null,
     erasedRespondents: r.erasedRespondents,
+    wtpUnavailable: r.results
+      ? getWtpUnavailableReason(r.spec as EstimationSpec, r.results as RunResult)
+      : null,
   }));
 }
 

@@ -113,6 +113,13 @@ export type ShareWelfare = {
   respondents: number;
   /** Respondents left out because their cost coefficient is not negative. */
   withheld: number;
+  /**
+   * Mixed logit only: the population mean of the same formula over the model's taste
+   * distribution, with a Krinsky–Robb interval from the estimates' covariance
+   * (server/engine/estimation/population-welfare.ts); null with populationNote otherwise.
+   */
+  population: { mean: number; lower: number | null; upper: number | null } | null;
+  populationNote: string | null;
 };
 
 export type ShareResult = {

@@ -112,6 +112,8 @@ export type TastesRun = {
   profileDraws: number | null;
   /** Respondents erased on request since the run (their profiles are gone, not their influence). */
   erasedRespondents: number;
+  /** Why the run gives no WTP (no cost coefficient, or WTP withheld), or null when it does. */
+  wtpUnavailable: string | null;
 };
 
 export type TasteCoefficient = {
@@ -132,6 +134,8 @@ export type TasteQuestion = {
   options: { id: string; label: string }[];
   /** Free text may identify a person: shown only with 'personal:read'. */
   personal: boolean;
+  /** Its page is shown only when a skip rule applies (exports then flag skipped answers). */
+  conditional?: boolean;
 };
 
 export type TasteRow = {

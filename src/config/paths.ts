@@ -58,6 +58,11 @@ export const paths = {
     getHref: (teamId: string, studyId: string, section: StudySection) =>
       `/teams/${teamId}/studies/${studyId}/${section}`,
   },
+  /** The Questionnaire section's Languages view: the study's languages and translated texts. */
+  studyLanguages: {
+    getHref: (teamId: string, studyId: string) =>
+      `/teams/${teamId}/studies/${studyId}/questionnaire?tab=languages`,
+  },
   /** The Tasks screen with a run's estimates offered as priors for a new design. */
   redesignFromRun: {
     getHref: (teamId: string, studyId: string, runId: string) =>

@@ -18,6 +18,7 @@ import { expStreamAccumulate } from '../linalg/exp-stream';
 import { fusedAxpy } from '../linalg/fused-axpy';
 import type { ChoiceData } from './choice-data';
 import { getDrawStride } from './standard-variates';
+import { fillCoefficientDraws } from './coefficient-draws';
 import {
   DIST_FIXED,
   DIST_LOGNORMAL,
@@ -119,35 +120,7 @@ export function createMixedLogitKernel(
   }
 
   function fillRawDraws(n: number, theta: Float64Array, out: Float64Array): void {
-    const drawBase = n * D * stride;
-    for (let k = 0; k < K; k++) {
-      const base = k * R;
-      const m = theta[meanIndex[k]];
-      const code = dist[k];
-      if (code === DIST_FIXED) {
-        out.fill(m, base, base + R);
-        continue;
-      }
-      if (spreadIndex[k] < 0) continue; // correlated block, filled below
-      const s = theta[spreadIndex[k]];
-      const eta = drawBase + dimension[k] * stride;
-      if (code === DIST_LOGNORMAL) {
-        for (let r = 0; r < R; r++) out[base + r] = Math.exp(m + s * variates[eta + r]);
-      } else if (code === DIST_NEG_LOGNORMAL) {
-        for (let r = 0; r < R; r++) out[base + r] = -Math.exp(m + s * variates[eta + r]);
-      } else {
-        for (let r = 0; r < R; r++) out[base + r] = m + s * variates[eta + r];
-      }
-    }
-    for (let i = 0; i < blockSize; i++) {
-      const base = block[i] * R;
-      out.fill(theta[meanIndex[block[i]]], base, base + R);
-      for (let l = 0; l <= i; l++) {
-        const c = theta[cholIndex[i * blockSize + l]];
-        const eta = drawBase + blockDims[l] * stride;
-        for (let r = 0; r < R; r++) out[base + r] += c * variates[eta + r];
-      }
-    }
+    fillCoefficientDraws(layout, theta, variates, n * D * stride, stride, R, out);
   }
 
   /** Fills lp (log Π_t P_nt per draw) and G (Σ_t ∂ln P_nt/∂β per draw) for local respondent n. */

@@ -8,7 +8,7 @@ import { ConflictError } from '../../lib/errors';
 import { writeCsv } from '../../lib/safe-csv';
 import { loadRunContext, type Member, type RunContext } from '../tastes/run-context';
 import { getRunSummary } from './run-summary';
-import { buildEstimateTables, buildWtpTable } from './estimate-tables';
+import { buildEstimateTables, getWtpUnavailableReason } from './estimate-tables';
 import { buildCodebookRows, codebookHeader, type DocumentedTable } from './documented-table';
 import { addAboutSheet, addCodebookSheet, addTableSheet } from './documented-xlsx';
 import { CSV, XLSX, fileName, type Download } from './download';
@@ -72,13 +72,9 @@ export async function exportEstimateTableCsv(
   });
   if (name === 'codebook') return file(writeCsv(codebookHeader, buildCodebookRows(tables)));
   const table = tables.find((t) => t.name === name);
-  if (name === 'wtp' && (!table || table.rows.length === 0))
-    throw new ConflictError(
-      'wtp_unavailable',
-      buildWtpTable(ctx)
-        ? (ctx.results.wtpWithheld ?? 'This run gives no WTP.')
-        : 'This run has no cost coefficient, so it gives no WTP.',
-    );
+  const wtpUnavailable = getWtpUnavailableReason(ctx.spec, ctx.results);
+  if (name === 'wtp' && (!table || table.rows.length === 0 || wtpUnavailable))
+    throw new ConflictError('wtp_unavailable', wtpUnavailable ?? 'This run gives no WTP.');
   return file(
     writeCsv(
       table!.columns.map((c) => c.key),

@@ -4,6 +4,8 @@
  * each column documented with its meaning, unit and coding for the codebook.
  */
 import type { RunContext } from '../tastes/run-context';
+import type { RunResult } from '../../../shared/schemas/run';
+import type { EstimationSpec } from '../../../shared/schemas/estimation-spec';
 import { getParameterRows } from '../../../shared/results/parameter-rows';
 import { getLabelOf, getWtpHeadings } from '../../../shared/results/parameter-labels';
 import { getMoneyUnit, getWtpUnit } from '../../../shared/engine/coding/wtp-unit';
@@ -78,6 +80,19 @@ export function buildEstimatesTable(ctx: RunContext): DocumentedTable {
       r.upper,
     ]),
   };
+}
+
+/**
+ * Why a finished run gives no WTP table, or null when it gives one: the Exports screen greys
+ * its WTP download with this reason and the download refuses with it (409 wtp_unavailable).
+ */
+export function getWtpUnavailableReason(
+  spec: Pick<EstimationSpec, 'cost'>,
+  results: Pick<RunResult, 'wtp' | 'wtpWithheld'>,
+): string | null {
+  if (!spec.cost) return 'This run has no cost coefficient, so it gives no WTP.';
+  if ((results.wtp ?? []).length === 0) return results.wtpWithheld ?? 'This run gives no WTP.';
+  return null;
 }
 
 /** Null when the run has no WTP (no cost coefficient); rows empty when WTP was withheld. */

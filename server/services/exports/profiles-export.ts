@@ -11,6 +11,7 @@ import { writeCsv } from '../../lib/safe-csv';
 import { buildProfileTable } from './profile-table';
 import { writeProfilesXlsx } from './profiles-xlsx';
 import { renderRunReport } from './run-report';
+import { loadReportScenarios } from './report-scenarios';
 import { CSV, HTML, XLSX, fileName, type Download } from './download';
 
 async function loadProfileTable(deps: AppDeps, member: Member, studyId: string, runId: string) {
@@ -68,6 +69,11 @@ export async function exportRunReport(
   return {
     filename: fileName(ctx.study.name, 'run-report', 'html', at),
     contentType: HTML,
-    body: renderRunReport(ctx, { count: profiles.length, lowDraws }, at),
+    body: renderRunReport(
+      ctx,
+      { count: profiles.length, lowDraws },
+      at,
+      await loadReportScenarios(deps, member, studyId, runId),
+    ),
   };
 }

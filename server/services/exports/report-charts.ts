@@ -1,10 +1,10 @@
 /**
  * Charts of the printable run report as inline SVG: drawn on the server, no scripts, so they
  * print to PDF exactly as shown. The WTP chart shows each population WTP with its 95 %
- * interval; the taste charts draw each random coefficient's population density over the same
+ * interval, the share chart each saved scenario's shares with theirs; the taste charts draw each random coefficient's population density over the same
  * range as the Estimates screen (shared/results/taste-density.ts).
  */
-import { formatAmount, formatCompact } from '../../../shared/format';
+import { formatAmount, formatCompact, formatPercent } from '../../../shared/format';
 import { plotRange, populationDensity } from '../../../shared/results/taste-density';
 
 const escapeXml = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
@@ -52,25 +52,38 @@ export interface WtpPoint {
   upper: number | null;
 }
 
-/** Dot-and-interval chart of WTP, one row per attribute column, zero marked. */
-export function renderWtpChart(points: readonly WtpPoint[], unit: string, title: string): string {
+/**
+ * Dot-and-interval chart, one row per item: WTP per attribute column (zero marked, money axis)
+ * and the shares of a what-if scenario (fixed 0–100 % axis).
+ */
+function renderIntervalChart(
+  points: readonly WtpPoint[],
+  title: string,
+  tick: (v: number) => string,
+  range?: [number, number],
+): string {
   if (points.length === 0) return '';
   const W = 900;
   const left = 300;
   const right = 20;
   const row = 26;
   const H = 24 + points.length * row + 28;
-  const values = points.flatMap((p) => [
-    p.estimate,
-    p.lower ?? p.estimate,
-    p.upper ?? p.estimate,
-    0,
-  ]);
-  let lo = Math.min(...values);
-  let hi = Math.max(...values);
-  const pad = (hi - lo || 1) * 0.06;
-  lo -= pad;
-  hi += pad;
+  let lo: number;
+  let hi: number;
+  if (range) [lo, hi] = range;
+  else {
+    const values = points.flatMap((p) => [
+      p.estimate,
+      p.lower ?? p.estimate,
+      p.upper ?? p.estimate,
+      0,
+    ]);
+    lo = Math.min(...values);
+    hi = Math.max(...values);
+    const pad = (hi - lo || 1) * 0.06;
+    lo -= pad;
+    hi += pad;
+  }
   const x = (v: number) => +(left + ((v - lo) / (hi - lo)) * (W - left - right)).toFixed(1);
   const bottom = 16 + points.length * row;
   const rows = points
@@ -93,9 +106,19 @@ export function renderWtpChart(points: readonly WtpPoint[], unit: string, title:
     `<line x1="${x(0)}" x2="${x(0)}" y1="12" y2="${bottom}" stroke="${MUTED}" stroke-dasharray="3 3"/>` +
     rows +
     `<line x1="${left}" x2="${W - right}" y1="${bottom}" y2="${bottom}" stroke="${LINE}"/>` +
-    axis(x, niceTicks(lo, hi), bottom, (v) => formatAmount(v, unit, 2, true)) +
+    axis(x, niceTicks(lo, hi), bottom, tick) +
     `</svg><figcaption>${escapeXml(title)}</figcaption></figure>`
   );
+}
+
+/** WTP per attribute column with its 95 % interval, zero marked. */
+export function renderWtpChart(points: readonly WtpPoint[], unit: string, title: string): string {
+  return renderIntervalChart(points, title, (v) => formatAmount(v, unit, 2, true));
+}
+
+/** The shares of one what-if scenario with their 95 % intervals, on a 0–100 % axis. */
+export function renderShareChart(points: readonly WtpPoint[], title: string): string {
+  return renderIntervalChart(points, title, (v) => formatPercent(v, 0), [0, 1]);
 }
 
 export interface DensityInput {

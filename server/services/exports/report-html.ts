@@ -39,7 +39,7 @@ export function htmlTable(head: string[], rows: (string | number | { html: strin
 }
 
 const STYLE = `body{font-family:'IBM Plex Sans',system-ui,sans-serif;color:#14213d;margin:2rem auto;max-width:60rem;padding:0 1rem;line-height:1.45}
-h1{font-size:1.5rem;margin:0 0 .25rem}h2{font-size:1.1rem;margin:1.75rem 0 .5rem;color:#0f5e63}
+h1{font-size:1.5rem;margin:0 0 .25rem}h2{font-size:1.1rem;margin:1.75rem 0 .5rem;color:#0f5e63}h3{font-size:1rem;margin:1.25rem 0 .4rem}
 table{border-collapse:collapse;width:100%;font-size:.85rem}th,td{border-bottom:1px solid #dde3ec;padding:.3rem .5rem;text-align:left;vertical-align:top}
 .n{text-align:right;font-family:'IBM Plex Mono',ui-monospace,monospace;font-variant-numeric:tabular-nums;white-space:nowrap}
 .t{overflow-x:auto;margin:0 -.25rem;padding:0 .25rem}td:first-child{overflow-wrap:anywhere;min-width:7rem}
@@ -50,7 +50,7 @@ table{border-collapse:collapse;width:100%;font-size:.85rem}th,td{border-bottom:1
 figure{margin:.75rem 0}figcaption{font-size:.75rem;color:#5b6477}
 .caution{border:1px solid #f0a830;background:#fdf3df;padding:.75rem 1rem;border-radius:.4rem}
 @page{size:A4;margin:15mm}
-@media print{body{margin:0;max-width:none;padding:0}.t{overflow:visible}h2{break-after:avoid}table{break-inside:auto}tr,figure{break-inside:avoid}.caution{break-inside:avoid}}`;
+@media print{body{margin:0;max-width:none;padding:0}.t{overflow:visible}h2,h3{break-after:avoid}table{break-inside:auto}tr,figure{break-inside:avoid}.caution{break-inside:avoid}}`;
 
 export function htmlPage(title: string, body: string): string {
   return `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width,initial-scale=1"><title>${escapeHtml(title)}</title><style>${getReportFontFaces()}\n${STYLE}</style></head><body>${body}</body></html>`;

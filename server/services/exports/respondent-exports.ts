@@ -10,7 +10,13 @@ import { listQuestionAnswers } from '../../../db/queries/study-answers';
 import { listStudyRespondents } from '../../../db/queries/study-respondents';
 import { roleCan } from '../../../shared/permissions';
 import type { Member } from '../tastes/run-context';
-import { getBackgroundQuestions, indexAnswers, formatAnswer } from '../tastes/background-answers';
+import {
+  getBackgroundQuestions,
+  indexAnswers,
+  formatAnswer,
+  getSkippedFlag,
+  skippedColumnKey,
+} from '../tastes/background-answers';
 import { getFlagNames } from '../tastes/taste-rows';
 import { writeCsv } from '../../lib/safe-csv';
 import { listAnswerHistory, listRevisedAnswers } from '../../../db/queries/answer-revisions';
@@ -61,7 +67,7 @@ export async function exportAnswersCsv(
     'exclusion',
     'quality_flags',
     'revised_screens',
-    ...questions.map((q) => q.key),
+    ...questions.flatMap((q) => (q.conditional ? [q.key, skippedColumnKey(q.key)] : [q.key])),
   ];
   const rows = respondents.map((r) => [
     r.id,
@@ -74,7 +80,11 @@ export async function exportAnswersCsv(
     getInclusion(r).exclusion,
     getFlagNames(r.flags).join('; '),
     revisedScreensOf(revised.get(r.id) ?? []),
-    ...questions.map((q) => formatAnswer(q, answers.get(r.id)?.get(q.key))),
+    ...questions.flatMap((q) => {
+      const value = answers.get(r.id)?.get(q.key);
+      const answer = formatAnswer(q, value);
+      return q.conditional ? [answer, getSkippedFlag(value)] : [answer];
+    }),
   ]);
   return {
     filename: fileName(study.name, 'background-answers', 'csv', at),

@@ -2,14 +2,16 @@
  * A printable run report: one self-contained HTML page (the app's fonts inlined, print rules,
  * no scripts) with what the file is about, the parameters under readable names, fit, WTP with
  * its unit and basis and a chart, the population distributions with density charts, a summary
- * of the taste profiles, the methods and the cautions. Numbers go through shared/format.ts;
+ * of the taste profiles, the saved what-if scenarios (shares with intervals, a chart and the
+ * welfare against the status quo), the methods and the cautions. Numbers go through shared/format.ts;
  * every text is HTML-escaped.
  */
 import type { RunContext } from '../tastes/run-context';
 import { getRunSummary } from './run-summary';
 import { getMethodsSections, type MethodsCell } from './methods-sections';
 import { escapeHtml, htmlPage, htmlTable } from './report-html';
-import { renderDensityChart, renderWtpChart } from './report-charts';
+import { renderDensityChart, renderShareChart, renderWtpChart } from './report-charts';
+import type { ReportScenarios } from './report-scenarios';
 import { getParameterRows } from '../../../shared/results/parameter-rows';
 import { getLabelOf, getWtpHeadings } from '../../../shared/results/parameter-labels';
 import { SPREAD_NOTE } from '../../../shared/results/spread';
@@ -117,10 +119,70 @@ function populationSection(ctx: RunContext): string {
   }`;
 }
 
+const INTERVAL_TEXT = {
+  parameter: 'draws of the estimates from their covariance (Krinsky–Robb)',
+  conditional: 'draws from each respondent’s conditional distribution',
+};
+
+function welfareLine(outcome: NonNullable<ReportScenarios['scenarios'][number]['welfare']>) {
+  const w = outcome.welfare;
+  if (!w)
+    return outcome.welfareNote
+      ? `<p class="note">No welfare figure: ${escapeHtml(outcome.welfareNote)}</p>`
+      : '';
+  const money = (x: number | null | undefined) => formatAmount(x, w.unit);
+  const interval =
+    w.lower !== null
+      ? ` (95 % interval ${formatInterval(w.lower, w.upper, money)}, ${w.interval === 'krinsky_robb' ? 'Krinsky–Robb draws of the estimates' : 'resampling respondents'})`
+      : '';
+  const population = w.population
+    ? ` Over the model's whole population of tastes: ${money(w.population.mean)} per person${w.population.lower !== null ? ` (95 % interval from the estimates' covariance ${formatInterval(w.population.lower, w.population.upper, money)})` : ''}.`
+    : '';
+  return `<p>Welfare against “${escapeHtml(w.baseline)}” (compensating variation, log-sum formula): ${money(w.mean)} per respondent${interval}.${escapeHtml(population)}</p>`;
+}
+
+function scenariosSection(report: ReportScenarios): string {
+  const head = '<h2>What-if scenarios</h2>';
+  if (report.scenarios.length === 0)
+    return `${head}<p class="note">No scenario is saved for this study. Scenarios saved in the Shares section are computed for this run and printed here.</p>`;
+  const blocks = report.scenarios.map((sc) => {
+    const defs = htmlTable(
+      ['Alternative', 'Levels'],
+      sc.alternatives.map((a) => [a.name, a.levels]),
+    );
+    if (!sc.shares)
+      return `<h3>${escapeHtml(sc.name)}</h3>${defs}<p class="note">Not computed: the study no longer has a level this scenario uses (${escapeHtml(sc.error)})</p>`;
+    const s = sc.shares;
+    const table = htmlTable(
+      ['Alternative', 'Share', '95 % interval'],
+      s.names.map((name, j) => [
+        name,
+        formatPercent(s.shares[j]),
+        formatInterval(s.lower?.[j] ?? null, s.upper?.[j] ?? null, (x) => formatPercent(x)),
+      ]),
+    );
+    const chart = renderShareChart(
+      s.names.map((name, j) => ({
+        label: name,
+        estimate: s.shares[j],
+        lower: s.lower?.[j] ?? null,
+        upper: s.upper?.[j] ?? null,
+      })),
+      `Predicted shares of “${sc.name}”${s.interval ? ' with 95 % intervals' : ''}`,
+    );
+    const interval = s.interval
+      ? `Intervals from ${INTERVAL_TEXT[s.interval]}.`
+      : (report.intervalNote ?? '');
+    return `<h3>${escapeHtml(sc.name)}</h3>${defs}${table}${chart}<p class="note">${escapeHtml(interval)}</p>${sc.welfare ? welfareLine(sc.welfare) : ''}`;
+  });
+  return `${head}<p class="note">The scenarios saved in the Shares section, computed for this run. Shares are predictions from stated choices: compare scenarios with each other rather than reading them as market forecasts.</p>${blocks.join('')}`;
+}
+
 export function renderRunReport(
   ctx: RunContext,
   profiles: { count: number; lowDraws: number },
   exportedAt: Date,
+  scenarios: ReportScenarios = { scenarios: [], method: null, intervalNote: null },
 ): string {
   const r = ctx.results;
   const summary = getRunSummary(ctx, exportedAt);
@@ -150,6 +212,7 @@ export function renderRunReport(
     )}`,
     wtpSection(ctx),
     populationSection(ctx),
+    scenariosSection(scenarios),
     `<h2>Taste profiles</h2><p>${profiles.count} respondents have a taste profile; ${profiles.lowDraws} of them have fewer than ${ctx.header.lowDrawsThreshold} effective draws.</p>`,
     ...getMethodsSections(ctx).map(
       (m) =>
@@ -158,7 +221,7 @@ export function renderRunReport(
           m.rows.map((row) => row.map(cell)),
         )}`,
     ),
-    `<h2>Cautions</h2><div class="caution"><ul>${cautions.map((c) => `<li>${escapeHtml(String(c))}</li>`).join('')}</ul><p class="note">What-if shares and welfare depend on scenarios you set in the Shares section; print that screen for them.</p></div>`,
+    `<h2>Cautions</h2><div class="caution"><ul>${cautions.map((c) => `<li>${escapeHtml(String(c))}</li>`).join('')}</ul><p class="note">What-if shares and welfare depend on the scenarios saved in the Shares section; stated, hypothetical choices tend to overstate what people would pay.</p></div>`,
   ];
   return htmlPage(`Run report — ${ctx.study.name}`, sections.join('\n'));
 }

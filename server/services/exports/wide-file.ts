@@ -8,7 +8,7 @@ import { respondentPlanSchema } from '../../../shared/schemas/respondent';
 import type { TasteQuestion } from '../../../shared/schemas/tastes';
 import type { CellValue } from '../../lib/safe-csv';
 import type { VersionInput } from '../estimation/code-answers';
-import { formatAnswer } from '../tastes/background-answers';
+import { formatAnswer, getSkippedFlag, skippedColumnKey } from '../tastes/background-answers';
 import { getFlagNames } from '../tastes/taste-rows';
 import { col, type ColumnDoc, type DocumentedTable } from './documented-table';
 import { certaintyOf } from './long-choice-file';
@@ -175,7 +175,20 @@ export function buildWideTable(input: WideInput): DocumentedTable {
       ),
       col(`holdout_${h}_seconds`, 'seconds', `Time spent on holdout task ${h}`, 'seconds'),
     ]),
-    ...input.questions.map(questionColumn),
+    ...input.questions.flatMap((q) => [
+      questionColumn(q),
+      ...(q.conditional
+        ? [
+            col(
+              skippedColumnKey(`q_${q.key}`),
+              'integer',
+              `Whether the page of "${q.text}" was passed by its skip rule`,
+              'none',
+              '1 = the page did not apply (skip rule), 0 = shown; empty = not reached',
+            ),
+          ]
+        : []),
+    ]),
   ];
 
   const rows: CellValue[][] = input.respondents.map((r) => {
@@ -215,9 +228,11 @@ export function buildWideTable(input: WideInput): DocumentedTable {
         const a = key ? answer(key) : undefined;
         return [choiceCode(a?.chosenAlternative), seconds(a?.responseMs)];
       }),
-      ...input.questions.map((q) => {
-        const text = formatAnswer(q, own?.get(q.key));
-        return q.type === 'number' && text !== null ? Number(text) : text;
+      ...input.questions.flatMap((q) => {
+        const value = own?.get(q.key);
+        const text = formatAnswer(q, value);
+        const answer = q.type === 'number' && text !== null ? Number(text) : text;
+        return q.conditional ? [answer, getSkippedFlag(value)] : [answer];
       }),
     ];
   });

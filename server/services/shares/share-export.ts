@@ -27,7 +27,10 @@ const INTERVAL_TEXT = {
 };
 
 /** "Monthly bill increase: €6; River health rating: Good; …" */
-function describeLevels(definition: StudyDefinition, levels: Record<string, string>): string {
+export function describeLevels(
+  definition: StudyDefinition,
+  levels: Record<string, string>,
+): string {
   return definition.attributes
     .flatMap((a) => {
       const level = a.levels.find((l) => l.id === levels[a.id]);

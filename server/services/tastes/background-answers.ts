@@ -9,21 +9,37 @@ import type { TasteQuestion } from '../../../shared/schemas/tastes';
 export function getBackgroundQuestions(questionnaire: unknown): TasteQuestion[] {
   const pages = (questionnaire as { pages?: unknown[] } | null)?.pages;
   if (!Array.isArray(pages)) return [];
-  const questions: Question[] = [];
+  const questions: { question: Question; conditional: boolean }[] = [];
   for (const raw of pages) {
     const parsed = questionnairePageSchema.safeParse(raw);
     if (!parsed.success) continue;
     const page = parsed.data;
-    if (page.kind === 'question' || page.kind === 'screening') questions.push(page.question);
+    if (page.kind === 'question' || page.kind === 'screening')
+      questions.push({ question: page.question, conditional: Boolean(page.showIf) });
   }
-  return questions.map((q) => ({
+  return questions.map(({ question: q, conditional }) => ({
     key: q.key,
     text: q.text,
     type: q.type,
     options: q.type === 'single' || q.type === 'multiple' ? q.options : [],
     personal: q.type === 'text',
+    ...(conditional ? { conditional } : {}),
   }));
 }
+
+/**
+ * Whether a conditional question's page was passed by its skip rule: 1 = it did not apply
+ * (stored as a skipped answer), 0 = it was shown, null = the respondent never reached it.
+ * Exports put this beside the answer, so "skipped by design" and "not answered" stay apart
+ * while the answer column keeps its type.
+ */
+export function getSkippedFlag(value: unknown): 0 | 1 | null {
+  if (value === undefined || value === null) return null;
+  return (value as { kind?: unknown }).kind === 'skipped' ? 1 : 0;
+}
+
+/** Column name of a conditional question's skip flag, beside the answer column `answerKey`. */
+export const skippedColumnKey = (answerKey: string) => `${answerKey}_skipped`;
 
 /** The readable answer: option labels (joined by "; "), the number, or the text. */
 export function formatAnswer(question: TasteQuestion, value: unknown): string | null {

@@ -18,6 +18,7 @@ import type { StudyDefinition } from '../../../shared/schemas/study-definition';
 import type { Design } from '../../../shared/schemas/design';
 import { LOW_EFFECTIVE_DRAWS, type TasteHeader } from '../../../shared/schemas/tastes';
 import { getBackgroundQuestions } from './background-answers';
+import { getWtpUnavailableReason } from '../exports/estimate-tables';
 
 export type Member = { teamId: string; role: Role };
 
@@ -57,6 +58,7 @@ export async function loadRunContext(
       profiles,
       profileDraws: results.profileDraws?.count ?? null,
       erasedRespondents: run.erasedRespondents,
+      wtpUnavailable: getWtpUnavailableReason(spec, results),
     },
     coefficients: results.population.map((p) => ({
       name: p.name,

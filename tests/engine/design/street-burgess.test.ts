@@ -74,4 +74,24 @@ describe('coordinate exchange reaches the Street–Burgess optimum', () => {
     expect(diagnostics.dEfficiency!.efficiency).toBeCloseTo(1, 10);
     expect(diagnostics.dErrorZero).toBeCloseTo(0.25, 12);
   });
+
+  it.each([1, 2, 3])(
+    'still reaches it with level balance, no overlap and two appearances per level (seed %i)',
+    (seed) => {
+      // The optimal fold-over pairs satisfy all three rules (each level 4 times over the 8
+      // designed alternatives, no attribute shared within a pair), so the rules must not keep
+      // the search from the optimum (issue: "reaches the known optimum where the constraints
+      // allow it").
+      const { design, diagnostics } = generateDesign(makeSymmetricDefinition([2, 2, 2], 2), {
+        method: 'd_efficient',
+        tasks: 4,
+        starts: 5,
+        seed,
+        balance: { levelBalance: true, maxOverlap: 0, minAppearances: 2 },
+      });
+      expect(diagnostics.dEfficiency!.efficiency).toBeCloseTo(1, 10);
+      expect(diagnostics.dErrorZero).toBeCloseTo(0.25, 12);
+      expect(design.tasks).toHaveLength(4);
+    },
+  );
 });

@@ -5,7 +5,8 @@ import { downloadXlsx } from '../../support/download-xlsx';
 import { createTestApp, type TestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import type { Role } from '../../../shared/permissions';
-import { N, seedTastesStudy } from './tastes-fixture';
+import { shareScenarios } from '../../../db/schema/shares';
+import { N, scenarioLevels, seedTastesStudy } from './tastes-fixture';
 
 let t: TestApp;
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
@@ -204,5 +205,60 @@ describe('other downloads', () => {
     expect((await as('owner').get(base).expect(200)).body.personalColumns).toBe(true);
     await team.outsider.get(base).expect(404);
     await t.request().get(base).expect(401);
+  });
+});
+
+describe('run report: saved what-if scenarios', () => {
+  const report = async () =>
+    (await as('viewer').get(`${base}/run-report.html`).query({ runId: seeded.runId }).expect(200))
+      .text;
+
+  it('says how to add scenarios while none is saved', async () => {
+    expect(await report()).toContain('No scenario is saved for this study.');
+  });
+
+  it('prints each saved scenario with shares, intervals, a chart and the welfare line', async () => {
+    const scenarios = `/api/teams/${team.teamId}/studies/${seeded.studyId}/shares/scenarios`;
+    await as('analyst')
+      .post(scenarios)
+      .send({
+        name: 'River upgrade',
+        includeFixed: true,
+        alternatives: [
+          { name: 'Better river', levels: scenarioLevels('good', 'b10') },
+          { name: 'Cheaper', levels: scenarioLevels('fair', 'b0') },
+        ],
+      })
+      .expect(201);
+    // A scenario an edited study no longer fits (level "b99" does not exist) is listed with the
+    // reason instead of numbers, and the rest of the report still prints.
+    await t.deps.db.insert(shareScenarios).values({
+      teamId: team.teamId,
+      studyId: seeded.studyId,
+      name: 'Outdated',
+      alternatives: [
+        { name: 'Old A', alternative: 0, levels: scenarioLevels('good', 'b99') },
+        { name: 'Old B', alternative: 0, levels: scenarioLevels('fair', 'b0') },
+      ],
+      includeFixed: true,
+    });
+    const html = await report();
+    expect(html).toContain('<h3>River upgrade</h3>');
+    expect(html).toContain('aria-label="Predicted shares of “River upgrade” with 95 % intervals"');
+    // One more chart than before: the scenario's shares.
+    expect(html.match(/<svg /g)).toHaveLength(4);
+    // Three alternatives (the status quo included), each with a share in percent.
+    const section = html.slice(html.indexOf('<h2>What-if scenarios</h2>'));
+    const shares = [...section.matchAll(/<td class="n">(\d+\.\d)%<\/td>/g)].map((m) =>
+      Number(m[1]),
+    );
+    expect(shares).toHaveLength(3);
+    expect(shares.reduce((a, b) => a + b, 0)).toBeCloseTo(100, 0);
+    expect(html).toContain('Intervals from draws from each respondent’s conditional distribution.');
+    expect(html).toMatch(/Welfare against “Current service” \(compensating variation/);
+    expect(html).toContain('<h3>Outdated</h3>');
+    expect(html).toContain(
+      'Not computed: the study no longer has a level this scenario uses (Choose a level of Monthly bill increase.)',
+    );
   });
 });

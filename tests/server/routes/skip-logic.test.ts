@@ -4,6 +4,7 @@
  * rule reads stands (no revision) and comes back with the session so a resumed phone skips alike.
  */
 import { describe, expect, it } from 'vitest';
+import { parse } from 'csv-parse/sync';
 import { ownerAppForFile } from '../../support/owner-app';
 import type { Questionnaire, QuestionnairePage } from '../../../shared/schemas/questionnaire';
 import { answerFor, fullQuestionnaire, insertStudy } from './respond-fixtures';
@@ -118,6 +119,60 @@ describe('skip logic', () => {
     expect(refused.status).toBe(400);
     expect(refused.body.error.message).toBe('This question applies to you: please answer it.');
     await send('answers', answerFor(follow, { value: { kind: 'number', number: 3 } })).expect(201);
+  });
+
+  it('exports a skipped page apart from an unanswered one, with a flag beside the answer', async () => {
+    const study = await insertStudy(app.t, app.teamId, { questionnaire: withGardenPages() });
+    await app.owner
+      .post(`/api/teams/${app.teamId}/studies/${study.id}/lifecycle/go-live`)
+      .expect(200);
+    // Three respondents: no garden (page skipped), a garden (answered 3), and one who stops
+    // after screening (never reaches either page).
+    const start = async (garden: 'yes' | 'no' | null) => {
+      const s: Session = (
+        await app.t.request().post(`/api/r/${study.publicId}/sessions`).send({}).expect(201)
+      ).body;
+      const send = (body: object) =>
+        app.t
+          .request()
+          .post(`/api/r/${study.publicId}/answers`)
+          .set(TOKEN, s.sessionToken)
+          .send(body)
+          .expect(201);
+      for (const screen of s.screens.slice(0, 2)) await send(answerFor(screen));
+      if (garden === null) return;
+      const gardenValue = { kind: 'single' as const, optionId: garden };
+      await send(answerFor(screenOf(s, 'q:garden'), { value: gardenValue }));
+      const follow = screenOf(s, 'q:watering_days');
+      await send(
+        answerFor(follow, {
+          value: garden === 'no' ? { kind: 'skipped' } : { kind: 'number', number: 3 },
+        }),
+      );
+    };
+    await start('no');
+    await start('yes');
+    await start(null);
+    const base = `/api/teams/${app.teamId}/studies/${study.id}/exports`;
+    const csv = async (path: string) => {
+      const text = (await app.owner.get(`${base}/${path}`).expect(200)).text;
+      const [head, ...rows] = parse(text) as string[][];
+      return rows.map((r) => Object.fromEntries(head.map((h, i) => [h, r[i]])));
+    };
+    const pick = (rows: Record<string, string>[], answer: string) =>
+      rows.map((r) => [r[answer], r[`${answer}_skipped`]]);
+    expect(pick(await csv('background-answers.csv'), 'watering_days')).toEqual([
+      ['', '1'],
+      ['3', '0'],
+      ['', ''],
+    ]);
+    expect(pick(await csv('respondents-wide.csv'), 'q_watering_days')).toEqual([
+      ['', '1'],
+      ['3', '0'],
+      ['', ''],
+    ]);
+    // Questions without a rule get no flag column.
+    expect(Object.keys((await csv('background-answers.csv'))[0])).not.toContain('garden_skipped');
   });
 
   it('refuses a skip of a page without a rule', async () => {

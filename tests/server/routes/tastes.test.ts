@@ -3,13 +3,17 @@ import type supertest from 'supertest';
 import { createTestApp, type TestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import type { Role } from '../../../shared/permissions';
+import { eq } from 'drizzle-orm';
+import { runs } from '../../../db/schema/models';
 import {
   ageBand,
   effectiveDraws,
   externalIds,
   N,
   riverGood,
+  makeResults,
   seedTastesStudy,
+  spec,
 } from './tastes-fixture';
 
 let t: TestApp;
@@ -42,6 +46,39 @@ describe('GET /tastes/runs', () => {
   it('returns 404 to an outsider and 401 without a session', async () => {
     await team.outsider.get(`${base}/runs`).expect(404);
     await t.request().get(`${base}/runs`).expect(401);
+  });
+
+  it('says why a run gives no WTP, so Exports can grey its WTP download', async () => {
+    const [noCost] = await t.deps.db
+      .insert(runs)
+      .values({
+        studyId: seeded.studyId,
+        teamId: team.teamId,
+        name: 'No cost coefficient',
+        model: 'mnl',
+        spec: { ...spec, model: 'mnl', cost: null },
+        dataHash: 'cd'.repeat(32),
+        status: 'done',
+        results: { ...makeResults(), wtp: [] },
+        finishedAt: new Date(Date.now() - 60_000),
+      })
+      .returning({ id: runs.id });
+    const res = await as('viewer').get(`${base}/runs`).expect(200);
+    const byId = new Map(
+      (res.body as { id: string; wtpUnavailable: string | null }[]).map((r) => [r.id, r]),
+    );
+    expect(byId.get(seeded.runId)?.wtpUnavailable).toBeNull();
+    expect(byId.get(noCost.id)?.wtpUnavailable).toBe(
+      'This run has no cost coefficient, so it gives no WTP.',
+    );
+    // The download refuses with the same reason.
+    const exportsBase = `/api/teams/${team.teamId}/studies/${seeded.studyId}/exports`;
+    const refused = await as('viewer')
+      .get(`${exportsBase}/estimates.csv?runId=${noCost.id}&table=wtp`)
+      .expect(409);
+    expect(refused.body.error.code).toBe('wtp_unavailable');
+    expect(refused.body.error.message).toBe(byId.get(noCost.id)?.wtpUnavailable);
+    await t.deps.db.delete(runs).where(eq(runs.id, noCost.id));
   });
 });
 

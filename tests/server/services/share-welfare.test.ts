@@ -111,4 +111,81 @@ describe('computeShareWelfare (MNL)', () => {
       respondents: 2,
     });
   });
+
+  it('adds a mixed logit’s population figure with an interval from the estimates’ covariance', () => {
+    // Spreads of zero make the population one taste vector, so the population mean is the
+    // MNL value above, 3.360539 (log-sum formula by hand).
+    const mixed = ctx({
+      run: { model: 'mixed' },
+      spec: {
+        model: 'mixed',
+        space: 'preference',
+        cost: 'cost',
+        correlated: false,
+        draws: { type: 'halton', count: 500, seed: 11 },
+        coefficients: [
+          { name: 'quality', distribution: 'normal' },
+          { name: 'cost', distribution: 'neg_lognormal' },
+        ],
+      },
+      results: {
+        respondents: 200,
+        estimates: [
+          { name: 'quality.mean', estimate: 1 },
+          { name: 'cost.mean', estimate: Math.log(0.5) },
+          { name: 'quality.sd', estimate: 0 },
+          { name: 'cost.sd', estimate: 0 },
+        ],
+        covariance: {
+          names: ['quality.mean', 'cost.mean', 'quality.sd', 'cost.sd'],
+          used: 'robust',
+          robust: [
+            [0.0004, 0, 0, 0],
+            [0, 0.0004, 0, 0],
+            [0, 0, 0.0001, 0],
+            [0, 0, 0, 0.0001],
+          ],
+        },
+      },
+    });
+    const { welfare } = computeShareWelfare(mixed, {
+      ...scenario,
+      method: 'conditional_means',
+      betas: Float64Array.from([1, -0.5, 1, -0.5]),
+      respondents: 2,
+    });
+    expect(welfare!.mean).toBeCloseTo(3.360539, 5);
+    expect(welfare!.interval).toBe('respondent_resampling');
+    expect(welfare!.population!.mean).toBeCloseTo(3.360539, 5);
+    expect(welfare!.population!.lower!).toBeLessThan(3.360539);
+    expect(welfare!.population!.upper!).toBeGreaterThan(3.360539);
+    expect(welfare!.populationNote).toBeNull();
+    // A normal cost has no population mean of 1/β_cost: the figure is withheld with the reason.
+    const normalCost = ctx({
+      ...mixed,
+      spec: {
+        ...mixed.spec,
+        coefficients: [
+          { name: 'quality', distribution: 'normal' },
+          { name: 'cost', distribution: 'normal' },
+        ],
+      },
+      results: {
+        ...mixed.results,
+        estimates: [
+          { name: 'quality.mean', estimate: 1 },
+          { name: 'cost.mean', estimate: -0.5 },
+          { name: 'quality.sd', estimate: 0.3 },
+          { name: 'cost.sd', estimate: 0.1 },
+        ],
+      },
+    });
+    const withheld = computeShareWelfare(normalCost, {
+      ...scenario,
+      method: 'conditional_means',
+      betas: Float64Array.from([1, -0.5]),
+    }).welfare!;
+    expect(withheld.population).toBeNull();
+    expect(withheld.populationNote).toMatch(/reaches zero in the population/);
+  });
 });

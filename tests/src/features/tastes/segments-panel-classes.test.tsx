@@ -24,6 +24,7 @@ const header = (model: TasteHeader['run']['model']): TasteHeader => ({
     profiles: 80,
     profileDraws: null,
     erasedRespondents: 0,
+    wtpUnavailable: null,
   },
   coefficients: [
     {

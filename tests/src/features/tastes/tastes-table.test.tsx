@@ -34,6 +34,7 @@ function makeList(personal: boolean): TasteList {
       profiles: 30,
       profileDraws: 500,
       erasedRespondents: 0,
+      wtpUnavailable: null,
     },
     coefficients: [
       {

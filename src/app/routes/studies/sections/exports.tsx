@@ -38,7 +38,11 @@ export function Component() {
       links: [
         { label: 'XLSX', href: `${base}/estimates.xlsx${q}` },
         { label: 'Estimates CSV', href: `${base}/estimates.csv${q}&table=estimates` },
-        { label: 'WTP CSV', href: `${base}/estimates.csv${q}&table=wtp` },
+        {
+          label: 'WTP CSV',
+          href: `${base}/estimates.csv${q}&table=wtp`,
+          disabledReason: run?.wtpUnavailable,
+        },
         { label: 'Fit CSV', href: `${base}/estimates.csv${q}&table=fit` },
         { label: 'Codebook CSV', href: `${base}/estimates.csv${q}&table=codebook` },
       ],

@@ -1,0 +1,43 @@
+/**
+ * /api/teams/:teamId/studies/:studyId/texts — the study's languages and translated texts.
+ * Reading needs study:read; changing languages and texts needs study:write (owner, editor).
+ */
+import { Router, type Request } from 'express';
+import type { AppDeps } from '../deps';
+import { parseBody, parseParams } from '../middleware/validate';
+import { memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { studyParamsSchema } from '../services/study-access';
+import {
+  languageParamsSchema,
+  saveTranslationsSchema,
+  updateLanguagesSchema,
+} from '../../shared/schemas/study-texts';
+import * as studyTexts from '../services/study-texts';
+
+export function createStudyTextsRouter(deps: AppDeps): Router {
+  const router = Router({ mergeParams: true });
+  router.use(requireUser(deps));
+  const read = requireTeam(deps, 'study:read');
+  const write = requireTeam(deps, 'study:write');
+  const ids = (req: Request) => ({
+    teamId: memberOf(req).teamId,
+    studyId: parseParams(studyParamsSchema, req).studyId,
+  });
+
+  router.get('/', read, async (req, res) => {
+    const { teamId, studyId } = ids(req);
+    res.json(await studyTexts.getStudyTexts(deps, teamId, studyId));
+  });
+  router.put('/languages', write, async (req, res) => {
+    const { teamId, studyId } = ids(req);
+    const { languages } = parseBody(updateLanguagesSchema, req);
+    res.json(await studyTexts.updateLanguages(deps, teamId, studyId, languages));
+  });
+  router.put('/:lang', write, async (req, res) => {
+    const { teamId, studyId } = ids(req);
+    const { lang } = parseParams(languageParamsSchema, req);
+    const { texts } = parseBody(saveTranslationsSchema, req);
+    res.json(await studyTexts.saveTranslations(deps, teamId, studyId, lang, texts));
+  });
+  return router;
+}

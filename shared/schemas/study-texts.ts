@@ -1,0 +1,75 @@
+/**
+ * The languages of a study and its translated texts: the API's inputs and what it answers.
+ * Keys and their meaning: shared/languages/study-text-keys.ts.
+ */
+import { z } from 'zod';
+import { canonicalLanguageTag } from '../languages/language-tags';
+
+/** A BCP 47 tag of a known language, in canonical form ("pt-br" → "pt-BR"). */
+export const languageTagSchema = z
+  .string()
+  .max(35, 'A language tag has at most 35 characters')
+  .transform((raw, ctx) => {
+    const tag = canonicalLanguageTag(raw);
+    if (!tag) {
+      ctx.addIssue({
+        code: 'custom',
+        message: `“${raw}” is not a language tag we know. Use a BCP 47 tag such as de, pt-BR or ar.`,
+      });
+      return z.NEVER;
+    }
+    return tag;
+  });
+
+export const studyLanguagesSchema = z
+  .array(languageTagSchema)
+  .min(1, 'A study needs at least one language')
+  .max(12, 'At most 12 languages per study')
+  .superRefine((tags, ctx) => {
+    tags.forEach((t, i) => {
+      if (tags.indexOf(t) !== i)
+        ctx.addIssue({ code: 'custom', path: [i], message: `${t} is listed twice` });
+    });
+  });
+
+/** The first language is the source: the texts written on Attributes and Questionnaire. */
+export const updateLanguagesSchema = z.object({ languages: studyLanguagesSchema });
+export type UpdateLanguagesInput = z.input<typeof updateLanguagesSchema>;
+
+export const textKeySchema = z
+  .string()
+  .max(120)
+  .regex(/^[a-z]+(\.[A-Za-z0-9_-]+)+$/, 'Not a text key of this study');
+
+const translationText = z.string().max(6000, 'At most 6,000 characters');
+
+/** Texts of one language by key; an empty text removes the translation. */
+export const saveTranslationsSchema = z.object({
+  texts: z
+    .record(textKeySchema, translationText)
+    .refine((t) => Object.keys(t).length > 0, 'Nothing to save')
+    .refine((t) => Object.keys(t).length <= 5000, 'At most 5,000 texts at once'),
+});
+export type SaveTranslationsInput = z.input<typeof saveTranslationsSchema>;
+
+export const languageParamsSchema = z.object({
+  teamId: z.uuid(),
+  studyId: z.uuid(),
+  lang: languageTagSchema,
+});
+
+/** As stored in studies.translations and study_versions.translations. */
+export const storedTranslationsSchema = z.record(z.string(), z.record(z.string(), z.string()));
+
+export type StudyTextRow = { key: string; where: string; source: string; long: boolean };
+
+/** GET …/texts: every text, its source wording and each language's translation. */
+export type StudyTextsView = {
+  languages: string[];
+  editable: boolean;
+  texts: StudyTextRow[];
+  /** language → key → text (the source language only holds the app's words, if any). */
+  translations: Record<string, Record<string, string>>;
+  /** language → how many texts it still lacks. */
+  missing: Record<string, number>;
+};

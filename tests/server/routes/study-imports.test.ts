@@ -4,6 +4,7 @@ import { eq } from 'drizzle-orm';
 import { createTestApp, type TestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { studies } from '../../../db/schema/studies';
+import { listQuestionAnswers } from '../../../db/queries/study-answers';
 import { syntheticChoiceCsv } from '../../../scripts/lib/synthetic-choice-file';
 import type { ImportAttribute, ImportPreview } from '../../../shared/schemas/study-import';
 import type { Role } from '../../../shared/permissions';
@@ -261,6 +262,13 @@ describe('POST /imports', () => {
     ).body;
     expect(study).toMatchObject({ status: 'closed', source: 'imported', currentVersion: 1 });
     expect(study.counts).toMatchObject({ respondents: 2 });
+    // Background answers are stored as fielded ones (q:<key>), empty cells left unanswered.
+    const background = await listQuestionAnswers(t.deps.db, { studyId: res.body.studyId });
+    expect(background.map((a) => [a.screenKey, a.value]).sort()).toEqual([
+      ['q:household', { kind: 'number', number: 2 }],
+      ['q:tenure', { kind: 'single', optionId: 'o1' }],
+      ['q:tenure', { kind: 'single', optionId: 'o2' }],
+    ]);
     const live = await team.agents.editor
       .post(`/api/teams/${team.teamId}/studies/${res.body.studyId}/lifecycle/go-live`)
       .expect(409);

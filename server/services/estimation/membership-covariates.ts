@@ -5,7 +5,7 @@
  *   first of them (in questionnaire order), which is the base level; options nobody in the run
  *   chose get no column (their coefficient would not be identified).
  * - A numeric question is used as it is.
- * - A missing answer keeps the respondent: a single-choice question gets a "not answered" column,
+ * - A missing answer (never reached, or passed by a skip rule) keeps the respondent: a single-choice question gets a "not answered" column,
  *   and a numeric one takes the mean of the answered values plus a "not answered" 0/1 column
  *   (the missing-indicator method, Cohen & Cohen 1983, §7.4; with it the numeric coefficient is
  *   estimated from the respondents who answered). Both columns appear only when someone in the

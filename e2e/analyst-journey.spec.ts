@@ -11,6 +11,7 @@ import ExcelJS from 'exceljs';
 import { expect, test, type Download } from '@playwright/test';
 import { signIn } from './support/auth';
 import { demoCredential } from './support/demo-credentials';
+import { startRun } from './support/runs';
 import type { TasteList } from '../shared/schemas/tastes';
 
 async function readDownload(download: Download): Promise<Buffer> {
@@ -46,13 +47,12 @@ test('an analyst runs a mixed logit, splits tastes by a background question and 
   });
 
   await test.step('start a mixed logit with modest draws and watch it finish', async () => {
-    await page.getByRole('button', { name: 'New run' }).click();
-    await page.getByLabel('Model', { exact: true }).selectOption('mixed');
-    await page.getByLabel('Name', { exact: true }).fill(runName);
-    await page.getByLabel('Draws per respondent').fill('50');
-    await page.getByLabel('Draws for taste profiles').fill('200');
-    await page.getByRole('button', { name: 'Start run' }).click();
-    const item = page.getByRole('listitem').filter({ hasText: runName });
+    const item = await startRun(page, {
+      model: 'mixed',
+      name: runName,
+      draws: 50,
+      profileDraws: 200,
+    });
     await expect(item.getByRole('progressbar', { name: `Progress of ${runName}` })).toBeVisible();
     await expect(item.getByText('Done', { exact: true })).toBeVisible({ timeout: 90_000 });
     await expect(item.getByRole('progressbar')).toHaveCount(0);

@@ -45,7 +45,7 @@ export async function signInDemo(base: string, credentialsFile: string, role: st
     email: person.email,
     password: person.password,
   });
-  return { request, me };
+  return { request, me, cookie: request.cookie };
 }
 
 export async function startDemoMixedRun(base: string, credentialsFile: string): Promise<DemoRun> {

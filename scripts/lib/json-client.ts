@@ -6,7 +6,7 @@
 export function createJsonClient(baseUrl: string) {
   const base = baseUrl.replace(/\/+$/, '');
   let cookie = '';
-  return async function request<T>(method: string, url: string, body?: unknown): Promise<T> {
+  async function request<T>(method: string, url: string, body?: unknown): Promise<T> {
     const res = await fetch(`${base}/api${url}`, {
       method,
       headers: {
@@ -35,5 +35,7 @@ export function createJsonClient(baseUrl: string) {
       throw new Error(`${method} ${url} answered ${res.status}: ${message}`);
     }
     return (text ? JSON.parse(text) : undefined) as T;
-  };
+  }
+  /** The session cookie, for requests the client cannot make (large streamed uploads). */
+  return Object.assign(request, { cookie: () => cookie });
 }

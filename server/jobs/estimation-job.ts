@@ -31,6 +31,7 @@ import {
 } from '../services/choice-data-from-study';
 import { ESTIMATION_JOB } from '../services/runs';
 import { getRunSeed, splitStoredSpec } from '../services/estimation/run-view';
+import { loadMembershipCovariates } from '../services/estimation/study-membership';
 import { getSpecColumns } from '../engine/estimation/run-estimation';
 import {
   createEstimationPool,
@@ -137,6 +138,9 @@ export async function runEstimationJob(
       loadStudyChoiceData(deps.db, { studyId: run.studyId, filterId: respondents.filterId }),
     );
     const built = toBuiltChoiceData(prepared, keys);
+    const membership = await persist(() =>
+      loadMembershipCovariates(deps.db, { id: run.studyId }, spec, built.data.respondentIds),
+    );
     await persist(() =>
       setRunDataHash(deps.db, {
         id: runId,
@@ -164,6 +168,7 @@ export async function runEstimationJob(
         built,
         threads: options.threads ?? deps.env.WORKER_THREADS,
         kernel: deps.env.ESTIMATION_KERNEL,
+        membership,
       },
       {
         signal: abort.signal,

@@ -7,6 +7,7 @@ import type { AppDeps } from '../deps';
 import { AppError, UnauthenticatedError, ValidationError } from '../lib/errors';
 import { createOneTimeToken, hashToken } from '../lib/tokens';
 import { dummyHash, hashPassword, verifyPassword } from '../lib/passwords';
+import { assertUncommonPassword } from '../lib/common-passwords';
 import { runAfterResponse } from '../lib/after-response';
 import { getUserByEmail, getUserById, insertUser, updateUser } from '../../db/queries/users';
 import { insertMembership, insertTeam, listTeamsOfUser } from '../../db/queries/memberships';
@@ -77,6 +78,8 @@ async function sendConfirmation(
  * link). The caller always hears the same thing.
  */
 export function signUp(deps: AppDeps, input: SignUpInput): AcceptedMessage {
+  // Before anything else, so the answer never depends on whether the address exists.
+  assertUncommonPassword(input.password, 'password');
   runAfterResponse(deps.logger, 'sign-up', async () => {
     const passwordHash = await hashPassword(input.password);
     const existing = await getUserByEmail(deps.db, { email: input.email });
@@ -172,6 +175,7 @@ export function requestPasswordReset(deps: AppDeps, input: ForgotPasswordInput):
 
 /** Sets a new password from a reset link: every other session ends, this browser signs in. */
 export async function resetPassword(deps: AppDeps, input: ResetPasswordInput, client: Client) {
+  assertUncommonPassword(input.password, 'password');
   const passwordHash = await hashPassword(input.password);
   return deps.db.transaction(async (tx) => {
     const now = new Date();
@@ -200,6 +204,7 @@ export async function updateAccount(
   if (!user) throw new UnauthenticatedError();
   let passwordHash: string | undefined;
   if (input.newPassword) {
+    assertUncommonPassword(input.newPassword, 'newPassword');
     const { ok } = await verifyPassword(user.passwordHash, input.currentPassword ?? '');
     if (!ok) {
       throw new ValidationError('Your current password is wrong.', [

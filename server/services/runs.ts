@@ -10,6 +10,7 @@ import { loadStudy } from './study-access';
 import { getPreparedColumns } from './estimation/code-answers';
 import { assertRunFitsMemory } from './estimation/run-memory';
 import { assertFamilyFitsData } from './estimation/family-data-checks';
+import { assertMembershipQuestions, listMembershipQuestions } from './estimation/study-membership';
 import { getRunSeed, toRunView } from './estimation/run-view';
 import type { ModelFamily } from '../../shared/schemas/estimation-families';
 import {
@@ -67,11 +68,12 @@ export async function getRunOptions(
   studyId: string,
 ): Promise<RunOptions> {
   const study = await loadStudy(deps, member.teamId, studyId);
-  const [columns, included, filters, runCount] = await Promise.all([
+  const [columns, included, filters, runCount, membershipQuestions] = await Promise.all([
     getModelColumns(deps, study),
     listIncludedRespondents(deps.db, { studyId }),
     listRespondentFilters(deps.db, { studyId }),
     countRuns(deps.db, { teamId: member.teamId, studyId }),
+    listMembershipQuestions(deps.db, study),
   ]);
   return {
     columns: columns.map((c) => ({
@@ -85,6 +87,7 @@ export async function getRunOptions(
     includedRespondents: included.length,
     filters,
     hasRuns: runCount > 0,
+    membershipQuestions,
   };
 }
 
@@ -131,6 +134,7 @@ export async function createRun(
       { path: 'respondents.filterId', message: 'There is no such saved filter' },
     ]);
   await assertRunFitsMemory(deps, studyId, spec);
+  await assertMembershipQuestions(deps.db, study, spec);
   await assertFamilyFitsData(deps, studyId, spec, filterId);
   if (!deps.jobs)
     throw new AppError(503, 'queue_unavailable', 'The job queue is not running; try again soon.');

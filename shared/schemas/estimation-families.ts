@@ -72,6 +72,12 @@ export const classesSchema = z.union([
     .refine(([lo, hi]) => lo <= hi, 'Give the range as [fewest, most] classes'),
 ]);
 
+/**
+ * Class membership from background answers (study runs): single-choice questions with at most
+ * this many answer options (one dummy per option but the first), numeric questions as they are.
+ */
+export const MEMBERSHIP_MAX_OPTIONS = 10;
+
 /** The family fields of the estimation spec (all optional; defaults apply per model). */
 export const familySpecFields = {
   mcmc: mcmcSchema.optional(),

@@ -162,12 +162,23 @@ export type ModelColumn = {
   isCost: boolean;
 };
 
+/** A background question a latent class run can use for class membership. */
+export type MembershipQuestionOption = {
+  key: string;
+  text: string;
+  type: 'single' | 'number';
+  /** Answer options of a single-choice question (0 for a number). */
+  optionCount: number;
+};
+
 /** What the Models form needs: the coded columns, how many respondents, saved filters. */
 export type RunOptions = {
   columns: ModelColumn[];
   includedRespondents: number;
   filters: { id: string; name: string }[];
   hasRuns: boolean;
+  /** Single-choice (up to MEMBERSHIP_MAX_OPTIONS options) and number questions. */
+  membershipQuestions: MembershipQuestionOption[];
 };
 
 /** Conditional means of every respondent in a run, per coefficient (no respondent ids). */

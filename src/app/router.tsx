@@ -31,6 +31,7 @@ export function createRouter(queryClient: QueryClient) {
           element: <AppShell />,
           children: [
             { path: paths.studies.path, lazy: () => import('./routes/studies/study-list') },
+            { path: paths.importStudy.path, lazy: () => import('./routes/studies/import-study') },
             {
               path: paths.members.path,
               lazy: async () => {

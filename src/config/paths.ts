@@ -36,6 +36,11 @@ export const paths = {
     path: '/teams/:teamId/studies',
     getHref: (teamId: string) => `/teams/${teamId}/studies`,
   },
+  /** Create a study from a choice file collected elsewhere. */
+  importStudy: {
+    path: '/teams/:teamId/studies/import',
+    getHref: (teamId: string) => `/teams/${teamId}/studies/import`,
+  },
   members: {
     path: '/teams/:teamId/members',
     getHref: (teamId: string) => `/teams/${teamId}/members`,

@@ -6,20 +6,16 @@
  */
 import { drawStandardNormal } from '../draws/gamma-variate';
 import type { Prng } from '../draws/prng';
-import type { ChoiceData } from '../estimation/choice-data';
 import type { CheckedHbOptions, HbLayout } from './check-hb-options';
 import type { IndividualStep } from './individual-step';
 
 export function createFixedStep(
-  data: ChoiceData,
   layout: HbLayout,
   chol: Float64Array,
   priors: CheckedHbOptions['priors'],
 ) {
   const Kf = layout.fixed.length;
-  const N = data.taskStart.length - 1;
   const candidate = new Float64Array(Kf);
-  const llCandidate = new Float64Array(N);
   const z = new Float64Array(Kf);
   let rho = 1;
   const logPrior = (f: Float64Array) => {
@@ -37,11 +33,11 @@ export function createFixedStep(
         for (let j = 0; j <= i; j++) s += chol[i * Kf + j] * z[j];
         candidate[i] = current[i] + rho * s;
       }
-      const llNew = individual.loglikWithFixed(candidate, llCandidate);
-      const logRatio = llNew - individual.totalLoglik() + logPrior(candidate) - logPrior(current);
+      const llOld = individual.totalLoglik();
+      const llNew = individual.proposeFixed(candidate);
+      const logRatio = llNew - llOld + logPrior(candidate) - logPrior(current);
       if (!(Math.log(prng.nextDouble()) < logRatio)) return false;
-      current.set(candidate);
-      individual.ll.set(llCandidate);
+      individual.acceptFixed();
       return true;
     },
     /** Burn-in adaptation toward acceptance 0.3: E[log change] = 0 at that rate. */

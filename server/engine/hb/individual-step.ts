@@ -1,17 +1,42 @@
 /**
- * The respondent layer of the HB sampler: the current α_n of every respondent, their
- * log-likelihoods, and one random-walk MH sweep over respondents. With w = L⁻¹(α_n − μ)
- * (L = chol Σ) the proposal α' = α_n + ρLz has L⁻¹(α' − μ) = w + ρz, so each respondent needs one
- * triangular solve for both prior terms (Train 2009, §12.6; the identity is plain algebra).
+ * The respondent layer of the HB sampler: the current α_n and β_n = T(α_n) of every respondent,
+ * their utilities v_n = D_n β_n and log-likelihoods, and one random-walk MH sweep over
+ * respondents (Train 2009, §12.6; the proposal in random-walk-proposal.ts). The proposal's utilities are v_n + D_n(β' − β_n) over the
+ * column-major blocks of respondent-design.ts, and ln P(y_n | β_n) of the current state is kept,
+ * so a proposal costs one register-blocked pass over the respondent's rows and one exponential
+ * per row, summed straight into the task's denominator; the sweep
+ * allocates nothing. The kept utilities are updated by accepted increments, whose rounding
+ * drifts by about √(accepted moves)·ε·|v| (≈ 1e-13 after 10⁵ moves), far below the MH noise.
  */
-import { drawStandardNormal } from '../draws/gamma-variate';
 import type { Prng } from '../draws/prng';
 import type { ChoiceData } from '../estimation/choice-data';
-import { solveLower } from '../linalg/triangular';
 import { HB_LOGNORMAL, HB_NEG_LOGNORMAL, type HbLayout } from './check-hb-options';
-import { computeRespondentLoglik, getMaxRespondentRows } from './respondent-logit-loglik';
+import { createProposalWorkspace, proposeRandomWalk } from './random-walk-proposal';
+import { buildRespondentDesign, shiftUtilities } from './respondent-design';
+import { computeLoglikOfUtilities } from './respondent-logit-loglik';
 
-export type IndividualStep = ReturnType<typeof createIndividualStep>;
+/** The respondent layer as the chain (run-hb-chain.ts) and the fixed step (fixed-step.ts) use it. */
+export interface IndividualStep {
+  /** N × Kr current α_n (random coefficients). */
+  readonly alpha: Float64Array;
+  /** Kf current fixed coefficients. */
+  readonly fixedAlpha: Float64Array;
+  /** One MH sweep over respondents at (μ, Σ = LLᵀ); returns how many moved. */
+  step(mu: Float64Array, L: Float64Array, rho: number, prng: Prng): number;
+  /** Σ_n ln P(y_n | α_n, fixed = candidate), keeping the candidate for acceptFixed. */
+  proposeFixed(candidate: Float64Array): number;
+  /** Makes the last proposeFixed candidate the current fixed coefficients. */
+  acceptFixed(): void;
+  totalLoglik(): number;
+  /** Writes β_n (random coefficients, transformed) of every respondent at `offset`. */
+  writeBetas(out: Float32Array, offset: number): void;
+}
+
+export type IndividualStepFactory = (
+  data: ChoiceData,
+  layout: HbLayout,
+  start: Float64Array,
+) => IndividualStep;
 
 /** β of an α under a coefficient's transform. */
 export function toBeta(transform: number, alpha: number): number {
@@ -21,95 +46,104 @@ export function toBeta(transform: number, alpha: number): number {
 }
 
 /** State starts at α_n = start (random part) for every respondent. */
-export function createIndividualStep(data: ChoiceData, layout: HbLayout, start: Float64Array) {
-  const { K, transform, random, fixed } = layout;
+export function createIndividualStep(
+  data: ChoiceData,
+  layout: HbLayout,
+  start: Float64Array,
+): IndividualStep {
+  const { transform, random, fixed } = layout;
   const Kr = random.length;
   const Kf = fixed.length;
   const N = data.taskStart.length - 1;
-  const { diffs, diffStart, taskStart } = data;
-  const alpha = new Float64Array(N * Kr);
-  for (let n = 0; n < N; n++) for (let r = 0; r < Kr; r++) alpha[n * Kr + r] = start[random[r]];
-  const fixedAlpha = Float64Array.from(fixed, (k) => start[k]);
-  const ll = new Float64Array(N);
-  const beta = new Float64Array(K);
-  const w = new Float64Array(Kr);
-  const z = new Float64Array(Kr);
-  const proposal = new Float64Array(Kr);
-  const work = new Float64Array(getMaxRespondentRows(data));
+  const { diffStart, taskStart } = data;
+  const design = buildRespondentDesign(data, layout);
+  const { rowStart } = design;
   const randomTransform = Int8Array.from(random, (k) => transform[k]);
+  const alpha = new Float64Array(N * Kr);
+  const beta = new Float64Array(N * Kr);
+  for (let n = 0; n < N; n++)
+    for (let r = 0; r < Kr; r++) {
+      alpha[n * Kr + r] = start[random[r]];
+      beta[n * Kr + r] = toBeta(randomTransform[r], start[random[r]]);
+    }
+  const fixedAlpha = Float64Array.from(fixed, (k) => start[k]);
+  const v = new Float64Array(rowStart[N]);
+  const ll = new Float64Array(N);
+  // Scratch, sized once.
+  const proposalWs = createProposalWorkspace(Kr);
+  const proposal = new Float64Array(Kr);
+  const betaNew = new Float64Array(Kr);
+  const delta = new Float64Array(Math.max(Kr, Kf));
+  const vNew = new Float64Array(design.maxRows);
+  const candidate = new Float64Array(Kf);
+  const vFixed = Kf > 0 ? new Float64Array(rowStart[N]) : v;
+  const llFixed = new Float64Array(N);
 
-  const setFixed = (values: Float64Array) => {
-    for (let f = 0; f < Kf; f++) beta[fixed[f]] = values[f];
-  };
-  const setRandom = (values: Float64Array, offset: number) => {
-    for (let r = 0; r < Kr; r++) beta[random[r]] = toBeta(randomTransform[r], values[offset + r]);
-  };
-  const loglikOf = (n: number) =>
-    computeRespondentLoglik(diffs, diffStart, taskStart, n, K, beta, 0, work);
+  /** ln P(y_n) of respondent n's utilities stored in u from `offset`. */
+  const loglikOf = (n: number, u: Float64Array, offset: number): number =>
+    computeLoglikOfUtilities(u, offset, diffStart, taskStart[n], taskStart[n + 1]);
 
-  setFixed(fixedAlpha);
   for (let n = 0; n < N; n++) {
-    setRandom(alpha, n * Kr);
-    ll[n] = loglikOf(n);
+    const first = rowStart[n];
+    const R = rowStart[n + 1] - first;
+    shiftUtilities(v, first, design.random, Kr * first, beta.subarray(n * Kr), Kr, R, v, first);
+    shiftUtilities(v, first, design.fixed, Kf * first, fixedAlpha, Kf, R, v, first);
+    ll[n] = loglikOf(n, v, first);
   }
 
   return {
     alpha,
     fixedAlpha,
-    ll,
-    /** One MH sweep over respondents at (μ, Σ = LLᵀ); returns how many moved. */
-    step(mu: Float64Array, L: Float64Array, rho: number, prng: Prng): number {
+    step(mu, L, rho, prng) {
       let moved = 0;
-      setFixed(fixedAlpha);
       for (let n = 0; n < N; n++) {
         const o = n * Kr;
+        const logPrior = proposeRandomWalk(alpha, o, mu, L, Kr, rho, prng, proposal, proposalWs);
         for (let r = 0; r < Kr; r++) {
-          proposal[r] = alpha[o + r] - mu[r];
-          z[r] = drawStandardNormal(prng);
+          betaNew[r] = toBeta(randomTransform[r], proposal[r]);
+          delta[r] = betaNew[r] - beta[o + r];
         }
-        solveLower(L, Kr, proposal, 0, w);
-        let qOld = 0;
-        let qNew = 0;
-        for (let r = 0; r < Kr; r++) {
-          qOld += w[r] * w[r];
-          const wNew = w[r] + rho * z[r];
-          qNew += wNew * wNew;
-          let step = 0;
-          for (let j = 0; j <= r; j++) step += L[r * Kr + j] * z[j];
-          proposal[r] = alpha[o + r] + rho * step;
-        }
-        setRandom(proposal, 0);
-        const llNew = loglikOf(n);
-        const logRatio = llNew - ll[n] - 0.5 * (qNew - qOld);
+        const first = rowStart[n];
+        const R = rowStart[n + 1] - first;
+        shiftUtilities(v, first, design.random, Kr * first, delta, Kr, R, vNew, 0);
+        const llNew = loglikOf(n, vNew, 0);
+        const logRatio = llNew - ll[n] + logPrior;
         if (Math.log(prng.nextDouble()) < logRatio) {
-          alpha.set(proposal, o);
+          for (let r = 0; r < Kr; r++) {
+            alpha[o + r] = proposal[r];
+            beta[o + r] = betaNew[r];
+          }
+          for (let i = 0; i < R; i++) v[first + i] = vNew[i];
           ll[n] = llNew;
           moved++;
         }
       }
       return moved;
     },
-    /** ln P(y_n | α_n, fixed = candidate) for every respondent into `out`; returns the sum. */
-    loglikWithFixed(candidate: Float64Array, out: Float64Array): number {
-      setFixed(candidate);
+    proposeFixed(values) {
+      candidate.set(values);
+      for (let f = 0; f < Kf; f++) delta[f] = values[f] - fixedAlpha[f];
       let total = 0;
       for (let n = 0; n < N; n++) {
-        setRandom(alpha, n * Kr);
-        total += out[n] = loglikOf(n);
+        const first = rowStart[n];
+        const R = rowStart[n + 1] - first;
+        shiftUtilities(v, first, design.fixed, Kf * first, delta, Kf, R, vFixed, first);
+        total += llFixed[n] = loglikOf(n, vFixed, first);
       }
-      setFixed(fixedAlpha);
       return total;
     },
-    totalLoglik(): number {
+    acceptFixed() {
+      fixedAlpha.set(candidate);
+      v.set(vFixed);
+      ll.set(llFixed);
+    },
+    totalLoglik() {
       let total = 0;
       for (let n = 0; n < N; n++) total += ll[n];
       return total;
     },
-    /** Writes β_n (random coefficients, transformed) of every respondent at `offset`. */
-    writeBetas(out: Float32Array, offset: number): void {
-      for (let n = 0; n < N; n++)
-        for (let r = 0; r < Kr; r++)
-          out[offset + n * Kr + r] = toBeta(randomTransform[r], alpha[n * Kr + r]);
+    writeBetas(out, offset) {
+      for (let i = 0; i < N * Kr; i++) out[offset + i] = beta[i];
     },
   };
 }

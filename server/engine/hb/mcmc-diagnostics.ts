@@ -47,29 +47,41 @@ export function computeEss(chains: readonly Float64Array[]): number {
   const m = split.length;
   const n = split[0]?.length ?? 0;
   if (n < 4) return NaN;
+  // Centred copies in one flat buffer (split j at j·n); plain loops, since typed-array map and
+  // iterators are slow paths in V8 and this runs once per respondent and coefficient.
+  const centred = new Float64Array(m * n);
+  const means = new Float64Array(m);
   let min = Infinity;
   let max = -Infinity;
-  for (const c of split)
+  for (let j = 0; j < m; j++) {
+    const c = split[j];
+    let s = 0;
     for (let i = 0; i < n; i++) {
-      min = Math.min(min, c[i]);
-      max = Math.max(max, c[i]);
+      const x = c[i];
+      s += x;
+      if (x < min) min = x;
+      if (x > max) max = x;
     }
+    means[j] = s / n;
+    for (let i = 0; i < n; i++) centred[j * n + i] = c[i] - means[j];
+  }
   if (max - min < 1e-15) return m * n;
-  const means = split.map(mean);
-  const centred = split.map((c, j) => c.map((x) => x - means[j]));
   // Mean over chains of the biased autocovariance at lag t, computed on demand.
   const acov = (t: number) => {
     let s = 0;
-    for (const c of centred) {
+    for (let j = 0; j < m; j++) {
+      const o = j * n;
       let a = 0;
-      for (let i = 0; i + t < n; i++) a += c[i] * c[i + t];
+      for (let i = 0; i + t < n; i++) a += centred[o + i] * centred[o + i + t];
       s += a / n;
     }
     return s / m;
   };
   const meanVar = (acov(0) * n) / (n - 1);
   let varPlus = (meanVar * (n - 1)) / n;
-  if (m > 1) varPlus += sampleVariance(means, means.reduce((a, b) => a + b, 0) / m);
+  let grand = 0;
+  for (let j = 0; j < m; j++) grand += means[j];
+  if (m > 1) varPlus += sampleVariance(means, grand / m);
   const rho = new Float64Array(n);
   let even = 1;
   let odd = 1 - (meanVar - acov(1)) / varPlus;

@@ -22,7 +22,11 @@ import {
 } from './gibbs-conditionals';
 import type { HbChainResult } from './hb-chain-result';
 import type { HbStart } from './hb-start';
-import { createIndividualStep } from './individual-step';
+import {
+  createIndividualStep,
+  type IndividualStep,
+  type IndividualStepFactory,
+} from './individual-step';
 import { createFixedStep } from './fixed-step';
 
 export interface HbChainHooks {
@@ -41,21 +45,25 @@ export function getChainStream(chain: number): number {
   return 0x4842_00 + chain;
 }
 
-/** Runs chain `chain` on data whose columns are the coefficients in order. */
+/**
+ * Runs chain `chain` on data whose columns are the coefficients in order. `createStep` is the
+ * respondent layer; only the benchmark passes another (the previous kernel, for comparison).
+ */
 export function runHbChain(
   data: ChoiceData,
   opts: CheckedHbOptions,
   chain: number,
   start: HbStart,
   hooks: HbChainHooks = {},
+  createStep: IndividualStepFactory = createIndividualStep,
 ): HbChainResult {
   const { layout, iterations, burnin, thin, retained } = opts;
   const Kr = layout.random.length;
   const Kf = layout.fixed.length;
   const N = data.taskStart.length - 1;
   const prng = createPrng(opts.seed, getChainStream(chain));
-  const individual = createIndividualStep(data, layout, start.alpha);
-  const fixedStep = Kf > 0 ? createFixedStep(data, layout, start.fixedChol, opts.priors) : null;
+  const individual = createStep(data, layout, start.alpha);
+  const fixedStep = Kf > 0 ? createFixedStep(layout, start.fixedChol, opts.priors) : null;
   const gibbs = createGibbsWorkspace(Kr);
   const mu = Float64Array.from(layout.random, (k) => start.alpha[k]);
   const sigma = new Float64Array(Kr * Kr);
@@ -154,7 +162,7 @@ function createTrace(iterations: number, Kr: number): HbChainResult['trace'] {
 function storeDraw(
   out: HbChainResult,
   s: number,
-  individual: ReturnType<typeof createIndividualStep>,
+  individual: IndividualStep,
   mu: Float64Array,
   sigma: Float64Array,
   N: number,

@@ -17,16 +17,18 @@ const STEP_LO = 1.9082149292705877e-10 / 256;
 // Shift that keeps v·INV_STEP positive before the truncating |0 (|v| ≤ 700 → |v·INV_STEP| < 2^18).
 const SHIFT = 1048576;
 
+/** e^v by the method above, for loops that use each exponential once (e.g. a logit denominator). */
+export function expTang(v: number): number {
+  const x = v < 700 ? (v > -700 ? v : -700) : 700;
+  const k = ((x * INV_STEP + (SHIFT + 0.5)) | 0) - SHIFT;
+  const r = x - k * STEP_HI - k * STEP_LO;
+  const p = 1 + r * (1 + r * (0.5 + r * (1 / 6 + r * (1 / 24))));
+  return p * EXP_TABLE[k & 255] * POW2[(k >> 8) + POW2_OFFSET];
+}
+
 export function expStream(x: Float64Array, offset: number, length: number): void {
   const end = offset + length;
-  for (let i = offset; i < end; i++) {
-    let v = x[i];
-    v = v < 700 ? (v > -700 ? v : -700) : 700;
-    const k = ((v * INV_STEP + (SHIFT + 0.5)) | 0) - SHIFT;
-    const r = v - k * STEP_HI - k * STEP_LO;
-    const p = 1 + r * (1 + r * (0.5 + r * (1 / 6 + r * (1 / 24))));
-    x[i] = p * EXP_TABLE[k & 255] * POW2[(k >> 8) + POW2_OFFSET];
-  }
+  for (let i = offset; i < end; i++) x[i] = expTang(x[i]);
 }
 
 /**
@@ -41,12 +43,7 @@ export function expStreamAccumulate(
   accOffset: number,
 ): void {
   for (let i = 0; i < length; i++) {
-    let v = x[offset + i];
-    v = v < 700 ? (v > -700 ? v : -700) : 700;
-    const k = ((v * INV_STEP + (SHIFT + 0.5)) | 0) - SHIFT;
-    const r = v - k * STEP_HI - k * STEP_LO;
-    const p = 1 + r * (1 + r * (0.5 + r * (1 / 6 + r * (1 / 24))));
-    const e = p * EXP_TABLE[k & 255] * POW2[(k >> 8) + POW2_OFFSET];
+    const e = expTang(x[offset + i]);
     x[offset + i] = e;
     acc[accOffset + i] += e;
   }

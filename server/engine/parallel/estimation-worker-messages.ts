@@ -12,6 +12,7 @@ import type { TransportedError } from './engine-error-transport';
 import type { KernelPreference } from '../simd/kernel-choice';
 import type { HbProgress } from '../hb/fit-hb';
 import type { LatentClassProgress } from '../latent-class/fit-latent-class';
+import type { MembershipCovariates } from '../latent-class/check-latent-class-options';
 
 export interface EstimationWorkerTask {
   spec: EstimationSpec;
@@ -20,6 +21,8 @@ export interface EstimationWorkerTask {
   threads: number;
   /** Kernel of the mixed logit's LL (default 'auto'). */
   kernel?: KernelPreference;
+  /** Latent class: covariates of the membership model, rows in built.data.respondentIds order. */
+  membership?: MembershipCovariates | null;
   port?: MessagePort;
 }
 

@@ -32,11 +32,12 @@ function assertTask(message: unknown): asserts message is EstimationWorkerTask {
 
 export async function runEstimationTask(message: unknown): Promise<EstimationWorkerResult> {
   assertTask(message);
-  const { spec, built, threads, kernel, port } = message;
+  const { spec, built, threads, kernel, membership, port } = message;
   try {
     const result = await runEstimation(spec, built, {
       threads,
       kernel,
+      membership,
       onNote: (note) =>
         port?.postMessage({ type: 'note', note } satisfies EstimationProgressMessage),
       onProgress: (progress) =>

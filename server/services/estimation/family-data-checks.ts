@@ -28,13 +28,6 @@ export async function assertFamilyFitsData(
   filterId: string | null,
 ): Promise<void> {
   if (spec.model !== 'hb' && spec.model !== 'latent_class') return;
-  if (spec.model === 'latent_class' && (spec.membership?.length ?? 0) > 0) {
-    // The app does not yet turn background answers into membership covariates; refusing is
-    // better than fitting constant shares while the spec says otherwise.
-    const message =
-      'Class membership by background answers is not available for study runs yet; leave it out, or fit it with npm run estimate on the exported choice data.';
-    throw new ValidationError(message, [{ path: 'spec.membership', message }]);
-  }
   let built;
   try {
     const prepared = await loadStudyChoiceData(deps.db, { studyId, filterId });
@@ -48,7 +41,9 @@ export async function assertFamilyFitsData(
     else {
       const classes = spec.classes ?? 2;
       const most = Array.isArray(classes) ? classes[1] : classes;
-      assertClassesIdentifiable(built.data, most, spec.coefficients.length, 0);
+      // At least one column per membership question (single-choice questions give more).
+      const covariates = (spec.membership ?? []).length;
+      assertClassesIdentifiable(built.data, most, spec.coefficients.length, covariates);
     }
   } catch (err) {
     if (!(err instanceof EstimationOptionsError)) throw err;

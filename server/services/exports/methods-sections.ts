@@ -102,6 +102,10 @@ function hbSections(ctx: RunContext): MethodsSection[] {
   return out;
 }
 
+/** How study runs code background answers (server/services/estimation/membership-covariates.ts). */
+const MEMBERSHIP_CODING =
+  'Multinomial logit on the background answers, class 1 the reference; single choice: a 0/1 column per option against the first option chosen; numbers as given; a missing answer: a "not answered" 0/1 column (a number also takes the mean of the answers)';
+
 function latentClassSections(ctx: RunContext): MethodsSection[] {
   const r = ctx.results;
   const out: MethodsSection[] = [
@@ -114,6 +118,7 @@ function latentClassSections(ctx: RunContext): MethodsSection[] {
         ['Classes asked', JSON.stringify(ctx.spec.classes ?? null)],
         ['Starts per class count', ctx.spec.starts ?? null],
         ['Membership variables', (r.membership ?? []).join(', ') || 'none (constant shares)'],
+        ...((r.membership ?? []).length > 0 ? [['Membership coding', MEMBERSHIP_CODING]] : []),
         ['Classes chosen', r.classes?.length ?? null],
       ],
     },

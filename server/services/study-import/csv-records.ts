@@ -1,15 +1,30 @@
 /**
- * The records of an uploaded CSV as a stream (csv-parse), each with the line it ends on (the
+ * The records of an uploaded CSV as a stream (csv-parse), each with the line it starts on (the
  * header is line 1): cells trimmed, empty lines skipped, a byte-order mark dropped, and lines
  * of any length let through so the reader can report a wrong field count itself.
+ *
+ * Lines are counted here rather than with csv-parse's `info` option, which builds an object
+ * per record and halved the reading speed of a million-row file: a record takes one line,
+ * plus one for every line break inside its quoted cells.
  */
 import type { Readable } from 'node:stream';
 import { parse } from 'csv-parse';
 
-export type CsvRecord = { record: string[]; info: { lines: number } };
-
-export function csvRecords(input: Readable): AsyncIterable<CsvRecord> {
-  return input.pipe(
-    parse({ trim: true, skip_empty_lines: true, relax_column_count: true, info: true, bom: true }),
-  );
+/**
+ * Calls `onRecord` for every non-empty record, in order; stops early when it returns false.
+ * Throws csv-parse's error when the text is not CSV (an unclosed quote, say).
+ */
+export async function readCsvRecords(
+  input: Readable,
+  onRecord: (record: string[], line: number) => boolean | void,
+): Promise<void> {
+  const parser = input.pipe(parse({ trim: true, relax_column_count: true, bom: true }));
+  let next = 1;
+  for await (const record of parser as AsyncIterable<string[]>) {
+    const line = next++;
+    for (const cell of record)
+      for (let at = cell.indexOf('\n'); at >= 0; at = cell.indexOf('\n', at + 1)) next++;
+    if (record.length === 1 && record[0] === '') continue;
+    if (onRecord(record, line) === false) break;
+  }
 }

@@ -6,7 +6,7 @@
  * respondents given twice are problems with their line.
  */
 import type { Readable } from 'node:stream';
-import { csvRecords } from './csv-records';
+import { readCsvRecords } from './csv-records';
 import { questionKeyFromText } from '../../../shared/schemas/question-keys';
 import type {
   ImportBackgroundColumn,
@@ -46,16 +46,15 @@ export async function readBackgroundFile(
     message: string,
   ) => problems.add({ file: 'background', line, column, code, message });
   try {
-    for await (const { record, info } of csvRecords(input)) {
-      const line = info.lines;
+    await readCsvRecords(input, (record, line) => {
       if (header.length === 0) {
         header = record;
         respondentAt = header.indexOf('respondent');
         if (respondentAt < 0) {
           add(1, 'respondent', 'missing_column', 'The header has no column “respondent”.');
-          break;
+          return false;
         }
-        continue;
+        return;
       }
       if (record.length !== header.length) {
         add(
@@ -64,7 +63,7 @@ export async function readBackgroundFile(
           'field_count',
           `This line has ${record.length} fields; the header has ${header.length}.`,
         );
-        continue;
+        return;
       }
       const id = record[respondentAt];
       const r = respondentIndex.get(id);
@@ -75,7 +74,7 @@ export async function readBackgroundFile(
           'background_unknown_respondent',
           `Respondent “${id}” has no choices in the choice file.`,
         );
-        continue;
+        return;
       }
       if (answers.has(r)) {
         add(
@@ -84,13 +83,13 @@ export async function readBackgroundFile(
           'background_duplicate_respondent',
           `Respondent ${id} appears on an earlier line too.`,
         );
-        continue;
+        return;
       }
       answers.set(
         r,
         record.filter((_, i) => i !== respondentAt),
       );
-    }
+    });
   } catch (error) {
     add(null, null, 'unreadable', `The file cannot be read as CSV: ${(error as Error).message}`);
   } finally {

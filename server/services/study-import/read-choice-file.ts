@@ -8,7 +8,7 @@
  * afterwards (choice-file-checks.ts).
  */
 import type { Readable } from 'node:stream';
-import { csvRecords } from './csv-records';
+import { readCsvRecords } from './csv-records';
 import {
   choiceFileKeyColumns,
   choiceFileUnsupportedColumns,
@@ -53,8 +53,7 @@ export async function readChoiceFile(input: Readable): Promise<ChoiceFileScan> {
   let keyAt: number[] = [];
   let attributeAt: number[] = [];
   try {
-    for await (const { record, info } of csvRecords(input)) {
-      const line = info.lines;
+    await readCsvRecords(input, (record, line) => {
       if (scan.header.length === 0) {
         scan.header = record;
         keyAt = choiceFileKeyColumns.map((name) => record.indexOf(name));
@@ -79,11 +78,11 @@ export async function readChoiceFile(input: Readable): Promise<ChoiceFileScan> {
             });
         if (keyAt.some((i) => i < 0)) {
           scan.readable = false;
-          break;
+          return false;
         }
         attributeAt = record.map((_, i) => i).filter((i) => !keyAt.includes(i));
         scan.columns = attributeAt.map((i) => new ColumnDictionary(record[i]));
-        continue;
+        return;
       }
       if (record.length !== scan.header.length) {
         problems.add({
@@ -93,7 +92,7 @@ export async function readChoiceFile(input: Readable): Promise<ChoiceFileScan> {
           code: 'field_count',
           message: `This line has ${record.length} fields; the header has ${scan.header.length}.`,
         });
-        continue;
+        return;
       }
       const [respondent, task, alt, chosen] = keyAt.map((i) => record[i]);
       const emptyKey = choiceFileKeyColumns.find((_, k) => record[keyAt[k]] === '');
@@ -105,7 +104,7 @@ export async function readChoiceFile(input: Readable): Promise<ChoiceFileScan> {
           code: 'empty_key',
           message: `The ${emptyKey} column is empty.`,
         });
-        continue;
+        return;
       }
       if (scan.rows >= IMPORT_MAX_ROWS) {
         problems.add({
@@ -115,7 +114,7 @@ export async function readChoiceFile(input: Readable): Promise<ChoiceFileScan> {
           code: 'too_many_rows',
           message: `The file has more than ${IMPORT_MAX_ROWS.toLocaleString('en')} data lines; split it by respondent.`,
         });
-        break;
+        return false;
       }
       let r = respondentIndex.get(respondent);
       if (r === undefined) {
@@ -148,7 +147,7 @@ export async function readChoiceFile(input: Readable): Promise<ChoiceFileScan> {
           code: 'duplicate_row',
           message: `Respondent ${respondent}, task ${task}, alternative ${alt} already appears on line ${scan.rowLine[duplicateOf]}.`,
         });
-        continue;
+        return;
       }
       if (chosen !== '0' && chosen !== '1')
         problems.add({
@@ -166,7 +165,7 @@ export async function readChoiceFile(input: Readable): Promise<ChoiceFileScan> {
       scan.rowPrevInTask.push(scan.taskLastRow[t]);
       scan.taskLastRow[t] = row;
       attributeAt.forEach((at, k) => scan.columns[k].push(record[at], line));
-    }
+    });
   } catch (error) {
     problems.add({
       file: 'choices',

@@ -30,6 +30,13 @@ export const TRUE_MNL: Record<string, number> = {
   'asc:fixed': 0.2,
 };
 
+/** Three fixed coefficients of the seeded study (an MNL or a latent class specification). */
+export const FIXED_COEFFICIENTS = [
+  { name: 'bill', column: 'attr:bill', distribution: 'fixed' },
+  { name: 'river_good', column: 'attr:river:good', distribution: 'fixed' },
+  { name: 'sq', column: 'asc:fixed', distribution: 'fixed' },
+];
+
 /** A panel mixed logit of the seeded study with normal bill and river tastes and `draws` draws. */
 export function mixedLogitSpec(draws: number, seed: number, randomInterrupt = false) {
   return {
@@ -127,13 +134,28 @@ function choose(utilities: number[], prng: ReturnType<typeof createPrng>): numbe
 
 export async function seedRunStudy(
   db: Db,
-  params: { teamId: string; respondents?: number; seed?: number; beta?: Record<string, number> },
+  params: {
+    teamId: string;
+    respondents?: number;
+    seed?: number;
+    beta?: Record<string, number>;
+    /**
+     * Tastes of a second class: most of the respondents who filter their tap water (every third,
+     * but not every fourth of them) and a few who do not (every fifth), so filtering predicts the
+     * class without deciding it.
+     */
+    filterBeta?: Record<string, number>;
+  },
 ): Promise<SeededStudy> {
   const definition = makeLarkspurDefinition();
   const design = makeRandomDesign(definition);
   const plan = buildCodingPlan(definition);
   const beta = plan.columns.map((c) => (params.beta ?? TRUE_MNL)[c.key] ?? 0);
-  const utility = (x: Float64Array) => x.reduce((s, v, k) => s + v * beta[k], 0);
+  const filterBeta = params.filterBeta
+    ? plan.columns.map((c) => params.filterBeta![c.key] ?? 0)
+    : beta;
+  let tastes = beta;
+  const utility = (x: Float64Array) => x.reduce((s, v, k) => s + v * tastes[k], 0);
   const prng = createPrng(params.seed ?? 5);
   const [study] = await db
     .insert(studies)
@@ -166,6 +188,7 @@ export async function seedRunStudy(
   }[];
   for (let n = 0; n < total; n++) {
     const block = (n % 2) + 1;
+    tastes = (n % 3 === 0 ? n % 4 !== 0 : n % 5 === 1) ? filterBeta : beta;
     const excluded = n === total - 2;
     const unfinished = n === total - 1;
     const [r] = await db

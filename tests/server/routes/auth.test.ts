@@ -276,6 +276,70 @@ describe('PATCH /api/account', () => {
   });
 });
 
+describe('common passwords (OWASP ASVS 4.0.3 V2.1.7)', () => {
+  // 'password123', 'qwertyuiop' and '1234567890' are on the @zxcvbn-ts common-password list and
+  // pass the length rule, so only this check refuses them; case does not matter.
+  const expectCommon = (
+    res: { body: { error: { code: string; fields: { path: string }[] } } },
+    path: string,
+  ) => {
+    expect(res.body.error.code).toBe('common_password');
+    expect(res.body.error.fields).toEqual([{ path, message: 'Choose a less common password' }]);
+  };
+
+  it('refuses one at sign-up, whether or not the address has an account, and creates nothing', async () => {
+    const email = uniqueEmail();
+    const res = await t
+      .request()
+      .post('/api/auth/sign-up')
+      .send({ name: 'Common', email, password: 'PassWord123', teamName: 'x' })
+      .expect(400);
+    expectCommon(res, 'password');
+    const { user } = await signUpOwner(t);
+    const taken = await t
+      .request()
+      .post('/api/auth/sign-up')
+      .send({ name: 'Common', email: user.email, password: 'PassWord123', teamName: 'x' })
+      .expect(400);
+    expect(taken.body).toEqual(res.body);
+    await settleAfterResponse();
+    expect(await getUserByEmail(t.deps.db, { email })).toBeNull();
+  });
+
+  it('refuses one from a reset link and leaves the link usable', async () => {
+    const { user } = await signUpOwner(t);
+    await t.request().post('/api/auth/forgot-password').send({ email: user.email }).expect(202);
+    const token = new URL(firstLink((await waitForMailTo(user.email)).text)).searchParams.get(
+      'token',
+    )!;
+    const res = await t
+      .request()
+      .post('/api/auth/reset-password')
+      .send({ token, password: 'qwertyuiop' })
+      .expect(400);
+    expectCommon(res, 'password');
+    await t
+      .request()
+      .post('/api/auth/reset-password')
+      .send({ token, password: 'a brand new passphrase' })
+      .expect(200);
+  });
+
+  it('refuses one as a new password on the account page and keeps the old one', async () => {
+    const { user, agent } = await signUpOwner(t);
+    const res = await agent
+      .patch('/api/account')
+      .send({ currentPassword: TEST_PASSWORD, newPassword: '1234567890' })
+      .expect(400);
+    expectCommon(res, 'newPassword');
+    await t
+      .request()
+      .post('/api/auth/sign-in')
+      .send({ email: user.email, password: TEST_PASSWORD })
+      .expect(200);
+  });
+});
+
 describe('GET /api/health', () => {
   it('reports the database as reachable', async () => {
     const res = await t.request().get('/api/health').expect(200);

@@ -1,15 +1,20 @@
 /**
  * HB and latent class runs the data cannot carry are refused before anything is queued, with a
  * 400 naming the form field: too few choice tasks per respondent for HB, more classes than the
- * respondents can identify, or a membership model the app cannot yet build. Feasible runs of the
- * same study are still queued.
+ * respondents can identify. Feasible runs of the same study are still queued (membership
+ * questions: run-membership.test.ts).
  */
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { and, eq, gt } from 'drizzle-orm';
 import { createTestApp, type TestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { answers } from '../../../db/schema/fieldwork';
-import { ignoreTeardownErrors, seedRunStudy, type SeededStudy } from '../jobs/run-fixtures';
+import {
+  FIXED_COEFFICIENTS,
+  ignoreTeardownErrors,
+  seedRunStudy,
+  type SeededStudy,
+} from '../jobs/run-fixtures';
 
 let t: TestApp;
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
@@ -17,11 +22,7 @@ let study: SeededStudy;
 let base: string;
 let sent = 0;
 
-const coefficients = [
-  { name: 'bill', column: 'attr:bill', distribution: 'fixed' },
-  { name: 'river_good', column: 'attr:river:good', distribution: 'fixed' },
-  { name: 'sq', column: 'asc:fixed', distribution: 'fixed' },
-];
+const coefficients = FIXED_COEFFICIENTS;
 
 beforeAll(async () => {
   t = await createTestApp();
@@ -68,15 +69,6 @@ describe('latent class: classes the data can identify', () => {
       .send({ spec: { model: 'latent_class', coefficients, classes: 1 } })
       .expect(201);
     expect(sent).toBe(1);
-  });
-
-  it('refuses a membership model, which study runs cannot build yet', async () => {
-    const res = await team.agents.analyst
-      .post(base)
-      .send({ spec: { model: 'latent_class', coefficients, classes: 1, membership: ['q:x'] } })
-      .expect(400);
-    expect(res.body.error.fields[0].path).toBe('spec.membership');
-    expect(sent).toBe(0);
   });
 });
 

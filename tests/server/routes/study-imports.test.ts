@@ -4,6 +4,7 @@ import { eq } from 'drizzle-orm';
 import { createTestApp, type TestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { studies } from '../../../db/schema/studies';
+import { listQuestionAnswers } from '../../../db/queries/study-answers';
 import { syntheticChoiceCsv } from '../../../scripts/lib/synthetic-choice-file';
 import type { ImportAttribute, ImportPreview } from '../../../shared/schemas/study-import';
 import type { Role } from '../../../shared/permissions';
@@ -120,6 +121,24 @@ describe('POST /imports/preview', () => {
     );
     expect(body.problemCount).toBe(body.problems.length);
     expect(body.problems.find((p) => p.code === 'not_numeric')?.message).toContain('“ten”');
+  });
+
+  it('counts lines as an editor shows them: empty lines and line breaks inside quotes included', async () => {
+    const text = [
+      'respondent,task,alt,chosen,bill,river',
+      'A,1,1,1,3,"poor',
+      'water"', // line 3 belongs to the quoted cell that starts on line 2
+      'A,1,2,0,6,good',
+      '',
+      'A,2,1,1,0,fair',
+      'A,2,2,1,10,good', // line 7: the task of line 6 has two chosen
+    ].join('\n');
+    const body = (
+      await upload(team.agents.editor, `${base()}/preview`, { choices: text }).expect(200)
+    ).body as ImportPreview;
+    expect(body.problems.map((p) => [p.line, p.column, p.code])).toEqual([
+      [6, 'chosen', 'chosen_count'],
+    ]);
   });
 
   it('when a key column is missing, names it on line 1 and reads no further', async () => {
@@ -243,6 +262,13 @@ describe('POST /imports', () => {
     ).body;
     expect(study).toMatchObject({ status: 'closed', source: 'imported', currentVersion: 1 });
     expect(study.counts).toMatchObject({ respondents: 2 });
+    // Background answers are stored as fielded ones (q:<key>), empty cells left unanswered.
+    const background = await listQuestionAnswers(t.deps.db, { studyId: res.body.studyId });
+    expect(background.map((a) => [a.screenKey, a.value]).sort()).toEqual([
+      ['q:household', { kind: 'number', number: 2 }],
+      ['q:tenure', { kind: 'single', optionId: 'o1' }],
+      ['q:tenure', { kind: 'single', optionId: 'o2' }],
+    ]);
     const live = await team.agents.editor
       .post(`/api/teams/${team.teamId}/studies/${res.body.studyId}/lifecycle/go-live`)
       .expect(409);

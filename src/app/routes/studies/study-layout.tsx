@@ -51,7 +51,11 @@ export function StudyLayout() {
           <>
             <div className="flex flex-wrap items-center gap-3">
               <h1 className="text-2xl font-semibold tracking-tight text-ink">{study.name}</h1>
-              <StudyStatusBadge status={study.status} archived={study.archivedAt !== null} />
+              <StudyStatusBadge
+                status={study.status}
+                source={study.source}
+                archived={study.archivedAt !== null}
+              />
               {can('study:write') && (
                 <Button size="sm" variant="ghost" onClick={() => setEditing(true)}>
                   Edit details
@@ -68,7 +72,13 @@ export function StudyLayout() {
         )}
       </div>
       <div className="mb-6 border-b border-line pb-3">
-        <StudyPipeline teamId={teamId} studyId={studyId} available={builtSections} done={done} />
+        <StudyPipeline
+          teamId={teamId}
+          studyId={studyId}
+          available={builtSections}
+          done={done}
+          imported={study.source === 'imported'}
+        />
       </div>
       <PanelErrorBoundary title="This section could not be shown">
         <Outlet />

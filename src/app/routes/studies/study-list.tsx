@@ -31,6 +31,14 @@ export function Component() {
             <Button variant="ghost" onClick={() => setArchived((a) => !a)}>
               {archived ? 'Show active studies' : 'Show archived'}
             </Button>
+            {canWrite && (
+              <Button
+                variant="secondary"
+                onClick={() => navigate(paths.importStudy.getHref(teamId))}
+              >
+                Import choice data
+              </Button>
+            )}
             {canWrite && !creating && <Button onClick={() => setCreating(true)}>New study</Button>}
           </>
         }

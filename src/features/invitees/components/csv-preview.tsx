@@ -1,5 +1,6 @@
 import type { InviteeCsvPreview } from '@shared/schemas/invitees';
 import { Alert } from '@/components/ui/feedback';
+import { ProblemTable } from '@/components/ui/problem-table';
 
 const fieldLabels: Record<string, string> = {
   email: 'e-mail',
@@ -35,32 +36,18 @@ export function CsvPreview({ preview }: { preview: InviteeCsvPreview }) {
       {preview.errors.length > 0 && (
         <div>
           <h4 className="mb-1 text-sm font-semibold text-danger">Problems</h4>
-          <div className="max-h-64 overflow-auto rounded-md border border-danger/30">
-            <table className="w-full text-sm">
-              <thead className="sticky top-0 bg-danger-soft text-xs text-ink-soft">
-                <tr>
-                  <th scope="col" className="px-2 py-1.5 text-right font-medium">
-                    Row
-                  </th>
-                  <th scope="col" className="px-2 py-1.5 text-left font-medium">
-                    Column
-                  </th>
-                  <th scope="col" className="px-2 py-1.5 text-left font-medium">
-                    Problem
-                  </th>
-                </tr>
-              </thead>
-              <tbody>
-                {preview.errors.map((e, i) => (
-                  <tr key={`${e.row}-${e.column}-${i}`} className="border-t border-line/60">
-                    <td className="num px-2 py-1">{e.row}</td>
-                    <td className="px-2 py-1">{e.column ?? '—'}</td>
-                    <td className="px-2 py-1">{e.message}</td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </div>
+          <ProblemTable
+            label="Problems in the list"
+            columns={[
+              { header: 'Row', numeric: true },
+              { header: 'Column' },
+              { header: 'Problem' },
+            ]}
+            rows={preview.errors.map((e, i) => ({
+              key: `${e.row}-${e.column}-${i}`,
+              cells: [e.row, e.column ?? '—', e.message],
+            }))}
+          />
           {preview.errorCount > preview.errors.length && (
             <p className="mt-1 text-xs text-ink-muted">Only the first problems are listed.</p>
           )}

@@ -241,7 +241,13 @@ export function RunForm({
       )}
 
       {model === 'hb' && <HbFields register={register} errors={errors} />}
-      {model === 'latent_class' && <LatentClassFields register={register} errors={errors} />}
+      {model === 'latent_class' && (
+        <LatentClassFields
+          register={register}
+          errors={errors}
+          questions={options.membershipQuestions}
+        />
+      )}
 
       {classical && <EstimationSettingsFields register={register} errors={errors} mixed={mixed} />}
 

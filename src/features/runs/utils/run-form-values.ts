@@ -54,6 +54,8 @@ export interface RunFormValues {
   /** Latent class: fewest and most classes (equal = one class count). */
   classesMin: number;
   classesMax: number;
+  /** Latent class: keys of the background questions class membership depends on. */
+  membership: string[];
 }
 
 export function getColumnDefault(column: ModelColumn, model: RunFormModel): ColumnChoice {
@@ -88,6 +90,7 @@ export function getDefaultRunFormValues(options: RunOptions): RunFormValues {
     priorMuVariance: 100,
     classesMin: 2,
     classesMax: 4,
+    membership: [],
   };
 }
 
@@ -145,6 +148,7 @@ export function toCreateRunInput(values: RunFormValues, columns: ModelColumn[]):
               values.classesMin === values.classesMax
                 ? values.classesMin
                 : ([values.classesMin, values.classesMax] as [number, number]),
+            ...(values.membership.length > 0 ? { membership: values.membership } : {}),
           }
         : {}),
     },
@@ -176,6 +180,7 @@ const fieldOfSpec: Record<string, keyof RunFormValues> = {
   'spec.classes': 'classesMax',
   'spec.classes.0': 'classesMin',
   'spec.classes.1': 'classesMax',
+  'spec.membership': 'membership',
   name: 'name',
   'respondents.filterId': 'filterId',
 };
@@ -191,6 +196,7 @@ export function toFormField(path: string, values: RunFormValues): string {
     return hit ? `columns.${hit.i}.distribution` : 'root';
   }
   if (path === 'spec.coefficients' || path === 'spec.cost') return 'root';
+  if (/^spec\.membership\.\d+$/.test(path)) return 'membership';
   return fieldOfSpec[path] ?? 'root';
 }
 

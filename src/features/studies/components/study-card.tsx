@@ -25,7 +25,11 @@ export function StudyCard({ teamId, study, canWrite, onDuplicate, onArchive, bus
           >
             {study.name}
           </Link>
-          <StudyStatusBadge status={study.status} archived={study.archivedAt !== null} />
+          <StudyStatusBadge
+            status={study.status}
+            source={study.source}
+            archived={study.archivedAt !== null}
+          />
         </div>
         {study.description && (
           <p className="mt-1 line-clamp-2 text-sm text-ink-soft">{study.description}</p>

@@ -22,6 +22,8 @@ type Props = {
   available: ReadonlySet<StudySection>;
   /** Sections whose work is done (a tick beside the name). */
   done?: ReadonlySet<StudySection>;
+  /** A study created from a choice file: "Imported" stands where Fieldwork would be. */
+  imported?: boolean;
 };
 
 /**
@@ -30,7 +32,7 @@ type Props = {
  * the bar scrolls sideways. The nav is positioned so that the screen-reader-only "done" words
  * (absolutely positioned) stay inside its scroll area instead of widening the page.
  */
-export function StudyPipeline({ teamId, studyId, available, done }: Props) {
+export function StudyPipeline({ teamId, studyId, available, done, imported }: Props) {
   return (
     <nav
       aria-label="Study sections"
@@ -38,7 +40,8 @@ export function StudyPipeline({ teamId, studyId, available, done }: Props) {
     >
       <ol className="flex min-w-max items-center gap-1 pb-1 lg:gap-0.5">
         {studySections.map((section, i) => {
-          const label = sectionLabels[section];
+          const importedStep = imported && section === 'fieldwork';
+          const label = importedStep ? 'Imported' : sectionLabels[section];
           const step = (
             <>
               <span
@@ -54,7 +57,7 @@ export function StudyPipeline({ teamId, studyId, available, done }: Props) {
           return (
             <li key={section} className="flex items-center gap-1">
               {i > 0 && <span aria-hidden className="h-px w-3 bg-line sm:w-5 lg:w-2" />}
-              {available.has(section) ? (
+              {available.has(section) && !importedStep ? (
                 <NavLink
                   to={paths.studySection.getHref(teamId, studyId, section)}
                   className={({ isActive }) =>
@@ -71,7 +74,11 @@ export function StudyPipeline({ teamId, studyId, available, done }: Props) {
               ) : (
                 <span
                   aria-disabled="true"
-                  title="Available once this section ships"
+                  title={
+                    importedStep
+                      ? 'The answers were imported from a file: no fieldwork, links or invitations'
+                      : 'Available once this section ships'
+                  }
                   className="inline-flex min-h-10 cursor-not-allowed items-center gap-2 rounded-full px-3 text-sm whitespace-nowrap text-ink-muted/70 lg:gap-1.5 lg:px-2.5"
                 >
                   {step}

@@ -7,14 +7,19 @@ const look: Record<StudyStatus, { label: string; className: string }> = {
   closed: { label: 'Closed', className: 'border-accent/50 bg-accent-soft text-ink' },
 };
 
+const imported = { label: 'Imported', className: 'border-primary/30 bg-primary-soft text-primary' };
+
+/** The study's state; a study made from an imported file shows "Imported" (it has no fieldwork). */
 export function StudyStatusBadge({
   status,
+  source = 'fielded',
   archived,
 }: {
   status: StudyStatus;
+  source?: 'fielded' | 'imported';
   archived?: boolean;
 }) {
-  const { label, className } = look[status];
+  const { label, className } = source === 'imported' ? imported : look[status];
   return (
     <span className="inline-flex items-center gap-1">
       <span

@@ -51,6 +51,15 @@ const options: RunOptions = {
   includedRespondents: 120,
   filters: [],
   hasRuns: true,
+  membershipQuestions: [
+    {
+      key: 'household_size',
+      text: 'How many people live in your household?',
+      type: 'number',
+      optionCount: 0,
+    },
+    { key: 'filter_tap', text: 'Do you filter your tap water?', type: 'single', optionCount: 2 },
+  ],
 };
 
 describe('RunForm with hierarchical Bayes', () => {
@@ -110,6 +119,59 @@ describe('RunForm with latent class', () => {
     const spec = (requests[0].body as { spec: Record<string, unknown> }).spec;
     expect(spec).toMatchObject({ model: 'latent_class', classes: [2, 4], starts: 10 });
     expect(spec).not.toHaveProperty('mcmc');
+    expect(spec).not.toHaveProperty('membership');
+  });
+
+  it('sends the background questions picked for class membership, and states the coding', async () => {
+    const { requests } = fakeFetch({ status: 201, body: { id: 'r1' } });
+    renderWithQuery(<RunForm teamId="t" studyId="s" options={options} />);
+    const user = userEvent.setup();
+    await user.selectOptions(screen.getByLabelText('Model'), 'latent_class');
+    const group = screen.getByRole('group', { name: 'Class membership depends on (optional)' });
+    expect(group).toHaveAccessibleDescription(/a “not answered” column is added/);
+    await user.click(screen.getByRole('checkbox', { name: /Do you filter your tap water/ }));
+    await user.click(screen.getByRole('checkbox', { name: /How many people live/ }));
+    await user.click(screen.getByRole('button', { name: 'Start run' }));
+    await waitFor(() => expect(requests).toHaveLength(1));
+    const spec = (requests[0].body as { spec: Record<string, unknown> }).spec;
+    expect(spec.membership).toEqual(['household_size', 'filter_tap']);
+  });
+
+  it('when the server refuses a membership question, shows its message at the questions', async () => {
+    fakeFetch({
+      status: 400,
+      body: {
+        error: {
+          code: 'invalid_input',
+          message: 'Everyone in this run gave the same answer to filter_tap',
+          fields: [
+            {
+              path: 'spec.membership.0',
+              message: 'The questionnaire has no background question filter_tap',
+            },
+          ],
+        },
+      },
+    });
+    renderWithQuery(<RunForm teamId="t" studyId="s" options={options} />);
+    const user = userEvent.setup();
+    await user.selectOptions(screen.getByLabelText('Model'), 'latent_class');
+    await user.click(screen.getByRole('checkbox', { name: /Do you filter your tap water/ }));
+    await user.click(screen.getByRole('button', { name: 'Start run' }));
+    expect(
+      await screen.findByText('The questionnaire has no background question filter_tap'),
+    ).toBeInTheDocument();
+  });
+
+  it('says so when the study has no usable background questions', async () => {
+    fakeFetch();
+    renderWithQuery(
+      <RunForm teamId="t" studyId="s" options={{ ...options, membershipQuestions: [] }} />,
+    );
+    const user = userEvent.setup();
+    await user.selectOptions(screen.getByLabelText('Model'), 'latent_class');
+    expect(screen.getByText(/no single-choice or number background questions/)).toBeInTheDocument();
+    expect(screen.queryAllByRole('checkbox', { name: /household|tap water/ })).toHaveLength(0);
   });
 
   it('when the range is reversed, shows the error on the class fields and sends nothing', async () => {

@@ -42,6 +42,7 @@ const options = (hasRuns: boolean): RunOptions => ({
   includedRespondents: 120,
   filters: [{ id: '5b0b7a8e-2f7c-4b8e-9d2a-0c1e2f3a4b5c', name: 'Tap filterers' }],
   hasRuns,
+  membershipQuestions: [],
 });
 
 const run = { id: 'r1', name: 'x', status: 'queued' };

@@ -35,6 +35,24 @@ describe('StudyPipeline', () => {
     expect(fieldwork).toHaveAttribute('aria-disabled', 'true');
     expect(fieldwork).toHaveAttribute('title', expect.stringMatching(/^Available once/));
   });
+
+  it('shows "Imported" where Fieldwork would be for a study made from a file, with no link', () => {
+    render(
+      <MemoryRouter>
+        <StudyPipeline
+          teamId="t1"
+          studyId="s1"
+          available={new Set(['fieldwork', 'models'])}
+          imported
+        />
+      </MemoryRouter>,
+    );
+    expect(screen.queryByText('Fieldwork')).toBeNull();
+    expect(screen.queryByRole('link', { name: /Imported/ })).toBeNull();
+    const step = screen.getByText('Imported').closest('[aria-disabled]');
+    expect(step).toHaveAttribute('title', expect.stringMatching(/imported from a file/));
+    expect(screen.getByRole('link', { name: /Models/ })).toBeInTheDocument();
+  });
 });
 
 describe('getStepsDone', () => {

@@ -7,12 +7,19 @@ import type { AppDeps } from '../deps';
 import { parseBody, parseParams } from '../middleware/validate';
 import { memberOf, requireTeam, requireUser } from '../middleware/auth';
 import { studyParamsSchema } from '../services/study-access';
+import { parseQuery } from '../middleware/validate';
 import {
+  exportTranslationsQuerySchema,
+  importTranslationsSchema,
   languageParamsSchema,
   saveTranslationsSchema,
   updateLanguagesSchema,
 } from '../../shared/schemas/study-texts';
 import * as studyTexts from '../services/study-texts';
+import {
+  exportTranslationFile,
+  importTranslationFile,
+} from '../services/translations/translation-files';
 
 export function createStudyTextsRouter(deps: AppDeps): Router {
   const router = Router({ mergeParams: true });
@@ -32,6 +39,23 @@ export function createStudyTextsRouter(deps: AppDeps): Router {
     const { teamId, studyId } = ids(req);
     const { languages } = parseBody(updateLanguagesSchema, req);
     res.json(await studyTexts.updateLanguages(deps, teamId, studyId, languages));
+  });
+  router.get('/:lang/file', read, async (req, res) => {
+    const { teamId, studyId } = ids(req);
+    const { lang } = parseParams(languageParamsSchema, req);
+    const { format } = parseQuery(exportTranslationsQuerySchema, req);
+    const file = await exportTranslationFile(deps, teamId, studyId, lang, format);
+    res.setHeader('Content-Type', file.contentType);
+    res.setHeader('Cache-Control', 'no-store');
+    res.setHeader('X-Content-Type-Options', 'nosniff');
+    res.setHeader('Content-Disposition', `attachment; filename="${file.filename}"`);
+    res.send(file.body);
+  });
+  router.post('/:lang/file', write, async (req, res) => {
+    const { teamId, studyId } = ids(req);
+    const { lang } = parseParams(languageParamsSchema, req);
+    const input = parseBody(importTranslationsSchema, req);
+    res.json(await importTranslationFile(deps, teamId, studyId, lang, input));
   });
   router.put('/:lang', write, async (req, res) => {
     const { teamId, studyId } = ids(req);

@@ -73,3 +73,24 @@ export type StudyTextsView = {
   /** language → how many texts it still lacks. */
   missing: Record<string, number>;
 };
+
+export const translationFormatSchema = z.enum(['xliff', 'csv']);
+export type TranslationFormat = z.infer<typeof translationFormatSchema>;
+
+export const exportTranslationsQuerySchema = z.object({
+  format: translationFormatSchema.default('xliff'),
+});
+
+/** A translator's file, as text (the browser reads it): at most 2 MB. */
+export const importTranslationsSchema = z.object({
+  format: translationFormatSchema,
+  content: z.string().min(1, 'The file is empty').max(2_000_000, 'The file is larger than 2 MB'),
+});
+export type ImportTranslationsInput = z.input<typeof importTranslationsSchema>;
+
+/** What an import did: texts taken, the study's texts still missing, the file's unknown keys. */
+export type TranslationImportReport = {
+  imported: number;
+  missing: Array<{ key: string; where: string; interface: boolean }>;
+  extra: string[];
+};

@@ -1,0 +1,167 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { eq } from 'drizzle-orm';
+import { createTestApp, type TestApp } from '../../support/test-app';
+import { createTeamWithAllRoles } from '../../support/factories';
+import { studies } from '../../../db/schema/studies';
+import { insertStudy } from './respond-fixtures';
+
+let t: TestApp;
+let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
+beforeAll(async () => {
+  t = await createTestApp();
+  team = await createTeamWithAllRoles(t);
+});
+afterAll(async () => {
+  await t.close();
+});
+
+const url = (studyId: string, path = '') =>
+  `/api/teams/${team.teamId}/studies/${studyId}/texts${path}`;
+const translations = async (id: string) =>
+  (await t.deps.db.select().from(studies).where(eq(studies.id, id)))[0].translations;
+
+async function studyInGerman() {
+  const s = await insertStudy(t, team.teamId);
+  await team.agents.editor
+    .put(url(s.id, '/languages'))
+    .send({ languages: ['en', 'de'] })
+    .expect(200);
+  return s;
+}
+
+/** Fills every empty <target> of an exported file, except the units listed. */
+function translateXliff(xml: string, skip: string[] = []): string {
+  let unit = '';
+  return xml
+    .split('\n')
+    .map((line) => {
+      const id = /<unit id="([^"]+)">/.exec(line);
+      if (id) unit = id[1];
+      if (line.includes('<target></target>') && !skip.includes(unit))
+        return line.replace('<target></target>', `<target>DE ${unit}</target>`);
+      return line;
+    })
+    .join('\n');
+}
+
+describe('GET /texts/:lang/file', () => {
+  it('exports XLIFF 2.0 with the study as <file id> and every text as a unit, for every role', async () => {
+    const s = await studyInGerman();
+    for (const role of ['owner', 'editor', 'analyst', 'viewer'] as const) {
+      const res = await team.agents[role].get(url(s.id, '/de/file')).expect(200);
+      expect(res.headers['content-type']).toMatch(/application\/xliff\+xml/);
+      expect(res.text).toContain('version="2.0" srcLang="en" trgLang="de"');
+      expect(res.text).toContain(`<file id="${s.id}">`);
+      expect(res.text).toContain('<unit id="study.title">');
+    }
+    await team.outsider.get(url(s.id, '/de/file')).expect(404);
+  });
+
+  it('exports CSV with key, where, source and target columns', async () => {
+    const s = await studyInGerman();
+    const res = await team.agents.viewer.get(url(s.id, '/de/file?format=csv')).expect(200);
+    expect(res.text.split(/\r?\n/)[0]).toBe('key,where,en,de');
+  });
+
+  it('for the source language or a language the study lacks, returns 400 on lang', async () => {
+    const s = await studyInGerman();
+    for (const lang of ['en', 'fr']) {
+      const res = await team.agents.viewer.get(url(s.id, `/${lang}/file`)).expect(400);
+      expect(res.body.error.fields[0].path).toBe('lang');
+    }
+  });
+});
+
+describe('POST /texts/:lang/file', () => {
+  it('imports a translated XLIFF file and reports the texts still missing', async () => {
+    const s = await studyInGerman();
+    const exported = (await team.agents.editor.get(url(s.id, '/de/file')).expect(200)).text;
+    const res = await team.agents.editor
+      .post(url(s.id, '/de/file'))
+      .send({ format: 'xliff', content: translateXliff(exported, ['ui.next']) })
+      .expect(200);
+    expect(res.body.missing).toEqual([
+      { key: 'ui.next', where: expect.stringContaining('next screen'), interface: true },
+    ]);
+    expect(res.body.extra).toEqual([]);
+    expect((await translations(s.id)).de['study.title']).toBe('DE study.title');
+  });
+
+  it('reports keys the study does not have, and takes the rest', async () => {
+    const s = await studyInGerman();
+    const exported = (await team.agents.editor.get(url(s.id, '/de/file')).expect(200)).text;
+    const withExtra = translateXliff(exported).replace(
+      '</file>',
+      '<unit id="page.gone.title"><segment><source>Old</source><target>Alt</target></segment></unit></file>',
+    );
+    const res = await team.agents.editor
+      .post(url(s.id, '/de/file'))
+      .send({ format: 'xliff', content: withExtra })
+      .expect(200);
+    expect(res.body.extra).toEqual(['page.gone.title']);
+    expect(res.body.missing).toEqual([]);
+  });
+
+  it('imports CSV, reading back cells the export protected against formulas', async () => {
+    const s = await studyInGerman();
+    const csv = 'key,where,en,de\nstudy.title,Title,Water services 2026,"\'=Wasser"\n';
+    const res = await team.agents.editor
+      .post(url(s.id, '/de/file'))
+      .send({ format: 'csv', content: csv })
+      .expect(200);
+    expect(res.body.imported).toBe(1);
+    expect((await translations(s.id)).de['study.title']).toBe('=Wasser');
+  });
+
+  it('refuses another study’s file, the wrong language and a DOCTYPE with a field error, changing nothing', async () => {
+    const s = await studyInGerman();
+    const other = await studyInGerman();
+    const foreign = translateXliff(
+      (await team.agents.editor.get(url(other.id, '/de/file')).expect(200)).text,
+    );
+    const wrongStudy = await team.agents.editor
+      .post(url(s.id, '/de/file'))
+      .send({ format: 'xliff', content: foreign })
+      .expect(400);
+    expect(wrongStudy.body.error.message).toBe('This file belongs to another study');
+    expect(wrongStudy.body.error.fields[0].path).toBe('file');
+
+    const own = translateXliff(
+      (await team.agents.editor.get(url(s.id, '/de/file')).expect(200)).text,
+    );
+    const french = own.replace('trgLang="de"', 'trgLang="fr"');
+    const wrongLanguage = await team.agents.editor
+      .post(url(s.id, '/de/file'))
+      .send({ format: 'xliff', content: french })
+      .expect(400);
+    expect(wrongLanguage.body.error.fields[0].path).toBe('language');
+
+    const xxe = own.replace(
+      '<?xml version="1.0" encoding="UTF-8"?>',
+      '<?xml version="1.0"?><!DOCTYPE x [<!ENTITY e SYSTEM "file:///etc/passwd">]>',
+    );
+    const doctype = await team.agents.editor
+      .post(url(s.id, '/de/file'))
+      .send({ format: 'xliff', content: xxe })
+      .expect(400);
+    expect(doctype.body.error.fields[0]).toEqual({
+      path: 'file',
+      message: expect.stringMatching(/DOCTYPE/),
+    });
+    const csvWrong = await team.agents.editor
+      .post(url(s.id, '/de/file'))
+      .send({ format: 'csv', content: 'key,where,en,fr\nstudy.title,x,y,z\n' })
+      .expect(400);
+    expect(csvWrong.body.error.fields[0].path).toBe('language');
+    expect(await translations(s.id)).toEqual({});
+  });
+
+  it('refuses analysts and viewers (403) and other teams (404)', async () => {
+    const s = await studyInGerman();
+    const body = { format: 'csv', content: 'key,where,en,de\nstudy.title,x,y,z\n' };
+    for (const role of ['analyst', 'viewer'] as const)
+      await team.agents[role].post(url(s.id, '/de/file')).send(body).expect(403);
+    await team.outsider.post(url(s.id, '/de/file')).send(body).expect(404);
+    expect(await translations(s.id)).toEqual({});
+  });
+});

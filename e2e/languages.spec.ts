@@ -68,7 +68,7 @@ test('an editor adds German, fixes the missing text go-live names, and a respond
   await test.step('the editor writes the missing text and goes live', async () => {
     await page.getByLabel('German (de): Survey app: Button: go to the next screen').fill('Weiter');
     await page.getByRole('button', { name: 'Save German (de) texts' }).click();
-    await expect(page.getByText('Saved.')).toBeVisible();
+    await expect(page.getByText('Saved.', { exact: true })).toBeVisible();
     await page.getByRole('button', { name: 'Go live' }).click();
     await page.getByRole('dialog').getByRole('button', { name: 'Go live' }).click();
     await expect(page.getByText(/Live since version 1/)).toBeVisible();

@@ -17,6 +17,7 @@ import { computePopulationWelfare } from '../engine/estimation/population-welfar
 import { propagateUncertainty, quantile } from '../engine/estimation/propagate-uncertainty';
 import { computeCompensatingVariation, meanOfFinite } from '../../shared/engine/shares/welfare';
 import type { ShareMethod, ShareWelfare } from '../../shared/schemas/shares';
+import type { PreparedShareModel, ScenarioShares } from '../../shared/engine/shares/share-model';
 import type { RunContext } from './tastes/run-context';
 import { covarianceOf, estimateNamesOf, shareSeedOf } from './shares/share-model';
 
@@ -176,4 +177,22 @@ export function computeShareWelfare(ctx: RunContext, s: WelfareScenario): Welfar
     },
     welfareNote: null,
   };
+}
+
+/** Welfare of a simulated scenario from the prepared share model it was simulated with. */
+export function computeScenarioWelfare(
+  ctx: RunContext,
+  prepared: Pick<PreparedShareModel, 'model' | 'betas' | 'weights'>,
+  shares: Pick<ScenarioShares, 'rows' | 'names' | 'baseline'>,
+): WelfareOutcome {
+  return computeShareWelfare(ctx, {
+    rows: shares.rows,
+    alternativeCount: shares.names.length,
+    baseline: shares.baseline,
+    method: prepared.model.method,
+    betas: prepared.betas,
+    respondents: prepared.model.respondents,
+    vectorsPerRespondent: prepared.model.vectors,
+    weights: prepared.weights,
+  });
 }

@@ -22,7 +22,7 @@ import type {
 } from '../../shared/schemas/shares';
 import { loadRunContext, type Member, type RunContext } from './tastes/run-context';
 import { resolveGrouping } from './tastes/get-segments';
-import { computeShareWelfare } from './share-welfare';
+import { computeScenarioWelfare } from './share-welfare';
 import { buildShareModel } from './shares/share-model';
 import { rethrowScenarioError } from './shares/scenario-error';
 
@@ -114,17 +114,7 @@ export async function simulateStudyShares(
   } catch (e) {
     rethrowScenarioError(e);
   }
-  const J = result.names.length;
-  const welfare = computeShareWelfare(ctx, {
-    rows: result.rows,
-    alternativeCount: J,
-    baseline: result.baseline,
-    method: model.method,
-    betas: prepared.betas,
-    respondents: model.respondents,
-    vectorsPerRespondent: model.vectors,
-    weights: prepared.weights,
-  });
+  const welfare = computeScenarioWelfare(ctx, prepared, result);
   return {
     ...welfare,
     runId: ctx.run.id,

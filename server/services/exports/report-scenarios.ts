@@ -15,7 +15,7 @@ import { ScenarioError } from '../../../shared/engine/shares/code-scenario';
 import type { ScenarioAlternative, ShareMethod } from '../../../shared/schemas/shares';
 import type { Member } from '../tastes/run-context';
 import { loadPreparedShareModel } from '../shares';
-import { computeShareWelfare, type WelfareOutcome } from '../share-welfare';
+import { computeScenarioWelfare, type WelfareOutcome } from '../share-welfare';
 import { describeLevels } from '../shares/share-export';
 
 export type ReportScenario = {
@@ -53,16 +53,7 @@ export async function loadReportScenarios(
         alternatives: row.alternatives as ScenarioAlternative[],
         includeFixed: row.includeFixed,
       });
-      const welfare = computeShareWelfare(ctx, {
-        rows: shares.rows,
-        alternativeCount: shares.names.length,
-        baseline: shares.baseline,
-        method: model.method,
-        betas: prepared.betas,
-        respondents: model.respondents,
-        vectorsPerRespondent: model.vectors,
-        weights: prepared.weights,
-      });
+      const welfare = computeScenarioWelfare(ctx, prepared, shares);
       return { name: row.name, alternatives, shares, welfare, error: null };
     } catch (e) {
       // The saved scenario names a level the study no longer has: say so, print the rest.

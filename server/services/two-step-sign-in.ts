@@ -81,7 +81,7 @@ async function issueRecoveryCodes(db: DbOrTx, userId: string): Promise<string[]>
 
 const wrongCode = (field = 'code') =>
   new ValidationError(
-    'That code is not right. Use the current code from your app, or an unused recovery code.',
+    'That code is not right, or was used already. Wait for the next code from your app, or use an unused recovery code.',
     [{ path: field, message: 'Wrong or already used code' }],
     'wrong_code',
   );
@@ -192,9 +192,12 @@ export async function finishTwoStepSignIn(
   });
   if (done) return done;
   await recordAudit(deps.db, { action: 'auth.second_step_failed', actor });
-  throw new AppError(401, 'wrong_code', 'That code is not right. Try the current code again.', [
-    { path: 'code', message: 'Wrong or already used code' },
-  ]);
+  throw new AppError(
+    401,
+    'wrong_code',
+    'That code is not right, or was used already. Wait for the next code from your app.',
+    [{ path: 'code', message: 'Wrong or already used code' }],
+  );
 }
 
 export async function disableTwoStep(deps: AppDeps, actor: Actor, input: DisableTwoStepInput) {

@@ -17,7 +17,17 @@ const seedSchema = z
   .min(0)
   .max(2 ** 31 - 1);
 
-/** Sampler settings: iterations per chain (burn-in included), burn-in, thinning, chains, seed. */
+/**
+ * Random-walk Metropolis–Hastings steps per respondent in each Gibbs iteration when the spec
+ * gives none. Several steps let each β_n move further between draws of μ and Σ, which is what
+ * limits the mixing of μ (docs/methods.md, "Hierarchical Bayes: mixing of μ").
+ */
+export const HB_DEFAULT_STEPS = 5;
+
+/**
+ * Sampler settings: iterations per chain (burn-in included), burn-in, thinning, MH steps per
+ * respondent per iteration, chains, seed.
+ */
 export const mcmcSchema = z
   .object({
     iterations: z
@@ -29,6 +39,12 @@ export const mcmcSchema = z
     /** Default: half the iterations. */
     burnin: z.number().int().min(0).optional(),
     thin: z.number().int().min(1).max(10_000).default(10),
+    steps: z
+      .number()
+      .int()
+      .min(1, 'Use at least 1 step')
+      .max(50, 'Use at most 50 steps')
+      .default(HB_DEFAULT_STEPS),
     chains: z.number().int().min(1).max(16).default(2),
     seed: seedSchema.default(1),
   })
@@ -200,6 +216,8 @@ export const hbSamplerSchema = z.object({
   iterations: z.number().int(),
   burnin: z.number().int(),
   thin: z.number().int(),
+  /** Absent in runs made before the option existed (they took one step). */
+  steps: z.number().int().optional(),
   chains: z.number().int(),
   seed: z.number().int(),
   keptPerChain: z.number().int(),

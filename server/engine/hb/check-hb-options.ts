@@ -6,6 +6,7 @@
  * Choice Methods with Simulation, §12.5). K counts the random coefficients. The priors act on the
  * coefficients as coded: rescaling an attribute rescales its coefficient against the prior.
  */
+import { HB_DEFAULT_STEPS } from '../../../shared/schemas/estimation-families';
 import type { ChoiceData } from '../estimation/choice-data';
 import { EstimationOptionsError } from '../estimation/estimation-errors';
 import { checkHoldout, resolveCostIndex } from '../estimation/shared-option-checks';
@@ -52,6 +53,8 @@ export interface HbOptions {
   burnin?: number;
   /** Keep every thin-th draw after burn-in (default 10). */
   thin?: number;
+  /** Random-walk MH steps per respondent per iteration (default HB_DEFAULT_STEPS). */
+  steps?: number;
   /** Independent chains, each with its own seed stream (default 2). */
   chains?: number;
   /** Seed of chain 1; chain c uses the stream c of the same seed (default 1). */
@@ -82,6 +85,7 @@ export interface CheckedHbOptions {
   iterations: number;
   burnin: number;
   thin: number;
+  steps: number;
   chains: number;
   seed: number;
   priors: {
@@ -210,6 +214,8 @@ export function checkHbOptions(data: ChoiceData, options: HbOptions): CheckedHbO
   assertInteger(burnin, 'mcmc.burnin', 0, iterations - 1);
   const thin = options.thin ?? 10;
   assertInteger(thin, 'mcmc.thin', 1, 10_000);
+  const steps = options.steps ?? HB_DEFAULT_STEPS;
+  assertInteger(steps, 'mcmc.steps', 1, 50);
   const chains = options.chains ?? 2;
   assertInteger(chains, 'mcmc.chains', 1, 16);
   const seed = options.seed ?? 1;
@@ -237,6 +243,7 @@ export function checkHbOptions(data: ChoiceData, options: HbOptions): CheckedHbO
     iterations,
     burnin,
     thin,
+    steps,
     chains,
     seed,
     priors: checkPriors(options.priors, Kr),

@@ -6,6 +6,7 @@ import { EstimationOptionsError } from '../../../server/engine/estimation/estima
 import { checkHbOptions } from '../../../server/engine/hb/check-hb-options';
 import { checkLatentClassOptions } from '../../../server/engine/latent-class/check-latent-class-options';
 import { estimationSpecSchema } from '../../../shared/schemas/estimation-spec';
+import { HB_DEFAULT_STEPS } from '../../../shared/schemas/estimation-families';
 
 function panel(respondents: number, tasks: number): LongChoiceRow[] {
   const rows: LongChoiceRow[] = [];
@@ -57,6 +58,8 @@ describe('checkHbOptions', () => {
       /keeps 10 draws/,
     ],
     ['no chains', { ...hb, chains: 0 }, 'mcmc.chains', /between 1 and 16/],
+    ['no MH steps', { ...hb, steps: 0 }, 'mcmc.steps', /between 1 and 50/],
+    ['a fractional number of MH steps', { ...hb, steps: 2.5 }, 'mcmc.steps', /between 1 and 50/],
     ['ν at or below K − 1', { ...hb, priors: { nu: 1 } }, 'priors.nu', /exceed 1/],
     [
       'a negative prior variance',
@@ -96,6 +99,7 @@ describe('checkHbOptions', () => {
       iterations: 20000,
       burnin: 10000,
       thin: 10,
+      steps: HB_DEFAULT_STEPS,
       chains: 2,
       seed: 1,
       retained: 1000,
@@ -173,6 +177,11 @@ describe('estimation spec of the new families', () => {
         mcmc: { iterations: 200, burnin: 100, thin: 10 },
       },
       'mcmc.thin',
+    ],
+    [
+      'hb with 51 MH steps per respondent',
+      { model: 'hb', coefficients: [{ name: 'x', distribution: 'normal' }], mcmc: { steps: 51 } },
+      'mcmc.steps',
     ],
     [
       'latent_class with a random coefficient',

@@ -1,6 +1,6 @@
 /**
- * The run form's hierarchical Bayes settings: sampler (iterations, burn-in, thinning, chains,
- * seed), correlation of the random tastes, and the priors, with a note on how the attributes'
+ * The run form's hierarchical Bayes settings: sampler (iterations, burn-in, thinning, MH steps
+ * per respondent, chains, seed), correlation of the random tastes, and the priors, with a note on how the attributes'
  * coding and scale interact with them.
  */
 import type { FieldErrors, UseFormRegister } from 'react-hook-form';
@@ -38,6 +38,13 @@ export function HbFields({
           error={errors.mcmcThin?.message}
           {...number}
           {...register('mcmcThin', { valueAsNumber: true })}
+        />
+        <TextField
+          label="MH steps per respondent"
+          hint="Per iteration; more steps mix the population means better, at a proportional cost"
+          error={errors.mcmcSteps?.message}
+          {...number}
+          {...register('mcmcSteps', { valueAsNumber: true })}
         />
         <TextField
           label="Chains"

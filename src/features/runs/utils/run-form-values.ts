@@ -12,7 +12,7 @@ import {
   type RunOptions,
 } from '@shared/schemas/run';
 import type { CoefficientDistributionInput } from '@shared/schemas/estimation-spec';
-import { LATENT_CLASS_DEFAULT_STARTS } from '@shared/schemas/estimation-families';
+import { HB_DEFAULT_STEPS, LATENT_CLASS_DEFAULT_STARTS } from '@shared/schemas/estimation-families';
 
 export type ColumnChoice = 'omit' | CoefficientDistributionInput;
 export type RunFormModel = 'mnl' | 'mixed' | 'hb' | 'latent_class';
@@ -48,6 +48,8 @@ export interface RunFormValues {
   mcmcIterations: number;
   mcmcBurnin: string;
   mcmcThin: number;
+  /** Random-walk MH steps per respondent per iteration. */
+  mcmcSteps: number;
   mcmcChains: number;
   priorPreset: 'rossi' | 'train';
   priorMuVariance: number;
@@ -85,6 +87,7 @@ export function getDefaultRunFormValues(options: RunOptions): RunFormValues {
     mcmcIterations: 20_000,
     mcmcBurnin: '',
     mcmcThin: 10,
+    mcmcSteps: HB_DEFAULT_STEPS,
     mcmcChains: 2,
     priorPreset: 'rossi',
     priorMuVariance: 100,
@@ -136,6 +139,7 @@ export function toCreateRunInput(values: RunFormValues, columns: ModelColumn[]):
               iterations: values.mcmcIterations,
               ...(values.mcmcBurnin.trim() !== '' ? { burnin: Number(values.mcmcBurnin) } : {}),
               thin: values.mcmcThin,
+              steps: values.mcmcSteps,
               chains: values.mcmcChains,
               seed: values.seed,
             },
@@ -172,6 +176,7 @@ const fieldOfSpec: Record<string, keyof RunFormValues> = {
   'spec.mcmc.iterations': 'mcmcIterations',
   'spec.mcmc.burnin': 'mcmcBurnin',
   'spec.mcmc.thin': 'mcmcThin',
+  'spec.mcmc.steps': 'mcmcSteps',
   'spec.mcmc.chains': 'mcmcChains',
   'spec.mcmc.seed': 'seed',
   'spec.priors.preset': 'priorPreset',

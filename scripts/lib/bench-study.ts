@@ -89,7 +89,14 @@ export async function createBenchStudy(
   const publicId = randomBytes(9).toString('base64url');
   const [study] = await db
     .insert(studies)
-    .values({ teamId: team.id, publicId, name: 'Bench study', definition, questionnaire })
+    .values({
+      teamId: team.id,
+      publicId,
+      name: 'Bench study',
+      publicTitle: 'Bench study',
+      definition,
+      questionnaire,
+    })
     .returning({ id: studies.id });
   const [d] = await db
     .insert(designs)

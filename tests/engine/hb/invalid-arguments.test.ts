@@ -6,7 +6,6 @@ import { EstimationOptionsError } from '../../../server/engine/estimation/estima
 import { checkHbOptions } from '../../../server/engine/hb/check-hb-options';
 import { checkLatentClassOptions } from '../../../server/engine/latent-class/check-latent-class-options';
 import { estimationSpecSchema } from '../../../shared/schemas/estimation-spec';
-import { HB_DEFAULT_STEPS } from '../../../shared/schemas/estimation-families';
 
 function panel(respondents: number, tasks: number): LongChoiceRow[] {
   const rows: LongChoiceRow[] = [];
@@ -96,10 +95,11 @@ describe('checkHbOptions', () => {
   it("fills the documented defaults, with the Rossi et al. priors and Train's as a named preset", () => {
     const opts = checkHbOptions(data, hb);
     expect(opts).toMatchObject({
-      iterations: 20000,
-      burnin: 10000,
-      thin: 10,
-      steps: HB_DEFAULT_STEPS,
+      // docs/methods.md, "Hierarchical Bayes logit", Defaults.
+      iterations: 40000,
+      burnin: 20000,
+      thin: 20,
+      steps: 5,
       chains: 2,
       seed: 1,
       retained: 1000,

@@ -12,7 +12,7 @@ import {
   type RunOptions,
 } from '@shared/schemas/run';
 import type { CoefficientDistributionInput } from '@shared/schemas/estimation-spec';
-import { HB_DEFAULT_STEPS, LATENT_CLASS_DEFAULT_STARTS } from '@shared/schemas/estimation-families';
+import { HB_DEFAULTS, LATENT_CLASS_DEFAULT_STARTS } from '@shared/schemas/estimation-families';
 
 export type ColumnChoice = 'omit' | CoefficientDistributionInput;
 export type RunFormModel = 'mnl' | 'mixed' | 'hb' | 'latent_class';
@@ -65,6 +65,9 @@ export function getColumnDefault(column: ModelColumn, model: RunFormModel): Colu
   return column.isCost ? 'neg_lognormal' : 'normal';
 }
 
+/** The HB sampler defaults in words, for the form's help. */
+export const HB_DEFAULTS_TEXT = `${HB_DEFAULTS.iterations.toLocaleString('en-GB')} iterations per chain with the first half as burn-in, every ${HB_DEFAULTS.thin}th draw kept, ${HB_DEFAULTS.steps} MH steps per respondent per iteration, ${HB_DEFAULTS.chains} chains`;
+
 export function getDefaultRunFormValues(options: RunOptions): RunFormValues {
   const model: RunFormModel = options.hasRuns ? 'mixed' : 'mnl';
   return {
@@ -84,11 +87,11 @@ export function getDefaultRunFormValues(options: RunOptions): RunFormValues {
     gradientTolerance: 6.055454452393343e-6,
     maxIterations: '',
     simulationCheck: false,
-    mcmcIterations: 20_000,
+    mcmcIterations: HB_DEFAULTS.iterations,
     mcmcBurnin: '',
-    mcmcThin: 10,
-    mcmcSteps: HB_DEFAULT_STEPS,
-    mcmcChains: 2,
+    mcmcThin: HB_DEFAULTS.thin,
+    mcmcSteps: HB_DEFAULTS.steps,
+    mcmcChains: HB_DEFAULTS.chains,
     priorPreset: 'rossi',
     priorMuVariance: 100,
     classesMin: 2,

@@ -33,6 +33,8 @@ import {
   reconcile,
 } from './lib/bench-study';
 import { seedScratchDemo, startDemoMixedRun, waitForRun } from './lib/bench-demo-run';
+import { measureCpu } from './lib/process-cpu';
+import type pg from 'pg';
 
 const args = process.argv.slice(2);
 const asJson = args.includes('--json');
@@ -57,8 +59,14 @@ const log = (s: string) => {
 
 type Phase = Awaited<ReturnType<typeof measure>>;
 
-async function measure(base: string, publicId: string, first: number) {
+async function measure(
+  base: string,
+  publicId: string,
+  first: number,
+  cpu: { serverPid: number; pool: pg.Pool; database: string },
+) {
   const load = sampleLoadAverage(os.loadavg);
+  const cpuTime = await measureCpu(cpu.serverPid, cpu.pool, cpu.database);
   const r: LoadResult = await runLoadClient({
     bases: [base],
     publicId,
@@ -71,7 +79,20 @@ async function measure(base: string, publicId: string, first: number) {
     giveUpMs: 60_000,
   });
   const seconds = (r.endedAt - r.startedAt) / 1000;
-  return { r, seconds, loadAverage1m: load.stop() };
+  return { r, seconds, loadAverage1m: load.stop(), cpuMs: await cpuTime.stop() };
+}
+
+/** CPU milliseconds per request (session starts and answers, re-sent ones included). */
+function cpuPerRequest(p: Phase) {
+  const requests = p.r.answerMs.length + p.r.sessionMs.length;
+  const per = (ms: number | null) => (ms === null ? null : Number((ms / requests).toFixed(2)));
+  return {
+    requests,
+    serverMs: p.cpuMs.serverMs,
+    databaseMs: p.cpuMs.databaseMs,
+    serverMsPerRequest: per(p.cpuMs.serverMs),
+    databaseMsPerRequest: per(p.cpuMs.databaseMs),
+  };
 }
 
 function phaseFigures(p: Phase) {
@@ -92,6 +113,7 @@ function phaseFigures(p: Phase) {
     networkErrors: p.r.networkErrors,
     unexpected: p.r.errorsOther.length,
     unsent: p.r.unsent,
+    cpu: cpuPerRequest(p),
     loadAverage1m: p.loadAverage1m,
   };
 }
@@ -121,6 +143,7 @@ async function main() {
       // No mail in this benchmark: nothing listens there.
       SMTP_PORT: '9',
     };
+    const cpuOf = { pool, database: scratch.name };
     let baseline: Phase | null = null;
     if (BASELINE_DIR) {
       log(`  baseline: ${BASELINE_DIR}, ${RESPONDENTS} respondents…`);
@@ -132,7 +155,10 @@ async function main() {
       });
       try {
         await waitForHealth(base);
-        baseline = await measure(base, publicId, 2 * RESPONDENTS);
+        baseline = await measure(base, publicId, 2 * RESPONDENTS, {
+          ...cpuOf,
+          serverPid: other.pid,
+        });
       } finally {
         await other.stop();
       }
@@ -146,13 +172,14 @@ async function main() {
     log(`  server pid ${server.pid} healthy after ${startupSeconds.toFixed(1)} s`);
 
     log(`  load 1: ${RESPONDENTS} respondents, machine otherwise idle…`);
-    const idle = await measure(base, publicId, 0);
+    const cpu = { ...cpuOf, serverPid: server.pid };
+    const idle = await measure(base, publicId, 0, cpu);
 
     log('  starting a panel mixed logit on the demo study…');
     const run = await startDemoMixedRun(base, credentials);
     const before = await waitForRun(run, (r) => r.progress?.stage === 'estimating');
     log(`  load 2: ${RESPONDENTS} respondents while it estimates…`);
-    const busy = await measure(base, publicId, RESPONDENTS);
+    const busy = await measure(base, publicId, RESPONDENTS, cpu);
     const after = await run.get();
     await run.cancel().catch(() => {});
 
@@ -204,7 +231,7 @@ async function main() {
         ['while estimating', result.whileEstimating],
       ] as const)
         log(
-          `  ${name.padEnd(17)} ${p.answersPerSecond} answers/s (all answering: ${p.fullLoad.answersPerSecond ?? '–'}, peak ${p.fullLoad.peakRespondentsAnswering} at once) · answer p50 ${p.answerLatencyMs.p50} p99 ${p.answerLatencyMs.p99} ms · session start p99 ${p.sessionStartLatencyMs.p99} ms · load ${p.loadAverage1m.mean}`,
+          `  ${name.padEnd(17)} ${p.answersPerSecond} answers/s (all answering: ${p.fullLoad.answersPerSecond ?? '–'}, peak ${p.fullLoad.peakRespondentsAnswering} at once) · answer p50 ${p.answerLatencyMs.p50} p99 ${p.answerLatencyMs.p99} ms · session start p99 ${p.sessionStartLatencyMs.p99} ms · CPU per request: server ${p.cpu.serverMsPerRequest} ms, PostgreSQL ${p.cpu.databaseMsPerRequest} ms · load ${p.loadAverage1m.mean}`,
         );
       log(
         `  reconciliation   sent ${counts.sent}, stored ${counts.stored}, lost ${counts.lost}, duplicated ${counts.duplicated}`,

@@ -1,9 +1,11 @@
 /**
  * A study in two languages, end to end: the editor adds German on Questionnaire → Languages,
- * the translator's texts arrive without one, going live is refused with the missing text
- * named, the editor fills it in and goes live; a respondent whose link says ?lang=de answers
- * in German on a phone; Responses shows and filters the language.
+ * exports the XLIFF file for the translator, and imports it back translated but lacking one
+ * text and carrying one the study does not have: the report names both; going live is refused
+ * with the missing text named, the editor fills it in and goes live; a respondent whose link
+ * says ?lang=de answers in German on a phone; Responses shows and filters the language.
  */
+import { readFile } from 'node:fs/promises';
 import { expect, request as playwrightRequest, test } from '@playwright/test';
 import { e2eBaseUrl } from '../playwright.config';
 import { signIn } from './support/auth';
@@ -46,23 +48,38 @@ test('an editor adds German, fixes the missing text go-live names, and a respond
     await expect(page.getByRole('heading', { name: 'Texts in German (de)' })).toBeVisible();
   });
 
-  await test.step('the translated texts arrive without one; going live is refused, naming it', async () => {
-    const view = await (await api.get(`${base}/texts`)).json();
-    const texts: Record<string, string> = Object.fromEntries(
-      view.texts
-        .filter((t: { key: string }) => t.key !== 'ui.next')
-        .map((t: { key: string; source: string }) => [t.key, `DE ${t.source}`]),
-    );
-    texts['ui.start'] = 'Los geht’s';
-    texts['ui.task_progress'] = 'Auswahl {n} von {total}';
-    texts['ui.unlabeled_alternative'] = 'Angebot {letter}';
-    expect((await api.put(`${base}/texts/de`, { data: { texts } })).ok()).toBe(true);
-    await page.reload();
+  let xliff = '';
+  await test.step('the editor exports the German XLIFF file', async () => {
+    const downloading = page.waitForEvent('download');
+    await page.getByRole('link', { name: 'Export XLIFF for German (de)' }).click();
+    const download = await downloading;
+    expect(download.suggestedFilename()).toMatch(/-texts-en-de\.xlf$/);
+    xliff = await readFile(await download.path(), 'utf8');
+    expect(xliff).toContain('srcLang="en" trgLang="de"');
+  });
+
+  await test.step('the translated file, lacking one text and with one unknown, is imported and reported', async () => {
+    const translated = translateForJourney(xliff);
+    await page.getByLabel('Import a file into German (de)').setInputFiles({
+      name: 'texts-de.xlf',
+      mimeType: 'application/xliff+xml',
+      buffer: Buffer.from(translated, 'utf8'),
+    });
+    const report = page.getByRole('region', { name: 'Import report' });
+    await expect(report.getByText(/^Imported \d+ texts into German \(de\)\.$/)).toBeVisible();
+    const missing = report.getByRole('list', { name: 'Texts still missing in German (de)' });
+    await expect(missing.getByText('ui.next', { exact: true })).toBeVisible();
+    await expect(missing.getByRole('listitem')).toHaveCount(1);
+    const extra = report.getByRole('list', { name: 'Texts of the file this study does not have' });
+    await expect(extra.getByText(/^page\.retired\.title · line \d+$/)).toBeVisible();
+    await expect(page.getByText('1 missing')).toBeVisible();
+  });
+
+  await test.step('going live is refused, naming the missing text', async () => {
     await expect(
       page.getByText(/German \(de\) has no text for Survey app: Button: go to the next screen/),
     ).toBeVisible();
     await expect(page.getByRole('button', { name: 'Go live' })).toBeDisabled();
-    await expect(page.getByText('1 missing')).toBeVisible();
   });
 
   await test.step('the editor writes the missing text and goes live', async () => {
@@ -110,3 +127,29 @@ test('an editor adds German, fixes the missing text go-live names, and a respond
     await expect(page.getByText('No respondent matches these filters.')).toBeVisible();
   });
 });
+
+/**
+ * What the translator sends back: every unit's target is the source with "DE " before it, a
+ * few in real German; the unit for the Next button is dropped, and a unit the study does not
+ * have (a page removed since the export) is added.
+ */
+function translateForJourney(xml: string): string {
+  const german: Record<string, string> = {
+    'ui.start': 'Los geht’s',
+    'ui.task_progress': 'Auswahl {n} von {total}',
+    'ui.unlabeled_alternative': 'Angebot {letter}',
+  };
+  const translated = xml.replace(
+    /<unit id="([^"]+)">([\s\S]*?)<\/unit>\n/g,
+    (unit, key: string, body: string) => {
+      if (key === 'ui.next') return '';
+      const source = /<source>([\s\S]*?)<\/source>/.exec(body)?.[1] ?? '';
+      return unit.replace('<target></target>', `<target>${german[key] ?? `DE ${source}`}</target>`);
+    },
+  );
+  return translated.replace(
+    '</file>',
+    '<unit id="page.retired.title"><notes><note>Page “Retired”: title</note></notes>' +
+      '<segment><source>Old</source><target>Alt</target></segment></unit>\n</file>',
+  );
+}

@@ -1,5 +1,6 @@
 /** People, teams and who may do what in which team. */
 import {
+  bigint,
   index,
   pgTable,
   primaryKey,
@@ -128,4 +129,35 @@ export const emailConfirmations = pgTable(
     uniqueIndex('email_confirmations_token_uq').on(t.tokenHash),
     index('email_confirmations_user_idx').on(t.userId),
   ],
+);
+
+/**
+ * Two-step sign-in with a time-based one-time password (RFC 6238). A row without `enabledAt` is an
+ * enrolment in progress: the secret is shown once and takes effect only after a code proves the
+ * authenticator app holds it. `lastStep` is the 30-second step of the last code accepted, so a
+ * code seen over a shoulder or replayed within its window is refused (RFC 6238 §5.2).
+ */
+export const userTotp = pgTable('user_totp', {
+  userId: uuid('user_id')
+    .primaryKey()
+    .references(() => users.id, { onDelete: 'cascade' }),
+  secret: text('secret').notNull(),
+  enabledAt: timestamp('enabled_at', { withTimezone: true }),
+  lastStep: bigint('last_step', { mode: 'number' }),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+});
+
+/** One-time recovery codes for a lost authenticator (hash only); each works once. */
+export const recoveryCodes = pgTable(
+  'recovery_codes',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    userId: uuid('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    codeHash: text('code_hash').notNull(),
+    usedAt: timestamp('used_at', { withTimezone: true }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex('recovery_codes_user_code_uq').on(t.userId, t.codeHash)],
 );

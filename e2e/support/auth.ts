@@ -38,7 +38,7 @@ export async function signIn(page: Page, p: Pick<Person, 'email' | 'password'>):
 }
 
 export async function signOut(page: Page): Promise<void> {
-  await page.getByRole('button', { name: 'Sign out' }).click();
+  await page.getByRole('button', { name: 'Sign out', exact: true }).click();
   await expect(page.getByRole('heading', { name: 'Sign in to Choicewright' })).toBeVisible();
 }
 

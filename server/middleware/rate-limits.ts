@@ -12,6 +12,7 @@ import type { AppDeps } from '../deps';
 import { PostgresRateLimitStore } from './rate-limit-store';
 import { LocalFirstRateLimitStore } from './local-first-rate-limit-store';
 import { RESPONDENT_TOKEN_HEADER } from '../../shared/schemas/respondent';
+import { TWO_STEP_COOKIE, verifyTwoStepToken } from '../lib/session';
 
 const FIFTEEN_MINUTES = 15 * 60 * 1000;
 
@@ -89,6 +90,23 @@ export function accountSignInLimit(deps: AppDeps): RequestHandler {
     key: (req) => (bodyEmail(req) ? `account:${bodyEmail(req)}` : null),
     failuresOnly: true,
     message: 'Too many failed sign-ins for this account. Wait a few minutes or reset the password.',
+  });
+}
+
+/**
+ * Wrong second-step codes per account (the user the pending sign-in names): six digits allow a
+ * million guesses, and a right password must not buy unlimited tries at them.
+ */
+export function secondStepLimit(deps: AppDeps): RequestHandler {
+  return createLimit(deps, {
+    name: 'second-step:account',
+    limit: deps.env.ACCOUNT_SIGN_IN_LIMIT,
+    key: (req) => {
+      const userId = verifyTwoStepToken(deps.env.JWT_SECRET, req.cookies?.[TWO_STEP_COOKIE]);
+      return userId ? `user:${userId}` : null;
+    },
+    failuresOnly: true,
+    message: 'Too many wrong codes for this account. Wait a few minutes, then sign in again.',
   });
 }
 

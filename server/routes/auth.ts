@@ -5,10 +5,19 @@ import {
   accountSignInLimit,
   authRateLimit,
   mailPerRecipientLimit,
+  secondStepLimit,
 } from '../middleware/rate-limits';
 import { requireUser } from '../middleware/auth';
 import { publicRoute } from '../middleware/access';
-import { SESSION_COOKIE, sessionCookieOptions } from '../lib/session';
+import { AppError } from '../lib/errors';
+import {
+  SESSION_COOKIE,
+  TWO_STEP_COOKIE,
+  sessionCookieOptions,
+  signTwoStepToken,
+  twoStepCookieOptions,
+  verifyTwoStepToken,
+} from '../lib/session';
 import {
   confirmEmailSchema,
   forgotPasswordSchema,
@@ -16,7 +25,9 @@ import {
   signInSchema,
   signUpSchema,
 } from '../../shared/schemas/auth';
+import { secondStepSchema } from '../../shared/schemas/two-step';
 import * as auth from '../services/auth';
+import { finishTwoStepSignIn } from '../services/two-step-sign-in';
 import { resumeSession, signOutSession, type OpenedSession } from '../services/sessions';
 
 export function setSessionCookie(deps: AppDeps, res: Response, session: OpenedSession): void {
@@ -61,7 +72,29 @@ export function createAuthRouter(deps: AppDeps): Router {
 
   router.post('/sign-in', open, limited, perAccount, async (req, res) => {
     const body = parseBody(signInSchema, req);
-    await answerSignedIn(deps, res, await auth.signIn(deps, body, clientOf(req)));
+    const done = await auth.signIn(deps, body, clientOf(req));
+    if ('twoStep' in done) {
+      const secure = deps.env.APP_URL.startsWith('https:');
+      const token = signTwoStepToken(deps.env.JWT_SECRET, done.user.id);
+      res.cookie(TWO_STEP_COOKIE, token, twoStepCookieOptions(secure));
+      res.json({ twoStepRequired: true });
+      return;
+    }
+    await answerSignedIn(deps, res, done);
+  });
+
+  router.post('/sign-in/second-step', open, limited, secondStepLimit(deps), async (req, res) => {
+    const userId = verifyTwoStepToken(deps.env.JWT_SECRET, req.cookies?.[TWO_STEP_COOKIE]);
+    if (!userId)
+      throw new AppError(
+        401,
+        'two_step_expired',
+        'This sign-in has expired. Enter your e-mail and password again.',
+      );
+    const body = parseBody(secondStepSchema, req);
+    const done = await finishTwoStepSignIn(deps, userId, body, clientOf(req));
+    res.clearCookie(TWO_STEP_COOKIE, { path: '/api/auth' });
+    await answerSignedIn(deps, res, done);
   });
 
   router.post('/sign-out', publicRoute('signing out needs no valid session'), async (req, res) => {

@@ -21,6 +21,7 @@ import { passwordResetMail } from '../mail/templates';
 import { accountExistsMail, confirmEmailMail } from '../mail/account-templates';
 import { endUserSessions, openSession } from './sessions';
 import { recordAudit } from './audit';
+import { hasTwoStep } from './two-step-sign-in';
 import type {
   AcceptedMessage,
   ConfirmEmailInput,
@@ -146,6 +147,8 @@ export async function signIn(deps: AppDeps, input: SignInInput, client: Client) 
   }
   if (rehash)
     await updateUser(deps.db, { id: user.id, passwordHash: await hashPassword(input.password) });
+  // The password was right; the session opens only after the second step.
+  if (await hasTwoStep(deps.db, user.id)) return { user, twoStep: true as const };
   const session = await openSession(deps, user.id, client.userAgent);
   await recordAudit(deps.db, {
     action: 'auth.sign_in',

@@ -41,7 +41,9 @@ export const textKeySchema = z
   .max(120)
   .regex(/^[a-z]+(\.[A-Za-z0-9_-]+)+$/, 'Not a text key of this study');
 
-const translationText = z.string().max(6000, 'At most 6,000 characters');
+/** The longest translated text a field (or a translator's file) may hold. */
+export const MAX_TRANSLATION_LENGTH = 6000;
+const translationText = z.string().max(MAX_TRANSLATION_LENGTH, 'At most 6,000 characters');
 
 /** Texts of one language by key; an empty text removes the translation. */
 export const saveTranslationsSchema = z.object({
@@ -92,5 +94,6 @@ export type ImportTranslationsInput = z.input<typeof importTranslationsSchema>;
 export type TranslationImportReport = {
   imported: number;
   missing: Array<{ key: string; where: string; interface: boolean }>;
-  extra: string[];
+  /** Keys the study does not have (a removed page, another study's file), as the file has them. */
+  extra: Array<{ key: string; where: string; line: number }>;
 };

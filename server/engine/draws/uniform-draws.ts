@@ -3,7 +3,7 @@
  * points in D dimensions, used for all of that respondent's tasks (Train 2009, Discrete Choice
  * Methods with Simulation, §6.6 and ch. 9). Quasi-random types give each respondent a
  * consecutive block of the sequence after discarding the first `HALTON_SKIP` points (Train
- * 2009 §9.3.3, from memory: REFERENCES §3.3 [M]); MLHS is the modified Latin hypercube of Hess, Train & Polak (2006,
+ * 2009 §9.3.3, from memory: docs/methods.md "Draws" [M]); MLHS is the modified Latin hypercube of Hess, Train & Polak (2006,
  * Transportation Research B 40:147-163); `random` is the seeded xoshiro128** generator.
  */
 import {

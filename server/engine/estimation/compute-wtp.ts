@@ -1,6 +1,6 @@
 /**
  * Population willingness to pay WTP_k = −β_k / β_cost with delta-method standard errors
- * (Var = ∇g' Σ ∇g; REFERENCES §3.7; Hole 2007, Health Econ 16:827-840) and Krinsky & Robb
+ * (Var = ∇g' Σ ∇g; docs/methods.md "Willingness to pay"; Hole 2007, Health Econ 16:827-840) and Krinsky & Robb
  * (1986, REStat 68:715-719) percentile intervals from seeded draws θ ~ N(θ̂, Σ).
  * For random coefficients the ratio of the population MEANS is used (for lognormals
  * ±exp(b + s²/2)): a ratio of means, not the mean of individual ratios, which may not exist

@@ -4,20 +4,21 @@
  * wrong study or language is refused with a field error, and the answer reports the study's
  * keys the file lacks (or leaves empty) and the file's keys the study does not have.
  */
-import { parse } from 'csv-parse/sync';
 import type { AppDeps } from '../../deps';
-import { ValidationError } from '../../lib/errors';
-import { unescapeCsvText, writeCsv } from '../../lib/safe-csv';
+import { ValidationError, type FieldIssue } from '../../lib/errors';
+import { writeCsv } from '../../lib/safe-csv';
 import { languageName } from '../../../shared/languages/language-tags';
 import { isInterfaceKey, listStudyTexts } from '../../../shared/languages/study-texts';
-import type {
-  TranslationFormat,
-  TranslationImportReport,
+import {
+  MAX_TRANSLATION_LENGTH,
+  type TranslationFormat,
+  type TranslationImportReport,
 } from '../../../shared/schemas/study-texts';
 import { loadStudy } from '../study-access';
 import { assertDraft } from '../studies';
 import { languagesOf, loadStudyDocuments, writeTranslations } from '../study-texts';
-import { readXliff, writeXliff, XliffError } from './xliff';
+import { readCsvFile, readXliffFile, type FileText } from './translation-file-readers';
+import { writeXliff } from './xliff';
 
 type Download = { filename: string; contentType: string; body: string };
 
@@ -79,55 +80,32 @@ export async function exportTranslationFile(
   };
 }
 
-type FileTexts = { targets: Map<string, string> };
+/** Refusals listed one by one; a file with more is refused with the first ones. */
+const LISTED = 50;
 
-function readCsvFile(content: string, source: string, lang: string): FileTexts {
-  let rows: string[][];
-  try {
-    rows = parse(content, { bom: true, relax_column_count: false, skip_empty_lines: true });
-  } catch (err) {
-    throw new ValidationError('The CSV file cannot be read', [
-      { path: 'file', message: (err as Error).message },
-    ]);
+/**
+ * Texts the file cannot give, by line: a key given twice (which one would be meant?), a text
+ * longer than a field takes, a unit without a key. Any of them refuses the whole file.
+ */
+function refusals(texts: FileText[]): FieldIssue[] {
+  const issues: FieldIssue[] = [];
+  const firstLine = new Map<string, number>();
+  for (const t of texts) {
+    const at = `Line ${t.line}`;
+    if (!t.key) issues.push({ path: 'file', message: `${at}: a text without a key` });
+    else if (firstLine.has(t.key))
+      issues.push({
+        path: `texts.${t.key}`,
+        message: `${at}: ${t.key} is given again (first on line ${firstLine.get(t.key)})`,
+      });
+    else firstLine.set(t.key, t.line);
+    if (t.target.trim().length > MAX_TRANSLATION_LENGTH)
+      issues.push({
+        path: `texts.${t.key}`,
+        message: `${at}: the text of ${t.key} has ${t.target.trim().length.toLocaleString('en')} characters; at most ${MAX_TRANSLATION_LENGTH.toLocaleString('en')}`,
+      });
   }
-  const [header, ...body] = rows;
-  if (!header || header[0] !== 'key' || header.length !== 4)
-    throw new ValidationError('The CSV file needs the columns key, where, source, target', [
-      { path: 'file', message: 'The first row must be: key, where, <source language>, <language>' },
-    ]);
-  if (header[2] !== source || header[3] !== lang)
-    throw new ValidationError(
-      `This file is for ${header[2]} → ${header[3]}, not ${source} → ${lang}`,
-      [
-        {
-          path: 'language',
-          message: `Export the ${languageName(lang)} file of this study and fill its last column`,
-        },
-      ],
-    );
-  return { targets: new Map(body.map((r) => [r[0], unescapeCsvText(r[3] ?? '')])) };
-}
-
-function readXliffFile(content: string, studyId: string, source: string, lang: string): FileTexts {
-  let doc;
-  try {
-    doc = readXliff(content);
-  } catch (err) {
-    if (!(err instanceof XliffError)) throw err;
-    throw new ValidationError('The XLIFF file cannot be read', [
-      { path: 'file', message: err.line ? `Line ${err.line}: ${err.message}` : err.message },
-    ]);
-  }
-  if (doc.fileId !== studyId)
-    throw new ValidationError('This file belongs to another study', [
-      { path: 'file', message: 'Its <file id> is not this study: export this study’s file' },
-    ]);
-  if (doc.srcLang !== source || doc.trgLang !== lang)
-    throw new ValidationError(
-      `This file is for ${doc.srcLang || '?'} → ${doc.trgLang || '?'}, not ${source} → ${lang}`,
-      [{ path: 'language', message: `Import it into ${languageName(doc.trgLang)} instead` }],
-    );
-  return { targets: new Map(doc.units.map((u) => [u.id, u.target])) };
+  return issues.slice(0, LISTED);
 }
 
 /** Imports a translator's file into one language: all of its known texts, or nothing. */
@@ -147,10 +125,20 @@ export async function importTranslationFile(
     input.format === 'csv'
       ? readCsvFile(input.content, source, lang)
       : readXliffFile(input.content, study.id, source, lang);
+  if (file.length === 0)
+    throw new ValidationError('The file holds no texts', [
+      { path: 'file', message: 'Export this study’s file, translate it and import that one' },
+    ]);
+  const refused = refusals(file);
+  if (refused.length)
+    throw new ValidationError(
+      `Nothing was imported: ${refused.length === LISTED ? 'at least ' : ''}${refused.length} ${refused.length === 1 ? 'text' : 'texts'} of the file cannot be taken`,
+      refused,
+    );
   const entries = listStudyTexts(await loadStudyDocuments(deps, study), langs);
   const known = new Set(entries.map((e) => e.key));
-  const extra = [...file.targets.keys()].filter((k) => !known.has(k));
-  if (extra.length === file.targets.size && file.targets.size > 0)
+  const extra = file.filter((t) => !known.has(t.key));
+  if (extra.length === file.length)
     throw new ValidationError('None of the file’s texts belongs to this study', [
       {
         path: 'file',
@@ -158,8 +146,7 @@ export async function importTranslationFile(
       },
     ]);
   const texts: Record<string, string> = {};
-  for (const [key, target] of file.targets)
-    if (known.has(key) && target.trim()) texts[key] = target;
+  for (const t of file) if (known.has(t.key) && t.target.trim()) texts[t.key] = t.target;
   if (Object.keys(texts).length > 0) await writeTranslations(deps, study, lang, texts);
   const stored = { ...(langs.translations[lang] ?? {}), ...texts };
   return {
@@ -167,6 +154,6 @@ export async function importTranslationFile(
     missing: entries
       .filter((e) => !stored[e.key]?.trim())
       .map((e) => ({ key: e.key, where: e.where, interface: isInterfaceKey(e.key) })),
-    extra,
+    extra: extra.map((t) => ({ key: t.key, where: t.where, line: t.line })),
   };
 }

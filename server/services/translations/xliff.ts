@@ -10,7 +10,14 @@ import { SaxesParser } from 'saxes';
 
 export const XLIFF_NS = 'urn:oasis:names:tc:xliff:document:2.0';
 
-export type XliffUnit = { id: string; note: string; source: string; target: string };
+export type XliffUnit = {
+  id: string;
+  note: string;
+  source: string;
+  target: string;
+  /** Line of the <unit> start tag (reading only), for refusals that name where to look. */
+  line?: number;
+};
 export type XliffDocument = {
   srcLang: string;
   trgLang: string;
@@ -81,7 +88,8 @@ export function readXliff(xml: string): XliffDocument {
     }
     if (name === 'file' && ++files === 1) doc.fileId = tag.attributes.id?.value ?? '';
     if (name === 'unit') {
-      unit = { id: tag.attributes.id?.value ?? '', note: '', source: '', target: '' };
+      const id = tag.attributes.id?.value ?? '';
+      unit = { id, note: '', source: '', target: '', line: parser.line };
       if (!unit.id) fail('A <unit> has no id.');
     }
     if (unit && (name === 'source' || name === 'target' || name === 'note')) text = name;

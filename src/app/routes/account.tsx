@@ -4,6 +4,7 @@ import { useRefreshMe } from '@/features/auth/hooks/use-refresh-me';
 import { ProfileForm } from '@/features/account/components/profile-form';
 import { PasswordForm } from '@/features/account/components/password-form';
 import { SessionsList } from '@/features/account/components/sessions-list';
+import { TwoStepCard } from '@/features/account/components/two-step-card';
 import { useNavigate } from 'react-router';
 import { paths } from '@/config/paths';
 import { MyTeams } from '@/features/team/components/my-teams';
@@ -24,6 +25,9 @@ export function Component() {
         </Card>
         <Card title="Password">
           <PasswordForm onChanged={refreshMe} />
+        </Card>
+        <Card title="Two-step sign-in">
+          <TwoStepCard />
         </Card>
         <Card title="Where you are signed in">
           <SessionsList

@@ -1,5 +1,5 @@
 /**
- * Bayesian D-error against the closed form of REFERENCES §2.3 Check E [C]: one ±1 attribute,
+ * Bayesian D-error against the closed form of docs/methods.md "Design check values" Check E [C]: one ±1 attribute,
  * one pair (+1 vs −1), β ~ N(0, σ²): I = 4p(1−p), p = logistic(2β), so
  * D_B = E[1/I] = E[(1 + cosh 2β)/2] = (1 + e^(2σ²))/2.
  *
@@ -54,7 +54,7 @@ describe('computeBayesianDError (Check E)', () => {
   const x = buildDesignMatrix(plan, makeGrid([[[0], [1]]]));
 
   it.each([
-    // REFERENCES §2.3 Check E [C]: σ = 1 -> 4.194528049465325; σ = 0.5 -> 1.324360635350064.
+    // docs/methods.md "Design check values" Check E [C]: σ = 1 -> 4.194528049465325; σ = 0.5 -> 1.324360635350064.
     // At σ = 1 the integrand grows like e^(2|β|), so the bound at R = 200 is not informative
     // (measured error there: −0.71, i.e. 17 % low); only larger R are checked.
     { sigma: 1, exact: 4.194528049465325, R: 2000 },

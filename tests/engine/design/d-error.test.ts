@@ -15,14 +15,14 @@ describe('computeDError', () => {
   const x = buildDesignMatrix(plan, makeCheckAGrid());
 
   it('gives 3^(−3/2) for the Check-A design at β = 0', () => {
-    // REFERENCES §2.1 Check A [C]: det I = 3^9, K = 6, D-error = 0.19245008972987526
+    // docs/methods.md "Design check values" Check A [C]: det I = 3^9, K = 6, D-error = 0.19245008972987526
     // (Huber & Zwerina 1996 report 0.192 for their 3^3/3/9 design [M]).
     const d = computeDError(6, 9, 3, x, new Float64Array(6));
     expect(d).toBeCloseTo(0.19245008972987526, 14);
   });
 
   it('gives the Check-A′ value with level utilities (−1, 0, +1) per attribute', () => {
-    // REFERENCES §2.1 Check A′ [C]: effects parameters (−1, 0) per attribute -> 0.3771383902767846.
+    // docs/methods.md "Design check values" Check A′ [C]: effects parameters (−1, 0) per attribute -> 0.3771383902767846.
     const beta = Float64Array.from([-1, 0, -1, 0, -1, 0]);
     expect(computeDError(6, 9, 3, x, beta)).toBeCloseTo(0.3771383902767846, 13);
   });

@@ -45,7 +45,7 @@ export function makeGrid(tasks: number[][][]): LevelGrid {
   return { S, J, A, levels: Int32Array.from(tasks.flat(2)) };
 }
 
-/** Check-A design (REFERENCES §2.1): L9 rows (a, b, a+b mod 3), alternatives shifted +1, +2. */
+/** Check-A design (docs/methods.md "Design check values"): L9 rows (a, b, a+b mod 3), alternatives shifted +1, +2. */
 export function makeCheckAGrid(): LevelGrid {
   const tasks: number[][][] = [];
   for (let a = 0; a < 3; a++)
@@ -56,7 +56,7 @@ export function makeCheckAGrid(): LevelGrid {
   return makeGrid(tasks);
 }
 
-/** Check-B design (REFERENCES §2.2): OMEP {000, 011, 101, 110} paired with its fold-over. */
+/** Check-B design (docs/methods.md "Design check values"): OMEP {000, 011, 101, 110} paired with its fold-over. */
 export function makeFoldoverGrid(): LevelGrid {
   const omep = [
     [0, 0, 0],

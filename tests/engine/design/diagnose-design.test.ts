@@ -44,7 +44,7 @@ describe('diagnoseDesign', () => {
       kind: 'fixed',
       columns: plan.columns.map((c, k) => ({ key: c.key, mean: means[k] })),
     });
-    // REFERENCES §2.1 Check A [C] 0.19245008972987526 and Check A′ [C] 0.3771383902767846.
+    // docs/methods.md "Design check values" Check A [C] 0.19245008972987526 and Check A′ [C] 0.3771383902767846.
     expect(d.dErrorZero).toBeCloseTo(0.19245008972987526, 14);
     expect(d.dErrorAtMeans).toBeCloseTo(0.3771383902767846, 13);
     expect(d.dError).toBe(d.dErrorAtMeans);

@@ -8,7 +8,7 @@ import { fillScrambledHalton } from '../../../server/engine/design/halton-draws'
 import { createSeededRandom } from '../../../server/engine/design/seeded-random';
 
 describe('getInverseNormal (Wichura 1988, AS241)', () => {
-  // REFERENCES §3.4 [C, mpmath]; one value per branch of the algorithm and a few common ones.
+  // docs/methods.md "Draws" [C, mpmath]; one value per branch of the algorithm and a few common ones.
   it.each([
     [0.25, -0.67448975019608174],
     [0.95, 1.6448536269514727],
@@ -31,7 +31,7 @@ describe('getInverseNormal (Wichura 1988, AS241)', () => {
 
 describe('fillScrambledHalton', () => {
   it('gives the van der Corput sequence in base 2 (no scrambling possible with one digit)', () => {
-    // REFERENCES §3.3 [R]: base 2: 1/2, 1/4, 3/4, 1/8, 5/8, 3/8, 7/8, 1/16, 9/16, 5/16.
+    // docs/methods.md "Draws" [R]: base 2: 1/2, 1/4, 3/4, 1/8, 5/8, 3/8, 7/8, 1/16, 9/16, 5/16.
     const out = new Float64Array(10);
     fillScrambledHalton(10, 1, out, { skip: 0 });
     expect(Array.from(out)).toEqual([

@@ -23,7 +23,7 @@ describe('S-estimate (Check F)', () => {
     columns: plan.columns.map((c) => ({ key: c.key, mean: 0.3 })),
   };
 
-  it('has the one-replication information of REFERENCES §2.4', () => {
+  it('has the one-replication information of docs/methods.md "Design criteria"', () => {
     const info = new Float64Array(9);
     const x = buildDesignMatrix(plan, grid);
     computeInformationMatrix(

@@ -1,6 +1,6 @@
 /**
  * Street–Burgess optimality at β = 0 (Street & Burgess 2007, *The Construction of Optimal
- * Stated Choice Experiments*; REFERENCES §2.2, formula [M], values [C]).
+ * Stated Choice Experiments*; docs/methods.md "Design check values", formula [M], values [C]).
  */
 import { describe, expect, it } from 'vitest';
 import { buildCodingPlan } from '../../../shared/engine/coding/coding-plan';
@@ -18,16 +18,16 @@ describe('getStreetBurgessOptimalDet', () => {
   });
 
   it('gives (8/72)^3 = 1/729 for three two-level attributes in triples (Check C)', () => {
-    // REFERENCES §2.2 Check C [C]: 0.0013717421124828531.
+    // docs/methods.md "Design check values" Check C [C]: 0.0013717421124828531.
     expect(getStreetBurgessOptimalDet([2, 2, 2], 3)).toBeCloseTo(0.0013717421124828531, 17);
   });
 
   it('gives 3^(−18) for 3^3 in triples (Check D)', () => {
-    // REFERENCES §2.2 Check D [C]: 2.581174791713197e−09.
+    // docs/methods.md "Design check values" Check D [C]: 2.581174791713197e−09.
     expect(getStreetBurgessOptimalDet([3, 3, 3], 3) / 2.581174791713197e-9).toBeCloseTo(1, 13);
   });
 
-  it('counts differing pairs S_q as in REFERENCES §2.2', () => {
+  it('counts differing pairs S_q as in docs/methods.md "Design check values"', () => {
     expect(getMaxDifferingPairs(2, 2)).toBe(1); // m²/4
     expect(getMaxDifferingPairs(2, 3)).toBe(2); // (m² − 1)/4
     expect(getMaxDifferingPairs(4, 3)).toBe(3); // l ≥ m: m(m − 1)/2
@@ -39,7 +39,7 @@ describe('computeStreetBurgessEfficiency', () => {
   it('finds C = I/8 and 100 % for the fold-over of the 2^3 OMEP (Check B)', () => {
     const plan = buildCodingPlan(makeSymmetricDefinition([2, 2, 2], 2));
     const result = computeStreetBurgessEfficiency(plan, makeFoldoverGrid())!;
-    // REFERENCES §2.2 Check B [C]: det C = 1/512 = 0.001953125, efficiency 1.0.
+    // docs/methods.md "Design check values" Check B [C]: det C = 1/512 = 0.001953125, efficiency 1.0.
     expect(result.detC).toBeCloseTo(0.001953125, 15);
     expect(result.efficiency).toBeCloseTo(1, 12);
   });

@@ -1,4 +1,4 @@
-/* eslint-disable no-loss-of-precision -- reference values are kept verbatim as published in REFERENCES §3.4. */
+/* eslint-disable no-loss-of-precision -- reference values are kept verbatim as published in docs/methods.md "Draws". */
 import { describe, expect, it } from 'vitest';
 import { inverseNormal } from '../../../server/engine/draws/inverse-normal';
 

@@ -31,7 +31,7 @@ describe('buildChoiceData', () => {
     expect([...built.holdout!.diffs]).toEqual([-3, 1]);
   });
 
-  it('handles tasks with different numbers of alternatives in the MNL: LL(0) = Σ ln(1/J_t) (REFERENCES §3.2)', async () => {
+  it('handles tasks with different numbers of alternatives in the MNL: LL(0) = Σ ln(1/J_t) (docs/methods.md "Estimation check values")', async () => {
     const fit = await fitMnl(
       buildChoiceData(
         ['x'],

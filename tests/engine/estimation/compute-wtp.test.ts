@@ -12,7 +12,7 @@ const data = buildChoiceData(
 ).data;
 
 describe('computeWtp', () => {
-  it('Check I (REFERENCES §3.7 [C]): WTP = 20.0, delta-method SE = 6.020797289396148', () => {
+  it('Check I (docs/methods.md "Willingness to pay" [C]): WTP = 20.0, delta-method SE = 6.020797289396148', () => {
     const layout = createMixedLogitLayout(
       data,
       [

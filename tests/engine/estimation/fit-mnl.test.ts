@@ -3,7 +3,7 @@ import { buildChoiceData } from '../../../server/engine/estimation/build-choice-
 import type { LongChoiceRow } from '../../../server/engine/estimation/choice-data';
 import { fitMnl } from '../../../server/engine/estimation/fit-mnl';
 
-/** Ben-Akiva & Lerman (1985, p. 88) 21 travellers: auto time, transit time, choice (REFERENCES §3.1 [R]). */
+/** Ben-Akiva & Lerman (1985, p. 88) 21 travellers: auto time, transit time, choice (docs/methods.md "Estimation check values" [R]). */
 const AKIVA: [number, number, 'A' | 'T'][] = [
   [52.9, 4.4, 'T'],
   [4.1, 28.5, 'T'],
@@ -43,7 +43,7 @@ function akivaRows(): LongChoiceRow[] {
 
 describe('fitMnl', () => {
   it('binary logit with one dummy equals the closed form ln(k/(n−k)), SE sqrt(n/(k(n−k)))', async () => {
-    // Closed form: REFERENCES §3.2 [C/standard]; n = 20 paired tasks, first alternative chosen k = 14 times.
+    // Closed form: docs/methods.md "Estimation check values" [C/standard]; n = 20 paired tasks, first alternative chosen k = 14 times.
     const n = 20;
     const k = 14;
     const rows: LongChoiceRow[] = [];
@@ -55,13 +55,13 @@ describe('fitMnl', () => {
     expect(fit.converged).toBe(true);
     expect(fit.estimates[0]).toBeCloseTo(Math.log(k / (n - k)), 10);
     expect(fit.se[0]).toBeCloseTo(Math.sqrt(n / (k * (n - k))), 10);
-    // LL(0) = n ln(1/2) (REFERENCES §3.2).
+    // LL(0) = n ln(1/2) (docs/methods.md "Estimation check values").
     expect(fit.loglikNull).toBeCloseTo(n * Math.log(0.5), 12);
   });
 
-  it('reproduces Ben-Akiva & Lerman 21-traveller binary logit (REFERENCES §3.1)', async () => {
+  it('reproduces Ben-Akiva & Lerman 21-traveller binary logit (docs/methods.md "Estimation check values")', async () => {
     const fit = await fitMnl(buildChoiceData(['asc_auto', 'time'], akivaRows()).data);
-    // [C] values from REFERENCES §3.1; Newton converges to machine precision, the 7 printed
+    // [C] values from docs/methods.md "Estimation check values"; Newton converges to machine precision, the 7 printed
     // digits bound the comparison.
     expect(fit.estimates[0]).toBeCloseTo(-0.2375755, 6);
     expect(fit.estimates[1]).toBeCloseTo(-0.0531098, 7);
@@ -79,7 +79,7 @@ describe('fitMnl', () => {
     expect(fit.observations).toBe(21);
   });
 
-  it('ASC-only model reproduces the observed shares ln(s_j/s_ref) (REFERENCES §3.2)', async () => {
+  it('ASC-only model reproduces the observed shares ln(s_j/s_ref) (docs/methods.md "Estimation check values")', async () => {
     // 3 alternatives, chosen 5, 3, 2 times; constants for alternatives 2 and 3.
     const counts = [5, 3, 2];
     const rows: LongChoiceRow[] = [];

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { computeGaussHermite } from '../../../server/engine/linalg/gauss-hermite';
 
 describe('computeGaussHermite (Golub-Welsch)', () => {
-  // Abramowitz & Stegun Table 25.10 as listed in REFERENCES §3.5 ([C] numpy hermgauss; A&S
+  // Abramowitz & Stegun Table 25.10 as listed in docs/methods.md "Estimation check values" ([C] numpy hermgauss; A&S
   // agrees to 15 digits as far as recalled, [M]). Listed to 15 significant digits.
   const table: Record<number, [number, number][]> = {
     2: [[0.707106781186548, 0.886226925452758]],

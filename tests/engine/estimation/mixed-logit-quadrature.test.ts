@@ -12,7 +12,7 @@ import { computeGaussHermite } from '../../../server/engine/linalg/gauss-hermite
 /**
  * One normal random coefficient β ~ N(μ, σ²) and binary tasks: the simulated panel probability
  * P_n = (1/R) Σ_r Π_t P_nt(β_r) and the conditional mean E[β | y_n] (Revelt & Train 2000) are
- * compared with Gauss-Hermite quadrature, E f(Z) ≈ Σ w_i/√π f(μ + √2σx_i) (REFERENCES §3.5).
+ * compared with Gauss-Hermite quadrature, E f(Z) ≈ Σ w_i/√π f(μ + √2σx_i) (docs/methods.md "Estimation check values").
  * Tolerance: Koksma-Hlawka, |error| ≤ V(g)·D*_R, with V(g) ≤ T for a product of T monotone
  * probabilities in (0, 1) and the discrepancy of R consecutive van der Corput points
  * D*_R ≤ (log₂R + 2)/R (Niederreiter 1992, Random Number Generation and Quasi-Monte Carlo
@@ -105,7 +105,7 @@ describe('simulated panel probability and conditional means vs Gauss-Hermite qua
   });
 });
 
-describe('REFERENCES §3.6 conditional-mean checks', () => {
+describe('docs/methods.md "Estimation check values" conditional-mean checks', () => {
   const oneTask = buildChoiceData(
     ['x'],
     [

@@ -75,7 +75,7 @@ describe('population WTP', () => {
       ],
       false,
     );
-    // REFERENCES-style check: β_k = 0.8, β_c = −0.04, Var 0.01 and 0.0001, Cov 0.0002 give
+    // Closed-form check: β_k = 0.8, β_c = −0.04, Var 0.01 and 0.0001, Cov 0.0002 give
     // WTP 20 and delta SE 6.020797289396148 (closed form of the delta method, Hole 2007).
     const cov = Float64Array.from([0.01, 0.0002, 0.0002, 0.0001]);
     const [wtp] = computePopulationWtp(layout, [0.8, -0.04], cov, 1, { draws: 4000, seed: 5 });

@@ -70,7 +70,7 @@ describe('computeTasteProfiles (Revelt & Train 2000; Train 2009 ch. 11)', () => 
     expect(rMany).toBeGreaterThan(0.7);
   });
 
-  it('the average conditional mean is close to the population mean (REFERENCES §3.6 invariant)', () => {
+  it('the average conditional mean is close to the population mean (docs/methods.md "Estimation check values" invariant)', () => {
     // E_y[E(β|y)] = E(β) = 1.0; sampling SE of the average over 300 people ≈ 0.8/√300 = 0.046, 3 SE.
     for (const { result } of [few, many]) {
       const avg = result.profiles.reduce((s, p) => s + p.mean.quality, 0) / result.profiles.length;
@@ -79,7 +79,7 @@ describe('computeTasteProfiles (Revelt & Train 2000; Train 2009 ch. 11)', () => 
   });
 
   it('conditional means are spread less than the population, and conditional SDs shrink with tasks', () => {
-    // Var(β) = E[Var(β|y)] + Var(E[β|y]) (REFERENCES §3.6 [M], Train ch. 11).
+    // Var(β) = E[Var(β|y)] + Var(E[β|y]) (docs/methods.md "Estimation check values" [M], Train ch. 11).
     const sdOfMeans = (ps: typeof few.result.profiles) => {
       const m = ps.reduce((s, p) => s + p.mean.quality, 0) / ps.length;
       return Math.sqrt(ps.reduce((s, p) => s + (p.mean.quality - m) ** 2, 0) / ps.length);

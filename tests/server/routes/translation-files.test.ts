@@ -29,6 +29,13 @@ async function studyInGerman() {
   return s;
 }
 
+/** Imports a file as one of the team's agents. */
+const importFile = (
+  role: keyof typeof team.agents,
+  studyId: string,
+  body: { format: string; content: string },
+) => team.agents[role].post(url(studyId, '/de/file')).send(body);
+
 /** Fills every empty <target> of an exported file, except the units listed. */
 function translateXliff(xml: string, skip: string[] = []): string {
   let unit = '';
@@ -98,17 +105,16 @@ describe('POST /texts/:lang/file', () => {
       .post(url(s.id, '/de/file'))
       .send({ format: 'xliff', content: withExtra })
       .expect(200);
-    expect(res.body.extra).toEqual(['page.gone.title']);
+    expect(res.body.extra).toEqual([
+      { key: 'page.gone.title', where: '', line: expect.any(Number) },
+    ]);
     expect(res.body.missing).toEqual([]);
   });
 
   it('imports CSV, reading back cells the export protected against formulas', async () => {
     const s = await studyInGerman();
     const csv = 'key,where,en,de\nstudy.title,Title,Water services 2026,"\'=Wasser"\n';
-    const res = await team.agents.editor
-      .post(url(s.id, '/de/file'))
-      .send({ format: 'csv', content: csv })
-      .expect(200);
+    const res = await importFile('editor', s.id, { format: 'csv', content: csv }).expect(200);
     expect(res.body.imported).toBe(1);
     expect((await translations(s.id)).de['study.title']).toBe('=Wasser');
   });
@@ -156,12 +162,109 @@ describe('POST /texts/:lang/file', () => {
     expect(await translations(s.id)).toEqual({});
   });
 
+  it('imports for owners as for editors', async () => {
+    const s = await studyInGerman();
+    const csv = 'key,where,en,de\nstudy.title,Title,Water services 2026,Wasser 2026\n';
+    const res = await importFile('owner', s.id, { format: 'csv', content: csv }).expect(200);
+    expect(res.body.imported).toBe(1);
+    expect((await translations(s.id)).de).toEqual({ 'study.title': 'Wasser 2026' });
+  });
+
   it('refuses analysts and viewers (403) and other teams (404)', async () => {
     const s = await studyInGerman();
     const body = { format: 'csv', content: 'key,where,en,de\nstudy.title,x,y,z\n' };
     for (const role of ['analyst', 'viewer'] as const)
       await team.agents[role].post(url(s.id, '/de/file')).send(body).expect(403);
     await team.outsider.post(url(s.id, '/de/file')).send(body).expect(404);
+    expect(await translations(s.id)).toEqual({});
+  });
+});
+
+describe('POST /texts/:lang/file with bad input', () => {
+  const post = (studyId: string, body: unknown, lang = 'de') =>
+    team.agents.editor.post(url(studyId, `/${lang}/file`)).send(body as object);
+
+  it('returns 400 with the field for a missing or unknown format, empty or oversized content', async () => {
+    const s = await studyInGerman();
+    const cases: Array<[unknown, string]> = [
+      [{ content: 'x' }, 'format'],
+      [{ format: 'docx', content: 'x' }, 'format'],
+      [{ format: 'csv', content: '' }, 'content'],
+      [{ format: 'csv', content: 'a'.repeat(2_000_001) }, 'content'],
+    ];
+    for (const [body, field] of cases) {
+      const res = await post(s.id, body).expect(400);
+      expect(res.body.error.code).toBe('invalid_input');
+      expect(res.body.error.fields[0].path).toBe(field);
+    }
+    expect(await translations(s.id)).toEqual({});
+  });
+
+  it('refuses what is not XLIFF, malformed XML, a file with no texts and a CSV of other columns, naming the line', async () => {
+    const s = await studyInGerman();
+    const own = (await team.agents.editor.get(url(s.id, '/de/file')).expect(200)).text;
+    const cases: Array<[string, string, RegExp]> = [
+      ['xliff', 'key,where,en,de\nstudy.title,x,y,z\n', /well-formed|not XLIFF/],
+      ['xliff', translateXliff(own).replace('</segment>', ''), /^Line \d+: Not well-formed/],
+      ['xliff', own.replace(/<unit[\s\S]*<\/unit>\n/, ''), /Export this study’s file/],
+      ['csv', 'name,age\nAna,4\n', /^Line 1: expected the columns key, where, en, de/],
+      ['csv', 'key,where,en,de\nstudy.title,"x,y,z\n', /Quote|quote/],
+    ];
+    for (const [format, content, message] of cases) {
+      const res = await post(s.id, { format, content }).expect(400);
+      expect(res.body.error.fields[0]).toEqual({
+        path: 'file',
+        message: expect.stringMatching(message),
+      });
+    }
+    expect(await translations(s.id)).toEqual({});
+  });
+
+  it('refuses a file giving a key twice or a text longer than a field takes, by line, taking nothing', async () => {
+    const s = await studyInGerman();
+    const csv = [
+      'key,where,en,de',
+      'study.title,Title,Water services 2026,Wasser',
+      'ui.next,Button,Next,Weiter',
+      'study.title,Title,Water services 2026,Wasser 2026',
+      `ui.start,Button,Start,${'x'.repeat(6001)}`,
+    ].join('\n');
+    const res = await post(s.id, { format: 'csv', content: csv }).expect(400);
+    expect(res.body.error.message).toBe(
+      'Nothing was imported: 2 texts of the file cannot be taken',
+    );
+    expect(res.body.error.fields).toEqual([
+      {
+        path: 'texts.study.title',
+        message: 'Line 4: study.title is given again (first on line 2)',
+      },
+      {
+        path: 'texts.ui.start',
+        message: 'Line 5: the text of ui.start has 6,001 characters; at most 6,000',
+      },
+    ]);
+    expect(await translations(s.id)).toEqual({});
+  });
+
+  it('refuses the source language, a language the study lacks and a malformed tag on lang', async () => {
+    const s = await studyInGerman();
+    const body = { format: 'csv', content: 'key,where,en,de\nstudy.title,x,y,z\n' };
+    for (const lang of ['en', 'fr', 'not a tag']) {
+      const res = await post(s.id, body, encodeURIComponent(lang)).expect(400);
+      expect(res.body.error.fields[0].path).toBe('lang');
+    }
+    expect(await translations(s.id)).toEqual({});
+  });
+
+  it('refuses a study that is live (409 study_frozen) and one of another team (404)', async () => {
+    const s = await studyInGerman();
+    await t.deps.db.update(studies).set({ status: 'live' }).where(eq(studies.id, s.id));
+    const body = { format: 'csv', content: 'key,where,en,de\nstudy.title,x,y,z\n' };
+    const res = await post(s.id, body).expect(409);
+    expect(res.body.error.code).toBe('study_frozen');
+    const other = await createTeamWithAllRoles(t);
+    const theirs = await insertStudy(t, other.teamId);
+    await post(theirs.id, body).expect(404);
     expect(await translations(s.id)).toEqual({});
   });
 });

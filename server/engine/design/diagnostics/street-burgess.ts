@@ -1,7 +1,7 @@
 /**
  * D-efficiency of a main-effects choice design at β = 0 relative to the optimum of Street &
  * Burgess (Street & Burgess 2007, *The Construction of Optimal Stated Choice Experiments*;
- * Burgess & Street 2005, JSPI 134:288-301) [M formula; REFERENCES §2.2]:
+ * Burgess & Street 2005, JSPI 134:288-301) [M formula; docs/methods.md "Design check values"]:
  *   C = B Λ B' with B the orthonormal main-effect contrasts over all L = Π l_q profiles;
  *   det C_opt = Π_q [2 l_q S_q / (m² (l_q − 1) L)]^(l_q − 1),
  *   S_q = (m² − Σ_u n_u²)/2 with the m alternatives spread as evenly as possible over l_q levels;

@@ -1,14 +1,16 @@
+import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { Link, useNavigate, useSearchParams } from 'react-router';
 import { signInSchema, type SignInInput } from '@shared/schemas/auth';
 import { paths } from '@/config/paths';
 import { AuthLayout } from '@/components/layout/auth-layout';
-import { TextField } from '@/components/ui/field';
+import { EmailField, PasswordField } from '@/components/ui/auth-fields';
 import { Button } from '@/components/ui/button';
 import { ErrorText } from '@/components/ui/error-boundary';
 import { applyFieldErrors } from '@/lib/api-client';
 import { useSignIn } from '@/features/auth/api/sign-in';
+import { SecondStepForm } from '@/features/auth/components/second-step-form';
 import { safeRedirect, withAuthParams } from './safe-redirect';
 
 export function Component() {
@@ -20,15 +22,32 @@ export function Component() {
     defaultValues: { email: params.get('email') ?? '', password: '' },
   });
   const { errors, isSubmitting } = form.formState;
+  const [secondStep, setSecondStep] = useState(false);
+  const goOn = () =>
+    navigate(safeRedirect(params.get('redirectTo'), paths.home.getHref()), { replace: true });
 
   const onSubmit = form.handleSubmit(async (values) => {
     try {
-      await signIn.mutateAsync(values);
-      navigate(safeRedirect(params.get('redirectTo'), paths.home.getHref()), { replace: true });
+      const result = await signIn.mutateAsync(values);
+      if ('twoStepRequired' in result) setSecondStep(true);
+      else goOn();
     } catch (err) {
       applyFieldErrors(err, form.setError);
     }
   });
+
+  if (secondStep)
+    return (
+      <AuthLayout title="Two-step sign-in">
+        <SecondStepForm
+          onSignedIn={goOn}
+          onStartAgain={() => {
+            form.setValue('password', '');
+            setSecondStep(false);
+          }}
+        />
+      </AuthLayout>
+    );
 
   return (
     <AuthLayout
@@ -46,17 +65,9 @@ export function Component() {
       }
     >
       <form onSubmit={onSubmit} className="space-y-4" noValidate>
-        <TextField
-          label="E-mail"
-          type="email"
-          autoComplete="email"
-          error={errors.email?.message}
-          {...form.register('email')}
-        />
-        <TextField
-          label="Password"
-          type="password"
-          autoComplete="current-password"
+        <EmailField error={errors.email?.message} {...form.register('email')} />
+        <PasswordField
+          purpose="current"
           error={errors.password?.message}
           {...form.register('password')}
         />

@@ -2,7 +2,7 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
 import { passwordSchema, type CurrentUser } from '@shared/schemas/auth';
-import { TextField } from '@/components/ui/field';
+import { PasswordField } from '@/components/ui/auth-fields';
 import { Button } from '@/components/ui/button';
 import { Alert } from '@/components/ui/feedback';
 import { applyFieldErrors } from '@/lib/api-client';
@@ -42,25 +42,22 @@ export function PasswordForm({ onChanged }: { onChanged: (me: CurrentUser) => vo
 
   return (
     <form onSubmit={onSubmit} className="space-y-4" noValidate aria-label="Change password">
-      <TextField
+      <PasswordField
+        purpose="current"
         label="Current password"
-        type="password"
-        autoComplete="current-password"
         error={errors.currentPassword?.message}
         {...form.register('currentPassword')}
       />
-      <TextField
+      <PasswordField
+        purpose="new"
         label="New password"
-        type="password"
-        autoComplete="new-password"
         hint="At least 10 characters. Other devices will be signed out."
         error={errors.newPassword?.message}
         {...form.register('newPassword')}
       />
-      <TextField
+      <PasswordField
+        purpose="new"
         label="Repeat the new password"
-        type="password"
-        autoComplete="new-password"
         error={errors.confirmPassword?.message}
         {...form.register('confirmPassword')}
       />

@@ -20,6 +20,14 @@ export function describeAuditEvent(e: AuditEvent): string {
       return 'Reset their password by e-mail link';
     case 'auth.sessions_revoked':
       return `Signed out everywhere (${d(e, 'sessionsEnded')} sessions)`;
+    case 'auth.second_step_failed':
+      return 'Failed sign-in (wrong two-step code)';
+    case 'auth.two_step_enabled':
+      return `Turned on two-step sign-in (${d(e, 'otherSessionsEnded')} other sessions ended)`;
+    case 'auth.two_step_disabled':
+      return 'Turned off two-step sign-in';
+    case 'auth.recovery_codes_renewed':
+      return 'Made new recovery codes for two-step sign-in';
     case 'member.joined':
       return `Joined the team as ${d(e, 'role')}`;
     case 'member.role_changed':

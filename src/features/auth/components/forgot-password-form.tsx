@@ -1,7 +1,7 @@
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { forgotPasswordSchema, type ForgotPasswordInput } from '@shared/schemas/auth';
-import { TextField } from '@/components/ui/field';
+import { EmailField } from '@/components/ui/auth-fields';
 import { Button } from '@/components/ui/button';
 import { Alert } from '@/components/ui/feedback';
 import { useRequestPasswordReset } from '../api/forgot-password';
@@ -37,13 +37,7 @@ export function ForgotPasswordForm({ defaultEmail = '' }: { defaultEmail?: strin
         Enter the e-mail address of your account and we will send you a link to choose a new
         password.
       </p>
-      <TextField
-        label="E-mail"
-        type="email"
-        autoComplete="email"
-        error={errors.email?.message}
-        {...form.register('email')}
-      />
+      <EmailField error={errors.email?.message} {...form.register('email')} />
       <FormError message={errors.root?.server?.message} />
       <Button type="submit" className="w-full" busy={isSubmitting}>
         Send reset link

@@ -2,7 +2,7 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
 import { passwordSchema, resetPasswordSchema, type CurrentUser } from '@shared/schemas/auth';
-import { TextField } from '@/components/ui/field';
+import { PasswordField } from '@/components/ui/auth-fields';
 import { Button } from '@/components/ui/button';
 import { ApiError } from '@/lib/api-client';
 import { useResetPassword } from '../api/reset-password';
@@ -50,18 +50,16 @@ export function ResetPasswordForm({
 
   return (
     <form onSubmit={onSubmit} className="space-y-4" noValidate>
-      <TextField
+      <PasswordField
+        purpose="new"
         label="New password"
-        type="password"
-        autoComplete="new-password"
         hint="At least 10 characters."
         error={errors.password?.message}
         {...form.register('password')}
       />
-      <TextField
+      <PasswordField
+        purpose="new"
         label="Repeat the new password"
-        type="password"
-        autoComplete="new-password"
         error={errors.confirmPassword?.message}
         {...form.register('confirmPassword')}
       />

@@ -2,6 +2,7 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { signUpSchema, type AcceptedMessage, type SignUpInput } from '@shared/schemas/auth';
 import { TextField } from '@/components/ui/field';
+import { EmailField, PasswordField } from '@/components/ui/auth-fields';
 import { Button } from '@/components/ui/button';
 import { useSignUp } from '../api/sign-up';
 import { applyServerError, FormError } from './form-error';
@@ -42,17 +43,9 @@ export function SignUpForm({
         error={errors.name?.message}
         {...form.register('name')}
       />
-      <TextField
-        label="E-mail"
-        type="email"
-        autoComplete="email"
-        error={errors.email?.message}
-        {...form.register('email')}
-      />
-      <TextField
-        label="Password"
-        type="password"
-        autoComplete="new-password"
+      <EmailField error={errors.email?.message} {...form.register('email')} />
+      <PasswordField
+        purpose="new"
         hint="At least 10 characters. A few unrelated words work well."
         error={errors.password?.message}
         {...form.register('password')}

@@ -1,17 +1,7 @@
 /** Starts and completes per day (Okabe–Ito sky blue and bluish green). */
-import {
-  BarController,
-  BarElement,
-  CategoryScale,
-  Chart as ChartJS,
-  Legend,
-  LinearScale,
-  Tooltip,
-} from 'chart.js';
 import { Bar } from 'react-chartjs-2';
+import { baseChartOptions, bottomLegend } from '@/components/charts/chart-setup';
 import type { FieldworkStats } from '@shared/schemas/fieldwork';
-
-ChartJS.register(BarController, BarElement, CategoryScale, LinearScale, Tooltip, Legend);
 
 const SKY = '#56b4e9';
 const GREEN = '#009e73';
@@ -33,9 +23,8 @@ export function DailyChart({ daily }: { daily: FieldworkStats['daily'] }) {
             ],
           }}
           options={{
-            maintainAspectRatio: false,
-            animation: false,
-            plugins: { legend: { position: 'bottom', labels: { boxWidth: 12 } } },
+            ...baseChartOptions,
+            plugins: { legend: bottomLegend },
             scales: {
               x: { grid: { display: false }, ticks: { maxRotation: 0, autoSkipPadding: 8 } },
               y: { beginAtZero: true, ticks: { precision: 0 } },

@@ -3,6 +3,7 @@ import { Spinner } from '@/components/ui/feedback';
 import { ErrorText } from '@/components/ui/error-boundary';
 import { useStudyTexts } from '../api/get-study-texts';
 import { LanguagesCard } from './languages-card';
+import { TranslationFilesCard } from './translation-files-card';
 import { TranslationTable } from './translation-table';
 
 /** The Languages view of the Questionnaire section: the list, then one language's texts. */
@@ -27,6 +28,15 @@ export function LanguagesPanel({
   return (
     <div className="space-y-6">
       <LanguagesCard {...common} selected={lang} onSelect={setChosen} />
+      {lang !== view.languages[0] && (
+        <TranslationFilesCard
+          key={lang}
+          teamId={teamId}
+          studyId={studyId}
+          lang={lang}
+          canImport={canEdit && view.editable}
+        />
+      )}
       <TranslationTable key={lang} {...common} lang={lang} />
     </div>
   );

@@ -4,33 +4,12 @@
  * are shrunk toward the population, so their spread is narrower than the population's.
  * Colours from the Okabe–Ito palette.
  */
-import {
-  BarController,
-  BarElement,
-  Chart as ChartJS,
-  Legend,
-  LinearScale,
-  LineController,
-  LineElement,
-  PointElement,
-  Tooltip,
-} from 'chart.js';
 import { Chart } from 'react-chartjs-2';
+import { baseChartOptions, bottomLegend } from '@/components/charts/chart-setup';
 import type { EstimationResult } from '@shared/schemas/estimation-spec';
 import { densityHistogram, plotRange } from '../utils/stats';
 import { populationDensity } from '@shared/results/taste-density';
 import { formatNumber } from '@/utils/format';
-
-ChartJS.register(
-  BarController,
-  BarElement,
-  LineController,
-  LineElement,
-  PointElement,
-  LinearScale,
-  Tooltip,
-  Legend,
-);
 
 const SKY = 'rgba(86, 180, 233, 0.55)';
 const BLUE = '#0072b2';
@@ -83,9 +62,7 @@ export function DensityChart({
             ],
           }}
           options={{
-            responsive: true,
-            maintainAspectRatio: false,
-            animation: false,
+            ...baseChartOptions,
             parsing: false,
             scales: {
               x: {
@@ -97,7 +74,7 @@ export function DensityChart({
               y: { type: 'linear', beginAtZero: true, title: { display: true, text: 'Density' } },
             },
             plugins: {
-              legend: { position: 'bottom', labels: { boxWidth: 12 } },
+              legend: bottomLegend,
               tooltip: { enabled: false },
             },
           }}

@@ -3,20 +3,9 @@
  * included), so an analyst sees whether the chains mix and settle on the same region.
  * Colours from the Okabe–Ito palette.
  */
-import {
-  Chart as ChartJS,
-  Legend,
-  LinearScale,
-  LineController,
-  LineElement,
-  PointElement,
-  Tooltip,
-} from 'chart.js';
 import { Chart } from 'react-chartjs-2';
-
-ChartJS.register(LineController, LineElement, PointElement, LinearScale, Tooltip, Legend);
-
-const CHAIN_COLOURS = ['#0072b2', '#d55e00', '#009e73', '#cc79a7', '#e69f00', '#56b4e9'];
+import { baseChartOptions, bottomLegend } from '@/components/charts/chart-setup';
+import { okabeIto } from '@/components/charts/palette';
 
 export function TraceChart({
   title,
@@ -36,22 +25,20 @@ export function TraceChart({
             datasets: series.map((s, i) => ({
               label: `Chain ${s.chain}`,
               data: s.iteration.map((x, j) => ({ x, y: s.values[j] })),
-              borderColor: CHAIN_COLOURS[i % CHAIN_COLOURS.length],
+              borderColor: okabeIto[i % okabeIto.length],
               borderWidth: 1,
               pointRadius: 0,
             })),
           }}
           options={{
-            responsive: true,
-            maintainAspectRatio: false,
-            animation: false,
+            ...baseChartOptions,
             parsing: false,
             scales: {
               x: { type: 'linear', title: { display: true, text: 'Iteration' } },
               y: { type: 'linear', title: { display: true, text: title } },
             },
             plugins: {
-              legend: { position: 'bottom', labels: { boxWidth: 12 } },
+              legend: bottomLegend,
               tooltip: { enabled: false },
             },
           }}

@@ -3,32 +3,13 @@
  * attribute moves; values on a linear axis for a numeric sweep, level labels otherwise.
  */
 import type { RefObject } from 'react';
-import {
-  CategoryScale,
-  Chart as ChartJS,
-  Filler,
-  LinearScale,
-  LineController,
-  LineElement,
-  PointElement,
-  Tooltip,
-  type Chart,
-} from 'chart.js';
+import type { Chart } from 'chart.js';
 import { Line } from 'react-chartjs-2';
+import { baseChartOptions } from '@/components/charts/chart-setup';
 import type { DemandCurve } from '@shared/engine/shares/demand-curve';
 import { okabeIto, withAlpha } from '@/components/charts/palette';
 import { whiteBackground } from '@/components/charts/chart-png';
 import { formatPercent } from '@/utils/format';
-
-ChartJS.register(
-  LineController,
-  LineElement,
-  PointElement,
-  LinearScale,
-  CategoryScale,
-  Filler,
-  Tooltip,
-);
 
 export function DemandCurveChart({
   curve,
@@ -88,9 +69,7 @@ export function DemandCurveChart({
           ],
         }}
         options={{
-          responsive: true,
-          maintainAspectRatio: false,
-          animation: false,
+          ...baseChartOptions,
           scales: {
             x: { title: { display: true, text: axisTitle } },
             y: { min: 0, title: { display: true, text: `Share of ${alternativeName} (%)` } },

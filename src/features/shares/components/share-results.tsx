@@ -2,24 +2,15 @@
  * Predicted shares as horizontal bars with their 95 % intervals (a thin dark bar from lower to
  * upper over each share bar), a table with the intervals, and shares by segment.
  */
-import {
-  BarController,
-  BarElement,
-  CategoryScale,
-  Chart as ChartJS,
-  LinearScale,
-  Tooltip,
-} from 'chart.js';
 import type { RefObject } from 'react';
 import type { Chart } from 'chart.js';
 import { Bar } from 'react-chartjs-2';
+import { baseChartOptions } from '@/components/charts/chart-setup';
 import type { ShareGroups } from '@shared/schemas/shares';
 import type { ScenarioShares } from '@shared/engine/shares/share-model';
 import { formatCount, formatInterval, formatPercent } from '@/utils/format';
 import { okabeIto } from '@/components/charts/palette';
 import { whiteBackground } from '@/components/charts/chart-png';
-
-ChartJS.register(BarController, BarElement, CategoryScale, LinearScale, Tooltip);
 
 const pct = (x: number | null | undefined) => formatPercent(x, 1);
 
@@ -82,9 +73,7 @@ export function ShareResults({
           }}
           options={{
             indexAxis: 'y',
-            responsive: true,
-            maintainAspectRatio: false,
-            animation: false,
+            ...baseChartOptions,
             scales: { x: { min: 0, max: 100, title: { display: true, text: 'Share (%)' } } },
             plugins: { legend: { display: false } },
           }}

@@ -3,30 +3,13 @@
  * of equality: points on it mean both models give the respondent the same taste. Colours from
  * the Okabe–Ito palette.
  */
-import {
-  Chart as ChartJS,
-  Legend,
-  LinearScale,
-  LineController,
-  LineElement,
-  PointElement,
-  ScatterController,
-  Tooltip,
-} from 'chart.js';
 import { Chart } from 'react-chartjs-2';
+import { baseChartOptions, bottomLegend } from '@/components/charts/chart-setup';
+import { okabeIto, withAlpha } from '@/components/charts/palette';
 
-ChartJS.register(
-  ScatterController,
-  LineController,
-  LineElement,
-  PointElement,
-  LinearScale,
-  Tooltip,
-  Legend,
-);
-
-const BLUE = 'rgba(0, 114, 178, 0.55)';
-const VERMILLION = '#d55e00';
+/** Points half see-through (overlaps show as darker), the line of equality solid. */
+const POINT = withAlpha(okabeIto[0], 0.55);
+const LINE = okabeIto[5];
 
 export function ComparisonScatter({
   label,
@@ -54,7 +37,7 @@ export function ComparisonScatter({
               type: 'scatter' as const,
               label: 'Respondents',
               data: pairs.map(([x, y]) => ({ x, y })),
-              backgroundColor: BLUE,
+              backgroundColor: POINT,
               pointRadius: 2.5,
             },
             {
@@ -64,7 +47,7 @@ export function ComparisonScatter({
                 { x: lo, y: lo },
                 { x: hi, y: hi },
               ],
-              borderColor: VERMILLION,
+              borderColor: LINE,
               borderWidth: 1.5,
               borderDash: [5, 4],
               pointRadius: 0,
@@ -72,16 +55,14 @@ export function ComparisonScatter({
           ],
         }}
         options={{
-          responsive: true,
-          maintainAspectRatio: false,
-          animation: false,
+          ...baseChartOptions,
           parsing: false,
           scales: {
             x: { type: 'linear', title: { display: true, text: xTitle } },
             y: { type: 'linear', title: { display: true, text: yTitle } },
           },
           plugins: {
-            legend: { position: 'bottom', labels: { boxWidth: 12 } },
+            legend: bottomLegend,
             tooltip: { enabled: false },
           },
         }}

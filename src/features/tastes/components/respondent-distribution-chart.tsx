@@ -3,17 +3,8 @@
  * the respondent's conditional distribution, drawn from their conditional mean and SD on the
  * coefficient's own scale (src/utils/taste-density.ts). Okabe–Ito colours.
  */
-import {
-  CategoryScale,
-  Chart as ChartJS,
-  Filler,
-  Legend,
-  LinearScale,
-  LineController,
-  LineElement,
-  PointElement,
-} from 'chart.js';
 import { Line } from 'react-chartjs-2';
+import { baseChartOptions } from '@/components/charts/chart-setup';
 import type { TasteCoefficient } from '@shared/schemas/tastes';
 import { getPlotRange } from '../utils/densities';
 import {
@@ -23,16 +14,6 @@ import {
 } from '@shared/results/taste-density';
 import { formatNumber } from '@/utils/format';
 import { okabeIto, withAlpha } from '@/components/charts/palette';
-
-ChartJS.register(
-  LineController,
-  LineElement,
-  PointElement,
-  LinearScale,
-  CategoryScale,
-  Filler,
-  Legend,
-);
 
 export function RespondentDistributionChart({
   coefficient,
@@ -87,9 +68,7 @@ export function RespondentDistributionChart({
               ],
             }}
             options={{
-              responsive: true,
-              maintainAspectRatio: false,
-              animation: false,
+              ...baseChartOptions,
               parsing: false,
               scales: {
                 x: { type: 'linear', min: lo, max: hi, ticks: { maxTicksLimit: 6 } },

@@ -3,21 +3,11 @@
  * compare) or as box plots (whiskers min–max, box quartiles, a line at the median), drawn with
  * chart.js floating bars. Okabe–Ito colours, one per group.
  */
-import {
-  BarController,
-  BarElement,
-  CategoryScale,
-  Chart as ChartJS,
-  Legend,
-  LinearScale,
-  Tooltip,
-} from 'chart.js';
 import { Bar } from 'react-chartjs-2';
+import { baseChartOptions, bottomLegend } from '@/components/charts/chart-setup';
 import type { Segments } from '@shared/schemas/tastes';
 import { formatNumber } from '@/utils/format';
 import { okabeIto, withAlpha } from '@/components/charts/palette';
-
-ChartJS.register(BarController, BarElement, CategoryScale, LinearScale, Tooltip, Legend);
 
 export type SegmentsView = 'histogram' | 'box';
 
@@ -43,9 +33,7 @@ function HistogramChart({ data }: { data: Segments }) {
         })),
       }}
       options={{
-        responsive: true,
-        maintainAspectRatio: false,
-        animation: false,
+        ...baseChartOptions,
         scales: {
           x: {
             title: { display: true, text: `Conditional mean of ${data.coefficient.label}` },
@@ -53,7 +41,7 @@ function HistogramChart({ data }: { data: Segments }) {
           },
           y: { beginAtZero: true, title: { display: true, text: 'Share of the group' } },
         },
-        plugins: { legend: { position: 'bottom', labels: { boxWidth: 12 } } },
+        plugins: { legend: bottomLegend },
       }}
     />
   );
@@ -98,9 +86,7 @@ function BoxChart({ data }: { data: Segments }) {
       }}
       options={{
         indexAxis: 'y',
-        responsive: true,
-        maintainAspectRatio: false,
-        animation: false,
+        ...baseChartOptions,
         scales: {
           x: {
             min: lo - tick * 10,
@@ -109,7 +95,7 @@ function BoxChart({ data }: { data: Segments }) {
           },
         },
         plugins: {
-          legend: { position: 'bottom', labels: { boxWidth: 12 } },
+          legend: bottomLegend,
           tooltip: { enabled: false },
         },
       }}

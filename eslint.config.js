@@ -89,8 +89,31 @@ export default tseslint.config(
     },
   },
   {
-    // Config loaders, scripts and tests may read the environment directly.
-    files: ['server/env.ts', 'scripts/**', 'tests/**', 'e2e/**', '*.config.ts', 'db/**'],
+    // The data layer sits below the server: it never imports from it (the demo seed, which
+    // goes through the server's services, lives in server/seed).
+    files: ['db/**/*.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            { group: ['**/server/**', '@server/**'], message: 'db/ imports nothing from server/.' },
+          ],
+        },
+      ],
+    },
+  },
+  {
+    // Config loaders, the seed's entry point, scripts and tests may read the environment directly.
+    files: [
+      'server/env.ts',
+      'server/seed.ts',
+      'scripts/**',
+      'tests/**',
+      'e2e/**',
+      '*.config.ts',
+      'db/**',
+    ],
     rules: { 'no-restricted-syntax': 'off' },
   },
 );

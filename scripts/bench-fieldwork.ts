@@ -14,7 +14,10 @@
  * implementations are compared side by side in one run (the `baseline` figures).
  *
  * Usage: npm run bench:fieldwork [-- --respondents 500] [-- --ramp 5] [-- --think 400]
- *        [-- --port 5281] [-- --pool <connections>] [-- --compare-with <dir>] [-- --json]
+ *        [-- --port 5281] [-- --pool <connections>] [-- --compare-with <dir>] [-- --socket]
+ *        [-- --json]
+ * `--socket`: the servers reach PostgreSQL through its Unix socket, as README advises when the
+ * database runs on the same host (TCP on loopback costs more CPU per query).
  */
 import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
@@ -33,6 +36,8 @@ import {
   reconcile,
 } from './lib/bench-study';
 import { seedScratchDemo, startDemoMixedRun, waitForRun } from './lib/bench-demo-run';
+import { measureCpu } from './lib/process-cpu';
+import type pg from 'pg';
 
 const args = process.argv.slice(2);
 const asJson = args.includes('--json');
@@ -46,6 +51,8 @@ const THINK_MS = arg('think', 400);
 const PORT = arg('port', 5281);
 /** Database connections of the server process; by default the server's own (DB_POOL_SIZE). */
 const POOL = arg('pool', 0);
+/** Servers reach PostgreSQL through its Unix socket instead of TCP (same host only). */
+const SOCKET = args.includes('--socket');
 const RETRY_SHARE = 0.1;
 const compareAt = args.indexOf('--compare-with');
 const BASELINE_DIR = compareAt >= 0 ? path.resolve(args[compareAt + 1]) : null;
@@ -57,8 +64,14 @@ const log = (s: string) => {
 
 type Phase = Awaited<ReturnType<typeof measure>>;
 
-async function measure(base: string, publicId: string, first: number) {
+async function measure(
+  base: string,
+  publicId: string,
+  first: number,
+  cpu: { serverPid: number; pool: pg.Pool; database: string },
+) {
   const load = sampleLoadAverage(os.loadavg);
+  const cpuTime = await measureCpu(cpu.serverPid, cpu.pool, cpu.database);
   const r: LoadResult = await runLoadClient({
     bases: [base],
     publicId,
@@ -71,7 +84,20 @@ async function measure(base: string, publicId: string, first: number) {
     giveUpMs: 60_000,
   });
   const seconds = (r.endedAt - r.startedAt) / 1000;
-  return { r, seconds, loadAverage1m: load.stop() };
+  return { r, seconds, loadAverage1m: load.stop(), cpuMs: await cpuTime.stop() };
+}
+
+/** CPU milliseconds per request (session starts and answers, re-sent ones included). */
+function cpuPerRequest(p: Phase) {
+  const requests = p.r.answerMs.length + p.r.sessionMs.length;
+  const per = (ms: number | null) => (ms === null ? null : Number((ms / requests).toFixed(2)));
+  return {
+    requests,
+    serverMs: p.cpuMs.serverMs,
+    databaseMs: p.cpuMs.databaseMs,
+    serverMsPerRequest: per(p.cpuMs.serverMs),
+    databaseMsPerRequest: per(p.cpuMs.databaseMs),
+  };
 }
 
 function phaseFigures(p: Phase) {
@@ -92,8 +118,20 @@ function phaseFigures(p: Phase) {
     networkErrors: p.r.networkErrors,
     unexpected: p.r.errorsOther.length,
     unsent: p.r.unsent,
+    cpu: cpuPerRequest(p),
     loadAverage1m: p.loadAverage1m,
   };
+}
+
+/** The scratch database through the cluster's (first) Unix socket directory. */
+async function socketUrl(pool: pg.Pool, database: string): Promise<string> {
+  const r = await pool.query<{ dirs: string }>('show unix_socket_directories');
+  const dir = r.rows[0]?.dirs.split(',')[0]?.trim();
+  if (!dir) throw new Error('--socket: this PostgreSQL listens on no Unix socket');
+  const admin = new URL(adminUrl());
+  // The socket file is named after the port; the host parameter replaces the host name.
+  const user = admin.username || 'postgres';
+  return `postgres://${user}@localhost:${admin.port || 5432}/${database}?host=${encodeURIComponent(dir)}`;
 }
 
 async function main() {
@@ -113,7 +151,7 @@ async function main() {
       HOST: '127.0.0.1',
       PORT: String(PORT),
       APP_URL: base,
-      DATABASE_URL: scratch.url,
+      DATABASE_URL: SOCKET ? await socketUrl(pool, scratch.name) : scratch.url,
       JWT_SECRET: randomBytes(32).toString('hex'),
       DATA_DIR: work,
       EMBEDDED_WORKER: 'true',
@@ -121,6 +159,7 @@ async function main() {
       // No mail in this benchmark: nothing listens there.
       SMTP_PORT: '9',
     };
+    const cpuOf = { pool, database: scratch.name };
     let baseline: Phase | null = null;
     if (BASELINE_DIR) {
       log(`  baseline: ${BASELINE_DIR}, ${RESPONDENTS} respondents…`);
@@ -132,7 +171,10 @@ async function main() {
       });
       try {
         await waitForHealth(base);
-        baseline = await measure(base, publicId, 2 * RESPONDENTS);
+        baseline = await measure(base, publicId, 2 * RESPONDENTS, {
+          ...cpuOf,
+          serverPid: other.pid,
+        });
       } finally {
         await other.stop();
       }
@@ -146,13 +188,14 @@ async function main() {
     log(`  server pid ${server.pid} healthy after ${startupSeconds.toFixed(1)} s`);
 
     log(`  load 1: ${RESPONDENTS} respondents, machine otherwise idle…`);
-    const idle = await measure(base, publicId, 0);
+    const cpu = { ...cpuOf, serverPid: server.pid };
+    const idle = await measure(base, publicId, 0, cpu);
 
     log('  starting a panel mixed logit on the demo study…');
     const run = await startDemoMixedRun(base, credentials);
     const before = await waitForRun(run, (r) => r.progress?.stage === 'estimating');
     log(`  load 2: ${RESPONDENTS} respondents while it estimates…`);
-    const busy = await measure(base, publicId, RESPONDENTS);
+    const busy = await measure(base, publicId, RESPONDENTS, cpu);
     const after = await run.get();
     await run.cancel().catch(() => {});
 
@@ -168,6 +211,7 @@ async function main() {
       screensPerRespondent: BENCH_TASKS_PER_RESPONDENT + 1,
       rampSeconds: RAMP_S,
       dbPoolSize: POOL > 0 ? POOL : 'server default',
+      databaseConnection: SOCKET ? 'unix socket' : 'tcp',
       thinkMs: THINK_MS,
       answersPerSecond: phaseFigures(idle).answersPerSecond,
       answersPerSecondAtFullLoad: phaseFigures(idle).fullLoad.answersPerSecond,
@@ -204,7 +248,7 @@ async function main() {
         ['while estimating', result.whileEstimating],
       ] as const)
         log(
-          `  ${name.padEnd(17)} ${p.answersPerSecond} answers/s (all answering: ${p.fullLoad.answersPerSecond ?? '–'}, peak ${p.fullLoad.peakRespondentsAnswering} at once) · answer p50 ${p.answerLatencyMs.p50} p99 ${p.answerLatencyMs.p99} ms · session start p99 ${p.sessionStartLatencyMs.p99} ms · load ${p.loadAverage1m.mean}`,
+          `  ${name.padEnd(17)} ${p.answersPerSecond} answers/s (all answering: ${p.fullLoad.answersPerSecond ?? '–'}, peak ${p.fullLoad.peakRespondentsAnswering} at once) · answer p50 ${p.answerLatencyMs.p50} p99 ${p.answerLatencyMs.p99} ms · session start p99 ${p.sessionStartLatencyMs.p99} ms · CPU per request: server ${p.cpu.serverMsPerRequest} ms, PostgreSQL ${p.cpu.databaseMsPerRequest} ms · load ${p.loadAverage1m.mean}`,
         );
       log(
         `  reconciliation   sent ${counts.sent}, stored ${counts.stored}, lost ${counts.lost}, duplicated ${counts.duplicated}`,

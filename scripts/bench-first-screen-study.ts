@@ -6,7 +6,7 @@ import type { Db } from '../db/client';
 import { insertTeam } from '../db/queries/memberships';
 import { insertUser } from '../db/queries/users';
 import { getStudyById } from '../db/queries/studies';
-import { demoDefinition, ensureDemoStudy } from '../db/seed/demo-study';
+import { demoDefinition, ensureDemoStudy } from '../server/seed/demo-study';
 import type { AppDeps } from '../server/deps';
 import { goLive } from '../server/services/lifecycle';
 import { saveQuestionnaire } from '../server/services/questionnaire';

@@ -20,5 +20,5 @@ export NODE_ENV=production HOST=127.0.0.1 PORT="$PORT" APP_URL="http://127.0.0.1
   SMTP_HOST=127.0.0.1 SMTP_PORT=1125 LOG_LEVEL=warn AUTH_RATE_LIMIT=10000 \
   JWT_SECRET="$(node -e "process.stdout.write(require('node:crypto').randomBytes(48).toString('base64url'))")" \
   CW_DEMO_CREDENTIALS_FILE="$ROOT/.data/e2e-demo-credentials.json"
-npx tsx db/seed.ts >&2
+npx tsx server/seed.ts >&2
 exec node --import tsx server/main.ts

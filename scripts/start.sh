@@ -37,7 +37,7 @@ echo "== building the WebAssembly kernel (when its sources changed) and the clie
 npx tsx scripts/build-wasm.ts --if-stale
 npx vite build --logLevel warn
 echo "== migrating and seeding the demo data"
-npx tsx db/seed.ts
+npx tsx server/seed.ts
 
 STOPPING=no
 stop_all() {

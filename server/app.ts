@@ -20,6 +20,10 @@ import { serveClient } from './static-client';
 /** The largest answer is a 2,000-character text (under 12 kB as JSON, even fully escaped). */
 export const RESPONDENT_BODY_LIMIT = '32kb';
 
+/** POST /api/r/:publicId/answers or …/revisions: a respondent's answer. */
+const ANSWER_PATH = /^\/api\/r\/[^/]+\/(answers|revisions)$/;
+const isAnswerPost = (req: express.Request) => req.method === 'POST' && ANSWER_PATH.test(req.path);
+
 export function createApp(deps: AppDeps): express.Express {
   const app = express();
   app.disable('x-powered-by');
@@ -49,8 +53,11 @@ export function createApp(deps: AppDeps): express.Express {
       createPatternLookup(() => listApiRoutes(app)),
     ),
   );
-  // gzip or brotli, whichever the browser prefers, for pages, scripts, styles and JSON.
-  app.use(compression());
+  // gzip or brotli, whichever the browser prefers, for pages, scripts, styles and JSON — but
+  // not around a respondent's answer: its reply is a receipt far below compression's 1 kB
+  // threshold, and wrapping the response for it costs CPU on the busiest route of a launch.
+  const compress = compression();
+  app.use((req, res, next) => (isAnswerPost(req) ? next() : compress(req, res, next)));
   app.use(cookieParser());
   app.use('/api', refuseCrossSiteWrites([deps.env.APP_URL, ...deps.env.TRUSTED_ORIGINS]));
   // Respondents send small bodies (an answer, link parameters): anything larger is refused

@@ -13,13 +13,30 @@ import { studyVersions } from '../schema/studies';
 const leastFilled = sql`(select v.i from unnest(filling) with ordinality v(c, i)
                           order by v.c, v.i limit 1)`;
 
-async function takeLeastFilled(db: DbOrTx, versionId: string): Promise<number | null> {
+/*
+ * Every session start of a version updates this one row, and a row lock is held until commit.
+ * A synchronous commit waits for the write-ahead log to reach the disk (an fdatasync, 1–3 ms
+ * here), so starts would queue one flush at a time behind each other. On its own statement
+ * (outside a caller's transaction) the update therefore commits without waiting for the flush
+ * (set_config(…, true) lasts until the end of this statement's implicit transaction). Nothing
+ * acknowledged is lost by that: the respondent that takes the place is inserted afterwards by
+ * a synchronous commit, and the log is flushed in order, so once the respondent is on disk so
+ * is this increment. A crash before that loses only a place whose respondent never existed.
+ */
+const commitWithoutWaiting = sql`from (select set_config('synchronous_commit', 'off', true)) as cfg`;
+
+async function takeLeastFilled(
+  db: DbOrTx,
+  versionId: string,
+  standalone: boolean,
+): Promise<number | null> {
   const r = await db.execute<{ block: number }>(sql`
     update ${counts}
        set filling = (select array_agg(case when u.i = ${leastFilled} then u.c + 1 else u.c end
                                        order by u.i)
                         from unnest(filling) with ordinality u(c, i)),
            last_block = ${leastFilled}
+      ${standalone ? commitWithoutWaiting : sql``}
      where version_id = ${versionId}
     returning last_block as block`);
   return r.rows[0]?.block ?? null;
@@ -41,15 +58,21 @@ export async function ensureBlockCounts(db: DbOrTx, params: { versionId: string;
     on conflict do nothing`);
 }
 
-/** Takes a place in the least-filled block of the version and returns the block number. */
+/**
+ * Takes a place in the least-filled block of the version and returns the block number.
+ * `standalone`: db is the pool, not a transaction — the update then commits without waiting
+ * for the log flush (see commitWithoutWaiting); inside a transaction it never changes how the
+ * caller's transaction commits.
+ */
 export async function assignBlock(
   db: DbOrTx,
-  params: { versionId: string; blocks: number },
+  params: { versionId: string; blocks: number; standalone?: boolean },
 ): Promise<number> {
-  const block = await takeLeastFilled(db, params.versionId);
+  const standalone = params.standalone ?? false;
+  const block = await takeLeastFilled(db, params.versionId, standalone);
   if (block !== null) return block;
   await ensureBlockCounts(db, params);
-  const retried = await takeLeastFilled(db, params.versionId);
+  const retried = await takeLeastFilled(db, params.versionId, standalone);
   if (retried === null) throw new Error(`version ${params.versionId} has no block counter`);
   return retried;
 }

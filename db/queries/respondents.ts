@@ -1,7 +1,7 @@
 /** Respondents (one per answering session) and what the respondent link needs to find. */
 import { and, count, eq, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
-import { studies } from '../schema/studies';
+import { studies, studyVersions } from '../schema/studies';
 import { invitees, respondents } from '../schema/fieldwork';
 
 export const respondentColumns = {
@@ -35,6 +35,10 @@ export async function getStudyByPublicId(db: DbOrTx, params: { publicId: string 
       settings: studies.settings,
       currentVersion: studies.currentVersion,
       archivedAt: studies.archivedAt,
+      // The version a new respondent answers, read in the same round trip (session starts).
+      latestVersionId: sql<string | null>`(select ${studyVersions.id} from ${studyVersions}
+        where ${studyVersions.studyId} = ${studies.id}
+        order by ${studyVersions.version} desc limit 1)`,
     })
     .from(studies)
     .where(eq(studies.publicId, params.publicId));

@@ -14,10 +14,10 @@ import { buildDemoRunInput, DEMO_STUDY_NAME } from './demo-run-input';
 
 const root = path.resolve(import.meta.dirname, '../..');
 
-/** Runs the demo seed (db/seed.ts) against `url`; returns the file with the demo sign-ins. */
+/** Runs the demo seed (server/seed.ts) against `url`; returns the file with the demo sign-ins. */
 export async function seedScratchDemo(url: string, workDir: string): Promise<string> {
   const credentials = path.join(workDir, 'demo-credentials.json');
-  execFileSync(process.execPath, ['--import', 'tsx', 'db/seed.ts'], {
+  execFileSync(process.execPath, ['--import', 'tsx', 'server/seed.ts'], {
     cwd: root,
     env: {
       ...process.env,

@@ -13,7 +13,21 @@ function parse(userAgent: string | undefined) {
   return ua.trim() === '' ? null : Bowser.getParser(ua);
 }
 
+/** A panel launch brings the same few user agents again and again: parse each once. */
+const classOfAgent = new Map<string, DeviceClass>();
+const AGENTS_KEPT = 1_000;
+
 export function getDeviceClass(userAgent: string | undefined): DeviceClass {
+  const ua = userAgent ?? '';
+  const known = classOfAgent.get(ua);
+  if (known) return known;
+  const found = classOf(userAgent);
+  if (classOfAgent.size >= AGENTS_KEPT) classOfAgent.clear();
+  classOfAgent.set(ua, found);
+  return found;
+}
+
+function classOf(userAgent: string | undefined): DeviceClass {
   const p = parse(userAgent);
   switch (p?.getPlatformType(true)) {
     case 'mobile':

@@ -18,11 +18,19 @@ function coarsePath(path: string): string {
   return `/${first}${rest.length > 0 ? '/…' : ''}`;
 }
 
+/** Each request's route, once: the log line asks for it twice (its fields and its message). */
+const routeOfRequest = new WeakMap<object, string>();
+
 export function describeRoute(req: Request, patternOf: RoutePatternOf): string {
+  const known = routeOfRequest.get(req);
+  if (known !== undefined) return known;
   const path = (req.originalUrl ?? req.url).split('?')[0] ?? '/';
-  if (path === '/api' || path.startsWith('/api/'))
-    return patternOf(req.method, path) ?? '/api (no such route)';
-  return coarsePath(path);
+  const route =
+    path === '/api' || path.startsWith('/api/')
+      ? (patternOf(req.method, path) ?? '/api (no such route)')
+      : coarsePath(path);
+  routeOfRequest.set(req, route);
+  return route;
 }
 
 export function createRequestLog(logger: Logger, patternOf: RoutePatternOf) {

@@ -63,9 +63,10 @@ export class PostgresRateLimitStore implements Store {
     };
   }
 
-  async increment(key: string): Promise<IncrementResponse> {
+  /** Counts `hits` hits of the key at once (LocalFirstRateLimitStore writes several through). */
+  async increment(key: string, hits = 1): Promise<IncrementResponse> {
     try {
-      return this.info(await this.rl.consume(digest(key)));
+      return this.info(await this.rl.consume(digest(key), hits));
     } catch (err) {
       if (err instanceof RateLimiterRes) return this.info(err);
       throw err;

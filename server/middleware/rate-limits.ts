@@ -10,6 +10,7 @@ import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
 import type pg from 'pg';
 import type { AppDeps } from '../deps';
 import { PostgresRateLimitStore } from './rate-limit-store';
+import { LocalFirstRateLimitStore } from './local-first-rate-limit-store';
 import { RESPONDENT_TOKEN_HEADER } from '../../shared/schemas/respondent';
 import { TWO_STEP_COOKIE, verifyTwoStepToken } from '../lib/session';
 
@@ -25,7 +26,16 @@ type LimitSpec = {
   message: string;
   /** Count only requests that fail (e.g. wrong passwords). */
   failuresOnly?: boolean;
+  /**
+   * Share of the limit each process may count in memory before it writes a key through to the
+   * shared counters (local-first-rate-limit-store.ts). Only for the limits every respondent
+   * request passes; sign-in, account and mail limits stay exact across instances.
+   */
+  localShare?: number;
 };
+
+/** Respondent keys: a process counts a quarter of the limit alone (a session sends ~15–30). */
+const RESPONDENT_LOCAL_SHARE = 0.25;
 
 const poolOf = (deps: AppDeps) => (deps.db as unknown as { $client: pg.Pool }).$client;
 
@@ -35,7 +45,12 @@ function createLimit(deps: AppDeps, spec: LimitSpec): RequestHandler {
     limit: spec.limit,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
-    store: new PostgresRateLimitStore(poolOf(deps), spec.name),
+    store: spec.localShare
+      ? new LocalFirstRateLimitStore(
+          new PostgresRateLimitStore(poolOf(deps), spec.name),
+          spec.localShare,
+        )
+      : new PostgresRateLimitStore(poolOf(deps), spec.name),
     keyGenerator: (req) => spec.key(req) ?? '',
     skip: (req) => spec.key(req) === null,
     skipSuccessfulRequests: spec.failuresOnly ?? false,
@@ -112,6 +127,7 @@ export function respondentStartLimit(deps: AppDeps): RequestHandler {
     name: 'respondent-start:address',
     limit: deps.env.RESPONDENT_START_RATE_LIMIT,
     key: byAddress,
+    localShare: RESPONDENT_LOCAL_SHARE,
     message: 'Too many new sessions from this network. Try again later.',
   });
 }
@@ -134,6 +150,7 @@ export function respondentSessionLimit(deps: AppDeps): RequestHandler {
   return createLimit(deps, {
     name: 'respondent:session',
     limit: deps.env.RESPONDENT_SESSION_RATE_LIMIT,
+    localShare: RESPONDENT_LOCAL_SHARE,
     key: (req) => {
       const token = req.get(RESPONDENT_TOKEN_HEADER);
       return token ? `session:${token}` : null;

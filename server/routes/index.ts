@@ -31,6 +31,9 @@ import { createStudyImportsRouter } from './study-imports';
 
 export function mountApiRoutes(api: Router, deps: AppDeps): void {
   api.use('/health', createHealthRouter(deps));
+  // First after health: a panel launch sends hundreds of respondent requests a second, and
+  // Express tries the mounts in order (no other mount begins with /r, so order is free here).
+  api.use('/r/:publicId', createRespondRouter(deps));
   api.use('/auth', createAuthRouter(deps));
   api.use('/account', createAccountRouter(deps));
   api.use('/invitations', createInvitationsRouter(deps));
@@ -47,7 +50,6 @@ export function mountApiRoutes(api: Router, deps: AppDeps): void {
   api.use('/teams/:teamId/studies/:studyId/exports', createExportsRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/runs', createRunsRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/preview', createPreviewRouter(deps));
-  api.use('/r/:publicId', createRespondRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/questionnaire', createQuestionnaireRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/lifecycle', createLifecycleRouter(deps));
   api.use('/teams/:teamId/studies/:studyId/texts', createStudyTextsRouter(deps));

@@ -128,13 +128,22 @@ export async function createRespondent(
     seed?: number;
     startedAt?: Date;
     simulatedTruth?: unknown;
+    /** db is the pool, not a transaction (lets the block counter skip the flush wait). */
+    standalone?: boolean;
+    /** The study's latest version when the caller has just read it (else it is read here). */
+    latestVersionId?: string | null;
   },
 ): Promise<{ respondent: RespondentRow; sessionToken: string }> {
-  const latest = await getLatestVersionId(db, { studyId: params.studyId });
-  if (!latest) throw new AppError(409, 'survey_not_open', 'This survey is not open yet.');
-  const version = await loadFrozenVersion(db, { id: latest.id, studyId: params.studyId });
+  const latestId =
+    params.latestVersionId ?? (await getLatestVersionId(db, { studyId: params.studyId }))?.id;
+  if (!latestId) throw new AppError(409, 'survey_not_open', 'This survey is not open yet.');
+  const version = await loadFrozenVersion(db, { id: latestId, studyId: params.studyId });
   const language = languageFromLink(version, params.language);
-  const block = await assignBlock(db, { versionId: version.id, blocks: version.design.blocks });
+  const block = await assignBlock(db, {
+    versionId: version.id,
+    blocks: version.design.blocks,
+    standalone: params.standalone,
+  });
   try {
     const plan = createRespondentPlan({
       ...version,
@@ -244,6 +253,8 @@ export async function startSession(
       ...identity,
       device: input.device,
       language: input.params.lang,
+      standalone: true,
+      latestVersionId: study.latestVersionId,
     });
     return open(respondent, { isNew: true });
   } catch (err) {

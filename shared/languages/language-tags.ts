@@ -48,21 +48,38 @@ export function languageName(tag: string): string {
   return name ? `${name} (${tag})` : tag;
 }
 
+/**
+ * Remembers a function of a language tag: building Intl objects costs far more than a lookup,
+ * and every respondent session names its languages again. Bounded, as tags come from links.
+ */
+function perTag<T>(of: (tag: string) => T): (tag: string) => T {
+  const known = new Map<string, T>();
+  return (tag) => {
+    let value = known.get(tag);
+    if (value === undefined) {
+      value = of(tag);
+      if (known.size >= 500) known.clear();
+      known.set(tag, value);
+    }
+    return value;
+  };
+}
+
 /** The language's own name for itself ("Deutsch", "العربية"), for the respondent's chooser. */
-export function nativeLanguageName(tag: string): string {
+export const nativeLanguageName = perTag((tag: string): string => {
   try {
     return new Intl.DisplayNames([tag], { type: 'language', fallback: 'code' }).of(tag) ?? tag;
   } catch {
     return tag;
   }
-}
+});
 
 /** 'rtl' for languages whose (likely) script is written right to left. */
-export function textDirection(tag: string): 'ltr' | 'rtl' {
+export const textDirection = perTag((tag: string): 'ltr' | 'rtl' => {
   try {
     const script = new Intl.Locale(tag).maximize().script;
     return script && RTL_SCRIPTS.has(script) ? 'rtl' : 'ltr';
   } catch {
     return 'ltr';
   }
-}
+});

@@ -4,8 +4,8 @@
  * its owner, the demo study, and ensureDemoResponses' first-run result and time.
  */
 import { createTestApp, type TestApp } from './test-app';
-import { ensureDemoStudy } from '../../db/seed/demo-study';
-import { ensureDemoResponses } from '../../db/seed/demo-responses';
+import { ensureDemoStudy } from '../../server/seed/demo-study';
+import { ensureDemoResponses } from '../../server/seed/demo-responses';
 import { insertUser } from '../../db/queries/users';
 import { insertMembership, insertTeam } from '../../db/queries/memberships';
 

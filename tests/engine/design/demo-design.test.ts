@@ -6,7 +6,7 @@
  * engine's tables: with fixed priors a sign is known whenever the prior is not zero.
  */
 import { describe, expect, it } from 'vitest';
-import { demoDefinition, getDemoDesignSpec } from '../../../db/seed/demo-study';
+import { demoDefinition, getDemoDesignSpec } from '../../../server/seed/demo-study';
 import { generateDesign } from '../../../server/engine/design/generate-design';
 
 /** Utility of each level under the demo priors, per attribute (signs are what matter). */

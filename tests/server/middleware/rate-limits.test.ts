@@ -109,6 +109,45 @@ describe('respondent limits', () => {
     expect((await answer(calm)).status).not.toBe(429);
   });
 
+  it('write nothing to the shared counters while a session stays far below its limit', async () => {
+    const roomy = await createTestApp({ RESPONDENT_SESSION_RATE_LIMIT: '600' });
+    try {
+      const written = async () =>
+        (
+          await roomy.deps.db.execute<{ n: number }>(
+            "select count(*)::int as n from rate_limit_counters where key like 'respondent:session:%'" as never,
+          )
+        ).rows[0].n;
+      const token = randomBytes(24).toString('base64url');
+      for (let i = 0; i < 20; i++)
+        await supertest(roomy.app)
+          .get('/api/r/AbCdEfGh12/session')
+          .set('X-Respondent-Token', token);
+      expect(await written()).toBe(0);
+    } finally {
+      await roomy.close();
+    }
+  });
+
+  it('count per session token across two API instances, refusing by the limit plus one budget', async () => {
+    const second = createApp(t.deps);
+    const token = randomBytes(24).toString('base64url');
+    const statuses: number[] = [];
+    for (let i = 0; i < 8; i++)
+      statuses.push(
+        (
+          await supertest(i % 2 ? second : t.app)
+            .get('/api/r/AbCdEfGh12/session')
+            .set('X-Respondent-Token', token)
+        ).status,
+      );
+    // Limit 5, a local budget of ⌊5/4⌋ = 1 hit per instance: refused from the 7th hit at the latest.
+    const firstRefused = statuses.indexOf(429);
+    expect(firstRefused).toBeGreaterThanOrEqual(5);
+    expect(firstRefused).toBeLessThanOrEqual(6);
+    expect(statuses.slice(firstRefused).every((s) => s === 429)).toBe(true);
+  });
+
   it('count session starts per personal link token', async () => {
     const start = (inv: string) =>
       supertest(t.app)

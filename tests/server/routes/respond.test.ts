@@ -435,3 +435,18 @@ describe('rate limit on starting sessions', () => {
     }
   });
 });
+
+describe('compression on the respondent routes', () => {
+  it('compresses the session (the whole questionnaire), and stores answers whose receipt goes out plain', async () => {
+    const s = await liveStudy();
+    const started = await start(s.publicId).set('Accept-Encoding', 'gzip').expect(201);
+    expect(started.headers['content-encoding']).toBe('gzip');
+    const first = started.body.screens[0];
+    const res = await answer(s.publicId, started.body.sessionToken, answerFor(first))
+      .set('Accept-Encoding', 'gzip')
+      .expect(201);
+    expect(res.headers['content-encoding']).toBeUndefined();
+    expect(res.body).toMatchObject({ screenKey: first.key, replay: false });
+    expect((await rowsOf(started.body.sessionToken)).answers).toHaveLength(1);
+  });
+});

@@ -7,7 +7,9 @@
  * study, a completion under a quota, an ended session, a respondent this process does not know.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { and, eq } from 'drizzle-orm';
+import { and, eq, sql } from 'drizzle-orm';
+import { createDb, type DbOrTx } from '../../../db/client';
+import { assignBlock } from '../../../db/queries/respondent-blocks';
 import { createTestApp, type TestApp } from '../../support/test-app';
 import { signUpOwner } from '../../support/factories';
 import { answers, respondentBlockCounts, respondents } from '../../../db/schema/fieldwork';
@@ -66,6 +68,44 @@ describe('block assignment', () => {
     );
     const perBlock = [1, 2].map((b) => made.filter((m) => m.respondent.block === b).length);
     expect(perBlock).toEqual([20, 20]);
+  });
+
+  it('stays balanced when the counter commits without waiting for the log flush (session starts)', async () => {
+    const studyId = await liveStudy();
+    const made = await Promise.all(
+      Array.from({ length: 40 }, () => createRespondent(t.deps.db, { studyId, standalone: true })),
+    );
+    const perBlock = [1, 2].map((b) => made.filter((m) => m.respondent.block === b).length);
+    expect(perBlock).toEqual([20, 20]);
+  });
+
+  it("skips the flush wait only for its own statement, never for a caller's transaction", async () => {
+    const studyId = await liveStudy();
+    const { respondent } = await createRespondent(t.deps.db, { studyId });
+    const target = { versionId: respondent.versionId, blocks: 2 };
+    const setting = async (db: DbOrTx) =>
+      (await db.execute<{ v: string }>(sql`select current_setting('synchronous_commit') as v`))
+        .rows[0].v;
+    // One connection, so the statement after the assignment runs where the assignment ran.
+    const one = createDb(t.testDb.url, 1);
+    try {
+      await assignBlock(one.db, { ...target, standalone: true });
+      expect(await setting(one.db)).toBe('on');
+      await one.db
+        .transaction(async (tx) => {
+          await assignBlock(tx, { ...target, standalone: true });
+          // The mechanism: set for the rest of the (here explicit) transaction only.
+          expect(await setting(tx)).toBe('off');
+          tx.rollback();
+        })
+        .catch(() => {});
+      await one.db.transaction(async (tx) => {
+        await assignBlock(tx, target);
+        expect(await setting(tx)).toBe('on');
+      });
+    } finally {
+      await one.pool.end();
+    }
   });
 
   it('gives the place back when a respondent is screened out, so the next start takes it', async () => {

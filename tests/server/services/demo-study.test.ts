@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, type TestApp } from '../../support/test-app';
 import { signUpOwner } from '../../support/factories';
-import { ensureDemoStudy, DEMO_STUDY_NAME } from '../../../db/seed/demo-study';
+import { ensureDemoStudy, DEMO_STUDY_NAME } from '../../../server/seed/demo-study';
 import { getStudyById } from '../../../db/queries/studies';
 import { getDesignById } from '../../../db/queries/designs';
 import type { Design } from '../../../shared/schemas/design';

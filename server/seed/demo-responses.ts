@@ -5,23 +5,23 @@
  * client-made ids, then the study is closed. Idempotent: a closed study with the full panel is
  * left alone; an interrupted earlier run is removed and redone.
  */
-import type { Db } from '../client';
-import type { AppDeps } from '../../server/deps';
-import { closeStudy, goLive } from '../../server/services/lifecycle';
-import { createRespondent } from '../../server/services/respondent-session';
-import { saveAnswer } from '../../server/services/answers';
-import { resetBlockCounts } from '../queries/respondent-blocks';
-import { deleteTombstones } from '../queries/erasure';
-import { saveQuestionnaire } from '../../server/services/questionnaire';
-import { buildScreens, loadFrozenVersion } from '../../server/services/respondent-screens';
-import { createRespondentPlan } from '../../server/services/respondent-plan';
-import { createSeededRandom } from '../../server/engine/design/seeded-random';
-import { getLatestVersion } from '../queries/versions';
+import type { Db } from '../../db/client';
+import type { AppDeps } from '../deps';
+import { closeStudy, goLive } from '../services/lifecycle';
+import { createRespondent } from '../services/respondent-session';
+import { saveAnswer } from '../services/answers';
+import { resetBlockCounts } from '../../db/queries/respondent-blocks';
+import { deleteTombstones } from '../../db/queries/erasure';
+import { saveQuestionnaire } from '../services/questionnaire';
+import { buildScreens, loadFrozenVersion } from '../services/respondent-screens';
+import { createRespondentPlan } from '../services/respondent-plan';
+import { createSeededRandom } from '../engine/design/seeded-random';
+import { getLatestVersion } from '../../db/queries/versions';
 import {
   countSimulatedRespondents,
   deleteSimulatedRespondents,
   getStudyForSeed,
-} from '../queries/responses';
+} from '../../db/queries/responses';
 import { createPage, demoQuestionnaire } from '../../shared/schemas/questionnaire-defaults';
 import { questionnaireSchema } from '../../shared/schemas/questionnaire';
 import {

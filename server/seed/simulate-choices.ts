@@ -4,7 +4,7 @@
  * choice adds independent standard Gumbel errors (Train 2009, ch. 3 and 6). Everything is a
  * pure function of seeds, so tests can replay every stored choice.
  */
-import { createSeededRandom, type SeededRandom } from '../../server/engine/design/seeded-random';
+import { createSeededRandom, type SeededRandom } from '../engine/design/seeded-random';
 import type { StudyDefinition } from '../../shared/schemas/study-definition';
 import type { DisplayAlternative } from '../../shared/schemas/respondent';
 

@@ -8,11 +8,11 @@
  */
 import { and, eq } from 'drizzle-orm';
 import { nanoid } from 'nanoid';
-import type { DbOrTx } from '../client';
-import { studies } from '../schema/studies';
-import { insertDesign } from '../queries/designs';
-import { insertStudy, updateStudy } from '../queries/studies';
-import { generateDesign } from '../../server/engine/design/generate-design';
+import type { DbOrTx } from '../../db/client';
+import { studies } from '../../db/schema/studies';
+import { insertDesign } from '../../db/queries/designs';
+import { insertStudy, updateStudy } from '../../db/queries/studies';
+import { generateDesign } from '../engine/design/generate-design';
 import { getCodedColumns } from '../../shared/engine/coding/coded-columns';
 import { studyDefinitionSchema, type StudyDefinition } from '../../shared/schemas/study-definition';
 import type { DesignSpecInput } from '../../shared/schemas/design-spec';

@@ -1,6 +1,6 @@
 /**
- * Demo recovery (run by tests/db/seed/demo-data.test.ts on the demo it seeds once): the seeded demo study (about 400 synthetic respondents simulated from a
- * known panel mixed logit, DEMO_TRUTH in db/seed/simulate-choices.ts) is estimated through
+ * Demo recovery (run by tests/server/seed/demo-data.test.ts on the demo it seeds once): the seeded demo study (about 400 synthetic respondents simulated from a
+ * known panel mixed logit, DEMO_TRUTH in server/seed/simulate-choices.ts) is estimated through
  * the product's own path (data preparation from the database, the estimation job) with the
  * true model's specification. As an analyst would, respondents flagged as speeders or as
  * always choosing the same position are excluded first through the Responses service: the
@@ -24,18 +24,18 @@
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { respondents } from '../../db/schema/fieldwork';
-import { listRunProfiles } from '../../db/queries/taste-profiles';
-import { getRunForJob } from '../../db/queries/runs';
-import { createRun } from '../../server/services/runs';
-import { excludeFlagged } from '../../server/services/responses';
-import { runEstimationJob } from '../../server/jobs/estimation-job';
-import { DEMO_TRUTH } from '../../db/seed/demo-responses';
-import { mapDemoDefinition, type SimulatedTruth } from '../../db/seed/simulate-choices';
-import { studyDefinitionSchema } from '../../shared/schemas/study-definition';
-import type { RunResult } from '../../shared/schemas/run';
-import { getStudyById } from '../../db/queries/studies';
-import type { DemoWorld } from '../support/demo-world';
+import { respondents } from '../../../db/schema/fieldwork';
+import { listRunProfiles } from '../../../db/queries/taste-profiles';
+import { getRunForJob } from '../../../db/queries/runs';
+import { createRun } from '../../../server/services/runs';
+import { excludeFlagged } from '../../../server/services/responses';
+import { runEstimationJob } from '../../../server/jobs/estimation-job';
+import { DEMO_TRUTH } from '../../../server/seed/demo-responses';
+import { mapDemoDefinition, type SimulatedTruth } from '../../../server/seed/simulate-choices';
+import { studyDefinitionSchema } from '../../../shared/schemas/study-definition';
+import type { RunResult } from '../../../shared/schemas/run';
+import { getStudyById } from '../../../db/queries/studies';
+import type { DemoWorld } from '../../support/demo-world';
 
 function pearson(x: number[], y: number[]): number {
   const n = x.length;

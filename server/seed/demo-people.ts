@@ -3,7 +3,7 @@
  * their device, how fast they answer, where drop-outs stop, and their background answers.
  * Pure functions of seeds (invented figures; plausible, not calibrated to any survey).
  */
-import { createSeededRandom, type SeededRandom } from '../../server/engine/design/seeded-random';
+import { createSeededRandom, type SeededRandom } from '../engine/design/seeded-random';
 import type { AnswerValue, RespondentScreen } from '../../shared/schemas/respondent';
 import {
   DEMO_TRUTH,

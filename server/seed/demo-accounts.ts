@@ -5,10 +5,10 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { randomBytes } from 'node:crypto';
-import { hashPassword } from '../../server/lib/passwords';
+import { hashPassword } from '../lib/passwords';
 import { eq, sql } from 'drizzle-orm';
-import type { Db } from '../client';
-import { memberships, teams, users } from '../schema/accounts';
+import type { Db } from '../../db/client';
+import { memberships, teams, users } from '../../db/schema/accounts';
 import type { Role } from '../../shared/permissions';
 
 export const DEMO_TEAM_NAME = 'Larkspur Valley Water';

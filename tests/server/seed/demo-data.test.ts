@@ -6,7 +6,7 @@
 import { afterAll, beforeAll } from 'vitest';
 import { seedDemoWorld, type DemoWorld } from '../../support/demo-world';
 import { describeDemoResponses } from './demo-responses-checks';
-import { describeDemoRecovery } from '../demo-recovery-checks';
+import { describeDemoRecovery } from './demo-recovery-checks';
 
 let world: DemoWorld;
 beforeAll(async () => {

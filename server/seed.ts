@@ -3,11 +3,11 @@
  * nothing that is already there). Prints the demo sign-ins.
  */
 import path from 'node:path';
-import { createDb, migrateDb } from './client';
+import { createDb, migrateDb } from '../db/client';
 import { seedDemoAccounts } from './seed/demo-accounts';
 import { ensureDemoStudy } from './seed/demo-study';
 import { ensureDemoResponses } from './seed/demo-responses';
-import { loadEnv } from '../server/env';
+import { loadEnv } from './env';
 
 async function main() {
   const env = loadEnv();

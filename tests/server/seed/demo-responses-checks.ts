@@ -1,5 +1,5 @@
 /**
- * Checks of the demo seed (ensureDemoResponses), run by tests/db/seed/demo-data.test.ts on the
+ * Checks of the demo seed (ensureDemoResponses), run by tests/server/seed/demo-data.test.ts on the
  * demo it seeds once (tests/support/demo-world.ts).
  */
 import { beforeAll, describe, expect, it } from 'vitest';
@@ -10,8 +10,8 @@ import {
   mapDemoDefinition,
   simulateChoice,
   type SimulatedTruth,
-} from '../../../db/seed/simulate-choices';
-import { ensureDemoResponses } from '../../../db/seed/demo-responses';
+} from '../../../server/seed/simulate-choices';
+import { ensureDemoResponses } from '../../../server/seed/demo-responses';
 import { answers, respondents } from '../../../db/schema/fieldwork';
 import { studies } from '../../../db/schema/studies';
 import { buildScreens, loadFrozenVersion } from '../../../server/services/respondent-screens';

@@ -1,6 +1,7 @@
 /**
  * Worker of `npm run bench:hb`: runs one HB chain (MNL start, then the sampler) with the current
- * respondent layer or the previous one, so that both are timed the same way in one run. Only the
+ * respondent kernel (WebAssembly SIMD where it runs) or the previous one (the TypeScript kernel,
+ * the same chain draw for draw), so that both are timed the same way in one run. Only the
  * benchmark loads this file; the app's chains run in server/engine/parallel/hb-worker.ts.
  */
 import { move, transferableSymbol, valueSymbol } from 'piscina';
@@ -10,7 +11,6 @@ import { getTransferables } from '../../server/engine/hb/hb-chain-result';
 import { getHbStart } from '../../server/engine/hb/hb-start';
 import { createIndividualStep } from '../../server/engine/hb/individual-step';
 import { runHbChain } from '../../server/engine/hb/run-hb-chain';
-import { createReferenceIndividualStep } from './hb-reference-individual-step';
 
 export interface HbBenchMessage {
   kernel: 'current' | 'previous';
@@ -22,7 +22,8 @@ export interface HbBenchMessage {
 export async function runBenchChain(msg: HbBenchMessage): Promise<unknown> {
   const opts = checkHbOptions(msg.data, { ...msg.options, threads: 1 });
   const start = await getHbStart(msg.data, opts.layout, msg.chain, opts.seed);
-  const step = msg.kernel === 'previous' ? createReferenceIndividualStep : createIndividualStep;
-  const result = runHbChain(msg.data, opts, msg.chain, start, {}, step);
+  const result = runHbChain(msg.data, opts, msg.chain, start, {}, (data, layout, alpha) =>
+    createIndividualStep(data, layout, alpha, msg.kernel === 'previous' ? 'typescript' : 'auto'),
+  );
   return move({ [transferableSymbol]: getTransferables(result), [valueSymbol]: result } as never);
 }

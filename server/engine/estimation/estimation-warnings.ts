@@ -11,7 +11,9 @@ export interface EstimationWarning {
     | 'not_converged'
     | 'starts_disagree'
     | 'wtp_withheld'
-    | 'simulation_noise';
+    | 'simulation_noise'
+    | 'membership_separated'
+    | 'no_standard_errors';
   message: string;
   parameters?: string[];
   tasks?: string[];

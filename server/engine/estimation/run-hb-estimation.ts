@@ -121,6 +121,7 @@ export async function runHbEstimation(
       iterations: used.iterations,
       burnin: used.burnin,
       thin: used.thin,
+      steps: used.steps,
       chains: used.chains,
       seed: used.seed,
       keptPerChain: used.retained,

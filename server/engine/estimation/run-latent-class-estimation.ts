@@ -83,6 +83,7 @@ export async function runLatentClassEstimation(
     profileDraws: null,
     classes: fit.classes,
     classSelection: fit.table,
+    ...(fit.warnings.length > 0 ? { warnings: fit.warnings } : {}),
     membership: fit.options.membership,
   };
 }

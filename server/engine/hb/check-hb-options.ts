@@ -6,6 +6,7 @@
  * Choice Methods with Simulation, §12.5). K counts the random coefficients. The priors act on the
  * coefficients as coded: rescaling an attribute rescales its coefficient against the prior.
  */
+import { HB_DEFAULTS } from '../../../shared/schemas/estimation-families';
 import type { ChoiceData } from '../estimation/choice-data';
 import { EstimationOptionsError } from '../estimation/estimation-errors';
 import { checkHoldout, resolveCostIndex } from '../estimation/shared-option-checks';
@@ -46,12 +47,14 @@ export interface HbOptions {
   coefficients: HbCoefficientSpec[];
   /** Full covariance Σ (true) or a diagonal one (default false). */
   correlated?: boolean;
-  /** Iterations per chain, burn-in included (default 20000). */
+  /** Iterations per chain, burn-in included (default HB_DEFAULTS). */
   iterations?: number;
   /** Burn-in iterations per chain, during which the proposal adapts (default iterations / 2). */
   burnin?: number;
-  /** Keep every thin-th draw after burn-in (default 10). */
+  /** Keep every thin-th draw after burn-in (default HB_DEFAULTS). */
   thin?: number;
+  /** Random-walk MH steps per respondent per iteration (default HB_DEFAULTS). */
+  steps?: number;
   /** Independent chains, each with its own seed stream (default 2). */
   chains?: number;
   /** Seed of chain 1; chain c uses the stream c of the same seed (default 1). */
@@ -82,6 +85,7 @@ export interface CheckedHbOptions {
   iterations: number;
   burnin: number;
   thin: number;
+  steps: number;
   chains: number;
   seed: number;
   priors: {
@@ -204,13 +208,15 @@ export function checkHbOptions(data: ChoiceData, options: HbOptions): CheckedHbO
       'correlated needs at least two random coefficients',
       'correlated',
     );
-  const iterations = options.iterations ?? 20_000;
+  const iterations = options.iterations ?? HB_DEFAULTS.iterations;
   assertInteger(iterations, 'mcmc.iterations', 100, 2_000_000);
   const burnin = options.burnin ?? Math.floor(iterations / 2);
   assertInteger(burnin, 'mcmc.burnin', 0, iterations - 1);
-  const thin = options.thin ?? 10;
+  const thin = options.thin ?? HB_DEFAULTS.thin;
   assertInteger(thin, 'mcmc.thin', 1, 10_000);
-  const chains = options.chains ?? 2;
+  const steps = options.steps ?? HB_DEFAULTS.steps;
+  assertInteger(steps, 'mcmc.steps', 1, 50);
+  const chains = options.chains ?? HB_DEFAULTS.chains;
   assertInteger(chains, 'mcmc.chains', 1, 16);
   const seed = options.seed ?? 1;
   assertInteger(seed, 'mcmc.seed', 0, 2 ** 31 - 1);
@@ -237,6 +243,7 @@ export function checkHbOptions(data: ChoiceData, options: HbOptions): CheckedHbO
     iterations,
     burnin,
     thin,
+    steps,
     chains,
     seed,
     priors: checkPriors(options.priors, Kr),

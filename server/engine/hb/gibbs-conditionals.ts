@@ -24,6 +24,8 @@ export interface GibbsWorkspace {
   b: Float64Array;
   c: Float64Array;
   v: Float64Array;
+  /** N × K deviations α_n − μ, sized on first use. */
+  deviations: Float64Array;
   wishart: WishartWorkspace;
 }
 
@@ -34,6 +36,7 @@ export function createGibbsWorkspace(K: number): GibbsWorkspace {
     b: new Float64Array(K * K),
     c: new Float64Array(K * K),
     v: new Float64Array(K),
+    deviations: new Float64Array(0),
     wishart: createWishartWorkspace(K),
   };
 }
@@ -94,13 +97,31 @@ export function drawPopulationCovariance(
   sigmaInv: Float64Array,
   ws: GibbsWorkspace,
 ): boolean {
-  const { K, a: psi, v: dev } = ws;
+  const { K, a: psi } = ws;
+  if (ws.deviations.length < N * K) ws.deviations = new Float64Array(N * K);
+  const dev = ws.deviations;
+  for (let n = 0; n < N; n++) for (let k = 0; k < K; k++) dev[n * K + k] = alpha[n * K + k] - mu[k];
   psi.fill(0);
-  for (let n = 0; n < N; n++) {
-    for (let k = 0; k < K; k++) dev[k] = alpha[n * K + k] - mu[k];
-    if (correlated) {
-      for (let i = 0; i < K; i++) for (let j = 0; j <= i; j++) psi[i * K + j] += dev[i] * dev[j];
-    } else for (let k = 0; k < K; k++) psi[k * K + k] += dev[k] * dev[k];
+  // Each entry of S sums its N products in respondent order (as a running sum over respondents
+  // would), but in a register: two entries per pass over the deviations.
+  for (let i = 0; i < K; i++) {
+    let j = correlated ? 0 : i;
+    for (; j + 1 <= i; j += 2) {
+      let s0 = 0;
+      let s1 = 0;
+      for (let o = 0; o < N * K; o += K) {
+        const d = dev[o + i];
+        s0 += d * dev[o + j];
+        s1 += d * dev[o + j + 1];
+      }
+      psi[i * K + j] = s0;
+      psi[i * K + j + 1] = s1;
+    }
+    if (j === i) {
+      let s = 0;
+      for (let o = 0; o < N * K; o += K) s += dev[o + i] * dev[o + i];
+      psi[i * K + i] = s;
+    }
   }
   if (!correlated) {
     sigma.fill(0);

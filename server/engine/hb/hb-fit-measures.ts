@@ -11,9 +11,10 @@ import { fillUniformDraws, getMaxDrawDimensions } from '../draws/uniform-draws';
 import { choleskyDecompose } from '../linalg/cholesky';
 import type { ChoiceData } from '../estimation/choice-data';
 import { computeTaskProbabilities, scoreTaskHit } from '../estimation/score-task-hit';
+import { buildRespondentDesign } from './respondent-design';
+import { createRespondentShiftKernel } from './respondent-shift-kernel';
 import type { HbLayout } from './check-hb-options';
 import { toBeta } from './individual-step';
-import { computeRespondentLoglik, getMaxRespondentRows } from './respondent-logit-loglik';
 
 export interface HbPopulationFit {
   loglik: number;
@@ -52,59 +53,60 @@ function simulate(
   if (!choleskyDecompose(population.sigma, Kr, L)) return { loglik: NaN, hitRate: NaN };
   const type = Kr <= getMaxDrawDimensions('halton') ? 'halton' : 'mlhs';
   const u = new Float64Array(Kr * DRAWS);
-  const betas = new Float64Array(DRAWS * K);
   const z = new Float64Array(Kr);
   const ll = new Float64Array(DRAWS);
-  const work = new Float64Array(getMaxRespondentRows(data));
-  let maxRows = 1;
-  for (let t = 0; t + 1 < data.diffStart.length; t++)
-    maxRows = Math.max(maxRows, data.diffStart[t + 1] - data.diffStart[t]);
-  const others = new Float64Array(maxRows);
-  const mean = new Float64Array(maxRows + 1);
+  // All K columns in coefficient order, utilities from 0: the sums of computeRespondentLoglik.
+  const all = Int32Array.from({ length: K }, (_, k) => k);
+  const design = buildRespondentDesign(data, { ...layout, random: all, fixed: new Int32Array(0) });
+  const kernel = createRespondentShiftKernel(data, design, K, 0);
+  const beta = kernel.delta;
+  const { exps, denominators } = kernel;
+  // Per respondent: the summed probabilities of each row (non-chosen alternatives) and of each
+  // task's chosen alternative over the draws.
+  const rowSum = new Float64Array(design.maxRows);
+  let maxTasks = 1;
+  for (let n = 0; n < N; n++)
+    maxTasks = Math.max(maxTasks, data.taskStart[n + 1] - data.taskStart[n]);
+  const chosenSum = new Float64Array(maxTasks);
   let total = 0;
   let hits = 0;
   for (let n = 0; n < N; n++) {
+    const firstTask = data.taskStart[n];
+    const T = data.taskStart[n + 1] - firstTask;
+    const first = data.diffStart[firstTask];
+    rowSum.fill(0);
+    chosenSum.fill(0);
     fillUniformDraws({ type, count: DRAWS, dimensions: Kr, seed }, n, 1, u);
     for (let r = 0; r < DRAWS; r++) {
-      const o = r * K;
-      for (let f = 0; f < fixed.length; f++) betas[o + fixed[f]] = population.fixed[f];
+      for (let f = 0; f < fixed.length; f++) beta[fixed[f]] = population.fixed[f];
       for (let j = 0; j < Kr; j++) z[j] = inverseNormal(u[j * DRAWS + r]);
       for (let i = 0; i < Kr; i++) {
         let a = population.mu[i];
         for (let j = 0; j <= i; j++) a += L[i * Kr + j] * z[j];
-        betas[o + random[i]] = toBeta(transform[random[i]], a);
+        beta[random[i]] = toBeta(transform[random[i]], a);
       }
-      ll[r] = computeRespondentLoglik(
-        data.diffs,
-        data.diffStart,
-        data.taskStart,
-        n,
-        K,
-        betas,
-        o,
-        work,
-      );
+      ll[r] = kernel.shiftedLoglik(n, false);
+      // The same draw's logit probabilities: e^{v_j}/d_t, and 1/d_t for the chosen alternative.
+      for (let t = 0; t < T; t++) {
+        const d = denominators[t];
+        chosenSum[t] += 1 / d;
+        for (
+          let i = data.diffStart[firstTask + t] - first;
+          i < data.diffStart[firstTask + t + 1] - first;
+          i++
+        )
+          rowSum[i] += exps[i] / d;
+      }
     }
     let max = -Infinity;
     for (let r = 0; r < DRAWS; r++) max = Math.max(max, ll[r]);
     let sum = 0;
     for (let r = 0; r < DRAWS; r++) sum += Math.exp(ll[r] - max);
     total += max + Math.log(sum / DRAWS);
-    for (let t = data.taskStart[n]; t < data.taskStart[n + 1]; t++) {
-      const rows = data.diffStart[t + 1] - data.diffStart[t];
-      mean.fill(0);
-      for (let r = 0; r < DRAWS; r++) {
-        mean[maxRows] += computeTaskProbabilities(
-          data.diffs,
-          data.diffStart[t],
-          rows,
-          K,
-          betas.subarray(r * K, (r + 1) * K),
-          others,
-        );
-        for (let j = 0; j < rows; j++) mean[j] += others[j];
-      }
-      hits += scoreTaskHit(mean, rows, mean[maxRows]);
+    for (let t = 0; t < T; t++) {
+      const at = data.diffStart[firstTask + t] - first;
+      const rows = data.diffStart[firstTask + t + 1] - first - at;
+      hits += scoreTaskHit(rowSum.subarray(at, at + rows), rows, chosenSum[t]);
     }
   }
   const T = data.diffStart.length - 1;

@@ -14,15 +14,24 @@ import { HB_LOGNORMAL, HB_NEG_LOGNORMAL, type HbLayout } from './check-hb-option
 import { createProposalWorkspace, proposeRandomWalk } from './random-walk-proposal';
 import { buildRespondentDesign, shiftUtilities } from './respondent-design';
 import { computeLoglikOfUtilities } from './respondent-logit-loglik';
+import {
+  createRespondentShiftKernel,
+  type RespondentKernelPreference,
+} from './respondent-shift-kernel';
 
 /** The respondent layer as the chain (run-hb-chain.ts) and the fixed step (fixed-step.ts) use it. */
 export interface IndividualStep {
   /** N × Kr current α_n (random coefficients). */
   readonly alpha: Float64Array;
+  /** Which kernel computes the proposals' likelihoods (the previous layers leave it out). */
+  readonly kernel?: 'simd' | 'typescript';
   /** Kf current fixed coefficients. */
   readonly fixedAlpha: Float64Array;
-  /** One MH sweep over respondents at (μ, Σ = LLᵀ); returns how many moved. */
-  step(mu: Float64Array, L: Float64Array, rho: number, prng: Prng): number;
+  /**
+   * One MH sweep over respondents at (μ, Σ = LLᵀ), `steps` proposals per respondent in a row
+   * (default 1); returns how many proposals were accepted.
+   */
+  step(mu: Float64Array, L: Float64Array, rho: number, prng: Prng, steps?: number): number;
   /** Σ_n ln P(y_n | α_n, fixed = candidate), keeping the candidate for acceptFixed. */
   proposeFixed(candidate: Float64Array): number;
   /** Makes the last proposeFixed candidate the current fixed coefficients. */
@@ -36,6 +45,7 @@ export type IndividualStepFactory = (
   data: ChoiceData,
   layout: HbLayout,
   start: Float64Array,
+  preference?: RespondentKernelPreference,
 ) => IndividualStep;
 
 /** β of an α under a coefficient's transform. */
@@ -50,6 +60,7 @@ export function createIndividualStep(
   data: ChoiceData,
   layout: HbLayout,
   start: Float64Array,
+  preference: RespondentKernelPreference = 'auto',
 ): IndividualStep {
   const { transform, random, fixed } = layout;
   const Kr = random.length;
@@ -58,6 +69,8 @@ export function createIndividualStep(
   const { diffStart, taskStart } = data;
   const design = buildRespondentDesign(data, layout);
   const { rowStart } = design;
+  const kernel = createRespondentShiftKernel(data, design, Kr, Kf, preference);
+  const { v, vNew, vFixed, delta } = kernel;
   const randomTransform = Int8Array.from(random, (k) => transform[k]);
   const alpha = new Float64Array(N * Kr);
   const beta = new Float64Array(N * Kr);
@@ -67,56 +80,58 @@ export function createIndividualStep(
       beta[n * Kr + r] = toBeta(randomTransform[r], start[random[r]]);
     }
   const fixedAlpha = Float64Array.from(fixed, (k) => start[k]);
-  const v = new Float64Array(rowStart[N]);
   const ll = new Float64Array(N);
   // Scratch, sized once.
   const proposalWs = createProposalWorkspace(Kr);
   const proposal = new Float64Array(Kr);
   const betaNew = new Float64Array(Kr);
-  const delta = new Float64Array(Math.max(Kr, Kf));
-  const vNew = new Float64Array(design.maxRows);
   const candidate = new Float64Array(Kf);
-  const vFixed = Kf > 0 ? new Float64Array(rowStart[N]) : v;
   const llFixed = new Float64Array(N);
-
-  /** ln P(y_n) of respondent n's utilities stored in u from `offset`. */
-  const loglikOf = (n: number, u: Float64Array, offset: number): number =>
-    computeLoglikOfUtilities(u, offset, diffStart, taskStart[n], taskStart[n + 1]);
 
   for (let n = 0; n < N; n++) {
     const first = rowStart[n];
     const R = rowStart[n + 1] - first;
-    shiftUtilities(v, first, design.random, Kr * first, beta.subarray(n * Kr), Kr, R, v, first);
-    shiftUtilities(v, first, design.fixed, Kf * first, fixedAlpha, Kf, R, v, first);
-    ll[n] = loglikOf(n, v, first);
+    shiftUtilities(v, first, kernel.random, Kr * first, beta.subarray(n * Kr), Kr, R, v, first);
+    shiftUtilities(v, first, kernel.fixed, Kf * first, fixedAlpha, Kf, R, v, first);
+    ll[n] = computeLoglikOfUtilities(v, first, diffStart, taskStart[n], taskStart[n + 1]);
   }
+
+  /** One random-walk MH step of respondent n's α_n; true when the proposal is accepted. */
+  const moveRespondent = (
+    n: number,
+    mu: Float64Array,
+    L: Float64Array,
+    rho: number,
+    prng: Prng,
+  ): boolean => {
+    const o = n * Kr;
+    const logPrior = proposeRandomWalk(alpha, o, mu, L, Kr, rho, prng, proposal, proposalWs);
+    for (let r = 0; r < Kr; r++) {
+      betaNew[r] = toBeta(randomTransform[r], proposal[r]);
+      delta[r] = betaNew[r] - beta[o + r];
+    }
+    const llNew = kernel.shiftedLoglik(n, false);
+    if (!(Math.log(prng.nextDouble()) < llNew - ll[n] + logPrior)) return false;
+    for (let r = 0; r < Kr; r++) {
+      alpha[o + r] = proposal[r];
+      beta[o + r] = betaNew[r];
+    }
+    const first = rowStart[n];
+    const R = rowStart[n + 1] - first;
+    for (let i = 0; i < R; i++) v[first + i] = vNew[i];
+    ll[n] = llNew;
+    return true;
+  };
 
   return {
     alpha,
     fixedAlpha,
-    step(mu, L, rho, prng) {
+    kernel: kernel.kind,
+    step(mu, L, rho, prng, steps = 1) {
       let moved = 0;
       for (let n = 0; n < N; n++) {
-        const o = n * Kr;
-        const logPrior = proposeRandomWalk(alpha, o, mu, L, Kr, rho, prng, proposal, proposalWs);
-        for (let r = 0; r < Kr; r++) {
-          betaNew[r] = toBeta(randomTransform[r], proposal[r]);
-          delta[r] = betaNew[r] - beta[o + r];
-        }
-        const first = rowStart[n];
-        const R = rowStart[n + 1] - first;
-        shiftUtilities(v, first, design.random, Kr * first, delta, Kr, R, vNew, 0);
-        const llNew = loglikOf(n, vNew, 0);
-        const logRatio = llNew - ll[n] + logPrior;
-        if (Math.log(prng.nextDouble()) < logRatio) {
-          for (let r = 0; r < Kr; r++) {
-            alpha[o + r] = proposal[r];
-            beta[o + r] = betaNew[r];
-          }
-          for (let i = 0; i < R; i++) v[first + i] = vNew[i];
-          ll[n] = llNew;
-          moved++;
-        }
+        for (let repeat = 0; repeat < steps; repeat++)
+          if (moveRespondent(n, mu, L, rho, prng)) moved++;
       }
       return moved;
     },
@@ -124,12 +139,7 @@ export function createIndividualStep(
       candidate.set(values);
       for (let f = 0; f < Kf; f++) delta[f] = values[f] - fixedAlpha[f];
       let total = 0;
-      for (let n = 0; n < N; n++) {
-        const first = rowStart[n];
-        const R = rowStart[n + 1] - first;
-        shiftUtilities(v, first, design.fixed, Kf * first, delta, Kf, R, vFixed, first);
-        total += llFixed[n] = loglikOf(n, vFixed, first);
-      }
+      for (let n = 0; n < N; n++) total += llFixed[n] = kernel.shiftedLoglik(n, true);
       return total;
     },
     acceptFixed() {

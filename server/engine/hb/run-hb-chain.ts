@@ -1,6 +1,6 @@
 /**
  * One chain of the HB logit's Gibbs sampler (Allenby & Rossi 1999; Train 2009, §12.6), per
- * iteration: (1) each α_n | μ, Σ by one random-walk Metropolis–Hastings step with proposal
+ * iteration: (1) each α_n | μ, Σ by `steps` random-walk Metropolis–Hastings steps with proposal
  * α_n + ρ·chol(Σ)·z, accepted with probability min(1, P(y_n|β(α'))φ(α'|μ,Σ) / P(y_n|β(α))φ(α|μ,Σ));
  * (2) the fixed coefficients by a random-walk MH step over all respondents (Train 2009, §12.7);
  * (3) μ | α, Σ and (4) Σ | α, μ from their conjugate conditionals (gibbs-conditionals.ts).
@@ -92,7 +92,7 @@ export function runHbChain(
   let kept = 0;
   let tracePoint = 0;
   for (let it = 0; it < iterations; it++) {
-    const rate = individual.step(mu, sigmaChol, rho, prng) / N;
+    const rate = individual.step(mu, sigmaChol, rho, prng, opts.steps) / (N * opts.steps);
     const fixedMoved = fixedStep ? fixedStep.step(individual, prng) : false;
     if (!drawPopulationMean(individual.alpha, N, sigmaInv, opts.priors, prng, mu, gibbs))
       fail(chain, it, 'the posterior covariance of the population means is not positive definite');

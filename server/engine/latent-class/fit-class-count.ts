@@ -23,13 +23,23 @@ import {
   setTheta,
 } from './observed-information';
 import { runEm, type EmOutcome } from './run-em';
+import {
+  findRunOffMembership,
+  invertInformationWithout,
+  type RunOffCoefficient,
+} from './membership-separation';
 
 export interface ClassCountFit {
   C: number;
   /** Best state, or null when every start collapsed. */
   state: LatentClassState | null;
-  /** P × P inverse observed information at the best state (null if singular). */
+  /**
+   * P × P inverse observed information at the best state (null if singular); the rows and
+   * columns of run-off membership coefficients are NaN (membership-separation.ts).
+   */
   covariance: Float64Array | null;
+  /** Membership coefficients that ran off (quasi-separation). */
+  runOff: RunOffCoefficient[];
   starts: { loglik: number; iterations: number; converged: boolean; collapsed: string | null }[];
   /** LL at which the best start's EM stopped (before the Newton polish). */
   bestStartLoglik: number;
@@ -49,6 +59,7 @@ export function fitClassCount(
   C: number,
   mnl: MnlResult,
   options: { starts: number; maxIterations: number; tolerance: number; seed: number },
+  membershipNames: readonly string[],
   hooks: { onStart?: (start: number) => void; shouldStop?: () => boolean } = {},
 ): ClassCountFit {
   const K = mnl.estimates.length;
@@ -86,6 +97,7 @@ export function fitClassCount(
       C,
       state: null,
       covariance: null,
+      runOff: [],
       starts,
       bestStartLoglik: NaN,
       trace: [],
@@ -95,11 +107,18 @@ export function fitClassCount(
   const state = best.state;
   const bestStartLoglik = state.loglik;
   orderClassesByShare(data, z, state);
-  const covariance = polish(data, z, state);
+  const hess = polish(data, z, state);
+  const runOff = findRunOffMembership(state, z, N, membershipNames);
+  const covariance = invertInformationWithout(
+    hess,
+    getParameterCount(state),
+    runOff.map((r) => r.parameter),
+  );
   return {
     C,
     state,
     covariance,
+    runOff,
     starts,
     bestStartLoglik,
     trace: best.outcome.trace,
@@ -130,8 +149,8 @@ function orderClassesByShare(data: ChoiceData, z: Float64Array, state: LatentCla
   computePosteriors(data, z, state);
 }
 
-/** Newton steps on the observed LL (never lowering it); returns the inverse observed information. */
-function polish(data: ChoiceData, z: Float64Array, state: LatentClassState): Float64Array | null {
+/** Newton steps on the observed LL (never lowering it); returns the Hessian at the end. */
+function polish(data: ChoiceData, z: Float64Array, state: LatentClassState): Float64Array {
   const P = getParameterCount(state);
   let { grad, hess } = computeObservedDerivatives(data, z, state);
   for (let it = 0; it < POLISH_STEPS; it++) {
@@ -139,7 +158,9 @@ function polish(data: ChoiceData, z: Float64Array, state: LatentClassState): Flo
       hess.map((x) => -x),
       P,
     );
-    if (!inv) return null;
+    // Singular (e.g. a run-off membership coefficient): no Newton step; the caller inverts what
+    // it can.
+    if (!inv) break;
     const step = new Float64Array(P);
     let decrement = 0;
     for (let a = 0; a < P; a++) {
@@ -164,11 +185,5 @@ function polish(data: ChoiceData, z: Float64Array, state: LatentClassState): Flo
     }
     ({ grad, hess } = computeObservedDerivatives(data, z, state));
   }
-  const covariance = invertMatrix(
-    hess.map((x) => -x),
-    P,
-  );
-  if (!covariance) return null;
-  for (let p = 0; p < P; p++) if (!(covariance[p * P + p] > 0)) return null;
-  return covariance;
+  return hess;
 }

@@ -27,6 +27,33 @@ import { computeClassMixtureHitRate } from './latent-class-hit-rates';
 import { computePosteriors } from './latent-class-state';
 import { createMembershipDesign } from './membership-model';
 import { summarizeLatentClass, type LatentClassSummary } from './summarize-latent-class';
+import type { EstimationWarning } from '../estimation/estimation-warnings';
+
+/** Why standard errors of the chosen model are missing, if any are. */
+function describeStandardErrorProblems(fit: ClassCountFit): EstimationWarning[] {
+  if (fit.runOff.length > 0) {
+    const names = [...new Set(fit.runOff.map((r) => r.name))];
+    const list = fit.runOff
+      .map((r) => `${r.name} in class ${r.class} (coefficient ${r.estimate.toPrecision(3)})`)
+      .join(', ');
+    return [
+      {
+        code: 'membership_separated',
+        message: `The class membership model is quasi-separated on ${names.join(', ')}: the answers sort respondents into a class almost with certainty, so ${list} ${fit.runOff.length === 1 ? 'has' : 'have'} no finite estimate and no standard error, and the class shares have no standard errors. The other standard errors hold ${fit.runOff.length === 1 ? 'it' : 'them'} at the value shown. Leave ${names.length === 1 ? 'this background answer' : 'these background answers'} out of the membership model, merge answer options, or use fewer classes.`,
+        parameters: fit.runOff.map((r) => `class${r.class}.membership.${r.name}`),
+      },
+    ];
+  }
+  if (fit.C > 1 && !fit.covariance)
+    return [
+      {
+        code: 'no_standard_errors',
+        message:
+          'The observed information matrix is singular at the estimates, so no standard errors are given: some parameters are not identified by these data (for example two classes with nearly the same coefficients). Try fewer classes.',
+      },
+    ];
+  return [];
+}
 
 export interface LatentClassProgress {
   classes: number;
@@ -71,6 +98,8 @@ export interface LatentClassResult extends LatentClassSummary, FitStatistics {
   holdoutHitRate: number | null;
   individualHitRate: number;
   individualHoldoutHitRate: number | null;
+  /** Problems the analyst must see: run-off membership coefficients, missing SEs. */
+  warnings: EstimationWarning[];
   options: Omit<CheckedLatentClassOptions, 'holdout' | 'membership'> & { membership: string[] };
 }
 
@@ -92,7 +121,7 @@ export async function fitLatentClass(
   const fits: ClassCountFit[] = [];
   for (const C of opts.classes) {
     fits.push(
-      fitClassCount(selected, z, Mp, C, mnl, opts, {
+      fitClassCount(selected, z, Mp, C, mnl, opts, opts.membership.names, {
         onStart: (start) => {
           if (hooks.shouldStop?.()) throw new EstimationCancelledError();
           hooks.onProgress?.({ classes: C, start, starts: opts.starts });
@@ -152,6 +181,7 @@ export async function fitLatentClass(
   const { holdout: _h, membership, ...kept } = opts;
   return {
     ...summary,
+    warnings: describeStandardErrorProblems(chosen),
     classCount: C,
     table,
     loglik: state.loglik,

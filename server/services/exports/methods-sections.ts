@@ -71,6 +71,7 @@ function hbSections(ctx: RunContext): MethodsSection[] {
           ['Iterations per chain', s.iterations],
           ['Burn-in', s.burnin],
           ['Thinning', s.thin],
+          ['MH steps per respondent per iteration', s.steps ?? 1],
           ['Chains', s.chains],
           ['Kept draws per chain', s.keptPerChain],
           ['Seed', s.seed],

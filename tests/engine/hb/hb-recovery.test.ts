@@ -57,6 +57,8 @@ beforeAll(async () => {
   hb = await fitHb(data, {
     coefficients,
     iterations: 6000,
+    // One MH step per iteration, as these checks were set with (the default takes more).
+    steps: 1,
     burnin: 3000,
     thin: 5,
     chains: 2,

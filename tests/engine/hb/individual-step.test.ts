@@ -5,6 +5,10 @@
  *   log-likelihood from the row-major data (kept for the benchmark in
  *   scripts/lib/hb-reference-individual-step.ts): same seed, same draw stream, so the two chains
  *   agree draw for draw up to rounding (1e-9; both accumulate the same sums in another order).
+ * - The WebAssembly SIMD kernel of the proposals' likelihoods (respondent-shift-kernel.ts) gives
+ *   the TypeScript kernel's chain bit for bit: same sums in the same order, the same exponential
+ *   (Tang 1989, both kernels), the logarithm taken in TypeScript by both. Exact equality, no
+ *   tolerance: a speed-up must not change a seeded run.
  * - The kept log-likelihood equals ln P(y_n | β_n) recomputed from scratch (Train 2009, eq. 3.6)
  *   after many accepted moves: the increments' rounding drift stays at the 1e-12 level.
  */
@@ -15,7 +19,11 @@ import { buildChoiceData } from '../../../server/engine/estimation/build-choice-
 import { simulatePanelChoices } from '../../../server/engine/estimation/simulate-panel-choices';
 import { checkHbOptions } from '../../../server/engine/hb/check-hb-options';
 import { getHbStart } from '../../../server/engine/hb/hb-start';
-import { createIndividualStep, toBeta } from '../../../server/engine/hb/individual-step';
+import {
+  createIndividualStep,
+  toBeta,
+  type IndividualStepFactory,
+} from '../../../server/engine/hb/individual-step';
 import {
   computeRespondentLoglik,
   getMaxRespondentRows,
@@ -53,6 +61,8 @@ const options = {
   iterations: 400,
   burnin: 200,
   thin: 2,
+  // The previous layer (the reference) takes one step per respondent per iteration.
+  steps: 1,
   chains: 1,
   seed: 5,
 };
@@ -69,6 +79,26 @@ describe('HB respondent layer', () => {
     for (const key of ['mu', 'sigma', 'fixed', 'loglik'] as const)
       current[key].forEach((x, i) => expect(x).toBeCloseTo(previous[key][i], 9));
     current.betas.forEach((x, i) => expect(x).toBe(previous.betas[i]));
+  });
+
+  it('gives the TypeScript kernel’s chain bit for bit on the WebAssembly SIMD kernel', async () => {
+    const opts = checkHbOptions(data, options);
+    const start = await getHbStart(data, opts.layout, 0, opts.seed);
+    const kinds: string[] = [];
+    const withKernel =
+      (preference: 'auto' | 'typescript'): IndividualStepFactory =>
+      (d, layout, alpha) => {
+        const step = createIndividualStep(d, layout, alpha, preference);
+        kinds.push(step.kernel ?? '');
+        return step;
+      };
+    const simd = runHbChain(data, opts, 0, start, {}, withKernel('auto'));
+    const ts = runHbChain(data, opts, 0, start, {}, withKernel('typescript'));
+    expect(kinds).toEqual(['simd', 'typescript']);
+    expect(simd.acceptance).toBe(ts.acceptance);
+    expect(simd.acceptanceFixed).toBe(ts.acceptanceFixed);
+    for (const key of ['mu', 'sigma', 'fixed', 'loglik', 'betas'] as const)
+      expect(Array.from(simd[key])).toEqual(Array.from(ts[key]));
   });
 
   it('keeps each respondent’s log-likelihood equal to the one recomputed from scratch', async () => {

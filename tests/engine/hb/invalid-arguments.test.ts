@@ -57,6 +57,8 @@ describe('checkHbOptions', () => {
       /keeps 10 draws/,
     ],
     ['no chains', { ...hb, chains: 0 }, 'mcmc.chains', /between 1 and 16/],
+    ['no MH steps', { ...hb, steps: 0 }, 'mcmc.steps', /between 1 and 50/],
+    ['a fractional number of MH steps', { ...hb, steps: 2.5 }, 'mcmc.steps', /between 1 and 50/],
     ['ν at or below K − 1', { ...hb, priors: { nu: 1 } }, 'priors.nu', /exceed 1/],
     [
       'a negative prior variance',
@@ -93,9 +95,11 @@ describe('checkHbOptions', () => {
   it("fills the documented defaults, with the Rossi et al. priors and Train's as a named preset", () => {
     const opts = checkHbOptions(data, hb);
     expect(opts).toMatchObject({
-      iterations: 20000,
-      burnin: 10000,
-      thin: 10,
+      // docs/methods.md, "Hierarchical Bayes logit", Defaults.
+      iterations: 40000,
+      burnin: 20000,
+      thin: 20,
+      steps: 5,
       chains: 2,
       seed: 1,
       retained: 1000,
@@ -173,6 +177,11 @@ describe('estimation spec of the new families', () => {
         mcmc: { iterations: 200, burnin: 100, thin: 10 },
       },
       'mcmc.thin',
+    ],
+    [
+      'hb with 51 MH steps per respondent',
+      { model: 'hb', coefficients: [{ name: 'x', distribution: 'normal' }], mcmc: { steps: 51 } },
+      'mcmc.steps',
     ],
     [
       'latent_class with a random coefficient',

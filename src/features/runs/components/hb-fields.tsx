@@ -1,11 +1,11 @@
 /**
- * The run form's hierarchical Bayes settings: sampler (iterations, burn-in, thinning, chains,
- * seed), correlation of the random tastes, and the priors, with a note on how the attributes'
+ * The run form's hierarchical Bayes settings: sampler (iterations, burn-in, thinning, MH steps
+ * per respondent, chains, seed), correlation of the random tastes, and the priors, with a note on how the attributes'
  * coding and scale interact with them.
  */
 import type { FieldErrors, UseFormRegister } from 'react-hook-form';
 import { SelectField, TextField } from '@/components/ui/field';
-import type { RunFormValues } from '../utils/run-form-values';
+import { HB_DEFAULTS_TEXT, type RunFormValues } from '../utils/run-form-values';
 
 export function HbFields({
   register,
@@ -40,6 +40,13 @@ export function HbFields({
           {...register('mcmcThin', { valueAsNumber: true })}
         />
         <TextField
+          label="MH steps per respondent"
+          hint="Per iteration; more steps mix the population means better, at a proportional cost"
+          error={errors.mcmcSteps?.message}
+          {...number}
+          {...register('mcmcSteps', { valueAsNumber: true })}
+        />
+        <TextField
           label="Chains"
           hint="Run in parallel, each with its own seed stream"
           error={errors.mcmcChains?.message}
@@ -61,6 +68,12 @@ export function HbFields({
             {errors.correlated.message}
           </p>
         )}
+        <p className="text-xs text-ink-muted sm:col-span-3">
+          Defaults: {HB_DEFAULTS_TEXT}. The population means are drawn from the respondents&apos;
+          current tastes, so they move only as fast as those do: one MH step per respondent leaves
+          them slow to mix, and several steps per iteration help. After the run, check that every
+          mean has R-hat below 1.05 and an effective sample size above 400; if not, run longer.
+        </p>
       </fieldset>
       <fieldset className="grid gap-4 sm:grid-cols-2">
         <legend className="mb-2 text-sm font-medium text-ink">Priors</legend>

@@ -12,7 +12,7 @@ import {
   type RunOptions,
 } from '@shared/schemas/run';
 import type { CoefficientDistributionInput } from '@shared/schemas/estimation-spec';
-import { LATENT_CLASS_DEFAULT_STARTS } from '@shared/schemas/estimation-families';
+import { HB_DEFAULTS, LATENT_CLASS_DEFAULT_STARTS } from '@shared/schemas/estimation-families';
 
 export type ColumnChoice = 'omit' | CoefficientDistributionInput;
 export type RunFormModel = 'mnl' | 'mixed' | 'hb' | 'latent_class';
@@ -48,6 +48,8 @@ export interface RunFormValues {
   mcmcIterations: number;
   mcmcBurnin: string;
   mcmcThin: number;
+  /** Random-walk MH steps per respondent per iteration. */
+  mcmcSteps: number;
   mcmcChains: number;
   priorPreset: 'rossi' | 'train';
   priorMuVariance: number;
@@ -62,6 +64,9 @@ export function getColumnDefault(column: ModelColumn, model: RunFormModel): Colu
   if (model === 'mnl' || model === 'latent_class' || column.kind === 'constant') return 'fixed';
   return column.isCost ? 'neg_lognormal' : 'normal';
 }
+
+/** The HB sampler defaults in words, for the form's help. */
+export const HB_DEFAULTS_TEXT = `${HB_DEFAULTS.iterations.toLocaleString('en-GB')} iterations per chain with the first half as burn-in, every ${HB_DEFAULTS.thin}th draw kept, ${HB_DEFAULTS.steps} MH steps per respondent per iteration, ${HB_DEFAULTS.chains} chains`;
 
 export function getDefaultRunFormValues(options: RunOptions): RunFormValues {
   const model: RunFormModel = options.hasRuns ? 'mixed' : 'mnl';
@@ -82,10 +87,11 @@ export function getDefaultRunFormValues(options: RunOptions): RunFormValues {
     gradientTolerance: 6.055454452393343e-6,
     maxIterations: '',
     simulationCheck: false,
-    mcmcIterations: 20_000,
+    mcmcIterations: HB_DEFAULTS.iterations,
     mcmcBurnin: '',
-    mcmcThin: 10,
-    mcmcChains: 2,
+    mcmcThin: HB_DEFAULTS.thin,
+    mcmcSteps: HB_DEFAULTS.steps,
+    mcmcChains: HB_DEFAULTS.chains,
     priorPreset: 'rossi',
     priorMuVariance: 100,
     classesMin: 2,
@@ -136,6 +142,7 @@ export function toCreateRunInput(values: RunFormValues, columns: ModelColumn[]):
               iterations: values.mcmcIterations,
               ...(values.mcmcBurnin.trim() !== '' ? { burnin: Number(values.mcmcBurnin) } : {}),
               thin: values.mcmcThin,
+              steps: values.mcmcSteps,
               chains: values.mcmcChains,
               seed: values.seed,
             },
@@ -172,6 +179,7 @@ const fieldOfSpec: Record<string, keyof RunFormValues> = {
   'spec.mcmc.iterations': 'mcmcIterations',
   'spec.mcmc.burnin': 'mcmcBurnin',
   'spec.mcmc.thin': 'mcmcThin',
+  'spec.mcmc.steps': 'mcmcSteps',
   'spec.mcmc.chains': 'mcmcChains',
   'spec.mcmc.seed': 'seed',
   'spec.priors.preset': 'priorPreset',

@@ -77,6 +77,14 @@ describe('RunForm with hierarchical Bayes', () => {
     await user.clear(screen.getByLabelText('Iterations per chain'));
     await user.type(screen.getByLabelText('Iterations per chain'), '4000');
     await user.type(screen.getByLabelText('Burn-in'), '1000');
+    expect(screen.getByLabelText('MH steps per respondent')).toHaveValue(5);
+    expect(
+      screen.getByText(
+        /Defaults: 40,000 iterations per chain with the first half as burn-in, every 20th draw kept, 5 MH steps per respondent per iteration, 2 chains/,
+      ),
+    ).toBeInTheDocument();
+    await user.clear(screen.getByLabelText('MH steps per respondent'));
+    await user.type(screen.getByLabelText('MH steps per respondent'), '3');
     await user.selectOptions(screen.getByLabelText('Prior on the covariance Σ'), 'train');
     await user.click(screen.getByLabelText('Correlated random tastes'));
     await user.click(screen.getByRole('button', { name: 'Start run' }));
@@ -86,10 +94,22 @@ describe('RunForm with hierarchical Bayes', () => {
         model: 'hb',
         correlated: true,
         cost: 'bill',
-        mcmc: { iterations: 4000, burnin: 1000, thin: 10, chains: 2, seed: 1 },
+        mcmc: { iterations: 4000, burnin: 1000, thin: 20, steps: 3, chains: 2, seed: 1 },
         priors: { preset: 'train', muVariance: 100 },
       },
     });
+  });
+
+  it('when the MH steps are 0, shows the field error and sends nothing', async () => {
+    const { requests } = fakeFetch();
+    renderWithQuery(<RunForm teamId="t" studyId="s" options={options} />);
+    const user = userEvent.setup();
+    await user.selectOptions(screen.getByLabelText('Model'), 'hb');
+    await user.clear(screen.getByLabelText('MH steps per respondent'));
+    await user.type(screen.getByLabelText('MH steps per respondent'), '0');
+    await user.click(screen.getByRole('button', { name: 'Start run' }));
+    expect(await screen.findByText('Use at least 1 step')).toBeInTheDocument();
+    expect(requests).toHaveLength(0);
   });
 
   it('when the burn-in is as long as the iterations, shows the field error and sends nothing', async () => {
@@ -97,7 +117,7 @@ describe('RunForm with hierarchical Bayes', () => {
     renderWithQuery(<RunForm teamId="t" studyId="s" options={options} />);
     const user = userEvent.setup();
     await user.selectOptions(screen.getByLabelText('Model'), 'hb');
-    await user.type(screen.getByLabelText('Burn-in'), '20000');
+    await user.type(screen.getByLabelText('Burn-in'), '40000');
     await user.click(screen.getByRole('button', { name: 'Start run' }));
     expect(
       await screen.findByText('Burn-in must be shorter than the iterations'),

@@ -4,7 +4,16 @@
  * written into that language once per process (versions never change).
  */
 import { AppError } from '../lib/errors';
-import { canonicalLanguageTag, languageName } from '../../shared/languages/language-tags';
+import {
+  canonicalLanguageTag,
+  languageName,
+  textDirection,
+} from '../../shared/languages/language-tags';
+import {
+  englishInterfaceTexts,
+  type InterfaceTextKey,
+} from '../../shared/languages/interface-texts';
+import type { StoredLanguages } from '../../shared/schemas/respondent';
 import { localizeStudy } from '../../shared/languages/study-texts';
 import type { FrozenVersion } from './respondent-screens';
 
@@ -65,4 +74,29 @@ export function localizeVersion(
     cache.set(key, entry);
   }
   return entry;
+}
+
+/**
+ * The words of a page shown before any session (the survey closed or full) in the language
+ * the link asks for, when the study offers it; else in the study's source language. Going
+ * live needs every text in every language, so a version's own words are complete; versions
+ * frozen before languages existed have none and keep the app's English words.
+ */
+export function pageBeforeSession(
+  version: StoredLanguages,
+  publicTitle: string,
+  raw: string | undefined,
+  keys: { title: InterfaceTextKey; body: InterfaceTextKey },
+) {
+  const languages = version.languages ?? ['en'];
+  const asked = raw ? canonicalLanguageTag(raw) : null;
+  const lang = asked && languages.includes(asked) ? asked : languages[0];
+  const own = version.translations?.[lang] ?? {};
+  const word = (key: InterfaceTextKey) => own[key]?.trim() || englishInterfaceTexts[key];
+  return {
+    language: lang,
+    dir: textDirection(lang),
+    studyName: (lang !== languages[0] && own['study.title']?.trim()) || publicTitle,
+    texts: { title: word(keys.title), body: word(keys.body) },
+  };
 }

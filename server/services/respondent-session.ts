@@ -15,7 +15,7 @@ import {
   insertRespondent,
   type RespondentRow,
 } from '../../db/queries/respondents';
-import { getLatestVersionId } from '../../db/queries/versions';
+import { getLatestVersion, getLatestVersionId } from '../../db/queries/versions';
 import { assignBlock, releaseBlock } from '../../db/queries/respondent-blocks';
 import { listAnswerValues } from '../../db/queries/answers';
 import { givenOnRevisable } from '../../shared/survey/going-back';
@@ -32,7 +32,7 @@ import { buildSurveyView, loadFrozenVersion } from './respondent-screens';
 import { screensOfRespondent } from './respondent-screen-index';
 import { findEarlierRespondent, identityOf, lostIdentityRace } from './respondent-identity';
 import { rememberRespondent } from './known-respondents';
-import { languageFromLink, localizeVersion } from './respondent-language';
+import { languageFromLink, localizeVersion, pageBeforeSession } from './respondent-language';
 
 type PublicStudy = NonNullable<Awaited<ReturnType<typeof getStudyByPublicId>>>;
 
@@ -83,13 +83,26 @@ export async function getLinkInfo(
   const study = await findPublicStudy(deps, publicId);
   const state = linkState(study);
   const settings = readSettings(study.settings);
-  return {
+  const info: SurveyLinkInfo = {
     state,
     studyName: state === 'not_open' ? null : study.publicTitle,
     redirectUrl:
       state === 'over_quota'
         ? redirectFor(settings, 'over_quota', params[settings.panelParam] ?? null)
         : null,
+    page: null,
+  };
+  if (state !== 'closed' && state !== 'over_quota') return info;
+  // Only closed and full links get here, and each reads one row.
+  const version = await getLatestVersion(deps.db, { studyId: study.id });
+  const page = pageBeforeSession(version ?? {}, study.publicTitle, params.lang, {
+    title: state === 'closed' ? 'ui.closed_title' : 'ui.over_quota_title',
+    body: state === 'closed' ? 'ui.closed_body' : 'ui.over_quota_body',
+  });
+  return {
+    ...info,
+    studyName: page.studyName,
+    page: { language: page.language, dir: page.dir, ...page.texts },
   };
 }
 

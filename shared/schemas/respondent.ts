@@ -210,8 +210,19 @@ export type AnswerReceipt = {
 export type SurveyLinkState = 'live' | 'closed' | 'over_quota' | 'not_open';
 export type SurveyLinkInfo = {
   state: SurveyLinkState;
-  /** Hidden unless the survey is or was live. */
+  /** Hidden unless the survey is or was live (in the page's language). */
   studyName: string | null;
   /** Over-quota panel redirect, with the panel id filled in. */
   redirectUrl: string | null;
+  /**
+   * A closed or full survey's page in the language the link asks for (?lang=) when the study
+   * offers it, else its source language; null when the survey is live or not open yet.
+   */
+  page: { language: string; dir: 'ltr' | 'rtl'; title: string; body: string } | null;
+};
+
+/** A frozen version's languages and translations (as stored). */
+export type StoredLanguages = {
+  languages?: string[] | null;
+  translations?: Record<string, Record<string, string>> | null;
 };

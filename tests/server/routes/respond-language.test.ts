@@ -175,3 +175,44 @@ describe('the language in Responses and downloads', () => {
     expect([en.language, ar.language]).toEqual(['en', 'ar']);
   });
 });
+
+describe('GET /r/:publicId before a session, with ?lang=', () => {
+  it('gives a closed survey’s page in the link’s language, right to left where it is', async () => {
+    const s = await liveInLanguages('de', 'ar');
+    await owner.post(studyUrl(s.id, '/lifecycle/close')).expect(200);
+    const de = await t.request().get(`/api/r/${s.publicId}?lang=de`).expect(200);
+    expect(de.body).toEqual({
+      state: 'closed',
+      studyName: 'DE Water services 2026',
+      redirectUrl: null,
+      page: {
+        language: 'de',
+        dir: 'ltr',
+        title: 'DE This survey has closed',
+        body: expect.stringMatching(/^DE /),
+      },
+    });
+    const ar = await t.request().get(`/api/r/${s.publicId}?lang=ar`).expect(200);
+    expect(ar.body.page).toMatchObject({ language: 'ar', dir: 'rtl' });
+  });
+
+  it('falls back to the source language for no, an unoffered or a malformed ?lang=', async () => {
+    const s = await liveInLanguages('de');
+    await owner.post(studyUrl(s.id, '/lifecycle/close')).expect(200);
+    for (const query of ['', '?lang=fr', '?lang=%%%', '?lang=DE-de-x-1'])
+      expect((await t.request().get(`/api/r/${s.publicId}${query}`).expect(200)).body.page).toEqual(
+        {
+          language: 'en',
+          dir: 'ltr',
+          title: 'This survey has closed',
+          body: 'Thank you for your interest. The survey is no longer taking answers.',
+        },
+      );
+  });
+
+  it('has no page while the survey is live', async () => {
+    const s = await liveInLanguages('de');
+    const res = await t.request().get(`/api/r/${s.publicId}?lang=de`).expect(200);
+    expect(res.body).toMatchObject({ state: 'live', page: null });
+  });
+});

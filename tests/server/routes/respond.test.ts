@@ -66,13 +66,19 @@ describe('GET /api/r/:publicId', () => {
       state: 'live',
       studyName: 'Water services 2026',
       redirectUrl: null,
+      page: null,
     });
   });
 
   it('when the study is a draft, says it is not open and hides its name', async () => {
     const s = await insertStudy(t, teamId);
     const res = await t.request().get(`/api/r/${s.publicId}`).expect(200);
-    expect(res.body).toEqual({ state: 'not_open', studyName: null, redirectUrl: null });
+    expect(res.body).toEqual({
+      state: 'not_open',
+      studyName: null,
+      redirectUrl: null,
+      page: null,
+    });
   });
 
   it('when the link is unknown, returns 404 survey_not_found', async () => {
@@ -410,6 +416,7 @@ describe('POST /api/r/:publicId/answers', () => {
     expect(info.body).toMatchObject({
       state: 'over_quota',
       redirectUrl: 'https://panel.example/full/K1',
+      page: { language: 'en', dir: 'ltr', title: 'This survey is full' },
     });
     expect((await start(s.publicId).expect(410)).body.error.code).toBe('over_quota');
   });

@@ -96,18 +96,22 @@ export function UnavailableScreen({
   reason,
   studyName,
   redirectUrl,
+  page,
 }: {
   reason: Unavailable;
   studyName: string | null;
   redirectUrl: string | null;
+  /** Before a session: the study's own words for a closed or full survey, in the link's language. */
+  page?: { title: string; body: string } | null;
 }) {
   useRedirect(redirectUrl, true);
   const t = useInterfaceText();
   // Inside a session (closed meanwhile) the respondent's language has these words.
   const text =
-    reason === 'closed'
+    page ??
+    (reason === 'closed'
       ? { title: t('ui.closed_title'), body: t('ui.closed_body') }
-      : unavailableText[reason];
+      : unavailableText[reason]);
   return (
     <ScreenFrame title={text.title} eyebrow={studyName ?? undefined}>
       <Paragraphs text={text.body} />

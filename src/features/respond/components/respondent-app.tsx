@@ -14,7 +14,12 @@ export function RespondentApp({ publicId, search }: { publicId: string; search: 
   const r = useRespondent(publicId, search);
   const { state } = r;
   const session = state.phase === 'active' ? state.session : null;
-  useDocumentLanguage(session?.language ?? null, session?.dir ?? null);
+  // Before a session, a closed or full survey's page may come in the link's language.
+  const page = state.phase === 'unavailable' ? state.page : null;
+  useDocumentLanguage(
+    session?.language ?? page?.language ?? null,
+    session?.dir ?? page?.dir ?? null,
+  );
 
   if (state.phase === 'loading')
     return (

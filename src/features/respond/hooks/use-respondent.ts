@@ -12,6 +12,7 @@ import type {
   RespondentScreen,
   RespondentSession,
   RespondentStatus,
+  SurveyLinkInfo,
   SurveyLinkState,
 } from '@shared/schemas/respondent';
 import { getSurveyLink } from '../api/get-survey-link';
@@ -45,6 +46,8 @@ export type RespondentState =
       reason: Unavailable;
       studyName: string | null;
       redirectUrl: string | null;
+      /** A closed or full survey's page in the link's language (the study's own words). */
+      page?: SurveyLinkInfo['page'];
     }
   | { phase: 'error'; message: string }
   | { phase: 'active'; session: RespondentSession };
@@ -191,6 +194,7 @@ export function useRespondent(publicId: string, search: string) {
             reason: link && link.state !== 'live' ? link.state : reason,
             studyName: link?.studyName ?? null,
             redirectUrl: link?.redirectUrl ?? null,
+            page: link?.page ?? null,
           });
         } else
           setState({

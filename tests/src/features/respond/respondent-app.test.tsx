@@ -273,3 +273,23 @@ describe('RespondentApp', () => {
     expect(start.params).toEqual({ pid: 'P1' });
   });
 });
+
+describe('RespondentApp before a session', () => {
+  it('shows a closed survey’s page in the link’s language, with the page’s language and direction', async () => {
+    vi.stubGlobal('fetch', async (url: string) => {
+      if (url.endsWith('/sessions'))
+        return json(410, { error: { code: 'survey_closed', message: 'closed' } });
+      return json(200, {
+        state: 'closed',
+        studyName: 'خدمات المياه',
+        redirectUrl: null,
+        page: { language: 'ar', dir: 'rtl', title: 'انتهى الاستطلاع', body: 'شكرا لاهتمامك.' },
+      });
+    });
+    render(<RespondentApp publicId="abc123" search="?lang=ar" />);
+    expect(await screen.findByRole('heading', { name: 'انتهى الاستطلاع' })).toBeVisible();
+    expect(screen.getByText('شكرا لاهتمامك.')).toBeVisible();
+    expect(document.documentElement).toHaveAttribute('lang', 'ar');
+    expect(document.documentElement).toHaveAttribute('dir', 'rtl');
+  });
+});

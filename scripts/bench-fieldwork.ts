@@ -125,7 +125,9 @@ function phaseFigures(p: Phase) {
 
 /** The scratch database through the cluster's (first) Unix socket directory. */
 async function socketUrl(pool: pg.Pool, database: string): Promise<string> {
-  const r = await pool.query<{ dirs: string }>('show unix_socket_directories');
+  const r = await pool.query<{ dirs: string }>(
+    "select current_setting('unix_socket_directories') as dirs",
+  );
   const dir = r.rows[0]?.dirs.split(',')[0]?.trim();
   if (!dir) throw new Error('--socket: this PostgreSQL listens on no Unix socket');
   const admin = new URL(adminUrl());

@@ -16,6 +16,7 @@ export const studyColumns = {
   settings: studies.settings,
   languages: studies.languages,
   translations: studies.translations,
+  translationSources: studies.translationSources,
   currentDesignId: studies.currentDesignId,
   currentVersion: studies.currentVersion,
   archivedAt: studies.archivedAt,
@@ -83,6 +84,7 @@ export async function insertStudy(
     questionnaire?: unknown;
     languages?: string[];
     translations?: Record<string, Record<string, string>>;
+    translationSources?: Record<string, Record<string, string>>;
     createdBy: string | null;
   },
 ) {
@@ -98,6 +100,7 @@ export async function insertStudy(
       questionnaire: params.questionnaire ?? {},
       ...(params.languages ? { languages: params.languages } : {}),
       ...(params.translations ? { translations: params.translations } : {}),
+      ...(params.translationSources ? { translationSources: params.translationSources } : {}),
       createdBy: params.createdBy,
     })
     .returning(studyColumns);
@@ -139,6 +142,7 @@ export async function updateDraftStudy(
       questionnaire: unknown;
       languages: string[];
       translations: Record<string, Record<string, string>>;
+      translationSources: Record<string, Record<string, string>>;
     }>;
   },
 ) {

@@ -178,7 +178,7 @@ export async function updateDraftQuestionnaire(
   });
 }
 
-/** Only a draft's languages and translations change. */
+/** Only a draft's languages and translations (with the sources they were made from) change. */
 export async function updateDraftLanguages(
   db: DbOrTx,
   params: {
@@ -186,12 +186,17 @@ export async function updateDraftLanguages(
     teamId: string;
     languages: string[];
     translations: Record<string, Record<string, string>>;
+    translationSources: Record<string, Record<string, string>>;
   },
 ) {
   return updateDraftStudy(db, {
     id: params.id,
     teamId: params.teamId,
-    set: { languages: params.languages, translations: params.translations },
+    set: {
+      languages: params.languages,
+      translations: params.translations,
+      translationSources: params.translationSources,
+    },
   });
 }
 

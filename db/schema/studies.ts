@@ -44,6 +44,14 @@ export const studies = pgTable(
       .$type<Record<string, Record<string, string>>>()
       .notNull()
       .default({}),
+    /**
+     * language -> text key -> the source wording a translation was made from (recorded when it
+     * is saved, imported or confirmed): a translation whose source has changed since is stale.
+     */
+    translationSources: jsonb('translation_sources')
+      .$type<Record<string, Record<string, string>>>()
+      .notNull()
+      .default({}),
     /** The design currently attached to the study (designs.id). */
     currentDesignId: uuid('current_design_id'),
     /** Latest frozen version number (0 = never live). */

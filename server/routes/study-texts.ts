@@ -1,14 +1,16 @@
 /**
  * /api/teams/:teamId/studies/:studyId/texts — the study's languages and translated texts.
- * Reading needs study:read; changing languages and texts needs study:write (owner, editor).
+ * Reading (and exporting a translator's file) needs study:read; changing languages, saving,
+ * importing and confirming texts needs study:write (owner, editor).
  */
 import { Router, type Request } from 'express';
 import type { AppDeps } from '../deps';
 import { parseBody, parseParams } from '../middleware/validate';
-import { memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { actorOf, memberOf, requireTeam, requireUser } from '../middleware/auth';
 import { studyParamsSchema } from '../services/study-access';
 import { parseQuery } from '../middleware/validate';
 import {
+  confirmTranslationsSchema,
   exportTranslationsQuerySchema,
   importTranslationsSchema,
   languageParamsSchema,
@@ -20,6 +22,7 @@ import {
   exportTranslationFile,
   importTranslationFile,
 } from '../services/translations/translation-files';
+import { confirmTranslations, saveTranslations } from '../services/translations/save-translations';
 
 export function createStudyTextsRouter(deps: AppDeps): Router {
   const router = Router({ mergeParams: true });
@@ -38,7 +41,7 @@ export function createStudyTextsRouter(deps: AppDeps): Router {
   router.put('/languages', write, async (req, res) => {
     const { teamId, studyId } = ids(req);
     const { languages } = parseBody(updateLanguagesSchema, req);
-    res.json(await studyTexts.updateLanguages(deps, teamId, studyId, languages));
+    res.json(await studyTexts.updateLanguages(deps, teamId, studyId, languages, actorOf(req)));
   });
   router.get('/:lang/file', read, async (req, res) => {
     const { teamId, studyId } = ids(req);
@@ -55,13 +58,19 @@ export function createStudyTextsRouter(deps: AppDeps): Router {
     const { teamId, studyId } = ids(req);
     const { lang } = parseParams(languageParamsSchema, req);
     const input = parseBody(importTranslationsSchema, req);
-    res.json(await importTranslationFile(deps, teamId, studyId, lang, input));
+    res.json(await importTranslationFile(deps, teamId, studyId, lang, input, actorOf(req)));
+  });
+  router.put('/:lang/confirmed', write, async (req, res) => {
+    const { teamId, studyId } = ids(req);
+    const { lang } = parseParams(languageParamsSchema, req);
+    const { keys } = parseBody(confirmTranslationsSchema, req);
+    res.json(await confirmTranslations(deps, teamId, studyId, lang, keys, actorOf(req)));
   });
   router.put('/:lang', write, async (req, res) => {
     const { teamId, studyId } = ids(req);
     const { lang } = parseParams(languageParamsSchema, req);
     const { texts } = parseBody(saveTranslationsSchema, req);
-    res.json(await studyTexts.saveTranslations(deps, teamId, studyId, lang, texts));
+    res.json(await saveTranslations(deps, teamId, studyId, lang, texts, actorOf(req)));
   });
   return router;
 }

@@ -30,6 +30,8 @@ import {
   type UpdateFieldworkSettingsInput,
 } from '../../shared/schemas/study-lifecycle';
 import { checkReadiness } from './readiness';
+import { checkStaleTranslations } from './readiness-texts';
+import { languagesOf, loadStudyDocuments } from './study-texts';
 import { recordAudit, type Actor } from './audit';
 
 type StudyRow = NonNullable<Awaited<ReturnType<typeof lockStudy>>>;
@@ -97,7 +99,11 @@ export async function getReadiness(
   const study = await getStudyById(deps.db, { id: studyId, teamId });
   if (!study) throw new NotFoundError('Study');
   const { problems } = await readinessOf(deps.db, study, now);
-  return { ready: problems.length === 0, problems };
+  const warnings = checkStaleTranslations(
+    await loadStudyDocuments(deps, study),
+    languagesOf(study),
+  );
+  return { ready: problems.length === 0, problems, warnings };
 }
 
 export async function listVersions(

@@ -132,6 +132,7 @@ export async function duplicateStudy(deps: AppDeps, actor: Actor, studyId: strin
       questionnaire: source.questionnaire,
       languages: source.languages,
       translations: source.translations,
+      translationSources: source.translationSources,
       createdBy: actor.userId,
     });
     if (source.currentDesignId) {

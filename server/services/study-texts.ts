@@ -4,7 +4,8 @@
  * keep the texts frozen in their version.
  */
 import type { AppDeps } from '../deps';
-import { ValidationError, type FieldIssue } from '../lib/errors';
+import { ValidationError } from '../lib/errors';
+import { recordAudit, type Actor } from './audit';
 import { getQuestionnaire } from './questionnaire';
 import { assertDraft } from './studies';
 import { loadStudy } from './study-access';
@@ -13,7 +14,7 @@ import { languageName } from '../../shared/languages/language-tags';
 import type { StudyDocuments } from '../../shared/languages/study-text-keys';
 import {
   findMissingTexts,
-  isInterfaceKey,
+  findStaleTranslations,
   listStudyTexts,
   type StudyLanguages,
   type Translations,
@@ -37,6 +38,7 @@ export async function loadStudyDocuments(deps: AppDeps, study: StudyRow): Promis
 export const languagesOf = (study: StudyRow): StudyLanguages => ({
   languages: study.languages,
   translations: study.translations,
+  sources: study.translationSources,
 });
 
 export async function getStudyTexts(
@@ -55,6 +57,7 @@ export async function getStudyTexts(
     texts,
     translations: langs.translations,
     missing,
+    stale: findStaleTranslations(texts, langs),
   };
 }
 
@@ -69,6 +72,7 @@ export async function updateLanguages(
   teamId: string,
   studyId: string,
   languages: string[],
+  actor: Actor,
 ): Promise<StudyTextsView> {
   const study = await loadStudy(deps, teamId, studyId);
   assertDraft(study, 'its languages');
@@ -81,85 +85,33 @@ export async function updateLanguages(
       },
     ]);
   const translations: Translations = {};
-  for (const lang of languages.slice(1))
+  const sources: Translations = {};
+  for (const lang of languages.slice(1)) {
     if (study.translations[lang]) translations[lang] = study.translations[lang];
+    if (study.translationSources[lang]) sources[lang] = study.translationSources[lang];
+  }
   // The source language keeps its own interface wordings under its (possibly new) tag.
   if (study.translations[source]) translations[languages[0]] = study.translations[source];
-  await updateDraftLanguages(deps.db, {
-    id: studyId,
-    teamId: teamId,
-    languages,
-    translations,
+  await deps.db.transaction(async (tx) => {
+    await updateDraftLanguages(tx, {
+      id: studyId,
+      teamId,
+      languages,
+      translations,
+      translationSources: sources,
+    });
+    await recordAudit(tx, {
+      teamId,
+      actor,
+      action: 'study.languages_changed',
+      studyId,
+      details: {
+        study: study.name,
+        languages,
+        added: languages.filter((l) => !study.languages.includes(l)),
+        removed: study.languages.filter((l) => !languages.includes(l)),
+      },
+    });
   });
   return getStudyTexts(deps, teamId, studyId);
-}
-
-/**
- * Checks texts for one language against the study's keys: unknown keys, and source-language
- * texts that belong in the documents (the source language holds only the app's words).
- */
-export function checkTranslationKeys(
-  keys: Iterable<string>,
-  known: Set<string>,
-  isSource: boolean,
-  prefix = 'texts',
-): FieldIssue[] {
-  const issues: FieldIssue[] = [];
-  for (const key of keys) {
-    if (!known.has(key))
-      issues.push({ path: `${prefix}.${key}`, message: `${key} is not a text of this study` });
-    else if (isSource && !isInterfaceKey(key))
-      issues.push({
-        path: `${prefix}.${key}`,
-        message: `${key} is written in the source language on Attributes or Questionnaire`,
-      });
-  }
-  return issues;
-}
-
-/** Saves texts of one language (an empty text removes it); nothing is saved on any problem. */
-export async function saveTranslations(
-  deps: AppDeps,
-  teamId: string,
-  studyId: string,
-  lang: string,
-  texts: Record<string, string>,
-): Promise<StudyTextsView> {
-  const study = await loadStudy(deps, teamId, studyId);
-  assertDraft(study, 'its texts');
-  await writeTranslations(deps, study, lang, texts);
-  return getStudyTexts(deps, teamId, studyId);
-}
-
-/** The shared write of the form and the file import: validated first, all or nothing. */
-export async function writeTranslations(
-  deps: AppDeps,
-  study: StudyRow,
-  lang: string,
-  texts: Record<string, string>,
-): Promise<void> {
-  if (!study.languages.includes(lang))
-    throw new ValidationError(`${languageName(lang)} is not a language of this study`, [
-      { path: 'lang', message: `Add ${languageName(lang)} to the study's languages first` },
-    ]);
-  const entries = listStudyTexts(await loadStudyDocuments(deps, study), languagesOf(study));
-  const issues = checkTranslationKeys(
-    Object.keys(texts),
-    new Set(entries.map((e) => e.key)),
-    lang === study.languages[0],
-  );
-  if (issues.length) throw new ValidationError(issues[0].message, issues);
-  const next = { ...(study.translations[lang] ?? {}) };
-  for (const [key, text] of Object.entries(texts)) {
-    const value = text.trim();
-    if (value) next[key] = value;
-    else delete next[key];
-  }
-  const updated = await updateDraftLanguages(deps.db, {
-    id: study.id,
-    teamId: study.teamId,
-    languages: study.languages,
-    translations: { ...study.translations, [lang]: next },
-  });
-  if (!updated) assertDraft({ status: 'live' }, 'its texts');
 }

@@ -17,7 +17,12 @@ import {
 } from './study-text-keys';
 
 export type Translations = Record<string, Record<string, string>>;
-export type StudyLanguages = { languages: string[]; translations: Translations };
+export type StudyLanguages = {
+  languages: string[];
+  translations: Translations;
+  /** language → key → the source wording each translation was made from (drafts only). */
+  sources?: Translations;
+};
 
 export const isInterfaceKey = (key: string) => key.startsWith('ui.');
 
@@ -59,6 +64,29 @@ export function findMissingTexts(
     const missing = entries.filter((e) => textIn(e, language, langs) === '');
     return missing.length ? [{ language, missing }] : [];
   });
+}
+
+/**
+ * Per translation language, the translations made from a source wording that has changed
+ * since: key → the wording they were made from. Translations saved before sources were
+ * recorded have none, and are not flagged.
+ */
+export function findStaleTranslations(
+  entries: StudyTextEntry[],
+  langs: StudyLanguages,
+): Record<string, Record<string, string>> {
+  return Object.fromEntries(
+    langs.languages.slice(1).map((language) => {
+      const made = langs.sources?.[language] ?? {};
+      const stale = entries.filter(
+        (e) =>
+          textIn(e, language, langs) !== '' &&
+          made[e.key] !== undefined &&
+          made[e.key] !== e.source,
+      );
+      return [language, Object.fromEntries(stale.map((e) => [e.key, made[e.key]]))];
+    }),
+  );
 }
 
 /**

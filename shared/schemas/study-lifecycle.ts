@@ -95,7 +95,15 @@ export const readinessProblemSchema = z.object({
 });
 export type ReadinessProblem = z.infer<typeof readinessProblemSchema>;
 
-export type Readiness = { ready: boolean; problems: ReadinessProblem[] };
+/**
+ * Problems refuse going live; warnings do not (translations made from a source wording that
+ * has changed since, for instance) but are worth a look first.
+ */
+export type Readiness = {
+  ready: boolean;
+  problems: ReadinessProblem[];
+  warnings: ReadinessProblem[];
+};
 
 export type StudyVersionSummary = {
   version: number;

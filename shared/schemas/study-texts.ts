@@ -54,6 +54,16 @@ export const saveTranslationsSchema = z.object({
 });
 export type SaveTranslationsInput = z.input<typeof saveTranslationsSchema>;
 
+/** Translations checked against a changed source wording and still right. */
+export const confirmTranslationsSchema = z.object({
+  keys: z
+    .array(textKeySchema)
+    .min(1, 'Name the texts to confirm')
+    .max(5000, 'At most 5,000 texts at once')
+    .refine((k) => new Set(k).size === k.length, 'A text is listed twice'),
+});
+export type ConfirmTranslationsInput = z.input<typeof confirmTranslationsSchema>;
+
 export const languageParamsSchema = z.object({
   teamId: z.uuid(),
   studyId: z.uuid(),
@@ -74,6 +84,11 @@ export type StudyTextsView = {
   translations: Record<string, Record<string, string>>;
   /** language → how many texts it still lacks. */
   missing: Record<string, number>;
+  /**
+   * language → key → the source wording its translation was made from, for translations whose
+   * source has changed since ("source changed"): re-save or confirm them.
+   */
+  stale: Record<string, Record<string, string>>;
 };
 
 export const translationFormatSchema = z.enum(['xliff', 'csv']);

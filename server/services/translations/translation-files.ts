@@ -16,7 +16,9 @@ import {
 } from '../../../shared/schemas/study-texts';
 import { loadStudy } from '../study-access';
 import { assertDraft } from '../studies';
-import { languagesOf, loadStudyDocuments, writeTranslations } from '../study-texts';
+import type { Actor } from '../audit';
+import { languagesOf, loadStudyDocuments } from '../study-texts';
+import { writeTranslations } from './save-translations';
 import { readCsvFile, readXliffFile, type FileText } from './translation-file-readers';
 import { writeXliff } from './xliff';
 
@@ -115,6 +117,7 @@ export async function importTranslationFile(
   studyId: string,
   lang: string,
   input: { format: TranslationFormat; content: string },
+  actor: Actor,
 ): Promise<TranslationImportReport> {
   const study = await loadStudy(deps, teamId, studyId);
   assertDraft(study, 'its texts');
@@ -147,13 +150,23 @@ export async function importTranslationFile(
     ]);
   const texts: Record<string, string> = {};
   for (const t of file) if (known.has(t.key) && t.target.trim()) texts[t.key] = t.target;
-  if (Object.keys(texts).length > 0) await writeTranslations(deps, study, lang, texts);
   const stored = { ...(langs.translations[lang] ?? {}), ...texts };
-  return {
+  const report: TranslationImportReport = {
     imported: Object.keys(texts).length,
     missing: entries
       .filter((e) => !stored[e.key]?.trim())
       .map((e) => ({ key: e.key, where: e.where, interface: isInterfaceKey(e.key) })),
     extra: extra.map((t) => ({ key: t.key, where: t.where, line: t.line })),
   };
+  if (report.imported > 0)
+    await writeTranslations(deps, study, lang, texts, actor, {
+      action: 'study.translations_imported',
+      details: {
+        format: input.format,
+        imported: report.imported,
+        missing: report.missing.length,
+        extra: report.extra.length,
+      },
+    });
+  return report;
 }

@@ -66,13 +66,13 @@ describe('GET /lifecycle/readiness', () => {
     consent.body += '\n\nYour answers are linked to the personal link we e-mailed to you.';
     await t.deps.db.update(studies).set({ questionnaire: q }).where(eq(studies.id, s.id));
     const after = await team.agents.editor.get(url(s.id, '/readiness')).expect(200);
-    expect(after.body).toEqual({ ready: true, problems: [] });
+    expect(after.body).toEqual({ ready: true, problems: [], warnings: [] });
   });
 
   it('when the study is complete, says it is ready', async () => {
     const s = await insertStudy(t, team.teamId);
     const res = await team.agents.analyst.get(url(s.id, '/readiness')).expect(200);
-    expect(res.body).toEqual({ ready: true, problems: [] });
+    expect(res.body).toEqual({ ready: true, problems: [], warnings: [] });
   });
 });
 

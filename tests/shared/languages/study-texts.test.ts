@@ -3,6 +3,7 @@ import { makeLarkspurDefinition } from '../../engine/coding/fixtures/larkspur-de
 import { demoQuestionnaire } from '../../../shared/schemas/questionnaire-defaults';
 import {
   findMissingTexts,
+  findStaleTranslations,
   listStudyTexts,
   localizeStudy,
 } from '../../../shared/languages/study-texts';
@@ -125,5 +126,25 @@ describe('language tags (BCP 47 through ECMA-402 Intl)', () => {
       expect(textDirection(rtl)).toBe('rtl');
     for (const ltr of ['en', 'de', 'zh-Hant-TW', 'sr-Latn']) expect(textDirection(ltr)).toBe('ltr');
     expect(nativeLanguageName('de')).toBe('Deutsch');
+  });
+});
+
+describe('stale translations', () => {
+  it('are the translated texts whose source differs from the one recorded; unrecorded and empty ones are not', () => {
+    const d = docs();
+    const langs = {
+      languages: ['en', 'de', 'fr'],
+      translations: {
+        de: { 'study.title': 'Wasser', 'ui.next': 'Weiter', 'ui.back': '' },
+        fr: { 'study.title': 'Eau' },
+      },
+      sources: {
+        de: { 'study.title': 'Water 2025', 'ui.next': 'Next', 'ui.back': 'Old back' },
+      },
+    };
+    expect(findStaleTranslations(listStudyTexts(d, langs), langs)).toEqual({
+      de: { 'study.title': 'Water 2025' },
+      fr: {},
+    });
   });
 });

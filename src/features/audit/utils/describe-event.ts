@@ -6,6 +6,12 @@ const d = (e: AuditEvent, key: string) => {
   return v === undefined || v === null ? '' : String(v);
 };
 
+/** A list of language tags in the details ('' when empty or absent). */
+const list = (e: AuditEvent, key: string) => {
+  const v = e.details[key];
+  return Array.isArray(v) ? v.join(', ') : '';
+};
+
 export function describeAuditEvent(e: AuditEvent): string {
   switch (e.action) {
     case 'auth.sign_in':
@@ -46,6 +52,14 @@ export function describeAuditEvent(e: AuditEvent): string {
       return `Closed study "${d(e, 'study')}"${d(e, 'reason') && d(e, 'reason') !== 'manual' ? ` (${d(e, 'reason')})` : ''}`;
     case 'study.returned_to_draft':
       return `Returned study "${d(e, 'study')}" to draft`;
+    case 'study.languages_changed':
+      return `Changed the languages of study "${d(e, 'study')}" to ${list(e, 'languages')}${list(e, 'added') ? ` (added ${list(e, 'added')})` : ''}${list(e, 'removed') ? ` (removed ${list(e, 'removed')}; its texts deleted)` : ''}`;
+    case 'study.translations_saved':
+      return `Saved ${d(e, 'saved')} ${d(e, 'language')} texts of study "${d(e, 'study')}"${Number(d(e, 'removed')) > 0 ? ` and removed ${d(e, 'removed')}` : ''}`;
+    case 'study.translations_imported':
+      return `Imported ${d(e, 'imported')} ${d(e, 'language')} texts into study "${d(e, 'study')}" from a file (${d(e, 'format').toUpperCase()}; ${d(e, 'missing')} still missing, ${d(e, 'extra')} unknown left out)`;
+    case 'study.translations_confirmed':
+      return `Confirmed ${d(e, 'texts')} ${d(e, 'language')} texts of study "${d(e, 'study')}" as still right after their source changed`;
     case 'respondent.excluded':
       return `Excluded respondent ${d(e, 'respondent')}${d(e, 'reason') ? `: ${d(e, 'reason')}` : ''}`;
     case 'respondent.included':

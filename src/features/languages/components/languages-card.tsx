@@ -67,6 +67,7 @@ export function LanguagesCard({ teamId, studyId, view, canEdit, selected, onSele
       <ul className="divide-y divide-line rounded-md border border-line">
         {view.languages.map((lang, i) => {
           const missing = view.missing[lang] ?? 0;
+          const stale = Object.keys(view.stale[lang] ?? {}).length;
           return (
             <li key={lang} className="flex flex-wrap items-center gap-2 px-3 py-2">
               <span
@@ -81,6 +82,7 @@ export function LanguagesCard({ teamId, studyId, view, canEdit, selected, onSele
               ) : (
                 <Badge>all texts</Badge>
               )}
+              {stale > 0 && <Badge tone="accent">{stale} source changed</Badge>}
               <Button
                 size="sm"
                 variant={selected === lang ? 'primary' : 'secondary'}

@@ -4,9 +4,12 @@ import { Button } from '@/components/ui/button';
 import { Alert, Card } from '@/components/ui/feedback';
 import { CheckboxField } from '@/components/ui/checkbox-field';
 import { ApiError } from '@/lib/api-client';
+import { ErrorText } from '@/components/ui/error-boundary';
 import { languageName, textDirection } from '@shared/languages/language-tags';
 import type { StudyTextsView } from '@shared/schemas/study-texts';
 import { useSaveTranslations } from '../api/save-translations';
+import { useConfirmTranslations } from '../api/confirm-translations';
+import { StaleNote } from './stale-note';
 
 type Props = {
   teamId: string;
@@ -35,12 +38,23 @@ export function TranslationTable({ teamId, studyId, view, lang, canEdit }: Props
     // eslint-disable-next-line react-hooks/exhaustive-deps
     [lang, view],
   );
-  const form = useForm<Values>({ values: { values: initial } });
+  // A new view (a save, an import, a confirmation) keeps what the user is still typing.
+  const form = useForm<Values>({
+    values: { values: initial },
+    resetOptions: { keepDirtyValues: true },
+  });
   const [onlyMissing, setOnlyMissing] = useState(false);
   const [saved, setSaved] = useState(false);
   const editable = canEdit && view.editable;
   const dir = textDirection(lang);
   const missing = view.missing[lang] ?? 0;
+  const stale = view.stale[lang] ?? {};
+  const staleKeys = Object.keys(stale);
+  const confirm = useConfirmTranslations(teamId, studyId);
+  const confirmKeys = (keys: string[]) => {
+    setSaved(false);
+    confirm.mutate({ lang, keys });
+  };
 
   const submit = form.handleSubmit(async ({ values }) => {
     setSaved(false);
@@ -68,7 +82,7 @@ export function TranslationTable({ teamId, studyId, view, lang, canEdit }: Props
       title={`Texts in ${languageName(lang)}`}
       actions={
         <CheckboxField
-          label="Only texts without a wording"
+          label="Only texts to write or check"
           checked={onlyMissing}
           onChange={setOnlyMissing}
         />
@@ -80,7 +94,21 @@ export function TranslationTable({ teamId, studyId, view, lang, canEdit }: Props
           : missing > 0
             ? `${missing} of ${view.texts.length} texts still need a wording in ${languageName(lang)}.`
             : `Every text has a wording in ${languageName(lang)}.`}
+        {staleKeys.length > 0 &&
+          ` ${staleKeys.length} ${staleKeys.length === 1 ? 'translation was' : 'translations were'} made from an earlier source wording (marked “Source changed”): rewrite and save them, or confirm they still hold.`}
       </p>
+      {editable && staleKeys.length > 1 && (
+        <Button
+          size="sm"
+          variant="secondary"
+          className="mb-4"
+          busy={confirm.isPending}
+          onClick={() => confirmKeys(staleKeys)}
+        >
+          All {staleKeys.length} are still right
+        </Button>
+      )}
+      {confirm.error && <ErrorText error={confirm.error} />}
       <form onSubmit={submit} noValidate>
         <ol className="divide-y divide-line rounded-md border border-line">
           {view.texts.map((t, i) => {
@@ -89,12 +117,13 @@ export function TranslationTable({ teamId, studyId, view, lang, canEdit }: Props
               sourceOnly ||
               (isSource && t.source !== '') ||
               (form.watch(`values.${i}`) ?? '').trim() !== '';
+            const previous = stale[t.key];
             const error = form.formState.errors.values?.[i]?.message;
             const id = `text-${i}`;
             return (
               <li
                 key={t.key}
-                hidden={onlyMissing && hasText}
+                hidden={onlyMissing && hasText && previous === undefined}
                 className="grid gap-2 px-3 py-3 md:grid-cols-2 md:gap-4"
               >
                 <div className="min-w-0">
@@ -106,6 +135,15 @@ export function TranslationTable({ teamId, studyId, view, lang, canEdit }: Props
                   >
                     {t.source || <span className="italic text-ink-muted">(no source wording)</span>}
                   </p>
+                  {previous !== undefined && (
+                    <StaleNote
+                      previous={previous}
+                      where={t.where}
+                      canConfirm={editable}
+                      busy={confirm.isPending}
+                      onConfirm={() => confirmKeys([t.key])}
+                    />
+                  )}
                 </div>
                 {!sourceOnly && (
                   <div className="min-w-0">

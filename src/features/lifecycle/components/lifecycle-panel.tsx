@@ -49,6 +49,27 @@ function PublicLink({ publicId, panelParam }: { publicId: string; panelParam: st
   );
 }
 
+/** Readiness problems, warnings or a refusal: one alert with a bulleted list of messages. */
+function MessageList({
+  tone,
+  title,
+  items,
+}: {
+  tone: 'warning' | 'info' | 'danger';
+  title: string;
+  items: Array<{ message: string }>;
+}) {
+  return (
+    <Alert tone={tone} title={title}>
+      <ul className="list-disc space-y-1 pl-5">
+        {items.map((p, i) => (
+          <li key={i}>{p.message}</li>
+        ))}
+      </ul>
+    </Alert>
+  );
+}
+
 /** Status, readiness and the lifecycle actions of a study, with its links and fieldwork settings. */
 export function LifecyclePanel({
   teamId,
@@ -68,6 +89,7 @@ export function LifecyclePanel({
   if (state.error) return <ErrorText error={state.error} />;
   const s = state.data;
   const problems = readiness.data?.problems ?? [];
+  const warnings = readiness.data?.warnings ?? [];
   const act = async (action: LifecycleAction, ask?: ConfirmRequest) => {
     if (ask && !(await confirm(ask))) return;
     change.mutate(action);
@@ -89,22 +111,17 @@ export function LifecyclePanel({
             `Closed ${closedReasons[s.settings.closedReason ?? 'manual']}, with ${s.completes} complete${s.completes === 1 ? '' : 's'}. Reopen to take more answers, or return it to draft to edit; edits become a new version.`}
         </p>
         {s.status !== 'live' && problems.length > 0 && (
-          <Alert tone="warning" title="Before going live">
-            <ul className="list-disc space-y-1 pl-5">
-              {problems.map((p, i) => (
-                <li key={i}>{p.message}</li>
-              ))}
-            </ul>
-          </Alert>
+          <MessageList tone="warning" title="Before going live" items={problems} />
+        )}
+        {s.status !== 'live' && warnings.length > 0 && (
+          <MessageList
+            tone="info"
+            title="Worth a check (going live is not refused)"
+            items={warnings}
+          />
         )}
         {serverProblems.length > 0 && problems.length === 0 && (
-          <Alert tone="danger" title="The study could not go live">
-            <ul className="list-disc pl-5">
-              {serverProblems.map((p, i) => (
-                <li key={i}>{p.message}</li>
-              ))}
-            </ul>
-          </Alert>
+          <MessageList tone="danger" title="The study could not go live" items={serverProblems} />
         )}
         {change.error && serverProblems.length === 0 && <ErrorText error={change.error} />}
         {canManage && (
@@ -116,7 +133,7 @@ export function LifecyclePanel({
                 onClick={() =>
                   void act('go-live', {
                     title: 'Go live?',
-                    body: 'Respondents can answer from now on, and the attributes, design and questionnaire are frozen until you close the study.',
+                    body: `Respondents can answer from now on, and the attributes, design and questionnaire are frozen until you close the study.${warnings.length ? ' Some translations were made from an earlier source wording (see above).' : ''}`,
                     confirmLabel: 'Go live',
                   })
                 }

@@ -1,5 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
+import { languageKeys } from '@/features/languages/api/language-keys';
 import type { Questionnaire } from '@shared/schemas/questionnaire';
 import { questionnaireKeys } from './questionnaire-keys';
 import type { QuestionnaireView } from './get-questionnaire';
@@ -18,6 +19,8 @@ export function useSaveQuestionnaire(teamId: string, studyId: string) {
       qc.setQueryData(questionnaireKeys.detail(teamId, studyId), view);
       // Readiness to go live depends on the questionnaire.
       void qc.invalidateQueries({ queryKey: ['lifecycle', teamId, studyId] });
+      // The source wordings changed: translations of them may be stale now.
+      void qc.invalidateQueries({ queryKey: languageKeys.texts(teamId, studyId) });
     },
   });
 }

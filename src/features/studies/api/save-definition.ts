@@ -1,5 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
+import { languageKeys } from '@/features/languages/api/language-keys';
 import type { Study } from '@shared/schemas/study';
 import type { StudyDefinition } from '@shared/schemas/study-definition';
 import { studyKeys } from './study-keys';
@@ -27,6 +28,8 @@ export function useSaveDefinition(
     onSuccess: (study) => {
       qc.setQueryData(studyKeys.detail(teamId, studyId), study);
       void qc.invalidateQueries({ queryKey: studyKeys.lists(teamId) });
+      // The source wordings changed: translations of them may be stale now.
+      void qc.invalidateQueries({ queryKey: languageKeys.texts(teamId, studyId) });
       onSaved?.(study);
     },
   });

@@ -29,3 +29,47 @@ describe('describeAuditEvent: erasures', () => {
     ).toBe('Erased an invitation on request (0 answers deleted): DP-7');
   });
 });
+
+describe('describeAuditEvent: languages', () => {
+  it('names the languages added and removed', () => {
+    expect(
+      describeAuditEvent(
+        event('study.languages_changed', {
+          study: 'Water 2026',
+          languages: ['en', 'fr'],
+          added: ['fr'],
+          removed: ['de'],
+        }),
+      ),
+    ).toBe(
+      'Changed the languages of study "Water 2026" to en, fr (added fr) (removed de; its texts deleted)',
+    );
+  });
+
+  it('counts texts saved, imported and confirmed per language', () => {
+    expect(
+      describeAuditEvent(
+        event('study.translations_saved', { study: 'W', language: 'de', saved: 3, removed: 1 }),
+      ),
+    ).toBe('Saved 3 de texts of study "W" and removed 1');
+    expect(
+      describeAuditEvent(
+        event('study.translations_imported', {
+          study: 'W',
+          language: 'de',
+          format: 'xliff',
+          imported: 40,
+          missing: 1,
+          extra: 2,
+        }),
+      ),
+    ).toBe(
+      'Imported 40 de texts into study "W" from a file (XLIFF; 1 still missing, 2 unknown left out)',
+    );
+    expect(
+      describeAuditEvent(
+        event('study.translations_confirmed', { study: 'W', language: 'de', texts: 2 }),
+      ),
+    ).toBe('Confirmed 2 de texts of study "W" as still right after their source changed');
+  });
+});

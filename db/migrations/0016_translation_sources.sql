@@ -1,0 +1,1 @@
+ALTER TABLE "studies" ADD COLUMN "translation_sources" jsonb DEFAULT '{}'::jsonb NOT NULL;

@@ -1,8 +1,9 @@
 /**
- * The HB sampler's previous respondent layer, kept only so that `npm run bench:hb` can time it
- * beside the current one (server/engine/hb/individual-step.ts): the same MH sweep and the same
- * draw stream (Train 2009, §12.6), with each proposal's β written into a K-vector and its
- * log-likelihood recomputed from the row-major data, one dot product per row.
+ * The HB sampler's first respondent layer, kept as the independent reference of the current one
+ * (server/engine/hb/individual-step.ts) in tests/engine/hb/individual-step.test.ts: the same MH
+ * sweep and the same draw stream (Train 2009, §12.6), with each proposal's β written into a
+ * K-vector and its log-likelihood recomputed from the row-major data, one dot product per row.
+ * It takes one MH step per respondent per iteration (it ignores `steps`).
  */
 import type { Prng } from '../../server/engine/draws/prng';
 import type { ChoiceData } from '../../server/engine/estimation/choice-data';

@@ -12,8 +12,10 @@
  *   - restarts PostgreSQL;
  *   - terminates every backend (pg_terminate_backend).
  * Then it reconciles every answer the server acknowledged against the database, counts the
- * mail each invitee received, and waits for the estimation to end (retried, or failed with a
- * reason by the workers' sweep once silent for two minutes — never left running).
+ * mail each invitee received, and waits for the estimation to end: once silent for two minutes
+ * the workers' sweep queues it again and the restarted worker resumes it from its last
+ * checkpoint (or, past its last attempt, fails it with a reason) — never left running. It
+ * prints how the estimation ended and from which iteration it resumed.
  *
  * Usage: npm run bench:faults [-- --respondents 300] [-- --invitees 40] [-- --json]
  */
@@ -164,7 +166,12 @@ async function main() {
       run,
       (x) => x.status !== 'running' && x.status !== 'queued',
       300_000,
-    ).catch((err: Error) => ({ status: 'still running', error: err.message }));
+    ).catch((err: Error) => ({
+      status: 'still running',
+      error: err.message,
+      attempts: null,
+      progress: null,
+    }));
     const result = {
       respondents: RESPONDENTS,
       instances: 2,
@@ -183,6 +190,9 @@ async function main() {
       estimation: {
         status: final.status,
         error: final.error ?? null,
+        // Claims by a worker: 2 after one resume.
+        attempts: final.attempts,
+        resumedFromIteration: final.progress?.resumed?.fromIteration ?? null,
         secondsFromKillToEnd: Number(((Date.now() - killedAt) / 1000).toFixed(0)),
       },
       faults,

@@ -6,6 +6,7 @@
  * holds the run. A checkpoint is used only for the same choice data (its SHA-256) and draws:
  * if respondents were added or erased in between, the run starts again from the beginning.
  */
+import { isDeepStrictEqual } from 'node:util';
 import type { AppDeps } from '../deps';
 import { retryWhileDatabaseUnavailable } from '../lib/db-retry';
 import {
@@ -43,7 +44,8 @@ export async function loadResumePoint(
     deps.logger.warn({ err, runId: params.runId }, 'checkpoint not readable');
     return null;
   }
-  if (JSON.stringify(decoded.draws) !== JSON.stringify(params.draws))
+  // Stored as jsonb, whose objects do not keep their key order.
+  if (!isDeepStrictEqual(decoded.draws, JSON.parse(JSON.stringify(params.draws))))
     return skip('it was made with other draws');
   return {
     checkpoint: decoded.checkpoint,

@@ -145,5 +145,5 @@ describe('a worker killed during an estimation', () => {
     expect(b.estimates).toEqual(a.estimates);
     expect(b.loglik).toBe(a.loglik);
     expect(b.iterations).toBe(a.iterations);
-  }, 600_000);
+  }, 420_000);
 });

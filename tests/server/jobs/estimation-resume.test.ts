@@ -13,7 +13,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, type TestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { getRunForJob } from '../../../db/queries/runs';
-import { getRunCheckpoint } from '../../../db/queries/run-checkpoints';
+import { getRunCheckpoint, saveRunCheckpoint } from '../../../db/queries/run-checkpoints';
+import { runs } from '../../../db/schema/models';
+import { eq } from 'drizzle-orm';
 import { runEstimationJob } from '../../../server/jobs/estimation-job';
 import { STALE_RUN_MS, sweepStaleRuns } from '../../../server/jobs/stale-run-sweep';
 import { ignoreTeardownErrors, mixedLogitSpec, seedRunStudy } from './run-fixtures';
@@ -98,6 +100,29 @@ describe('a mixed logit whose worker is lost after a checkpoint', () => {
     expect(b.loglik).toBe(a.loglik);
     expect(b.iterations).toBe(a.iterations);
     expect(b.wtp).toEqual(a.wtp);
+    expect(await getRunCheckpoint(t.deps.db, { runId: id })).toBeNull();
+  }, 300_000);
+
+  it('starts again from the beginning when the choice data changed since the checkpoint', async () => {
+    const id = await startRun();
+    // A worker took it, saved a checkpoint on other data (respondents since added or erased),
+    // and was lost; the sweep queued it again.
+    await t.deps.db.update(runs).set({ status: 'running', attempts: 1 }).where(eq(runs.id, id));
+    expect(
+      await saveRunCheckpoint(t.deps.db, {
+        runId: id,
+        attempt: 1,
+        dataHash: 'f'.repeat(64),
+        iteration: 7,
+        start: 1,
+        state: {},
+      }),
+    ).toBe(true);
+    await t.deps.db.update(runs).set({ status: 'queued' }).where(eq(runs.id, id));
+    await runEstimationJob(t.deps, id, { threads: 1 });
+    const view = (await team.agents.viewer.get(`${base}/${id}`).expect(200)).body;
+    expect(view).toMatchObject({ status: 'done', attempts: 2 });
+    expect(view.progress.resumed).toEqual({ attempt: 2, fromIteration: 0 });
     expect(await getRunCheckpoint(t.deps.db, { runId: id })).toBeNull();
   }, 300_000);
 });

@@ -9,8 +9,8 @@
  * so the two paths are the same floating-point operations: the estimates must be equal.
  * (tests/server/faults/worker-death.test.ts does the same with a real worker killed by SIGKILL.)
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { useTestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { getRunForJob } from '../../../db/queries/runs';
 import { getRunCheckpoint, saveRunCheckpoint } from '../../../db/queries/run-checkpoints';
@@ -20,13 +20,12 @@ import { runEstimationJob } from '../../../server/jobs/estimation-job';
 import { STALE_RUN_MS, sweepStaleRuns } from '../../../server/jobs/stale-run-sweep';
 import { ignoreTeardownErrors, mixedLogitSpec, seedRunStudy } from './run-fixtures';
 
-let t: TestApp;
+const t = useTestApp();
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
 let base: string;
 const sent: string[] = [];
 
 beforeAll(async () => {
-  t = await createTestApp();
   ignoreTeardownErrors(t.deps.db);
   team = await createTeamWithAllRoles(t);
   const study = await seedRunStudy(t.deps.db, { teamId: team.teamId, respondents: 80 });
@@ -37,9 +36,6 @@ beforeAll(async () => {
     },
   };
 }, 60_000);
-afterAll(async () => {
-  await t.close();
-});
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 

@@ -7,7 +7,8 @@
  * load balancer). During the load it:
  *   - stops the mail server, sends the invitations (they wait in the outbox), starts it again
  *     after 30 s;
- *   - kills the worker with SIGKILL while a panel mixed logit estimates, and starts it again;
+ *   - kills the worker with SIGKILL while a panel mixed logit estimates (after its first
+ *     iteration), and starts it again;
  *   - kills one API instance with SIGKILL and starts it again;
  *   - restarts PostgreSQL;
  *   - terminates every backend (pg_terminate_backend).
@@ -131,7 +132,13 @@ async function main() {
 
     // Worker death during an estimation.
     const run = await startDemoMixedRun(bases[1], credentials);
-    await waitForRun(run, (r) => r.status === 'running', 120_000);
+    // After its first iteration: the job saves the checkpoint before the progress that shows
+    // it, so the restarted worker has an iterate to resume from.
+    await waitForRun(
+      run,
+      (r) => r.status === 'running' && (r.progress.iteration ?? 0) >= 1,
+      120_000,
+    );
     await worker.kill();
     note('worker killed (SIGKILL) while the mixed logit estimates');
     const killedAt = Date.now();

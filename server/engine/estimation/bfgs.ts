@@ -31,7 +31,10 @@ export type AsyncObjective = (x: Float64Array, g: Float64Array) => Promise<numbe
 export interface BfgsOptions extends ConvergenceTolerances {
   signal?: AbortSignal;
   onIteration?: (iteration: number, f: number, gradientNorm: number) => void;
-  /** Called after every iteration (after onIteration) with a copy of the state. */
+  /**
+   * Called after every iteration with a copy of the state, before onIteration: a caller that
+   * shows an iteration has the state to resume from it.
+   */
   onState?: (state: BfgsState) => void;
   /** Continue from this state (from onState) instead of x0: no evaluation at x0. */
   resume?: BfgsState;
@@ -169,7 +172,6 @@ export async function minimizeBfgs(
     g.set(gNew);
     fx = fNew;
     iterations++;
-    options.onIteration?.(iterations, fx, Math.sqrt(dot(g, g)));
     // The line search fell back to a zero step (alpha 0): the point did not move.
     const stopped: BfgsStopReason | null = converged()
       ? 'converged'
@@ -188,6 +190,7 @@ export async function minimizeBfgs(
       relativeChange,
       stopped,
     });
+    options.onIteration?.(iterations, fx, Math.sqrt(dot(g, g)));
     if (stopped) {
       reason = stopped;
       break;

@@ -115,6 +115,9 @@ function phaseFigures(p: Phase) {
     respondents: RESPONDENTS,
     seconds: Number(p.seconds.toFixed(2)),
     answersAcknowledged: p.r.acknowledged.length,
+    // A respondent whose start was given up (giveUpMs of timeouts) never answers at all.
+    respondentsStarted: p.r.respondentsStarted,
+    respondentsFinished: p.r.respondentsFinished,
     // Over the whole load, ramp and tail included.
     answersPerSecond: Math.round(p.r.acknowledged.length / p.seconds),
     // While all of them answer at once (see fullLoadWindow).

@@ -19,19 +19,32 @@ function splitmix32(state: { s: number }): number {
   return (z ^ (z >>> 16)) >>> 0;
 }
 
+/** A generator whose state words (a, b, c, d) live in a typed array another kernel can continue. */
+export interface StatefulPrng extends Prng {
+  readonly state: Int32Array;
+}
+
 /**
- * Creates a xoshiro128** generator. `seed` may be any finite number; it is reduced to
- * 32 bits, and `stream` lets callers derive independent streams (e.g. one per respondent)
- * from one user seed.
+ * The state words of the generator for `seed` and `stream` (see createPrng), written into
+ * `state` (four 32-bit words).
  */
-export function createPrng(seed: number, stream = 0): Prng {
+export function seedPrngState(seed: number, stream = 0, state = new Int32Array(4)): Int32Array {
   const mix = { s: (Math.floor(seed) ^ Math.imul(stream + 1, 0x27d4eb2d)) | 0 };
-  let a = splitmix32(mix);
-  let b = splitmix32(mix);
-  let c = splitmix32(mix);
-  let d = splitmix32(mix);
-  if ((a | b | c | d) === 0) a = 1;
+  for (let i = 0; i < 4; i++) state[i] = splitmix32(mix);
+  if ((state[0] | state[1] | state[2] | state[3]) === 0) state[0] = 1;
+  return state;
+}
+
+/**
+ * xoshiro128** on the state words in `state`, which it advances in place: the WebAssembly HB
+ * kernel (server/engine/simd/assembly/hb-prng.ts) continues the same stream from them.
+ */
+export function createPrngOnState(state: Int32Array): StatefulPrng {
   const nextUint32 = (): number => {
+    let a = state[0];
+    let b = state[1];
+    let c = state[2];
+    let d = state[3];
     const result = Math.imul(rotl(Math.imul(b, 5), 7), 9) >>> 0;
     const t = b << 9;
     c ^= a;
@@ -40,9 +53,14 @@ export function createPrng(seed: number, stream = 0): Prng {
     a ^= d;
     c ^= t;
     d = rotl(d, 11);
+    state[0] = a;
+    state[1] = b;
+    state[2] = c;
+    state[3] = d;
     return result;
   };
   return {
+    state,
     nextUint32,
     nextDouble: () => {
       const hi = nextUint32() >>> 5; // 27 bits
@@ -50,6 +68,15 @@ export function createPrng(seed: number, stream = 0): Prng {
       return (hi * 67108864 + lo + 0.5) / 9007199254740992;
     },
   };
+}
+
+/**
+ * Creates a xoshiro128** generator. `seed` may be any finite number; it is reduced to
+ * 32 bits, and `stream` lets callers derive independent streams (e.g. one per respondent)
+ * from one user seed.
+ */
+export function createPrng(seed: number, stream = 0): StatefulPrng {
+  return createPrngOnState(seedPrngState(seed, stream));
 }
 
 function rotl(x: number, k: number): number {

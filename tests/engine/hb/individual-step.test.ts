@@ -5,10 +5,12 @@
  *   log-likelihood from the row-major data (kept for the benchmark in
  *   scripts/lib/hb-reference-individual-step.ts): same seed, same draw stream, so the two chains
  *   agree draw for draw up to rounding (1e-9; both accumulate the same sums in another order).
- * - The WebAssembly SIMD kernel of the proposals' likelihoods (respondent-shift-kernel.ts) gives
- *   the TypeScript kernel's chain bit for bit: same sums in the same order, the same exponential
- *   (Tang 1989, both kernels), the logarithm taken in TypeScript by both. Exact equality, no
- *   tolerance: a speed-up must not change a seeded run.
+ * - The WebAssembly SIMD kernel gives the TypeScript kernel's chain bit for bit, whether it runs
+ *   whole MH sweeps (respondent-simd-kernel.ts: proposal, likelihood, fdlibm's logarithm and the
+ *   acceptance in the kernel, drawing from the chain generator's stream) or only the proposals'
+ *   likelihoods: same sums in the same order, the same exponential (Tang 1989, both kernels), the
+ *   logarithm and exponential of Math or their fdlibm ports (hb-fdlibm.test.ts). Exact equality,
+ *   no tolerance: a speed-up must not change a seeded run.
  * - The kept log-likelihood equals ln P(y_n | β_n) recomputed from scratch (Train 2009, eq. 3.6)
  *   after many accepted moves: the increments' rounding drift stays at the 1e-12 level.
  */
@@ -81,25 +83,31 @@ describe('HB respondent layer', () => {
     current.betas.forEach((x, i) => expect(x).toBe(previous.betas[i]));
   });
 
-  it('gives the TypeScript kernel’s chain bit for bit on the WebAssembly SIMD kernel', async () => {
-    const opts = checkHbOptions(data, options);
-    const start = await getHbStart(data, opts.layout, 0, opts.seed);
-    const kinds: string[] = [];
-    const withKernel =
-      (preference: 'auto' | 'typescript'): IndividualStepFactory =>
-      (d, layout, alpha) => {
-        const step = createIndividualStep(d, layout, alpha, preference);
-        kinds.push(step.kernel ?? '');
-        return step;
-      };
-    const simd = runHbChain(data, opts, 0, start, {}, withKernel('auto'));
-    const ts = runHbChain(data, opts, 0, start, {}, withKernel('typescript'));
-    expect(kinds).toEqual(['simd', 'typescript']);
-    expect(simd.acceptance).toBe(ts.acceptance);
-    expect(simd.acceptanceFixed).toBe(ts.acceptanceFixed);
-    for (const key of ['mu', 'sigma', 'fixed', 'loglik', 'betas'] as const)
-      expect(Array.from(simd[key])).toEqual(Array.from(ts[key]));
-  });
+  it.each([1, 3])(
+    'gives the TypeScript kernel’s chain bit for bit on the WebAssembly SIMD kernel, whole sweeps or likelihoods only (%i MH steps)',
+    async (steps) => {
+      const opts = checkHbOptions(data, { ...options, steps });
+      const start = await getHbStart(data, opts.layout, 0, opts.seed);
+      const kinds: string[] = [];
+      const withKernel =
+        (preference: 'auto' | 'likelihood' | 'typescript'): IndividualStepFactory =>
+        (d, layout, alpha) => {
+          const step = createIndividualStep(d, layout, alpha, preference);
+          kinds.push(step.kernel ?? '');
+          return step;
+        };
+      const sweep = runHbChain(data, opts, 0, start, {}, withKernel('auto'));
+      const likelihood = runHbChain(data, opts, 0, start, {}, withKernel('likelihood'));
+      const ts = runHbChain(data, opts, 0, start, {}, withKernel('typescript'));
+      expect(kinds).toEqual(['simd', 'simd-likelihood', 'typescript']);
+      for (const simd of [sweep, likelihood]) {
+        expect(simd.acceptance).toBe(ts.acceptance);
+        expect(simd.acceptanceFixed).toBe(ts.acceptanceFixed);
+        for (const key of ['mu', 'sigma', 'fixed', 'loglik', 'betas'] as const)
+          expect(Array.from(simd[key])).toEqual(Array.from(ts[key]));
+      }
+    },
+  );
 
   it('keeps each respondent’s log-likelihood equal to the one recomputed from scratch', async () => {
     const opts = checkHbOptions(data, options);

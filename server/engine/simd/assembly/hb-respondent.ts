@@ -33,7 +33,33 @@ export function hbDenominators(
 ): void {
   const colBytes = (<usize>R) << 3;
   let i = 0;
-  // Four rows (two lane pairs) per pass: each coefficient's column entry is read once.
+  // Eight rows (four lane pairs) per pass, then four: each coefficient's column entries are read
+  // once, and the four independent sums keep the adder busy (each row's sum is still the same
+  // sequence of operations).
+  for (; i + 8 <= R; i += 8) {
+    const at = (<usize>i) << 3;
+    let a0 = v128.load(v + at);
+    let a1 = v128.load(v + at + 16);
+    let a2 = v128.load(v + at + 32);
+    let a3 = v128.load(v + at + 48);
+    let col = block + at;
+    for (let c = 0; c < C; c++) {
+      const d = f64x2.splat(load<f64>(delta + ((<usize>c) << 3)));
+      a0 = f64x2.add(a0, f64x2.mul(d, v128.load(col)));
+      a1 = f64x2.add(a1, f64x2.mul(d, v128.load(col + 16)));
+      a2 = f64x2.add(a2, f64x2.mul(d, v128.load(col + 32)));
+      a3 = f64x2.add(a3, f64x2.mul(d, v128.load(col + 48)));
+      col += colBytes;
+    }
+    v128.store(u + at, a0);
+    v128.store(u + at + 16, a1);
+    v128.store(u + at + 32, a2);
+    v128.store(u + at + 48, a3);
+    v128.store(ex + at, expPair(a0, table));
+    v128.store(ex + at + 16, expPair(a1, table));
+    v128.store(ex + at + 32, expPair(a2, table));
+    v128.store(ex + at + 48, expPair(a3, table));
+  }
   for (; i + 4 <= R; i += 4) {
     const at = (<usize>i) << 3;
     let a0 = v128.load(v + at);

@@ -117,11 +117,18 @@ function sumLogDenominators(den: usize, T: i32): f64 {
   return ll - logFdlibm(product);
 }
 
-/** β of an α under transform code 0 (normal), 1 (lognormal) or 2 (negative lognormal). */
+/**
+ * β of an α under transform code 0 (normal), 1 (lognormal) or 2 (negative lognormal). One call
+ * of the exponential inside a branch: written as two returns, the optimiser turned them into a
+ * select and evaluated both exponentials for every coefficient, normal ones included.
+ */
 function toBeta(transform: i32, alpha: f64): f64 {
-  if (transform == 1) return expFdlibm(alpha);
-  if (transform == 2) return -expFdlibm(alpha);
-  return alpha;
+  let beta = alpha;
+  if (transform != 0) {
+    beta = expFdlibm(alpha);
+    if (transform == 2) beta = -beta;
+  }
+  return beta;
 }
 
 /**

@@ -44,12 +44,15 @@ const sim = simulatePanelChoices({
     { name: 'bill', distribution: 'neg_lognormal', location: -1, spread: 0.3, levels: [0, 1, 3] },
   ],
 });
-// One more task per respondent: task 1 with its non-chosen alternatives shown twice (5 rows), so
-// respondents have row counts that are not multiples of the kernel's 4-row blocks.
+// One more task per respondent: task 1 with its non-chosen alternatives shown twice (4 rows), and
+// for odd-numbered respondents task 2 once more: 18 or 20 rows, so the kernel's passes of 8 and 4
+// rows and its single rows all run.
 const first = sim.rows.filter((r) => r.task === 1);
+const second = sim.rows.filter((r) => r.task === 2 && Number(r.respondent) % 2 === 1);
 const rows = sim.rows.concat(
   first.map((r) => ({ ...r, task: 'extra' })),
   first.filter((r) => r.chosen === 0).map((r) => ({ ...r, task: 'extra', alt: `${r.alt}x` })),
+  second.map((r) => ({ ...r, task: 'again' })),
 );
 const { data } = buildChoiceData(sim.columns, rows);
 const options = {

@@ -71,6 +71,12 @@ export default tseslint.config(
       ],
     },
   },
+  {
+    // React's rules of hooks are for components; API tests' use* set-up helpers (useTestApp)
+    // register vitest hooks at a file's top level, which is where they belong.
+    files: ['tests/{server,db,support}/**/*.ts'],
+    rules: { 'react-hooks/rules-of-hooks': 'off' },
+  },
   ...featureBoundaries,
   {
     files: ['src/{components,lib,hooks,config,utils}/**/*.{ts,tsx}'],

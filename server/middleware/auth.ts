@@ -12,6 +12,7 @@ import { resumeSession } from '../services/sessions';
 import { getMembership } from '../../db/queries/memberships';
 import { roleCan, type Permission } from '../../shared/permissions';
 import { declareAccess } from './access';
+import type { Actor } from '../services/actor';
 
 export function requireUser(deps: AppDeps): RequestHandler {
   return declareAccess(
@@ -25,12 +26,6 @@ export function requireUser(deps: AppDeps): RequestHandler {
     },
     { kind: 'user' },
   );
-}
-
-/** The signed-in user as the audit trail names them. */
-export function actorOf(req: Express.Request): { userId: string; email: string } {
-  if (!req.auth) throw new UnauthenticatedError();
-  return { userId: req.auth.userId, email: req.auth.email };
 }
 
 const teamParams = z.object({ teamId: z.uuid('Unknown team') });
@@ -55,11 +50,9 @@ export function requireTeam(deps: AppDeps, permission: Permission): RequestHandl
   );
 }
 
-export function memberOf(req: Express.Request): {
-  teamId: string;
-  role: import('../../shared/permissions').Role;
-  userId: string;
-} {
+/** The caller of a team route (behind requireTeam): who they are and their role in the team. */
+export function actorOf(req: Express.Request): Actor {
   if (!req.member || !req.auth) throw new UnauthenticatedError();
-  return { ...req.member, userId: req.auth.userId };
+  const { userId, email, name } = req.auth;
+  return { userId, email, name, ...req.member };
 }

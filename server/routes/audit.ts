@@ -6,7 +6,7 @@
 import { Router } from 'express';
 import type { AppDeps } from '../deps';
 import { parseQuery } from '../middleware/validate';
-import { actorOf, memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { actorOf, requireTeam, requireUser } from '../middleware/auth';
 import { listAuditQuerySchema } from '../../shared/schemas/audit';
 import { exportAudit, listAudit } from '../services/audit';
 
@@ -16,11 +16,11 @@ export function createAuditRouter(deps: AppDeps): Router {
   const read = requireTeam(deps, 'audit:read');
 
   router.get('/', read, async (req, res) => {
-    res.json(await listAudit(deps, memberOf(req).teamId, parseQuery(listAuditQuerySchema, req)));
+    res.json(await listAudit(deps, actorOf(req).teamId, parseQuery(listAuditQuerySchema, req)));
   });
   router.get('/export.csv', read, async (req, res) => {
     const query = parseQuery(listAuditQuerySchema, req);
-    const file = await exportAudit(deps, { ...actorOf(req), teamId: memberOf(req).teamId }, query);
+    const file = await exportAudit(deps, actorOf(req), query);
     res
       .set('Cache-Control', 'no-store')
       .type('text/csv; charset=utf-8')

@@ -6,7 +6,7 @@
 import { Router } from 'express';
 import type { AppDeps } from '../deps';
 import { parseBody, parseParams } from '../middleware/validate';
-import { actorOf, memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { actorOf, requireTeam, requireUser } from '../middleware/auth';
 import { studyParamsSchema } from '../services/study-access';
 import { eraseRespondentSchema, erasureLookupSchema } from '../../shared/schemas/erasure';
 import * as erasure from '../services/erasure';
@@ -19,15 +19,13 @@ export function createErasureRouter(deps: AppDeps): Router {
   router.post('/preview', erase, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const lookup = parseBody(erasureLookupSchema, req);
-    res.json(await erasure.previewErasure(deps, memberOf(req).teamId, studyId, lookup));
+    res.json(await erasure.previewErasure(deps, actorOf(req).teamId, studyId, lookup));
   });
 
   router.post('/', erase, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const input = parseBody(eraseRespondentSchema, req);
-    res.json(
-      await erasure.eraseRespondent(deps, memberOf(req).teamId, studyId, input, actorOf(req)),
-    );
+    res.json(await erasure.eraseRespondent(deps, actorOf(req), studyId, input));
   });
 
   return router;

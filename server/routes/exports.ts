@@ -6,7 +6,7 @@
 import { Router, type Request, type Response } from 'express';
 import type { AppDeps } from '../deps';
 import { parseParams, parseQuery } from '../middleware/validate';
-import { actorOf, memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { actorOf, requireTeam, requireUser } from '../middleware/auth';
 import { studyParamsSchema } from '../services/study-access';
 import {
   covarianceQuerySchema,
@@ -45,7 +45,7 @@ export async function send(
   inline = false,
 ): Promise<void> {
   const { studyId } = parseParams(studyParamsSchema, req);
-  await auditPersonalDownload(deps, memberOf(req), actorOf(req), studyId, file);
+  await auditPersonalDownload(deps, actorOf(req), studyId, file);
   res.setHeader('Content-Type', file.contentType);
   res.setHeader('Cache-Control', 'no-store');
   res.setHeader('X-Content-Type-Options', 'nosniff');
@@ -58,14 +58,14 @@ export async function send(
 
 type RunDownload = (
   deps: AppDeps,
-  member: ReturnType<typeof memberOf>,
+  member: ReturnType<typeof actorOf>,
   studyId: string,
   runId: string,
 ) => Promise<Download>;
 
 type StudyDownload = (
   deps: AppDeps,
-  member: ReturnType<typeof memberOf>,
+  member: ReturnType<typeof actorOf>,
   studyId: string,
 ) => Promise<Download>;
 
@@ -79,18 +79,18 @@ export function createExportsRouter(deps: AppDeps): Router {
     router.get(path, read, async (req, res) => {
       const { studyId } = parseParams(studyParamsSchema, req);
       const { runId } = parseQuery(exportRunQuerySchema, req);
-      send(deps, req, res, await make(deps, memberOf(req), studyId, runId), inline);
+      send(deps, req, res, await make(deps, actorOf(req), studyId, runId), inline);
     });
   /** A download of the study's data. */
   const studyFile = (path: string, make: StudyDownload) =>
     router.get(path, read, async (req, res) => {
       const { studyId } = parseParams(studyParamsSchema, req);
-      send(deps, req, res, await make(deps, memberOf(req), studyId));
+      send(deps, req, res, await make(deps, actorOf(req), studyId));
     });
 
   router.get('/', read, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
-    res.json(await getExportManifest(deps, memberOf(req), studyId));
+    res.json(await getExportManifest(deps, actorOf(req), studyId));
   });
   runFile('/taste-profiles.csv', exportProfilesCsv);
   runFile('/taste-profiles.xlsx', exportProfilesXlsx);
@@ -99,17 +99,17 @@ export function createExportsRouter(deps: AppDeps): Router {
   router.get('/estimates.csv', read, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const { runId, table } = parseQuery(estimateTableQuerySchema, req);
-    send(deps, req, res, await exportEstimateTableCsv(deps, memberOf(req), studyId, runId, table));
+    send(deps, req, res, await exportEstimateTableCsv(deps, actorOf(req), studyId, runId, table));
   });
   router.get('/covariance.csv', read, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const { runId, kind } = parseQuery(covarianceQuerySchema, req);
-    send(deps, req, res, await exportCovarianceCsv(deps, memberOf(req), studyId, runId, kind));
+    send(deps, req, res, await exportCovarianceCsv(deps, actorOf(req), studyId, runId, kind));
   });
   router.get('/choices.csv', read, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const { runId } = parseQuery(optionalRunQuerySchema, req);
-    send(deps, req, res, await exportChoicesCsv(deps, memberOf(req), studyId, runId));
+    send(deps, req, res, await exportChoicesCsv(deps, actorOf(req), studyId, runId));
   });
   studyFile('/design.csv', exportDesign);
   studyFile('/background-answers.csv', exportAnswersCsv);

@@ -2,7 +2,7 @@
 import { Router } from 'express';
 import type { AppDeps } from '../deps';
 import { parseParams } from '../middleware/validate';
-import { memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { actorOf, requireTeam, requireUser } from '../middleware/auth';
 import { studyParamsSchema } from '../services/study-access';
 import { getFieldworkStats } from '../services/fieldwork-stats';
 
@@ -11,7 +11,7 @@ export function createFieldworkRouter(deps: AppDeps): Router {
   router.use(requireUser(deps));
   router.get('/', requireTeam(deps, 'responses:read'), async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
-    res.json(await getFieldworkStats(deps, memberOf(req).teamId, studyId));
+    res.json(await getFieldworkStats(deps, actorOf(req).teamId, studyId));
   });
   return router;
 }

@@ -6,7 +6,7 @@ import { Router } from 'express';
 import { z } from 'zod';
 import type { AppDeps } from '../deps';
 import { parseParams } from '../middleware/validate';
-import { memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { actorOf, requireTeam, requireUser } from '../middleware/auth';
 import { acceptOneFile, requireFile } from '../middleware/upload';
 import { publicRoute } from '../middleware/access';
 import { studyParamsSchema } from '../services/study-access';
@@ -27,7 +27,7 @@ export function createStudyFilesRouter(deps: AppDeps): Router {
     async (req, res) => {
       const { studyId } = parseParams(studyParamsSchema, req);
       const file = requireFile(req, 'file');
-      res.status(201).json(await uploadLevelImage(deps, memberOf(req).teamId, studyId, file));
+      res.status(201).json(await uploadLevelImage(deps, actorOf(req).teamId, studyId, file));
     },
   );
   return router;

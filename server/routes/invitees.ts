@@ -7,7 +7,7 @@ import { Router, type RequestHandler } from 'express';
 import type { AppDeps } from '../deps';
 import { parseBody, parseParams, parseQuery } from '../middleware/validate';
 import { acceptOneFile, requireFile } from '../middleware/upload';
-import { memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { actorOf, requireTeam, requireUser } from '../middleware/auth';
 import { studyParamsSchema } from '../services/study-access';
 import {
   importInviteesFieldsSchema,
@@ -39,7 +39,7 @@ export function createInviteesRouter(deps: AppDeps): Router {
     async (req, res) => {
       const { studyId } = parseParams(studyParamsSchema, req);
       res.json(
-        await invitees.previewInviteeCsv(deps, memberOf(req).teamId, studyId, req.file!.buffer),
+        await invitees.previewInviteeCsv(deps, actorOf(req).teamId, studyId, req.file!.buffer),
       );
     },
   );
@@ -48,7 +48,7 @@ export function createInviteesRouter(deps: AppDeps): Router {
     const { studyId } = parseParams(studyParamsSchema, req);
     const { onlyValid } = parseBody(importInviteesFieldsSchema, req);
     res.status(201).json(
-      await invitees.importInviteeCsv(deps, memberOf(req).teamId, studyId, req.file!.buffer, {
+      await invitees.importInviteeCsv(deps, actorOf(req).teamId, studyId, req.file!.buffer, {
         onlyValid,
       }),
     );
@@ -57,25 +57,25 @@ export function createInviteesRouter(deps: AppDeps): Router {
   router.get('/', requireTeam(deps, 'personal:read'), async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const q = parseQuery(listInviteesQuerySchema, req);
-    res.json(await invitees.getInvitees(deps, memberOf(req).teamId, studyId, q));
+    res.json(await invitees.getInvitees(deps, actorOf(req).teamId, studyId, q));
   });
 
   router.delete('/:inviteeId', requireTeam(deps, 'fieldwork:manage'), async (req, res) => {
     const { studyId, inviteeId } = parseParams(inviteeParamsSchema, req);
-    await invitees.removeInvitee(deps, memberOf(req).teamId, studyId, inviteeId);
+    await invitees.removeInvitee(deps, actorOf(req).teamId, studyId, inviteeId);
     res.status(204).end();
   });
 
   router.post('/send', requireTeam(deps, 'fieldwork:manage'), async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const input = parseBody(sendInvitationsSchema, req);
-    res.json(await invitees.sendInvitations(deps, memberOf(req).teamId, studyId, input));
+    res.json(await invitees.sendInvitations(deps, actorOf(req).teamId, studyId, input));
   });
 
   router.post('/remind', requireTeam(deps, 'fieldwork:manage'), async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const input = parseBody(sendRemindersSchema, req);
-    res.json(await invitees.sendReminders(deps, memberOf(req).teamId, studyId, input));
+    res.json(await invitees.sendReminders(deps, actorOf(req).teamId, studyId, input));
   });
 
   return router;

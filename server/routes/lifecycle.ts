@@ -6,7 +6,7 @@
 import { Router, type Request } from 'express';
 import type { AppDeps } from '../deps';
 import { parseBody, parseParams } from '../middleware/validate';
-import { actorOf, memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { actorOf, requireTeam, requireUser } from '../middleware/auth';
 import { studyParamsSchema } from '../services/study-access';
 import { updateFieldworkSettingsSchema } from '../../shared/schemas/study-lifecycle';
 import * as lifecycle from '../services/lifecycle';
@@ -17,7 +17,7 @@ export function createLifecycleRouter(deps: AppDeps): Router {
   const read = requireTeam(deps, 'study:read');
   const manage = requireTeam(deps, 'fieldwork:manage');
   const ids = (req: Request) => ({
-    teamId: memberOf(req).teamId,
+    teamId: actorOf(req).teamId,
     studyId: parseParams(studyParamsSchema, req).studyId,
   });
 

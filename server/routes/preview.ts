@@ -2,7 +2,7 @@
 import { Router } from 'express';
 import type { AppDeps } from '../deps';
 import { parseParams, parseQuery } from '../middleware/validate';
-import { memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { actorOf, requireTeam, requireUser } from '../middleware/auth';
 import { studyParamsSchema } from '../services/study-access';
 import { getStudyPreview } from '../services/study-preview';
 import { studyPreviewQuerySchema } from '../../shared/schemas/respondent';
@@ -13,7 +13,7 @@ export function createPreviewRouter(deps: AppDeps): Router {
   router.get('/', requireTeam(deps, 'study:read'), async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const query = parseQuery(studyPreviewQuerySchema, req);
-    res.json(await getStudyPreview(deps, memberOf(req).teamId, studyId, query));
+    res.json(await getStudyPreview(deps, actorOf(req).teamId, studyId, query));
   });
   return router;
 }

@@ -2,7 +2,7 @@
 import { Router } from 'express';
 import type { AppDeps } from '../deps';
 import { parseBody, parseParams } from '../middleware/validate';
-import { memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { actorOf, requireTeam, requireUser } from '../middleware/auth';
 import { studyParamsSchema } from '../services/study-access';
 import { updateQuestionnaireSchema } from '../../shared/schemas/questionnaire';
 import * as questionnaire from '../services/questionnaire';
@@ -13,7 +13,7 @@ export function createQuestionnaireRouter(deps: AppDeps): Router {
 
   router.get('/', requireTeam(deps, 'study:read'), async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
-    res.json(await questionnaire.getQuestionnaire(deps, memberOf(req).teamId, studyId));
+    res.json(await questionnaire.getQuestionnaire(deps, actorOf(req).teamId, studyId));
   });
   router.put('/', requireTeam(deps, 'study:write'), async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
@@ -21,7 +21,7 @@ export function createQuestionnaireRouter(deps: AppDeps): Router {
     res.json(
       await questionnaire.saveQuestionnaire(
         deps,
-        memberOf(req).teamId,
+        actorOf(req).teamId,
         studyId,
         input.questionnaire,
       ),

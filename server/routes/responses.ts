@@ -6,7 +6,7 @@
 import { Router } from 'express';
 import type { AppDeps } from '../deps';
 import { parseBody, parseParams, parseQuery } from '../middleware/validate';
-import { actorOf, memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { actorOf, requireTeam, requireUser } from '../middleware/auth';
 import { studyParamsSchema } from '../services/study-access';
 import {
   excludeFlaggedSchema,
@@ -26,36 +26,25 @@ export function createResponsesRouter(deps: AppDeps): Router {
   router.get('/', read, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const q = parseQuery(listResponsesQuerySchema, req);
-    res.json(await responses.listResponses(deps, memberOf(req), studyId, q));
+    res.json(await responses.listResponses(deps, actorOf(req), studyId, q));
   });
 
   router.put('/quality-settings', manage, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const input = parseBody(updateQualitySettingsSchema, req);
-    res.json(await responses.saveQualitySettings(deps, memberOf(req).teamId, studyId, input));
+    res.json(await responses.saveQualitySettings(deps, actorOf(req).teamId, studyId, input));
   });
 
   router.post('/exclude-flagged', manage, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const input = parseBody(excludeFlaggedSchema, req);
-    res.json(
-      await responses.excludeFlagged(deps, memberOf(req).teamId, studyId, input, actorOf(req)),
-    );
+    res.json(await responses.excludeFlagged(deps, actorOf(req), studyId, input));
   });
 
   router.put('/:respondentId/inclusion', manage, async (req, res) => {
     const { studyId, respondentId } = parseParams(respondentParamsSchema, req);
     const input = parseBody(setInclusionSchema, req);
-    res.json(
-      await responses.setInclusion(
-        deps,
-        memberOf(req).teamId,
-        studyId,
-        respondentId,
-        input,
-        actorOf(req),
-      ),
-    );
+    res.json(await responses.setInclusion(deps, actorOf(req), studyId, respondentId, input));
   });
 
   return router;

@@ -5,7 +5,7 @@
 import { Router } from 'express';
 import type { AppDeps } from '../deps';
 import { parseBody, parseParams } from '../middleware/validate';
-import { actorOf, memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { actorOf, requireTeam, requireUser } from '../middleware/auth';
 import { studyParamsSchema } from '../services/study-access';
 import {
   createRespondentFilterSchema,
@@ -22,33 +22,33 @@ export function createRunsRouter(deps: AppDeps): Router {
 
   router.get('/', read, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
-    res.json(await runs.listRuns(deps, memberOf(req), studyId));
+    res.json(await runs.listRuns(deps, actorOf(req), studyId));
   });
   router.get('/options', read, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
-    res.json(await runs.getRunOptions(deps, memberOf(req), studyId));
+    res.json(await runs.getRunOptions(deps, actorOf(req), studyId));
   });
   router.post('/', manage, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const input = parseBody(createRunSchema, req);
-    res.status(201).json(await runs.createRun(deps, memberOf(req), studyId, input, actorOf(req)));
+    res.status(201).json(await runs.createRun(deps, actorOf(req), studyId, input));
   });
   router.post('/filters', manage, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const input = parseBody(createRespondentFilterSchema, req);
-    res.status(201).json(await runs.saveRespondentFilter(deps, memberOf(req), studyId, input));
+    res.status(201).json(await runs.saveRespondentFilter(deps, actorOf(req), studyId, input));
   });
   router.get('/:runId', read, async (req, res) => {
     const { studyId, runId } = parseParams(runParamsSchema, req);
-    res.json(await runs.getRun(deps, memberOf(req), studyId, runId));
+    res.json(await runs.getRun(deps, actorOf(req), studyId, runId));
   });
   router.get('/:runId/conditional-means', read, async (req, res) => {
     const { studyId, runId } = parseParams(runParamsSchema, req);
-    res.json(await runs.getConditionalMeans(deps, memberOf(req), studyId, runId));
+    res.json(await runs.getConditionalMeans(deps, actorOf(req), studyId, runId));
   });
   router.post('/:runId/cancel', manage, async (req, res) => {
     const { studyId, runId } = parseParams(runParamsSchema, req);
-    res.json(await runs.cancelRun(deps, memberOf(req), studyId, runId, actorOf(req)));
+    res.json(await runs.cancelRun(deps, actorOf(req), studyId, runId));
   });
 
   return router;

@@ -6,7 +6,7 @@
 import { Router } from 'express';
 import type { AppDeps } from '../deps';
 import { parseBody, parseParams, parseQuery } from '../middleware/validate';
-import { actorOf, memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { actorOf, requireTeam, requireUser } from '../middleware/auth';
 import { studyParamsSchema } from '../services/study-access';
 import {
   shareExportSchema,
@@ -32,23 +32,23 @@ export function createSharesRouter(deps: AppDeps): Router {
   router.get('/model', requireTeam(deps, 'runs:read'), async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const { runId } = parseQuery(shareModelQuerySchema, req);
-    res.json(await getShareModel(deps, memberOf(req), studyId, runId));
+    res.json(await getShareModel(deps, actorOf(req), studyId, runId));
   });
   router.get('/groups', requireTeam(deps, 'runs:read'), async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const query = parseQuery(shareGroupsQuerySchema, req);
-    res.json(await getShareGroups(deps, memberOf(req), studyId, query));
+    res.json(await getShareGroups(deps, actorOf(req), studyId, query));
   });
   router.post('/simulate', requireTeam(deps, 'runs:read'), async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const input = parseBody(simulateSharesSchema, req);
-    res.json(await simulateStudyShares(deps, memberOf(req), studyId, input));
+    res.json(await simulateStudyShares(deps, actorOf(req), studyId, input));
   });
   // A download built from the scenario in the body (which need not be saved): POST, not GET.
   router.post('/export', requireTeam(deps, 'exports:read'), async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const input = parseBody(shareExportSchema, req);
-    await sendDownload(deps, req, res, await exportShares(deps, memberOf(req), studyId, input));
+    await sendDownload(deps, req, res, await exportShares(deps, actorOf(req), studyId, input));
   });
   router.get('/scenarios', requireTeam(deps, 'runs:read'), async (req, res) => {
     const { teamId, studyId } = parseParams(studyParamsSchema, req);

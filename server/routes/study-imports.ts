@@ -9,7 +9,7 @@ import { createReadStream } from 'node:fs';
 import { Router, type Request, type RequestHandler } from 'express';
 import type { AppDeps } from '../deps';
 import { parseBody } from '../middleware/validate';
-import { actorOf, memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { actorOf, requireTeam, requireUser } from '../middleware/auth';
 import { acceptFilesOnDisk, removeUploadedFiles, uploadedFile } from '../middleware/upload';
 import { ValidationError } from '../lib/errors';
 import {
@@ -68,7 +68,7 @@ export function createStudyImportsRouter(deps: AppDeps): Router {
     receiveFiles,
     withUploads(async (req, res) => {
       const { setup } = parseBody(importSetupFieldSchema, req);
-      const actor = { ...memberOf(req), email: actorOf(req).email };
+      const actor = actorOf(req);
       res.status(201).json(await studyImport.saveStudyImport(deps, actor, filesOf(req), setup));
     }),
   );

@@ -6,7 +6,7 @@
 import { Router, type Request } from 'express';
 import type { AppDeps } from '../deps';
 import { parseBody, parseParams } from '../middleware/validate';
-import { actorOf, memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { actorOf, requireTeam, requireUser } from '../middleware/auth';
 import { studyParamsSchema } from '../services/study-access';
 import { parseQuery } from '../middleware/validate';
 import {
@@ -30,7 +30,7 @@ export function createStudyTextsRouter(deps: AppDeps): Router {
   const read = requireTeam(deps, 'study:read');
   const write = requireTeam(deps, 'study:write');
   const ids = (req: Request) => ({
-    teamId: memberOf(req).teamId,
+    teamId: actorOf(req).teamId,
     studyId: parseParams(studyParamsSchema, req).studyId,
   });
 
@@ -39,9 +39,9 @@ export function createStudyTextsRouter(deps: AppDeps): Router {
     res.json(await studyTexts.getStudyTexts(deps, teamId, studyId));
   });
   router.put('/languages', write, async (req, res) => {
-    const { teamId, studyId } = ids(req);
+    const { studyId } = ids(req);
     const { languages } = parseBody(updateLanguagesSchema, req);
-    res.json(await studyTexts.updateLanguages(deps, teamId, studyId, languages, actorOf(req)));
+    res.json(await studyTexts.updateLanguages(deps, actorOf(req), studyId, languages));
   });
   router.get('/:lang/file', read, async (req, res) => {
     const { teamId, studyId } = ids(req);
@@ -55,22 +55,22 @@ export function createStudyTextsRouter(deps: AppDeps): Router {
     res.send(file.body);
   });
   router.post('/:lang/file', write, async (req, res) => {
-    const { teamId, studyId } = ids(req);
+    const { studyId } = ids(req);
     const { lang } = parseParams(languageParamsSchema, req);
     const input = parseBody(importTranslationsSchema, req);
-    res.json(await importTranslationFile(deps, teamId, studyId, lang, input, actorOf(req)));
+    res.json(await importTranslationFile(deps, actorOf(req), studyId, lang, input));
   });
   router.put('/:lang/confirmed', write, async (req, res) => {
-    const { teamId, studyId } = ids(req);
+    const { studyId } = ids(req);
     const { lang } = parseParams(languageParamsSchema, req);
     const { keys } = parseBody(confirmTranslationsSchema, req);
-    res.json(await confirmTranslations(deps, teamId, studyId, lang, keys, actorOf(req)));
+    res.json(await confirmTranslations(deps, actorOf(req), studyId, lang, keys));
   });
   router.put('/:lang', write, async (req, res) => {
-    const { teamId, studyId } = ids(req);
+    const { studyId } = ids(req);
     const { lang } = parseParams(languageParamsSchema, req);
     const { texts } = parseBody(saveTranslationsSchema, req);
-    res.json(await saveTranslations(deps, teamId, studyId, lang, texts, actorOf(req)));
+    res.json(await saveTranslations(deps, actorOf(req), studyId, lang, texts));
   });
   return router;
 }

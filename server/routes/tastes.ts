@@ -5,7 +5,7 @@
 import { Router } from 'express';
 import type { AppDeps } from '../deps';
 import { parseParams, parseQuery } from '../middleware/validate';
-import { memberOf, requireTeam, requireUser } from '../middleware/auth';
+import { actorOf, requireTeam, requireUser } from '../middleware/auth';
 import { studyParamsSchema } from '../services/study-access';
 import {
   compareTastesQuerySchema,
@@ -22,27 +22,27 @@ export function createTastesRouter(deps: AppDeps): Router {
 
   router.get('/runs', read, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
-    res.json(await tastes.listTastesRuns(deps, memberOf(req), studyId));
+    res.json(await tastes.listTastesRuns(deps, actorOf(req), studyId));
   });
   router.get('/', read, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const query = parseQuery(listTastesQuerySchema, req);
-    res.json(await tastes.listTastes(deps, memberOf(req), studyId, query));
+    res.json(await tastes.listTastes(deps, actorOf(req), studyId, query));
   });
   router.get('/segments', read, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const query = parseQuery(segmentsQuerySchema, req);
-    res.json(await tastes.getSegments(deps, memberOf(req), studyId, query));
+    res.json(await tastes.getSegments(deps, actorOf(req), studyId, query));
   });
   router.get('/compare', read, async (req, res) => {
     const { studyId } = parseParams(studyParamsSchema, req);
     const query = parseQuery(compareTastesQuerySchema, req);
-    res.json(await tastes.compareRuns(deps, memberOf(req), studyId, query));
+    res.json(await tastes.compareRuns(deps, actorOf(req), studyId, query));
   });
   router.get('/runs/:runId/respondents/:respondentId', read, async (req, res) => {
     const p = parseParams(respondentProfileParamsSchema, req);
     res.json(
-      await tastes.getRespondentProfile(deps, memberOf(req), p.studyId, p.runId, p.respondentId),
+      await tastes.getRespondentProfile(deps, actorOf(req), p.studyId, p.runId, p.respondentId),
     );
   });
   return router;

@@ -4,15 +4,15 @@
  * and download them as CSV. Owners only ('audit:read', checked by the route).
  */
 import type { AppDeps } from '../deps';
+import type { Actor, AuditName } from './actor';
 import type { DbOrTx } from '../../db/client';
 import { insertAuditEvent, listAuditEvents, type AuditInsert } from '../../db/queries/audit';
 import type { AuditAction, AuditPage, ListAuditQuery } from '../../shared/schemas/audit';
 import { writeCsv } from '../lib/safe-csv';
 
-export type Actor = { userId: string; email: string };
 export type AuditRecord = Omit<AuditInsert, 'action' | 'actorId' | 'actorEmail'> & {
   action: AuditAction;
-  actor?: Actor | null;
+  actor?: AuditName | null;
 };
 
 export async function recordAudit(db: DbOrTx, e: AuditRecord): Promise<void> {
@@ -54,12 +54,7 @@ export async function listAudit(
 }
 
 /** Every event matching the filters (newest first, at most 100,000) as a CSV download. */
-export async function exportAudit(
-  deps: AppDeps,
-  actor: Actor & { teamId: string },
-  q: ListAuditQuery,
-  at = new Date(),
-) {
+export async function exportAudit(deps: AppDeps, actor: Actor, q: ListAuditQuery, at = new Date()) {
   const rows: Awaited<ReturnType<typeof listAuditEvents>> = [];
   let before = q.before;
   for (let page = 0; page < 100; page++) {

@@ -26,8 +26,7 @@ import { updateStudy } from '../../db/queries/studies';
 import { studyDefinitionSchema, type StudyDefinition } from '../../shared/schemas/study-definition';
 import type { Design } from '../../shared/schemas/design';
 import type { DesignJobView } from '../../shared/schemas/design-job';
-
-type Actor = { teamId: string; userId: string };
+import type { Actor } from './actor';
 
 /** The engine's errors in the API's error model. */
 export function toAppError(err: DesignError): AppError {

@@ -10,7 +10,7 @@ import type { AppDeps } from '../deps';
 import type { DbOrTx } from '../../db/client';
 import { AppError, ConflictError } from '../lib/errors';
 import { loadStudy } from './study-access';
-import { recordAudit, type Actor } from './audit';
+import { recordAudit } from './audit';
 import {
   countRespondentData,
   countRunningRuns,
@@ -31,6 +31,7 @@ import type {
   ErasurePreview,
   ErasureResult,
 } from '../../shared/schemas/erasure';
+import type { Actor } from './actor';
 
 type Target = { respondent: LockedRespondent | null; inviteeId: string | null };
 
@@ -117,12 +118,12 @@ export async function previewErasure(
 
 export async function eraseRespondent(
   deps: AppDeps,
-  teamId: string,
+  actor: Actor,
   studyId: string,
   input: EraseRespondentInput,
-  actor: Actor,
   at = new Date(),
 ): Promise<ErasureResult> {
+  const { teamId } = actor;
   await loadStudy(deps, teamId, studyId);
   return deps.db.transaction(async (tx) => {
     const target = await resolveTarget(tx, studyId, input);

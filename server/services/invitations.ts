@@ -1,5 +1,5 @@
 /** Inviting teammates by e-mail with a one-time, expiring link. */
-import { recordAudit, type Actor } from './audit';
+import { recordAudit } from './audit';
 import type { AppDeps } from '../deps';
 import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from '../lib/errors';
 import { createOneTimeToken, hashToken } from '../lib/tokens';
@@ -18,6 +18,7 @@ import type {
   Invitation,
   InvitationPreview,
 } from '../../shared/schemas/team';
+import type { Actor } from './actor';
 
 export const INVITATION_TTL_DAYS = 7;
 
@@ -37,7 +38,7 @@ const toInvitation = (r: {
 
 export async function inviteTeammate(
   deps: AppDeps,
-  actor: { teamId: string; userId: string; name: string; email: string },
+  actor: Actor,
   input: CreateInvitationInput,
 ): Promise<Invitation> {
   const existing = await getUserByEmail(deps.db, { email: input.email });
@@ -84,12 +85,8 @@ export async function listInvitations(deps: AppDeps, teamId: string): Promise<In
   return rows.map(toInvitation);
 }
 
-export async function cancelInvitation(
-  deps: AppDeps,
-  actor: Actor,
-  teamId: string,
-  invitationId: string,
-) {
+export async function cancelInvitation(deps: AppDeps, actor: Actor, invitationId: string) {
+  const { teamId } = actor;
   if (!(await revokeInvitation(deps.db, { id: invitationId, teamId, now: new Date() })))
     throw new NotFoundError('Invitation');
   await recordAudit(deps.db, {

@@ -32,7 +32,8 @@ import {
 import { checkReadiness } from './readiness';
 import { checkStaleTranslations } from './readiness-texts';
 import { languagesOf, loadStudyDocuments } from './study-texts';
-import { recordAudit, type Actor } from './audit';
+import { recordAudit } from './audit';
+import type { Actor } from './actor';
 
 type StudyRow = NonNullable<Awaited<ReturnType<typeof lockStudy>>>;
 

@@ -8,7 +8,7 @@
 import type { AppDeps } from '../deps';
 import { AppError, ConflictError, NotFoundError } from '../lib/errors';
 import { loadStudy } from './study-access';
-import { recordAudit, type Actor } from './audit';
+import { recordAudit } from './audit';
 import { queueDesignJob } from './designs';
 import { toDesignView } from './design-view';
 import { designFitsDefinition } from './design-fit';
@@ -30,8 +30,7 @@ import type { CriterionComparison, RunPriors, RunPriorsQuery } from '../../share
 import { studyDefinitionSchema } from '../../shared/schemas/study-definition';
 import { questionnaireSchema } from '../../shared/schemas/questionnaire';
 import { checkStudyTexts } from './readiness-texts';
-
-type Member = { teamId: string; userId: string };
+import type { Actor } from './actor';
 
 /** The run's estimates as Bayesian priors for the study's current attributes. */
 export async function getRunPriors(
@@ -56,7 +55,7 @@ export async function getRunPriors(
 /** Queues a candidate design beside the current one (any study status). */
 export async function startCandidateJob(
   deps: AppDeps,
-  actor: Member,
+  actor: Actor,
   studyId: string,
   specInput: unknown,
 ) {
@@ -98,10 +97,9 @@ async function loadCandidate(deps: AppDeps, teamId: string, studyId: string, des
  */
 export async function adoptCandidate(
   deps: AppDeps,
-  actor: Member,
+  actor: Actor,
   studyId: string,
   designId: string,
-  auditActor: Actor | null = null,
 ) {
   const candidate = await loadCandidate(deps, actor.teamId, studyId, designId);
   const result = await deps.db.transaction(async (tx) => {
@@ -156,7 +154,7 @@ export async function adoptCandidate(
     await recordAudit(tx, {
       teamId: actor.teamId,
       studyId,
-      actor: auditActor,
+      actor,
       action: 'study.design_adopted',
       details: { study: study.name, designId: candidate.id, version },
     });
@@ -168,7 +166,7 @@ export async function adoptCandidate(
 /** Keeps the current design: the candidate is deleted. */
 export async function discardCandidate(
   deps: AppDeps,
-  actor: Member,
+  actor: Actor,
   studyId: string,
   designId: string,
 ) {

@@ -8,7 +8,8 @@ import type { AppDeps } from '../deps';
 import { NotFoundError } from '../lib/errors';
 import { toDeviceClass } from '../lib/device-class';
 import { loadStudy } from './study-access';
-import { recordAudit, type Actor } from './audit';
+import { recordAudit } from './audit';
+import type { Actor } from './actor';
 import { computeQualityFlags, readChoiceAnswer, type ChoiceAnswer } from './quality-flags';
 import {
   excludeRespondentsWithFlags,
@@ -19,7 +20,7 @@ import {
   updateRespondentFlags,
 } from '../../db/queries/responses';
 import { listChoiceAnswers } from '../../db/queries/study-answers';
-import { roleCan, type Role } from '../../shared/permissions';
+import { roleCan } from '../../shared/permissions';
 import {
   qualityFlagKeys,
   qualityFlagsSchema,
@@ -115,11 +116,11 @@ export async function refreshQualityFlags(
 
 export async function listResponses(
   deps: AppDeps,
-  member: { teamId: string; role: Role },
+  actor: Actor,
   studyId: string,
   q: ListResponsesQuery,
 ): Promise<ResponseList> {
-  const study = await loadStudy(deps, member.teamId, studyId);
+  const study = await loadStudy(deps, actor.teamId, studyId);
   const summary = await refreshQualityFlags(deps, study);
   const { rows, total } = await queryResponses(deps.db, {
     studyId,
@@ -132,7 +133,7 @@ export async function listResponses(
     limit: q.pageSize,
     offset: (q.page - 1) * q.pageSize,
   });
-  const personalData = roleCan(member.role, 'personal:read');
+  const personalData = roleCan(actor.role, 'personal:read');
   return {
     items: rows.map(({ externalId, email, ...r }) => ({
       ...r,
@@ -155,12 +156,12 @@ export async function listResponses(
 
 export async function setInclusion(
   deps: AppDeps,
-  teamId: string,
+  actor: Actor,
   studyId: string,
   respondentId: string,
   input: SetInclusionInput,
-  actor: Actor | null = null,
 ) {
+  const { teamId } = actor;
   await loadStudy(deps, teamId, studyId);
   const reason = input.included ? null : input.reason;
   await deps.db.transaction(async (tx) => {
@@ -188,11 +189,11 @@ export async function setInclusion(
 /** Bulk exclusion: flags are refreshed first, so the decision uses the current threshold. */
 export async function excludeFlagged(
   deps: AppDeps,
-  teamId: string,
+  actor: Actor,
   studyId: string,
   input: ExcludeFlaggedInput,
-  actor: Actor | null = null,
 ) {
+  const { teamId } = actor;
   const study = await loadStudy(deps, teamId, studyId);
   await refreshQualityFlags(deps, study);
   const excluded = await deps.db.transaction(async (tx) => {

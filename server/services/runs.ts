@@ -4,7 +4,7 @@
  * cancelling. The web process never estimates; it only enqueues and reads.
  */
 import type { AppDeps } from '../deps';
-import { recordAudit, type Actor } from './audit';
+import { recordAudit } from './audit';
 import { AppError, ConflictError, NotFoundError, ValidationError } from '../lib/errors';
 import { loadStudy } from './study-access';
 import { getPreparedColumns } from './estimation/code-answers';
@@ -38,10 +38,9 @@ import type {
   RunOptions,
 } from '../../shared/schemas/run';
 import type { EstimationSpec } from '../../shared/schemas/estimation-spec';
+import type { Actor } from './actor';
 
 export const ESTIMATION_JOB = 'estimation-run';
-
-type Member = { teamId: string; userId: string };
 
 /** The name of a run started without one. */
 const DEFAULT_RUN_NAMES: Record<ModelFamily, string> = {
@@ -64,15 +63,15 @@ async function getModelColumns(deps: AppDeps, study: { id: string; definition: u
 
 export async function getRunOptions(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
 ): Promise<RunOptions> {
-  const study = await loadStudy(deps, member.teamId, studyId);
+  const study = await loadStudy(deps, actor.teamId, studyId);
   const [columns, included, filters, runCount, membershipQuestions] = await Promise.all([
     getModelColumns(deps, study),
     listIncludedRespondents(deps.db, { studyId }),
     listRespondentFilters(deps.db, { studyId }),
-    countRuns(deps.db, { teamId: member.teamId, studyId }),
+    countRuns(deps.db, { teamId: actor.teamId, studyId }),
     listMembershipQuestions(deps.db, study),
   ]);
   return {
@@ -121,12 +120,11 @@ function resolveSpecColumns(
 
 export async function createRun(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   input: CreateRun,
-  actor: Actor | null = null,
 ): Promise<Run> {
-  const study = await loadStudy(deps, member.teamId, studyId);
+  const study = await loadStudy(deps, actor.teamId, studyId);
   const spec = resolveSpecColumns(input.spec, await getModelColumns(deps, study));
   const filterId = input.respondents.filterId;
   if (filterId && !(await getRespondentFilter(deps.db, { id: filterId, studyId })))
@@ -144,12 +142,12 @@ export async function createRun(
   const row = await deps.db.transaction(async (tx) => {
     const inserted = await insertRun(tx, {
       studyId,
-      teamId: member.teamId,
+      teamId: actor.teamId,
       name: input.name || DEFAULT_RUN_NAMES[spec.model],
       model: spec.model,
       spec: { ...spec, respondents: { filterId } },
       seed: getRunSeed(spec),
-      createdBy: member.userId,
+      createdBy: actor.userId,
     });
     await jobs.send(ESTIMATION_JOB, { runId: inserted.id }, { tx }).catch((err: unknown) => {
       deps.logger.error({ err }, 'could not enqueue the run');
@@ -158,7 +156,7 @@ export async function createRun(
     return inserted;
   });
   await recordAudit(deps.db, {
-    teamId: member.teamId,
+    teamId: actor.teamId,
     studyId,
     actor,
     action: 'run.started',
@@ -169,22 +167,22 @@ export async function createRun(
   return toRunView(row);
 }
 
-export async function listRuns(deps: AppDeps, member: Member, studyId: string): Promise<Run[]> {
-  await loadStudy(deps, member.teamId, studyId);
-  const rows = await listRunRows(deps.db, { teamId: member.teamId, studyId });
+export async function listRuns(deps: AppDeps, actor: Actor, studyId: string): Promise<Run[]> {
+  await loadStudy(deps, actor.teamId, studyId);
+  const rows = await listRunRows(deps.db, { teamId: actor.teamId, studyId });
   return rows.map(toRunView);
 }
 
-async function loadRun(deps: AppDeps, member: Member, studyId: string, runId: string) {
-  const study = await loadStudy(deps, member.teamId, studyId);
-  const row = await getRunById(deps.db, { id: runId, teamId: member.teamId, studyId });
+async function loadRun(deps: AppDeps, actor: Actor, studyId: string, runId: string) {
+  const study = await loadStudy(deps, actor.teamId, studyId);
+  const row = await getRunById(deps.db, { id: runId, teamId: actor.teamId, studyId });
   if (!row) throw new NotFoundError('Run');
   return { row, study };
 }
 
 /** One run, its columns with the unit and basis of their WTP (from the coding definition). */
-export async function getRun(deps: AppDeps, member: Member, studyId: string, runId: string) {
-  const { row, study } = await loadRun(deps, member, studyId, runId);
+export async function getRun(deps: AppDeps, actor: Actor, studyId: string, runId: string) {
+  const { row, study } = await loadRun(deps, actor, studyId, runId);
   const run = toRunView(row);
   if (!run.results) return run;
   const definition = await getCodingDefinition(deps, study);
@@ -197,18 +195,12 @@ export async function getRun(deps: AppDeps, member: Member, studyId: string, run
 }
 
 /** Queued runs end at once; running ones stop at their next iteration (the worker checks). */
-export async function cancelRun(
-  deps: AppDeps,
-  member: Member,
-  studyId: string,
-  runId: string,
-  actor: Actor | null = null,
-) {
-  await loadRun(deps, member, studyId, runId);
-  const row = await requestRunCancel(deps.db, { id: runId, teamId: member.teamId, studyId });
+export async function cancelRun(deps: AppDeps, actor: Actor, studyId: string, runId: string) {
+  await loadRun(deps, actor, studyId, runId);
+  const row = await requestRunCancel(deps.db, { id: runId, teamId: actor.teamId, studyId });
   if (!row) throw new ConflictError('run_finished', 'The run has already finished.');
   await recordAudit(deps.db, {
-    teamId: member.teamId,
+    teamId: actor.teamId,
     studyId,
     actor,
     action: 'run.cancelled',
@@ -222,11 +214,11 @@ export async function cancelRun(
 /** Respondents' conditional means per coefficient (for density charts); no respondent ids. */
 export async function getConditionalMeans(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   runId: string,
 ): Promise<ConditionalMeans> {
-  const { row } = await loadRun(deps, member, studyId, runId);
+  const { row } = await loadRun(deps, actor, studyId, runId);
   const coefficients = toRunView(row).spec.coefficients.map((c) => c.name);
   const profiles = await listRunProfiles(deps.db, { runId: row.id, studyId: row.studyId });
   return {
@@ -241,10 +233,10 @@ export async function getConditionalMeans(
 /** Saves a named respondent filter that runs can use. */
 export async function saveRespondentFilter(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   input: { name: string; definition: RespondentFilterDefinition },
 ) {
-  await loadStudy(deps, member.teamId, studyId);
+  await loadStudy(deps, actor.teamId, studyId);
   return insertRespondentFilter(deps.db, { studyId, ...input });
 }

@@ -20,25 +20,26 @@ import type {
   ShareResult,
   SimulateShares,
 } from '../../shared/schemas/shares';
-import { loadRunContext, type Member, type RunContext } from './tastes/run-context';
+import { loadRunContext, type RunContext } from './tastes/run-context';
 import { resolveGrouping } from './tastes/get-segments';
 import { computeScenarioWelfare } from './share-welfare';
 import { buildShareModel } from './shares/share-model';
 import { rethrowScenarioError } from './shares/scenario-error';
+import type { Actor } from './actor';
 
-async function loadShareModel(deps: AppDeps, member: Member, studyId: string, runId: string) {
-  const ctx = await loadRunContext(deps, member, studyId, runId);
+async function loadShareModel(deps: AppDeps, actor: Actor, studyId: string, runId: string) {
+  const ctx = await loadRunContext(deps, actor, studyId, runId);
   const profiles = await listRunProfiles(deps.db, { runId: ctx.run.id, studyId });
   return { ctx, profiles, model: buildShareModel(ctx, profiles) };
 }
 
 export async function getShareModel(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   runId: string,
 ): Promise<ShareModel> {
-  return (await loadShareModel(deps, member, studyId, runId)).model;
+  return (await loadShareModel(deps, actor, studyId, runId)).model;
 }
 
 /** Segments in the model's respondent order (profiles by start time, as listRunProfiles). */
@@ -61,11 +62,11 @@ export async function loadShareGroups(
 
 export async function getShareGroups(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   query: ShareGroupsQuery,
 ): Promise<ShareGroups> {
-  const { ctx, profiles, model } = await loadShareModel(deps, member, studyId, query.runId);
+  const { ctx, profiles, model } = await loadShareModel(deps, actor, studyId, query.runId);
   if (model.method === 'point_estimates')
     throw new ValidationError('A run with one set of coefficients for everybody has no segments.', [
       { path: 'runId', message: 'Choose a run with individual estimates' },
@@ -76,7 +77,7 @@ export async function getShareGroups(
 /** The prepared model of a run (with interval draws), for exports and server simulations. */
 export async function loadPreparedShareModel(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   runId: string,
 ): Promise<{
@@ -84,17 +85,17 @@ export async function loadPreparedShareModel(
   prepared: PreparedShareModel;
   profiles: { respondentId: string }[];
 }> {
-  const { ctx, profiles, model } = await loadShareModel(deps, member, studyId, runId);
+  const { ctx, profiles, model } = await loadShareModel(deps, actor, studyId, runId);
   return { ctx, profiles, prepared: prepareShareModel(model) };
 }
 
 export async function simulateStudyShares(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   input: SimulateShares,
 ): Promise<ShareResult> {
-  const { ctx, profiles, model } = await loadShareModel(deps, member, studyId, input.runId);
+  const { ctx, profiles, model } = await loadShareModel(deps, actor, studyId, input.runId);
   // Point shares only (no interval draws): this is the server's answer of record.
   const prepared = prepareShareModel({ ...model, interval: null });
   const usesProfiles = model.method !== 'point_estimates';

@@ -18,8 +18,8 @@ import { emptyStudyDefinition, type StudyDefinition } from '../../shared/schemas
 import type { Design } from '../../shared/schemas/design';
 import type { Study, StudySummary } from '../../shared/schemas/study';
 import { designFitsDefinition } from './design-fit';
+import type { Actor } from './actor';
 
-type Actor = { teamId: string; userId: string };
 type StudyRow = NonNullable<Awaited<ReturnType<typeof getStudyWithCounts>>>;
 
 function toSummary(row: StudyRow): StudySummary {

@@ -28,8 +28,7 @@ import {
   toStudyDefinition,
 } from './study-import/build-imported-study';
 import type { BackgroundScan } from './study-import/read-background-file';
-
-type Actor = { teamId: string; userId: string; email: string };
+import type { Actor } from './actor';
 
 export async function previewStudyImport(
   files: ImportFiles,

@@ -5,7 +5,7 @@
  */
 import type { AppDeps } from '../deps';
 import { ValidationError } from '../lib/errors';
-import { recordAudit, type Actor } from './audit';
+import { recordAudit } from './audit';
 import { getQuestionnaire } from './questionnaire';
 import { assertDraft } from './studies';
 import { loadStudy } from './study-access';
@@ -21,6 +21,7 @@ import {
 } from '../../shared/languages/study-texts';
 import { emptyStudyDefinition, studyDefinitionSchema } from '../../shared/schemas/study-definition';
 import type { StudyTextsView } from '../../shared/schemas/study-texts';
+import type { Actor } from './actor';
 
 type StudyRow = Awaited<ReturnType<typeof loadStudy>>;
 
@@ -69,11 +70,11 @@ export async function getStudyTexts(
  */
 export async function updateLanguages(
   deps: AppDeps,
-  teamId: string,
+  actor: Actor,
   studyId: string,
   languages: string[],
-  actor: Actor,
 ): Promise<StudyTextsView> {
+  const { teamId } = actor;
   const study = await loadStudy(deps, teamId, studyId);
   assertDraft(study, 'its languages');
   const [source, ...others] = study.languages;

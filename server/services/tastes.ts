@@ -18,11 +18,12 @@ import type {
 } from '../../shared/schemas/tastes';
 import type { RunResult } from '../../shared/schemas/run';
 import type { ModelFamily } from '../../shared/schemas/estimation-families';
-import { loadRunContext, type Member } from './tastes/run-context';
+import { loadRunContext } from './tastes/run-context';
 import { indexAnswers } from './tastes/background-answers';
 import { toTasteRow } from './tastes/taste-rows';
 import { getWtpUnavailableReason } from './exports/estimate-tables';
 import type { EstimationSpec } from '../../shared/schemas/estimation-spec';
+import type { Actor } from './actor';
 
 export { getSegments } from './tastes/get-segments';
 export { getRespondentProfile } from './tastes/get-respondent-profile';
@@ -30,11 +31,11 @@ export { compareRuns } from './tastes/compare-runs';
 
 export async function listTastesRuns(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
 ): Promise<TastesRun[]> {
-  await loadStudy(deps, member.teamId, studyId);
-  const rows = await listFinishedRuns(deps.db, { teamId: member.teamId, studyId });
+  await loadStudy(deps, actor.teamId, studyId);
+  const rows = await listFinishedRuns(deps.db, { teamId: actor.teamId, studyId });
   return rows.map((r) => ({
     id: r.id,
     name: r.name,
@@ -63,11 +64,11 @@ export function resolveSort(sort: string, header: TasteHeader): TasteSort {
 
 export async function listTastes(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   query: ListTastesQuery,
 ): Promise<TasteList> {
-  const { header } = await loadRunContext(deps, member, studyId, query.runId);
+  const { header } = await loadRunContext(deps, actor, studyId, query.runId);
   const sort = resolveSort(query.sort, header);
   if ((query.question === undefined) !== (query.answer === undefined))
     throw new ValidationError('Give a question and an answer to filter by.', [

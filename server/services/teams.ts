@@ -15,9 +15,10 @@ import {
   updateTeam,
 } from '../../db/queries/memberships';
 import type { Role } from '../../shared/permissions';
-import { recordAudit, type Actor } from './audit';
+import { recordAudit } from './audit';
 import { endUserSessions } from './sessions';
 import type { Member } from '../../shared/schemas/team';
+import type { Actor } from './actor';
 
 export async function listMyTeams(deps: AppDeps, userId: string) {
   const rows = await listTeamsOfUser(deps.db, { userId });
@@ -56,13 +57,8 @@ const lastOwner = () =>
   );
 
 /** Changes a member's role and records who did it, in one transaction. */
-export async function changeMemberRole(
-  deps: AppDeps,
-  actor: Actor,
-  teamId: string,
-  userId: string,
-  role: Role,
-) {
+export async function changeMemberRole(deps: AppDeps, actor: Actor, userId: string, role: Role) {
+  const { teamId } = actor;
   return deps.db.transaction(async (tx) => {
     await lockTeam(tx, { teamId });
     const m = await getMembership(tx, { teamId, userId });
@@ -87,7 +83,8 @@ export async function changeMemberRole(
  * Removes a member. Their sign-in sessions end too, so a copied session cannot outlive the
  * removal; the removal and its audit record are one transaction.
  */
-export async function removeMember(deps: AppDeps, actor: Actor, teamId: string, userId: string) {
+export async function removeMember(deps: AppDeps, actor: Actor, userId: string) {
+  const { teamId } = actor;
   await deps.db.transaction(async (tx) => {
     await lockTeam(tx, { teamId });
     const m = await getMembership(tx, { teamId, userId });

@@ -21,7 +21,7 @@ import {
   upsertPendingTotp,
 } from '../../db/queries/totp';
 import { endUserSessions, openSession } from './sessions';
-import { recordAudit, type Actor } from './audit';
+import { recordAudit } from './audit';
 import type {
   DisableTwoStepInput,
   EnableTwoStepInput,
@@ -30,6 +30,7 @@ import type {
   TwoStepSetup,
   TwoStepStatus,
 } from '../../shared/schemas/two-step';
+import type { AuditName } from './actor';
 
 const PERIOD_SECONDS = 30;
 /** Codes one step early or late still count: phone clocks drift (RFC 6238 §5.2 allows one). */
@@ -101,7 +102,7 @@ export async function hasTwoStep(db: DbOrTx, userId: string): Promise<boolean> {
 }
 
 /** A new secret for the app to store; replaces an unfinished enrolment, never an enabled one. */
-export async function startTwoStepSetup(deps: AppDeps, actor: Actor): Promise<TwoStepSetup> {
+export async function startTwoStepSetup(deps: AppDeps, actor: AuditName): Promise<TwoStepSetup> {
   const secret = new OTPAuth.Secret({ size: 20 }).base32;
   const row = await upsertPendingTotp(deps.db, { userId: actor.userId, secret });
   if (!row)
@@ -115,7 +116,7 @@ export async function startTwoStepSetup(deps: AppDeps, actor: Actor): Promise<Tw
 /** Finishes the enrolment with a code from the app; other sessions end; codes shown once. */
 export async function enableTwoStep(
   deps: AppDeps,
-  current: Actor & { sessionId: string },
+  current: AuditName & { sessionId: string },
   input: EnableTwoStepInput,
   now = new Date(),
 ): Promise<RecoveryCodes> {
@@ -200,7 +201,7 @@ export async function finishTwoStepSignIn(
   );
 }
 
-export async function disableTwoStep(deps: AppDeps, actor: Actor, input: DisableTwoStepInput) {
+export async function disableTwoStep(deps: AppDeps, actor: AuditName, input: DisableTwoStepInput) {
   const user = await getUserById(deps.db, { id: actor.userId });
   if (!user) throw new UnauthenticatedError();
   const { ok } = await verifyPassword(user.passwordHash, input.password);
@@ -218,7 +219,7 @@ export async function disableTwoStep(deps: AppDeps, actor: Actor, input: Disable
 /** New recovery codes (the old ones stop working), for a code from the app. */
 export async function renewRecoveryCodes(
   deps: AppDeps,
-  actor: Actor,
+  actor: AuditName,
   input: EnableTwoStepInput,
 ): Promise<RecoveryCodes> {
   return deps.db.transaction(async (tx) => {

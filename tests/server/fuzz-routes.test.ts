@@ -6,10 +6,10 @@
  * message; a 400 on invalid input names its fields), and a route that refused every generated
  * request changed nothing in the database.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import type supertest from 'supertest';
-import { createTestApp, type TestApp } from '../support/test-app';
+import { useTestApp } from '../support/test-app';
 import { signUpOwner } from '../support/factories';
 import { databaseFingerprint } from '../support/db-fingerprint';
 import { hostileText } from '../support/hostile-text';
@@ -137,23 +137,19 @@ const queryArb = fc.dictionary(
   { maxKeys: 4 },
 );
 
-let t: TestApp;
+const t = useTestApp();
 let owner: Awaited<ReturnType<typeof signUpOwner>>;
 let routes: RouteEntry[];
 let real: Record<string, string>;
 let respondentToken: string;
 
 beforeAll(async () => {
-  t = await createTestApp();
   owner = await signUpOwner(t);
   routes = listApiRoutes(t.app);
   const live = await startLiveSession(t, owner.agent, owner.teamId);
   const draft = await insertStudy(t, owner.teamId);
   respondentToken = live.session.sessionToken;
   real = { teamId: owner.teamId, studyId: draft.id, publicId: live.study.publicId };
-});
-afterAll(async () => {
-  await t.close();
 });
 
 function isPublic(route: RouteEntry): boolean {

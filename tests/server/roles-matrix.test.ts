@@ -3,11 +3,11 @@
  * role lacks the permission gets 403, a signed-in outsider 404 (the team's existence is not
  * revealed), an anonymous caller 401 — and none of those refused calls changes anything.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { sql } from 'drizzle-orm';
 import type supertest from 'supertest';
 import { randomBytes } from 'node:crypto';
-import { createTestApp, type TestApp } from '../support/test-app';
+import { useTestApp } from '../support/test-app';
 import { createTeamWithAllRoles, uniqueEmail } from '../support/factories';
 import { listMailTo } from '../support/mailbox';
 import { insertUser } from '../../db/queries/users';
@@ -101,15 +101,11 @@ const errorCode: Record<number, string> = {
   404: 'not_found',
 };
 
-let t: TestApp;
+const t = useTestApp();
 let world: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
 
 beforeAll(async () => {
-  t = await createTestApp();
   world = await createTeamWithAllRoles(t);
-});
-afterAll(async () => {
-  await t.close();
 });
 
 function agentFor(caller: Caller): supertest.Agent {

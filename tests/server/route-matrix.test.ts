@@ -8,10 +8,10 @@
  * role without the permission, and through to the handler otherwise. No refused call changes
  * the database. Respondent routes bound to a session refuse another study's session token.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
 import type supertest from 'supertest';
-import { createTestApp, type TestApp } from '../support/test-app';
+import { useTestApp } from '../support/test-app';
 import { createTeamWithAllRoles, signUpOwner } from '../support/factories';
 import { databaseFingerprint } from '../support/db-fingerprint';
 import {
@@ -54,7 +54,7 @@ function refusal(rule: Rule, caller: Caller): { status: number; code: string } |
 const SESSION_ROUTES = ['GET /session', 'POST /answers', 'POST /revisions', 'POST /language'];
 const OPEN_LINK_ROUTES = ['GET ', 'POST /sessions'];
 
-let t: TestApp;
+const t = useTestApp();
 let world: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
 let routes: RouteEntry[];
 /** A live study of another team with one respondent session: its token is the "respondent". */
@@ -64,7 +64,6 @@ let liveScreens: LiveScreen[];
 let liveToken: string;
 
 beforeAll(async () => {
-  t = await createTestApp();
   world = await createTeamWithAllRoles(t);
   routes = listApiRoutes(t.app);
   const elsewhere = await signUpOwner(t, { teamName: 'Another utility' });
@@ -74,9 +73,6 @@ beforeAll(async () => {
   livePublicId = live.study.publicId;
   liveScreens = live.session.screens;
   liveToken = live.session.sessionToken;
-});
-afterAll(async () => {
-  await t.close();
 });
 
 function agentFor(caller: Caller): supertest.Agent {

@@ -5,17 +5,11 @@
  * Strict-Transport-Security, 14.4.6 a Referrer-Policy, 14.4.7 framing only by the app itself;
  * section numbers from memory) as helmet sets them, with the app's own CSP (server/app.ts).
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Response } from 'supertest';
-import { createTestApp, type TestApp } from '../support/test-app';
+import { useTestApp } from '../support/test-app';
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await createTestApp();
-});
-afterAll(async () => {
-  await t.close();
-});
+const t = useTestApp();
 
 function expectSecurityHeaders(res: Response) {
   const h = res.headers;

@@ -3,6 +3,7 @@ import { randomBytes } from 'node:crypto';
 import type supertest from 'supertest';
 import type { Role } from '../../shared/permissions';
 import type { TestApp } from './test-app';
+import type { Actor } from '../../server/services/actor';
 import { firstLink, waitForMailWithSubject } from './mailbox';
 import { hashPassword } from '../../server/lib/passwords';
 import { insertUser } from '../../db/queries/users';
@@ -86,6 +87,11 @@ export async function createTeamWithAllRoles(t: TestApp) {
 
 export async function createBareTeam(t: TestApp, name = 'Bare team') {
   return insertTeam(t.deps.db, { name });
+}
+
+/** The caller of a team use case, for tests that call a service directly (not over HTTP). */
+export function teamActor(a: { teamId: string; userId: string } & Partial<Actor>): Actor {
+  return { role: 'owner', email: 'caller@example.test', name: 'Test caller', ...a };
 }
 
 export const randomHex = (n = 4) => randomBytes(n).toString('hex');

@@ -2,6 +2,7 @@
  * The API in-process against a real PostgreSQL database of its own, with mail going to the
  * fake SMTP server the global setup started (read back through tests/support/mailbox.ts).
  */
+import { afterAll, beforeAll } from 'vitest';
 import supertest from 'supertest';
 import type { Express } from 'express';
 import { createApp } from '../../server/app';
@@ -67,4 +68,24 @@ export async function createTestApp(
       await testDb.close();
     },
   };
+}
+
+/**
+ * The usual set-up of an API test file: one test app for the whole file, created before its
+ * tests and closed after them. The returned object is filled in by the `beforeAll`, so read its
+ * fields inside hooks and tests only. A file's own `afterAll` hooks run before this one closes
+ * the app (vitest runs after-hooks in reverse order of registration).
+ */
+export function useTestApp(
+  overrides: Record<string, string> = {},
+  options: { viaProxy?: TcpProxy; logDestination?: DestinationStream } = {},
+): TestApp {
+  const t = {} as TestApp;
+  beforeAll(async () => {
+    Object.assign(t, await createTestApp(overrides, options));
+  });
+  afterAll(async () => {
+    await t.close?.();
+  });
+  return t;
 }

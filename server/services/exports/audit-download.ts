@@ -1,19 +1,18 @@
 /** Records a download that holds personal data in the audit trail (file name, never contents). */
 import type { AppDeps } from '../../deps';
-import { recordAudit, type Actor } from '../audit';
-import type { Member } from '../tastes/run-context';
+import { recordAudit } from '../audit';
+import type { Actor } from '../actor';
 import type { Download } from './download';
 
 export async function auditPersonalDownload(
   deps: AppDeps,
-  member: Member,
   actor: Actor,
   studyId: string,
   file: Download,
 ): Promise<void> {
   if (!file.personal) return;
   await recordAudit(deps.db, {
-    teamId: member.teamId,
+    teamId: actor.teamId,
     studyId,
     actor,
     action: 'export.personal_data',

@@ -17,11 +17,11 @@ import {
   loadVersionInputs,
   toLongCsvRows,
 } from '../choice-data-from-study';
-import type { Member } from '../tastes/run-context';
 import { writeCsv } from '../../lib/safe-csv';
 import { buildLongChoiceTable } from './long-choice-file';
 import type { DocumentedTable } from './documented-table';
 import { CSV, fileName, type Download } from './download';
+import type { Actor } from '../actor';
 
 /** The long choice file of every respondent (see the file comment). */
 export async function loadLongChoiceTable(
@@ -39,12 +39,12 @@ export async function loadLongChoiceTable(
 
 export async function exportChoicesCsv(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   runId?: string,
   at = new Date(),
 ): Promise<Download> {
-  const study = await loadStudy(deps, member.teamId, studyId);
+  const study = await loadStudy(deps, actor.teamId, studyId);
   const file = (kind: string, body: string): Download => ({
     filename: fileName(study.name, kind, 'csv', at),
     contentType: CSV,
@@ -60,7 +60,7 @@ export async function exportChoicesCsv(
       ),
     );
   }
-  const run = await getRunById(deps.db, { id: runId, teamId: member.teamId, studyId });
+  const run = await getRunById(deps.db, { id: runId, teamId: actor.teamId, studyId });
   if (!run) throw new NotFoundError('Run');
   const keys = (run.spec as { coefficients: { name: string; column?: string }[] }).coefficients.map(
     (c) => c.column ?? c.name,

@@ -1,20 +1,21 @@
 /** The run's classical or robust covariance matrix of the estimates (user units) as CSV. */
 import type { AppDeps } from '../../deps';
 import { ConflictError } from '../../lib/errors';
-import { loadRunContext, type Member } from '../tastes/run-context';
+import { loadRunContext } from '../tastes/run-context';
 import { writeCsv } from '../../lib/safe-csv';
 import { buildCovarianceTable, type CovarianceKind } from './covariance-table';
 import { CSV, fileName, type Download } from './download';
+import type { Actor } from '../actor';
 
 export async function exportCovarianceCsv(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   runId: string,
   kind: CovarianceKind,
   at = new Date(),
 ): Promise<Download> {
-  const ctx = await loadRunContext(deps, member, studyId, runId);
+  const ctx = await loadRunContext(deps, actor, studyId, runId);
   const table = buildCovarianceTable(ctx.results, kind);
   if (!table)
     throw new ConflictError(

@@ -6,16 +6,16 @@ import { loadStudy } from '../study-access';
 import type { StudyDefinition } from '../../../shared/schemas/study-definition';
 import type { Design } from '../../../shared/schemas/design';
 import { exportDesignCsv } from '../../engine/design/export-design-csv';
-import type { Member } from '../tastes/run-context';
 import { CSV, fileName, type Download } from './download';
+import type { Actor } from '../actor';
 
 export async function exportDesign(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   at = new Date(),
 ): Promise<Download> {
-  const study = await loadStudy(deps, member.teamId, studyId);
+  const study = await loadStudy(deps, actor.teamId, studyId);
   const version = await getLatestVersion(deps.db, { studyId });
   if (!version) throw new NotFoundError('Frozen design');
   return {

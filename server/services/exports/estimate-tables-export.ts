@@ -6,13 +6,14 @@ import ExcelJS from 'exceljs';
 import type { AppDeps } from '../../deps';
 import { ConflictError } from '../../lib/errors';
 import { writeCsv } from '../../lib/safe-csv';
-import { loadRunContext, type Member, type RunContext } from '../tastes/run-context';
+import { loadRunContext, type RunContext } from '../tastes/run-context';
 import { getRunSummary } from './run-summary';
 import { buildEstimateTables, getWtpUnavailableReason } from './estimate-tables';
 import { buildCodebookRows, codebookHeader, type DocumentedTable } from './documented-table';
 import { addAboutSheet, addCodebookSheet, addTableSheet } from './documented-xlsx';
 import { CSV, XLSX, fileName, type Download } from './download';
 import type { EstimateTableName } from '../../../shared/schemas/exports';
+import type { Actor } from '../actor';
 
 const SHEET_TITLES: Record<string, string> = { estimates: 'Estimates', wtp: 'WTP', fit: 'Fit' };
 
@@ -36,12 +37,12 @@ export async function writeEstimateTablesXlsx(
 
 export async function exportEstimateTablesXlsx(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   runId: string,
   at = new Date(),
 ): Promise<Download> {
-  const ctx = await loadRunContext(deps, member, studyId, runId);
+  const ctx = await loadRunContext(deps, actor, studyId, runId);
   return {
     filename: fileName(ctx.study.name, 'estimates', 'xlsx', at),
     contentType: XLSX,
@@ -52,13 +53,13 @@ export async function exportEstimateTablesXlsx(
 /** One table (or the codebook of all of them) as CSV. */
 export async function exportEstimateTableCsv(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   runId: string,
   name: EstimateTableName,
   at = new Date(),
 ): Promise<Download> {
-  const ctx = await loadRunContext(deps, member, studyId, runId);
+  const ctx = await loadRunContext(deps, actor, studyId, runId);
   const tables = buildEstimateTables(ctx);
   const file = (body: string): Download => ({
     filename: fileName(

@@ -4,17 +4,17 @@ import type { AppDeps } from '../../deps';
 import { loadStudy } from '../study-access';
 import { roleCan } from '../../../shared/permissions';
 import type { ExportManifest } from '../../../shared/schemas/exports';
-import type { Member } from '../tastes/run-context';
+import type { Actor } from '../actor';
 
 export async function getExportManifest(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
 ): Promise<ExportManifest> {
-  const study = await loadStudy(deps, member.teamId, studyId);
+  const study = await loadStudy(deps, actor.teamId, studyId);
   const version = await getLatestVersion(deps.db, { studyId });
   return {
-    personalColumns: roleCan(member.role, 'personal:read'),
+    personalColumns: roleCan(actor.role, 'personal:read'),
     designAvailable: version !== null || study.currentDesignId !== null,
     choicesAvailable: version !== null,
   };

@@ -5,7 +5,7 @@
 import type { AppDeps } from '../../deps';
 import { listQuestionAnswers } from '../../../db/queries/study-answers';
 import { listRunProfiles } from '../../../db/queries/taste-profiles';
-import { loadRunContext, type Member } from '../tastes/run-context';
+import { loadRunContext } from '../tastes/run-context';
 import { indexAnswers } from '../tastes/background-answers';
 import { writeCsv } from '../../lib/safe-csv';
 import { buildProfileTable } from './profile-table';
@@ -13,9 +13,10 @@ import { writeProfilesXlsx } from './profiles-xlsx';
 import { renderRunReport } from './run-report';
 import { loadReportScenarios } from './report-scenarios';
 import { CSV, HTML, XLSX, fileName, type Download } from './download';
+import type { Actor } from '../actor';
 
-async function loadProfileTable(deps: AppDeps, member: Member, studyId: string, runId: string) {
-  const ctx = await loadRunContext(deps, member, studyId, runId);
+async function loadProfileTable(deps: AppDeps, actor: Actor, studyId: string, runId: string) {
+  const ctx = await loadRunContext(deps, actor, studyId, runId);
   const profiles = await listRunProfiles(deps.db, { runId, studyId });
   const answers = indexAnswers(await listQuestionAnswers(deps.db, { studyId }));
   return {
@@ -27,12 +28,12 @@ async function loadProfileTable(deps: AppDeps, member: Member, studyId: string, 
 
 export async function exportProfilesCsv(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   runId: string,
   at = new Date(),
 ): Promise<Download> {
-  const { ctx, table } = await loadProfileTable(deps, member, studyId, runId);
+  const { ctx, table } = await loadProfileTable(deps, actor, studyId, runId);
   return {
     filename: fileName(ctx.study.name, 'taste-profiles', 'csv', at),
     contentType: CSV,
@@ -43,12 +44,12 @@ export async function exportProfilesCsv(
 
 export async function exportProfilesXlsx(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   runId: string,
   at = new Date(),
 ): Promise<Download> {
-  const { ctx, table } = await loadProfileTable(deps, member, studyId, runId);
+  const { ctx, table } = await loadProfileTable(deps, actor, studyId, runId);
   return {
     filename: fileName(ctx.study.name, 'taste-profiles', 'xlsx', at),
     contentType: XLSX,
@@ -59,12 +60,12 @@ export async function exportProfilesXlsx(
 
 export async function exportRunReport(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   runId: string,
   at = new Date(),
 ): Promise<Download> {
-  const { ctx, profiles } = await loadProfileTable(deps, member, studyId, runId);
+  const { ctx, profiles } = await loadProfileTable(deps, actor, studyId, runId);
   const lowDraws = profiles.filter((p) => p.effectiveDraws < ctx.header.lowDrawsThreshold).length;
   return {
     filename: fileName(ctx.study.name, 'run-report', 'html', at),
@@ -73,7 +74,7 @@ export async function exportRunReport(
       ctx,
       { count: profiles.length, lowDraws },
       at,
-      await loadReportScenarios(deps, member, studyId, runId),
+      await loadReportScenarios(deps, actor, studyId, runId),
     ),
   };
 }

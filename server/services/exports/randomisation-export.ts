@@ -1,12 +1,12 @@
 /** The randomisation-record download (exports/randomisation-table.ts): no personal columns. */
 import type { AppDeps } from '../../deps';
 import { loadStudy } from '../study-access';
-import type { Member } from '../tastes/run-context';
 import { listStudyRespondents } from '../../../db/queries/study-respondents';
 import { z } from 'zod';
 import { writeCsv } from '../../lib/safe-csv';
 import { CSV, fileName, type Download } from './download';
 import { buildRandomisationRows, randomisationHeader } from './randomisation-table';
+import type { Actor } from '../actor';
 
 const attributeNamesSchema = z.object({
   attributes: z.array(z.object({ id: z.string(), name: z.string() })),
@@ -14,11 +14,11 @@ const attributeNamesSchema = z.object({
 
 export async function exportRandomisationCsv(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   at = new Date(),
 ): Promise<Download> {
-  const study = await loadStudy(deps, member.teamId, studyId);
+  const study = await loadStudy(deps, actor.teamId, studyId);
   const respondents = await listStudyRespondents(deps.db, { studyId });
   // Attribute ids never change once made, so the study's current names label every version;
   // only ids and names are read, so a draft that does not validate yet still names them.

@@ -13,10 +13,10 @@ import {
 } from '../../../shared/engine/shares/share-model';
 import { ScenarioError } from '../../../shared/engine/shares/code-scenario';
 import type { ScenarioAlternative, ShareMethod } from '../../../shared/schemas/shares';
-import type { Member } from '../tastes/run-context';
 import { loadPreparedShareModel } from '../shares';
 import { computeScenarioWelfare, type WelfareOutcome } from '../share-welfare';
 import { describeLevels } from '../shares/share-export';
+import type { Actor } from '../actor';
 
 export type ReportScenario = {
   name: string;
@@ -35,13 +35,13 @@ export type ReportScenarios = {
 
 export async function loadReportScenarios(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   runId: string,
 ): Promise<ReportScenarios> {
-  const saved = await listShareScenarios(deps.db, { teamId: member.teamId, studyId });
+  const saved = await listShareScenarios(deps.db, { teamId: actor.teamId, studyId });
   if (saved.length === 0) return { scenarios: [], method: null, intervalNote: null };
-  const { ctx, prepared } = await loadPreparedShareModel(deps, member, studyId, runId);
+  const { ctx, prepared } = await loadPreparedShareModel(deps, actor, studyId, runId);
   const model = prepared.model;
   const scenarios = saved.map((row): ReportScenario => {
     const alternatives = (row.alternatives as ScenarioAlternative[]).map((a) => ({

@@ -9,7 +9,6 @@ import { loadStudy } from '../study-access';
 import { listQuestionAnswers } from '../../../db/queries/study-answers';
 import { listStudyRespondents } from '../../../db/queries/study-respondents';
 import { roleCan } from '../../../shared/permissions';
-import type { Member } from '../tastes/run-context';
 import {
   getBackgroundQuestions,
   indexAnswers,
@@ -23,11 +22,12 @@ import { listAnswerHistory, listRevisedAnswers } from '../../../db/queries/answe
 import { answerHistoryHeader, buildAnswerHistory, revisedScreensOf } from './answer-history';
 import { CSV, fileName, type Download } from './download';
 import { getInclusion } from './inclusion';
+import type { Actor } from '../actor';
 
 /** The study's respondents and the background questions this role may read. */
-export async function loadRespondentTable(deps: AppDeps, member: Member, studyId: string) {
-  const study = await loadStudy(deps, member.teamId, studyId);
-  const personal = roleCan(member.role, 'personal:read');
+export async function loadRespondentTable(deps: AppDeps, actor: Actor, studyId: string) {
+  const study = await loadStudy(deps, actor.teamId, studyId);
+  const personal = roleCan(actor.role, 'personal:read');
   const version = await getLatestVersion(deps.db, { studyId });
   const questions = getBackgroundQuestions(version?.questionnaire ?? study.questionnaire).filter(
     (q) => personal || !q.personal,
@@ -43,13 +43,13 @@ export async function loadRespondentTable(deps: AppDeps, member: Member, studyId
 /** Every respondent with their status and background answers. */
 export async function exportAnswersCsv(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   at = new Date(),
 ): Promise<Download> {
   const { study, personal, questions, respondents, versionNumber } = await loadRespondentTable(
     deps,
-    member,
+    actor,
     studyId,
   );
   const answers = indexAnswers(await listQuestionAnswers(deps.db, { studyId }));
@@ -102,13 +102,13 @@ export async function exportAnswersCsv(
  */
 export async function exportAnswerHistoryCsv(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   at = new Date(),
 ): Promise<Download> {
   const { study, personal, questions, respondents } = await loadRespondentTable(
     deps,
-    member,
+    actor,
     studyId,
   );
   const numbers = new Map(respondents.map((r) => [r.id, r.number]));

@@ -5,7 +5,6 @@
 import type { AppDeps } from '../../deps';
 import { listChoiceAnswers, listQuestionAnswers } from '../../../db/queries/study-answers';
 import { loadVersionInputs } from '../choice-data-from-study';
-import type { Member } from '../tastes/run-context';
 import { indexAnswers } from '../tastes/background-answers';
 import { writeCsv } from '../../lib/safe-csv';
 import { loadRespondentTable } from './respondent-exports';
@@ -14,11 +13,12 @@ import { buildWideTable } from './wide-file';
 import { renderRImportScript } from './r-import-script';
 import { buildCodebookRows, codebookHeader } from './documented-table';
 import { CSV, R_SCRIPT, fileName, type Download } from './download';
+import type { Actor } from '../actor';
 
-async function loadWideTable(deps: AppDeps, member: Member, studyId: string) {
+async function loadWideTable(deps: AppDeps, actor: Actor, studyId: string) {
   const { study, personal, questions, respondents } = await loadRespondentTable(
     deps,
-    member,
+    actor,
     studyId,
   );
   const [versions, choices, answers] = await Promise.all([
@@ -39,11 +39,11 @@ async function loadWideTable(deps: AppDeps, member: Member, studyId: string) {
 
 export async function exportWideCsv(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   at = new Date(),
 ): Promise<Download> {
-  const { study, personal, table } = await loadWideTable(deps, member, studyId);
+  const { study, personal, table } = await loadWideTable(deps, actor, studyId);
   return {
     filename: fileName(study.name, 'respondents-wide', 'csv', at),
     contentType: CSV,
@@ -58,11 +58,11 @@ export async function exportWideCsv(
 /** The R script for the wide CSV this role downloads on the same day (same columns). */
 export async function exportWideRScript(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   at = new Date(),
 ): Promise<Download> {
-  const { study, table } = await loadWideTable(deps, member, studyId);
+  const { study, table } = await loadWideTable(deps, actor, studyId);
   const csvName = fileName(study.name, 'respondents-wide', 'csv', at);
   return {
     filename: fileName(study.name, 'respondents-wide', 'R', at),
@@ -74,11 +74,11 @@ export async function exportWideRScript(
 /** Every column of the long choice file and the wide respondent file. */
 export async function exportStudyCodebookCsv(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   at = new Date(),
 ): Promise<Download> {
-  const { study, table } = await loadWideTable(deps, member, studyId);
+  const { study, table } = await loadWideTable(deps, actor, studyId);
   const long = await loadLongChoiceTable(deps, studyId);
   return {
     filename: fileName(study.name, 'data-codebook', 'csv', at),

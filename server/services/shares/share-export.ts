@@ -12,13 +12,13 @@ import { computeScenarioShares } from '../../../shared/engine/shares/share-model
 import { getLevelLabel } from '../../../shared/study/level-labels';
 import type { ShareExport } from '../../../shared/schemas/shares';
 import type { StudyDefinition } from '../../../shared/schemas/study-definition';
-import type { Member } from '../tastes/run-context';
 import { getRunSummary } from '../exports/run-summary';
 import { col, type DocumentedTable } from '../exports/documented-table';
 import { addAboutSheet, addCodebookSheet, addTableSheet } from '../exports/documented-xlsx';
 import { CSV, XLSX, fileName, type Download } from '../exports/download';
 import { loadPreparedShareModel, loadShareGroups } from '../shares';
 import { rethrowScenarioError } from './scenario-error';
+import type { Actor } from '../actor';
 
 const INTERVAL_TEXT = {
   parameter: 'Krinsky–Robb: percentiles over draws of the estimates from their covariance',
@@ -46,14 +46,14 @@ const intervalColumns = [
 
 export async function exportShares(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   input: ShareExport,
   at = new Date(),
 ): Promise<Download> {
   const { ctx, prepared, profiles } = await loadPreparedShareModel(
     deps,
-    member,
+    actor,
     studyId,
     input.runId,
   );

@@ -8,17 +8,18 @@ import type { AppDeps } from '../../deps';
 import { listRunProfiles } from '../../../db/queries/taste-profiles';
 import { pearsonCorrelation } from '../../../shared/engine/stats/pearson-correlation';
 import type { TasteComparison } from '../../../shared/schemas/tastes';
-import { loadRunContext, type Member } from './run-context';
+import { loadRunContext } from './run-context';
+import type { Actor } from '../actor';
 
 export async function compareRuns(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   query: { runId: string; otherRunId: string },
 ): Promise<TasteComparison> {
   const [a, b] = await Promise.all([
-    loadRunContext(deps, member, studyId, query.runId),
-    loadRunContext(deps, member, studyId, query.otherRunId),
+    loadRunContext(deps, actor, studyId, query.runId),
+    loadRunContext(deps, actor, studyId, query.otherRunId),
   ]);
   const [rowsA, rowsB] = await Promise.all([
     listRunProfiles(deps.db, { runId: query.runId, studyId }),

@@ -10,19 +10,20 @@ import { listQuestionAnswers, listRespondentTaskAnswers } from '../../../db/quer
 import type { Design } from '../../../shared/schemas/design';
 import type { StudyDefinition } from '../../../shared/schemas/study-definition';
 import type { RespondentChoice, RespondentProfile } from '../../../shared/schemas/tastes';
-import { loadRunContext, type Member } from './run-context';
+import { loadRunContext } from './run-context';
 import { indexAnswers } from './background-answers';
 import { toTasteRow } from './taste-rows';
 import { describeLevels, getAlternativeLabel } from './alternative-labels';
+import type { Actor } from '../actor';
 
 export async function getRespondentProfile(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   runId: string,
   respondentId: string,
 ): Promise<RespondentProfile> {
-  const ctx = await loadRunContext(deps, member, studyId, runId);
+  const ctx = await loadRunContext(deps, actor, studyId, runId);
   const profile = await getRunProfile(deps.db, { runId, studyId, respondentId });
   if (!profile) throw new NotFoundError('Respondent');
   const answers = indexAnswers(

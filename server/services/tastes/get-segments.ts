@@ -11,9 +11,10 @@ import { listRunProfiles } from '../../../db/queries/taste-profiles';
 import type { Segments, SegmentsQuery, TasteQuestion } from '../../../shared/schemas/tastes';
 import { summarizeSegments } from '../segments';
 import { formatPercent } from '../../../shared/format';
-import { loadRunContext, type Member, type RunContext } from './run-context';
+import { loadRunContext, type RunContext } from './run-context';
 import { getAnswerKey } from './background-answers';
 import { getAlternativeIndexes, getAlternativeLabel } from './alternative-labels';
+import type { Actor } from '../actor';
 
 export type Grouping = {
   label: string;
@@ -130,11 +131,11 @@ export function resolveGrouping(
 
 export async function getSegments(
   deps: AppDeps,
-  member: Member,
+  actor: Actor,
   studyId: string,
   query: SegmentsQuery,
 ): Promise<Segments> {
-  const ctx = await loadRunContext(deps, member, studyId, query.runId);
+  const ctx = await loadRunContext(deps, actor, studyId, query.runId);
   const coefficient = ctx.header.coefficients.find((c) => c.name === query.coefficient);
   if (!coefficient)
     throw new ValidationError(`The run has no coefficient ${query.coefficient}.`, [

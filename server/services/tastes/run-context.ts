@@ -10,7 +10,7 @@ import { loadStudy } from '../study-access';
 import { countRunProfiles } from '../../../db/queries/taste-profiles';
 import { getRunById } from '../../../db/queries/runs';
 import { getLatestVersion } from '../../../db/queries/versions';
-import { roleCan, type Role } from '../../../shared/permissions';
+import { roleCan } from '../../../shared/permissions';
 import type { RunResult } from '../../../shared/schemas/run';
 import type { EstimationSpec } from '../../../shared/schemas/estimation-spec';
 import type { ModelFamily } from '../../../shared/schemas/estimation-families';
@@ -19,20 +19,14 @@ import type { Design } from '../../../shared/schemas/design';
 import { LOW_EFFECTIVE_DRAWS, type TasteHeader } from '../../../shared/schemas/tastes';
 import { getBackgroundQuestions } from './background-answers';
 import { getWtpUnavailableReason } from '../exports/estimate-tables';
-
-export type Member = { teamId: string; role: Role };
+import type { Actor } from '../actor';
 
 export type RunContext = Awaited<ReturnType<typeof loadRunContext>>;
 
 /** Loads the run (404 outside the team or study; 409 until it is done) and its header. */
-export async function loadRunContext(
-  deps: AppDeps,
-  member: Member,
-  studyId: string,
-  runId: string,
-) {
-  const study = await loadStudy(deps, member.teamId, studyId);
-  const run = await getRunById(deps.db, { id: runId, teamId: member.teamId, studyId });
+export async function loadRunContext(deps: AppDeps, actor: Actor, studyId: string, runId: string) {
+  const study = await loadStudy(deps, actor.teamId, studyId);
+  const run = await getRunById(deps.db, { id: runId, teamId: actor.teamId, studyId });
   if (!run) throw new NotFoundError('Run');
   if (run.status !== 'done' || !run.results)
     throw new ConflictError(
@@ -44,7 +38,7 @@ export async function loadRunContext(
   const design = (version?.design ?? null) as Design | null;
   const results = run.results as RunResult;
   const spec = run.spec as EstimationSpec;
-  const personal = roleCan(member.role, 'personal:read');
+  const personal = roleCan(actor.role, 'personal:read');
   const profiles = await countRunProfiles(deps.db, { runId });
   const labelOf = (name: string) =>
     results.columns?.find((c) => c.coefficient === name)?.label ?? name;

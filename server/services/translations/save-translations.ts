@@ -11,10 +11,11 @@ import { isInterfaceKey, listStudyTexts, textIn } from '../../../shared/language
 import type { StudyTextsView } from '../../../shared/schemas/study-texts';
 import type { AuditAction } from '../../../shared/schemas/audit';
 import { updateDraftLanguages } from '../../../db/queries/versions';
-import { recordAudit, type Actor } from '../audit';
+import { recordAudit } from '../audit';
 import { assertDraft } from '../studies';
 import { loadStudy } from '../study-access';
 import { getStudyTexts, languagesOf, loadStudyDocuments } from '../study-texts';
+import type { Actor } from '../actor';
 
 type StudyRow = Awaited<ReturnType<typeof loadStudy>>;
 /** What the audit entry says: the action and its details beyond the study and language. */
@@ -53,12 +54,12 @@ function assertLanguage(study: StudyRow, lang: string) {
 /** Saves texts of one language (an empty text removes it); nothing is saved on any problem. */
 export async function saveTranslations(
   deps: AppDeps,
-  teamId: string,
+  actor: Actor,
   studyId: string,
   lang: string,
   texts: Record<string, string>,
-  actor: Actor,
 ): Promise<StudyTextsView> {
+  const { teamId } = actor;
   const study = await loadStudy(deps, teamId, studyId);
   assertDraft(study, 'its texts');
   const values = Object.values(texts);
@@ -110,12 +111,12 @@ export async function writeTranslations(
  */
 export async function confirmTranslations(
   deps: AppDeps,
-  teamId: string,
+  actor: Actor,
   studyId: string,
   lang: string,
   keys: string[],
-  actor: Actor,
 ): Promise<StudyTextsView> {
+  const { teamId } = actor;
   const study = await loadStudy(deps, teamId, studyId);
   assertDraft(study, 'its texts');
   assertLanguage(study, lang);

@@ -16,7 +16,7 @@ import {
 } from '../../../shared/schemas/study-texts';
 import { loadStudy } from '../study-access';
 import { assertDraft } from '../studies';
-import type { Actor } from '../audit';
+import type { Actor } from '../actor';
 import { languagesOf, loadStudyDocuments } from '../study-texts';
 import { writeTranslations } from './save-translations';
 import { readCsvFile, readXliffFile, type FileText } from './translation-file-readers';
@@ -113,12 +113,12 @@ function refusals(texts: FileText[]): FieldIssue[] {
 /** Imports a translator's file into one language: all of its known texts, or nothing. */
 export async function importTranslationFile(
   deps: AppDeps,
-  teamId: string,
+  actor: Actor,
   studyId: string,
   lang: string,
   input: { format: TranslationFormat; content: string },
-  actor: Actor,
 ): Promise<TranslationImportReport> {
+  const { teamId } = actor;
   const study = await loadStudy(deps, teamId, studyId);
   assertDraft(study, 'its texts');
   const langs = languagesOf(study);

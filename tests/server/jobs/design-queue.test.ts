@@ -4,25 +4,23 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { signUpOwner } from '../../support/factories';
 import { createStudyVia, makeSmallDefinition } from '../routes/study-fixtures';
 import { startJobQueue, type JobQueue } from '../../../server/jobs/queue';
 import { createDesignJobKind } from '../../../server/jobs/design-job';
 import { designJobs } from '../../../db/schema/studies';
 
-let t: TestApp;
+const t = useTestApp();
 let queue: JobQueue;
 const kind = createDesignJobKind();
 
 beforeAll(async () => {
-  t = await createTestApp();
   queue = await startJobQueue(t.deps, { kinds: [kind], work: true });
   t.deps.jobs = queue;
 });
 afterAll(async () => {
   await queue.stop();
-  await t.close();
 });
 
 describe('design jobs through pg-boss', () => {

@@ -4,24 +4,20 @@
  * JSON bodies, bodiless POSTs, multipart uploads and DELETEs alike — and must be refused with
  * 403 cross_site_request before anything runs. The app's own origin still works.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { signUpOwner } from '../../support/factories';
 import { listApiRoutes, type RouteEntry } from '../../../server/lib/route-table';
 import { databaseFingerprint } from '../../support/db-fingerprint';
 
-let t: TestApp;
+const t = useTestApp();
 let owner: Awaited<ReturnType<typeof signUpOwner>>;
 let writes: RouteEntry[];
 
 beforeAll(async () => {
-  t = await createTestApp();
   owner = await signUpOwner(t);
   writes = listApiRoutes(t.app).filter((r) => !['GET', 'HEAD', 'OPTIONS'].includes(r.method));
-});
-afterAll(async () => {
-  await t.close();
 });
 
 function pathOf(route: RouteEntry): string {

@@ -2,18 +2,12 @@
  * Revocable sessions: listed on the account page, signed out one by one or everywhere, ended by
  * idle and absolute timeouts, by a password change (others only) and by removal from a team.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { sql } from 'drizzle-orm';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { addMember, signUpOwner, TEST_PASSWORD } from '../../support/factories';
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await createTestApp({ SESSION_IDLE_MINUTES: '30', SESSION_ABSOLUTE_HOURS: '12' });
-});
-afterAll(async () => {
-  await t.close();
-});
+const t = useTestApp({ SESSION_IDLE_MINUTES: '30', SESSION_ABSOLUTE_HOURS: '12' });
 
 const me = (cookie: string) => t.request().get('/api/auth/me').set('Cookie', cookie);
 

@@ -1,15 +1,9 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { describe, expect, it } from 'vitest';
+import { useTestApp } from '../../support/test-app';
 import { signUpOwner, TEST_PASSWORD } from '../../support/factories';
 import { getUserById } from '../../../db/queries/users';
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await createTestApp();
-});
-afterAll(async () => {
-  await t.close();
-});
+const t = useTestApp();
 
 const NEW_PASSWORD = 'river health is good';
 

@@ -3,9 +3,9 @@
  * anonymous 401); study status changes, exclusions, personal-data downloads land in it with the
  * acting member; no route changes or deletes a row, and the table itself refuses it.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { sql } from 'drizzle-orm';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { insertStudy } from './respond-fixtures';
 import {
@@ -15,14 +15,10 @@ import {
 } from './fieldwork-fixtures';
 import { roles, type Role } from '../../../shared/permissions';
 
-let t: TestApp;
+const t = useTestApp();
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
 beforeAll(async () => {
-  t = await createTestApp();
   team = await createTeamWithAllRoles(t);
-});
-afterAll(async () => {
-  await t.close();
 });
 
 const audit = (path = '') => `/api/teams/${team.teamId}/audit${path}`;

@@ -1,6 +1,6 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import jwt from 'jsonwebtoken';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { signUpOwner, TEST_PASSWORD, uniqueEmail } from '../../support/factories';
 import { firstLink, waitForMailTo, waitForMailWithSubject } from '../../support/mailbox';
 import { settleAfterResponse } from '../../../server/lib/after-response';
@@ -8,7 +8,7 @@ import { randomUUID } from 'node:crypto';
 import { getUserByEmail } from '../../../db/queries/users';
 import { SESSION_COOKIE } from '../../../server/lib/session';
 
-let t: TestApp;
+const t = useTestApp();
 
 /** Signs in afresh and returns the session cookie as a Cookie header value. */
 async function signInCookie(email: string): Promise<string> {
@@ -16,12 +16,6 @@ async function signInCookie(email: string): Promise<string> {
   expect(res.status).toBe(200);
   return (res.headers['set-cookie'] as unknown as string[])[0]!.split(';')[0]!;
 }
-beforeAll(async () => {
-  t = await createTestApp();
-});
-afterAll(async () => {
-  await t.close();
-});
 
 describe('POST /api/auth/sign-up and /api/auth/confirm-email', () => {
   it('creates an unconfirmed account and mails a link that confirms it and signs in once', async () => {

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { createStudyVia, makeSmallDefinition } from './study-fixtures';
 import { runDesignJob } from '../../../server/jobs/design-job';
@@ -9,13 +9,12 @@ import { getStudyById } from '../../../db/queries/studies';
 import { designJobs, studies } from '../../../db/schema/studies';
 import type { Role } from '../../../shared/permissions';
 
-let t: TestApp;
+const t = useTestApp();
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
 const sent: Array<{ name: string; data: { designJobId: string } }> = [];
 const pool = createDesignPool({ maxThreads: 1 });
 
 beforeAll(async () => {
-  t = await createTestApp();
   // The queue is replaced by a recorder; tests run the handler in-process.
   t.deps.jobs = {
     send: async (name, data) => {
@@ -26,7 +25,6 @@ beforeAll(async () => {
 });
 afterAll(async () => {
   await pool.destroy();
-  await t.close();
 });
 
 const designUrl = (studyId: string) => `/api/teams/${team.teamId}/studies/${studyId}/design`;

@@ -4,10 +4,10 @@
  * everyone else's number, runs that used them are marked, the audit trail keeps the number and
  * reason without the address or external id — and a refused request changes nothing at all.
  */
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { eq, sql } from 'drizzle-orm';
 import { randomBytes } from 'node:crypto';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { seedTastesStudy } from './tastes-fixture';
 import { answerFor, sendAnswer, startLiveSession } from './respond-fixtures';
@@ -16,7 +16,7 @@ import { runs } from '../../../db/schema/models';
 import { mailOutbox } from '../../../db/schema/mail';
 import { roles } from '../../../shared/permissions';
 
-let t: TestApp;
+const t = useTestApp();
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
 let seeded: Awaited<ReturnType<typeof seedTastesStudy>>;
 let other: Awaited<ReturnType<typeof seedTastesStudy>>;
@@ -24,12 +24,8 @@ let other: Awaited<ReturnType<typeof seedTastesStudy>>;
 const EMAIL = 'Resident.Two@Example.test';
 
 beforeAll(async () => {
-  t = await createTestApp();
   team = await createTeamWithAllRoles(t);
   other = await seedTastesStudy(t.deps.db, team.teamId);
-});
-afterAll(async () => {
-  await t.close();
 });
 
 /** A fresh study per test: respondent 2 came through a personal link, 3 revised an answer. */

@@ -2,24 +2,23 @@
  * The estimate tables of a run as files to hand on: XLSX with number formats, widths and a
  * codebook; one CSV per table; the same numbers as the stored run; spreads as |s|.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { parse } from 'csv-parse/sync';
 import type ExcelJS from 'exceljs';
 import type supertest from 'supertest';
 import { downloadXlsx } from '../../support/download-xlsx';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { runs } from '../../../db/schema/models';
 import { makeResults, seedTastesStudy, spec } from './tastes-fixture';
 
-let t: TestApp;
+const t = useTestApp();
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
 let seeded: Awaited<ReturnType<typeof seedTastesStudy>>;
 let base: string;
 let withheldRunId: string;
 
 beforeAll(async () => {
-  t = await createTestApp();
   team = await createTeamWithAllRoles(t);
   seeded = await seedTastesStudy(t.deps.db, team.teamId);
   base = `/api/teams/${team.teamId}/studies/${seeded.studyId}/exports`;
@@ -41,9 +40,6 @@ beforeAll(async () => {
     })
     .returning({ id: runs.id });
   withheldRunId = run.id;
-});
-afterAll(async () => {
-  await t.close();
 });
 
 const loadWorkbook = (agent: supertest.Agent, runId: string) =>

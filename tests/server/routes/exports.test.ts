@@ -1,26 +1,22 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { parse } from 'csv-parse/sync';
 import type supertest from 'supertest';
 import { downloadXlsx } from '../../support/download-xlsx';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import type { Role } from '../../../shared/permissions';
 import { shareScenarios } from '../../../db/schema/shares';
 import { N, scenarioLevels, seedTastesStudy } from './tastes-fixture';
 
-let t: TestApp;
+const t = useTestApp();
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
 let seeded: Awaited<ReturnType<typeof seedTastesStudy>>;
 let base: string;
 
 beforeAll(async () => {
-  t = await createTestApp();
   team = await createTeamWithAllRoles(t);
   seeded = await seedTastesStudy(t.deps.db, team.teamId);
   base = `/api/teams/${team.teamId}/studies/${seeded.studyId}/exports`;
-});
-afterAll(async () => {
-  await t.close();
 });
 
 const as = (role: Role): supertest.Agent => team.agents[role];

@@ -3,22 +3,18 @@
  * rather than the internal name, the duration the consent page states, plain text and HTML
  * parts, and the study's sender name and reply-to. Unknown placeholders are refused by name.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { createTeamWithAllRoles, uniqueEmail } from '../../support/factories';
 import { waitForMailTo } from '../../support/mailbox';
 import { getInviteeRow, insertStudy } from './fieldwork-fixtures';
 import { studies } from '../../../db/schema/studies';
 
-let t: TestApp;
+const t = useTestApp();
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
 beforeAll(async () => {
-  t = await createTestApp();
   team = await createTeamWithAllRoles(t);
-});
-afterAll(async () => {
-  await t.close();
 });
 
 const studyUrl = (studyId: string) => `/api/teams/${team.teamId}/studies/${studyId}`;

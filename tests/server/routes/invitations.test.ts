@@ -1,18 +1,12 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { sql } from 'drizzle-orm';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { addMember, signUpAndConfirm, signUpOwner, uniqueEmail } from '../../support/factories';
 import { firstLink, listMailTo, waitForMailTo } from '../../support/mailbox';
 import { getMembership } from '../../../db/queries/memberships';
 import type { Role } from '../../../shared/permissions';
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await createTestApp();
-});
-afterAll(async () => {
-  await t.close();
-});
+const t = useTestApp();
 
 /** Invites an address as the owner and reads the token back from the mail, as the invitee would. */
 async function inviteAndReadToken(

@@ -1,7 +1,7 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import type supertest from 'supertest';
 import { eq } from 'drizzle-orm';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { createTeamWithAllRoles, randomHex, uniqueEmail } from '../../support/factories';
 import { firstLink, listMailTo, waitForMailTo } from '../../support/mailbox';
 import { getInviteeRow, insertRespondent, insertStudy } from './fieldwork-fixtures';
@@ -9,14 +9,10 @@ import { invitees } from '../../../db/schema/fieldwork';
 import type { Role } from '../../../shared/permissions';
 import { answerFor, insertStudy as insertLiveStudy } from './respond-fixtures';
 
-let t: TestApp;
+const t = useTestApp();
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
 beforeAll(async () => {
-  t = await createTestApp();
   team = await createTeamWithAllRoles(t);
-});
-afterAll(async () => {
-  await t.close();
 });
 
 const base = (studyId: string) => `/api/teams/${team.teamId}/studies/${studyId}/invitees`;

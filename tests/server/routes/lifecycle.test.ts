@@ -1,6 +1,6 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { respondents, answers } from '../../../db/schema/fieldwork';
 import { studies } from '../../../db/schema/studies';
@@ -14,14 +14,10 @@ import {
 } from './respond-fixtures';
 import { defaultQuestionnaire } from '../../../shared/schemas/questionnaire-defaults';
 
-let t: TestApp;
+const t = useTestApp();
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
 beforeAll(async () => {
-  t = await createTestApp();
   team = await createTeamWithAllRoles(t);
-});
-afterAll(async () => {
-  await t.close();
 });
 
 const url = (studyId: string, path = '') =>

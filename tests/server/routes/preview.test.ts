@@ -4,9 +4,9 @@
  * preview of a block and seed equals, field by field, the session of a live respondent who
  * got that block and seed.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { respondents } from '../../../db/schema/fieldwork';
 import { studies } from '../../../db/schema/studies';
@@ -20,14 +20,10 @@ import {
 import type { RespondentSession, StudyPreview } from '../../../shared/schemas/respondent';
 import { definition, fullQuestionnaire, insertStudy } from './respond-fixtures';
 
-let t: TestApp;
+const t = useTestApp();
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
 beforeAll(async () => {
-  t = await createTestApp();
   team = await createTeamWithAllRoles(t);
-});
-afterAll(async () => {
-  await t.close();
 });
 
 const url = (studyId: string, query = '') =>

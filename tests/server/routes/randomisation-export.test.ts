@@ -3,10 +3,10 @@
  * screen, which alternative stood at each position — checked against the screens the respondent
  * app was sent, not against the stored plan the file is read from.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import type supertest from 'supertest';
 import { parse } from 'csv-parse/sync';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { signUpOwner } from '../../support/factories';
 import {
   definition,
@@ -15,15 +15,11 @@ import {
   type LiveSession,
 } from './respond-fixtures';
 
-let t: TestApp;
+const t = useTestApp();
 let owner: supertest.Agent;
 let teamId: string;
 beforeAll(async () => {
-  t = await createTestApp();
   ({ agent: owner, teamId } = await signUpOwner(t));
-});
-afterAll(async () => {
-  await t.close();
 });
 
 type TaskScreen = { key: string; kind: string; alternatives?: { index: number }[] };

@@ -5,7 +5,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { runDesignJob } from '../../../server/jobs/design-job';
 import { createDesignPool } from '../../../server/engine/design/run-design-in-worker';
@@ -23,13 +23,12 @@ import {
   type LiveSession,
 } from './respond-fixtures';
 
-let t: TestApp;
+const t = useTestApp();
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
 const sent: Array<{ designJobId: string }> = [];
 const pool = createDesignPool({ maxThreads: 1 });
 
 beforeAll(async () => {
-  t = await createTestApp();
   t.deps.jobs = {
     send: async (_name, data) => {
       sent.push(data as { designJobId: string });
@@ -39,7 +38,6 @@ beforeAll(async () => {
 });
 afterAll(async () => {
   await pool.destroy();
-  await t.close();
 });
 
 const columns = getCodedColumns(definition);

@@ -1,20 +1,16 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { eightChoices, insertRespondent, insertStudy } from './fieldwork-fixtures';
 import { invitees, respondents } from '../../../db/schema/fieldwork';
 import { studies } from '../../../db/schema/studies';
 import type { Role } from '../../../shared/permissions';
 
-let t: TestApp;
+const t = useTestApp();
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
 beforeAll(async () => {
-  t = await createTestApp();
   team = await createTeamWithAllRoles(t);
-});
-afterAll(async () => {
-  await t.close();
 });
 
 const base = (studyId: string) => `/api/teams/${team.teamId}/studies/${studyId}/responses`;

@@ -3,25 +3,21 @@
  * the latest choice, a resumed session shows the latest answers, and the downloads say what
  * was changed and when (answer-history.csv, the revised_screens column).
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import type supertest from 'supertest';
 import { parse } from 'csv-parse/sync';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { signUpOwner } from '../../support/factories';
 import { answers, respondents } from '../../../db/schema/fieldwork';
 import { loadStudyChoiceData } from '../../../server/services/choice-data-from-study';
 import { answerFor, sendAnswer, startLiveSession, type LiveSession } from './respond-fixtures';
 
-let t: TestApp;
+const t = useTestApp();
 let owner: supertest.Agent;
 let teamId: string;
 beforeAll(async () => {
-  t = await createTestApp();
   ({ agent: owner, teamId } = await signUpOwner(t));
-});
-afterAll(async () => {
-  await t.close();
 });
 
 const send = (publicId: string, token: string, path: 'answers' | 'revisions', body: object) =>

@@ -1,21 +1,17 @@
 /** Saved share scenarios: CRUD per role, bad input (status, code, message, field), tenancy. */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { useTestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { scenarioLevels, seedTastesStudy } from './tastes-fixture';
 
-let t: TestApp;
+const t = useTestApp();
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
 let url: string;
 
 beforeAll(async () => {
-  t = await createTestApp();
   team = await createTeamWithAllRoles(t);
   const seeded = await seedTastesStudy(t.deps.db, team.teamId);
   url = `/api/teams/${team.teamId}/studies/${seeded.studyId}/shares/scenarios`;
-});
-afterAll(async () => {
-  await t.close();
 });
 
 const body = (name: string, river = 'good') => ({

@@ -1,11 +1,11 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import ExcelJS from 'exceljs';
 import { parse } from 'csv-parse/sync';
 import {
   computeScenarioShares,
   prepareShareModel,
 } from '../../../shared/engine/shares/share-model';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import {
   billMean,
@@ -16,19 +16,15 @@ import {
   taskOneChoice,
 } from './tastes-fixture';
 
-let t: TestApp;
+const t = useTestApp();
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
 let seeded: Awaited<ReturnType<typeof seedTastesStudy>>;
 let url: string;
 
 beforeAll(async () => {
-  t = await createTestApp();
   team = await createTeamWithAllRoles(t);
   seeded = await seedTastesStudy(t.deps.db, team.teamId);
   url = `/api/teams/${team.teamId}/studies/${seeded.studyId}/shares/simulate`;
-});
-afterAll(async () => {
-  await t.close();
 });
 
 const levels = scenarioLevels;

@@ -1,6 +1,6 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { createStudyVia, makeSmallDefinition } from './study-fixtures';
 import { getStudyById } from '../../../db/queries/studies';
@@ -9,14 +9,10 @@ import { respondents } from '../../../db/schema/fieldwork';
 import { insertDesign } from '../../../db/queries/designs';
 import type { Role } from '../../../shared/permissions';
 
-let t: TestApp;
+const t = useTestApp();
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
 beforeAll(async () => {
-  t = await createTestApp();
   team = await createTeamWithAllRoles(t);
-});
-afterAll(async () => {
-  await t.close();
 });
 
 const base = () => `/api/teams/${team.teamId}/studies`;

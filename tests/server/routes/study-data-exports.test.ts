@@ -3,17 +3,17 @@
  * seconds per task), the wide respondent file with its R import script, and their codebook.
  * Counts are checked against the database; the R script against the CSV it reads.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { randomBytes } from 'node:crypto';
 import { parse } from 'csv-parse/sync';
 import { and, count, eq, isNotNull } from 'drizzle-orm';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { answers, respondents } from '../../../db/schema/fieldwork';
 import { parseChoiceCsv } from '../../../server/engine/estimation/parse-choice-csv';
 import { N, seedTastesStudy } from './tastes-fixture';
 
-let t: TestApp;
+const t = useTestApp();
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
 let seeded: Awaited<ReturnType<typeof seedTastesStudy>>;
 let base: string;
@@ -26,7 +26,6 @@ const extra: Record<'screenedWithTask' | 'excluded' | 'screenedEarly', string> =
 const token = () => randomBytes(16).toString('hex');
 
 beforeAll(async () => {
-  t = await createTestApp();
   team = await createTeamWithAllRoles(t);
   seeded = await seedTastesStudy(t.deps.db, team.teamId);
   base = `/api/teams/${team.teamId}/studies/${seeded.studyId}/exports`;
@@ -110,9 +109,6 @@ beforeAll(async () => {
       { screenKey: 'q:comments', value: { kind: 'text', text: '=cmd|calc' } },
     ],
   );
-});
-afterAll(async () => {
-  await t.close();
 });
 
 async function csvOf(role: 'analyst' | 'viewer', path: string) {

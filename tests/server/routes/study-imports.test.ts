@@ -1,7 +1,7 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import type supertest from 'supertest';
 import { eq } from 'drizzle-orm';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { studies } from '../../../db/schema/studies';
 import { listQuestionAnswers } from '../../../db/queries/study-answers';
@@ -9,14 +9,10 @@ import { syntheticChoiceCsv } from '../../../scripts/lib/synthetic-choice-file';
 import type { ImportAttribute, ImportPreview } from '../../../shared/schemas/study-import';
 import type { Role } from '../../../shared/permissions';
 
-let t: TestApp;
+const t = useTestApp({ IMPORT_MAX_MB: '0.05' });
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
 beforeAll(async () => {
-  t = await createTestApp({ IMPORT_MAX_MB: '0.05' });
   team = await createTeamWithAllRoles(t);
-});
-afterAll(async () => {
-  await t.close();
 });
 
 const base = () => `/api/teams/${team.teamId}/imports`;

@@ -1,16 +1,10 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestApp, type TestApp } from '../../support/test-app';
-import { addMember, signUpOwner, TEST_PASSWORD } from '../../support/factories';
+import { describe, expect, it } from 'vitest';
+import { useTestApp } from '../../support/test-app';
+import { addMember, signUpOwner, teamActor, TEST_PASSWORD } from '../../support/factories';
 import { countOwners, getMembership, getTeamById } from '../../../db/queries/memberships';
 import { changeMemberRole } from '../../../server/services/teams';
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await createTestApp();
-});
-afterAll(async () => {
-  await t.close();
-});
+const t = useTestApp();
 
 describe('GET /api/teams and POST /api/teams', () => {
   it('creates another team owned by the caller and lists both', async () => {
@@ -127,11 +121,15 @@ describe('PATCH /api/teams/:teamId/members/:userId', () => {
   it('when two owners are demoted at the same moment, one owner always remains', async () => {
     const owner = await signUpOwner(t);
     const second = await addMember(t, owner.teamId, 'owner');
-    const actor = { userId: owner.user.id, email: owner.user.email };
+    const actor = teamActor({
+      teamId: owner.teamId,
+      userId: owner.user.id,
+      email: owner.user.email,
+    });
     // Straight to the use case: over HTTP the permission check would serialise the two calls.
     const results = await Promise.allSettled([
-      changeMemberRole(t.deps, actor, owner.teamId, owner.user.id, 'viewer'),
-      changeMemberRole(t.deps, actor, owner.teamId, second.user.id, 'viewer'),
+      changeMemberRole(t.deps, actor, owner.user.id, 'viewer'),
+      changeMemberRole(t.deps, actor, second.user.id, 'viewer'),
     ]);
     expect(results.map((r) => r.status).sort()).toEqual(['fulfilled', 'rejected']);
     expect(await countOwners(t.deps.db, { teamId: owner.teamId })).toBe(1);

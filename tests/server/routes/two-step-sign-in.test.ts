@@ -5,19 +5,13 @@
  * wrong codes are limited per account. The codes are computed with the otpauth package from the
  * secret the API handed out, as an authenticator app would.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { sql } from 'drizzle-orm';
 import * as OTPAuth from 'otpauth';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { signUpOwner, TEST_PASSWORD } from '../../support/factories';
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await createTestApp({ ACCOUNT_SIGN_IN_LIMIT: '4' });
-});
-afterAll(async () => {
-  await t.close();
-});
+const t = useTestApp({ ACCOUNT_SIGN_IN_LIMIT: '4' });
 
 /** The app's code `steps` 30-second steps from now (the server accepts one step either way). */
 const codeAt = (secret: string, steps = 0) =>

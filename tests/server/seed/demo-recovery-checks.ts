@@ -36,6 +36,7 @@ import { studyDefinitionSchema } from '../../../shared/schemas/study-definition'
 import type { RunResult } from '../../../shared/schemas/run';
 import { getStudyById } from '../../../db/queries/studies';
 import type { DemoWorld } from '../../support/demo-world';
+import { teamActor } from '../../support/factories';
 
 function pearson(x: number[], y: number[]): number {
   const n = x.length;
@@ -62,7 +63,7 @@ export function describeDemoRecovery(world: () => DemoWorld) {
     beforeAll(async () => {
       const { t, teamId, userId, studyId } = world();
       const { definition } = (await getStudyById(t.deps.db, { id: studyId, teamId }))!;
-      const { excluded } = await excludeFlagged(t.deps, teamId, studyId, {
+      const { excluded } = await excludeFlagged(t.deps, teamActor({ teamId, userId }), studyId, {
         flags: ['speeder', 'samePosition'],
         reason: 'Speeder or same position in every task',
       });
@@ -109,7 +110,7 @@ export function describeDemoRecovery(world: () => DemoWorld) {
         },
       };
       t.deps.jobs = { send: async () => {} };
-      const run = await createRun(t.deps, { teamId, userId }, studyId, {
+      const run = await createRun(t.deps, teamActor({ teamId, userId, role: 'analyst' }), studyId, {
         name: 'Recovery',
         spec,
         respondents: { filterId: null },

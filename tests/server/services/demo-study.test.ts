@@ -1,18 +1,12 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { describe, expect, it } from 'vitest';
+import { useTestApp } from '../../support/test-app';
 import { signUpOwner } from '../../support/factories';
 import { ensureDemoStudy, DEMO_STUDY_NAME } from '../../../server/seed/demo-study';
 import { getStudyById } from '../../../db/queries/studies';
 import { getDesignById } from '../../../db/queries/designs';
 import type { Design } from '../../../shared/schemas/design';
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await createTestApp();
-});
-afterAll(async () => {
-  await t.close();
-});
+const t = useTestApp();
 
 describe('ensureDemoStudy', () => {
   it('creates the draft demo study with a D-efficient design of 16 tasks in 2 blocks, once', async () => {

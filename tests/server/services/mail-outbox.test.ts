@@ -7,7 +7,7 @@
  */
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { createTeamWithAllRoles, uniqueEmail } from '../../support/factories';
 import { insertStudy } from '../routes/fieldwork-fixtures';
 import { invitees } from '../../../db/schema/fieldwork';
@@ -23,7 +23,7 @@ import {
   retryDelaySeconds,
 } from '../../../server/services/mail-delivery';
 
-let t: TestApp;
+const t = useTestApp();
 let queue: JobQueue;
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
 const delivered: OutgoingMail[] = [];
@@ -45,7 +45,6 @@ const refused = () =>
   });
 
 beforeAll(async () => {
-  t = await createTestApp();
   t.deps.mailer = flakyMailer;
   team = await createTeamWithAllRoles(t);
   // Sends only: the tests run the job's handler themselves, so every attempt is theirs.
@@ -54,7 +53,6 @@ beforeAll(async () => {
 }, 60_000);
 afterAll(async () => {
   await queue?.stop();
-  await t.close();
 });
 beforeEach(() => {
   delivered.length = 0;

@@ -3,8 +3,8 @@
  * gives the MNL the command-line estimator gives on the same file coded by hand; the estimates
  * also recover the simulation's known coefficients.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { useTestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { syntheticChoiceCsv, syntheticTruth } from '../../../scripts/lib/synthetic-choice-file';
 import {
@@ -17,14 +17,13 @@ import { parseChoiceCsv } from '../../../server/engine/estimation/parse-choice-c
 import { buildChoiceData } from '../../../server/engine/estimation/build-choice-data';
 import type { ImportPreview } from '../../../shared/schemas/study-import';
 
-let t: TestApp;
+const t = useTestApp();
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
 const RESPONDENTS = 600;
 const csv = syntheticChoiceCsv(RESPONDENTS);
 let studyId = '';
 
 beforeAll(async () => {
-  t = await createTestApp();
   team = await createTeamWithAllRoles(t);
   const attach = (req: ReturnType<typeof team.agents.owner.post>) =>
     req.attach('choices', Buffer.from(csv), { filename: 'choices.csv', contentType: 'text/csv' });
@@ -43,9 +42,6 @@ beforeAll(async () => {
   ).expect(201);
   studyId = saved.body.studyId;
 }, 60_000);
-afterAll(async () => {
-  await t.close();
-});
 
 /** The same file coded by hand in the command-line estimator's format. */
 function codedByHand(): string {

@@ -8,6 +8,7 @@
  * allocates nothing. The kept utilities are updated by accepted increments, whose rounding
  * drifts by about √(accepted moves)·ε·|v| (≈ 1e-13 after 10⁵ moves), far below the MH noise.
  */
+import type { StatefulPrng } from '../../../shared/engine/random/prng';
 import type { Prng } from '../draws/prng';
 import type { ChoiceData } from '../estimation/choice-data';
 import { HB_LOGNORMAL, HB_NEG_LOGNORMAL, type HbLayout } from './check-hb-options';
@@ -125,9 +126,9 @@ export function createIndividualStep(
     fixedAlpha,
     kernel: kernel.kind,
     step(mu, L, rho, prng, steps = 1) {
-      // The kernel continues the generator's stream when it can read its state words.
-      if (kernel.sweep && 'state' in prng && prng.state instanceof Int32Array)
-        return kernel.sweep(steps, mu, L, rho, prng.state);
+      // The kernel continues the generator's stream when it can take its state words.
+      if (kernel.sweep && 'saveState' in prng && 'loadState' in prng)
+        return kernel.sweep(steps, mu, L, rho, prng as StatefulPrng);
       let moved = 0;
       for (let n = 0; n < N; n++) {
         for (let repeat = 0; repeat < steps; repeat++)

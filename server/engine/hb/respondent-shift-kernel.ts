@@ -8,6 +8,7 @@
  * The caller reads and writes the arrays below (they are views into the WebAssembly memory when
  * that kernel runs) and calls shiftedLoglik; nothing is allocated per call.
  */
+import type { StatefulPrng } from '../../../shared/engine/random/prng';
 import type { ChoiceData } from '../estimation/choice-data';
 import { expTang } from '../linalg/exp-stream';
 import { loadSimdKernelModule } from '../simd/simd-kernel-module';
@@ -24,15 +25,15 @@ export type RespondentKernelPreference = 'auto' | 'likelihood' | 'typescript';
 
 /**
  * One MH sweep over all respondents in the kernel (`steps` proposals each) at (μ, L = chol Σ, ρ),
- * drawing from the generator whose state words are `prngState` (advanced as the TypeScript step
- * would advance them); returns the accepted count.
+ * continuing the stream of `prng` (left where the TypeScript step would leave it); returns the
+ * accepted count.
  */
 export type RespondentSweep = (
   steps: number,
   mu: Float64Array,
   L: Float64Array,
   rho: number,
-  prngState: Int32Array,
+  prng: StatefulPrng,
 ) => number;
 
 export interface RespondentShiftKernel {

@@ -141,10 +141,10 @@ export function createSimdKernel(
     beta: f64(at.beta, N * Kr),
     ll: f64(at.ll, N),
     sweep: sweep
-      ? (steps, muNow, lNow, rho, prngState) => {
+      ? (steps, muNow, lNow, rho, generator) => {
           mu.set(muNow.subarray(0, Kr));
           L.set(lNow.subarray(0, Kr * Kr));
-          prng.set(prngState);
+          generator.saveState(prng);
           const moved = kernel.hbSweep(
             0,
             N,
@@ -170,7 +170,7 @@ export function createSimdKernel(
             at.den,
             at.table,
           );
-          prngState.set(prng);
+          generator.loadState(prng);
           return moved;
         }
       : null,

@@ -10,6 +10,18 @@ export interface Prng {
   nextDouble(): number;
 }
 
+/**
+ * A generator whose state words (a, b, c, d) can be handed to another implementation of the same
+ * generator and taken back, so that one continues the other's stream (the WebAssembly HB kernel,
+ * server/engine/simd/assembly/hb-prng.ts).
+ */
+export interface StatefulPrng extends Prng {
+  /** Writes the four state words into `out`. */
+  saveState(out: Int32Array): void;
+  /** Continues from the four state words in `state`. */
+  loadState(state: Int32Array): void;
+}
+
 /** Expands a 32-bit seed into well-mixed state words (splitmix32 finaliser). */
 function splitmix32(state: { s: number }): number {
   state.s = (state.s + 0x9e3779b9) | 0;
@@ -19,32 +31,19 @@ function splitmix32(state: { s: number }): number {
   return (z ^ (z >>> 16)) >>> 0;
 }
 
-/** A generator whose state words (a, b, c, d) live in a typed array another kernel can continue. */
-export interface StatefulPrng extends Prng {
-  readonly state: Int32Array;
-}
-
 /**
- * The state words of the generator for `seed` and `stream` (see createPrng), written into
- * `state` (four 32-bit words).
+ * Creates a xoshiro128** generator. `seed` may be any finite number; it is reduced to
+ * 32 bits, and `stream` lets callers derive independent streams (e.g. one per respondent)
+ * from one user seed.
  */
-export function seedPrngState(seed: number, stream = 0, state = new Int32Array(4)): Int32Array {
+export function createPrng(seed: number, stream = 0): StatefulPrng {
   const mix = { s: (Math.floor(seed) ^ Math.imul(stream + 1, 0x27d4eb2d)) | 0 };
-  for (let i = 0; i < 4; i++) state[i] = splitmix32(mix);
-  if ((state[0] | state[1] | state[2] | state[3]) === 0) state[0] = 1;
-  return state;
-}
-
-/**
- * xoshiro128** on the state words in `state`, which it advances in place: the WebAssembly HB
- * kernel (server/engine/simd/assembly/hb-prng.ts) continues the same stream from them.
- */
-export function createPrngOnState(state: Int32Array): StatefulPrng {
+  let a = splitmix32(mix);
+  let b = splitmix32(mix);
+  let c = splitmix32(mix);
+  let d = splitmix32(mix);
+  if ((a | b | c | d) === 0) a = 1;
   const nextUint32 = (): number => {
-    let a = state[0];
-    let b = state[1];
-    let c = state[2];
-    let d = state[3];
     const result = Math.imul(rotl(Math.imul(b, 5), 7), 9) >>> 0;
     const t = b << 9;
     c ^= a;
@@ -53,30 +52,28 @@ export function createPrngOnState(state: Int32Array): StatefulPrng {
     a ^= d;
     c ^= t;
     d = rotl(d, 11);
-    state[0] = a;
-    state[1] = b;
-    state[2] = c;
-    state[3] = d;
     return result;
   };
   return {
-    state,
     nextUint32,
+    saveState(out) {
+      out[0] = a;
+      out[1] = b;
+      out[2] = c;
+      out[3] = d;
+    },
+    loadState(state) {
+      a = state[0];
+      b = state[1];
+      c = state[2];
+      d = state[3];
+    },
     nextDouble: () => {
       const hi = nextUint32() >>> 5; // 27 bits
       const lo = nextUint32() >>> 6; // 26 bits
       return (hi * 67108864 + lo + 0.5) / 9007199254740992;
     },
   };
-}
-
-/**
- * Creates a xoshiro128** generator. `seed` may be any finite number; it is reduced to
- * 32 bits, and `stream` lets callers derive independent streams (e.g. one per respondent)
- * from one user seed.
- */
-export function createPrng(seed: number, stream = 0): StatefulPrng {
-  return createPrngOnState(seedPrngState(seed, stream));
 }
 
 function rotl(x: number, k: number): number {

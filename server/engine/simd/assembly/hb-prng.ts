@@ -1,8 +1,8 @@
 /* eslint-disable no-loss-of-precision -- fdlibm and AS241 coefficients are kept verbatim as published (more digits than a double holds). */
 /**
  * The seeded draws of the HB respondent sweep (hb-respondent.ts), continuing the TypeScript
- * generator's stream from its four state words in memory (shared/engine/random/prng.ts,
- * createPrngOnState): xoshiro128** (Blackman & Vigna, ACM TOMS 47(4), 2021), doubles from 53 of
+ * generator's stream from its four state words in memory (createPrng's saveState and loadState,
+ * shared/engine/random/prng.ts): xoshiro128** (Blackman & Vigna, ACM TOMS 47(4), 2021), doubles from 53 of
  * its bits as nextDouble makes them, and standard normals by inversion with Wichura's AS241
  * PPND16 (Applied Statistics 37(3):477-484, 1988) as shared/engine/random/inverse-normal.ts
  * evaluates it — the same coefficients in the same order of operations, fdlibm's logarithm (the

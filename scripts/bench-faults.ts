@@ -7,13 +7,16 @@
  * load balancer). During the load it:
  *   - stops the mail server, sends the invitations (they wait in the outbox), starts it again
  *     after 30 s;
- *   - kills the worker with SIGKILL while a panel mixed logit estimates, and starts it again;
+ *   - kills the worker with SIGKILL while a panel mixed logit estimates (after its first
+ *     iteration), and starts it again;
  *   - kills one API instance with SIGKILL and starts it again;
  *   - restarts PostgreSQL;
  *   - terminates every backend (pg_terminate_backend).
  * Then it reconciles every answer the server acknowledged against the database, counts the
- * mail each invitee received, and waits for the estimation to end (retried, or failed with a
- * reason by the workers' sweep once silent for two minutes — never left running).
+ * mail each invitee received, and waits for the estimation to end: once silent for two minutes
+ * the workers' sweep queues it again and the restarted worker resumes it from its last
+ * checkpoint (or, past its last attempt, fails it with a reason) — never left running. It
+ * prints how the estimation ended and from which iteration it resumed.
  *
  * Usage: npm run bench:faults [-- --respondents 300] [-- --invitees 40] [-- --json]
  */
@@ -129,7 +132,13 @@ async function main() {
 
     // Worker death during an estimation.
     const run = await startDemoMixedRun(bases[1], credentials);
-    await waitForRun(run, (r) => r.status === 'running', 120_000);
+    // After its first iteration: the job saves the checkpoint before the progress that shows
+    // it, so the restarted worker has an iterate to resume from.
+    await waitForRun(
+      run,
+      (r) => r.status === 'running' && (r.progress.iteration ?? 0) >= 1,
+      120_000,
+    );
     await worker.kill();
     note('worker killed (SIGKILL) while the mixed logit estimates');
     const killedAt = Date.now();
@@ -164,7 +173,12 @@ async function main() {
       run,
       (x) => x.status !== 'running' && x.status !== 'queued',
       300_000,
-    ).catch((err: Error) => ({ status: 'still running', error: err.message }));
+    ).catch((err: Error) => ({
+      status: 'still running',
+      error: err.message,
+      attempts: null,
+      progress: null,
+    }));
     const result = {
       respondents: RESPONDENTS,
       instances: 2,
@@ -183,6 +197,9 @@ async function main() {
       estimation: {
         status: final.status,
         error: final.error ?? null,
+        // Claims by a worker: 2 after one resume.
+        attempts: final.attempts,
+        resumedFromIteration: final.progress?.resumed?.fromIteration ?? null,
         secondsFromKillToEnd: Number(((Date.now() - killedAt) / 1000).toFixed(0)),
       },
       faults,

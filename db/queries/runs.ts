@@ -3,7 +3,7 @@
  * the worker's functions (getRunForJob, claimRun, progress, finish, sweeps) take the run id from
  * the job queue, which only the server writes, so they need no team.
  */
-import { and, desc, eq, inArray, isNull, lt, sql } from 'drizzle-orm';
+import { and, desc, eq, gte, inArray, isNull, lt, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { runs } from '../schema/models';
 
@@ -119,11 +119,19 @@ export async function claimRun(db: DbOrTx, params: { id: string }) {
   return row ?? null;
 }
 
-export async function updateRunProgress(db: DbOrTx, params: { id: string; progress: unknown }) {
+/** The claim `attempt` still holds the run (it was not taken back by the stale-run sweep). */
+const heldBy = (attempt: number | undefined) =>
+  attempt === undefined ? [] : [eq(runs.status, 'running'), eq(runs.attempts, attempt)];
+
+/** Writes a running run's progress; with `attempt`, only while that claim holds it. */
+export async function updateRunProgress(
+  db: DbOrTx,
+  params: { id: string; progress: unknown; attempt?: number },
+) {
   await db
     .update(runs)
     .set({ progress: params.progress })
-    .where(and(eq(runs.id, params.id), eq(runs.status, 'running')));
+    .where(and(eq(runs.id, params.id), eq(runs.status, 'running'), ...heldBy(params.attempt)));
 }
 
 export async function setRunDataHash(
@@ -136,7 +144,10 @@ export async function setRunDataHash(
     .where(eq(runs.id, params.id));
 }
 
-/** Ends a run that is still queued or running; returns null when it had already ended. */
+/**
+ * Ends a run that is still queued or running; returns null when it had already ended. With
+ * `attempt`, only a run that claim still holds (a superseded worker ends nothing).
+ */
 export async function finishRun(
   db: DbOrTx,
   params: {
@@ -145,6 +156,7 @@ export async function finishRun(
     results?: unknown;
     error?: string | null;
     progress?: unknown;
+    attempt?: number;
   },
 ) {
   const [row] = await db
@@ -156,7 +168,13 @@ export async function finishRun(
       error: params.error ?? null,
       finishedAt: params.status === 'queued' ? null : new Date(),
     })
-    .where(and(eq(runs.id, params.id), inArray(runs.status, ['queued', 'running'])))
+    .where(
+      and(
+        eq(runs.id, params.id),
+        inArray(runs.status, ['queued', 'running']),
+        ...heldBy(params.attempt),
+      ),
+    )
     .returning(runColumns);
   return row ?? null;
 }
@@ -185,21 +203,53 @@ export async function requestRunCancel(
   return running ?? null;
 }
 
-/** Fails running runs whose worker has been silent since `silentSince` (crash, restart). */
-export async function failStaleRuns(db: DbOrTx, params: { silentSince: Date; error: string }) {
+const silentSince = (since: Date) =>
+  lt(
+    sql`coalesce((${runs.progress}->>'heartbeatAt')::timestamptz, ${runs.startedAt}, ${runs.createdAt})`,
+    since,
+  );
+
+/**
+ * Fails running runs whose worker has been silent since `silentSince` (crash, restart) and
+ * that have been claimed at least `minAttempts` times.
+ */
+export async function failStaleRuns(
+  db: DbOrTx,
+  params: { silentSince: Date; error: string; minAttempts?: number },
+) {
   return db
     .update(runs)
     .set({ status: 'failed', error: params.error, finishedAt: new Date() })
     .where(
       and(
         eq(runs.status, 'running'),
-        lt(
-          sql`coalesce((${runs.progress}->>'heartbeatAt')::timestamptz, ${runs.startedAt}, ${runs.createdAt})`,
-          params.silentSince,
-        ),
+        silentSince(params.silentSince),
+        gte(runs.attempts, params.minAttempts ?? 0),
       ),
     )
     .returning({ id: runs.id });
+}
+
+/**
+ * Puts running runs whose worker has been silent since `silentSince` and that have been claimed
+ * fewer than `maxAttempts` times back in the queue (the caller sends their jobs in the same
+ * transaction); returns their ids.
+ */
+export async function requeueStaleRuns(
+  db: DbOrTx,
+  params: { silentSince: Date; maxAttempts: number },
+) {
+  return db
+    .update(runs)
+    .set({ status: 'queued' })
+    .where(
+      and(
+        eq(runs.status, 'running'),
+        silentSince(params.silentSince),
+        lt(runs.attempts, params.maxAttempts),
+      ),
+    )
+    .returning({ id: runs.id, attempts: runs.attempts });
 }
 
 /** Runs still queued that were created before `createdBefore` (orphan-sweep.ts). */

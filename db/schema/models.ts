@@ -1,4 +1,7 @@
-/** Estimation runs, each respondent's taste profile from a run, and saved respondent filters. */
+/**
+ * Estimation runs, the last checkpoint of a running one, each respondent's taste profile from a
+ * run, and saved respondent filters.
+ */
 import {
   doublePrecision,
   index,
@@ -47,6 +50,27 @@ export const runs = pgTable(
   },
   (t) => [index('runs_study_idx').on(t.studyId)],
 );
+
+/**
+ * Where a running mixed logit's optimisation stood when last saved (at most every few seconds),
+ * so that a run whose worker was lost goes on from there (server/jobs/run-checkpoints.ts).
+ * Deleted when the run ends.
+ */
+export const runCheckpoints = pgTable('run_checkpoints', {
+  runId: uuid('run_id')
+    .primaryKey()
+    .references(() => runs.id, { onDelete: 'cascade' }),
+  /** The claim (runs.attempts) that saved it. */
+  attempt: integer('attempt').notNull(),
+  /** SHA-256 of the choice data it was estimated on: other data cannot resume from it. */
+  dataHash: text('data_hash').notNull(),
+  /** Iterations over all starts, and the current start (1-based). */
+  iteration: integer('iteration').notNull(),
+  start: integer('start').notNull(),
+  /** The engine's checkpoint, vectors as base64 of their float64 bytes (exact). */
+  state: jsonb('state').notNull(),
+  savedAt: timestamp('saved_at', { withTimezone: true }).notNull().defaultNow(),
+});
 
 export const tasteProfiles = pgTable(
   'taste_profiles',

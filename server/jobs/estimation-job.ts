@@ -3,25 +3,29 @@
  * engine on a worker thread (MNL, mixed logit, WTP and taste profiles; the mixed logit's
  * log-likelihood on further threads), writes progress every iteration plus a heartbeat, stops
  * when the user cancels, and always leaves the run finished: done (results + one taste
- * profile per respondent), failed with a readable reason, or cancelled. A run whose worker
- * died is failed by the sweep.
+ * profile per respondent), failed with a readable reason, or cancelled. A mixed logit also
+ * saves a checkpoint every few seconds (run-checkpoints.ts): a run whose worker died is queued
+ * again by the sweep (stale-run-sweep.ts) and goes on from there. Every write of the job is
+ * fenced by its claim (runs.attempts), so a worker presumed dead that comes back writes nothing.
  */
 import { z } from 'zod';
 import type { Piscina } from 'piscina';
 import type { AppDeps } from '../deps';
-import { AppError } from '../lib/errors';
 import { retryWhileDatabaseUnavailable } from '../lib/db-retry';
 import { defineJobKind } from './queue';
 import { sweepOrphans, type OrphanSpec } from './orphan-sweep';
+import { sweepStaleRuns } from './stale-run-sweep';
+import { createCheckpointWriter, resumeRun } from './run-checkpoints';
+import { describeRunError } from './describe-run-error';
+import { createRunProgressReporter } from './run-progress-reporter';
+import { deleteRunCheckpoint } from '../../db/queries/run-checkpoints';
 import {
   claimRun,
   failQueuedRuns,
-  failStaleRuns,
   listQueuedRuns,
   finishRun,
   getRunForJob,
   setRunDataHash,
-  updateRunProgress,
 } from '../../db/queries/runs';
 import { replaceTasteProfiles } from '../../db/queries/taste-profiles';
 import {
@@ -37,26 +41,16 @@ import {
   createEstimationPool,
   runEstimationInWorker,
 } from '../engine/parallel/run-estimation-in-worker';
-import { ChoiceDataError } from '../engine/estimation/choice-data';
-import {
-  EstimationCancelledError,
-  EstimationFailedError,
-  EstimationOptionsError,
-  NonIdentifiedError,
-} from '../engine/estimation/estimation-errors';
-import type { RunProgress, RunResult } from '../../shared/schemas/run';
+import { EstimationCancelledError } from '../engine/estimation/estimation-errors';
+import type { RunResult } from '../../shared/schemas/run';
 
 export const estimationJobDataSchema = z.object({ runId: z.uuid() });
 
-/** How often the worker reports even when the engine is quiet, and checks for cancel. */
-const HEARTBEAT_MS = 1000;
-/** A running run silent this long has lost its worker. */
-export const STALE_RUN_MS = 2 * 60_000;
 /** Default BFGS iteration limit of the mixed logit (check-mixed-logit-options.ts). */
 const MIXED_MAX_ITERATIONS = 300;
 
-export const WORKER_LOST_ERROR =
-  'The worker running this model stopped unexpectedly (a crash or a restart). Start the run again.';
+/** Thrown inside the job when another claim took the run over: the job writes nothing more. */
+class RunTakenOverError extends Error {}
 
 /** The latent class counts a spec asks for, as [fewest, most] (default 2). */
 function classRange(classes: number | [number, number] | undefined): [number, number] {
@@ -64,25 +58,13 @@ function classRange(classes: number | [number, number] | undefined): [number, nu
   return [classes ?? 2, classes ?? 2];
 }
 
-/** A message an analyst can act on, for errors the data or the model explain. */
-export function describeRunError(err: unknown): string | null {
-  if (err instanceof AppError) return err.message;
-  if (err instanceof ChoiceDataError) return `The choice data cannot be used: ${err.message}.`;
-  if (err instanceof EstimationOptionsError)
-    return `The model specification cannot be used: ${err.message}.`;
-  if (err instanceof NonIdentifiedError)
-    return `The model cannot be estimated from these data: ${err.message}.`;
-  if (err instanceof EstimationFailedError) return `The estimation failed: ${err.message}`;
-  if (err instanceof Error && /not finite at the starting values/.test(err.message))
-    return 'The log-likelihood is not finite at the starting values; check the coding and scale of the attributes.';
-  return null;
-}
-
 export interface EstimationJobOptions {
   /** Worker threads for the mixed logit's log-likelihood (default: the WORKER_THREADS setting). */
   threads?: number;
   /** The thread pool the engine runs on (default: a pool of one thread for this run). */
   pool?: Piscina;
+  /** Least time between two checkpoint writes (default CHECKPOINT_EVERY_MS). */
+  checkpointEveryMs?: number;
 }
 
 /** Runs one estimation run to its end; used by the queue handler and, in-process, by tests. */
@@ -98,34 +80,8 @@ export async function runEstimationJob(
       await finishRun(deps.db, { id: runId, status: 'cancelled' });
     return;
   }
-  const started = Date.now();
-  const abort = new AbortController();
-  let latest: RunProgress = { stage: 'preparing' };
-  let writing = Promise.resolve();
-  let queuedWrite = false;
-  const report = () => {
-    if (queuedWrite) return;
-    queuedWrite = true;
-    writing = writing
-      .then(async () => {
-        queuedWrite = false;
-        const progress = {
-          ...latest,
-          elapsedMs: Date.now() - started,
-          heartbeatAt: new Date().toISOString(),
-        };
-        const row = await getRunForJob(deps.db, { id: runId });
-        if (!row || row.cancelRequested) abort.abort();
-        else await updateRunProgress(deps.db, { id: runId, progress });
-      })
-      // Progress is best effort: while the database is unreachable the estimation goes on,
-      // and the next heartbeat writes again.
-      .catch((err) => {
-        queuedWrite = false;
-        deps.logger.warn({ err, runId }, 'run progress not saved');
-      });
-  };
-  const heartbeat = setInterval(report, HEARTBEAT_MS);
+  const attempt = run.attempts;
+  const progress = createRunProgressReporter(deps, { runId, attempt });
   // A finished estimation is not thrown away because PostgreSQL restarts while it is saved.
   const persist = <T>(write: () => Promise<T>) =>
     retryWhileDatabaseUnavailable(write, {
@@ -141,14 +97,26 @@ export async function runEstimationJob(
     const membership = await persist(() =>
       loadMembershipCovariates(deps.db, { id: run.studyId }, spec, built.data.respondentIds),
     );
-    await persist(() =>
-      setRunDataHash(deps.db, {
-        id: runId,
-        dataHash: hashChoiceData(prepared, keys),
-        seed: getRunSeed(spec),
-      }),
-    );
-    latest = {
+    const dataHash = hashChoiceData(prepared, keys);
+    await persist(() => setRunDataHash(deps.db, { id: runId, dataHash, seed: getRunSeed(spec) }));
+    const draws = spec.model === 'mixed' ? spec.draws : null;
+    const resume = attempt > 1 ? await resumeRun(deps, { runId, attempt, dataHash, draws }) : null;
+    if (attempt > 1)
+      progress.update({
+        resumed: { attempt, fromIteration: resume?.iteration ?? 0 },
+        iteration: resume?.iteration,
+      });
+    if (draws)
+      progress.useCheckpoints(
+        createCheckpointWriter(deps, {
+          runId,
+          attempt,
+          dataHash,
+          draws,
+          everyMs: options.checkpointEveryMs,
+        }),
+      );
+    progress.update({
       stage: 'estimating',
       ...(spec.model === 'mixed'
         ? {
@@ -156,10 +124,10 @@ export async function runEstimationJob(
               (spec.settings.maxIterations ?? MIXED_MAX_ITERATIONS) * (spec.starts ?? 3),
           }
         : {}),
-    };
-    report();
-    let offset = 0;
-    let lastStart = 1;
+    });
+    // Progress counts iterations over all starts; a resumed run counts those done before.
+    let offset = resume?.checkpoint.finished.reduce((sum, r) => sum + r.iterations, 0) ?? 0;
+    let lastStart = (resume?.checkpoint.start ?? 0) + 1;
     const pool = options.pool ?? createEstimationPool({ nice: deps.env.ENGINE_THREAD_NICE });
     const result = await runEstimationInWorker(
       pool,
@@ -169,55 +137,46 @@ export async function runEstimationJob(
         threads: options.threads ?? deps.env.WORKER_THREADS,
         kernel: deps.env.ESTIMATION_KERNEL,
         membership,
+        resume: resume?.checkpoint,
       },
       {
-        signal: abort.signal,
+        signal: progress.signal,
         // HB: iterations of the slowest chain; latent class: starts done over all class counts.
-        onSamplerProgress: (p) => {
-          latest = { ...latest, iteration: p.iteration, maxIterations: p.iterations };
-          report();
-        },
+        onSamplerProgress: (p) =>
+          progress.update({ iteration: p.iteration, maxIterations: p.iterations }),
         onClassProgress: (p) => {
           const [fewest, most] = classRange(spec.classes);
-          latest = {
-            ...latest,
+          progress.update({
             iteration: (p.classes - fewest) * p.starts + p.start,
             maxIterations: (most - fewest + 1) * p.starts,
-          };
-          report();
+          });
         },
-        onStage: (stage) => {
-          latest = { ...latest, stage, secondsLeft: undefined };
-          report();
-        },
+        onStage: (stage) => progress.update({ stage, secondsLeft: undefined }),
         onNote: (note) => deps.logger.warn({ runId }, note),
+        onCheckpoint: (checkpoint) => progress.checkpoint(checkpoint),
         onProgress: (p) => {
           if (p.start !== lastStart) {
-            offset = latest.iteration ?? offset;
+            offset = progress.latest.iteration ?? offset;
             lastStart = p.start;
           }
-          latest = {
-            ...latest,
+          progress.update({
             stage: 'estimating',
             iteration: offset + p.iteration,
             loglik: p.loglik,
             gradientNorm: p.gradientNorm,
             secondsLeft: Number.isFinite(p.secondsLeft) ? Math.round(p.secondsLeft) : undefined,
-            initialGradientNorm: latest.initialGradientNorm ?? p.gradientNorm,
+            initialGradientNorm: progress.latest.initialGradientNorm ?? p.gradientNorm,
             start: p.start,
-          };
-          report();
+          });
         },
       },
     ).finally(() => (options.pool ? undefined : pool.destroy()));
-    latest = { ...latest, stage: 'saving' };
-    report();
-    clearInterval(heartbeat);
-    await writing;
+    progress.update({ stage: 'saving' });
+    await progress.stop();
     const cancelled = await persist(
       async () => (await getRunForJob(deps.db, { id: runId }))?.cancelRequested,
     );
-    if (abort.signal.aborted || cancelled) throw new EstimationCancelledError();
+    if (progress.signal.aborted || cancelled) throw new EstimationCancelledError();
     const { individuals, ...rest } = result;
     const names = new Map(prepared.columns.map((c) => [c.key, c.name]));
     const stored: RunResult = {
@@ -232,6 +191,7 @@ export async function runEstimationJob(
     };
     await persist(() =>
       deps.db.transaction(async (tx) => {
+        await deleteRunCheckpoint(tx, { runId });
         await replaceTasteProfiles(tx, {
           runId,
           // HB intervals and latent class probabilities go to `extra`.
@@ -246,50 +206,49 @@ export async function runEstimationJob(
             }),
           ),
         });
-        await finishRun(tx, {
+        const finished = await finishRun(tx, {
           id: runId,
+          attempt,
           status: 'done',
           results: stored,
           progress: {
-            ...latest,
+            ...progress.latest,
             stage: 'saving',
             iteration: result.iterations,
             loglik: result.loglik,
             // The HB sampler has no gradient (null), and the progress schema wants a number.
             gradientNorm: result.convergence.gradientNorm ?? undefined,
-            elapsedMs: Date.now() - started,
+            elapsedMs: progress.elapsedMs(),
             heartbeatAt: new Date().toISOString(),
           },
         });
+        // Rolls the profiles back: the run is another claim's now.
+        if (!finished) throw new RunTakenOverError();
       }),
     );
   } catch (err) {
-    clearInterval(heartbeat);
-    await writing.catch(() => undefined);
-    if (abort.signal.aborted || err instanceof EstimationCancelledError) {
-      await persist(() => finishRun(deps.db, { id: runId, status: 'cancelled' }));
+    await progress.stop();
+    if (progress.takenOver || err instanceof RunTakenOverError) {
+      deps.logger.warn({ runId, attempt }, 'run taken over by another worker; this one stops');
       return;
     }
-    const readable = describeRunError(err);
-    if (!readable) deps.logger.error({ err, runId }, 'estimation run failed');
-    await persist(() =>
+    const cancelled = progress.signal.aborted || err instanceof EstimationCancelledError;
+    const readable = cancelled ? null : describeRunError(err);
+    if (!cancelled && !readable) deps.logger.error({ err, runId }, 'estimation run failed');
+    const ended = await persist(() =>
       finishRun(deps.db, {
         id: runId,
-        status: 'failed',
-        error: readable ?? 'The model could not be estimated because of an internal error.',
+        attempt,
+        ...(cancelled
+          ? { status: 'cancelled' as const }
+          : {
+              status: 'failed' as const,
+              error: readable ?? 'The model could not be estimated because of an internal error.',
+            }),
       }),
     );
+    if (ended) await persist(() => deleteRunCheckpoint(deps.db, { runId }));
   }
-}
-
-/** Fails runs left running by a worker that died; run at worker start and every minute. */
-export async function sweepStaleRuns(deps: AppDeps, now = Date.now()): Promise<string[]> {
-  const failed = await failStaleRuns(deps.db, {
-    silentSince: new Date(now - STALE_RUN_MS),
-    error: WORKER_LOST_ERROR,
-  });
-  if (failed.length > 0) deps.logger.warn({ ids: failed }, 'failed stale estimation runs');
-  return failed.map((r) => r.id);
 }
 
 const ORPHANED_RUNS: OrphanSpec = {
@@ -314,7 +273,7 @@ export function createEstimationJobKind() {
         pool: (pool ??= createEstimationPool({ nice: deps.env.ENGINE_THREAD_NICE })),
       }),
     sweep: async (deps, queue) => {
-      await sweepStaleRuns(deps);
+      await sweepStaleRuns(deps, Date.now(), queue ?? deps.jobs ?? null);
       if (queue) await sweepOrphans(deps, queue, ORPHANED_RUNS);
     },
     close: async () => {

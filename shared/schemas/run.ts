@@ -89,6 +89,13 @@ export const runProgressSchema = z.object({
   maxIterations: z.number().int().optional(),
   start: z.number().int().optional(),
   heartbeatAt: z.string().optional(),
+  /**
+   * Set when a worker took the run up again after the one running it was lost: the claim
+   * (2 = first resume) and the iteration it went on from (0: from the beginning).
+   */
+  resumed: z
+    .object({ attempt: z.number().int(), fromIteration: z.number().int().nonnegative() })
+    .optional(),
 });
 export type RunProgress = z.infer<typeof runProgressSchema>;
 

@@ -9,6 +9,12 @@
  * current inverse-Hessian approximation (Newton decrement g′Hg and the relative gradient); as
  * "stalled" when the line search finds no better point; as "iteration_limit" otherwise. A
  * small change in f never ends it. Callers confirm the verdict with a real Hessian.
+ *
+ * Resuming: after every iteration `onState` gets the whole state (iterate, f, gradient, inverse
+ * Hessian, counters and the stop verdict, if any). Started again with `resume` set to such a
+ * state, the minimisation takes exactly the steps it would have taken had it never stopped:
+ * nothing else carries over from one iteration to the next, and the state is taken before the
+ * next direction is computed. The caller decides which states to keep and where.
  */
 import {
   measureConvergence,
@@ -25,6 +31,27 @@ export type AsyncObjective = (x: Float64Array, g: Float64Array) => Promise<numbe
 export interface BfgsOptions extends ConvergenceTolerances {
   signal?: AbortSignal;
   onIteration?: (iteration: number, f: number, gradientNorm: number) => void;
+  /**
+   * Called after every iteration with a copy of the state, before onIteration: a caller that
+   * shows an iteration has the state to resume from it.
+   */
+  onState?: (state: BfgsState) => void;
+  /** Continue from this state (from onState) instead of x0: no evaluation at x0. */
+  resume?: BfgsState;
+}
+
+/** Where the minimisation stands after an iteration: all it needs to go on exactly. */
+export interface BfgsState {
+  x: Float64Array;
+  f: number;
+  grad: Float64Array;
+  /** The inverse-Hessian approximation, n × n row-major. */
+  inverseHessian: Float64Array;
+  iterations: number;
+  evaluations: number;
+  relativeChange: number;
+  /** Set when this iteration ended the minimisation: resuming returns at once. */
+  stopped: BfgsStopReason | null;
 }
 
 export type BfgsStopReason = ConvergenceStatus;
@@ -55,26 +82,36 @@ export async function minimizeBfgs(
   options: BfgsOptions,
 ): Promise<BfgsResult> {
   const n = x0.length;
-  const x = Float64Array.from(x0);
+  const from = options.resume;
+  if (from) assertStateFits(from, n);
+  const x = Float64Array.from(from?.x ?? x0);
   const g = new Float64Array(n);
   let evaluations = 1;
-  let fx = await f(x, g);
-  if (!Number.isFinite(fx))
-    throw new Error('the log-likelihood is not finite at the starting values');
+  let fx: number;
+  if (from) {
+    g.set(from.grad);
+    fx = from.f;
+    evaluations = from.evaluations;
+  } else {
+    fx = await f(x, g);
+    if (!Number.isFinite(fx))
+      throw new Error('the log-likelihood is not finite at the starting values');
+  }
   const H = new Float64Array(n * n);
-  for (let i = 0; i < n; i++) H[i * n + i] = 1;
+  if (from) H.set(from.inverseHessian);
+  else for (let i = 0; i < n; i++) H[i * n + i] = 1;
   const d = new Float64Array(n);
   const xNew = new Float64Array(n);
   const gNew = new Float64Array(n);
   const s = new Float64Array(n);
   const y = new Float64Array(n);
   const Hy = new Float64Array(n);
-  let iterations = 0;
-  let relativeChange = Infinity;
-  let reason: BfgsStopReason = 'iteration_limit';
+  let iterations = from?.iterations ?? 0;
+  let relativeChange = from?.relativeChange ?? Infinity;
+  let reason: BfgsStopReason = from?.stopped ?? 'iteration_limit';
   // Judged only after an update: the first H is the identity, no estimate of the curvature.
   const converged = () => passesConvergence(measureConvergence(g, multiply(H, g), x, fx), options);
-  while (iterations < options.maxIterations) {
+  while (!from?.stopped && iterations < options.maxIterations) {
     if (options.signal?.aborted) throw new EstimationCancelledError();
     for (let i = 0; i < n; i++) {
       let v = 0;
@@ -135,14 +172,27 @@ export async function minimizeBfgs(
     g.set(gNew);
     fx = fNew;
     iterations++;
+    // The line search fell back to a zero step (alpha 0): the point did not move.
+    const stopped: BfgsStopReason | null = converged()
+      ? 'converged'
+      : alpha === 0
+        ? 'stalled'
+        : iterations >= options.maxIterations
+          ? 'iteration_limit'
+          : null;
+    options.onState?.({
+      x: Float64Array.from(x),
+      f: fx,
+      grad: Float64Array.from(g),
+      inverseHessian: Float64Array.from(H),
+      iterations,
+      evaluations,
+      relativeChange,
+      stopped,
+    });
     options.onIteration?.(iterations, fx, Math.sqrt(dot(g, g)));
-    if (converged()) {
-      reason = 'converged';
-      break;
-    }
-    // The line search fell back to a zero step: the point did not move.
-    if (alpha === 0) {
-      reason = 'stalled';
+    if (stopped) {
+      reason = stopped;
       break;
     }
   }
@@ -158,6 +208,16 @@ export async function minimizeBfgs(
     decrement: Math.abs(dot(g, multiply(H, g))),
     relativeChange,
   };
+}
+
+function assertStateFits(state: BfgsState, n: number): void {
+  if (
+    state.x.length !== n ||
+    state.grad.length !== n ||
+    state.inverseHessian.length !== n * n ||
+    !Number.isFinite(state.f)
+  )
+    throw new Error(`a BFGS state of ${state.x.length} parameters cannot resume a problem of ${n}`);
 }
 
 function updateInverseHessian(

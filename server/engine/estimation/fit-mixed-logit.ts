@@ -20,6 +20,7 @@ import { computeFitStatistics, computeNullLoglik, type FitStatistics } from './f
 import { computeInference, type Inference } from './inference';
 import type { MixedLogitLayout } from './mixed-logit-layout';
 import { computeMixedHitRate } from './mixed-logit-hit-rate';
+import { assertCheckpointFits, type MixedLogitCheckpoint } from './mixed-logit-checkpoint';
 import { getMixedLogitStart, perturbStart } from './mixed-logit-start';
 import {
   createThetaScaling,
@@ -56,6 +57,10 @@ export interface MixedLogitHooks {
   signal?: AbortSignal;
   /** Engine notes worth logging (e.g. why the WebAssembly SIMD kernel was not used). */
   onNote?: (note: string) => void;
+  /** Where an earlier, interrupted fit of the same data and options stood: go on from there. */
+  resume?: MixedLogitCheckpoint;
+  /** Called after every BFGS iteration with where the fit stands (the caller picks what to keep). */
+  onCheckpoint?: (checkpoint: MixedLogitCheckpoint) => void;
 }
 
 export interface MixedLogitResult extends FitStatistics {
@@ -157,24 +162,35 @@ export async function fitMixedLogit(
       for (let p = 0; p < g.length; p++) g[p] = -g[p];
       return Number.isFinite(ll) ? -ll : Infinity;
     };
-    const runs: BfgsResult[] = [];
-    for (let s = 0; s < opts.starts; s++) {
+    const resume = hooks.resume;
+    if (resume) assertCheckpointFits(resume, layout.P, opts.starts);
+    const runs: BfgsResult[] = resume ? [...resume.finished] : [];
+    for (let s = runs.length; s < opts.starts; s++) {
       const x0 = s === 0 ? theta0 : perturbStart(theta0, s, opts.draws.seed);
+      const from = resume?.start === s ? (resume.current ?? undefined) : undefined;
       const startedAt = performance.now();
+      const firstIteration = from?.iterations ?? 0;
       let initialGradientNorm = NaN;
+      const onCheckpoint = hooks.onCheckpoint;
       runs.push(
         await minimizeBfgs(objective, x0, {
           ...tolerances,
           signal: hooks.signal,
+          resume: from,
+          onState: onCheckpoint
+            ? (state) => onCheckpoint({ start: s, finished: [...runs], current: state })
+            : undefined,
           onIteration: (iteration, f, gradientNorm) => {
-            if (iteration === 1) initialGradientNorm = gradientNorm;
+            // A resumed start measures its pace from the iterations it does itself.
+            if (iteration === firstIteration + 1) initialGradientNorm = gradientNorm;
             const secondsLeft = estimateSecondsLeft({
               iteration,
               maxIterations: opts.maxIterations,
               gradientNorm,
               initialGradientNorm,
               tolerance: opts.gradientTolerance,
-              secondsPerIteration: (performance.now() - startedAt) / 1000 / iteration,
+              secondsPerIteration:
+                (performance.now() - startedAt) / 1000 / (iteration - firstIteration),
               secondsPerEvaluation: evaluationSeconds / Math.max(1, evaluations),
               evaluationsAfter,
               startsLeft: opts.starts - s - 1,

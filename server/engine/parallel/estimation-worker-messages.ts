@@ -13,6 +13,7 @@ import type { KernelPreference } from '../simd/kernel-choice';
 import type { HbProgress } from '../hb/fit-hb';
 import type { LatentClassProgress } from '../latent-class/fit-latent-class';
 import type { MembershipCovariates } from '../latent-class/check-latent-class-options';
+import type { MixedLogitCheckpoint } from '../estimation/mixed-logit-checkpoint';
 
 export interface EstimationWorkerTask {
   spec: EstimationSpec;
@@ -23,6 +24,8 @@ export interface EstimationWorkerTask {
   kernel?: KernelPreference;
   /** Latent class: covariates of the membership model, rows in built.data.respondentIds order. */
   membership?: MembershipCovariates | null;
+  /** Mixed logit: an interrupted attempt's checkpoint to go on from. */
+  resume?: MixedLogitCheckpoint;
   port?: MessagePort;
 }
 
@@ -36,5 +39,7 @@ export type EstimationProgressMessage =
   | { type: 'classes'; progress: LatentClassProgress }
   /** A stage after the optimisation began (standard errors, WTP, taste profiles). */
   | { type: 'stage'; stage: EstimationStage }
+  /** Mixed logit: where the fit stands after a BFGS iteration (the job decides what to keep). */
+  | { type: 'checkpoint'; checkpoint: MixedLogitCheckpoint }
   /** A remark for the run's log (for example, a kernel that fell back to TypeScript). */
   | { type: 'note'; note: string };

@@ -32,12 +32,15 @@ function assertTask(message: unknown): asserts message is EstimationWorkerTask {
 
 export async function runEstimationTask(message: unknown): Promise<EstimationWorkerResult> {
   assertTask(message);
-  const { spec, built, threads, kernel, membership, port } = message;
+  const { spec, built, threads, kernel, membership, resume, port } = message;
   try {
     const result = await runEstimation(spec, built, {
       threads,
       kernel,
       membership,
+      resume,
+      onCheckpoint: (checkpoint) =>
+        port?.postMessage({ type: 'checkpoint', checkpoint } satisfies EstimationProgressMessage),
       onNote: (note) =>
         port?.postMessage({ type: 'note', note } satisfies EstimationProgressMessage),
       onProgress: (progress) =>

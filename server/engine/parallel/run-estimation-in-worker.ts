@@ -15,6 +15,7 @@ import { Piscina } from 'piscina';
 import type { EstimationResult } from '../../../shared/schemas/estimation-spec';
 import { EstimationCancelledError } from '../estimation/estimation-errors';
 import type { EstimationProgress, EstimationStage } from '../estimation/fit-mixed-logit';
+import type { MixedLogitCheckpoint } from '../estimation/mixed-logit-checkpoint';
 import type { HbProgress } from '../hb/fit-hb';
 import type { LatentClassProgress } from '../latent-class/fit-latent-class';
 import type {
@@ -57,6 +58,7 @@ export async function runEstimationInWorker(
     onClassProgress?: (progress: LatentClassProgress) => void;
     onStage?: (stage: EstimationStage) => void;
     onNote?: (note: string) => void;
+    onCheckpoint?: (checkpoint: MixedLogitCheckpoint) => void;
     signal?: AbortSignal;
   } = {},
 ): Promise<EstimationResult> {
@@ -67,6 +69,7 @@ export async function runEstimationInWorker(
     else if (message?.type === 'classes') hooks.onClassProgress?.(message.progress);
     else if (message?.type === 'stage') hooks.onStage?.(message.stage);
     else if (message?.type === 'note') hooks.onNote?.(message.note);
+    else if (message?.type === 'checkpoint') hooks.onCheckpoint?.(message.checkpoint);
   });
   try {
     const out = (await pool.run(

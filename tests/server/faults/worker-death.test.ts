@@ -1,9 +1,11 @@
 /**
  * Worker death, with real processes: a separate worker (`npm run worker`, server/worker.ts)
- * takes an estimation from the real queue and is killed with SIGKILL in the middle of it, as
- * an out-of-memory kill would. The run stops beating; once it has been silent for
- * STALE_RUN_MS the sweep fails it with a reason a researcher can act on, so it is never left
- * "running" for ever; and a worker started afterwards takes the next run to done.
+ * takes a mixed logit from the real queue and is killed with SIGKILL in the middle of it,
+ * after it saved a checkpoint, as an out-of-memory kill would. The run stops beating; once it
+ * has been silent for STALE_RUN_MS the sweep queues it again, so it is never left "running"
+ * for ever; a worker started afterwards resumes it from the checkpoint, says so, and ends it
+ * with the estimates of the same specification run without interruption (same draws, seed and
+ * thread count: the same floating-point path, so equal).
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import fs from 'node:fs';
@@ -12,15 +14,12 @@ import path from 'node:path';
 import { createTestApp, type TestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { getRunForJob } from '../../../db/queries/runs';
+import { getRunCheckpoint } from '../../../db/queries/run-checkpoints';
 import { startJobQueue, type JobQueue } from '../../../server/jobs/queue';
 import { createJobKinds } from '../../../server/jobs/background';
-import {
-  STALE_RUN_MS,
-  sweepStaleRuns,
-  WORKER_LOST_ERROR,
-} from '../../../server/jobs/estimation-job';
+import { STALE_RUN_MS, sweepStaleRuns } from '../../../server/jobs/stale-run-sweep';
 import { startProcess, type ServerProcess } from '../../../scripts/lib/server-process';
-import { ignoreTeardownErrors, mixedLogitSpec, seedRunStudy, TRUE_MNL } from '../jobs/run-fixtures';
+import { ignoreTeardownErrors, mixedLogitSpec, seedRunStudy } from '../jobs/run-fixtures';
 
 let t: TestApp;
 let sender: JobQueue;
@@ -78,55 +77,73 @@ async function waitForRun(id: string, done: (row: RunRow) => boolean, ms: number
   }
 }
 type RunRow = NonNullable<Awaited<ReturnType<typeof getRunForJob>>>;
+
+async function waitFor<T>(probe: () => Promise<T | null>, ms: number): Promise<T> {
+  const until = Date.now() + ms;
+  for (;;) {
+    const value = await probe();
+    if (value) return value;
+    if (Date.now() > until) throw new Error(`nothing after ${ms} ms`);
+    await sleep(200);
+  }
+}
 const heartbeatOf = (row: RunRow) =>
   (row.progress as { heartbeatAt?: string } | null)?.heartbeatAt ?? null;
 
 describe('a worker killed during an estimation', () => {
-  it('leaves a run that the sweep fails with a reason, and the next worker carries on', async () => {
+  it('leaves a run that the sweep queues again and the next worker resumes from its checkpoint', async () => {
     const first = startWorker();
-    const slow = await team.agents.analyst
-      .post(base)
-      // Long enough to be killed mid-run on a fast machine too (tens of seconds on one thread).
-      .send({ spec: mixedLogitSpec(10_000, 5, true) })
-      .expect(201);
-    const running = await waitForRun(
-      slow.body.id,
-      (r) => r.status !== 'queued' && heartbeatOf(r) !== null,
-      60_000,
+    // Long enough to be killed mid-run on a fast machine too (tens of seconds on one thread).
+    const spec = mixedLogitSpec(10_000, 5, true);
+    const slow = await team.agents.analyst.post(base).send({ spec }).expect(201);
+    const saved = await waitFor(
+      () => getRunCheckpoint(t.deps.db, { runId: slow.body.id }),
+      120_000,
     );
-    expect(running.status).toBe('running');
+    expect(saved.attempt).toBe(1);
 
     await first.kill();
     await sleep(100);
     const afterKill = await getRunForJob(t.deps.db, { id: slow.body.id });
+    const checkpoint = await getRunCheckpoint(t.deps.db, { runId: slow.body.id });
     await sleep(2_500); // more than two heartbeats
     const later = await getRunForJob(t.deps.db, { id: slow.body.id });
     expect(later?.status).toBe('running');
     expect(heartbeatOf(later!)).toBe(heartbeatOf(afterKill!));
 
     // Nobody sweeps it before it has been silent long enough…
-    expect(await sweepStaleRuns(t.deps)).not.toContain(slow.body.id);
-    // …and once it has (the clock moved on by STALE_RUN_MS), it is failed with the reason.
-    const failed = await sweepStaleRuns(t.deps, Date.now() + STALE_RUN_MS);
-    expect(failed).toContain(slow.body.id);
-    const view = (await team.agents.viewer.get(`${base}/${slow.body.id}`).expect(200)).body;
-    expect(view).toMatchObject({ status: 'failed', error: WORKER_LOST_ERROR });
+    expect((await sweepStaleRuns(t.deps)).resumed).not.toContain(slow.body.id);
+    // …and once it has (the clock moved on by STALE_RUN_MS), it is queued again.
+    const swept = await sweepStaleRuns(t.deps, Date.now() + STALE_RUN_MS);
+    expect(swept.resumed).toContain(slow.body.id);
+    const waiting = (await team.agents.viewer.get(`${base}/${slow.body.id}`).expect(200)).body;
+    expect(waiting).toMatchObject({ status: 'queued', attempts: 1 });
 
     startWorker();
-    const next = await team.agents.analyst
-      .post(base)
-      .send({
-        spec: {
-          model: 'mnl',
-          coefficients: Object.keys(TRUE_MNL).map((column, k) => ({ name: `b${k}`, column })),
-        },
-      })
-      .expect(201);
-    const done = await waitForRun(
-      next.body.id,
+    const resumed = await waitForRun(
+      slow.body.id,
       (r) => r.status === 'done' || r.status === 'failed',
-      90_000,
+      240_000,
     );
-    expect(done).toMatchObject({ status: 'done', error: null });
-  }, 180_000);
+    expect(resumed).toMatchObject({ status: 'done', error: null, attempts: 2 });
+    expect(resumed.progress).toMatchObject({
+      resumed: { attempt: 2, fromIteration: checkpoint!.iteration },
+    });
+    expect(checkpoint!.iteration).toBeGreaterThan(0);
+
+    // The same specification, never interrupted, on the same worker settings.
+    const whole = await team.agents.analyst.post(base).send({ spec }).expect(201);
+    const reference = await waitForRun(
+      whole.body.id,
+      (r) => r.status === 'done' || r.status === 'failed',
+      240_000,
+    );
+    expect(reference).toMatchObject({ status: 'done', attempts: 1 });
+    type Stored = { estimates: unknown[]; loglik: number; iterations: number };
+    const a = reference.results as Stored;
+    const b = resumed.results as Stored;
+    expect(b.estimates).toEqual(a.estimates);
+    expect(b.loglik).toBe(a.loglik);
+    expect(b.iterations).toBe(a.iterations);
+  }, 420_000);
 });

@@ -1,7 +1,8 @@
 /**
  * A run end to end in-process: the API enqueues, the job handler (what the worker runs) claims
  * the run, estimates, stores results and one taste profile per respondent; cancel stops a
- * running run; a run left running by a dead worker is failed by the sweep.
+ * running run; a run left running by a dead worker is queued again by the sweep and started
+ * again (an MNL keeps no checkpoint), or failed once it has lost its worker too often.
  */
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
@@ -10,12 +11,13 @@ import { createTeamWithAllRoles } from '../../support/factories';
 import { runs } from '../../../db/schema/models';
 import { listRunProfiles } from '../../../db/queries/taste-profiles';
 import { getRunForJob } from '../../../db/queries/runs';
+import { runEstimationJob } from '../../../server/jobs/estimation-job';
 import {
-  runEstimationJob,
+  MAX_RUN_ATTEMPTS,
   STALE_RUN_MS,
   sweepStaleRuns,
   WORKER_LOST_ERROR,
-} from '../../../server/jobs/estimation-job';
+} from '../../../server/jobs/stale-run-sweep';
 import { ignoreTeardownErrors, seedRunStudy, TRUE_MNL, type SeededStudy } from './run-fixtures';
 
 let t: TestApp;
@@ -194,7 +196,7 @@ describe('estimation job', () => {
 });
 
 describe('stale-run sweep (worker crash)', () => {
-  it('fails runs left running by a dead worker and leaves live ones alone', async () => {
+  it('queues again runs left by a dead worker, fails those that lost it too often, leaves live ones', async () => {
     const make = async () =>
       (
         await team.agents.analyst
@@ -203,33 +205,56 @@ describe('stale-run sweep (worker crash)', () => {
           .expect(201)
       ).body.id as string;
     const dead = await make();
+    const deadTooOften = await make();
     const alive = await make();
     const silent = new Date(Date.now() - STALE_RUN_MS - 60_000);
     // A worker claimed `dead`, then crashed: its heartbeat stopped long ago.
+    const claimed = (attempts: number, at: Date) => ({
+      status: 'running' as const,
+      attempts,
+      startedAt: at,
+      progress: { heartbeatAt: at.toISOString() },
+    });
+    await t.deps.db.update(runs).set(claimed(1, silent)).where(eq(runs.id, dead));
     await t.deps.db
       .update(runs)
-      .set({
-        status: 'running',
-        startedAt: silent,
-        progress: { heartbeatAt: silent.toISOString() },
-      })
-      .where(eq(runs.id, dead));
-    await t.deps.db
-      .update(runs)
-      .set({
-        status: 'running',
-        startedAt: new Date(),
-        progress: { heartbeatAt: new Date().toISOString() },
-      })
-      .where(eq(runs.id, alive));
-    const failed = await sweepStaleRuns(t.deps);
-    expect(failed).toContain(dead);
-    expect(failed).not.toContain(alive);
-    const deadRow = await getRunForJob(t.deps.db, { id: dead });
-    expect(deadRow).toMatchObject({ status: 'failed', error: WORKER_LOST_ERROR });
+      .set(claimed(MAX_RUN_ATTEMPTS, silent))
+      .where(eq(runs.id, deadTooOften));
+    await t.deps.db.update(runs).set(claimed(1, new Date())).where(eq(runs.id, alive));
+    const swept = await sweepStaleRuns(t.deps);
+    expect(swept.resumed).toContain(dead);
+    expect(swept.failed).toContain(deadTooOften);
+    expect([...swept.resumed, ...swept.failed]).not.toContain(alive);
+    expect(sent.filter((id) => id === dead)).toHaveLength(2); // created, then queued again
+    expect(await getRunForJob(t.deps.db, { id: dead })).toMatchObject({ status: 'queued' });
+    const failedRow = await getRunForJob(t.deps.db, { id: deadTooOften });
+    expect(failedRow).toMatchObject({ status: 'failed', error: WORKER_LOST_ERROR });
+    expect(WORKER_LOST_ERROR).toMatch(/stopped unexpectedly 3 times/);
     expect((await getRunForJob(t.deps.db, { id: alive }))?.status).toBe('running');
+    const waiting = (await team.agents.viewer.get(`${base}/${dead}`).expect(200)).body;
+    expect(waiting).toMatchObject({ status: 'queued', attempts: 1 });
+
+    // The next worker takes it: an MNL keeps no checkpoint, so it starts from the beginning.
+    await runEstimationJob(t.deps, dead, { threads: 1 });
     const view = (await team.agents.viewer.get(`${base}/${dead}`).expect(200)).body;
-    expect(view.status).toBe('failed');
+    expect(view).toMatchObject({ status: 'done', attempts: 2, error: null });
+    expect(view.progress.resumed).toEqual({ attempt: 2, fromIteration: 0 });
+  });
+
+  it('without a queue to send to, leaves a resumable run alone', async () => {
+    const res = await team.agents.analyst
+      .post(base)
+      .send({ spec: { model: 'mnl', coefficients: allColumns } })
+      .expect(201);
+    const silent = new Date(Date.now() - STALE_RUN_MS - 60_000);
+    await t.deps.db
+      .update(runs)
+      .set({ status: 'running', attempts: 1, progress: { heartbeatAt: silent.toISOString() } })
+      .where(eq(runs.id, res.body.id));
+    const swept = await sweepStaleRuns(t.deps, Date.now(), null);
+    expect(swept).toEqual({ resumed: [], failed: [] });
+    expect((await getRunForJob(t.deps.db, { id: res.body.id }))?.status).toBe('running');
+    await t.deps.db.update(runs).set({ status: 'cancelled' }).where(eq(runs.id, res.body.id));
   });
 });
 

@@ -1,7 +1,7 @@
 /**
  * The real queue (pg-boss on the test database) with a worker in this process: a run started
  * through the API is picked up and finished by the worker, and a run left running by a worker
- * that died is failed by the sweep the worker runs when it starts.
+ * that died is queued again by the sweep the worker runs when it starts, and finished.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
@@ -11,7 +11,7 @@ import { runs } from '../../../db/schema/models';
 import { getRunForJob } from '../../../db/queries/runs';
 import { startJobQueue, type JobQueue } from '../../../server/jobs/queue';
 import { createJobKinds } from '../../../server/jobs/background';
-import { STALE_RUN_MS, WORKER_LOST_ERROR } from '../../../server/jobs/estimation-job';
+import { STALE_RUN_MS } from '../../../server/jobs/stale-run-sweep';
 import { ignoreTeardownErrors, seedRunStudy, TRUE_MNL } from './run-fixtures';
 
 let t: TestApp;
@@ -36,7 +36,12 @@ beforeAll(async () => {
   const silent = new Date(Date.now() - STALE_RUN_MS - 60_000);
   await t.deps.db
     .update(runs)
-    .set({ status: 'running', startedAt: silent, progress: { heartbeatAt: silent.toISOString() } })
+    .set({
+      status: 'running',
+      attempts: 1,
+      startedAt: silent,
+      progress: { heartbeatAt: silent.toISOString() },
+    })
     .where(eq(runs.id, staleRunId));
   queue = await startJobQueue(t.deps, { kinds: createJobKinds(), work: true });
   t.deps.jobs = queue;
@@ -58,10 +63,11 @@ async function waitForEnd(runId: string, timeoutMs = 45_000) {
 }
 
 describe('estimation runs on the job queue', () => {
-  it('fails, at worker start, a run whose worker died', async () => {
-    const row = await getRunForJob(t.deps.db, { id: staleRunId });
-    expect(row).toMatchObject({ status: 'failed', error: WORKER_LOST_ERROR });
-  });
+  it('queues again, at worker start, a run whose worker died, and finishes it', async () => {
+    const row = await waitForEnd(staleRunId);
+    expect(row).toMatchObject({ status: 'done', attempts: 2, error: null });
+    expect(row.progress).toMatchObject({ resumed: { attempt: 2, fromIteration: 0 } });
+  }, 60_000);
 
   it('runs a queued run on the worker to done', async () => {
     const coefficients = Object.keys(TRUE_MNL).map((column, k) => ({ name: `b${k}`, column }));

@@ -2,7 +2,8 @@
  * Progress of a queued or running run: a bar of the progress toward convergence (the gradient
  * norm falling from its first value to the tolerance, on a log scale), the stage by name
  * (estimating, standard errors, WTP, taste profiles, saving) with the iteration, the
- * log-likelihood, the elapsed time and, for runs over a minute, about how long is left.
+ * log-likelihood, the elapsed time and, for runs over a minute, about how long is left; and,
+ * when a worker took the run up again after the one running it was lost, from where.
  */
 import type { Run, RunStage } from '@shared/schemas/run';
 import { ProgressBar } from '@/components/ui/feedback';
@@ -25,7 +26,10 @@ const STAGE_LABELS: Record<RunStage, string> = {
 /** The words for where a run is: the stage, with the iteration while estimating. */
 export function describeRunStage(run: Run): string {
   const p = run.progress;
-  if (run.status === 'queued') return 'Waiting for a worker…';
+  if (run.status === 'queued')
+    return run.attempts > 0
+      ? 'Waiting for a worker to take it up again after a worker restart…'
+      : 'Waiting for a worker…';
   const stage = p.stage ?? 'preparing';
   if (stage === 'estimating' && p.iteration) {
     if (run.model === 'latent_class')
@@ -55,6 +59,15 @@ export function getConvergenceShare(run: Run): number {
   return Math.min(0.97, Math.max(0.02, share));
 }
 
+/** Where a run went on after its worker was lost (null when it never was). */
+export function describeResume(p: Run['progress']): string | null {
+  if (!p.resumed) return null;
+  const times = p.resumed.attempt > 2 ? ` (${p.resumed.attempt - 1} restarts)` : '';
+  return p.resumed.fromIteration > 0
+    ? `Resumed from iteration ${p.resumed.fromIteration} after a worker restart${times}`
+    : `Started again from the beginning after a worker restart${times}`;
+}
+
 /** Runs that take over a minute show the estimate of the time left (a short run needs none). */
 export function showsTimeLeft(p: Run['progress']): boolean {
   if (p.secondsLeft === undefined || p.stage !== 'estimating') return false;
@@ -64,6 +77,7 @@ export function showsTimeLeft(p: Run['progress']): boolean {
 export function RunProgress({ run }: { run: Run }) {
   const p = run.progress;
   const label = describeRunStage(run);
+  const resumed = describeResume(p);
   return (
     <div className="space-y-1.5">
       <ProgressBar value={getConvergenceShare(run)} label={`Progress of ${run.name}`} />
@@ -81,6 +95,7 @@ export function RunProgress({ run }: { run: Run }) {
         )}
         {run.cancelRequested && run.status === 'running' && <span>Stopping…</span>}
       </div>
+      {resumed && <p className="text-xs text-ink-soft">{resumed}</p>}
     </div>
   );
 }

@@ -7,7 +7,12 @@ import { ParameterTable } from '@/features/runs/components/parameter-table';
 import { ImpliedCovariance } from '@/features/runs/components/implied-covariance';
 import { WtpTable } from '@/features/runs/components/wtp-table';
 import { FitStatistics } from '@/features/runs/components/fit-statistics';
-import { describeRunStage, getConvergenceShare } from '@/features/runs/components/run-progress';
+import {
+  describeResume,
+  describeRunStage,
+  getConvergenceShare,
+  RunProgress,
+} from '@/features/runs/components/run-progress';
 
 afterEach(cleanup);
 
@@ -137,5 +142,39 @@ describe('describeRunStage and getConvergenceShare', () => {
       getConvergenceShare(run('running', { stage })),
     );
     expect(shares).toEqual([0.97, 0.98, 0.99, 1]);
+  });
+});
+
+describe('a run taken up again after its worker was lost', () => {
+  const run = (status: string, progress: object, attempts = 1) =>
+    ({ status, progress, attempts, name: 'Mixed logit' }) as unknown as Run;
+  it('says it waits to be taken up again while queued', () => {
+    expect(describeRunStage(run('queued', { stage: 'estimating', iteration: 30 }))).toBe(
+      'Waiting for a worker to take it up again after a worker restart…',
+    );
+    expect(describeRunStage(run('queued', {}, 0))).toBe('Waiting for a worker…');
+  });
+  it('says from which iteration it went on, and how many restarts there were', () => {
+    expect(describeResume({})).toBeNull();
+    expect(describeResume({ resumed: { attempt: 2, fromIteration: 17 } })).toBe(
+      'Resumed from iteration 17 after a worker restart',
+    );
+    expect(describeResume({ resumed: { attempt: 3, fromIteration: 0 } })).toBe(
+      'Started again from the beginning after a worker restart (2 restarts)',
+    );
+  });
+  it('shows the note under the progress bar', () => {
+    render(
+      <RunProgress
+        run={run('running', {
+          stage: 'estimating',
+          iteration: 21,
+          resumed: { attempt: 2, fromIteration: 17 },
+        })}
+      />,
+    );
+    expect(
+      screen.getByText('Resumed from iteration 17 after a worker restart'),
+    ).toBeInTheDocument();
   });
 });

@@ -15,7 +15,7 @@ import { getRunQueryOptions, useRun } from '@/features/runs/api/get-run';
 import { useCancelRun } from '@/features/runs/api/cancel-run';
 import { isRunActive } from '@/features/runs/api/run-keys';
 import { RunStatusBadge } from '@/features/runs/components/run-status-badge';
-import { RunProgress } from '@/features/runs/components/run-progress';
+import { describeResume, RunProgress } from '@/features/runs/components/run-progress';
 import { RunCautions } from '@/features/runs/components/run-cautions';
 import { ParameterTable } from '@/features/runs/components/parameter-table';
 import { FitStatistics } from '@/features/runs/components/fit-statistics';
@@ -93,6 +93,9 @@ export function Component() {
               {' '}
               · data SHA-256 <span className="font-mono">{run.dataHash.slice(0, 12)}…</span>
             </>
+          )}
+          {!isRunActive(run.status) && run.progress.resumed && (
+            <> · {describeResume(run.progress)?.toLowerCase()}</>
           )}
         </p>
       </div>

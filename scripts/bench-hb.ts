@@ -3,9 +3,10 @@
  * (scripts/bench-data/hb-choices.csv: 330 respondents × 16 tasks × 5 alternatives, one of them
  * "none", 10 correlated normal coefficients; generate-hb-bench-data.ts). Runs 20,000 iterations
  * (10,000 burn-in, thinning 10, one MH step per respondent per iteration) in 2 chains on 2 worker
- * threads with a full covariance, once with the current respondent kernel (WebAssembly SIMD,
- * server/engine/hb/respondent-shift-kernel.ts) and once with the previous one (its TypeScript
- * kernel, the same chain draw for draw), same seed, one after the other in this run.
+ * threads with a full covariance, once with the current respondent layer (whole MH sweeps in the
+ * WebAssembly SIMD kernel, server/engine/hb/respondent-simd-kernel.ts) and once with the previous
+ * one (proposal and acceptance in TypeScript, the proposals' likelihoods in the same kernel; the
+ * same chain draw for draw), same seed, one after the other in this run.
  * For each it prints the wall and CPU seconds (this process and its worker threads) of the chains
  * (MNL start + sampler) and the summary, after a 100-iteration warm-up that starts the threads, iterations per second (all chains), the largest split
  * R-hat and the smallest ESS (μ and diag Σ); and the load average before and after. The issue's

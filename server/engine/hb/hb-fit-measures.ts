@@ -58,7 +58,7 @@ function simulate(
   // All K columns in coefficient order, utilities from 0: the sums of computeRespondentLoglik.
   const all = Int32Array.from({ length: K }, (_, k) => k);
   const design = buildRespondentDesign(data, { ...layout, random: all, fixed: new Int32Array(0) });
-  const kernel = createRespondentShiftKernel(data, design, K, 0);
+  const kernel = createRespondentShiftKernel(data, design, K, 0, 'likelihood');
   const beta = kernel.delta;
   const { exps, denominators } = kernel;
   // Per respondent: the summed probabilities of each row (non-chosen alternatives) and of each

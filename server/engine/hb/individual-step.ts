@@ -8,6 +8,7 @@
  * allocates nothing. The kept utilities are updated by accepted increments, whose rounding
  * drifts by about √(accepted moves)·ε·|v| (≈ 1e-13 after 10⁵ moves), far below the MH noise.
  */
+import type { StatefulPrng } from '../../../shared/engine/random/prng';
 import type { Prng } from '../draws/prng';
 import type { ChoiceData } from '../estimation/choice-data';
 import { HB_LOGNORMAL, HB_NEG_LOGNORMAL, type HbLayout } from './check-hb-options';
@@ -24,7 +25,7 @@ export interface IndividualStep {
   /** N × Kr current α_n (random coefficients). */
   readonly alpha: Float64Array;
   /** Which kernel computes the proposals' likelihoods (the previous layers leave it out). */
-  readonly kernel?: 'simd' | 'typescript';
+  readonly kernel?: 'simd' | 'simd-likelihood' | 'typescript';
   /** Kf current fixed coefficients. */
   readonly fixedAlpha: Float64Array;
   /**
@@ -69,18 +70,15 @@ export function createIndividualStep(
   const { diffStart, taskStart } = data;
   const design = buildRespondentDesign(data, layout);
   const { rowStart } = design;
-  const kernel = createRespondentShiftKernel(data, design, Kr, Kf, preference);
-  const { v, vNew, vFixed, delta } = kernel;
   const randomTransform = Int8Array.from(random, (k) => transform[k]);
-  const alpha = new Float64Array(N * Kr);
-  const beta = new Float64Array(N * Kr);
+  const kernel = createRespondentShiftKernel(data, design, Kr, Kf, preference, randomTransform);
+  const { v, vNew, vFixed, delta, alpha, beta, ll } = kernel;
   for (let n = 0; n < N; n++)
     for (let r = 0; r < Kr; r++) {
       alpha[n * Kr + r] = start[random[r]];
       beta[n * Kr + r] = toBeta(randomTransform[r], start[random[r]]);
     }
   const fixedAlpha = Float64Array.from(fixed, (k) => start[k]);
-  const ll = new Float64Array(N);
   // Scratch, sized once.
   const proposalWs = createProposalWorkspace(Kr);
   const proposal = new Float64Array(Kr);
@@ -128,6 +126,9 @@ export function createIndividualStep(
     fixedAlpha,
     kernel: kernel.kind,
     step(mu, L, rho, prng, steps = 1) {
+      // The kernel continues the generator's stream when it can take its state words.
+      if (kernel.sweep && 'saveState' in prng && 'loadState' in prng)
+        return kernel.sweep(steps, mu, L, rho, prng as StatefulPrng);
       let moved = 0;
       for (let n = 0; n < N; n++) {
         for (let repeat = 0; repeat < steps; repeat++)

@@ -8,16 +8,42 @@
  * The caller reads and writes the arrays below (they are views into the WebAssembly memory when
  * that kernel runs) and calls shiftedLoglik; nothing is allocated per call.
  */
+import type { StatefulPrng } from '../../../shared/engine/random/prng';
 import type { ChoiceData } from '../estimation/choice-data';
-import { EXP_TABLE, expTang } from '../linalg/exp-stream';
+import { expTang } from '../linalg/exp-stream';
 import { loadSimdKernelModule } from '../simd/simd-kernel-module';
+import { createSimdKernel } from './respondent-simd-kernel';
 import type { RespondentDesign } from './respondent-design';
 import { shiftUtilities } from './respondent-design';
 
-export type RespondentKernelPreference = 'auto' | 'typescript';
+/**
+ * 'auto': the WebAssembly kernel, whole MH sweeps in it (respondent-simd-kernel.ts) where it
+ * runs; 'likelihood': the WebAssembly kernel for the proposals' likelihoods only, the proposal and
+ * the acceptance in TypeScript (the previous layer, kept for the benchmark); 'typescript'.
+ */
+export type RespondentKernelPreference = 'auto' | 'likelihood' | 'typescript';
+
+/**
+ * One MH sweep over all respondents in the kernel (`steps` proposals each) at (μ, L = chol Σ, ρ),
+ * continuing the stream of `prng` (left where the TypeScript step would leave it); returns the
+ * accepted count.
+ */
+export type RespondentSweep = (
+  steps: number,
+  mu: Float64Array,
+  L: Float64Array,
+  rho: number,
+  prng: StatefulPrng,
+) => number;
 
 export interface RespondentShiftKernel {
-  kind: 'simd' | 'typescript';
+  kind: 'simd' | 'simd-likelihood' | 'typescript';
+  /** The sampler's state: N × Kr α_n and β_n, and N current ln P(y_n | β_n). */
+  alpha: Float64Array;
+  beta: Float64Array;
+  ll: Float64Array;
+  /** Whole sweeps in the kernel (null: the caller proposes and accepts, calling shiftedLoglik). */
+  sweep: RespondentSweep | null;
   /** The design blocks (copies of `design`'s). */
   random: Float64Array;
   fixed: Float64Array;
@@ -41,46 +67,36 @@ export interface RespondentShiftKernel {
 /** Denominators whose product passes this move to the log scale (as computeLoglikOfUtilities). */
 const FLUSH = 1e250;
 
-interface HbKernelExports {
-  hbDenominators(
-    block: number,
-    v: number,
-    delta: number,
-    C: number,
-    R: number,
-    u: number,
-    ex: number,
-    taskEnd: number,
-    T: number,
-    den: number,
-    table: number,
-  ): void;
-}
-
+/**
+ * `transform`: the HB_* code of each random coefficient (the sweep's β = T(α); default all
+ * normal, for callers that only shift utilities).
+ */
 export function createRespondentShiftKernel(
   data: ChoiceData,
   design: RespondentDesign,
   Kr: number,
   Kf: number,
   preference: RespondentKernelPreference = 'auto',
+  transform: Int8Array = new Int8Array(Kr),
 ): RespondentShiftKernel {
-  const module = preference === 'auto' ? loadSimdKernelModule().module : null;
+  const module = preference !== 'typescript' ? loadSimdKernelModule().module : null;
   if (module) {
     try {
-      return createSimdKernel(module, { data, design, Kr, Kf });
+      return createSimdKernel(module, { data, design, Kr, Kf, transform }, preference === 'auto');
     } catch {
       // No shared WebAssembly memory here (or not this large): the TypeScript kernel, same chain.
     }
   }
-  return createTypeScriptKernel({ data, design, Kr, Kf });
+  return createTypeScriptKernel({ data, design, Kr, Kf, transform });
 }
 
 /** What both kernels are built from: the data, their design blocks and the column counts. */
-interface KernelInput {
+export interface KernelInput {
   data: ChoiceData;
   design: RespondentDesign;
   Kr: number;
   Kf: number;
+  transform: Int8Array;
 }
 
 function createTypeScriptKernel({ data, design, Kr, Kf }: KernelInput): RespondentShiftKernel {
@@ -93,8 +109,13 @@ function createTypeScriptKernel({ data, design, Kr, Kf }: KernelInput): Responde
   const delta = new Float64Array(Math.max(Kr, Kf));
   const exps = new Float64Array(maxRows);
   const denominators = new Float64Array(getMaxTasks(taskStart));
+  const N = rowStart.length - 1;
   return {
     kind: 'typescript',
+    alpha: new Float64Array(N * Kr),
+    beta: new Float64Array(N * Kr),
+    ll: new Float64Array(N),
+    sweep: null,
     random: design.random,
     fixed: design.fixed,
     v,
@@ -126,7 +147,7 @@ function createTypeScriptKernel({ data, design, Kr, Kf }: KernelInput): Responde
   };
 }
 
-function getMaxTasks(taskStart: Int32Array): number {
+export function getMaxTasks(taskStart: Int32Array): number {
   let max = 1;
   for (let n = 0; n + 1 < taskStart.length; n++)
     max = Math.max(max, taskStart[n + 1] - taskStart[n]);
@@ -137,7 +158,7 @@ function getMaxTasks(taskStart: Int32Array): number {
  * −Σ_t ln d_t as computeLoglikOfUtilities takes it: products of denominators, one Math.log per
  * 1e250 of product, so both kernels give the bits of the previous layer.
  */
-function sumLogDenominators(den: Float64Array, T: number): number {
+export function sumLogDenominators(den: Float64Array, T: number): number {
   let ll = 0;
   let product = 1;
   for (let t = 0; t < T; t++) {
@@ -148,83 +169,4 @@ function sumLogDenominators(den: Float64Array, T: number): number {
     }
   }
   return ll - Math.log(product);
-}
-
-function createSimdKernel(
-  module: WebAssembly.Module,
-  { data, design, Kr, Kf }: KernelInput,
-): RespondentShiftKernel {
-  const { rowStart, maxRows } = design;
-  const { diffStart, taskStart } = data;
-  const N = rowStart.length - 1;
-  const rows = rowStart[N];
-  const tasks = taskStart[N];
-  const maxTasks = getMaxTasks(taskStart);
-  // One memory, doubles first (8-byte aligned), then the task ends.
-  let bytes = 0;
-  const take = (count: number, size = 8) => {
-    const at = bytes;
-    bytes += Math.ceil((count * size) / 16) * 16;
-    return at;
-  };
-  const at = {
-    table: take(256),
-    random: take(rows * Kr),
-    fixed: take(rows * Kf),
-    v: take(rows),
-    vFixed: take(Kf > 0 ? rows : 0),
-    vNew: take(maxRows),
-    ex: take(maxRows),
-    delta: take(Math.max(Kr, Kf, 1)),
-    den: take(maxTasks),
-    taskEnd: take(tasks, 4),
-  };
-  const pages = Math.max(1, Math.ceil(bytes / 65536));
-  const memory = new WebAssembly.Memory({ initial: pages, maximum: pages, shared: true });
-  const buffer = memory.buffer;
-  const f64 = (offset: number, length: number) => new Float64Array(buffer, offset, length);
-  f64(at.table, 256).set(EXP_TABLE);
-  const random = f64(at.random, rows * Kr);
-  random.set(design.random);
-  const fixed = f64(at.fixed, rows * Kf);
-  fixed.set(design.fixed);
-  const taskEnd = new Int32Array(buffer, at.taskEnd, tasks);
-  for (let n = 0; n < N; n++)
-    for (let t = taskStart[n]; t < taskStart[n + 1]; t++)
-      taskEnd[t] = diffStart[t + 1] - rowStart[n];
-  const v = f64(at.v, rows);
-  const den = f64(at.den, maxTasks);
-  const vFixedAt = Kf > 0 ? at.vFixed : at.v;
-  const kernel = new WebAssembly.Instance(module, { env: { memory } })
-    .exports as unknown as HbKernelExports;
-  return {
-    kind: 'simd',
-    random,
-    fixed,
-    v,
-    vFixed: Kf > 0 ? f64(at.vFixed, rows) : v,
-    vNew: f64(at.vNew, maxRows),
-    delta: f64(at.delta, Math.max(Kr, Kf)),
-    exps: f64(at.ex, maxRows),
-    denominators: den,
-    shiftedLoglik(n, isFixed) {
-      const first = rowStart[n];
-      const R = rowStart[n + 1] - first;
-      const T = taskStart[n + 1] - taskStart[n];
-      kernel.hbDenominators(
-        isFixed ? at.fixed + 8 * Kf * first : at.random + 8 * Kr * first,
-        at.v + 8 * first,
-        at.delta,
-        isFixed ? Kf : Kr,
-        R,
-        isFixed ? vFixedAt + 8 * first : at.vNew,
-        at.ex,
-        at.taskEnd + 4 * taskStart[n],
-        T,
-        at.den,
-        at.table,
-      );
-      return sumLogDenominators(den, T);
-    },
-  };
 }

@@ -10,6 +10,18 @@ export interface Prng {
   nextDouble(): number;
 }
 
+/**
+ * A generator whose state words (a, b, c, d) can be handed to another implementation of the same
+ * generator and taken back, so that one continues the other's stream (the WebAssembly HB kernel,
+ * server/engine/simd/assembly/hb-prng.ts).
+ */
+export interface StatefulPrng extends Prng {
+  /** Writes the four state words into `out`. */
+  saveState(out: Int32Array): void;
+  /** Continues from the four state words in `state`. */
+  loadState(state: Int32Array): void;
+}
+
 /** Expands a 32-bit seed into well-mixed state words (splitmix32 finaliser). */
 function splitmix32(state: { s: number }): number {
   state.s = (state.s + 0x9e3779b9) | 0;
@@ -24,7 +36,7 @@ function splitmix32(state: { s: number }): number {
  * 32 bits, and `stream` lets callers derive independent streams (e.g. one per respondent)
  * from one user seed.
  */
-export function createPrng(seed: number, stream = 0): Prng {
+export function createPrng(seed: number, stream = 0): StatefulPrng {
   const mix = { s: (Math.floor(seed) ^ Math.imul(stream + 1, 0x27d4eb2d)) | 0 };
   let a = splitmix32(mix);
   let b = splitmix32(mix);
@@ -44,6 +56,18 @@ export function createPrng(seed: number, stream = 0): Prng {
   };
   return {
     nextUint32,
+    saveState(out) {
+      out[0] = a;
+      out[1] = b;
+      out[2] = c;
+      out[3] = d;
+    },
+    loadState(state) {
+      a = state[0];
+      b = state[1];
+      c = state[2];
+      d = state[3];
+    },
     nextDouble: () => {
       const hi = nextUint32() >>> 5; // 27 bits
       const lo = nextUint32() >>> 6; // 26 bits

@@ -5,10 +5,12 @@
  *   log-likelihood from the row-major data (kept for the benchmark in
  *   scripts/lib/hb-reference-individual-step.ts): same seed, same draw stream, so the two chains
  *   agree draw for draw up to rounding (1e-9; both accumulate the same sums in another order).
- * - The WebAssembly SIMD kernel of the proposals' likelihoods (respondent-shift-kernel.ts) gives
- *   the TypeScript kernel's chain bit for bit: same sums in the same order, the same exponential
- *   (Tang 1989, both kernels), the logarithm taken in TypeScript by both. Exact equality, no
- *   tolerance: a speed-up must not change a seeded run.
+ * - The WebAssembly SIMD kernel gives the TypeScript kernel's chain bit for bit, whether it runs
+ *   whole MH sweeps (respondent-simd-kernel.ts: proposal, likelihood, fdlibm's logarithm and the
+ *   acceptance in the kernel, drawing from the chain generator's stream) or only the proposals'
+ *   likelihoods: same sums in the same order, the same exponential (Tang 1989, both kernels), the
+ *   logarithm and exponential of Math or their fdlibm ports (hb-fdlibm.test.ts). Exact equality,
+ *   no tolerance: a speed-up must not change a seeded run.
  * - The kept log-likelihood equals ln P(y_n | β_n) recomputed from scratch (Train 2009, eq. 3.6)
  *   after many accepted moves: the increments' rounding drift stays at the 1e-12 level.
  */
@@ -42,12 +44,15 @@ const sim = simulatePanelChoices({
     { name: 'bill', distribution: 'neg_lognormal', location: -1, spread: 0.3, levels: [0, 1, 3] },
   ],
 });
-// One more task per respondent: task 1 with its non-chosen alternatives shown twice (5 rows), so
-// respondents have row counts that are not multiples of the kernel's 4-row blocks.
+// One more task per respondent: task 1 with its non-chosen alternatives shown twice (4 rows), and
+// for odd-numbered respondents task 2 once more: 18 or 20 rows, so the kernel's passes of 8 and 4
+// rows and its single rows all run.
 const first = sim.rows.filter((r) => r.task === 1);
+const second = sim.rows.filter((r) => r.task === 2 && Number(r.respondent) % 2 === 1);
 const rows = sim.rows.concat(
   first.map((r) => ({ ...r, task: 'extra' })),
   first.filter((r) => r.chosen === 0).map((r) => ({ ...r, task: 'extra', alt: `${r.alt}x` })),
+  second.map((r) => ({ ...r, task: 'again' })),
 );
 const { data } = buildChoiceData(sim.columns, rows);
 const options = {
@@ -81,25 +86,31 @@ describe('HB respondent layer', () => {
     current.betas.forEach((x, i) => expect(x).toBe(previous.betas[i]));
   });
 
-  it('gives the TypeScript kernel’s chain bit for bit on the WebAssembly SIMD kernel', async () => {
-    const opts = checkHbOptions(data, options);
-    const start = await getHbStart(data, opts.layout, 0, opts.seed);
-    const kinds: string[] = [];
-    const withKernel =
-      (preference: 'auto' | 'typescript'): IndividualStepFactory =>
-      (d, layout, alpha) => {
-        const step = createIndividualStep(d, layout, alpha, preference);
-        kinds.push(step.kernel ?? '');
-        return step;
-      };
-    const simd = runHbChain(data, opts, 0, start, {}, withKernel('auto'));
-    const ts = runHbChain(data, opts, 0, start, {}, withKernel('typescript'));
-    expect(kinds).toEqual(['simd', 'typescript']);
-    expect(simd.acceptance).toBe(ts.acceptance);
-    expect(simd.acceptanceFixed).toBe(ts.acceptanceFixed);
-    for (const key of ['mu', 'sigma', 'fixed', 'loglik', 'betas'] as const)
-      expect(Array.from(simd[key])).toEqual(Array.from(ts[key]));
-  });
+  it.each([1, 3])(
+    'gives the TypeScript kernel’s chain bit for bit on the WebAssembly SIMD kernel, whole sweeps or likelihoods only (%i MH steps)',
+    async (steps) => {
+      const opts = checkHbOptions(data, { ...options, steps });
+      const start = await getHbStart(data, opts.layout, 0, opts.seed);
+      const kinds: string[] = [];
+      const withKernel =
+        (preference: 'auto' | 'likelihood' | 'typescript'): IndividualStepFactory =>
+        (d, layout, alpha) => {
+          const step = createIndividualStep(d, layout, alpha, preference);
+          kinds.push(step.kernel ?? '');
+          return step;
+        };
+      const sweep = runHbChain(data, opts, 0, start, {}, withKernel('auto'));
+      const likelihood = runHbChain(data, opts, 0, start, {}, withKernel('likelihood'));
+      const ts = runHbChain(data, opts, 0, start, {}, withKernel('typescript'));
+      expect(kinds).toEqual(['simd', 'simd-likelihood', 'typescript']);
+      for (const simd of [sweep, likelihood]) {
+        expect(simd.acceptance).toBe(ts.acceptance);
+        expect(simd.acceptanceFixed).toBe(ts.acceptanceFixed);
+        for (const key of ['mu', 'sigma', 'fixed', 'loglik', 'betas'] as const)
+          expect(Array.from(simd[key])).toEqual(Array.from(ts[key]));
+      }
+    },
+  );
 
   it('keeps each respondent’s log-likelihood equal to the one recomputed from scratch', async () => {
     const opts = checkHbOptions(data, options);

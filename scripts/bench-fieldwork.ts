@@ -15,7 +15,7 @@
  *
  * Usage: npm run bench:fieldwork [-- --respondents 500] [-- --ramp 5] [-- --think 400]
  *        [-- --port 5281] [-- --pool <connections>] [-- --compare-with <dir>] [-- --socket]
- *        [-- --json]
+ *        [-- --client-processes 2] [-- --json]
  * `--socket`: the servers reach PostgreSQL through its Unix socket, as README advises when the
  * database runs on the same host (TCP on loopback costs more CPU per query).
  */
@@ -51,6 +51,8 @@ const THINK_MS = arg('think', 400);
 const PORT = arg('port', 5281);
 /** Database connections of the server process; by default the server's own (DB_POOL_SIZE). */
 const POOL = arg('pool', 0);
+/** Load processes the simulated respondents are spread over (each outside the server). */
+const CLIENT_PROCESSES = arg('client-processes', 1);
 /** Servers reach PostgreSQL through its Unix socket instead of TCP (same host only). */
 const SOCKET = args.includes('--socket');
 const RETRY_SHARE = 0.1;
@@ -72,17 +74,20 @@ async function measure(
 ) {
   const load = sampleLoadAverage(os.loadavg);
   const cpuTime = await measureCpu(cpu.serverPid, cpu.pool, cpu.database);
-  const r: LoadResult = await runLoadClient({
-    bases: [base],
-    publicId,
-    respondents: RESPONDENTS,
-    firstRespondent: first,
-    rampMs: RAMP_S * 1000,
-    thinkMs: THINK_MS,
-    retryShare: RETRY_SHARE,
-    seed: 7,
-    giveUpMs: 60_000,
-  });
+  const r: LoadResult = await runLoadClient(
+    {
+      bases: [base],
+      publicId,
+      respondents: RESPONDENTS,
+      firstRespondent: first,
+      rampMs: RAMP_S * 1000,
+      thinkMs: THINK_MS,
+      retryShare: RETRY_SHARE,
+      seed: 7,
+      giveUpMs: 60_000,
+    },
+    CLIENT_PROCESSES,
+  );
   const seconds = (r.endedAt - r.startedAt) / 1000;
   return { r, seconds, loadAverage1m: load.stop(), cpuMs: await cpuTime.stop() };
 }
@@ -97,6 +102,11 @@ function cpuPerRequest(p: Phase) {
     databaseMs: p.cpuMs.databaseMs,
     serverMsPerRequest: per(p.cpuMs.serverMs),
     databaseMsPerRequest: per(p.cpuMs.databaseMs),
+    // The simulated phones: when their process is near a whole core, they are the limit.
+    loadClientMs: p.r.cpuMs,
+    loadClientMsPerRequest: per(p.r.cpuMs),
+    loadClientProcesses: p.r.processes,
+    loadClientCoreShare: Number((p.r.cpuMs / (p.seconds * 1000)).toFixed(2)),
   };
 }
 
@@ -105,6 +115,9 @@ function phaseFigures(p: Phase) {
     respondents: RESPONDENTS,
     seconds: Number(p.seconds.toFixed(2)),
     answersAcknowledged: p.r.acknowledged.length,
+    // A respondent whose start was given up (giveUpMs of timeouts) never answers at all.
+    respondentsStarted: p.r.respondentsStarted,
+    respondentsFinished: p.r.respondentsFinished,
     // Over the whole load, ramp and tail included.
     answersPerSecond: Math.round(p.r.acknowledged.length / p.seconds),
     // While all of them answer at once (see fullLoadWindow).
@@ -250,7 +263,7 @@ async function main() {
         ['while estimating', result.whileEstimating],
       ] as const)
         log(
-          `  ${name.padEnd(17)} ${p.answersPerSecond} answers/s (all answering: ${p.fullLoad.answersPerSecond ?? '–'}, peak ${p.fullLoad.peakRespondentsAnswering} at once) · answer p50 ${p.answerLatencyMs.p50} p99 ${p.answerLatencyMs.p99} ms · session start p99 ${p.sessionStartLatencyMs.p99} ms · CPU per request: server ${p.cpu.serverMsPerRequest} ms, PostgreSQL ${p.cpu.databaseMsPerRequest} ms · load ${p.loadAverage1m.mean}`,
+          `  ${name.padEnd(17)} ${p.answersPerSecond} answers/s (all answering: ${p.fullLoad.answersPerSecond ?? '–'}, peak ${p.fullLoad.peakRespondentsAnswering} at once) · answer p50 ${p.answerLatencyMs.p50} p99 ${p.answerLatencyMs.p99} ms · session start p99 ${p.sessionStartLatencyMs.p99} ms · CPU per request: server ${p.cpu.serverMsPerRequest} ms, PostgreSQL ${p.cpu.databaseMsPerRequest} ms, load client ${p.cpu.loadClientMsPerRequest} ms · load ${p.loadAverage1m.mean}`,
         );
       log(
         `  reconciliation   sent ${counts.sent}, stored ${counts.stored}, lost ${counts.lost}, duplicated ${counts.duplicated}`,

@@ -8,6 +8,8 @@
  * prefers one API instance, switching to the next when its instance does not answer.
  */
 import { randomUUID } from 'node:crypto';
+import http from 'node:http';
+import zlib from 'node:zlib';
 import { createSeededRandom } from '../../server/engine/design/seeded-random';
 import type { RespondentScreen, RespondentSession } from '../../shared/schemas/respondent';
 
@@ -26,6 +28,11 @@ export type LoadOptions = {
   seed: number;
   /** One answer is given up (counted unsent) after trying this long. */
   giveUpMs: number;
+  /**
+   * This process's share when several run one load (load-client-process.ts): it simulates the
+   * respondents whose number i has i % of === index, at the same arrival times as one process.
+   */
+  part?: { index: number; of: number };
 };
 
 export type LoadResult = {
@@ -51,6 +58,10 @@ export type LoadResult = {
   longestOutageMs: number;
   startedAt: number;
   endedAt: number;
+  /** CPU time (user + system) of the load process(es) during the load, in ms. */
+  cpuMs: number;
+  /** How many processes ran the simulated respondents. */
+  processes: number;
 };
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
@@ -59,38 +70,70 @@ const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 const REQUEST_TIMEOUT_MS = 15_000;
 
 /**
+ * One keep-alive agent per load process, without a socket limit: each simulated phone keeps
+ * its own connection between answers, as a phone's browser does. Node's http client costs the
+ * load process far less CPU per request than fetch, so the client is not what limits a run.
+ */
+const agent = new http.Agent({ keepAlive: true, maxSockets: Infinity, maxFreeSockets: 1_024 });
+
+function decoded(body: Buffer, encoding: string | undefined): Buffer {
+  if (encoding === 'br') return zlib.brotliDecompressSync(body);
+  if (encoding === 'gzip') return zlib.gunzipSync(body);
+  if (encoding === 'deflate') return zlib.inflateSync(body);
+  return body;
+}
+
+/**
  * One POST and its JSON reply, settled within REQUEST_TIMEOUT_MS whatever happens: the timer
- * aborts the request and rejects, so a reply cut off mid-body (or a read that never settles)
+ * destroys the request and rejects, so a reply cut off mid-body (or a read that never settles)
  * counts as lost and is sent again. A 2xx whose body cannot be read is lost too.
  */
-async function postJson(url: string, headers: Record<string, string>, body: unknown) {
-  const abort = new AbortController();
-  let timer: NodeJS.Timeout | undefined;
-  const expired = new Promise<never>((_, reject) => {
-    timer = setTimeout(() => {
-      abort.abort();
-      reject(new Error('timed out'));
-    }, REQUEST_TIMEOUT_MS);
+function postJson(
+  url: string,
+  headers: Record<string, string>,
+  body: unknown,
+): Promise<{ status: number; retryAfter: string | undefined; json: Record<string, unknown> }> {
+  const payload = JSON.stringify(body);
+  return new Promise((resolve, reject) => {
+    const req = http.request(
+      url,
+      {
+        method: 'POST',
+        agent,
+        // As a phone's browser does: the session (the whole questionnaire) comes compressed.
+        headers: {
+          ...headers,
+          'accept-encoding': 'gzip, deflate, br',
+          'content-length': String(Buffer.byteLength(payload)),
+        },
+      },
+      (res) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (c: Buffer) => chunks.push(c));
+        res.on('error', reject);
+        res.on('end', () => {
+          const status = res.statusCode ?? 0;
+          let json: Record<string, unknown> = {};
+          try {
+            const raw = decoded(Buffer.concat(chunks), res.headers['content-encoding']);
+            json = JSON.parse(raw.toString('utf8')) as Record<string, unknown>;
+          } catch (err) {
+            if (status >= 200 && status < 300) return reject(err as Error);
+          }
+          const retryAfter = res.headers['retry-after'];
+          resolve({
+            status,
+            retryAfter: Array.isArray(retryAfter) ? retryAfter[0] : retryAfter,
+            json,
+          });
+        });
+      },
+    );
+    const timer = setTimeout(() => req.destroy(new Error('timed out')), REQUEST_TIMEOUT_MS);
+    req.on('close', () => clearTimeout(timer));
+    req.on('error', reject);
+    req.end(payload);
   });
-  const exchange = (async () => {
-    const res = await fetch(url, {
-      method: 'POST',
-      headers,
-      body: JSON.stringify(body),
-      signal: abort.signal,
-    });
-    const json = (await res.json().catch((err: unknown) => {
-      if (res.ok) throw err;
-      return {};
-    })) as Record<string, unknown>;
-    return { status: res.status, headers: res.headers, json };
-  })();
-  try {
-    return await Promise.race([exchange, expired]);
-  } finally {
-    clearTimeout(timer);
-    exchange.catch(() => {});
-  }
 }
 
 function valueFor(screen: RespondentScreen, random: ReturnType<typeof createSeededRandom>) {
@@ -124,7 +167,10 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
     longestOutageMs: 0,
     startedAt: Date.now(),
     endedAt: 0,
+    cpuMs: 0,
+    processes: 1,
   };
+  const cpuBefore = process.cpuUsage();
   let failingSince: number | null = null;
   const noteSuccess = () => {
     if (failingSince !== null)
@@ -168,7 +214,7 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
         noteFailure();
         if (res.status === 429) r.errors429++;
         else r.errors5xx++;
-        const retryAfter = Number(res.headers.get('retry-after'));
+        const retryAfter = Number(res.retryAfter);
         if (retryAfter > 0) wait = retryAfter * 1000 * (0.8 + 0.4 * Math.random());
       } catch {
         // Refused, reset or timed out: try the next instance, as a load balancer would.
@@ -236,7 +282,13 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
     r.respondentsFinished++;
   }
 
-  await Promise.all(Array.from({ length: opts.respondents }, (_, i) => respondent(i)));
+  const part = opts.part ?? { index: 0, of: 1 };
+  const mine = Array.from({ length: opts.respondents }, (_, i) => i).filter(
+    (i) => i % part.of === part.index,
+  );
+  await Promise.all(mine.map((i) => respondent(i)));
   r.endedAt = Date.now();
+  const cpu = process.cpuUsage(cpuBefore);
+  r.cpuMs = Math.round((cpu.user + cpu.system) / 1000);
   return r;
 }

@@ -69,6 +69,13 @@ export type BalanceRules = z.infer<typeof balanceRulesSchema>;
 export const designCriterionSchema = z.enum(['d_error', 'a_error', 's_estimate', 'c_error']);
 export type DesignCriterion = z.infer<typeof designCriterionSchema>;
 
+/**
+ * The seeded generator the design engine uses now. Stored with every generated design
+ * (spec.generatorVersion); a design stored without it was made by version 1. The same seed
+ * gives the same design only within one version (docs/methods.md "Design generator versions").
+ */
+export const DESIGN_GENERATOR_VERSION = 2;
+
 export const designSpecSchema = z
   .object({
     method: designMethodSchema,
@@ -79,6 +86,12 @@ export const designSpecSchema = z
     /** Random starts of the coordinate exchange (d_efficient only). */
     starts: z.number().int().min(1).max(100).default(5),
     seed: z.number().int().min(0).max(2147483647).default(1),
+    /** Set by the server on the stored spec; a request may repeat it, never ask for another. */
+    generatorVersion: z
+      .literal(DESIGN_GENERATOR_VERSION, {
+        error: `Designs are made with generator version ${DESIGN_GENERATOR_VERSION}; earlier versions are kept as they were made but cannot be generated again`,
+      })
+      .optional(),
     /** Maximum coordinate-exchange passes per start (d_efficient only). */
     maxIterations: z.number().int().min(1).max(1000).default(50),
     /** The criterion the search minimises; D-error unless chosen otherwise. */

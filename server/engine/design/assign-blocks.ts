@@ -7,7 +7,8 @@
  * (1980) [M]. Blocking does not change the D-error of the whole design.
  */
 import type { LevelGrid } from './design-grid';
-import { shuffleInPlace, type SeededRandom } from './seeded-random';
+import type { Prng } from '../draws/prng';
+import { randomIndex, shuffleInPlace } from '../draws/random-index';
 
 const MAX_PASSES = 50;
 const FULL_PAIR_LIMIT = 400;
@@ -17,7 +18,7 @@ export function assignBlocks(
   grid: LevelGrid,
   levelCounts: number[],
   blocks: number,
-  random: SeededRandom,
+  random: Prng,
 ): Int32Array {
   const { S, J, A } = grid;
   const blockOf = new Int32Array(S);
@@ -82,7 +83,7 @@ export function assignBlocks(
         for (let t = s + 1; t < S; t++) improved = trySwap(s, t) || improved;
     } else {
       for (let i = 0; i < S * 20; i++)
-        improved = trySwap(random.nextInt(S), random.nextInt(S)) || improved;
+        improved = trySwap(randomIndex(random, S), randomIndex(random, S)) || improved;
     }
     if (!improved) break;
   }

@@ -13,9 +13,11 @@ import {
 import { DesignError } from './design-errors';
 import { getRowsPerTask } from './design-grid';
 import { countFullFactorial, MAX_FULL_FACTORIAL } from './full-factorial';
-import { MAX_HALTON_DIMENSION } from './halton-draws';
+import { getMaxDrawDimensions } from '../draws/uniform-draws';
 import { resolvePriors } from './resolve-priors';
 import { buildCriterionSetup, getCriterionUnavailableReason } from './design-criteria';
+
+const MAX_HALTON_DIMENSION = getMaxDrawDimensions('halton');
 
 export interface CheckedDesignSpec {
   spec: DesignSpec;

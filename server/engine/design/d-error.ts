@@ -4,7 +4,7 @@
  * (Sándor & Wedel 2001, JMR 38(4):430-444): D_B = ∫ det(I(X, β))^(−1/K) π(β) dβ, here the
  * average over R prior draws. A singular information matrix gives Infinity.
  */
-import { getCholeskyLogDet } from './cholesky-log-det';
+import { getSpdLogDet } from '../linalg/cholesky';
 import { addTaskInformation } from './mnl-information';
 
 /** Maps log det I to det(I)^(−1/K), Infinity when singular. */
@@ -32,7 +32,7 @@ export function computeBayesianDError(
   for (let r = 0; r < R; r++) {
     info.fill(0);
     for (let s = 0; s < S; s++) addTaskInformation(K, J, x, s * J, draws, r * K, info, 0, work);
-    sum += getDErrorFromLogDet(K, getCholeskyLogDet(K, info, 0, chol));
+    sum += getDErrorFromLogDet(K, getSpdLogDet(info, K, chol, 0));
   }
   return sum / R;
 }

@@ -17,7 +17,7 @@
 import type { CodingPlan } from '../../../shared/engine/coding/coding-plan';
 import type { DesignCriterion } from '../../../shared/schemas/design-spec';
 import type { StudyDefinition } from '../../../shared/schemas/study-definition';
-import { getCholeskyLogDet } from './cholesky-log-det';
+import { getSpdLogDet } from '../linalg/cholesky';
 import { getDErrorFromLogDet } from './d-error';
 import { addTaskInformation } from './mnl-information';
 import { invertSpd } from './spd-inverse';
@@ -118,7 +118,7 @@ export function createCriterionScorer(setup: CriterionSetup): CriterionScorer {
   return {
     score(info, offset, beta, betaOffset) {
       if (setup.criterion === 'd_error')
-        return getDErrorFromLogDet(K, getCholeskyLogDet(K, info, offset, work));
+        return getDErrorFromLogDet(K, getSpdLogDet(info, K, work, offset));
       if (invertSpd(K, info, offset, cov, 0, work) === -Infinity) return Infinity;
       if (setup.criterion === 'a_error') {
         let trace = 0;

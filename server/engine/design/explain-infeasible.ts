@@ -23,7 +23,9 @@ import {
 } from './design-constraints';
 import type { LevelGrid } from './design-grid';
 import type { LevelBounds } from './level-bounds';
-import { createSeededRandom } from './seeded-random';
+import { DESIGN_STREAM } from './design-random';
+import { createPrng } from '../draws/prng';
+import { randomIndex } from '../draws/random-index';
 
 const ENUMERATION_LIMIT = 200_000;
 const SAMPLE = 20_000;
@@ -52,7 +54,7 @@ function countProfiles(plan: CodingPlan, c: DesignConstraints) {
   const total = plan.attributes.reduce((n, a) => n * a.levelIds.length, 1);
   const enumerate = total <= ENUMERATION_LIMIT;
   const tries = enumerate ? total : SAMPLE;
-  const random = createSeededRandom(7);
+  const random = createPrng(7, DESIGN_STREAM);
   const probe: LevelGrid = { S: 1, J: 1, A, levels: new Int32Array(A) };
   const one = { ...c, J: 1 };
   let ok = 0;
@@ -62,7 +64,7 @@ function countProfiles(plan: CodingPlan, c: DesignConstraints) {
     let rest = i;
     for (let a = A - 1; a >= 0; a--) {
       const L = plan.attributes[a].levelIds.length;
-      probe.levels[a] = enumerate ? rest % L : random.nextInt(L);
+      probe.levels[a] = enumerate ? rest % L : randomIndex(random, L);
       rest = Math.floor(rest / L);
     }
     if (checkAlternativeLevels(one, probe, 0, 0) !== Violation.none) continue;
@@ -80,10 +82,10 @@ function someTaskIsValid(plan: CodingPlan, c: DesignConstraints, rows: Int32Arra
   const A = plan.attributes.length;
   if (rows.length === 0) return false;
   const grid: LevelGrid = { S: 1, J, A, levels: new Int32Array(J * A) };
-  const random = createSeededRandom(11);
+  const random = createPrng(11, DESIGN_STREAM);
   for (let i = 0; i < TASK_TRIES; i++) {
     for (let j = 0; j < J; j++) {
-      const row = rows[random.nextInt(rows.length)];
+      const row = rows[randomIndex(random, rows.length)];
       for (let a = 0; a < A; a++)
         grid.levels[j * A + a] = plan.omitted[j * A + a] === 1 ? -1 : row[a];
     }

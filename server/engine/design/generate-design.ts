@@ -6,7 +6,7 @@
  * through `hooks.signal` (throws the signal's reason, an AbortError by default).
  */
 import type { Design } from '../../../shared/schemas/design';
-import type { DesignSpec } from '../../../shared/schemas/design-spec';
+import { DESIGN_GENERATOR_VERSION, type DesignSpec } from '../../../shared/schemas/design-spec';
 import { assignBlocks } from './assign-blocks';
 import { DesignError } from './design-errors';
 import { checkDesignSpec, type CheckedDesignSpec } from './check-design-spec';
@@ -21,7 +21,8 @@ import { buildShiftedGrid, countFullFactorial, listFullFactorial } from './full-
 import { buildPriorDraws } from './prior-draws';
 import { buildCriterionSetup, createCriterionScorer } from './design-criteria';
 import { generateRandomGrid } from './random-design';
-import { createSeededRandom, type SeededRandom } from './seeded-random';
+import { DESIGN_STREAM } from './design-random';
+import { createPrng, type Prng } from '../draws/prng';
 
 /** Largest number of tasks a design may hold (shared/schemas/design.ts). */
 const MAX_DESIGN_TASKS = 2000;
@@ -52,7 +53,7 @@ export interface GeneratedDesign {
 function searchDEfficient(
   checked: CheckedDesignSpec,
   constraints: DesignConstraints,
-  random: SeededRandom,
+  random: Prng,
   hooks: DesignHooks,
 ): LevelGrid {
   const { spec, plan, priorMeans, priorSds, draws } = checked;
@@ -99,7 +100,7 @@ function searchDEfficient(
 function buildGrid(
   checked: CheckedDesignSpec,
   constraints: DesignConstraints,
-  random: SeededRandom,
+  random: Prng,
   hooks: DesignHooks,
 ): LevelGrid {
   const { spec, plan } = checked;
@@ -156,7 +157,7 @@ export function generateDesign(
 ): GeneratedDesign {
   const checked = checkDesignSpec(definition, specInput);
   const { spec, plan, priorMeans, priorSds } = checked;
-  const random = createSeededRandom(spec.seed);
+  const random = createPrng(spec.seed, DESIGN_STREAM);
   hooks.onProgress?.({ phase: 'building', fraction: 0 });
   const constraints = buildDesignConstraints(plan, checked.definition, priorMeans, priorSds, spec);
   let grid: LevelGrid;
@@ -187,5 +188,9 @@ export function generateDesign(
   const diagnostics = diagnoseDesign(checked.definition, design, spec.priors, spec.seed, spec);
   const searched = diagnostics.criteria?.values.find((v) => v.criterion === spec.criterion);
   hooks.onProgress?.({ phase: 'done', fraction: 1, bestDError: searched?.value ?? undefined });
-  return { design, diagnostics, spec: { ...spec, tasks: grid.S } };
+  return {
+    design,
+    diagnostics,
+    spec: { ...spec, tasks: grid.S, generatorVersion: DESIGN_GENERATOR_VERSION },
+  };
 }

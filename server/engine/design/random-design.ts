@@ -21,7 +21,8 @@ import {
   moveLevel,
   type LevelBounds,
 } from './level-bounds';
-import { shuffleInPlace, type SeededRandom } from './seeded-random';
+import type { Prng } from '../draws/prng';
+import { randomIndex, shuffleInPlace } from '../draws/random-index';
 
 const SWAP_ATTEMPTS = 400;
 const REDRAW_ATTEMPTS = 2000;
@@ -30,7 +31,7 @@ function fillBalancedColumns(
   plan: CodingPlan,
   c: DesignConstraints,
   grid: LevelGrid,
-  random: SeededRandom,
+  random: Prng,
 ): void {
   const { S, J, A } = grid;
   const column = new Int32Array(S);
@@ -45,7 +46,7 @@ function fillBalancedColumns(
       for (let l = 0; l < L; l++) if (c.levelRule[c.levelBase[a] + l] < 0) allowed.push(l);
       if (allowed.length === 0) allowed.push(0);
       // Random offset so that, when L does not divide S, the surplus levels vary by column.
-      const shift = random.nextInt(allowed.length);
+      const shift = randomIndex(random, allowed.length);
       for (let s = 0; s < S; s++) column[s] = allowed[(s + shift) % allowed.length];
       shuffleInPlace(random, column);
       for (let s = 0; s < S; s++) grid.levels[(s * J + j) * A + a] = column[s];
@@ -58,7 +59,7 @@ function enforceLevelBounds(
   c: DesignConstraints,
   bounds: LevelBounds,
   grid: LevelGrid,
-  random: SeededRandom,
+  random: Prng,
 ): boolean {
   const { J, A } = grid;
   const counts = countLevels(c, grid);
@@ -110,20 +111,20 @@ function repairTask(
   c: DesignConstraints,
   grid: LevelGrid,
   s: number,
-  random: SeededRandom,
+  random: Prng,
 ): boolean {
   const { S, J, A } = grid;
   for (let attempt = 0; attempt < SWAP_ATTEMPTS && !isTaskValid(c, grid, s); attempt++) {
     let j = 0;
     while (j < J - 1 && isAlternativeValidInTask(c, grid, s, j)) j++;
-    const a = random.nextInt(A);
+    const a = randomIndex(random, A);
     if (plan.omitted[j * A + a] === 1) continue;
-    const t = random.nextInt(S);
+    const t = randomIndex(random, S);
     if (t === s) continue;
     const tWasValid = t < s || isTaskValid(c, grid, t);
     swapCell(grid, s, t, j, a);
     const tOk = !tWasValid || isTaskValid(c, grid, t);
-    if (!tOk || (!isAlternativeValidInTask(c, grid, s, j) && random.next() < 0.7))
+    if (!tOk || (!isAlternativeValidInTask(c, grid, s, j) && random.nextDouble() < 0.7))
       swapCell(grid, s, t, j, a);
   }
   for (let attempt = 0; attempt < REDRAW_ATTEMPTS && !isTaskValid(c, grid, s); attempt++) {
@@ -131,7 +132,10 @@ function repairTask(
       if (isAlternativeValidInTask(c, grid, s, j)) continue;
       for (let a = 0; a < A; a++)
         if (plan.omitted[j * A + a] !== 1)
-          grid.levels[(s * J + j) * A + a] = random.nextInt(plan.attributes[a].levelIds.length);
+          grid.levels[(s * J + j) * A + a] = randomIndex(
+            random,
+            plan.attributes[a].levelIds.length,
+          );
     }
   }
   return isTaskValid(c, grid, s);
@@ -146,7 +150,7 @@ export function generateRandomGrid(
   plan: CodingPlan,
   constraints: DesignConstraints,
   S: number,
-  random: SeededRandom,
+  random: Prng,
   bounds?: LevelBounds,
 ): LevelGrid {
   const grid: LevelGrid = {

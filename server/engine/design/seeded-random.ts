@@ -1,7 +1,10 @@
 /**
- * Seeded pseudo-random numbers for reproducible designs: sfc32 (Chris Doty-Humphrey's
- * "small fast counter", PractRand suite) seeded through splitmix32-style mixing of one integer.
- * Uniforms are in [0, 1) with 32 bits of resolution — enough for picking levels and shuffling.
+ * sfc32 (Chris Doty-Humphrey's "small fast counter", PractRand suite) seeded through
+ * splitmix32-style mixing of one integer; uniforms in [0, 1) with 32 bits of resolution.
+ * The design engine no longer uses it (it draws from draws/prng.ts since generator version 2,
+ * docs/methods.md "Design generator versions"); the respondents' randomised orders and the
+ * demo's simulated people still do, because their stored seeds were drawn with it and
+ * changing their stream changes every plan and the demo data.
  */
 export interface SeededRandom {
   /** Uniform on [0, 1). */

@@ -5,7 +5,7 @@
  * log det A, or −Infinity (leaving `out` unspecified) when A is singular to working
  * precision. `work` needs K² entries.
  */
-import { getCholeskyLogDet } from './cholesky-log-det';
+import { getSpdLogDet } from '../linalg/cholesky';
 
 export function invertSpd(
   K: number,
@@ -15,7 +15,7 @@ export function invertSpd(
   outOffset: number,
   work: Float64Array,
 ): number {
-  const logDet = getCholeskyLogDet(K, a, aOffset, work);
+  const logDet = getSpdLogDet(a, K, work, aOffset);
   if (logDet === -Infinity) return logDet;
   // work := L⁻¹ in place (lower triangular), column by column from the right.
   for (let i = 0; i < K; i++) {

@@ -12,7 +12,7 @@
  * starting designs. All buffers are allocated here, none in the loops.
  */
 import type { CodingPlan } from '../../../shared/engine/coding/coding-plan';
-import { getCholeskyLogDet } from './cholesky-log-det';
+import { getSpdLogDet } from '../linalg/cholesky';
 import { getDErrorFromLogDet } from './d-error';
 import { getSmallLogDet } from './small-log-det';
 import { createDrawInformation } from './draw-information';
@@ -58,7 +58,7 @@ export function createTaskEvaluator(
 
   const termFromLower = (m: Float64Array) => {
     if (ridge > 0) for (let i = 0; i < K; i++) m[i * K + i] += ridge;
-    return getDErrorFromLogDet(K, getCholeskyLogDet(K, m, 0, chol));
+    return getDErrorFromLogDet(K, getSpdLogDet(m, K, chol, 0));
   };
   /** Writes code(to) − code(from) of attribute a into delta[0..w). */
   const fillDelta = (a: number, from: number, to: number) => {

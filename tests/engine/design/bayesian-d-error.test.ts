@@ -15,7 +15,7 @@ import { describe, expect, it } from 'vitest';
 import { buildCodingPlan } from '../../../shared/engine/coding/coding-plan';
 import { buildDesignMatrix } from '../../../server/engine/design/design-grid';
 import { computeBayesianDError } from '../../../server/engine/design/d-error';
-import { fillScrambledHalton } from '../../../server/engine/design/halton-draws';
+import { fillUniformDraws } from '../../../server/engine/draws/uniform-draws';
 import { inverseNormal as getInverseNormal } from '../../../server/engine/draws/inverse-normal';
 import { buildPriorDraws } from '../../../server/engine/design/prior-draws';
 import { makeGrid, makeSymmetricDefinition } from './design-fixtures';
@@ -56,20 +56,29 @@ describe('computeBayesianDError (Check E)', () => {
   it.each([
     // docs/methods.md "Design check values" Check E [C]: σ = 1 -> 4.194528049465325; σ = 0.5 -> 1.324360635350064.
     // At σ = 1 the integrand grows like e^(2|β|), so the bound at R = 200 is not informative
-    // (measured error there: −0.71, i.e. 17 % low); only larger R are checked.
-    { sigma: 1, exact: 4.194528049465325, R: 2000 },
-    { sigma: 1, exact: 4.194528049465325, R: 20000 },
-    { sigma: 0.5, exact: 1.324360635350064, R: 200 },
-    { sigma: 0.5, exact: 1.324360635350064, R: 2000 },
-  ])('σ = $sigma with $R Halton draws is within the Koksma–Hlawka bound', ({ sigma, exact, R }) => {
-    expect((1 + Math.exp(2 * sigma * sigma)) / 2).toBeCloseTo(exact, 12);
-    const draws = buildPriorDraws(Float64Array.of(0), Float64Array.of(sigma), R, 7);
-    const value = computeBayesianDError(1, 1, 2, x, draws, R);
-    const points = new Float64Array(R);
-    fillScrambledHalton(R, 1, points, { seed: 7 });
-    const bound = getKoksmaHlawkaBound(sigma, points);
-    expect(Math.abs(value - exact)).toBeLessThanOrEqual(bound);
-    // The bound must be informative, not a blanket pass: under 20 % of the value.
-    expect(bound).toBeLessThan(0.2 * exact);
-  });
+    // (measured error there: 18 % low); only larger R are checked. The bound grows with the
+    // integrand at the most extreme point, and random digit scrambling of every digit (the
+    // generator of version 2) reaches further into the tails than the earlier scrambling
+    // did, so at σ = 1 it is informative (under 20 % of the value) from R = 20,000 on; at
+    // R = 2,000 the error must still lie within it. Measured errors at seed 7 (version 2 vs
+    // version 1): σ = 1, R = 2,000: −0.18 % vs −7.7 %; R = 20,000: +1.6 % vs −1.6 %;
+    // σ = 0.5, R = 2,000: −0.15 % vs −0.49 %.
+    { sigma: 1, exact: 4.194528049465325, R: 2000, informative: false },
+    { sigma: 1, exact: 4.194528049465325, R: 20000, informative: true },
+    { sigma: 0.5, exact: 1.324360635350064, R: 200, informative: true },
+    { sigma: 0.5, exact: 1.324360635350064, R: 2000, informative: true },
+  ])(
+    'σ = $sigma with $R Halton draws is within the Koksma–Hlawka bound',
+    ({ sigma, exact, R, informative }) => {
+      expect((1 + Math.exp(2 * sigma * sigma)) / 2).toBeCloseTo(exact, 12);
+      const draws = buildPriorDraws(Float64Array.of(0), Float64Array.of(sigma), R, 7);
+      const value = computeBayesianDError(1, 1, 2, x, draws, R);
+      const points = new Float64Array(R);
+      fillUniformDraws({ type: 'halton', count: R, dimensions: 1, seed: 7 }, 0, 1, points);
+      const bound = getKoksmaHlawkaBound(sigma, points);
+      expect(Math.abs(value - exact)).toBeLessThanOrEqual(bound);
+      // The bound must be informative, not a blanket pass: under 20 % of the value.
+      if (informative) expect(bound).toBeLessThan(0.2 * exact);
+    },
+  );
 });

@@ -17,7 +17,8 @@ import {
 import { buildDesignMatrix, getRowsPerTask } from '../../../server/engine/design/design-grid';
 import { generateDesign } from '../../../server/engine/design/generate-design';
 import { buildPriorDraws } from '../../../server/engine/design/prior-draws';
-import { createSeededRandom } from '../../../server/engine/design/seeded-random';
+import { createPrng } from '../../../server/engine/draws/prng';
+import { randomIndex } from '../../../server/engine/draws/random-index';
 import { makeLarkspurDefinition } from '../coding/fixtures/larkspur-definition';
 
 const definition = makeLarkspurDefinition();
@@ -33,12 +34,12 @@ const sds = Float64Array.from(priorColumns, (c) => c.sd);
 
 function checkChanges(criterion: DesignCriterion, R: number) {
   const S = 12;
-  const random = createSeededRandom(3);
+  const random = createPrng(3);
   const A = plan.attributes.length;
   const J = plan.designedCount;
   const levels = new Int32Array(S * J * A);
   for (let i = 0; i < levels.length; i++)
-    levels[i] = random.nextInt(plan.attributes[i % A].levelIds.length);
+    levels[i] = randomIndex(random, plan.attributes[i % A].levelIds.length);
   const grid = { S, J, A, levels };
   const draws = R > 1 ? buildPriorDraws(means, sds, R, 4) : means;
   const setup = buildCriterionSetup(plan, definition, criterion, means, 1.96);
@@ -47,15 +48,15 @@ function checkChanges(criterion: DesignCriterion, R: number) {
   evaluator.reset(0);
   let compared = 0;
   for (let step = 0; step < 8; step++) {
-    const s = random.nextInt(S);
+    const s = randomIndex(random, S);
     evaluator.beginTask(s);
     for (let change = 0; change < 3; change++) {
-      const j = random.nextInt(J);
-      const a = random.nextInt(A);
+      const j = randomIndex(random, J);
+      const a = randomIndex(random, A);
       const L = plan.attributes[a].levelIds.length;
       const cell = (s * J + j) * A + a;
       const from = levels[cell];
-      const to = (from + 1 + random.nextInt(L - 1)) % L;
+      const to = (from + 1 + randomIndex(random, L - 1)) % L;
       const predicted = evaluator.evaluateChange(s, j, a, from, to, Infinity);
       levels[cell] = to;
       const fresh = computeDesignCriterion(

@@ -23,7 +23,7 @@ import { DesignError } from '../../../server/engine/design/design-errors';
 import { buildDesignMatrix, getRowsPerTask } from '../../../server/engine/design/design-grid';
 import { generateDesign } from '../../../server/engine/design/generate-design';
 import { generateRandomGrid } from '../../../server/engine/design/random-design';
-import { createSeededRandom } from '../../../server/engine/design/seeded-random';
+import { createPrng } from '../../../server/engine/draws/prng';
 
 interface Case {
   definition: StudyDefinition;
@@ -330,9 +330,10 @@ describe('coordinate exchange (property)', () => {
         const sds = new Float64Array(K).fill(bayesian ? 0.3 : 0);
         const R = bayesian ? 8 : 1;
         const draws = new Float64Array(R * K);
-        const random = createSeededRandom(c.seed);
+        const random = createPrng(c.seed);
         for (let r = 0; r < R; r++)
-          for (let k = 0; k < K; k++) draws[r * K + k] = means[k] + sds[k] * (random.next() - 0.5);
+          for (let k = 0; k < K; k++)
+            draws[r * K + k] = means[k] + sds[k] * (random.nextDouble() - 0.5);
         const constraints = buildDesignConstraints(plan, c.definition, means, sds, c.rules);
         let start;
         try {

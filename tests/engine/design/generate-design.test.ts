@@ -5,7 +5,7 @@
 import { describe, expect, it } from 'vitest';
 import { assignBlocks } from '../../../server/engine/design/assign-blocks';
 import { generateDesign } from '../../../server/engine/design/generate-design';
-import { createSeededRandom } from '../../../server/engine/design/seeded-random';
+import { createPrng } from '../../../server/engine/draws/prng';
 import { designSchema } from '../../../shared/schemas/design';
 import { getCodedColumns } from '../../../shared/engine/coding/coded-columns';
 import { makeLarkspurDefinition } from '../coding/fixtures/larkspur-definition';
@@ -27,7 +27,7 @@ describe('assignBlocks', () => {
   ])('splits the %i-level 3-attribute factorial into %i exactly balanced blocks', (L, B) => {
     for (const seed of [1, 2, 3]) {
       const grid = factorial(L);
-      const blockOf = assignBlocks(grid, [L, L, L], B, createSeededRandom(seed));
+      const blockOf = assignBlocks(grid, [L, L, L], B, createPrng(seed));
       for (let b = 1; b <= B; b++)
         for (let a = 0; a < 3; a++)
           for (let l = 0; l < L; l++) {

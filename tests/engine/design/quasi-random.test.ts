@@ -1,10 +1,10 @@
 /**
- * Inverse normal and Halton points against published values.
+ * Inverse normal against published values; the seeded generator of the demo data and the
+ * respondents' plans. (The design engine's Halton points are the estimation's: tests/engine/draws.)
  */
 /* eslint-disable no-loss-of-precision -- reference values are quoted as published */
 import { describe, expect, it } from 'vitest';
 import { inverseNormal as getInverseNormal } from '../../../server/engine/draws/inverse-normal';
-import { fillScrambledHalton } from '../../../server/engine/design/halton-draws';
 import { createSeededRandom } from '../../../server/engine/design/seeded-random';
 
 describe('getInverseNormal (Wichura 1988, AS241)', () => {
@@ -26,37 +26,6 @@ describe('getInverseNormal (Wichura 1988, AS241)', () => {
     expect(getInverseNormal(0)).toBe(-Infinity);
     expect(getInverseNormal(1)).toBe(Infinity);
     expect(getInverseNormal(1.5)).toBeNaN();
-  });
-});
-
-describe('fillScrambledHalton', () => {
-  it('gives the van der Corput sequence in base 2 (no scrambling possible with one digit)', () => {
-    // docs/methods.md "Draws" [R]: base 2: 1/2, 1/4, 3/4, 1/8, 5/8, 3/8, 7/8, 1/16, 9/16, 5/16.
-    const out = new Float64Array(10);
-    fillScrambledHalton(10, 1, out, { skip: 0 });
-    expect(Array.from(out)).toEqual([
-      0.5, 0.25, 0.75, 0.125, 0.625, 0.375, 0.875, 0.0625, 0.5625, 0.3125,
-    ]);
-  });
-
-  it('permutes base-3 digits but keeps each block of 9 points stratified on the 1/9 grid', () => {
-    // Halton property (Halton 1960): any b^m consecutive indices fill each interval
-    // [k/b^m, (k+1)/b^m) once (the last m digits run through all values); a digit
-    // permutation maps cells onto cells. Indices 1..9 are used here.
-    const out = new Float64Array(2 * 9);
-    fillScrambledHalton(9, 2, out, { skip: 0, seed: 3 });
-    const cells = new Set(
-      Array.from({ length: 9 }, (_, r) => Math.floor(out[r * 2 + 1] * 9 + 1e-9)),
-    );
-    expect(cells.size).toBe(9);
-  });
-
-  it('is reproducible for a seed', () => {
-    const a = new Float64Array(30);
-    const b = new Float64Array(30);
-    fillScrambledHalton(10, 3, a, { seed: 11 });
-    fillScrambledHalton(10, 3, b, { seed: 11 });
-    expect(Array.from(a)).toEqual(Array.from(b));
   });
 });
 

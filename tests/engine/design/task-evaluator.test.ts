@@ -14,18 +14,19 @@ import {
   type LevelGrid,
 } from '../../../server/engine/design/design-grid';
 import { buildPriorDraws } from '../../../server/engine/design/prior-draws';
-import { createSeededRandom } from '../../../server/engine/design/seeded-random';
+import { createPrng } from '../../../server/engine/draws/prng';
+import { randomIndex } from '../../../server/engine/draws/random-index';
 import { createTaskEvaluator } from '../../../server/engine/design/task-evaluator';
 import { makeLarkspurDefinition } from '../coding/fixtures/larkspur-definition';
 import { makeGrid, makeSymmetricDefinition } from './design-fixtures';
 
 function randomGrid(plan: CodingPlan, S: number, seed: number): LevelGrid {
-  const random = createSeededRandom(seed);
+  const random = createPrng(seed);
   const A = plan.attributes.length;
   const J = plan.designedCount;
   const levels = new Int32Array(S * J * A);
   for (let i = 0; i < levels.length; i++)
-    levels[i] = random.nextInt(plan.attributes[i % A].levelIds.length);
+    levels[i] = randomIndex(random, plan.attributes[i % A].levelIds.length);
   return { S, J, A, levels };
 }
 
@@ -41,18 +42,18 @@ function checkChanges(
   const x = buildDesignMatrix(plan, grid);
   const evaluator = createTaskEvaluator(plan, grid.S, x, draws, R);
   evaluator.reset(0);
-  const random = createSeededRandom(seed);
+  const random = createPrng(seed);
   let compared = 0;
-  for (let step = 0; step < 12; step++) {
-    const s = random.nextInt(grid.S);
+  for (let step = 0; step < 24; step++) {
+    const s = randomIndex(random, grid.S);
     evaluator.beginTask(s);
     for (let change = 0; change < 3; change++) {
-      const j = random.nextInt(grid.J);
-      const a = random.nextInt(grid.A);
+      const j = randomIndex(random, grid.J);
+      const a = randomIndex(random, grid.A);
       const cell = (s * grid.J + j) * grid.A + a;
       const from = grid.levels[cell];
       const to =
-        (from + 1 + random.nextInt(plan.attributes[a].levelIds.length - 1)) %
+        (from + 1 + randomIndex(random, plan.attributes[a].levelIds.length - 1)) %
         plan.attributes[a].levelIds.length;
       const predicted = evaluator.evaluateChange(s, j, a, from, to, Infinity);
       grid.levels[cell] = to;
@@ -78,7 +79,7 @@ describe('createTaskEvaluator', () => {
     const R = 16;
     expect(
       checkChanges(plan, randomGrid(plan, 14, 1), buildPriorDraws(means, sds, R, 5), R, 2),
-    ).toBe(36);
+    ).toBe(72);
   });
 
   it('matches the from-scratch D-error when dropping a task leaves B singular (fallback)', () => {

@@ -10,6 +10,8 @@ import { randomBytes } from 'node:crypto';
 import { sql } from 'drizzle-orm';
 import { createTestApp, type TestApp } from '../../support/test-app';
 import { signUpOwner } from '../../support/factories';
+import { insertStudy } from '../routes/respond-fixtures';
+import { RESPONDENT_LOG_SAMPLE } from '../../../server/lib/request-log';
 
 const lines: string[] = [];
 const sink = new Writable({
@@ -91,5 +93,43 @@ describe('the access log', () => {
     expect(logText()).toContain('Database query failed');
     expect(logText()).toContain('22P02');
     expect(logText().includes(value)).toBe(false);
+  });
+});
+
+describe('the access log under a panel launch', () => {
+  const linesOf = (route: string, from: number) =>
+    lines
+      .slice(from)
+      .map(
+        (l) =>
+          JSON.parse(l) as { req?: { route: string }; res?: { statusCode: number } } & Record<
+            string,
+            unknown
+          >,
+      )
+      .filter((l) => l.req?.route === route);
+
+  it('keeps one successful respondent request in RESPONDENT_LOG_SAMPLE, every failed one, and every other request', async () => {
+    const owner = await signUpOwner(t);
+    const study = await insertStudy(t, owner.teamId);
+    await owner.agent
+      .post(`/api/teams/${owner.teamId}/studies/${study.id}/lifecycle/go-live`)
+      .expect(200);
+    const from = lines.length;
+    for (let i = 0; i < 2 * RESPONDENT_LOG_SAMPLE; i++)
+      await t.request().get(`/api/r/${study.publicId}`).expect(200);
+    for (let i = 0; i < 3; i++) await t.request().get('/api/r/NoSuchLink123').expect(404);
+    for (let i = 0; i < 3; i++) await owner.agent.get('/api/auth/me').expect(200);
+    await new Promise((r) => setImmediate(r));
+
+    const link = linesOf('/api/r/:publicId', from);
+    const ok = link.filter((l) => l.res?.statusCode === 200);
+    expect(ok).toHaveLength(2);
+    for (const l of ok) expect(l).toMatchObject({ sampledOneIn: RESPONDENT_LOG_SAMPLE, level: 30 });
+    const missing = link.filter((l) => l.res?.statusCode === 404);
+    expect(missing).toHaveLength(3);
+    for (const l of missing) expect(l).toMatchObject({ level: 40 });
+    expect(missing[0]).not.toHaveProperty('sampledOneIn');
+    expect(linesOf('/api/auth/me', from)).toHaveLength(3);
   });
 });

@@ -112,6 +112,17 @@ describe('POST /design/jobs', () => {
     expect(res.body.error.fields).toEqual([expect.objectContaining({ path: 'criterion' })]);
   });
 
+  it('when an earlier generator version is asked for, returns 400 with the field and queues nothing', async () => {
+    const { id } = await draftWithAttributes();
+    const before = sent.length;
+    const res = await team.agents.owner
+      .post(`${designUrl(id)}/jobs`)
+      .send({ ...randomSpec, generatorVersion: 1 })
+      .expect(400);
+    expect(res.body.error.fields).toEqual([expect.objectContaining({ path: 'generatorVersion' })]);
+    expect(sent.length).toBe(before);
+  });
+
   it('when a job is already running for the study, returns 409', async () => {
     const { id } = await draftWithAttributes();
     await team.agents.owner
@@ -177,6 +188,8 @@ describe('the design job', () => {
     expect(state.design.design.blocks).toBe(2);
     expect(state.design.diagnostics.dError).toBeGreaterThan(0);
     expect(state.design.diagnostics.sampleSize).toBeDefined();
+    // The stored spec says which generator made it (docs/methods.md "Design generator versions").
+    expect(state.design.spec).toMatchObject({ seed: 3, generatorVersion: 2 });
     const study = await getStudyById(t.deps.db, { id, teamId: team.teamId });
     expect(study!.currentDesignId).toBe(state.design.id);
   });

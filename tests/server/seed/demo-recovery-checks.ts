@@ -192,9 +192,19 @@ export function describeDemoRecovery(world: () => DemoWorld) {
     });
 
     it("correlates respondents' conditional means with their true coefficients", () => {
+      // Where the run finds no spread (|sd / SE| ≤ 2), every conditional mean equals the
+      // population mean up to simulation noise (Train 2009, §11.2), so there is nothing to
+      // correlate; such a coefficient's spread is checked against the truth by the test above.
+      // Which coefficients those are depends on the data's draws, which follow respondent ids
+      // (random on every seeding), so the check asks for at least four measured ones.
       const threshold = 2 / Math.sqrt(respondentCount);
-      for (const [name, r] of Object.entries(correlations))
-        expect(r, name).toBeGreaterThan(threshold);
+      const spreadFound = (name: string) => {
+        const sd = result.estimates.find((e) => e.name === `${name}.sd`);
+        return sd?.se != null && Math.abs(sd.estimate / sd.se) > 2;
+      };
+      const measured = Object.entries(correlations).filter(([name]) => spreadFound(name));
+      expect(measured.length).toBeGreaterThanOrEqual(4);
+      for (const [name, r] of measured) expect(r, name).toBeGreaterThan(threshold);
     });
   });
 }

@@ -11,7 +11,7 @@
  * (1/m) Σ_j (x_j − x̄)(x_j − x̄)' = (1/m²) Σ_{i<j} (x_i − x_j)(x_i − x_j)', which is Λ's form).
  */
 import type { CodingPlan } from '../../../../shared/engine/coding/coding-plan';
-import { getCholeskyLogDet } from '../cholesky-log-det';
+import { getSpdLogDet } from '../../linalg/cholesky';
 import type { LevelGrid } from '../design-grid';
 import { computeInformationMatrix } from '../mnl-information';
 
@@ -78,7 +78,7 @@ export function computeStreetBurgessEfficiency(
     info,
     new Float64Array(J * (p + 1) + p),
   );
-  const logDet = getCholeskyLogDet(p, info, 0, new Float64Array(p * p));
+  const logDet = getSpdLogDet(info, p, new Float64Array(p * p));
   const detC = logDet === -Infinity ? 0 : Math.exp(logDet - p * Math.log(S));
   const detOptimal = getStreetBurgessOptimalDet(levelCounts, J);
   // Ratio in logs: both determinants can be tiny for many attributes.

@@ -5,7 +5,10 @@
  * of the TypeScript and the WebAssembly SIMD kernel on the main thread and on 1 and 2 worker
  * threads (rounds interleaved, median of the rounds, so a change in the machine's load hits
  * both kernels alike), then a full estimation with each kernel, the taste profiles, the peak
- * resident memory and the load average (os.loadavg) at start and end.
+ * resident memory and the load average (os.loadavg) at start and end. Then both first inverse
+ * Hessians of BFGS side by side (`startComparison`): the scaled identity and the inverse BHHH
+ * matrix (bhhh-start.ts) on N = 1000, T = 12, J = 3, K = 6 correlated normals (27 parameters),
+ * R = 200, three starts, BHHH standard errors: iterations, evaluations and seconds of each.
  * With --large: the large-model benchmark instead (bench-estimation-large.ts).
  * Usage: npm run bench:estimation [-- --json] [-- --threads 2] [-- --large]
  */
@@ -120,6 +123,53 @@ let maxEstimateDifference = 0;
 simdFit.fit.estimates.forEach((v, p) => {
   maxEstimateDifference = Math.max(maxEstimateDifference, Math.abs(v - tsFit.fit.estimates[p]));
 });
+async function compareStarts() {
+  const sim = simulatePanelChoices({
+    respondents: N,
+    tasks: T,
+    alternatives: J,
+    coefficients: truth,
+    seed: 5,
+  });
+  const correlated = buildChoiceData(sim.columns, sim.rows).data;
+  const run = async (initialInverseHessian: 'identity' | 'bhhh') => {
+    const start = performance.now();
+    const fit = await fitMixedLogit(correlated, {
+      coefficients,
+      correlated: true,
+      draws: { ...draws, count: 200 },
+      threads: fitThreads,
+      covariance: 'bhhh',
+      initialInverseHessian,
+    });
+    const seconds = (performance.now() - start) / 1000;
+    return { fit, seconds };
+  };
+  const runs = { identity: await run('identity'), bhhh: await run('bhhh') };
+  const summary = ({ fit, seconds }: (typeof runs)['bhhh']) => ({
+    iterations: fit.iterations,
+    iterationsPerStart: fit.starts.map((s) => s.iterations),
+    evaluations: fit.evaluations,
+    seconds: Number(seconds.toFixed(2)),
+    loglik: Number(fit.loglik.toFixed(4)),
+    converged: fit.converged,
+  });
+  let maxEstimateDifference = 0;
+  runs.bhhh.fit.estimates.forEach((v, p) => {
+    maxEstimateDifference = Math.max(
+      maxEstimateDifference,
+      Math.abs(v - runs.identity.fit.estimates[p]),
+    );
+  });
+  return {
+    parameters: runs.bhhh.fit.layout.P,
+    draws: 200,
+    identity: summary(runs.identity),
+    bhhh: summary(runs.bhhh),
+    maxEstimateDifference: Number(maxEstimateDifference.toExponential(2)),
+  };
+}
+const startComparison = await compareStarts();
 const profilesStart = performance.now();
 computeTasteProfiles(data, simdFit.fit.layout, simdFit.fit.estimates, { count: 2000 });
 const profilesSeconds = (performance.now() - profilesStart) / 1000;
@@ -149,6 +199,7 @@ const figures = {
   iterationsTypescript: tsFit.fit.iterations,
   maxEstimateDifference: Number(maxEstimateDifference.toExponential(2)),
   profilesSeconds: round2(profilesSeconds),
+  startComparison,
   peakRssMb: Math.round(process.resourceUsage().maxRSS / 1024),
   loadAverageStart: loadStart.map(round2),
   loadAverageEnd: os.loadavg().map(round2),
@@ -171,6 +222,10 @@ if (json) {
   );
   console.log(
     `  converged: ${f.converged} (${f.stopReason}), LL = ${f.loglik}; largest estimate difference between kernels ${f.maxEstimateDifference}`,
+  );
+  const c = f.startComparison;
+  console.log(
+    `  K=6 correlated (${c.parameters} parameters), R=${c.draws}, 3 starts: BFGS from the scaled identity ${c.identity.iterations} iterations (${c.identity.iterationsPerStart.join('+')}), ${c.identity.evaluations} evaluations, ${c.identity.seconds} s; from the inverse BHHH matrix ${c.bhhh.iterations} iterations (${c.bhhh.iterationsPerStart.join('+')}), ${c.bhhh.evaluations} evaluations, ${c.bhhh.seconds} s; LL ${c.identity.loglik} / ${c.bhhh.loglik}, largest estimate difference ${c.maxEstimateDifference}`,
   );
   console.log(`  taste profiles (2000 draws per respondent): ${f.profilesSeconds} s`);
   console.log(

@@ -1,9 +1,11 @@
 /**
  * Quasi-Newton minimisation by BFGS on the inverse Hessian (Nocedal & Wright, Numerical
  * Optimization, 2nd ed., Algorithm 6.1) with a weak-Wolfe line search by bisection and
- * expansion (Lewis & Overton 2013, Math. Program. 141:135-163), the initial scaling
- * H0 = (y's / y'y)·I of N&W eq. 6.20, and update skipping when y's ≤ 0. The objective is
- * asynchronous so it can be evaluated on worker threads.
+ * expansion (Lewis & Overton 2013, Math. Program. 141:135-163), and update skipping when
+ * y's ≤ 0. The first inverse Hessian is the caller's `initialInverseHessian` when given (for
+ * maximum likelihood the inverse BHHH matrix at the start, bhhh-start.ts), otherwise the
+ * scaled identity H0 = (y's / y'y)·I of N&W eq. 6.20. The objective is asynchronous so it can
+ * be evaluated on worker threads.
  *
  * It stops as "converged" only when the convergence test of convergence.ts passes with the
  * current inverse-Hessian approximation (Newton decrement g′Hg and the relative gradient); as
@@ -23,6 +25,7 @@ import {
   type ConvergenceStatus,
   type ConvergenceTolerances,
 } from './convergence';
+import { choleskyDecompose } from '../linalg/cholesky';
 import { EstimationCancelledError } from './estimation-errors';
 
 /** f(x) with its gradient written into g; may return a non-finite value to reject x. */
@@ -38,6 +41,11 @@ export interface BfgsOptions extends ConvergenceTolerances {
   onState?: (state: BfgsState) => void;
   /** Continue from this state (from onState) instead of x0: no evaluation at x0. */
   resume?: BfgsState;
+  /**
+   * The first inverse Hessian, n × n row-major, symmetric positive definite (checked); the
+   * first step is then tried at full length. Ignored on resume (the state has its own).
+   */
+  initialInverseHessian?: Float64Array;
 }
 
 /** Where the minimisation stands after an iteration: all it needs to go on exactly. */
@@ -98,7 +106,12 @@ export async function minimizeBfgs(
       throw new Error('the log-likelihood is not finite at the starting values');
   }
   const H = new Float64Array(n * n);
+  const given = from ? undefined : options.initialInverseHessian;
+  if (given) assertSymmetricPositiveDefinite(given, n);
+  // Only a fresh start from the identity rescales H after its first step (N&W eq. 6.20).
+  const scaleFirstUpdate = !from && !given;
   if (from) H.set(from.inverseHessian);
+  else if (given) H.set(given);
   else for (let i = 0; i < n; i++) H[i * n + i] = 1;
   const d = new Float64Array(n);
   const xNew = new Float64Array(n);
@@ -109,7 +122,7 @@ export async function minimizeBfgs(
   let iterations = from?.iterations ?? 0;
   let relativeChange = from?.relativeChange ?? Infinity;
   let reason: BfgsStopReason = from?.stopped ?? 'iteration_limit';
-  // Judged only after an update: the first H is the identity, no estimate of the curvature.
+  // Judged only after an update: the first H may be the identity, no estimate of the curvature.
   const converged = () => passesConvergence(measureConvergence(g, multiply(H, g), x, fx), options);
   while (!from?.stopped && iterations < options.maxIterations) {
     if (options.signal?.aborted) throw new EstimationCancelledError();
@@ -126,7 +139,8 @@ export async function minimizeBfgs(
       for (let i = 0; i < n; i++) d[i] = -g[i];
       slope = dot(g, d);
     }
-    let alpha = iterations === 0 ? Math.min(1, 1 / Math.sqrt(dot(g, g))) : 1;
+    // The identity knows nothing of the scale of f: keep the first step to unit length.
+    let alpha = iterations === 0 && scaleFirstUpdate ? Math.min(1, 1 / Math.sqrt(dot(g, g))) : 1;
     let lo = 0;
     let hi = Infinity;
     let fNew = NaN;
@@ -166,7 +180,7 @@ export async function minimizeBfgs(
       s[i] = xNew[i] - x[i];
       y[i] = gNew[i] - g[i];
     }
-    updateInverseHessian(H, s, y, Hy, iterations === 0);
+    updateInverseHessian(H, s, y, Hy, iterations === 0 && scaleFirstUpdate);
     relativeChange = Math.abs(fNew - fx) / Math.max(Math.abs(fNew), 1);
     x.set(xNew);
     g.set(gNew);
@@ -218,6 +232,18 @@ function assertStateFits(state: BfgsState, n: number): void {
     !Number.isFinite(state.f)
   )
     throw new Error(`a BFGS state of ${state.x.length} parameters cannot resume a problem of ${n}`);
+}
+
+function assertSymmetricPositiveDefinite(h: Float64Array, n: number): void {
+  let symmetric = h.length === n * n;
+  for (let i = 0; symmetric && i < n; i++)
+    for (let j = 0; j < i; j++)
+      if (!(Math.abs(h[i * n + j] - h[j * n + i]) <= 1e-12 * Math.abs(h[i * n + j]))) {
+        symmetric = false;
+        break;
+      }
+  if (!symmetric || !choleskyDecompose(h, n, new Float64Array(n * n)))
+    throw new Error('the initial inverse Hessian must be symmetric positive definite');
 }
 
 function updateInverseHessian(

@@ -42,7 +42,15 @@ export interface MixedLogitOptions {
   kernel?: KernelPreference;
   /** Profile draws that will follow (default 2000), for the time-left estimate only. */
   profileDraws?: number;
+  /**
+   * First inverse Hessian of BFGS: 'bhhh' (default), the inverse BHHH matrix at each start
+   * (bhhh-start.ts, one evaluation of the scores per start), or 'identity', the scaled
+   * identity of N&W eq. 6.20. Both reach the same optimum under the same convergence test.
+   */
+  initialInverseHessian?: InitialInverseHessian;
 }
+
+export type InitialInverseHessian = 'bhhh' | 'identity';
 
 export interface CheckedMixedLogitOptions {
   layout: MixedLogitLayout;
@@ -57,6 +65,7 @@ export interface CheckedMixedLogitOptions {
   holdout: ChoiceData | null;
   kernel: KernelPreference;
   profileDraws: number;
+  initialInverseHessian: InitialInverseHessian;
 }
 
 const DRAW_TYPES: DrawsType[] = ['halton', 'sobol', 'mlhs', 'random'];
@@ -129,7 +138,14 @@ export function checkMixedLogitOptions(
   const kernel = options.kernel ?? 'auto';
   if (!KERNEL_PREFERENCES.includes(kernel))
     throw new EstimationOptionsError(`unknown kernel ${String(kernel)}`, 'kernel');
+  const initialInverseHessian = options.initialInverseHessian ?? 'bhhh';
+  if (!['bhhh', 'identity'].includes(initialInverseHessian))
+    throw new EstimationOptionsError(
+      'initialInverseHessian must be bhhh or identity',
+      'initialInverseHessian',
+    );
   return {
+    initialInverseHessian,
     kernel,
     profileDraws: options.profileDraws ?? 2000,
     layout,

@@ -3,12 +3,14 @@
  * Simulation, ch. 6, 9 and 10), in preference or WTP space (Train & Weeks 2005): on internally
  * scaled columns and parameters (parameter-scaling.ts; the kernel never sees the user's units),
  * BFGS with the analytic simulated gradient from the MNL start plus seeded perturbed starts,
+ * each from the inverse BHHH matrix at its start (bhhh-start.ts),
  * then the verdict and a few Newton steps with the real information (refine-estimate.ts), and
  * covariances by inference.ts. Everything is reported in the user's units.
  */
 import { createLoglikEvaluator } from '../parallel/create-loglik-evaluator';
 import type { KernelKind } from '../simd/kernel-choice';
 import { minimizeBfgs, type BfgsResult } from './bfgs';
+import { computeBhhhStart } from './bhhh-start';
 import { assertColumnsVary } from './check-identification';
 import { checkMixedLogitOptions, type MixedLogitOptions } from './check-mixed-logit-options';
 import type { ChoiceData } from './choice-data';
@@ -165,9 +167,18 @@ export async function fitMixedLogit(
     const resume = hooks.resume;
     if (resume) assertCheckpointFits(resume, layout.P, opts.starts);
     const runs: BfgsResult[] = resume ? [...resume.finished] : [];
+    let scoreEvaluations = 0;
     for (let s = runs.length; s < opts.starts; s++) {
       const x0 = s === 0 ? theta0 : perturbStart(theta0, s, opts.draws.seed);
       const from = resume?.start === s ? (resume.current ?? undefined) : undefined;
+      // A resumed start carries its inverse Hessian in its state.
+      let initialInverseHessian: Float64Array | undefined;
+      if (!from && opts.initialInverseHessian === 'bhhh') {
+        const bhhh = await computeBhhhStart(evaluator, x0);
+        scoreEvaluations++;
+        if (bhhh.note) hooks.onNote?.(`start ${s + 1}: ${bhhh.note}`);
+        initialInverseHessian = bhhh.inverseHessian ?? undefined;
+      }
       const startedAt = performance.now();
       const firstIteration = from?.iterations ?? 0;
       let initialGradientNorm = NaN;
@@ -177,6 +188,7 @@ export async function fitMixedLogit(
           ...tolerances,
           signal: hooks.signal,
           resume: from,
+          initialInverseHessian,
           onState: onCheckpoint
             ? (state) => onCheckpoint({ start: s, finished: [...runs], current: state })
             : undefined,
@@ -259,7 +271,8 @@ export async function fitMixedLogit(
       loglikNull,
       loglikMnl: mnl.loglik,
       iterations: runs.reduce((a, r) => a + r.iterations, 0),
-      evaluations: runs.reduce((a, r) => a + r.evaluations, 0) + refined.evaluations,
+      evaluations:
+        runs.reduce((a, r) => a + r.evaluations, 0) + scoreEvaluations + refined.evaluations,
       converged: status === 'converged',
       status,
       measures: refined.measures,

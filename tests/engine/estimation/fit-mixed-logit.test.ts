@@ -59,6 +59,32 @@ describe('fitMixedLogit', () => {
       expect(progress[i].loglik).toBeGreaterThanOrEqual(progress[i - 1].loglik);
   });
 
+  it('reaches the same optimum from the inverse BHHH matrix as from the scaled identity', async () => {
+    // Both runs end when the Newton decrement g′A⁻¹g with the real information A is ≤ 1e-7
+    // (convergence.ts). Under the quadratic model at the optimum θ*, that puts each run's LL
+    // within 1e-7 / 2 of LL*, and (θ − θ*)′A(θ − θ*) ≤ 1e-7, so two runs differ in θ_p by at most
+    // 2·√1e-7·√(A⁻¹)_pp = 2·√1e-7·SE_p (Boyd & Vandenberghe 2004, Convex Optimization, §9.5.1).
+    const options = {
+      coefficients,
+      draws: { count: 200 },
+      starts: 1,
+      covariance: 'classical' as const,
+    };
+    const identity = await fitMixedLogit(data, { ...options, initialInverseHessian: 'identity' });
+    const bhhh = await fitMixedLogit(data, { ...options, initialInverseHessian: 'bhhh' });
+    for (const fit of [identity, bhhh]) {
+      expect(fit.converged).toBe(true);
+      expect(fit.measures.decrement).toBeLessThanOrEqual(1e-7);
+    }
+    expect(Math.abs(bhhh.loglik - identity.loglik)).toBeLessThanOrEqual(1e-7 / 2);
+    identity.estimates.forEach((v, p) => {
+      const se = Math.max(identity.se[p], bhhh.se[p]);
+      expect(Math.abs(bhhh.estimates[p] - v)).toBeLessThanOrEqual(2 * Math.sqrt(1e-7) * se);
+    });
+    // One evaluation of the scores at the start, counted with the others.
+    expect(bhhh.evaluations).toBeGreaterThan(bhhh.iterations + 1);
+  });
+
   it('gives the same estimates on 2 worker threads as in-process (threads only split the sum)', async () => {
     const small = buildChoiceData(
       sim.columns,

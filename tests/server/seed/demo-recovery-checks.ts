@@ -192,15 +192,17 @@ export function describeDemoRecovery(world: () => DemoWorld) {
     });
 
     it("correlates respondents' conditional means with their true coefficients", () => {
-      // Where the run finds no spread (|sd / SE| ≤ 2), every conditional mean equals the
-      // population mean up to simulation noise (Train 2009, §11.2), so there is nothing to
-      // correlate; such a coefficient's spread is checked against the truth by the test above.
-      // Which coefficients those are depends on the data's draws, which follow respondent ids
-      // (random on every seeding), so the check asks for at least four measured ones.
+      // Where the run finds no spread (an estimated SD within one SE of zero), every
+      // conditional mean is close to the population mean (Train 2009, §11.2: it equals it when
+      // the SD is zero), so there is nothing to correlate; such a coefficient's spread is
+      // checked against the truth by the test above. Which coefficients those are depends on
+      // the data's draws, which follow respondent ids (random on every seeding): seen so far,
+      // river_fair's SD at −0.007 (SE 0.39) in one seeding, with its correlation 0.04, and
+      // every other SD at 1.97 SE or more. The check asks for at least four measured ones.
       const threshold = 2 / Math.sqrt(respondentCount);
       const spreadFound = (name: string) => {
         const sd = result.estimates.find((e) => e.name === `${name}.sd`);
-        return sd?.se != null && Math.abs(sd.estimate / sd.se) > 2;
+        return sd?.se != null && Math.abs(sd.estimate) > sd.se;
       };
       const measured = Object.entries(correlations).filter(([name]) => spreadFound(name));
       expect(measured.length).toBeGreaterThanOrEqual(4);

@@ -289,7 +289,8 @@ describe('RespondentApp before a session', () => {
     render(<RespondentApp publicId="abc123" search="?lang=ar" />);
     expect(await screen.findByRole('heading', { name: 'انتهى الاستطلاع' })).toBeVisible();
     expect(screen.getByText('شكرا لاهتمامك.')).toBeVisible();
-    expect(document.documentElement).toHaveAttribute('lang', 'ar');
+    // The page sets <html lang dir> in an effect after it renders: wait for it on a busy machine.
+    await waitFor(() => expect(document.documentElement).toHaveAttribute('lang', 'ar'));
     expect(document.documentElement).toHaveAttribute('dir', 'rtl');
   });
 });

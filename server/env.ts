@@ -34,6 +34,11 @@ const envSchema = z.object({
     .default('true')
     .transform((v) => v === 'true'),
   WORKER_THREADS: z.coerce.number().int().min(1).max(64).default(2),
+  /**
+   * Web processes sharing PORT on this machine (server/web-cluster.ts); only the first runs
+   * the embedded job worker.
+   */
+  WEB_INSTANCES: z.coerce.number().int().min(1).max(64).default(1),
   /** Mixed-logit kernel: auto (WebAssembly SIMD when it can run), simd, or typescript. */
   ESTIMATION_KERNEL: z.enum(['auto', 'simd', 'typescript']).default('auto'),
   /** Engine memory one estimation run may need; larger specifications are refused before queuing. */

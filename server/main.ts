@@ -13,11 +13,20 @@ import { installProcessGuards } from './lib/process-guards';
 import { stopOnSignals } from './lib/stop-on-signals';
 import { reportEventLoopDelay, relayEventLoopDelay } from './lib/event-loop-delay';
 import { createHttpServer, listenHttp } from './lib/http-listen';
-import { migrateDb } from '../db/client';
+import { retryWhileDatabaseUnavailable } from './lib/db-retry';
+import { migrateDb, type Db } from '../db/client';
 import { createMailer } from './mail/mailer';
 import { createApp } from './app';
 import { startBackgroundServices } from './jobs/background';
 import { startWebCluster } from './web-cluster';
+
+/** Migrates, waiting out a database that is slow to accept connections (a busy or restarting server). */
+function migrate(db: Db, logger: Logger) {
+  return retryWhileDatabaseUnavailable(() => migrateDb(db), {
+    onRetry: (err) =>
+      logger.warn({ message: (err as Error).message }, 'database unreachable; migrating again'),
+  });
+}
 
 async function runPrimary(env: Env, logger: Logger) {
   installProcessGuards(logger, 'web cluster primary');
@@ -26,7 +35,7 @@ async function runPrimary(env: Env, logger: Logger) {
     max: 1,
     applicationName: 'choicewright-web-primary',
   });
-  await migrateDb(db);
+  await migrate(db, logger);
   await pool.end();
   const webCluster = startWebCluster({
     instances: env.WEB_INSTANCES,
@@ -44,7 +53,7 @@ async function main() {
   if (env.WEB_INSTANCES > 1 && cluster.isPrimary) return runPrimary(env, logger);
   installProcessGuards(logger, 'web process');
   const { db, pool } = createProcessDb(env, logger, { applicationName: 'choicewright-web' });
-  if (cluster.isPrimary) await migrateDb(db);
+  if (cluster.isPrimary) await migrate(db, logger);
   const mailer = createMailer(env);
   const deps = { env, db, logger, mailer };
   const app = createApp(deps);

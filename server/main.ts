@@ -30,9 +30,10 @@ function migrate(db: Db, logger: Logger) {
 
 async function runPrimary(env: Env, logger: Logger) {
   installProcessGuards(logger, 'web cluster primary');
-  // Migrate once, before any web process starts, so that they never race to migrate.
+  // Migrate once, before any web process starts (migrateDb holds one connection for its lock
+  // and migrates on another).
   const { db, pool } = createProcessDb(env, logger, {
-    max: 1,
+    max: 2,
     applicationName: 'choicewright-web-primary',
   });
   await migrate(db, logger);

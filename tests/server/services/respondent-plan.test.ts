@@ -125,7 +125,12 @@ describe('createRespondentPlan with the randomisation options', () => {
     for (const [seed, plan] of Object.entries(before))
       expect(
         JSON.stringify(
-          createRespondentPlan({ ...version(withSpecials()), block: 1, seed: Number(seed) }),
+          createRespondentPlan({
+            ...version(withSpecials()),
+            block: 1,
+            seed: Number(seed),
+            generatorVersion: 1,
+          }),
         ),
       ).toBe(plan);
   });

@@ -6,12 +6,14 @@
  */
 import { and, asc, eq, isNotNull, like, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
-import { answers } from '../schema/fieldwork';
+import { answers, respondents } from '../schema/fieldwork';
 
 /**
  * Every answered choice screen of the study (design, warm-up, holdout, repeat and dominance
- * tasks), in respondent and screen order. The task kind, repeated task and dominance outcome
- * are in `value` (server/services/answer-shape.ts).
+ * tasks), in respondent-number order (order of starting, ties by id, as
+ * db/queries/respondent-number.ts counts) and screen order, so nothing read from it depends on
+ * the respondents' random ids. The task kind, repeated task and dominance outcome are in
+ * `value` (server/services/answer-shape.ts).
  */
 export async function listChoiceAnswers(db: DbOrTx, params: { studyId: string }) {
   return db
@@ -25,8 +27,9 @@ export async function listChoiceAnswers(db: DbOrTx, params: { studyId: string })
       value: answers.value,
     })
     .from(answers)
+    .innerJoin(respondents, eq(respondents.id, answers.respondentId))
     .where(and(eq(answers.studyId, params.studyId), isNotNull(answers.chosenAlternative)))
-    .orderBy(asc(answers.respondentId), asc(answers.screenKey));
+    .orderBy(asc(respondents.startedAt), asc(respondents.id), asc(answers.screenKey));
 }
 export type ChoiceAnswerRow = Awaited<ReturnType<typeof listChoiceAnswers>>[number];
 

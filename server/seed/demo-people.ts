@@ -44,7 +44,9 @@ function startTime(random: Prng, fieldStart: Date): Date {
   const mean = wave === 0 ? 2.5 : 2;
   const day = Math.min(20, wave + Math.floor(-mean * Math.log(1 - random.nextDouble())));
   const minuteOfDay = 7 * 60 + randomIndex(random, 15 * 60);
-  return new Date(fieldStart.getTime() + day * DAY + minuteOfDay * 60_000 + randomIndex(random, 60_000));
+  return new Date(
+    fieldStart.getTime() + day * DAY + minuteOfDay * 60_000 + randomIndex(random, 60_000),
+  );
 }
 
 /** The demo panel, sorted by start time (blocks are then assigned in arrival order). */
@@ -73,7 +75,8 @@ export function planDemoPeople(fieldStart: Date, screensPerRespondent: number): 
       startedAt: startTime(random, fieldStart),
       device: pickWeighted(random, ['phone', 'desktop', 'tablet'] as const, [58, 30, 12]),
       externalId: `LV-${String(1001 + n)}`,
-      stopAfter: n >= completes ? 1 + randomIndex(random, Math.max(1, screensPerRespondent - 2)) : null,
+      stopAfter:
+        n >= completes ? 1 + randomIndex(random, Math.max(1, screensPerRespondent - 2)) : null,
       speed: speeder ? 0.15 + 0.1 * random.nextDouble() : Math.exp(0.3 * drawNormal(random)),
     });
   }

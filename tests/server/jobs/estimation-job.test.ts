@@ -12,6 +12,7 @@ import { eq, sql } from 'drizzle-orm';
 import { createTestApp, type TestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { runs } from '../../../db/schema/models';
+import { respondents } from '../../../db/schema/fieldwork';
 import { listRunProfiles } from '../../../db/queries/taste-profiles';
 import { getRunForJob } from '../../../db/queries/runs';
 import { runEstimationJob } from '../../../server/jobs/estimation-job';
@@ -299,6 +300,12 @@ describe('run data order', () => {
   }, 120_000);
 
   it('computes a run stored without a data order again in id order, bit for bit', async () => {
+    // The fixture's ids follow the order of starting; the first respondent starting last makes
+    // id order and respondent-number order differ.
+    await t.deps.db
+      .update(respondents)
+      .set({ startedAt: new Date(Date.now() + 3_600_000) })
+      .where(eq(respondents.id, study.respondentIds[0]));
     const res = await team.agents.analyst
       .post(base)
       .send({ spec: mixedLogitSpec(20, 9) })

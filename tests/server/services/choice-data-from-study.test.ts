@@ -11,6 +11,8 @@ import {
 import type { VersionInput } from '../../../server/services/estimation/code-answers';
 import { StudyDataError } from '../../../server/services/estimation/study-data-error';
 import { listStudyRespondents } from '../../../db/queries/study-respondents';
+import { eq } from 'drizzle-orm';
+import { respondents } from '../../../db/schema/fieldwork';
 import { parseChoiceCsv } from '../../../server/engine/estimation/parse-choice-csv';
 import { makeLarkspurDefinition } from '../../engine/coding/fixtures/larkspur-definition';
 import { createTestApp, type TestApp } from '../../support/test-app';
@@ -277,10 +279,17 @@ describe('loadStudyChoiceData', () => {
   });
 
   it('uses only included, completed respondents, in respondent-number order', async () => {
+    // The fixture's ids follow the order of starting; the first respondent starting last makes
+    // id order and respondent-number order differ.
+    await t.deps.db
+      .update(respondents)
+      .set({ startedAt: new Date(Date.now() + 3_600_000) })
+      .where(eq(respondents.id, seeded.respondentIds[0]));
     const prepared = await loadStudyChoiceData(t.deps.db, { studyId: seeded.studyId });
     const ids = [...new Set(prepared.rows.map((r) => String(r.respondent)))];
     const numbered = await listStudyRespondents(t.deps.db, { studyId: seeded.studyId });
     const inNumberOrder = [...numbered].sort((a, b) => a.number - b.number).map((r) => r.id);
+    expect(ids).toEqual([...seeded.respondentIds.slice(1), seeded.respondentIds[0]]);
     expect(ids).toEqual(inNumberOrder.filter((id) => seeded.respondentIds.includes(id)));
     // Runs stored before the data order read them by id.
     const byId = await loadStudyChoiceData(t.deps.db, {

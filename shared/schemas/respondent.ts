@@ -35,9 +35,8 @@ export type StartSessionInput = z.input<typeof startSessionSchema>;
  * versions"): 2 is xoshiro128** with unbiased integers; a stored plan without a version was
  * drawn by version 1 (sfc32), and its seed rebuilds it only with that generator.
  */
-export const PLAN_GENERATOR_VERSION = 2;
-export const planGeneratorVersionSchema = z.union([z.literal(1), z.literal(2)]);
-export type PlanGeneratorVersion = z.infer<typeof planGeneratorVersionSchema>;
+export type PlanGeneratorVersion = 1 | 2;
+export const PLAN_GENERATOR_VERSION: PlanGeneratorVersion = 2;
 
 /** Per-respondent randomisation, stored in respondents.plan so every screen is reproducible. */
 export const respondentPlanSchema = z.object({

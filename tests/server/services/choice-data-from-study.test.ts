@@ -11,7 +11,7 @@ import {
 import type { VersionInput } from '../../../server/services/estimation/code-answers';
 import { StudyDataError } from '../../../server/services/estimation/study-data-error';
 import { parseChoiceCsv } from '../../../server/engine/estimation/parse-choice-csv';
-import { makeLarkspurDefinition } from '../../engine/coding/fixtures/larkspur-definition';
+import { makeStudyDefinition } from '../../../scripts/lib/study-factory/definition';
 import { createTestApp, type TestApp } from '../../support/test-app';
 import { createBareTeam } from '../../support/factories';
 import {
@@ -21,7 +21,7 @@ import {
   type SeededStudy,
 } from '../jobs/run-fixtures';
 
-const definition = makeLarkspurDefinition();
+const definition = makeStudyDefinition();
 const packageA = { bill: 'b6', interrupt: 'i2', warn: 'w0', river: 'good', renew: 'r80' };
 const packageB = { bill: 'b15', interrupt: 'i1', warn: 'w2', river: 'fair', renew: 'r50' };
 const holdoutAlts = [
@@ -122,7 +122,7 @@ describe('codeStudyAnswers', () => {
   });
 
   it('codes labeled alternatives with constants for all but the first label', () => {
-    const labeled = makeLarkspurDefinition({
+    const labeled = makeStudyDefinition({
       alternatives: {
         count: 2,
         labeled: true,
@@ -146,7 +146,7 @@ describe('codeStudyAnswers', () => {
   });
 
   it('codes an opt-out as zeros with its own constant', () => {
-    const optOut = makeLarkspurDefinition({
+    const optOut = makeStudyDefinition({
       fixedAlternative: { kind: 'opt_out', label: 'Neither package', levels: {} },
     });
     const prepared = codeStudyAnswers(
@@ -224,7 +224,7 @@ describe('codeStudyAnswers', () => {
     const v2 = makeVersion({
       id: 'v2',
       version: 2,
-      definition: makeLarkspurDefinition({ fixedAlternative: null }),
+      definition: makeStudyDefinition({ fixedAlternative: null }),
     });
     expect(() => codeStudyAnswers([makeVersion(), v2], [])).toThrow(StudyDataError);
   });

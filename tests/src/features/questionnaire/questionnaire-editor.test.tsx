@@ -5,7 +5,7 @@ import { cleanup, render, screen, waitFor, within } from '@testing-library/react
 import userEvent from '@testing-library/user-event';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import type { Active, Over } from '@dnd-kit/core';
-import { demoDefinition } from '@server/seed/demo-study';
+import { demoDefinition } from '@server/seed/demo-definition';
 import { QuestionnaireEditor } from '@/features/questionnaire/components/questionnaire-editor';
 import { pageAnnouncements } from '@/features/questionnaire/components/page-list';
 import { defaultQuestionnaire } from '@shared/schemas/questionnaire-defaults';

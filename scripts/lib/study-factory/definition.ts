@@ -31,6 +31,12 @@ export const numericLevels = (
 export const namedLevels = (labels: string[]): Level[] =>
   labels.map((label) => ({ id: label.toLowerCase(), label }));
 
+/** The river as the small set-ups show it: a "River health rating" of capitalised levels. */
+export const riverRating = (labels = ['Poor', 'Fair', 'Good']): Partial<AttributeInput> => ({
+  name: 'River health rating',
+  levels: namedLevels(labels),
+});
+
 /** Five attributes with mixed codings (linear, effects, dummy with a chosen reference). */
 const larkspurAttributes = (): Record<LarkspurAttributeId, AttributeInput> => ({
   bill: {
@@ -122,6 +128,16 @@ export function makeStudyDefinition(overrides: StudyDefinitionOverrides = {}): S
  * The product's own demo definition (server/seed), for set-ups that should match what a new
  * installation shows: descriptions, derived numeric labels and the "costs more than today" rule.
  */
-export function makeDemoDefinition(overrides: Partial<StudyDefinition> = {}): StudyDefinition {
-  return studyDefinitionSchema.parse({ ...structuredClone(demoDefinition), ...overrides });
+export function makeDemoDefinition(
+  overrides: Partial<StudyDefinition> & { only?: string[] } = {},
+): StudyDefinition {
+  const { only, ...rest } = overrides;
+  const demo = structuredClone(demoDefinition);
+  if (only) {
+    demo.attributes = demo.attributes.filter((a) => only.includes(a.id));
+    demo.fixedAlternative!.levels = Object.fromEntries(
+      only.map((id) => [id, demo.fixedAlternative!.levels[id]]),
+    );
+  }
+  return studyDefinitionSchema.parse({ ...demo, ...rest });
 }

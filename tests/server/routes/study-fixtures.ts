@@ -3,8 +3,8 @@ import type supertest from 'supertest';
 import type { StudyDefinition } from '../../../shared/schemas/study-definition';
 import {
   makeStudyDefinition,
-  namedLevels,
   numericLevels,
+  riverRating,
 } from '../../../scripts/lib/study-factory/definition';
 import {
   createStudyThroughApi,
@@ -20,11 +20,7 @@ export function makeSmallDefinition(overrides: Partial<StudyDefinition> = {}): S
     only: ['bill', 'river'],
     attributes: {
       bill: { levels: numericLevels('b', [0, 5, 10], (v) => `€${v}`) },
-      river: {
-        name: 'River health rating',
-        referenceLevelId: 'poor',
-        levels: namedLevels(['Poor', 'Fair', 'Good']),
-      },
+      river: { ...riverRating(), referenceLevelId: 'poor' },
     },
     fixedAlternative: null,
   });

@@ -2,10 +2,11 @@
  * The one study-definition factory of the tests, the browser journeys and the benchmarks: the
  * invented Larkspur Valley Water scenario (README.md, the demo study) with overrides.
  *
- * It lives in scripts/lib, not tests/support, because benchmarks (scripts/) and journeys (e2e/)
- * use it as well as tests; nothing in the product (src/, server/, shared/, db/) imports
- * scripts/. This file imports only shared/, so it also runs in the browser bundle of
- * `bench:shares` and in Playwright without a database.
+ * It lives in scripts/lib, beside the other helpers that tests, journeys (e2e/) and benchmarks
+ * (scripts/) share, so that a benchmark does not depend on tests/; the product (src/, server/,
+ * shared/, db/) imports nothing from scripts/ (ESLint checks server/, shared/ and db/). This
+ * file imports only shared/ and the seed's pure demo definition, so it also runs in the browser
+ * bundle of `bench:shares` and in Playwright without a database.
  */
 import type { z } from 'zod';
 import {

@@ -12,7 +12,7 @@ type RespondentRow = typeof respondents.$inferInsert;
 type AnswerRow = typeof answers.$inferInsert;
 
 export type RespondentOverrides = Partial<
-  Omit<RespondentRow, 'id' | 'studyId' | 'versionId' | 'finishedAt'>
+  Omit<RespondentRow, 'studyId' | 'versionId' | 'finishedAt'>
 > & {
   studyId: string;
   versionId: string;

@@ -14,7 +14,7 @@ import { listStudyRespondents } from '../../../db/queries/study-respondents';
 import { eq } from 'drizzle-orm';
 import { respondents } from '../../../db/schema/fieldwork';
 import { parseChoiceCsv } from '../../../server/engine/estimation/parse-choice-csv';
-import { makeLarkspurDefinition } from '../../engine/coding/fixtures/larkspur-definition';
+import { makeStudyDefinition } from '../../../scripts/lib/study-factory/definition';
 import { createTestApp, type TestApp } from '../../support/test-app';
 import { createBareTeam } from '../../support/factories';
 import {
@@ -24,7 +24,7 @@ import {
   type SeededStudy,
 } from '../jobs/run-fixtures';
 
-const definition = makeLarkspurDefinition();
+const definition = makeStudyDefinition();
 const packageA = { bill: 'b6', interrupt: 'i2', warn: 'w0', river: 'good', renew: 'r80' };
 const packageB = { bill: 'b15', interrupt: 'i1', warn: 'w2', river: 'fair', renew: 'r50' };
 const holdoutAlts = [
@@ -125,7 +125,7 @@ describe('codeStudyAnswers', () => {
   });
 
   it('codes labeled alternatives with constants for all but the first label', () => {
-    const labeled = makeLarkspurDefinition({
+    const labeled = makeStudyDefinition({
       alternatives: {
         count: 2,
         labeled: true,
@@ -149,7 +149,7 @@ describe('codeStudyAnswers', () => {
   });
 
   it('codes an opt-out as zeros with its own constant', () => {
-    const optOut = makeLarkspurDefinition({
+    const optOut = makeStudyDefinition({
       fixedAlternative: { kind: 'opt_out', label: 'Neither package', levels: {} },
     });
     const prepared = codeStudyAnswers(
@@ -236,7 +236,7 @@ describe('codeStudyAnswers', () => {
     const v2 = makeVersion({
       id: 'v2',
       version: 2,
-      definition: makeLarkspurDefinition({ fixedAlternative: null }),
+      definition: makeStudyDefinition({ fixedAlternative: null }),
     });
     expect(() => codeStudyAnswers([makeVersion(), v2], [])).toThrow(StudyDataError);
   });

@@ -1,4 +1,4 @@
-import type { DesignDiagnostics } from '@server/engine/design/diagnostics/diagnose-design';
+import type { DesignDiagnostics } from '@shared/schemas/design-diagnostics';
 import { searchCriteria } from '../utils/criterion-names';
 
 const fmt = (v: number | null) => (v === null || !Number.isFinite(v) ? '—' : v.toPrecision(4));

@@ -1,4 +1,4 @@
-import type { DesignDiagnostics } from '@server/engine/design/diagnostics/diagnose-design';
+import type { DesignDiagnostics } from '@shared/schemas/design-diagnostics';
 import { Alert, Card } from '@/components/ui/feedback';
 import { ChoiceProbabilities, Correlations, SampleSizeGuide } from './diagnostics-details';
 import { RuleReportCard } from './rule-report-card';

@@ -12,17 +12,15 @@ import { HeaderCells } from '@/components/ui/header-cells';
 
 const when = (iso: string) => iso.slice(0, 16).replace('T', ' ');
 
-export function ResponsesTable({
-  teamId,
-  studyId,
-  list,
-  canManage,
-}: {
+/** What both views of the respondent list (this table, and cards on a phone) are given. */
+export type ResponseListViewProps = {
   teamId: string;
   studyId: string;
   list: ResponseList;
   canManage: boolean;
-}) {
+};
+
+export function ResponsesTable({ teamId, studyId, list, canManage }: ResponseListViewProps) {
   const personal = list.personalData;
   // The language column only when the study has several.
   const languages = list.languages.length > 1;

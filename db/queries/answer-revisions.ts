@@ -7,6 +7,7 @@ import { and, asc, eq, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { answerRevisions, answers } from '../schema/fieldwork';
 import { answerColumns } from './answers';
+import { answerFieldsOf } from './study-answers';
 
 export async function getCurrentAnswer(
   db: DbOrTx,
@@ -91,13 +92,7 @@ export async function replaceAnswer(
 export async function listRevisedAnswers(db: DbOrTx, params: { studyId: string }) {
   return db
     .select({
-      respondentId: answers.respondentId,
-      screenKey: answers.screenKey,
-      taskNumber: answers.taskNumber,
-      chosenAlternative: answers.chosenAlternative,
-      chosenPosition: answers.chosenPosition,
-      value: answers.value,
-      responseMs: answers.responseMs,
+      ...answerFieldsOf(answers),
       answeredAt: sql<Date>`coalesce(${answers.revisedAt}, ${answers.createdAt})`.mapWith(
         answers.createdAt,
       ),
@@ -112,13 +107,7 @@ export async function listRevisedAnswers(db: DbOrTx, params: { studyId: string }
 export async function listAnswerHistory(db: DbOrTx, params: { studyId: string }) {
   return db
     .select({
-      respondentId: answerRevisions.respondentId,
-      screenKey: answerRevisions.screenKey,
-      taskNumber: answerRevisions.taskNumber,
-      chosenAlternative: answerRevisions.chosenAlternative,
-      chosenPosition: answerRevisions.chosenPosition,
-      value: answerRevisions.value,
-      responseMs: answerRevisions.responseMs,
+      ...answerFieldsOf(answerRevisions),
       answeredAt: answerRevisions.answeredAt,
       replacedAt: answerRevisions.replacedAt,
     })

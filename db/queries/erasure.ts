@@ -167,14 +167,6 @@ export async function deleteInvitee(db: DbOrTx, params: { studyId: string; id: s
     .where(and(eq(invitees.id, params.id), eq(invitees.studyId, params.studyId)));
 }
 
-export async function countTombstones(db: DbOrTx, params: { studyId: string }) {
-  const [row] = await db
-    .select({ n: count() })
-    .from(respondentTombstones)
-    .where(eq(respondentTombstones.studyId, params.studyId));
-  return Number(row?.n ?? 0);
-}
-
 /** Forgets a study's tombstones (the demo seed, which re-simulates every respondent). */
 export async function deleteTombstones(db: DbOrTx, params: { studyId: string }) {
   await db.delete(respondentTombstones).where(eq(respondentTombstones.studyId, params.studyId));

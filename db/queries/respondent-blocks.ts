@@ -46,7 +46,7 @@ async function takeLeastFilled(
  * Creates the counter of a version that has none yet, counted from its respondents (for
  * versions frozen before the counters existed, or after resetBlockCounts).
  */
-export async function ensureBlockCounts(db: DbOrTx, params: { versionId: string; blocks: number }) {
+async function ensureBlockCounts(db: DbOrTx, params: { versionId: string; blocks: number }) {
   await db.execute(sql`
     insert into ${counts} (version_id, filling)
     select ${params.versionId}::uuid, array_agg((

@@ -222,20 +222,6 @@ export async function countCompletes(db: DbOrTx, params: { studyId: string }) {
   return Number(row?.n ?? 0);
 }
 
-/** The respondent's own study (the id comes from their link), as answers need it. */
-export async function getStudyForAnswers(db: DbOrTx, params: { id: string }) {
-  const [row] = await db
-    .select({
-      id: studies.id,
-      teamId: studies.teamId,
-      status: studies.status,
-      settings: studies.settings,
-    })
-    .from(studies)
-    .where(eq(studies.id, params.id));
-  return row ?? null;
-}
-
 /**
  * Everything saving an answer needs, in one round trip: the study behind the link, the
  * respondent holding the session token (null when the token is not theirs), and the screens

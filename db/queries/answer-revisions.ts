@@ -2,6 +2,8 @@
  * Revised answers: the current answer stays in `answers` (one row per respondent and screen),
  * every answer it replaced moves to `answer_revisions` with the time it was replaced. So an
  * answer is never lost and never counted twice.
+ * Tenant: a respondent's own answers by the respondent id their session token resolved
+ * (answers.ts); the study-wide downloads filter on the study, which the caller loaded for the team.
  */
 import { and, asc, eq, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';

@@ -1,4 +1,9 @@
-/** Design-generation jobs: one row per request, updated by the worker as it goes. */
+/**
+ * Design-generation jobs: one row per request, updated by the worker as it goes. Tenant: what a
+ * request reaches carries the team; the worker's functions (getDesignJobForWorker, claim,
+ * progress, finish, isDesignJobCancelRequested) take the job id from the job queue, which only the
+ * server writes, and the sweeps (failStale, listQueued, failQueued) cover every team on purpose.
+ */
 import { and, desc, eq, inArray, isNull, lt, sql, type SQL } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { designJobs } from '../schema/studies';

@@ -2,6 +2,7 @@
  * Erasure of one respondent: finding them (by number, invitee address or external id), what
  * their erasure removes, and the changes themselves. Callers run the changes in one
  * transaction; the study is part of every where-clause.
+ * Tenant: the study, which the caller loaded for the team.
  */
 import { and, count, eq, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';

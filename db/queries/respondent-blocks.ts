@@ -3,6 +3,8 @@
  * UPDATE reads the row's latest counts, takes the least-filled block (ties to the lowest
  * number) and stores the increment; concurrent session starts queue on that row for the
  * length of one statement, so blocks stay exactly balanced however many arrive at once.
+ * Tenant: the version id comes from the respondent's own study (their link); counters hold
+ * nothing personal.
  */
 import { sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';

@@ -1,4 +1,9 @@
-/** Respondents (one per answering session) and what the respondent link needs to find. */
+/**
+ * Respondents (one per answering session) and what the respondent link needs to find. Tenant:
+ * respondents have no team: the public id of the link, or the study the link found, is in every
+ * where-clause, with the session token, invitee or panel key; getRespondentAnswerState takes the
+ * id their session token resolved.
+ */
 import { and, count, eq, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { studies, studyVersions } from '../schema/studies';

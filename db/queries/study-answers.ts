@@ -6,7 +6,23 @@
  */
 import { and, asc, eq, isNotNull, like, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
-import { answers, respondents } from '../schema/fieldwork';
+import { answerRevisions, answers, respondents } from '../schema/fieldwork';
+
+/**
+ * What a respondent answered on a screen, from the current answers or from the replaced ones
+ * (answer_revisions has the same columns), for every read that lists answers.
+ */
+export function answerFieldsOf<T extends typeof answers | typeof answerRevisions>(t: T) {
+  return {
+    respondentId: t.respondentId,
+    screenKey: t.screenKey,
+    taskNumber: t.taskNumber,
+    chosenAlternative: t.chosenAlternative,
+    chosenPosition: t.chosenPosition,
+    value: t.value,
+    responseMs: t.responseMs,
+  };
+}
 
 /**
  * Every answered choice screen of the study (design, warm-up, holdout, repeat and dominance
@@ -17,15 +33,7 @@ import { answers, respondents } from '../schema/fieldwork';
  */
 export async function listChoiceAnswers(db: DbOrTx, params: { studyId: string }) {
   return db
-    .select({
-      respondentId: answers.respondentId,
-      screenKey: answers.screenKey,
-      taskNumber: answers.taskNumber,
-      chosenAlternative: answers.chosenAlternative,
-      chosenPosition: answers.chosenPosition,
-      responseMs: answers.responseMs,
-      value: answers.value,
-    })
+    .select(answerFieldsOf(answers))
     .from(answers)
     .innerJoin(respondents, eq(respondents.id, answers.respondentId))
     .where(and(eq(answers.studyId, params.studyId), isNotNull(answers.chosenAlternative)))

@@ -10,7 +10,8 @@
 import { randomUUID } from 'node:crypto';
 import http from 'node:http';
 import zlib from 'node:zlib';
-import { createSeededRandom } from '../../server/engine/design/seeded-random';
+import { createPrng, type Prng } from '../../server/engine/draws/prng';
+import { randomIndex } from '../../server/engine/draws/random-index';
 import type { RespondentScreen, RespondentSession } from '../../shared/schemas/respondent';
 
 export type LoadOptions = {
@@ -140,11 +141,11 @@ function postJson(
   });
 }
 
-function valueFor(screen: RespondentScreen, random: ReturnType<typeof createSeededRandom>) {
+function valueFor(screen: RespondentScreen, random: Prng) {
   if (screen.kind === 'consent') return { kind: 'consent', agreed: true };
   if (screen.kind === 'instructions') return { kind: 'ack' };
   if (screen.kind === 'task')
-    return { kind: 'choice', position: random.nextInt(screen.alternatives.length) };
+    return { kind: 'choice', position: randomIndex(random, screen.alternatives.length) };
   const q = screen.question;
   if (q.type === 'single') return { kind: 'single', optionId: q.options[0]?.id ?? null };
   if (q.type === 'multiple') return { kind: 'multiple', optionIds: [q.options[0].id] };
@@ -235,7 +236,7 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
 
   async function respondent(i: number) {
     const n = opts.firstRespondent + i;
-    const random = createSeededRandom(opts.seed * 100_003 + n);
+    const random = createPrng(opts.seed * 100_003 + n);
     await sleep((opts.rampMs * i) / Math.max(1, opts.respondents));
     const agent = phoneAgent();
     try {
@@ -245,11 +246,7 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
     }
   }
 
-  async function answerAll(
-    n: number,
-    random: ReturnType<typeof createSeededRandom>,
-    agent: http.Agent,
-  ) {
+  async function answerAll(n: number, random: Prng, agent: http.Agent) {
     const started = await send(
       n,
       '/sessions',
@@ -271,12 +268,12 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
     r.spans.push(span);
     const session = started.json as unknown as RespondentSession;
     for (const screen of session.screens) {
-      await sleep(opts.thinkMs * (0.5 + random.next()));
+      await sleep(opts.thinkMs * (0.5 + random.nextDouble()));
       const body = {
         clientId: randomUUID(),
         screenKey: screen.key,
         value: valueFor(screen, random),
-        responseMs: 2000 + random.nextInt(20_000),
+        responseMs: 2000 + randomIndex(random, 20_000),
       };
       const res = await send(n, '/answers', body, session.sessionToken, r.answerMs, agent);
       span[1] = Date.now() - r.startedAt;
@@ -298,7 +295,7 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
         screenKey: screen.key,
       });
       if (res.json.status !== 'in_progress') break;
-      if (random.next() < opts.retryShare) {
+      if (random.nextDouble() < opts.retryShare) {
         r.replaysAsked++;
         const again = await send(n, '/answers', body, session.sessionToken, r.answerMs, agent);
         if (again?.status === 200 && again.json.replay === true) r.replaysConfirmed++;

@@ -246,11 +246,7 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
     }
   }
 
-  async function answerAll(
-    n: number,
-    random: ReturnType<typeof createSeededRandom>,
-    agent: http.Agent,
-  ) {
+  async function answerAll(n: number, random: Prng, agent: http.Agent) {
     const started = await send(
       n,
       '/sessions',

@@ -22,16 +22,12 @@ import { buildCodingPlan } from '../../../shared/engine/coding/coding-plan';
 import { codeAlternative } from '../../../shared/engine/coding/code-alternative';
 import { estimationSpecSchema } from '../../../shared/schemas/estimation-spec';
 import type { RunDataOrder } from '../../../shared/schemas/run';
-import { makeLarkspurDefinition } from '../../engine/coding/fixtures/larkspur-definition';
-import {
-  FIXED_COEFFICIENTS,
-  TRUE_MNL,
-  makeRandomDesign,
-  mixedLogitSpec,
-} from '../jobs/run-fixtures';
+import { makeStudyDefinition } from '../../../scripts/lib/study-factory/definition';
+import { makeStudyDesign } from '../../../scripts/lib/study-factory/design';
+import { FIXED_COEFFICIENTS, TRUE_MNL, mixedLogitSpec } from '../jobs/run-fixtures';
 
-const definition = makeLarkspurDefinition();
-const design = makeRandomDesign(definition);
+const definition = makeStudyDefinition();
+const design = makeStudyDesign(definition);
 const version: VersionInput = {
   id: 'v1',
   version: 1,

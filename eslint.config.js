@@ -44,6 +44,12 @@ const featureBoundaries = features.map((feature) => ({
   },
 }));
 
+/** What the product's layers never import: the scripts, tests and journeys built around it. */
+const productOnly = {
+  group: ['**/scripts/**', '**/tests/**', '**/e2e/**'],
+  message: 'The product imports nothing from scripts/, tests/ or e2e/.',
+};
+
 export default tseslint.config(
   {
     ignores: [
@@ -116,10 +122,16 @@ export default tseslint.config(
         {
           patterns: [
             { group: ['**/server/**', '@server/**'], message: 'db/ imports nothing from server/.' },
+            productOnly,
           ],
         },
       ],
     },
+  },
+  {
+    // Test and benchmark support (such as the study factory in scripts/lib) stays out of the product.
+    files: ['server/**/*.ts', 'shared/**/*.ts'],
+    rules: { 'no-restricted-imports': ['error', { patterns: [productOnly] }] },
   },
   {
     // Config loaders, the seed's entry point, scripts and tests may read the environment directly.

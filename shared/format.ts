@@ -156,6 +156,10 @@ export function formatDuration(ms: number | null | undefined): string {
 const dateFormat = new Intl.DateTimeFormat(LOCALE, { dateStyle: 'medium' });
 const dateTimeFormat = new Intl.DateTimeFormat(LOCALE, { dateStyle: 'medium', timeStyle: 'short' });
 const timeFormat = new Intl.DateTimeFormat(LOCALE, { timeStyle: 'short' });
+const timestampFormat = new Intl.DateTimeFormat(LOCALE, {
+  dateStyle: 'medium',
+  timeStyle: 'medium',
+});
 
 const toDate = (at: string | Date | null | undefined): Date | null => {
   if (at === null || at === undefined || at === '') return null;
@@ -173,6 +177,12 @@ export function formatDate(at: string | Date | null | undefined): string {
 export function formatDateTime(at: string | Date | null | undefined): string {
   const d = toDate(at);
   return d ? dateTimeFormat.format(d) : MISSING;
+}
+
+/** A date and time to the second, where the order of close events matters (the audit trail). */
+export function formatTimestamp(at: string | Date | null | undefined): string {
+  const d = toDate(at);
+  return d ? timestampFormat.format(d) : MISSING;
 }
 
 /** The time of day alone, for "updated at" notes on a page that shows today's data: "16:44". */

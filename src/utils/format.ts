@@ -15,6 +15,7 @@ export {
   formatPValue,
   formatSignificant,
   formatTime,
+  formatTimestamp,
   getCurrencyCode,
   MINUS,
   MISSING,

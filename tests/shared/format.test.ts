@@ -9,6 +9,7 @@ import {
   formatPercent,
   formatPValue,
   formatSignificant,
+  formatTimestamp,
   getCurrencyCode,
 } from '../../shared/format';
 import { nameWithUnit } from '../../shared/engine/coding/coded-columns';
@@ -73,6 +74,10 @@ describe('dates', () => {
     expect(formatDate(at)).toBe('2 Dec 2026');
     expect(formatDateTime(at)).toBe('2 Dec 2026, 16:44');
     expect(formatDate('not a date')).toBe('—');
+  });
+  it('keeps the seconds in a timestamp', () => {
+    expect(formatTimestamp(new Date(2026, 11, 2, 16, 44, 5))).toBe('2 Dec 2026, 16:44:05');
+    expect(formatTimestamp(null)).toBe('—');
   });
 });
 

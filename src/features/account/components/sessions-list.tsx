@@ -7,9 +7,7 @@ import { Alert, Spinner } from '@/components/ui/feedback';
 import { useSessions } from '../api/get-sessions';
 import { useSignOutSession } from '../api/sign-out-session';
 import { useSignOutEverywhere } from '../api/sign-out-everywhere';
-
-const when = (iso: string) =>
-  new Date(iso).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' });
+import { formatDateTime } from '@/utils/format';
 
 export function SessionsList({ onSignedOutEverywhere }: { onSignedOutEverywhere: () => void }) {
   const sessions = useSessions();
@@ -41,14 +39,14 @@ export function SessionsList({ onSignedOutEverywhere }: { onSignedOutEverywhere:
                 )}
               </p>
               <p className="text-xs text-ink-muted">
-                Signed in {when(s.createdAt)} · last active {when(s.lastSeenAt)}
+                Signed in {formatDateTime(s.createdAt)} · last active {formatDateTime(s.lastSeenAt)}
               </p>
             </div>
             {!s.current && (
               <Button
                 variant="secondary"
                 size="sm"
-                aria-label={`Sign out ${s.device}, signed in ${when(s.createdAt)}`}
+                aria-label={`Sign out ${s.device}, signed in ${formatDateTime(s.createdAt)}`}
                 busy={signOut.isPending && signOut.variables === s.id}
                 onClick={() => signOut.mutate(s.id)}
               >

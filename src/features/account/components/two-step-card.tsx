@@ -27,6 +27,7 @@ import {
   useTwoStepStatus,
 } from '../api/two-step';
 import { RecoveryCodesPanel } from './recovery-codes-panel';
+import { formatDate } from '@/utils/format';
 
 /** The key in groups of four, as authenticator apps show it, for typing by hand. */
 const grouped = (secret: string) => secret.match(/.{1,4}/g)?.join(' ') ?? secret;
@@ -222,8 +223,8 @@ export function TwoStepCard() {
     <div className="space-y-4">
       <p className="text-sm text-ink-soft">
         <span className="font-medium text-success">On</span> since{' '}
-        {new Date(status.data.enabledAt!).toLocaleDateString(undefined, { dateStyle: 'medium' })}.
-        Signing in asks for a code from your authenticator app. {left} of 10 recovery codes left.
+        {formatDate(status.data.enabledAt)}. Signing in asks for a code from your authenticator app.{' '}
+        {left} of 10 recovery codes left.
       </p>
       {left <= 3 && (
         <Alert tone="warning">Few recovery codes are left: make new ones while you can.</Alert>

@@ -9,6 +9,7 @@ import { auditGroups } from '@shared/schemas/audit';
 import { auditQueryString, useAudit, type AuditFilters } from '../api/get-audit';
 import { describeAuditEvent } from '../utils/describe-event';
 import { HeaderCells } from '@/components/ui/header-cells';
+import { formatTimestamp } from '@/utils/format';
 
 const groupLabels: Record<(typeof auditGroups)[number], string> = {
   auth: 'Sign-ins and passwords',
@@ -20,9 +21,6 @@ const groupLabels: Record<(typeof auditGroups)[number], string> = {
   export: 'Personal-data downloads',
   audit: 'Audit downloads',
 };
-
-const when = (iso: string) =>
-  new Date(iso).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'medium' });
 
 /** yyyy-mm-dd from a date input → the start (or end) of that day, as ISO with offset. */
 const dayBound = (day: string, end: boolean) =>
@@ -125,7 +123,7 @@ export function AuditLog({
               <li key={e.id} className="px-3 py-2 text-sm">
                 <p className="text-ink">{describeAuditEvent(e)}</p>
                 <p className="text-xs text-ink-muted">
-                  {e.actorEmail ?? 'System or unknown'} · {when(e.at)}
+                  {e.actorEmail ?? 'System or unknown'} · {formatTimestamp(e.at)}
                 </p>
               </li>
             ))}
@@ -142,7 +140,7 @@ export function AuditLog({
                 {events.map((e) => (
                   <tr key={e.id}>
                     <td className="whitespace-nowrap px-3 py-2 font-mono tabular-nums text-ink-soft">
-                      {when(e.at)}
+                      {formatTimestamp(e.at)}
                     </td>
                     <td className="px-3 py-2">{e.actorEmail ?? 'System or unknown'}</td>
                     <td className="px-3 py-2">{describeAuditEvent(e)}</td>

@@ -12,9 +12,9 @@ import { useDeleteInvitee } from '../api/delete-invitee';
 import { MailStatus } from './mail-status';
 import { InviteeStateBadge, inviteeStateOptions } from './invitee-state-badge';
 import { HeaderCells } from '@/components/ui/header-cells';
+import { formatDate } from '@/utils/format';
 
 const PAGE_SIZE = 25;
-const day = (iso: string | null) => (iso ? iso.slice(0, 10) : '—');
 
 export function InviteeTable({
   teamId,
@@ -115,7 +115,7 @@ export function InviteeTable({
                   <td className="max-w-64 px-3 py-1.5">
                     <MailStatus mail={i.mail} />
                   </td>
-                  <td className="num px-3 py-1.5">{day(i.invitedAt)}</td>
+                  <td className="num px-3 py-1.5">{formatDate(i.invitedAt)}</td>
                   <td className="num px-3 py-1.5">{i.reminderCount}</td>
                   {canManage && (
                     <td className="px-3 py-1 text-right">

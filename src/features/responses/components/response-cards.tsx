@@ -5,7 +5,7 @@
 import type { ResponseListViewProps } from './responses-table';
 import { FlagBadges } from './flag-badges';
 import { InclusionCell } from './inclusion-cell';
-import { formatDuration } from '@/utils/format';
+import { formatDate, formatDuration } from '@/utils/format';
 import { statusLabels } from '../utils/labels';
 
 export function ResponseCards({ teamId, studyId, list, canManage }: ResponseListViewProps) {
@@ -31,7 +31,7 @@ export function ResponseCards({ teamId, studyId, list, canManage }: ResponseList
             <span className="text-ink-muted">
               {' '}
               · version {r.version} · block {r.block}
-              {list.languages.length > 1 && ` · ${r.language}`} · {r.startedAt.slice(0, 10)}
+              {list.languages.length > 1 && ` · ${r.language}`} · {formatDate(r.startedAt)}
             </span>
           </p>
           {list.personalData && (r.externalId || r.email) && (

@@ -5,12 +5,10 @@
 import type { ResponseList } from '@shared/schemas/responses';
 import { FlagBadges } from './flag-badges';
 import { InclusionCell } from './inclusion-cell';
-import { formatDuration } from '@/utils/format';
+import { formatDateTime, formatDuration } from '@/utils/format';
 import { statusLabels } from '../utils/labels';
 import { languageName } from '@shared/languages/language-tags';
 import { HeaderCells } from '@/components/ui/header-cells';
-
-const when = (iso: string) => iso.slice(0, 16).replace('T', ' ');
 
 /** What both views of the respondent list (this table, and cards on a phone) are given. */
 export type ResponseListViewProps = {
@@ -57,7 +55,7 @@ export function ResponsesTable({ teamId, studyId, list, canManage }: ResponseLis
             >
               <th scope="row" className="px-3 py-2 text-left font-normal">
                 <span className="font-mono text-xs">{r.id.slice(0, 8)}</span>
-                <span className="block text-xs text-ink-muted">{when(r.startedAt)}</span>
+                <span className="block text-xs text-ink-muted">{formatDateTime(r.startedAt)}</span>
               </th>
               <td className="px-3 py-2">{statusLabels[r.status]}</td>
               <td className="num px-3 py-2">

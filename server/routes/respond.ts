@@ -4,7 +4,7 @@
  * another session or survey finds nothing (404). Starting sessions is rate-limited per address
  * and per personal link; every session-bound request per session token.
  */
-import { Router, type Request } from 'express';
+import { Router, type Request, type Response } from 'express';
 import type { AppDeps } from '../deps';
 import { parseBody } from '../middleware/validate';
 import {
@@ -67,25 +67,22 @@ export function createRespondRouter(deps: AppDeps): Router {
     const publicId = publicIdOf(req);
     res.json(await sessions.getSession(deps, publicId, tokenOf(req)));
   });
-  router.post('/answers', perSession, async (req, res) => {
-    const publicId = publicIdOf(req);
-    const token = tokenOf(req);
-    const input = parseBody(submitAnswerSchema, req);
-    const receipt = await submitAnswer(deps, publicId, token, input);
-    res.status(receipt.replay ? 200 : 201).json(receipt);
-  });
+  /** An answer or a revision: 201 when stored, 200 when it replays one already stored. */
+  const answerRoute =
+    (save: typeof submitAnswer | typeof reviseAnswer) => async (req: Request, res: Response) => {
+      const publicId = publicIdOf(req);
+      const token = tokenOf(req);
+      const input = parseBody(submitAnswerSchema, req);
+      const receipt = await save(deps, publicId, token, input);
+      res.status(receipt.replay ? 200 : 201).json(receipt);
+    };
+  router.post('/answers', perSession, answerRoute(submitAnswer));
   router.post('/language', perSession, async (req, res) => {
     const publicId = publicIdOf(req);
     const token = tokenOf(req);
     // The session is checked before the body: another session's token is a 404 whatever it sends.
     res.json(await chooseLanguage(deps, publicId, token, req.body));
   });
-  router.post('/revisions', perSession, async (req, res) => {
-    const publicId = publicIdOf(req);
-    const token = tokenOf(req);
-    const input = parseBody(submitAnswerSchema, req);
-    const receipt = await reviseAnswer(deps, publicId, token, input);
-    res.status(receipt.replay ? 200 : 201).json(receipt);
-  });
+  router.post('/revisions', perSession, answerRoute(reviseAnswer));
   return router;
 }

@@ -267,38 +267,34 @@ async function claimAndMail(
   };
 }
 
-export async function sendInvitations(
+type SendArgs = [deps: AppDeps, teamId: string, studyId: string, input: SendInvitationsInput];
+
+/** Invitations to those not yet invited, or reminders to those invited but not finished. */
+async function sendToInvitees(
   deps: AppDeps,
   teamId: string,
   studyId: string,
   input: SendInvitationsInput,
+  kind: 'invitation' | 'reminder',
 ): Promise<SendResult> {
   const study = await loadLiveStudy(deps, teamId, studyId);
   const scope = mailScope(study, teamId, input);
   const now = new Date();
-  return claimAndMail(deps, scope, 'invitation', input, (tx) =>
-    claimForInvitation(tx, { studyId, ids: input.inviteeIds, now }),
+  const ids = input.inviteeIds;
+  return claimAndMail(deps, scope, kind, input, (tx) =>
+    kind === 'invitation'
+      ? claimForInvitation(tx, { studyId, ids, now })
+      : claimForReminder(tx, {
+          studyId,
+          ids,
+          now,
+          notSince: new Date(now.getTime() - REMINDER_MIN_INTERVAL_MS),
+        }),
   );
 }
 
-export async function sendReminders(
-  deps: AppDeps,
-  teamId: string,
-  studyId: string,
-  input: SendInvitationsInput,
-): Promise<SendResult> {
-  const study = await loadLiveStudy(deps, teamId, studyId);
-  const scope = mailScope(study, teamId, input);
-  const now = new Date();
-  return claimAndMail(deps, scope, 'reminder', input, (tx) =>
-    claimForReminder(tx, {
-      studyId,
-      ids: input.inviteeIds,
-      now,
-      notSince: new Date(now.getTime() - REMINDER_MIN_INTERVAL_MS),
-    }),
-  );
-}
+export const sendInvitations = (...args: SendArgs) => sendToInvitees(...args, 'invitation');
+export const sendReminders = (...args: SendArgs) => sendToInvitees(...args, 'reminder');
 
 export function maskEmail(email: string): string {
   const at = email.lastIndexOf('@');

@@ -4,21 +4,11 @@
  * five-number summary (for box plots) and a histogram on bin edges shared by every group (so
  * overlaid histograms are comparable). Pure; the use case that loads the values is in tastes.ts.
  */
+import { quantile } from '../../shared/engine/stats/quantile';
+import type { SegmentGroup } from '../../shared/schemas/tastes';
 
-export interface SegmentSummary {
-  key: string;
-  count: number;
-  mean: number;
-  /** Sample SD (n − 1 denominator); null with fewer than 2 values. */
-  sd: number | null;
-  min: number;
-  q1: number;
-  median: number;
-  q3: number;
-  max: number;
-  /** Counts per bin of the shared edges. */
-  histogram: number[];
-}
+/** One group's summary, as the Tastes screen receives it less the group's label. */
+export type SegmentSummary = Omit<SegmentGroup, 'label'>;
 
 export interface SegmentsSummary {
   /** Bin edges (bins + 1 values), equal width over the pooled range. */
@@ -32,10 +22,7 @@ export interface SegmentsSummary {
  */
 export function getQuantile(sorted: readonly number[], p: number): number {
   if (sorted.length === 0) throw new RangeError('no values');
-  const h = (sorted.length - 1) * p;
-  const lo = Math.floor(h);
-  const hi = Math.min(lo + 1, sorted.length - 1);
-  return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
+  return quantile(sorted, p);
 }
 
 /** Sturges' rule (1926): ⌈log₂ n⌉ + 1 bins, kept between 5 and 30 for readable charts. */

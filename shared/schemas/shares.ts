@@ -5,6 +5,7 @@
  */
 import { z } from 'zod';
 import { elementIdSchema, type StudyDefinition } from './study-definition';
+import { groupByFields, refineGroupBy } from './tastes';
 
 export const scenarioAlternativeSchema = z.object({
   name: z.string().trim().min(1, 'Name the alternative').max(60),
@@ -178,21 +179,8 @@ export const shareModelQuerySchema = z.object({ runId: z.uuid('Choose a finished
 
 /** Segments of the share model's respondents (GET …/shares/groups). */
 export const shareGroupsQuerySchema = z
-  .object({
-    runId: z.uuid('Choose a finished run'),
-    groupBy: z.enum(['task', 'question', 'class']),
-    task: z.coerce.number().int().min(1).max(2000).optional(),
-    question: z
-      .string()
-      .regex(/^[a-z][a-z0-9_]{0,39}$/, 'Unknown question')
-      .optional(),
-  })
-  .superRefine((q, ctx) => {
-    if (q.groupBy === 'task' && q.task === undefined)
-      ctx.addIssue({ code: 'custom', path: ['task'], message: 'Choose a task' });
-    if (q.groupBy === 'question' && q.question === undefined)
-      ctx.addIssue({ code: 'custom', path: ['question'], message: 'Choose a question' });
-  });
+  .object({ runId: z.uuid('Choose a finished run'), ...groupByFields })
+  .superRefine(refineGroupBy);
 export type ShareGroupsQuery = z.output<typeof shareGroupsQuerySchema>;
 
 /** Respondents of the share model by segment: `of[n]` indexes `groups` (−1: in none). */

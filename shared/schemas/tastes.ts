@@ -74,25 +74,39 @@ export type TasteComparison = {
 
 export const tastesRunQuerySchema = z.object({ runId: z.uuid('Choose a finished run') });
 
+/**
+ * How respondents are split into groups (Tastes segments, Shares segments): by the alternative
+ * chosen in a task, the answer to a background question, or (latent class runs only) the
+ * likeliest class.
+ */
+export const groupByFields = {
+  groupBy: z.enum(['task', 'question', 'class']),
+  task: z.coerce.number().int().min(1).max(2000).optional(),
+  question: z
+    .string()
+    .regex(/^[a-z][a-z0-9_]{0,39}$/, 'Unknown question')
+    .optional(),
+};
+
+/** A task or question grouping names its task or question. */
+export function refineGroupBy(
+  q: { groupBy: 'task' | 'question' | 'class'; task?: number; question?: string },
+  ctx: z.RefinementCtx,
+): void {
+  if (q.groupBy === 'task' && q.task === undefined)
+    ctx.addIssue({ code: 'custom', path: ['task'], message: 'Choose a task' });
+  if (q.groupBy === 'question' && q.question === undefined)
+    ctx.addIssue({ code: 'custom', path: ['question'], message: 'Choose a question' });
+}
+
 export const segmentsQuerySchema = z
   .object({
     runId: z.uuid('Choose a finished run'),
     coefficient: coefficientName,
-    /** 'class': the likeliest latent class (latent class runs only). */
-    groupBy: z.enum(['task', 'question', 'class']),
-    task: z.coerce.number().int().min(1).max(2000).optional(),
-    question: z
-      .string()
-      .regex(/^[a-z][a-z0-9_]{0,39}$/, 'Unknown question')
-      .optional(),
+    ...groupByFields,
     bins: z.coerce.number().int().min(3).max(60).optional(),
   })
-  .superRefine((q, ctx) => {
-    if (q.groupBy === 'task' && q.task === undefined)
-      ctx.addIssue({ code: 'custom', path: ['task'], message: 'Choose a task' });
-    if (q.groupBy === 'question' && q.question === undefined)
-      ctx.addIssue({ code: 'custom', path: ['question'], message: 'Choose a question' });
-  });
+  .superRefine(refineGroupBy);
 export type SegmentsQuery = z.output<typeof segmentsQuerySchema>;
 
 export const respondentProfileParamsSchema = z.object({
@@ -186,12 +200,14 @@ export type SegmentGroup = {
   label: string;
   count: number;
   mean: number;
+  /** Sample SD (n − 1 denominator); null with fewer than 2 values. */
   sd: number | null;
   min: number;
   q1: number;
   median: number;
   q3: number;
   max: number;
+  /** Counts per bin of the edges every group shares. */
   histogram: number[];
 };
 

@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { createHash } from 'node:crypto';
 import {
   codeStudyAnswers,
@@ -12,14 +12,9 @@ import type { VersionInput } from '../../../server/services/estimation/code-answ
 import { StudyDataError } from '../../../server/services/estimation/study-data-error';
 import { parseChoiceCsv } from '../../../server/engine/estimation/parse-choice-csv';
 import { makeLarkspurDefinition } from '../../engine/coding/fixtures/larkspur-definition';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { createBareTeam } from '../../support/factories';
-import {
-  ignoreTeardownErrors,
-  seedRunStudy,
-  seedTapFilter,
-  type SeededStudy,
-} from '../jobs/run-fixtures';
+import { seedRunStudy, seedTapFilter, type SeededStudy } from '../jobs/run-fixtures';
 
 const definition = makeLarkspurDefinition();
 const packageA = { bill: 'b6', interrupt: 'i2', warn: 'w0', river: 'good', renew: 'r80' };
@@ -254,16 +249,11 @@ describe('toLongCsvRows', () => {
 });
 
 describe('loadStudyChoiceData', () => {
-  let t: TestApp;
+  const t = useTestApp();
   let seeded: SeededStudy;
   beforeAll(async () => {
-    t = await createTestApp();
-    ignoreTeardownErrors(t.deps.db);
     const team = await createBareTeam(t);
     seeded = await seedRunStudy(t.deps.db, { teamId: team.id, respondents: 10 });
-  });
-  afterAll(async () => {
-    await t.close();
   });
 
   it('uses only included, completed respondents', async () => {

@@ -1,8 +1,8 @@
 #!/usr/bin/env bash
 # Every test, from a fresh machine: installs what is missing (npm ci, PostgreSQL and Chromium
 # from Debian's packages), then typecheck, lint, format check, the production build and vitest's
-# unit project (no database) side by side, vitest's API project (real PostgreSQL), and the
-# Playwright journeys in Debian's Chromium. Prints the time of every stage (and of each job of a
+# unit project (no database) side by side, then vitest's API project (real PostgreSQL) beside
+# the Playwright journeys in Debian's Chromium. Prints the time of every stage (and of each job of a
 # parallel stage) at the end.
 set -euo pipefail
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
@@ -38,6 +38,10 @@ stage "audit, typecheck, lint, format, build, unit tests" parallel \
   "format" "npx prettier --check . --log-level warn" \
   "build" "npx vite build --logLevel warn" \
   "vitest unit project (no database)" "npx vitest run --project unit"
-stage "vitest API project (PostgreSQL)" npx vitest run --project api
-stage "end-to-end journeys (Playwright, Debian chromium)" npx playwright test
+# The API project and the journeys need different things (the API project: PostgreSQL and
+# Node; the journeys: Chromium and one server of the built app, with databases of their own),
+# so each fills the other's waits; one after the other they left a core idle much of the time.
+stage "vitest API project, end-to-end journeys" parallel \
+  "vitest API project (PostgreSQL)" "npx vitest run --project api" \
+  "end-to-end journeys (Playwright, Debian chromium)" "npx playwright test"
 echo "== all tests passed"

@@ -34,6 +34,11 @@ const envSchema = z.object({
     .default('true')
     .transform((v) => v === 'true'),
   WORKER_THREADS: z.coerce.number().int().min(1).max(64).default(2),
+  /**
+   * Least time between two saved checkpoints of a mixed logit run, in ms: what a worker restart
+   * can lose at most (0 = after every iteration; each save writes the optimiser's state).
+   */
+  RUN_CHECKPOINT_EVERY_MS: z.coerce.number().int().min(0).max(600_000).default(5_000),
   /** Mixed-logit kernel: auto (WebAssembly SIMD when it can run), simd, or typescript. */
   ESTIMATION_KERNEL: z.enum(['auto', 'simd', 'typescript']).default('auto'),
   /** Engine memory one estimation run may need; larger specifications are refused before queuing. */

@@ -271,6 +271,7 @@ export function createEstimationJobKind() {
     handle: async (data, { deps }) =>
       runEstimationJob(deps, data.runId, {
         pool: (pool ??= createEstimationPool({ nice: deps.env.ENGINE_THREAD_NICE })),
+        checkpointEveryMs: deps.env.RUN_CHECKPOINT_EVERY_MS,
       }),
     sweep: async (deps, queue) => {
       await sweepStaleRuns(deps, Date.now(), queue ?? deps.jobs ?? null);

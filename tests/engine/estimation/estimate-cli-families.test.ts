@@ -1,34 +1,10 @@
 /** The command line with the hierarchical Bayes and latent class families (scripts/estimate.ts). */
-import { spawnSync } from 'node:child_process';
-import { mkdtempSync, writeFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
-import { tmpdir } from 'node:os';
-import path from 'node:path';
-import { pathToFileURL } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { estimationResultSchema } from '../../../shared/schemas/estimation-spec';
 import { simulateTwoClasses } from '../latent-class/latent-class-fixture';
+import { runCli, scratchFiles } from './estimate-cli-harness';
 
-const root = path.resolve(import.meta.dirname, '../../..');
-const tsx = pathToFileURL(createRequire(import.meta.url).resolve('tsx')).href;
-const dir = mkdtempSync(path.join(tmpdir(), 'cw-families-'));
-
-function runCli(args: string[]) {
-  return spawnSync(
-    process.execPath,
-    ['--import', tsx, path.join(root, 'scripts/estimate.ts'), '--quiet', ...args],
-    {
-      encoding: 'utf8',
-      cwd: root,
-      timeout: 180_000,
-    },
-  );
-}
-const file = (name: string, content: string) => {
-  const f = path.join(dir, name);
-  writeFileSync(f, content);
-  return f;
-};
+const file = scratchFiles('cw-families-');
 
 const sim = simulateTwoClasses(120, 6, 3);
 const csv = (filter: (x: number, respondent: number) => number) =>
@@ -46,7 +22,7 @@ const dataFile = file(
 const coefficients = [{ name: 'river' }, { name: 'outages' }, { name: 'bill' }];
 
 describe('npm run estimate with model "hb"', () => {
-  it('writes individuals with the mixed logit shape plus intervals, and diagnostics', () => {
+  it('writes individuals with the mixed logit shape plus intervals, and diagnostics', async () => {
     const spec = {
       model: 'hb',
       coefficients: [
@@ -58,7 +34,7 @@ describe('npm run estimate with model "hb"', () => {
       cost: 'bill',
       mcmc: { iterations: 600, burnin: 300, thin: 3, chains: 2, seed: 5 },
     };
-    const run = runCli([
+    const run = await runCli([
       '--data',
       dataFile,
       '--spec',
@@ -97,7 +73,7 @@ describe('npm run estimate with model "hb"', () => {
 });
 
 describe('npm run estimate with model "latent_class"', () => {
-  it('writes classes, the class-count table and per-respondent class probabilities', () => {
+  it('writes classes, the class-count table and per-respondent class probabilities', async () => {
     const spec = {
       model: 'latent_class',
       coefficients,
@@ -106,7 +82,7 @@ describe('npm run estimate with model "latent_class"', () => {
       membership: ['filters_water'],
       cost: 'bill',
     };
-    const run = runCli(['--data', dataFile, '--spec', file('lc.json', JSON.stringify(spec))]);
+    const run = await runCli(['--data', dataFile, '--spec', file('lc.json', JSON.stringify(spec))]);
     expect(run.stderr).toBe('');
     expect(run.status).toBe(0);
     const result = estimationResultSchema.parse(JSON.parse(run.stdout));
@@ -173,8 +149,8 @@ describe('npm run estimate with model "latent_class"', () => {
     ],
   ];
   for (const [what, args, status, message] of bad) {
-    it(`refuses ${what} with exit code ${status}`, () => {
-      const run = runCli(args());
+    it(`refuses ${what} with exit code ${status}`, async () => {
+      const run = await runCli(args());
       expect(run.status).toBe(status);
       expect(run.stderr).toMatch(message);
     });

@@ -1,31 +1,11 @@
-import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
-import { tmpdir } from 'node:os';
+import { readFileSync } from 'node:fs';
 import path from 'node:path';
-import { pathToFileURL } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { estimationResultSchema } from '../../../shared/schemas/estimation-spec';
 import { simulatePanelChoices } from '../../../server/engine/estimation/simulate-panel-choices';
+import { runCli, scratchFiles, spawnCli } from './estimate-cli-harness';
 
-const root = path.resolve(import.meta.dirname, '../../..');
-const script = path.join(root, 'scripts/estimate.ts');
-const tsx = pathToFileURL(createRequire(import.meta.url).resolve('tsx')).href;
-const dir = mkdtempSync(path.join(tmpdir(), 'cw-estimate-'));
-
-function runCli(args: string[]) {
-  return spawnSync(process.execPath, ['--import', tsx, script, '--quiet', ...args], {
-    encoding: 'utf8',
-    cwd: root,
-    timeout: 120_000,
-  });
-}
-
-function writeFile(name: string, content: string): string {
-  const file = path.join(dir, name);
-  writeFileSync(file, content);
-  return file;
-}
+const writeFile = scratchFiles('cw-estimate-');
 
 const sim = simulatePanelChoices({
   respondents: 60,
@@ -50,6 +30,7 @@ const csv = [
   ),
 ].join('\n');
 const dataFile = writeFile('choices.csv', csv);
+const dir = path.dirname(dataFile);
 const mixedSpec = {
   model: 'mixed',
   coefficients: [
@@ -64,10 +45,10 @@ const mixedSpec = {
 };
 
 describe('npm run estimate (scripts/estimate.ts)', () => {
-  it('fits a mixed logit and writes the documented result JSON', () => {
+  it('fits a mixed logit and writes the documented result JSON (as its own process)', () => {
     const specFile = writeFile('spec.json', JSON.stringify(mixedSpec));
     const outFile = path.join(dir, 'result.json');
-    const run = runCli(['--data', dataFile, '--spec', specFile, '--out', outFile]);
+    const run = spawnCli(['--data', dataFile, '--spec', specFile, '--out', outFile]);
     expect(run.stderr).toBe('');
     expect(run.status).toBe(0);
     const result = estimationResultSchema.parse(JSON.parse(readFileSync(outFile, 'utf8')));
@@ -86,7 +67,7 @@ describe('npm run estimate (scripts/estimate.ts)', () => {
     expect(result.loglik).toBeGreaterThan(result.loglikNull);
   });
 
-  it('keeps tasks flagged in a holdout column apart and reports the holdout hit rate', () => {
+  it('keeps tasks flagged in a holdout column apart and reports the holdout hit rate', async () => {
     const withHoldout = [
       'respondent,task,alt,chosen,river,bill,holdout',
       ...sim.rows.map(
@@ -98,7 +79,7 @@ describe('npm run estimate (scripts/estimate.ts)', () => {
       'mnl-holdout.json',
       JSON.stringify({ model: 'mnl', coefficients: [{ name: 'river' }, { name: 'bill' }] }),
     );
-    const run = runCli(['--data', writeFile('holdout.csv', withHoldout), '--spec', specFile]);
+    const run = await runCli(['--data', writeFile('holdout.csv', withHoldout), '--spec', specFile]);
     expect(run.status).toBe(0);
     const result = estimationResultSchema.parse(JSON.parse(run.stdout));
     expect(result.observations).toBe(300);
@@ -106,7 +87,7 @@ describe('npm run estimate (scripts/estimate.ts)', () => {
     expect(result.holdoutHitRate! * 60).toBeCloseTo(Math.round(result.holdoutHitRate! * 60), 9);
   });
 
-  it('fits an MNL and prints to stdout without --out', () => {
+  it('fits an MNL and prints to stdout without --out', async () => {
     const specFile = writeFile(
       'mnl.json',
       JSON.stringify({
@@ -115,7 +96,7 @@ describe('npm run estimate (scripts/estimate.ts)', () => {
         cost: 'bill',
       }),
     );
-    const run = runCli(['--data', dataFile, '--spec', specFile]);
+    const run = await runCli(['--data', dataFile, '--spec', specFile]);
     expect(run.status).toBe(0);
     const result = estimationResultSchema.parse(JSON.parse(run.stdout));
     expect(result.model).toBe('mnl');
@@ -212,13 +193,23 @@ describe('npm run estimate (scripts/estimate.ts)', () => {
     ],
   ];
 
-  it.each(badCases)('exits with code 2 and names the problem for %s', (_label, args, message) => {
-    const run = runCli(args());
+  it.each(badCases)(
+    'exits with code 2 and names the problem for %s',
+    async (_label, args, message) => {
+      const run = await runCli(args());
+      expect(run.status).toBe(2);
+      expect(run.stderr).toMatch(message);
+    },
+  );
+
+  it('sets the process exit code 2 and writes the message to stderr (as its own process)', () => {
+    const run = spawnCli(['--data', dataFile]);
     expect(run.status).toBe(2);
-    expect(run.stderr).toMatch(message);
+    expect(run.stderr).toMatch(/usage/);
+    expect(run.stdout).toBe('');
   });
 
-  it('exits with code 3 when a column never varies within a task (not identified)', () => {
+  it('exits with code 3 when a column never varies within a task (not identified)', async () => {
     const flat = [
       'respondent,task,alt,chosen,river,bill,flat',
       ...sim.rows.map(
@@ -229,7 +220,7 @@ describe('npm run estimate (scripts/estimate.ts)', () => {
       'flat.json',
       JSON.stringify({ model: 'mnl', coefficients: [{ name: 'river' }, { name: 'flat' }] }),
     );
-    const run = runCli(['--data', writeFile('flat.csv', flat), '--spec', spec]);
+    const run = await runCli(['--data', writeFile('flat.csv', flat), '--spec', spec]);
     expect(run.status).toBe(3);
     expect(run.stderr).toMatch(/flat never varies/);
   });

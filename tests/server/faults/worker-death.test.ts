@@ -47,6 +47,8 @@ function startWorker(): ServerProcess {
       SMTP_PORT: String(t.deps.env.SMTP_PORT),
       WORKER_THREADS: '1',
       ENGINE_THREAD_NICE: '0',
+      // A checkpoint after every iteration, so that a short run can be killed after one.
+      RUN_CHECKPOINT_EVERY_MS: '0',
     },
   });
   workers.push(worker);
@@ -59,8 +61,9 @@ const heartbeatOf = (row: RunRow) =>
 describe('a worker killed during an estimation', () => {
   it('leaves a run that the sweep queues again and the next worker resumes from its checkpoint', async () => {
     const first = startWorker();
-    // Long enough to be killed mid-run on a fast machine too (tens of seconds on one thread).
-    const spec = mixedLogitSpec(10_000, 5, true);
+    // Long enough to be killed mid-run, after its first iteration, on a fast machine too (some
+    // seconds on one thread).
+    const spec = mixedLogitSpec(2_000, 5, true);
     const slow = await t.team.agents.analyst.post(base).send({ spec }).expect(201);
     const saved = await waitFor(
       () => getRunCheckpoint(t.deps.db, { runId: slow.body.id }),

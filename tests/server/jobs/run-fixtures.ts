@@ -112,11 +112,21 @@ export type SeededStudy = {
   versionId: string;
   definition: StudyDefinition;
   design: Design;
-  /** Completed, included respondents in id order. */
+  /** Completed, included respondents in id order, which is the order they were simulated in. */
   respondentIds: string[];
   excludedId: string;
   unfinishedId: string;
 };
+
+/**
+ * The n-th simulated respondent's id: the study's id with n in the last group, so that id order
+ * is simulation order and a test that picks respondents by position picks the same people (with
+ * random ids, which respondents a test picked varied from run to run against the simulated
+ * classes).
+ */
+export function respondentIdOf(studyId: string, n: number): string {
+  return `${studyId.slice(0, 24)}${(n + 1).toString(16).padStart(12, '0')}`;
+}
 
 /** Picks an alternative with logit probabilities by adding Gumbel errors. */
 function choose(utilities: number[], prng: ReturnType<typeof createPrng>): number {
@@ -194,6 +204,7 @@ export async function seedRunStudy(
     const [r] = await db
       .insert(respondents)
       .values({
+        id: respondentIdOf(study.id, n),
         studyId: study.id,
         versionId: version.id,
         sessionToken: randomBytes(12).toString('hex'),

@@ -1,0 +1,52 @@
+/**
+ * Two ways to run the command-line estimator in tests: in-process through runEstimateCli (what
+ * most cases need: the exit code and the messages), and as the real command in its own process
+ * (for the process's own exit code, streams and files; each start costs seconds of TypeScript
+ * loading, so only a few tests do it).
+ */
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { runEstimateCli } from '../../../scripts/lib/estimate-cli';
+
+const root = path.resolve(import.meta.dirname, '../../..');
+const tsx = pathToFileURL(createRequire(import.meta.url).resolve('tsx')).href;
+
+export interface CliRun {
+  status: number | null;
+  stdout: string;
+  stderr: string;
+}
+
+/** `npm run estimate -- --quiet …` in this process. */
+export async function runCli(args: string[]): Promise<CliRun> {
+  let stdout = '';
+  let stderr = '';
+  const status = await runEstimateCli(['--quiet', ...args], {
+    stdout: (text) => (stdout += text),
+    stderr: (text) => (stderr += text),
+  });
+  return { status, stdout, stderr };
+}
+
+/** `npm run estimate -- --quiet …` as its own process. */
+export function spawnCli(args: string[]): CliRun {
+  return spawnSync(
+    process.execPath,
+    ['--import', tsx, path.join(root, 'scripts/estimate.ts'), '--quiet', ...args],
+    { encoding: 'utf8', cwd: root, timeout: 180_000 },
+  );
+}
+
+/** A scratch folder and a writer of files into it. */
+export function scratchFiles(prefix: string): (name: string, content: string) => string {
+  const dir = mkdtempSync(path.join(tmpdir(), prefix));
+  return (name, content) => {
+    const file = path.join(dir, name);
+    writeFileSync(file, content);
+    return file;
+  };
+}

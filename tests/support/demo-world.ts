@@ -20,11 +20,6 @@ export type DemoWorld = {
 
 export async function seedDemoWorld(): Promise<DemoWorld> {
   const t = await createTestApp();
-  // The pool may see the database dropped under an idle connection at the end.
-  (t.deps.db as unknown as { $client: { on(e: 'error', f: () => void): void } }).$client.on(
-    'error',
-    () => {},
-  );
   const team = await insertTeam(t.deps.db, { name: 'Larkspur Valley Water' });
   const owner = await insertUser(t.deps.db, {
     email: 'owner@larkspur.example.test',

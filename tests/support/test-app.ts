@@ -5,7 +5,7 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { afterAll, beforeAll } from 'vitest';
+import { afterAll, beforeAll, beforeEach } from 'vitest';
 import supertest from 'supertest';
 import type { Express } from 'express';
 import type { DestinationStream } from 'pino';
@@ -103,7 +103,11 @@ export type UseTestAppOptions<S extends SignIn> = Omit<TestAppOptions, 'viaProxy
   dataDir?: boolean;
   /** The real pg-boss queue on the file's database as the app's `jobs` (`t.queue`). */
   jobQueue?: { work: boolean; kinds?: () => RegisteredJobKind[] };
+  /** The app's jobs are only kept, in `t.sent` (emptied before each test), never run. */
+  recordJobs?: boolean;
 };
+/** A job the app sent while `recordJobs` held it. */
+export type SentJob = { name: string; data: { runId?: string } & Record<string, unknown> };
 type SignIn = 'owner' | 'team' | undefined;
 type SignedIn<S extends SignIn> = S extends 'owner'
   ? { owner: supertest.Agent; teamId: string }
@@ -111,7 +115,7 @@ type SignedIn<S extends SignIn> = S extends 'owner'
     ? { team: Team }
     : unknown;
 export type FileTestApp<S extends SignIn = undefined> = TestApp &
-  SignedIn<S> & { proxy: TcpProxy; dataDir: string; queue: JobQueue };
+  SignedIn<S> & { proxy: TcpProxy; dataDir: string; queue: JobQueue; sent: SentJob[] };
 
 /**
  * The usual set-up of an API test file: one test app for the whole file, created before its
@@ -124,7 +128,7 @@ export function useTestApp<S extends SignIn = undefined>(
   overrides: Record<string, string> = {},
   options: UseTestAppOptions<S> = {},
 ): FileTestApp<S> {
-  const { signIn, faultProxy, dataDir, jobQueue, ...appOptions } = options;
+  const { signIn, faultProxy, dataDir, jobQueue, recordJobs, ...appOptions } = options;
   const t = {} as FileTestApp<'owner'> & FileTestApp<'team'>;
   beforeAll(async () => {
     if (faultProxy) {
@@ -142,6 +146,16 @@ export function useTestApp<S extends SignIn = undefined>(
       t.deps.jobs = t.queue;
     }
   });
+  if (recordJobs)
+    beforeEach(() => {
+      const sent: SentJob[] = [];
+      t.sent = sent;
+      t.deps.jobs = {
+        send: async (name, data) => {
+          sent.push({ name, data: data as SentJob['data'] });
+        },
+      };
+    });
   afterAll(async () => {
     await t.queue?.stop();
     await t.close?.();

@@ -4,7 +4,7 @@
  * or class probabilities beside the profile, and reports progress as iterations or starts; their
  * exports carry the family's per-respondent columns and a methods sheet.
  */
-import { beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { parse } from 'csv-parse/sync';
 import { downloadXlsx } from '../../support/download-xlsx';
 import { useTestApp } from '../../support/test-app';
@@ -13,7 +13,7 @@ import { runEstimationJob } from '../../../server/jobs/estimation-job';
 import { seedRunStudy, type SeededStudy } from './run-fixtures';
 import { scenarioLevels } from '../routes/tastes-fixture';
 
-const t = useTestApp({}, { signIn: 'team' });
+const t = useTestApp({}, { signIn: 'team', recordJobs: true });
 let study: SeededStudy;
 let base: string;
 const done: Record<string, string> = {};
@@ -29,9 +29,6 @@ beforeAll(async () => {
   study = await seedRunStudy(t.deps.db, { teamId: t.team.teamId, respondents: 80 });
   base = `/api/teams/${t.team.teamId}/studies/${study.studyId}/runs`;
 }, 180_000);
-beforeEach(() => {
-  t.deps.jobs = { send: async () => undefined };
-});
 
 describe('HB run through the job', () => {
   it('ends done with diagnostics, sampler settings and per-respondent intervals', async () => {

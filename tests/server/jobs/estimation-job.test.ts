@@ -4,7 +4,7 @@
  * running run; a run left running by a dead worker is queued again by the sweep and started
  * again (an MNL keeps no checkpoint), or failed once it has lost its worker too often.
  */
-import { beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { useTestApp } from '../../support/test-app';
 import { runs } from '../../../db/schema/models';
@@ -19,24 +19,15 @@ import {
 } from '../../../server/jobs/stale-run-sweep';
 import { seedRunStudy, TRUE_MNL, type SeededStudy } from './run-fixtures';
 
-const t = useTestApp({}, { signIn: 'team' });
+const t = useTestApp({}, { signIn: 'team', recordJobs: true });
 let study: SeededStudy;
 let base: string;
-let sent: string[];
 
 const allColumns = Object.keys(TRUE_MNL).map((key, k) => ({ name: `b${k}`, column: key }));
 
 beforeAll(async () => {
   study = await seedRunStudy(t.deps.db, { teamId: t.team.teamId, respondents: 80 });
   base = `/api/teams/${t.team.teamId}/studies/${study.studyId}/runs`;
-});
-beforeEach(() => {
-  sent = [];
-  t.deps.jobs = {
-    send: async (_name, data) => {
-      sent.push((data as { runId: string }).runId);
-    },
-  };
 });
 
 describe('estimation job', () => {
@@ -45,7 +36,7 @@ describe('estimation job', () => {
       .post(base)
       .send({ spec: { model: 'mnl', coefficients: allColumns, cost: 'b0' } })
       .expect(201);
-    await runEstimationJob(t.deps, sent[0], { threads: 1 });
+    await runEstimationJob(t.deps, t.sent[0].data.runId!, { threads: 1 });
     const run = (await t.team.agents.viewer.get(`${base}/${res.body.id}`).expect(200)).body;
     expect(run.status).toBe('done');
     expect(run.error).toBeNull();
@@ -217,7 +208,7 @@ describe('stale-run sweep (worker crash)', () => {
     expect(swept.resumed).toContain(dead);
     expect(swept.failed).toContain(deadTooOften);
     expect([...swept.resumed, ...swept.failed]).not.toContain(alive);
-    expect(sent.filter((id) => id === dead)).toHaveLength(2); // created, then queued again
+    expect(t.sent.filter((s) => s.data.runId === dead)).toHaveLength(2); // created, then queued again
     expect(await getRunForJob(t.deps.db, { id: dead })).toMatchObject({ status: 'queued' });
     const failedRow = await getRunForJob(t.deps.db, { id: deadTooOften });
     expect(failedRow).toMatchObject({ status: 'failed', error: WORKER_LOST_ERROR });

@@ -20,18 +20,12 @@ import { runEstimationJob } from '../../../server/jobs/estimation-job';
 import { STALE_RUN_MS, sweepStaleRuns } from '../../../server/jobs/stale-run-sweep';
 import { mixedLogitSpec, seedRunStudy } from './run-fixtures';
 
-const t = useTestApp({}, { signIn: 'team' });
+const t = useTestApp({}, { signIn: 'team', recordJobs: true });
 let base: string;
-const sent: string[] = [];
 
 beforeAll(async () => {
   const study = await seedRunStudy(t.deps.db, { teamId: t.team.teamId, respondents: 80 });
   base = `/api/teams/${t.team.teamId}/studies/${study.studyId}/runs`;
-  t.deps.jobs = {
-    send: async (_name, data) => {
-      sent.push((data as { runId: string }).runId);
-    },
-  };
 }, 60_000);
 
 async function startRun(): Promise<string> {
@@ -64,7 +58,7 @@ describe('a mixed logit whose worker is lost after a checkpoint', () => {
     );
     const swept = await sweepStaleRuns(t.deps, Date.now() + STALE_RUN_MS + 1_000);
     expect(swept).toEqual({ resumed: [id], failed: [] });
-    expect(sent.filter((s) => s === id)).toHaveLength(2); // created, then queued again
+    expect(t.sent.filter((s) => s.data.runId === id)).toHaveLength(2); // created, then queued again
     await first; // it noticed that it lost the run, and stopped
     const between = await getRunForJob(t.deps.db, { id });
     expect(between).toMatchObject({ status: 'queued', attempts: 1, results: null });

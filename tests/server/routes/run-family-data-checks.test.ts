@@ -4,16 +4,15 @@
  * respondents can identify. Feasible runs of the same study are still queued (membership
  * questions: run-membership.test.ts).
  */
-import { beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { and, eq, gt } from 'drizzle-orm';
 import { useTestApp } from '../../support/test-app';
 import { answers } from '../../../db/schema/fieldwork';
 import { FIXED_COEFFICIENTS, seedRunStudy, type SeededStudy } from '../jobs/run-fixtures';
 
-const t = useTestApp({}, { signIn: 'team' });
+const t = useTestApp({}, { signIn: 'team', recordJobs: true });
 let study: SeededStudy;
 let base: string;
-let sent = 0;
 
 const coefficients = FIXED_COEFFICIENTS;
 
@@ -22,15 +21,6 @@ beforeAll(async () => {
   study = await seedRunStudy(t.deps.db, { teamId: t.team.teamId, respondents: 15 });
   base = `/api/teams/${t.team.teamId}/studies/${study.studyId}/runs`;
 }, 120_000);
-beforeEach(() => {
-  sent = 0;
-  t.deps.jobs = {
-    send: async () => {
-      sent++;
-      return undefined;
-    },
-  };
-});
 
 const listRuns = async () => (await t.team.agents.viewer.get(base).expect(200)).body as unknown[];
 
@@ -46,7 +36,7 @@ describe('latent class: classes the data can identify', () => {
     expect(res.body.error.message).toMatch(
       /2 classes need .* at least 20 respondents; the data have 15/,
     );
-    expect(sent).toBe(0);
+    expect(t.sent).toHaveLength(0);
     expect(await listRuns()).toHaveLength(before);
   });
 
@@ -55,7 +45,7 @@ describe('latent class: classes the data can identify', () => {
       .post(base)
       .send({ spec: { model: 'latent_class', coefficients, classes: 1 } })
       .expect(201);
-    expect(sent).toBe(1);
+    expect(t.sent).toHaveLength(1);
   });
 });
 
@@ -71,7 +61,7 @@ describe('hierarchical Bayes: choice tasks per respondent', () => {
 
   it('queues HB when every respondent has 8 tasks', async () => {
     await t.team.agents.analyst.post(base).send({ spec: hb }).expect(201);
-    expect(sent).toBe(1);
+    expect(t.sent).toHaveLength(1);
   });
 
   it('refuses HB on the model field once one respondent has only 2 tasks', async () => {
@@ -91,6 +81,6 @@ describe('hierarchical Bayes: choice tasks per respondent', () => {
     expect(res.body.error.message).toMatch(
       /at least 3 choice tasks per respondent.*1 of 15 respondents have fewer/,
     );
-    expect(sent).toBe(0);
+    expect(t.sent).toHaveLength(0);
   });
 });

@@ -1,13 +1,12 @@
-import { beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import type supertest from 'supertest';
 import { useTestApp } from '../../support/test-app';
 import type { Role } from '../../../shared/permissions';
 import { listRuns } from '../../../db/queries/runs';
 import { seedRunStudy, seedTapFilter, type SeededStudy } from '../jobs/run-fixtures';
 
-const t = useTestApp({}, { signIn: 'team' });
+const t = useTestApp({}, { signIn: 'team', recordJobs: true });
 let study: SeededStudy;
-let sent: { name: string; data: object }[];
 let base: string;
 
 const mnlSpec = {
@@ -23,14 +22,6 @@ const mnlSpec = {
 beforeAll(async () => {
   study = await seedRunStudy(t.deps.db, { teamId: t.team.teamId, respondents: 6 });
   base = `/api/teams/${t.team.teamId}/studies/${study.studyId}/runs`;
-});
-beforeEach(() => {
-  sent = [];
-  t.deps.jobs = {
-    send: async (name, data) => {
-      sent.push({ name, data });
-    },
-  };
 });
 
 const start = (agent: supertest.Agent, body: object = { spec: mnlSpec }) =>
@@ -48,7 +39,7 @@ describe('POST /runs', () => {
         respondents: { filterId: null },
       });
       expect(res.body.spec.coefficients[0]).toMatchObject({ name: 'bill', column: 'attr:bill' });
-      expect(sent).toEqual([{ name: 'estimation-run', data: { runId: res.body.id } }]);
+      expect(t.sent).toEqual([{ name: 'estimation-run', data: { runId: res.body.id } }]);
     },
   );
 
@@ -59,7 +50,7 @@ describe('POST /runs', () => {
     expect(res.body.error.code).toBe('forbidden');
     const after = await listRuns(t.deps.db, { teamId: t.team.teamId, studyId: study.studyId });
     expect(after).toHaveLength(before);
-    expect(sent).toEqual([]);
+    expect(t.sent).toEqual([]);
   });
 
   it('for someone outside the team, returns 404', async () => {
@@ -86,7 +77,7 @@ describe('POST /runs', () => {
     expect(res2.body.error.fields[0].path).toBe('spec.draws.count');
     const after = await listRuns(t.deps.db, { teamId: t.team.teamId, studyId: study.studyId });
     expect(after).toHaveLength(before);
-    expect(sent).toEqual([]);
+    expect(t.sent).toEqual([]);
   });
 
   it('when a coefficient names a column the study does not have, returns 400 with the field', async () => {
@@ -96,7 +87,7 @@ describe('POST /runs', () => {
     expect(res.body.error.fields).toEqual([
       { path: 'spec.coefficients.0.column', message: 'The study has no coded column attr:nothing' },
     ]);
-    expect(sent).toEqual([]);
+    expect(t.sent).toEqual([]);
   });
 
   it('accepts column codes as well as keys, and a saved filter', async () => {
@@ -140,7 +131,7 @@ describe('POST /runs', () => {
       expect(res.body.error.fields[0].path).toBe('spec.draws.count');
       const after = await listRuns(t.deps.db, { teamId: t.team.teamId, studyId: study.studyId });
       expect(after).toHaveLength(before.length);
-      expect(sent).toEqual([]);
+      expect(t.sent).toEqual([]);
     } finally {
       t.deps.env.ESTIMATION_MEMORY_LIMIT_MB = limit;
     }

@@ -5,7 +5,7 @@ import { respondents, answers } from '../../../db/schema/fieldwork';
 import { studies } from '../../../db/schema/studies';
 import { closeDueStudies } from '../../../server/services/lifecycle';
 import {
-  answerFor,
+  completeRespondent,
   definition,
   fullQuestionnaire,
   insertInvitee,
@@ -215,16 +215,7 @@ describe('close, return to draft and reopen', () => {
   it('when the quota is already reached, reopening lists it as a problem', async () => {
     const s = await insertStudy(t, t.team.teamId, { settings: { quotaCompletes: 1 } });
     const live = (await t.team.agents.editor.post(url(s.id, '/go-live')).expect(200)).body;
-    const session = (
-      await t.request().post(`/api/r/${live.publicId}/sessions`).send({}).expect(201)
-    ).body;
-    for (const screen of session.screens)
-      await t
-        .request()
-        .post(`/api/r/${live.publicId}/answers`)
-        .set('x-respondent-token', session.sessionToken)
-        .send(answerFor(screen))
-        .expect(201);
+    await completeRespondent(t, live.publicId);
     const state = (await t.team.agents.viewer.get(url(s.id)).expect(200)).body;
     expect(state).toMatchObject({
       status: 'closed',
@@ -289,16 +280,7 @@ describe('PATCH /lifecycle/settings and the periodic close check', () => {
   it('closes at the quota in the periodic check too', async () => {
     const s = await insertStudy(t, t.team.teamId);
     const live = (await t.team.agents.editor.post(url(s.id, '/go-live')).expect(200)).body;
-    const session = (
-      await t.request().post(`/api/r/${live.publicId}/sessions`).send({}).expect(201)
-    ).body;
-    for (const screen of session.screens)
-      await t
-        .request()
-        .post(`/api/r/${live.publicId}/answers`)
-        .set('x-respondent-token', session.sessionToken)
-        .send(answerFor(screen))
-        .expect(201);
+    const session = await completeRespondent(t, live.publicId);
     await t.team.agents.editor
       .patch(url(s.id, '/settings'))
       .send({ quotaCompletes: 1 })

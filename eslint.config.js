@@ -8,6 +8,11 @@ import { readdirSync } from 'node:fs';
 // (components, lib, hooks, config, utils) import no feature; route modules in src/app compose
 // features. The one exception: a feature's query-key factory (api/<name>-keys.ts) is public,
 // because a mutation invalidates what it changed in other features' caches.
+// The client gets from the server only what the API sends; types both sides use live in shared/.
+const clientOnly = {
+  group: ['@server/**', '@db/**', '**/server/**', '**/db/**'],
+  message: 'The client imports nothing from server/ or db/; share types through shared/schemas.',
+};
 const features = readdirSync(`${import.meta.dirname}/src/features`, { withFileTypes: true })
   .filter((d) => d.isDirectory())
   .map((d) => d.name);
@@ -32,11 +37,18 @@ const featureBoundaries = features.map((feature) => ({
             group: ['**/app/**', '@/app/**'],
             message: 'Features do not import the app shell or route modules.',
           },
+          clientOnly,
         ],
       },
     ],
   },
 }));
+
+/** What the product's layers never import: the scripts, tests and journeys built around it. */
+const productOnly = {
+  group: ['**/scripts/**', '**/tests/**', '**/e2e/**'],
+  message: 'The product imports nothing from scripts/, tests/ or e2e/.',
+};
 
 export default tseslint.config(
   {
@@ -77,6 +89,11 @@ export default tseslint.config(
     files: ['tests/{server,db,support}/**/*.ts'],
     rules: { 'react-hooks/rules-of-hooks': 'off' },
   },
+  {
+    // The app shell, route modules and entry points compose features but stay client code.
+    files: ['src/app/**/*.{ts,tsx}', 'src/*.{ts,tsx}'],
+    rules: { 'no-restricted-imports': ['error', { patterns: [clientOnly] }] },
+  },
   ...featureBoundaries,
   {
     files: ['src/{components,lib,hooks,config,utils}/**/*.{ts,tsx}'],
@@ -89,6 +106,7 @@ export default tseslint.config(
               group: ['@/features/**', '**/features/**', '@/app/**', '**/app/**'],
               message: 'Shared layers import no feature and no route module.',
             },
+            clientOnly,
           ],
         },
       ],
@@ -104,10 +122,16 @@ export default tseslint.config(
         {
           patterns: [
             { group: ['**/server/**', '@server/**'], message: 'db/ imports nothing from server/.' },
+            productOnly,
           ],
         },
       ],
     },
+  },
+  {
+    // Test and benchmark support (such as the study factory in scripts/lib) stays out of the product.
+    files: ['server/**/*.ts', 'shared/**/*.ts'],
+    rules: { 'no-restricted-imports': ['error', { patterns: [productOnly] }] },
   },
   {
     // Config loaders, the seed's entry point, scripts and tests may read the environment directly.

@@ -9,8 +9,8 @@ import { readFile } from 'node:fs/promises';
 import { expect, request as playwrightRequest, test } from '@playwright/test';
 import { e2eBaseUrl } from '../playwright.config';
 import { signIn } from './support/auth';
-import { demoEditor, larkspurDefinition, signInEditor } from './support/live-study';
-import { demoQuestionnaire } from '../shared/schemas/questionnaire-defaults';
+import { demoEditor, larkspurDefinition, playwrightCall, signInEditor } from './support/live-study';
+import { createStudyThroughApi } from '../scripts/lib/study-factory/api-study';
 
 test('an editor adds German, fixes the missing text go-live names, and a respondent answers in German', async ({
   page,
@@ -21,24 +21,12 @@ test('an editor adds German, fixes the missing text go-live names, and a respond
     extraHTTPHeaders: { Origin: e2eBaseUrl },
   });
   const teamId = await signInEditor(api);
-  const created = await api.post(`/api/teams/${teamId}/studies`, {
-    data: { name: `Languages e2e ${Date.now()}` },
+  // A draft with its design and the demo questionnaire, in English only so far.
+  const study = await createStudyThroughApi(playwrightCall(api), teamId, {
+    name: `Languages e2e ${Date.now()}`,
+    definition: larkspurDefinition,
+    designJob: { method: 'random', tasks: 8, blocks: 2, seed: 5 },
   });
-  const study = await created.json();
-  const base = `/api/teams/${teamId}/studies/${study.id}`;
-  expect(
-    (await api.put(`${base}/definition`, { data: { definition: larkspurDefinition } })).ok(),
-  ).toBe(true);
-  await api.post(`${base}/design/jobs`, {
-    data: { method: 'random', tasks: 8, blocks: 2, seed: 5 },
-  });
-  await expect
-    .poll(async () => (await (await api.get(`${base}/design`)).json()).design !== null, {
-      timeout: 60_000,
-    })
-    .toBe(true);
-  const questionnaire = demoQuestionnaire(larkspurDefinition);
-  expect((await api.put(`${base}/questionnaire`, { data: { questionnaire } })).ok()).toBe(true);
 
   await test.step('the editor adds German on Questionnaire → Languages', async () => {
     await signIn(page, demoEditor());

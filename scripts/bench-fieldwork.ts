@@ -15,7 +15,8 @@
  *
  * Usage: npm run bench:fieldwork [-- --respondents 500] [-- --ramp 5] [-- --think 400]
  *        [-- --port 5281] [-- --pool <connections>] [-- --compare-with <dir>] [-- --socket]
- *        [-- --client-processes 2] [-- --json]
+ *        [-- --client-processes 2] [-- --instances 2] [-- --json]
+ * `--instances N`: the server runs N web processes on its port (WEB_INSTANCES).
  * `--socket`: the servers reach PostgreSQL through its Unix socket, as README advises when the
  * database runs on the same host (TCP on loopback costs more CPU per query).
  */
@@ -25,7 +26,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { createDb } from '../db/client';
 import { adminUrl, createScratchDatabase } from './lib/scratch-db';
-import { startProcess, waitForHealth } from './lib/server-process';
+import { startProcess, waitForHealth, type ServerProcess } from './lib/server-process';
 import { runLoadClient } from './lib/load-client-process';
 import type { LoadResult } from './lib/respondent-load';
 import { fullLoadWindow, latencySummary, sampleLoadAverage } from './lib/load-stats';
@@ -37,6 +38,8 @@ import {
 } from './lib/bench-study';
 import { seedScratchDemo, startDemoMixedRun, waitForRun } from './lib/bench-demo-run';
 import { measureCpu } from './lib/process-cpu';
+import { measureTcp } from './lib/tcp-counters';
+import { askEventLoopDelay } from '../server/lib/event-loop-delay';
 import type pg from 'pg';
 
 const args = process.argv.slice(2);
@@ -53,6 +56,8 @@ const PORT = arg('port', 5281);
 const POOL = arg('pool', 0);
 /** Load processes the simulated respondents are spread over (each outside the server). */
 const CLIENT_PROCESSES = arg('client-processes', 1);
+/** Web processes of the benchmarked server (WEB_INSTANCES); the baseline checkout gets the same setting. */
+const INSTANCES = arg('instances', 1);
 /** Servers reach PostgreSQL through its Unix socket instead of TCP (same host only). */
 const SOCKET = args.includes('--socket');
 const RETRY_SHARE = 0.1;
@@ -70,10 +75,13 @@ async function measure(
   base: string,
   publicId: string,
   first: number,
-  cpu: { serverPid: number; pool: pg.Pool; database: string },
+  cpu: { server: ServerProcess; pool: pg.Pool; database: string },
 ) {
   const load = sampleLoadAverage(os.loadavg);
-  const cpuTime = await measureCpu(cpu.serverPid, cpu.pool, cpu.database);
+  const cpuTime = await measureCpu(cpu.server.pid, cpu.pool, cpu.database);
+  // Asking resets the server's histogram, so the answer after the load covers this phase.
+  await askEventLoopDelay(cpu.server.child);
+  const tcp = measureTcp(PORT);
   const r: LoadResult = await runLoadClient(
     {
       bases: [base],
@@ -89,7 +97,17 @@ async function measure(
     CLIENT_PROCESSES,
   );
   const seconds = (r.endedAt - r.startedAt) / 1000;
-  return { r, seconds, loadAverage1m: load.stop(), cpuMs: await cpuTime.stop() };
+  const eventLoopDelay = (await askEventLoopDelay(cpu.server.child)) ?? {
+    unavailable: 'this checkout does not report its event-loop delay',
+  };
+  return {
+    r,
+    seconds,
+    loadAverage1m: load.stop(),
+    cpuMs: await cpuTime.stop(),
+    tcp: tcp.stop(),
+    eventLoopDelay,
+  };
 }
 
 /** CPU milliseconds per request (session starts and answers, re-sent ones included). */
@@ -131,6 +149,9 @@ function phaseFigures(p: Phase) {
     networkErrors: p.r.networkErrors,
     unexpected: p.r.errorsOther.length,
     unsent: p.r.unsent,
+    // Node accepts one connection per turn of its event loop: a long turn queues new phones.
+    serverEventLoopDelayMs: p.eventLoopDelay,
+    tcp: p.tcp,
     cpu: cpuPerRequest(p),
     loadAverage1m: p.loadAverage1m,
   };
@@ -170,6 +191,7 @@ async function main() {
       JWT_SECRET: randomBytes(32).toString('hex'),
       DATA_DIR: work,
       EMBEDDED_WORKER: 'true',
+      WEB_INSTANCES: String(INSTANCES),
       ...(POOL > 0 ? { DB_POOL_SIZE: String(POOL) } : {}),
       // No mail in this benchmark: nothing listens there.
       SMTP_PORT: '9',
@@ -186,10 +208,7 @@ async function main() {
       });
       try {
         await waitForHealth(base);
-        baseline = await measure(base, publicId, 2 * RESPONDENTS, {
-          ...cpuOf,
-          serverPid: other.pid,
-        });
+        baseline = await measure(base, publicId, 2 * RESPONDENTS, { ...cpuOf, server: other });
       } finally {
         await other.stop();
       }
@@ -203,7 +222,7 @@ async function main() {
     log(`  server pid ${server.pid} healthy after ${startupSeconds.toFixed(1)} s`);
 
     log(`  load 1: ${RESPONDENTS} respondents, machine otherwise idle…`);
-    const cpu = { ...cpuOf, serverPid: server.pid };
+    const cpu = { ...cpuOf, server };
     const idle = await measure(base, publicId, 0, cpu);
 
     log('  starting a panel mixed logit on the demo study…');
@@ -228,6 +247,7 @@ async function main() {
       dbPoolSize: POOL > 0 ? POOL : 'server default',
       databaseConnection: SOCKET ? 'unix socket' : 'tcp',
       thinkMs: THINK_MS,
+      webInstances: INSTANCES,
       answersPerSecond: phaseFigures(idle).answersPerSecond,
       answersPerSecondAtFullLoad: phaseFigures(idle).fullLoad.answersPerSecond,
       answerP99Ms: idleP99,
@@ -236,6 +256,9 @@ async function main() {
       answersDuplicated: counts.duplicated,
       answerP99WhileEstimatingMs: busyP99,
       estimatingOverIdleP99: Number((busyP99 / idleP99).toFixed(2)),
+      serverEventLoopDelayMs: idle.eventLoopDelay,
+      listenOverflows: 'unavailable' in idle.tcp ? null : idle.tcp.listenOverflows,
+      synRetransmits: 'unavailable' in idle.tcp ? null : idle.tcp.synRetransmits,
       idle: phaseFigures(idle),
       whileEstimating: {
         ...phaseFigures(busy),
@@ -263,7 +286,7 @@ async function main() {
         ['while estimating', result.whileEstimating],
       ] as const)
         log(
-          `  ${name.padEnd(17)} ${p.answersPerSecond} answers/s (all answering: ${p.fullLoad.answersPerSecond ?? '–'}, peak ${p.fullLoad.peakRespondentsAnswering} at once) · answer p50 ${p.answerLatencyMs.p50} p99 ${p.answerLatencyMs.p99} ms · session start p99 ${p.sessionStartLatencyMs.p99} ms · CPU per request: server ${p.cpu.serverMsPerRequest} ms, PostgreSQL ${p.cpu.databaseMsPerRequest} ms, load client ${p.cpu.loadClientMsPerRequest} ms · load ${p.loadAverage1m.mean}`,
+          `  ${name.padEnd(17)} ${p.answersPerSecond} answers/s (all answering: ${p.fullLoad.answersPerSecond ?? '–'}, peak ${p.fullLoad.peakRespondentsAnswering} at once) · answer p50 ${p.answerLatencyMs.p50} p99 ${p.answerLatencyMs.p99} ms · session start p99 ${p.sessionStartLatencyMs.p99} ms · CPU per request: server ${p.cpu.serverMsPerRequest} ms, PostgreSQL ${p.cpu.databaseMsPerRequest} ms, load client ${p.cpu.loadClientMsPerRequest} ms · event-loop delay p99 ${'p99Ms' in p.serverEventLoopDelayMs ? p.serverEventLoopDelayMs.p99Ms : '–'} ms · listen overflows ${'listenOverflows' in p.tcp ? p.tcp.listenOverflows : '–'} · load ${p.loadAverage1m.mean}`,
         );
       log(
         `  reconciliation   sent ${counts.sent}, stored ${counts.stored}, lost ${counts.lost}, duplicated ${counts.duplicated}`,

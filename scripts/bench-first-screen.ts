@@ -21,7 +21,7 @@ import pg from 'pg';
 import { chromium } from 'playwright-core';
 import { createDb, migrateDb } from '../db/client';
 import { databaseUrl, dropDatabase } from '../tests/support/template-db';
-import { createFirstScreenStudy } from './bench-first-screen-study';
+import { createDemoStudy } from './lib/study-factory/demo-study';
 
 const args = process.argv.slice(2);
 const asJson = args.includes('--json');
@@ -185,7 +185,8 @@ async function main() {
   let browser: import('playwright-core').Browser | null = null;
   try {
     await migrateDb(db);
-    const { publicId } = await createFirstScreenStudy(db);
+    // The demo study with its questionnaire, live: what a new installation's respondents open.
+    const { publicId } = await createDemoStudy(db, { teamName: 'Bench team', live: true });
     await pool.end();
     const port = await freePort();
     const base = `http://127.0.0.1:${port}`;

@@ -35,6 +35,11 @@ const envSchema = z.object({
     .transform((v) => v === 'true'),
   WORKER_THREADS: z.coerce.number().int().min(1).max(64).default(2),
   /**
+   * Web processes sharing PORT on this machine (server/web-cluster.ts); only the first runs
+   * the embedded job worker.
+   */
+  WEB_INSTANCES: z.coerce.number().int().min(1).max(64).default(1),
+  /**
    * Least time between two saved checkpoints of a mixed logit run, in ms: what a worker restart
    * can lose at most (0 = after every iteration; each save writes the optimiser's state).
    */

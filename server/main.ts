@@ -2,34 +2,70 @@
  * The web process: validates configuration, migrates the database, listens. With
  * EMBEDDED_WORKER=true (the default for a single machine) it also works off the job queue,
  * with design and estimation on worker threads, never on this thread; more workers can run
- * elsewhere with `npm run worker`.
+ * elsewhere with `npm run worker`. With WEB_INSTANCES > 1 this process migrates, then runs
+ * that many web processes on the same port and supervises them (server/web-cluster.ts).
  */
-import { loadEnv } from './env';
-import { createLogger } from './lib/logger';
+import cluster from 'node:cluster';
+import { loadEnv, type Env } from './env';
+import { createLogger, type Logger } from './lib/logger';
 import { createProcessDb } from './lib/database';
 import { installProcessGuards } from './lib/process-guards';
 import { stopOnSignals } from './lib/stop-on-signals';
-import { migrateDb } from '../db/client';
+import { reportEventLoopDelay, relayEventLoopDelay } from './lib/event-loop-delay';
+import { createHttpServer, listenHttp } from './lib/http-listen';
+import { retryWhileDatabaseUnavailable } from './lib/db-retry';
+import { migrateDb, type Db } from '../db/client';
 import { createMailer } from './mail/mailer';
 import { createApp } from './app';
 import { startBackgroundServices } from './jobs/background';
+import { startWebCluster } from './web-cluster';
+
+/** Migrates, waiting out a database that is slow to accept connections (a busy or restarting server). */
+function migrate(db: Db, logger: Logger) {
+  return retryWhileDatabaseUnavailable(() => migrateDb(db), {
+    onRetry: (err) =>
+      logger.warn({ message: (err as Error).message }, 'database unreachable; migrating again'),
+  });
+}
+
+async function runPrimary(env: Env, logger: Logger) {
+  installProcessGuards(logger, 'web cluster primary');
+  // Migrate once, before any web process starts (migrateDb holds one connection for its lock
+  // and migrates on another).
+  const { db, pool } = createProcessDb(env, logger, {
+    max: 2,
+    applicationName: 'choicewright-web-primary',
+  });
+  await migrate(db, logger);
+  await pool.end();
+  const webCluster = startWebCluster({
+    instances: env.WEB_INSTANCES,
+    embeddedWorker: env.EMBEDDED_WORKER,
+    logger,
+  });
+  relayEventLoopDelay(() => webCluster.workers());
+  logger.info({ pid: process.pid, instances: env.WEB_INSTANCES }, 'web processes starting');
+  stopOnSignals(logger, 'stopping the web processes', [() => webCluster.stop()]);
+}
 
 async function main() {
   const env = loadEnv();
   const logger = createLogger(env.LOG_LEVEL);
+  if (env.WEB_INSTANCES > 1 && cluster.isPrimary) return runPrimary(env, logger);
   installProcessGuards(logger, 'web process');
   const { db, pool } = createProcessDb(env, logger, { applicationName: 'choicewright-web' });
-  await migrateDb(db);
+  if (cluster.isPrimary) await migrate(db, logger);
   const mailer = createMailer(env);
   const deps = { env, db, logger, mailer };
   const app = createApp(deps);
   const stopBackground = await startBackgroundServices(deps, {
     embeddedWorker: env.EMBEDDED_WORKER,
   });
-  const server = app.listen(env.PORT, env.HOST, () => {
-    logger.info({ pid: process.pid }, `Choicewright listening on ${env.APP_URL}`);
-  });
+  const server = await listenHttp(createHttpServer(app), { port: env.PORT, host: env.HOST });
+  const stopDelay = reportEventLoopDelay();
+  logger.info({ pid: process.pid }, `Choicewright listening on ${env.APP_URL}`);
   stopOnSignals(logger, 'shutting down', [
+    stopDelay,
     () => void server.close(),
     stopBackground,
     () => mailer.close(),

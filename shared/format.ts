@@ -45,6 +45,19 @@ export function formatCompact(value: number | null | undefined, decimals = 2): s
   return withMinus(numberFormat(`c${decimals}`, { maximumFractionDigits: decimals }).format(value));
 }
 
+/**
+ * A number to `digits` significant digits, for figures whose scale varies from design to
+ * design (D-errors, priors): 0.28413 → "0.2841", −1.5 → "−1.500".
+ */
+export function formatSignificant(value: number | null | undefined, digits = 4): string {
+  if (!isNumber(value)) return MISSING;
+  const f = numberFormat(`s${digits}`, {
+    minimumSignificantDigits: digits,
+    maximumSignificantDigits: digits,
+  });
+  return withMinus(f.format(value));
+}
+
 /** A whole count with digit grouping: "12,480". */
 export function formatCount(value: number | null | undefined): string {
   return formatNumber(value === null || value === undefined ? value : Math.round(value), 0);

@@ -8,6 +8,8 @@
  * It is sent as a named prepared statement on the pool: PostgreSQL parses and plans it once
  * per connection, and the process builds no SQL per answer (the busiest statement of a panel
  * launch). The text is fixed; every value travels as a parameter.
+ * Tenant: the survey's public id and the respondent's session token, both in the statement,
+ * are the scope (respondents have no team).
  */
 import type { Db } from '../client';
 import type { insertAnswerAndFinish } from './answers';

@@ -2,11 +2,14 @@
  * Revised answers: the current answer stays in `answers` (one row per respondent and screen),
  * every answer it replaced moves to `answer_revisions` with the time it was replaced. So an
  * answer is never lost and never counted twice.
+ * Tenant: a respondent's own answers by the respondent id their session token resolved
+ * (answers.ts); the study-wide downloads filter on the study, which the caller loaded for the team.
  */
 import { and, asc, eq, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { answerRevisions, answers } from '../schema/fieldwork';
 import { answerColumns } from './answers';
+import { answerFieldsOf } from './study-answers';
 
 export async function getCurrentAnswer(
   db: DbOrTx,
@@ -91,13 +94,7 @@ export async function replaceAnswer(
 export async function listRevisedAnswers(db: DbOrTx, params: { studyId: string }) {
   return db
     .select({
-      respondentId: answers.respondentId,
-      screenKey: answers.screenKey,
-      taskNumber: answers.taskNumber,
-      chosenAlternative: answers.chosenAlternative,
-      chosenPosition: answers.chosenPosition,
-      value: answers.value,
-      responseMs: answers.responseMs,
+      ...answerFieldsOf(answers),
       answeredAt: sql<Date>`coalesce(${answers.revisedAt}, ${answers.createdAt})`.mapWith(
         answers.createdAt,
       ),
@@ -112,13 +109,7 @@ export async function listRevisedAnswers(db: DbOrTx, params: { studyId: string }
 export async function listAnswerHistory(db: DbOrTx, params: { studyId: string }) {
   return db
     .select({
-      respondentId: answerRevisions.respondentId,
-      screenKey: answerRevisions.screenKey,
-      taskNumber: answerRevisions.taskNumber,
-      chosenAlternative: answerRevisions.chosenAlternative,
-      chosenPosition: answerRevisions.chosenPosition,
-      value: answerRevisions.value,
-      responseMs: answerRevisions.responseMs,
+      ...answerFieldsOf(answerRevisions),
       answeredAt: answerRevisions.answeredAt,
       replacedAt: answerRevisions.replacedAt,
     })

@@ -6,17 +6,12 @@
 import { and, eq, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { answers, respondentBlockCounts, respondents } from '../schema/fieldwork';
+import { answerFieldsOf } from './study-answers';
 
 export const answerColumns = {
   id: answers.id,
-  respondentId: answers.respondentId,
   clientId: answers.clientId,
-  screenKey: answers.screenKey,
-  taskNumber: answers.taskNumber,
-  chosenAlternative: answers.chosenAlternative,
-  chosenPosition: answers.chosenPosition,
-  value: answers.value,
-  responseMs: answers.responseMs,
+  ...answerFieldsOf(answers),
   createdAt: answers.createdAt,
 };
 
@@ -50,29 +45,19 @@ export async function listAnswerValues(db: DbOrTx, params: { respondentId: strin
   return new Map(rows.map((r) => [r.screenKey, r.value]));
 }
 
-/** Returns null when the screen or client id already has a row (nothing written). */
-export async function insertAnswer(
-  db: DbOrTx,
-  params: {
-    respondentId: string;
-    studyId: string;
-    clientId: string;
-    screenKey: string;
-    taskNumber: number | null;
-    chosenAlternative: number | null;
-    chosenPosition: number | null;
-    value: unknown;
-    responseMs: number | null;
-    createdAt?: Date;
-  },
-) {
-  const [row] = await db
-    .insert(answers)
-    .values(params)
-    .onConflictDoNothing()
-    .returning(answerColumns);
-  return row ?? null;
-}
+/** One answer as a respondent's request writes it. */
+type NewAnswer = {
+  respondentId: string;
+  studyId: string;
+  clientId: string;
+  screenKey: string;
+  taskNumber: number | null;
+  chosenAlternative: number | null;
+  chosenPosition: number | null;
+  value: unknown;
+  responseMs: number | null;
+  createdAt?: Date;
+};
 
 /**
  * The answer, and when it ends the session the respondent's final status, in one statement
@@ -82,7 +67,7 @@ export async function insertAnswer(
  */
 export async function insertAnswerAndFinish(
   db: DbOrTx,
-  params: Parameters<typeof insertAnswer>[1] & {
+  params: NewAnswer & {
     versionId: string;
     block: number;
     finish: { status: 'completed' | 'screened_out' | 'over_quota'; durationMs: number } | null;

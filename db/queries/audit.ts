@@ -1,6 +1,7 @@
 /**
  * The audit trail: INSERT and SELECT only (the table refuses UPDATE and DELETE). A team's trail
  * holds its own events plus the sign-ins of its current members, which belong to no team.
+ * Tenant: every read filters on the team (the members' sign-ins through the team's memberships).
  */
 import { and, desc, eq, gte, inArray, isNull, like, lt, lte, or, sql, type SQL } from 'drizzle-orm';
 import type { DbOrTx } from '../client';

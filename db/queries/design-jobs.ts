@@ -1,5 +1,10 @@
-/** Design-generation jobs: one row per request, updated by the worker as it goes. */
-import { and, desc, eq, inArray, isNull, lt, sql } from 'drizzle-orm';
+/**
+ * Design-generation jobs: one row per request, updated by the worker as it goes. Tenant: what a
+ * request reaches carries the team; the worker's functions (getDesignJobForWorker, claim,
+ * progress, finish, isDesignJobCancelRequested) take the job id from the job queue, which only the
+ * server writes, and the sweeps (failStale, listQueued, failQueued) cover every team on purpose.
+ */
+import { and, desc, eq, inArray, isNull, lt, sql, type SQL } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { designJobs } from '../schema/studies';
 
@@ -51,29 +56,27 @@ export async function getDesignJobForWorker(db: DbOrTx, params: { id: string }) 
   return row ?? null;
 }
 
-export async function getLatestDesignJob(db: DbOrTx, params: { studyId: string; teamId: string }) {
+/** The study's newest design job, of those `only` admits (all when it is undefined). */
+async function getNewestStudyDesignJob(
+  db: DbOrTx,
+  params: { studyId: string; teamId: string },
+  only?: SQL,
+) {
   const [row] = await db
     .select(designJobColumns)
     .from(designJobs)
-    .where(and(eq(designJobs.studyId, params.studyId), eq(designJobs.teamId, params.teamId)))
+    .where(and(eq(designJobs.studyId, params.studyId), eq(designJobs.teamId, params.teamId), only))
     .orderBy(desc(designJobs.createdAt))
     .limit(1);
   return row ?? null;
 }
 
+export async function getLatestDesignJob(db: DbOrTx, params: { studyId: string; teamId: string }) {
+  return getNewestStudyDesignJob(db, params);
+}
+
 export async function getActiveDesignJob(db: DbOrTx, params: { studyId: string; teamId: string }) {
-  const [row] = await db
-    .select(designJobColumns)
-    .from(designJobs)
-    .where(
-      and(
-        eq(designJobs.studyId, params.studyId),
-        eq(designJobs.teamId, params.teamId),
-        inArray(designJobs.status, ['queued', 'running']),
-      ),
-    )
-    .limit(1);
-  return row ?? null;
+  return getNewestStudyDesignJob(db, params, inArray(designJobs.status, ['queued', 'running']));
 }
 
 /** queued → running; returns null when the job was already taken or cancelled. */
@@ -202,17 +205,5 @@ export async function getLatestCandidateJob(
   db: DbOrTx,
   params: { studyId: string; teamId: string },
 ) {
-  const [row] = await db
-    .select(designJobColumns)
-    .from(designJobs)
-    .where(
-      and(
-        eq(designJobs.studyId, params.studyId),
-        eq(designJobs.teamId, params.teamId),
-        eq(designJobs.purpose, 'candidate'),
-      ),
-    )
-    .orderBy(desc(designJobs.createdAt))
-    .limit(1);
-  return row ?? null;
+  return getNewestStudyDesignJob(db, params, eq(designJobs.purpose, 'candidate'));
 }

@@ -1,4 +1,7 @@
-/** Designs attached to studies (generated, imported or copied). */
+/**
+ * Designs attached to studies (generated, imported or copied). Tenant: the team in every where-
+ * clause; an insert carries the team.
+ */
 import { and, eq } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { designs } from '../schema/studies';

@@ -1,4 +1,8 @@
-/** E-mail confirmation: one-time tokens (hash only) and the verified stamp on the user. */
+/**
+ * E-mail confirmation: one-time tokens (hash only) and the verified stamp on the user. Tenant:
+ * none applies: confirmations belong to a user account, not to a team, and are found by the hash
+ * of the token mailed to that user.
+ */
 import { and, eq, gt, isNull } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { emailConfirmations, users } from '../schema/accounts';

@@ -2,6 +2,7 @@
  * Erasure of one respondent: finding them (by number, invitee address or external id), what
  * their erasure removes, and the changes themselves. Callers run the changes in one
  * transaction; the study is part of every where-clause.
+ * Tenant: the study, which the caller loaded for the team.
  */
 import { and, count, eq, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
@@ -165,14 +166,6 @@ export async function deleteInvitee(db: DbOrTx, params: { studyId: string; id: s
   await db
     .delete(invitees)
     .where(and(eq(invitees.id, params.id), eq(invitees.studyId, params.studyId)));
-}
-
-export async function countTombstones(db: DbOrTx, params: { studyId: string }) {
-  const [row] = await db
-    .select({ n: count() })
-    .from(respondentTombstones)
-    .where(eq(respondentTombstones.studyId, params.studyId));
-  return Number(row?.n ?? 0);
 }
 
 /** Forgets a study's tombstones (the demo seed, which re-simulates every respondent). */

@@ -1,6 +1,7 @@
 /**
  * Aggregates for the Fieldwork section, computed in the database so the live page stays cheap
  * however many answers there are.
+ * Tenant: every aggregate filters on the study, which the caller loaded for the team.
  */
 import { and, asc, count, eq, isNotNull, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';

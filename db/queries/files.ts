@@ -1,4 +1,8 @@
-/** Metadata of uploaded files; the bytes are in the storage module. */
+/**
+ * Metadata of uploaded files; the bytes are in the storage module. Tenant: rows carry the team;
+ * the look-up by storage key serves level images to respondents, who have no sign-in: the
+ * random key is what grants access (services/storage/level-images.ts).
+ */
 import { eq } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { storedFiles } from '../schema/studies';

@@ -2,6 +2,9 @@
  * Invitees of a study. Sends "claim" rows with a conditional update before mailing, so two
  * concurrent sends never mail the same person twice and an unsubscribe is honoured by every
  * send that starts after it.
+ * Tenant: the study in every where-clause (loaded for the team by the caller), but for the
+ * look-ups by personal token (unsubscribe and the respondent link: the token is the proof) and
+ * clearInvitation and markUnsubscribed, which take the id of a row just claimed or found so.
  */
 import {
   and,

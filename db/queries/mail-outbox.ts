@@ -2,6 +2,8 @@
  * The mail outbox (schema: db/schema/mail.ts). A row is claimed for sending with a conditional
  * update (queued → sending), so only one process ever sends it; it ends sent or failed, or
  * goes back to queued with the reason while the mail server cannot take it.
+ * Tenant: none applies: the mail worker drains the outbox of every team; rows are claimed by
+ * their id.
  */
 import { and, eq, inArray, lt, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';

@@ -1,3 +1,7 @@
+/**
+ * Teams and memberships. Tenant: memberships by team, or by the signed-in user's own id (their
+ * teams); teams by the id a membership check has already admitted (requireTeam).
+ */
 import { and, asc, count, eq } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { memberships, teams, users } from '../schema/accounts';

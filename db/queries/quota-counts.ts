@@ -2,6 +2,7 @@
  * Completes per answer of one screening question, for segment quotas
  * (server/services/segment-quotas.ts classifies the answers into cells). Scoped to one study:
  * the caller names it from the respondent's own study.
+ * Tenant: the study.
  */
 import { and, count, eq } from 'drizzle-orm';
 import type { DbOrTx } from '../client';

@@ -3,6 +3,8 @@
  * UPDATE reads the row's latest counts, takes the least-filled block (ties to the lowest
  * number) and stores the increment; concurrent session starts queue on that row for the
  * length of one statement, so blocks stay exactly balanced however many arrive at once.
+ * Tenant: the version id comes from the respondent's own study (their link); counters hold
+ * nothing personal.
  */
 import { sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
@@ -46,7 +48,7 @@ async function takeLeastFilled(
  * Creates the counter of a version that has none yet, counted from its respondents (for
  * versions frozen before the counters existed, or after resetBlockCounts).
  */
-export async function ensureBlockCounts(db: DbOrTx, params: { versionId: string; blocks: number }) {
+async function ensureBlockCounts(db: DbOrTx, params: { versionId: string; blocks: number }) {
   await db.execute(sql`
     insert into ${counts} (version_id, filling)
     select ${params.versionId}::uuid, array_agg((

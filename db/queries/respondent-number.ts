@@ -2,6 +2,8 @@
  * A respondent's number within their study: the 1-based position in order of starting, ties by
  * id, counting the tombstones of erased respondents too, so that erasing one respondent never
  * renumbers the others. For selects from the `respondents` table (not aliased).
+ * Tenant: a fragment inside selects that filter on the study themselves; it correlates on the
+ * row's own study.
  */
 import { sql, type SQL } from 'drizzle-orm';
 

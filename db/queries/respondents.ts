@@ -1,4 +1,9 @@
-/** Respondents (one per answering session) and what the respondent link needs to find. */
+/**
+ * Respondents (one per answering session) and what the respondent link needs to find. Tenant:
+ * respondents have no team: the public id of the link, or the study the link found, is in every
+ * where-clause, with the session token, invitee or panel key; getRespondentAnswerState takes the
+ * id their session token resolved.
+ */
 import { and, count, eq, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { studies, studyVersions } from '../schema/studies';
@@ -220,20 +225,6 @@ export async function countCompletes(db: DbOrTx, params: { studyId: string }) {
     .from(respondents)
     .where(and(eq(respondents.studyId, params.studyId), eq(respondents.status, 'completed')));
   return Number(row?.n ?? 0);
-}
-
-/** The respondent's own study (the id comes from their link), as answers need it. */
-export async function getStudyForAnswers(db: DbOrTx, params: { id: string }) {
-  const [row] = await db
-    .select({
-      id: studies.id,
-      teamId: studies.teamId,
-      status: studies.status,
-      settings: studies.settings,
-    })
-    .from(studies)
-    .where(eq(studies.id, params.id));
-  return row ?? null;
 }
 
 /**

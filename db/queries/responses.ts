@@ -44,7 +44,7 @@ export async function updateRespondentFlags(
 
 const flagIs = (key: QualityFlagKey) => sql`(${respondents.flags}->>${key}) = 'true'`;
 
-export function anyFlagCondition(keys: readonly QualityFlagKey[]): SQL {
+function anyFlagCondition(keys: readonly QualityFlagKey[]): SQL {
   return or(...keys.map(flagIs))!;
 }
 

@@ -3,6 +3,7 @@
  * in runs.ts they take the run id from the job queue, which only the server writes, so they
  * need no team. A checkpoint is written only by the claim that holds the run: while the run is
  * running under that attempt (a worker presumed dead and superseded writes nothing).
+ * Tenant: none (the run id from the job queue, as above).
  */
 import { and, eq } from 'drizzle-orm';
 import type { DbOrTx } from '../client';

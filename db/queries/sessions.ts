@@ -1,4 +1,8 @@
-/** Sign-in sessions: open one, find an open one (and mark it seen), list and revoke. */
+/**
+ * Sign-in sessions: open one, find an open one (and mark it seen), list and revoke. Tenant: none
+ * applies: sign-in sessions belong to a user; every query names the user (and the session id from
+ * that user's own cookie).
+ */
 import { and, desc, eq, gt, isNull, ne } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { userSessions, users } from '../schema/accounts';

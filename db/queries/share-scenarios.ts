@@ -1,4 +1,4 @@
-/** Saved share scenarios of a study; the team and study in every where-clause. */
+/** Saved share scenarios of a study. Tenant: the team and the study in every where-clause. */
 import { and, asc, eq } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { shareScenarios } from '../schema/shares';

@@ -1,3 +1,4 @@
+/** Studies. Tenant: the team in every where-clause. */
 import { and, desc, eq, isNotNull, isNull, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { studies } from '../schema/studies';

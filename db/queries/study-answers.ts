@@ -6,27 +6,38 @@
  */
 import { and, asc, eq, isNotNull, like, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
-import { answers } from '../schema/fieldwork';
+import { answerRevisions, answers, respondents } from '../schema/fieldwork';
+
+/**
+ * What a respondent answered on a screen, from the current answers or from the replaced ones
+ * (answer_revisions has the same columns), for every read that lists answers.
+ */
+export function answerFieldsOf<T extends typeof answers | typeof answerRevisions>(t: T) {
+  return {
+    respondentId: t.respondentId,
+    screenKey: t.screenKey,
+    taskNumber: t.taskNumber,
+    chosenAlternative: t.chosenAlternative,
+    chosenPosition: t.chosenPosition,
+    value: t.value,
+    responseMs: t.responseMs,
+  };
+}
 
 /**
  * Every answered choice screen of the study (design, warm-up, holdout, repeat and dominance
- * tasks), in respondent and screen order. The task kind, repeated task and dominance outcome
- * are in `value` (server/services/answer-shape.ts).
+ * tasks), in respondent-number order (order of starting, ties by id, as
+ * db/queries/respondent-number.ts counts) and screen order, so nothing read from it depends on
+ * the respondents' random ids. The task kind, repeated task and dominance outcome are in
+ * `value` (server/services/answer-shape.ts).
  */
 export async function listChoiceAnswers(db: DbOrTx, params: { studyId: string }) {
   return db
-    .select({
-      respondentId: answers.respondentId,
-      screenKey: answers.screenKey,
-      taskNumber: answers.taskNumber,
-      chosenAlternative: answers.chosenAlternative,
-      chosenPosition: answers.chosenPosition,
-      responseMs: answers.responseMs,
-      value: answers.value,
-    })
+    .select(answerFieldsOf(answers))
     .from(answers)
+    .innerJoin(respondents, eq(respondents.id, answers.respondentId))
     .where(and(eq(answers.studyId, params.studyId), isNotNull(answers.chosenAlternative)))
-    .orderBy(asc(answers.respondentId), asc(answers.screenKey));
+    .orderBy(asc(respondents.startedAt), asc(respondents.id), asc(answers.screenKey));
 }
 export type ChoiceAnswerRow = Awaited<ReturnType<typeof listChoiceAnswers>>[number];
 

@@ -2,6 +2,8 @@
  * Writes of a study created from a choice file. Respondents and answers go in as batched
  * `INSERT … SELECT FROM unnest(…)`: one statement per batch with one array parameter per
  * column, so a million rows cost a few dozen round trips instead of a million.
+ * Tenant: writes only, for the study the caller has just created in its team; every row carries
+ * that study's id.
  */
 import { sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';

@@ -31,7 +31,10 @@ export async function listStudyRespondents(db: DbOrTx, params: { studyId: string
     .orderBy(asc(respondents.startedAt), asc(respondents.id));
 }
 
-/** Respondents who completed the questionnaire and are not excluded (what a run estimates on). */
+/**
+ * Respondents who completed the questionnaire and are not excluded (what a run estimates on),
+ * in respondent-number order (order of starting, ties by id: db/queries/respondent-number.ts).
+ */
 export async function listIncludedRespondents(db: DbOrTx, params: { studyId: string }) {
   return db
     .select({ id: respondents.id, versionId: respondents.versionId, flags: respondents.flags })
@@ -43,5 +46,5 @@ export async function listIncludedRespondents(db: DbOrTx, params: { studyId: str
         eq(respondents.included, true),
       ),
     )
-    .orderBy(asc(respondents.id));
+    .orderBy(asc(respondents.startedAt), asc(respondents.id));
 }

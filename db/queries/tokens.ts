@@ -1,4 +1,8 @@
-/** Team invitations and password resets: one-time tokens stored as hashes. */
+/**
+ * Team invitations and password resets: one-time tokens stored as hashes. Tenant: invitations are
+ * listed and revoked by team; an invitation or reset is found by the hash of its token (the token
+ * is the proof), and password resets belong to a user.
+ */
 import { and, asc, eq, gt, isNull } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { passwordResets, teamInvitations, teams, users } from '../schema/accounts';

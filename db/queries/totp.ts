@@ -1,7 +1,7 @@
 /**
  * Two-step sign-in rows: the authenticator secret of a user (pending or enabled) and their
  * one-time recovery codes (hash only). Every query is keyed by the user id it is given; callers
- * pass the signed-in user's own id, so no tenant filter applies.
+ * pass the signed-in user's own id, so no tenant filter applies (Tenant: the user).
  */
 import { and, count, eq, isNotNull, isNull, lt, or } from 'drizzle-orm';
 import type { DbOrTx } from '../client';

@@ -1,3 +1,7 @@
+/**
+ * User accounts. Tenant: none applies: a user belongs to no one team; found by id (the signed-in
+ * user, a member) or by e-mail (sign-in, sign-up, invitations).
+ */
 import { eq } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { users } from '../schema/accounts';

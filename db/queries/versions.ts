@@ -1,6 +1,9 @@
 /**
  * The study lifecycle's data access: frozen versions, status and settings changes, the
  * questionnaire document, and the periodic close check.
+ * Tenant: studies by id and team; versions and designs by their study, which the caller loaded
+ * for the team; lockStudyForCompletion (the study of the respondent's own link) and
+ * listLiveStudiesWithLimits (the scheduler's close check of every team) need none.
  */
 import { and, asc, desc, eq, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';

@@ -4,67 +4,25 @@
  * straight to the database and put live through the lifecycle service.
  */
 import { randomBytes } from 'node:crypto';
-import { eq, sql } from 'drizzle-orm';
+import { sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { insertTeam } from '../../db/queries/memberships';
-import { designs, studies } from '../../db/schema/studies';
-import { goLive } from '../../server/services/lifecycle';
-import type { AppDeps } from '../../server/deps';
+import { makeStudyDefinition, numericLevels } from './study-factory/definition';
+import { makeStudyDesign } from './study-factory/design';
+import { insertStudyRow } from './study-factory/insert-study';
 
 export const BENCH_TASKS_PER_RESPONDENT = 10;
 
-const lv = (prefix: string, labels: string[], values?: number[]) =>
-  labels.map((label, i) => ({
-    id: `${prefix}${i}`,
-    label,
-    ...(values ? { value: values[i] } : {}),
-  }));
-
-const definition = {
-  attributes: [
-    {
-      id: 'bill',
-      name: 'Monthly bill increase',
-      kind: 'numeric',
-      unit: '€',
-      isCost: true,
-      coding: 'linear',
-      levels: lv('b', ['€0', '€5', '€10'], [0, 5, 10]),
-    },
-    {
-      id: 'cuts',
-      name: 'Supply interruptions per year',
-      kind: 'numeric',
-      coding: 'linear',
-      levels: lv('c', ['4', '2', '1'], [4, 2, 1]),
-    },
-    {
-      id: 'river',
-      name: 'River health',
-      kind: 'categorical',
-      coding: 'dummy',
-      levels: lv('r', ['poor', 'fair', 'good']),
-    },
-  ],
-  alternatives: { count: 2, labeled: false, labels: [] },
+/**
+ * Three attributes of three levels (the bill at €0, €5 and €10, interruptions, river health),
+ * two unlabeled packages and no status quo: a small task card, so the server's work per
+ * answer dominates.
+ */
+const definition = makeStudyDefinition({
+  only: ['bill', 'interrupt', 'river'],
+  attributes: { bill: { levels: numericLevels('b', [0, 5, 10], (v) => `€${v}`) } },
   fixedAlternative: null,
-  excludedCombinations: [],
-};
-
-const design = {
-  blocks: 2,
-  tasks: Array.from({ length: 2 * BENCH_TASKS_PER_RESPONDENT }, (_, t) => ({
-    block: t < BENCH_TASKS_PER_RESPONDENT ? 1 : 2,
-    task: t + 1,
-    alternatives: [0, 1].map((j) => ({
-      levels: {
-        bill: `b${(t + j) % 3}`,
-        cuts: `c${(t + 2 * j) % 3}`,
-        river: `r${(Math.floor(t / 3) + j) % 3}`,
-      },
-    })),
-  })),
-};
+});
 
 const questionnaire = {
   pages: [
@@ -86,25 +44,17 @@ export async function createBenchStudy(
   teamId?: string,
 ): Promise<{ publicId: string; studyId: string }> {
   const team = teamId ? { id: teamId } : await insertTeam(db, { name: 'Bench team' });
-  const publicId = randomBytes(9).toString('base64url');
-  const [study] = await db
-    .insert(studies)
-    .values({
-      teamId: team.id,
-      publicId,
-      name: 'Bench study',
-      publicTitle: 'Bench study',
-      definition,
-      questionnaire,
-    })
-    .returning({ id: studies.id });
-  const [d] = await db
-    .insert(designs)
-    .values({ studyId: study.id, teamId: team.id, method: 'imported', design })
-    .returning({ id: designs.id });
-  await db.update(studies).set({ currentDesignId: d.id }).where(eq(studies.id, study.id));
-  await goLive({ db } as AppDeps, team.id, study.id);
-  return { publicId, studyId: study.id };
+  const { studyId, publicId } = await insertStudyRow(db, {
+    teamId: team.id,
+    publicId: randomBytes(9).toString('base64url'),
+    name: 'Bench study',
+    publicTitle: 'Bench study',
+    definition,
+    design: makeStudyDesign(definition, { tasksPerBlock: BENCH_TASKS_PER_RESPONDENT, seed: 3 }),
+    questionnaire,
+    goLive: true,
+  });
+  return { publicId, studyId };
 }
 
 /** Every answer stored for the study: client id, and whether any (respondent, screen) repeats. */

@@ -1,8 +1,9 @@
 /**
  * CPU time spent by processes during a benchmark phase, read from /proc (Linux): user + system
- * time of the server process (all its threads) and of the PostgreSQL backends serving the
- * benchmark's database. Unlike latencies, CPU time per request hardly depends on what else the
- * shared machine runs, so it shows where a request's cost goes even on a busy machine.
+ * time of the server process and its child processes (all their threads: several web
+ * processes under WEB_INSTANCES) and of the PostgreSQL backends serving the benchmark's
+ * database. Unlike latencies, CPU time per request hardly depends on what else the shared
+ * machine runs, so it shows where a request's cost goes even on a busy machine.
  */
 import fs from 'node:fs';
 import type pg from 'pg';
@@ -10,17 +11,46 @@ import type pg from 'pg';
 /** Clock ticks per second of /proc/<pid>/stat times (USER_HZ; 100 on Linux). */
 const TICKS_PER_SECOND = 100;
 
-function cpuMsOf(pid: number): number | null {
+function statFields(pid: number): string[] | null {
   try {
     const stat = fs.readFileSync(`/proc/${pid}/stat`, 'utf8');
     // Fields after the command name (which may hold spaces) start at its closing parenthesis.
-    const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
-    const utime = Number(fields[11]);
-    const stime = Number(fields[12]);
-    return ((utime + stime) * 1000) / TICKS_PER_SECOND;
+    return stat.slice(stat.lastIndexOf(')') + 2).split(' ');
   } catch {
     return null; // gone, or no /proc here
   }
+}
+
+function cpuMsOf(pid: number): number | null {
+  const fields = statFields(pid);
+  if (!fields) return null;
+  return ((Number(fields[11]) + Number(fields[12])) * 1000) / TICKS_PER_SECOND;
+}
+
+/** `pid` and every process below it. */
+function processTree(pid: number): number[] {
+  let pids: number[];
+  try {
+    pids = fs
+      .readdirSync('/proc')
+      .filter((d) => /^\d+$/.test(d))
+      .map(Number);
+  } catch {
+    return [pid];
+  }
+  const children = new Map<number, number[]>();
+  for (const p of pids) {
+    const ppid = Number(statFields(p)?.[1]);
+    if (ppid) children.set(ppid, [...(children.get(ppid) ?? []), p]);
+  }
+  const tree: number[] = [];
+  const stack = [pid];
+  while (stack.length) {
+    const p = stack.pop()!;
+    tree.push(p);
+    stack.push(...(children.get(p) ?? []));
+  }
+  return tree;
 }
 
 async function backendPids(pool: pg.Pool, database: string): Promise<number[]> {
@@ -31,25 +61,31 @@ async function backendPids(pool: pg.Pool, database: string): Promise<number[]> {
   return r.rows.map((row) => row.pid);
 }
 
+/** CPU ms since `before` of the processes in `before` and `now` (ones that ended meanwhile are missed). */
+function cpuSince(before: Map<number, number>, now: number[]): number {
+  let total = 0;
+  for (const pid of new Set([...before.keys(), ...now])) {
+    const ms = cpuMsOf(pid);
+    if (ms !== null) total += ms - (before.get(pid) ?? 0);
+  }
+  return Math.round(total);
+}
+
+const snapshot = (pids: number[]) => new Map(pids.map((p) => [p, cpuMsOf(p) ?? 0]));
+
 /**
- * Starts counting; stop() returns the CPU milliseconds of the server and of the database's
- * backends since then (backends that ended meanwhile are missed; pooled ones live on).
+ * Starts counting; stop() returns the CPU milliseconds of the server (with its child
+ * processes) and of the database's backends since then (pooled backends live on).
  */
 export async function measureCpu(serverPid: number, pool: pg.Pool, database: string) {
-  const before = new Map<number, number>();
-  const server0 = cpuMsOf(serverPid);
-  for (const pid of await backendPids(pool, database)) before.set(pid, cpuMsOf(pid) ?? 0);
+  const server0 = snapshot(processTree(serverPid));
+  const database0 = snapshot(await backendPids(pool, database));
   return {
     async stop() {
-      const server1 = cpuMsOf(serverPid);
-      let database1 = 0;
-      for (const pid of new Set([...before.keys(), ...(await backendPids(pool, database))])) {
-        const now = cpuMsOf(pid);
-        if (now !== null) database1 += now - (before.get(pid) ?? 0);
-      }
+      const serverAlive = cpuMsOf(serverPid) !== null;
       return {
-        serverMs: server0 === null || server1 === null ? null : Math.round(server1 - server0),
-        databaseMs: Math.round(database1),
+        serverMs: serverAlive ? cpuSince(server0, processTree(serverPid)) : null,
+        databaseMs: cpuSince(database0, await backendPids(pool, database)),
       };
     },
   };

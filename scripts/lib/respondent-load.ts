@@ -10,7 +10,8 @@
 import { randomUUID } from 'node:crypto';
 import http from 'node:http';
 import zlib from 'node:zlib';
-import { createSeededRandom } from '../../server/engine/design/seeded-random';
+import { createPrng, type Prng } from '../../server/engine/draws/prng';
+import { randomIndex } from '../../server/engine/draws/random-index';
 import type { RespondentScreen, RespondentSession } from '../../shared/schemas/respondent';
 
 export type LoadOptions = {
@@ -70,11 +71,14 @@ const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 const REQUEST_TIMEOUT_MS = 15_000;
 
 /**
- * One keep-alive agent per load process, without a socket limit: each simulated phone keeps
- * its own connection between answers, as a phone's browser does. Node's http client costs the
- * load process far less CPU per request than fetch, so the client is not what limits a run.
+ * Each simulated phone has its own keep-alive connection, opened at its first request and
+ * kept between answers, as a phone's browser does (one request at a time: one connection).
+ * Connections are therefore opened as respondents arrive, not as requests happen to overlap
+ * (a shared pool would open one per concurrent request and pass them between respondents).
+ * Node's http client costs the load process far less CPU per request than fetch, so the
+ * client is not what limits a run.
  */
-const agent = new http.Agent({ keepAlive: true, maxSockets: Infinity, maxFreeSockets: 1_024 });
+const phoneAgent = () => new http.Agent({ keepAlive: true, maxSockets: 1 });
 
 function decoded(body: Buffer, encoding: string | undefined): Buffer {
   if (encoding === 'br') return zlib.brotliDecompressSync(body);
@@ -89,6 +93,7 @@ function decoded(body: Buffer, encoding: string | undefined): Buffer {
  * counts as lost and is sent again. A 2xx whose body cannot be read is lost too.
  */
 function postJson(
+  agent: http.Agent,
   url: string,
   headers: Record<string, string>,
   body: unknown,
@@ -136,11 +141,11 @@ function postJson(
   });
 }
 
-function valueFor(screen: RespondentScreen, random: ReturnType<typeof createSeededRandom>) {
+function valueFor(screen: RespondentScreen, random: Prng) {
   if (screen.kind === 'consent') return { kind: 'consent', agreed: true };
   if (screen.kind === 'instructions') return { kind: 'ack' };
   if (screen.kind === 'task')
-    return { kind: 'choice', position: random.nextInt(screen.alternatives.length) };
+    return { kind: 'choice', position: randomIndex(random, screen.alternatives.length) };
   const q = screen.question;
   if (q.type === 'single') return { kind: 'single', optionId: q.options[0]?.id ?? null };
   if (q.type === 'multiple') return { kind: 'multiple', optionIds: [q.options[0].id] };
@@ -188,6 +193,7 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
     body: unknown,
     token: string | null,
     timings: number[],
+    agent: http.Agent,
   ): Promise<{ status: number; json: Record<string, unknown> } | null> {
     const deadline = Date.now() + opts.giveUpMs;
     let instance = n % opts.bases.length;
@@ -197,6 +203,7 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
       let wait = Math.min(8_000, 250 * 2 ** attempt++) * (0.5 + Math.random());
       try {
         const res = await postJson(
+          agent,
           `${opts.bases[instance]}/api/r/${opts.publicId}${path}`,
           {
             'content-type': 'application/json',
@@ -229,9 +236,29 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
 
   async function respondent(i: number) {
     const n = opts.firstRespondent + i;
-    const random = createSeededRandom(opts.seed * 100_003 + n);
+    const random = createPrng(opts.seed * 100_003 + n);
     await sleep((opts.rampMs * i) / Math.max(1, opts.respondents));
-    const started = await send(n, '/sessions', { params: {}, device: 'bench' }, null, r.sessionMs);
+    const agent = phoneAgent();
+    try {
+      await answerAll(n, random, agent);
+    } finally {
+      agent.destroy();
+    }
+  }
+
+  async function answerAll(
+    n: number,
+    random: ReturnType<typeof createSeededRandom>,
+    agent: http.Agent,
+  ) {
+    const started = await send(
+      n,
+      '/sessions',
+      { params: {}, device: 'bench' },
+      null,
+      r.sessionMs,
+      agent,
+    );
     if (!started) return;
     if (started.status !== 201) {
       r.errorsOther.push({
@@ -245,14 +272,14 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
     r.spans.push(span);
     const session = started.json as unknown as RespondentSession;
     for (const screen of session.screens) {
-      await sleep(opts.thinkMs * (0.5 + random.next()));
+      await sleep(opts.thinkMs * (0.5 + random.nextDouble()));
       const body = {
         clientId: randomUUID(),
         screenKey: screen.key,
         value: valueFor(screen, random),
-        responseMs: 2000 + random.nextInt(20_000),
+        responseMs: 2000 + randomIndex(random, 20_000),
       };
-      const res = await send(n, '/answers', body, session.sessionToken, r.answerMs);
+      const res = await send(n, '/answers', body, session.sessionToken, r.answerMs, agent);
       span[1] = Date.now() - r.startedAt;
       if (!res) {
         r.unsent++;
@@ -272,9 +299,9 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
         screenKey: screen.key,
       });
       if (res.json.status !== 'in_progress') break;
-      if (random.next() < opts.retryShare) {
+      if (random.nextDouble() < opts.retryShare) {
         r.replaysAsked++;
-        const again = await send(n, '/answers', body, session.sessionToken, r.answerMs);
+        const again = await send(n, '/answers', body, session.sessionToken, r.answerMs, agent);
         if (again?.status === 200 && again.json.replay === true) r.replaysConfirmed++;
         else if (again) r.errorsOther.push({ status: again.status, code: 'replay_not_recognised' });
       }

@@ -35,7 +35,9 @@ export function startProcess(opts: {
   const child = spawn(process.execPath, [...nodeArgs, '--import', 'tsx', opts.entry], {
     cwd: opts.cwd ?? root,
     env: { PATH: process.env.PATH ?? '', HOME: process.env.HOME ?? '', ...opts.env },
-    stdio: ['ignore', log, log],
+    // The IPC channel lets the benchmark ask the server for its event-loop delay
+    // (server/lib/event-loop-delay.ts).
+    stdio: ['ignore', log, log, 'ipc'],
   });
   fs.closeSync(log);
   const exited = new Promise<number | null>((resolve) =>

@@ -7,61 +7,21 @@
  */
 import { createPrng } from '../../shared/engine/random/prng';
 import { inverseNormal } from '../../shared/engine/random/inverse-normal';
-import { studyDefinitionSchema } from '../../shared/schemas/study-definition';
+import { makeDemoDefinition } from './study-factory/definition';
 import type { ShareModel } from '../../shared/schemas/shares';
 import { computeScenarioShares, prepareShareModel } from '../../shared/engine/shares/share-model';
 import { sweepDemandCurve } from '../../shared/engine/shares/demand-curve';
 
-const levels = (id: string, values: number[]) =>
-  values.map((v) => ({ id: `${id}-${v}`, value: v }));
-const numeric = (id: string, values: number[], isCost = false) => ({
-  id,
-  name: id,
-  kind: 'numeric' as const,
-  coding: 'linear' as const,
-  unit: isCost ? '€' : 'units',
-  isCost,
-  levels: levels(id, values),
-});
+/** The demo study's attributes, as a new installation has them. */
+const definition = makeDemoDefinition();
 
-const definition = studyDefinitionSchema.parse({
-  attributes: [
-    numeric('bill', [0, 3, 6, 10, 15], true),
-    numeric('interruptions', [4, 2, 1]),
-    numeric('warnings', [6, 2, 0]),
-    {
-      id: 'river',
-      name: 'river',
-      kind: 'categorical',
-      coding: 'dummy',
-      levels: [
-        { id: 'poor', label: 'Poor' },
-        { id: 'fair', label: 'Fair' },
-        { id: 'good', label: 'Good' },
-      ],
-    },
-    numeric('renewable', [20, 50, 80]),
-  ],
-  alternatives: { count: 2, labeled: false, labels: [] },
-  fixedAlternative: {
-    kind: 'status_quo',
-    label: 'Keep the current service',
-    levels: {
-      bill: 'bill-0',
-      interruptions: 'interruptions-4',
-      warnings: 'warnings-6',
-      river: 'poor',
-      renewable: 'renewable-20',
-    },
-  },
-});
-
+/** Coded columns of the demo definition; the synthetic means are the demo design's priors. */
 const keys = [
   'attr:bill',
   'attr:interruptions',
   'attr:warnings',
-  'attr:river:fair',
-  'attr:river:good',
+  'attr:river:river-fair',
+  'attr:river:river-good',
   'attr:renewable',
   'asc:fixed',
 ];
@@ -108,7 +68,7 @@ const scenario = {
         bill: 'bill-6',
         interruptions: 'interruptions-2',
         warnings: 'warnings-2',
-        river: 'good',
+        river: 'river-good',
         renewable: 'renewable-50',
       },
     },
@@ -119,7 +79,7 @@ const scenario = {
         bill: 'bill-3',
         interruptions: 'interruptions-4',
         warnings: 'warnings-0',
-        river: 'fair',
+        river: 'river-fair',
         renewable: 'renewable-80',
       },
     },

@@ -5,7 +5,8 @@
  * coefficients (Gumbel errors by inversion). Lines are produced one at a time, so a million
  * rows can be written to a file without holding them.
  */
-import { createSeededRandom } from '../../server/engine/design/seeded-random';
+import { createPrng } from '../../server/engine/draws/prng';
+import { randomIndex } from '../../server/engine/draws/random-index';
 
 export const syntheticAttributes = {
   bill: [0, 3, 6, 10, 15],
@@ -39,8 +40,8 @@ function utility(a: Alternative): number {
 
 /** Data lines (no header) for `respondents` respondents with 12 tasks each (36 rows). */
 export function* syntheticChoiceLines(respondents: number, seed = 20261203): Generator<string> {
-  const random = createSeededRandom(seed);
-  const pick = <T>(xs: readonly T[]) => xs[random.nextInt(xs.length)];
+  const random = createPrng(seed);
+  const pick = <T>(xs: readonly T[]) => xs[randomIndex(random, xs.length)];
   const design: Alternative[][] = Array.from({ length: TASKS }, () =>
     Array.from({ length: ALTERNATIVES }, () => [
       pick(syntheticAttributes.bill),
@@ -58,7 +59,7 @@ export function* syntheticChoiceLines(respondents: number, seed = 20261203): Gen
       let best = 0;
       let bestU = -Infinity;
       alternatives.forEach((a, j) => {
-        const u = utility(a) - Math.log(-Math.log(random.next() || 1e-12));
+        const u = utility(a) - Math.log(-Math.log(random.nextDouble()));
         if (u > bestU) [best, bestU] = [j, u];
       });
       for (let j = 0; j < ALTERNATIVES; j++)

@@ -88,10 +88,16 @@ export async function runEstimationJob(
       onRetry: () => deps.logger.warn({ runId }, 'database unreachable; saving the run again'),
     });
   try {
-    const { spec, respondents } = splitStoredSpec(run.spec);
+    const { spec, respondents, dataOrder } = splitStoredSpec(run.spec);
     const keys = getSpecColumns(spec);
+    // A run read in the old order (queued or resumed across the change) keeps it, so it
+    // reproduces and its checkpoint's data hash still matches.
     const prepared = await persist(() =>
-      loadStudyChoiceData(deps.db, { studyId: run.studyId, filterId: respondents.filterId }),
+      loadStudyChoiceData(deps.db, {
+        studyId: run.studyId,
+        filterId: respondents.filterId,
+        order: dataOrder,
+      }),
     );
     const built = toBuiltChoiceData(prepared, keys);
     const membership = await persist(() =>

@@ -14,7 +14,7 @@ import {
   exportRunQuerySchema,
   optionalRunQuerySchema,
 } from '../../shared/schemas/exports';
-import type { Download } from '../services/exports/download';
+import type { Download, RunExporter, StudyExporter } from '../services/exports/download';
 import { auditPersonalDownload } from '../services/exports/audit-download';
 import { getExportManifest } from '../services/exports/manifest';
 import {
@@ -56,33 +56,20 @@ export async function send(
   res.send(file.body);
 }
 
-type RunDownload = (
-  deps: AppDeps,
-  member: ReturnType<typeof actorOf>,
-  studyId: string,
-  runId: string,
-) => Promise<Download>;
-
-type StudyDownload = (
-  deps: AppDeps,
-  member: ReturnType<typeof actorOf>,
-  studyId: string,
-) => Promise<Download>;
-
 export function createExportsRouter(deps: AppDeps): Router {
   const router = Router({ mergeParams: true });
   router.use(requireUser(deps));
   const read = requireTeam(deps, 'exports:read');
 
   /** A download of one finished run (?runId=). */
-  const runFile = (path: string, make: RunDownload, inline = false) =>
+  const runFile = (path: string, make: RunExporter, inline = false) =>
     router.get(path, read, async (req, res) => {
       const { studyId } = parseParams(studyParamsSchema, req);
       const { runId } = parseQuery(exportRunQuerySchema, req);
       send(deps, req, res, await make(deps, actorOf(req), studyId, runId), inline);
     });
   /** A download of the study's data. */
-  const studyFile = (path: string, make: StudyDownload) =>
+  const studyFile = (path: string, make: StudyExporter) =>
     router.get(path, read, async (req, res) => {
       const { studyId } = parseParams(studyParamsSchema, req);
       send(deps, req, res, await make(deps, actorOf(req), studyId));

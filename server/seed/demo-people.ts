@@ -3,7 +3,8 @@
  * their device, how fast they answer, where drop-outs stop, and their background answers.
  * Pure functions of seeds (invented figures; plausible, not calibrated to any survey).
  */
-import { createSeededRandom, type SeededRandom } from '../engine/design/seeded-random';
+import { createPrng, type Prng } from '../engine/draws/prng';
+import { randomIndex, shuffleInPlace } from '../engine/draws/random-index';
 import type { AnswerValue, RespondentScreen } from '../../shared/schemas/respondent';
 import {
   DEMO_TRUTH,
@@ -27,9 +28,9 @@ export type DemoPerson = {
 
 const DAY = 86_400_000;
 
-function pickWeighted<T>(random: SeededRandom, items: readonly T[], weights: readonly number[]): T {
+function pickWeighted<T>(random: Prng, items: readonly T[], weights: readonly number[]): T {
   const total = weights.reduce((a, b) => a + b, 0);
-  let u = random.next() * total;
+  let u = random.nextDouble() * total;
   for (let i = 0; i < items.length; i++) {
     u -= weights[i];
     if (u < 0) return items[i];
@@ -38,17 +39,19 @@ function pickWeighted<T>(random: SeededRandom, items: readonly T[], weights: rea
 }
 
 /** Most people answer in the days after the invitation, a second wave after the reminder. */
-function startTime(random: SeededRandom, fieldStart: Date): Date {
-  const wave = random.next() < 0.65 ? 0 : 7;
+function startTime(random: Prng, fieldStart: Date): Date {
+  const wave = random.nextDouble() < 0.65 ? 0 : 7;
   const mean = wave === 0 ? 2.5 : 2;
-  const day = Math.min(20, wave + Math.floor(-mean * Math.log(1 - random.next())));
-  const minuteOfDay = 7 * 60 + random.nextInt(15 * 60);
-  return new Date(fieldStart.getTime() + day * DAY + minuteOfDay * 60_000 + random.nextInt(60_000));
+  const day = Math.min(20, wave + Math.floor(-mean * Math.log(1 - random.nextDouble())));
+  const minuteOfDay = 7 * 60 + randomIndex(random, 15 * 60);
+  return new Date(
+    fieldStart.getTime() + day * DAY + minuteOfDay * 60_000 + randomIndex(random, 60_000),
+  );
 }
 
 /** The demo panel, sorted by start time (blocks are then assigned in arrival order). */
 export function planDemoPeople(fieldStart: Date, screensPerRespondent: number): DemoPerson[] {
-  const random = createSeededRandom(DEMO_TRUTH.seed);
+  const random = createPrng(DEMO_TRUTH.seed);
   const { completes, dropouts, behaviours } = DEMO_TRUTH;
   const kinds: Behaviour[] = [
     ...Array<Behaviour>(behaviours.speeder_random).fill('speeder_random'),
@@ -56,10 +59,7 @@ export function planDemoPeople(fieldStart: Date, screensPerRespondent: number): 
     ...Array<Behaviour>(behaviours.dominance_failure).fill('dominance_failure'),
   ];
   const order = Array.from({ length: completes }, (_, i) => i);
-  for (let i = order.length - 1; i > 0; i--) {
-    const k = random.nextInt(i + 1);
-    [order[i], order[k]] = [order[k], order[i]];
-  }
+  shuffleInPlace(random, order);
   const behaviourOf = new Map(order.slice(0, kinds.length).map((n, i) => [n, kinds[i]]));
   const people: DemoPerson[] = [];
   for (let n = 0; n < completes + dropouts; n++) {
@@ -75,8 +75,9 @@ export function planDemoPeople(fieldStart: Date, screensPerRespondent: number): 
       startedAt: startTime(random, fieldStart),
       device: pickWeighted(random, ['phone', 'desktop', 'tablet'] as const, [58, 30, 12]),
       externalId: `LV-${String(1001 + n)}`,
-      stopAfter: n >= completes ? 1 + random.nextInt(Math.max(1, screensPerRespondent - 2)) : null,
-      speed: speeder ? 0.15 + 0.1 * random.next() : Math.exp(0.3 * drawNormal(random)),
+      stopAfter:
+        n >= completes ? 1 + randomIndex(random, Math.max(1, screensPerRespondent - 2)) : null,
+      speed: speeder ? 0.15 + 0.1 * random.nextDouble() : Math.exp(0.3 * drawNormal(random)),
     });
   }
   return people.sort((a, b) => a.startedAt.getTime() - b.startedAt.getTime() || a.n - b.n);
@@ -91,7 +92,7 @@ export function screenTimeMs(
   person: DemoPerson,
   screen: RespondentScreen,
   taskIndex: number,
-  random: SeededRandom,
+  random: Prng,
 ): number {
   const base =
     screen.kind === 'consent'
@@ -113,7 +114,7 @@ export function screenTimeMs(
 /** Background answers in plausible shares: household size, age band, filtered tap water. */
 export function backgroundAnswer(
   screen: Extract<RespondentScreen, { kind: 'question' }>,
-  random: SeededRandom,
+  random: Prng,
 ): AnswerValue {
   const q = screen.question;
   switch (q.type) {
@@ -123,7 +124,7 @@ export function backgroundAnswer(
           kind: 'number',
           number: pickWeighted(random, [1, 2, 3, 4, 5, 6], [28, 34, 15, 14, 6, 3]),
         };
-      return { kind: 'number', number: q.min + random.nextInt(Math.floor(q.max - q.min) + 1) };
+      return { kind: 'number', number: q.min + randomIndex(random, Math.floor(q.max - q.min) + 1) };
     }
     case 'single': {
       const weights =
@@ -135,7 +136,7 @@ export function backgroundAnswer(
       return { kind: 'single', optionId: pickWeighted(random, q.options, weights).id };
     }
     case 'multiple':
-      return { kind: 'multiple', optionIds: [q.options[random.nextInt(q.options.length)].id] };
+      return { kind: 'multiple', optionIds: [q.options[randomIndex(random, q.options.length)].id] };
     case 'text':
       return { kind: 'text', text: '' };
   }

@@ -15,7 +15,8 @@ import { deleteTombstones } from '../../db/queries/erasure';
 import { saveQuestionnaire } from '../services/questionnaire';
 import { buildScreens, loadFrozenVersion } from '../services/respondent-screens';
 import { createRespondentPlan } from '../services/respondent-plan';
-import { createSeededRandom } from '../engine/design/seeded-random';
+import { createPrng } from '../engine/draws/prng';
+import { randomIndex } from '../engine/draws/random-index';
 import { getLatestVersion } from '../../db/queries/versions';
 import {
   countSimulatedRespondents,
@@ -82,7 +83,7 @@ async function answerAll(
   screens: ReturnType<typeof buildScreens>,
   coding: DemoCoding,
 ) {
-  const random = createSeededRandom(person.truth.seed ^ 0x5bd1e995);
+  const random = createPrng(person.truth.seed ^ 0x5bd1e995);
   let now = person.startedAt.getTime();
   let taskIndex = 0;
   const last = person.stopAfter ?? screens.length;
@@ -94,7 +95,7 @@ async function answerAll(
     else value = { kind: 'choice', position: simulateChoice(person.truth, screen, coding) };
     const responseMs = screenTimeMs(person, screen, taskIndex, random);
     if (screen.kind === 'task' && screen.taskKind === 'design') taskIndex++;
-    now += responseMs + 300 + random.nextInt(900);
+    now += responseMs + 300 + randomIndex(random, 900);
     await saveAnswer(db, {
       studyId,
       sessionToken,

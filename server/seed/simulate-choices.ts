@@ -4,7 +4,8 @@
  * choice adds independent standard Gumbel errors (Train 2009, ch. 3 and 6). Everything is a
  * pure function of seeds, so tests can replay every stored choice.
  */
-import { createSeededRandom, type SeededRandom } from '../engine/design/seeded-random';
+import { createPrng, type Prng } from '../engine/draws/prng';
+import { randomIndex } from '../engine/draws/random-index';
 import type { StudyDefinition } from '../../shared/schemas/study-definition';
 import type { DisplayAlternative } from '../../shared/schemas/respondent';
 
@@ -53,19 +54,19 @@ export type SimulatedTruth = {
 };
 
 /** Standard normal by Box–Muller (two uniforms per draw; the second is discarded for clarity). */
-export function drawNormal(random: SeededRandom): number {
-  const u1 = 1 - random.next(); // (0, 1]: log stays finite
-  const u2 = random.next();
+export function drawNormal(random: Prng): number {
+  const u1 = random.nextDouble(); // (0, 1): log stays finite
+  const u2 = random.nextDouble();
   return Math.sqrt(-2 * Math.log(u1)) * Math.cos(2 * Math.PI * u2);
 }
 
 /** Standard Gumbel (type I extreme value), the logit error: −ln(−ln U). */
-export function drawGumbel(random: SeededRandom): number {
-  const u = Math.min(1 - 1e-12, Math.max(1e-12, random.next()));
+export function drawGumbel(random: Prng): number {
+  const u = Math.min(1 - 1e-12, Math.max(1e-12, random.nextDouble()));
   return -Math.log(-Math.log(u));
 }
 
-export function drawCoefficients(random: SeededRandom): Record<DemoCoefficient, number> {
+export function drawCoefficients(random: Prng): Record<DemoCoefficient, number> {
   const c = DEMO_TRUTH.coefficients;
   const normal = (p: { mean: number; sd: number }) => p.mean + p.sd * drawNormal(random);
   return {
@@ -145,10 +146,10 @@ export function utilityOf(
 }
 
 /** A generator private to one respondent and one screen: replays do not depend on order. */
-export function screenRandom(seed: number, screenKey: string): SeededRandom {
+export function screenRandom(seed: number, screenKey: string): Prng {
   let h = seed >>> 0;
   for (let i = 0; i < screenKey.length; i++) h = Math.imul(h ^ screenKey.charCodeAt(i), 0x01000193);
-  return createSeededRandom(h >>> 0);
+  return createPrng(h >>> 0);
 }
 
 /**
@@ -167,10 +168,10 @@ export function simulateChoice(
     const dominant = screen.alternatives.findIndex((a) => a.index === 0);
     if (truth.behaviour !== 'dominance_failure') return dominant;
     const others = screen.alternatives.map((_, p) => p).filter((p) => p !== dominant);
-    return others[random.nextInt(others.length)];
+    return others[randomIndex(random, others.length)];
   }
   if (truth.behaviour === 'speeder_same_position') return 0;
-  if (truth.behaviour === 'speeder_random') return random.nextInt(n);
+  if (truth.behaviour === 'speeder_random') return randomIndex(random, n);
   let best = 0;
   let bestU = -Infinity;
   screen.alternatives.forEach((alt, p) => {

@@ -18,6 +18,7 @@ import { listIncludedRespondents } from '../../db/queries/study-respondents';
 import { listStudyVersions } from '../../db/queries/versions';
 import { designSchema } from '../../shared/schemas/design';
 import { z } from 'zod';
+import type { RunDataOrder } from '../../shared/schemas/run';
 import { studyDefinitionSchema } from '../../shared/schemas/study-definition';
 import {
   codeStudyAnswers,
@@ -85,7 +86,10 @@ export async function loadVersionInputs(db: Db | DbOrTx, studyId: string): Promi
   }));
 }
 
-/** The given respondents with their choice answers (answers of others are left out). */
+/**
+ * The given respondents with their choice answers (answers of others are left out), in the
+ * respondents' order.
+ */
 export function groupChoiceAnswers(
   respondents: readonly { id: string; versionId: string }[],
   answers: readonly ChoiceAnswerRow[],
@@ -105,10 +109,13 @@ export function groupChoiceAnswers(
   return [...byRespondent.values()];
 }
 
-/** Reads and codes a study's data; `filterId` narrows the respondents to a saved filter. */
+/**
+ * Reads and codes a study's data; `filterId` narrows the respondents to a saved filter, and
+ * `order` is the run's data order (the current one unless an older run is computed again).
+ */
 export async function loadStudyChoiceData(
   db: Db | DbOrTx,
-  params: { studyId: string; filterId?: string | null },
+  params: { studyId: string; filterId?: string | null; order?: RunDataOrder },
 ): Promise<PreparedChoiceData> {
   const versions = await loadVersionInputs(db, params.studyId);
   let included = await listIncludedRespondents(db, { studyId: params.studyId });
@@ -126,5 +133,5 @@ export async function loadStudyChoiceData(
     included = included.filter((r) => keep.has(r.id));
   }
   const answers = await listChoiceAnswers(db, { studyId: params.studyId });
-  return codeStudyAnswers(versions, groupChoiceAnswers(included, answers));
+  return codeStudyAnswers(versions, groupChoiceAnswers(included, answers), params.order);
 }

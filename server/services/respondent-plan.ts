@@ -1,22 +1,37 @@
 /**
  * Per-respondent randomisation: the order of the block's tasks and the on-screen position of
  * every alternative (the block itself comes from db/queries/respondent-blocks.ts). Everything
- * comes from one stored seed, so a plan can be rebuilt and checked; the plan itself is stored
- * in respondents.plan.
+ * comes from one stored seed and the plan generator version, so a plan can be rebuilt and
+ * checked; the plan itself is stored in respondents.plan.
  */
-import { createSeededRandom, type SeededRandom } from '../engine/design/seeded-random';
+import { createPrng } from '../engine/draws/prng';
+import { randomIndex, shuffleWith } from '../engine/draws/random-index';
+import { createLegacySfc32Index } from '../engine/draws/legacy-sfc32';
 import type { Design } from '../../shared/schemas/design';
 import type { Questionnaire } from '../../shared/schemas/questionnaire';
 import { screenKeys } from '../../shared/schemas/questionnaire';
-import type { RespondentPlan } from '../../shared/schemas/respondent';
+import {
+  PLAN_GENERATOR_VERSION,
+  type PlanGeneratorVersion,
+  type RespondentPlan,
+} from '../../shared/schemas/respondent';
 import type { StudyDefinition } from '../../shared/schemas/study-definition';
 
-function shuffled(random: SeededRandom, values: number[]): number[] {
+/** xoshiro stream of respondent plans (version 2), apart from the design's and the draws'. */
+export const PLAN_STREAM = 0x9a17;
+
+type PickIndex = (n: number) => number;
+
+/** Version 2 draws from the one seeded generator; version 1 only rebuilds stored plans. */
+function indexSource(seed: number, version: PlanGeneratorVersion): PickIndex {
+  if (version === 1) return createLegacySfc32Index(seed);
+  const prng = createPrng(seed, PLAN_STREAM);
+  return (n) => randomIndex(prng, n);
+}
+
+function shuffled(pick: PickIndex, values: number[]): number[] {
   const out = [...values];
-  for (let i = out.length - 1; i > 0; i--) {
-    const k = random.nextInt(i + 1);
-    [out[i], out[k]] = [out[k], out[i]];
-  }
+  shuffleWith(pick, out);
   return out;
 }
 
@@ -28,6 +43,8 @@ export type PlanInput = {
   questionnaire: Questionnaire;
   block: number;
   seed: number;
+  /** The generator to draw with: the current one unless a stored plan is rebuilt. */
+  generatorVersion?: PlanGeneratorVersion;
 };
 
 /**
@@ -39,11 +56,12 @@ export type PlanInput = {
  * al. 2011 (ISPOR checklist, items 6 and 10.2); the details are common practice, no source. The repeated task shows the original task's designed alternatives in reverse
  * order; the dominance test always puts its dominant alternative (index 0) at a random
  * position, or it would not test attention. Draws are taken in a fixed sequence (tasks,
- * alternatives, dominance, attributes), so a stored seed rebuilds the same plan.
+ * alternatives, dominance, attributes), so a stored seed and version rebuild the same plan.
  */
 export function createRespondentPlan(input: PlanInput): RespondentPlan {
   const { definition, design, questionnaire, block, seed } = input;
-  const random = createSeededRandom(seed);
+  const generatorVersion = input.generatorVersion ?? PLAN_GENERATOR_VERSION;
+  const random = indexSource(seed, generatorVersion);
   const tasks = design.tasks.filter((t) => t.block === block).map((t) => t.task);
   if (tasks.length === 0) throw new RangeError(`Block ${block} has no tasks`);
   const { shuffleTasks, shuffleAlternatives, shuffleAttributes } = questionnaire.options;
@@ -68,7 +86,11 @@ export function createRespondentPlan(input: PlanInput): RespondentPlan {
     if (page.kind === 'dominance')
       positions[screenKeys.special('dominance', page.id)] = shuffled(random, range(J));
   }
-  const plan: RespondentPlan = { seed, block, taskOrder, positions };
+  // Version-1 plans were stored without the key: rebuilt, they stay byte for byte the same.
+  const plan: RespondentPlan =
+    generatorVersion === 1
+      ? { seed, block, taskOrder, positions }
+      : { seed, generatorVersion, block, taskOrder, positions };
   if (shuffleAttributes) {
     const ids = definition.attributes.map((a) => a.id);
     plan.attributeOrder = shuffled(random, range(ids.length)).map((i) => ids[i]);

@@ -30,12 +30,13 @@ import { listStudyVersions } from '../../db/queries/versions';
 import { listRunProfiles } from '../../db/queries/taste-profiles';
 import { studyDefinitionSchema } from '../../shared/schemas/study-definition';
 import { getWtpUnit } from '../../shared/engine/coding/wtp-unit';
-import type {
-  ConditionalMeans,
-  CreateRun,
-  RespondentFilterDefinition,
-  Run,
-  RunOptions,
+import {
+  RUN_DATA_ORDER,
+  type ConditionalMeans,
+  type CreateRun,
+  type RespondentFilterDefinition,
+  type Run,
+  type RunOptions,
 } from '../../shared/schemas/run';
 import type { EstimationSpec } from '../../shared/schemas/estimation-spec';
 import type { Actor } from './actor';
@@ -145,7 +146,7 @@ export async function createRun(
       teamId: actor.teamId,
       name: input.name || DEFAULT_RUN_NAMES[spec.model],
       model: spec.model,
-      spec: { ...spec, respondents: { filterId } },
+      spec: { ...spec, respondents: { filterId }, dataOrder: RUN_DATA_ORDER },
       seed: getRunSeed(spec),
       createdBy: actor.userId,
     });

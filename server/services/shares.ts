@@ -12,6 +12,8 @@ import {
   computeScenarioShares,
   prepareShareModel,
   type PreparedShareModel,
+  type ScenarioRequest,
+  type ScenarioShares,
 } from '../../shared/engine/shares/share-model';
 import type {
   ShareGroups,
@@ -60,6 +62,28 @@ export async function loadShareGroups(
   };
 }
 
+/**
+ * A scenario's shares, per group of `groups` too when given; a scenario the coder refuses is a
+ * 400 naming the field.
+ */
+export function simulateScenario(
+  prepared: PreparedShareModel,
+  input: ScenarioRequest,
+  groups: ShareGroups | null,
+): ScenarioShares {
+  try {
+    return computeScenarioShares(
+      prepared,
+      input,
+      groups
+        ? { of: Int32Array.from(groups.of), count: Math.max(1, groups.groups.length) }
+        : undefined,
+    );
+  } catch (e) {
+    rethrowScenarioError(e);
+  }
+}
+
 export async function getShareGroups(
   deps: AppDeps,
   actor: Actor,
@@ -103,18 +127,7 @@ export async function simulateStudyShares(
     input.segmentBy && usesProfiles
       ? await loadShareGroups(deps, ctx, profiles, input.segmentBy)
       : null;
-  let result;
-  try {
-    result = computeScenarioShares(
-      prepared,
-      input,
-      groups
-        ? { of: Int32Array.from(groups.of), count: Math.max(1, groups.groups.length) }
-        : undefined,
-    );
-  } catch (e) {
-    rethrowScenarioError(e);
-  }
+  const result = simulateScenario(prepared, input, groups);
   const welfare = computeScenarioWelfare(ctx, prepared, result);
   return {
     ...welfare,

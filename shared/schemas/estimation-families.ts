@@ -6,6 +6,7 @@
  */
 import { z } from 'zod';
 
+/** Hierarchical Bayes distributions; the order is the sampler's code of each (append only). */
 export const HB_DISTRIBUTIONS = ['normal', 'lognormal', 'neg_lognormal', 'fixed'] as const;
 export const LATENT_CLASS_MAX = 8;
 /** Starts of a latent class model when the spec gives none. */

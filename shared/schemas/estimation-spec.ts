@@ -20,14 +20,19 @@ import {
   refineFamilySpec,
 } from './estimation-families';
 
-export const coefficientDistributionSchema = z.enum([
+/**
+ * The one list of coefficient distributions. Its order is the engine's numeric code of each
+ * (server/engine/estimation/distribution-codes.ts): append, never reorder.
+ */
+export const COEFFICIENT_DISTRIBUTIONS = [
   'fixed',
   'normal',
   'lognormal',
   'neg_lognormal',
   'triangular',
   'uniform',
-]);
+] as const;
+export const coefficientDistributionSchema = z.enum(COEFFICIENT_DISTRIBUTIONS);
 export type CoefficientDistributionInput = z.infer<typeof coefficientDistributionSchema>;
 
 export const drawsTypeSchema = z.enum(['halton', 'sobol', 'mlhs', 'random']);

@@ -30,9 +30,19 @@ export const startSessionSchema = z.object({
 });
 export type StartSessionInput = z.input<typeof startSessionSchema>;
 
+/**
+ * The generator new respondent plans are drawn with (docs/methods.md "Plan generator
+ * versions"): 2 is xoshiro128** with unbiased integers; a stored plan without a version was
+ * drawn by version 1 (sfc32), and its seed rebuilds it only with that generator.
+ */
+export type PlanGeneratorVersion = 1 | 2;
+export const PLAN_GENERATOR_VERSION: PlanGeneratorVersion = 2;
+
 /** Per-respondent randomisation, stored in respondents.plan so every screen is reproducible. */
 export const respondentPlanSchema = z.object({
   seed: z.number().int(),
+  /** The generator the seed was drawn with; absent in plans made by version 1. */
+  generatorVersion: z.number().int().min(2).optional(),
   block: z.number().int().min(1),
   /** Design task numbers in the order this respondent sees them. */
   taskOrder: z.array(z.number().int().min(1)),

@@ -43,6 +43,17 @@ export const respondentFilterDefinitionSchema = z
   });
 export type RespondentFilterDefinition = z.infer<typeof respondentFilterDefinitionSchema>;
 
+/**
+ * The order a run reads its respondents in, stored with the run (docs/methods.md "Run data
+ * order"): the draws of a mixed logit, the sampler's sweeps and the latent class starts are
+ * assigned by respondent position, so the order is part of how a run was computed. Runs stored
+ * without one read respondents by id (a random UUID order); new runs read them by respondent
+ * number (order of starting), which does not depend on the ids.
+ */
+export const runDataOrderSchema = z.enum(['respondent-id', 'respondent-number']);
+export type RunDataOrder = z.infer<typeof runDataOrderSchema>;
+export const RUN_DATA_ORDER: RunDataOrder = 'respondent-number';
+
 export const createRespondentFilterSchema = z.object({
   name: z.string().trim().min(1, 'Give the filter a name').max(120),
   definition: respondentFilterDefinitionSchema,
@@ -142,6 +153,8 @@ export type Run = {
   status: RunStatus;
   spec: z.output<typeof estimationSpecSchema>;
   respondents: { filterId: string | null };
+  /** How the run read its respondents; older runs say 'respondent-id'. */
+  dataOrder: RunDataOrder;
   dataHash: string | null;
   seed: number | null;
   progress: RunProgress;

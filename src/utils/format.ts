@@ -13,6 +13,7 @@ export {
   formatNumber,
   formatPercent,
   formatPValue,
+  formatSignificant,
   formatTime,
   getCurrencyCode,
   MINUS,

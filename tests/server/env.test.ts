@@ -31,4 +31,13 @@ describe('loadEnv', () => {
   ])('reads TRUST_PROXY=%j as %j', (raw, want) => {
     expect(loadEnv({ TRUST_PROXY: raw, DATA_DIR: dataDir() }).TRUST_PROXY).toEqual(want);
   });
+
+  it('runs one web process unless WEB_INSTANCES says more', () => {
+    expect(loadEnv({ DATA_DIR: dataDir() }).WEB_INSTANCES).toBe(1);
+    expect(loadEnv({ WEB_INSTANCES: '2', DATA_DIR: dataDir() }).WEB_INSTANCES).toBe(2);
+  });
+
+  it.each(['0', '1.5', 'two'])('refuses WEB_INSTANCES=%j, naming the setting', (raw) => {
+    expect(() => loadEnv({ WEB_INSTANCES: raw, DATA_DIR: dataDir() })).toThrow(/WEB_INSTANCES/);
+  });
 });

@@ -8,6 +8,7 @@ import {
   formatNumber,
   formatPercent,
   formatPValue,
+  formatSignificant,
   getCurrencyCode,
 } from '../../shared/format';
 import { nameWithUnit } from '../../shared/engine/coding/coded-columns';
@@ -21,6 +22,20 @@ describe('formatNumber', () => {
     expect(formatNumber(-0.0001)).toBe('0.000');
     expect(formatNumber(null)).toBe('—');
     expect(formatNumber(Number.NaN)).toBe('—');
+  });
+});
+
+describe('formatSignificant', () => {
+  // Expected strings are the same rounding as Number.prototype.toPrecision (ECMA-262, 2024,
+  // §21.1.3.5), written with the app's grouping and minus sign.
+  it('keeps the significant digits, trailing zeros included, with a true minus sign', () => {
+    expect(formatSignificant(0.284134)).toBe('0.2841');
+    expect(formatSignificant(-1.5, 3)).toBe('−1.50');
+    expect(formatSignificant(12345.6)).toBe('12,350');
+  });
+  it('dashes a missing or infinite value', () => {
+    expect(formatSignificant(null)).toBe('—');
+    expect(formatSignificant(Number.POSITIVE_INFINITY)).toBe('—');
   });
 });
 

@@ -4,10 +4,8 @@
  * its owner, the demo study, and ensureDemoResponses' first-run result and time.
  */
 import { createTestApp, type TestApp } from './test-app';
-import { ensureDemoStudy } from '../../server/seed/demo-study';
 import { ensureDemoResponses } from '../../server/seed/demo-responses';
-import { insertUser } from '../../db/queries/users';
-import { insertMembership, insertTeam } from '../../db/queries/memberships';
+import { createDemoStudy } from '../../scripts/lib/study-factory/demo-study';
 
 export type DemoWorld = {
   t: TestApp;
@@ -20,16 +18,16 @@ export type DemoWorld = {
 
 export async function seedDemoWorld(): Promise<DemoWorld> {
   const t = await createTestApp();
-  const team = await insertTeam(t.deps.db, { name: 'Larkspur Valley Water' });
-  const owner = await insertUser(t.deps.db, {
-    email: 'owner@larkspur.example.test',
-    name: 'Demo owner',
-    passwordHash: 'x',
-  });
-  await insertMembership(t.deps.db, { teamId: team.id, userId: owner.id, role: 'owner' });
-  const studyId = await ensureDemoStudy(t.deps.db, { teamId: team.id, ownerId: owner.id });
+  const demo = await createDemoStudy(t.deps.db, { ownerEmail: 'owner@larkspur.example.test' });
   const t0 = performance.now();
-  const firstRun = await ensureDemoResponses(t.deps.db, { studyId });
+  const firstRun = await ensureDemoResponses(t.deps.db, { studyId: demo.studyId });
   const seedSeconds = (performance.now() - t0) / 1000;
-  return { t, teamId: team.id, userId: owner.id, studyId, firstRun, seedSeconds };
+  return {
+    t,
+    teamId: demo.teamId,
+    userId: demo.ownerId,
+    studyId: demo.studyId,
+    firstRun,
+    seedSeconds,
+  };
 }

@@ -39,13 +39,7 @@ export function createCriterionEvaluator(
   return {
     reset(newRidge) {
       ridge = newRidge;
-      d.sumTasks(S);
-      let sum = 0;
-      for (let r = 0; r < R; r++) {
-        d.copyToTrial(d.info, r);
-        sum += scoreTrial(r);
-      }
-      return sum / R;
+      return d.averageOverDraws(S, scoreTrial);
     },
 
     beginTask(s) {

@@ -31,6 +31,12 @@ export function createDrawInformation(
     for (let i = 0; i < K; i++) for (let k = 0; k <= i; k++) trial[i * K + k] = src[o + i * K + k];
   };
 
+  /** I_r of every draw from all S tasks of x. */
+  const sumTasks = (S: number) => {
+    info.fill(0);
+    for (let r = 0; r < R; r++) for (let s = 0; s < S; s++) addTask(s, r, info, r * KK);
+  };
+
   return {
     K,
     Jt,
@@ -38,11 +44,7 @@ export function createDrawInformation(
     info,
     base,
     trial,
-    /** I_r of every draw from all S tasks of x. */
-    sumTasks(S: number) {
-      info.fill(0);
-      for (let r = 0; r < R; r++) for (let s = 0; s < S; s++) addTask(s, r, info, r * KK);
-    },
+    sumTasks,
     /** B_r = I_r − I_s,r for every draw (task s's rows in x must be current). */
     removeTask(s: number) {
       for (let r = 0; r < R; r++) {
@@ -63,6 +65,19 @@ export function createDrawInformation(
       }
     },
     copyToTrial,
+    /**
+     * Sums I_r of all S tasks, then averages `score(r)` over the draws, each called with
+     * draw r's whole-design information in `trial` (the criterion of the design as it stands).
+     */
+    averageOverDraws(S: number, score: (r: number) => number) {
+      sumTasks(S);
+      let sum = 0;
+      for (let r = 0; r < R; r++) {
+        copyToTrial(info, r);
+        sum += score(r);
+      }
+      return sum / R;
+    },
     /** trial = B_r + I_s,r: draw r's information with task s as x has it now. */
     trialWithTask(s: number, r: number) {
       copyToTrial(base, r);

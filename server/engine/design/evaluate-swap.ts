@@ -30,32 +30,11 @@ export interface SwapResult {
   touchedTask: boolean;
 }
 
-function swapWithinTask(x: SwapContext, s: number, j: number, k: number, a: number, bound: number) {
-  const { c, grid, evaluator } = x;
-  const p = (s * grid.J + j) * grid.A + a;
-  const q = (s * grid.J + k) * grid.A + a;
-  const l = grid.levels[p];
-  const m = grid.levels[q];
-  grid.levels[p] = m;
-  grid.levels[q] = l;
-  if (!isAlternativeValidInTask(c, grid, s, j) || !isAlternativeValidInTask(c, grid, s, k)) {
-    grid.levels[p] = l;
-    grid.levels[q] = m;
-    return Infinity;
-  }
-  evaluator.commitChange(s, j, a, l, m);
-  const value = evaluator.evaluateChange(s, k, a, m, l, bound);
-  if (value < bound) {
-    evaluator.commitChange(s, k, a, m, l);
-    return value;
-  }
-  evaluator.commitChange(s, j, a, m, l);
-  grid.levels[p] = l;
-  grid.levels[q] = m;
-  return Infinity;
-}
-
-function swapAcrossTasks(
+/**
+ * Swaps the levels of cells (s, j, a) and (t, k, a), keeping the swap when it lowers the
+ * criterion below `bound`. Within a task (t = s) the evaluator stays on s throughout.
+ */
+function swapCells(
   x: SwapContext,
   s: number,
   j: number,
@@ -65,6 +44,7 @@ function swapAcrossTasks(
   bound: number,
 ) {
   const { c, grid, evaluator } = x;
+  const across = t !== s;
   const p = (s * grid.J + j) * grid.A + a;
   const q = (t * grid.J + k) * grid.A + a;
   const l = grid.levels[p];
@@ -77,16 +57,20 @@ function swapAcrossTasks(
     return Infinity;
   }
   evaluator.commitChange(s, j, a, l, m);
-  evaluator.endTask(s);
-  evaluator.beginTask(t);
+  if (across) {
+    evaluator.endTask(s);
+    evaluator.beginTask(t);
+  }
   const value = evaluator.evaluateChange(t, k, a, m, l, bound);
   if (value < bound) {
     evaluator.commitChange(t, k, a, m, l);
-    evaluator.endTask(t);
-    evaluator.beginTask(s);
+    if (across) {
+      evaluator.endTask(t);
+      evaluator.beginTask(s);
+    }
     return value;
   }
-  evaluator.beginTask(s);
+  if (across) evaluator.beginTask(s);
   evaluator.commitChange(s, j, a, m, l);
   grid.levels[p] = l;
   grid.levels[q] = m;
@@ -108,7 +92,7 @@ export function trySwaps(
   for (let k = 0; k < J; k++) {
     const m = grid.levels[(s * J + k) * A + a];
     if (k === j || m < 0 || m === l) continue;
-    const value = swapWithinTask(x, s, j, k, a, bound);
+    const value = swapCells(x, s, j, s, k, a, bound);
     if (value < Infinity) return { value, touchedTask: true };
   }
   let touchedTask = false;
@@ -122,7 +106,7 @@ export function trySwaps(
       let k = 0;
       while (k < J && grid.levels[(t * J + k) * A + a] !== m) k++;
       if (k === J) continue;
-      const value = swapAcrossTasks(x, s, j, t, k, a, bound);
+      const value = swapCells(x, s, j, t, k, a, bound);
       touchedTask = true;
       if (value < Infinity) return { value, touchedTask };
       break;

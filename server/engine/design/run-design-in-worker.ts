@@ -7,10 +7,10 @@
  *   const out = await runDesignInWorker(pool, { definition, spec }, { onProgress, signal });
  *   await pool.destroy();
  */
-import { createRequire } from 'node:module';
-import { fileURLToPath, pathToFileURL } from 'node:url';
+import { fileURLToPath } from 'node:url';
 import { MessageChannel } from 'node:worker_threads';
-import { Piscina } from 'piscina';
+import type { Piscina } from 'piscina';
+import { createTsPiscina } from '../parallel/ts-worker-pool';
 import type { DesignProgress } from './generate-design';
 import type { DesignProgressMessage, DesignWorkerResult } from './design-worker-messages';
 
@@ -18,10 +18,8 @@ const WORKER_FILE = fileURLToPath(new URL('./design-worker.ts', import.meta.url)
 
 /** A pool of design worker threads (default 1: design jobs are CPU-bound and sequential). */
 export function createDesignPool(options: { maxThreads?: number; nice?: number } = {}): Piscina {
-  const tsxLoader = pathToFileURL(createRequire(import.meta.url).resolve('tsx')).href;
-  return new Piscina({
+  return createTsPiscina({
     filename: WORKER_FILE,
-    execArgv: ['--import', tsxLoader],
     minThreads: 0,
     maxThreads: options.maxThreads ?? 1,
     // Thread priority (server/engine/parallel/thread-priority.ts).

@@ -86,13 +86,7 @@ export function createTaskEvaluator(
   return {
     reset(newRidge) {
       ridge = newRidge;
-      d.sumTasks(S);
-      let sum = 0;
-      for (let r = 0; r < R; r++) {
-        d.copyToTrial(d.info, r);
-        sum += termFromLower(trial);
-      }
-      return sum / R;
+      return d.averageOverDraws(S, () => termFromLower(trial));
     },
 
     beginTask(s) {

@@ -32,8 +32,21 @@ export function shuffleInPlace(
   offset = 0,
   length = values.length - offset,
 ): void {
+  shuffleWith((n) => randomIndex(prng, n), values, offset, length);
+}
+
+/**
+ * The same Fisher–Yates shuffle with any source of indices on 0..n−1: lets a stored seed of an
+ * earlier generator version (draws/legacy-sfc32.ts) rebuild what it shuffled.
+ */
+export function shuffleWith(
+  pickIndex: (n: number) => number,
+  values: Int32Array | number[],
+  offset = 0,
+  length = values.length - offset,
+): void {
   for (let i = length - 1; i > 0; i--) {
-    const k = randomIndex(prng, i + 1);
+    const k = pickIndex(i + 1);
     const t = values[offset + i];
     values[offset + i] = values[offset + k];
     values[offset + k] = t;

@@ -7,12 +7,13 @@
  * when the cost coefficient can be near zero; individual ratios are in the taste profiles.
  */
 import { inverseNormal } from '../draws/inverse-normal';
+import { drawMultivariateNormal } from '../../../shared/engine/random/multivariate-normal';
 import { createPrng } from '../draws/prng';
 import { choleskyDecompose } from '../linalg/cholesky';
 import { EstimationOptionsError } from './estimation-errors';
 import type { MixedLogitLayout } from './mixed-logit-layout';
 import { getPopulationMeanJacobian } from './population-moments';
-import { quantile } from './sample-quantile';
+import { quantile } from '../../../shared/engine/stats/quantile';
 
 export interface WtpOptions {
   /** Name of the cost coefficient. */
@@ -102,12 +103,7 @@ function krinskyRobb(
   const e = new Float64Array(P);
   const x = new Float64Array(P);
   for (let d = 0; d < draws; d++) {
-    for (let p = 0; p < P; p++) e[p] = inverseNormal(prng.nextDouble());
-    for (let i = 0; i < P; i++) {
-      let v = theta[i];
-      for (let j = 0; j <= i; j++) v += L[i * P + j] * e[j];
-      x[i] = v;
-    }
+    drawMultivariateNormal(theta, L, P, prng, e, x);
     const { means } = getPopulationMeanJacobian(layout, x);
     for (let k = 0; k < K; k++) out[k][d] = -means[k] / means[c];
   }

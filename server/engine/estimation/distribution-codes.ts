@@ -1,6 +1,6 @@
 /**
- * Numeric codes of the coefficient distributions (index into DISTRIBUTIONS of
- * mixed-logit-layout.ts). Kept in a file of plain constants because the WebAssembly kernel
+ * Numeric codes of the coefficient distributions (index into COEFFICIENT_DISTRIBUTIONS of
+ * shared/schemas/estimation-spec.ts). Kept in a file of plain constants because the WebAssembly kernel
  * (server/engine/simd/assembly, AssemblyScript) compiles the same file.
  */
 export const DIST_FIXED = 0;

@@ -28,25 +28,13 @@ import {
   DIST_UNIFORM,
 } from './distribution-codes';
 import { EstimationOptionsError } from './estimation-errors';
+import { COEFFICIENT_DISTRIBUTIONS } from '../../../shared/schemas/estimation-spec';
 
-export const DISTRIBUTIONS = [
-  'fixed',
-  'normal',
-  'lognormal',
-  'neg_lognormal',
-  'triangular',
-  'uniform',
-] as const;
+/** Index of a name in this list = its DIST_* code. */
+export const DISTRIBUTIONS = COEFFICIENT_DISTRIBUTIONS;
 export type CoefficientDistribution = (typeof DISTRIBUTIONS)[number];
 
-export {
-  DIST_FIXED,
-  DIST_LOGNORMAL,
-  DIST_NEG_LOGNORMAL,
-  DIST_NORMAL,
-  DIST_TRIANGULAR,
-  DIST_UNIFORM,
-} from './distribution-codes';
+export * from './distribution-codes';
 
 export interface CoefficientSpec {
   /** Name used in results (e.g. "bill"). */

@@ -8,6 +8,7 @@
  * parameter g depends on, the delta result is null; the simulation needs Σ positive definite.
  */
 import { inverseNormal } from '../draws/inverse-normal';
+import { drawMultivariateNormal } from '../../../shared/engine/random/multivariate-normal';
 import { createPrng } from '../draws/prng';
 import { choleskyDecompose } from '../linalg/cholesky';
 import { quantile } from '../../../shared/engine/stats/quantile';
@@ -101,12 +102,7 @@ function simulate(
   const x = new Float64Array(P);
   const out = Array.from({ length: M }, () => new Float64Array(draws));
   for (let d = 0; d < draws; d++) {
-    for (let p = 0; p < P; p++) e[p] = inverseNormal(prng.nextDouble());
-    for (let i = 0; i < P; i++) {
-      let v = theta[i];
-      for (let j = 0; j <= i; j++) v += L[i * P + j] * e[j];
-      x[i] = v;
-    }
+    drawMultivariateNormal(theta, L, P, prng, e, x);
     const g = fn(x);
     for (let m = 0; m < M; m++) out[m][d] = g[m];
   }

@@ -13,6 +13,7 @@
 import type { DrawsType } from '../draws/uniform-draws';
 import { createKernelArena } from '../simd/kernel-arena';
 import { chooseKernel, type KernelPreference } from '../simd/kernel-choice';
+import { getArenaSlice } from '../simd/arena-kernel';
 import { createProfileRunner } from '../simd/profile-runner';
 import type { ChoiceData } from './choice-data';
 import { EstimationCancelledError, EstimationOptionsError } from './estimation-errors';
@@ -128,15 +129,14 @@ export function computeTasteProfiles(
     { first: 0, count: N, variateRespondents: chunk },
   ]);
   const choice = chooseKernel(opts.kernel, layout);
-  const runner = createProfileRunner({
-    memory: arena.memory ?? arena.buffer,
-    plan: arena.plan,
-    sliceIndex: 0,
-    columns: data.columns,
-    layout,
-    draws: opts.draws,
-    kind: choice.kind,
-  });
+  const runner = createProfileRunner(
+    getArenaSlice(arena, 0, {
+      columns: data.columns,
+      layout,
+      draws: opts.draws,
+      kind: choice.kind,
+    }),
+  );
   for (const note of new Set([choice.note, runner.note])) if (note) options.onNote?.(note);
   const width = getProfileWidth(layout.K);
   const packed = new Float64Array(N * width);

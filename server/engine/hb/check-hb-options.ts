@@ -6,12 +6,13 @@
  * Choice Methods with Simulation, §12.5). K counts the random coefficients. The priors act on the
  * coefficients as coded: rescaling an attribute rescales its coefficient against the prior.
  */
-import { HB_DEFAULTS } from '../../../shared/schemas/estimation-families';
+import { HB_DEFAULTS, HB_DISTRIBUTIONS } from '../../../shared/schemas/estimation-families';
 import type { ChoiceData } from '../estimation/choice-data';
 import { EstimationOptionsError } from '../estimation/estimation-errors';
 import { checkHoldout, resolveCostIndex } from '../estimation/shared-option-checks';
 
-export const HB_DISTRIBUTIONS = ['normal', 'lognormal', 'neg_lognormal', 'fixed'] as const;
+/** Index of a name in this list = its HB_* code below. */
+export { HB_DISTRIBUTIONS };
 export type HbDistribution = (typeof HB_DISTRIBUTIONS)[number];
 
 /** β = α (normal or fixed), e^α (lognormal) or −e^α (neg_lognormal). */

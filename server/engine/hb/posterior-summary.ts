@@ -2,7 +2,7 @@
  * Summaries of posterior draws: mean, SD (n − 1 denominator), and the central 95 % interval from
  * the 2.5 % and 97.5 % sample quantiles (Gelman et al. 2013, BDA3, §10.5; quantiles of type 7).
  */
-import { quantile } from '../estimation/sample-quantile';
+import { quantile } from '../../../shared/engine/stats/quantile';
 
 export interface DrawSummary {
   mean: number;

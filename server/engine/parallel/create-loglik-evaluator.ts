@@ -3,7 +3,7 @@ import type { DrawsSpec } from '../draws/uniform-draws';
 import type { ChoiceData } from '../estimation/choice-data';
 import { createInProcessEvaluator } from '../estimation/loglik-evaluator';
 import type { MixedLogitLayout } from '../estimation/mixed-logit-layout';
-import { createArenaKernel } from '../simd/arena-kernel';
+import { createArenaKernel, getArenaSlice } from '../simd/arena-kernel';
 import { createKernelArena } from '../simd/kernel-arena';
 import { chooseKernel, type KernelPreference } from '../simd/kernel-choice';
 import type { MixedLogitEvaluator } from './mixed-logit-evaluator';
@@ -28,13 +28,7 @@ export async function createLoglikEvaluator(
     { first: 0, count: N, variateRespondents: N },
   ]);
   const made = createArenaKernel({
-    memory: arena.memory ?? arena.buffer,
-    plan: arena.plan,
-    sliceIndex: 0,
-    columns: data.columns,
-    layout,
-    draws,
-    kind: choice.kind,
+    ...getArenaSlice(arena, 0, { columns: data.columns, layout, draws, kind: choice.kind }),
     fillDraws: true,
   });
   return {

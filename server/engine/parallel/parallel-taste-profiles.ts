@@ -19,7 +19,7 @@ import {
 import { createKernelArena } from '../simd/kernel-arena';
 import { chooseKernel } from '../simd/kernel-choice';
 import { createSlicePool, splitRespondents } from './worker-pool-evaluator';
-import type { InitSliceResult } from './worker-messages';
+import { getSliceSetup, type InitSliceResult } from './worker-messages';
 
 /** Respondents per message to a worker. */
 const RANGE = 4 * PROFILE_CHUNK;
@@ -52,13 +52,7 @@ export async function computeTasteProfilesInWorkers(
         pool.run({
           kind: 'profiles-init',
           key,
-          memory: arena.memory ?? arena.buffer,
-          plan: arena.plan,
-          sliceIndex: i,
-          columns: [...data.columns],
-          coefficients: layout.coefficients.map((c) => ({ ...c })),
-          correlated: layout.correlated,
-          wtpCost: layout.wtpCost >= 0 ? layout.coefficients[layout.wtpCost].name : null,
+          ...getSliceSetup(arena, i, data.columns, layout),
           draws: opts.draws,
           kernel: choice.kind,
         }),

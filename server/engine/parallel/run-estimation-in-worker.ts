@@ -8,10 +8,10 @@
  *   const result = await runEstimationInWorker(pool, { spec, built, threads: 2 }, { onProgress, signal });
  *   await pool.destroy();
  */
-import { createRequire } from 'node:module';
-import { fileURLToPath, pathToFileURL } from 'node:url';
+import { fileURLToPath } from 'node:url';
 import { MessageChannel } from 'node:worker_threads';
-import { Piscina } from 'piscina';
+import type { Piscina } from 'piscina';
+import { createTsPiscina } from './ts-worker-pool';
 import type { EstimationResult } from '../../../shared/schemas/estimation-spec';
 import { EstimationCancelledError } from '../estimation/estimation-errors';
 import type { EstimationProgress, EstimationStage } from '../estimation/fit-mixed-logit';
@@ -32,10 +32,8 @@ const WORKER_FILE = fileURLToPath(new URL('./estimation-worker.ts', import.meta.
 export function createEstimationPool(
   options: { maxThreads?: number; nice?: number } = {},
 ): Piscina {
-  const tsxLoader = pathToFileURL(createRequire(import.meta.url).resolve('tsx')).href;
-  return new Piscina({
+  return createTsPiscina({
     filename: WORKER_FILE,
-    execArgv: ['--import', tsxLoader],
     minThreads: 0,
     maxThreads: options.maxThreads ?? 1,
     workerData: { nice: options.nice } satisfies EngineThreadData,

@@ -9,13 +9,19 @@ import { pathToFileURL } from 'node:url';
 import { Piscina } from 'piscina';
 import type { ChoiceData } from '../estimation/choice-data';
 
+/** A piscina pool whose worker file (`options.filename`) is TypeScript. */
+export function createTsPiscina(
+  options: Omit<NonNullable<ConstructorParameters<typeof Piscina>[0]>, 'execArgv'>,
+): Piscina {
+  const tsxLoader = pathToFileURL(createRequire(import.meta.url).resolve('tsx')).href;
+  return new Piscina({ ...options, execArgv: ['--import', tsxLoader] });
+}
+
 /** A pool of `threads` worker threads running the export `name` of `filename`. */
 export function createTsWorkerPool(filename: string, name: string, threads: number): Piscina {
-  const tsxLoader = pathToFileURL(createRequire(import.meta.url).resolve('tsx')).href;
-  return new Piscina({
+  return createTsPiscina({
     filename,
     name,
-    execArgv: ['--import', tsxLoader],
     minThreads: threads,
     maxThreads: threads,
     idleTimeout: 60_000,

@@ -1,6 +1,7 @@
 /** Messages between the estimator and the mixed-logit worker threads (validated in the worker). */
 import type { DrawsSpec } from '../draws/uniform-draws';
-import type { CoefficientSpec } from '../estimation/mixed-logit-layout';
+import type { CoefficientSpec, MixedLogitLayout } from '../estimation/mixed-logit-layout';
+import type { KernelArena } from '../simd/kernel-arena';
 import type { ArenaMemory } from '../simd/arena-kernel';
 import type { ArenaPlan } from '../simd/arena-plan';
 import type { KernelKind } from '../simd/kernel-choice';
@@ -19,6 +20,27 @@ interface SliceSetup {
   wtpCost?: string | null;
   draws: Omit<DrawsSpec, 'dimensions'>;
   kernel: KernelKind;
+}
+
+/**
+ * The setup of slice `sliceIndex` of an arena for a worker thread (the layout travels as its
+ * specification; the worker builds its own).
+ */
+export function getSliceSetup(
+  arena: KernelArena,
+  sliceIndex: number,
+  columns: readonly string[],
+  layout: MixedLogitLayout,
+): Omit<SliceSetup, 'key' | 'draws' | 'kernel'> {
+  return {
+    memory: arena.memory ?? arena.buffer,
+    plan: arena.plan,
+    sliceIndex,
+    columns: [...columns],
+    coefficients: layout.coefficients.map((c) => ({ ...c })),
+    correlated: layout.correlated,
+    wtpCost: layout.wtpCost >= 0 ? layout.coefficients[layout.wtpCost].name : null,
+  };
 }
 
 /** Sets up a kernel for evaluations over one slice of the arena. */

@@ -14,7 +14,7 @@ import { createKernelArena } from '../simd/kernel-arena';
 import type { KernelChoice } from '../simd/kernel-choice';
 import type { MixedLogitEvaluator } from './mixed-logit-evaluator';
 import { createTsWorkerPool } from './ts-worker-pool';
-import type { InitSliceResult, SliceResult } from './worker-messages';
+import { getSliceSetup, type InitSliceResult, type SliceResult } from './worker-messages';
 
 const WORKER_FILE = fileURLToPath(new URL('./mixed-logit-worker.ts', import.meta.url));
 
@@ -69,13 +69,7 @@ export async function createWorkerPoolEvaluator(
           pool.run({
             kind: 'init',
             key,
-            memory: arena.memory ?? arena.buffer,
-            plan: arena.plan,
-            sliceIndex: i,
-            columns: [...data.columns],
-            coefficients: layout.coefficients.map((c) => ({ ...c })),
-            correlated: layout.correlated,
-            wtpCost: layout.wtpCost >= 0 ? layout.coefficients[layout.wtpCost].name : null,
+            ...getSliceSetup(arena, i, data.columns, layout),
             draws,
             kernel: choice.kind,
           }) as Promise<InitSliceResult>,

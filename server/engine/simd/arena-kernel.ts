@@ -8,7 +8,7 @@ import { createMixedLogitKernel, type MixedLogitKernel } from '../estimation/mix
 import type { MixedLogitLayout } from '../estimation/mixed-logit-layout';
 import { fillStandardVariates } from '../estimation/standard-variates';
 import type { ArenaPlan } from './arena-plan';
-import { getArenaChoiceData } from './kernel-arena';
+import { getArenaChoiceData, type KernelArena } from './kernel-arena';
 import { describeFallback, WTP_SPACE_REASON, type KernelKind } from './kernel-choice';
 import { createSimdMixedLogitKernel } from './simd-mixed-logit-kernel';
 import { loadSimdKernelModule } from './simd-kernel-module';
@@ -25,7 +25,27 @@ export interface ArenaKernel {
 /** The shared memory of an arena: a WebAssembly memory, or a bare SharedArrayBuffer. */
 export type ArenaMemory = WebAssembly.Memory | SharedArrayBuffer;
 
-function getBuffer(memory: ArenaMemory): SharedArrayBuffer {
+/** What a kernel over one slice of an arena is made from. */
+export interface ArenaSlice {
+  memory: ArenaMemory;
+  plan: ArenaPlan;
+  sliceIndex: number;
+  columns: readonly string[];
+  layout: MixedLogitLayout;
+  draws: Omit<DrawsSpec, 'dimensions'>;
+  kind: KernelKind;
+}
+
+/** Slice `sliceIndex` of an arena made in this thread. */
+export function getArenaSlice(
+  arena: KernelArena,
+  sliceIndex: number,
+  rest: Omit<ArenaSlice, 'memory' | 'plan' | 'sliceIndex'>,
+): ArenaSlice {
+  return { memory: arena.memory ?? arena.buffer, plan: arena.plan, sliceIndex, ...rest };
+}
+
+export function getArenaBuffer(memory: ArenaMemory): SharedArrayBuffer {
   return memory instanceof WebAssembly.Memory
     ? (memory.buffer as unknown as SharedArrayBuffer)
     : memory;
@@ -35,19 +55,10 @@ function getBuffer(memory: ArenaMemory): SharedArrayBuffer {
  * Creates the kernel of slice `sliceIndex`. With `fillDraws` the slice's variates (all its
  * respondents) are generated first; taste profiles fill theirs chunk by chunk instead.
  */
-export function createArenaKernel(params: {
-  memory: ArenaMemory;
-  plan: ArenaPlan;
-  sliceIndex: number;
-  columns: readonly string[];
-  layout: MixedLogitLayout;
-  draws: Omit<DrawsSpec, 'dimensions'>;
-  kind: KernelKind;
-  fillDraws: boolean;
-}): ArenaKernel {
+export function createArenaKernel(params: ArenaSlice & { fillDraws: boolean }): ArenaKernel {
   const { memory, plan, sliceIndex, layout, draws } = params;
   const slice = plan.slices[sliceIndex];
-  const buffer = getBuffer(memory);
+  const buffer = getArenaBuffer(memory);
   const variates = new Float32Array(
     buffer,
     slice.variates,

@@ -4,14 +4,11 @@
  * flat however many respondents there are. The chosen kernel (WebAssembly SIMD or
  * TypeScript) simulates each respondent; profile-moments.ts turns the draws into numbers.
  */
-import type { DrawsSpec } from '../draws/uniform-draws';
 import { createMixedLogitKernel, type MixedLogitKernel } from '../estimation/mixed-logit-kernel';
-import type { MixedLogitLayout } from '../estimation/mixed-logit-layout';
 import { getProfileWidth, summariseProfileDraws } from '../estimation/profile-moments';
 import { fillStandardVariates } from '../estimation/standard-variates';
 import { H_COUNT, H_FIRST, HEADER_WORDS } from './arena-header';
-import { createArenaKernel, type ArenaMemory } from './arena-kernel';
-import type { ArenaPlan } from './arena-plan';
+import { createArenaKernel, getArenaBuffer, type ArenaSlice } from './arena-kernel';
 import { getArenaChoiceData } from './kernel-arena';
 import type { KernelKind } from './kernel-choice';
 
@@ -32,19 +29,11 @@ export interface ProfileRunner {
   ): void;
 }
 
-export function createProfileRunner(params: {
-  memory: ArenaMemory;
-  plan: ArenaPlan;
-  sliceIndex: number;
-  columns: readonly string[];
-  layout: MixedLogitLayout;
-  draws: Omit<DrawsSpec, 'dimensions'>;
-  kind: KernelKind;
-}): ProfileRunner {
+export function createProfileRunner(params: ArenaSlice): ProfileRunner {
   const { plan, layout, draws } = params;
   const made = createArenaKernel({ ...params, fillDraws: false });
   const slice = plan.slices[params.sliceIndex];
-  const buffer = params.memory instanceof WebAssembly.Memory ? params.memory.buffer : params.memory;
+  const buffer = getArenaBuffer(params.memory);
   const header = new Uint32Array(buffer, slice.header, HEADER_WORDS);
   const data =
     made.kind === 'typescript'

@@ -5,8 +5,9 @@
  * effects or linear, alternative-specific constants for labeled alternatives and one for the
  * opt-out / status quo. Warm-up tasks are left out; holdout tasks (fixed alternatives of the
  * questionnaire) are flagged so the engine keeps them apart for the holdout hit rate; repeated
- * tasks and dominance tests are checks, not data. Respondents are ordered by id and answers
- * in task order, so the same answers always give the same rows (and the same data hash).
+ * tasks and dominance tests are checks, not data. Answers are put in task order, and the
+ * respondents in the run's data order (shared/schemas/run.ts, RunDataOrder), so the same
+ * answers always give the same rows (and the same data hash).
  */
 import type { LongChoiceRow } from '../../engine/estimation/choice-data';
 import { buildCodingPlan } from '../../../shared/engine/coding/coding-plan';
@@ -14,7 +15,11 @@ import { codeAlternative } from '../../../shared/engine/coding/code-alternative'
 import type { CodedColumn } from '../../../shared/engine/coding/coded-columns';
 import type { Design } from '../../../shared/schemas/design';
 import type { StudyDefinition } from '../../../shared/schemas/study-definition';
-import type { RunDataSummary } from '../../../shared/schemas/run';
+import {
+  RUN_DATA_ORDER,
+  type RunDataOrder,
+  type RunDataSummary,
+} from '../../../shared/schemas/run';
 import { getColumnCodes } from './column-codes';
 import { StudyDataError } from './study-data-error';
 
@@ -74,10 +79,17 @@ export function getPreparedColumns(definition: StudyDefinition): PreparedColumn[
   }));
 }
 
-/** Codes every respondent's answered tasks; throws StudyDataError when versions disagree. */
+/**
+ * Codes every respondent's answered tasks; throws StudyDataError when versions disagree.
+ * `order` 'respondent-number' keeps the respondents as given: callers read them in order of
+ * starting, which is their respondent number (db/queries/respondent-number.ts), so rows and
+ * results do not depend on the ids; 'respondent-id' (runs stored before the data order was)
+ * sorts them by id as those runs did.
+ */
 export function codeStudyAnswers(
   versions: readonly VersionInput[],
   respondents: readonly RespondentInput[],
+  order: RunDataOrder = RUN_DATA_ORDER,
 ): PreparedChoiceData {
   if (versions.length === 0) throw new StudyDataError('no_data', 'The study has no answers yet.');
   const latest = [...versions].sort((a, b) => b.version - a.version)[0];
@@ -103,7 +115,10 @@ export function codeStudyAnswers(
     versions: [],
   };
   const perVersion = new Map<number, number>();
-  const sorted = [...respondents].sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
+  const sorted =
+    order === 'respondent-id'
+      ? [...respondents].sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0))
+      : respondents;
   for (const respondent of sorted) {
     const version = byId.get(respondent.versionId);
     if (!version) throw new StudyDataError('no_data', 'A respondent answered an unknown version.');

@@ -3,20 +3,28 @@ import type { RunRow } from '../../../db/queries/runs';
 import { estimationSpecSchema, type EstimationSpec } from '../../../shared/schemas/estimation-spec';
 import {
   respondentSelectionSchema,
+  runDataOrderSchema,
   runProgressSchema,
   type Run,
+  type RunDataOrder,
   type RunResult,
 } from '../../../shared/schemas/run';
 
-/** The runs.spec column holds the estimation spec plus `respondents` (the selection). */
+/**
+ * The runs.spec column holds the estimation spec plus `respondents` (the selection) and
+ * `dataOrder` (how the respondents were read; absent in runs made before it was stored, which
+ * read them by id).
+ */
 export function splitStoredSpec(stored: unknown): {
   spec: EstimationSpec;
   respondents: { filterId: string | null };
+  dataOrder: RunDataOrder;
 } {
-  const raw = (stored ?? {}) as { respondents?: unknown };
+  const raw = (stored ?? {}) as { respondents?: unknown; dataOrder?: unknown };
   return {
     spec: estimationSpecSchema.parse(stored),
     respondents: respondentSelectionSchema.parse(raw.respondents ?? {}),
+    dataOrder: runDataOrderSchema.parse(raw.dataOrder ?? 'respondent-id'),
   };
 }
 
@@ -30,7 +38,7 @@ export function getRunSeed(spec: EstimationSpec): number | null {
 const iso = (d: Date | null) => (d ? d.toISOString() : null);
 
 export function toRunView(row: RunRow): Run {
-  const { spec, respondents } = splitStoredSpec(row.spec);
+  const { spec, respondents, dataOrder } = splitStoredSpec(row.spec);
   const progress = runProgressSchema.safeParse(row.progress);
   return {
     id: row.id,
@@ -40,6 +48,7 @@ export function toRunView(row: RunRow): Run {
     status: row.status,
     spec,
     respondents,
+    dataOrder,
     dataHash: row.dataHash,
     seed: row.seed,
     progress: progress.success ? progress.data : {},

@@ -17,6 +17,7 @@ import {
   loadVersionInputs,
   toLongCsvRows,
 } from '../choice-data-from-study';
+import { splitStoredSpec } from '../estimation/run-view';
 import { writeCsv } from '../../lib/safe-csv';
 import { buildLongChoiceTable } from './long-choice-file';
 import type { DocumentedTable } from './documented-table';
@@ -65,6 +66,11 @@ export async function exportChoicesCsv(
   const keys = (run.spec as { coefficients: { name: string; column?: string }[] }).coefficients.map(
     (c) => c.column ?? c.name,
   );
-  const table = toLongCsvRows(await loadStudyChoiceData(deps.db, { studyId }), keys);
+  // In the run's own respondent order, so the file estimates as the run did.
+  const { dataOrder } = splitStoredSpec(run.spec);
+  const table = toLongCsvRows(
+    await loadStudyChoiceData(deps.db, { studyId, order: dataOrder }),
+    keys,
+  );
   return file('choices-estimated', writeCsv(table.header, table.rows));
 }

@@ -1,20 +1,13 @@
 /** The design of the newest live version as CSV (server/engine/design/export-design-csv.ts). */
 import { getLatestVersion } from '../../../db/queries/versions';
-import type { AppDeps } from '../../deps';
 import { NotFoundError } from '../../lib/errors';
 import { loadStudy } from '../study-access';
 import type { StudyDefinition } from '../../../shared/schemas/study-definition';
 import type { Design } from '../../../shared/schemas/design';
 import { exportDesignCsv } from '../../engine/design/export-design-csv';
-import { CSV, fileName, type Download } from './download';
-import type { Actor } from '../actor';
+import { CSV, fileName, type StudyExporter } from './download';
 
-export async function exportDesign(
-  deps: AppDeps,
-  actor: Actor,
-  studyId: string,
-  at = new Date(),
-): Promise<Download> {
+export const exportDesign: StudyExporter = async (deps, actor, studyId, at = new Date()) => {
   const study = await loadStudy(deps, actor.teamId, studyId);
   const version = await getLatestVersion(deps.db, { studyId });
   if (!version) throw new NotFoundError('Frozen design');
@@ -23,4 +16,4 @@ export async function exportDesign(
     contentType: CSV,
     body: exportDesignCsv(version.definition as StudyDefinition, version.design as Design),
   };
-}
+};

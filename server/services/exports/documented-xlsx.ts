@@ -4,7 +4,7 @@
  * then one "Codebook" sheet for all of them. Text goes in as text cells, which spreadsheet
  * programs never evaluate as formulas.
  */
-import type ExcelJS from 'exceljs';
+import ExcelJS from 'exceljs';
 import { getCurrencyCode } from '../../../shared/format';
 import {
   buildCodebookRows,
@@ -14,6 +14,18 @@ import {
 } from './documented-table';
 
 export const CODEBOOK_SHEET = 'Codebook';
+
+/** A results workbook made at `at`, with its "About" sheet of `facts` as sheet 1. */
+export function createResultsWorkbook(
+  at: Date,
+  facts: readonly (readonly [string, string | number])[],
+): ExcelJS.Workbook {
+  const workbook = new ExcelJS.Workbook();
+  workbook.creator = 'Choicewright';
+  workbook.created = at;
+  addAboutSheet(workbook, facts);
+  return workbook;
+}
 
 /** Sheet 1 of every results workbook: what the file is about, one fact a row. */
 export function addAboutSheet(

@@ -1,4 +1,7 @@
 /** What every download use case returns, and the file names and content types they share. */
+import type { AppDeps } from '../../deps';
+import type { Actor } from '../actor';
+
 export type Download = {
   filename: string;
   contentType: string;
@@ -6,6 +9,23 @@ export type Download = {
   /** Holds personal columns (external ids, personal answers): the download is audited. */
   personal?: boolean;
 };
+
+/** A download of a study's data: what every study file of the exports route calls. */
+export type StudyExporter = (
+  deps: AppDeps,
+  actor: Actor,
+  studyId: string,
+  at?: Date,
+) => Promise<Download>;
+
+/** A download of one finished run of the study. */
+export type RunExporter = (
+  deps: AppDeps,
+  actor: Actor,
+  studyId: string,
+  runId: string,
+  at?: Date,
+) => Promise<Download>;
 
 export const CSV = 'text/csv; charset=utf-8';
 export const XLSX = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';

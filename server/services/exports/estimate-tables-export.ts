@@ -2,7 +2,6 @@
  * The estimate tables of a run as files to hand on: one XLSX (About, Estimates, WTP, Fit,
  * Codebook) or one CSV per table, the codebook included (estimate-tables.ts).
  */
-import ExcelJS from 'exceljs';
 import type { AppDeps } from '../../deps';
 import { ConflictError } from '../../lib/errors';
 import { writeCsv } from '../../lib/safe-csv';
@@ -10,8 +9,8 @@ import { loadRunContext, type RunContext } from '../tastes/run-context';
 import { getRunSummary } from './run-summary';
 import { buildEstimateTables, getWtpUnavailableReason } from './estimate-tables';
 import { buildCodebookRows, codebookHeader, type DocumentedTable } from './documented-table';
-import { addAboutSheet, addCodebookSheet, addTableSheet } from './documented-xlsx';
-import { CSV, XLSX, fileName, type Download } from './download';
+import { addCodebookSheet, addTableSheet, createResultsWorkbook } from './documented-xlsx';
+import { CSV, XLSX, fileName, type Download, type RunExporter } from './download';
 import type { EstimateTableName } from '../../../shared/schemas/exports';
 import type { Actor } from '../actor';
 
@@ -22,10 +21,7 @@ export async function writeEstimateTablesXlsx(
   tables: readonly DocumentedTable[],
   at: Date,
 ): Promise<Buffer> {
-  const workbook = new ExcelJS.Workbook();
-  workbook.creator = 'Choicewright';
-  workbook.created = at;
-  addAboutSheet(workbook, getRunSummary(ctx, at));
+  const workbook = createResultsWorkbook(at, getRunSummary(ctx, at));
   for (const table of tables) {
     const sheet = addTableSheet(workbook, SHEET_TITLES[table.name], table, ctx.header.costUnit);
     if (table.name === 'wtp' && table.rows.length === 0)
@@ -35,20 +31,20 @@ export async function writeEstimateTablesXlsx(
   return Buffer.from(await workbook.xlsx.writeBuffer());
 }
 
-export async function exportEstimateTablesXlsx(
-  deps: AppDeps,
-  actor: Actor,
-  studyId: string,
-  runId: string,
+export const exportEstimateTablesXlsx: RunExporter = async (
+  deps,
+  actor,
+  studyId,
+  runId,
   at = new Date(),
-): Promise<Download> {
+) => {
   const ctx = await loadRunContext(deps, actor, studyId, runId);
   return {
     filename: fileName(ctx.study.name, 'estimates', 'xlsx', at),
     contentType: XLSX,
     body: await writeEstimateTablesXlsx(ctx, buildEstimateTables(ctx), at),
   };
-}
+};
 
 /** One table (or the codebook of all of them) as CSV. */
 export async function exportEstimateTableCsv(

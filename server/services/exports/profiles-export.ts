@@ -12,7 +12,7 @@ import { buildProfileTable } from './profile-table';
 import { writeProfilesXlsx } from './profiles-xlsx';
 import { renderRunReport } from './run-report';
 import { loadReportScenarios } from './report-scenarios';
-import { CSV, HTML, XLSX, fileName, type Download } from './download';
+import { CSV, HTML, XLSX, fileName, type RunExporter } from './download';
 import type { Actor } from '../actor';
 
 async function loadProfileTable(deps: AppDeps, actor: Actor, studyId: string, runId: string) {
@@ -26,45 +26,32 @@ async function loadProfileTable(deps: AppDeps, actor: Actor, studyId: string, ru
   };
 }
 
-export async function exportProfilesCsv(
-  deps: AppDeps,
-  actor: Actor,
-  studyId: string,
-  runId: string,
-  at = new Date(),
-): Promise<Download> {
-  const { ctx, table } = await loadProfileTable(deps, actor, studyId, runId);
-  return {
-    filename: fileName(ctx.study.name, 'taste-profiles', 'csv', at),
-    contentType: CSV,
-    body: writeCsv(table.header, table.rows),
-    personal: ctx.personal,
+/** The per-respondent table as a CSV file or an XLSX workbook (with its about sheet). */
+function exportProfileTable(format: 'csv' | 'xlsx'): RunExporter {
+  return async (deps, actor, studyId, runId, at = new Date()) => {
+    const { ctx, table } = await loadProfileTable(deps, actor, studyId, runId);
+    return {
+      filename: fileName(ctx.study.name, 'taste-profiles', format, at),
+      contentType: format === 'csv' ? CSV : XLSX,
+      body:
+        format === 'csv'
+          ? writeCsv(table.header, table.rows)
+          : await writeProfilesXlsx(ctx, table, at),
+      personal: ctx.personal,
+    };
   };
 }
 
-export async function exportProfilesXlsx(
-  deps: AppDeps,
-  actor: Actor,
-  studyId: string,
-  runId: string,
-  at = new Date(),
-): Promise<Download> {
-  const { ctx, table } = await loadProfileTable(deps, actor, studyId, runId);
-  return {
-    filename: fileName(ctx.study.name, 'taste-profiles', 'xlsx', at),
-    contentType: XLSX,
-    body: await writeProfilesXlsx(ctx, table, at),
-    personal: ctx.personal,
-  };
-}
+export const exportProfilesCsv = exportProfileTable('csv');
+export const exportProfilesXlsx = exportProfileTable('xlsx');
 
-export async function exportRunReport(
-  deps: AppDeps,
-  actor: Actor,
-  studyId: string,
-  runId: string,
+export const exportRunReport: RunExporter = async (
+  deps,
+  actor,
+  studyId,
+  runId,
   at = new Date(),
-): Promise<Download> {
+) => {
   const { ctx, profiles } = await loadProfileTable(deps, actor, studyId, runId);
   const lowDraws = profiles.filter((p) => p.effectiveDraws < ctx.header.lowDrawsThreshold).length;
   return {
@@ -77,4 +64,4 @@ export async function exportRunReport(
       await loadReportScenarios(deps, actor, studyId, runId),
     ),
   };
-}
+};

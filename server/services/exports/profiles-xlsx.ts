@@ -7,13 +7,12 @@
  * and robust. Text goes in as text cells,
  * which spreadsheet programs never evaluate as formulas, so no quote prefix is needed here.
  */
-import ExcelJS from 'exceljs';
 import type { RunContext } from '../tastes/run-context';
 import type { Table } from './profile-table';
 import { buildCovarianceTable, describeCovariance } from './covariance-table';
 import { getRunSummary } from './run-summary';
 import { getMethodsSections } from './methods-sections';
-import { addAboutSheet } from './documented-xlsx';
+import { createResultsWorkbook } from './documented-xlsx';
 
 export const PROFILES_SHEET = 'Profiles';
 export const METHODS_SHEET = 'Methods';
@@ -23,11 +22,7 @@ export async function writeProfilesXlsx(
   table: Table,
   exportedAt: Date,
 ): Promise<Buffer> {
-  const workbook = new ExcelJS.Workbook();
-  workbook.creator = 'Choicewright';
-  workbook.created = exportedAt;
-
-  addAboutSheet(workbook, getRunSummary(ctx, exportedAt));
+  const workbook = createResultsWorkbook(exportedAt, getRunSummary(ctx, exportedAt));
 
   const profiles = workbook.addWorksheet(PROFILES_SHEET, {
     views: [{ state: 'frozen', ySplit: 1 }],

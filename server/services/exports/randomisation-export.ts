@@ -1,23 +1,21 @@
 /** The randomisation-record download (exports/randomisation-table.ts): no personal columns. */
-import type { AppDeps } from '../../deps';
 import { loadStudy } from '../study-access';
 import { listStudyRespondents } from '../../../db/queries/study-respondents';
 import { z } from 'zod';
 import { writeCsv } from '../../lib/safe-csv';
-import { CSV, fileName, type Download } from './download';
+import { CSV, fileName, type StudyExporter } from './download';
 import { buildRandomisationRows, randomisationHeader } from './randomisation-table';
-import type { Actor } from '../actor';
 
 const attributeNamesSchema = z.object({
   attributes: z.array(z.object({ id: z.string(), name: z.string() })),
 });
 
-export async function exportRandomisationCsv(
-  deps: AppDeps,
-  actor: Actor,
-  studyId: string,
+export const exportRandomisationCsv: StudyExporter = async (
+  deps,
+  actor,
+  studyId,
   at = new Date(),
-): Promise<Download> {
+) => {
   const study = await loadStudy(deps, actor.teamId, studyId);
   const respondents = await listStudyRespondents(deps.db, { studyId });
   // Attribute ids never change once made, so the study's current names label every version;
@@ -31,4 +29,4 @@ export async function exportRandomisationCsv(
     contentType: CSV,
     body: writeCsv(randomisationHeader, buildRandomisationRows(respondents, names)),
   };
-}
+};

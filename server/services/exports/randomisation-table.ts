@@ -1,8 +1,9 @@
 /**
  * The randomisation record: for every respondent, the order in which they saw the design tasks
  * and, for each choice screen, which alternative stood at each position from left to right
- * (read back from the stored plan, server/services/respondent-plan.ts). Lets a researcher
- * check or model order and position effects.
+ * (read back from the stored plan, server/services/respondent-plan.ts), with the seed and plan
+ * generator version that rebuild it. Lets a researcher check or model order and position
+ * effects.
  */
 import { respondentPlanSchema } from '../../../shared/schemas/respondent';
 import type { CellValue } from '../../lib/safe-csv';
@@ -12,6 +13,7 @@ export const randomisationHeader = [
   'number',
   'block',
   'seed',
+  'plan_generator',
   'screen',
   'task',
   'task_shown_as',
@@ -45,6 +47,8 @@ export function buildRandomisationRows(
         r.number,
         plan.block,
         plan.seed,
+        // The seed rebuilds the plan only with its generator (docs/methods.md "Plan generator versions").
+        plan.generatorVersion ?? 1,
         screen,
         task,
         shownAs,

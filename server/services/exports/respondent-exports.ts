@@ -20,7 +20,7 @@ import { getFlagNames } from '../tastes/taste-rows';
 import { writeCsv } from '../../lib/safe-csv';
 import { listAnswerHistory, listRevisedAnswers } from '../../../db/queries/answer-revisions';
 import { answerHistoryHeader, buildAnswerHistory, revisedScreensOf } from './answer-history';
-import { CSV, fileName, type Download } from './download';
+import { CSV, fileName, type StudyExporter } from './download';
 import { getInclusion } from './inclusion';
 import type { Actor } from '../actor';
 
@@ -41,12 +41,7 @@ export async function loadRespondentTable(deps: AppDeps, actor: Actor, studyId: 
 }
 
 /** Every respondent with their status and background answers. */
-export async function exportAnswersCsv(
-  deps: AppDeps,
-  actor: Actor,
-  studyId: string,
-  at = new Date(),
-): Promise<Download> {
+export const exportAnswersCsv: StudyExporter = async (deps, actor, studyId, at = new Date()) => {
   const { study, personal, questions, respondents, versionNumber } = await loadRespondentTable(
     deps,
     actor,
@@ -94,18 +89,18 @@ export async function exportAnswersCsv(
     body: writeCsv(header, rows),
     personal,
   };
-}
+};
 
 /**
  * Every answer of every screen a respondent went back to and changed, oldest first, the
  * current one marked (answers of questions the role may not read are left out).
  */
-export async function exportAnswerHistoryCsv(
-  deps: AppDeps,
-  actor: Actor,
-  studyId: string,
+export const exportAnswerHistoryCsv: StudyExporter = async (
+  deps,
+  actor,
+  studyId,
   at = new Date(),
-): Promise<Download> {
+) => {
   const { study, personal, questions, respondents } = await loadRespondentTable(
     deps,
     actor,
@@ -127,4 +122,4 @@ export async function exportAnswerHistoryCsv(
     body: writeCsv(answerHistoryHeader, rows),
     personal,
   };
-}
+};

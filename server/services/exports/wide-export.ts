@@ -12,7 +12,7 @@ import { loadLongChoiceTable } from './choices-export';
 import { buildWideTable } from './wide-file';
 import { renderRImportScript } from './r-import-script';
 import { buildCodebookRows, codebookHeader } from './documented-table';
-import { CSV, R_SCRIPT, fileName, type Download } from './download';
+import { CSV, R_SCRIPT, fileName, type StudyExporter } from './download';
 import type { Actor } from '../actor';
 
 async function loadWideTable(deps: AppDeps, actor: Actor, studyId: string) {
@@ -37,12 +37,7 @@ async function loadWideTable(deps: AppDeps, actor: Actor, studyId: string) {
   return { study, personal, table };
 }
 
-export async function exportWideCsv(
-  deps: AppDeps,
-  actor: Actor,
-  studyId: string,
-  at = new Date(),
-): Promise<Download> {
+export const exportWideCsv: StudyExporter = async (deps, actor, studyId, at = new Date()) => {
   const { study, personal, table } = await loadWideTable(deps, actor, studyId);
   return {
     filename: fileName(study.name, 'respondents-wide', 'csv', at),
@@ -53,15 +48,10 @@ export async function exportWideCsv(
     ),
     personal,
   };
-}
+};
 
 /** The R script for the wide CSV this role downloads on the same day (same columns). */
-export async function exportWideRScript(
-  deps: AppDeps,
-  actor: Actor,
-  studyId: string,
-  at = new Date(),
-): Promise<Download> {
+export const exportWideRScript: StudyExporter = async (deps, actor, studyId, at = new Date()) => {
   const { study, table } = await loadWideTable(deps, actor, studyId);
   const csvName = fileName(study.name, 'respondents-wide', 'csv', at);
   return {
@@ -69,15 +59,15 @@ export async function exportWideRScript(
     contentType: R_SCRIPT,
     body: renderRImportScript(table, csvName, { study: study.name, exportedAt: at }),
   };
-}
+};
 
 /** Every column of the long choice file and the wide respondent file. */
-export async function exportStudyCodebookCsv(
-  deps: AppDeps,
-  actor: Actor,
-  studyId: string,
+export const exportStudyCodebookCsv: StudyExporter = async (
+  deps,
+  actor,
+  studyId,
   at = new Date(),
-): Promise<Download> {
+) => {
   const { study, table } = await loadWideTable(deps, actor, studyId);
   const long = await loadLongChoiceTable(deps, studyId);
   return {
@@ -85,4 +75,4 @@ export async function exportStudyCodebookCsv(
     contentType: CSV,
     body: writeCsv(codebookHeader, buildCodebookRows([long, table])),
   };
-}
+};

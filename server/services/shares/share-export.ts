@@ -4,19 +4,17 @@
  * on screen. XLSX: About, Shares, Segments (when split), Demand curve (when swept), Codebook.
  * CSV: the demand curve when one is asked for, else the shares.
  */
-import ExcelJS from 'exceljs';
 import type { AppDeps } from '../../deps';
 import { writeCsv } from '../../lib/safe-csv';
 import { sweepDemandCurve } from '../../../shared/engine/shares/demand-curve';
-import { computeScenarioShares } from '../../../shared/engine/shares/share-model';
 import { getLevelLabel } from '../../../shared/study/level-labels';
 import type { ShareExport } from '../../../shared/schemas/shares';
 import type { StudyDefinition } from '../../../shared/schemas/study-definition';
 import { getRunSummary } from '../exports/run-summary';
 import { col, type DocumentedTable } from '../exports/documented-table';
-import { addAboutSheet, addCodebookSheet, addTableSheet } from '../exports/documented-xlsx';
+import { addCodebookSheet, addTableSheet, createResultsWorkbook } from '../exports/documented-xlsx';
 import { CSV, XLSX, fileName, type Download } from '../exports/download';
-import { loadPreparedShareModel, loadShareGroups } from '../shares';
+import { loadPreparedShareModel, loadShareGroups, simulateScenario } from '../shares';
 import { rethrowScenarioError } from './scenario-error';
 import type { Actor } from '../actor';
 
@@ -62,16 +60,9 @@ export async function exportShares(
     input.segmentBy && individual
       ? await loadShareGroups(deps, ctx, profiles, input.segmentBy)
       : null;
-  let result;
+  const result = simulateScenario(prepared, input, groups);
   let curve = null;
   try {
-    result = computeScenarioShares(
-      prepared,
-      input,
-      groups
-        ? { of: Int32Array.from(groups.of), count: Math.max(1, groups.groups.length) }
-        : undefined,
-    );
     if (input.sweep) curve = sweepDemandCurve(prepared, input, input.sweep);
   } catch (e) {
     rethrowScenarioError(e);
@@ -161,10 +152,7 @@ export async function exportShares(
       ),
     };
   }
-  const workbook = new ExcelJS.Workbook();
-  workbook.creator = 'Choicewright';
-  workbook.created = at;
-  addAboutSheet(workbook, [
+  const workbook = createResultsWorkbook(at, [
     ['Scenario', input.name || 'not saved'],
     ...input.alternatives.map(
       (alt, j) =>

@@ -19,6 +19,7 @@
  * browser and the server produce the same draws for the same seed.
  */
 import { createPrng } from '../random/prng';
+import { drawMultivariateNormal } from '../random/multivariate-normal';
 import { inverseNormal } from '../random/inverse-normal';
 
 export type ShareDrawKind = 'parameter' | 'conditional';
@@ -59,13 +60,7 @@ export function drawParameterVectors(
   const z = new Float64Array(K);
   const betas = new Float64Array(draws * K);
   for (let r = 0; r < draws; r++) {
-    for (let k = 0; k < K; k++) z[k] = inverseNormal(prng.nextDouble());
-    const o = r * K;
-    for (let a = 0; a < K; a++) {
-      let v = estimates[a];
-      for (let b = 0; b <= a; b++) v += choleskyLower[a * K + b] * z[b];
-      betas[o + a] = v;
-    }
+    drawMultivariateNormal(estimates, choleskyLower, K, prng, z, betas, r * K);
   }
   return { kind: 'parameter', respondents: 1, draws, coefficients: K, betas };
 }

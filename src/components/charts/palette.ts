@@ -9,6 +9,9 @@ export const okabeIto = [
   '#f0e442',
 ] as const;
 
+/** The theme's ink navy (--color-ink in src/styles/index.css), for marks drawn over coloured series. */
+export const chartInk = '#14213d';
+
 /** A palette colour with transparency, for overlaid series. */
 export function withAlpha(hex: string, alpha: number): string {
   const n = parseInt(hex.slice(1), 16);

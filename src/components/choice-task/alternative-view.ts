@@ -20,6 +20,18 @@ export type AlternativeView = {
   cells: AlternativeCell[];
 };
 
+/** What either layout of a task (side by side, or stacked cards) is given. */
+export type TaskLayoutProps = {
+  attributes: StudyDefinition['attributes'];
+  alternatives: AlternativeView[];
+  selected: number | null;
+  onChoose?: (position: number) => void;
+  /** Name of the radio group (one per task on the page). */
+  name: string;
+  /** Id prefix for each alternative's spoken summary. */
+  summaryId: (position: number) => string;
+};
+
 const LETTERS = 'ABCDE';
 
 export function viewAlternatives(

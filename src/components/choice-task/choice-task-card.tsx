@@ -120,9 +120,9 @@ export function ChoiceTaskCard({
       )}
       <div ref={box} className="w-full">
         {sideBySide ? (
-          <TaskTable {...layout} columns={columns} />
+          <TaskTable {...layout} alternatives={columns} />
         ) : (
-          <TaskStack {...layout} cards={columns} />
+          <TaskStack {...layout} alternatives={columns} />
         )}
       </div>
       {optOut && (

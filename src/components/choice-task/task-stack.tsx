@@ -1,23 +1,20 @@
-import type { Attribute } from '@shared/schemas/study-definition';
 import { cn } from '@/lib/cn';
-import type { AlternativeView } from './alternative-view';
+import type { TaskLayoutProps } from './alternative-view';
 import { LevelText } from './level-text';
-
-type Props = {
-  attributes: Attribute[];
-  cards: AlternativeView[];
-  selected: number | null;
-  onChoose?: (position: number) => void;
-  name: string;
-  summaryId: (position: number) => string;
-};
 
 /**
  * The fallback when the alternatives cannot fit side by side (long labels, images, many
  * alternatives on a narrow screen): one card per alternative, attributes listed in the same
  * order in every card. The whole card is the tap target.
  */
-export function TaskStack({ attributes, cards, selected, onChoose, name, summaryId }: Props) {
+export function TaskStack({
+  attributes,
+  alternatives: cards,
+  selected,
+  onChoose,
+  name,
+  summaryId,
+}: TaskLayoutProps) {
   return (
     <div className="space-y-3">
       {cards.map((c) => (

@@ -1,27 +1,22 @@
-import type { Attribute } from '@shared/schemas/study-definition';
 import { cn } from '@/lib/cn';
-import type { AlternativeView } from './alternative-view';
+import type { AlternativeView, TaskLayoutProps } from './alternative-view';
 import { AttributeName } from './attribute-name';
 import { LevelText } from './level-text';
 import { useInterfaceText } from '@/lib/interface-texts';
-
-type Props = {
-  attributes: Attribute[];
-  columns: AlternativeView[];
-  selected: number | null;
-  onChoose?: (position: number) => void;
-  /** Name of the radio group (one per task on the page). */
-  name: string;
-  /** Id prefix for each alternative's spoken summary. */
-  summaryId: (position: number) => string;
-};
 
 /**
  * The alternatives side by side: one column each, attributes as rows (the attribute's name on
  * its own line across the columns, so values keep the full column width on a phone), and a
  * radio button under each column. Tapping anywhere in a column chooses it.
  */
-export function TaskTable({ attributes, columns, selected, onChoose, name, summaryId }: Props) {
+export function TaskTable({
+  attributes,
+  alternatives: columns,
+  selected,
+  onChoose,
+  name,
+  summaryId,
+}: TaskLayoutProps) {
   const t = useInterfaceText();
   const width = `${100 / columns.length}%`;
   const tint = (c: AlternativeView) => (selected === c.position ? 'bg-primary-soft' : 'bg-white');

@@ -44,22 +44,25 @@ export function FieldShell({ id, label, error, hint, children, className }: Fiel
 
 type Common = { label: ReactNode; error?: string; hint?: ReactNode; wrapperClassName?: string };
 
+/** The control's id (the caller's or a generated one) and the ARIA links to its error or hint. */
+function useControlProps(id: string | undefined, error?: string, hint?: ReactNode) {
+  const auto = useId();
+  const fid = id ?? auto;
+  return {
+    id: fid,
+    'aria-invalid': error ? true : undefined,
+    'aria-describedby': error ? `${fid}-error` : hint ? `${fid}-hint` : undefined,
+  } as const;
+}
+
 export const TextField = forwardRef<
   HTMLInputElement,
   InputHTMLAttributes<HTMLInputElement> & Common
 >(function TextField({ label, error, hint, wrapperClassName, className, id, ...rest }, ref) {
-  const auto = useId();
-  const fid = id ?? auto;
+  const a11y = useControlProps(id, error, hint);
   return (
-    <FieldShell id={fid} label={label} error={error} hint={hint} className={wrapperClassName}>
-      <input
-        ref={ref}
-        id={fid}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={error ? `${fid}-error` : hint ? `${fid}-hint` : undefined}
-        className={cn(control, 'h-10', className)}
-        {...rest}
-      />
+    <FieldShell id={a11y.id} label={label} error={error} hint={hint} className={wrapperClassName}>
+      <input ref={ref} {...a11y} className={cn(control, 'h-10', className)} {...rest} />
     </FieldShell>
   );
 });
@@ -71,18 +74,10 @@ export const SelectField = forwardRef<
   { label, error, hint, wrapperClassName, className, id, children, ...rest },
   ref,
 ) {
-  const auto = useId();
-  const fid = id ?? auto;
+  const a11y = useControlProps(id, error, hint);
   return (
-    <FieldShell id={fid} label={label} error={error} hint={hint} className={wrapperClassName}>
-      <select
-        ref={ref}
-        id={fid}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={error ? `${fid}-error` : hint ? `${fid}-hint` : undefined}
-        className={cn(control, 'h-10', className)}
-        {...rest}
-      >
+    <FieldShell id={a11y.id} label={label} error={error} hint={hint} className={wrapperClassName}>
+      <select ref={ref} {...a11y} className={cn(control, 'h-10', className)} {...rest}>
         {children}
       </select>
     </FieldShell>
@@ -93,18 +88,10 @@ export const TextAreaField = forwardRef<
   HTMLTextAreaElement,
   TextareaHTMLAttributes<HTMLTextAreaElement> & Common
 >(function TextAreaField({ label, error, hint, wrapperClassName, className, id, ...rest }, ref) {
-  const auto = useId();
-  const fid = id ?? auto;
+  const a11y = useControlProps(id, error, hint);
   return (
-    <FieldShell id={fid} label={label} error={error} hint={hint} className={wrapperClassName}>
-      <textarea
-        ref={ref}
-        id={fid}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={error ? `${fid}-error` : hint ? `${fid}-hint` : undefined}
-        className={cn(control, 'min-h-24', className)}
-        {...rest}
-      />
+    <FieldShell id={a11y.id} label={label} error={error} hint={hint} className={wrapperClassName}>
+      <textarea ref={ref} {...a11y} className={cn(control, 'min-h-24', className)} {...rest} />
     </FieldShell>
   );
 });

@@ -12,7 +12,7 @@ import { createTestDb, type TestDb } from '../../support/test-db';
 import { studies, studyVersions } from '../../../db/schema/studies';
 import { teams } from '../../../db/schema/accounts';
 import { studyDefinitionSchema } from '../../../shared/schemas/study-definition';
-import { makeLarkspurDefinition } from '../../engine/coding/fixtures/larkspur-definition';
+import { makeStudyDefinition } from '../../../scripts/lib/study-factory/definition';
 
 let t: TestDb;
 beforeAll(async () => {
@@ -31,7 +31,7 @@ const migration = fs
 
 describe('migration 0004_excluded_combinations', () => {
   it('turns stored prohibitions into excluded pairs, in studies and frozen versions', async () => {
-    const { excludedCombinations: _, ...current } = makeLarkspurDefinition();
+    const { excludedCombinations: _, ...current } = makeStudyDefinition();
     const pair = {
       id: 'p1',
       a: { attributeId: 'bill', levelId: 'b15' },

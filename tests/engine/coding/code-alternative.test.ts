@@ -7,11 +7,11 @@ import { describe, expect, it } from 'vitest';
 import { getCodedColumns } from '../../../shared/engine/coding/coded-columns';
 import { buildCodingPlan } from '../../../shared/engine/coding/coding-plan';
 import { codeAlternative } from '../../../shared/engine/coding/code-alternative';
-import { makeLarkspurDefinition } from './fixtures/larkspur-definition';
+import { makeStudyDefinition } from '../../../scripts/lib/study-factory/definition';
 
 describe('getCodedColumns', () => {
   it('names columns readably in matrix order with the status-quo constant last', () => {
-    const names = getCodedColumns(makeLarkspurDefinition()).map((c) => c.name);
+    const names = getCodedColumns(makeStudyDefinition()).map((c) => c.name);
     expect(names).toEqual([
       'Monthly bill increase (€)',
       'Supply interruptions per year',
@@ -26,7 +26,7 @@ describe('getCodedColumns', () => {
   });
 
   it('gives labeled alternatives J−1 constants, the first alternative being the reference', () => {
-    const def = makeLarkspurDefinition({
+    const def = makeStudyDefinition({
       alternatives: {
         count: 3,
         labeled: true,
@@ -45,7 +45,7 @@ describe('getCodedColumns', () => {
 });
 
 describe('codeAlternative', () => {
-  const plan = buildCodingPlan(makeLarkspurDefinition());
+  const plan = buildCodingPlan(makeStudyDefinition());
 
   it('codes a designed alternative with linear, effects and dummy parts', () => {
     const row = codeAlternative(plan, 0, {
@@ -76,7 +76,7 @@ describe('codeAlternative', () => {
 
   it('codes the opt-out as zero on attribute columns with its constant', () => {
     const optOut = buildCodingPlan(
-      makeLarkspurDefinition({
+      makeStudyDefinition({
         fixedAlternative: { kind: 'opt_out', label: 'Neither', levels: {} },
       }),
     );
@@ -85,7 +85,7 @@ describe('codeAlternative', () => {
 
   it('codes omitted attributes of a labeled alternative as zero and sets its constant', () => {
     const labeled = buildCodingPlan(
-      makeLarkspurDefinition({
+      makeStudyDefinition({
         fixedAlternative: null,
         alternatives: {
           count: 2,

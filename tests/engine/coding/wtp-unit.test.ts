@@ -6,10 +6,10 @@
  */
 import { describe, expect, it } from 'vitest';
 import { getMoneyUnit, getWtpUnit } from '../../../shared/engine/coding/wtp-unit';
-import { makeLarkspurDefinition } from './fixtures/larkspur-definition';
+import { makeStudyDefinition } from '../../../scripts/lib/study-factory/definition';
 
 describe('getWtpUnit', () => {
-  const def = makeLarkspurDefinition();
+  const def = makeStudyDefinition();
 
   it('names the money of the cost attribute', () => {
     expect(getMoneyUnit(def)).toBe('€ of monthly bill increase');
@@ -42,7 +42,7 @@ describe('getWtpUnit', () => {
   });
 
   it('falls back to cost units when the study has no cost attribute', () => {
-    const noCost = makeLarkspurDefinition();
+    const noCost = makeStudyDefinition();
     noCost.attributes = noCost.attributes.filter((a) => !a.isCost);
     expect(getMoneyUnit(noCost)).toBe('cost units');
   });

@@ -19,9 +19,9 @@ import { generateDesign } from '../../../server/engine/design/generate-design';
 import { buildPriorDraws } from '../../../server/engine/design/prior-draws';
 import { createPrng } from '../../../server/engine/draws/prng';
 import { randomIndex } from '../../../server/engine/draws/random-index';
-import { makeLarkspurDefinition } from '../coding/fixtures/larkspur-definition';
+import { makeStudyDefinition } from '../../../scripts/lib/study-factory/definition';
 
-const definition = makeLarkspurDefinition();
+const definition = makeStudyDefinition();
 const plan = buildCodingPlan(definition);
 const K = plan.columnCount;
 const priorColumns = getCodedColumns(definition).map((c) => ({

@@ -6,7 +6,8 @@
  * engine's tables: with fixed priors a sign is known whenever the prior is not zero.
  */
 import { describe, expect, it } from 'vitest';
-import { demoDefinition, getDemoDesignSpec } from '../../../server/seed/demo-study';
+import { demoDefinition } from '../../../server/seed/demo-definition';
+import { getDemoDesignSpec } from '../../../server/seed/demo-study';
 import { generateDesign } from '../../../server/engine/design/generate-design';
 
 /** Utility of each level under the demo priors, per attribute (signs are what matter). */

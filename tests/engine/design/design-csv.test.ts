@@ -5,9 +5,9 @@ import { describe, expect, it } from 'vitest';
 import { exportDesignCsv } from '../../../server/engine/design/export-design-csv';
 import { generateDesign } from '../../../server/engine/design/generate-design';
 import { importDesignCsv } from '../../../server/engine/design/import-design-csv';
-import { makeLarkspurDefinition } from '../coding/fixtures/larkspur-definition';
+import { makeStudyDefinition } from '../../../scripts/lib/study-factory/definition';
 
-const definition = makeLarkspurDefinition({
+const definition = makeStudyDefinition({
   excludedCombinations: [
     {
       id: 'p1',

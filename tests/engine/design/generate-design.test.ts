@@ -8,7 +8,7 @@ import { generateDesign } from '../../../server/engine/design/generate-design';
 import { createPrng } from '../../../server/engine/draws/prng';
 import { designSchema } from '../../../shared/schemas/design';
 import { getCodedColumns } from '../../../shared/engine/coding/coded-columns';
-import { makeLarkspurDefinition } from '../coding/fixtures/larkspur-definition';
+import { makeStudyDefinition } from '../../../scripts/lib/study-factory/definition';
 import { makeSymmetricDefinition } from './design-fixtures';
 
 describe('assignBlocks', () => {
@@ -93,7 +93,7 @@ describe('generateDesign', () => {
   });
 
   it('designs around a status quo: valid design, probabilities over three rows summing to 1', () => {
-    const def = makeLarkspurDefinition();
+    const def = makeStudyDefinition();
     const columns = getCodedColumns(def).map((c) => ({
       key: c.key,
       mean: c.key === 'attr:bill' ? -0.1 : c.key === 'asc:fixed' ? 0.5 : 0.2,
@@ -115,7 +115,7 @@ describe('generateDesign', () => {
   });
 
   it('leaves attributes a labeled alternative omits out of its levels', () => {
-    const def = makeLarkspurDefinition({
+    const def = makeStudyDefinition({
       fixedAlternative: null,
       alternatives: {
         count: 2,

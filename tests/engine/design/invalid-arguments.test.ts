@@ -7,7 +7,7 @@ import { DesignError } from '../../../server/engine/design/design-errors';
 import { generateDesign } from '../../../server/engine/design/generate-design';
 import { codeAlternative } from '../../../shared/engine/coding/code-alternative';
 import { buildCodingPlan } from '../../../shared/engine/coding/coding-plan';
-import { makeLarkspurDefinition } from '../coding/fixtures/larkspur-definition';
+import { makeStudyDefinition } from '../../../scripts/lib/study-factory/definition';
 import { makeSymmetricDefinition } from './design-fixtures';
 
 function catchDesignError(run: () => unknown): DesignError {
@@ -150,12 +150,12 @@ describe('generateDesign infeasible requests', () => {
 });
 
 describe('coding invalid arguments', () => {
-  const plan = buildCodingPlan(makeLarkspurDefinition());
+  const plan = buildCodingPlan(makeStudyDefinition());
   it('rejects an alternative index outside the study', () => {
     expect(() => codeAlternative(plan, 5, {})).toThrow(/does not exist/);
   });
   it('rejects the fixed alternative when the study has none', () => {
-    const none = buildCodingPlan(makeLarkspurDefinition({ fixedAlternative: null }));
+    const none = buildCodingPlan(makeStudyDefinition({ fixedAlternative: null }));
     expect(() => codeAlternative(none, 'fixed', {})).toThrow(/does not exist|no opt-out/);
   });
 });

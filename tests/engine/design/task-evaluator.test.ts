@@ -17,7 +17,7 @@ import { buildPriorDraws } from '../../../server/engine/design/prior-draws';
 import { createPrng } from '../../../server/engine/draws/prng';
 import { randomIndex } from '../../../server/engine/draws/random-index';
 import { createTaskEvaluator } from '../../../server/engine/design/task-evaluator';
-import { makeLarkspurDefinition } from '../coding/fixtures/larkspur-definition';
+import { makeStudyDefinition } from '../../../scripts/lib/study-factory/definition';
 import { makeGrid, makeSymmetricDefinition } from './design-fixtures';
 
 function randomGrid(plan: CodingPlan, S: number, seed: number): LevelGrid {
@@ -71,7 +71,7 @@ function checkChanges(
 
 describe('createTaskEvaluator', () => {
   it('matches the from-scratch Bayesian D-error with a status quo (fast path)', () => {
-    const plan = buildCodingPlan(makeLarkspurDefinition());
+    const plan = buildCodingPlan(makeStudyDefinition());
     const K = plan.columnCount;
     const means = Float64Array.from({ length: K }, (_, k) => (k % 2 === 0 ? 0.3 : -0.2));
     means[0] = -0.08; // cost per €

@@ -2,12 +2,16 @@
  * A run end to end in-process: the API enqueues, the job handler (what the worker runs) claims
  * the run, estimates, stores results and one taste profile per respondent; cancel stops a
  * running run; a run left running by a dead worker is queued again by the sweep and started
- * again (an MNL keeps no checkpoint), or failed once it has lost its worker too often.
+ * again (an MNL keeps no checkpoint), or failed once it has lost its worker too often. Runs
+ * say how they read their respondents (docs/methods.md "Run data order"): a new run by
+ * respondent number; a run stored before the order was, by id, also when computed again, so it
+ * reproduces bit for bit.
  */
 import { beforeAll, describe, expect, it } from 'vitest';
-import { eq } from 'drizzle-orm';
+import { eq, sql } from 'drizzle-orm';
 import { useTestApp } from '../../support/test-app';
 import { runs } from '../../../db/schema/models';
+import { respondents } from '../../../db/schema/fieldwork';
 import { listRunProfiles } from '../../../db/queries/taste-profiles';
 import { getRunForJob } from '../../../db/queries/runs';
 import { runEstimationJob } from '../../../server/jobs/estimation-job';
@@ -17,7 +21,11 @@ import {
   sweepStaleRuns,
   WORKER_LOST_ERROR,
 } from '../../../server/jobs/stale-run-sweep';
-import { seedRunStudy, TRUE_MNL, type SeededStudy } from './run-fixtures';
+import {
+  hashChoiceData,
+  loadStudyChoiceData,
+} from '../../../server/services/choice-data-from-study';
+import { mixedLogitSpec, seedRunStudy, TRUE_MNL, type SeededStudy } from './run-fixtures';
 
 const t = useTestApp({}, { signIn: 'team', recordJobs: true });
 let study: SeededStudy;
@@ -249,3 +257,63 @@ async function seedEmptyStudy() {
     .returning({ id: studies.id });
   return row;
 }
+
+const getRun = async (id: string) =>
+  (await t.team.agents.viewer.get(`${base}/${id}`).expect(200)).body;
+const keys = mixedLogitSpec(20, 9).coefficients.map((c) => c.column);
+
+describe('run data order', () => {
+  it('reads a new run in respondent-number order and says so', async () => {
+    const res = await t.team.agents.analyst
+      .post(base)
+      .send({ spec: mixedLogitSpec(20, 9) })
+      .expect(201);
+    expect(res.body.dataOrder).toBe('respondent-number');
+    await runEstimationJob(t.deps, res.body.id, { threads: 1 });
+    const run = await getRun(res.body.id);
+    expect(run.status).toBe('done');
+    const prepared = await loadStudyChoiceData(t.deps.db, { studyId: study.studyId });
+    expect(run.dataHash).toBe(hashChoiceData(prepared, keys));
+  }, 120_000);
+
+  it('computes a run stored without a data order again in id order, bit for bit', async () => {
+    // The fixture's ids follow the order of starting; the first respondent starting last makes
+    // id order and respondent-number order differ.
+    await t.deps.db
+      .update(respondents)
+      .set({ startedAt: new Date(Date.now() + 3_600_000) })
+      .where(eq(respondents.id, study.respondentIds[0]));
+    const res = await t.team.agents.analyst
+      .post(base)
+      .send({ spec: mixedLogitSpec(20, 9) })
+      .expect(201);
+    // As a run stored before the data order was: its stored spec has no dataOrder.
+    await t.deps.db
+      .update(runs)
+      .set({ spec: sql`${runs.spec} - 'dataOrder'` })
+      .where(eq(runs.id, res.body.id));
+    expect((await getRun(res.body.id)).dataOrder).toBe('respondent-id');
+    await runEstimationJob(t.deps, res.body.id, { threads: 1 });
+    const first = await getRun(res.body.id);
+    expect(first.status).toBe('done');
+    const byId = await loadStudyChoiceData(t.deps.db, {
+      studyId: study.studyId,
+      order: 'respondent-id',
+    });
+    expect(first.dataHash).toBe(hashChoiceData(byId, keys));
+    const byNumber = await loadStudyChoiceData(t.deps.db, { studyId: study.studyId });
+    expect(first.dataHash).not.toBe(hashChoiceData(byNumber, keys));
+
+    // Computed again: the same data, the same estimates to the last bit.
+    await t.deps.db
+      .update(runs)
+      .set({ status: 'queued', results: null, dataHash: null })
+      .where(eq(runs.id, res.body.id));
+    await runEstimationJob(t.deps, res.body.id, { threads: 1 });
+    const again = await getRun(res.body.id);
+    expect(again.status).toBe('done');
+    expect(again.dataHash).toBe(first.dataHash);
+    expect(again.results.estimates).toEqual(first.results.estimates);
+    expect(again.results.loglik).toBe(first.results.loglik);
+  }, 120_000);
+});

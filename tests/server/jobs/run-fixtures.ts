@@ -1,21 +1,22 @@
 /**
- * A hand-built, live Larkspur Valley Water study with simulated respondents for run tests:
- * one frozen version (definition, a seeded random design of 16 tasks in 2 blocks, a
+ * A closed Larkspur Valley Water study of the study factory with simulated respondents for run
+ * tests: one frozen version (definition, its seeded random design of 16 tasks in 2 blocks, a
  * questionnaire with one warm-up and one holdout task), completed respondents whose design
  * choices follow a known MNL (Gumbel errors from a seeded generator), plus an excluded and an
  * unfinished respondent. Rows are written directly: the fieldwork code is not under test here.
  */
 import { randomBytes } from 'node:crypto';
 import type { Db } from '../../../db/client';
-import { answers, respondents } from '../../../db/schema/fieldwork';
-import { studies, studyVersions } from '../../../db/schema/studies';
 import { respondentFilters } from '../../../db/schema/models';
 import { createPrng } from '../../../server/engine/draws/prng';
 import { buildCodingPlan } from '../../../shared/engine/coding/coding-plan';
 import { codeAlternative } from '../../../shared/engine/coding/code-alternative';
 import type { Design } from '../../../shared/schemas/design';
 import type { StudyDefinition } from '../../../shared/schemas/study-definition';
-import { makeLarkspurDefinition } from '../../engine/coding/fixtures/larkspur-definition';
+import { makeStudyDefinition } from '../../../scripts/lib/study-factory/definition';
+import { makeStudyDesign } from '../../../scripts/lib/study-factory/design';
+import { insertStudyRow } from '../../../scripts/lib/study-factory/insert-study';
+import { insertRespondentRow } from '../../../scripts/lib/study-factory/insert-respondent';
 
 /** True MNL coefficients by coded-column key (bill, interruptions, warning effects, river, renew, SQ). */
 export const TRUE_MNL: Record<string, number> = {
@@ -56,21 +57,6 @@ export function mixedLogitSpec(draws: number, seed: number, randomInterrupt = fa
 
 export const WARMUP_PAGE = 'wu1';
 export const HOLDOUT_PAGE = 'ho1';
-
-/** 16 tasks of two random packages each (no package equal to the other), blocks of 8. */
-export function makeRandomDesign(definition: StudyDefinition, seed = 11): Design {
-  const prng = createPrng(seed);
-  const pick = <T>(xs: T[]) => xs[Math.floor(prng.nextDouble() * xs.length)];
-  const tasks = Array.from({ length: 16 }, (_, i) => {
-    const alternatives = [0, 1].map(() => ({
-      levels: Object.fromEntries(
-        definition.attributes.map((a) => [a.id, pick(a.levels.map((l) => l.id))]),
-      ),
-    }));
-    return { block: i < 8 ? 1 : 2, task: i + 1, alternatives };
-  });
-  return { blocks: 2, tasks };
-}
 
 export function makeQuestionnaire() {
   const alternatives = [
@@ -157,8 +143,8 @@ export async function seedRunStudy(
     filterBeta?: Record<string, number>;
   },
 ): Promise<SeededStudy> {
-  const definition = makeLarkspurDefinition();
-  const design = makeRandomDesign(definition);
+  const definition = makeStudyDefinition();
+  const design = makeStudyDesign(definition);
   const plan = buildCodingPlan(definition);
   const beta = plan.columns.map((c) => (params.beta ?? TRUE_MNL)[c.key] ?? 0);
   const filterBeta = params.filterBeta
@@ -167,28 +153,14 @@ export async function seedRunStudy(
   let tastes = beta;
   const utility = (x: Float64Array) => x.reduce((s, v, k) => s + v * tastes[k], 0);
   const prng = createPrng(params.seed ?? 5);
-  const [study] = await db
-    .insert(studies)
-    .values({
-      teamId: params.teamId,
-      publicId: randomBytes(6).toString('hex'),
-      name: 'Larkspur packages (test)',
-      status: 'closed',
-      definition,
-      questionnaire: makeQuestionnaire(),
-      currentVersion: 1,
-    })
-    .returning({ id: studies.id });
-  const [version] = await db
-    .insert(studyVersions)
-    .values({
-      studyId: study.id,
-      version: 1,
-      definition,
-      design,
-      questionnaire: makeQuestionnaire(),
-    })
-    .returning({ id: studyVersions.id });
+  const study = await insertStudyRow(db, {
+    teamId: params.teamId,
+    name: 'Larkspur packages (test)',
+    status: 'closed',
+    definition,
+    design,
+    questionnaire: makeQuestionnaire(),
+  });
   const total = (params.respondents ?? 60) + 2;
   const ids: string[] = [];
   let excludedId = '';
@@ -201,24 +173,6 @@ export async function seedRunStudy(
     tastes = (n % 3 === 0 ? n % 4 !== 0 : n % 5 === 1) ? filterBeta : beta;
     const excluded = n === total - 2;
     const unfinished = n === total - 1;
-    const [r] = await db
-      .insert(respondents)
-      .values({
-        id: respondentIdOf(study.id, n),
-        studyId: study.id,
-        versionId: version.id,
-        sessionToken: randomBytes(12).toString('hex'),
-        block,
-        plan: {},
-        status: unfinished ? 'in_progress' : 'completed',
-        included: !excluded,
-        exclusionReason: excluded ? 'speeder' : null,
-      })
-      .returning({ id: respondents.id });
-    if (excluded) excludedId = r.id;
-    else if (unfinished) unfinishedId = r.id;
-    else ids.push(r.id);
-    const rows: (typeof answers.$inferInsert)[] = [];
     const screens = [
       { key: `warmup:${WARMUP_PAGE}`, taskNumber: null, alts: holdoutAlts },
       ...design.tasks
@@ -226,34 +180,43 @@ export async function seedRunStudy(
         .map((t) => ({ key: `task:${t.task}`, taskNumber: t.task, alts: t.alternatives })),
       { key: `holdout:${HOLDOUT_PAGE}`, taskNumber: null, alts: holdoutAlts },
     ];
-    for (const s of screens) {
+    const choices = screens.map((s) => {
       const u = s.alts.map((a, j) => utility(codeAlternative(plan, j, a.levels)));
       u.push(utility(codeAlternative(plan, 'fixed', {})));
       const j = choose(u, prng);
-      rows.push({
-        respondentId: r.id,
-        studyId: study.id,
+      return {
         clientId: `${s.key}-${n}`,
         screenKey: s.key,
         taskNumber: s.taskNumber,
         chosenAlternative: j === s.alts.length ? -1 : j,
         chosenPosition: j,
         value: null,
-      });
-    }
-    rows.push({
-      respondentId: r.id,
-      studyId: study.id,
+      };
+    });
+    const filterTap = {
       clientId: `q-${n}`,
       screenKey: 'q:filter_tap',
       value: { kind: 'single', optionId: n % 3 === 0 ? 'yes' : 'no' },
+    };
+    const id = await insertRespondentRow(db, {
+      id: respondentIdOf(study.studyId, n),
+      studyId: study.studyId,
+      versionId: study.versionId!,
+      sessionToken: randomBytes(12).toString('hex'),
+      block,
+      status: unfinished ? 'in_progress' : 'completed',
+      included: !excluded,
+      exclusionReason: excluded ? 'speeder' : null,
+      answers: [...choices, filterTap],
     });
-    await db.insert(answers).values(rows);
+    if (excluded) excludedId = id;
+    else if (unfinished) unfinishedId = id;
+    else ids.push(id);
   }
   ids.sort();
   return {
-    studyId: study.id,
-    versionId: version.id,
+    studyId: study.studyId,
+    versionId: study.versionId!,
     definition,
     design,
     respondentIds: ids,

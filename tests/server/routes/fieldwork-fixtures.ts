@@ -3,12 +3,16 @@
  * version, and respondents with answers written straight into the tables (the respondent flow
  * itself is tested by its own API tests).
  */
-import { randomBytes } from 'node:crypto';
-import { nanoid } from 'nanoid';
 import { eq } from 'drizzle-orm';
 import type { Db } from '../../../db/client';
-import { studies, studyVersions } from '../../../db/schema/studies';
-import { answers, invitees, respondents } from '../../../db/schema/fieldwork';
+import { invitees } from '../../../db/schema/fieldwork';
+import { makeStudyDefinition } from '../../../scripts/lib/study-factory/definition';
+import { makeStudyDesign } from '../../../scripts/lib/study-factory/design';
+import {
+  insertStudyRow,
+  insertStudyVersion,
+} from '../../../scripts/lib/study-factory/insert-study';
+import { insertRespondentRow } from '../../../scripts/lib/study-factory/insert-respondent';
 
 /** A questionnaire with every screen kind the fieldwork figures know about. */
 export const fixtureQuestionnaire = {
@@ -40,15 +44,9 @@ export const fixtureQuestionnaire = {
 };
 
 /** Two blocks of eight tasks (only the block structure matters to the figures). */
-export const fixtureDesign = {
-  blocks: 2,
-  tasks: Array.from({ length: 16 }, (_, i) => ({
-    block: i < 8 ? 1 : 2,
-    task: i + 1,
-    alternatives: [{ levels: {} }, { levels: {} }],
-  })),
-};
+export const fixtureDesign = makeStudyDesign(makeStudyDefinition());
 
+/** Live by default, with version 1 frozen (also for a draft: a study set back after fieldwork). */
 export async function insertStudy(
   db: Db,
   p: {
@@ -59,45 +57,25 @@ export async function insertStudy(
     definition?: object;
   },
 ) {
-  const [study] = await db
-    .insert(studies)
-    .values({
-      teamId: p.teamId,
-      publicId: nanoid(12),
-      name: p.name ?? 'Larkspur service packages',
-      status: p.status ?? 'live',
-      definition: p.definition ?? {},
-      settings: p.settings ?? {},
-      currentVersion: 1,
-    })
-    .returning({ id: studies.id, publicId: studies.publicId });
-  const [version] = await db
-    .insert(studyVersions)
-    .values({
-      studyId: study.id,
-      version: 1,
-      definition: p.definition ?? {},
-      design: fixtureDesign,
-      questionnaire: fixtureQuestionnaire,
-    })
-    .returning({ id: studyVersions.id });
-  return { studyId: study.id, publicId: study.publicId, versionId: version.id };
+  const study = await insertStudyRow(db, {
+    status: 'live',
+    definition: {},
+    ...p,
+    frozen: true,
+    design: fixtureDesign,
+    questionnaire: fixtureQuestionnaire,
+  });
+  return { studyId: study.studyId, publicId: study.publicId, versionId: study.versionId! };
 }
 
-export async function addVersion(db: Db, studyId: string, version: number) {
-  const [v] = await db
-    .insert(studyVersions)
-    .values({
-      studyId,
-      version,
-      definition: {},
-      design: fixtureDesign,
-      questionnaire: fixtureQuestionnaire,
-    })
-    .returning({ id: studyVersions.id });
-  await db.update(studies).set({ currentVersion: version }).where(eq(studies.id, studyId));
-  return v.id;
-}
+export const addVersion = (db: Db, studyId: string, version: number) =>
+  insertStudyVersion(db, {
+    studyId,
+    version,
+    definition: {},
+    design: fixtureDesign,
+    questionnaire: fixtureQuestionnaire,
+  });
 
 export type ChoiceFixture = {
   screenKey: string;
@@ -106,6 +84,7 @@ export type ChoiceFixture = {
   chosenPosition: number;
 };
 
+/** A respondent who started an hour ago, answering every 10 s, done after 10 minutes by default. */
 export async function insertRespondent(
   db: Db,
   p: {
@@ -121,53 +100,31 @@ export async function insertRespondent(
     special?: Array<{ screenKey: string; chosenAlternative: number; value: object }>;
   },
 ) {
-  const status = p.status ?? 'completed';
-  const started = new Date(Date.now() - 3_600_000);
-  const durationMs = p.durationMs === undefined ? 600_000 : p.durationMs;
-  const [r] = await db
-    .insert(respondents)
-    .values({
-      studyId: p.studyId,
-      versionId: p.versionId,
-      sessionToken: randomBytes(24).toString('base64url'),
-      inviteeId: p.inviteeId ?? null,
-      externalId: p.externalId ?? null,
-      block: p.block ?? 1,
-      plan: {},
-      status,
-      startedAt: started,
-      finishedAt:
-        status === 'in_progress' || durationMs === null
-          ? null
-          : new Date(started.getTime() + durationMs),
-      durationMs: status === 'in_progress' ? null : durationMs,
-    })
-    .returning({ id: respondents.id });
+  const { choices = [], other = [], special = [], ...respondent } = p;
+  const startedAt = new Date(Date.now() - 3_600_000);
   const rows = [
-    ...(p.other ?? []).map((o) => ({ screenKey: o.screenKey, value: o.value })),
-    ...(p.choices ?? []).map((c) => ({
-      screenKey: c.screenKey,
-      taskNumber: c.taskNumber,
-      chosenAlternative: c.chosenAlternative,
-      chosenPosition: c.chosenPosition,
+    ...other.map((o) => ({ screenKey: o.screenKey, value: o.value })),
+    ...choices.map((c) => ({
+      ...c,
       value: { kind: 'choice', position: c.chosenPosition, taskKind: 'design' },
     })),
-    ...(p.special ?? []).map((c) => ({
+    ...special.map((c) => ({
       screenKey: c.screenKey,
       chosenAlternative: c.chosenAlternative,
       chosenPosition: 0,
       value: { kind: 'choice', position: 0, ...c.value },
     })),
-  ].map((a, i) => ({
-    ...a,
-    respondentId: r.id,
-    studyId: p.studyId,
-    clientId: `fixture-${nanoid(10)}`,
-    responseMs: 5000,
-    createdAt: new Date(started.getTime() + (i + 1) * 10_000),
-  }));
-  if (rows.length > 0) await db.insert(answers).values(rows);
-  return r.id;
+  ];
+  return insertRespondentRow(db, {
+    durationMs: 600_000,
+    ...respondent,
+    startedAt,
+    answers: rows.map((a, i) => ({
+      ...a,
+      responseMs: 5000,
+      createdAt: new Date(startedAt.getTime() + (i + 1) * 10_000),
+    })),
+  });
 }
 
 /** Eight design tasks; `position` picks the on-screen position, alternative = position here. */

@@ -36,6 +36,8 @@ describe('GET …/exports/randomisation.csv', () => {
     expect(res.headers['content-disposition']).toMatch(/randomisation/);
     const rows = parse(res.text, { columns: true }) as Record<string, string>[];
     expect(new Set(rows.map((r) => r.number))).toEqual(new Set(['1', '2']));
+    // New respondents' plans are drawn by the current plan generator, and say so.
+    expect(new Set(rows.map((r) => r.plan_generator))).toEqual(new Set(['2']));
 
     for (const [n, s] of [session, second].entries()) {
       const mine = rows.filter((r) => r.number === String(n + 1));

@@ -3,16 +3,16 @@
  * status quo, a 2-block design of 2 tasks each, and a questionnaire with every page kind.
  */
 import { nanoid } from 'nanoid';
-import { studies, designs } from '../../../db/schema/studies';
 import { invitees } from '../../../db/schema/fieldwork';
 import type { TestApp } from '../../support/test-app';
-import { makeLarkspurDefinition } from '../../engine/coding/fixtures/larkspur-definition';
+import { makeStudyDefinition } from '../../../scripts/lib/study-factory/definition';
+import { insertStudyRow } from '../../../scripts/lib/study-factory/insert-study';
 import type { Design } from '../../../shared/schemas/design';
 import type { Questionnaire } from '../../../shared/schemas/questionnaire';
 import { demoQuestionnaire } from '../../../shared/schemas/questionnaire-defaults';
 import type { AnswerValue, SubmitAnswerInput } from '../../../shared/schemas/respondent';
 
-export const definition = makeLarkspurDefinition();
+export const definition = makeStudyDefinition();
 
 const alt = (bill: string, interrupt: string, warn: string, river: string, renew: string) => ({
   levels: { bill, interrupt, warn, river, renew },
@@ -78,33 +78,23 @@ export function fullQuestionnaire(): Questionnaire {
   };
 }
 
+/** A draft with the hand-made design above as its current design (go live in the test). */
 export async function insertStudy(
   t: TestApp,
   teamId: string,
   opts: { questionnaire?: Questionnaire | null; withDesign?: boolean; settings?: unknown } = {},
 ) {
-  const [study] = await t.deps.db
-    .insert(studies)
-    .values({
-      teamId,
-      publicId: nanoid(16),
-      // Respondents see the public title, never the internal name.
-      name: 'Water pilot W-26 (internal)',
-      publicTitle: 'Water services 2026',
-      definition,
-      questionnaire: opts.questionnaire === null ? {} : (opts.questionnaire ?? fullQuestionnaire()),
-      settings: opts.settings ?? {},
-    })
-    .returning({ id: studies.id, publicId: studies.publicId });
-  if (opts.withDesign !== false) {
-    const [d] = await t.deps.db
-      .insert(designs)
-      .values({ studyId: study.id, teamId, method: 'imported', design })
-      .returning({ id: designs.id });
-    const { eq } = await import('drizzle-orm');
-    await t.deps.db.update(studies).set({ currentDesignId: d.id }).where(eq(studies.id, study.id));
-  }
-  return study;
+  const study = await insertStudyRow(t.deps.db, {
+    teamId,
+    // Respondents see the public title, never the internal name.
+    name: 'Water pilot W-26 (internal)',
+    publicTitle: 'Water services 2026',
+    definition,
+    design: opts.withDesign === false ? null : design,
+    questionnaire: opts.questionnaire === null ? {} : (opts.questionnaire ?? fullQuestionnaire()),
+    settings: opts.settings,
+  });
+  return { id: study.studyId, publicId: study.publicId };
 }
 
 export async function insertInvitee(t: TestApp, studyId: string, externalId: string | null = null) {

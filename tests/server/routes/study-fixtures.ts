@@ -1,58 +1,50 @@
 /** Factories for study tests: a small valid definition and a study created through the API. */
 import type supertest from 'supertest';
 import type { StudyDefinition } from '../../../shared/schemas/study-definition';
+import {
+  makeStudyDefinition,
+  numericLevels,
+  riverRating,
+} from '../../../scripts/lib/study-factory/definition';
+import {
+  createStudyThroughApi,
+  type StudyApiCall,
+} from '../../../scripts/lib/study-factory/api-study';
 
-/** Two attributes (a numeric cost, a categorical rating), two unlabeled packages. */
+/**
+ * Two attributes (a numeric cost, a categorical rating), two unlabeled packages. Overrides are
+ * not checked, so a test can send a definition the API must refuse.
+ */
 export function makeSmallDefinition(overrides: Partial<StudyDefinition> = {}): StudyDefinition {
-  return {
-    attributes: [
-      {
-        id: 'bill',
-        name: 'Monthly bill increase',
-        kind: 'numeric',
-        unit: '€',
-        isCost: true,
-        coding: 'linear',
-        levels: [0, 5, 10].map((v) => ({ id: `b${v}`, label: `€${v}`, value: v })),
-      },
-      {
-        id: 'river',
-        name: 'River health rating',
-        kind: 'categorical',
-        isCost: false,
-        coding: 'dummy',
-        referenceLevelId: 'poor',
-        levels: [
-          { id: 'poor', label: 'Poor' },
-          { id: 'fair', label: 'Fair' },
-          { id: 'good', label: 'Good' },
-        ],
-      },
-    ],
-    alternatives: { count: 2, labeled: false, labels: [] },
+  const small = makeStudyDefinition({
+    only: ['bill', 'river'],
+    attributes: {
+      bill: { levels: numericLevels('b', [0, 5, 10], (v) => `€${v}`) },
+      river: { ...riverRating(), referenceLevelId: 'poor' },
+    },
     fixedAlternative: null,
-    excludedCombinations: [],
-    ...overrides,
-  };
+  });
+  return { ...small, ...overrides };
 }
 
+/** The study factory's requests sent by a supertest agent. */
+export const supertestCall =
+  (agent: supertest.Agent): StudyApiCall =>
+  async (method, url, body) => {
+    const req = agent[method](url);
+    const res = await (body === undefined ? req : req.send(body as object));
+    return { status: res.status, body: res.body };
+  };
+
+/** A draft created through the API, with a definition saved when given (no design). */
 export async function createStudyVia(
   agent: supertest.Agent,
   teamId: string,
   overrides: Partial<{ name: string; description: string; definition: StudyDefinition }> = {},
 ) {
-  const res = await agent
-    .post(`/api/teams/${teamId}/studies`)
-    .send({
-      name: overrides.name ?? 'Water service packages',
-      description: overrides.description ?? '',
-    })
-    .expect(201);
-  const id = res.body.id as string;
-  if (overrides.definition !== undefined)
-    await agent
-      .put(`/api/teams/${teamId}/studies/${id}/definition`)
-      .send({ definition: overrides.definition })
-      .expect(200);
-  return { id, publicId: res.body.publicId as string };
+  const { id, publicId } = await createStudyThroughApi(supertestCall(agent), teamId, {
+    ...overrides,
+    designJob: null,
+  });
+  return { id, publicId };
 }

@@ -5,10 +5,10 @@
  */
 import { randomBytes } from 'node:crypto';
 import type { Db } from '../../../db/client';
-import { studies, studyVersions } from '../../../db/schema/studies';
-import { answers, respondents } from '../../../db/schema/fieldwork';
 import { runs, tasteProfiles } from '../../../db/schema/models';
-import { makeLarkspurDefinition } from '../../engine/coding/fixtures/larkspur-definition';
+import { makeStudyDefinition } from '../../../scripts/lib/study-factory/definition';
+import { insertStudyRow } from '../../../scripts/lib/study-factory/insert-study';
+import { insertRespondentRow } from '../../../scripts/lib/study-factory/insert-respondent';
 
 export const questionnaire = {
   pages: [
@@ -160,51 +160,32 @@ export function makeResults() {
 const token = () => randomBytes(16).toString('hex');
 
 export async function seedTastesStudy(db: Db, teamId: string) {
-  const definition = makeLarkspurDefinition();
-  const [study] = await db
-    .insert(studies)
-    .values({
-      teamId,
-      publicId: token().slice(0, 12),
-      name: 'Larkspur Valley Water packages',
-      status: 'closed',
-      definition,
-      questionnaire,
-      currentVersion: 1,
-    })
-    .returning({ id: studies.id });
-  const [version] = await db
-    .insert(studyVersions)
-    .values({ studyId: study.id, version: 1, definition, design, questionnaire })
-    .returning({ id: studyVersions.id });
+  const study = await insertStudyRow(db, {
+    teamId,
+    publicId: token().slice(0, 12),
+    name: 'Larkspur Valley Water packages',
+    status: 'closed',
+    definition: makeStudyDefinition(),
+    design,
+    questionnaire,
+  });
   const respondentIds: string[] = [];
   for (let i = 0; i < N; i++) {
-    const [r] = await db
-      .insert(respondents)
-      .values({
-        studyId: study.id,
-        versionId: version.id,
-        sessionToken: token(),
-        externalId: externalIds[i],
-        block: 1,
-        plan: { seed: i, block: 1, taskOrder: [1, 2], positions: {} },
-        status: 'completed',
-        startedAt: new Date(Date.UTC(2026, 0, 1, 9, i)),
-        flags: i === 2 ? { speeder: true, samePosition: false } : {},
-      })
-      .returning({ id: respondents.id });
-    respondentIds.push(r.id);
     const answer = (screenKey: string, value: unknown, extra = {}) => ({
-      respondentId: r.id,
-      studyId: study.id,
       clientId: token(),
       screenKey,
       value,
       ...extra,
     });
-    await db
-      .insert(answers)
-      .values([
+    const id = await insertRespondentRow(db, {
+      studyId: study.studyId,
+      versionId: study.versionId!,
+      sessionToken: token(),
+      externalId: externalIds[i],
+      plan: { seed: i, block: 1, taskOrder: [1, 2], positions: {} },
+      startedAt: new Date(Date.UTC(2026, 0, 1, 9, i)),
+      flags: i === 2 ? { speeder: true, samePosition: false } : {},
+      answers: [
         answer('q:age_band', { kind: 'single', optionId: ageBand[i] }),
         answer('q:household_size', { kind: 'number', number: i + 1 }),
         answer('q:comments', { kind: 'text', text: i === 0 ? '+call me on 555' : 'fine' }),
@@ -218,13 +199,15 @@ export async function seedTastesStudy(db: Db, teamId: string) {
           { kind: 'choice', position: 1 },
           { taskNumber: 2, chosenAlternative: 0, responseMs: 3000 },
         ),
-      ]);
+      ],
+    });
+    respondentIds.push(id);
   }
   const insertRun = async (status: 'done' | 'running') => {
     const [run] = await db
       .insert(runs)
       .values({
-        studyId: study.id,
+        studyId: study.studyId,
         teamId,
         name: status === 'done' ? 'Mixed logit, normal river, lognormal bill' : 'Still running',
         model: 'mixed',
@@ -249,7 +232,13 @@ export async function seedTastesStudy(db: Db, teamId: string) {
       effectiveDraws: effectiveDraws[i],
     })),
   );
-  return { studyId: study.id, versionId: version.id, runId, runningRunId, respondentIds };
+  return {
+    studyId: study.studyId,
+    versionId: study.versionId!,
+    runId,
+    runningRunId,
+    respondentIds,
+  };
 }
 
 /** A share-scenario alternative of the Larkspur definition at middle levels but river and bill. */

@@ -10,13 +10,16 @@ import {
 } from '../../../server/services/choice-data-from-study';
 import type { VersionInput } from '../../../server/services/estimation/code-answers';
 import { StudyDataError } from '../../../server/services/estimation/study-data-error';
+import { listStudyRespondents } from '../../../db/queries/study-respondents';
+import { eq } from 'drizzle-orm';
+import { respondents } from '../../../db/schema/fieldwork';
 import { parseChoiceCsv } from '../../../server/engine/estimation/parse-choice-csv';
-import { makeLarkspurDefinition } from '../../engine/coding/fixtures/larkspur-definition';
+import { makeStudyDefinition } from '../../../scripts/lib/study-factory/definition';
 import { useTestApp } from '../../support/test-app';
 import { createBareTeam } from '../../support/factories';
 import { seedRunStudy, seedTapFilter, type SeededStudy } from '../jobs/run-fixtures';
 
-const definition = makeLarkspurDefinition();
+const definition = makeStudyDefinition();
 const packageA = { bill: 'b6', interrupt: 'i2', warn: 'w0', river: 'good', renew: 'r80' };
 const packageB = { bill: 'b15', interrupt: 'i1', warn: 'w2', river: 'fair', renew: 'r50' };
 const holdoutAlts = [
@@ -117,7 +120,7 @@ describe('codeStudyAnswers', () => {
   });
 
   it('codes labeled alternatives with constants for all but the first label', () => {
-    const labeled = makeLarkspurDefinition({
+    const labeled = makeStudyDefinition({
       alternatives: {
         count: 2,
         labeled: true,
@@ -141,7 +144,7 @@ describe('codeStudyAnswers', () => {
   });
 
   it('codes an opt-out as zeros with its own constant', () => {
-    const optOut = makeLarkspurDefinition({
+    const optOut = makeStudyDefinition({
       fixedAlternative: { kind: 'opt_out', label: 'Neither package', levels: {} },
     });
     const prepared = codeStudyAnswers(
@@ -169,15 +172,24 @@ describe('codeStudyAnswers', () => {
     expect(prepared.rows.every((r) => r.respondent === 'r1')).toBe(true);
   });
 
-  it('orders respondents by id so the data hash does not depend on read order', () => {
-    const r1 = { id: 'a', versionId: 'v1', answers: answersOf(0, 1) };
-    const r2 = { id: 'b', versionId: 'v1', answers: answersOf(1, -1) };
+  it('keeps the respondents in the order read (respondent number), so the hash follows it', () => {
+    const r1 = { id: 'b', versionId: 'v1', answers: answersOf(0, 1) };
+    const r2 = { id: 'a', versionId: 'v1', answers: answersOf(1, -1) };
     const one = codeStudyAnswers([makeVersion()], [r1, r2]);
-    const two = codeStudyAnswers([makeVersion()], [r2, r1]);
-    expect(hashChoiceData(one)).toBe(hashChoiceData(two));
+    expect([...new Set(one.rows.map((r) => r.respondent))]).toEqual(['b', 'a']);
+    expect(hashChoiceData(codeStudyAnswers([makeVersion()], [r1, r2]))).toBe(hashChoiceData(one));
     const other = codeStudyAnswers([makeVersion()], [r1, { ...r2, answers: answersOf(0, -1) }]);
     expect(hashChoiceData(other)).not.toBe(hashChoiceData(one));
     expect(hashChoiceData(one)).toBe(createHash('sha256').update(toLongCsvText(one)).digest('hex'));
+  });
+
+  it('orders respondents by id in the data order of runs stored before (respondent-id)', () => {
+    const r1 = { id: 'b', versionId: 'v1', answers: answersOf(0, 1) };
+    const r2 = { id: 'a', versionId: 'v1', answers: answersOf(1, -1) };
+    const one = codeStudyAnswers([makeVersion()], [r1, r2], 'respondent-id');
+    const two = codeStudyAnswers([makeVersion()], [r2, r1], 'respondent-id');
+    expect([...new Set(one.rows.map((r) => r.respondent))]).toEqual(['a', 'b']);
+    expect(hashChoiceData(one)).toBe(hashChoiceData(two));
   });
 
   it('pools versions with different designs: each respondent is coded with their version', () => {
@@ -219,7 +231,7 @@ describe('codeStudyAnswers', () => {
     const v2 = makeVersion({
       id: 'v2',
       version: 2,
-      definition: makeLarkspurDefinition({ fixedAlternative: null }),
+      definition: makeStudyDefinition({ fixedAlternative: null }),
     });
     expect(() => codeStudyAnswers([makeVersion(), v2], [])).toThrow(StudyDataError);
   });
@@ -256,10 +268,25 @@ describe('loadStudyChoiceData', () => {
     seeded = await seedRunStudy(t.deps.db, { teamId: team.id, respondents: 10 });
   });
 
-  it('uses only included, completed respondents', async () => {
+  it('uses only included, completed respondents, in respondent-number order', async () => {
+    // The fixture's ids follow the order of starting; the first respondent starting last makes
+    // id order and respondent-number order differ.
+    await t.deps.db
+      .update(respondents)
+      .set({ startedAt: new Date(Date.now() + 3_600_000) })
+      .where(eq(respondents.id, seeded.respondentIds[0]));
     const prepared = await loadStudyChoiceData(t.deps.db, { studyId: seeded.studyId });
     const ids = [...new Set(prepared.rows.map((r) => String(r.respondent)))];
-    expect(ids).toEqual(seeded.respondentIds);
+    const numbered = await listStudyRespondents(t.deps.db, { studyId: seeded.studyId });
+    const inNumberOrder = [...numbered].sort((a, b) => a.number - b.number).map((r) => r.id);
+    expect(ids).toEqual([...seeded.respondentIds.slice(1), seeded.respondentIds[0]]);
+    expect(ids).toEqual(inNumberOrder.filter((id) => seeded.respondentIds.includes(id)));
+    // Runs stored before the data order read them by id.
+    const byId = await loadStudyChoiceData(t.deps.db, {
+      studyId: seeded.studyId,
+      order: 'respondent-id',
+    });
+    expect([...new Set(byId.rows.map((r) => String(r.respondent)))]).toEqual(seeded.respondentIds);
     expect(ids).not.toContain(seeded.excludedId);
     expect(ids).not.toContain(seeded.unfinishedId);
     expect(prepared.summary).toMatchObject({

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { checkConsentIdentifiability } from '../../../server/services/consent-checks';
 import { defaultQuestionnaire } from '../../../shared/schemas/questionnaire-defaults';
-import { demoDefinition } from '../../../server/seed/demo-study';
+import { demoDefinition } from '../../../server/seed/demo-definition';
 
 const q = defaultQuestionnaire(demoDefinition);
 const withConsent = (body: string) => ({

@@ -10,7 +10,7 @@ import type { Questionnaire, QuestionnairePage } from '../../../shared/schemas/q
 
 type DominancePage = Extract<QuestionnairePage, { kind: 'dominance' }>;
 type WarmupPage = Extract<QuestionnairePage, { kind: 'warmup' }>;
-import { makeLarkspurDefinition } from '../../engine/coding/fixtures/larkspur-definition';
+import { makeStudyDefinition } from '../../../scripts/lib/study-factory/definition';
 import { definition, design, fullQuestionnaire } from '../routes/respond-fixtures';
 
 const withSpecials = (): Questionnaire => {
@@ -66,7 +66,7 @@ describe('createRespondentPlan', () => {
   });
 
   it('keeps labeled alternatives in their order', () => {
-    const labeled = makeLarkspurDefinition({
+    const labeled = makeStudyDefinition({
       alternatives: {
         count: 2,
         labeled: true,
@@ -125,7 +125,12 @@ describe('createRespondentPlan with the randomisation options', () => {
     for (const [seed, plan] of Object.entries(before))
       expect(
         JSON.stringify(
-          createRespondentPlan({ ...version(withSpecials()), block: 1, seed: Number(seed) }),
+          createRespondentPlan({
+            ...version(withSpecials()),
+            block: 1,
+            seed: Number(seed),
+            generatorVersion: 1,
+          }),
         ),
       ).toBe(plan);
   });

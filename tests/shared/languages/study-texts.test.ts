@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { makeLarkspurDefinition } from '../../engine/coding/fixtures/larkspur-definition';
+import { makeStudyDefinition } from '../../../scripts/lib/study-factory/definition';
 import { demoQuestionnaire } from '../../../shared/schemas/questionnaire-defaults';
 import {
   findMissingTexts,
@@ -15,7 +15,7 @@ import {
 } from '../../../shared/languages/language-tags';
 
 function docs(): StudyDocuments {
-  const definition = makeLarkspurDefinition();
+  const definition = makeStudyDefinition();
   return {
     publicTitle: 'Water services 2026',
     definition,

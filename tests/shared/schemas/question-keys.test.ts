@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { isGeneratedKey, questionKeyFromText } from '../../../shared/schemas/question-keys';
 import { questionKeySchema } from '../../../shared/schemas/questionnaire';
 import { createPage } from '../../../shared/schemas/questionnaire-defaults';
-import { demoDefinition } from '../../../server/seed/demo-study';
+import { demoDefinition } from '../../../server/seed/demo-definition';
 
 describe('questionKeyFromText', () => {
   it('makes a readable slug of the question text', () => {

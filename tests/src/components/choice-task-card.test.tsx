@@ -4,45 +4,27 @@ import { afterEach, describe, expect, it, vi } from 'vitest';
 import { cleanup, render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import type { StudyDefinition } from '@shared/schemas/study-definition';
+import {
+  makeStudyDefinition,
+  numericLevels,
+  riverRating,
+} from '../../../scripts/lib/study-factory/definition';
 import { ChoiceTaskCard } from '@/components/choice-task/choice-task-card';
 
 afterEach(cleanup);
 
-const definition: StudyDefinition = {
-  attributes: [
-    {
-      id: 'bill',
-      name: 'Monthly bill increase',
-      kind: 'numeric',
-      unit: '€',
-      isCost: true,
-      coding: 'linear',
-      levels: [
-        { id: 'b0', label: '', value: 0 },
-        { id: 'b6', label: '', value: 6 },
-      ],
-    },
-    {
-      id: 'river',
-      name: 'River health rating',
-      description: 'The state of the river downstream.',
-      kind: 'categorical',
-      isCost: false,
-      coding: 'dummy',
-      levels: [
-        { id: 'poor', label: 'Poor' },
-        { id: 'good', label: 'Good' },
-      ],
-    },
-  ],
-  alternatives: { count: 2, labeled: false, labels: [] },
+const definition: StudyDefinition = makeStudyDefinition({
+  only: ['bill', 'river'],
+  attributes: {
+    bill: { levels: numericLevels('b', [0, 6], () => '') },
+    river: { ...riverRating(['Poor', 'Good']), description: 'The state of the river downstream.' },
+  },
   fixedAlternative: {
     kind: 'status_quo',
     label: 'Keep the current service',
     levels: { bill: 'b0', river: 'poor' },
   },
-  excludedCombinations: [],
-};
+});
 
 const alternatives = [
   { kind: 'designed' as const, designIndex: 0, levels: { bill: 'b6', river: 'good' } },

@@ -5,13 +5,7 @@
  */
 import type { StudyDefinition } from '../../../../shared/schemas/study-definition';
 import type { LevelGrid } from '../design-grid';
-
-export interface AttributeOverlap {
-  attributeId: string;
-  name: string;
-  /** Share of tasks with full overlap on this attribute, or null when never comparable. */
-  share: number | null;
-}
+import type { AttributeOverlap } from '../../../../shared/schemas/design-diagnostics';
 
 export function getAttributeOverlap(
   definition: StudyDefinition,

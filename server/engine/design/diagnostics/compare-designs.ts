@@ -8,7 +8,8 @@ import type { Design } from '../../../../shared/schemas/design';
 import type { DesignSpec } from '../../../../shared/schemas/design-spec';
 import type { CriterionComparison } from '../../../../shared/schemas/redesign';
 import type { StudyDefinition } from '../../../../shared/schemas/study-definition';
-import { diagnoseDesign, type DesignDiagnostics } from './diagnose-design';
+import { diagnoseDesign } from './diagnose-design';
+import type { DesignDiagnostics } from '../../../../shared/schemas/design-diagnostics';
 
 export function compareDesigns(
   definition: StudyDefinition,

@@ -11,22 +11,7 @@ import {
   computeDesignCriterion,
   getCriterionUnavailableReason,
 } from '../design-criteria';
-
-export interface CriterionValue {
-  criterion: DesignCriterion;
-  /** null when the criterion is infinite (singular design) or not available. */
-  value: number | null;
-  /** Why the criterion is not available (priors or attributes), or null. */
-  unavailable: string | null;
-}
-
-export interface CriteriaReport {
-  /** The criterion the coordinate exchange minimised (D-error for other methods). */
-  searched: DesignCriterion;
-  /** Target t-ratio of the S-estimate. */
-  tValue: number;
-  values: CriterionValue[];
-}
+import type { CriterionValue, CriteriaReport } from '../../../../shared/schemas/design-diagnostics';
 
 const ORDER: DesignCriterion[] = ['d_error', 'a_error', 's_estimate', 'c_error'];
 

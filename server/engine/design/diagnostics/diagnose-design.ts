@@ -5,10 +5,9 @@
  * (generated or imported).
  */
 import { buildCodingPlan } from '../../../../shared/engine/coding/coding-plan';
-import type { CodedColumn } from '../../../../shared/engine/coding/coded-columns';
 import type { Design } from '../../../../shared/schemas/design';
 import type { DesignPriors, DesignSpec } from '../../../../shared/schemas/design-spec';
-import { getCriteriaReport, type CriteriaReport } from './criteria-report';
+import { getCriteriaReport } from './criteria-report';
 import type { StudyDefinition } from '../../../../shared/schemas/study-definition';
 import { computeBayesianDError, computeDError } from '../d-error';
 import { buildDesignMatrix, getRowsPerTask, readDesignGrid } from '../design-grid';
@@ -16,53 +15,14 @@ import { computeInformationMatrix, fillTaskProbabilities } from '../mnl-informat
 import { buildPriorDraws } from '../prior-draws';
 import { resolvePriors } from '../resolve-priors';
 import { invertSpd } from '../spd-inverse';
-import { getAttributeOverlap, type AttributeOverlap } from './attribute-overlap';
+import { getAttributeOverlap } from './attribute-overlap';
 import { getColumnCorrelations } from './column-correlations';
-import { getLevelBalance, listUnshownLevels, type AttributeLevelBalance } from './level-balance';
-import { getRuleReport, type RuleReport } from './rule-report';
+import { getLevelBalance, listUnshownLevels } from './level-balance';
+import { getRuleReport } from './rule-report';
 import { getLevelLabel } from '../../../../shared/study/level-labels';
-import { getSampleSizeGuide, type SampleSizeGuide } from './sample-size';
-import { computeStreetBurgessEfficiency, type StreetBurgessEfficiency } from './street-burgess';
-
-export interface DesignDiagnostics {
-  columns: Pick<CodedColumn, 'key' | 'name' | 'kind'>[];
-  parameters: number;
-  tasks: number;
-  blocks: number;
-  tasksPerBlock: number[];
-  priorsKind: DesignPriors['kind'];
-  /**
-   * The criterion of the priors kind: D₀, D_p at the means, or Bayesian D_B. All D-errors
-   * are null when the information matrix is singular (D-error +∞), so the object stays
-   * JSON-safe; `identified` says which case applies.
-   */
-  dError: number | null;
-  identified: boolean;
-  dErrorZero: number | null;
-  /** D_p at the prior means (null for zero priors or when singular). */
-  dErrorAtMeans: number | null;
-  /** D_B over the prior draws (null unless Bayesian, or when singular). */
-  dErrorBayesian: number | null;
-  /**
-   * All four criteria under the priors (Bayesian averages for Bayesian priors) and the one the
-   * search minimised. Absent from designs stored before the criteria existed.
-   */
-  criteria?: CriteriaReport;
-  /** Street–Burgess efficiency at β = 0; null when the reference does not apply. */
-  dEfficiency: StreetBurgessEfficiency | null;
-  levelBalance: AttributeLevelBalance[];
-  overlap: AttributeOverlap[];
-  /** K × K correlations over designed rows, in `columns` order (null = no variation). */
-  correlations: (number | null)[][];
-  /** Per task (design order): probabilities of the designed alternatives, then the fixed one. */
-  choiceProbabilities: { task: number; block: number; probabilities: number[] }[];
-  sampleSize: SampleSizeGuide;
-  /** Dominance, excluded combinations, balance rules and block balance. */
-  rules: RuleReport;
-  /** What makes the design unusable (a level respondents never see). */
-  errors: string[];
-  warnings: string[];
-}
+import { getSampleSizeGuide } from './sample-size';
+import { computeStreetBurgessEfficiency } from './street-burgess';
+import type { DesignDiagnostics } from '../../../../shared/schemas/design-diagnostics';
 
 /**
  * Computes the diagnostics; `seed` fixes the Halton scrambling of Bayesian draws; `rules` are

@@ -10,17 +10,7 @@ import type {
 } from '../../../../shared/schemas/study-definition';
 import type { LevelGrid } from '../design-grid';
 import { getLevelLabel } from '../../../../shared/study/level-labels';
-
-export interface AttributeLevelBalance {
-  attributeId: string;
-  name: string;
-  /** Counts over the designed alternatives; `inStatusQuo`: the status quo shows the level. */
-  levels: { levelId: string; label: string; count: number; share: number; inStatusQuo: boolean }[];
-  /** byBlock[b][l]: count of level l in block b+1. */
-  byBlock: number[][];
-  /** Max minus min count over levels (0 or 1 = balanced as far as the task count allows). */
-  spread: number;
-}
+import type { AttributeLevelBalance } from '../../../../shared/schemas/design-diagnostics';
 
 export function getLevelBalance(
   definition: StudyDefinition,

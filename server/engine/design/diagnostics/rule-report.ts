@@ -17,39 +17,7 @@ import type { LevelGrid } from '../design-grid';
 import { compareLevelRows, compareWithFixed } from '../dominance-tables';
 import { buildLevelBounds, countLevels } from '../level-bounds';
 import { listGridBreaches } from '../rule-breaches';
-
-export type DominanceRuleName = 'betweenDesigned' | 'overFixed' | 'byFixed';
-
-export interface DominanceRuleReport {
-  rule: DominanceRuleName;
-  /** Switched on for this design; null when the spec is unknown (imported designs). */
-  active: boolean | null;
-  /** False when the rule cannot apply (no opt-out / status quo, or no known ordering). */
-  applies: boolean;
-  /** Tasks with at least one case, and the designed alternatives concerned. */
-  tasks: number;
-  alternatives: number;
-}
-
-export interface RuleReport {
-  /** True when the priors give some attribute a known ordering (else no dominance shows). */
-  dominanceKnown: boolean;
-  dominance: DominanceRuleReport[];
-  excludedCombinations: { id: string; text: string; breaches: number }[];
-  balance: {
-    rules: DesignSpec['balance'] | null;
-    /** Levels a designed alternative may show that appear fewer times than required. */
-    levelsBelowMinimum: number;
-    /** Tasks where more attributes than allowed show one level in every alternative. */
-    tasksOverOverlap: number;
-  };
-  blocks: {
-    balanced: boolean;
-    /** Largest |count − fair share| over levels and blocks, and where it is. */
-    worstDeviation: number;
-    worst: { attribute: string; level: string; block: number; count: number; fair: number } | null;
-  };
-}
+import type { DominanceRuleName, RuleReport } from '../../../../shared/schemas/design-diagnostics';
 
 export function getRuleReport(input: {
   definition: StudyDefinition;

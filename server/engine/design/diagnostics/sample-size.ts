@@ -12,29 +12,7 @@
  * With B blocks each respondent answers one block, so a replication needs B respondents.
  */
 import { inverseNormal as getInverseNormal } from '../../draws/inverse-normal';
-
-export interface CoefficientSampleSize {
-  key: string;
-  name: string;
-  prior: number;
-  /** Standard error for one replication of the design, sqrt(Σ₁,kk); null when singular. */
-  standardErrorOne: number | null;
-  /** Design replications for |t| = 1.96; null when the prior is 0. */
-  replicationsForT: number | null;
-  /** Design replications for 80 % power at α = 0.05; null when the prior is 0. */
-  replicationsForPower: number | null;
-}
-
-export interface SampleSizeGuide {
-  coefficients: CoefficientSampleSize[];
-  /** Largest N_k (t = 1.96) over coefficients with non-zero priors, rounded up; null if none. */
-  sEstimateReplications: number | null;
-  /** sEstimateReplications × blocks: respondents when each answers one block. */
-  sEstimateRespondents: number | null;
-  /** Same for 80 % power. */
-  powerRespondents: number | null;
-  ruleOfThumb: { respondents: number; c: number; t: number; a: number; note: string };
-}
+import type { SampleSizeGuide } from '../../../../shared/schemas/design-diagnostics';
 
 const Z_T = getInverseNormal(0.975);
 const Z_POWER = getInverseNormal(0.8);

@@ -14,6 +14,7 @@ import type { CodingPlan } from '../../../../shared/engine/coding/coding-plan';
 import { getSpdLogDet } from '../../linalg/cholesky';
 import type { LevelGrid } from '../design-grid';
 import { computeInformationMatrix } from '../mnl-information';
+import type { StreetBurgessEfficiency } from '../../../../shared/schemas/design-diagnostics';
 
 /** S_q: most pairs of m alternatives that can differ on an attribute with l levels. */
 export function getMaxDifferingPairs(l: number, m: number): number {
@@ -31,12 +32,6 @@ export function getStreetBurgessOptimalDet(levelCounts: number[], m: number): nu
     const S = getMaxDifferingPairs(l, m);
     return det * ((2 * l * S) / (m * m * (l - 1) * L)) ** (l - 1);
   }, 1);
-}
-
-export interface StreetBurgessEfficiency {
-  detC: number;
-  detOptimal: number;
-  efficiency: number;
 }
 
 /**

@@ -3,24 +3,11 @@
  * Space to lift, arrows to move, Space to drop, Escape to cancel).
  */
 import type { ReactNode } from 'react';
-import {
-  closestCenter,
-  DndContext,
-  KeyboardSensor,
-  PointerSensor,
-  useSensor,
-  useSensors,
-  type DragEndEvent,
-} from '@dnd-kit/core';
-import {
-  SortableContext,
-  sortableKeyboardCoordinates,
-  useSortable,
-  verticalListSortingStrategy,
-} from '@dnd-kit/sortable';
+import { useSortable } from '@dnd-kit/sortable';
 import { CSS } from '@dnd-kit/utilities';
 import { cn } from '@/lib/cn';
 import { createSortableAnnouncements } from '@/lib/sortable-announcements';
+import { VerticalSortable } from '@/components/ui/vertical-sortable';
 
 type Props<T extends { id: string }> = {
   items: T[];
@@ -40,16 +27,6 @@ export function SortableList<T extends { id: string }>({
   disabled,
   className,
 }: Props<T>) {
-  const sensors = useSensors(
-    useSensor(PointerSensor, { activationConstraint: { distance: 4 } }),
-    useSensor(KeyboardSensor, { coordinateGetter: sortableKeyboardCoordinates }),
-  );
-  const onDragEnd = (e: DragEndEvent) => {
-    if (!e.over || e.active.id === e.over.id) return;
-    const from = items.findIndex((i) => i.id === e.active.id);
-    const to = items.findIndex((i) => i.id === e.over!.id);
-    if (from >= 0 && to >= 0) onMove(from, to);
-  };
   // Spoken by screen readers: names and positions rather than internal ids.
   const announcements = createSortableAnnouncements(
     items.map((i) => i.id),
@@ -59,33 +36,25 @@ export function SortableList<T extends { id: string }>({
     },
   );
   return (
-    <DndContext
-      sensors={sensors}
-      collisionDetection={closestCenter}
-      onDragEnd={onDragEnd}
-      accessibility={{
-        announcements,
-        screenReaderInstructions: {
-          draggable:
-            'To move this item, press Space or Enter, use the arrow keys to move it, then press Space or Enter to drop it, or Escape to cancel.',
-        },
-      }}
+    <VerticalSortable
+      ids={items.map((i) => i.id)}
+      onMove={onMove}
+      announcements={announcements}
+      instructions="To move this item, press Space or Enter, use the arrow keys to move it, then press Space or Enter to drop it, or Escape to cancel."
     >
-      <SortableContext items={items.map((i) => i.id)} strategy={verticalListSortingStrategy}>
-        <ul className={className}>
-          {items.map((item, index) => (
-            <SortableItem
-              key={item.id}
-              id={item.id}
-              label={`Reorder ${itemName(item)}`}
-              disabled={disabled}
-            >
-              {(handle) => renderItem(item, index, handle)}
-            </SortableItem>
-          ))}
-        </ul>
-      </SortableContext>
-    </DndContext>
+      <ul className={className}>
+        {items.map((item, index) => (
+          <SortableItem
+            key={item.id}
+            id={item.id}
+            label={`Reorder ${itemName(item)}`}
+            disabled={disabled}
+          >
+            {(handle) => renderItem(item, index, handle)}
+          </SortableItem>
+        ))}
+      </ul>
+    </VerticalSortable>
   );
 }
 

@@ -8,6 +8,7 @@ import { Alert, EmptyState, Spinner } from '@/components/ui/feedback';
 import { auditGroups } from '@shared/schemas/audit';
 import { auditQueryString, useAudit, type AuditFilters } from '../api/get-audit';
 import { describeAuditEvent } from '../utils/describe-event';
+import { HeaderCells } from '@/components/ui/header-cells';
 
 const groupLabels: Record<(typeof auditGroups)[number], string> = {
   auth: 'Sign-ins and passwords',
@@ -134,15 +135,7 @@ export function AuditLog({
               <caption className="sr-only">Audit trail, newest first</caption>
               <thead className="border-b border-line bg-canvas text-xs uppercase text-ink-muted">
                 <tr>
-                  <th scope="col" className="px-3 py-2">
-                    When
-                  </th>
-                  <th scope="col" className="px-3 py-2">
-                    Who
-                  </th>
-                  <th scope="col" className="px-3 py-2">
-                    What
-                  </th>
+                  <HeaderCells className="px-3 py-2" headings={['When', 'Who', 'What']} />
                 </tr>
               </thead>
               <tbody className="divide-y divide-line">

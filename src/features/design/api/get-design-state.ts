@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import type { DesignState } from '@shared/schemas/design-job';
-import type { DesignDiagnostics } from '@server/engine/design/diagnostics/diagnose-design';
+import type { DesignDiagnostics } from '@shared/schemas/design-diagnostics';
 import { designKeys } from './design-keys';
 
 export type StudyDesignState = DesignState<DesignDiagnostics>;

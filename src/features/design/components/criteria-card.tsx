@@ -1,7 +1,6 @@
-import type { DesignDiagnostics } from '@server/engine/design/diagnostics/diagnose-design';
+import type { DesignDiagnostics } from '@shared/schemas/design-diagnostics';
 import { searchCriteria } from '../utils/criterion-names';
-
-const fmt = (v: number | null) => (v === null || !Number.isFinite(v) ? '—' : v.toPrecision(4));
+import { formatSignificant } from '@/utils/format';
 
 /**
  * The four design criteria of a design under its priors, each with a one-line explanation,
@@ -29,7 +28,9 @@ export function CriteriaList({ d }: { d: DesignDiagnostics }) {
                   </span>
                 )}
               </span>
-              <span className="num text-right font-mono tabular-nums">{fmt(v.value)}</span>
+              <span className="num text-right font-mono tabular-nums">
+                {formatSignificant(v.value)}
+              </span>
               <span className="col-span-2 text-xs text-ink-muted">
                 {v.unavailable ?? c.explanation}
               </span>

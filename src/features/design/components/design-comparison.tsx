@@ -2,6 +2,7 @@ import type { CriterionComparison } from '@shared/schemas/redesign';
 import { Button } from '@/components/ui/button';
 import { Alert, Card } from '@/components/ui/feedback';
 import { searchCriteria } from '../utils/criterion-names';
+import { formatSignificant } from '@/utils/format';
 
 type Props = {
   comparison: CriterionComparison[];
@@ -12,8 +13,6 @@ type Props = {
   onAdopt: () => void;
   onKeep: () => void;
 };
-
-const fmt = (v: number | null) => (v === null || !Number.isFinite(v) ? '—' : v.toPrecision(4));
 
 /** Relative change of a lower-is-better criterion, e.g. "−18 %". */
 function change(current: number | null, candidate: number | null): string {
@@ -53,8 +52,8 @@ export function DesignComparison(p: Props) {
                     </span>
                   )}
                 </th>
-                <td className="num py-1.5 pr-3 text-right">{fmt(c.current)}</td>
-                <td className="num py-1.5 pr-3 text-right">{fmt(c.candidate)}</td>
+                <td className="num py-1.5 pr-3 text-right">{formatSignificant(c.current)}</td>
+                <td className="num py-1.5 pr-3 text-right">{formatSignificant(c.candidate)}</td>
                 <td className="num py-1.5 text-right">{change(c.current, c.candidate)}</td>
               </tr>
             ))}

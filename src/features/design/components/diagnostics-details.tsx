@@ -1,4 +1,4 @@
-import type { DesignDiagnostics } from '@server/engine/design/diagnostics/diagnose-design';
+import type { DesignDiagnostics } from '@shared/schemas/design-diagnostics';
 import { Alert } from '@/components/ui/feedback';
 import { cn } from '@/lib/cn';
 import { formatNumber } from '@/utils/format';

@@ -1,12 +1,11 @@
-import type { DesignDiagnostics } from '@server/engine/design/diagnostics/diagnose-design';
+import type { DesignDiagnostics } from '@shared/schemas/design-diagnostics';
 import { Alert, Card } from '@/components/ui/feedback';
 import { ChoiceProbabilities, Correlations, SampleSizeGuide } from './diagnostics-details';
 import { RuleReportCard } from './rule-report-card';
 import { CriteriaList } from './criteria-card';
 import { criterionNames } from '../utils/criterion-names';
+import { formatSignificant } from '@/utils/format';
 
-const fmt = (v: number | null | undefined, digits = 4) =>
-  v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toPrecision(digits);
 const pct = (v: number | null) => (v === null ? '—' : `${Math.round(v * 100)} %`);
 
 /** How good the design is: criteria, balance, overlap, correlations, probabilities, sample size. */
@@ -28,7 +27,7 @@ export function DiagnosticsPanel({
           <div>
             <dt className="text-xs text-ink-muted">{criterionNames[d.priorsKind]}</dt>
             <dd className="font-mono text-xl font-semibold tabular-nums text-ink">
-              {fmt(d.dError)}
+              {formatSignificant(d.dError)}
             </dd>
           </div>
           <div>
@@ -43,7 +42,7 @@ export function DiagnosticsPanel({
           {d.priorsKind !== 'zero' && (
             <div>
               <dt className="text-xs text-ink-muted">{criterionNames.zero}</dt>
-              <dd className="font-mono tabular-nums">{fmt(d.dErrorZero)}</dd>
+              <dd className="font-mono tabular-nums">{formatSignificant(d.dErrorZero)}</dd>
             </div>
           )}
           <div>

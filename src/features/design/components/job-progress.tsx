@@ -2,6 +2,7 @@ import type { DesignJobView } from '@shared/schemas/design-job';
 import { criterionNames, searchCriteria } from '../utils/criterion-names';
 import { Alert, ProgressBar } from '@/components/ui/feedback';
 import { Button } from '@/components/ui/button';
+import { formatSignificant } from '@/utils/format';
 
 const phaseText = {
   building: 'Preparing',
@@ -82,7 +83,7 @@ export function JobProgress({
                 : criterionNames[job.spec.priors.kind]}{' '}
               so far
             </dt>
-            <dd className="num">{p.bestDError.toPrecision(4)}</dd>
+            <dd className="num">{formatSignificant(p.bestDError)}</dd>
           </div>
         )}
       </dl>

@@ -3,8 +3,7 @@
  * excluded combinations, appearances per level, overlap and block balance. Levels that never
  * appear are errors. Designs stored before the rules were reported show only what they have.
  */
-import type { DesignDiagnostics } from '@server/engine/design/diagnostics/diagnose-design';
-import type { DominanceRuleName } from '@server/engine/design/diagnostics/rule-report';
+import type { DesignDiagnostics, DominanceRuleName } from '@shared/schemas/design-diagnostics';
 import { Alert, Card } from '@/components/ui/feedback';
 
 const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;

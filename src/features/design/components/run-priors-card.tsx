@@ -4,6 +4,7 @@ import { Button } from '@/components/ui/button';
 import { Card } from '@/components/ui/feedback';
 import { ErrorText } from '@/components/ui/error-boundary';
 import { ApiError } from '@/lib/api-client';
+import { formatSignificant } from '@/utils/format';
 
 export type PriorRunOption = { id: string; name: string; model: 'mnl' | 'mixed' };
 
@@ -18,8 +19,6 @@ type Props = {
   loading: boolean;
   onUse: (priors: RunPriors) => void;
 };
-
-const fmt = (v: number) => v.toPrecision(3);
 
 /**
  * Pilot → priors: pick a finished MNL or mixed-logit run, see its estimates as normal priors
@@ -85,9 +84,9 @@ export function RunPriorsCard(p: Props) {
                 {p.priors.columns.map((c) => (
                   <tr key={c.key} className="border-b border-line/60">
                     <td className="py-1.5 pr-3 text-ink-soft">{c.name}</td>
-                    <td className="num py-1.5 pr-3 text-right">{fmt(c.mean)}</td>
+                    <td className="num py-1.5 pr-3 text-right">{formatSignificant(c.mean, 3)}</td>
                     <td className="num py-1.5 text-right">
-                      {fmt(c.sd)}
+                      {formatSignificant(c.sd, 3)}
                       {p.spread === 'population' && c.spreadFrom === 'se' && (
                         <span className="ml-1 text-xs text-ink-muted" title="Fixed coefficient">
                           (SE)

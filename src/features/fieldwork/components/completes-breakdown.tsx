@@ -1,5 +1,6 @@
 import type { FieldworkStats } from '@shared/schemas/fieldwork';
 import { formatCount } from '@/utils/format';
+import { HeaderCells } from '@/components/ui/header-cells';
 
 function CountTable({
   caption,
@@ -15,15 +16,14 @@ function CountTable({
       <caption className="mb-1 text-left text-xs font-medium text-ink-soft">{caption}</caption>
       <thead>
         <tr className="border-b border-line text-xs text-ink-soft">
-          <th scope="col" className="py-1.5 text-left font-medium">
-            {head}
-          </th>
-          <th scope="col" className="py-1.5 text-right font-medium">
-            Starts
-          </th>
-          <th scope="col" className="py-1.5 text-right font-medium">
-            Completes
-          </th>
+          <HeaderCells
+            className="py-1.5 font-medium"
+            headings={[
+              head,
+              { label: 'Starts', align: 'right' },
+              { label: 'Completes', align: 'right' },
+            ]}
+          />
         </tr>
       </thead>
       <tbody>

@@ -1,10 +1,10 @@
 /** Starts and completes per day (Okabe–Ito sky blue and bluish green). */
 import { Bar } from 'react-chartjs-2';
 import { baseChartOptions, bottomLegend } from '@/components/charts/chart-setup';
+import { okabeIto } from '@/components/charts/palette';
 import type { FieldworkStats } from '@shared/schemas/fieldwork';
 
-const SKY = '#56b4e9';
-const GREEN = '#009e73';
+const [, , GREEN, , SKY] = okabeIto;
 
 export function DailyChart({ daily }: { daily: FieldworkStats['daily'] }) {
   if (daily.length === 0) return <p className="text-sm text-ink-muted">No respondents yet.</p>;

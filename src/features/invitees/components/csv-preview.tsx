@@ -1,6 +1,7 @@
 import type { InviteeCsvPreview } from '@shared/schemas/invitees';
 import { Alert } from '@/components/ui/feedback';
 import { ProblemTable } from '@/components/ui/problem-table';
+import { HeaderCells } from '@/components/ui/header-cells';
 
 const fieldLabels: Record<string, string> = {
   email: 'e-mail',
@@ -60,18 +61,10 @@ export function CsvPreview({ preview }: { preview: InviteeCsvPreview }) {
             <table className="w-full min-w-[28rem] text-sm">
               <thead className="bg-canvas text-xs text-ink-soft">
                 <tr>
-                  <th scope="col" className="px-2 py-1.5 text-right font-medium">
-                    Row
-                  </th>
-                  <th scope="col" className="px-2 py-1.5 text-left font-medium">
-                    E-mail
-                  </th>
-                  <th scope="col" className="px-2 py-1.5 text-left font-medium">
-                    Name
-                  </th>
-                  <th scope="col" className="px-2 py-1.5 text-left font-medium">
-                    External id
-                  </th>
+                  <HeaderCells
+                    className="px-2 py-1.5 font-medium"
+                    headings={[{ label: 'Row', align: 'right' }, 'E-mail', 'Name', 'External id']}
+                  />
                 </tr>
               </thead>
               <tbody>

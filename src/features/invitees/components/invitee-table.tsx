@@ -11,6 +11,7 @@ import { useInvitees } from '../api/list-invitees';
 import { useDeleteInvitee } from '../api/delete-invitee';
 import { MailStatus } from './mail-status';
 import { InviteeStateBadge, inviteeStateOptions } from './invitee-state-badge';
+import { HeaderCells } from '@/components/ui/header-cells';
 
 const PAGE_SIZE = 25;
 const day = (iso: string | null) => (iso ? iso.slice(0, 10) : '—');
@@ -83,27 +84,18 @@ export function InviteeTable({
             <caption className="sr-only">Invitees</caption>
             <thead className="bg-canvas text-xs text-ink-soft">
               <tr>
-                <th scope="col" className="px-3 py-2 text-left font-medium">
-                  E-mail
-                </th>
-                <th scope="col" className="px-3 py-2 text-left font-medium">
-                  Name
-                </th>
-                <th scope="col" className="px-3 py-2 text-left font-medium">
-                  External id
-                </th>
-                <th scope="col" className="px-3 py-2 text-left font-medium">
-                  State
-                </th>
-                <th scope="col" className="px-3 py-2 text-left font-medium">
-                  Mail
-                </th>
-                <th scope="col" className="px-3 py-2 text-right font-medium">
-                  Invited
-                </th>
-                <th scope="col" className="px-3 py-2 text-right font-medium">
-                  Reminders
-                </th>
+                <HeaderCells
+                  className="px-3 py-2 font-medium"
+                  headings={[
+                    'E-mail',
+                    'Name',
+                    'External id',
+                    'State',
+                    'Mail',
+                    { label: 'Invited', align: 'right' },
+                    { label: 'Reminders', align: 'right' },
+                  ]}
+                />
                 {canManage && (
                   <th scope="col" className="px-3 py-2">
                     <span className="sr-only">Actions</span>

@@ -1,22 +1,8 @@
-import {
-  closestCenter,
-  DndContext,
-  KeyboardSensor,
-  PointerSensor,
-  useSensor,
-  useSensors,
-  type DragEndEvent,
-} from '@dnd-kit/core';
-import {
-  arrayMove,
-  SortableContext,
-  sortableKeyboardCoordinates,
-  useSortable,
-  verticalListSortingStrategy,
-} from '@dnd-kit/sortable';
+import { arrayMove, useSortable } from '@dnd-kit/sortable';
 import { CSS } from '@dnd-kit/utilities';
 import { cn } from '@/lib/cn';
 import { createSortableAnnouncements } from '@/lib/sortable-announcements';
+import { VerticalSortable } from '@/components/ui/vertical-sortable';
 import { pageKindLabels, type QuestionnairePage } from '@shared/schemas/questionnaire';
 import { showIfOf } from '@shared/survey/skip-logic';
 import { templateLabels } from '@shared/schemas/questionnaire-templates';
@@ -139,16 +125,8 @@ export function PageList({
   onReorder: (pages: QuestionnairePage[]) => void;
   disabled: boolean;
 }) {
-  const sensors = useSensors(
-    useSensor(PointerSensor, { activationConstraint: { distance: 4 } }),
-    useSensor(KeyboardSensor, { coordinateGetter: sortableKeyboardCoordinates }),
-  );
   const movable = pages.filter((p) => !pinned(p));
-  const onDragEnd = (e: DragEndEvent) => {
-    if (!e.over || e.active.id === e.over.id) return;
-    const from = movable.findIndex((p) => p.id === e.active.id);
-    const to = movable.findIndex((p) => p.id === e.over!.id);
-    if (from < 0 || to < 0) return;
+  const onMove = (from: number, to: number) => {
     const moved = arrayMove(movable, from, to);
     const first = pages.filter((p) => p.kind === 'consent');
     const last = pages.filter((p) => p.kind === 'end');
@@ -156,41 +134,33 @@ export function PageList({
   };
   const announcements = pageAnnouncements(pages, movable);
   return (
-    <DndContext
-      sensors={sensors}
-      collisionDetection={closestCenter}
-      onDragEnd={onDragEnd}
-      accessibility={{
-        announcements,
-        screenReaderInstructions: {
-          draggable:
-            'To move a page, press space or enter on its handle, use the up and down arrow keys, then press space or enter again. Escape cancels.',
-        },
-      }}
+    <VerticalSortable
+      ids={movable.map((p) => p.id)}
+      onMove={onMove}
+      announcements={announcements}
+      instructions="To move a page, press space or enter on its handle, use the up and down arrow keys, then press space or enter again. Escape cancels."
     >
-      <SortableContext items={movable.map((p) => p.id)} strategy={verticalListSortingStrategy}>
-        <ol aria-label="Questionnaire pages" className="space-y-2">
-          {pages.map((p, i) =>
-            pinned(p) || disabled ? (
-              <StaticRow
-                key={p.id}
-                page={p}
-                index={i}
-                selected={p.id === selectedId}
-                onSelect={() => onSelect(p.id)}
-              />
-            ) : (
-              <SortableRow
-                key={p.id}
-                page={p}
-                index={i}
-                selected={p.id === selectedId}
-                onSelect={() => onSelect(p.id)}
-              />
-            ),
-          )}
-        </ol>
-      </SortableContext>
-    </DndContext>
+      <ol aria-label="Questionnaire pages" className="space-y-2">
+        {pages.map((p, i) =>
+          pinned(p) || disabled ? (
+            <StaticRow
+              key={p.id}
+              page={p}
+              index={i}
+              selected={p.id === selectedId}
+              onSelect={() => onSelect(p.id)}
+            />
+          ) : (
+            <SortableRow
+              key={p.id}
+              page={p}
+              index={i}
+              selected={p.id === selectedId}
+              onSelect={() => onSelect(p.id)}
+            />
+          ),
+        )}
+      </ol>
+    </VerticalSortable>
   );
 }

@@ -1,10 +1,34 @@
 import { SelectField } from '@/components/ui/field';
 import type { QuestionnairePage } from '@shared/schemas/questionnaire';
-import type { StudyDefinition } from '@shared/schemas/study-definition';
+import type { Attribute, StudyDefinition } from '@shared/schemas/study-definition';
 import { getLevelLabel } from '@shared/study/level-labels';
 
 type HandSetTaskPage = Extract<QuestionnairePage, { kind: 'warmup' | 'holdout' }>;
 type DominancePage = Extract<QuestionnairePage, { kind: 'dominance' }>;
+
+/** One attribute's levels to pick from, empty until the researcher picks one. */
+function LevelSelect({
+  attribute,
+  label,
+  value,
+  onChange,
+}: {
+  attribute: Attribute;
+  label: string;
+  value: string | undefined;
+  onChange: (levelId: string) => void;
+}) {
+  return (
+    <SelectField label={label} value={value ?? ''} onChange={(e) => onChange(e.target.value)}>
+      <option value="">Choose a level</option>
+      {attribute.levels.map((l) => (
+        <option key={l.id} value={l.id}>
+          {getLevelLabel(attribute, l)}
+        </option>
+      ))}
+    </SelectField>
+  );
+}
 
 /** Levels of a warm-up or holdout task: one select per attribute and alternative. */
 export function HandSetTaskFields({
@@ -33,19 +57,13 @@ export function HandSetTaskFields({
               : `Option ${String.fromCharCode(65 + j)}`}
           </legend>
           {definition.attributes.map((a) => (
-            <SelectField
+            <LevelSelect
               key={a.id}
+              attribute={a}
               label={a.name}
-              value={alt.levels[a.id] ?? ''}
-              onChange={(e) => setLevel(j, a.id, e.target.value)}
-            >
-              <option value="">Choose a level</option>
-              {a.levels.map((l) => (
-                <option key={l.id} value={l.id}>
-                  {getLevelLabel(a, l)}
-                </option>
-              ))}
-            </SelectField>
+              value={alt.levels[a.id]}
+              onChange={(levelId) => setLevel(j, a.id, levelId)}
+            />
           ))}
         </fieldset>
       ))}
@@ -71,21 +89,15 @@ export function DominanceFields({
       </legend>
       <div className="grid gap-3 sm:grid-cols-2">
         {definition.attributes.map((a) => (
-          <SelectField
+          <LevelSelect
             key={a.id}
+            attribute={a}
             label={`Best level of ${a.name}`}
-            value={page.bestLevels[a.id] ?? ''}
-            onChange={(e) =>
-              onChange({ ...page, bestLevels: { ...page.bestLevels, [a.id]: e.target.value } })
+            value={page.bestLevels[a.id]}
+            onChange={(levelId) =>
+              onChange({ ...page, bestLevels: { ...page.bestLevels, [a.id]: levelId } })
             }
-          >
-            <option value="">Choose a level</option>
-            {a.levels.map((l) => (
-              <option key={l.id} value={l.id}>
-                {getLevelLabel(a, l)}
-              </option>
-            ))}
-          </SelectField>
+          />
         ))}
       </div>
     </fieldset>

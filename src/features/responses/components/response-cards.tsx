@@ -2,23 +2,13 @@
  * Respondents as cards for phone widths, where the table would hide flags and the exclude
  * control behind a horizontal scroll. Same content as ResponsesTable.
  */
-import type { ResponseList } from '@shared/schemas/responses';
+import type { ResponseListViewProps } from './responses-table';
 import { FlagBadges } from './flag-badges';
 import { InclusionCell } from './inclusion-cell';
 import { formatDuration } from '@/utils/format';
 import { statusLabels } from '../utils/labels';
 
-export function ResponseCards({
-  teamId,
-  studyId,
-  list,
-  canManage,
-}: {
-  teamId: string;
-  studyId: string;
-  list: ResponseList;
-  canManage: boolean;
-}) {
+export function ResponseCards({ teamId, studyId, list, canManage }: ResponseListViewProps) {
   return (
     <ul className="space-y-2" aria-label="Respondents">
       {list.items.map((r) => (

@@ -8,20 +8,19 @@ import { InclusionCell } from './inclusion-cell';
 import { formatDuration } from '@/utils/format';
 import { statusLabels } from '../utils/labels';
 import { languageName } from '@shared/languages/language-tags';
+import { HeaderCells } from '@/components/ui/header-cells';
 
 const when = (iso: string) => iso.slice(0, 16).replace('T', ' ');
 
-export function ResponsesTable({
-  teamId,
-  studyId,
-  list,
-  canManage,
-}: {
+/** What both views of the respondent list (this table, and cards on a phone) are given. */
+export type ResponseListViewProps = {
   teamId: string;
   studyId: string;
   list: ResponseList;
   canManage: boolean;
-}) {
+};
+
+export function ResponsesTable({ teamId, studyId, list, canManage }: ResponseListViewProps) {
   const personal = list.personalData;
   // The language column only when the study has several.
   const languages = list.languages.length > 1;
@@ -31,34 +30,19 @@ export function ResponsesTable({
         <caption className="sr-only">Respondents</caption>
         <thead className="bg-canvas text-xs text-ink-soft">
           <tr>
-            <th scope="col" className="px-3 py-2 text-left font-medium">
-              Respondent
-            </th>
-            <th scope="col" className="px-3 py-2 text-left font-medium">
-              Status
-            </th>
-            <th scope="col" className="px-3 py-2 text-right font-medium">
-              Version · block
-            </th>
-            {languages && (
-              <th scope="col" className="px-3 py-2 text-left font-medium">
-                Language
-              </th>
-            )}
-            <th scope="col" className="px-3 py-2 text-right font-medium">
-              Time
-            </th>
-            <th scope="col" className="px-3 py-2 text-left font-medium">
-              Flags
-            </th>
-            {personal && (
-              <th scope="col" className="px-3 py-2 text-left font-medium">
-                External id / e-mail
-              </th>
-            )}
-            <th scope="col" className="px-3 py-2 text-left font-medium">
-              Estimation
-            </th>
+            <HeaderCells
+              className="px-3 py-2 font-medium"
+              headings={[
+                'Respondent',
+                'Status',
+                { label: 'Version · block', align: 'right' },
+                languages && 'Language',
+                { label: 'Time', align: 'right' },
+                'Flags',
+                personal && 'External id / e-mail',
+                'Estimation',
+              ]}
+            />
           </tr>
         </thead>
         <tbody>

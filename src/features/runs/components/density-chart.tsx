@@ -6,14 +6,14 @@
  */
 import { Chart } from 'react-chartjs-2';
 import { baseChartOptions, bottomLegend } from '@/components/charts/chart-setup';
+import { okabeIto, withAlpha } from '@/components/charts/palette';
 import type { EstimationResult } from '@shared/schemas/estimation-spec';
 import { densityHistogram, plotRange } from '../utils/stats';
 import { populationDensity } from '@shared/results/taste-density';
 import { formatNumber } from '@/utils/format';
 
-const SKY = 'rgba(86, 180, 233, 0.55)';
-const BLUE = '#0072b2';
-const VERMILLION = '#d55e00';
+const [BLUE, , , , SKY_BLUE, VERMILLION] = okabeIto;
+const SKY = withAlpha(SKY_BLUE, 0.55);
 
 export function DensityChart({
   moment,

@@ -7,62 +7,53 @@ import type { RunResult } from '@shared/schemas/run';
 import { formatInterval, formatNumber, formatPValue } from '@/utils/format';
 import { getParameterRows } from '@shared/results/parameter-rows';
 import { isSpreadParameter, SPREAD_NOTE } from '@shared/results/spread';
+import { EstimateTable, estimateRowClass } from './estimate-table';
 
 export function ParameterTable({ results }: { results: RunResult }) {
   // HB: posterior mean and SD over the kept draws; t and p belong to the classical fits.
   const bayes = results.model === 'hb';
   const hasSpreads = results.estimates.some((e) => isSpreadParameter(e.name));
   return (
-    <div className="overflow-x-auto">
-      <table className="w-full text-sm">
-        <caption className="sr-only">Parameter estimates</caption>
-        <thead>
-          <tr className="border-b border-line text-xs text-ink-soft">
-            <th scope="col" className="px-2 py-2 text-left font-medium">
-              Parameter
-            </th>
-            {(bayes
-              ? ['Posterior mean', 'Posterior SD', '95 % interval']
-              : ['Estimate', 'SE', 'Robust SE', 't', 'p', '95 % interval']
-            ).map((h) => (
-              <th key={h} scope="col" className="px-2 py-2 text-right font-medium">
-                {h}
-              </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          {getParameterRows(results).map((row) => (
-            <tr key={row.name} className="border-b border-line/60 last:border-b-0">
-              <th scope="row" className="px-2 py-1.5 text-left font-normal">
-                <span className="block text-ink">
-                  {row.label}
-                  {row.part && <span className="text-ink-muted"> — {row.part}</span>}
-                </span>
-                <span className="block font-mono text-xs text-ink-muted">{row.name}</span>
-              </th>
-              <td className="num px-2 py-1.5">
-                {row.spread ? `|s| ${formatNumber(row.estimate)}` : formatNumber(row.estimate)}
-              </td>
-              <td className="num px-2 py-1.5">{formatNumber(row.se)}</td>
-              {!bayes && (
-                <>
-                  <td className="num px-2 py-1.5">{formatNumber(row.robustSe)}</td>
-                  <td className="num px-2 py-1.5">{formatNumber(row.t, 2)}</td>
-                  <td className="num px-2 py-1.5">{formatPValue(row.p)}</td>
-                </>
-              )}
-              <td className="num px-2 py-1.5">{formatInterval(row.lower, row.upper)}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
-      <p className="mt-2 text-xs text-ink-muted">
-        {bayes
-          ? 'Posterior means and SDs over the kept draws of all chains; intervals are mean ± 1.96 posterior SD. Read them only when the sampler diagnostics show converged chains.'
-          : 't, p and intervals use the robust (respondent-clustered) standard errors and the normal approximation.'}
-        {hasSpreads && ` ${SPREAD_NOTE}`}
-      </p>
-    </div>
+    <EstimateTable
+      caption="Parameter estimates"
+      rowHeading="Parameter"
+      headings={
+        bayes
+          ? ['Posterior mean', 'Posterior SD', '95 % interval']
+          : ['Estimate', 'SE', 'Robust SE', 't', 'p', '95 % interval']
+      }
+      note={
+        <>
+          {bayes
+            ? 'Posterior means and SDs over the kept draws of all chains; intervals are mean ± 1.96 posterior SD. Read them only when the sampler diagnostics show converged chains.'
+            : 't, p and intervals use the robust (respondent-clustered) standard errors and the normal approximation.'}
+          {hasSpreads && ` ${SPREAD_NOTE}`}
+        </>
+      }
+    >
+      {getParameterRows(results).map((row) => (
+        <tr key={row.name} className={estimateRowClass}>
+          <th scope="row" className="px-2 py-1.5 text-left font-normal">
+            <span className="block text-ink">
+              {row.label}
+              {row.part && <span className="text-ink-muted"> — {row.part}</span>}
+            </span>
+            <span className="block font-mono text-xs text-ink-muted">{row.name}</span>
+          </th>
+          <td className="num px-2 py-1.5">
+            {row.spread ? `|s| ${formatNumber(row.estimate)}` : formatNumber(row.estimate)}
+          </td>
+          <td className="num px-2 py-1.5">{formatNumber(row.se)}</td>
+          {!bayes && (
+            <>
+              <td className="num px-2 py-1.5">{formatNumber(row.robustSe)}</td>
+              <td className="num px-2 py-1.5">{formatNumber(row.t, 2)}</td>
+              <td className="num px-2 py-1.5">{formatPValue(row.p)}</td>
+            </>
+          )}
+          <td className="num px-2 py-1.5">{formatInterval(row.lower, row.upper)}</td>
+        </tr>
+      ))}
+    </EstimateTable>
   );
 }

@@ -8,6 +8,7 @@ import type { RunResult } from '@shared/schemas/run';
 import { Alert } from '@/components/ui/feedback';
 import { formatAmount, formatInterval } from '@/utils/format';
 import { getLabelOf, getWtpHeadings } from '@shared/results/parameter-labels';
+import { EstimateTable, estimateRowClass } from './estimate-table';
 
 type Interval = {
   estimate: number;
@@ -59,54 +60,43 @@ export function WtpTable({ results }: { results: RunResult }) {
   const unit = results.costUnit ?? null;
   const used = results.covariance?.used ?? 'classical';
   return (
-    <div className="overflow-x-auto">
-      <table className="w-full text-sm">
-        <caption className="sr-only">Willingness to pay</caption>
-        <thead>
-          <tr className="border-b border-line text-xs text-ink-soft">
-            <th scope="col" className="px-2 py-2 text-left font-medium">
-              Attribute column · unit and basis
-            </th>
-            {[
-              headings.mean,
-              'Delta 95 %',
-              // HB: the interval of the population mean WTP over the posterior draws.
-              results.model === 'hb' ? 'Posterior 95 %' : 'Krinsky–Robb 95 %',
-              ...(headings.median ? [headings.median, 'Delta 95 %', 'Krinsky–Robb 95 %'] : []),
-            ].map((h, i) => (
-              <th key={`${h}-${i}`} scope="col" className="px-2 py-2 text-right font-medium">
-                {h}
-              </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          {results.wtp.map((w) => (
-            <tr key={w.name} className="border-b border-line/60 last:border-b-0">
-              <th scope="row" className="min-w-48 px-2 py-1.5 text-left font-normal text-ink">
-                {labelOf(w.name)}
-                {unitOf.get(w.name) && (
-                  <span className="block text-xs text-ink-muted">{unitOf.get(w.name)}</span>
-                )}
-              </th>
-              <Cells w={w} unit={unit} />
-              {headings.median && <Cells w={w.median} unit={unit} />}
-            </tr>
-          ))}
-        </tbody>
-      </table>
-      <p className="mt-2 text-xs text-ink-muted">
-        WTP = −β/β<sub>cost</sub>
-        {results.space === 'wtp' ? ', estimated directly in WTP space' : ''}: money per change of
-        each column, as its line says; a negative amount is money needed to accept the change.{' '}
-        {headings.median
-          ? 'Population mean and median are over the estimated distribution of tastes; they differ from the WTP at population means when the cost coefficient is random.'
-          : headings.mean === 'Population mean WTP'
-            ? 'With a fixed cost coefficient the population mean WTP equals the WTP at population means.'
-            : ''}{' '}
-        Each respondent&apos;s conditional-mean WTP is in Tastes. Intervals from the {used}{' '}
-        covariance.
-      </p>
-    </div>
+    <EstimateTable
+      caption="Willingness to pay"
+      rowHeading="Attribute column · unit and basis"
+      headings={[
+        headings.mean,
+        'Delta 95 %',
+        // HB: the interval of the population mean WTP over the posterior draws.
+        results.model === 'hb' ? 'Posterior 95 %' : 'Krinsky–Robb 95 %',
+        ...(headings.median ? [headings.median, 'Delta 95 %', 'Krinsky–Robb 95 %'] : []),
+      ]}
+      note={
+        <>
+          WTP = −β/β<sub>cost</sub>
+          {results.space === 'wtp' ? ', estimated directly in WTP space' : ''}: money per change of
+          each column, as its line says; a negative amount is money needed to accept the change.{' '}
+          {headings.median
+            ? 'Population mean and median are over the estimated distribution of tastes; they differ from the WTP at population means when the cost coefficient is random.'
+            : headings.mean === 'Population mean WTP'
+              ? 'With a fixed cost coefficient the population mean WTP equals the WTP at population means.'
+              : ''}{' '}
+          Each respondent&apos;s conditional-mean WTP is in Tastes. Intervals from the {used}{' '}
+          covariance.
+        </>
+      }
+    >
+      {results.wtp.map((w) => (
+        <tr key={w.name} className={estimateRowClass}>
+          <th scope="row" className="min-w-48 px-2 py-1.5 text-left font-normal text-ink">
+            {labelOf(w.name)}
+            {unitOf.get(w.name) && (
+              <span className="block text-xs text-ink-muted">{unitOf.get(w.name)}</span>
+            )}
+          </th>
+          <Cells w={w} unit={unit} />
+          {headings.median && <Cells w={w.median} unit={unit} />}
+        </tr>
+      ))}
+    </EstimateTable>
   );
 }

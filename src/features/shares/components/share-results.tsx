@@ -9,7 +9,7 @@ import { baseChartOptions } from '@/components/charts/chart-setup';
 import type { ShareGroups } from '@shared/schemas/shares';
 import type { ScenarioShares } from '@shared/engine/shares/share-model';
 import { formatCount, formatInterval, formatPercent } from '@/utils/format';
-import { okabeIto } from '@/components/charts/palette';
+import { chartInk, okabeIto } from '@/components/charts/palette';
 import { whiteBackground } from '@/components/charts/chart-png';
 
 const pct = (x: number | null | undefined) => formatPercent(x, 1);
@@ -54,7 +54,7 @@ export function ShareResults({
                     {
                       label: '95 % interval',
                       data: names.map((_, j) => [result.lower![j] * 100, result.upper![j] * 100]),
-                      backgroundColor: '#1f2a44',
+                      backgroundColor: chartInk,
                       barPercentage: 0.12,
                       grouped: false,
                       order: 0,

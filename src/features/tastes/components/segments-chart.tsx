@@ -7,7 +7,7 @@ import { Bar } from 'react-chartjs-2';
 import { baseChartOptions, bottomLegend } from '@/components/charts/chart-setup';
 import type { Segments } from '@shared/schemas/tastes';
 import { formatNumber } from '@/utils/format';
-import { okabeIto, withAlpha } from '@/components/charts/palette';
+import { chartInk, okabeIto, withAlpha } from '@/components/charts/palette';
 
 export type SegmentsView = 'histogram' | 'box';
 
@@ -78,7 +78,7 @@ function BoxChart({ data }: { data: Segments }) {
           {
             label: 'Median',
             data: data.groups.map((g) => [g.median - tick, g.median + tick] as [number, number]),
-            backgroundColor: '#14213d',
+            backgroundColor: chartInk,
             barPercentage: 0.55,
             grouped: false,
           },

@@ -4,7 +4,7 @@
  * intervals of both kinds, and demand curves.
  */
 import { describe, expect, it } from 'vitest';
-import { studyDefinitionSchema } from '../../../../shared/schemas/study-definition';
+import { makeDemoDefinition } from '../../../../scripts/lib/study-factory/definition';
 import type { ShareModel } from '../../../../shared/schemas/shares';
 import { ScenarioError } from '../../../../shared/engine/shares/code-scenario';
 import {
@@ -13,37 +13,8 @@ import {
 } from '../../../../shared/engine/shares/share-model';
 import { sweepDemandCurve } from '../../../../shared/engine/shares/demand-curve';
 
-const definition = studyDefinitionSchema.parse({
-  attributes: [
-    {
-      id: 'bill',
-      name: 'Monthly bill increase',
-      kind: 'numeric',
-      unit: '€',
-      isCost: true,
-      coding: 'linear',
-      levels: [0, 3, 6, 10, 15].map((v) => ({ id: `bill-${v}`, value: v })),
-    },
-    {
-      id: 'river',
-      name: 'River health rating',
-      kind: 'categorical',
-      coding: 'dummy',
-      referenceLevelId: 'river-poor',
-      levels: [
-        { id: 'river-poor', label: 'Poor' },
-        { id: 'river-fair', label: 'Fair' },
-        { id: 'river-good', label: 'Good' },
-      ],
-    },
-  ],
-  alternatives: { count: 2, labeled: false, labels: [] },
-  fixedAlternative: {
-    kind: 'status_quo',
-    label: 'Keep the current service',
-    levels: { bill: 'bill-0', river: 'river-poor' },
-  },
-});
+/** The demo study's bill and river (the status quo at €0 and a poor river). */
+const definition = makeDemoDefinition({ only: ['bill', 'river'], excludedCombinations: [] });
 
 const coefficients = [
   { name: 'bill', key: 'attr:bill', lognormal: true },

@@ -4,30 +4,18 @@ import { afterEach, describe, expect, it, vi } from 'vitest';
 import { cleanup, render, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import type { Attribute, StudyDefinition } from '@shared/schemas/study-definition';
+import { makeStudyDefinition, riverRating } from '../../../../scripts/lib/study-factory/definition';
 import { getLevelLabel } from '@shared/study/level-labels';
 import { ApiError } from '@/lib/api-client';
 import { AttributesEditor } from '@/features/attributes/components/attributes-editor';
 
 afterEach(cleanup);
 
-const definition: StudyDefinition = {
-  attributes: [
-    {
-      id: 'river',
-      name: 'River health rating',
-      kind: 'categorical',
-      isCost: false,
-      coding: 'dummy',
-      levels: [
-        { id: 'poor', label: 'Poor' },
-        { id: 'good', label: 'Good' },
-      ],
-    },
-  ],
-  alternatives: { count: 2, labeled: false, labels: [] },
+const definition: StudyDefinition = makeStudyDefinition({
+  only: ['river'],
+  attributes: { river: riverRating(['Poor', 'Good']) },
   fixedAlternative: null,
-  excludedCombinations: [],
-};
+});
 
 function renderEditor(save = vi.fn()) {
   render(

@@ -10,6 +10,10 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { studyDefinitionSchema, type StudyDefinition } from '@shared/schemas/study-definition';
 import {
+  makeStudyDefinition,
+  numericLevels,
+} from '../../../../scripts/lib/study-factory/definition';
+import {
   checkLevelLabel,
   formatNumericLevel,
   getLevelLabel,
@@ -22,19 +26,10 @@ import {
 } from '@/features/attributes/utils/definition-drafts';
 import { checkReadiness } from '@server/services/readiness';
 
-const start: StudyDefinition = studyDefinitionSchema.parse({
-  attributes: [
-    {
-      id: 'bill',
-      name: 'Monthly bill increase',
-      kind: 'numeric',
-      unit: '€',
-      isCost: true,
-      coding: 'linear',
-      levels: [0, 3, 6].map((v) => ({ id: `b${v}`, value: v })),
-    },
-  ],
-  alternatives: { count: 2 },
+const start: StudyDefinition = makeStudyDefinition({
+  only: ['bill'],
+  attributes: { bill: { levels: numericLevels('b', [0, 3, 6], () => '') } },
+  fixedAlternative: null,
 });
 
 type Edit =

@@ -5,31 +5,19 @@ import { cleanup, render, screen, waitFor, within } from '@testing-library/react
 import userEvent from '@testing-library/user-event';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import type { Active, Over } from '@dnd-kit/core';
-import { demoDefinition } from '@server/seed/demo-study';
+import { demoDefinition } from '@server/seed/demo-definition';
 import { QuestionnaireEditor } from '@/features/questionnaire/components/questionnaire-editor';
 import { pageAnnouncements } from '@/features/questionnaire/components/page-list';
 import { defaultQuestionnaire } from '@shared/schemas/questionnaire-defaults';
 import type { Questionnaire } from '@shared/schemas/questionnaire';
 import type { StudyDefinition } from '@shared/schemas/study-definition';
+import { makeStudyDefinition, riverRating } from '../../../../scripts/lib/study-factory/definition';
 
-const definition: StudyDefinition = {
-  attributes: [
-    {
-      id: 'river',
-      name: 'River health rating',
-      kind: 'categorical',
-      isCost: false,
-      coding: 'dummy',
-      levels: [
-        { id: 'poor', label: 'Poor' },
-        { id: 'good', label: 'Good' },
-      ],
-    },
-  ],
-  alternatives: { count: 2, labeled: false, labels: [] },
+const definition: StudyDefinition = makeStudyDefinition({
+  only: ['river'],
+  attributes: { river: riverRating(['Poor', 'Good']) },
   fixedAlternative: null,
-  excludedCombinations: [],
-};
+});
 
 let saved: Questionnaire[];
 beforeEach(() => {

@@ -1,0 +1,36 @@
+/**
+ * The column headings of a table: one `th scope="col"` each, with the table's own cell class
+ * and each column's alignment (figures right, text left), so a heading sits over its values.
+ */
+import type { ReactNode } from 'react';
+import { cn } from '@/lib/cn';
+
+type Align = 'left' | 'right';
+/** A heading's text (aligned left), or its text and alignment; false leaves the column out. */
+export type ColumnHeading = string | { label: ReactNode; align: Align; key?: string } | false;
+
+const alignClass: Record<Align, string> = { left: 'text-left', right: 'text-right' };
+
+export function HeaderCells({
+  headings,
+  className,
+}: {
+  headings: ColumnHeading[];
+  /** The padding and weight of the table's heading cells. */
+  className: string;
+}) {
+  return (
+    <>
+      {headings.map((h, i) => {
+        if (h === false) return null;
+        const { label, align, key } =
+          typeof h === 'string' ? { label: h, align: 'left' as const, key: h } : h;
+        return (
+          <th key={key ?? i} scope="col" className={cn(className, alignClass[align])}>
+            {label}
+          </th>
+        );
+      })}
+    </>
+  );
+}

@@ -6,7 +6,7 @@ export const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 /** `probe` again every `everyMs` until it gives a value; throws after `ms` with `what()`. */
 export async function waitFor<T>(
-  probe: () => Promise<T | null | undefined>,
+  probe: () => Promise<T | null | undefined> | T | null | undefined,
   ms: number,
   { everyMs = 200, what = () => 'nothing' }: { everyMs?: number; what?: () => string } = {},
 ): Promise<T> {

@@ -10,9 +10,11 @@
  * identity start instead, for a before/after comparison of the iteration count.
  */
 import os from 'node:os';
-import { buildChoiceData } from '../server/engine/estimation/build-choice-data';
 import { fitMixedLogit } from '../server/engine/estimation/fit-mixed-logit';
-import { simulatePanelChoices } from '../server/engine/estimation/simulate-panel-choices';
+import {
+  alternatingNormals,
+  simulateChoiceData,
+} from '../server/engine/estimation/simulate-choice-data';
 import { computeTasteProfilesInWorkers } from '../server/engine/parallel/parallel-taste-profiles';
 import { getMaxRows } from '../server/engine/simd/kernel-arena';
 import { estimateModelMemory } from '../server/engine/simd/estimate-model-memory';
@@ -29,21 +31,19 @@ const R = 1000;
 const PROFILE_DRAWS = 2000;
 const THREADS = 2;
 const initialInverseHessian = process.argv.includes('--identity-start') ? 'identity' : 'bhhh';
-const truth = Array.from({ length: K }, (_, k) => ({
-  name: `x${k + 1}`,
-  distribution: 'normal' as const,
-  location: k % 2 === 0 ? 0.5 + 0.05 * k : -0.4 - 0.05 * k,
-  spread: 0.3 + 0.03 * k,
-}));
-const coefficients = truth.map((c) => ({ name: c.name, distribution: c.distribution }));
-const sim = simulatePanelChoices({
+const { data, coefficients } = simulateChoiceData({
   respondents: N,
   tasks: T,
   alternatives: J,
-  coefficients: truth,
+  coefficients: alternatingNormals(K, {
+    even: 0.5,
+    odd: -0.4,
+    step: 0.05,
+    spread: 0.3,
+    spreadStep: 0.03,
+  }),
   seed: 5,
 });
-const { data } = buildChoiceData(sim.columns, sim.rows);
 const log = (line: string) => {
   if (!json) console.log(line);
 };

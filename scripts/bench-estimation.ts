@@ -13,13 +13,12 @@
  * Usage: npm run bench:estimation [-- --json] [-- --threads 2] [-- --large]
  */
 import os from 'node:os';
-import { buildChoiceData } from '../server/engine/estimation/build-choice-data';
 import { fitMixedLogit } from '../server/engine/estimation/fit-mixed-logit';
+import { createMixedLogitLayout } from '../server/engine/estimation/mixed-logit-layout';
 import {
-  createMixedLogitLayout,
-  type CoefficientSpec,
-} from '../server/engine/estimation/mixed-logit-layout';
-import { simulatePanelChoices } from '../server/engine/estimation/simulate-panel-choices';
+  alternatingNormals,
+  simulateChoiceData,
+} from '../server/engine/estimation/simulate-choice-data';
 import { computeTasteProfiles } from '../server/engine/estimation/taste-profiles';
 import { createLoglikEvaluator } from '../server/engine/parallel/create-loglik-evaluator';
 import type { MixedLogitEvaluator } from '../server/engine/parallel/mixed-logit-evaluator';
@@ -44,25 +43,21 @@ const K = 6;
 const R = 500;
 const ROUNDS = 3;
 const REPEATS = 5;
-const truth = Array.from({ length: K }, (_, k) => ({
-  name: `x${k + 1}`,
-  distribution: 'normal' as const,
-  location: k % 2 === 0 ? 0.6 + 0.1 * k : -0.5 - 0.1 * k,
-  spread: 0.4 + 0.05 * k,
-}));
-const coefficients: CoefficientSpec[] = truth.map((c) => ({
-  name: c.name,
-  distribution: c.distribution,
-}));
+const truth = alternatingNormals(K, {
+  even: 0.6,
+  odd: -0.5,
+  step: 0.1,
+  spread: 0.4,
+  spreadStep: 0.05,
+});
 const draws = { type: 'halton' as const, count: R, seed: 1, scrambled: true };
-const sim = simulatePanelChoices({
+const { data, coefficients } = simulateChoiceData({
   respondents: N,
   tasks: T,
   alternatives: J,
   coefficients: truth,
   seed: 2024,
 });
-const { data } = buildChoiceData(sim.columns, sim.rows);
 const layout = createMixedLogitLayout(data, coefficients, false);
 const theta = new Float64Array(layout.P);
 truth.forEach((c, k) => {
@@ -124,14 +119,13 @@ simdFit.fit.estimates.forEach((v, p) => {
   maxEstimateDifference = Math.max(maxEstimateDifference, Math.abs(v - tsFit.fit.estimates[p]));
 });
 async function compareStarts() {
-  const sim = simulatePanelChoices({
+  const correlated = simulateChoiceData({
     respondents: N,
     tasks: T,
     alternatives: J,
     coefficients: truth,
     seed: 5,
-  });
-  const correlated = buildChoiceData(sim.columns, sim.rows).data;
+  }).data;
   const run = async (initialInverseHessian: 'identity' | 'bhhh') => {
     const start = performance.now();
     const fit = await fitMixedLogit(correlated, {

@@ -9,17 +9,14 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import supertest from 'supertest';
-import { createTestApp, type TestApp } from '../support/test-app';
-import { createTeamWithAllRoles, TEST_PASSWORD } from '../support/factories';
+import type supertest from 'supertest';
+import { sql } from 'drizzle-orm';
+import { createTestApp, useTestApp } from '../support/test-app';
+import { TEST_PASSWORD } from '../support/factories';
 import { createScratchDatabase } from '../../scripts/lib/scratch-db';
 import { databaseFingerprint } from '../support/db-fingerprint';
 import { seedTastesStudy } from '../server/routes/tastes-fixture';
 import { createStudyVia } from '../server/routes/study-fixtures';
-import { createApp } from '../../server/app';
-import { loadEnv } from '../../server/env';
-import { createLogger } from '../../server/lib/logger';
-import { createMailer } from '../../server/mail/mailer';
 import { createDb } from '../../db/client';
 import { backup, countRows, restore, RestoreRefused } from '../../scripts/lib/backup';
 
@@ -32,10 +29,8 @@ const png = Buffer.concat([
 const tmp = (prefix: string) => fs.mkdtempSync(path.join(os.tmpdir(), prefix));
 const adminUrl = () => process.env.CW_TEST_ADMIN_URL!;
 
-let t: TestApp;
-let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
+const t = useTestApp({}, { signIn: 'team', dataDir: true });
 let seeded: Awaited<ReturnType<typeof seedTastesStudy>>;
-let dataDir: string;
 let outDir: string;
 let imageUrl: string;
 const made: (() => Promise<void>)[] = [];
@@ -48,44 +43,22 @@ async function emptyDatabase(): Promise<string> {
 
 /** The app on another database and data folder, with the owner signed in. */
 async function appOn(url: string, dir: string) {
-  const env = loadEnv({
-    NODE_ENV: 'test',
-    DATABASE_URL: url,
-    DATA_DIR: dir,
-    // The same secret: the restored sessions and links stay valid.
-    JWT_SECRET: t.deps.env.JWT_SECRET,
-    APP_URL: t.deps.env.APP_URL,
-    SMTP_HOST: '127.0.0.1',
-    SMTP_PORT: process.env.CW_TEST_SMTP_PORT ?? '1025',
-    LOG_LEVEL: 'silent',
-    AUTH_RATE_LIMIT: '10000',
-    EMBEDDED_WORKER: 'false',
-  });
-  const { db, pool } = createDb(url, 3);
-  const mailer = createMailer(env);
-  const app = createApp({ env, db, logger: createLogger('silent'), mailer });
-  const agent = supertest.agent(app).set('Origin', env.APP_URL);
+  // The same secret as the backed-up app's: the restored sessions and links stay valid.
+  const app = await createTestApp({ DATA_DIR: dir }, { databaseUrl: url });
   const email = (
-    await pool.query<{ email: string }>(
-      `select u.email from users u join memberships m on m.user_id = u.id
-        where m.team_id = $1 and m.role = 'owner'`,
-      [team.teamId],
+    await app.testDb.db.execute<{ email: string }>(
+      sql`select u.email from users u join memberships m on m.user_id = u.id
+           where m.team_id = ${t.team.teamId} and m.role = 'owner'`,
     )
   ).rows[0]!.email;
+  const agent = app.request();
   await agent.post('/api/auth/sign-in').send({ email, password: TEST_PASSWORD }).expect(200);
-  return {
-    agent,
-    db,
-    close: async () => {
-      mailer.close();
-      await pool.end();
-    },
-  };
+  return { agent, db: app.testDb.db, close: app.close };
 }
 
 /** One study's downloads, as the owner gets them. */
 async function downloads(agent: supertest.Agent) {
-  const base = `/api/teams/${team.teamId}/studies/${seeded.studyId}/exports`;
+  const base = `/api/teams/${t.team.teamId}/studies/${seeded.studyId}/exports`;
   const get = async (p: string) => {
     const res = await agent.get(`${base}/${p}`);
     expect(res.status, p).toBe(200);
@@ -99,29 +72,25 @@ async function downloads(agent: supertest.Agent) {
 }
 
 beforeAll(async () => {
-  dataDir = tmp('cw-backup-data-');
   outDir = tmp('cw-backup-out-');
-  t = await createTestApp({ DATA_DIR: dataDir });
-  team = await createTeamWithAllRoles(t);
-  seeded = await seedTastesStudy(t.deps.db, team.teamId);
-  const draft = await createStudyVia(team.agents.owner, team.teamId);
-  const up = await team.agents.owner
-    .post(`/api/teams/${team.teamId}/studies/${draft.id}/files`)
+  seeded = await seedTastesStudy(t.deps.db, t.team.teamId);
+  const draft = await createStudyVia(t.team.agents.owner, t.team.teamId);
+  const up = await t.team.agents.owner
+    .post(`/api/teams/${t.team.teamId}/studies/${draft.id}/files`)
     .attach('file', png, 'river.png')
     .expect(201);
   imageUrl = up.body.url;
 });
 afterAll(async () => {
-  await t.close();
   for (const drop of made) await drop();
-  for (const dir of [dataDir, outDir]) fs.rmSync(dir, { recursive: true, force: true });
+  fs.rmSync(outDir, { recursive: true, force: true });
 });
 
 describe('backup and restore drill', () => {
   let manifestFile: string;
 
   it('writes a custom-format dump, the uploads and a manifest with the row counts', async () => {
-    const result = await backup({ databaseUrl: t.testDb.url, dataDir, outDir });
+    const result = await backup({ databaseUrl: t.testDb.url, dataDir: t.dataDir, outDir });
     manifestFile = result.manifestFile;
     const m = result.manifest;
     expect(fs.readFileSync(path.join(outDir, m.dump.file)).subarray(0, 5).toString()).toBe('PGDMP');
@@ -143,7 +112,7 @@ describe('backup and restore drill', () => {
 
     const restored = await appOn(url, dir);
     try {
-      expect(await downloads(restored.agent)).toEqual(await downloads(team.agents.owner));
+      expect(await downloads(restored.agent)).toEqual(await downloads(t.team.agents.owner));
       const image = await restored.agent.get(imageUrl).buffer(true);
       expect(image.status).toBe(200);
       expect(Buffer.compare(image.body as Buffer, png)).toBe(0);

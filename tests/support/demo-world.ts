@@ -18,11 +18,6 @@ export type DemoWorld = {
 
 export async function seedDemoWorld(): Promise<DemoWorld> {
   const t = await createTestApp();
-  // The pool may see the database dropped under an idle connection at the end.
-  (t.deps.db as unknown as { $client: { on(e: 'error', f: () => void): void } }).$client.on(
-    'error',
-    () => {},
-  );
   const demo = await createDemoStudy(t.deps.db, { ownerEmail: 'owner@larkspur.example.test' });
   const t0 = performance.now();
   const firstRun = await ensureDemoResponses(t.deps.db, { studyId: demo.studyId });

@@ -2,18 +2,24 @@
  * The API in-process against a real PostgreSQL database of its own, with mail going to the
  * fake SMTP server the global setup started (read back through tests/support/mailbox.ts).
  */
-import { afterAll, beforeAll } from 'vitest';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { afterAll, beforeAll, beforeEach } from 'vitest';
 import supertest from 'supertest';
 import type { Express } from 'express';
+import type { DestinationStream } from 'pino';
 import { createApp } from '../../server/app';
 import { loadEnv } from '../../server/env';
 import { createLogger } from '../../server/lib/logger';
-import type { DestinationStream } from 'pino';
 import { createMailer } from '../../server/mail/mailer';
 import type { AppDeps } from '../../server/deps';
+import { startJobQueue, type JobQueue, type RegisteredJobKind } from '../../server/jobs/queue';
+import { createJobKinds } from '../../server/jobs/background';
 import { createTestDb, type TestDb } from './test-db';
 import { createDb } from '../../db/client';
-import { throughProxy, type TcpProxy } from './tcp-proxy';
+import { startTcpProxy, throughProxy, type TcpProxy } from './tcp-proxy';
+import { createTeamWithAllRoles, signUpOwner } from './factories';
 
 export type TestApp = {
   app: Express;
@@ -23,18 +29,20 @@ export type TestApp = {
   close(): Promise<void>;
 };
 
-/**
- * `viaProxy`: the app reaches its database through a TCP proxy the test controls (fault
- * tests); the test's own `testDb.db` stays direct. `logDestination`: the app logs at info there.
- */
-export async function createTestApp(
-  overrides: Record<string, string> = {},
-  options: { viaProxy?: TcpProxy; logDestination?: DestinationStream } = {},
-): Promise<TestApp> {
-  const testDb = await createTestDb();
-  const env = loadEnv({
+export type TestAppOptions = {
+  /** The app reaches its database through this proxy (fault tests); `testDb.db` stays direct. */
+  viaProxy?: TcpProxy;
+  /** The app logs at info there. */
+  logDestination?: DestinationStream;
+  /** An existing database to use as it is (not cloned, not dropped on close). */
+  databaseUrl?: string;
+};
+
+/** The settings of the test apps, `overrides` on top. */
+export function testEnv(databaseUrl: string, overrides: Record<string, string> = {}) {
+  return loadEnv({
     NODE_ENV: 'test',
-    DATABASE_URL: testDb.url,
+    DATABASE_URL: databaseUrl,
     JWT_SECRET: 'test-secret-test-secret-test-secret-0123456789',
     APP_URL: 'http://127.0.0.1:5999',
     SMTP_HOST: '127.0.0.1',
@@ -46,6 +54,20 @@ export async function createTestApp(
     ENGINE_THREAD_NICE: '0',
     ...overrides,
   });
+}
+
+async function openDatabase(url: string | undefined): Promise<TestDb> {
+  if (!url) return createTestDb();
+  const { db, pool } = createDb(url, 3);
+  return { db, url, close: () => pool.end() };
+}
+
+export async function createTestApp(
+  overrides: Record<string, string> = {},
+  options: TestAppOptions = {},
+): Promise<TestApp> {
+  const testDb = await openDatabase(options.databaseUrl);
+  const env = testEnv(testDb.url, overrides);
   const mailer = createMailer(env);
   const proxied = options.viaProxy
     ? createDb(throughProxy(testDb.url, options.viaProxy), { max: 5, connectTimeoutMs: 1000 })
@@ -70,22 +92,75 @@ export async function createTestApp(
   };
 }
 
+type Team = Awaited<ReturnType<typeof createTeamWithAllRoles>>;
+
+export type UseTestAppOptions<S extends SignIn> = Omit<TestAppOptions, 'viaProxy'> & {
+  /** Who is signed in before the file's tests: one team owner, or every role of a team. */
+  signIn?: S;
+  /** The app reaches its database through a TCP proxy the test controls (`t.proxy`). */
+  faultProxy?: boolean;
+  /** A data folder of the file's own (`DATA_DIR`, at `t.dataDir`), removed afterwards. */
+  dataDir?: boolean;
+  /** The real pg-boss queue on the file's database as the app's `jobs` (`t.queue`). */
+  jobQueue?: { work: boolean; kinds?: () => RegisteredJobKind[] };
+  /** The app's jobs are only kept, in `t.sent` (emptied before each test), never run. */
+  recordJobs?: boolean;
+};
+/** A job the app sent while `recordJobs` held it. */
+export type SentJob = { name: string; data: { runId?: string } & Record<string, unknown> };
+type SignIn = 'owner' | 'team' | undefined;
+type SignedIn<S extends SignIn> = S extends 'owner'
+  ? { owner: supertest.Agent; teamId: string }
+  : S extends 'team'
+    ? { team: Team }
+    : unknown;
+export type FileTestApp<S extends SignIn = undefined> = TestApp &
+  SignedIn<S> & { proxy: TcpProxy; dataDir: string; queue: JobQueue; sent: SentJob[] };
+
 /**
  * The usual set-up of an API test file: one test app for the whole file, created before its
- * tests and closed after them. The returned object is filled in by the `beforeAll`, so read its
- * fields inside hooks and tests only. A file's own `afterAll` hooks run before this one closes
- * the app (vitest runs after-hooks in reverse order of registration).
+ * tests and closed after them, with what `options` asks for. The returned object is filled in
+ * by the `beforeAll`, so read its fields inside hooks and tests only. A file's own `afterAll`
+ * hooks run before this one closes the app (vitest runs after-hooks in reverse order of
+ * registration).
  */
-export function useTestApp(
+export function useTestApp<S extends SignIn = undefined>(
   overrides: Record<string, string> = {},
-  options: { viaProxy?: TcpProxy; logDestination?: DestinationStream } = {},
-): TestApp {
-  const t = {} as TestApp;
+  options: UseTestAppOptions<S> = {},
+): FileTestApp<S> {
+  const { signIn, faultProxy, dataDir, jobQueue, recordJobs, ...appOptions } = options;
+  const t = {} as FileTestApp<'owner'> & FileTestApp<'team'>;
   beforeAll(async () => {
-    Object.assign(t, await createTestApp(overrides, options));
+    if (faultProxy) {
+      const pg = new URL(process.env.CW_TEST_ADMIN_URL!);
+      t.proxy = await startTcpProxy({ host: pg.hostname, port: Number(pg.port) });
+    }
+    if (dataDir) t.dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'cw-data-'));
+    const env = dataDir ? { DATA_DIR: t.dataDir, ...overrides } : overrides;
+    Object.assign(t, await createTestApp(env, { ...appOptions, viaProxy: t.proxy }));
+    if (signIn === 'owner') ({ agent: t.owner, teamId: t.teamId } = await signUpOwner(t));
+    if (signIn === 'team') t.team = await createTeamWithAllRoles(t);
+    if (jobQueue) {
+      const kinds = (jobQueue.kinds ?? createJobKinds)();
+      t.queue = await startJobQueue(t.deps, { kinds, work: jobQueue.work });
+      t.deps.jobs = t.queue;
+    }
   });
+  if (recordJobs)
+    beforeEach(() => {
+      const sent: SentJob[] = [];
+      t.sent = sent;
+      t.deps.jobs = {
+        send: async (name, data) => {
+          sent.push({ name, data: data as SentJob['data'] });
+        },
+      };
+    });
   afterAll(async () => {
+    await t.queue?.stop();
     await t.close?.();
+    await t.proxy?.close();
+    if (t.dataDir) fs.rmSync(t.dataDir, { recursive: true, force: true });
   });
-  return t;
+  return t as unknown as FileTestApp<S>;
 }

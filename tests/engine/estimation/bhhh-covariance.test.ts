@@ -1,10 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { buildChoiceData } from '../../../server/engine/estimation/build-choice-data';
 import { fitMixedLogit } from '../../../server/engine/estimation/fit-mixed-logit';
-import { simulatePanelChoices } from '../../../server/engine/estimation/simulate-panel-choices';
+import { simulateChoiceData } from '../../../server/engine/estimation/simulate-choice-data';
 
 describe("fitMixedLogit covariance 'bhhh' (Berndt, Hall, Hall & Hausman 1974; Train 2009 §8.7)", () => {
-  const sim = simulatePanelChoices({
+  const { data, coefficients } = simulateChoiceData({
     respondents: 400,
     tasks: 8,
     alternatives: 3,
@@ -20,11 +19,6 @@ describe("fitMixedLogit covariance 'bhhh' (Berndt, Hall, Hall & Hausman 1974; Tr
     ],
     seed: 41,
   });
-  const { data } = buildChoiceData(sim.columns, sim.rows);
-  const coefficients = [
-    { name: 'quality', distribution: 'normal' as const },
-    { name: 'price', distribution: 'neg_lognormal' as const },
-  ];
 
   it('gives the same estimates, and standard errors close to the Hessian ones, without 2P extra evaluations', async () => {
     const options = { coefficients, draws: { count: 100 } };

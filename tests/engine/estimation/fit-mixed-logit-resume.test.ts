@@ -6,13 +6,10 @@
  * (bfgs-resume.test.ts shows it for the optimiser alone); the comparison needs no tolerance.
  */
 import { describe, expect, it } from 'vitest';
-import { buildChoiceData } from '../../../server/engine/estimation/build-choice-data';
 import { fitMixedLogit } from '../../../server/engine/estimation/fit-mixed-logit';
 import type { MixedLogitCheckpoint } from '../../../server/engine/estimation/mixed-logit-checkpoint';
-import {
-  simulatePanelChoices,
-  type TrueCoefficient,
-} from '../../../server/engine/estimation/simulate-panel-choices';
+import { simulateChoiceData } from '../../../server/engine/estimation/simulate-choice-data';
+import type { TrueCoefficient } from '../../../server/engine/estimation/simulate-panel-choices';
 import { decodeCheckpoint, encodeCheckpoint } from '../../../server/jobs/run-checkpoint-codec';
 
 const truth: TrueCoefficient[] = [
@@ -20,15 +17,13 @@ const truth: TrueCoefficient[] = [
   { name: 'comfort', distribution: 'fixed', location: 0.5 },
   { name: 'price', distribution: 'fixed', location: -0.6, levels: [0, 1, 2, 3] },
 ];
-const coefficients = truth.map(({ name, distribution }) => ({ name, distribution }));
-const sim = simulatePanelChoices({
+const { data, coefficients } = simulateChoiceData({
   respondents: 120,
   tasks: 8,
   alternatives: 3,
   coefficients: truth,
   seed: 31,
 });
-const { data } = buildChoiceData(sim.columns, sim.rows);
 const options = { coefficients, draws: { count: 100, seed: 9 }, starts: 2 };
 
 describe('fitMixedLogit resumed from a checkpoint', () => {

@@ -5,10 +5,8 @@ import {
   fitMixedLogit,
   type EstimationProgress,
 } from '../../../server/engine/estimation/fit-mixed-logit';
-import {
-  simulatePanelChoices,
-  type TrueCoefficient,
-} from '../../../server/engine/estimation/simulate-panel-choices';
+import { simulateChoiceData } from '../../../server/engine/estimation/simulate-choice-data';
+import type { TrueCoefficient } from '../../../server/engine/estimation/simulate-panel-choices';
 
 const truth: TrueCoefficient[] = [
   { name: 'quality', distribution: 'normal', location: 1.0, spread: 0.8 },
@@ -21,17 +19,21 @@ const truth: TrueCoefficient[] = [
     levels: [0, 1, 2, 3],
   },
 ];
-const coefficients = truth.map(({ name, distribution }) => ({ name, distribution }));
 
 describe('fitMixedLogit', () => {
-  const sim = simulatePanelChoices({
+  const { sim, data, coefficients } = simulateChoiceData({
     respondents: 400,
     tasks: 10,
     alternatives: 3,
     coefficients: truth,
     seed: 77,
   });
-  const { data } = buildChoiceData(sim.columns, sim.rows);
+  /** The same panel cut to its first `n` respondents, for the quicker checks. */
+  const firstRespondents = (n: number) =>
+    buildChoiceData(
+      sim.columns,
+      sim.rows.filter((r) => Number(r.respondent) <= n),
+    ).data;
 
   it('recovers known parameters (normal + neg_lognormal cost) within two standard errors', async () => {
     // "Within two SEs" is common practice, no source.
@@ -86,10 +88,7 @@ describe('fitMixedLogit', () => {
   });
 
   it('gives the same estimates on 2 worker threads as in-process (threads only split the sum)', async () => {
-    const small = buildChoiceData(
-      sim.columns,
-      sim.rows.filter((r) => Number(r.respondent) <= 60),
-    ).data;
+    const small = firstRespondents(60);
     const options = { coefficients, draws: { count: 50 } };
     const one = await fitMixedLogit(small, options);
     const two = await fitMixedLogit(small, { ...options, threads: 2 });
@@ -99,10 +98,7 @@ describe('fitMixedLogit', () => {
   });
 
   it('runs several starts and keeps the best', async () => {
-    const small = buildChoiceData(
-      sim.columns,
-      sim.rows.filter((r) => Number(r.respondent) <= 60),
-    ).data;
+    const small = firstRespondents(60);
     const fit = await fitMixedLogit(small, { coefficients, draws: { count: 50 }, starts: 3 });
     expect(fit.starts).toHaveLength(3);
     expect(fit.loglik).toBe(Math.max(...fit.starts.map((s) => s.loglik)));
@@ -120,10 +116,7 @@ describe('fitMixedLogit', () => {
   });
 
   it('is deterministic for a given seed and changes with another seed', async () => {
-    const small = buildChoiceData(
-      sim.columns,
-      sim.rows.filter((r) => Number(r.respondent) <= 40),
-    ).data;
+    const small = firstRespondents(40);
     const a = await fitMixedLogit(small, { coefficients, draws: { count: 30, seed: 5 } });
     const b = await fitMixedLogit(small, { coefficients, draws: { count: 30, seed: 5 } });
     const c = await fitMixedLogit(small, { coefficients, draws: { count: 30, seed: 6 } });
@@ -132,10 +125,7 @@ describe('fitMixedLogit', () => {
   });
 
   it.each(['sobol', 'mlhs', 'random'] as const)('fits with %s draws', async (type) => {
-    const small = buildChoiceData(
-      sim.columns,
-      sim.rows.filter((r) => Number(r.respondent) <= 60),
-    ).data;
+    const small = firstRespondents(60);
     const fit = await fitMixedLogit(small, { coefficients, draws: { type, count: 50 } });
     expect(fit.draws.type).toBe(type);
     expect(Number.isFinite(fit.loglik)).toBe(true);
@@ -148,15 +138,15 @@ describe('fitMixedLogit', () => {
       { name: 'b', distribution: 'normal', location: -0.6, spread: 0.5 },
       { name: 'price', distribution: 'fixed', location: -0.7 },
     ];
-    const s = simulatePanelChoices({
+    const correlatedPanel = simulateChoiceData({
       respondents: 150,
       tasks: 8,
       alternatives: 3,
       coefficients: corrTruth,
       seed: 3,
     });
-    const fit = await fitMixedLogit(buildChoiceData(s.columns, s.rows).data, {
-      coefficients: corrTruth.map(({ name, distribution }) => ({ name, distribution })),
+    const fit = await fitMixedLogit(correlatedPanel.data, {
+      coefficients: correlatedPanel.coefficients,
       correlated: true,
       draws: { count: 100 },
     });

@@ -7,30 +7,7 @@ import {
 } from '../../../server/engine/estimation/estimation-errors';
 import { checkMnlOptions, fitMnl } from '../../../server/engine/estimation/fit-mnl';
 import { parseChoiceCsv } from '../../../server/engine/estimation/parse-choice-csv';
-
-const row = (
-  respondent: number,
-  task: number,
-  alt: number,
-  chosen: number,
-  values: number[],
-  holdout = false,
-): LongChoiceRow => ({
-  respondent,
-  task,
-  alt,
-  chosen,
-  values,
-  holdout,
-});
-const pair = (respondent: number, task: number, a: number[], b: number[]): LongChoiceRow[] => [
-  row(respondent, task, 1, 1, a),
-  row(respondent, task, 2, 0, b),
-];
-const good = buildChoiceData(
-  ['x', 'z'],
-  [...pair(1, 1, [1, 0], [0, 1]), ...pair(1, 2, [0, 1], [2, 0]), ...pair(2, 1, [1, 1], [0, 0])],
-).data;
+import { good, pair, row } from './invalid-arguments-data';
 
 describe('buildChoiceData rejects invalid data', () => {
   it.each<[string, LongChoiceRow[], RegExp]>([

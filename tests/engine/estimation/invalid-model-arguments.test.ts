@@ -1,38 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import { fillUniformDraws } from '../../../server/engine/draws/uniform-draws';
-import { buildChoiceData } from '../../../server/engine/estimation/build-choice-data';
 import { checkMixedLogitOptions } from '../../../server/engine/estimation/check-mixed-logit-options';
-import { type LongChoiceRow } from '../../../server/engine/estimation/choice-data';
 import { computeWtp } from '../../../server/engine/estimation/compute-wtp';
 import { EstimationOptionsError } from '../../../server/engine/estimation/estimation-errors';
 import { createMixedLogitLayout } from '../../../server/engine/estimation/mixed-logit-layout';
 import { computeTasteProfiles } from '../../../server/engine/estimation/taste-profiles';
 import { computeGaussHermite } from '../../../server/engine/linalg/gauss-hermite';
 import { estimationSpecSchema } from '../../../shared/schemas/estimation-spec';
-
-const row = (
-  respondent: number,
-  task: number,
-  alt: number,
-  chosen: number,
-  values: number[],
-  holdout = false,
-): LongChoiceRow => ({
-  respondent,
-  task,
-  alt,
-  chosen,
-  values,
-  holdout,
-});
-const pair = (respondent: number, task: number, a: number[], b: number[]): LongChoiceRow[] => [
-  row(respondent, task, 1, 1, a),
-  row(respondent, task, 2, 0, b),
-];
-const good = buildChoiceData(
-  ['x', 'z'],
-  [...pair(1, 1, [1, 0], [0, 1]), ...pair(1, 2, [0, 1], [2, 0]), ...pair(2, 1, [1, 1], [0, 0])],
-).data;
+import { good } from './invalid-arguments-data';
 
 describe('checkMixedLogitOptions rejects invalid options before any numerics', () => {
   const base = {

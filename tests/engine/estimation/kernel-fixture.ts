@@ -1,11 +1,10 @@
 /** Test helper: a small seeded panel with a kernel over all respondents. */
-import { buildChoiceData } from '../../../server/engine/estimation/build-choice-data';
 import { createMixedLogitKernel } from '../../../server/engine/estimation/mixed-logit-kernel';
 import {
   createMixedLogitLayout,
   type CoefficientDistribution,
 } from '../../../server/engine/estimation/mixed-logit-layout';
-import { simulatePanelChoices } from '../../../server/engine/estimation/simulate-panel-choices';
+import { simulateChoiceData } from '../../../server/engine/estimation/simulate-choice-data';
 import { createStandardVariates } from '../../../server/engine/estimation/standard-variates';
 
 export function createKernelFixture(
@@ -21,14 +20,13 @@ export function createKernelFixture(
       distribution === 'neg_lognormal' || distribution === 'lognormal' ? -0.7 : 0.5 - 0.3 * k,
     spread: 0.5,
   }));
-  const sim = simulatePanelChoices({
+  const { sim, data } = simulateChoiceData({
     respondents: 25,
     tasks: 5,
     alternatives: 3,
     coefficients,
     seed: 11,
   });
-  const { data } = buildChoiceData(sim.columns, sim.rows);
   const layout = createMixedLogitLayout(data, coefficients, correlated, wtpCost);
   const variates = createStandardVariates(layout, { type: 'halton', count: R, seed: 3 }, 0, 25);
   const kernel = createMixedLogitKernel(data, layout, variates, R, 0, 25);

@@ -1,13 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { buildChoiceData } from '../../../server/engine/estimation/build-choice-data';
 import { computeMixedHitRate } from '../../../server/engine/estimation/mixed-logit-hit-rate';
 import { createMixedLogitLayout } from '../../../server/engine/estimation/mixed-logit-layout';
 import { computeMnlHitRate } from '../../../server/engine/estimation/mnl-hit-rate';
-import { simulatePanelChoices } from '../../../server/engine/estimation/simulate-panel-choices';
+import { simulateChoiceData } from '../../../server/engine/estimation/simulate-choice-data';
 
 describe('computeMixedHitRate', () => {
   it('equals the MNL hit rate when the spread is negligible (the mixed logit collapses to the MNL)', () => {
-    const sim = simulatePanelChoices({
+    const { data, coefficients } = simulateChoiceData({
       respondents: 40,
       tasks: 5,
       alternatives: 3,
@@ -17,15 +16,7 @@ describe('computeMixedHitRate', () => {
         { name: 'b', distribution: 'fixed', location: -0.4 },
       ],
     });
-    const { data } = buildChoiceData(sim.columns, sim.rows);
-    const layout = createMixedLogitLayout(
-      data,
-      [
-        { name: 'a', distribution: 'normal' },
-        { name: 'b', distribution: 'fixed' },
-      ],
-      false,
-    );
+    const layout = createMixedLogitLayout(data, coefficients, false);
     const mixed = computeMixedHitRate(data, layout, Float64Array.from([0.7, -0.4, 1e-9]), {
       type: 'halton',
       count: 20,

@@ -8,11 +8,11 @@
 import { describe, expect, it } from 'vitest';
 import { buildChoiceData } from '../../../server/engine/estimation/build-choice-data';
 import { fitMixedLogit } from '../../../server/engine/estimation/fit-mixed-logit';
-import { simulatePanelChoices } from '../../../server/engine/estimation/simulate-panel-choices';
+import { simulateChoiceData } from '../../../server/engine/estimation/simulate-choice-data';
 
 describe('a cost column of order 10^5', () => {
   it('reaches the optimum of the well-scaled model (LL to 1e-6) and reports converged', async () => {
-    const sim = simulatePanelChoices({
+    const { sim, data, coefficients } = simulateChoiceData({
       respondents: 150,
       tasks: 8,
       alternatives: 3,
@@ -27,16 +27,8 @@ describe('a cost column of order 10^5', () => {
       ...r,
       values: [r.values[0], r.values[1], r.values[2] * 1e5],
     }));
-    const options = {
-      coefficients: [
-        { name: 'quality', distribution: 'normal' as const },
-        { name: 'comfort', distribution: 'fixed' as const },
-        { name: 'cost', distribution: 'fixed' as const },
-      ],
-      draws: { count: 100, seed: 1 },
-      starts: 1,
-    };
-    const reference = await fitMixedLogit(buildChoiceData(sim.columns, sim.rows).data, options);
+    const options = { coefficients, draws: { count: 100, seed: 1 }, starts: 1 };
+    const reference = await fitMixedLogit(data, options);
     const fit = await fitMixedLogit(buildChoiceData(sim.columns, big).data, options);
     expect(fit.converged).toBe(true);
     expect(fit.status).toBe('converged');

@@ -3,10 +3,8 @@ import { buildChoiceData } from '../../../server/engine/estimation/build-choice-
 import { EstimationCancelledError } from '../../../server/engine/estimation/estimation-errors';
 import { createMixedLogitLayout } from '../../../server/engine/estimation/mixed-logit-layout';
 import { getPopulationMoments } from '../../../server/engine/estimation/population-moments';
-import {
-  simulatePanelChoices,
-  type TrueCoefficient,
-} from '../../../server/engine/estimation/simulate-panel-choices';
+import { simulateChoiceData } from '../../../server/engine/estimation/simulate-choice-data';
+import type { TrueCoefficient } from '../../../server/engine/estimation/simulate-panel-choices';
 import { computeTasteProfiles } from '../../../server/engine/estimation/taste-profiles';
 
 const truth: TrueCoefficient[] = [
@@ -38,14 +36,13 @@ function correlation(a: number[], b: number[]): number {
 
 /** Profiles at the TRUE population parameters, so only the number of tasks varies. */
 function profilesFor(tasks: number) {
-  const sim = simulatePanelChoices({
+  const { sim, data } = simulateChoiceData({
     respondents: 300,
     tasks,
     alternatives: 3,
     coefficients: truth,
     seed: 8,
   });
-  const { data } = buildChoiceData(sim.columns, sim.rows);
   const layout = createMixedLogitLayout(data, coefficients, false);
   const result = computeTasteProfiles(data, layout, trueTheta, { count: 500, cost: 'price' });
   const trueQuality = Array.from({ length: 300 }, (_, n) => sim.trueBetas[n * 2]);
@@ -103,14 +100,13 @@ describe('computeTasteProfiles (Revelt & Train 2000; Train 2009 ch. 11)', () => 
   });
 
   it('stops with EstimationCancelledError when the signal has fired', () => {
-    const sim = simulatePanelChoices({
+    const { data } = simulateChoiceData({
       respondents: 10,
       tasks: 2,
       alternatives: 2,
       coefficients: truth,
       seed: 1,
     });
-    const { data } = buildChoiceData(sim.columns, sim.rows);
     const layout = createMixedLogitLayout(data, coefficients, false);
     const controller = new AbortController();
     controller.abort();

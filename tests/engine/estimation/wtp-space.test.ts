@@ -6,11 +6,10 @@
  */
 import { describe, expect, it } from 'vitest';
 import { estimationSpecSchema } from '../../../shared/schemas/estimation-spec';
-import { buildChoiceData } from '../../../server/engine/estimation/build-choice-data';
 import { runEstimation } from '../../../server/engine/estimation/run-estimation';
-import { simulatePanelChoices } from '../../../server/engine/estimation/simulate-panel-choices';
+import { simulateChoiceData } from '../../../server/engine/estimation/simulate-choice-data';
 
-const sim = simulatePanelChoices({
+const { built } = simulateChoiceData({
   respondents: 120,
   tasks: 8,
   alternatives: 3,
@@ -20,7 +19,6 @@ const sim = simulatePanelChoices({
   ],
   seed: 8,
 });
-const built = buildChoiceData(sim.columns, sim.rows);
 
 describe('WTP space', () => {
   it('MNL: same LL as preference space, w = −β/β_cost, with standard errors', async () => {

@@ -1,9 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { buildChoiceData } from '../../../server/engine/estimation/build-choice-data';
-import { simulatePanelChoices } from '../../../server/engine/estimation/simulate-panel-choices';
+import { simulateChoiceData } from '../../../server/engine/estimation/simulate-choice-data';
 import { fitHb } from '../../../server/engine/hb/fit-hb';
 
-const sim = simulatePanelChoices({
+const { data } = simulateChoiceData({
   respondents: 40,
   tasks: 6,
   alternatives: 3,
@@ -13,7 +12,6 @@ const sim = simulatePanelChoices({
     { name: 'bill', distribution: 'normal', location: -0.4, spread: 0.3 },
   ],
 });
-const { data } = buildChoiceData(sim.columns, sim.rows);
 const options = {
   coefficients: [
     { name: 'river', distribution: 'normal' },

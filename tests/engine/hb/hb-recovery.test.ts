@@ -7,9 +7,8 @@
  *   E[β_n | y_n] and agree in large samples (Bernstein-von Mises; Train 2009, §12.2).
  */
 import { beforeAll, describe, expect, it } from 'vitest';
-import { buildChoiceData } from '../../../server/engine/estimation/build-choice-data';
 import { fitMixedLogit } from '../../../server/engine/estimation/fit-mixed-logit';
-import { simulatePanelChoices } from '../../../server/engine/estimation/simulate-panel-choices';
+import { simulateChoiceData } from '../../../server/engine/estimation/simulate-choice-data';
 import { computeTasteProfiles } from '../../../server/engine/estimation/taste-profiles';
 import { fitHb, type HbResult } from '../../../server/engine/hb/fit-hb';
 
@@ -26,15 +25,13 @@ const truth = [
   },
 ];
 const N = 250;
-const sim = simulatePanelChoices({
+const { sim, data, coefficients } = simulateChoiceData({
   respondents: N,
   tasks: 12,
   alternatives: 3,
   coefficients: truth,
   seed: 31,
 });
-const { data } = buildChoiceData(sim.columns, sim.rows);
-const coefficients = truth.map((c) => ({ name: c.name, distribution: c.distribution }));
 
 function pearson(x: number[], y: number[]): number {
   const mx = x.reduce((a, b) => a + b, 0) / x.length;

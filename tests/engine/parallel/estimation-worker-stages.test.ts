@@ -4,8 +4,7 @@
  */
 import { afterAll, describe, expect, it } from 'vitest';
 import { estimationSpecSchema } from '../../../shared/schemas/estimation-spec';
-import { buildChoiceData } from '../../../server/engine/estimation/build-choice-data';
-import { simulatePanelChoices } from '../../../server/engine/estimation/simulate-panel-choices';
+import { simulateChoiceData } from '../../../server/engine/estimation/simulate-choice-data';
 import {
   createEstimationPool,
   runEstimationInWorker,
@@ -16,7 +15,7 @@ afterAll(() => pool.destroy());
 
 describe('estimation thread', () => {
   it('reports iterations, then standard errors, WTP and taste profiles', async () => {
-    const sim = simulatePanelChoices({
+    const { built } = simulateChoiceData({
       respondents: 40,
       tasks: 6,
       alternatives: 3,
@@ -40,7 +39,7 @@ describe('estimation thread', () => {
     const events: string[] = [];
     const result = await runEstimationInWorker(
       pool,
-      { spec, built: buildChoiceData(sim.columns, sim.rows), threads: 1 },
+      { spec, built, threads: 1 },
       {
         onProgress: () => {
           if (events.at(-1) !== 'iteration') events.push('iteration');

@@ -1,12 +1,11 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { buildChoiceData } from '../../../server/engine/estimation/build-choice-data';
 import { fitMixedLogit } from '../../../server/engine/estimation/fit-mixed-logit';
-import { simulatePanelChoices } from '../../../server/engine/estimation/simulate-panel-choices';
+import { simulateChoiceData } from '../../../server/engine/estimation/simulate-choice-data';
 import { createLoglikEvaluator } from '../../../server/engine/parallel/create-loglik-evaluator';
 import { chooseKernel } from '../../../server/engine/simd/kernel-choice';
 import { createKernelFixture } from '../estimation/kernel-fixture';
 
-const sim = simulatePanelChoices({
+const { data, coefficients } = simulateChoiceData({
   respondents: 150,
   tasks: 8,
   alternatives: 3,
@@ -24,13 +23,6 @@ const sim = simulatePanelChoices({
   ],
   seed: 29,
 });
-const { data } = buildChoiceData(sim.columns, sim.rows);
-const coefficients = [
-  { name: 'quality', distribution: 'normal' as const },
-  { name: 'comfort', distribution: 'normal' as const },
-  { name: 'access', distribution: 'uniform' as const },
-  { name: 'price', distribution: 'neg_lognormal' as const },
-];
 
 describe('whole estimations with the SIMD and the TypeScript kernel', () => {
   it('agree to 1e-6 in every estimate and standard error (correlated normals, 2 threads)', async () => {

@@ -3,38 +3,21 @@
  * reaches its own test database through a TCP proxy this file controls, so "PostgreSQL
  * restarts" cut every connection without touching the shared cluster.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { eq, sql } from 'drizzle-orm';
-import type supertest from 'supertest';
-import { createTestApp, type TestApp } from '../../support/test-app';
-import { startTcpProxy, type TcpProxy } from '../../support/tcp-proxy';
-import { signUpOwner } from '../../support/factories';
+import { useTestApp } from '../../support/test-app';
 import { answers, respondents } from '../../../db/schema/fieldwork';
 import { teams } from '../../../db/schema/accounts';
 import { isDatabaseUnavailable } from '../../../server/lib/db-errors';
 import { answerFor, insertStudy } from '../routes/respond-fixtures';
 
-let t: TestApp;
-let proxy: TcpProxy;
-let owner: supertest.Agent;
-let teamId: string;
-
-beforeAll(async () => {
-  const pgUrl = new URL(process.env.CW_TEST_ADMIN_URL!);
-  proxy = await startTcpProxy({ host: pgUrl.hostname, port: Number(pgUrl.port) });
-  t = await createTestApp({}, { viaProxy: proxy });
-  ({ agent: owner, teamId } = await signUpOwner(t));
-});
-afterAll(async () => {
-  await t.close();
-  await proxy.close();
-});
+const t = useTestApp({}, { signIn: 'owner', faultProxy: true });
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 async function startRespondent() {
-  const study = await insertStudy(t, teamId);
-  await owner.post(`/api/teams/${teamId}/studies/${study.id}/lifecycle/go-live`).expect(200);
+  const study = await insertStudy(t, t.teamId);
+  await t.owner.post(`/api/teams/${t.teamId}/studies/${study.id}/lifecycle/go-live`).expect(200);
   const res = await t.request().post(`/api/r/${study.publicId}/sessions`).send({}).expect(201);
   return { publicId: study.publicId, session: res.body };
 }
@@ -46,7 +29,7 @@ function post(publicId: string, token: string, body: object) {
 describe('pool errors', () => {
   it('when every backend is terminated (pg_terminate_backend), the next requests succeed without a restart', async () => {
     await Promise.all([1, 2, 3].map(() => t.request().get('/api/health').expect(200)));
-    expect(proxy.open).toBeGreaterThan(0);
+    expect(t.proxy.open).toBeGreaterThan(0);
     await t.testDb.db.execute(sql`
       select pg_terminate_backend(pid) from pg_stat_activity
        where datname = current_database() and pid <> pg_backend_pid()`);
@@ -62,7 +45,7 @@ describe('pool errors', () => {
     const failed = await t.deps.db
       .transaction(async (tx) => {
         await tx.insert(teams).values({ name });
-        proxy.cut();
+        t.proxy.cut();
         await sleep(100);
         await tx.select().from(teams);
       })
@@ -84,7 +67,7 @@ describe('PostgreSQL restart while respondents answer', () => {
     await post(publicId, session.sessionToken, answerFor(session.screens[0])).expect(201);
     const next = answerFor(session.screens[1]);
 
-    proxy.refuse();
+    t.proxy.refuse();
     const down = await post(publicId, session.sessionToken, next);
     expect(down.status).toBe(503);
     expect(down.headers['retry-after']).toBe('2');
@@ -92,7 +75,7 @@ describe('PostgreSQL restart while respondents answer', () => {
     const health = await t.request().get('/api/health');
     expect(health.status).toBe(503);
 
-    proxy.resume();
+    t.proxy.resume();
     await post(publicId, session.sessionToken, next).expect(201);
     const replay = await post(publicId, session.sessionToken, next).expect(200);
     expect(replay.body.replay).toBe(true);

@@ -3,12 +3,13 @@
  * one port. Both answer, the primary reports both event loops, and a web process killed with
  * SIGKILL (as an out-of-memory kill would) is replaced while the other keeps answering.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it } from 'vitest';
 import fs from 'node:fs';
 import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
+import { sleep, waitFor } from '../../support/wait-for';
 import {
   startProcess,
   waitForHealth,
@@ -16,22 +17,15 @@ import {
 } from '../../../scripts/lib/server-process';
 import { askEventLoopDelay } from '../../../server/lib/event-loop-delay';
 
-let t: TestApp;
+const t = useTestApp();
 let server: ServerProcess | null = null;
 const logDir = fs.mkdtempSync(path.join(os.tmpdir(), 'cw-web-instances-'));
 const logFile = path.join(logDir, 'server.log');
 
-beforeAll(async () => {
-  t = await createTestApp();
-}, 60_000);
-
 afterAll(async () => {
   await server?.stop(5_000);
-  await t.close();
   fs.rmSync(logDir, { recursive: true, force: true });
 });
-
-const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
@@ -59,16 +53,6 @@ function childrenOf(pid: number): number[] {
       }
     })
     .map(Number);
-}
-
-async function waitFor<T>(probe: () => T | null, ms: number): Promise<T> {
-  const until = Date.now() + ms;
-  for (;;) {
-    const value = probe();
-    if (value) return value;
-    if (Date.now() > until) throw new Error(`nothing after ${ms} ms`);
-    await sleep(200);
-  }
 }
 
 describe('WEB_INSTANCES=2', () => {

@@ -11,42 +11,29 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { createTestApp, type TestApp } from '../../support/test-app';
-import { createTeamWithAllRoles } from '../../support/factories';
+import { useTestApp } from '../../support/test-app';
+import { sleep, waitFor, waitForRun, type RunRow } from '../../support/wait-for';
 import { getRunForJob } from '../../../db/queries/runs';
 import { getRunCheckpoint } from '../../../db/queries/run-checkpoints';
-import { startJobQueue, type JobQueue } from '../../../server/jobs/queue';
-import { createJobKinds } from '../../../server/jobs/background';
 import { STALE_RUN_MS, sweepStaleRuns } from '../../../server/jobs/stale-run-sweep';
 import { startProcess, type ServerProcess } from '../../../scripts/lib/server-process';
-import { ignoreTeardownErrors, mixedLogitSpec, seedRunStudy } from '../jobs/run-fixtures';
+import { mixedLogitSpec, seedRunStudy } from '../jobs/run-fixtures';
 
-let t: TestApp;
-let sender: JobQueue;
-let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
+// The API enqueues on the real queue; only the worker processes take jobs from it.
+const t = useTestApp({}, { signIn: 'team', jobQueue: { work: false } });
 let base: string;
 const workers: ServerProcess[] = [];
 const logDir = fs.mkdtempSync(path.join(os.tmpdir(), 'cw-worker-death-'));
 
 beforeAll(async () => {
-  t = await createTestApp();
-  ignoreTeardownErrors(t.deps.db);
-  team = await createTeamWithAllRoles(t);
-  const study = await seedRunStudy(t.deps.db, { teamId: team.teamId, respondents: 120 });
-  base = `/api/teams/${team.teamId}/studies/${study.studyId}/runs`;
-  // The API enqueues on the real queue; only the worker processes take jobs from it.
-  sender = await startJobQueue(t.deps, { kinds: createJobKinds(), work: false });
-  t.deps.jobs = sender;
+  const study = await seedRunStudy(t.deps.db, { teamId: t.team.teamId, respondents: 120 });
+  base = `/api/teams/${t.team.teamId}/studies/${study.studyId}/runs`;
 }, 60_000);
 
 afterAll(async () => {
   for (const w of workers) await w.stop(5_000);
-  await sender?.stop();
-  await t.close();
   fs.rmSync(logDir, { recursive: true, force: true });
 });
-
-const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 function startWorker(): ServerProcess {
   const worker = startProcess({
@@ -68,27 +55,6 @@ function startWorker(): ServerProcess {
   return worker;
 }
 
-/** Polls the run until `done` says so; fails the test after `ms`. */
-async function waitForRun(id: string, done: (row: RunRow) => boolean, ms: number) {
-  const until = Date.now() + ms;
-  for (;;) {
-    const row = await getRunForJob(t.deps.db, { id });
-    if (row && done(row)) return row;
-    if (Date.now() > until) throw new Error(`run ${id} stayed ${row?.status} for ${ms} ms`);
-    await sleep(200);
-  }
-}
-type RunRow = NonNullable<Awaited<ReturnType<typeof getRunForJob>>>;
-
-async function waitFor<T>(probe: () => Promise<T | null>, ms: number): Promise<T> {
-  const until = Date.now() + ms;
-  for (;;) {
-    const value = await probe();
-    if (value) return value;
-    if (Date.now() > until) throw new Error(`nothing after ${ms} ms`);
-    await sleep(200);
-  }
-}
 const heartbeatOf = (row: RunRow) =>
   (row.progress as { heartbeatAt?: string } | null)?.heartbeatAt ?? null;
 
@@ -98,7 +64,7 @@ describe('a worker killed during an estimation', () => {
     // Long enough to be killed mid-run, after its first iteration, on a fast machine too (some
     // seconds on one thread).
     const spec = mixedLogitSpec(2_000, 5, true);
-    const slow = await team.agents.analyst.post(base).send({ spec }).expect(201);
+    const slow = await t.team.agents.analyst.post(base).send({ spec }).expect(201);
     const saved = await waitFor(
       () => getRunCheckpoint(t.deps.db, { runId: slow.body.id }),
       120_000,
@@ -119,11 +85,12 @@ describe('a worker killed during an estimation', () => {
     // …and once it has (the clock moved on by STALE_RUN_MS), it is queued again.
     const swept = await sweepStaleRuns(t.deps, Date.now() + STALE_RUN_MS);
     expect(swept.resumed).toContain(slow.body.id);
-    const waiting = (await team.agents.viewer.get(`${base}/${slow.body.id}`).expect(200)).body;
+    const waiting = (await t.team.agents.viewer.get(`${base}/${slow.body.id}`).expect(200)).body;
     expect(waiting).toMatchObject({ status: 'queued', attempts: 1 });
 
     startWorker();
     const resumed = await waitForRun(
+      t.deps.db,
       slow.body.id,
       (r) => r.status === 'done' || r.status === 'failed',
       240_000,
@@ -135,8 +102,9 @@ describe('a worker killed during an estimation', () => {
     expect(checkpoint!.iteration).toBeGreaterThan(0);
 
     // The same specification, never interrupted, on the same worker settings.
-    const whole = await team.agents.analyst.post(base).send({ spec }).expect(201);
+    const whole = await t.team.agents.analyst.post(base).send({ spec }).expect(201);
     const reference = await waitForRun(
+      t.deps.db,
       whole.body.id,
       (r) => r.status === 'done' || r.status === 'failed',
       240_000,

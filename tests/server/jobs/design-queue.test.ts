@@ -2,26 +2,16 @@
  * The real pg-boss queue on the test database: a design job sent by the API is picked up by
  * the worker side, and a job whose worker went silent is failed by the sweep.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { useTestApp } from '../../support/test-app';
 import { signUpOwner } from '../../support/factories';
 import { createStudyVia, makeSmallDefinition } from '../routes/study-fixtures';
-import { startJobQueue, type JobQueue } from '../../../server/jobs/queue';
 import { createDesignJobKind } from '../../../server/jobs/design-job';
 import { designJobs } from '../../../db/schema/studies';
 
-const t = useTestApp();
-let queue: JobQueue;
 const kind = createDesignJobKind();
-
-beforeAll(async () => {
-  queue = await startJobQueue(t.deps, { kinds: [kind], work: true });
-  t.deps.jobs = queue;
-});
-afterAll(async () => {
-  await queue.stop();
-});
+const t = useTestApp({}, { jobQueue: { work: true, kinds: () => [kind] } });
 
 describe('design jobs through pg-boss', () => {
   it('a job sent by the API runs in the worker and attaches a design', async () => {

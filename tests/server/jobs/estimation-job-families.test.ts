@@ -4,18 +4,16 @@
  * or class probabilities beside the profile, and reports progress as iterations or starts; their
  * exports carry the family's per-respondent columns and a methods sheet.
  */
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { parse } from 'csv-parse/sync';
 import { downloadXlsx } from '../../support/download-xlsx';
-import { createTestApp, type TestApp } from '../../support/test-app';
-import { createTeamWithAllRoles } from '../../support/factories';
+import { useTestApp } from '../../support/test-app';
 import { listRunProfiles } from '../../../db/queries/taste-profiles';
 import { runEstimationJob } from '../../../server/jobs/estimation-job';
-import { ignoreTeardownErrors, seedRunStudy, type SeededStudy } from './run-fixtures';
+import { seedRunStudy, type SeededStudy } from './run-fixtures';
 import { scenarioLevels } from '../routes/tastes-fixture';
 
-let t: TestApp;
-let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
+const t = useTestApp({}, { signIn: 'team', recordJobs: true });
 let study: SeededStudy;
 let base: string;
 const done: Record<string, string> = {};
@@ -28,22 +26,13 @@ const coefficients = [
 ];
 
 beforeAll(async () => {
-  t = await createTestApp();
-  ignoreTeardownErrors(t.deps.db);
-  team = await createTeamWithAllRoles(t);
-  study = await seedRunStudy(t.deps.db, { teamId: team.teamId, respondents: 80 });
-  base = `/api/teams/${team.teamId}/studies/${study.studyId}/runs`;
+  study = await seedRunStudy(t.deps.db, { teamId: t.team.teamId, respondents: 80 });
+  base = `/api/teams/${t.team.teamId}/studies/${study.studyId}/runs`;
 }, 180_000);
-afterAll(async () => {
-  await t.close();
-});
-beforeEach(() => {
-  t.deps.jobs = { send: async () => undefined };
-});
 
 describe('HB run through the job', () => {
   it('ends done with diagnostics, sampler settings and per-respondent intervals', async () => {
-    const res = await team.agents.analyst
+    const res = await t.team.agents.analyst
       .post(base)
       .send({
         spec: {
@@ -64,7 +53,7 @@ describe('HB run through the job', () => {
     expect(res.body.seed).toBe(7);
     await runEstimationJob(t.deps, res.body.id, { threads: 2 });
     done.hb = res.body.id;
-    const run = (await team.agents.viewer.get(`${base}/${res.body.id}`).expect(200)).body;
+    const run = (await t.team.agents.viewer.get(`${base}/${res.body.id}`).expect(200)).body;
     expect(run.error).toBeNull();
     expect(run.status).toBe('done');
     expect(run.progress).toMatchObject({ maxIterations: 600 });
@@ -93,7 +82,7 @@ describe('HB run through the job', () => {
 
 describe('latent class run through the job', () => {
   it('ends done with the classes, the class-count table and class probabilities', async () => {
-    const res = await team.agents.analyst
+    const res = await t.team.agents.analyst
       .post(base)
       .send({
         spec: {
@@ -107,7 +96,7 @@ describe('latent class run through the job', () => {
       .expect(201);
     await runEstimationJob(t.deps, res.body.id, { threads: 1 });
     done.lc = res.body.id;
-    const run = (await team.agents.viewer.get(`${base}/${res.body.id}`).expect(200)).body;
+    const run = (await t.team.agents.viewer.get(`${base}/${res.body.id}`).expect(200)).body;
     expect(run.error).toBeNull();
     expect(run.status).toBe('done');
     expect(run.progress.maxIterations).toBe(4);
@@ -128,8 +117,8 @@ describe('latent class run through the job', () => {
 
 describe('GET /tastes/compare', () => {
   it('pairs the two runs respondent by respondent, with a correlation per shared coefficient', async () => {
-    const tastes = `/api/teams/${team.teamId}/studies/${study.studyId}/tastes/compare`;
-    const res = await team.agents.viewer
+    const tastes = `/api/teams/${t.team.teamId}/studies/${study.studyId}/tastes/compare`;
+    const res = await t.team.agents.viewer
       .get(tastes)
       .query({ runId: done.hb, otherRunId: done.lc })
       .expect(200);
@@ -147,8 +136,8 @@ describe('GET /tastes/compare', () => {
   });
 
   it('when both runs are the same, returns 400 on otherRunId', async () => {
-    const tastes = `/api/teams/${team.teamId}/studies/${study.studyId}/tastes/compare`;
-    const res = await team.agents.viewer
+    const tastes = `/api/teams/${t.team.teamId}/studies/${study.studyId}/tastes/compare`;
+    const res = await t.team.agents.viewer
       .get(tastes)
       .query({ runId: done.hb, otherRunId: done.hb })
       .expect(400);
@@ -159,8 +148,8 @@ describe('GET /tastes/compare', () => {
 /** The Methods sheet as rows of cell values (empty rows dropped). */
 async function loadMethods(runId: string): Promise<unknown[][]> {
   const { workbook } = await downloadXlsx(
-    team.agents.viewer,
-    `/api/teams/${team.teamId}/studies/${study.studyId}/exports/taste-profiles.xlsx`,
+    t.team.agents.viewer,
+    `/api/teams/${t.team.teamId}/studies/${study.studyId}/exports/taste-profiles.xlsx`,
     { runId },
   );
   expect(workbook.worksheets.map((w) => w.name).slice(0, 3)).toEqual([
@@ -174,8 +163,8 @@ async function loadMethods(runId: string): Promise<unknown[][]> {
 }
 
 async function loadCsv(runId: string): Promise<Record<string, string>[]> {
-  const res = await team.agents.viewer
-    .get(`/api/teams/${team.teamId}/studies/${study.studyId}/exports/taste-profiles.csv`)
+  const res = await t.team.agents.viewer
+    .get(`/api/teams/${t.team.teamId}/studies/${study.studyId}/exports/taste-profiles.csv`)
     .query({ runId })
     .expect(200);
   return parse(res.text, { columns: true }) as Record<string, string>[];
@@ -224,8 +213,8 @@ describe('exports of HB and latent class runs', () => {
 
   it('latent class CSV: likeliest class and one probability column per class, summing to 1', async () => {
     const run = (
-      await team.agents.viewer
-        .get(`/api/teams/${team.teamId}/studies/${study.studyId}/runs/${done.lc}`)
+      await t.team.agents.viewer
+        .get(`/api/teams/${t.team.teamId}/studies/${study.studyId}/runs/${done.lc}`)
         .expect(200)
     ).body;
     const C = run.results.classes.length as number;
@@ -256,8 +245,8 @@ describe('exports of HB and latent class runs', () => {
 describe('shares and segments of HB and latent class runs', () => {
   const levels = scenarioLevels;
   const simulate = (runId: string, segmentBy: unknown = null) =>
-    team.agents.viewer
-      .post(`/api/teams/${team.teamId}/studies/${study.studyId}/shares/simulate`)
+    t.team.agents.viewer
+      .post(`/api/teams/${t.team.teamId}/studies/${study.studyId}/shares/simulate`)
       .send({
         runId,
         alternatives: [
@@ -288,14 +277,14 @@ describe('shares and segments of HB and latent class runs', () => {
   });
 
   it('Tastes segments by likeliest class for a latent class run; 400 on groupBy for HB', async () => {
-    const url = `/api/teams/${team.teamId}/studies/${study.studyId}/tastes/segments`;
-    const lc = await team.agents.viewer
+    const url = `/api/teams/${t.team.teamId}/studies/${study.studyId}/tastes/segments`;
+    const lc = await t.team.agents.viewer
       .get(url)
       .query({ runId: done.lc, coefficient: 'river_good', groupBy: 'class' })
       .expect(200);
     expect(lc.body.groupLabel).toBe('Likeliest latent class');
     expect(lc.body.ungrouped).toBe(0);
-    const hb = await team.agents.viewer
+    const hb = await t.team.agents.viewer
       .get(url)
       .query({ runId: done.hb, coefficient: 'river_good', groupBy: 'class' })
       .expect(400);

@@ -7,10 +7,9 @@
  * respondent number; a run stored before the order was, by id, also when computed again, so it
  * reproduces bit for bit.
  */
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { eq, sql } from 'drizzle-orm';
-import { createTestApp, type TestApp } from '../../support/test-app';
-import { createTeamWithAllRoles } from '../../support/factories';
+import { useTestApp } from '../../support/test-app';
 import { runs } from '../../../db/schema/models';
 import { respondents } from '../../../db/schema/fieldwork';
 import { listRunProfiles } from '../../../db/queries/taste-profiles';
@@ -26,49 +25,27 @@ import {
   hashChoiceData,
   loadStudyChoiceData,
 } from '../../../server/services/choice-data-from-study';
-import {
-  ignoreTeardownErrors,
-  mixedLogitSpec,
-  seedRunStudy,
-  TRUE_MNL,
-  type SeededStudy,
-} from './run-fixtures';
+import { mixedLogitSpec, seedRunStudy, TRUE_MNL, type SeededStudy } from './run-fixtures';
 
-let t: TestApp;
-let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
+const t = useTestApp({}, { signIn: 'team', recordJobs: true });
 let study: SeededStudy;
 let base: string;
-let sent: string[];
 
 const allColumns = Object.keys(TRUE_MNL).map((key, k) => ({ name: `b${k}`, column: key }));
 
 beforeAll(async () => {
-  t = await createTestApp();
-  ignoreTeardownErrors(t.deps.db);
-  team = await createTeamWithAllRoles(t);
-  study = await seedRunStudy(t.deps.db, { teamId: team.teamId, respondents: 80 });
-  base = `/api/teams/${team.teamId}/studies/${study.studyId}/runs`;
-});
-afterAll(async () => {
-  await t.close();
-});
-beforeEach(() => {
-  sent = [];
-  t.deps.jobs = {
-    send: async (_name, data) => {
-      sent.push((data as { runId: string }).runId);
-    },
-  };
+  study = await seedRunStudy(t.deps.db, { teamId: t.team.teamId, respondents: 80 });
+  base = `/api/teams/${t.team.teamId}/studies/${study.studyId}/runs`;
 });
 
 describe('estimation job', () => {
   it('runs an MNL to done with results, fit statistics, WTP and the data hash', async () => {
-    const res = await team.agents.analyst
+    const res = await t.team.agents.analyst
       .post(base)
       .send({ spec: { model: 'mnl', coefficients: allColumns, cost: 'b0' } })
       .expect(201);
-    await runEstimationJob(t.deps, sent[0], { threads: 1 });
-    const run = (await team.agents.viewer.get(`${base}/${res.body.id}`).expect(200)).body;
+    await runEstimationJob(t.deps, t.sent[0].data.runId!, { threads: 1 });
+    const run = (await t.team.agents.viewer.get(`${base}/${res.body.id}`).expect(200)).body;
     expect(run.status).toBe('done');
     expect(run.error).toBeNull();
     expect(run.dataHash).toMatch(/^[0-9a-f]{64}$/);
@@ -100,7 +77,7 @@ describe('estimation job', () => {
   });
 
   it('runs a mixed logit with a negative lognormal cost and stores a profile per respondent', async () => {
-    const res = await team.agents.owner
+    const res = await t.team.agents.owner
       .post(base)
       .send({
         spec: {
@@ -118,7 +95,7 @@ describe('estimation job', () => {
       })
       .expect(201);
     await runEstimationJob(t.deps, res.body.id, { threads: 1 });
-    const run = (await team.agents.viewer.get(`${base}/${res.body.id}`).expect(200)).body;
+    const run = (await t.team.agents.viewer.get(`${base}/${res.body.id}`).expect(200)).body;
     expect(run.error).toBeNull();
     expect(run.status).toBe('done');
     expect(run.seed).toBe(4);
@@ -143,7 +120,7 @@ describe('estimation job', () => {
       'sq',
     ]);
     expect(profiles[0].wtp).toHaveProperty('river_good');
-    const means = await team.agents.viewer
+    const means = await t.team.agents.viewer
       .get(`${base}/${res.body.id}/conditional-means`)
       .expect(200);
     expect(means.body.coefficients).toEqual(['bill', 'river_good', 'interrupt', 'sq']);
@@ -152,7 +129,7 @@ describe('estimation job', () => {
   });
 
   it('fails with a readable reason when the data cannot be used', async () => {
-    const res = await team.agents.analyst
+    const res = await t.team.agents.analyst
       .post(base)
       .send({ spec: { model: 'mnl', coefficients: allColumns } })
       .expect(201);
@@ -168,7 +145,7 @@ describe('estimation job', () => {
   });
 
   it('stops a running run when it is cancelled, and leaves it cancelled', async () => {
-    const res = await team.agents.analyst
+    const res = await t.team.agents.analyst
       .post(base)
       .send({
         spec: {
@@ -186,7 +163,7 @@ describe('estimation job', () => {
       if (row?.status === 'running') break;
       await new Promise((r) => setTimeout(r, 20));
     }
-    const cancel = await team.agents.analyst.post(`${base}/${res.body.id}/cancel`).expect(200);
+    const cancel = await t.team.agents.analyst.post(`${base}/${res.body.id}/cancel`).expect(200);
     expect(cancel.body).toMatchObject({ status: 'running', cancelRequested: true });
     await job;
     const row = await getRunForJob(t.deps.db, { id: res.body.id });
@@ -197,11 +174,11 @@ describe('estimation job', () => {
   });
 
   it('does not start a run cancelled while queued', async () => {
-    const res = await team.agents.analyst
+    const res = await t.team.agents.analyst
       .post(base)
       .send({ spec: { model: 'mnl', coefficients: allColumns } })
       .expect(201);
-    await team.agents.analyst.post(`${base}/${res.body.id}/cancel`).expect(200);
+    await t.team.agents.analyst.post(`${base}/${res.body.id}/cancel`).expect(200);
     await runEstimationJob(t.deps, res.body.id, { threads: 1 });
     const row = await getRunForJob(t.deps.db, { id: res.body.id });
     expect(row?.status).toBe('cancelled');
@@ -213,7 +190,7 @@ describe('stale-run sweep (worker crash)', () => {
   it('queues again runs left by a dead worker, fails those that lost it too often, leaves live ones', async () => {
     const make = async () =>
       (
-        await team.agents.analyst
+        await t.team.agents.analyst
           .post(base)
           .send({ spec: { model: 'mnl', coefficients: allColumns } })
           .expect(201)
@@ -239,24 +216,24 @@ describe('stale-run sweep (worker crash)', () => {
     expect(swept.resumed).toContain(dead);
     expect(swept.failed).toContain(deadTooOften);
     expect([...swept.resumed, ...swept.failed]).not.toContain(alive);
-    expect(sent.filter((id) => id === dead)).toHaveLength(2); // created, then queued again
+    expect(t.sent.filter((s) => s.data.runId === dead)).toHaveLength(2); // created, then queued again
     expect(await getRunForJob(t.deps.db, { id: dead })).toMatchObject({ status: 'queued' });
     const failedRow = await getRunForJob(t.deps.db, { id: deadTooOften });
     expect(failedRow).toMatchObject({ status: 'failed', error: WORKER_LOST_ERROR });
     expect(WORKER_LOST_ERROR).toMatch(/stopped unexpectedly 3 times/);
     expect((await getRunForJob(t.deps.db, { id: alive }))?.status).toBe('running');
-    const waiting = (await team.agents.viewer.get(`${base}/${dead}`).expect(200)).body;
+    const waiting = (await t.team.agents.viewer.get(`${base}/${dead}`).expect(200)).body;
     expect(waiting).toMatchObject({ status: 'queued', attempts: 1 });
 
     // The next worker takes it: an MNL keeps no checkpoint, so it starts from the beginning.
     await runEstimationJob(t.deps, dead, { threads: 1 });
-    const view = (await team.agents.viewer.get(`${base}/${dead}`).expect(200)).body;
+    const view = (await t.team.agents.viewer.get(`${base}/${dead}`).expect(200)).body;
     expect(view).toMatchObject({ status: 'done', attempts: 2, error: null });
     expect(view.progress.resumed).toEqual({ attempt: 2, fromIteration: 0 });
   });
 
   it('without a queue to send to, leaves a resumable run alone', async () => {
-    const res = await team.agents.analyst
+    const res = await t.team.agents.analyst
       .post(base)
       .send({ spec: { model: 'mnl', coefficients: allColumns } })
       .expect(201);
@@ -276,18 +253,18 @@ async function seedEmptyStudy() {
   const { studies } = await import('../../../db/schema/studies');
   const [row] = await t.deps.db
     .insert(studies)
-    .values({ teamId: team.teamId, publicId: `e${Date.now()}`, name: 'Empty', definition: {} })
+    .values({ teamId: t.team.teamId, publicId: `e${Date.now()}`, name: 'Empty', definition: {} })
     .returning({ id: studies.id });
   return row;
 }
 
 const getRun = async (id: string) =>
-  (await team.agents.viewer.get(`${base}/${id}`).expect(200)).body;
+  (await t.team.agents.viewer.get(`${base}/${id}`).expect(200)).body;
 const keys = mixedLogitSpec(20, 9).coefficients.map((c) => c.column);
 
 describe('run data order', () => {
   it('reads a new run in respondent-number order and says so', async () => {
-    const res = await team.agents.analyst
+    const res = await t.team.agents.analyst
       .post(base)
       .send({ spec: mixedLogitSpec(20, 9) })
       .expect(201);
@@ -306,7 +283,7 @@ describe('run data order', () => {
       .update(respondents)
       .set({ startedAt: new Date(Date.now() + 3_600_000) })
       .where(eq(respondents.id, study.respondentIds[0]));
-    const res = await team.agents.analyst
+    const res = await t.team.agents.analyst
       .post(base)
       .send({ spec: mixedLogitSpec(20, 9) })
       .expect(201);

@@ -5,30 +5,25 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { createTestApp, type TestApp } from '../../support/test-app';
-import { createTeamWithAllRoles } from '../../support/factories';
+import { useTestApp } from '../../support/test-app';
+import { waitForRun } from '../../support/wait-for';
 import { runs } from '../../../db/schema/models';
-import { getRunForJob } from '../../../db/queries/runs';
 import { startJobQueue, type JobQueue } from '../../../server/jobs/queue';
 import { createJobKinds } from '../../../server/jobs/background';
 import { STALE_RUN_MS } from '../../../server/jobs/stale-run-sweep';
-import { ignoreTeardownErrors, seedRunStudy, TRUE_MNL } from './run-fixtures';
+import { seedRunStudy, TRUE_MNL } from './run-fixtures';
 
-let t: TestApp;
+const t = useTestApp({}, { signIn: 'team' });
 let queue: JobQueue;
-let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
 let base: string;
 let staleRunId: string;
 
 beforeAll(async () => {
-  t = await createTestApp();
-  ignoreTeardownErrors(t.deps.db);
-  team = await createTeamWithAllRoles(t);
-  const study = await seedRunStudy(t.deps.db, { teamId: team.teamId, respondents: 20 });
-  base = `/api/teams/${team.teamId}/studies/${study.studyId}/runs`;
+  const study = await seedRunStudy(t.deps.db, { teamId: t.team.teamId, respondents: 20 });
+  base = `/api/teams/${t.team.teamId}/studies/${study.studyId}/runs`;
   // A run a crashed worker left behind: running, its heartbeat long silent.
   t.deps.jobs = { send: async () => {} };
-  const res = await team.agents.analyst
+  const res = await t.team.agents.analyst
     .post(base)
     .send({ spec: { model: 'mnl', coefficients: [{ name: 'bill', column: 'attr:bill' }] } })
     .expect(201);
@@ -49,18 +44,16 @@ beforeAll(async () => {
 
 afterAll(async () => {
   await queue?.stop();
-  await t.close();
 });
 
-async function waitForEnd(runId: string, timeoutMs = 45_000) {
-  const deadline = Date.now() + timeoutMs;
-  for (;;) {
-    const row = await getRunForJob(t.deps.db, { id: runId });
-    if (row && !['queued', 'running'].includes(row.status)) return row;
-    if (Date.now() > deadline) throw new Error(`run still ${row?.status}`);
-    await new Promise((r) => setTimeout(r, 250));
-  }
-}
+const waitForEnd = (runId: string, timeoutMs = 45_000) =>
+  waitForRun(
+    t.deps.db,
+    runId,
+    (row) => !['queued', 'running'].includes(row.status),
+    timeoutMs,
+    250,
+  );
 
 describe('estimation runs on the job queue', () => {
   it('queues again, at worker start, a run whose worker died, and finishes it', async () => {
@@ -71,7 +64,7 @@ describe('estimation runs on the job queue', () => {
 
   it('runs a queued run on the worker to done', async () => {
     const coefficients = Object.keys(TRUE_MNL).map((column, k) => ({ name: `b${k}`, column }));
-    const res = await team.agents.analyst
+    const res = await t.team.agents.analyst
       .post(base)
       .send({ spec: { model: 'mnl', coefficients } })
       .expect(201);
@@ -79,7 +72,7 @@ describe('estimation runs on the job queue', () => {
     expect(row.error).toBeNull();
     expect(row.status).toBe('done');
     expect(row.dataHash).toMatch(/^[0-9a-f]{64}$/);
-    const view = await team.agents.viewer.get(`${base}/${res.body.id}`).expect(200);
+    const view = await t.team.agents.viewer.get(`${base}/${res.body.id}`).expect(200);
     expect(view.body.results).toMatchObject({ model: 'mnl', respondents: 20, parameters: 9 });
   }, 60_000);
 });

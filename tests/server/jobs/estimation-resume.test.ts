@@ -11,48 +11,27 @@
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { useTestApp } from '../../support/test-app';
-import { createTeamWithAllRoles } from '../../support/factories';
+import { waitFor } from '../../support/wait-for';
 import { getRunForJob } from '../../../db/queries/runs';
 import { getRunCheckpoint, saveRunCheckpoint } from '../../../db/queries/run-checkpoints';
 import { runs } from '../../../db/schema/models';
 import { eq } from 'drizzle-orm';
 import { runEstimationJob } from '../../../server/jobs/estimation-job';
 import { STALE_RUN_MS, sweepStaleRuns } from '../../../server/jobs/stale-run-sweep';
-import { ignoreTeardownErrors, mixedLogitSpec, seedRunStudy } from './run-fixtures';
+import { mixedLogitSpec, seedRunStudy } from './run-fixtures';
 
-const t = useTestApp();
-let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
+const t = useTestApp({}, { signIn: 'team', recordJobs: true });
 let base: string;
-const sent: string[] = [];
 
 beforeAll(async () => {
-  ignoreTeardownErrors(t.deps.db);
-  team = await createTeamWithAllRoles(t);
-  const study = await seedRunStudy(t.deps.db, { teamId: team.teamId, respondents: 80 });
-  base = `/api/teams/${team.teamId}/studies/${study.studyId}/runs`;
-  t.deps.jobs = {
-    send: async (_name, data) => {
-      sent.push((data as { runId: string }).runId);
-    },
-  };
+  const study = await seedRunStudy(t.deps.db, { teamId: t.team.teamId, respondents: 80 });
+  base = `/api/teams/${t.team.teamId}/studies/${study.studyId}/runs`;
 }, 60_000);
-
-const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
-
-async function waitFor<T>(probe: () => Promise<T | null>, ms: number): Promise<T> {
-  const until = Date.now() + ms;
-  for (;;) {
-    const value = await probe();
-    if (value) return value;
-    if (Date.now() > until) throw new Error(`nothing after ${ms} ms`);
-    await sleep(25);
-  }
-}
 
 async function startRun(): Promise<string> {
   // Three starts (the default) and enough draws that the run is still estimating when the
   // worker is taken for dead.
-  const res = await team.agents.analyst
+  const res = await t.team.agents.analyst
     .post(base)
     .send({ spec: mixedLogitSpec(2_000, 13, true) })
     .expect(201);
@@ -69,13 +48,17 @@ describe('a mixed logit whose worker is lost after a checkpoint', () => {
 
     const id = await startRun();
     const first = runEstimationJob(t.deps, id, { threads: 1, checkpointEveryMs: 0 });
-    await waitFor(async () => {
-      const saved = await getRunCheckpoint(t.deps.db, { runId: id });
-      return saved && saved.iteration >= 3 ? saved : null;
-    }, 120_000);
+    await waitFor(
+      async () => {
+        const saved = await getRunCheckpoint(t.deps.db, { runId: id });
+        return saved && saved.iteration >= 3 ? saved : null;
+      },
+      120_000,
+      { everyMs: 25 },
+    );
     const swept = await sweepStaleRuns(t.deps, Date.now() + STALE_RUN_MS + 1_000);
     expect(swept).toEqual({ resumed: [id], failed: [] });
-    expect(sent.filter((s) => s === id)).toHaveLength(2); // created, then queued again
+    expect(t.sent.filter((s) => s.data.runId === id)).toHaveLength(2); // created, then queued again
     await first; // it noticed that it lost the run, and stopped
     const between = await getRunForJob(t.deps.db, { id });
     expect(between).toMatchObject({ status: 'queued', attempts: 1, results: null });
@@ -86,7 +69,7 @@ describe('a mixed logit whose worker is lost after a checkpoint', () => {
     await runEstimationJob(t.deps, id, { threads: 1 });
     const resumed = await getRunForJob(t.deps.db, { id });
     expect(resumed).toMatchObject({ status: 'done', attempts: 2, error: null });
-    const view = (await team.agents.viewer.get(`${base}/${id}`).expect(200)).body;
+    const view = (await t.team.agents.viewer.get(`${base}/${id}`).expect(200)).body;
     expect(view.progress.resumed).toEqual({ attempt: 2, fromIteration: checkpoint!.iteration });
     type Stored = { estimates: unknown[]; loglik: number; iterations: number; wtp: unknown };
     const a = whole!.results as Stored;
@@ -116,7 +99,7 @@ describe('a mixed logit whose worker is lost after a checkpoint', () => {
     ).toBe(true);
     await t.deps.db.update(runs).set({ status: 'queued' }).where(eq(runs.id, id));
     await runEstimationJob(t.deps, id, { threads: 1 });
-    const view = (await team.agents.viewer.get(`${base}/${id}`).expect(200)).body;
+    const view = (await t.team.agents.viewer.get(`${base}/${id}`).expect(200)).body;
     expect(view).toMatchObject({ status: 'done', attempts: 2 });
     expect(view.progress.resumed).toEqual({ attempt: 2, fromIteration: 0 });
     expect(await getRunCheckpoint(t.deps.db, { runId: id })).toBeNull();

@@ -4,21 +4,19 @@
  * take the job leaves no row); a queued run whose queue message was lost is queued again by
  * the sweep and runs to done; one that has waited too long is failed with a reason.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
-import { createTestApp, type TestApp } from '../../support/test-app';
-import { createTeamWithAllRoles } from '../../support/factories';
+import { useTestApp } from '../../support/test-app';
 import { runs } from '../../../db/schema/models';
 import { getRunForJob } from '../../../db/queries/runs';
-import { startJobQueue, type JobQueue } from '../../../server/jobs/queue';
+import { startJobQueue } from '../../../server/jobs/queue';
 import { createJobKinds } from '../../../server/jobs/background';
 import { ESTIMATION_JOB } from '../../../server/services/runs';
-import { ignoreTeardownErrors, seedRunStudy, TRUE_MNL } from './run-fixtures';
+import { seedRunStudy, TRUE_MNL } from './run-fixtures';
 
-let t: TestApp;
-let sender: JobQueue;
-let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
+// A queue that only sends: nothing takes its jobs while the transaction tests look at them.
+const t = useTestApp({}, { signIn: 'team', jobQueue: { work: false } });
 let base: string;
 const spec = {
   model: 'mnl',
@@ -26,24 +24,14 @@ const spec = {
 };
 
 beforeAll(async () => {
-  t = await createTestApp();
-  ignoreTeardownErrors(t.deps.db);
-  team = await createTeamWithAllRoles(t);
-  const study = await seedRunStudy(t.deps.db, { teamId: team.teamId, respondents: 20 });
-  base = `/api/teams/${team.teamId}/studies/${study.studyId}/runs`;
-  // A queue that only sends: nothing takes its jobs while the transaction tests look at them.
-  sender = await startJobQueue(t.deps, { kinds: createJobKinds(), work: false });
+  const study = await seedRunStudy(t.deps.db, { teamId: t.team.teamId, respondents: 20 });
+  base = `/api/teams/${t.team.teamId}/studies/${study.studyId}/runs`;
 }, 60_000);
-
-afterAll(async () => {
-  await sender?.stop();
-  await t.close();
-});
 
 /** Starts a run through the API while the queue loses every message, then ages its row. */
 async function runWithLostMessage(minutesAgo: number): Promise<string> {
   t.deps.jobs = { send: async () => {} };
-  const res = await team.agents.analyst.post(base).send({ spec }).expect(201);
+  const res = await t.team.agents.analyst.post(base).send({ spec }).expect(201);
   await t.deps.db
     .update(runs)
     .set({ createdAt: new Date(Date.now() - minutesAgo * 60_000) })
@@ -56,15 +44,15 @@ describe('a job is enqueued in the same transaction as its row', () => {
     const lost = randomUUID();
     await expect(
       t.deps.db.transaction(async (tx) => {
-        await sender.send(ESTIMATION_JOB, { runId: lost }, { tx });
+        await t.queue.send(ESTIMATION_JOB, { runId: lost }, { tx });
         throw new Error('the row could not be written');
       }),
     ).rejects.toThrow('the row could not be written');
-    expect((await sender.pendingIds(ESTIMATION_JOB, 'runId')).has(lost)).toBe(false);
+    expect((await t.queue.pendingIds(ESTIMATION_JOB, 'runId')).has(lost)).toBe(false);
 
     const kept = randomUUID();
-    await t.deps.db.transaction((tx) => sender.send(ESTIMATION_JOB, { runId: kept }, { tx }));
-    expect((await sender.pendingIds(ESTIMATION_JOB, 'runId')).has(kept)).toBe(true);
+    await t.deps.db.transaction((tx) => t.queue.send(ESTIMATION_JOB, { runId: kept }, { tx }));
+    expect((await t.queue.pendingIds(ESTIMATION_JOB, 'runId')).has(kept)).toBe(true);
   });
 
   it('when the queue refuses the job, answers 503 and leaves no run behind', async () => {
@@ -74,7 +62,7 @@ describe('a job is enqueued in the same transaction as its row', () => {
       },
     };
     const before = await t.deps.db.select().from(runs);
-    const res = await team.agents.analyst.post(base).send({ spec }).expect(503);
+    const res = await t.team.agents.analyst.post(base).send({ spec }).expect(503);
     expect(res.body.error.code).toBe('queue_unavailable');
     expect(await t.deps.db.select().from(runs)).toHaveLength(before.length);
   });

@@ -237,14 +237,3 @@ export async function seedTapFilter(db: Db, studyId: string) {
     .returning({ id: respondentFilters.id });
   return row.id;
 }
-
-/**
- * The test database is dropped (with force) after the pool ends; an idle connection may see
- * that as an error event. Nothing is running by then, so it is ignored.
- */
-export function ignoreTeardownErrors(db: Db): void {
-  (db as unknown as { $client: { on(e: 'error', f: () => void): void } }).$client.on(
-    'error',
-    () => {},
-  );
-}

@@ -4,11 +4,11 @@
  * query parameters, and SQL parameters of a failed query — is sent through the real app, and
  * none of them may appear anywhere in what the logger writes.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { Writable } from 'node:stream';
 import { randomBytes } from 'node:crypto';
 import { sql } from 'drizzle-orm';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { signUpOwner } from '../../support/factories';
 import { insertStudy } from '../routes/respond-fixtures';
 import { RESPONDENT_LOG_SAMPLE } from '../../../server/lib/request-log';
@@ -23,13 +23,7 @@ const sink = new Writable({
 const secret = (label: string) => `${label}${randomBytes(18).toString('base64url')}`;
 const logText = () => lines.join('');
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await createTestApp({ LOG_LEVEL: 'info' }, { logDestination: sink });
-});
-afterAll(async () => {
-  await t.close();
-});
+const t = useTestApp({ LOG_LEVEL: 'info' }, { logDestination: sink });
 
 describe('the access log', () => {
   it('never contains a token, whatever carries it', async () => {

@@ -3,25 +3,19 @@
  * (through TRUST_PROXY), per account, per personal link and per respondent session — and one
  * client over its limit never locks out another.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import supertest from 'supertest';
 import { randomBytes } from 'node:crypto';
 import { createApp } from '../../../server/app';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { createTestApp, useTestApp, type TestApp } from '../../support/test-app';
 import { signUpOwner, uniqueEmail } from '../../support/factories';
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await createTestApp({
-    AUTH_RATE_LIMIT: '4',
-    ACCOUNT_SIGN_IN_LIMIT: '3',
-    RESPONDENT_START_RATE_LIMIT: '1000',
-    RESPONDENT_SESSION_RATE_LIMIT: '5',
-    TRUST_PROXY: 'loopback',
-  });
-});
-afterAll(async () => {
-  await t.close();
+const t = useTestApp({
+  AUTH_RATE_LIMIT: '4',
+  ACCOUNT_SIGN_IN_LIMIT: '3',
+  RESPONDENT_START_RATE_LIMIT: '1000',
+  RESPONDENT_SESSION_RATE_LIMIT: '5',
+  TRUST_PROXY: 'loopback',
 });
 
 // A fresh client address per call, from the IPv6 documentation prefix (RFC 3849). The limiter

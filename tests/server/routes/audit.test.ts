@@ -3,10 +3,9 @@
  * anonymous 401); study status changes, exclusions, personal-data downloads land in it with the
  * acting member; no route changes or deletes a row, and the table itself refuses it.
  */
-import { beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { sql } from 'drizzle-orm';
 import { useTestApp } from '../../support/test-app';
-import { createTeamWithAllRoles } from '../../support/factories';
 import { insertStudy } from './respond-fixtures';
 import {
   eightChoices,
@@ -15,14 +14,10 @@ import {
 } from './fieldwork-fixtures';
 import { roles, type Role } from '../../../shared/permissions';
 
-const t = useTestApp();
-let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
-beforeAll(async () => {
-  team = await createTeamWithAllRoles(t);
-});
+const t = useTestApp({}, { signIn: 'team' });
 
-const audit = (path = '') => `/api/teams/${team.teamId}/audit${path}`;
-const agentOf = (role: Role) => team.agents[role];
+const audit = (path = '') => `/api/teams/${t.team.teamId}/audit${path}`;
+const agentOf = (role: Role) => t.team.agents[role];
 
 type Event = { action: string; actorEmail: string | null; details: Record<string, unknown> };
 async function events(query = ''): Promise<Event[]> {
@@ -46,8 +41,8 @@ describe('GET /audit and /audit/export.csv, per role', () => {
   });
 
   it('as a member of another team, 404; anonymous, 401', async () => {
-    expect((await team.outsider.get(audit())).status).toBe(404);
-    expect((await team.outsider.get(audit('/export.csv'))).status).toBe(404);
+    expect((await t.team.outsider.get(audit())).status).toBe(404);
+    expect((await t.team.outsider.get(audit('/export.csv'))).status).toBe(404);
     expect((await t.request().get(audit())).status).toBe(401);
   });
 
@@ -61,8 +56,8 @@ describe('GET /audit and /audit/export.csv, per role', () => {
 
 describe('what the trail records', () => {
   it('going live, closing, reopening and returning to draft, with who did it', async () => {
-    const s = await insertStudy(t, team.teamId);
-    const lifecycle = (p: string) => `/api/teams/${team.teamId}/studies/${s.id}/lifecycle${p}`;
+    const s = await insertStudy(t, t.team.teamId);
+    const lifecycle = (p: string) => `/api/teams/${t.team.teamId}/studies/${s.id}/lifecycle${p}`;
     await agentOf('editor').post(lifecycle('/go-live')).expect(200);
     await agentOf('owner').post(lifecycle('/close')).expect(200);
     await agentOf('editor').post(lifecycle('/reopen')).expect(200);
@@ -83,22 +78,22 @@ describe('what the trail records', () => {
   });
 
   it('a refused change records nothing', async () => {
-    const s = await insertStudy(t, team.teamId);
+    const s = await insertStudy(t, t.team.teamId);
     await agentOf('viewer')
-      .post(`/api/teams/${team.teamId}/studies/${s.id}/lifecycle/go-live`)
+      .post(`/api/teams/${t.team.teamId}/studies/${s.id}/lifecycle/go-live`)
       .expect(403);
     expect(await events(`?studyId=${s.id}`)).toEqual([]);
   });
 
   it('exclusions and inclusions name the respondent by id, never personal data', async () => {
-    const { studyId, versionId } = await insertLiveStudy(t.deps.db, { teamId: team.teamId });
+    const { studyId, versionId } = await insertLiveStudy(t.deps.db, { teamId: t.team.teamId });
     const id = await insertRespondent(t.deps.db, {
       studyId,
       versionId,
       externalId: 'PANEL-SECRET-42',
       choices: eightChoices((k) => k % 2),
     });
-    const inclusion = `/api/teams/${team.teamId}/studies/${studyId}/responses/${id}/inclusion`;
+    const inclusion = `/api/teams/${t.team.teamId}/studies/${studyId}/responses/${id}/inclusion`;
     await agentOf('analyst')
       .put(inclusion)
       .send({ included: false, reason: 'Too fast' })
@@ -111,8 +106,8 @@ describe('what the trail records', () => {
   });
 
   it('a download with personal columns is recorded; the same file without them is not', async () => {
-    const { studyId } = await insertLiveStudy(t.deps.db, { teamId: team.teamId });
-    const file = `/api/teams/${team.teamId}/studies/${studyId}/exports/background-answers.csv`;
+    const { studyId } = await insertLiveStudy(t.deps.db, { teamId: t.team.teamId });
+    const file = `/api/teams/${t.team.teamId}/studies/${studyId}/exports/background-answers.csv`;
     await agentOf('viewer').get(file).expect(200);
     await agentOf('analyst').get(file).expect(200);
     const mine = await events(`?action=export&studyId=${studyId}`);

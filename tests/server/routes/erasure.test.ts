@@ -8,7 +8,6 @@ import { beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { eq, sql } from 'drizzle-orm';
 import { randomBytes } from 'node:crypto';
 import { useTestApp } from '../../support/test-app';
-import { createTeamWithAllRoles } from '../../support/factories';
 import { seedTastesStudy } from './tastes-fixture';
 import { answerFor, sendAnswer, startLiveSession } from './respond-fixtures';
 import { answerRevisions, invitees, respondents } from '../../../db/schema/fieldwork';
@@ -16,22 +15,20 @@ import { runs } from '../../../db/schema/models';
 import { mailOutbox } from '../../../db/schema/mail';
 import { roles } from '../../../shared/permissions';
 
-const t = useTestApp();
-let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
+const t = useTestApp({}, { signIn: 'team' });
 let seeded: Awaited<ReturnType<typeof seedTastesStudy>>;
 let other: Awaited<ReturnType<typeof seedTastesStudy>>;
 
 const EMAIL = 'Resident.Two@Example.test';
 
 beforeAll(async () => {
-  team = await createTeamWithAllRoles(t);
-  other = await seedTastesStudy(t.deps.db, team.teamId);
+  other = await seedTastesStudy(t.deps.db, t.team.teamId);
 });
 
 /** A fresh study per test: respondent 2 came through a personal link, 3 revised an answer. */
 beforeEach(async () => {
   const db = t.deps.db;
-  seeded = await seedTastesStudy(db, team.teamId);
+  seeded = await seedTastesStudy(db, t.team.teamId);
   await db.update(runs).set({ status: 'cancelled' }).where(eq(runs.id, seeded.runningRunId));
   const [inv] = await db
     .insert(invitees)
@@ -48,7 +45,7 @@ beforeEach(async () => {
     .set({ inviteeId: inv!.id })
     .where(eq(respondents.id, seeded.respondentIds[1]!));
   await db.insert(mailOutbox).values({
-    teamId: team.teamId,
+    teamId: t.team.teamId,
     studyId: seeded.studyId,
     inviteeId: inv!.id,
     kind: 'reminder',
@@ -74,8 +71,8 @@ beforeEach(async () => {
   });
 });
 
-const base = (studyId = seeded.studyId) => `/api/teams/${team.teamId}/studies/${studyId}/erasure`;
-const owner = () => team.agents.owner;
+const base = (studyId = seeded.studyId) => `/api/teams/${t.team.teamId}/studies/${studyId}/erasure`;
+const owner = () => t.team.agents.owner;
 const reason = 'Request DP-2026-014 received by post';
 
 /** Every row an erasure could touch, across all studies, in a stable order. */
@@ -119,7 +116,7 @@ function without(s: Snapshot, respondentId: string, inviteeId: string | null = n
 /** Respondent numbers as the taste-profile download states them. */
 async function profileNumbers(studyId: string, runId: string) {
   const res = await owner().get(
-    `/api/teams/${team.teamId}/studies/${studyId}/exports/taste-profiles.csv?runId=${runId}`,
+    `/api/teams/${t.team.teamId}/studies/${studyId}/exports/taste-profiles.csv?runId=${runId}`,
   );
   expect(res.status).toBe(200);
   const lines = res.text
@@ -209,7 +206,7 @@ describe('POST …/erasure', () => {
     expect(row).toMatchObject({
       study_id: seeded.studyId,
       target_id: '3',
-      actor_id: team.users.owner,
+      actor_id: t.team.users.owner,
     });
   });
 
@@ -232,11 +229,11 @@ describe('POST …/erasure', () => {
   it('shows the run as having used an erased respondent, in the API and the results file', async () => {
     await owner().post(base()).send({ by: 'number', value: '1', reason });
     const run = await owner().get(
-      `/api/teams/${team.teamId}/studies/${seeded.studyId}/runs/${seeded.runId}`,
+      `/api/teams/${t.team.teamId}/studies/${seeded.studyId}/runs/${seeded.runId}`,
     );
     expect(run.body.erasedRespondents).toBe(1);
     const report = await owner().get(
-      `/api/teams/${team.teamId}/studies/${seeded.studyId}/exports/run-report.html?runId=${seeded.runId}`,
+      `/api/teams/${t.team.teamId}/studies/${seeded.studyId}/exports/run-report.html?runId=${seeded.runId}`,
     );
     expect(report.status).toBe(200);
     expect(report.text).toContain('1 respondent was erased on request after this run');
@@ -248,8 +245,8 @@ describe('refused requests change nothing', () => {
   for (const role of roles.filter((r) => r !== 'owner'))
     it(`as ${role}: 403 for preview and erasure`, async () => {
       const before = await snapshot();
-      const a = await team.agents[role].post(`${base()}/preview`).send(erase);
-      const b = await team.agents[role].post(base()).send(erase);
+      const a = await t.team.agents[role].post(`${base()}/preview`).send(erase);
+      const b = await t.team.agents[role].post(base()).send(erase);
       expect([a.status, b.status]).toEqual([403, 403]);
       expect(b.body.error.code).toBe('forbidden');
       expect(await snapshot()).toEqual(before);
@@ -257,7 +254,7 @@ describe('refused requests change nothing', () => {
 
   it('as a member of another team: 404; anonymous: 401', async () => {
     const before = await snapshot();
-    expect((await team.outsider.post(base()).send(erase)).status).toBe(404);
+    expect((await t.team.outsider.post(base()).send(erase)).status).toBe(404);
     expect((await t.request().post(base()).send(erase)).status).toBe(401);
     expect(await snapshot()).toEqual(before);
   });
@@ -311,11 +308,11 @@ describe('refused requests change nothing', () => {
   });
 
   it('a study of another team: 404', async () => {
-    const outsiderTeam = await team.outsider.get('/api/teams');
+    const outsiderTeam = await t.team.outsider.get('/api/teams');
     const foreignTeamId = outsiderTeam.body[0]?.id ?? outsiderTeam.body.teams?.[0]?.id;
     expect(foreignTeamId).toBeTruthy();
     const before = await snapshot();
-    const res = await team.outsider
+    const res = await t.team.outsider
       .post(`/api/teams/${foreignTeamId}/studies/${seeded.studyId}/erasure`)
       .send(erase);
     expect(res.status).toBe(404);
@@ -325,7 +322,7 @@ describe('refused requests change nothing', () => {
 
 describe('a respondent answering while being erased', () => {
   it('cannot store answers once erased, even with their session remembered by the server', async () => {
-    const { study, session } = await startLiveSession(t, team.agents.owner, team.teamId);
+    const { study, session } = await startLiveSession(t, t.team.agents.owner, t.team.teamId);
     const first = await sendAnswer(
       t,
       study.publicId,

@@ -3,23 +3,20 @@ import { parse } from 'csv-parse/sync';
 import type supertest from 'supertest';
 import { downloadXlsx } from '../../support/download-xlsx';
 import { useTestApp } from '../../support/test-app';
-import { createTeamWithAllRoles } from '../../support/factories';
 import type { Role } from '../../../shared/permissions';
 import { shareScenarios } from '../../../db/schema/shares';
 import { N, scenarioLevels, seedTastesStudy } from './tastes-fixture';
 
-const t = useTestApp();
-let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
+const t = useTestApp({}, { signIn: 'team' });
 let seeded: Awaited<ReturnType<typeof seedTastesStudy>>;
 let base: string;
 
 beforeAll(async () => {
-  team = await createTeamWithAllRoles(t);
-  seeded = await seedTastesStudy(t.deps.db, team.teamId);
-  base = `/api/teams/${team.teamId}/studies/${seeded.studyId}/exports`;
+  seeded = await seedTastesStudy(t.deps.db, t.team.teamId);
+  base = `/api/teams/${t.team.teamId}/studies/${seeded.studyId}/exports`;
 });
 
-const as = (role: Role): supertest.Agent => team.agents[role];
+const as = (role: Role): supertest.Agent => t.team.agents[role];
 
 async function loadXlsx(agent: supertest.Agent) {
   return downloadXlsx(agent, `${base}/taste-profiles.xlsx`, { runId: seeded.runId });
@@ -84,7 +81,7 @@ describe('GET /exports/taste-profiles.csv', () => {
   });
 
   it('returns 404 to an outsider, 401 without a session and 400 without a run', async () => {
-    await team.outsider
+    await t.team.outsider
       .get(`${base}/taste-profiles.csv`)
       .query({ runId: seeded.runId })
       .expect(404);
@@ -199,7 +196,7 @@ describe('other downloads', () => {
       choicesAvailable: true,
     });
     expect((await as('owner').get(base).expect(200)).body.personalColumns).toBe(true);
-    await team.outsider.get(base).expect(404);
+    await t.team.outsider.get(base).expect(404);
     await t.request().get(base).expect(401);
   });
 });
@@ -214,7 +211,7 @@ describe('run report: saved what-if scenarios', () => {
   });
 
   it('prints each saved scenario with shares, intervals, a chart and the welfare line', async () => {
-    const scenarios = `/api/teams/${team.teamId}/studies/${seeded.studyId}/shares/scenarios`;
+    const scenarios = `/api/teams/${t.team.teamId}/studies/${seeded.studyId}/shares/scenarios`;
     await as('analyst')
       .post(scenarios)
       .send({
@@ -229,7 +226,7 @@ describe('run report: saved what-if scenarios', () => {
     // A scenario an edited study no longer fits (level "b99" does not exist) is listed with the
     // reason instead of numbers, and the rest of the report still prints.
     await t.deps.db.insert(shareScenarios).values({
-      teamId: team.teamId,
+      teamId: t.team.teamId,
       studyId: seeded.studyId,
       name: 'Outdated',
       alternatives: [

@@ -1,23 +1,16 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestApp, type TestApp } from '../../support/test-app';
-import { createTeamWithAllRoles } from '../../support/factories';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { useTestApp } from '../../support/test-app';
 import { addVersion, eightChoices, insertRespondent, insertStudy } from './fieldwork-fixtures';
 import { invitees } from '../../../db/schema/fieldwork';
 import type { Role } from '../../../shared/permissions';
 
-let t: TestApp;
-let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
+const t = useTestApp({}, { signIn: 'team' });
 let studyId: string;
 beforeAll(async () => {
-  t = await createTestApp();
-  team = await createTeamWithAllRoles(t);
   studyId = await arrangeStudy();
 });
-afterAll(async () => {
-  await t.close();
-});
 
-const url = (id: string) => `/api/teams/${team.teamId}/studies/${id}/fieldwork`;
+const url = (id: string) => `/api/teams/${t.team.teamId}/studies/${id}/fieldwork`;
 
 const before = [
   { screenKey: 'consent', value: { kind: 'consent', agreed: true } },
@@ -34,7 +27,7 @@ const after = [
  * screen-out, one over quota, and three unfinished (no answer; three tasks; all eight tasks).
  */
 async function arrangeStudy() {
-  const { studyId: id, versionId: v1 } = await insertStudy(t.deps.db, { teamId: team.teamId });
+  const { studyId: id, versionId: v1 } = await insertStudy(t.deps.db, { teamId: t.team.teamId });
   const v2 = await addVersion(t.deps.db, id, 2);
   const [inv] = await t.deps.db
     .insert(invitees)
@@ -89,7 +82,7 @@ async function arrangeStudy() {
 
 describe('GET /fieldwork', () => {
   it('counts the sample flow, timing, blocks and versions', async () => {
-    const res = await team.agents.owner.get(url(studyId)).expect(200);
+    const res = await t.team.agents.owner.get(url(studyId)).expect(200);
     expect(res.body.counts).toEqual({
       starts: 10,
       inProgress: 3,
@@ -121,7 +114,7 @@ describe('GET /fieldwork', () => {
   });
 
   it('shows how far respondents got, screen by screen, and where the unfinished stopped', async () => {
-    const res = await team.agents.viewer.get(url(studyId)).expect(200);
+    const res = await t.team.agents.viewer.get(url(studyId)).expect(200);
     const steps = res.body.dropOff as Array<{
       key: string;
       label: string;
@@ -149,19 +142,19 @@ describe('GET /fieldwork', () => {
   it.each(['owner', 'editor', 'analyst', 'viewer'] as Role[])(
     '%s may read the figures',
     async (role) => {
-      await team.agents[role].get(url(studyId)).expect(200);
+      await t.team.agents[role].get(url(studyId)).expect(200);
     },
   );
 
   it('a member of another team gets 404; without a session 401; a bad id 400', async () => {
-    await team.outsider.get(url(studyId)).expect(404);
+    await t.team.outsider.get(url(studyId)).expect(404);
     await t.request().get(url(studyId)).expect(401);
-    await team.agents.owner.get(url('not-a-study')).expect(400);
+    await t.team.agents.owner.get(url('not-a-study')).expect(400);
   });
 
   it('a study without respondents has zero counts and no median', async () => {
-    const { studyId: empty } = await insertStudy(t.deps.db, { teamId: team.teamId });
-    const res = await team.agents.editor.get(url(empty)).expect(200);
+    const { studyId: empty } = await insertStudy(t.deps.db, { teamId: t.team.teamId });
+    const res = await t.team.agents.editor.get(url(empty)).expect(200);
     expect(res.body.counts.starts).toBe(0);
     expect(res.body.medianDurationMs).toBeNull();
     expect(res.body.completionRate).toBeNull();

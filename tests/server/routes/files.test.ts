@@ -1,17 +1,13 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import fs from 'node:fs';
-import os from 'node:os';
 import path from 'node:path';
 import { eq } from 'drizzle-orm';
-import { createTestApp, type TestApp } from '../../support/test-app';
-import { createTeamWithAllRoles } from '../../support/factories';
+import { useTestApp } from '../../support/test-app';
 import { createStudyVia } from './study-fixtures';
 import { storedFiles, studies } from '../../../db/schema/studies';
 import type { Role } from '../../../shared/permissions';
 
-let t: TestApp;
-let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
-let dataDir: string;
+const t = useTestApp({}, { signIn: 'team', dataDir: true });
 let studyId: string;
 
 // Smallest valid headers of each format (PNG: ISO/IEC 15948 signature + IHDR; JPEG: SOI + APP0).
@@ -24,17 +20,10 @@ const webp = Buffer.concat([Buffer.from('RIFF'), Buffer.alloc(4), Buffer.from('W
 const svg = Buffer.from('<svg xmlns="http://www.w3.org/2000/svg"><script>alert(1)</script></svg>');
 
 beforeAll(async () => {
-  dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'cw-files-'));
-  t = await createTestApp({ DATA_DIR: dataDir });
-  team = await createTeamWithAllRoles(t);
-  studyId = (await createStudyVia(team.agents.owner, team.teamId)).id;
-});
-afterAll(async () => {
-  await t.close();
-  fs.rmSync(dataDir, { recursive: true, force: true });
+  studyId = (await createStudyVia(t.team.agents.owner, t.team.teamId)).id;
 });
 
-const uploadUrl = () => `/api/teams/${team.teamId}/studies/${studyId}/files`;
+const uploadUrl = () => `/api/teams/${t.team.teamId}/studies/${studyId}/files`;
 const countFiles = async () => (await t.deps.db.select().from(storedFiles)).length;
 
 describe('POST /api/teams/:teamId/studies/:studyId/files', () => {
@@ -43,7 +32,7 @@ describe('POST /api/teams/:teamId/studies/:studyId/files', () => {
     ['JPEG', jpeg, 'image/jpeg'],
     ['WebP', webp, 'image/webp'],
   ])('stores a %s image and serves it publicly by its key', async (_n, bytes, type) => {
-    const res = await team.agents.editor
+    const res = await t.team.agents.editor
       .post(uploadUrl())
       .attach('file', bytes, 'level.bin')
       .expect(201);
@@ -52,12 +41,12 @@ describe('POST /api/teams/:teamId/studies/:studyId/files', () => {
     const served = await t.request().get(res.body.url).buffer(true).expect(200);
     expect(served.headers['content-type']).toBe(type);
     expect(Buffer.compare(served.body as Buffer, bytes)).toBe(0);
-    expect(fs.existsSync(path.join(dataDir, 'files', res.body.key))).toBe(true);
+    expect(fs.existsSync(path.join(t.dataDir, 'files', res.body.key))).toBe(true);
   });
 
   it('when an SVG is named .png, returns 400 unsupported_type and stores nothing', async () => {
     const before = await countFiles();
-    const res = await team.agents.owner
+    const res = await t.team.agents.owner
       .post(uploadUrl())
       .attach('file', svg, { filename: 'river.png', contentType: 'image/png' })
       .expect(400);
@@ -68,7 +57,7 @@ describe('POST /api/teams/:teamId/studies/:studyId/files', () => {
   it('when the image is over 2 MB, returns 413 with the field and stores nothing', async () => {
     const before = await countFiles();
     const big = Buffer.concat([png, Buffer.alloc(2 * 1024 * 1024)]);
-    const res = await team.agents.owner
+    const res = await t.team.agents.owner
       .post(uploadUrl())
       .attach('file', big, 'big.png')
       .expect(413);
@@ -77,18 +66,18 @@ describe('POST /api/teams/:teamId/studies/:studyId/files', () => {
   });
 
   it.each<Role>(['analyst', 'viewer'])('as %s, returns 403', async (role) => {
-    await team.agents[role].post(uploadUrl()).attach('file', png, 'a.png').expect(403);
+    await t.team.agents[role].post(uploadUrl()).attach('file', png, 'a.png').expect(403);
   });
 
   it('for someone outside the team, returns 404', async () => {
-    await team.outsider.post(uploadUrl()).attach('file', png, 'a.png').expect(404);
+    await t.team.outsider.post(uploadUrl()).attach('file', png, 'a.png').expect(404);
   });
 
   it('when the study is live, returns 409', async () => {
-    const live = await createStudyVia(team.agents.owner, team.teamId);
+    const live = await createStudyVia(t.team.agents.owner, t.team.teamId);
     await t.deps.db.update(studies).set({ status: 'live' }).where(eq(studies.id, live.id));
-    await team.agents.owner
-      .post(`/api/teams/${team.teamId}/studies/${live.id}/files`)
+    await t.team.agents.owner
+      .post(`/api/teams/${t.team.teamId}/studies/${live.id}/files`)
       .attach('file', png, 'a.png')
       .expect(409);
   });

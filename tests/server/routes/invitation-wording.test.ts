@@ -3,26 +3,22 @@
  * rather than the internal name, the duration the consent page states, plain text and HTML
  * parts, and the study's sender name and reply-to. Unknown placeholders are refused by name.
  */
-import { beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { useTestApp } from '../../support/test-app';
-import { createTeamWithAllRoles, uniqueEmail } from '../../support/factories';
+import { uniqueEmail } from '../../support/factories';
 import { waitForMailTo } from '../../support/mailbox';
 import { getInviteeRow, insertStudy } from './fieldwork-fixtures';
 import { studies } from '../../../db/schema/studies';
 
-const t = useTestApp();
-let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
-beforeAll(async () => {
-  team = await createTeamWithAllRoles(t);
-});
+const t = useTestApp({}, { signIn: 'team' });
 
-const studyUrl = (studyId: string) => `/api/teams/${team.teamId}/studies/${studyId}`;
+const studyUrl = (studyId: string) => `/api/teams/${t.team.teamId}/studies/${studyId}`;
 
 /** A live study with one invitee, whose consent page says how long the survey takes. */
 async function studyWithInvitee(consentBody: string) {
   const { studyId } = await insertStudy(t.deps.db, {
-    teamId: team.teamId,
+    teamId: t.team.teamId,
     name: 'WS-2027 internal code name',
   });
   await t.deps.db
@@ -33,7 +29,7 @@ async function studyWithInvitee(consentBody: string) {
     })
     .where(eq(studies.id, studyId));
   const email = uniqueEmail('wording');
-  await team.agents.editor
+  await t.team.agents.editor
     .post(`${studyUrl(studyId)}/invitees/import`)
     .attach('file', Buffer.from(`email,name\n${email},Ana Ferreira\n`), {
       filename: 'list.csv',
@@ -54,11 +50,11 @@ describe('invitation wording', () => {
     const { studyId, email } = await studyWithInvitee(
       'Thank you for taking part. It takes 12 to 15 minutes.',
     );
-    await team.agents.editor
+    await t.team.agents.editor
       .patch(`${studyUrl(studyId)}/lifecycle/settings`)
       .send({ mailSenderName: 'Larkspur research team', mailReplyTo: 'Research@Larkspur.example' })
       .expect(200);
-    await team.agents.editor
+    await t.team.agents.editor
       .post(`${studyUrl(studyId)}/invitees/send`)
       .send({
         subject: '{study}: five questions for {name}',
@@ -90,7 +86,7 @@ describe('invitation wording', () => {
 
   it('by default states the duration the consent page gives, and leaves it out when it gives none', async () => {
     const a = await studyWithInvitee('It takes about 8 minutes.');
-    await team.agents.editor
+    await t.team.agents.editor
       .post(`${studyUrl(a.studyId)}/invitees/send`)
       .send({})
       .expect(200);
@@ -99,7 +95,7 @@ describe('invitation wording', () => {
     expect(withDuration.text).toContain('It takes about 8 minutes and works on a phone');
 
     const b = await studyWithInvitee('Thank you for taking part.');
-    await team.agents.editor
+    await t.team.agents.editor
       .post(`${studyUrl(b.studyId)}/invitees/send`)
       .send({})
       .expect(200);
@@ -110,7 +106,7 @@ describe('invitation wording', () => {
   it('refuses an unknown placeholder by name, and {duration} when the consent page states none; nobody is mailed', async () => {
     const { studyId, email } = await studyWithInvitee('Thank you for taking part.');
     const send = (body: object) =>
-      team.agents.editor
+      t.team.agents.editor
         .post(`${studyUrl(studyId)}/invitees/send`)
         .send(body)
         .expect(400);
@@ -130,7 +126,7 @@ describe('invitation wording', () => {
 
   it('refuses a reply-to that is not an address and a sender name with angle brackets', async () => {
     const { studyId } = await studyWithInvitee('x');
-    const res = await team.agents.editor
+    const res = await t.team.agents.editor
       .patch(`${studyUrl(studyId)}/lifecycle/settings`)
       .send({ mailSenderName: 'Evil <a@b.c>', mailReplyTo: 'not an address' })
       .expect(400);

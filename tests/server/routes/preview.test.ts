@@ -4,10 +4,9 @@
  * preview of a block and seed equals, field by field, the session of a live respondent who
  * got that block and seed.
  */
-import { beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { useTestApp } from '../../support/test-app';
-import { createTeamWithAllRoles } from '../../support/factories';
 import { respondents } from '../../../db/schema/fieldwork';
 import { studies } from '../../../db/schema/studies';
 import { createPage } from '../../../shared/schemas/questionnaire-defaults';
@@ -20,14 +19,10 @@ import {
 import type { RespondentSession, StudyPreview } from '../../../shared/schemas/respondent';
 import { definition, fullQuestionnaire, insertStudy } from './respond-fixtures';
 
-const t = useTestApp();
-let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
-beforeAll(async () => {
-  team = await createTeamWithAllRoles(t);
-});
+const t = useTestApp({}, { signIn: 'team' });
 
 const url = (studyId: string, query = '') =>
-  `/api/teams/${team.teamId}/studies/${studyId}/preview${query}`;
+  `/api/teams/${t.team.teamId}/studies/${studyId}/preview${query}`;
 
 /**
  * Every page kind, with a custom title and the certainty question on the choice tasks, and a
@@ -69,9 +64,9 @@ describe('GET /preview', () => {
     expect(new Set(questionnaire.pages.map((p) => p.kind))).toEqual(
       new Set(Object.keys(pageKindLabels)),
     );
-    const s = await insertStudy(t, team.teamId, { questionnaire });
-    await team.agents.editor
-      .post(`/api/teams/${team.teamId}/studies/${s.id}/lifecycle/go-live`)
+    const s = await insertStudy(t, t.team.teamId, { questionnaire });
+    await t.team.agents.editor
+      .post(`/api/teams/${t.team.teamId}/studies/${s.id}/lifecycle/go-live`)
       .expect(200);
     for (let n = 0; n < 2; n++) {
       const live: RespondentSession = (
@@ -83,7 +78,7 @@ describe('GET /preview', () => {
         .where(eq(respondents.sessionToken, live.sessionToken));
       const seed = (row.plan as { seed: number }).seed;
       const preview: StudyPreview = (
-        await team.agents.viewer.get(url(s.id, `?block=${row.block}&seed=${seed}`)).expect(200)
+        await t.team.agents.viewer.get(url(s.id, `?block=${row.block}&seed=${seed}`)).expect(200)
       ).body;
       expect(preview).toMatchObject({
         block: row.block,
@@ -135,15 +130,15 @@ describe('GET /preview', () => {
   });
 
   it('before the questionnaire is saved, previews the default one', async () => {
-    const s = await insertStudy(t, team.teamId, { questionnaire: null });
-    const res = await team.agents.analyst.get(url(s.id)).expect(200);
+    const s = await insertStudy(t, t.team.teamId, { questionnaire: null });
+    const res = await t.team.agents.analyst.get(url(s.id)).expect(200);
     expect(res.body.questionnaireSaved).toBe(false);
     expect(res.body.survey.screens[0].kind).toBe('consent');
   });
 
   it('when there is no design, returns 409 saying what to do', async () => {
-    const s = await insertStudy(t, team.teamId, { withDesign: false });
-    const res = await team.agents.owner.get(url(s.id)).expect(409);
+    const s = await insertStudy(t, t.team.teamId, { withDesign: false });
+    const res = await t.team.agents.owner.get(url(s.id)).expect(409);
     expect(res.body.error).toEqual({
       code: 'nothing_to_preview',
       message: 'Create the choice tasks on the Tasks section.',
@@ -151,16 +146,16 @@ describe('GET /preview', () => {
   });
 
   it('when the block or seed is not a number, returns 400 with the field', async () => {
-    const s = await insertStudy(t, team.teamId);
-    const res = await team.agents.editor.get(url(s.id, '?block=two')).expect(400);
+    const s = await insertStudy(t, t.team.teamId);
+    const res = await t.team.agents.editor.get(url(s.id, '?block=two')).expect(400);
     expect(res.body.error.fields[0].path).toBe('block');
   });
 
   it('lets every role of the team read it, and nobody else', async () => {
-    const s = await insertStudy(t, team.teamId);
+    const s = await insertStudy(t, t.team.teamId);
     for (const role of ['owner', 'editor', 'analyst', 'viewer'] as const)
-      await team.agents[role].get(url(s.id)).expect(200);
-    await team.outsider.get(url(s.id)).expect(404);
+      await t.team.agents[role].get(url(s.id)).expect(200);
+    await t.team.outsider.get(url(s.id)).expect(404);
     await t.request().get(url(s.id)).expect(401);
     const [row] = await t.deps.db.select().from(studies).where(eq(studies.id, s.id));
     expect(row.status).toBe('draft');

@@ -6,7 +6,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { useTestApp } from '../../support/test-app';
-import { createTeamWithAllRoles } from '../../support/factories';
 import { runDesignJob } from '../../../server/jobs/design-job';
 import { createDesignPool } from '../../../server/engine/design/run-design-in-worker';
 import { runs } from '../../../db/schema/models';
@@ -23,8 +22,7 @@ import {
   type LiveSession,
 } from './respond-fixtures';
 
-const t = useTestApp();
-let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
+const t = useTestApp({}, { signIn: 'team' });
 const sent: Array<{ designJobId: string }> = [];
 const pool = createDesignPool({ maxThreads: 1 });
 
@@ -34,7 +32,6 @@ beforeAll(async () => {
       sent.push(data as { designJobId: string });
     },
   };
-  team = await createTeamWithAllRoles(t);
 });
 afterAll(async () => {
   await pool.destroy();
@@ -111,7 +108,7 @@ async function insertRun(
     .insert(runs)
     .values({
       studyId,
-      teamId: team.teamId,
+      teamId: t.team.teamId,
       name: `${model} pilot`,
       model,
       spec,
@@ -122,12 +119,12 @@ async function insertRun(
   return row.id;
 }
 
-const base = (studyId: string) => `/api/teams/${team.teamId}/studies/${studyId}/design`;
+const base = (studyId: string) => `/api/teams/${t.team.teamId}/studies/${studyId}/design`;
 
 async function liveStudy() {
-  const study = await insertStudy(t, team.teamId);
-  await team.agents.owner
-    .post(`/api/teams/${team.teamId}/studies/${study.id}/lifecycle/go-live`)
+  const study = await insertStudy(t, t.team.teamId);
+  await t.team.agents.owner
+    .post(`/api/teams/${t.team.teamId}/studies/${study.id}/lifecycle/go-live`)
     .expect(200);
   return study;
 }
@@ -145,7 +142,7 @@ describe('GET /design/priors-from-run', () => {
   it.each<Role>(['owner', 'editor', 'analyst', 'viewer'])(
     'as %s, turns an MNL run into normal priors (mean = estimate, SD = SE)',
     async (role) => {
-      const res = await team.agents[role]
+      const res = await t.team.agents[role]
         .get(`${base(studyId)}/priors-from-run?runId=${mnlRun}`)
         .expect(200);
       expect(res.body.priors.kind).toBe('bayesian');
@@ -156,7 +153,7 @@ describe('GET /design/priors-from-run', () => {
   );
 
   it('for someone outside the team, returns 404', async () => {
-    await team.outsider.get(`${base(studyId)}/priors-from-run?runId=${mnlRun}`).expect(404);
+    await t.team.outsider.get(`${base(studyId)}/priors-from-run?runId=${mnlRun}`).expect(404);
   });
 
   it('takes the robust SE when the run reports robust standard errors', async () => {
@@ -164,21 +161,21 @@ describe('GET /design/priors-from-run', () => {
       ...mnlResults(),
       covariance: { used: 'robust' },
     });
-    const res = await team.agents.owner
+    const res = await t.team.agents.owner
       .get(`${base(studyId)}/priors-from-run?runId=${robust}`)
       .expect(200);
     expect(res.body.columns[0].sd).toBeCloseTo(0.06, 12);
   });
 
   it('mixed logit: population means, with the SE or the population SD as spread', async () => {
-    const se = await team.agents.editor
+    const se = await t.team.agents.editor
       .get(`${base(studyId)}/priors-from-run?runId=${mixedRun}`)
       .expect(200);
     const bySe = Object.fromEntries(se.body.columns.map((c: { key: string }) => [c.key, c]));
     // Lognormal: the SE of its population mean (delta method, derived); normal: SE of ".mean".
     expect(bySe['attr:bill']).toMatchObject({ mean: -0.3, sd: 0.04, spreadFrom: 'se' });
     expect(bySe['attr:river:good']).toMatchObject({ mean: 0.9, sd: 0.11, spreadFrom: 'se' });
-    const pop = await team.agents.editor
+    const pop = await t.team.agents.editor
       .get(`${base(studyId)}/priors-from-run?runId=${mixedRun}&spread=population`)
       .expect(200);
     const byPop = Object.fromEntries(pop.body.columns.map((c: { key: string }) => [c.key, c]));
@@ -189,20 +186,20 @@ describe('GET /design/priors-from-run', () => {
   });
 
   it('when the run id is not a uuid, returns 400 with the runId field', async () => {
-    const res = await team.agents.editor
+    const res = await t.team.agents.editor
       .get(`${base(studyId)}/priors-from-run?runId=pilot`)
       .expect(400);
     expect(res.body.error.fields).toEqual([expect.objectContaining({ path: 'runId' })]);
   });
 
   it('when the run does not exist, returns 404', async () => {
-    await team.agents.editor
+    await t.team.agents.editor
       .get(`${base(studyId)}/priors-from-run?runId=${crypto.randomUUID()}`)
       .expect(404);
   });
 
   it('when the population spread is asked of an MNL, returns 400 with the spread field', async () => {
-    const res = await team.agents.editor
+    const res = await t.team.agents.editor
       .get(`${base(studyId)}/priors-from-run?runId=${mnlRun}&spread=population`)
       .expect(400);
     expect(res.body.error.fields).toEqual([
@@ -213,7 +210,7 @@ describe('GET /design/priors-from-run', () => {
   it('when the run codes the attributes differently, refuses with coding_mismatch on runId', async () => {
     const keys = columns.map((c) => c.key).filter((k) => k !== 'attr:interrupt');
     const partial = await insertRun(studyId, 'mnl', mnlResults([...keys, 'attr:meter']));
-    const res = await team.agents.editor
+    const res = await t.team.agents.editor
       .get(`${base(studyId)}/priors-from-run?runId=${partial}`)
       .expect(400);
     expect(res.body.error.code).toBe('coding_mismatch');
@@ -228,7 +225,7 @@ describe('GET /design/priors-from-run', () => {
     const changed = structuredClone(definition);
     changed.attributes[0].levels[1].value = 4;
     await t.deps.db.update(studies).set({ definition: changed }).where(eq(studies.id, study.id));
-    const res = await team.agents.editor
+    const res = await t.team.agents.editor
       .get(`${base(study.id)}/priors-from-run?runId=${run}`)
       .expect(400);
     expect(res.body.error).toMatchObject({ code: 'coding_mismatch' });
@@ -237,12 +234,12 @@ describe('GET /design/priors-from-run', () => {
 
   it('when the run is hierarchical Bayes, returns 400; when it is not finished, 409', async () => {
     const hb = await insertRun(studyId, 'hb', { ...mnlResults(), model: 'hb' });
-    const res = await team.agents.editor
+    const res = await t.team.agents.editor
       .get(`${base(studyId)}/priors-from-run?runId=${hb}`)
       .expect(400);
     expect(res.body.error.fields[0]).toMatchObject({ path: 'runId' });
     const queued = await insertRun(studyId, 'mnl', null, 'queued');
-    const busy = await team.agents.editor
+    const busy = await t.team.agents.editor
       .get(`${base(studyId)}/priors-from-run?runId=${queued}`)
       .expect(409);
     expect(busy.body.error.code).toBe('run_not_finished');
@@ -256,7 +253,7 @@ describe('candidate designs: compare, adopt, keep', () => {
     study = await liveStudy();
     const run = await insertRun(study.id, 'mnl', mnlResults());
     priors = (
-      await team.agents.editor.get(`${base(study.id)}/priors-from-run?runId=${run}`).expect(200)
+      await t.team.agents.editor.get(`${base(study.id)}/priors-from-run?runId=${run}`).expect(200)
     ).body.priors;
   });
   const candidateSpec = () => ({
@@ -269,20 +266,20 @@ describe('candidate designs: compare, adopt, keep', () => {
   });
 
   async function generateCandidate() {
-    const res = await team.agents.editor
+    const res = await t.team.agents.editor
       .post(`${base(study.id)}/candidates`)
       .send(candidateSpec())
       .expect(202);
     expect(res.body.purpose).toBe('candidate');
     await runDesignJob(t.deps, pool, res.body.id);
-    const state = await team.agents.viewer.get(base(study.id)).expect(200);
+    const state = await t.team.agents.viewer.get(base(study.id)).expect(200);
     expect(state.body.job.status).toBe('done');
     return state.body;
   }
 
   it.each<Role>(['analyst', 'viewer'])('as %s, starting a candidate returns 403', async (role) => {
     const before = sent.length;
-    await team.agents[role]
+    await t.team.agents[role]
       .post(`${base(study.id)}/candidates`)
       .send(candidateSpec())
       .expect(403);
@@ -290,7 +287,7 @@ describe('candidate designs: compare, adopt, keep', () => {
   });
 
   it('for someone outside the team, returns 404', async () => {
-    await team.outsider
+    await t.team.outsider
       .post(`${base(study.id)}/candidates`)
       .send(candidateSpec())
       .expect(404);
@@ -298,7 +295,7 @@ describe('candidate designs: compare, adopt, keep', () => {
 
   it('when the spec is invalid, returns 400 with the field and queues nothing', async () => {
     const before = sent.length;
-    const res = await team.agents.owner
+    const res = await t.team.agents.owner
       .post(`${base(study.id)}/candidates`)
       .send({ ...candidateSpec(), tasks: 7 })
       .expect(400);
@@ -307,8 +304,8 @@ describe('candidate designs: compare, adopt, keep', () => {
   });
 
   it('when the study has no design yet, returns 409 no_current_design', async () => {
-    const bare = await insertStudy(t, team.teamId, { withDesign: false });
-    const res = await team.agents.owner
+    const bare = await insertStudy(t, t.team.teamId, { withDesign: false });
+    const res = await t.team.agents.owner
       .post(`${base(bare.id)}/candidates`)
       .send(candidateSpec())
       .expect(409);
@@ -316,7 +313,7 @@ describe('candidate designs: compare, adopt, keep', () => {
   });
 
   it('generates beside the live design and compares both under the new priors', async () => {
-    const before = await team.agents.viewer.get(base(study.id)).expect(200);
+    const before = await t.team.agents.viewer.get(base(study.id)).expect(200);
     const state = await generateCandidate();
     expect(state.design.id).toBe(before.body.design.id);
     expect(state.candidate.design.tasks).toHaveLength(8);
@@ -336,14 +333,14 @@ describe('candidate designs: compare, adopt, keep', () => {
   });
 
   it('adopting: 403 for viewers, 400 for a bad id, 404 for another design', async () => {
-    const state = (await team.agents.viewer.get(base(study.id)).expect(200)).body;
+    const state = (await t.team.agents.viewer.get(base(study.id)).expect(200)).body;
     const id = state.candidate.id;
-    await team.agents.viewer.post(`${base(study.id)}/candidates/${id}/adopt`).expect(403);
-    await team.agents.analyst.post(`${base(study.id)}/candidates/${id}/adopt`).expect(403);
-    await team.outsider.post(`${base(study.id)}/candidates/${id}/adopt`).expect(404);
-    const bad = await team.agents.editor.post(`${base(study.id)}/candidates/x/adopt`).expect(400);
+    await t.team.agents.viewer.post(`${base(study.id)}/candidates/${id}/adopt`).expect(403);
+    await t.team.agents.analyst.post(`${base(study.id)}/candidates/${id}/adopt`).expect(403);
+    await t.team.outsider.post(`${base(study.id)}/candidates/${id}/adopt`).expect(404);
+    const bad = await t.team.agents.editor.post(`${base(study.id)}/candidates/x/adopt`).expect(400);
     expect(bad.body.error.fields).toEqual([expect.objectContaining({ path: 'designId' })]);
-    await team.agents.editor
+    await t.team.agents.editor
       .post(`${base(study.id)}/candidates/${state.design.id}/adopt`)
       .expect(404);
   });
@@ -355,12 +352,12 @@ describe('candidate designs: compare, adopt, keep', () => {
       s.screens.filter((x) => x.kind === 'task').map((x) => x.key);
     expect(taskKeys(first)).toHaveLength(2);
 
-    const state = (await team.agents.viewer.get(base(study.id)).expect(200)).body;
-    const adopted = await team.agents.editor
+    const state = (await t.team.agents.viewer.get(base(study.id)).expect(200)).body;
+    const adopted = await t.team.agents.editor
       .post(`${base(study.id)}/candidates/${state.candidate.id}/adopt`)
       .expect(200);
     expect(adopted.body).toMatchObject({ version: 2, designId: state.candidate.id });
-    const after = (await team.agents.viewer.get(base(study.id)).expect(200)).body;
+    const after = (await t.team.agents.viewer.get(base(study.id)).expect(200)).body;
     expect(after.design.id).toBe(state.candidate.id);
     expect(after.candidate).toBeNull();
 
@@ -400,13 +397,16 @@ describe('candidate designs: compare, adopt, keep', () => {
         ).expect(201);
         if (screen.key.startsWith('task:')) break;
       }
-    const exports = `/api/teams/${team.teamId}/studies/${study.id}/exports`;
-    const long = parse((await team.agents.viewer.get(`${exports}/choices.csv`).expect(200)).text, {
-      columns: true,
-    }) as Record<string, string>[];
+    const exports = `/api/teams/${t.team.teamId}/studies/${study.id}/exports`;
+    const long = parse(
+      (await t.team.agents.viewer.get(`${exports}/choices.csv`).expect(200)).text,
+      {
+        columns: true,
+      },
+    ) as Record<string, string>[];
     expect([...new Set(long.map((r) => r.version))].sort()).toEqual(['1', '2']);
     const background = parse(
-      (await team.agents.viewer.get(`${exports}/background-answers.csv`).expect(200)).text,
+      (await t.team.agents.viewer.get(`${exports}/background-answers.csv`).expect(200)).text,
       { columns: true },
     ) as Record<string, string>[];
     expect(background.map((r) => r.version).sort()).toEqual(['1', '2']);
@@ -420,16 +420,16 @@ describe('candidate designs: compare, adopt, keep', () => {
       expect(c.current).toBeGreaterThan(0);
       expect(c.candidate).toBeGreaterThan(0);
     }
-    await team.agents.viewer
+    await t.team.agents.viewer
       .delete(`${base(study.id)}/candidates/${state.candidate.id}`)
       .expect(403);
-    await team.agents.owner
+    await t.team.agents.owner
       .delete(`${base(study.id)}/candidates/${state.candidate.id}`)
       .expect(204);
-    const after = (await team.agents.viewer.get(base(study.id)).expect(200)).body;
+    const after = (await t.team.agents.viewer.get(base(study.id)).expect(200)).body;
     expect(after.candidate).toBeNull();
     expect(after.design.id).toBe(state.design.id);
-    await team.agents.owner
+    await t.team.agents.owner
       .delete(`${base(study.id)}/candidates/${state.candidate.id}`)
       .expect(404);
   });

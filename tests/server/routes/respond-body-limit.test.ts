@@ -2,25 +2,19 @@
  * Oversized bodies: the respondent API refuses anything over its limit with 413 and a clear
  * message, before parsing, and stores nothing; an answer of the largest allowed size passes.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { createTestApp, type TestApp } from '../../support/test-app';
-import { signUpOwner } from '../../support/factories';
+import { useTestApp } from '../../support/test-app';
 import { answers, respondents } from '../../../db/schema/fieldwork';
 import { answerFor, insertStudy } from './respond-fixtures';
 
-let t: TestApp;
+const t = useTestApp({}, { signIn: 'owner' });
 let publicId: string;
 let studyId: string;
 beforeAll(async () => {
-  t = await createTestApp();
-  const { agent: owner, teamId } = await signUpOwner(t);
-  const study = await insertStudy(t, teamId);
+  const study = await insertStudy(t, t.teamId);
   ({ publicId, id: studyId } = study);
-  await owner.post(`/api/teams/${teamId}/studies/${study.id}/lifecycle/go-live`).expect(200);
-});
-afterAll(async () => {
-  await t.close();
+  await t.owner.post(`/api/teams/${t.teamId}/studies/${study.id}/lifecycle/go-live`).expect(200);
 });
 
 describe('respondent API body limit', () => {

@@ -4,7 +4,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { ownerAppForFile } from '../../support/owner-app';
+import { useTestApp } from '../../support/test-app';
 import { answers, respondents } from '../../../db/schema/fieldwork';
 import type { Questionnaire } from '../../../shared/schemas/questionnaire';
 import {
@@ -16,7 +16,7 @@ import {
   type LiveSession,
 } from './respond-fixtures';
 
-const app = ownerAppForFile();
+const t = useTestApp({}, { signIn: 'owner' });
 
 const scale = { question: 'How sure are you?', points: 5, lowLabel: 'Unsure', highLabel: 'Sure' };
 function withCertainty(): Questionnaire {
@@ -31,24 +31,22 @@ function withCertainty(): Questionnaire {
 async function reachFirstTask(publicId: string, session: LiveSession): Promise<LiveScreen> {
   for (const screen of session.screens) {
     if (screen.key.startsWith('task:')) return screen;
-    await sendAnswer(app.t, publicId, session.sessionToken, 'answers', answerFor(screen)).expect(
-      201,
-    );
+    await sendAnswer(t, publicId, session.sessionToken, 'answers', answerFor(screen)).expect(201);
   }
   throw new Error('no design task');
 }
 
 async function answersOf(sessionToken: string) {
-  const [r] = await app.t.deps.db
+  const [r] = await t.deps.db
     .select()
     .from(respondents)
     .where(eq(respondents.sessionToken, sessionToken));
-  return app.t.deps.db.select().from(answers).where(eq(answers.respondentId, r.id));
+  return t.deps.db.select().from(answers).where(eq(answers.respondentId, r.id));
 }
 
 describe('certainty after each choice', () => {
   it('is sent with the design tasks and with nothing else', async () => {
-    const { session } = await startLiveSession(app.t, app.owner, app.teamId, withCertainty());
+    const { session } = await startLiveSession(t, t.owner, t.teamId, withCertainty());
     const tasks = session.screens.filter((s) => s.kind === 'task');
     expect(tasks.length).toBeGreaterThan(0);
     for (const s of tasks)
@@ -56,15 +54,10 @@ describe('certainty after each choice', () => {
   });
 
   it('is required, bounded by the scale, and stored with the choice', async () => {
-    const { study, session } = await startLiveSession(
-      app.t,
-      app.owner,
-      app.teamId,
-      withCertainty(),
-    );
+    const { study, session } = await startLiveSession(t, t.owner, t.teamId, withCertainty());
     const task = await reachFirstTask(study.publicId, session);
     const send = (value: object) =>
-      sendAnswer(app.t, study.publicId, session.sessionToken, 'answers', {
+      sendAnswer(t, study.publicId, session.sessionToken, 'answers', {
         ...answerFor(task),
         value,
       });
@@ -90,10 +83,10 @@ describe('certainty after each choice', () => {
   });
 
   it('is refused on a task that does not ask it', async () => {
-    const { study, session } = await startLiveSession(app.t, app.owner, app.teamId);
+    const { study, session } = await startLiveSession(t, t.owner, t.teamId);
     const task = await reachFirstTask(study.publicId, session);
     expect(task.certainty).toBeUndefined();
-    const res = await sendAnswer(app.t, study.publicId, session.sessionToken, 'answers', {
+    const res = await sendAnswer(t, study.publicId, session.sessionToken, 'answers', {
       ...answerFor(task),
       value: { kind: 'choice', position: 0, certainty: 3 },
     }).expect(400);

@@ -166,3 +166,12 @@ export const sendAnswer = (
   path: 'answers' | 'revisions',
   body: object,
 ) => t.request().post(`/api/r/${publicId}/${path}`).set('x-respondent-token', token).send(body);
+
+/** One respondent of a live study: starts a session and answers every screen. */
+export async function completeRespondent(t: TestApp, publicId: string): Promise<LiveSession> {
+  const res = await t.request().post(`/api/r/${publicId}/sessions`).send({}).expect(201);
+  const session = res.body as LiveSession;
+  for (const screen of session.screens)
+    await sendAnswer(t, publicId, session.sessionToken, 'answers', answerFor(screen)).expect(201);
+  return session;
+}

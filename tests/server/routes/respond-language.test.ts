@@ -1,34 +1,23 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import type supertest from 'supertest';
-import { createTestApp, type TestApp } from '../../support/test-app';
-import { signUpOwner } from '../../support/factories';
+import { useTestApp } from '../../support/test-app';
 import { respondents } from '../../../db/schema/fieldwork';
 import { answerFor, insertStudy } from './respond-fixtures';
 
-let t: TestApp;
-let owner: supertest.Agent;
-let teamId: string;
-beforeAll(async () => {
-  t = await createTestApp();
-  ({ agent: owner, teamId } = await signUpOwner(t));
-});
-afterAll(async () => {
-  await t.close();
-});
+const t = useTestApp({}, { signIn: 'owner' });
 
 const TOKEN = 'x-respondent-token';
 const studyUrl = (studyId: string, path: string) =>
-  `/api/teams/${teamId}/studies/${studyId}${path}`;
+  `/api/teams/${t.teamId}/studies/${studyId}${path}`;
 
 /** A live study in English and `languages`, every text translated as "<TAG> <source>". */
 async function liveInLanguages(...languages: string[]) {
-  const study = await insertStudy(t, teamId);
-  await owner
+  const study = await insertStudy(t, t.teamId);
+  await t.owner
     .put(studyUrl(study.id, '/texts/languages'))
     .send({ languages: ['en', ...languages] })
     .expect(200);
-  const view = await owner.get(studyUrl(study.id, '/texts')).expect(200);
+  const view = await t.owner.get(studyUrl(study.id, '/texts')).expect(200);
   for (const lang of languages) {
     const texts = Object.fromEntries(
       view.body.texts.map((r: { key: string; source: string }) => [
@@ -36,12 +25,12 @@ async function liveInLanguages(...languages: string[]) {
         `${lang.toUpperCase()} ${r.source}`,
       ]),
     );
-    await owner
+    await t.owner
       .put(studyUrl(study.id, `/texts/${lang}`))
       .send({ texts })
       .expect(200);
   }
-  await owner.post(studyUrl(study.id, '/lifecycle/go-live')).expect(200);
+  await t.owner.post(studyUrl(study.id, '/lifecycle/go-live')).expect(200);
   return study;
 }
 
@@ -153,20 +142,20 @@ describe('the language in Responses and downloads', () => {
     const s = await liveInLanguages('ar');
     const en = (await start(s.publicId).expect(201)).body;
     const ar = (await start(s.publicId, { lang: 'ar' }).expect(201)).body;
-    const responses = await owner.get(studyUrl(s.id, '/responses')).expect(200);
+    const responses = await t.owner.get(studyUrl(s.id, '/responses')).expect(200);
     expect(responses.body.languages).toEqual(['en', 'ar']);
     expect(responses.body.items.map((r: { language: string }) => r.language).sort()).toEqual([
       'ar',
       'en',
     ]);
-    const onlyArabic = await owner.get(studyUrl(s.id, '/responses?language=ar')).expect(200);
+    const onlyArabic = await t.owner.get(studyUrl(s.id, '/responses?language=ar')).expect(200);
     expect(onlyArabic.body.total).toBe(1);
     expect(onlyArabic.body.items[0].language).toBe('ar');
-    const bad = await owner.get(studyUrl(s.id, '/responses?language=xx')).expect(400);
+    const bad = await t.owner.get(studyUrl(s.id, '/responses?language=xx')).expect(400);
     expect(bad.body.error.fields[0].path).toBe('language');
 
     for (const file of ['background-answers.csv', 'respondents-wide.csv']) {
-      const csv = (await owner.get(studyUrl(s.id, `/exports/${file}`)).expect(200)).text;
+      const csv = (await t.owner.get(studyUrl(s.id, `/exports/${file}`)).expect(200)).text;
       const [header, ...lines] = csv.trim().split(/\r?\n/);
       const column = header.split(',').indexOf('language');
       expect(column, file).toBeGreaterThan(0);
@@ -179,7 +168,7 @@ describe('the language in Responses and downloads', () => {
 describe('GET /r/:publicId before a session, with ?lang=', () => {
   it('gives a closed survey’s page in the link’s language, right to left where it is', async () => {
     const s = await liveInLanguages('de', 'ar');
-    await owner.post(studyUrl(s.id, '/lifecycle/close')).expect(200);
+    await t.owner.post(studyUrl(s.id, '/lifecycle/close')).expect(200);
     const de = await t.request().get(`/api/r/${s.publicId}?lang=de`).expect(200);
     expect(de.body).toEqual({
       state: 'closed',
@@ -198,7 +187,7 @@ describe('GET /r/:publicId before a session, with ?lang=', () => {
 
   it('falls back to the source language for no, an unoffered or a malformed ?lang=', async () => {
     const s = await liveInLanguages('de');
-    await owner.post(studyUrl(s.id, '/lifecycle/close')).expect(200);
+    await t.owner.post(studyUrl(s.id, '/lifecycle/close')).expect(200);
     for (const query of ['', '?lang=fr', '?lang=%%%', '?lang=DE-de-x-1'])
       expect((await t.request().get(`/api/r/${s.publicId}${query}`).expect(200)).body.page).toEqual(
         {

@@ -3,35 +3,24 @@
  * offline) are stored for the grace period; answers given after the close are refused with a
  * reason; the phone's own session resumes after the close so its outbox can be sent.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { eq, sql } from 'drizzle-orm';
-import type supertest from 'supertest';
-import { createTestApp, type TestApp } from '../../support/test-app';
-import { signUpOwner } from '../../support/factories';
+import { useTestApp } from '../../support/test-app';
 import { answers, respondents } from '../../../db/schema/fieldwork';
 import { studies } from '../../../db/schema/studies';
 import { answerFor, insertStudy } from './respond-fixtures';
 
-let t: TestApp;
-let owner: supertest.Agent;
-let teamId: string;
-beforeAll(async () => {
-  t = await createTestApp();
-  ({ agent: owner, teamId } = await signUpOwner(t));
-});
-afterAll(async () => {
-  await t.close();
-});
+const t = useTestApp({}, { signIn: 'owner' });
 
 const lifecycleUrl = (studyId: string, action: string) =>
-  `/api/teams/${teamId}/studies/${studyId}/lifecycle/${action}`;
+  `/api/teams/${t.teamId}/studies/${studyId}/lifecycle/${action}`;
 const answer = (publicId: string, token: string, body: object) =>
   t.request().post(`/api/r/${publicId}/answers`).set('x-respondent-token', token).send(body);
 
 /** A live study with one started session, then closed `minutesAgo` minutes ago. */
 async function closedWithSession(minutesAgo: number, settings: object = {}) {
-  const study = await insertStudy(t, teamId, { settings });
-  await owner.post(lifecycleUrl(study.id, 'go-live')).expect(200);
+  const study = await insertStudy(t, t.teamId, { settings });
+  await t.owner.post(lifecycleUrl(study.id, 'go-live')).expect(200);
   const session = (await t.request().post(`/api/r/${study.publicId}/sessions`).send({}).expect(201))
     .body;
   // The session started before the close; move both into the past together.
@@ -39,7 +28,7 @@ async function closedWithSession(minutesAgo: number, settings: object = {}) {
     .update(respondents)
     .set({ startedAt: new Date(Date.now() - (minutesAgo + 5) * 60_000) })
     .where(eq(respondents.sessionToken, session.sessionToken));
-  await owner.post(lifecycleUrl(study.id, 'close')).expect(200);
+  await t.owner.post(lifecycleUrl(study.id, 'close')).expect(200);
   const closedAt = new Date(Date.now() - minutesAgo * 60_000).toISOString();
   await t.deps.db
     .update(studies)

@@ -4,28 +4,17 @@
  * resumes the winner's session); a study that keeps duplicate panel ids gets one respondent
  * per visit; the block counter counts each person once.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import type supertest from 'supertest';
-import { createTestApp, type TestApp } from '../../support/test-app';
-import { signUpOwner } from '../../support/factories';
+import { useTestApp } from '../../support/test-app';
 import { respondentBlockCounts, respondents } from '../../../db/schema/fieldwork';
 import { insertInvitee, insertStudy } from './respond-fixtures';
 
-let t: TestApp;
-let owner: supertest.Agent;
-let teamId: string;
-beforeAll(async () => {
-  t = await createTestApp();
-  ({ agent: owner, teamId } = await signUpOwner(t));
-});
-afterAll(async () => {
-  await t.close();
-});
+const t = useTestApp({}, { signIn: 'owner' });
 
 async function liveStudy(settings: object = {}) {
-  const study = await insertStudy(t, teamId, { settings });
-  await owner.post(`/api/teams/${teamId}/studies/${study.id}/lifecycle/go-live`).expect(200);
+  const study = await insertStudy(t, t.teamId, { settings });
+  await t.owner.post(`/api/teams/${t.teamId}/studies/${study.id}/lifecycle/go-live`).expect(200);
   return study;
 }
 

@@ -1,8 +1,6 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import type supertest from 'supertest';
-import { createTestApp, type TestApp } from '../../support/test-app';
-import { signUpOwner } from '../../support/factories';
+import { useTestApp } from '../../support/test-app';
 import { answerRevisions, answers, respondents } from '../../../db/schema/fieldwork';
 import {
   answerFor,
@@ -13,20 +11,11 @@ import {
 } from './respond-fixtures';
 import type { Questionnaire } from '../../../shared/schemas/questionnaire';
 
-let t: TestApp;
-let owner: supertest.Agent;
-let teamId: string;
-beforeAll(async () => {
-  t = await createTestApp();
-  ({ agent: owner, teamId } = await signUpOwner(t));
-});
-afterAll(async () => {
-  await t.close();
-});
+const t = useTestApp({}, { signIn: 'owner' });
 
 type Session = LiveSession;
 const liveSession = (questionnaire?: Questionnaire) =>
-  startLiveSession(t, owner, teamId, questionnaire);
+  startLiveSession(t, t.owner, t.teamId, questionnaire);
 const send = (publicId: string, token: string, path: 'answers' | 'revisions', body: object) =>
   sendAnswer(t, publicId, token, path, body);
 

@@ -1,30 +1,21 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import type supertest from 'supertest';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { createTestApp, useTestApp } from '../../support/test-app';
 import { signUpOwner } from '../../support/factories';
 import { answers, respondents } from '../../../db/schema/fieldwork';
 import { answerFor, fullQuestionnaire, insertInvitee, insertStudy } from './respond-fixtures';
 import { RESPONDENT_COMPRESSION_THRESHOLD } from '../../../server/app';
 
-let t: TestApp;
-let owner: supertest.Agent;
-let teamId: string;
-beforeAll(async () => {
-  t = await createTestApp();
-  ({ agent: owner, teamId } = await signUpOwner(t));
-});
-afterAll(async () => {
-  await t.close();
-});
+const t = useTestApp({}, { signIn: 'owner' });
 
 const TOKEN = 'x-respondent-token';
 const lifecycleUrl = (studyId: string, action: string) =>
-  `/api/teams/${teamId}/studies/${studyId}/lifecycle/${action}`;
+  `/api/teams/${t.teamId}/studies/${studyId}/lifecycle/${action}`;
 
 async function liveStudy(opts: Parameters<typeof insertStudy>[2] = {}) {
-  const study = await insertStudy(t, teamId, opts);
-  await owner.post(lifecycleUrl(study.id, 'go-live')).expect(200);
+  const study = await insertStudy(t, t.teamId, opts);
+  await t.owner.post(lifecycleUrl(study.id, 'go-live')).expect(200);
   return study;
 }
 
@@ -72,7 +63,7 @@ describe('GET /api/r/:publicId', () => {
   });
 
   it('when the study is a draft, says it is not open and hides its name', async () => {
-    const s = await insertStudy(t, teamId);
+    const s = await insertStudy(t, t.teamId);
     const res = await t.request().get(`/api/r/${s.publicId}`).expect(200);
     expect(res.body).toEqual({
       state: 'not_open',
@@ -159,10 +150,10 @@ describe('POST /api/r/:publicId/sessions', () => {
   });
 
   it('when the study is a draft or closed, refuses with a clear code', async () => {
-    const draft = await insertStudy(t, teamId);
+    const draft = await insertStudy(t, t.teamId);
     expect((await start(draft.publicId).expect(409)).body.error.code).toBe('survey_not_open');
     const closed = await liveStudy();
-    await owner.post(lifecycleUrl(closed.id, 'close')).expect(200);
+    await t.owner.post(lifecycleUrl(closed.id, 'close')).expect(200);
     expect((await start(closed.publicId).expect(410)).body.error.code).toBe('survey_closed');
   });
 
@@ -376,7 +367,7 @@ describe('POST /api/r/:publicId/answers', () => {
   it('when the study is closed, refuses answers with 410 survey_closed and stores nothing', async () => {
     const s = await liveStudy();
     const session = (await start(s.publicId).expect(201)).body;
-    await owner.post(lifecycleUrl(s.id, 'close')).expect(200);
+    await t.owner.post(lifecycleUrl(s.id, 'close')).expect(200);
     const res = await answer(
       s.publicId,
       session.sessionToken,
@@ -389,8 +380,8 @@ describe('POST /api/r/:publicId/answers', () => {
   it('when the study was returned to draft, refuses answers with 409 survey_not_open', async () => {
     const s = await liveStudy();
     const session = (await start(s.publicId).expect(201)).body;
-    await owner.post(lifecycleUrl(s.id, 'close')).expect(200);
-    await owner.post(lifecycleUrl(s.id, 'return-to-draft')).expect(200);
+    await t.owner.post(lifecycleUrl(s.id, 'close')).expect(200);
+    await t.owner.post(lifecycleUrl(s.id, 'return-to-draft')).expect(200);
     const res = await answer(
       s.publicId,
       session.sessionToken,

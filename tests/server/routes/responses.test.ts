@@ -1,19 +1,14 @@
-import { beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { useTestApp } from '../../support/test-app';
-import { createTeamWithAllRoles } from '../../support/factories';
 import { eightChoices, insertRespondent, insertStudy } from './fieldwork-fixtures';
 import { invitees, respondents } from '../../../db/schema/fieldwork';
 import { studies } from '../../../db/schema/studies';
 import type { Role } from '../../../shared/permissions';
 
-const t = useTestApp();
-let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
-beforeAll(async () => {
-  team = await createTeamWithAllRoles(t);
-});
+const t = useTestApp({}, { signIn: 'team' });
 
-const base = (studyId: string) => `/api/teams/${team.teamId}/studies/${studyId}/responses`;
+const base = (studyId: string) => `/api/teams/${t.team.teamId}/studies/${studyId}/responses`;
 const statusQuoStudy = { fixedAlternative: { kind: 'status_quo', label: 'No change', levels: {} } };
 
 /**
@@ -24,7 +19,7 @@ const statusQuoStudy = { fixedAlternative: { kind: 'status_quo', label: 'No chan
  */
 async function arrangeStudy(settings: object = {}) {
   const { studyId, versionId } = await insertStudy(t.deps.db, {
-    teamId: team.teamId,
+    teamId: t.team.teamId,
     definition: statusQuoStudy,
     settings,
   });
@@ -83,7 +78,7 @@ const flagsOf = async (id: string) =>
 describe('GET /responses', () => {
   it('computes the quality flags, stores them, and summarises the study', async () => {
     const { studyId, ids, open } = await arrangeStudy();
-    const res = await team.agents.analyst.get(`${base(studyId)}?pageSize=200`).expect(200);
+    const res = await t.team.agents.analyst.get(`${base(studyId)}?pageSize=200`).expect(200);
     expect(res.body.summary).toEqual({
       respondents: 13,
       completed: 12,
@@ -111,7 +106,7 @@ describe('GET /responses', () => {
 
   it('filters by flag, status and inclusion, and sorts by duration', async () => {
     const { studyId } = await arrangeStudy();
-    const agent = team.agents.viewer;
+    const agent = t.team.agents.viewer;
     const speeders = await agent.get(`${base(studyId)}?flag=speeder&sort=duration&order=asc`);
     expect(speeders.body.items.map((r: { durationMs: number }) => r.durationMs)).toEqual([
       60_000, 120_000, 180_000,
@@ -127,7 +122,7 @@ describe('GET /responses', () => {
 
   it('gives viewers no external ids or e-mail addresses at all', async () => {
     const { studyId } = await arrangeStudy();
-    const res = await team.agents.viewer.get(`${base(studyId)}?pageSize=200`).expect(200);
+    const res = await t.team.agents.viewer.get(`${base(studyId)}?pageSize=200`).expect(200);
     expect(res.body.personalData).toBe(false);
     for (const item of res.body.items) {
       expect(item).not.toHaveProperty('externalId');
@@ -141,7 +136,7 @@ describe('GET /responses', () => {
     '%s receives external ids and e-mail addresses',
     async (role) => {
       const { studyId, ids } = await arrangeStudy();
-      const res = await team.agents[role].get(`${base(studyId)}?pageSize=200`).expect(200);
+      const res = await t.team.agents[role].get(`${base(studyId)}?pageSize=200`).expect(200);
       expect(res.body.personalData).toBe(true);
       const byId = new Map(res.body.items.map((i: { id: string }) => [i.id, i]));
       expect(byId.get(ids[0])).toMatchObject({ email: expect.stringMatching(/^private-/) });
@@ -151,7 +146,7 @@ describe('GET /responses', () => {
 
   it('a member of another team gets 404', async () => {
     const { studyId } = await arrangeStudy();
-    await team.outsider.get(base(studyId)).expect(404);
+    await t.team.outsider.get(base(studyId)).expect(404);
     await t.request().get(base(studyId)).expect(401);
   });
 });
@@ -159,7 +154,7 @@ describe('GET /responses', () => {
 describe('PUT /responses/quality-settings', () => {
   it('changes the speeder threshold and keeps the other fieldwork settings', async () => {
     const { studyId } = await arrangeStudy({ panelParam: 'rid', quotaCompletes: 300 });
-    const res = await team.agents.analyst
+    const res = await t.team.agents.analyst
       .put(`${base(studyId)}/quality-settings`)
       .send({ speederFraction: 0.3 })
       .expect(200);
@@ -177,7 +172,7 @@ describe('PUT /responses/quality-settings', () => {
   it('when the fraction is out of range or missing, returns 400 and changes nothing', async () => {
     const { studyId } = await arrangeStudy();
     for (const body of [{ speederFraction: 0.95 }, { speederFraction: 'half' }, {}]) {
-      const res = await team.agents.analyst
+      const res = await t.team.agents.analyst
         .put(`${base(studyId)}/quality-settings`)
         .send(body)
         .expect(400);
@@ -189,7 +184,7 @@ describe('PUT /responses/quality-settings', () => {
 
   it('a viewer gets 403', async () => {
     const { studyId } = await arrangeStudy();
-    await team.agents.viewer
+    await t.team.agents.viewer
       .put(`${base(studyId)}/quality-settings`)
       .send({ speederFraction: 0.3 })
       .expect(403);
@@ -200,7 +195,7 @@ describe('PUT /responses/:respondentId/inclusion', () => {
   it('an analyst excludes with a reason and includes again', async () => {
     const { studyId, ids } = await arrangeStudy();
     const url = `${base(studyId)}/${ids[2]}/inclusion`;
-    const res = await team.agents.analyst
+    const res = await t.team.agents.analyst
       .put(url)
       .send({ included: false, reason: 'Answered in 3 minutes' })
       .expect(200);
@@ -213,16 +208,16 @@ describe('PUT /responses/:respondentId/inclusion', () => {
       included: false,
       exclusionReason: 'Answered in 3 minutes',
     });
-    await team.agents.editor.put(url).send({ included: true }).expect(200);
+    await t.team.agents.editor.put(url).send({ included: true }).expect(200);
     expect(await flagsOf(ids[2])).toMatchObject({ included: true, exclusionReason: null });
   });
 
   it('when the reason is missing, returns 400 and changes nothing', async () => {
     const { studyId, ids } = await arrangeStudy();
     const url = `${base(studyId)}/${ids[0]}/inclusion`;
-    const res = await team.agents.analyst.put(url).send({ included: false }).expect(400);
+    const res = await t.team.agents.analyst.put(url).send({ included: false }).expect(400);
     expect(res.body.error.fields[0].path).toBe('reason');
-    await team.agents.analyst.put(url).send({ included: 'no' }).expect(400);
+    await t.team.agents.analyst.put(url).send({ included: 'no' }).expect(400);
     expect((await flagsOf(ids[0])).included).toBe(true);
   });
 
@@ -230,15 +225,15 @@ describe('PUT /responses/:respondentId/inclusion', () => {
     const { studyId, ids } = await arrangeStudy();
     const other = await arrangeStudy();
     const body = { included: false, reason: 'Test reason' };
-    await team.agents.viewer
+    await t.team.agents.viewer
       .put(`${base(studyId)}/${ids[0]}/inclusion`)
       .send(body)
       .expect(403);
-    await team.agents.analyst
+    await t.team.agents.analyst
       .put(`${base(studyId)}/${other.ids[0]}/inclusion`)
       .send(body)
       .expect(404);
-    await team.outsider
+    await t.team.outsider
       .put(`${base(studyId)}/${ids[0]}/inclusion`)
       .send(body)
       .expect(404);
@@ -250,7 +245,7 @@ describe('PUT /responses/:respondentId/inclusion', () => {
 describe('POST /responses/exclude-flagged', () => {
   it('excludes every included respondent with one of the chosen flags', async () => {
     const { studyId, ids } = await arrangeStudy();
-    const res = await team.agents.analyst
+    const res = await t.team.agents.analyst
       .post(`${base(studyId)}/exclude-flagged`)
       .send({ flags: ['speeder', 'dominanceFailed'], reason: 'Quality rules of the protocol' })
       .expect(200);
@@ -260,7 +255,7 @@ describe('POST /responses/exclude-flagged', () => {
       .map((r) => r.id)
       .sort();
     expect(excluded).toEqual([ids[0], ids[1], ids[2], ids[6]].sort());
-    const again = await team.agents.analyst
+    const again = await t.team.agents.analyst
       .post(`${base(studyId)}/exclude-flagged`)
       .send({ flags: ['speeder'], reason: 'Quality rules of the protocol' })
       .expect(200);
@@ -269,19 +264,19 @@ describe('POST /responses/exclude-flagged', () => {
 
   it('when the flags are unknown or the reason empty, returns 400 and excludes nobody', async () => {
     const { studyId } = await arrangeStudy();
-    await team.agents.analyst
+    await t.team.agents.analyst
       .post(`${base(studyId)}/exclude-flagged`)
       .send({ flags: ['bored'], reason: 'x y z' })
       .expect(400);
-    await team.agents.analyst
+    await t.team.agents.analyst
       .post(`${base(studyId)}/exclude-flagged`)
       .send({ flags: [], reason: '' })
       .expect(400);
-    await team.agents.viewer
+    await t.team.agents.viewer
       .post(`${base(studyId)}/exclude-flagged`)
       .send({ flags: ['speeder'], reason: 'Quality rules' })
       .expect(403);
-    const res = await team.agents.analyst.get(base(studyId)).expect(200);
+    const res = await t.team.agents.analyst.get(base(studyId)).expect(200);
     expect(res.body.summary.excluded).toBe(0);
   });
 });

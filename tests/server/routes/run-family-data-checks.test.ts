@@ -4,53 +4,30 @@
  * respondents can identify. Feasible runs of the same study are still queued (membership
  * questions: run-membership.test.ts).
  */
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { and, eq, gt } from 'drizzle-orm';
-import { createTestApp, type TestApp } from '../../support/test-app';
-import { createTeamWithAllRoles } from '../../support/factories';
+import { useTestApp } from '../../support/test-app';
 import { answers } from '../../../db/schema/fieldwork';
-import {
-  FIXED_COEFFICIENTS,
-  ignoreTeardownErrors,
-  seedRunStudy,
-  type SeededStudy,
-} from '../jobs/run-fixtures';
+import { FIXED_COEFFICIENTS, seedRunStudy, type SeededStudy } from '../jobs/run-fixtures';
 
-let t: TestApp;
-let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
+const t = useTestApp({}, { signIn: 'team', recordJobs: true });
 let study: SeededStudy;
 let base: string;
-let sent = 0;
 
 const coefficients = FIXED_COEFFICIENTS;
 
 beforeAll(async () => {
-  t = await createTestApp();
-  ignoreTeardownErrors(t.deps.db);
-  team = await createTeamWithAllRoles(t);
   // 15 completed respondents with 8 design tasks each.
-  study = await seedRunStudy(t.deps.db, { teamId: team.teamId, respondents: 15 });
-  base = `/api/teams/${team.teamId}/studies/${study.studyId}/runs`;
+  study = await seedRunStudy(t.deps.db, { teamId: t.team.teamId, respondents: 15 });
+  base = `/api/teams/${t.team.teamId}/studies/${study.studyId}/runs`;
 }, 120_000);
-afterAll(async () => {
-  await t.close();
-});
-beforeEach(() => {
-  sent = 0;
-  t.deps.jobs = {
-    send: async () => {
-      sent++;
-      return undefined;
-    },
-  };
-});
 
-const listRuns = async () => (await team.agents.viewer.get(base).expect(200)).body as unknown[];
+const listRuns = async () => (await t.team.agents.viewer.get(base).expect(200)).body as unknown[];
 
 describe('latent class: classes the data can identify', () => {
   it('refuses 2 classes for 15 respondents (at least 10 per class) on the classes field', async () => {
     const before = (await listRuns()).length;
-    const res = await team.agents.analyst
+    const res = await t.team.agents.analyst
       .post(base)
       .send({ spec: { model: 'latent_class', coefficients, classes: [1, 2] } })
       .expect(400);
@@ -59,16 +36,16 @@ describe('latent class: classes the data can identify', () => {
     expect(res.body.error.message).toMatch(
       /2 classes need .* at least 20 respondents; the data have 15/,
     );
-    expect(sent).toBe(0);
+    expect(t.sent).toHaveLength(0);
     expect(await listRuns()).toHaveLength(before);
   });
 
   it('queues one class of the same study', async () => {
-    await team.agents.analyst
+    await t.team.agents.analyst
       .post(base)
       .send({ spec: { model: 'latent_class', coefficients, classes: 1 } })
       .expect(201);
-    expect(sent).toBe(1);
+    expect(t.sent).toHaveLength(1);
   });
 });
 
@@ -83,8 +60,8 @@ describe('hierarchical Bayes: choice tasks per respondent', () => {
   };
 
   it('queues HB when every respondent has 8 tasks', async () => {
-    await team.agents.analyst.post(base).send({ spec: hb }).expect(201);
-    expect(sent).toBe(1);
+    await t.team.agents.analyst.post(base).send({ spec: hb }).expect(201);
+    expect(t.sent).toHaveLength(1);
   });
 
   it('refuses HB on the model field once one respondent has only 2 tasks', async () => {
@@ -98,12 +75,12 @@ describe('hierarchical Bayes: choice tasks per respondent', () => {
     await t.deps.db
       .delete(answers)
       .where(and(eq(answers.respondentId, id), gt(answers.taskNumber, tasks[1])));
-    const res = await team.agents.analyst.post(base).send({ spec: hb }).expect(400);
+    const res = await t.team.agents.analyst.post(base).send({ spec: hb }).expect(400);
     expect(res.body.error.code).toBe('too_little_data');
     expect(res.body.error.fields[0].path).toBe('spec.model');
     expect(res.body.error.message).toMatch(
       /at least 3 choice tasks per respondent.*1 of 15 respondents have fewer/,
     );
-    expect(sent).toBe(0);
+    expect(t.sent).toHaveLength(0);
   });
 });

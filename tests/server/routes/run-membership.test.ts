@@ -6,28 +6,24 @@
  * and the methods sheet of the profile export carries them. Bad questions are refused with 400
  * naming spec.membership.<i> before anything is queued; only owners and analysts start runs.
  */
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { createTestApp, type TestApp } from '../../support/test-app';
-import { createTeamWithAllRoles } from '../../support/factories';
+import { useTestApp } from '../../support/test-app';
 import { downloadXlsx } from '../../support/download-xlsx';
 import { answers } from '../../../db/schema/fieldwork';
 import { studyVersions } from '../../../db/schema/studies';
 import { runEstimationJob } from '../../../server/jobs/estimation-job';
 import {
   FIXED_COEFFICIENTS,
-  ignoreTeardownErrors,
   makeQuestionnaire,
   seedRunStudy,
   TRUE_MNL,
   type SeededStudy,
 } from '../jobs/run-fixtures';
 
-let t: TestApp;
-let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
+const t = useTestApp({}, { signIn: 'team', recordJobs: true });
 let study: SeededStudy;
 let base: string;
-let sent = 0;
 
 const coefficients = FIXED_COEFFICIENTS;
 const question = (key: string, type: string, extra: object = {}) => ({
@@ -39,17 +35,14 @@ const options = (n: number) =>
   Array.from({ length: n }, (_, i) => ({ id: `o${i}`, label: `Option ${i}` }));
 
 beforeAll(async () => {
-  t = await createTestApp();
-  ignoreTeardownErrors(t.deps.db);
-  team = await createTeamWithAllRoles(t);
   // Two classes: every third respondent filters the tap water and cares more about the river
   // and less about the bill, so filter_tap explains class membership.
   study = await seedRunStudy(t.deps.db, {
-    teamId: team.teamId,
+    teamId: t.team.teamId,
     respondents: 90,
     filterBeta: { ...TRUE_MNL, 'attr:bill': -0.03, 'attr:river:good': 2.2 },
   });
-  base = `/api/teams/${team.teamId}/studies/${study.studyId}/runs`;
+  base = `/api/teams/${t.team.teamId}/studies/${study.studyId}/runs`;
   // The frozen questionnaire gains background questions of every kind after the consent page.
   const q = makeQuestionnaire();
   (q.pages as unknown[]).splice(
@@ -83,23 +76,11 @@ beforeAll(async () => {
       })),
   );
 }, 120_000);
-afterAll(async () => {
-  await t.close();
-});
-beforeEach(() => {
-  sent = 0;
-  t.deps.jobs = {
-    send: async () => {
-      sent++;
-      return undefined;
-    },
-  };
-});
 
 const lc = (membership: string[]) => ({
   spec: { model: 'latent_class', coefficients, classes: 2, starts: 2, membership },
 });
-const listRuns = async () => (await team.agents.viewer.get(base).expect(200)).body as unknown[];
+const listRuns = async () => (await t.team.agents.viewer.get(base).expect(200)).body as unknown[];
 
 describe('POST /runs with spec.membership', () => {
   it.each([
@@ -109,47 +90,47 @@ describe('POST /runs with spec.membership', () => {
     ['a single choice with too many options', ['district'], 0, /12 answer options; .* at most 10/],
   ])('when it names %s, returns 400 with the field and queues nothing', async (_, keys, i, msg) => {
     const before = (await listRuns()).length;
-    const res = await team.agents.analyst.post(base).send(lc(keys)).expect(400);
+    const res = await t.team.agents.analyst.post(base).send(lc(keys)).expect(400);
     expect(res.body.error.code).toBe('invalid_input');
     expect(res.body.error.message).toMatch(msg);
     expect(res.body.error.fields[0].path).toBe(`spec.membership.${i}`);
-    expect(sent).toBe(0);
+    expect(t.sent).toHaveLength(0);
     expect(await listRuns()).toHaveLength(before);
   });
 
   it('when a question is listed twice, returns 400 on the second', async () => {
-    const res = await team.agents.analyst
+    const res = await t.team.agents.analyst
       .post(base)
       .send(lc(['filter_tap', 'filter_tap']))
       .expect(400);
     expect(res.body.error.fields[0].path).toBe('spec.membership.1');
-    expect(sent).toBe(0);
+    expect(t.sent).toHaveLength(0);
   });
 
   it.each([
     ['editor', 403],
     ['viewer', 403],
   ] as const)('as %s, returns %i', async (role, status) => {
-    await team.agents[role]
+    await t.team.agents[role]
       .post(base)
       .send(lc(['filter_tap']))
       .expect(status);
-    expect(sent).toBe(0);
+    expect(t.sent).toHaveLength(0);
   });
 
   it('for another team, returns 404', async () => {
-    await team.outsider
+    await t.team.outsider
       .post(base)
       .send(lc(['filter_tap']))
       .expect(404);
   });
 
   it('as owner, queues the run', async () => {
-    await team.agents.owner
+    await t.team.agents.owner
       .post(base)
       .send(lc(['filter_tap']))
       .expect(201);
-    expect(sent).toBe(1);
+    expect(t.sent).toHaveLength(1);
   });
 });
 
@@ -157,13 +138,13 @@ describe('a latent class run with membership by background answers', () => {
   let runId = '';
 
   it('fits membership coefficients with SEs for each coded column', async () => {
-    const res = await team.agents.analyst
+    const res = await t.team.agents.analyst
       .post(base)
       .send(lc(['filter_tap', 'household_size']))
       .expect(201);
     runId = res.body.id;
     await runEstimationJob(t.deps, runId, { threads: 1 });
-    const run = (await team.agents.viewer.get(`${base}/${runId}`).expect(200)).body;
+    const run = (await t.team.agents.viewer.get(`${base}/${runId}`).expect(200)).body;
     expect(run.error).toBeNull();
     expect(run.status).toBe('done');
     // "yes" is the base level (first option); 23 of 90 did not give their household size.
@@ -190,8 +171,8 @@ describe('a latent class run with membership by background answers', () => {
 
   it('carries the membership coefficients and the coding into the methods sheet', async () => {
     const { workbook } = await downloadXlsx(
-      team.agents.viewer,
-      `/api/teams/${team.teamId}/studies/${study.studyId}/exports/taste-profiles.xlsx`,
+      t.team.agents.viewer,
+      `/api/teams/${t.team.teamId}/studies/${study.studyId}/exports/taste-profiles.xlsx`,
       { runId },
     );
     const rows: unknown[][] = [];

@@ -6,12 +6,12 @@
 import { describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import type supertest from 'supertest';
-import { ownerAppForFile } from '../../support/owner-app';
+import { useTestApp } from '../../support/test-app';
 import { respondents } from '../../../db/schema/fieldwork';
 import type { Questionnaire, QuotaCell } from '../../../shared/schemas/questionnaire';
 import { answerFor, fullQuestionnaire, insertStudy } from './respond-fixtures';
 
-const app = ownerAppForFile();
+const t = useTestApp({}, { signIn: 'owner' });
 
 const TOKEN = 'x-respondent-token';
 type Screen = Parameters<typeof answerFor>[0];
@@ -55,18 +55,16 @@ function withAgeQuotas(cells: Partial<QuotaCell>[]): Questionnaire {
 }
 
 async function liveStudy(questionnaire: Questionnaire, settings: unknown = {}) {
-  const study = await insertStudy(app.t, app.teamId, { questionnaire, settings });
-  await app.owner
-    .post(`/api/teams/${app.teamId}/studies/${study.id}/lifecycle/go-live`)
-    .expect(200);
+  const study = await insertStudy(t, t.teamId, { questionnaire, settings });
+  await t.owner.post(`/api/teams/${t.teamId}/studies/${study.id}/lifecycle/go-live`).expect(200);
   return study;
 }
 
 const start = async (publicId: string): Promise<Session> =>
-  (await app.t.request().post(`/api/r/${publicId}/sessions`).send({}).expect(201)).body;
+  (await t.request().post(`/api/r/${publicId}/sessions`).send({}).expect(201)).body;
 
 const answer = (publicId: string, s: Session, screen: Screen, over: object = {}) =>
-  app.t
+  t
     .request()
     .post(`/api/r/${publicId}/answers`)
     .set(TOKEN, s.sessionToken)
@@ -91,7 +89,7 @@ async function finish(publicId: string, s: Session) {
 
 const statusOf = async (s: Session) =>
   (
-    await app.t.deps.db
+    await t.deps.db
       .select({ status: respondents.status })
       .from(respondents)
       .where(eq(respondents.sessionToken, s.sessionToken))
@@ -124,11 +122,9 @@ describe('segment quotas', () => {
     expect((await screenAs(s.publicId, third, 'older')).body.status).toBe('in_progress');
     expect((await finish(s.publicId, third)).body.status).toBe('completed');
     // The study stays live: only one cell is full. Fieldwork shows completes per cell.
-    const info = await app.t.request().get(`/api/r/${s.publicId}`).expect(200);
+    const info = await t.request().get(`/api/r/${s.publicId}`).expect(200);
     expect(info.body.state).toBe('live');
-    const stats = await app.owner
-      .get(`/api/teams/${app.teamId}/studies/${s.id}/fieldwork`)
-      .expect(200);
+    const stats = await t.owner.get(`/api/teams/${t.teamId}/studies/${s.id}/fieldwork`).expect(200);
     expect(stats.body.quotas).toEqual([
       {
         question: 'Your age group?',
@@ -165,10 +161,10 @@ describe('segment quotas', () => {
   });
 
   it('refuses a quota definition with a gap, naming the answer left out, and saves nothing', async () => {
-    const study = await insertStudy(app.t, app.teamId);
-    const url = `/api/teams/${app.teamId}/studies/${study.id}/questionnaire`;
-    const before = (await app.owner.get(url).expect(200)).body;
-    const res = await app.owner
+    const study = await insertStudy(t, t.teamId);
+    const url = `/api/teams/${t.teamId}/studies/${study.id}/questionnaire`;
+    const before = (await t.owner.get(url).expect(200)).body;
+    const res = await t.owner
       .put(url)
       .send({ questionnaire: withAgeQuotas([{ optionIds: ['young'] }]) })
       .expect(400);
@@ -177,6 +173,6 @@ describe('segment quotas', () => {
       path: 'questionnaire.pages.1.quotaCells',
       message: 'The answer "40 or older" is in no quota cell',
     });
-    expect((await app.owner.get(url).expect(200)).body).toEqual(before);
+    expect((await t.owner.get(url).expect(200)).body).toEqual(before);
   });
 });

@@ -1,17 +1,14 @@
 /** Saved share scenarios: CRUD per role, bad input (status, code, message, field), tenancy. */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { useTestApp } from '../../support/test-app';
-import { createTeamWithAllRoles } from '../../support/factories';
 import { scenarioLevels, seedTastesStudy } from './tastes-fixture';
 
-const t = useTestApp();
-let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
+const t = useTestApp({}, { signIn: 'team' });
 let url: string;
 
 beforeAll(async () => {
-  team = await createTeamWithAllRoles(t);
-  const seeded = await seedTastesStudy(t.deps.db, team.teamId);
-  url = `/api/teams/${team.teamId}/studies/${seeded.studyId}/shares/scenarios`;
+  const seeded = await seedTastesStudy(t.deps.db, t.team.teamId);
+  url = `/api/teams/${t.team.teamId}/studies/${seeded.studyId}/shares/scenarios`;
 });
 
 const body = (name: string, river = 'good') => ({
@@ -26,7 +23,7 @@ const body = (name: string, river = 'good') => ({
 describe('POST /shares/scenarios', () => {
   it('saves a named scenario for owners, editors and analysts; every role reads it', async () => {
     for (const role of ['owner', 'editor', 'analyst'] as const) {
-      const res = await team.agents[role]
+      const res = await t.team.agents[role]
         .post(url)
         .send(body(`By ${role}`))
         .expect(201);
@@ -37,7 +34,7 @@ describe('POST /shares/scenarios', () => {
       });
       expect(res.body.createdBy).toEqual(expect.any(String));
     }
-    const list = await team.agents.viewer.get(url).expect(200);
+    const list = await t.team.agents.viewer.get(url).expect(200);
     expect(list.body.map((s: { name: string }) => s.name)).toEqual([
       'By analyst',
       'By editor',
@@ -46,9 +43,9 @@ describe('POST /shares/scenarios', () => {
   });
 
   it('when a viewer saves, returns 403 and stores nothing', async () => {
-    const res = await team.agents.viewer.post(url).send(body('Viewer try')).expect(403);
+    const res = await t.team.agents.viewer.post(url).send(body('Viewer try')).expect(403);
     expect(res.body.error.code).toBe('forbidden');
-    const list = await team.agents.viewer.get(url).expect(200);
+    const list = await t.team.agents.viewer.get(url).expect(200);
     expect(list.body.map((s: { name: string }) => s.name)).not.toContain('Viewer try');
   });
 
@@ -72,19 +69,19 @@ describe('POST /shares/scenarios', () => {
   ])(
     'when the body is invalid (%#), returns 400 naming %s and stores nothing',
     async (bad, field, message) => {
-      const before = (await team.agents.owner.get(url).expect(200)).body.length;
-      const res = await team.agents.owner.post(url).send(bad).expect(400);
+      const before = (await t.team.agents.owner.get(url).expect(200)).body.length;
+      const res = await t.team.agents.owner.post(url).send(bad).expect(400);
       expect(res.body.error.code).toBe('invalid_input');
       expect(res.body.error.message).toEqual(expect.any(String));
       const issue = res.body.error.fields.find((f: { path: string }) => f.path === field);
       expect(issue?.message).toContain(message);
-      expect((await team.agents.owner.get(url).expect(200)).body.length).toBe(before);
+      expect((await t.team.agents.owner.get(url).expect(200)).body.length).toBe(before);
     },
   );
 
   it('when the name is taken, returns 409 naming the field', async () => {
-    await team.agents.owner.post(url).send(body('Twice')).expect(201);
-    const res = await team.agents.editor.post(url).send(body('Twice')).expect(409);
+    await t.team.agents.owner.post(url).send(body('Twice')).expect(201);
+    const res = await t.team.agents.editor.post(url).send(body('Twice')).expect(409);
     expect(res.body.error).toMatchObject({
       code: 'scenario_name_taken',
       fields: [{ path: 'name', message: 'Choose another name' }],
@@ -92,38 +89,38 @@ describe('POST /shares/scenarios', () => {
   });
 
   it('returns 404 to another team and 401 without a session', async () => {
-    await team.outsider.post(url).send(body('Outsider')).expect(404);
-    await team.outsider.get(url).expect(404);
+    await t.team.outsider.post(url).send(body('Outsider')).expect(404);
+    await t.team.outsider.get(url).expect(404);
     await t.request().post(url).send(body('Anonymous')).expect(401);
   });
 });
 
 describe('PUT and DELETE /shares/scenarios/:scenarioId', () => {
   it('renames and edits for writers; a viewer gets 403 and nothing changes', async () => {
-    const saved = (await team.agents.analyst.post(url).send(body('Draft A')).expect(201)).body;
-    await team.agents.viewer.put(`${url}/${saved.id}`).send(body('Viewer rename')).expect(403);
-    const res = await team.agents.editor
+    const saved = (await t.team.agents.analyst.post(url).send(body('Draft A')).expect(201)).body;
+    await t.team.agents.viewer.put(`${url}/${saved.id}`).send(body('Viewer rename')).expect(403);
+    const res = await t.team.agents.editor
       .put(`${url}/${saved.id}`)
       .send({ ...body('Final A', 'fair'), includeFixed: false })
       .expect(200);
     expect(res.body).toMatchObject({ id: saved.id, name: 'Final A', includeFixed: false });
     expect(res.body.alternatives[0].levels.river).toBe('fair');
-    await team.agents.viewer.delete(`${url}/${saved.id}`).expect(403);
-    await team.agents.owner.delete(`${url}/${saved.id}`).expect(204);
-    await team.agents.owner.delete(`${url}/${saved.id}`).expect(404);
-    await team.agents.owner.put(`${url}/${saved.id}`).send(body('Gone')).expect(404);
+    await t.team.agents.viewer.delete(`${url}/${saved.id}`).expect(403);
+    await t.team.agents.owner.delete(`${url}/${saved.id}`).expect(204);
+    await t.team.agents.owner.delete(`${url}/${saved.id}`).expect(404);
+    await t.team.agents.owner.put(`${url}/${saved.id}`).send(body('Gone')).expect(404);
   });
 
   it('when the scenario id is not a uuid, returns 400 naming scenarioId', async () => {
-    const res = await team.agents.owner.put(`${url}/nope`).send(body('X')).expect(400);
+    const res = await t.team.agents.owner.put(`${url}/nope`).send(body('X')).expect(400);
     expect(res.body.error.fields.map((f: { path: string }) => f.path)).toEqual(['scenarioId']);
   });
 
   it('when a rename takes another scenario’s name, returns 409 and keeps both', async () => {
-    await team.agents.owner.post(url).send(body('Keep 1')).expect(201);
-    const two = (await team.agents.owner.post(url).send(body('Keep 2')).expect(201)).body;
-    await team.agents.owner.put(`${url}/${two.id}`).send(body('Keep 1')).expect(409);
-    const names = (await team.agents.owner.get(url).expect(200)).body.map(
+    await t.team.agents.owner.post(url).send(body('Keep 1')).expect(201);
+    const two = (await t.team.agents.owner.post(url).send(body('Keep 2')).expect(201)).body;
+    await t.team.agents.owner.put(`${url}/${two.id}`).send(body('Keep 1')).expect(409);
+    const names = (await t.team.agents.owner.get(url).expect(200)).body.map(
       (s: { name: string }) => s.name,
     );
     expect(names).toEqual(expect.arrayContaining(['Keep 1', 'Keep 2']));

@@ -6,7 +6,6 @@ import {
   prepareShareModel,
 } from '../../../shared/engine/shares/share-model';
 import { useTestApp } from '../../support/test-app';
-import { createTeamWithAllRoles } from '../../support/factories';
 import {
   billMean,
   N,
@@ -16,15 +15,13 @@ import {
   taskOneChoice,
 } from './tastes-fixture';
 
-const t = useTestApp();
-let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
+const t = useTestApp({}, { signIn: 'team' });
 let seeded: Awaited<ReturnType<typeof seedTastesStudy>>;
 let url: string;
 
 beforeAll(async () => {
-  team = await createTeamWithAllRoles(t);
-  seeded = await seedTastesStudy(t.deps.db, team.teamId);
-  url = `/api/teams/${team.teamId}/studies/${seeded.studyId}/shares/simulate`;
+  seeded = await seedTastesStudy(t.deps.db, t.team.teamId);
+  url = `/api/teams/${t.team.teamId}/studies/${seeded.studyId}/shares/simulate`;
 });
 
 const levels = scenarioLevels;
@@ -32,7 +29,7 @@ const levels = scenarioLevels;
 describe('POST /shares/simulate', () => {
   it('gives two identical packages equal shares (every role may simulate)', async () => {
     for (const role of ['owner', 'editor', 'analyst', 'viewer'] as const) {
-      const res = await team.agents[role]
+      const res = await t.team.agents[role]
         .post(url)
         .send({
           runId: seeded.runId,
@@ -58,7 +55,7 @@ describe('POST /shares/simulate', () => {
   it('averages each respondent’s logit probabilities over their own conditional means', async () => {
     // Only river health differs (good vs fair; the run has no fair coefficient, so it codes
     // as 0): P_n(good) = 1/(1+exp(−β_n)) with β_n = n (logit formula), averaged over n.
-    const res = await team.agents.viewer
+    const res = await t.team.agents.viewer
       .post(url)
       .send({
         runId: seeded.runId,
@@ -76,7 +73,7 @@ describe('POST /shares/simulate', () => {
   });
 
   it('adds the status quo with its constant and splits shares by segment', async () => {
-    const res = await team.agents.analyst
+    const res = await t.team.agents.analyst
       .post(url)
       .send({
         runId: seeded.runId,
@@ -156,7 +153,7 @@ describe('POST /shares/simulate', () => {
       'segmentBy.task',
     ],
   ])('when the body is %o, returns 400 naming %s', async (body, field) => {
-    const res = await team.agents.analyst
+    const res = await t.team.agents.analyst
       .post(url)
       .send({ runId: seeded.runId, ...body })
       .expect(400);
@@ -171,9 +168,9 @@ describe('POST /shares/simulate', () => {
         { name: 'B', levels: levels('fair') },
       ],
     };
-    await team.outsider.post(url).send(body).expect(404);
+    await t.team.outsider.post(url).send(body).expect(404);
     await t.request().post(url).send(body).expect(401);
-    await team.agents.analyst
+    await t.team.agents.analyst
       .post(url)
       .send({ ...body, runId: seeded.runningRunId })
       .expect(409);
@@ -185,7 +182,7 @@ describe('GET /shares/model', () => {
 
   it('sends every role the respondents’ conditional means and SDs, in coefficient order', async () => {
     for (const role of ['owner', 'editor', 'analyst', 'viewer'] as const) {
-      const res = await team.agents[role]
+      const res = await t.team.agents[role]
         .get(modelUrl())
         .query({ runId: seeded.runId })
         .expect(200);
@@ -211,15 +208,15 @@ describe('GET /shares/model', () => {
   });
 
   it('when the run id is not a uuid, returns 400 naming runId', async () => {
-    const res = await team.agents.viewer.get(modelUrl()).query({ runId: 'nope' }).expect(400);
+    const res = await t.team.agents.viewer.get(modelUrl()).query({ runId: 'nope' }).expect(400);
     expect(res.body.error.code).toBe('invalid_input');
     expect(res.body.error.fields.map((f: { path: string }) => f.path)).toEqual(['runId']);
   });
 
   it('returns 404 to an outsider, 401 without a session and 409 for an unfinished run', async () => {
-    await team.outsider.get(modelUrl()).query({ runId: seeded.runId }).expect(404);
+    await t.team.outsider.get(modelUrl()).query({ runId: seeded.runId }).expect(404);
     await t.request().get(modelUrl()).query({ runId: seeded.runId }).expect(401);
-    const res = await team.agents.viewer
+    const res = await t.team.agents.viewer
       .get(modelUrl())
       .query({ runId: seeded.runningRunId })
       .expect(409);
@@ -231,7 +228,7 @@ describe('GET /shares/groups', () => {
   const groupsUrl = () => url.replace(/simulate$/, 'groups');
 
   it('groups the model’s respondents by the alternative chosen in a task', async () => {
-    const res = await team.agents.viewer
+    const res = await t.team.agents.viewer
       .get(groupsUrl())
       .query({ runId: seeded.runId, groupBy: 'task', task: 1 })
       .expect(200);
@@ -249,7 +246,7 @@ describe('GET /shares/groups', () => {
     [{ groupBy: 'task', task: 99 }, 'task', 'invalid_input'],
     [{ groupBy: 'class' }, 'groupBy', 'invalid_input'],
   ])('when the query is %o, returns 400 naming %s', async (query, field, code) => {
-    const res = await team.agents.analyst
+    const res = await t.team.agents.analyst
       .get(groupsUrl())
       .query({ runId: seeded.runId, ...query })
       .expect(400);
@@ -277,10 +274,10 @@ describe('POST /shares/export', () => {
 
   it('writes the shares the browser computes from the share model (one implementation)', async () => {
     const model = (
-      await team.agents.viewer.get(modelUrl()).query({ runId: seeded.runId }).expect(200)
+      await t.team.agents.viewer.get(modelUrl()).query({ runId: seeded.runId }).expect(200)
     ).body;
     const expected = computeScenarioShares(prepareShareModel(model), scenario);
-    const res = await team.agents.viewer
+    const res = await t.team.agents.viewer
       .post(exportUrl())
       .send({ runId: seeded.runId, ...scenario, format: 'csv' })
       .expect(200);
@@ -298,7 +295,7 @@ describe('POST /shares/export', () => {
 
   it('writes a demand curve as CSV and the whole scenario as XLSX', async () => {
     const sweep = { alternative: 0, attributeId: 'bill', points: 16 };
-    const csv = await team.agents.analyst
+    const csv = await t.team.agents.analyst
       .post(exportUrl())
       .send({ runId: seeded.runId, ...scenario, sweep, format: 'csv' })
       .expect(200);
@@ -308,7 +305,7 @@ describe('POST /shares/export', () => {
     // Every bill coefficient is negative: the share falls as the bill rises.
     for (let i = 1; i < curve.length; i++)
       expect(Number(curve[i].share)).toBeLessThan(Number(curve[i - 1].share));
-    const xlsx = await team.agents.owner
+    const xlsx = await t.team.agents.owner
       .post(exportUrl())
       .send({
         runId: seeded.runId,
@@ -346,7 +343,7 @@ describe('POST /shares/export', () => {
       'sweep.points',
     ],
   ])('when the body adds %o, returns 400 naming %s', async (extra, field) => {
-    const res = await team.agents.analyst
+    const res = await t.team.agents.analyst
       .post(exportUrl())
       .send({ runId: seeded.runId, ...scenario, ...extra })
       .expect(400);
@@ -357,7 +354,7 @@ describe('POST /shares/export', () => {
 
   it('returns 404 to an outsider and 401 without a session', async () => {
     const body = { runId: seeded.runId, ...scenario, format: 'csv' };
-    await team.outsider.post(exportUrl()).send(body).expect(404);
+    await t.team.outsider.post(exportUrl()).send(body).expect(404);
     await t.request().post(exportUrl()).send(body).expect(401);
   });
 });

@@ -5,11 +5,11 @@
  */
 import { describe, expect, it } from 'vitest';
 import { parse } from 'csv-parse/sync';
-import { ownerAppForFile } from '../../support/owner-app';
+import { useTestApp } from '../../support/test-app';
 import type { Questionnaire, QuestionnairePage } from '../../../shared/schemas/questionnaire';
 import { answerFor, fullQuestionnaire, insertStudy } from './respond-fixtures';
 
-const app = ownerAppForFile();
+const t = useTestApp({}, { signIn: 'owner' });
 const TOKEN = 'x-respondent-token';
 type Screen = Parameters<typeof answerFor>[0];
 type Session = { sessionToken: string; screens: Screen[]; given: Record<string, unknown> };
@@ -53,15 +53,13 @@ function withGardenPages(pages = [garden, watering]): Questionnaire {
 }
 
 async function liveSession() {
-  const study = await insertStudy(app.t, app.teamId, { questionnaire: withGardenPages() });
-  await app.owner
-    .post(`/api/teams/${app.teamId}/studies/${study.id}/lifecycle/go-live`)
-    .expect(200);
+  const study = await insertStudy(t, t.teamId, { questionnaire: withGardenPages() });
+  await t.owner.post(`/api/teams/${t.teamId}/studies/${study.id}/lifecycle/go-live`).expect(200);
   const session: Session = (
-    await app.t.request().post(`/api/r/${study.publicId}/sessions`).send({}).expect(201)
+    await t.request().post(`/api/r/${study.publicId}/sessions`).send({}).expect(201)
   ).body;
   const send = (path: 'answers' | 'revisions', body: object) =>
-    app.t
+    t
       .request()
       .post(`/api/r/${study.publicId}/${path}`)
       .set(TOKEN, session.sessionToken)
@@ -102,7 +100,7 @@ describe('skip logic', () => {
       answerFor(screenOf(session, 'q:garden'), { value: { kind: 'single', optionId: 'yes' } }),
     );
     expect(revise.status).toBe(409);
-    const again = await app.t
+    const again = await t
       .request()
       .get(`/api/r/${study.publicId}/session`)
       .set(TOKEN, session.sessionToken)
@@ -122,18 +120,16 @@ describe('skip logic', () => {
   });
 
   it('exports a skipped page apart from an unanswered one, with a flag beside the answer', async () => {
-    const study = await insertStudy(app.t, app.teamId, { questionnaire: withGardenPages() });
-    await app.owner
-      .post(`/api/teams/${app.teamId}/studies/${study.id}/lifecycle/go-live`)
-      .expect(200);
+    const study = await insertStudy(t, t.teamId, { questionnaire: withGardenPages() });
+    await t.owner.post(`/api/teams/${t.teamId}/studies/${study.id}/lifecycle/go-live`).expect(200);
     // Three respondents: no garden (page skipped), a garden (answered 3), and one who stops
     // after screening (never reaches either page).
     const start = async (garden: 'yes' | 'no' | null) => {
       const s: Session = (
-        await app.t.request().post(`/api/r/${study.publicId}/sessions`).send({}).expect(201)
+        await t.request().post(`/api/r/${study.publicId}/sessions`).send({}).expect(201)
       ).body;
       const send = (body: object) =>
-        app.t
+        t
           .request()
           .post(`/api/r/${study.publicId}/answers`)
           .set(TOKEN, s.sessionToken)
@@ -153,9 +149,9 @@ describe('skip logic', () => {
     await start('no');
     await start('yes');
     await start(null);
-    const base = `/api/teams/${app.teamId}/studies/${study.id}/exports`;
+    const base = `/api/teams/${t.teamId}/studies/${study.id}/exports`;
     const csv = async (path: string) => {
-      const text = (await app.owner.get(`${base}/${path}`).expect(200)).text;
+      const text = (await t.owner.get(`${base}/${path}`).expect(200)).text;
       const [head, ...rows] = parse(text) as string[][];
       return rows.map((r) => Object.fromEntries(head.map((h, i) => [h, r[i]])));
     };
@@ -186,10 +182,10 @@ describe('skip logic', () => {
   });
 
   it('refuses a rule that reads a later question, and saves nothing', async () => {
-    const study = await insertStudy(app.t, app.teamId);
-    const url = `/api/teams/${app.teamId}/studies/${study.id}/questionnaire`;
-    const before = (await app.owner.get(url).expect(200)).body;
-    const res = await app.owner
+    const study = await insertStudy(t, t.teamId);
+    const url = `/api/teams/${t.teamId}/studies/${study.id}/questionnaire`;
+    const before = (await t.owner.get(url).expect(200)).body;
+    const res = await t.owner
       .put(url)
       .send({ questionnaire: withGardenPages([watering, garden]) })
       .expect(400);
@@ -197,6 +193,6 @@ describe('skip logic', () => {
       path: 'questionnaire.pages.2.showIf.questionKey',
       message: '"garden" comes after this page: a page can depend only on earlier questions',
     });
-    expect((await app.owner.get(url).expect(200)).body).toEqual(before);
+    expect((await t.owner.get(url).expect(200)).body).toEqual(before);
   });
 });

@@ -8,13 +8,11 @@ import { randomBytes } from 'node:crypto';
 import { parse } from 'csv-parse/sync';
 import { and, count, eq, isNotNull } from 'drizzle-orm';
 import { useTestApp } from '../../support/test-app';
-import { createTeamWithAllRoles } from '../../support/factories';
 import { answers, respondents } from '../../../db/schema/fieldwork';
 import { parseChoiceCsv } from '../../../server/engine/estimation/parse-choice-csv';
 import { N, seedTastesStudy } from './tastes-fixture';
 
-const t = useTestApp();
-let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
+const t = useTestApp({}, { signIn: 'team' });
 let seeded: Awaited<ReturnType<typeof seedTastesStudy>>;
 let base: string;
 const extra: Record<'screenedWithTask' | 'excluded' | 'screenedEarly', string> = {
@@ -26,9 +24,8 @@ const extra: Record<'screenedWithTask' | 'excluded' | 'screenedEarly', string> =
 const token = () => randomBytes(16).toString('hex');
 
 beforeAll(async () => {
-  team = await createTeamWithAllRoles(t);
-  seeded = await seedTastesStudy(t.deps.db, team.teamId);
-  base = `/api/teams/${team.teamId}/studies/${seeded.studyId}/exports`;
+  seeded = await seedTastesStudy(t.deps.db, t.team.teamId);
+  base = `/api/teams/${t.team.teamId}/studies/${seeded.studyId}/exports`;
   const db = t.deps.db;
   const add = async (
     key: keyof typeof extra,
@@ -112,7 +109,7 @@ beforeAll(async () => {
 });
 
 async function csvOf(role: 'analyst' | 'viewer', path: string) {
-  const res = await team.agents[role].get(`${base}/${path}`).expect(200);
+  const res = await t.team.agents[role].get(`${base}/${path}`).expect(200);
   return { res, rows: parse(res.text, { columns: true }) as Record<string, string>[] };
 }
 
@@ -198,7 +195,7 @@ describe('GET /exports/choices.csv (the long choice file)', () => {
   });
 
   it("with a run, is exactly the estimation data: included respondents, the run's columns", async () => {
-    const res = await team.agents.viewer
+    const res = await t.team.agents.viewer
       .get(`${base}/choices.csv`)
       .query({ runId: seeded.runId })
       .expect(200);
@@ -265,7 +262,7 @@ describe('GET /exports/respondents-wide.csv and .R', () => {
   it('comes with an R script whose columns, types and factor levels fit the CSV', async () => {
     const { res, rows } = await csvOf('analyst', 'respondents-wide.csv');
     const header = (parse(res.text) as string[][])[0];
-    const r = await team.agents.analyst.get(`${base}/respondents-wide.R`).expect(200);
+    const r = await t.team.agents.analyst.get(`${base}/respondents-wide.R`).expect(200);
     expect(r.headers['content-disposition']).toMatch(/respondents-wide-\d{4}-\d\d-\d\d\.R"/);
     const script = r.text;
     const columns = scriptColumns(script);
@@ -303,9 +300,9 @@ describe('GET /exports/respondents-wide.csv and .R', () => {
     const header = (parse(res.text) as string[][])[0];
     expect(header).not.toContain('external_id');
     expect(header).not.toContain('q_comments');
-    const script = (await team.agents.viewer.get(`${base}/respondents-wide.R`).expect(200)).text;
+    const script = (await t.team.agents.viewer.get(`${base}/respondents-wide.R`).expect(200)).text;
     expect(scriptColumns(script).map(([name]) => name)).toEqual(header);
-    await team.outsider.get(`${base}/respondents-wide.csv`).expect(404);
+    await t.team.outsider.get(`${base}/respondents-wide.csv`).expect(404);
     await t.request().get(`${base}/respondents-wide.R`).expect(401);
   });
 });

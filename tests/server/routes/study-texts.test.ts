@@ -1,18 +1,13 @@
-import { beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { useTestApp } from '../../support/test-app';
-import { createTeamWithAllRoles } from '../../support/factories';
 import { studies, studyVersions } from '../../../db/schema/studies';
 import { insertStudy } from './respond-fixtures';
 
-const t = useTestApp();
-let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
-beforeAll(async () => {
-  team = await createTeamWithAllRoles(t);
-});
+const t = useTestApp({}, { signIn: 'team' });
 
 const url = (studyId: string, path = '') =>
-  `/api/teams/${team.teamId}/studies/${studyId}/texts${path}`;
+  `/api/teams/${t.team.teamId}/studies/${studyId}/texts${path}`;
 type TextRow = { key: string; source: string };
 
 const storedRow = async (id: string) =>
@@ -20,19 +15,19 @@ const storedRow = async (id: string) =>
 
 /** Every text of the study in German (made up: the source text with a prefix). */
 async function germanFor(studyId: string): Promise<Record<string, string>> {
-  const res = await team.agents.editor.get(url(studyId)).expect(200);
+  const res = await t.team.agents.editor.get(url(studyId)).expect(200);
   return Object.fromEntries(res.body.texts.map((r: TextRow) => [r.key, `DE ${r.source}`]));
 }
 
 describe('GET /texts', () => {
   it('lists every respondent-visible text under keys made of ids, for every role of the team', async () => {
-    const s = await insertStudy(t, team.teamId);
+    const s = await insertStudy(t, t.team.teamId);
     for (const role of ['owner', 'editor', 'analyst', 'viewer'] as const) {
-      const res = await team.agents[role].get(url(s.id)).expect(200);
+      const res = await t.team.agents[role].get(url(s.id)).expect(200);
       expect(res.body.languages).toEqual(['en']);
       expect(res.body.missing).toEqual({ en: 0 });
     }
-    const res = await team.agents.viewer.get(url(s.id)).expect(200);
+    const res = await t.team.agents.viewer.get(url(s.id)).expect(200);
     const byKey = new Map(res.body.texts.map((r: TextRow) => [r.key, r.source]));
     expect(byKey.get('study.title')).toBe('Water services 2026');
     expect(byKey.get('page.adult.question')).toBe('Are you 18 or older?');
@@ -45,21 +40,21 @@ describe('GET /texts', () => {
   });
 
   it('for another team, returns 404', async () => {
-    const s = await insertStudy(t, team.teamId);
-    await team.outsider.get(url(s.id)).expect(404);
+    const s = await insertStudy(t, t.team.teamId);
+    await t.team.outsider.get(url(s.id)).expect(404);
   });
 });
 
 describe('PUT /texts/languages', () => {
   it('adds a language (canonical tag) for owners and editors; it lacks every text until translated', async () => {
-    const s = await insertStudy(t, team.teamId);
-    const res = await team.agents.editor
+    const s = await insertStudy(t, t.team.teamId);
+    const res = await t.team.agents.editor
       .put(url(s.id, '/languages'))
       .send({ languages: ['en', 'pt-br'] })
       .expect(200);
     expect(res.body.languages).toEqual(['en', 'pt-BR']);
     expect(res.body.missing['pt-BR']).toBe(res.body.texts.length);
-    await team.agents.owner
+    await t.team.agents.owner
       .put(url(s.id, '/languages'))
       .send({ languages: ['en', 'de'] })
       .expect(200);
@@ -67,13 +62,13 @@ describe('PUT /texts/languages', () => {
   });
 
   it('refuses analysts and viewers (403) and other teams (404), changing nothing', async () => {
-    const s = await insertStudy(t, team.teamId);
+    const s = await insertStudy(t, t.team.teamId);
     for (const role of ['analyst', 'viewer'] as const)
-      await team.agents[role]
+      await t.team.agents[role]
         .put(url(s.id, '/languages'))
         .send({ languages: ['en', 'de'] })
         .expect(403);
-    await team.outsider
+    await t.team.outsider
       .put(url(s.id, '/languages'))
       .send({ languages: ['en', 'de'] })
       .expect(404);
@@ -81,9 +76,9 @@ describe('PUT /texts/languages', () => {
   });
 
   it('when a tag is not a known language, returns 400 with the field', async () => {
-    const s = await insertStudy(t, team.teamId);
+    const s = await insertStudy(t, t.team.teamId);
     for (const bad of ['xx', 'en_US', 'x-private', '']) {
-      const res = await team.agents.editor
+      const res = await t.team.agents.editor
         .put(url(s.id, '/languages'))
         .send({ languages: ['en', bad] })
         .expect(400);
@@ -95,15 +90,15 @@ describe('PUT /texts/languages', () => {
   });
 
   it('when a language is listed twice (after canonical casing) or none is given, returns 400', async () => {
-    const s = await insertStudy(t, team.teamId);
-    const twice = await team.agents.editor
+    const s = await insertStudy(t, t.team.teamId);
+    const twice = await t.team.agents.editor
       .put(url(s.id, '/languages'))
       .send({ languages: ['en', 'de', 'DE'] })
       .expect(400);
     expect(twice.body.error.fields).toEqual([
       { path: 'languages.2', message: 'de is listed twice' },
     ]);
-    const none = await team.agents.editor
+    const none = await t.team.agents.editor
       .put(url(s.id, '/languages'))
       .send({ languages: [] })
       .expect(400);
@@ -114,19 +109,19 @@ describe('PUT /texts/languages', () => {
   });
 
   it('renames the source language, but refuses to swap it with a translation', async () => {
-    const s = await insertStudy(t, team.teamId);
-    await team.agents.editor
+    const s = await insertStudy(t, t.team.teamId);
+    await t.team.agents.editor
       .put(url(s.id, '/languages'))
       .send({ languages: ['en', 'de'] })
       .expect(200);
-    await team.agents.editor.put(url(s.id, '/de')).send({ texts: { 'ui.next': 'Weiter' } });
-    const res = await team.agents.editor
+    await t.team.agents.editor.put(url(s.id, '/de')).send({ texts: { 'ui.next': 'Weiter' } });
+    const res = await t.team.agents.editor
       .put(url(s.id, '/languages'))
       .send({ languages: ['de', 'en'] })
       .expect(400);
     expect(res.body.error.fields[0].path).toBe('languages.0');
     expect((await storedRow(s.id)).languages).toEqual(['en', 'de']);
-    await team.agents.editor
+    await t.team.agents.editor
       .put(url(s.id, '/languages'))
       .send({ languages: ['en-GB', 'de'] })
       .expect(200);
@@ -136,9 +131,9 @@ describe('PUT /texts/languages', () => {
   });
 
   it('when the study is live, returns 409 study_frozen', async () => {
-    const s = await insertStudy(t, team.teamId);
+    const s = await insertStudy(t, t.team.teamId);
     await t.deps.db.update(studies).set({ status: 'live' }).where(eq(studies.id, s.id));
-    const res = await team.agents.editor
+    const res = await t.team.agents.editor
       .put(url(s.id, '/languages'))
       .send({ languages: ['en', 'de'] })
       .expect(409);
@@ -148,12 +143,12 @@ describe('PUT /texts/languages', () => {
 
 describe('PUT /texts/:lang', () => {
   it('saves texts of one language; an empty text removes one', async () => {
-    const s = await insertStudy(t, team.teamId);
-    const added = await team.agents.editor
+    const s = await insertStudy(t, t.team.teamId);
+    const added = await t.team.agents.editor
       .put(url(s.id, '/languages'))
       .send({ languages: ['en', 'de'] })
       .expect(200);
-    const res = await team.agents.editor
+    const res = await t.team.agents.editor
       .put(url(s.id, '/de'))
       .send({ texts: { 'study.title': 'Wasserdienste 2026', 'page.adult.option.no': 'Nein' } })
       .expect(200);
@@ -162,7 +157,7 @@ describe('PUT /texts/:lang', () => {
       'page.adult.option.no': 'Nein',
     });
     expect(res.body.missing.de).toBe(added.body.missing.de - 2);
-    const cleared = await team.agents.owner
+    const cleared = await t.team.agents.owner
       .put(url(s.id, '/de'))
       .send({ texts: { 'page.adult.option.no': '  ' } })
       .expect(200);
@@ -170,9 +165,9 @@ describe('PUT /texts/:lang', () => {
   });
 
   it('when a key is not a text of the study, returns 400 naming it and saves nothing', async () => {
-    const s = await insertStudy(t, team.teamId);
-    await team.agents.editor.put(url(s.id, '/languages')).send({ languages: ['en', 'de'] });
-    const res = await team.agents.editor
+    const s = await insertStudy(t, t.team.teamId);
+    await t.team.agents.editor.put(url(s.id, '/languages')).send({ languages: ['en', 'de'] });
+    const res = await t.team.agents.editor
       .put(url(s.id, '/de'))
       .send({ texts: { 'study.title': 'Titel', 'page.nope.title': 'Falsch' } })
       .expect(400);
@@ -184,13 +179,13 @@ describe('PUT /texts/:lang', () => {
   });
 
   it('when the language is not one of the study’s, or not a tag, returns 400 with the field lang', async () => {
-    const s = await insertStudy(t, team.teamId);
-    const other = await team.agents.editor
+    const s = await insertStudy(t, t.team.teamId);
+    const other = await t.team.agents.editor
       .put(url(s.id, '/fr'))
       .send({ texts: { 'study.title': 'Titre' } })
       .expect(400);
     expect(other.body.error.fields[0].path).toBe('lang');
-    const bad = await team.agents.editor
+    const bad = await t.team.agents.editor
       .put(url(s.id, '/zz-not'))
       .send({ texts: { 'study.title': 'Titre' } })
       .expect(400);
@@ -198,29 +193,29 @@ describe('PUT /texts/:lang', () => {
   });
 
   it('in the source language, takes only the app’s own words', async () => {
-    const s = await insertStudy(t, team.teamId);
-    const res = await team.agents.editor
+    const s = await insertStudy(t, t.team.teamId);
+    const res = await t.team.agents.editor
       .put(url(s.id, '/en'))
       .send({ texts: { 'study.title': 'Other title' } })
       .expect(400);
     expect(res.body.error.fields[0].message).toMatch(
       /source language on Attributes or Questionnaire/,
     );
-    await team.agents.editor
+    await t.team.agents.editor
       .put(url(s.id, '/en'))
       .send({ texts: { 'ui.next': 'Go on' } })
       .expect(200);
   });
 
   it('refuses analysts and viewers (403) and other teams (404)', async () => {
-    const s = await insertStudy(t, team.teamId);
-    await team.agents.editor.put(url(s.id, '/languages')).send({ languages: ['en', 'de'] });
+    const s = await insertStudy(t, t.team.teamId);
+    await t.team.agents.editor.put(url(s.id, '/languages')).send({ languages: ['en', 'de'] });
     for (const role of ['analyst', 'viewer'] as const)
-      await team.agents[role]
+      await t.team.agents[role]
         .put(url(s.id, '/de'))
         .send({ texts: { 'study.title': 'X' } })
         .expect(403);
-    await team.outsider
+    await t.team.outsider
       .put(url(s.id, '/de'))
       .send({ texts: { 'study.title': 'X' } })
       .expect(404);
@@ -230,15 +225,15 @@ describe('PUT /texts/:lang', () => {
 
 describe('going live with several languages', () => {
   const lifecycle = (studyId: string, path: string) =>
-    `/api/teams/${team.teamId}/studies/${studyId}/lifecycle${path}`;
+    `/api/teams/${t.team.teamId}/studies/${studyId}/lifecycle${path}`;
 
   it('is refused while a language lacks texts, listing them; with every text it freezes them', async () => {
-    const s = await insertStudy(t, team.teamId);
-    await team.agents.editor.put(url(s.id, '/languages')).send({ languages: ['en', 'de'] });
+    const s = await insertStudy(t, t.team.teamId);
+    await t.team.agents.editor.put(url(s.id, '/languages')).send({ languages: ['en', 'de'] });
     const german = await germanFor(s.id);
     const { 'page.adult.option.no': _left, ...allButOne } = german;
-    await team.agents.editor.put(url(s.id, '/de')).send({ texts: allButOne }).expect(200);
-    const refused = await team.agents.editor.post(lifecycle(s.id, '/go-live')).expect(422);
+    await t.team.agents.editor.put(url(s.id, '/de')).send({ texts: allButOne }).expect(200);
+    const refused = await t.team.agents.editor.post(lifecycle(s.id, '/go-live')).expect(422);
     expect(refused.body.error.code).toBe('not_ready');
     expect(refused.body.error.fields).toEqual([
       {
@@ -248,11 +243,11 @@ describe('going live with several languages', () => {
     ]);
     expect((await storedRow(s.id)).status).toBe('draft');
 
-    await team.agents.editor
+    await t.team.agents.editor
       .put(url(s.id, '/de'))
       .send({ texts: { 'page.adult.option.no': 'Nein' } })
       .expect(200);
-    await team.agents.editor.post(lifecycle(s.id, '/go-live')).expect(200);
+    await t.team.agents.editor.post(lifecycle(s.id, '/go-live')).expect(200);
     const [version] = await t.deps.db
       .select()
       .from(studyVersions)
@@ -262,9 +257,9 @@ describe('going live with several languages', () => {
   });
 
   it('summarises a language that lacks many texts in one problem', async () => {
-    const s = await insertStudy(t, team.teamId);
-    await team.agents.editor.put(url(s.id, '/languages')).send({ languages: ['en', 'ar'] });
-    const res = await team.agents.editor.get(lifecycle(s.id, '/readiness')).expect(200);
+    const s = await insertStudy(t, t.team.teamId);
+    await t.team.agents.editor.put(url(s.id, '/languages')).send({ languages: ['en', 'ar'] });
+    const res = await t.team.agents.editor.get(lifecycle(s.id, '/readiness')).expect(200);
     const texts = res.body.problems.filter(
       (p: { code: string }) => p.code === 'missing_translation',
     );

@@ -1,7 +1,6 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import type supertest from 'supertest';
 import { useTestApp } from '../../support/test-app';
-import { createTeamWithAllRoles } from '../../support/factories';
 import type { Role } from '../../../shared/permissions';
 import { eq } from 'drizzle-orm';
 import { runs } from '../../../db/schema/models';
@@ -16,18 +15,16 @@ import {
   spec,
 } from './tastes-fixture';
 
-const t = useTestApp();
-let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
+const t = useTestApp({}, { signIn: 'team' });
 let seeded: Awaited<ReturnType<typeof seedTastesStudy>>;
 let base: string;
 
 beforeAll(async () => {
-  team = await createTeamWithAllRoles(t);
-  seeded = await seedTastesStudy(t.deps.db, team.teamId);
-  base = `/api/teams/${team.teamId}/studies/${seeded.studyId}/tastes`;
+  seeded = await seedTastesStudy(t.deps.db, t.team.teamId);
+  base = `/api/teams/${t.team.teamId}/studies/${seeded.studyId}/tastes`;
 });
 
-const as = (role: Role): supertest.Agent => team.agents[role];
+const as = (role: Role): supertest.Agent => t.team.agents[role];
 
 describe('GET /tastes/runs', () => {
   it('lists finished runs with their profile counts for every role', async () => {
@@ -40,7 +37,7 @@ describe('GET /tastes/runs', () => {
   });
 
   it('returns 404 to an outsider and 401 without a session', async () => {
-    await team.outsider.get(`${base}/runs`).expect(404);
+    await t.team.outsider.get(`${base}/runs`).expect(404);
     await t.request().get(`${base}/runs`).expect(401);
   });
 
@@ -49,7 +46,7 @@ describe('GET /tastes/runs', () => {
       .insert(runs)
       .values({
         studyId: seeded.studyId,
-        teamId: team.teamId,
+        teamId: t.team.teamId,
         name: 'No cost coefficient',
         model: 'mnl',
         spec: { ...spec, model: 'mnl', cost: null },
@@ -68,7 +65,7 @@ describe('GET /tastes/runs', () => {
       'This run has no cost coefficient, so it gives no WTP.',
     );
     // The download refuses with the same reason.
-    const exportsBase = `/api/teams/${team.teamId}/studies/${seeded.studyId}/exports`;
+    const exportsBase = `/api/teams/${t.team.teamId}/studies/${seeded.studyId}/exports`;
     const refused = await as('viewer')
       .get(`${exportsBase}/estimates.csv?runId=${noCost.id}&table=wtp`)
       .expect(409);
@@ -122,7 +119,7 @@ describe('GET /tastes (profile table)', () => {
   });
 
   it('returns 404 to an outsider and 401 without a session', async () => {
-    await team.outsider.get(base).query({ runId: seeded.runId }).expect(404);
+    await t.team.outsider.get(base).query({ runId: seeded.runId }).expect(404);
     await t.request().get(base).query({ runId: seeded.runId }).expect(401);
   });
 
@@ -285,7 +282,7 @@ describe('GET /tastes/segments', () => {
   });
 
   it('returns 404 to an outsider', async () => {
-    await team.outsider
+    await t.team.outsider
       .get(`${base}/segments`)
       .query({ runId: seeded.runId, coefficient: 'bill', groupBy: 'task', task: 1 })
       .expect(404);
@@ -317,7 +314,7 @@ describe('GET /tastes/runs/:runId/respondents/:respondentId', () => {
     await as('viewer')
       .get(`${base}/runs/${seeded.runId}/respondents/${crypto.randomUUID()}`)
       .expect(404);
-    await team.outsider
+    await t.team.outsider
       .get(`${base}/runs/${seeded.runId}/respondents/${seeded.respondentIds[0]}`)
       .expect(404);
   });

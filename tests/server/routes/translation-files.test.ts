@@ -1,24 +1,20 @@
-import { beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { useTestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { studies } from '../../../db/schema/studies';
 import { insertStudy } from './respond-fixtures';
 
-const t = useTestApp();
-let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
-beforeAll(async () => {
-  team = await createTeamWithAllRoles(t);
-});
+const t = useTestApp({}, { signIn: 'team' });
 
 const url = (studyId: string, path = '') =>
-  `/api/teams/${team.teamId}/studies/${studyId}/texts${path}`;
+  `/api/teams/${t.team.teamId}/studies/${studyId}/texts${path}`;
 const translations = async (id: string) =>
   (await t.deps.db.select().from(studies).where(eq(studies.id, id)))[0].translations;
 
 async function studyInGerman() {
-  const s = await insertStudy(t, team.teamId);
-  await team.agents.editor
+  const s = await insertStudy(t, t.team.teamId);
+  await t.team.agents.editor
     .put(url(s.id, '/languages'))
     .send({ languages: ['en', 'de'] })
     .expect(200);
@@ -27,10 +23,10 @@ async function studyInGerman() {
 
 /** Imports a file as one of the team's agents. */
 const importFile = (
-  role: keyof typeof team.agents,
+  role: keyof typeof t.team.agents,
   studyId: string,
   body: { format: string; content: string },
-) => team.agents[role].post(url(studyId, '/de/file')).send(body);
+) => t.team.agents[role].post(url(studyId, '/de/file')).send(body);
 
 /** Fills every empty <target> of an exported file, except the units listed. */
 function translateXliff(xml: string, skip: string[] = []): string {
@@ -51,25 +47,25 @@ describe('GET /texts/:lang/file', () => {
   it('exports XLIFF 2.0 with the study as <file id> and every text as a unit, for every role', async () => {
     const s = await studyInGerman();
     for (const role of ['owner', 'editor', 'analyst', 'viewer'] as const) {
-      const res = await team.agents[role].get(url(s.id, '/de/file')).expect(200);
+      const res = await t.team.agents[role].get(url(s.id, '/de/file')).expect(200);
       expect(res.headers['content-type']).toMatch(/application\/xliff\+xml/);
       expect(res.text).toContain('version="2.0" srcLang="en" trgLang="de"');
       expect(res.text).toContain(`<file id="${s.id}">`);
       expect(res.text).toContain('<unit id="study.title">');
     }
-    await team.outsider.get(url(s.id, '/de/file')).expect(404);
+    await t.team.outsider.get(url(s.id, '/de/file')).expect(404);
   });
 
   it('exports CSV with key, where, source and target columns', async () => {
     const s = await studyInGerman();
-    const res = await team.agents.viewer.get(url(s.id, '/de/file?format=csv')).expect(200);
+    const res = await t.team.agents.viewer.get(url(s.id, '/de/file?format=csv')).expect(200);
     expect(res.text.split(/\r?\n/)[0]).toBe('key,where,en,de');
   });
 
   it('for the source language or a language the study lacks, returns 400 on lang', async () => {
     const s = await studyInGerman();
     for (const lang of ['en', 'fr']) {
-      const res = await team.agents.viewer.get(url(s.id, `/${lang}/file`)).expect(400);
+      const res = await t.team.agents.viewer.get(url(s.id, `/${lang}/file`)).expect(400);
       expect(res.body.error.fields[0].path).toBe('lang');
     }
   });
@@ -78,8 +74,8 @@ describe('GET /texts/:lang/file', () => {
 describe('POST /texts/:lang/file', () => {
   it('imports a translated XLIFF file and reports the texts still missing', async () => {
     const s = await studyInGerman();
-    const exported = (await team.agents.editor.get(url(s.id, '/de/file')).expect(200)).text;
-    const res = await team.agents.editor
+    const exported = (await t.team.agents.editor.get(url(s.id, '/de/file')).expect(200)).text;
+    const res = await t.team.agents.editor
       .post(url(s.id, '/de/file'))
       .send({ format: 'xliff', content: translateXliff(exported, ['ui.next']) })
       .expect(200);
@@ -92,12 +88,12 @@ describe('POST /texts/:lang/file', () => {
 
   it('reports keys the study does not have, and takes the rest', async () => {
     const s = await studyInGerman();
-    const exported = (await team.agents.editor.get(url(s.id, '/de/file')).expect(200)).text;
+    const exported = (await t.team.agents.editor.get(url(s.id, '/de/file')).expect(200)).text;
     const withExtra = translateXliff(exported).replace(
       '</file>',
       '<unit id="page.gone.title"><segment><source>Old</source><target>Alt</target></segment></unit></file>',
     );
-    const res = await team.agents.editor
+    const res = await t.team.agents.editor
       .post(url(s.id, '/de/file'))
       .send({ format: 'xliff', content: withExtra })
       .expect(200);
@@ -119,9 +115,9 @@ describe('POST /texts/:lang/file', () => {
     const s = await studyInGerman();
     const other = await studyInGerman();
     const foreign = translateXliff(
-      (await team.agents.editor.get(url(other.id, '/de/file')).expect(200)).text,
+      (await t.team.agents.editor.get(url(other.id, '/de/file')).expect(200)).text,
     );
-    const wrongStudy = await team.agents.editor
+    const wrongStudy = await t.team.agents.editor
       .post(url(s.id, '/de/file'))
       .send({ format: 'xliff', content: foreign })
       .expect(400);
@@ -129,10 +125,10 @@ describe('POST /texts/:lang/file', () => {
     expect(wrongStudy.body.error.fields[0].path).toBe('file');
 
     const own = translateXliff(
-      (await team.agents.editor.get(url(s.id, '/de/file')).expect(200)).text,
+      (await t.team.agents.editor.get(url(s.id, '/de/file')).expect(200)).text,
     );
     const french = own.replace('trgLang="de"', 'trgLang="fr"');
-    const wrongLanguage = await team.agents.editor
+    const wrongLanguage = await t.team.agents.editor
       .post(url(s.id, '/de/file'))
       .send({ format: 'xliff', content: french })
       .expect(400);
@@ -142,7 +138,7 @@ describe('POST /texts/:lang/file', () => {
       '<?xml version="1.0" encoding="UTF-8"?>',
       '<?xml version="1.0"?><!DOCTYPE x [<!ENTITY e SYSTEM "file:///etc/passwd">]>',
     );
-    const doctype = await team.agents.editor
+    const doctype = await t.team.agents.editor
       .post(url(s.id, '/de/file'))
       .send({ format: 'xliff', content: xxe })
       .expect(400);
@@ -150,7 +146,7 @@ describe('POST /texts/:lang/file', () => {
       path: 'file',
       message: expect.stringMatching(/DOCTYPE/),
     });
-    const csvWrong = await team.agents.editor
+    const csvWrong = await t.team.agents.editor
       .post(url(s.id, '/de/file'))
       .send({ format: 'csv', content: 'key,where,en,fr\nstudy.title,x,y,z\n' })
       .expect(400);
@@ -170,15 +166,15 @@ describe('POST /texts/:lang/file', () => {
     const s = await studyInGerman();
     const body = { format: 'csv', content: 'key,where,en,de\nstudy.title,x,y,z\n' };
     for (const role of ['analyst', 'viewer'] as const)
-      await team.agents[role].post(url(s.id, '/de/file')).send(body).expect(403);
-    await team.outsider.post(url(s.id, '/de/file')).send(body).expect(404);
+      await t.team.agents[role].post(url(s.id, '/de/file')).send(body).expect(403);
+    await t.team.outsider.post(url(s.id, '/de/file')).send(body).expect(404);
     expect(await translations(s.id)).toEqual({});
   });
 });
 
 describe('POST /texts/:lang/file with bad input', () => {
   const post = (studyId: string, body: unknown, lang = 'de') =>
-    team.agents.editor.post(url(studyId, `/${lang}/file`)).send(body as object);
+    t.team.agents.editor.post(url(studyId, `/${lang}/file`)).send(body as object);
 
   it('returns 400 with the field for a missing or unknown format, empty or oversized content', async () => {
     const s = await studyInGerman();
@@ -198,7 +194,7 @@ describe('POST /texts/:lang/file with bad input', () => {
 
   it('refuses what is not XLIFF, malformed XML, a file with no texts and a CSV of other columns, naming the line', async () => {
     const s = await studyInGerman();
-    const own = (await team.agents.editor.get(url(s.id, '/de/file')).expect(200)).text;
+    const own = (await t.team.agents.editor.get(url(s.id, '/de/file')).expect(200)).text;
     const cases: Array<[string, string, RegExp]> = [
       ['xliff', 'key,where,en,de\nstudy.title,x,y,z\n', /well-formed|not XLIFF/],
       ['xliff', translateXliff(own).replace('</segment>', ''), /^Line \d+: Not well-formed/],

@@ -6,12 +6,11 @@
  * which it leaves to the full path: a retry, an answer out of order, a closed or closing
  * study, a completion under a quota, an ended session, a respondent this process does not know.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { and, eq, sql } from 'drizzle-orm';
 import { createDb, type DbOrTx } from '../../../db/client';
 import { assignBlock } from '../../../db/queries/respondent-blocks';
-import { createTestApp, type TestApp } from '../../support/test-app';
-import { signUpOwner } from '../../support/factories';
+import { useTestApp } from '../../support/test-app';
 import { answers, respondentBlockCounts, respondents } from '../../../db/schema/fieldwork';
 import { saveAnswer, type AnswerInput } from '../../../server/services/answers';
 import { saveAnswerFast } from '../../../server/services/answer-fast-path';
@@ -21,19 +20,11 @@ import { closeStudy, goLive } from '../../../server/services/lifecycle';
 import { getStudyById } from '../../../db/queries/studies';
 import { answerFor, insertStudy } from '../routes/respond-fixtures';
 
-let t: TestApp;
-let teamId: string;
-beforeAll(async () => {
-  t = await createTestApp();
-  ({ teamId } = await signUpOwner(t));
-});
-afterAll(async () => {
-  await t.close();
-});
+const t = useTestApp({}, { signIn: 'owner' });
 
 async function liveStudyWithLink(settings: object = {}) {
-  const study = await insertStudy(t, teamId, { settings });
-  await goLive(t.deps, teamId, study.id);
+  const study = await insertStudy(t, t.teamId, { settings });
+  await goLive(t.deps, t.teamId, study.id);
   return study;
 }
 const liveStudy = async (settings: object = {}) => (await liveStudyWithLink(settings)).id;
@@ -159,7 +150,7 @@ describe('quota of completes', () => {
       .from(respondents)
       .where(and(eq(respondents.studyId, studyId), eq(respondents.status, 'completed')));
     expect(completed).toHaveLength(5);
-    const study = await getStudyById(t.deps.db, { id: studyId, teamId });
+    const study = await getStudyById(t.deps.db, { id: studyId, teamId: t.teamId });
     expect(study?.status).toBe('closed');
     expect((study?.settings as { closedReason: string }).closedReason).toBe('quota');
   });
@@ -267,7 +258,7 @@ describe('saveAnswerFast', () => {
 
   it('writes nothing once the study is closed, or its closing date has passed', async () => {
     const closed = await liveRespondent();
-    await closeStudy(t.deps, teamId, closed.study.id);
+    await closeStudy(t.deps, t.teamId, closed.study.id);
     expect(await closed.fast(answerOf(closed.screens[0]))).toBeNull();
 
     const closeAt = new Date(Date.now() + 60_000);

@@ -1,23 +1,17 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { createTestApp, type TestApp } from '../../support/test-app';
-import { signUpOwner } from '../../support/factories';
+import { useTestApp } from '../../support/test-app';
 import { answers } from '../../../db/schema/fieldwork';
 import { saveAnswer } from '../../../server/services/answers';
 import { buildSession, createRespondent } from '../../../server/services/respondent-session';
 import { goLive } from '../../../server/services/lifecycle';
 import { answerFor, insertStudy } from '../routes/respond-fixtures';
 
-let t: TestApp;
+const t = useTestApp({}, { signIn: 'owner' });
 let studyId: string;
 beforeAll(async () => {
-  t = await createTestApp();
-  const { teamId } = await signUpOwner(t);
-  studyId = (await insertStudy(t, teamId)).id;
-  await goLive(t.deps, teamId, studyId);
-});
-afterAll(async () => {
-  await t.close();
+  studyId = (await insertStudy(t, t.teamId)).id;
+  await goLive(t.deps, t.teamId, studyId);
 });
 
 async function newRespondent() {

@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { createHash } from 'node:crypto';
 import {
   codeStudyAnswers,
@@ -15,14 +15,9 @@ import { eq } from 'drizzle-orm';
 import { respondents } from '../../../db/schema/fieldwork';
 import { parseChoiceCsv } from '../../../server/engine/estimation/parse-choice-csv';
 import { makeStudyDefinition } from '../../../scripts/lib/study-factory/definition';
-import { createTestApp, type TestApp } from '../../support/test-app';
+import { useTestApp } from '../../support/test-app';
 import { createBareTeam } from '../../support/factories';
-import {
-  ignoreTeardownErrors,
-  seedRunStudy,
-  seedTapFilter,
-  type SeededStudy,
-} from '../jobs/run-fixtures';
+import { seedRunStudy, seedTapFilter, type SeededStudy } from '../jobs/run-fixtures';
 
 const definition = makeStudyDefinition();
 const packageA = { bill: 'b6', interrupt: 'i2', warn: 'w0', river: 'good', renew: 'r80' };
@@ -266,16 +261,11 @@ describe('toLongCsvRows', () => {
 });
 
 describe('loadStudyChoiceData', () => {
-  let t: TestApp;
+  const t = useTestApp();
   let seeded: SeededStudy;
   beforeAll(async () => {
-    t = await createTestApp();
-    ignoreTeardownErrors(t.deps.db);
     const team = await createBareTeam(t);
     seeded = await seedRunStudy(t.deps.db, { teamId: team.id, respondents: 10 });
-  });
-  afterAll(async () => {
-    await t.close();
   });
 
   it('uses only included, completed respondents, in respondent-number order', async () => {

@@ -5,16 +5,14 @@
  * that died mid-send leaves a row that is failed as "may have been delivered", never sent
  * twice; the retry job is enqueued in the same transaction as the row's state.
  */
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { useTestApp } from '../../support/test-app';
-import { createTeamWithAllRoles, uniqueEmail } from '../../support/factories';
+import { uniqueEmail } from '../../support/factories';
 import { insertStudy } from '../routes/fieldwork-fixtures';
 import { invitees } from '../../../db/schema/fieldwork';
 import { mailOutbox } from '../../../db/schema/mail';
 import type { Mailer, OutgoingMail } from '../../../server/mail/mailer';
-import { startJobQueue, type JobQueue } from '../../../server/jobs/queue';
-import { createJobKinds } from '../../../server/jobs/background';
 import { createMailJobKind, INTERRUPTED_SEND_MS } from '../../../server/jobs/mail-job';
 import {
   deliverOutboxMail,
@@ -23,9 +21,8 @@ import {
   retryDelaySeconds,
 } from '../../../server/services/mail-delivery';
 
-const t = useTestApp();
-let queue: JobQueue;
-let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
+// Sends only: the tests run the job's handler themselves, so every attempt is theirs.
+const t = useTestApp({}, { signIn: 'team', jobQueue: { work: false } });
 const delivered: OutgoingMail[] = [];
 let failure: Error | null = null;
 
@@ -44,15 +41,8 @@ const refused = () =>
     response: '550 5.1.1 Mailbox unavailable',
   });
 
-beforeAll(async () => {
+beforeAll(() => {
   t.deps.mailer = flakyMailer;
-  team = await createTeamWithAllRoles(t);
-  // Sends only: the tests run the job's handler themselves, so every attempt is theirs.
-  queue = await startJobQueue(t.deps, { kinds: createJobKinds(), work: false });
-  t.deps.jobs = queue;
-}, 60_000);
-afterAll(async () => {
-  await queue?.stop();
 });
 beforeEach(() => {
   delivered.length = 0;
@@ -60,15 +50,15 @@ beforeEach(() => {
 });
 
 async function studyWithInvitee() {
-  const study = await insertStudy(t.deps.db, { teamId: team.teamId });
+  const study = await insertStudy(t.deps.db, { teamId: t.team.teamId });
   const email = uniqueEmail('inv');
   const [inv] = await t.deps.db
     .insert(invitees)
     .values({ studyId: study.studyId, email, token: `tok-${email}` })
     .returning({ id: invitees.id });
   const invite = () =>
-    team.agents.editor
-      .post(`/api/teams/${team.teamId}/studies/${study.studyId}/invitees/send`)
+    t.team.agents.editor
+      .post(`/api/teams/${t.team.teamId}/studies/${study.studyId}/invitees/send`)
       .send({})
       .expect(200);
   const row = async () => {
@@ -77,8 +67,8 @@ async function studyWithInvitee() {
   };
   const listed = async () =>
     (
-      await team.agents.editor
-        .get(`/api/teams/${team.teamId}/studies/${study.studyId}/invitees`)
+      await t.team.agents.editor
+        .get(`/api/teams/${t.team.teamId}/studies/${study.studyId}/invitees`)
         .expect(200)
     ).body.items[0];
   return { study, email, inviteeId: inv.id, invite, row, listed };
@@ -110,7 +100,7 @@ describe('invitations through the mail outbox', () => {
       reason: 'The mail server could not be reached (ESOCKET)',
     });
     // Its job was enqueued with the row, in the same transaction.
-    expect((await queue.pendingIds(MAIL_JOB, 'outboxId')).has(queued.id)).toBe(true);
+    expect((await t.queue.pendingIds(MAIL_JOB, 'outboxId')).has(queued.id)).toBe(true);
 
     // Still down when the job runs: queued again, with the next job scheduled.
     const handle = createMailJobKind().handle;
@@ -162,7 +152,7 @@ describe('invitations through the mail outbox', () => {
       .set({ status: 'sending', sendingAt: new Date(Date.now() - INTERRUPTED_SEND_MS - 60_000) })
       .where(eq(mailOutbox.id, id));
     failure = null;
-    await createMailJobKind().sweep!(t.deps, queue);
+    await createMailJobKind().sweep!(t.deps, t.queue);
     expect(await s.row()).toMatchObject({ status: 'failed' });
     expect((await s.row()).lastError).toMatch(/may have been delivered/);
     expect(await deliverOutboxMail(t.deps, id, { scheduleRetry: true })).toBe('skipped');

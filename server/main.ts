@@ -12,7 +12,7 @@ import { createProcessDb } from './lib/database';
 import { installProcessGuards } from './lib/process-guards';
 import { stopOnSignals } from './lib/stop-on-signals';
 import { reportEventLoopDelay, relayEventLoopDelay } from './lib/event-loop-delay';
-import { createHttpServer, listenHttp } from './lib/http-listen';
+import { closeHttp, createHttpServer, listenHttp } from './lib/http-listen';
 import { retryWhileDatabaseUnavailable } from './lib/db-retry';
 import { migrateDb, type Db } from '../db/client';
 import { createMailer } from './mail/mailer';
@@ -66,7 +66,7 @@ async function main() {
   logger.info({ pid: process.pid }, `Choicewright listening on ${env.APP_URL}`);
   stopOnSignals(logger, 'shutting down', [
     stopDelay,
-    () => void server.close(),
+    () => closeHttp(server),
     stopBackground,
     () => mailer.close(),
     () => pool.end(),

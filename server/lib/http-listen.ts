@@ -44,3 +44,27 @@ export function listenHttp(
     });
   });
 }
+
+/** How long a stopping web process lets requests in flight finish before it cuts them off. */
+export const SHUTDOWN_GRACE_MS = 10_000;
+
+/**
+ * Stops taking connections, closes idle ones, and resolves once the requests in flight have
+ * been answered (or after `graceMs`, when what is left is cut off). The shutdown ends the
+ * database pool only after this: ending it first answered requests in flight with 500, and an
+ * answer the server had started to store could come back as an error to the phone.
+ */
+export function closeHttp(server: http.Server, graceMs = SHUTDOWN_GRACE_MS): Promise<void> {
+  return new Promise((resolve) => {
+    const cutOff = setTimeout(() => server.closeAllConnections(), graceMs);
+    // A keep-alive connection whose request is answered after close() stays open until the
+    // client drops it (Node 20 closes only the connections idle at the call), so look again.
+    const sweep = setInterval(() => server.closeIdleConnections(), 50);
+    server.close(() => {
+      clearTimeout(cutOff);
+      clearInterval(sweep);
+      resolve();
+    });
+    server.closeIdleConnections();
+  });
+}

@@ -14,7 +14,6 @@
 import { execFileSync, spawn } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
-import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import pg from 'pg';
@@ -22,6 +21,7 @@ import { chromium } from 'playwright-core';
 import { createDb, migrateDb } from '../db/client';
 import { databaseUrl, dropDatabase } from '../tests/support/template-db';
 import { createDemoStudy } from './lib/study-factory/demo-study';
+import { freePort } from './lib/server-process';
 
 const args = process.argv.slice(2);
 const asJson = args.includes('--json');
@@ -75,17 +75,6 @@ function adminUrl(): string {
     stdio: ['ignore', 'ignore', 'inherit'],
   });
   return execFileSync(path.join(root, 'scripts/pg.sh'), ['url', 'postgres']).toString().trim();
-}
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const s = net.createServer();
-    s.once('error', reject);
-    s.listen(0, '127.0.0.1', () => {
-      const { port } = s.address() as net.AddressInfo;
-      s.close(() => resolve(port));
-    });
-  });
 }
 
 async function waitForHealth(base: string, timeoutMs = 60_000): Promise<void> {

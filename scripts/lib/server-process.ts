@@ -6,6 +6,7 @@
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
+import net from 'node:net';
 import path from 'node:path';
 
 const root = path.resolve(import.meta.dirname, '../..');
@@ -76,4 +77,16 @@ export async function waitForHealth(base: string, timeoutMs = 180_000): Promise<
       throw new Error(`${base} did not become healthy within ${timeoutMs / 1000} s`);
     await new Promise((r) => setTimeout(r, 200));
   }
+}
+
+/** A TCP port on 127.0.0.1 that nothing listens on now (the kernel picks it). */
+export function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const s = net.createServer();
+    s.once('error', reject);
+    s.listen(0, '127.0.0.1', () => {
+      const { port } = s.address() as net.AddressInfo;
+      s.close(() => resolve(port));
+    });
+  });
 }

@@ -5,12 +5,12 @@
  */
 import { afterAll, describe, expect, it } from 'vitest';
 import fs from 'node:fs';
-import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { useTestApp } from '../../support/test-app';
 import { sleep, waitFor } from '../../support/wait-for';
 import {
+  freePort,
   startProcess,
   waitForHealth,
   type ServerProcess,
@@ -26,17 +26,6 @@ afterAll(async () => {
   await server?.stop(5_000);
   fs.rmSync(logDir, { recursive: true, force: true });
 });
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const s = net.createServer();
-    s.once('error', reject);
-    s.listen(0, '127.0.0.1', () => {
-      const { port } = s.address() as net.AddressInfo;
-      s.close(() => resolve(port));
-    });
-  });
-}
 
 /** Web processes whose parent is `pid` (from /proc; tsx's esbuild service is a child too). */
 function childrenOf(pid: number): number[] {

@@ -24,7 +24,7 @@ const delay = (p99Ms: number, processes = 1): EventLoopDelay => ({
 });
 
 /** A child that answers each question with `answer` (or stays silent when it is null). */
-function stubChild(answer: EventLoopDelay | null) {
+function fakeChild(answer: EventLoopDelay | null) {
   const c = new EventEmitter() as EventEmitter & { send: (m: unknown) => boolean };
   c.send = (m) => {
     if ((m as { type?: string }).type === EVENT_LOOP_DELAY_REQUEST && answer)
@@ -63,11 +63,11 @@ describe('worstDelay', () => {
 
 describe('askEventLoopDelay', () => {
   it('resolves with the child’s answer', async () => {
-    expect(await askEventLoopDelay(stubChild(delay(12)))).toEqual(delay(12));
+    expect(await askEventLoopDelay(fakeChild(delay(12)))).toEqual(delay(12));
   });
 
   it('when the child does not answer, resolves with null', async () => {
-    expect(await askEventLoopDelay(stubChild(null), 50)).toBeNull();
+    expect(await askEventLoopDelay(fakeChild(null), 50)).toBeNull();
   });
 });
 
@@ -76,7 +76,7 @@ describe('relayEventLoopDelay', () => {
     const parent = new EventEmitter() as EventEmitter & { send?: (m: unknown) => boolean };
     const sent: unknown[] = [];
     parent.send = (m) => sent.push(m) > 0;
-    const children = [stubChild(delay(5)), stubChild(delay(30)), stubChild(null)];
+    const children = [fakeChild(delay(5)), fakeChild(delay(30)), fakeChild(null)];
     const stop = relayEventLoopDelay(() => children, parent as unknown as NodeJS.Process);
     parent.emit('message', { type: EVENT_LOOP_DELAY_REQUEST });
     await new Promise((r) => setTimeout(r, 2_500));

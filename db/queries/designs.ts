@@ -5,6 +5,7 @@
 import { and, eq } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { designs } from '../schema/studies';
+import { updateStudy } from './studies';
 
 export const designColumns = {
   id: designs.id,
@@ -38,6 +39,17 @@ export async function insertDesign(
   },
 ) {
   const [row] = await db.insert(designs).values(params).returning(designColumns);
+  return row;
+}
+
+/** Inserts a design and makes it its study's current one (run it in the caller's transaction). */
+export async function insertCurrentDesign(db: DbOrTx, params: Parameters<typeof insertDesign>[1]) {
+  const row = await insertDesign(db, params);
+  await updateStudy(db, {
+    id: params.studyId,
+    teamId: params.teamId,
+    set: { currentDesignId: row.id },
+  });
   return row;
 }
 

@@ -14,7 +14,7 @@ import { DesignError } from '../engine/design/design-errors';
 import { diagnoseDesign } from '../engine/design/diagnostics/diagnose-design';
 import { importDesignCsv } from '../engine/design/import-design-csv';
 import { exportDesignCsv } from '../engine/design/export-design-csv';
-import { getDesignById, insertDesign } from '../../db/queries/designs';
+import { getDesignById, insertCurrentDesign } from '../../db/queries/designs';
 import {
   getActiveDesignJob,
   getDesignJob,
@@ -22,7 +22,6 @@ import {
   insertDesignJob,
   requestDesignJobCancel,
 } from '../../db/queries/design-jobs';
-import { updateStudy } from '../../db/queries/studies';
 import { studyDefinitionSchema, type StudyDefinition } from '../../shared/schemas/study-definition';
 import type { Design } from '../../shared/schemas/design';
 import type { DesignJobView } from '../../shared/schemas/design-job';
@@ -157,7 +156,7 @@ export async function importDesign(deps: AppDeps, actor: Actor, studyId: string,
     );
   const diagnostics = diagnoseDesign(definition, parsed.design, { kind: 'zero' });
   await deps.db.transaction(async (tx) => {
-    const design = await insertDesign(tx, {
+    await insertCurrentDesign(tx, {
       studyId,
       teamId: actor.teamId,
       method: 'imported',
@@ -165,11 +164,6 @@ export async function importDesign(deps: AppDeps, actor: Actor, studyId: string,
       design: parsed.design,
       diagnostics,
       createdBy: actor.userId,
-    });
-    await updateStudy(tx, {
-      id: studyId,
-      teamId: actor.teamId,
-      set: { currentDesignId: design.id },
     });
   });
   return getDesignState(deps, actor.teamId, studyId);

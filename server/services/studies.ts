@@ -13,7 +13,7 @@ import {
   updateDraftDefinition,
   updateStudy,
 } from '../../db/queries/studies';
-import { getDesignById, insertDesign } from '../../db/queries/designs';
+import { getDesignById, insertCurrentDesign } from '../../db/queries/designs';
 import { emptyStudyDefinition, type StudyDefinition } from '../../shared/schemas/study-definition';
 import type { Design } from '../../shared/schemas/design';
 import type { Study, StudySummary } from '../../shared/schemas/study';
@@ -138,7 +138,7 @@ export async function duplicateStudy(deps: AppDeps, actor: Actor, studyId: strin
     if (source.currentDesignId) {
       const design = await getDesignById(tx, { id: source.currentDesignId, teamId: actor.teamId });
       if (design) {
-        const copied = await insertDesign(tx, {
+        await insertCurrentDesign(tx, {
           studyId: copy.id,
           teamId: actor.teamId,
           method: design.method,
@@ -146,11 +146,6 @@ export async function duplicateStudy(deps: AppDeps, actor: Actor, studyId: strin
           design: design.design,
           diagnostics: design.diagnostics,
           createdBy: actor.userId,
-        });
-        await updateStudy(tx, {
-          id: copy.id,
-          teamId: actor.teamId,
-          set: { currentDesignId: copied.id },
         });
       }
     }

@@ -7,10 +7,13 @@
  * own study, team or accounts), except the journeys that read and change the seeded demo
  * study: they hold the lock in e2e/support/demo-study.ts, so they never overlap one another.
  */
+import path from 'node:path';
 import { defineConfig, devices } from '@playwright/test';
 
 const port = Number(process.env.E2E_PORT ?? 5190);
 export const e2eBaseUrl = `http://127.0.0.1:${port}`;
+/** scripts/e2e-server.sh leaves `<this>.done` (or `.failed`) when the demo seed has finished. */
+export const e2eSeedMark = path.resolve(import.meta.dirname, '.data', `e2e-seed-${port}`);
 
 export default defineConfig({
   testDir: 'e2e',
@@ -43,6 +46,7 @@ export default defineConfig({
     command: `bash scripts/e2e-server.sh ${port}`,
     url: `${e2eBaseUrl}/api/health`,
     timeout: 240_000,
+    env: { E2E_SEED_MARK: e2eSeedMark },
     reuseExistingServer: false,
     stdout: 'pipe',
     stderr: 'pipe',

@@ -13,7 +13,7 @@ import { signIn } from './support/auth';
 import { demoCredential } from './support/demo-credentials';
 import { startRun } from './support/runs';
 import type { TasteList } from '../shared/schemas/tastes';
-import { demoStudyLock } from './support/demo-study';
+import { demoStudyLock, demoStudySeeded } from './support/demo-study';
 
 async function readDownload(download: Download): Promise<Buffer> {
   const file = await download.path();
@@ -25,6 +25,7 @@ test(
   demoStudyLock,
   async ({ page }) => {
     test.setTimeout(180_000);
+    await demoStudySeeded();
     const runName = `Mixed logit e2e ${Date.now()}`;
     await signIn(page, demoCredential('analyst'));
 

@@ -9,7 +9,7 @@ import { expect, test, type Page } from '@playwright/test';
 import { signIn } from './support/auth';
 import { demoCredential } from './support/demo-credentials';
 import { expectNoSeriousAxeViolations } from './support/axe';
-import { demoStudyLock } from './support/demo-study';
+import { demoStudyLock, demoStudySeeded } from './support/demo-study';
 
 async function check(page: Page, width: number, name: string) {
   const overflow = await page.evaluate(
@@ -33,6 +33,7 @@ test(
   demoStudyLock,
   async ({ page }) => {
     test.setTimeout(120_000);
+    await demoStudySeeded();
     await signIn(page, demoCredential('owner'));
     await page
       .getByRole('link', { name: /Water service packages/ })

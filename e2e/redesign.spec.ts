@@ -13,7 +13,7 @@ import {
 import { e2eBaseUrl } from '../playwright.config';
 import { signIn } from './support/auth';
 import { demoCredential } from './support/demo-credentials';
-import { demoStudyLock } from './support/demo-study';
+import { demoStudyLock, demoStudySeeded } from './support/demo-study';
 
 type Screen = { key: string; kind: string };
 
@@ -41,6 +41,7 @@ test(
   demoStudyLock,
   async ({ page }) => {
     test.setTimeout(240_000);
+    await demoStudySeeded();
     // As the app's own pages do: the server refuses writes with a session but without an Origin.
     const request = await playwrightRequest.newContext({
       baseURL: e2eBaseUrl,

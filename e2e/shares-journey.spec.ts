@@ -12,13 +12,14 @@ import { signIn } from './support/auth';
 import { demoCredential } from './support/demo-credentials';
 import { buildDemoRunInput } from '../scripts/lib/demo-run-input';
 import type { Run, RunOptions } from '../shared/schemas/run';
-import { demoStudyLock } from './support/demo-study';
+import { demoStudyLock, demoStudySeeded } from './support/demo-study';
 
 test(
   'an analyst edits, saves, sweeps, compares and downloads what-if shares',
   demoStudyLock,
   async ({ page }) => {
     test.setTimeout(180_000);
+    await demoStudySeeded();
     const runName = `Shares e2e MNL ${Date.now()}`;
     await signIn(page, demoCredential('analyst'));
     await page

@@ -1,6 +1,11 @@
 /**
  * End-to-end journeys in Debian's Chromium (/usr/bin/chromium; never a downloaded browser)
  * against the built app, started with its own database and the fake mail server.
+ *
+ * The journeys wait mostly on the browser, the server and the job workers, not on a core of
+ * their own, so two run at once (E2E_WORKERS overrides). Each one creates what it changes (its
+ * own study, team or accounts), except the journeys that read and change the seeded demo
+ * study: they hold the lock in e2e/support/demo-study.ts, so they never overlap one another.
  */
 import { defineConfig, devices } from '@playwright/test';
 
@@ -11,8 +16,8 @@ export default defineConfig({
   testDir: 'e2e',
   timeout: 120_000,
   expect: { timeout: 15_000 },
-  fullyParallel: false,
-  workers: 1,
+  fullyParallel: true,
+  workers: Number(process.env.E2E_WORKERS ?? 2),
   retries: 0,
   reporter: [['list']],
   outputDir: 'test-results',

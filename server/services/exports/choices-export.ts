@@ -1,8 +1,8 @@
 /**
  * The long choice file. Without a run: every respondent who answered a choice task, with
  * inclusion, task order, positions and times (long-choice-file.ts). With a run: exactly the
- * data the run was estimated on (included respondents, its columns), whose SHA-256 is the
- * run's data hash.
+ * data the run was estimated on (the included respondents of its saved filter, in its data
+ * order, its columns), whose SHA-256 is the run's data hash.
  */
 import type { AppDeps } from '../../deps';
 import { NotFoundError } from '../../lib/errors';
@@ -13,11 +13,10 @@ import { listStudyRespondents } from '../../../db/queries/study-respondents';
 import {
   codeStudyAnswers,
   groupChoiceAnswers,
-  loadStudyChoiceData,
+  loadRunChoiceData,
   loadVersionInputs,
-  toLongCsvRows,
+  toLongCsvText,
 } from '../choice-data-from-study';
-import { splitStoredSpec } from '../estimation/run-view';
 import { writeCsv } from '../../lib/safe-csv';
 import { buildLongChoiceTable } from './long-choice-file';
 import type { DocumentedTable } from './documented-table';
@@ -63,14 +62,6 @@ export async function exportChoicesCsv(
   }
   const run = await getRunById(deps.db, { id: runId, teamId: actor.teamId, studyId });
   if (!run) throw new NotFoundError('Run');
-  const keys = (run.spec as { coefficients: { name: string; column?: string }[] }).coefficients.map(
-    (c) => c.column ?? c.name,
-  );
-  // In the run's own respondent order, so the file estimates as the run did.
-  const { dataOrder } = splitStoredSpec(run.spec);
-  const table = toLongCsvRows(
-    await loadStudyChoiceData(deps.db, { studyId, order: dataOrder }),
-    keys,
-  );
-  return file('choices-estimated', writeCsv(table.header, table.rows));
+  const { prepared, keys } = await loadRunChoiceData(deps.db, { studyId, storedSpec: run.spec });
+  return file('choices-estimated', toLongCsvText(prepared, keys));
 }

@@ -90,14 +90,17 @@ const startedRespondentColumns = [
   'device',
   'language',
 ] as const;
+// The plan is not sent back: the caller has just built it, and reading it back would cost a
+// JSON parse of the whole plan per start for an object the process already holds.
+const { plan: _plan, ...startedReturning } = respondentColumns;
 const insertStarted = (db: DbOrTx) =>
   db
     .insert(respondents)
     .values(
       Object.fromEntries(startedRespondentColumns.map((c) => [c, sql.placeholder(c)])) as never,
     )
-    .returning(respondentColumns)
-    .prepare('insert_started_respondent_v1');
+    .returning(startedReturning)
+    .prepare('insert_started_respondent_v2');
 const insertStartedCache = new WeakMap<object, ReturnType<typeof insertStarted>>();
 
 export async function insertRespondent(
@@ -129,7 +132,7 @@ export async function insertRespondent(
         externalId: params.externalId ?? null,
         panelKey: params.panelKey ?? null,
       });
-      return row as RespondentRow;
+      return { ...row, plan: params.plan } as RespondentRow;
     }
   const [row] = await db.insert(respondents).values(params).returning(respondentColumns);
   return row as RespondentRow;

@@ -6,7 +6,7 @@
  */
 import { and, count, eq, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
-import { studies, studyVersions } from '../schema/studies';
+import { studies } from '../schema/studies';
 import { invitees, respondents } from '../schema/fieldwork';
 
 export const respondentColumns = {
@@ -54,13 +54,16 @@ const studyByPublicId = (db: DbOrTx) =>
       currentVersion: studies.currentVersion,
       archivedAt: studies.archivedAt,
       // The version a new respondent answers, read in the same round trip (session starts).
-      latestVersionId: sql<string | null>`(select ${studyVersions.id} from ${studyVersions}
-        where ${studyVersions.studyId} = ${studies.id}
-        order by ${studyVersions.version} desc limit 1)`,
+      // Qualified by hand: drizzle leaves the columns of a one-table select unqualified, and
+      // inside the subquery an unqualified "id" named the version's own id, so this was always
+      // null and every start read the latest version in a round trip of its own.
+      latestVersionId: sql<string | null>`(select sv.id from study_versions sv
+        where sv.study_id = "studies"."id"
+        order by sv.version desc limit 1)`,
     })
     .from(studies)
     .where(eq(studies.publicId, sql.placeholder('publicId')))
-    .prepare('study_by_public_id_v1');
+    .prepare('study_by_public_id_v2');
 const studyByPublicIdCache = new WeakMap<object, ReturnType<typeof studyByPublicId>>();
 
 /** The study a public link points to, whatever its status (the service decides what to show). */

@@ -73,12 +73,25 @@ export async function getStudyByPublicId(db: DbOrTx, params: { publicId: string 
   return row ?? null;
 }
 
+/**
+ * The invitee of a personal link and the respondent it has already started, if any, in one
+ * round trip (respondents_invitee_uq allows one per invitee).
+ */
 export async function getInviteeByToken(db: DbOrTx, params: { studyId: string; token: string }) {
   const [row] = await db
-    .select({ id: invitees.id, externalId: invitees.externalId })
+    .select({ id: invitees.id, externalId: invitees.externalId, respondent: respondentColumns })
     .from(invitees)
+    .leftJoin(
+      respondents,
+      and(eq(respondents.studyId, params.studyId), eq(respondents.inviteeId, invitees.id)),
+    )
     .where(and(eq(invitees.studyId, params.studyId), eq(invitees.token, params.token)));
-  return row ?? null;
+  if (!row) return null;
+  return {
+    id: row.id,
+    externalId: row.externalId,
+    respondent: row.respondent as RespondentRow | null,
+  };
 }
 
 const startedRespondentColumns = [

@@ -248,7 +248,7 @@ export async function startSession(
   }
   assertOpen(study);
   const settings = readSettings(study.settings);
-  let invitee: { id: string; externalId: string | null } | null = null;
+  let invitee: Awaited<ReturnType<typeof getInviteeByToken>> = null;
   const inviteToken = input.params.inv;
   if (inviteToken) {
     invitee = await getInviteeByToken(deps.db, { studyId: study.id, token: inviteToken });
@@ -258,9 +258,11 @@ export async function startSession(
         'invitation_not_found',
         'This personal link is not valid for this survey.',
       );
+    // A personal link already started resumes its respondent (read with the invitee).
+    if (invitee.respondent) return open(invitee.respondent);
   }
   const identity = identityOf(settings, input.params, invitee);
-  const earlier = await findEarlierRespondent(deps.db, study.id, identity);
+  const earlier = invitee ? null : await findEarlierRespondent(deps.db, study.id, identity);
   if (earlier) return open(earlier);
   try {
     const { respondent, plan } = await createRespondent(deps.db, {

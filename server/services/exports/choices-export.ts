@@ -17,10 +17,9 @@ import {
   loadVersionInputs,
   toLongCsvText,
 } from '../choice-data-from-study';
-import { writeCsv } from '../../lib/safe-csv';
 import { buildLongChoiceTable } from './long-choice-file';
-import type { DocumentedTable } from './documented-table';
-import { CSV, fileName, type Download } from './download';
+import { writeDocumentedCsv, type DocumentedTable } from './documented-table';
+import { makeDownload, type Download } from './download';
 import type { Actor } from '../actor';
 
 /** The long choice file of every respondent (see the file comment). */
@@ -45,20 +44,11 @@ export async function exportChoicesCsv(
   at = new Date(),
 ): Promise<Download> {
   const study = await loadStudy(deps, actor.teamId, studyId);
-  const file = (kind: string, body: string): Download => ({
-    filename: fileName(study.name, kind, 'csv', at),
-    contentType: CSV,
-    body,
-  });
+  const file = (kind: string, body: string): Download =>
+    makeDownload(study.name, kind, 'csv', at, body);
   if (!runId) {
     const table = await loadLongChoiceTable(deps, studyId);
-    return file(
-      'choices-long',
-      writeCsv(
-        table.columns.map((c) => c.key),
-        table.rows,
-      ),
-    );
+    return file('choices-long', writeDocumentedCsv(table));
   }
   const run = await getRunById(deps.db, { id: runId, teamId: actor.teamId, studyId });
   if (!run) throw new NotFoundError('Run');

@@ -6,7 +6,7 @@
 import { execFileSync } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
 import path from 'node:path';
-import { createTemplateDatabase, dropDatabase } from './support/template-db';
+import { createTemplateDatabase, dropDatabase, dropFileDatabases } from './support/template-db';
 
 export default async function setup() {
   const root = path.resolve(import.meta.dirname, '..');
@@ -30,6 +30,8 @@ export default async function setup() {
   process.env.CW_TEST_ADMIN_URL = adminUrl;
   process.env.CW_TEST_TEMPLATE_DB = template;
   return async () => {
+    // The files drop their databases without waiting; those still there go now.
+    await dropFileDatabases(adminUrl!, template);
     await dropDatabase(adminUrl!, template);
   };
 }

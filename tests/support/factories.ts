@@ -11,6 +11,14 @@ import { insertMembership, insertTeam } from '../../db/queries/memberships';
 
 export const TEST_PASSWORD = 'correct horse battery';
 
+/**
+ * The stored hash of TEST_PASSWORD, made once per test process and given to every factory user:
+ * an Argon2id hash costs about 40 ms of CPU by design (server/lib/passwords.ts), and the suite
+ * creates hundreds of users. Sign-in still verifies it as for any other user.
+ */
+let testPasswordHash: Promise<string> | undefined;
+const hashTestPassword = () => (testPasswordHash ??= hashPassword(TEST_PASSWORD));
+
 export function uniqueEmail(prefix = 'user'): string {
   return `${prefix}-${randomBytes(4).toString('hex')}@example.test`;
 }
@@ -27,7 +35,7 @@ export async function signUpOwner(
   const user = await insertUser(t.deps.db, {
     email,
     name: overrides.name ?? 'Olive Owner',
-    passwordHash: await hashPassword(TEST_PASSWORD),
+    passwordHash: await hashTestPassword(),
     emailVerifiedAt: new Date(),
   });
   const team = await insertTeam(t.deps.db, {
@@ -51,7 +59,7 @@ export async function addMember(t: TestApp, teamId: string, role: Role, email = 
   const user = await insertUser(t.deps.db, {
     email,
     name: `${role} person`,
-    passwordHash: await hashPassword(TEST_PASSWORD),
+    passwordHash: await hashTestPassword(),
     emailVerifiedAt: new Date(),
   });
   await insertMembership(t.deps.db, { teamId, userId: user.id, role });

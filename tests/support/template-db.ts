@@ -43,3 +43,20 @@ export async function cloneDatabase(
 export async function dropDatabase(adminUrl: string, name: string): Promise<void> {
   await withAdmin(adminUrl, (c) => c.query(`drop database if exists "${name}" with (force)`));
 }
+
+/** The name prefix of the test files' databases cloned from `template` (cw_tpl_… → cw_t_…_). */
+export function fileDatabasePrefix(template: string): string {
+  return `${template.replace(/^cw_tpl_/, 'cw_t_')}_`;
+}
+
+/** Drops the databases of this run's test files that are still there, side by side. */
+export async function dropFileDatabases(adminUrl: string, template: string): Promise<void> {
+  const prefix = fileDatabasePrefix(template);
+  const { rows } = await withAdmin(adminUrl, (c) =>
+    c.query<{ datname: string }>(
+      'select datname from pg_database where starts_with(datname, $1) order by datname',
+      [prefix],
+    ),
+  );
+  await Promise.all(rows.map((r) => dropDatabase(adminUrl, r.datname)));
+}

@@ -3,6 +3,7 @@
  * fake SMTP server the global setup started (read back through tests/support/mailbox.ts).
  */
 import fs from 'node:fs';
+import http from 'node:http';
 import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, beforeEach } from 'vitest';
@@ -78,13 +79,20 @@ export async function createTestApp(
     : createLogger('silent');
   const deps: AppDeps = { env, db, logger, mailer };
   const app = createApp(deps);
+  // One listening server for the file's requests: supertest given the app itself starts and
+  // closes a server of its own for every request.
+  const server = http.createServer(app);
+  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
   return {
     app,
     deps,
     testDb,
     // As the app's own pages do: browsers send Origin on every state-changing request.
-    request: () => supertest.agent(app).set('Origin', env.APP_URL),
+    request: () => supertest.agent(server).set('Origin', env.APP_URL),
     async close() {
+      const closed = new Promise((resolve) => server.close(resolve));
+      server.closeAllConnections();
+      await closed;
       mailer.close();
       await proxied?.pool.end();
       await testDb.close();

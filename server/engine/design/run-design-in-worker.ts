@@ -16,12 +16,19 @@ import type { DesignProgressMessage, DesignWorkerResult } from './design-worker-
 
 const WORKER_FILE = fileURLToPath(new URL('./design-worker.ts', import.meta.url));
 
-/** A pool of design worker threads (default 1: design jobs are CPU-bound and sequential). */
-export function createDesignPool(options: { maxThreads?: number; nice?: number } = {}): Piscina {
+/**
+ * A pool of design worker threads (default 1: design jobs are CPU-bound and sequential). A
+ * thread ends as soon as it is idle unless `idleTimeoutMs` keeps it for the next job (tests that
+ * run several jobs in a row).
+ */
+export function createDesignPool(
+  options: { maxThreads?: number; nice?: number; idleTimeoutMs?: number } = {},
+): Piscina {
   return createTsPiscina({
     filename: WORKER_FILE,
     minThreads: 0,
     maxThreads: options.maxThreads ?? 1,
+    idleTimeout: options.idleTimeoutMs ?? 0,
     // Thread priority (server/engine/parallel/thread-priority.ts).
     workerData: { nice: options.nice },
   });

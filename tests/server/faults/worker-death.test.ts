@@ -62,12 +62,14 @@ describe('a worker killed during an estimation', () => {
   it('leaves a run that the sweep queues again and the next worker resumes from its checkpoint', async () => {
     const first = startWorker();
     // Long enough to be killed mid-run, after its first iteration, on a fast machine too (some
-    // seconds on one thread).
-    const spec = mixedLogitSpec(2_000, 5, true);
+    // seconds on one thread: about 40 iterations over three starts); the checkpoint is looked
+    // for every 50 ms, so the kill comes within an iteration or two of it.
+    const spec = mixedLogitSpec(1_000, 5, true);
     const slow = await t.team.agents.analyst.post(base).send({ spec }).expect(201);
     const saved = await waitFor(
       () => getRunCheckpoint(t.deps.db, { runId: slow.body.id }),
       120_000,
+      { everyMs: 50 },
     );
     expect(saved.attempt).toBe(1);
 

@@ -8,12 +8,14 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { parse } from 'csv-parse/sync';
 import { downloadXlsx } from '../../support/download-xlsx';
 import { useTestApp } from '../../support/test-app';
+import { useEstimationPool } from '../../support/engine-pools';
 import { listRunProfiles } from '../../../db/queries/taste-profiles';
 import { runEstimationJob } from '../../../server/jobs/estimation-job';
 import { seedRunStudy, type SeededStudy } from './run-fixtures';
 import { scenarioLevels } from '../routes/tastes-fixture';
 
 const t = useTestApp({}, { signIn: 'team', recordJobs: true });
+const pool = useEstimationPool();
 let study: SeededStudy;
 let base: string;
 const done: Record<string, string> = {};
@@ -51,7 +53,7 @@ describe('HB run through the job', () => {
     expect(res.body.name).toBe('Hierarchical Bayes logit');
     expect(res.body.model).toBe('hb');
     expect(res.body.seed).toBe(7);
-    await runEstimationJob(t.deps, res.body.id, { threads: 2 });
+    await runEstimationJob(t.deps, res.body.id, { threads: 2, pool });
     done.hb = res.body.id;
     const run = (await t.team.agents.viewer.get(`${base}/${res.body.id}`).expect(200)).body;
     expect(run.error).toBeNull();
@@ -94,7 +96,7 @@ describe('latent class run through the job', () => {
         },
       })
       .expect(201);
-    await runEstimationJob(t.deps, res.body.id, { threads: 1 });
+    await runEstimationJob(t.deps, res.body.id, { threads: 1, pool });
     done.lc = res.body.id;
     const run = (await t.team.agents.viewer.get(`${base}/${res.body.id}`).expect(200)).body;
     expect(run.error).toBeNull();

@@ -10,6 +10,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { eq, sql } from 'drizzle-orm';
 import { useTestApp } from '../../support/test-app';
+import { useEstimationPool } from '../../support/engine-pools';
 import { runs } from '../../../db/schema/models';
 import { respondents } from '../../../db/schema/fieldwork';
 import { listRunProfiles } from '../../../db/queries/taste-profiles';
@@ -28,6 +29,7 @@ import {
 import { mixedLogitSpec, seedRunStudy, TRUE_MNL, type SeededStudy } from './run-fixtures';
 
 const t = useTestApp({}, { signIn: 'team', recordJobs: true });
+const pool = useEstimationPool();
 let study: SeededStudy;
 let base: string;
 
@@ -44,7 +46,7 @@ describe('estimation job', () => {
       .post(base)
       .send({ spec: { model: 'mnl', coefficients: allColumns, cost: 'b0' } })
       .expect(201);
-    await runEstimationJob(t.deps, t.sent[0].data.runId!, { threads: 1 });
+    await runEstimationJob(t.deps, t.sent[0].data.runId!, { threads: 1, pool });
     const run = (await t.team.agents.viewer.get(`${base}/${res.body.id}`).expect(200)).body;
     expect(run.status).toBe('done');
     expect(run.error).toBeNull();
@@ -94,7 +96,7 @@ describe('estimation job', () => {
         },
       })
       .expect(201);
-    await runEstimationJob(t.deps, res.body.id, { threads: 1 });
+    await runEstimationJob(t.deps, res.body.id, { threads: 1, pool });
     const run = (await t.team.agents.viewer.get(`${base}/${res.body.id}`).expect(200)).body;
     expect(run.error).toBeNull();
     expect(run.status).toBe('done');
@@ -138,7 +140,7 @@ describe('estimation job', () => {
       .update(runs)
       .set({ studyId: (await seedEmptyStudy()).id })
       .where(eq(runs.id, res.body.id));
-    await runEstimationJob(t.deps, res.body.id, { threads: 1 });
+    await runEstimationJob(t.deps, res.body.id, { threads: 1, pool });
     const row = await getRunForJob(t.deps.db, { id: res.body.id });
     expect(row?.status).toBe('failed');
     expect(row?.error).toBe('The study has not been live yet, so it has no answers.');
@@ -156,7 +158,7 @@ describe('estimation job', () => {
       })
       .expect(201);
     // Two threads: the log-likelihood runs off this thread, so the API answers meanwhile.
-    const job = runEstimationJob(t.deps, res.body.id, { threads: 2 });
+    const job = runEstimationJob(t.deps, res.body.id, { threads: 2, pool });
     // Wait until the worker has claimed the run, then cancel through the API.
     for (let i = 0; i < 200; i++) {
       const row = await getRunForJob(t.deps.db, { id: res.body.id });
@@ -179,7 +181,7 @@ describe('estimation job', () => {
       .send({ spec: { model: 'mnl', coefficients: allColumns } })
       .expect(201);
     await t.team.agents.analyst.post(`${base}/${res.body.id}/cancel`).expect(200);
-    await runEstimationJob(t.deps, res.body.id, { threads: 1 });
+    await runEstimationJob(t.deps, res.body.id, { threads: 1, pool });
     const row = await getRunForJob(t.deps.db, { id: res.body.id });
     expect(row?.status).toBe('cancelled');
     expect(row?.startedAt).toBeNull();
@@ -226,7 +228,7 @@ describe('stale-run sweep (worker crash)', () => {
     expect(waiting).toMatchObject({ status: 'queued', attempts: 1 });
 
     // The next worker takes it: an MNL keeps no checkpoint, so it starts from the beginning.
-    await runEstimationJob(t.deps, dead, { threads: 1 });
+    await runEstimationJob(t.deps, dead, { threads: 1, pool });
     const view = (await t.team.agents.viewer.get(`${base}/${dead}`).expect(200)).body;
     expect(view).toMatchObject({ status: 'done', attempts: 2, error: null });
     expect(view.progress.resumed).toEqual({ attempt: 2, fromIteration: 0 });
@@ -269,7 +271,7 @@ describe('run data order', () => {
       .send({ spec: mixedLogitSpec(20, 9) })
       .expect(201);
     expect(res.body.dataOrder).toBe('respondent-number');
-    await runEstimationJob(t.deps, res.body.id, { threads: 1 });
+    await runEstimationJob(t.deps, res.body.id, { threads: 1, pool });
     const run = await getRun(res.body.id);
     expect(run.status).toBe('done');
     const prepared = await loadStudyChoiceData(t.deps.db, { studyId: study.studyId });
@@ -293,7 +295,7 @@ describe('run data order', () => {
       .set({ spec: sql`${runs.spec} - 'dataOrder'` })
       .where(eq(runs.id, res.body.id));
     expect((await getRun(res.body.id)).dataOrder).toBe('respondent-id');
-    await runEstimationJob(t.deps, res.body.id, { threads: 1 });
+    await runEstimationJob(t.deps, res.body.id, { threads: 1, pool });
     const first = await getRun(res.body.id);
     expect(first.status).toBe('done');
     const byId = await loadStudyChoiceData(t.deps.db, {
@@ -309,7 +311,7 @@ describe('run data order', () => {
       .update(runs)
       .set({ status: 'queued', results: null, dataHash: null })
       .where(eq(runs.id, res.body.id));
-    await runEstimationJob(t.deps, res.body.id, { threads: 1 });
+    await runEstimationJob(t.deps, res.body.id, { threads: 1, pool });
     const again = await getRun(res.body.id);
     expect(again.status).toBe('done');
     expect(again.dataHash).toBe(first.dataHash);

@@ -11,6 +11,7 @@
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { useTestApp } from '../../support/test-app';
+import { useEstimationPool } from '../../support/engine-pools';
 import { waitFor } from '../../support/wait-for';
 import { getRunForJob } from '../../../db/queries/runs';
 import { getRunCheckpoint, saveRunCheckpoint } from '../../../db/queries/run-checkpoints';
@@ -21,6 +22,7 @@ import { STALE_RUN_MS, sweepStaleRuns } from '../../../server/jobs/stale-run-swe
 import { mixedLogitSpec, seedRunStudy } from './run-fixtures';
 
 const t = useTestApp({}, { signIn: 'team', recordJobs: true });
+const pool = useEstimationPool();
 let base: string;
 
 beforeAll(async () => {
@@ -30,10 +32,11 @@ beforeAll(async () => {
 
 async function startRun(): Promise<string> {
   // Three starts (the default) and enough draws that the run is still estimating when the
-  // worker is taken for dead.
+  // worker is taken for dead: with 500 draws the run takes 41 iterations over its three starts
+  // and is swept right after its third (measured: 0.7 s into a 5 s run at a load average of 20).
   const res = await t.team.agents.analyst
     .post(base)
-    .send({ spec: mixedLogitSpec(2_000, 13, true) })
+    .send({ spec: mixedLogitSpec(500, 13, true) })
     .expect(201);
   return res.body.id;
 }
@@ -41,13 +44,13 @@ async function startRun(): Promise<string> {
 describe('a mixed logit whose worker is lost after a checkpoint', () => {
   it('is queued again, resumes from the checkpoint and ends with the uninterrupted estimates', async () => {
     const reference = await startRun();
-    await runEstimationJob(t.deps, reference, { threads: 1 });
+    await runEstimationJob(t.deps, reference, { threads: 1, pool });
     const whole = await getRunForJob(t.deps.db, { id: reference });
     expect(whole).toMatchObject({ status: 'done', attempts: 1 });
     expect(await getRunCheckpoint(t.deps.db, { runId: reference })).toBeNull();
 
     const id = await startRun();
-    const first = runEstimationJob(t.deps, id, { threads: 1, checkpointEveryMs: 0 });
+    const first = runEstimationJob(t.deps, id, { threads: 1, checkpointEveryMs: 0, pool });
     await waitFor(
       async () => {
         const saved = await getRunCheckpoint(t.deps.db, { runId: id });
@@ -66,7 +69,7 @@ describe('a mixed logit whose worker is lost after a checkpoint', () => {
     expect(checkpoint).toMatchObject({ attempt: 1 });
     expect(checkpoint!.iteration).toBeGreaterThanOrEqual(3);
 
-    await runEstimationJob(t.deps, id, { threads: 1 });
+    await runEstimationJob(t.deps, id, { threads: 1, pool });
     const resumed = await getRunForJob(t.deps.db, { id });
     expect(resumed).toMatchObject({ status: 'done', attempts: 2, error: null });
     const view = (await t.team.agents.viewer.get(`${base}/${id}`).expect(200)).body;
@@ -98,7 +101,7 @@ describe('a mixed logit whose worker is lost after a checkpoint', () => {
       }),
     ).toBe(true);
     await t.deps.db.update(runs).set({ status: 'queued' }).where(eq(runs.id, id));
-    await runEstimationJob(t.deps, id, { threads: 1 });
+    await runEstimationJob(t.deps, id, { threads: 1, pool });
     const view = (await t.team.agents.viewer.get(`${base}/${id}`).expect(200)).body;
     expect(view).toMatchObject({ status: 'done', attempts: 2 });
     expect(view.progress.resumed).toEqual({ attempt: 2, fromIteration: 0 });

@@ -1,10 +1,10 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { useTestApp } from '../../support/test-app';
 import { createTeamWithAllRoles } from '../../support/factories';
 import { createStudyVia, makeSmallDefinition } from './study-fixtures';
 import { runDesignJob } from '../../../server/jobs/design-job';
-import { createDesignPool } from '../../../server/engine/design/run-design-in-worker';
+import { useDesignPool } from '../../support/engine-pools';
 import { getStudyById } from '../../../db/queries/studies';
 import { designJobs, studies } from '../../../db/schema/studies';
 import type { Role } from '../../../shared/permissions';
@@ -12,7 +12,7 @@ import type { Role } from '../../../shared/permissions';
 const t = useTestApp();
 let team: Awaited<ReturnType<typeof createTeamWithAllRoles>>;
 const sent: Array<{ name: string; data: { designJobId: string } }> = [];
-const pool = createDesignPool({ maxThreads: 1 });
+const pool = useDesignPool();
 
 beforeAll(async () => {
   // The queue is replaced by a recorder; tests run the handler in-process.
@@ -22,9 +22,6 @@ beforeAll(async () => {
     },
   };
   team = await createTeamWithAllRoles(t);
-});
-afterAll(async () => {
-  await pool.destroy();
 });
 
 const designUrl = (studyId: string) => `/api/teams/${team.teamId}/studies/${studyId}/design`;

@@ -1,24 +1,34 @@
 /**
  * End-to-end journeys in Debian's Chromium (/usr/bin/chromium; never a downloaded browser)
  * against the built app, started with its own database and the fake mail server.
+ *
+ * The journeys wait mostly on the browser, the server and the job workers, not on a core of
+ * their own, so two run at once (E2E_WORKERS overrides). Each one creates what it changes (its
+ * own study, team or accounts), except the journeys that read and change the seeded demo
+ * study: they hold the lock in e2e/support/demo-study.ts, so they never overlap one another.
  */
+import path from 'node:path';
 import { defineConfig, devices } from '@playwright/test';
 
 const port = Number(process.env.E2E_PORT ?? 5190);
 export const e2eBaseUrl = `http://127.0.0.1:${port}`;
+/** scripts/e2e-server.sh leaves `<this>.done` (or `.failed`) when the demo seed has finished. */
+export const e2eSeedMark = path.resolve(import.meta.dirname, '.data', `e2e-seed-${port}`);
 
 export default defineConfig({
   testDir: 'e2e',
   timeout: 120_000,
   expect: { timeout: 15_000 },
-  fullyParallel: false,
-  workers: 1,
+  fullyParallel: true,
+  workers: Number(process.env.E2E_WORKERS ?? 2),
   retries: 0,
   reporter: [['list']],
   outputDir: 'test-results',
   use: {
     baseURL: e2eBaseUrl,
-    trace: 'retain-on-failure',
+    // A failed journey keeps its trace with the page's DOM at every step; the film strip of
+    // screenshots is left out, as encoding it cost CPU on every journey, passed or failed.
+    trace: { mode: 'retain-on-failure', screenshots: false },
     screenshot: 'only-on-failure',
     launchOptions: {
       executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
@@ -38,6 +48,7 @@ export default defineConfig({
     command: `bash scripts/e2e-server.sh ${port}`,
     url: `${e2eBaseUrl}/api/health`,
     timeout: 240_000,
+    env: { E2E_SEED_MARK: e2eSeedMark },
     reuseExistingServer: false,
     stdout: 'pipe',
     stderr: 'pipe',

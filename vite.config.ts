@@ -3,6 +3,7 @@ import type { Plugin } from 'vite';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
 import { fileURLToPath } from 'node:url';
+import { EnvironmentSequencer } from './tests/environment-sequencer';
 
 const r = (p: string) => fileURLToPath(new URL(p, import.meta.url));
 const apiPort = Number(process.env.API_PORT ?? 5180);
@@ -93,6 +94,8 @@ export default defineConfig({
     hookTimeout: 60_000,
     pool: 'forks',
     maxWorkers: 2,
+    // Files of one environment in a row, so that a worker serves many files (isolate: false).
+    sequence: { sequencer: EnvironmentSequencer },
     projects: [
       {
         extends: true,

@@ -9,6 +9,7 @@ import { expect, test, type Page } from '@playwright/test';
 import { signIn } from './support/auth';
 import { demoCredential } from './support/demo-credentials';
 import { expectNoSeriousAxeViolations } from './support/axe';
+import { demoStudyLock, demoStudySeeded } from './support/demo-study';
 
 async function check(page: Page, width: number, name: string) {
   const overflow = await page.evaluate(
@@ -27,43 +28,48 @@ async function openErasure(page: Page, number: string) {
   await expect(page.getByRole('region', { name: 'What will be erased' })).toBeVisible();
 }
 
-test('an owner erases one respondent on request, confirming in the dialog', async ({ page }) => {
-  test.setTimeout(120_000);
-  await signIn(page, demoCredential('owner'));
-  await page
-    .getByRole('link', { name: /Water service packages/ })
-    .first()
-    .click();
-  await page
-    .getByRole('link', { name: /Responses/ })
-    .first()
-    .click();
-  await expect(page.getByRole('heading', { name: 'Responses' })).toBeVisible();
+test(
+  'an owner erases one respondent on request, confirming in the dialog',
+  demoStudyLock,
+  async ({ page }) => {
+    test.setTimeout(120_000);
+    await demoStudySeeded();
+    await signIn(page, demoCredential('owner'));
+    await page
+      .getByRole('link', { name: /Water service packages/ })
+      .first()
+      .click();
+    await page
+      .getByRole('link', { name: /Responses/ })
+      .first()
+      .click();
+    await expect(page.getByRole('heading', { name: 'Responses' })).toBeVisible();
 
-  await test.step('at 360 px: find respondent 2 and read what will go', async () => {
-    await page.setViewportSize({ width: 360, height: 800 });
-    await openErasure(page, '2');
-    await page.getByLabel('Reason (kept in the audit trail)').fill('Request DP-2026-014');
-    await page.getByRole('region', { name: 'What will be erased' }).scrollIntoViewIfNeeded();
-    await check(page, 360, 'erasure-preview');
-    await page.getByRole('button', { name: 'Erase respondent 2…' }).click();
-    const dialog = page.getByRole('dialog', { name: 'Erase respondent 2?' });
-    await expect(dialog).toBeVisible();
-    await check(page, 360, 'erasure-dialog');
-    await dialog.getByRole('button', { name: 'Cancel' }).click();
-    await expect(dialog).toHaveCount(0);
-  });
+    await test.step('at 360 px: find respondent 2 and read what will go', async () => {
+      await page.setViewportSize({ width: 360, height: 800 });
+      await openErasure(page, '2');
+      await page.getByLabel('Reason (kept in the audit trail)').fill('Request DP-2026-014');
+      await page.getByRole('region', { name: 'What will be erased' }).scrollIntoViewIfNeeded();
+      await check(page, 360, 'erasure-preview');
+      await page.getByRole('button', { name: 'Erase respondent 2…' }).click();
+      const dialog = page.getByRole('dialog', { name: 'Erase respondent 2?' });
+      await expect(dialog).toBeVisible();
+      await check(page, 360, 'erasure-dialog');
+      await dialog.getByRole('button', { name: 'Cancel' }).click();
+      await expect(dialog).toHaveCount(0);
+    });
 
-  await test.step('on a desktop: confirm, and the number is then refused', async () => {
-    await page.setViewportSize({ width: 1280, height: 900 });
-    await page.getByRole('button', { name: 'Erase respondent 2…' }).click();
-    const dialog = page.getByRole('dialog', { name: 'Erase respondent 2?' });
-    await check(page, 1280, 'erasure-dialog');
-    await dialog.getByRole('button', { name: 'Erase for good' }).click();
-    await expect(page.getByText('Erased respondent 2.')).toBeVisible();
-    await check(page, 1280, 'erasure-done');
-    await page.getByLabel('Respondent number').fill('2');
-    await page.getByRole('button', { name: 'Find', exact: true }).click();
-    await expect(page.getByText('Already erased')).toBeVisible();
-  });
-});
+    await test.step('on a desktop: confirm, and the number is then refused', async () => {
+      await page.setViewportSize({ width: 1280, height: 900 });
+      await page.getByRole('button', { name: 'Erase respondent 2…' }).click();
+      const dialog = page.getByRole('dialog', { name: 'Erase respondent 2?' });
+      await check(page, 1280, 'erasure-dialog');
+      await dialog.getByRole('button', { name: 'Erase for good' }).click();
+      await expect(page.getByText('Erased respondent 2.')).toBeVisible();
+      await check(page, 1280, 'erasure-done');
+      await page.getByLabel('Respondent number').fill('2');
+      await page.getByRole('button', { name: 'Find', exact: true }).click();
+      await expect(page.getByText('Already erased')).toBeVisible();
+    });
+  },
+);

@@ -28,69 +28,68 @@ async function check(page: Page, width: number, name: string) {
   });
 }
 
-test('every respondent screen fits phones from 320 px and passes an axe scan', async ({
-  browser,
-}) => {
-  test.setTimeout(360_000);
-  const api = await playwrightRequest.newContext({
-    baseURL: e2eBaseUrl,
-    extraHTTPHeaders: { Origin: e2eBaseUrl },
-  });
-  const study = await createLiveStudy(api, `Screens e2e ${Date.now()}`);
-  for (const width of WIDTHS) {
-    await test.step(`${width} px`, async () => {
-      const phone = width < 800;
-      const context = await browser.newContext({
-        viewport: { width, height: phone ? 740 : 900 },
-        hasTouch: phone,
-      });
-      const page = await context.newPage();
-      await page.goto(`/s/${study.publicId}?pid=W${width}`);
-      await expect(page.getByRole('heading', { level: 1 })).toBeVisible();
-      await check(page, width, 'consent');
-      await page.getByLabel('I have read this and agree to take part').check();
-      await page.getByRole('button', { name: 'Start' }).click();
-      await expect(page.getByRole('heading', { name: 'How the choices work' })).toBeVisible();
-      await check(page, width, 'instructions');
-      await page.getByRole('button', { name: 'Continue' }).click();
-
-      await expect(page.getByText('Choice 1 of 4', { exact: true })).toBeVisible();
-      const headers = page.locator('thead').getByRole('columnheader');
-      await expect(headers).toHaveText(['Option A', 'Option B', 'Current service']);
-      const boxes = await Promise.all([0, 1, 2].map((i) => headers.nth(i).boundingBox()));
-      for (const box of boxes) {
-        expect(box!.y).toBe(boxes[0]!.y);
-        expect(box!.x + box!.width).toBeLessThanOrEqual(width);
-      }
-      await check(page, width, 'task');
-      await page.getByRole('radio', { name: 'Option B' }).check();
-      await expect(page.getByRole('radio', { name: 'Option B' })).toBeChecked();
-      await check(page, width, 'task-chosen');
-      await page.getByRole('button', { name: 'Next' }).click();
-      for (const n of [2, 3, 4]) {
-        await expect(page.getByText(`Choice ${n} of 4`, { exact: true })).toBeVisible();
-        await page.getByRole('radio', { name: 'Current service' }).check();
-        await page.getByRole('button', { name: 'Next' }).click();
-      }
-
-      const household = page.getByLabel('How many people live in your household, including you?');
-      await expect(household).toBeVisible();
-      await check(page, width, 'number-question');
-      await household.fill('2');
-      await page.getByRole('button', { name: 'Next' }).click();
-      await expect(page.getByRole('radio', { name: '35–54' })).toBeVisible();
-      await check(page, width, 'choice-question');
-      await page.getByRole('radio', { name: '35–54' }).check();
-      await page.getByRole('button', { name: 'Next' }).click();
-      await page.getByRole('radio', { name: 'No' }).check();
-      await page.getByRole('button', { name: 'Next' }).click();
-      await expect(page.getByText(/Your answers have been saved/)).toBeVisible();
-      await check(page, width, 'end');
-      await context.close();
+// One test per width, each with its own study and respondent, so the widths run on separate
+// workers at the same time.
+for (const width of WIDTHS) {
+  test(`at ${width} px every respondent screen fits and passes an axe scan`, async ({
+    browser,
+  }) => {
+    const api = await playwrightRequest.newContext({
+      baseURL: e2eBaseUrl,
+      extraHTTPHeaders: { Origin: e2eBaseUrl },
     });
-  }
-  await api.dispose();
-});
+    const study = await createLiveStudy(api, `Screens e2e ${width} px ${Date.now()}`);
+    const phone = width < 800;
+    const context = await browser.newContext({
+      viewport: { width, height: phone ? 740 : 900 },
+      hasTouch: phone,
+    });
+    const page = await context.newPage();
+    await page.goto(`/s/${study.publicId}?pid=W${width}`);
+    await expect(page.getByRole('heading', { level: 1 })).toBeVisible();
+    await check(page, width, 'consent');
+    await page.getByLabel('I have read this and agree to take part').check();
+    await page.getByRole('button', { name: 'Start' }).click();
+    await expect(page.getByRole('heading', { name: 'How the choices work' })).toBeVisible();
+    await check(page, width, 'instructions');
+    await page.getByRole('button', { name: 'Continue' }).click();
+
+    await expect(page.getByText('Choice 1 of 4', { exact: true })).toBeVisible();
+    const headers = page.locator('thead').getByRole('columnheader');
+    await expect(headers).toHaveText(['Option A', 'Option B', 'Current service']);
+    const boxes = await Promise.all([0, 1, 2].map((i) => headers.nth(i).boundingBox()));
+    for (const box of boxes) {
+      expect(box!.y).toBe(boxes[0]!.y);
+      expect(box!.x + box!.width).toBeLessThanOrEqual(width);
+    }
+    await check(page, width, 'task');
+    await page.getByRole('radio', { name: 'Option B' }).check();
+    await expect(page.getByRole('radio', { name: 'Option B' })).toBeChecked();
+    await check(page, width, 'task-chosen');
+    await page.getByRole('button', { name: 'Next' }).click();
+    for (const n of [2, 3, 4]) {
+      await expect(page.getByText(`Choice ${n} of 4`, { exact: true })).toBeVisible();
+      await page.getByRole('radio', { name: 'Current service' }).check();
+      await page.getByRole('button', { name: 'Next' }).click();
+    }
+
+    const household = page.getByLabel('How many people live in your household, including you?');
+    await expect(household).toBeVisible();
+    await check(page, width, 'number-question');
+    await household.fill('2');
+    await page.getByRole('button', { name: 'Next' }).click();
+    await expect(page.getByRole('radio', { name: '35–54' })).toBeVisible();
+    await check(page, width, 'choice-question');
+    await page.getByRole('radio', { name: '35–54' }).check();
+    await page.getByRole('button', { name: 'Next' }).click();
+    await page.getByRole('radio', { name: 'No' }).check();
+    await page.getByRole('button', { name: 'Next' }).click();
+    await expect(page.getByText(/Your answers have been saved/)).toBeVisible();
+    await check(page, width, 'end');
+    await context.close();
+    await api.dispose();
+  });
+}
 
 test('labels too long for a narrow phone fall back to stacked cards; the offline notice shows at the top', async ({
   browser,

@@ -1,9 +1,9 @@
-# Stage timing and parallel jobs for scripts/test.sh.
+# Stage timing and the job pool of scripts/test.sh.
 STAGE_NAMES=()
 STAGE_SECONDS=()
 STAGE_DETAILS=()
-# Set by parallel(): each job's time, printed under its stage in the summary.
-PARALLEL_DETAIL=""
+# Set by pool(): each job's start and time, printed under its stage in the summary.
+POOL_DETAIL=""
 RUN_STARTED=$(date +%s)
 
 # stage NAME CMD...: run CMD under a heading and record its wall time (a failed stage too, so
@@ -14,39 +14,86 @@ stage() {
   shift
   echo "== $name"
   t0=$(date +%s)
-  PARALLEL_DETAIL=""
+  POOL_DETAIL=""
   "$@" || rc=$?
   STAGE_NAMES+=("$name$([ $rc -eq 0 ] || echo " (FAILED)")")
   STAGE_SECONDS+=($(($(date +%s) - t0)))
-  STAGE_DETAILS+=("$PARALLEL_DETAIL")
+  STAGE_DETAILS+=("$POOL_DETAIL")
   return $rc
 }
 
-# parallel LABEL CMD [LABEL CMD]...: run the commands at once, print each one's output as a
-# block when it ends, fail if any failed.
-parallel() {
-  local dir labels=() pids=() failed=0 i
+# pool KEY LABEL AFTER CMD [KEY LABEL AFTER CMD]...: one pool of jobs, each started as soon as
+# the jobs named in AFTER (keys, comma-separated, or "-" for none) have passed, so that a
+# latency-bound job (the browser journeys) runs beside the CPU-bound ones instead of after a
+# whole stage. Each job's output is printed as a block when it ends; a job whose prerequisite
+# failed is skipped; the pool fails if any job failed or was skipped. Records every job's start
+# (seconds after the pool began) and time for the summary.
+pool() {
+  local dir keys=() labels=() afters=() cmds=() state=() starts=() t0 i n failed=0 progress
   dir="$(mktemp -d)"
   while [ $# -gt 0 ]; do
-    labels+=("$1")
-    (
-      t0=$(date +%s)
-      set +e
-      bash -c "$2" >"$dir/${#labels[@]}.log" 2>&1
-      rc=$?
-      echo "$rc $(($(date +%s) - t0))" >"$dir/${#labels[@]}.rc"
-      exit $rc
-    ) &
-    pids+=($!)
-    shift 2
+    keys+=("$1") labels+=("$2") afters+=("$3") cmds+=("$4") state+=(waiting) starts+=(0)
+    shift 4
   done
-  for i in "${!pids[@]}"; do
-    wait "${pids[$i]}" || failed=1
-    read -r rc secs <"$dir/$((i + 1)).rc"
-    echo "-- ${labels[$i]}: exit $rc in ${secs} s"
-    PARALLEL_DETAIL+="$(printf '    %-50s %5d s%s' "${labels[$i]}" "$secs" "$([ "$rc" -eq 0 ] || echo " (FAILED)")")"$'\n'
-    cat "$dir/$((i + 1)).log"
+  n=${#keys[@]}
+  t0=$(date +%s)
+  # passed KEY / failed KEY: the state of the job with that key.
+  _pool_state_of() {
+    local k
+    for k in "${!keys[@]}"; do [ "${keys[$k]}" = "$1" ] && echo "${state[$k]}"; done
+  }
+  while :; do
+    progress=0
+    for i in $(seq 0 $((n - 1))); do
+      [ "${state[$i]}" = waiting ] || continue
+      local ready=yes dep st
+      if [ "${afters[$i]}" != "-" ]; then
+        for dep in ${afters[$i]//,/ }; do
+          st="$(_pool_state_of "$dep")"
+          case "$st" in
+            passed) ;;
+            failed | skipped) ready=skip ;;
+            *) [ "$ready" = skip ] || ready=no ;;
+          esac
+        done
+      fi
+      if [ "$ready" = skip ]; then
+        state[$i]=skipped
+        progress=1
+        echo "-- ${labels[$i]}: skipped (a job it needs failed)"
+        POOL_DETAIL+="$(printf '    %-50s %5s   (skipped)' "${labels[$i]}" "-")"$'\n'
+        failed=1
+      elif [ "$ready" = yes ]; then
+        state[$i]=running
+        starts[$i]=$(($(date +%s) - t0))
+        progress=1
+        (
+          s0=$(date +%s)
+          set +e
+          bash -c "${cmds[$i]}" >"$dir/$i.log" 2>&1
+          rc=$?
+          echo "$rc $(($(date +%s) - s0))" >"$dir/$i.rc.tmp" && mv "$dir/$i.rc.tmp" "$dir/$i.rc"
+        ) &
+      fi
+    done
+    for i in $(seq 0 $((n - 1))); do
+      [ "${state[$i]}" = running ] && [ -f "$dir/$i.rc" ] || continue
+      local rc secs
+      read -r rc secs <"$dir/$i.rc"
+      if [ "$rc" -eq 0 ]; then state[$i]=passed; else state[$i]=failed failed=1; fi
+      progress=1
+      echo "-- ${labels[$i]}: exit $rc in ${secs} s (started at +${starts[$i]} s)"
+      POOL_DETAIL+="$(printf '    %-50s %5d s  (from +%d s)%s' "${labels[$i]}" "$secs" "${starts[$i]}" "$([ "$rc" -eq 0 ] || echo " FAILED")")"$'\n'
+      cat "$dir/$i.log"
+    done
+    local open=0
+    for i in $(seq 0 $((n - 1))); do
+      case "${state[$i]}" in waiting | running) open=1 ;; esac
+    done
+    [ $open -eq 1 ] || break
+    [ $progress -eq 1 ] || sleep 1
   done
+  wait
   rm -rf "$dir"
   return $failed
 }

@@ -4,8 +4,8 @@
 #   scripts/mail.sh start [smtp-port] [web-port]   (idempotent)
 #   scripts/mail.sh stop  [smtp-port]
 set -euo pipefail
-ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
-DATA_ROOT="${CW_DATA_DIR:-$ROOT/.data}"
+# shellcheck source=lib-data-dir.sh
+. "$(dirname "${BASH_SOURCE[0]}")/lib-data-dir.sh"
 SMTP_PORT="${2:-1025}"
 WEB_PORT="${3:-1080}"
 PIDFILE="$DATA_ROOT/maildev-$SMTP_PORT.pid"

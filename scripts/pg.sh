@@ -7,8 +7,8 @@
 # When DATABASE_URL is set, nothing here runs: that server is used as it is.
 set -euo pipefail
 
-ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
-DATA_ROOT="${CW_DATA_DIR:-$ROOT/.data}"
+# shellcheck source=lib-data-dir.sh
+. "$(dirname "${BASH_SOURCE[0]}")/lib-data-dir.sh"
 PGDATA_DIR="$DATA_ROOT/pg"
 RUN_DIR="$DATA_ROOT/pg-run"
 PORT="${CW_PG_PORT:-54329}"

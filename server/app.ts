@@ -16,6 +16,8 @@ import { createRequestLog } from './lib/request-log';
 import { createPatternLookup, listApiRoutes } from './lib/route-table';
 import { refuseCrossSiteWrites } from './middleware/same-origin';
 import { serveClient } from './static-client';
+import { answerLane } from './middleware/answer-lane';
+import { createRespondentSteps } from './routes/respond';
 
 /** The largest answer is a 2,000-character text (under 12 kB as JSON, even fully escaped). */
 export const RESPONDENT_BODY_LIMIT = '32kb';
@@ -31,31 +33,43 @@ export function createApp(deps: AppDeps): express.Express {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', deps.env.TRUST_PROXY);
-  app.use(
-    helmet({
-      contentSecurityPolicy: {
-        useDefaults: true,
-        directives: {
-          'default-src': ["'self'"],
-          'script-src': ["'self'"],
-          // React sets inline style attributes (progress bars, chart sizing).
-          'style-src': ["'self'", "'unsafe-inline'"],
-          'img-src': ["'self'", 'data:', 'blob:'],
-          'font-src': ["'self'", 'data:'],
-          'connect-src': ["'self'"],
-          'frame-ancestors': ["'self'"],
-          'upgrade-insecure-requests': null,
-        },
+  const securityHeaders = helmet({
+    contentSecurityPolicy: {
+      useDefaults: true,
+      directives: {
+        'default-src': ["'self'"],
+        'script-src': ["'self'"],
+        // React sets inline style attributes (progress bars, chart sizing).
+        'style-src': ["'self'", "'unsafe-inline'"],
+        'img-src': ["'self'", 'data:', 'blob:'],
+        'font-src': ["'self'", 'data:'],
+        'connect-src': ["'self'"],
+        'frame-ancestors': ["'self'"],
+        'upgrade-insecure-requests': null,
       },
-      crossOriginEmbedderPolicy: false,
-    }),
+    },
+    crossOriginEmbedderPolicy: false,
+  });
+  const requestLog = createRequestLog(
+    deps.logger,
+    createPatternLookup(() => listApiRoutes(app)),
   );
+  const cookies = cookieParser();
+  const sameOrigin = refuseCrossSiteWrites([deps.env.APP_URL, ...deps.env.TRUSTED_ORIGINS]);
+  // Respondents send small bodies (an answer, link parameters): anything larger is refused
+  // (413) before it is parsed. Researchers' routes take larger ones (questionnaires, designs).
+  const respondentJson = express.json({ limit: RESPONDENT_BODY_LIMIT });
+  const respondent = createRespondentSteps(deps);
+  // An answer skips the routing below but passes the same steps (answer-lane.ts); compression
+  // is not among them (see below).
   app.use(
-    createRequestLog(
-      deps.logger,
-      createPatternLookup(() => listApiRoutes(app)),
+    answerLane(
+      { common: [securityHeaders, requestLog, cookies, sameOrigin, respondentJson], ...respondent },
+      errorHandler,
     ),
   );
+  app.use(securityHeaders);
+  app.use(requestLog);
   // gzip or brotli, whichever the browser prefers, for pages, scripts, styles and JSON — but
   // not around a respondent's answer: its reply is a receipt far below compression's 1 kB
   // threshold, and wrapping the response for it costs CPU on the busiest route of a launch.
@@ -72,15 +86,13 @@ export function createApp(deps: AppDeps): express.Express {
         ? compressRespondent(req, res, next)
         : compress(req, res, next),
   );
-  app.use(cookieParser());
-  app.use('/api', refuseCrossSiteWrites([deps.env.APP_URL, ...deps.env.TRUSTED_ORIGINS]));
-  // Respondents send small bodies (an answer, link parameters): anything larger is refused
-  // (413) before it is parsed. Researchers' routes take larger ones (questionnaires, designs).
-  app.use('/api/r', express.json({ limit: RESPONDENT_BODY_LIMIT }));
+  app.use(cookies);
+  app.use('/api', sameOrigin);
+  app.use('/api/r', respondentJson);
   app.use(express.json({ limit: '2mb' }));
 
   const api = express.Router();
-  mountApiRoutes(api, deps);
+  mountApiRoutes(api, deps, respondent);
   api.use(notFoundHandler);
   app.use('/api', api);
 

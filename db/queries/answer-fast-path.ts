@@ -18,7 +18,7 @@ type AnswerRow = Omit<Parameters<typeof insertAnswerAndFinish>[1], 'finish'> & {
   createdAt: Date;
 };
 
-const STATEMENT = 'answer_fast_path_v1';
+const STATEMENT = 'answer_fast_path_v2';
 
 /*
  * Conditions (all must hold, or nothing is written):
@@ -29,10 +29,15 @@ const STATEMENT = 'answer_fast_path_v1';
  *   (those take the quota lock on the full path).
  * The unique indexes on (respondent, screen) and (respondent, client id) still decide between
  * two concurrent writers, as on the full path.
+ *
+ * When nothing was written, the row stored under this client id (if any), the respondent's
+ * status and the screens they have answered come back too, so that a retry (a phone that
+ * lost the reply) is recognised without another round trip. Those reads run only then
+ * (PostgreSQL skips a subquery whose one-time condition is false).
  */
 const TEXT = `
 with ctx as (
-  select r.status, s.settings,
+  select r.status, s.settings, s.archived_at is not null as archived,
          (s.status = 'live' and s.archived_at is null
           and (s.settings->>'closeAt' is null or (s.settings->>'closeAt')::timestamptz > $10)
           and ($12::text <> 'completed'
@@ -66,12 +71,29 @@ freed as (
    where version_id = $15 and $12::text in ('screened_out', 'over_quota')
      and exists (select 1 from fin)
 )
-select (select id from ins) as id, ctx.settings from ctx`;
+select (select id from ins) as id, ctx.settings, ctx.status, ctx.archived,
+       mine.screen_key as mine_screen_key, mine.value as mine_value,
+       case when mine.screen_key is not null then
+         (select array_agg(a.screen_key) from answers a where a.respondent_id = $1) end as answered
+  from ctx
+  left join lateral (select a.screen_key, a.value from answers a
+                      where not exists (select 1 from ins)
+                        and a.respondent_id = $1 and a.client_id = $3) mine on true`;
+
+/** What the statement read when it wrote nothing, for telling a retry from everything else. */
+export type NothingWritten = {
+  status: string;
+  archived: boolean;
+  /** The answer already stored under this client id, or null. */
+  mine: { screenKey: string; value: unknown } | null;
+  /** Screen keys answered so far (read only when `mine` is set). */
+  answered: string[];
+};
 
 /**
  * Stores the answer when it is a plain in-order answer of a live session. Returns the new id
- * and the study's settings; `id` is null when nothing was written, and the whole result is
- * null when the respondent or study is gone.
+ * and the study's settings; `id` is null when nothing was written (then `refused` says what
+ * was found), and the whole result is null when the respondent or study is gone.
  */
 export async function insertAnswerIfOpen(
   db: Db,
@@ -81,8 +103,16 @@ export async function insertAnswerIfOpen(
     status: 'in_progress' | 'completed' | 'screened_out';
     durationMs: number;
   },
-): Promise<{ id: string | null; settings: unknown } | null> {
-  const r = await db.$client.query<{ id: string | null; settings: unknown }>({
+): Promise<{ id: string | null; settings: unknown; refused: NothingWritten | null } | null> {
+  const r = await db.$client.query<{
+    id: string | null;
+    settings: unknown;
+    status: string;
+    archived: boolean;
+    mine_screen_key: string | null;
+    mine_value: unknown;
+    answered: string[] | null;
+  }>({
     name: STATEMENT,
     text: TEXT,
     values: [
@@ -104,5 +134,18 @@ export async function insertAnswerIfOpen(
     ],
   });
   const row = r.rows[0];
-  return row ? { id: row.id, settings: row.settings } : null;
+  if (!row) return null;
+  const refused =
+    row.id === null
+      ? {
+          status: row.status,
+          archived: row.archived,
+          mine:
+            row.mine_screen_key === null
+              ? null
+              : { screenKey: row.mine_screen_key, value: row.mine_value },
+          answered: row.answered ?? [],
+        }
+      : null;
+  return { id: row.id, settings: row.settings, refused };
 }

@@ -90,7 +90,11 @@ export async function replaceAnswer(
   return row;
 }
 
-/** The current answers that replaced earlier ones, per study (the answer-history download). */
+/**
+ * The current answers that replaced earlier ones, per study (the answer-history download and
+ * the revised_screens column), each respondent's by screen key: one per screen, so the order
+ * is the same on every read (answers written together share their created_at).
+ */
 export async function listRevisedAnswers(db: DbOrTx, params: { studyId: string }) {
   return db
     .select({
@@ -102,10 +106,10 @@ export async function listRevisedAnswers(db: DbOrTx, params: { studyId: string }
     })
     .from(answers)
     .where(and(eq(answers.studyId, params.studyId), sql`${answers.revisionCount} > 0`))
-    .orderBy(asc(answers.respondentId), asc(answers.createdAt));
+    .orderBy(asc(answers.respondentId), asc(answers.screenKey));
 }
 
-/** Every replaced answer of a study, oldest first (the answer-history download). */
+/** Every replaced answer of a study, each screen's oldest first (the answer-history download). */
 export async function listAnswerHistory(db: DbOrTx, params: { studyId: string }) {
   return db
     .select({
@@ -115,5 +119,10 @@ export async function listAnswerHistory(db: DbOrTx, params: { studyId: string })
     })
     .from(answerRevisions)
     .where(eq(answerRevisions.studyId, params.studyId))
-    .orderBy(asc(answerRevisions.respondentId), asc(answerRevisions.replacedAt));
+    .orderBy(
+      asc(answerRevisions.respondentId),
+      asc(answerRevisions.screenKey),
+      asc(answerRevisions.replacedAt),
+      asc(answerRevisions.id),
+    );
 }

@@ -6,7 +6,7 @@
  */
 import { and, count, eq, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
-import { studies, studyVersions } from '../schema/studies';
+import { studies } from '../schema/studies';
 import { invitees, respondents } from '../schema/fieldwork';
 
 export const respondentColumns = {
@@ -54,13 +54,16 @@ const studyByPublicId = (db: DbOrTx) =>
       currentVersion: studies.currentVersion,
       archivedAt: studies.archivedAt,
       // The version a new respondent answers, read in the same round trip (session starts).
-      latestVersionId: sql<string | null>`(select ${studyVersions.id} from ${studyVersions}
-        where ${studyVersions.studyId} = ${studies.id}
-        order by ${studyVersions.version} desc limit 1)`,
+      // Qualified by hand: drizzle leaves the columns of a one-table select unqualified, and
+      // inside the subquery an unqualified "id" named the version's own id, so this was always
+      // null and every start read the latest version in a round trip of its own.
+      latestVersionId: sql<string | null>`(select sv.id from study_versions sv
+        where sv.study_id = "studies"."id"
+        order by sv.version desc limit 1)`,
     })
     .from(studies)
     .where(eq(studies.publicId, sql.placeholder('publicId')))
-    .prepare('study_by_public_id_v1');
+    .prepare('study_by_public_id_v2');
 const studyByPublicIdCache = new WeakMap<object, ReturnType<typeof studyByPublicId>>();
 
 /** The study a public link points to, whatever its status (the service decides what to show). */
@@ -70,12 +73,25 @@ export async function getStudyByPublicId(db: DbOrTx, params: { publicId: string 
   return row ?? null;
 }
 
+/**
+ * The invitee of a personal link and the respondent it has already started, if any, in one
+ * round trip (respondents_invitee_uq allows one per invitee).
+ */
 export async function getInviteeByToken(db: DbOrTx, params: { studyId: string; token: string }) {
   const [row] = await db
-    .select({ id: invitees.id, externalId: invitees.externalId })
+    .select({ id: invitees.id, externalId: invitees.externalId, respondent: respondentColumns })
     .from(invitees)
+    .leftJoin(
+      respondents,
+      and(eq(respondents.studyId, params.studyId), eq(respondents.inviteeId, invitees.id)),
+    )
     .where(and(eq(invitees.studyId, params.studyId), eq(invitees.token, params.token)));
-  return row ?? null;
+  if (!row) return null;
+  return {
+    id: row.id,
+    externalId: row.externalId,
+    respondent: row.respondent as RespondentRow | null,
+  };
 }
 
 const startedRespondentColumns = [
@@ -90,14 +106,17 @@ const startedRespondentColumns = [
   'device',
   'language',
 ] as const;
+// The plan is not sent back: the caller has just built it, and reading it back would cost a
+// JSON parse of the whole plan per start for an object the process already holds.
+const { plan: _plan, ...startedReturning } = respondentColumns;
 const insertStarted = (db: DbOrTx) =>
   db
     .insert(respondents)
     .values(
       Object.fromEntries(startedRespondentColumns.map((c) => [c, sql.placeholder(c)])) as never,
     )
-    .returning(respondentColumns)
-    .prepare('insert_started_respondent_v1');
+    .returning(startedReturning)
+    .prepare('insert_started_respondent_v2');
 const insertStartedCache = new WeakMap<object, ReturnType<typeof insertStarted>>();
 
 export async function insertRespondent(
@@ -129,7 +148,7 @@ export async function insertRespondent(
         externalId: params.externalId ?? null,
         panelKey: params.panelKey ?? null,
       });
-      return row as RespondentRow;
+      return { ...row, plan: params.plan } as RespondentRow;
     }
   const [row] = await db.insert(respondents).values(params).returning(respondentColumns);
   return row as RespondentRow;

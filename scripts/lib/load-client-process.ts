@@ -6,10 +6,16 @@ import type { LoadOptions, LoadResult } from './respondent-load';
 const root = path.resolve(import.meta.dirname, '../..');
 
 function startClient(script: string, options: unknown): { child: ChildProcess; lines: string[] } {
-  const child = spawn(process.execPath, ['--import', 'tsx', script, JSON.stringify(options)], {
-    cwd: root,
-    stdio: ['pipe', 'pipe', 'inherit'],
-  });
+  // Profiling the load client: BENCH_CLIENT_NODE_ARGS='--cpu-prof --cpu-prof-dir=…'.
+  const nodeArgs = process.env.BENCH_CLIENT_NODE_ARGS?.split(' ').filter(Boolean) ?? [];
+  const child = spawn(
+    process.execPath,
+    [...nodeArgs, '--import', 'tsx', script, JSON.stringify(options)],
+    {
+      cwd: root,
+      stdio: ['pipe', 'pipe', 'inherit'],
+    },
+  );
   const lines: string[] = [];
   let partial = '';
   child.stdout!.on('data', (d: Buffer) => {

@@ -8,8 +8,7 @@
  * prefers one API instance, switching to the next when its instance does not answer.
  */
 import { randomUUID } from 'node:crypto';
-import http from 'node:http';
-import zlib from 'node:zlib';
+import { PhoneConnection, type PhoneReply } from './phone-connection';
 import { createPrng, type Prng } from '../../server/engine/draws/prng';
 import { randomIndex } from '../../server/engine/draws/random-index';
 import type { RespondentScreen, RespondentSession } from '../../shared/schemas/respondent';
@@ -69,76 +68,45 @@ const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 /** A reply not complete within this long is treated as lost (sent again). */
 const REQUEST_TIMEOUT_MS = 15_000;
+const START_BODY = JSON.stringify({ params: {}, device: 'bench' });
 
 /**
- * Each simulated phone has its own keep-alive connection, opened at its first request and
- * kept between answers, as a phone's browser does (one request at a time: one connection).
- * Connections are therefore opened as respondents arrive, not as requests happen to overlap
- * (a shared pool would open one per concurrent request and pass them between respondents).
- * Node's http client costs the load process far less CPU per request than fetch, so the
- * client is not what limits a run.
+ * A simulated phone: its own keep-alive connection to each instance it has used (opened at its
+ * first request there and kept between answers, as a phone's browser does; one request at a
+ * time), and the header lines every request of it carries (its address as a load balancer
+ * gives it, and its session token once it has one).
  */
-const phoneAgent = () => new http.Agent({ keepAlive: true, maxSockets: 1 });
+class Phone {
+  private readonly connections = new Map<number, PhoneConnection>();
+  private headers: string;
 
-function decoded(body: Buffer, encoding: string | undefined): Buffer {
-  if (encoding === 'br') return zlib.brotliDecompressSync(body);
-  if (encoding === 'gzip') return zlib.gunzipSync(body);
-  if (encoding === 'deflate') return zlib.inflateSync(body);
-  return body;
-}
+  constructor(
+    private readonly bases: string[],
+    n: number,
+  ) {
+    // As a phone's browser does: the session (the whole questionnaire) may come compressed.
+    this.headers =
+      'Content-Type: application/json\r\nAccept-Encoding: gzip, deflate, br\r\n' +
+      `X-Forwarded-For: 10.${(n >> 16) & 255}.${(n >> 8) & 255}.${n & 255}\r\n`;
+  }
 
-/**
- * One POST and its JSON reply, settled within REQUEST_TIMEOUT_MS whatever happens: the timer
- * destroys the request and rejects, so a reply cut off mid-body (or a read that never settles)
- * counts as lost and is sent again. A 2xx whose body cannot be read is lost too.
- */
-function postJson(
-  agent: http.Agent,
-  url: string,
-  headers: Record<string, string>,
-  body: unknown,
-): Promise<{ status: number; retryAfter: string | undefined; json: Record<string, unknown> }> {
-  const payload = JSON.stringify(body);
-  return new Promise((resolve, reject) => {
-    const req = http.request(
-      url,
-      {
-        method: 'POST',
-        agent,
-        // As a phone's browser does: the session (the whole questionnaire) comes compressed.
-        headers: {
-          ...headers,
-          'accept-encoding': 'gzip, deflate, br',
-          'content-length': String(Buffer.byteLength(payload)),
-        },
-      },
-      (res) => {
-        const chunks: Buffer[] = [];
-        res.on('data', (c: Buffer) => chunks.push(c));
-        res.on('error', reject);
-        res.on('end', () => {
-          const status = res.statusCode ?? 0;
-          let json: Record<string, unknown> = {};
-          try {
-            const raw = decoded(Buffer.concat(chunks), res.headers['content-encoding']);
-            json = JSON.parse(raw.toString('utf8')) as Record<string, unknown>;
-          } catch (err) {
-            if (status >= 200 && status < 300) return reject(err as Error);
-          }
-          const retryAfter = res.headers['retry-after'];
-          resolve({
-            status,
-            retryAfter: Array.isArray(retryAfter) ? retryAfter[0] : retryAfter,
-            json,
-          });
-        });
-      },
-    );
-    const timer = setTimeout(() => req.destroy(new Error('timed out')), REQUEST_TIMEOUT_MS);
-    req.on('close', () => clearTimeout(timer));
-    req.on('error', reject);
-    req.end(payload);
-  });
+  setToken(token: string): void {
+    this.headers += `X-Respondent-Token: ${token}\r\n`;
+  }
+
+  post(instance: number, path: string, body: string): Promise<PhoneReply> {
+    let c = this.connections.get(instance);
+    if (!c)
+      this.connections.set(
+        instance,
+        (c = new PhoneConnection(this.bases[instance], REQUEST_TIMEOUT_MS)),
+      );
+    return c.post(path, this.headers, body);
+  }
+
+  close(): void {
+    for (const c of this.connections.values()) c.close();
+  }
 }
 
 function valueFor(screen: RespondentScreen, random: Prng) {
@@ -186,14 +154,17 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
     failingSince ??= Date.now();
   };
 
+  const pathOf = (name: string) => `/api/r/${opts.publicId}${name}`;
+  const sessionsPath = pathOf('/sessions');
+  const answersPath = pathOf('/answers');
+
   /** One request, sent again until it gets a final answer; null when given up. */
   async function send(
     n: number,
+    phone: Phone,
     path: string,
-    body: unknown,
-    token: string | null,
+    payload: string,
     timings: number[],
-    agent: http.Agent,
   ): Promise<{ status: number; json: Record<string, unknown> } | null> {
     const deadline = Date.now() + opts.giveUpMs;
     let instance = n % opts.bases.length;
@@ -202,21 +173,11 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
       const t0 = performance.now();
       let wait = Math.min(8_000, 250 * 2 ** attempt++) * (0.5 + Math.random());
       try {
-        const res = await postJson(
-          agent,
-          `${opts.bases[instance]}/api/r/${opts.publicId}${path}`,
-          {
-            'content-type': 'application/json',
-            'x-forwarded-for': `10.${(n >> 16) & 255}.${(n >> 8) & 255}.${n & 255}`,
-            ...(token ? { 'x-respondent-token': token } : {}),
-          },
-          body,
-        );
-        const { json } = res;
+        const res = await phone.post(instance, path, payload);
         timings.push(performance.now() - t0);
         if (res.status < 500 && res.status !== 429) {
           noteSuccess();
-          return { status: res.status, json };
+          return res;
         }
         noteFailure();
         if (res.status === 429) r.errors429++;
@@ -238,23 +199,16 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
     const n = opts.firstRespondent + i;
     const random = createPrng(opts.seed * 100_003 + n);
     await sleep((opts.rampMs * i) / Math.max(1, opts.respondents));
-    const agent = phoneAgent();
+    const phone = new Phone(opts.bases, n);
     try {
-      await answerAll(n, random, agent);
+      await answerAll(n, random, phone);
     } finally {
-      agent.destroy();
+      phone.close();
     }
   }
 
-  async function answerAll(n: number, random: Prng, agent: http.Agent) {
-    const started = await send(
-      n,
-      '/sessions',
-      { params: {}, device: 'bench' },
-      null,
-      r.sessionMs,
-      agent,
-    );
+  async function answerAll(n: number, random: Prng, phone: Phone) {
+    const started = await send(n, phone, sessionsPath, START_BODY, r.sessionMs);
     if (!started) return;
     if (started.status !== 201) {
       r.errorsOther.push({
@@ -267,6 +221,7 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
     const span: [number, number] = [Date.now() - r.startedAt, 0];
     r.spans.push(span);
     const session = started.json as unknown as RespondentSession;
+    phone.setToken(session.sessionToken);
     for (const screen of session.screens) {
       await sleep(opts.thinkMs * (0.5 + random.nextDouble()));
       const body = {
@@ -275,7 +230,8 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
         value: valueFor(screen, random),
         responseMs: 2000 + randomIndex(random, 20_000),
       };
-      const res = await send(n, '/answers', body, session.sessionToken, r.answerMs, agent);
+      const payload = JSON.stringify(body);
+      const res = await send(n, phone, answersPath, payload, r.answerMs);
       span[1] = Date.now() - r.startedAt;
       if (!res) {
         r.unsent++;
@@ -297,7 +253,7 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
       if (res.json.status !== 'in_progress') break;
       if (random.nextDouble() < opts.retryShare) {
         r.replaysAsked++;
-        const again = await send(n, '/answers', body, session.sessionToken, r.answerMs, agent);
+        const again = await send(n, phone, answersPath, payload, r.answerMs);
         if (again?.status === 200 && again.json.replay === true) r.replaysConfirmed++;
         else if (again) r.errorsOther.push({ status: again.status, code: 'replay_not_recognised' });
       }

@@ -30,13 +30,12 @@ import {
 import { replaceTasteProfiles } from '../../db/queries/taste-profiles';
 import {
   hashChoiceData,
-  loadStudyChoiceData,
+  loadRunChoiceData,
   toBuiltChoiceData,
 } from '../services/choice-data-from-study';
 import { ESTIMATION_JOB } from '../services/runs';
-import { getRunSeed, splitStoredSpec } from '../services/estimation/run-view';
+import { getRunSeed } from '../services/estimation/run-view';
 import { loadMembershipCovariates } from '../services/estimation/study-membership';
-import { getSpecColumns } from '../engine/estimation/run-estimation';
 import {
   createEstimationPool,
   runEstimationInWorker,
@@ -88,16 +87,10 @@ export async function runEstimationJob(
       onRetry: () => deps.logger.warn({ runId }, 'database unreachable; saving the run again'),
     });
   try {
-    const { spec, respondents, dataOrder } = splitStoredSpec(run.spec);
-    const keys = getSpecColumns(spec);
     // A run read in the old order (queued or resumed across the change) keeps it, so it
     // reproduces and its checkpoint's data hash still matches.
-    const prepared = await persist(() =>
-      loadStudyChoiceData(deps.db, {
-        studyId: run.studyId,
-        filterId: respondents.filterId,
-        order: dataOrder,
-      }),
+    const { spec, prepared, keys } = await persist(() =>
+      loadRunChoiceData(deps.db, { studyId: run.studyId, storedSpec: run.spec }),
     );
     const built = toBuiltChoiceData(prepared, keys);
     const membership = await persist(() =>

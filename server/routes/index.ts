@@ -12,7 +12,7 @@ import { createInvitationsRouter } from './invitations';
 import { createStudiesRouter } from './studies';
 import { createQuestionnaireRouter } from './questionnaire';
 import { createLifecycleRouter } from './lifecycle';
-import { createRespondRouter } from './respond';
+import { createRespondRouter, type RespondentSteps } from './respond';
 import { createRunsRouter } from './runs';
 import { createDesignsRouter } from './designs';
 import { createPublicFilesRouter, createStudyFilesRouter } from './files';
@@ -29,11 +29,12 @@ import { createPreviewRouter } from './preview';
 import { createStudyTextsRouter } from './study-texts';
 import { createStudyImportsRouter } from './study-imports';
 
-export function mountApiRoutes(api: Router, deps: AppDeps): void {
+/** `respondent`: the answer routes' steps when the app also runs them in its answer lane. */
+export function mountApiRoutes(api: Router, deps: AppDeps, respondent?: RespondentSteps): void {
   api.use('/health', createHealthRouter(deps));
   // First after health: a panel launch sends hundreds of respondent requests a second, and
   // Express tries the mounts in order (no other mount begins with /r, so order is free here).
-  api.use('/r/:publicId', createRespondRouter(deps));
+  api.use('/r/:publicId', createRespondRouter(deps, respondent));
   api.use('/auth', createAuthRouter(deps));
   api.use('/account', createAccountRouter(deps));
   api.use('/invitations', createInvitationsRouter(deps));

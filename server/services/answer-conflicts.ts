@@ -24,6 +24,21 @@ function sameValue(stored: unknown, sent: AnswerInput['value']): boolean {
   );
 }
 
+/** Whether the answer stored under a client id is this very answer sent again (a retry). */
+export function isRetryOf(
+  stored: { screenKey: string; value: unknown },
+  answer: Pick<AnswerInput, 'screenKey' | 'value'>,
+): boolean {
+  return stored.screenKey === answer.screenKey && sameValue(stored.value, answer.value);
+}
+
+/** Where a respondent goes on: the first of their screens without an answer (or past the end). */
+export function nextUnanswered(screens: RespondentScreen[], answered: Iterable<string>): number {
+  const keys = new Set(answered);
+  const next = screens.findIndex((s) => !keys.has(s.key));
+  return next < 0 ? screens.length : next;
+}
+
 export async function resolveRefusedAnswer(
   db: DbOrTx,
   params: {
@@ -39,7 +54,7 @@ export async function resolveRefusedAnswer(
   const stored = state?.answers ?? [];
   const mine = stored.find((a) => a.clientId === answer.clientId);
   if (mine) {
-    if (mine.screenKey !== answer.screenKey || !sameValue(mine.value, answer.value))
+    if (!isRetryOf(mine, answer))
       throw new ConflictError(
         'client_id_reused',
         `This answer id was already used for the screen "${mine.screenKey}" with ${
@@ -47,9 +62,11 @@ export async function resolveRefusedAnswer(
         }; nothing was changed.`,
         [{ path: 'clientId', message: `Already used for ${mine.screenKey}` }],
       );
-    const answered = new Set(stored.map((a) => a.screenKey));
-    const next = params.screens.findIndex((s) => !answered.has(s.key));
-    return params.receipt(status, true, next < 0 ? params.screens.length : next);
+    const next = nextUnanswered(
+      params.screens,
+      stored.map((a) => a.screenKey),
+    );
+    return params.receipt(status, true, next);
   }
   if (status === 'completed')
     throw new ConflictError(

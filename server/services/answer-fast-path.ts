@@ -6,11 +6,13 @@
  * a retry, a closed or closing study, a quota (segment quotas are known here and sent there at
  * once), an answer out of order, a session that ended —
  * the caller takes the full path, which decides exactly as if this one did not exist. So this
- * path only ever says yes; every refusal, receipt of a retry and 409 comes from the full path.
+ * path only ever says yes: a stored answer, or the receipt of a plain retry (the same client
+ * id, screen and value, which the statement reads back when it writes nothing, answered as
+ * the full path would: answer-conflicts.ts); every refusal and 409 comes from the full path.
  */
 import type { Db } from '../../db/client';
-import type { AnswerReceipt } from '../../shared/schemas/respondent';
-import { insertAnswerIfOpen } from '../../db/queries/answer-fast-path';
+import type { AnswerReceipt, RespondentStatus } from '../../shared/schemas/respondent';
+import { insertAnswerIfOpen, type NothingWritten } from '../../db/queries/answer-fast-path';
 import { isDataException } from '../lib/db-errors';
 import { readSettings } from './lifecycle';
 import { redirectFor } from './respondent-session';
@@ -21,6 +23,7 @@ import { shapeAnswer, type AnswerInput } from './answer-shape';
 import { findKnownRespondent } from './known-respondents';
 import { segmentQuotaApplies } from './segment-quotas';
 import { ruleOfScreen } from '../../shared/survey/skip-logic';
+import { isRetryOf, nextUnanswered } from './answer-conflicts';
 
 /** The receipt of a stored answer, or null when the full path must decide. */
 export async function saveAnswerFast(
@@ -60,15 +63,30 @@ export async function saveAnswerFast(
     if (isDataException(err)) return null;
     throw err;
   }
-  if (!stored?.id) return null;
-  return {
+  if (!stored) return null;
+  const receipt = (done: RespondentStatus, next: number, replay: boolean): AnswerReceipt => ({
     screenKey: answer.screenKey,
-    nextScreenKey: status === 'in_progress' ? (screens[index + 1]?.key ?? null) : null,
-    status,
+    nextScreenKey: done === 'in_progress' ? (screens[next]?.key ?? null) : null,
+    status: done,
     redirectUrl:
-      status === 'in_progress'
+      done === 'in_progress'
         ? null
-        : redirectFor(readSettings(stored.settings), status, respondent.externalId),
-    replay: false,
-  };
+        : redirectFor(readSettings(stored.settings), done, respondent.externalId),
+    replay,
+  });
+  if (stored.id) return receipt(status, index + 1, false);
+  const retry = retryOf(stored.refused, answer);
+  return retry ? receipt(retry.status, nextUnanswered(screens, retry.answered), true) : null;
+}
+
+/**
+ * The refused write was this answer sent again, in a study that still exists: the full path
+ * would find the same stored row and give the same receipt (resolveRefusedAnswer).
+ */
+function retryOf(
+  refused: NothingWritten | null,
+  answer: AnswerInput,
+): { status: RespondentStatus; answered: string[] } | null {
+  if (!refused?.mine || refused.archived || !isRetryOf(refused.mine, answer)) return null;
+  return { status: refused.status as RespondentStatus, answered: refused.answered };
 }

@@ -29,6 +29,8 @@ import {
 } from './estimation/code-answers';
 import { applyRespondentFilter } from './estimation/respondent-filter';
 import { StudyDataError } from './estimation/study-data-error';
+import { splitStoredSpec } from './estimation/run-view';
+import { getSpecColumns } from '../engine/estimation/run-estimation';
 
 export { getPreparedColumns, codeStudyAnswers } from './estimation/code-answers';
 export type { PreparedChoiceData, PreparedColumn } from './estimation/code-answers';
@@ -134,4 +136,23 @@ export async function loadStudyChoiceData(
   }
   const answers = await listChoiceAnswers(db, { studyId: params.studyId });
   return codeStudyAnswers(versions, groupChoiceAnswers(included, answers), params.order);
+}
+
+/**
+ * The data a run is estimated on, as its stored spec says: the respondents of its saved filter
+ * (all included ones without), read in its data order, and the coded columns of its
+ * coefficients. The estimation job and the run's choice download both read it here, so the
+ * download is the run's data to the byte (its SHA-256 is the run's data hash).
+ */
+export async function loadRunChoiceData(
+  db: Db | DbOrTx,
+  params: { studyId: string; storedSpec: unknown },
+) {
+  const { spec, respondents, dataOrder } = splitStoredSpec(params.storedSpec);
+  const prepared = await loadStudyChoiceData(db, {
+    studyId: params.studyId,
+    filterId: respondents.filterId,
+    order: dataOrder,
+  });
+  return { spec, prepared, keys: getSpecColumns(spec) };
 }

@@ -64,6 +64,8 @@ const SCREENS_CACHE_LIMIT = 2_000;
 export function screensOfRespondent(
   version: FrozenVersion,
   respondent: { id: string; versionId: string; plan: unknown },
+  /** The plan this process has just built for a new respondent: not checked again. */
+  builtPlan?: RespondentPlan,
 ): { screens: RespondentScreen[]; plan: RespondentPlan } {
   const hit = screensCache.get(respondent.id);
   if (hit && hit.versionId === version.id) {
@@ -71,7 +73,8 @@ export function screensOfRespondent(
     screensCache.set(respondent.id, hit);
     return hit;
   }
-  const plan = respondentPlanSchema.parse(respondent.plan);
+  // A stored plan is read back from jsonb and checked; one built here is checked by its type.
+  const plan = builtPlan ?? respondentPlanSchema.parse(respondent.plan);
   const entry = { versionId: version.id, screens: buildScreens(version, plan), plan };
   if (screensCache.size >= SCREENS_CACHE_LIMIT)
     screensCache.delete(screensCache.keys().next().value!);

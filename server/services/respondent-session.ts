@@ -21,6 +21,7 @@ import { listAnswerValues } from '../../db/queries/answers';
 import { givenOnRevisable } from '../../shared/survey/going-back';
 import type { FieldworkSettings } from '../../shared/schemas/study-lifecycle';
 import {
+  type RespondentPlan,
   type RespondentSession,
   type RespondentStatus,
   type StartSessionInput,
@@ -146,7 +147,7 @@ export async function createRespondent(
     /** The study's latest version when the caller has just read it (else it is read here). */
     latestVersionId?: string | null;
   },
-): Promise<{ respondent: RespondentRow; sessionToken: string }> {
+): Promise<{ respondent: RespondentRow; sessionToken: string; plan: RespondentPlan }> {
   const latestId =
     params.latestVersionId ?? (await getLatestVersionId(db, { studyId: params.studyId }))?.id;
   if (!latestId) throw new AppError(409, 'survey_not_open', 'This survey is not open yet.');
@@ -179,7 +180,7 @@ export async function createRespondent(
       ...(params.startedAt ? { startedAt: params.startedAt } : {}),
       ...(params.simulatedTruth !== undefined ? { simulatedTruth: params.simulatedTruth } : {}),
     });
-    return { respondent, sessionToken };
+    return { respondent, sessionToken, plan };
   } catch (err) {
     // The place was taken for a respondent that does not exist: give it back.
     await releaseBlock(db, { versionId: version.id, block }).catch(() => {});
@@ -191,10 +192,11 @@ export async function buildSession(
   db: DbOrTx,
   study: { id: string; publicTitle: string; status: string; settings: unknown },
   respondent: RespondentRow,
-  opts: { isNew?: boolean } = {},
+  /** isNew: just created (no answers to read); builtPlan: its plan as createRespondent made it. */
+  opts: { isNew?: boolean; builtPlan?: RespondentPlan } = {},
 ): Promise<RespondentSession> {
   const source = await loadFrozenVersion(db, { id: respondent.versionId, studyId: study.id });
-  const { screens, plan } = screensOfRespondent(source, respondent);
+  const { screens, plan } = screensOfRespondent(source, respondent, opts.builtPlan);
   const local = localizeVersion(source, study.publicTitle, respondent.language);
   // The answer path keeps the source-language screens; the phone gets its language's.
   const survey =
@@ -231,7 +233,7 @@ export async function startSession(
 ): Promise<RespondentSession> {
   const study = await findPublicStudy(deps, publicId);
   // The answers that follow find this respondent in memory (known-respondents.ts).
-  const open = (r: RespondentRow, opts?: { isNew?: boolean }) => {
+  const open = (r: RespondentRow, opts?: Parameters<typeof buildSession>[3]) => {
     rememberRespondent(publicId, r);
     return buildSession(deps.db, study, r, opts);
   };
@@ -246,7 +248,7 @@ export async function startSession(
   }
   assertOpen(study);
   const settings = readSettings(study.settings);
-  let invitee: { id: string; externalId: string | null } | null = null;
+  let invitee: Awaited<ReturnType<typeof getInviteeByToken>> = null;
   const inviteToken = input.params.inv;
   if (inviteToken) {
     invitee = await getInviteeByToken(deps.db, { studyId: study.id, token: inviteToken });
@@ -256,12 +258,14 @@ export async function startSession(
         'invitation_not_found',
         'This personal link is not valid for this survey.',
       );
+    // A personal link already started resumes its respondent (read with the invitee).
+    if (invitee.respondent) return open(invitee.respondent);
   }
   const identity = identityOf(settings, input.params, invitee);
-  const earlier = await findEarlierRespondent(deps.db, study.id, identity);
+  const earlier = invitee ? null : await findEarlierRespondent(deps.db, study.id, identity);
   if (earlier) return open(earlier);
   try {
-    const { respondent } = await createRespondent(deps.db, {
+    const { respondent, plan } = await createRespondent(deps.db, {
       studyId: study.id,
       ...identity,
       device: input.device,
@@ -269,7 +273,7 @@ export async function startSession(
       standalone: true,
       latestVersionId: study.latestVersionId,
     });
-    return open(respondent, { isNew: true });
+    return open(respondent, { isNew: true, builtPlan: plan });
   } catch (err) {
     // Opened on two devices at once: the unique index let the other start win; resume it.
     if (!lostIdentityRace(err)) throw err;

@@ -5,7 +5,7 @@
  * average over R prior draws. A singular information matrix gives Infinity.
  */
 import { getSpdLogDet } from '../linalg/cholesky';
-import { addTaskInformation } from './mnl-information';
+import { averageOverDraws } from './mnl-information';
 
 /** Maps log det I to det(I)^(−1/K), Infinity when singular. */
 export function getDErrorFromLogDet(K: number, logDet: number): number {
@@ -25,16 +25,10 @@ export function computeBayesianDError(
   draws: Float64Array,
   R: number,
 ): number {
-  const info = new Float64Array(K * K);
   const chol = new Float64Array(K * K);
-  const work = new Float64Array(J * (K + 1) + K);
-  let sum = 0;
-  for (let r = 0; r < R; r++) {
-    info.fill(0);
-    for (let s = 0; s < S; s++) addTaskInformation(K, J, x, s * J, draws, r * K, info, 0, work);
-    sum += getDErrorFromLogDet(K, getSpdLogDet(info, K, chol, 0));
-  }
-  return sum / R;
+  return averageOverDraws({ K, S, J, x }, draws, R, (info) =>
+    getDErrorFromLogDet(K, getSpdLogDet(info, K, chol, 0)),
+  );
 }
 
 /** Point-prior D-error det(I(X, β))^(−1/K) (β = zeros gives D₀). */

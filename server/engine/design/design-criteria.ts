@@ -19,7 +19,7 @@ import type { DesignCriterion } from '../../../shared/schemas/design-spec';
 import type { StudyDefinition } from '../../../shared/schemas/study-definition';
 import { getSpdLogDet } from '../linalg/cholesky';
 import { getDErrorFromLogDet } from './d-error';
-import { addTaskInformation } from './mnl-information';
+import { averageOverDraws } from './mnl-information';
 import { invertSpd } from './spd-inverse';
 
 export interface CriterionSetup {
@@ -143,15 +143,8 @@ export function computeDesignCriterion(
   draws: Float64Array,
   R: number,
 ): number {
-  const K = setup.K;
   const scorer = createCriterionScorer(setup);
-  const info = new Float64Array(K * K);
-  const work = new Float64Array(J * (K + 1) + K);
-  let sum = 0;
-  for (let r = 0; r < R; r++) {
-    info.fill(0);
-    for (let s = 0; s < S; s++) addTaskInformation(K, J, x, s * J, draws, r * K, info, 0, work);
-    sum += scorer.score(info, 0, draws, r * K);
-  }
-  return sum / R;
+  return averageOverDraws({ K: setup.K, S, J, x }, draws, R, (info, drawOffset) =>
+    scorer.score(info, 0, draws, drawOffset),
+  );
 }

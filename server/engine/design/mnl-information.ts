@@ -102,3 +102,27 @@ export function computeInformationMatrix(
   for (let s = 0; s < S; s++) addTaskInformation(K, J, x, s * J, beta, 0, out, 0, work);
   symmetrizeLower(K, out, 0);
 }
+
+/**
+ * A criterion of the S·J × K design matrix `x` (S tasks of J rows) averaged over R coefficient vectors (`draws`,
+ * row-major R × K; R = 1 is a point prior): `score` reads the information matrix at draw r (its
+ * LOWER triangle, row-major K × K) and the draw's offset in `draws`. The Bayesian average of
+ * Sándor & Wedel (2001), shared by the D-error and the other design criteria.
+ */
+export function averageOverDraws(
+  design: { K: number; S: number; J: number; x: Float64Array },
+  draws: Float64Array,
+  R: number,
+  score: (info: Float64Array, drawOffset: number) => number,
+): number {
+  const { K, S, J, x } = design;
+  const info = new Float64Array(K * K);
+  const work = new Float64Array(J * (K + 1) + K);
+  let sum = 0;
+  for (let r = 0; r < R; r++) {
+    info.fill(0);
+    for (let s = 0; s < S; s++) addTaskInformation(K, J, x, s * J, draws, r * K, info, 0, work);
+    sum += score(info, r * K);
+  }
+  return sum / R;
+}

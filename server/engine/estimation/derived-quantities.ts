@@ -9,6 +9,7 @@
  */
 import {
   getCoefficientDistribution,
+  type CoefficientDistributionAt,
   mean,
   median,
   sd,
@@ -46,39 +47,24 @@ function definitions(layout: MixedLogitLayout): Definition[] {
     const code = layout.dist[k];
     if (code === DIST_FIXED) return;
     const d = of(k);
+    const add = (
+      quantity: DerivedKind,
+      label: string,
+      f: (at: CoefficientDistributionAt) => number,
+    ) =>
+      defs.push({ name: c.name, quantity, label: `${label} of ${c.name}`, value: (t) => f(d(t)) });
     if (code === DIST_LOGNORMAL || code === DIST_NEG_LOGNORMAL) {
-      defs.push({
-        name: c.name,
-        quantity: 'mean',
-        label: `population mean of ${c.name}`,
-        value: (t) => mean(d(t)),
-      });
-      defs.push({
-        name: c.name,
-        quantity: 'median',
-        label: `population median of ${c.name}`,
-        value: (t) => median(d(t)),
-      });
-      defs.push({
-        name: c.name,
-        quantity: 'sd',
-        label: `population SD of ${c.name}`,
-        value: (t) => sd(d(t)),
-      });
+      add('mean', 'population mean', mean);
+      add('median', 'population median', median);
+      add('sd', 'population SD', sd);
       return;
     }
-    defs.push({
-      name: c.name,
-      quantity: 'sd',
-      label: `population SD of ${c.name}`,
-      value: (t) => sd(d(t)),
-    });
-    defs.push({
-      name: c.name,
-      quantity: 'wrong_sign_share',
-      label: `share of the population with the sign opposite to the mean of ${c.name}`,
-      value: (t) => wrongSignShare(d(t)),
-    });
+    add('sd', 'population SD', sd);
+    add(
+      'wrong_sign_share',
+      'share of the population with the sign opposite to the mean',
+      wrongSignShare,
+    );
   });
   const B = layout.block.length;
   // Σ = LL′: Σ_ij = Σ_l L_il L_jl over l ≤ min(i, j).

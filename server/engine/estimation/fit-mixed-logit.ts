@@ -14,13 +14,14 @@ import { computeBhhhStart } from './bhhh-start';
 import { assertColumnsVary } from './check-identification';
 import { checkMixedLogitOptions, type MixedLogitOptions } from './check-mixed-logit-options';
 import type { ChoiceData } from './choice-data';
-import type { ConvergenceMeasures, ConvergenceStatus } from './convergence';
+import type { ConvergenceStatus } from './convergence';
 import { EstimationCancelledError } from './estimation-errors';
 import type { EstimationWarning } from './estimation-warnings';
 import { fitMnl } from './fit-mnl';
-import { computeFitStatistics, computeNullLoglik, type FitStatistics } from './fit-statistics';
-import { computeInference, type Inference } from './inference';
+import { computeFitStatistics, computeNullLoglik } from './fit-statistics';
+import { computeInference } from './inference';
 import type { MixedLogitLayout } from './mixed-logit-layout';
+import type { FittedWithErrors, StartSummary } from './fitted-model';
 import { computeMixedHitRate } from './mixed-logit-hit-rate';
 import { assertCheckpointFits, type MixedLogitCheckpoint } from './mixed-logit-checkpoint';
 import { getMixedLogitStart, perturbStart } from './mixed-logit-start';
@@ -65,41 +66,22 @@ export interface MixedLogitHooks {
   onCheckpoint?: (checkpoint: MixedLogitCheckpoint) => void;
 }
 
-export interface MixedLogitResult extends FitStatistics {
+export interface MixedLogitResult extends FittedWithErrors {
   model: 'mixed';
   layout: MixedLogitLayout;
-  names: string[];
-  estimates: Float64Array;
-  se: Float64Array;
-  robustSe: Float64Array;
-  inference: Inference;
-  loglik: number;
-  loglikNull: number;
   /** LL of the MNL used for the starting values. */
   loglikMnl: number;
-  iterations: number;
   evaluations: number;
-  converged: boolean;
-  status: ConvergenceStatus;
-  measures: ConvergenceMeasures;
-  /** Gradient in the user's units at the estimate. */
-  gradient: Float64Array;
-  gradientNorm: number;
   newtonSteps: number;
   /** Largest relative disagreement of analytic and finite-difference slopes (null with BHHH). */
   gradientCheck: number | null;
-  /** Final LL, status and iterations of every start, in start order. */
-  starts: { loglik: number; status: ConvergenceStatus; iterations: number }[];
+  /** Every start, in start order. */
+  starts: StartSummary[];
   /** Number of starts whose LL is within 0.001 of the best. */
   startsAtBest: number;
   draws: { type: string; count: number; seed: number; scrambled: boolean };
   /** Kernel that evaluated the LL: 'simd' (WebAssembly) or 'typescript'. */
   kernel: KernelKind;
-  respondents: number;
-  observations: number;
-  hitRate: number;
-  holdoutHitRate: number | null;
-  warnings: EstimationWarning[];
 }
 
 /** Two starts "reach the same optimum" when their LLs differ by less than this. */

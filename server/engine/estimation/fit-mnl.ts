@@ -23,8 +23,9 @@ import {
 import { EstimationOptionsError, NonIdentifiedError } from './estimation-errors';
 import { describeTasks, type EstimationWarning } from './estimation-warnings';
 import { findSeparation } from './find-separation';
-import { computeFitStatistics, computeNullLoglik, type FitStatistics } from './fit-statistics';
-import { computeInference, type CovarianceChoice, type Inference } from './inference';
+import { computeFitStatistics, computeNullLoglik } from './fit-statistics';
+import { computeInference, type CovarianceChoice } from './inference';
+import type { FittedWithErrors } from './fitted-model';
 import { analyseInformation } from '../linalg/analyse-information';
 import { evaluateMnl } from './mnl-likelihood';
 import { computeMnlHitRate } from './mnl-hit-rate';
@@ -55,28 +56,8 @@ export interface CheckedMnlOptions {
   covariance: CovarianceChoice;
 }
 
-export interface MnlResult extends FitStatistics {
+export interface MnlResult extends FittedWithErrors {
   model: 'mnl';
-  names: string[];
-  estimates: Float64Array;
-  se: Float64Array;
-  robustSe: Float64Array;
-  inference: Inference;
-  loglik: number;
-  loglikNull: number;
-  iterations: number;
-  converged: boolean;
-  status: ConvergenceStatus;
-  measures: ConvergenceMeasures;
-  /** Gradient in the user's units at the estimate. */
-  gradient: Float64Array;
-  /** Euclidean norm of the gradient (user units) at the estimate. */
-  gradientNorm: number;
-  respondents: number;
-  observations: number;
-  hitRate: number;
-  holdoutHitRate: number | null;
-  warnings: EstimationWarning[];
 }
 
 /** Fills defaults and validates MNL options before any numerics; throws EstimationOptionsError. */

@@ -4,34 +4,16 @@
  * become null, and the covariance matrices go in whole (classical and robust).
  */
 import type { EstimationResult, EstimationSpec } from '../../../shared/schemas/estimation-spec';
-import type { ConvergenceMeasures, ConvergenceStatus } from './convergence';
 import type { DerivedQuantityEstimate } from './derived-quantities';
-import type { EstimationWarning } from './estimation-warnings';
-import type { FitStatistics } from './fit-statistics';
-import type { Inference } from './inference';
+import type { FittedModelCore, StartSummary } from './fitted-model';
 import type { MixedLogitLayout } from './mixed-logit-layout';
 import type { PopulationMoment } from './population-moments';
 import type { PopulationWtp } from './population-wtp';
 
-export interface FittedModel extends FitStatistics {
+export interface FittedModel extends FittedModelCore {
   layout: MixedLogitLayout;
-  names: string[];
-  estimates: Float64Array;
-  inference: Inference;
-  loglik: number;
-  loglikNull: number;
-  iterations: number;
-  status: ConvergenceStatus;
-  measures: ConvergenceMeasures;
-  gradient: Float64Array;
-  gradientNorm: number;
-  respondents: number;
-  observations: number;
-  hitRate: number;
-  holdoutHitRate: number | null;
-  warnings: EstimationWarning[];
   maxIterations: number;
-  starts: { loglik: number; status: ConvergenceStatus; iterations: number }[];
+  starts: StartSummary[];
   startsAtBest: number;
   newtonSteps: number;
   gradientCheck: number | null;

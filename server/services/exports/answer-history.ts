@@ -33,8 +33,13 @@ export const answerHistoryHeader = [
   'replaced_at',
 ];
 
+// Code-point order, not the machine's locale, so every server writes the same file.
+const byCodePoint = (a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0);
+const replacedTime = (r: HistoryRow) => r.replacedAt?.getTime() ?? Number.MAX_SAFE_INTEGER;
+
 /**
- * One row per answer a revised screen had. `numbers` gives each respondent's 1-based number (as
+ * One row per answer a revised screen had, in respondent-number order (the order runs read
+ * respondents in, RUN_DATA_ORDER), then by screen key, oldest answer first. `numbers` gives each respondent's 1-based number (as
  * in the background-answers download); `questions` are the questions this role may read, so
  * the answer text of any other question is left out.
  */
@@ -47,8 +52,9 @@ export function buildAnswerHistory(
   const sorted = [...rows].sort(
     (a, b) =>
       (numbers.get(a.respondentId) ?? 0) - (numbers.get(b.respondentId) ?? 0) ||
-      a.screenKey.localeCompare(b.screenKey) ||
-      a.answeredAt.getTime() - b.answeredAt.getTime(),
+      byCodePoint(a.screenKey, b.screenKey) ||
+      a.answeredAt.getTime() - b.answeredAt.getTime() ||
+      replacedTime(a) - replacedTime(b),
   );
   const versions = new Map<string, number>();
   return sorted.map((r) => {

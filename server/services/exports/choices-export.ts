@@ -1,8 +1,8 @@
 /**
  * The long choice file. Without a run: every respondent who answered a choice task, with
  * inclusion, task order, positions and times (long-choice-file.ts). With a run: exactly the
- * data the run was estimated on (included respondents, its columns), whose SHA-256 is the
- * run's data hash.
+ * data the run was estimated on (the included respondents of its saved filter, in its data
+ * order, its columns), whose SHA-256 is the run's data hash.
  */
 import type { AppDeps } from '../../deps';
 import { NotFoundError } from '../../lib/errors';
@@ -13,15 +13,13 @@ import { listStudyRespondents } from '../../../db/queries/study-respondents';
 import {
   codeStudyAnswers,
   groupChoiceAnswers,
-  loadStudyChoiceData,
+  loadRunChoiceData,
   loadVersionInputs,
-  toLongCsvRows,
+  toLongCsvText,
 } from '../choice-data-from-study';
-import { splitStoredSpec } from '../estimation/run-view';
-import { writeCsv } from '../../lib/safe-csv';
 import { buildLongChoiceTable } from './long-choice-file';
-import type { DocumentedTable } from './documented-table';
-import { CSV, fileName, type Download } from './download';
+import { writeDocumentedCsv, type DocumentedTable } from './documented-table';
+import { makeDownload, type Download } from './download';
 import type { Actor } from '../actor';
 
 /** The long choice file of every respondent (see the file comment). */
@@ -46,31 +44,14 @@ export async function exportChoicesCsv(
   at = new Date(),
 ): Promise<Download> {
   const study = await loadStudy(deps, actor.teamId, studyId);
-  const file = (kind: string, body: string): Download => ({
-    filename: fileName(study.name, kind, 'csv', at),
-    contentType: CSV,
-    body,
-  });
+  const file = (kind: string, body: string): Download =>
+    makeDownload(study.name, kind, 'csv', at, body);
   if (!runId) {
     const table = await loadLongChoiceTable(deps, studyId);
-    return file(
-      'choices-long',
-      writeCsv(
-        table.columns.map((c) => c.key),
-        table.rows,
-      ),
-    );
+    return file('choices-long', writeDocumentedCsv(table));
   }
   const run = await getRunById(deps.db, { id: runId, teamId: actor.teamId, studyId });
   if (!run) throw new NotFoundError('Run');
-  const keys = (run.spec as { coefficients: { name: string; column?: string }[] }).coefficients.map(
-    (c) => c.column ?? c.name,
-  );
-  // In the run's own respondent order, so the file estimates as the run did.
-  const { dataOrder } = splitStoredSpec(run.spec);
-  const table = toLongCsvRows(
-    await loadStudyChoiceData(deps.db, { studyId, order: dataOrder }),
-    keys,
-  );
-  return file('choices-estimated', writeCsv(table.header, table.rows));
+  const { prepared, keys } = await loadRunChoiceData(deps.db, { studyId, storedSpec: run.spec });
+  return file('choices-estimated', toLongCsvText(prepared, keys));
 }

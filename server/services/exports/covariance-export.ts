@@ -4,7 +4,7 @@ import { ConflictError } from '../../lib/errors';
 import { loadRunContext } from '../tastes/run-context';
 import { writeCsv } from '../../lib/safe-csv';
 import { buildCovarianceTable, type CovarianceKind } from './covariance-table';
-import { CSV, fileName, type Download } from './download';
+import { makeDownload, type Download } from './download';
 import type { Actor } from '../actor';
 
 export async function exportCovarianceCsv(
@@ -24,9 +24,11 @@ export async function exportCovarianceCsv(
         ? 'This run used the BHHH covariance, which has no robust (sandwich) form.'
         : 'This run has no stored covariance matrix of this kind; run it again to get one.',
     );
-  return {
-    filename: fileName(ctx.study.name, `covariance-${kind}`, 'csv', at),
-    contentType: CSV,
-    body: writeCsv(table.header, table.rows),
-  };
+  return makeDownload(
+    ctx.study.name,
+    `covariance-${kind}`,
+    'csv',
+    at,
+    writeCsv(table.header, table.rows),
+  );
 }

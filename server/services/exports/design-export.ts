@@ -5,15 +5,17 @@ import { loadStudy } from '../study-access';
 import type { StudyDefinition } from '../../../shared/schemas/study-definition';
 import type { Design } from '../../../shared/schemas/design';
 import { exportDesignCsv } from '../../engine/design/export-design-csv';
-import { CSV, fileName, type StudyExporter } from './download';
+import { makeDownload, type StudyExporter } from './download';
 
 export const exportDesign: StudyExporter = async (deps, actor, studyId, at = new Date()) => {
   const study = await loadStudy(deps, actor.teamId, studyId);
   const version = await getLatestVersion(deps.db, { studyId });
   if (!version) throw new NotFoundError('Frozen design');
-  return {
-    filename: fileName(study.name, 'design', 'csv', at),
-    contentType: CSV,
-    body: exportDesignCsv(version.definition as StudyDefinition, version.design as Design),
-  };
+  return makeDownload(
+    study.name,
+    'design',
+    'csv',
+    at,
+    exportDesignCsv(version.definition as StudyDefinition, version.design as Design),
+  );
 };

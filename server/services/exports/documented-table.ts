@@ -3,7 +3,7 @@
  * (column, meaning, unit, coding), as a sheet of the XLSX or a CSV beside the data. The column
  * format tells the XLSX writer which number format to set; CSV cells stay plain numbers.
  */
-import type { CellValue } from '../../lib/safe-csv';
+import { writeCsv, type CellValue } from '../../lib/safe-csv';
 
 export type ColumnFormat =
   'text' | 'integer' | 'logical' | 'estimate' | 'p' | 'ratio' | 'money' | 'seconds';
@@ -41,3 +41,11 @@ export const col = (
   unit = 'none',
   coding = format === 'text' ? 'text' : 'number',
 ): ColumnDoc => ({ key, meaning, unit, coding, format });
+
+/** The table as a CSV file: one column per documented column, headed by its key. */
+export function writeDocumentedCsv(table: DocumentedTable): string {
+  return writeCsv(
+    table.columns.map((c) => c.key),
+    table.rows,
+  );
+}

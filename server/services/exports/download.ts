@@ -42,3 +42,23 @@ export function fileName(studyName: string, kind: string, ext: string, at: Date)
     .slice(0, 60);
   return `${slug || 'study'}-${kind}-${at.toISOString().slice(0, 10)}.${ext}`;
 }
+
+const CONTENT_TYPES = { csv: CSV, xlsx: XLSX, html: HTML, R: R_SCRIPT } as const;
+export type FileFormat = keyof typeof CONTENT_TYPES;
+
+/** A file of the study named by fileName(), with its format's content type. */
+export function makeDownload(
+  studyName: string,
+  kind: string,
+  format: FileFormat,
+  at: Date,
+  body: string | Buffer,
+  personal?: boolean,
+): Download {
+  return {
+    filename: fileName(studyName, kind, format, at),
+    contentType: CONTENT_TYPES[format],
+    body,
+    ...(personal === undefined ? {} : { personal }),
+  };
+}

@@ -8,9 +8,14 @@ import { writeCsv } from '../../lib/safe-csv';
 import { loadRunContext, type RunContext } from '../tastes/run-context';
 import { getRunSummary } from './run-summary';
 import { buildEstimateTables, getWtpUnavailableReason } from './estimate-tables';
-import { buildCodebookRows, codebookHeader, type DocumentedTable } from './documented-table';
+import {
+  buildCodebookRows,
+  codebookHeader,
+  type DocumentedTable,
+  writeDocumentedCsv,
+} from './documented-table';
 import { addCodebookSheet, addTableSheet, createResultsWorkbook } from './documented-xlsx';
-import { CSV, XLSX, fileName, type Download, type RunExporter } from './download';
+import { makeDownload, type Download, type RunExporter } from './download';
 import type { EstimateTableName } from '../../../shared/schemas/exports';
 import type { Actor } from '../actor';
 
@@ -39,11 +44,13 @@ export const exportEstimateTablesXlsx: RunExporter = async (
   at = new Date(),
 ) => {
   const ctx = await loadRunContext(deps, actor, studyId, runId);
-  return {
-    filename: fileName(ctx.study.name, 'estimates', 'xlsx', at),
-    contentType: XLSX,
-    body: await writeEstimateTablesXlsx(ctx, buildEstimateTables(ctx), at),
-  };
+  return makeDownload(
+    ctx.study.name,
+    'estimates',
+    'xlsx',
+    at,
+    await writeEstimateTablesXlsx(ctx, buildEstimateTables(ctx), at),
+  );
 };
 
 /** One table (or the codebook of all of them) as CSV. */
@@ -57,25 +64,18 @@ export async function exportEstimateTableCsv(
 ): Promise<Download> {
   const ctx = await loadRunContext(deps, actor, studyId, runId);
   const tables = buildEstimateTables(ctx);
-  const file = (body: string): Download => ({
-    filename: fileName(
+  const file = (body: string): Download =>
+    makeDownload(
       ctx.study.name,
       name === 'codebook' ? 'estimates-codebook' : name,
       'csv',
       at,
-    ),
-    contentType: CSV,
-    body,
-  });
+      body,
+    );
   if (name === 'codebook') return file(writeCsv(codebookHeader, buildCodebookRows(tables)));
   const table = tables.find((t) => t.name === name);
   const wtpUnavailable = getWtpUnavailableReason(ctx.spec, ctx.results);
   if (name === 'wtp' && (!table || table.rows.length === 0 || wtpUnavailable))
     throw new ConflictError('wtp_unavailable', wtpUnavailable ?? 'This run gives no WTP.');
-  return file(
-    writeCsv(
-      table!.columns.map((c) => c.key),
-      table!.rows,
-    ),
-  );
+  return file(writeDocumentedCsv(table!));
 }

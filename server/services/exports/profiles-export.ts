@@ -12,7 +12,7 @@ import { buildProfileTable } from './profile-table';
 import { writeProfilesXlsx } from './profiles-xlsx';
 import { renderRunReport } from './run-report';
 import { loadReportScenarios } from './report-scenarios';
-import { CSV, HTML, XLSX, fileName, type RunExporter } from './download';
+import { makeDownload, type RunExporter } from './download';
 import type { Actor } from '../actor';
 
 async function loadProfileTable(deps: AppDeps, actor: Actor, studyId: string, runId: string) {
@@ -30,15 +30,11 @@ async function loadProfileTable(deps: AppDeps, actor: Actor, studyId: string, ru
 function exportProfileTable(format: 'csv' | 'xlsx'): RunExporter {
   return async (deps, actor, studyId, runId, at = new Date()) => {
     const { ctx, table } = await loadProfileTable(deps, actor, studyId, runId);
-    return {
-      filename: fileName(ctx.study.name, 'taste-profiles', format, at),
-      contentType: format === 'csv' ? CSV : XLSX,
-      body:
-        format === 'csv'
-          ? writeCsv(table.header, table.rows)
-          : await writeProfilesXlsx(ctx, table, at),
-      personal: ctx.personal,
-    };
+    const body =
+      format === 'csv'
+        ? writeCsv(table.header, table.rows)
+        : await writeProfilesXlsx(ctx, table, at);
+    return makeDownload(ctx.study.name, 'taste-profiles', format, at, body, ctx.personal);
   };
 }
 
@@ -54,14 +50,16 @@ export const exportRunReport: RunExporter = async (
 ) => {
   const { ctx, profiles } = await loadProfileTable(deps, actor, studyId, runId);
   const lowDraws = profiles.filter((p) => p.effectiveDraws < ctx.header.lowDrawsThreshold).length;
-  return {
-    filename: fileName(ctx.study.name, 'run-report', 'html', at),
-    contentType: HTML,
-    body: renderRunReport(
+  return makeDownload(
+    ctx.study.name,
+    'run-report',
+    'html',
+    at,
+    renderRunReport(
       ctx,
       { count: profiles.length, lowDraws },
       at,
       await loadReportScenarios(deps, actor, studyId, runId),
     ),
-  };
+  );
 };

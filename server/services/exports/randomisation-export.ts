@@ -3,7 +3,7 @@ import { loadStudy } from '../study-access';
 import { listStudyRespondents } from '../../../db/queries/study-respondents';
 import { z } from 'zod';
 import { writeCsv } from '../../lib/safe-csv';
-import { CSV, fileName, type StudyExporter } from './download';
+import { makeDownload, type StudyExporter } from './download';
 import { buildRandomisationRows, randomisationHeader } from './randomisation-table';
 
 const attributeNamesSchema = z.object({
@@ -24,9 +24,11 @@ export const exportRandomisationCsv: StudyExporter = async (
   const names = new Map(
     definition.success ? definition.data.attributes.map((a) => [a.id, a.name]) : [],
   );
-  return {
-    filename: fileName(study.name, 'randomisation', 'csv', at),
-    contentType: CSV,
-    body: writeCsv(randomisationHeader, buildRandomisationRows(respondents, names)),
-  };
+  return makeDownload(
+    study.name,
+    'randomisation',
+    'csv',
+    at,
+    writeCsv(randomisationHeader, buildRandomisationRows(respondents, names)),
+  );
 };

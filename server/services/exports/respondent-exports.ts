@@ -20,7 +20,7 @@ import { getFlagNames } from '../tastes/taste-rows';
 import { writeCsv } from '../../lib/safe-csv';
 import { listAnswerHistory, listRevisedAnswers } from '../../../db/queries/answer-revisions';
 import { answerHistoryHeader, buildAnswerHistory, revisedScreensOf } from './answer-history';
-import { CSV, fileName, type StudyExporter } from './download';
+import { makeDownload, type StudyExporter } from './download';
 import { getInclusion } from './inclusion';
 import type { Actor } from '../actor';
 
@@ -83,12 +83,14 @@ export const exportAnswersCsv: StudyExporter = async (deps, actor, studyId, at =
       return q.conditional ? [answer, getSkippedFlag(value)] : [answer];
     }),
   ]);
-  return {
-    filename: fileName(study.name, 'background-answers', 'csv', at),
-    contentType: CSV,
-    body: writeCsv(header, rows),
+  return makeDownload(
+    study.name,
+    'background-answers',
+    'csv',
+    at,
+    writeCsv(header, rows),
     personal,
-  };
+  );
 };
 
 /**
@@ -116,10 +118,12 @@ export const exportAnswerHistoryCsv: StudyExporter = async (
     numbers,
     questions,
   );
-  return {
-    filename: fileName(study.name, 'answer-history', 'csv', at),
-    contentType: CSV,
-    body: writeCsv(answerHistoryHeader, rows),
+  return makeDownload(
+    study.name,
+    'answer-history',
+    'csv',
+    at,
+    writeCsv(answerHistoryHeader, rows),
     personal,
-  };
+  );
 };

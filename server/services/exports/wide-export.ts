@@ -11,8 +11,8 @@ import { loadRespondentTable } from './respondent-exports';
 import { loadLongChoiceTable } from './choices-export';
 import { buildWideTable } from './wide-file';
 import { renderRImportScript } from './r-import-script';
-import { buildCodebookRows, codebookHeader } from './documented-table';
-import { CSV, R_SCRIPT, fileName, type StudyExporter } from './download';
+import { buildCodebookRows, codebookHeader, writeDocumentedCsv } from './documented-table';
+import { fileName, makeDownload, type StudyExporter } from './download';
 import type { Actor } from '../actor';
 
 async function loadWideTable(deps: AppDeps, actor: Actor, studyId: string) {
@@ -39,26 +39,27 @@ async function loadWideTable(deps: AppDeps, actor: Actor, studyId: string) {
 
 export const exportWideCsv: StudyExporter = async (deps, actor, studyId, at = new Date()) => {
   const { study, personal, table } = await loadWideTable(deps, actor, studyId);
-  return {
-    filename: fileName(study.name, 'respondents-wide', 'csv', at),
-    contentType: CSV,
-    body: writeCsv(
-      table.columns.map((c) => c.key),
-      table.rows,
-    ),
+  return makeDownload(
+    study.name,
+    'respondents-wide',
+    'csv',
+    at,
+    writeDocumentedCsv(table),
     personal,
-  };
+  );
 };
 
 /** The R script for the wide CSV this role downloads on the same day (same columns). */
 export const exportWideRScript: StudyExporter = async (deps, actor, studyId, at = new Date()) => {
   const { study, table } = await loadWideTable(deps, actor, studyId);
   const csvName = fileName(study.name, 'respondents-wide', 'csv', at);
-  return {
-    filename: fileName(study.name, 'respondents-wide', 'R', at),
-    contentType: R_SCRIPT,
-    body: renderRImportScript(table, csvName, { study: study.name, exportedAt: at }),
-  };
+  return makeDownload(
+    study.name,
+    'respondents-wide',
+    'R',
+    at,
+    renderRImportScript(table, csvName, { study: study.name, exportedAt: at }),
+  );
 };
 
 /** Every column of the long choice file and the wide respondent file. */
@@ -70,9 +71,11 @@ export const exportStudyCodebookCsv: StudyExporter = async (
 ) => {
   const { study, table } = await loadWideTable(deps, actor, studyId);
   const long = await loadLongChoiceTable(deps, studyId);
-  return {
-    filename: fileName(study.name, 'data-codebook', 'csv', at),
-    contentType: CSV,
-    body: writeCsv(codebookHeader, buildCodebookRows([long, table])),
-  };
+  return makeDownload(
+    study.name,
+    'data-codebook',
+    'csv',
+    at,
+    writeCsv(codebookHeader, buildCodebookRows([long, table])),
+  );
 };

@@ -5,15 +5,14 @@
  * CSV: the demand curve when one is asked for, else the shares.
  */
 import type { AppDeps } from '../../deps';
-import { writeCsv } from '../../lib/safe-csv';
 import { sweepDemandCurve } from '../../../shared/engine/shares/demand-curve';
 import { getLevelLabel } from '../../../shared/study/level-labels';
 import type { ShareExport } from '../../../shared/schemas/shares';
 import type { StudyDefinition } from '../../../shared/schemas/study-definition';
 import { getRunSummary } from '../exports/run-summary';
-import { col, type DocumentedTable } from '../exports/documented-table';
+import { col, type DocumentedTable, writeDocumentedCsv } from '../exports/documented-table';
 import { addCodebookSheet, addTableSheet, createResultsWorkbook } from '../exports/documented-xlsx';
-import { CSV, XLSX, fileName, type Download } from '../exports/download';
+import { makeDownload, type Download } from '../exports/download';
 import { loadPreparedShareModel, loadShareGroups, simulateScenario } from '../shares';
 import { rethrowScenarioError } from './scenario-error';
 import type { Actor } from '../actor';
@@ -143,14 +142,7 @@ export async function exportShares(
   const kind = curve ? 'demand-curve' : 'shares';
   if (input.format === 'csv') {
     const table = curve ? tables[tables.length - 1] : tables[0];
-    return {
-      filename: fileName(ctx.study.name, kind, 'csv', at),
-      contentType: CSV,
-      body: writeCsv(
-        table.columns.map((c) => c.key),
-        table.rows,
-      ),
-    };
+    return makeDownload(ctx.study.name, kind, 'csv', at, writeDocumentedCsv(table));
   }
   const workbook = createResultsWorkbook(at, [
     ['Scenario', input.name || 'not saved'],
@@ -180,9 +172,11 @@ export async function exportShares(
   };
   for (const t of tables) addTableSheet(workbook, titles[t.name], t, ctx.header.costUnit);
   addCodebookSheet(workbook, tables);
-  return {
-    filename: fileName(ctx.study.name, kind, 'xlsx', at),
-    contentType: XLSX,
-    body: Buffer.from(await workbook.xlsx.writeBuffer()),
-  };
+  return makeDownload(
+    ctx.study.name,
+    kind,
+    'xlsx',
+    at,
+    Buffer.from(await workbook.xlsx.writeBuffer()),
+  );
 }

@@ -8,6 +8,7 @@
 import { useId, useLayoutEffect, useRef, useState, type RefObject } from 'react';
 import type { StudyDefinition } from '@shared/schemas/study-definition';
 import { cn } from '@/lib/cn';
+import { ChoiceRadio } from './choice-radio';
 import {
   viewAlternatives,
   type AlternativeView,
@@ -133,14 +134,9 @@ export function ChoiceTaskCard({
             onChoose && 'cursor-pointer',
           )}
         >
-          <input
-            type="radio"
-            name={name}
-            value={optOut.position}
-            checked={selectedIndex === optOut.position}
-            disabled={!onChoose}
-            onChange={() => onChoose?.(optOut.position)}
-            className="size-5 shrink-0 accent-[var(--color-primary)]"
+          <ChoiceRadio
+            group={{ name, selected: selectedIndex, onChoose }}
+            position={optOut.position}
           />
           {optOut.title}
         </label>

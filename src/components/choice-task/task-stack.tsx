@@ -1,20 +1,15 @@
 import { cn } from '@/lib/cn';
 import type { TaskLayoutProps } from './alternative-view';
 import { LevelText } from './level-text';
+import { ChoiceRadio } from './choice-radio';
 
 /**
  * The fallback when the alternatives cannot fit side by side (long labels, images, many
  * alternatives on a narrow screen): one card per alternative, attributes listed in the same
  * order in every card. The whole card is the tap target.
  */
-export function TaskStack({
-  attributes,
-  alternatives: cards,
-  selected,
-  onChoose,
-  name,
-  summaryId,
-}: TaskLayoutProps) {
+export function TaskStack(layout: TaskLayoutProps) {
+  const { attributes, alternatives: cards, selected, onChoose } = layout;
   return (
     <div className="space-y-3">
       {cards.map((c) => (
@@ -29,16 +24,7 @@ export function TaskStack({
         >
           <label className="flex min-h-10 cursor-pointer items-center justify-between gap-3 has-[:focus-visible]:outline has-[:focus-visible]:outline-3 has-[:focus-visible]:outline-accent">
             <span className="text-base font-semibold text-ink">{c.title}</span>
-            <input
-              type="radio"
-              name={name}
-              value={c.position}
-              checked={selected === c.position}
-              disabled={!onChoose}
-              onChange={() => onChoose?.(c.position)}
-              aria-describedby={summaryId(c.position)}
-              className="size-6 shrink-0 accent-[var(--color-primary)]"
-            />
+            <ChoiceRadio group={layout} position={c.position} large />
           </label>
           <dl className="mt-2">
             {attributes.map((a, row) => (

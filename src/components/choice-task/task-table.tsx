@@ -1,4 +1,5 @@
 import { cn } from '@/lib/cn';
+import { ChoiceRadio } from './choice-radio';
 import type { AlternativeView, TaskLayoutProps } from './alternative-view';
 import { AttributeName } from './attribute-name';
 import { LevelText } from './level-text';
@@ -9,14 +10,8 @@ import { useInterfaceText } from '@/lib/interface-texts';
  * its own line across the columns, so values keep the full column width on a phone), and a
  * radio button under each column. Tapping anywhere in a column chooses it.
  */
-export function TaskTable({
-  attributes,
-  alternatives: columns,
-  selected,
-  onChoose,
-  name,
-  summaryId,
-}: TaskLayoutProps) {
+export function TaskTable(layout: TaskLayoutProps) {
+  const { attributes, alternatives: columns, selected, onChoose } = layout;
   const t = useInterfaceText();
   const width = `${100 / columns.length}%`;
   const tint = (c: AlternativeView) => (selected === c.position ? 'bg-primary-soft' : 'bg-white');
@@ -93,16 +88,7 @@ export function TaskTable({
                   onChoose && 'cursor-pointer',
                 )}
               >
-                <input
-                  type="radio"
-                  name={name}
-                  value={c.position}
-                  checked={selected === c.position}
-                  disabled={!onChoose}
-                  onChange={choose(c)}
-                  aria-describedby={summaryId(c.position)}
-                  className="size-5 shrink-0 accent-[var(--color-primary)]"
-                />
+                <ChoiceRadio group={layout} position={c.position} />
                 <span aria-hidden>{selected === c.position ? t('ui.chosen') : t('ui.choose')}</span>
                 <span className="sr-only">{c.title}</span>
               </label>

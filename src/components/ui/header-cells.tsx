@@ -6,8 +6,12 @@ import type { ReactNode } from 'react';
 import { cn } from '@/lib/cn';
 
 type Align = 'left' | 'right';
-/** A heading's text (aligned left), or its text and alignment; false leaves the column out. */
-export type ColumnHeading = string | { label: ReactNode; align: Align; key?: string } | false;
+/**
+ * A heading's text (aligned left), or its text and alignment (and classes of its own, added to
+ * the table's, such as a sticky first column); false leaves the column out.
+ */
+export type ColumnHeading =
+  string | { label: ReactNode; align: Align; key?: string; className?: string } | false;
 
 const alignClass: Record<Align, string> = { left: 'text-left', right: 'text-right' };
 
@@ -23,10 +27,14 @@ export function HeaderCells({
     <>
       {headings.map((h, i) => {
         if (h === false) return null;
-        const { label, align, key } =
-          typeof h === 'string' ? { label: h, align: 'left' as const, key: h } : h;
+        const {
+          label,
+          align,
+          key,
+          className: own,
+        } = typeof h === 'string' ? { label: h, align: 'left' as const, key: h, className: '' } : h;
         return (
-          <th key={key ?? i} scope="col" className={cn(className, alignClass[align])}>
+          <th key={key ?? i} scope="col" className={cn(className, own, alignClass[align])}>
             {label}
           </th>
         );

@@ -233,12 +233,35 @@ describe('saveAnswerFast', () => {
     expect(await r.stored()).toEqual([{ screenKey: r.screens[0].key, clientId: a.clientId }]);
   });
 
-  it('writes nothing for a retry, which the full path then recognises', async () => {
+  it('answers a retry with the receipt the full path gives, and writes nothing', async () => {
     const r = await liveRespondent();
     const a = answerOf(r.screens[0]);
     await r.fast(a);
+    const again = await r.fast(a);
+    expect(again).toMatchObject({ replay: true, nextScreenKey: r.screens[1].key });
+    expect(again).toEqual(await r.full(a));
+    expect(await r.stored()).toHaveLength(1);
+  });
+
+  it('answers a retry of the last answer with the final status, as the full path does', async () => {
+    const r = await liveRespondent({
+      redirects: { complete: 'https://panel.example/done?id={pid}' },
+    });
+    const last = r.screens.map(answerOf);
+    for (const a of last) expect(await r.fast(a)).not.toBeNull();
+    const again = await r.fast(last.at(-1)!);
+    expect(again).toMatchObject({ replay: true, status: 'completed', nextScreenKey: null });
+    expect(again).toEqual(await r.full(last.at(-1)!));
+  });
+
+  it('leaves a reused client id with another value, or a retry in an archived study, to the full path', async () => {
+    const r = await liveRespondent();
+    const a = answerOf(r.screens[0]);
+    await r.fast(a);
+    expect(await r.fast({ ...a, value: { kind: 'ack' } })).toBeNull();
+    expect(await r.fast({ ...a, screenKey: r.screens[1].key })).toBeNull();
+    await t.deps.db.execute(sql`update studies set archived_at = now() where id = ${r.study.id}`);
     expect(await r.fast(a)).toBeNull();
-    expect(await r.full(a)).toMatchObject({ replay: true, nextScreenKey: r.screens[1].key });
     expect(await r.stored()).toHaveLength(1);
   });
 

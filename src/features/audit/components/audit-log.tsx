@@ -83,24 +83,8 @@ export function AuditLog({
             ))}
           </select>
         </label>
-        <label className="flex flex-col text-sm">
-          <span className="mb-1 font-medium text-ink">From</span>
-          <input
-            type="date"
-            className="h-9 rounded-md border border-line px-2"
-            value={fromDay}
-            onChange={(e) => setFromDay(e.target.value)}
-          />
-        </label>
-        <label className="flex flex-col text-sm">
-          <span className="mb-1 font-medium text-ink">To</span>
-          <input
-            type="date"
-            className="h-9 rounded-md border border-line px-2"
-            value={toDay}
-            onChange={(e) => setToDay(e.target.value)}
-          />
-        </label>
+        <DayInput label="From" value={fromDay} onChange={setFromDay} />
+        <DayInput label="To" value={toDay} onChange={setToDay} />
         <a
           className="inline-flex h-9 items-center rounded-md border border-line bg-white px-3 text-sm font-medium text-ink hover:border-primary hover:text-primary"
           href={`/api/teams/${teamId}/audit/export.csv${auditQueryString(filters)}`}
@@ -161,5 +145,20 @@ export function AuditLog({
         </Button>
       )}
     </div>
+  );
+}
+
+/** One end of the date range filter (a calendar day). */
+function DayInput(props: { label: string; value: string; onChange: (day: string) => void }) {
+  return (
+    <label className="flex flex-col text-sm">
+      <span className="mb-1 font-medium text-ink">{props.label}</span>
+      <input
+        type="date"
+        className="h-9 rounded-md border border-line px-2"
+        value={props.value}
+        onChange={(e) => props.onChange(e.target.value)}
+      />
+    </label>
   );
 }

@@ -1,5 +1,6 @@
 import type { DropOffStep } from '@shared/schemas/fieldwork';
 import { formatCount } from '@/utils/format';
+import { HeaderCells } from '@/components/ui/header-cells';
 
 /**
  * How far respondents got: one row per screen with a bar of those who answered it, and how many
@@ -16,18 +17,20 @@ export function DropOffTable({ steps, starts }: { steps: DropOffStep[]; starts: 
         <caption className="sr-only">Respondents reaching each screen</caption>
         <thead>
           <tr className="border-b border-line text-left text-xs text-ink-soft">
-            <th scope="col" className="py-2 pr-3 font-medium">
-              Screen
-            </th>
-            <th scope="col" className="hidden w-2/5 py-2 pr-3 font-medium sm:table-cell">
-              <span className="sr-only">Share of starts</span>
-            </th>
-            <th scope="col" className="py-2 pr-3 text-right font-medium">
-              Answered
-            </th>
-            <th scope="col" className="py-2 text-right font-medium">
-              Stopped here
-            </th>
+            <HeaderCells
+              className="py-2 font-medium"
+              headings={[
+                { label: 'Screen', align: 'left', className: 'pr-3' },
+                {
+                  label: <span className="sr-only">Share of starts</span>,
+                  align: 'left',
+                  key: 'share',
+                  className: 'hidden w-2/5 pr-3 sm:table-cell',
+                },
+                { label: 'Answered', align: 'right', className: 'pr-3' },
+                { label: 'Stopped here', align: 'right' },
+              ]}
+            />
           </tr>
         </thead>
         <tbody>

@@ -49,31 +49,23 @@ export function RespondentApp({ publicId, search }: { publicId: string; search: 
     pending: r.pending,
     offline: r.offline,
   };
+  const endScreen = (
+    <EndScreen
+      status={r.finalStatus}
+      pending={r.pending}
+      end={session.end}
+      redirectUrl={r.redirectUrl}
+    />
+  );
   let body;
   if (closedUnderfoot && r.pending > 0)
     body = <Spinner label="Sending the answers you gave before the survey closed…" />;
   else if (closedUnderfoot)
     body = <UnavailableScreen reason="closed" studyName={session.studyName} redirectUrl={null} />;
   else if (r.awaitingReceipt && !finished) body = <Spinner label={session.ui['ui.checking']} />;
-  else if (finished && r.finalStatus !== 'completed')
-    body = (
-      <EndScreen
-        status={r.finalStatus}
-        pending={r.pending}
-        end={session.end}
-        redirectUrl={r.redirectUrl}
-      />
-    );
+  else if (finished && r.finalStatus !== 'completed') body = endScreen;
   else if (r.skipping) body = null;
-  else if (!r.currentScreen)
-    body = (
-      <EndScreen
-        status={r.finalStatus}
-        pending={r.pending}
-        end={session.end}
-        redirectUrl={r.redirectUrl}
-      />
-    );
+  else if (!r.currentScreen) body = endScreen;
   else
     body = (
       <GoBackContext.Provider value={r.goBack}>

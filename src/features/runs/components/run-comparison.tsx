@@ -5,6 +5,7 @@
  */
 import type { Run, RunResult } from '@shared/schemas/run';
 import { formatNumber, formatPercent } from '@/utils/format';
+import { HeaderCells } from '@/components/ui/header-cells';
 import { MODEL_LABELS } from '@shared/schemas/estimation-families';
 import { LikelihoodRatioTests } from './likelihood-ratio-tests';
 
@@ -62,17 +63,22 @@ export function RunComparison({ runs }: { runs: Run[] }) {
           <caption className="sr-only">Comparison of the selected runs</caption>
           <thead>
             <tr className="border-b border-line text-left">
-              <th
-                scope="col"
-                className="sticky left-0 bg-white px-3 py-2 font-medium text-ink-soft"
-              >
-                Statistic
-              </th>
-              {done.map((r) => (
-                <th key={r.id} scope="col" className="px-3 py-2 text-right font-medium text-ink">
-                  {r.name}
-                </th>
-              ))}
+              <HeaderCells
+                className="px-3 py-2 font-medium"
+                headings={[
+                  {
+                    label: 'Statistic',
+                    align: 'left',
+                    className: 'sticky left-0 bg-white text-ink-soft',
+                  },
+                  ...done.map((r) => ({
+                    label: r.name,
+                    align: 'right' as const,
+                    key: r.id,
+                    className: 'text-ink',
+                  })),
+                ]}
+              />
             </tr>
           </thead>
           <tbody>

@@ -38,6 +38,8 @@ stage "database and fake mail" start_services
 # - The audit: production packages may have no high or critical advisory (scripts/audit.sh).
 # - The typecheck is the native compiler (tsgo, @typescript/native-preview; the same project and
 #   diagnostics as tsc at a fifth of its CPU), single-threaded since the pool keeps both cores busy.
+# - Typecheck, lint and format run at a lower priority (nice): they are off the critical path
+#   (build, then the tests), so they take the CPU the build and the tests leave.
 # - The format check is the same Prettier through its newer command line, which checks the same
 #   files (.gitignore and .prettierignore) with about a quarter less CPU; no cache, one process.
 stage "build, checks, unit and API tests, end-to-end journeys" pool \
@@ -46,8 +48,8 @@ stage "build, checks, unit and API tests, end-to-end journeys" pool \
   e2e "end-to-end journeys (Playwright, Debian chromium)" build "npx playwright test" \
   api "vitest API project (PostgreSQL)" build "npx vitest run --project api" \
   unit "vitest unit project (no database)" build "npx vitest run --project unit" \
-  typecheck "typecheck" - "npx tsgo --noEmit -p . --singleThreaded" \
-  lint "lint" - "npx eslint . --max-warnings=0" \
-  format "format" - "npx prettier --experimental-cli --no-cache --no-parallel --check . --log-level warn" \
+  typecheck "typecheck" - "nice -n 10 npx tsgo --noEmit -p . --singleThreaded" \
+  lint "lint" - "nice -n 10 npx eslint . --max-warnings=0" \
+  format "format" - "nice -n 10 npx prettier --experimental-cli --no-cache --no-parallel --check . --log-level warn" \
   audit "dependency audit" - "bash scripts/audit.sh"
 echo "== all tests passed"

@@ -22,22 +22,24 @@ async function liveStudy() {
   return study;
 }
 
+/** Starts a session on the study's link as a phone does; returns the reply and the stored respondent. */
+async function startSession(publicId: string) {
+  const started = await t
+    .request()
+    .post(`/api/r/${publicId}/sessions`)
+    .send({ params: {}, device: 'phone' })
+    .expect(201);
+  const [row] = await t.deps.db
+    .select({ plan: respondents.plan, block: respondents.block, versionId: respondents.versionId })
+    .from(respondents)
+    .where(eq(respondents.sessionToken, started.body.sessionToken));
+  return { started, row };
+}
+
 describe('POST /api/r/:publicId/sessions (a new respondent)', () => {
   it('stores the plan the session was built from, and the stored plan rebuilds the same screens', async () => {
     const s = await liveStudy();
-    const started = await t
-      .request()
-      .post(`/api/r/${s.publicId}/sessions`)
-      .send({ params: {}, device: 'phone' })
-      .expect(201);
-    const [row] = await t.deps.db
-      .select({
-        plan: respondents.plan,
-        block: respondents.block,
-        versionId: respondents.versionId,
-      })
-      .from(respondents)
-      .where(eq(respondents.sessionToken, started.body.sessionToken));
+    const { started, row } = await startSession(s.publicId);
     const stored = respondentPlanSchema.parse(row.plan);
     expect(stored.block).toBe(row.block);
     const tasks = started.body.screens.filter((x: { kind: string }) => x.kind === 'task');
@@ -70,15 +72,7 @@ describe('getStudyByPublicId', () => {
     const study = await getStudyByPublicId(t.deps.db, { publicId: s.publicId });
     expect(study?.latestVersionId).toBe(v2.id);
     // And the next session starts on it.
-    const started = await t
-      .request()
-      .post(`/api/r/${s.publicId}/sessions`)
-      .send({ params: {}, device: 'phone' })
-      .expect(201);
-    const [row] = await t.deps.db
-      .select({ versionId: respondents.versionId })
-      .from(respondents)
-      .where(eq(respondents.sessionToken, started.body.sessionToken));
+    const { row } = await startSession(s.publicId);
     expect(row.versionId).toBe(v2.id);
   });
 });

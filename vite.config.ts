@@ -104,7 +104,7 @@ export default defineConfig({
           // Pure modules: one module cache per worker instead of one per file (import time).
           isolate: false,
           include: ['tests/{engine,shared,src}/**/*.test.{ts,tsx}'],
-          globalSetup: ['tests/wasm-setup.ts'],
+          globalSetup: ['tests/engine-build-setup.ts'],
         },
       },
       {
@@ -113,7 +113,7 @@ export default defineConfig({
           name: 'api',
           isolate: false,
           include: ['tests/{server,db}/**/*.test.{ts,tsx}'],
-          globalSetup: ['tests/wasm-setup.ts', 'tests/global-setup.ts'],
+          globalSetup: ['tests/engine-build-setup.ts', 'tests/global-setup.ts'],
         },
       },
     ],

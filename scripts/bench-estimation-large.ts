@@ -19,10 +19,12 @@ import { computeTasteProfilesInWorkers } from '../server/engine/parallel/paralle
 import { getMaxRows } from '../server/engine/simd/kernel-arena';
 import { estimateModelMemory } from '../server/engine/simd/estimate-model-memory';
 import { ensureSimdKernelBuilt } from './build-wasm';
+import { ensureEngineWorkersBuilt } from './build-engine-workers';
 
 const json = process.argv.includes('--json');
 const loadStart = os.loadavg();
 await ensureSimdKernelBuilt();
+await ensureEngineWorkersBuilt();
 const N = 5000;
 const T = 16;
 const J = 3;

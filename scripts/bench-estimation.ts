@@ -25,6 +25,7 @@ import type { MixedLogitEvaluator } from '../server/engine/parallel/mixed-logit-
 import { createWorkerPoolEvaluator } from '../server/engine/parallel/worker-pool-evaluator';
 import { chooseKernel, type KernelKind } from '../server/engine/simd/kernel-choice';
 import { ensureSimdKernelBuilt } from './build-wasm';
+import { ensureEngineWorkersBuilt } from './build-engine-workers';
 
 const json = process.argv.includes('--json');
 if (process.argv.includes('--large')) {
@@ -35,6 +36,7 @@ const threadsArg = process.argv.indexOf('--threads');
 const fitThreads = threadsArg > 0 ? Number(process.argv[threadsArg + 1]) : 2;
 const loadStart = os.loadavg();
 await ensureSimdKernelBuilt();
+await ensureEngineWorkersBuilt();
 
 const N = 1000;
 const T = 12;

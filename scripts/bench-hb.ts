@@ -25,9 +25,11 @@ import { summarizeHb } from '../server/engine/hb/summarize-hb';
 import { createTsWorkerPool, shareChoiceData } from '../server/engine/parallel/ts-worker-pool';
 import type { HbBenchMessage } from './lib/hb-bench-worker';
 import { ensureSimdKernelBuilt } from './build-wasm';
+import { ensureEngineWorkersBuilt } from './build-engine-workers';
 
 // The new kernel runs the WebAssembly step: build it first when its sources are newer.
 await ensureSimdKernelBuilt();
+await ensureEngineWorkersBuilt();
 
 const { values: args } = parseArgs({
   options: {

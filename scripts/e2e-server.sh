@@ -30,5 +30,6 @@ rm -f "$SEED_MARK.done" "$SEED_MARK.failed"
 (if npx tsx server/seed.ts >&2; then touch "$SEED_MARK.done"; else touch "$SEED_MARK.failed"; fi) &
 [ -f dist/client/index.html ] || npx vite build >&2
 npx tsx scripts/build-wasm.ts --if-stale >&2
+npx tsx scripts/build-engine-workers.ts --if-stale >&2
 node --import tsx e2e/support/wait-for-demo-accounts.ts "$SEED_MARK.failed" >&2
 exec node --import tsx server/main.ts

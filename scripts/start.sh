@@ -33,8 +33,9 @@ scripts/pg.sh start
 if [ -z "${DATABASE_URL:-}" ]; then export DATABASE_URL="$(scripts/pg.sh url)"; fi
 echo "== fake mail server"
 scripts/mail.sh start 1025 1080
-echo "== building the WebAssembly kernel (when its sources changed) and the client"
+echo "== building the WebAssembly kernel and the engine worker bundles (when their sources changed) and the client"
 npx tsx scripts/build-wasm.ts --if-stale
+npx tsx scripts/build-engine-workers.ts --if-stale
 npx vite build --logLevel warn
 echo "== migrating and seeding the demo data"
 npx tsx server/seed.ts

@@ -29,9 +29,10 @@ stage "database and fake mail" start_services
 
 # One pool of jobs on the two cores, each started as soon as what it needs is there; each one's
 # output is shown when it ends, and the run fails if any of them fails.
-# - The build (the WebAssembly kernel, then the client) comes first: the journeys serve the built
-#   client and both vitest projects and the journeys' server use the kernel (their global setups
-#   and scripts/e2e-server.sh then find it built instead of building it at the same time).
+# - The build (the WebAssembly kernel, the engine worker bundles, then the client) comes first:
+#   the journeys serve the built client and both vitest projects and the journeys' server use the
+#   kernel and start engine threads from the bundles (their global setups and
+#   scripts/e2e-server.sh then find them built instead of building them at the same time).
 # - The journeys (Playwright, one browser, one server with its own migrated and seeded database)
 #   are the longest job but mostly wait on the browser and the server, so they start right after
 #   the build and the CPU-bound jobs fill their waits; before, they waited for a whole stage.
@@ -43,8 +44,8 @@ stage "database and fake mail" start_services
 # - The format check is the same Prettier through its newer command line, which checks the same
 #   files (.gitignore and .prettierignore) with about a quarter less CPU; no cache, one process.
 stage "build, checks, unit and API tests, end-to-end journeys" pool \
-  build "build (WebAssembly kernel, client)" - \
-  "npx tsx scripts/build-wasm.ts && npx vite build --logLevel warn" \
+  build "build (WebAssembly kernel, engine workers, client)" - \
+  "npx tsx scripts/build-wasm.ts && npx tsx scripts/build-engine-workers.ts && npx vite build --logLevel warn" \
   e2e "end-to-end journeys (Playwright, Debian chromium)" build "npx playwright test" \
   api "vitest API project (PostgreSQL)" build "npx vitest run --project api" \
   unit "vitest unit project (no database)" build "npx vitest run --project unit" \

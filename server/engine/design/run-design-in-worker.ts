@@ -1,7 +1,7 @@
 /**
- * Runs design jobs on piscina worker threads. The worker file is TypeScript; threads start
- * with `--import <tsx loader>` resolved from this package, so it works whether the parent
- * runs under tsx, vitest or plain node (checked by tests/engine/design/design-worker.test.ts).
+ * Runs design jobs on piscina worker threads. The worker file is TypeScript; threads start from
+ * its prebuilt bundle, or through the tsx loader (ts-worker-pool.ts), so it works whether the
+ * parent runs under tsx, vitest or plain node (checked by tests/engine/design/design-worker.test.ts).
  *
  *   const pool = createDesignPool({ maxThreads: 1 });
  *   const out = await runDesignInWorker(pool, { definition, spec }, { onProgress, signal });

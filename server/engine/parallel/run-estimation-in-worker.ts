@@ -1,8 +1,8 @@
 /**
  * Runs estimation runs on piscina worker threads, so that neither the web process's request
  * thread nor a worker process's job loop (heartbeats, cancel checks, other jobs) waits for
- * the numerics. The worker file is TypeScript; threads start with `--import <tsx loader>`
- * resolved from this package, as for the design pool.
+ * the numerics. The worker file is TypeScript; threads start from its prebuilt bundle or through
+ * the tsx loader (ts-worker-pool.ts), as for the design pool.
  *
  *   const pool = createEstimationPool({ maxThreads: 1 });
  *   const result = await runEstimationInWorker(pool, { spec, built, threads: 2 }, { onProgress, signal });

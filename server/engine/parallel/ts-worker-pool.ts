@@ -1,18 +1,25 @@
 /**
- * Piscina pools whose worker files are TypeScript: workers start with `--import <tsx loader>`
- * (resolved from this package's node_modules), which works whether the parent runs under tsx,
- * vitest or plain node; plus the SharedArrayBuffer copies through which workers read choice
+ * Piscina pools whose worker files are TypeScript: a thread loads the worker's prebuilt bundle
+ * when it is up to date (prebuilt-workers.ts), else the source through `--import <tsx loader>`
+ * (resolved from this package's node_modules); both work whether the parent runs under tsx,
+ * vitest or plain node. Plus the SharedArrayBuffer copies through which workers read choice
  * data without copying it per task.
  */
 import { createRequire } from 'node:module';
 import { pathToFileURL } from 'node:url';
 import { Piscina } from 'piscina';
+import { prebuiltWorkerFile } from './prebuilt-workers';
 import type { ChoiceData } from '../estimation/choice-data';
 
 /** A piscina pool whose worker file (`options.filename`) is TypeScript. */
 export function createTsPiscina(
-  options: Omit<NonNullable<ConstructorParameters<typeof Piscina>[0]>, 'execArgv'>,
+  options: Omit<NonNullable<ConstructorParameters<typeof Piscina>[0]>, 'execArgv'> & {
+    filename: string;
+  },
 ): Piscina {
+  // An empty execArgv, not the default: threads would inherit the parent's `--import tsx`.
+  const prebuilt = prebuiltWorkerFile(options.filename);
+  if (prebuilt) return new Piscina({ ...options, filename: prebuilt, execArgv: [] });
   const tsxLoader = pathToFileURL(createRequire(import.meta.url).resolve('tsx')).href;
   return new Piscina({ ...options, execArgv: ['--import', tsxLoader] });
 }

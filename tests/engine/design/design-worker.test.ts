@@ -1,5 +1,5 @@
 /**
- * The piscina design worker runs the TypeScript engine in a thread (tsx loader), streams
+ * The piscina design worker runs the engine in a thread (from its prebuilt bundle), streams
  * progress, returns DesignError codes as data, and can be cancelled.
  */
 import { afterAll, describe, expect, it } from 'vitest';

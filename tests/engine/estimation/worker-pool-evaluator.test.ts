@@ -3,7 +3,7 @@ import { createLoglikEvaluator } from '../../../server/engine/parallel/create-lo
 import { splitRespondents } from '../../../server/engine/parallel/worker-pool-evaluator';
 import { createKernelFixture } from './kernel-fixture';
 
-describe('worker-thread evaluator (piscina, TypeScript workers via the tsx loader)', () => {
+describe('worker-thread evaluator (piscina, TypeScript workers, prebuilt)', () => {
   it('returns the same LL, gradient and per-respondent scores as the in-process kernel', async () => {
     const { data, layout } = createKernelFixture(['normal', 'neg_lognormal', 'triangular']);
     const draws = { type: 'halton' as const, count: 40, seed: 3 };

@@ -1,8 +1,8 @@
 /**
  * Engine thread pools shared by a test file's jobs, as a worker process shares them
  * (server/jobs/estimation-job.ts, createEstimationJobKind). A job given no pool starts its own
- * thread, and each engine thread loads the engine (from its prebuilt bundle, about 0.2 s of
- * CPU; through the tsx loader when the bundle is stale, about 0.8 s), per run more than many of
+ * thread, and each engine thread loads the engine (from its prebuilt bundle, about 0.15 s of
+ * CPU; through the tsx loader when the bundle is stale, about 0.7 s), per run more than many of
  * the tests' small runs take to estimate.
  */
 import { afterAll } from 'vitest';

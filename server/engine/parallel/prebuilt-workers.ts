@@ -51,7 +51,7 @@ function isNewerThan(file: string, time: number): boolean {
  * The up-to-date bundle of a TypeScript worker file, or null (no build, the file is not bundled,
  * or one of its sources changed since). Checked on every pool start, not cached: a test run in
  * watch mode or a long-lived process sees an edit as soon as it is saved (a pool start stats the
- * worker's hundred-odd sources, about a millisecond).
+ * worker's one to two hundred sources, packages included: about a millisecond).
  */
 export function prebuiltWorkerFile(
   sourceFile: string,

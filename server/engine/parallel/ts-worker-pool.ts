@@ -11,17 +11,29 @@ import { Piscina } from 'piscina';
 import { prebuiltWorkerFile } from './prebuilt-workers';
 import type { ChoiceData } from '../estimation/choice-data';
 
+/**
+ * How a thread loads the TypeScript worker `filename`: its up-to-date prebuilt bundle, else the
+ * source through the tsx loader (`prebuilt: false` forces the latter, for the side-by-side
+ * benchmark). The execArgv is always given: by default threads inherit the parent's, which
+ * under tsx holds `--import tsx` and would load the loader for a bundle too.
+ */
+export function workerEntry(
+  filename: string,
+  options: { prebuilt?: boolean } = {},
+): { filename: string; execArgv: string[] } {
+  const prebuilt = options.prebuilt === false ? null : prebuiltWorkerFile(filename);
+  if (prebuilt) return { filename: prebuilt, execArgv: [] };
+  const tsxLoader = pathToFileURL(createRequire(import.meta.url).resolve('tsx')).href;
+  return { filename, execArgv: ['--import', tsxLoader] };
+}
+
 /** A piscina pool whose worker file (`options.filename`) is TypeScript. */
 export function createTsPiscina(
   options: Omit<NonNullable<ConstructorParameters<typeof Piscina>[0]>, 'execArgv'> & {
     filename: string;
   },
 ): Piscina {
-  // An empty execArgv, not the default: threads would inherit the parent's `--import tsx`.
-  const prebuilt = prebuiltWorkerFile(options.filename);
-  if (prebuilt) return new Piscina({ ...options, filename: prebuilt, execArgv: [] });
-  const tsxLoader = pathToFileURL(createRequire(import.meta.url).resolve('tsx')).href;
-  return new Piscina({ ...options, execArgv: ['--import', tsxLoader] });
+  return new Piscina({ ...options, ...workerEntry(options.filename) });
 }
 
 /** A pool of `threads` worker threads running the export `name` of `filename`. */

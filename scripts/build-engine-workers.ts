@@ -101,7 +101,12 @@ export async function buildEngineWorkers(): Promise<void> {
     if (!meta.entryPoint) continue;
     workers[repoRelative(path.resolve(ROOT, meta.entryPoint))] = {
       bundle: path.basename(output),
-      inputs: Object.keys(meta.inputs).map((input) => repoRelative(path.resolve(ROOT, input))),
+      inputs: Object.fromEntries(
+        Object.keys(meta.inputs).map((input) => {
+          const file = path.resolve(ROOT, input);
+          return [repoRelative(file), fs.statSync(file).size];
+        }),
+      ),
     };
   }
   const manifest: PrebuiltWorkersManifest = { builtAt, workers };

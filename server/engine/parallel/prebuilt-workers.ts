@@ -3,8 +3,9 @@
  * `npm run build`, the test setup and start): a thread that loads a bundle skips the tsx
  * loader, which costs about half a second of CPU per thread. The bundles are the same worker
  * sources, only compiled ahead. A bundle is used only while none of the source files it was
- * built from is newer than the build, so an edited engine never runs as its old bundle: the
- * worker then loads its source through tsx, as without a build.
+ * built from is newer than the build or of another size than then (a file put back with an old
+ * time), so an edited engine never runs as its old bundle: the worker then loads its source
+ * through tsx, as without a build.
  */
 import fs from 'node:fs';
 import path from 'node:path';
@@ -18,11 +19,14 @@ const ROOT = fileURLToPath(new URL('../../../', import.meta.url));
 /** The manifest's name in the bundles' folder. */
 export const PREBUILT_WORKERS_MANIFEST = 'manifest.json';
 
-/** Written by the build: per worker source (relative to the repository), its bundle and inputs. */
+/**
+ * Written by the build: per worker source (relative to the repository), its bundle and the
+ * files it was built from, each with its size in bytes then.
+ */
 export interface PrebuiltWorkersManifest {
   /** Milliseconds since the epoch, taken before the build read its first source file. */
   builtAt: number;
-  workers: Record<string, { bundle: string; inputs: string[] }>;
+  workers: Record<string, { bundle: string; inputs: Record<string, number> }>;
 }
 
 /** A repository-relative path with forward slashes (the manifest's keys). */
@@ -39,9 +43,10 @@ function readManifest(dir: string): PrebuiltWorkersManifest | null {
   }
 }
 
-function isNewerThan(file: string, time: number): boolean {
+function hasChanged(file: string, size: number, builtAt: number): boolean {
   try {
-    return fs.statSync(path.join(ROOT, file)).mtimeMs > time;
+    const stat = fs.statSync(path.join(ROOT, file));
+    return stat.mtimeMs > builtAt || stat.size !== size;
   } catch {
     return true; // a source gone since the build: the bundle no longer matches the tree
   }
@@ -49,7 +54,7 @@ function isNewerThan(file: string, time: number): boolean {
 
 /**
  * The up-to-date bundle of a TypeScript worker file, or null (no build, the file is not bundled,
- * or one of its sources changed since). Checked on every pool start, not cached: a test run in
+ * or one of its sources changed since: a later time or another size). Checked on every pool start, not cached: a test run in
  * watch mode or a long-lived process sees an edit as soon as it is saved (a pool start stats the
  * worker's one to two hundred sources, packages included: about a millisecond).
  */
@@ -62,7 +67,8 @@ export function prebuiltWorkerFile(
   if (!manifest || !entry) return null;
   const bundle = path.join(dir, entry.bundle);
   if (!fs.existsSync(bundle)) return null;
-  if (entry.inputs.some((input) => isNewerThan(input, manifest.builtAt))) return null;
+  const inputs = Object.entries(entry.inputs);
+  if (inputs.some(([file, size]) => hasChanged(file, size, manifest.builtAt))) return null;
   return bundle;
 }
 

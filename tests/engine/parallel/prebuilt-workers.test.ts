@@ -19,6 +19,7 @@ import {
 import { createTsPiscina } from '../../../server/engine/parallel/ts-worker-pool';
 import { ENGINE_WORKER_SOURCES } from '../../../scripts/build-engine-workers';
 
+const ROOT = fileURLToPath(new URL('../../../', import.meta.url));
 const DESIGN_WORKER = fileURLToPath(
   new URL('../../../server/engine/design/design-worker.ts', import.meta.url),
 );
@@ -26,8 +27,15 @@ const DESIGN_WORKER = fileURLToPath(
 const folders: string[] = [];
 afterAll(() => folders.forEach((f) => fs.rmSync(f, { recursive: true, force: true })));
 
+/** The given repository files with their sizes now, as the build records its inputs. */
+const asBuilt = (...files: string[]) =>
+  Object.fromEntries(files.map((f) => [f, fs.statSync(path.join(ROOT, f)).size]));
+
+const lastChanged = (file: string) => fs.statSync(path.join(ROOT, file)).mtimeMs;
+
 /** A bundles folder holding one stand-in bundle of the design worker and the given manifest. */
-function fakeBuild(builtAt: number, inputs: string[]): string {
+
+function fakeBuild(builtAt: number, inputs: Record<string, number>): string {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'cw-prebuilt-'));
   folders.push(dir);
   fs.writeFileSync(path.join(dir, 'design-worker.mjs'), 'export default () => 1;\n');
@@ -50,21 +58,30 @@ describe('prebuilt engine workers', () => {
   });
 
   it('uses a bundle built after every one of its sources changed', () => {
-    const inputs = [repoRelative(DESIGN_WORKER)];
-    const dir = fakeBuild(fs.statSync(DESIGN_WORKER).mtimeMs + 1, inputs);
+    const inputs = asBuilt('shared/format.ts', repoRelative(DESIGN_WORKER));
+    const latest = Math.max(...Object.keys(inputs).map((f) => lastChanged(f)));
+    const dir = fakeBuild(latest + 1, inputs);
     expect(prebuiltWorkerFile(DESIGN_WORKER, dir)).toBe(path.join(dir, 'design-worker.mjs'));
   });
 
   it('ignores a bundle one of whose sources is newer than the build', () => {
-    const inputs = ['shared/format.ts', repoRelative(DESIGN_WORKER)];
-    const dir = fakeBuild(fs.statSync(DESIGN_WORKER).mtimeMs - 1, inputs);
+    const inputs = asBuilt('shared/format.ts', repoRelative(DESIGN_WORKER));
+    const dir = fakeBuild(lastChanged(repoRelative(DESIGN_WORKER)) - 1, inputs);
+    expect(prebuiltWorkerFile(DESIGN_WORKER, dir)).toBeNull();
+  });
+
+  it('ignores a bundle one of whose sources has another size than at the build', () => {
+    // As after a file is put back with an older time than the build's (copies, archives).
+    const inputs = asBuilt('shared/format.ts', repoRelative(DESIGN_WORKER));
+    inputs['shared/format.ts'] += 1;
+    const dir = fakeBuild(Date.now() + 60_000, inputs);
     expect(prebuiltWorkerFile(DESIGN_WORKER, dir)).toBeNull();
   });
 
   it('ignores a bundle one of whose sources is gone, or that is missing', () => {
-    const gone = fakeBuild(Date.now() + 60_000, ['server/engine/no-such-file.ts']);
+    const gone = fakeBuild(Date.now() + 60_000, { 'server/engine/no-such-file.ts': 10 });
     expect(prebuiltWorkerFile(DESIGN_WORKER, gone)).toBeNull();
-    const missing = fakeBuild(Date.now() + 60_000, [repoRelative(DESIGN_WORKER)]);
+    const missing = fakeBuild(Date.now() + 60_000, asBuilt(repoRelative(DESIGN_WORKER)));
     fs.rmSync(path.join(missing, 'design-worker.mjs'));
     expect(prebuiltWorkerFile(DESIGN_WORKER, missing)).toBeNull();
   });

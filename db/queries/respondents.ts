@@ -7,7 +7,7 @@
 import { and, count, eq, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { studies } from '../schema/studies';
-import { invitees, respondents } from '../schema/fieldwork';
+import { respondents } from '../schema/fieldwork';
 
 export const respondentColumns = {
   id: respondents.id,
@@ -71,27 +71,6 @@ export async function getStudyByPublicId(db: DbOrTx, params: { publicId: string 
   const query = preparedFor(studyByPublicIdCache, db, () => studyByPublicId(db));
   const [row] = await query.execute({ publicId: params.publicId });
   return row ?? null;
-}
-
-/**
- * The invitee of a personal link and the respondent it has already started, if any, in one
- * round trip (respondents_invitee_uq allows one per invitee).
- */
-export async function getInviteeByToken(db: DbOrTx, params: { studyId: string; token: string }) {
-  const [row] = await db
-    .select({ id: invitees.id, externalId: invitees.externalId, respondent: respondentColumns })
-    .from(invitees)
-    .leftJoin(
-      respondents,
-      and(eq(respondents.studyId, params.studyId), eq(respondents.inviteeId, invitees.id)),
-    )
-    .where(and(eq(invitees.studyId, params.studyId), eq(invitees.token, params.token)));
-  if (!row) return null;
-  return {
-    id: row.id,
-    externalId: row.externalId,
-    respondent: row.respondent as RespondentRow | null,
-  };
 }
 
 const startedRespondentColumns = [

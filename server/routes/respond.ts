@@ -23,6 +23,7 @@ import {
   submitAnswerSchema,
 } from '../../shared/schemas/respondent';
 import * as sessions from '../services/respondent-session';
+import { startSession } from '../services/session-start';
 import { submitAnswer } from '../services/answers';
 import { reviseAnswer } from '../services/answer-revisions';
 import { chooseLanguage } from '../services/choose-language';
@@ -99,7 +100,7 @@ export function createRespondRouter(
   router.post('/sessions', ...startLimits, async (req, res) => {
     const publicId = publicIdOf(req);
     const input = parseBody(startSessionSchema, req);
-    res.status(201).json(await sessions.startSession(deps, publicId, input));
+    res.status(201).json(await startSession(deps, publicId, input));
   });
   router.get('/session', perSession, async (req, res) => {
     const publicId = publicIdOf(req);

@@ -289,17 +289,18 @@ export async function updateSettings(
   });
 }
 
-/** Why a live study should close now, or null. */
+/** Why a live study should close now, or null; `completes` when the caller has just counted them. */
 export async function dueCloseReason(
   db: DbOrTx,
   study: { id: string; settings: unknown },
   now: Date,
+  completes?: number | null,
 ): Promise<ClosedReason | null> {
   const { closeAt, quotaCompletes } = readSettings(study.settings);
   if (closeAt && new Date(closeAt) <= now) return 'date';
   if (
     quotaCompletes !== null &&
-    (await countCompletes(db, { studyId: study.id })) >= quotaCompletes
+    (completes ?? (await countCompletes(db, { studyId: study.id }))) >= quotaCompletes
   )
     return 'quota';
   return null;

@@ -100,7 +100,8 @@ export function createRespondRouter(
   router.post('/sessions', ...startLimits, async (req, res) => {
     const publicId = publicIdOf(req);
     const input = parseBody(startSessionSchema, req);
-    res.status(201).json(await startSession(deps, publicId, input));
+    // A session is never cached or revalidated (no-store): no ETag to compute (send-json.ts).
+    sendJson(res, 201, await startSession(deps, publicId, input));
   });
   router.get('/session', perSession, async (req, res) => {
     const publicId = publicIdOf(req);

@@ -17,14 +17,13 @@ import type { studies } from '../schema/studies';
 import type { RespondentRow } from './respondents';
 import { COMMIT_WITHOUT_WAITING, TAKE_LEAST_FILLED } from './respondent-blocks';
 
-const STATEMENT = 'session_start_read_v1';
+const STATEMENT = 'session_start_read_v2';
 
-/** The respondent columns of RespondentRow, read as r_<column>. */
-const RESPONDENT = `r.id as r_id, r.study_id as r_study_id, r.version_id as r_version_id,
-       r.session_token as r_session_token, r.invitee_id as r_invitee_id,
-       r.external_id as r_external_id, r.block as r_block, r.plan as r_plan,
-       r.status as r_status, r.started_at as r_started_at, r.finished_at as r_finished_at,
-       r.duration_ms as r_duration_ms, r.language as r_language`;
+/** RespondentRow as JSON (its times as ISO text). */
+const RESPONDENT = `json_build_object('id', r.id, 'studyId', r.study_id, 'versionId', r.version_id,
+         'sessionToken', r.session_token, 'inviteeId', r.invitee_id, 'externalId', r.external_id,
+         'block', r.block, 'plan', r.plan, 'status', r.status, 'startedAt', r.started_at,
+         'finishedAt', r.finished_at, 'durationMs', r.duration_ms, 'language', r.language)`;
 
 /*
  * $1 public id, $2 session token or null, $3 personal link token or null, $4 the link's
@@ -53,7 +52,7 @@ inv as (
 ),
 found as (
   select * from (
-    select 1 as rank, ${RESPONDENT}
+    select 1 as rank, ${RESPONDENT} as respondent
       from respondents r join s on r.study_id = s.id
      where $2::text is not null and r.session_token = $2
     union all
@@ -77,36 +76,44 @@ b as (
      and ($3::text is null or exists (select 1 from inv))
   returning respondent_block_counts.last_block
 )
-select s.id, s.team_id, s.name, s.public_title, s.status, s.settings, s.current_version,
-       s.archived_at, s.latest_version_id, s.panel_key,
-       case when jsonb_typeof(s.settings->'quotaCompletes') = 'number' and s.status = 'live'
-            then (select count(*)::int from respondents c
-                   where c.study_id = s.id and c.status = 'completed')
-       end as completes,
-       inv.id as inv_id, inv.external_id as inv_external_id,
-       found.*,
-       (select last_block from b) as block
+select json_build_object(
+         'study', json_build_object('id', s.id, 'teamId', s.team_id, 'name', s.name,
+           'publicTitle', s.public_title, 'status', s.status, 'settings', s.settings,
+           'currentVersion', s.current_version, 'archivedAt', s.archived_at,
+           'latestVersionId', s.latest_version_id),
+         'panelKey', s.panel_key,
+         'completes',
+         case when jsonb_typeof(s.settings->'quotaCompletes') = 'number' and s.status = 'live'
+              then (select count(*) from respondents c
+                     where c.study_id = s.id and c.status = 'completed')
+         end,
+         'invitee', case when inv.id is not null
+                         then json_build_object('id', inv.id, 'externalId', inv.external_id) end,
+         'foundBy', found.rank,
+         'respondent', found.respondent,
+         'block', (select last_block from b)) as start
   from s
   left join inv on true
   left join found on true`;
 
+/*
+ * One JSON column rather than thirty: node-postgres builds a row template and looks up a
+ * parser per column for every result, which cost more than parsing the JSON (profile).
+ */
+type Json<T> = {
+  [K in keyof T]: T[K] extends Date ? string : T[K] extends Date | null ? string | null : T[K];
+};
 type Row = {
-  id: string;
-  team_id: string;
-  name: string;
-  public_title: string;
-  status: (typeof studies.$inferSelect)['status'];
-  settings: unknown;
-  current_version: number;
-  archived_at: Date | null;
-  latest_version_id: string | null;
-  panel_key: string | null;
-  completes: number | null;
-  inv_id: string | null;
-  inv_external_id: string | null;
-  rank: number | null;
-  block: number | null;
-} & { [K in `r_${string}`]: unknown };
+  start: {
+    study: Json<SessionStartRead['study']>;
+    panelKey: string | null;
+    completes: number | null;
+    invitee: SessionStartRead['invitee'];
+    foundBy: 1 | 2 | 3 | null;
+    respondent: Json<RespondentRow> | null;
+    block: number | null;
+  };
+};
 
 export type SessionStartRead = {
   /** As getStudyByPublicId reads it. */
@@ -135,23 +142,7 @@ export type SessionStartRead = {
 
 const FOUND_BY = [null, 'token', 'invitee', 'panel'] as const;
 
-function respondentOf(row: Row): RespondentRow {
-  return {
-    id: row.r_id as string,
-    studyId: row.r_study_id as string,
-    versionId: row.r_version_id as string,
-    sessionToken: row.r_session_token as string,
-    inviteeId: row.r_invitee_id as string | null,
-    externalId: row.r_external_id as string | null,
-    block: row.r_block as number,
-    plan: row.r_plan,
-    status: row.r_status as RespondentRow['status'],
-    startedAt: row.r_started_at as Date,
-    finishedAt: row.r_finished_at as Date | null,
-    durationMs: row.r_duration_ms as number | null,
-    language: row.r_language as string,
-  };
-}
+const dateOf = (iso: string | null) => (iso === null ? null : new Date(iso));
 
 /** Null when no study has this public id. */
 export async function readSessionStart(
@@ -173,25 +164,26 @@ export async function readSessionStart(
       JSON.stringify(params.linkParams),
     ],
   });
-  const row = r.rows[0];
+  const row = r.rows[0]?.start;
   if (!row) return null;
-  const by = row.rank === null ? null : FOUND_BY[row.rank];
+  const by = row.foundBy === null ? null : FOUND_BY[row.foundBy];
+  const found = row.respondent;
   return {
-    study: {
-      id: row.id,
-      teamId: row.team_id,
-      name: row.name,
-      publicTitle: row.public_title,
-      status: row.status,
-      settings: row.settings,
-      currentVersion: row.current_version,
-      archivedAt: row.archived_at,
-      latestVersionId: row.latest_version_id,
-    },
+    study: { ...row.study, archivedAt: dateOf(row.study.archivedAt) },
     completes: row.completes,
-    panelKey: row.panel_key,
-    invitee: row.inv_id === null ? null : { id: row.inv_id, externalId: row.inv_external_id },
-    found: by ? { by, respondent: respondentOf(row) } : null,
+    panelKey: row.panelKey,
+    invitee: row.invitee,
+    found:
+      by && found
+        ? {
+            by,
+            respondent: {
+              ...found,
+              startedAt: new Date(found.startedAt),
+              finishedAt: dateOf(found.finishedAt),
+            },
+          }
+        : null,
     block: row.block,
   };
 }

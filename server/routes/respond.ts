@@ -14,7 +14,7 @@ import {
 } from '../middleware/rate-limits';
 import { publicRoute } from '../middleware/access';
 import { AppError, NotFoundError } from '../lib/errors';
-import { sendJson } from '../lib/send-json';
+import { sendJson, sendJsonText } from '../lib/send-json';
 import {
   publicIdParamsSchema,
   RESPONDENT_TOKEN_HEADER,
@@ -24,6 +24,7 @@ import {
 } from '../../shared/schemas/respondent';
 import * as sessions from '../services/respondent-session';
 import { startSession } from '../services/session-start';
+import { sessionJson } from '../services/survey-view';
 import { submitAnswer } from '../services/answers';
 import { reviseAnswer } from '../services/answer-revisions';
 import { chooseLanguage } from '../services/choose-language';
@@ -101,7 +102,7 @@ export function createRespondRouter(
     const publicId = publicIdOf(req);
     const input = parseBody(startSessionSchema, req);
     // A session is never cached or revalidated (no-store): no ETag to compute (send-json.ts).
-    sendJson(res, 201, await startSession(deps, publicId, input));
+    sendJsonText(res, 201, sessionJson(await startSession(deps, publicId, input)));
   });
   router.get('/session', perSession, async (req, res) => {
     const publicId = publicIdOf(req);

@@ -27,7 +27,8 @@ import {
 } from '../../shared/schemas/respondent';
 import { closeIfDue, dueCloseReason, readSettings } from './lifecycle';
 import { createRespondentPlan } from './respondent-plan';
-import { buildSurveyView, loadFrozenVersion } from './respondent-screens';
+import { loadFrozenVersion } from './respondent-screens';
+import { buildSurveyView } from './survey-view';
 import { screensOfRespondent } from './respondent-screen-index';
 import { rememberRespondent } from './known-respondents';
 import { languageFromLink, localizeVersion, pageBeforeSession } from './respondent-language';

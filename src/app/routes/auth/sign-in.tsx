@@ -12,6 +12,7 @@ import { applyFieldErrors } from '@/lib/api-client';
 import { useSignIn } from '@/features/auth/api/sign-in';
 import { SecondStepForm } from '@/features/auth/components/second-step-form';
 import { safeRedirect, withAuthParams } from './safe-redirect';
+import { formField } from '@/components/ui/form-field';
 
 export function Component() {
   const navigate = useNavigate();
@@ -21,7 +22,7 @@ export function Component() {
     resolver: zodResolver(signInSchema),
     defaultValues: { email: params.get('email') ?? '', password: '' },
   });
-  const { errors, isSubmitting } = form.formState;
+  const { isSubmitting } = form.formState;
   const [secondStep, setSecondStep] = useState(false);
   const goOn = () =>
     navigate(safeRedirect(params.get('redirectTo'), paths.home.getHref()), { replace: true });
@@ -65,12 +66,8 @@ export function Component() {
       }
     >
       <form onSubmit={onSubmit} className="space-y-4" noValidate>
-        <EmailField error={errors.email?.message} {...form.register('email')} />
-        <PasswordField
-          purpose="current"
-          error={errors.password?.message}
-          {...form.register('password')}
-        />
+        <EmailField {...formField(form, 'email')} />
+        <PasswordField purpose="current" {...formField(form, 'password')} />
         <ErrorText error={signIn.error} />
         <Button type="submit" className="w-full" busy={isSubmitting}>
           Sign in

@@ -7,6 +7,7 @@ import { Button } from '@/components/ui/button';
 import { Alert } from '@/components/ui/feedback';
 import { applyFieldErrors } from '@/lib/api-client';
 import { useUpdateAccount } from '../api/update-account';
+import { formField } from '@/components/ui/form-field';
 
 // The shared password rule, with the current password required and the new one repeated.
 const passwordFormSchema = z
@@ -45,21 +46,18 @@ export function PasswordForm({ onChanged }: { onChanged: (me: CurrentUser) => vo
       <PasswordField
         purpose="current"
         label="Current password"
-        error={errors.currentPassword?.message}
-        {...form.register('currentPassword')}
+        {...formField(form, 'currentPassword')}
       />
       <PasswordField
         purpose="new"
         label="New password"
         hint="At least 10 characters. Other devices will be signed out."
-        error={errors.newPassword?.message}
-        {...form.register('newPassword')}
+        {...formField(form, 'newPassword')}
       />
       <PasswordField
         purpose="new"
         label="Repeat the new password"
-        error={errors.confirmPassword?.message}
-        {...form.register('confirmPassword')}
+        {...formField(form, 'confirmPassword')}
       />
       {update.isError && !errors.currentPassword && !errors.newPassword && (
         <Alert tone="danger">{update.error.message}</Alert>

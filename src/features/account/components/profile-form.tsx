@@ -10,6 +10,7 @@ import { Button } from '@/components/ui/button';
 import { Alert } from '@/components/ui/feedback';
 import { applyFieldErrors } from '@/lib/api-client';
 import { useUpdateAccount } from '../api/update-account';
+import { formField } from '@/components/ui/form-field';
 
 export function ProfileForm({
   user,
@@ -40,8 +41,7 @@ export function ProfileForm({
         label="Name"
         autoComplete="name"
         hint="Shown to your teammates and on invitations you send."
-        error={errors.name?.message}
-        {...form.register('name')}
+        {...formField(form, 'name')}
       />
       <div className="space-y-1">
         <p className="text-sm font-medium text-ink">E-mail</p>

@@ -28,6 +28,7 @@ import {
 } from '../api/two-step';
 import { RecoveryCodesPanel } from './recovery-codes-panel';
 import { formatDate } from '@/utils/format';
+import { formField } from '@/components/ui/form-field';
 
 /** The key in groups of four, as authenticator apps show it, for typing by hand. */
 const grouped = (secret: string) => secret.match(/.{1,4}/g)?.join(' ') ?? secret;
@@ -46,8 +47,7 @@ function AppCodeField({
       autoComplete="one-time-code"
       maxLength={6}
       className="max-w-40 font-mono tracking-widest"
-      error={form.formState.errors.code?.message}
-      {...form.register('code')}
+      {...formField(form, 'code')}
     />
   );
 }
@@ -128,18 +128,12 @@ function DisableForm({ onDone }: { onDone: () => void }) {
       noValidate
       aria-label="Turn off two-step sign-in"
     >
-      <PasswordField
-        purpose="current"
-        label="Your password"
-        error={errors.password?.message}
-        {...form.register('password')}
-      />
+      <PasswordField purpose="current" label="Your password" {...formField(form, 'password')} />
       <TextField
         label="Code from the app, or a recovery code"
         autoComplete="one-time-code"
         className="max-w-56 font-mono"
-        error={errors.code?.message}
-        {...form.register('code')}
+        {...formField(form, 'code')}
       />
       {disable.isError && !errors.password && !errors.code && (
         <Alert tone="danger">{disable.error.message}</Alert>

@@ -7,6 +7,7 @@ import { Button } from '@/components/ui/button';
 import { ApiError } from '@/lib/api-client';
 import { useResetPassword } from '../api/reset-password';
 import { applyServerError, FormError } from './form-error';
+import { formField } from '@/components/ui/form-field';
 
 // The shared schema plus a repeat of the password, checked only here in the browser.
 const resetFormSchema = z
@@ -54,14 +55,12 @@ export function ResetPasswordForm({
         purpose="new"
         label="New password"
         hint="At least 10 characters."
-        error={errors.password?.message}
-        {...form.register('password')}
+        {...formField(form, 'password')}
       />
       <PasswordField
         purpose="new"
         label="Repeat the new password"
-        error={errors.confirmPassword?.message}
-        {...form.register('confirmPassword')}
+        {...formField(form, 'confirmPassword')}
       />
       <FormError message={errors.root?.server?.message} />
       <Button type="submit" className="w-full" busy={isSubmitting}>

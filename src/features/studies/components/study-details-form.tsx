@@ -7,6 +7,7 @@ import { Button } from '@/components/ui/button';
 import { ErrorText } from '@/components/ui/error-boundary';
 import { applyFieldErrors } from '@/lib/api-client';
 import { useUpdateStudy } from '../api/update-study';
+import { formField } from '@/components/ui/form-field';
 
 type Values = z.infer<typeof studyDetailsSchema>;
 
@@ -29,7 +30,7 @@ export function StudyDetailsForm({
       description: study.description,
     },
   });
-  const { errors, isSubmitting } = form.formState;
+  const { isSubmitting } = form.formState;
   const onSubmit = form.handleSubmit(async (values) => {
     try {
       await update.mutateAsync(values);
@@ -43,20 +44,17 @@ export function StudyDetailsForm({
       <TextField
         label="Study name"
         hint="For your team; respondents never see it."
-        error={errors.name?.message}
-        {...form.register('name')}
+        {...formField(form, 'name')}
       />
       <TextField
         label="Public title"
         hint="Respondents see this on the survey and in invitation e-mails."
-        error={errors.publicTitle?.message}
-        {...form.register('publicTitle')}
+        {...formField(form, 'publicTitle')}
       />
       <TextAreaField
         label="Description"
         hint="For your team; respondents do not see it."
-        error={errors.description?.message}
-        {...form.register('description')}
+        {...formField(form, 'description')}
       />
       {update.error && <ErrorText error={update.error} />}
       <div className="flex gap-2">

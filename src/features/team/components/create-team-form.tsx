@@ -8,6 +8,7 @@ import { Button } from '@/components/ui/button';
 import { Alert } from '@/components/ui/feedback';
 import { applyFieldErrors } from '@/lib/api-client';
 import { useCreateTeam } from '../api/create-team';
+import { formField } from '@/components/ui/form-field';
 
 export function CreateTeamForm({ onCreated }: { onCreated: (team: TeamSummary) => void }) {
   const [created, setCreated] = useState('');
@@ -34,8 +35,7 @@ export function CreateTeamForm({ onCreated }: { onCreated: (team: TeamSummary) =
       <TextField
         label="New team name"
         hint="You will be its owner. Studies belong to one team."
-        error={errors.name?.message}
-        {...form.register('name')}
+        {...formField(form, 'name')}
       />
       {create.isError && !errors.name && <Alert tone="danger">{create.error.message}</Alert>}
       {created && <Alert tone="success">Team “{created}” created.</Alert>}

@@ -6,6 +6,7 @@ import { Button } from '@/components/ui/button';
 import { Alert } from '@/components/ui/feedback';
 import { applyFieldErrors } from '@/lib/api-client';
 import { useRenameTeam } from '../api/rename-team';
+import { formField } from '@/components/ui/form-field';
 
 export function RenameTeamForm({
   teamId,
@@ -34,7 +35,7 @@ export function RenameTeamForm({
 
   return (
     <form onSubmit={onSubmit} className="space-y-4" noValidate aria-label="Rename the team">
-      <TextField label="Team name" error={errors.name?.message} {...form.register('name')} />
+      <TextField label="Team name" {...formField(form, 'name')} />
       {rename.isError && !errors.name && <Alert tone="danger">{rename.error.message}</Alert>}
       {rename.isSuccess && !isDirty && <Alert tone="success">Team renamed.</Alert>}
       <Button type="submit" variant="secondary" busy={isSubmitting} disabled={!isDirty}>

@@ -1,6 +1,6 @@
 import type { InviteeCsvPreview } from '@shared/schemas/invitees';
 import { Alert } from '@/components/ui/feedback';
-import { ProblemTable } from '@/components/ui/problem-table';
+import { RowProblemTable } from '@/components/ui/problem-table';
 import { HeaderCells } from '@/components/ui/header-cells';
 
 const fieldLabels: Record<string, string> = {
@@ -37,18 +37,7 @@ export function CsvPreview({ preview }: { preview: InviteeCsvPreview }) {
       {preview.errors.length > 0 && (
         <div>
           <h4 className="mb-1 text-sm font-semibold text-danger">Problems</h4>
-          <ProblemTable
-            label="Problems in the list"
-            columns={[
-              { header: 'Row', numeric: true },
-              { header: 'Column' },
-              { header: 'Problem' },
-            ]}
-            rows={preview.errors.map((e, i) => ({
-              key: `${e.row}-${e.column}-${i}`,
-              cells: [e.row, e.column ?? '—', e.message],
-            }))}
-          />
+          <RowProblemTable label="Problems in the list" problems={preview.errors} />
           {preview.errorCount > preview.errors.length && (
             <p className="mt-1 text-xs text-ink-muted">Only the first problems are listed.</p>
           )}

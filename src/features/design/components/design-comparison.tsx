@@ -33,7 +33,7 @@ export function DesignComparison(p: Props) {
         Both designs scored under the new priors. Lower is better for every criterion.
       </p>
       <DataTable
-        flush
+        look="flush"
         label="Design comparison"
         headings={[
           'Criterion',

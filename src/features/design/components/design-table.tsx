@@ -24,7 +24,7 @@ export function DesignTable({
       {blocks.map((tasks, b) => (
         <DataTable
           key={b}
-          flush
+          look="flush"
           className="w-full min-w-max text-sm"
           caption={
             <>

@@ -25,7 +25,7 @@ export function PriorsTable({ definition, columns, bayesian, values, errors, onC
     });
   return (
     <DataTable
-      flush
+      look="flush"
       caption="Priors per coded column: what you expect each coefficient to be, in utility units."
       captionClassName="mb-2 text-left text-xs text-ink-muted"
       headCellClassName="py-2 pr-3 font-medium"

@@ -73,7 +73,7 @@ export function RunPriorsCard(p: Props) {
       {p.priors && (
         <div className="mt-4 space-y-3">
           <DataTable
-            flush
+            look="flush"
             label="Priors from the run"
             headings={['Coded column', figureHeading('Mean'), figureHeading('SD')]}
           >

@@ -8,7 +8,7 @@ import { AuthLayout } from '@/components/layout/auth-layout';
 import { EmailField, PasswordField } from '@/components/ui/auth-fields';
 import { Button } from '@/components/ui/button';
 import { ErrorText } from '@/components/ui/error-boundary';
-import { applyFieldErrors } from '@/lib/api-client';
+import { submitForm } from '@/lib/submit-form';
 import { useSignIn } from '@/features/auth/api/sign-in';
 import { SecondStepForm } from '@/features/auth/components/second-step-form';
 import { safeRedirect, withAuthParams } from './safe-redirect';
@@ -27,14 +27,10 @@ export function Component() {
   const goOn = () =>
     navigate(safeRedirect(params.get('redirectTo'), paths.home.getHref()), { replace: true });
 
-  const onSubmit = form.handleSubmit(async (values) => {
-    try {
-      const result = await signIn.mutateAsync(values);
-      if ('twoStepRequired' in result) setSecondStep(true);
-      else goOn();
-    } catch (err) {
-      applyFieldErrors(err, form.setError);
-    }
+  const onSubmit = submitForm(form, async (values) => {
+    const result = await signIn.mutateAsync(values);
+    if ('twoStepRequired' in result) setSecondStep(true);
+    else goOn();
   });
 
   if (secondStep)

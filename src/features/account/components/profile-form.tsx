@@ -8,7 +8,7 @@ import {
 import { TextField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Alert } from '@/components/ui/feedback';
-import { applyFieldErrors } from '@/lib/api-client';
+import { submitForm } from '@/lib/submit-form';
 import { useUpdateAccount } from '../api/update-account';
 import { formField } from '@/components/ui/form-field';
 
@@ -26,13 +26,9 @@ export function ProfileForm({
   });
   const { errors, isSubmitting, isSubmitSuccessful, isDirty } = form.formState;
 
-  const onSubmit = form.handleSubmit(async ({ name }) => {
-    try {
-      const me = await update.mutateAsync({ name });
-      form.reset({ name: me.name });
-    } catch (err) {
-      applyFieldErrors(err, form.setError);
-    }
+  const onSubmit = submitForm(form, async ({ name }) => {
+    const me = await update.mutateAsync({ name });
+    form.reset({ name: me.name });
   });
 
   return (

@@ -18,7 +18,7 @@ import { Button } from '@/components/ui/button';
 import { Alert, Spinner } from '@/components/ui/feedback';
 import { TextField } from '@/components/ui/field';
 import { PasswordField } from '@/components/ui/auth-fields';
-import { applyFieldErrors } from '@/lib/api-client';
+import { submitForm } from '@/lib/submit-form';
 import {
   useDisableTwoStep,
   useEnableTwoStep,
@@ -64,12 +64,8 @@ function SetupSteps({
     resolver: zodResolver(enableTwoStepSchema),
     defaultValues: { code: '' },
   });
-  const onSubmit = form.handleSubmit(async (values) => {
-    try {
-      onEnabled((await enable.mutateAsync(values)).recoveryCodes);
-    } catch (err) {
-      applyFieldErrors(err, form.setError);
-    }
+  const onSubmit = submitForm(form, async (values) => {
+    onEnabled((await enable.mutateAsync(values)).recoveryCodes);
   });
   return (
     <form onSubmit={onSubmit} className="space-y-4" noValidate aria-label="Set up two-step sign-in">
@@ -113,13 +109,9 @@ function DisableForm({ onDone }: { onDone: () => void }) {
     defaultValues: { password: '', code: '' },
   });
   const { errors, isSubmitting } = form.formState;
-  const onSubmit = form.handleSubmit(async (values) => {
-    try {
-      await disable.mutateAsync(values);
-      onDone();
-    } catch (err) {
-      applyFieldErrors(err, form.setError);
-    }
+  const onSubmit = submitForm(form, async (values) => {
+    await disable.mutateAsync(values);
+    onDone();
   });
   return (
     <form
@@ -156,12 +148,8 @@ function RenewForm({ onRenewed }: { onRenewed: (c: string[]) => void }) {
     resolver: zodResolver(enableTwoStepSchema),
     defaultValues: { code: '' },
   });
-  const onSubmit = form.handleSubmit(async (values) => {
-    try {
-      onRenewed((await renew.mutateAsync(values)).recoveryCodes);
-    } catch (err) {
-      applyFieldErrors(err, form.setError);
-    }
+  const onSubmit = submitForm(form, async (values) => {
+    onRenewed((await renew.mutateAsync(values)).recoveryCodes);
   });
   return (
     <form onSubmit={onSubmit} className="space-y-4" noValidate aria-label="New recovery codes">

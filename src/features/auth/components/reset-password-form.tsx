@@ -2,24 +2,17 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
 import { passwordSchema, resetPasswordSchema, type CurrentUser } from '@shared/schemas/auth';
-import { PasswordField } from '@/components/ui/auth-fields';
+import { NewPasswordFields, repeatedPasswordSchema } from '@/components/ui/auth-fields';
 import { Button } from '@/components/ui/button';
 import { ApiError } from '@/lib/api-client';
 import { useResetPassword } from '../api/reset-password';
 import { applyServerError, FormError } from './form-error';
-import { formField } from '@/components/ui/form-field';
 
 // The shared schema plus a repeat of the password, checked only here in the browser.
-const resetFormSchema = z
-  .object({
-    token: resetPasswordSchema.shape.token,
-    password: passwordSchema,
-    confirmPassword: z.string(),
-  })
-  .refine((v) => v.password === v.confirmPassword, {
-    path: ['confirmPassword'],
-    message: 'The two passwords differ',
-  });
+const resetFormSchema = repeatedPasswordSchema(
+  { token: resetPasswordSchema.shape.token, password: passwordSchema },
+  'password',
+);
 type ResetFormValues = z.infer<typeof resetFormSchema>;
 
 export function ResetPasswordForm({
@@ -51,17 +44,7 @@ export function ResetPasswordForm({
 
   return (
     <form onSubmit={onSubmit} className="space-y-4" noValidate>
-      <PasswordField
-        purpose="new"
-        label="New password"
-        hint="At least 10 characters."
-        {...formField(form, 'password')}
-      />
-      <PasswordField
-        purpose="new"
-        label="Repeat the new password"
-        {...formField(form, 'confirmPassword')}
-      />
+      <NewPasswordFields form={form} name="password" hint="At least 10 characters." />
       <FormError message={errors.root?.server?.message} />
       <Button type="submit" className="w-full" busy={isSubmitting}>
         Set new password

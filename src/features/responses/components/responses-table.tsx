@@ -9,6 +9,7 @@ import { formatDateTime, formatDuration } from '@/utils/format';
 import { statusLabels } from '../utils/labels';
 import { languageName } from '@shared/languages/language-tags';
 import { DataTable } from '@/components/ui/data-table';
+import { cn } from '@/lib/cn';
 
 /** What both views of the respondent list (this table, and cards on a phone) are given. */
 export type ResponseListViewProps = {
@@ -41,11 +42,7 @@ export function ResponsesTable({ teamId, studyId, list, canManage }: ResponseLis
       {list.items.map((r) => (
         <tr
           key={r.id}
-          className={
-            r.included
-              ? 'border-t border-line/60 align-top'
-              : 'border-t border-line/60 bg-canvas align-top'
-          }
+          className={cn('border-t border-line/60 align-top', !r.included && 'bg-canvas')}
         >
           <th scope="row" className="px-3 py-2 text-left font-normal">
             <span className="font-mono text-xs">{r.id.slice(0, 8)}</span>

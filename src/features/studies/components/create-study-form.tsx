@@ -5,7 +5,7 @@ import { createStudySchema, type Study } from '@shared/schemas/study';
 import { TextAreaField, TextField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { ErrorText } from '@/components/ui/error-boundary';
-import { applyFieldErrors } from '@/lib/api-client';
+import { submitForm } from '@/lib/submit-form';
 import { useCreateStudy } from '../api/create-study';
 import { formField } from '@/components/ui/form-field';
 
@@ -26,12 +26,8 @@ export function CreateStudyForm({
     defaultValues: { name: '', description: '' },
   });
   const { isSubmitting } = form.formState;
-  const onSubmit = form.handleSubmit(async (values) => {
-    try {
-      onCreated(await create.mutateAsync(values));
-    } catch (err) {
-      applyFieldErrors(err, form.setError);
-    }
+  const onSubmit = submitForm(form, async (values) => {
+    onCreated(await create.mutateAsync(values));
   });
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="New study">

@@ -5,7 +5,7 @@ import { studyDetailsSchema, type Study } from '@shared/schemas/study';
 import { TextAreaField, TextField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { ErrorText } from '@/components/ui/error-boundary';
-import { applyFieldErrors } from '@/lib/api-client';
+import { submitForm } from '@/lib/submit-form';
 import { useUpdateStudy } from '../api/update-study';
 import { formField } from '@/components/ui/form-field';
 
@@ -31,13 +31,9 @@ export function StudyDetailsForm({
     },
   });
   const { isSubmitting } = form.formState;
-  const onSubmit = form.handleSubmit(async (values) => {
-    try {
-      await update.mutateAsync(values);
-      onDone();
-    } catch (err) {
-      applyFieldErrors(err, form.setError);
-    }
+  const onSubmit = submitForm(form, async (values) => {
+    await update.mutateAsync(values);
+    onDone();
   });
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Study details" className="max-w-xl space-y-3">

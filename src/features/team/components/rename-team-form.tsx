@@ -4,7 +4,7 @@ import { renameTeamSchema, type CreateTeamInput } from '@shared/schemas/team';
 import { TextField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Alert } from '@/components/ui/feedback';
-import { applyFieldErrors } from '@/lib/api-client';
+import { submitForm } from '@/lib/submit-form';
 import { useRenameTeam } from '../api/rename-team';
 import { formField } from '@/components/ui/form-field';
 
@@ -24,13 +24,9 @@ export function RenameTeamForm({
   });
   const { errors, isSubmitting, isDirty } = form.formState;
 
-  const onSubmit = form.handleSubmit(async (values) => {
-    try {
-      const team = await rename.mutateAsync({ teamId, ...values });
-      form.reset({ name: team.name });
-    } catch (err) {
-      applyFieldErrors(err, form.setError);
-    }
+  const onSubmit = submitForm(form, async (values) => {
+    const team = await rename.mutateAsync({ teamId, ...values });
+    form.reset({ name: team.name });
   });
 
   return (

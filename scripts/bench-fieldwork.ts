@@ -41,13 +41,11 @@ import { measureCpu } from './lib/process-cpu';
 import { measureTcp } from './lib/tcp-counters';
 import { askEventLoopDelay } from '../server/lib/event-loop-delay';
 import type pg from 'pg';
+import { readBenchCli, runBench } from './lib/bench-cli';
 
-const args = process.argv.slice(2);
-const asJson = args.includes('--json');
-const arg = (name: string, fallback: number) => {
-  const i = args.indexOf(`--${name}`);
-  return i >= 0 ? Number(args[i + 1]) : fallback;
-};
+const cli = readBenchCli();
+const { asJson, log } = cli;
+const arg = cli.number;
 const RESPONDENTS = arg('respondents', 500);
 const RAMP_S = arg('ramp', 5);
 const THINK_MS = arg('think', 400);
@@ -59,15 +57,11 @@ const CLIENT_PROCESSES = arg('client-processes', 1);
 /** Web processes of the benchmarked server (WEB_INSTANCES); the baseline checkout gets the same setting. */
 const INSTANCES = arg('instances', 1);
 /** Servers reach PostgreSQL through its Unix socket instead of TCP (same host only). */
-const SOCKET = args.includes('--socket');
+const SOCKET = cli.has('socket');
 const RETRY_SHARE = 0.1;
-const compareAt = args.indexOf('--compare-with');
-const BASELINE_DIR = compareAt >= 0 ? path.resolve(args[compareAt + 1]) : null;
+const BASELINE_DIR = cli.path('compare-with');
 
 const root = path.resolve(import.meta.dirname, '..');
-const log = (s: string) => {
-  if (!asJson) console.log(s);
-};
 
 type Phase = Awaited<ReturnType<typeof measure>>;
 
@@ -317,7 +311,4 @@ async function main() {
   }
 }
 
-main().catch((err) => {
-  console.error(err);
-  process.exit(1);
-});
+runBench(main);

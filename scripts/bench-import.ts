@@ -28,22 +28,16 @@ import { runClientProcess } from './lib/load-client-process';
 import { sampleLoadAverage } from './lib/load-stats';
 import { seedScratchDemo } from './lib/bench-demo-run';
 import { syntheticChoiceLines, syntheticHeader } from './lib/synthetic-choice-file';
+import { readBenchCli, runBench } from './lib/bench-cli';
 
-const args = process.argv.slice(2);
-const asJson = args.includes('--json');
-const arg = (name: string, fallback: number) => {
-  const i = args.indexOf(`--${name}`);
-  return i >= 0 ? Number(args[i + 1]) : fallback;
-};
+const cli = readBenchCli();
+const { asJson, log } = cli;
+const arg = cli.number;
 const ROWS = arg('rows', 1_000_000);
 const PORT = arg('port', 5291);
 const ROWS_PER_RESPONDENT = 36;
-const compareAt = args.indexOf('--compare-with');
-const BASELINE_DIR = compareAt >= 0 ? path.resolve(args[compareAt + 1]) : null;
+const BASELINE_DIR = cli.path('compare-with');
 const root = path.resolve(import.meta.dirname, '..');
-const log = (s: string) => {
-  if (!asJson) console.log(s);
-};
 
 async function writeChoiceFile(file: string, respondents: number): Promise<number> {
   const out = fs.createWriteStream(file);
@@ -160,7 +154,4 @@ async function main() {
   }
 }
 
-main().catch((err) => {
-  console.error(err);
-  process.exit(1);
-});
+runBench(main);

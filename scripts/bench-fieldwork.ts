@@ -21,11 +21,9 @@
  * database runs on the same host (TCP on loopback costs more CPU per query).
  */
 import { randomBytes } from 'node:crypto';
-import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { createDb } from '../db/client';
-import { adminUrl, createScratchDatabase } from './lib/scratch-db';
+import { adminUrl } from './lib/scratch-db';
 import { startProcess, waitForHealth, type ServerProcess } from './lib/server-process';
 import { runLoadClient } from './lib/load-client-process';
 import type { LoadResult } from './lib/respondent-load';
@@ -42,6 +40,7 @@ import { measureTcp } from './lib/tcp-counters';
 import { askEventLoopDelay } from '../server/lib/event-loop-delay';
 import type pg from 'pg';
 import { readBenchCli, runBench } from './lib/bench-cli';
+import { openBenchWorkspace } from './lib/bench-workspace';
 
 const cli = readBenchCli();
 const { asJson, log } = cli;
@@ -165,12 +164,9 @@ async function socketUrl(pool: pg.Pool, database: string): Promise<string> {
 }
 
 async function main() {
-  const admin = adminUrl();
-  const scratch = await createScratchDatabase(admin, 'cw_bench');
-  const work = fs.mkdtempSync(path.join(os.tmpdir(), 'cw-bench-'));
+  const workspace = await openBenchWorkspace('cw-bench', { max: 4, statementTimeoutMs: 120_000 });
+  const { scratch, work, db, pool } = workspace;
   const base = `http://127.0.0.1:${PORT}`;
-  const { db, pool } = createDb(scratch.url, { max: 4, statementTimeoutMs: 120_000 });
-  pool.on('error', () => {});
   let server: ReturnType<typeof startProcess> | null = null;
   try {
     log(`bench:fieldwork — scratch database ${scratch.name}; seeding the demo study…`);
@@ -304,10 +300,7 @@ async function main() {
     }
     if (counts.lost > 0 || counts.duplicated > 0) process.exitCode = 1;
   } finally {
-    await server?.stop();
-    await pool.end();
-    await scratch.drop();
-    fs.rmSync(work, { recursive: true, force: true });
+    await workspace.close(server);
   }
 }
 

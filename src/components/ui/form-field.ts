@@ -23,3 +23,23 @@ export function formField<T extends FieldValues, N extends FieldPath<T>>(
   const error = get(form.formState.errors, name) as FieldError | undefined;
   return { ...form.register(name, options), error: error?.message };
 }
+
+/**
+ * `formField` for a number: the phone's number keyboard (whole numbers, or decimals with any
+ * step) and the value read as a number, NaN when empty, for the schema to reject or default.
+ */
+export function formNumberField<T extends FieldValues, N extends FieldPath<T>>(
+  form: BoundForm<T>,
+  name: N,
+  kind: 'whole' | 'decimal' = 'whole',
+) {
+  const keyboard =
+    kind === 'whole'
+      ? ({ inputMode: 'numeric' } as const)
+      : ({ inputMode: 'decimal', step: 'any' } as const);
+  return {
+    type: 'number',
+    ...keyboard,
+    ...formField(form, name, { valueAsNumber: true } as RegisterOptions<T, N>),
+  } as const;
+}

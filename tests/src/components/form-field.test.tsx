@@ -4,19 +4,23 @@ import { afterEach, describe, expect, it } from 'vitest';
 import { act, cleanup, fireEvent, render, screen } from '@testing-library/react';
 import { useForm, type UseFormReturn } from 'react-hook-form';
 import { TextField } from '@/components/ui/field';
-import { formField } from '@/components/ui/form-field';
+import { formField, formNumberField } from '@/components/ui/form-field';
 
 afterEach(cleanup);
 
-type Values = { name: string; levels: { label: string }[] };
+type Values = { name: string; levels: { label: string }[]; seed: number; tolerance: number };
 let form: UseFormReturn<Values> | undefined;
 
 function Harness() {
-  form = useForm<Values>({ defaultValues: { name: 'Larkspur', levels: [{ label: 'Low' }] } });
+  form = useForm<Values>({
+    defaultValues: { name: 'Larkspur', levels: [{ label: 'Low' }], seed: 1, tolerance: 1e-6 },
+  });
   return (
     <form>
       <TextField label="Study name" {...formField(form, 'name')} />
       <TextField label="First level" {...formField(form, 'levels.0.label')} />
+      <TextField label="Seed" {...formNumberField(form, 'seed')} />
+      <TextField label="Tolerance" {...formNumberField(form, 'tolerance', 'decimal')} />
     </form>
   );
 }
@@ -37,5 +41,17 @@ describe('formField', () => {
     expect(level).toHaveAttribute('aria-invalid', 'true');
     expect(level).toHaveAccessibleDescription('Give every level a label');
     expect(screen.getByLabelText('Study name')).not.toHaveAttribute('aria-invalid');
+  });
+
+  it('reads a number field as a number, with the whole-number or the decimal keyboard', () => {
+    render(<Harness />);
+    fireEvent.change(screen.getByLabelText('Seed'), { target: { value: '42' } });
+    expect(form?.getValues('seed')).toBe(42);
+    expect(screen.getByLabelText('Seed')).toHaveAttribute('inputmode', 'numeric');
+    const tolerance = screen.getByLabelText('Tolerance');
+    expect(tolerance).toHaveAttribute('inputmode', 'decimal');
+    expect(tolerance).toHaveAttribute('step', 'any');
+    fireEvent.change(tolerance, { target: { value: '0.001' } });
+    expect(form?.getValues('tolerance')).toBe(0.001);
   });
 });

@@ -4,7 +4,7 @@
  */
 import { SelectField, TextField } from '@/components/ui/field';
 import type { RunFormValues } from '../utils/run-form-values';
-import { formField, type BoundForm } from '@/components/ui/form-field';
+import { formField, formNumberField, type BoundForm } from '@/components/ui/form-field';
 
 export function EstimationSettingsFields({
   form,
@@ -39,16 +39,12 @@ export function EstimationSettingsFields({
         />
         <TextField
           label="Newton decrement tolerance"
-          type="number"
-          step="any"
           hint="g′A⁻¹g at convergence"
-          {...formField(form, 'tolerance', { valueAsNumber: true })}
+          {...formNumberField(form, 'tolerance', 'decimal')}
         />
         <TextField
           label="Relative gradient tolerance"
-          type="number"
-          step="any"
-          {...formField(form, 'gradientTolerance', { valueAsNumber: true })}
+          {...formNumberField(form, 'gradientTolerance', 'decimal')}
         />
         {mixed && (
           <label className="flex items-center gap-2 self-end pb-2 text-sm text-ink">

@@ -6,10 +6,9 @@
 import { SelectField, TextField } from '@/components/ui/field';
 import { HB_DEFAULTS_TEXT, type RunFormValues } from '../utils/run-form-values';
 import { CorrelatedTastesField } from './correlated-tastes-field';
-import { formField, type BoundForm } from '@/components/ui/form-field';
+import { formField, formNumberField, type BoundForm } from '@/components/ui/form-field';
 
 export function HbFields({ form }: { form: BoundForm<RunFormValues> }) {
-  const number = { type: 'number', inputMode: 'numeric' } as const;
   return (
     <>
       <fieldset className="grid gap-4 sm:grid-cols-3">
@@ -17,33 +16,27 @@ export function HbFields({ form }: { form: BoundForm<RunFormValues> }) {
         <TextField
           label="Iterations per chain"
           hint="Burn-in included"
-          {...number}
-          {...formField(form, 'mcmcIterations', { valueAsNumber: true })}
+          {...formNumberField(form, 'mcmcIterations')}
         />
         <TextField
           label="Burn-in"
           hint="Empty: half the iterations"
-          {...number}
+          type="number"
+          inputMode="numeric"
           {...formField(form, 'mcmcBurnin')}
         />
-        <TextField
-          label="Keep every n-th draw"
-          {...number}
-          {...formField(form, 'mcmcThin', { valueAsNumber: true })}
-        />
+        <TextField label="Keep every n-th draw" {...formNumberField(form, 'mcmcThin')} />
         <TextField
           label="MH steps per respondent"
           hint="Per iteration; more steps mix the population means better, at a proportional cost"
-          {...number}
-          {...formField(form, 'mcmcSteps', { valueAsNumber: true })}
+          {...formNumberField(form, 'mcmcSteps')}
         />
         <TextField
           label="Chains"
           hint="Run in parallel, each with its own seed stream"
-          {...number}
-          {...formField(form, 'mcmcChains', { valueAsNumber: true })}
+          {...formNumberField(form, 'mcmcChains')}
         />
-        <TextField label="Seed" {...number} {...formField(form, 'seed', { valueAsNumber: true })} />
+        <TextField label="Seed" {...formNumberField(form, 'seed')} />
         <CorrelatedTastesField form={form} label="Correlated random tastes" />
         <p className="text-xs text-ink-muted sm:col-span-3">
           Defaults: {HB_DEFAULTS_TEXT}. The population means are drawn from the respondents&apos;
@@ -61,10 +54,7 @@ export function HbFields({ form }: { form: BoundForm<RunFormValues> }) {
         <TextField
           label="Prior variance of the population means μ"
           hint="μ ~ N(0, variance·I); 100 is diffuse for coefficients of order 1"
-          type="number"
-          inputMode="decimal"
-          step="any"
-          {...formField(form, 'priorMuVariance', { valueAsNumber: true })}
+          {...formNumberField(form, 'priorMuVariance', 'decimal')}
         />
         <p className="text-xs text-ink-muted sm:col-span-2">
           The priors act on the coefficients as coded. Dummy- and effects-coded levels are

@@ -8,7 +8,7 @@ import { TextField } from '@/components/ui/field';
 import { LATENT_CLASS_MAX, MEMBERSHIP_MAX_OPTIONS } from '@shared/schemas/estimation-families';
 import type { MembershipQuestionOption } from '@shared/schemas/run';
 import type { RunFormValues } from '../utils/run-form-values';
-import { formField, type BoundForm } from '@/components/ui/form-field';
+import { formNumberField, type BoundForm } from '@/components/ui/form-field';
 
 export function LatentClassFields({
   form,
@@ -17,27 +17,17 @@ export function LatentClassFields({
   form: BoundForm<RunFormValues>;
   questions: MembershipQuestionOption[];
 }) {
-  const number = { type: 'number', inputMode: 'numeric' } as const;
   return (
     <fieldset className="grid gap-4 sm:grid-cols-4">
       <legend className="mb-2 text-sm font-medium text-ink">Classes</legend>
-      <TextField
-        label="Fewest classes"
-        {...number}
-        {...formField(form, 'classesMin', { valueAsNumber: true })}
-      />
+      <TextField label="Fewest classes" {...formNumberField(form, 'classesMin')} />
       <TextField
         label="Most classes"
         hint={`Up to ${LATENT_CLASS_MAX}`}
-        {...number}
-        {...formField(form, 'classesMax', { valueAsNumber: true })}
+        {...formNumberField(form, 'classesMax')}
       />
-      <TextField
-        label="EM starts per class count"
-        {...number}
-        {...formField(form, 'starts', { valueAsNumber: true })}
-      />
-      <TextField label="Seed" {...number} {...formField(form, 'seed', { valueAsNumber: true })} />
+      <TextField label="EM starts per class count" {...formNumberField(form, 'starts')} />
+      <TextField label="Seed" {...formNumberField(form, 'seed')} />
       <p className="text-xs text-ink-muted sm:col-span-4">
         Each class count in the range is fitted from every start; the run reports the one with the
         lowest BIC and a table of LL, parameters, AIC, BIC and CAIC so you can choose another. More

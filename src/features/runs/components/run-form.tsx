@@ -30,7 +30,7 @@ import {
   type RunFormValues,
 } from '../utils/run-form-values';
 import { CorrelatedTastesField } from './correlated-tastes-field';
-import { formField, type BoundForm } from '@/components/ui/form-field';
+import { formField, formNumberField, type BoundForm } from '@/components/ui/form-field';
 
 const distributionLabels: Record<ColumnChoice, string> = {
   omit: 'Leave out',
@@ -184,31 +184,17 @@ export function RunForm({
               </option>
             ))}
           </SelectField>
-          <TextField
-            label="Draws per respondent"
-            type="number"
-            inputMode="numeric"
-            {...formField(form, 'drawsCount', { valueAsNumber: true })}
-          />
+          <TextField label="Draws per respondent" {...formNumberField(form, 'drawsCount')} />
           <TextField
             label="Draws for taste profiles"
-            type="number"
-            inputMode="numeric"
             hint="More than for estimation"
-            {...formField(form, 'profileDraws', { valueAsNumber: true })}
+            {...formNumberField(form, 'profileDraws')}
           />
-          <TextField
-            label="Seed"
-            type="number"
-            inputMode="numeric"
-            {...formField(form, 'seed', { valueAsNumber: true })}
-          />
+          <TextField label="Seed" {...formNumberField(form, 'seed')} />
           <TextField
             label="Starting points"
-            type="number"
-            inputMode="numeric"
             hint="The MNL start plus perturbed ones"
-            {...formField(form, 'starts', { valueAsNumber: true })}
+            {...formNumberField(form, 'starts')}
           />
           <CorrelatedTastesField form={form} label="Correlated normal tastes" />
         </fieldset>

@@ -44,6 +44,7 @@ export function Component() {
   if (list.error) return <ErrorText error={list.error} />;
   const data = list.data;
   const pages = Math.max(1, Math.ceil(data.total / PAGE_SIZE));
+  const listView = { teamId, studyId, list: data, canManage };
 
   return (
     <div className="space-y-6">
@@ -158,21 +159,12 @@ export function Component() {
             <p className="text-sm text-ink-muted">No respondent matches these filters.</p>
           ) : (
             <>
+              {/* The same respondents as cards on a phone and as a table from sm up. */}
               <div className="sm:hidden">
-                <ResponseCards
-                  teamId={teamId}
-                  studyId={studyId}
-                  list={data}
-                  canManage={canManage}
-                />
+                <ResponseCards {...listView} />
               </div>
               <div className="hidden sm:block">
-                <ResponsesTable
-                  teamId={teamId}
-                  studyId={studyId}
-                  list={data}
-                  canManage={canManage}
-                />
+                <ResponsesTable {...listView} />
               </div>
             </>
           )}

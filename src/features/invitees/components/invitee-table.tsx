@@ -13,6 +13,7 @@ import { MailStatus } from './mail-status';
 import { InviteeStateBadge, inviteeStateOptions } from './invitee-state-badge';
 import { formatDate } from '@/utils/format';
 import { DataTable } from '@/components/ui/data-table';
+import { Options } from '@/components/ui/options';
 
 const PAGE_SIZE = 25;
 
@@ -52,11 +53,7 @@ export function InviteeTable({
           }}
         >
           <option value="">Everybody</option>
-          {inviteeStateOptions.map((o) => (
-            <option key={o.value} value={o.value}>
-              {o.label}
-            </option>
-          ))}
+          <Options items={inviteeStateOptions} />
         </SelectField>
         <TextField
           label="Search"

@@ -22,6 +22,7 @@ import { applyFieldErrors } from '@/lib/api-client';
 import { useEraseRespondent, usePreviewErasure } from '../api/erase-respondent';
 import { statusLabels } from '../utils/labels';
 import { formField } from '@/components/ui/form-field';
+import { Options } from '@/components/ui/options';
 
 const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 
@@ -122,11 +123,9 @@ export function EraseRespondentForm({ teamId, studyId }: { teamId: string; study
     <form onSubmit={onSubmit} noValidate className="space-y-4">
       <div className="grid gap-3 sm:grid-cols-[minmax(0,14rem)_minmax(0,1fr)_auto] sm:items-end">
         <SelectField label="Find by" {...formField(form, 'by', { onChange: forgetPreview })}>
-          {erasureLookupKinds.map((k) => (
-            <option key={k} value={k}>
-              {erasureLookupLabels[k]}
-            </option>
-          ))}
+          <Options
+            items={erasureLookupKinds.map((k) => ({ value: k, label: erasureLookupLabels[k] }))}
+          />
         </SelectField>
         <TextField
           label={erasureLookupLabels[by]}

@@ -10,6 +10,7 @@ import { SelectField } from '@/components/ui/field';
 import { formatNumber, formatPercent } from '@/utils/format';
 import { TraceChart } from './trace-chart';
 import { DataTable, figureHeading } from '@/components/ui/data-table';
+import { Options } from '@/components/ui/options';
 
 /** ESS below this is too few draws to trust a posterior mean (common practice, no source). */
 const ESS_LOW = 400;
@@ -133,11 +134,7 @@ function Traces({ d, label }: { d: Diagnostics; label: Map<string, string> }) {
         </SelectField>
         {part !== 'acceptance' && (
           <SelectField label="Coefficient" value={name} onChange={(e) => setName(e.target.value)}>
-            {names.map((n) => (
-              <option key={n} value={n}>
-                {label.get(n) ?? n}
-              </option>
-            ))}
+            <Options items={names.map((n) => ({ value: n, label: label.get(n) ?? n }))} />
           </SelectField>
         )}
       </div>

@@ -31,6 +31,7 @@ import {
 } from '../utils/run-form-values';
 import { CorrelatedTastesField } from './correlated-tastes-field';
 import { formField, formNumberField, type BoundForm } from '@/components/ui/form-field';
+import { Options } from '@/components/ui/options';
 
 const distributionLabels: Record<ColumnChoice, string> = {
   omit: 'Leave out',
@@ -83,11 +84,7 @@ function ColumnRow({
         label={<span className="sr-only">Distribution of {column.label}</span>}
         {...formField(form, `columns.${index}.distribution`)}
       >
-        {choices.map((c) => (
-          <option key={c} value={c}>
-            {distributionLabels[c]}
-          </option>
-        ))}
+        <Options items={choices.map((c) => ({ value: c, label: distributionLabels[c] }))} />
       </SelectField>
     </div>
   );
@@ -151,11 +148,12 @@ export function RunForm({
           label="Model"
           {...formField(form, 'model', { onChange: (e) => switchModel(e.target.value) })}
         >
-          {(Object.keys(MODEL_LABELS) as RunFormModel[]).map((m) => (
-            <option key={m} value={m}>
-              {MODEL_LABELS[m]}
-            </option>
-          ))}
+          <Options
+            items={(Object.keys(MODEL_LABELS) as RunFormModel[]).map((m) => ({
+              value: m,
+              label: MODEL_LABELS[m],
+            }))}
+          />
         </SelectField>
         <TextField label="Name" placeholder={MODEL_LABELS[model]} {...formField(form, 'name')} />
       </div>
@@ -178,11 +176,12 @@ export function RunForm({
         <fieldset className="grid gap-4 sm:grid-cols-3">
           <legend className="mb-2 text-sm font-medium text-ink">Simulation</legend>
           <SelectField label="Draws" {...formField(form, 'drawsType')}>
-            {drawsTypeSchema.options.map((t) => (
-              <option key={t} value={t}>
-                {drawsTypeLabels[t].charAt(0).toUpperCase() + drawsTypeLabels[t].slice(1)}
-              </option>
-            ))}
+            <Options
+              items={drawsTypeSchema.options.map((t) => ({
+                value: t,
+                label: drawsTypeLabels[t].charAt(0).toUpperCase() + drawsTypeLabels[t].slice(1),
+              }))}
+            />
           </SelectField>
           <TextField label="Draws per respondent" {...formNumberField(form, 'drawsCount')} />
           <TextField

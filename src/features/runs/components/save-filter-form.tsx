@@ -15,6 +15,7 @@ import { Alert } from '@/components/ui/feedback';
 import { applyFieldErrors } from '@/lib/api-client';
 import { useCreateRespondentFilter } from '../api/create-respondent-filter';
 import { formField } from '@/components/ui/form-field';
+import { Options } from '@/components/ui/options';
 
 export type FilterQuestion = {
   key: string;
@@ -73,11 +74,7 @@ export function SaveFilterForm({
       <div className="grid gap-4 sm:grid-cols-2">
         <TextField label="Filter name" {...formField(form, 'name')} />
         <SelectField label="Background question" {...register('definition.conditions.0.question')}>
-          {questions.map((q) => (
-            <option key={q.key} value={q.key}>
-              {q.text}
-            </option>
-          ))}
+          <Options items={questions.map((q) => ({ value: q.key, label: q.text }))} />
         </SelectField>
       </div>
       <fieldset>

@@ -17,6 +17,7 @@ import { getLevelLabel } from '@shared/study/level-labels';
 import { DemandCurveChart } from './demand-curve-chart';
 import { ShareDownloads } from './share-downloads';
 import { DataTable, figureHeading } from '@/components/ui/data-table';
+import { Options } from '@/components/ui/options';
 
 const pct = (x: number | null | undefined) => formatPercent(x, 1);
 
@@ -86,11 +87,7 @@ export function DemandCurveCard({
           onChange={(e) => setAttributeId(e.target.value)}
           wrapperClassName="w-full sm:w-72"
         >
-          {definition.attributes.map((a) => (
-            <option key={a.id} value={a.id}>
-              {a.name}
-            </option>
-          ))}
+          <Options items={definition.attributes.map((a) => ({ value: a.id, label: a.name }))} />
         </SelectField>
         {!on && <Button onClick={() => setOn(true)}>Draw the demand curve</Button>}
       </div>

@@ -8,6 +8,7 @@ import type { ImportSetupInput } from '@shared/schemas/study-import';
 import { SelectField, TextField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { formField } from '@/components/ui/form-field';
+import { Options } from '@/components/ui/options';
 
 export function ImportedAttributeFields({
   index,
@@ -40,11 +41,7 @@ export function ImportedAttributeFields({
         </SelectField>
         {attribute.coding === 'dummy' ? (
           <SelectField label="Reference level" {...register(`${at}.referenceRaw`)}>
-            {attribute.levels.map((l) => (
-              <option key={l.raw} value={l.raw}>
-                {l.raw}
-              </option>
-            ))}
+            <Options items={attribute.levels.map((l) => ({ value: l.raw, label: l.raw }))} />
           </SelectField>
         ) : (
           <div />

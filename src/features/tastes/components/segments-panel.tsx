@@ -13,6 +13,7 @@ import { formatNumber } from '@/utils/format';
 import { SegmentsChart, type SegmentsView } from './segments-chart';
 import { MEAN_NAMES } from '../utils/mean-names';
 import { DataTable, figureHeading } from '@/components/ui/data-table';
+import { Options } from '@/components/ui/options';
 
 type GroupBy = 'task' | 'question' | 'class';
 
@@ -56,11 +57,7 @@ export function SegmentsPanel({
           value={coefficient}
           onChange={(e) => setCoefficient(e.target.value)}
         >
-          {header.coefficients.map((c) => (
-            <option key={c.name} value={c.name}>
-              {c.label}
-            </option>
-          ))}
+          <Options items={header.coefficients.map((c) => ({ value: c.name, label: c.label }))} />
         </SelectField>
         <SelectField
           label="Split by"
@@ -79,11 +76,7 @@ export function SegmentsPanel({
             value={question}
             onChange={(e) => setQuestion(e.target.value)}
           >
-            {groupable.map((q) => (
-              <option key={q.key} value={q.key}>
-                {q.text}
-              </option>
-            ))}
+            <Options items={groupable.map((q) => ({ value: q.key, label: q.text }))} />
           </SelectField>
         ) : (
           <SelectField label="Task" value={task} onChange={(e) => setTask(Number(e.target.value))}>

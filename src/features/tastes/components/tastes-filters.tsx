@@ -1,6 +1,7 @@
 import { SelectField } from '@/components/ui/field';
 import type { TasteHeader } from '@shared/schemas/tastes';
 import type { TastesQuery } from '../api/list-tastes';
+import { Options } from '@/components/ui/options';
 
 type Patch = Partial<TastesQuery>;
 const tri = (v: boolean | undefined) => (v === undefined ? '' : v ? 'true' : 'false');
@@ -37,11 +38,7 @@ export function TastesFilters({
         value={query.sort}
         onChange={(e) => onChange({ sort: e.target.value, page: 1 })}
       >
-        {sortOptions.map((o) => (
-          <option key={o.value} value={o.value}>
-            {o.label}
-          </option>
-        ))}
+        <Options items={sortOptions} />
       </SelectField>
       <SelectField
         label="Order"
@@ -78,11 +75,7 @@ export function TastesFilters({
           }
         >
           <option value="">Any</option>
-          {filterable.map((q) => (
-            <option key={q.key} value={q.key}>
-              {q.text}
-            </option>
-          ))}
+          <Options items={filterable.map((q) => ({ value: q.key, label: q.text }))} />
         </SelectField>
         <SelectField
           label="is"
@@ -91,11 +84,9 @@ export function TastesFilters({
           onChange={(e) => onChange({ answer: e.target.value || undefined, page: 1 })}
         >
           <option value="">Choose…</option>
-          {question?.options.map((o) => (
-            <option key={o.id} value={o.id}>
-              {o.label}
-            </option>
-          ))}
+          <Options
+            items={(question?.options ?? []).map((o) => ({ value: o.id, label: o.label }))}
+          />
         </SelectField>
       </div>
     </div>

@@ -10,6 +10,7 @@ import { applyFieldErrors } from '@/lib/api-client';
 import { useCreateInvitation } from '../api/create-invitation';
 import { roleLabels } from './role-label';
 import { formField } from '@/components/ui/form-field';
+import { Options } from '@/components/ui/options';
 
 export function InviteForm({ teamId }: { teamId: string }) {
   const invite = useCreateInvitation();
@@ -50,11 +51,7 @@ export function InviteForm({ teamId }: { teamId: string }) {
         hint={roleDescriptions[role] ? `${roleDescriptions[role]}.` : undefined}
         {...formField(form, 'role')}
       >
-        {roles.map((r) => (
-          <option key={r} value={r}>
-            {roleLabels[r]}
-          </option>
-        ))}
+        <Options items={roles.map((r) => ({ value: r, label: roleLabels[r] }))} />
       </SelectField>
       {errors.root?.server && <Alert tone="danger">{errors.root.server.message}</Alert>}
       {sentTo && (

@@ -17,6 +17,7 @@ import { cn } from '@/lib/cn';
 import { useStudyPreview } from '@/features/preview/api/get-study-preview';
 import { listenToPreviewScreens } from '@/features/preview/utils/preview-messages';
 import { GoToSection } from './go-to-section';
+import { Options } from '@/components/ui/options';
 
 const widths = [
   { id: 'phone', label: 'Phone', px: 360, height: 740 },
@@ -96,11 +97,7 @@ export function Component() {
             value={survey.language}
             onChange={(e) => setLang(e.target.value)}
           >
-            {survey.languages.map((l) => (
-              <option key={l.tag} value={l.tag}>
-                {l.name}
-              </option>
-            ))}
+            <Options items={survey.languages.map((l) => ({ value: l.tag, label: l.name }))} />
           </SelectField>
         )}
         <SelectField

@@ -20,6 +20,7 @@ import { ExcludeFlaggedForm } from '@/features/responses/components/exclude-flag
 import { EraseRespondentForm } from '@/features/responses/components/erase-respondent-form';
 import { statusLabels } from '@/features/responses/utils/labels';
 import { languageName } from '@shared/languages/language-tags';
+import { Options } from '@/components/ui/options';
 
 const PAGE_SIZE = 50;
 type Filters = Pick<ListResponsesQuery, 'status' | 'included' | 'flag' | 'language'> & {
@@ -129,11 +130,9 @@ export function Component() {
                 onChange={(e) => set({ language: e.target.value || undefined })}
               >
                 <option value="">All</option>
-                {data.languages.map((l) => (
-                  <option key={l} value={l}>
-                    {languageName(l)}
-                  </option>
-                ))}
+                <Options
+                  items={data.languages.map((l) => ({ value: l, label: languageName(l) }))}
+                />
               </SelectField>
             )}
             <SelectField

@@ -40,20 +40,12 @@ export function CompletesBreakdown({ stats }: { stats: FieldworkStats }) {
       <CountTable
         caption="Per block"
         head="Block"
-        rows={stats.byBlock.map((b) => ({
-          key: b.block,
-          starts: b.starts,
-          completed: b.completed,
-        }))}
+        rows={stats.byBlock.map(({ block, ...counts }) => ({ key: block, ...counts }))}
       />
       <CountTable
         caption="Per version"
         head="Version"
-        rows={stats.byVersion.map((v) => ({
-          key: v.version,
-          starts: v.starts,
-          completed: v.completed,
-        }))}
+        rows={stats.byVersion.map(({ version, ...counts }) => ({ key: version, ...counts }))}
       />
     </div>
   );

@@ -6,20 +6,12 @@ import userEvent from '@testing-library/user-event';
 import { TastesFilters } from '@/features/tastes/components/tastes-filters';
 import type { TasteHeader } from '@shared/schemas/tastes';
 import type { TastesQuery } from '@/features/tastes/api/list-tastes';
+import { mixedTastesRun } from './taste-fixtures';
 
 afterEach(cleanup);
 
 const header: TasteHeader = {
-  run: {
-    id: 'run1',
-    name: 'Mixed',
-    model: 'mixed',
-    finishedAt: null,
-    profiles: 30,
-    profileDraws: 500,
-    erasedRespondents: 0,
-    wtpUnavailable: null,
-  },
+  run: mixedTastesRun,
   coefficients: [],
   wtp: [],
   cost: null,

@@ -40,6 +40,13 @@ const toLocalInput = (iso: string | null) => {
 };
 const orNull = (s: string) => (s.trim() === '' ? null : s.trim());
 
+/** Where a panel respondent is sent back to at each way out of the survey. */
+const redirects = [
+  { name: 'complete', when: 'complete', page: 'complete' },
+  { name: 'screenedOut', when: 'screened out', page: 'screened' },
+  { name: 'overQuota', when: 'over quota', page: 'full' },
+] as const;
+
 export function SettingsForm({
   teamId,
   studyId,
@@ -130,22 +137,19 @@ export function SettingsForm({
           hint="Phones that were offline send their answers later. 0 refuses every answer after the close."
           {...formField(form, 'lateAnswerGraceHours')}
         />
-        <TextField
-          label="Redirect when complete"
-          placeholder="https://panel.example/complete?id={pid}"
-          {...formField(form, 'complete')}
-        />
-        <TextField
-          label="Redirect when screened out"
-          placeholder="https://panel.example/screened?id={pid}"
-          {...formField(form, 'screenedOut')}
-        />
-        <TextField
-          label="Redirect when over quota"
-          placeholder="https://panel.example/full?id={pid}"
-          hint="{pid} is replaced by the respondent's panel id."
-          {...formField(form, 'overQuota')}
-        />
+        {redirects.map((r, i) => (
+          <TextField
+            key={r.name}
+            label={`Redirect when ${r.when}`}
+            placeholder={`https://panel.example/${r.page}?id={pid}`}
+            hint={
+              i === redirects.length - 1
+                ? "{pid} is replaced by the respondent's panel id."
+                : undefined
+            }
+            {...formField(form, r.name)}
+          />
+        ))}
         <TextField
           label="Invitation e-mails come from"
           placeholder="Larkspur customer research"

@@ -16,6 +16,7 @@
  */
 import { createHash } from 'node:crypto';
 import type { Request, RequestHandler, Response } from 'express';
+import { boundedMemo } from '../lib/bounded-memo';
 
 export type LimitHit = { totalHits: number; resetTime?: Date };
 
@@ -72,16 +73,7 @@ export function createRateLimiter(o: RateLimiterOptions): RequestHandler {
   o.store.init({ windowMs: o.windowMs, limit: o.limit });
   const name = policyName(o.limit, o.windowMs);
   const windowSeconds = Math.ceil(o.windowMs / 1000);
-  const partitionKeys = new Map<string, string>();
-  const partitionKey = (key: string) => {
-    let pk = partitionKeys.get(key);
-    if (pk === undefined) {
-      if (partitionKeys.size >= PARTITION_KEYS_KEPT) partitionKeys.clear();
-      pk = partitionKeyOf(key);
-      partitionKeys.set(key, pk);
-    }
-    return pk;
-  };
+  const partitionKey = boundedMemo(partitionKeyOf, PARTITION_KEYS_KEPT);
 
   const decide = (
     req: Request,

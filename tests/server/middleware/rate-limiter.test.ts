@@ -7,7 +7,7 @@
 import { describe, expect, it } from 'vitest';
 import express, { type RequestHandler } from 'express';
 import supertest from 'supertest';
-import { MemoryStore, rateLimit } from 'express-rate-limit';
+import { MemoryStore, rateLimit, type Options } from 'express-rate-limit';
 import {
   createRateLimiter,
   partitionKeyOf,
@@ -43,11 +43,21 @@ const reference = (limit: number, windowMs: number, failuresOnly = false) =>
     handler: (req, res) => refuse(req, res),
   });
 
+/** express-rate-limit's in-memory store, as the limiter's store. */
+function memory(): LimitStore {
+  const m = new MemoryStore();
+  return {
+    init: (o) => m.init(o as Options),
+    increment: (key) => m.increment(key),
+    decrement: (key) => m.decrement(key),
+  };
+}
+
 const ours = (limit: number, windowMs: number, failuresOnly = false, store?: LimitStore) =>
   createRateLimiter({
     windowMs,
     limit,
-    store: store ?? new MemoryStore(),
+    store: store ?? memory(),
     key: keyOf,
     failuresOnly,
     refuse,

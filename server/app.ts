@@ -16,7 +16,7 @@ import { createRequestLog } from './lib/request-log';
 import { createPatternLookup, listApiRoutes } from './lib/route-table';
 import { refuseCrossSiteWrites } from './middleware/same-origin';
 import { serveClient } from './static-client';
-import { answerLane } from './middleware/answer-lane';
+import { answerLane, enterAnswersFirst } from './middleware/answer-lane';
 import { createRespondentSteps } from './routes/respond';
 import { createRespondentJson } from './middleware/respondent-json';
 
@@ -66,15 +66,15 @@ export function createApp(deps: AppDeps): express.Express {
   // from a request that sends any: a phone without cookies is spared the parser's objects.
   const cookiesIfSent: express.RequestHandler = (req, res, next) =>
     req.headers.cookie === undefined ? next() : cookies(req, res, next);
-  app.use(
-    answerLane(
-      {
-        common: [securityHeaders, requestLog, cookiesIfSent, sameOrigin, respondentJson],
-        ...respondent,
-      },
-      errorHandler,
-    ),
+  const lane = answerLane(
+    {
+      common: [securityHeaders, requestLog, cookiesIfSent, sameOrigin, respondentJson],
+      ...respondent,
+    },
+    errorHandler,
   );
+  enterAnswersFirst(app, lane);
+  app.use(lane);
   app.use(securityHeaders);
   app.use(requestLog);
   // gzip or brotli, whichever the browser prefers, for pages, scripts, styles and JSON — but

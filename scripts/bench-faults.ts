@@ -25,7 +25,12 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { createDb } from '../db/client';
-import { startProcess, waitForHealth, type ServerProcess } from './lib/server-process';
+import {
+  assertPortFree,
+  startProcess,
+  waitForHealth,
+  type ServerProcess,
+} from './lib/server-process';
 import { runLoadClient } from './lib/load-client-process';
 import { sampleLoadAverage } from './lib/load-stats';
 import { createBenchStudy, readStoredAnswers, reconcile } from './lib/bench-study';
@@ -93,6 +98,7 @@ async function main() {
   try {
     log(`bench:faults — private PostgreSQL on ${PG_PORT}; seeding the demo study…`);
     const credentials = await seedScratchDemo(cluster.url, work);
+    for (const i of [0, 1]) await assertPortFree(API_PORT + i);
     const api = [startApi(0), startApi(1)];
     let worker = startWorker();
     procs.push(...api, worker);
@@ -100,7 +106,7 @@ async function main() {
     log('two API instances and one worker are up');
     // The bench study belongs to the demo team, whose editor sends its invitations.
     const editor = await signInDemoEditor(bases[1], credentials);
-    const { publicId, studyId } = await createBenchStudy(db, editor.teamId);
+    const { publicId, studyId } = await createBenchStudy(db, { teamId: editor.teamId });
 
     const load = sampleLoadAverage(os.loadavg);
     const t0 = Date.now();

@@ -1,9 +1,14 @@
 /**
  * Fieldwork load benchmark, measured from outside as deployed. In a scratch database (never
- * the demo database) it seeds the demo study, puts a 10-task bench study live, and starts the
+ * the demo database) it seeds the demo study, puts a bench study live, and starts the
  * server as its own process (`node --import tsx server/main.ts`, production settings, embedded
  * worker on). The simulated respondents run in another process (scripts/respondent-load.ts):
  * they arrive over a ramp, answer with a short think time, and re-send one answer in ten.
+ * The bench study has 24 choice tasks per respondent by default (`--tasks`), so that with a
+ * 5 s ramp and a 400 ms think time all 500 respondents are answering at once for several
+ * seconds: the headline figures (answers per second, answer latency) are those of that
+ * window of full load, the issue's "500 concurrent respondents"; the whole-run figures, ramp
+ * and tail included, are printed beside them.
  *
  * Two loads in one run, side by side: first with the machine otherwise idle, then while a
  * panel mixed logit of the demo study estimates in the same server process. Every answer the
@@ -13,7 +18,7 @@
  * takes the same idle load first, against the same database and the same machine, so that two
  * implementations are compared side by side in one run (the `baseline` figures).
  *
- * Usage: npm run bench:fieldwork [-- --respondents 500] [-- --ramp 5] [-- --think 400]
+ * Usage: npm run bench:fieldwork [-- --respondents 500] [-- --ramp 5] [-- --think 400] [-- --tasks 24]
  *        [-- --port 5281] [-- --pool <connections>] [-- --compare-with <dir>] [-- --socket]
  *        [-- --client-processes 2] [-- --instances 2] [-- --json]
  * `--instances N`: the server runs N web processes on its port (WEB_INSTANCES).
@@ -26,16 +31,16 @@ import os from 'node:os';
 import path from 'node:path';
 import { createDb } from '../db/client';
 import { adminUrl, createScratchDatabase } from './lib/scratch-db';
-import { startProcess, waitForHealth, type ServerProcess } from './lib/server-process';
+import {
+  assertPortFree,
+  startProcess,
+  waitForHealth,
+  type ServerProcess,
+} from './lib/server-process';
 import { runLoadClient } from './lib/load-client-process';
 import type { LoadResult } from './lib/respondent-load';
 import { fullLoadWindow, latencySummary, sampleLoadAverage } from './lib/load-stats';
-import {
-  BENCH_TASKS_PER_RESPONDENT,
-  createBenchStudy,
-  readStoredAnswers,
-  reconcile,
-} from './lib/bench-study';
+import { createBenchStudy, readStoredAnswers, reconcile } from './lib/bench-study';
 import { seedScratchDemo, startDemoMixedRun, waitForRun } from './lib/bench-demo-run';
 import { measureCpu } from './lib/process-cpu';
 import { measureTcp } from './lib/tcp-counters';
@@ -51,6 +56,8 @@ const arg = (name: string, fallback: number) => {
 const RESPONDENTS = arg('respondents', 500);
 const RAMP_S = arg('ramp', 5);
 const THINK_MS = arg('think', 400);
+/** Choice tasks per respondent; with fewer, the 500 never all answer at the same time. */
+const TASKS = arg('tasks', 24);
 const PORT = arg('port', 5281);
 /** Database connections of the server process; by default the server's own (DB_POOL_SIZE). */
 const POOL = arg('pool', 0);
@@ -139,7 +146,7 @@ function phaseFigures(p: Phase) {
     // Over the whole load, ramp and tail included.
     answersPerSecond: Math.round(p.r.acknowledged.length / p.seconds),
     // While all of them answer at once (see fullLoadWindow).
-    fullLoad: fullLoadWindow(p.r.spans, p.r.ackAt),
+    fullLoad: fullLoadWindow(p.r.spans, p.r.ackAt, { ms: p.r.answerMs, doneAt: p.r.answerDoneAt }),
     answerLatencyMs: latencySummary(p.r.answerMs),
     sessionStartLatencyMs: latencySummary(p.r.sessionMs),
     replaysAsked: p.r.replaysAsked,
@@ -181,7 +188,7 @@ async function main() {
   try {
     log(`bench:fieldwork — scratch database ${scratch.name}; seeding the demo study…`);
     const credentials = await seedScratchDemo(scratch.url, work);
-    const { publicId, studyId } = await createBenchStudy(db);
+    const { publicId, studyId } = await createBenchStudy(db, { tasksPerRespondent: TASKS });
     const serverEnv = {
       NODE_ENV: 'production',
       HOST: '127.0.0.1',
@@ -200,6 +207,7 @@ async function main() {
     let baseline: Phase | null = null;
     if (BASELINE_DIR) {
       log(`  baseline: ${BASELINE_DIR}, ${RESPONDENTS} respondents…`);
+      await assertPortFree(PORT);
       const other = startProcess({
         entry: 'server/main.ts',
         cwd: BASELINE_DIR,
@@ -213,6 +221,7 @@ async function main() {
         await other.stop();
       }
     }
+    await assertPortFree(PORT);
     server = startProcess({
       entry: 'server/main.ts',
       logFile: path.join(root, '.data', 'bench', 'fieldwork-server.log'),
@@ -250,16 +259,21 @@ async function main() {
     );
     const idleP99 = latencySummary(idle.r.answerMs).p99;
     const busyP99 = busy ? latencySummary(busy.r.answerMs).p99 : null;
+    const idleFull = phaseFigures(idle).fullLoad;
     const result = {
       respondents: RESPONDENTS,
-      screensPerRespondent: BENCH_TASKS_PER_RESPONDENT + 1,
+      screensPerRespondent: TASKS + 1,
       rampSeconds: RAMP_S,
       dbPoolSize: POOL > 0 ? POOL : 'server default',
       databaseConnection: SOCKET ? 'unix socket' : 'tcp',
       thinkMs: THINK_MS,
       webInstances: INSTANCES,
+      // While all of them answer at once (null when they never do; see fullLoadWindow).
+      answersPerSecondAtFullLoad: idleFull.answersPerSecond,
+      answerP99AtFullLoadMs: idleFull.answerLatencyMs?.p99 ?? null,
+      fullLoadSeconds: idleFull.seconds,
+      // Over the whole load, the ramp's session starts and the tail included.
       answersPerSecond: phaseFigures(idle).answersPerSecond,
-      answersPerSecondAtFullLoad: phaseFigures(idle).fullLoad.answersPerSecond,
       answerP99Ms: idleP99,
       sessionStartP99Ms: latencySummary(idle.r.sessionMs).p99,
       answersLost: counts.lost,
@@ -301,7 +315,7 @@ async function main() {
           : ([['while estimating', result.whileEstimating]] as const)),
       ] as const)
         log(
-          `  ${name.padEnd(17)} ${p.answersPerSecond} answers/s (all answering: ${p.fullLoad.answersPerSecond ?? '–'}, peak ${p.fullLoad.peakRespondentsAnswering} at once) · answer p50 ${p.answerLatencyMs.p50} p99 ${p.answerLatencyMs.p99} ms · session start p99 ${p.sessionStartLatencyMs.p99} ms · CPU per request: server ${p.cpu.serverMsPerRequest} ms, PostgreSQL ${p.cpu.databaseMsPerRequest} ms, load client ${p.cpu.loadClientMsPerRequest} ms · event-loop delay p99 ${'p99Ms' in p.serverEventLoopDelayMs ? p.serverEventLoopDelayMs.p99Ms : '–'} ms · listen overflows ${'listenOverflows' in p.tcp ? p.tcp.listenOverflows : '–'} · load ${p.loadAverage1m.mean}`,
+          `  ${name.padEnd(17)} ${p.answersPerSecond} answers/s (all answering: ${p.fullLoad.answersPerSecond ?? '–'} answers/s for ${p.fullLoad.seconds} s, answer p99 ${p.fullLoad.answerLatencyMs?.p99 ?? '–'} ms; peak ${p.fullLoad.peakRespondentsAnswering} at once) · answer p50 ${p.answerLatencyMs.p50} p99 ${p.answerLatencyMs.p99} ms · session start p99 ${p.sessionStartLatencyMs.p99} ms · CPU per request: server ${p.cpu.serverMsPerRequest} ms, PostgreSQL ${p.cpu.databaseMsPerRequest} ms, load client ${p.cpu.loadClientMsPerRequest} ms · event-loop delay p99 ${'p99Ms' in p.serverEventLoopDelayMs ? p.serverEventLoopDelayMs.p99Ms : '–'} ms · listen overflows ${'listenOverflows' in p.tcp ? p.tcp.listenOverflows : '–'} · load ${p.loadAverage1m.mean}`,
         );
       log(
         `  reconciliation   sent ${counts.sent}, stored ${counts.stored}, lost ${counts.lost}, duplicated ${counts.duplicated}`,

@@ -1,7 +1,7 @@
 /**
- * The live study the fieldwork benchmarks answer: consent and ten choice tasks per
- * respondent (three attributes, two unlabeled packages), in two blocks of ten tasks, written
- * straight to the database and put live through the lifecycle service.
+ * The live study the fieldwork benchmarks answer: consent and a number of choice tasks per
+ * respondent (three attributes, two unlabeled packages; ten unless asked otherwise), in two
+ * blocks, written straight to the database and put live through the lifecycle service.
  */
 import { randomBytes } from 'node:crypto';
 import { sql } from 'drizzle-orm';
@@ -10,8 +10,6 @@ import { insertTeam } from '../../db/queries/memberships';
 import { makeStudyDefinition, numericLevels } from './study-factory/definition';
 import { makeStudyDesign } from './study-factory/design';
 import { insertStudyRow } from './study-factory/insert-study';
-
-export const BENCH_TASKS_PER_RESPONDENT = 10;
 
 /**
  * Three attributes of three levels (the bill at €0, €5 and €10, interruptions, river health),
@@ -41,8 +39,9 @@ const questionnaire = {
 /** In a team of its own, or in `teamId` (so that its members can manage it through the API). */
 export async function createBenchStudy(
   db: Db,
-  teamId?: string,
+  options: { teamId?: string; tasksPerRespondent?: number } = {},
 ): Promise<{ publicId: string; studyId: string }> {
+  const { teamId, tasksPerRespondent = 10 } = options;
   const team = teamId ? { id: teamId } : await insertTeam(db, { name: 'Bench team' });
   const { studyId, publicId } = await insertStudyRow(db, {
     teamId: team.id,
@@ -50,7 +49,7 @@ export async function createBenchStudy(
     name: 'Bench study',
     publicTitle: 'Bench study',
     definition,
-    design: makeStudyDesign(definition, { tasksPerBlock: BENCH_TASKS_PER_RESPONDENT, seed: 3 }),
+    design: makeStudyDesign(definition, { tasksPerBlock: tasksPerRespondent, seed: 3 }),
     questionnaire,
     goLive: true,
   });

@@ -59,6 +59,7 @@ export function mergeLoadResults(parts: LoadResult[]): LoadResult {
   const merged: LoadResult = {
     ...parts[0],
     answerMs: [],
+    answerDoneAt: [],
     sessionMs: [],
     ackAt: [],
     spans: [],
@@ -84,6 +85,7 @@ export function mergeLoadResults(parts: LoadResult[]): LoadResult {
   for (const p of parts) {
     const shift = p.startedAt - startedAt;
     merged.answerMs.push(...p.answerMs);
+    merged.answerDoneAt.push(...p.answerDoneAt.map((t) => t + shift));
     merged.sessionMs.push(...p.sessionMs);
     merged.ackAt.push(...p.ackAt.map((t) => t + shift));
     merged.spans.push(...p.spans.map(([a, b]): [number, number] => [a + shift, b + shift]));

@@ -38,12 +38,18 @@ export function sampleLoadAverage(loadavg: () => number[]) {
 }
 
 /**
- * Throughput while every respondent is answering at once: from the moment the last one has
- * started until the first one has finished. With a ramp longer than one respondent's
- * session the arrivals never all overlap; then the window is empty (answersPerSecond null)
- * and only the peak number of respondents answering at the same time is reported.
+ * Throughput and answer latency while every respondent is answering at once ("500 concurrent
+ * respondents"): from the moment the last one has started until the first one has finished.
+ * With a ramp longer than one respondent's session the arrivals never all overlap; then the
+ * window is shorter than a second, its figures are null and only the peak number of
+ * respondents answering at the same time is reported.
+ * `answers` are the answer requests' latencies with the time each got its final reply.
  */
-export function fullLoadWindow(spans: Array<[number, number]>, ackAt: number[]) {
+export function fullLoadWindow(
+  spans: Array<[number, number]>,
+  ackAt: number[],
+  answers: { ms: number[]; doneAt: number[] },
+) {
   let peak = 0;
   const events = spans.flatMap(([a, b]) => [
     [a, 1],
@@ -55,10 +61,14 @@ export function fullLoadWindow(spans: Array<[number, number]>, ackAt: number[]) 
   const from = Math.max(...spans.map((s) => s[0]));
   const to = Math.min(...spans.map((s) => s[1]));
   const seconds = Math.max(0, (to - from) / 1000);
-  const answers = ackAt.filter((t) => t >= from && t <= to).length;
+  const inWindow = (t: number) => t >= from && t <= to;
+  const stored = ackAt.filter(inWindow).length;
+  const latencies = answers.ms.filter((_, i) => inWindow(answers.doneAt[i]));
+  const enough = seconds >= 1;
   return {
     peakRespondentsAnswering: peak,
     seconds: Number(seconds.toFixed(2)),
-    answersPerSecond: seconds >= 1 ? Math.round(answers / seconds) : null,
+    answersPerSecond: enough ? Math.round(stored / seconds) : null,
+    answerLatencyMs: enough ? latencySummary(latencies) : null,
   };
 }

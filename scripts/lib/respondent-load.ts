@@ -37,6 +37,8 @@ export type LoadOptions = {
 
 export type LoadResult = {
   answerMs: number[];
+  /** When each answer request of answerMs got its final reply (ms after startedAt), same order. */
+  answerDoneAt: number[];
   sessionMs: number[];
   /** When each first acknowledgement of an answer arrived (ms after startedAt). */
   ackAt: number[];
@@ -124,6 +126,7 @@ function valueFor(screen: RespondentScreen, random: Prng) {
 export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> {
   const r: LoadResult = {
     answerMs: [],
+    answerDoneAt: [],
     sessionMs: [],
     ackAt: [],
     spans: [],
@@ -158,13 +161,19 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
   const sessionsPath = pathOf('/sessions');
   const answersPath = pathOf('/answers');
 
+  const timeSession = (ms: number) => r.sessionMs.push(ms);
+  const timeAnswer = (ms: number) => {
+    r.answerMs.push(ms);
+    r.answerDoneAt.push(Date.now() - r.startedAt);
+  };
+
   /** One request, sent again until it gets a final answer; null when given up. */
   async function send(
     n: number,
     phone: Phone,
     path: string,
     payload: string,
-    timings: number[],
+    time: (ms: number) => void,
   ): Promise<{ status: number; json: Record<string, unknown> } | null> {
     const deadline = Date.now() + opts.giveUpMs;
     let instance = n % opts.bases.length;
@@ -174,7 +183,7 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
       let wait = Math.min(8_000, 250 * 2 ** attempt++) * (0.5 + Math.random());
       try {
         const res = await phone.post(instance, path, payload);
-        timings.push(performance.now() - t0);
+        time(performance.now() - t0);
         if (res.status < 500 && res.status !== 429) {
           noteSuccess();
           return res;
@@ -208,7 +217,7 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
   }
 
   async function answerAll(n: number, random: Prng, phone: Phone) {
-    const started = await send(n, phone, sessionsPath, START_BODY, r.sessionMs);
+    const started = await send(n, phone, sessionsPath, START_BODY, timeSession);
     if (!started) return;
     if (started.status !== 201) {
       r.errorsOther.push({
@@ -231,7 +240,7 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
         responseMs: 2000 + randomIndex(random, 20_000),
       };
       const payload = JSON.stringify(body);
-      const res = await send(n, phone, answersPath, payload, r.answerMs);
+      const res = await send(n, phone, answersPath, payload, timeAnswer);
       span[1] = Date.now() - r.startedAt;
       if (!res) {
         r.unsent++;
@@ -253,7 +262,7 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
       if (res.json.status !== 'in_progress') break;
       if (random.nextDouble() < opts.retryShare) {
         r.replaysAsked++;
-        const again = await send(n, phone, answersPath, payload, r.answerMs);
+        const again = await send(n, phone, answersPath, payload, timeAnswer);
         if (again?.status === 200 && again.json.replay === true) r.replaysConfirmed++;
         else if (again) r.errorsOther.push({ status: again.status, code: 'replay_not_recognised' });
       }

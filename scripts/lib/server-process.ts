@@ -79,6 +79,24 @@ export async function waitForHealth(base: string, timeoutMs = 180_000): Promise<
   }
 }
 
+/**
+ * Fails when something already listens on `port` of 127.0.0.1: a benchmark that started its
+ * server there would otherwise measure whatever answered (another engineer's bench server).
+ */
+export function assertPortFree(port: number): Promise<void> {
+  return new Promise((resolve, reject) => {
+    const s = net.createServer();
+    s.once('error', (err: NodeJS.ErrnoException) =>
+      reject(
+        err.code === 'EADDRINUSE'
+          ? new Error(`port ${port} is in use by another process: choose another with --port`)
+          : err,
+      ),
+    );
+    s.listen(port, '127.0.0.1', () => s.close(() => resolve()));
+  });
+}
+
 /** A TCP port on 127.0.0.1 that nothing listens on now (the kernel picks it). */
 export function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {

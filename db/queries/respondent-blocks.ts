@@ -12,8 +12,18 @@ import { respondentBlockCounts as counts, respondents } from '../schema/fieldwor
 import { studyVersions } from '../schema/studies';
 
 /** 1-based index of the smallest element of the row's `filling`, ties to the lowest. */
-const leastFilled = sql`(select v.i from unnest(filling) with ordinality v(c, i)
-                          order by v.c, v.i limit 1)`;
+const LEAST_FILLED = `(select v.i from unnest(filling) with ordinality v(c, i)
+                        order by v.c, v.i limit 1)`;
+
+/**
+ * The SET list of an UPDATE of a counter row that takes a place in its least-filled block;
+ * `returning last_block` reads the block back. Plain text, so that the session start's own
+ * statement (session-start.ts) takes its place exactly as assignBlock does.
+ */
+export const TAKE_LEAST_FILLED = `filling = (select array_agg(case when u.i = ${LEAST_FILLED}
+                                                   then u.c + 1 else u.c end order by u.i)
+                      from unnest(filling) with ordinality u(c, i)),
+       last_block = ${LEAST_FILLED}`;
 
 /*
  * Every session start of a version updates this one row, and a row lock is held until commit.
@@ -25,7 +35,8 @@ const leastFilled = sql`(select v.i from unnest(filling) with ordinality v(c, i)
  * a synchronous commit, and the log is flushed in order, so once the respondent is on disk so
  * is this increment. A crash before that loses only a place whose respondent never existed.
  */
-const commitWithoutWaiting = sql`from (select set_config('synchronous_commit', 'off', true)) as cfg`;
+export const COMMIT_WITHOUT_WAITING = `(select set_config('synchronous_commit', 'off', true)) as cfg`;
+const commitWithoutWaiting = sql.raw(`from ${COMMIT_WITHOUT_WAITING}`);
 
 async function takeLeastFilled(
   db: DbOrTx,
@@ -34,10 +45,7 @@ async function takeLeastFilled(
 ): Promise<number | null> {
   const r = await db.execute<{ block: number }>(sql`
     update ${counts}
-       set filling = (select array_agg(case when u.i = ${leastFilled} then u.c + 1 else u.c end
-                                       order by u.i)
-                        from unnest(filling) with ordinality u(c, i)),
-           last_block = ${leastFilled}
+       set ${sql.raw(TAKE_LEAST_FILLED)}
       ${standalone ? commitWithoutWaiting : sql``}
      where version_id = ${versionId}
     returning last_block as block`);

@@ -7,7 +7,7 @@
 import { and, count, eq, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { studies } from '../schema/studies';
-import { invitees, respondents } from '../schema/fieldwork';
+import { respondents } from '../schema/fieldwork';
 
 export const respondentColumns = {
   id: respondents.id,
@@ -73,27 +73,6 @@ export async function getStudyByPublicId(db: DbOrTx, params: { publicId: string 
   return row ?? null;
 }
 
-/**
- * The invitee of a personal link and the respondent it has already started, if any, in one
- * round trip (respondents_invitee_uq allows one per invitee).
- */
-export async function getInviteeByToken(db: DbOrTx, params: { studyId: string; token: string }) {
-  const [row] = await db
-    .select({ id: invitees.id, externalId: invitees.externalId, respondent: respondentColumns })
-    .from(invitees)
-    .leftJoin(
-      respondents,
-      and(eq(respondents.studyId, params.studyId), eq(respondents.inviteeId, invitees.id)),
-    )
-    .where(and(eq(invitees.studyId, params.studyId), eq(invitees.token, params.token)));
-  if (!row) return null;
-  return {
-    id: row.id,
-    externalId: row.externalId,
-    respondent: row.respondent as RespondentRow | null,
-  };
-}
-
 const startedRespondentColumns = [
   'studyId',
   'versionId',
@@ -106,17 +85,17 @@ const startedRespondentColumns = [
   'device',
   'language',
 ] as const;
-// The plan is not sent back: the caller has just built it, and reading it back would cost a
-// JSON parse of the whole plan per start for an object the process already holds.
-const { plan: _plan, ...startedReturning } = respondentColumns;
+// Only what the database makes is sent back (the id and the start time): the rest of the row
+// is what the caller has just sent, or the columns' defaults for a started session, and
+// reading it back (the plan's JSON above all) cost the web process CPU on every start.
 const insertStarted = (db: DbOrTx) =>
   db
     .insert(respondents)
     .values(
       Object.fromEntries(startedRespondentColumns.map((c) => [c, sql.placeholder(c)])) as never,
     )
-    .returning(startedReturning)
-    .prepare('insert_started_respondent_v2');
+    .returning({ id: respondents.id, startedAt: respondents.startedAt })
+    .prepare('insert_started_respondent_v3');
 const insertStartedCache = new WeakMap<object, ReturnType<typeof insertStarted>>();
 
 export async function insertRespondent(
@@ -142,13 +121,28 @@ export async function insertRespondent(
   if (status === undefined && startedAt === undefined && simulatedTruth === undefined)
     if (device !== undefined && language !== undefined) {
       const query = preparedFor(insertStartedCache, db, () => insertStarted(db));
-      const [row] = await query.execute({
+      const values = {
         ...params,
         inviteeId: params.inviteeId ?? null,
         externalId: params.externalId ?? null,
         panelKey: params.panelKey ?? null,
-      });
-      return { ...row, plan: params.plan } as RespondentRow;
+      };
+      const [made] = await query.execute(values);
+      return {
+        id: made.id,
+        studyId: values.studyId,
+        versionId: values.versionId,
+        sessionToken: values.sessionToken,
+        inviteeId: values.inviteeId,
+        externalId: values.externalId,
+        block: values.block,
+        plan: values.plan,
+        status: 'in_progress',
+        startedAt: made.startedAt,
+        finishedAt: null,
+        durationMs: null,
+        language,
+      } satisfies RespondentRow;
     }
   const [row] = await db.insert(respondents).values(params).returning(respondentColumns);
   return row as RespondentRow;

@@ -6,7 +6,11 @@
 import type { Response } from 'express';
 
 export function sendJson(res: Response, status: number, value: unknown): void {
-  const body = JSON.stringify(value);
+  sendJsonText(res, status, JSON.stringify(value));
+}
+
+/** The same, for a body already written as JSON (a session start's reply: survey-view.ts). */
+export function sendJsonText(res: Response, status: number, body: string): void {
   res.statusCode = status;
   res.setHeader('Content-Type', 'application/json; charset=utf-8');
   res.setHeader('Content-Length', Buffer.byteLength(body));

@@ -14,7 +14,7 @@ import {
 } from '../middleware/rate-limits';
 import { publicRoute } from '../middleware/access';
 import { AppError, NotFoundError } from '../lib/errors';
-import { sendJson } from '../lib/send-json';
+import { sendJson, sendJsonText } from '../lib/send-json';
 import {
   publicIdParamsSchema,
   RESPONDENT_TOKEN_HEADER,
@@ -23,6 +23,8 @@ import {
   submitAnswerSchema,
 } from '../../shared/schemas/respondent';
 import * as sessions from '../services/respondent-session';
+import { startSession } from '../services/session-start';
+import { sessionJson } from '../services/survey-view';
 import { submitAnswer } from '../services/answers';
 import { reviseAnswer } from '../services/answer-revisions';
 import { chooseLanguage } from '../services/choose-language';
@@ -99,7 +101,8 @@ export function createRespondRouter(
   router.post('/sessions', ...startLimits, async (req, res) => {
     const publicId = publicIdOf(req);
     const input = parseBody(startSessionSchema, req);
-    res.status(201).json(await sessions.startSession(deps, publicId, input));
+    // A session is never cached or revalidated (no-store): no ETag to compute (send-json.ts).
+    sendJsonText(res, 201, sessionJson(await startSession(deps, publicId, input)));
   });
   router.get('/session', perSession, async (req, res) => {
     const publicId = publicIdOf(req);

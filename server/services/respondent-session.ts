@@ -9,7 +9,6 @@ import type { DbOrTx } from '../../db/client';
 import { AppError, NotFoundError } from '../lib/errors';
 import { toDeviceClass } from '../lib/device-class';
 import {
-  getInviteeByToken,
   getRespondentByToken,
   getStudyByPublicId,
   insertRespondent,
@@ -24,21 +23,36 @@ import {
   type RespondentPlan,
   type RespondentSession,
   type RespondentStatus,
-  type StartSessionInput,
   type SurveyLinkInfo,
 } from '../../shared/schemas/respondent';
 import { closeIfDue, dueCloseReason, readSettings } from './lifecycle';
 import { createRespondentPlan } from './respondent-plan';
-import { buildSurveyView, loadFrozenVersion } from './respondent-screens';
+import { loadFrozenVersion } from './respondent-screens';
+import { buildSurveyView } from './survey-view';
 import { screensOfRespondent } from './respondent-screen-index';
-import { findEarlierRespondent, identityOf, lostIdentityRace } from './respondent-identity';
 import { rememberRespondent } from './known-respondents';
 import { languageFromLink, localizeVersion, pageBeforeSession } from './respondent-language';
 
-type PublicStudy = NonNullable<Awaited<ReturnType<typeof getStudyByPublicId>>>;
+export type PublicStudy = NonNullable<Awaited<ReturnType<typeof getStudyByPublicId>>>;
+
+/*
+ * Session tokens are cut from a larger block of random bytes: one randomBytes call per token
+ * cost the web process about 0.06 ms under a panel launch (bench:session-start profile), most
+ * of it the call itself. The bytes are the same CSPRNG's output, each used once.
+ */
+const TOKEN_BYTES = 24;
+let randomPool = Buffer.alloc(0);
+let randomAt = 0;
 
 export function createSessionToken(): string {
-  return randomBytes(24).toString('base64url');
+  if (randomAt + TOKEN_BYTES > randomPool.length) {
+    randomPool = randomBytes(TOKEN_BYTES * 256);
+    randomAt = 0;
+  }
+  const token = randomPool.toString('base64url', randomAt, randomAt + TOKEN_BYTES);
+  randomPool.fill(0, randomAt, randomAt + TOKEN_BYTES);
+  randomAt += TOKEN_BYTES;
+  return token;
 }
 
 /** The panel redirect for a finished respondent, with {pid} replaced by their external id. */
@@ -60,17 +74,31 @@ export function redirectFor(
 
 /** The study behind a public link; unknown and archived links are 404 (never another study). */
 export async function findPublicStudy(deps: AppDeps, publicId: string, now = new Date()) {
-  const study = await getStudyByPublicId(deps.db, { publicId });
+  return settlePublicStudy(deps, publicId, await getStudyByPublicId(deps.db, { publicId }), now);
+}
+
+/**
+ * The study as a link shows it, from its row as just read: 404 when unknown or archived, and
+ * closed first when its date or quota says so. `completes`: read with the row when it has a
+ * quota of them (the session start's statement), else counted here.
+ */
+export async function settlePublicStudy(
+  deps: AppDeps,
+  publicId: string,
+  study: PublicStudy | null,
+  now: Date,
+  completes?: number | null,
+): Promise<PublicStudy> {
   if (!study || study.archivedAt)
     throw new AppError(404, 'survey_not_found', 'This survey link does not exist.');
   // Check without locking first: most links are opened while nothing is due.
-  if (study.status === 'live' && (await dueCloseReason(deps.db, study, now)))
+  if (study.status === 'live' && (await dueCloseReason(deps.db, study, now, completes)))
     if (await closeIfDue(deps.db, study, now))
       return (await getStudyByPublicId(deps.db, { publicId }))!;
   return study;
 }
 
-function linkState(study: PublicStudy): SurveyLinkInfo['state'] {
+export function linkState(study: PublicStudy): SurveyLinkInfo['state'] {
   if (study.status === 'live') return 'live';
   if (study.status === 'draft') return 'not_open';
   return readSettings(study.settings).closedReason === 'quota' ? 'over_quota' : 'closed';
@@ -107,7 +135,7 @@ export async function getLinkInfo(
   };
 }
 
-function assertOpen(study: PublicStudy): void {
+export function assertOpen(study: PublicStudy): void {
   const state = linkState(study);
   if (state === 'not_open')
     throw new AppError(409, 'survey_not_open', 'This survey is not open yet.');
@@ -146,19 +174,23 @@ export async function createRespondent(
     standalone?: boolean;
     /** The study's latest version when the caller has just read it (else it is read here). */
     latestVersionId?: string | null;
+    /** A place the caller has already taken in that version's block counter (given back on failure). */
+    block?: number | null;
   },
 ): Promise<{ respondent: RespondentRow; sessionToken: string; plan: RespondentPlan }> {
   const latestId =
     params.latestVersionId ?? (await getLatestVersionId(db, { studyId: params.studyId }))?.id;
   if (!latestId) throw new AppError(409, 'survey_not_open', 'This survey is not open yet.');
-  const version = await loadFrozenVersion(db, { id: latestId, studyId: params.studyId });
-  const language = languageFromLink(version, params.language);
-  const block = await assignBlock(db, {
-    versionId: version.id,
-    blocks: version.design.blocks,
-    standalone: params.standalone,
-  });
+  // A place taken for a respondent that is not made is given back.
+  let block = params.block ?? null;
   try {
+    const version = await loadFrozenVersion(db, { id: latestId, studyId: params.studyId });
+    const language = languageFromLink(version, params.language);
+    block ??= await assignBlock(db, {
+      versionId: version.id,
+      blocks: version.design.blocks,
+      standalone: params.standalone,
+    });
     const plan = createRespondentPlan({
       ...version,
       block,
@@ -182,8 +214,7 @@ export async function createRespondent(
     });
     return { respondent, sessionToken, plan };
   } catch (err) {
-    // The place was taken for a respondent that does not exist: give it back.
-    await releaseBlock(db, { versionId: version.id, block }).catch(() => {});
+    if (block !== null) await releaseBlock(db, { versionId: latestId, block }).catch(() => {});
     throw err;
   }
 }
@@ -219,68 +250,6 @@ export async function buildSession(
     surveyOpen: study.status === 'live',
     given: givenOnRevisable(survey.screens, given, survey.back),
   };
-}
-
-/**
- * Starts a session or resumes one: this browser's earlier token, else the personal link's or
- * the de-duplicated panel id's respondent (respondent-identity.ts), else a new respondent
- * (with the panel id from the link as external id).
- */
-export async function startSession(
-  deps: AppDeps,
-  publicId: string,
-  input: Required<Pick<StartSessionInput, 'params' | 'device'>> & { sessionToken?: string },
-): Promise<RespondentSession> {
-  const study = await findPublicStudy(deps, publicId);
-  // The answers that follow find this respondent in memory (known-respondents.ts).
-  const open = (r: RespondentRow, opts?: Parameters<typeof buildSession>[3]) => {
-    rememberRespondent(publicId, r);
-    return buildSession(deps.db, study, r, opts);
-  };
-  if (input.sessionToken) {
-    const mine = await getRespondentByToken(deps.db, {
-      studyId: study.id,
-      sessionToken: input.sessionToken,
-    });
-    // A closed study still resumes this phone's own session: its outbox may hold answers
-    // given before the close, which the grace period accepts (late-answers.ts).
-    if (mine && linkState(study) !== 'not_open') return open(mine);
-  }
-  assertOpen(study);
-  const settings = readSettings(study.settings);
-  let invitee: Awaited<ReturnType<typeof getInviteeByToken>> = null;
-  const inviteToken = input.params.inv;
-  if (inviteToken) {
-    invitee = await getInviteeByToken(deps.db, { studyId: study.id, token: inviteToken });
-    if (!invitee)
-      throw new AppError(
-        404,
-        'invitation_not_found',
-        'This personal link is not valid for this survey.',
-      );
-    // A personal link already started resumes its respondent (read with the invitee).
-    if (invitee.respondent) return open(invitee.respondent);
-  }
-  const identity = identityOf(settings, input.params, invitee);
-  const earlier = invitee ? null : await findEarlierRespondent(deps.db, study.id, identity);
-  if (earlier) return open(earlier);
-  try {
-    const { respondent, plan } = await createRespondent(deps.db, {
-      studyId: study.id,
-      ...identity,
-      device: input.device,
-      language: input.params.lang,
-      standalone: true,
-      latestVersionId: study.latestVersionId,
-    });
-    return open(respondent, { isNew: true, builtPlan: plan });
-  } catch (err) {
-    // Opened on two devices at once: the unique index let the other start win; resume it.
-    if (!lostIdentityRace(err)) throw err;
-    const winner = await findEarlierRespondent(deps.db, study.id, identity);
-    if (!winner) throw err;
-    return open(winner);
-  }
 }
 
 export async function getSession(deps: AppDeps, publicId: string, sessionToken: string) {

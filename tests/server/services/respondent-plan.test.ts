@@ -3,8 +3,8 @@ import { createRespondentPlan, repeatedTaskNumber } from '../../../server/servic
 import {
   buildScreens,
   buildDominanceAlternatives,
-  buildSurveyView,
 } from '../../../server/services/respondent-screens';
+import { buildSurveyView } from '../../../server/services/survey-view';
 import { createPage } from '../../../shared/schemas/questionnaire-defaults';
 import type { Questionnaire, QuestionnairePage } from '../../../shared/schemas/questionnaire';
 

@@ -7,17 +7,20 @@
 import { describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { useTestApp } from '../../support/test-app';
-import { respondents } from '../../../db/schema/fieldwork';
-import { studyVersions } from '../../../db/schema/studies';
+import { respondentBlockCounts, respondents } from '../../../db/schema/fieldwork';
+import { studies, studyVersions } from '../../../db/schema/studies';
 import { getStudyByPublicId } from '../../../db/queries/respondents';
+import { readSessionStart } from '../../../db/queries/session-start';
 import { respondentPlanSchema } from '../../../shared/schemas/respondent';
 import { buildScreens, loadFrozenVersion } from '../../../server/services/respondent-screens';
-import { insertStudy } from '../routes/respond-fixtures';
+import { createSessionToken } from '../../../server/services/respondent-session';
+import { readSettings } from '../../../server/services/lifecycle';
+import { completeRespondent, insertInvitee, insertStudy } from '../routes/respond-fixtures';
 
 const t = useTestApp({}, { signIn: 'owner' });
 
-async function liveStudy() {
-  const study = await insertStudy(t, t.teamId, {});
+async function liveStudy(settings?: unknown) {
+  const study = await insertStudy(t, t.teamId, { settings });
   await t.owner.post(`/api/teams/${t.teamId}/studies/${study.id}/lifecycle/go-live`).expect(200);
   return study;
 }
@@ -74,5 +77,135 @@ describe('getStudyByPublicId', () => {
     // And the next session starts on it.
     const { row } = await startSession(s.publicId);
     expect(row.versionId).toBe(v2.id);
+  });
+});
+
+/** The places taken in each block of the study's (one) version. */
+async function filling(studyId: string): Promise<number[]> {
+  const rows = await t.deps.db
+    .select({ filling: respondentBlockCounts.filling })
+    .from(respondentBlockCounts)
+    .innerJoin(studyVersions, eq(studyVersions.id, respondentBlockCounts.versionId))
+    .where(eq(studyVersions.studyId, studyId));
+  return rows[0]?.filling ?? [];
+}
+
+const respondentsOf = (studyId: string) =>
+  t.deps.db
+    .select({ id: respondents.id })
+    .from(respondents)
+    .where(eq(respondents.studyId, studyId));
+
+const start = (publicId: string, body: object) =>
+  t.request().post(`/api/r/${publicId}/sessions`).send(body);
+
+const setSettings = (studyId: string, settings: object) =>
+  t.deps.db.update(studies).set({ settings }).where(eq(studies.id, studyId));
+
+describe('POST /api/r/:publicId/sessions (block places taken by the first statement)', () => {
+  it('takes one place per new respondent, balanced, and none for a session that resumes', async () => {
+    const s = await liveStudy();
+    const invitee = await insertInvitee(t, s.id);
+    const first = (await start(s.publicId, {}).expect(201)).body;
+    await start(s.publicId, {}).expect(201);
+    // Resumes: this phone's token, a panel id and a personal link each on their second visit.
+    await start(s.publicId, { sessionToken: first.sessionToken }).expect(201);
+    await start(s.publicId, { params: { pid: 'P-1' } }).expect(201);
+    await start(s.publicId, { params: { pid: 'P-1' } }).expect(201);
+    await start(s.publicId, { params: { inv: invitee.token } }).expect(201);
+    await start(s.publicId, { params: { inv: invitee.token } }).expect(201);
+    expect(await respondentsOf(s.id)).toHaveLength(4);
+    // Four respondents in two blocks: least-filled first (the counter's rule), two each.
+    expect(await filling(s.id)).toEqual([2, 2]);
+  });
+
+  it('when a personal link is unknown, answers 404 invitation_not_found and takes no place', async () => {
+    const s = await liveStudy();
+    await start(s.publicId, {}).expect(201);
+    const res = await start(s.publicId, { params: { inv: 'no-such-invitation-token' } }).expect(
+      404,
+    );
+    expect(res.body.error.code).toBe('invitation_not_found');
+    expect(await filling(s.id)).toEqual([1, 0]);
+  });
+
+  it('when the closing date has passed, closes the study, answers 410 and gives the place back', async () => {
+    const s = await liveStudy();
+    await start(s.publicId, {}).expect(201);
+    await setSettings(s.id, { closeAt: '2020-01-01T00:00:00Z' });
+    const res = await start(s.publicId, {}).expect(410);
+    expect(res.body.error.code).toBe('survey_closed');
+    expect(await filling(s.id)).toEqual([1, 0]);
+    expect(await respondentsOf(s.id)).toHaveLength(1);
+  });
+
+  it('when the quota of completes is reached, counts it in the same read, answers 410 over_quota and gives the place back', async () => {
+    const s = await liveStudy();
+    await completeRespondent(t, s.publicId);
+    // The quota is set after the complete, so only the start's own count can see it is full.
+    await setSettings(s.id, { quotaCompletes: 1 });
+    const read = await readSessionStart(t.deps.db, {
+      publicId: s.publicId,
+      sessionToken: null,
+      inviteToken: null,
+      linkParams: {},
+    });
+    expect(read?.completes).toBe(1);
+    expect(read?.block).not.toBeNull();
+    // The read above took a place as a start would; this start gives its own back.
+    const before = await filling(s.id);
+    const res = await start(s.publicId, {}).expect(410);
+    expect(res.body.error.code).toBe('over_quota');
+    expect(await filling(s.id)).toEqual(before);
+    const [row] = await t.deps.db
+      .select({ status: studies.status })
+      .from(studies)
+      .where(eq(studies.id, s.id));
+    expect(row.status).toBe('closed');
+  });
+});
+
+describe('readSessionStart', () => {
+  const read = (publicId: string, linkParams: Record<string, string>) =>
+    readSessionStart(t.deps.db, { publicId, sessionToken: null, inviteToken: null, linkParams });
+
+  it("looks the panel id up under the study's own parameter name, and not when de-duplication is off", async () => {
+    const own = await liveStudy({ panelParam: 'rid' });
+    expect((await read(own.publicId, { rid: 'R-7', pid: 'P-7' }))?.panelKey).toBe('R-7');
+    const off = await liveStudy({ dedupePanelIds: false });
+    expect((await read(off.publicId, { pid: 'P-7' }))?.panelKey).toBeNull();
+    const empty = await liveStudy();
+    expect((await read(empty.publicId, { pid: '' }))?.panelKey).toBeNull();
+  });
+
+  it('takes no place in a study that is not live, and finds nothing for an unknown link', async () => {
+    const draft = await insertStudy(t, t.teamId, {});
+    const r = await read(draft.publicId, {});
+    expect(r?.study.status).toBe('draft');
+    expect(r?.block).toBeNull();
+    expect(await read('no-such-public-id', {})).toBeNull();
+  });
+});
+
+describe('createSessionToken', () => {
+  it('gives 24 random bytes in base64url, never the same twice across refills of its pool', () => {
+    // 1,000 tokens span several refills of the 256-token pool.
+    const tokens = Array.from({ length: 1000 }, createSessionToken);
+    for (const token of tokens) expect(token).toMatch(/^[A-Za-z0-9_-]{32}$/);
+    expect(new Set(tokens).size).toBe(tokens.length);
+  });
+});
+
+describe('readSettings', () => {
+  it("validates a row's settings once, and another row's settings on their own", () => {
+    const row = { quotaCompletes: 5 };
+    const first = readSettings(row);
+    expect(readSettings(row)).toBe(first);
+    expect(first.quotaCompletes).toBe(5);
+    const other = readSettings({ quotaCompletes: 7 });
+    expect(other.quotaCompletes).toBe(7);
+    // Invalid settings read as the defaults, as before.
+    expect(readSettings({ quotaCompletes: 'many' }).quotaCompletes).toBeNull();
+    expect(readSettings(null).panelParam).toBe('pid');
   });
 });

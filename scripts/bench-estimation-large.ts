@@ -20,8 +20,11 @@ import { getMaxRows } from '../server/engine/simd/kernel-arena';
 import { estimateModelMemory } from '../server/engine/simd/estimate-model-memory';
 import { ensureSimdKernelBuilt } from './build-wasm';
 import { ensureEngineWorkersBuilt } from './build-engine-workers';
+import { readBenchCli } from './lib/bench-cli';
 
-const json = process.argv.includes('--json');
+const cli = readBenchCli();
+const { log } = cli;
+const json = cli.asJson;
 const loadStart = os.loadavg();
 await ensureSimdKernelBuilt();
 await ensureEngineWorkersBuilt();
@@ -32,7 +35,7 @@ const K = 12;
 const R = 1000;
 const PROFILE_DRAWS = 2000;
 const THREADS = 2;
-const initialInverseHessian = process.argv.includes('--identity-start') ? 'identity' : 'bhhh';
+const initialInverseHessian = cli.has('identity-start') ? 'identity' : 'bhhh';
 const { data, coefficients } = simulateChoiceData({
   respondents: N,
   tasks: T,
@@ -46,9 +49,6 @@ const { data, coefficients } = simulateChoiceData({
   }),
   seed: 5,
 });
-const log = (line: string) => {
-  if (!json) console.log(line);
-};
 const started = performance.now();
 let lastIteration = 0;
 const fit = await fitMixedLogit(

@@ -26,14 +26,15 @@ import { createWorkerPoolEvaluator } from '../server/engine/parallel/worker-pool
 import { chooseKernel, type KernelKind } from '../server/engine/simd/kernel-choice';
 import { ensureSimdKernelBuilt } from './build-wasm';
 import { ensureEngineWorkersBuilt } from './build-engine-workers';
+import { readBenchCli } from './lib/bench-cli';
 
-const json = process.argv.includes('--json');
-if (process.argv.includes('--large')) {
+const cli = readBenchCli();
+const json = cli.asJson;
+if (cli.has('large')) {
   await import('./bench-estimation-large');
   process.exit(0);
 }
-const threadsArg = process.argv.indexOf('--threads');
-const fitThreads = threadsArg > 0 ? Number(process.argv[threadsArg + 1]) : 2;
+const fitThreads = cli.number('threads', 2);
 const loadStart = os.loadavg();
 await ensureSimdKernelBuilt();
 await ensureEngineWorkersBuilt();

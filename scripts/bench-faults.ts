@@ -37,13 +37,11 @@ import { createBenchStudy, readStoredAnswers, reconcile } from './lib/bench-stud
 import { seedScratchDemo, startDemoMixedRun, waitForRun } from './lib/bench-demo-run';
 import { privateMail, startPrivateCluster } from './lib/fault-services';
 import { inviteAll, mailOutcome, signInDemoEditor } from './lib/bench-invitees';
+import { readBenchCli, runBench } from './lib/bench-cli';
 
-const args = process.argv.slice(2);
-const asJson = args.includes('--json');
-const arg = (name: string, fallback: number) => {
-  const i = args.indexOf(`--${name}`);
-  return i >= 0 ? Number(args[i + 1]) : fallback;
-};
+const cli = readBenchCli(process.argv.slice(2), { timestamps: true });
+const { asJson, log } = cli;
+const arg = cli.number;
 const RESPONDENTS = arg('respondents', 300);
 const INVITEES = arg('invitees', 40);
 const PG_PORT = arg('pg-port', 54349);
@@ -51,9 +49,6 @@ const API_PORT = arg('port', 5291);
 const MAIL_OUTAGE_MS = 30_000;
 
 const root = path.resolve(import.meta.dirname, '..');
-const log = (s: string) => {
-  if (!asJson) console.log(`${new Date().toISOString().slice(11, 19)} ${s}`);
-};
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 async function main() {
@@ -226,7 +221,4 @@ async function main() {
   }
 }
 
-main().catch((err) => {
-  console.error(err);
-  process.exit(1);
-});
+runBench(main);

@@ -26,11 +26,9 @@
  * database runs on the same host (TCP on loopback costs more CPU per query).
  */
 import { randomBytes } from 'node:crypto';
-import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { createDb } from '../db/client';
-import { adminUrl, createScratchDatabase } from './lib/scratch-db';
+import { adminUrl } from './lib/scratch-db';
 import {
   assertPortFree,
   startProcess,
@@ -46,13 +44,12 @@ import { measureCpu } from './lib/process-cpu';
 import { measureTcp } from './lib/tcp-counters';
 import { askEventLoopDelay } from '../server/lib/event-loop-delay';
 import type pg from 'pg';
+import { readBenchCli, runBench } from './lib/bench-cli';
+import { openBenchWorkspace } from './lib/bench-workspace';
 
-const args = process.argv.slice(2);
-const asJson = args.includes('--json');
-const arg = (name: string, fallback: number) => {
-  const i = args.indexOf(`--${name}`);
-  return i >= 0 ? Number(args[i + 1]) : fallback;
-};
+const cli = readBenchCli();
+const { asJson, log } = cli;
+const arg = cli.number;
 const RESPONDENTS = arg('respondents', 500);
 const RAMP_S = arg('ramp', 5);
 const THINK_MS = arg('think', 400);
@@ -66,15 +63,11 @@ const CLIENT_PROCESSES = arg('client-processes', 1);
 /** Web processes of the benchmarked server (WEB_INSTANCES); the baseline checkout gets the same setting. */
 const INSTANCES = arg('instances', 1);
 /** Servers reach PostgreSQL through its Unix socket instead of TCP (same host only). */
-const SOCKET = args.includes('--socket');
+const SOCKET = cli.has('socket');
 const RETRY_SHARE = 0.1;
-const compareAt = args.indexOf('--compare-with');
-const BASELINE_DIR = compareAt >= 0 ? path.resolve(args[compareAt + 1]) : null;
+const BASELINE_DIR = cli.path('compare-with');
 
 const root = path.resolve(import.meta.dirname, '..');
-const log = (s: string) => {
-  if (!asJson) console.log(s);
-};
 
 type Phase = Awaited<ReturnType<typeof measure>>;
 
@@ -178,12 +171,9 @@ async function socketUrl(pool: pg.Pool, database: string): Promise<string> {
 }
 
 async function main() {
-  const admin = adminUrl();
-  const scratch = await createScratchDatabase(admin, 'cw_bench');
-  const work = fs.mkdtempSync(path.join(os.tmpdir(), 'cw-bench-'));
+  const workspace = await openBenchWorkspace('cw-bench', { max: 4, statementTimeoutMs: 120_000 });
+  const { scratch, work, db, pool } = workspace;
   const base = `http://127.0.0.1:${PORT}`;
-  const { db, pool } = createDb(scratch.url, { max: 4, statementTimeoutMs: 120_000 });
-  pool.on('error', () => {});
   let server: ReturnType<typeof startProcess> | null = null;
   try {
     log(`bench:fieldwork — scratch database ${scratch.name}; seeding the demo study…`);
@@ -324,14 +314,8 @@ async function main() {
     }
     if (counts.lost > 0 || counts.duplicated > 0) process.exitCode = 1;
   } finally {
-    await server?.stop();
-    await pool.end();
-    await scratch.drop();
-    fs.rmSync(work, { recursive: true, force: true });
+    await workspace.close(server);
   }
 }
 
-main().catch((err) => {
-  console.error(err);
-  process.exit(1);
-});
+runBench(main);

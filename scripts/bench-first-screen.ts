@@ -16,21 +16,17 @@ import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import pg from 'pg';
 import { chromium } from 'playwright-core';
 import { createDb, migrateDb } from '../db/client';
-import { databaseUrl, dropDatabase } from '../tests/support/template-db';
 import { createDemoStudy } from './lib/study-factory/demo-study';
-import { freePort } from './lib/server-process';
+import { freePort, waitForHealth } from './lib/server-process';
+import { adminUrl, createScratchDatabase } from './lib/scratch-db';
+import { readBenchCli, runBench } from './lib/bench-cli';
 
-const args = process.argv.slice(2);
-const asJson = args.includes('--json');
-const runsArg = args.indexOf('--runs');
-const RUNS = runsArg >= 0 ? Math.max(1, Number(args[runsArg + 1])) : 3;
+const cli = readBenchCli();
+const { asJson, log } = cli;
+const RUNS = Math.max(1, cli.number('runs', 3));
 const root = path.resolve(import.meta.dirname, '..');
-const log = (s: string) => {
-  if (!asJson) console.log(s);
-};
 
 /**
  * Network profiles of Chrome's developer tools, as Puppeteer's PredefinedNetworkConditions also
@@ -60,35 +56,15 @@ const PROFILES = {
   },
 } as const;
 type ProfileName = keyof typeof PROFILES;
-const profileArg = args.indexOf('--profile');
-const PROFILE_NAMES: ProfileName[] =
-  profileArg >= 0 ? [args[profileArg + 1] as ProfileName] : ['fast-3g', 'slow-3g'];
+const profileArg = cli.text('profile');
+const PROFILE_NAMES: ProfileName[] = profileArg
+  ? [profileArg as ProfileName]
+  : ['fast-3g', 'slow-3g'];
 for (const p of PROFILE_NAMES)
   if (!(p in PROFILES)) throw new Error(`Unknown profile ${p}; use fast-3g or slow-3g`);
 const CPU_SLOWDOWN = 4;
 /** --waterfall prints when each request of the first run started and finished. */
-const WATERFALL = args.includes('--waterfall');
-
-function adminUrl(): string {
-  if (process.env.DATABASE_URL) return process.env.DATABASE_URL;
-  execFileSync(path.join(root, 'scripts/pg.sh'), ['start'], {
-    stdio: ['ignore', 'ignore', 'inherit'],
-  });
-  return execFileSync(path.join(root, 'scripts/pg.sh'), ['url', 'postgres']).toString().trim();
-}
-
-async function waitForHealth(base: string, timeoutMs = 60_000): Promise<void> {
-  const until = Date.now() + timeoutMs;
-  while (Date.now() < until) {
-    try {
-      if ((await fetch(`${base}/api/health`)).ok) return;
-    } catch {
-      // not listening yet
-    }
-    await new Promise((r) => setTimeout(r, 250));
-  }
-  throw new Error('The server did not become healthy in time');
-}
+const WATERFALL = cli.has('waterfall');
 
 const median = (xs: number[]) => {
   const s = [...xs].sort((a, b) => a - b);
@@ -161,13 +137,8 @@ async function main() {
     log('building the client (dist/client is missing)…');
     execFileSync('npx', ['vite', 'build', '--logLevel', 'warn'], { cwd: root, stdio: 'inherit' });
   }
-  const admin = adminUrl();
-  const dbName = `cw_bench_fs_${randomBytes(4).toString('hex')}`;
-  const c = new pg.Client({ connectionString: admin });
-  await c.connect();
-  await c.query(`create database "${dbName}"`);
-  await c.end();
-  const url = databaseUrl(admin, dbName);
+  const scratch = await createScratchDatabase(adminUrl(), 'cw_bench_fs');
+  const url = scratch.url;
   const { db, pool } = createDb(url, 4);
   pool.on('error', () => {});
   let server: ReturnType<typeof spawn> | null = null;
@@ -195,7 +166,7 @@ async function main() {
         DATA_DIR: path.join(root, '.data', 'bench'),
       },
     });
-    await waitForHealth(base);
+    await waitForHealth(base, 60_000);
     log(`bench:first-screen — CPU ×${CPU_SLOWDOWN}, ${RUNS} cold loads per profile of ${base}/s/…`);
     browser = await chromium.launch({
       executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
@@ -246,11 +217,8 @@ async function main() {
       server.kill('SIGTERM');
       await exited;
     }
-    await dropDatabase(admin, dbName);
+    await scratch.drop();
   }
 }
 
-main().catch((err) => {
-  console.error(err);
-  process.exit(1);
-});
+runBench(main);

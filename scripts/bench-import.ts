@@ -21,29 +21,22 @@ import os from 'node:os';
 import path from 'node:path';
 import { once } from 'node:events';
 import { sql } from 'drizzle-orm';
-import { createDb } from '../db/client';
-import { adminUrl, createScratchDatabase } from './lib/scratch-db';
 import { startProcess, waitForHealth } from './lib/server-process';
 import { runClientProcess } from './lib/load-client-process';
 import { sampleLoadAverage } from './lib/load-stats';
 import { seedScratchDemo } from './lib/bench-demo-run';
 import { syntheticChoiceLines, syntheticHeader } from './lib/synthetic-choice-file';
+import { readBenchCli, runBench } from './lib/bench-cli';
+import { openBenchWorkspace } from './lib/bench-workspace';
 
-const args = process.argv.slice(2);
-const asJson = args.includes('--json');
-const arg = (name: string, fallback: number) => {
-  const i = args.indexOf(`--${name}`);
-  return i >= 0 ? Number(args[i + 1]) : fallback;
-};
+const cli = readBenchCli();
+const { asJson, log } = cli;
+const arg = cli.number;
 const ROWS = arg('rows', 1_000_000);
 const PORT = arg('port', 5291);
 const ROWS_PER_RESPONDENT = 36;
-const compareAt = args.indexOf('--compare-with');
-const BASELINE_DIR = compareAt >= 0 ? path.resolve(args[compareAt + 1]) : null;
+const BASELINE_DIR = cli.path('compare-with');
 const root = path.resolve(import.meta.dirname, '..');
-const log = (s: string) => {
-  if (!asJson) console.log(s);
-};
 
 async function writeChoiceFile(file: string, respondents: number): Promise<number> {
   const out = fs.createWriteStream(file);
@@ -69,11 +62,9 @@ type ClientResult = {
 };
 
 async function main() {
-  const scratch = await createScratchDatabase(adminUrl(), 'cw_bench');
-  const work = fs.mkdtempSync(path.join(os.tmpdir(), 'cw-bench-import-'));
+  const workspace = await openBenchWorkspace('cw-bench-import', { max: 2 });
+  const { scratch, work, db } = workspace;
   const base = `http://127.0.0.1:${PORT}`;
-  const { db, pool } = createDb(scratch.url, { max: 2 });
-  pool.on('error', () => {});
   let server: ReturnType<typeof startProcess> | null = null as ReturnType<
     typeof startProcess
   > | null;
@@ -153,14 +144,8 @@ async function main() {
     if ([current, baseline].some((r) => r && r.storedAnswers !== result.expectedAnswers))
       process.exitCode = 1;
   } finally {
-    await server?.stop();
-    await pool.end();
-    await scratch.drop();
-    fs.rmSync(work, { recursive: true, force: true });
+    await workspace.close(server);
   }
 }
 
-main().catch((err) => {
-  console.error(err);
-  process.exit(1);
-});
+runBench(main);

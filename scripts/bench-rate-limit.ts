@@ -7,31 +7,17 @@
  * `--json` prints one JSON line. Uses a scratch database of its own, dropped at the end.
  * Usage: npm run bench:rate-limit [-- --hits 20000] [-- --json]
  */
-import { execFileSync } from 'node:child_process';
-import { randomBytes } from 'node:crypto';
 import os from 'node:os';
-import path from 'node:path';
-import pg from 'pg';
 import { MemoryStore, type Options, type Store } from 'express-rate-limit';
 import { createDb, migrateDb } from '../db/client';
-import { databaseUrl, dropDatabase } from '../tests/support/template-db';
+import { adminUrl, createScratchDatabase } from './lib/scratch-db';
 import { PostgresRateLimitStore, RATE_LIMIT_TABLE } from '../server/middleware/rate-limit-store';
+import { readBenchCli, runBench } from './lib/bench-cli';
 
-const args = process.argv.slice(2);
-const asJson = args.includes('--json');
-const hitsArg = args.indexOf('--hits');
-const HITS = hitsArg >= 0 ? Number(args[hitsArg + 1]) : 20_000;
+const { asJson, number } = readBenchCli();
+const HITS = number('hits', 20_000);
 const SESSIONS = 500;
 const CONCURRENCY = 50;
-const root = path.resolve(import.meta.dirname, '..');
-
-function adminUrl(): string {
-  if (process.env.DATABASE_URL) return process.env.DATABASE_URL;
-  execFileSync(path.join(root, 'scripts/pg.sh'), ['start'], {
-    stdio: ['ignore', 'ignore', 'inherit'],
-  });
-  return execFileSync(path.join(root, 'scripts/pg.sh'), ['url', 'postgres']).toString().trim();
-}
 
 const quantile = (sorted: number[], q: number) =>
   sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))] ?? 0;
@@ -60,13 +46,8 @@ async function measure(store: Store) {
 }
 
 async function main() {
-  const admin = adminUrl();
-  const name = `cw_bench_rl_${randomBytes(4).toString('hex')}`;
-  const c = new pg.Client({ connectionString: admin });
-  await c.connect();
-  await c.query(`create database "${name}"`);
-  await c.end();
-  const { db, pool } = createDb(databaseUrl(admin, name), 20);
+  const scratch = await createScratchDatabase(adminUrl(), 'cw_bench_rl');
+  const { db, pool } = createDb(scratch.url, 20);
   pool.on('error', () => {});
   try {
     await migrateDb(db);
@@ -103,11 +84,8 @@ async function main() {
     }
   } finally {
     await pool.end();
-    await dropDatabase(admin, name);
+    await scratch.drop();
   }
 }
 
-main().catch((err) => {
-  console.error(err);
-  process.exit(1);
-});
+runBench(main);

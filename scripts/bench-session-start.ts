@@ -159,7 +159,7 @@ async function main() {
       baseline,
       node: process.version,
       cpus: os.cpus().length,
-      loadAverage1m: Number(os.loadavg()[0].toFixed(2)),
+      loadAverage1mAtEnd: Number(os.loadavg()[0].toFixed(2)),
     };
     if (asJson) console.log(JSON.stringify(result));
     else

@@ -16,11 +16,12 @@ import { createRequestLog } from './lib/request-log';
 import { createPatternLookup, listApiRoutes } from './lib/route-table';
 import { refuseCrossSiteWrites } from './middleware/same-origin';
 import { serveClient } from './static-client';
-import { answerLane } from './middleware/answer-lane';
+import { answerLane, enterAnswersFirst } from './middleware/answer-lane';
 import { createRespondentSteps } from './routes/respond';
+import { createRespondentJson } from './middleware/respondent-json';
 
 /** The largest answer is a 2,000-character text (under 12 kB as JSON, even fully escaped). */
-export const RESPONDENT_BODY_LIMIT = '32kb';
+export const RESPONDENT_BODY_LIMIT = 32 * 1024;
 
 /** Respondent replies smaller than TCP's initial window (10 × 1,460 bytes, RFC 6928) go plain. */
 export const RESPONDENT_COMPRESSION_THRESHOLD = 10 * 1460;
@@ -58,16 +59,22 @@ export function createApp(deps: AppDeps): express.Express {
   const sameOrigin = refuseCrossSiteWrites([deps.env.APP_URL, ...deps.env.TRUSTED_ORIGINS]);
   // Respondents send small bodies (an answer, link parameters): anything larger is refused
   // (413) before it is parsed. Researchers' routes take larger ones (questionnaires, designs).
-  const respondentJson = express.json({ limit: RESPONDENT_BODY_LIMIT });
+  const respondentJson = createRespondentJson(RESPONDENT_BODY_LIMIT);
   const respondent = createRespondentSteps(deps);
   // An answer skips the routing below but passes the same steps (answer-lane.ts); compression
-  // is not among them (see below).
-  app.use(
-    answerLane(
-      { common: [securityHeaders, requestLog, cookies, sameOrigin, respondentJson], ...respondent },
-      errorHandler,
-    ),
+  // is not among them (see below). Of the cookies only the origin check reads one, and only
+  // from a request that sends any: a phone without cookies is spared the parser's objects.
+  const cookiesIfSent: express.RequestHandler = (req, res, next) =>
+    req.headers.cookie === undefined ? next() : cookies(req, res, next);
+  const lane = answerLane(
+    {
+      common: [securityHeaders, requestLog, cookiesIfSent, sameOrigin, respondentJson],
+      ...respondent,
+    },
+    errorHandler,
   );
+  enterAnswersFirst(app, lane);
+  app.use(lane);
   app.use(securityHeaders);
   app.use(requestLog);
   // gzip or brotli, whichever the browser prefers, for pages, scripts, styles and JSON — but

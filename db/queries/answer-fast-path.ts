@@ -18,7 +18,7 @@ type AnswerRow = Omit<Parameters<typeof insertAnswerAndFinish>[1], 'finish'> & {
   createdAt: Date;
 };
 
-const STATEMENT = 'answer_fast_path_v2';
+const STATEMENT = 'answer_fast_path_v3';
 
 /*
  * Conditions (all must hold, or nothing is written):
@@ -34,6 +34,10 @@ const STATEMENT = 'answer_fast_path_v2';
  * status and the screens they have answered come back too, so that a retry (a phone that
  * lost the reply) is recognised without another round trip. Those reads run only then
  * (PostgreSQL skips a subquery whose one-time condition is false).
+ *
+ * The study's settings (for the redirect at the end) come back only for an answer that ends
+ * the session or one that wrote nothing: for every other answer the server would parse them
+ * as JSON and drop them.
  */
 const TEXT = `
 with ctx as (
@@ -71,7 +75,10 @@ freed as (
    where version_id = $15 and $12::text in ('screened_out', 'over_quota')
      and exists (select 1 from fin)
 )
-select (select id from ins) as id, ctx.settings, ctx.status, ctx.archived,
+select (select id from ins) as id,
+       case when $12::text <> 'in_progress' or not exists (select 1 from ins)
+            then ctx.settings end as settings,
+       ctx.status, ctx.archived,
        mine.screen_key as mine_screen_key, mine.value as mine_value,
        case when mine.screen_key is not null then
          (select array_agg(a.screen_key) from answers a where a.respondent_id = $1) end as answered
@@ -92,8 +99,9 @@ export type NothingWritten = {
 
 /**
  * Stores the answer when it is a plain in-order answer of a live session. Returns the new id
- * and the study's settings; `id` is null when nothing was written (then `refused` says what
- * was found), and the whole result is null when the respondent or study is gone.
+ * and the study's settings (null for a stored answer that continues the session); `id` is
+ * null when nothing was written (then `refused` says what was found), and the whole result
+ * is null when the respondent or study is gone.
  */
 export async function insertAnswerIfOpen(
   db: Db,
@@ -125,7 +133,8 @@ export async function insertAnswerIfOpen(
       params.chosenPosition,
       JSON.stringify(params.value),
       params.responseMs,
-      params.createdAt,
+      // pg would format a Date in local time with its own code; ISO 8601 means the same instant.
+      params.createdAt.toISOString(),
       params.answeredBefore,
       params.status,
       params.durationMs,

@@ -20,8 +20,8 @@ import {
   setDesignJobProgress,
 } from '../../db/queries/design-jobs';
 import { sweepOrphans, type OrphanSpec } from './orphan-sweep';
-import { getStudyById, updateStudy } from '../../db/queries/studies';
-import { getDesignById, insertDesign } from '../../db/queries/designs';
+import { getStudyById } from '../../db/queries/studies';
+import { getDesignById, insertCurrentDesign, insertDesign } from '../../db/queries/designs';
 import { studyDefinitionSchema } from '../../shared/schemas/study-definition';
 import { designFitsDefinition } from '../services/design-fit';
 
@@ -122,7 +122,9 @@ export async function runDesignJob(deps: AppDeps, pool: Piscina, designJobId: st
         });
         return;
       }
-      const design = await insertDesign(tx, {
+      // A candidate waits beside the current design until someone adopts it.
+      const insert = candidate ? insertDesign : insertCurrentDesign;
+      const design = await insert(tx, {
         studyId: job.studyId,
         teamId: job.teamId,
         method: out.result.spec.method,
@@ -138,12 +140,6 @@ export async function runDesignJob(deps: AppDeps, pool: Piscina, designJobId: st
           : out.result.diagnostics,
         createdBy: job.createdBy,
       });
-      if (!candidate)
-        await updateStudy(tx, {
-          id: job.studyId,
-          teamId: job.teamId,
-          set: { currentDesignId: design.id },
-        });
       await finishDesignJob(tx, {
         id: job.id,
         status: 'done',

@@ -75,21 +75,19 @@ export function createRequestLog(logger: Logger, patternOf: RoutePatternOf): Req
       `${req.method} ${describeRoute(req as Request, patternOf)} ${res.statusCode}`,
   });
   let respondentSuccesses = 0;
-  /** The same line as pino-http's, written only for failures and one success in the sample. */
+  /**
+   * The same line as pino-http's, written only for failures and one success in the sample.
+   * Per request it adds one listener, on 'close' (emitted once the reply is sent or the
+   * connection is gone, after 'finish'), and no per-request property definition: the child
+   * logger a handler may ask for (the error handler) is made on first use by `req.log`.
+   */
   const respondentLog: RequestHandler = (req, res, next) => {
     const started = Date.now();
     req.id = genReqId(req);
-    // Made only when a handler logs (the error handler): most requests never need one.
-    let child: Logger | undefined;
-    Object.defineProperty(req, 'log', {
-      configurable: true,
-      get: () => (child ??= logger.child({ req: serializeReq(req) })),
-    });
-    const done = (err?: unknown) => {
-      res.off('finish', done);
-      res.off('close', done);
+    req.log = lazyChild(logger, () => ({ req: serializeReq(req) }));
+    res.once('close', () => {
       const status = res.statusCode;
-      const ok = !err && status < 400;
+      const ok = status < 400;
       if (ok && respondentSuccesses++ % RESPONDENT_LOG_SAMPLE !== 0) return;
       const line = {
         req: serializeReq(req),
@@ -97,12 +95,27 @@ export function createRequestLog(logger: Logger, patternOf: RoutePatternOf): Req
         responseTime: Date.now() - started,
         ...(ok ? { sampledOneIn: RESPONDENT_LOG_SAMPLE } : {}),
       };
-      logger[levelOf(status, err)](line, `${req.method} ${line.req.route} ${status}`);
-    };
-    res.on('finish', done);
-    res.on('close', done);
+      logger[levelOf(status)](line, `${req.method} ${line.req.route} ${status}`);
+    });
     next();
   };
   return (req, res, next) =>
     isRespondentRequest(req) ? respondentLog(req, res, next) : full(req, res, next);
+}
+
+/**
+ * A logger whose child (with the request's fields) is made on the first call: most
+ * respondent requests never log from a handler, and a child logger costs a serializer pass.
+ */
+function lazyChild(logger: Logger, bindings: () => Record<string, unknown>): Logger {
+  let child: Logger | undefined;
+  return new Proxy(logger, {
+    get: (_target, prop) => {
+      child ??= logger.child(bindings());
+      const value: unknown = Reflect.get(child, prop, child);
+      return typeof value === 'function'
+        ? (value as (...a: unknown[]) => unknown).bind(child)
+        : value;
+    },
+  });
 }

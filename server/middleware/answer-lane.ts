@@ -8,8 +8,13 @@
  * error to the same error handler. A request it does not recognise (another method or path, a
  * trailing slash, another letter case, a malformed escape) goes on through the routers, which
  * answer it as before.
+ *
+ * `enterAnswersFirst` also lets an answer skip Express's own entry (app.handle: a final
+ * handler built per request, settings looked up, the router's walk to this lane's layer): it
+ * prepares the request as app.handle does and hands it straight to the lane. The lane stays
+ * mounted as the app's first middleware for what the entrance does not take (a query string).
  */
-import type { ErrorRequestHandler, Request, RequestHandler } from 'express';
+import type { ErrorRequestHandler, Express, Request, RequestHandler, Response } from 'express';
 
 const ANSWER_PATH = /^\/api\/r\/([^/]+)\/(answers|revisions)$/;
 
@@ -69,4 +74,30 @@ function run(
     }
   };
   step();
+}
+
+/** What the entrance takes: an answer's exact path with nothing after it. */
+const ANSWER_URL = /^\/api\/r\/[^/?]+\/(?:answers|revisions)$/;
+
+type Handle = (req: Request, res: Response, callback?: (err?: unknown) => void) => void;
+
+export function enterAnswersFirst(app: Express, lane: RequestHandler): void {
+  const express = app as unknown as { handle: Handle; request: object; response: object };
+  const handle = express.handle.bind(app);
+  // createApp disables it before this: no per-request settings lookup.
+  const poweredBy = app.enabled('x-powered-by');
+  express.handle = (req, res, callback) => {
+    if (req.method !== 'POST' || !ANSWER_URL.test(req.url)) return handle(req, res, callback);
+    // As app.handle and the router's handle do before the first middleware (Express 5).
+    if (poweredBy) res.setHeader('X-Powered-By', 'Express');
+    req.res = res;
+    res.req = req;
+    Object.setPrototypeOf(req, express.request);
+    Object.setPrototypeOf(res, express.response);
+    if (!res.locals) res.locals = Object.create(null) as Response['locals'];
+    req.baseUrl = '';
+    req.originalUrl = req.originalUrl || req.url;
+    // A path the lane declines after all (a malformed escape) goes the long way.
+    lane(req, res, () => handle(req, res, callback));
+  };
 }

@@ -14,11 +14,15 @@
  * costs the database nothing more (PostgresRateLimitStore refuses it from memory).
  */
 import type { ClientRateLimitInfo, IncrementResponse, Options, Store } from 'express-rate-limit';
+import type { LimitStore } from './rate-limiter';
+
+/** What a store reads of its limiter's options (express-rate-limit's or rate-limiter.ts's). */
+export type LimitOptions = Pick<Options, 'windowMs' | 'limit'>;
 
 /** The shared counters (PostgresRateLimitStore): a store that can count several hits at once. */
 export type SharedCounters = Store & {
   readonly prefix: string;
-  init(options: Options): void;
+  init(options: LimitOptions): void;
   increment(key: string, hits?: number): Promise<IncrementResponse>;
   get(key: string): Promise<ClientRateLimitInfo | undefined>;
 };
@@ -37,7 +41,7 @@ type Entry = {
   writing: number;
 };
 
-export class LocalFirstRateLimitStore implements Store {
+export class LocalFirstRateLimitStore implements Store, LimitStore {
   readonly localKeys = false;
   private readonly entries = new Map<string, Entry>();
   private budget = 0;
@@ -54,7 +58,7 @@ export class LocalFirstRateLimitStore implements Store {
     return this.shared.prefix;
   }
 
-  init(options: Options): void {
+  init(options: LimitOptions): void {
     this.shared.init(options);
     this.windowMs = options.windowMs;
     const limit = typeof options.limit === 'number' ? options.limit : 0;
@@ -78,13 +82,24 @@ export class LocalFirstRateLimitStore implements Store {
       if (e.resetAt <= now && e.writing === 0) this.entries.delete(key);
   }
 
+  /** Within the key's budget: counts the hit here and answers at once (no promise). */
+  private countHere(e: Entry): IncrementResponse | null {
+    if (e.shared + e.writing + e.pending + 1 > this.budget) return null;
+    e.pending++;
+    return { totalHits: e.shared + e.writing + e.pending, resetTime: new Date(e.resetAt) };
+  }
+
+  /** The hit counted in memory, or null when the shared count must decide (increment). */
+  incrementNow(key: string): IncrementResponse | null {
+    const e = this.entry(key, this.now());
+    return e ? this.countHere(e) : null;
+  }
+
   async increment(key: string): Promise<IncrementResponse> {
     const e = this.entry(key, this.now());
     if (!e) return this.shared.increment(key);
-    if (e.shared + e.writing + e.pending + 1 <= this.budget) {
-      e.pending++;
-      return { totalHits: e.shared + e.writing + e.pending, resetTime: new Date(e.resetAt) };
-    }
+    const here = this.countHere(e);
+    if (here) return here;
     // Near the limit: the shared count decides, with this process's unwritten hits added.
     const hits = e.pending + 1;
     e.pending = 0;

@@ -1,9 +1,9 @@
 /**
- * The counter store behind every express-rate-limit limiter: PostgreSQL, so that all API
+ * The counter store behind every rate limiter (rate-limiter.ts): PostgreSQL, so that all API
  * instances behind a load balancer share one count per client. The counting itself is done by
  * the maintained rate-limiter-flexible package (RateLimiterPostgres: one INSERT … ON CONFLICT
  * per hit, a named prepared statement) on our own pool; this file only adapts it to
- * express-rate-limit's Store interface.
+ * the limiter's store interface (express-rate-limit's Store, whose types it keeps).
  *
  * Cost on the hot respondent path: the table (migration 0003) is UNLOGGED — no write-ahead log
  * — so a hit is one short upsert; keys are hashed, spreading rows (no hot row per study); and a
@@ -13,14 +13,16 @@
  */
 import { createHash } from 'node:crypto';
 import type pg from 'pg';
-import type { Options, Store, IncrementResponse, ClientRateLimitInfo } from 'express-rate-limit';
+import type { Store, IncrementResponse, ClientRateLimitInfo } from 'express-rate-limit';
+import type { LimitStore } from './rate-limiter';
+import type { LimitOptions } from './local-first-rate-limit-store';
 import { RateLimiterPostgres, RateLimiterRes } from 'rate-limiter-flexible';
 
 export const RATE_LIMIT_TABLE = 'rate_limit_counters';
 
 const digest = (key: string) => createHash('sha256').update(key).digest('base64url').slice(0, 32);
 
-export class PostgresRateLimitStore implements Store {
+export class PostgresRateLimitStore implements Store, LimitStore {
   readonly localKeys = false;
   private limiter: RateLimiterPostgres | null = null;
   private limit = 1;
@@ -32,7 +34,7 @@ export class PostgresRateLimitStore implements Store {
     readonly prefix: string,
   ) {}
 
-  init(options: Options): void {
+  init(options: LimitOptions): void {
     if (typeof options.limit !== 'number')
       throw new Error('PostgresRateLimitStore needs a numeric limit');
     this.limit = options.limit;

@@ -6,11 +6,12 @@
  * locks out everybody else.
  */
 import type { Request, RequestHandler } from 'express';
-import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
+import { ipKeyGenerator } from 'express-rate-limit';
 import type pg from 'pg';
 import type { AppDeps } from '../deps';
 import { PostgresRateLimitStore } from './rate-limit-store';
 import { LocalFirstRateLimitStore } from './local-first-rate-limit-store';
+import { createRateLimiter } from './rate-limiter';
 import { RESPONDENT_TOKEN_HEADER } from '../../shared/schemas/respondent';
 import { TWO_STEP_COOKIE, verifyTwoStepToken } from '../lib/session';
 
@@ -40,25 +41,22 @@ const RESPONDENT_LOCAL_SHARE = 0.25;
 const poolOf = (deps: AppDeps) => (deps.db as unknown as { $client: pg.Pool }).$client;
 
 function createLimit(deps: AppDeps, spec: LimitSpec): RequestHandler {
-  return rateLimit({
+  const shared = new PostgresRateLimitStore(poolOf(deps), spec.name);
+  return createRateLimiter({
     windowMs: spec.windowMs ?? FIFTEEN_MINUTES,
     limit: spec.limit,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    store: spec.localShare
-      ? new LocalFirstRateLimitStore(
-          new PostgresRateLimitStore(poolOf(deps), spec.name),
-          spec.localShare,
-        )
-      : new PostgresRateLimitStore(poolOf(deps), spec.name),
-    keyGenerator: (req) => spec.key(req) ?? '',
-    skip: (req) => spec.key(req) === null,
-    skipSuccessfulRequests: spec.failuresOnly ?? false,
-    // A database hiccup must not turn away respondents or lock people out.
-    passOnStoreError: true,
-    handler: (_req, res) => {
+    store: spec.localShare ? new LocalFirstRateLimitStore(shared, spec.localShare) : shared,
+    key: spec.key,
+    failuresOnly: spec.failuresOnly ?? false,
+    refuse: (_req, res) => {
       res.status(429).json({ error: { code: 'rate_limited', message: spec.message } });
     },
+    // A database hiccup must not turn away respondents or lock people out.
+    onStoreError: (err) =>
+      deps.logger.warn(
+        { err, limit: spec.name },
+        'rate-limit counters unavailable: request let through',
+      ),
   });
 }
 

@@ -10,8 +10,8 @@ import { and, eq } from 'drizzle-orm';
 import { nanoid } from 'nanoid';
 import type { DbOrTx } from '../../db/client';
 import { studies } from '../../db/schema/studies';
-import { insertDesign } from '../../db/queries/designs';
-import { insertStudy, updateStudy } from '../../db/queries/studies';
+import { insertCurrentDesign } from '../../db/queries/designs';
+import { insertStudy } from '../../db/queries/studies';
 import { generateDesign } from '../engine/design/generate-design';
 import { getCodedColumns } from '../../shared/engine/coding/coded-columns';
 import type { DesignSpecInput } from '../../shared/schemas/design-spec';
@@ -73,7 +73,7 @@ export async function ensureDemoStudy(
       definition: demoDefinition,
       createdBy: params.ownerId,
     });
-    const design = await insertDesign(tx, {
+    await insertCurrentDesign(tx, {
       studyId: study.id,
       teamId: params.teamId,
       method: generated.spec.method,
@@ -81,11 +81,6 @@ export async function ensureDemoStudy(
       design: generated.design,
       diagnostics: generated.diagnostics,
       createdBy: params.ownerId,
-    });
-    await updateStudy(tx, {
-      id: study.id,
-      teamId: params.teamId,
-      set: { currentDesignId: design.id },
     });
     return study.id;
   });

@@ -4,6 +4,7 @@ import { cn } from '@/lib/cn';
 import { useMe } from '@/features/auth/api/get-me';
 import { useSignOut } from '@/features/auth/api/sign-out';
 import { Brand } from '@/components/layout/brand';
+import { Options } from '@/components/ui/options';
 
 const navClass = ({ isActive }: { isActive: boolean }) =>
   cn(
@@ -38,11 +39,7 @@ export function AppShell() {
                 value={currentTeam?.id ?? ''}
                 onChange={(e) => navigate(paths.studies.getHref(e.target.value))}
               >
-                {me.teams.map((t) => (
-                  <option key={t.id} value={t.id}>
-                    {t.name}
-                  </option>
-                ))}
+                <Options items={me.teams.map((t) => ({ value: t.id, label: t.name }))} />
               </select>
             </label>
           )}

@@ -11,7 +11,7 @@ type Align = 'left' | 'right';
  * the table's, such as a sticky first column); false leaves the column out.
  */
 export type ColumnHeading =
-  string | { label: ReactNode; align: Align; key?: string; className?: string } | false;
+  string | { label: ReactNode; align: Align; key?: string; className?: string } | false | null;
 
 const alignClass: Record<Align, string> = { left: 'text-left', right: 'text-right' };
 
@@ -26,7 +26,7 @@ export function HeaderCells({
   return (
     <>
       {headings.map((h, i) => {
-        if (h === false) return null;
+        if (!h) return null;
         const {
           label,
           align,

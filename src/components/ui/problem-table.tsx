@@ -44,3 +44,20 @@ export function ProblemTable({
     </div>
   );
 }
+
+/** A problem of an uploaded CSV, at a data row and (where known) a column. */
+export type RowProblem = { row: ReactNode; column?: string | null; message: string };
+
+/** The problems of an uploaded CSV by row and column; a problem of a whole row shows a dash. */
+export function RowProblemTable({ label, problems }: { label: string; problems: RowProblem[] }) {
+  return (
+    <ProblemTable
+      label={label}
+      columns={[{ header: 'Row', numeric: true }, { header: 'Column' }, { header: 'Problem' }]}
+      rows={problems.map((p, i) => ({
+        key: String(i),
+        cells: [p.row, p.column || '—', p.message],
+      }))}
+    />
+  );
+}

@@ -7,7 +7,9 @@ import { describe, expect, it, vi } from 'vitest';
 import type { Request, Response } from 'express';
 import { useTestApp } from '../../support/test-app';
 import { answerFor, startLiveSession, type LiveSession } from '../routes/respond-fixtures';
-import { answerLane } from '../../../server/middleware/answer-lane';
+import express from 'express';
+import supertest from 'supertest';
+import { answerLane, enterAnswersFirst } from '../../../server/middleware/answer-lane';
 
 const SESSION_LIMIT = 6;
 const t = useTestApp({ RESPONDENT_SESSION_RATE_LIMIT: String(SESSION_LIMIT) }, { signIn: 'owner' });
@@ -48,6 +50,13 @@ describe('POST /api/r/:publicId/answers through the lane', () => {
     expect(viaLane.body.screenKey).toBe(first.key);
     expect(viaLane.body.nextScreenKey).toBe(second.key);
     expect(stableHeaders(viaLane)).toEqual(stableHeaders(viaRouters));
+    // Nor is a query string: the routers store it all the same.
+    const withQuery = await post(
+      `/api/r/${publicId}/answers?from=panel`,
+      session.sessionToken,
+      answerFor(session.screens[2]),
+    ).expect(201);
+    expect(stableHeaders(withQuery)).toEqual(stableHeaders(viaLane));
     expect(viaLane.headers['cache-control']).toBe('no-store');
     expect(viaLane.headers['content-type']).toBe('application/json; charset=utf-8');
     expect(viaLane.headers['x-content-type-options']).toBe('nosniff');
@@ -150,5 +159,44 @@ describe('answerLane', () => {
     await vi.waitFor(() => expect(onError).toHaveBeenCalledOnce());
     expect(seen).toEqual(['common', 'revisions a b']);
     expect(onError.mock.calls[0][0]).toBe(failure);
+  });
+});
+
+describe('enterAnswersFirst', () => {
+  /** An app whose router records every request it walks, with the lane entered first. */
+  function appWithEntrance() {
+    const walked: string[] = [];
+    const app = express();
+    app.disable('x-powered-by');
+    const reply: express.RequestHandler = (req, res) => {
+      res.json({ publicId: req.params.publicId, app: req.app === app, url: req.originalUrl });
+    };
+    const lane = answerLane({ common: [], answers: [reply], revisions: [reply] }, vi.fn());
+    enterAnswersFirst(app, lane);
+    app.use((req, _res, next) => (walked.push(`${req.method} ${req.url}`), next()));
+    app.use(lane);
+    app.use((_req, res) => {
+      res.status(404).json({ routed: true });
+    });
+    return { app, walked };
+  }
+
+  it('takes an answer past the router, with the request prepared as Express prepares it', async () => {
+    const { app, walked } = appWithEntrance();
+    const res = await supertest(app).post('/api/r/a%20b/answers').send({}).expect(200);
+    expect(res.body).toEqual({ publicId: 'a b', app: true, url: '/api/r/a%20b/answers' });
+    expect(walked).toEqual([]);
+  });
+
+  it('leaves anything else to the router, a query string and a malformed escape included', async () => {
+    const { app, walked } = appWithEntrance();
+    await supertest(app).post('/api/r/abc/answers?x=1').send({}).expect(200);
+    await supertest(app).get('/api/r/abc/answers').expect(404);
+    await supertest(app).post('/api/r/%E0%A4%A/answers').send({}).expect(404);
+    expect(walked).toEqual([
+      'POST /api/r/abc/answers?x=1',
+      'GET /api/r/abc/answers',
+      'POST /api/r/%E0%A4%A/answers',
+    ]);
   });
 });

@@ -243,6 +243,17 @@ describe('saveAnswerFast', () => {
     expect(await r.stored()).toHaveLength(1);
   });
 
+  it('gives the redirect of the study settings with the answer that ends the session, and none before', async () => {
+    const r = await liveRespondent({
+      redirects: { complete: 'https://panel.example/done?id={pid}' },
+    });
+    const receipts = [];
+    for (const screen of r.screens) receipts.push(await r.fast(answerOf(screen)));
+    expect(receipts.slice(0, -1).every((x) => x?.redirectUrl === null)).toBe(true);
+    expect(receipts.at(-1)).toMatchObject({ status: 'completed', replay: false });
+    expect(receipts.at(-1)?.redirectUrl).toMatch(/^https:\/\/panel\.example\/done\?id=/);
+  });
+
   it('answers a retry of the last answer with the final status, as the full path does', async () => {
     const r = await liveRespondent({
       redirects: { complete: 'https://panel.example/done?id={pid}' },

@@ -3,13 +3,14 @@
  * token is sent in a POST, so mail scanners that only open links confirm nothing until the
  * person presses the button), then goes on to the studies or to where sign-up started.
  */
-import { Link, useNavigate, useSearchParams } from 'react-router';
+import { useNavigate, useSearchParams } from 'react-router';
 import { paths } from '@/config/paths';
 import { AuthLayout } from '@/components/layout/auth-layout';
 import { Alert } from '@/components/ui/feedback';
 import { Button } from '@/components/ui/button';
 import { useConfirmEmail } from '@/features/auth/api/confirm-email';
 import { safeRedirect } from './safe-redirect';
+import { BackToSignIn } from './back-to-sign-in';
 
 export function Component() {
   const navigate = useNavigate();
@@ -24,14 +25,7 @@ export function Component() {
   };
 
   return (
-    <AuthLayout
-      title="Confirm your e-mail address"
-      footer={
-        <Link className="font-medium text-primary underline" to={paths.signIn.getHref()}>
-          Back to sign in
-        </Link>
-      }
-    >
+    <AuthLayout title="Confirm your e-mail address" footer={<BackToSignIn />}>
       {token.length < 20 ? (
         <Alert tone="danger" title="This confirmation link is incomplete">
           Open the link from the e-mail again. Signing in sends a new one.

@@ -1,19 +1,12 @@
-import { Link, useSearchParams } from 'react-router';
-import { paths } from '@/config/paths';
+import { useSearchParams } from 'react-router';
 import { AuthLayout } from '@/components/layout/auth-layout';
 import { ForgotPasswordForm } from '@/features/auth/components/forgot-password-form';
+import { BackToSignIn } from './back-to-sign-in';
 
 export function Component() {
   const [params] = useSearchParams();
   return (
-    <AuthLayout
-      title="Forgot your password?"
-      footer={
-        <Link className="font-medium text-primary underline" to={paths.signIn.getHref()}>
-          Back to sign in
-        </Link>
-      }
-    >
+    <AuthLayout title="Forgot your password?" footer={<BackToSignIn />}>
       <ForgotPasswordForm defaultEmail={params.get('email') ?? ''} />
     </AuthLayout>
   );

@@ -8,10 +8,11 @@ import { AuthLayout } from '@/components/layout/auth-layout';
 import { EmailField, PasswordField } from '@/components/ui/auth-fields';
 import { Button } from '@/components/ui/button';
 import { ErrorText } from '@/components/ui/error-boundary';
-import { applyFieldErrors } from '@/lib/api-client';
+import { submitForm } from '@/lib/submit-form';
 import { useSignIn } from '@/features/auth/api/sign-in';
 import { SecondStepForm } from '@/features/auth/components/second-step-form';
 import { safeRedirect, withAuthParams } from './safe-redirect';
+import { formField } from '@/components/ui/form-field';
 
 export function Component() {
   const navigate = useNavigate();
@@ -21,19 +22,15 @@ export function Component() {
     resolver: zodResolver(signInSchema),
     defaultValues: { email: params.get('email') ?? '', password: '' },
   });
-  const { errors, isSubmitting } = form.formState;
+  const { isSubmitting } = form.formState;
   const [secondStep, setSecondStep] = useState(false);
   const goOn = () =>
     navigate(safeRedirect(params.get('redirectTo'), paths.home.getHref()), { replace: true });
 
-  const onSubmit = form.handleSubmit(async (values) => {
-    try {
-      const result = await signIn.mutateAsync(values);
-      if ('twoStepRequired' in result) setSecondStep(true);
-      else goOn();
-    } catch (err) {
-      applyFieldErrors(err, form.setError);
-    }
+  const onSubmit = submitForm(form, async (values) => {
+    const result = await signIn.mutateAsync(values);
+    if ('twoStepRequired' in result) setSecondStep(true);
+    else goOn();
   });
 
   if (secondStep)
@@ -65,12 +62,8 @@ export function Component() {
       }
     >
       <form onSubmit={onSubmit} className="space-y-4" noValidate>
-        <EmailField error={errors.email?.message} {...form.register('email')} />
-        <PasswordField
-          purpose="current"
-          error={errors.password?.message}
-          {...form.register('password')}
-        />
+        <EmailField {...formField(form, 'email')} />
+        <PasswordField purpose="current" {...formField(form, 'password')} />
         <ErrorText error={signIn.error} />
         <Button type="submit" className="w-full" busy={isSubmitting}>
           Sign in

@@ -2,23 +2,25 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
 import { passwordSchema, type CurrentUser } from '@shared/schemas/auth';
-import { PasswordField } from '@/components/ui/auth-fields';
+import {
+  NewPasswordFields,
+  PasswordField,
+  repeatedPasswordSchema,
+} from '@/components/ui/auth-fields';
 import { Button } from '@/components/ui/button';
 import { Alert } from '@/components/ui/feedback';
-import { applyFieldErrors } from '@/lib/api-client';
+import { submitForm } from '@/lib/submit-form';
 import { useUpdateAccount } from '../api/update-account';
+import { formField } from '@/components/ui/form-field';
 
 // The shared password rule, with the current password required and the new one repeated.
-const passwordFormSchema = z
-  .object({
+const passwordFormSchema = repeatedPasswordSchema(
+  {
     currentPassword: z.string().min(1, 'Enter your current password').max(200),
     newPassword: passwordSchema,
-    confirmPassword: z.string(),
-  })
-  .refine((v) => v.newPassword === v.confirmPassword, {
-    path: ['confirmPassword'],
-    message: 'The two passwords differ',
-  });
+  },
+  'newPassword',
+);
 type PasswordFormValues = z.infer<typeof passwordFormSchema>;
 
 const empty: PasswordFormValues = { currentPassword: '', newPassword: '', confirmPassword: '' };
@@ -31,13 +33,9 @@ export function PasswordForm({ onChanged }: { onChanged: (me: CurrentUser) => vo
   });
   const { errors, isSubmitting } = form.formState;
 
-  const onSubmit = form.handleSubmit(async ({ currentPassword, newPassword }) => {
-    try {
-      await update.mutateAsync({ currentPassword, newPassword });
-      form.reset(empty);
-    } catch (err) {
-      applyFieldErrors(err, form.setError);
-    }
+  const onSubmit = submitForm(form, async ({ currentPassword, newPassword }) => {
+    await update.mutateAsync({ currentPassword, newPassword });
+    form.reset(empty);
   });
 
   return (
@@ -45,21 +43,12 @@ export function PasswordForm({ onChanged }: { onChanged: (me: CurrentUser) => vo
       <PasswordField
         purpose="current"
         label="Current password"
-        error={errors.currentPassword?.message}
-        {...form.register('currentPassword')}
+        {...formField(form, 'currentPassword')}
       />
-      <PasswordField
-        purpose="new"
-        label="New password"
+      <NewPasswordFields
+        form={form}
+        name="newPassword"
         hint="At least 10 characters. Other devices will be signed out."
-        error={errors.newPassword?.message}
-        {...form.register('newPassword')}
-      />
-      <PasswordField
-        purpose="new"
-        label="Repeat the new password"
-        error={errors.confirmPassword?.message}
-        {...form.register('confirmPassword')}
       />
       {update.isError && !errors.currentPassword && !errors.newPassword && (
         <Alert tone="danger">{update.error.message}</Alert>

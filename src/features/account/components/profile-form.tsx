@@ -8,8 +8,9 @@ import {
 import { TextField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Alert } from '@/components/ui/feedback';
-import { applyFieldErrors } from '@/lib/api-client';
+import { submitForm } from '@/lib/submit-form';
 import { useUpdateAccount } from '../api/update-account';
+import { formField } from '@/components/ui/form-field';
 
 export function ProfileForm({
   user,
@@ -25,13 +26,9 @@ export function ProfileForm({
   });
   const { errors, isSubmitting, isSubmitSuccessful, isDirty } = form.formState;
 
-  const onSubmit = form.handleSubmit(async ({ name }) => {
-    try {
-      const me = await update.mutateAsync({ name });
-      form.reset({ name: me.name });
-    } catch (err) {
-      applyFieldErrors(err, form.setError);
-    }
+  const onSubmit = submitForm(form, async ({ name }) => {
+    const me = await update.mutateAsync({ name });
+    form.reset({ name: me.name });
   });
 
   return (
@@ -40,8 +37,7 @@ export function ProfileForm({
         label="Name"
         autoComplete="name"
         hint="Shown to your teammates and on invitations you send."
-        error={errors.name?.message}
-        {...form.register('name')}
+        {...formField(form, 'name')}
       />
       <div className="space-y-1">
         <p className="text-sm font-medium text-ink">E-mail</p>

@@ -18,7 +18,7 @@ import { Button } from '@/components/ui/button';
 import { Alert, Spinner } from '@/components/ui/feedback';
 import { TextField } from '@/components/ui/field';
 import { PasswordField } from '@/components/ui/auth-fields';
-import { applyFieldErrors } from '@/lib/api-client';
+import { submitForm } from '@/lib/submit-form';
 import {
   useDisableTwoStep,
   useEnableTwoStep,
@@ -28,6 +28,7 @@ import {
 } from '../api/two-step';
 import { RecoveryCodesPanel } from './recovery-codes-panel';
 import { formatDate } from '@/utils/format';
+import { formField } from '@/components/ui/form-field';
 
 /** The key in groups of four, as authenticator apps show it, for typing by hand. */
 const grouped = (secret: string) => secret.match(/.{1,4}/g)?.join(' ') ?? secret;
@@ -46,8 +47,7 @@ function AppCodeField({
       autoComplete="one-time-code"
       maxLength={6}
       className="max-w-40 font-mono tracking-widest"
-      error={form.formState.errors.code?.message}
-      {...form.register('code')}
+      {...formField(form, 'code')}
     />
   );
 }
@@ -64,12 +64,8 @@ function SetupSteps({
     resolver: zodResolver(enableTwoStepSchema),
     defaultValues: { code: '' },
   });
-  const onSubmit = form.handleSubmit(async (values) => {
-    try {
-      onEnabled((await enable.mutateAsync(values)).recoveryCodes);
-    } catch (err) {
-      applyFieldErrors(err, form.setError);
-    }
+  const onSubmit = submitForm(form, async (values) => {
+    onEnabled((await enable.mutateAsync(values)).recoveryCodes);
   });
   return (
     <form onSubmit={onSubmit} className="space-y-4" noValidate aria-label="Set up two-step sign-in">
@@ -113,13 +109,9 @@ function DisableForm({ onDone }: { onDone: () => void }) {
     defaultValues: { password: '', code: '' },
   });
   const { errors, isSubmitting } = form.formState;
-  const onSubmit = form.handleSubmit(async (values) => {
-    try {
-      await disable.mutateAsync(values);
-      onDone();
-    } catch (err) {
-      applyFieldErrors(err, form.setError);
-    }
+  const onSubmit = submitForm(form, async (values) => {
+    await disable.mutateAsync(values);
+    onDone();
   });
   return (
     <form
@@ -128,18 +120,12 @@ function DisableForm({ onDone }: { onDone: () => void }) {
       noValidate
       aria-label="Turn off two-step sign-in"
     >
-      <PasswordField
-        purpose="current"
-        label="Your password"
-        error={errors.password?.message}
-        {...form.register('password')}
-      />
+      <PasswordField purpose="current" label="Your password" {...formField(form, 'password')} />
       <TextField
         label="Code from the app, or a recovery code"
         autoComplete="one-time-code"
         className="max-w-56 font-mono"
-        error={errors.code?.message}
-        {...form.register('code')}
+        {...formField(form, 'code')}
       />
       {disable.isError && !errors.password && !errors.code && (
         <Alert tone="danger">{disable.error.message}</Alert>
@@ -162,12 +148,8 @@ function RenewForm({ onRenewed }: { onRenewed: (c: string[]) => void }) {
     resolver: zodResolver(enableTwoStepSchema),
     defaultValues: { code: '' },
   });
-  const onSubmit = form.handleSubmit(async (values) => {
-    try {
-      onRenewed((await renew.mutateAsync(values)).recoveryCodes);
-    } catch (err) {
-      applyFieldErrors(err, form.setError);
-    }
+  const onSubmit = submitForm(form, async (values) => {
+    onRenewed((await renew.mutateAsync(values)).recoveryCodes);
   });
   return (
     <form onSubmit={onSubmit} className="space-y-4" noValidate aria-label="New recovery codes">

@@ -3,6 +3,7 @@ import { Card } from '@/components/ui/feedback';
 import { SelectField, TextField } from '@/components/ui/field';
 import type { FieldErrors } from '../utils/field-errors';
 import { resizeLabels } from '../utils/definition-drafts';
+import { Options } from '@/components/ui/options';
 
 type Props = {
   definition: StudyDefinition;
@@ -26,11 +27,7 @@ export function AlternativesSettings({ definition: d, errors, readOnly, onChange
           hint="Not counting an opt-out or status quo."
           onChange={(e) => setAlt(resizeLabels(d, Number(e.target.value)))}
         >
-          {[2, 3, 4, 5].map((n) => (
-            <option key={n} value={n}>
-              {n}
-            </option>
-          ))}
+          <Options items={[2, 3, 4, 5].map((n) => ({ value: n, label: n }))} />
         </SelectField>
         <SelectField
           label="Alternatives are"

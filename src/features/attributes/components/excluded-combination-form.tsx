@@ -15,6 +15,7 @@ import { getLevelLabel } from '@shared/study/level-labels';
 import { SelectField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { newId } from '../utils/definition-drafts';
+import { Options } from '@/components/ui/options';
 
 type Kind = ExcludedCombination['kind'];
 
@@ -162,11 +163,9 @@ export function ExcludedCombinationForm({
       }
     >
       <option value="">Choose…</option>
-      {d.attributes.map((a) => (
-        <option key={a.id} value={a.id}>
-          {a.name || 'Unnamed attribute'}
-        </option>
-      ))}
+      <Options
+        items={d.attributes.map((a) => ({ value: a.id, label: a.name || 'Unnamed attribute' }))}
+      />
     </SelectField>
   );
   const relationSelect = (
@@ -175,11 +174,7 @@ export function ExcludedCombinationForm({
       value={v.relation}
       onChange={(e) => set({ relation: e.target.value as Relation })}
     >
-      {relations.map((r) => (
-        <option key={r} value={r}>
-          {relationWords[r]}
-        </option>
-      ))}
+      <Options items={relations.map((r) => ({ value: r, label: relationWords[r] }))} />
     </SelectField>
   );
   const alternativeSelect = (label: string, key: 'first' | 'second') => (
@@ -212,11 +207,7 @@ export function ExcludedCombinationForm({
         value={v.kind}
         onChange={(e) => setV({ ...empty, kind: e.target.value as Kind })}
       >
-        {kinds.map((k) => (
-          <option key={k} value={k}>
-            {kindNames[k]}
-          </option>
-        ))}
+        <Options items={kinds.map((k) => ({ value: k, label: kindNames[k] }))} />
       </SelectField>
       {v.kind === 'pair' && (
         <div className="grid gap-3 sm:grid-cols-2">
@@ -229,11 +220,7 @@ export function ExcludedCombinationForm({
               onChange={(e) => set({ [key]: e.target.value })}
             >
               <option value="">Choose…</option>
-              {levelOptions.map((o) => (
-                <option key={o.value} value={o.value}>
-                  {o.text}
-                </option>
-              ))}
+              <Options items={levelOptions.map((o) => ({ value: o.value, label: o.text }))} />
             </SelectField>
           ))}
         </div>

@@ -10,6 +10,7 @@ import { auditQueryString, useAudit, type AuditFilters } from '../api/get-audit'
 import { describeAuditEvent } from '../utils/describe-event';
 import { HeaderCells } from '@/components/ui/header-cells';
 import { formatTimestamp } from '@/utils/format';
+import { Options } from '@/components/ui/options';
 
 const groupLabels: Record<(typeof auditGroups)[number], string> = {
   auth: 'Sign-ins and passwords',
@@ -61,11 +62,7 @@ export function AuditLog({
             onChange={(e) => setGroup(e.target.value)}
           >
             <option value="">All events</option>
-            {auditGroups.map((g) => (
-              <option key={g} value={g}>
-                {groupLabels[g]}
-              </option>
-            ))}
+            <Options items={auditGroups.map((g) => ({ value: g, label: groupLabels[g] }))} />
           </select>
         </label>
         <label className="flex flex-col text-sm">
@@ -76,11 +73,7 @@ export function AuditLog({
             onChange={(e) => setActorId(e.target.value)}
           >
             <option value="">Everyone</option>
-            {members.map((m) => (
-              <option key={m.id} value={m.id}>
-                {m.name}
-              </option>
-            ))}
+            <Options items={members.map((m) => ({ value: m.id, label: m.name }))} />
           </select>
         </label>
         <DayInput label="From" value={fromDay} onChange={setFromDay} />

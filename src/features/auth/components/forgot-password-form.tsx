@@ -6,6 +6,7 @@ import { Button } from '@/components/ui/button';
 import { Alert } from '@/components/ui/feedback';
 import { useRequestPasswordReset } from '../api/forgot-password';
 import { applyServerError, FormError } from './form-error';
+import { formField } from '@/components/ui/form-field';
 
 export function ForgotPasswordForm({ defaultEmail = '' }: { defaultEmail?: string }) {
   const request = useRequestPasswordReset();
@@ -37,7 +38,7 @@ export function ForgotPasswordForm({ defaultEmail = '' }: { defaultEmail?: strin
         Enter the e-mail address of your account and we will send you a link to choose a new
         password.
       </p>
-      <EmailField error={errors.email?.message} {...form.register('email')} />
+      <EmailField {...formField(form, 'email')} />
       <FormError message={errors.root?.server?.message} />
       <Button type="submit" className="w-full" busy={isSubmitting}>
         Send reset link

@@ -2,23 +2,17 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
 import { passwordSchema, resetPasswordSchema, type CurrentUser } from '@shared/schemas/auth';
-import { PasswordField } from '@/components/ui/auth-fields';
+import { NewPasswordFields, repeatedPasswordSchema } from '@/components/ui/auth-fields';
 import { Button } from '@/components/ui/button';
 import { ApiError } from '@/lib/api-client';
 import { useResetPassword } from '../api/reset-password';
 import { applyServerError, FormError } from './form-error';
 
 // The shared schema plus a repeat of the password, checked only here in the browser.
-const resetFormSchema = z
-  .object({
-    token: resetPasswordSchema.shape.token,
-    password: passwordSchema,
-    confirmPassword: z.string(),
-  })
-  .refine((v) => v.password === v.confirmPassword, {
-    path: ['confirmPassword'],
-    message: 'The two passwords differ',
-  });
+const resetFormSchema = repeatedPasswordSchema(
+  { token: resetPasswordSchema.shape.token, password: passwordSchema },
+  'password',
+);
 type ResetFormValues = z.infer<typeof resetFormSchema>;
 
 export function ResetPasswordForm({
@@ -50,19 +44,7 @@ export function ResetPasswordForm({
 
   return (
     <form onSubmit={onSubmit} className="space-y-4" noValidate>
-      <PasswordField
-        purpose="new"
-        label="New password"
-        hint="At least 10 characters."
-        error={errors.password?.message}
-        {...form.register('password')}
-      />
-      <PasswordField
-        purpose="new"
-        label="Repeat the new password"
-        error={errors.confirmPassword?.message}
-        {...form.register('confirmPassword')}
-      />
+      <NewPasswordFields form={form} name="password" hint="At least 10 characters." />
       <FormError message={errors.root?.server?.message} />
       <Button type="submit" className="w-full" busy={isSubmitting}>
         Set new password

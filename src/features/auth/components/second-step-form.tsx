@@ -7,6 +7,7 @@ import { TextField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { useSecondStep } from '../api/sign-in';
 import { applyServerError, FormError } from './form-error';
+import { formField } from '@/components/ui/form-field';
 
 export function SecondStepForm({
   onSignedIn,
@@ -46,8 +47,7 @@ export function SecondStepForm({
         autoComplete="one-time-code"
         autoFocus
         className="font-mono tracking-widest"
-        error={errors.code?.message}
-        {...form.register('code')}
+        {...formField(form, 'code')}
       />
       <FormError message={errors.root?.server?.message} />
       <Button type="submit" className="w-full" busy={isSubmitting}>

@@ -6,6 +6,7 @@ import { EmailField, PasswordField } from '@/components/ui/auth-fields';
 import { Button } from '@/components/ui/button';
 import { useSignUp } from '../api/sign-up';
 import { applyServerError, FormError } from './form-error';
+import { formField } from '@/components/ui/form-field';
 
 export function SignUpForm({
   defaultValues,
@@ -37,25 +38,18 @@ export function SignUpForm({
 
   return (
     <form onSubmit={onSubmit} className="space-y-4" noValidate>
-      <TextField
-        label="Your name"
-        autoComplete="name"
-        error={errors.name?.message}
-        {...form.register('name')}
-      />
-      <EmailField error={errors.email?.message} {...form.register('email')} />
+      <TextField label="Your name" autoComplete="name" {...formField(form, 'name')} />
+      <EmailField {...formField(form, 'email')} />
       <PasswordField
         purpose="new"
         hint="At least 10 characters. A few unrelated words work well."
-        error={errors.password?.message}
-        {...form.register('password')}
+        {...formField(form, 'password')}
       />
       <TextField
         label="Team name"
         autoComplete="organization"
         hint={teamHint}
-        error={errors.teamName?.message}
-        {...form.register('teamName')}
+        {...formField(form, 'teamName')}
       />
       <FormError message={errors.root?.server?.message} />
       <Button type="submit" className="w-full" busy={isSubmitting}>

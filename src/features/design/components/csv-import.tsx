@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { ApiError } from '@/lib/api-client';
 import { Alert } from '@/components/ui/feedback';
+import { RowProblemTable } from '@/components/ui/problem-table';
 
 type RowError = { row: string; column: string; message: string };
 
@@ -60,25 +61,8 @@ export function CsvImport({
       {error && (
         <Alert tone="danger" title={error.message}>
           {rows.length > 0 && (
-            <div className="mt-2 max-h-64 overflow-auto">
-              <table className="w-full text-xs text-ink">
-                <thead>
-                  <tr className="text-left">
-                    <th className="pr-2 text-right font-medium">Row</th>
-                    <th className="pr-2 font-medium">Column</th>
-                    <th className="font-medium">Problem</th>
-                  </tr>
-                </thead>
-                <tbody>
-                  {rows.map((r, i) => (
-                    <tr key={i} className="border-t border-danger/20">
-                      <td className="num pr-2">{r.row}</td>
-                      <td className="pr-2">{r.column || '—'}</td>
-                      <td>{r.message}</td>
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
+            <div className="mt-2">
+              <RowProblemTable label="Problems in the design file" problems={rows} />
             </div>
           )}
         </Alert>

@@ -3,6 +3,7 @@ import { Button } from '@/components/ui/button';
 import { Alert, Card } from '@/components/ui/feedback';
 import { searchCriteria } from '../utils/criterion-names';
 import { formatSignificant } from '@/utils/format';
+import { DataTable, figureHeading } from '@/components/ui/data-table';
 
 type Props = {
   comparison: CriterionComparison[];
@@ -31,35 +32,30 @@ export function DesignComparison(p: Props) {
       <p className="mb-3 text-sm text-ink-soft">
         Both designs scored under the new priors. Lower is better for every criterion.
       </p>
-      <div className="overflow-x-auto">
-        <table className="w-full text-sm" aria-label="Design comparison">
-          <thead>
-            <tr className="border-b border-line text-left text-xs text-ink-muted">
-              <th className="py-2 pr-3 font-medium">Criterion</th>
-              <th className="py-2 pr-3 text-right font-medium">Current</th>
-              <th className="py-2 pr-3 text-right font-medium">New</th>
-              <th className="py-2 text-right font-medium">Change</th>
-            </tr>
-          </thead>
-          <tbody>
-            {p.comparison.map((c) => (
-              <tr key={c.criterion} className="border-b border-line/60 align-top">
-                <th scope="row" className="py-1.5 pr-3 text-left font-medium text-ink">
-                  {searchCriteria[c.criterion].name}
-                  {c.unavailable && (
-                    <span className="block text-xs font-normal text-ink-muted">
-                      {c.unavailable}
-                    </span>
-                  )}
-                </th>
-                <td className="num py-1.5 pr-3 text-right">{formatSignificant(c.current)}</td>
-                <td className="num py-1.5 pr-3 text-right">{formatSignificant(c.candidate)}</td>
-                <td className="num py-1.5 text-right">{change(c.current, c.candidate)}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
+      <DataTable
+        look="flush"
+        label="Design comparison"
+        headings={[
+          'Criterion',
+          figureHeading('Current'),
+          figureHeading('New'),
+          figureHeading('Change'),
+        ]}
+      >
+        {p.comparison.map((c) => (
+          <tr key={c.criterion} className="border-b border-line/60 align-top">
+            <th scope="row" className="py-1.5 pr-3 text-left font-medium text-ink">
+              {searchCriteria[c.criterion].name}
+              {c.unavailable && (
+                <span className="block text-xs font-normal text-ink-muted">{c.unavailable}</span>
+              )}
+            </th>
+            <td className="num py-1.5 pr-3 text-right">{formatSignificant(c.current)}</td>
+            <td className="num py-1.5 pr-3 text-right">{formatSignificant(c.candidate)}</td>
+            <td className="num py-1.5 text-right">{change(c.current, c.candidate)}</td>
+          </tr>
+        ))}
+      </DataTable>
       {p.status === 'live' && (
         <Alert tone="info" className="mt-4">
           Adopting makes the new design version {p.currentVersion + 1} of this live study. People

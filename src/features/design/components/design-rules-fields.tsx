@@ -7,6 +7,7 @@ import type { StudyDefinition } from '@shared/schemas/study-definition';
 import { TextField } from '@/components/ui/field';
 import { CheckboxField as Switch } from '@/components/ui/checkbox-field';
 import type { DesignFormValues } from '../utils/build-design-spec';
+import { designTextField, type DesignTextKey } from '../utils/design-text-field';
 
 type Props = {
   definition: StudyDefinition;
@@ -21,6 +22,8 @@ export function DesignRulesFields({ definition, values: v, errors, onChange }: P
   const dominance = (patch: Partial<DesignFormValues['dominance']>) =>
     onChange({ dominance: { ...v.dominance, ...patch } });
   const judged = v.method === 'd_efficient' && v.priorsKind !== 'zero';
+  const text = (key: DesignTextKey, specPath: string) =>
+    designTextField({ values: v, errors, onChange }, key, specPath);
   return (
     <div className="space-y-4">
       <fieldset className="space-y-1">
@@ -58,18 +61,14 @@ export function DesignRulesFields({ definition, values: v, errors, onChange }: P
           <TextField
             label="Each level appears at least"
             inputMode="numeric"
-            value={v.minAppearances}
             hint="times over the whole design"
-            error={errors.get('balance.minAppearances')}
-            onChange={(e) => onChange({ minAppearances: e.target.value })}
+            {...text('minAppearances', 'balance.minAppearances')}
           />
           <TextField
             label="Attributes alike in all options of a task, at most"
             inputMode="numeric"
-            value={v.maxOverlap}
             hint="Leave empty for no limit"
-            error={errors.get('balance.maxOverlap')}
-            onChange={(e) => onChange({ maxOverlap: e.target.value })}
+            {...text('maxOverlap', 'balance.maxOverlap')}
           />
         </div>
         <Switch

@@ -13,6 +13,7 @@ import {
 import { PriorsTable } from './priors-table';
 import { DesignRulesFields } from './design-rules-fields';
 import { searchCriteria } from '../utils/criterion-names';
+import { designTextField, type DesignTextKey } from '../utils/design-text-field';
 
 type Props = {
   definition: StudyDefinition;
@@ -50,6 +51,8 @@ export function DesignSpecForm({
   const [errors, setErrors] = useState<Map<string, string>>(new Map());
   const shown = errors.size > 0 ? errors : serverErrors;
   const set = (patch: Partial<DesignFormValues>) => setV((old) => ({ ...old, ...patch }));
+  const text = (key: DesignTextKey, specPath?: string) =>
+    designTextField({ values: v, errors: shown, onChange: set }, key, specPath);
   const submit = () => {
     const built = buildDesignSpec(v, columns);
     if (!built.ok) return setErrors(built.errors);
@@ -84,34 +87,18 @@ export function DesignSpecForm({
             <TextField
               label="Tasks"
               inputMode="numeric"
-              value={v.tasks}
               hint={v.method === 'full_factorial' ? 'Leave empty for all' : undefined}
-              error={shown.get('tasks')}
-              onChange={(e) => set({ tasks: e.target.value })}
+              {...text('tasks')}
             />
-            <TextField
-              label="Blocks"
-              inputMode="numeric"
-              value={v.blocks}
-              error={shown.get('blocks')}
-              onChange={(e) => set({ blocks: e.target.value })}
-            />
+            <TextField label="Blocks" inputMode="numeric" {...text('blocks')} />
             {efficient && (
-              <TextField
-                label="Random starts"
-                inputMode="numeric"
-                value={v.starts}
-                error={shown.get('starts')}
-                onChange={(e) => set({ starts: e.target.value })}
-              />
+              <TextField label="Random starts" inputMode="numeric" {...text('starts')} />
             )}
             <TextField
               label="Seed"
               inputMode="numeric"
-              value={v.seed}
               hint="Same seed, same design"
-              error={shown.get('seed')}
-              onChange={(e) => set({ seed: e.target.value })}
+              {...text('seed')}
             />
           </div>
           {efficient && (
@@ -132,9 +119,7 @@ export function DesignSpecForm({
                   <TextField
                     label="Prior draws"
                     inputMode="numeric"
-                    value={v.draws}
-                    error={shown.get('priors.draws')}
-                    onChange={(e) => set({ draws: e.target.value })}
+                    {...text('draws', 'priors.draws')}
                   />
                 )}
               </div>
@@ -156,10 +141,8 @@ export function DesignSpecForm({
                   <TextField
                     label="Target t-value"
                     inputMode="decimal"
-                    value={v.tValue}
                     hint="1.96: significant at 5 %"
-                    error={shown.get('tValue')}
-                    onChange={(e) => set({ tValue: e.target.value })}
+                    {...text('tValue')}
                   />
                 )}
               </div>

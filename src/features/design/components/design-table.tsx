@@ -1,6 +1,7 @@
 import type { Design } from '@shared/schemas/design';
 import type { StudyDefinition } from '@shared/schemas/study-definition';
 import { getLevelLabel } from '@shared/study/level-labels';
+import { DataTable, figureHeading } from '@/components/ui/data-table';
 
 /** The tasks of each block as a compact table: one row per alternative. */
 export function DesignTable({
@@ -21,46 +22,45 @@ export function DesignTable({
   return (
     <div className="space-y-6">
       {blocks.map((tasks, b) => (
-        <div key={b} className="overflow-x-auto">
-          <table className="w-full min-w-max text-sm">
-            <caption className="mb-1 text-left text-sm font-semibold text-ink">
+        <DataTable
+          key={b}
+          look="flush"
+          className="w-full min-w-max text-sm"
+          caption={
+            <>
               Block {b + 1}{' '}
               <span className="font-normal text-ink-muted">({tasks.length} tasks)</span>
-            </caption>
-            <thead>
-              <tr className="border-b border-line text-left text-xs text-ink-muted">
-                <th className="py-1.5 pr-3 text-right font-medium">Task</th>
-                <th className="py-1.5 pr-3 text-right font-medium">Alt.</th>
+            </>
+          }
+          captionClassName="mb-1 text-left text-sm font-semibold text-ink"
+          headCellClassName="py-1.5 pr-3 font-medium"
+          headings={[
+            figureHeading('Task'),
+            figureHeading('Alt.'),
+            ...definition.attributes.map((a) => ({
+              label: a.name,
+              align: 'left' as const,
+              key: a.id,
+            })),
+          ]}
+        >
+          {tasks.map((t) =>
+            t.alternatives.map((alt, j) => (
+              <tr
+                key={`${t.task}-${j}`}
+                className={j === t.alternatives.length - 1 ? 'border-b border-line' : ''}
+              >
+                <td className="num py-1 pr-3 text-ink-muted">{j === 0 ? t.task : ''}</td>
+                <td className="num py-1 pr-3">{j + 1}</td>
                 {definition.attributes.map((a) => (
-                  <th key={a.id} className="py-1.5 pr-3 font-medium">
-                    {a.name}
-                  </th>
+                  <td key={a.id} className={a.kind === 'numeric' ? 'num py-1 pr-3' : 'py-1 pr-3'}>
+                    {levelText(a.id, alt.levels[a.id])}
+                  </td>
                 ))}
               </tr>
-            </thead>
-            <tbody>
-              {tasks.map((t) =>
-                t.alternatives.map((alt, j) => (
-                  <tr
-                    key={`${t.task}-${j}`}
-                    className={j === t.alternatives.length - 1 ? 'border-b border-line' : ''}
-                  >
-                    <td className="num py-1 pr-3 text-ink-muted">{j === 0 ? t.task : ''}</td>
-                    <td className="num py-1 pr-3">{j + 1}</td>
-                    {definition.attributes.map((a) => (
-                      <td
-                        key={a.id}
-                        className={a.kind === 'numeric' ? 'num py-1 pr-3' : 'py-1 pr-3'}
-                      >
-                        {levelText(a.id, alt.levels[a.id])}
-                      </td>
-                    ))}
-                  </tr>
-                )),
-              )}
-            </tbody>
-          </table>
-        </div>
+            )),
+          )}
+        </DataTable>
       ))}
     </div>
   );

@@ -5,6 +5,7 @@
  */
 import type { DesignDiagnostics, DominanceRuleName } from '@shared/schemas/design-diagnostics';
 import { Alert, Card } from '@/components/ui/feedback';
+import { DataTable, figureHeading } from '@/components/ui/data-table';
 
 const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 
@@ -46,29 +47,24 @@ export function RuleReportCard({
       )}
       {report && (
         <div className="space-y-4 text-sm">
-          <table className="w-full text-xs">
-            <caption className="mb-1 text-left text-sm font-medium text-ink">
-              Dominance under the priors’ signs
-            </caption>
-            <thead>
-              <tr className="border-b border-line text-left text-ink-muted">
-                <th className="py-1 pr-2 font-medium">Case</th>
-                <th className="py-1 pr-2 font-medium">Rule</th>
-                <th className="py-1 pr-2 text-right font-medium">Tasks</th>
-                <th className="py-1 text-right font-medium">Options</th>
+          <DataTable
+            wrapperClassName={false}
+            className="w-full text-xs"
+            caption="Dominance under the priors’ signs"
+            captionClassName="mb-1 text-left text-sm font-medium text-ink"
+            headRowClassName="border-b border-line text-left text-ink-muted"
+            headCellClassName="py-1 pr-2 font-medium last:pr-0"
+            headings={['Case', 'Rule', figureHeading('Tasks'), figureHeading('Options')]}
+          >
+            {dominance?.map((r) => (
+              <tr key={r.rule} className="border-b border-line/60">
+                <td className="py-1 pr-2">{dominanceLabel(r.rule, fixedName)}</td>
+                <td className="py-1 pr-2 text-ink-soft">{ruleState(r.active, r.applies)}</td>
+                <td className="num py-1 pr-2 text-right">{r.applies ? r.tasks : '—'}</td>
+                <td className="num py-1 text-right">{r.applies ? r.alternatives : '—'}</td>
               </tr>
-            </thead>
-            <tbody>
-              {dominance?.map((r) => (
-                <tr key={r.rule} className="border-b border-line/60">
-                  <td className="py-1 pr-2">{dominanceLabel(r.rule, fixedName)}</td>
-                  <td className="py-1 pr-2 text-ink-soft">{ruleState(r.active, r.applies)}</td>
-                  <td className="num py-1 pr-2 text-right">{r.applies ? r.tasks : '—'}</td>
-                  <td className="num py-1 text-right">{r.applies ? r.alternatives : '—'}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
+            ))}
+          </DataTable>
           {!report.dominanceKnown && (
             <p className="text-xs text-ink-muted">
               No prior has a known sign, so dominance cannot be judged. Give priors to screen it.

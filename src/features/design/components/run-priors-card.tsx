@@ -5,6 +5,7 @@ import { Card } from '@/components/ui/feedback';
 import { ErrorText } from '@/components/ui/error-boundary';
 import { ApiError } from '@/lib/api-client';
 import { formatSignificant } from '@/utils/format';
+import { DataTable, figureHeading } from '@/components/ui/data-table';
 
 export type PriorRunOption = { id: string; name: string; model: 'mnl' | 'mixed' };
 
@@ -71,33 +72,26 @@ export function RunPriorsCard(p: Props) {
       {p.loading && <p className="mt-3 text-sm text-ink-muted">Reading the run…</p>}
       {p.priors && (
         <div className="mt-4 space-y-3">
-          <div className="overflow-x-auto">
-            <table className="w-full text-sm" aria-label="Priors from the run">
-              <thead>
-                <tr className="border-b border-line text-left text-xs text-ink-muted">
-                  <th className="py-2 pr-3 font-medium">Coded column</th>
-                  <th className="py-2 pr-3 text-right font-medium">Mean</th>
-                  <th className="py-2 text-right font-medium">SD</th>
-                </tr>
-              </thead>
-              <tbody>
-                {p.priors.columns.map((c) => (
-                  <tr key={c.key} className="border-b border-line/60">
-                    <td className="py-1.5 pr-3 text-ink-soft">{c.name}</td>
-                    <td className="num py-1.5 pr-3 text-right">{formatSignificant(c.mean, 3)}</td>
-                    <td className="num py-1.5 text-right">
-                      {formatSignificant(c.sd, 3)}
-                      {p.spread === 'population' && c.spreadFrom === 'se' && (
-                        <span className="ml-1 text-xs text-ink-muted" title="Fixed coefficient">
-                          (SE)
-                        </span>
-                      )}
-                    </td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </div>
+          <DataTable
+            look="flush"
+            label="Priors from the run"
+            headings={['Coded column', figureHeading('Mean'), figureHeading('SD')]}
+          >
+            {p.priors.columns.map((c) => (
+              <tr key={c.key} className="border-b border-line/60">
+                <td className="py-1.5 pr-3 text-ink-soft">{c.name}</td>
+                <td className="num py-1.5 pr-3 text-right">{formatSignificant(c.mean, 3)}</td>
+                <td className="num py-1.5 text-right">
+                  {formatSignificant(c.sd, 3)}
+                  {p.spread === 'population' && c.spreadFrom === 'se' && (
+                    <span className="ml-1 text-xs text-ink-muted" title="Fixed coefficient">
+                      (SE)
+                    </span>
+                  )}
+                </td>
+              </tr>
+            ))}
+          </DataTable>
           <Button type="button" variant="secondary" onClick={() => p.onUse(p.priors!)}>
             Use these priors in the design settings
           </Button>

@@ -1,7 +1,7 @@
 import type { InviteeCsvPreview } from '@shared/schemas/invitees';
 import { Alert } from '@/components/ui/feedback';
-import { ProblemTable } from '@/components/ui/problem-table';
-import { HeaderCells } from '@/components/ui/header-cells';
+import { RowProblemTable } from '@/components/ui/problem-table';
+import { DataTable } from '@/components/ui/data-table';
 
 const fieldLabels: Record<string, string> = {
   email: 'e-mail',
@@ -37,18 +37,7 @@ export function CsvPreview({ preview }: { preview: InviteeCsvPreview }) {
       {preview.errors.length > 0 && (
         <div>
           <h4 className="mb-1 text-sm font-semibold text-danger">Problems</h4>
-          <ProblemTable
-            label="Problems in the list"
-            columns={[
-              { header: 'Row', numeric: true },
-              { header: 'Column' },
-              { header: 'Problem' },
-            ]}
-            rows={preview.errors.map((e, i) => ({
-              key: `${e.row}-${e.column}-${i}`,
-              cells: [e.row, e.column ?? '—', e.message],
-            }))}
-          />
+          <RowProblemTable label="Problems in the list" problems={preview.errors} />
           {preview.errorCount > preview.errors.length && (
             <p className="mt-1 text-xs text-ink-muted">Only the first problems are listed.</p>
           )}
@@ -57,28 +46,22 @@ export function CsvPreview({ preview }: { preview: InviteeCsvPreview }) {
       {preview.sample.length > 0 && (
         <div>
           <h4 className="mb-1 text-sm font-semibold text-ink">First valid rows</h4>
-          <div className="overflow-x-auto rounded-md border border-line">
-            <table className="w-full min-w-[28rem] text-sm">
-              <thead className="bg-canvas text-xs text-ink-soft">
-                <tr>
-                  <HeaderCells
-                    className="px-2 py-1.5 font-medium"
-                    headings={[{ label: 'Row', align: 'right' }, 'E-mail', 'Name', 'External id']}
-                  />
-                </tr>
-              </thead>
-              <tbody>
-                {preview.sample.slice(0, 5).map((r) => (
-                  <tr key={r.row} className="border-t border-line/60">
-                    <td className="num px-2 py-1">{r.row}</td>
-                    <td className="px-2 py-1">{r.email}</td>
-                    <td className="px-2 py-1">{r.name || '—'}</td>
-                    <td className="px-2 py-1 font-mono text-xs">{r.externalId ?? '—'}</td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </div>
+          <DataTable
+            look="framed"
+            className="w-full min-w-[28rem] text-sm"
+            label="First valid rows"
+            headCellClassName="px-2 py-1.5 font-medium"
+            headings={[{ label: 'Row', align: 'right' }, 'E-mail', 'Name', 'External id']}
+          >
+            {preview.sample.slice(0, 5).map((r) => (
+              <tr key={r.row} className="border-t border-line/60">
+                <td className="num px-2 py-1">{r.row}</td>
+                <td className="px-2 py-1">{r.email}</td>
+                <td className="px-2 py-1">{r.name || '—'}</td>
+                <td className="px-2 py-1 font-mono text-xs">{r.externalId ?? '—'}</td>
+              </tr>
+            ))}
+          </DataTable>
         </div>
       )}
       {preview.validCount === 0 && preview.errors.length === 0 && (

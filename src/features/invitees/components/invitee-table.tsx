@@ -11,8 +11,9 @@ import { useInvitees } from '../api/list-invitees';
 import { useDeleteInvitee } from '../api/delete-invitee';
 import { MailStatus } from './mail-status';
 import { InviteeStateBadge, inviteeStateOptions } from './invitee-state-badge';
-import { HeaderCells } from '@/components/ui/header-cells';
 import { formatDate } from '@/utils/format';
+import { DataTable } from '@/components/ui/data-table';
+import { Options } from '@/components/ui/options';
 
 const PAGE_SIZE = 25;
 
@@ -52,11 +53,7 @@ export function InviteeTable({
           }}
         >
           <option value="">Everybody</option>
-          {inviteeStateOptions.map((o) => (
-            <option key={o.value} value={o.value}>
-              {o.label}
-            </option>
-          ))}
+          <Options items={inviteeStateOptions} />
         </SelectField>
         <TextField
           label="Search"
@@ -77,70 +74,60 @@ export function InviteeTable({
         </p>
       )}
       {list.data && list.data.total > 0 && (
-        // relative: the header's visually hidden label is absolutely positioned, and only a
-        // positioned scroll box clips it; otherwise that label alone widens a phone's page.
-        <div className="relative overflow-x-auto rounded-md border border-line">
-          <table className="w-full min-w-[40rem] text-sm">
-            <caption className="sr-only">Invitees</caption>
-            <thead className="bg-canvas text-xs text-ink-soft">
-              <tr>
-                <HeaderCells
-                  className="px-3 py-2 font-medium"
-                  headings={[
-                    'E-mail',
-                    'Name',
-                    'External id',
-                    'State',
-                    'Mail',
-                    { label: 'Invited', align: 'right' },
-                    { label: 'Reminders', align: 'right' },
-                  ]}
-                />
-                {canManage && (
-                  <th scope="col" className="px-3 py-2">
-                    <span className="sr-only">Actions</span>
-                  </th>
-                )}
-              </tr>
-            </thead>
-            <tbody>
-              {list.data.items.map((i) => (
-                <tr key={i.id} className="border-t border-line/60">
-                  <td className="px-3 py-1.5">{i.email}</td>
-                  <td className="px-3 py-1.5">{i.name || '—'}</td>
-                  <td className="px-3 py-1.5 font-mono text-xs">{i.externalId ?? '—'}</td>
-                  <td className="px-3 py-1.5">
-                    <InviteeStateBadge state={i.state} />
-                  </td>
-                  <td className="max-w-64 px-3 py-1.5">
-                    <MailStatus mail={i.mail} />
-                  </td>
-                  <td className="num px-3 py-1.5">{formatDate(i.invitedAt)}</td>
-                  <td className="num px-3 py-1.5">{i.reminderCount}</td>
-                  {canManage && (
-                    <td className="px-3 py-1 text-right">
-                      <Button
-                        size="sm"
-                        variant="ghost"
-                        aria-label={`Remove ${i.email} from the list`}
-                        onClick={() =>
-                          void confirm({
-                            title: `Remove ${i.email}?`,
-                            body: 'They leave the invitation list and get no further invitations or reminders.',
-                            confirmLabel: 'Remove',
-                            danger: true,
-                          }).then((ok) => ok && remove.mutate(i.id))
-                        }
-                      >
-                        Remove
-                      </Button>
-                    </td>
-                  )}
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+        <DataTable
+          look="framed"
+          className="w-full min-w-[40rem] text-sm"
+          caption="Invitees"
+          headings={[
+            'E-mail',
+            'Name',
+            'External id',
+            'State',
+            'Mail',
+            { label: 'Invited', align: 'right' },
+            { label: 'Reminders', align: 'right' },
+            canManage && {
+              label: <span className="sr-only">Actions</span>,
+              align: 'left',
+              key: 'actions',
+            },
+          ]}
+        >
+          {list.data.items.map((i) => (
+            <tr key={i.id} className="border-t border-line/60">
+              <td className="px-3 py-1.5">{i.email}</td>
+              <td className="px-3 py-1.5">{i.name || '—'}</td>
+              <td className="px-3 py-1.5 font-mono text-xs">{i.externalId ?? '—'}</td>
+              <td className="px-3 py-1.5">
+                <InviteeStateBadge state={i.state} />
+              </td>
+              <td className="max-w-64 px-3 py-1.5">
+                <MailStatus mail={i.mail} />
+              </td>
+              <td className="num px-3 py-1.5">{formatDate(i.invitedAt)}</td>
+              <td className="num px-3 py-1.5">{i.reminderCount}</td>
+              {canManage && (
+                <td className="px-3 py-1 text-right">
+                  <Button
+                    size="sm"
+                    variant="ghost"
+                    aria-label={`Remove ${i.email} from the list`}
+                    onClick={() =>
+                      void confirm({
+                        title: `Remove ${i.email}?`,
+                        body: 'They leave the invitation list and get no further invitations or reminders.',
+                        confirmLabel: 'Remove',
+                        danger: true,
+                      }).then((ok) => ok && remove.mutate(i.id))
+                    }
+                  >
+                    Remove
+                  </Button>
+                </td>
+              )}
+            </tr>
+          ))}
+        </DataTable>
       )}
       {list.data && pages > 1 && (
         <Pagination label="Invitee pages" page={page} pages={pages} onPage={setPage}>

@@ -19,6 +19,7 @@ import type { SendResult } from '@shared/schemas/invitees';
 import { MailPreview } from './mail-preview';
 import { useSendInvitations } from '../api/send-invitations';
 import { useSendReminders } from '../api/send-reminders';
+import { formField } from '@/components/ui/form-field';
 
 const wordingSchema = z.object({
   subject: z
@@ -115,7 +116,6 @@ export function SendPanel({
         },
       });
     });
-  const { errors } = form.formState;
   const wording = form.watch();
 
   return (
@@ -138,14 +138,12 @@ export function SendPanel({
           <TextField
             label="Subject"
             placeholder="Invitation: <study name>"
-            error={errors.subject?.message}
-            {...form.register('subject')}
+            {...formField(form, 'subject')}
           />
           <TextAreaField
             label="Message"
             hint="Placeholders: {name} (the invitee's name), {study} (the title respondents see), {duration} (as the consent page states it). The personal link and the unsubscribe link are added below your message."
-            error={errors.message?.message}
-            {...form.register('message')}
+            {...formField(form, 'message')}
           />
           <MailPreview
             studyTitle={studyTitle}

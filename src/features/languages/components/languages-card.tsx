@@ -10,6 +10,7 @@ import { applyFieldErrors, ApiError } from '@/lib/api-client';
 import { languageName } from '@shared/languages/language-tags';
 import { languageTagSchema, type StudyTextsView } from '@shared/schemas/study-texts';
 import { useUpdateLanguages } from '../api/update-languages';
+import { formField } from '@/components/ui/form-field';
 
 const addSchema = z.object({ tag: languageTagSchema });
 type AddInput = z.input<typeof addSchema>;
@@ -107,8 +108,7 @@ export function LanguagesCard({ teamId, studyId, view, canEdit, selected, onSele
             hint="A language tag (BCP 47), such as de, fr-CA, pt-BR or ar."
             wrapperClassName="min-w-0 flex-1"
             autoComplete="off"
-            error={form.formState.errors.tag?.message}
-            {...form.register('tag')}
+            {...formField(form, 'tag')}
           />
           <Button type="submit" busy={update.isPending} className="mb-5">
             Add

@@ -7,6 +7,7 @@ import { Alert } from '@/components/ui/feedback';
 import { applyFieldErrors } from '@/lib/api-client';
 import type { FieldworkSettings } from '@shared/schemas/study-lifecycle';
 import { useUpdateSettings } from '../api/update-settings';
+import { formField } from '@/components/ui/form-field';
 
 /** The form works on text inputs; empty means "none". The server checks the parsed values again. */
 const formSchema = z.object({
@@ -39,6 +40,13 @@ const toLocalInput = (iso: string | null) => {
 };
 const orNull = (s: string) => (s.trim() === '' ? null : s.trim());
 
+/** Where a panel respondent is sent back to at each way out of the survey. */
+const redirects = [
+  { name: 'complete', when: 'complete', page: 'complete' },
+  { name: 'screenedOut', when: 'screened out', page: 'screened' },
+  { name: 'overQuota', when: 'over quota', page: 'full' },
+] as const;
+
 export function SettingsForm({
   teamId,
   studyId,
@@ -66,7 +74,6 @@ export function SettingsForm({
       mailReplyTo: settings.mailReplyTo ?? '',
     },
   });
-  const { errors } = form.formState;
   const submit = form.handleSubmit((v) =>
     update.mutate(
       {
@@ -97,22 +104,19 @@ export function SettingsForm({
         <TextField
           label="Close automatically at"
           type="datetime-local"
-          error={errors.closeAt?.message}
           hint="Local time. Leave empty to close by hand."
-          {...form.register('closeAt')}
+          {...formField(form, 'closeAt')}
         />
         <TextField
           label="Close at this many completes"
           inputMode="numeric"
-          error={errors.quotaCompletes?.message}
           hint="Leave empty for no quota."
-          {...form.register('quotaCompletes')}
+          {...formField(form, 'quotaCompletes')}
         />
         <TextField
           label="Panel id parameter"
-          error={errors.panelParam?.message}
           hint="Stored as the respondent's external id, e.g. ?pid=123."
-          {...form.register('panelParam')}
+          {...formField(form, 'panelParam')}
         />
         <label className="flex items-start gap-2 text-sm">
           <input
@@ -130,43 +134,34 @@ export function SettingsForm({
         <TextField
           label="Accept answers given before the close for (hours)"
           inputMode="numeric"
-          error={errors.lateAnswerGraceHours?.message}
           hint="Phones that were offline send their answers later. 0 refuses every answer after the close."
-          {...form.register('lateAnswerGraceHours')}
+          {...formField(form, 'lateAnswerGraceHours')}
         />
-        <TextField
-          label="Redirect when complete"
-          placeholder="https://panel.example/complete?id={pid}"
-          error={errors.complete?.message}
-          {...form.register('complete')}
-        />
-        <TextField
-          label="Redirect when screened out"
-          placeholder="https://panel.example/screened?id={pid}"
-          error={errors.screenedOut?.message}
-          {...form.register('screenedOut')}
-        />
-        <TextField
-          label="Redirect when over quota"
-          placeholder="https://panel.example/full?id={pid}"
-          error={errors.overQuota?.message}
-          hint="{pid} is replaced by the respondent's panel id."
-          {...form.register('overQuota')}
-        />
+        {redirects.map((r, i) => (
+          <TextField
+            key={r.name}
+            label={`Redirect when ${r.when}`}
+            placeholder={`https://panel.example/${r.page}?id={pid}`}
+            hint={
+              i === redirects.length - 1
+                ? "{pid} is replaced by the respondent's panel id."
+                : undefined
+            }
+            {...formField(form, r.name)}
+          />
+        ))}
         <TextField
           label="Invitation e-mails come from"
           placeholder="Larkspur customer research"
-          error={errors.mailSenderName?.message}
           hint="The sender name invitees see. Leave empty for the product's own."
-          {...form.register('mailSenderName')}
+          {...formField(form, 'mailSenderName')}
         />
         <TextField
           label="Replies to invitations go to"
           type="email"
           placeholder="research@your-organisation.example"
-          error={errors.mailReplyTo?.message}
           hint="Leave empty if replies should not reach the team."
-          {...form.register('mailReplyTo')}
+          {...formField(form, 'mailReplyTo')}
         />
       </fieldset>
       {update.error && !applyFieldErrors(update.error, () => {}) && (

@@ -24,6 +24,7 @@ import { NavigationOptions } from './navigation-options';
 import { RandomisationOptions } from './randomisation-options';
 import { PageForm } from './page-form';
 import { PageList } from './page-list';
+import { Options } from '@/components/ui/options';
 
 const addable: PageKind[] = [
   'screening',
@@ -125,17 +126,14 @@ export function QuestionnaireEditor({
                 value={addKind}
                 onChange={(e) => setAddKind(e.target.value as AddChoice)}
               >
-                {addable.map((k) => (
-                  <option key={k} value={k}>
-                    {pageKindLabels[k]}
-                  </option>
-                ))}
+                <Options items={addable.map((k) => ({ value: k, label: pageKindLabels[k] }))} />
                 <optgroup label="Follow-up templates">
-                  {availableTemplates(definition).map((t) => (
-                    <option key={t} value={`template:${t}`}>
-                      {templateLabels[t]}
-                    </option>
-                  ))}
+                  <Options
+                    items={availableTemplates(definition).map((t) => ({
+                      value: `template:${t}`,
+                      label: templateLabels[t],
+                    }))}
+                  />
                 </optgroup>
               </SelectField>
               <Button

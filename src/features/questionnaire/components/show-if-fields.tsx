@@ -6,6 +6,7 @@ import { CheckboxField } from '@/components/ui/checkbox-field';
 import { SelectField, TextField } from '@/components/ui/field';
 import type { Question, ShowIf } from '@shared/schemas/questionnaire';
 import { OptionCheckboxes } from './option-checkboxes';
+import { Options } from '@/components/ui/options';
 
 const numberOrNull = (v: string) =>
   v.trim() === '' || !Number.isFinite(Number(v)) ? null : Number(v);
@@ -52,11 +53,7 @@ export function ShowIfFields({
             }}
           >
             {!source && <option value={showIf.questionKey}>{showIf.questionKey} (missing)</option>}
-            {earlier.map((q) => (
-              <option key={q.key} value={q.key}>
-                {q.text}
-              </option>
-            ))}
+            <Options items={earlier.map((q) => ({ value: q.key, label: q.text }))} />
           </SelectField>
           {source && (source.type === 'single' || source.type === 'multiple') && (
             <div className="space-y-1" role="group" aria-label="is one of">

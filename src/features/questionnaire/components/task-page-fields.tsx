@@ -2,6 +2,7 @@ import { SelectField } from '@/components/ui/field';
 import type { QuestionnairePage } from '@shared/schemas/questionnaire';
 import type { Attribute, StudyDefinition } from '@shared/schemas/study-definition';
 import { getLevelLabel } from '@shared/study/level-labels';
+import { Options } from '@/components/ui/options';
 
 type HandSetTaskPage = Extract<QuestionnairePage, { kind: 'warmup' | 'holdout' }>;
 type DominancePage = Extract<QuestionnairePage, { kind: 'dominance' }>;
@@ -21,11 +22,9 @@ function LevelSelect({
   return (
     <SelectField label={label} value={value ?? ''} onChange={(e) => onChange(e.target.value)}>
       <option value="">Choose a level</option>
-      {attribute.levels.map((l) => (
-        <option key={l.id} value={l.id}>
-          {getLevelLabel(attribute, l)}
-        </option>
-      ))}
+      <Options
+        items={attribute.levels.map((l) => ({ value: l.id, label: getLevelLabel(attribute, l) }))}
+      />
     </SelectField>
   );
 }

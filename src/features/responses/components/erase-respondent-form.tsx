@@ -21,6 +21,8 @@ import { useConfirm } from '@/components/ui/confirm-dialog';
 import { applyFieldErrors } from '@/lib/api-client';
 import { useEraseRespondent, usePreviewErasure } from '../api/erase-respondent';
 import { statusLabels } from '../utils/labels';
+import { formField } from '@/components/ui/form-field';
+import { Options } from '@/components/ui/options';
 
 const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 
@@ -120,23 +122,16 @@ export function EraseRespondentForm({ teamId, studyId }: { teamId: string; study
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
       <div className="grid gap-3 sm:grid-cols-[minmax(0,14rem)_minmax(0,1fr)_auto] sm:items-end">
-        <SelectField
-          label="Find by"
-          error={errors.by?.message}
-          {...form.register('by', { onChange: forgetPreview })}
-        >
-          {erasureLookupKinds.map((k) => (
-            <option key={k} value={k}>
-              {erasureLookupLabels[k]}
-            </option>
-          ))}
+        <SelectField label="Find by" {...formField(form, 'by', { onChange: forgetPreview })}>
+          <Options
+            items={erasureLookupKinds.map((k) => ({ value: k, label: erasureLookupLabels[k] }))}
+          />
         </SelectField>
         <TextField
           label={erasureLookupLabels[by]}
           inputMode={by === 'number' ? 'numeric' : by === 'email' ? 'email' : 'text'}
           autoComplete="off"
-          error={errors.value?.message}
-          {...form.register('value', { onChange: forgetPreview })}
+          {...formField(form, 'value', { onChange: forgetPreview })}
         />
         <Button type="button" variant="secondary" busy={preview.isPending} onClick={find}>
           Find
@@ -152,8 +147,7 @@ export function EraseRespondentForm({ teamId, studyId }: { teamId: string; study
             hint="A request reference, not the person's name or address: the audit trail keeps this text."
             placeholder="e.g. Data-protection request DP-2026-014"
             rows={2}
-            error={errors.reason?.message}
-            {...form.register('reason')}
+            {...formField(form, 'reason')}
           />
           <div className="flex flex-wrap items-center gap-3">
             <Button type="submit" variant="danger" busy={erase.isPending}>

@@ -13,6 +13,7 @@ import { Alert } from '@/components/ui/feedback';
 import { TextField } from '@/components/ui/field';
 import { ErrorText } from '@/components/ui/error-boundary';
 import { useExcludeFlagged } from '../api/exclude-flagged';
+import { formField } from '@/components/ui/form-field';
 
 export function ExcludeFlaggedForm({
   teamId,
@@ -57,8 +58,7 @@ export function ExcludeFlaggedForm({
       <TextField
         label="Reason (kept with each exclusion)"
         placeholder="e.g. Analysis plan §5: speeders and same-position answers"
-        error={errors.reason?.message}
-        {...form.register('reason')}
+        {...formField(form, 'reason')}
       />
       <div className="flex flex-wrap items-center gap-3">
         <Button type="submit" variant="danger" busy={exclude.isPending}>

@@ -10,6 +10,7 @@ import { TextField } from '@/components/ui/field';
 import { ErrorText } from '@/components/ui/error-boundary';
 import { applyFieldErrors } from '@/lib/api-client';
 import { useUpdateQualitySettings } from '../api/update-quality-settings';
+import { formField } from '@/components/ui/form-field';
 
 /** The speeder threshold as a fraction of the median completion time. */
 export function QualitySettingsForm({
@@ -41,8 +42,7 @@ export function QualitySettingsForm({
         max="0.9"
         wrapperClassName="w-full sm:w-80"
         className="font-mono"
-        error={form.formState.errors.speederFraction?.message}
-        {...form.register('speederFraction', { valueAsNumber: true })}
+        {...formField(form, 'speederFraction', { valueAsNumber: true })}
       />
       <Button type="submit" variant="secondary" busy={save.isPending}>
         Apply

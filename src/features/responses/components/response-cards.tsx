@@ -7,6 +7,7 @@ import { FlagBadges } from './flag-badges';
 import { InclusionCell } from './inclusion-cell';
 import { formatDate, formatDuration } from '@/utils/format';
 import { statusLabels } from '../utils/labels';
+import { cn } from '@/lib/cn';
 
 export function ResponseCards({ teamId, studyId, list, canManage }: ResponseListViewProps) {
   return (
@@ -14,11 +15,7 @@ export function ResponseCards({ teamId, studyId, list, canManage }: ResponseList
       {list.items.map((r) => (
         <li
           key={r.id}
-          className={
-            r.included
-              ? 'rounded-lg border border-line bg-white p-3'
-              : 'rounded-lg border border-line bg-canvas p-3'
-          }
+          className={cn('rounded-lg border border-line p-3', r.included ? 'bg-white' : 'bg-canvas')}
         >
           <div className="flex items-baseline justify-between gap-2">
             <span className="font-mono text-xs text-ink-soft">{r.id.slice(0, 8)}</span>

@@ -7,6 +7,7 @@ import type { RunResult } from '@shared/schemas/run';
 import { Badge } from '@/components/ui/badge';
 import { describeConvergence } from '../utils/convergence';
 import { formatNumber } from '@/utils/format';
+import { DataTable, figureHeading } from '@/components/ui/data-table';
 
 const exp = (x: number | null | undefined) =>
   x === null || x === undefined || !Number.isFinite(x) ? '—' : x.toExponential(2);
@@ -61,34 +62,22 @@ export function ConvergencePanel({ results }: { results: RunResult }) {
           <summary className="cursor-pointer font-medium text-primary">
             Gradient at the estimate
           </summary>
-          <div className="mt-2 overflow-x-auto">
-            <table className="w-full text-sm">
-              <caption className="sr-only">Gradient of the log-likelihood at the estimate</caption>
-              <thead>
-                <tr className="border-b border-line text-xs text-ink-soft">
-                  <th scope="col" className="px-2 py-1 text-left font-medium">
-                    Parameter
+          <div className="mt-2">
+            <DataTable
+              caption="Gradient of the log-likelihood at the estimate"
+              headCellClassName="px-2 py-1 font-medium"
+              headings={['Parameter', figureHeading('∂LL/∂θ'), figureHeading('Relative')]}
+            >
+              {d.gradient.map((g) => (
+                <tr key={g.name} className="border-b border-line/60 last:border-b-0">
+                  <th scope="row" className="px-2 py-1 text-left font-mono text-xs font-normal">
+                    {g.name}
                   </th>
-                  <th scope="col" className="px-2 py-1 text-right font-medium">
-                    ∂LL/∂θ
-                  </th>
-                  <th scope="col" className="px-2 py-1 text-right font-medium">
-                    Relative
-                  </th>
+                  <td className="num px-2 py-1">{exp(g.value)}</td>
+                  <td className="num px-2 py-1">{exp(g.relative)}</td>
                 </tr>
-              </thead>
-              <tbody>
-                {d.gradient.map((g) => (
-                  <tr key={g.name} className="border-b border-line/60 last:border-b-0">
-                    <th scope="row" className="px-2 py-1 text-left font-mono text-xs font-normal">
-                      {g.name}
-                    </th>
-                    <td className="num px-2 py-1">{exp(g.value)}</td>
-                    <td className="num px-2 py-1">{exp(g.relative)}</td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
+              ))}
+            </DataTable>
             <p className="mt-1 text-xs text-ink-muted">
               Relative gradient: |∂LL/∂θ|·max(|θ|, 1)/max(|LL|, 1) on internally rescaled
               parameters, so it does not depend on the units of the data. Final log-likelihood{' '}

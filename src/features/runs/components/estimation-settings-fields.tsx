@@ -2,17 +2,15 @@
  * The run form's estimation settings: preference or WTP space, which covariance the intervals
  * use, convergence tolerances, the iteration limit and the simulation-noise check.
  */
-import type { FieldErrors, UseFormRegister } from 'react-hook-form';
 import { SelectField, TextField } from '@/components/ui/field';
 import type { RunFormValues } from '../utils/run-form-values';
+import { formField, formNumberField, type BoundForm } from '@/components/ui/form-field';
 
 export function EstimationSettingsFields({
-  register,
-  errors,
+  form,
   mixed,
 }: {
-  register: UseFormRegister<RunFormValues>;
-  errors: FieldErrors<RunFormValues>;
+  form: BoundForm<RunFormValues>;
   mixed: boolean;
 }) {
   return (
@@ -22,17 +20,12 @@ export function EstimationSettingsFields({
         <SelectField
           label="Space"
           hint="WTP space needs a cost column (fixed or lognormal)"
-          error={errors.space?.message}
-          {...register('space')}
+          {...formField(form, 'space')}
         >
           <option value="preference">Preference space</option>
           <option value="wtp">WTP space (Train &amp; Weeks)</option>
         </SelectField>
-        <SelectField
-          label="Covariance for intervals"
-          error={errors.covariance?.message}
-          {...register('covariance')}
-        >
+        <SelectField label="Covariance for intervals" {...formField(form, 'covariance')}>
           <option value="robust">Robust, clustered by respondent</option>
           <option value="classical">Classical (inverse Hessian)</option>
           <option value="bhhh">BHHH (outer product, no Hessian)</option>
@@ -42,30 +35,23 @@ export function EstimationSettingsFields({
           type="number"
           inputMode="numeric"
           hint={mixed ? 'Empty: 300' : 'Empty: 100'}
-          error={errors.maxIterations?.message}
-          {...register('maxIterations')}
+          {...formField(form, 'maxIterations')}
         />
         <TextField
           label="Newton decrement tolerance"
-          type="number"
-          step="any"
           hint="g′A⁻¹g at convergence"
-          error={errors.tolerance?.message}
-          {...register('tolerance', { valueAsNumber: true })}
+          {...formNumberField(form, 'tolerance', 'decimal')}
         />
         <TextField
           label="Relative gradient tolerance"
-          type="number"
-          step="any"
-          error={errors.gradientTolerance?.message}
-          {...register('gradientTolerance', { valueAsNumber: true })}
+          {...formNumberField(form, 'gradientTolerance', 'decimal')}
         />
         {mixed && (
           <label className="flex items-center gap-2 self-end pb-2 text-sm text-ink">
             <input
               type="checkbox"
               className="size-4 accent-primary"
-              {...register('simulationCheck')}
+              {...form.register('simulationCheck')}
             />
             Check simulation noise (3 more draw seeds)
           </label>

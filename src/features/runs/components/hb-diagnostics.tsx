@@ -9,6 +9,8 @@ import { Alert } from '@/components/ui/feedback';
 import { SelectField } from '@/components/ui/field';
 import { formatNumber, formatPercent } from '@/utils/format';
 import { TraceChart } from './trace-chart';
+import { DataTable, figureHeading } from '@/components/ui/data-table';
+import { Options } from '@/components/ui/options';
 
 /** ESS below this is too few draws to trust a posterior mean (common practice, no source). */
 const ESS_LOW = 400;
@@ -41,71 +43,61 @@ export function HbDiagnostics({ results }: { results: RunResult }) {
 
 function RhatTable({ d, label }: { d: Diagnostics; label: Map<string, string> }) {
   return (
-    <div className="overflow-x-auto">
-      <table className="w-full min-w-[18rem] text-sm">
-        <caption className="sr-only">Split R-hat and effective sample size per parameter</caption>
-        <thead>
-          <tr className="border-b border-line text-left text-xs text-ink-muted">
-            <th className="px-2 py-1.5 font-medium">Parameter</th>
-            <th className="num px-2 py-1.5 font-medium">Split R-hat</th>
-            <th className="num px-2 py-1.5 font-medium">ESS</th>
+    <DataTable
+      className="w-full min-w-[18rem] text-sm"
+      caption="Split R-hat and effective sample size per parameter"
+      headings={['Parameter', figureHeading('Split R-hat'), figureHeading('ESS')]}
+    >
+      {d.parameters.map((p) => {
+        const [coef, ...rest] = p.name.split('.');
+        const part = rest.join('.') === 'variance' ? 'variance' : 'mean';
+        const high = p.rhat !== null && p.rhat > d.rhatLimit;
+        const few = p.ess !== null && p.ess < ESS_LOW;
+        return (
+          <tr key={p.name} className="border-b border-line/60">
+            <td className="px-2 py-1.5">
+              {label.get(coef) ?? coef} <span className="text-xs text-ink-muted">{part}</span>
+            </td>
+            <td className={`num px-2 py-1.5 ${high ? 'font-semibold text-danger' : ''}`}>
+              {formatNumber(p.rhat, 3)}
+              {high && <span className="ml-1 text-xs">above {d.rhatLimit}</span>}
+            </td>
+            <td className={`num px-2 py-1.5 ${few ? 'font-semibold text-danger' : ''}`}>
+              {formatNumber(p.ess, 0)}
+              {few && <span className="ml-1 text-xs">few</span>}
+            </td>
           </tr>
-        </thead>
-        <tbody>
-          {d.parameters.map((p) => {
-            const [coef, ...rest] = p.name.split('.');
-            const part = rest.join('.') === 'variance' ? 'variance' : 'mean';
-            const high = p.rhat !== null && p.rhat > d.rhatLimit;
-            const few = p.ess !== null && p.ess < ESS_LOW;
-            return (
-              <tr key={p.name} className="border-b border-line/60">
-                <td className="px-2 py-1.5">
-                  {label.get(coef) ?? coef} <span className="text-xs text-ink-muted">{part}</span>
-                </td>
-                <td className={`num px-2 py-1.5 ${high ? 'font-semibold text-danger' : ''}`}>
-                  {formatNumber(p.rhat, 3)}
-                  {high && <span className="ml-1 text-xs">above {d.rhatLimit}</span>}
-                </td>
-                <td className={`num px-2 py-1.5 ${few ? 'font-semibold text-danger' : ''}`}>
-                  {formatNumber(p.ess, 0)}
-                  {few && <span className="ml-1 text-xs">few</span>}
-                </td>
-              </tr>
-            );
-          })}
-        </tbody>
-      </table>
-    </div>
+        );
+      })}
+    </DataTable>
   );
 }
 
 function ChainTable({ d }: { d: Diagnostics }) {
   const hasFixed = d.chains.some((c) => c.acceptanceFixed !== null);
   return (
-    <div className="overflow-x-auto">
-      <table className="w-full min-w-[18rem] text-sm">
-        <caption className="sr-only">Acceptance rate per chain</caption>
-        <thead>
-          <tr className="border-b border-line text-left text-xs text-ink-muted">
-            <th className="px-2 py-1.5 font-medium">Chain</th>
-            <th className="num px-2 py-1.5 font-medium">Acceptance, burn-in</th>
-            <th className="num px-2 py-1.5 font-medium">Acceptance, kept</th>
-            {hasFixed && <th className="num px-2 py-1.5 font-medium">Fixed coefficients</th>}
-            <th className="num px-2 py-1.5 font-medium">Proposal scale</th>
+    <div>
+      <DataTable
+        className="w-full min-w-[18rem] text-sm"
+        caption="Acceptance rate per chain"
+        headings={[
+          'Chain',
+          figureHeading('Acceptance, burn-in'),
+          figureHeading('Acceptance, kept'),
+          hasFixed && figureHeading('Fixed coefficients'),
+          figureHeading('Proposal scale'),
+        ]}
+      >
+        {d.chains.map((c) => (
+          <tr key={c.chain} className="border-b border-line/60">
+            <td className="px-2 py-1.5">{c.chain}</td>
+            <td className="num px-2 py-1.5">{formatPercent(c.acceptanceBurnin)}</td>
+            <td className="num px-2 py-1.5">{formatPercent(c.acceptance)}</td>
+            {hasFixed && <td className="num px-2 py-1.5">{formatPercent(c.acceptanceFixed)}</td>}
+            <td className="num px-2 py-1.5">{formatNumber(c.scale, 3)}</td>
           </tr>
-        </thead>
-        <tbody>
-          {d.chains.map((c) => (
-            <tr key={c.chain} className="border-b border-line/60">
-              <td className="px-2 py-1.5">{c.chain}</td>
-              <td className="num px-2 py-1.5">{formatPercent(c.acceptanceBurnin)}</td>
-              <td className="num px-2 py-1.5">{formatPercent(c.acceptance)}</td>
-              {hasFixed && <td className="num px-2 py-1.5">{formatPercent(c.acceptanceFixed)}</td>}
-              <td className="num px-2 py-1.5">{formatNumber(c.scale, 3)}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
+        ))}
+      </DataTable>
       <p className="mt-1 text-xs text-ink-muted">
         The respondent-level proposal adapts during burn-in toward an acceptance of about 30 %, then
         stays fixed.
@@ -142,11 +134,7 @@ function Traces({ d, label }: { d: Diagnostics; label: Map<string, string> }) {
         </SelectField>
         {part !== 'acceptance' && (
           <SelectField label="Coefficient" value={name} onChange={(e) => setName(e.target.value)}>
-            {names.map((n) => (
-              <option key={n} value={n}>
-                {label.get(n) ?? n}
-              </option>
-            ))}
+            <Options items={names.map((n) => ({ value: n, label: label.get(n) ?? n }))} />
           </SelectField>
         )}
       </div>

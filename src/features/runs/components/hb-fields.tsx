@@ -3,18 +3,12 @@
  * per respondent, chains, seed), correlation of the random tastes, and the priors, with a note on how the attributes'
  * coding and scale interact with them.
  */
-import type { FieldErrors, UseFormRegister } from 'react-hook-form';
 import { SelectField, TextField } from '@/components/ui/field';
 import { HB_DEFAULTS_TEXT, type RunFormValues } from '../utils/run-form-values';
+import { CorrelatedTastesField } from './correlated-tastes-field';
+import { formField, formNumberField, type BoundForm } from '@/components/ui/form-field';
 
-export function HbFields({
-  register,
-  errors,
-}: {
-  register: UseFormRegister<RunFormValues>;
-  errors: FieldErrors<RunFormValues>;
-}) {
-  const number = { type: 'number', inputMode: 'numeric' } as const;
+export function HbFields({ form }: { form: BoundForm<RunFormValues> }) {
   return (
     <>
       <fieldset className="grid gap-4 sm:grid-cols-3">
@@ -22,52 +16,28 @@ export function HbFields({
         <TextField
           label="Iterations per chain"
           hint="Burn-in included"
-          error={errors.mcmcIterations?.message}
-          {...number}
-          {...register('mcmcIterations', { valueAsNumber: true })}
+          {...formNumberField(form, 'mcmcIterations')}
         />
         <TextField
           label="Burn-in"
           hint="Empty: half the iterations"
-          error={errors.mcmcBurnin?.message}
-          {...number}
-          {...register('mcmcBurnin')}
+          type="number"
+          inputMode="numeric"
+          {...formField(form, 'mcmcBurnin')}
         />
-        <TextField
-          label="Keep every n-th draw"
-          error={errors.mcmcThin?.message}
-          {...number}
-          {...register('mcmcThin', { valueAsNumber: true })}
-        />
+        <TextField label="Keep every n-th draw" {...formNumberField(form, 'mcmcThin')} />
         <TextField
           label="MH steps per respondent"
           hint="Per iteration; more steps mix the population means better, at a proportional cost"
-          error={errors.mcmcSteps?.message}
-          {...number}
-          {...register('mcmcSteps', { valueAsNumber: true })}
+          {...formNumberField(form, 'mcmcSteps')}
         />
         <TextField
           label="Chains"
           hint="Run in parallel, each with its own seed stream"
-          error={errors.mcmcChains?.message}
-          {...number}
-          {...register('mcmcChains', { valueAsNumber: true })}
+          {...formNumberField(form, 'mcmcChains')}
         />
-        <TextField
-          label="Seed"
-          error={errors.seed?.message}
-          {...number}
-          {...register('seed', { valueAsNumber: true })}
-        />
-        <label className="flex items-center gap-2 self-end pb-2 text-sm text-ink">
-          <input type="checkbox" className="size-4 accent-primary" {...register('correlated')} />
-          Correlated random tastes
-        </label>
-        {errors.correlated?.message && (
-          <p role="alert" className="text-xs font-medium text-danger sm:col-span-3">
-            {errors.correlated.message}
-          </p>
-        )}
+        <TextField label="Seed" {...formNumberField(form, 'seed')} />
+        <CorrelatedTastesField form={form} label="Correlated random tastes" />
         <p className="text-xs text-ink-muted sm:col-span-3">
           Defaults: {HB_DEFAULTS_TEXT}. The population means are drawn from the respondents&apos;
           current tastes, so they move only as fast as those do: one MH step per respondent leaves
@@ -77,22 +47,14 @@ export function HbFields({
       </fieldset>
       <fieldset className="grid gap-4 sm:grid-cols-2">
         <legend className="mb-2 text-sm font-medium text-ink">Priors</legend>
-        <SelectField
-          label="Prior on the covariance Σ"
-          error={errors.priorPreset?.message}
-          {...register('priorPreset')}
-        >
+        <SelectField label="Prior on the covariance Σ" {...formField(form, 'priorPreset')}>
           <option value="rossi">Inverse Wishart IW(K+3, (K+3)·I), Rossi et al. 2005</option>
           <option value="train">Inverse Wishart IW(K, K·I), Train 2009</option>
         </SelectField>
         <TextField
           label="Prior variance of the population means μ"
           hint="μ ~ N(0, variance·I); 100 is diffuse for coefficients of order 1"
-          error={errors.priorMuVariance?.message}
-          type="number"
-          inputMode="decimal"
-          step="any"
-          {...register('priorMuVariance', { valueAsNumber: true })}
+          {...formNumberField(form, 'priorMuVariance', 'decimal')}
         />
         <p className="text-xs text-ink-muted sm:col-span-2">
           The priors act on the coefficients as coded. Dummy- and effects-coded levels are

@@ -4,50 +4,30 @@
  * the seed of the random starts, and the background questions class membership may depend on
  * (single choice and numbers; the coding and the missing-answer rule are stated beside them).
  */
-import type { FieldErrors, UseFormRegister } from 'react-hook-form';
 import { TextField } from '@/components/ui/field';
 import { LATENT_CLASS_MAX, MEMBERSHIP_MAX_OPTIONS } from '@shared/schemas/estimation-families';
 import type { MembershipQuestionOption } from '@shared/schemas/run';
 import type { RunFormValues } from '../utils/run-form-values';
+import { formNumberField, type BoundForm } from '@/components/ui/form-field';
 
 export function LatentClassFields({
-  register,
-  errors,
+  form,
   questions,
 }: {
-  register: UseFormRegister<RunFormValues>;
-  errors: FieldErrors<RunFormValues>;
+  form: BoundForm<RunFormValues>;
   questions: MembershipQuestionOption[];
 }) {
-  const number = { type: 'number', inputMode: 'numeric' } as const;
   return (
     <fieldset className="grid gap-4 sm:grid-cols-4">
       <legend className="mb-2 text-sm font-medium text-ink">Classes</legend>
-      <TextField
-        label="Fewest classes"
-        error={errors.classesMin?.message}
-        {...number}
-        {...register('classesMin', { valueAsNumber: true })}
-      />
+      <TextField label="Fewest classes" {...formNumberField(form, 'classesMin')} />
       <TextField
         label="Most classes"
         hint={`Up to ${LATENT_CLASS_MAX}`}
-        error={errors.classesMax?.message}
-        {...number}
-        {...register('classesMax', { valueAsNumber: true })}
+        {...formNumberField(form, 'classesMax')}
       />
-      <TextField
-        label="EM starts per class count"
-        error={errors.starts?.message}
-        {...number}
-        {...register('starts', { valueAsNumber: true })}
-      />
-      <TextField
-        label="Seed"
-        error={errors.seed?.message}
-        {...number}
-        {...register('seed', { valueAsNumber: true })}
-      />
+      <TextField label="EM starts per class count" {...formNumberField(form, 'starts')} />
+      <TextField label="Seed" {...formNumberField(form, 'seed')} />
       <p className="text-xs text-ink-muted sm:col-span-4">
         Each class count in the range is fitted from every start; the run reports the one with the
         lowest BIC and a table of LL, parameters, AIC, BIC and CAIC so you can choose another. More
@@ -71,7 +51,7 @@ export function LatentClassFields({
                     type="checkbox"
                     value={q.key}
                     className="mt-0.5 size-4 shrink-0 accent-primary"
-                    {...register('membership')}
+                    {...form.register('membership')}
                   />
                   <span className="min-w-0 break-words">
                     {q.text}{' '}
@@ -84,9 +64,9 @@ export function LatentClassFields({
             ))}
           </ul>
         )}
-        {errors.membership?.message && (
+        {form.formState.errors.membership?.message && (
           <p role="alert" className="mt-1 text-xs font-medium text-danger">
-            {errors.membership.message}
+            {form.formState.errors.membership.message}
           </p>
         )}
         <p id="membership-help" className="mt-2 text-xs text-ink-muted">

@@ -5,6 +5,7 @@
  */
 import type { RunResult } from '@shared/schemas/run';
 import { formatNumber, formatPercent } from '@/utils/format';
+import { DataTable, figureHeading } from '@/components/ui/data-table';
 
 type LcClass = NonNullable<RunResult['classes']>[number];
 
@@ -125,43 +126,38 @@ function ClassSelection({
     </td>
   );
   return (
-    <div className="overflow-x-auto">
-      <table className="w-full min-w-[30rem] text-sm">
-        <caption className="sr-only">Fit by number of classes</caption>
-        <thead>
-          <tr className="border-b border-line text-left text-xs text-ink-muted">
-            <th className="px-2 py-1.5 font-medium">Classes</th>
-            <th className="num px-2 py-1.5 font-medium">LL</th>
-            <th className="num px-2 py-1.5 font-medium">Parameters</th>
-            <th className="num px-2 py-1.5 font-medium">AIC</th>
-            <th className="num px-2 py-1.5 font-medium">BIC</th>
-            <th className="num px-2 py-1.5 font-medium">CAIC</th>
-            <th className="num px-2 py-1.5 font-medium">Starts at best LL</th>
+    <div>
+      <DataTable
+        className="w-full min-w-[30rem] text-sm"
+        caption="Fit by number of classes"
+        headings={[
+          'Classes',
+          ...['LL', 'Parameters', 'AIC', 'BIC', 'CAIC', 'Starts at best LL'].map((h) =>
+            figureHeading(h),
+          ),
+        ]}
+      >
+        {rows.map((r) => (
+          <tr
+            key={r.classes}
+            className={`border-b border-line/60 ${r.classes === chosen ? 'bg-primary-soft/60' : ''}`}
+          >
+            <td className="px-2 py-1.5">
+              {r.classes}
+              {r.classes === chosen && <span className="ml-1 text-xs text-ink-muted">shown</span>}
+              {r.reason && <span className="block text-xs text-danger">{r.reason}</span>}
+            </td>
+            <td className="num px-2 py-1.5">{formatNumber(r.loglik, 2)}</td>
+            <td className="num px-2 py-1.5">{r.parameters}</td>
+            {cell(r, 'aic')}
+            {cell(r, 'bic')}
+            {cell(r, 'caic')}
+            <td className="num px-2 py-1.5">
+              {r.bestStarts} of {r.starts}
+            </td>
           </tr>
-        </thead>
-        <tbody>
-          {rows.map((r) => (
-            <tr
-              key={r.classes}
-              className={`border-b border-line/60 ${r.classes === chosen ? 'bg-primary-soft/60' : ''}`}
-            >
-              <td className="px-2 py-1.5">
-                {r.classes}
-                {r.classes === chosen && <span className="ml-1 text-xs text-ink-muted">shown</span>}
-                {r.reason && <span className="block text-xs text-danger">{r.reason}</span>}
-              </td>
-              <td className="num px-2 py-1.5">{formatNumber(r.loglik, 2)}</td>
-              <td className="num px-2 py-1.5">{r.parameters}</td>
-              {cell(r, 'aic')}
-              {cell(r, 'bic')}
-              {cell(r, 'caic')}
-              <td className="num px-2 py-1.5">
-                {r.bestStarts} of {r.starts}
-              </td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
+        ))}
+      </DataTable>
       <p className="mt-1 text-xs text-ink-muted">
         Lowest value of each criterion in bold. BIC and CAIC penalise extra classes more than AIC; a
         class count whose best LL was reached by few starts may be a local optimum.

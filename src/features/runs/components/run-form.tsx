@@ -29,6 +29,9 @@ import {
   type RunFormModel,
   type RunFormValues,
 } from '../utils/run-form-values';
+import { CorrelatedTastesField } from './correlated-tastes-field';
+import { formField, formNumberField, type BoundForm } from '@/components/ui/form-field';
+import { Options } from '@/components/ui/options';
 
 const distributionLabels: Record<ColumnChoice, string> = {
   omit: 'Leave out',
@@ -51,14 +54,12 @@ function ColumnRow({
   column,
   index,
   model,
-  register,
-  error,
+  form,
 }: {
   column: ModelColumn;
   index: number;
   model: RunFormModel;
-  register: ReturnType<typeof useForm<RunFormValues>>['register'];
-  error?: string;
+  form: BoundForm<RunFormValues>;
 }) {
   const choices: ColumnChoice[] =
     model === 'mnl' || model === 'latent_class'
@@ -81,14 +82,9 @@ function ColumnRow({
       </div>
       <SelectField
         label={<span className="sr-only">Distribution of {column.label}</span>}
-        error={error}
-        {...register(`columns.${index}.distribution`)}
+        {...formField(form, `columns.${index}.distribution`)}
       >
-        {choices.map((c) => (
-          <option key={c} value={c}>
-            {distributionLabels[c]}
-          </option>
-        ))}
+        <Options items={choices.map((c) => ({ value: c, label: distributionLabels[c] }))} />
       </SelectField>
     </div>
   );
@@ -106,17 +102,17 @@ export function RunForm({
   onStarted?: (run: Run) => void;
 }) {
   const create = useCreateRun(teamId, studyId);
+  const form = useForm<RunFormValues>({
+    defaultValues: getDefaultRunFormValues(options),
+    resolver: createRunFormResolver(options.columns),
+  });
   const {
-    register,
     handleSubmit,
     setValue,
     setError,
     control,
     formState: { errors },
-  } = useForm<RunFormValues>({
-    defaultValues: getDefaultRunFormValues(options),
-    resolver: createRunFormResolver(options.columns),
-  });
+  } = form;
   const model = useWatch({ control, name: 'model' });
   const mixed = model === 'mixed';
   const classical = model === 'mnl' || mixed;
@@ -150,21 +146,16 @@ export function RunForm({
       <div className="grid gap-4 sm:grid-cols-2">
         <SelectField
           label="Model"
-          error={errors.model?.message}
-          {...register('model', { onChange: (e) => switchModel(e.target.value) })}
+          {...formField(form, 'model', { onChange: (e) => switchModel(e.target.value) })}
         >
-          {(Object.keys(MODEL_LABELS) as RunFormModel[]).map((m) => (
-            <option key={m} value={m}>
-              {MODEL_LABELS[m]}
-            </option>
-          ))}
+          <Options
+            items={(Object.keys(MODEL_LABELS) as RunFormModel[]).map((m) => ({
+              value: m,
+              label: MODEL_LABELS[m],
+            }))}
+          />
         </SelectField>
-        <TextField
-          label="Name"
-          placeholder={MODEL_LABELS[model]}
-          error={errors.name?.message}
-          {...register('name')}
-        />
+        <TextField label="Name" placeholder={MODEL_LABELS[model]} {...formField(form, 'name')} />
       </div>
 
       <ModelHelp model={model} />
@@ -176,14 +167,7 @@ export function RunForm({
         </p>
         <div className="rounded-md border border-line bg-white px-3">
           {options.columns.map((column, i) => (
-            <ColumnRow
-              key={column.key}
-              column={column}
-              index={i}
-              model={model}
-              register={register}
-              error={errors.columns?.[i]?.distribution?.message}
-            />
+            <ColumnRow key={column.key} column={column} index={i} model={model} form={form} />
           ))}
         </div>
       </fieldset>
@@ -191,71 +175,41 @@ export function RunForm({
       {mixed && (
         <fieldset className="grid gap-4 sm:grid-cols-3">
           <legend className="mb-2 text-sm font-medium text-ink">Simulation</legend>
-          <SelectField label="Draws" error={errors.drawsType?.message} {...register('drawsType')}>
-            {drawsTypeSchema.options.map((t) => (
-              <option key={t} value={t}>
-                {drawsTypeLabels[t].charAt(0).toUpperCase() + drawsTypeLabels[t].slice(1)}
-              </option>
-            ))}
+          <SelectField label="Draws" {...formField(form, 'drawsType')}>
+            <Options
+              items={drawsTypeSchema.options.map((t) => ({
+                value: t,
+                label: drawsTypeLabels[t].charAt(0).toUpperCase() + drawsTypeLabels[t].slice(1),
+              }))}
+            />
           </SelectField>
-          <TextField
-            label="Draws per respondent"
-            type="number"
-            inputMode="numeric"
-            error={errors.drawsCount?.message}
-            {...register('drawsCount', { valueAsNumber: true })}
-          />
+          <TextField label="Draws per respondent" {...formNumberField(form, 'drawsCount')} />
           <TextField
             label="Draws for taste profiles"
-            type="number"
-            inputMode="numeric"
             hint="More than for estimation"
-            error={errors.profileDraws?.message}
-            {...register('profileDraws', { valueAsNumber: true })}
+            {...formNumberField(form, 'profileDraws')}
           />
-          <TextField
-            label="Seed"
-            type="number"
-            inputMode="numeric"
-            error={errors.seed?.message}
-            {...register('seed', { valueAsNumber: true })}
-          />
+          <TextField label="Seed" {...formNumberField(form, 'seed')} />
           <TextField
             label="Starting points"
-            type="number"
-            inputMode="numeric"
             hint="The MNL start plus perturbed ones"
-            error={errors.starts?.message}
-            {...register('starts', { valueAsNumber: true })}
+            {...formNumberField(form, 'starts')}
           />
-          <label className="flex items-center gap-2 self-end pb-2 text-sm text-ink">
-            <input type="checkbox" className="size-4 accent-primary" {...register('correlated')} />
-            Correlated normal tastes
-          </label>
-          {errors.correlated?.message && (
-            <p role="alert" className="text-xs font-medium text-danger sm:col-span-3">
-              {errors.correlated.message}
-            </p>
-          )}
+          <CorrelatedTastesField form={form} label="Correlated normal tastes" />
         </fieldset>
       )}
 
-      {model === 'hb' && <HbFields register={register} errors={errors} />}
+      {model === 'hb' && <HbFields form={form} />}
       {model === 'latent_class' && (
-        <LatentClassFields
-          register={register}
-          errors={errors}
-          questions={options.membershipQuestions}
-        />
+        <LatentClassFields form={form} questions={options.membershipQuestions} />
       )}
 
-      {classical && <EstimationSettingsFields register={register} errors={errors} mixed={mixed} />}
+      {classical && <EstimationSettingsFields form={form} mixed={mixed} />}
 
       <SelectField
         label="Respondents"
         hint={`${options.includedRespondents} included respondents have completed the questionnaire.`}
-        error={errors.filterId?.message}
-        {...register('filterId')}
+        {...formField(form, 'filterId')}
       >
         <option value="">All included respondents</option>
         {options.filters.map((f) => (

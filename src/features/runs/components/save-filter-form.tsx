@@ -14,6 +14,8 @@ import { SelectField, TextField } from '@/components/ui/field';
 import { Alert } from '@/components/ui/feedback';
 import { applyFieldErrors } from '@/lib/api-client';
 import { useCreateRespondentFilter } from '../api/create-respondent-filter';
+import { formField } from '@/components/ui/form-field';
+import { Options } from '@/components/ui/options';
 
 export type FilterQuestion = {
   key: string;
@@ -32,6 +34,13 @@ export function SaveFilterForm({
 }) {
   const save = useCreateRespondentFilter(teamId, studyId);
   const [saved, setSaved] = useState<string | null>(null);
+  const form = useForm<CreateRespondentFilterInput>({
+    resolver: zodResolver(createRespondentFilterSchema),
+    defaultValues: {
+      name: '',
+      definition: { conditions: [{ question: questions[0]?.key ?? '', values: [] }] },
+    },
+  });
   const {
     register,
     handleSubmit,
@@ -39,13 +48,7 @@ export function SaveFilterForm({
     reset,
     control,
     formState: { errors },
-  } = useForm<CreateRespondentFilterInput>({
-    resolver: zodResolver(createRespondentFilterSchema),
-    defaultValues: {
-      name: '',
-      definition: { conditions: [{ question: questions[0]?.key ?? '', values: [] }] },
-    },
-  });
+  } = form;
   const key = useWatch({ control, name: 'definition.conditions.0.question' });
   const question = questions.find((q) => q.key === key);
   if (questions.length === 0)
@@ -69,13 +72,9 @@ export function SaveFilterForm({
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField label="Filter name" error={errors.name?.message} {...register('name')} />
+        <TextField label="Filter name" {...formField(form, 'name')} />
         <SelectField label="Background question" {...register('definition.conditions.0.question')}>
-          {questions.map((q) => (
-            <option key={q.key} value={q.key}>
-              {q.text}
-            </option>
-          ))}
+          <Options items={questions.map((q) => ({ value: q.key, label: q.text }))} />
         </SelectField>
       </div>
       <fieldset>

@@ -16,6 +16,8 @@ import type { ScenarioAlternative, ShareExportInput } from '@shared/schemas/shar
 import { getLevelLabel } from '@shared/study/level-labels';
 import { DemandCurveChart } from './demand-curve-chart';
 import { ShareDownloads } from './share-downloads';
+import { DataTable, figureHeading } from '@/components/ui/data-table';
+import { Options } from '@/components/ui/options';
 
 const pct = (x: number | null | undefined) => formatPercent(x, 1);
 
@@ -85,11 +87,7 @@ export function DemandCurveCard({
           onChange={(e) => setAttributeId(e.target.value)}
           wrapperClassName="w-full sm:w-72"
         >
-          {definition.attributes.map((a) => (
-            <option key={a.id} value={a.id}>
-              {a.name}
-            </option>
-          ))}
+          <Options items={definition.attributes.map((a) => ({ value: a.id, label: a.name }))} />
         </SelectField>
         {!on && <Button onClick={() => setOn(true)}>Draw the demand curve</Button>}
       </div>
@@ -111,28 +109,26 @@ export function DemandCurveCard({
           </p>
           <details className="text-sm">
             <summary className="cursor-pointer text-ink-soft">The curve as a table</summary>
-            <div className="overflow-x-auto">
-              <table className="mt-2 min-w-full">
-                <thead className="border-b border-line text-xs text-ink-soft">
-                  <tr>
-                    <th className="px-2 py-1 text-left">{attribute.name}</th>
-                    <th className="px-2 py-1 text-right">Share of {name}</th>
-                    <th className="px-2 py-1 text-right">95 % interval</th>
-                  </tr>
-                </thead>
-                <tbody className="font-mono tabular-nums">
-                  {curve.points.map((p, i) => (
-                    <tr key={i} className="border-b border-line/60">
-                      <td className="px-2 py-1 font-sans">{labels[i]}</td>
-                      <td className="px-2 py-1 text-right">{pct(p.share)}</td>
-                      <td className="px-2 py-1 text-right whitespace-nowrap">
-                        {formatInterval(p.lower, p.upper, pct)}
-                      </td>
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
-            </div>
+            <DataTable
+              wrapperClassName="mt-2 overflow-x-auto"
+              className="min-w-full"
+              bodyClassName="font-mono tabular-nums"
+              headings={[
+                { label: attribute.name, align: 'left', key: 'level' },
+                figureHeading(`Share of ${name}`),
+                figureHeading('95 % interval'),
+              ]}
+            >
+              {curve.points.map((p, i) => (
+                <tr key={i} className="border-b border-line/60">
+                  <td className="px-2 py-1 font-sans">{labels[i]}</td>
+                  <td className="px-2 py-1 text-right">{pct(p.share)}</td>
+                  <td className="px-2 py-1 text-right whitespace-nowrap">
+                    {formatInterval(p.lower, p.upper, pct)}
+                  </td>
+                </tr>
+              ))}
+            </DataTable>
           </details>
           <ShareDownloads
             what="demand curve"

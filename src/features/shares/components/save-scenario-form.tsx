@@ -11,6 +11,7 @@ import { TextField } from '@/components/ui/field';
 import { ErrorText } from '@/components/ui/error-boundary';
 import { applyFieldErrors } from '@/lib/api-client';
 import { scenarioBodySchema } from '@shared/schemas/shares';
+import { formField } from '@/components/ui/form-field';
 
 const nameSchema = scenarioBodySchema.pick({ name: true });
 type NameForm = z.infer<typeof nameSchema>;
@@ -47,8 +48,7 @@ export function SaveScenarioForm({
         label="Scenario name"
         wrapperClassName="w-full sm:w-72"
         maxLength={80}
-        error={form.formState.errors.name?.message}
-        {...form.register('name')}
+        {...formField(form, 'name')}
       />
       <Button type="submit" variant={loaded ? 'secondary' : 'primary'} busy={busy}>
         Save as new scenario

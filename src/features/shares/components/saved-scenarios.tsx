@@ -6,6 +6,7 @@ import { Button } from '@/components/ui/button';
 import { useConfirm } from '@/components/ui/confirm-dialog';
 import { formatDateTime } from '@/utils/format';
 import type { SavedScenario } from '@shared/schemas/shares';
+import { DataTable } from '@/components/ui/data-table';
 
 export function SavedScenarios({
   scenarios,
@@ -32,82 +33,78 @@ export function SavedScenarios({
       </p>
     );
   return (
-    <div className="overflow-x-auto">
+    <>
       {dialog}
-      <table className="min-w-full text-sm">
-        <caption className="sr-only">Saved scenarios</caption>
-        <thead className="border-b border-line text-xs text-ink-soft">
-          <tr>
-            <th className="px-2 py-1 text-left">Compare</th>
-            <th className="px-2 py-1 text-left">Scenario</th>
-            <th className="hidden px-2 py-1 text-left sm:table-cell">Saved</th>
-            <th className="px-2 py-1 text-right">
-              <span className="sr-only">Actions</span>
-            </th>
-          </tr>
-        </thead>
-        <tbody>
-          {scenarios.map((s) => (
-            <tr key={s.id} className="border-b border-line/60">
-              <td className="px-2 py-1">
-                <input
-                  type="checkbox"
-                  className="size-4 accent-primary"
-                  aria-label={`Compare ${s.name}`}
-                  checked={compared.includes(s.id)}
-                  onChange={() => onToggleCompare(s.id)}
-                />
-              </td>
-              <td className="px-2 py-1">
-                <span className="font-medium text-ink">{s.name}</span>
-                {s.id === loadedId && (
-                  <span className="ml-2 text-xs text-primary">(in the editor)</span>
-                )}
-                <span className="block text-xs text-ink-muted">
-                  {s.alternatives.map((a) => a.name).join(' · ')}
-                  {s.includeFixed ? ' · status quo' : ''}
-                </span>
-              </td>
-              <td className="hidden px-2 py-1 text-xs whitespace-nowrap text-ink-soft sm:table-cell">
-                {formatDateTime(s.updatedAt)}
-                {s.createdBy ? ` · ${s.createdBy}` : ''}
-              </td>
-              <td className="px-2 py-1 text-right whitespace-nowrap">
-                <div className="flex flex-col items-end sm:flex-row sm:justify-end">
+      <DataTable
+        className="min-w-full text-sm"
+        caption="Saved scenarios"
+        headings={[
+          'Compare',
+          'Scenario',
+          { label: 'Saved', align: 'left', className: 'hidden sm:table-cell' },
+          { label: <span className="sr-only">Actions</span>, align: 'right', key: 'actions' },
+        ]}
+      >
+        {scenarios.map((s) => (
+          <tr key={s.id} className="border-b border-line/60">
+            <td className="px-2 py-1">
+              <input
+                type="checkbox"
+                className="size-4 accent-primary"
+                aria-label={`Compare ${s.name}`}
+                checked={compared.includes(s.id)}
+                onChange={() => onToggleCompare(s.id)}
+              />
+            </td>
+            <td className="px-2 py-1">
+              <span className="font-medium text-ink">{s.name}</span>
+              {s.id === loadedId && (
+                <span className="ml-2 text-xs text-primary">(in the editor)</span>
+              )}
+              <span className="block text-xs text-ink-muted">
+                {s.alternatives.map((a) => a.name).join(' · ')}
+                {s.includeFixed ? ' · status quo' : ''}
+              </span>
+            </td>
+            <td className="hidden px-2 py-1 text-xs whitespace-nowrap text-ink-soft sm:table-cell">
+              {formatDateTime(s.updatedAt)}
+              {s.createdBy ? ` · ${s.createdBy}` : ''}
+            </td>
+            <td className="px-2 py-1 text-right whitespace-nowrap">
+              <div className="flex flex-col items-end sm:flex-row sm:justify-end">
+                <Button
+                  variant="ghost"
+                  size="sm"
+                  onClick={() => onLoad(s)}
+                  aria-label={`Load ${s.name}`}
+                >
+                  Load
+                </Button>
+                {canWrite && (
                   <Button
                     variant="ghost"
                     size="sm"
-                    onClick={() => onLoad(s)}
-                    aria-label={`Load ${s.name}`}
+                    aria-label={`Delete ${s.name}`}
+                    onClick={async () => {
+                      if (
+                        await confirm({
+                          title: `Delete “${s.name}”?`,
+                          body: 'The saved scenario is removed for the whole team.',
+                          confirmLabel: 'Delete scenario',
+                          danger: true,
+                        })
+                      )
+                        onDelete(s);
+                    }}
                   >
-                    Load
+                    Delete
                   </Button>
-                  {canWrite && (
-                    <Button
-                      variant="ghost"
-                      size="sm"
-                      aria-label={`Delete ${s.name}`}
-                      onClick={async () => {
-                        if (
-                          await confirm({
-                            title: `Delete “${s.name}”?`,
-                            body: 'The saved scenario is removed for the whole team.',
-                            confirmLabel: 'Delete scenario',
-                            danger: true,
-                          })
-                        )
-                          onDelete(s);
-                      }}
-                    >
-                      Delete
-                    </Button>
-                  )}
-                </div>
-              </td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
+                )}
+              </div>
+            </td>
+          </tr>
+        ))}
+      </DataTable>
+    </>
   );
 }

@@ -7,6 +7,7 @@ import type { SavedScenario } from '@shared/schemas/shares';
 import type { PreparedShareModel } from '@shared/engine/shares/share-model';
 import { formatInterval, formatPercent } from '@/utils/format';
 import { computeOutcome } from '../hooks/use-scenario-shares';
+import { DataTable } from '@/components/ui/data-table';
 
 const pct = (x: number | null | undefined) => formatPercent(x, 1);
 
@@ -35,58 +36,48 @@ export function ScenarioComparison({
       : []),
   ];
   return (
-    <div className="overflow-x-auto">
-      <table className="min-w-full text-sm">
-        <caption className="sr-only">Saved scenarios compared</caption>
-        <thead className="border-b border-line text-xs text-ink-soft">
-          <tr>
-            <th className="px-2 py-1 text-left">
-              <span className="sr-only">Position</span>
-            </th>
-            {scenarios.map((s) => (
-              <th key={s.id} scope="col" className="px-2 py-1 text-right">
-                {s.name}
-              </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          {rows.map((row) => (
-            <tr key={row.label} className="border-b border-line/60 align-top">
-              <th scope="row" className="px-2 py-1 text-left text-xs font-normal text-ink-soft">
-                {row.label}
-              </th>
-              {scenarios.map((s, c) => {
-                const o = outcomes[c];
-                const j = row.at(s);
-                if (j < 0)
-                  return (
-                    <td key={s.id} className="px-2 py-1 text-right text-ink-muted">
-                      —
-                    </td>
-                  );
-                if (!o.shares)
-                  return (
-                    <td key={s.id} className="px-2 py-1 text-right text-xs text-danger">
-                      {o.error?.message ?? 'Not computed'}
-                    </td>
-                  );
-                return (
-                  <td key={s.id} className="px-2 py-1 text-right">
-                    <span className="block text-xs text-ink-soft">{o.shares.names[j]}</span>
-                    <span className="num font-semibold">{pct(o.shares.shares[j])}</span>
-                    {o.shares.lower && (
-                      <span className="num block text-xs whitespace-nowrap text-ink-muted">
-                        {formatInterval(o.shares.lower[j], o.shares.upper![j], pct)}
-                      </span>
-                    )}
-                  </td>
-                );
-              })}
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
+    <DataTable
+      className="min-w-full text-sm"
+      caption="Saved scenarios compared"
+      headings={[
+        { label: <span className="sr-only">Position</span>, align: 'left', key: 'position' },
+        ...scenarios.map((s) => ({ label: s.name, align: 'right' as const, key: s.id })),
+      ]}
+    >
+      {rows.map((row) => (
+        <tr key={row.label} className="border-b border-line/60 align-top">
+          <th scope="row" className="px-2 py-1 text-left text-xs font-normal text-ink-soft">
+            {row.label}
+          </th>
+          {scenarios.map((s, c) => {
+            const o = outcomes[c];
+            const j = row.at(s);
+            if (j < 0)
+              return (
+                <td key={s.id} className="px-2 py-1 text-right text-ink-muted">
+                  —
+                </td>
+              );
+            if (!o.shares)
+              return (
+                <td key={s.id} className="px-2 py-1 text-right text-xs text-danger">
+                  {o.error?.message ?? 'Not computed'}
+                </td>
+              );
+            return (
+              <td key={s.id} className="px-2 py-1 text-right">
+                <span className="block text-xs text-ink-soft">{o.shares.names[j]}</span>
+                <span className="num font-semibold">{pct(o.shares.shares[j])}</span>
+                {o.shares.lower && (
+                  <span className="num block text-xs whitespace-nowrap text-ink-muted">
+                    {formatInterval(o.shares.lower[j], o.shares.upper![j], pct)}
+                  </span>
+                )}
+              </td>
+            );
+          })}
+        </tr>
+      ))}
+    </DataTable>
   );
 }

@@ -7,6 +7,7 @@ import { TextField } from '@/components/ui/field';
 import type { ScenarioAlternative } from '@shared/schemas/shares';
 import type { StudyDefinition } from '@shared/schemas/study-definition';
 import { getLevelLabel } from '@shared/study/level-labels';
+import { Options } from '@/components/ui/options';
 
 export const MAX_ALTERNATIVES = 5;
 
@@ -71,11 +72,9 @@ export function ScenarioEditor({
                   value={alt.levels[a.id] ?? ''}
                   onChange={(e) => update(i, { levels: { ...alt.levels, [a.id]: e.target.value } })}
                 >
-                  {a.levels.map((l) => (
-                    <option key={l.id} value={l.id}>
-                      {getLevelLabel(a, l)}
-                    </option>
-                  ))}
+                  <Options
+                    items={a.levels.map((l) => ({ value: l.id, label: getLevelLabel(a, l) }))}
+                  />
                 </select>
               </label>
             ))}

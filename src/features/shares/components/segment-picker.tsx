@@ -6,6 +6,7 @@
 import { SelectField } from '@/components/ui/field';
 import type { TasteHeader } from '@shared/schemas/tastes';
 import type { ShareGroupsParams } from '../api/share-keys';
+import { Options } from '@/components/ui/options';
 
 export function toGroupsParams(runId: string, value: string): ShareGroupsParams | null {
   if (!runId || !value) return null;
@@ -42,11 +43,7 @@ export function SegmentPicker({
       {model === 'latent_class' && <option value="class">Likeliest latent class</option>}
       {questions.length > 0 && (
         <optgroup label="Background answers">
-          {questions.map((q) => (
-            <option key={q.key} value={`q:${q.key}`}>
-              {q.text}
-            </option>
-          ))}
+          <Options items={questions.map((q) => ({ value: `q:${q.key}`, label: q.text }))} />
         </optgroup>
       )}
       {tasks.length > 0 && (

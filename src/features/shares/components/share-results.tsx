@@ -11,6 +11,7 @@ import type { ScenarioShares } from '@shared/engine/shares/share-model';
 import { formatCount, formatInterval, formatPercent } from '@/utils/format';
 import { chartInk, okabeIto } from '@/components/charts/palette';
 import { whiteBackground } from '@/components/charts/chart-png';
+import { DataTable, figureHeading } from '@/components/ui/data-table';
 
 const pct = (x: number | null | undefined) => formatPercent(x, 1);
 
@@ -84,44 +85,35 @@ export function ShareResults({
         {segments && `, and by ${segments.label}`}
         {ungrouped > 0 && ` (${formatCount(ungrouped)} in no segment)`}
       </p>
-      <div className="overflow-x-auto">
-        <table className="min-w-full text-sm">
-          <thead className="border-b border-line text-xs text-ink-soft">
-            <tr>
-              <th className="px-2 py-1 text-left">Alternative</th>
-              <th className="px-2 py-1 text-right whitespace-nowrap">Share</th>
-              {result.lower && (
-                <th className="px-2 py-1 text-right whitespace-nowrap">95 % interval</th>
-              )}
-              {groups.map((g) => (
-                <th key={g.key} className="px-2 py-1 text-right whitespace-nowrap">
-                  {g.label} ({formatCount(g.count)})
-                </th>
-              ))}
-            </tr>
-          </thead>
-          <tbody className="font-mono tabular-nums">
-            {names.map((name, j) => (
-              <tr key={j} className="border-b border-line/60">
-                <td className="px-2 py-1 font-sans">{name}</td>
-                <td className="px-2 py-1 text-right font-semibold whitespace-nowrap">
-                  {pct(result.shares[j])}
-                </td>
-                {result.lower && (
-                  <td className="px-2 py-1 text-right whitespace-nowrap">
-                    {formatInterval(result.lower[j], result.upper![j], pct)}
-                  </td>
-                )}
-                {groups.map((g) => (
-                  <td key={g.key} className="px-2 py-1 text-right whitespace-nowrap">
-                    {pct(g.shares[j])}
-                  </td>
-                ))}
-              </tr>
+      <DataTable
+        className="min-w-full text-sm"
+        bodyClassName="font-mono tabular-nums"
+        headings={[
+          'Alternative',
+          figureHeading('Share'),
+          result.lower && figureHeading('95 % interval'),
+          ...groups.map((g) => figureHeading(`${g.label} (${formatCount(g.count)})`, g.key)),
+        ]}
+      >
+        {names.map((name, j) => (
+          <tr key={j} className="border-b border-line/60">
+            <td className="px-2 py-1 font-sans">{name}</td>
+            <td className="px-2 py-1 text-right font-semibold whitespace-nowrap">
+              {pct(result.shares[j])}
+            </td>
+            {result.lower && (
+              <td className="px-2 py-1 text-right whitespace-nowrap">
+                {formatInterval(result.lower[j], result.upper![j], pct)}
+              </td>
+            )}
+            {groups.map((g) => (
+              <td key={g.key} className="px-2 py-1 text-right whitespace-nowrap">
+                {pct(g.shares[j])}
+              </td>
             ))}
-          </tbody>
-        </table>
-      </div>
+          </tr>
+        ))}
+      </DataTable>
     </div>
   );
 }

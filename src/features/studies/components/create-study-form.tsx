@@ -5,8 +5,9 @@ import { createStudySchema, type Study } from '@shared/schemas/study';
 import { TextAreaField, TextField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { ErrorText } from '@/components/ui/error-boundary';
-import { applyFieldErrors } from '@/lib/api-client';
+import { submitForm } from '@/lib/submit-form';
 import { useCreateStudy } from '../api/create-study';
+import { formField } from '@/components/ui/form-field';
 
 type Values = z.input<typeof createStudySchema>;
 
@@ -24,27 +25,17 @@ export function CreateStudyForm({
     resolver: zodResolver(createStudySchema),
     defaultValues: { name: '', description: '' },
   });
-  const { errors, isSubmitting } = form.formState;
-  const onSubmit = form.handleSubmit(async (values) => {
-    try {
-      onCreated(await create.mutateAsync(values));
-    } catch (err) {
-      applyFieldErrors(err, form.setError);
-    }
+  const { isSubmitting } = form.formState;
+  const onSubmit = submitForm(form, async (values) => {
+    onCreated(await create.mutateAsync(values));
   });
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4" aria-label="New study">
-      <TextField
-        label="Study name"
-        autoFocus
-        error={errors.name?.message}
-        {...form.register('name')}
-      />
+      <TextField label="Study name" autoFocus {...formField(form, 'name')} />
       <TextAreaField
         label="Description (optional)"
         hint="For your team; respondents do not see it."
-        error={errors.description?.message}
-        {...form.register('description')}
+        {...formField(form, 'description')}
       />
       {create.error && !create.error.message.includes('name') && <ErrorText error={create.error} />}
       <div className="flex gap-2">

@@ -5,8 +5,9 @@ import { studyDetailsSchema, type Study } from '@shared/schemas/study';
 import { TextAreaField, TextField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { ErrorText } from '@/components/ui/error-boundary';
-import { applyFieldErrors } from '@/lib/api-client';
+import { submitForm } from '@/lib/submit-form';
 import { useUpdateStudy } from '../api/update-study';
+import { formField } from '@/components/ui/form-field';
 
 type Values = z.infer<typeof studyDetailsSchema>;
 
@@ -29,34 +30,27 @@ export function StudyDetailsForm({
       description: study.description,
     },
   });
-  const { errors, isSubmitting } = form.formState;
-  const onSubmit = form.handleSubmit(async (values) => {
-    try {
-      await update.mutateAsync(values);
-      onDone();
-    } catch (err) {
-      applyFieldErrors(err, form.setError);
-    }
+  const { isSubmitting } = form.formState;
+  const onSubmit = submitForm(form, async (values) => {
+    await update.mutateAsync(values);
+    onDone();
   });
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Study details" className="max-w-xl space-y-3">
       <TextField
         label="Study name"
         hint="For your team; respondents never see it."
-        error={errors.name?.message}
-        {...form.register('name')}
+        {...formField(form, 'name')}
       />
       <TextField
         label="Public title"
         hint="Respondents see this on the survey and in invitation e-mails."
-        error={errors.publicTitle?.message}
-        {...form.register('publicTitle')}
+        {...formField(form, 'publicTitle')}
       />
       <TextAreaField
         label="Description"
         hint="For your team; respondents do not see it."
-        error={errors.description?.message}
-        {...form.register('description')}
+        {...formField(form, 'description')}
       />
       {update.error && <ErrorText error={update.error} />}
       <div className="flex gap-2">

@@ -14,6 +14,7 @@ import {
 import { TextField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { ImportedAttributeFields } from './imported-attribute-fields';
+import { formField } from '@/components/ui/form-field';
 
 type Props = {
   attributes: ImportAttribute[];
@@ -46,7 +47,7 @@ export function ImportSetupForm({
         aria-label="Study set-up"
         onSubmit={form.handleSubmit(onSave)}
       >
-        <TextField label="Study name" error={errors.name?.message} {...form.register('name')} />
+        <TextField label="Study name" {...formField(form, 'name')} />
         <div className="space-y-3">
           <h3 className="text-sm font-semibold text-ink">Attributes found in the columns</h3>
           {list.fields.map((field, i) => (

@@ -7,6 +7,8 @@ import { useFormContext, useWatch } from 'react-hook-form';
 import type { ImportSetupInput } from '@shared/schemas/study-import';
 import { SelectField, TextField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
+import { formField } from '@/components/ui/form-field';
+import { Options } from '@/components/ui/options';
 
 export function ImportedAttributeFields({
   index,
@@ -15,7 +17,8 @@ export function ImportedAttributeFields({
   index: number;
   onRemove: () => void;
 }) {
-  const { register, control, formState } = useFormContext<ImportSetupInput>();
+  const form = useFormContext<ImportSetupInput>();
+  const { register, control, formState } = form;
   const at = `attributes.${index}` as const;
   const attribute = useWatch({ control, name: at });
   const errors = formState.errors.attributes?.[index];
@@ -26,27 +29,19 @@ export function ImportedAttributeFields({
         Column <code className="font-mono">{attribute.column}</code>
       </legend>
       <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
-        <TextField
-          label="Attribute name"
-          error={errors?.name?.message}
-          {...register(`${at}.name`)}
-        />
+        <TextField label="Attribute name" {...formField(form, `${at}.name`)} />
         <SelectField label="Kind" {...register(`${at}.kind`)}>
           <option value="numeric">Numeric</option>
           <option value="categorical">Categorical</option>
         </SelectField>
-        <SelectField label="Coding" error={errors?.coding?.message} {...register(`${at}.coding`)}>
+        <SelectField label="Coding" {...formField(form, `${at}.coding`)}>
           {numeric && <option value="linear">Linear</option>}
           <option value="dummy">Dummy</option>
           <option value="effects">Effects</option>
         </SelectField>
         {attribute.coding === 'dummy' ? (
           <SelectField label="Reference level" {...register(`${at}.referenceRaw`)}>
-            {attribute.levels.map((l) => (
-              <option key={l.raw} value={l.raw}>
-                {l.raw}
-              </option>
-            ))}
+            <Options items={attribute.levels.map((l) => ({ value: l.raw, label: l.raw }))} />
           </SelectField>
         ) : (
           <div />
@@ -72,8 +67,7 @@ export function ImportedAttributeFields({
                   </>
                 }
                 placeholder={numeric ? 'from the value' : level.raw}
-                error={errors?.levels?.[k]?.label?.message}
-                {...register(`${at}.levels.${k}.label`)}
+                {...formField(form, `${at}.levels.${k}.label`)}
               />
             </li>
           ))}

@@ -14,6 +14,7 @@ import { useTasteComparison } from '../api/compare-tastes';
 import { ComparisonScatter } from './comparison-scatter';
 import { RunPicker } from './run-picker';
 import { MEAN_NAMES } from '../utils/mean-names';
+import { Options } from '@/components/ui/options';
 
 /** The run to compare with by default: another family first (HB ↔ mixed logit), else any other. */
 export function pickComparisonRun(runs: TastesRun[], run: TastesRun | undefined): string {
@@ -65,11 +66,7 @@ export function ComparisonPanel({
             value={current?.name ?? ''}
             onChange={(e) => setCoefficient(e.target.value)}
           >
-            {data.coefficients.map((c) => (
-              <option key={c.name} value={c.name}>
-                {c.label}
-              </option>
-            ))}
+            <Options items={data.coefficients.map((c) => ({ value: c.name, label: c.label }))} />
           </SelectField>
         )}
       </div>

@@ -2,6 +2,7 @@ import { SelectField } from '@/components/ui/field';
 import type { TastesRun } from '@shared/schemas/tastes';
 import { MODEL_LABELS } from '@shared/schemas/estimation-families';
 import { formatDateTime } from '@/utils/format';
+import { Options } from '@/components/ui/options';
 
 const describe = (r: TastesRun) => {
   const when = r.finishedAt ? formatDateTime(r.finishedAt) : '';
@@ -31,11 +32,7 @@ export function RunPicker({
       onChange={(e) => onChange(e.target.value)}
       wrapperClassName="w-full sm:max-w-md"
     >
-      {usable.map((r) => (
-        <option key={r.id} value={r.id}>
-          {describe(r)}
-        </option>
-      ))}
+      <Options items={usable.map((r) => ({ value: r.id, label: describe(r) }))} />
     </SelectField>
   );
 }

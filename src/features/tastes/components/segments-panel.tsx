@@ -12,6 +12,8 @@ import { useSegments } from '../api/get-segments';
 import { formatNumber } from '@/utils/format';
 import { SegmentsChart, type SegmentsView } from './segments-chart';
 import { MEAN_NAMES } from '../utils/mean-names';
+import { DataTable, figureHeading } from '@/components/ui/data-table';
+import { Options } from '@/components/ui/options';
 
 type GroupBy = 'task' | 'question' | 'class';
 
@@ -55,11 +57,7 @@ export function SegmentsPanel({
           value={coefficient}
           onChange={(e) => setCoefficient(e.target.value)}
         >
-          {header.coefficients.map((c) => (
-            <option key={c.name} value={c.name}>
-              {c.label}
-            </option>
-          ))}
+          <Options items={header.coefficients.map((c) => ({ value: c.name, label: c.label }))} />
         </SelectField>
         <SelectField
           label="Split by"
@@ -78,11 +76,7 @@ export function SegmentsPanel({
             value={question}
             onChange={(e) => setQuestion(e.target.value)}
           >
-            {groupable.map((q) => (
-              <option key={q.key} value={q.key}>
-                {q.text}
-              </option>
-            ))}
+            <Options items={groupable.map((q) => ({ value: q.key, label: q.text }))} />
           </SelectField>
         ) : (
           <SelectField label="Task" value={task} onChange={(e) => setTask(Number(e.target.value))}>
@@ -122,34 +116,27 @@ export function SegmentsPanel({
               {segments.data.ungrouped > 0 &&
                 ` (${segments.data.ungrouped} respondents without an answer left out)`}
             </p>
-            <div className="overflow-x-auto">
-              <table className="min-w-full text-sm">
-                <thead className="border-b border-line text-xs text-ink-soft">
-                  <tr>
-                    <th className="px-2 py-1 text-left">Group</th>
-                    {['Count', 'Mean', 'SD', 'Median', 'Quartiles'].map((h) => (
-                      <th key={h} className="px-2 py-1 text-right">
-                        {h}
-                      </th>
-                    ))}
-                  </tr>
-                </thead>
-                <tbody className="font-mono tabular-nums">
-                  {segments.data.groups.map((g) => (
-                    <tr key={g.key} className="border-b border-line/60">
-                      <td className="px-2 py-1 font-sans whitespace-nowrap">{g.label}</td>
-                      <td className="px-2 py-1 text-right">{g.count}</td>
-                      <td className="px-2 py-1 text-right">{formatNumber(g.mean)}</td>
-                      <td className="px-2 py-1 text-right">{formatNumber(g.sd)}</td>
-                      <td className="px-2 py-1 text-right">{formatNumber(g.median)}</td>
-                      <td className="px-2 py-1 text-right whitespace-nowrap">
-                        {formatNumber(g.q1)} … {formatNumber(g.q3)}
-                      </td>
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
-            </div>
+            <DataTable
+              className="min-w-full text-sm"
+              bodyClassName="font-mono tabular-nums"
+              headings={[
+                'Group',
+                ...['Count', 'Mean', 'SD', 'Median', 'Quartiles'].map((h) => figureHeading(h)),
+              ]}
+            >
+              {segments.data.groups.map((g) => (
+                <tr key={g.key} className="border-b border-line/60">
+                  <td className="px-2 py-1 font-sans whitespace-nowrap">{g.label}</td>
+                  <td className="px-2 py-1 text-right">{g.count}</td>
+                  <td className="px-2 py-1 text-right">{formatNumber(g.mean)}</td>
+                  <td className="px-2 py-1 text-right">{formatNumber(g.sd)}</td>
+                  <td className="px-2 py-1 text-right">{formatNumber(g.median)}</td>
+                  <td className="px-2 py-1 text-right whitespace-nowrap">
+                    {formatNumber(g.q1)} … {formatNumber(g.q3)}
+                  </td>
+                </tr>
+              ))}
+            </DataTable>
           </>
         )}
       </div>

@@ -1,10 +1,34 @@
 import { SelectField } from '@/components/ui/field';
 import type { TasteHeader } from '@shared/schemas/tastes';
 import type { TastesQuery } from '../api/list-tastes';
+import { Options } from '@/components/ui/options';
 
 type Patch = Partial<TastesQuery>;
-const tri = (v: boolean | undefined) => (v === undefined ? '' : v ? 'true' : 'false');
-const fromTri = (s: string) => (s === '' ? undefined : s === 'true');
+
+/** A yes/no filter: all respondents (undefined), only those with the property, or only without. */
+function YesNoFilter({
+  label,
+  value,
+  choices: [yes, no],
+  onChange,
+}: {
+  label: string;
+  value: boolean | undefined;
+  choices: [string, string];
+  onChange: (value: boolean | undefined) => void;
+}) {
+  return (
+    <SelectField
+      label={label}
+      value={value === undefined ? '' : String(value)}
+      onChange={(e) => onChange(e.target.value === '' ? undefined : e.target.value === 'true')}
+    >
+      <option value="">All respondents</option>
+      <option value="true">{yes}</option>
+      <option value="false">{no}</option>
+    </SelectField>
+  );
+}
 
 /** Sort, quality and background-answer filters of the profile table (all applied on the server). */
 export function TastesFilters({
@@ -37,11 +61,7 @@ export function TastesFilters({
         value={query.sort}
         onChange={(e) => onChange({ sort: e.target.value, page: 1 })}
       >
-        {sortOptions.map((o) => (
-          <option key={o.value} value={o.value}>
-            {o.label}
-          </option>
-        ))}
+        <Options items={sortOptions} />
       </SelectField>
       <SelectField
         label="Order"
@@ -51,24 +71,18 @@ export function TastesFilters({
         <option value="asc">Ascending</option>
         <option value="desc">Descending</option>
       </SelectField>
-      <SelectField
+      <YesNoFilter
         label="Effective draws"
-        value={tri(query.lowDraws)}
-        onChange={(e) => onChange({ lowDraws: fromTri(e.target.value), page: 1 })}
-      >
-        <option value="">All respondents</option>
-        <option value="true">Only few draws</option>
-        <option value="false">Without few draws</option>
-      </SelectField>
-      <SelectField
+        value={query.lowDraws}
+        choices={['Only few draws', 'Without few draws']}
+        onChange={(lowDraws) => onChange({ lowDraws, page: 1 })}
+      />
+      <YesNoFilter
         label="Quality flags"
-        value={tri(query.flagged)}
-        onChange={(e) => onChange({ flagged: fromTri(e.target.value), page: 1 })}
-      >
-        <option value="">All respondents</option>
-        <option value="true">Only flagged</option>
-        <option value="false">Only unflagged</option>
-      </SelectField>
+        value={query.flagged}
+        choices={['Only flagged', 'Only unflagged']}
+        onChange={(flagged) => onChange({ flagged, page: 1 })}
+      />
       <div className="grid grid-cols-2 gap-2 sm:col-span-2 lg:col-span-1">
         <SelectField
           label="Answer to"
@@ -78,11 +92,7 @@ export function TastesFilters({
           }
         >
           <option value="">Any</option>
-          {filterable.map((q) => (
-            <option key={q.key} value={q.key}>
-              {q.text}
-            </option>
-          ))}
+          <Options items={filterable.map((q) => ({ value: q.key, label: q.text }))} />
         </SelectField>
         <SelectField
           label="is"
@@ -91,11 +101,9 @@ export function TastesFilters({
           onChange={(e) => onChange({ answer: e.target.value || undefined, page: 1 })}
         >
           <option value="">Choose…</option>
-          {question?.options.map((o) => (
-            <option key={o.id} value={o.id}>
-              {o.label}
-            </option>
-          ))}
+          <Options
+            items={(question?.options ?? []).map((o) => ({ value: o.id, label: o.label }))}
+          />
         </SelectField>
       </div>
     </div>

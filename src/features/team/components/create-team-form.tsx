@@ -6,8 +6,9 @@ import { createTeamSchema, type CreateTeamInput } from '@shared/schemas/team';
 import { TextField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Alert } from '@/components/ui/feedback';
-import { applyFieldErrors } from '@/lib/api-client';
+import { submitForm } from '@/lib/submit-form';
 import { useCreateTeam } from '../api/create-team';
+import { formField } from '@/components/ui/form-field';
 
 export function CreateTeamForm({ onCreated }: { onCreated: (team: TeamSummary) => void }) {
   const [created, setCreated] = useState('');
@@ -18,15 +19,11 @@ export function CreateTeamForm({ onCreated }: { onCreated: (team: TeamSummary) =
   });
   const { errors, isSubmitting } = form.formState;
 
-  const onSubmit = form.handleSubmit(async (values) => {
+  const onSubmit = submitForm(form, async (values) => {
     setCreated('');
-    try {
-      const team = await create.mutateAsync(values);
-      setCreated(team.name);
-      form.reset({ name: '' });
-    } catch (err) {
-      applyFieldErrors(err, form.setError);
-    }
+    const team = await create.mutateAsync(values);
+    setCreated(team.name);
+    form.reset({ name: '' });
   });
 
   return (
@@ -34,8 +31,7 @@ export function CreateTeamForm({ onCreated }: { onCreated: (team: TeamSummary) =
       <TextField
         label="New team name"
         hint="You will be its owner. Studies belong to one team."
-        error={errors.name?.message}
-        {...form.register('name')}
+        {...formField(form, 'name')}
       />
       {create.isError && !errors.name && <Alert tone="danger">{create.error.message}</Alert>}
       {created && <Alert tone="success">Team “{created}” created.</Alert>}

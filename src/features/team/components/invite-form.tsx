@@ -9,6 +9,8 @@ import { Alert } from '@/components/ui/feedback';
 import { applyFieldErrors } from '@/lib/api-client';
 import { useCreateInvitation } from '../api/create-invitation';
 import { roleLabels } from './role-label';
+import { formField } from '@/components/ui/form-field';
+import { Options } from '@/components/ui/options';
 
 export function InviteForm({ teamId }: { teamId: string }) {
   const invite = useCreateInvitation();
@@ -42,20 +44,14 @@ export function InviteForm({ teamId }: { teamId: string }) {
         label="E-mail address"
         type="email"
         autoComplete="off"
-        error={errors.email?.message}
-        {...form.register('email')}
+        {...formField(form, 'email')}
       />
       <SelectField
         label="Role"
         hint={roleDescriptions[role] ? `${roleDescriptions[role]}.` : undefined}
-        error={errors.role?.message}
-        {...form.register('role')}
+        {...formField(form, 'role')}
       >
-        {roles.map((r) => (
-          <option key={r} value={r}>
-            {roleLabels[r]}
-          </option>
-        ))}
+        <Options items={roles.map((r) => ({ value: r, label: roleLabels[r] }))} />
       </SelectField>
       {errors.root?.server && <Alert tone="danger">{errors.root.server.message}</Alert>}
       {sentTo && (

@@ -5,6 +5,7 @@ import { Badge } from '@/components/ui/badge';
 import { Button } from '@/components/ui/button';
 import { roleLabels } from './role-label';
 import { formatDate } from '@/utils/format';
+import { Options } from '@/components/ui/options';
 
 const selectClass =
   'h-9 rounded-md border border-line bg-white px-2 text-sm text-ink focus:border-primary disabled:opacity-60';
@@ -64,11 +65,7 @@ export function MemberRow({
                 setDraft(role === member.role ? null : role);
               }}
             >
-              {roles.map((r) => (
-                <option key={r} value={r}>
-                  {roleLabels[r]}
-                </option>
-              ))}
+              <Options items={roles.map((r) => ({ value: r, label: roleLabels[r] }))} />
             </select>
             {draft && (
               <>

@@ -4,8 +4,9 @@ import { renameTeamSchema, type CreateTeamInput } from '@shared/schemas/team';
 import { TextField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Alert } from '@/components/ui/feedback';
-import { applyFieldErrors } from '@/lib/api-client';
+import { submitForm } from '@/lib/submit-form';
 import { useRenameTeam } from '../api/rename-team';
+import { formField } from '@/components/ui/form-field';
 
 export function RenameTeamForm({
   teamId,
@@ -23,18 +24,14 @@ export function RenameTeamForm({
   });
   const { errors, isSubmitting, isDirty } = form.formState;
 
-  const onSubmit = form.handleSubmit(async (values) => {
-    try {
-      const team = await rename.mutateAsync({ teamId, ...values });
-      form.reset({ name: team.name });
-    } catch (err) {
-      applyFieldErrors(err, form.setError);
-    }
+  const onSubmit = submitForm(form, async (values) => {
+    const team = await rename.mutateAsync({ teamId, ...values });
+    form.reset({ name: team.name });
   });
 
   return (
     <form onSubmit={onSubmit} className="space-y-4" noValidate aria-label="Rename the team">
-      <TextField label="Team name" error={errors.name?.message} {...form.register('name')} />
+      <TextField label="Team name" {...formField(form, 'name')} />
       {rename.isError && !errors.name && <Alert tone="danger">{rename.error.message}</Alert>}
       {rename.isSuccess && !isDirty && <Alert tone="success">Team renamed.</Alert>}
       <Button type="submit" variant="secondary" busy={isSubmitting} disabled={!isDirty}>

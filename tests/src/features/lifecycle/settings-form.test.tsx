@@ -55,4 +55,23 @@ describe('SettingsForm: panel ids and late answers', () => {
     expect(await screen.findByText('At most 720 hours (30 days)')).toBeInTheDocument();
     expect(patch).not.toHaveBeenCalled();
   });
+
+  it('sends each redirect under its outcome, and an empty one as none', async () => {
+    patch.mockResolvedValue({});
+    renderForm();
+    const complete = screen.getByLabelText('Redirect when complete');
+    expect(complete).toHaveAttribute('placeholder', 'https://panel.example/complete?id={pid}');
+    expect(screen.getByLabelText('Redirect when over quota')).toHaveAccessibleDescription(
+      "{pid} is replaced by the respondent's panel id.",
+    );
+    await userEvent.type(
+      screen.getByLabelText('Redirect when screened out'),
+      'https://p.example/s',
+    );
+    await userEvent.click(screen.getByRole('button', { name: 'Save settings' }));
+    await waitFor(() => expect(patch).toHaveBeenCalledTimes(1));
+    expect(patch.mock.calls[0][1]).toMatchObject({
+      redirects: { complete: null, screenedOut: 'https://p.example/s', overQuota: null },
+    });
+  });
 });

@@ -7,6 +7,7 @@ import { MemoryRouter } from 'react-router';
 import { TastesTable } from '@/features/tastes/components/tastes-table';
 import type { TasteList, TasteRow } from '@shared/schemas/tastes';
 import type { TastesQuery } from '@/features/tastes/api/list-tastes';
+import { mixedTastesRun } from './taste-fixtures';
 
 afterEach(cleanup);
 
@@ -26,16 +27,7 @@ const row = (n: number, extra: Partial<TasteRow> = {}): TasteRow => ({
 
 function makeList(personal: boolean): TasteList {
   return {
-    run: {
-      id: 'run1',
-      name: 'Mixed',
-      model: 'mixed',
-      finishedAt: null,
-      profiles: 30,
-      profileDraws: 500,
-      erasedRespondents: 0,
-      wtpUnavailable: null,
-    },
+    run: mixedTastesRun,
     coefficients: [
       {
         name: 'bill',

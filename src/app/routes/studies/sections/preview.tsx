@@ -4,7 +4,7 @@
  * seed fixes their task order and card positions). Built by the same code as live sessions.
  */
 import { useEffect, useState } from 'react';
-import { Link, useParams } from 'react-router';
+import { useParams } from 'react-router';
 import type { RespondentScreen } from '@shared/schemas/respondent';
 import { pageKindLabels } from '@shared/schemas/questionnaire';
 import { paths } from '@/config/paths';
@@ -16,6 +16,8 @@ import { ErrorText } from '@/components/ui/error-boundary';
 import { cn } from '@/lib/cn';
 import { useStudyPreview } from '@/features/preview/api/get-study-preview';
 import { listenToPreviewScreens } from '@/features/preview/utils/preview-messages';
+import { GoToSection } from './go-to-section';
+import { Options } from '@/components/ui/options';
 
 const widths = [
   { id: 'phone', label: 'Phone', px: 360, height: 740 },
@@ -63,12 +65,9 @@ export function Component() {
         <EmptyState
           title="Nothing to preview yet"
           action={
-            <Link
-              className="font-medium text-primary underline"
-              to={paths.studySection.getHref(teamId, studyId, 'tasks')}
-            >
+            <GoToSection teamId={teamId} studyId={studyId} section="tasks">
               Go to Tasks
-            </Link>
+            </GoToSection>
           }
         >
           {preview.error.message}
@@ -98,11 +97,7 @@ export function Component() {
             value={survey.language}
             onChange={(e) => setLang(e.target.value)}
           >
-            {survey.languages.map((l) => (
-              <option key={l.tag} value={l.tag}>
-                {l.name}
-              </option>
-            ))}
+            <Options items={survey.languages.map((l) => ({ value: l.tag, label: l.name }))} />
           </SelectField>
         )}
         <SelectField

@@ -20,6 +20,7 @@ import { ExcludeFlaggedForm } from '@/features/responses/components/exclude-flag
 import { EraseRespondentForm } from '@/features/responses/components/erase-respondent-form';
 import { statusLabels } from '@/features/responses/utils/labels';
 import { languageName } from '@shared/languages/language-tags';
+import { Options } from '@/components/ui/options';
 
 const PAGE_SIZE = 50;
 type Filters = Pick<ListResponsesQuery, 'status' | 'included' | 'flag' | 'language'> & {
@@ -44,6 +45,7 @@ export function Component() {
   if (list.error) return <ErrorText error={list.error} />;
   const data = list.data;
   const pages = Math.max(1, Math.ceil(data.total / PAGE_SIZE));
+  const listView = { teamId, studyId, list: data, canManage };
 
   return (
     <div className="space-y-6">
@@ -128,11 +130,9 @@ export function Component() {
                 onChange={(e) => set({ language: e.target.value || undefined })}
               >
                 <option value="">All</option>
-                {data.languages.map((l) => (
-                  <option key={l} value={l}>
-                    {languageName(l)}
-                  </option>
-                ))}
+                <Options
+                  items={data.languages.map((l) => ({ value: l, label: languageName(l) }))}
+                />
               </SelectField>
             )}
             <SelectField
@@ -158,21 +158,12 @@ export function Component() {
             <p className="text-sm text-ink-muted">No respondent matches these filters.</p>
           ) : (
             <>
+              {/* The same respondents as cards on a phone and as a table from sm up. */}
               <div className="sm:hidden">
-                <ResponseCards
-                  teamId={teamId}
-                  studyId={studyId}
-                  list={data}
-                  canManage={canManage}
-                />
+                <ResponseCards {...listView} />
               </div>
               <div className="hidden sm:block">
-                <ResponsesTable
-                  teamId={teamId}
-                  studyId={studyId}
-                  list={data}
-                  canManage={canManage}
-                />
+                <ResponsesTable {...listView} />
               </div>
             </>
           )}

@@ -1,9 +1,8 @@
 import { useMemo } from 'react';
-import { Link, useParams, useSearchParams } from 'react-router';
+import { useParams, useSearchParams } from 'react-router';
 import { getCodedColumns } from '@shared/engine/coding/coded-columns';
 import type { DesignSpec } from '@shared/schemas/design-spec';
 import type { StudyDefinition } from '@shared/schemas/study-definition';
-import { paths } from '@/config/paths';
 import { ApiError } from '@/lib/api-client';
 import { Alert, Card, EmptyState, Spinner } from '@/components/ui/feedback';
 import { ErrorText, PanelErrorBoundary } from '@/components/ui/error-boundary';
@@ -19,6 +18,7 @@ import { DesignTable } from '@/features/design/components/design-table';
 import { DiagnosticsPanel } from '@/features/design/components/diagnostics-panel';
 import { CsvImport } from '@/features/design/components/csv-import';
 import { RedesignPanel } from './tasks-redesign';
+import { GoToSection } from './go-to-section';
 
 const methodNames = {
   full_factorial: 'Full factorial',
@@ -62,12 +62,9 @@ export function Component() {
       <EmptyState
         title="Add attributes first"
         action={
-          <Link
-            className="font-medium text-primary underline"
-            to={paths.studySection.getHref(teamId, studyId, 'attributes')}
-          >
+          <GoToSection teamId={teamId} studyId={studyId} section="attributes">
             Go to Attributes
-          </Link>
+          </GoToSection>
         }
       >
         Choice tasks combine the levels of your attributes.

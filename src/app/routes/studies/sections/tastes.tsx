@@ -4,7 +4,7 @@
  * Every role may read it; external ids and free-text answers only with 'personal:read'.
  */
 import { useState } from 'react';
-import { Link, useParams, useSearchParams } from 'react-router';
+import { useParams, useSearchParams } from 'react-router';
 import { Alert, EmptyState, Spinner } from '@/components/ui/feedback';
 import { erasureNotice } from '@shared/schemas/exports';
 import { ErrorText, PanelErrorBoundary } from '@/components/ui/error-boundary';
@@ -17,6 +17,7 @@ import { TastesFilters } from '@/features/tastes/components/tastes-filters';
 import { SegmentsPanel } from '@/features/tastes/components/segments-panel';
 import { TasteCautions } from '@/features/tastes/components/taste-cautions';
 import { ComparisonPanel } from '@/features/tastes/components/comparison-panel';
+import { GoToSection } from './go-to-section';
 
 const initialQuery = { page: 1, pageSize: 25, sort: 'number', dir: 'asc' as const };
 
@@ -36,12 +37,9 @@ export function Component() {
       <EmptyState
         title="No taste profiles yet"
         action={
-          <Link
-            className="text-sm font-medium text-primary hover:underline"
-            to={paths.studySection.getHref(teamId, studyId, 'models')}
-          >
+          <GoToSection teamId={teamId} studyId={studyId} section="models">
             Go to Models
-          </Link>
+          </GoToSection>
         }
       >
         Taste profiles come from a finished mixed logit, hierarchical Bayes or latent class run:

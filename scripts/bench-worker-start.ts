@@ -9,15 +9,13 @@
  */
 import os from 'node:os';
 import path from 'node:path';
-import { parseArgs } from 'node:util';
 import { Piscina } from 'piscina';
 import { workerEntry } from '../server/engine/parallel/ts-worker-pool';
 import { ENGINE_WORKER_SOURCES, ensureEngineWorkersBuilt } from './build-engine-workers';
+import { readBenchCli } from './lib/bench-cli';
 
-const { values: args } = parseArgs({
-  options: { json: { type: 'boolean' }, rounds: { type: 'string' } },
-});
-const rounds = Number(args.rounds ?? 3);
+const cli = readBenchCli();
+const rounds = cli.number('rounds', 3);
 const loadStart = os.loadavg();
 await ensureEngineWorkersBuilt();
 
@@ -84,7 +82,7 @@ const figures = {
     end: os.loadavg().map((l) => +l.toFixed(2)),
   },
 };
-if (args.json) console.log(JSON.stringify(figures));
+if (cli.asJson) console.log(JSON.stringify(figures));
 else {
   console.log(
     `engine thread start, ${threads} threads per way (load ${figures.loadAverage.start.join(' ')}):`,

@@ -11,6 +11,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { ensureBuilt, runBuildCommand, type BuildStep } from './lib/build-step';
 import type { Plugin } from 'esbuild';
 import {
   PREBUILT_WORKERS_DIR,
@@ -116,19 +117,14 @@ export async function buildEngineWorkers(): Promise<void> {
   );
 }
 
-/** Builds the worker bundles when they are missing or stale; quick when they are up to date. */
-export async function ensureEngineWorkersBuilt(): Promise<void> {
-  if (areEngineWorkersStale()) await buildEngineWorkers();
-}
+const step: BuildStep = {
+  name: 'Engine worker bundles',
+  output: PREBUILT_WORKERS_DIR,
+  isStale: areEngineWorkersStale,
+  build: buildEngineWorkers,
+};
 
-if (process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
-  const started = Date.now();
-  if (process.argv.includes('--if-stale') && !areEngineWorkersStale()) {
-    console.log('Engine worker bundles are up to date');
-  } else {
-    await buildEngineWorkers();
-    console.log(
-      `Engine worker bundles built in ${((Date.now() - started) / 1000).toFixed(1)} s: ${PREBUILT_WORKERS_DIR}`,
-    );
-  }
-}
+/** Builds when missing or stale; quick when up to date. */
+export const ensureEngineWorkersBuilt = (): Promise<void> => ensureBuilt(step);
+
+await runBuildCommand(step, import.meta.url);

@@ -8,6 +8,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { ensureBuilt, runBuildCommand, type BuildStep } from './lib/build-step';
 
 const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 const SIMD_DIR = path.join(ROOT, 'server/engine/simd');
@@ -42,19 +43,14 @@ export async function buildSimdKernel(): Promise<void> {
   if (result.error) throw new Error(`WebAssembly kernel build failed:\n${messages}`);
 }
 
-/** Builds the kernel when it is missing or stale; quick when it is up to date. */
-export async function ensureSimdKernelBuilt(): Promise<void> {
-  if (isSimdKernelStale()) await buildSimdKernel();
-}
+const step: BuildStep = {
+  name: 'WebAssembly kernel',
+  output: OUTPUT,
+  isStale: isSimdKernelStale,
+  build: buildSimdKernel,
+};
 
-if (process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
-  const started = Date.now();
-  if (process.argv.includes('--if-stale') && !isSimdKernelStale()) {
-    console.log('WebAssembly kernel is up to date');
-  } else {
-    await buildSimdKernel();
-    console.log(
-      `WebAssembly kernel built in ${((Date.now() - started) / 1000).toFixed(1)} s: ${OUTPUT}`,
-    );
-  }
-}
+/** Builds when missing or stale; quick when up to date. */
+export const ensureSimdKernelBuilt = (): Promise<void> => ensureBuilt(step);
+
+await runBuildCommand(step, import.meta.url);

@@ -36,3 +36,25 @@ export function CheckboxField({
     </div>
   );
 }
+
+/** The unlabelled tick beside a list row that puts the row into a side-by-side comparison. */
+export function CompareCheckbox({
+  name,
+  checked,
+  onToggle,
+}: {
+  /** The row's name, read out as "Compare <name>". */
+  name: string;
+  checked: boolean;
+  onToggle: () => void;
+}) {
+  return (
+    <input
+      type="checkbox"
+      className="size-4 accent-primary"
+      aria-label={`Compare ${name}`}
+      checked={checked}
+      onChange={onToggle}
+    />
+  );
+}

@@ -5,6 +5,7 @@
 import { Link } from 'react-router';
 import type { Run } from '@shared/schemas/run';
 import { Button } from '@/components/ui/button';
+import { CompareCheckbox } from '@/components/ui/checkbox-field';
 import { paths } from '@/config/paths';
 import { useCancelRun } from '../api/cancel-run';
 import { isRunActive } from '../api/run-keys';
@@ -42,12 +43,10 @@ export function RunsList({
         <li key={run.id} className="space-y-2 px-4 py-3">
           <div className="flex flex-wrap items-center gap-x-3 gap-y-1">
             {run.status === 'done' && (
-              <input
-                type="checkbox"
-                className="size-4 accent-primary"
-                aria-label={`Compare ${run.name}`}
+              <CompareCheckbox
+                name={run.name}
                 checked={selected.has(run.id)}
-                onChange={() => onToggle(run.id)}
+                onToggle={() => onToggle(run.id)}
               />
             )}
             <Link

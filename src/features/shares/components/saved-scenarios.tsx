@@ -3,6 +3,7 @@
  * side, delete (writers only, after a confirmation).
  */
 import { Button } from '@/components/ui/button';
+import { CompareCheckbox } from '@/components/ui/checkbox-field';
 import { useConfirm } from '@/components/ui/confirm-dialog';
 import { formatDateTime } from '@/utils/format';
 import type { SavedScenario } from '@shared/schemas/shares';
@@ -48,12 +49,10 @@ export function SavedScenarios({
         {scenarios.map((s) => (
           <tr key={s.id} className="border-b border-line/60">
             <td className="px-2 py-1">
-              <input
-                type="checkbox"
-                className="size-4 accent-primary"
-                aria-label={`Compare ${s.name}`}
+              <CompareCheckbox
+                name={s.name}
                 checked={compared.includes(s.id)}
-                onChange={() => onToggleCompare(s.id)}
+                onToggle={() => onToggleCompare(s.id)}
               />
             </td>
             <td className="px-2 py-1">

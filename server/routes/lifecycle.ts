@@ -3,58 +3,42 @@
  * draft, fieldwork settings (links, close date, quota, redirects) and versions. Reading needs
  * study:read; every change needs fieldwork:manage (owner, editor).
  */
-import { Router, type Request } from 'express';
+import type { Router } from 'express';
 import type { AppDeps } from '../deps';
-import { parseBody, parseParams } from '../middleware/validate';
-import { actorOf, requireTeam, requireUser } from '../middleware/auth';
-import { studyParamsSchema } from '../services/study-access';
+import { createTeamRouter } from './team-router';
 import { updateFieldworkSettingsSchema } from '../../shared/schemas/study-lifecycle';
 import * as lifecycle from '../services/lifecycle';
 
 export function createLifecycleRouter(deps: AppDeps): Router {
-  const router = Router({ mergeParams: true });
-  router.use(requireUser(deps));
-  const read = requireTeam(deps, 'study:read');
-  const manage = requireTeam(deps, 'fieldwork:manage');
-  const ids = (req: Request) => ({
-    teamId: actorOf(req).teamId,
-    studyId: parseParams(studyParamsSchema, req).studyId,
+  const r = createTeamRouter(deps);
+  r.get('/', 'study:read', {
+    run: ({ actor, params }) => lifecycle.getLifecycle(deps, actor.teamId, params.studyId),
   });
-
-  router.get('/', read, async (req, res) => {
-    const { teamId, studyId } = ids(req);
-    res.json(await lifecycle.getLifecycle(deps, teamId, studyId));
+  r.get('/readiness', 'study:read', {
+    run: ({ actor, params }) => lifecycle.getReadiness(deps, actor.teamId, params.studyId),
   });
-  router.get('/readiness', read, async (req, res) => {
-    const { teamId, studyId } = ids(req);
-    res.json(await lifecycle.getReadiness(deps, teamId, studyId));
+  r.get('/versions', 'study:read', {
+    run: ({ actor, params }) => lifecycle.listVersions(deps, actor.teamId, params.studyId),
   });
-  router.get('/versions', read, async (req, res) => {
-    const { teamId, studyId } = ids(req);
-    res.json(await lifecycle.listVersions(deps, teamId, studyId));
+  r.post('/go-live', 'fieldwork:manage', {
+    run: ({ actor, params }) =>
+      lifecycle.goLive(deps, actor.teamId, params.studyId, { from: 'draft', actor }),
   });
-  router.post('/go-live', manage, async (req, res) => {
-    const { teamId, studyId } = ids(req);
-    res.json(await lifecycle.goLive(deps, teamId, studyId, { from: 'draft', actor: actorOf(req) }));
+  r.post('/close', 'fieldwork:manage', {
+    run: ({ actor, params }) =>
+      lifecycle.closeStudy(deps, actor.teamId, params.studyId, new Date(), actor),
   });
-  router.post('/close', manage, async (req, res) => {
-    const { teamId, studyId } = ids(req);
-    res.json(await lifecycle.closeStudy(deps, teamId, studyId, new Date(), actorOf(req)));
+  r.post('/reopen', 'fieldwork:manage', {
+    run: ({ actor, params }) =>
+      lifecycle.goLive(deps, actor.teamId, params.studyId, { from: 'closed', actor }),
   });
-  router.post('/reopen', manage, async (req, res) => {
-    const { teamId, studyId } = ids(req);
-    res.json(
-      await lifecycle.goLive(deps, teamId, studyId, { from: 'closed', actor: actorOf(req) }),
-    );
+  r.post('/return-to-draft', 'fieldwork:manage', {
+    run: ({ actor, params }) => lifecycle.returnToDraft(deps, actor.teamId, params.studyId, actor),
   });
-  router.post('/return-to-draft', manage, async (req, res) => {
-    const { teamId, studyId } = ids(req);
-    res.json(await lifecycle.returnToDraft(deps, teamId, studyId, actorOf(req)));
+  r.patch('/settings', 'fieldwork:manage', {
+    body: updateFieldworkSettingsSchema,
+    run: ({ actor, params, body }) =>
+      lifecycle.updateSettings(deps, actor.teamId, params.studyId, body),
   });
-  router.patch('/settings', manage, async (req, res) => {
-    const { teamId, studyId } = ids(req);
-    const input = parseBody(updateFieldworkSettingsSchema, req);
-    res.json(await lifecycle.updateSettings(deps, teamId, studyId, input));
-  });
-  return router;
+  return r.router;
 }

@@ -3,11 +3,9 @@
  * role; personal columns only with personal:read), include/exclude and the speeder threshold
  * (responses:manage).
  */
-import { Router } from 'express';
+import type { Router } from 'express';
 import type { AppDeps } from '../deps';
-import { parseBody, parseParams, parseQuery } from '../middleware/validate';
-import { actorOf, requireTeam, requireUser } from '../middleware/auth';
-import { studyParamsSchema } from '../services/study-access';
+import { createTeamRouter } from './team-router';
 import {
   excludeFlaggedSchema,
   listResponsesQuerySchema,
@@ -18,34 +16,25 @@ import {
 import * as responses from '../services/responses';
 
 export function createResponsesRouter(deps: AppDeps): Router {
-  const router = Router({ mergeParams: true });
-  router.use(requireUser(deps));
-  const read = requireTeam(deps, 'responses:read');
-  const manage = requireTeam(deps, 'responses:manage');
-
-  router.get('/', read, async (req, res) => {
-    const { studyId } = parseParams(studyParamsSchema, req);
-    const q = parseQuery(listResponsesQuerySchema, req);
-    res.json(await responses.listResponses(deps, actorOf(req), studyId, q));
+  const r = createTeamRouter(deps);
+  r.get('/', 'responses:read', {
+    query: listResponsesQuerySchema,
+    run: ({ actor, params, query }) => responses.listResponses(deps, actor, params.studyId, query),
   });
-
-  router.put('/quality-settings', manage, async (req, res) => {
-    const { studyId } = parseParams(studyParamsSchema, req);
-    const input = parseBody(updateQualitySettingsSchema, req);
-    res.json(await responses.saveQualitySettings(deps, actorOf(req).teamId, studyId, input));
+  r.put('/quality-settings', 'responses:manage', {
+    body: updateQualitySettingsSchema,
+    run: ({ actor, params, body }) =>
+      responses.saveQualitySettings(deps, actor.teamId, params.studyId, body),
   });
-
-  router.post('/exclude-flagged', manage, async (req, res) => {
-    const { studyId } = parseParams(studyParamsSchema, req);
-    const input = parseBody(excludeFlaggedSchema, req);
-    res.json(await responses.excludeFlagged(deps, actorOf(req), studyId, input));
+  r.post('/exclude-flagged', 'responses:manage', {
+    body: excludeFlaggedSchema,
+    run: ({ actor, params, body }) => responses.excludeFlagged(deps, actor, params.studyId, body),
   });
-
-  router.put('/:respondentId/inclusion', manage, async (req, res) => {
-    const { studyId, respondentId } = parseParams(respondentParamsSchema, req);
-    const input = parseBody(setInclusionSchema, req);
-    res.json(await responses.setInclusion(deps, actorOf(req), studyId, respondentId, input));
+  r.put('/:respondentId/inclusion', 'responses:manage', {
+    params: respondentParamsSchema,
+    body: setInclusionSchema,
+    run: ({ actor, params, body }) =>
+      responses.setInclusion(deps, actor, params.studyId, params.respondentId, body),
   });
-
-  return router;
+  return r.router;
 }

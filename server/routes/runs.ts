@@ -2,11 +2,9 @@
  * /api/teams/:teamId/studies/:studyId/runs — estimation runs. Everyone in the team may read
  * ('runs:read'); starting and cancelling needs 'runs:manage' (owner, analyst).
  */
-import { Router } from 'express';
+import type { Router } from 'express';
 import type { AppDeps } from '../deps';
-import { parseBody, parseParams } from '../middleware/validate';
-import { actorOf, requireTeam, requireUser } from '../middleware/auth';
-import { studyParamsSchema } from '../services/study-access';
+import { createTeamRouter } from './team-router';
 import {
   createRespondentFilterSchema,
   createRunSchema,
@@ -15,41 +13,34 @@ import {
 import * as runs from '../services/runs';
 
 export function createRunsRouter(deps: AppDeps): Router {
-  const router = Router({ mergeParams: true });
-  router.use(requireUser(deps));
-  const read = requireTeam(deps, 'runs:read');
-  const manage = requireTeam(deps, 'runs:manage');
-
-  router.get('/', read, async (req, res) => {
-    const { studyId } = parseParams(studyParamsSchema, req);
-    res.json(await runs.listRuns(deps, actorOf(req), studyId));
+  const r = createTeamRouter(deps);
+  r.get('/', 'runs:read', {
+    run: ({ actor, params }) => runs.listRuns(deps, actor, params.studyId),
   });
-  router.get('/options', read, async (req, res) => {
-    const { studyId } = parseParams(studyParamsSchema, req);
-    res.json(await runs.getRunOptions(deps, actorOf(req), studyId));
+  r.get('/options', 'runs:read', {
+    run: ({ actor, params }) => runs.getRunOptions(deps, actor, params.studyId),
   });
-  router.post('/', manage, async (req, res) => {
-    const { studyId } = parseParams(studyParamsSchema, req);
-    const input = parseBody(createRunSchema, req);
-    res.status(201).json(await runs.createRun(deps, actorOf(req), studyId, input));
+  r.post('/', 'runs:manage', {
+    body: createRunSchema,
+    status: 201,
+    run: ({ actor, params, body }) => runs.createRun(deps, actor, params.studyId, body),
   });
-  router.post('/filters', manage, async (req, res) => {
-    const { studyId } = parseParams(studyParamsSchema, req);
-    const input = parseBody(createRespondentFilterSchema, req);
-    res.status(201).json(await runs.saveRespondentFilter(deps, actorOf(req), studyId, input));
+  r.post('/filters', 'runs:manage', {
+    body: createRespondentFilterSchema,
+    status: 201,
+    run: ({ actor, params, body }) => runs.saveRespondentFilter(deps, actor, params.studyId, body),
   });
-  router.get('/:runId', read, async (req, res) => {
-    const { studyId, runId } = parseParams(runParamsSchema, req);
-    res.json(await runs.getRun(deps, actorOf(req), studyId, runId));
+  r.get('/:runId', 'runs:read', {
+    params: runParamsSchema,
+    run: ({ actor, params }) => runs.getRun(deps, actor, params.studyId, params.runId),
   });
-  router.get('/:runId/conditional-means', read, async (req, res) => {
-    const { studyId, runId } = parseParams(runParamsSchema, req);
-    res.json(await runs.getConditionalMeans(deps, actorOf(req), studyId, runId));
+  r.get('/:runId/conditional-means', 'runs:read', {
+    params: runParamsSchema,
+    run: ({ actor, params }) => runs.getConditionalMeans(deps, actor, params.studyId, params.runId),
   });
-  router.post('/:runId/cancel', manage, async (req, res) => {
-    const { studyId, runId } = parseParams(runParamsSchema, req);
-    res.json(await runs.cancelRun(deps, actorOf(req), studyId, runId));
+  r.post('/:runId/cancel', 'runs:manage', {
+    params: runParamsSchema,
+    run: ({ actor, params }) => runs.cancelRun(deps, actor, params.studyId, params.runId),
   });
-
-  return router;
+  return r.router;
 }

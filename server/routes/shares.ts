@@ -3,11 +3,9 @@
  * with 'runs:read' may load a run's share model, its segments, simulate, and list saved
  * scenarios; saving, renaming and deleting scenarios needs 'scenarios:write'.
  */
-import { Router } from 'express';
+import type { Router } from 'express';
 import type { AppDeps } from '../deps';
-import { parseBody, parseParams, parseQuery } from '../middleware/validate';
-import { actorOf, requireTeam, requireUser } from '../middleware/auth';
-import { studyParamsSchema } from '../services/study-access';
+import { createTeamRouter } from './team-router';
 import {
   shareExportSchema,
   scenarioBodySchema,
@@ -27,53 +25,45 @@ import {
 } from '../services/share-scenarios';
 
 export function createSharesRouter(deps: AppDeps): Router {
-  const router = Router({ mergeParams: true });
-  router.use(requireUser(deps));
-  router.get('/model', requireTeam(deps, 'runs:read'), async (req, res) => {
-    const { studyId } = parseParams(studyParamsSchema, req);
-    const { runId } = parseQuery(shareModelQuerySchema, req);
-    res.json(await getShareModel(deps, actorOf(req), studyId, runId));
+  const r = createTeamRouter(deps);
+  r.get('/model', 'runs:read', {
+    query: shareModelQuerySchema,
+    run: ({ actor, params, query }) => getShareModel(deps, actor, params.studyId, query.runId),
   });
-  router.get('/groups', requireTeam(deps, 'runs:read'), async (req, res) => {
-    const { studyId } = parseParams(studyParamsSchema, req);
-    const query = parseQuery(shareGroupsQuerySchema, req);
-    res.json(await getShareGroups(deps, actorOf(req), studyId, query));
+  r.get('/groups', 'runs:read', {
+    query: shareGroupsQuerySchema,
+    run: ({ actor, params, query }) => getShareGroups(deps, actor, params.studyId, query),
   });
-  router.post('/simulate', requireTeam(deps, 'runs:read'), async (req, res) => {
-    const { studyId } = parseParams(studyParamsSchema, req);
-    const input = parseBody(simulateSharesSchema, req);
-    res.json(await simulateStudyShares(deps, actorOf(req), studyId, input));
+  r.post('/simulate', 'runs:read', {
+    body: simulateSharesSchema,
+    run: ({ actor, params, body }) => simulateStudyShares(deps, actor, params.studyId, body),
   });
   // A download built from the scenario in the body (which need not be saved): POST, not GET.
-  router.post('/export', requireTeam(deps, 'exports:read'), async (req, res) => {
-    const { studyId } = parseParams(studyParamsSchema, req);
-    const input = parseBody(shareExportSchema, req);
-    await sendDownload(deps, req, res, await exportShares(deps, actorOf(req), studyId, input));
+  r.post('/export', 'exports:read', {
+    body: shareExportSchema,
+    run: ({ actor, params, body }) => exportShares(deps, actor, params.studyId, body),
+    send: (res, file, req) => sendDownload(deps, req, res, file),
   });
-  router.get('/scenarios', requireTeam(deps, 'runs:read'), async (req, res) => {
-    const { teamId, studyId } = parseParams(studyParamsSchema, req);
-    res.json(await listScenarios(deps, { teamId, studyId }));
+  r.get('/scenarios', 'runs:read', {
+    run: ({ params: { teamId, studyId } }) => listScenarios(deps, { teamId, studyId }),
   });
-  router.post('/scenarios', requireTeam(deps, 'scenarios:write'), async (req, res) => {
-    const { teamId, studyId } = parseParams(studyParamsSchema, req);
-    const body = parseBody(scenarioBodySchema, req);
-    res
-      .status(201)
-      .json(await createScenario(deps, { teamId, studyId }, actorOf(req).userId, body));
+  r.post('/scenarios', 'scenarios:write', {
+    body: scenarioBodySchema,
+    status: 201,
+    run: ({ actor, params: { teamId, studyId }, body }) =>
+      createScenario(deps, { teamId, studyId }, actor.userId, body),
   });
-  router.put('/scenarios/:scenarioId', requireTeam(deps, 'scenarios:write'), async (req, res) => {
-    const { teamId, studyId, scenarioId } = parseParams(scenarioParamsSchema, req);
-    const body = parseBody(scenarioBodySchema, req);
-    res.json(await updateScenario(deps, { teamId, studyId }, scenarioId, body));
+  r.put('/scenarios/:scenarioId', 'scenarios:write', {
+    params: scenarioParamsSchema,
+    body: scenarioBodySchema,
+    run: ({ params: { teamId, studyId, scenarioId }, body }) =>
+      updateScenario(deps, { teamId, studyId }, scenarioId, body),
   });
-  router.delete(
-    '/scenarios/:scenarioId',
-    requireTeam(deps, 'scenarios:write'),
-    async (req, res) => {
-      const { teamId, studyId, scenarioId } = parseParams(scenarioParamsSchema, req);
-      await removeScenario(deps, { teamId, studyId }, scenarioId);
-      res.status(204).end();
-    },
-  );
-  return router;
+  r.delete('/scenarios/:scenarioId', 'scenarios:write', {
+    params: scenarioParamsSchema,
+    status: 204,
+    run: ({ params: { teamId, studyId, scenarioId } }) =>
+      removeScenario(deps, { teamId, studyId }, scenarioId),
+  });
+  return r.router;
 }

@@ -1,9 +1,8 @@
 /** /api/teams/:teamId/studies — studies and their definition (attributes, alternatives). */
-import { Router } from 'express';
+import type { Router } from 'express';
+import { z } from 'zod';
 import type { AppDeps } from '../deps';
-import { parseBody, parseParams, parseQuery } from '../middleware/validate';
-import { actorOf, requireTeam, requireUser } from '../middleware/auth';
-import { studyParamsSchema } from '../services/study-access';
+import { createTeamRouter } from './team-router';
 import {
   archiveStudySchema,
   createStudySchema,
@@ -13,44 +12,43 @@ import {
 } from '../../shared/schemas/study';
 import * as studies from '../services/studies';
 
+/** The list and the create route sit above any one study: no study id to parse. */
+const noStudyParams = z.object({});
+
 export function createStudiesRouter(deps: AppDeps): Router {
-  const router = Router({ mergeParams: true });
-  router.use(requireUser(deps));
-  const read = requireTeam(deps, 'study:read');
-  const write = requireTeam(deps, 'study:write');
-
-  router.get('/', read, async (req, res) => {
-    const { archived } = parseQuery(listStudiesQuerySchema, req);
-    res.json(await studies.listStudies(deps, actorOf(req).teamId, archived === 'true'));
+  const r = createTeamRouter(deps);
+  r.get('/', 'study:read', {
+    params: noStudyParams,
+    query: listStudiesQuerySchema,
+    run: ({ actor, query }) => studies.listStudies(deps, actor.teamId, query.archived === 'true'),
   });
-  router.post('/', write, async (req, res) => {
-    const m = actorOf(req);
-    res.status(201).json(await studies.createStudy(deps, m, parseBody(createStudySchema, req)));
+  r.post('/', 'study:write', {
+    params: noStudyParams,
+    body: createStudySchema,
+    status: 201,
+    run: ({ actor, body }) => studies.createStudy(deps, actor, body),
   });
-
-  router.get('/:studyId', read, async (req, res) => {
-    const { studyId } = parseParams(studyParamsSchema, req);
-    res.json(await studies.getStudy(deps, actorOf(req).teamId, studyId));
+  r.get('/:studyId', 'study:read', {
+    run: ({ actor, params }) => studies.getStudy(deps, actor.teamId, params.studyId),
   });
-  router.patch('/:studyId', write, async (req, res) => {
-    const { studyId } = parseParams(studyParamsSchema, req);
-    const input = parseBody(updateStudySchema, req);
-    res.json(await studies.describeStudy(deps, actorOf(req).teamId, studyId, input));
+  r.patch('/:studyId', 'study:write', {
+    body: updateStudySchema,
+    run: ({ actor, params, body }) =>
+      studies.describeStudy(deps, actor.teamId, params.studyId, body),
   });
-  router.post('/:studyId/duplicate', write, async (req, res) => {
-    const { studyId } = parseParams(studyParamsSchema, req);
-    res.status(201).json(await studies.duplicateStudy(deps, actorOf(req), studyId));
+  r.post('/:studyId/duplicate', 'study:write', {
+    status: 201,
+    run: ({ actor, params }) => studies.duplicateStudy(deps, actor, params.studyId),
   });
-  router.put('/:studyId/archived', write, async (req, res) => {
-    const { studyId } = parseParams(studyParamsSchema, req);
-    const { archived } = parseBody(archiveStudySchema, req);
-    res.json(await studies.setStudyArchived(deps, actorOf(req).teamId, studyId, archived));
+  r.put('/:studyId/archived', 'study:write', {
+    body: archiveStudySchema,
+    run: ({ actor, params, body }) =>
+      studies.setStudyArchived(deps, actor.teamId, params.studyId, body.archived),
   });
-  router.put('/:studyId/definition', write, async (req, res) => {
-    const { studyId } = parseParams(studyParamsSchema, req);
-    const { definition } = parseBody(updateDefinitionSchema, req);
-    res.json(await studies.saveDefinition(deps, actorOf(req).teamId, studyId, definition));
+  r.put('/:studyId/definition', 'study:write', {
+    body: updateDefinitionSchema,
+    run: ({ actor, params, body }) =>
+      studies.saveDefinition(deps, actor.teamId, params.studyId, body.definition),
   });
-
-  return router;
+  return r.router;
 }

@@ -3,12 +3,10 @@
  * Reading (and exporting a translator's file) needs study:read; changing languages, saving,
  * importing and confirming texts needs study:write (owner, editor).
  */
-import { Router, type Request } from 'express';
+import type { Request, Router } from 'express';
 import type { AppDeps } from '../deps';
-import { parseBody, parseParams } from '../middleware/validate';
-import { actorOf, requireTeam, requireUser } from '../middleware/auth';
-import { studyParamsSchema } from '../services/study-access';
-import { parseQuery } from '../middleware/validate';
+import { parseBody, parseParams, parseQuery } from '../middleware/validate';
+import { createTeamRouter } from './team-router';
 import {
   confirmTranslationsSchema,
   exportTranslationsQuerySchema,
@@ -24,53 +22,56 @@ import {
 } from '../services/translations/translation-files';
 import { confirmTranslations, saveTranslations } from '../services/translations/save-translations';
 
-export function createStudyTextsRouter(deps: AppDeps): Router {
-  const router = Router({ mergeParams: true });
-  router.use(requireUser(deps));
-  const read = requireTeam(deps, 'study:read');
-  const write = requireTeam(deps, 'study:write');
-  const ids = (req: Request) => ({
-    teamId: actorOf(req).teamId,
-    studyId: parseParams(studyParamsSchema, req).studyId,
-  });
+/**
+ * The language in the path: parsed after the study's ids and before query and body, so that a
+ * request with several bad parts reports the same one first as before.
+ */
+const langOf = (req: Request) => parseParams(languageParamsSchema, req).lang;
 
-  router.get('/', read, async (req, res) => {
-    const { teamId, studyId } = ids(req);
-    res.json(await studyTexts.getStudyTexts(deps, teamId, studyId));
+export function createStudyTextsRouter(deps: AppDeps): Router {
+  const r = createTeamRouter(deps);
+  r.get('/', 'study:read', {
+    run: ({ actor, params }) => studyTexts.getStudyTexts(deps, actor.teamId, params.studyId),
   });
-  router.put('/languages', write, async (req, res) => {
-    const { studyId } = ids(req);
-    const { languages } = parseBody(updateLanguagesSchema, req);
-    res.json(await studyTexts.updateLanguages(deps, actorOf(req), studyId, languages));
+  r.put('/languages', 'study:write', {
+    body: updateLanguagesSchema,
+    run: ({ actor, params, body }) =>
+      studyTexts.updateLanguages(deps, actor, params.studyId, body.languages),
   });
-  router.get('/:lang/file', read, async (req, res) => {
-    const { teamId, studyId } = ids(req);
-    const { lang } = parseParams(languageParamsSchema, req);
-    const { format } = parseQuery(exportTranslationsQuerySchema, req);
-    const file = await exportTranslationFile(deps, teamId, studyId, lang, format);
-    res.setHeader('Content-Type', file.contentType);
-    res.setHeader('Cache-Control', 'no-store');
-    res.setHeader('X-Content-Type-Options', 'nosniff');
-    res.setHeader('Content-Disposition', `attachment; filename="${file.filename}"`);
-    res.send(file.body);
+  r.get('/:lang/file', 'study:read', {
+    run: ({ actor, params, req }) => {
+      const lang = langOf(req);
+      const { format } = parseQuery(exportTranslationsQuerySchema, req);
+      return exportTranslationFile(deps, actor.teamId, params.studyId, lang, format);
+    },
+    send: (res, file) => {
+      res.setHeader('Content-Type', file.contentType);
+      res.setHeader('Cache-Control', 'no-store');
+      res.setHeader('X-Content-Type-Options', 'nosniff');
+      res.setHeader('Content-Disposition', `attachment; filename="${file.filename}"`);
+      res.send(file.body);
+    },
   });
-  router.post('/:lang/file', write, async (req, res) => {
-    const { studyId } = ids(req);
-    const { lang } = parseParams(languageParamsSchema, req);
-    const input = parseBody(importTranslationsSchema, req);
-    res.json(await importTranslationFile(deps, actorOf(req), studyId, lang, input));
+  r.post('/:lang/file', 'study:write', {
+    run: ({ actor, params, req }) => {
+      const lang = langOf(req);
+      const input = parseBody(importTranslationsSchema, req);
+      return importTranslationFile(deps, actor, params.studyId, lang, input);
+    },
   });
-  router.put('/:lang/confirmed', write, async (req, res) => {
-    const { studyId } = ids(req);
-    const { lang } = parseParams(languageParamsSchema, req);
-    const { keys } = parseBody(confirmTranslationsSchema, req);
-    res.json(await confirmTranslations(deps, actorOf(req), studyId, lang, keys));
+  r.put('/:lang/confirmed', 'study:write', {
+    run: ({ actor, params, req }) => {
+      const lang = langOf(req);
+      const { keys } = parseBody(confirmTranslationsSchema, req);
+      return confirmTranslations(deps, actor, params.studyId, lang, keys);
+    },
   });
-  router.put('/:lang', write, async (req, res) => {
-    const { studyId } = ids(req);
-    const { lang } = parseParams(languageParamsSchema, req);
-    const { texts } = parseBody(saveTranslationsSchema, req);
-    res.json(await saveTranslations(deps, actorOf(req), studyId, lang, texts));
+  r.put('/:lang', 'study:write', {
+    run: ({ actor, params, req }) => {
+      const lang = langOf(req);
+      const { texts } = parseBody(saveTranslationsSchema, req);
+      return saveTranslations(deps, actor, params.studyId, lang, texts);
+    },
   });
-  return router;
+  return r.router;
 }

@@ -14,6 +14,7 @@ import {
   exportRunQuerySchema,
   optionalRunQuerySchema,
 } from '../../shared/schemas/exports';
+import { sendFile } from './send-download';
 import type { Download, RunExporter, StudyExporter } from '../services/exports/download';
 import { auditPersonalDownload } from '../services/exports/audit-download';
 import { getExportManifest } from '../services/exports/manifest';
@@ -46,14 +47,7 @@ export async function send(
 ): Promise<void> {
   const { studyId } = parseParams(studyParamsSchema, req);
   await auditPersonalDownload(deps, actorOf(req), studyId, file);
-  res.setHeader('Content-Type', file.contentType);
-  res.setHeader('Cache-Control', 'no-store');
-  res.setHeader('X-Content-Type-Options', 'nosniff');
-  res.setHeader(
-    'Content-Disposition',
-    `${inline ? 'inline' : 'attachment'}; filename="${file.filename}"`,
-  );
-  res.send(file.body);
+  sendFile(res, file, inline);
 }
 
 export function createExportsRouter(deps: AppDeps): Router {

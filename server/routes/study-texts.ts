@@ -7,6 +7,7 @@ import type { Request, Router } from 'express';
 import type { AppDeps } from '../deps';
 import { parseBody, parseParams, parseQuery } from '../middleware/validate';
 import { createTeamRouter } from './team-router';
+import { sendFile } from './send-download';
 import {
   confirmTranslationsSchema,
   exportTranslationsQuerySchema,
@@ -44,13 +45,7 @@ export function createStudyTextsRouter(deps: AppDeps): Router {
       const { format } = parseQuery(exportTranslationsQuerySchema, req);
       return exportTranslationFile(deps, actor.teamId, params.studyId, lang, format);
     },
-    send: (res, file) => {
-      res.setHeader('Content-Type', file.contentType);
-      res.setHeader('Cache-Control', 'no-store');
-      res.setHeader('X-Content-Type-Options', 'nosniff');
-      res.setHeader('Content-Disposition', `attachment; filename="${file.filename}"`);
-      res.send(file.body);
-    },
+    send: (res, file) => sendFile(res, file),
   });
   r.post('/:lang/file', 'study:write', {
     run: ({ actor, params, req }) => {

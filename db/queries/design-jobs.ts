@@ -6,6 +6,7 @@
  */
 import { and, desc, eq, inArray, isNull, lt, sql, type SQL } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
+import { failQueuedRows, listQueuedRows } from './queued-rows';
 import { designJobs } from '../schema/studies';
 
 export const designJobColumns = {
@@ -183,21 +184,13 @@ export async function failStaleDesignJobs(db: DbOrTx, params: { silentSince: Dat
 }
 
 /** Design jobs still queued that were created before `createdBefore` (orphan-sweep.ts). */
-export async function listQueuedDesignJobs(db: DbOrTx, createdBefore: Date) {
-  return db
-    .select({ id: designJobs.id, createdAt: designJobs.createdAt })
-    .from(designJobs)
-    .where(and(eq(designJobs.status, 'queued'), lt(designJobs.createdAt, createdBefore)));
+export function listQueuedDesignJobs(db: DbOrTx, createdBefore: Date) {
+  return listQueuedRows(db, designJobs, createdBefore);
 }
 
 /** Fails these design jobs if they are still queued; returns the ids it failed. */
-export async function failQueuedDesignJobs(db: DbOrTx, ids: string[], error: string) {
-  const rows = await db
-    .update(designJobs)
-    .set({ status: 'failed', error, finishedAt: new Date() })
-    .where(and(inArray(designJobs.id, ids), eq(designJobs.status, 'queued')))
-    .returning({ id: designJobs.id });
-  return rows.map((r) => r.id);
+export function failQueuedDesignJobs(db: DbOrTx, ids: string[], error: string) {
+  return failQueuedRows(db, designJobs, ids, { status: 'failed', error, finishedAt: new Date() });
 }
 
 /** The study's latest candidate job (services/redesign.ts): its design, if any, waits to be adopted. */

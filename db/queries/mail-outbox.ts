@@ -5,8 +5,9 @@
  * Tenant: none applies: the mail worker drains the outbox of every team; rows are claimed by
  * their id.
  */
-import { and, eq, inArray, lt, sql } from 'drizzle-orm';
+import { and, eq, lt, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
+import { failQueuedRows, listQueuedRows } from './queued-rows';
 import { mailOutbox } from '../schema/mail';
 
 export type MailKind = 'invitation' | 'reminder';
@@ -77,20 +78,16 @@ export async function failInterruptedSends(db: DbOrTx, params: { before: Date; e
 }
 
 /** Queued rows created before `createdBefore` (orphan-sweep.ts). */
-export async function listQueuedOutboxMails(db: DbOrTx, createdBefore: Date) {
-  return db
-    .select({ id: mailOutbox.id, createdAt: mailOutbox.createdAt })
-    .from(mailOutbox)
-    .where(and(eq(mailOutbox.status, 'queued'), lt(mailOutbox.createdAt, createdBefore)));
+export function listQueuedOutboxMails(db: DbOrTx, createdBefore: Date) {
+  return listQueuedRows(db, mailOutbox, createdBefore);
 }
 
-export async function failQueuedOutboxMails(db: DbOrTx, ids: string[], error: string) {
-  const rows = await db
-    .update(mailOutbox)
-    .set({ status: 'failed', lastError: error, failedAt: new Date() })
-    .where(and(inArray(mailOutbox.id, ids), eq(mailOutbox.status, 'queued')))
-    .returning({ id: mailOutbox.id });
-  return rows.map((r) => r.id);
+export function failQueuedOutboxMails(db: DbOrTx, ids: string[], error: string) {
+  return failQueuedRows(db, mailOutbox, ids, {
+    status: 'failed',
+    lastError: error,
+    failedAt: new Date(),
+  });
 }
 
 /**

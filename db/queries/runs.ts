@@ -5,6 +5,7 @@
  */
 import { and, desc, eq, gte, inArray, isNull, lt, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
+import { failQueuedRows, listQueuedRows } from './queued-rows';
 import { runs } from '../schema/models';
 
 export const runColumns = {
@@ -253,19 +254,11 @@ export async function requeueStaleRuns(
 }
 
 /** Runs still queued that were created before `createdBefore` (orphan-sweep.ts). */
-export async function listQueuedRuns(db: DbOrTx, createdBefore: Date) {
-  return db
-    .select({ id: runs.id, createdAt: runs.createdAt })
-    .from(runs)
-    .where(and(eq(runs.status, 'queued'), lt(runs.createdAt, createdBefore)));
+export function listQueuedRuns(db: DbOrTx, createdBefore: Date) {
+  return listQueuedRows(db, runs, createdBefore);
 }
 
 /** Fails these runs if they are still queued; returns the ids it failed. */
-export async function failQueuedRuns(db: DbOrTx, ids: string[], error: string) {
-  const rows = await db
-    .update(runs)
-    .set({ status: 'failed', error, finishedAt: new Date() })
-    .where(and(inArray(runs.id, ids), eq(runs.status, 'queued')))
-    .returning({ id: runs.id });
-  return rows.map((r) => r.id);
+export function failQueuedRuns(db: DbOrTx, ids: string[], error: string) {
+  return failQueuedRows(db, runs, ids, { status: 'failed', error, finishedAt: new Date() });
 }

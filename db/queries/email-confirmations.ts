@@ -3,8 +3,9 @@
  * none applies: confirmations belong to a user account, not to a team, and are found by the hash
  * of the token mailed to that user.
  */
-import { and, eq, gt, isNull } from 'drizzle-orm';
+import { and, eq, isNull } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
+import { consumeOneTimeToken } from './one-time-token';
 import { emailConfirmations, users } from '../schema/accounts';
 
 export async function insertEmailConfirmation(
@@ -19,18 +20,7 @@ export async function consumeEmailConfirmation(
   db: DbOrTx,
   params: { tokenHash: string; now: Date },
 ) {
-  const [row] = await db
-    .update(emailConfirmations)
-    .set({ usedAt: params.now })
-    .where(
-      and(
-        eq(emailConfirmations.tokenHash, params.tokenHash),
-        isNull(emailConfirmations.usedAt),
-        gt(emailConfirmations.expiresAt, params.now),
-      ),
-    )
-    .returning({ userId: emailConfirmations.userId });
-  return row?.userId ?? null;
+  return consumeOneTimeToken(db, emailConfirmations, params);
 }
 
 export async function markEmailVerified(db: DbOrTx, params: { userId: string; now: Date }) {

@@ -5,6 +5,7 @@
  */
 import { and, asc, eq, gt, isNull } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
+import { consumeOneTimeToken } from './one-time-token';
 import { passwordResets, teamInvitations, teams, users } from '../schema/accounts';
 import type { Role } from '../../shared/permissions';
 
@@ -18,6 +19,15 @@ const invitationColumns = {
   revokedAt: teamInvitations.revokedAt,
   createdAt: teamInvitations.createdAt,
 };
+
+/** Neither accepted nor revoked, and not yet expired at `now`. */
+function isOpenInvitation(now: Date) {
+  return and(
+    isNull(teamInvitations.acceptedAt),
+    isNull(teamInvitations.revokedAt),
+    gt(teamInvitations.expiresAt, now),
+  );
+}
 
 export async function insertInvitation(
   db: DbOrTx,
@@ -38,14 +48,7 @@ export async function listOpenInvitations(db: DbOrTx, params: { teamId: string; 
   return db
     .select(invitationColumns)
     .from(teamInvitations)
-    .where(
-      and(
-        eq(teamInvitations.teamId, params.teamId),
-        isNull(teamInvitations.acceptedAt),
-        isNull(teamInvitations.revokedAt),
-        gt(teamInvitations.expiresAt, params.now),
-      ),
-    )
+    .where(and(eq(teamInvitations.teamId, params.teamId), isOpenInvitation(params.now)))
     .orderBy(asc(teamInvitations.createdAt));
 }
 
@@ -64,14 +67,7 @@ export async function markInvitationAccepted(db: DbOrTx, params: { id: string; n
   const rows = await db
     .update(teamInvitations)
     .set({ acceptedAt: params.now })
-    .where(
-      and(
-        eq(teamInvitations.id, params.id),
-        isNull(teamInvitations.acceptedAt),
-        isNull(teamInvitations.revokedAt),
-        gt(teamInvitations.expiresAt, params.now),
-      ),
-    )
+    .where(and(eq(teamInvitations.id, params.id), isOpenInvitation(params.now)))
     .returning({ id: teamInvitations.id });
   return rows.length > 0;
 }
@@ -105,16 +101,5 @@ export async function insertPasswordReset(
 
 /** Consumes a reset token atomically; returns the user id, or null when unknown, used or expired. */
 export async function consumePasswordReset(db: DbOrTx, params: { tokenHash: string; now: Date }) {
-  const [row] = await db
-    .update(passwordResets)
-    .set({ usedAt: params.now })
-    .where(
-      and(
-        eq(passwordResets.tokenHash, params.tokenHash),
-        isNull(passwordResets.usedAt),
-        gt(passwordResets.expiresAt, params.now),
-      ),
-    )
-    .returning({ userId: passwordResets.userId });
-  return row?.userId ?? null;
+  return consumeOneTimeToken(db, passwordResets, params);
 }

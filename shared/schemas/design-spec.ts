@@ -3,6 +3,7 @@
  * blocks, the priors on the coded columns (keys from getCodedColumns), and search settings.
  */
 import { z } from 'zod';
+import { addIssue } from './add-issue';
 
 export const designMethodSchema = z.enum(['full_factorial', 'random', 'd_efficient']);
 export type DesignMethod = z.infer<typeof designMethodSchema>;
@@ -105,13 +106,9 @@ export const designSpecSchema = z
   })
   .superRefine((spec, ctx) => {
     if (spec.method !== 'full_factorial' && spec.tasks === undefined)
-      ctx.addIssue({ code: 'custom', path: ['tasks'], message: 'Give the number of tasks' });
+      addIssue(ctx, ['tasks'], 'Give the number of tasks');
     if (spec.tasks !== undefined && spec.tasks % spec.blocks !== 0)
-      ctx.addIssue({
-        code: 'custom',
-        path: ['blocks'],
-        message: 'The number of tasks must be a multiple of the number of blocks',
-      });
+      addIssue(ctx, ['blocks'], 'The number of tasks must be a multiple of the number of blocks');
   });
 export type DesignSpec = z.infer<typeof designSpecSchema>;
 export type DesignSpecInput = z.input<typeof designSpecSchema>;

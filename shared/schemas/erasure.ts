@@ -5,6 +5,7 @@
  * audit trail.
  */
 import { z } from 'zod';
+import { addIssue } from './add-issue';
 
 export const erasureLookupKinds = ['number', 'email', 'externalId'] as const;
 export type ErasureLookupKind = (typeof erasureLookupKinds)[number];
@@ -26,7 +27,7 @@ export const erasureLookupSchema = z
   })
   .superRefine((v, ctx) => {
     if (v.by === 'number' && !/^[1-9]\d{0,8}$/.test(v.value))
-      ctx.addIssue({ code: 'custom', path: ['value'], message: 'Enter a whole number from 1' });
+      addIssue(ctx, ['value'], 'Enter a whole number from 1');
   });
 export type ErasureLookup = z.infer<typeof erasureLookupSchema>;
 
@@ -43,8 +44,7 @@ export const eraseRespondentSchema = z
   .superRefine((v, ctx) => {
     const lookup = erasureLookupSchema.safeParse(v);
     if (!lookup.success)
-      for (const issue of lookup.error.issues)
-        ctx.addIssue({ code: 'custom', path: issue.path, message: issue.message });
+      for (const issue of lookup.error.issues) addIssue(ctx, issue.path, issue.message);
   });
 export type EraseRespondentInput = z.infer<typeof eraseRespondentSchema>;
 

@@ -5,6 +5,7 @@
  * Kept apart from estimation-spec.ts so each family's rules read in one place.
  */
 import { z } from 'zod';
+import { addIssue } from './add-issue';
 
 /** Hierarchical Bayes distributions; the order is the sampler's code of each (append only). */
 export const HB_DISTRIBUTIONS = ['normal', 'lognormal', 'neg_lognormal', 'fixed'] as const;
@@ -53,17 +54,13 @@ export const mcmcSchema = z
   .superRefine((m, ctx) => {
     const burnin = m.burnin ?? Math.floor(m.iterations / 2);
     if (burnin >= m.iterations)
-      ctx.addIssue({
-        code: 'custom',
-        path: ['burnin'],
-        message: 'Burn-in must be shorter than the iterations',
-      });
+      addIssue(ctx, ['burnin'], 'Burn-in must be shorter than the iterations');
     else if (Math.floor((m.iterations - burnin) / m.thin) < 20)
-      ctx.addIssue({
-        code: 'custom',
-        path: ['thin'],
-        message: 'Keep at least 20 draws per chain: (iterations − burn-in) / thinning ≥ 20',
-      });
+      addIssue(
+        ctx,
+        ['thin'],
+        'Keep at least 20 draws per chain: (iterations − burn-in) / thinning ≥ 20',
+      );
   });
 export type McmcSpec = z.output<typeof mcmcSchema>;
 
@@ -117,64 +114,41 @@ type FamilySpec = {
 /** Rules of the HB and latent class families, for the spec's superRefine. */
 export function refineFamilySpec(spec: FamilySpec, ctx: z.RefinementCtx): void {
   if ((spec.model === 'hb' || spec.model === 'latent_class') && spec.space === 'wtp')
-    ctx.addIssue({
-      code: 'custom',
-      path: ['space'],
-      message:
-        'WTP space is available for the MNL and the mixed logit; HB and latent class give WTP per respondent',
-    });
+    addIssue(
+      ctx,
+      ['space'],
+      'WTP space is available for the MNL and the mixed logit; HB and latent class give WTP per respondent',
+    );
   if (spec.model === 'hb') {
     spec.coefficients.forEach((c, i) => {
       if (!(HB_DISTRIBUTIONS as readonly string[]).includes(c.distribution))
-        ctx.addIssue({
-          code: 'custom',
-          path: ['coefficients', i, 'distribution'],
-          message: 'Hierarchical Bayes coefficients are normal, lognormal (either sign) or fixed',
-        });
+        addIssue(
+          ctx,
+          ['coefficients', i, 'distribution'],
+          'Hierarchical Bayes coefficients are normal, lognormal (either sign) or fixed',
+        );
     });
     const random = spec.coefficients.filter((c) => c.distribution !== 'fixed').length;
     if (random === 0)
-      ctx.addIssue({
-        code: 'custom',
-        path: ['coefficients'],
-        message: 'Hierarchical Bayes needs at least one random coefficient',
-      });
+      addIssue(ctx, ['coefficients'], 'Hierarchical Bayes needs at least one random coefficient');
     if (spec.correlated && random < 2)
-      ctx.addIssue({
-        code: 'custom',
-        path: ['correlated'],
-        message: 'Correlation needs at least two random coefficients',
-      });
+      addIssue(ctx, ['correlated'], 'Correlation needs at least two random coefficients');
     if (spec.priors?.nu !== undefined && !(spec.priors.nu > random - 1))
-      ctx.addIssue({
-        code: 'custom',
-        path: ['priors', 'nu'],
-        message: `ν must exceed ${random - 1} (random coefficients − 1)`,
-      });
+      addIssue(ctx, ['priors', 'nu'], `ν must exceed ${random - 1} (random coefficients − 1)`);
   }
   if (spec.model === 'latent_class') {
     spec.coefficients.forEach((c, i) => {
       if (c.distribution !== 'fixed')
-        ctx.addIssue({
-          code: 'custom',
-          path: ['coefficients', i, 'distribution'],
-          message: 'Latent class coefficients are fixed within each class',
-        });
+        addIssue(
+          ctx,
+          ['coefficients', i, 'distribution'],
+          'Latent class coefficients are fixed within each class',
+        );
     });
-    if (spec.correlated)
-      ctx.addIssue({
-        code: 'custom',
-        path: ['correlated'],
-        message: 'Correlation needs model "mixed" or "hb"',
-      });
+    if (spec.correlated) addIssue(ctx, ['correlated'], 'Correlation needs model "mixed" or "hb"');
     const names = spec.membership ?? [];
     names.forEach((name, i) => {
-      if (names.indexOf(name) !== i)
-        ctx.addIssue({
-          code: 'custom',
-          path: ['membership', i],
-          message: `${name} is listed twice`,
-        });
+      if (names.indexOf(name) !== i) addIssue(ctx, ['membership', i], `${name} is listed twice`);
     });
   }
 }

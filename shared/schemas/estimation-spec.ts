@@ -19,6 +19,7 @@ import {
   familySpecFields,
   refineFamilySpec,
 } from './estimation-families';
+import { addIssue } from './add-issue';
 
 /**
  * The one list of coefficient distributions. Its order is the engine's numeric code of each
@@ -91,69 +92,43 @@ export const estimationSpecSchema = z
     const names = spec.coefficients.map((c) => c.name);
     names.forEach((name, i) => {
       if (names.indexOf(name) !== i)
-        ctx.addIssue({
-          code: 'custom',
-          path: ['coefficients', i, 'name'],
-          message: `Coefficient name ${name} is used twice`,
-        });
+        addIssue(ctx, ['coefficients', i, 'name'], `Coefficient name ${name} is used twice`);
     });
     const random = spec.coefficients.filter((c) => c.distribution !== 'fixed');
     if (spec.model === 'mnl') {
       spec.coefficients.forEach((c, i) => {
         if (c.distribution !== 'fixed') {
-          ctx.addIssue({
-            code: 'custom',
-            path: ['coefficients', i, 'distribution'],
-            message: 'An MNL has fixed coefficients only; choose model "mixed" for random ones',
-          });
+          addIssue(
+            ctx,
+            ['coefficients', i, 'distribution'],
+            'An MNL has fixed coefficients only; choose model "mixed" for random ones',
+          );
         }
       });
-      if (spec.correlated)
-        ctx.addIssue({
-          code: 'custom',
-          path: ['correlated'],
-          message: 'Correlation needs model "mixed"',
-        });
+      if (spec.correlated) addIssue(ctx, ['correlated'], 'Correlation needs model "mixed"');
     } else if (spec.model === 'mixed' && random.length === 0) {
-      ctx.addIssue({
-        code: 'custom',
-        path: ['coefficients'],
-        message: 'A mixed logit needs at least one random coefficient',
-      });
+      addIssue(ctx, ['coefficients'], 'A mixed logit needs at least one random coefficient');
     }
     if (
       spec.model === 'mixed' &&
       spec.correlated &&
       spec.coefficients.filter((c) => c.distribution === 'normal').length < 2
     ) {
-      ctx.addIssue({
-        code: 'custom',
-        path: ['correlated'],
-        message: 'Correlation needs at least two normal coefficients',
-      });
+      addIssue(ctx, ['correlated'], 'Correlation needs at least two normal coefficients');
     }
     refineFamilySpec(spec, ctx);
     if (spec.cost !== undefined && !names.includes(spec.cost)) {
-      ctx.addIssue({
-        code: 'custom',
-        path: ['cost'],
-        message: `Cost ${spec.cost} is not one of the coefficients`,
-      });
+      addIssue(ctx, ['cost'], `Cost ${spec.cost} is not one of the coefficients`);
     }
     if (spec.space === 'wtp') {
       const cost = spec.coefficients.find((c) => c.name === spec.cost);
-      if (!cost)
-        ctx.addIssue({
-          code: 'custom',
-          path: ['space'],
-          message: 'WTP space needs a cost coefficient',
-        });
+      if (!cost) addIssue(ctx, ['space'], 'WTP space needs a cost coefficient');
       else if (!['fixed', 'lognormal', 'neg_lognormal'].includes(cost.distribution))
-        ctx.addIssue({
-          code: 'custom',
-          path: ['space'],
-          message: 'In WTP space the cost must be fixed or lognormal, so its sign never changes',
-        });
+        addIssue(
+          ctx,
+          ['space'],
+          'In WTP space the cost must be fixed or lognormal, so its sign never changes',
+        );
     }
   });
 

@@ -8,6 +8,7 @@ import { z } from 'zod';
 import { elementIdSchema } from './study-definition';
 import { quotaProblems } from '../survey/quota-cells';
 import { skipRuleProblems } from '../survey/skip-logic';
+import { addIssue } from './add-issue';
 
 const title = z.string().trim().min(1, 'Give the page a title').max(200);
 const body = z.string().trim().max(6000);
@@ -242,7 +243,7 @@ export const questionnaireSchema = z
   })
   .superRefine((q, ctx) => {
     const issue = (message: string, path: (string | number)[] = ['pages']) =>
-      ctx.addIssue({ code: 'custom', path, message });
+      addIssue(ctx, path, message);
     const count = (kind: PageKind) => q.pages.filter((p) => p.kind === kind).length;
     if (count('consent') !== 1) issue('The questionnaire needs exactly one consent page');
     else if (q.pages[0].kind !== 'consent') issue('The consent page must come first');

@@ -6,6 +6,7 @@
 import { z } from 'zod';
 import { elementIdSchema, type StudyDefinition } from './study-definition';
 import { groupByFields, refineGroupBy } from './tastes';
+import { addIssue } from './add-issue';
 
 export const scenarioAlternativeSchema = z.object({
   name: z.string().trim().min(1, 'Name the alternative').max(60),
@@ -47,13 +48,9 @@ function refineSegment(
 ) {
   const s = v.segmentBy;
   if (s?.groupBy === 'task' && s.task === undefined)
-    ctx.addIssue({ code: 'custom', path: ['segmentBy', 'task'], message: 'Choose a task' });
+    addIssue(ctx, ['segmentBy', 'task'], 'Choose a task');
   if (s?.groupBy === 'question' && s.question === undefined)
-    ctx.addIssue({
-      code: 'custom',
-      path: ['segmentBy', 'question'],
-      message: 'Choose a question',
-    });
+    addIssue(ctx, ['segmentBy', 'question'], 'Choose a question');
 }
 
 export const simulateSharesSchema = simulateSharesObject.superRefine(refineSegment);

@@ -4,6 +4,7 @@
  * Stored as one JSON document per study (and frozen into each live version).
  */
 import { z } from 'zod';
+import { addIssue } from './add-issue';
 
 /** Short stable ids for attributes, levels and labeled alternatives (nanoid, 10 chars). */
 export const elementIdSchema = z
@@ -52,39 +53,18 @@ export const attributeSchema = z
   .superRefine((a, ctx) => {
     a.levels.forEach((l, i) => {
       if (a.kind === 'numeric' && l.value === undefined)
-        ctx.addIssue({
-          code: 'custom',
-          path: ['levels', i, 'value'],
-          message: 'Numeric levels need a value',
-        });
+        addIssue(ctx, ['levels', i, 'value'], 'Numeric levels need a value');
       if (a.kind === 'categorical' && l.label === '')
-        ctx.addIssue({
-          code: 'custom',
-          path: ['levels', i, 'label'],
-          message: 'A level needs a label',
-        });
+        addIssue(ctx, ['levels', i, 'label'], 'A level needs a label');
     });
     if (a.coding === 'linear' && a.kind !== 'numeric')
-      ctx.addIssue({
-        code: 'custom',
-        path: ['coding'],
-        message: 'Linear coding needs a numeric attribute',
-      });
+      addIssue(ctx, ['coding'], 'Linear coding needs a numeric attribute');
     if (a.referenceLevelId && !a.levels.some((l) => l.id === a.referenceLevelId))
-      ctx.addIssue({
-        code: 'custom',
-        path: ['referenceLevelId'],
-        message: 'Reference level must be one of the levels',
-      });
+      addIssue(ctx, ['referenceLevelId'], 'Reference level must be one of the levels');
     const ids = new Set(a.levels.map((l) => l.id));
-    if (ids.size !== a.levels.length)
-      ctx.addIssue({ code: 'custom', path: ['levels'], message: 'Level ids must be unique' });
+    if (ids.size !== a.levels.length) addIssue(ctx, ['levels'], 'Level ids must be unique');
     if (a.isCost && a.kind !== 'numeric')
-      ctx.addIssue({
-        code: 'custom',
-        path: ['isCost'],
-        message: 'The cost attribute must be numeric',
-      });
+      addIssue(ctx, ['isCost'], 'The cost attribute must be numeric');
   });
 export type Attribute = z.infer<typeof attributeSchema>;
 
@@ -174,37 +154,25 @@ export const studyDefinitionSchema = z
   .superRefine((d, ctx) => {
     const attrIds = new Set(d.attributes.map((a) => a.id));
     if (attrIds.size !== d.attributes.length)
-      ctx.addIssue({
-        code: 'custom',
-        path: ['attributes'],
-        message: 'Attribute ids must be unique',
-      });
+      addIssue(ctx, ['attributes'], 'Attribute ids must be unique');
     if (d.attributes.filter((a) => a.isCost).length > 1)
-      ctx.addIssue({
-        code: 'custom',
-        path: ['attributes'],
-        message: 'Only one attribute can be the cost',
-      });
+      addIssue(ctx, ['attributes'], 'Only one attribute can be the cost');
     if (d.alternatives.labeled && d.alternatives.labels.length !== d.alternatives.count)
-      ctx.addIssue({
-        code: 'custom',
-        path: ['alternatives', 'labels'],
-        message: 'Name every labeled alternative',
-      });
+      addIssue(ctx, ['alternatives', 'labels'], 'Name every labeled alternative');
     d.excludedCombinations.forEach((rule, i) => {
       for (const message of checkExcludedCombination(d, rule))
-        ctx.addIssue({ code: 'custom', path: ['excludedCombinations', i], message });
+        addIssue(ctx, ['excludedCombinations', i], message);
     });
     const fx = d.fixedAlternative;
     if (fx?.kind === 'status_quo') {
       d.attributes.forEach((a) => {
         const lv = fx.levels[a.id];
         if (!lv || !a.levels.some((l) => l.id === lv))
-          ctx.addIssue({
-            code: 'custom',
-            path: ['fixedAlternative', 'levels', a.id],
-            message: `Choose the status-quo level of ${a.name}`,
-          });
+          addIssue(
+            ctx,
+            ['fixedAlternative', 'levels', a.id],
+            `Choose the status-quo level of ${a.name}`,
+          );
       });
     }
   });

@@ -4,6 +4,7 @@
  */
 import { z } from 'zod';
 import { canonicalLanguageTag } from '../languages/language-tags';
+import { addIssue } from './add-issue';
 
 /** A BCP 47 tag of a known language, in canonical form ("pt-br" → "pt-BR"). */
 export const languageTagSchema = z
@@ -27,8 +28,7 @@ export const studyLanguagesSchema = z
   .max(12, 'At most 12 languages per study')
   .superRefine((tags, ctx) => {
     tags.forEach((t, i) => {
-      if (tags.indexOf(t) !== i)
-        ctx.addIssue({ code: 'custom', path: [i], message: `${t} is listed twice` });
+      if (tags.indexOf(t) !== i) addIssue(ctx, [i], `${t} is listed twice`);
     });
   });
 

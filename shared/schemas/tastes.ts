@@ -7,6 +7,7 @@
 import { z } from 'zod';
 import type { StudyDefinition } from './study-definition';
 import type { ModelFamily } from './estimation-families';
+import { addIssue } from './add-issue';
 
 /**
  * A profile whose effective number of draws (Kish, 1/Σw²) is below this is flagged: its
@@ -93,10 +94,9 @@ export function refineGroupBy(
   q: { groupBy: 'task' | 'question' | 'class'; task?: number; question?: string },
   ctx: z.RefinementCtx,
 ): void {
-  if (q.groupBy === 'task' && q.task === undefined)
-    ctx.addIssue({ code: 'custom', path: ['task'], message: 'Choose a task' });
+  if (q.groupBy === 'task' && q.task === undefined) addIssue(ctx, ['task'], 'Choose a task');
   if (q.groupBy === 'question' && q.question === undefined)
-    ctx.addIssue({ code: 'custom', path: ['question'], message: 'Choose a question' });
+    addIssue(ctx, ['question'], 'Choose a question');
 }
 
 export const segmentsQuerySchema = z

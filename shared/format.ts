@@ -153,40 +153,29 @@ export function formatDuration(ms: number | null | undefined): string {
   return `${Math.floor(m / 60)} h ${String(m % 60).padStart(2, '0')} min`;
 }
 
-const dateFormat = new Intl.DateTimeFormat(LOCALE, { dateStyle: 'medium' });
-const dateTimeFormat = new Intl.DateTimeFormat(LOCALE, { dateStyle: 'medium', timeStyle: 'short' });
-const timeFormat = new Intl.DateTimeFormat(LOCALE, { timeStyle: 'short' });
-const timestampFormat = new Intl.DateTimeFormat(LOCALE, {
-  dateStyle: 'medium',
-  timeStyle: 'medium',
-});
-
 const toDate = (at: string | Date | null | undefined): Date | null => {
   if (at === null || at === undefined || at === '') return null;
   const d = at instanceof Date ? at : new Date(at);
   return Number.isNaN(d.getTime()) ? null : d;
 };
 
-/** A calendar date: "2 Dec 2026". */
-export function formatDate(at: string | Date | null | undefined): string {
-  const d = toDate(at);
-  return d ? dateFormat.format(d) : MISSING;
+/** Formats a date (a Date or an ISO string) with `options`; a missing or invalid one is MISSING. */
+function dateFormatter(options: Intl.DateTimeFormatOptions) {
+  const format = new Intl.DateTimeFormat(LOCALE, options);
+  return (at: string | Date | null | undefined): string => {
+    const d = toDate(at);
+    return d ? format.format(d) : MISSING;
+  };
 }
+
+/** A calendar date: "2 Dec 2026". */
+export const formatDate = dateFormatter({ dateStyle: 'medium' });
 
 /** A date with the time of day: "2 Dec 2026, 16:44". */
-export function formatDateTime(at: string | Date | null | undefined): string {
-  const d = toDate(at);
-  return d ? dateTimeFormat.format(d) : MISSING;
-}
+export const formatDateTime = dateFormatter({ dateStyle: 'medium', timeStyle: 'short' });
 
 /** A date and time to the second, where the order of close events matters (the audit trail). */
-export function formatTimestamp(at: string | Date | null | undefined): string {
-  const d = toDate(at);
-  return d ? timestampFormat.format(d) : MISSING;
-}
+export const formatTimestamp = dateFormatter({ dateStyle: 'medium', timeStyle: 'medium' });
 
 /** The time of day alone, for "updated at" notes on a page that shows today's data: "16:44". */
-export function formatTime(at: string | Date | null | undefined): string {
-  const d = toDate(at);
-  return d ? timeFormat.format(d) : MISSING;
-}
+export const formatTime = dateFormatter({ timeStyle: 'short' });

@@ -5,6 +5,7 @@
  */
 import { z } from 'zod';
 import type { Piscina } from 'piscina';
+import { lazyPool } from './lazy-pool';
 import type { AppDeps } from '../deps';
 import { defineJobKind } from './queue';
 import { createDesignPool, runDesignInWorker } from '../engine/design/run-design-in-worker';
@@ -165,14 +166,16 @@ export async function runDesignJob(deps: AppDeps, pool: Piscina, designJobId: st
 
 /** The queue registration; one worker thread (design search is CPU-bound). */
 export function createDesignJobKind() {
-  let pool: Piscina | null = null;
+  const pool = lazyPool();
   return defineJobKind({
     name: DESIGN_JOB,
     schema: designJobDataSchema,
     expireInMinutes: 60,
     handle: async (data, { deps }) => {
-      pool ??= createDesignPool({ maxThreads: 1, nice: deps.env.ENGINE_THREAD_NICE });
-      await runDesignJob(deps, pool, data.designJobId);
+      const threads = pool.get(() =>
+        createDesignPool({ maxThreads: 1, nice: deps.env.ENGINE_THREAD_NICE }),
+      );
+      await runDesignJob(deps, threads, data.designJobId);
     },
     sweep: async (deps, queue) => {
       const failed = await failStaleDesignJobs(deps.db, {
@@ -181,9 +184,6 @@ export function createDesignJobKind() {
       if (failed.length > 0) deps.logger.warn({ ids: failed }, 'failed stale design jobs');
       if (queue) await sweepOrphans(deps, queue, ORPHANED_DESIGN_JOBS);
     },
-    close: async () => {
-      await pool?.destroy();
-      pool = null;
-    },
+    close: pool.close,
   });
 }

@@ -10,6 +10,7 @@
  */
 import { z } from 'zod';
 import type { Piscina } from 'piscina';
+import { lazyPool } from './lazy-pool';
 import type { AppDeps } from '../deps';
 import { retryWhileDatabaseUnavailable } from '../lib/db-retry';
 import { defineJobKind } from './queue';
@@ -262,23 +263,20 @@ const ORPHANED_RUNS: OrphanSpec = {
 export function createEstimationJobKind() {
   // One engine thread per worker: runs estimate one after the other, each with
   // WORKER_THREADS threads for the mixed logit's log-likelihood.
-  let pool: Piscina | null = null;
+  const pool = lazyPool();
   return defineJobKind({
     name: ESTIMATION_JOB,
     schema: estimationJobDataSchema,
     expireInMinutes: 180,
     handle: async (data, { deps }) =>
       runEstimationJob(deps, data.runId, {
-        pool: (pool ??= createEstimationPool({ nice: deps.env.ENGINE_THREAD_NICE })),
+        pool: pool.get(() => createEstimationPool({ nice: deps.env.ENGINE_THREAD_NICE })),
         checkpointEveryMs: deps.env.RUN_CHECKPOINT_EVERY_MS,
       }),
     sweep: async (deps, queue) => {
       await sweepStaleRuns(deps, Date.now(), queue ?? deps.jobs ?? null);
       if (queue) await sweepOrphans(deps, queue, ORPHANED_RUNS);
     },
-    close: async () => {
-      await pool?.destroy();
-      pool = null;
-    },
+    close: pool.close,
   });
 }

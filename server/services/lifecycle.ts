@@ -6,7 +6,7 @@
  */
 import type { AppDeps } from '../deps';
 import type { Db, DbOrTx } from '../../db/client';
-import { AppError, ConflictError, NotFoundError } from '../lib/errors';
+import { AppError, ConflictError } from '../lib/errors';
 import {
   getDesignDocument,
   getLatestVersion,
@@ -19,7 +19,7 @@ import {
 } from '../../db/queries/versions';
 import { countCompletes } from '../../db/queries/respondents';
 import { countInvitees } from '../../db/queries/invitees';
-import { getStudyById } from '../../db/queries/studies';
+import { loadStudy, lockStudyOrThrow } from './study-access';
 import {
   fieldworkSettingsSchema,
   type ClosedReason,
@@ -99,8 +99,7 @@ async function readinessOf(db: DbOrTx, study: StudyRow, now: Date) {
 }
 
 export async function getLifecycle(deps: AppDeps, teamId: string, studyId: string) {
-  const study = await getStudyById(deps.db, { id: studyId, teamId });
-  if (!study) throw new NotFoundError('Study');
+  const study = await loadStudy(deps, teamId, studyId);
   return toLifecycle(deps.db, study);
 }
 
@@ -110,8 +109,7 @@ export async function getReadiness(
   studyId: string,
   now = new Date(),
 ): Promise<Readiness> {
-  const study = await getStudyById(deps.db, { id: studyId, teamId });
-  if (!study) throw new NotFoundError('Study');
+  const study = await loadStudy(deps, teamId, studyId);
   const { problems } = await readinessOf(deps.db, study, now);
   const warnings = checkStaleTranslations(
     await loadStudyDocuments(deps, study),
@@ -125,8 +123,7 @@ export async function listVersions(
   teamId: string,
   studyId: string,
 ): Promise<StudyVersionSummary[]> {
-  const study = await getStudyById(deps.db, { id: studyId, teamId });
-  if (!study) throw new NotFoundError('Study');
+  await loadStudy(deps, teamId, studyId);
   const rows = await listVersionsWithCounts(deps.db, { studyId });
   return rows.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }));
 }
@@ -152,8 +149,7 @@ export async function goLive(
 ): Promise<StudyLifecycle> {
   const now = opts.now ?? new Date();
   return deps.db.transaction(async (tx) => {
-    const study = await lockStudy(tx, { id: studyId, teamId });
-    if (!study) throw new NotFoundError('Study');
+    const study = await lockStudyOrThrow(tx, teamId, studyId);
     if (study.status === 'live')
       throw new ConflictError('already_live', 'The study is already live.');
     assertFielded(study);
@@ -244,8 +240,7 @@ export async function closeStudy(
   actor: Actor | null = null,
 ) {
   return deps.db.transaction(async (tx) => {
-    const study = await lockStudy(tx, { id: studyId, teamId });
-    if (!study) throw new NotFoundError('Study');
+    const study = await lockStudyOrThrow(tx, teamId, studyId);
     if (study.status !== 'live')
       throw new ConflictError('not_live', 'Only a live study can be closed.');
     return toLifecycle(tx, (await closeLockedStudy(tx, study, 'manual', now, actor))!);
@@ -260,8 +255,7 @@ export async function returnToDraft(
   actor: Actor | null = null,
 ) {
   return deps.db.transaction(async (tx) => {
-    const study = await lockStudy(tx, { id: studyId, teamId });
-    if (!study) throw new NotFoundError('Study');
+    const study = await lockStudyOrThrow(tx, teamId, studyId);
     if (study.status !== 'closed')
       throw new ConflictError('not_closed', 'Close the study before editing it again.');
     assertFielded(study);
@@ -289,8 +283,7 @@ export async function updateSettings(
   input: UpdateFieldworkSettingsInput,
 ) {
   return deps.db.transaction(async (tx) => {
-    const study = await lockStudy(tx, { id: studyId, teamId });
-    if (!study) throw new NotFoundError('Study');
+    const study = await lockStudyOrThrow(tx, teamId, studyId);
     const current = readSettings(study.settings);
     const next = fieldworkSettingsSchema.parse({
       ...current,

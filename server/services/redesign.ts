@@ -7,7 +7,7 @@
  */
 import type { AppDeps } from '../deps';
 import { AppError, ConflictError, NotFoundError } from '../lib/errors';
-import { loadStudy } from './study-access';
+import { loadStudy, lockStudyOrThrow } from './study-access';
 import { recordAudit } from './audit';
 import { queueDesignJob } from './designs';
 import { toDesignView } from './design-view';
@@ -18,12 +18,7 @@ import { getLatestCandidateJob } from '../../db/queries/design-jobs';
 import { deleteDesign, getDesignById } from '../../db/queries/designs';
 import { getRunById } from '../../db/queries/runs';
 import { updateStudy } from '../../db/queries/studies';
-import {
-  getLatestVersion,
-  insertVersion,
-  lockStudy,
-  updateStudyLifecycle,
-} from '../../db/queries/versions';
+import { getLatestVersion, insertVersion, updateStudyLifecycle } from '../../db/queries/versions';
 import type { Design } from '../../shared/schemas/design';
 import type { DesignState } from '../../shared/schemas/design-job';
 import type { CriterionComparison, RunPriors, RunPriorsQuery } from '../../shared/schemas/redesign';
@@ -103,8 +98,7 @@ export async function adoptCandidate(
 ) {
   const candidate = await loadCandidate(deps, actor.teamId, studyId, designId);
   const result = await deps.db.transaction(async (tx) => {
-    const study = await lockStudy(tx, { id: studyId, teamId: actor.teamId });
-    if (!study) throw new NotFoundError('Study');
+    const study = await lockStudyOrThrow(tx, actor.teamId, studyId);
     // A second adopt of the same candidate, racing the first, must not freeze another version.
     if (study.currentDesignId === candidate.id) throw new NotFoundError('Candidate design');
     const definition = studyDefinitionSchema.parse(study.definition);

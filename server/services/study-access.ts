@@ -5,12 +5,21 @@
 import { z } from 'zod';
 import type { AppDeps } from '../deps';
 import { NotFoundError } from '../lib/errors';
+import type { DbOrTx } from '../../db/client';
 import { getStudyById } from '../../db/queries/studies';
+import { lockStudy } from '../../db/queries/versions';
 
 export const studyParamsSchema = z.object({ teamId: z.uuid(), studyId: z.uuid('Unknown study') });
 
 export async function loadStudy(deps: AppDeps, teamId: string, studyId: string) {
   const study = await getStudyById(deps.db, { id: studyId, teamId });
+  if (!study) throw new NotFoundError('Study');
+  return study;
+}
+
+/** Locks the team's study row for the rest of the transaction `tx` (404 when it is not theirs). */
+export async function lockStudyOrThrow(tx: DbOrTx, teamId: string, studyId: string) {
+  const study = await lockStudy(tx, { id: studyId, teamId });
   if (!study) throw new NotFoundError('Study');
   return study;
 }

@@ -4,38 +4,7 @@
  *   I(X, β) = Σ_s Σ_j P_js (x_js − x̄_s)(x_js − x̄_s)',  x̄_s = Σ_j P_js x_js.
  * Task s occupies rows s·J .. s·J+J−1 of the row-major design matrix `x` (K columns).
  */
-
-/**
- * Writes the MNL probabilities of the J alternatives of one task (rows starting at row
- * `xRow`) under coefficients `beta[betaOffset ..]` into `out[outOffset ..]`. Uses the
- * max-shift for overflow safety.
- */
-export function fillTaskProbabilities(
-  K: number,
-  J: number,
-  x: Float64Array,
-  xRow: number,
-  beta: Float64Array,
-  betaOffset: number,
-  out: Float64Array,
-  outOffset: number,
-): void {
-  let max = -Infinity;
-  for (let j = 0; j < J; j++) {
-    const row = (xRow + j) * K;
-    let v = 0;
-    for (let k = 0; k < K; k++) v += x[row + k] * beta[betaOffset + k];
-    out[outOffset + j] = v;
-    if (v > max) max = v;
-  }
-  let sum = 0;
-  for (let j = 0; j < J; j++) {
-    const e = Math.exp(out[outOffset + j] - max);
-    out[outOffset + j] = e;
-    sum += e;
-  }
-  for (let j = 0; j < J; j++) out[outOffset + j] /= sum;
-}
+import { fillLogitProbabilities } from '../../../shared/engine/logit/logit-probabilities';
 
 /**
  * Adds one task's information Σ_j P_j (x_j − x̄)(x_j − x̄)' to the LOWER triangle of the
@@ -55,7 +24,7 @@ export function addTaskInformation(
   const p = 0; // work[0 .. J): probabilities
   const mean = J; // work[J .. J+K): x̄
   const dev = J + K; // work[J+K ..): centered rows, J × K
-  fillTaskProbabilities(K, J, x, xRow, beta, betaOffset, work, p);
+  fillLogitProbabilities(K, J, x, xRow, beta, betaOffset, work, p);
   for (let k = 0; k < K; k++) work[mean + k] = 0;
   for (let j = 0; j < J; j++) {
     const row = (xRow + j) * K;

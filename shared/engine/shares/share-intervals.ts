@@ -9,6 +9,7 @@
  * Browser-safe: typed arrays, no Node APIs; no allocation inside the loops.
  */
 import { quantile } from '../stats/quantile';
+import { fillShiftedExpUtilities } from '../logit/logit-probabilities';
 import type { ShareDraws } from './share-draws';
 
 export interface ShareInterval {
@@ -42,19 +43,7 @@ export function simulateShareIntervals(
   for (let n = 0; n < N; n++)
     for (let r = 0; r < R; r++) {
       const b = (n * R + r) * K;
-      let max = -Infinity;
-      for (let j = 0; j < J; j++) {
-        let u = 0;
-        const x = j * K;
-        for (let k = 0; k < K; k++) u += alternatives[x + k] * betas[b + k];
-        v[j] = u;
-        if (u > max) max = u;
-      }
-      let denominator = 0;
-      for (let j = 0; j < J; j++) {
-        v[j] = Math.exp(v[j] - max);
-        denominator += v[j];
-      }
+      const denominator = fillShiftedExpUtilities(K, J, alternatives, 0, betas, b, v, 0);
       const o = r * J;
       for (let j = 0; j < J; j++) drawShares[o + j] += v[j] / denominator / N;
     }

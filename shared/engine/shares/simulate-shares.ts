@@ -12,6 +12,7 @@
  * individual point estimates; with D > 1 the caller passes draws from each respondent's
  * conditional distribution and their weights. Browser-safe: typed arrays, no Node APIs.
  */
+import { fillShiftedExpUtilities } from '../logit/logit-probabilities';
 import { assertShareInput, type ShareSimulationInput } from './share-input';
 
 export type { ShareSimulationInput } from './share-input';
@@ -48,19 +49,7 @@ export function simulateShares(input: ShareSimulationInput): ShareSimulationResu
     for (let d = 0; d < D; d++) {
       const w = input.drawWeights ? input.drawWeights[n * D + d] : 1 / D;
       const b = (n * D + d) * K;
-      let max = -Infinity;
-      for (let j = 0; j < J; j++) {
-        let v = 0;
-        const x = j * K;
-        for (let k = 0; k < K; k++) v += alternatives[x + k] * betas[b + k];
-        utilities[j] = v;
-        if (v > max) max = v;
-      }
-      let denominator = 0;
-      for (let j = 0; j < J; j++) {
-        utilities[j] = Math.exp(utilities[j] - max);
-        denominator += utilities[j];
-      }
+      const denominator = fillShiftedExpUtilities(K, J, alternatives, 0, betas, b, utilities, 0);
       for (let j = 0; j < J; j++) probabilities[rowOut + j] += (w * utilities[j]) / denominator;
     }
     const weight = input.respondentWeights ? input.respondentWeights[n] : 1;

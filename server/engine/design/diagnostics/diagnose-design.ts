@@ -11,7 +11,8 @@ import { getCriteriaReport } from './criteria-report';
 import type { StudyDefinition } from '../../../../shared/schemas/study-definition';
 import { computeBayesianDError, computeDError } from '../d-error';
 import { buildDesignMatrix, getRowsPerTask, readDesignGrid } from '../design-grid';
-import { computeInformationMatrix, fillTaskProbabilities } from '../mnl-information';
+import { computeInformationMatrix } from '../mnl-information';
+import { fillLogitProbabilities } from '../../../../shared/engine/logit/logit-probabilities';
 import { buildPriorDraws } from '../prior-draws';
 import { resolvePriors } from '../resolve-priors';
 import { invertSpd } from '../spd-inverse';
@@ -61,7 +62,7 @@ export function diagnoseDesign(
 
   const probabilities = new Float64Array(Jt);
   const choiceProbabilities = design.tasks.map((task, s) => {
-    fillTaskProbabilities(K, Jt, x, s * Jt, means, 0, probabilities, 0);
+    fillLogitProbabilities(K, Jt, x, s * Jt, means, 0, probabilities, 0);
     return { task: task.task, block: task.block, probabilities: Array.from(probabilities) };
   });
 

@@ -38,16 +38,8 @@ export function fillShiftedExpUtilities(
 }
 
 /** The same alternatives' probabilities themselves, written into `out[outOffset ..]`. */
-export function fillLogitProbabilities(
-  K: number,
-  J: number,
-  x: Float64Array,
-  xRow: number,
-  beta: Float64Array,
-  betaOffset: number,
-  out: Float64Array,
-  outOffset: number,
-): void {
-  const sum = fillShiftedExpUtilities(K, J, x, xRow, beta, betaOffset, out, outOffset);
+export function fillLogitProbabilities(...args: Parameters<typeof fillShiftedExpUtilities>): void {
+  const sum = fillShiftedExpUtilities(...args);
+  const [, J, , , , , out, outOffset] = args;
   for (let j = 0; j < J; j++) out[outOffset + j] /= sum;
 }

@@ -1,7 +1,7 @@
 /** Runs a load client (scripts/respondent-load.ts, scripts/import-client.ts) in a process of its own and reads its result. */
 import { spawn, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
-import type { LoadOptions, LoadResult } from './respondent-load';
+import { emptyLoadResult, type LoadOptions, type LoadResult } from './respondent-load';
 
 const root = path.resolve(import.meta.dirname, '../..');
 
@@ -57,15 +57,7 @@ export function runClientProcess<T>(script: string, options: unknown): Promise<T
 export function mergeLoadResults(parts: LoadResult[]): LoadResult {
   const startedAt = Math.min(...parts.map((p) => p.startedAt));
   const merged: LoadResult = {
-    ...parts[0],
-    answerMs: [],
-    answerDoneAt: [],
-    sessionMs: [],
-    ackAt: [],
-    spans: [],
-    acknowledged: [],
-    errorsOther: [],
-    startedAt,
+    ...emptyLoadResult(startedAt),
     endedAt: Math.max(...parts.map((p) => p.endedAt)),
     longestOutageMs: Math.max(...parts.map((p) => p.longestOutageMs)),
     processes: parts.length,

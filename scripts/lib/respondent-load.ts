@@ -123,8 +123,9 @@ function valueFor(screen: RespondentScreen, random: Prng) {
   return { kind: 'text', text: 'fine' };
 }
 
-export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> {
-  const r: LoadResult = {
+/** A result with nothing counted yet: one process, started at `startedAt`. */
+export function emptyLoadResult(startedAt: number): LoadResult {
+  return {
     answerMs: [],
     answerDoneAt: [],
     sessionMs: [],
@@ -141,11 +142,15 @@ export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> 
     respondentsStarted: 0,
     respondentsFinished: 0,
     longestOutageMs: 0,
-    startedAt: Date.now(),
+    startedAt,
     endedAt: 0,
     cpuMs: 0,
     processes: 1,
   };
+}
+
+export async function runRespondentLoad(opts: LoadOptions): Promise<LoadResult> {
+  const r = emptyLoadResult(Date.now());
   const cpuBefore = process.cpuUsage();
   let failingSince: number | null = null;
   const noteSuccess = () => {

@@ -18,16 +18,14 @@ import {
 import { computeTasteProfilesInWorkers } from '../server/engine/parallel/parallel-taste-profiles';
 import { getMaxRows } from '../server/engine/simd/kernel-arena';
 import { estimateModelMemory } from '../server/engine/simd/estimate-model-memory';
-import { ensureSimdKernelBuilt } from './build-wasm';
-import { ensureEngineWorkersBuilt } from './build-engine-workers';
+import { ensureEngineBuilt } from './lib/ensure-engine-built';
 import { readBenchCli } from './lib/bench-cli';
 
 const cli = readBenchCli();
 const { log } = cli;
 const json = cli.asJson;
 const loadStart = os.loadavg();
-await ensureSimdKernelBuilt();
-await ensureEngineWorkersBuilt();
+await ensureEngineBuilt();
 const N = 5000;
 const T = 16;
 const J = 3;

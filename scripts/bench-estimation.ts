@@ -24,8 +24,7 @@ import { createLoglikEvaluator } from '../server/engine/parallel/create-loglik-e
 import type { MixedLogitEvaluator } from '../server/engine/parallel/mixed-logit-evaluator';
 import { createWorkerPoolEvaluator } from '../server/engine/parallel/worker-pool-evaluator';
 import { chooseKernel, type KernelKind } from '../server/engine/simd/kernel-choice';
-import { ensureSimdKernelBuilt } from './build-wasm';
-import { ensureEngineWorkersBuilt } from './build-engine-workers';
+import { ensureEngineBuilt } from './lib/ensure-engine-built';
 import { readBenchCli } from './lib/bench-cli';
 
 const cli = readBenchCli();
@@ -36,8 +35,7 @@ if (cli.has('large')) {
 }
 const fitThreads = cli.number('threads', 2);
 const loadStart = os.loadavg();
-await ensureSimdKernelBuilt();
-await ensureEngineWorkersBuilt();
+await ensureEngineBuilt();
 
 const N = 1000;
 const T = 12;

@@ -24,12 +24,10 @@ import type { HbChainResult } from '../server/engine/hb/hb-chain-result';
 import { summarizeHb } from '../server/engine/hb/summarize-hb';
 import { createTsWorkerPool, shareChoiceData } from '../server/engine/parallel/ts-worker-pool';
 import type { HbBenchMessage } from './lib/hb-bench-worker';
-import { ensureSimdKernelBuilt } from './build-wasm';
-import { ensureEngineWorkersBuilt } from './build-engine-workers';
+import { ensureEngineBuilt } from './lib/ensure-engine-built';
 
 // The new kernel runs the WebAssembly step: build it first when its sources are newer.
-await ensureSimdKernelBuilt();
-await ensureEngineWorkersBuilt();
+await ensureEngineBuilt();
 
 const { values: args } = parseArgs({
   options: {

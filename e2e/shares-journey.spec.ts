@@ -13,6 +13,7 @@ import { demoCredential } from './support/demo-credentials';
 import { buildDemoRunInput } from '../scripts/lib/demo-run-input';
 import type { Run, RunOptions } from '../shared/schemas/run';
 import { demoStudyLock, demoStudySeeded } from './support/demo-study';
+import { openByLink } from './support/navigation';
 
 test(
   'an analyst edits, saves, sweeps, compares and downloads what-if shares',
@@ -22,10 +23,7 @@ test(
     await demoStudySeeded();
     const runName = `Shares e2e MNL ${Date.now()}`;
     await signIn(page, demoCredential('analyst'));
-    await page
-      .getByRole('link', { name: /Water service packages/ })
-      .first()
-      .click();
+    await openByLink(page, /Water service packages/);
     await page.waitForURL(/\/teams\/[^/]+\/studies\/[^/]+\//);
     const [, teamId, studyId] =
       new URL(page.url()).pathname.match(/^\/teams\/([^/]+)\/studies\/([^/]+)/) ?? [];

@@ -25,8 +25,7 @@ test(
   'an analyst runs a mixed logit, splits tastes by a background question and downloads the profiles',
   demoStudyLock,
   async ({ page }) => {
-    test.setTimeout(180_000);
-    await demoStudySeeded();
+    await demoStudySeeded(180_000);
     const runName = `Mixed logit e2e ${Date.now()}`;
     await signIn(page, demoCredential('analyst'));
 

@@ -33,8 +33,7 @@ test(
   'an owner erases one respondent on request, confirming in the dialog',
   demoStudyLock,
   async ({ page }) => {
-    test.setTimeout(120_000);
-    await demoStudySeeded();
+    await demoStudySeeded(120_000);
     await signIn(page, demoCredential('owner'));
     await openByLink(page, /Water service packages/);
     await openByLink(page, /Responses/, { name: 'Responses' });

@@ -35,8 +35,7 @@ test(
   'a finished run becomes priors, the new design is compared, adopted live, and new respondents get it',
   demoStudyLock,
   async ({ page }) => {
-    test.setTimeout(240_000);
-    await demoStudySeeded();
+    await demoStudySeeded(240_000);
     const request = await newApiContext();
     const { teamId, study, base } = await signInApi(request);
     const runName = `Pilot MNL ${Date.now()}`;

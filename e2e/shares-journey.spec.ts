@@ -19,8 +19,7 @@ test(
   'an analyst edits, saves, sweeps, compares and downloads what-if shares',
   demoStudyLock,
   async ({ page }) => {
-    test.setTimeout(180_000);
-    await demoStudySeeded();
+    await demoStudySeeded(180_000);
     const runName = `Shares e2e MNL ${Date.now()}`;
     await signIn(page, demoCredential('analyst'));
     await openByLink(page, /Water service packages/);

@@ -18,6 +18,7 @@ import { SegmentsPanel } from '@/features/tastes/components/segments-panel';
 import { TasteCautions } from '@/features/tastes/components/taste-cautions';
 import { ComparisonPanel } from '@/features/tastes/components/comparison-panel';
 import { GoToSection } from './go-to-section';
+import { SectionHeader } from '@/components/ui/section-header';
 
 const initialQuery = { page: 1, pageSize: 25, sort: 'number', dir: 'asc' as const };
 
@@ -51,14 +52,15 @@ export function Component() {
   const lowDrawsShown = header?.rows.filter((r) => r.lowDraws).length;
   return (
     <div className="space-y-6">
-      <div className="flex flex-wrap items-end justify-between gap-3">
-        <div>
-          <h2 className="text-xl font-semibold text-ink">Tastes</h2>
-          <p className="text-sm text-ink-soft">
+      <SectionHeader
+        title="Tastes"
+        description={
+          <>
             Each respondent&apos;s conditional mean and SD of every coefficient, given their
             choices.
-          </p>
-        </div>
+          </>
+        }
+      >
         <RunPicker
           runs={runs.data}
           value={runId}
@@ -67,7 +69,7 @@ export function Component() {
             setQuery(initialQuery);
           }}
         />
-      </div>
+      </SectionHeader>
       <TasteCautions screen="tastes" lowDraws={lowDrawsShown} />
       {header && header.run.erasedRespondents > 0 && (
         <Alert tone="warning" title="Respondents erased since this run">

@@ -5,7 +5,7 @@
  */
 import { useState } from 'react';
 import { useParams, useSearchParams } from 'react-router';
-import { Alert, EmptyState, Spinner } from '@/components/ui/feedback';
+import { Alert, Spinner } from '@/components/ui/feedback';
 import { erasureNotice } from '@shared/schemas/exports';
 import { ErrorText, PanelErrorBoundary } from '@/components/ui/error-boundary';
 import { paths } from '@/config/paths';
@@ -17,7 +17,7 @@ import { TastesFilters } from '@/features/tastes/components/tastes-filters';
 import { SegmentsPanel } from '@/features/tastes/components/segments-panel';
 import { TasteCautions } from '@/features/tastes/components/taste-cautions';
 import { ComparisonPanel } from '@/features/tastes/components/comparison-panel';
-import { GoToSection } from './go-to-section';
+import { EmptyUntilSection } from './empty-until-section';
 import { SectionHeader } from '@/components/ui/section-header';
 
 const initialQuery = { page: 1, pageSize: 25, sort: 'number', dir: 'asc' as const };
@@ -35,17 +35,16 @@ export function Component() {
   if (runs.error) return <ErrorText error={runs.error} />;
   if (withProfiles.length === 0)
     return (
-      <EmptyState
+      <EmptyUntilSection
+        teamId={teamId}
+        studyId={studyId}
         title="No taste profiles yet"
-        action={
-          <GoToSection teamId={teamId} studyId={studyId} section="models">
-            Go to Models
-          </GoToSection>
-        }
+        section="models"
+        label="Models"
       >
         Taste profiles come from a finished mixed logit, hierarchical Bayes or latent class run:
         each respondent&apos;s individual means and SDs given the choices they made.
-      </EmptyState>
+      </EmptyUntilSection>
     );
 
   const header = tastes.data;

@@ -14,6 +14,7 @@ import { demoCredential } from './support/demo-credentials';
 import { startRun } from './support/runs';
 import type { TasteList } from '../shared/schemas/tastes';
 import { demoStudyLock, demoStudySeeded } from './support/demo-study';
+import { openByLink } from './support/navigation';
 
 async function readDownload(download: Download): Promise<Buffer> {
   const file = await download.path();
@@ -24,29 +25,18 @@ test(
   'an analyst runs a mixed logit, splits tastes by a background question and downloads the profiles',
   demoStudyLock,
   async ({ page }) => {
-    test.setTimeout(180_000);
-    await demoStudySeeded();
+    await demoStudySeeded(180_000);
     const runName = `Mixed logit e2e ${Date.now()}`;
     await signIn(page, demoCredential('analyst'));
 
     await test.step('open the seeded demo study', async () => {
-      await page
-        .getByRole('link', { name: /Water service packages/ })
-        .first()
-        .click();
+      await openByLink(page, /Water service packages/);
       // The live study's attributes are frozen: their fields look read-only, not like empty boxes.
-      await page
-        .getByRole('link', { name: /Attributes/ })
-        .first()
-        .click();
+      await openByLink(page, /Attributes/);
       const frozenField = page.getByRole('textbox').first();
       await expect(frozenField).toBeDisabled();
       await expect(frozenField).toHaveCSS('border-top-style', 'dashed');
-      await page
-        .getByRole('link', { name: /Models/ })
-        .first()
-        .click();
-      await expect(page.getByRole('heading', { name: 'Models' })).toBeVisible();
+      await openByLink(page, /Models/, { name: 'Models' });
     });
 
     await test.step('start a mixed logit with modest draws and watch it finish', async () => {
@@ -65,11 +55,7 @@ test(
       new URL(page.url()).pathname.match(/^\/teams\/([^/]+)\/studies\/([^/]+)\//) ?? [];
 
     await test.step('open Tastes and split a coefficient by a background question', async () => {
-      await page
-        .getByRole('link', { name: /Tastes/ })
-        .first()
-        .click();
-      await expect(page.getByRole('heading', { name: 'Tastes' })).toBeVisible();
+      await openByLink(page, /Tastes/, { name: 'Tastes' });
       await expect(page.getByLabel('Run', { exact: true })).toContainText(runName);
       // One caution per screen, dismissible; the whole text behind Details.
       await expect(page.getByText(/Profiles are conditional on each respondent/)).toBeVisible();
@@ -85,11 +71,7 @@ test(
     });
 
     await test.step('shares follow every edit in the browser; welfare is marked out of date', async () => {
-      await page
-        .getByRole('link', { name: /Shares/ })
-        .first()
-        .click();
-      await expect(page.getByRole('heading', { name: 'Shares', exact: true })).toBeVisible();
+      await openByLink(page, /Shares/, { name: 'Shares', exact: true });
       await expect(page.getByText('Predicted shares', { exact: true })).toBeVisible();
       await expect(
         page.getByText(/95 % intervals from 200 draws of each respondent/),
@@ -126,11 +108,7 @@ test(
     expect(run.profiles).toBeGreaterThan(100);
 
     await test.step('download the per-respondent CSV and XLSX; both parse', async () => {
-      await page
-        .getByRole('link', { name: /Exports/ })
-        .first()
-        .click();
-      await expect(page.getByRole('heading', { name: 'Exports' })).toBeVisible();
+      await openByLink(page, /Exports/, { name: 'Exports' });
       await expect(page.getByLabel('Run', { exact: true })).toContainText(runName);
       const profiles = page.getByRole('listitem').filter({ hasText: 'Taste profiles' });
 

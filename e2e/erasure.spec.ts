@@ -10,6 +10,7 @@ import { signIn } from './support/auth';
 import { demoCredential } from './support/demo-credentials';
 import { expectNoSeriousAxeViolations } from './support/axe';
 import { demoStudyLock, demoStudySeeded } from './support/demo-study';
+import { openByLink } from './support/navigation';
 
 async function check(page: Page, width: number, name: string) {
   const overflow = await page.evaluate(
@@ -32,18 +33,10 @@ test(
   'an owner erases one respondent on request, confirming in the dialog',
   demoStudyLock,
   async ({ page }) => {
-    test.setTimeout(120_000);
-    await demoStudySeeded();
+    await demoStudySeeded(120_000);
     await signIn(page, demoCredential('owner'));
-    await page
-      .getByRole('link', { name: /Water service packages/ })
-      .first()
-      .click();
-    await page
-      .getByRole('link', { name: /Responses/ })
-      .first()
-      .click();
-    await expect(page.getByRole('heading', { name: 'Responses' })).toBeVisible();
+    await openByLink(page, /Water service packages/);
+    await openByLink(page, /Responses/, { name: 'Responses' });
 
     await test.step('at 360 px: find respondent 2 and read what will go', async () => {
       await page.setViewportSize({ width: 360, height: 800 });

@@ -5,11 +5,11 @@
  * and nothing is lost. Screenshots of the screens seen again are kept in the test output.
  */
 import pg from 'pg';
-import { expect, request as playwrightRequest, test, type Page } from '@playwright/test';
-import { e2eBaseUrl } from '../playwright.config';
+import { expect, test, type Page } from '@playwright/test';
 import { e2eDatabaseUrl } from './support/database';
 import { createLiveStudy } from './support/live-study';
 import { expectNoSeriousAxeViolations } from './support/axe';
+import { newApiContext } from './support/api-context';
 
 async function stored(publicId: string, pid: string) {
   const db = new pg.Client({ connectionString: e2eDatabaseUrl() });
@@ -42,10 +42,7 @@ for (const width of [360, 1280]) {
   test(`at ${width} px a respondent goes back, changes a choice and an answer, and each screen counts once`, async ({
     browser,
   }) => {
-    const api = await playwrightRequest.newContext({
-      baseURL: e2eBaseUrl,
-      extraHTTPHeaders: { Origin: e2eBaseUrl },
-    });
+    const api = await newApiContext();
     const study = await createLiveStudy(api, `Back e2e ${width} ${Date.now()}`);
     const phone = width < 800;
     const context = await browser.newContext({

@@ -10,6 +10,7 @@ import { signIn } from './support/auth';
 import { demoCredential } from './support/demo-credentials';
 import { startRun } from './support/runs';
 import { syntheticChoiceCsv } from '../scripts/lib/synthetic-choice-file';
+import { openByLink } from './support/navigation';
 
 const RESPONDENTS = 80;
 const fixed = syntheticChoiceCsv(RESPONDENTS);
@@ -89,23 +90,11 @@ test('an owner imports choice data, fixes the file, edits attributes, fits an MN
   });
 
   await test.step('Tastes, Shares and Exports read the imported data', async () => {
-    await page
-      .getByRole('link', { name: /Tastes/ })
-      .first()
-      .click();
-    await expect(page.getByRole('heading', { name: 'Tastes' })).toBeVisible();
+    await openByLink(page, /Tastes/, { name: 'Tastes' });
     await expect(page.getByText(`${RESPONDENTS} respondents`).first()).toBeVisible();
-    await page
-      .getByRole('link', { name: /Shares/ })
-      .first()
-      .click();
-    await expect(page.getByRole('heading', { name: 'Shares', exact: true })).toBeVisible();
+    await openByLink(page, /Shares/, { name: 'Shares', exact: true });
     await expect(page.getByText('Predicted shares', { exact: true })).toBeVisible();
-    await page
-      .getByRole('link', { name: /Exports/ })
-      .first()
-      .click();
-    await expect(page.getByRole('heading', { name: 'Exports' })).toBeVisible();
+    await openByLink(page, /Exports/, { name: 'Exports' });
     const longFile = page.getByRole('listitem').filter({ hasText: 'Choice data (long format)' });
     const [download] = await Promise.all([
       page.waitForEvent('download'),

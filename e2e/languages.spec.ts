@@ -6,20 +6,17 @@
  * says ?lang=de answers in German on a phone; Responses shows and filters the language.
  */
 import { readFile } from 'node:fs/promises';
-import { expect, request as playwrightRequest, test } from '@playwright/test';
-import { e2eBaseUrl } from '../playwright.config';
+import { expect, test } from '@playwright/test';
 import { signIn } from './support/auth';
 import { demoEditor, larkspurDefinition, playwrightCall, signInEditor } from './support/live-study';
 import { createStudyThroughApi } from '../scripts/lib/study-factory/api-study';
+import { newApiContext } from './support/api-context';
 
 test('an editor adds German, fixes the missing text go-live names, and a respondent answers in German', async ({
   page,
   browser,
 }) => {
-  const api = await playwrightRequest.newContext({
-    baseURL: e2eBaseUrl,
-    extraHTTPHeaders: { Origin: e2eBaseUrl },
-  });
+  const api = await newApiContext();
   const teamId = await signInEditor(api);
   // A draft with its design and the demo questionnaire, in English only so far.
   const study = await createStudyThroughApi(playwrightCall(api), teamId, {

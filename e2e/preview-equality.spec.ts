@@ -5,13 +5,13 @@
  * the study name are the same.
  */
 import pg from 'pg';
-import { expect, request as playwrightRequest, test, type Page } from '@playwright/test';
-import { e2eBaseUrl } from '../playwright.config';
+import { expect, test, type Page } from '@playwright/test';
 import { e2eDatabaseUrl } from './support/database';
 import { createPage, demoQuestionnaire } from '../shared/schemas/questionnaire-defaults';
 import { defaultQuestionnaireOptions, type Questionnaire } from '../shared/schemas/questionnaire';
 import { createLiveStudy, demoEditor, larkspurDefinition } from './support/live-study';
 import { signIn } from './support/auth';
+import { newApiContext } from './support/api-context';
 
 test.use({ viewport: { width: 360, height: 740 }, hasTouch: true });
 
@@ -61,11 +61,7 @@ test('the preview of a block and seed equals a live respondent of that block and
   page,
   browser,
 }) => {
-  // As the app's own pages do: the server refuses writes with a session but without an Origin.
-  const api = await playwrightRequest.newContext({
-    baseURL: e2eBaseUrl,
-    extraHTTPHeaders: { Origin: e2eBaseUrl },
-  });
+  const api = await newApiContext();
   const study = await createLiveStudy(api, `Preview equality ${Date.now()}`, {
     questionnaire: everyPageKind(),
   });

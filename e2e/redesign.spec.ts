@@ -4,16 +4,11 @@
  * new one is adopted on the live study as version 2, and a respondent who started before keeps
  * their tasks while a new respondent gets the new design's tasks.
  */
-import {
-  expect,
-  request as playwrightRequest,
-  test,
-  type APIRequestContext,
-} from '@playwright/test';
-import { e2eBaseUrl } from '../playwright.config';
+import { expect, test, type APIRequestContext } from '@playwright/test';
 import { signIn } from './support/auth';
 import { demoCredential } from './support/demo-credentials';
 import { demoStudyLock, demoStudySeeded } from './support/demo-study';
+import { newApiContext } from './support/api-context';
 
 type Screen = { key: string; kind: string };
 
@@ -40,13 +35,8 @@ test(
   'a finished run becomes priors, the new design is compared, adopted live, and new respondents get it',
   demoStudyLock,
   async ({ page }) => {
-    test.setTimeout(240_000);
-    await demoStudySeeded();
-    // As the app's own pages do: the server refuses writes with a session but without an Origin.
-    const request = await playwrightRequest.newContext({
-      baseURL: e2eBaseUrl,
-      extraHTTPHeaders: { Origin: e2eBaseUrl },
-    });
+    await demoStudySeeded(240_000);
+    const request = await newApiContext();
     const { teamId, study, base } = await signInApi(request);
     const runName = `Pilot MNL ${Date.now()}`;
     let before: { sessionToken: string; screens: Screen[] };

@@ -5,10 +5,10 @@
  * test output. A task whose labels cannot fit a narrow phone falls back to stacked cards, and
  * the offline notice appears at the top of the screen.
  */
-import { expect, request as playwrightRequest, test, type Page } from '@playwright/test';
-import { e2eBaseUrl } from '../playwright.config';
+import { expect, test, type Page } from '@playwright/test';
 import { createLiveStudy, larkspurDefinition } from './support/live-study';
 import { expectNoSeriousAxeViolations } from './support/axe';
+import { newApiContext } from './support/api-context';
 
 const WIDTHS = [320, 360, 414, 1280];
 
@@ -34,10 +34,7 @@ for (const width of WIDTHS) {
   test(`at ${width} px every respondent screen fits and passes an axe scan`, async ({
     browser,
   }) => {
-    const api = await playwrightRequest.newContext({
-      baseURL: e2eBaseUrl,
-      extraHTTPHeaders: { Origin: e2eBaseUrl },
-    });
+    const api = await newApiContext();
     const study = await createLiveStudy(api, `Screens e2e ${width} px ${Date.now()}`);
     const phone = width < 800;
     const context = await browser.newContext({
@@ -100,10 +97,7 @@ test('labels too long for a narrow phone fall back to stacked cards; the offline
     ...l,
     label: `${l.label}-rated-by-the-independent-catchment-inspectorate`,
   }));
-  const api = await playwrightRequest.newContext({
-    baseURL: e2eBaseUrl,
-    extraHTTPHeaders: { Origin: e2eBaseUrl },
-  });
+  const api = await newApiContext();
   const study = await createLiveStudy(api, `Long labels e2e ${Date.now()}`, {
     definition: long,
   });

@@ -4,10 +4,10 @@
  * at the same task; one answer sent while the network is cut arrives exactly once later.
  */
 import pg from 'pg';
-import { expect, request as playwrightRequest, test, type Page } from '@playwright/test';
-import { e2eBaseUrl } from '../playwright.config';
+import { expect, test, type Page } from '@playwright/test';
 import { e2eDatabaseUrl } from './support/database';
 import { createLiveStudy } from './support/live-study';
+import { newApiContext } from './support/api-context';
 
 test.use({ viewport: { width: 360, height: 740 }, hasTouch: true });
 
@@ -23,11 +23,7 @@ const choiceHeading = (page: Page, n: number, of: number) =>
 test('a respondent answers every screen on a phone, survives a reload and a dropped connection', async ({
   page,
 }) => {
-  // As the app's own pages do: the server refuses writes with a session but without an Origin.
-  const api = await playwrightRequest.newContext({
-    baseURL: e2eBaseUrl,
-    extraHTTPHeaders: { Origin: e2eBaseUrl },
-  });
+  const api = await newApiContext();
   const study = await createLiveStudy(api, `Water services e2e ${Date.now()}`);
   const pid = `E2E-${Date.now()}`;
   const attempts: string[] = [];

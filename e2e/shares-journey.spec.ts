@@ -13,19 +13,16 @@ import { demoCredential } from './support/demo-credentials';
 import { buildDemoRunInput } from '../scripts/lib/demo-run-input';
 import type { Run, RunOptions } from '../shared/schemas/run';
 import { demoStudyLock, demoStudySeeded } from './support/demo-study';
+import { openByLink } from './support/navigation';
 
 test(
   'an analyst edits, saves, sweeps, compares and downloads what-if shares',
   demoStudyLock,
   async ({ page }) => {
-    test.setTimeout(180_000);
-    await demoStudySeeded();
+    await demoStudySeeded(180_000);
     const runName = `Shares e2e MNL ${Date.now()}`;
     await signIn(page, demoCredential('analyst'));
-    await page
-      .getByRole('link', { name: /Water service packages/ })
-      .first()
-      .click();
+    await openByLink(page, /Water service packages/);
     await page.waitForURL(/\/teams\/[^/]+\/studies\/[^/]+\//);
     const [, teamId, studyId] =
       new URL(page.url()).pathname.match(/^\/teams\/([^/]+)\/studies\/([^/]+)/) ?? [];

@@ -14,10 +14,12 @@ import { e2eSeedMark } from '../../playwright.config';
 export const demoStudyLock = { lock: 'seeded-demo-study' };
 
 /**
- * Waits until the demo seed, which finishes beside the first journeys (scripts/e2e-server.sh),
- * has stored its respondents. The wait does not count against the journey's own time limit.
+ * Sets the journey's own time limit, then waits until the demo seed, which finishes beside the
+ * first journeys (scripts/e2e-server.sh), has stored its respondents. The wait does not count
+ * against that limit.
  */
-export async function demoStudySeeded(): Promise<void> {
+export async function demoStudySeeded(journeyTimeoutMs: number): Promise<void> {
+  test.setTimeout(journeyTimeoutMs);
   const started = Date.now();
   const deadline = started + 240_000;
   while (!fs.existsSync(`${e2eSeedMark}.done`)) {

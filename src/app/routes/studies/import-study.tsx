@@ -5,7 +5,7 @@
  * files have problems.
  */
 import { useId, useState } from 'react';
-import { Link, useNavigate } from 'react-router';
+import { useNavigate } from 'react-router';
 import type { ImportPreview, ImportSetupInput } from '@shared/schemas/study-import';
 import { Card, PageHeader } from '@/components/ui/feedback';
 import { ErrorText } from '@/components/ui/error-boundary';
@@ -18,6 +18,7 @@ import { useSaveStudyImport } from '@/features/study-import/api/save-study-impor
 import { ImportSummary } from '@/features/study-import/components/import-summary';
 import { ImportSetupForm } from '@/features/study-import/components/import-setup-form';
 import { ImportFormatHelp } from '@/features/study-import/components/import-format-help';
+import { BackLink } from '@/components/ui/back-link';
 
 const fileInput =
   'block w-full text-sm text-ink-soft file:mr-3 file:h-9 file:rounded-md file:border file:border-line file:bg-white file:px-3 file:text-sm file:font-medium file:text-ink hover:file:border-primary';
@@ -64,12 +65,7 @@ export function Component() {
     return <ErrorText error={new Error('Only owners and editors can create studies.')} />;
   return (
     <div className="space-y-6">
-      <Link
-        to={paths.studies.getHref(teamId)}
-        className="text-sm text-ink-muted hover:text-primary"
-      >
-        ← Studies
-      </Link>
+      <BackLink to={paths.studies.getHref(teamId)}>Studies</BackLink>
       <PageHeader
         title="Import choice data"
         description="Create a study from choices collected elsewhere, then estimate, read tastes, simulate shares and export as for any study."

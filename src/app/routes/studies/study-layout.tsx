@@ -3,7 +3,7 @@
  * Section screens are child routes (see section-modules.ts).
  */
 import { useState } from 'react';
-import { Link, Navigate, Outlet, useParams } from 'react-router';
+import { Navigate, Outlet, useParams } from 'react-router';
 import type { QueryClient } from '@tanstack/react-query';
 import type { LoaderFunctionArgs } from 'react-router';
 import { paths } from '@/config/paths';
@@ -17,6 +17,7 @@ import { StudyDetailsForm } from '@/features/studies/components/study-details-fo
 import { Button } from '@/components/ui/button';
 import { useCurrentTeam } from '@/features/auth/hooks/use-current-team';
 import { builtSections } from './section-modules';
+import { BackLink } from '@/components/ui/back-link';
 
 export const createStudyLoader =
   (queryClient: QueryClient) =>
@@ -39,12 +40,7 @@ export function StudyLayout() {
   return (
     <div>
       <div className="mb-4 flex flex-col gap-1">
-        <Link
-          to={paths.studies.getHref(teamId)}
-          className="text-sm text-ink-muted hover:text-primary"
-        >
-          ← Studies
-        </Link>
+        <BackLink to={paths.studies.getHref(teamId)}>Studies</BackLink>
         {editing ? (
           <StudyDetailsForm teamId={teamId} study={study} onDone={() => setEditing(false)} />
         ) : (

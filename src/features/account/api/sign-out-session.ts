@@ -1,4 +1,4 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useRefreshingMutation } from '@/hooks/use-refreshing-mutation';
 import { api } from '@/lib/api-client';
 import { accountKeys } from './account-keys';
 
@@ -7,9 +7,5 @@ export const signOutSession = (sessionId: string) =>
 
 /** Signs one of the user's sessions out (another device, usually). */
 export function useSignOutSession() {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: signOutSession,
-    onSuccess: () => qc.invalidateQueries({ queryKey: accountKeys.sessions() }),
-  });
+  return useRefreshingMutation(signOutSession, accountKeys.sessions());
 }

@@ -1,5 +1,6 @@
 /** Two-step sign-in on the account page: status, set-up, turning on and off, recovery codes. */
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { queryOptions, useMutation, useQuery } from '@tanstack/react-query';
+import { useRefreshingMutation } from '@/hooks/use-refreshing-mutation';
 import { api } from '@/lib/api-client';
 import type {
   DisableTwoStepInput,
@@ -26,27 +27,23 @@ export function useStartTwoStepSetup() {
 
 /** Turning it on ends the account's other sessions, so their list is refetched too. */
 export function useEnableTwoStep() {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: EnableTwoStepInput) =>
-      api.post<RecoveryCodes>('/account/two-step/enable', input),
-    onSuccess: () => qc.invalidateQueries({ queryKey: accountKeys.all }),
-  });
+  return useRefreshingMutation(
+    (input: EnableTwoStepInput) => api.post<RecoveryCodes>('/account/two-step/enable', input),
+    accountKeys.all,
+  );
 }
 
 export function useDisableTwoStep() {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: DisableTwoStepInput) => api.post<void>('/account/two-step/disable', input),
-    onSuccess: () => qc.invalidateQueries({ queryKey: accountKeys.twoStep() }),
-  });
+  return useRefreshingMutation(
+    (input: DisableTwoStepInput) => api.post<void>('/account/two-step/disable', input),
+    accountKeys.twoStep(),
+  );
 }
 
 export function useRenewRecoveryCodes() {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: EnableTwoStepInput) =>
+  return useRefreshingMutation(
+    (input: EnableTwoStepInput) =>
       api.post<RecoveryCodes>('/account/two-step/recovery-codes', input),
-    onSuccess: () => qc.invalidateQueries({ queryKey: accountKeys.twoStep() }),
-  });
+    accountKeys.twoStep(),
+  );
 }

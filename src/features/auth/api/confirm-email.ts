@@ -1,19 +1,13 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useMutation } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import type { ConfirmEmailInput, CurrentUser } from '@shared/schemas/auth';
-import { authKeys } from './auth-keys';
+import { useSessionChange } from '../hooks/use-session-change';
 
 export const confirmEmail = (input: ConfirmEmailInput) =>
   api.post<CurrentUser>('/auth/confirm-email', input);
 
 /** Confirms the address from the e-mailed link; the server signs the user in. */
 export function useConfirmEmail() {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: confirmEmail,
-    onSuccess: (me) => {
-      qc.clear();
-      qc.setQueryData(authKeys.me(), me);
-    },
-  });
+  const changeSession = useSessionChange();
+  return useMutation({ mutationFn: confirmEmail, onSuccess: changeSession });
 }

@@ -1,16 +1,10 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useMutation } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-import { authKeys } from './auth-keys';
+import { useSessionChange } from '../hooks/use-session-change';
 
 export const signOut = () => api.post<void>('/auth/sign-out');
 
 export function useSignOut() {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: signOut,
-    onSuccess: () => {
-      qc.clear();
-      qc.setQueryData(authKeys.me(), null);
-    },
-  });
+  const changeSession = useSessionChange();
+  return useMutation({ mutationFn: signOut, onSuccess: () => changeSession(null) });
 }

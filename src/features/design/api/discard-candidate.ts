@@ -1,4 +1,4 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useRefreshingMutation } from '@/hooks/use-refreshing-mutation';
 import { api } from '@/lib/api-client';
 import { designKeys } from './design-keys';
 
@@ -8,9 +8,8 @@ export function discardCandidate(teamId: string, studyId: string, designId: stri
 }
 
 export function useDiscardCandidate(teamId: string, studyId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (designId: string) => discardCandidate(teamId, studyId, designId),
-    onSuccess: () => qc.invalidateQueries({ queryKey: designKeys.state(teamId, studyId) }),
-  });
+  return useRefreshingMutation(
+    (designId: string) => discardCandidate(teamId, studyId, designId),
+    designKeys.state(teamId, studyId),
+  );
 }

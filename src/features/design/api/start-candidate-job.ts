@@ -1,4 +1,4 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useRefreshingMutation } from '@/hooks/use-refreshing-mutation';
 import { api } from '@/lib/api-client';
 import type { DesignJobView } from '@shared/schemas/design-job';
 import type { DesignSpecInput } from '@shared/schemas/design-spec';
@@ -10,9 +10,8 @@ export function startCandidateJob(teamId: string, studyId: string, spec: DesignS
 }
 
 export function useStartCandidateJob(teamId: string, studyId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (spec: DesignSpecInput) => startCandidateJob(teamId, studyId, spec),
-    onSuccess: () => qc.invalidateQueries({ queryKey: designKeys.state(teamId, studyId) }),
-  });
+  return useRefreshingMutation(
+    (spec: DesignSpecInput) => startCandidateJob(teamId, studyId, spec),
+    designKeys.state(teamId, studyId),
+  );
 }

@@ -1,4 +1,4 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useRefreshingMutation } from '@/hooks/use-refreshing-mutation';
 import { api } from '@/lib/api-client';
 import type { DesignJobView } from '@shared/schemas/design-job';
 import type { DesignSpecInput } from '@shared/schemas/design-spec';
@@ -9,9 +9,8 @@ export function startDesignJob(teamId: string, studyId: string, spec: DesignSpec
 }
 
 export function useStartDesignJob(teamId: string, studyId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (spec: DesignSpecInput) => startDesignJob(teamId, studyId, spec),
-    onSuccess: () => qc.invalidateQueries({ queryKey: designKeys.state(teamId, studyId) }),
-  });
+  return useRefreshingMutation(
+    (spec: DesignSpecInput) => startDesignJob(teamId, studyId, spec),
+    designKeys.state(teamId, studyId),
+  );
 }

@@ -1,4 +1,4 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useRefreshingMutation } from '@/hooks/use-refreshing-mutation';
 import { api } from '@/lib/api-client';
 import { inviteeKeys, inviteesPath } from './invitee-keys';
 
@@ -7,9 +7,8 @@ export function deleteInvitee(teamId: string, studyId: string, inviteeId: string
 }
 
 export function useDeleteInvitee(teamId: string, studyId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (inviteeId: string) => deleteInvitee(teamId, studyId, inviteeId),
-    onSuccess: () => qc.invalidateQueries({ queryKey: inviteeKeys.lists(teamId, studyId) }),
-  });
+  return useRefreshingMutation(
+    (inviteeId: string) => deleteInvitee(teamId, studyId, inviteeId),
+    inviteeKeys.lists(teamId, studyId),
+  );
 }

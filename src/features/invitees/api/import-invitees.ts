@@ -1,4 +1,4 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useRefreshingMutation } from '@/hooks/use-refreshing-mutation';
 import { api } from '@/lib/api-client';
 import type { ImportInviteesResult } from '@shared/schemas/invitees';
 import { inviteeKeys, inviteesPath } from './invitee-keys';
@@ -16,10 +16,8 @@ export function importInvitees(
 }
 
 export function useImportInvitees(teamId: string, studyId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (v: { file: File; onlyValid: boolean }) =>
-      importInvitees(teamId, studyId, v.file, v.onlyValid),
-    onSuccess: () => qc.invalidateQueries({ queryKey: inviteeKeys.lists(teamId, studyId) }),
-  });
+  return useRefreshingMutation(
+    (v: { file: File; onlyValid: boolean }) => importInvitees(teamId, studyId, v.file, v.onlyValid),
+    inviteeKeys.lists(teamId, studyId),
+  );
 }

@@ -1,4 +1,4 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useRefreshingMutation } from '@/hooks/use-refreshing-mutation';
 import { api } from '@/lib/api-client';
 import type { SendInvitationsInput, SendResult } from '@shared/schemas/invitees';
 import { inviteeKeys, inviteesPath } from './invitee-keys';
@@ -13,9 +13,8 @@ export function sendInvitations(
 }
 
 export function useSendInvitations(teamId: string, studyId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: SendInvitationsInput) => sendInvitations(teamId, studyId, input),
-    onSuccess: () => qc.invalidateQueries({ queryKey: inviteeKeys.lists(teamId, studyId) }),
-  });
+  return useRefreshingMutation(
+    (input: SendInvitationsInput) => sendInvitations(teamId, studyId, input),
+    inviteeKeys.lists(teamId, studyId),
+  );
 }

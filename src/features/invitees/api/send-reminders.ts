@@ -1,4 +1,4 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useRefreshingMutation } from '@/hooks/use-refreshing-mutation';
 import { api } from '@/lib/api-client';
 import type { SendRemindersInput, SendResult } from '@shared/schemas/invitees';
 import { inviteeKeys, inviteesPath } from './invitee-keys';
@@ -13,9 +13,8 @@ export function sendReminders(
 }
 
 export function useSendReminders(teamId: string, studyId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: SendRemindersInput) => sendReminders(teamId, studyId, input),
-    onSuccess: () => qc.invalidateQueries({ queryKey: inviteeKeys.lists(teamId, studyId) }),
-  });
+  return useRefreshingMutation(
+    (input: SendRemindersInput) => sendReminders(teamId, studyId, input),
+    inviteeKeys.lists(teamId, studyId),
+  );
 }

@@ -1,7 +1,7 @@
 import type { InviteeState } from '@shared/schemas/invitees';
-import { Badge } from '@/components/ui/badge';
+import { Badge, type BadgeTone } from '@/components/ui/badge';
 
-const look: Record<InviteeState, { label: string; tone: 'neutral' | 'primary' | 'accent' }> = {
+const look: Record<InviteeState, { label: string; tone: BadgeTone }> = {
   not_sent: { label: 'Not invited yet', tone: 'neutral' },
   invited: { label: 'Invited', tone: 'neutral' },
   started: { label: 'Started', tone: 'accent' },

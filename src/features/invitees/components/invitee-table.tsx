@@ -14,18 +14,11 @@ import { InviteeStateBadge, inviteeStateOptions } from './invitee-state-badge';
 import { formatDate } from '@/utils/format';
 import { DataTable } from '@/components/ui/data-table';
 import { Options } from '@/components/ui/options';
+import type { StudyPanelProps } from '@/lib/study-panel';
 
 const PAGE_SIZE = 25;
 
-export function InviteeTable({
-  teamId,
-  studyId,
-  canManage,
-}: {
-  teamId: string;
-  studyId: string;
-  canManage: boolean;
-}) {
+export function InviteeTable({ teamId, studyId, canManage }: StudyPanelProps) {
   const [state, setState] = useState<InviteeState | ''>('');
   const [search, setSearch] = useState('');
   const [page, setPage] = useState(1);

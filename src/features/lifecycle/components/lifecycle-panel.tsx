@@ -11,6 +11,7 @@ import { useReadiness } from '../api/get-readiness';
 import { useChangeStatus } from '../api/change-status';
 import { SettingsForm } from './settings-form';
 import { VersionsList } from './versions-list';
+import type { StudyPanelProps } from '@/lib/study-panel';
 
 const closedReasons = {
   manual: 'by hand',
@@ -71,15 +72,7 @@ function MessageList({
 }
 
 /** Status, readiness and the lifecycle actions of a study, with its links and fieldwork settings. */
-export function LifecyclePanel({
-  teamId,
-  studyId,
-  canManage,
-}: {
-  teamId: string;
-  studyId: string;
-  canManage: boolean;
-}) {
+export function LifecyclePanel({ teamId, studyId, canManage }: StudyPanelProps) {
   const state = useLifecycle(teamId, studyId);
   const isDraft = state.data?.status === 'draft';
   const readiness = useReadiness(teamId, studyId, state.data?.status !== 'live');

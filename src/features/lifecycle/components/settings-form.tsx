@@ -2,12 +2,11 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
 import { Button } from '@/components/ui/button';
-import { TextField } from '@/components/ui/field';
 import { Alert } from '@/components/ui/feedback';
 import { applyFieldErrors } from '@/lib/api-client';
 import type { FieldworkSettings } from '@shared/schemas/study-lifecycle';
 import { useUpdateSettings } from '../api/update-settings';
-import { formField } from '@/components/ui/form-field';
+import { FormTextFields, type TextFieldSpec } from '@/components/ui/form-text-fields';
 
 /** The form works on text inputs; empty means "none". The server checks the parsed values again. */
 const formSchema = z.object({
@@ -46,6 +45,55 @@ const redirects = [
   { name: 'screenedOut', when: 'screened out', page: 'screened' },
   { name: 'overQuota', when: 'over quota', page: 'full' },
 ] as const;
+
+const closeFields: TextFieldSpec<FormValues>[] = [
+  {
+    name: 'closeAt',
+    label: 'Close automatically at',
+    type: 'datetime-local',
+    hint: 'Local time. Leave empty to close by hand.',
+  },
+  {
+    name: 'quotaCompletes',
+    label: 'Close at this many completes',
+    inputMode: 'numeric',
+    hint: 'Leave empty for no quota.',
+  },
+  {
+    name: 'panelParam',
+    label: 'Panel id parameter',
+    hint: "Stored as the respondent's external id, e.g. ?pid=123.",
+  },
+];
+
+const returnAndMailFields: TextFieldSpec<FormValues>[] = [
+  {
+    name: 'lateAnswerGraceHours',
+    label: 'Accept answers given before the close for (hours)',
+    inputMode: 'numeric',
+    hint: 'Phones that were offline send their answers later. 0 refuses every answer after the close.',
+  },
+  ...redirects.map((r, i) => ({
+    name: r.name,
+    label: `Redirect when ${r.when}`,
+    placeholder: `https://panel.example/${r.page}?id={pid}`,
+    hint:
+      i === redirects.length - 1 ? "{pid} is replaced by the respondent's panel id." : undefined,
+  })),
+  {
+    name: 'mailSenderName',
+    label: 'Invitation e-mails come from',
+    placeholder: 'Larkspur customer research',
+    hint: "The sender name invitees see. Leave empty for the product's own.",
+  },
+  {
+    name: 'mailReplyTo',
+    label: 'Replies to invitations go to',
+    type: 'email',
+    placeholder: 'research@your-organisation.example',
+    hint: 'Leave empty if replies should not reach the team.',
+  },
+];
 
 export function SettingsForm({
   teamId,
@@ -101,23 +149,7 @@ export function SettingsForm({
   return (
     <form onSubmit={submit} aria-label="Fieldwork settings" className="max-w-3xl space-y-4">
       <fieldset disabled={!canManage} className="grid gap-4">
-        <TextField
-          label="Close automatically at"
-          type="datetime-local"
-          hint="Local time. Leave empty to close by hand."
-          {...formField(form, 'closeAt')}
-        />
-        <TextField
-          label="Close at this many completes"
-          inputMode="numeric"
-          hint="Leave empty for no quota."
-          {...formField(form, 'quotaCompletes')}
-        />
-        <TextField
-          label="Panel id parameter"
-          hint="Stored as the respondent's external id, e.g. ?pid=123."
-          {...formField(form, 'panelParam')}
-        />
+        <FormTextFields form={form} fields={closeFields} />
         <label className="flex items-start gap-2 text-sm">
           <input
             type="checkbox"
@@ -131,38 +163,7 @@ export function SettingsForm({
             </span>
           </span>
         </label>
-        <TextField
-          label="Accept answers given before the close for (hours)"
-          inputMode="numeric"
-          hint="Phones that were offline send their answers later. 0 refuses every answer after the close."
-          {...formField(form, 'lateAnswerGraceHours')}
-        />
-        {redirects.map((r, i) => (
-          <TextField
-            key={r.name}
-            label={`Redirect when ${r.when}`}
-            placeholder={`https://panel.example/${r.page}?id={pid}`}
-            hint={
-              i === redirects.length - 1
-                ? "{pid} is replaced by the respondent's panel id."
-                : undefined
-            }
-            {...formField(form, r.name)}
-          />
-        ))}
-        <TextField
-          label="Invitation e-mails come from"
-          placeholder="Larkspur customer research"
-          hint="The sender name invitees see. Leave empty for the product's own."
-          {...formField(form, 'mailSenderName')}
-        />
-        <TextField
-          label="Replies to invitations go to"
-          type="email"
-          placeholder="research@your-organisation.example"
-          hint="Leave empty if replies should not reach the team."
-          {...formField(form, 'mailReplyTo')}
-        />
+        <FormTextFields form={form} fields={returnAndMailFields} />
       </fieldset>
       {update.error && !applyFieldErrors(update.error, () => {}) && (
         <Alert tone="danger">{update.error.message}</Alert>

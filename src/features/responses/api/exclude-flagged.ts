@@ -1,4 +1,4 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useRefreshingMutation } from '@/hooks/use-refreshing-mutation';
 import { api } from '@/lib/api-client';
 import type { ExcludeFlaggedInput } from '@shared/schemas/responses';
 import { responseKeys, responsesPath } from './response-keys';
@@ -12,9 +12,8 @@ export function excludeFlagged(
 }
 
 export function useExcludeFlagged(teamId: string, studyId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: ExcludeFlaggedInput) => excludeFlagged(teamId, studyId, input),
-    onSuccess: () => qc.invalidateQueries({ queryKey: responseKeys.lists(teamId, studyId) }),
-  });
+  return useRefreshingMutation(
+    (input: ExcludeFlaggedInput) => excludeFlagged(teamId, studyId, input),
+    responseKeys.lists(teamId, studyId),
+  );
 }

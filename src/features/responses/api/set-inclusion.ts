@@ -1,4 +1,4 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useRefreshingMutation } from '@/hooks/use-refreshing-mutation';
 import { api } from '@/lib/api-client';
 import type { SetInclusionInput } from '@shared/schemas/responses';
 import { responseKeys, responsesPath } from './response-keys';
@@ -19,10 +19,9 @@ export function setInclusion(
 }
 
 export function useSetInclusion(teamId: string, studyId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (v: { respondentId: string; input: SetInclusionInput }) =>
+  return useRefreshingMutation(
+    (v: { respondentId: string; input: SetInclusionInput }) =>
       setInclusion(teamId, studyId, v.respondentId, v.input),
-    onSuccess: () => qc.invalidateQueries({ queryKey: responseKeys.lists(teamId, studyId) }),
-  });
+    responseKeys.lists(teamId, studyId),
+  );
 }

@@ -1,4 +1,4 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useRefreshingMutation } from '@/hooks/use-refreshing-mutation';
 import { api } from '@/lib/api-client';
 import type {
   QualitySettings,
@@ -16,10 +16,8 @@ export function updateQualitySettings(
 }
 
 export function useUpdateQualitySettings(teamId: string, studyId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: UpdateQualitySettingsInput) =>
-      updateQualitySettings(teamId, studyId, input),
-    onSuccess: () => qc.invalidateQueries({ queryKey: responseKeys.lists(teamId, studyId) }),
-  });
+  return useRefreshingMutation(
+    (input: UpdateQualitySettingsInput) => updateQualitySettings(teamId, studyId, input),
+    responseKeys.lists(teamId, studyId),
+  );
 }

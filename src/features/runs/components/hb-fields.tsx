@@ -3,40 +3,57 @@
  * per respondent, chains, seed), correlation of the random tastes, and the priors, with a note on how the attributes'
  * coding and scale interact with them.
  */
-import { SelectField, TextField } from '@/components/ui/field';
+import { SelectField } from '@/components/ui/field';
+import { FormTextFields, type TextFieldSpec } from '@/components/ui/form-text-fields';
 import { HB_DEFAULTS_TEXT, type RunFormValues } from '../utils/run-form-values';
 import { CorrelatedTastesField } from './correlated-tastes-field';
-import { formField, formNumberField, type BoundForm } from '@/components/ui/form-field';
+import { formField, type BoundForm } from '@/components/ui/form-field';
+
+const samplerFields: TextFieldSpec<RunFormValues>[] = [
+  {
+    name: 'mcmcIterations',
+    label: 'Iterations per chain',
+    hint: 'Burn-in included',
+    number: 'whole',
+  },
+  {
+    name: 'mcmcBurnin',
+    label: 'Burn-in',
+    hint: 'Empty: half the iterations',
+    type: 'number',
+    inputMode: 'numeric',
+  },
+  { name: 'mcmcThin', label: 'Keep every n-th draw', number: 'whole' },
+  {
+    name: 'mcmcSteps',
+    label: 'MH steps per respondent',
+    hint: 'Per iteration; more steps mix the population means better, at a proportional cost',
+    number: 'whole',
+  },
+  {
+    name: 'mcmcChains',
+    label: 'Chains',
+    hint: 'Run in parallel, each with its own seed stream',
+    number: 'whole',
+  },
+  { name: 'seed', label: 'Seed', number: 'whole' },
+];
+
+const priorFields: TextFieldSpec<RunFormValues>[] = [
+  {
+    name: 'priorMuVariance',
+    label: 'Prior variance of the population means μ',
+    hint: 'μ ~ N(0, variance·I); 100 is diffuse for coefficients of order 1',
+    number: 'decimal',
+  },
+];
 
 export function HbFields({ form }: { form: BoundForm<RunFormValues> }) {
   return (
     <>
       <fieldset className="grid gap-4 sm:grid-cols-3">
         <legend className="mb-2 text-sm font-medium text-ink">Sampler</legend>
-        <TextField
-          label="Iterations per chain"
-          hint="Burn-in included"
-          {...formNumberField(form, 'mcmcIterations')}
-        />
-        <TextField
-          label="Burn-in"
-          hint="Empty: half the iterations"
-          type="number"
-          inputMode="numeric"
-          {...formField(form, 'mcmcBurnin')}
-        />
-        <TextField label="Keep every n-th draw" {...formNumberField(form, 'mcmcThin')} />
-        <TextField
-          label="MH steps per respondent"
-          hint="Per iteration; more steps mix the population means better, at a proportional cost"
-          {...formNumberField(form, 'mcmcSteps')}
-        />
-        <TextField
-          label="Chains"
-          hint="Run in parallel, each with its own seed stream"
-          {...formNumberField(form, 'mcmcChains')}
-        />
-        <TextField label="Seed" {...formNumberField(form, 'seed')} />
+        <FormTextFields form={form} fields={samplerFields} />
         <CorrelatedTastesField form={form} label="Correlated random tastes" />
         <p className="text-xs text-ink-muted sm:col-span-3">
           Defaults: {HB_DEFAULTS_TEXT}. The population means are drawn from the respondents&apos;
@@ -51,11 +68,7 @@ export function HbFields({ form }: { form: BoundForm<RunFormValues> }) {
           <option value="rossi">Inverse Wishart IW(K+3, (K+3)·I), Rossi et al. 2005</option>
           <option value="train">Inverse Wishart IW(K, K·I), Train 2009</option>
         </SelectField>
-        <TextField
-          label="Prior variance of the population means μ"
-          hint="μ ~ N(0, variance·I); 100 is diffuse for coefficients of order 1"
-          {...formNumberField(form, 'priorMuVariance', 'decimal')}
-        />
+        <FormTextFields form={form} fields={priorFields} />
         <p className="text-xs text-ink-muted sm:col-span-2">
           The priors act on the coefficients as coded. Dummy- and effects-coded levels are
           differences on the utility scale, usually of order 1, where these priors are weak. A

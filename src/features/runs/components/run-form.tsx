@@ -30,7 +30,8 @@ import {
   type RunFormValues,
 } from '../utils/run-form-values';
 import { CorrelatedTastesField } from './correlated-tastes-field';
-import { formField, formNumberField, type BoundForm } from '@/components/ui/form-field';
+import { formField, type BoundForm } from '@/components/ui/form-field';
+import { FormTextFields, type TextFieldSpec } from '@/components/ui/form-text-fields';
 import { Options } from '@/components/ui/options';
 
 const distributionLabels: Record<ColumnChoice, string> = {
@@ -49,6 +50,24 @@ const coefficientHelp: Record<RunFormModel, string> = {
   hb: 'Random tastes vary across respondents (normal, or lognormal to fix a sign, such as a negative cost); fixed ones are shared.',
   latent_class: 'Coefficients are fixed within each class and differ between classes.',
 };
+
+/** The mixed logit's simulation settings. */
+const drawFields: TextFieldSpec<RunFormValues>[] = [
+  { name: 'drawsCount', label: 'Draws per respondent', number: 'whole' },
+  {
+    name: 'profileDraws',
+    label: 'Draws for taste profiles',
+    hint: 'More than for estimation',
+    number: 'whole',
+  },
+  { name: 'seed', label: 'Seed', number: 'whole' },
+  {
+    name: 'starts',
+    label: 'Starting points',
+    hint: 'The MNL start plus perturbed ones',
+    number: 'whole',
+  },
+];
 
 function ColumnRow({
   column,
@@ -183,18 +202,7 @@ export function RunForm({
               }))}
             />
           </SelectField>
-          <TextField label="Draws per respondent" {...formNumberField(form, 'drawsCount')} />
-          <TextField
-            label="Draws for taste profiles"
-            hint="More than for estimation"
-            {...formNumberField(form, 'profileDraws')}
-          />
-          <TextField label="Seed" {...formNumberField(form, 'seed')} />
-          <TextField
-            label="Starting points"
-            hint="The MNL start plus perturbed ones"
-            {...formNumberField(form, 'starts')}
-          />
+          <FormTextFields form={form} fields={drawFields} />
           <CorrelatedTastesField form={form} label="Correlated normal tastes" />
         </fieldset>
       )}

@@ -1,4 +1,4 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useRefreshingMutation } from '@/hooks/use-refreshing-mutation';
 import { api } from '@/lib/api-client';
 import { shareKeys, sharesPath } from './share-keys';
 
@@ -7,9 +7,8 @@ export function deleteScenario(teamId: string, studyId: string, id: string) {
 }
 
 export function useDeleteScenario(teamId: string, studyId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (id: string) => deleteScenario(teamId, studyId, id),
-    onSuccess: () => qc.invalidateQueries({ queryKey: shareKeys.scenarios(teamId, studyId) }),
-  });
+  return useRefreshingMutation(
+    (id: string) => deleteScenario(teamId, studyId, id),
+    shareKeys.scenarios(teamId, studyId),
+  );
 }

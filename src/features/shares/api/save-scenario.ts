@@ -1,4 +1,4 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useRefreshingMutation } from '@/hooks/use-refreshing-mutation';
 import { api } from '@/lib/api-client';
 import type { SavedScenario, ScenarioBodyInput } from '@shared/schemas/shares';
 import { shareKeys, sharesPath } from './share-keys';
@@ -15,10 +15,8 @@ export function saveScenario(
 }
 
 export function useSaveScenario(teamId: string, studyId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: ScenarioBodyInput & { id?: string }) =>
-      saveScenario(teamId, studyId, input),
-    onSuccess: () => qc.invalidateQueries({ queryKey: shareKeys.scenarios(teamId, studyId) }),
-  });
+  return useRefreshingMutation(
+    (input: ScenarioBodyInput & { id?: string }) => saveScenario(teamId, studyId, input),
+    shareKeys.scenarios(teamId, studyId),
+  );
 }

@@ -2,7 +2,8 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { studyDetailsSchema, type Study } from '@shared/schemas/study';
-import { TextAreaField, TextField } from '@/components/ui/field';
+import { TextAreaField } from '@/components/ui/field';
+import { FormTextFields, type TextFieldSpec } from '@/components/ui/form-text-fields';
 import { Button } from '@/components/ui/button';
 import { ErrorText } from '@/components/ui/error-boundary';
 import { submitForm } from '@/lib/submit-form';
@@ -10,6 +11,15 @@ import { useUpdateStudy } from '../api/update-study';
 import { formField } from '@/components/ui/form-field';
 
 type Values = z.infer<typeof studyDetailsSchema>;
+
+const nameFields: TextFieldSpec<Values>[] = [
+  { name: 'name', label: 'Study name', hint: 'For your team; respondents never see it.' },
+  {
+    name: 'publicTitle',
+    label: 'Public title',
+    hint: 'Respondents see this on the survey and in invitation e-mails.',
+  },
+];
 
 /** Rename a study, set the title respondents see, and edit the internal description. */
 export function StudyDetailsForm({
@@ -37,16 +47,7 @@ export function StudyDetailsForm({
   });
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Study details" className="max-w-xl space-y-3">
-      <TextField
-        label="Study name"
-        hint="For your team; respondents never see it."
-        {...formField(form, 'name')}
-      />
-      <TextField
-        label="Public title"
-        hint="Respondents see this on the survey and in invitation e-mails."
-        {...formField(form, 'publicTitle')}
-      />
+      <FormTextFields form={form} fields={nameFields} />
       <TextAreaField
         label="Description"
         hint="For your team; respondents do not see it."

@@ -31,6 +31,7 @@ import { exportsPath } from '@/features/exports/api/get-export-manifest';
 import { HbDiagnostics } from '@/features/runs/components/hb-diagnostics';
 import { LatentClassPanel } from '@/features/runs/components/latent-class-panel';
 import { MODEL_LABELS } from '@shared/schemas/estimation-families';
+import { BackLink } from '@/components/ui/back-link';
 
 export const createRunLoader =
   (queryClient: QueryClient) =>
@@ -56,12 +57,7 @@ export function Component() {
   return (
     <div className="space-y-6">
       <div className="space-y-1">
-        <Link
-          to={paths.studySection.getHref(teamId, studyId, 'models')}
-          className="text-sm text-ink-muted hover:text-primary"
-        >
-          ← All runs
-        </Link>
+        <BackLink to={paths.studySection.getHref(teamId, studyId, 'models')}>All runs</BackLink>
         <div className="flex flex-wrap items-center gap-3">
           <h2 className="text-xl font-semibold text-ink">{run.name}</h2>
           <RunStatusBadge status={run.status} />

@@ -26,6 +26,7 @@ import { InviteeTable } from '@/features/invitees/components/invitee-table';
 import { LifecyclePanel } from '@/features/lifecycle/components/lifecycle-panel';
 import { useLifecycle } from '@/features/lifecycle/api/get-lifecycle';
 import { formatTime } from '@/utils/format';
+import { SectionHeader } from '@/components/ui/section-header';
 
 export function Component() {
   const { teamId = '', studyId = '' } = useParams();
@@ -61,21 +62,20 @@ export function Component() {
 
   return (
     <div className="space-y-6">
-      <div className="flex flex-wrap items-end justify-between gap-3">
-        <div>
-          <h2 className="text-xl font-semibold text-ink">Fieldwork</h2>
-          <p className="text-sm text-ink-soft">
-            {live
-              ? `Live. Figures refresh every ${LIVE_REFRESH_MS / 1000} seconds.`
-              : s.status === 'closed'
-                ? 'Closed. These are the final figures.'
-                : 'Draft. Figures appear once the study is live.'}
-          </p>
-        </div>
+      <SectionHeader
+        title="Fieldwork"
+        description={
+          live
+            ? `Live. Figures refresh every ${LIVE_REFRESH_MS / 1000} seconds.`
+            : s.status === 'closed'
+              ? 'Closed. These are the final figures.'
+              : 'Draft. Figures appear once the study is live.'
+        }
+      >
         <p className="text-xs text-ink-muted" aria-live="polite">
           Updated <span className="font-mono">{formatTime(s.generatedAt)}</span>
         </p>
-      </div>
+      </SectionHeader>
 
       {s.status === 'draft' && lifecyclePanel}
 

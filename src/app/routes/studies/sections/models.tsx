@@ -18,6 +18,7 @@ import { paths } from '@/config/paths';
 import { useStudy } from '@/features/studies/api/get-study';
 import { SaveFilterForm, type FilterQuestion } from '@/features/runs/components/save-filter-form';
 import { questionnaireSchema } from '@shared/schemas/questionnaire';
+import { SectionHeader } from '@/components/ui/section-header';
 
 /** Background questions with answer options, for saved respondent filters. */
 function getFilterQuestions(questionnaire: unknown): FilterQuestion[] {
@@ -54,21 +55,22 @@ export function Component() {
 
   return (
     <div className="space-y-6">
-      <div className="flex flex-wrap items-end justify-between gap-3">
-        <div>
-          <h2 className="text-xl font-semibold text-ink">Models</h2>
-          <p className="text-sm text-ink-soft">
+      <SectionHeader
+        title="Models"
+        description={
+          <>
             Estimation runs on the included respondents: multinomial logit first, then panel mixed
             logit, hierarchical Bayes or latent class logit with each respondent&apos;s taste
             profile.
-          </p>
-        </div>
+          </>
+        }
+      >
         {canManage && !formOpen && options.data && (
           <Button onClick={() => setFormOpen(true)} disabled={noData}>
             New run
           </Button>
         )}
-      </div>
+      </SectionHeader>
 
       {canManage && formOpen && (
         <Card

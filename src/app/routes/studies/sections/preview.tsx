@@ -9,14 +9,14 @@ import type { RespondentScreen } from '@shared/schemas/respondent';
 import { pageKindLabels } from '@shared/schemas/questionnaire';
 import { paths } from '@/config/paths';
 import { ApiError } from '@/lib/api-client';
-import { Alert, EmptyState, Spinner } from '@/components/ui/feedback';
+import { Alert, Spinner } from '@/components/ui/feedback';
 import { SelectField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { ErrorText } from '@/components/ui/error-boundary';
 import { cn } from '@/lib/cn';
 import { useStudyPreview } from '@/features/preview/api/get-study-preview';
 import { listenToPreviewScreens } from '@/features/preview/utils/preview-messages';
-import { GoToSection } from './go-to-section';
+import { EmptyUntilSection } from './empty-until-section';
 import { Options } from '@/components/ui/options';
 
 const widths = [
@@ -62,16 +62,15 @@ export function Component() {
   if (preview.error) {
     if (preview.error instanceof ApiError && preview.error.code === 'nothing_to_preview')
       return (
-        <EmptyState
+        <EmptyUntilSection
+          teamId={teamId}
+          studyId={studyId}
           title="Nothing to preview yet"
-          action={
-            <GoToSection teamId={teamId} studyId={studyId} section="tasks">
-              Go to Tasks
-            </GoToSection>
-          }
+          section="tasks"
+          label="Tasks"
         >
           {preview.error.message}
-        </EmptyState>
+        </EmptyUntilSection>
       );
     return <ErrorText error={preview.error} />;
   }

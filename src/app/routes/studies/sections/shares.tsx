@@ -33,6 +33,7 @@ import {
 } from '@/features/shares/hooks/use-scenario-shares';
 import { describeInterval } from '@/features/shares/utils/interval-text';
 import type { ScenarioAlternative } from '@shared/schemas/shares';
+import { SectionHeader } from '@/components/ui/section-header';
 
 /** How the shares are computed, per model family of the run. */
 const METHOD_TEXT: Record<string, string> = {
@@ -100,13 +101,10 @@ export function Component() {
 
   return (
     <div className="space-y-6">
-      <div className="flex flex-wrap items-end justify-between gap-3">
-        <div>
-          <h2 className="text-xl font-semibold text-ink">Shares</h2>
-          <p className="text-sm text-ink-soft">
-            What would respondents choose between options that do not exist yet?
-          </p>
-        </div>
+      <SectionHeader
+        title="Shares"
+        description={<>What would respondents choose between options that do not exist yet?</>}
+      >
         <RunPicker
           runs={runs.data}
           value={runId}
@@ -117,7 +115,7 @@ export function Component() {
             simulate.reset();
           }}
         />
-      </div>
+      </SectionHeader>
       <Alert tone="info" title="How the shares are computed">
         {METHOD_TEXT[run?.model ?? 'mnl']} Shares of stated, hypothetical choices usually overstate
         real uptake; treat them as comparisons between scenarios, not forecasts.

@@ -18,7 +18,7 @@ import { DesignTable } from '@/features/design/components/design-table';
 import { DiagnosticsPanel } from '@/features/design/components/diagnostics-panel';
 import { CsvImport } from '@/features/design/components/csv-import';
 import { RedesignPanel } from './tasks-redesign';
-import { GoToSection } from './go-to-section';
+import { EmptyUntilSection } from './empty-until-section';
 
 const methodNames = {
   full_factorial: 'Full factorial',
@@ -59,16 +59,15 @@ export function Component() {
   const running = job?.status === 'queued' || job?.status === 'running';
   if (study.definition.attributes.length === 0)
     return (
-      <EmptyState
+      <EmptyUntilSection
+        teamId={teamId}
+        studyId={studyId}
         title="Add attributes first"
-        action={
-          <GoToSection teamId={teamId} studyId={studyId} section="attributes">
-            Go to Attributes
-          </GoToSection>
-        }
+        section="attributes"
+        label="Attributes"
       >
         Choice tasks combine the levels of your attributes.
-      </EmptyState>
+      </EmptyUntilSection>
     );
   const startError = start.error instanceof ApiError ? start.error : null;
   const serverErrors = new Map((startError?.fields ?? []).map((f) => [f.path, f.message]));

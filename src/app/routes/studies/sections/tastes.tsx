@@ -5,7 +5,7 @@
  */
 import { useState } from 'react';
 import { useParams, useSearchParams } from 'react-router';
-import { Alert, EmptyState, Spinner } from '@/components/ui/feedback';
+import { Alert, Spinner } from '@/components/ui/feedback';
 import { erasureNotice } from '@shared/schemas/exports';
 import { ErrorText, PanelErrorBoundary } from '@/components/ui/error-boundary';
 import { paths } from '@/config/paths';
@@ -17,7 +17,8 @@ import { TastesFilters } from '@/features/tastes/components/tastes-filters';
 import { SegmentsPanel } from '@/features/tastes/components/segments-panel';
 import { TasteCautions } from '@/features/tastes/components/taste-cautions';
 import { ComparisonPanel } from '@/features/tastes/components/comparison-panel';
-import { GoToSection } from './go-to-section';
+import { EmptyUntilSection } from './empty-until-section';
+import { SectionHeader } from '@/components/ui/section-header';
 
 const initialQuery = { page: 1, pageSize: 25, sort: 'number', dir: 'asc' as const };
 
@@ -34,31 +35,31 @@ export function Component() {
   if (runs.error) return <ErrorText error={runs.error} />;
   if (withProfiles.length === 0)
     return (
-      <EmptyState
+      <EmptyUntilSection
+        teamId={teamId}
+        studyId={studyId}
         title="No taste profiles yet"
-        action={
-          <GoToSection teamId={teamId} studyId={studyId} section="models">
-            Go to Models
-          </GoToSection>
-        }
+        section="models"
+        label="Models"
       >
         Taste profiles come from a finished mixed logit, hierarchical Bayes or latent class run:
         each respondent&apos;s individual means and SDs given the choices they made.
-      </EmptyState>
+      </EmptyUntilSection>
     );
 
   const header = tastes.data;
   const lowDrawsShown = header?.rows.filter((r) => r.lowDraws).length;
   return (
     <div className="space-y-6">
-      <div className="flex flex-wrap items-end justify-between gap-3">
-        <div>
-          <h2 className="text-xl font-semibold text-ink">Tastes</h2>
-          <p className="text-sm text-ink-soft">
+      <SectionHeader
+        title="Tastes"
+        description={
+          <>
             Each respondent&apos;s conditional mean and SD of every coefficient, given their
             choices.
-          </p>
-        </div>
+          </>
+        }
+      >
         <RunPicker
           runs={runs.data}
           value={runId}
@@ -67,7 +68,7 @@ export function Component() {
             setQuery(initialQuery);
           }}
         />
-      </div>
+      </SectionHeader>
       <TasteCautions screen="tastes" lowDraws={lowDrawsShown} />
       {header && header.run.erasedRespondents > 0 && (
         <Alert tone="warning" title="Respondents erased since this run">

@@ -2,7 +2,7 @@
  * One respondent's page: their conditional distribution of every coefficient beside the
  * population's, WTP and background answers, and their choices task by task.
  */
-import { Link, useParams } from 'react-router';
+import { useParams } from 'react-router';
 import { Card, Spinner } from '@/components/ui/feedback';
 import { ErrorText } from '@/components/ui/error-boundary';
 import { paths } from '@/config/paths';
@@ -11,6 +11,7 @@ import { RespondentDistributionChart } from '@/features/tastes/components/respon
 import { RespondentChoices } from '@/features/tastes/components/respondent-choices';
 import { TasteCautions } from '@/features/tastes/components/taste-cautions';
 import { formatAmount, formatNumber } from '@/utils/format';
+import { BackLink } from '@/components/ui/back-link';
 
 export function Component() {
   const { teamId = '', studyId = '', runId = '', respondentId = '' } = useParams();
@@ -24,9 +25,7 @@ export function Component() {
   return (
     <div className="space-y-6">
       <div>
-        <Link to={back} className="text-sm text-ink-muted hover:text-primary">
-          ← Tastes
-        </Link>
+        <BackLink to={back}>Tastes</BackLink>
         <h2 className="mt-1 text-xl font-semibold text-ink">Respondent #{row.number}</h2>
         <p className="text-sm text-ink-soft">
           Block {row.block} · {formatNumber(row.effectiveDraws, 0)} effective draws

@@ -326,23 +326,19 @@ describe('refused requests change nothing', () => {
 describe('a respondent answering while being erased', () => {
   it('cannot store answers once erased, even with their session remembered by the server', async () => {
     const { study, session } = await startLiveSession(t, t.team.agents.owner, t.team.teamId);
-    const first = await sendAnswer(
-      t,
-      study.publicId,
-      session.sessionToken,
-      'answers',
-      answerFor(session.screens[0]!),
-    );
+    const answerScreen = (i: number) =>
+      sendAnswer(
+        t,
+        study.publicId,
+        session.sessionToken,
+        'answers',
+        answerFor(session.screens[i]!),
+      );
+    const first = await answerScreen(0);
     expect(first.status).toBeLessThan(300);
     const erased = await owner().post(base(study.id)).send({ by: 'number', value: '1', reason });
     expect(erased.status).toBe(200);
-    const later = await sendAnswer(
-      t,
-      study.publicId,
-      session.sessionToken,
-      'answers',
-      answerFor(session.screens[1]!),
-    );
+    const later = await answerScreen(1);
     expect(later.status).toBeGreaterThanOrEqual(400);
     expect(later.status).toBeLessThan(500);
     const { rows } = await t.deps.db.execute(

@@ -14,6 +14,21 @@ function expectGradientsClose(analytic: Float64Array, numeric: Float64Array): vo
     );
 }
 
+/** The kernel's analytic gradient at a generic point equals central differences of its LL. */
+function expectKernelGradientMatchesNumeric(
+  kernel: ReturnType<typeof createKernelFixture>['kernel'],
+  P: number,
+): void {
+  const theta = Float64Array.from({ length: P }, (_, p) => 0.3 + 0.1 * Math.sin(p + 1));
+  const grad = new Float64Array(P);
+  kernel.evaluate(theta, grad);
+  const numeric = getCentralDifferenceGradient(
+    (x) => kernel.evaluate(x, new Float64Array(P)),
+    theta,
+  );
+  expectGradientsClose(grad, numeric);
+}
+
 describe('analytic gradients match central finite differences', () => {
   it('MNL gradient and Hessian', () => {
     const { data } = createKernelFixture(['fixed', 'fixed', 'fixed']);
@@ -55,14 +70,7 @@ describe('analytic gradients match central finite differences', () => {
 
   it.each(cases)('mixed logit: %s', (_label, distributions, correlated) => {
     const { kernel, layout } = createKernelFixture(distributions, correlated);
-    const theta = Float64Array.from({ length: layout.P }, (_, p) => 0.3 + 0.1 * Math.sin(p + 1));
-    const grad = new Float64Array(layout.P);
-    kernel.evaluate(theta, grad);
-    const numeric = getCentralDifferenceGradient(
-      (x) => kernel.evaluate(x, new Float64Array(layout.P)),
-      theta,
-    );
-    expectGradientsClose(grad, numeric);
+    expectKernelGradientMatchesNumeric(kernel, layout.P);
   });
 
   const wtpCases: [string, CoefficientDistribution[], boolean][] = [
@@ -78,14 +86,7 @@ describe('analytic gradients match central finite differences', () => {
   it.each(wtpCases)('mixed logit: %s', (_label, distributions, correlated) => {
     const cost = `x${distributions.length}`;
     const { kernel, layout } = createKernelFixture(distributions, correlated, 40, cost);
-    const theta = Float64Array.from({ length: layout.P }, (_, p) => 0.3 + 0.1 * Math.sin(p + 1));
-    const grad = new Float64Array(layout.P);
-    kernel.evaluate(theta, grad);
-    const numeric = getCentralDifferenceGradient(
-      (x) => kernel.evaluate(x, new Float64Array(layout.P)),
-      theta,
-    );
-    expectGradientsClose(grad, numeric);
+    expectKernelGradientMatchesNumeric(kernel, layout.P);
   });
 
   it('per-respondent scores sum to the gradient', () => {

@@ -99,6 +99,18 @@ async function snapshot() {
 }
 type Snapshot = Awaited<ReturnType<typeof snapshot>>;
 
+/** The request is refused with 409 and `code`, and no stored row changes. */
+async function expectConflictChangingNothing(
+  send: () => PromiseLike<{ status: number; body: { error: { code: string } } }>,
+  code: string,
+): Promise<void> {
+  const before = await snapshot();
+  const res = await send();
+  expect(res.status).toBe(409);
+  expect(res.body.error.code).toBe(code);
+  expect(await snapshot()).toEqual(before);
+}
+
 /** The snapshot without the rows of one erased respondent (and their invitation). */
 function without(s: Snapshot, respondentId: string, inviteeId: string | null = null): Snapshot {
   const notR = (r: Record<string, unknown>) => r.respondent_id !== respondentId;
@@ -279,11 +291,7 @@ describe('refused requests change nothing', () => {
 
   it('an already erased number: 409, and the second request changes nothing', async () => {
     expect((await owner().post(base()).send(erase)).status).toBe(200);
-    const before = await snapshot();
-    const again = await owner().post(base()).send(erase);
-    expect(again.status).toBe(409);
-    expect(again.body.error.code).toBe('already_erased');
-    expect(await snapshot()).toEqual(before);
+    await expectConflictChangingNothing(() => owner().post(base()).send(erase), 'already_erased');
   });
 
   it('two respondents with one external id: 409 asks for numbers', async () => {
@@ -291,20 +299,15 @@ describe('refused requests change nothing', () => {
       .update(respondents)
       .set({ externalId: 'EXT-2' })
       .where(eq(respondents.id, seeded.respondentIds[4]!));
-    const before = await snapshot();
-    const res = await owner().post(base()).send({ by: 'externalId', value: 'EXT-2', reason });
-    expect(res.status).toBe(409);
-    expect(res.body.error.code).toBe('ambiguous_respondent');
-    expect(await snapshot()).toEqual(before);
+    await expectConflictChangingNothing(
+      () => owner().post(base()).send({ by: 'externalId', value: 'EXT-2', reason }),
+      'ambiguous_respondent',
+    );
   });
 
   it('while a model of the study is being estimated: 409, nothing erased', async () => {
     await t.deps.db.update(runs).set({ status: 'running' }).where(eq(runs.id, seeded.runningRunId));
-    const before = await snapshot();
-    const res = await owner().post(base()).send(erase);
-    expect(res.status).toBe(409);
-    expect(res.body.error.code).toBe('run_in_progress');
-    expect(await snapshot()).toEqual(before);
+    await expectConflictChangingNothing(() => owner().post(base()).send(erase), 'run_in_progress');
   });
 
   it('a study of another team: 404', async () => {
@@ -323,23 +326,19 @@ describe('refused requests change nothing', () => {
 describe('a respondent answering while being erased', () => {
   it('cannot store answers once erased, even with their session remembered by the server', async () => {
     const { study, session } = await startLiveSession(t, t.team.agents.owner, t.team.teamId);
-    const first = await sendAnswer(
-      t,
-      study.publicId,
-      session.sessionToken,
-      'answers',
-      answerFor(session.screens[0]!),
-    );
+    const answerScreen = (i: number) =>
+      sendAnswer(
+        t,
+        study.publicId,
+        session.sessionToken,
+        'answers',
+        answerFor(session.screens[i]!),
+      );
+    const first = await answerScreen(0);
     expect(first.status).toBeLessThan(300);
     const erased = await owner().post(base(study.id)).send({ by: 'number', value: '1', reason });
     expect(erased.status).toBe(200);
-    const later = await sendAnswer(
-      t,
-      study.publicId,
-      session.sessionToken,
-      'answers',
-      answerFor(session.screens[1]!),
-    );
+    const later = await answerScreen(1);
     expect(later.status).toBeGreaterThanOrEqual(400);
     expect(later.status).toBeLessThan(500);
     const { rows } = await t.deps.db.execute(

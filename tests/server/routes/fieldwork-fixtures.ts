@@ -47,6 +47,16 @@ export const fixtureQuestionnaire = {
 export const fixtureDesign = makeStudyDesign(makeStudyDefinition());
 
 /** Live by default, with version 1 frozen (also for a draft: a study set back after fieldwork). */
+/** The answerable screens of the fixture questionnaire and design, in the order shown. */
+export const fixtureScreenKeys = [
+  'consent',
+  'q:household_size',
+  'page:intro1',
+  ...Array.from({ length: 8 }, (_, i) => `tasks#${i + 1}`),
+  'dominance:dom1',
+  'repeat:rep1',
+];
+
 export async function insertStudy(
   db: Db,
   p: {

@@ -1,6 +1,12 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { useTestApp } from '../../support/test-app';
-import { addVersion, eightChoices, insertRespondent, insertStudy } from './fieldwork-fixtures';
+import {
+  addVersion,
+  eightChoices,
+  fixtureScreenKeys,
+  insertRespondent,
+  insertStudy,
+} from './fieldwork-fixtures';
 import { invitees } from '../../../db/schema/fieldwork';
 import type { Role } from '../../../shared/permissions';
 
@@ -121,14 +127,7 @@ describe('GET /fieldwork', () => {
       reached: number;
       stoppedHere: number;
     }>;
-    expect(steps.map((s) => s.key)).toEqual([
-      'consent',
-      'q:household_size',
-      'page:intro1',
-      ...Array.from({ length: 8 }, (_, i) => `tasks#${i + 1}`),
-      'dominance:dom1',
-      'repeat:rep1',
-    ]);
+    expect(steps.map((s) => s.key)).toEqual(fixtureScreenKeys);
     const row = (key: string) => steps.find((s) => s.key === key)!;
     expect(row('consent')).toMatchObject({ reached: 8, stoppedHere: 1 });
     expect(row('q:household_size')).toMatchObject({ reached: 8, stoppedHere: 0 });

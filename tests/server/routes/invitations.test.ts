@@ -34,6 +34,15 @@ async function signUpAs(email: string) {
   return { agent, userId: user.id };
 }
 
+/** The link neither previews nor joins the team, even for the invited address. */
+async function expectLinkDead(token: string, email: string, teamId: string): Promise<void> {
+  await t.request().get(`/api/invitations/${token}`).expect(400);
+  const invitee = await signUpAs(email);
+  const res = await invitee.agent.post(`/api/invitations/${token}/accept`).expect(400);
+  expect(res.body.error.code).toBe('invalid_token');
+  expect(await getMembership(t.deps.db, { teamId, userId: invitee.userId })).toBeNull();
+}
+
 async function countInvitations(teamId: string): Promise<number> {
   const r = await t.deps.db.execute(
     sql`select count(*)::int as n from team_invitations where team_id = ${teamId}`,
@@ -167,13 +176,7 @@ describe('POST /api/invitations/:token/accept', () => {
     await t.deps.db.execute(
       sql`update team_invitations set expires_at = now() - interval '1 minute' where id = ${invitation.id}`,
     );
-    await t.request().get(`/api/invitations/${token}`).expect(400);
-    const invitee = await signUpAs(email);
-    const res = await invitee.agent.post(`/api/invitations/${token}/accept`).expect(400);
-    expect(res.body.error.code).toBe('invalid_token');
-    expect(
-      await getMembership(t.deps.db, { teamId: owner.teamId, userId: invitee.userId }),
-    ).toBeNull();
+    await expectLinkDead(token, email, owner.teamId);
     const open = await owner.agent.get(`/api/teams/${owner.teamId}/invitations`).expect(200);
     expect(open.body).toEqual([]);
   });
@@ -187,13 +190,7 @@ describe('DELETE /api/teams/:teamId/invitations/:invitationId', () => {
     await owner.agent.delete(`/api/teams/${owner.teamId}/invitations/${invitation.id}`).expect(204);
     const open = await owner.agent.get(`/api/teams/${owner.teamId}/invitations`).expect(200);
     expect(open.body).toEqual([]);
-    await t.request().get(`/api/invitations/${token}`).expect(400);
-    const invitee = await signUpAs(email);
-    const res = await invitee.agent.post(`/api/invitations/${token}/accept`).expect(400);
-    expect(res.body.error.code).toBe('invalid_token');
-    expect(
-      await getMembership(t.deps.db, { teamId: owner.teamId, userId: invitee.userId }),
-    ).toBeNull();
+    await expectLinkDead(token, email, owner.teamId);
   });
 
   it('when the invitation was already cancelled or accepted, returns 404', async () => {

@@ -19,6 +19,34 @@ const base = () => `/api/teams/${team.teamId}/studies`;
 const writers: Role[] = ['owner', 'editor'];
 const readers: Role[] = ['analyst', 'viewer'];
 
+/** Stores a random design of `blocks` blocks (one two-alternative task each) as the study's current design. */
+async function insertCurrentDesign(studyId: string, blocks: number) {
+  const design = await insertDesign(t.deps.db, {
+    studyId,
+    teamId: team.teamId,
+    method: 'random',
+    spec: {},
+    design: {
+      blocks,
+      tasks: Array.from({ length: blocks }, (_, i) => ({
+        block: i + 1,
+        task: i + 1,
+        alternatives: [
+          { levels: { bill: 'b0', river: 'poor' } },
+          { levels: { bill: 'b10', river: 'good' } },
+        ],
+      })),
+    },
+    diagnostics: {},
+    createdBy: null,
+  });
+  await t.deps.db
+    .update(studies)
+    .set({ currentDesignId: design.id })
+    .where(eq(studies.id, studyId));
+  return design;
+}
+
 describe('POST /api/teams/:teamId/studies', () => {
   it.each(writers)(
     'as %s, creates a draft with an empty definition and a public id',
@@ -74,26 +102,7 @@ describe('GET /api/teams/:teamId/studies and /:studyId', () => {
       definition: makeSmallDefinition(),
     });
     const other = await createStudyVia(team.agents.owner, team.teamId, { name: 'Other' });
-    const design = await insertDesign(t.deps.db, {
-      studyId: id,
-      teamId: team.teamId,
-      method: 'random',
-      spec: {},
-      design: {
-        blocks: 2,
-        tasks: [1, 2].map((n) => ({
-          block: n,
-          task: n,
-          alternatives: [
-            { levels: { bill: 'b0', river: 'poor' } },
-            { levels: { bill: 'b10', river: 'good' } },
-          ],
-        })),
-      },
-      diagnostics: {},
-      createdBy: null,
-    });
-    await t.deps.db.update(studies).set({ currentDesignId: design.id }).where(eq(studies.id, id));
+    await insertCurrentDesign(id, 2);
     const [version] = await t.deps.db
       .insert(studyVersions)
       .values({ studyId: id, version: 1, definition: {}, design: {}, questionnaire: {} })
@@ -256,28 +265,7 @@ describe('PUT /api/teams/:teamId/studies/:studyId/definition', () => {
   it('keeps a design that still fits and detaches one that no longer does', async () => {
     const definition = makeSmallDefinition();
     const { id } = await createStudyVia(team.agents.owner, team.teamId, { definition });
-    const design = await insertDesign(t.deps.db, {
-      studyId: id,
-      teamId: team.teamId,
-      method: 'random',
-      spec: {},
-      design: {
-        blocks: 1,
-        tasks: [
-          {
-            block: 1,
-            task: 1,
-            alternatives: [
-              { levels: { bill: 'b0', river: 'poor' } },
-              { levels: { bill: 'b10', river: 'good' } },
-            ],
-          },
-        ],
-      },
-      diagnostics: {},
-      createdBy: null,
-    });
-    await t.deps.db.update(studies).set({ currentDesignId: design.id }).where(eq(studies.id, id));
+    const design = await insertCurrentDesign(id, 1);
     definition.attributes[0].name = 'Bill increase';
     const kept = await team.agents.owner
       .put(`${base()}/${id}/definition`)

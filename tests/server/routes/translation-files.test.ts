@@ -75,10 +75,10 @@ describe('POST /texts/:lang/file', () => {
   it('imports a translated XLIFF file and reports the texts still missing', async () => {
     const s = await studyInGerman();
     const exported = (await t.team.agents.editor.get(url(s.id, '/de/file')).expect(200)).text;
-    const res = await t.team.agents.editor
-      .post(url(s.id, '/de/file'))
-      .send({ format: 'xliff', content: translateXliff(exported, ['ui.next']) })
-      .expect(200);
+    const res = await importFile('editor', s.id, {
+      format: 'xliff',
+      content: translateXliff(exported, ['ui.next']),
+    }).expect(200);
     expect(res.body.missing).toEqual([
       { key: 'ui.next', where: expect.stringContaining('next screen'), interface: true },
     ]);
@@ -93,10 +93,9 @@ describe('POST /texts/:lang/file', () => {
       '</file>',
       '<unit id="page.gone.title"><segment><source>Old</source><target>Alt</target></segment></unit></file>',
     );
-    const res = await t.team.agents.editor
-      .post(url(s.id, '/de/file'))
-      .send({ format: 'xliff', content: withExtra })
-      .expect(200);
+    const res = await importFile('editor', s.id, { format: 'xliff', content: withExtra }).expect(
+      200,
+    );
     expect(res.body.extra).toEqual([
       { key: 'page.gone.title', where: '', line: expect.any(Number) },
     ]);
@@ -117,10 +116,10 @@ describe('POST /texts/:lang/file', () => {
     const foreign = translateXliff(
       (await t.team.agents.editor.get(url(other.id, '/de/file')).expect(200)).text,
     );
-    const wrongStudy = await t.team.agents.editor
-      .post(url(s.id, '/de/file'))
-      .send({ format: 'xliff', content: foreign })
-      .expect(400);
+    const wrongStudy = await importFile('editor', s.id, {
+      format: 'xliff',
+      content: foreign,
+    }).expect(400);
     expect(wrongStudy.body.error.message).toBe('This file belongs to another study');
     expect(wrongStudy.body.error.fields[0].path).toBe('file');
 
@@ -128,28 +127,25 @@ describe('POST /texts/:lang/file', () => {
       (await t.team.agents.editor.get(url(s.id, '/de/file')).expect(200)).text,
     );
     const french = own.replace('trgLang="de"', 'trgLang="fr"');
-    const wrongLanguage = await t.team.agents.editor
-      .post(url(s.id, '/de/file'))
-      .send({ format: 'xliff', content: french })
-      .expect(400);
+    const wrongLanguage = await importFile('editor', s.id, {
+      format: 'xliff',
+      content: french,
+    }).expect(400);
     expect(wrongLanguage.body.error.fields[0].path).toBe('language');
 
     const xxe = own.replace(
       '<?xml version="1.0" encoding="UTF-8"?>',
       '<?xml version="1.0"?><!DOCTYPE x [<!ENTITY e SYSTEM "file:///etc/passwd">]>',
     );
-    const doctype = await t.team.agents.editor
-      .post(url(s.id, '/de/file'))
-      .send({ format: 'xliff', content: xxe })
-      .expect(400);
+    const doctype = await importFile('editor', s.id, { format: 'xliff', content: xxe }).expect(400);
     expect(doctype.body.error.fields[0]).toEqual({
       path: 'file',
       message: expect.stringMatching(/DOCTYPE/),
     });
-    const csvWrong = await t.team.agents.editor
-      .post(url(s.id, '/de/file'))
-      .send({ format: 'csv', content: 'key,where,en,fr\nstudy.title,x,y,z\n' })
-      .expect(400);
+    const csvWrong = await importFile('editor', s.id, {
+      format: 'csv',
+      content: 'key,where,en,fr\nstudy.title,x,y,z\n',
+    }).expect(400);
     expect(csvWrong.body.error.fields[0].path).toBe('language');
     expect(await translations(s.id)).toEqual({});
   });

@@ -1,18 +1,15 @@
 import { describe, expect, it } from 'vitest';
 import { buildDropOff, listScreenSlots } from '../../../server/services/fieldwork-stats';
-import { fixtureDesign, fixtureQuestionnaire } from '../routes/fieldwork-fixtures';
+import {
+  fixtureDesign,
+  fixtureQuestionnaire,
+  fixtureScreenKeys,
+} from '../routes/fieldwork-fixtures';
 
 describe('listScreenSlots', () => {
   it('lists answerable screens in order, tasks as "k-th shown", without the end page', () => {
     const slots = listScreenSlots(fixtureQuestionnaire, fixtureDesign);
-    expect(slots.map((s) => s.key)).toEqual([
-      'consent',
-      'q:household_size',
-      'page:intro1',
-      ...Array.from({ length: 8 }, (_, i) => `tasks#${i + 1}`),
-      'dominance:dom1',
-      'repeat:rep1',
-    ]);
+    expect(slots.map((s) => s.key)).toEqual(fixtureScreenKeys);
     expect(slots[1].label).toBe('How many people live in your household?');
     expect(slots[11].label).toBe('Dominance test');
   });

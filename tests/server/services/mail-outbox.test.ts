@@ -74,6 +74,15 @@ async function studyWithInvitee() {
   return { study, email, inviteeId: inv.id, invite, row, listed };
 }
 
+/** An invitation whose first send met an unreachable mail server, so it sits in the outbox. */
+async function queuedAfterUnreachableServer() {
+  const s = await studyWithInvitee();
+  failure = unreachable();
+  await s.invite();
+  const { id } = await s.row();
+  return { s, id };
+}
+
 describe('invitations through the mail outbox', () => {
   it('a healthy mail server gets the invitation at once, exactly once', async () => {
     const s = await studyWithInvitee();
@@ -129,10 +138,7 @@ describe('invitations through the mail outbox', () => {
   });
 
   it('gives up after the last attempt, saying so', async () => {
-    const s = await studyWithInvitee();
-    failure = unreachable();
-    await s.invite();
-    const { id } = await s.row();
+    const { s, id } = await queuedAfterUnreachableServer();
     await t.deps.db
       .update(mailOutbox)
       .set({ attempts: MAX_MAIL_ATTEMPTS - 1 })
@@ -142,10 +148,7 @@ describe('invitations through the mail outbox', () => {
   });
 
   it('a send interrupted by a crash is failed as possibly delivered and never sent again', async () => {
-    const s = await studyWithInvitee();
-    failure = unreachable();
-    await s.invite();
-    const { id } = await s.row();
+    const { s, id } = await queuedAfterUnreachableServer();
     // A worker claimed it and died while talking to the mail server.
     await t.deps.db
       .update(mailOutbox)

@@ -2,6 +2,7 @@
 import '@testing-library/jest-dom/vitest';
 import { afterEach, describe, expect, it } from 'vitest';
 import { cleanup, render, screen } from '@testing-library/react';
+import type { ComponentProps } from 'react';
 import { MemoryRouter } from 'react-router';
 import { StudyPipeline } from '@/features/studies/components/study-pipeline';
 import { getStepsDone } from '@/features/studies/utils/steps-done';
@@ -10,17 +11,22 @@ import { emptyStudyDefinition } from '@shared/schemas/study-definition';
 
 afterEach(cleanup);
 
+type PipelineProps = Omit<ComponentProps<typeof StudyPipeline>, 'teamId' | 'studyId'>;
+
+/** Renders the pipeline of study s1 in team t1, at `path` when a section is current. */
+function renderPipeline(props: PipelineProps, path?: string) {
+  render(
+    <MemoryRouter initialEntries={path ? [path] : undefined}>
+      <StudyPipeline teamId="t1" studyId="s1" {...props} />
+    </MemoryRouter>,
+  );
+}
+
 describe('StudyPipeline', () => {
   it('links sections that exist, highlights the current one and disables the rest', () => {
-    render(
-      <MemoryRouter initialEntries={['/teams/t1/studies/s1/tasks']}>
-        <StudyPipeline
-          teamId="t1"
-          studyId="s1"
-          available={new Set(['attributes', 'tasks', 'preview'])}
-          done={new Set(['attributes'])}
-        />
-      </MemoryRouter>,
+    renderPipeline(
+      { available: new Set(['attributes', 'tasks', 'preview']), done: new Set(['attributes']) },
+      '/teams/t1/studies/s1/tasks',
     );
     const nav = screen.getByRole('navigation', { name: 'Study sections' });
     expect(nav).toBeInTheDocument();
@@ -37,16 +43,7 @@ describe('StudyPipeline', () => {
   });
 
   it('shows "Imported" where Fieldwork would be for a study made from a file, with no link', () => {
-    render(
-      <MemoryRouter>
-        <StudyPipeline
-          teamId="t1"
-          studyId="s1"
-          available={new Set(['fieldwork', 'models'])}
-          imported
-        />
-      </MemoryRouter>,
-    );
+    renderPipeline({ available: new Set(['fieldwork', 'models']), imported: true });
     expect(screen.queryByText('Fieldwork')).toBeNull();
     expect(screen.queryByRole('link', { name: /Imported/ })).toBeNull();
     const step = screen.getByText('Imported').closest('[aria-disabled]');
@@ -74,16 +71,10 @@ describe('getStepsDone', () => {
   });
 
   it('names a done step for screen readers too', () => {
-    render(
-      <MemoryRouter>
-        <StudyPipeline
-          teamId="t1"
-          studyId="s1"
-          available={new Set(['questionnaire', 'preview'])}
-          done={new Set(['questionnaire', 'preview'])}
-        />
-      </MemoryRouter>,
-    );
+    renderPipeline({
+      available: new Set(['questionnaire', 'preview']),
+      done: new Set(['questionnaire', 'preview']),
+    });
     expect(screen.getByRole('link', { name: /^Questionnaire,\s?done$/ })).toBeInTheDocument();
     expect(screen.getByRole('link', { name: /^Preview,\s?done$/ })).toBeInTheDocument();
   });

@@ -11,6 +11,7 @@
 set -euo pipefail
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 cd "$ROOT"
+export PATH="$ROOT/node_modules/.bin:$PATH" # tools directly, without npx resolving each
 PORT="${1:-5190}"
 SEED_MARK="${E2E_SEED_MARK:-$ROOT/.data/e2e-seed-$PORT}"
 DB="choicewright_e2e"
@@ -27,9 +28,9 @@ export NODE_ENV=production HOST=127.0.0.1 PORT="$PORT" APP_URL="http://127.0.0.1
   CW_DEMO_CREDENTIALS_FILE="$ROOT/.data/e2e-demo-credentials.json"
 mkdir -p "$(dirname "$SEED_MARK")"
 rm -f "$SEED_MARK.done" "$SEED_MARK.failed"
-(if npx tsx server/seed.ts >&2; then touch "$SEED_MARK.done"; else touch "$SEED_MARK.failed"; fi) &
-[ -f dist/client/index.html ] || npx vite build >&2
-npx tsx scripts/build-wasm.ts --if-stale >&2
-npx tsx scripts/build-engine-workers.ts --if-stale >&2
+(if tsx server/seed.ts >&2; then touch "$SEED_MARK.done"; else touch "$SEED_MARK.failed"; fi) &
+[ -f dist/client/index.html ] || vite build >&2
+tsx scripts/build-wasm.ts --if-stale >&2
+tsx scripts/build-engine-workers.ts --if-stale >&2
 node --import tsx e2e/support/wait-for-demo-accounts.ts "$SEED_MARK.failed" >&2
 exec node --import tsx server/main.ts

@@ -7,6 +7,8 @@
 set -euo pipefail
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 cd "$ROOT"
+# The tools from node_modules/.bin directly: npx spends ~0.3 s of CPU per call resolving them.
+export PATH="$ROOT/node_modules/.bin:$PATH"
 . scripts/lib-install.sh
 . scripts/lib-stages.sh
 
@@ -45,12 +47,12 @@ stage "database and fake mail" start_services
 #   files (.gitignore and .prettierignore) with about a quarter less CPU; no cache, one process.
 stage "build, checks, unit and API tests, end-to-end journeys" pool \
   build "build (WebAssembly kernel, engine workers, client)" - \
-  "npx tsx scripts/build-wasm.ts && npx tsx scripts/build-engine-workers.ts && npx vite build --logLevel warn" \
-  e2e "end-to-end journeys (Playwright, Debian chromium)" build "npx playwright test" \
-  api "vitest API project (PostgreSQL)" build "npx vitest run --project api" \
-  unit "vitest unit project (no database)" build "npx vitest run --project unit" \
-  typecheck "typecheck" - "nice -n 10 npx tsgo --noEmit -p . --singleThreaded" \
-  lint "lint" - "nice -n 10 npx eslint . --max-warnings=0" \
-  format "format" - "nice -n 10 npx prettier --experimental-cli --no-cache --no-parallel --check . --log-level warn" \
+  "tsx scripts/build-wasm.ts && tsx scripts/build-engine-workers.ts && vite build --logLevel warn" \
+  e2e "end-to-end journeys (Playwright, Debian chromium)" build "playwright test" \
+  api "vitest API project (PostgreSQL)" build "vitest run --project api" \
+  unit "vitest unit project (no database)" build "vitest run --project unit" \
+  typecheck "typecheck" - "nice -n 10 tsgo --noEmit -p . --singleThreaded" \
+  lint "lint" - "nice -n 10 eslint . --max-warnings=0" \
+  format "format" - "nice -n 10 prettier --experimental-cli --no-cache --no-parallel --check . --log-level warn" \
   audit "dependency audit" - "bash scripts/audit.sh"
 echo "== all tests passed"

@@ -9,6 +9,9 @@ ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 cd "$ROOT"
 # The tools from node_modules/.bin directly: npx spends ~0.3 s of CPU per call resolving them.
 export PATH="$ROOT/node_modules/.bin:$PATH"
+# The journeys' server starts its processes from the bundles the build job makes
+# (scripts/e2e-server.sh), not through tsx.
+export CW_PROCESS_BUNDLES=use
 . scripts/lib-install.sh
 . scripts/lib-stages.sh
 
@@ -46,8 +49,8 @@ stage "database and fake mail" start_services
 # - The format check is the same Prettier through its newer command line, which checks the same
 #   files (.gitignore and .prettierignore) with about a quarter less CPU; no cache, one process.
 stage "build, checks, unit and API tests, end-to-end journeys" pool \
-  build "build (WebAssembly kernel, engine workers, client)" - \
-  "tsx scripts/build-wasm.ts && tsx scripts/build-engine-workers.ts && vite build --logLevel warn" \
+  build "build (WebAssembly kernel, engine workers, processes, client)" - \
+  "tsx scripts/build-wasm.ts && tsx scripts/build-engine-workers.ts && tsx scripts/build-process-bundles.ts && vite build --logLevel warn" \
   e2e "end-to-end journeys (Playwright, Debian chromium)" build "playwright test" \
   api "vitest API project (PostgreSQL)" build "vitest run --project api" \
   unit "vitest unit project (no database)" build "vitest run --project unit" \

@@ -20,6 +20,11 @@ stage "chromium" ensure_chromium
 
 PG_WAS_RUNNING=no
 if [ -z "${DATABASE_URL:-}" ] && [ "$(scripts/pg.sh status 2>/dev/null || true)" = "running" ]; then PG_WAS_RUNNING=yes; fi
+# In CI the cluster lives in the throwaway clone and is stopped at the end: no durability needed
+# (scripts/pg.sh). Never for a developer's cluster, which npm start keeps using.
+if [ "${CI:-}" = "true" ] && [ "$PG_WAS_RUNNING" = no ] && [ -z "${DATABASE_URL:-}" ]; then
+  export CW_PG_THROWAWAY=yes
+fi
 cleanup() {
   # Leave a server we found running alone (a developer's); stop what this run started.
   if [ "$PG_WAS_RUNNING" = no ] && [ -z "${DATABASE_URL:-}" ]; then scripts/pg.sh stop >/dev/null 2>&1 || true; fi

@@ -11,11 +11,14 @@
 import path from 'node:path';
 import { ensureBuilt, runBuildCommand, type BuildStep } from './lib/build-step';
 import { buildBundles } from './lib/esbuild-bundles';
-import { arePrebuiltWorkersStale } from '../server/engine/parallel/prebuilt-workers';
+import {
+  arePrebuiltWorkersStale,
+  prebuiltWorkerFile,
+} from '../server/engine/parallel/prebuilt-workers';
 
 const ROOT = path.resolve(import.meta.dirname, '..');
 
-/** Where the process bundles go, each named after its source file (main.mjs, seed.mjs…). */
+/** Where the process bundles go, each named after its source path (server/main.ts.mjs…). */
 export const PROCESS_BUNDLES_DIR = path.join(ROOT, 'dist/processes');
 
 export const PROCESS_SOURCES = [
@@ -36,8 +39,20 @@ const step: BuildStep = {
       outdir: PROCESS_BUNDLES_DIR,
       packagesExternal: true,
       allowDirname: true,
+      // The bundle keeps its source's path in its name (and so in the process's command line).
+      namedBySourcePath: true,
     }),
 };
+
+/**
+ * The up-to-date bundle of a process source (repository-relative, e.g. `server/main.ts`) when
+ * CW_PROCESS_BUNDLES=use, else null (started through tsx): a bundle older than one of its
+ * sources is never used.
+ */
+export function processBundleOf(source: string): string | null {
+  if (process.env.CW_PROCESS_BUNDLES !== 'use') return null;
+  return prebuiltWorkerFile(path.join(ROOT, source), PROCESS_BUNDLES_DIR);
+}
 
 /** Builds when missing or stale; quick when up to date. */
 export const ensureProcessBundlesBuilt = (): Promise<void> => ensureBuilt(step);

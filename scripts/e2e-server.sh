@@ -31,7 +31,7 @@ export NODE_ENV=production HOST=127.0.0.1 PORT="$PORT" APP_URL="http://127.0.0.1
 # its build job has built every bundle (the kernel and engine workers too, not checked again
 # here); through tsx otherwise. Relative paths without spaces: word splitting is safe.
 start_of() {
-  local bundle="dist/processes/$(basename "$1" .ts).mjs"
+  local bundle="dist/processes/$1.mjs"
   if [ "${CW_PROCESS_BUNDLES:-}" = use ] && [ -f "$bundle" ]; then
     echo "node $bundle"
   else

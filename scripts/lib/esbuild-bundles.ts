@@ -62,6 +62,8 @@ export interface BundleOptions {
   packagesExternal?: boolean;
   /** Allow import.meta.dirname / filename (rewritten to the source's); engine workers may not. */
   allowDirname?: boolean;
+  /** Name each bundle `<source path>.mjs` (server/main.ts.mjs) rather than `<basename>.mjs`. */
+  namedBySourcePath?: boolean;
 }
 
 /** Bundles every entry file and writes the manifest that prebuilt-workers.ts reads. */
@@ -69,33 +71,49 @@ export async function buildBundles(options: BundleOptions): Promise<void> {
   const { build } = await import('esbuild');
   const builtAt = Date.now();
   const { outdir } = options;
-  const entryPoints = Object.fromEntries(options.sources.map((f) => [path.basename(f, '.ts'), f]));
-  const result = await build({
-    entryPoints,
-    absWorkingDir: ROOT,
-    outdir,
-    outExtension: { '.js': '.mjs' },
-    bundle: true,
-    format: 'esm',
-    platform: 'node',
-    target: 'node20',
-    external: options.external ?? [],
-    packages: options.packagesExternal ? 'external' : undefined,
-    sourcemap: true,
-    metafile: true,
-    write: false,
-    logLevel: 'warning',
-    plugins: [sourceLocationPlugin(outdir, options.allowDirname ?? false)],
-  });
+  // Bundles in one folder are built together; a module's location is written relative to the
+  // folder its bundle lands in (the source-path names put bundles in subfolders).
+  const groups = new Map<string, Record<string, string>>();
+  for (const f of options.sources) {
+    const name = options.namedBySourcePath ? repoRelative(f) : path.basename(f, '.ts');
+    const dir = path.join(outdir, path.dirname(name));
+    groups.set(dir, { ...groups.get(dir), [path.basename(name)]: f });
+  }
+  const results = await Promise.all(
+    [...groups].map(([dir, entryPoints]) =>
+      build({
+        entryPoints,
+        absWorkingDir: ROOT,
+        outdir: dir,
+        outExtension: { '.js': '.mjs' },
+        bundle: true,
+        format: 'esm',
+        platform: 'node',
+        target: 'node20',
+        external: options.external ?? [],
+        packages: options.packagesExternal ? 'external' : undefined,
+        sourcemap: true,
+        metafile: true,
+        write: false,
+        logLevel: 'warning',
+        plugins: [sourceLocationPlugin(dir, options.allowDirname ?? false)],
+      }),
+    ),
+  );
+  const outputFiles = results.flatMap((r) => r.outputFiles);
+  const outputs = results.flatMap((r) => Object.entries(r.metafile.outputs));
   // Each file replaced whole (written beside, then renamed), so that a thread or process starting
   // meanwhile (another test run building too) reads the old bundle or the new one, never half.
   fs.mkdirSync(outdir, { recursive: true });
-  for (const file of result.outputFiles) writeAtomically(file.path, file.contents);
+  for (const file of outputFiles) {
+    fs.mkdirSync(path.dirname(file.path), { recursive: true });
+    writeAtomically(file.path, file.contents);
+  }
   const workers: PrebuiltWorkersManifest['workers'] = {};
-  for (const [output, meta] of Object.entries(result.metafile.outputs)) {
+  for (const [output, meta] of outputs) {
     if (!meta.entryPoint) continue;
     workers[repoRelative(path.resolve(ROOT, meta.entryPoint))] = {
-      bundle: path.basename(output),
+      bundle: path.relative(outdir, path.resolve(ROOT, output)).split(path.sep).join('/'),
       inputs: Object.fromEntries(
         Object.keys(meta.inputs).map((input) => {
           const file = path.resolve(ROOT, input);

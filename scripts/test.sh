@@ -46,6 +46,8 @@ stage "database and fake mail" start_services
 # - The journeys (Playwright, one browser, one server with its own migrated and seeded database)
 #   are the longest job but mostly wait on the browser and the server, so they start right after
 #   the build and the CPU-bound jobs fill their waits; before, they waited for a whole stage.
+# - Both vitest projects run in one vitest process: one start, one global setup and one pool of
+#   two test workers instead of two of each competing for the same two cores.
 # - The audit: production packages may have no high or critical advisory (scripts/audit.sh).
 # - The typecheck is the native compiler (tsgo, @typescript/native-preview; the same project and
 #   diagnostics as tsc at a fifth of its CPU), single-threaded since the pool keeps both cores busy.
@@ -57,8 +59,7 @@ stage "build, checks, unit and API tests, end-to-end journeys" pool \
   build "build (WebAssembly kernel, engine workers, processes, client)" - \
   "tsx scripts/build-wasm.ts && tsx scripts/build-engine-workers.ts && tsx scripts/build-process-bundles.ts && vite build --logLevel warn" \
   e2e "end-to-end journeys (Playwright, Debian chromium)" build "playwright test" \
-  api "vitest API project (PostgreSQL)" build "vitest run --project api" \
-  unit "vitest unit project (no database)" build "vitest run --project unit" \
+  vitest "vitest, unit and API projects (PostgreSQL)" build "vitest run" \
   typecheck "typecheck" - "nice -n 10 tsgo --noEmit -p . --singleThreaded" \
   lint "lint" - "nice -n 10 eslint . --max-warnings=0" \
   format "format" - "nice -n 10 prettier --experimental-cli --no-cache --no-parallel --check . --log-level warn" \

@@ -113,6 +113,8 @@ export default defineConfig({
           name: 'api',
           isolate: false,
           include: ['tests/{server,db}/**/*.test.{ts,tsx}'],
+          // The least Argon2id cost for the hundreds of throwaway accounts (server/env.ts).
+          env: { PASSWORD_HASH_STRENGTH: 'test' },
           globalSetup: ['tests/engine-build-setup.ts', 'tests/global-setup.ts'],
         },
       },

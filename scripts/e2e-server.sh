@@ -11,6 +11,7 @@
 set -euo pipefail
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 cd "$ROOT"
+export PATH="$ROOT/node_modules/.bin:$PATH" # tools directly, without npx resolving each
 PORT="${1:-5190}"
 SEED_MARK="${E2E_SEED_MARK:-$ROOT/.data/e2e-seed-$PORT}"
 DB="choicewright_e2e"
@@ -25,11 +26,25 @@ export NODE_ENV=production HOST=127.0.0.1 PORT="$PORT" APP_URL="http://127.0.0.1
   SMTP_HOST=127.0.0.1 SMTP_PORT=1125 LOG_LEVEL=warn AUTH_RATE_LIMIT=10000 \
   JWT_SECRET="$(node -e "process.stdout.write(require('node:crypto').randomBytes(48).toString('base64url'))")" \
   CW_DEMO_CREDENTIALS_FILE="$ROOT/.data/e2e-demo-credentials.json"
+# start_of FILE.ts: the command that starts it, from its process bundle
+# (scripts/build-process-bundles.ts) when CW_PROCESS_BUNDLES=use, which scripts/test.sh sets once
+# its build job has built every bundle (the kernel and engine workers too, not checked again
+# here); through tsx otherwise. Relative paths without spaces: word splitting is safe.
+start_of() {
+  local bundle="dist/processes/$1.mjs"
+  if [ "${CW_PROCESS_BUNDLES:-}" = use ] && [ -f "$bundle" ]; then
+    echo "node $bundle"
+  else
+    echo "node --import tsx $1"
+  fi
+}
 mkdir -p "$(dirname "$SEED_MARK")"
 rm -f "$SEED_MARK.done" "$SEED_MARK.failed"
-(if npx tsx server/seed.ts >&2; then touch "$SEED_MARK.done"; else touch "$SEED_MARK.failed"; fi) &
-[ -f dist/client/index.html ] || npx vite build >&2
-npx tsx scripts/build-wasm.ts --if-stale >&2
-npx tsx scripts/build-engine-workers.ts --if-stale >&2
-node --import tsx e2e/support/wait-for-demo-accounts.ts "$SEED_MARK.failed" >&2
-exec node --import tsx server/main.ts
+(if $(start_of server/seed.ts) >&2; then touch "$SEED_MARK.done"; else touch "$SEED_MARK.failed"; fi) &
+[ -f dist/client/index.html ] || vite build >&2
+if [ "${CW_PROCESS_BUNDLES:-}" != use ]; then
+  tsx scripts/build-wasm.ts --if-stale >&2
+  tsx scripts/build-engine-workers.ts --if-stale >&2
+fi
+$(start_of e2e/support/wait-for-demo-accounts.ts) "$SEED_MARK.failed" >&2
+exec $(start_of server/main.ts)

@@ -1,9 +1,10 @@
-# Shared by start.sh and test.sh: install npm packages from the lock file when needed.
+# Shared by start.sh and test.sh: install npm packages from the lock file when needed
+# (--prefer-offline: tarballs already in npm's cache are not revalidated against the registry).
 ensure_node_modules() {
   if [ "${CI:-}" = "true" ] || [ ! -d node_modules ] || [ ! -f node_modules/.package-lock.json ] \
     || [ package-lock.json -nt node_modules/.package-lock.json ]; then
     echo "== installing npm packages (npm ci)"
-    npm ci --no-audit --no-fund --include=dev
+    npm ci --prefer-offline --no-audit --no-fund --include=dev
   fi
 }
 

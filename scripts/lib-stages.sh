@@ -22,6 +22,12 @@ stage() {
   return $rc
 }
 
+# CPU seconds (user + system) of the waited-for children, from the output of `times` on stdin:
+# a job's whole process tree, except processes that left it (a daemon such as PostgreSQL).
+children_cpu_seconds() {
+  sed -n 2p | awk '{ t = 0; for (i = 1; i <= 2; i++) { split($i, a, "m"); sub("s", "", a[2]); t += a[1] * 60 + a[2] } printf "%.0f", t }'
+}
+
 # pool KEY LABEL AFTER CMD [KEY LABEL AFTER CMD]...: one pool of jobs, each started as soon as
 # the jobs named in AFTER (keys, comma-separated, or "-" for none) have passed, so that a
 # latency-bound job (the browser journeys) runs beside the CPU-bound ones instead of after a
@@ -72,18 +78,19 @@ pool() {
           set +e
           bash -c "${cmds[$i]}" >"$dir/$i.log" 2>&1
           rc=$?
-          echo "$rc $(($(date +%s) - s0))" >"$dir/$i.rc.tmp" && mv "$dir/$i.rc.tmp" "$dir/$i.rc"
+          times >"$dir/$i.times" # in this shell: a command substitution would have no children
+          echo "$rc $(($(date +%s) - s0)) $(children_cpu_seconds <"$dir/$i.times")" >"$dir/$i.rc.tmp" && mv "$dir/$i.rc.tmp" "$dir/$i.rc"
         ) &
       fi
     done
     for i in $(seq 0 $((n - 1))); do
       [ "${state[$i]}" = running ] && [ -f "$dir/$i.rc" ] || continue
-      local rc secs
-      read -r rc secs <"$dir/$i.rc"
+      local rc secs cpu
+      read -r rc secs cpu <"$dir/$i.rc"
       if [ "$rc" -eq 0 ]; then state[$i]=passed; else state[$i]=failed failed=1; fi
       progress=1
-      echo "-- ${labels[$i]}: exit $rc in ${secs} s (started at +${starts[$i]} s)"
-      POOL_DETAIL+="$(printf '    %-50s %5d s  (from +%d s)%s' "${labels[$i]}" "$secs" "${starts[$i]}" "$([ "$rc" -eq 0 ] || echo " FAILED")")"$'\n'
+      echo "-- ${labels[$i]}: exit $rc in ${secs} s, ${cpu} s of CPU (started at +${starts[$i]} s)"
+      POOL_DETAIL+="$(printf '    %-50s %5d s  (from +%d s, CPU %s s)%s' "${labels[$i]}" "$secs" "${starts[$i]}" "$cpu" "$([ "$rc" -eq 0 ] || echo " FAILED")")"$'\n'
       cat "$dir/$i.log"
     done
     local open=0

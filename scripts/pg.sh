@@ -68,6 +68,21 @@ psql_admin() {
 
 is_running() { [ -f "$PGDATA_DIR/PG_VERSION" ] && as_owner "$BIN/pg_ctl" -D "$PGDATA_DIR" status >/dev/null 2>&1; }
 
+# Durability: on, except for a cluster thrown away after one CI run (CW_PG_THROWAWAY=yes, set
+# only by scripts/test.sh under CI=true for a cluster it starts and stops itself), where a crash
+# loses nothing of value: no flush to disk at each commit, file copy or checkpoint. The test
+# suites create a database per test file and commit thousands of small transactions.
+# synchronous_commit stays at its default (on): the answer path sets it off for one statement
+# and a test checks that a caller's transaction keeps the server's setting.
+durability_options() {
+  if [ "${CW_PG_THROWAWAY:-}" = yes ]; then
+    log "throwaway CI cluster: fsync and full_page_writes off"
+    echo "-c fsync=off -c full_page_writes=off"
+  else
+    echo "-c fsync=on"
+  fi
+}
+
 cmd_start() {
   ensure_installed
   resolve_cluster_dirs # the postgres user may only exist now
@@ -102,7 +117,7 @@ HBA
   else
     log "starting on 127.0.0.1:$PORT"
     as_owner "$BIN/pg_ctl" -D "$PGDATA_DIR" -l "$PGDATA_DIR/server.log" -w -t 60 start \
-      -o "-c listen_addresses=127.0.0.1 -p $PORT -k $RUN_DIR -c max_connections=300 -c fsync=on -c shared_buffers=128MB" >/dev/null
+      -o "-c listen_addresses=127.0.0.1 -p $PORT -k $RUN_DIR -c max_connections=300 -c shared_buffers=128MB $(durability_options)" >/dev/null
   fi
   for db in "$DB_NAME" "$@"; do
     if [ -z "$(psql_admin -c "select 1 from pg_database where datname='$db'")" ]; then

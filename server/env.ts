@@ -9,6 +9,36 @@ import { randomBytes } from 'node:crypto';
 
 const root = path.resolve(import.meta.dirname, '..');
 
+/**
+ * Cost of new password hashes (server/lib/passwords.ts): `standard` everywhere people sign in;
+ * `test` (the least Argon2id cost, ~0.3 ms instead of ~40 ms) only so that the test suites'
+ * hundreds of throwaway accounts do not spend a CPU minute hashing. Refused unless NODE_ENV=test.
+ */
+const passwordHashStrengthSchema = z.enum(['standard', 'test']).default('standard');
+export type PasswordHashStrength = z.infer<typeof passwordHashStrengthSchema>;
+
+const passwordHashSettings = z
+  .object({
+    NODE_ENV: z.string().optional(),
+    PASSWORD_HASH_STRENGTH: passwordHashStrengthSchema,
+  })
+  .refine((e) => e.PASSWORD_HASH_STRENGTH !== 'test' || e.NODE_ENV === 'test', {
+    path: ['PASSWORD_HASH_STRENGTH'],
+    message: '"test" is accepted only when NODE_ENV=test',
+  });
+
+/** The password hash cost, validated on its own because the hashing module needs no other setting. */
+export function readPasswordHashStrength(
+  source: NodeJS.ProcessEnv = process.env,
+): PasswordHashStrength {
+  const parsed = passwordHashSettings.safeParse(source);
+  if (!parsed.success) throw new Error(`Invalid configuration:\n${issueLines(parsed.error)}`);
+  return parsed.data.PASSWORD_HASH_STRENGTH;
+}
+
+const issueLines = (error: z.ZodError) =>
+  error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`).join('\n');
+
 const envSchema = z.object({
   NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
   HOST: z.string().default('127.0.0.1'),
@@ -102,6 +132,7 @@ const envSchema = z.object({
   IMPORT_MAX_MB: z.coerce.number().positive().default(256),
   /** Nice value of design and estimation threads (0 = same priority as requests; 19 lowest). */
   ENGINE_THREAD_NICE: z.coerce.number().int().min(0).max(19).default(10),
+  PASSWORD_HASH_STRENGTH: passwordHashStrengthSchema,
 });
 
 export type Env = z.infer<typeof envSchema> & { JWT_SECRET: string; APP_URL: string };
@@ -123,11 +154,9 @@ function loadOrCreateSecret(dataDir: string): string {
 
 export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
   const parsed = envSchema.safeParse(source);
-  if (!parsed.success) {
-    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`).join('\n');
-    throw new Error(`Invalid configuration:\n${lines}`);
-  }
+  if (!parsed.success) throw new Error(`Invalid configuration:\n${issueLines(parsed.error)}`);
   const e = parsed.data;
+  readPasswordHashStrength(source);
   // Several API instances must share one key, and a key made up on the spot would sign everyone
   // out at each restart: production names it (the local start command keeps one in DATA_DIR).
   if (e.NODE_ENV === 'production' && !e.JWT_SECRET)

@@ -8,6 +8,7 @@ import { spawn, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
+import { processBundleOf } from '../build-process-bundles';
 
 const root = path.resolve(import.meta.dirname, '../..');
 
@@ -33,7 +34,11 @@ export function startProcess(opts: {
   const log = fs.openSync(opts.logFile, 'a');
   // Profiling a benchmarked server: BENCH_SERVER_NODE_ARGS='--cpu-prof --cpu-prof-dir=…'.
   const nodeArgs = process.env.BENCH_SERVER_NODE_ARGS?.split(' ').filter(Boolean) ?? [];
-  const child = spawn(process.execPath, [...nodeArgs, '--import', 'tsx', opts.entry], {
+  // The tests (CW_PROCESS_BUNDLES=use, set by scripts/test.sh) start this checkout's processes
+  // from their prebuilt bundles while up to date; benchmarks start them as deployed.
+  const bundle = opts.cwd ? null : processBundleOf(opts.entry);
+  const start = bundle ? [bundle] : ['--import', 'tsx', opts.entry];
+  const child = spawn(process.execPath, [...nodeArgs, ...start], {
     cwd: opts.cwd ?? root,
     env: { PATH: process.env.PATH ?? '', HOME: process.env.HOME ?? '', ...opts.env },
     // The IPC channel lets the benchmark ask the server for its event-loop delay

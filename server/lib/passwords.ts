@@ -8,16 +8,31 @@
  */
 import argon2 from 'argon2';
 import bcrypt from 'bcryptjs';
+import { readPasswordHashStrength } from '../env';
 
-const ARGON2_OPTIONS = {
+const STANDARD_OPTIONS = {
   type: argon2.argon2id,
   memoryCost: 19_456,
   timeCost: 2,
   parallelism: 1,
 } as const;
 
+/**
+ * PASSWORD_HASH_STRENGTH=test (only under NODE_ENV=test, server/env.ts): the least cost
+ * Argon2 allows (RFC 9106 section 3.1: memory at least 8 KiB per lane, one pass). Same
+ * algorithm and format, so the code paths the tests exercise are those of production.
+ */
+const TEST_OPTIONS = { type: argon2.argon2id, memoryCost: 8, timeCost: 1, parallelism: 1 } as const;
+
+let options: typeof STANDARD_OPTIONS | typeof TEST_OPTIONS | undefined;
+/** Read on first use so that a test can set the environment before importing this module. */
+export function argon2Options() {
+  options ??= readPasswordHashStrength() === 'test' ? TEST_OPTIONS : STANDARD_OPTIONS;
+  return options;
+}
+
 export async function hashPassword(password: string): Promise<string> {
-  return argon2.hash(password, ARGON2_OPTIONS);
+  return argon2.hash(password, argon2Options());
 }
 
 const isLegacyBcrypt = (hash: string) => /^\$2[aby]\$/.test(hash);
@@ -30,7 +45,7 @@ export async function verifyPassword(
   if (isLegacyBcrypt(hash)) return { ok: await bcrypt.compare(password, hash), rehash: true };
   try {
     const ok = await argon2.verify(hash, password);
-    return { ok, rehash: ok && argon2.needsRehash(hash, ARGON2_OPTIONS) };
+    return { ok, rehash: ok && argon2.needsRehash(hash, argon2Options()) };
   } catch {
     // Not a hash we can read (e.g. a placeholder written by a test): never a match.
     return { ok: false, rehash: false };

@@ -73,6 +73,9 @@ export function prebuiltWorkerFile(
 }
 
 /** True when some worker has no up-to-date bundle (the build then runs again). */
-export function arePrebuiltWorkersStale(sourceFiles: string[]): boolean {
-  return sourceFiles.some((f) => prebuiltWorkerFile(f) === null);
+export function arePrebuiltWorkersStale(
+  sourceFiles: string[],
+  dir: string = PREBUILT_WORKERS_DIR,
+): boolean {
+  return sourceFiles.some((f) => prebuiltWorkerFile(f, dir) === null);
 }

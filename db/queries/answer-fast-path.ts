@@ -97,30 +97,58 @@ export type NothingWritten = {
   answered: string[];
 };
 
+/** One answer for the statements below. */
+export type FastAnswer = AnswerRow & {
+  /** Screen keys that must be exactly the ones answered so far. */
+  answeredBefore: string[];
+  status: 'in_progress' | 'completed' | 'screened_out';
+  durationMs: number;
+};
+
 /**
- * Stores the answer when it is a plain in-order answer of a live session. Returns the new id
- * and the study's settings (null for a stored answer that continues the session); `id` is
- * null when nothing was written (then `refused` says what was found), and the whole result
- * is null when the respondent or study is gone.
+ * The new id and the study's settings (null for a stored answer that continues the session);
+ * `id` is null when nothing was written (then `refused` says what was found). The whole
+ * result is null when the respondent or study is gone.
  */
+export type FastAnswerResult = {
+  id: string | null;
+  settings: unknown;
+  refused: NothingWritten | null;
+};
+
+type ResultRow = {
+  id: string | null;
+  settings: unknown;
+  status: string;
+  archived: boolean;
+  mine_screen_key: string | null;
+  mine_value: unknown;
+  answered: string[] | null;
+};
+
+function resultOf(row: ResultRow | undefined): FastAnswerResult | null {
+  if (!row) return null;
+  const refused =
+    row.id === null
+      ? {
+          status: row.status,
+          archived: row.archived,
+          mine:
+            row.mine_screen_key === null
+              ? null
+              : { screenKey: row.mine_screen_key, value: row.mine_value },
+          answered: row.answered ?? [],
+        }
+      : null;
+  return { id: row.id, settings: row.settings, refused };
+}
+
+/** Stores the answer when it is a plain in-order answer of a live session. */
 export async function insertAnswerIfOpen(
   db: Db,
-  params: AnswerRow & {
-    /** Screen keys that must be exactly the ones answered so far. */
-    answeredBefore: string[];
-    status: 'in_progress' | 'completed' | 'screened_out';
-    durationMs: number;
-  },
-): Promise<{ id: string | null; settings: unknown; refused: NothingWritten | null } | null> {
-  const r = await db.$client.query<{
-    id: string | null;
-    settings: unknown;
-    status: string;
-    archived: boolean;
-    mine_screen_key: string | null;
-    mine_value: unknown;
-    answered: string[] | null;
-  }>({
+  params: FastAnswer,
+): Promise<FastAnswerResult | null> {
+  const r = await db.$client.query<ResultRow>({
     name: STATEMENT,
     text: TEXT,
     values: [
@@ -142,19 +170,103 @@ export async function insertAnswerIfOpen(
       params.versionId,
     ],
   });
-  const row = r.rows[0];
-  if (!row) return null;
-  const refused =
-    row.id === null
-      ? {
-          status: row.status,
-          archived: row.archived,
-          mine:
-            row.mine_screen_key === null
-              ? null
-              : { screenKey: row.mine_screen_key, value: row.mine_value },
-          answered: row.answered ?? [],
-        }
-      : null;
-  return { id: row.id, settings: row.settings, refused };
+  return resultOf(r.rows[0]);
+}
+
+const BATCH_STATEMENT = 'answers_fast_path_batch_v1';
+
+/*
+ * The statement above for many answers at once, each of another respondent and each one that
+ * continues its session (status in_progress): the same conditions per answer, read from the
+ * same snapshot, and one insert for all that hold. Answers that end a session (a status, a
+ * block place) keep the one-answer statement, so no row is updated twice here.
+ *
+ * $1: the answers as a JSON array (one parameter whatever their number; PostgreSQL turns the
+ * JSON array of earlier screens into text[]). `i` is each answer's place in the batch. The
+ * value travels as JSON text, so that a JSON null is stored as the one-answer statement
+ * stores it (jsonb 'null', not SQL NULL).
+ */
+const BATCH_TEXT = `
+with x as (
+  select * from jsonb_to_recordset($1::jsonb) as x(
+    i int, respondent_id uuid, study_id uuid, client_id text, screen_key text, task_number int,
+    chosen_alternative int, chosen_position int, value_json text, response_ms int,
+    created_at timestamptz, answered_before text[])
+),
+ctx as (
+  select x.*, r.status, s.settings, s.archived_at is not null as archived,
+         (s.status = 'live' and s.archived_at is null
+          and (s.settings->>'closeAt' is null
+               or (s.settings->>'closeAt')::timestamptz > x.created_at)
+          and r.status = 'in_progress'
+          and (select count(*) from answers a where a.respondent_id = r.id)
+              = cardinality(x.answered_before)
+          and not exists (select 1 from answers a
+                           where a.respondent_id = r.id
+                             and a.screen_key <> all(x.answered_before))
+         ) as open
+    from x
+    join respondents r on r.id = x.respondent_id
+    join studies s on s.id = r.study_id and s.id = x.study_id
+),
+ins as (
+  insert into answers (respondent_id, study_id, client_id, screen_key, task_number,
+                       chosen_alternative, chosen_position, value, response_ms, created_at)
+  select respondent_id, study_id, client_id, screen_key, task_number, chosen_alternative,
+         chosen_position, value_json::jsonb, response_ms, created_at
+    from ctx where ctx.open
+  on conflict do nothing
+  returning id, respondent_id
+)
+select ctx.i, ins.id,
+       case when ins.id is null then ctx.settings end as settings,
+       ctx.status, ctx.archived,
+       mine.screen_key as mine_screen_key, mine.value as mine_value,
+       case when mine.screen_key is not null then
+         (select array_agg(a.screen_key) from answers a
+           where a.respondent_id = ctx.respondent_id) end as answered
+  from ctx
+  left join ins on ins.respondent_id = ctx.respondent_id
+  left join lateral (select a.screen_key, a.value from answers a
+                      where ins.id is null
+                        and a.respondent_id = ctx.respondent_id
+                        and a.client_id = ctx.client_id) mine on true`;
+
+/**
+ * insertAnswerIfOpen for answers of different respondents that each continue their session,
+ * in one statement: one result per answer, in order (null for a respondent or study gone).
+ */
+export async function insertAnswersIfOpen(
+  db: Db,
+  batch: readonly FastAnswer[],
+): Promise<(FastAnswerResult | null)[]> {
+  const respondentsSeen = new Set<string>();
+  for (const a of batch) {
+    if (a.status !== 'in_progress')
+      throw new Error('an answer that ends a session takes the one-answer statement');
+    if (respondentsSeen.has(a.respondentId))
+      throw new Error('a batch holds one answer per respondent');
+    respondentsSeen.add(a.respondentId);
+  }
+  const rows = batch.map((a, i) => ({
+    i,
+    respondent_id: a.respondentId,
+    study_id: a.studyId,
+    client_id: a.clientId,
+    screen_key: a.screenKey,
+    task_number: a.taskNumber,
+    chosen_alternative: a.chosenAlternative,
+    chosen_position: a.chosenPosition,
+    value_json: JSON.stringify(a.value),
+    response_ms: a.responseMs,
+    created_at: a.createdAt.toISOString(),
+    answered_before: a.answeredBefore,
+  }));
+  const r = await db.$client.query<ResultRow & { i: number }>({
+    name: BATCH_STATEMENT,
+    text: BATCH_TEXT,
+    values: [JSON.stringify(rows)],
+  });
+  const byPlace = new Map(r.rows.map((row) => [row.i, row]));
+  return batch.map((_, i) => resultOf(byPlace.get(i)));
 }

@@ -12,8 +12,15 @@
  */
 import type { Db } from '../../db/client';
 import type { AnswerReceipt, RespondentStatus } from '../../shared/schemas/respondent';
-import { insertAnswerIfOpen, type NothingWritten } from '../../db/queries/answer-fast-path';
+import {
+  insertAnswerIfOpen,
+  insertAnswersIfOpen,
+  type FastAnswer,
+  type FastAnswerResult,
+  type NothingWritten,
+} from '../../db/queries/answer-fast-path';
 import { isDataException } from '../lib/db-errors';
+import { createKeyedBatcher, type KeyedBatcher } from '../lib/keyed-batcher';
 import { readSettings } from './lifecycle';
 import { redirectFor } from './respondent-session';
 import { loadFrozenVersion } from './respondent-screens';
@@ -24,6 +31,32 @@ import { findKnownRespondent } from './known-respondents';
 import { segmentQuotaApplies } from './segment-quotas';
 import { ruleOfScreen } from '../../shared/survey/skip-logic';
 import { isRetryOf, nextUnanswered } from './answer-conflicts';
+
+/**
+ * Answers that continue a session, gathered per pool while earlier ones are in flight: under a
+ * panel launch one multi-row statement (one round trip, one commit) stores dozens of them,
+ * where each used to pay its own (bench:fieldwork). At most two batches are in flight, so
+ * the other connections of the pool stay free for session starts and the full path; 64 per
+ * batch keeps one statement's work (and its wait) short. One answer per respondent per batch
+ * (keyed-batcher.ts).
+ */
+const BATCH = { maxBatch: 64, maxInFlight: 2 } as const;
+const batchers = new WeakMap<Db, KeyedBatcher<FastAnswer, FastAnswerResult | null>>();
+
+/** The batcher of this pool's continuing answers (made on first use). */
+export function fastAnswerBatcherOf(db: Db): KeyedBatcher<FastAnswer, FastAnswerResult | null> {
+  let batcher = batchers.get(db);
+  if (!batcher) {
+    batcher = createKeyedBatcher({
+      ...BATCH,
+      keyOf: (a) => a.respondentId,
+      runOne: (a) => insertAnswerIfOpen(db, a),
+      runBatch: (batch) => insertAnswersIfOpen(db, batch),
+    });
+    batchers.set(db, batcher);
+  }
+  return batcher;
+}
 
 /** The receipt of a stored answer, or null when the full path must decide. */
 export async function saveAnswerFast(
@@ -52,12 +85,17 @@ export async function saveAnswerFast(
   if (segmentQuotaApplies(version, answer.screenKey, status)) return null;
   let stored;
   try {
-    stored = await insertAnswerIfOpen(db, {
+    const fast: FastAnswer = {
       ...row,
       answeredBefore: screens.slice(0, index).map((s) => s.key),
       status,
       durationMs,
-    });
+    };
+    // An answer that ends the session also sets its status (and may free its block place):
+    // the one-answer statement does that; the batch only stores.
+    stored = await (status === 'in_progress'
+      ? fastAnswerBatcherOf(db).submit(fast)
+      : insertAnswerIfOpen(db, fast));
   } catch (err) {
     // A study setting the statement could not read (a malformed closing date): decide slowly.
     if (isDataException(err)) return null;

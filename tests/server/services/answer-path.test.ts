@@ -13,7 +13,12 @@ import { assignBlock } from '../../../db/queries/respondent-blocks';
 import { useTestApp } from '../../support/test-app';
 import { answers, respondentBlockCounts, respondents } from '../../../db/schema/fieldwork';
 import { saveAnswer, type AnswerInput } from '../../../server/services/answers';
-import { saveAnswerFast } from '../../../server/services/answer-fast-path';
+import { fastAnswerBatcherOf, saveAnswerFast } from '../../../server/services/answer-fast-path';
+import {
+  insertAnswerIfOpen,
+  insertAnswersIfOpen,
+  type FastAnswer,
+} from '../../../db/queries/answer-fast-path';
 import { rememberRespondent } from '../../../server/services/known-respondents';
 import { buildSession, createRespondent } from '../../../server/services/respondent-session';
 import { closeStudy, goLive } from '../../../server/services/lifecycle';
@@ -348,5 +353,159 @@ describe('saveAnswerFast', () => {
     );
     expect(results.filter((x) => x !== null)).toHaveLength(1);
     expect(await r.stored()).toHaveLength(1);
+  });
+});
+
+describe('answers gathered into one statement', () => {
+  /**
+   * One answer of each kind the one-answer statement tells apart, each from its own respondent
+   * in its own study: stored; sent again (same client id); out of order; in a closed study;
+   * after the closing date; in an archived study; from a respondent that is gone.
+   */
+  async function kinds(): Promise<{ name: string; answer: FastAnswer }[]> {
+    const row = async (settings: object, screenAt: number, before?: 'answered' | 'archived') => {
+      const r = await liveRespondent(settings);
+      const a = answerOf(r.screens[screenAt]);
+      if (before) await r.full(a);
+      if (before === 'archived')
+        await t.deps.db.execute(
+          sql`update studies set archived_at = now() where id = ${r.study.id}`,
+        );
+      return {
+        respondentId: r.respondent.id,
+        studyId: r.study.id,
+        versionId: r.respondent.versionId,
+        block: r.respondent.block ?? 1,
+        clientId: a.clientId,
+        screenKey: a.screenKey,
+        taskNumber: null,
+        chosenAlternative: null,
+        chosenPosition: null,
+        value: a.value,
+        responseMs: a.responseMs,
+        createdAt: new Date(),
+        // As the service sends it: the screens before this one must be the ones answered.
+        answeredBefore: r.screens.slice(0, screenAt).map((x) => x.key),
+        status: 'in_progress' as const,
+        durationMs: 0,
+      };
+    };
+    const closed = await row({}, 0);
+    await closeStudy(t.deps, t.teamId, closed.studyId);
+    // A closing date can only be set ahead; this one has since passed.
+    const due = await row({}, 0);
+    const past = new Date(Date.now() - 60_000).toISOString();
+    await t.deps.db.execute(
+      sql`update studies set settings = settings || jsonb_build_object('closeAt', ${past}::text)
+           where id = ${due.studyId}`,
+    );
+    return [
+      { name: 'stored', answer: await row({}, 0) },
+      { name: 'sent again', answer: await row({}, 0, 'answered') },
+      { name: 'out of order', answer: await row({}, 1) },
+      { name: 'closed study', answer: closed },
+      { name: 'closing date passed', answer: due },
+      { name: 'archived study', answer: await row({}, 0, 'archived') },
+      {
+        name: 'respondent gone',
+        answer: { ...(await row({}, 0)), respondentId: crypto.randomUUID() },
+      },
+    ];
+  }
+
+  /** A result without its new id and times (each run has its own), and the rows it left. */
+  async function outcome(result: Awaited<ReturnType<typeof insertAnswerIfOpen>>, a: FastAnswer) {
+    const rows = await t.deps.db
+      .select({ screenKey: answers.screenKey, clientId: answers.clientId, value: answers.value })
+      .from(answers)
+      .where(eq(answers.respondentId, a.respondentId));
+    return {
+      result: result && {
+        ...result,
+        id: result.id === null ? null : 'new',
+        // The two runs' studies closed (or were due) at their own moments.
+        settings: result.settings && {
+          ...(result.settings as object),
+          closeAt: 'closeAt' in (result.settings as object),
+          closedAt: 'closedAt' in (result.settings as object),
+        },
+      },
+      rows: rows.map((x) => ({ ...x, clientId: x.clientId === a.clientId ? 'this' : 'other' })),
+    };
+  }
+
+  it('gives each answer exactly what the one-answer statement gives it, and stores the same', async () => {
+    const alone = await kinds();
+    const together = await kinds();
+    const one = [];
+    for (const k of alone)
+      one.push(await outcome(await insertAnswerIfOpen(t.deps.db, k.answer), k.answer));
+    const many = await insertAnswersIfOpen(
+      t.deps.db,
+      together.map((k) => k.answer),
+    );
+    const batched = [];
+    for (const [i, k] of together.entries()) batched.push(await outcome(many[i], k.answer));
+    expect(batched).toEqual(one);
+    // The kinds come out as named, so the comparison above compares something.
+    const kindOf = (o: (typeof one)[number]) =>
+      o.result === null
+        ? 'gone'
+        : o.result.id
+          ? 'stored'
+          : o.result.refused?.mine
+            ? 'retry'
+            : 'refused';
+    expect(one.map(kindOf)).toEqual([
+      'stored',
+      'retry',
+      'refused',
+      'refused',
+      'refused',
+      'retry',
+      'gone',
+    ]);
+  });
+
+  it('refuses a batch with two answers of one respondent, or one that ends a session', async () => {
+    const [k] = await kinds();
+    await expect(insertAnswersIfOpen(t.deps.db, [k.answer, k.answer])).rejects.toThrow(
+      'one answer per respondent',
+    );
+    await expect(
+      insertAnswersIfOpen(t.deps.db, [{ ...k.answer, status: 'completed' }]),
+    ).rejects.toThrow('ends a session');
+  });
+
+  it('stores once each of 60 respondents answering at the same moment, most in one statement', async () => {
+    const study = await liveStudyWithLink();
+    const people = await Promise.all(
+      Array.from({ length: 60 }, async () => {
+        const r = await newRespondent(study.id);
+        rememberRespondent(study.publicId, r.respondent);
+        return r;
+      }),
+    );
+    const batcher = fastAnswerBatcherOf(t.deps.db);
+    const largestBefore = batcher.largestBatch;
+    const sent = people.map((p) => ({ p, a: answerOf(p.session.screens[0]) }));
+    const receipts = await Promise.all(
+      sent.map(({ p, a }) =>
+        saveAnswerFast(t.deps.db, {
+          publicId: study.publicId,
+          sessionToken: p.sessionToken,
+          answer: a,
+          now: new Date(),
+        }),
+      ),
+    );
+    expect(receipts.every((x) => x?.status === 'in_progress' && x.replay === false)).toBe(true);
+    const stored = await t.deps.db
+      .select({ clientId: answers.clientId })
+      .from(answers)
+      .where(eq(answers.studyId, study.id));
+    expect(stored.map((x) => x.clientId).sort()).toEqual(sent.map((x) => x.a.clientId).sort());
+    // Two went out alone (two statements in flight); the others waited and went together.
+    expect(batcher.largestBatch).toBeGreaterThan(Math.max(largestBefore, 1));
   });
 });

@@ -10,6 +10,7 @@ import { answers, respondents } from '../../../db/schema/fieldwork';
 import { teams } from '../../../db/schema/accounts';
 import { isDatabaseUnavailable } from '../../../server/lib/db-errors';
 import { answerFor, insertStudy } from '../routes/respond-fixtures';
+import { fastAnswerBatcherOf } from '../../../server/services/answer-fast-path';
 
 const t = useTestApp({}, { signIn: 'owner', faultProxy: true });
 
@@ -90,6 +91,59 @@ describe('PostgreSQL restart while respondents answer', () => {
       .where(eq(answers.respondentId, r.id));
     expect(stored.map((a) => a.screenKey).sort()).toEqual(
       [session.screens[0].key, session.screens[1].key].sort(),
+    );
+  });
+
+  it('when the connections are cut while answers of many respondents are stored together, each is stored exactly once after its retries', async () => {
+    const study = await insertStudy(t, t.teamId);
+    await t.owner.post(`/api/teams/${t.teamId}/studies/${study.id}/lifecycle/go-live`).expect(200);
+    const people = await Promise.all(
+      Array.from({ length: 24 }, async () => {
+        const res = await t.request().post(`/api/r/${study.publicId}/sessions`).send({});
+        expect(res.status).toBe(201);
+        return res.body as { sessionToken: string; screens: Parameters<typeof answerFor>[0][] };
+      }),
+    );
+    for (const p of people)
+      await post(study.publicId, p.sessionToken, answerFor(p.screens[0])).expect(201);
+    const second = people.map((p) => ({ p, body: answerFor(p.screens[1]) }));
+    const batcher = fastAnswerBatcherOf(t.deps.db);
+    const largestBefore = batcher.largestBatch;
+
+    // All 24 at once: two go alone, the others wait and go together. While that batch is in
+    // flight the database goes away (connections cut, new ones refused), then comes back.
+    const first = Promise.all(
+      second.map(({ p, body }) => post(study.publicId, p.sessionToken, body)),
+    );
+    while (batcher.largestBatch <= Math.max(largestBefore, 1))
+      await new Promise((r) => setImmediate(r));
+    t.proxy.refuse();
+    const firstStatuses = (await first).map((r) => r.status);
+    t.proxy.resume();
+    expect(firstStatuses.every((s) => s === 201 || s === 503)).toBe(true);
+    expect(firstStatuses).toContain(503);
+
+    // The phones send again until they get a receipt: a stored answer comes back as a replay.
+    const final = [];
+    for (const { p, body } of second) {
+      let res = await post(study.publicId, p.sessionToken, body);
+      for (let i = 0; i < 5 && res.status === 503; i++) {
+        await sleep(100);
+        res = await post(study.publicId, p.sessionToken, body);
+      }
+      final.push(res.status === 201 || (res.status === 200 && res.body.replay === true));
+    }
+    expect(final.every(Boolean)).toBe(true);
+
+    const stored = await t.testDb.db
+      .select({ clientId: answers.clientId })
+      .from(answers)
+      .where(eq(answers.studyId, study.id));
+    // Two answers per respondent, and each second answer once.
+    expect(stored).toHaveLength(2 * people.length);
+    const ids = stored.map((a) => a.clientId);
+    expect(second.filter((x) => ids.filter((id) => id === x.body.clientId).length !== 1)).toEqual(
+      [],
     );
   });
 });

@@ -437,7 +437,7 @@ describe('answers gathered into one statement', () => {
   it('gives each answer exactly what the one-answer statement gives it, and stores the same', async () => {
     const alone = await kinds();
     const together = await kinds();
-    const one = [];
+    const one: Awaited<ReturnType<typeof outcome>>[] = [];
     for (const k of alone)
       one.push(await outcome(await insertAnswerIfOpen(t.deps.db, k.answer), k.answer));
     const many = await insertAnswersIfOpen(
@@ -448,7 +448,7 @@ describe('answers gathered into one statement', () => {
     for (const [i, k] of together.entries()) batched.push(await outcome(many[i], k.answer));
     expect(batched).toEqual(one);
     // The kinds come out as named, so the comparison above compares something.
-    const kindOf = (o: (typeof one)[number]) =>
+    const kindOf = (o: Awaited<ReturnType<typeof outcome>>) =>
       o.result === null
         ? 'gone'
         : o.result.id

@@ -5,7 +5,7 @@
  * id their session token resolved.
  */
 import { and, count, eq, sql } from 'drizzle-orm';
-import type { DbOrTx } from '../client';
+import type { Db, DbOrTx } from '../client';
 import { studies } from '../schema/studies';
 import { respondents } from '../schema/fieldwork';
 
@@ -98,6 +98,93 @@ const insertStarted = (db: DbOrTx) =>
     .prepare('insert_started_respondent_v3');
 const insertStartedCache = new WeakMap<object, ReturnType<typeof insertStarted>>();
 
+/** A session start's row: everything else is the columns' defaults. */
+export type StartedRespondent = {
+  studyId: string;
+  versionId: string;
+  sessionToken: string;
+  inviteeId: string | null;
+  externalId: string | null;
+  panelKey: string | null;
+  block: number;
+  plan: unknown;
+  device: string;
+  language: string;
+};
+
+/** The row a session start made, from what it sent and what the database made. */
+function startedRow(
+  values: StartedRespondent,
+  made: { id: string; startedAt: Date },
+): RespondentRow {
+  return {
+    id: made.id,
+    studyId: values.studyId,
+    versionId: values.versionId,
+    sessionToken: values.sessionToken,
+    inviteeId: values.inviteeId,
+    externalId: values.externalId,
+    block: values.block,
+    plan: values.plan,
+    status: 'in_progress',
+    startedAt: made.startedAt,
+    finishedAt: null,
+    durationMs: null,
+    language: values.language,
+  } satisfies RespondentRow;
+}
+
+const INSERT_STARTED_BATCH = 'insert_started_respondents_batch_v1';
+/*
+ * Many session starts' rows in one statement (one round trip and one commit): $1 is the rows
+ * as a JSON array, one parameter whatever their number. A unique index that refuses one row
+ * (a personal link or panel id started twice at once) refuses the statement; the caller then
+ * inserts each row on its own (server/lib/keyed-batcher.ts).
+ * Tenant: each row carries its own study, which the caller read through the survey's link.
+ */
+const INSERT_STARTED_BATCH_TEXT = `
+insert into respondents (study_id, version_id, session_token, invitee_id, external_id,
+                         panel_key, block, plan, device, language)
+select study_id, version_id, session_token, invitee_id, external_id, panel_key, block, plan,
+       device, language
+  from jsonb_to_recordset($1::jsonb) as x(study_id uuid, version_id uuid, session_token text,
+       invitee_id uuid, external_id text, panel_key text, block int, plan jsonb, device text,
+       language text)
+returning id, started_at, session_token`;
+
+/** insertRespondent for several session starts at once; rows in the order given. */
+export async function insertStartedRespondents(
+  db: Db,
+  rows: readonly StartedRespondent[],
+): Promise<RespondentRow[]> {
+  const r = await db.$client.query<{ id: string; started_at: Date; session_token: string }>({
+    name: INSERT_STARTED_BATCH,
+    text: INSERT_STARTED_BATCH_TEXT,
+    values: [
+      JSON.stringify(
+        rows.map((v) => ({
+          study_id: v.studyId,
+          version_id: v.versionId,
+          session_token: v.sessionToken,
+          invitee_id: v.inviteeId,
+          external_id: v.externalId,
+          panel_key: v.panelKey,
+          block: v.block,
+          plan: v.plan,
+          device: v.device,
+          language: v.language,
+        })),
+      ),
+    ],
+  });
+  const made = new Map(r.rows.map((m) => [m.session_token, m]));
+  return rows.map((v) => {
+    const m = made.get(v.sessionToken);
+    if (!m) throw new Error('a started respondent was not inserted');
+    return startedRow(v, { id: m.id, startedAt: m.started_at });
+  });
+}
+
 export async function insertRespondent(
   db: DbOrTx,
   params: {
@@ -128,21 +215,7 @@ export async function insertRespondent(
         panelKey: params.panelKey ?? null,
       };
       const [made] = await query.execute(values);
-      return {
-        id: made.id,
-        studyId: values.studyId,
-        versionId: values.versionId,
-        sessionToken: values.sessionToken,
-        inviteeId: values.inviteeId,
-        externalId: values.externalId,
-        block: values.block,
-        plan: values.plan,
-        status: 'in_progress',
-        startedAt: made.startedAt,
-        finishedAt: null,
-        durationMs: null,
-        language,
-      } satisfies RespondentRow;
+      return startedRow({ ...values, device, language }, made);
     }
   const [row] = await db.insert(respondents).values(params).returning(respondentColumns);
   return row as RespondentRow;

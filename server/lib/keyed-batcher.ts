@@ -17,24 +17,26 @@
  */
 export type KeyedBatcher<I, O> = {
   submit(item: I): Promise<O>;
-  /** Items waiting for a batch, batches in flight, the most items sent together so far. */
+  /** Items waiting for a batch, batches in flight, items sent so far in batches of two or more. */
   readonly waiting: number;
   readonly inFlight: number;
-  readonly largestBatch: number;
+  readonly gathered: number;
 };
 
 type Entry<I, O> = { item: I; key: string; resolve: (o: O) => void; reject: (e: unknown) => void };
 
-export function createKeyedBatcher<I, O>(opts: {
+export type KeyedBatcherOptions<I, O> = {
   keyOf: (item: I) => string;
   runOne: (item: I) => Promise<O>;
   runBatch: (items: I[]) => Promise<O[]>;
   maxBatch: number;
   maxInFlight: number;
-}): KeyedBatcher<I, O> {
+};
+
+export function createKeyedBatcher<I, O>(opts: KeyedBatcherOptions<I, O>): KeyedBatcher<I, O> {
   let queue: Entry<I, O>[] = [];
   let inFlight = 0;
-  let largestBatch = 0;
+  let gathered = 0;
   /** Keys of the batches in flight. */
   const busy = new Set<string>();
 
@@ -86,7 +88,7 @@ export function createKeyedBatcher<I, O>(opts: {
       const batch = takeBatch();
       if (batch.length === 0) return; // the keys waiting are in flight: their batch ends first
       inFlight++;
-      largestBatch = Math.max(largestBatch, batch.length);
+      if (batch.length > 1) gathered += batch.length;
       void run(batch).finally(() => {
         for (const e of batch) busy.delete(e.key);
         inFlight--;
@@ -108,8 +110,26 @@ export function createKeyedBatcher<I, O>(opts: {
     get inFlight() {
       return inFlight;
     },
-    get largestBatch() {
-      return largestBatch;
+    get gathered() {
+      return gathered;
     },
+  };
+}
+
+/**
+ * One batcher per owner (a database pool: batches never mix two pools), made on first use and
+ * forgotten with its owner.
+ */
+export function keyedBatcherPer<P extends object, I, O>(
+  optionsFor: (owner: P) => KeyedBatcherOptions<I, O>,
+): (owner: P) => KeyedBatcher<I, O> {
+  const made = new WeakMap<P, KeyedBatcher<I, O>>();
+  return (owner) => {
+    let batcher = made.get(owner);
+    if (!batcher) {
+      batcher = createKeyedBatcher(optionsFor(owner));
+      made.set(owner, batcher);
+    }
+    return batcher;
   };
 }

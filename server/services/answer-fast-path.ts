@@ -20,7 +20,7 @@ import {
   type NothingWritten,
 } from '../../db/queries/answer-fast-path';
 import { isDataException } from '../lib/db-errors';
-import { createKeyedBatcher, type KeyedBatcher } from '../lib/keyed-batcher';
+import { keyedBatcherPer, type KeyedBatcherOptions } from '../lib/keyed-batcher';
 import { readSettings } from './lifecycle';
 import { redirectFor } from './respondent-session';
 import { loadFrozenVersion } from './respondent-screens';
@@ -40,23 +40,15 @@ import { isRetryOf, nextUnanswered } from './answer-conflicts';
  * batch keeps one statement's work (and its wait) short. One answer per respondent per batch
  * (keyed-batcher.ts).
  */
-const BATCH = { maxBatch: 64, maxInFlight: 2 } as const;
-const batchers = new WeakMap<Db, KeyedBatcher<FastAnswer, FastAnswerResult | null>>();
-
-/** The batcher of this pool's continuing answers (made on first use). */
-export function fastAnswerBatcherOf(db: Db): KeyedBatcher<FastAnswer, FastAnswerResult | null> {
-  let batcher = batchers.get(db);
-  if (!batcher) {
-    batcher = createKeyedBatcher({
-      ...BATCH,
-      keyOf: (a) => a.respondentId,
-      runOne: (a) => insertAnswerIfOpen(db, a),
-      runBatch: (batch) => insertAnswersIfOpen(db, batch),
-    });
-    batchers.set(db, batcher);
-  }
-  return batcher;
-}
+export const fastAnswerBatcherOf = keyedBatcherPer(
+  (db: Db): KeyedBatcherOptions<FastAnswer, FastAnswerResult | null> => ({
+    maxBatch: 64,
+    maxInFlight: 2,
+    keyOf: (a) => a.respondentId,
+    runOne: (a) => insertAnswerIfOpen(db, a),
+    runBatch: (batch) => insertAnswersIfOpen(db, batch),
+  }),
+);
 
 /** The receipt of a stored answer, or null when the full path must decide. */
 export async function saveAnswerFast(

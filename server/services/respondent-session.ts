@@ -5,14 +5,17 @@
  */
 import { randomBytes, randomInt } from 'node:crypto';
 import type { AppDeps } from '../deps';
-import type { DbOrTx } from '../../db/client';
+import type { Db, DbOrTx } from '../../db/client';
+import { keyedBatcherPer, type KeyedBatcherOptions } from '../lib/keyed-batcher';
 import { AppError, NotFoundError } from '../lib/errors';
 import { toDeviceClass } from '../lib/device-class';
 import {
   getRespondentByToken,
   getStudyByPublicId,
   insertRespondent,
+  insertStartedRespondents,
   type RespondentRow,
+  type StartedRespondent,
 } from '../../db/queries/respondents';
 import { getLatestVersion, getLatestVersionId } from '../../db/queries/versions';
 import { assignBlock, releaseBlock } from '../../db/queries/respondent-blocks';
@@ -157,6 +160,23 @@ export function assertOpen(study: PublicStudy): void {
  * Makes a respondent of the study's current version: a place in the least-filled block (an
  * atomic counter, no study-wide lock), a plan from a fresh seed, and a secret session token.
  */
+/**
+ * A session start's respondent row, gathered with the other starts that arrive while two such
+ * inserts are in flight (keyed-batcher.ts): under a panel launch one statement and one commit
+ * make many respondents, where each start used to wait for its own flush of the log. A unique
+ * index that refuses one row (a personal link or panel id opened twice at once) sends every
+ * row of that batch again on its own, so only that start sees the refusal.
+ */
+export const startedRespondentBatcherOf = keyedBatcherPer(
+  (db: Db): KeyedBatcherOptions<StartedRespondent, RespondentRow> => ({
+    maxBatch: 64,
+    maxInFlight: 2,
+    keyOf: (r) => r.sessionToken,
+    runOne: (r) => insertRespondent(db, r),
+    runBatch: (rows) => insertStartedRespondents(db, rows),
+  }),
+);
+
 export async function createRespondent(
   db: DbOrTx,
   params: {
@@ -197,7 +217,7 @@ export async function createRespondent(
       seed: params.seed ?? randomInt(2 ** 31),
     });
     const sessionToken = createSessionToken();
-    const respondent = await insertRespondent(db, {
+    const row = {
       studyId: params.studyId,
       versionId: version.id,
       sessionToken,
@@ -209,9 +229,17 @@ export async function createRespondent(
       // A coarse class only: the raw user agent can single a person out.
       device: toDeviceClass(params.device),
       language,
-      ...(params.startedAt ? { startedAt: params.startedAt } : {}),
-      ...(params.simulatedTruth !== undefined ? { simulatedTruth: params.simulatedTruth } : {}),
-    });
+    };
+    const respondent =
+      params.standalone && !params.startedAt && params.simulatedTruth === undefined
+        ? await startedRespondentBatcherOf(db as Db).submit(row)
+        : await insertRespondent(db, {
+            ...row,
+            ...(params.startedAt ? { startedAt: params.startedAt } : {}),
+            ...(params.simulatedTruth !== undefined
+              ? { simulatedTruth: params.simulatedTruth }
+              : {}),
+          });
     return { respondent, sessionToken, plan };
   } catch (err) {
     if (block !== null) await releaseBlock(db, { versionId: latestId, block }).catch(() => {});

@@ -62,6 +62,7 @@ describe('createKeyedBatcher', () => {
       'batch 5',
     ]);
     expect(batcher.inFlight).toBe(0);
+    expect(batcher.gathered).toBe(4);
   });
 
   it('takes at most maxBatch items, oldest first', async () => {

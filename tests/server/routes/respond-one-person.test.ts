@@ -9,6 +9,7 @@ import { eq } from 'drizzle-orm';
 import { useTestApp } from '../../support/test-app';
 import { respondentBlockCounts, respondents } from '../../../db/schema/fieldwork';
 import { insertInvitee, insertStudy } from './respond-fixtures';
+import { startedRespondentBatcherOf } from '../../../server/services/respondent-session';
 
 const t = useTestApp({}, { signIn: 'owner' });
 
@@ -69,6 +70,26 @@ describe('one person, one respondent', () => {
     const rows = await respondentsOf(s.id);
     expect(rows.map((r) => r.externalId).sort()).toEqual(['P-1', 'P-2', 'P-3']);
     expect(await placesTaken(s.id)).toBe(3);
+  });
+
+  it('a panel id arriving four times among twenty other starts at once: one respondent for it, the others unharmed', async () => {
+    const s = await liveStudy();
+    const batcher = startedRespondentBatcherOf(t.deps.db);
+    const gatheredBefore = batcher.gathered;
+    const pids = [
+      ...Array.from({ length: 20 }, (_, i) => `Q-${i}`),
+      ...Array.from({ length: 4 }, () => 'Q-twice'),
+    ];
+    const sessions = await Promise.all(pids.map((pid) => start(s.publicId, { pid })));
+    for (const r of sessions) expect(r.status).toBe(201);
+    // Most starts waited for the two inserts in flight and went in one statement; one with
+    // a repeated panel id makes that statement fail, and each of its rows went again alone.
+    expect(batcher.gathered).toBeGreaterThan(gatheredBefore);
+    const repeated = sessions.slice(20).map((r) => r.body.sessionToken);
+    expect(new Set(repeated).size).toBe(1);
+    const rows = await respondentsOf(s.id);
+    expect(rows.map((r) => r.externalId).sort()).toEqual([...new Set(pids)].sort());
+    expect(await placesTaken(s.id)).toBe(21);
   });
 
   it('a panel id is de-duplicated per study, not across studies', async () => {

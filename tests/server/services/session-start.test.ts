@@ -9,7 +9,13 @@ import { eq } from 'drizzle-orm';
 import { useTestApp } from '../../support/test-app';
 import { respondentBlockCounts, respondents } from '../../../db/schema/fieldwork';
 import { studies, studyVersions } from '../../../db/schema/studies';
-import { getStudyByPublicId } from '../../../db/queries/respondents';
+import {
+  getRespondentByToken,
+  getStudyByPublicId,
+  insertRespondent,
+  insertStartedRespondents,
+  type StartedRespondent,
+} from '../../../db/queries/respondents';
 import { readSessionStart } from '../../../db/queries/session-start';
 import { respondentPlanSchema } from '../../../shared/schemas/respondent';
 import { buildScreens, loadFrozenVersion } from '../../../server/services/respondent-screens';
@@ -207,5 +213,68 @@ describe('readSettings', () => {
     // Invalid settings read as the defaults, as before.
     expect(readSettings({ quotaCompletes: 'many' }).quotaCompletes).toBeNull();
     expect(readSettings(null).panelParam).toBe('pid');
+  });
+});
+
+/** A live study and a maker of session-start rows for its version. */
+async function startedRows() {
+  const study = await liveStudy();
+  const [version] = await t.deps.db
+    .select({ id: studyVersions.id })
+    .from(studyVersions)
+    .where(eq(studyVersions.studyId, study.id));
+  const row = (over: Partial<StartedRespondent> = {}): StartedRespondent => ({
+    studyId: study.id,
+    versionId: version.id,
+    sessionToken: createSessionToken(),
+    inviteeId: null,
+    externalId: null,
+    panelKey: null,
+    block: 1,
+    plan: {},
+    device: 'phone',
+    language: 'en',
+    ...over,
+  });
+  return { study, row };
+}
+
+describe('insertStartedRespondents (many session starts in one statement)', () => {
+  it('returns each row as the one-start insert does and as it is stored, in the order given', async () => {
+    const { study, row } = await startedRows();
+    const rowOf = (i: number) =>
+      row({
+        externalId: i % 2 ? `X-${i}` : null,
+        panelKey: i % 2 ? `X-${i}` : null,
+        block: 1 + (i % 2),
+        plan: { taskOrder: [i, 0], positions: [[1, 0]] },
+        device: i % 3 ? 'phone' : 'desktop',
+      });
+    const alone = await insertRespondent(t.deps.db, rowOf(0));
+    const rows = [1, 2, 3, 4, 5].map(rowOf);
+    const together = await insertStartedRespondents(t.deps.db, rows);
+    expect(together.map((r) => r.sessionToken)).toEqual(rows.map((r) => r.sessionToken));
+    for (const made of [alone, ...together]) {
+      const stored = await getRespondentByToken(t.deps.db, {
+        studyId: study.id,
+        sessionToken: made.sessionToken,
+      });
+      expect(made).toEqual(stored);
+    }
+    // The same keys either way (the batch row is built as the one-start row is).
+    expect(Object.keys(together[0]).sort()).toEqual(Object.keys(alone).sort());
+  });
+
+  it('refuses the whole statement when a unique index refuses one row', async () => {
+    const { study, row } = await startedRows();
+    const panel = (key: string) => row({ externalId: key, panelKey: key });
+    await expect(
+      insertStartedRespondents(t.deps.db, [panel('A'), panel('B'), panel('A')]),
+    ).rejects.toThrow();
+    const stored = await t.deps.db
+      .select({ id: respondents.id })
+      .from(respondents)
+      .where(eq(respondents.studyId, study.id));
+    expect(stored).toHaveLength(0);
   });
 });

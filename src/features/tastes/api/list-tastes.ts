@@ -1,5 +1,5 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '@/lib/api-client';
+import { apiQueryOptions } from '@/lib/api-query-options';
 import type { TasteList } from '@shared/schemas/tastes';
 import { tasteKeys, tastesPath, toSearch } from './taste-keys';
 
@@ -16,14 +16,12 @@ export type TastesQuery = {
 };
 
 /** One page of the profile table, sorted and filtered on the server. */
-export function listTastes(teamId: string, studyId: string, q: TastesQuery, signal?: AbortSignal) {
-  return api.get<TasteList>(`${tastesPath(teamId, studyId)}?${toSearch(q)}`, signal);
-}
-
 export const listTastesQueryOptions = (teamId: string, studyId: string, q: TastesQuery) =>
   queryOptions({
-    queryKey: tasteKeys.list(teamId, studyId, q),
-    queryFn: ({ signal }) => listTastes(teamId, studyId, q, signal),
+    ...apiQueryOptions<TasteList>(
+      tasteKeys.list(teamId, studyId, q),
+      `${tastesPath(teamId, studyId)}?${toSearch(q)}`,
+    ),
     placeholderData: keepPreviousData,
     enabled: q.runId !== '',
   });

@@ -12,7 +12,13 @@
 import { as241Central, as241Tail } from '../../../../shared/engine/random/as241';
 import { logFdlibm } from './hb-fdlibm';
 
-/** The next 32-bit output of the generator whose state words are at `state`. */
+/**
+ * The next 32-bit output of the generator whose state words are at `state`. The xoshiro128**
+ * step is written here a second time, beside createPrng's, and not shared like as241.ts: the
+ * TypeScript generator keeps its state in closure variables (a typed-array state made every
+ * caller's nextDouble about 1.8× slower), while the kernel's lives in shared memory as u32 words;
+ * no one function body serves both. The chain-equality tests compare the two streams.
+ */
 function nextUint32(state: usize): u32 {
   let a = load<u32>(state);
   let b = load<u32>(state, 4);

@@ -1,5 +1,6 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
+import { searchString } from '@/lib/search-string';
 import type { InviteeList, ListInviteesQuery } from '@shared/schemas/invitees';
 import { inviteeKeys, inviteesPath } from './invitee-keys';
 
@@ -9,11 +10,7 @@ export function listInvitees(
   query: Partial<ListInviteesQuery>,
   signal?: AbortSignal,
 ): Promise<InviteeList> {
-  const params = new URLSearchParams();
-  for (const [k, v] of Object.entries(query))
-    if (v !== undefined && v !== '') params.set(k, String(v));
-  const qs = params.toString();
-  return api.get<InviteeList>(`${inviteesPath(teamId, studyId)}${qs ? `?${qs}` : ''}`, signal);
+  return api.get<InviteeList>(`${inviteesPath(teamId, studyId)}${searchString(query)}`, signal);
 }
 
 export const listInviteesQueryOptions = (

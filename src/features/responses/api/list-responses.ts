@@ -1,5 +1,6 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
+import { searchString } from '@/lib/search-string';
 import type { ListResponsesQuery, ResponseList } from '@shared/schemas/responses';
 import { responseKeys, responsesPath } from './response-keys';
 
@@ -9,10 +10,7 @@ export function listResponses(
   query: Partial<ListResponsesQuery>,
   signal?: AbortSignal,
 ): Promise<ResponseList> {
-  const params = new URLSearchParams();
-  for (const [k, v] of Object.entries(query)) if (v !== undefined) params.set(k, String(v));
-  const qs = params.toString();
-  return api.get<ResponseList>(`${responsesPath(teamId, studyId)}${qs ? `?${qs}` : ''}`, signal);
+  return api.get<ResponseList>(`${responsesPath(teamId, studyId)}${searchString(query)}`, signal);
 }
 
 export const listResponsesQueryOptions = (

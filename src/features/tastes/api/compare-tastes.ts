@@ -1,7 +1,8 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { apiQueryOptions } from '@/lib/api-query-options';
+import { searchString } from '@/lib/search-string';
 import type { TasteComparison } from '@shared/schemas/tastes';
-import { tasteKeys, tastesPath, toSearch } from './taste-keys';
+import { tasteKeys, tastesPath } from './taste-keys';
 
 /** Two runs' individual means per coefficient, matched by respondent, with correlations. */
 export const compareTastesQueryOptions = (
@@ -13,7 +14,7 @@ export const compareTastesQueryOptions = (
   queryOptions({
     ...apiQueryOptions<TasteComparison>(
       tasteKeys.comparison(teamId, studyId, runId, otherRunId),
-      `${tastesPath(teamId, studyId)}/compare?${toSearch({ runId, otherRunId })}`,
+      `${tastesPath(teamId, studyId)}/compare${searchString({ runId, otherRunId })}`,
     ),
     placeholderData: keepPreviousData,
     enabled: runId !== '' && otherRunId !== '' && runId !== otherRunId,

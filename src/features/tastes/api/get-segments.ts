@@ -1,14 +1,15 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { apiQueryOptions } from '@/lib/api-query-options';
+import { searchString } from '@/lib/search-string';
 import type { Segments } from '@shared/schemas/tastes';
-import { tasteKeys, tastesPath, toSearch, type SegmentsParams } from './taste-keys';
+import { tasteKeys, tastesPath, type SegmentsParams } from './taste-keys';
 
 /** One coefficient's individual means split by a task choice, a background answer or a class. */
 export const getSegmentsQueryOptions = (teamId: string, studyId: string, params: SegmentsParams) =>
   queryOptions({
     ...apiQueryOptions<Segments>(
       tasteKeys.segments(teamId, studyId, params),
-      `${tastesPath(teamId, studyId)}/segments?${toSearch(params)}`,
+      `${tastesPath(teamId, studyId)}/segments${searchString(params)}`,
     ),
     placeholderData: keepPreviousData,
     enabled:

@@ -1,7 +1,8 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { apiQueryOptions } from '@/lib/api-query-options';
+import { searchString } from '@/lib/search-string';
 import type { TasteList } from '@shared/schemas/tastes';
-import { tasteKeys, tastesPath, toSearch } from './taste-keys';
+import { tasteKeys, tastesPath } from './taste-keys';
 
 export type TastesQuery = {
   runId: string;
@@ -20,7 +21,7 @@ export const listTastesQueryOptions = (teamId: string, studyId: string, q: Taste
   queryOptions({
     ...apiQueryOptions<TasteList>(
       tasteKeys.list(teamId, studyId, q),
-      `${tastesPath(teamId, studyId)}?${toSearch(q)}`,
+      `${tastesPath(teamId, studyId)}${searchString(q)}`,
     ),
     placeholderData: keepPreviousData,
     enabled: q.runId !== '',

@@ -27,10 +27,3 @@ export const tasteKeys = {
 
 export const tastesPath = (teamId: string, studyId: string) =>
   `/teams/${teamId}/studies/${studyId}/tastes`;
-
-/** Query string of defined values only. */
-export function toSearch(params: Record<string, string | number | boolean | undefined>): string {
-  const s = new URLSearchParams();
-  for (const [k, v] of Object.entries(params)) if (v !== undefined && v !== '') s.set(k, String(v));
-  return s.toString();
-}

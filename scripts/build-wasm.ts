@@ -13,11 +13,12 @@ import { ensureBuilt, runBuildCommand, type BuildStep } from './lib/build-step';
 const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 const SIMD_DIR = path.join(ROOT, 'server/engine/simd');
 const OUTPUT = path.join(SIMD_DIR, 'build/mixed-logit.wasm');
-/** The kernel's sources: the AssemblyScript files and the plain-constant files they import. */
+/** The kernel's sources: the AssemblyScript files and the portable files they import. */
 const SOURCES = [
   path.join(SIMD_DIR, 'asconfig.json'),
   path.join(SIMD_DIR, 'arena-header.ts'),
   path.join(ROOT, 'server/engine/estimation/distribution-codes.ts'),
+  path.join(ROOT, 'shared/engine/random/as241.ts'),
   ...fs
     .readdirSync(path.join(SIMD_DIR, 'assembly'))
     .filter((f) => f.endsWith('.ts'))

@@ -14,22 +14,20 @@ import {
   simulatePanelChoices,
   type TrueCoefficient,
 } from '../server/engine/estimation/simulate-panel-choices';
+import {
+  fixedComfort,
+  fixedPrice,
+  negLognormalPrice,
+  normalQuality,
+} from '../server/engine/estimation/simulate-choice-data';
 
 const SCALE = Number(process.argv.find((a) => a.startsWith('--scale='))?.slice(8) ?? 1e4);
 const PRICE = (process.argv.find((a) => a.startsWith('--price='))?.slice(8) ?? 'fixed') as
   'fixed' | 'neg_lognormal';
 const truth: TrueCoefficient[] = [
-  { name: 'quality', distribution: 'normal', location: 1.0, spread: 0.8 },
-  { name: 'comfort', distribution: 'fixed', location: 0.5 },
-  PRICE === 'fixed'
-    ? { name: 'price', distribution: 'fixed', location: -0.8, levels: [0, 1, 2, 3] }
-    : {
-        name: 'price',
-        distribution: 'neg_lognormal',
-        location: -0.5,
-        spread: 0.6,
-        levels: [0, 1, 2, 3],
-      },
+  normalQuality,
+  fixedComfort,
+  PRICE === 'fixed' ? fixedPrice(-0.8) : negLognormalPrice(0.6),
 ];
 const coefficients = truth.map(({ name, distribution }) => ({ name, distribution }));
 

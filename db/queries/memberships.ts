@@ -7,11 +7,19 @@ import type { DbOrTx } from '../client';
 import { memberships, teams, users } from '../schema/accounts';
 import type { Role } from '../../shared/permissions';
 
+/** What a membership query answers with. */
+const membershipColumns = {
+  teamId: memberships.teamId,
+  userId: memberships.userId,
+  role: memberships.role,
+};
+
+/** The one membership of `userId` in `teamId`. */
+const isMembership = (params: { teamId: string; userId: string }) =>
+  and(eq(memberships.teamId, params.teamId), eq(memberships.userId, params.userId));
+
 export async function getMembership(db: DbOrTx, params: { teamId: string; userId: string }) {
-  const [row] = await db
-    .select({ teamId: memberships.teamId, userId: memberships.userId, role: memberships.role })
-    .from(memberships)
-    .where(and(eq(memberships.teamId, params.teamId), eq(memberships.userId, params.userId)));
+  const [row] = await db.select(membershipColumns).from(memberships).where(isMembership(params));
   return row ?? null;
 }
 
@@ -72,7 +80,7 @@ export async function insertMembership(
     .insert(memberships)
     .values(params)
     .onConflictDoNothing()
-    .returning({ teamId: memberships.teamId, userId: memberships.userId, role: memberships.role });
+    .returning(membershipColumns);
   return row ?? null;
 }
 
@@ -83,15 +91,15 @@ export async function updateMembershipRole(
   const [row] = await db
     .update(memberships)
     .set({ role: params.role })
-    .where(and(eq(memberships.teamId, params.teamId), eq(memberships.userId, params.userId)))
-    .returning({ teamId: memberships.teamId, userId: memberships.userId, role: memberships.role });
+    .where(isMembership(params))
+    .returning(membershipColumns);
   return row ?? null;
 }
 
 export async function deleteMembership(db: DbOrTx, params: { teamId: string; userId: string }) {
   const rows = await db
     .delete(memberships)
-    .where(and(eq(memberships.teamId, params.teamId), eq(memberships.userId, params.userId)))
+    .where(isMembership(params))
     .returning({ userId: memberships.userId });
   return rows.length > 0;
 }

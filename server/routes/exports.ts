@@ -7,7 +7,7 @@ import { Router, type Request, type Response } from 'express';
 import type { AppDeps } from '../deps';
 import { parseParams, parseQuery } from '../middleware/validate';
 import { actorOf, requireTeam, requireUser } from '../middleware/auth';
-import { studyParamsSchema } from '../services/study-access';
+import { studyParamsSchema } from '../../shared/schemas/study-params';
 import {
   covarianceQuerySchema,
   estimateTableQuerySchema,

@@ -3,7 +3,7 @@ import { Router } from 'express';
 import type { AppDeps } from '../deps';
 import { parseParams } from '../middleware/validate';
 import { actorOf, requireTeam, requireUser } from '../middleware/auth';
-import { studyParamsSchema } from '../services/study-access';
+import { studyParamsSchema } from '../../shared/schemas/study-params';
 import { getFieldworkStats } from '../services/fieldwork-stats';
 
 export function createFieldworkRouter(deps: AppDeps): Router {

@@ -9,7 +9,7 @@ import { parseParams } from '../middleware/validate';
 import { actorOf, requireTeam, requireUser } from '../middleware/auth';
 import { acceptOneFile, requireFile } from '../middleware/upload';
 import { publicRoute } from '../middleware/access';
-import { studyParamsSchema } from '../services/study-access';
+import { studyParamsSchema } from '../../shared/schemas/study-params';
 import { NotFoundError } from '../lib/errors';
 import {
   MAX_IMAGE_BYTES,

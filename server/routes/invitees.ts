@@ -8,7 +8,7 @@ import type { AppDeps } from '../deps';
 import { parseBody, parseParams, parseQuery } from '../middleware/validate';
 import { acceptOneFile, requireFile } from '../middleware/upload';
 import { actorOf, requireTeam, requireUser } from '../middleware/auth';
-import { studyParamsSchema } from '../services/study-access';
+import { studyParamsSchema } from '../../shared/schemas/study-params';
 import {
   importInviteesFieldsSchema,
   INVITEE_CSV_MAX_BYTES,

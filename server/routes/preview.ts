@@ -3,7 +3,7 @@ import { Router } from 'express';
 import type { AppDeps } from '../deps';
 import { parseParams, parseQuery } from '../middleware/validate';
 import { actorOf, requireTeam, requireUser } from '../middleware/auth';
-import { studyParamsSchema } from '../services/study-access';
+import { studyParamsSchema } from '../../shared/schemas/study-params';
 import { getStudyPreview } from '../services/study-preview';
 import { studyPreviewQuerySchema } from '../../shared/schemas/respondent';
 

@@ -10,7 +10,7 @@ import type { z } from 'zod';
 import type { AppDeps } from '../deps';
 import { parseBody, parseParams, parseQuery } from '../middleware/validate';
 import { actorOf, requireTeam, requireUser } from '../middleware/auth';
-import { studyParamsSchema } from '../services/study-access';
+import { studyParamsSchema } from '../../shared/schemas/study-params';
 import type { Actor } from '../services/actor';
 import type { Permission } from '../../shared/permissions';
 

@@ -2,14 +2,11 @@
  * Loads a study for a team member. Used by every study-scoped route after requireTeam has
  * checked the role: the team id comes from the membership, so other teams' studies are 404.
  */
-import { z } from 'zod';
 import type { AppDeps } from '../deps';
 import { NotFoundError } from '../lib/errors';
 import type { DbOrTx } from '../../db/client';
 import { getStudyById } from '../../db/queries/studies';
 import { lockStudy } from '../../db/queries/versions';
-
-export const studyParamsSchema = z.object({ teamId: z.uuid(), studyId: z.uuid('Unknown study') });
 
 export async function loadStudy(deps: AppDeps, teamId: string, studyId: string) {
   const study = await getStudyById(deps.db, { id: studyId, teamId });

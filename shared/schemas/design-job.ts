@@ -4,13 +4,12 @@
  * (server/engine/design/diagnostics); here they stay opaque so shared/ imports no server code.
  */
 import { z } from 'zod';
+import { studyParamsSchema } from './study-params';
 import type { Design } from './design';
 import type { DesignSpec } from './design-spec';
 import type { CriterionComparison } from './redesign';
 
-export const designJobParamsSchema = z.object({
-  teamId: z.uuid(),
-  studyId: z.uuid('Unknown study'),
+export const designJobParamsSchema = studyParamsSchema.extend({
   jobId: z.uuid('Unknown job'),
 });
 

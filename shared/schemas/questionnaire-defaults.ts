@@ -10,6 +10,7 @@ import {
   type QuestionnairePage,
 } from './questionnaire';
 import { questionKeyFromText } from './question-keys';
+import { requiredSingleQuestion } from './required-single-question';
 import { createTemplatePage } from './questionnaire-templates';
 
 const id = () => nanoid(10);
@@ -85,17 +86,14 @@ export function createPage(
       return {
         id: id(),
         kind,
-        question: {
-          type: 'single',
-          key: questionKeyFromText('Are you 18 or older?', takenKeys),
-          text: 'Are you 18 or older?',
-          help: '',
-          required: true,
-          options: [
+        question: requiredSingleQuestion(
+          questionKeyFromText('Are you 18 or older?', takenKeys),
+          'Are you 18 or older?',
+          [
             { id: 'yes', label: 'Yes' },
             { id: 'no', label: 'No' },
           ],
-        },
+        ),
         screenOutOptionIds: ['no'],
         acceptMin: null,
         acceptMax: null,
@@ -105,17 +103,14 @@ export function createPage(
       return {
         id: id(),
         kind,
-        question: {
-          type: 'single',
-          key: questionKeyFromText('New question', takenKeys),
-          text: 'New question',
-          help: '',
-          required: true,
-          options: [
+        question: requiredSingleQuestion(
+          questionKeyFromText('New question', takenKeys),
+          'New question',
+          [
             { id: 'a', label: 'First option' },
             { id: 'b', label: 'Second option' },
           ],
-        },
+        ),
       };
     case 'instructions':
       return {
@@ -205,34 +200,24 @@ export function demoQuestionnaire(definition: StudyDefinition): Questionnaire {
     {
       id: 'ageband',
       kind: 'question',
-      question: {
-        type: 'single',
-        key: 'age_band',
-        text: 'What is your age?',
-        help: '',
-        required: true,
-        options: [
-          { id: 'a18_34', label: '18–34' },
-          { id: 'a35_54', label: '35–54' },
-          { id: 'a55_74', label: '55–74' },
-          { id: 'a75', label: '75 or older' },
-        ],
-      },
+      question: requiredSingleQuestion('age_band', 'What is your age?', [
+        { id: 'a18_34', label: '18–34' },
+        { id: 'a35_54', label: '35–54' },
+        { id: 'a55_74', label: '55–74' },
+        { id: 'a75', label: '75 or older' },
+      ]),
     },
     {
       id: 'filter',
       kind: 'question',
-      question: {
-        type: 'single',
-        key: 'filters_water',
-        text: 'Do you filter your tap water before drinking it?',
-        help: '',
-        required: true,
-        options: [
+      question: requiredSingleQuestion(
+        'filters_water',
+        'Do you filter your tap water before drinking it?',
+        [
           { id: 'yes', label: 'Yes' },
           { id: 'no', label: 'No' },
         ],
-      },
+      ),
     },
   ];
   return {

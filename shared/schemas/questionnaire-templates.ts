@@ -8,6 +8,7 @@ import { nanoid } from 'nanoid';
 import type { StudyDefinition } from './study-definition';
 import type { QuestionnairePage, TemplateKind } from './questionnaire';
 import { questionKeyFromText } from './question-keys';
+import { requiredSingleQuestion } from './required-single-question';
 
 export const templateLabels: Record<TemplateKind, string> = {
   consequentiality: 'Consequentiality question',
@@ -69,20 +70,17 @@ export function createTemplatePage(
         id: id(),
         kind: 'question',
         template,
-        question: {
-          type: 'single',
-          key: questionKeyFromText('Results taken into account', takenKeys),
+        question: requiredSingleQuestion(
+          questionKeyFromText('Results taken into account', takenKeys),
           text,
-          help: '',
-          required: true,
-          options: [
+          [
             { id: 'very_likely', label: 'Very likely' },
             { id: 'likely', label: 'Quite likely' },
             { id: 'unlikely', label: 'Quite unlikely' },
             { id: 'very_unlikely', label: 'Very unlikely' },
             { id: 'dont_know', label: 'I do not know' },
           ],
-        },
+        ),
       };
     }
     case 'attendance':

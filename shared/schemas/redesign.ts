@@ -3,6 +3,7 @@
  * candidate design generated beside the current one, and adopting or discarding it.
  */
 import { z } from 'zod';
+import { studyParamsSchema } from './study-params';
 import type { DesignCriterion, DesignPriors } from './design-spec';
 
 /**
@@ -19,9 +20,7 @@ export const runPriorsQuerySchema = z.object({
 });
 export type RunPriorsQuery = z.infer<typeof runPriorsQuerySchema>;
 
-export const candidateParamsSchema = z.object({
-  teamId: z.uuid(),
-  studyId: z.uuid('Unknown study'),
+export const candidateParamsSchema = studyParamsSchema.extend({
   designId: z.uuid('Unknown design'),
 });
 

@@ -5,6 +5,7 @@
  * `attr:<attributeId>:<levelId>`, `attr:<attributeId>` or `asc:fixed`.
  */
 import { z } from 'zod';
+import { studyParamsSchema } from './study-params';
 import { estimationResultSchema, estimationSpecSchema } from './estimation-spec';
 import type { ModelFamily } from './estimation-families';
 
@@ -68,9 +69,7 @@ export const createRunSchema = z.object({
 export type CreateRunInput = z.input<typeof createRunSchema>;
 export type CreateRun = z.output<typeof createRunSchema>;
 
-export const runParamsSchema = z.object({
-  teamId: z.uuid(),
-  studyId: z.uuid('Unknown study'),
+export const runParamsSchema = studyParamsSchema.extend({
   runId: z.uuid('Unknown run'),
 });
 

@@ -4,6 +4,7 @@
  * taste profiles of a finished run (shared/engine/shares), overall and per segment.
  */
 import { z } from 'zod';
+import { studyParamsSchema } from './study-params';
 import { elementIdSchema, type StudyDefinition } from './study-definition';
 import { groupByFields, refineGroupBy } from './tastes';
 import { addIssue } from './add-issue';
@@ -199,9 +200,7 @@ export const scenarioBodySchema = z.object({
 export type ScenarioBodyInput = z.input<typeof scenarioBodySchema>;
 export type ScenarioBody = z.output<typeof scenarioBodySchema>;
 
-export const scenarioParamsSchema = z.object({
-  teamId: z.uuid(),
-  studyId: z.uuid('Unknown study'),
+export const scenarioParamsSchema = studyParamsSchema.extend({
   scenarioId: z.uuid('Unknown scenario'),
 });
 

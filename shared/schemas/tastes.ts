@@ -5,6 +5,7 @@
  * 'personal:read'; the server leaves them out otherwise.
  */
 import { z } from 'zod';
+import { studyParamsSchema } from './study-params';
 import type { StudyDefinition } from './study-definition';
 import type { ModelFamily } from './estimation-families';
 import { addIssue } from './add-issue';
@@ -109,9 +110,7 @@ export const segmentsQuerySchema = z
   .superRefine(refineGroupBy);
 export type SegmentsQuery = z.output<typeof segmentsQuerySchema>;
 
-export const respondentProfileParamsSchema = z.object({
-  teamId: z.uuid(),
-  studyId: z.uuid('Unknown study'),
+export const respondentProfileParamsSchema = studyParamsSchema.extend({
   runId: z.uuid('Unknown run'),
   respondentId: z.uuid('Unknown respondent'),
 });

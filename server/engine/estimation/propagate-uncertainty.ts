@@ -12,6 +12,7 @@ import { drawMultivariateNormal } from '../../../shared/engine/random/multivaria
 import { createPrng } from '../draws/prng';
 import { choleskyDecompose } from '../linalg/cholesky';
 import { quantile } from '../../../shared/engine/stats/quantile';
+import { finiteOrNull } from './finite-or-null';
 
 export interface PropagatedEstimate {
   estimate: number;
@@ -28,8 +29,6 @@ export interface PropagateOptions {
   seed?: number;
   level?: number;
 }
-
-const finite = (x: number) => (Number.isFinite(x) ? x : null);
 
 export { quantile };
 
@@ -76,12 +75,12 @@ export function propagateUncertainty(
   const simulated = simulate(fn, base, covariance, M, options);
   return Array.from(values, (estimate, m) => ({
     estimate,
-    se: finite(se[m]),
-    deltaLower: finite(estimate - z * se[m]),
-    deltaUpper: finite(estimate + z * se[m]),
-    simulatedSe: simulated ? finite(simulated.sd[m]) : null,
-    lower: simulated ? finite(quantile(simulated.sorted[m], (1 - level) / 2)) : null,
-    upper: simulated ? finite(quantile(simulated.sorted[m], (1 + level) / 2)) : null,
+    se: finiteOrNull(se[m]),
+    deltaLower: finiteOrNull(estimate - z * se[m]),
+    deltaUpper: finiteOrNull(estimate + z * se[m]),
+    simulatedSe: simulated ? finiteOrNull(simulated.sd[m]) : null,
+    lower: simulated ? finiteOrNull(quantile(simulated.sorted[m], (1 - level) / 2)) : null,
+    upper: simulated ? finiteOrNull(quantile(simulated.sorted[m], (1 + level) / 2)) : null,
   }));
 }
 

@@ -9,6 +9,7 @@ import type { FittedModelCore, StartSummary } from './fitted-model';
 import type { MixedLogitLayout } from './mixed-logit-layout';
 import type { PopulationMoment } from './population-moments';
 import type { PopulationWtp } from './population-wtp';
+import { finiteOrNull } from './finite-or-null';
 
 export interface FittedModel extends FittedModelCore {
   layout: MixedLogitLayout;
@@ -21,11 +22,11 @@ export interface FittedModel extends FittedModelCore {
   simulationError?: EstimationResult['simulationError'];
 }
 
-const orNull = (x: number): number | null => (Number.isFinite(x) ? x : null);
-
 function matrix(m: Float64Array | null, P: number): (number | null)[][] | null {
   if (!m) return null;
-  return Array.from({ length: P }, (_, i) => Array.from(m.subarray(i * P, (i + 1) * P), orNull));
+  return Array.from({ length: P }, (_, i) =>
+    Array.from(m.subarray(i * P, (i + 1) * P), finiteOrNull),
+  );
 }
 
 export function toResultJson(input: {
@@ -61,7 +62,7 @@ export function toResultJson(input: {
     },
     convergenceDetail: {
       status: f.status,
-      decrement: orNull(f.measures.decrement),
+      decrement: finiteOrNull(f.measures.decrement),
       maxRelativeGradient: f.measures.maxRelativeGradient,
       gradient: f.names.map((name, p) => ({
         name,
@@ -94,8 +95,8 @@ export function toResultJson(input: {
     estimates: f.names.map((name, p) => ({
       name,
       estimate: f.estimates[p],
-      se: orNull(f.inference.se[p]),
-      robustSe: orNull(f.inference.robustSe[p]),
+      se: finiteOrNull(f.inference.se[p]),
+      robustSe: finiteOrNull(f.inference.robustSe[p]),
     })),
     covariance: {
       names: f.names,

@@ -7,8 +7,7 @@ import type { EstimationResult, EstimationSpec } from '../../../shared/schemas/e
 import { mcmcSchema, hbPriorsSchema } from '../../../shared/schemas/estimation-families';
 import type { BuiltChoiceData } from './build-choice-data';
 import { fitHb, type HbProgress } from '../hb/fit-hb';
-
-const finite = (x: number): number | null => (Number.isFinite(x) ? x : null);
+import { finiteOrNull } from './finite-or-null';
 
 export interface RunHbOptions {
   threads?: number;
@@ -100,21 +99,21 @@ export async function runHbEstimation(
     individuals: fit.individuals,
     draws: null,
     profileDraws: null,
-    logMarginalDensity: finite(population.logMarginalDensity),
-    individualHitRate: finite(measures.individualHitRate),
+    logMarginalDensity: finiteOrNull(population.logMarginalDensity),
+    individualHitRate: finiteOrNull(measures.individualHitRate),
     individualHoldoutHitRate: measures.individualHoldoutHitRate,
     diagnostics: {
       ...diagnostics,
-      rhatMax: finite(diagnostics.rhatMax),
-      essMin: finite(diagnostics.essMin),
+      rhatMax: finiteOrNull(diagnostics.rhatMax),
+      essMin: finiteOrNull(diagnostics.essMin),
       parameters: diagnostics.parameters.map((p) => ({
         name: p.name,
-        rhat: finite(p.rhat),
-        ess: finite(p.ess),
+        rhat: finiteOrNull(p.rhat),
+        ess: finiteOrNull(p.ess),
       })),
       chains: diagnostics.chains.map((c) => ({
         ...c,
-        acceptanceBurnin: finite(c.acceptanceBurnin),
+        acceptanceBurnin: finiteOrNull(c.acceptanceBurnin),
       })),
     },
     sampler: {

@@ -5,7 +5,11 @@
  */
 import { buildChoiceData } from './build-choice-data';
 import type { CoefficientSpec } from './mixed-logit-layout';
-import { simulatePanelChoices, type SimulatePanelChoicesParams } from './simulate-panel-choices';
+import {
+  simulatePanelChoices,
+  type SimulatePanelChoicesParams,
+  type TrueCoefficient,
+} from './simulate-panel-choices';
 
 export function simulateChoiceData(params: SimulatePanelChoicesParams) {
   const sim = simulatePanelChoices(params);
@@ -33,3 +37,34 @@ export function alternatingNormals(
     spread: p.spread + p.spreadStep * k,
   }));
 }
+
+/**
+ * The coefficients of the recovery tests' simulated good, which each test combines and seeds
+ * as it needs: a normal quality taste N(1, 0.8²), a fixed comfort taste of 0.5, and a price
+ * drawn from the levels 0–3 with a fixed or a negative-lognormal coefficient (location −0.5,
+ * the mean of ln |β|, and the test's spread).
+ */
+export const normalQuality: TrueCoefficient = {
+  name: 'quality',
+  distribution: 'normal',
+  location: 1.0,
+  spread: 0.8,
+};
+export const fixedComfort: TrueCoefficient = {
+  name: 'comfort',
+  distribution: 'fixed',
+  location: 0.5,
+};
+export const negLognormalPrice = (spread: number): TrueCoefficient => ({
+  name: 'price',
+  distribution: 'neg_lognormal',
+  location: -0.5,
+  spread,
+  levels: [0, 1, 2, 3],
+});
+export const fixedPrice = (location: number, name = 'price'): TrueCoefficient => ({
+  name,
+  distribution: 'fixed',
+  location,
+  levels: [0, 1, 2, 3],
+});

@@ -9,8 +9,7 @@
  */
 import type { ChoiceData } from '../estimation/choice-data';
 import type { LatentClassState } from './latent-class-state';
-
-const nullable = (x: number): number | null => (Number.isFinite(x) ? x : null);
+import { finiteOrNull } from '../estimation/finite-or-null';
 
 export interface LatentClassSummary {
   classes: {
@@ -63,11 +62,11 @@ export function summarizeLatentClass(
       }
     let v = 0;
     grad.forEach((ga, a) => grad.forEach((gb, b) => (v += ga * gb * cov(G + a, G + b))));
-    return nullable(Math.sqrt(v));
+    return finiteOrNull(Math.sqrt(v));
   };
   const classes = shares.map((share, c) => {
     const at = (k: number) => c * K + k;
-    const se = (p: number) => nullable(Math.sqrt(cov(p, p)));
+    const se = (p: number) => finiteOrNull(Math.sqrt(cov(p, p)));
     return {
       class: c + 1,
       share,
@@ -86,7 +85,7 @@ export function summarizeLatentClass(
                   2 * r * cov(at(k), at(cost)) +
                   r * r * cov(at(cost), at(cost))) /
                 (bq * bq);
-              return [{ name, estimate: -r, se: nullable(Math.sqrt(v)) }];
+              return [{ name, estimate: -r, se: finiteOrNull(Math.sqrt(v)) }];
             }),
       membership:
         c === 0

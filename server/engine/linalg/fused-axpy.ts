@@ -20,6 +20,9 @@ export function fusedAxpy(
     return;
   }
   let i = 0;
+  // Each width has an assigning and an accumulating loop, written out twice on purpose: one
+  // loop with the test inside would branch on every element, and zero-filling `out` before
+  // accumulating would add a pass over it (the traffic this kernel exists to save).
   let first = assign;
   while (i < count) {
     // 5..8 remaining sources go in one eight-wide pass; missing ones get coefficient 0.

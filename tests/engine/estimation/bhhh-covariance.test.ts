@@ -1,22 +1,17 @@
 import { describe, expect, it } from 'vitest';
 import { fitMixedLogit } from '../../../server/engine/estimation/fit-mixed-logit';
-import { simulateChoiceData } from '../../../server/engine/estimation/simulate-choice-data';
+import {
+  negLognormalPrice,
+  normalQuality,
+  simulateChoiceData,
+} from '../../../server/engine/estimation/simulate-choice-data';
 
 describe("fitMixedLogit covariance 'bhhh' (Berndt, Hall, Hall & Hausman 1974; Train 2009 §8.7)", () => {
   const { data, coefficients } = simulateChoiceData({
     respondents: 400,
     tasks: 8,
     alternatives: 3,
-    coefficients: [
-      { name: 'quality', distribution: 'normal', location: 1.0, spread: 0.8 },
-      {
-        name: 'price',
-        distribution: 'neg_lognormal',
-        location: -0.5,
-        spread: 0.5,
-        levels: [0, 1, 2, 3],
-      },
-    ],
+    coefficients: [normalQuality, negLognormalPrice(0.5)],
     seed: 41,
   });
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { buildChoiceData } from '../../../server/engine/estimation/build-choice-data';
 import { computeWtp } from '../../../server/engine/estimation/compute-wtp';
-import { createMixedLogitLayout } from '../../../server/engine/estimation/mixed-logit-layout';
+import { uncorrelatedLayout } from './uncorrelated-layout';
 
 const data = buildChoiceData(
   ['quality', 'bill'],
@@ -13,14 +13,7 @@ const data = buildChoiceData(
 
 describe('computeWtp', () => {
   it('Check I (docs/methods.md "Willingness to pay" [C]): WTP = 20.0, delta-method SE = 6.020797289396148', () => {
-    const layout = createMixedLogitLayout(
-      data,
-      [
-        { name: 'quality', distribution: 'fixed' },
-        { name: 'bill', distribution: 'fixed' },
-      ],
-      false,
-    );
+    const layout = uncorrelatedLayout(data, { quality: 'fixed', bill: 'fixed' });
     const cov = Float64Array.from([0.01, 0.0002, 0.0002, 0.0001]);
     const [wtp] = computeWtp(layout, [0.8, -0.04], cov, { cost: 'bill', draws: 20000, seed: 3 });
     expect(wtp.name).toBe('quality');
@@ -34,14 +27,7 @@ describe('computeWtp', () => {
   });
 
   it('Krinsky-Robb and delta intervals agree when the cost coefficient is precise (Hole 2007)', () => {
-    const layout = createMixedLogitLayout(
-      data,
-      [
-        { name: 'quality', distribution: 'fixed' },
-        { name: 'bill', distribution: 'fixed' },
-      ],
-      false,
-    );
+    const layout = uncorrelatedLayout(data, { quality: 'fixed', bill: 'fixed' });
     const cov = Float64Array.from([0.0004, 0, 0, 1e-8]);
     const [wtp] = computeWtp(layout, [0.8, -0.04], cov, { cost: 'bill', draws: 20000, seed: 3 });
     // SE ≈ 0.5; percentile error with 20000 draws ≈ 0.01·SE-scale; allow 3% of the width.
@@ -51,14 +37,7 @@ describe('computeWtp', () => {
   });
 
   it('uses the population mean −exp(b + s²/2) for a neg_lognormal cost, with its delta gradient', () => {
-    const layout = createMixedLogitLayout(
-      data,
-      [
-        { name: 'quality', distribution: 'normal' },
-        { name: 'bill', distribution: 'neg_lognormal' },
-      ],
-      false,
-    );
+    const layout = uncorrelatedLayout(data, { quality: 'normal', bill: 'neg_lognormal' });
     const theta = [0.8, -1, 0.5, 0.4];
     const cov = new Float64Array(16);
     [0.01, 0.02, 0.004, 0.003].forEach((v, i) => (cov[i * 4 + i] = v));

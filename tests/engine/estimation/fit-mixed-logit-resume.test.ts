@@ -8,15 +8,16 @@
 import { describe, expect, it } from 'vitest';
 import { fitMixedLogit } from '../../../server/engine/estimation/fit-mixed-logit';
 import type { MixedLogitCheckpoint } from '../../../server/engine/estimation/mixed-logit-checkpoint';
-import { simulateChoiceData } from '../../../server/engine/estimation/simulate-choice-data';
+import {
+  fixedComfort,
+  fixedPrice,
+  normalQuality,
+  simulateChoiceData,
+} from '../../../server/engine/estimation/simulate-choice-data';
 import type { TrueCoefficient } from '../../../server/engine/estimation/simulate-panel-choices';
 import { decodeCheckpoint, encodeCheckpoint } from '../../../server/jobs/run-checkpoint-codec';
 
-const truth: TrueCoefficient[] = [
-  { name: 'quality', distribution: 'normal', location: 1.0, spread: 0.8 },
-  { name: 'comfort', distribution: 'fixed', location: 0.5 },
-  { name: 'price', distribution: 'fixed', location: -0.6, levels: [0, 1, 2, 3] },
-];
+const truth: TrueCoefficient[] = [normalQuality, fixedComfort, fixedPrice(-0.6)];
 const { data, coefficients } = simulateChoiceData({
   respondents: 120,
   tasks: 8,

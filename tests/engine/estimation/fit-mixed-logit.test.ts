@@ -5,20 +5,15 @@ import {
   fitMixedLogit,
   type EstimationProgress,
 } from '../../../server/engine/estimation/fit-mixed-logit';
-import { simulateChoiceData } from '../../../server/engine/estimation/simulate-choice-data';
+import {
+  fixedComfort,
+  negLognormalPrice,
+  normalQuality,
+  simulateChoiceData,
+} from '../../../server/engine/estimation/simulate-choice-data';
 import type { TrueCoefficient } from '../../../server/engine/estimation/simulate-panel-choices';
 
-const truth: TrueCoefficient[] = [
-  { name: 'quality', distribution: 'normal', location: 1.0, spread: 0.8 },
-  { name: 'comfort', distribution: 'fixed', location: 0.5 },
-  {
-    name: 'price',
-    distribution: 'neg_lognormal',
-    location: -0.5,
-    spread: 0.6,
-    levels: [0, 1, 2, 3],
-  },
-];
+const truth: TrueCoefficient[] = [normalQuality, fixedComfort, negLognormalPrice(0.6)];
 
 describe('fitMixedLogit', () => {
   const { sim, data, coefficients } = simulateChoiceData({

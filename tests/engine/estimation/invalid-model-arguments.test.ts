@@ -3,7 +3,7 @@ import { fillUniformDraws } from '../../../server/engine/draws/uniform-draws';
 import { checkMixedLogitOptions } from '../../../server/engine/estimation/check-mixed-logit-options';
 import { computeWtp } from '../../../server/engine/estimation/compute-wtp';
 import { EstimationOptionsError } from '../../../server/engine/estimation/estimation-errors';
-import { createMixedLogitLayout } from '../../../server/engine/estimation/mixed-logit-layout';
+import { uncorrelatedLayout } from './uncorrelated-layout';
 import { computeTasteProfiles } from '../../../server/engine/estimation/taste-profiles';
 import { computeGaussHermite } from '../../../server/engine/linalg/gauss-hermite';
 import { estimationSpecSchema } from '../../../shared/schemas/estimation-spec';
@@ -62,14 +62,7 @@ describe('checkMixedLogitOptions rejects invalid options before any numerics', (
 });
 
 describe('post-estimation guards', () => {
-  const layout = createMixedLogitLayout(
-    good,
-    [
-      { name: 'x', distribution: 'normal' },
-      { name: 'z', distribution: 'fixed' },
-    ],
-    false,
-  );
+  const layout = uncorrelatedLayout(good, { x: 'normal', z: 'fixed' });
   const cov = Float64Array.from([0.1, 0, 0, 0, 0.1, 0, 0, 0, 0.1]);
   it.each<[string, object, RegExp]>([
     ['an unknown cost', { cost: 'price' }, /cost coefficient price/],

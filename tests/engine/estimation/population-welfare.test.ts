@@ -16,7 +16,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { computeGaussHermite } from '../../../server/engine/linalg/gauss-hermite';
-import { createMixedLogitLayout } from '../../../server/engine/estimation/mixed-logit-layout';
+import { uncorrelatedLayout } from './uncorrelated-layout';
 import { computePopulationWelfare } from '../../../server/engine/estimation/population-welfare';
 
 const columns = { columns: ['river', 'bill'] };
@@ -30,15 +30,7 @@ const scenario = (bill: number) => ({
 });
 
 type Dist = 'fixed' | 'normal' | 'neg_lognormal';
-const layoutOf = (river: Dist, bill: Dist) =>
-  createMixedLogitLayout(
-    columns,
-    [
-      { name: 'river', distribution: river },
-      { name: 'bill', distribution: bill },
-    ],
-    false,
-  );
+const layoutOf = (river: Dist, bill: Dist) => uncorrelatedLayout(columns, { river, bill });
 const welfareOf = (
   layout: ReturnType<typeof layoutOf>,
   theta: number[],

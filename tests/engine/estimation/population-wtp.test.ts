@@ -10,7 +10,7 @@
 import { describe, expect, it } from 'vitest';
 import { buildChoiceData } from '../../../server/engine/estimation/build-choice-data';
 import { normalCdf } from '../../../server/engine/estimation/coefficient-distributions';
-import { createMixedLogitLayout } from '../../../server/engine/estimation/mixed-logit-layout';
+import { uncorrelatedLayout } from './uncorrelated-layout';
 import {
   computePopulationWtp,
   getWtpWithheldReason,
@@ -27,14 +27,7 @@ const data = buildChoiceData(
 
 describe('population WTP', () => {
   it('lognormal cost: mean WTP is the closed form and e^{s²} times the ratio of means', () => {
-    const layout = createMixedLogitLayout(
-      data,
-      [
-        { name: 'x', distribution: 'fixed' },
-        { name: 'cost', distribution: 'neg_lognormal' },
-      ],
-      false,
-    );
+    const layout = uncorrelatedLayout(data, { x: 'fixed', cost: 'neg_lognormal' });
     const [bx, b, s] = [0.8, -0.5, 0.6]; // θ = [x, cost.mean, cost.sd]
     const [wtp] = computePopulationWtp(layout, [bx, b, s], null, 1);
     const closed = bx * Math.exp(-b + (s * s) / 2);
@@ -45,14 +38,7 @@ describe('population WTP', () => {
   });
 
   it('normal attribute and lognormal cost: the median solves P(WTP ≤ m) = ½ (2-D quadrature)', () => {
-    const layout = createMixedLogitLayout(
-      data,
-      [
-        { name: 'x', distribution: 'normal' },
-        { name: 'cost', distribution: 'neg_lognormal' },
-      ],
-      false,
-    );
+    const layout = uncorrelatedLayout(data, { x: 'normal', cost: 'neg_lognormal' });
     // θ = [x.mean, cost.mean, x.sd, cost.sd]
     const theta = [0.5, -0.3, 1.2, 0.7];
     const [wtp] = computePopulationWtp(layout, theta, null, 1);
@@ -67,14 +53,7 @@ describe('population WTP', () => {
   });
 
   it('delta-method and simulated intervals come from the covariance given', () => {
-    const layout = createMixedLogitLayout(
-      data,
-      [
-        { name: 'x', distribution: 'fixed' },
-        { name: 'cost', distribution: 'fixed' },
-      ],
-      false,
-    );
+    const layout = uncorrelatedLayout(data, { x: 'fixed', cost: 'fixed' });
     // Closed-form check: β_k = 0.8, β_c = −0.04, Var 0.01 and 0.0001, Cov 0.0002 give
     // WTP 20 and delta SE 6.020797289396148 (closed form of the delta method, Hole 2007).
     const cov = Float64Array.from([0.01, 0.0002, 0.0002, 0.0001]);
@@ -86,14 +65,7 @@ describe('population WTP', () => {
   });
 
   it('a normal cost withholds WTP with the reason', () => {
-    const layout = createMixedLogitLayout(
-      data,
-      [
-        { name: 'x', distribution: 'fixed' },
-        { name: 'cost', distribution: 'normal' },
-      ],
-      false,
-    );
+    const layout = uncorrelatedLayout(data, { x: 'fixed', cost: 'normal' });
     expect(getWtpWithheldReason(layout, [0.8, -0.5, 0.3], 1)).toMatch(
       /cost coefficient cost has a normal distribution that reaches zero/,
     );

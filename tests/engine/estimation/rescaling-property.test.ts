@@ -10,22 +10,17 @@ import { buildChoiceData } from '../../../server/engine/estimation/build-choice-
 import { fitMixedLogit } from '../../../server/engine/estimation/fit-mixed-logit';
 import { fitMnl } from '../../../server/engine/estimation/fit-mnl';
 import { simulatePanelChoices } from '../../../server/engine/estimation/simulate-panel-choices';
+import {
+  fixedComfort,
+  negLognormalPrice,
+  normalQuality,
+} from '../../../server/engine/estimation/simulate-choice-data';
 
 const sim = simulatePanelChoices({
   respondents: 60,
   tasks: 6,
   alternatives: 3,
-  coefficients: [
-    { name: 'quality', distribution: 'normal', location: 1.0, spread: 0.8 },
-    { name: 'comfort', distribution: 'fixed', location: 0.5 },
-    {
-      name: 'price',
-      distribution: 'neg_lognormal',
-      location: -0.5,
-      spread: 0.4,
-      levels: [0, 1, 2, 3],
-    },
-  ],
+  coefficients: [normalQuality, fixedComfort, negLognormalPrice(0.4)],
   seed: 31,
 });
 const K_VALUES = [-6, -5, -4, -3, -2, -1, 0, 1, 2, 3, 4, 5, 6];

@@ -8,7 +8,12 @@
 import { describe, expect, it } from 'vitest';
 import { buildChoiceData } from '../../../server/engine/estimation/build-choice-data';
 import { fitMixedLogit } from '../../../server/engine/estimation/fit-mixed-logit';
-import { simulateChoiceData } from '../../../server/engine/estimation/simulate-choice-data';
+import {
+  fixedComfort,
+  fixedPrice,
+  normalQuality,
+  simulateChoiceData,
+} from '../../../server/engine/estimation/simulate-choice-data';
 
 describe('a cost column of order 10^5', () => {
   it('reaches the optimum of the well-scaled model (LL to 1e-6) and reports converged', async () => {
@@ -16,11 +21,7 @@ describe('a cost column of order 10^5', () => {
       respondents: 150,
       tasks: 8,
       alternatives: 3,
-      coefficients: [
-        { name: 'quality', distribution: 'normal', location: 1.0, spread: 0.8 },
-        { name: 'comfort', distribution: 'fixed', location: 0.5 },
-        { name: 'cost', distribution: 'fixed', location: -0.8, levels: [0, 1, 2, 3] },
-      ],
+      coefficients: [normalQuality, fixedComfort, fixedPrice(-0.8, 'cost')],
       seed: 2024,
     });
     const big = sim.rows.map((r) => ({

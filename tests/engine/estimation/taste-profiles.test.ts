@@ -3,20 +3,15 @@ import { buildChoiceData } from '../../../server/engine/estimation/build-choice-
 import { EstimationCancelledError } from '../../../server/engine/estimation/estimation-errors';
 import { createMixedLogitLayout } from '../../../server/engine/estimation/mixed-logit-layout';
 import { getPopulationMoments } from '../../../server/engine/estimation/population-moments';
-import { simulateChoiceData } from '../../../server/engine/estimation/simulate-choice-data';
+import {
+  negLognormalPrice,
+  normalQuality,
+  simulateChoiceData,
+} from '../../../server/engine/estimation/simulate-choice-data';
 import type { TrueCoefficient } from '../../../server/engine/estimation/simulate-panel-choices';
 import { computeTasteProfiles } from '../../../server/engine/estimation/taste-profiles';
 
-const truth: TrueCoefficient[] = [
-  { name: 'quality', distribution: 'normal', location: 1.0, spread: 0.8 },
-  {
-    name: 'price',
-    distribution: 'neg_lognormal',
-    location: -0.5,
-    spread: 0.6,
-    levels: [0, 1, 2, 3],
-  },
-];
+const truth: TrueCoefficient[] = [normalQuality, negLognormalPrice(0.6)];
 const coefficients = truth.map(({ name, distribution }) => ({ name, distribution }));
 const trueTheta = [1.0, -0.5, 0.8, 0.6];
 

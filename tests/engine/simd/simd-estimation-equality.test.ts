@@ -1,6 +1,10 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { fitMixedLogit } from '../../../server/engine/estimation/fit-mixed-logit';
-import { simulateChoiceData } from '../../../server/engine/estimation/simulate-choice-data';
+import {
+  negLognormalPrice,
+  normalQuality,
+  simulateChoiceData,
+} from '../../../server/engine/estimation/simulate-choice-data';
 import { createLoglikEvaluator } from '../../../server/engine/parallel/create-loglik-evaluator';
 import { chooseKernel } from '../../../server/engine/simd/kernel-choice';
 import { createKernelFixture } from '../estimation/kernel-fixture';
@@ -10,16 +14,10 @@ const { data, coefficients } = simulateChoiceData({
   tasks: 8,
   alternatives: 3,
   coefficients: [
-    { name: 'quality', distribution: 'normal', location: 1.0, spread: 0.8 },
+    normalQuality,
     { name: 'comfort', distribution: 'normal', location: -0.4, spread: 0.5 },
     { name: 'access', distribution: 'uniform', location: 0.3, spread: 0.6 },
-    {
-      name: 'price',
-      distribution: 'neg_lognormal',
-      location: -0.5,
-      spread: 0.6,
-      levels: [0, 1, 2, 3],
-    },
+    negLognormalPrice(0.6),
   ],
   seed: 29,
 });

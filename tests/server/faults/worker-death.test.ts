@@ -7,7 +7,7 @@
  * with the estimates of the same specification run without interruption (same draws, seed and
  * thread count: the same floating-point path, so equal).
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it } from 'vitest';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -17,18 +17,14 @@ import { getRunForJob } from '../../../db/queries/runs';
 import { getRunCheckpoint } from '../../../db/queries/run-checkpoints';
 import { STALE_RUN_MS, sweepStaleRuns } from '../../../server/jobs/stale-run-sweep';
 import { startProcess, type ServerProcess } from '../../../scripts/lib/server-process';
-import { mixedLogitSpec, seedRunStudy } from '../jobs/run-fixtures';
+import { mixedLogitSpec, useRunStudy } from '../jobs/run-fixtures';
 
 // The API enqueues on the real queue; only the worker processes take jobs from it.
 const t = useTestApp({}, { signIn: 'team', jobQueue: { work: false } });
-let base: string;
 const workers: ServerProcess[] = [];
 const logDir = fs.mkdtempSync(path.join(os.tmpdir(), 'cw-worker-death-'));
 
-beforeAll(async () => {
-  const study = await seedRunStudy(t.deps.db, { teamId: t.team.teamId, respondents: 120 });
-  base = `/api/teams/${t.team.teamId}/studies/${study.studyId}/runs`;
-}, 60_000);
+const study = useRunStudy(t, 120, 60_000);
 
 afterAll(async () => {
   for (const w of workers) await w.stop(5_000);
@@ -65,7 +61,7 @@ describe('a worker killed during an estimation', () => {
     // seconds on one thread: about 40 iterations over three starts); the checkpoint is looked
     // for every 50 ms, so the kill comes within an iteration or two of it.
     const spec = mixedLogitSpec(1_000, 5, true);
-    const slow = await t.team.agents.analyst.post(base).send({ spec }).expect(201);
+    const slow = await t.team.agents.analyst.post(study.base).send({ spec }).expect(201);
     const saved = await waitFor(
       () => getRunCheckpoint(t.deps.db, { runId: slow.body.id }),
       120_000,
@@ -87,7 +83,8 @@ describe('a worker killed during an estimation', () => {
     // …and once it has (the clock moved on by STALE_RUN_MS), it is queued again.
     const swept = await sweepStaleRuns(t.deps, Date.now() + STALE_RUN_MS);
     expect(swept.resumed).toContain(slow.body.id);
-    const waiting = (await t.team.agents.viewer.get(`${base}/${slow.body.id}`).expect(200)).body;
+    const waiting = (await t.team.agents.viewer.get(`${study.base}/${slow.body.id}`).expect(200))
+      .body;
     expect(waiting).toMatchObject({ status: 'queued', attempts: 1 });
 
     startWorker();
@@ -104,7 +101,7 @@ describe('a worker killed during an estimation', () => {
     expect(checkpoint!.iteration).toBeGreaterThan(0);
 
     // The same specification, never interrupted, on the same worker settings.
-    const whole = await t.team.agents.analyst.post(base).send({ spec }).expect(201);
+    const whole = await t.team.agents.analyst.post(study.base).send({ spec }).expect(201);
     const reference = await waitForRun(
       t.deps.db,
       whole.body.id,

@@ -4,20 +4,18 @@
  * or class probabilities beside the profile, and reports progress as iterations or starts; their
  * exports carry the family's per-respondent columns and a methods sheet.
  */
-import { beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { parse } from 'csv-parse/sync';
 import { downloadXlsx } from '../../support/download-xlsx';
 import { useTestApp } from '../../support/test-app';
 import { useEstimationPool } from '../../support/engine-pools';
 import { listRunProfiles } from '../../../db/queries/taste-profiles';
 import { runEstimationJob } from '../../../server/jobs/estimation-job';
-import { seedRunStudy, type SeededStudy } from './run-fixtures';
+import { useRunStudy } from './run-fixtures';
 import { scenarioLevels } from '../routes/tastes-fixture';
 
 const t = useTestApp({}, { signIn: 'team', recordJobs: true });
 const pool = useEstimationPool();
-let study: SeededStudy;
-let base: string;
 const done: Record<string, string> = {};
 
 const coefficients = [
@@ -27,15 +25,12 @@ const coefficients = [
   { name: 'sq', column: 'asc:fixed' },
 ];
 
-beforeAll(async () => {
-  study = await seedRunStudy(t.deps.db, { teamId: t.team.teamId, respondents: 80 });
-  base = `/api/teams/${t.team.teamId}/studies/${study.studyId}/runs`;
-}, 180_000);
+const study = useRunStudy(t, 80, 180_000);
 
 describe('HB run through the job', () => {
   it('ends done with diagnostics, sampler settings and per-respondent intervals', async () => {
     const res = await t.team.agents.analyst
-      .post(base)
+      .post(study.base)
       .send({
         spec: {
           model: 'hb',
@@ -55,7 +50,7 @@ describe('HB run through the job', () => {
     expect(res.body.seed).toBe(7);
     await runEstimationJob(t.deps, res.body.id, { threads: 2, pool });
     done.hb = res.body.id;
-    const run = (await t.team.agents.viewer.get(`${base}/${res.body.id}`).expect(200)).body;
+    const run = (await t.team.agents.viewer.get(`${study.base}/${res.body.id}`).expect(200)).body;
     expect(run.error).toBeNull();
     expect(run.status).toBe('done');
     expect(run.progress).toMatchObject({ maxIterations: 600 });
@@ -85,7 +80,7 @@ describe('HB run through the job', () => {
 describe('latent class run through the job', () => {
   it('ends done with the classes, the class-count table and class probabilities', async () => {
     const res = await t.team.agents.analyst
-      .post(base)
+      .post(study.base)
       .send({
         spec: {
           model: 'latent_class',
@@ -98,7 +93,7 @@ describe('latent class run through the job', () => {
       .expect(201);
     await runEstimationJob(t.deps, res.body.id, { threads: 1, pool });
     done.lc = res.body.id;
-    const run = (await t.team.agents.viewer.get(`${base}/${res.body.id}`).expect(200)).body;
+    const run = (await t.team.agents.viewer.get(`${study.base}/${res.body.id}`).expect(200)).body;
     expect(run.error).toBeNull();
     expect(run.status).toBe('done');
     expect(run.progress.maxIterations).toBe(4);

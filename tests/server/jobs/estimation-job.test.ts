@@ -7,7 +7,7 @@
  * respondent number; a run stored before the order was, by id, also when computed again, so it
  * reproduces bit for bit.
  */
-import { beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { eq, sql } from 'drizzle-orm';
 import { useTestApp } from '../../support/test-app';
 import { useEstimationPool } from '../../support/engine-pools';
@@ -26,28 +26,23 @@ import {
   hashChoiceData,
   loadStudyChoiceData,
 } from '../../../server/services/choice-data-from-study';
-import { mixedLogitSpec, seedRunStudy, TRUE_MNL, type SeededStudy } from './run-fixtures';
+import { mixedLogitSpec, TRUE_MNL, useRunStudy } from './run-fixtures';
 
 const t = useTestApp({}, { signIn: 'team', recordJobs: true });
 const pool = useEstimationPool();
-let study: SeededStudy;
-let base: string;
 
 const allColumns = Object.keys(TRUE_MNL).map((key, k) => ({ name: `b${k}`, column: key }));
 
-beforeAll(async () => {
-  study = await seedRunStudy(t.deps.db, { teamId: t.team.teamId, respondents: 80 });
-  base = `/api/teams/${t.team.teamId}/studies/${study.studyId}/runs`;
-});
+const study = useRunStudy(t, 80);
 
 describe('estimation job', () => {
   it('runs an MNL to done with results, fit statistics, WTP and the data hash', async () => {
     const res = await t.team.agents.analyst
-      .post(base)
+      .post(study.base)
       .send({ spec: { model: 'mnl', coefficients: allColumns, cost: 'b0' } })
       .expect(201);
     await runEstimationJob(t.deps, t.sent[0].data.runId!, { threads: 1, pool });
-    const run = (await t.team.agents.viewer.get(`${base}/${res.body.id}`).expect(200)).body;
+    const run = (await t.team.agents.viewer.get(`${study.base}/${res.body.id}`).expect(200)).body;
     expect(run.status).toBe('done');
     expect(run.error).toBeNull();
     expect(run.dataHash).toMatch(/^[0-9a-f]{64}$/);
@@ -80,7 +75,7 @@ describe('estimation job', () => {
 
   it('runs a mixed logit with a negative lognormal cost and stores a profile per respondent', async () => {
     const res = await t.team.agents.owner
-      .post(base)
+      .post(study.base)
       .send({
         spec: {
           model: 'mixed',
@@ -97,7 +92,7 @@ describe('estimation job', () => {
       })
       .expect(201);
     await runEstimationJob(t.deps, res.body.id, { threads: 1, pool });
-    const run = (await t.team.agents.viewer.get(`${base}/${res.body.id}`).expect(200)).body;
+    const run = (await t.team.agents.viewer.get(`${study.base}/${res.body.id}`).expect(200)).body;
     expect(run.error).toBeNull();
     expect(run.status).toBe('done');
     expect(run.seed).toBe(4);
@@ -123,7 +118,7 @@ describe('estimation job', () => {
     ]);
     expect(profiles[0].wtp).toHaveProperty('river_good');
     const means = await t.team.agents.viewer
-      .get(`${base}/${res.body.id}/conditional-means`)
+      .get(`${study.base}/${res.body.id}/conditional-means`)
       .expect(200);
     expect(means.body.coefficients).toEqual(['bill', 'river_good', 'interrupt', 'sq']);
     expect(means.body.values[0]).toHaveLength(80);
@@ -132,7 +127,7 @@ describe('estimation job', () => {
 
   it('fails with a readable reason when the data cannot be used', async () => {
     const res = await t.team.agents.analyst
-      .post(base)
+      .post(study.base)
       .send({ spec: { model: 'mnl', coefficients: allColumns } })
       .expect(201);
     // The study's only version disappears before a worker picks the run up.
@@ -148,7 +143,7 @@ describe('estimation job', () => {
 
   it('stops a running run when it is cancelled, and leaves it cancelled', async () => {
     const res = await t.team.agents.analyst
-      .post(base)
+      .post(study.base)
       .send({
         spec: {
           model: 'mixed',
@@ -165,7 +160,9 @@ describe('estimation job', () => {
       if (row?.status === 'running') break;
       await new Promise((r) => setTimeout(r, 20));
     }
-    const cancel = await t.team.agents.analyst.post(`${base}/${res.body.id}/cancel`).expect(200);
+    const cancel = await t.team.agents.analyst
+      .post(`${study.base}/${res.body.id}/cancel`)
+      .expect(200);
     expect(cancel.body).toMatchObject({ status: 'running', cancelRequested: true });
     await job;
     const row = await getRunForJob(t.deps.db, { id: res.body.id });
@@ -177,10 +174,10 @@ describe('estimation job', () => {
 
   it('does not start a run cancelled while queued', async () => {
     const res = await t.team.agents.analyst
-      .post(base)
+      .post(study.base)
       .send({ spec: { model: 'mnl', coefficients: allColumns } })
       .expect(201);
-    await t.team.agents.analyst.post(`${base}/${res.body.id}/cancel`).expect(200);
+    await t.team.agents.analyst.post(`${study.base}/${res.body.id}/cancel`).expect(200);
     await runEstimationJob(t.deps, res.body.id, { threads: 1, pool });
     const row = await getRunForJob(t.deps.db, { id: res.body.id });
     expect(row?.status).toBe('cancelled');
@@ -193,7 +190,7 @@ describe('stale-run sweep (worker crash)', () => {
     const make = async () =>
       (
         await t.team.agents.analyst
-          .post(base)
+          .post(study.base)
           .send({ spec: { model: 'mnl', coefficients: allColumns } })
           .expect(201)
       ).body.id as string;
@@ -224,19 +221,19 @@ describe('stale-run sweep (worker crash)', () => {
     expect(failedRow).toMatchObject({ status: 'failed', error: WORKER_LOST_ERROR });
     expect(WORKER_LOST_ERROR).toMatch(/stopped unexpectedly 3 times/);
     expect((await getRunForJob(t.deps.db, { id: alive }))?.status).toBe('running');
-    const waiting = (await t.team.agents.viewer.get(`${base}/${dead}`).expect(200)).body;
+    const waiting = (await t.team.agents.viewer.get(`${study.base}/${dead}`).expect(200)).body;
     expect(waiting).toMatchObject({ status: 'queued', attempts: 1 });
 
     // The next worker takes it: an MNL keeps no checkpoint, so it starts from the beginning.
     await runEstimationJob(t.deps, dead, { threads: 1, pool });
-    const view = (await t.team.agents.viewer.get(`${base}/${dead}`).expect(200)).body;
+    const view = (await t.team.agents.viewer.get(`${study.base}/${dead}`).expect(200)).body;
     expect(view).toMatchObject({ status: 'done', attempts: 2, error: null });
     expect(view.progress.resumed).toEqual({ attempt: 2, fromIteration: 0 });
   });
 
   it('without a queue to send to, leaves a resumable run alone', async () => {
     const res = await t.team.agents.analyst
-      .post(base)
+      .post(study.base)
       .send({ spec: { model: 'mnl', coefficients: allColumns } })
       .expect(201);
     const silent = new Date(Date.now() - STALE_RUN_MS - 60_000);
@@ -261,13 +258,13 @@ async function seedEmptyStudy() {
 }
 
 const getRun = async (id: string) =>
-  (await t.team.agents.viewer.get(`${base}/${id}`).expect(200)).body;
+  (await t.team.agents.viewer.get(`${study.base}/${id}`).expect(200)).body;
 const keys = mixedLogitSpec(20, 9).coefficients.map((c) => c.column);
 
 describe('run data order', () => {
   it('reads a new run in respondent-number order and says so', async () => {
     const res = await t.team.agents.analyst
-      .post(base)
+      .post(study.base)
       .send({ spec: mixedLogitSpec(20, 9) })
       .expect(201);
     expect(res.body.dataOrder).toBe('respondent-number');
@@ -286,7 +283,7 @@ describe('run data order', () => {
       .set({ startedAt: new Date(Date.now() + 3_600_000) })
       .where(eq(respondents.id, study.respondentIds[0]));
     const res = await t.team.agents.analyst
-      .post(base)
+      .post(study.base)
       .send({ spec: mixedLogitSpec(20, 9) })
       .expect(201);
     // As a run stored before the data order was: its stored spec has no dataOrder.

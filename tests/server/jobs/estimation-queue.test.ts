@@ -11,20 +11,19 @@ import { runs } from '../../../db/schema/models';
 import { startJobQueue, type JobQueue } from '../../../server/jobs/queue';
 import { createJobKinds } from '../../../server/jobs/background';
 import { STALE_RUN_MS } from '../../../server/jobs/stale-run-sweep';
-import { seedRunStudy, TRUE_MNL } from './run-fixtures';
+import { TRUE_MNL, useRunStudy } from './run-fixtures';
 
 const t = useTestApp({}, { signIn: 'team' });
 let queue: JobQueue;
-let base: string;
 let staleRunId: string;
 
+const study = useRunStudy(t, 20, 60_000);
+
 beforeAll(async () => {
-  const study = await seedRunStudy(t.deps.db, { teamId: t.team.teamId, respondents: 20 });
-  base = `/api/teams/${t.team.teamId}/studies/${study.studyId}/runs`;
   // A run a crashed worker left behind: running, its heartbeat long silent.
   t.deps.jobs = { send: async () => {} };
   const res = await t.team.agents.analyst
-    .post(base)
+    .post(study.base)
     .send({ spec: { model: 'mnl', coefficients: [{ name: 'bill', column: 'attr:bill' }] } })
     .expect(201);
   staleRunId = res.body.id;
@@ -65,14 +64,14 @@ describe('estimation runs on the job queue', () => {
   it('runs a queued run on the worker to done', async () => {
     const coefficients = Object.keys(TRUE_MNL).map((column, k) => ({ name: `b${k}`, column }));
     const res = await t.team.agents.analyst
-      .post(base)
+      .post(study.base)
       .send({ spec: { model: 'mnl', coefficients } })
       .expect(201);
     const row = await waitForEnd(res.body.id);
     expect(row.error).toBeNull();
     expect(row.status).toBe('done');
     expect(row.dataHash).toMatch(/^[0-9a-f]{64}$/);
-    const view = await t.team.agents.viewer.get(`${base}/${res.body.id}`).expect(200);
+    const view = await t.team.agents.viewer.get(`${study.base}/${res.body.id}`).expect(200);
     expect(view.body.results).toMatchObject({ model: 'mnl', respondents: 20, parameters: 9 });
   }, 60_000);
 });

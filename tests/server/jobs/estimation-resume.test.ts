@@ -9,7 +9,7 @@
  * so the two paths are the same floating-point operations: the estimates must be equal.
  * (tests/server/faults/worker-death.test.ts does the same with a real worker killed by SIGKILL.)
  */
-import { beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { useTestApp } from '../../support/test-app';
 import { useEstimationPool } from '../../support/engine-pools';
 import { waitFor } from '../../support/wait-for';
@@ -19,23 +19,19 @@ import { runs } from '../../../db/schema/models';
 import { eq } from 'drizzle-orm';
 import { runEstimationJob } from '../../../server/jobs/estimation-job';
 import { STALE_RUN_MS, sweepStaleRuns } from '../../../server/jobs/stale-run-sweep';
-import { mixedLogitSpec, seedRunStudy } from './run-fixtures';
+import { mixedLogitSpec, useRunStudy } from './run-fixtures';
 
 const t = useTestApp({}, { signIn: 'team', recordJobs: true });
 const pool = useEstimationPool();
-let base: string;
 
-beforeAll(async () => {
-  const study = await seedRunStudy(t.deps.db, { teamId: t.team.teamId, respondents: 80 });
-  base = `/api/teams/${t.team.teamId}/studies/${study.studyId}/runs`;
-}, 60_000);
+const study = useRunStudy(t, 80, 60_000);
 
 async function startRun(): Promise<string> {
   // Three starts (the default) and enough draws that the run is still estimating when the
   // worker is taken for dead: with 500 draws the run takes 41 iterations over its three starts
   // and is swept right after its third (measured: 0.7 s into a 5 s run at a load average of 20).
   const res = await t.team.agents.analyst
-    .post(base)
+    .post(study.base)
     .send({ spec: mixedLogitSpec(500, 13, true) })
     .expect(201);
   return res.body.id;
@@ -72,7 +68,7 @@ describe('a mixed logit whose worker is lost after a checkpoint', () => {
     await runEstimationJob(t.deps, id, { threads: 1, pool });
     const resumed = await getRunForJob(t.deps.db, { id });
     expect(resumed).toMatchObject({ status: 'done', attempts: 2, error: null });
-    const view = (await t.team.agents.viewer.get(`${base}/${id}`).expect(200)).body;
+    const view = (await t.team.agents.viewer.get(`${study.base}/${id}`).expect(200)).body;
     expect(view.progress.resumed).toEqual({ attempt: 2, fromIteration: checkpoint!.iteration });
     type Stored = { estimates: unknown[]; loglik: number; iterations: number; wtp: unknown };
     const a = whole!.results as Stored;
@@ -102,7 +98,7 @@ describe('a mixed logit whose worker is lost after a checkpoint', () => {
     ).toBe(true);
     await t.deps.db.update(runs).set({ status: 'queued' }).where(eq(runs.id, id));
     await runEstimationJob(t.deps, id, { threads: 1, pool });
-    const view = (await t.team.agents.viewer.get(`${base}/${id}`).expect(200)).body;
+    const view = (await t.team.agents.viewer.get(`${study.base}/${id}`).expect(200)).body;
     expect(view).toMatchObject({ status: 'done', attempts: 2 });
     expect(view.progress.resumed).toEqual({ attempt: 2, fromIteration: 0 });
     expect(await getRunCheckpoint(t.deps.db, { runId: id })).toBeNull();

@@ -4,7 +4,7 @@
  * take the job leaves no row); a queued run whose queue message was lost is queued again by
  * the sweep and runs to done; one that has waited too long is failed with a reason.
  */
-import { beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { useTestApp } from '../../support/test-app';
@@ -13,25 +13,21 @@ import { getRunForJob } from '../../../db/queries/runs';
 import { startJobQueue } from '../../../server/jobs/queue';
 import { createJobKinds } from '../../../server/jobs/background';
 import { ESTIMATION_JOB } from '../../../server/services/runs';
-import { seedRunStudy, TRUE_MNL } from './run-fixtures';
+import { TRUE_MNL, useRunStudy } from './run-fixtures';
 
 // A queue that only sends: nothing takes its jobs while the transaction tests look at them.
 const t = useTestApp({}, { signIn: 'team', jobQueue: { work: false } });
-let base: string;
 const spec = {
   model: 'mnl',
   coefficients: Object.keys(TRUE_MNL).map((column, k) => ({ name: `b${k}`, column })),
 };
 
-beforeAll(async () => {
-  const study = await seedRunStudy(t.deps.db, { teamId: t.team.teamId, respondents: 20 });
-  base = `/api/teams/${t.team.teamId}/studies/${study.studyId}/runs`;
-}, 60_000);
+const study = useRunStudy(t, 20, 60_000);
 
 /** Starts a run through the API while the queue loses every message, then ages its row. */
 async function runWithLostMessage(minutesAgo: number): Promise<string> {
   t.deps.jobs = { send: async () => {} };
-  const res = await t.team.agents.analyst.post(base).send({ spec }).expect(201);
+  const res = await t.team.agents.analyst.post(study.base).send({ spec }).expect(201);
   await t.deps.db
     .update(runs)
     .set({ createdAt: new Date(Date.now() - minutesAgo * 60_000) })
@@ -62,7 +58,7 @@ describe('a job is enqueued in the same transaction as its row', () => {
       },
     };
     const before = await t.deps.db.select().from(runs);
-    const res = await t.team.agents.analyst.post(base).send({ spec }).expect(503);
+    const res = await t.team.agents.analyst.post(study.base).send({ spec }).expect(503);
     expect(res.body.error.code).toBe('queue_unavailable');
     expect(await t.deps.db.select().from(runs)).toHaveLength(before.length);
   });

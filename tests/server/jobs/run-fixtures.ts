@@ -6,6 +6,7 @@
  * unfinished respondent. Rows are written directly: the fieldwork code is not under test here.
  */
 import { randomBytes } from 'node:crypto';
+import { beforeAll } from 'vitest';
 import type { Db } from '../../../db/client';
 import { respondentFilters } from '../../../db/schema/models';
 import { createPrng } from '../../../server/engine/draws/prng';
@@ -17,6 +18,7 @@ import { makeStudyDefinition } from '../../../scripts/lib/study-factory/definiti
 import { makeStudyDesign } from '../../../scripts/lib/study-factory/design';
 import { insertStudyRow } from '../../../scripts/lib/study-factory/insert-study';
 import { insertRespondentRow } from '../../../scripts/lib/study-factory/insert-respondent';
+import type { FileTestApp } from '../../support/test-app';
 
 /** True MNL coefficients by coded-column key (bill, interruptions, warning effects, river, renew, SQ). */
 export const TRUE_MNL: Record<string, number> = {
@@ -223,6 +225,21 @@ export async function seedRunStudy(
     excludedId,
     unfinishedId,
   };
+}
+
+/**
+ * The set-up of the run test files: before their tests (within `timeout` ms), seeds the study
+ * with `respondents` completed respondents for `t`'s team and sets `base` to its runs API path.
+ * Like useTestApp's, the returned object is filled in by the beforeAll, so read it inside hooks
+ * and tests only; a file's own beforeAll registered after it sees it filled.
+ */
+export function useRunStudy(t: FileTestApp<'team'>, respondents: number, timeout?: number) {
+  const study = {} as SeededStudy & { base: string };
+  beforeAll(async () => {
+    Object.assign(study, await seedRunStudy(t.deps.db, { teamId: t.team.teamId, respondents }));
+    study.base = `/api/teams/${t.team.teamId}/studies/${study.studyId}/runs`;
+  }, timeout);
+  return study;
 }
 
 /** A saved filter keeping respondents who filter their tap water. */

@@ -1,32 +1,27 @@
-import { beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { parse } from 'csv-parse/sync';
 import type supertest from 'supertest';
 import { downloadXlsx } from '../../support/download-xlsx';
 import { useTestApp } from '../../support/test-app';
 import type { Role } from '../../../shared/permissions';
 import { shareScenarios } from '../../../db/schema/shares';
-import { N, scenarioLevels, seedTastesStudy } from './tastes-fixture';
+import { N, scenarioLevels, useTastesStudy } from './tastes-fixture';
 
 const t = useTestApp({}, { signIn: 'team' });
-let seeded: Awaited<ReturnType<typeof seedTastesStudy>>;
-let base: string;
 
-beforeAll(async () => {
-  seeded = await seedTastesStudy(t.deps.db, t.team.teamId);
-  base = `/api/teams/${t.team.teamId}/studies/${seeded.studyId}/exports`;
-});
+const study = useTastesStudy(t, 'exports');
 
 const as = (role: Role): supertest.Agent => t.team.agents[role];
 
 async function loadXlsx(agent: supertest.Agent) {
-  return downloadXlsx(agent, `${base}/taste-profiles.xlsx`, { runId: seeded.runId });
+  return downloadXlsx(agent, `${study.base}/taste-profiles.xlsx`, { runId: study.runId });
 }
 
 describe('GET /exports/taste-profiles.csv', () => {
   it('gives an analyst one row per respondent with external ids, escaped text and SDs beside means', async () => {
     const res = await as('analyst')
-      .get(`${base}/taste-profiles.csv`)
-      .query({ runId: seeded.runId })
+      .get(`${study.base}/taste-profiles.csv`)
+      .query({ runId: study.runId })
       .expect(200);
     expect(res.headers['content-type']).toMatch(/text\/csv/);
     expect(res.headers['content-disposition']).toMatch(
@@ -69,8 +64,8 @@ describe('GET /exports/taste-profiles.csv', () => {
 
   it('gives a viewer the same rows without external ids or free text', async () => {
     const res = await as('viewer')
-      .get(`${base}/taste-profiles.csv`)
-      .query({ runId: seeded.runId })
+      .get(`${study.base}/taste-profiles.csv`)
+      .query({ runId: study.runId })
       .expect(200);
     const rows = parse(res.text, { columns: true }) as Record<string, string>[];
     expect(rows).toHaveLength(N);
@@ -82,11 +77,15 @@ describe('GET /exports/taste-profiles.csv', () => {
 
   it('returns 404 to an outsider, 401 without a session and 400 without a run', async () => {
     await t.team.outsider
-      .get(`${base}/taste-profiles.csv`)
-      .query({ runId: seeded.runId })
+      .get(`${study.base}/taste-profiles.csv`)
+      .query({ runId: study.runId })
       .expect(404);
-    await t.request().get(`${base}/taste-profiles.csv`).query({ runId: seeded.runId }).expect(401);
-    const res = await as('analyst').get(`${base}/taste-profiles.csv`).expect(400);
+    await t
+      .request()
+      .get(`${study.base}/taste-profiles.csv`)
+      .query({ runId: study.runId })
+      .expect(401);
+    const res = await as('analyst').get(`${study.base}/taste-profiles.csv`).expect(400);
     expect(res.body.error.fields[0].path).toBe('runId');
   });
 });
@@ -132,19 +131,19 @@ describe('GET /exports/taste-profiles.xlsx', () => {
 
 describe('other downloads', () => {
   it('writes the background answers of every respondent, free text only for personal roles', async () => {
-    const analyst = await as('analyst').get(`${base}/background-answers.csv`).expect(200);
+    const analyst = await as('analyst').get(`${study.base}/background-answers.csv`).expect(200);
     const rows = parse(analyst.text, { columns: true }) as Record<string, string>[];
     expect(rows).toHaveLength(N);
     expect(rows[0]).toMatchObject({ number: '1', age_band: '18–34', household_size: '1' });
     expect(rows[2].quality_flags).toBe('speeder');
-    const viewer = await as('viewer').get(`${base}/background-answers.csv`).expect(200);
+    const viewer = await as('viewer').get(`${study.base}/background-answers.csv`).expect(200);
     const header = (parse(viewer.text) as string[][])[0];
     expect(header).not.toContain('external_id');
     expect(header).not.toContain('comments');
   });
 
   it('writes the frozen design with one row per designed alternative', async () => {
-    const res = await as('viewer').get(`${base}/design.csv`).expect(200);
+    const res = await as('viewer').get(`${study.base}/design.csv`).expect(200);
     const rows = parse(res.text) as string[][];
     expect(rows[0].slice(0, 3)).toEqual(['block', 'task', 'alternative']);
     expect(rows).toHaveLength(1 + 2 * 2);
@@ -153,8 +152,8 @@ describe('other downloads', () => {
 
   it('prints a run report with its tables and the cautions', async () => {
     const res = await as('viewer')
-      .get(`${base}/run-report.html`)
-      .query({ runId: seeded.runId })
+      .get(`${study.base}/run-report.html`)
+      .query({ runId: study.runId })
       .expect(200);
     expect(res.headers['content-type']).toMatch(/text\/html/);
     expect(res.text).toContain('@media print');
@@ -167,8 +166,8 @@ describe('other downloads', () => {
 
   it('prints with the app fonts inlined, readable names, WTP units and charts', async () => {
     const res = await as('viewer')
-      .get(`${base}/run-report.html`)
-      .query({ runId: seeded.runId })
+      .get(`${study.base}/run-report.html`)
+      .query({ runId: study.runId })
       .expect(200);
     const html = res.text;
     // IBM Plex Sans 400 and 600 and Plex Mono 400, inlined: the page needs nothing else.
@@ -190,28 +189,32 @@ describe('other downloads', () => {
   });
 
   it('reports which downloads exist and whether they hold personal columns', async () => {
-    expect((await as('viewer').get(base).expect(200)).body).toEqual({
+    expect((await as('viewer').get(study.base).expect(200)).body).toEqual({
       personalColumns: false,
       designAvailable: true,
       choicesAvailable: true,
     });
-    expect((await as('owner').get(base).expect(200)).body.personalColumns).toBe(true);
-    await t.team.outsider.get(base).expect(404);
-    await t.request().get(base).expect(401);
+    expect((await as('owner').get(study.base).expect(200)).body.personalColumns).toBe(true);
+    await t.team.outsider.get(study.base).expect(404);
+    await t.request().get(study.base).expect(401);
   });
 });
 
 describe('run report: saved what-if scenarios', () => {
   const report = async () =>
-    (await as('viewer').get(`${base}/run-report.html`).query({ runId: seeded.runId }).expect(200))
-      .text;
+    (
+      await as('viewer')
+        .get(`${study.base}/run-report.html`)
+        .query({ runId: study.runId })
+        .expect(200)
+    ).text;
 
   it('says how to add scenarios while none is saved', async () => {
     expect(await report()).toContain('No scenario is saved for this study.');
   });
 
   it('prints each saved scenario with shares, intervals, a chart and the welfare line', async () => {
-    const scenarios = `/api/teams/${t.team.teamId}/studies/${seeded.studyId}/shares/scenarios`;
+    const scenarios = `/api/teams/${t.team.teamId}/studies/${study.studyId}/shares/scenarios`;
     await as('analyst')
       .post(scenarios)
       .send({
@@ -227,7 +230,7 @@ describe('run report: saved what-if scenarios', () => {
     // reason instead of numbers, and the rest of the report still prints.
     await t.deps.db.insert(shareScenarios).values({
       teamId: t.team.teamId,
-      studyId: seeded.studyId,
+      studyId: study.studyId,
       name: 'Outdated',
       alternatives: [
         { name: 'Old A', alternative: 0, levels: scenarioLevels('good', 'b99') },

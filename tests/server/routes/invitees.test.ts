@@ -41,6 +41,12 @@ async function importList(studyId: string, emails: string[]) {
   await upload(team.agents.editor, `${base(studyId)}/import`, csv(text)).expect(201);
 }
 
+/** The invitee with `email` follows the unsubscribe link of their invitation. */
+async function unsubscribe(email: string) {
+  const { token } = (await getInviteeRow(t.deps.db, email))!;
+  await t.request().post(`/api/unsubscribe/${token}`).expect(200);
+}
+
 describe('POST /invitees/preview', () => {
   it('when the file is valid, returns counts, the column mapping and a sample, and saves nothing', async () => {
     const { studyId } = await insertStudy(t.deps.db, { teamId: team.teamId });
@@ -260,9 +266,7 @@ describe('GET /invitees', () => {
     const c = (await getInviteeRow(t.deps.db, emails[2]))!;
     await t.deps.db.update(invitees).set({ invitedAt: new Date() }).where(eq(invitees.id, c.id));
     await insertRespondent(t.deps.db, { studyId, versionId, inviteeId: c.id });
-    await t
-      .request()
-      .post(`/api/unsubscribe/${(await getInviteeRow(t.deps.db, emails[3]))!.token}`);
+    await unsubscribe(emails[3]);
 
     const res = await team.agents.analyst.get(base(studyId)).expect(200);
     expect(res.body.total).toBe(4);
@@ -394,20 +398,14 @@ describe('unsubscribe', () => {
     const early = uniqueEmail('early');
     const late = uniqueEmail('late');
     await importList(studyId, [early, late]);
-    await t
-      .request()
-      .post(`/api/unsubscribe/${(await getInviteeRow(t.deps.db, early))!.token}`)
-      .expect(200);
+    await unsubscribe(early);
     const sent = await team.agents.editor
       .post(`${base(studyId)}/send`)
       .send({})
       .expect(200);
     expect(sent.body.sent).toBe(1);
     await waitForMailTo(late);
-    await t
-      .request()
-      .post(`/api/unsubscribe/${(await getInviteeRow(t.deps.db, late))!.token}`)
-      .expect(200);
+    await unsubscribe(late);
     const reminded = await team.agents.editor
       .post(`${base(studyId)}/remind`)
       .send({})

@@ -11,6 +11,7 @@ import type { Design } from '../../../shared/schemas/design';
 import type { Questionnaire } from '../../../shared/schemas/questionnaire';
 import { demoQuestionnaire } from '../../../shared/schemas/questionnaire-defaults';
 import type { AnswerValue, SubmitAnswerInput } from '../../../shared/schemas/respondent';
+import { requiredSingleQuestion } from '../../../shared/schemas/required-single-question';
 
 export const definition = makeStudyDefinition();
 
@@ -57,17 +58,10 @@ export function fullQuestionnaire(): Questionnaire {
       {
         id: 'adult',
         kind: 'screening',
-        question: {
-          type: 'single',
-          key: 'adult',
-          text: 'Are you 18 or older?',
-          help: '',
-          required: true,
-          options: [
-            { id: 'yes', label: 'Yes' },
-            { id: 'no', label: 'No' },
-          ],
-        },
+        question: requiredSingleQuestion('adult', 'Are you 18 or older?', [
+          { id: 'yes', label: 'Yes' },
+          { id: 'no', label: 'No' },
+        ]),
         screenOutOptionIds: ['no'],
         acceptMin: null,
         acceptMax: null,

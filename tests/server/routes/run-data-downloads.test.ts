@@ -14,11 +14,9 @@ import { loadStudyChoiceData } from '../../../server/services/choice-data-from-s
 import { hashChoiceData } from '../../../server/services/estimation/long-format';
 import { RUN_DATA_ORDER } from '../../../shared/schemas/run';
 import { useTestApp } from '../../support/test-app';
-import { ageBand, makeResults, seedTastesStudy, spec } from './tastes-fixture';
+import { ageBand, makeResults, useTastesStudy, spec } from './tastes-fixture';
 
 const t = useTestApp({}, { signIn: 'team' });
-let seeded: Awaited<ReturnType<typeof seedTastesStudy>>;
-let base: string;
 let filteredRunId: string;
 let filterId: string;
 /** Respondents whose ids sort opposite to their numbers (they started in this order). */
@@ -29,14 +27,14 @@ const late = [
 ];
 const keys = spec.coefficients.map((c) => c.column);
 
+const study = useTastesStudy(t, 'exports');
+
 beforeAll(async () => {
-  seeded = await seedTastesStudy(t.deps.db, t.team.teamId);
-  base = `/api/teams/${t.team.teamId}/studies/${seeded.studyId}/exports`;
   const db = t.deps.db;
   [{ id: filterId }] = await db
     .insert(respondentFilters)
     .values({
-      studyId: seeded.studyId,
+      studyId: study.studyId,
       name: 'Aged 35–64',
       definition: { conditions: [{ question: 'age_band', values: ['a35'] }] },
     })
@@ -44,7 +42,7 @@ beforeAll(async () => {
   [{ id: filteredRunId }] = await db
     .insert(runs)
     .values({
-      studyId: seeded.studyId,
+      studyId: study.studyId,
       teamId: t.team.teamId,
       name: 'Mixed logit, aged 35–64',
       model: 'mixed',
@@ -63,8 +61,8 @@ beforeAll(async () => {
   for (const [i, id] of late.entries()) {
     await insertRespondentRow(db, {
       id,
-      studyId: seeded.studyId,
-      versionId: seeded.versionId,
+      studyId: study.studyId,
+      versionId: study.versionId,
       plan: { seed: 20 + i, block: 1, taskOrder: [1, 2], positions: {} },
       startedAt: new Date(Date.UTC(2026, 0, 2, 9, i)),
       answers: [
@@ -92,7 +90,7 @@ beforeAll(async () => {
     const revision = (screenKey: string, n: number, answered: number, replaced: number) => ({
       answerId: answerOf(screenKey),
       respondentId: id,
-      studyId: seeded.studyId,
+      studyId: study.studyId,
       screenKey,
       clientId: `${id}-${screenKey}-${n}`,
       taskNumber: screenKey === 'task:1' ? 1 : null,
@@ -119,15 +117,15 @@ const rowsOf = (text: string) => parse(text, { columns: true }) as Record<string
 describe('GET /exports/choices.csv?runId= of a run fitted on a saved filter', () => {
   it("holds exactly the run's respondents and rows, hashing to the run's data", async () => {
     const res = await t.team.agents.analyst
-      .get(`${base}/choices.csv`)
+      .get(`${study.base}/choices.csv`)
       .query({ runId: filteredRunId })
       .expect(200);
     const rows = rowsOf(res.text);
     // The filter keeps age band a35: respondents 4 to 6 of the fixture (ageBand).
-    const kept = seeded.respondentIds.filter((_, i) => ageBand[i] === 'a35');
+    const kept = study.respondentIds.filter((_, i) => ageBand[i] === 'a35');
     expect([...new Set(rows.map((r) => r.respondent))]).toEqual(kept);
     const used = await loadStudyChoiceData(t.deps.db, {
-      studyId: seeded.studyId,
+      studyId: study.studyId,
       filterId,
       order: RUN_DATA_ORDER,
     });
@@ -137,24 +135,24 @@ describe('GET /exports/choices.csv?runId= of a run fitted on a saved filter', ()
 
   it('without a filter, still holds every included respondent', async () => {
     const res = await t.team.agents.analyst
-      .get(`${base}/choices.csv`)
-      .query({ runId: seeded.runId })
+      .get(`${study.base}/choices.csv`)
+      .query({ runId: study.runId })
       .expect(200);
     const ids = new Set(rowsOf(res.text).map((r) => r.respondent));
-    expect(ids).toEqual(new Set([...seeded.respondentIds, ...late]));
+    expect(ids).toEqual(new Set([...study.respondentIds, ...late]));
   });
 });
 
 describe('GET /exports/answer-history.csv', () => {
   it('lists respondents in respondent-number order, not by id', async () => {
-    const res = await t.team.agents.analyst.get(`${base}/answer-history.csv`).expect(200);
+    const res = await t.team.agents.analyst.get(`${study.base}/answer-history.csv`).expect(200);
     const rows = rowsOf(res.text);
     expect([...new Set(rows.map((r) => r.respondent))]).toEqual(late);
     expect([...new Set(rows.map((r) => r.number))]).toEqual(['7', '8', '9']);
   });
 
   it('orders each respondent’s rows by screen, then oldest first, the current answer last', async () => {
-    const res = await t.team.agents.analyst.get(`${base}/answer-history.csv`).expect(200);
+    const res = await t.team.agents.analyst.get(`${study.base}/answer-history.csv`).expect(200);
     const ofFirst = rowsOf(res.text).filter((r) => r.respondent === late[0]);
     expect(ofFirst.map((r) => [r.screen, r.version, r.current])).toEqual([
       ['q:age_band', '1', 'false'],
@@ -168,7 +166,7 @@ describe('GET /exports/answer-history.csv', () => {
   it('gives the same bytes on every download', async () => {
     const get = () =>
       t.team.agents.analyst
-        .get(`${base}/answer-history.csv`)
+        .get(`${study.base}/answer-history.csv`)
         .expect(200)
         .then((r) => r.text);
     const first = await get();
@@ -178,7 +176,7 @@ describe('GET /exports/answer-history.csv', () => {
 
 describe('GET /exports/background-answers.csv', () => {
   it('lists the revised screens of each respondent in one fixed order', async () => {
-    const res = await t.team.agents.analyst.get(`${base}/background-answers.csv`).expect(200);
+    const res = await t.team.agents.analyst.get(`${study.base}/background-answers.csv`).expect(200);
     const mine = rowsOf(res.text).filter((r) => late.includes(r.respondent));
     expect(mine.map((r) => r.respondent)).toEqual(late);
     for (const r of mine) expect(r.revised_screens).toBe('q:age_band ×1; task:1 ×2');

@@ -4,31 +4,27 @@
  * respondents can identify. Feasible runs of the same study are still queued (membership
  * questions: run-membership.test.ts).
  */
-import { beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { and, eq, gt } from 'drizzle-orm';
 import { useTestApp } from '../../support/test-app';
 import { answers } from '../../../db/schema/fieldwork';
-import { FIXED_COEFFICIENTS, seedRunStudy, type SeededStudy } from '../jobs/run-fixtures';
+import { FIXED_COEFFICIENTS, useRunStudy } from '../jobs/run-fixtures';
 
 const t = useTestApp({}, { signIn: 'team', recordJobs: true });
-let study: SeededStudy;
-let base: string;
 
 const coefficients = FIXED_COEFFICIENTS;
 
-beforeAll(async () => {
-  // 15 completed respondents with 8 design tasks each.
-  study = await seedRunStudy(t.deps.db, { teamId: t.team.teamId, respondents: 15 });
-  base = `/api/teams/${t.team.teamId}/studies/${study.studyId}/runs`;
-}, 120_000);
+// 15 completed respondents with 8 design tasks each.
+const study = useRunStudy(t, 15, 120_000);
 
-const listRuns = async () => (await t.team.agents.viewer.get(base).expect(200)).body as unknown[];
+const listRuns = async () =>
+  (await t.team.agents.viewer.get(study.base).expect(200)).body as unknown[];
 
 describe('latent class: classes the data can identify', () => {
   it('refuses 2 classes for 15 respondents (at least 10 per class) on the classes field', async () => {
     const before = (await listRuns()).length;
     const res = await t.team.agents.analyst
-      .post(base)
+      .post(study.base)
       .send({ spec: { model: 'latent_class', coefficients, classes: [1, 2] } })
       .expect(400);
     expect(res.body.error.code).toBe('too_little_data');
@@ -42,7 +38,7 @@ describe('latent class: classes the data can identify', () => {
 
   it('queues one class of the same study', async () => {
     await t.team.agents.analyst
-      .post(base)
+      .post(study.base)
       .send({ spec: { model: 'latent_class', coefficients, classes: 1 } })
       .expect(201);
     expect(t.sent).toHaveLength(1);
@@ -60,7 +56,7 @@ describe('hierarchical Bayes: choice tasks per respondent', () => {
   };
 
   it('queues HB when every respondent has 8 tasks', async () => {
-    await t.team.agents.analyst.post(base).send({ spec: hb }).expect(201);
+    await t.team.agents.analyst.post(study.base).send({ spec: hb }).expect(201);
     expect(t.sent).toHaveLength(1);
   });
 
@@ -75,7 +71,7 @@ describe('hierarchical Bayes: choice tasks per respondent', () => {
     await t.deps.db
       .delete(answers)
       .where(and(eq(answers.respondentId, id), gt(answers.taskNumber, tasks[1])));
-    const res = await t.team.agents.analyst.post(base).send({ spec: hb }).expect(400);
+    const res = await t.team.agents.analyst.post(study.base).send({ spec: hb }).expect(400);
     expect(res.body.error.code).toBe('too_little_data');
     expect(res.body.error.fields[0].path).toBe('spec.model');
     expect(res.body.error.message).toMatch(

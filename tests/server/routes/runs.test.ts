@@ -1,13 +1,11 @@
-import { beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type supertest from 'supertest';
 import { useTestApp } from '../../support/test-app';
 import type { Role } from '../../../shared/permissions';
 import { listRuns } from '../../../db/queries/runs';
-import { seedRunStudy, seedTapFilter, type SeededStudy } from '../jobs/run-fixtures';
+import { seedTapFilter, useRunStudy } from '../jobs/run-fixtures';
 
 const t = useTestApp({}, { signIn: 'team', recordJobs: true });
-let study: SeededStudy;
-let base: string;
 
 const mnlSpec = {
   model: 'mnl',
@@ -19,13 +17,10 @@ const mnlSpec = {
   cost: 'bill',
 };
 
-beforeAll(async () => {
-  study = await seedRunStudy(t.deps.db, { teamId: t.team.teamId, respondents: 6 });
-  base = `/api/teams/${t.team.teamId}/studies/${study.studyId}/runs`;
-});
+const study = useRunStudy(t, 6);
 
 const start = (agent: supertest.Agent, body: object = { spec: mnlSpec }) =>
-  agent.post(base).send(body);
+  agent.post(study.base).send(body);
 
 describe('POST /runs', () => {
   it.each<Role>(['owner', 'analyst'])(
@@ -152,15 +147,15 @@ describe('GET /runs, GET /runs/:runId and GET /runs/options', () => {
     'as %s, lists and reads runs',
     async (role) => {
       const created = await start(t.team.agents.analyst).expect(201);
-      const list = await t.team.agents[role].get(base).expect(200);
+      const list = await t.team.agents[role].get(study.base).expect(200);
       expect(list.body.map((r: { id: string }) => r.id)).toContain(created.body.id);
-      const one = await t.team.agents[role].get(`${base}/${created.body.id}`).expect(200);
+      const one = await t.team.agents[role].get(`${study.base}/${created.body.id}`).expect(200);
       expect(one.body).toMatchObject({ id: created.body.id, status: 'queued', progress: {} });
     },
   );
 
   it('lists the coded columns, respondent count and filters for the form', async () => {
-    const res = await t.team.agents.viewer.get(`${base}/options`).expect(200);
+    const res = await t.team.agents.viewer.get(`${study.base}/options`).expect(200);
     expect(res.body.includedRespondents).toBe(6);
     expect(res.body.columns[0]).toEqual({
       key: 'attr:bill',
@@ -175,12 +170,14 @@ describe('GET /runs, GET /runs/:runId and GET /runs/options', () => {
 
   it('for someone outside the team, returns 404 for the list and the run', async () => {
     const created = await start(t.team.agents.analyst).expect(201);
-    await t.team.outsider.get(base).expect(404);
-    await t.team.outsider.get(`${base}/${created.body.id}`).expect(404);
+    await t.team.outsider.get(study.base).expect(404);
+    await t.team.outsider.get(`${study.base}/${created.body.id}`).expect(404);
   });
 
   it('for an unknown run, returns 404', async () => {
-    await t.team.agents.viewer.get(`${base}/00000000-0000-4000-8000-000000000000`).expect(404);
+    await t.team.agents.viewer
+      .get(`${study.base}/00000000-0000-4000-8000-000000000000`)
+      .expect(404);
   });
 });
 
@@ -189,28 +186,32 @@ describe('POST /runs/:runId/cancel', () => {
     'as %s, returns 403 and leaves the run queued',
     async (role) => {
       const created = await start(t.team.agents.analyst).expect(201);
-      await t.team.agents[role].post(`${base}/${created.body.id}/cancel`).expect(403);
-      const one = await t.team.agents.viewer.get(`${base}/${created.body.id}`).expect(200);
+      await t.team.agents[role].post(`${study.base}/${created.body.id}/cancel`).expect(403);
+      const one = await t.team.agents.viewer.get(`${study.base}/${created.body.id}`).expect(200);
       expect(one.body.status).toBe('queued');
     },
   );
 
   it.each<Role>(['owner', 'analyst'])('as %s, cancels a queued run at once', async (role) => {
     const created = await start(t.team.agents.analyst).expect(201);
-    const res = await t.team.agents[role].post(`${base}/${created.body.id}/cancel`).expect(200);
+    const res = await t.team.agents[role]
+      .post(`${study.base}/${created.body.id}/cancel`)
+      .expect(200);
     expect(res.body).toMatchObject({ status: 'cancelled', cancelRequested: true });
   });
 
   it('when the run has finished, returns 409', async () => {
     const created = await start(t.team.agents.analyst).expect(201);
-    await t.team.agents.analyst.post(`${base}/${created.body.id}/cancel`).expect(200);
-    const res = await t.team.agents.analyst.post(`${base}/${created.body.id}/cancel`).expect(409);
+    await t.team.agents.analyst.post(`${study.base}/${created.body.id}/cancel`).expect(200);
+    const res = await t.team.agents.analyst
+      .post(`${study.base}/${created.body.id}/cancel`)
+      .expect(409);
     expect(res.body.error.code).toBe('run_finished');
   });
 
   it('for someone outside the team, returns 404', async () => {
     const created = await start(t.team.agents.analyst).expect(201);
-    await t.team.outsider.post(`${base}/${created.body.id}/cancel`).expect(404);
+    await t.team.outsider.post(`${study.base}/${created.body.id}/cancel`).expect(404);
   });
 });
 
@@ -219,27 +220,27 @@ describe('POST /runs/filters', () => {
     'as %s, saves a filter the form then offers',
     async (role) => {
       const res = await t.team.agents[role]
-        .post(`${base}/filters`)
+        .post(`${study.base}/filters`)
         .send({
           name: `Large households ${role}`,
           definition: { conditions: [{ question: 'household_size', values: [4, 5] }] },
         })
         .expect(201);
-      const options = await t.team.agents.viewer.get(`${base}/options`).expect(200);
+      const options = await t.team.agents.viewer.get(`${study.base}/options`).expect(200);
       expect(options.body.filters).toContainEqual({ id: res.body.id, name: res.body.name });
     },
   );
 
   it.each<Role>(['editor', 'viewer'])('as %s, returns 403', async (role) => {
     await t.team.agents[role]
-      .post(`${base}/filters`)
+      .post(`${study.base}/filters`)
       .send({ name: 'x', definition: { respondentIds: ['a'] } })
       .expect(403);
   });
 
   it('when the filter is empty, returns 400 with the field', async () => {
     const res = await t.team.agents.analyst
-      .post(`${base}/filters`)
+      .post(`${study.base}/filters`)
       .send({ name: '', definition: {} })
       .expect(400);
     const paths = res.body.error.fields.map((f: { path: string }) => f.path);

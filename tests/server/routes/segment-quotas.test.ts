@@ -10,6 +10,7 @@ import { useTestApp } from '../../support/test-app';
 import { respondents } from '../../../db/schema/fieldwork';
 import type { Questionnaire, QuotaCell } from '../../../shared/schemas/questionnaire';
 import { answerFor, fullQuestionnaire, insertStudy } from './respond-fixtures';
+import { requiredSingleQuestion } from '../../../shared/schemas/required-single-question';
 
 const t = useTestApp({}, { signIn: 'owner' });
 
@@ -26,18 +27,11 @@ function withAgeQuotas(cells: Partial<QuotaCell>[]): Questionnaire {
       p.kind === 'screening'
         ? {
             ...p,
-            question: {
-              type: 'single' as const,
-              key: 'adult',
-              text: 'Your age group?',
-              help: '',
-              required: true,
-              options: [
-                { id: 'no', label: 'Under 18' },
-                { id: 'young', label: '18 to 39' },
-                { id: 'older', label: '40 or older' },
-              ],
-            },
+            question: requiredSingleQuestion('adult', 'Your age group?', [
+              { id: 'no', label: 'Under 18' },
+              { id: 'young', label: '18 to 39' },
+              { id: 'older', label: '40 or older' },
+            ]),
             screenOutOptionIds: ['no'],
             quotaCells: cells.map((c, i) => ({
               id: `c${i}`,

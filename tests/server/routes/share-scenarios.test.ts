@@ -1,15 +1,10 @@
 /** Saved share scenarios: CRUD per role, bad input (status, code, message, field), tenancy. */
-import { beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { useTestApp } from '../../support/test-app';
-import { scenarioLevels, seedTastesStudy } from './tastes-fixture';
+import { scenarioLevels, useTastesStudy } from './tastes-fixture';
 
 const t = useTestApp({}, { signIn: 'team' });
-let url: string;
-
-beforeAll(async () => {
-  const seeded = await seedTastesStudy(t.deps.db, t.team.teamId);
-  url = `/api/teams/${t.team.teamId}/studies/${seeded.studyId}/shares/scenarios`;
-});
+const study = useTastesStudy(t, 'shares/scenarios');
 
 const body = (name: string, river = 'good') => ({
   name,
@@ -24,7 +19,7 @@ describe('POST /shares/scenarios', () => {
   it('saves a named scenario for owners, editors and analysts; every role reads it', async () => {
     for (const role of ['owner', 'editor', 'analyst'] as const) {
       const res = await t.team.agents[role]
-        .post(url)
+        .post(study.base)
         .send(body(`By ${role}`))
         .expect(201);
       expect(res.body).toMatchObject({
@@ -34,7 +29,7 @@ describe('POST /shares/scenarios', () => {
       });
       expect(res.body.createdBy).toEqual(expect.any(String));
     }
-    const list = await t.team.agents.viewer.get(url).expect(200);
+    const list = await t.team.agents.viewer.get(study.base).expect(200);
     expect(list.body.map((s: { name: string }) => s.name)).toEqual([
       'By analyst',
       'By editor',
@@ -43,9 +38,9 @@ describe('POST /shares/scenarios', () => {
   });
 
   it('when a viewer saves, returns 403 and stores nothing', async () => {
-    const res = await t.team.agents.viewer.post(url).send(body('Viewer try')).expect(403);
+    const res = await t.team.agents.viewer.post(study.base).send(body('Viewer try')).expect(403);
     expect(res.body.error.code).toBe('forbidden');
-    const list = await t.team.agents.viewer.get(url).expect(200);
+    const list = await t.team.agents.viewer.get(study.base).expect(200);
     expect(list.body.map((s: { name: string }) => s.name)).not.toContain('Viewer try');
   });
 
@@ -69,19 +64,19 @@ describe('POST /shares/scenarios', () => {
   ])(
     'when the body is invalid (%#), returns 400 naming %s and stores nothing',
     async (bad, field, message) => {
-      const before = (await t.team.agents.owner.get(url).expect(200)).body.length;
-      const res = await t.team.agents.owner.post(url).send(bad).expect(400);
+      const before = (await t.team.agents.owner.get(study.base).expect(200)).body.length;
+      const res = await t.team.agents.owner.post(study.base).send(bad).expect(400);
       expect(res.body.error.code).toBe('invalid_input');
       expect(res.body.error.message).toEqual(expect.any(String));
       const issue = res.body.error.fields.find((f: { path: string }) => f.path === field);
       expect(issue?.message).toContain(message);
-      expect((await t.team.agents.owner.get(url).expect(200)).body.length).toBe(before);
+      expect((await t.team.agents.owner.get(study.base).expect(200)).body.length).toBe(before);
     },
   );
 
   it('when the name is taken, returns 409 naming the field', async () => {
-    await t.team.agents.owner.post(url).send(body('Twice')).expect(201);
-    const res = await t.team.agents.editor.post(url).send(body('Twice')).expect(409);
+    await t.team.agents.owner.post(study.base).send(body('Twice')).expect(201);
+    const res = await t.team.agents.editor.post(study.base).send(body('Twice')).expect(409);
     expect(res.body.error).toMatchObject({
       code: 'scenario_name_taken',
       fields: [{ path: 'name', message: 'Choose another name' }],
@@ -89,38 +84,42 @@ describe('POST /shares/scenarios', () => {
   });
 
   it('returns 404 to another team and 401 without a session', async () => {
-    await t.team.outsider.post(url).send(body('Outsider')).expect(404);
-    await t.team.outsider.get(url).expect(404);
-    await t.request().post(url).send(body('Anonymous')).expect(401);
+    await t.team.outsider.post(study.base).send(body('Outsider')).expect(404);
+    await t.team.outsider.get(study.base).expect(404);
+    await t.request().post(study.base).send(body('Anonymous')).expect(401);
   });
 });
 
 describe('PUT and DELETE /shares/scenarios/:scenarioId', () => {
   it('renames and edits for writers; a viewer gets 403 and nothing changes', async () => {
-    const saved = (await t.team.agents.analyst.post(url).send(body('Draft A')).expect(201)).body;
-    await t.team.agents.viewer.put(`${url}/${saved.id}`).send(body('Viewer rename')).expect(403);
+    const saved = (await t.team.agents.analyst.post(study.base).send(body('Draft A')).expect(201))
+      .body;
+    await t.team.agents.viewer
+      .put(`${study.base}/${saved.id}`)
+      .send(body('Viewer rename'))
+      .expect(403);
     const res = await t.team.agents.editor
-      .put(`${url}/${saved.id}`)
+      .put(`${study.base}/${saved.id}`)
       .send({ ...body('Final A', 'fair'), includeFixed: false })
       .expect(200);
     expect(res.body).toMatchObject({ id: saved.id, name: 'Final A', includeFixed: false });
     expect(res.body.alternatives[0].levels.river).toBe('fair');
-    await t.team.agents.viewer.delete(`${url}/${saved.id}`).expect(403);
-    await t.team.agents.owner.delete(`${url}/${saved.id}`).expect(204);
-    await t.team.agents.owner.delete(`${url}/${saved.id}`).expect(404);
-    await t.team.agents.owner.put(`${url}/${saved.id}`).send(body('Gone')).expect(404);
+    await t.team.agents.viewer.delete(`${study.base}/${saved.id}`).expect(403);
+    await t.team.agents.owner.delete(`${study.base}/${saved.id}`).expect(204);
+    await t.team.agents.owner.delete(`${study.base}/${saved.id}`).expect(404);
+    await t.team.agents.owner.put(`${study.base}/${saved.id}`).send(body('Gone')).expect(404);
   });
 
   it('when the scenario id is not a uuid, returns 400 naming scenarioId', async () => {
-    const res = await t.team.agents.owner.put(`${url}/nope`).send(body('X')).expect(400);
+    const res = await t.team.agents.owner.put(`${study.base}/nope`).send(body('X')).expect(400);
     expect(res.body.error.fields.map((f: { path: string }) => f.path)).toEqual(['scenarioId']);
   });
 
   it('when a rename takes another scenario’s name, returns 409 and keeps both', async () => {
-    await t.team.agents.owner.post(url).send(body('Keep 1')).expect(201);
-    const two = (await t.team.agents.owner.post(url).send(body('Keep 2')).expect(201)).body;
-    await t.team.agents.owner.put(`${url}/${two.id}`).send(body('Keep 1')).expect(409);
-    const names = (await t.team.agents.owner.get(url).expect(200)).body.map(
+    await t.team.agents.owner.post(study.base).send(body('Keep 1')).expect(201);
+    const two = (await t.team.agents.owner.post(study.base).send(body('Keep 2')).expect(201)).body;
+    await t.team.agents.owner.put(`${study.base}/${two.id}`).send(body('Keep 1')).expect(409);
+    const names = (await t.team.agents.owner.get(study.base).expect(200)).body.map(
       (s: { name: string }) => s.name,
     );
     expect(names).toEqual(expect.arrayContaining(['Keep 1', 'Keep 2']));

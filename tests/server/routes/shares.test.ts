@@ -1,4 +1,4 @@
-import { beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import ExcelJS from 'exceljs';
 import { parse } from 'csv-parse/sync';
 import {
@@ -11,18 +11,13 @@ import {
   N,
   riverGood,
   scenarioLevels,
-  seedTastesStudy,
+  useTastesStudy,
   taskOneChoice,
 } from './tastes-fixture';
 
 const t = useTestApp({}, { signIn: 'team' });
-let seeded: Awaited<ReturnType<typeof seedTastesStudy>>;
-let url: string;
 
-beforeAll(async () => {
-  seeded = await seedTastesStudy(t.deps.db, t.team.teamId);
-  url = `/api/teams/${t.team.teamId}/studies/${seeded.studyId}/shares/simulate`;
-});
+const study = useTastesStudy(t, 'shares/simulate');
 
 const levels = scenarioLevels;
 
@@ -30,9 +25,9 @@ describe('POST /shares/simulate', () => {
   it('gives two identical packages equal shares (every role may simulate)', async () => {
     for (const role of ['owner', 'editor', 'analyst', 'viewer'] as const) {
       const res = await t.team.agents[role]
-        .post(url)
+        .post(study.base)
         .send({
-          runId: seeded.runId,
+          runId: study.runId,
           includeFixed: false,
           alternatives: [
             { name: 'A', levels: levels('good') },
@@ -56,9 +51,9 @@ describe('POST /shares/simulate', () => {
     // Only river health differs (good vs fair; the run has no fair coefficient, so it codes
     // as 0): P_n(good) = 1/(1+exp(−β_n)) with β_n = n (logit formula), averaged over n.
     const res = await t.team.agents.viewer
-      .post(url)
+      .post(study.base)
       .send({
-        runId: seeded.runId,
+        runId: study.runId,
         includeFixed: false,
         alternatives: [
           { name: 'Good river', levels: levels('good') },
@@ -74,9 +69,9 @@ describe('POST /shares/simulate', () => {
 
   it('adds the status quo with its constant and splits shares by segment', async () => {
     const res = await t.team.agents.analyst
-      .post(url)
+      .post(study.base)
       .send({
-        runId: seeded.runId,
+        runId: study.runId,
         alternatives: [
           { name: 'A', levels: levels('good', 'b10') },
           { name: 'B', levels: levels('poor', 'b0') },
@@ -154,37 +149,37 @@ describe('POST /shares/simulate', () => {
     ],
   ])('when the body is %o, returns 400 naming %s', async (body, field) => {
     const res = await t.team.agents.analyst
-      .post(url)
-      .send({ runId: seeded.runId, ...body })
+      .post(study.base)
+      .send({ runId: study.runId, ...body })
       .expect(400);
     expect(res.body.error.fields.map((f: { path: string }) => f.path)).toContain(field);
   });
 
   it('returns 404 to an outsider, 401 without a session and 409 for an unfinished run', async () => {
     const body = {
-      runId: seeded.runId,
+      runId: study.runId,
       alternatives: [
         { name: 'A', levels: levels('good') },
         { name: 'B', levels: levels('fair') },
       ],
     };
-    await t.team.outsider.post(url).send(body).expect(404);
-    await t.request().post(url).send(body).expect(401);
+    await t.team.outsider.post(study.base).send(body).expect(404);
+    await t.request().post(study.base).send(body).expect(401);
     await t.team.agents.analyst
-      .post(url)
-      .send({ ...body, runId: seeded.runningRunId })
+      .post(study.base)
+      .send({ ...body, runId: study.runningRunId })
       .expect(409);
   });
 });
 
 describe('GET /shares/model', () => {
-  const modelUrl = () => url.replace(/simulate$/, 'model');
+  const modelUrl = () => study.base.replace(/simulate$/, 'model');
 
   it('sends every role the respondents’ conditional means and SDs, in coefficient order', async () => {
     for (const role of ['owner', 'editor', 'analyst', 'viewer'] as const) {
       const res = await t.team.agents[role]
         .get(modelUrl())
-        .query({ runId: seeded.runId })
+        .query({ runId: study.runId })
         .expect(200);
       const m = res.body;
       expect(m.method).toBe('conditional_means');
@@ -203,7 +198,7 @@ describe('GET /shares/model', () => {
         expect(m.sds[n * K + river]).toBeCloseTo(0.5 + n / 10, 14);
       }
       // No respondent ids leave the server: the model is numbers in a fixed order.
-      expect(JSON.stringify(m)).not.toContain(seeded.respondentIds[0]);
+      expect(JSON.stringify(m)).not.toContain(study.respondentIds[0]);
     }
   });
 
@@ -214,23 +209,23 @@ describe('GET /shares/model', () => {
   });
 
   it('returns 404 to an outsider, 401 without a session and 409 for an unfinished run', async () => {
-    await t.team.outsider.get(modelUrl()).query({ runId: seeded.runId }).expect(404);
-    await t.request().get(modelUrl()).query({ runId: seeded.runId }).expect(401);
+    await t.team.outsider.get(modelUrl()).query({ runId: study.runId }).expect(404);
+    await t.request().get(modelUrl()).query({ runId: study.runId }).expect(401);
     const res = await t.team.agents.viewer
       .get(modelUrl())
-      .query({ runId: seeded.runningRunId })
+      .query({ runId: study.runningRunId })
       .expect(409);
     expect(res.body.error.code).toBe('run_not_finished');
   });
 });
 
 describe('GET /shares/groups', () => {
-  const groupsUrl = () => url.replace(/simulate$/, 'groups');
+  const groupsUrl = () => study.base.replace(/simulate$/, 'groups');
 
   it('groups the model’s respondents by the alternative chosen in a task', async () => {
     const res = await t.team.agents.viewer
       .get(groupsUrl())
-      .query({ runId: seeded.runId, groupBy: 'task', task: 1 })
+      .query({ runId: study.runId, groupBy: 'task', task: 1 })
       .expect(200);
     expect(res.body.label).toBe('Choice in task 1');
     // Same order as the model's respondents; the status quo's key is −1.
@@ -248,7 +243,7 @@ describe('GET /shares/groups', () => {
   ])('when the query is %o, returns 400 naming %s', async (query, field, code) => {
     const res = await t.team.agents.analyst
       .get(groupsUrl())
-      .query({ runId: seeded.runId, ...query })
+      .query({ runId: study.runId, ...query })
       .expect(400);
     expect(res.body.error.code).toBe(code);
     expect(res.body.error.message).toEqual(expect.any(String));
@@ -257,8 +252,8 @@ describe('GET /shares/groups', () => {
 });
 
 describe('POST /shares/export', () => {
-  const exportUrl = () => url.replace(/simulate$/, 'export');
-  const modelUrl = () => url.replace(/simulate$/, 'model');
+  const exportUrl = () => study.base.replace(/simulate$/, 'export');
+  const modelUrl = () => study.base.replace(/simulate$/, 'model');
   const scenario = {
     alternatives: [
       { name: 'A', alternative: 0, levels: levels('good', 'b10') },
@@ -274,12 +269,12 @@ describe('POST /shares/export', () => {
 
   it('writes the shares the browser computes from the share model (one implementation)', async () => {
     const model = (
-      await t.team.agents.viewer.get(modelUrl()).query({ runId: seeded.runId }).expect(200)
+      await t.team.agents.viewer.get(modelUrl()).query({ runId: study.runId }).expect(200)
     ).body;
     const expected = computeScenarioShares(prepareShareModel(model), scenario);
     const res = await t.team.agents.viewer
       .post(exportUrl())
-      .send({ runId: seeded.runId, ...scenario, format: 'csv' })
+      .send({ runId: study.runId, ...scenario, format: 'csv' })
       .expect(200);
     expect(res.headers['content-type']).toMatch(/^text\/csv/);
     expect(res.headers['content-disposition']).toMatch(/shares-\d{4}-\d{2}-\d{2}\.csv"$/);
@@ -297,7 +292,7 @@ describe('POST /shares/export', () => {
     const sweep = { alternative: 0, attributeId: 'bill', points: 16 };
     const csv = await t.team.agents.analyst
       .post(exportUrl())
-      .send({ runId: seeded.runId, ...scenario, sweep, format: 'csv' })
+      .send({ runId: study.runId, ...scenario, sweep, format: 'csv' })
       .expect(200);
     expect(csv.headers['content-disposition']).toMatch(/demand-curve-/);
     const curve = parse(csv.text, { columns: true }) as Record<string, string>[];
@@ -308,7 +303,7 @@ describe('POST /shares/export', () => {
     const xlsx = await t.team.agents.owner
       .post(exportUrl())
       .send({
-        runId: seeded.runId,
+        runId: study.runId,
         ...scenario,
         name: 'River first',
         sweep,
@@ -345,7 +340,7 @@ describe('POST /shares/export', () => {
   ])('when the body adds %o, returns 400 naming %s', async (extra, field) => {
     const res = await t.team.agents.analyst
       .post(exportUrl())
-      .send({ runId: seeded.runId, ...scenario, ...extra })
+      .send({ runId: study.runId, ...scenario, ...extra })
       .expect(400);
     expect(res.body.error.code).toBe('invalid_input');
     expect(res.body.error.message).toEqual(expect.any(String));
@@ -353,7 +348,7 @@ describe('POST /shares/export', () => {
   });
 
   it('returns 404 to an outsider and 401 without a session', async () => {
-    const body = { runId: seeded.runId, ...scenario, format: 'csv' };
+    const body = { runId: study.runId, ...scenario, format: 'csv' };
     await t.team.outsider.post(exportUrl()).send(body).expect(404);
     await t.request().post(exportUrl()).send(body).expect(401);
   });

@@ -8,6 +8,7 @@ import { parse } from 'csv-parse/sync';
 import { useTestApp } from '../../support/test-app';
 import type { Questionnaire, QuestionnairePage } from '../../../shared/schemas/questionnaire';
 import { answerFor, fullQuestionnaire, insertStudy } from './respond-fixtures';
+import { requiredSingleQuestion } from '../../../shared/schemas/required-single-question';
 
 const t = useTestApp({}, { signIn: 'owner' });
 const TOKEN = 'x-respondent-token';
@@ -17,17 +18,10 @@ type Session = { sessionToken: string; screens: Screen[]; given: Record<string, 
 const garden: QuestionnairePage = {
   id: 'garden',
   kind: 'question',
-  question: {
-    type: 'single',
-    key: 'garden',
-    text: 'Does your home have a garden?',
-    help: '',
-    required: true,
-    options: [
-      { id: 'yes', label: 'Yes' },
-      { id: 'no', label: 'No' },
-    ],
-  },
+  question: requiredSingleQuestion('garden', 'Does your home have a garden?', [
+    { id: 'yes', label: 'Yes' },
+    { id: 'no', label: 'No' },
+  ]),
 };
 const watering: QuestionnairePage = {
   id: 'watering',

@@ -10,11 +10,9 @@ import { and, count, eq, isNotNull } from 'drizzle-orm';
 import { useTestApp } from '../../support/test-app';
 import { answers, respondents } from '../../../db/schema/fieldwork';
 import { parseChoiceCsv } from '../../../server/engine/estimation/parse-choice-csv';
-import { N, seedTastesStudy } from './tastes-fixture';
+import { N, useTastesStudy } from './tastes-fixture';
 
 const t = useTestApp({}, { signIn: 'team' });
-let seeded: Awaited<ReturnType<typeof seedTastesStudy>>;
-let base: string;
 const extra: Record<'screenedWithTask' | 'excluded' | 'screenedEarly', string> = {
   screenedWithTask: '',
   excluded: '',
@@ -23,9 +21,9 @@ const extra: Record<'screenedWithTask' | 'excluded' | 'screenedEarly', string> =
 
 const token = () => randomBytes(16).toString('hex');
 
+const study = useTastesStudy(t, 'exports');
+
 beforeAll(async () => {
-  seeded = await seedTastesStudy(t.deps.db, t.team.teamId);
-  base = `/api/teams/${t.team.teamId}/studies/${seeded.studyId}/exports`;
   const db = t.deps.db;
   const add = async (
     key: keyof typeof extra,
@@ -36,8 +34,8 @@ beforeAll(async () => {
     const [r] = await db
       .insert(respondents)
       .values({
-        studyId: seeded.studyId,
-        versionId: seeded.versionId,
+        studyId: study.studyId,
+        versionId: study.versionId,
         sessionToken: token(),
         block: 1,
         plan,
@@ -50,7 +48,7 @@ beforeAll(async () => {
       await db.insert(answers).values(
         rows.map((a) => ({
           respondentId: r.id,
-          studyId: seeded.studyId,
+          studyId: study.studyId,
           clientId: token(),
           screenKey: '',
           ...a,
@@ -109,7 +107,7 @@ beforeAll(async () => {
 });
 
 async function csvOf(role: 'analyst' | 'viewer', path: string) {
-  const res = await t.team.agents[role].get(`${base}/${path}`).expect(200);
+  const res = await t.team.agents[role].get(`${study.base}/${path}`).expect(200);
   return { res, rows: parse(res.text, { columns: true }) as Record<string, string>[] };
 }
 
@@ -117,7 +115,7 @@ async function choiceAnswersInDb(): Promise<number> {
   const [{ n }] = await t.deps.db
     .select({ n: count() })
     .from(answers)
-    .where(and(eq(answers.studyId, seeded.studyId), isNotNull(answers.chosenAlternative)));
+    .where(and(eq(answers.studyId, study.studyId), isNotNull(answers.chosenAlternative)));
   return n;
 }
 
@@ -177,7 +175,7 @@ describe('GET /exports/choices.csv (the long choice file)', () => {
       ['3', '2', '0', '1', '2.5', '7'],
     ]);
     // A record without positions leaves the column empty rather than guessing.
-    const first = rows.find((r) => r.respondent === seeded.respondentIds[0] && r.task === '1')!;
+    const first = rows.find((r) => r.respondent === study.respondentIds[0] && r.task === '1')!;
     // …and a task that asked no certainty question leaves that column empty.
     expect(first).toMatchObject({
       task_shown: '1',
@@ -190,14 +188,14 @@ describe('GET /exports/choices.csv (the long choice file)', () => {
   it('is read by the command-line estimator, which leaves included=false rows out', async () => {
     const { res } = await csvOf('viewer', 'choices.csv');
     const parsed = parseChoiceCsv(res.text, ['monthly_bill_increase']);
-    expect(new Set(parsed.map((r) => r.respondent))).toEqual(new Set(seeded.respondentIds));
+    expect(new Set(parsed.map((r) => r.respondent))).toEqual(new Set(study.respondentIds));
     expect(parsed).toHaveLength(N * 2 * 3);
   });
 
   it("with a run, is exactly the estimation data: included respondents, the run's columns", async () => {
     const res = await t.team.agents.viewer
-      .get(`${base}/choices.csv`)
-      .query({ runId: seeded.runId })
+      .get(`${study.base}/choices.csv`)
+      .query({ runId: study.runId })
       .expect(200);
     expect(res.headers['content-disposition']).toContain('choices-estimated');
     const rows = parse(res.text, { columns: true }) as Record<string, string>[];
@@ -232,7 +230,7 @@ describe('GET /exports/respondents-wide.csv and .R', () => {
     const [{ n }] = await t.deps.db
       .select({ n: count() })
       .from(respondents)
-      .where(eq(respondents.studyId, seeded.studyId));
+      .where(eq(respondents.studyId, study.studyId));
     expect(rows).toHaveLength(n);
     const early = rows.find((r) => r.respondent === extra.screenedEarly)!;
     expect(early).toMatchObject({
@@ -262,7 +260,7 @@ describe('GET /exports/respondents-wide.csv and .R', () => {
   it('comes with an R script whose columns, types and factor levels fit the CSV', async () => {
     const { res, rows } = await csvOf('analyst', 'respondents-wide.csv');
     const header = (parse(res.text) as string[][])[0];
-    const r = await t.team.agents.analyst.get(`${base}/respondents-wide.R`).expect(200);
+    const r = await t.team.agents.analyst.get(`${study.base}/respondents-wide.R`).expect(200);
     expect(r.headers['content-disposition']).toMatch(/respondents-wide-\d{4}-\d\d-\d\d\.R"/);
     const script = r.text;
     const columns = scriptColumns(script);
@@ -300,10 +298,11 @@ describe('GET /exports/respondents-wide.csv and .R', () => {
     const header = (parse(res.text) as string[][])[0];
     expect(header).not.toContain('external_id');
     expect(header).not.toContain('q_comments');
-    const script = (await t.team.agents.viewer.get(`${base}/respondents-wide.R`).expect(200)).text;
+    const script = (await t.team.agents.viewer.get(`${study.base}/respondents-wide.R`).expect(200))
+      .text;
     expect(scriptColumns(script).map(([name]) => name)).toEqual(header);
-    await t.team.outsider.get(`${base}/respondents-wide.csv`).expect(404);
-    await t.request().get(`${base}/respondents-wide.R`).expect(401);
+    await t.team.outsider.get(`${study.base}/respondents-wide.csv`).expect(404);
+    await t.request().get(`${study.base}/respondents-wide.R`).expect(401);
   });
 });
 

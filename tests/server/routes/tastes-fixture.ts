@@ -4,11 +4,13 @@
  * know every value the API should return.
  */
 import { randomBytes } from 'node:crypto';
+import { beforeAll } from 'vitest';
 import type { Db } from '../../../db/client';
 import { runs, tasteProfiles } from '../../../db/schema/models';
 import { makeStudyDefinition } from '../../../scripts/lib/study-factory/definition';
 import { insertStudyRow } from '../../../scripts/lib/study-factory/insert-study';
 import { insertRespondentRow } from '../../../scripts/lib/study-factory/insert-respondent';
+import type { FileTestApp } from '../../support/test-app';
 
 export const questionnaire = {
   pages: [
@@ -239,6 +241,23 @@ export async function seedTastesStudy(db: Db, teamId: string) {
     runningRunId,
     respondentIds,
   };
+}
+
+export type SeededTastesStudy = Awaited<ReturnType<typeof seedTastesStudy>>;
+
+/**
+ * The set-up of the test files that read the seeded study through the API: before their tests,
+ * seeds it for `t`'s team and sets `base` to its API path under `section` (`tastes`, `exports`,
+ * `shares/simulate` …). Like useTestApp's, the returned object is filled in by the beforeAll, so
+ * read it inside hooks and tests only; a file's own beforeAll registered after it sees it filled.
+ */
+export function useTastesStudy(t: FileTestApp<'team'>, section: string) {
+  const study = {} as SeededTastesStudy & { base: string };
+  beforeAll(async () => {
+    Object.assign(study, await seedTastesStudy(t.deps.db, t.team.teamId));
+    study.base = `/api/teams/${t.team.teamId}/studies/${study.studyId}/${section}`;
+  });
+  return study;
 }
 
 /** A share-scenario alternative of the Larkspur definition at middle levels but river and bill. */

@@ -1,4 +1,4 @@
-import { beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type supertest from 'supertest';
 import { useTestApp } from '../../support/test-app';
 import type { Role } from '../../../shared/permissions';
@@ -11,41 +11,36 @@ import {
   N,
   riverGood,
   makeResults,
-  seedTastesStudy,
+  useTastesStudy,
   spec,
 } from './tastes-fixture';
 
 const t = useTestApp({}, { signIn: 'team' });
-let seeded: Awaited<ReturnType<typeof seedTastesStudy>>;
-let base: string;
 
-beforeAll(async () => {
-  seeded = await seedTastesStudy(t.deps.db, t.team.teamId);
-  base = `/api/teams/${t.team.teamId}/studies/${seeded.studyId}/tastes`;
-});
+const study = useTastesStudy(t, 'tastes');
 
 const as = (role: Role): supertest.Agent => t.team.agents[role];
 
 describe('GET /tastes/runs', () => {
   it('lists finished runs with their profile counts for every role', async () => {
     for (const role of ['owner', 'editor', 'analyst', 'viewer'] as const) {
-      const res = await as(role).get(`${base}/runs`).expect(200);
+      const res = await as(role).get(`${study.base}/runs`).expect(200);
       expect(res.body).toEqual([
-        expect.objectContaining({ id: seeded.runId, profiles: N, profileDraws: 500 }),
+        expect.objectContaining({ id: study.runId, profiles: N, profileDraws: 500 }),
       ]);
     }
   });
 
   it('returns 404 to an outsider and 401 without a session', async () => {
-    await t.team.outsider.get(`${base}/runs`).expect(404);
-    await t.request().get(`${base}/runs`).expect(401);
+    await t.team.outsider.get(`${study.base}/runs`).expect(404);
+    await t.request().get(`${study.base}/runs`).expect(401);
   });
 
   it('says why a run gives no WTP, so Exports can grey its WTP download', async () => {
     const [noCost] = await t.deps.db
       .insert(runs)
       .values({
-        studyId: seeded.studyId,
+        studyId: study.studyId,
         teamId: t.team.teamId,
         name: 'No cost coefficient',
         model: 'mnl',
@@ -56,16 +51,16 @@ describe('GET /tastes/runs', () => {
         finishedAt: new Date(Date.now() - 60_000),
       })
       .returning({ id: runs.id });
-    const res = await as('viewer').get(`${base}/runs`).expect(200);
+    const res = await as('viewer').get(`${study.base}/runs`).expect(200);
     const byId = new Map(
       (res.body as { id: string; wtpUnavailable: string | null }[]).map((r) => [r.id, r]),
     );
-    expect(byId.get(seeded.runId)?.wtpUnavailable).toBeNull();
+    expect(byId.get(study.runId)?.wtpUnavailable).toBeNull();
     expect(byId.get(noCost.id)?.wtpUnavailable).toBe(
       'This run has no cost coefficient, so it gives no WTP.',
     );
     // The download refuses with the same reason.
-    const exportsBase = `/api/teams/${t.team.teamId}/studies/${seeded.studyId}/exports`;
+    const exportsBase = `/api/teams/${t.team.teamId}/studies/${study.studyId}/exports`;
     const refused = await as('viewer')
       .get(`${exportsBase}/estimates.csv?runId=${noCost.id}&table=wtp`)
       .expect(409);
@@ -77,7 +72,7 @@ describe('GET /tastes/runs', () => {
 
 describe('GET /tastes (profile table)', () => {
   it('shows an analyst the external ids and free-text answers beside means and SDs', async () => {
-    const res = await as('analyst').get(base).query({ runId: seeded.runId }).expect(200);
+    const res = await as('analyst').get(study.base).query({ runId: study.runId }).expect(200);
     expect(res.body.total).toBe(N);
     expect(res.body.personalColumns).toBe(true);
     expect(res.body.questions.map((q: { key: string }) => q.key)).toEqual([
@@ -104,7 +99,7 @@ describe('GET /tastes (profile table)', () => {
   });
 
   it('shows a viewer the results without external ids or free-text answers', async () => {
-    const res = await as('viewer').get(base).query({ runId: seeded.runId }).expect(200);
+    const res = await as('viewer').get(study.base).query({ runId: study.runId }).expect(200);
     expect(res.body.personalColumns).toBe(false);
     expect(res.body.questions.map((q: { key: string }) => q.key)).toEqual([
       'age_band',
@@ -119,42 +114,42 @@ describe('GET /tastes (profile table)', () => {
   });
 
   it('returns 404 to an outsider and 401 without a session', async () => {
-    await t.team.outsider.get(base).query({ runId: seeded.runId }).expect(404);
-    await t.request().get(base).query({ runId: seeded.runId }).expect(401);
+    await t.team.outsider.get(study.base).query({ runId: study.runId }).expect(404);
+    await t.request().get(study.base).query({ runId: study.runId }).expect(401);
   });
 
   it('pages in SQL: page 2 of size 4 holds the last two rows and the total stays 6', async () => {
     const res = await as('viewer')
-      .get(base)
-      .query({ runId: seeded.runId, page: 2, pageSize: 4 })
+      .get(study.base)
+      .query({ runId: study.runId, page: 2, pageSize: 4 })
       .expect(200);
     expect(res.body).toMatchObject({ page: 2, pageSize: 4, total: N });
     expect(res.body.rows.map((r: { number: number }) => r.number)).toEqual([5, 6]);
     const beyond = await as('viewer')
-      .get(base)
-      .query({ runId: seeded.runId, page: 9, pageSize: 4 })
+      .get(study.base)
+      .query({ runId: study.runId, page: 9, pageSize: 4 })
       .expect(200);
     expect(beyond.body.rows).toEqual([]);
   });
 
   it('sorts by a conditional mean and by effective draws, both directions', async () => {
     const byMean = await as('viewer')
-      .get(base)
-      .query({ runId: seeded.runId, sort: 'mean:river_good', dir: 'desc' })
+      .get(study.base)
+      .query({ runId: study.runId, sort: 'mean:river_good', dir: 'desc' })
       .expect(200);
     expect(
       byMean.body.rows.map((r: { mean: { river_good: number } }) => r.mean.river_good),
     ).toEqual([5, 4, 3, 2, 1, 0].map(riverGood));
     const byDraws = await as('viewer')
-      .get(base)
-      .query({ runId: seeded.runId, sort: 'effectiveDraws' })
+      .get(study.base)
+      .query({ runId: study.runId, sort: 'effectiveDraws' })
       .expect(200);
     expect(byDraws.body.rows.map((r: { effectiveDraws: number }) => r.effectiveDraws)).toEqual(
       [...effectiveDraws].sort((a, b) => a - b),
     );
     const byWtp = await as('viewer')
-      .get(base)
-      .query({ runId: seeded.runId, sort: 'wtp:river_good', dir: 'asc' })
+      .get(study.base)
+      .query({ runId: study.runId, sort: 'wtp:river_good', dir: 'asc' })
       .expect(200);
     expect(byWtp.body.rows[0].number).toBe(1);
   });
@@ -162,8 +157,8 @@ describe('GET /tastes (profile table)', () => {
   it('filters by low effective draws, quality flags and a background answer', async () => {
     const q = (extra: Record<string, string>) =>
       as('viewer')
-        .get(base)
-        .query({ runId: seeded.runId, ...extra })
+        .get(study.base)
+        .query({ runId: study.runId, ...extra })
         .expect(200);
     expect((await q({ lowDraws: 'true' })).body.total).toBe(2);
     expect((await q({ lowDraws: 'false' })).body.total).toBe(4);
@@ -190,16 +185,19 @@ describe('GET /tastes (profile table)', () => {
   ])('when the query has %o, returns 400 naming %s', async (extra, field) => {
     // A viewer may not filter by the free-text question: it is unknown to them.
     const res = await as('viewer')
-      .get(base)
-      .query({ runId: seeded.runId, ...extra })
+      .get(study.base)
+      .query({ runId: study.runId, ...extra })
       .expect(400);
     expect(res.body.error.fields.map((f: { path: string }) => f.path)).toContain(field);
   });
 
   it('returns 400 without a run, 404 for an unknown run and 409 for an unfinished one', async () => {
-    await as('analyst').get(base).expect(400);
-    await as('analyst').get(base).query({ runId: crypto.randomUUID() }).expect(404);
-    const res = await as('analyst').get(base).query({ runId: seeded.runningRunId }).expect(409);
+    await as('analyst').get(study.base).expect(400);
+    await as('analyst').get(study.base).query({ runId: crypto.randomUUID() }).expect(404);
+    const res = await as('analyst')
+      .get(study.base)
+      .query({ runId: study.runningRunId })
+      .expect(409);
     expect(res.body.error.code).toBe('run_not_finished');
   });
 });
@@ -207,9 +205,9 @@ describe('GET /tastes (profile table)', () => {
 describe('GET /tastes/segments', () => {
   it('splits a coefficient by a background question with group means and counts', async () => {
     const res = await as('viewer')
-      .get(`${base}/segments`)
+      .get(`${study.base}/segments`)
       .query({
-        runId: seeded.runId,
+        runId: study.runId,
         coefficient: 'river_good',
         groupBy: 'question',
         question: 'age_band',
@@ -231,8 +229,8 @@ describe('GET /tastes/segments', () => {
 
   it('splits by the alternative chosen in a task, status quo included', async () => {
     const res = await as('analyst')
-      .get(`${base}/segments`)
-      .query({ runId: seeded.runId, coefficient: 'river_good', groupBy: 'task', task: 1 })
+      .get(`${study.base}/segments`)
+      .query({ runId: study.runId, coefficient: 'river_good', groupBy: 'task', task: 1 })
       .expect(200);
     expect(
       res.body.groups.map((g: { label: string; count: number; mean: number }) => [
@@ -249,9 +247,9 @@ describe('GET /tastes/segments', () => {
 
   it('splits by a number question by its distinct values', async () => {
     const res = await as('analyst')
-      .get(`${base}/segments`)
+      .get(`${study.base}/segments`)
       .query({
-        runId: seeded.runId,
+        runId: study.runId,
         coefficient: 'bill',
         groupBy: 'question',
         question: 'household_size',
@@ -275,16 +273,16 @@ describe('GET /tastes/segments', () => {
     [{ coefficient: 'river_good', groupBy: 'colour' }, 'groupBy'],
   ])('when the query has %o, returns 400 naming %s', async (extra, field) => {
     const res = await as('analyst')
-      .get(`${base}/segments`)
-      .query({ runId: seeded.runId, ...extra })
+      .get(`${study.base}/segments`)
+      .query({ runId: study.runId, ...extra })
       .expect(400);
     expect(res.body.error.fields.map((f: { path: string }) => f.path)).toContain(field);
   });
 
   it('returns 404 to an outsider', async () => {
     await t.team.outsider
-      .get(`${base}/segments`)
-      .query({ runId: seeded.runId, coefficient: 'bill', groupBy: 'task', task: 1 })
+      .get(`${study.base}/segments`)
+      .query({ runId: study.runId, coefficient: 'bill', groupBy: 'task', task: 1 })
       .expect(404);
   });
 });
@@ -292,7 +290,7 @@ describe('GET /tastes/segments', () => {
 describe('GET /tastes/runs/:runId/respondents/:respondentId', () => {
   it('shows the choices task by task beside the profile', async () => {
     const res = await as('viewer')
-      .get(`${base}/runs/${seeded.runId}/respondents/${seeded.respondentIds[4]}`)
+      .get(`${study.base}/runs/${study.runId}/respondents/${study.respondentIds[4]}`)
       .expect(200);
     expect(res.body.row).toMatchObject({ number: 5, mean: { river_good: 4 } });
     expect(res.body.row).not.toHaveProperty('externalId');
@@ -312,10 +310,10 @@ describe('GET /tastes/runs/:runId/respondents/:respondentId', () => {
 
   it('returns 404 for a respondent of another study or an outsider', async () => {
     await as('viewer')
-      .get(`${base}/runs/${seeded.runId}/respondents/${crypto.randomUUID()}`)
+      .get(`${study.base}/runs/${study.runId}/respondents/${crypto.randomUUID()}`)
       .expect(404);
     await t.team.outsider
-      .get(`${base}/runs/${seeded.runId}/respondents/${seeded.respondentIds[0]}`)
+      .get(`${study.base}/runs/${study.runId}/respondents/${study.respondentIds[0]}`)
       .expect(404);
   });
 });

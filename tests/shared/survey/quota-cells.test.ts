@@ -7,6 +7,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import type { QuotaCell, ScreeningPage } from '../../../shared/schemas/questionnaire';
 import { quotaCellOf, quotaProblems } from '../../../shared/survey/quota-cells';
+import { requiredSingleQuestion } from '../../../shared/schemas/required-single-question';
 
 const cell = (id: string, over: Partial<QuotaCell>): QuotaCell => ({
   id,
@@ -22,19 +23,12 @@ function ageGroupPage(cells: QuotaCell[]): ScreeningPage {
   return {
     id: 'p1',
     kind: 'screening',
-    question: {
-      type: 'single',
-      key: 'age_group',
-      text: 'Your age group?',
-      help: '',
-      required: true,
-      options: [
-        { id: 'u18', label: 'Under 18' },
-        { id: 'a', label: '18 to 34' },
-        { id: 'b', label: '35 to 54' },
-        { id: 'c', label: '55 or older' },
-      ],
-    },
+    question: requiredSingleQuestion('age_group', 'Your age group?', [
+      { id: 'u18', label: 'Under 18' },
+      { id: 'a', label: '18 to 34' },
+      { id: 'b', label: '35 to 54' },
+      { id: 'c', label: '55 or older' },
+    ]),
     screenOutOptionIds: ['u18'],
     acceptMin: null,
     acceptMax: null,

@@ -37,4 +37,29 @@ describe('useRefreshingMutation', () => {
     });
     expect(qc.getQueryState(['things', 'list'])?.isInvalidated).toBe(false);
   });
+
+  it('takes the key from the variables and calls onRefreshed once the queries are invalidated', async () => {
+    const qc = new QueryClient({ defaultOptions: { mutations: { retry: false } } });
+    qc.setQueryData(['team', 't1'], 'a');
+    qc.setQueryData(['team', 't2'], 'b');
+    const wrapper = ({ children }: { children: ReactNode }) => (
+      <QueryClientProvider client={qc}>{children}</QueryClientProvider>
+    );
+    const calls: [string, string, boolean | undefined][] = [];
+    const { result } = renderHook(
+      () =>
+        useRefreshingMutation(
+          async (teamId: string) => `done ${teamId}`,
+          (teamId) => ['team', teamId],
+          (data, teamId) =>
+            calls.push([data, teamId, qc.getQueryState(['team', teamId])?.isInvalidated]),
+        ),
+      { wrapper },
+    );
+    await act(async () => {
+      await result.current.mutateAsync('t1');
+    });
+    expect(calls).toEqual([['done t1', 't1', true]]);
+    expect(qc.getQueryState(['team', 't2'])?.isInvalidated).toBe(false);
+  });
 });

@@ -1,5 +1,6 @@
 import { infiniteQueryOptions, useInfiniteQuery } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
+import { searchString } from '@/lib/search-string';
 import type { AuditPage, ListAuditQuery } from '@shared/schemas/audit';
 import { auditKeys } from './audit-keys';
 
@@ -7,11 +8,7 @@ export type AuditFilters = Pick<ListAuditQuery, 'action' | 'actorId' | 'from' | 
 
 /** The query string of a set of filters (empty ones left out). */
 export function auditQueryString(filters: AuditFilters, before?: number): string {
-  const q = new URLSearchParams();
-  for (const [k, v] of Object.entries(filters)) if (v) q.set(k, String(v));
-  if (before) q.set('before', String(before));
-  const s = q.toString();
-  return s ? `?${s}` : '';
+  return searchString({ ...filters, before: before || undefined });
 }
 
 export const getAudit = (

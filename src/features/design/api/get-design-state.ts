@@ -1,14 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '@/lib/api-client';
+import { apiQueryOptions } from '@/lib/api-query-options';
 import type { DesignState } from '@shared/schemas/design-job';
 import type { DesignDiagnostics } from '@shared/schemas/design-diagnostics';
 import { designKeys } from './design-keys';
 
 export type StudyDesignState = DesignState<DesignDiagnostics>;
-
-export function getDesignState(teamId: string, studyId: string, signal?: AbortSignal) {
-  return api.get<StudyDesignState>(`/teams/${teamId}/studies/${studyId}/design`, signal);
-}
 
 const active = (s: StudyDesignState | undefined) =>
   s?.job?.status === 'queued' || s?.job?.status === 'running';
@@ -16,8 +12,10 @@ const active = (s: StudyDesignState | undefined) =>
 /** Polls every second while a generation job is queued or running. */
 export const getDesignStateQueryOptions = (teamId: string, studyId: string) =>
   queryOptions({
-    queryKey: designKeys.state(teamId, studyId),
-    queryFn: ({ signal }) => getDesignState(teamId, studyId, signal),
+    ...apiQueryOptions<StudyDesignState>(
+      designKeys.state(teamId, studyId),
+      `/teams/${teamId}/studies/${studyId}/design`,
+    ),
     refetchInterval: (q) => (active(q.state.data) ? 1000 : false),
   });
 

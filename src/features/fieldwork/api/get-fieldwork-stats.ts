@@ -1,20 +1,14 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '@/lib/api-client';
+import { apiQueryOptions } from '@/lib/api-query-options';
 import type { FieldworkStats } from '@shared/schemas/fieldwork';
 import { fieldworkKeys, fieldworkPath, LIVE_REFRESH_MS } from './fieldwork-keys';
 
-export function getFieldworkStats(
-  teamId: string,
-  studyId: string,
-  signal?: AbortSignal,
-): Promise<FieldworkStats> {
-  return api.get<FieldworkStats>(fieldworkPath(teamId, studyId), signal);
-}
-
 export const getFieldworkStatsQueryOptions = (teamId: string, studyId: string) =>
   queryOptions({
-    queryKey: fieldworkKeys.stats(teamId, studyId),
-    queryFn: ({ signal }) => getFieldworkStats(teamId, studyId, signal),
+    ...apiQueryOptions<FieldworkStats>(
+      fieldworkKeys.stats(teamId, studyId),
+      fieldworkPath(teamId, studyId),
+    ),
     staleTime: 5_000,
     refetchInterval: (query) => (query.state.data?.status === 'live' ? LIVE_REFRESH_MS : false),
   });

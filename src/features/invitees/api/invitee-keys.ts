@@ -1,9 +1,9 @@
 import type { ListInviteesQuery } from '@shared/schemas/invitees';
+import { studyScopedKeys } from '@/lib/study-scoped-keys';
 
 /** Query keys of the invitees feature, broad to narrow. */
 export const inviteeKeys = {
-  all: ['invitees'] as const,
-  study: (teamId: string, studyId: string) => [...inviteeKeys.all, teamId, studyId] as const,
+  ...studyScopedKeys('invitees'),
   lists: (teamId: string, studyId: string) =>
     [...inviteeKeys.study(teamId, studyId), 'list'] as const,
   list: (teamId: string, studyId: string, query: Partial<ListInviteesQuery>) =>

@@ -1,20 +1,8 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '@/lib/api-client';
+import { apiQueryOptions } from '@/lib/api-query-options';
+import { searchString } from '@/lib/search-string';
 import type { InviteeList, ListInviteesQuery } from '@shared/schemas/invitees';
 import { inviteeKeys, inviteesPath } from './invitee-keys';
-
-export function listInvitees(
-  teamId: string,
-  studyId: string,
-  query: Partial<ListInviteesQuery>,
-  signal?: AbortSignal,
-): Promise<InviteeList> {
-  const params = new URLSearchParams();
-  for (const [k, v] of Object.entries(query))
-    if (v !== undefined && v !== '') params.set(k, String(v));
-  const qs = params.toString();
-  return api.get<InviteeList>(`${inviteesPath(teamId, studyId)}${qs ? `?${qs}` : ''}`, signal);
-}
 
 export const listInviteesQueryOptions = (
   teamId: string,
@@ -22,8 +10,10 @@ export const listInviteesQueryOptions = (
   query: Partial<ListInviteesQuery>,
 ) =>
   queryOptions({
-    queryKey: inviteeKeys.list(teamId, studyId, query),
-    queryFn: ({ signal }) => listInvitees(teamId, studyId, query, signal),
+    ...apiQueryOptions<InviteeList>(
+      inviteeKeys.list(teamId, studyId, query),
+      `${inviteesPath(teamId, studyId)}${searchString(query)}`,
+    ),
     placeholderData: keepPreviousData,
   });
 

@@ -1,17 +1,13 @@
-import { queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '@/lib/api-client';
+import { useQuery } from '@tanstack/react-query';
+import { apiQueryOptions } from '@/lib/api-query-options';
 import type { StudyVersionSummary } from '@shared/schemas/study-lifecycle';
 import { lifecycleBase, lifecycleKeys } from './lifecycle-keys';
 
-export function getVersions(teamId: string, studyId: string, signal?: AbortSignal) {
-  return api.get<StudyVersionSummary[]>(`${lifecycleBase(teamId, studyId)}/versions`, signal);
-}
-
 export const getVersionsQueryOptions = (teamId: string, studyId: string) =>
-  queryOptions({
-    queryKey: lifecycleKeys.versions(teamId, studyId),
-    queryFn: ({ signal }) => getVersions(teamId, studyId, signal),
-  });
+  apiQueryOptions<StudyVersionSummary[]>(
+    lifecycleKeys.versions(teamId, studyId),
+    `${lifecycleBase(teamId, studyId)}/versions`,
+  );
 
 export function useVersions(teamId: string, studyId: string) {
   return useQuery(getVersionsQueryOptions(teamId, studyId));

@@ -1,7 +1,8 @@
+import { studyScopedKeys } from '@/lib/study-scoped-keys';
+
 /** Query keys of the lifecycle feature, broad to narrow. */
 export const lifecycleKeys = {
-  all: ['lifecycle'] as const,
-  study: (teamId: string, studyId: string) => [...lifecycleKeys.all, teamId, studyId] as const,
+  ...studyScopedKeys('lifecycle'),
   state: (teamId: string, studyId: string) =>
     [...lifecycleKeys.study(teamId, studyId), 'state'] as const,
   readiness: (teamId: string, studyId: string) =>

@@ -1,7 +1,8 @@
+import { studyScopedKeys } from '@/lib/study-scoped-keys';
+
 /** Query keys of the preview feature. */
 export const previewKeys = {
-  all: ['preview'] as const,
-  study: (teamId: string, studyId: string) => [...previewKeys.all, teamId, studyId] as const,
+  ...studyScopedKeys('preview'),
   respondent: (teamId: string, studyId: string, block: number, seed: number, lang = '') =>
     [...previewKeys.study(teamId, studyId), block, seed, lang] as const,
 };

@@ -1,9 +1,9 @@
 import type { ListResponsesQuery } from '@shared/schemas/responses';
+import { studyScopedKeys } from '@/lib/study-scoped-keys';
 
 /** Query keys of the responses feature, broad to narrow. */
 export const responseKeys = {
-  all: ['responses'] as const,
-  study: (teamId: string, studyId: string) => [...responseKeys.all, teamId, studyId] as const,
+  ...studyScopedKeys('responses'),
   lists: (teamId: string, studyId: string) =>
     [...responseKeys.study(teamId, studyId), 'list'] as const,
   list: (teamId: string, studyId: string, query: Partial<ListResponsesQuery>) =>

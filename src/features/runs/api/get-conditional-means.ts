@@ -1,24 +1,14 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '@/lib/api-client';
+import { apiQueryOptions } from '@/lib/api-query-options';
 import type { ConditionalMeans } from '@shared/schemas/run';
 import { runKeys, runsPath } from './run-keys';
 
-export function getConditionalMeans(
-  teamId: string,
-  studyId: string,
-  runId: string,
-  signal?: AbortSignal,
-): Promise<ConditionalMeans> {
-  return api.get<ConditionalMeans>(
-    `${runsPath(teamId, studyId)}/${runId}/conditional-means`,
-    signal,
-  );
-}
-
 export const getConditionalMeansQueryOptions = (teamId: string, studyId: string, runId: string) =>
   queryOptions({
-    queryKey: runKeys.conditionalMeans(teamId, studyId, runId),
-    queryFn: ({ signal }) => getConditionalMeans(teamId, studyId, runId, signal),
+    ...apiQueryOptions<ConditionalMeans>(
+      runKeys.conditionalMeans(teamId, studyId, runId),
+      `${runsPath(teamId, studyId)}/${runId}/conditional-means`,
+    ),
     staleTime: Infinity,
   });
 

@@ -1,16 +1,11 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '@/lib/api-client';
+import { apiQueryOptions } from '@/lib/api-query-options';
 import type { Run } from '@shared/schemas/run';
 import { isRunActive, POLL_MS, runKeys, runsPath } from './run-keys';
 
-export function listRuns(teamId: string, studyId: string, signal?: AbortSignal): Promise<Run[]> {
-  return api.get<Run[]>(runsPath(teamId, studyId), signal);
-}
-
 export const listRunsQueryOptions = (teamId: string, studyId: string) =>
   queryOptions({
-    queryKey: runKeys.lists(teamId, studyId),
-    queryFn: ({ signal }) => listRuns(teamId, studyId, signal),
+    ...apiQueryOptions<Run[]>(runKeys.lists(teamId, studyId), runsPath(teamId, studyId)),
     refetchInterval: (query) =>
       query.state.data?.some((r) => isRunActive(r.status)) ? POLL_MS : false,
   });

@@ -1,7 +1,8 @@
+import { studyScopedKeys } from '@/lib/study-scoped-keys';
+
 /** Query keys of the runs feature, broad to narrow. */
 export const runKeys = {
-  all: ['runs'] as const,
-  study: (teamId: string, studyId: string) => [...runKeys.all, teamId, studyId] as const,
+  ...studyScopedKeys('runs'),
   lists: (teamId: string, studyId: string) => [...runKeys.study(teamId, studyId), 'list'] as const,
   options: (teamId: string, studyId: string) =>
     [...runKeys.study(teamId, studyId), 'options'] as const,

@@ -1,3 +1,5 @@
+import { studyScopedKeys } from '@/lib/study-scoped-keys';
+
 /** Query keys of the shares feature, broad to narrow. */
 export type ShareGroupsParams = {
   runId: string;
@@ -7,8 +9,7 @@ export type ShareGroupsParams = {
 };
 
 export const shareKeys = {
-  all: ['shares'] as const,
-  study: (teamId: string, studyId: string) => [...shareKeys.all, teamId, studyId] as const,
+  ...studyScopedKeys('shares'),
   model: (teamId: string, studyId: string, runId: string) =>
     [...shareKeys.study(teamId, studyId), 'model', runId] as const,
   groups: (teamId: string, studyId: string, params: ShareGroupsParams) =>

@@ -1,9 +1,9 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import { languageKeys } from '@/features/languages/api/language-keys';
 import type { Study } from '@shared/schemas/study';
 import type { StudyDefinition } from '@shared/schemas/study-definition';
-import { studyKeys } from './study-keys';
+import { useStudyMutation } from './use-study-mutation';
 
 export type SavedDefinition = Study & { designDetached: boolean };
 
@@ -23,14 +23,13 @@ export function useSaveDefinition(
   onSaved?: (study: SavedDefinition) => void,
 ) {
   const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (definition: StudyDefinition) => saveDefinition(teamId, studyId, definition),
-    onSuccess: (study) => {
-      qc.setQueryData(studyKeys.detail(teamId, studyId), study);
-      void qc.invalidateQueries({ queryKey: studyKeys.lists(teamId) });
+  return useStudyMutation(
+    { teamId, studyId },
+    (definition: StudyDefinition) => saveDefinition(teamId, studyId, definition),
+    (study) => {
       // The source wordings changed: translations of them may be stale now.
       void qc.invalidateQueries({ queryKey: languageKeys.texts(teamId, studyId) });
       onSaved?.(study);
     },
-  });
+  );
 }

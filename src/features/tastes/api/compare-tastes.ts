@@ -1,22 +1,10 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '@/lib/api-client';
+import { apiQueryOptions } from '@/lib/api-query-options';
+import { searchString } from '@/lib/search-string';
 import type { TasteComparison } from '@shared/schemas/tastes';
-import { tasteKeys, tastesPath, toSearch } from './taste-keys';
+import { tasteKeys, tastesPath } from './taste-keys';
 
 /** Two runs' individual means per coefficient, matched by respondent, with correlations. */
-export function compareTastes(
-  teamId: string,
-  studyId: string,
-  runId: string,
-  otherRunId: string,
-  signal?: AbortSignal,
-) {
-  return api.get<TasteComparison>(
-    `${tastesPath(teamId, studyId)}/compare?${toSearch({ runId, otherRunId })}`,
-    signal,
-  );
-}
-
 export const compareTastesQueryOptions = (
   teamId: string,
   studyId: string,
@@ -24,8 +12,10 @@ export const compareTastesQueryOptions = (
   otherRunId: string,
 ) =>
   queryOptions({
-    queryKey: tasteKeys.comparison(teamId, studyId, runId, otherRunId),
-    queryFn: ({ signal }) => compareTastes(teamId, studyId, runId, otherRunId, signal),
+    ...apiQueryOptions<TasteComparison>(
+      tasteKeys.comparison(teamId, studyId, runId, otherRunId),
+      `${tastesPath(teamId, studyId)}/compare${searchString({ runId, otherRunId })}`,
+    ),
     placeholderData: keepPreviousData,
     enabled: runId !== '' && otherRunId !== '' && runId !== otherRunId,
   });

@@ -1,22 +1,16 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '@/lib/api-client';
+import { apiQueryOptions } from '@/lib/api-query-options';
+import { searchString } from '@/lib/search-string';
 import type { Segments } from '@shared/schemas/tastes';
-import { tasteKeys, tastesPath, toSearch, type SegmentsParams } from './taste-keys';
+import { tasteKeys, tastesPath, type SegmentsParams } from './taste-keys';
 
 /** One coefficient's individual means split by a task choice, a background answer or a class. */
-export function getSegments(
-  teamId: string,
-  studyId: string,
-  params: SegmentsParams,
-  signal?: AbortSignal,
-) {
-  return api.get<Segments>(`${tastesPath(teamId, studyId)}/segments?${toSearch(params)}`, signal);
-}
-
 export const getSegmentsQueryOptions = (teamId: string, studyId: string, params: SegmentsParams) =>
   queryOptions({
-    queryKey: tasteKeys.segments(teamId, studyId, params),
-    queryFn: ({ signal }) => getSegments(teamId, studyId, params, signal),
+    ...apiQueryOptions<Segments>(
+      tasteKeys.segments(teamId, studyId, params),
+      `${tastesPath(teamId, studyId)}/segments${searchString(params)}`,
+    ),
     placeholderData: keepPreviousData,
     enabled:
       params.runId !== '' &&

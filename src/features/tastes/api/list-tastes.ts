@@ -1,7 +1,8 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '@/lib/api-client';
+import { apiQueryOptions } from '@/lib/api-query-options';
+import { searchString } from '@/lib/search-string';
 import type { TasteList } from '@shared/schemas/tastes';
-import { tasteKeys, tastesPath, toSearch } from './taste-keys';
+import { tasteKeys, tastesPath } from './taste-keys';
 
 export type TastesQuery = {
   runId: string;
@@ -16,14 +17,12 @@ export type TastesQuery = {
 };
 
 /** One page of the profile table, sorted and filtered on the server. */
-export function listTastes(teamId: string, studyId: string, q: TastesQuery, signal?: AbortSignal) {
-  return api.get<TasteList>(`${tastesPath(teamId, studyId)}?${toSearch(q)}`, signal);
-}
-
 export const listTastesQueryOptions = (teamId: string, studyId: string, q: TastesQuery) =>
   queryOptions({
-    queryKey: tasteKeys.list(teamId, studyId, q),
-    queryFn: ({ signal }) => listTastes(teamId, studyId, q, signal),
+    ...apiQueryOptions<TasteList>(
+      tasteKeys.list(teamId, studyId, q),
+      `${tastesPath(teamId, studyId)}${searchString(q)}`,
+    ),
     placeholderData: keepPreviousData,
     enabled: q.runId !== '',
   });

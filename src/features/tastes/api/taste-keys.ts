@@ -1,5 +1,6 @@
 /** Query keys of the tastes feature, broad to narrow. */
 import type { ListTastesQuery } from '@shared/schemas/tastes';
+import { studyScopedKeys } from '@/lib/study-scoped-keys';
 
 export type SegmentsParams = {
   runId: string;
@@ -10,8 +11,7 @@ export type SegmentsParams = {
 };
 
 export const tasteKeys = {
-  all: ['tastes'] as const,
-  study: (teamId: string, studyId: string) => [...tasteKeys.all, teamId, studyId] as const,
+  ...studyScopedKeys('tastes'),
   runs: (teamId: string, studyId: string) => [...tasteKeys.study(teamId, studyId), 'runs'] as const,
   lists: (teamId: string, studyId: string) =>
     [...tasteKeys.study(teamId, studyId), 'list'] as const,
@@ -27,10 +27,3 @@ export const tasteKeys = {
 
 export const tastesPath = (teamId: string, studyId: string) =>
   `/teams/${teamId}/studies/${studyId}/tastes`;
-
-/** Query string of defined values only. */
-export function toSearch(params: Record<string, string | number | boolean | undefined>): string {
-  const s = new URLSearchParams();
-  for (const [k, v] of Object.entries(params)) if (v !== undefined && v !== '') s.set(k, String(v));
-  return s.toString();
-}

@@ -1,4 +1,4 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useRefreshingMutation } from '@/hooks/use-refreshing-mutation';
 import { api } from '@/lib/api-client';
 import { teamKeys } from './team-keys';
 
@@ -8,10 +8,5 @@ export const cancelInvitation = ({ teamId, invitationId }: Params) =>
   api.delete<void>(`/teams/${teamId}/invitations/${invitationId}`);
 
 export function useCancelInvitation() {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: cancelInvitation,
-    onSuccess: (_data, params) =>
-      qc.invalidateQueries({ queryKey: teamKeys.invitations(params.teamId) }),
-  });
+  return useRefreshingMutation(cancelInvitation, (params) => teamKeys.invitations(params.teamId));
 }

@@ -1,4 +1,4 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useRefreshingMutation } from '@/hooks/use-refreshing-mutation';
 import { api } from '@/lib/api-client';
 import type { Role } from '@shared/permissions';
 import { teamKeys } from './team-keys';
@@ -11,12 +11,9 @@ export const changeMemberRole = ({ teamId, userId, role }: Params) =>
   });
 
 export function useChangeMemberRole(options: { onSuccess?: (p: Params) => void } = {}) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: changeMemberRole,
-    onSuccess: async (_data, params) => {
-      await qc.invalidateQueries({ queryKey: teamKeys.members(params.teamId) });
-      options.onSuccess?.(params);
-    },
-  });
+  return useRefreshingMutation(
+    changeMemberRole,
+    (params) => teamKeys.members(params.teamId),
+    (_data, params) => options.onSuccess?.(params),
+  );
 }

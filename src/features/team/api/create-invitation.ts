@@ -1,4 +1,4 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useRefreshingMutation } from '@/hooks/use-refreshing-mutation';
 import { api } from '@/lib/api-client';
 import type { CreateInvitationInput, Invitation } from '@shared/schemas/team';
 import { teamKeys } from './team-keys';
@@ -9,10 +9,5 @@ export const createInvitation = ({ teamId, ...input }: Params) =>
   api.post<Invitation>(`/teams/${teamId}/invitations`, input);
 
 export function useCreateInvitation() {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: createInvitation,
-    onSuccess: (_data, params) =>
-      qc.invalidateQueries({ queryKey: teamKeys.invitations(params.teamId) }),
-  });
+  return useRefreshingMutation(createInvitation, (params) => teamKeys.invitations(params.teamId));
 }

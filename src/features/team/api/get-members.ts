@@ -1,16 +1,10 @@
-import { queryOptions, useQuery } from '@tanstack/react-query';
-import { api } from '@/lib/api-client';
+import { useQuery } from '@tanstack/react-query';
+import { apiQueryOptions } from '@/lib/api-query-options';
 import type { Member } from '@shared/schemas/team';
 import { teamKeys } from './team-keys';
 
-export const getMembers = (teamId: string, signal?: AbortSignal) =>
-  api.get<Member[]>(`/teams/${teamId}/members`, signal);
-
 export const getMembersQueryOptions = (teamId: string) =>
-  queryOptions({
-    queryKey: teamKeys.members(teamId),
-    queryFn: ({ signal }) => getMembers(teamId, signal),
-  });
+  apiQueryOptions<Member[]>(teamKeys.members(teamId), `/teams/${teamId}/members`);
 
 export function useMembers(teamId: string) {
   return useQuery(getMembersQueryOptions(teamId));

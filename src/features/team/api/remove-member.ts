@@ -1,4 +1,4 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useRefreshingMutation } from '@/hooks/use-refreshing-mutation';
 import { api } from '@/lib/api-client';
 import { teamKeys } from './team-keys';
 
@@ -8,12 +8,9 @@ export const removeMember = ({ teamId, userId }: Params) =>
   api.delete<void>(`/teams/${teamId}/members/${userId}`);
 
 export function useRemoveMember(options: { onSuccess?: (p: Params) => void } = {}) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: removeMember,
-    onSuccess: async (_data, params) => {
-      await qc.invalidateQueries({ queryKey: teamKeys.members(params.teamId) });
-      options.onSuccess?.(params);
-    },
-  });
+  return useRefreshingMutation(
+    removeMember,
+    (params) => teamKeys.members(params.teamId),
+    (_data, params) => options.onSuccess?.(params),
+  );
 }

@@ -1,4 +1,4 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { useRefreshingMutation } from '@/hooks/use-refreshing-mutation';
 import { api } from '@/lib/api-client';
 import type { CreateTeamInput } from '@shared/schemas/team';
 import { teamKeys } from './team-keys';
@@ -11,12 +11,5 @@ export const renameTeam = ({ teamId, ...input }: Params) =>
 export function useRenameTeam(
   options: { onSuccess?: (team: { id: string; name: string }) => void } = {},
 ) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: renameTeam,
-    onSuccess: async (team) => {
-      await qc.invalidateQueries({ queryKey: teamKeys.lists() });
-      options.onSuccess?.(team);
-    },
-  });
+  return useRefreshingMutation(renameTeam, teamKeys.lists(), options.onSuccess);
 }

@@ -6,24 +6,18 @@ import { cleanup, render, screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { QuotaFields } from '@/features/questionnaire/components/quota-fields';
 import type { ScreeningPage } from '@shared/schemas/questionnaire';
+import { requiredSingleQuestion } from '@shared/schemas/required-single-question';
 
 afterEach(cleanup);
 
 const regionPage: ScreeningPage = {
   id: 'p',
   kind: 'screening',
-  question: {
-    type: 'single',
-    key: 'region',
-    text: 'Where do you live?',
-    help: '',
-    required: true,
-    options: [
-      { id: 'north', label: 'North bank' },
-      { id: 'south', label: 'South bank' },
-      { id: 'away', label: 'Outside the valley' },
-    ],
-  },
+  question: requiredSingleQuestion('region', 'Where do you live?', [
+    { id: 'north', label: 'North bank' },
+    { id: 'south', label: 'South bank' },
+    { id: 'away', label: 'Outside the valley' },
+  ]),
   screenOutOptionIds: ['away'],
   acceptMin: null,
   acceptMax: null,

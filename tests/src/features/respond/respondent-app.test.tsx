@@ -7,6 +7,7 @@ import type { RespondentSession } from '@shared/schemas/respondent';
 import { RespondentApp } from '@/features/respond/components/respondent-app';
 import { readOutbox } from '@/features/respond/utils/respondent-storage';
 import { englishInterfaceTexts } from '@shared/languages/interface-texts';
+import { requiredSingleQuestion } from '@shared/schemas/required-single-question';
 
 const session: RespondentSession = {
   sessionToken: 'T'.repeat(32),
@@ -190,17 +191,10 @@ describe('RespondentApp', () => {
   });
 
   it('goes past a page whose skip rule does not match, sending it as skipped', async () => {
-    const gardenQuestion = {
-      type: 'single' as const,
-      key: 'garden',
-      text: 'Does your home have a garden?',
-      help: '',
-      required: true,
-      options: [
-        { id: 'yes', label: 'Yes' },
-        { id: 'no', label: 'No' },
-      ],
-    };
+    const gardenQuestion = requiredSingleQuestion('garden', 'Does your home have a garden?', [
+      { id: 'yes', label: 'Yes' },
+      { id: 'no', label: 'No' },
+    ]);
     served = {
       ...session,
       screens: [

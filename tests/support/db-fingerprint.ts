@@ -14,17 +14,20 @@
  * call refreshes (so their row versions change on every call).
  *
  * The tables and their columns are read once per database and turned into one statement, so
- * a fingerprint is one round trip.
+ * a fingerprint is one round trip; a prepared one, as planning its 27 branches took twice as
+ * long as running them (1.8 ms against 0.8 ms, EXPLAIN ANALYZE): each connection plans it once.
  */
+import { createHash } from 'node:crypto';
 import { sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 
 const SKIP_TABLES = new Set(['rate_limit_counters']);
 const SKIP_COLUMNS: Record<string, string[]> = { user_sessions: ['last_seen_at'] };
 
-const statements = new WeakMap<Db, Promise<string>>();
+type Statement = { name: string; text: string };
+const statements = new WeakMap<Db, Promise<Statement>>();
 
-async function buildStatement(db: Db): Promise<string> {
+async function buildStatement(db: Db): Promise<Statement> {
   const { rows } = await db.execute<{ table_name: string; columns: string[] }>(
     sql`select c.table_name, array_agg(c.column_name::text order by c.column_name) as columns
         from information_schema.columns c
@@ -47,7 +50,12 @@ async function buildStatement(db: Db): Promise<string> {
       return `select '${table}' as t, (select md5(string_agg(r::text, '|' order by r::text))
               from (select ${list} from "${table}") r) as d`;
     });
-  return parts.join('\nunion all\n');
+  const text = parts.join('\nunion all\n');
+  // Named by its text: a connection never sees two statements under one name.
+  return {
+    name: `cw_fingerprint_${createHash('sha256').update(text).digest('hex').slice(0, 16)}`,
+    text,
+  };
 }
 
 export async function databaseFingerprint(db: Db): Promise<Record<string, string>> {
@@ -56,7 +64,7 @@ export async function databaseFingerprint(db: Db): Promise<Record<string, string
     statement = buildStatement(db);
     statements.set(db, statement);
   }
-  const { rows } = await db.execute<{ t: string; d: string | null }>(sql.raw(await statement));
+  const { rows } = await db.$client.query<{ t: string; d: string | null }>(await statement);
   const out: Record<string, string> = {};
   for (const { t, d } of rows) out[t] = d ?? 'empty';
   return out;

@@ -1,9 +1,11 @@
 /**
  * Gathers work items that arrive while earlier work is in flight into batches, so that one
  * round trip serves many of them (the answer path's multi-row statement, a panel launch's
- * hottest write). An item goes out at once when fewer than `maxInFlight` batches are running,
- * so a quiet server adds no wait; under load, the items that queued behind the running
- * batches leave together in the next one, at most `maxBatch` of them.
+ * hottest write). Items submitted during one turn of the event loop leave together at the end
+ * of that turn (setImmediate: after the loop has read every request that was ready), when
+ * fewer than `maxInFlight` batches are running, so a quiet server adds no wait beyond the
+ * turn; under load, the items that queued behind the running batches leave together in the
+ * next one, at most `maxBatch` of them.
  *
  * A batch holds at most one item per key, in arrival order, and no key of a batch still in
  * flight: a second item with the same key (a respondent's next answer, or the same answer sent
@@ -97,11 +99,20 @@ export function createKeyedBatcher<I, O>(opts: KeyedBatcherOptions<I, O>): Keyed
     }
   }
 
+  let pumpScheduled = false;
+  const pumpAtTurnEnd = () => {
+    pumpScheduled = false;
+    pump();
+  };
+
   return {
     submit(item) {
       return new Promise<O>((resolve, reject) => {
         queue.push({ item, key: opts.keyOf(item), resolve, reject });
-        pump();
+        if (!pumpScheduled) {
+          pumpScheduled = true;
+          setImmediate(pumpAtTurnEnd);
+        }
       });
     },
     get waiting() {

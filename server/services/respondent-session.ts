@@ -161,8 +161,8 @@ export function assertOpen(study: PublicStudy): void {
  * atomic counter, no study-wide lock), a plan from a fresh seed, and a secret session token.
  */
 /**
- * A session start's respondent row, gathered with the other starts that arrive while two such
- * inserts are in flight (keyed-batcher.ts): under a panel launch one statement and one commit
+ * A session start's respondent row, gathered with the other starts of the same turn of the
+ * event loop and those that arrive while two such inserts are in flight (keyed-batcher.ts): under a panel launch one statement and one commit
  * make many respondents, where each start used to wait for its own flush of the log. A unique
  * index that refuses one row (a personal link or panel id opened twice at once) sends every
  * row of that batch again on its own, so only that start sees the refusal.

@@ -30,7 +30,7 @@ import {
 } from '../../db/queries/runs';
 import { replaceTasteProfiles } from '../../db/queries/taste-profiles';
 import {
-  hashChoiceData,
+  hashChoiceDataInTurns,
   loadRunChoiceData,
   toBuiltChoiceData,
 } from '../services/choice-data-from-study';
@@ -97,7 +97,7 @@ export async function runEstimationJob(
     const membership = await persist(() =>
       loadMembershipCovariates(deps.db, { id: run.studyId }, spec, built.data.respondentIds),
     );
-    const dataHash = hashChoiceData(prepared, keys);
+    const dataHash = await hashChoiceDataInTurns(prepared, keys);
     await persist(() => setRunDataHash(deps.db, { id: runId, dataHash, seed: getRunSeed(spec) }));
     const draws = spec.model === 'mixed' ? spec.draws : null;
     const resume = attempt > 1 ? await resumeRun(deps, { runId, attempt, dataHash, draws }) : null;

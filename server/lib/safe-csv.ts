@@ -36,5 +36,13 @@ export function writeCsv(
   header: readonly string[],
   rows: readonly (readonly CellValue[])[],
 ): string {
-  return stringify([header.map(toCsvCell), ...rows.map((row) => row.map(toCsvCell))]);
+  return writeCsvRecords([header, ...rows]);
+}
+
+/**
+ * Records without a header, each ending in its line break: documents written in parts and
+ * joined in order are the document written whole.
+ */
+export function writeCsvRecords(records: readonly (readonly CellValue[])[]): string {
+  return stringify(records.map((row) => row.map(toCsvCell)));
 }

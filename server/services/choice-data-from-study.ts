@@ -5,7 +5,8 @@
  * - toBuiltChoiceData(prepared, keys): the engine's typed-array data (estimation + holdout),
  * - toLongCsvRows / toLongCsvText(prepared, keys?): the long-format CSV that
  *   `npm run estimate -- --data` reads (respondent,task,alt,chosen,holdout + coded columns),
- * - hashChoiceData(prepared, keys?): SHA-256 of that CSV, stored with each run.
+ * - hashChoiceData(prepared, keys?): SHA-256 of that CSV, stored with each run (the estimation
+ *   job takes it with hashChoiceDataInTurns: the same hash, written and digested in slices).
  */
 import type { Db, DbOrTx } from '../../db/client';
 import { getRespondentFilter } from '../../db/queries/respondent-filters';
@@ -36,6 +37,7 @@ export { getPreparedColumns, codeStudyAnswers } from './estimation/code-answers'
 export type { PreparedChoiceData, PreparedColumn } from './estimation/code-answers';
 export {
   hashChoiceData,
+  hashChoiceDataInTurns,
   toBuiltChoiceData,
   toLongCsvRows,
   toLongCsvText,

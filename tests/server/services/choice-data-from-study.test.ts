@@ -3,6 +3,7 @@ import { createHash } from 'node:crypto';
 import {
   codeStudyAnswers,
   hashChoiceData,
+  hashChoiceDataInTurns,
   loadStudyChoiceData,
   toBuiltChoiceData,
   toLongCsvRows,
@@ -10,6 +11,7 @@ import {
 } from '../../../server/services/choice-data-from-study';
 import type { VersionInput } from '../../../server/services/estimation/code-answers';
 import { StudyDataError } from '../../../server/services/estimation/study-data-error';
+import { HASH_SLICE_ROWS } from '../../../server/services/estimation/long-format';
 import { listStudyRespondents } from '../../../db/queries/study-respondents';
 import { eq } from 'drizzle-orm';
 import { respondents } from '../../../db/schema/fieldwork';
@@ -181,6 +183,26 @@ describe('codeStudyAnswers', () => {
     const other = codeStudyAnswers([makeVersion()], [r1, { ...r2, answers: answersOf(0, -1) }]);
     expect(hashChoiceData(other)).not.toBe(hashChoiceData(one));
     expect(hashChoiceData(one)).toBe(createHash('sha256').update(toLongCsvText(one)).digest('hex'));
+  });
+
+  it('takes the same hash in slices, across slice boundaries and quoted cells, as of the whole CSV', async () => {
+    const r1 = { id: 'b', versionId: 'v1', answers: answersOf(0, 1) };
+    const one = codeStudyAnswers([makeVersion()], [r1]);
+    const rowsPer = one.rows.length;
+    // Two and a half slices of rows, with respondent ids that need quoting ("r,7").
+    const count = Math.ceil((2.5 * HASH_SLICE_ROWS) / rowsPer) * rowsPer;
+    const big = {
+      ...one,
+      rows: Array.from({ length: count }, (_, i) => ({
+        ...one.rows[i % rowsPer],
+        respondent: `r,${Math.floor(i / rowsPer)}`,
+      })),
+    };
+    const whole = createHash('sha256').update(toLongCsvText(big)).digest('hex');
+    expect(toLongCsvText(big)).toContain('"r,7"');
+    expect(hashChoiceData(big)).toBe(whole);
+    expect(await hashChoiceDataInTurns(big)).toBe(whole);
+    expect(await hashChoiceDataInTurns(one)).toBe(hashChoiceData(one));
   });
 
   it('orders respondents by id in the data order of runs stored before (respondent-id)', () => {

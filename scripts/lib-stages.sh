@@ -2,22 +2,34 @@
 STAGE_NAMES=()
 STAGE_SECONDS=()
 STAGE_DETAILS=()
+STAGE_CPU=()
 # Set by pool(): each job's start and time, printed under its stage in the summary.
 POOL_DETAIL=""
 RUN_STARTED=$(date +%s)
+
+# The machine's CPU time so far, busy and idle, in seconds over all cores (/proc/stat's first
+# line: user nice system idle iowait irq softirq steal; iowait counts as idle), so that the
+# summary shows how much of the cores a stage used: every process, PostgreSQL and the browser
+# too, and whatever else ran on the machine meanwhile.
+machine_cpu() {
+  awk -v hz="$(getconf CLK_TCK)" '/^cpu / { printf "%.0f %.0f", ($2 + $3 + $4 + $7 + $8 + $9) / hz, ($5 + $6) / hz; exit }' /proc/stat
+}
 
 # stage NAME CMD...: run CMD under a heading and record its wall time (a failed stage too, so
 # the summary shows where the time went before the failure). CMD runs in a `||` context, where
 # errexit is off: commands given here must return their own failure.
 stage() {
-  local name="$1" t0 rc=0
+  local name="$1" t0 rc=0 busy0 idle0 busy1 idle1
   shift
   echo "== $name"
   t0=$(date +%s)
+  read -r busy0 idle0 < <(machine_cpu)
   POOL_DETAIL=""
   "$@" || rc=$?
   STAGE_NAMES+=("$name$([ $rc -eq 0 ] || echo " (FAILED)")")
   STAGE_SECONDS+=($(($(date +%s) - t0)))
+  read -r busy1 idle1 < <(machine_cpu)
+  STAGE_CPU+=("$((busy1 - busy0)) $((idle1 - idle0))")
   STAGE_DETAILS+=("$POOL_DETAIL")
   return $rc
 }
@@ -109,8 +121,10 @@ print_stage_times() {
   local rc=$? i
   echo
   echo "== time per stage (load average $(cut -d' ' -f1-3 /proc/loadavg))"
+  local busy idle
   for i in "${!STAGE_NAMES[@]}"; do
-    printf '  %-52s %5d s\n' "${STAGE_NAMES[$i]}" "${STAGE_SECONDS[$i]}"
+    read -r busy idle <<<"${STAGE_CPU[$i]:-0 0}"
+    printf '  %-52s %5d s   (machine CPU: %d s busy, %d s idle)\n' "${STAGE_NAMES[$i]}" "${STAGE_SECONDS[$i]}" "$busy" "$idle"
     printf '%s' "${STAGE_DETAILS[$i]:-}"
   done
   printf '  %-52s %5d s\n' "total" $(($(date +%s) - RUN_STARTED))

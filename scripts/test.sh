@@ -3,7 +3,8 @@
 # from Debian's packages), then one pool of jobs: the production build, then the Playwright
 # journeys in Debian's Chromium, vitest's API project (real PostgreSQL) and unit project (no
 # database), beside the typecheck, lint, format check and dependency audit. Prints the time of
-# every stage and of each job of the pool (with when it started) at the end.
+# every stage (with the machine's busy and idle CPU over it) and of each job of the pool (with
+# when it started) at the end.
 set -euo pipefail
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 cd "$ROOT"

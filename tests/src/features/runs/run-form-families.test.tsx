@@ -62,6 +62,22 @@ const options: RunOptions = {
   ],
 };
 
+/**
+ * Picks the model, enters `value` in the field labelled `label` (in place of what it held) and
+ * starts the run: the field's `message` shows and no request is sent.
+ */
+async function expectRefusedEntry(model: string, label: string, value: string, message: string) {
+  const { requests } = fakeFetch();
+  renderWithQuery(<RunForm teamId="t" studyId="s" options={options} />);
+  const user = userEvent.setup();
+  await user.selectOptions(screen.getByLabelText('Model'), model);
+  await user.clear(screen.getByLabelText(label));
+  await user.type(screen.getByLabelText(label), value);
+  await user.click(screen.getByRole('button', { name: 'Start run' }));
+  expect(await screen.findByText(message)).toBeInTheDocument();
+  expect(requests).toHaveLength(0);
+}
+
 describe('RunForm with hierarchical Bayes', () => {
   it('sends the sampler settings, the prior and correlation, and notes how coding meets the prior', async () => {
     const { requests } = fakeFetch({ status: 201, body: { id: 'r1' } });
@@ -101,28 +117,16 @@ describe('RunForm with hierarchical Bayes', () => {
   });
 
   it('when the MH steps are 0, shows the field error and sends nothing', async () => {
-    const { requests } = fakeFetch();
-    renderWithQuery(<RunForm teamId="t" studyId="s" options={options} />);
-    const user = userEvent.setup();
-    await user.selectOptions(screen.getByLabelText('Model'), 'hb');
-    await user.clear(screen.getByLabelText('MH steps per respondent'));
-    await user.type(screen.getByLabelText('MH steps per respondent'), '0');
-    await user.click(screen.getByRole('button', { name: 'Start run' }));
-    expect(await screen.findByText('Use at least 1 step')).toBeInTheDocument();
-    expect(requests).toHaveLength(0);
+    await expectRefusedEntry('hb', 'MH steps per respondent', '0', 'Use at least 1 step');
   });
 
   it('when the burn-in is as long as the iterations, shows the field error and sends nothing', async () => {
-    const { requests } = fakeFetch();
-    renderWithQuery(<RunForm teamId="t" studyId="s" options={options} />);
-    const user = userEvent.setup();
-    await user.selectOptions(screen.getByLabelText('Model'), 'hb');
-    await user.type(screen.getByLabelText('Burn-in'), '40000');
-    await user.click(screen.getByRole('button', { name: 'Start run' }));
-    expect(
-      await screen.findByText('Burn-in must be shorter than the iterations'),
-    ).toBeInTheDocument();
-    expect(requests).toHaveLength(0);
+    await expectRefusedEntry(
+      'hb',
+      'Burn-in',
+      '40000',
+      'Burn-in must be shorter than the iterations',
+    );
   });
 });
 
@@ -195,14 +199,11 @@ describe('RunForm with latent class', () => {
   });
 
   it('when the range is reversed, shows the error on the class fields and sends nothing', async () => {
-    const { requests } = fakeFetch();
-    renderWithQuery(<RunForm teamId="t" studyId="s" options={options} />);
-    const user = userEvent.setup();
-    await user.selectOptions(screen.getByLabelText('Model'), 'latent_class');
-    await user.clear(screen.getByLabelText('Fewest classes'));
-    await user.type(screen.getByLabelText('Fewest classes'), '5');
-    await user.click(screen.getByRole('button', { name: 'Start run' }));
-    expect(await screen.findByText('Give the range as [fewest, most] classes')).toBeInTheDocument();
-    expect(requests).toHaveLength(0);
+    await expectRefusedEntry(
+      'latent_class',
+      'Fewest classes',
+      '5',
+      'Give the range as [fewest, most] classes',
+    );
   });
 });

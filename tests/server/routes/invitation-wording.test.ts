@@ -7,7 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { useTestApp } from '../../support/test-app';
 import { uniqueEmail } from '../../support/factories';
-import { waitForMailTo } from '../../support/mailbox';
+import { rawSource, waitForMailTo } from '../../support/mailbox';
 import { getInviteeRow, insertStudy } from './fieldwork-fixtures';
 import { studies } from '../../../db/schema/studies';
 
@@ -38,12 +38,6 @@ async function studyWithInvitee(consentBody: string) {
     .expect(201);
   return { studyId, email };
 }
-
-const rawSource = async (mail: object) => {
-  const port = process.env.CW_TEST_MAIL_WEB_PORT ?? '1080';
-  const id = (mail as { id: string }).id;
-  return (await fetch(`http://127.0.0.1:${port}/api/email/${id}/source`)).text();
-};
 
 describe('invitation wording', () => {
   it('fills the placeholders, names the public title and stated duration, in text and HTML, from the study sender', async () => {

@@ -79,21 +79,20 @@ describe('invitation wording', () => {
   });
 
   it('by default states the duration the consent page gives, and leaves it out when it gives none', async () => {
-    const a = await studyWithInvitee('It takes about 8 minutes.');
-    await t.team.agents.editor
-      .post(`${studyUrl(a.studyId)}/invitees/send`)
-      .send({})
-      .expect(200);
-    const withDuration = await waitForMailTo(a.email);
+    // The invitation with the default wording, for a study whose consent page says `consent`.
+    const defaultInvitation = async (consent: string) => {
+      const { studyId, email } = await studyWithInvitee(consent);
+      await t.team.agents.editor
+        .post(`${studyUrl(studyId)}/invitees/send`)
+        .send({})
+        .expect(200);
+      return waitForMailTo(email);
+    };
+    const withDuration = await defaultInvitation('It takes about 8 minutes.');
     expect(withDuration.subject).toBe('Invitation: Your water services');
     expect(withDuration.text).toContain('It takes about 8 minutes and works on a phone');
 
-    const b = await studyWithInvitee('Thank you for taking part.');
-    await t.team.agents.editor
-      .post(`${studyUrl(b.studyId)}/invitees/send`)
-      .send({})
-      .expect(200);
-    const without = await waitForMailTo(b.email);
+    const without = await defaultInvitation('Thank you for taking part.');
     expect(without.text).not.toMatch(/takes|ten minutes/);
   });
 

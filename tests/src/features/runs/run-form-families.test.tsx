@@ -62,15 +62,21 @@ const options: RunOptions = {
   ],
 };
 
+/** Renders the run form with `runOptions` and picks `model`; the user to go on with. */
+async function renderWithModel(model: string, runOptions: RunOptions = options) {
+  renderWithQuery(<RunForm teamId="t" studyId="s" options={runOptions} />);
+  const user = userEvent.setup();
+  await user.selectOptions(screen.getByLabelText('Model'), model);
+  return user;
+}
+
 /**
  * Picks the model, enters `value` in the field labelled `label` (in place of what it held) and
  * starts the run: the field's `message` shows and no request is sent.
  */
 async function expectRefusedEntry(model: string, label: string, value: string, message: string) {
   const { requests } = fakeFetch();
-  renderWithQuery(<RunForm teamId="t" studyId="s" options={options} />);
-  const user = userEvent.setup();
-  await user.selectOptions(screen.getByLabelText('Model'), model);
+  const user = await renderWithModel(model);
   await user.clear(screen.getByLabelText(label));
   await user.type(screen.getByLabelText(label), value);
   await user.click(screen.getByRole('button', { name: 'Start run' }));
@@ -81,9 +87,7 @@ async function expectRefusedEntry(model: string, label: string, value: string, m
 describe('RunForm with hierarchical Bayes', () => {
   it('sends the sampler settings, the prior and correlation, and notes how coding meets the prior', async () => {
     const { requests } = fakeFetch({ status: 201, body: { id: 'r1' } });
-    renderWithQuery(<RunForm teamId="t" studyId="s" options={options} />);
-    const user = userEvent.setup();
-    await user.selectOptions(screen.getByLabelText('Model'), 'hb');
+    const user = await renderWithModel('hb');
     expect(screen.getByText(/The priors act on the coefficients as coded/)).toBeInTheDocument();
     expect(screen.queryByText('Estimation settings')).not.toBeInTheDocument();
     // HB offers no triangular or uniform tastes.
@@ -133,9 +137,7 @@ describe('RunForm with hierarchical Bayes', () => {
 describe('RunForm with latent class', () => {
   it('sends a class range with fixed coefficients and ten starts', async () => {
     const { requests } = fakeFetch({ status: 201, body: { id: 'r1' } });
-    renderWithQuery(<RunForm teamId="t" studyId="s" options={options} />);
-    const user = userEvent.setup();
-    await user.selectOptions(screen.getByLabelText('Model'), 'latent_class');
+    const user = await renderWithModel('latent_class');
     expect(screen.getByLabelText('Distribution of River health: good')).toHaveValue('fixed');
     expect(screen.getByLabelText('EM starts per class count')).toHaveValue(10);
     await user.click(screen.getByRole('button', { name: 'Start run' }));
@@ -148,9 +150,7 @@ describe('RunForm with latent class', () => {
 
   it('sends the background questions picked for class membership, and states the coding', async () => {
     const { requests } = fakeFetch({ status: 201, body: { id: 'r1' } });
-    renderWithQuery(<RunForm teamId="t" studyId="s" options={options} />);
-    const user = userEvent.setup();
-    await user.selectOptions(screen.getByLabelText('Model'), 'latent_class');
+    const user = await renderWithModel('latent_class');
     const group = screen.getByRole('group', { name: 'Class membership depends on (optional)' });
     expect(group).toHaveAccessibleDescription(/a “not answered” column is added/);
     await user.click(screen.getByRole('checkbox', { name: /Do you filter your tap water/ }));
@@ -177,9 +177,7 @@ describe('RunForm with latent class', () => {
         },
       },
     });
-    renderWithQuery(<RunForm teamId="t" studyId="s" options={options} />);
-    const user = userEvent.setup();
-    await user.selectOptions(screen.getByLabelText('Model'), 'latent_class');
+    const user = await renderWithModel('latent_class');
     await user.click(screen.getByRole('checkbox', { name: /Do you filter your tap water/ }));
     await user.click(screen.getByRole('button', { name: 'Start run' }));
     expect(
@@ -189,11 +187,7 @@ describe('RunForm with latent class', () => {
 
   it('says so when the study has no usable background questions', async () => {
     fakeFetch();
-    renderWithQuery(
-      <RunForm teamId="t" studyId="s" options={{ ...options, membershipQuestions: [] }} />,
-    );
-    const user = userEvent.setup();
-    await user.selectOptions(screen.getByLabelText('Model'), 'latent_class');
+    await renderWithModel('latent_class', { ...options, membershipQuestions: [] });
     expect(screen.getByText(/no single-choice or number background questions/)).toBeInTheDocument();
     expect(screen.queryAllByRole('checkbox', { name: /household|tap water/ })).toHaveLength(0);
   });

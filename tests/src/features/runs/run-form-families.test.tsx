@@ -6,7 +6,7 @@ import { cleanup, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import type { RunOptions } from '@shared/schemas/run';
 import { RunForm } from '@/features/runs/components/run-form';
-import { fakeFetch, renderWithQuery } from '../../support/render';
+import { fakeFetch, fieldRefusal, renderWithQuery } from '../../support/render';
 
 afterEach(() => {
   cleanup();
@@ -162,21 +162,19 @@ describe('RunForm with latent class', () => {
   });
 
   it('when the server refuses a membership question, shows its message at the questions', async () => {
-    fakeFetch({
-      status: 400,
-      body: {
-        error: {
-          code: 'invalid_input',
-          message: 'Everyone in this run gave the same answer to filter_tap',
-          fields: [
-            {
-              path: 'spec.membership.0',
-              message: 'The questionnaire has no background question filter_tap',
-            },
-          ],
-        },
-      },
-    });
+    fakeFetch(
+      fieldRefusal(
+        400,
+        'invalid_input',
+        'Everyone in this run gave the same answer to filter_tap',
+        [
+          {
+            path: 'spec.membership.0',
+            message: 'The questionnaire has no background question filter_tap',
+          },
+        ],
+      ),
+    );
     const user = await renderWithModel('latent_class');
     await user.click(screen.getByRole('checkbox', { name: /Do you filter your tap water/ }));
     await user.click(screen.getByRole('button', { name: 'Start run' }));

@@ -14,14 +14,13 @@ import {
   expectQuestionnaireRefused,
   fullQuestionnaire,
   insertStudy,
+  sendAnswer,
+  type LiveScreen,
+  type LiveSession,
 } from './respond-fixtures';
 import { requiredSingleQuestion } from '../../../shared/schemas/required-single-question';
 
 const t = useTestApp({}, { signIn: 'owner' });
-
-const TOKEN = 'x-respondent-token';
-type Screen = Parameters<typeof answerFor>[0];
-type Session = { sessionToken: string; screens: Screen[] };
 
 /** The fixture's screening page asks an age group instead, with two quota cells. */
 function withAgeQuotas(cells: Partial<QuotaCell>[]): Questionnaire {
@@ -59,25 +58,21 @@ async function liveStudy(questionnaire: Questionnaire, settings: unknown = {}) {
   return study;
 }
 
-const start = async (publicId: string): Promise<Session> =>
+const start = async (publicId: string): Promise<LiveSession> =>
   (await t.request().post(`/api/r/${publicId}/sessions`).send({}).expect(201)).body;
 
-const answer = (publicId: string, s: Session, screen: Screen, over: object = {}) =>
-  t
-    .request()
-    .post(`/api/r/${publicId}/answers`)
-    .set(TOKEN, s.sessionToken)
-    .send(answerFor(screen, over));
+const answer = (publicId: string, s: LiveSession, screen: LiveScreen, over: object = {}) =>
+  sendAnswer(t, publicId, s.sessionToken, 'answers', answerFor(screen, over));
 
 const pick = (optionId: string) => ({ value: { kind: 'single', optionId } });
 
 /** Consent, then the screening answer `optionId`; returns the screening receipt. */
-async function screenAs(publicId: string, s: Session, optionId: string) {
+async function screenAs(publicId: string, s: LiveSession, optionId: string) {
   await answer(publicId, s, s.screens[0]).expect(201);
   return answer(publicId, s, s.screens[1], pick(optionId));
 }
 
-async function finish(publicId: string, s: Session) {
+async function finish(publicId: string, s: LiveSession) {
   let last: supertest.Response | null = null;
   for (const screen of s.screens.slice(2)) {
     last = await answer(publicId, s, screen);
@@ -86,7 +81,7 @@ async function finish(publicId: string, s: Session) {
   return last!;
 }
 
-const statusOf = async (s: Session) =>
+const statusOf = async (s: LiveSession) =>
   (
     await t.deps.db
       .select({ status: respondents.status })

@@ -10,6 +10,7 @@ import { e2eDatabaseUrl } from './support/database';
 import { createLiveStudy } from './support/live-study';
 import { expectNoSeriousAxeViolations } from './support/axe';
 import { newApiContext } from './support/api-context';
+import { answerTasksAlike } from './support/choice-tasks';
 
 async function stored(publicId: string, pid: string) {
   const db = new pg.Client({ connectionString: e2eDatabaseUrl() });
@@ -72,11 +73,7 @@ for (const width of [360, 1280]) {
     await page.getByRole('radio', { name: 'Current service' }).check();
     await page.getByRole('button', { name: 'Next' }).click();
     // On to the first screen not yet answered.
-    for (const n of [2, 3, 4]) {
-      await expect(page.getByText(`Choice ${n} of 4`, { exact: true })).toBeVisible();
-      await page.getByRole('radio', { name: 'Option A' }).check();
-      await page.getByRole('button', { name: 'Next' }).click();
-    }
+    await answerTasksAlike(page, [2, 3, 4], 4, 'Option A');
 
     const household = page.getByLabel('How many people live in your household, including you?');
     await household.fill('2');

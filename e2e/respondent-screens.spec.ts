@@ -9,6 +9,7 @@ import { expect, test, type Page } from '@playwright/test';
 import { createLiveStudy, larkspurDefinition } from './support/live-study';
 import { expectNoSeriousAxeViolations } from './support/axe';
 import { newApiContext } from './support/api-context';
+import { answerTasksAlike } from './support/choice-tasks';
 
 const WIDTHS = [320, 360, 414, 1280];
 
@@ -64,11 +65,7 @@ for (const width of WIDTHS) {
     await expect(page.getByRole('radio', { name: 'Option B' })).toBeChecked();
     await check(page, width, 'task-chosen');
     await page.getByRole('button', { name: 'Next' }).click();
-    for (const n of [2, 3, 4]) {
-      await expect(page.getByText(`Choice ${n} of 4`, { exact: true })).toBeVisible();
-      await page.getByRole('radio', { name: 'Current service' }).check();
-      await page.getByRole('button', { name: 'Next' }).click();
-    }
+    await answerTasksAlike(page, [2, 3, 4], 4, 'Current service');
 
     const household = page.getByLabel('How many people live in your household, including you?');
     await expect(household).toBeVisible();

@@ -8,6 +8,7 @@ import { expect, test, type Page } from '@playwright/test';
 import { e2eDatabaseUrl } from './support/database';
 import { createLiveStudy } from './support/live-study';
 import { newApiContext } from './support/api-context';
+import { choiceHeading } from './support/choice-tasks';
 
 test.use({ viewport: { width: 360, height: 740 }, hasTouch: true });
 
@@ -16,9 +17,6 @@ async function chooseAndGoOn(page: Page, option: string) {
   await expect(page.getByRole('radio', { name: option })).toBeChecked();
   await page.getByRole('button', { name: 'Next' }).click();
 }
-
-const choiceHeading = (page: Page, n: number, of: number) =>
-  page.getByText(`Choice ${n} of ${of}`, { exact: true });
 
 test('a respondent answers every screen on a phone, survives a reload and a dropped connection', async ({
   page,

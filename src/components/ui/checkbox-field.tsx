@@ -58,3 +58,35 @@ export function CompareCheckbox({
     />
   );
 }
+
+/**
+ * One labelled checkbox per item, for picking several of a list: `selected` holds the ids of
+ * the ticked items, and each tick or untick reports the whole new list.
+ */
+export function CheckboxList({
+  items,
+  selected,
+  onChange,
+  boxClassName,
+}: {
+  items: readonly { id: string; label: ReactNode }[];
+  selected: string[];
+  onChange: (ids: string[]) => void;
+  boxClassName: string;
+}) {
+  return items.map((item) => (
+    <label key={item.id} className="flex items-center gap-2 text-sm text-ink">
+      <input
+        type="checkbox"
+        className={boxClassName}
+        checked={selected.includes(item.id)}
+        onChange={(e) =>
+          onChange(
+            e.target.checked ? [...selected, item.id] : selected.filter((x) => x !== item.id),
+          )
+        }
+      />
+      {item.label}
+    </label>
+  ));
+}

@@ -10,24 +10,11 @@ import {
 } from '../../../server/engine/estimation/simulate-choice-data';
 import type { TrueCoefficient } from '../../../server/engine/estimation/simulate-panel-choices';
 import { computeTasteProfiles } from '../../../server/engine/estimation/taste-profiles';
+import { pearson } from '../../support/pearson';
 
 const truth: TrueCoefficient[] = [normalQuality, negLognormalPrice(0.6)];
 const coefficients = truth.map(({ name, distribution }) => ({ name, distribution }));
 const trueTheta = [1.0, -0.5, 0.8, 0.6];
-
-function correlation(a: number[], b: number[]): number {
-  const ma = a.reduce((s, x) => s + x, 0) / a.length;
-  const mb = b.reduce((s, x) => s + x, 0) / b.length;
-  let sab = 0;
-  let saa = 0;
-  let sbb = 0;
-  a.forEach((x, i) => {
-    sab += (x - ma) * (b[i] - mb);
-    saa += (x - ma) ** 2;
-    sbb += (b[i] - mb) ** 2;
-  });
-  return sab / Math.sqrt(saa * sbb);
-}
 
 /** Profiles at the TRUE population parameters, so only the number of tasks varies. */
 function profilesFor(tasks: number) {
@@ -50,11 +37,11 @@ describe('computeTasteProfiles (Revelt & Train 2000; Train 2009 ch. 11)', () => 
 
   it('correlation between true coefficients and conditional means rises with the number of tasks', () => {
     // Common practice, no source: more choices per person → posterior closer to the truth.
-    const rFew = correlation(
+    const rFew = pearson(
       few.trueQuality,
       few.result.profiles.map((p) => p.mean.quality),
     );
-    const rMany = correlation(
+    const rMany = pearson(
       many.trueQuality,
       many.result.profiles.map((p) => p.mean.quality),
     );

@@ -11,6 +11,7 @@ import { fitMixedLogit } from '../../../server/engine/estimation/fit-mixed-logit
 import { simulateChoiceData } from '../../../server/engine/estimation/simulate-choice-data';
 import { computeTasteProfiles } from '../../../server/engine/estimation/taste-profiles';
 import { fitHb, type HbResult } from '../../../server/engine/hb/fit-hb';
+import { pearson } from '../../support/pearson';
 
 const truth = [
   { name: 'river', distribution: 'normal' as const, location: 0.8, spread: 0.6 },
@@ -32,20 +33,6 @@ const { sim, data, coefficients } = simulateChoiceData({
   coefficients: truth,
   seed: 31,
 });
-
-function pearson(x: number[], y: number[]): number {
-  const mx = x.reduce((a, b) => a + b, 0) / x.length;
-  const my = y.reduce((a, b) => a + b, 0) / y.length;
-  let sxy = 0;
-  let sxx = 0;
-  let syy = 0;
-  x.forEach((xi, i) => {
-    sxy += (xi - mx) * (y[i] - my);
-    sxx += (xi - mx) ** 2;
-    syy += (y[i] - my) ** 2;
-  });
-  return sxy / Math.sqrt(sxx * syy);
-}
 
 let hb: HbResult;
 let mixedMeans: Record<string, number>[];

@@ -7,7 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { useTestApp } from '../../support/test-app';
 import { uniqueEmail } from '../../support/factories';
-import { waitForMailTo } from '../../support/mailbox';
+import { rawSource, waitForMailTo } from '../../support/mailbox';
 import { getInviteeRow, insertStudy } from './fieldwork-fixtures';
 import { studies } from '../../../db/schema/studies';
 
@@ -38,12 +38,6 @@ async function studyWithInvitee(consentBody: string) {
     .expect(201);
   return { studyId, email };
 }
-
-const rawSource = async (mail: object) => {
-  const port = process.env.CW_TEST_MAIL_WEB_PORT ?? '1080';
-  const id = (mail as { id: string }).id;
-  return (await fetch(`http://127.0.0.1:${port}/api/email/${id}/source`)).text();
-};
 
 describe('invitation wording', () => {
   it('fills the placeholders, names the public title and stated duration, in text and HTML, from the study sender', async () => {
@@ -85,21 +79,20 @@ describe('invitation wording', () => {
   });
 
   it('by default states the duration the consent page gives, and leaves it out when it gives none', async () => {
-    const a = await studyWithInvitee('It takes about 8 minutes.');
-    await t.team.agents.editor
-      .post(`${studyUrl(a.studyId)}/invitees/send`)
-      .send({})
-      .expect(200);
-    const withDuration = await waitForMailTo(a.email);
+    // The invitation with the default wording, for a study whose consent page says `consent`.
+    const defaultInvitation = async (consent: string) => {
+      const { studyId, email } = await studyWithInvitee(consent);
+      await t.team.agents.editor
+        .post(`${studyUrl(studyId)}/invitees/send`)
+        .send({})
+        .expect(200);
+      return waitForMailTo(email);
+    };
+    const withDuration = await defaultInvitation('It takes about 8 minutes.');
     expect(withDuration.subject).toBe('Invitation: Your water services');
     expect(withDuration.text).toContain('It takes about 8 minutes and works on a phone');
 
-    const b = await studyWithInvitee('Thank you for taking part.');
-    await t.team.agents.editor
-      .post(`${studyUrl(b.studyId)}/invitees/send`)
-      .send({})
-      .expect(200);
-    const without = await waitForMailTo(b.email);
+    const without = await defaultInvitation('Thank you for taking part.');
     expect(without.text).not.toMatch(/takes|ten minutes/);
   });
 

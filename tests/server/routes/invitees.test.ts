@@ -3,7 +3,7 @@ import type supertest from 'supertest';
 import { eq } from 'drizzle-orm';
 import { useTestApp } from '../../support/test-app';
 import { createTeamWithAllRoles, randomHex, uniqueEmail } from '../../support/factories';
-import { firstLink, listMailTo, waitForMailTo } from '../../support/mailbox';
+import { firstLink, listMailTo, rawSource, waitForMailTo } from '../../support/mailbox';
 import { getInviteeRow, insertRespondent, insertStudy } from './fieldwork-fixtures';
 import { invitees } from '../../../db/schema/fieldwork';
 import type { Role } from '../../../shared/permissions';
@@ -26,12 +26,6 @@ const upload = (
   let req = agent.post(url);
   for (const [k, v] of Object.entries(fields)) req = req.field(k, v);
   return req.attach('file', body, { filename: 'invitees.csv', contentType: 'text/csv' });
-};
-/** The raw message as delivered (the fake server's summary drops some headers). */
-const rawSource = async (mail: object) => {
-  const id = (mail as { id: string }).id;
-  const port = process.env.CW_TEST_MAIL_WEB_PORT ?? '1080';
-  return (await fetch(`http://127.0.0.1:${port}/api/email/${id}/source`)).text();
 };
 const countInvitees = async (studyId: string) =>
   (await t.deps.db.select().from(invitees).where(eq(invitees.studyId, studyId))).length;

@@ -4,7 +4,8 @@
  */
 import { nanoid } from 'nanoid';
 import { invitees } from '../../../db/schema/fieldwork';
-import type { TestApp } from '../../support/test-app';
+import { expect } from 'vitest';
+import type { FileTestApp, TestApp } from '../../support/test-app';
 import { makeStudyDefinition } from '../../../scripts/lib/study-factory/definition';
 import { insertStudyRow } from '../../../scripts/lib/study-factory/insert-study';
 import type { Design } from '../../../shared/schemas/design';
@@ -89,6 +90,19 @@ export async function insertStudy(
     settings: opts.settings,
   });
   return { id: study.studyId, publicId: study.publicId };
+}
+
+/**
+ * Saves `questionnaire` on a new study as its owner and expects a 400 that changes nothing (the
+ * stored questionnaire reads as before); gives the refusal, for its error to be checked.
+ */
+export async function expectQuestionnaireRefused(t: FileTestApp<'owner'>, questionnaire: unknown) {
+  const study = await insertStudy(t, t.teamId);
+  const url = `/api/teams/${t.teamId}/studies/${study.id}/questionnaire`;
+  const before = (await t.owner.get(url).expect(200)).body;
+  const res = await t.owner.put(url).send({ questionnaire }).expect(400);
+  expect((await t.owner.get(url).expect(200)).body).toEqual(before);
+  return res;
 }
 
 export async function insertInvitee(t: TestApp, studyId: string, externalId: string | null = null) {

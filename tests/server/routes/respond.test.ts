@@ -36,12 +36,15 @@ async function rowsOf(respondentToken: string) {
   return { respondent: r, answers: rows };
 }
 
+type StartedSession = { sessionToken: string; screens: never[] };
+
+/** Sends the answer `answerFor` gives for the session's screen number `index`. */
+function answerScreen(publicId: string, session: StartedSession, index: number) {
+  return answer(publicId, session.sessionToken, answerFor(session.screens[index]));
+}
+
 /** Answers screens in order until `stopAfter` screens are answered (all by default). */
-async function walk(
-  publicId: string,
-  session: { sessionToken: string; screens: never[] },
-  stopAfter = Infinity,
-) {
+async function walk(publicId: string, session: StartedSession, stopAfter = Infinity) {
   let last: supertest.Response | null = null;
   for (const screen of session.screens.slice(0, stopAfter)) {
     last = await answer(publicId, session.sessionToken, answerFor(screen));
@@ -209,12 +212,8 @@ describe('POST /api/r/:publicId/answers', () => {
   it('when a different answer comes for an answered screen, returns 409 already_answered', async () => {
     const s = await liveStudy();
     const session = (await start(s.publicId).expect(201)).body;
-    await answer(s.publicId, session.sessionToken, answerFor(session.screens[0])).expect(201);
-    const res = await answer(
-      s.publicId,
-      session.sessionToken,
-      answerFor(session.screens[0]),
-    ).expect(409);
+    await answerScreen(s.publicId, session, 0).expect(201);
+    const res = await answerScreen(s.publicId, session, 0).expect(409);
     expect(res.body.error.code).toBe('already_answered');
     expect((await rowsOf(session.sessionToken)).answers).toHaveLength(1);
   });
@@ -222,11 +221,7 @@ describe('POST /api/r/:publicId/answers', () => {
   it('when a screen is skipped, returns 409 out_of_order and stores nothing', async () => {
     const s = await liveStudy();
     const session = (await start(s.publicId).expect(201)).body;
-    const res = await answer(
-      s.publicId,
-      session.sessionToken,
-      answerFor(session.screens[2]),
-    ).expect(409);
+    const res = await answerScreen(s.publicId, session, 2).expect(409);
     expect(res.body.error).toMatchObject({
       code: 'out_of_order',
       fields: [{ path: 'screenKey', message: 'Expected consent' }],
@@ -325,11 +320,7 @@ describe('POST /api/r/:publicId/answers', () => {
     const s = await liveStudy();
     const session = (await start(s.publicId).expect(201)).body;
     await walk(s.publicId, session);
-    const res = await answer(
-      s.publicId,
-      session.sessionToken,
-      answerFor(session.screens[1]),
-    ).expect(409);
+    const res = await answerScreen(s.publicId, session, 1).expect(409);
     expect(res.body.error.code).toBe('already_completed');
   });
 
@@ -338,7 +329,7 @@ describe('POST /api/r/:publicId/answers', () => {
       settings: { redirects: { screenedOut: 'https://panel.example/out/{pid}' } },
     });
     const session = (await start(s.publicId, { params: { pid: 'Z9' } }).expect(201)).body;
-    await answer(s.publicId, session.sessionToken, answerFor(session.screens[0])).expect(201);
+    await answerScreen(s.publicId, session, 0).expect(201);
     const res = await answer(s.publicId, session.sessionToken, {
       ...answerFor(session.screens[1]),
       value: { kind: 'single', optionId: 'no' },
@@ -347,7 +338,7 @@ describe('POST /api/r/:publicId/answers', () => {
       status: 'screened_out',
       redirectUrl: 'https://panel.example/out/Z9',
     });
-    await answer(s.publicId, session.sessionToken, answerFor(session.screens[2])).expect(409);
+    await answerScreen(s.publicId, session, 2).expect(409);
   });
 
   it('screens out by the question key even when another page has the same id', async () => {
@@ -368,11 +359,7 @@ describe('POST /api/r/:publicId/answers', () => {
     const s = await liveStudy();
     const session = (await start(s.publicId).expect(201)).body;
     await t.owner.post(lifecycleUrl(s.id, 'close')).expect(200);
-    const res = await answer(
-      s.publicId,
-      session.sessionToken,
-      answerFor(session.screens[0]),
-    ).expect(410);
+    const res = await answerScreen(s.publicId, session, 0).expect(410);
     expect(res.body.error.code).toBe('survey_closed');
     expect((await rowsOf(session.sessionToken)).answers).toHaveLength(0);
   });
@@ -382,11 +369,7 @@ describe('POST /api/r/:publicId/answers', () => {
     const session = (await start(s.publicId).expect(201)).body;
     await t.owner.post(lifecycleUrl(s.id, 'close')).expect(200);
     await t.owner.post(lifecycleUrl(s.id, 'return-to-draft')).expect(200);
-    const res = await answer(
-      s.publicId,
-      session.sessionToken,
-      answerFor(session.screens[0]),
-    ).expect(409);
+    const res = await answerScreen(s.publicId, session, 0).expect(409);
     expect(res.body.error.code).toBe('survey_not_open');
   });
 

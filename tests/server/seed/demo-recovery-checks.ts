@@ -37,21 +37,7 @@ import type { RunResult } from '../../../shared/schemas/run';
 import { getStudyById } from '../../../db/queries/studies';
 import type { DemoWorld } from '../../support/demo-world';
 import { teamActor } from '../../support/factories';
-
-function pearson(x: number[], y: number[]): number {
-  const n = x.length;
-  const mx = x.reduce((a, b) => a + b, 0) / n;
-  const my = y.reduce((a, b) => a + b, 0) / n;
-  let sxy = 0;
-  let sxx = 0;
-  let syy = 0;
-  for (let i = 0; i < n; i++) {
-    sxy += (x[i] - mx) * (y[i] - my);
-    sxx += (x[i] - mx) ** 2;
-    syy += (y[i] - my) ** 2;
-  }
-  return sxy / Math.sqrt(sxx * syy);
-}
+import { pearson } from '../../support/pearson';
 
 export function describeDemoRecovery(world: () => DemoWorld) {
   let result: RunResult;

@@ -21,19 +21,24 @@ async function newRespondent() {
   return { sessionToken, session, respondent };
 }
 
+type NewSession = Awaited<ReturnType<typeof newRespondent>>['session'];
+
+/** The answer to the session's first screen, as saveAnswer takes it. */
+const firstScreenAnswer = (session: NewSession) =>
+  answerFor(session.screens[0]) as Parameters<typeof saveAnswer>[1]['answer'];
+
+const storedAnswersOf = (respondentId: string) =>
+  t.deps.db.select().from(answers).where(eq(answers.respondentId, respondentId));
+
 describe('saveAnswer under concurrency', () => {
   it('when the same answer arrives many times at once, stores exactly one row', async () => {
     const { sessionToken, session, respondent } = await newRespondent();
-    const answer = answerFor(session.screens[0]) as Parameters<typeof saveAnswer>[1]['answer'];
+    const answer = firstScreenAnswer(session);
     const receipts = await Promise.all(
       Array.from({ length: 8 }, () => saveAnswer(t.deps.db, { studyId, sessionToken, answer })),
     );
     expect(receipts.filter((r) => !r.replay)).toHaveLength(1);
-    const rows = await t.deps.db
-      .select()
-      .from(answers)
-      .where(eq(answers.respondentId, respondent.id));
-    expect(rows).toHaveLength(1);
+    expect(await storedAnswersOf(respondent.id)).toHaveLength(1);
   });
 
   it('when two different answers race for one screen, keeps one and refuses the other', async () => {
@@ -43,23 +48,19 @@ describe('saveAnswer under concurrency', () => {
         saveAnswer(t.deps.db, {
           studyId,
           sessionToken,
-          answer: answerFor(session.screens[0]) as Parameters<typeof saveAnswer>[1]['answer'],
+          answer: firstScreenAnswer(session),
         }),
       ),
     );
     expect(results.filter((r) => r.status === 'fulfilled')).toHaveLength(1);
     const refused = results.find((r) => r.status === 'rejected') as PromiseRejectedResult;
     expect(refused.reason.code).toBe('already_answered');
-    const rows = await t.deps.db
-      .select()
-      .from(answers)
-      .where(eq(answers.respondentId, respondent.id));
-    expect(rows).toHaveLength(1);
+    expect(await storedAnswersOf(respondent.id)).toHaveLength(1);
   });
 
   it('a client id reused for another screen is refused', async () => {
     const { sessionToken, session } = await newRespondent();
-    const first = answerFor(session.screens[0]) as Parameters<typeof saveAnswer>[1]['answer'];
+    const first = firstScreenAnswer(session);
     await saveAnswer(t.deps.db, { studyId, sessionToken, answer: first });
     const second = { ...(answerFor(session.screens[1]) as typeof first), clientId: first.clientId };
     await expect(

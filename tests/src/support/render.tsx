@@ -34,3 +34,16 @@ export function fakeFetch(...answers: FakeAnswer[]) {
   vi.stubGlobal('fetch', fn);
   return { fn, requests };
 }
+
+/**
+ * The server's refusal naming form fields, as the API sends it: the status, an error code and
+ * message, and each field's path with its message.
+ */
+export function fieldRefusal(
+  status: number,
+  code: string,
+  message: string,
+  fields: { path: string; message: string }[],
+): FakeAnswer {
+  return { status, body: { error: { code, message, fields } } };
+}

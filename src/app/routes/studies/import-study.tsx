@@ -23,11 +23,28 @@ import { BackLink } from '@/components/ui/back-link';
 const fileInput =
   'block w-full text-sm text-ink-soft file:mr-3 file:h-9 file:rounded-md file:border file:border-line file:bg-white file:px-3 file:text-sm file:font-medium file:text-ink hover:file:border-primary';
 
+/** A labelled input for one CSV file; `onPick` gets the chosen file, or null when cleared. */
+function CsvFilePicker({ label, onPick }: { label: string; onPick: (file: File | null) => void }) {
+  const id = useId();
+  return (
+    <div>
+      <label htmlFor={id} className="block text-sm font-medium text-ink">
+        {label}
+      </label>
+      <input
+        id={id}
+        type="file"
+        accept=".csv,text/csv,text/plain"
+        className={fileInput}
+        onChange={(e) => onPick(e.target.files?.[0] ?? null)}
+      />
+    </div>
+  );
+}
+
 export function Component() {
   const { teamId, can } = useCurrentTeam();
   const navigate = useNavigate();
-  const choicesId = useId();
-  const backgroundId = useId();
   const [choices, setChoices] = useState<File | null>(null);
   const [background, setBackground] = useState<File | null>(null);
   const [round, setRound] = useState(0);
@@ -36,6 +53,12 @@ export function Component() {
   const preview = usePreviewStudyImport(teamId);
   const save = useSaveStudyImport(teamId);
   const files = choices ? { choices, background } : null;
+  // A new file makes the last preview stale.
+  const pickFile = (set: (file: File | null) => void) => (file: File | null) => {
+    set(file);
+    setLatest(null);
+    preview.reset();
+  };
 
   const check = (setup?: ImportSetupInput) => {
     if (!files) return;
@@ -72,38 +95,14 @@ export function Component() {
       />
       <Card title="1. Files" className="max-w-3xl">
         <div className="space-y-4">
-          <div>
-            <label htmlFor={choicesId} className="block text-sm font-medium text-ink">
-              Choice file (CSV, one row per alternative)
-            </label>
-            <input
-              id={choicesId}
-              type="file"
-              accept=".csv,text/csv,text/plain"
-              className={fileInput}
-              onChange={(e) => {
-                setChoices(e.target.files?.[0] ?? null);
-                setLatest(null);
-                preview.reset();
-              }}
-            />
-          </div>
-          <div>
-            <label htmlFor={backgroundId} className="block text-sm font-medium text-ink">
-              Background answers (optional CSV, one row per respondent)
-            </label>
-            <input
-              id={backgroundId}
-              type="file"
-              accept=".csv,text/csv,text/plain"
-              className={fileInput}
-              onChange={(e) => {
-                setBackground(e.target.files?.[0] ?? null);
-                setLatest(null);
-                preview.reset();
-              }}
-            />
-          </div>
+          <CsvFilePicker
+            label="Choice file (CSV, one row per alternative)"
+            onPick={pickFile(setChoices)}
+          />
+          <CsvFilePicker
+            label="Background answers (optional CSV, one row per respondent)"
+            onPick={pickFile(setBackground)}
+          />
           <ImportFormatHelp />
           <Button disabled={!choices} busy={preview.isPending} onClick={() => check()}>
             Check the files

@@ -52,6 +52,24 @@ function AppCodeField({
   );
 }
 
+/**
+ * The form that sends one code from the app and gets a fresh set of recovery codes back: the
+ * same exchange turns two-step sign-in on and renews the codes later.
+ */
+function useCodeForRecoveryCodes(
+  send: (values: EnableTwoStepInput) => Promise<{ recoveryCodes: string[] }>,
+  onCodes: (codes: string[]) => void,
+) {
+  const form = useForm<EnableTwoStepInput>({
+    resolver: zodResolver(enableTwoStepSchema),
+    defaultValues: { code: '' },
+  });
+  const onSubmit = submitForm(form, async (values) => {
+    onCodes((await send(values)).recoveryCodes);
+  });
+  return { form, onSubmit };
+}
+
 function SetupSteps({
   setup,
   onEnabled,
@@ -60,13 +78,7 @@ function SetupSteps({
   onEnabled: (c: string[]) => void;
 }) {
   const enable = useEnableTwoStep();
-  const form = useForm<EnableTwoStepInput>({
-    resolver: zodResolver(enableTwoStepSchema),
-    defaultValues: { code: '' },
-  });
-  const onSubmit = submitForm(form, async (values) => {
-    onEnabled((await enable.mutateAsync(values)).recoveryCodes);
-  });
+  const { form, onSubmit } = useCodeForRecoveryCodes(enable.mutateAsync, onEnabled);
   return (
     <form onSubmit={onSubmit} className="space-y-4" noValidate aria-label="Set up two-step sign-in">
       <ol className="list-decimal space-y-4 ps-5 text-sm text-ink-soft">
@@ -144,13 +156,7 @@ function DisableForm({ onDone }: { onDone: () => void }) {
 
 function RenewForm({ onRenewed }: { onRenewed: (c: string[]) => void }) {
   const renew = useRenewRecoveryCodes();
-  const form = useForm<EnableTwoStepInput>({
-    resolver: zodResolver(enableTwoStepSchema),
-    defaultValues: { code: '' },
-  });
-  const onSubmit = submitForm(form, async (values) => {
-    onRenewed((await renew.mutateAsync(values)).recoveryCodes);
-  });
+  const { form, onSubmit } = useCodeForRecoveryCodes(renew.mutateAsync, onRenewed);
   return (
     <form onSubmit={onSubmit} className="space-y-4" noValidate aria-label="New recovery codes">
       <p className="text-sm text-ink-soft">The codes you have now stop working.</p>

@@ -1,19 +1,17 @@
 import type { StudyDefinition } from '@shared/schemas/study-definition';
 import { Card } from '@/components/ui/feedback';
 import { SelectField, TextField } from '@/components/ui/field';
-import type { FieldErrors } from '../utils/field-errors';
+import type { DefinitionSectionProps } from '../utils/definition-section';
 import { resizeLabels } from '../utils/definition-drafts';
 import { Options } from '@/components/ui/options';
 
-type Props = {
-  definition: StudyDefinition;
-  errors: FieldErrors;
-  readOnly: boolean;
-  onChange: (d: StudyDefinition) => void;
-};
-
 /** How many alternatives a task shows, and whether they carry names (labeled). */
-export function AlternativesSettings({ definition: d, errors, readOnly, onChange }: Props) {
+export function AlternativesSettings({
+  definition: d,
+  errors,
+  readOnly,
+  onChange,
+}: DefinitionSectionProps) {
   const alt = d.alternatives;
   const setAlt = (next: StudyDefinition['alternatives']) => onChange({ ...d, alternatives: next });
   return (

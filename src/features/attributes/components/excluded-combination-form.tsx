@@ -16,6 +16,7 @@ import { SelectField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { newId } from '../utils/definition-drafts';
 import { Options } from '@/components/ui/options';
+import { CheckboxList } from '@/components/ui/checkbox-field';
 
 type Kind = ExcludedCombination['kind'];
 
@@ -97,19 +98,12 @@ function LevelChecks(props: {
   return (
     <fieldset className="space-y-1">
       <legend className="text-sm font-medium text-ink">{legend}</legend>
-      {attribute.levels.map((l, i) => (
-        <label key={l.id} className="flex items-center gap-2 text-sm text-ink">
-          <input
-            type="checkbox"
-            className="size-4 accent-primary"
-            checked={chosen.includes(l.id)}
-            onChange={(e) =>
-              onChange(e.target.checked ? [...chosen, l.id] : chosen.filter((x) => x !== l.id))
-            }
-          />
-          {levelName(attribute, l, i)}
-        </label>
-      ))}
+      <CheckboxList
+        items={attribute.levels.map((l, i) => ({ id: l.id, label: levelName(attribute, l, i) }))}
+        selected={chosen}
+        onChange={onChange}
+        boxClassName="size-4 accent-primary"
+      />
     </fieldset>
   );
 }

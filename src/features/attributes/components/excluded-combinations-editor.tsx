@@ -2,21 +2,18 @@
  * Excluded combinations: the rules of what the design may never show, listed in words, with a
  * form for each kind (excluded-combination-form.tsx).
  */
-import type { StudyDefinition } from '@shared/schemas/study-definition';
 import { describeExcludedCombination } from '@shared/study/excluded-combinations';
 import { Card } from '@/components/ui/feedback';
 import { Button } from '@/components/ui/button';
-import type { FieldErrors } from '../utils/field-errors';
+import type { DefinitionSectionProps } from '../utils/definition-section';
 import { ExcludedCombinationForm } from './excluded-combination-form';
 
-type Props = {
-  definition: StudyDefinition;
-  errors: FieldErrors;
-  readOnly: boolean;
-  onChange: (d: StudyDefinition) => void;
-};
-
-export function ExcludedCombinationsEditor({ definition: d, errors, readOnly, onChange }: Props) {
+export function ExcludedCombinationsEditor({
+  definition: d,
+  errors,
+  readOnly,
+  onChange,
+}: DefinitionSectionProps) {
   const rules = d.excludedCombinations;
   return (
     <Card title="Excluded combinations">

@@ -1,20 +1,18 @@
 import type { StudyDefinition } from '@shared/schemas/study-definition';
 import { Card } from '@/components/ui/feedback';
 import { SelectField, TextField } from '@/components/ui/field';
-import type { FieldErrors } from '../utils/field-errors';
+import type { DefinitionSectionProps } from '../utils/definition-section';
 import { getLevelLabel } from '@shared/study/level-labels';
-
-type Props = {
-  definition: StudyDefinition;
-  errors: FieldErrors;
-  readOnly: boolean;
-  onChange: (d: StudyDefinition) => void;
-};
 
 const defaultLabels = { opt_out: 'None of these', status_quo: 'Keep things as they are' };
 
 /** An optional extra alternative in every task: "none of these", or the status quo at fixed levels. */
-export function FixedAlternativeSettings({ definition: d, errors, readOnly, onChange }: Props) {
+export function FixedAlternativeSettings({
+  definition: d,
+  errors,
+  readOnly,
+  onChange,
+}: DefinitionSectionProps) {
   const fx = d.fixedAlternative;
   const set = (next: StudyDefinition['fixedAlternative']) =>
     onChange({ ...d, fixedAlternative: next });

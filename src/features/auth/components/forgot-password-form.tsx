@@ -5,7 +5,8 @@ import { EmailField } from '@/components/ui/auth-fields';
 import { Button } from '@/components/ui/button';
 import { Alert } from '@/components/ui/feedback';
 import { useRequestPasswordReset } from '../api/forgot-password';
-import { applyServerError, FormError } from './form-error';
+import { FormError } from './form-error';
+import { applyServerError } from '@/lib/submit-form';
 import { formField } from '@/components/ui/form-field';
 
 export function ForgotPasswordForm({ defaultEmail = '' }: { defaultEmail?: string }) {

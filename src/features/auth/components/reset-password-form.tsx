@@ -6,7 +6,8 @@ import { NewPasswordFields, repeatedPasswordSchema } from '@/components/ui/auth-
 import { Button } from '@/components/ui/button';
 import { ApiError } from '@/lib/api-client';
 import { useResetPassword } from '../api/reset-password';
-import { applyServerError, FormError } from './form-error';
+import { FormError } from './form-error';
+import { applyServerError } from '@/lib/submit-form';
 
 // The shared schema plus a repeat of the password, checked only here in the browser.
 const resetFormSchema = repeatedPasswordSchema(

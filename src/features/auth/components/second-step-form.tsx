@@ -6,7 +6,8 @@ import { secondStepSchema, type SecondStepInput } from '@shared/schemas/two-step
 import { TextField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { useSecondStep } from '../api/sign-in';
-import { applyServerError, FormError } from './form-error';
+import { FormError } from './form-error';
+import { applyServerError } from '@/lib/submit-form';
 import { formField } from '@/components/ui/form-field';
 
 export function SecondStepForm({

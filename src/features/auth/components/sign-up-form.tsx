@@ -5,7 +5,8 @@ import { TextField } from '@/components/ui/field';
 import { EmailField, PasswordField } from '@/components/ui/auth-fields';
 import { Button } from '@/components/ui/button';
 import { useSignUp } from '../api/sign-up';
-import { applyServerError, FormError } from './form-error';
+import { FormError } from './form-error';
+import { applyServerError } from '@/lib/submit-form';
 import { formField } from '@/components/ui/form-field';
 
 export function SignUpForm({

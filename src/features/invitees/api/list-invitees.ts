@@ -1,6 +1,5 @@
-import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import { apiQueryOptions } from '@/lib/api-query-options';
-import { searchString } from '@/lib/search-string';
+import { useQuery } from '@tanstack/react-query';
+import { apiFilteredQueryOptions } from '@/lib/api-query-options';
 import type { InviteeList, ListInviteesQuery } from '@shared/schemas/invitees';
 import { inviteeKeys, inviteesPath } from './invitee-keys';
 
@@ -9,13 +8,11 @@ export const listInviteesQueryOptions = (
   studyId: string,
   query: Partial<ListInviteesQuery>,
 ) =>
-  queryOptions({
-    ...apiQueryOptions<InviteeList>(
-      inviteeKeys.list(teamId, studyId, query),
-      `${inviteesPath(teamId, studyId)}${searchString(query)}`,
-    ),
-    placeholderData: keepPreviousData,
-  });
+  apiFilteredQueryOptions<InviteeList>(
+    inviteeKeys.list(teamId, studyId, query),
+    inviteesPath(teamId, studyId),
+    query,
+  );
 
 export function useInvitees(
   teamId: string,

@@ -1,7 +1,7 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import type { StudyLifecycle, UpdateFieldworkSettingsInput } from '@shared/schemas/study-lifecycle';
 import { lifecycleBase, lifecycleKeys } from './lifecycle-keys';
+import { useLifecycleMutation } from './use-lifecycle-mutation';
 
 export function updateSettings(
   teamId: string,
@@ -12,12 +12,10 @@ export function updateSettings(
 }
 
 export function useUpdateSettings(teamId: string, studyId: string) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: (input: UpdateFieldworkSettingsInput) => updateSettings(teamId, studyId, input),
-    onSuccess: (state) => {
-      qc.setQueryData(lifecycleKeys.state(teamId, studyId), state);
-      void qc.invalidateQueries({ queryKey: lifecycleKeys.readiness(teamId, studyId) });
-    },
-  });
+  return useLifecycleMutation(
+    teamId,
+    studyId,
+    (input: UpdateFieldworkSettingsInput) => updateSettings(teamId, studyId, input),
+    [lifecycleKeys.readiness(teamId, studyId)],
+  );
 }

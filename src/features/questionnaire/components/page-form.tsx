@@ -28,6 +28,29 @@ const kindHelp: Partial<Record<QuestionnairePage['kind'], string>> = {
   screening: 'Respondents whose answer matches a screen-out rule leave the survey here.',
 };
 
+/**
+ * One end of a screening question's accepted range, read when the field loses focus: empty is
+ * no limit (null).
+ */
+function AcceptLimitField({
+  label,
+  value,
+  onCommit,
+}: {
+  label: string;
+  value: number | null;
+  onCommit: (limit: number | null) => void;
+}) {
+  return (
+    <TextField
+      label={label}
+      inputMode="decimal"
+      defaultValue={value ?? ''}
+      onBlur={(e) => onCommit(e.target.value.trim() === '' ? null : Number(e.target.value))}
+    />
+  );
+}
+
 export function PageForm({
   page,
   definition,
@@ -131,27 +154,15 @@ export function PageForm({
         )}
       {page.kind === 'screening' && page.question.type === 'number' && (
         <div className="grid gap-4 sm:grid-cols-2">
-          <TextField
+          <AcceptLimitField
             label="Accept from (empty: no lower limit)"
-            inputMode="decimal"
-            defaultValue={page.acceptMin ?? ''}
-            onBlur={(e) =>
-              onChange({
-                ...page,
-                acceptMin: e.target.value.trim() === '' ? null : Number(e.target.value),
-              })
-            }
+            value={page.acceptMin}
+            onCommit={(acceptMin) => onChange({ ...page, acceptMin })}
           />
-          <TextField
+          <AcceptLimitField
             label="Accept up to (empty: no upper limit)"
-            inputMode="decimal"
-            defaultValue={page.acceptMax ?? ''}
-            onBlur={(e) =>
-              onChange({
-                ...page,
-                acceptMax: e.target.value.trim() === '' ? null : Number(e.target.value),
-              })
-            }
+            value={page.acceptMax}
+            onCommit={(acceptMax) => onChange({ ...page, acceptMax })}
           />
         </div>
       )}

@@ -141,25 +141,18 @@ export function PageList({
       instructions="To move a page, press space or enter on its handle, use the up and down arrow keys, then press space or enter again. Escape cancels."
     >
       <ol aria-label="Questionnaire pages" className="space-y-2">
-        {pages.map((p, i) =>
-          pinned(p) || disabled ? (
-            <StaticRow
+        {pages.map((p, i) => {
+          const Row = pinned(p) || disabled ? StaticRow : SortableRow;
+          return (
+            <Row
               key={p.id}
               page={p}
               index={i}
               selected={p.id === selectedId}
               onSelect={() => onSelect(p.id)}
             />
-          ) : (
-            <SortableRow
-              key={p.id}
-              page={p}
-              index={i}
-              selected={p.id === selectedId}
-              onSelect={() => onSelect(p.id)}
-            />
-          ),
-        )}
+          );
+        })}
       </ol>
     </VerticalSortable>
   );

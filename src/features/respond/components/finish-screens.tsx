@@ -39,17 +39,11 @@ export function EndScreen({ status, pending, end, redirectUrl }: EndProps) {
   const t = useInterfaceText();
   const saved = pending === 0 && status !== null && status !== 'in_progress';
   useRedirect(redirectUrl, saved);
-  if (status === 'screened_out')
+  // Screened out or over quota: that way out's own title and text.
+  if (status === 'screened_out' || status === 'over_quota')
     return (
-      <ScreenFrame title={t('ui.screened_out_title')}>
-        <Paragraphs text={t('ui.screened_out_body')} />
-        <RedirectNote url={redirectUrl} />
-      </ScreenFrame>
-    );
-  if (status === 'over_quota')
-    return (
-      <ScreenFrame title={t('ui.over_quota_title')}>
-        <Paragraphs text={t('ui.over_quota_body')} />
+      <ScreenFrame title={t(`ui.${status}_title`)}>
+        <Paragraphs text={t(`ui.${status}_body`)} />
         <RedirectNote url={redirectUrl} />
       </ScreenFrame>
     );

@@ -52,13 +52,18 @@ export function saveToken(publicId: string, token: string): void {
   write(tokenKey(publicId), token);
 }
 
-export function readOutbox(publicId: string): OutboxItem[] {
+/** A stored list; empty when nothing is stored or what is stored is not a JSON list. */
+function readList<T>(key: string): T[] {
   try {
-    const parsed = JSON.parse(read(outboxKey(publicId)) ?? '[]');
-    return Array.isArray(parsed) ? (parsed as OutboxItem[]) : [];
+    const parsed = JSON.parse(read(key) ?? '[]');
+    return Array.isArray(parsed) ? (parsed as T[]) : [];
   } catch {
     return [];
   }
+}
+
+export function readOutbox(publicId: string): OutboxItem[] {
+  return readList<OutboxItem>(outboxKey(publicId));
 }
 
 function writeOutbox(publicId: string, items: OutboxItem[]): void {
@@ -114,12 +119,7 @@ export function answerToSend(item: OutboxItem): SubmitAnswerInput {
 }
 
 export function readUnsent(publicId: string): UnsentAnswer[] {
-  try {
-    const parsed = JSON.parse(read(unsentKey(publicId)) ?? '[]');
-    return Array.isArray(parsed) ? (parsed as UnsentAnswer[]) : [];
-  } catch {
-    return [];
-  }
+  return readList<UnsentAnswer>(unsentKey(publicId));
 }
 
 /** Moves a refused answer out of the outbox into the list the app shows, with the reason. */

@@ -1,6 +1,5 @@
-import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import { apiQueryOptions } from '@/lib/api-query-options';
-import { searchString } from '@/lib/search-string';
+import { useQuery } from '@tanstack/react-query';
+import { apiFilteredQueryOptions } from '@/lib/api-query-options';
 import type { ListResponsesQuery, ResponseList } from '@shared/schemas/responses';
 import { responseKeys, responsesPath } from './response-keys';
 
@@ -9,13 +8,11 @@ export const listResponsesQueryOptions = (
   studyId: string,
   query: Partial<ListResponsesQuery>,
 ) =>
-  queryOptions({
-    ...apiQueryOptions<ResponseList>(
-      responseKeys.list(teamId, studyId, query),
-      `${responsesPath(teamId, studyId)}${searchString(query)}`,
-    ),
-    placeholderData: keepPreviousData,
-  });
+  apiFilteredQueryOptions<ResponseList>(
+    responseKeys.list(teamId, studyId, query),
+    responsesPath(teamId, studyId),
+    query,
+  );
 
 export function useResponses(teamId: string, studyId: string, query: Partial<ListResponsesQuery>) {
   return useQuery(listResponsesQueryOptions(teamId, studyId, query));

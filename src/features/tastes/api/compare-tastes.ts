@@ -1,6 +1,5 @@
-import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import { apiQueryOptions } from '@/lib/api-query-options';
-import { searchString } from '@/lib/search-string';
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { apiFilteredQueryOptions } from '@/lib/api-query-options';
 import type { TasteComparison } from '@shared/schemas/tastes';
 import { tasteKeys, tastesPath } from './taste-keys';
 
@@ -12,11 +11,11 @@ export const compareTastesQueryOptions = (
   otherRunId: string,
 ) =>
   queryOptions({
-    ...apiQueryOptions<TasteComparison>(
+    ...apiFilteredQueryOptions<TasteComparison>(
       tasteKeys.comparison(teamId, studyId, runId, otherRunId),
-      `${tastesPath(teamId, studyId)}/compare${searchString({ runId, otherRunId })}`,
+      `${tastesPath(teamId, studyId)}/compare`,
+      { runId, otherRunId },
     ),
-    placeholderData: keepPreviousData,
     enabled: runId !== '' && otherRunId !== '' && runId !== otherRunId,
   });
 

@@ -1,17 +1,16 @@
-import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import { apiQueryOptions } from '@/lib/api-query-options';
-import { searchString } from '@/lib/search-string';
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { apiFilteredQueryOptions } from '@/lib/api-query-options';
 import type { Segments } from '@shared/schemas/tastes';
 import { tasteKeys, tastesPath, type SegmentsParams } from './taste-keys';
 
 /** One coefficient's individual means split by a task choice, a background answer or a class. */
 export const getSegmentsQueryOptions = (teamId: string, studyId: string, params: SegmentsParams) =>
   queryOptions({
-    ...apiQueryOptions<Segments>(
+    ...apiFilteredQueryOptions<Segments>(
       tasteKeys.segments(teamId, studyId, params),
-      `${tastesPath(teamId, studyId)}/segments${searchString(params)}`,
+      `${tastesPath(teamId, studyId)}/segments`,
+      params,
     ),
-    placeholderData: keepPreviousData,
     enabled:
       params.runId !== '' &&
       params.coefficient !== '' &&

@@ -1,6 +1,5 @@
-import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import { apiQueryOptions } from '@/lib/api-query-options';
-import { searchString } from '@/lib/search-string';
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { apiFilteredQueryOptions } from '@/lib/api-query-options';
 import type { TasteList } from '@shared/schemas/tastes';
 import { tasteKeys, tastesPath } from './taste-keys';
 
@@ -19,11 +18,11 @@ export type TastesQuery = {
 /** One page of the profile table, sorted and filtered on the server. */
 export const listTastesQueryOptions = (teamId: string, studyId: string, q: TastesQuery) =>
   queryOptions({
-    ...apiQueryOptions<TasteList>(
+    ...apiFilteredQueryOptions<TasteList>(
       tasteKeys.list(teamId, studyId, q),
-      `${tastesPath(teamId, studyId)}${searchString(q)}`,
+      tastesPath(teamId, studyId),
+      q,
     ),
-    placeholderData: keepPreviousData,
     enabled: q.runId !== '',
   });
 

@@ -6,7 +6,7 @@ import { createInvitationSchema, type CreateInvitationInput } from '@shared/sche
 import { SelectField, TextField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { Alert } from '@/components/ui/feedback';
-import { applyFieldErrors } from '@/lib/api-client';
+import { applyServerError } from '@/lib/submit-form';
 import { useCreateInvitation } from '../api/create-invitation';
 import { roleLabels } from './role-label';
 import { formField } from '@/components/ui/form-field';
@@ -29,12 +29,7 @@ export function InviteForm({ teamId }: { teamId: string }) {
       setSentTo(inv.email);
       form.reset({ email: '', role: values.role });
     } catch (err) {
-      if (!applyFieldErrors(err, form.setError)) {
-        form.setError('root.server', {
-          type: 'server',
-          message: err instanceof Error ? err.message : 'Something went wrong.',
-        });
-      }
+      applyServerError(err, form.setError);
     }
   });
 

@@ -4,7 +4,7 @@ import { afterEach, describe, expect, it, vi } from 'vitest';
 import { cleanup, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { PasswordForm } from '@/features/account/components/password-form';
-import { fakeFetch, renderWithQuery } from '../../support/render';
+import { fakeFetch, fieldRefusal, renderWithQuery } from '../../support/render';
 
 afterEach(() => {
   cleanup();
@@ -31,16 +31,11 @@ describe('PasswordForm', () => {
 
   it('when the server says the current password is wrong, marks that field', async () => {
     const onChanged = vi.fn();
-    const { requests } = fakeFetch({
-      status: 400,
-      body: {
-        error: {
-          code: 'invalid_input',
-          message: 'Your current password is wrong.',
-          fields: [{ path: 'currentPassword', message: 'Current password is wrong' }],
-        },
-      },
-    });
+    const { requests } = fakeFetch(
+      fieldRefusal(400, 'invalid_input', 'Your current password is wrong.', [
+        { path: 'currentPassword', message: 'Current password is wrong' },
+      ]),
+    );
     renderWithQuery(<PasswordForm onChanged={onChanged} />);
     await submit('guessed wrong', 'a long enough passphrase', 'a long enough passphrase');
     const current = screen.getByLabelText('Current password');

@@ -85,18 +85,18 @@ describe('AttributesEditor', () => {
   });
 
   it('flags an own label that no longer writes its value, until it is fixed or confirmed', async () => {
-    const bill: Attribute = {
-      id: 'bill',
-      name: 'Monthly bill increase',
-      kind: 'numeric',
-      unit: '€',
-      isCost: true,
-      coding: 'linear',
-      levels: [
-        { id: 'b0', label: 'No increase', value: 0 },
-        { id: 'b6', label: '€6 a month', value: 6 },
-      ],
-    };
+    // The scenario's bill with two levels whose own labels may or may not write their values.
+    const [bill] = makeStudyDefinition({
+      only: ['bill'],
+      attributes: {
+        bill: {
+          levels: [
+            { id: 'b0', label: 'No increase', value: 0 },
+            { id: 'b6', label: '€6 a month', value: 6 },
+          ],
+        },
+      },
+    }).attributes;
     const save = vi.fn(async (d: StudyDefinition) => ({ definition: d, designDetached: false }));
     render(
       <AttributesEditor

@@ -4,7 +4,7 @@ import { afterEach, describe, expect, it, vi } from 'vitest';
 import { cleanup, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { SignUpForm } from '@/features/auth/components/sign-up-form';
-import { fakeFetch, renderWithQuery } from '../../support/render';
+import { fakeFetch, fieldRefusal, renderWithQuery } from '../../support/render';
 
 afterEach(() => {
   cleanup();
@@ -43,16 +43,11 @@ describe('SignUpForm', () => {
 
   it('when the server names a field, shows its message on that field', async () => {
     const onSubmitted = vi.fn();
-    const { requests } = fakeFetch({
-      status: 409,
-      body: {
-        error: {
-          code: 'email_taken',
-          message: 'An account with this e-mail already exists.',
-          fields: [{ path: 'email', message: 'An account with this e-mail already exists' }],
-        },
-      },
-    });
+    const { requests } = fakeFetch(
+      fieldRefusal(409, 'email_taken', 'An account with this e-mail already exists.', [
+        { path: 'email', message: 'An account with this e-mail already exists' },
+      ]),
+    );
     renderWithQuery(<SignUpForm onSubmitted={onSubmitted} />);
     await fillIn({
       name: 'Ines',

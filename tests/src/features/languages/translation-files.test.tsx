@@ -6,7 +6,7 @@ import userEvent from '@testing-library/user-event';
 import { ImportRefusal, ImportReport } from '@/features/languages/components/import-report';
 import { TranslationFilesCard } from '@/features/languages/components/translation-files-card';
 import { ApiError } from '@/lib/api-client';
-import { fakeFetch, renderWithQuery } from '../../support/render';
+import { fakeFetch, fieldRefusal, renderWithQuery } from '../../support/render';
 
 afterEach(() => {
   cleanup();
@@ -133,16 +133,11 @@ describe('TranslationFilesCard', () => {
   });
 
   it('shows the server’s refusal with its line', async () => {
-    fakeFetch({
-      status: 400,
-      body: {
-        error: {
-          code: 'invalid_input',
-          message: 'The XLIFF file cannot be read',
-          fields: [{ path: 'file', message: 'Line 7: Not well-formed XML: unclosed tag' }],
-        },
-      },
-    });
+    fakeFetch(
+      fieldRefusal(400, 'invalid_input', 'The XLIFF file cannot be read', [
+        { path: 'file', message: 'Line 7: Not well-formed XML: unclosed tag' },
+      ]),
+    );
     const user = userEvent.setup();
     renderWithQuery(<TranslationFilesCard {...props} />);
     await user.upload(

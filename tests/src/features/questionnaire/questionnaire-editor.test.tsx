@@ -55,15 +55,17 @@ function renderEditor(editable = true) {
   );
 }
 
+/** The rows of the page list, in order. */
+const pageItems = () =>
+  within(screen.getByRole('list', { name: 'Questionnaire pages' })).getAllByRole('listitem');
+
 describe('QuestionnaireEditor', () => {
   it('adds a dominance test before the end page with the best levels prefilled, and saves', async () => {
     const user = userEvent.setup();
     renderEditor();
     await user.selectOptions(screen.getByLabelText('Add a page'), 'dominance');
     await user.click(screen.getByRole('button', { name: 'Add' }));
-    const pages = within(screen.getByRole('list', { name: 'Questionnaire pages' })).getAllByRole(
-      'listitem',
-    );
+    const pages = pageItems();
     expect(pages.map((p) => p.textContent)).toEqual([
       expect.stringContaining('Welcome and consent'),
       expect.stringContaining('Instructions'),
@@ -127,9 +129,7 @@ function renderWith(def: StudyDefinition, initial = defaultQuestionnaire(def)) {
 describe('QuestionnaireEditor follow-up templates', () => {
   it('offers a cheap-talk text and a budget reminder before the tasks when there is a cost', () => {
     renderWith(withCost);
-    const pages = within(screen.getByRole('list', { name: 'Questionnaire pages' })).getAllByRole(
-      'listitem',
-    );
+    const pages = pageItems();
     expect(pages.map((p) => p.textContent)).toEqual([
       expect.stringContaining('Welcome and consent'),
       expect.stringContaining('Instructions'),
@@ -149,9 +149,7 @@ describe('QuestionnaireEditor follow-up templates', () => {
     expect(screen.getByRole('heading', { name: 'Attribute-attendance question' })).toBeVisible();
     expect(screen.getByText(/Hensher, Rose & Greene \(2005\)/)).toBeVisible();
     expect(screen.getByLabelText('Key (column name in exports)')).toHaveValue('features_ignored');
-    const pages = within(screen.getByRole('list', { name: 'Questionnaire pages' })).getAllByRole(
-      'listitem',
-    );
+    const pages = pageItems();
     expect(pages.at(-2)?.textContent).toContain('Attribute-attendance question');
   });
 

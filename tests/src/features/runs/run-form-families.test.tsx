@@ -6,7 +6,7 @@ import { cleanup, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import type { RunOptions } from '@shared/schemas/run';
 import { RunForm } from '@/features/runs/components/run-form';
-import { fakeFetch, renderWithQuery } from '../../support/render';
+import { fakeFetch, fieldRefusal, renderWithQuery } from '../../support/render';
 
 afterEach(() => {
   cleanup();
@@ -62,12 +62,32 @@ const options: RunOptions = {
   ],
 };
 
+/** Renders the run form with `runOptions` and picks `model`; the user to go on with. */
+async function renderWithModel(model: string, runOptions: RunOptions = options) {
+  renderWithQuery(<RunForm teamId="t" studyId="s" options={runOptions} />);
+  const user = userEvent.setup();
+  await user.selectOptions(screen.getByLabelText('Model'), model);
+  return user;
+}
+
+/**
+ * Picks the model, enters `value` in the field labelled `label` (in place of what it held) and
+ * starts the run: the field's `message` shows and no request is sent.
+ */
+async function expectRefusedEntry(model: string, label: string, value: string, message: string) {
+  const { requests } = fakeFetch();
+  const user = await renderWithModel(model);
+  await user.clear(screen.getByLabelText(label));
+  await user.type(screen.getByLabelText(label), value);
+  await user.click(screen.getByRole('button', { name: 'Start run' }));
+  expect(await screen.findByText(message)).toBeInTheDocument();
+  expect(requests).toHaveLength(0);
+}
+
 describe('RunForm with hierarchical Bayes', () => {
   it('sends the sampler settings, the prior and correlation, and notes how coding meets the prior', async () => {
     const { requests } = fakeFetch({ status: 201, body: { id: 'r1' } });
-    renderWithQuery(<RunForm teamId="t" studyId="s" options={options} />);
-    const user = userEvent.setup();
-    await user.selectOptions(screen.getByLabelText('Model'), 'hb');
+    const user = await renderWithModel('hb');
     expect(screen.getByText(/The priors act on the coefficients as coded/)).toBeInTheDocument();
     expect(screen.queryByText('Estimation settings')).not.toBeInTheDocument();
     // HB offers no triangular or uniform tastes.
@@ -101,37 +121,23 @@ describe('RunForm with hierarchical Bayes', () => {
   });
 
   it('when the MH steps are 0, shows the field error and sends nothing', async () => {
-    const { requests } = fakeFetch();
-    renderWithQuery(<RunForm teamId="t" studyId="s" options={options} />);
-    const user = userEvent.setup();
-    await user.selectOptions(screen.getByLabelText('Model'), 'hb');
-    await user.clear(screen.getByLabelText('MH steps per respondent'));
-    await user.type(screen.getByLabelText('MH steps per respondent'), '0');
-    await user.click(screen.getByRole('button', { name: 'Start run' }));
-    expect(await screen.findByText('Use at least 1 step')).toBeInTheDocument();
-    expect(requests).toHaveLength(0);
+    await expectRefusedEntry('hb', 'MH steps per respondent', '0', 'Use at least 1 step');
   });
 
   it('when the burn-in is as long as the iterations, shows the field error and sends nothing', async () => {
-    const { requests } = fakeFetch();
-    renderWithQuery(<RunForm teamId="t" studyId="s" options={options} />);
-    const user = userEvent.setup();
-    await user.selectOptions(screen.getByLabelText('Model'), 'hb');
-    await user.type(screen.getByLabelText('Burn-in'), '40000');
-    await user.click(screen.getByRole('button', { name: 'Start run' }));
-    expect(
-      await screen.findByText('Burn-in must be shorter than the iterations'),
-    ).toBeInTheDocument();
-    expect(requests).toHaveLength(0);
+    await expectRefusedEntry(
+      'hb',
+      'Burn-in',
+      '40000',
+      'Burn-in must be shorter than the iterations',
+    );
   });
 });
 
 describe('RunForm with latent class', () => {
   it('sends a class range with fixed coefficients and ten starts', async () => {
     const { requests } = fakeFetch({ status: 201, body: { id: 'r1' } });
-    renderWithQuery(<RunForm teamId="t" studyId="s" options={options} />);
-    const user = userEvent.setup();
-    await user.selectOptions(screen.getByLabelText('Model'), 'latent_class');
+    const user = await renderWithModel('latent_class');
     expect(screen.getByLabelText('Distribution of River health: good')).toHaveValue('fixed');
     expect(screen.getByLabelText('EM starts per class count')).toHaveValue(10);
     await user.click(screen.getByRole('button', { name: 'Start run' }));
@@ -144,9 +150,7 @@ describe('RunForm with latent class', () => {
 
   it('sends the background questions picked for class membership, and states the coding', async () => {
     const { requests } = fakeFetch({ status: 201, body: { id: 'r1' } });
-    renderWithQuery(<RunForm teamId="t" studyId="s" options={options} />);
-    const user = userEvent.setup();
-    await user.selectOptions(screen.getByLabelText('Model'), 'latent_class');
+    const user = await renderWithModel('latent_class');
     const group = screen.getByRole('group', { name: 'Class membership depends on (optional)' });
     expect(group).toHaveAccessibleDescription(/a “not answered” column is added/);
     await user.click(screen.getByRole('checkbox', { name: /Do you filter your tap water/ }));
@@ -158,24 +162,20 @@ describe('RunForm with latent class', () => {
   });
 
   it('when the server refuses a membership question, shows its message at the questions', async () => {
-    fakeFetch({
-      status: 400,
-      body: {
-        error: {
-          code: 'invalid_input',
-          message: 'Everyone in this run gave the same answer to filter_tap',
-          fields: [
-            {
-              path: 'spec.membership.0',
-              message: 'The questionnaire has no background question filter_tap',
-            },
-          ],
-        },
-      },
-    });
-    renderWithQuery(<RunForm teamId="t" studyId="s" options={options} />);
-    const user = userEvent.setup();
-    await user.selectOptions(screen.getByLabelText('Model'), 'latent_class');
+    fakeFetch(
+      fieldRefusal(
+        400,
+        'invalid_input',
+        'Everyone in this run gave the same answer to filter_tap',
+        [
+          {
+            path: 'spec.membership.0',
+            message: 'The questionnaire has no background question filter_tap',
+          },
+        ],
+      ),
+    );
+    const user = await renderWithModel('latent_class');
     await user.click(screen.getByRole('checkbox', { name: /Do you filter your tap water/ }));
     await user.click(screen.getByRole('button', { name: 'Start run' }));
     expect(
@@ -185,24 +185,17 @@ describe('RunForm with latent class', () => {
 
   it('says so when the study has no usable background questions', async () => {
     fakeFetch();
-    renderWithQuery(
-      <RunForm teamId="t" studyId="s" options={{ ...options, membershipQuestions: [] }} />,
-    );
-    const user = userEvent.setup();
-    await user.selectOptions(screen.getByLabelText('Model'), 'latent_class');
+    await renderWithModel('latent_class', { ...options, membershipQuestions: [] });
     expect(screen.getByText(/no single-choice or number background questions/)).toBeInTheDocument();
     expect(screen.queryAllByRole('checkbox', { name: /household|tap water/ })).toHaveLength(0);
   });
 
   it('when the range is reversed, shows the error on the class fields and sends nothing', async () => {
-    const { requests } = fakeFetch();
-    renderWithQuery(<RunForm teamId="t" studyId="s" options={options} />);
-    const user = userEvent.setup();
-    await user.selectOptions(screen.getByLabelText('Model'), 'latent_class');
-    await user.clear(screen.getByLabelText('Fewest classes'));
-    await user.type(screen.getByLabelText('Fewest classes'), '5');
-    await user.click(screen.getByRole('button', { name: 'Start run' }));
-    expect(await screen.findByText('Give the range as [fewest, most] classes')).toBeInTheDocument();
-    expect(requests).toHaveLength(0);
+    await expectRefusedEntry(
+      'latent_class',
+      'Fewest classes',
+      '5',
+      'Give the range as [fewest, most] classes',
+    );
   });
 });

@@ -5,7 +5,7 @@ import { cleanup, screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import type { RunOptions } from '@shared/schemas/run';
 import { RunForm } from '@/features/runs/components/run-form';
-import { fakeFetch, renderWithQuery } from '../../support/render';
+import { fakeFetch, fieldRefusal, renderWithQuery } from '../../support/render';
 
 afterEach(() => {
   cleanup();
@@ -129,21 +129,14 @@ describe('RunForm', () => {
   });
 
   it("puts the server's field error on the coefficient it names", async () => {
-    fakeFetch({
-      status: 400,
-      body: {
-        error: {
-          code: 'invalid_input',
+    fakeFetch(
+      fieldRefusal(400, 'invalid_input', 'The study has no coded column attr:river:good', [
+        {
+          path: 'spec.coefficients.1.column',
           message: 'The study has no coded column attr:river:good',
-          fields: [
-            {
-              path: 'spec.coefficients.1.column',
-              message: 'The study has no coded column attr:river:good',
-            },
-          ],
         },
-      },
-    });
+      ]),
+    );
     renderWithQuery(<RunForm teamId="t" studyId="s" options={options(false)} />);
     await userEvent.setup().click(screen.getByRole('button', { name: 'Start run' }));
     const select = screen.getByLabelText('Distribution of River health: good');

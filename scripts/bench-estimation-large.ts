@@ -16,7 +16,7 @@ import {
   simulateChoiceData,
 } from '../server/engine/estimation/simulate-choice-data';
 import { computeTasteProfilesInWorkers } from '../server/engine/parallel/parallel-taste-profiles';
-import { getMaxRows } from '../server/engine/simd/kernel-arena';
+import { getMaxRespondentRows } from '../server/engine/estimation/choice-data';
 import { estimateModelMemory } from '../server/engine/simd/estimate-model-memory';
 import { ensureEngineBuilt } from './lib/ensure-engine-built';
 import { readBenchCli } from './lib/bench-cli';
@@ -90,7 +90,7 @@ const memoryEstimate = estimateModelMemory({
   blockSize: layout.block.length,
   draws: R,
   profileDraws: PROFILE_DRAWS,
-  maxRows: getMaxRows(data, 0, N),
+  maxRows: getMaxRespondentRows(data, 0, N),
   threads: THREADS,
 });
 const round2 = (x: number) => Number(x.toFixed(2));

@@ -6,7 +6,11 @@
  */
 import type { ChoiceData } from '../estimation/choice-data';
 import { EstimationOptionsError } from '../estimation/estimation-errors';
-import { checkHoldout, resolveCostIndex } from '../estimation/shared-option-checks';
+import {
+  checkHoldout,
+  resolveCoefficientColumn,
+  resolveCostIndex,
+} from '../estimation/shared-option-checks';
 
 export const LC_MIN_TASKS = 2;
 export const LC_MAX_CLASSES = 8;
@@ -88,20 +92,9 @@ export function checkLatentClassOptions(
   if (!options || !Array.isArray(options.coefficients) || options.coefficients.length === 0)
     throw new EstimationOptionsError('at least one coefficient is required', 'coefficients');
   const names = options.coefficients.map((c) => c.name);
-  const column = Int32Array.from(options.coefficients, (c, k) => {
-    if (names.indexOf(c.name) !== k)
-      throw new EstimationOptionsError(
-        `coefficient name ${c.name} is used twice`,
-        `coefficients.${k}.name`,
-      );
-    const col = data.columns.indexOf(c.column ?? c.name);
-    if (col < 0)
-      throw new EstimationOptionsError(
-        `column ${c.column ?? c.name} is not in the data`,
-        `coefficients.${k}.column`,
-      );
-    return col;
-  });
+  const column = Int32Array.from(options.coefficients, (_, k) =>
+    resolveCoefficientColumn(data, options.coefficients, k),
+  );
   const range = options.classes ?? 2;
   const [lo, hi] = Array.isArray(range) ? range : [range, range];
   assertInteger(lo, 'classes', 1, LC_MAX_CLASSES);

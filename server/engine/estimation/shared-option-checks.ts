@@ -1,11 +1,21 @@
 /**
  * Option checks every estimator makes alike (MNL, mixed logit, HB, latent class, taste
- * profiles): coefficient names are unique and name a data column, the cost coefficient must be
+ * profiles): integer settings lie in their range, coefficient names are unique and name a data
+ * column, the cost coefficient must be
  * one of the model's, and holdout data must have the estimation data's columns. One place, so
  * the messages and fields stay the same everywhere.
  */
 import type { ChoiceData } from './choice-data';
 import { EstimationOptionsError } from './estimation-errors';
+
+/** Throws unless `value` is an integer in min..max. */
+export function assertInteger(value: number, field: string, min: number, max: number): void {
+  if (!Number.isInteger(value) || value < min || value > max)
+    throw new EstimationOptionsError(
+      `${field} must be an integer between ${min} and ${max}`,
+      field,
+    );
+}
 
 /**
  * The data column of coefficient k (its `column`, or else its name), after checking that no

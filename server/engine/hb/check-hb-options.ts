@@ -10,6 +10,7 @@ import { HB_DEFAULTS, HB_DISTRIBUTIONS } from '../../../shared/schemas/estimatio
 import type { ChoiceData } from '../estimation/choice-data';
 import { EstimationOptionsError } from '../estimation/estimation-errors';
 import {
+  assertInteger,
   checkHoldout,
   resolveCoefficientColumn,
   resolveCostIndex,
@@ -109,14 +110,6 @@ export interface CheckedHbOptions {
 
 /** Stored per-respondent draws are capped (4-byte floats) so a run cannot exhaust memory. */
 const MAX_STORED_VALUES = 60_000_000;
-
-function assertInteger(value: number, field: string, min: number, max: number): void {
-  if (!Number.isInteger(value) || value < min || value > max)
-    throw new EstimationOptionsError(
-      `${field} must be an integer between ${min} and ${max}`,
-      field,
-    );
-}
 
 /** Throws unless every respondent has at least HB_MIN_TASKS estimation tasks. */
 export function assertEnoughTasksForHb(data: ChoiceData): void {

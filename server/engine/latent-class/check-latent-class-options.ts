@@ -7,6 +7,7 @@
 import type { ChoiceData } from '../estimation/choice-data';
 import { EstimationOptionsError } from '../estimation/estimation-errors';
 import {
+  assertInteger,
   checkHoldout,
   resolveCoefficientColumn,
   resolveCostIndex,
@@ -73,14 +74,6 @@ export function assertClassesIdentifiable(data: ChoiceData, C: number, K: number
     throw new EstimationOptionsError(
       `${C} classes need ${P} parameters and at least ${Math.max(P + 1, LC_RESPONDENTS_PER_CLASS * C)} respondents; the data have ${N}: fit fewer classes`,
       'classes',
-    );
-}
-
-function assertInteger(value: number, field: string, min: number, max: number): void {
-  if (!Number.isInteger(value) || value < min || value > max)
-    throw new EstimationOptionsError(
-      `${field} must be an integer between ${min} and ${max}`,
-      field,
     );
 }
 

@@ -24,16 +24,16 @@ import { PhoneConnection } from './lib/phone-connection';
 import { createBenchStudy } from './lib/bench-study';
 import { latencySummary, sampleLoadAverage } from './lib/load-stats';
 import { measureCpu } from './lib/process-cpu';
-import { readBenchArgs, runBench } from './lib/bench-args';
+import { readBenchCli, runBench } from './lib/bench-cli';
 
-const cli = readBenchArgs();
+const cli = readBenchCli();
 const { asJson, log } = cli;
 const STARTS = cli.number('starts', 2000);
 const CONCURRENCY = cli.number('concurrency', 8);
 const WARM_UP = 100;
 const PORT = cli.number('port', 5283);
 const PANEL = cli.has('panel');
-const BASELINE_DIR = cli.compareWith;
+const BASELINE_DIR = cli.path('compare-with');
 const root = path.resolve(import.meta.dirname, '..');
 
 /** `count` starts, `CONCURRENCY` at a time, phones numbered from `first`; their latencies. */

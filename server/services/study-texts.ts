@@ -7,7 +7,7 @@ import type { AppDeps } from '../deps';
 import { ValidationError } from '../lib/errors';
 import { recordAudit } from './audit';
 import { getQuestionnaire } from './questionnaire';
-import { assertDraft } from './studies';
+import { loadDraftStudy } from './studies';
 import { loadStudy } from './study-access';
 import { updateDraftLanguages } from '../../db/queries/versions';
 import { languageName } from '../../shared/languages/language-tags';
@@ -75,8 +75,7 @@ export async function updateLanguages(
   languages: string[],
 ): Promise<StudyTextsView> {
   const { teamId } = actor;
-  const study = await loadStudy(deps, teamId, studyId);
-  assertDraft(study, 'its languages');
+  const study = await loadDraftStudy(deps, teamId, studyId, 'its languages');
   const [source, ...others] = study.languages;
   if (languages[0] !== source && others.includes(languages[0]))
     throw new ValidationError('The source language cannot be swapped with a translation', [

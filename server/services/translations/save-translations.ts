@@ -12,7 +12,7 @@ import type { StudyTextsView } from '../../../shared/schemas/study-texts';
 import type { AuditAction } from '../../../shared/schemas/audit';
 import { updateDraftLanguages } from '../../../db/queries/versions';
 import { recordAudit } from '../audit';
-import { assertDraft } from '../studies';
+import { assertDraft, loadDraftStudy } from '../studies';
 import { loadStudy } from '../study-access';
 import { getStudyTexts, languagesOf, loadStudyDocuments } from '../study-texts';
 import type { Actor } from '../actor';
@@ -60,8 +60,7 @@ export async function saveTranslations(
   texts: Record<string, string>,
 ): Promise<StudyTextsView> {
   const { teamId } = actor;
-  const study = await loadStudy(deps, teamId, studyId);
-  assertDraft(study, 'its texts');
+  const study = await loadDraftStudy(deps, teamId, studyId, 'its texts');
   const values = Object.values(texts);
   await writeTranslations(deps, study, lang, texts, actor, {
     action: 'study.translations_saved',
@@ -117,8 +116,7 @@ export async function confirmTranslations(
   keys: string[],
 ): Promise<StudyTextsView> {
   const { teamId } = actor;
-  const study = await loadStudy(deps, teamId, studyId);
-  assertDraft(study, 'its texts');
+  const study = await loadDraftStudy(deps, teamId, studyId, 'its texts');
   assertLanguage(study, lang);
   if (lang === study.languages[0])
     throw new ValidationError('The source language has no translations to confirm', [

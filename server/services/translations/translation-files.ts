@@ -15,7 +15,7 @@ import {
   type TranslationImportReport,
 } from '../../../shared/schemas/study-texts';
 import { loadStudy } from '../study-access';
-import { assertDraft } from '../studies';
+import { loadDraftStudy } from '../studies';
 import type { Actor } from '../actor';
 import { languagesOf, loadStudyDocuments } from '../study-texts';
 import { writeTranslations } from './save-translations';
@@ -119,8 +119,7 @@ export async function importTranslationFile(
   input: { format: TranslationFormat; content: string },
 ): Promise<TranslationImportReport> {
   const { teamId } = actor;
-  const study = await loadStudy(deps, teamId, studyId);
-  assertDraft(study, 'its texts');
+  const study = await loadDraftStudy(deps, teamId, studyId, 'its texts');
   const langs = languagesOf(study);
   assertTranslation(langs.languages, lang);
   const source = langs.languages[0];

@@ -7,14 +7,14 @@
 import type { AppDeps } from '../../deps';
 import { ValidationError, type FieldIssue } from '../../lib/errors';
 import { languageName } from '../../../shared/languages/language-tags';
-import { isInterfaceKey, listStudyTexts, textIn } from '../../../shared/languages/study-texts';
+import { isInterfaceKey, textIn } from '../../../shared/languages/study-texts';
 import type { StudyTextsView } from '../../../shared/schemas/study-texts';
 import type { AuditAction } from '../../../shared/schemas/audit';
 import { updateDraftLanguages } from '../../../db/queries/versions';
 import { recordAudit } from '../audit';
 import { assertDraft, loadDraftStudy } from '../studies';
 import { loadStudy } from '../study-access';
-import { getStudyTexts, languagesOf, loadStudyDocuments } from '../study-texts';
+import { getStudyTexts, languagesOf, listCurrentStudyTexts } from '../study-texts';
 import type { Actor } from '../actor';
 
 type StudyRow = Awaited<ReturnType<typeof loadStudy>>;
@@ -82,7 +82,7 @@ export async function writeTranslations(
   event: TranslationEvent,
 ): Promise<void> {
   assertLanguage(study, lang);
-  const entries = listStudyTexts(await loadStudyDocuments(deps, study), languagesOf(study));
+  const entries = await listCurrentStudyTexts(deps, study);
   const isSource = lang === study.languages[0];
   const issues = checkTranslationKeys(
     Object.keys(texts),
@@ -123,9 +123,7 @@ export async function confirmTranslations(
       { path: 'lang', message: `${languageName(lang)} is the language the study is written in` },
     ]);
   const langs = languagesOf(study);
-  const entries = new Map(
-    listStudyTexts(await loadStudyDocuments(deps, study), langs).map((e) => [e.key, e]),
-  );
+  const entries = new Map((await listCurrentStudyTexts(deps, study)).map((e) => [e.key, e]));
   const issues: FieldIssue[] = [];
   keys.forEach((key, i) => {
     const entry = entries.get(key);

@@ -16,8 +16,9 @@ import {
   simulateChoiceData,
 } from '../server/engine/estimation/simulate-choice-data';
 import { computeTasteProfilesInWorkers } from '../server/engine/parallel/parallel-taste-profiles';
-import { getMaxRows } from '../server/engine/simd/kernel-arena';
+import { getMaxRespondentRows } from '../server/engine/estimation/choice-data';
 import { estimateModelMemory } from '../server/engine/simd/estimate-model-memory';
+import { getArenaDimensions } from '../server/engine/simd/kernel-arena';
 import { ensureEngineBuilt } from './lib/ensure-engine-built';
 import { readBenchCli } from './lib/bench-cli';
 
@@ -80,17 +81,9 @@ await computeTasteProfilesInWorkers(data, fit.layout, fit.estimates, {
 const profilesSeconds = (performance.now() - profilesStart) / 1000;
 const layout = fit.layout;
 const memoryEstimate = estimateModelMemory({
-  respondents: N,
-  tasks: N * T,
-  rows: data.diffStart[data.diffStart.length - 1],
-  columns: data.columns.length,
-  K,
-  D: layout.D,
-  P: layout.P,
-  blockSize: layout.block.length,
-  draws: R,
+  ...getArenaDimensions(data, layout, R),
   profileDraws: PROFILE_DRAWS,
-  maxRows: getMaxRows(data, 0, N),
+  maxRows: getMaxRespondentRows(data, 0, N),
   threads: THREADS,
 });
 const round2 = (x: number) => Number(x.toFixed(2));

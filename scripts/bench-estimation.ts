@@ -115,10 +115,10 @@ async function timeFit(kernel: KernelKind) {
 }
 const simdFit = await timeFit('simd');
 const tsFit = await timeFit('typescript');
-let maxEstimateDifference = 0;
-simdFit.fit.estimates.forEach((v, p) => {
-  maxEstimateDifference = Math.max(maxEstimateDifference, Math.abs(v - tsFit.fit.estimates[p]));
-});
+/** The largest absolute difference between two fits' estimates. */
+const maxDifference = (a: ArrayLike<number>, b: ArrayLike<number>) =>
+  Array.from(a, (v, p) => Math.abs(v - b[p])).reduce((m, d) => Math.max(m, d), 0);
+const maxEstimateDifference = maxDifference(simdFit.fit.estimates, tsFit.fit.estimates);
 async function compareStarts() {
   const correlated = simulateChoiceData({
     respondents: N,
@@ -149,13 +149,7 @@ async function compareStarts() {
     loglik: Number(fit.loglik.toFixed(4)),
     converged: fit.converged,
   });
-  let maxEstimateDifference = 0;
-  runs.bhhh.fit.estimates.forEach((v, p) => {
-    maxEstimateDifference = Math.max(
-      maxEstimateDifference,
-      Math.abs(v - runs.identity.fit.estimates[p]),
-    );
-  });
+  const maxEstimateDifference = maxDifference(runs.bhhh.fit.estimates, runs.identity.fit.estimates);
   return {
     parameters: runs.bhhh.fit.layout.P,
     draws: 200,

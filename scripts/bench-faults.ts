@@ -20,13 +20,13 @@
  *
  * Usage: npm run bench:faults [-- --respondents 300] [-- --invitees 40] [-- --json]
  */
-import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { createDb } from '../db/client';
 import {
   assertPortFree,
+  benchServerEnv,
   startProcess,
   waitForHealth,
   type ServerProcess,
@@ -62,16 +62,15 @@ async function main() {
   pool.on('error', () => {});
   const bases = [API_PORT, API_PORT + 1].map((p) => `http://127.0.0.1:${p}`);
   const env = (port: number) => ({
-    NODE_ENV: 'production',
-    HOST: '127.0.0.1',
-    PORT: String(port),
-    // Both instances serve one site: links and the same-origin check name the first.
-    APP_URL: bases[0],
+    ...benchServerEnv({
+      port,
+      // Both instances serve one site: links and the same-origin check name the first.
+      appUrl: bases[0],
+      databaseUrl: cluster.url,
+      dataDir: work,
+      embeddedWorker: false,
+    }),
     TRUSTED_ORIGINS: bases[1],
-    DATABASE_URL: cluster.url,
-    JWT_SECRET: randomBytes(32).toString('hex'),
-    DATA_DIR: work,
-    EMBEDDED_WORKER: 'false',
     SMTP_HOST: '127.0.0.1',
     SMTP_PORT: String(mail.smtpPort),
   });

@@ -25,12 +25,12 @@
  * `--socket`: the servers reach PostgreSQL through its Unix socket, as README advises when the
  * database runs on the same host (TCP on loopback costs more CPU per query).
  */
-import { randomBytes } from 'node:crypto';
 import os from 'node:os';
 import path from 'node:path';
 import { adminUrl } from './lib/scratch-db';
 import {
   assertPortFree,
+  benchServerEnv,
   startProcess,
   waitForHealth,
   type ServerProcess,
@@ -180,14 +180,13 @@ async function main() {
     const credentials = await seedScratchDemo(scratch.url, work);
     const { publicId, studyId } = await createBenchStudy(db, { tasksPerRespondent: TASKS });
     const serverEnv = {
-      NODE_ENV: 'production',
-      HOST: '127.0.0.1',
-      PORT: String(PORT),
-      APP_URL: base,
-      DATABASE_URL: SOCKET ? await socketUrl(pool, scratch.name) : scratch.url,
-      JWT_SECRET: randomBytes(32).toString('hex'),
-      DATA_DIR: work,
-      EMBEDDED_WORKER: 'true',
+      ...benchServerEnv({
+        port: PORT,
+        appUrl: base,
+        databaseUrl: SOCKET ? await socketUrl(pool, scratch.name) : scratch.url,
+        dataDir: work,
+        embeddedWorker: true,
+      }),
       WEB_INSTANCES: String(INSTANCES),
       ...(POOL > 0 ? { DB_POOL_SIZE: String(POOL) } : {}),
       // No mail in this benchmark: nothing listens there.

@@ -12,14 +12,13 @@
  *        [-- --waterfall] [-- --json]
  */
 import { execFileSync, spawn } from 'node:child_process';
-import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { chromium } from 'playwright-core';
 import { createDb, migrateDb } from '../db/client';
 import { createDemoStudy } from './lib/study-factory/demo-study';
-import { freePort, waitForHealth } from './lib/server-process';
+import { benchServerEnv, freePort, waitForHealth } from './lib/server-process';
 import { adminUrl, createScratchDatabase } from './lib/scratch-db';
 import { readBenchCli, runBench } from './lib/bench-cli';
 
@@ -155,15 +154,14 @@ async function main() {
       stdio: ['ignore', 'ignore', 'inherit'],
       env: {
         ...process.env,
-        NODE_ENV: 'production',
-        DATABASE_URL: url,
-        HOST: '127.0.0.1',
-        PORT: String(port),
-        APP_URL: base,
-        JWT_SECRET: randomBytes(32).toString('hex'),
+        ...benchServerEnv({
+          port,
+          appUrl: base,
+          databaseUrl: url,
+          dataDir: path.join(root, '.data', 'bench'),
+          embeddedWorker: false,
+        }),
         LOG_LEVEL: 'warn',
-        EMBEDDED_WORKER: 'false',
-        DATA_DIR: path.join(root, '.data', 'bench'),
       },
     });
     await waitForHealth(base, 60_000);

@@ -15,13 +15,12 @@
  *        [-- --json]
  * Target (issue 16): a file of 1 million rows imports in under 60 s.
  */
-import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { once } from 'node:events';
 import { sql } from 'drizzle-orm';
-import { startProcess, waitForHealth } from './lib/server-process';
+import { benchServerEnv, startProcess, waitForHealth } from './lib/server-process';
 import { runClientProcess } from './lib/load-client-process';
 import { sampleLoadAverage } from './lib/load-stats';
 import { seedScratchDemo } from './lib/bench-demo-run';
@@ -76,14 +75,13 @@ async function main() {
     const megabytes = fs.statSync(file).size / 1024 / 1024;
     log(`  choice file: ${rows} rows, ${megabytes.toFixed(1)} MB`);
     const serverEnv = {
-      NODE_ENV: 'production',
-      HOST: '127.0.0.1',
-      PORT: String(PORT),
-      APP_URL: base,
-      DATABASE_URL: scratch.url,
-      JWT_SECRET: randomBytes(32).toString('hex'),
-      DATA_DIR: work,
-      EMBEDDED_WORKER: 'true',
+      ...benchServerEnv({
+        port: PORT,
+        appUrl: base,
+        databaseUrl: scratch.url,
+        dataDir: work,
+        embeddedWorker: true,
+      }),
       SMTP_PORT: '9',
     };
     const measure = async (name: string, cwd?: string) => {

@@ -13,27 +13,26 @@
  * Usage: npm run bench:session-start [-- --starts 2000] [-- --concurrency 8] [-- --panel]
  *        [-- --port 5283] [-- --compare-with <dir>] [-- --json]
  */
-import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { createDb, migrateDb } from '../db/client';
 import { adminUrl, createScratchDatabase } from './lib/scratch-db';
-import { startProcess, waitForHealth } from './lib/server-process';
+import { benchServerEnv, startProcess, waitForHealth } from './lib/server-process';
 import { PhoneConnection } from './lib/phone-connection';
 import { createBenchStudy } from './lib/bench-study';
 import { latencySummary, sampleLoadAverage } from './lib/load-stats';
 import { measureCpu } from './lib/process-cpu';
-import { readBenchArgs, runBench } from './lib/bench-args';
+import { readBenchCli, runBench } from './lib/bench-cli';
 
-const cli = readBenchArgs();
+const cli = readBenchCli();
 const { asJson, log } = cli;
 const STARTS = cli.number('starts', 2000);
 const CONCURRENCY = cli.number('concurrency', 8);
 const WARM_UP = 100;
 const PORT = cli.number('port', 5283);
 const PANEL = cli.has('panel');
-const BASELINE_DIR = cli.compareWith;
+const BASELINE_DIR = cli.path('compare-with');
 const root = path.resolve(import.meta.dirname, '..');
 
 /** `count` starts, `CONCURRENCY` at a time, phones numbered from `first`; their latencies. */
@@ -117,14 +116,12 @@ async function main() {
     await migrateDb(db);
     const { publicId } = await createBenchStudy(db);
     const env = {
-      NODE_ENV: 'production',
-      HOST: '127.0.0.1',
-      PORT: String(PORT),
-      APP_URL: `http://127.0.0.1:${PORT}`,
-      DATABASE_URL: scratch.url,
-      JWT_SECRET: randomBytes(32).toString('hex'),
-      DATA_DIR: work,
-      EMBEDDED_WORKER: 'true',
+      ...benchServerEnv({
+        port: PORT,
+        databaseUrl: scratch.url,
+        dataDir: work,
+        embeddedWorker: true,
+      }),
       SMTP_PORT: '9',
     };
     const cpuOf = { pool, database: scratch.name };

@@ -4,7 +4,7 @@
  * transaction; the study is part of every where-clause.
  * Tenant: the study, which the caller loaded for the team.
  */
-import { and, count, eq, sql } from 'drizzle-orm';
+import { and, eq, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import {
   answerRevisions,
@@ -85,14 +85,11 @@ export async function lockRespondent(db: DbOrTx, params: { studyId: string; id: 
 export type LockedRespondent = NonNullable<Awaited<ReturnType<typeof lockRespondent>>>;
 
 export async function countRespondentData(db: DbOrTx, params: { respondentId: string }) {
-  const [[a], [r]] = await Promise.all([
-    db.select({ n: count() }).from(answers).where(eq(answers.respondentId, params.respondentId)),
-    db
-      .select({ n: count() })
-      .from(answerRevisions)
-      .where(eq(answerRevisions.respondentId, params.respondentId)),
+  const [answerCount, revisionCount] = await Promise.all([
+    db.$count(answers, eq(answers.respondentId, params.respondentId)),
+    db.$count(answerRevisions, eq(answerRevisions.respondentId, params.respondentId)),
   ]);
-  return { answers: Number(a?.n ?? 0), revisions: Number(r?.n ?? 0) };
+  return { answers: answerCount, revisions: revisionCount };
 }
 
 /**
@@ -118,8 +115,7 @@ export async function countRunsUsing(
   db: DbOrTx,
   params: { studyId: string; respondent: LockedRespondent },
 ) {
-  const [row] = await db.select({ n: count() }).from(runs).where(runsUsing(params));
-  return Number(row?.n ?? 0);
+  return db.$count(runs, runsUsing(params));
 }
 
 export async function markRunsUsing(
@@ -135,11 +131,7 @@ export async function markRunsUsing(
 }
 
 export async function countRunningRuns(db: DbOrTx, params: { studyId: string }) {
-  const [row] = await db
-    .select({ n: count() })
-    .from(runs)
-    .where(and(eq(runs.studyId, params.studyId), eq(runs.status, 'running')));
-  return Number(row?.n ?? 0);
+  return db.$count(runs, and(eq(runs.studyId, params.studyId), eq(runs.status, 'running')));
 }
 
 /**

@@ -2,7 +2,7 @@
  * Teams and memberships. Tenant: memberships by team, or by the signed-in user's own id (their
  * teams); teams by the id a membership check has already admitted (requireTeam).
  */
-import { and, asc, count, eq } from 'drizzle-orm';
+import { and, asc, eq } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { memberships, teams, users } from '../schema/accounts';
 import type { Role } from '../../shared/permissions';
@@ -105,11 +105,10 @@ export async function deleteMembership(db: DbOrTx, params: { teamId: string; use
 }
 
 export async function countOwners(db: DbOrTx, params: { teamId: string }) {
-  const [row] = await db
-    .select({ n: count() })
-    .from(memberships)
-    .where(and(eq(memberships.teamId, params.teamId), eq(memberships.role, 'owner')));
-  return Number(row?.n ?? 0);
+  return db.$count(
+    memberships,
+    and(eq(memberships.teamId, params.teamId), eq(memberships.role, 'owner')),
+  );
 }
 
 /**

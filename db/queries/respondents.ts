@@ -4,7 +4,7 @@
  * where-clause, with the session token, invitee or panel key; getRespondentAnswerState takes the
  * id their session token resolved.
  */
-import { and, count, eq, sql } from 'drizzle-orm';
+import { and, eq, sql } from 'drizzle-orm';
 import type { Db, DbOrTx } from '../client';
 import { studies } from '../schema/studies';
 import { respondents } from '../schema/fieldwork';
@@ -306,11 +306,10 @@ export async function getRespondentAnswerState(db: DbOrTx, params: { respondentI
 }
 
 export async function countCompletes(db: DbOrTx, params: { studyId: string }) {
-  const [row] = await db
-    .select({ n: count() })
-    .from(respondents)
-    .where(and(eq(respondents.studyId, params.studyId), eq(respondents.status, 'completed')));
-  return Number(row?.n ?? 0);
+  return db.$count(
+    respondents,
+    and(eq(respondents.studyId, params.studyId), eq(respondents.status, 'completed')),
+  );
 }
 
 /**

@@ -150,11 +150,10 @@ export async function updateQualitySettings(
 
 /** The demo seed: synthetic respondents are the ones carrying a simulated truth. */
 export async function countSimulatedRespondents(db: DbOrTx, params: { studyId: string }) {
-  const [row] = await db
-    .select({ n: count() })
-    .from(respondents)
-    .where(and(eq(respondents.studyId, params.studyId), isNotNull(respondents.simulatedTruth)));
-  return Number(row?.n ?? 0);
+  return db.$count(
+    respondents,
+    and(eq(respondents.studyId, params.studyId), isNotNull(respondents.simulatedTruth)),
+  );
 }
 
 export async function deleteSimulatedRespondents(db: DbOrTx, params: { studyId: string }) {

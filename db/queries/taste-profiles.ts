@@ -4,7 +4,7 @@
  * and study they have already loaded for the team (getRunById). Writes come from the
  * estimation worker, which knows the run from the job queue.
  */
-import { and, asc, count, eq } from 'drizzle-orm';
+import { and, asc, eq } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { tasteProfiles } from '../schema/models';
 import { respondents } from '../schema/fieldwork';
@@ -108,9 +108,5 @@ export async function getRunProfile(
 
 /** How many profiles the run stored; the caller has loaded the run for the team. */
 export async function countRunProfiles(db: DbOrTx, params: { runId: string }) {
-  const [{ total }] = await db
-    .select({ total: count() })
-    .from(tasteProfiles)
-    .where(eq(tasteProfiles.runId, params.runId));
-  return total;
+  return db.$count(tasteProfiles, eq(tasteProfiles.runId, params.runId));
 }

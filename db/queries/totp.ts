@@ -3,7 +3,7 @@
  * one-time recovery codes (hash only). Every query is keyed by the user id it is given; callers
  * pass the signed-in user's own id, so no tenant filter applies (Tenant: the user).
  */
-import { and, count, eq, isNotNull, isNull, lt, or } from 'drizzle-orm';
+import { and, eq, isNotNull, isNull, lt, or } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { recoveryCodes, userTotp } from '../schema/accounts';
 
@@ -84,9 +84,8 @@ export async function consumeRecoveryCode(
 }
 
 export async function countUnusedRecoveryCodes(db: DbOrTx, params: { userId: string }) {
-  const [row] = await db
-    .select({ n: count() })
-    .from(recoveryCodes)
-    .where(and(eq(recoveryCodes.userId, params.userId), isNull(recoveryCodes.usedAt)));
-  return row?.n ?? 0;
+  return db.$count(
+    recoveryCodes,
+    and(eq(recoveryCodes.userId, params.userId), isNull(recoveryCodes.usedAt)),
+  );
 }

@@ -5,6 +5,7 @@
  * the outside and kill them on purpose.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
@@ -22,6 +23,30 @@ export type ServerProcess = {
   /** SIGKILL at once, as a crash or an out-of-memory kill would. */
   kill(): Promise<void>;
 };
+
+/**
+ * The environment of a production server on 127.0.0.1:`port` that a benchmark starts: its own
+ * database and data folder, a fresh JWT secret; mail and the rest are the caller's to add.
+ */
+export function benchServerEnv(opts: {
+  port: number;
+  /** The address links and the same-origin check name; http://127.0.0.1:`port` by default. */
+  appUrl?: string;
+  databaseUrl: string;
+  dataDir: string;
+  embeddedWorker: boolean;
+}): Record<string, string> {
+  return {
+    NODE_ENV: 'production',
+    HOST: '127.0.0.1',
+    PORT: String(opts.port),
+    APP_URL: opts.appUrl ?? `http://127.0.0.1:${opts.port}`,
+    DATABASE_URL: opts.databaseUrl,
+    JWT_SECRET: randomBytes(32).toString('hex'),
+    DATA_DIR: opts.dataDir,
+    EMBEDDED_WORKER: String(opts.embeddedWorker),
+  };
+}
 
 export function startProcess(opts: {
   entry: 'server/main.ts' | 'server/worker.ts';

@@ -7,7 +7,7 @@ import { AppError, ConflictError, NotFoundError, ValidationError } from '../lib/
 import { loadStudy } from './study-access';
 import { getCandidateView } from './redesign';
 import { toDesignView, toJobView } from './design-view';
-import { assertDraft } from './studies';
+import { loadDraftStudy } from './studies';
 import { DESIGN_JOB } from '../jobs/design-job';
 import { checkDesignSpec } from '../engine/design/check-design-spec';
 import { DesignError } from '../engine/design/design-errors';
@@ -57,8 +57,7 @@ export async function startDesignJob(
   studyId: string,
   specInput: unknown,
 ): Promise<DesignJobView> {
-  const study = await loadStudy(deps, actor.teamId, studyId);
-  assertDraft(study, 'its choice tasks');
+  const study = await loadDraftStudy(deps, actor.teamId, studyId, 'its choice tasks');
   return queueDesignJob(deps, actor, study, specInput, 'attach');
 }
 
@@ -137,8 +136,7 @@ export async function cancelDesignJob(
 
 /** Imports a design CSV; on any row error nothing is saved and every error is reported. */
 export async function importDesign(deps: AppDeps, actor: Actor, studyId: string, text: string) {
-  const study = await loadStudy(deps, actor.teamId, studyId);
-  assertDraft(study, 'its choice tasks');
+  const study = await loadDraftStudy(deps, actor.teamId, studyId, 'its choice tasks');
   const definition = definitionOf(study);
   if (definition.attributes.length === 0)
     throw new ValidationError('Add attributes before importing a design.', [

@@ -3,8 +3,8 @@
  * study is a draft. Live and closed studies keep the questionnaire frozen in their version.
  */
 import type { AppDeps } from '../deps';
-import { ConflictError, NotFoundError } from '../lib/errors';
-import { getStudyById } from '../../db/queries/studies';
+import { ConflictError } from '../lib/errors';
+import { loadStudy } from './study-access';
 import { updateDraftQuestionnaire } from '../../db/queries/versions';
 import { questionnaireSchema, type Questionnaire } from '../../shared/schemas/questionnaire';
 import { defaultQuestionnaire } from '../../shared/schemas/questionnaire-defaults';
@@ -28,8 +28,7 @@ export async function getQuestionnaire(
   teamId: string,
   studyId: string,
 ): Promise<QuestionnaireView> {
-  const study = await getStudyById(deps.db, { id: studyId, teamId });
-  if (!study) throw new NotFoundError('Study');
+  const study = await loadStudy(deps, teamId, studyId);
   const stored = questionnaireSchema.safeParse(study.questionnaire);
   const definition = studyDefinitionSchema.safeParse(study.definition);
   return {
@@ -47,8 +46,7 @@ export async function saveQuestionnaire(
   studyId: string,
   questionnaire: Questionnaire,
 ): Promise<QuestionnaireView> {
-  const study = await getStudyById(deps.db, { id: studyId, teamId });
-  if (!study) throw new NotFoundError('Study');
+  const study = await loadStudy(deps, teamId, studyId);
   if (study.status !== 'draft') throw frozen(study.status);
   const row = await updateDraftQuestionnaire(deps.db, { id: studyId, teamId, questionnaire });
   if (!row) throw frozen('live');

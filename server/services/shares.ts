@@ -18,6 +18,7 @@ import {
 import type {
   ShareGroups,
   ShareGroupsQuery,
+  ShareMethod,
   ShareModel,
   ShareResult,
   SimulateShares,
@@ -60,6 +61,22 @@ export async function loadShareGroups(
       return key === undefined ? -1 : grouping.order.indexOf(key);
     }),
   };
+}
+
+/**
+ * The groups a scenario is split by: those of `segmentBy` when it is given and the model has
+ * per-respondent coefficients to split (point estimates have one set for everybody), else null.
+ */
+export async function loadScenarioGroups(
+  deps: AppDeps,
+  ctx: RunContext,
+  profiles: readonly { respondentId: string }[],
+  method: ShareMethod,
+  segmentBy: Omit<ShareGroupsQuery, 'runId'> | null | undefined,
+): Promise<ShareGroups | null> {
+  return segmentBy && method !== 'point_estimates'
+    ? loadShareGroups(deps, ctx, profiles, segmentBy)
+    : null;
 }
 
 /**
@@ -122,11 +139,7 @@ export async function simulateStudyShares(
   const { ctx, profiles, model } = await loadShareModel(deps, actor, studyId, input.runId);
   // Point shares only (no interval draws): this is the server's answer of record.
   const prepared = prepareShareModel({ ...model, interval: null });
-  const usesProfiles = model.method !== 'point_estimates';
-  const groups =
-    input.segmentBy && usesProfiles
-      ? await loadShareGroups(deps, ctx, profiles, input.segmentBy)
-      : null;
+  const groups = await loadScenarioGroups(deps, ctx, profiles, model.method, input.segmentBy);
   const result = simulateScenario(prepared, input, groups);
   const welfare = computeScenarioWelfare(ctx, prepared, result);
   return {

@@ -62,6 +62,13 @@ export function assertDraft(study: { status: string }, what = 'the study'): void
     );
 }
 
+/** The team's study, for a change that only a draft allows (`what` names what would change). */
+export async function loadDraftStudy(deps: AppDeps, teamId: string, studyId: string, what: string) {
+  const study = await loadStudy(deps, teamId, studyId);
+  assertDraft(study, what);
+  return study;
+}
+
 export async function listStudies(deps: AppDeps, teamId: string, archived: boolean) {
   const rows = await listStudyRows(deps.db, { teamId, archived });
   return rows.map(toSummary);
@@ -164,8 +171,7 @@ export async function saveDefinition(
   studyId: string,
   definition: StudyDefinition,
 ): Promise<Study & { designDetached: boolean }> {
-  const study = await loadStudy(deps, teamId, studyId);
-  assertDraft(study, 'its attributes');
+  const study = await loadDraftStudy(deps, teamId, studyId, 'its attributes');
   let clearDesign = false;
   if (study.currentDesignId) {
     const design = await getDesignById(deps.db, { id: study.currentDesignId, teamId });

@@ -7,7 +7,7 @@ import type { AppDeps } from '../deps';
 import { ValidationError } from '../lib/errors';
 import { recordAudit } from './audit';
 import { getQuestionnaire } from './questionnaire';
-import { assertDraft } from './studies';
+import { loadDraftStudy } from './studies';
 import { loadStudy } from './study-access';
 import { updateDraftLanguages } from '../../db/queries/versions';
 import { languageName } from '../../shared/languages/language-tags';
@@ -42,6 +42,11 @@ export const languagesOf = (study: StudyRow): StudyLanguages => ({
   sources: study.translationSources,
 });
 
+/** Every text of the study as it stands now, with its translations and their state. */
+export async function listCurrentStudyTexts(deps: AppDeps, study: StudyRow) {
+  return listStudyTexts(await loadStudyDocuments(deps, study), languagesOf(study));
+}
+
 export async function getStudyTexts(
   deps: AppDeps,
   teamId: string,
@@ -49,7 +54,7 @@ export async function getStudyTexts(
 ): Promise<StudyTextsView> {
   const study = await loadStudy(deps, teamId, studyId);
   const langs = languagesOf(study);
-  const texts = listStudyTexts(await loadStudyDocuments(deps, study), langs);
+  const texts = await listCurrentStudyTexts(deps, study);
   const missing = Object.fromEntries(langs.languages.map((l) => [l, 0]));
   for (const m of findMissingTexts(texts, langs)) missing[m.language] = m.missing.length;
   return {
@@ -75,8 +80,7 @@ export async function updateLanguages(
   languages: string[],
 ): Promise<StudyTextsView> {
   const { teamId } = actor;
-  const study = await loadStudy(deps, teamId, studyId);
-  assertDraft(study, 'its languages');
+  const study = await loadDraftStudy(deps, teamId, studyId, 'its languages');
   const [source, ...others] = study.languages;
   if (languages[0] !== source && others.includes(languages[0]))
     throw new ValidationError('The source language cannot be swapped with a translation', [

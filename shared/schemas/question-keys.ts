@@ -5,6 +5,9 @@
  */
 import slugify from '@sindresorhus/slugify';
 
+/** What a question key looks like: a lowercase letter, then up to 39 letters, digits or _. */
+export const QUESTION_KEY_PATTERN = /^[a-z][a-z0-9_]{0,39}$/;
+
 /** Room left for a "_2"…"_99" suffix within the 40-character key limit. */
 const MAX_BASE = 36;
 

@@ -73,6 +73,9 @@ export function createPage(
   definition: StudyDefinition,
   takenKeys: Iterable<string> = [],
 ): QuestionnairePage {
+  /** A required single-choice question keyed by a slug of its text. */
+  const keyedQuestion = (text: string, options: Parameters<typeof requiredSingleQuestion>[2]) =>
+    requiredSingleQuestion(questionKeyFromText(text, takenKeys), text, options);
   switch (kind) {
     case 'consent':
       return {
@@ -86,14 +89,10 @@ export function createPage(
       return {
         id: id(),
         kind,
-        question: requiredSingleQuestion(
-          questionKeyFromText('Are you 18 or older?', takenKeys),
-          'Are you 18 or older?',
-          [
-            { id: 'yes', label: 'Yes' },
-            { id: 'no', label: 'No' },
-          ],
-        ),
+        question: keyedQuestion('Are you 18 or older?', [
+          { id: 'yes', label: 'Yes' },
+          { id: 'no', label: 'No' },
+        ]),
         screenOutOptionIds: ['no'],
         acceptMin: null,
         acceptMax: null,
@@ -103,14 +102,10 @@ export function createPage(
       return {
         id: id(),
         kind,
-        question: requiredSingleQuestion(
-          questionKeyFromText('New question', takenKeys),
-          'New question',
-          [
-            { id: 'a', label: 'First option' },
-            { id: 'b', label: 'Second option' },
-          ],
-        ),
+        question: keyedQuestion('New question', [
+          { id: 'a', label: 'First option' },
+          { id: 'b', label: 'Second option' },
+        ]),
       };
     case 'instructions':
       return {

@@ -9,6 +9,7 @@ import { elementIdSchema } from './study-definition';
 import { quotaProblems } from '../survey/quota-cells';
 import { skipRuleProblems } from '../survey/skip-logic';
 import { addIssue } from './add-issue';
+import { QUESTION_KEY_PATTERN } from './question-keys';
 
 const title = z.string().trim().min(1, 'Give the page a title').max(200);
 const body = z.string().trim().max(6000);
@@ -16,7 +17,7 @@ const body = z.string().trim().max(6000);
 /** Column-safe key: it names the question's column in exports. */
 export const questionKeySchema = z
   .string()
-  .regex(/^[a-z][a-z0-9_]{0,39}$/, 'Start with a letter; use lowercase letters, digits and _');
+  .regex(QUESTION_KEY_PATTERN, 'Start with a letter; use lowercase letters, digits and _');
 
 export const choiceOptionSchema = z.object({
   id: elementIdSchema,

@@ -8,6 +8,7 @@ import { studyParamsSchema } from './study-params';
 import { elementIdSchema, type StudyDefinition } from './study-definition';
 import { groupByFields, refineGroupBy } from './tastes';
 import { addIssue } from './add-issue';
+import { QUESTION_KEY_PATTERN } from './question-keys';
 
 export const scenarioAlternativeSchema = z.object({
   name: z.string().trim().min(1, 'Name the alternative').max(60),
@@ -18,12 +19,15 @@ export const scenarioAlternativeSchema = z.object({
 });
 export type ScenarioAlternative = z.infer<typeof scenarioAlternativeSchema>;
 
+/** The alternatives of a scenario, simulated or saved: 2 to 5. */
+const scenarioAlternativesSchema = z
+  .array(scenarioAlternativeSchema)
+  .min(2, 'Define at least 2 alternatives')
+  .max(5, 'At most 5 alternatives');
+
 const simulateSharesObject = z.object({
   runId: z.uuid('Choose a finished run'),
-  alternatives: z
-    .array(scenarioAlternativeSchema)
-    .min(2, 'Define at least 2 alternatives')
-    .max(5, 'At most 5 alternatives'),
+  alternatives: scenarioAlternativesSchema,
   /** Add the study's opt-out / status quo to the scenario. */
   includeFixed: z.boolean().default(true),
   /**
@@ -34,10 +38,7 @@ const simulateSharesObject = z.object({
     .object({
       groupBy: z.enum(['task', 'question', 'class']),
       task: z.number().int().min(1).optional(),
-      question: z
-        .string()
-        .regex(/^[a-z][a-z0-9_]{0,39}$/)
-        .optional(),
+      question: z.string().regex(QUESTION_KEY_PATTERN).optional(),
     })
     .nullable()
     .default(null),
@@ -191,10 +192,7 @@ export type ShareGroups = {
 /** A saved, named scenario of a study (POST/PUT …/shares/scenarios). */
 export const scenarioBodySchema = z.object({
   name: z.string().trim().min(1, 'Name the scenario').max(80, 'At most 80 characters'),
-  alternatives: z
-    .array(scenarioAlternativeSchema)
-    .min(2, 'Define at least 2 alternatives')
-    .max(5, 'At most 5 alternatives'),
+  alternatives: scenarioAlternativesSchema,
   includeFixed: z.boolean().default(true),
 });
 export type ScenarioBodyInput = z.input<typeof scenarioBodySchema>;

@@ -9,6 +9,7 @@ import { studyParamsSchema } from './study-params';
 import type { StudyDefinition } from './study-definition';
 import type { ModelFamily } from './estimation-families';
 import { addIssue } from './add-issue';
+import { QUESTION_KEY_PATTERN } from './question-keys';
 
 /**
  * A profile whose effective number of draws (Kish, 1/Σw²) is below this is flagged: its
@@ -17,6 +18,7 @@ import { addIssue } from './add-issue';
  */
 export const LOW_EFFECTIVE_DRAWS = 30;
 
+const questionKeyParam = z.string().regex(QUESTION_KEY_PATTERN, 'Unknown question');
 const coefficientName = z.string().regex(/^[A-Za-z_][A-Za-z0-9_.-]{0,99}$/, 'Unknown coefficient');
 const boolString = z.enum(['true', 'false']).transform((v) => v === 'true');
 
@@ -38,10 +40,7 @@ export const listTastesQuerySchema = z.object({
   /** Only respondents with at least one quality flag (true) or none (false). */
   flagged: boolString.optional(),
   /** Background question key and the option id (or number) to keep. */
-  question: z
-    .string()
-    .regex(/^[a-z][a-z0-9_]{0,39}$/, 'Unknown question')
-    .optional(),
+  question: questionKeyParam.optional(),
   answer: z.string().min(1).max(40).optional(),
 });
 export type ListTastesQuery = z.output<typeof listTastesQuerySchema>;
@@ -84,10 +83,7 @@ export const tastesRunQuerySchema = z.object({ runId: z.uuid('Choose a finished 
 export const groupByFields = {
   groupBy: z.enum(['task', 'question', 'class']),
   task: z.coerce.number().int().min(1).max(2000).optional(),
-  question: z
-    .string()
-    .regex(/^[a-z][a-z0-9_]{0,39}$/, 'Unknown question')
-    .optional(),
+  question: questionKeyParam.optional(),
 };
 
 /** A task or question grouping names its task or question. */

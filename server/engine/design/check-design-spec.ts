@@ -4,6 +4,7 @@
  * blocks, identifiability, size limits). Throws DesignError('invalid_spec' | 'too_large')
  * with field messages; returns the spec with defaults filled and priors as arrays.
  */
+import type { z } from 'zod';
 import { buildCodingPlan, type CodingPlan } from '../../../shared/engine/coding/coding-plan';
 import { designSpecSchema, type DesignSpec } from '../../../shared/schemas/design-spec';
 import {
@@ -37,33 +38,29 @@ function fail(path: string, message: string): never {
   throw new DesignError('invalid_spec', message, { [path]: message });
 }
 
-function toFields(prefix: string, issues: { path: PropertyKey[]; message: string }[]) {
+/** `input` parsed by `schema`, or DesignError('invalid_spec') with one message per field. */
+function parseOrFail<T>(schema: z.ZodType<T>, input: unknown, message: string, prefix: string): T {
+  const parsed = schema.safeParse(input);
+  if (parsed.success) return parsed.data;
   const fields: Record<string, string> = {};
-  for (const issue of issues) {
+  for (const issue of parsed.error.issues) {
     const key = [prefix, ...issue.path.map(String)].filter(Boolean).join('.');
     fields[key] ??= issue.message;
   }
-  return fields;
+  throw new DesignError('invalid_spec', message, fields);
 }
 
 /** Checks a design request; see the file comment. */
 export function checkDesignSpec(definitionInput: unknown, specInput: unknown): CheckedDesignSpec {
-  const parsedDefinition = studyDefinitionSchema.safeParse(definitionInput);
-  if (!parsedDefinition.success)
-    throw new DesignError(
-      'invalid_spec',
-      'The study definition is not valid',
-      toFields('definition', parsedDefinition.error.issues),
-    );
-  const parsedSpec = designSpecSchema.safeParse(specInput);
-  if (!parsedSpec.success)
-    throw new DesignError(
-      'invalid_spec',
-      'The design settings are not valid',
-      toFields('', parsedSpec.error.issues),
-    );
-  const definition = parsedDefinition.data;
-  const spec = { ...parsedSpec.data };
+  const definition = parseOrFail(
+    studyDefinitionSchema,
+    definitionInput,
+    'The study definition is not valid',
+    'definition',
+  );
+  const spec = {
+    ...parseOrFail(designSpecSchema, specInput, 'The design settings are not valid', ''),
+  };
   if (definition.attributes.length === 0)
     fail('definition.attributes', 'Add at least one attribute before designing tasks');
 

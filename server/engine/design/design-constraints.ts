@@ -95,23 +95,28 @@ export function isAlternativeAllowed(
   return checkAlternativeLevels(c, grid, s, j) === Violation.none;
 }
 
+/**
+ * Whether attribute a overlaps in task s: true when every designed alternative that shows it
+ * takes one level, false when two differ, null when fewer than two alternatives show it.
+ */
+export function overlapsInTask(grid: LevelGrid, s: number, a: number): boolean | null {
+  const { J, A } = grid;
+  let first = -1;
+  let shown = 0;
+  for (let j = 0; j < J; j++) {
+    const l = grid.levels[(s * J + j) * A + a];
+    if (l < 0) continue;
+    if (shown === 0) first = l;
+    else if (l !== first) return false;
+    shown++;
+  }
+  return shown >= 2 ? true : null;
+}
+
 /** Attributes shown at one level by every designed alternative of task s (shown by ≥ 2). */
 export function countOverlap(grid: LevelGrid, s: number): number {
-  const { J, A } = grid;
   let overlapping = 0;
-  for (let a = 0; a < A; a++) {
-    let first = -1;
-    let shown = 0;
-    let same = true;
-    for (let j = 0; j < J && same; j++) {
-      const l = grid.levels[(s * J + j) * A + a];
-      if (l < 0) continue;
-      if (shown === 0) first = l;
-      else if (l !== first) same = false;
-      shown++;
-    }
-    if (same && shown >= 2) overlapping++;
-  }
+  for (let a = 0; a < grid.A; a++) if (overlapsInTask(grid, s, a) === true) overlapping++;
   return overlapping;
 }
 

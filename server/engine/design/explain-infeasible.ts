@@ -116,17 +116,16 @@ export function explainInfeasibleDesign(input: Input): string {
   // 2. Single alternatives.
   const withAll = countProfiles(plan, c);
   const needed = plan.designedCount + (c.statusQuo ? 1 : 0);
-  const without = (r: number) =>
-    countProfiles(
+  /** The constraints with excluded combination r dropped. */
+  const constraintsWithout = (r: number) =>
+    buildDesignConstraints(
       plan,
-      buildDesignConstraints(
-        plan,
-        { ...definition, excludedCombinations: rules.filter((_, i) => i !== r) },
-        input.priorMeans,
-        input.priorSds,
-        spec,
-      ),
+      { ...definition, excludedCombinations: rules.filter((_, i) => i !== r) },
+      input.priorMeans,
+      input.priorSds,
+      spec,
     );
+  const without = (r: number) => countProfiles(plan, constraintsWithout(r));
   if (withAll.count < needed) {
     const freeing = rules
       .map((_, r) => ({ r, count: without(r).count }))
@@ -193,13 +192,7 @@ export function explainInfeasibleDesign(input: Input): string {
         .map(({ rule, r }) => ({
           label: describeExcludedCombination(definition, rule),
           frees: () => {
-            const relaxed = buildDesignConstraints(
-              plan,
-              { ...definition, excludedCombinations: rules.filter((_, i) => i !== r) },
-              input.priorMeans,
-              input.priorSds,
-              spec,
-            );
+            const relaxed = constraintsWithout(r);
             return someTaskIsValid(plan, relaxed, countProfiles(plan, relaxed).rows);
           },
         })),

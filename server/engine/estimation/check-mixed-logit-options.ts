@@ -12,7 +12,7 @@ import {
   type CoefficientSpec,
   type MixedLogitLayout,
 } from './mixed-logit-layout';
-import { checkHoldout } from './shared-option-checks';
+import { assertInteger, checkHoldout } from './shared-option-checks';
 
 export interface MixedLogitOptions {
   coefficients: CoefficientSpec[];
@@ -70,12 +70,6 @@ export interface CheckedMixedLogitOptions {
 
 const DRAW_TYPES: DrawsType[] = ['halton', 'sobol', 'mlhs', 'random'];
 
-function assertPositiveInteger(value: number, field: string, max = Number.MAX_SAFE_INTEGER): void {
-  if (!Number.isInteger(value) || value < 1 || value > max) {
-    throw new EstimationOptionsError(`${field} must be an integer between 1 and ${max}`, field);
-  }
-}
-
 /** Fills defaults and validates; throws EstimationOptionsError naming the field. */
 export function checkMixedLogitOptions(
   data: ChoiceData,
@@ -103,7 +97,7 @@ export function checkMixedLogitOptions(
   };
   if (!DRAW_TYPES.includes(draws.type))
     throw new EstimationOptionsError(`unknown draws type ${String(draws.type)}`, 'draws.type');
-  assertPositiveInteger(draws.count, 'draws.count', 100_000);
+  assertInteger(draws.count, 'draws.count', 1, 100_000);
   if (!Number.isInteger(draws.seed))
     throw new EstimationOptionsError('draws.seed must be an integer', 'draws.seed');
   if (layout.D > getMaxDrawDimensions(draws.type)) {
@@ -113,11 +107,11 @@ export function checkMixedLogitOptions(
     );
   }
   const maxIterations = options.maxIterations ?? 300;
-  assertPositiveInteger(maxIterations, 'maxIterations');
+  assertInteger(maxIterations, 'maxIterations', 1, Number.MAX_SAFE_INTEGER);
   const starts = options.starts ?? 3;
-  assertPositiveInteger(starts, 'starts', 50);
+  assertInteger(starts, 'starts', 1, 50);
   const threads = options.threads ?? 1;
-  assertPositiveInteger(threads, 'threads', 64);
+  assertInteger(threads, 'threads', 1, 64);
   const tolerance = options.tolerance ?? DEFAULT_TOLERANCE;
   const gradientTolerance = options.gradientTolerance ?? DEFAULT_GRADIENT_TOLERANCE;
   if (!(gradientTolerance > 0))

@@ -23,6 +23,28 @@ export interface ChoiceData {
   readonly altCount: Int32Array;
 }
 
+/** Most difference rows of one task (at least 1): the length of per-task scratch arrays. */
+export function getMaxTaskRows(data: Pick<ChoiceData, 'diffStart'>): number {
+  let maxRows = 1;
+  for (let t = 0; t + 1 < data.diffStart.length; t++)
+    maxRows = Math.max(maxRows, data.diffStart[t + 1] - data.diffStart[t]);
+  return maxRows;
+}
+
+/** Most difference rows of one respondent among first..first+count−1 (at least 1). */
+export function getMaxRespondentRows(
+  data: Pick<ChoiceData, 'diffStart' | 'taskStart'>,
+  first: number,
+  count: number,
+): number {
+  let maxRows = 1;
+  for (let n = first; n < first + count; n++) {
+    const rows = data.diffStart[data.taskStart[n + 1]] - data.diffStart[data.taskStart[n]];
+    if (rows > maxRows) maxRows = rows;
+  }
+  return maxRows;
+}
+
 /** One input row in long format: one alternative of one task. */
 export interface LongChoiceRow {
   respondent: string | number;

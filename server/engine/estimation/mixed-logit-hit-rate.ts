@@ -4,7 +4,7 @@
  * common practice, no source.
  */
 import type { DrawsSpec } from '../draws/uniform-draws';
-import type { ChoiceData } from './choice-data';
+import { getMaxTaskRows, type ChoiceData } from './choice-data';
 import { createMixedLogitKernel } from './mixed-logit-kernel';
 import type { MixedLogitLayout } from './mixed-logit-layout';
 import { createStandardVariates } from './standard-variates';
@@ -22,9 +22,7 @@ export function computeMixedHitRate(
   const R = draws.count;
   const { K } = layout;
   const Kd = data.columns.length;
-  let maxRows = 1;
-  for (let t = 0; t + 1 < data.diffStart.length; t++)
-    maxRows = Math.max(maxRows, data.diffStart[t + 1] - data.diffStart[t]);
+  const maxRows = getMaxTaskRows(data);
   const betas = new Float64Array(K * R);
   const weights = new Float64Array(R);
   const e = new Float64Array(maxRows);

@@ -16,7 +16,7 @@
  */
 import { expStreamAccumulate } from '../linalg/exp-stream';
 import { fusedAxpy } from '../linalg/fused-axpy';
-import type { ChoiceData } from './choice-data';
+import { getMaxRespondentRows, type ChoiceData } from './choice-data';
 import { getDrawStride } from './standard-variates';
 import { fillCoefficientDraws } from './coefficient-draws';
 import {
@@ -72,10 +72,7 @@ export function createMixedLogitKernel(
   const { diffs, diffStart, taskStart } = data;
   // Largest number of alternative rows of one respondent: V keeps all of them so the
   // gradient can be accumulated in one fused pass per coefficient after the last task.
-  let maxRows = 1;
-  for (let n = first; n < first + count; n++) {
-    maxRows = Math.max(maxRows, diffStart[taskStart[n + 1]] - diffStart[taskStart[n]]);
-  }
+  const maxRows = getMaxRespondentRows(data, first, count);
   const B = new Float64Array(K * R);
   const wtpCost = layout.wtpCost;
   // Raw draws of the model's coefficients; the same array as B in preference space.

@@ -28,6 +28,7 @@ import {
   DIST_UNIFORM,
 } from './distribution-codes';
 import { EstimationOptionsError } from './estimation-errors';
+import { resolveCoefficientColumn } from './shared-option-checks';
 import { COEFFICIENT_DISTRIBUTIONS } from '../../../shared/schemas/estimation-spec';
 
 /** Index of a name in this list = its DIST_* code. */
@@ -82,7 +83,6 @@ export function createMixedLogitLayout(
   const K = coefficients.length;
   if (K === 0)
     throw new EstimationOptionsError('at least one coefficient is required', 'coefficients');
-  const seen = new Set<string>();
   const column = new Int32Array(K);
   const dist = new Int8Array(K);
   coefficients.forEach((c, k) => {
@@ -91,19 +91,7 @@ export function createMixedLogitLayout(
         `coefficients[${k}].name is required`,
         `coefficients.${k}.name`,
       );
-    if (seen.has(c.name))
-      throw new EstimationOptionsError(
-        `coefficient name ${c.name} is used twice`,
-        `coefficients.${k}.name`,
-      );
-    seen.add(c.name);
-    const col = data.columns.indexOf(c.column ?? c.name);
-    if (col < 0)
-      throw new EstimationOptionsError(
-        `column ${c.column ?? c.name} is not in the data`,
-        `coefficients.${k}.column`,
-      );
-    column[k] = col;
+    column[k] = resolveCoefficientColumn(data, coefficients, k);
     const code = DISTRIBUTIONS.indexOf(c.distribution);
     if (code < 0)
       throw new EstimationOptionsError(

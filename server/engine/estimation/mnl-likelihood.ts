@@ -3,7 +3,7 @@
  * 2009 §3.7-3.8). With d_j = x_j − x_chosen and v_j = β·d_j, ln P = −ln(1 + Σ_j e^{v_j}),
  * ∂ln P/∂β = −Σ_j P_j d_j and ∂²ln P/∂β∂β' = −[Σ_j P_j d_j d_j' − (Σ_j P_j d_j)(Σ_j P_j d_j)'].
  */
-import type { ChoiceData } from './choice-data';
+import { getMaxTaskRows, type ChoiceData } from './choice-data';
 
 /**
  * Returns Σ ln P over all tasks at β (length K = data columns). Adds the gradient into `grad`
@@ -27,10 +27,7 @@ export function evaluateMnl(
   hess?.fill(0, 0, K * K);
   scores?.fill(0, 0, N * K);
   const mean = new Float64Array(K);
-  let maxRows = 0;
-  for (let t = 0; t + 1 < diffStart.length; t++)
-    maxRows = Math.max(maxRows, diffStart[t + 1] - diffStart[t]);
-  const p = new Float64Array(maxRows);
+  const p = new Float64Array(getMaxTaskRows(data));
   let ll = 0;
   for (let n = 0; n < N; n++) {
     const wn = weights ? weights[n] : 1;

@@ -9,7 +9,12 @@
 import { HB_DEFAULTS, HB_DISTRIBUTIONS } from '../../../shared/schemas/estimation-families';
 import type { ChoiceData } from '../estimation/choice-data';
 import { EstimationOptionsError } from '../estimation/estimation-errors';
-import { checkHoldout, resolveCostIndex } from '../estimation/shared-option-checks';
+import {
+  assertInteger,
+  checkHoldout,
+  resolveCoefficientColumn,
+  resolveCostIndex,
+} from '../estimation/shared-option-checks';
 
 /** Index of a name in this list = its HB_* code below. */
 export { HB_DISTRIBUTIONS };
@@ -106,14 +111,6 @@ export interface CheckedHbOptions {
 /** Stored per-respondent draws are capped (4-byte floats) so a run cannot exhaust memory. */
 const MAX_STORED_VALUES = 60_000_000;
 
-function assertInteger(value: number, field: string, min: number, max: number): void {
-  if (!Number.isInteger(value) || value < min || value > max)
-    throw new EstimationOptionsError(
-      `${field} must be an integer between ${min} and ${max}`,
-      field,
-    );
-}
-
 /** Throws unless every respondent has at least HB_MIN_TASKS estimation tasks. */
 export function assertEnoughTasksForHb(data: ChoiceData): void {
   const N = data.taskStart.length - 1;
@@ -137,19 +134,10 @@ function createHbLayout(data: ChoiceData, coefficients: HbCoefficientSpec[]): Hb
   const K = coefficients.length;
   const transform = new Int8Array(K);
   const column = new Int32Array(K);
-  const seen = new Set<string>();
   coefficients.forEach((c, k) => {
     const field = `coefficients.${k}`;
     if (!c.name) throw new EstimationOptionsError(`${field}.name is required`, `${field}.name`);
-    if (seen.has(c.name))
-      throw new EstimationOptionsError(`coefficient name ${c.name} is used twice`, `${field}.name`);
-    seen.add(c.name);
-    column[k] = data.columns.indexOf(c.column ?? c.name);
-    if (column[k] < 0)
-      throw new EstimationOptionsError(
-        `column ${c.column ?? c.name} is not in the data`,
-        `${field}.column`,
-      );
+    column[k] = resolveCoefficientColumn(data, coefficients, k);
     const code = (HB_DISTRIBUTIONS as readonly string[]).indexOf(c.distribution);
     if (code < 0)
       throw new EstimationOptionsError(

@@ -9,7 +9,7 @@
 import { inverseNormal } from '../draws/inverse-normal';
 import { fillUniformDraws, getMaxDrawDimensions } from '../draws/uniform-draws';
 import { choleskyDecompose } from '../linalg/cholesky';
-import type { ChoiceData } from '../estimation/choice-data';
+import { getMaxTaskRows, type ChoiceData } from '../estimation/choice-data';
 import { computeTaskProbabilities, scoreTaskHit } from '../estimation/score-task-hit';
 import { buildRespondentDesign } from './respondent-design';
 import { createRespondentShiftKernel } from './respondent-shift-kernel';
@@ -121,9 +121,7 @@ export function computeIndividualHitRate(
   K: number,
 ): number {
   const row = new Map(respondentIds.map((id, n) => [id, n]));
-  let maxRows = 1;
-  for (let t = 0; t + 1 < data.diffStart.length; t++)
-    maxRows = Math.max(maxRows, data.diffStart[t + 1] - data.diffStart[t]);
+  const maxRows = getMaxTaskRows(data);
   const others = new Float64Array(maxRows);
   let hits = 0;
   let tasks = 0;

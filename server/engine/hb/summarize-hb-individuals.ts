@@ -7,20 +7,17 @@
  */
 import type { CheckedHbOptions } from './check-hb-options';
 import type { HbChainResult } from './hb-chain-result';
+import type { TasteProfile } from '../estimation/taste-profiles';
 import { computeEss } from './mcmc-diagnostics';
 import { summarizeDraws } from './posterior-summary';
 
-export interface HbIndividual {
-  respondent: string;
-  mean: Record<string, number>;
-  sd: Record<string, number>;
+/** A taste profile with the 95 % posterior intervals, and the WTPs' SDs and intervals. */
+export interface HbIndividual extends TasteProfile {
   lower: Record<string, number>;
   upper: Record<string, number>;
-  wtp?: Record<string, number>;
   wtpSd?: Record<string, number>;
   wtpLower?: Record<string, number>;
   wtpUpper?: Record<string, number>;
-  effectiveDraws: number;
 }
 
 export interface HbIndividualsResult {

@@ -6,7 +6,12 @@
  */
 import type { ChoiceData } from '../estimation/choice-data';
 import { EstimationOptionsError } from '../estimation/estimation-errors';
-import { checkHoldout, resolveCostIndex } from '../estimation/shared-option-checks';
+import {
+  assertInteger,
+  checkHoldout,
+  resolveCoefficientColumn,
+  resolveCostIndex,
+} from '../estimation/shared-option-checks';
 
 export const LC_MIN_TASKS = 2;
 export const LC_MAX_CLASSES = 8;
@@ -72,14 +77,6 @@ export function assertClassesIdentifiable(data: ChoiceData, C: number, K: number
     );
 }
 
-function assertInteger(value: number, field: string, min: number, max: number): void {
-  if (!Number.isInteger(value) || value < min || value > max)
-    throw new EstimationOptionsError(
-      `${field} must be an integer between ${min} and ${max}`,
-      field,
-    );
-}
-
 /** Fills defaults and validates; throws EstimationOptionsError naming the field. */
 export function checkLatentClassOptions(
   data: ChoiceData,
@@ -88,20 +85,9 @@ export function checkLatentClassOptions(
   if (!options || !Array.isArray(options.coefficients) || options.coefficients.length === 0)
     throw new EstimationOptionsError('at least one coefficient is required', 'coefficients');
   const names = options.coefficients.map((c) => c.name);
-  const column = Int32Array.from(options.coefficients, (c, k) => {
-    if (names.indexOf(c.name) !== k)
-      throw new EstimationOptionsError(
-        `coefficient name ${c.name} is used twice`,
-        `coefficients.${k}.name`,
-      );
-    const col = data.columns.indexOf(c.column ?? c.name);
-    if (col < 0)
-      throw new EstimationOptionsError(
-        `column ${c.column ?? c.name} is not in the data`,
-        `coefficients.${k}.column`,
-      );
-    return col;
-  });
+  const column = Int32Array.from(options.coefficients, (_, k) =>
+    resolveCoefficientColumn(data, options.coefficients, k),
+  );
   const range = options.classes ?? 2;
   const [lo, hi] = Array.isArray(range) ? range : [range, range];
   assertInteger(lo, 'classes', 1, LC_MAX_CLASSES);

@@ -3,7 +3,7 @@
  * class probabilities, as for predicting a new respondent) and individual level with the
  * posterior h_nc, which use the respondent's own choices (holdout tasks matched by respondent).
  */
-import type { ChoiceData } from '../estimation/choice-data';
+import { getMaxTaskRows, type ChoiceData } from '../estimation/choice-data';
 import { computeTaskProbabilities, scoreTaskHit } from '../estimation/score-task-hit';
 
 /**
@@ -17,9 +17,7 @@ export function computeClassMixtureHitRate(
   K: number,
   weights: (n: number) => ArrayLike<number> | null,
 ): number {
-  let maxRows = 1;
-  for (let t = 0; t + 1 < data.diffStart.length; t++)
-    maxRows = Math.max(maxRows, data.diffStart[t + 1] - data.diffStart[t]);
+  const maxRows = getMaxTaskRows(data);
   const others = new Float64Array(maxRows);
   const mix = new Float64Array(maxRows);
   let hits = 0;

@@ -9,26 +9,22 @@
  */
 import type { ChoiceData } from '../estimation/choice-data';
 import type { LatentClassState } from './latent-class-state';
+import type { TasteProfile } from '../estimation/taste-profiles';
 import { finiteOrNull } from '../estimation/finite-or-null';
+
+type NamedEstimate = { name: string; estimate: number; se: number | null };
 
 export interface LatentClassSummary {
   classes: {
     class: number;
     share: number;
     shareSe: number | null;
-    estimates: { name: string; estimate: number; se: number | null }[];
-    wtp: { name: string; estimate: number; se: number | null }[] | null;
-    membership: { name: string; estimate: number; se: number | null }[];
+    estimates: NamedEstimate[];
+    wtp: NamedEstimate[] | null;
+    membership: NamedEstimate[];
   }[];
-  individuals: {
-    respondent: string;
-    mean: Record<string, number>;
-    sd: Record<string, number>;
-    wtp?: Record<string, number>;
-    classProbabilities: number[];
-    likeliestClass: number;
-    effectiveDraws: number;
-  }[];
+  /** A taste profile per respondent, with the posterior class probabilities. */
+  individuals: (TasteProfile & { classProbabilities: number[]; likeliestClass: number })[];
   /** Share-weighted mean and SD of each coefficient across classes. */
   population: { name: string; mean: number; sd: number }[];
 }

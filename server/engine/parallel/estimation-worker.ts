@@ -33,24 +33,19 @@ function assertTask(message: unknown): asserts message is EstimationWorkerTask {
 export async function runEstimationTask(message: unknown): Promise<EstimationWorkerResult> {
   assertTask(message);
   const { spec, built, threads, kernel, membership, resume, port } = message;
+  const post = (m: EstimationProgressMessage) => port?.postMessage(m);
   try {
     const result = await runEstimation(spec, built, {
       threads,
       kernel,
       membership,
       resume,
-      onCheckpoint: (checkpoint) =>
-        port?.postMessage({ type: 'checkpoint', checkpoint } satisfies EstimationProgressMessage),
-      onNote: (note) =>
-        port?.postMessage({ type: 'note', note } satisfies EstimationProgressMessage),
-      onProgress: (progress) =>
-        port?.postMessage({ type: 'progress', progress } satisfies EstimationProgressMessage),
-      onSamplerProgress: (progress) =>
-        port?.postMessage({ type: 'sampler', progress } satisfies EstimationProgressMessage),
-      onClassProgress: (progress) =>
-        port?.postMessage({ type: 'classes', progress } satisfies EstimationProgressMessage),
-      onStage: (stage) =>
-        port?.postMessage({ type: 'stage', stage } satisfies EstimationProgressMessage),
+      onCheckpoint: (checkpoint) => post({ type: 'checkpoint', checkpoint }),
+      onNote: (note) => post({ type: 'note', note }),
+      onProgress: (progress) => post({ type: 'progress', progress }),
+      onSamplerProgress: (progress) => post({ type: 'sampler', progress }),
+      onClassProgress: (progress) => post({ type: 'classes', progress }),
+      onStage: (stage) => post({ type: 'stage', stage }),
     });
     return { ok: true, result };
   } catch (e) {

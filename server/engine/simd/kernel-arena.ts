@@ -4,7 +4,7 @@
  * exponential's table, the model layout and a header per slice. When the runtime cannot
  * make a shared WebAssembly memory, a plain SharedArrayBuffer serves the TypeScript kernel.
  */
-import type { ChoiceData } from '../estimation/choice-data';
+import { getMaxRespondentRows, type ChoiceData } from '../estimation/choice-data';
 import type { MixedLogitLayout } from '../estimation/mixed-logit-layout';
 import { EXP_TABLE } from '../linalg/exp-stream';
 import * as H from './arena-header';
@@ -15,16 +15,6 @@ export interface KernelArena {
   memory: WebAssembly.Memory | null;
   buffer: SharedArrayBuffer;
   plan: ArenaPlan;
-}
-
-/** Most difference rows of one respondent among first..first+count−1. */
-export function getMaxRows(data: ChoiceData, first: number, count: number): number {
-  let maxRows = 1;
-  for (let n = first; n < first + count; n++) {
-    const rows = data.diffStart[data.taskStart[n + 1]] - data.diffStart[data.taskStart[n]];
-    if (rows > maxRows) maxRows = rows;
-  }
-  return maxRows;
 }
 
 /** The arena dimensions of a model on these data. */
@@ -61,7 +51,7 @@ export function createKernelArena(
 ): KernelArena {
   const plan = planArena(
     getArenaDimensions(data, layout, R),
-    slices.map((s) => ({ ...s, maxRows: getMaxRows(data, s.first, s.count) })),
+    slices.map((s) => ({ ...s, maxRows: getMaxRespondentRows(data, s.first, s.count) })),
   );
   if (plan.bytes > ARENA_MAX_BYTES) {
     throw new RangeError(

@@ -13,7 +13,7 @@ import { getRunSummary } from '../exports/run-summary';
 import { col, type DocumentedTable, writeDocumentedCsv } from '../exports/documented-table';
 import { addCodebookSheet, addTableSheet, createResultsWorkbook } from '../exports/documented-xlsx';
 import { makeDownload, type Download } from '../exports/download';
-import { loadPreparedShareModel, loadShareGroups, simulateScenario } from '../shares';
+import { loadPreparedShareModel, loadScenarioGroups, simulateScenario } from '../shares';
 import { rethrowScenarioError } from './scenario-error';
 import type { Actor } from '../actor';
 
@@ -54,11 +54,13 @@ export async function exportShares(
     studyId,
     input.runId,
   );
-  const individual = prepared.model.method !== 'point_estimates';
-  const groups =
-    input.segmentBy && individual
-      ? await loadShareGroups(deps, ctx, profiles, input.segmentBy)
-      : null;
+  const groups = await loadScenarioGroups(
+    deps,
+    ctx,
+    profiles,
+    prepared.model.method,
+    input.segmentBy,
+  );
   const result = simulateScenario(prepared, input, groups);
   let curve = null;
   try {

@@ -6,8 +6,7 @@ import path from 'node:path';
 import { nanoid } from 'nanoid';
 import type { AppDeps } from '../../deps';
 import { NotFoundError, ValidationError } from '../../lib/errors';
-import { loadStudy } from '../study-access';
-import { assertDraft } from '../studies';
+import { loadDraftStudy } from '../studies';
 import { getStoredFileByKey, insertStoredFile } from '../../../db/queries/files';
 import type { FileStore, StoredObject } from './file-store';
 import { createLocalFileStore } from './local-file-store';
@@ -33,8 +32,7 @@ export async function uploadLevelImage(
   studyId: string,
   file: { buffer: Buffer; originalname: string },
 ) {
-  const study = await loadStudy(deps, teamId, studyId);
-  assertDraft(study, 'its attributes');
+  await loadDraftStudy(deps, teamId, studyId, 'its attributes');
   const type = detectImageType(file.buffer);
   if (!type)
     throw new ValidationError(

@@ -116,12 +116,7 @@ export async function readChoiceFile(input: Readable): Promise<ChoiceFileScan> {
         });
         return false;
       }
-      let r = respondentIndex.get(respondent);
-      if (r === undefined) {
-        r = scan.respondents.length;
-        respondentIndex.set(respondent, r);
-        scan.respondents.push(respondent);
-      }
+      const r = indexOfValue(respondentIndex, scan.respondents, respondent);
       const taskKey = `${r}\u0000${task}`;
       let t = taskIndex.get(taskKey);
       if (t === undefined) {
@@ -132,12 +127,7 @@ export async function readChoiceFile(input: Readable): Promise<ChoiceFileScan> {
         scan.taskFirstLine.push(line);
         scan.taskLastRow.push(-1);
       }
-      let a = altIndex.get(alt);
-      if (a === undefined) {
-        a = scan.alternatives.length;
-        altIndex.set(alt, a);
-        scan.alternatives.push(alt);
-      }
+      const a = indexOfValue(altIndex, scan.alternatives, alt);
       const duplicateOf = findAlternative(scan, scan.taskLastRow[t], a);
       if (duplicateOf >= 0) {
         problems.add({
@@ -192,6 +182,17 @@ export async function readChoiceFile(input: Readable): Promise<ChoiceFileScan> {
 }
 
 /** The row of the task (chain ending at `last`) with alternative code `alt`, or −1. */
+/** The index of `value` in `values`, appending it (and noting it in `index`) when new. */
+function indexOfValue(index: Map<string, number>, values: string[], value: string): number {
+  let i = index.get(value);
+  if (i === undefined) {
+    i = values.length;
+    index.set(value, i);
+    values.push(value);
+  }
+  return i;
+}
+
 function findAlternative(scan: ChoiceFileScan, last: number, alt: number): number {
   for (let row = last, steps = 0; row >= 0 && steps < 50; row = scan.rowPrevInTask[row], steps++)
     if (scan.rowAlt[row] === alt) return row;

@@ -7,14 +7,14 @@
 import type { AppDeps } from '../../deps';
 import { ValidationError, type FieldIssue } from '../../lib/errors';
 import { languageName } from '../../../shared/languages/language-tags';
-import { isInterfaceKey, listStudyTexts, textIn } from '../../../shared/languages/study-texts';
+import { isInterfaceKey, textIn } from '../../../shared/languages/study-texts';
 import type { StudyTextsView } from '../../../shared/schemas/study-texts';
 import type { AuditAction } from '../../../shared/schemas/audit';
 import { updateDraftLanguages } from '../../../db/queries/versions';
 import { recordAudit } from '../audit';
-import { assertDraft } from '../studies';
+import { assertDraft, loadDraftStudy } from '../studies';
 import { loadStudy } from '../study-access';
-import { getStudyTexts, languagesOf, loadStudyDocuments } from '../study-texts';
+import { getStudyTexts, languagesOf, listCurrentStudyTexts } from '../study-texts';
 import type { Actor } from '../actor';
 
 type StudyRow = Awaited<ReturnType<typeof loadStudy>>;
@@ -60,8 +60,7 @@ export async function saveTranslations(
   texts: Record<string, string>,
 ): Promise<StudyTextsView> {
   const { teamId } = actor;
-  const study = await loadStudy(deps, teamId, studyId);
-  assertDraft(study, 'its texts');
+  const study = await loadDraftStudy(deps, teamId, studyId, 'its texts');
   const values = Object.values(texts);
   await writeTranslations(deps, study, lang, texts, actor, {
     action: 'study.translations_saved',
@@ -83,7 +82,7 @@ export async function writeTranslations(
   event: TranslationEvent,
 ): Promise<void> {
   assertLanguage(study, lang);
-  const entries = listStudyTexts(await loadStudyDocuments(deps, study), languagesOf(study));
+  const entries = await listCurrentStudyTexts(deps, study);
   const isSource = lang === study.languages[0];
   const issues = checkTranslationKeys(
     Object.keys(texts),
@@ -117,17 +116,14 @@ export async function confirmTranslations(
   keys: string[],
 ): Promise<StudyTextsView> {
   const { teamId } = actor;
-  const study = await loadStudy(deps, teamId, studyId);
-  assertDraft(study, 'its texts');
+  const study = await loadDraftStudy(deps, teamId, studyId, 'its texts');
   assertLanguage(study, lang);
   if (lang === study.languages[0])
     throw new ValidationError('The source language has no translations to confirm', [
       { path: 'lang', message: `${languageName(lang)} is the language the study is written in` },
     ]);
   const langs = languagesOf(study);
-  const entries = new Map(
-    listStudyTexts(await loadStudyDocuments(deps, study), langs).map((e) => [e.key, e]),
-  );
+  const entries = new Map((await listCurrentStudyTexts(deps, study)).map((e) => [e.key, e]));
   const issues: FieldIssue[] = [];
   keys.forEach((key, i) => {
     const entry = entries.get(key);

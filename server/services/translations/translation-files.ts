@@ -8,16 +8,16 @@ import type { AppDeps } from '../../deps';
 import { ValidationError, type FieldIssue } from '../../lib/errors';
 import { writeCsv } from '../../lib/safe-csv';
 import { languageName } from '../../../shared/languages/language-tags';
-import { isInterfaceKey, listStudyTexts } from '../../../shared/languages/study-texts';
+import { isInterfaceKey } from '../../../shared/languages/study-texts';
 import {
   MAX_TRANSLATION_LENGTH,
   type TranslationFormat,
   type TranslationImportReport,
 } from '../../../shared/schemas/study-texts';
 import { loadStudy } from '../study-access';
-import { assertDraft } from '../studies';
+import { loadDraftStudy } from '../studies';
 import type { Actor } from '../actor';
-import { languagesOf, loadStudyDocuments } from '../study-texts';
+import { languagesOf, listCurrentStudyTexts } from '../study-texts';
 import { writeTranslations } from './save-translations';
 import { readCsvFile, readXliffFile, type FileText } from './translation-file-readers';
 import { writeXliff } from './xliff';
@@ -54,7 +54,7 @@ export async function exportTranslationFile(
   assertTranslation(langs.languages, lang);
   const source = langs.languages[0];
   const own = langs.translations[lang] ?? {};
-  const entries = listStudyTexts(await loadStudyDocuments(deps, study), langs);
+  const entries = await listCurrentStudyTexts(deps, study);
   const name = `${slug(study.name)}-texts-${source}-${lang}`;
   if (format === 'csv')
     return {
@@ -119,8 +119,7 @@ export async function importTranslationFile(
   input: { format: TranslationFormat; content: string },
 ): Promise<TranslationImportReport> {
   const { teamId } = actor;
-  const study = await loadStudy(deps, teamId, studyId);
-  assertDraft(study, 'its texts');
+  const study = await loadDraftStudy(deps, teamId, studyId, 'its texts');
   const langs = languagesOf(study);
   assertTranslation(langs.languages, lang);
   const source = langs.languages[0];
@@ -138,7 +137,7 @@ export async function importTranslationFile(
       `Nothing was imported: ${refused.length === LISTED ? 'at least ' : ''}${refused.length} ${refused.length === 1 ? 'text' : 'texts'} of the file cannot be taken`,
       refused,
     );
-  const entries = listStudyTexts(await loadStudyDocuments(deps, study), langs);
+  const entries = await listCurrentStudyTexts(deps, study);
   const known = new Set(entries.map((e) => e.key));
   const extra = file.filter((t) => !known.has(t.key));
   if (extra.length === file.length)

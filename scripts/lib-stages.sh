@@ -12,7 +12,7 @@ RUN_STARTED=$(date +%s)
 # summary shows how much of the cores a stage used: every process, PostgreSQL and the browser
 # too, and whatever else ran on the machine meanwhile.
 machine_cpu() {
-  awk -v hz="$(getconf CLK_TCK)" '/^cpu / { printf "%.0f %.0f", ($2 + $3 + $4 + $7 + $8 + $9) / hz, ($5 + $6) / hz; exit }' /proc/stat
+  awk -v hz="$(getconf CLK_TCK)" '/^cpu / { printf "%.0f %.0f\n", ($2 + $3 + $4 + $7 + $8 + $9) / hz, ($5 + $6) / hz; exit }' /proc/stat
 }
 
 # stage NAME CMD...: run CMD under a heading and record its wall time (a failed stage too, so

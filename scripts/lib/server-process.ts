@@ -59,13 +59,22 @@ export function startProcess(opts: {
   const log = fs.openSync(opts.logFile, 'a');
   // Profiling a benchmarked server: BENCH_SERVER_NODE_ARGS='--cpu-prof --cpu-prof-dir=…'.
   const nodeArgs = process.env.BENCH_SERVER_NODE_ARGS?.split(' ').filter(Boolean) ?? [];
+  // Trying a setting under the same load: BENCH_SERVER_ENV='WORKER_THREADS=1 …' is added to
+  // (and overrides) what the benchmark gives its server, as the deployment's environment would.
+  const extraEnv = Object.fromEntries(
+    (process.env.BENCH_SERVER_ENV?.split(' ').filter(Boolean) ?? []).map((pair) => {
+      const at = pair.indexOf('=');
+      if (at <= 0) throw new Error(`BENCH_SERVER_ENV: "${pair}" is not NAME=value`);
+      return [pair.slice(0, at), pair.slice(at + 1)];
+    }),
+  );
   // The tests (CW_PROCESS_BUNDLES=use, set by scripts/test.sh) start this checkout's processes
   // from their prebuilt bundles while up to date; benchmarks start them as deployed.
   const bundle = opts.cwd ? null : processBundleOf(opts.entry);
   const start = bundle ? [bundle] : ['--import', 'tsx', opts.entry];
   const child = spawn(process.execPath, [...nodeArgs, ...start], {
     cwd: opts.cwd ?? root,
-    env: { PATH: process.env.PATH ?? '', HOME: process.env.HOME ?? '', ...opts.env },
+    env: { PATH: process.env.PATH ?? '', HOME: process.env.HOME ?? '', ...opts.env, ...extraEnv },
     // The IPC channel lets the benchmark ask the server for its event-loop delay
     // (server/lib/event-loop-delay.ts).
     stdio: ['ignore', log, log, 'ipc'],

@@ -14,7 +14,7 @@ import { Spinner } from '@/components/ui/feedback';
 import { useStudyPreview } from '@/features/preview/api/get-study-preview';
 import { postPreviewScreen } from '@/features/preview/utils/preview-messages';
 import { RespondLayout } from '@/features/respond/components/respond-layout';
-import { RespondentScreenView } from '@/features/respond/components/screen-view';
+import { isWideScreen, RespondentScreenView } from '@/features/respond/components/screen-view';
 import { nextShownIndex } from '@shared/survey/skip-logic';
 import { EndScreen } from '@/features/respond/components/finish-screens';
 import { GoBackContext, Paragraphs, ScreenFrame } from '@/features/respond/components/screen-frame';
@@ -67,7 +67,11 @@ export function Component() {
   const goBack = back ? () => setIndex(survey.screens.indexOf(back)) : null;
   return (
     <InterfaceTextsContext.Provider value={survey.ui}>
-      <RespondLayout progress={furthest / survey.screens.length} studyName={survey.studyName}>
+      <RespondLayout
+        progress={furthest / survey.screens.length}
+        studyName={survey.studyName}
+        wide={isWideScreen(screen)}
+      >
         {screen ? (
           <GoBackContext.Provider value={goBack}>
             <RespondentScreenView

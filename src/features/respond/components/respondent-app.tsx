@@ -1,6 +1,6 @@
 import { Spinner } from '@/components/ui/feedback';
 import { useRespondent } from '../hooks/use-respondent';
-import { RespondentScreenView } from './screen-view';
+import { isWideScreen, RespondentScreenView } from './screen-view';
 import { EndScreen, UnavailableScreen } from './finish-screens';
 import { RespondLayout } from './respond-layout';
 import { UnsentNotice } from './unsent-notice';
@@ -58,6 +58,7 @@ export function RespondentApp({ publicId, search }: { publicId: string; search: 
     />
   );
   let body;
+  let wide = false;
   if (closedUnderfoot && r.pending > 0)
     body = <Spinner label="Sending the answers you gave before the survey closed…" />;
   else if (closedUnderfoot)
@@ -66,7 +67,8 @@ export function RespondentApp({ publicId, search }: { publicId: string; search: 
   else if (finished && r.finalStatus !== 'completed') body = endScreen;
   else if (r.skipping) body = null;
   else if (!r.currentScreen) body = endScreen;
-  else
+  else {
+    wide = isWideScreen(r.currentScreen);
     body = (
       <GoBackContext.Provider value={r.goBack}>
         <RespondentScreenView
@@ -78,6 +80,7 @@ export function RespondentApp({ publicId, search }: { publicId: string; search: 
         />
       </GoBackContext.Provider>
     );
+  }
   // A link with ?lang= has chosen already; otherwise the first screen offers the languages.
   const choosing =
     session.languages.length > 1 &&
@@ -86,7 +89,12 @@ export function RespondentApp({ publicId, search }: { publicId: string; search: 
     !new URLSearchParams(search).has('lang');
   return (
     <InterfaceTextsContext.Provider value={session.ui}>
-      <RespondLayout progress={finished ? 1 : progress} studyName={session.studyName} {...status}>
+      <RespondLayout
+        progress={finished ? 1 : progress}
+        studyName={session.studyName}
+        wide={wide}
+        {...status}
+      >
         <UnsentNotice unsent={r.unsent} />
         {choosing && (
           <LanguageChoice

@@ -6,6 +6,14 @@ import { QuestionScreen } from './question-screen';
 import { TaskScreen } from './task-screen';
 
 /**
+ * Whether a screen uses the wide frame: a choice task sets its alternatives side by side on a
+ * large screen, so its frame, and the study title above it, span more of the page.
+ */
+export function isWideScreen(screen: RespondentScreen | null | undefined): boolean {
+  return screen?.kind === 'task';
+}
+
+/**
  * One screen of the questionnaire, for the respondent app and the Preview section alike (the
  * preview must never differ from what respondents see). Give it a `key` per screen so every
  * screen is a fresh component with its own timer.

@@ -156,6 +156,21 @@ describe('RespondentApp', () => {
     expect(taskTries[0].value).toEqual({ kind: 'choice', position: 1 });
   });
 
+  it('lines the study title up with the screen below it: the narrow column, the wide one on a task', async () => {
+    const user = userEvent.setup();
+    render(<RespondentApp publicId="abc123" search="" />);
+    const widthOf = (el: Element) => [...el.classList].find((c) => c.startsWith('max-w-'));
+    const frame = () => screen.getByRole('heading', { level: 1 }).closest('section')!;
+    await user.click(await screen.findByLabelText('I agree'));
+    const title = screen.getByText('Water services');
+    expect(widthOf(title)).toBe(widthOf(frame()));
+    expect(widthOf(title)).toBe('max-w-2xl');
+    await user.click(screen.getByRole('button', { name: 'Start' }));
+    await screen.findByRole('radio', { name: 'Option B' });
+    expect(widthOf(screen.getByText('Water services'))).toBe(widthOf(frame()));
+    expect(widthOf(frame())).toBe('max-w-5xl');
+  });
+
   it('asks how sure the respondent is under the task, and sends the answer with the choice', async () => {
     const scale = {
       question: 'How sure are you?',

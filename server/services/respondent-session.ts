@@ -157,15 +157,12 @@ export function assertOpen(study: PublicStudy): void {
 }
 
 /**
- * Makes a respondent of the study's current version: a place in the least-filled block (an
- * atomic counter, no study-wide lock), a plan from a fresh seed, and a secret session token.
- */
-/**
  * A session start's respondent row, gathered with the other starts of the same turn of the
- * event loop and those that arrive while two such inserts are in flight (keyed-batcher.ts): under a panel launch one statement and one commit
- * make many respondents, where each start used to wait for its own flush of the log. A unique
- * index that refuses one row (a personal link or panel id opened twice at once) sends every
- * row of that batch again on its own, so only that start sees the refusal.
+ * event loop and those that arrive while two such inserts are in flight (keyed-batcher.ts):
+ * under a panel launch one statement and one commit make many respondents, where each start
+ * used to wait for its own flush of the log. A unique index that refuses one row (a personal
+ * link or panel id opened twice at once) sends every row of that batch again on its own, so
+ * only that start sees the refusal.
  */
 export const startedRespondentBatcherOf = keyedBatcherPer(
   (db: Db): KeyedBatcherOptions<StartedRespondent, RespondentRow> => ({
@@ -177,6 +174,10 @@ export const startedRespondentBatcherOf = keyedBatcherPer(
   }),
 );
 
+/**
+ * Makes a respondent of the study's current version: a place in the least-filled block (an
+ * atomic counter, no study-wide lock), a plan from a fresh seed, and a secret session token.
+ */
 export async function createRespondent(
   db: DbOrTx,
   params: {

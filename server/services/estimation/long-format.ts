@@ -75,9 +75,7 @@ function* longCsvSlices(prepared: PreparedChoiceData, keys?: readonly string[]) 
 
 /** SHA-256 (hex) of the long CSV of the given columns. */
 export function hashChoiceData(prepared: PreparedChoiceData, keys?: readonly string[]): string {
-  const hash = createHash('sha256');
-  for (const slice of longCsvSlices(prepared, keys)) hash.update(slice);
-  return hash.digest('hex');
+  return createHash('sha256').update(toLongCsvText(prepared, keys)).digest('hex');
 }
 
 /**

@@ -126,6 +126,24 @@ export function makeStudyDefinition(overrides: StudyDefinitionOverrides = {}): S
 }
 
 /**
+ * The study with two labeled packages and no status quo: "Basic" shows every attribute,
+ * "Green" leaves out `greenOmits` (what labeled-alternative coding and designs are tested on).
+ */
+export function makeLabeledDefinition(greenOmits: LarkspurAttributeId[]): StudyDefinition {
+  return makeStudyDefinition({
+    fixedAlternative: null,
+    alternatives: {
+      count: 2,
+      labeled: true,
+      labels: [
+        { id: 'basic', name: 'Basic', omittedAttributeIds: [] },
+        { id: 'green', name: 'Green', omittedAttributeIds: greenOmits },
+      ],
+    },
+  });
+}
+
+/**
  * The product's own demo definition (server/seed), for set-ups that should match what a new
  * installation shows: descriptions, derived numeric labels and the "costs more than today" rule.
  */

@@ -7,7 +7,10 @@ import { describe, expect, it } from 'vitest';
 import { getCodedColumns } from '../../../shared/engine/coding/coded-columns';
 import { buildCodingPlan } from '../../../shared/engine/coding/coding-plan';
 import { codeAlternative } from '../../../shared/engine/coding/code-alternative';
-import { makeStudyDefinition } from '../../../scripts/lib/study-factory/definition';
+import {
+  makeLabeledDefinition,
+  makeStudyDefinition,
+} from '../../../scripts/lib/study-factory/definition';
 
 describe('getCodedColumns', () => {
   it('names columns readably in matrix order with the status-quo constant last', () => {
@@ -84,19 +87,7 @@ describe('codeAlternative', () => {
   });
 
   it('codes omitted attributes of a labeled alternative as zero and sets its constant', () => {
-    const labeled = buildCodingPlan(
-      makeStudyDefinition({
-        fixedAlternative: null,
-        alternatives: {
-          count: 2,
-          labeled: true,
-          labels: [
-            { id: 'basic', name: 'Basic', omittedAttributeIds: [] },
-            { id: 'green', name: 'Green', omittedAttributeIds: ['river', 'warn'] },
-          ],
-        },
-      }),
-    );
+    const labeled = buildCodingPlan(makeLabeledDefinition(['river', 'warn']));
     const levels = { bill: 'b6', interrupt: 'i4', warn: 'w6', river: 'fair', renew: 'r20' };
     expect(Array.from(codeAlternative(labeled, 0, levels))).toEqual([6, 4, 1, 0, 1, 0, 1, 0, 0]);
     expect(Array.from(codeAlternative(labeled, 1, levels))).toEqual([6, 4, 0, 0, 0, 0, 1, 0, 1]);

@@ -8,7 +8,10 @@ import { generateDesign } from '../../../server/engine/design/generate-design';
 import { createPrng } from '../../../server/engine/draws/prng';
 import { designSchema } from '../../../shared/schemas/design';
 import { getCodedColumns } from '../../../shared/engine/coding/coded-columns';
-import { makeStudyDefinition } from '../../../scripts/lib/study-factory/definition';
+import {
+  makeLabeledDefinition,
+  makeStudyDefinition,
+} from '../../../scripts/lib/study-factory/definition';
 import { makeSymmetricDefinition } from './design-fixtures';
 
 describe('assignBlocks', () => {
@@ -115,17 +118,7 @@ describe('generateDesign', () => {
   });
 
   it('leaves attributes a labeled alternative omits out of its levels', () => {
-    const def = makeStudyDefinition({
-      fixedAlternative: null,
-      alternatives: {
-        count: 2,
-        labeled: true,
-        labels: [
-          { id: 'basic', name: 'Basic', omittedAttributeIds: [] },
-          { id: 'green', name: 'Green', omittedAttributeIds: ['renew'] },
-        ],
-      },
-    });
+    const def = makeLabeledDefinition(['renew']);
     const { design } = generateDesign(def, { method: 'random', tasks: 10, seed: 2 });
     for (const task of design.tasks) {
       expect(task.alternatives[0].levels.renew).toBeDefined();

@@ -10,9 +10,8 @@ import { makeStudyDefinition } from '../../../scripts/lib/study-factory/definiti
 import { insertStudyRow } from '../../../scripts/lib/study-factory/insert-study';
 import type { Design } from '../../../shared/schemas/design';
 import type { Questionnaire } from '../../../shared/schemas/questionnaire';
-import { demoQuestionnaire } from '../../../shared/schemas/questionnaire-defaults';
+import { createPage, demoQuestionnaire } from '../../../shared/schemas/questionnaire-defaults';
 import type { AnswerValue, SubmitAnswerInput } from '../../../shared/schemas/respondent';
-import { requiredSingleQuestion } from '../../../shared/schemas/required-single-question';
 
 export const definition = makeStudyDefinition();
 
@@ -50,24 +49,17 @@ export const design: Design = {
 export function fullQuestionnaire(): Questionnaire {
   const q = demoQuestionnaire(definition);
   const [consent, ...rest] = q.pages;
+  const screening = createPage('screening', definition);
+  if (screening.kind !== 'screening') throw new Error('createPage made no screening page');
   // Some tests send respondents back to a panel with their id: the consent says so.
   const body = `${consent.kind === 'consent' ? consent.body : ''}\n\nIf you came from a survey panel, your answers are linked to your panel id.`;
   return {
     ...q,
     pages: [
       { ...consent, body } as typeof consent,
-      {
-        id: 'adult',
-        kind: 'screening',
-        question: requiredSingleQuestion('adult', 'Are you 18 or older?', [
-          { id: 'yes', label: 'Yes' },
-          { id: 'no', label: 'No' },
-        ]),
-        screenOutOptionIds: ['no'],
-        acceptMin: null,
-        acceptMax: null,
-        quotaCells: [],
-      },
+      // The editor's new screening page (18 or older, "no" screens out) under an id and key
+      // the tests name.
+      { ...screening, id: 'adult', question: { ...screening.question, key: 'adult' } },
       ...rest,
     ],
   };

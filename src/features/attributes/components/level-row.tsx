@@ -3,6 +3,7 @@ import type { Attribute, Level } from '@shared/schemas/study-definition';
 import { checkLevelLabel, formatNumericLevel } from '@shared/study/level-labels';
 import { formatCompact } from '@shared/format';
 import { ApiError } from '@/lib/api-client';
+import { FilePickButton } from '@/components/ui/file-pick-button';
 import type { FieldErrors } from '../utils/field-errors';
 import { confirmLevelLabel } from '../utils/definition-drafts';
 
@@ -136,15 +137,13 @@ export function LevelRow(props: Props) {
           </span>
         ) : (
           !readOnly && (
-            <label className="flex h-10 cursor-pointer items-center rounded-md px-2 text-xs text-ink-soft hover:bg-primary-soft hover:text-primary">
+            <FilePickButton
+              className="flex h-10 cursor-pointer items-center rounded-md px-2 text-xs text-ink-soft hover:bg-primary-soft hover:text-primary"
+              accept="image/png,image/jpeg,image/webp"
+              onFile={(file) => void onFile(file)}
+            >
               {uploading ? 'Uploading…' : 'Add image'}
-              <input
-                type="file"
-                accept="image/png,image/jpeg,image/webp"
-                className="sr-only"
-                onChange={(e) => void onFile(e.target.files?.[0])}
-              />
-            </label>
+            </FilePickButton>
           )
         )}
         {!readOnly && (

@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { ApiError } from '@/lib/api-client';
 import { Alert } from '@/components/ui/feedback';
+import { FilePickButton } from '@/components/ui/file-pick-button';
 import { RowProblemTable } from '@/components/ui/problem-table';
 
 type RowError = { row: string; column: string; message: string };
@@ -44,19 +45,14 @@ export function CsvImport({
         , then one column per attribute named as in Attributes, holding the level label (or the
         value of a numeric attribute). Export a design to see the layout.
       </p>
-      <label className="inline-flex min-h-10 cursor-pointer items-center rounded-md border border-line bg-white px-4 text-sm font-medium text-ink hover:border-primary hover:text-primary has-[:disabled]:cursor-not-allowed has-[:disabled]:opacity-50">
+      <FilePickButton
+        className="inline-flex min-h-10 cursor-pointer items-center rounded-md border border-line bg-white px-4 text-sm font-medium text-ink hover:border-primary hover:text-primary has-[:disabled]:cursor-not-allowed has-[:disabled]:opacity-50"
+        accept=".csv,text/csv"
+        disabled={disabled || busy}
+        onFile={(file) => void onFile(file)}
+      >
         {busy ? 'Importing…' : 'Import design from CSV'}
-        <input
-          type="file"
-          accept=".csv,text/csv"
-          className="sr-only"
-          disabled={disabled || busy}
-          onChange={(e) => {
-            void onFile(e.target.files?.[0]);
-            e.target.value = '';
-          }}
-        />
-      </label>
+      </FilePickButton>
       {done && <Alert tone="success">Design imported.</Alert>}
       {error && (
         <Alert tone="danger" title={error.message}>

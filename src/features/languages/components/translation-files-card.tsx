@@ -5,6 +5,7 @@
  */
 import { useState } from 'react';
 import { Card } from '@/components/ui/feedback';
+import { FilePickButton } from '@/components/ui/file-pick-button';
 import { languageName } from '@shared/languages/language-tags';
 import type { TranslationFormat, TranslationImportReport } from '@shared/schemas/study-texts';
 import { translationFileHref, useImportTranslations } from '../api/import-translations';
@@ -77,20 +78,15 @@ export function TranslationFilesCard({ teamId, studyId, lang, canImport }: Props
           </a>
         ))}
         {canImport && (
-          <label className="inline-flex h-8 cursor-pointer items-center rounded-md bg-primary px-3 text-sm font-medium text-white hover:bg-primary-strong has-[:disabled]:cursor-not-allowed has-[:disabled]:opacity-50">
+          <FilePickButton
+            className="inline-flex h-8 cursor-pointer items-center rounded-md bg-primary px-3 text-sm font-medium text-white hover:bg-primary-strong has-[:disabled]:cursor-not-allowed has-[:disabled]:opacity-50"
+            accept=".xlf,.xliff,.xml,.csv,application/xliff+xml,text/csv"
+            disabled={importer.isPending}
+            inputLabel={`Import a file into ${name}`}
+            onFile={(file) => void onFile(file)}
+          >
             {importer.isPending ? 'Importing…' : 'Import a file'}
-            <input
-              aria-label={`Import a file into ${name}`}
-              type="file"
-              accept=".xlf,.xliff,.xml,.csv,application/xliff+xml,text/csv"
-              className="sr-only"
-              disabled={importer.isPending}
-              onChange={(e) => {
-                void onFile(e.target.files?.[0]);
-                e.target.value = '';
-              }}
-            />
-          </label>
+          </FilePickButton>
         )}
       </div>
       {(report || refusal) && (

@@ -1,5 +1,6 @@
 import { nanoid } from 'nanoid';
 import { Button } from '@/components/ui/button';
+import { CheckboxField } from '@/components/ui/checkbox-field';
 import { SelectField, TextAreaField, TextField } from '@/components/ui/field';
 import type { ChoiceOption, Question, QuestionType } from '@shared/schemas/questionnaire';
 import { isGeneratedKey, questionKeyFromText } from '@shared/schemas/question-keys';
@@ -77,15 +78,11 @@ export function QuestionFields({
         value={q.help}
         onChange={(e) => onChange({ ...q, help: e.target.value })}
       />
-      <label className="flex items-center gap-2 text-sm text-ink">
-        <input
-          type="checkbox"
-          checked={q.required}
-          onChange={(e) => onChange({ ...q, required: e.target.checked })}
-          className="size-4"
-        />
-        An answer is required
-      </label>
+      <CheckboxField
+        label="An answer is required"
+        checked={q.required}
+        onChange={(required) => onChange({ ...q, required })}
+      />
       {(q.type === 'single' || q.type === 'multiple') && (
         <fieldset className="space-y-2">
           <legend className="mb-1 text-sm font-medium text-ink">Options</legend>
@@ -148,15 +145,13 @@ export function QuestionFields({
             value={q.unit}
             onChange={(e) => onChange({ ...q, unit: e.target.value })}
           />
-          <label className="flex items-center gap-2 self-end pb-2 text-sm text-ink">
-            <input
-              type="checkbox"
+          <div className="self-end pb-1">
+            <CheckboxField
+              label="Whole numbers only"
               checked={q.integer}
-              onChange={(e) => onChange({ ...q, integer: e.target.checked })}
-              className="size-4"
+              onChange={(integer) => onChange({ ...q, integer })}
             />
-            Whole numbers only
-          </label>
+          </div>
         </div>
       )}
       {q.type === 'text' && (

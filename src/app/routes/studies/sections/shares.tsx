@@ -12,6 +12,7 @@ import { useParams, useSearchParams } from 'react-router';
 import { Alert, Card, EmptyState, Spinner } from '@/components/ui/feedback';
 import { ErrorText } from '@/components/ui/error-boundary';
 import { Button } from '@/components/ui/button';
+import { CheckboxField } from '@/components/ui/checkbox-field';
 import { useStudy } from '@/features/studies/api/get-study';
 import { useTastesRuns } from '@/features/tastes/api/list-tastes-runs';
 import { useTastes } from '@/features/tastes/api/list-tastes';
@@ -128,15 +129,11 @@ export function Component() {
         />
         <div className="mt-4 flex flex-wrap items-end gap-4">
           {fixed && (
-            <label className="flex items-center gap-2 text-sm">
-              <input
-                type="checkbox"
-                checked={includeFixed}
-                onChange={(e) => setIncludeFixed(e.target.checked)}
-                className="size-4 accent-primary"
-              />
-              Include “{fixed.label}”
-            </label>
+            <CheckboxField
+              label={`Include “${fixed.label}”`}
+              checked={includeFixed}
+              onChange={setIncludeFixed}
+            />
           )}
           <SegmentPicker header={header} model={run?.model} value={segment} onChange={setSegment} />
         </div>

@@ -38,9 +38,7 @@ const inviteeColumns = {
   reminderCount: invitees.reminderCount,
   unsubscribedAt: invitees.unsubscribedAt,
 };
-export type InviteeRecord = {
-  [K in keyof typeof inviteeColumns]: (typeof invitees.$inferSelect)[K];
-};
+export type InviteeRecord = Pick<typeof invitees.$inferSelect, keyof typeof inviteeColumns>;
 
 /** Respondents who reached an end: completed, screened out or over quota. */
 const finishedStatuses = ['completed', 'screened_out', 'over_quota'] as const;

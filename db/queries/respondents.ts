@@ -24,9 +24,7 @@ export const respondentColumns = {
   durationMs: respondents.durationMs,
   language: respondents.language,
 };
-export type RespondentRow = {
-  [K in keyof typeof respondentColumns]: (typeof respondents.$inferSelect)[K];
-};
+export type RespondentRow = Pick<typeof respondents.$inferSelect, keyof typeof respondentColumns>;
 
 /*
  * A panel launch starts hundreds of sessions a second, and building a query is a measurable

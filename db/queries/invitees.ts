@@ -19,7 +19,9 @@ import {
   lt,
   or,
   sql,
+  type SQL,
 } from 'drizzle-orm';
+import type { PgUpdateSetSource } from 'drizzle-orm/pg-core';
 import type { DbOrTx } from '../client';
 import { invitees, respondents } from '../schema/fieldwork';
 import { studies } from '../schema/studies';
@@ -38,9 +40,7 @@ const inviteeColumns = {
   reminderCount: invitees.reminderCount,
   unsubscribedAt: invitees.unsubscribedAt,
 };
-export type InviteeRecord = {
-  [K in keyof typeof inviteeColumns]: (typeof invitees.$inferSelect)[K];
-};
+export type InviteeRecord = Pick<typeof invitees.$inferSelect, keyof typeof inviteeColumns>;
 
 /** Respondents who reached an end: completed, screened out or over quota. */
 const finishedStatuses = ['completed', 'screened_out', 'over_quota'] as const;
@@ -166,23 +166,36 @@ export async function deleteInvitee(db: DbOrTx, params: { id: string; studyId: s
   return rows.length > 0;
 }
 
+/**
+ * Claims the study's invitees (all, or those of `ids`) not unsubscribed that meet `conditions`:
+ * writes `set` to them and returns them.
+ */
+function claimInvitees(
+  db: DbOrTx,
+  params: { studyId: string; ids?: string[] },
+  set: PgUpdateSetSource<typeof invitees>,
+  ...conditions: (SQL | undefined)[]
+) {
+  return db
+    .update(invitees)
+    .set(set)
+    .where(
+      and(
+        eq(invitees.studyId, params.studyId),
+        params.ids ? inArray(invitees.id, params.ids) : undefined,
+        isNull(invitees.unsubscribedAt),
+        ...conditions,
+      ),
+    )
+    .returning(inviteeColumns);
+}
+
 /** Claims invitees for a first invitation: not yet invited and not unsubscribed. */
 export async function claimForInvitation(
   db: DbOrTx,
   params: { studyId: string; ids?: string[]; now: Date },
 ) {
-  return db
-    .update(invitees)
-    .set({ invitedAt: params.now })
-    .where(
-      and(
-        eq(invitees.studyId, params.studyId),
-        params.ids ? inArray(invitees.id, params.ids) : undefined,
-        isNull(invitees.invitedAt),
-        isNull(invitees.unsubscribedAt),
-      ),
-    )
-    .returning(inviteeColumns);
+  return claimInvitees(db, params, { invitedAt: params.now }, isNull(invitees.invitedAt));
 }
 
 /** Makes an invitee "not sent" again after their invitation failed for good. */
@@ -198,20 +211,14 @@ export async function claimForReminder(
   db: DbOrTx,
   params: { studyId: string; ids?: string[]; now: Date; notSince: Date },
 ) {
-  return db
-    .update(invitees)
-    .set({ lastRemindedAt: params.now, reminderCount: sql`${invitees.reminderCount} + 1` })
-    .where(
-      and(
-        eq(invitees.studyId, params.studyId),
-        params.ids ? inArray(invitees.id, params.ids) : undefined,
-        isNotNull(invitees.invitedAt),
-        isNull(invitees.unsubscribedAt),
-        or(isNull(invitees.lastRemindedAt), lt(invitees.lastRemindedAt, params.notSince)),
-        sql`not ${hasFinished(db)}`,
-      ),
-    )
-    .returning(inviteeColumns);
+  return claimInvitees(
+    db,
+    params,
+    { lastRemindedAt: params.now, reminderCount: sql`${invitees.reminderCount} + 1` },
+    isNotNull(invitees.invitedAt),
+    or(isNull(invitees.lastRemindedAt), lt(invitees.lastRemindedAt, params.notSince)),
+    sql`not ${hasFinished(db)}`,
+  );
 }
 
 /** Looks an invitee up by the token of the personal link, with the study's name. */

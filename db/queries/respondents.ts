@@ -4,7 +4,7 @@
  * where-clause, with the session token, invitee or panel key; getRespondentAnswerState takes the
  * id their session token resolved.
  */
-import { and, eq, sql } from 'drizzle-orm';
+import { and, eq, sql, type SQL } from 'drizzle-orm';
 import type { Db, DbOrTx } from '../client';
 import { studies } from '../schema/studies';
 import { respondents } from '../schema/fieldwork';
@@ -24,9 +24,7 @@ export const respondentColumns = {
   durationMs: respondents.durationMs,
   language: respondents.language,
 };
-export type RespondentRow = {
-  [K in keyof typeof respondentColumns]: (typeof respondents.$inferSelect)[K];
-};
+export type RespondentRow = Pick<typeof respondents.$inferSelect, keyof typeof respondentColumns>;
 
 /*
  * A panel launch starts hundreds of sessions a second, and building a query is a measurable
@@ -221,19 +219,22 @@ export async function insertRespondent(
   return row as RespondentRow;
 }
 
+/** The respondents of a study that `where` picks, with the columns every caller reads. */
+const selectStudyRespondents = (db: DbOrTx, studyId: string, where: SQL) =>
+  db
+    .select(respondentColumns)
+    .from(respondents)
+    .where(and(eq(respondents.studyId, studyId), where));
+
 export async function getRespondentByToken(
   db: DbOrTx,
   params: { studyId: string; sessionToken: string; forUpdate?: boolean },
 ) {
-  const q = db
-    .select(respondentColumns)
-    .from(respondents)
-    .where(
-      and(
-        eq(respondents.studyId, params.studyId),
-        eq(respondents.sessionToken, params.sessionToken),
-      ),
-    );
+  const q = selectStudyRespondents(
+    db,
+    params.studyId,
+    eq(respondents.sessionToken, params.sessionToken),
+  );
   const [row] = params.forUpdate ? await q.for('update') : await q;
   return (row as RespondentRow | undefined) ?? null;
 }
@@ -242,12 +243,11 @@ export async function getRespondentByInvitee(
   db: DbOrTx,
   params: { studyId: string; inviteeId: string },
 ) {
-  const [row] = await db
-    .select(respondentColumns)
-    .from(respondents)
-    .where(
-      and(eq(respondents.studyId, params.studyId), eq(respondents.inviteeId, params.inviteeId)),
-    )
+  const [row] = await selectStudyRespondents(
+    db,
+    params.studyId,
+    eq(respondents.inviteeId, params.inviteeId),
+  )
     .orderBy(sql`${respondents.startedAt} desc`)
     .limit(1);
   return (row as RespondentRow | undefined) ?? null;
@@ -258,11 +258,11 @@ export async function getRespondentByPanelKey(
   db: DbOrTx,
   params: { studyId: string; panelKey: string },
 ) {
-  const [row] = await db
-    .select(respondentColumns)
-    .from(respondents)
-    .where(and(eq(respondents.studyId, params.studyId), eq(respondents.panelKey, params.panelKey)))
-    .limit(1);
+  const [row] = await selectStudyRespondents(
+    db,
+    params.studyId,
+    eq(respondents.panelKey, params.panelKey),
+  ).limit(1);
   return (row as RespondentRow | undefined) ?? null;
 }
 

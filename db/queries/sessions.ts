@@ -3,7 +3,7 @@
  * applies: sign-in sessions belong to a user; every query names the user (and the session id from
  * that user's own cookie).
  */
-import { and, desc, eq, gt, isNull, ne } from 'drizzle-orm';
+import { and, desc, eq, gt, isNull, ne, type SQL } from 'drizzle-orm';
 import type { DbOrTx } from '../client';
 import { userSessions, users } from '../schema/accounts';
 
@@ -74,40 +74,33 @@ export async function listOpenSessions(
     .orderBy(desc(userSessions.lastSeenAt));
 }
 
+/** Revokes the user's sessions not revoked yet, narrowed by `only`; returns how many. */
+async function revokeOpenSessions(
+  db: DbOrTx,
+  params: { userId: string; now: Date; reason: string },
+  only: SQL | undefined,
+) {
+  const rows = await db
+    .update(userSessions)
+    .set({ revokedAt: params.now, revokedReason: params.reason })
+    .where(and(eq(userSessions.userId, params.userId), isNull(userSessions.revokedAt), only))
+    .returning({ id: userSessions.id });
+  return rows.length;
+}
+
 /** Revokes one session of a user; false when there was no such open session. */
 export async function revokeSession(
   db: DbOrTx,
   params: { id: string; userId: string; now: Date; reason: string },
 ) {
-  const rows = await db
-    .update(userSessions)
-    .set({ revokedAt: params.now, revokedReason: params.reason })
-    .where(
-      and(
-        eq(userSessions.id, params.id),
-        eq(userSessions.userId, params.userId),
-        isNull(userSessions.revokedAt),
-      ),
-    )
-    .returning({ id: userSessions.id });
-  return rows.length > 0;
+  return (await revokeOpenSessions(db, params, eq(userSessions.id, params.id))) > 0;
 }
 
 /** Revokes every session of a user, or every one but `exceptId`; returns how many. */
-export async function revokeUserSessions(
+export function revokeUserSessions(
   db: DbOrTx,
   params: { userId: string; now: Date; reason: string; exceptId?: string },
 ) {
-  const rows = await db
-    .update(userSessions)
-    .set({ revokedAt: params.now, revokedReason: params.reason })
-    .where(
-      and(
-        eq(userSessions.userId, params.userId),
-        isNull(userSessions.revokedAt),
-        params.exceptId ? ne(userSessions.id, params.exceptId) : undefined,
-      ),
-    )
-    .returning({ id: userSessions.id });
-  return rows.length;
+  const except = params.exceptId ? ne(userSessions.id, params.exceptId) : undefined;
+  return revokeOpenSessions(db, params, except);
 }

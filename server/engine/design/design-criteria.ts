@@ -148,3 +148,22 @@ export function computeDesignCriterion(
     scorer.score(info, 0, draws, drawOffset),
   );
 }
+
+/**
+ * The setup of the D-error, which reads no column lists or t-value: with computeDesignCriterion
+ * it gives the D-error averaged over R coefficient vectors (R = 1: the point-prior D-error).
+ */
+export function getDErrorSetup(K: number): CriterionSetup {
+  return { criterion: 'd_error', K, tValue: 0, sColumns: [], costColumn: -1, wtpColumns: [] };
+}
+
+/** Point-prior D-error det(I(X, β))^(−1/K) (β = zeros gives D₀). */
+export function computeDError(
+  K: number,
+  S: number,
+  J: number,
+  x: Float64Array,
+  beta: Float64Array,
+): number {
+  return computeDesignCriterion(getDErrorSetup(K), S, J, x, beta, 1);
+}

@@ -6,6 +6,7 @@
  * precision. `work` needs K² entries.
  */
 import { getSpdLogDet } from '../linalg/cholesky';
+import { invertLower } from '../linalg/triangular';
 
 export function invertSpd(
   K: number,
@@ -17,16 +18,8 @@ export function invertSpd(
 ): number {
   const logDet = getSpdLogDet(a, K, work, aOffset);
   if (logDet === -Infinity) return logDet;
-  // work := L⁻¹ in place (lower triangular), column by column from the right.
-  for (let i = 0; i < K; i++) {
-    const rowI = i * K;
-    work[rowI + i] = 1 / work[rowI + i];
-    for (let c = 0; c < i; c++) {
-      let s = 0;
-      for (let k = c; k < i; k++) s -= work[rowI + k] * work[k * K + c];
-      work[rowI + c] = s * work[rowI + i];
-    }
-  }
+  // work := L⁻¹ in place (lower triangular; A⁻¹ below reads only that triangle).
+  invertLower(work, K, work);
   // A⁻¹ = (L⁻¹)' L⁻¹.
   for (let i = 0; i < K; i++)
     for (let j = 0; j <= i; j++) {

@@ -20,9 +20,14 @@ export function solveLower(
   }
 }
 
-/** Writes L⁻¹ (lower triangular) of lower-triangular L into `out` (must not alias L). */
+/**
+ * Writes L⁻¹ (lower triangular) of lower-triangular L into `out`, or in place when `out` is L
+ * itself: row i of L⁻¹ reads only rows above it of L⁻¹ and columns c.. of row i of L, so
+ * overwriting row i from the left reads nothing overwritten. In place, the strict upper
+ * triangle is left as it was; into another array it is zeroed.
+ */
 export function invertLower(L: Float64Array, n: number, out: Float64Array): void {
-  out.fill(0, 0, n * n);
+  if (out !== L) out.fill(0, 0, n * n);
   for (let i = 0; i < n; i++) {
     const row = i * n;
     out[row + i] = 1 / L[row + i];

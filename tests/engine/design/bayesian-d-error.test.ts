@@ -14,7 +14,10 @@
 import { describe, expect, it } from 'vitest';
 import { buildCodingPlan } from '../../../shared/engine/coding/coding-plan';
 import { buildDesignMatrix } from '../../../server/engine/design/design-grid';
-import { computeBayesianDError } from '../../../server/engine/design/d-error';
+import {
+  computeDesignCriterion,
+  getDErrorSetup,
+} from '../../../server/engine/design/design-criteria';
 import { fillUniformDraws } from '../../../server/engine/draws/uniform-draws';
 import { inverseNormal as getInverseNormal } from '../../../server/engine/draws/inverse-normal';
 import { buildPriorDraws } from '../../../server/engine/design/prior-draws';
@@ -49,7 +52,7 @@ function getKoksmaHlawkaBound(sigma: number, points: Float64Array): number {
   return variation * discrepancy + clampError;
 }
 
-describe('computeBayesianDError (Check E)', () => {
+describe('Bayesian D-error, computeDesignCriterion (Check E)', () => {
   const plan = buildCodingPlan(makeSymmetricDefinition([2], 2));
   const x = buildDesignMatrix(plan, makeGrid([[[0], [1]]]));
 
@@ -72,7 +75,7 @@ describe('computeBayesianDError (Check E)', () => {
     ({ sigma, exact, R, informative }) => {
       expect((1 + Math.exp(2 * sigma * sigma)) / 2).toBeCloseTo(exact, 12);
       const draws = buildPriorDraws(Float64Array.of(0), Float64Array.of(sigma), R, 7);
-      const value = computeBayesianDError(1, 1, 2, x, draws, R);
+      const value = computeDesignCriterion(getDErrorSetup(1), 1, 2, x, draws, R);
       const points = new Float64Array(R);
       fillUniformDraws({ type: 'halton', count: R, dimensions: 1, seed: 7 }, 0, 1, points);
       const bound = getKoksmaHlawkaBound(sigma, points);

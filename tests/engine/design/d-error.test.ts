@@ -5,7 +5,7 @@
 import { describe, expect, it } from 'vitest';
 import { buildCodingPlan } from '../../../shared/engine/coding/coding-plan';
 import { buildDesignMatrix } from '../../../server/engine/design/design-grid';
-import { computeDError } from '../../../server/engine/design/d-error';
+import { computeDError } from '../../../server/engine/design/design-criteria';
 import { computeInformationMatrix } from '../../../server/engine/design/mnl-information';
 import { studyDefinitionSchema } from '../../../shared/schemas/study-definition';
 import { makeCheckAGrid, makeGrid, makeSymmetricDefinition } from './design-fixtures';

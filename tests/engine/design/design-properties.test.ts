@@ -17,7 +17,10 @@ import {
 import type { BalanceRules, DominanceRules } from '../../../shared/schemas/design-spec';
 import type { Design } from '../../../shared/schemas/design';
 import { improveByCoordinateExchange } from '../../../server/engine/design/coordinate-exchange';
-import { computeBayesianDError } from '../../../server/engine/design/d-error';
+import {
+  computeDesignCriterion,
+  getDErrorSetup,
+} from '../../../server/engine/design/design-criteria';
 import { buildDesignConstraints } from '../../../server/engine/design/compile-design-rules';
 import { DesignError } from '../../../server/engine/design/design-errors';
 import { buildDesignMatrix, getRowsPerTask } from '../../../server/engine/design/design-grid';
@@ -347,8 +350,8 @@ describe('coordinate exchange (property)', () => {
           return; // infeasible random study; covered by the constraint property above
         }
         const Jt = getRowsPerTask(plan);
-        const before = computeBayesianDError(
-          K,
+        const before = computeDesignCriterion(
+          getDErrorSetup(K),
           start.S,
           Jt,
           buildDesignMatrix(plan, start),
@@ -358,8 +361,8 @@ describe('coordinate exchange (property)', () => {
         const result = improveByCoordinateExchange(plan, constraints, start, draws, R, {
           maxPasses: 6,
         });
-        const after = computeBayesianDError(
-          K,
+        const after = computeDesignCriterion(
+          getDErrorSetup(K),
           start.S,
           Jt,
           buildDesignMatrix(plan, result.grid),

@@ -7,7 +7,10 @@
  */
 import { describe, expect, it } from 'vitest';
 import { buildCodingPlan, type CodingPlan } from '../../../shared/engine/coding/coding-plan';
-import { computeBayesianDError } from '../../../server/engine/design/d-error';
+import {
+  computeDesignCriterion,
+  getDErrorSetup,
+} from '../../../server/engine/design/design-criteria';
 import {
   buildDesignMatrix,
   getRowsPerTask,
@@ -57,7 +60,14 @@ function checkChanges(
         plan.attributes[a].levelIds.length;
       const predicted = evaluator.evaluateChange(s, j, a, from, to, Infinity);
       grid.levels[cell] = to;
-      const fresh = computeBayesianDError(K, grid.S, Jt, buildDesignMatrix(plan, grid), draws, R);
+      const fresh = computeDesignCriterion(
+        getDErrorSetup(K),
+        grid.S,
+        Jt,
+        buildDesignMatrix(plan, grid),
+        draws,
+        R,
+      );
       if (Number.isFinite(fresh)) {
         expect(Math.abs(predicted - fresh) / fresh).toBeLessThan(1e-9);
         compared++;
@@ -104,7 +114,14 @@ describe('createTaskEvaluator', () => {
       ],
     ]);
     expect(
-      computeBayesianDError(4, 4, 2, buildDesignMatrix(plan, grid), new Float64Array(4), 1),
+      computeDesignCriterion(
+        getDErrorSetup(4),
+        4,
+        2,
+        buildDesignMatrix(plan, grid),
+        new Float64Array(4),
+        1,
+      ),
     ).toBeLessThan(Infinity);
     expect(checkChanges(plan, grid, new Float64Array(4), 1, 4)).toBeGreaterThan(10);
   });

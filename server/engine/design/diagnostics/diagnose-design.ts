@@ -9,7 +9,7 @@ import type { Design } from '../../../../shared/schemas/design';
 import type { DesignPriors, DesignSpec } from '../../../../shared/schemas/design-spec';
 import { getCriteriaReport } from './criteria-report';
 import type { StudyDefinition } from '../../../../shared/schemas/study-definition';
-import { computeBayesianDError, computeDError } from '../d-error';
+import { computeDError, computeDesignCriterion, getDErrorSetup } from '../design-criteria';
 import { buildDesignMatrix, getRowsPerTask, readDesignGrid } from '../design-grid';
 import { computeInformationMatrix } from '../mnl-information';
 import { fillLogitProbabilities } from '../../../../shared/engine/logit/logit-probabilities';
@@ -49,7 +49,9 @@ export function diagnoseDesign(
   const dErrorAtMeans = priors.kind === 'zero' ? null : computeDError(K, S, Jt, x, means);
   const priorDraws = priors.kind === 'bayesian' ? buildPriorDraws(means, sds, draws, seed) : means;
   const dErrorBayesian =
-    priors.kind === 'bayesian' ? computeBayesianDError(K, S, Jt, x, priorDraws, draws) : null;
+    priors.kind === 'bayesian'
+      ? computeDesignCriterion(getDErrorSetup(K), S, Jt, x, priorDraws, draws)
+      : null;
   const dError = dErrorBayesian ?? dErrorAtMeans ?? dErrorZero;
   const finite = (v: number | null) => (v !== null && Number.isFinite(v) ? v : null);
   if (!Number.isFinite(dError))

@@ -15,4 +15,9 @@ export type AppDeps = {
   jobs?: JobSender;
   /** Where uploaded files live; defaults to the local folder DATA_DIR/files. */
   storage?: FileStore;
+  /**
+   * Set in a web process that runs the embedded worker: busy while its requests keep it busy
+   * (server/lib/fieldwork-busy.ts); its estimation threads wait then.
+   */
+  fieldworkBusy?: Int32Array;
 };

@@ -132,6 +132,12 @@ const envSchema = z.object({
   IMPORT_MAX_MB: z.coerce.number().positive().default(256),
   /** Nice value of design and estimation threads (0 = same priority as requests; 19 lowest). */
   ENGINE_THREAD_NICE: z.coerce.number().int().min(0).max(19).default(10),
+  /**
+   * Respondents first: a web process running the embedded worker holds its mixed logit between
+   * likelihood evaluations while its event loop is at least this busy (0–1; 0 never holds).
+   * See server/lib/fieldwork-busy.ts and docs/methods.md ("Fieldwork before estimation").
+   */
+  ENGINE_YIELD_UTILISATION: z.coerce.number().min(0).max(1).default(0.2),
   PASSWORD_HASH_STRENGTH: passwordHashStrengthSchema,
 });
 

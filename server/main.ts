@@ -19,6 +19,7 @@ import { createMailer } from './mail/mailer';
 import { createApp } from './app';
 import { startBackgroundServices } from './jobs/background';
 import { startWebCluster } from './web-cluster';
+import { startFieldworkBusySignal } from './lib/fieldwork-busy';
 
 /** Migrates, waiting out a database that is slow to accept connections (a busy or restarting server). */
 function migrate(db: Db, logger: Logger) {
@@ -56,7 +57,12 @@ async function main() {
   const { db, pool } = createProcessDb(env, logger, { applicationName: 'choicewright-web' });
   if (cluster.isPrimary) await migrate(db, logger);
   const mailer = createMailer(env);
-  const deps = { env, db, logger, mailer };
+  // Only where estimations share this process with the requests (the embedded worker).
+  const busy =
+    env.EMBEDDED_WORKER && env.ENGINE_YIELD_UTILISATION > 0
+      ? startFieldworkBusySignal({ threshold: env.ENGINE_YIELD_UTILISATION })
+      : null;
+  const deps = { env, db, logger, mailer, fieldworkBusy: busy?.flag };
   const app = createApp(deps);
   const stopBackground = await startBackgroundServices(deps, {
     embeddedWorker: env.EMBEDDED_WORKER,
@@ -66,6 +72,7 @@ async function main() {
   logger.info({ pid: process.pid }, `Choicewright listening on ${env.APP_URL}`);
   stopOnSignals(logger, 'shutting down', [
     stopDelay,
+    () => busy?.stop(),
     () => closeHttp(server),
     stopBackground,
     () => mailer.close(),

@@ -138,6 +138,7 @@ export async function runEstimationJob(
         kernel: deps.env.ESTIMATION_KERNEL,
         membership,
         resume: resume?.checkpoint,
+        fieldworkBusy: deps.fieldworkBusy,
       },
       {
         signal: progress.signal,

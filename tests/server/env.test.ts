@@ -40,4 +40,17 @@ describe('loadEnv', () => {
   it.each(['0', '1.5', 'two'])('refuses WEB_INSTANCES=%j, naming the setting', (raw) => {
     expect(() => loadEnv({ WEB_INSTANCES: raw, DATA_DIR: dataDir() })).toThrow(/WEB_INSTANCES/);
   });
+
+  it('yields the embedded mixed logit above 20 % event-loop utilisation unless told otherwise', () => {
+    expect(loadEnv({ DATA_DIR: dataDir() }).ENGINE_YIELD_UTILISATION).toBe(0.2);
+    expect(
+      loadEnv({ ENGINE_YIELD_UTILISATION: '0', DATA_DIR: dataDir() }).ENGINE_YIELD_UTILISATION,
+    ).toBe(0);
+  });
+
+  it.each(['-0.1', '1.5', 'half'])('refuses ENGINE_YIELD_UTILISATION=%j', (raw) => {
+    expect(() => loadEnv({ ENGINE_YIELD_UTILISATION: raw, DATA_DIR: dataDir() })).toThrow(
+      /ENGINE_YIELD_UTILISATION/,
+    );
+  });
 });

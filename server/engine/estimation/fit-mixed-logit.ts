@@ -64,6 +64,12 @@ export interface MixedLogitHooks {
   resume?: MixedLogitCheckpoint;
   /** Called after every BFGS iteration with where the fit stands (the caller picks what to keep). */
   onCheckpoint?: (checkpoint: MixedLogitCheckpoint) => void;
+  /**
+   * Called before every evaluation; it may block (the estimation thread then waits, and with it
+   * the slice threads). The estimation worker waits here while fieldwork keeps the web process
+   * busy (fieldwork-yield.ts). Waiting changes no number of the fit.
+   */
+  beforeEvaluation?: () => void;
 }
 
 export interface MixedLogitResult extends FittedWithErrors {
@@ -125,6 +131,7 @@ export async function fitMixedLogit(
     ...pool,
     async evaluate(x: Float64Array, g: Float64Array) {
       assertNotCancelled();
+      hooks.beforeEvaluation?.();
       const started = performance.now();
       const ll = await pool.evaluate(x, g);
       evaluationSeconds += (performance.now() - started) / 1000;
@@ -133,6 +140,7 @@ export async function fitMixedLogit(
     },
     async evaluateScores(x: Float64Array) {
       assertNotCancelled();
+      hooks.beforeEvaluation?.();
       return pool.evaluateScores(x);
     },
   };

@@ -26,6 +26,8 @@ export interface EstimationWorkerTask {
   membership?: MembershipCovariates | null;
   /** Mixed logit: an interrupted attempt's checkpoint to go on from. */
   resume?: MixedLogitCheckpoint;
+  /** The web process's busy flag (fieldwork-yield.ts): the mixed logit waits while it is set. */
+  fieldworkBusy?: Int32Array;
   port?: MessagePort;
 }
 

@@ -14,6 +14,7 @@ import type {
 } from './estimation-worker-messages';
 import { lowerThreadPriority } from './thread-priority';
 import { toTransportedError } from './engine-error-transport';
+import { waitWhileBusy } from './fieldwork-yield';
 
 lowerThreadPriority();
 
@@ -25,21 +26,33 @@ function assertTask(message: unknown): asserts message is EstimationWorkerTask {
     !m.spec ||
     !m.built?.data ||
     !Number.isInteger(m.threads) ||
-    (m.port !== undefined && !(m.port instanceof MessagePort))
+    (m.port !== undefined && !(m.port instanceof MessagePort)) ||
+    (m.fieldworkBusy !== undefined && !(m.fieldworkBusy instanceof Int32Array))
   )
     throw new TypeError('Malformed estimation task');
 }
 
 export async function runEstimationTask(message: unknown): Promise<EstimationWorkerResult> {
   assertTask(message);
-  const { spec, built, threads, kernel, membership, resume, port } = message;
+  const { spec, built, threads, kernel, membership, resume, fieldworkBusy, port } = message;
   const post = (m: EstimationProgressMessage) => port?.postMessage(m);
+  let waitedMs = 0;
+  const beforeEvaluation = fieldworkBusy
+    ? () => {
+        const waited = waitWhileBusy(fieldworkBusy);
+        // One line in the run's log the first time, so that a slow run says why.
+        if (waited > 0 && waitedMs === 0)
+          post({ type: 'note', note: 'waiting while respondents keep the web process busy' });
+        waitedMs += waited;
+      }
+    : undefined;
   try {
     const result = await runEstimation(spec, built, {
       threads,
       kernel,
       membership,
       resume,
+      beforeEvaluation,
       onCheckpoint: (checkpoint) => post({ type: 'checkpoint', checkpoint }),
       onNote: (note) => post({ type: 'note', note }),
       onProgress: (progress) => post({ type: 'progress', progress }),
@@ -47,6 +60,8 @@ export async function runEstimationTask(message: unknown): Promise<EstimationWor
       onClassProgress: (progress) => post({ type: 'classes', progress }),
       onStage: (stage) => post({ type: 'stage', stage }),
     });
+    if (waitedMs > 0)
+      post({ type: 'note', note: `waited ${(waitedMs / 1000).toFixed(1)} s in all for fieldwork` });
     return { ok: true, result };
   } catch (e) {
     return toTransportedError(e);

@@ -1,10 +1,12 @@
 /**
  * The estimation thread passes every kind of progress across its port, including the stages
- * after the optimisation, so the run's progress names them while the thread works.
+ * after the optimisation, so the run's progress names them while the thread works; and it
+ * holds a mixed logit while the web process's fieldwork flag is busy (fieldwork-yield.ts).
  */
 import { afterAll, describe, expect, it } from 'vitest';
 import { estimationSpecSchema } from '../../../shared/schemas/estimation-spec';
 import { simulateChoiceData } from '../../../server/engine/estimation/simulate-choice-data';
+import { BUSY, CALM, createBusyFlag } from '../../../server/engine/parallel/fieldwork-yield';
 import {
   createEstimationPool,
   runEstimationInWorker,
@@ -13,29 +15,29 @@ import {
 const pool = createEstimationPool();
 afterAll(() => pool.destroy());
 
+const { built } = simulateChoiceData({
+  respondents: 40,
+  tasks: 6,
+  alternatives: 3,
+  coefficients: [
+    { name: 'comfort', distribution: 'normal', location: 0.8, spread: 0.5 },
+    { name: 'fare', distribution: 'fixed', location: -0.6, levels: [0, 1, 2] },
+  ],
+  seed: 21,
+});
+const spec = estimationSpecSchema.parse({
+  model: 'mixed',
+  coefficients: [
+    { name: 'comfort', distribution: 'normal' },
+    { name: 'fare', distribution: 'fixed' },
+  ],
+  cost: 'fare',
+  draws: { count: 20, seed: 5 },
+  starts: 1,
+  profileDraws: 20,
+});
 describe('estimation thread', () => {
   it('reports iterations, then standard errors, WTP and taste profiles', async () => {
-    const { built } = simulateChoiceData({
-      respondents: 40,
-      tasks: 6,
-      alternatives: 3,
-      coefficients: [
-        { name: 'comfort', distribution: 'normal', location: 0.8, spread: 0.5 },
-        { name: 'fare', distribution: 'fixed', location: -0.6, levels: [0, 1, 2] },
-      ],
-      seed: 21,
-    });
-    const spec = estimationSpecSchema.parse({
-      model: 'mixed',
-      coefficients: [
-        { name: 'comfort', distribution: 'normal' },
-        { name: 'fare', distribution: 'fixed' },
-      ],
-      cost: 'fare',
-      draws: { count: 20, seed: 5 },
-      starts: 1,
-      profileDraws: 20,
-    });
     const events: string[] = [];
     const result = await runEstimationInWorker(
       pool,
@@ -49,5 +51,40 @@ describe('estimation thread', () => {
     );
     expect(result.individuals).toHaveLength(40);
     expect(events).toEqual(['iteration', 'standard_errors', 'wtp', 'profiles']);
+  });
+
+  it('waits while fieldwork is busy, then fits the same model', async () => {
+    const plain = await runEstimationInWorker(pool, { spec, built, threads: 1 });
+    const fieldworkBusy = createBusyFlag();
+    Atomics.store(fieldworkBusy, 0, BUSY);
+    const notes: string[] = [];
+    let firstProgressAt = 0;
+    const heldFor = 300;
+    const calmAt = new Promise<number>((resolve) =>
+      setTimeout(() => {
+        Atomics.store(fieldworkBusy, 0, CALM);
+        Atomics.notify(fieldworkBusy, 0);
+        resolve(performance.now());
+      }, heldFor),
+    );
+    const held = await runEstimationInWorker(
+      pool,
+      { spec, built, threads: 1, fieldworkBusy },
+      {
+        onNote: (note) => notes.push(note),
+        onProgress: () => {
+          firstProgressAt ||= performance.now();
+        },
+      },
+    );
+    // No iteration before the flag turned calm, and the log says why the run waited.
+    expect(firstProgressAt).toBeGreaterThanOrEqual(await calmAt);
+    expect(notes[0]).toBe('waiting while respondents keep the web process busy');
+    const waited = Number(/waited ([\d.]+) s in all for fieldwork/.exec(notes.at(-1) ?? '')?.[1]);
+    expect(waited).toBeGreaterThan(0);
+    // Waiting changes no number of the fit.
+    expect(held.estimates).toEqual(plain.estimates);
+    expect(held.loglik).toBe(plain.loglik);
+    expect(held.individuals).toEqual(plain.individuals);
   });
 });

@@ -13,6 +13,8 @@ export interface RunHbOptions {
   threads?: number;
   signal?: AbortSignal;
   onSamplerProgress?: (progress: HbProgress) => void;
+  /** The web process's busy flag: the chains wait while it is set (fit-hb.ts). */
+  fieldworkBusy?: Int32Array;
 }
 
 export async function runHbEstimation(
@@ -37,7 +39,11 @@ export async function runHbEstimation(
       holdout: built.holdout,
       threads: options.threads,
     },
-    { signal: options.signal, onProgress: options.onSamplerProgress },
+    {
+      signal: options.signal,
+      onProgress: options.onSamplerProgress,
+      fieldworkBusy: options.fieldworkBusy,
+    },
   );
   const { population, diagnostics, fit: measures, options: used } = fit;
   const estimates = population.coefficients.flatMap((c) =>

@@ -11,6 +11,7 @@ import { assertColumnsVary } from '../estimation/check-identification';
 import { EstimationCancelledError } from '../estimation/estimation-errors';
 import { selectColumns } from '../estimation/select-columns';
 import { createTsWorkerPool, shareChoiceData } from '../parallel/ts-worker-pool';
+import { waitWhileBusy } from '../parallel/fieldwork-yield';
 import { checkHbOptions, type CheckedHbOptions, type HbOptions } from './check-hb-options';
 import { getTransferables, type HbChainResult } from './hb-chain-result';
 import { unwrapWorkerResult, type TransportedError } from '../parallel/engine-error-transport';
@@ -30,6 +31,11 @@ export interface HbHooks {
   onProgress?: (progress: HbProgress) => void;
   /** Checked between progress reports; a fired signal rejects with EstimationCancelledError. */
   signal?: AbortSignal;
+  /**
+   * The web process's busy flag (parallel/fieldwork-yield.ts): every chain waits at its progress
+   * reports while it is set. Waiting changes no draw.
+   */
+  fieldworkBusy?: Int32Array;
 }
 
 export interface HbResult extends HbSummary {
@@ -85,6 +91,7 @@ async function runInProcess(
     chains.push(
       runHbChain(data, opts, c, start, {
         onProgress: (iteration) => {
+          if (hooks.fieldworkBusy) waitWhileBusy(hooks.fieldworkBusy);
           done[c] = iteration;
           hooks.onProgress?.({
             iteration: Math.min(...done),
@@ -122,10 +129,12 @@ async function runInWorkers(
     // A chain that fails stops the others; its reason, not their "cancelled", is reported.
     const results = await Promise.all(
       Array.from({ length: opts.chains }, (_, chain) =>
-        pool.run({ kind: 'chain', data, options, chain, control }).then((r: unknown) => {
-          if (r && typeof r === 'object' && 'engineError' in r) Atomics.store(control, 0, 1);
-          return r as HbChainResult | TransportedError;
-        }),
+        pool
+          .run({ kind: 'chain', data, options, chain, control, busy: hooks.fieldworkBusy })
+          .then((r: unknown) => {
+            if (r && typeof r === 'object' && 'engineError' in r) Atomics.store(control, 0, 1);
+            return r as HbChainResult | TransportedError;
+          }),
       ),
     );
     const failure = results.find(

@@ -53,6 +53,7 @@ export async function runEstimationTask(message: unknown): Promise<EstimationWor
       membership,
       resume,
       beforeEvaluation,
+      fieldworkBusy,
       onCheckpoint: (checkpoint) => post({ type: 'checkpoint', checkpoint }),
       onNote: (note) => post({ type: 'note', note }),
       onProgress: (progress) => post({ type: 'progress', progress }),

@@ -12,9 +12,18 @@ import { getHbStart } from '../hb/hb-start';
 import { runHbChain } from '../hb/run-hb-chain';
 import { summarizeHb, type HbSummary } from '../hb/summarize-hb';
 import { toTransportedError } from './engine-error-transport';
+import { waitWhileBusy } from './fieldwork-yield';
 
 export type HbWorkerMessage =
-  | { kind: 'chain'; data: ChoiceData; options: HbOptions; chain: number; control: Int32Array }
+  | {
+      kind: 'chain';
+      data: ChoiceData;
+      options: HbOptions;
+      chain: number;
+      control: Int32Array;
+      /** The web process's busy flag: the chain waits at its progress reports while it is set. */
+      busy?: Int32Array;
+    }
   | {
       kind: 'summarize';
       data: ChoiceData;
@@ -36,9 +45,10 @@ async function handle(msg: HbWorkerMessage): Promise<unknown> {
     throw new TypeError('invalid HB worker message');
   const opts = checkHbOptions(msg.data, { ...msg.options, threads: 1, holdout: null });
   if (msg.kind === 'chain') {
-    const { control, chain } = msg;
+    const { control, chain, busy } = msg;
     if (
       !(control instanceof Int32Array) ||
+      (busy !== undefined && !(busy instanceof Int32Array)) ||
       !Number.isInteger(chain) ||
       chain < 0 ||
       chain + 1 >= control.length
@@ -47,6 +57,7 @@ async function handle(msg: HbWorkerMessage): Promise<unknown> {
     const start = await getHbStart(msg.data, opts.layout, chain, opts.seed);
     const result = runHbChain(msg.data, opts, chain, start, {
       onProgress: (iteration) => {
+        if (busy) waitWhileBusy(busy);
         Atomics.store(control, chain + 1, iteration);
         return Atomics.load(control, 0) !== 0;
       },

@@ -36,6 +36,20 @@ const spec = estimationSpecSchema.parse({
   starts: 1,
   profileDraws: 20,
 });
+/** A busy flag that the web process's side turns calm after `ms`; calmAt says when. */
+function holdBusy(ms: number) {
+  const fieldworkBusy = createBusyFlag();
+  Atomics.store(fieldworkBusy, 0, BUSY);
+  const calmAt = new Promise<number>((resolve) =>
+    setTimeout(() => {
+      Atomics.store(fieldworkBusy, 0, CALM);
+      Atomics.notify(fieldworkBusy, 0);
+      resolve(performance.now());
+    }, ms),
+  );
+  return { fieldworkBusy, calmAt };
+}
+
 describe('estimation thread', () => {
   it('reports iterations, then standard errors, WTP and taste profiles', async () => {
     const events: string[] = [];
@@ -55,18 +69,9 @@ describe('estimation thread', () => {
 
   it('waits while fieldwork is busy, then fits the same model', async () => {
     const plain = await runEstimationInWorker(pool, { spec, built, threads: 1 });
-    const fieldworkBusy = createBusyFlag();
-    Atomics.store(fieldworkBusy, 0, BUSY);
+    const { fieldworkBusy, calmAt } = holdBusy(300);
     const notes: string[] = [];
     let firstProgressAt = 0;
-    const heldFor = 300;
-    const calmAt = new Promise<number>((resolve) =>
-      setTimeout(() => {
-        Atomics.store(fieldworkBusy, 0, CALM);
-        Atomics.notify(fieldworkBusy, 0);
-        resolve(performance.now());
-      }, heldFor),
-    );
     const held = await runEstimationInWorker(
       pool,
       { spec, built, threads: 1, fieldworkBusy },
@@ -87,4 +92,29 @@ describe('estimation thread', () => {
     expect(held.loglik).toBe(plain.loglik);
     expect(held.individuals).toEqual(plain.individuals);
   });
+
+  it.each([1, 2])(
+    'holds hierarchical Bayes chains (%i thread(s)) while fieldwork is busy, same draws',
+    async (threads) => {
+      const hb = estimationSpecSchema.parse({
+        model: 'hb',
+        coefficients: spec.coefficients,
+        mcmc: { iterations: 200, burnin: 100, thin: 2, chains: 2, seed: 3 },
+      });
+      const started = performance.now();
+      const plain = await runEstimationInWorker(pool, { spec: hb, built, threads });
+      // Held longer than the whole run takes unheld: finishing before the flag turns calm
+      // would mean the chains never waited.
+      const { fieldworkBusy, calmAt } = holdBusy(Math.max(300, 2 * (performance.now() - started)));
+      const held = await runEstimationInWorker(pool, {
+        spec: hb,
+        built,
+        threads,
+        fieldworkBusy,
+      });
+      expect(performance.now()).toBeGreaterThanOrEqual(await calmAt);
+      expect(held.estimates).toEqual(plain.estimates);
+      expect(held.individuals).toEqual(plain.individuals);
+    },
+  );
 });

@@ -17,6 +17,8 @@ export interface RunLatentClassOptions {
   /** Covariates of the membership model, rows in built.data.respondentIds order. */
   membership?: MembershipCovariates | null;
   onClassProgress?: (progress: LatentClassProgress) => void;
+  /** The web process's busy flag: EM waits while it is set (fit-latent-class-in-worker.ts). */
+  fieldworkBusy?: Int32Array;
 }
 
 export async function runLatentClassEstimation(
@@ -35,7 +37,12 @@ export async function runLatentClassEstimation(
       cost: spec.cost,
       holdout: built.holdout,
     },
-    { signal: options.signal, onProgress: options.onClassProgress, threads: options.threads },
+    {
+      signal: options.signal,
+      onProgress: options.onClassProgress,
+      threads: options.threads,
+      fieldworkBusy: options.fieldworkBusy,
+    },
   );
   return {
     model: 'latent_class',

@@ -93,26 +93,41 @@ describe('estimation thread', () => {
     expect(held.individuals).toEqual(plain.individuals);
   });
 
-  it.each([1, 2])(
-    'holds hierarchical Bayes chains (%i thread(s)) while fieldwork is busy, same draws',
-    async (threads) => {
-      const hb = estimationSpecSchema.parse({
-        model: 'hb',
-        coefficients: spec.coefficients,
-        mcmc: { iterations: 200, burnin: 100, thin: 2, chains: 2, seed: 3 },
-      });
+  const hb = estimationSpecSchema.parse({
+    model: 'hb',
+    coefficients: spec.coefficients,
+    mcmc: { iterations: 200, burnin: 100, thin: 2, chains: 2, seed: 3 },
+  });
+  const latentClass = estimationSpecSchema.parse({
+    model: 'latent_class',
+    coefficients: spec.coefficients.map((c) => ({ name: c.name })),
+    classes: [2, 2],
+    starts: 2,
+    seed: 4,
+  });
+  // HB chains wait at their progress reports, latent class between EM iterations; with one
+  // thread in the engine thread, with two on threads of their own.
+  it.each([
+    ['hierarchical Bayes', hb, 1],
+    ['hierarchical Bayes', hb, 2],
+    ['latent class', latentClass, 1],
+    ['latent class', latentClass, 2],
+  ] as const)(
+    'holds a %s fit (%i thread(s)) while fieldwork is busy',
+    async (_, model, threads) => {
       const started = performance.now();
-      const plain = await runEstimationInWorker(pool, { spec: hb, built, threads });
+      const plain = await runEstimationInWorker(pool, { spec: model, built, threads });
       // Held longer than the whole run takes unheld: finishing before the flag turns calm
-      // would mean the chains never waited.
+      // would mean the fit never waited.
       const { fieldworkBusy, calmAt } = holdBusy(Math.max(300, 2 * (performance.now() - started)));
       const held = await runEstimationInWorker(pool, {
-        spec: hb,
+        spec: model,
         built,
         threads,
         fieldworkBusy,
       });
       expect(performance.now()).toBeGreaterThanOrEqual(await calmAt);
+      // Waiting changes no draw and no EM step.
       expect(held.estimates).toEqual(plain.estimates);
       expect(held.individuals).toEqual(plain.individuals);
     },

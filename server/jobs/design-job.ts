@@ -89,7 +89,12 @@ export async function runDesignJob(deps: AppDeps, pool: Piscina, designJobId: st
   try {
     const out = await runDesignInWorker(
       pool,
-      { definition, spec: job.spec, compareWith: currentDesign?.design },
+      {
+        definition,
+        spec: job.spec,
+        compareWith: currentDesign?.design,
+        fieldworkBusy: deps.fieldworkBusy,
+      },
       {
         signal: abort.signal,
         onProgress: (p) => {

@@ -14,6 +14,7 @@ import { compareDesigns } from './diagnostics/compare-designs';
 import { designSchema } from '../../../shared/schemas/design';
 import { studyDefinitionSchema } from '../../../shared/schemas/study-definition';
 import { lowerThreadPriority } from '../parallel/thread-priority';
+import { waitWhileBusy } from '../parallel/fieldwork-yield';
 
 lowerThreadPriority();
 
@@ -21,6 +22,7 @@ const taskSchema = z.object({
   definition: z.unknown(),
   spec: z.unknown(),
   compareWith: designSchema.optional(),
+  fieldworkBusy: z.instanceof(Int32Array).optional(),
   port: z.instanceof(MessagePort).optional(),
 });
 
@@ -28,11 +30,14 @@ export function runDesignTask(message: unknown): DesignWorkerResult {
   const parsed = taskSchema.safeParse(message);
   if (!parsed.success)
     return { ok: false, error: { code: 'invalid_spec', message: 'Malformed design job message' } };
-  const { definition, spec, compareWith, port } = parsed.data;
+  const { definition, spec, compareWith, fieldworkBusy, port } = parsed.data;
   try {
     const result = generateDesign(definition, spec, {
-      onProgress: (progress) =>
-        port?.postMessage({ type: 'progress', progress } satisfies DesignProgressMessage),
+      onProgress: (progress) => {
+        // Respondents first (parallel/fieldwork-yield.ts): the search waits between passes.
+        if (fieldworkBusy) waitWhileBusy(fieldworkBusy);
+        port?.postMessage({ type: 'progress', progress } satisfies DesignProgressMessage);
+      },
     });
     if (!compareWith) return { ok: true, result };
     // A current design that no longer fits the attributes cannot be scored: no comparison.

@@ -40,7 +40,13 @@ export function createDesignPool(
  */
 export async function runDesignInWorker(
   pool: Piscina,
-  job: { definition: unknown; spec: unknown; compareWith?: unknown },
+  job: {
+    definition: unknown;
+    spec: unknown;
+    compareWith?: unknown;
+    /** The web process's busy flag: the search waits at its passes while it is set. */
+    fieldworkBusy?: Int32Array;
+  },
   hooks: { onProgress?: (progress: DesignProgress) => void; signal?: AbortSignal } = {},
 ): Promise<DesignWorkerResult> {
   const channel = new MessageChannel();

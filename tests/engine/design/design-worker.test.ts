@@ -10,6 +10,7 @@ import {
 import { generateDesign } from '../../../server/engine/design/generate-design';
 import type { DesignProgress } from '../../../server/engine/design/generate-design';
 import { makeSymmetricDefinition } from './design-fixtures';
+import { holdBusy } from '../../support/hold-busy';
 
 describe('design worker', () => {
   const pool = createDesignPool({ maxThreads: 1 });
@@ -32,6 +33,19 @@ describe('design worker', () => {
     // Progress messages may trail the result by a tick.
     await new Promise((resolve) => setTimeout(resolve, 50));
     expect(progress.some((p) => p.phase === 'searching')).toBe(true);
+  });
+
+  it('waits at its passes while fieldwork is busy, and returns the same design', async () => {
+    const definition = makeSymmetricDefinition([3, 3, 2], 2);
+    const spec = { method: 'd_efficient', tasks: 12, blocks: 2, starts: 2, seed: 3 };
+    const started = performance.now();
+    const plain = await runDesignInWorker(pool, { definition, spec });
+    // Held longer than the whole job takes unheld: ending before the flag turns calm would
+    // mean the search never waited.
+    const { fieldworkBusy, calmAt } = holdBusy(Math.max(300, 2 * (performance.now() - started)));
+    const held = await runDesignInWorker(pool, { definition, spec, fieldworkBusy });
+    expect(performance.now()).toBeGreaterThanOrEqual(await calmAt);
+    expect(held).toEqual(plain);
   });
 
   it('returns a DesignError as data', async () => {

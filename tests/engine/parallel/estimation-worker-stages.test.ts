@@ -6,7 +6,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { estimationSpecSchema } from '../../../shared/schemas/estimation-spec';
 import { simulateChoiceData } from '../../../server/engine/estimation/simulate-choice-data';
-import { BUSY, CALM, createBusyFlag } from '../../../server/engine/parallel/fieldwork-yield';
+import { holdBusy } from '../../support/hold-busy';
 import {
   createEstimationPool,
   runEstimationInWorker,
@@ -36,20 +36,6 @@ const spec = estimationSpecSchema.parse({
   starts: 1,
   profileDraws: 20,
 });
-/** A busy flag that the web process's side turns calm after `ms`; calmAt says when. */
-function holdBusy(ms: number) {
-  const fieldworkBusy = createBusyFlag();
-  Atomics.store(fieldworkBusy, 0, BUSY);
-  const calmAt = new Promise<number>((resolve) =>
-    setTimeout(() => {
-      Atomics.store(fieldworkBusy, 0, CALM);
-      Atomics.notify(fieldworkBusy, 0);
-      resolve(performance.now());
-    }, ms),
-  );
-  return { fieldworkBusy, calmAt };
-}
-
 describe('estimation thread', () => {
   it('reports iterations, then standard errors, WTP and taste profiles', async () => {
     const events: string[] = [];

@@ -135,7 +135,8 @@ const envSchema = z.object({
   /**
    * Respondents first: a web process running the embedded worker holds its estimation and
    * design jobs (mixed logit between likelihood evaluations, HB every 50 iterations, latent class
-   * between EM iterations, design searches between passes) while its event loop is at least this busy (0–1; 0 never holds).
+   * between EM iterations, design searches between passes) while its event loop is at least
+   * this busy (0–1; 0 never holds).
    * See server/lib/fieldwork-busy.ts and docs/methods.md ("Fieldwork before estimation").
    */
   ENGINE_YIELD_UTILISATION: z.coerce.number().min(0).max(1).default(0.2),

@@ -8,6 +8,7 @@
  * covariances by inference.ts. Everything is reported in the user's units.
  */
 import { createLoglikEvaluator } from '../parallel/create-loglik-evaluator';
+import { waitWhileBusy } from '../parallel/fieldwork-yield';
 import type { KernelKind } from '../simd/kernel-choice';
 import { minimizeBfgs, type BfgsResult } from './bfgs';
 import { computeBhhhStart } from './bhhh-start';
@@ -65,11 +66,11 @@ export interface MixedLogitHooks {
   /** Called after every BFGS iteration with where the fit stands (the caller picks what to keep). */
   onCheckpoint?: (checkpoint: MixedLogitCheckpoint) => void;
   /**
-   * Called before every evaluation; it may block (the estimation thread then waits, and with it
-   * the slice threads). The estimation worker waits here while fieldwork keeps the web process
-   * busy (fieldwork-yield.ts). Waiting changes no number of the fit.
+   * The web process's busy flag (parallel/fieldwork-yield.ts): before every evaluation the fit
+   * waits while it is set (and with it the slice threads), and says so in a note. Waiting
+   * changes no number of the fit.
    */
-  beforeEvaluation?: () => void;
+  fieldworkBusy?: Int32Array;
 }
 
 export interface MixedLogitResult extends FittedWithErrors {
@@ -127,11 +128,20 @@ export async function fitMixedLogit(
   // standard errors' too), and the evaluation time feeds the time-left estimate.
   let evaluations = 0;
   let evaluationSeconds = 0;
+  let waitedMs = 0;
+  const waitForFieldwork = () => {
+    if (!hooks.fieldworkBusy) return;
+    const waited = waitWhileBusy(hooks.fieldworkBusy);
+    // One note the first time, so that a slow run says why; the total when the fit ends.
+    if (waited > 0 && waitedMs === 0)
+      hooks.onNote?.('waiting while respondents keep the web process busy');
+    waitedMs += waited;
+  };
   const evaluator = {
     ...pool,
     async evaluate(x: Float64Array, g: Float64Array) {
       assertNotCancelled();
-      hooks.beforeEvaluation?.();
+      waitForFieldwork();
       const started = performance.now();
       const ll = await pool.evaluate(x, g);
       evaluationSeconds += (performance.now() - started) / 1000;
@@ -140,7 +150,7 @@ export async function fitMixedLogit(
     },
     async evaluateScores(x: Float64Array) {
       assertNotCancelled();
-      hooks.beforeEvaluation?.();
+      waitForFieldwork();
       return pool.evaluateScores(x);
     },
   };
@@ -293,6 +303,8 @@ export async function fitMixedLogit(
       warnings: [...warnings, ...inference.warnings],
     };
   } finally {
+    if (waitedMs > 0)
+      hooks.onNote?.(`waited ${(waitedMs / 1000).toFixed(1)} s in all for fieldwork`);
     await pool.close();
   }
 }

@@ -14,7 +14,6 @@ import type {
 } from './estimation-worker-messages';
 import { lowerThreadPriority } from './thread-priority';
 import { toTransportedError } from './engine-error-transport';
-import { waitWhileBusy } from './fieldwork-yield';
 
 lowerThreadPriority();
 
@@ -36,23 +35,12 @@ export async function runEstimationTask(message: unknown): Promise<EstimationWor
   assertTask(message);
   const { spec, built, threads, kernel, membership, resume, fieldworkBusy, port } = message;
   const post = (m: EstimationProgressMessage) => port?.postMessage(m);
-  let waitedMs = 0;
-  const beforeEvaluation = fieldworkBusy
-    ? () => {
-        const waited = waitWhileBusy(fieldworkBusy);
-        // One line in the run's log the first time, so that a slow run says why.
-        if (waited > 0 && waitedMs === 0)
-          post({ type: 'note', note: 'waiting while respondents keep the web process busy' });
-        waitedMs += waited;
-      }
-    : undefined;
   try {
     const result = await runEstimation(spec, built, {
       threads,
       kernel,
       membership,
       resume,
-      beforeEvaluation,
       fieldworkBusy,
       onCheckpoint: (checkpoint) => post({ type: 'checkpoint', checkpoint }),
       onNote: (note) => post({ type: 'note', note }),
@@ -61,8 +49,6 @@ export async function runEstimationTask(message: unknown): Promise<EstimationWor
       onClassProgress: (progress) => post({ type: 'classes', progress }),
       onStage: (stage) => post({ type: 'stage', stage }),
     });
-    if (waitedMs > 0)
-      post({ type: 'note', note: `waited ${(waitedMs / 1000).toFixed(1)} s in all for fieldwork` });
     return { ok: true, result };
   } catch (e) {
     return toTransportedError(e);

@@ -4,6 +4,7 @@
  * separator is detected (comma, semicolon or tab, as spreadsheet programs write them).
  */
 import { parse } from 'csv-parse/sync';
+import { csvDialectOf } from '../lib/csv-dialect';
 import {
   INVITEE_CSV_MAX_ROWS,
   inviteeRowSchema,
@@ -33,13 +34,6 @@ export type InviteeCsvResult = {
   errors: CsvIssue[];
 };
 
-function detectDelimiter(text: string): string {
-  const firstLine = text.slice(0, text.search(/\r?\n|$/));
-  const counts = [',', ';', '\t'].map((d) => [d, firstLine.split(d).length - 1] as const);
-  counts.sort((a, b) => b[1] - a[1]);
-  return counts[0][1] > 0 ? counts[0][0] : ',';
-}
-
 const fileIssue = (message: string, row = 1): InviteeCsvResult => ({
   totalRows: 0,
   columns: [],
@@ -58,8 +52,7 @@ export function readInviteeCsv(bytes: Buffer, existingEmails: Set<string>): Invi
   let records: Array<{ record: string[]; info: { lines: number } }>;
   try {
     records = parse(text, {
-      bom: true,
-      delimiter: detectDelimiter(text.replace(/^\uFEFF/, '')),
+      ...csvDialectOf(text),
       info: true,
       skip_empty_lines: true,
       relax_column_count: true,

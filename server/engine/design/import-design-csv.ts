@@ -7,6 +7,7 @@
  * for numeric attributes, the numeric value.
  */
 import { parse } from 'csv-parse/sync';
+import { csvDialectOf } from '../../lib/csv-dialect';
 import { unescapeCsvText } from '../../lib/safe-csv';
 import type { Design } from '../../../shared/schemas/design';
 import type { StudyDefinition } from '../../../shared/schemas/study-definition';
@@ -163,7 +164,7 @@ export function importDesignCsv(definition: StudyDefinition, text: string): Desi
   let records: string[][];
   try {
     records = parse(text, {
-      bom: true,
+      ...csvDialectOf(text),
       skip_empty_lines: true,
       relax_column_count: true,
       trim: false,

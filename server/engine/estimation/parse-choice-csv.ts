@@ -4,9 +4,11 @@
  * columns. Only the attribute columns a model needs are parsed, so extra text columns are
  * allowed. An optional `included` column (true/false or 1/0, as the study's long choice file
  * writes it) leaves the rows of respondents who do not count out. Errors name the line (the
- * header is line 1) and the column.
+ * header is line 1) and the column. Comma, semicolon or tab separated, as the header line shows
+ * (server/lib/csv-dialect.ts).
  */
 import { parse } from 'csv-parse/sync';
+import { csvDialectOf } from '../../lib/csv-dialect';
 import { ChoiceDataError, type LongChoiceRow } from './choice-data';
 
 const REQUIRED = ['respondent', 'task', 'alt', 'chosen'] as const;
@@ -16,6 +18,7 @@ export function parseChoiceCsv(text: string, columns: readonly string[]): LongCh
   let records: string[][];
   try {
     records = parse(text, {
+      ...csvDialectOf(text),
       skip_empty_lines: true,
       trim: true,
       relax_column_count: false,

@@ -1,7 +1,8 @@
 /**
  * The records of an uploaded CSV as a stream (csv-parse), each with the line it starts on (the
- * header is line 1): cells trimmed, empty lines skipped, a byte-order mark dropped, and lines
- * of any length let through so the reader can report a wrong field count itself.
+ * header is line 1): comma, semicolon or tab separated as the header line shows, a byte-order
+ * mark dropped (server/lib/csv-dialect.ts), cells trimmed, empty lines skipped, and lines of any
+ * length let through so the reader can report a wrong field count itself.
  *
  * Lines are counted here rather than with csv-parse's `info` option, which builds an object
  * per record and halved the reading speed of a million-row file: a record takes one line,
@@ -9,6 +10,7 @@
  */
 import type { Readable } from 'node:stream';
 import { parse } from 'csv-parse';
+import { csvDialectOfStream } from '../../lib/csv-dialect';
 
 /**
  * Calls `onRecord` for every non-empty record, in order; stops early when it returns false.
@@ -18,7 +20,8 @@ export async function readCsvRecords(
   input: Readable,
   onRecord: (record: string[], line: number) => boolean | void,
 ): Promise<void> {
-  const parser = input.pipe(parse({ trim: true, relax_column_count: true, bom: true }));
+  const { dialect, stream } = await csvDialectOfStream(input);
+  const parser = stream.pipe(parse({ ...dialect, trim: true, relax_column_count: true }));
   let next = 1;
   for await (const record of parser as AsyncIterable<string[]>) {
     const line = next++;

@@ -5,6 +5,7 @@
  */
 import { parse } from 'csv-parse/sync';
 import { ValidationError } from '../../lib/errors';
+import { csvDialectOf } from '../../lib/csv-dialect';
 import { unescapeCsvText } from '../../lib/safe-csv';
 import { languageName } from '../../../shared/languages/language-tags';
 import { readXliff, XliffError } from './xliff';
@@ -16,7 +17,11 @@ export function readCsvFile(content: string, source: string, lang: string): File
   let records: Array<{ record: string[]; info: { lines: number } }>;
   try {
     // Every row must have the header's four columns (csv-parse's default).
-    records = parse(content, { bom: true, skip_empty_lines: true, info: true }) as never;
+    records = parse(content, {
+      ...csvDialectOf(content),
+      skip_empty_lines: true,
+      info: true,
+    }) as never;
   } catch (err) {
     throw new ValidationError('The CSV file cannot be read', [
       { path: 'file', message: (err as Error).message },

@@ -38,15 +38,19 @@ describe('exportDesignCsv', () => {
     expect(csv.trim().split('\n')).toEqual([HEADER, '1,1,1,3,2,0,fair,80', '1,1,2,10,1,6,poor,20']);
   });
 
+  const { design } = generateDesign(definition, { method: 'random', tasks: 8, blocks: 2, seed: 4 });
+
   it('round-trips a generated design through import', () => {
-    const { design } = generateDesign(definition, {
-      method: 'random',
-      tasks: 8,
-      blocks: 2,
-      seed: 4,
-    });
     const imported = importDesignCsv(definition, exportDesignCsv(definition, design));
     expect(imported).toEqual({ ok: true, design });
+  });
+
+  it('imports the same design saved by a spreadsheet as semicolon-separated "CSV UTF-8"', () => {
+    // A comma-decimal locale's list separator, a byte-order mark and CRLF (server/lib/csv-dialect.ts).
+    const csv = exportDesignCsv(definition, design);
+    expect(csv).not.toContain('"');
+    const saved = '\uFEFF' + csv.replaceAll(',', ';').replaceAll('\n', '\r\n');
+    expect(importDesignCsv(definition, saved)).toEqual({ ok: true, design });
   });
 });
 

@@ -114,6 +114,21 @@ describe('parseChoiceCsv reads the long choice file', () => {
       ['3', 6, 6],
     ]);
   });
+
+  it('reads a semicolon file with a byte-order mark and CRLF line ends as its comma twin', () => {
+    // A spreadsheet's "CSV UTF-8" in a comma-decimal locale (server/lib/csv-dialect.ts).
+    const comma = 'respondent,task,alt,chosen,note,x\n1,1,1,1,"a;b",2.5\n1,1,2,0,,3\n';
+    const semicolons =
+      '\uFEFFrespondent;task;alt;chosen;note;x\r\n1;1;1;1;"a;b";2.5\r\n1;1;2;0;;3\r\n';
+    expect(parseChoiceCsv(semicolons, ['x'])).toEqual(parseChoiceCsv(comma, ['x']));
+    expect(parseChoiceCsv(semicolons, ['x']).map((r) => r.values[0])).toEqual([2.5, 3]);
+  });
+
+  it('names the line and column of a decimal comma instead of reading it', () => {
+    expect(() => parseChoiceCsv('respondent;task;alt;chosen;x\n1;1;1;1;2,5', ['x'])).toThrow(
+      'line 2: column x is not a number ("2,5")',
+    );
+  });
 });
 
 describe('fitMnl guards', () => {

@@ -137,6 +137,38 @@ describe('POST /imports/preview', () => {
     ]);
   });
 
+  it('reads a semicolon file with a byte-order mark and CRLF line ends as its comma twin', async () => {
+    // How a spreadsheet set to a comma-decimal locale saves "CSV UTF-8" (server/lib/csv-dialect.ts).
+    const semicolons = '\uFEFF' + small.replaceAll(',', ';').replaceAll('\n', '\r\n') + '\r\n';
+    const [comma, semi] = await Promise.all(
+      [small, semicolons].map(
+        async (choices) =>
+          (await upload(team.agents.editor, `${base()}/preview`, { choices }).expect(200))
+            .body as ImportPreview,
+      ),
+    );
+    expect(semi).toEqual(comma);
+    expect(semi.problemCount).toBe(0);
+  });
+
+  it('keeps a quoted semicolon inside a cell of a semicolon file, and names the line of a field-count error', async () => {
+    const text = [
+      'respondent;task;alt;chosen;bill;river',
+      'A;1;1;1;3;"poor; muddy"',
+      'A;1;2;0;6;good',
+      'A;2;1;0;0;fair',
+      'A;2;2;1;10;good',
+      'A;3;1;1;10', // line 6: one field short
+    ].join('\n');
+    const body = (
+      await upload(team.agents.editor, `${base()}/preview`, { choices: text }).expect(200)
+    ).body as ImportPreview;
+    expect(body.attributes.find((a) => a.column === 'river')?.levels.map((l) => l.raw)).toContain(
+      'poor; muddy',
+    );
+    expect(body.problems.map((p) => [p.line, p.code])).toEqual([[6, 'field_count']]);
+  });
+
   it('when a key column is missing, names it on line 1 and reads no further', async () => {
     const body = (
       await upload(team.agents.editor, `${base()}/preview`, {
@@ -241,6 +273,18 @@ describe('POST /imports', () => {
     expect(res.body.error.fields).toEqual([
       { path: 'background[line 3].respondent', message: expect.stringContaining('“Z”') },
     ]);
+  });
+
+  it('reads a tab-separated background file beside a comma-separated choice file', async () => {
+    const res = await upload(
+      team.agents.editor,
+      `${base()}/preview`,
+      { choices: small, background: 'respondent\thousehold\tnote\nA\t2\t"one, two"\nB\t3\t\n' },
+      setupFor(await inferred(small)),
+    ).expect(200);
+    const body = res.body as ImportPreview;
+    expect(body.problems).toEqual([]);
+    expect(body.background?.columns.map((c) => c.column)).toEqual(['household', 'note']);
   });
 
   it('when all is well, creates a closed study marked imported that cannot go live', async () => {

@@ -110,6 +110,16 @@ describe('POST /texts/:lang/file', () => {
     expect((await translations(s.id)).de['study.title']).toBe('=Wasser');
   });
 
+  it('imports the CSV a translator saved from a spreadsheet with semicolons, a byte-order mark and CRLF', async () => {
+    // A comma-decimal locale's list separator (server/lib/csv-dialect.ts).
+    const s = await studyInGerman();
+    const csv =
+      '\uFEFFkey;where;en;de\r\nstudy.title;Title;Water services 2026;"Wasser; Abwasser 2026"\r\n';
+    const res = await importFile('editor', s.id, { format: 'csv', content: csv }).expect(200);
+    expect(res.body.imported).toBe(1);
+    expect((await translations(s.id)).de['study.title']).toBe('Wasser; Abwasser 2026');
+  });
+
   it('refuses another study’s file, the wrong language and a DOCTYPE with a field error, changing nothing', async () => {
     const s = await studyInGerman();
     const other = await studyInGerman();

@@ -21,6 +21,10 @@ export function ImportFormatHelp() {
           single-choice question.
         </p>
         <p>
+          Commas, semicolons or tabs may separate the columns, as your spreadsheet saves them. Write
+          decimals with a point ({code('2.5')}): a decimal comma is read as text.
+        </p>
+        <p>
           Before anything is saved the files are checked, and every problem is listed with its line
           and column: tasks with no or several chosen alternatives, tasks with another number of
           alternatives, duplicate rows, respondents whose attribute columns are filled on some rows

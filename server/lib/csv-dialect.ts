@@ -1,0 +1,83 @@
+/**
+ * How an uploaded CSV file is written, read the same way by every reader of one (choice data,
+ * background answers, designs, invitee lists, translations, the command-line estimator).
+ *
+ * Spreadsheet programs save "CSV" with the list separator of the user's locale: a comma in
+ * English-speaking ones, a semicolon where the comma is the decimal mark (most of continental
+ * Europe), and a tab for "tab-separated text"; a UTF-8 "CSV" often starts with a byte-order mark
+ * (common practice, no source). The header line tells which separator a file uses: of the three,
+ * the one found most often outside quotes on it, a comma when none is. Its cells then follow the
+ * same rules (quotes, doubled quotes, line breaks inside quotes) whatever the separator is.
+ *
+ * Decimal commas are not read as numbers: a cell such as "2,5" stays text, and each reader says
+ * so where it needs a number (docs/methods.md, "Imported choice data").
+ */
+import { Readable } from 'node:stream';
+
+export type CsvDelimiter = ',' | ';' | '\t';
+
+const DELIMITERS: readonly CsvDelimiter[] = [',', ';', '\t'];
+
+/** The separator of a CSV text, from its first line (see the file comment). */
+export function csvDelimiterOf(text: string): CsvDelimiter {
+  const counts = new Map<string, number>(DELIMITERS.map((d) => [d, 0]));
+  let quoted = false;
+  // A byte-order mark is not part of the header; the first line ends at the first line break
+  // outside quotes.
+  for (let i = text.charCodeAt(0) === 0xfeff ? 1 : 0; i < text.length; i++) {
+    const c = text[i];
+    if (c === '"') quoted = !quoted;
+    else if (!quoted && (c === '\n' || c === '\r')) break;
+    else if (!quoted && counts.has(c)) counts.set(c, counts.get(c)! + 1);
+  }
+  let best: CsvDelimiter = ',';
+  for (const d of DELIMITERS) if (counts.get(d)! > counts.get(best)!) best = d;
+  return best;
+}
+
+/** csv-parse's options for reading a text written as `text` is: its separator, no byte-order mark. */
+export function csvDialectOf(text: string): { delimiter: CsvDelimiter; bom: true } {
+  return { delimiter: csvDelimiterOf(text), bom: true };
+}
+
+/** Enough of a file's start to hold its header line, for all but absurd headers. */
+const HEAD_BYTES = 64 * 1024;
+
+/**
+ * The separator of a CSV stream, and the stream to read it from. The start of the stream (up to
+ * its first line break, or 64 KiB) is read to tell, then put back in front (`unshift`), so the
+ * same stream yields every byte and keeps its own closing and errors; only a stream that ended
+ * within its start is replaced, by one of that start.
+ */
+export async function csvDialectOfStream(
+  input: Readable,
+): Promise<{ dialect: { delimiter: CsvDelimiter; bom: true }; stream: Readable }> {
+  return new Promise((resolve, reject) => {
+    const chunks: Buffer[] = [];
+    let size = 0;
+    const finish = (ended: boolean) => {
+      input.off('readable', onReadable).off('end', onEnd).off('error', onError);
+      const start = Buffer.concat(chunks);
+      if (!ended && start.length > 0) input.unshift(start);
+      resolve({
+        dialect: csvDialectOf(start.toString('utf8')),
+        stream: ended ? Readable.from([start]) : input,
+      });
+    };
+    const onReadable = () => {
+      for (let chunk = input.read(); chunk !== null; chunk = input.read()) {
+        const bytes: Buffer = typeof chunk === 'string' ? Buffer.from(chunk) : chunk;
+        chunks.push(bytes);
+        size += bytes.length;
+        if (size >= HEAD_BYTES || bytes.includes(0x0a) || bytes.includes(0x0d))
+          return finish(false);
+      }
+    };
+    const onEnd = () => finish(true);
+    const onError = (error: Error) => {
+      input.off('readable', onReadable).off('end', onEnd).off('error', onError);
+      reject(error);
+    };
+    input.on('readable', onReadable).on('end', onEnd).on('error', onError);
+  });
+}

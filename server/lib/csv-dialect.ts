@@ -9,8 +9,10 @@
  * the one found most often outside quotes on it, a comma when none is. Its cells then follow the
  * same rules (quotes, doubled quotes, line breaks inside quotes) whatever the separator is.
  *
- * Decimal commas are not read as numbers: a cell such as "2,5" stays text, and each reader says
- * so where it needs a number (docs/methods.md, "Imported choice data").
+ * A semicolon says the file comes from a locale whose decimal mark is the comma, so there a cell
+ * that is a number written with a decimal comma ("2,5", "-0,75") is read as that number; anywhere
+ * else, and in any other form ("1.000,5", "2,5 €"), a comma stays text and each reader says so
+ * where it needs a number (docs/methods.md, "Imported choice data").
  */
 import { Readable } from 'node:stream';
 
@@ -38,6 +40,18 @@ export function csvDelimiterOf(text: string): CsvDelimiter {
 /** csv-parse's options for reading a text written as `text` is: its separator, no byte-order mark. */
 export function csvDialectOf(text: string): { delimiter: CsvDelimiter; bom: true } {
   return { delimiter: csvDelimiterOf(text), bom: true };
+}
+
+const DECIMAL_COMMA = /^([+-]?\d+),(\d+)$/;
+
+/**
+ * A cell where a number may stand, with a decimal comma turned into a point when the file is
+ * semicolon separated (see the file comment); any other cell unchanged.
+ */
+export function withDecimalPoint(cell: string, delimiter: CsvDelimiter): string {
+  if (delimiter !== ';') return cell;
+  const trimmed = cell.trim();
+  return DECIMAL_COMMA.test(trimmed) ? trimmed.replace(DECIMAL_COMMA, '$1.$2') : cell;
 }
 
 /** Enough of a file's start to hold its header line, for all but absurd headers. */

@@ -4,10 +4,11 @@
  * the first: missing or unknown columns, bad numbers, unknown levels, tasks whose
  * alternative count differs from the study's, blocks not 1..B, excluded combinations and
  * duplicate alternatives. Level cells match the level label (trimmed, case-insensitive) or,
- * for numeric attributes, the numeric value.
+ * for numeric attributes, the numeric value (with a decimal comma in a semicolon-separated file,
+ * server/lib/csv-dialect.ts).
  */
 import { parse } from 'csv-parse/sync';
-import { csvDialectOf } from '../../lib/csv-dialect';
+import { csvDialectOf, withDecimalPoint, type CsvDelimiter } from '../../lib/csv-dialect';
 import { unescapeCsvText } from '../../lib/safe-csv';
 import type { Design } from '../../../shared/schemas/design';
 import type { StudyDefinition } from '../../../shared/schemas/study-definition';
@@ -30,6 +31,7 @@ function findLevelId(
   definition: StudyDefinition,
   attributeIndex: number,
   cell: string,
+  delimiter: CsvDelimiter,
 ): string | undefined {
   const attribute = definition.attributes[attributeIndex];
   const text = unescapeCsvText(cell.trim());
@@ -37,12 +39,18 @@ function findLevelId(
     (l) => getLevelLabel(attribute, l).toLowerCase() === text.toLowerCase(),
   );
   if (byLabel) return byLabel.id;
-  if (attribute.kind === 'numeric' && text !== '' && Number.isFinite(Number(text)))
-    return attribute.levels.find((l) => l.value === Number(text))?.id;
+  const value = Number(withDecimalPoint(text, delimiter));
+  if (attribute.kind === 'numeric' && text !== '' && Number.isFinite(value))
+    return attribute.levels.find((l) => l.value === value)?.id;
   return undefined;
 }
 
-function readTasks(definition: StudyDefinition, records: string[][], errors: CsvRowError[]) {
+function readTasks(
+  definition: StudyDefinition,
+  records: string[][],
+  delimiter: CsvDelimiter,
+  errors: CsvRowError[],
+) {
   const header = records[0].map((h) => unescapeCsvText(h.trim()));
   const column = (name: string) => header.findIndex((h) => h.toLowerCase() === name.toLowerCase());
   const fixed = ['block', 'task', 'alternative'].map(column);
@@ -100,7 +108,7 @@ function readTasks(definition: StudyDefinition, records: string[][], errors: Csv
         alt !== null &&
         definition.alternatives.labels[alt - 1]?.omittedAttributeIds.includes(attribute.id);
       if (omitted) return;
-      const levelId = findLevelId(definition, a, cell);
+      const levelId = findLevelId(definition, a, cell, delimiter);
       if (levelId === undefined)
         errors.push({
           row,
@@ -161,10 +169,11 @@ function checkTask(
 
 /** Parses a design CSV against a study definition; see the file comment. */
 export function importDesignCsv(definition: StudyDefinition, text: string): DesignCsvImport {
+  const dialect = csvDialectOf(text);
   let records: string[][];
   try {
     records = parse(text, {
-      ...csvDialectOf(text),
+      ...dialect,
       skip_empty_lines: true,
       relax_column_count: true,
       trim: false,
@@ -179,7 +188,7 @@ export function importDesignCsv(definition: StudyDefinition, text: string): Desi
       errors: [{ row: 1, column: null, message: 'The file has no design rows' }],
     };
   const errors: CsvRowError[] = [];
-  const tasks = readTasks(definition, records, errors);
+  const tasks = readTasks(definition, records, dialect.delimiter, errors);
   if (tasks) for (const [taskNo, task] of tasks) checkTask(definition, taskNo, task, errors);
   const blocks = tasks ? Math.max(...[...tasks.values()].map((t) => t.block)) : 0;
   if (tasks && blocks > 50) errors.push({ row: 1, column: 'block', message: 'At most 50 blocks' });

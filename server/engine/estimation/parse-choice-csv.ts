@@ -4,21 +4,22 @@
  * columns. Only the attribute columns a model needs are parsed, so extra text columns are
  * allowed. An optional `included` column (true/false or 1/0, as the study's long choice file
  * writes it) leaves the rows of respondents who do not count out. Errors name the line (the
- * header is line 1) and the column. Comma, semicolon or tab separated, as the header line shows
- * (server/lib/csv-dialect.ts).
+ * header is line 1) and the column. Comma, semicolon or tab separated, as the header line shows,
+ * with decimal commas in a semicolon file (server/lib/csv-dialect.ts).
  */
 import { parse } from 'csv-parse/sync';
-import { csvDialectOf } from '../../lib/csv-dialect';
+import { csvDialectOf, withDecimalPoint } from '../../lib/csv-dialect';
 import { ChoiceDataError, type LongChoiceRow } from './choice-data';
 
 const REQUIRED = ['respondent', 'task', 'alt', 'chosen'] as const;
 
 /** Parses the CSV and returns rows with `values` in the order of `columns`. */
 export function parseChoiceCsv(text: string, columns: readonly string[]): LongChoiceRow[] {
+  const dialect = csvDialectOf(text);
   let records: string[][];
   try {
     records = parse(text, {
-      ...csvDialectOf(text),
+      ...dialect,
       skip_empty_lines: true,
       trim: true,
       relax_column_count: false,
@@ -61,7 +62,7 @@ export function parseChoiceCsv(text: string, columns: readonly string[]): LongCh
     }
     const numberAt = (col: number, name: string): number => {
       const raw = record[col];
-      const value = raw === '' ? NaN : Number(raw);
+      const value = raw === '' ? NaN : Number(withDecimalPoint(raw, dialect.delimiter));
       if (!Number.isFinite(value))
         throw new ChoiceDataError(
           `line ${line}: column ${name} is not a number ("${raw}")`,

@@ -51,6 +51,14 @@ describe('exportDesignCsv', () => {
     expect(csv).not.toContain('"');
     const saved = '\uFEFF' + csv.replaceAll(',', ';').replaceAll('\n', '\r\n');
     expect(importDesignCsv(definition, saved)).toEqual({ ok: true, design });
+    // A numeric level written with a decimal comma there: the bill of 3 as "3,0".
+    const first = saved.split('\r\n')[1].split(';');
+    const bill = HEADER.split(',').indexOf('Monthly bill increase');
+    const level = design.tasks[0].alternatives[0].levels.bill;
+    first[bill] = `${definition.attributes[0].levels.find((l) => l.id === level)?.value},0`;
+    const lines = saved.split('\r\n');
+    lines[1] = first.join(';');
+    expect(importDesignCsv(definition, lines.join('\r\n'))).toEqual({ ok: true, design });
   });
 });
 

@@ -124,9 +124,14 @@ describe('parseChoiceCsv reads the long choice file', () => {
     expect(parseChoiceCsv(semicolons, ['x']).map((r) => r.values[0])).toEqual([2.5, 3]);
   });
 
-  it('names the line and column of a decimal comma instead of reading it', () => {
-    expect(() => parseChoiceCsv('respondent;task;alt;chosen;x\n1;1;1;1;2,5', ['x'])).toThrow(
+  it('reads decimal commas in a semicolon file only, and names the line and column of any other', () => {
+    const semicolons = 'respondent;task;alt;chosen;x\n1;1;1;1;2,5\n1;1;2;0;-0,25\n';
+    expect(parseChoiceCsv(semicolons, ['x']).map((r) => r.values[0])).toEqual([2.5, -0.25]);
+    expect(() => parseChoiceCsv('respondent,task,alt,chosen,x\n1,1,1,1,"2,5"', ['x'])).toThrow(
       'line 2: column x is not a number ("2,5")',
+    );
+    expect(() => parseChoiceCsv('respondent;task;alt;chosen;x\n1;1;1;1;2,5 €', ['x'])).toThrow(
+      'line 2: column x is not a number ("2,5 €")',
     );
   });
 });

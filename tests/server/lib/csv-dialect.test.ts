@@ -5,7 +5,11 @@
  */
 import { Readable } from 'node:stream';
 import { describe, expect, it } from 'vitest';
-import { csvDelimiterOf, csvDialectOfStream } from '../../../server/lib/csv-dialect';
+import {
+  csvDelimiterOf,
+  csvDialectOfStream,
+  withDecimalPoint,
+} from '../../../server/lib/csv-dialect';
 
 describe('csvDelimiterOf', () => {
   it.each<[string, string, string]>([
@@ -21,6 +25,25 @@ describe('csvDelimiterOf', () => {
     ['an empty text', '', ','],
   ])('%s', (_label, text, delimiter) => {
     expect(csvDelimiterOf(text)).toBe(delimiter);
+  });
+});
+
+describe('withDecimalPoint', () => {
+  it.each<[string, string, string]>([
+    ['2,5', ';', '2.5'],
+    ['-0,75', ';', '-0.75'],
+    [' 10,0 ', ';', '10.0'],
+    ['+3,25', ';', '+3.25'],
+    ['2.5', ';', '2.5'],
+    ['1.000,5', ';', '1.000,5'],
+    ['2,5 €', ';', '2,5 €'],
+    ['2,5,1', ';', '2,5,1'],
+    [',5', ';', ',5'],
+    ['good', ';', 'good'],
+    ['2,5', ',', '2,5'],
+    ['2,5', '\t', '2,5'],
+  ])('%j in a file separated by %j reads %j', (cell, delimiter, read) => {
+    expect(withDecimalPoint(cell, delimiter as ',' | ';' | '\t')).toBe(read);
   });
 });
 

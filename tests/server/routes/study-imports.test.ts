@@ -151,6 +151,25 @@ describe('POST /imports/preview', () => {
     expect(semi.problemCount).toBe(0);
   });
 
+  it('reads decimal commas of a semicolon file as numbers, and a background file likewise', async () => {
+    const choices = small.replaceAll(',', ';').replace(/;3;/g, ';2,5;');
+    const body = (
+      await upload(team.agents.editor, `${base()}/preview`, {
+        choices,
+        background: 'respondent;income\nA;1,5\nB;2\n',
+      }).expect(200)
+    ).body as ImportPreview;
+    expect(body.problems).toEqual([]);
+    expect(body.attributes.find((a) => a.column === 'bill')).toMatchObject({
+      kind: 'numeric',
+      isCost: true,
+      levels: [0, 2.5, 6, 10].map((v) => ({ raw: String(v), label: '', value: v })),
+    });
+    expect(body.background?.columns).toEqual([
+      expect.objectContaining({ column: 'income', type: 'number' }),
+    ]);
+  });
+
   it('keeps a quoted semicolon inside a cell of a semicolon file, and names the line of a field-count error', async () => {
     const text = [
       'respondent;task;alt;chosen;bill;river',

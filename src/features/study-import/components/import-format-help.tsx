@@ -21,8 +21,9 @@ export function ImportFormatHelp() {
           single-choice question.
         </p>
         <p>
-          Commas, semicolons or tabs may separate the columns, as your spreadsheet saves them. Write
-          decimals with a point ({code('2.5')}): a decimal comma is read as text.
+          Commas, semicolons or tabs may separate the columns, as your spreadsheet saves them.
+          Decimals are written with a point ({code('2.5')}), or with a comma ({code('2,5')}) in a
+          file separated by semicolons.
         </p>
         <p>
           Before anything is saved the files are checked, and every problem is listed with its line

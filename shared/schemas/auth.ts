@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { roleSchema } from '../permissions';
+import { emailSchema } from './email';
 
-export const emailSchema = z.email('Enter a valid e-mail address').trim().toLowerCase().max(254);
 export const passwordSchema = z
   .string()
   .min(10, 'Use at least 10 characters')

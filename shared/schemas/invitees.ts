@@ -5,6 +5,7 @@
  */
 import { z } from 'zod';
 import { knownPlaceholdersOnly } from '../mail/invitation-wording';
+import { emailSchema } from './email';
 
 export const INVITEE_NAME_MAX = 120;
 export const INVITEE_EXTERNAL_ID_MAX = 100;
@@ -14,11 +15,7 @@ export const INVITEE_CSV_MAX_ROWS = 50_000;
 
 /** One invitee row after normalisation (e-mail trimmed and lower-cased). */
 export const inviteeRowSchema = z.object({
-  email: z
-    .string()
-    .trim()
-    .toLowerCase()
-    .pipe(z.email('Not a valid e-mail address').max(254, 'E-mail address is too long')),
+  email: emailSchema,
   name: z
     .string()
     .trim()

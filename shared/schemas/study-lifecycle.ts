@@ -4,6 +4,7 @@
  * schema keeps keys it does not know.
  */
 import { z } from 'zod';
+import { emailSchema } from './email';
 
 /** Hours after a close during which answers given before it are still accepted (up to 30 days). */
 const lateAnswerGraceHours = z.number().int().min(0).max(720);
@@ -21,11 +22,7 @@ const mailSenderName = z
   .min(1, 'Enter a name, or leave it empty')
   .max(80, 'Use at most 80 characters')
   .regex(/^[^<>"\r\n]*$/, 'No angle brackets, quotes or line breaks');
-const mailReplyTo = z
-  .string()
-  .trim()
-  .toLowerCase()
-  .pipe(z.email('Not a valid e-mail address').max(254));
+const mailReplyTo = emailSchema;
 
 export const closedReasonSchema = z.enum(['manual', 'date', 'quota']);
 export type ClosedReason = z.infer<typeof closedReasonSchema>;

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { roleSchema } from '../permissions';
-import { emailSchema } from './auth';
+import { emailSchema } from './email';
 
 export const teamIdParamsSchema = z.object({ teamId: z.uuid() });
 

@@ -143,6 +143,15 @@ describe('POST /api/auth/sign-in and GET /api/auth/me', () => {
     expect(me.body.email).toBe(user.email);
   });
 
+  it('signs in with the address as typed on a phone: capitals and a space after it', async () => {
+    const { user } = await signUpOwner(t);
+    await t
+      .request()
+      .post('/api/auth/sign-in')
+      .send({ email: ` ${user.email.toUpperCase()} `, password: TEST_PASSWORD })
+      .expect(200);
+  });
+
   it('when the password is wrong, returns 401 without saying which part was wrong', async () => {
     const { user } = await signUpOwner(t);
     const res = await t

@@ -5,6 +5,7 @@ import { Button } from '@/components/ui/button';
 import { Alert } from '@/components/ui/feedback';
 import { applyFieldErrors } from '@/lib/api-client';
 import type { FieldworkSettings } from '@shared/schemas/study-lifecycle';
+import { emailSchema } from '@shared/schemas/email';
 import { useUpdateSettings } from '../api/update-settings';
 import { FormTextFields, type TextFieldSpec } from '@/components/ui/form-text-fields';
 
@@ -27,7 +28,10 @@ const formSchema = z.object({
     .string()
     .max(80, 'Use at most 80 characters')
     .regex(/^[^<>"]*$/, 'No angle brackets or quotes'),
-  mailReplyTo: z.union([z.literal(''), z.email('Not a valid e-mail address')]),
+  mailReplyTo: z
+    .string()
+    .trim()
+    .pipe(z.union([z.literal(''), emailSchema])),
 });
 type FormValues = z.infer<typeof formSchema>;
 

@@ -31,7 +31,7 @@ describe('SignUpForm', () => {
     await fillIn({ email: 'not-an-address', password: 'short' });
 
     expect(await screen.findByText('Enter your name')).toBeInTheDocument();
-    expect(screen.getByText('Enter a valid e-mail address')).toBeInTheDocument();
+    expect(screen.getByText('Not a valid e-mail address')).toBeInTheDocument();
     expect(screen.getByText('Use at least 10 characters')).toBeInTheDocument();
     expect(screen.getByText('Name your team')).toBeInTheDocument();
     expect(screen.getByLabelText('Your name')).toHaveAttribute('aria-invalid', 'true');

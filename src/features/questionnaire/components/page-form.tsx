@@ -1,4 +1,5 @@
 import { TextAreaField, TextField } from '@/components/ui/field';
+import { NumberTextField } from '@/components/ui/number-text-field';
 import {
   pageKindLabels,
   type Question,
@@ -41,14 +42,7 @@ function AcceptLimitField({
   value: number | null;
   onCommit: (limit: number | null) => void;
 }) {
-  return (
-    <TextField
-      label={label}
-      inputMode="decimal"
-      defaultValue={value ?? ''}
-      onBlur={(e) => onCommit(e.target.value.trim() === '' ? null : Number(e.target.value))}
-    />
-  );
+  return <NumberTextField label={label} value={value} onCommit={onCommit} />;
 }
 
 export function PageForm({

@@ -1,6 +1,7 @@
 import { nanoid } from 'nanoid';
 import { Button } from '@/components/ui/button';
 import { CheckboxField } from '@/components/ui/checkbox-field';
+import { NumberTextField } from '@/components/ui/number-text-field';
 import { SelectField, TextAreaField, TextField } from '@/components/ui/field';
 import type { ChoiceOption, Question, QuestionType } from '@shared/schemas/questionnaire';
 import { isGeneratedKey, questionKeyFromText } from '@shared/schemas/question-keys';
@@ -47,7 +48,6 @@ export function QuestionFields({
       text,
       key: isGeneratedKey(q.key, q.text, otherKeys) ? questionKeyFromText(text, otherKeys) : q.key,
     });
-  const num = (v: string) => (v.trim() === '' || Number.isNaN(Number(v)) ? 0 : Number(v));
   return (
     <div className="space-y-4">
       <div className="grid gap-4 sm:grid-cols-2">
@@ -128,17 +128,17 @@ export function QuestionFields({
       )}
       {q.type === 'number' && (
         <div className="grid gap-4 sm:grid-cols-4">
-          <TextField
+          <NumberTextField
             label="Lowest"
-            inputMode="decimal"
-            defaultValue={q.min}
-            onBlur={(e) => onChange({ ...q, min: num(e.target.value) })}
+            required
+            value={q.min}
+            onCommit={(min) => onChange({ ...q, min: min ?? q.min })}
           />
-          <TextField
+          <NumberTextField
             label="Highest"
-            inputMode="decimal"
-            defaultValue={q.max}
-            onBlur={(e) => onChange({ ...q, max: num(e.target.value) })}
+            required
+            value={q.max}
+            onCommit={(max) => onChange({ ...q, max: max ?? q.max })}
           />
           <TextField
             label="Unit (optional)"
@@ -155,13 +155,13 @@ export function QuestionFields({
         </div>
       )}
       {q.type === 'text' && (
-        <TextField
+        <NumberTextField
           label="Longest answer (characters)"
-          inputMode="numeric"
-          defaultValue={q.maxLength}
-          onBlur={(e) =>
-            onChange({ ...q, maxLength: Math.max(1, Math.min(2000, num(e.target.value) || 500)) })
-          }
+          required
+          integer
+          range={{ min: 1, max: 2000 }}
+          value={q.maxLength}
+          onCommit={(n) => onChange({ ...q, maxLength: n ?? q.maxLength })}
         />
       )}
     </div>

@@ -3,13 +3,11 @@
  * is checked with the rest of the questionnaire (shared/survey/skip-logic.ts) before saving.
  */
 import { CheckboxField } from '@/components/ui/checkbox-field';
-import { SelectField, TextField } from '@/components/ui/field';
+import { SelectField } from '@/components/ui/field';
+import { NumberTextField } from '@/components/ui/number-text-field';
 import type { Question, ShowIf } from '@shared/schemas/questionnaire';
 import { OptionCheckboxes } from './option-checkboxes';
 import { Options } from '@/components/ui/options';
-
-const numberOrNull = (v: string) =>
-  v.trim() === '' || !Number.isFinite(Number(v)) ? null : Number(v);
 
 const emptyRule = (q: Question): ShowIf => ({
   questionKey: q.key,
@@ -67,17 +65,15 @@ export function ShowIfFields({
           )}
           {source?.type === 'number' && (
             <div className="grid grid-cols-2 gap-3">
-              <TextField
+              <NumberTextField
                 label="is at least (empty: no limit)"
-                inputMode="decimal"
-                defaultValue={showIf.min ?? ''}
-                onBlur={(e) => onChange({ ...showIf, min: numberOrNull(e.target.value) })}
+                value={showIf.min}
+                onCommit={(min) => onChange({ ...showIf, min })}
               />
-              <TextField
+              <NumberTextField
                 label="and at most (empty: no limit)"
-                inputMode="decimal"
-                defaultValue={showIf.max ?? ''}
-                onBlur={(e) => onChange({ ...showIf, max: numberOrNull(e.target.value) })}
+                value={showIf.max}
+                onCommit={(max) => onChange({ ...showIf, max })}
               />
             </div>
           )}

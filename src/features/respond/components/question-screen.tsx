@@ -5,6 +5,7 @@ import type { AnswerValue, RespondentScreen } from '@shared/schemas/respondent';
 import type { Question } from '@shared/schemas/questionnaire';
 import { NextBar, ScreenFrame } from './screen-frame';
 import { useInterfaceText } from '@/lib/interface-texts';
+import { readTypedNumber } from '@/lib/typed-number';
 
 type Props = {
   screen: Extract<RespondentScreen, { kind: 'question' }>;
@@ -30,12 +31,12 @@ function toValue(
       if (raw.multiple.length === 0 && q.required) return { error: t('ui.answers_required') };
       return { value: { kind: 'multiple', optionIds: raw.multiple } };
     case 'number': {
-      if (raw.number.trim() === '')
+      const n = readTypedNumber(raw.number);
+      if (n === null)
         return q.required
           ? { error: t('ui.number_required') }
           : { value: { kind: 'number', number: null } };
-      const n = Number(raw.number.replace(',', '.'));
-      if (!Number.isFinite(n) || n < q.min || n > q.max)
+      if (Number.isNaN(n) || n < q.min || n > q.max)
         return { error: t('ui.number_range', { min: q.min, max: q.max }) };
       if (q.integer && !Number.isInteger(n)) return { error: t('ui.whole_number') };
       return { value: { kind: 'number', number: n } };

@@ -28,4 +28,22 @@ describe('QuestionFields settings', () => {
     await user.click(whole);
     expect(onChange).toHaveBeenLastCalledWith({ ...household, integer: false });
   });
+
+  it('saves the range as typed, a decimal comma included, and never a number other than the one shown', async () => {
+    const onChange = vi.fn();
+    render(<QuestionFields question={household} onChange={onChange} />);
+    const user = userEvent.setup();
+    const highest = screen.getByLabelText('Highest');
+    await user.clear(highest);
+    await user.type(highest, '12,5');
+    await user.tab();
+    expect(onChange).toHaveBeenLastCalledWith({ ...household, max: 12.5 });
+    onChange.mockClear();
+    const lowest = screen.getByLabelText('Lowest');
+    await user.clear(lowest);
+    await user.type(lowest, 'one');
+    await user.tab();
+    expect(onChange).not.toHaveBeenCalled();
+    expect(lowest).toHaveAccessibleDescription('Enter a number, such as 2.5 or 2,5');
+  });
 });

@@ -4,6 +4,7 @@
  */
 import { designSpecSchema, type DesignSpec } from '@shared/schemas/design-spec';
 import type { CodedColumn } from '@shared/engine/coding/coded-columns';
+import { readTypedNumber } from '@/lib/typed-number';
 
 export type PriorInputs = Record<string, { mean: string; sd: string }>;
 
@@ -46,7 +47,8 @@ export const defaultDesignForm: DesignFormValues = {
   maxOverlap: '',
 };
 
-const num = (s: string) => (s.trim() === '' ? Number.NaN : Number(s));
+/** A setting typed as text (a decimal comma read as a point); empty or not a number is NaN. */
+const num = (s: string) => readTypedNumber(s) ?? Number.NaN;
 
 export function buildDesignSpec(
   v: DesignFormValues,

@@ -52,6 +52,24 @@ describe('buildDesignSpec', () => {
     });
   });
 
+  it('reads priors and settings typed with a decimal comma as with a point', () => {
+    const typed = (mean: string, sd: string, tValue: string) =>
+      buildDesignSpec(
+        {
+          ...defaultDesignForm,
+          priorsKind: 'bayesian',
+          criterion: 's_estimate',
+          tValue,
+          draws: '100',
+          priors: { 'attr:bill': { mean, sd } },
+        },
+        columns,
+      );
+    const comma = typed('-0,1', '0,05', '1,96');
+    expect(comma.ok).toBe(true);
+    expect(comma).toEqual(typed('-0.1', '0.05', '1.96'));
+  });
+
   it('when a prior SD is negative or a mean is not a number, names that column', () => {
     const out = buildDesignSpec(
       {

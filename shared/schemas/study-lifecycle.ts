@@ -16,13 +16,18 @@ const redirectUrl = z
   .refine((s) => /^https?:\/\//i.test(s), 'Use an http:// or https:// address')
   .nullable();
 
-const mailSenderName = z
+/** The name invitation e-mails come from (the settings form checks the same rule). */
+export const mailSenderNameSchema = z
   .string()
   .trim()
   .min(1, 'Enter a name, or leave it empty')
   .max(80, 'Use at most 80 characters')
   .regex(/^[^<>"\r\n]*$/, 'No angle brackets, quotes or line breaks');
 const mailReplyTo = emailSchema;
+/** The panel pass-through parameter's name in a link (the settings form checks the same rule). */
+export const panelParamSchema = z
+  .string()
+  .regex(/^[A-Za-z][A-Za-z0-9_]{0,29}$/, 'Letters, digits and _, starting with a letter');
 
 export const closedReasonSchema = z.enum(['manual', 'date', 'quota']);
 export type ClosedReason = z.infer<typeof closedReasonSchema>;
@@ -33,10 +38,7 @@ export const fieldworkSettingsSchema = z.looseObject({
   /** Close automatically when this many respondents have completed. */
   quotaCompletes: z.number().int().min(1).max(1_000_000).nullable().default(null),
   /** Name of the panel pass-through parameter in the link, stored as the respondent's external id. */
-  panelParam: z
-    .string()
-    .regex(/^[A-Za-z][A-Za-z0-9_]{0,29}$/, 'Letters, digits and _, starting with a letter')
-    .default('pid'),
+  panelParam: panelParamSchema.default('pid'),
   /** Where respondents go when they finish; {pid} is replaced by their external id. */
   redirects: z
     .object({
@@ -53,7 +55,7 @@ export const fieldworkSettingsSchema = z.looseObject({
   /** A returning panel id resumes its own session instead of starting a second respondent. */
   dedupePanelIds: z.boolean().default(true),
   /** Invitation e-mails: the name they come from, and where replies go. */
-  mailSenderName: mailSenderName.nullable().default(null),
+  mailSenderName: mailSenderNameSchema.nullable().default(null),
   mailReplyTo: mailReplyTo.nullable().default(null),
   closedReason: closedReasonSchema.nullable().default(null),
   closedAt: z.string().nullable().default(null),
@@ -74,7 +76,7 @@ export const updateFieldworkSettingsSchema = z
     }),
     lateAnswerGraceHours,
     dedupePanelIds: z.boolean(),
-    mailSenderName: mailSenderName.nullable(),
+    mailSenderName: mailSenderNameSchema.nullable(),
     mailReplyTo: mailReplyTo.nullable(),
   })
   .partial()

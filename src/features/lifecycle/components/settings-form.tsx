@@ -4,7 +4,11 @@ import { z } from 'zod';
 import { Button } from '@/components/ui/button';
 import { Alert } from '@/components/ui/feedback';
 import { applyFieldErrors } from '@/lib/api-client';
-import type { FieldworkSettings } from '@shared/schemas/study-lifecycle';
+import {
+  mailSenderNameSchema,
+  panelParamSchema,
+  type FieldworkSettings,
+} from '@shared/schemas/study-lifecycle';
 import { emailSchema } from '@shared/schemas/email';
 import { useUpdateSettings } from '../api/update-settings';
 import { FormTextFields, type TextFieldSpec } from '@/components/ui/form-text-fields';
@@ -13,9 +17,7 @@ import { FormTextFields, type TextFieldSpec } from '@/components/ui/form-text-fi
 const formSchema = z.object({
   closeAt: z.string(),
   quotaCompletes: z.string().regex(/^\d*$/, 'A whole number of completes, or empty for no quota'),
-  panelParam: z
-    .string()
-    .regex(/^[A-Za-z][A-Za-z0-9_]{0,29}$/, 'Letters, digits and _, starting with a letter'),
+  panelParam: panelParamSchema,
   dedupePanelIds: z.boolean(),
   lateAnswerGraceHours: z
     .string()
@@ -26,8 +28,8 @@ const formSchema = z.object({
   overQuota: z.string(),
   mailSenderName: z
     .string()
-    .max(80, 'Use at most 80 characters')
-    .regex(/^[^<>"]*$/, 'No angle brackets or quotes'),
+    .trim()
+    .pipe(z.union([z.literal(''), mailSenderNameSchema])),
   mailReplyTo: z
     .string()
     .trim()

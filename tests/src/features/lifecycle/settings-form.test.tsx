@@ -75,3 +75,25 @@ describe('SettingsForm: panel ids and late answers', () => {
     });
   });
 });
+
+describe('SettingsForm: invitation e-mails', () => {
+  it('sends the reply-to address as typed with spaces and capitals, trimmed and lower-cased', async () => {
+    patch.mockResolvedValue({});
+    renderForm();
+    await userEvent.type(
+      screen.getByLabelText('Replies to invitations go to'),
+      ' Ana@Example.org ',
+    );
+    await userEvent.click(screen.getByRole('button', { name: 'Save settings' }));
+    await waitFor(() => expect(patch).toHaveBeenCalledTimes(1));
+    expect(patch.mock.calls[0][1]).toMatchObject({ mailReplyTo: 'ana@example.org' });
+  });
+
+  it('refuses a sender name the server would refuse, with the server’s message, sending nothing', async () => {
+    renderForm();
+    await userEvent.type(screen.getByLabelText('Invitation e-mails come from'), 'Larkspur <Water>');
+    await userEvent.click(screen.getByRole('button', { name: 'Save settings' }));
+    expect(await screen.findByText('No angle brackets, quotes or line breaks')).toBeInTheDocument();
+    expect(patch).not.toHaveBeenCalled();
+  });
+});

@@ -118,21 +118,21 @@ export type InviteeList = z.infer<typeof inviteeListSchema>;
  * Optional wording of the e-mail, with {name}, {study} and {duration} placeholders; the
  * personal and unsubscribe links are always added.
  */
+export const mailSubjectSchema = z
+  .string()
+  .trim()
+  .min(1, 'Enter a subject')
+  .max(150, 'Use at most 150 characters')
+  .superRefine(knownPlaceholdersOnly);
+export const mailMessageSchema = z
+  .string()
+  .trim()
+  .min(1, 'Enter a message')
+  .max(4000, 'Use at most 4000 characters')
+  .superRefine(knownPlaceholdersOnly);
 export const mailWordingSchema = z.object({
-  subject: z
-    .string()
-    .trim()
-    .min(1, 'Enter a subject')
-    .max(150)
-    .superRefine(knownPlaceholdersOnly)
-    .optional(),
-  message: z
-    .string()
-    .trim()
-    .min(1, 'Enter a message')
-    .max(4000)
-    .superRefine(knownPlaceholdersOnly)
-    .optional(),
+  subject: mailSubjectSchema.optional(),
+  message: mailMessageSchema.optional(),
 });
 const mailWording = mailWordingSchema.shape;
 

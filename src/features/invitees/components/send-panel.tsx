@@ -14,24 +14,16 @@ import { Alert } from '@/components/ui/feedback';
 import { ErrorText } from '@/components/ui/error-boundary';
 import { TextAreaField, TextField } from '@/components/ui/field';
 import { useConfirm } from '@/components/ui/confirm-dialog';
-import { knownPlaceholdersOnly } from '@shared/mail/invitation-wording';
-import type { SendResult } from '@shared/schemas/invitees';
+import { emptyOr } from '@shared/schemas/empty-or';
+import { mailMessageSchema, mailSubjectSchema, type SendResult } from '@shared/schemas/invitees';
 import { MailPreview } from './mail-preview';
 import { useSendInvitations } from '../api/send-invitations';
 import { useSendReminders } from '../api/send-reminders';
 import { formField } from '@/components/ui/form-field';
 
 const wordingSchema = z.object({
-  subject: z
-    .string()
-    .trim()
-    .max(150, 'Use at most 150 characters')
-    .superRefine(knownPlaceholdersOnly),
-  message: z
-    .string()
-    .trim()
-    .max(4000, 'Use at most 4000 characters')
-    .superRefine(knownPlaceholdersOnly),
+  subject: emptyOr(mailSubjectSchema),
+  message: emptyOr(mailMessageSchema),
 });
 type Wording = z.infer<typeof wordingSchema>;
 

@@ -10,6 +10,7 @@ import {
   type FieldworkSettings,
 } from '@shared/schemas/study-lifecycle';
 import { emailSchema } from '@shared/schemas/email';
+import { emptyOr } from '@shared/schemas/empty-or';
 import { useUpdateSettings } from '../api/update-settings';
 import { FormTextFields, type TextFieldSpec } from '@/components/ui/form-text-fields';
 
@@ -26,14 +27,8 @@ const formSchema = z.object({
   complete: z.string(),
   screenedOut: z.string(),
   overQuota: z.string(),
-  mailSenderName: z
-    .string()
-    .trim()
-    .pipe(z.union([z.literal(''), mailSenderNameSchema])),
-  mailReplyTo: z
-    .string()
-    .trim()
-    .pipe(z.union([z.literal(''), emailSchema])),
+  mailSenderName: emptyOr(mailSenderNameSchema),
+  mailReplyTo: emptyOr(emailSchema),
 });
 type FormValues = z.infer<typeof formSchema>;
 

@@ -17,8 +17,7 @@ import { useConfirm } from '@/components/ui/confirm-dialog';
 import { emptyOr } from '@shared/schemas/empty-or';
 import { mailMessageSchema, mailSubjectSchema, type SendResult } from '@shared/schemas/invitees';
 import { MailPreview } from './mail-preview';
-import { useSendInvitations } from '../api/send-invitations';
-import { useSendReminders } from '../api/send-reminders';
+import { useSendInvitations, useSendReminders } from '../api/send-mail';
 import { formField } from '@/components/ui/form-field';
 
 const wordingSchema = z.object({

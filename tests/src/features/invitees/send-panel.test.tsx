@@ -1,12 +1,16 @@
 // @vitest-environment jsdom
 import '@testing-library/jest-dom/vitest';
-import { afterEach, describe, expect, it } from 'vitest';
-import { cleanup, screen } from '@testing-library/react';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { cleanup, screen, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describeSend, SendPanel } from '@/features/invitees/components/send-panel';
+import { api } from '@/lib/api-client';
 import { renderWithQuery } from '../../support/render';
 
-afterEach(cleanup);
+afterEach(() => {
+  cleanup();
+  vi.restoreAllMocks();
+});
 
 const props = {
   teamId: 't',
@@ -68,6 +72,27 @@ describe('SendPanel wording and confirmation', () => {
     renderWithQuery(<SendPanel {...props} notInvited={0} />);
     expect(screen.getByRole('button', { name: 'Send invitations' })).toBeDisabled();
     expect(screen.getByRole('button', { name: 'Send reminders' })).toBeEnabled();
+  });
+});
+
+describe('SendPanel sends', () => {
+  it('posts invitations to send and reminders to remind, each with the wording typed', async () => {
+    const post = vi
+      .spyOn(api, 'post')
+      .mockResolvedValue({ sent: 1, queued: 0, failed: 0, skipped: 0 });
+    const user = userEvent.setup();
+    renderWithQuery(<SendPanel {...props} />);
+    await user.click(screen.getByText('Change the wording'));
+    await user.type(screen.getByLabelText('Subject'), 'About {{study}');
+    await user.click(screen.getByRole('button', { name: 'Send invitations' }));
+    await user.click(await screen.findByRole('button', { name: 'Send 5 invitations' }));
+    await user.click(screen.getByRole('button', { name: 'Send reminders' }));
+    const dialog = await screen.findByRole('dialog', { name: /Send reminders/ });
+    await user.click(within(dialog).getByRole('button', { name: 'Send reminders' }));
+    expect(post.mock.calls.map(([path, body]) => [path, body])).toEqual([
+      ['/teams/t/studies/s/invitees/send', { subject: 'About {study}' }],
+      ['/teams/t/studies/s/invitees/remind', { subject: 'About {study}' }],
+    ]);
   });
 });
 

@@ -15,6 +15,7 @@
  * where it needs a number (docs/methods.md, "Imported choice data").
  */
 import { Readable } from 'node:stream';
+import { parse } from 'csv-parse/sync';
 
 export type CsvDelimiter = ',' | ';' | '\t';
 
@@ -52,6 +53,57 @@ export function withDecimalPoint(cell: string, delimiter: CsvDelimiter): string 
   if (delimiter !== ';') return cell;
   const trimmed = cell.trim();
   return DECIMAL_COMMA.test(trimmed) ? trimmed.replace(DECIMAL_COMMA, '$1.$2') : cell;
+}
+
+/** One record of an uploaded CSV and the line it starts on (the header is line 1). */
+export type CsvRecord = { record: string[]; line: number };
+
+/**
+ * How many lines a record takes beyond its first: one for each line break inside its quoted
+ * cells (a CRLF one counts once). Records are numbered here rather than with csv-parse's `info`,
+ * which counts the CR and the LF of a quoted CRLF as two lines.
+ */
+export function extraLinesOf(record: readonly string[]): number {
+  let extra = 0;
+  for (const cell of record)
+    for (let at = cell.indexOf('\n'); at >= 0; at = cell.indexOf('\n', at + 1)) extra++;
+  return extra;
+}
+
+/** An empty line (or, trimmed, one of spaces only) as csv-parse returns it. */
+export const isEmptyRecord = (record: readonly string[]) => record.length === 1 && record[0] === '';
+
+/**
+ * The records of an uploaded CSV text, read as it is written (see the file comment), each with
+ * the line it starts on as an editor numbers lines: empty lines (skipped) and line breaks inside
+ * quoted cells count. With `sameFieldCount`, a record with another number of fields than the
+ * header is refused. Throws csv-parse's error for text that is not CSV (an unclosed quote, say),
+ * and an error of the same shape for a wrong field count: its `lines` is the line concerned.
+ */
+export function readCsvText(
+  text: string,
+  options: { trim: boolean; sameFieldCount: boolean },
+): CsvRecord[] {
+  const rows = parse(text, {
+    ...csvDialectOf(text),
+    trim: options.trim,
+    relax_column_count: true,
+  }) as string[][];
+  const records: CsvRecord[] = [];
+  let next = 1;
+  for (const record of rows) {
+    const line = next;
+    next += 1 + extraLinesOf(record);
+    if (isEmptyRecord(record)) continue;
+    const fields = records[0]?.record.length;
+    if (options.sameFieldCount && fields !== undefined && record.length !== fields)
+      throw Object.assign(
+        new Error(`line ${line} has ${record.length} fields; the header has ${fields}`),
+        { lines: line },
+      );
+    records.push({ record, line });
+  }
+  return records;
 }
 
 /** Enough of a file's start to hold its header line, for all but absurd headers. */

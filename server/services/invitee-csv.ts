@@ -3,8 +3,7 @@
  * row names the columns (e-mail required; name and external id optional, in any order); the
  * separator is detected (comma, semicolon or tab, as spreadsheet programs write them).
  */
-import { parse } from 'csv-parse/sync';
-import { csvDialectOf } from '../lib/csv-dialect';
+import { readCsvText, type CsvRecord } from '../lib/csv-dialect';
 import {
   INVITEE_CSV_MAX_ROWS,
   inviteeRowSchema,
@@ -49,15 +48,9 @@ export function readInviteeCsv(bytes: Buffer, existingEmails: Set<string>): Invi
   if (bytes.length === 0) return fileIssue('The file is empty.');
   if (bytes.includes(0)) return fileIssue('This is not a CSV text file (it contains binary data).');
   const text = bytes.toString('utf8');
-  let records: Array<{ record: string[]; info: { lines: number } }>;
+  let records: CsvRecord[];
   try {
-    records = parse(text, {
-      ...csvDialectOf(text),
-      info: true,
-      skip_empty_lines: true,
-      relax_column_count: true,
-      trim: true,
-    }) as unknown as typeof records;
+    records = readCsvText(text, { trim: true, sameFieldCount: false });
   } catch (err) {
     const line = Number((err as { lines?: number }).lines) || 1;
     return fileIssue(`The file could not be read as CSV: ${(err as Error).message}`, line);
@@ -102,8 +95,7 @@ export function readInviteeCsv(bytes: Buffer, existingEmails: Set<string>): Invi
   const seenEmail = new Map<string, number>();
   const seenExternal = new Map<string, number>();
   const headerOf = (f: Field) => headers[index[f]!];
-  for (const { record, info } of body) {
-    const row = info.lines;
+  for (const { record, line: row } of body) {
     const cell = (f: Field) => (index[f] === undefined ? undefined : (record[index[f]!] ?? ''));
     const parsed = inviteeRowSchema.safeParse({
       email: cell('email'),

@@ -7,8 +7,13 @@
  * for numeric attributes, the numeric value (with a decimal comma in a semicolon-separated file,
  * server/lib/csv-dialect.ts).
  */
-import { parse } from 'csv-parse/sync';
-import { csvDialectOf, withDecimalPoint, type CsvDelimiter } from '../../lib/csv-dialect';
+import {
+  csvDialectOf,
+  readCsvText,
+  withDecimalPoint,
+  type CsvDelimiter,
+  type CsvRecord,
+} from '../../lib/csv-dialect';
 import { unescapeCsvText } from '../../lib/safe-csv';
 import type { Design } from '../../../shared/schemas/design';
 import type { StudyDefinition } from '../../../shared/schemas/study-definition';
@@ -47,11 +52,11 @@ function findLevelId(
 
 function readTasks(
   definition: StudyDefinition,
-  records: string[][],
+  records: CsvRecord[],
   delimiter: CsvDelimiter,
   errors: CsvRowError[],
 ) {
-  const header = records[0].map((h) => unescapeCsvText(h.trim()));
+  const header = records[0].record.map((h) => unescapeCsvText(h.trim()));
   const column = (name: string) => header.findIndex((h) => h.toLowerCase() === name.toLowerCase());
   const fixed = ['block', 'task', 'alternative'].map(column);
   const attributeColumns = definition.attributes.map((a) => column(a.name));
@@ -81,8 +86,7 @@ function readTasks(
       alternatives: Map<number, { row: number; levels: Record<string, string> }>;
     }
   >();
-  records.slice(1).forEach((record, i) => {
-    const row = i + 2;
+  records.slice(1).forEach(({ record, line: row }) => {
     const int = (name: string, index: number) => {
       const value = Number((record[index] ?? '').trim());
       if (!Number.isInteger(value) || value < 1) {
@@ -169,15 +173,10 @@ function checkTask(
 
 /** Parses a design CSV against a study definition; see the file comment. */
 export function importDesignCsv(definition: StudyDefinition, text: string): DesignCsvImport {
-  const dialect = csvDialectOf(text);
-  let records: string[][];
+  const { delimiter } = csvDialectOf(text);
+  let records: CsvRecord[];
   try {
-    records = parse(text, {
-      ...dialect,
-      skip_empty_lines: true,
-      relax_column_count: true,
-      trim: false,
-    }) as string[][];
+    records = readCsvText(text, { trim: false, sameFieldCount: false });
   } catch (error) {
     const line = (error as { lines?: number }).lines ?? 1;
     return { ok: false, errors: [{ row: line, column: null, message: (error as Error).message }] };
@@ -188,7 +187,7 @@ export function importDesignCsv(definition: StudyDefinition, text: string): Desi
       errors: [{ row: 1, column: null, message: 'The file has no design rows' }],
     };
   const errors: CsvRowError[] = [];
-  const tasks = readTasks(definition, records, dialect.delimiter, errors);
+  const tasks = readTasks(definition, records, delimiter, errors);
   if (tasks) for (const [taskNo, task] of tasks) checkTask(definition, taskNo, task, errors);
   const blocks = tasks ? Math.max(...[...tasks.values()].map((t) => t.block)) : 0;
   if (tasks && blocks > 50) errors.push({ row: 1, column: 'block', message: 'At most 50 blocks' });

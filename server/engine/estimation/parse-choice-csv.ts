@@ -7,29 +7,24 @@
  * header is line 1) and the column. Comma, semicolon or tab separated, as the header line shows,
  * with decimal commas in a semicolon file (server/lib/csv-dialect.ts).
  */
-import { parse } from 'csv-parse/sync';
-import { csvDialectOf, withDecimalPoint } from '../../lib/csv-dialect';
+import { csvDialectOf, readCsvText, withDecimalPoint, type CsvRecord } from '../../lib/csv-dialect';
 import { ChoiceDataError, type LongChoiceRow } from './choice-data';
 
 const REQUIRED = ['respondent', 'task', 'alt', 'chosen'] as const;
 
 /** Parses the CSV and returns rows with `values` in the order of `columns`. */
 export function parseChoiceCsv(text: string, columns: readonly string[]): LongChoiceRow[] {
-  const dialect = csvDialectOf(text);
-  let records: string[][];
+  const { delimiter } = csvDialectOf(text);
+  let records: CsvRecord[];
   try {
-    records = parse(text, {
-      ...dialect,
-      skip_empty_lines: true,
-      trim: true,
-      relax_column_count: false,
-    }) as string[][];
+    records = readCsvText(text, { trim: true, sameFieldCount: true });
   } catch (error) {
-    throw new ChoiceDataError(`the CSV cannot be read: ${(error as Error).message}`);
+    const line = (error as { lines?: number }).lines;
+    throw new ChoiceDataError(`the CSV cannot be read: ${(error as Error).message}`, line);
   }
   if (records.length < 2)
     throw new ChoiceDataError('the CSV needs a header line and at least one data line');
-  const header = records[0];
+  const header = records[0].record;
   const index = (name: string) => header.indexOf(name);
   for (const name of REQUIRED) {
     if (index(name) < 0)
@@ -48,8 +43,7 @@ export function parseChoiceCsv(text: string, columns: readonly string[]): LongCh
   const at = columns.map(index);
   const [respondentAt, taskAt, altAt, chosenAt] = REQUIRED.map(index);
   const rows: LongChoiceRow[] = [];
-  records.slice(1).forEach((record, i) => {
-    const line = i + 2;
+  records.slice(1).forEach(({ record, line }) => {
     if (includedAt >= 0) {
       const included = record[includedAt].toLowerCase();
       if (included === 'false' || included === '0') return;
@@ -62,7 +56,7 @@ export function parseChoiceCsv(text: string, columns: readonly string[]): LongCh
     }
     const numberAt = (col: number, name: string): number => {
       const raw = record[col];
-      const value = raw === '' ? NaN : Number(withDecimalPoint(raw, dialect.delimiter));
+      const value = raw === '' ? NaN : Number(withDecimalPoint(raw, delimiter));
       if (!Number.isFinite(value))
         throw new ChoiceDataError(
           `line ${line}: column ${name} is not a number ("${raw}")`,

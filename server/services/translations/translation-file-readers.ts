@@ -3,9 +3,8 @@
  * A file that is not what it claims to be, belongs to another study or carries another
  * language is refused whole with a field error (`file` or `language`).
  */
-import { parse } from 'csv-parse/sync';
 import { ValidationError } from '../../lib/errors';
-import { csvDialectOf } from '../../lib/csv-dialect';
+import { readCsvText, type CsvRecord } from '../../lib/csv-dialect';
 import { unescapeCsvText } from '../../lib/safe-csv';
 import { languageName } from '../../../shared/languages/language-tags';
 import { readXliff, XliffError } from './xliff';
@@ -14,14 +13,10 @@ import { readXliff, XliffError } from './xliff';
 export type FileText = { key: string; where: string; target: string; line: number };
 
 export function readCsvFile(content: string, source: string, lang: string): FileText[] {
-  let records: Array<{ record: string[]; info: { lines: number } }>;
+  let records: CsvRecord[];
   try {
-    // Every row must have the header's four columns (csv-parse's default).
-    records = parse(content, {
-      ...csvDialectOf(content),
-      skip_empty_lines: true,
-      info: true,
-    }) as never;
+    // Every row must have the header's four columns.
+    records = readCsvText(content, { trim: false, sameFieldCount: true });
   } catch (err) {
     throw new ValidationError('The CSV file cannot be read', [
       { path: 'file', message: (err as Error).message },
@@ -46,12 +41,11 @@ export function readCsvFile(content: string, source: string, lang: string): File
         message: `Export the ${languageName(lang)} file of this study and fill its last column`,
       },
     ]);
-  // info.lines is the line a record ends on; a quoted cell may span lines.
-  return body.map(({ record, info }) => ({
+  return body.map(({ record, line }) => ({
     key: record[0] ?? '',
     where: record[1] ?? '',
     target: unescapeCsvText(record[3] ?? ''),
-    line: info.lines,
+    line,
   }));
 }
 

@@ -138,6 +138,13 @@ describe('importDesignCsv', () => {
     expect(messages).toContain('4:block:Task 2 is already in block 1');
   });
 
+  it('names the row a problem stands on, counting an empty line before it', () => {
+    const result = importDesignCsv(definition, rows('', 'x,1,1,3,2,0,fair,80'));
+    expect(result.ok).toBe(false);
+    if (result.ok) return;
+    expect(result.errors.map((e) => `${e.row}:${e.column}`)).toContain('3:block');
+  });
+
   it('reports a gap in the block numbers', () => {
     const result = importDesignCsv(
       definition,

@@ -124,6 +124,14 @@ describe('parseChoiceCsv reads the long choice file', () => {
     expect(parseChoiceCsv(semicolons, ['x']).map((r) => r.values[0])).toEqual([2.5, 3]);
   });
 
+  it('names the line a bad value stands on, counting empty lines and line breaks in quotes', () => {
+    const text = 'respondent,task,alt,chosen,x\n1,1,1,1,2\n\n1,1,2,0,"a\nb"\n';
+    expect(() => parseChoiceCsv(text, ['x'])).toThrow('line 4: column x is not a number');
+    expect(() => parseChoiceCsv('respondent,task,alt,chosen,x\n\n1,1,1,1\n', ['x'])).toThrow(
+      expect.objectContaining({ line: 3 }),
+    );
+  });
+
   it('reads decimal commas in a semicolon file only, and names the line and column of any other', () => {
     const semicolons = 'respondent;task;alt;chosen;x\n1;1;1;1;2,5\n1;1;2;0;-0,25\n';
     expect(parseChoiceCsv(semicolons, ['x']).map((r) => r.values[0])).toEqual([2.5, -0.25]);

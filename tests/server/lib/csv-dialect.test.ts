@@ -8,6 +8,7 @@ import { describe, expect, it } from 'vitest';
 import {
   csvDelimiterOf,
   csvDialectOfStream,
+  readCsvText,
   withDecimalPoint,
 } from '../../../server/lib/csv-dialect';
 
@@ -44,6 +45,45 @@ describe('withDecimalPoint', () => {
     ['2,5', '\t', '2,5'],
   ])('%j in a file separated by %j reads %j', (cell, delimiter, read) => {
     expect(withDecimalPoint(cell, delimiter as ',' | ';' | '\t')).toBe(read);
+  });
+});
+
+describe('readCsvText', () => {
+  const lines = (text: string, sameFieldCount = false) =>
+    readCsvText(text, { trim: true, sameFieldCount }).map((r) => [r.line, r.record]);
+
+  it('numbers records by the line they start on, as an editor numbers lines', () => {
+    // Line 3 is empty; the quoted cell of line 4 runs into line 5.
+    const expected = [
+      [1, ['a', 'b']],
+      [2, ['1', '2']],
+      [4, ['3', 'x\ny']],
+      [6, ['4', '5']],
+    ];
+    expect(lines('a,b\n1,2\n\n3,"x\ny"\n4,5')).toEqual(expected);
+    // The same with CRLF line ends: the quoted CRLF counts once.
+    expect(lines('a,b\r\n1,2\r\n\r\n3,"x\r\ny"\r\n4,5\r\n')).toEqual(
+      expected.map(([line, record]) => [
+        line,
+        (record as string[]).map((c) => c.replace('\n', '\r\n')),
+      ]),
+    );
+    expect(lines('a;b\n\n  \n1;2\n')).toEqual([
+      [1, ['a', 'b']],
+      [4, ['1', '2']],
+    ]);
+  });
+
+  it('names the line of a record with another field count, and of an unclosed quote', () => {
+    expect(() => lines('a,b\n1,2\n\n3\n', true)).toThrow(
+      expect.objectContaining({ lines: 4, message: 'line 4 has 1 fields; the header has 2' }),
+    );
+    expect(lines('a,b\n1,2\n\n3\n')).toEqual([
+      [1, ['a', 'b']],
+      [2, ['1', '2']],
+      [4, ['3']],
+    ]);
+    expect(() => lines('a,b\n1,"2\n')).toThrow(expect.objectContaining({ lines: 2 }));
   });
 });
 

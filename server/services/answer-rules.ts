@@ -2,6 +2,8 @@
 import { ValidationError } from '../lib/errors';
 import type { AnswerValue, RespondentScreen } from '../../shared/schemas/respondent';
 import type { QuestionnairePage } from '../../shared/schemas/questionnaire';
+import { englishInterfaceTexts, fillText } from '../../shared/languages/interface-texts';
+import { questionAnswerProblem } from '../../shared/survey/question-answer';
 
 const invalid = (message: string) =>
   new ValidationError(message, [{ path: 'value', message }], 'invalid_answer');
@@ -33,34 +35,19 @@ export function checkAnswerValue(screen: RespondentScreen, value: AnswerValue): 
     case 'question': {
       const q = screen.question;
       if (value.kind !== q.type) throw invalid(`This question takes a ${q.type} answer.`);
-      if (value.kind === 'single' && q.type === 'single') {
-        if (value.optionId === null) {
-          if (q.required) throw invalid('Choose an answer.');
-        } else if (!q.options.some((o) => o.id === value.optionId))
-          throw invalid('Unknown option.');
-      }
+      const problem = questionAnswerProblem(q, value);
+      if (problem)
+        throw invalid(fillText(englishInterfaceTexts[problem.key], problem.values ?? {}));
+      if (value.kind === 'single' && q.type === 'single' && value.optionId !== null)
+        if (!q.options.some((o) => o.id === value.optionId)) throw invalid('Unknown option.');
       if (value.kind === 'multiple' && q.type === 'multiple') {
-        if (q.required && value.optionIds.length === 0)
-          throw invalid('Choose at least one answer.');
         if (new Set(value.optionIds).size !== value.optionIds.length)
           throw invalid('An option is listed twice.');
         if (value.optionIds.some((id) => !q.options.some((o) => o.id === id)))
           throw invalid('Unknown option.');
       }
-      if (value.kind === 'number' && q.type === 'number') {
-        if (value.number === null) {
-          if (q.required) throw invalid('Enter a number.');
-        } else {
-          if (value.number < q.min || value.number > q.max)
-            throw invalid(`Enter a number from ${q.min} to ${q.max}.`);
-          if (q.integer && !Number.isInteger(value.number)) throw invalid('Enter a whole number.');
-        }
-      }
-      if (value.kind === 'text' && q.type === 'text') {
-        if (q.required && value.text.trim() === '') throw invalid('Write an answer.');
-        if (value.text.length > q.maxLength)
-          throw invalid(`Keep the answer under ${q.maxLength} characters.`);
-      }
+      if (value.kind === 'text' && q.type === 'text' && value.text.length > q.maxLength)
+        throw invalid(`Keep the answer under ${q.maxLength} characters.`);
       return;
     }
   }

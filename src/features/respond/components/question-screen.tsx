@@ -6,6 +6,7 @@ import type { Question } from '@shared/schemas/questionnaire';
 import { NextBar, ScreenFrame } from './screen-frame';
 import { useInterfaceText } from '@/lib/interface-texts';
 import { readTypedNumber } from '@/lib/typed-number';
+import { questionAnswerProblem } from '@shared/survey/question-answer';
 
 type Props = {
   screen: Extract<RespondentScreen, { kind: 'question' }>;
@@ -23,28 +24,17 @@ function toValue(
   q: Question,
   raw: { single: string | null; multiple: string[]; number: string; text: string },
 ): { value: AnswerValue } | { error: string } {
-  switch (q.type) {
-    case 'single':
-      if (raw.single === null && q.required) return { error: t('ui.answer_required') };
-      return { value: { kind: 'single', optionId: raw.single } };
-    case 'multiple':
-      if (raw.multiple.length === 0 && q.required) return { error: t('ui.answers_required') };
-      return { value: { kind: 'multiple', optionIds: raw.multiple } };
-    case 'number': {
-      const n = readTypedNumber(raw.number);
-      if (n === null)
-        return q.required
-          ? { error: t('ui.number_required') }
-          : { value: { kind: 'number', number: null } };
-      if (Number.isNaN(n) || n < q.min || n > q.max)
-        return { error: t('ui.number_range', { min: q.min, max: q.max }) };
-      if (q.integer && !Number.isInteger(n)) return { error: t('ui.whole_number') };
-      return { value: { kind: 'number', number: n } };
-    }
-    case 'text':
-      if (raw.text.trim() === '' && q.required) return { error: t('ui.text_required') };
-      return { value: { kind: 'text', text: raw.text.slice(0, q.maxLength) } };
-  }
+  const value: AnswerValue =
+    q.type === 'single'
+      ? { kind: 'single', optionId: raw.single }
+      : q.type === 'multiple'
+        ? { kind: 'multiple', optionIds: raw.multiple }
+        : q.type === 'number'
+          ? { kind: 'number', number: readTypedNumber(raw.number) }
+          : { kind: 'text', text: raw.text.slice(0, q.maxLength) };
+  // The server checks the answer with the same rule (shared/survey/question-answer.ts).
+  const problem = questionAnswerProblem(q, value);
+  return problem ? { error: t(problem.key, problem.values) } : { value };
 }
 
 export function QuestionScreen({ screen, onAnswer, initial }: Props) {

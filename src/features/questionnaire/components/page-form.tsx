@@ -103,14 +103,14 @@ export function PageForm({
       {(page.kind === 'tasks' || page.kind === 'repeat') && titled}
       {page.kind === 'tasks' && <CertaintyFields page={page} onChange={onChange} />}
       {page.kind === 'repeat' && (
-        <TextField
+        <NumberTextField
           label="Repeat the respondent's task number"
-          inputMode="numeric"
-          defaultValue={page.repeatOf}
+          integer
+          required
+          range={{ min: 1, max: 100 }}
+          value={page.repeatOf}
           hint="1 repeats the first task they answered."
-          onBlur={(e) =>
-            onChange({ ...page, repeatOf: Math.max(1, Math.round(Number(e.target.value) || 1)) })
-          }
+          onCommit={(n) => onChange({ ...page, repeatOf: n ?? page.repeatOf })}
         />
       )}
       {(page.kind === 'warmup' || page.kind === 'holdout') && (

@@ -7,12 +7,10 @@ import { nanoid } from 'nanoid';
 import { Button } from '@/components/ui/button';
 import { Alert } from '@/components/ui/feedback';
 import { TextField } from '@/components/ui/field';
+import { NumberTextField } from '@/components/ui/number-text-field';
 import { OptionCheckboxes } from './option-checkboxes';
 import type { QuotaCell, ScreeningPage } from '@shared/schemas/questionnaire';
 import { acceptedRange, quotaProblems } from '@shared/survey/quota-cells';
-
-const whole = (v: string) =>
-  v.trim() === '' || !Number.isFinite(Number(v)) ? null : Math.round(Number(v));
 
 export const quotaHelp =
   'Set how many completes you need from each group. Once a group is full, its next respondents leave at this question as over quota (and go to the panel’s over-quota link, if set). Every accepted answer must belong to exactly one group.';
@@ -63,11 +61,13 @@ export function QuotaFields({
               value={cell.label}
               onChange={(e) => setCell(cell.id, { label: e.target.value })}
             />
-            <TextField
+            <NumberTextField
               label="Completes wanted"
-              inputMode="numeric"
-              defaultValue={cell.target}
-              onBlur={(e) => setCell(cell.id, { target: whole(e.target.value) ?? 1 })}
+              integer
+              required
+              range={{ min: 1, max: 1_000_000 }}
+              value={cell.target}
+              onCommit={(target) => setCell(cell.id, { target: target ?? cell.target })}
             />
           </div>
           {q.type === 'single' ? (
@@ -80,17 +80,17 @@ export function QuotaFields({
             </div>
           ) : (
             <div className="grid grid-cols-2 gap-3">
-              <TextField
+              <NumberTextField
                 label="From"
-                inputMode="numeric"
-                defaultValue={cell.from ?? ''}
-                onBlur={(e) => setCell(cell.id, { from: whole(e.target.value) })}
+                integer
+                value={cell.from}
+                onCommit={(from) => setCell(cell.id, { from })}
               />
-              <TextField
+              <NumberTextField
                 label="To (inclusive)"
-                inputMode="numeric"
-                defaultValue={cell.to ?? ''}
-                onBlur={(e) => setCell(cell.id, { to: whole(e.target.value) })}
+                integer
+                value={cell.to}
+                onCommit={(to) => setCell(cell.id, { to })}
               />
             </div>
           )}

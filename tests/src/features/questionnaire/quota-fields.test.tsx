@@ -47,4 +47,22 @@ describe('QuotaFields', () => {
     expect(screen.queryByRole('status')).toBeNull();
     expect(latest.quotaCells.map((c) => c.optionIds)).toEqual([['north'], ['south']]);
   });
+
+  it('keeps the completes wanted as typed, and refuses text or a fraction instead of guessing', async () => {
+    const user = userEvent.setup();
+    render(<Harness />);
+    await user.click(screen.getByRole('button', { name: 'Add a quota group' }));
+    const wanted = screen.getByLabelText('Completes wanted');
+    await user.clear(wanted);
+    await user.type(wanted, '150');
+    await user.tab();
+    expect(latest.quotaCells[0].target).toBe(150);
+    for (const typed of ['many', '12,5', '0']) {
+      await user.clear(wanted);
+      await user.type(wanted, typed);
+      await user.tab();
+      expect(wanted).toHaveAttribute('aria-invalid', 'true');
+      expect(latest.quotaCells[0].target).toBe(150);
+    }
+  });
 });

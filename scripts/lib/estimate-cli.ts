@@ -18,12 +18,14 @@ import {
 import { parseChoiceCsv } from '../../server/engine/estimation/parse-choice-csv';
 import { getSpecColumns, runEstimation } from '../../server/engine/estimation/run-estimation';
 import { extractRespondentCovariates } from '../../server/engine/latent-class/respondent-covariates';
+import { decodeText } from '../../shared/text/decode-text';
 
 class UsageError extends Error {}
 
 function readText(path: string, what: string): string {
   try {
-    return readFileSync(path, 'utf8');
+    // As the app reads an upload: UTF-8, or Windows-1252 when the bytes are not UTF-8.
+    return decodeText(readFileSync(path));
   } catch (error) {
     throw new UsageError(
       `cannot read the ${what} file ${path}: ${(error as NodeJS.ErrnoException).code ?? (error as Error).message}`,

@@ -3,6 +3,7 @@ import type { Router } from 'express';
 import type { AppDeps } from '../deps';
 import { createTeamRouter } from './team-router';
 import { acceptOneFile, requireFile } from '../middleware/upload';
+import { decodeText } from '../../shared/text/decode-text';
 import { designJobParamsSchema } from '../../shared/schemas/design-job';
 import { designSpecSchema } from '../../shared/schemas/design-spec';
 import * as designs from '../services/designs';
@@ -33,7 +34,7 @@ export function createDesignsRouter(deps: AppDeps): Router {
     use: [acceptOneFile('file', MAX_CSV_BYTES)],
     status: 201,
     run: ({ actor, params, req }) => {
-      const text = requireFile(req, 'file').buffer.toString('utf8');
+      const text = decodeText(requireFile(req, 'file').buffer);
       return designs.importDesign(deps, actor, params.studyId, text);
     },
   });

@@ -5,13 +5,13 @@
  * files; the save also takes the confirmed set-up as the JSON field `setup`. Creating a study
  * needs study:write.
  */
-import { createReadStream } from 'node:fs';
 import { Router, type Request, type RequestHandler } from 'express';
 import type { AppDeps } from '../deps';
 import { parseBody } from '../middleware/validate';
 import { actorOf, requireTeam, requireUser } from '../middleware/auth';
 import { acceptFilesOnDisk, removeUploadedFiles, uploadedFile } from '../middleware/upload';
 import { ValidationError } from '../lib/errors';
+import { openTextFile } from '../lib/text-file';
 import {
   importPreviewFieldsSchema,
   importSetupFieldSchema,
@@ -19,7 +19,7 @@ import {
 import * as studyImport from '../services/study-import';
 import type { ImportFiles } from '../services/study-import/analyse-import';
 
-function filesOf(req: Request): ImportFiles {
+async function filesOf(req: Request): Promise<ImportFiles> {
   const choices = uploadedFile(req, 'choices');
   if (!choices)
     throw new ValidationError('Choose the choice file to upload.', [
@@ -27,8 +27,8 @@ function filesOf(req: Request): ImportFiles {
     ]);
   const background = uploadedFile(req, 'background');
   return {
-    choices: createReadStream(choices.path),
-    background: background ? createReadStream(background.path) : null,
+    choices: await openTextFile(choices.path),
+    background: background ? await openTextFile(background.path) : null,
   };
 }
 
@@ -58,7 +58,7 @@ export function createStudyImportsRouter(deps: AppDeps): Router {
     receiveFiles,
     withUploads(async (req, res) => {
       const { setup } = parseBody(importPreviewFieldsSchema, req);
-      res.json(await studyImport.previewStudyImport(filesOf(req), setup ?? null));
+      res.json(await studyImport.previewStudyImport(await filesOf(req), setup ?? null));
     }),
   );
 
@@ -69,7 +69,9 @@ export function createStudyImportsRouter(deps: AppDeps): Router {
     withUploads(async (req, res) => {
       const { setup } = parseBody(importSetupFieldSchema, req);
       const actor = actorOf(req);
-      res.status(201).json(await studyImport.saveStudyImport(deps, actor, filesOf(req), setup));
+      res
+        .status(201)
+        .json(await studyImport.saveStudyImport(deps, actor, await filesOf(req), setup));
     }),
   );
 

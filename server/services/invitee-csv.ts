@@ -4,6 +4,7 @@
  * separator is detected (comma, semicolon or tab, as spreadsheet programs write them).
  */
 import { readCsvText, type CsvRecord } from '../lib/csv-dialect';
+import { decodeText } from '../../shared/text/decode-text';
 import {
   INVITEE_CSV_MAX_ROWS,
   inviteeRowSchema,
@@ -47,7 +48,7 @@ const fileIssue = (message: string, row = 1): InviteeCsvResult => ({
 export function readInviteeCsv(bytes: Buffer, existingEmails: Set<string>): InviteeCsvResult {
   if (bytes.length === 0) return fileIssue('The file is empty.');
   if (bytes.includes(0)) return fileIssue('This is not a CSV text file (it contains binary data).');
-  const text = bytes.toString('utf8');
+  const text = decodeText(bytes);
   let records: CsvRecord[];
   try {
     records = readCsvText(text, { trim: true, sameFieldCount: false });

@@ -95,6 +95,16 @@ describe('POST /invitees/preview', () => {
     ]);
   });
 
+  it('reads a list a Windows spreadsheet saved in Windows-1252 with its names intact', async () => {
+    const { studyId } = await insertStudy(t.deps.db, { teamId: team.teamId });
+    // latin1 and Windows-1252 agree on ø, Ø and ü (0xF8, 0xD8, 0xFC).
+    const bytes = Buffer.from('email;name\nwin@example.test;Søren Ødegård-Müller\n', 'latin1');
+    const res = await upload(team.agents.editor, `${base(studyId)}/preview`, bytes).expect(200);
+    expect(res.body.sample).toEqual([
+      { row: 2, email: 'win@example.test', name: 'Søren Ødegård-Müller', externalId: null },
+    ]);
+  });
+
   it.each([
     ['without an e-mail column', 'name,id\nAnn,1\n', /No e-mail column/],
     ['with only a header row', 'email,name\n', /no invitees/],

@@ -22,14 +22,14 @@ const countStudies = async () =>
 function upload(
   agent: supertest.Agent,
   url: string,
-  files: { choices?: string; background?: string },
+  files: { choices?: string | Buffer; background?: string | Buffer },
   setup?: unknown,
 ) {
   let req = agent.post(url);
   if (setup !== undefined)
     req = req.field('setup', typeof setup === 'string' ? setup : JSON.stringify(setup));
   for (const [field, text] of Object.entries(files))
-    req = req.attach(field, Buffer.from(text, 'utf8'), {
+    req = req.attach(field, typeof text === 'string' ? Buffer.from(text, 'utf8') : text, {
       filename: `${field}.csv`,
       contentType: 'text/csv',
     });
@@ -167,6 +167,24 @@ describe('POST /imports/preview', () => {
     });
     expect(body.background?.columns).toEqual([
       expect.objectContaining({ column: 'income', type: 'number' }),
+    ]);
+  });
+
+  it('reads a choice file a Windows spreadsheet saved in Windows-1252 with its levels intact', async () => {
+    // latin1 and Windows-1252 agree on é and è (0xE9, 0xE8).
+    const accents = small.replaceAll('poor', 'pollué').replaceAll('good', 'très bon');
+    const [utf8, windows] = await Promise.all(
+      [Buffer.from(accents, 'utf8'), Buffer.from(accents, 'latin1')].map(
+        async (choices) =>
+          (await upload(team.agents.editor, `${base()}/preview`, { choices }).expect(200))
+            .body as ImportPreview,
+      ),
+    );
+    expect(windows).toEqual(utf8);
+    expect(windows.attributes.find((a) => a.column === 'river')?.levels.map((l) => l.raw)).toEqual([
+      'pollué',
+      'très bon',
+      'fair',
     ]);
   });
 

@@ -7,6 +7,7 @@ import { useState } from 'react';
 import { Card } from '@/components/ui/feedback';
 import { FilePickButton } from '@/components/ui/file-pick-button';
 import { languageName } from '@shared/languages/language-tags';
+import { decodeText } from '@shared/text/decode-text';
 import type { TranslationFormat, TranslationImportReport } from '@shared/schemas/study-texts';
 import { translationFileHref, useImportTranslations } from '../api/import-translations';
 import { ImportRefusal, ImportReport } from './import-report';
@@ -51,7 +52,7 @@ export function TranslationFilesCard({ teamId, studyId, lang, canImport }: Props
       );
     if (file.size > MAX_BYTES) return setRefusal(new Error(`“${file.name}” is larger than 2 MB.`));
     try {
-      const content = await file.text();
+      const content = decodeText(new Uint8Array(await file.arrayBuffer()));
       setReport(await importer.mutateAsync({ lang, format, content }));
     } catch (err) {
       setRefusal(err as Error);

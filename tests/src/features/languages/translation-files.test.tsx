@@ -118,6 +118,21 @@ describe('TranslationFilesCard', () => {
     ]);
   });
 
+  it('reads a file a spreadsheet saved in Windows-1252 with its accented letters', async () => {
+    const { requests } = fakeFetch({ status: 200, body: { imported: 1, missing: [], extra: [] } });
+    const user = userEvent.setup();
+    renderWithQuery(<TranslationFilesCard {...props} />);
+    const csv = 'key,where,en,de\nstudy.title,Title,Water,Gewässer für Sie\n';
+    // Windows-1252 writes ä as 0xE4 and ü as 0xFC, one byte each (latin1 agrees on them).
+    const bytes = Buffer.from(csv, 'latin1');
+    await user.upload(
+      screen.getByLabelText('Import a file into German (de)'),
+      new File([new Uint8Array(bytes)], 'water-texts-en-de.csv', { type: 'text/csv' }),
+    );
+    expect(await screen.findByText('Imported 1 text into German (de).')).toBeVisible();
+    expect(requests[0].body).toEqual({ format: 'csv', content: csv });
+  });
+
   it('refuses a file that is neither XLIFF nor CSV without sending it', async () => {
     const { fn } = fakeFetch();
     const user = userEvent.setup({ applyAccept: false });

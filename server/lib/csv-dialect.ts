@@ -106,6 +106,14 @@ export function readCsvText(
   return records;
 }
 
+/**
+ * Where a column the product names (respondent, task, alt …) stands in a header, whatever the
+ * case of its heading: spreadsheets often capitalise headings. −1 when it is not there.
+ */
+export function keyColumnIndex(header: readonly string[], name: string): number {
+  return header.findIndex((heading) => heading.toLowerCase() === name);
+}
+
 /** Enough of a file's start to hold its header line, for all but absurd headers. */
 const HEAD_BYTES = 64 * 1024;
 

@@ -7,7 +7,13 @@
  * header is line 1) and the column. Comma, semicolon or tab separated, as the header line shows,
  * with decimal commas in a semicolon file (server/lib/csv-dialect.ts).
  */
-import { csvDialectOf, readCsvText, withDecimalPoint, type CsvRecord } from '../../lib/csv-dialect';
+import {
+  csvDialectOf,
+  keyColumnIndex,
+  readCsvText,
+  withDecimalPoint,
+  type CsvRecord,
+} from '../../lib/csv-dialect';
 import { ChoiceDataError, type LongChoiceRow } from './choice-data';
 
 const REQUIRED = ['respondent', 'task', 'alt', 'chosen'] as const;
@@ -25,9 +31,11 @@ export function parseChoiceCsv(text: string, columns: readonly string[]): LongCh
   if (records.length < 2)
     throw new ChoiceDataError('the CSV needs a header line and at least one data line');
   const header = records[0].record;
+  // The spec's attribute columns by their exact name; the file's own columns in any case.
   const index = (name: string) => header.indexOf(name);
+  const keyIndex = (name: string) => keyColumnIndex(header, name);
   for (const name of REQUIRED) {
-    if (index(name) < 0)
+    if (keyIndex(name) < 0)
       throw new ChoiceDataError(`the CSV header has no column "${name}"`, 1, name);
   }
   for (const name of columns) {
@@ -38,10 +46,10 @@ export function parseChoiceCsv(text: string, columns: readonly string[]): LongCh
         name,
       );
   }
-  const holdoutAt = index('holdout');
-  const includedAt = index('included');
+  const holdoutAt = keyIndex('holdout');
+  const includedAt = keyIndex('included');
   const at = columns.map(index);
-  const [respondentAt, taskAt, altAt, chosenAt] = REQUIRED.map(index);
+  const [respondentAt, taskAt, altAt, chosenAt] = REQUIRED.map(keyIndex);
   const rows: LongChoiceRow[] = [];
   records.slice(1).forEach(({ record, line }) => {
     if (includedAt >= 0) {

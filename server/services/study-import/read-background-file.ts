@@ -6,6 +6,7 @@
  * respondents given twice are problems with their line.
  */
 import type { Readable } from 'node:stream';
+import { keyColumnIndex } from '../../lib/csv-dialect';
 import { readCsvRecords } from './csv-records';
 import { questionKeyFromText } from '../../../shared/schemas/question-keys';
 import type {
@@ -49,7 +50,7 @@ export async function readBackgroundFile(
     await readCsvRecords(input, (record, line) => {
       if (header.length === 0) {
         header = record;
-        respondentAt = header.indexOf('respondent');
+        respondentAt = keyColumnIndex(header, 'respondent');
         if (respondentAt < 0) {
           add(1, 'respondent', 'missing_column', 'The header has no column “respondent”.');
           return false;

@@ -8,6 +8,7 @@
  * afterwards (choice-file-checks.ts).
  */
 import type { Readable } from 'node:stream';
+import { keyColumnIndex } from '../../lib/csv-dialect';
 import { readCsvRecords } from './csv-records';
 import {
   choiceFileKeyColumns,
@@ -56,7 +57,7 @@ export async function readChoiceFile(input: Readable): Promise<ChoiceFileScan> {
     await readCsvRecords(input, (record, line) => {
       if (scan.header.length === 0) {
         scan.header = record;
-        keyAt = choiceFileKeyColumns.map((name) => record.indexOf(name));
+        keyAt = choiceFileKeyColumns.map((name) => keyColumnIndex(record, name));
         choiceFileKeyColumns.forEach((name, k) => {
           if (keyAt[k] < 0)
             problems.add({
@@ -68,7 +69,7 @@ export async function readChoiceFile(input: Readable): Promise<ChoiceFileScan> {
             });
         });
         for (const name of choiceFileUnsupportedColumns)
-          if (record.includes(name))
+          if (keyColumnIndex(record, name) >= 0)
             problems.add({
               file: 'choices',
               line: 1,

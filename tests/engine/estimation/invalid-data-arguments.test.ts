@@ -132,6 +132,17 @@ describe('parseChoiceCsv reads the long choice file', () => {
     );
   });
 
+  it('finds its own columns whatever the case of their headings, the spec columns by name', () => {
+    const text = 'Respondent,TASK,Alt,Chosen,Included,x\n1,1,1,1,true,2\n1,1,2,0,true,3\n';
+    expect(parseChoiceCsv(text, ['x']).map((r) => [r.respondent, r.values[0]])).toEqual([
+      ['1', 2],
+      ['1', 3],
+    ]);
+    expect(() => parseChoiceCsv(text.replace(',x', ',X'), ['x'])).toThrow(
+      'no column "x" named in the specification',
+    );
+  });
+
   it('reads decimal commas in a semicolon file only, and names the line and column of any other', () => {
     const semicolons = 'respondent;task;alt;chosen;x\n1;1;1;1;2,5\n1;1;2;0;-0,25\n';
     expect(parseChoiceCsv(semicolons, ['x']).map((r) => r.values[0])).toEqual([2.5, -0.25]);

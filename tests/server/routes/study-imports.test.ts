@@ -188,6 +188,19 @@ describe('POST /imports/preview', () => {
     ]);
   });
 
+  it('finds respondent, task, alt and chosen whatever the case of their headings', async () => {
+    const capitalised = small.replace('respondent,task,alt,chosen', 'Respondent,Task,ALT,Chosen');
+    const [plain, capitals] = await Promise.all(
+      [small, capitalised].map(
+        async (choices) =>
+          (await upload(team.agents.editor, `${base()}/preview`, { choices }).expect(200))
+            .body as ImportPreview,
+      ),
+    );
+    expect(capitals).toEqual({ ...plain, columns: expect.any(Array) });
+    expect(capitals.attributes.map((a) => a.column)).toEqual(['bill', 'river']);
+  });
+
   it('keeps a quoted semicolon inside a cell of a semicolon file, and names the line of a field-count error', async () => {
     const text = [
       'respondent;task;alt;chosen;bill;river',

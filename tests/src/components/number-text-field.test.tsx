@@ -7,6 +7,7 @@ import '@testing-library/jest-dom/vitest';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { cleanup, fireEvent, render, screen } from '@testing-library/react';
 import { NumberTextField } from '@/components/ui/number-text-field';
+import { NumberRangeFields } from '@/components/ui/number-range-fields';
 
 afterEach(cleanup);
 
@@ -82,5 +83,26 @@ describe('NumberTextField', () => {
     render(<NumberTextField label="Lowest" value={2.5} onCommit={onCommit} />);
     type('Lowest', '2,50');
     expect(onCommit).not.toHaveBeenCalled();
+  });
+});
+
+describe('NumberRangeFields', () => {
+  it('commits each limit with the other kept, and an emptied one as no limit', () => {
+    const onCommit = vi.fn();
+    render(
+      <NumberRangeFields
+        labels={{ low: 'From', high: 'To' }}
+        integer
+        limits={{ low: 18, high: 34 }}
+        onCommit={onCommit}
+      />,
+    );
+    type('From', '25');
+    expect(onCommit).toHaveBeenLastCalledWith({ low: 25, high: 34 });
+    type('To', '');
+    expect(onCommit).toHaveBeenLastCalledWith({ low: 18, high: null });
+    type('To', '40,5');
+    expect(screen.getByLabelText('To')).toHaveAccessibleDescription('Enter a whole number');
+    expect(onCommit).toHaveBeenCalledTimes(2);
   });
 });

@@ -1,5 +1,6 @@
 import { TextAreaField, TextField } from '@/components/ui/field';
 import { NumberTextField } from '@/components/ui/number-text-field';
+import { NumberRangeFields } from '@/components/ui/number-range-fields';
 import {
   pageKindLabels,
   type Question,
@@ -28,22 +29,6 @@ const kindHelp: Partial<Record<QuestionnairePage['kind'], string>> = {
   dominance: 'One alternative is better on every attribute: a check of attention.',
   screening: 'Respondents whose answer matches a screen-out rule leave the survey here.',
 };
-
-/**
- * One end of a screening question's accepted range, read when the field loses focus: empty is
- * no limit (null).
- */
-function AcceptLimitField({
-  label,
-  value,
-  onCommit,
-}: {
-  label: string;
-  value: number | null;
-  onCommit: (limit: number | null) => void;
-}) {
-  return <NumberTextField label={label} value={value} onCommit={onCommit} />;
-}
 
 export function PageForm({
   page,
@@ -147,18 +132,14 @@ export function PageForm({
           </fieldset>
         )}
       {page.kind === 'screening' && page.question.type === 'number' && (
-        <div className="grid gap-4 sm:grid-cols-2">
-          <AcceptLimitField
-            label="Accept from (empty: no lower limit)"
-            value={page.acceptMin}
-            onCommit={(acceptMin) => onChange({ ...page, acceptMin })}
-          />
-          <AcceptLimitField
-            label="Accept up to (empty: no upper limit)"
-            value={page.acceptMax}
-            onCommit={(acceptMax) => onChange({ ...page, acceptMax })}
-          />
-        </div>
+        <NumberRangeFields
+          labels={{
+            low: 'Accept from (empty: no lower limit)',
+            high: 'Accept up to (empty: no upper limit)',
+          }}
+          limits={{ low: page.acceptMin, high: page.acceptMax }}
+          onCommit={({ low, high }) => onChange({ ...page, acceptMin: low, acceptMax: high })}
+        />
       )}
       {page.kind === 'screening' && <QuotaFields page={page} onChange={onChange} />}
       {(page.kind === 'question' || page.kind === 'screening' || page.kind === 'instructions') && (

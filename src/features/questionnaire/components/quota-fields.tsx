@@ -7,6 +7,7 @@ import { nanoid } from 'nanoid';
 import { Button } from '@/components/ui/button';
 import { Alert } from '@/components/ui/feedback';
 import { TextField } from '@/components/ui/field';
+import { NumberRangeFields } from '@/components/ui/number-range-fields';
 import { NumberTextField } from '@/components/ui/number-text-field';
 import { OptionCheckboxes } from './option-checkboxes';
 import type { QuotaCell, ScreeningPage } from '@shared/schemas/questionnaire';
@@ -79,20 +80,12 @@ export function QuotaFields({
               />
             </div>
           ) : (
-            <div className="grid grid-cols-2 gap-3">
-              <NumberTextField
-                label="From"
-                integer
-                value={cell.from}
-                onCommit={(from) => setCell(cell.id, { from })}
-              />
-              <NumberTextField
-                label="To (inclusive)"
-                integer
-                value={cell.to}
-                onCommit={(to) => setCell(cell.id, { to })}
-              />
-            </div>
+            <NumberRangeFields
+              labels={{ low: 'From', high: 'To (inclusive)' }}
+              integer
+              limits={{ low: cell.from, high: cell.to }}
+              onCommit={({ low, high }) => setCell(cell.id, { from: low, to: high })}
+            />
           )}
           <Button
             variant="ghost"

@@ -4,7 +4,7 @@
  */
 import { CheckboxField } from '@/components/ui/checkbox-field';
 import { SelectField } from '@/components/ui/field';
-import { NumberTextField } from '@/components/ui/number-text-field';
+import { NumberRangeFields } from '@/components/ui/number-range-fields';
 import type { Question, ShowIf } from '@shared/schemas/questionnaire';
 import { OptionCheckboxes } from './option-checkboxes';
 import { Options } from '@/components/ui/options';
@@ -64,18 +64,14 @@ export function ShowIfFields({
             </div>
           )}
           {source?.type === 'number' && (
-            <div className="grid grid-cols-2 gap-3">
-              <NumberTextField
-                label="is at least (empty: no limit)"
-                value={showIf.min}
-                onCommit={(min) => onChange({ ...showIf, min })}
-              />
-              <NumberTextField
-                label="and at most (empty: no limit)"
-                value={showIf.max}
-                onCommit={(max) => onChange({ ...showIf, max })}
-              />
-            </div>
+            <NumberRangeFields
+              labels={{
+                low: 'is at least (empty: no limit)',
+                high: 'and at most (empty: no limit)',
+              }}
+              limits={{ low: showIf.min, high: showIf.max }}
+              onCommit={({ low, high }) => onChange({ ...showIf, min: low, max: high })}
+            />
           )}
         </div>
       )}

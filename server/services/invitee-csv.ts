@@ -47,8 +47,10 @@ const fileIssue = (message: string, row = 1): InviteeCsvResult => ({
  */
 export function readInviteeCsv(bytes: Buffer, existingEmails: Set<string>): InviteeCsvResult {
   if (bytes.length === 0) return fileIssue('The file is empty.');
-  if (bytes.includes(0)) return fileIssue('This is not a CSV text file (it contains binary data).');
   const text = decodeText(bytes);
+  // A NUL is in no text file (a UTF-16 one is decoded by now).
+  if (text.includes('\u0000'))
+    return fileIssue('This is not a CSV text file (it contains binary data).');
   let records: CsvRecord[];
   try {
     records = readCsvText(text, { trim: true, sameFieldCount: false });

@@ -1,12 +1,20 @@
 /**
  * The text of an uploaded file. Spreadsheet programs on Windows save "CSV" in the system's code
- * page (Windows-1252 in Western Europe) unless told to use UTF-8; read as UTF-8, every accented
- * letter of such a file would become a replacement character without a word. Bytes that are
- * valid UTF-8 are read as UTF-8 (a byte-order mark dropped); any others as Windows-1252, whose
- * letters cover the Western European languages. A Windows-1252 file with accented letters is
- * practically never valid UTF-8, and a file of plain ASCII reads the same either way (common
- * practice, no source).
+ * page (Windows-1252 in Western Europe) unless told to use UTF-8, and "Unicode text" as UTF-16
+ * with a byte-order mark; read as UTF-8, every accented letter of the first would become a
+ * replacement character without a word, and the second would not read at all. A file starting
+ * with a UTF-16 byte-order mark is read as UTF-16; bytes that are valid UTF-8 as UTF-8 (a
+ * byte-order mark dropped); any others as Windows-1252, whose letters cover the Western
+ * European languages. A Windows-1252 file with accented letters is practically never valid
+ * UTF-8, and a file of plain ASCII reads the same either way (common practice, no source).
  */
+
+/** The UTF-16 encoding a byte-order mark at the start names (FF FE little-, FE FF big-endian). */
+export function utf16Of(bytes: Uint8Array): 'utf-16le' | 'utf-16be' | null {
+  if (bytes[0] === 0xff && bytes[1] === 0xfe) return 'utf-16le';
+  if (bytes[0] === 0xfe && bytes[1] === 0xff) return 'utf-16be';
+  return null;
+}
 
 /**
  * Windows-1252's letters for the bytes 0x80–0x9F (WHATWG Encoding Standard, index
@@ -24,6 +32,9 @@ export function decodeWindows1252(bytes: Uint8Array): string {
 }
 
 export function decodeText(bytes: Uint8Array): string {
+  const utf16 = utf16Of(bytes);
+  // The decoder drops the byte-order mark itself.
+  if (utf16) return new TextDecoder(utf16).decode(bytes);
   try {
     return new TextDecoder('utf-8', { fatal: true }).decode(bytes);
   } catch {

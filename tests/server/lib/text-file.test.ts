@@ -43,6 +43,12 @@ describe('openTextFile', () => {
     expect(await textOf(windows)).toBe(`${text}€ “ok”\n`);
   });
 
+  it('streams a UTF-16 file with its byte-order mark as UTF-8 text, a surrogate pair included', async () => {
+    const unicode = `${text}Łucja 💧\n`;
+    const bytes = Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from(unicode, 'utf16le')]);
+    expect(await textOf(bytes)).toBe(unicode);
+  });
+
   it('refuses a file that is not there with the file system’s error', async () => {
     await expect(openTextFile(path.join(dir, 'missing.csv'))).rejects.toMatchObject({
       code: 'ENOENT',

@@ -105,6 +105,19 @@ describe('POST /invitees/preview', () => {
     ]);
   });
 
+  it('reads a list saved as "Unicode text" (UTF-16, tab separated), and refuses binary data', async () => {
+    const { studyId } = await insertStudy(t.deps.db, { teamId: team.teamId });
+    const unicode = 'email\tname\nu16@example.test\tŁucja Żak\n';
+    const bytes = Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from(unicode, 'utf16le')]);
+    const res = await upload(team.agents.editor, `${base(studyId)}/preview`, bytes).expect(200);
+    expect(res.body.sample).toEqual([
+      { row: 2, email: 'u16@example.test', name: 'Łucja Żak', externalId: null },
+    ]);
+    const binary = Buffer.from([0x50, 0x4b, 0x03, 0x04, 0x00, 0x00, 0x41]);
+    const refused = await upload(team.agents.editor, `${base(studyId)}/preview`, binary);
+    expect(JSON.stringify(refused.body)).toContain('not a CSV text file');
+  });
+
   it.each([
     ['without an e-mail column', 'name,id\nAnn,1\n', /No e-mail column/],
     ['with only a header row', 'email,name\n', /no invitees/],

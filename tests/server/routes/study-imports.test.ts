@@ -201,6 +201,21 @@ describe('POST /imports/preview', () => {
     expect(capitals.attributes.map((a) => a.column)).toEqual(['bill', 'river']);
   });
 
+  it('reads a choice file saved as "Unicode text" (UTF-16 with its mark, tab separated)', async () => {
+    const tabs = small.replaceAll(',', '\t').replaceAll('poor', 'zła');
+    const unicode = Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from(tabs, 'utf16le')]);
+    const [utf8, utf16] = await Promise.all(
+      [Buffer.from(tabs, 'utf8'), unicode].map(
+        async (choices) =>
+          (await upload(team.agents.editor, `${base()}/preview`, { choices }).expect(200))
+            .body as ImportPreview,
+      ),
+    );
+    expect(utf16).toEqual(utf8);
+    expect(utf16.problemCount).toBe(0);
+    expect(utf16.attributes.find((a) => a.column === 'river')?.levels[0].raw).toBe('zła');
+  });
+
   it('keeps a quoted semicolon inside a cell of a semicolon file, and names the line of a field-count error', async () => {
     const text = [
       'respondent;task;alt;chosen;bill;river',

@@ -48,6 +48,16 @@ describe('decodeText', () => {
     expect(decodeText(bytes(0x81, 0x8d, 0x8f, 0x90, 0x9d))).toBe('\u0081\u008d\u008f\u0090\u009d');
   });
 
+  it('reads a file with a UTF-16 byte-order mark as UTF-16, either byte order', () => {
+    // "Unicode text" as a spreadsheet saves it: FF FE, then UTF-16LE (Unicode 15.0, ch. 3.10).
+    const text = 'name\tnote\nŁucja\tGewässer 💧\n';
+    const le = Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from(text, 'utf16le')]);
+    expect(decodeText(le)).toBe(text);
+    const be = Buffer.from(le);
+    for (let i = 0; i < be.length; i += 2) [be[i], be[i + 1]] = [be[i + 1], be[i]];
+    expect(decodeText(be)).toBe(text);
+  });
+
   it('reads plain ASCII the same either way', () => {
     expect(decodeText(bytes(0x61, 0x2c, 0x62, 0x0a))).toBe('a,b\n');
   });

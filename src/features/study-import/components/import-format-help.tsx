@@ -21,9 +21,10 @@ export function ImportFormatHelp() {
           single-choice question.
         </p>
         <p>
-          Commas, semicolons or tabs may separate the columns, and the text may be UTF-8 or
-          Windows-1252, as your spreadsheet saves them. Decimals are written with a point (
-          {code('2.5')}), or with a comma ({code('2,5')}) in a file separated by semicolons.
+          Commas, semicolons or tabs may separate the columns, and the text may be UTF-8, UTF-16
+          (&ldquo;Unicode text&rdquo;) or Windows-1252, as your spreadsheet saves them. Decimals are
+          written with a point ({code('2.5')}), or with a comma ({code('2,5')}) in a file separated
+          by semicolons.
         </p>
         <p>
           Before anything is saved the files are checked, and every problem is listed with its line

@@ -74,7 +74,8 @@ export function extraLinesOf(record: readonly string[]): number {
 export const isEmptyRecord = (record: readonly string[]) => record.length === 1 && record[0] === '';
 
 /**
- * The records of an uploaded CSV text, read as it is written (see the file comment), each with
+ * The separator of an uploaded CSV text (for the readers that read decimal commas by it) and its
+ * records, read as it is written (see the file comment), each with
  * the line it starts on as an editor numbers lines: empty lines (skipped) and line breaks inside
  * quoted cells count. With `sameFieldCount`, a record with another number of fields than the
  * header is refused. Throws csv-parse's error for text that is not CSV (an unclosed quote, say),
@@ -83,9 +84,10 @@ export const isEmptyRecord = (record: readonly string[]) => record.length === 1 
 export function readCsvText(
   text: string,
   options: { trim: boolean; sameFieldCount: boolean },
-): CsvRecord[] {
+): { delimiter: CsvDelimiter; records: CsvRecord[] } {
+  const dialect = csvDialectOf(text);
   const rows = parse(text, {
-    ...csvDialectOf(text),
+    ...dialect,
     trim: options.trim,
     relax_column_count: true,
   }) as string[][];
@@ -103,7 +105,7 @@ export function readCsvText(
       );
     records.push({ record, line });
   }
-  return records;
+  return { delimiter: dialect.delimiter, records };
 }
 
 /**

@@ -53,7 +53,7 @@ export function readInviteeCsv(bytes: Buffer, existingEmails: Set<string>): Invi
     return fileIssue('This is not a CSV text file (it contains binary data).');
   let records: CsvRecord[];
   try {
-    records = readCsvText(text, { trim: true, sameFieldCount: false });
+    ({ records } = readCsvText(text, { trim: true, sameFieldCount: false }));
   } catch (err) {
     const line = Number((err as { lines?: number }).lines) || 1;
     return fileIssue(`The file could not be read as CSV: ${(err as Error).message}`, line);

@@ -8,7 +8,6 @@
  * server/lib/csv-dialect.ts).
  */
 import {
-  csvDialectOf,
   readCsvText,
   withDecimalPoint,
   type CsvDelimiter,
@@ -173,10 +172,10 @@ function checkTask(
 
 /** Parses a design CSV against a study definition; see the file comment. */
 export function importDesignCsv(definition: StudyDefinition, text: string): DesignCsvImport {
-  const { delimiter } = csvDialectOf(text);
+  let delimiter: CsvDelimiter;
   let records: CsvRecord[];
   try {
-    records = readCsvText(text, { trim: false, sameFieldCount: false });
+    ({ delimiter, records } = readCsvText(text, { trim: false, sameFieldCount: false }));
   } catch (error) {
     const line = (error as { lines?: number }).lines ?? 1;
     return { ok: false, errors: [{ row: line, column: null, message: (error as Error).message }] };

@@ -8,10 +8,10 @@
  * with decimal commas in a semicolon file (server/lib/csv-dialect.ts).
  */
 import {
-  csvDialectOf,
   keyColumnIndex,
   readCsvText,
   withDecimalPoint,
+  type CsvDelimiter,
   type CsvRecord,
 } from '../../lib/csv-dialect';
 import { ChoiceDataError, type LongChoiceRow } from './choice-data';
@@ -20,10 +20,10 @@ const REQUIRED = ['respondent', 'task', 'alt', 'chosen'] as const;
 
 /** Parses the CSV and returns rows with `values` in the order of `columns`. */
 export function parseChoiceCsv(text: string, columns: readonly string[]): LongChoiceRow[] {
-  const { delimiter } = csvDialectOf(text);
+  let delimiter: CsvDelimiter;
   let records: CsvRecord[];
   try {
-    records = readCsvText(text, { trim: true, sameFieldCount: true });
+    ({ delimiter, records } = readCsvText(text, { trim: true, sameFieldCount: true }));
   } catch (error) {
     const line = (error as { lines?: number }).lines;
     throw new ChoiceDataError(`the CSV cannot be read: ${(error as Error).message}`, line);

@@ -16,7 +16,7 @@ export function readCsvFile(content: string, source: string, lang: string): File
   let records: CsvRecord[];
   try {
     // Every row must have the header's four columns.
-    records = readCsvText(content, { trim: false, sameFieldCount: true });
+    ({ records } = readCsvText(content, { trim: false, sameFieldCount: true }));
   } catch (err) {
     throw new ValidationError('The CSV file cannot be read', [
       { path: 'file', message: (err as Error).message },

@@ -50,7 +50,7 @@ describe('withDecimalPoint', () => {
 
 describe('readCsvText', () => {
   const lines = (text: string, sameFieldCount = false) =>
-    readCsvText(text, { trim: true, sameFieldCount }).map((r) => [r.line, r.record]);
+    readCsvText(text, { trim: true, sameFieldCount }).records.map((r) => [r.line, r.record]);
 
   it('numbers records by the line they start on, as an editor numbers lines', () => {
     // Line 3 is empty; the quoted cell of line 4 runs into line 5.
